@@ -1,0 +1,65 @@
+/**
+ * One config for the app (Vite) and the tests (Vitest).
+ *
+ * The app lives in web/ and builds to dist/. The tests run in Node from the repository root in two
+ * projects of one `vitest run`: `unit` (engine, reference, property and tool tests) and `browser`
+ * (real Chromium against a production build), which gets long timeouts because it builds the app
+ * and starts a browser.
+ */
+import { fileURLToPath } from 'node:url';
+import { defineConfig } from 'vitest/config';
+import preact from '@preact/preset-vite';
+
+const repoRoot = fileURLToPath(new URL('.', import.meta.url));
+const webRoot = fileURLToPath(new URL('./web/', import.meta.url));
+
+export default defineConfig({
+  root: webRoot,
+  // Assets resolve relative to the page so the build also works from a sub-path.
+  base: './',
+  plugins: [
+    // The preset's prerender step is not used: the page is rendered in the browser.
+    preact(),
+  ],
+  build: {
+    outDir: fileURLToPath(new URL('./dist/', import.meta.url)),
+    emptyOutDir: true,
+    target: 'es2022',
+  },
+  server: {
+    host: '127.0.0.1',
+    port: 5173,
+    // Let the dev server read core/ (outside the app root).
+    fs: { allow: [repoRoot] },
+  },
+  preview: {
+    host: '127.0.0.1',
+  },
+  test: {
+    root: repoRoot,
+    environment: 'node',
+    benchmark: {
+      include: ['tests/**/*.bench.ts'],
+    },
+    projects: [
+      {
+        extends: true,
+        test: {
+          name: 'unit',
+          include: ['tests/**/*.test.ts'],
+          exclude: ['tests/browser/**', '**/node_modules/**'],
+        },
+      },
+      {
+        extends: true,
+        test: {
+          name: 'browser',
+          include: ['tests/browser/**/*.test.ts'],
+          // Builds the app and drives a real browser: minutes, not seconds, on a slow machine.
+          testTimeout: 180_000,
+          hookTimeout: 240_000,
+        },
+      },
+    ],
+  },
+});
