@@ -1,0 +1,127 @@
+/**
+ * The solved result: plain data, JSON-serialisable, documented in README.md ("Result shape").
+ */
+import type { ElementKind, PfSense, PortKind } from './model.ts';
+
+/** A complex number as plain data. */
+export interface ComplexData {
+  re: number;
+  im: number;
+}
+
+/**
+ * The electrical state at one port (the input or output of an element).
+ * AC phasors are per phase: voltage is phase-to-neutral for three-phase, the current is the line
+ * current; angles are referred to the voltage of the nearest upstream source or regulating converter
+ * output (each of those starts its own reference at 0°).
+ */
+export interface PortResult {
+  kind: PortKind;
+  /** V: DC voltage, AC rms (line-to-line for three-phase); 0 for shaft ports. */
+  voltage: number;
+  /** Hz for AC ports. */
+  frequency?: number;
+  /** A: DC current or rms line current; 0 for shaft ports. */
+  current: number;
+  /** Real power P, W. */
+  p: number;
+  /** Reactive power Q, var (positive = lagging/inductive). */
+  q: number;
+  /** Apparent power S, VA. */
+  s: number;
+  /** Power factor |P|/S, 1 when S = 0. */
+  powerFactor: number;
+  pfSense: PfSense | 'unity';
+  /** Per-phase voltage and current phasors (AC only). */
+  phasor?: { voltage: ComplexData; current: ComplexData };
+  /** Shaft speed, rpm, when known. */
+  speed?: number;
+}
+
+export type WarningCode =
+  | 'curve-extrapolated'
+  | 'rating-exceeded'
+  | 'fit-error'
+  | 'light-load'
+  | 'voltage-mismatch'
+  | 'check-derating';
+
+export interface SolveWarning {
+  code: WarningCode;
+  elementId: string;
+  message: string;
+}
+
+/** Weighted efficiencies of a converter (needs a rated power). */
+export interface WeightedEfficiency {
+  /** European weighted efficiency η_EURO. */
+  euro: number;
+  /** California Energy Commission weighted efficiency η_CEC. */
+  cec: number;
+}
+
+/** Least-squares fit quality for a `polynomial-fit` loss model. */
+export interface LossFitReport {
+  p0: number;
+  k1: number;
+  k2: number;
+  /** Root-mean-square residual of the loss at the datasheet points, W. */
+  rmsLossError: number;
+  /** Largest absolute efficiency error at the datasheet points (0.001 = 0.1 percentage point). */
+  maxEfficiencyError: number;
+}
+
+export interface ElementResult {
+  id: string;
+  name: string;
+  kind: ElementKind;
+  role: 'source' | 'stage' | 'load';
+  /** Id of the feeding element, absent for the source. */
+  from?: string;
+  /** Ids of the elements fed by this one. */
+  feeds: string[];
+  /** What the element takes in (absent for the source). */
+  input?: PortResult;
+  /** What the element gives out (absent for loads). For a source this is what it delivers. */
+  output?: PortResult;
+  /** Real power in, W (for the source: the power it delivers including its internal loss). */
+  pIn: number;
+  /** Real power out, W (for a load: the power it uses). */
+  pOut: number;
+  /** pIn − pOut, W. */
+  loss: number;
+  /** pOut / pIn, or 1 when pIn = 0. */
+  efficiency: number;
+  /** Load fraction of a stage with a rated power (P_out / rated). */
+  loadFraction?: number;
+  weighted?: WeightedEfficiency;
+  fit?: LossFitReport;
+}
+
+export interface SolveResult {
+  projectName: string;
+  /** The solution method and how it converged. */
+  method: {
+    name: 'fixed-point over exact two-bus link solutions';
+    /** Relative voltage change between sweeps below which the solve stops. */
+    tolerance: number;
+    iterations: number;
+    /** The last relative voltage change. */
+    residual: number;
+  };
+  /** Elements in solve order: source first, then depth-first down the tree. */
+  elements: ElementResult[];
+  totals: {
+    /** Real power the source delivers (including its internal loss), W. */
+    sourcePower: number;
+    /** Σ load power, W. */
+    loadPower: number;
+    /** Σ losses of source and stages, W. */
+    losses: number;
+    /** |source − loads − losses| / source (0 when the source delivers nothing). */
+    balanceError: number;
+    /** loadPower / sourcePower. */
+    efficiency: number;
+  };
+  warnings: SolveWarning[];
+}

@@ -1,0 +1,107 @@
+/**
+ * Step 4 of the solve: turn the operating point into the plain result (ports, per-element
+ * powers, totals, balance check, warnings).
+ */
+import { type Complex, abs, conj, div, scale } from '../ac/complex.ts';
+import type { PortKind } from '../model.ts';
+import type { Problem } from '../errors.ts';
+import type { ElementResult, PortResult, SolveResult, SolveWarning } from '../result.ts';
+import type { PortInfo } from '../stages/index.ts';
+import { phaseCount } from '../stages/spec.ts';
+import type { PlannedElement } from './plan.ts';
+import { TOLERANCE, type OperatingPoint } from './sweep.ts';
+
+/** Q within this fraction of S counts as unity power factor. */
+const UNITY_BAND = 1e-9;
+
+/** V, I, P, Q, S, pf and phasors at a port carrying total power s at per-phase voltage v. */
+export function portResult(port: PortInfo, v: Complex, s: Complex): PortResult {
+  const kind: PortKind = port.kind;
+  if (kind === 'shaft') {
+    return { kind, voltage: 0, current: 0, p: s.re, q: 0, s: Math.abs(s.re), powerFactor: 1, pfSense: 'unity', ...(port.speed !== undefined ? { speed: port.speed } : {}) };
+  }
+  const vPhase = abs(v);
+  if (kind === 'dc') {
+    return { kind, voltage: vPhase, current: vPhase > 0 ? s.re / vPhase : 0, p: s.re, q: 0, s: Math.abs(s.re), powerFactor: 1, pfSense: 'unity' };
+  }
+  const m = phaseCount(kind);
+  const sMag = abs(s);
+  const iPhasor = vPhase > 0 ? conj(div(scale(s, 1 / m), v)) : { re: 0, im: 0 };
+  return {
+    kind,
+    voltage: kind === 'ac3' ? vPhase * Math.sqrt(3) : vPhase,
+    ...(port.frequency !== undefined ? { frequency: port.frequency } : {}),
+    current: abs(iPhasor),
+    p: s.re,
+    q: s.im,
+    s: sMag,
+    powerFactor: sMag > 0 ? Math.abs(s.re) / sMag : 1,
+    pfSense: Math.abs(s.im) <= UNITY_BAND * sMag ? 'unity' : s.im > 0 ? 'lagging' : 'leading',
+    phasor: { voltage: { re: v.re, im: v.im }, current: { re: iPhasor.re, im: iPhasor.im } },
+  };
+}
+
+export function buildResult(
+  projectName: string,
+  order: readonly PlannedElement[],
+  point: OperatingPoint,
+): { ok: true; result: SolveResult } | { ok: false; problems: Problem[] } {
+  const { vOut, sIn, sOut } = point;
+  const warnings: SolveWarning[] = [];
+  const problems: Problem[] = [];
+  const elements: ElementResult[] = order.map((node, i) => {
+    const e = node.element;
+    const role = node.spec.role;
+    const parent = node.parent;
+    const pIn = sIn[i]!.re;
+    const pOut = role === 'load' ? pIn : sOut[i]!.re;
+    const loss = pIn - pOut;
+    if (loss < -1e-9 * Math.max(Math.abs(pIn), 1)) {
+      problems.push({ code: 'invalid-value', elementId: e.id, field: 'loss', value: loss, message: 'the loss model gives a negative loss (efficiency above 100 %) at this operating point' });
+    }
+    const vIn = parent < 0 ? vOut[i]! : vOut[parent]!;
+    const rep = node.model.report(sOut[i]!, sIn[i]!, vIn);
+    for (const w of rep.warnings) warnings.push({ ...w, elementId: e.id });
+    const r: ElementResult = {
+      id: e.id,
+      name: e.name ?? e.id,
+      kind: e.kind,
+      role,
+      feeds: node.children.map((c) => order[c]!.element.id),
+      pIn,
+      pOut,
+      loss,
+      efficiency: pIn !== 0 ? pOut / pIn : 1,
+    };
+    if (parent >= 0) {
+      r.from = order[parent]!.element.id;
+      r.input = portResult(node.input!, vOut[parent]!, sIn[i]!);
+    }
+    if (node.model.out) r.output = portResult(node.model.out, vOut[i]!, sOut[i]!);
+    if (rep.loadFraction !== undefined) r.loadFraction = rep.loadFraction;
+    if (rep.weighted) r.weighted = rep.weighted;
+    if (rep.fit) r.fit = rep.fit;
+    return r;
+  });
+  if (problems.length) return { ok: false, problems };
+
+  const sourcePower = elements[0]!.pIn;
+  let loadPower = 0;
+  let losses = 0;
+  for (const r of elements) {
+    if (r.role === 'load') loadPower += r.pIn;
+    else losses += r.loss;
+  }
+  const balanceError = sourcePower !== 0 ? Math.abs(sourcePower - loadPower - losses) / Math.abs(sourcePower) : 0;
+  return {
+    ok: true,
+    result: {
+      projectName,
+      method: { name: 'fixed-point over exact two-bus link solutions', tolerance: TOLERANCE, iterations: point.iterations, residual: point.residual },
+      elements,
+      totals: { sourcePower, loadPower, losses, balanceError, efficiency: sourcePower !== 0 ? loadPower / sourcePower : 1 },
+      warnings,
+    },
+  };
+}
+

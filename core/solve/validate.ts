@@ -1,0 +1,93 @@
+/**
+ * Step 1 of the solve: check the project file field by field. Every problem names the element and
+ * the field; nothing is computed from a project that has any.
+ */
+import { z } from 'zod';
+import type { Element, Project } from '../model.ts';
+import type { Problem } from '../errors.ts';
+import { KINDS } from '../stages/index.ts';
+
+const projectShape = z.strictObject({
+  format: z.literal('joulepath-project', { error: 'must be "joulepath-project"' }),
+  version: z.literal(1, { error: 'must be 1 (the only schema version so far)' }),
+  name: z.string({ error: 'must be text' }),
+  description: z.string({ error: 'must be text' }).optional(),
+  elements: z.array(z.unknown(), { error: 'must be a list of elements' }),
+});
+
+type Validated = { ok: true; project: Project } | { ok: false; problems: Problem[] };
+
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+function valueAt(obj: unknown, path: readonly PropertyKey[]): unknown {
+  let v = obj;
+  for (const key of path) {
+    if (!isRecord(v) && !Array.isArray(v)) return undefined;
+    v = (v as Record<PropertyKey, unknown>)[key];
+  }
+  return v;
+}
+
+/** Turn schema issues into problems for one element (or the project). */
+function fromIssues(issues: readonly z.core.$ZodIssue[], elementId: string, subject: unknown): Problem[] {
+  return issues.map((issue) => {
+    const path = issue.path.map(String);
+    if (issue.code === 'unrecognized_keys') {
+      const field = [...path, ...issue.keys].join('.');
+      return { code: 'invalid-value', elementId, field, message: `unknown field "${issue.keys.join('", "')}" (check the spelling)` };
+    }
+    const value = valueAt(subject, issue.path);
+    const message = value === undefined && issue.code === 'invalid_type' ? 'is required' : issue.message;
+    return { code: 'invalid-value', elementId, field: path.join('.'), value, message };
+  });
+}
+
+/** Validate one element's fields: its kind must be known, then its own schema and cross-field checks. */
+function validateElement(raw: unknown, index: number): { element?: Element; problems: Problem[] } {
+  if (!isRecord(raw)) {
+    return { problems: [{ code: 'invalid-value', elementId: `#${index + 1}`, field: '', value: raw, message: 'must be an object' }] };
+  }
+  const id = typeof raw['id'] === 'string' && raw['id'] !== '' ? raw['id'] : `#${index + 1}`;
+  const kind = raw['kind'];
+  const spec = typeof kind === 'string' ? KINDS.get(kind as Element['kind']) : undefined;
+  if (!spec) {
+    return {
+      problems: [
+        {
+          code: 'unknown-kind',
+          elementId: id,
+          field: 'kind',
+          value: kind,
+          message: `unknown kind ${JSON.stringify(kind)}; expected one of ${[...KINDS.keys()].join(', ')}`,
+        },
+      ],
+    };
+  }
+  const parsed = spec.schema.safeParse(raw);
+  if (!parsed.success) return { problems: fromIssues(parsed.error.issues, id, raw) };
+  const element = parsed.data;
+  const problems = (spec.check?.(element) ?? []).map((p) => ({ ...p, elementId: id }));
+  return problems.length ? { problems } : { element, problems };
+}
+
+/** Check the file and every element. Structure (tree, kinds of ports) is checked by `plan`. */
+export function validateProject(input: unknown): Validated {
+  const top = projectShape.safeParse(input);
+  if (!top.success) return { ok: false, problems: fromIssues(top.error.issues, 'project', input) };
+  const problems: Problem[] = [];
+  const elements: Element[] = [];
+  top.data.elements.forEach((raw, i) => {
+    const r = validateElement(raw, i);
+    problems.push(...r.problems);
+    if (r.element) elements.push(r.element);
+  });
+  const seen = new Set<string>();
+  for (const e of elements) {
+    if (seen.has(e.id)) problems.push({ code: 'duplicate-id', elementId: e.id, field: 'id', value: e.id, message: 'this id is used by more than one element' });
+    seen.add(e.id);
+  }
+  if (problems.length) return { ok: false, problems };
+  const { description, ...rest } = top.data;
+  const project: Project = { ...rest, ...(description !== undefined ? { description } : {}), elements } as Project;
+  return { ok: true, project };
+}

@@ -1,0 +1,24 @@
+/** DC bus or distribution board: voltage passes through unchanged; a fixed loss of its own. */
+import { z } from 'zod';
+import type { DcBusStage } from '../model.ts';
+import { c } from '../ac/complex.ts';
+import { defineKind, fromField, idField, nameField, nonNegative } from './spec.ts';
+
+export const dcbusKind = defineKind<DcBusStage>({
+  kind: 'dcbus',
+  role: 'stage',
+  accepts: () => ['dc'],
+  schema: z.strictObject({
+    id: idField,
+    name: nameField,
+    kind: z.literal('dcbus'),
+    from: fromField,
+    fixedLoss: nonNegative('W'),
+  }) as z.ZodType<DcBusStage>,
+  build: (e) => ({
+    out: { kind: 'dc' },
+    outputVoltage: (vIn) => vIn,
+    inputPower: (sOut) => c(sOut.re + e.fixedLoss),
+    report: () => ({ warnings: [] }),
+  }),
+});

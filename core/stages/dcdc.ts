@@ -1,0 +1,20 @@
+/** DC-DC converter: DC in, regulated DC out. */
+import { z } from 'zod';
+import type { DcDcStage } from '../model.ts';
+import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, positive, regulatingConverter } from './spec.ts';
+
+export const dcdcKind = defineKind<DcDcStage>({
+  kind: 'dcdc',
+  role: 'stage',
+  accepts: () => ['dc'],
+  schema: z.strictObject({
+    id: idField,
+    name: nameField,
+    kind: z.literal('dcdc'),
+    from: fromField,
+    outputVoltage: positive('V'),
+    loss: lossModelSchema,
+  }) as z.ZodType<DcDcStage>,
+  check: (e) => checkLossModel(e.loss),
+  build: (e) => regulatingConverter({ out: { kind: 'dc' }, outputVoltage: e.outputVoltage, inputKind: 'dc', loss: e.loss }),
+});

@@ -1,0 +1,41 @@
+/** A converting stage with user-chosen input and output kinds (regulated output). */
+import { z } from 'zod';
+import type { GenericStage } from '../model.ts';
+import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, positive, regulatingConverter, unitFraction } from './spec.ts';
+
+const electrical = z.enum(['dc', 'ac1', 'ac3'], { error: 'must be "dc", "ac1" or "ac3"' });
+
+export const genericKind = defineKind<GenericStage>({
+  kind: 'generic',
+  role: 'stage',
+  accepts: (e) => [e.inputKind],
+  schema: z.strictObject({
+    id: idField,
+    name: nameField,
+    kind: z.literal('generic'),
+    from: fromField,
+    inputKind: electrical,
+    outputKind: electrical,
+    outputVoltage: positive('V'),
+    outputFrequency: positive('Hz').optional(),
+    inputPowerFactor: unitFraction('power factor').optional(),
+    inputPfSense: pfSense,
+    loss: lossModelSchema,
+  }) as z.ZodType<GenericStage>,
+  check(e) {
+    const problems = checkLossModel(e.loss);
+    if (e.outputKind !== 'dc' && e.outputFrequency === undefined) {
+      problems.push({ code: 'invalid-value', field: 'outputFrequency', message: 'is needed when the output is AC' });
+    }
+    return problems;
+  },
+  build: (e, input) =>
+    regulatingConverter({
+      out: e.outputKind === 'dc' ? { kind: 'dc' } : { kind: e.outputKind, frequency: e.outputFrequency! },
+      outputVoltage: e.outputVoltage,
+      inputKind: input!.kind,
+      ...(e.inputPowerFactor !== undefined ? { inputPowerFactor: e.inputPowerFactor } : {}),
+      ...(e.inputPfSense ? { inputPfSense: e.inputPfSense } : {}),
+      loss: e.loss,
+    }),
+});

@@ -1,0 +1,28 @@
+/** Inverter: DC in, regulated single- or three-phase AC out. */
+import { z } from 'zod';
+import type { InverterStage } from '../model.ts';
+import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, phases, positive, regulatingConverter } from './spec.ts';
+
+export const inverterKind = defineKind<InverterStage>({
+  kind: 'inverter',
+  role: 'stage',
+  accepts: () => ['dc'],
+  schema: z.strictObject({
+    id: idField,
+    name: nameField,
+    kind: z.literal('inverter'),
+    from: fromField,
+    phases,
+    outputVoltage: positive('V'),
+    frequency: positive('Hz'),
+    loss: lossModelSchema,
+  }) as z.ZodType<InverterStage>,
+  check: (e) => checkLossModel(e.loss),
+  build: (e) =>
+    regulatingConverter({
+      out: { kind: e.phases === 3 ? 'ac3' : 'ac1', frequency: e.frequency },
+      outputVoltage: e.outputVoltage,
+      inputKind: 'dc',
+      loss: e.loss,
+    }),
+});

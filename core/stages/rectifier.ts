@@ -1,0 +1,30 @@
+/** Rectifier or battery charger: AC (1φ or 3φ) in, regulated DC out. */
+import { z } from 'zod';
+import type { RectifierStage } from '../model.ts';
+import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, positive, regulatingConverter, unitFraction } from './spec.ts';
+
+export const rectifierKind = defineKind<RectifierStage>({
+  kind: 'rectifier',
+  role: 'stage',
+  accepts: () => ['ac1', 'ac3'],
+  schema: z.strictObject({
+    id: idField,
+    name: nameField,
+    kind: z.literal('rectifier'),
+    from: fromField,
+    outputVoltage: positive('V'),
+    inputPowerFactor: unitFraction('power factor'),
+    inputPfSense: pfSense,
+    loss: lossModelSchema,
+  }) as z.ZodType<RectifierStage>,
+  check: (e) => checkLossModel(e.loss),
+  build: (e, input) =>
+    regulatingConverter({
+      out: { kind: 'dc' },
+      outputVoltage: e.outputVoltage,
+      inputKind: input!.kind,
+      inputPowerFactor: e.inputPowerFactor,
+      ...(e.inputPfSense ? { inputPfSense: e.inputPfSense } : {}),
+      loss: e.loss,
+    }),
+});

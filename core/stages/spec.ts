@@ -1,0 +1,247 @@
+/**
+ * What every element kind provides to the solver, and the helpers the kinds share.
+ *
+ * Conventions of the solve: voltages are per-phase phasors (phase-to-neutral on three-phase, the
+ * line voltage on single-phase, a real number on DC); powers are TOTAL complex powers S = P + jQ
+ * (all phases), Q > 0 lagging.
+ */
+import { z } from 'zod';
+import type { Element, ElementKind, PfSense, PortKind } from '../model.ts';
+import type { Problem } from '../errors.ts';
+import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.ts';
+import { type Complex, ZERO, abs, add, c, scale } from '../ac/complex.ts';
+import { receivingVoltage } from '../ac/two-bus.ts';
+import { type PreparedLoss, prepareLoss, weightedEfficiency } from './loss-model.ts';
+
+/** The port an element's output presents to the elements it feeds. */
+export interface PortInfo {
+  kind: PortKind;
+  /** Hz, AC only. */
+  frequency?: number;
+  /** Shaft speed, rpm, when known. */
+  speed?: number;
+}
+
+export interface KindWarning {
+  code: WarningCode;
+  message: string;
+}
+
+/** Details reported after the solve. */
+export interface ElementReport {
+  loadFraction?: number;
+  weighted?: WeightedEfficiency;
+  fit?: LossFitReport;
+  warnings: KindWarning[];
+}
+
+/** An element made ready for the solve (constants precomputed). Pure functions of their arguments. */
+export interface ElementModel {
+  /** Output port, null for loads. */
+  readonly out: PortInfo | null;
+  /**
+   * Forward sweep: the output voltage phasor from the input voltage (null for a source) and the
+   * output power. Returns null when the output power cannot be delivered (infeasible).
+   */
+  outputVoltage(vIn: Complex, sOut: Complex): Complex | null;
+  /** Backward sweep: total input complex power from the total output power and the voltages. */
+  inputPower(sOut: Complex, vIn: Complex, vOut: Complex): Complex;
+  /** Details once the operating point is known. */
+  report(sOut: Complex, sIn: Complex, vIn: Complex): ElementReport;
+}
+
+export interface KindSpec<E extends Element = Element> {
+  readonly kind: E['kind'];
+  readonly role: 'source' | 'stage' | 'load';
+  /** Port kinds this element can be fed from (empty for sources). */
+  accepts(e: E): readonly PortKind[];
+  /** Parameter schema: field types and single-field ranges. */
+  readonly schema: z.ZodType<E>;
+  /** Checks across fields, run after the schema passed. */
+  check?(e: E): Omit<Problem, 'elementId'>[];
+  /** Prepare the element, given the port that feeds it (null for a source). */
+  build(e: E, input: PortInfo | null): ElementModel;
+}
+
+/** Helper to keep each kind's spec typed to its element. */
+export const defineKind = <E extends Element>(spec: KindSpec<E>): KindSpec<E> => spec;
+
+// ---------- shared schema fragments ----------
+
+const num = () => z.number({ error: 'must be a number' });
+export const positive = (unit: string) => num().gt(0, `must be greater than 0 ${unit}`.trim());
+export const nonNegative = (unit: string) => num().gte(0, `must not be negative ${unit}`.trim());
+/** Efficiency or power factor style quantity in (0, 1]. */
+export const unitFraction = (what: string) =>
+  num().gt(0, `${what} must be greater than 0`).lte(1, `${what} must not exceed 1 (enter 0.95 for 95 %)`);
+export const idField = z.string({ error: 'must be text' }).min(1, 'must not be empty');
+export const nameField = z.string({ error: 'must be text' }).optional();
+export const fromField = z.string({ error: 'must name the feeding element' }).min(1, 'must name the feeding element');
+export const pfSense = z.enum(['lagging', 'leading'], { error: 'must be "lagging" or "leading"' }).optional();
+export const phases = z.union([z.literal(1), z.literal(3)], { error: 'must be 1 or 3' });
+
+const efficiencyPoints = z
+  .array(
+    z.strictObject({
+      loadFraction: positive('(a fraction of rated output, 0.1 = 10 %)'),
+      efficiency: unitFraction('efficiency'),
+    }),
+    { error: 'must be a list of {loadFraction, efficiency} points' },
+  )
+  .min(2, 'needs at least two datasheet points');
+
+export const lossModelSchema = z.discriminatedUnion(
+  'model',
+  [
+    z.strictObject({
+      model: z.literal('constant'),
+      efficiency: unitFraction('efficiency'),
+      idleLoss: nonNegative('W').optional(),
+      ratedPower: positive('W').optional(),
+    }),
+    z.strictObject({
+      model: z.literal('curve'),
+      ratedPower: positive('W'),
+      points: efficiencyPoints,
+      idleLoss: nonNegative('W').optional(),
+    }),
+    z.strictObject({
+      model: z.literal('polynomial'),
+      p0: nonNegative('W'),
+      k1: nonNegative(''),
+      k2: nonNegative('per W'),
+      ratedPower: positive('W').optional(),
+    }),
+    z.strictObject({
+      model: z.literal('polynomial-fit'),
+      ratedPower: positive('W'),
+      points: efficiencyPoints.min(3, 'needs at least three datasheet points for a three-term fit'),
+    }),
+  ],
+  { error: 'must be one of "constant", "curve", "polynomial", "polynomial-fit"' },
+);
+
+/** Checks on datasheet points that a schema cannot express: distinct load fractions. */
+export function checkPoints(
+  points: readonly { loadFraction: number }[],
+  field: string,
+  minDistinct: number,
+): Omit<Problem, 'elementId'>[] {
+  const distinct = new Set(points.map((p) => p.loadFraction)).size;
+  if (distinct < points.length) {
+    return [{ code: 'invalid-value', field, value: points.map((p) => p.loadFraction), message: 'two datasheet points have the same load fraction' }];
+  }
+  if (distinct < minDistinct) {
+    return [{ code: 'invalid-value', field, message: `needs at least ${minDistinct} different load fractions` }];
+  }
+  return [];
+}
+
+export function checkLossModel(loss: z.infer<typeof lossModelSchema>): Omit<Problem, 'elementId'>[] {
+  if (loss.model === 'curve') return checkPoints(loss.points, 'loss.points', 2);
+  if (loss.model === 'polynomial-fit') return checkPoints(loss.points, 'loss.points', 3);
+  return [];
+}
+
+// ---------- shared electrical helpers ----------
+
+export const phaseCount = (kind: PortKind): number => (kind === 'ac3' ? 3 : 1);
+
+/** Per-phase voltage magnitude from the rated voltage (line-to-line on three-phase). */
+export const perPhase = (kind: PortKind, voltage: number): number => (kind === 'ac3' ? voltage / Math.sqrt(3) : voltage);
+
+/** Q drawn at a given P and power factor: Q = P·tan(arccos pf), negative when leading. */
+export function reactiveFromPf(p: number, pf: number, sense: PfSense = 'lagging'): number {
+  const q = Math.abs(p) * Math.tan(Math.acos(pf));
+  return sense === 'leading' ? -q : q;
+}
+
+/**
+ * A series impedance link solved exactly per phase (cables, transformer windings, source
+ * impedance). `z` is the per-phase impedance: the loop impedance on DC and single-phase.
+ */
+export function seriesLink(z: Complex, kind: PortKind) {
+  const m = phaseCount(kind);
+  return {
+    outputVoltage: (vIn: Complex, sOut: Complex): Complex | null => receivingVoltage(vIn, z, scale(sOut, 1 / m)),
+    /** S_in = S_out + m·|I|²·Z with |I| = |S_out/m| / |V_out|. */
+    inputPower: (sOut: Complex, vOut: Complex): Complex => {
+      const i = abs(sOut) / m / abs(vOut);
+      return add(sOut, scale(z, m * i * i));
+    },
+  };
+}
+
+/**
+ * A regulating converter: sets its output voltage (and frequency), draws P_in = P_out + P_loss and,
+ * on an AC input, Q_in from its input power factor. Reactive power on its output is supplied by the
+ * converter and does not pass upstream.
+ */
+export function regulatingConverter(opts: {
+  out: PortInfo;
+  outputVoltage: number;
+  inputKind: PortKind;
+  inputPowerFactor?: number;
+  inputPfSense?: PfSense;
+  loss: z.infer<typeof lossModelSchema>;
+  /** Name of the rated quantity for messages, e.g. "rated output". */
+}): ElementModel {
+  const prepared: PreparedLoss = prepareLoss(opts.loss);
+  const vOut = c(perPhase(opts.out.kind, opts.outputVoltage));
+  const pf = opts.inputKind === 'dc' ? 1 : (opts.inputPowerFactor ?? 1);
+  return {
+    out: opts.out,
+    outputVoltage: () => vOut,
+    inputPower: (sOut) => {
+      const pIn = sOut.re + prepared.loss(sOut.re).loss;
+      return c(pIn, pf === 1 ? 0 : reactiveFromPf(pIn, pf, opts.inputPfSense));
+    },
+    report: (sOut) => lossReport(prepared, sOut.re),
+  };
+}
+
+/** Load fraction, weighted efficiencies, fit and warnings of a loss model at an operating point. */
+export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport {
+  const warnings: KindWarning[] = [];
+  const rated = prepared.ratedPower;
+  const { extrapolated } = prepared.loss(pOut);
+  if (extrapolated) {
+    warnings.push({
+      code: 'curve-extrapolated',
+      message: `operating at ${fmtPct(pOut / (rated ?? 1))} of rated output, outside the datasheet points; the end value is used`,
+    });
+  }
+  if (rated !== undefined && pOut > rated * (1 + 1e-9)) {
+    warnings.push({ code: 'rating-exceeded', message: `output ${fmtW(pOut)} exceeds the rated ${fmtW(rated)}` });
+  }
+  if (prepared.fit) {
+    const f = prepared.fit;
+    if (f.p0 < 0 || f.k1 < 0 || f.k2 < 0) {
+      warnings.push({
+        code: 'fit-error',
+        message: 'the fitted loss polynomial has a negative term; check the datasheet points (the fit may not hold outside them)',
+      });
+    }
+  }
+  const report: ElementReport = { warnings };
+  if (rated !== undefined) report.loadFraction = pOut / rated;
+  const weighted = weightedEfficiency(prepared);
+  if (weighted) report.weighted = weighted;
+  if (prepared.fit) report.fit = prepared.fit;
+  return report;
+}
+
+export const fmtW = (w: number): string => (Math.abs(w) >= 1000 ? `${(w / 1000).toPrecision(4)} kW` : `${w.toPrecision(4)} W`);
+export const fmtPct = (x: number): string => `${(x * 100).toFixed(1)} %`;
+
+/** A load: constant complex power regardless of voltage. */
+export function constantPowerLoad(s: Complex): ElementModel {
+  return {
+    out: null,
+    outputVoltage: () => ZERO,
+    inputPower: () => s,
+    report: () => ({ warnings: [] }),
+  };
+}
+
+export type { ElementKind };
