@@ -1,0 +1,188 @@
+/**
+ * The built page in a real browser (Debian's Chromium, driven by playwright-core): every demo opens
+ * and shows its tables, a broken project shows its problems, nothing is logged as an error, and the
+ * page fits a phone. Screenshots go to tests/.artifacts/ for a person to look at.
+ *
+ * One browser and one production build for the whole file keep it fast.
+ */
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { build, preview, type PreviewServer } from 'vite';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { requireTool, skipWithout } from '../tools/system-tools.ts';
+
+const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
+const configFile = join(repoRoot, 'vite.config.ts');
+const artifacts = join(repoRoot, 'tests', '.artifacts');
+
+const VIEWPORTS = {
+  phone: { width: 390, height: 844 },
+  desktop: { width: 1366, height: 768 },
+} as const;
+
+const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+  '--disable-quic',
+];
+
+/** A TCP port that is free right now on 127.0.0.1. */
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = createServer();
+    srv.unref();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const address = srv.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
+  let outDir = '';
+  let server: PreviewServer | undefined;
+  let browser: Browser | undefined;
+  let baseUrl = '';
+  const timings: string[] = [];
+
+  beforeAll(async () => {
+    const t0 = performance.now();
+    outDir = mkdtempSync(join(tmpdir(), 'joulepath-build-'));
+    await build({ configFile, logLevel: 'warn', build: { outDir, emptyOutDir: true } });
+    const t1 = performance.now();
+    server = await preview({
+      configFile,
+      logLevel: 'warn',
+      build: { outDir },
+      preview: { host: '127.0.0.1', port: await freePort(), strictPort: true, open: false },
+    });
+    baseUrl = server.resolvedUrls?.local[0] ?? '';
+    expect(baseUrl, 'the preview server reports its address').toMatch(/^http:\/\/127\.0\.0\.1:\d+\/$/);
+    // launch() gives each run a fresh temporary profile (user-data-dir) and removes it on close.
+    browser = await chromium.launch({ executablePath: requireTool('chromium'), headless: true, args: CHROMIUM_ARGS });
+    const t2 = performance.now();
+    timings.push(`build ${((t1 - t0) / 1000).toFixed(1)} s`, `preview+launch ${((t2 - t1) / 1000).toFixed(1)} s`);
+    mkdirSync(artifacts, { recursive: true });
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+    if (outDir) rmSync(outDir, { recursive: true, force: true });
+    if (timings.length) console.log(`browser test: ${timings.join(', ')}`);
+  });
+
+  /** A new page that records every console error, page error and failed request. */
+  async function openPage(viewport: { width: number; height: number }): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+    const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US' });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('console', (msg) => {
+      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
+    });
+    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    page.on('requestfailed', (req) => errors.push(`request failed: ${req.url()} ${req.failure()?.errorText ?? ''}`));
+    page.on('response', (res) => {
+      if (res.status() >= 400) errors.push(`HTTP ${res.status()}: ${res.url()}`);
+    });
+    await page.goto(baseUrl, { waitUntil: 'load' });
+    return { context, page, errors };
+  }
+
+  async function expectTablesShown(page: Page): Promise<void> {
+    await page.getByTestId('element-table').waitFor();
+    const totalsRow = page.getByTestId('totals-row');
+    await expect.poll(() => totalsRow.count()).toBe(1);
+    const efficiency = (await page.getByTestId('totals-efficiency').innerText()).trim();
+    expect(efficiency).toMatch(/^\d{1,3}(\.\d+)?\s?%$/);
+    // Every element row has a non-empty efficiency cell (a dash for loads).
+    const cells = await page.locator('[data-testid="element-table"] tbody tr td:last-child').allInnerTexts();
+    expect(cells.length).toBeGreaterThan(1);
+    for (const c of cells) expect(c.trim()).not.toBe('');
+    const portRows = await page.locator('[data-testid="port-table"] tbody tr').count();
+    expect(portRows).toBeGreaterThan(cells.length);
+    await expect.poll(async () => (await page.getByTestId('balance-line').innerText()).trim()).toMatch(/^Energy balance: source /);
+    // No stray NaN/undefined leaks into the tables.
+    const text = await page.getByTestId('project').innerText();
+    expect(text).not.toMatch(/NaN|undefined|Infinity/);
+  }
+
+  it.each(Object.entries(VIEWPORTS))('opens each demo and shows its tables (%s)', async (label, viewport) => {
+    const { context, page, errors } = await openPage(viewport);
+    try {
+      await expect.poll(() => page.title()).toBe('Joulepath');
+      await expect.poll(async () => (await page.locator('.footer').innerText()).includes('planning estimates')).toBe(true);
+      const links = page.locator('a[data-demo-id]');
+      const ids = await links.evaluateAll((els) => els.map((el) => el.getAttribute('data-demo-id') ?? ''));
+      expect(ids).toHaveLength(3);
+      // The first demo is open before any tap.
+      await expectTablesShown(page);
+      for (const id of ids) {
+        await page.locator(`a[data-demo-id="${id}"]`).click();
+        await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
+        expect(page.url()).toContain(`#demo=${id}`);
+        await expectTablesShown(page);
+        // The page itself never scrolls sideways; wide tables scroll inside their own box.
+        const overflow = await page.evaluate('document.documentElement.scrollWidth - window.innerWidth');
+        expect(overflow, `page wider than the ${label} viewport on ${id}`).toBeLessThanOrEqual(0);
+        await page.screenshot({ path: join(artifacts, `${label}-${id}.png`), fullPage: true });
+      }
+      // A reload with the address of the last demo opens that demo again.
+      await page.reload({ waitUntil: 'load' });
+      await expect.poll(() => page.locator(`a[data-demo-id="${ids[2]}"]`).getAttribute('aria-current')).toBe('page');
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('shows what is wrong with a project that cannot be solved, element and field named', async () => {
+    const { context, page, errors } = await openPage(VIEWPORTS.phone);
+    try {
+      await page.getByTestId('element-table').waitFor();
+      // A load with a negative power: a made-up broken project for this test (one fault only, so
+      // the check does not depend on the order in which the engine validates).
+      const broken = {
+        format: 'joulepath-project',
+        version: 1,
+        name: 'Broken on purpose',
+        elements: [
+          { id: 'supply', kind: 'battery', voltage: 48 },
+          { id: 'heater', kind: 'dc-load', from: 'supply', power: -5 },
+        ],
+      };
+      await page.getByTestId('open-file').setInputFiles({
+        name: 'broken.json',
+        mimeType: 'application/json',
+        buffer: Buffer.from(JSON.stringify(broken)),
+      });
+      const problems = page.getByTestId('problems');
+      await problems.waitFor();
+      const text = await problems.innerText();
+      expect(text).toContain('heater');
+      expect(text).toContain('power');
+      await page.screenshot({ path: join(artifacts, 'phone-problems.png'), fullPage: true });
+
+      // A file that is not JSON at all says so instead of failing silently.
+      await page.getByTestId('open-file').setInputFiles({ name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('not json') });
+      await expect.poll(async () => (await page.getByTestId('unreadable').innerText()).includes('not a JSON project file')).toBe(true);
+
+      // Tapping a demo again leaves the file and shows the demo.
+      await page.locator('a[data-demo-id]').first().click();
+      await expectTablesShown(page);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});

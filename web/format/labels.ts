@@ -1,0 +1,37 @@
+/** Words shown for the engine's element and port kinds (display only). */
+import type { ElementKind, PortKind } from '../../core/model.ts';
+
+const ELEMENT_KIND_LABELS: Record<ElementKind, string> = {
+  grid: 'Utility supply',
+  generator: 'Generator',
+  battery: 'Battery bank',
+  rectifier: 'Rectifier',
+  dcdc: 'DC–DC converter',
+  dcbus: 'DC bus',
+  inverter: 'Inverter',
+  transformer: 'Transformer',
+  drive: 'Variable-frequency drive',
+  motor: 'Motor',
+  cable: 'Cable',
+  generic: 'Converter',
+  'dc-load': 'DC load',
+  'ac-load': 'AC load',
+  'ac-va-load': 'AC load (VA)',
+  'shaft-load': 'Shaft load',
+};
+
+const PORT_KIND_LABELS: Record<PortKind, string> = {
+  dc: 'DC',
+  ac1: 'AC 1φ',
+  ac3: 'AC 3φ',
+  shaft: 'Shaft',
+};
+
+/** The trade name of an element kind; unknown kinds are shown as given. */
+export function elementKindLabel(kind: string): string {
+  return (ELEMENT_KIND_LABELS as Record<string, string>)[kind] ?? kind;
+}
+
+export function portKindLabel(kind: string): string {
+  return (PORT_KIND_LABELS as Record<string, string>)[kind] ?? kind;
+}
