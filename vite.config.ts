@@ -1,10 +1,10 @@
 /**
  * One config for the app (Vite) and the tests (Vitest).
  *
- * The app lives in web/ and builds to dist/. The tests run in Node from the repository root in two
- * projects of one `vitest run`: `unit` (engine, reference, property and tool tests) and `browser`
- * (real Chromium against a production build), which gets long timeouts because it builds the app
- * and starts a browser.
+ * The app lives in web/ and builds to dist/. The tests run in Node from the repository root as
+ * projects of one `vitest run`: `unit` (engine, page formatting, tools), `reference` (cases from
+ * outside sources), `properties` (fast-check invariants) and `browser` (real Chromium against a
+ * production build), which gets long timeouts because it builds the app and starts a browser.
  */
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
@@ -47,8 +47,16 @@ export default defineConfig({
         test: {
           name: 'unit',
           include: ['tests/**/*.test.ts'],
-          exclude: ['tests/browser/**', '**/node_modules/**'],
+          exclude: ['tests/browser/**', 'tests/reference/**', 'tests/properties/**', '**/node_modules/**'],
         },
+      },
+      {
+        extends: true,
+        test: { name: 'reference', include: ['tests/reference/**/*.test.ts'] },
+      },
+      {
+        extends: true,
+        test: { name: 'properties', include: ['tests/properties/**/*.test.ts'] },
       },
       {
         extends: true,
