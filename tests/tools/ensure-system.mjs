@@ -36,6 +36,6 @@ const ok =
 const stillMissing = PACKAGES.filter((p) => !onPath(p));
 if (!ok || stillMissing.length > 0) {
   const names = (stillMissing.length ? stillMissing : missing).join(', ');
-  console.error(`Missing system programs: ${names} (apt-get failed); install them with: ${installCommand}`);
+  console.error(`Missing system programs: ${names} (apt-get did not install them); install them with: ${installCommand}`);
   process.exit(1);
 }

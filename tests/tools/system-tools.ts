@@ -36,7 +36,7 @@ export function skipWithout(tool: SystemTool): boolean {
   if (findTool(tool)) return false;
   const message = `${tool} is not installed; install it with: ${installHint(tool)}`;
   if (inCi()) throw new Error(message);
-  console.warn(`SKIPPING tests that need ${message}`);
+  console.warn(`SKIPPED: the tests that need ${tool}. ${message}`);
   return true;
 }
 
