@@ -38,31 +38,31 @@ export default defineConfig({
   test: {
     root: repoRoot,
     environment: 'node',
-    benchmark: {
-      include: ['tests/**/*.bench.ts'],
-    },
     projects: [
       {
         extends: true,
         test: {
           name: 'unit',
           include: ['tests/**/*.test.ts'],
+          // Benchmarks belong to this project only, so `vitest bench` runs each of them once.
+          benchmark: { include: ['tests/**/*.bench.ts'] },
           exclude: ['tests/browser/**', 'tests/reference/**', 'tests/properties/**', '**/node_modules/**'],
         },
       },
       {
         extends: true,
-        test: { name: 'reference', include: ['tests/reference/**/*.test.ts'] },
+        test: { name: 'reference', include: ['tests/reference/**/*.test.ts'], benchmark: { include: [] } },
       },
       {
         extends: true,
-        test: { name: 'properties', include: ['tests/properties/**/*.test.ts'] },
+        test: { name: 'properties', include: ['tests/properties/**/*.test.ts'], benchmark: { include: [] } },
       },
       {
         extends: true,
         test: {
           name: 'browser',
           include: ['tests/browser/**/*.test.ts'],
+          benchmark: { include: [] },
           // Builds the app and drives a real browser: minutes, not seconds, on a slow machine.
           testTimeout: 180_000,
           hookTimeout: 240_000,
