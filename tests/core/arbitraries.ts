@@ -1,0 +1,418 @@
+/**
+ * Shared fast-check generators: random VALID power-chain projects built from every element kind.
+ *
+ * A tree is grown top-down from a source of a random kind; each child is drawn from the kinds that
+ * accept the feeding port (DC → dcdc/dcbus/inverter/cable/generic/dc-load; AC → rectifier/
+ * transformer/drive/motor/cable/generic/ac-load/ac-va-load; shaft → shaft-load). Series links are
+ * then SIZED bottom-up from an estimate of the apparent power they carry, the way a designer sizes
+ * them: each cable, source impedance and transformer gets a modest voltage drop (a few per cent),
+ * so the constant-power loads stay well away from voltage collapse (a few runs may still be
+ * infeasible; the tests accept that and say so).
+ *
+ * Converter loss curves are made from a physical per-unit loss polynomial
+ * (p0 + k1·x + k2·x², x = P/P_rated: no-load, linear and resistive terms; common practice, no source),
+ * so datasheet-like curves rise steeply at light load and droop slightly near full load.
+ */
+import fc from 'fast-check';
+import type { Element, LossModel, PortKind, Project } from '../../core/model.ts';
+
+type Json = Record<string, unknown>;
+
+/** A port as the generator tracks it: kind and nominal voltage (line-to-line on three-phase). */
+interface GenPort {
+  kind: PortKind;
+  voltage: number;
+  frequency?: number;
+}
+
+/** Per-unit physical loss: P_loss/P_rated = p0 + k1·x + k2·x² at x = P_out/P_rated. */
+interface PuLoss {
+  p0: number;
+  k1: number;
+  k2: number;
+}
+
+type LossSpec =
+  | { model: 'constant'; efficiency: number; idlePu: number | null; withRated: boolean }
+  | { model: 'curve'; pu: PuLoss; fractions: number[]; idlePu: number | null }
+  | { model: 'polynomial'; pu: PuLoss; withRated: boolean }
+  | { model: 'polynomial-fit'; pu: PuLoss; fractions: number[] };
+
+type Sizing =
+  | { type: 'cable'; drop: number; xr: number; length: number; sets: number | null }
+  | { type: 'transformer'; loadFraction: number; rPct: number; zOverR: number | null; noLoadPu: number }
+  | { type: 'converter'; loadFraction: number; loss: LossSpec; inputPf: number | null }
+  | { type: 'motor'; loadFraction: number; loss: LossSpec; pf: { constant: number } | { rated: number; a: number } }
+  | { type: 'dcbus'; fixedLoss: number }
+  | { type: 'load' }
+  | { type: 'source'; drop: number; xr: number; ratedLoadFraction: number | null };
+
+/** A generated node before sizing: the element's fixed fields, its sizing choices, its children. */
+export interface GenNode {
+  fields: Json;
+  sizing: Sizing;
+  /** The port feeding this node (absent on the source). */
+  input?: GenPort;
+  /** The port this node presents to its children (null for loads). */
+  output: GenPort | null;
+  children: GenNode[];
+}
+
+/** How deep below the source stages may appear; below this only loads are drawn. */
+const MAX_DEPTH = 4;
+
+const logUniform = (lo: number, hi: number): fc.Arbitrary<number> =>
+  fc.double({ min: Math.log(lo), max: Math.log(hi), noNaN: true }).map((v) => Math.exp(v));
+const uniform = (lo: number, hi: number): fc.Arbitrary<number> => fc.double({ min: lo, max: hi, noNaN: true });
+
+const puLoss: fc.Arbitrary<PuLoss> = fc.record({
+  p0: uniform(0.002, 0.02),
+  k1: uniform(0, 0.03),
+  k2: uniform(0, 0.04),
+});
+
+/** Datasheet-style load fractions (a random subset, at least `min` of them). */
+const fractions = (min: number): fc.Arbitrary<number[]> =>
+  fc.subarray([0.05, 0.1, 0.2, 0.25, 0.3, 0.5, 0.75, 1.0, 1.1], { minLength: min }).chain((xs) => fc.shuffledSubarray(xs, { minLength: xs.length, maxLength: xs.length }));
+
+const lossSpec: fc.Arbitrary<LossSpec> = fc.oneof(
+  fc.record({
+    model: fc.constant('constant' as const),
+    efficiency: uniform(0.85, 0.995),
+    idlePu: fc.option(uniform(0, 0.01), { nil: null }),
+    withRated: fc.boolean(),
+  }),
+  fc.record({ model: fc.constant('curve' as const), pu: puLoss, fractions: fractions(2), idlePu: fc.option(uniform(0, 0.005), { nil: null }) }),
+  fc.record({ model: fc.constant('polynomial' as const), pu: puLoss, withRated: fc.boolean() }),
+  fc.record({ model: fc.constant('polynomial-fit' as const), pu: puLoss, fractions: fractions(3) }),
+);
+
+/** Efficiency of the per-unit physical loss at load fraction x. */
+export const puEfficiency = (pu: PuLoss, x: number): number => x / (x + pu.p0 + pu.k1 * x + pu.k2 * x * x);
+
+function buildLoss(spec: LossSpec, rated: number): LossModel {
+  switch (spec.model) {
+    case 'constant':
+      return {
+        model: 'constant',
+        efficiency: spec.efficiency,
+        ...(spec.idlePu !== null ? { idleLoss: spec.idlePu * rated } : {}),
+        ...(spec.withRated ? { ratedPower: rated } : {}),
+      };
+    case 'curve':
+      return {
+        model: 'curve',
+        ratedPower: rated,
+        points: spec.fractions.map((x) => ({ loadFraction: x, efficiency: puEfficiency(spec.pu, x) })),
+        ...(spec.idlePu !== null ? { idleLoss: spec.idlePu * rated } : {}),
+      };
+    case 'polynomial':
+      return {
+        model: 'polynomial',
+        p0: spec.pu.p0 * rated,
+        k1: spec.pu.k1,
+        k2: spec.pu.k2 / rated,
+        ...(spec.withRated ? { ratedPower: rated } : {}),
+      };
+    case 'polynomial-fit':
+      return {
+        model: 'polynomial-fit',
+        ratedPower: rated,
+        points: spec.fractions.map((x) => ({ loadFraction: x, efficiency: puEfficiency(spec.pu, x) })),
+      };
+  }
+}
+
+/** A rough, deliberately pessimistic input power of a converter (for sizing only). */
+function lossEstimate(spec: LossSpec, pOut: number, rated: number): number {
+  const x = pOut / rated;
+  switch (spec.model) {
+    case 'constant':
+      return pOut * (1 / spec.efficiency - 1) + (spec.idlePu ?? 0) * rated;
+    default:
+      return rated * (spec.pu.p0 + spec.pu.k1 * x + spec.pu.k2 * x * x) * 1.5 + pOut * 0.05;
+  }
+}
+
+const pfSense = fc.option(fc.constantFrom('lagging' as const, 'leading' as const), { nil: undefined });
+const optionalName = fc.option(fc.constantFrom('Board A', 'Pump', 'Feeder', 'Spare way'), { nil: undefined });
+const withOpt = (o: Json): Json => Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined));
+
+const dcVoltage = fc.constantFrom(12, 24, 48, 54, 110, 380, 800);
+const ac1Voltage = fc.constantFrom(120, 230, 240);
+const ac3Voltage = fc.constantFrom(208, 400, 480, 690);
+const frequency = fc.constantFrom(50, 60);
+
+const node = (fields: Json, sizing: Sizing, output: GenPort | null, children: GenNode[]): GenNode => ({ fields, sizing, output, children });
+
+/** Children of a port: 1–3 subtrees (shaft: 1–2 shaft loads). */
+function childrenOf(port: GenPort, depth: number): fc.Arbitrary<GenNode[]> {
+  return fc.array(nodeArb(port, depth), { minLength: 1, maxLength: port.kind === 'shaft' ? 2 : 3 });
+}
+
+const loadPower = fc.oneof({ weight: 1, arbitrary: fc.constant(0) }, { weight: 12, arbitrary: logUniform(5, 40_000) });
+
+/** A random element (and subtree) fed from `port`, at `depth` below the source. */
+export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
+  const load = { type: 'load' as const };
+  const loads: fc.Arbitrary<GenNode>[] = [];
+  const stages: fc.Arbitrary<GenNode>[] = [];
+  const converterSizing = (inputAc: boolean): fc.Arbitrary<Sizing> =>
+    fc.record({
+      type: fc.constant('converter' as const),
+      loadFraction: uniform(0.1, 1.2),
+      loss: lossSpec,
+      inputPf: inputAc ? fc.option(uniform(0.8, 1), { nil: null }) : fc.constant(null),
+    });
+  const cable = fc
+    .record({
+      name: optionalName,
+      sizing: fc.record({
+        type: fc.constant('cable' as const),
+        drop: uniform(0.001, 0.03),
+        xr: port.kind === 'dc' ? fc.constant(0) : uniform(0, 1),
+        length: uniform(1, 300),
+        sets: fc.option(fc.integer({ min: 1, max: 4 }), { nil: null }),
+      }),
+    })
+    .chain(({ name, sizing }) => childrenOf(port, depth + 1).map((ch) => node(withOpt({ kind: 'cable', name }), sizing, { ...port }, ch)));
+  const generic = fc
+    .record({
+      outputKind: fc.constantFrom('dc' as const, 'ac1' as const, 'ac3' as const),
+      dcV: dcVoltage,
+      ac1V: ac1Voltage,
+      ac3V: ac3Voltage,
+      f: frequency,
+      sense: pfSense,
+      sizing: converterSizing(port.kind !== 'dc'),
+    })
+    .chain(({ outputKind, dcV, ac1V, ac3V, f, sense, sizing }) => {
+      const v = outputKind === 'dc' ? dcV : outputKind === 'ac1' ? ac1V : ac3V;
+      const out: GenPort = outputKind === 'dc' ? { kind: 'dc', voltage: v } : { kind: outputKind, voltage: v, frequency: f };
+      const fields = withOpt({
+        kind: 'generic',
+        inputKind: port.kind,
+        outputKind,
+        outputVoltage: v,
+        outputFrequency: outputKind === 'dc' ? undefined : f,
+        inputPfSense: port.kind === 'dc' ? undefined : sense,
+      });
+      return childrenOf(out, depth + 1).map((ch) => node(fields, sizing, out, ch));
+    });
+
+  if (port.kind === 'shaft') {
+    return fc.record({ power: loadPower, name: optionalName }).map(({ power, name }) => node(withOpt({ kind: 'shaft-load', power, name }), load, null, []));
+  }
+  if (port.kind === 'dc') {
+    loads.push(fc.record({ power: loadPower, name: optionalName }).map(({ power, name }) => node(withOpt({ kind: 'dc-load', power, name }), load, null, [])));
+    stages.push(
+      fc.record({ v: dcVoltage, sizing: converterSizing(false) }).chain(({ v, sizing }) => {
+        const out: GenPort = { kind: 'dc', voltage: v };
+        return childrenOf(out, depth + 1).map((ch) => node({ kind: 'dcdc', outputVoltage: v }, sizing, out, ch));
+      }),
+      fc.record({ fixedLoss: uniform(0, 50) }).chain(({ fixedLoss }) =>
+        childrenOf(port, depth + 1).map((ch) => node({ kind: 'dcbus' }, { type: 'dcbus', fixedLoss }, { ...port }, ch)),
+      ),
+      fc.record({ phases: fc.constantFrom(1 as const, 3 as const), v1: ac1Voltage, v3: ac3Voltage, f: frequency, sizing: converterSizing(false) }).chain(({ phases, v1, v3, f, sizing }) => {
+        const out: GenPort = { kind: phases === 3 ? 'ac3' : 'ac1', voltage: phases === 3 ? v3 : v1, frequency: f };
+        return childrenOf(out, depth + 1).map((ch) => node({ kind: 'inverter', phases, outputVoltage: out.voltage, frequency: f }, sizing, out, ch));
+      }),
+      cable,
+      generic,
+    );
+  } else {
+    const acLoad = fc
+      .record({ power: loadPower, pf: uniform(0.6, 1), sense: pfSense, name: optionalName })
+      .map(({ power, pf, sense, name }) => node(withOpt({ kind: 'ac-load', power, powerFactor: pf, pfSense: sense, name }), load, null, []));
+    const acVaLoad = fc
+      .record({ s: loadPower, pf: uniform(0.6, 1), sense: pfSense })
+      .map(({ s, pf, sense }) => node(withOpt({ kind: 'ac-va-load', apparentPower: s, powerFactor: pf, pfSense: sense }), load, null, []));
+    loads.push(acLoad, acVaLoad);
+    stages.push(
+      fc.record({ v: dcVoltage, sense: pfSense, sizing: converterSizing(true) }).chain(({ v, sense, sizing }) => {
+        const out: GenPort = { kind: 'dc', voltage: v };
+        return childrenOf(out, depth + 1).map((ch) => node(withOpt({ kind: 'rectifier', outputVoltage: v, inputPfSense: sense }), sizing, out, ch));
+      }),
+      fc
+        .record({
+          v: port.kind === 'ac3' ? fc.constantFrom(208, 400, 415, 480, 690, 11_000) : fc.constantFrom(110, 120, 230, 240),
+          sizing: fc.record({
+            type: fc.constant('transformer' as const),
+            loadFraction: uniform(0.2, 1.1),
+            rPct: uniform(0.5, 3),
+            zOverR: fc.option(uniform(1, 4), { nil: null }),
+            noLoadPu: uniform(0.001, 0.01),
+          }),
+        })
+        .chain(({ v, sizing }) => {
+          const out: GenPort = { kind: port.kind, voltage: v, ...(port.frequency !== undefined ? { frequency: port.frequency } : {}) };
+          return childrenOf(out, depth + 1).map((ch) => node({ kind: 'transformer', primaryVoltage: port.voltage, secondaryVoltage: v }, sizing, out, ch));
+        }),
+      fc.record({ v: ac3Voltage, f: uniform(10, 70), sizing: converterSizing(true) }).chain(({ v, f, sizing }) => {
+        const out: GenPort = { kind: 'ac3', voltage: v, frequency: f };
+        return childrenOf(out, depth + 1).map((ch) => node({ kind: 'drive', outputVoltage: v, outputFrequency: f }, sizing, out, ch));
+      }),
+      fc
+        .record({
+          speed: fc.option(fc.constantFrom(960, 1450, 1780, 2900), { nil: undefined }),
+          sizing: fc.record({
+            type: fc.constant('motor' as const),
+            loadFraction: uniform(0.3, 1.1),
+            loss: lossSpec,
+            pf: fc.oneof(fc.record({ constant: uniform(0.75, 0.92) }), fc.record({ rated: uniform(0.8, 0.9), a: uniform(0.05, 0.3) })),
+          }),
+        })
+        .chain(({ speed, sizing }) => {
+          const out: GenPort = { kind: 'shaft', voltage: 0 };
+          return childrenOf(out, depth + 1).map((ch) => node(withOpt({ kind: 'motor', ratedSpeed: speed }), sizing, out, ch));
+        }),
+      cable,
+      generic,
+    );
+  }
+  if (depth >= MAX_DEPTH) return fc.oneof(...loads);
+  // Loads get likelier with depth, so trees stay a readable size.
+  return fc.oneof(
+    ...loads.map((arbitrary) => ({ weight: 2 + depth * 3, arbitrary })),
+    ...stages.map((arbitrary) => ({ weight: 2, arbitrary })),
+  );
+}
+
+/** A source of a random kind with its subtree. */
+export const sourceArb: fc.Arbitrary<GenNode> = fc
+  .record({
+    kind: fc.constantFrom('grid' as const, 'generator' as const, 'battery' as const),
+    phases: fc.constantFrom(1 as const, 3 as const),
+    v1: ac1Voltage,
+    v3: ac3Voltage,
+    vb: fc.constantFrom(12, 24, 48, 51.2, 400, 800),
+    f: frequency,
+    sizing: fc.record({
+      type: fc.constant('source' as const),
+      drop: fc.oneof(fc.constant(0), uniform(0, 0.03)),
+      xr: uniform(0, 5),
+      ratedLoadFraction: fc.option(uniform(0.3, 1.2), { nil: null }),
+    }),
+  })
+  .chain(({ kind, phases, v1, v3, vb, f, sizing }) => {
+    const out: GenPort =
+      kind === 'battery' ? { kind: 'dc', voltage: vb } : { kind: phases === 3 ? 'ac3' : 'ac1', voltage: phases === 3 ? v3 : v1, frequency: f };
+    const fields: Json = kind === 'battery' ? { kind, voltage: vb } : { kind, phases, voltage: out.voltage, frequency: f };
+    return childrenOf(out, 1).map((ch) => node(fields, sizing, out, ch));
+  });
+
+/** Series resistance for a drop fraction at an apparent power: per phase on 3φ, loop on DC/1φ. */
+const resistanceFor = (drop: number, voltage: number, s: number): number => (drop * voltage * voltage) / s;
+
+/** Turn a generated tree into elements (ids e1, e2, … in depth-first order), sizing as it goes. */
+export function toProject(root: GenNode, name = 'Random chain'): Project {
+  const elements: Element[] = [];
+  let counter = 0;
+  // Returns the estimated apparent power drawn at the node's input, VA.
+  const visit = (n: GenNode, from: string | undefined, input: GenPort | undefined): number => {
+    const id = `e${++counter}`;
+    const el: Json = { id, ...(from !== undefined ? { from } : {}), ...n.fields };
+    elements.push(el as unknown as Element);
+    let sum = 0;
+    for (const ch of n.children) sum += visit(ch, id, n.output!);
+    const sOut = Math.max(sum, 1);
+    const sz = n.sizing;
+    switch (sz.type) {
+      case 'load':
+        if (el['kind'] === 'ac-load') return (el['power'] as number) / (el['powerFactor'] as number);
+        if (el['kind'] === 'ac-va-load') return el['apparentPower'] as number;
+        return el['power'] as number;
+      case 'dcbus':
+        el['fixedLoss'] = sz.fixedLoss;
+        return sum + sz.fixedLoss;
+      case 'cable': {
+        const port = input!;
+        const r = resistanceFor(sz.drop, port.voltage, sOut);
+        const perKmOf = (ohms: number) => (port.kind === 'ac3' ? ohms / (sz.length / 1000) : ohms / ((2 * sz.length) / 1000)) * (sz.sets ?? 1);
+        el['length'] = sz.length;
+        el['resistancePerKm'] = perKmOf(r);
+        if (port.kind !== 'dc' && sz.xr > 0) el['reactancePerKm'] = perKmOf(r * sz.xr);
+        if (sz.sets !== null) el['parallelSets'] = sz.sets;
+        return sum * (1 + 2 * sz.drop);
+      }
+      case 'transformer': {
+        const rated = sOut / sz.loadFraction;
+        el['ratedApparentPower'] = rated;
+        el['noLoadLoss'] = sz.noLoadPu * rated;
+        el['loadLoss'] = (sz.rPct / 100) * rated;
+        if (sz.zOverR !== null) el['impedancePercent'] = sz.rPct * sz.zOverR;
+        return sum * (1 + (sz.rPct * (sz.zOverR ?? 1)) / 50) + sz.noLoadPu * rated;
+      }
+      case 'converter': {
+        const rated = sOut / sz.loadFraction;
+        el['loss'] = buildLoss(sz.loss, rated);
+        if (sz.inputPf !== null) el['inputPowerFactor'] = sz.inputPf;
+        else if (el['kind'] === 'rectifier' || el['kind'] === 'drive') el['inputPowerFactor'] = 0.95;
+        return (sum + lossEstimate(sz.loss, sum, rated)) / (sz.inputPf ?? 0.95);
+      }
+      case 'motor': {
+        const rated = sOut / sz.loadFraction;
+        el['ratedOutput'] = rated;
+        el['loss'] = buildLoss(sz.loss, rated);
+        let pfMin: number;
+        if ('constant' in sz.pf) {
+          el['powerFactor'] = { model: 'constant', powerFactor: sz.pf.constant };
+          pfMin = sz.pf.constant;
+        } else {
+          const { rated: pfR, a } = sz.pf;
+          const points = [0.25, 0.5, 0.75, 1.0].map((x) => ({ loadFraction: x, powerFactor: (pfR * x * (1 + a)) / (x + a) }));
+          el['powerFactor'] = { model: 'curve', points };
+          pfMin = points[0]!.powerFactor;
+        }
+        return (sum + lossEstimate(sz.loss, sum, rated)) / pfMin;
+      }
+      case 'source': {
+        const port = n.output!;
+        const r = resistanceFor(sz.drop, port.voltage, sOut) / Math.sqrt(1 + sz.xr * sz.xr);
+        if (el['kind'] === 'battery') {
+          if (sz.drop > 0) el['internalResistance'] = r;
+        } else {
+          if (sz.drop > 0) {
+            el['resistance'] = r;
+            el['reactance'] = r * sz.xr;
+          }
+          if (sz.ratedLoadFraction !== null) el['ratedApparentPower'] = sOut / sz.ratedLoadFraction;
+        }
+        return sum;
+      }
+    }
+  };
+  visit(root, undefined, undefined);
+  return { format: 'joulepath-project', version: 1, name, elements };
+}
+
+/** Random valid projects. */
+export const projectArb: fc.Arbitrary<Project> = sourceArb.map((root) => toProject(root));
+
+/** Scale every load's demand (power or apparent power) by `factor`. Returns a new project. */
+export function scaleLoads(project: Project, factor: number): Project {
+  return {
+    ...project,
+    elements: project.elements.map((e) => {
+      switch (e.kind) {
+        case 'dc-load':
+        case 'ac-load':
+        case 'shaft-load':
+          return { ...e, power: e.power * factor };
+        case 'ac-va-load':
+          return { ...e, apparentPower: e.apparentPower * factor };
+        default:
+          return e;
+      }
+    }),
+  };
+}
+
+/** Recursively freeze plain data (so any mutation by the code under test throws in strict mode). */
+export function deepFreeze<T>(value: T): T {
+  if (typeof value === 'object' && value !== null && !Object.isFrozen(value)) {
+    Object.freeze(value);
+    for (const v of Object.values(value as object)) deepFreeze(v);
+  }
+  return value;
+}
