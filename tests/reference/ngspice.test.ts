@@ -191,6 +191,51 @@ describe('engine AC solve against ngspice', () => {
     summary.push(ag);
   });
 
+  it('(a3) single-phase heavily loaded: source impedance and a long cable, load voltage sagging below 75 %', () => {
+    // Several links in series near the nose of the P–V curve: the engine's fixed-point sweep must still
+    // land on the circuit's own operating point.
+    const f = 50;
+    const len = 50;
+    const rkm = 7.41;
+    const xkm = 0.11;
+    const [rs, xs] = [0.3, 0.4];
+    const result = solveOk(
+      project('1φ heavy', [
+        { id: 'sup', kind: 'grid', phases: 1, voltage: 230, frequency: f, resistance: rs, reactance: xs },
+        { id: 'cab', kind: 'cable', from: 'sup', length: len, resistancePerKm: rkm, reactancePerKm: xkm },
+        { id: 'ld', kind: 'ac-load', from: 'cab', power: 10_000, powerFactor: 0.9 },
+      ]),
+    );
+    const ld = el(result, 'ld');
+    expect(ld.input!.voltage / 230).toBeLessThan(0.75); // really heavily loaded
+    const zl = loadImpedance(ld);
+    const rc = (rkm * len) / 1000;
+    const xc = (xkm * len) / 1000;
+    const netlist = [
+      `Vsup e 0 AC ${sp(230)} 0`,
+      seriesBranch('src', 'e', 't', rs, xs, f),
+      seriesBranch('go', 't', 'a', rc, xc, f),
+      seriesBranch('ld', 'a', 'n', zl.r, zl.x, f),
+      seriesBranch('ret', 'n', '0', rc, xc, f),
+    ].join('\n');
+    const s = runAc(netlist, f, ['v(a,n)', 'i(Vsup)', 'v(t)', 'v(t,a)', 'v(n)']);
+    const i = cneg(s['i(Vsup)']!);
+    const vLoad = s['v(a,n)']!;
+    const sEmf = power({ re: 230, im: 0 }, i);
+    const sTerm = power(s['v(t)']!, i);
+    const pCable = power(s['v(t,a)']!, i).re + power(s['v(n)']!, i).re;
+
+    const ag = new Agreement(`(a3) 1φ heavy load (load at ${((100 * ld.input!.voltage) / 230).toFixed(1)} % voltage, ${result.method.iterations} sweeps)`);
+    ag.rel('load voltage |V|', ld.input!.voltage, cabs(vLoad));
+    ag.angle('load voltage angle', cargDeg(ld.input!.phasor!.voltage), cargDeg(vLoad));
+    ag.rel('line current', ld.input!.current, cabs(i));
+    ag.rel('source EMF P', result.totals.sourcePower, sEmf.re);
+    ag.rel('source terminal P', el(result, 'sup').output!.p, sTerm.re);
+    ag.rel('source terminal Q', el(result, 'sup').output!.q, sTerm.im);
+    ag.rel('cable I²R loss', el(result, 'cab').loss, pCable);
+    summary.push(ag);
+  });
+
   it('(b) three-phase 4-wire: 400 V 50 Hz star source, 150 m cable (R + L per conductor), 60 kW star load at pf 0.88', () => {
     const f = 50;
     const len = 150;
