@@ -56,14 +56,22 @@ function forward(order: readonly PlannedElement[], sOut: readonly Complex[], vOu
   return -1;
 }
 
-function infeasible(order: readonly PlannedElement[], i: number, sOut: Complex): Problem {
+/** Σ of the loads' own power below element i (what the user asked it to carry). */
+function loadBelow(order: readonly PlannedElement[], sIn: readonly Complex[], i: number): number {
+  const node = order[i]!;
+  if (node.spec.role === 'load') return sIn[i]!.re;
+  return node.children.reduce((sum, child) => sum + loadBelow(order, sIn, child), 0);
+}
+
+function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly Complex[]): Problem {
   const e = order[i]!.element;
+  const kw = loadBelow(order, sIn, i) / 1000;
   return {
     code: 'infeasible-load',
     elementId: e.id,
     field: '',
-    value: sOut.re,
-    message: `cannot deliver the ${(sOut.re / 1000).toPrecision(3)} kW drawn through it: the voltage would collapse (load beyond the maximum power this link can transfer). Use a larger conductor, a shorter run, a higher voltage or less load`,
+    value: kw * 1000,
+    message: `cannot carry the ${kw.toPrecision(3)} kW of load beyond it (plus the losses on the way): the voltage would collapse, past the most power this link can transfer. Use a larger conductor, a shorter run, a higher voltage or less load`,
   };
 }
 
@@ -78,7 +86,7 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
     backward(order, vOut, sIn, sOut);
     const previous = vOut.slice();
     const bad = forward(order, sOut, vOut);
-    if (bad >= 0) return { ok: false, problems: [infeasible(order, bad, sOut[bad]!)] };
+    if (bad >= 0) return { ok: false, problems: [infeasible(order, bad, sIn)] };
     residual = 0;
     for (let i = 0; i < n; i++) {
       const mag = abs(vOut[i]!);
