@@ -240,7 +240,7 @@ export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
             type: fc.constant('transformer' as const),
             loadFraction: uniform(0.2, 1.1),
             rPct: uniform(0.5, 3),
-            zOverR: fc.option(uniform(1, 4), { nil: null }),
+            zOverR: fc.option(uniform(1.05, 4), { nil: null }), // Z% > R% (impedance triangle)
             noLoadPu: uniform(0.001, 0.01),
           }),
         })

@@ -11,6 +11,10 @@ import fc from 'fast-check';
 import { solveProject, type PortResult, type Project, type SolveResult } from '../../core/index.ts';
 import { deepFreeze, projectArb, scaleLoads } from '../core/arbitraries.ts';
 
+/** Multiply every numRuns by JP_FC_SCALE (default 1) for a longer hunt, e.g. JP_FC_SCALE=50. */
+const SCALE = Math.max(1, Number(process.env['JP_FC_SCALE'] ?? '1') || 1);
+const runs = (n: number) => ({ numRuns: n * SCALE });
+
 /** Relative tolerance of every identity below (the brief's 1e-9; the solve itself stops at 1e-12). */
 const REL = 1e-9;
 
@@ -107,7 +111,7 @@ describe('energy balance over random chains of every element kind', () => {
         }
         for (const e of r.elements) if (e.input) expectClose(e.input.p, e.pIn, e.pIn, `${e.id} input port p`);
       }),
-      { numRuns: 300 },
+      runs(300),
     );
     t.check();
   });
@@ -130,9 +134,11 @@ describe('energy balance over random chains of every element kind', () => {
         }
         expect(r.totals.losses).toBeGreaterThanOrEqual(0);
         expect(r.totals.efficiency).toBeGreaterThanOrEqual(0);
-        expect(r.totals.efficiency).toBeLessThanOrEqual(1);
+        // totals.efficiency = Σ loads / source power, the two sums taken in different orders: in a
+        // chain with no loss at all it may come out one or two ulp above 1 (seen: 1.0000000000000002).
+        expect(r.totals.efficiency).toBeLessThanOrEqual(1 + 4 * Number.EPSILON);
       }),
-      { numRuns: 300 },
+      runs(300),
     );
     t.check();
   });
@@ -167,7 +173,7 @@ describe('monotonicity', () => {
           }
         }
       }),
-      { numRuns: 200 },
+      runs(200),
     );
     t.check();
   });
@@ -233,7 +239,7 @@ describe('port consistency', () => {
           }
         }
       }),
-      { numRuns: 300 },
+      runs(300),
     );
     t.check();
   });
@@ -278,7 +284,7 @@ describe('port consistency', () => {
           }
         }
       }),
-      { numRuns: 300 },
+      runs(300),
     );
     t.check();
     expect(cables).toBeGreaterThan(50); // the generator does produce cables of all port kinds
@@ -299,7 +305,7 @@ describe('port consistency', () => {
           }
         }
       }),
-      { numRuns: 150 },
+      runs(150),
     );
     t.check();
   });
@@ -321,7 +327,7 @@ describe('purity and serialisation', () => {
         t.note(first.ok);
         if (!first.ok) expect(first.problems.map((p) => p.code)).toEqual(['infeasible-load']);
       }),
-      { numRuns: 100 },
+      runs(100),
     );
     t.check();
   });
@@ -343,7 +349,7 @@ describe('purity and serialisation', () => {
         expect(text).not.toMatch(/null/);
         expect(normaliseZero(JSON.parse(text))).toStrictEqual(normaliseZero(direct.result));
       }),
-      { numRuns: 100 },
+      runs(100),
     );
     t.check();
   });
