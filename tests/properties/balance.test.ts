@@ -290,8 +290,9 @@ describe('port consistency', () => {
     expect(cables).toBeGreaterThan(50); // the generator does produce cables of all port kinds
   });
 
-  it('regulating converters hold their output voltage at the set point', () => {
-    // Law of a regulated output (model.ts: rectifier, dcdc, inverter, drive, generic regulate).
+  it('regulating converters hold their output voltage; AC inputs and loads draw at their declared power factor', () => {
+    // Law of a regulated output (model.ts: rectifier, dcdc, inverter, drive, generic regulate);
+    // power factor = P/S by definition, declared per element.
     const t = tally();
     fc.assert(
       fc.property(projectArb, (project) => {
@@ -302,6 +303,19 @@ describe('port consistency', () => {
           const spec = project.elements.find((x) => x.id === e.id)!;
           if (spec.kind === 'rectifier' || spec.kind === 'dcdc' || spec.kind === 'inverter' || spec.kind === 'drive' || spec.kind === 'generic') {
             expectClose(e.output!.voltage, spec.outputVoltage, spec.outputVoltage, `${e.id} output voltage`);
+          }
+          // An AC-fed converter draws at its declared input power factor (generic: default 1), with
+          // Q of the declared sense (model.ts: lagging = Q > 0, leading = Q < 0; default lagging).
+          if ((spec.kind === 'rectifier' || spec.kind === 'drive' || spec.kind === 'generic') && e.input!.kind !== 'dc' && e.pIn > 0) {
+            const pf = spec.kind === 'generic' ? (spec.inputPowerFactor ?? 1) : spec.inputPowerFactor;
+            expectClose(e.input!.powerFactor, pf, 1, `${e.id} input power factor`);
+            const sense = spec.kind === 'drive' ? 'lagging' : (spec.inputPfSense ?? 'lagging');
+            if (pf < 1 - 1e-9) expect(e.input!.pfSense, `${e.id} input pf sense`).toBe(sense);
+          }
+          // A load draws at its declared power factor and sense.
+          if ((spec.kind === 'ac-load' || spec.kind === 'ac-va-load') && e.pIn > 0) {
+            expectClose(e.input!.powerFactor, spec.powerFactor, 1, `${e.id} load power factor`);
+            if (spec.powerFactor < 1 - 1e-9) expect(e.input!.pfSense, `${e.id} load pf sense`).toBe(spec.pfSense ?? 'lagging');
           }
         }
       }),
