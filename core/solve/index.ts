@@ -16,7 +16,11 @@ export type SolveOutcome = { ok: true; result: SolveResult } | { ok: false; prob
 /** Validate and solve a project given as untrusted data (e.g. parsed JSON). Never throws on bad input. */
 export function solveProject(input: unknown): SolveOutcome {
   const valid = validateProject(input);
-  if (!valid.ok) return valid;
+  if (!valid.ok) {
+    // Every field is fine and only the tree is wrong: also report the port-kind mismatches.
+    const ports = valid.project ? plan(valid.project) : undefined;
+    return { ok: false, problems: ports && !ports.ok ? [...valid.problems, ...ports.problems] : valid.problems };
+  }
   const planned = plan(valid.project);
   if (!planned.ok) return planned;
   const swept = sweep(planned.order);

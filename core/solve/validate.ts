@@ -1,11 +1,12 @@
 /**
- * Step 1 of the solve: check the project file field by field. Every problem names the element and
- * the field; nothing is computed from a project that has any.
+ * Step 1 of the solve: check the project file field by field and the tree's shape (structure.ts).
+ * Every problem names the element and the field; nothing is computed from a project that has any.
  */
 import { z } from 'zod';
 import type { Element, Project } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { KINDS } from '../stages/index.ts';
+import { checkStructure, skeletonOf } from './structure.ts';
 
 const projectShape = z.strictObject({
   format: z.literal('joulepath-project', { error: 'must be "joulepath-project"' }),
@@ -15,7 +16,11 @@ const projectShape = z.strictObject({
   elements: z.array(z.unknown(), { error: 'must be a list of elements' }),
 });
 
-type Validated = { ok: true; project: Project } | { ok: false; problems: Problem[] };
+/**
+ * On failure, `fieldsValid` says whether every element passed its own checks (only the tree's
+ * shape is wrong); `project` is then still given so the port kinds can be checked as well.
+ */
+type Validated = { ok: true; project: Project } | { ok: false; problems: Problem[]; project?: Project };
 
 const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
@@ -70,7 +75,7 @@ function validateElement(raw: unknown, index: number): { element?: Element; prob
   return problems.length ? { problems } : { element, problems };
 }
 
-/** Check the file and every element. Structure (tree, kinds of ports) is checked by `plan`. */
+/** Check the file, every element and the tree's shape. Port kinds are checked by `plan`. */
 export function validateProject(input: unknown): Validated {
   const top = projectShape.safeParse(input);
   if (!top.success) return { ok: false, problems: fromIssues(top.error.issues, 'project', input) };
@@ -81,13 +86,11 @@ export function validateProject(input: unknown): Validated {
     problems.push(...r.problems);
     if (r.element) elements.push(r.element);
   });
-  const seen = new Set<string>();
-  for (const e of elements) {
-    if (seen.has(e.id)) problems.push({ code: 'duplicate-id', elementId: e.id, field: 'id', value: e.id, message: 'this id is used by more than one element' });
-    seen.add(e.id);
-  }
-  if (problems.length) return { ok: false, problems };
+  const fieldsValid = problems.length === 0;
+  // Tree checks on every element whose id and kind can be read, so they come with the field problems.
+  problems.push(...checkStructure(top.data.elements.map(skeletonOf).filter((s) => s !== null)));
   const { description, ...rest } = top.data;
   const project: Project = { ...rest, ...(description !== undefined ? { description } : {}), elements } as Project;
+  if (problems.length) return fieldsValid ? { ok: false, problems, project } : { ok: false, problems };
   return { ok: true, project };
 }

@@ -30,7 +30,8 @@ export const transformerKind = defineKind<TransformerStage>({
   }) as z.ZodType<TransformerStage>,
   check(e) {
     const rPct = (100 * e.loadLoss) / e.ratedApparentPower;
-    if (e.impedancePercent !== undefined && e.impedancePercent < rPct) {
+    // A %Z typed equal to %R may differ from the recomputed %R in the last bit: allow for it.
+    if (e.impedancePercent !== undefined && e.impedancePercent < rPct * (1 - 1e-12)) {
       return [
         {
           code: 'invalid-value',
@@ -46,7 +47,7 @@ export const transformerKind = defineKind<TransformerStage>({
     const kind = input!.kind;
     const zBase = (e.secondaryVoltage * e.secondaryVoltage) / e.ratedApparentPower;
     const rPct = (100 * e.loadLoss) / e.ratedApparentPower;
-    const xPct = e.impedancePercent === undefined ? 0 : Math.sqrt(e.impedancePercent ** 2 - rPct ** 2);
+    const xPct = e.impedancePercent === undefined ? 0 : Math.sqrt(Math.max(0, e.impedancePercent ** 2 - rPct ** 2));
     // Single-phase: the winding impedance is the whole loop; three-phase: per phase (star equivalent).
     const link = seriesLink(c((rPct / 100) * zBase, (xPct / 100) * zBase), kind);
     const ratio = e.secondaryVoltage / e.primaryVoltage;

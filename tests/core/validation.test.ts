@@ -240,7 +240,13 @@ describe('tree structure', () => {
   it('no source', () => {
     const p = validProject();
     p.elements = p.elements.filter((e: Json) => e.id !== 'bank');
-    expectOnly(p, 'missing-source', 'project', 'elements', /source/);
+    // The three elements that were fed from the removed bank now name a missing feeder as well.
+    expect(problemsOf(p).map((x) => `${x.code}:${x.elementId}:${x.field}`).sort()).toEqual([
+      'missing-source:project:elements',
+      'unknown-feed:conv:from',
+      'unknown-feed:inv1:from',
+      'unknown-feed:inv3:from',
+    ]);
   });
 
   it('no elements at all', () => {
@@ -476,9 +482,8 @@ describe('several problems at once', () => {
     expect(problemsOf(p).map((x) => `${x.code}:${x.elementId}`).sort()).toEqual(['kind-mismatch:fan', 'kind-mismatch:lamp']);
   });
 
-  // The three cases below mix problems the engine finds in different steps. The brief asks for
-  // every problem to be reported at once; the engine currently stops at the first step that finds
-  // any (validate → plan), or skips a check when another element of the same step failed.
+  // The three cases below mix problems found by different checks (fields, tree shape, port kinds):
+  // all of them must come back together.
   it('a port-kind mismatch is reported alongside a `from` naming a load', () => {
     const p = validProject();
     el(p, 'lamp').from = 'inv1'; // kind-mismatch: DC load on a single-phase AC port
