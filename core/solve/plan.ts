@@ -40,7 +40,7 @@ export function plan(project: Project): Plan {
   const visit = (e: Element, parent: number, input: PortInfo | null): void => {
     const spec = KINDS.get(e.kind)!;
     if (input) {
-      const accepted = spec.accepts(e as never);
+      const accepted = spec.accepts(e);
       if (!accepted.includes(input.kind)) {
         problems.push({
           code: 'kind-mismatch',
@@ -52,7 +52,7 @@ export function plan(project: Project): Plan {
         return; // what hangs below cannot be built without this element's output port
       }
     }
-    const model = spec.build(e as never, input);
+    const model = spec.build(e, input);
     const index = order.length;
     order.push({ element: e, spec, model, parent, children: [], input });
     if (parent >= 0) order[parent]!.children.push(index);

@@ -1,0 +1,74 @@
+/**
+ * The command-line solver as a user runs it: `tsx core/cli.ts <file> [--json]`.
+ * Checks exit codes, that the tables and the JSON carry the engine's own figures, and that bad input
+ * gives one line per problem naming element and field.
+ */
+import { execFileSync, spawnSync } from 'node:child_process';
+import { mkdtempSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { demoProjects, solveProject } from '../../core/index.ts';
+
+const TSX = join('node_modules', '.bin', 'tsx');
+const run = (...args: string[]) => spawnSync(TSX, ['core/cli.ts', ...args], { encoding: 'utf8' });
+const scratch = mkdtempSync(join(tmpdir(), 'joulepath-cli-'));
+
+describe('command-line solver', () => {
+  for (const demo of demoProjects) {
+    it(`prints the tables of demo ${demo.id}`, () => {
+      const r = run(`core/demos/${demo.id}.json`);
+      expect(r.status).toBe(0);
+      expect(r.stdout).toContain(`Project: ${demo.title}`);
+      expect(r.stdout).toContain('Elements (W)');
+      expect(r.stdout).toContain('Interfaces (V, A, W, var, VA');
+      expect(r.stdout).toContain('licensed professional');
+      // Source power printed to 0.1 W equals the engine's own figure (engine computed in-process).
+      const outcome = solveProject(demo.project);
+      if (!outcome.ok) throw new Error('demo does not solve');
+      expect(r.stdout).toContain(`Source ${outcome.result.totals.sourcePower.toFixed(1)} W`);
+    }, 30_000);
+  }
+
+  it('--json prints the full result, identical to the engine called directly', () => {
+    const out = execFileSync(TSX, ['core/cli.ts', 'core/demos/riverside-pump-station.json', '--json'], { encoding: 'utf8' });
+    const outcome = solveProject(demoProjects[1]!.project);
+    expect(outcome.ok).toBe(true);
+    if (outcome.ok) expect(JSON.parse(out)).toEqual(JSON.parse(JSON.stringify(outcome.result)));
+  }, 30_000);
+
+  it('exits 1 with one line per problem on bad input', () => {
+    const file = join(scratch, 'bad.json');
+    writeFileSync(
+      file,
+      JSON.stringify({
+        format: 'joulepath-project',
+        version: 1,
+        name: 'bad',
+        elements: [
+          { id: 'mains', kind: 'grid', phases: 1, voltage: 0, frequency: 50 },
+          { id: 'heater', kind: 'ac-load', from: 'mains', power: 2000, powerFactor: 1.5 },
+        ],
+      }),
+    );
+    const r = run(file);
+    expect(r.status).toBe(1);
+    expect(r.stdout).toBe('');
+    expect(r.stderr).toContain('element "mains", field "voltage": must be greater than 0 V');
+    expect(r.stderr).toContain('element "heater", field "powerFactor": power factor must not exceed 1');
+  }, 30_000);
+
+  it('exits 1 on a file that is not JSON, a missing file, and wrong arguments', () => {
+    const file = join(scratch, 'not-json.json');
+    writeFileSync(file, '{ this is not json');
+    const notJson = run(file);
+    expect(notJson.status).toBe(1);
+    expect(notJson.stderr).toMatch(/is not valid JSON/);
+    const missing = run(join(scratch, 'nope.json'));
+    expect(missing.status).toBe(1);
+    expect(missing.stderr).toMatch(/cannot read/);
+    const usage = run();
+    expect(usage.status).toBe(1);
+    expect(usage.stderr).toMatch(/^usage: npm run solve/);
+  }, 30_000);
+});
