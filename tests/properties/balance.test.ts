@@ -134,9 +134,10 @@ describe('energy balance over random chains of every element kind', () => {
         }
         expect(r.totals.losses).toBeGreaterThanOrEqual(0);
         expect(r.totals.efficiency).toBeGreaterThanOrEqual(0);
-        // totals.efficiency = Σ loads / source power, the two sums taken in different orders: in a
-        // chain with no loss at all it may come out one or two ulp above 1 (seen: 1.0000000000000002).
-        expect(r.totals.efficiency).toBeLessThanOrEqual(1 + 4 * Number.EPSILON);
+        // totals.efficiency = Σ loads / source power; the two sums are taken in different orders, so
+        // in a lossless chain the raw ratio can pass 1 by an ulp (seen: 1.0000000000000002); the
+        // engine caps it at 1, as efficiency cannot exceed 1 by definition.
+        expect(r.totals.efficiency).toBeLessThanOrEqual(1);
       }),
       runs(300),
     );
