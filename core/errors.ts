@@ -14,7 +14,14 @@ export type ProblemCode =
   | 'kind-mismatch'
   | 'not-a-feeder'
   | 'infeasible-load'
-  | 'no-convergence';
+  | 'no-convergence'
+  // Battery sizing and recharge (core/battery/sizing.ts, recharge.ts).
+  | 'unknown-chemistry'
+  | 'outside-table'
+  | 'no-feasible-bank'
+  | 'charger-too-small'
+  | 'charge-too-cold'
+  | 'not-achievable';
 
 export interface Problem {
   code: ProblemCode;

@@ -1,0 +1,991 @@
+/**
+ * Battery bank sizing — the inverse of the runtime study: for a duty cycle (and optionally a target
+ * runtime), the smallest bank. Pure: no clock, no storage; inputs are never mutated.
+ *
+ * Methods (each step is returned as data so a user can check it by hand):
+ *
+ * 1. Series count from the bus voltage: n = round(V_bus / (V_cell,nominal × cells per block)).
+ *
+ * 2. Lead-acid (flooded, AGM, gel) — the IEEE 485 duty-cycle worksheet; NiCd — the same worksheet
+ *    as IEEE 1115 uses it (from memory: the two standards share the method).
+ *    Section S covers periods 1…S. Its size is
+ *        F_S = Σ_{P=1..S} (A_P − A_{P−1}) · K_t,   t = Σ_{j=P..S} M_j  (time from the start of
+ *    period P to the end of section S), with A_0 = 0. K_t is the capacity rating factor: rated Ah
+ *    ÷ the current the cell can deliver for t to its end voltage. The uncorrected size is
+ *    max_S F_S (+ a random load × its K_t, worksheet line 10); the cell size is that × temperature
+ *    correction × design margin × aging factor (the 1997 edition's single temperature factor after
+ *    the uncorrected size; the 2010 edition's per-row T_t gives the same result when one
+ *    temperature governs the whole duty cycle).
+ *    K_t comes from a datasheet table when one is given (log–log interpolation between its points,
+ *    refused outside them), otherwise from Peukert's law in the rated-capacity form
+ *    t = H·(C/(I·H))^k  ⇒  K_t = C/I = H·(t/H)^(1/k)  (hours of rated capacity per ampere),
+ *    with H the chemistry's rated hours and k its Peukert exponent. Peukert's law far from H
+ *    overstates what a cell delivers for minutes, so with Peukert K_t the chemistry's maximum
+ *    continuous discharge C-rate also bounds the size (a datasheet K_t table is trusted instead,
+ *    and a rate above the C-rate is only flagged).
+ *    Temperature correction: lead-acid from IEEE 485 Table 1 (core/data/ieee-485.ts), held at
+ *    1.00 above 25 °C unless credit is asked for; NiCd: IEEE 1115 takes the derating from the
+ *    maker (from memory), here 1 / capacity factor of the chemistry's capacity-vs-temperature table.
+ *
+ * 3. Lithium (LiFePO4, NMC) — energy method (common practice):
+ *        E = Σ P_P·M_P (energy at the bank terminals over the duty cycle; for a current duty
+ *            cycle P_P = A_P × nominal bank voltage),
+ *        Wh = E ÷ (usable DoD × capacity factor at temperature) × design margin × aging factor,
+ *        Ah = Wh ÷ nominal bank voltage,
+ *    then the peak current is checked against the maximum continuous discharge C-rate: the bank
+ *    must have at least I_peak ÷ C-rate Ah (more capacity or more strings when it fails).
+ *    Peukert effects are neglected for lithium (k ≈ 1.0–1.05).
+ *
+ * 4. Strings: with a list of standard ratings, the fewest strings (up to `maxStrings`) for which a
+ *    rating covers required Ah ÷ strings, then the smallest such rating; continuous otherwise.
+ *
+ * Constant-power duty cycles are converted to current at a stated voltage: by default the minimum
+ * bank voltage (end-of-discharge cell voltage × cells), the conservative choice — the current of a
+ * constant-power load is highest there.
+ */
+import {
+  CHEMISTRIES,
+  CHEMISTRY_PRESETS,
+  type CapacityTemperaturePoint,
+  type Chemistry,
+  type ChemistryPreset,
+  type ChemistryValues,
+} from '../data/battery-chemistries.ts';
+import {
+  IEEE_485_DEFAULT_AGING_FACTOR,
+  IEEE_485_DEFAULT_DESIGN_MARGIN,
+  IEEE_485_TEMPERATURE_FACTORS,
+} from '../data/ieee-485.ts';
+import type { Problem, ProblemCode } from '../errors.ts';
+
+// ---------------------------------------------------------------------------------------------
+// Types
+// ---------------------------------------------------------------------------------------------
+
+/** One period of constant current at the bank terminals. Duration in s, current in A. */
+export interface CurrentPeriod {
+  duration: number;
+  current: number;
+}
+
+/** One period of constant power at the bank terminals. Duration in s, power in W. */
+export interface PowerPeriod {
+  duration: number;
+  power: number;
+}
+
+/**
+ * The duty cycle at the bank terminals, first period first.
+ * - `current`: currents as given.
+ * - `power`: converted to current at `voltage` (V); default the minimum bank voltage
+ *   (end-of-discharge cell voltage × cells in series), the conservative choice.
+ */
+export type DutyCycle =
+  | { basis: 'current'; periods: readonly CurrentPeriod[] }
+  | { basis: 'power'; periods: readonly PowerPeriod[]; voltage?: number };
+
+/** A random (non-continuous) load of the worksheet: its current or power and its duration (s). */
+export type RandomLoad = { duration: number; current: number } | { duration: number; power: number };
+
+/** One point of a datasheet capacity-rating-factor table: K_t (h = rated Ah per A) at time t (s). */
+export interface CapacityFactorPoint {
+  time: number;
+  factor: number;
+}
+
+/** Where each input lives in the project, for problem messages (defaults: `backup.<name>`). */
+export interface SizingFieldPaths {
+  chemistry: string;
+  overrides: string;
+  busVoltage: string;
+  dutyCycle: string;
+  targetRuntime: string;
+  designMargin: string;
+  agingFactor: string;
+  temperature: string;
+  ratings: string;
+  capacityFactors: string;
+  cellsPerBlock: string;
+  seriesBlocks: string;
+  maxStrings: string;
+  randomLoad: string;
+}
+
+export interface SizingInput {
+  /** Element id used in problems: the battery's id, or "project" (default). */
+  elementId?: string;
+  /** Chemistry preset name (see core/data/battery-chemistries.ts). */
+  chemistry: string;
+  /** Datasheet values overriding the preset. */
+  overrides?: Partial<ChemistryValues>;
+  /** Nominal system (bus) voltage, V. */
+  busVoltage: number;
+  dutyCycle: DutyCycle;
+  /**
+   * Target runtime, s (optional). When given, the duty cycle is taken over exactly this time:
+   * repeated from its start when shorter, cut when longer.
+   */
+  targetRuntime?: number;
+  /** Design margin, ≥ 1 (default 1.10, IEEE 485 common practice). */
+  designMargin?: number;
+  /** Aging factor, ≥ 1 (default per chemistry: 1.25, see DEFAULT_AGING_FACTOR). */
+  agingFactor?: number;
+  /** Lowest expected electrolyte / cell temperature, °C (default 25). */
+  temperature?: number;
+  /**
+   * Lead-acid only: take credit for capacity above 25 °C (IEEE 485 Table 1 factors below 1.00).
+   * Default false, as the note to that table advises.
+   */
+  creditAbove25C?: boolean;
+  /** Standard capacity ratings per string, Ah (rated at the chemistry's rated hours). Omitted: continuous. */
+  ratings?: readonly number[];
+  /** Datasheet K_t table for the worksheet (lead-acid, NiCd); default Peukert's law. */
+  capacityFactors?: readonly CapacityFactorPoint[];
+  /** Cells per block (e.g. 6 for a 12 V lead-acid block); default 1 (single cells). */
+  cellsPerBlock?: number;
+  /** Blocks in series, when the user fixes it; default from the bus voltage. */
+  seriesBlocks?: number;
+  /** Largest number of parallel strings considered (default 4, common practice). */
+  maxStrings?: number;
+  /** Random load added at its own K_t (worksheet line 10) or energy (lithium). */
+  randomLoad?: RandomLoad;
+  /** Field paths for problems. */
+  fields?: Partial<SizingFieldPaths>;
+}
+
+/** One line of the working: a named quantity, its value and unit, and how it was obtained. */
+export interface SizingStep {
+  label: string;
+  value: number;
+  unit: string;
+  note: string;
+}
+
+/** One row of a worksheet section: period P inside section S. */
+export interface WorksheetRow {
+  period: number;
+  /** A_P, A. */
+  current: number;
+  /** A_P − A_{P−1}, A. */
+  change: number;
+  /** M_P, s. */
+  duration: number;
+  /** Time from the start of period P to the end of the section, s. */
+  timeToEnd: number;
+  /** K_t at that time, h (rated Ah per A). */
+  capacityFactor: number;
+  /** (A_P − A_{P−1}) × K_t, Ah. */
+  size: number;
+}
+
+export interface WorksheetSection {
+  section: number;
+  rows: WorksheetRow[];
+  /** Sum of the positive row sizes, Ah. */
+  positive: number;
+  /** Sum of the negative row sizes, Ah. */
+  negative: number;
+  /** F_S, Ah. */
+  total: number;
+  /**
+   * False when A_{S+1} > A_S: the worksheet need not evaluate this section (it cannot govern).
+   * It is computed anyway; the maximum is unchanged.
+   */
+  needed: boolean;
+}
+
+export type SizingMethod = 'ieee-485-worksheet' | 'ieee-1115-worksheet' | 'energy';
+
+/** What set the size: a worksheet section, the energy, or the discharge-rate limit. */
+export type GoverningLimit =
+  | { kind: 'section'; section: number }
+  | { kind: 'energy' }
+  | { kind: 'discharge-rate' };
+
+export interface BankSizing {
+  method: SizingMethod;
+  chemistry: Chemistry;
+  /** Cells in series. */
+  seriesCells: number;
+  cellsPerBlock: number;
+  /** Blocks (or cells, when cellsPerBlock = 1) in series. */
+  seriesBlocks: number;
+  strings: number;
+  /** Capacity per string at the chemistry's rated hours, Ah. */
+  capacityPerString: number;
+  /** Bank capacity = strings × capacity per string, Ah. */
+  bankCapacity: number;
+  /** Nominal bank energy = nominal voltage × bank Ah, Wh. */
+  bankEnergyWh: number;
+  /** Usable energy = nominal energy × usable depth of discharge, Wh. */
+  usableEnergyWh: number;
+  nominalVoltage: number;
+  /** End-of-discharge voltage of the bank (cells × cut-off per cell), V. */
+  minimumVoltage: number;
+  /** Capacity required before rounding to a rating, Ah (whole bank). */
+  requiredCapacity: number;
+  governing: GoverningLimit;
+  /** Peak current of the duty cycle (with any random load), A. */
+  peakCurrent: number;
+  /** The duty cycle actually sized for, as currents at the bank terminals. */
+  periods: CurrentPeriod[];
+  /** Worksheet sections (lead-acid and NiCd); empty for the energy method. */
+  sections: WorksheetSection[];
+  steps: SizingStep[];
+  /** Things to check (assumptions stretched, limits near). */
+  warnings: string[];
+  /** Safety and scope cautions that always go with a sizing. */
+  cautions: string[];
+}
+
+export type SizingOutcome = { ok: true; sizing: BankSizing } | { ok: false; problems: Problem[] };
+
+// ---------------------------------------------------------------------------------------------
+// Defaults (common practice unless marked)
+// ---------------------------------------------------------------------------------------------
+
+/**
+ * Aging factor per chemistry. Lead-acid: IEEE 485 (replace at 80 % of rated capacity, 1/0.8 =
+ * 1.25; from memory). NiCd: IEEE 1115 uses the same 1.25 (from memory). Lithium: 1.25 for an end of
+ * life at 80 % of rated capacity, common practice (no source) — use the maker's end-of-life figure.
+ */
+export const DEFAULT_AGING_FACTOR: Readonly<Record<Chemistry, number>> = {
+  'flooded-lead-acid': IEEE_485_DEFAULT_AGING_FACTOR,
+  'vrla-agm': IEEE_485_DEFAULT_AGING_FACTOR,
+  gel: IEEE_485_DEFAULT_AGING_FACTOR,
+  nicd: 1.25,
+  lifepo4: 1.25,
+  nmc: 1.25,
+};
+
+/** Design margin, IEEE 485 common practice (1.10–1.15). */
+export const DEFAULT_DESIGN_MARGIN = IEEE_485_DEFAULT_DESIGN_MARGIN;
+
+/** Parallel strings considered at most, common practice (no source): more strings share poorly. */
+export const DEFAULT_MAX_STRINGS = 4;
+
+/** Above this many periods only the governing section keeps its rows (the table would be n²/2 rows). */
+const MAX_PERIODS_WITH_ROWS = 60;
+
+/** Reference temperature of rated capacity, °C. */
+const RATED_TEMPERATURE = 25;
+
+const DEFAULT_FIELDS: SizingFieldPaths = {
+  chemistry: 'backup.chemistry',
+  overrides: 'backup.overrides',
+  busVoltage: 'backup.busVoltage',
+  dutyCycle: 'backup.dutyCycle',
+  targetRuntime: 'backup.targetRuntime',
+  designMargin: 'backup.designMargin',
+  agingFactor: 'backup.agingFactor',
+  temperature: 'backup.temperature',
+  ratings: 'backup.ratings',
+  capacityFactors: 'backup.capacityFactors',
+  cellsPerBlock: 'backup.cellsPerBlock',
+  seriesBlocks: 'backup.seriesBlocks',
+  maxStrings: 'backup.maxStrings',
+  randomLoad: 'backup.randomLoad',
+};
+
+/** The cautions every battery sizing carries. */
+export const SIZING_CAUTIONS: readonly string[] = [
+  'Planning estimate only: the cell maker\u2019s data, local codes and licensed practice govern the final selection.',
+  'Fit a fuse or breaker as close to the bank as practical, rated to interrupt the bank\u2019s prospective short-circuit current (lithium banks can deliver many kA).',
+];
+const VENTED_CAUTION =
+  'Vented cells give off hydrogen on charge: the battery room or enclosure needs ventilation sized for it.';
+const LITHIUM_CAUTION =
+  'Lithium cells need a battery management system that disconnects on over-/under-voltage, over-current and temperature; never charge below the maker\u2019s minimum charge temperature (typically 0 °C).';
+
+// ---------------------------------------------------------------------------------------------
+// Shared helpers (also used by recharge.ts)
+// ---------------------------------------------------------------------------------------------
+
+const LEAD_ACID: ReadonlySet<Chemistry> = new Set<Chemistry>(['flooded-lead-acid', 'vrla-agm', 'gel']);
+const LITHIUM: ReadonlySet<Chemistry> = new Set<Chemistry>(['lifepo4', 'nmc']);
+
+export const isLeadAcid = (c: Chemistry): boolean => LEAD_ACID.has(c);
+export const isLithium = (c: Chemistry): boolean => LITHIUM.has(c);
+
+/** Builds a problem; `value` is kept only when JSON can carry it. */
+export function problem(
+  code: ProblemCode,
+  elementId: string,
+  field: string,
+  value: unknown,
+  message: string,
+): Problem {
+  return { code, elementId, field, value, message };
+}
+
+const isFiniteNumber = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
+
+/**
+ * The chemistry preset with datasheet overrides applied, or problems naming the field.
+ * Only the values these modules use are checked here; the bank model checks the rest.
+ */
+export function resolvePreset(
+  chemistry: string,
+  overrides: Partial<ChemistryValues> | undefined,
+  elementId: string,
+  chemistryField: string,
+  overridesField: string,
+): { ok: true; preset: ChemistryPreset } | { ok: false; problems: Problem[] } {
+  if (!(CHEMISTRIES as readonly string[]).includes(chemistry)) {
+    return {
+      ok: false,
+      problems: [
+        problem(
+          'unknown-chemistry',
+          elementId,
+          chemistryField,
+          chemistry,
+          `unknown chemistry "${String(chemistry)}": use one of ${CHEMISTRIES.join(', ')}`,
+        ),
+      ],
+    };
+  }
+  const preset: ChemistryPreset = { ...CHEMISTRY_PRESETS[chemistry as Chemistry], ...(overrides ?? {}) };
+  const problems: Problem[] = [];
+  const f = (name: keyof ChemistryValues) => `${overridesField}.${name}`;
+  const positiveFields: (keyof ChemistryValues)[] = [
+    'nominalCellVoltage',
+    'endOfDischargeCellVoltage',
+    'ratedHours',
+    'maxDischargeCRate',
+    'maxChargeCRate',
+    'chargeCellVoltage',
+  ];
+  for (const name of positiveFields) {
+    const v = preset[name];
+    if (!isFiniteNumber(v) || v <= 0) problems.push(problem('invalid-value', elementId, f(name), v, 'must be a number greater than 0'));
+  }
+  if (!isFiniteNumber(preset.peukertExponent) || preset.peukertExponent < 1 || preset.peukertExponent > 2) {
+    problems.push(problem('invalid-value', elementId, f('peukertExponent'), preset.peukertExponent, 'Peukert exponent must be between 1 and 2'));
+  }
+  const dod = preset.usableDepthOfDischarge;
+  if (!isFiniteNumber(dod) || dod <= 0 || dod > 1) {
+    problems.push(problem('invalid-value', elementId, f('usableDepthOfDischarge'), dod, 'usable depth of discharge must be greater than 0 and at most 1'));
+  }
+  if (
+    isFiniteNumber(preset.endOfDischargeCellVoltage) &&
+    isFiniteNumber(preset.nominalCellVoltage) &&
+    preset.endOfDischargeCellVoltage >= preset.nominalCellVoltage
+  ) {
+    problems.push(
+      problem('invalid-value', elementId, f('endOfDischargeCellVoltage'), preset.endOfDischargeCellVoltage, `cut-off voltage must be below the nominal cell voltage (${preset.nominalCellVoltage} V)`),
+    );
+  }
+  const table = preset.capacityVsTemperature;
+  if (
+    !Array.isArray(table) ||
+    table.length === 0 ||
+    table.some((p, i) => !isFiniteNumber(p.temperatureC) || !isFiniteNumber(p.capacityFactor) || p.capacityFactor <= 0 || (i > 0 && p.temperatureC <= table[i - 1]!.temperatureC))
+  ) {
+    problems.push(
+      problem('invalid-value', elementId, f('capacityVsTemperature'), table, 'capacity vs temperature must list rising temperatures with capacity factors greater than 0'),
+    );
+  }
+  return problems.length > 0 ? { ok: false, problems } : { ok: true, preset };
+}
+
+/** Linear interpolation in a table of rising x; null outside [x_0, x_last]. */
+export function interpolate(xs: readonly number[], ys: readonly number[], x: number): number | null {
+  const n = xs.length;
+  if (n === 0 || x < xs[0]! || x > xs[n - 1]!) return null;
+  if (n === 1) return ys[0]!;
+  let i = 1;
+  while (i < n - 1 && xs[i]! < x) i++;
+  const x0 = xs[i - 1]!;
+  const x1 = xs[i]!;
+  const y0 = ys[i - 1]!;
+  const y1 = ys[i]!;
+  return x1 === x0 ? y1 : y0 + ((y1 - y0) * (x - x0)) / (x1 - x0);
+}
+
+/** Capacity factor at a temperature from the chemistry's table (linear interpolation), null outside. */
+export function capacityFactorAt(table: readonly CapacityTemperaturePoint[], temperature: number): number | null {
+  return interpolate(
+    table.map((p) => p.temperatureC),
+    table.map((p) => p.capacityFactor),
+    temperature,
+  );
+}
+
+/**
+ * IEEE 485 Table 1 cell-size temperature correction factor at an electrolyte temperature (°C):
+ * linear interpolation on the standard's own °C column; null outside −3.9…51.7 °C.
+ */
+export function ieee485TemperatureFactor(temperature: number): number | null {
+  return interpolate(
+    IEEE_485_TEMPERATURE_FACTORS.map((r) => r.celsius),
+    IEEE_485_TEMPERATURE_FACTORS.map((r) => r.factor),
+    temperature,
+  );
+}
+
+/**
+ * Capacity rating factor from Peukert's law (rated-capacity form t = H·(C/(I·H))^k):
+ * K_t = C/I = H·(t/H)^(1/k), in hours; t and H in hours.
+ */
+export function peukertCapacityFactor(tHours: number, ratedHours: number, k: number): number {
+  return ratedHours * Math.pow(tHours / ratedHours, 1 / k);
+}
+
+/** K_t from a datasheet table (times in s, K in h): log–log interpolation; null outside the table. */
+export function tableCapacityFactor(table: readonly CapacityFactorPoint[], timeS: number): number | null {
+  const v = interpolate(
+    table.map((p) => Math.log(p.time)),
+    table.map((p) => Math.log(p.factor)),
+    Math.log(timeS),
+  );
+  return v === null ? null : Math.exp(v);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Input checks
+// ---------------------------------------------------------------------------------------------
+
+interface Checked {
+  elementId: string;
+  preset: ChemistryPreset;
+  fields: SizingFieldPaths;
+  designMargin: number;
+  agingFactor: number;
+  temperature: number;
+  maxStrings: number;
+  cellsPerBlock: number;
+}
+
+function checkFactor(
+  out: Problem[],
+  elementId: string,
+  field: string,
+  v: unknown,
+  what: string,
+): void {
+  if (!isFiniteNumber(v)) out.push(problem('invalid-value', elementId, field, v, `${what} must be a number`));
+  else if (v < 1) out.push(problem('invalid-value', elementId, field, v, `${what} must be at least 1 (it multiplies the size)`));
+}
+
+function checkPeriods(out: Problem[], elementId: string, field: string, duty: DutyCycle): void {
+  if (!Array.isArray(duty.periods) || duty.periods.length === 0) {
+    out.push(problem('invalid-value', elementId, `${field}.periods`, duty.periods, 'the duty cycle needs at least one period'));
+    return;
+  }
+  const key = duty.basis === 'current' ? 'current' : 'power';
+  const unit = duty.basis === 'current' ? 'A' : 'W';
+  duty.periods.forEach((p, i) => {
+    const base = `${field}.periods[${i}]`;
+    if (!isFiniteNumber(p.duration) || p.duration <= 0) {
+      out.push(problem('invalid-value', elementId, `${base}.duration`, p.duration, 'period duration must be greater than 0 s'));
+    }
+    const v = (p as unknown as Record<string, unknown>)[key];
+    if (!isFiniteNumber(v) || v < 0) {
+      out.push(problem('invalid-value', elementId, `${base}.${key}`, v, `period ${key} must be a number of at least 0 ${unit} (charging periods are not part of a discharge duty cycle)`));
+    }
+  });
+  if (duty.basis === 'power' && duty.voltage !== undefined && (!isFiniteNumber(duty.voltage) || duty.voltage <= 0)) {
+    out.push(problem('invalid-value', elementId, `${field}.voltage`, duty.voltage, 'conversion voltage must be greater than 0 V'));
+  }
+}
+
+function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok: false; problems: Problem[] } {
+  const elementId = input.elementId ?? 'project';
+  const fields: SizingFieldPaths = { ...DEFAULT_FIELDS, ...(input.fields ?? {}) };
+  const resolved = resolvePreset(input.chemistry, input.overrides, elementId, fields.chemistry, fields.overrides);
+  if (!resolved.ok) return resolved;
+  const preset = resolved.preset;
+  const out: Problem[] = [];
+
+  if (!isFiniteNumber(input.busVoltage) || input.busVoltage <= 0) {
+    out.push(problem('invalid-value', elementId, fields.busVoltage, input.busVoltage, 'bus voltage must be greater than 0 V'));
+  }
+  if (input.dutyCycle === null || typeof input.dutyCycle !== 'object' || (input.dutyCycle.basis !== 'current' && input.dutyCycle.basis !== 'power')) {
+    out.push(problem('invalid-value', elementId, fields.dutyCycle, input.dutyCycle, 'duty cycle must be a list of current or power periods'));
+  } else {
+    checkPeriods(out, elementId, fields.dutyCycle, input.dutyCycle);
+  }
+  if (input.targetRuntime !== undefined && (!isFiniteNumber(input.targetRuntime) || input.targetRuntime <= 0)) {
+    out.push(problem('invalid-value', elementId, fields.targetRuntime, input.targetRuntime, 'target runtime must be greater than 0'));
+  }
+  const designMargin = input.designMargin ?? DEFAULT_DESIGN_MARGIN;
+  checkFactor(out, elementId, fields.designMargin, designMargin, 'design margin');
+  const agingFactor = input.agingFactor ?? DEFAULT_AGING_FACTOR[preset.chemistry];
+  checkFactor(out, elementId, fields.agingFactor, agingFactor, 'aging factor');
+
+  const temperature = input.temperature ?? RATED_TEMPERATURE;
+  if (!isFiniteNumber(temperature)) {
+    out.push(problem('invalid-value', elementId, fields.temperature, temperature, 'temperature must be a number (°C)'));
+  } else if (isLeadAcid(preset.chemistry)) {
+    if (ieee485TemperatureFactor(temperature) === null) {
+      const rows = IEEE_485_TEMPERATURE_FACTORS;
+      out.push(
+        problem('outside-table', elementId, fields.temperature, temperature, `electrolyte temperature ${temperature} °C is outside IEEE 485 Table 1 (${rows[0]!.celsius} °C to ${rows[rows.length - 1]!.celsius} °C); no correction factor is published there`),
+      );
+    }
+  } else if (capacityFactorAt(preset.capacityVsTemperature, temperature) === null) {
+    const t = preset.capacityVsTemperature;
+    out.push(
+      problem('outside-table', elementId, fields.temperature, temperature, `cell temperature ${temperature} °C is outside the ${preset.label} capacity-vs-temperature table (${t[0]!.temperatureC} °C to ${t[t.length - 1]!.temperatureC} °C)`),
+    );
+  }
+
+  if (input.ratings !== undefined) {
+    if (!Array.isArray(input.ratings) || input.ratings.length === 0) {
+      out.push(problem('invalid-value', elementId, fields.ratings, input.ratings, 'give at least one standard rating, or leave the list out for a continuous size'));
+    } else {
+      input.ratings.forEach((r, i) => {
+        if (!isFiniteNumber(r) || r <= 0) out.push(problem('invalid-value', elementId, `${fields.ratings}[${i}]`, r, 'a capacity rating must be greater than 0 Ah'));
+      });
+    }
+  }
+  if (input.capacityFactors !== undefined) {
+    const t = input.capacityFactors;
+    if (!Array.isArray(t) || t.length < 2) {
+      out.push(problem('invalid-value', elementId, fields.capacityFactors, t, 'a K_t table needs at least two points'));
+    } else {
+      t.forEach((p, i) => {
+        const base = `${fields.capacityFactors}[${i}]`;
+        if (!isFiniteNumber(p.time) || p.time <= 0) out.push(problem('invalid-value', elementId, `${base}.time`, p.time, 'time must be greater than 0 s'));
+        else if (i > 0 && isFiniteNumber(t[i - 1]!.time) && p.time <= t[i - 1]!.time) out.push(problem('invalid-value', elementId, `${base}.time`, p.time, 'times must rise from one point to the next'));
+        if (!isFiniteNumber(p.factor) || p.factor <= 0) out.push(problem('invalid-value', elementId, `${base}.factor`, p.factor, 'K_t must be greater than 0 h'));
+      });
+    }
+    if (!isLeadAcid(preset.chemistry) && preset.chemistry !== 'nicd') {
+      out.push(problem('invalid-value', elementId, fields.capacityFactors, t, 'a K_t table applies to the lead-acid and NiCd worksheet only; lithium is sized by energy'));
+    }
+  }
+  const cellsPerBlock = input.cellsPerBlock ?? 1;
+  if (!Number.isInteger(cellsPerBlock) || cellsPerBlock < 1) {
+    out.push(problem('invalid-value', elementId, fields.cellsPerBlock, cellsPerBlock, 'cells per block must be a whole number of at least 1'));
+  }
+  if (input.seriesBlocks !== undefined && (!Number.isInteger(input.seriesBlocks) || input.seriesBlocks < 1)) {
+    out.push(problem('invalid-value', elementId, fields.seriesBlocks, input.seriesBlocks, 'blocks in series must be a whole number of at least 1'));
+  }
+  const maxStrings = input.maxStrings ?? DEFAULT_MAX_STRINGS;
+  if (!Number.isInteger(maxStrings) || maxStrings < 1) {
+    out.push(problem('invalid-value', elementId, fields.maxStrings, maxStrings, 'maximum strings must be a whole number of at least 1'));
+  }
+  if (input.randomLoad !== undefined) {
+    const r = input.randomLoad;
+    if (!isFiniteNumber(r.duration) || r.duration <= 0) out.push(problem('invalid-value', elementId, `${fields.randomLoad}.duration`, r.duration, 'random-load duration must be greater than 0 s'));
+    const v = 'current' in r ? r.current : r.power;
+    if (!isFiniteNumber(v) || v < 0) out.push(problem('invalid-value', elementId, `${fields.randomLoad}.${'current' in r ? 'current' : 'power'}`, v, 'random load must be a number of at least 0'));
+  }
+  if (out.length > 0) return { ok: false, problems: out };
+  return { ok: true, c: { elementId, preset, fields, designMargin, agingFactor, temperature, maxStrings, cellsPerBlock } };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Steps of the sizing
+// ---------------------------------------------------------------------------------------------
+
+/** The duty cycle over exactly `target` seconds: repeated from its start, or cut. */
+export function fitToRuntime<T extends { duration: number }>(periods: readonly T[], target: number): T[] {
+  const out: T[] = [];
+  let left = target;
+  const total = periods.reduce((s, p) => s + p.duration, 0);
+  // Relative slack so a duty cycle that matches the target to rounding is not cut into a sliver.
+  const eps = 1e-9 * target;
+  while (left > eps && total > 0) {
+    for (const p of periods) {
+      if (left <= eps) break;
+      const d = Math.min(p.duration, left);
+      out.push({ ...p, duration: d });
+      left -= d;
+    }
+  }
+  return out;
+}
+
+/** Picks strings × rating per string for a required capacity (see header, step 4). */
+function chooseStrings(
+  required: number,
+  ratings: readonly number[] | undefined,
+  maxStrings: number,
+): { strings: number; perString: number } | null {
+  if (ratings === undefined) return { strings: 1, perString: required };
+  const sorted = [...ratings].sort((a, b) => a - b);
+  for (let n = 1; n <= maxStrings; n++) {
+    // Tolerance for a required size equal to a rating up to rounding.
+    const need = (required / n) * (1 - 1e-12);
+    const r = sorted.find((x) => x >= need);
+    if (r !== undefined) return { strings: n, perString: r };
+  }
+  return null;
+}
+
+/**
+ * Sizes the smallest bank for a duty cycle. Returns every step, worksheet section and factor, or
+ * problems naming the field (nothing is computed from bad input).
+ */
+export function sizeBank(input: SizingInput): SizingOutcome {
+  const checked = checkInput(input);
+  if (!checked.ok) return checked;
+  const { elementId, preset, fields, designMargin, agingFactor, temperature, maxStrings, cellsPerBlock } = checked.c;
+  const steps: SizingStep[] = [];
+  const warnings: string[] = [];
+  const step = (label: string, value: number, unit: string, note: string) => steps.push({ label, value, unit, note });
+
+  // 1. Series count from the bus voltage.
+  const blockVoltage = preset.nominalCellVoltage * cellsPerBlock;
+  const seriesBlocks = input.seriesBlocks ?? Math.max(1, Math.round(input.busVoltage / blockVoltage));
+  const seriesCells = seriesBlocks * cellsPerBlock;
+  const nominalVoltage = seriesCells * preset.nominalCellVoltage;
+  const minimumVoltage = seriesCells * preset.endOfDischargeCellVoltage;
+  step('Nominal cell voltage', preset.nominalCellVoltage, 'V', `${preset.label} (${preset.provenance.nominalCellVoltage})`);
+  step(
+    cellsPerBlock > 1 ? 'Blocks in series' : 'Cells in series',
+    seriesBlocks,
+    '',
+    input.seriesBlocks !== undefined ? 'as given' : `round(${input.busVoltage} V ÷ ${round(blockVoltage)} V)`,
+  );
+  step('Nominal bank voltage', nominalVoltage, 'V', `${seriesCells} cells × ${preset.nominalCellVoltage} V`);
+  step('Minimum bank voltage', minimumVoltage, 'V', `${seriesCells} cells × ${preset.endOfDischargeCellVoltage} V/cell end of discharge`);
+  if (Math.abs(nominalVoltage - input.busVoltage) > 0.05 * input.busVoltage) {
+    warnings.push(
+      `The nominal bank voltage ${round(nominalVoltage)} V differs from the bus voltage ${input.busVoltage} V by more than 5 %: check the equipment's input range.`,
+    );
+  }
+
+  // 2. Duty cycle as currents at the bank terminals.
+  const duty = input.dutyCycle;
+  let voltageBasis = minimumVoltage;
+  let periods: CurrentPeriod[];
+  if (duty.basis === 'current') {
+    periods = duty.periods.map((p) => ({ duration: p.duration, current: p.current }));
+  } else {
+    voltageBasis = duty.voltage ?? minimumVoltage;
+    step(
+      'Voltage for power → current',
+      voltageBasis,
+      'V',
+      duty.voltage !== undefined ? 'as given' : 'minimum bank voltage (conservative: a constant-power load draws most current there)',
+    );
+    periods = duty.periods.map((p) => ({ duration: p.duration, current: p.power / voltageBasis }));
+  }
+  if (input.targetRuntime !== undefined) {
+    const total = periods.reduce((s, p) => s + p.duration, 0);
+    periods = fitToRuntime(periods, input.targetRuntime);
+    step(
+      'Duty cycle length',
+      input.targetRuntime,
+      's',
+      Math.abs(total - input.targetRuntime) <= 1e-9 * input.targetRuntime
+        ? 'equals the target runtime'
+        : total < input.targetRuntime
+          ? `the ${round(total)} s duty cycle repeated from its start to the target runtime`
+          : `the ${round(total)} s duty cycle cut at the target runtime`,
+    );
+  }
+  // Neighbouring equal periods joined: the worksheet and the energy are unchanged by it.
+  periods = mergeEqualPeriods(periods);
+  const powerPeriods: PowerPeriod[] | null =
+    duty.basis === 'power'
+      ? input.targetRuntime !== undefined
+        ? fitToRuntime(duty.periods, input.targetRuntime)
+        : duty.periods.map((p) => ({ duration: p.duration, power: p.power }))
+      : null;
+  let energyWh =
+    powerPeriods !== null
+      ? powerPeriods.reduce((s, p) => s + (p.power * p.duration) / 3600, 0)
+      : periods.reduce((s, p) => s + (p.current * nominalVoltage * p.duration) / 3600, 0);
+  const random = input.randomLoad;
+  const randomCurrent = random === undefined ? 0 : 'current' in random ? random.current : random.power / voltageBasis;
+  const peakCurrent = Math.max(...periods.map((p) => p.current)) + randomCurrent;
+  if (!(peakCurrent > 0)) {
+    return {
+      ok: false,
+      problems: [problem('invalid-value', elementId, fields.dutyCycle, input.dutyCycle, 'the duty cycle draws no current: there is nothing to size')],
+    };
+  }
+  step('Peak current', peakCurrent, 'A', random !== undefined ? 'largest period current + random load' : 'largest period current');
+
+  const worksheet = isLeadAcid(preset.chemistry) || preset.chemistry === 'nicd';
+  let sections: WorksheetSection[] = [];
+  let required: number;
+  let governing: GoverningLimit;
+  let method: SizingMethod;
+
+  if (worksheet) {
+    method = preset.chemistry === 'nicd' ? 'ieee-1115-worksheet' : 'ieee-485-worksheet';
+    const table = input.capacityFactors;
+    // First time the datasheet table does not cover (NaN while none).
+    const missing = { time: Number.NaN };
+    const kAt = (timeS: number): number => {
+      if (table !== undefined) {
+        const k = tableCapacityFactor(table, timeS);
+        if (k === null) {
+          if (Number.isNaN(missing.time)) missing.time = timeS;
+          return Number.NaN;
+        }
+        return k;
+      }
+      return peukertCapacityFactor(timeS / 3600, preset.ratedHours, preset.peukertExponent);
+    };
+    step(
+      'Capacity rating factor K_t',
+      table !== undefined ? table.length : preset.peukertExponent,
+      table !== undefined ? 'points' : '',
+      table !== undefined
+        ? 'from the datasheet table given (log–log interpolation)'
+        : `Peukert's law: K_t = H·(t/H)^(1/k), H = ${preset.ratedHours} h, k = ${preset.peukertExponent} (${preset.provenance.peukertExponent})`,
+    );
+    const merged = periods;
+    sections = worksheetSections(merged, kAt, merged.length <= MAX_PERIODS_WITH_ROWS);
+    if (!Number.isNaN(missing.time) && table !== undefined) {
+      return {
+        ok: false,
+        problems: [
+          problem(
+            'outside-table',
+            elementId,
+            fields.capacityFactors,
+            missing.time,
+            `the worksheet needs K_t at ${round(missing.time)} s; the table given spans ${table[0]!.time} s to ${table[table.length - 1]!.time} s — extend it from the datasheet`,
+          ),
+        ],
+      };
+    }
+    let best = sections[0]!;
+    for (const s of sections) if (s.total > best.total) best = s;
+    if (merged.length > MAX_PERIODS_WITH_ROWS) {
+      best.rows = worksheetSections(merged.slice(0, best.section), kAt, true)[best.section - 1]!.rows;
+      warnings.push(
+        `The duty cycle has ${merged.length} periods: every section's total is listed, but the period rows of the governing section S${best.section} only.`,
+      );
+    }
+    step('Maximum section size', best.total, 'Ah', `section S${best.section} of ${sections.length} (worksheet line 9)`);
+    let uncorrected = best.total;
+    if (random !== undefined) {
+      const kr = kAt(random.duration);
+      if (Number.isNaN(kr)) {
+        return {
+          ok: false,
+          problems: [problem('outside-table', elementId, `${fields.randomLoad}.duration`, random.duration, 'the random load\u2019s duration lies outside the K_t table given')],
+        };
+      }
+      step('Random-load section size', randomCurrent * kr, 'Ah', `${round(randomCurrent)} A × K_t ${round(kr)} h at ${random.duration} s (worksheet line 10)`);
+      uncorrected += randomCurrent * kr;
+    }
+    step('Uncorrected size', uncorrected, 'Ah', 'worksheet line 11');
+
+    let tempFactor: number;
+    if (isLeadAcid(preset.chemistry)) {
+      const raw = ieee485TemperatureFactor(temperature)!;
+      tempFactor = raw < 1 && !input.creditAbove25C ? 1 : raw;
+      step(
+        'Temperature correction factor',
+        tempFactor,
+        '',
+        `IEEE 485 Table 1 at ${temperature} °C${raw < 1 && !input.creditAbove25C ? ` (table gives ${raw}; held at 1.00 above 25 °C as the note to the table advises)` : ''}`,
+      );
+    } else {
+      tempFactor = 1 / capacityFactorAt(preset.capacityVsTemperature, temperature)!;
+      step(
+        'Temperature derating factor',
+        tempFactor,
+        '',
+        `1 ÷ capacity factor at ${temperature} °C (IEEE 1115 takes it from the maker; default ${preset.provenance.capacityVsTemperature})`,
+      );
+    }
+    step('Design margin', designMargin, '', input.designMargin === undefined ? 'default 1.10 (IEEE 485, common practice)' : 'as given');
+    step('Aging factor', agingFactor, '', input.agingFactor === undefined ? 'default 1.25 (replace at 80 % of rated capacity)' : 'as given');
+    const worksheetSize = uncorrected * tempFactor * designMargin * agingFactor;
+    step('Required size (worksheet)', worksheetSize, 'Ah', 'uncorrected × temperature × design margin × aging');
+    required = worksheetSize;
+    governing = { kind: 'section', section: best.section };
+
+    const rateSize = peakCurrent / preset.maxDischargeCRate;
+    if (table === undefined) {
+      // Peukert extrapolated to minutes overstates the deliverable current; the C-rate bounds it.
+      step(
+        'Size for the discharge-rate limit',
+        rateSize,
+        'Ah',
+        `peak ${round(peakCurrent)} A ÷ ${preset.maxDischargeCRate} C maximum continuous discharge (${preset.provenance.maxDischargeCRate})`,
+      );
+      if (rateSize > required) {
+        required = rateSize;
+        governing = { kind: 'discharge-rate' };
+        warnings.push(
+          'The discharge-rate limit, not the worksheet, sets the size: Peukert\u2019s law is unreliable for short high-current periods. A datasheet K_t table gives a truer size.',
+        );
+      }
+      const shortest = Math.min(...merged.map((p) => p.duration));
+      if (shortest < 3600) {
+        warnings.push(
+          `K_t for periods shorter than an hour is extrapolated with Peukert's law from the ${preset.ratedHours} h rating; use the cell maker's K_t (or amperes-for-t-minutes) table for the final size.`,
+        );
+      }
+    } else if (rateSize > worksheetSize) {
+      warnings.push(
+        `The peak current ${round(peakCurrent)} A is above the preset maximum continuous discharge rate (${preset.maxDischargeCRate} C) of this size; the K_t table given is trusted — confirm the rate with the cell maker.`,
+      );
+    }
+  } else {
+    // Lithium: energy method.
+    method = 'energy';
+    step(
+      'Energy at the bank terminals',
+      energyWh,
+      'Wh',
+      duty.basis === 'power' ? 'Σ power × duration' : `Σ current × duration × ${round(nominalVoltage)} V nominal`,
+    );
+    if (random !== undefined) {
+      const er = 'current' in random ? (random.current * nominalVoltage * random.duration) / 3600 : (random.power * random.duration) / 3600;
+      step('Random-load energy', er, 'Wh', 'added once');
+      energyWh += er;
+    }
+    const dod = preset.usableDepthOfDischarge;
+    const capFactor = capacityFactorAt(preset.capacityVsTemperature, temperature)!;
+    step('Usable depth of discharge', dod, '', preset.provenance.usableDepthOfDischarge);
+    step('Capacity factor at temperature', capFactor, '', `${temperature} °C (${preset.provenance.capacityVsTemperature})`);
+    step('Design margin', designMargin, '', input.designMargin === undefined ? 'default 1.10 (common practice)' : 'as given');
+    step('Aging factor', agingFactor, '', input.agingFactor === undefined ? 'default 1.25 (end of life at 80 % of rated, common practice)' : 'as given');
+    const wh = (energyWh / (dod * capFactor)) * designMargin * agingFactor;
+    step('Required energy', wh, 'Wh', 'energy ÷ (DoD × capacity factor) × design margin × aging');
+    const energyAh = wh / nominalVoltage;
+    step('Required capacity (energy)', energyAh, 'Ah', `${round(wh)} Wh ÷ ${round(nominalVoltage)} V nominal`);
+    const rateAh = peakCurrent / preset.maxDischargeCRate;
+    step(
+      'Required capacity (discharge rate)',
+      rateAh,
+      'Ah',
+      `peak ${round(peakCurrent)} A ÷ ${preset.maxDischargeCRate} C maximum continuous discharge (${preset.provenance.maxDischargeCRate})`,
+    );
+    if (rateAh > energyAh) {
+      required = rateAh;
+      governing = { kind: 'discharge-rate' };
+      warnings.push(
+        `The peak current sets the size: ${round(peakCurrent)} A needs at least ${round(rateAh)} Ah at ${preset.maxDischargeCRate} C, more than the energy needs (${round(energyAh)} Ah).`,
+      );
+    } else {
+      required = energyAh;
+      governing = { kind: 'energy' };
+    }
+  }
+
+  // 4. Strings and the standard rating.
+  const choice = chooseStrings(required, input.ratings, maxStrings);
+  if (choice === null) {
+    const largest = Math.max(...input.ratings!);
+    return {
+      ok: false,
+      problems: [
+        problem(
+          'no-feasible-bank',
+          elementId,
+          fields.ratings,
+          input.ratings,
+          `the bank needs ${round(required)} Ah, more than ${maxStrings} string(s) of the largest rating (${largest} Ah) give: add a larger rating or allow more strings`,
+        ),
+      ],
+    };
+  }
+  step('Strings in parallel', choice.strings, '', input.ratings === undefined ? 'continuous size: one string' : `fewest strings (of at most ${maxStrings}) a standard rating can serve`);
+  step('Capacity per string', choice.perString, 'Ah', input.ratings === undefined ? 'continuous (not rounded)' : `next standard rating ≥ ${round(required / choice.strings)} Ah`);
+  const bankCapacity = choice.strings * choice.perString;
+  const bankEnergyWh = bankCapacity * nominalVoltage;
+  step('Bank capacity', bankCapacity, 'Ah', `${choice.strings} × ${round(choice.perString)} Ah, rated at ${preset.ratedHours} h`);
+  step('Bank energy (nominal)', bankEnergyWh, 'Wh', `${round(bankCapacity)} Ah × ${round(nominalVoltage)} V`);
+
+  const cautions = [...SIZING_CAUTIONS];
+  if (preset.chemistry === 'flooded-lead-acid' || preset.chemistry === 'nicd') cautions.push(VENTED_CAUTION);
+  if (isLithium(preset.chemistry)) cautions.push(LITHIUM_CAUTION);
+  if (worksheet) {
+    cautions.push(
+      'The worksheet sizes to the end-of-discharge voltage with no depth-of-discharge limit: for daily cycling, size for the depth of discharge instead.',
+    );
+  }
+
+  return {
+    ok: true,
+    sizing: {
+      method,
+      chemistry: preset.chemistry,
+      seriesCells,
+      cellsPerBlock,
+      seriesBlocks,
+      strings: choice.strings,
+      capacityPerString: choice.perString,
+      bankCapacity,
+      bankEnergyWh,
+      usableEnergyWh: bankEnergyWh * preset.usableDepthOfDischarge,
+      nominalVoltage,
+      minimumVoltage,
+      requiredCapacity: required,
+      governing,
+      peakCurrent,
+      periods,
+      sections,
+      steps,
+      warnings,
+      cautions,
+    },
+  };
+}
+
+/**
+ * The worksheet sections S = 1…n: F_S = Σ_{P≤S} (A_P − A_{P−1})·K_t(t_P), t_P = Σ_{j=P..S} M_j.
+ * O(n²) rows in all; each row is kept so the user can check it.
+ */
+export function worksheetSections(
+  periods: readonly CurrentPeriod[],
+  kAt: (timeS: number) => number,
+  keepRows = true,
+): WorksheetSection[] {
+  const sections: WorksheetSection[] = [];
+  for (let s = 0; s < periods.length; s++) {
+    const rows: WorksheetRow[] = [];
+    // Time to the end of section s from the start of period p, accumulated backwards.
+    const times: number[] = new Array<number>(s + 1);
+    let acc = 0;
+    for (let p = s; p >= 0; p--) {
+      acc += periods[p]!.duration;
+      times[p] = acc;
+    }
+    let positive = 0;
+    let negative = 0;
+    for (let p = 0; p <= s; p++) {
+      const current = periods[p]!.current;
+      const change = current - (p > 0 ? periods[p - 1]!.current : 0);
+      const timeToEnd = times[p]!;
+      const capacityFactor = kAt(timeToEnd);
+      const size = change * capacityFactor;
+      if (size >= 0) positive += size;
+      else negative += size;
+      if (keepRows) rows.push({ period: p + 1, current, change, duration: periods[p]!.duration, timeToEnd, capacityFactor, size });
+    }
+    const next = periods[s + 1];
+    sections.push({
+      section: s + 1,
+      rows,
+      positive,
+      negative,
+      total: positive + negative,
+      needed: next === undefined || next.current <= periods[s]!.current,
+    });
+  }
+  return sections;
+}
+
+/**
+ * Joins neighbouring periods of equal current: the worksheet result is unchanged (the joint adds a
+ * row of zero change), and a profile sampled every minute shrinks to its real steps.
+ */
+export function mergeEqualPeriods(periods: readonly CurrentPeriod[]): CurrentPeriod[] {
+  const out: CurrentPeriod[] = [];
+  for (const p of periods) {
+    const last = out[out.length - 1];
+    if (last !== undefined && last.current === p.current) last.duration += p.duration;
+    else out.push({ duration: p.duration, current: p.current });
+  }
+  return out;
+}
+
+/** Rounds for messages and notes only (never for results). */
+function round(x: number): number {
+  return Number(x.toPrecision(4));
+}
