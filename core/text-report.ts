@@ -62,6 +62,59 @@ export function formatResult(result: SolveResult): string {
       out.push(`  ${e.name}: ${parts.join('; ')}`);
     }
   }
+  const sized = result.elements.filter((e) => e.conductor);
+  if (sized.length) {
+    out.push('', 'Conductors (drop in V and % of the sending voltage; exact = phasor solve, approx = I·(R·cosθ + X·sinθ) method)');
+    out.push(
+      table(
+        ['cable', 'size', 'governs', 'I', 'ampacity', 'device', 'drop exact', 'drop approx', 'R at T', 'loss'],
+        sized.map((e) => {
+          const c = e.conductor!;
+          const sets = c.parallelSets > 1 ? `${c.parallelSets} × ` : '';
+          return [
+            e.name,
+            `${sets}${c.size} ${c.material === 'copper' ? 'Cu' : 'Al'}${c.auto ? '' : ' (fixed)'}`,
+            c.governing,
+            `${f(c.current, 1)} A`,
+            `${f(c.ampacity.total, 1)} A`,
+            c.device.rating === undefined ? '—' : `${c.device.rating} A`,
+            `${f(c.drop.exactVolts, 2)} V ${f(c.drop.exactPercent, 2)} %`,
+            `${f(c.drop.approxVolts, 2)} V ${f(c.drop.approxPercent, 2)} %`,
+            `${(c.resistance.perKm).toPrecision(4)} Ω/km @ ${f(c.resistance.operatingTemperature, 0)} °C`,
+            `${f(c.loss, 1)} W`,
+          ];
+        }),
+      ),
+    );
+    for (const e of sized) {
+      out.push('', `  ${e.name}: working`);
+      for (const s of e.conductor!.steps) {
+        const v = typeof s.value === 'number' ? s.value.toPrecision(4) : s.value;
+        out.push(`    ${s.label}: ${v}${s.unit ? ` ${s.unit}` : ''} — ${s.note}`);
+      }
+    }
+    out.push('', `  ${sized[0]!.conductor!.caution}`);
+  }
+  const paths = result.voltageDrop ?? [];
+  if (paths.some((p) => p.links.length > 0)) {
+    out.push('', `Voltage drop by path (limits: ${paths[0]!.limitBasis})`);
+    out.push(
+      table(
+        ['load', 'from', 'links', 'total', 'limit', 'status'],
+        paths
+          .filter((p) => p.links.length > 0)
+          .map((p) => [
+            byId.get(p.loadId)?.name ?? p.loadId,
+            byId.get(p.startId)?.name ?? p.startId,
+            p.links.map((l) => `${byId.get(l.id)?.name ?? l.id} ${f(l.dropPercent, 2)} %`).join(' + '),
+            `${f(p.totalPercent, 2)} %`,
+            `${p.perLinkLimitPercent !== undefined ? `${p.perLinkLimitPercent} % / ` : ''}${p.totalLimitPercent} %`,
+            p.exceedsLimit ? 'OVER LIMIT' : 'ok',
+          ]),
+      ),
+    );
+    out.push('  Each path starts at the source or at the nearest regulating converter, which sets the voltage afresh.');
+  }
   const t = result.totals;
   out.push(
     '',

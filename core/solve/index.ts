@@ -1,6 +1,8 @@
 /**
  * The solve as an ordered list of named steps: validate → plan (order the tree, check port kinds,
- * build models) → sweep (self-consistent operating point) → report (ports, totals, balance).
+ * build models) → sweep (self-consistent operating point), both inside size-conductors (the outer
+ * loop that sizes conductor links and re-solves until sizes and resistances settle) → report
+ * (ports, totals, balance) → conductor results and whole-path voltage drops.
  * Pure: takes plain data, returns new plain data, mutates nothing.
  */
 import type { Project } from '../model.ts';
@@ -8,8 +10,8 @@ import { ProjectError, type Problem } from '../errors.ts';
 import type { SolveResult } from '../result.ts';
 import { validateProject } from './validate.ts';
 import { plan } from './plan.ts';
-import { sweep } from './sweep.ts';
 import { buildResult } from './report.ts';
+import { attachConductors, sizeConductors } from './size-conductors.ts';
 
 export type SolveOutcome = { ok: true; result: SolveResult } | { ok: false; problems: Problem[] };
 
@@ -21,11 +23,12 @@ export function solveProject(input: unknown): SolveOutcome {
     const ports = valid.project ? plan(valid.project) : undefined;
     return { ok: false, problems: ports && !ports.ok ? [...valid.problems, ...ports.problems] : valid.problems };
   }
-  const planned = plan(valid.project);
-  if (!planned.ok) return planned;
-  const swept = sweep(planned.order);
-  if (!swept.ok) return swept;
-  return buildResult(valid.project.name, planned.order, swept.point);
+  // Conductor links get their size and impedance; the chain is solved with them in place.
+  const sized = sizeConductors(valid.project);
+  if (!sized.ok) return sized;
+  const built = buildResult(valid.project.name, sized.order, sized.point);
+  if (!built.ok) return built;
+  return { ok: true, result: attachConductors(built.result, valid.project, sized) };
 }
 
 /** Like solveProject, but throws a ProjectError listing every problem. */

@@ -2,11 +2,51 @@
  * Cable link: passes its interface kind through and drops voltage over its series impedance,
  * solved exactly (two-bus). Per-phase impedance: on DC and single-phase the loop (go and return,
  * 2 × one-way length; X ignored on DC); on three-phase one conductor's length. Parallel sets divide Z.
+ * The impedance is given explicitly or taken from a conductor spec (NEC or IEC tables; sized by
+ * core/conductors/ through core/solve/size-conductors.ts).
  */
 import { z } from 'zod';
 import type { CableStage } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { defineKind, fromField, idField, nameField, nonNegative, positive, seriesLink } from './spec.ts';
+
+const rating = z.union([z.literal(60), z.literal(75), z.literal(90)], { error: 'must be 60, 75 or 90 (°C)' });
+const common = {
+  material: z.enum(['copper', 'aluminium'], { error: 'must be "copper" or "aluminium"' }),
+  size: z.string({ error: 'must be a size from the table (e.g. "4 AWG", "2.5 mm²") or "auto"' }).min(1, 'must not be empty'),
+  ambient: z.number({ error: 'must be a number (°C)' }).optional(),
+  continuous: z.boolean({ error: 'must be true or false' }).optional(),
+  maxDropPercent: positive('%').lte(100, 'must not exceed 100 %').optional(),
+};
+
+/**
+ * The conductor spec: NEC (Table 310.16 columns by temperature rating, Table 9 raceway) or IEC
+ * (60364-5-52 insulation and installation method). Which methods have data is checked when sizing.
+ */
+const conductorSchema = z.discriminatedUnion(
+  'system',
+  [
+    z.strictObject({
+      system: z.literal('nec'),
+      ...common,
+      insulationRating: rating,
+      terminationRating: rating.optional(),
+      raceway: z.enum(['pvc', 'aluminum', 'steel'], { error: 'must be "pvc", "aluminum" or "steel" (NEC Chapter 9 Table 9 raceway)' }).optional(),
+      currentCarryingConductors: z.number({ error: 'must be a number' }).int('must be a whole number').gte(1, 'must be at least 1').optional(),
+    }),
+    z.strictObject({
+      system: z.literal('iec'),
+      ...common,
+      insulation: z.enum(['pvc', 'xlpe'], { error: 'must be "pvc" or "xlpe"' }),
+      installationMethod: z.enum(['A1', 'A2', 'B1', 'B2', 'C', 'D1', 'D2', 'E', 'F', 'G'], {
+        error: 'must be an IEC 60364-5-52 reference method: A1, A2, B1, B2, C, D1, D2, E, F or G',
+      }),
+      loadedConductors: z.union([z.literal(2), z.literal(3)], { error: 'must be 2 or 3' }).optional(),
+      groupedCircuits: z.number({ error: 'must be a number' }).int('must be a whole number').gte(1, 'must be at least 1').optional(),
+    }),
+  ],
+  { error: 'must say system "nec" or "iec"' },
+);
 
 export const cableKind = defineKind<CableStage>({
   kind: 'cable',
@@ -18,15 +58,35 @@ export const cableKind = defineKind<CableStage>({
     kind: z.literal('cable'),
     from: fromField,
     length: positive('m'),
-    resistancePerKm: positive('Ω/km'),
+    resistancePerKm: positive('Ω/km').optional(),
     reactancePerKm: nonNegative('Ω/km').optional(),
+    conductor: conductorSchema.optional(),
     parallelSets: z.number({ error: 'must be a number' }).int('must be a whole number').gte(1, 'must be at least 1').optional(),
   }) as z.ZodType<CableStage>,
+  check(e) {
+    // Exactly one way of giving the impedance.
+    if (e.conductor && (e.resistancePerKm !== undefined || e.reactancePerKm !== undefined)) {
+      return [
+        {
+          code: 'invalid-value',
+          field: e.resistancePerKm !== undefined ? 'resistancePerKm' : 'reactancePerKm',
+          value: e.resistancePerKm ?? e.reactancePerKm,
+          message: 'give either the impedance (resistancePerKm, reactancePerKm) or a conductor, not both',
+        },
+      ];
+    }
+    if (!e.conductor && e.resistancePerKm === undefined) {
+      return [{ code: 'invalid-value', field: 'resistancePerKm', message: 'is required (or give a conductor to take it from the tables)' }];
+    }
+    return [];
+  },
   build(e, input) {
     const kind = input!.kind;
     const conductors = kind === 'ac3' ? 1 : 2; // loop length on DC and single-phase
     const km = (e.length * conductors) / 1000 / (e.parallelSets ?? 1);
-    const z = c(e.resistancePerKm * km, kind === 'dc' ? 0 : (e.reactancePerKm ?? 0) * km);
+    // A link with a conductor spec reaches the solve with the impedance of its chosen size
+    // (core/solve/size-conductors.ts); before that (a plan run only to check port kinds) it is ideal.
+    const z = c((e.resistancePerKm ?? 0) * km, kind === 'dc' ? 0 : (e.reactancePerKm ?? 0) * km);
     const link = seriesLink(z, kind);
     return {
       out: { ...input! },

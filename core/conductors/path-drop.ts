@@ -1,0 +1,104 @@
+/**
+ * Whole-path voltage drop: for each load, the cable links between it and the nearest upstream
+ * point that sets the voltage afresh — the source's terminals or the output of a regulating
+ * converter (rectifier, DC-DC, inverter, drive, generic stage), which holds its set point whatever
+ * the drop upstream — with each link's drop as a percentage of its own sending voltage, summed.
+ *
+ * Counted: cable links (the conductors: NEC's "feeders and branch circuits", IEC 60364-5-52
+ * Annex G's "from the origin of the installation"). Not counted: a transformer's own regulation
+ * and a source's internal impedance, which are not conductor drops (they show in the voltages).
+ * Summing percentages of each link's own sending voltage is the usual way the limits are applied;
+ * it equals the exact relative drop to first order.
+ */
+import { z } from 'zod';
+import type { DropLimits, ElementKind } from '../model.ts';
+import type { ElementResult, PathDrop } from '../result.ts';
+
+/** Schema of the project's optional `dropLimits` (used by core/solve/validate.ts). */
+export const dropLimitsSchema = z.strictObject({
+  basis: z
+    .enum(['nec-informational', 'iec-a-lighting', 'iec-a-other', 'iec-b-lighting', 'iec-b-other'], {
+      error: 'must be "nec-informational", "iec-a-lighting", "iec-a-other", "iec-b-lighting" or "iec-b-other"',
+    })
+    .optional(),
+  perLinkPercent: z.number({ error: 'must be a number (%)' }).gt(0, 'must be greater than 0 %').lte(100, 'must not exceed 100 %').optional(),
+  totalPercent: z.number({ error: 'must be a number (%)' }).gt(0, 'must be greater than 0 %').lte(100, 'must not exceed 100 %').optional(),
+});
+
+const REGULATING: ReadonlySet<ElementKind> = new Set(['rectifier', 'dcdc', 'inverter', 'drive', 'generic']);
+
+export interface ResolvedLimits {
+  perLinkPercent?: number;
+  totalPercent: number;
+  basis: string;
+}
+
+const BASES: Record<NonNullable<DropLimits['basis']>, { perLink?: number; total: number; words: string }> = {
+  'nec-informational': {
+    perLink: 3,
+    total: 5,
+    words: 'NEC 210.19(A) IN No. 3 / 215.2(A) IN No. 2 (informational notes, not enforceable on their own): 3 % per link, 5 % total',
+  },
+  'iec-a-lighting': { total: 3, words: 'IEC 60364-5-52:2009 Annex G (informative), Table G.52.1, type A (public LV supply), lighting: 3 %' },
+  'iec-a-other': { total: 5, words: 'IEC 60364-5-52:2009 Annex G (informative), Table G.52.1, type A (public LV supply), other uses: 5 %' },
+  'iec-b-lighting': { total: 6, words: 'IEC 60364-5-52:2009 Annex G (informative), Table G.52.1, type B (private supply), lighting: 6 %' },
+  'iec-b-other': { total: 8, words: 'IEC 60364-5-52:2009 Annex G (informative), Table G.52.1, type B (private supply), other uses: 8 %' },
+};
+
+/** The limits in force: the chosen basis (NEC informational 3 %/5 % by default) with the user's overrides. */
+export function resolveLimits(limits: DropLimits | undefined): ResolvedLimits {
+  const base = BASES[limits?.basis ?? 'nec-informational'];
+  const perLink = limits?.perLinkPercent ?? base.perLink;
+  const total = limits?.totalPercent ?? base.total;
+  const overridden = limits?.perLinkPercent !== undefined || limits?.totalPercent !== undefined;
+  const basis = overridden ? `chosen by the user (${perLink !== undefined ? `${perLink} % per link, ` : ''}${total} % total)` : base.words;
+  return { ...(perLink !== undefined ? { perLinkPercent: perLink } : {}), totalPercent: total, basis };
+}
+
+/** The allowed drop on one link for sizing: its own setting, else the per-link limit, else the total. */
+export const linkLimit = (own: number | undefined, limits: ResolvedLimits): number => own ?? limits.perLinkPercent ?? limits.totalPercent;
+
+/** Cumulative drop from the path's start to every load, flagged against the limits. */
+export function pathDrops(elements: readonly ElementResult[], limits: ResolvedLimits, perLinkOwn: ReadonlyMap<string, number> = new Map()): PathDrop[] {
+  const byId = new Map(elements.map((e) => [e.id, e]));
+  const out: PathDrop[] = [];
+  for (const load of elements) {
+    if (load.role !== 'load') continue;
+    const links: PathDrop['links'] = [];
+    let terminal: ElementResult = load;
+    let at: ElementResult | undefined = load;
+    let start: ElementResult | undefined;
+    while (at) {
+      const parent: ElementResult | undefined = at.from !== undefined ? byId.get(at.from) : undefined;
+      if (!parent) break;
+      // The load's electrical terminals: for a shaft load, the motor's input.
+      if (terminal.input?.kind === 'shaft' && parent.input && parent.input.kind !== 'shaft') terminal = parent;
+      if (parent.role === 'source' || REGULATING.has(parent.kind)) {
+        start = parent;
+        break;
+      }
+      if (parent.kind === 'cable' && parent.input && parent.output && parent.input.voltage > 0) {
+        const pct = (100 * (parent.input.voltage - parent.output.voltage)) / parent.input.voltage;
+        const limit = linkLimit(perLinkOwn.get(parent.id), limits);
+        links.unshift({ id: parent.id, dropPercent: pct, exceedsLimit: pct > limit * (1 + 1e-12) });
+      }
+      at = parent;
+    }
+    if (!start?.output) continue;
+    const totalPercent = links.reduce((s, l) => s + l.dropPercent, 0);
+    const exceeds = totalPercent > limits.totalPercent * (1 + 1e-12) || links.some((l) => l.exceedsLimit);
+    out.push({
+      loadId: load.id,
+      startId: start.id,
+      startVoltage: start.output.voltage,
+      loadVoltage: terminal.input?.voltage ?? 0,
+      links,
+      totalPercent,
+      ...(limits.perLinkPercent !== undefined ? { perLinkLimitPercent: limits.perLinkPercent } : {}),
+      totalLimitPercent: limits.totalPercent,
+      limitBasis: limits.basis,
+      exceedsLimit: exceeds,
+    });
+  }
+  return out;
+}
