@@ -44,7 +44,9 @@ export type WarningCode =
   | 'fit-error'
   | 'light-load'
   | 'voltage-mismatch'
-  | 'check-derating';
+  | 'check-derating'
+  /** A user-fixed conductor size fails its ampacity, protection or voltage-drop check. */
+  | 'conductor-check';
 
 export interface SolveWarning {
   code: WarningCode;
@@ -96,6 +98,109 @@ export interface ElementResult {
   loadFraction?: number;
   weighted?: WeightedEfficiency;
   fit?: LossFitReport;
+  /** Conductor sizing, for a cable given a `conductor` spec. */
+  conductor?: ConductorResult;
+}
+
+/** One step of the conductor working, in words a user can check. */
+export interface ConductorStep {
+  label: string;
+  value: number | string;
+  unit: string;
+  note: string;
+}
+
+/** Which requirement fixed the size. */
+export type GoverningRule = 'ampacity' | 'voltage-drop' | 'protection' | 'smallest-size' | 'fixed';
+
+/** Conductor sizing result of one cable link (SI units; percentages as % numbers). */
+export interface ConductorResult {
+  system: 'nec' | 'iec';
+  material: 'copper' | 'aluminium';
+  /** Size label from the table, e.g. "4 AWG", "250 kcmil", "16 mm²". */
+  size: string;
+  /** Cross-section of one conductor, mm². */
+  areaMm2: number;
+  /** True when the size was chosen by the engine ("auto"). */
+  auto: boolean;
+  governing: GoverningRule;
+  parallelSets: number;
+  /** Line (or DC) current of the whole link, A. */
+  current: number;
+  /** Current the conductor must carry: × 1.25 when continuous, A (whole link). */
+  designCurrent: number;
+  ampacity: {
+    /** Table value per conductor at the rating column used for corrections, A. */
+    table: number;
+    /** Which table and column. */
+    column: string;
+    ambientFactor: number;
+    groupingFactor: number;
+    /** Table × factors, per conductor, A. */
+    corrected: number;
+    /** Termination limit per conductor (NEC 110.14(C)), A, when it applies. */
+    terminationLimit?: number;
+    /** Ampacity of one conductor after every limit, A. */
+    perSet: number;
+    /** perSet × parallel sets, A. */
+    total: number;
+  };
+  drop: {
+    /** |V_send| − |V_receive| from the exact phasor solve, V (line-to-line on 3φ). */
+    exactVolts: number;
+    exactPercent: number;
+    /** The familiar approximation I·(R·cosθ + X·sinθ) × 2 (DC, 1φ) or × √3 (3φ), V. */
+    approxVolts: number;
+    approxPercent: number;
+    /** approx − exact, V and percentage points. */
+    differenceVolts: number;
+    differencePercent: number;
+    /** The allowed drop on this link, %. */
+    limitPercent: number;
+  };
+  resistance: {
+    /** Table resistance of one conductor at the table's reference temperature, Ω/km. */
+    referencePerKm: number;
+    referenceTemperature: number;
+    /** Estimated conductor temperature at this load, °C. */
+    operatingTemperature: number;
+    /** Resistance of one conductor at the operating temperature, Ω/km. */
+    perKm: number;
+    method: string;
+  };
+  /** Reactance of one conductor, Ω/km (0 on DC). */
+  reactancePerKm: number;
+  /** I²R loss of the link, W. */
+  loss: number;
+  device: {
+    /** Standard rating chosen, A; absent when none in the list fits. */
+    rating?: number;
+    list: string;
+    note: string;
+  };
+  steps: ConductorStep[];
+  caution: string;
+}
+
+/** Cumulative voltage drop from where a path starts to one load. */
+export interface PathDrop {
+  /** The load at the end of the path. */
+  loadId: string;
+  /** The source or regulating converter the path starts from (it sets the voltage afresh). */
+  startId: string;
+  /** Voltage at the start of the path (source terminals or converter output), V. */
+  startVoltage: number;
+  /** Voltage at the load's terminals, V. */
+  loadVoltage: number;
+  /** Each link on the path: its drop, % of its own sending voltage. */
+  links: { id: string; dropPercent: number; exceedsLimit: boolean }[];
+  /** Σ of the links' % drops. */
+  totalPercent: number;
+  perLinkLimitPercent?: number;
+  totalLimitPercent: number;
+  /** Where the limits come from. */
+  limitBasis: string;
+  exceedsLimit: boolean;
 }
 
 export interface SolveResult {
@@ -124,4 +229,6 @@ export interface SolveResult {
     efficiency: number;
   };
   warnings: SolveWarning[];
+  /** Cumulative voltage drop to each load, against the project's limits. */
+  voltageDrop?: PathDrop[];
 }
