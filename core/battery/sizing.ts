@@ -751,7 +751,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
     let best = sections[0]!;
     for (const s of sections) if (s.total > best.total) best = s;
     if (merged.length > MAX_PERIODS_WITH_ROWS) {
-      best.rows = worksheetSections(merged.slice(0, best.section), kAt, true)[best.section - 1]!.rows;
+      best.rows = worksheetSection(merged, best.section - 1, kAt, true).rows;
       warnings.push(
         `The duty cycle has ${merged.length} periods: every section's total is listed, but the period rows of the governing section S${best.section} only.`,
       );
@@ -929,46 +929,61 @@ export function sizeBank(input: SizingInput): SizingOutcome {
 
 /**
  * The worksheet sections S = 1…n: F_S = Σ_{P≤S} (A_P − A_{P−1})·K_t(t_P), t_P = Σ_{j=P..S} M_j.
- * O(n²) rows in all; each row is kept so the user can check it.
+ * O(n²) rows in all; with `keepRows` each row is kept so the user can check it.
  */
 export function worksheetSections(
   periods: readonly CurrentPeriod[],
   kAt: (timeS: number) => number,
   keepRows = true,
 ): WorksheetSection[] {
+  // K_t depends on the time only; a profile of equal steps repeats the same times in every section.
+  const memo = new Map<number, number>();
+  const k = (t: number) => {
+    let v = memo.get(t);
+    if (v === undefined) {
+      v = kAt(t);
+      memo.set(t, v);
+    }
+    return v;
+  };
   const sections: WorksheetSection[] = [];
-  for (let s = 0; s < periods.length; s++) {
-    const rows: WorksheetRow[] = [];
-    // Time to the end of section s from the start of period p, accumulated backwards.
-    const times: number[] = new Array<number>(s + 1);
-    let acc = 0;
-    for (let p = s; p >= 0; p--) {
-      acc += periods[p]!.duration;
-      times[p] = acc;
-    }
-    let positive = 0;
-    let negative = 0;
-    for (let p = 0; p <= s; p++) {
-      const current = periods[p]!.current;
-      const change = current - (p > 0 ? periods[p - 1]!.current : 0);
-      const timeToEnd = times[p]!;
-      const capacityFactor = kAt(timeToEnd);
-      const size = change * capacityFactor;
-      if (size >= 0) positive += size;
-      else negative += size;
-      if (keepRows) rows.push({ period: p + 1, current, change, duration: periods[p]!.duration, timeToEnd, capacityFactor, size });
-    }
-    const next = periods[s + 1];
-    sections.push({
-      section: s + 1,
-      rows,
-      positive,
-      negative,
-      total: positive + negative,
-      needed: next === undefined || next.current <= periods[s]!.current,
-    });
-  }
+  for (let s = 0; s < periods.length; s++) sections.push(worksheetSection(periods, s, k, keepRows));
   return sections;
+}
+
+/** Section s + 1 of the worksheet (periods 1…s + 1). */
+export function worksheetSection(
+  periods: readonly CurrentPeriod[],
+  s: number,
+  kAt: (timeS: number) => number,
+  keepRows: boolean,
+): WorksheetSection {
+  const rows: WorksheetRow[] = [];
+  let positive = 0;
+  let negative = 0;
+  // Time from the start of period p to the end of the section, accumulated backwards from s.
+  let timeToEnd = 0;
+  for (let p = s; p >= 0; p--) {
+    const duration = periods[p]!.duration;
+    timeToEnd += duration;
+    const current = periods[p]!.current;
+    const change = current - (p > 0 ? periods[p - 1]!.current : 0);
+    const capacityFactor = kAt(timeToEnd);
+    const size = change * capacityFactor;
+    if (size >= 0) positive += size;
+    else negative += size;
+    if (keepRows) rows.push({ period: p + 1, current, change, duration, timeToEnd, capacityFactor, size });
+  }
+  rows.reverse();
+  const next = periods[s + 1];
+  return {
+    section: s + 1,
+    rows,
+    positive,
+    negative,
+    total: positive + negative,
+    needed: next === undefined || next.current <= periods[s]!.current,
+  };
 }
 
 /**
