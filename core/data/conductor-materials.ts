@@ -52,6 +52,8 @@ export interface ConductorMaterialRow {
   readonly inferredZeroC: number;
   readonly inferredZeroProvenance: Provenance;
   readonly source: string;
+  /** What to watch for when using the row. */
+  readonly note: string;
 }
 
 export const CONDUCTOR_MATERIALS: readonly ConductorMaterialRow[] = [
@@ -68,6 +70,7 @@ export const CONDUCTOR_MATERIALS: readonly ConductorMaterialRow[] = [
     inferredZeroC: -234.5,
     inferredZeroProvenance: 'from memory',
     source: 'IEC 60028:1925 (resistivity); Agrawal, Industrial Power Engineering and Applications Handbook, p. 970 (α₂₀)',
+    note: 'α₂₀/(1 + 55·α₂₀) = 0.00323 /K, the NEC Chapter 9 Table 8 Note 2 coefficient referred to 75 °C.',
   },
   {
     material: 'Al',
@@ -82,6 +85,9 @@ export const CONDUCTOR_MATERIALS: readonly ConductorMaterialRow[] = [
     inferredZeroC: -228.1,
     inferredZeroProvenance: 'from memory',
     source: 'Agrawal, Industrial Power Engineering and Applications Handbook, p. 970',
+    note:
+      'The handbook gives both 61 % IACS and 34.8 m/(Ω·mm²); 34.8/58 is 60.0 % IACS, and 61 % of 58 would be ' +
+      '35.4 m/(Ω·mm²) (ρ₂₀ = 0.028264 Ω·mm²/m, the IEC 60889 figure). The printed 34.8 is kept; the two differ by 1.7 %.',
   },
 ];
 
