@@ -1,0 +1,5 @@
+/** Conductor sizing: re-exports only (contract in README.md here). */
+export { defaultCatalogue, findSize, type ConductorCatalogue, type NecTables, type IecTables, type SizeEntry, type Material } from './catalogue.ts';
+export { prepareConductor, type Candidate, type PreparedConductor } from './prepare.ts';
+export { CAUTION as CONDUCTOR_CAUTION, approximateDrop, chooseDevice, choose, evaluate, resistanceAt, temperatureAt, linkImpedance } from './size.ts';
+export { pathDrops, resolveLimits, linkLimit, dropLimitsSchema, type ResolvedLimits } from './path-drop.ts';
