@@ -93,3 +93,29 @@ describe('IEC 60228 temperature correction basis', () => {
     }
   });
 });
+
+describe('IEC 60228:2004 class 2, every cell as printed', () => {
+  // IEC 60228:2004 class 2: mm², plain Cu, tinned Cu, Al ('-' = none) in Ω/km at 20 °C.
+  const PRINTED = `
+    1.5  12.1   12.2   -
+    2.5  7.41   7.56   -
+    4    4.61   4.70   -
+    6    3.08   3.11   -
+    10   1.83   1.84   3.08
+    16   1.15   1.16   1.91
+    25   0.727  0.734  1.20
+    35   0.524  0.529  0.868
+    50   0.387  0.391  0.641
+    70   0.268  0.270  0.443
+    95   0.193  0.195  0.320
+    120  0.153  0.154  0.253
+    150  0.124  0.126  0.206
+    185  0.0991 0.100  0.164
+    240  0.0754 0.0762 0.125`;
+  const rows = PRINTED.trim().split('\n').map((line) => line.trim().split(/\s+/).map((s) => (s === '-' ? null : Number(s))));
+
+  it.each(rows.map((cells) => [cells[0]!, cells.slice(1)] as const))('%d mm²', (size, cells) => {
+    const r = row(size);
+    expect([r.cuPlain, r.cuCoated, r.al]).toEqual(cells);
+  });
+});

@@ -277,3 +277,54 @@ describe('Annex G voltage drop: Table G.52.1 limits and formula constants', () =
     expect(ratio).toBeLessThan(1.05);
   });
 });
+
+describe('IEC 60364-5-52:2009 Annex B, every carried cell as printed', () => {
+  // Columns as printed: B1 2L, B1 3L, B2 2L, B2 3L, C 2L, C 3L, E 2L, E 3L (A), copper.
+  // PVC: Tables B.52.2 / B.52.4 (B1, B2, C) and B.52.10 (E); XLPE: B.52.3 / B.52.5 and B.52.12.
+  // Provenance per cell as in the data file (B1 confirmed via BS 7671 4D1A/4E1A; others see header).
+  const COLUMNS = [['B1', 2], ['B1', 3], ['B2', 2], ['B2', 3], ['C', 2], ['C', 3], ['E', 2], ['E', 3]] as const;
+  const PRINTED: Record<IecInsulation, string> = {
+    PVC: `
+      1.5  17.5 15.5 16.5  15 19.5 17.5  22 18.5
+      2.5    24   21   23  20   27   24  30   25
+      4      32   28   30  27   36   32  40   34
+      6      41   36   38  34   46   41  51   43
+      10     57   50   52  46   63   57  70   60
+      16     76   68   69  62   85   76  94   80
+      25    101   89   90  80  112   96 119  101
+      35    125  110  111  99  138  119 148  126
+      50    151  134  133 118  168  144 180  153
+      70    192  171  168 149  213  184 232  196
+      95    232  207  201 179  258  223 282  238
+      120   269  239  232 206  299  259 328  276
+      150   300  262  258 225  344  299 379  319
+      185   341  296  294 255  392  341 434  364
+      240   400  346  344 297  461  403 514  430`,
+    XLPE: `
+      1.5    23   20   22 19.5  24   22  26   23
+      2.5    31   28   30   26  33   30  36   32
+      4      42   37   40   35  45   40  49   42
+      6      54   48   51   44  58   52  63   54
+      10     75   66   69   60  80   71  86   75
+      16    100   88   91   80 107   96 115  100
+      25    133  117  119  105 138  119 149  127
+      35    164  144  146  128 171  147 185  158
+      50    198  175  175  154 209  179 225  192
+      70    253  222  221  194 269  229 289  246
+      95    306  269  265  233 328  278 352  298
+      120   354  312  305  268 382  322 410  346
+      150   393  342  334  300 441  371 473  399
+      185   449  384  384  340 506  424 542  456
+      240   528  450  459  398 599  500 641  538`,
+  };
+  const cases = INSULATIONS.flatMap((ins) =>
+    PRINTED[ins].trim().split('\n').map((line) => {
+      const [size, ...amps] = line.trim().split(/\s+/).map(Number);
+      return [ins, size!, amps] as const;
+    }),
+  );
+
+  it.each(cases)('%s %d mm²', (ins, size, amps) => {
+    expect(COLUMNS.map(([m, n]) => cell(ins, m, n, size).amps)).toEqual(amps);
+  });
+});

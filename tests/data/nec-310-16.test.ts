@@ -142,3 +142,33 @@ describe('NEC 240.4(D) small-conductor limits (from memory until checked)', () =
     }
   });
 });
+
+describe('NEC 2023 Table 310.16, every cell as printed', () => {
+  // NEC 2023 Table 310.16, rows as printed: size, Cu 60/75/90 °C, Al/CCA 60/75/90 °C ('-' = empty cell).
+  const PRINTED = `
+    14 AWG     15  20  25   -   -   -
+    12 AWG     20  25  30  15  20  25
+    10 AWG     30  35  40  25  30  35
+    8 AWG      40  50  55  35  40  45
+    6 AWG      55  65  75  40  50  55
+    4 AWG      70  85  95  55  65  75
+    3 AWG      85 100 115  65  75  85
+    2 AWG      95 115 130  75  90 100
+    1 AWG     110 130 145  85 100 115
+    1/0 AWG   125 150 170 100 120 135
+    2/0 AWG   145 175 195 115 135 150
+    3/0 AWG   165 200 225 130 155 175
+    4/0 AWG   195 230 260 150 180 205
+    250 kcmil 215 255 290 170 205 230
+    300 kcmil 240 285 320 195 230 260
+    350 kcmil 260 310 350 210 250 280
+    400 kcmil 280 335 380 225 270 305
+    500 kcmil 320 380 430 260 310 350`;
+  const rows = PRINTED.trim().split('\n').map((line) => line.trim().split(/\s+/));
+
+  it.each(rows.map((cells) => [`${cells[0]} ${cells[1]}`, cells.slice(2)] as const))('%s', (size, cells) => {
+    const r = row(size as NecSize);
+    const value = (s: string) => (s === '-' ? null : Number(s));
+    expect([r.cu[60], r.cu[75], r.cu[90], r.al[60], r.al[75], r.al[90]]).toEqual(cells.map(value));
+  });
+});

@@ -243,3 +243,71 @@ describe('Table 9 structure and cross-checks', () => {
     expect(checked).toBe(36);
   });
 });
+
+describe('NEC Chapter 9 Tables 8 and 9, every carried cell as printed', () => {
+  // NEC 2023 Ch. 9 Table 8: size, area cmil (from memory), Cu stranded, Cu solid, Al stranded, Al solid ('-' = none).
+  const TABLE8 = `
+    14 AWG     4110   3.14   3.07  5.17   5.06
+    12 AWG     6530   1.98   1.93  3.25   3.18
+    10 AWG     10380  1.24   1.21  2.04   2.00
+    8 AWG      16510  0.778  0.764 1.28   1.26
+    6 AWG      26240  0.491  -     0.808  -
+    4 AWG      41740  0.308  -     0.508  -
+    3 AWG      52620  0.245  -     0.403  -
+    2 AWG      66360  0.194  -     0.319  -
+    1 AWG      83690  0.154  -     0.253  -
+    1/0 AWG    105600 0.122  -     0.201  -
+    2/0 AWG    133100 0.0967 -     0.159  -
+    3/0 AWG    167800 0.0766 -     0.126  -
+    4/0 AWG    211600 0.0608 -     0.100  -
+    250 kcmil  250000 0.0515 -     0.0847 -
+    300 kcmil  300000 0.0429 -     0.0707 -
+    350 kcmil  350000 0.0367 -     0.0605 -
+    400 kcmil  400000 0.0321 -     0.0529 -
+    500 kcmil  500000 0.0258 -     0.0424 -`;
+  // NEC Ch. 9 Table 9 (NFPA 70-2008 copy and a cable maker's transcription): size, XL PVC/Al, XL steel,
+  // R Cu PVC, R Cu steel, Ze Cu 0.85 PF PVC, Ze Cu 0.85 PF steel, R Al PVC ('-' = none printed).
+  const TABLE9 = `
+    14 AWG    0.058 0.073 3.1   3.1   2.7   2.7   -
+    12 AWG    0.054 0.068 2.0   2.0   1.7   1.7   3.2
+    10 AWG    0.050 0.063 1.2   1.2   1.1   1.1   2.0
+    8 AWG     0.052 0.065 0.78  0.78  0.69  0.70  1.3
+    6 AWG     0.051 0.064 0.49  0.49  0.44  0.45  0.81
+    4 AWG     0.048 0.060 0.31  0.31  0.29  0.30  0.51
+    3 AWG     0.047 0.059 0.25  0.25  0.23  0.24  0.40
+    2 AWG     0.045 0.057 0.19  0.20  0.19  0.20  0.32
+    1 AWG     0.046 0.057 0.15  0.16  0.16  0.16  0.25
+    1/0 AWG   0.044 0.055 0.12  0.12  0.13  0.13  0.20
+    2/0 AWG   0.043 0.054 0.10  0.10  0.11  0.11  0.16
+    3/0 AWG   0.042 0.052 0.077 0.079 0.088 0.094 0.13
+    4/0 AWG   0.041 0.051 0.062 0.063 0.074 0.080 0.10
+    250 kcmil 0.041 0.052 0.052 0.054 0.066 0.073 0.085
+    300 kcmil 0.041 0.051 0.044 0.045 0.059 0.065 0.071
+    350 kcmil 0.040 0.050 0.038 0.039 0.053 0.060 0.061
+    400 kcmil 0.040 0.049 0.033 0.035 0.049 0.056 0.054
+    500 kcmil 0.039 0.048 0.027 0.029 0.043 0.050 0.043`;
+  const parse = (text: string) =>
+    text.trim().split('\n').map((line) => {
+      const cells = line.trim().split(/\s+/);
+      return [`${cells[0]} ${cells[1]}`, cells.slice(2).map((s) => (s === '-' ? null : Number(s)))] as const;
+    });
+
+  it.each(parse(TABLE8))('Table 8 %s', (size, cells) => {
+    const r = t8(size as NecSize);
+    expect([r.areaCmil, r.cu.stranded, r.cu.solid, r.al.stranded, r.al.solid]).toEqual(cells);
+  });
+
+  it.each(parse(TABLE9))('Table 9 %s', (size, cells) => {
+    const r = t9(size as NecSize);
+    expect([r.xl.pvc, r.xl.steel, r.rCu.pvc, r.rCu.steel, r.zeCu085.pvc, r.zeCu085.steel, r.rAl.pvc]).toEqual(cells);
+  });
+
+  it('copper in aluminum conduit and aluminum in steel conduit: the carried cells (NEC Ch. 9 Table 9, cable maker\'s transcription)', () => {
+    const cuAlConduit = NEC_CHAPTER9_TABLE9.filter((r) => r.rCu.aluminum !== undefined).map((r) => [r.size, r.rCu.aluminum]);
+    expect(cuAlConduit).toEqual([
+      ['14 AWG', 3.1], ['2 AWG', 0.2], ['1 AWG', 0.16], ['1/0 AWG', 0.13], ['3/0 AWG', 0.082], ['4/0 AWG', 0.067], ['250 kcmil', 0.057], ['500 kcmil', 0.032],
+    ]);
+    const alSteel = NEC_CHAPTER9_TABLE9.filter((r) => typeof r.rAl.steel === 'number').map((r) => [r.size, r.rAl.steel]);
+    expect(alSteel).toEqual([['250 kcmil', 0.086], ['500 kcmil', 0.045]]);
+  });
+});
