@@ -1,12 +1,57 @@
 /**
  * Battery bank as the chain's DC source: open-circuit voltage behind an internal resistance
  * (Thévenin model). A constant-power chain draws more current as the terminal voltage sags; the
- * internal I²R is the bank's own loss. State of charge and runtime belong to core/battery/.
+ * internal I²R is the bank's own loss. With a `bank` spec the open-circuit voltage is the
+ * chemistry's OCV at the initial state of charge × cells in series and the resistance is scaled
+ * from the preset (core/battery/bank.ts). State of charge over time belongs to core/battery/.
  */
 import { z } from 'zod';
-import type { BatterySource } from '../model.ts';
+import type { BatteryBankSpec, BatterySource } from '../model.ts';
 import { c } from '../ac/complex.ts';
-import { defineKind, idField, nameField, nonNegative, positive, seriesLink } from './spec.ts';
+import { CHEMISTRIES } from '../data/battery-chemistries.ts';
+import { checkBank, resolveBank } from '../battery/bank.ts';
+import { defineKind, idField, nameField, nonNegative, positive } from './spec.ts';
+import { seriesLink } from './spec.ts';
+
+const num = () => z.number({ error: 'must be a number' });
+const fraction = (what: string) => num().gt(0, `${what} must be greater than 0`).lte(1, `${what} must not exceed 1 (enter 0.9 for 90 %)`);
+const wholeAtLeastOne = z.number({ error: 'must be a number' }).int('must be a whole number').gte(1, 'must be at least 1');
+
+const overridesSchema = z.strictObject({
+  nominalCellVoltage: positive('V'),
+  ocvCurve: z
+    .array(z.strictObject({ soc: num().gte(0, 'must be 0 or more').lte(1, 'must not exceed 1'), voltage: positive('V') }), {
+      error: 'must be a list of {soc, voltage} points',
+    })
+    .min(2, 'needs at least two points'),
+  endOfDischargeCellVoltage: positive('V'),
+  peukertExponent: num().gte(1, 'must be at least 1 (1 = no rate effect)').lte(2, 'must not exceed 2 (published exponents are 1.0–1.6)'),
+  usableDepthOfDischarge: fraction('depth of discharge'),
+  internalResistanceOhmAh: nonNegative('Ω·Ah'),
+  capacityVsTemperature: z
+    .array(z.strictObject({ temperatureC: num(), capacityFactor: positive('') }), { error: 'must be a list of {temperatureC, capacityFactor} points' })
+    .min(1, 'needs at least one point'),
+  roundTripEfficiency: fraction('efficiency'),
+  ratedHours: positive('h'),
+  chargeCellVoltage: positive('V'),
+  floatCellVoltage: positive('V'),
+  maxChargeCRate: positive('per hour'),
+  maxDischargeCRate: positive('per hour'),
+  minChargeTemperatureC: num(),
+}).partial();
+
+export const bankSchema = z.strictObject({
+  chemistry: z.enum(CHEMISTRIES as [string, ...string[]], { error: `must be one of ${CHEMISTRIES.join(', ')}` }),
+  series: wholeAtLeastOne,
+  strings: wholeAtLeastOne.optional(),
+  cellsPerBlock: wholeAtLeastOne.optional(),
+  capacityAh: positive('Ah'),
+  initialSoc: fraction('state of charge').optional(),
+  overrides: overridesSchema.optional(),
+});
+
+/** Agreement asked between a `voltage` given beside a `bank` and the bank's own open-circuit voltage. */
+const VOLTAGE_AGREEMENT = 0.01;
 
 export const batteryKind = defineKind<BatterySource>({
   kind: 'battery',
@@ -16,17 +61,48 @@ export const batteryKind = defineKind<BatterySource>({
     id: idField,
     name: nameField,
     kind: z.literal('battery'),
-    voltage: positive('V'),
+    voltage: positive('V').optional(),
     internalResistance: nonNegative('Ω').optional(),
+    bank: bankSchema.optional(),
   }) as z.ZodType<BatterySource>,
+  check(e) {
+    if (!e.bank) {
+      return e.voltage === undefined
+        ? [{ code: 'invalid-value', field: 'voltage', message: 'is required (or give a `bank` with chemistry, series and capacity)' }]
+        : [];
+    }
+    const problems = checkBank(e.bank);
+    if (problems.length === 0 && e.voltage !== undefined) {
+      const ocv = resolveBank(e.bank).initialOcv;
+      if (Math.abs(e.voltage - ocv) > VOLTAGE_AGREEMENT * ocv) {
+        problems.push({
+          code: 'invalid-value',
+          field: 'voltage',
+          value: e.voltage,
+          message: `conflicts with the bank: its open-circuit voltage at the initial state of charge is ${ocv.toFixed(2)} V; leave "voltage" out when a "bank" is given`,
+        });
+      }
+    }
+    return problems;
+  },
   build(e) {
-    const emf = c(e.voltage);
-    const link = seriesLink(c(e.internalResistance ?? 0), 'dc');
+    const { emf, resistance } = batteryEquivalent(e);
+    const link = seriesLink(c(resistance), 'dc');
+    const source = c(emf);
     return {
       out: { kind: 'dc' },
-      outputVoltage: (_vIn, sOut) => link.outputVoltage(emf, sOut),
+      outputVoltage: (_vIn, sOut) => link.outputVoltage(source, sOut),
       inputPower: (sOut, _vIn, vOut) => link.inputPower(sOut, vOut),
       report: () => ({ warnings: [] }),
     };
   },
 });
+
+/** Open-circuit voltage and internal resistance the static solve uses (bank at its initial state of charge). */
+export function batteryEquivalent(e: BatterySource): { emf: number; resistance: number } {
+  if (e.bank) {
+    const bank = resolveBank(e.bank as BatteryBankSpec, e.internalResistance);
+    return { emf: bank.initialOcv, resistance: bank.internalResistance };
+  }
+  return { emf: e.voltage!, resistance: e.internalResistance ?? 0 };
+}

@@ -1,0 +1,320 @@
+/**
+ * Repeated solves of one planned chain whose battery source changes (open-circuit voltage and
+ * internal resistance) while its loads take a few distinct states — the inner loop of the
+ * discharge simulation in core/battery/discharge.ts.
+ *
+ * Method (exact, not an approximation): a regulating converter's input power depends only on its
+ * output power (P_in = P_out + loss(P_out), with the input power factor fixed), and a constant-power
+ * load's on nothing, so neither depends on the bank voltage. For each distinct load state the
+ * whole chain is swept once (core/solve/sweep.ts); the input power of every "frontier" element —
+ * the converters and loads nearest the bank — is then held. Each step re-solves only the passive
+ * elements between the bank and that frontier (cables and DC buses) by the same backward/forward
+ * fixed-point sweep, with the same tolerance, warm-started from the previous step's voltages.
+ * Where an element of another kind sits between the bank and the frontier, the whole chain is
+ * swept at every step instead (slower, same answer).
+ */
+import { type Complex, c } from '../ac/complex.ts';
+import { receivingVoltage } from '../ac/two-bus.ts';
+import type { Element, Project } from '../model.ts';
+import type { Problem } from '../errors.ts';
+import type { ElementModel } from '../stages/index.ts';
+import { plan, type PlannedElement } from './plan.ts';
+import { MAX_SWEEPS, TOLERANCE, sweep } from './sweep.ts';
+
+/** Kinds whose input power depends on their input voltage and that pass DC on (re-solved per step). */
+const PASSIVE = new Set<Element['kind']>(['cable', 'dcbus']);
+/** Kinds whose input power depends on their output power only. */
+const REGULATING = new Set<Element['kind']>(['dcdc', 'inverter', 'generic', 'rectifier', 'drive']);
+
+/** Operating point of one step, at the bank. */
+export interface StepPoint {
+  /** Terminal voltage, V. */
+  voltage: number;
+  /** Bank current, A. */
+  current: number;
+  /** Power out of the terminals, W. */
+  terminalPower: number;
+  /** Internal I²R of the bank, W. */
+  internalLoss: number;
+  /** Σ losses of every stage of the chain (passive elements and converters), W. */
+  chainLoss: number;
+  /** Σ load power, W. */
+  loadPower: number;
+}
+
+/** One load state prepared for repeated solves. */
+interface PreparedState {
+  /** Fixed power drawn by frontier children of each top node (index as in `top`), W. */
+  fixed: Float64Array;
+  /** Σ losses of the elements below the frontier (converters and what they feed), W. */
+  belowLoss: number;
+  loadPower: number;
+  /** Models of the loads in this state (for the whole-chain fallback). */
+  order: PlannedElement[];
+}
+
+export interface RepeatSolver {
+  /** Ids of the loads, in the order load values are given to `prepare`. */
+  readonly loadIds: readonly string[];
+  /** True when each step re-solves only the passive elements next to the bank. */
+  readonly fast: boolean;
+  /** Sweep the chain once for a load state (values in `loadIds` order: W, VA for apparent-power loads). */
+  prepare(values: readonly number[]): { ok: true; state: number } | { ok: false; problems: Problem[] };
+  /** Operating point with the bank at open-circuit voltage `emf` behind `resistance`; null when the chain cannot be carried. */
+  solve(state: number, emf: number, resistance: number): StepPoint | null;
+}
+
+const LOAD_FIELD: Partial<Record<Element['kind'], 'power' | 'apparentPower'>> = {
+  'dc-load': 'power',
+  'ac-load': 'power',
+  'shaft-load': 'power',
+  'ac-va-load': 'apparentPower',
+};
+
+/** Plan a validated battery-fed project once for repeated solves. */
+export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolver } | { ok: false; problems: Problem[] } {
+  const planned = plan(project);
+  if (!planned.ok) return planned;
+  const order = planned.order;
+  const loadIdx: number[] = [];
+  order.forEach((n, i) => {
+    if (n.spec.role === 'load') loadIdx.push(i);
+  });
+  // The top: the source and the passive elements reachable from it through passive elements only.
+  const inTop = new Array<boolean>(order.length).fill(false);
+  inTop[0] = true;
+  let fast = true;
+  for (let i = 1; i < order.length; i++) {
+    const node = order[i]!;
+    if (!inTop[node.parent]) continue;
+    const kind = node.element.kind;
+    if (PASSIVE.has(kind)) inTop[i] = true;
+    else if (!(REGULATING.has(kind) || node.spec.role === 'load')) fast = false;
+  }
+  const top: number[] = [];
+  const topPos = new Map<number, number>();
+  order.forEach((_, i) => {
+    if (inTop[i]) {
+      topPos.set(i, top.length);
+      top.push(i);
+    }
+  });
+  const topParent = top.map((i) => (i === 0 ? -1 : topPos.get(order[i]!.parent)!));
+  const topModels: ElementModel[] = top.map((i) => order[i]!.model);
+  const nTop = top.length;
+  // DC equivalents of the top elements, each checked against the element's own model.
+  const dc = top.map((i, j) => (j === 0 ? null : dcEquivalent(order[i]!.element, topModels[j]!)));
+  const realArithmetic = dc.every((d, j) => j === 0 || d !== null);
+  const topR = new Float64Array(nTop);
+  const topFixedLoss = new Float64Array(nTop);
+  dc.forEach((d, j) => {
+    if (d) {
+      topR[j] = d.resistance;
+      topFixedLoss[j] = d.fixedLoss;
+    }
+  });
+
+  const states: PreparedState[] = [];
+  // Warm start of the top voltages (the previous step's solution).
+  const v = new Float64Array(nTop);
+  const sIn = new Float64Array(nTop);
+  const sOut = new Float64Array(nTop);
+  let warm = false;
+
+  const prepare: RepeatSolver['prepare'] = (values) => {
+    const stateOrder = order.map((n) => ({ ...n }));
+    loadIdx.forEach((i, k) => {
+      const node = stateOrder[i]!;
+      const field = LOAD_FIELD[node.element.kind]!;
+      const element = { ...node.element, [field]: values[k]! } as Element;
+      node.element = element;
+      node.model = node.spec.build(element, node.input);
+    });
+    const swept = sweep(stateOrder);
+    if (!swept.ok) return swept;
+    const { sIn: pin, sOut: pout } = swept.point;
+    const fixed = new Float64Array(nTop);
+    let belowLoss = 0;
+    let loadPower = 0;
+    for (let i = 1; i < order.length; i++) {
+      const node = order[i]!;
+      if (node.spec.role === 'load') loadPower += pin[i]!.re;
+      if (inTop[i]) continue;
+      if (node.spec.role !== 'load') belowLoss += pin[i]!.re - pout[i]!.re;
+      if (inTop[node.parent]) fixed[topPos.get(node.parent)!]! += pin[i]!.re;
+    }
+    states.push({ fixed, belowLoss, loadPower, order: stateOrder });
+    return { ok: true, state: states.length - 1 };
+  };
+
+  /** Sweep of the top only, DC: real voltages and powers. */
+  const solveTop = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+    const source = c(emf);
+    const rz = c(resistance);
+    if (!warm) v.fill(emf);
+    const vc = (x: number): Complex => c(x);
+    const backward = () => {
+      for (let j = nTop - 1; j >= 0; j--) sOut[j] = st.fixed[j]!;
+      for (let j = nTop - 1; j >= 1; j--) {
+        sIn[j] = topModels[j]!.inputPower(c(sOut[j]!), vc(v[topParent[j]!]!), vc(v[j]!)).re;
+        sOut[topParent[j]!]! += sIn[j]!;
+      }
+    };
+    for (let iter = 1; iter <= MAX_SWEEPS; iter++) {
+      backward();
+      let residual = 0;
+      const v0 = receivingVoltage(source, rz, c(sOut[0]!));
+      if (v0 === null) return null;
+      residual = Math.abs(v0.re - v[0]!) / v0.re;
+      v[0] = v0.re;
+      for (let j = 1; j < nTop; j++) {
+        const out = topModels[j]!.outputVoltage(vc(v[topParent[j]!]!), c(sOut[j]!));
+        if (out === null) return null;
+        residual = Math.max(residual, Math.abs(out.re - v[j]!) / Math.abs(out.re));
+        v[j] = out.re;
+      }
+      if (residual <= TOLERANCE) {
+        backward();
+        warm = true;
+        const terminalPower = sOut[0]!;
+        const current = terminalPower / v[0]!;
+        let passiveLoss = 0;
+        for (let j = 1; j < nTop; j++) passiveLoss += sIn[j]! - sOut[j]!;
+        return {
+          voltage: v[0]!,
+          current,
+          terminalPower,
+          internalLoss: resistance * current * current,
+          chainLoss: passiveLoss + st.belowLoss,
+          loadPower: st.loadPower,
+        };
+      }
+    }
+    return null;
+  };
+
+  /**
+   * The same sweep in real arithmetic, for a top made of DC links (R) and buses (fixed loss):
+   * receiving voltage of a DC link, exact: V_r = (V_s + √(V_s² − 4·R·P_r))/2 (the two-bus solution
+   * with X = 0), input power P_r + R·(P_r/V_r)²; a bus passes its voltage and adds its loss.
+   */
+  const solveTopReal = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+    if (!warm) v.fill(emf);
+    const fixed = st.fixed;
+    for (let iter = 1; iter <= MAX_SWEEPS; iter++) {
+      // Backward: powers at the present voltages.
+      for (let j = 0; j < nTop; j++) sOut[j] = fixed[j]!;
+      for (let j = nTop - 1; j >= 1; j--) {
+        const i = sOut[j]! / v[j]!;
+        sIn[j] = sOut[j]! + topR[j]! * i * i + topFixedLoss[j]!;
+        sOut[topParent[j]!]! += sIn[j]!;
+      }
+      // Forward: voltages at the present powers.
+      let disc = emf * emf - 4 * resistance * sOut[0]!;
+      if (disc < 0) return null;
+      let next = (emf + Math.sqrt(disc)) / 2;
+      let residual = Math.abs(next - v[0]!) / next;
+      v[0] = next;
+      for (let j = 1; j < nTop; j++) {
+        const vs = v[topParent[j]!]!;
+        const r = topR[j]!;
+        if (r === 0) next = vs;
+        else {
+          disc = vs * vs - 4 * r * sOut[j]!;
+          if (disc < 0) return null;
+          next = (vs + Math.sqrt(disc)) / 2;
+        }
+        const change = Math.abs(next - v[j]!) / next;
+        if (change > residual) residual = change;
+        v[j] = next;
+      }
+      if (residual <= TOLERANCE) {
+        for (let j = 0; j < nTop; j++) sOut[j] = fixed[j]!;
+        let passiveLoss = 0;
+        for (let j = nTop - 1; j >= 1; j--) {
+          const i = sOut[j]! / v[j]!;
+          const loss = topR[j]! * i * i + topFixedLoss[j]!;
+          sIn[j] = sOut[j]! + loss;
+          passiveLoss += loss;
+          sOut[topParent[j]!]! += sIn[j]!;
+        }
+        warm = true;
+        const terminalPower = sOut[0]!;
+        const current = terminalPower / v[0]!;
+        return {
+          voltage: v[0]!,
+          current,
+          terminalPower,
+          internalLoss: resistance * current * current,
+          chainLoss: passiveLoss + st.belowLoss,
+          loadPower: st.loadPower,
+        };
+      }
+    }
+    return null;
+  };
+
+  /** Whole-chain sweep with the bank's present state (the fallback). */
+  const solveWhole = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+    const src = order[0]!;
+    const element = { ...src.element, voltage: emf, internalResistance: resistance } as Element;
+    delete (element as { bank?: unknown }).bank;
+    const stepOrder = st.order.slice();
+    stepOrder[0] = { ...src, element, model: src.spec.build(element, null) };
+    const swept = sweep(stepOrder);
+    if (!swept.ok) return null;
+    const { sIn: pin, sOut: pout, vOut } = swept.point;
+    let chainLoss = 0;
+    let loadPower = 0;
+    for (let i = 1; i < order.length; i++) {
+      if (order[i]!.spec.role === 'load') loadPower += pin[i]!.re;
+      else chainLoss += pin[i]!.re - pout[i]!.re;
+    }
+    const terminalPower = pout[0]!.re;
+    const current = terminalPower / vOut[0]!.re;
+    return { voltage: vOut[0]!.re, current, terminalPower, internalLoss: resistance * current * current, chainLoss, loadPower };
+  };
+
+  return {
+    ok: true,
+    solver: {
+      loadIds: loadIdx.map((i) => order[i]!.element.id),
+      fast,
+      prepare,
+      solve: (state, emf, resistance) => (fast ? (realArithmetic ? solveTopReal : solveTop) : solveWhole)(states[state]!, emf, resistance),
+    },
+  };
+}
+
+/** Relative agreement asked of a DC equivalent against the element's own model. */
+const PROBE_TOLERANCE = 1e-12;
+
+/**
+ * The DC equivalent of a passive element — a loop resistance (cable: resistance per km × 2 × length
+ * ÷ parallel sets) or a fixed loss (bus) — when its model behaves exactly so at two probe points;
+ * null otherwise (then the element's model is used as it is).
+ */
+function dcEquivalent(e: Element, model: ElementModel): { resistance: number; fixedLoss: number } | null {
+  let resistance = 0;
+  let fixedLoss = 0;
+  if (e.kind === 'cable') {
+    if (e.resistancePerKm === undefined || e.conductor) return null;
+    resistance = (e.resistancePerKm * 2 * e.length) / 1000 / (e.parallelSets ?? 1);
+  } else if (e.kind === 'dcbus') {
+    fixedLoss = e.fixedLoss;
+  } else {
+    return null;
+  }
+  const close = (a: number, b: number) => Math.abs(a - b) <= PROBE_TOLERANCE * Math.max(Math.abs(a), Math.abs(b), 1);
+  for (const [vs, p] of [
+    [50, 400],
+    [400, 2500],
+  ] as const) {
+    const vr = resistance === 0 ? vs : (vs + Math.sqrt(vs * vs - 4 * resistance * p)) / 2;
+    const out = model.outputVoltage(c(vs), c(p));
+    if (out === null || !close(out.re, vr) || out.im !== 0) return null;
+    const pin = model.inputPower(c(p), c(vs), c(vr));
+    if (!close(pin.re, p + resistance * (p / vr) ** 2 + fixedLoss)) return null;
+  }
+  return { resistance, fixedLoss };
+}
