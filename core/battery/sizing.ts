@@ -947,7 +947,39 @@ export function worksheetSections(
     return v;
   };
   const sections: WorksheetSection[] = [];
-  for (let s = 0; s < periods.length; s++) sections.push(worksheetSection(periods, s, k, keepRows));
+  const n = periods.length;
+  const d0 = n > 0 ? periods[0]!.duration : 0;
+  if (!keepRows && periods.every((p) => p.duration === d0)) {
+    // Equal steps (a sampled profile): the time to the end depends on the number of periods only,
+    // and accumulates with the same additions as in worksheetSection, so the totals are identical.
+    const kByCount = new Float64Array(n + 1);
+    let acc = 0;
+    for (let m = 1; m <= n; m++) {
+      acc += d0;
+      kByCount[m] = kAt(acc);
+    }
+    const change = periods.map((p, i) => p.current - (i > 0 ? periods[i - 1]!.current : 0));
+    for (let s = 0; s < n; s++) {
+      let positive = 0;
+      let negative = 0;
+      for (let p = s; p >= 0; p--) {
+        const size = change[p]! * kByCount[s - p + 1]!;
+        if (size >= 0) positive += size;
+        else negative += size;
+      }
+      const next = periods[s + 1];
+      sections.push({
+        section: s + 1,
+        rows: [],
+        positive,
+        negative,
+        total: positive + negative,
+        needed: next === undefined || next.current <= periods[s]!.current,
+      });
+    }
+    return sections;
+  }
+  for (let s = 0; s < n; s++) sections.push(worksheetSection(periods, s, k, keepRows));
   return sections;
 }
 

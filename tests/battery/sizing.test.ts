@@ -12,6 +12,7 @@ import {
   peukertCapacityFactor,
   sizeBank,
   tableCapacityFactor,
+  worksheetSections,
   type BankSizing,
   type SizingInput,
 } from '../../core/battery/sizing.ts';
@@ -443,5 +444,18 @@ describe('bad input gets a problem naming the field, and nothing is computed', (
   it('no result ever holds Infinity or NaN (checked over the cases above that solve)', () => {
     const s = sized({ ...good, ratings: [50, 100, 200] });
     expect(JSON.stringify(s)).not.toMatch(/null|Infinity|NaN/);
+  });
+});
+
+describe('worksheet sections of a sampled profile', () => {
+  it('equal steps give the same section totals as the row-by-row worksheet (bitwise, same additions)', () => {
+    const periods = Array.from({ length: 50 }, (_, i) => ({ duration: 60, current: 3 + ((i * 7) % 11) }));
+    const k = (t: number) => peukertCapacityFactor(t / 3600, 20, 1.25);
+    const fast = worksheetSections(periods, k, false);
+    const full = worksheetSections(periods, k, true);
+    expect(fast.map((s) => s.total)).toEqual(full.map((s) => s.total));
+    expect(fast.map((s) => s.needed)).toEqual(full.map((s) => s.needed));
+    // Each full section's rows add up to its total (worksheet line 8 summed; method identity).
+    for (const s of full) expect(s.rows.reduce((a, r) => a + r.size, 0)).toBeCloseTo(s.total, 9);
   });
 });
