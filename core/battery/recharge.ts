@@ -67,7 +67,10 @@ export const DEFAULT_CHARGER_EFFICIENCY = 0.9;
 /** The standing load during the recharge, at the bank: a current, or a power (W). */
 export type StandingLoad = { current: number } | { power: number };
 
-/** Where each input lives in the project, for problem messages (defaults: `backup.<name>`). */
+/**
+ * Where each input lives in the project, for problem messages. Defaults follow the project model
+ * (`bank.*` of the battery element, `backup.*` of the study); pass a map to change them.
+ */
 export interface RechargeFieldPaths {
   chemistry: string;
   overrides: string;
@@ -169,18 +172,18 @@ export interface ChargerSizing {
 export type ChargerOutcome = { ok: true; charger: ChargerSizing } | { ok: false; problems: Problem[] };
 
 const DEFAULT_FIELDS: RechargeFieldPaths = {
-  chemistry: 'backup.chemistry',
-  overrides: 'backup.overrides',
-  capacity: 'backup.capacity',
-  seriesCells: 'backup.seriesCells',
+  chemistry: 'bank.chemistry',
+  overrides: 'bank.overrides',
+  capacity: 'bank.capacityAh',
+  seriesCells: 'bank.series',
   startSoc: 'backup.startSoc',
   targetSoc: 'backup.targetSoc',
   chargerCurrent: 'backup.chargerCurrent',
   chargerEfficiency: 'backup.chargerEfficiency',
   chargeProfile: 'backup.chargeProfile',
-  standingLoad: 'backup.standingLoad',
-  temperature: 'backup.temperature',
-  targetTime: 'backup.targetRechargeTime',
+  standingLoad: 'backup.profile',
+  temperature: 'backup.temperatureC',
+  targetTime: 'backup.targetRechargeHours',
 };
 
 export const RECHARGE_CAUTIONS: readonly string[] = [
@@ -263,10 +266,10 @@ function checkBase(input: RechargeBase): { ok: true; m: Model } | { ok: false; p
   if (input.standingLoad !== undefined) {
     const l = input.standingLoad;
     if ('current' in l) {
-      if (!isFiniteNumber(l.current) || l.current < 0) bad(`${fields.standingLoad}.current`, l.current, 'standing load must be at least 0 A');
+      if (!isFiniteNumber(l.current) || l.current < 0) bad(fields.standingLoad, l.current, 'standing load must be at least 0 A');
       else loadCurrent = l.current;
     } else if ('power' in l) {
-      if (!isFiniteNumber(l.power) || l.power < 0) bad(`${fields.standingLoad}.power`, l.power, 'standing load must be at least 0 W');
+      if (!isFiniteNumber(l.power) || l.power < 0) bad(fields.standingLoad, l.power, 'standing load must be at least 0 W');
       else if (nominalVoltage > 0) loadCurrent = l.power / nominalVoltage;
     } else {
       bad(fields.standingLoad, l, 'standing load must give a current (A) or a power (W)');

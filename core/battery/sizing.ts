@@ -93,7 +93,10 @@ export interface CapacityFactorPoint {
   factor: number;
 }
 
-/** Where each input lives in the project, for problem messages (defaults: `backup.<name>`). */
+/**
+ * Where each input lives in the project, for problem messages. Defaults follow the project model
+ * (`bank.*` of the battery element, `backup.*` of the study); pass a map to change them.
+ */
 export interface SizingFieldPaths {
   chemistry: string;
   overrides: string;
@@ -271,18 +274,18 @@ const MAX_PERIODS_WITH_ROWS = 60;
 const RATED_TEMPERATURE = 25;
 
 const DEFAULT_FIELDS: SizingFieldPaths = {
-  chemistry: 'backup.chemistry',
-  overrides: 'backup.overrides',
-  busVoltage: 'backup.busVoltage',
-  dutyCycle: 'backup.dutyCycle',
-  targetRuntime: 'backup.targetRuntime',
+  chemistry: 'bank.chemistry',
+  overrides: 'bank.overrides',
+  busVoltage: 'bank.series',
+  dutyCycle: 'backup.profile',
+  targetRuntime: 'backup.targetRuntimeHours',
   designMargin: 'backup.designMargin',
   agingFactor: 'backup.agingFactor',
-  temperature: 'backup.temperature',
-  ratings: 'backup.ratings',
+  temperature: 'backup.temperatureC',
+  ratings: 'backup.standardCapacitiesAh',
   capacityFactors: 'backup.capacityFactors',
-  cellsPerBlock: 'backup.cellsPerBlock',
-  seriesBlocks: 'backup.seriesBlocks',
+  cellsPerBlock: 'bank.cellsPerBlock',
+  seriesBlocks: 'bank.series',
   maxStrings: 'backup.maxStrings',
   randomLoad: 'backup.randomLoad',
 };

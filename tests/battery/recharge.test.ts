@@ -155,7 +155,7 @@ describe('charger for a target time', () => {
     expect(c.ok).toBe(false);
     if (c.ok) return;
     expect(c.problems[0]!.code).toBe('not-achievable');
-    expect(c.problems[0]!.field).toBe('backup.targetRechargeTime');
+    expect(c.problems[0]!.field).toBe('backup.targetRechargeHours');
     expect(c.problems[0]!.message).toMatch(/1\.748 h/);
   });
 });
@@ -178,24 +178,24 @@ describe('bad input gets a problem naming the field', () => {
   });
   it('zero charger current', () => expectProblem({ ...lfp, chargerCurrent: 0 }, 'backup.chargerCurrent', 'invalid-value', /greater than 0 A/));
   it('lithium below its minimum charge temperature (0 °C, cell makers; common practice)', () => {
-    expectProblem({ ...lfp, temperature: -1 }, 'backup.temperature', 'charge-too-cold', /must not be charged below 0 °C/);
-    expectProblem({ ...lfp, chemistry: 'nmc', temperature: -5 }, 'backup.temperature', 'charge-too-cold', /below 0 °C/);
+    expectProblem({ ...lfp, temperature: -1 }, 'backup.temperatureC', 'charge-too-cold', /must not be charged below 0 °C/);
+    expectProblem({ ...lfp, chemistry: 'nmc', temperature: -5 }, 'backup.temperatureC', 'charge-too-cold', /below 0 °C/);
   });
   it('lead-acid may be charged at −10 °C (preset minimum −20 °C, common practice)', () => {
     expect(rechargeTime({ ...lfp, chemistry: 'vrla-agm', temperature: -10 }).ok).toBe(true);
   });
   it('start state of charge above 1', () => expectProblem({ ...lfp, startSoc: 1.2 }, 'backup.startSoc', 'invalid-value', /between 0 and 1/));
-  it('zero capacity', () => expectProblem({ ...lfp, capacity: 0 }, 'backup.capacity', 'invalid-value', /greater than 0 Ah/));
+  it('zero capacity', () => expectProblem({ ...lfp, capacity: 0 }, 'bank.capacityAh', 'invalid-value', /greater than 0 Ah/));
   it('charger efficiency above 1', () => expectProblem({ ...lfp, chargerEfficiency: 1.1 }, 'backup.chargerEfficiency', 'invalid-value', /at most 1/));
   it('termination current above the reference rate', () =>
     expectProblem({ ...lfp, chargeProfile: { terminationCRate: 0.6 } }, 'backup.chargeProfile.terminationCRate', 'invalid-value', /below the reference/));
   it('a target above the termination state of charge', () =>
     expectProblem({ ...lfp, targetSoc: 0.999 }, 'backup.targetSoc', 'not-achievable', /terminates at 99\.5 %/));
-  it('negative standing load', () => expectProblem({ ...lfp, standingLoad: { power: -10 } }, 'backup.standingLoad.power', 'invalid-value', /at least 0 W/));
-  it('unknown chemistry', () => expectProblem({ ...lfp, chemistry: 'lead-carbon' }, 'backup.chemistry', 'unknown-chemistry', /unknown chemistry/));
+  it('negative standing load', () => expectProblem({ ...lfp, standingLoad: { power: -10 } }, 'backup.profile', 'invalid-value', /at least 0 W/));
+  it('unknown chemistry', () => expectProblem({ ...lfp, chemistry: 'lead-carbon' }, 'bank.chemistry', 'unknown-chemistry', /unknown chemistry/));
   it('zero or negative target time for the charger', () => {
     const r = chargerForTargetTime({ ...lfp, targetTime: -1 });
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.problems[0]!.field).toBe('backup.targetRechargeTime');
+    if (!r.ok) expect(r.problems[0]!.field).toBe('backup.targetRechargeHours');
   });
 });

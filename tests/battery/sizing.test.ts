@@ -378,15 +378,15 @@ describe('bad input gets a problem naming the field, and nothing is computed', (
   };
 
   it.each([
-    ['zero runtime', { targetRuntime: 0 }, 'backup.targetRuntime', /greater than 0/],
-    ['negative runtime', { targetRuntime: -3600 }, 'backup.targetRuntime', /greater than 0/],
+    ['zero runtime', { targetRuntime: 0 }, 'backup.targetRuntimeHours', /greater than 0/],
+    ['negative runtime', { targetRuntime: -3600 }, 'backup.targetRuntimeHours', /greater than 0/],
     ['margin below 1', { designMargin: 0.9 }, 'backup.designMargin', /at least 1/],
     ['aging factor below 1', { agingFactor: 0.8 }, 'backup.agingFactor', /at least 1/],
-    ['temperature below IEEE 485 Table 1', { temperature: -10 }, 'backup.temperature', /outside IEEE 485 Table 1/],
-    ['temperature above IEEE 485 Table 1', { temperature: 55 }, 'backup.temperature', /outside IEEE 485 Table 1/],
-    ['zero bus voltage', { busVoltage: 0 }, 'backup.busVoltage', /greater than 0 V/],
-    ['a zero rating', { ratings: [100, 0] }, 'backup.ratings[1]', /greater than 0 Ah/],
-    ['a fractional block count', { cellsPerBlock: 2.5 }, 'backup.cellsPerBlock', /whole number/],
+    ['temperature below IEEE 485 Table 1', { temperature: -10 }, 'backup.temperatureC', /outside IEEE 485 Table 1/],
+    ['temperature above IEEE 485 Table 1', { temperature: 55 }, 'backup.temperatureC', /outside IEEE 485 Table 1/],
+    ['zero bus voltage', { busVoltage: 0 }, 'bank.series', /greater than 0 V/],
+    ['a zero rating', { ratings: [100, 0] }, 'backup.standardCapacitiesAh[1]', /greater than 0 Ah/],
+    ['a fractional block count', { cellsPerBlock: 2.5 }, 'bank.cellsPerBlock', /whole number/],
   ] as [string, Partial<SizingInput>, string, RegExp][])('%s', (_name, change, field, message) => {
     const ps = one({ ...good, ...change });
     const p = ps.find((x) => x.field === field);
@@ -399,7 +399,7 @@ describe('bad input gets a problem naming the field, and nothing is computed', (
       ...good,
       dutyCycle: { basis: 'current', periods: [{ duration: -60, current: 10 }, { duration: 60, current: -5 }] },
     });
-    expect(ps.map((p) => p.field)).toEqual(['backup.dutyCycle.periods[0].duration', 'backup.dutyCycle.periods[1].current']);
+    expect(ps.map((p) => p.field)).toEqual(['backup.profile.periods[0].duration', 'backup.profile.periods[1].current']);
   });
 
   it('a duty cycle that draws nothing is refused', () => {
@@ -410,7 +410,7 @@ describe('bad input gets a problem naming the field, and nothing is computed', (
   it('unknown chemistry', () => {
     const ps = one({ ...good, chemistry: 'zinc-air' });
     expect(ps[0]!.code).toBe('unknown-chemistry');
-    expect(ps[0]!.field).toBe('backup.chemistry');
+    expect(ps[0]!.field).toBe('bank.chemistry');
     expect(ps[0]!.message).toMatch(/lifepo4/);
   });
 
@@ -433,7 +433,7 @@ describe('bad input gets a problem naming the field, and nothing is computed', (
 
   it('a datasheet override that makes no sense (cut-off above nominal)', () => {
     const ps = one({ ...good, overrides: { endOfDischargeCellVoltage: 2.1 } });
-    expect(ps[0]!.field).toBe('backup.overrides.endOfDischargeCellVoltage');
+    expect(ps[0]!.field).toBe('bank.overrides.endOfDischargeCellVoltage');
   });
 
   it('field paths follow the caller\u2019s map', () => {
