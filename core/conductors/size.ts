@@ -199,7 +199,10 @@ export function choose(p: PreparedConductor, e: CableStage, limitPercent: number
   else if (fresh === firstAmp) governing = 'ampacity';
   else if (fresh === firstProt) governing = 'protection';
   else governing = 'voltage-drop';
-  const rejected = evals.slice(0, firstAll).map((x) => ({ label: x.candidate.size.label, why: why(x, p, limitPercent) }));
+  const rejected = evals.slice(0, firstAll).map((x, i) => ({
+    label: x.candidate.size.label,
+    why: i >= fresh ? 'meets every requirement at the final operating point, but an earlier pass of the chain solve needed a larger size (sizes only grow, so the loop ends)' : why(x, p, limitPercent),
+  }));
   return { ok: true, chosen: evals[firstAll]!, governing, rejected };
 }
 

@@ -209,6 +209,29 @@ describe('feedback into the chain solve', () => {
     expect(r.totals.balanceError).toBeLessThan(1e-9);
   });
 
+  it('two sized links in series: the downstream drop raises the upstream current; both self-consistent', () => {
+    const r = solved([
+      { id: 'src', kind: 'battery', voltage: 24 },
+      { id: 'main', kind: 'cable', from: 'src', length: 4, conductor: { system: 'nec', material: 'copper', size: 'auto', insulationRating: 90, continuous: true } },
+      { id: 'bus', kind: 'dcbus', from: 'main', fixedLoss: 0 },
+      { id: 'branch', kind: 'cable', from: 'bus', length: 20, conductor: { system: 'iec', material: 'copper', size: 'auto', insulation: 'xlpe', installationMethod: 'C' } },
+      { id: 'ld', kind: 'dc-load', from: 'branch', power: 800 },
+    ]);
+    for (const id of ['main', 'branch']) {
+      const e = el(r, id);
+      const c = e.conductor!;
+      expect(c.current).toBeCloseTo(e.input!.current, 12);
+      expect(c.drop.exactPercent).toBeLessThanOrEqual(3 + 1e-9);
+      expect(e.loss).toBeCloseTo(c.current ** 2 * ((2 * (id === 'main' ? 4 : 20) * c.resistance.perKm) / 1000), 9);
+    }
+    // Σ drops on the path = the two links' own (default NEC informational limits: 3 % / 5 %).
+    const path = r.voltageDrop![0]!;
+    expect(path.links.map((l) => l.id)).toEqual(['main', 'branch']);
+    expect(path.totalPercent).toBeCloseTo(el(r, 'main').conductor!.drop.exactPercent + el(r, 'branch').conductor!.drop.exactPercent, 12);
+    // The main link carries the branch's loss too: P_main,out = 800 W + branch loss (energy balance).
+    expect(el(r, 'main').pOut).toBeCloseTo(800 + el(r, 'branch').loss, 9);
+  });
+
   it('the working shows every step in words with units', () => {
     const c = el(solved(chain(6)), 'run').conductor!;
     const labels = c.steps.map((s) => s.label);
@@ -276,6 +299,13 @@ describe('bad input: a clear problem naming element and field, no size shown', (
     { id: 'run', kind: 'cable', from: 'src', length: 10, ...cable },
     { id: 'ld', kind: 'dc-load', from: 'run', power },
   ];
+
+  it('a conductor field out of range names the field path', () => {
+    const p = refused(wrap({ conductor: { ...nec, insulationRating: 80 } }));
+    expect(p).toEqual([expect.objectContaining({ code: 'invalid-value', elementId: 'run', field: 'conductor.insulationRating', message: 'must be 60, 75 or 90 (°C)' })]);
+    const q = refused(wrap({ conductor: { ...nec, system: 'bs' } }));
+    expect(q).toEqual([expect.objectContaining({ elementId: 'run', field: 'conductor.system' })]);
+  });
 
   it('zero length', () => {
     const p = refused(wrap({ conductor: nec, length: 0 }));
