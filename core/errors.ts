@@ -21,7 +21,9 @@ export type ProblemCode =
   | 'no-feasible-bank'
   | 'charger-too-small'
   | 'charge-too-cold'
-  | 'not-achievable';
+  | 'not-achievable'
+  /** Conductor sizing (core/conductors/): no listed size meets the current, protection or drop limit. */
+  | 'no-size-fits';
 
 export interface Problem {
   code: ProblemCode;
