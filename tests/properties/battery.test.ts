@@ -6,7 +6,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import type { Chemistry, Project } from '../../core/index.ts';
+import type { Project } from '../../core/index.ts';
+import type { Chemistry } from '../../core/data/battery-chemistries.ts';
 import { CHEMISTRIES } from '../../core/data/battery-chemistries.ts';
 import { simulateDischarge, type DischargeResult } from '../../core/battery/discharge.ts';
 
