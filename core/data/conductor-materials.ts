@@ -23,8 +23,8 @@
 /**
  * How far a value has been checked, shared by every conductor table in core/data/:
  * - `confirmed`: seen in a published copy of the standard or handbook named in the file header
- *   (often a public transcription; the NEC values come from a machine-transcribed copy).
- * - `corroborated`: recalled, and it agrees with one public transcription; weaker than confirmed.
+ *   (often a public copy; the NEC values come from a machine-read (OCR) copy).
+ * - `corroborated`: recalled, and it agrees with one public copy; weaker than confirmed.
  * - `from memory`: recalled, not yet seen in a published copy; check against the printed standard
  *   before relying on it.
  * - `computed`: derived from confirmed inputs with the formula named beside it.

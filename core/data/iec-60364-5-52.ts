@@ -20,9 +20,9 @@
  *   PVC B2 3 loaded to 120 mm², B2 2 loaded and C 2 loaded to 16 mm², C 3 loaded to 35 mm²:
  *   confirmed against published copies; the rest corroborated.
  * - PVC E: corroborated, except 70 and 120 mm² with 3 loaded conductors (196 / 276 A): from memory,
- *   one transcription shows 198 / 278.
+ *   one published copy shows 198 / 278.
  * - XLPE B1: confirmed (BS 7671 Table 4E1A method B, two copies); XLPE B2, C, E: corroborated (they
- *   agree with a transcription of NBR 5410 Tabela 37, an adoption of IEC 60364-5-52); XLPE B2 with
+ *   agree with a published copy of NBR 5410 Tabela 37, an adoption of IEC 60364-5-52); XLPE B2 with
  *   2 loaded conductors at 150/185/240 mm²: from memory (NBR 5410 prints 349/395/462 there).
  * Trap: BS 7671 single-core method C columns differ from IEC method C (BS 20 A vs IEC 19.5 A at
  * 1.5 mm² PVC, 2 loaded); these rows are the IEC ones.
@@ -174,9 +174,9 @@ export const IEC_60364_5_52_CAPACITIES: readonly IecCapacityRow[] = [
   { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 25, amps: 101, provenance: 'corroborated' },
   { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 35, amps: 126, provenance: 'corroborated' },
   { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 50, amps: 153, provenance: 'corroborated' },
-  { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 70, amps: 196, provenance: 'from memory' }, // one transcription shows 198; check against the printed standard
+  { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 70, amps: 196, provenance: 'from memory' }, // one published copy shows 198; check against the printed standard
   { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 95, amps: 238, provenance: 'corroborated' },
-  { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 120, amps: 276, provenance: 'from memory' }, // one transcription shows 278; check against the printed standard
+  { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 120, amps: 276, provenance: 'from memory' }, // one published copy shows 278; check against the printed standard
   { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 150, amps: 319, provenance: 'corroborated' },
   { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 185, amps: 364, provenance: 'corroborated' },
   { table: 'B.52.10', insulation: 'PVC', method: 'E', loadedConductors: 3, material: 'Cu', sizeMm2: 240, amps: 430, provenance: 'corroborated' },
@@ -225,9 +225,9 @@ export const IEC_60364_5_52_CAPACITIES: readonly IecCapacityRow[] = [
   { table: 'B.52.3', insulation: 'XLPE', method: 'B2', loadedConductors: 2, material: 'Cu', sizeMm2: 70, amps: 221, provenance: 'corroborated' },
   { table: 'B.52.3', insulation: 'XLPE', method: 'B2', loadedConductors: 2, material: 'Cu', sizeMm2: 95, amps: 265, provenance: 'corroborated' },
   { table: 'B.52.3', insulation: 'XLPE', method: 'B2', loadedConductors: 2, material: 'Cu', sizeMm2: 120, amps: 305, provenance: 'corroborated' },
-  { table: 'B.52.3', insulation: 'XLPE', method: 'B2', loadedConductors: 2, material: 'Cu', sizeMm2: 150, amps: 334, provenance: 'from memory' }, // one transcription agrees, a national adoption (NBR 5410) prints 349; check against the printed standard
-  { table: 'B.52.3', insulation: 'XLPE', method: 'B2', loadedConductors: 2, material: 'Cu', sizeMm2: 185, amps: 384, provenance: 'from memory' }, // one transcription agrees, a national adoption (NBR 5410) prints 395; check against the printed standard
-  { table: 'B.52.3', insulation: 'XLPE', method: 'B2', loadedConductors: 2, material: 'Cu', sizeMm2: 240, amps: 459, provenance: 'from memory' }, // one transcription agrees, a national adoption (NBR 5410) prints 462; check against the printed standard
+  { table: 'B.52.3', insulation: 'XLPE', method: 'B2', loadedConductors: 2, material: 'Cu', sizeMm2: 150, amps: 334, provenance: 'from memory' }, // one published copy agrees, a national adoption (NBR 5410) prints 349; check against the printed standard
+  { table: 'B.52.3', insulation: 'XLPE', method: 'B2', loadedConductors: 2, material: 'Cu', sizeMm2: 185, amps: 384, provenance: 'from memory' }, // one published copy agrees, a national adoption (NBR 5410) prints 395; check against the printed standard
+  { table: 'B.52.3', insulation: 'XLPE', method: 'B2', loadedConductors: 2, material: 'Cu', sizeMm2: 240, amps: 459, provenance: 'from memory' }, // one published copy agrees, a national adoption (NBR 5410) prints 462; check against the printed standard
   // Table B.52.5: XLPE (90 °C), method B2, 3 loaded conductors, copper.
   { table: 'B.52.5', insulation: 'XLPE', method: 'B2', loadedConductors: 3, material: 'Cu', sizeMm2: 1.5, amps: 19.5, provenance: 'corroborated' },
   { table: 'B.52.5', insulation: 'XLPE', method: 'B2', loadedConductors: 3, material: 'Cu', sizeMm2: 2.5, amps: 26, provenance: 'corroborated' },

@@ -3,7 +3,7 @@
  *
  * ── Table 8: conductor properties, DC resistance at 75 °C (167 °F), uncoated copper, aluminum ──
  * Source: NFPA 70-2023 Chapter 9 Table 8. Resistances confirmed against a published copy of the
- * 2023 table and, for the stranded columns, a second independent transcription. The area column
+ * 2023 table and, for the stranded columns, a second independent copy. The area column
  * (circular mils) is FROM MEMORY (field `provenance.area`); it agrees with the AWG formula within
  * 0.1 %. The NEC rounds areas differently from the theoretical AWG areas (e.g. 1/0: 105,600 here,
  * 105,535 by the formula); this app uses the NEC figures.
@@ -11,7 +11,7 @@
  * solid conductor. Solid values differ from stranded by about 2 % (lay length): never mix them.
  * `null` where the table prints no value (solid conductors are listed only up to 8 AWG).
  * Cells: 8 AWG solid (Cu 0.764, Al 1.26) are from memory; Al 10 AWG solid is 2.00 from memory —
- * one transcription shows 1.99, and 17.00 Ω·cmil/ft ÷ 10,380 cmil × 1000 × (1 + 0.00403 × 55)
+ * one published copy shows 1.99, and 17.00 Ω·cmil/ft ÷ 10,380 cmil × 1000 × (1 + 0.00403 × 55)
  * = 2.001 Ω/kft supports 2.00 — check it against the printed code.
  * Table 8 Note 2 (temperature change): R₂ = R₁·[1 + α·(T₂ − 75)] with α referred to 75 °C:
  * α_Cu = 0.00323, α_Al = 0.00330 per °C (NEC_TABLE_8_ALPHA_75). These are NOT the 20 °C
@@ -20,7 +20,7 @@
  * ── Table 9: AC resistance and reactance for 600 V cables, 3-phase, 60 Hz, 75 °C (167 °F),
  *    three single conductors in conduit; Ω to neutral per 1000 ft ──
  * Source: NEC Chapter 9 Table 9. Values confirmed against a published copy of the NFPA 70-2008
- * table (14 AWG to 1/0) and a cable maker's transcription of all sizes; the values have been the
+ * table (14 AWG to 1/0) and a cable maker's copy of all sizes; the values have been the
  * same in the 2011 to 2023 editions (from memory), so this app uses them as the 2023 table.
  * Columns (each by raceway: `pvc`, `aluminum`, `steel` conduit):
  * - `xl`: inductive reactance X_L (the table prints one column for PVC and aluminum conduit).
@@ -30,7 +30,7 @@
  *   Recomputing Ze from the rounded R and X_L misses the printed column by up to about 5 % below
  *   1/0 (the NEC derived it from unrounded R), so the printed column is kept as printed.
  * A cell is `null` where the table prints no value (no aluminum conductor at 14 AWG, from memory),
- * and ABSENT where the table has a value that this file does not carry yet (not transcribed from a
+ * and ABSENT where the table has a value that this file does not carry yet (not copied from a
  * checked copy). Per-cell provenance is in `provenance`.
  * Table 9 Note 1 (from memory): based on UL Type RHH wires with Class B stranding in cradled
  * configuration; conductivity 100 % IACS copper, 61 % IACS aluminum, aluminum conduit 45 % IACS;
@@ -74,7 +74,7 @@ const T8_CHECKED = {
 export const NEC_CHAPTER9_TABLE8: readonly NecTable8Row[] = [
   { size: '14 AWG', areaCmil: 4110, cu: { stranded: 3.14, solid: 3.07 }, al: { stranded: 5.17, solid: 5.06 }, provenance: T8_CHECKED },
   { size: '12 AWG', areaCmil: 6530, cu: { stranded: 1.98, solid: 1.93 }, al: { stranded: 3.25, solid: 3.18 }, provenance: T8_CHECKED },
-  // Al solid 2.00: from memory (one transcription shows 1.99).
+  // Al solid 2.00: from memory (one published copy shows 1.99).
   { size: '10 AWG', areaCmil: 10380, cu: { stranded: 1.24, solid: 1.21 }, al: { stranded: 2.04, solid: 2.0 }, provenance: { ...T8_CHECKED, alSolid: 'from memory' } },
   // Both solid cells from memory.
   { size: '8 AWG', areaCmil: 16510, cu: { stranded: 0.778, solid: 0.764 }, al: { stranded: 1.28, solid: 1.26 }, provenance: { ...T8_CHECKED, cuSolid: 'from memory', alSolid: 'from memory' } },
@@ -141,7 +141,7 @@ export interface NecTable9Row {
 }
 
 const T9_CHECKED = { xl: 'confirmed', rCu: 'confirmed', rAl: 'confirmed', zeCu085Pvc: 'confirmed', zeCu085Steel: 'confirmed' } as const;
-// 2/0 to 500 kcmil: the printed PVC Ze cells come from a single transcription; they agree with
+// 2/0 to 500 kcmil: the printed PVC Ze cells come from a single web copy; they agree with
 // Ze recomputed from R and X_L at 0.85 PF.
 const T9_ZE_PVC_ONE_COPY = { ...T9_CHECKED, zeCu085Pvc: 'corroborated' } as const;
 

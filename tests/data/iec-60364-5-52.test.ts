@@ -54,7 +54,7 @@ describe('IEC 60364-5-52:2009 Annex B capacities, spot checks (A, copper, 30 °C
 
   it('keeps the disputed cells at the IEC values, marked from memory', () => {
     // From memory (IEC B.52.10 / BS 7671 4D2A): PVC E 3L 70 mm² 196 A and 120 mm² 276 A; one
-    // transcription shows 198 / 278.
+    // published copy shows 198 / 278.
     expect(cell('PVC', 'E', 3, 70)).toMatchObject({ amps: 196, provenance: 'from memory' });
     expect(cell('PVC', 'E', 3, 120)).toMatchObject({ amps: 276, provenance: 'from memory' });
     // From memory (IEC B.52.3): XLPE B2 2L 150/185/240 mm² = 334/384/459 A; NBR 5410 prints 349/395/462.

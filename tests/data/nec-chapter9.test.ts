@@ -39,7 +39,7 @@ describe('NEC 2023 Chapter 9 Table 8 spot checks (Ω/1000 ft at 75 °C)', () => 
   });
 
   it('keeps the unchecked cells marked "from memory"', () => {
-    // From memory: 8 AWG solid Cu 0.764 and Al 1.26; 10 AWG solid Al 2.00 (one transcription of the
+    // From memory: 8 AWG solid Cu 0.764 and Al 1.26; 10 AWG solid Al 2.00 (one published copy of the
     // 2023 table shows 1.99; 17.00 Ω·cmil/ft ÷ 10 380 cmil × 1000 × (1 + 0.00403·55) = 2.001 supports 2.00).
     expect(t8('8 AWG').cu.solid).toBe(0.764);
     expect(t8('8 AWG').provenance.cuSolid).toBe('from memory');
@@ -147,7 +147,7 @@ describe('Table 8 structure and physics', () => {
 });
 
 describe('NEC Chapter 9 Table 9 spot checks (Ω to neutral / 1000 ft, 75 °C, 60 Hz)', () => {
-  // Values: NEC Ch. 9 Table 9 (NFPA 70-2008 copy for 14 AWG–1/0; cable maker's transcription for all sizes).
+  // Values: NEC Ch. 9 Table 9 (NFPA 70-2008 copy for 14 AWG–1/0; cable maker's copy for all sizes).
   it.each([
     ['14 AWG', 'xl', 'pvc', 0.058, 'NEC Ch. 9 Table 9, 14 AWG XL PVC/Al conduit'],
     ['14 AWG', 'xl', 'steel', 0.073, 'NEC Ch. 9 Table 9, 14 AWG XL steel conduit'],
@@ -163,7 +163,7 @@ describe('NEC Chapter 9 Table 9 spot checks (Ω to neutral / 1000 ft, 75 °C, 60
     ['400 kcmil', 'rCu', 'steel', 0.035, 'NEC Ch. 9 Table 9, 400 kcmil Cu R steel'],
     ['500 kcmil', 'rCu', 'pvc', 0.027, 'NEC Ch. 9 Table 9, 500 kcmil Cu R PVC'],
     ['500 kcmil', 'rCu', 'aluminum', 0.032, 'NEC Ch. 9 Table 9, 500 kcmil Cu R aluminum conduit'],
-    ['500 kcmil', 'zeCu085', 'pvc', 0.043, 'NEC Ch. 9 Table 9, 500 kcmil Cu Ze PVC (single transcription, corroborated)'],
+    ['500 kcmil', 'zeCu085', 'pvc', 0.043, 'NEC Ch. 9 Table 9, 500 kcmil Cu Ze PVC (single web copy, corroborated)'],
   ] as const)('%s %s %s = %d (%s)', (size, column, raceway, value, _source) => {
     expect(t9(size)[column][raceway]).toBe(value);
   });
@@ -172,7 +172,7 @@ describe('NEC Chapter 9 Table 9 spot checks (Ω to neutral / 1000 ft, 75 °C, 60
     for (const r of NEC_CHAPTER9_TABLE9) expect(r.xl.aluminum).toBe(r.xl.pvc);
   });
 
-  it('marks the 2/0–500 kcmil PVC Ze cells as corroborated, not confirmed (single transcription)', () => {
+  it('marks the 2/0–500 kcmil PVC Ze cells as corroborated, not confirmed (single web copy)', () => {
     for (const r of NEC_CHAPTER9_TABLE9) {
       const large = r.areaCmil > t9('1/0 AWG').areaCmil;
       expect(r.provenance.zeCu085Pvc, r.size).toBe(large ? 'corroborated' : 'confirmed');
@@ -265,7 +265,7 @@ describe('NEC Chapter 9 Tables 8 and 9, every carried cell as printed', () => {
     350 kcmil  350000 0.0367 -     0.0605 -
     400 kcmil  400000 0.0321 -     0.0529 -
     500 kcmil  500000 0.0258 -     0.0424 -`;
-  // NEC Ch. 9 Table 9 (NFPA 70-2008 copy and a cable maker's transcription): size, XL PVC/Al, XL steel,
+  // NEC Ch. 9 Table 9 (NFPA 70-2008 copy and a cable maker's copy): size, XL PVC/Al, XL steel,
   // R Cu PVC, R Cu steel, Ze Cu 0.85 PF PVC, Ze Cu 0.85 PF steel, R Al PVC ('-' = none printed).
   const TABLE9 = `
     14 AWG    0.058 0.073 3.1   3.1   2.7   2.7   -
@@ -302,7 +302,7 @@ describe('NEC Chapter 9 Tables 8 and 9, every carried cell as printed', () => {
     expect([r.xl.pvc, r.xl.steel, r.rCu.pvc, r.rCu.steel, r.zeCu085.pvc, r.zeCu085.steel, r.rAl.pvc]).toEqual(cells);
   });
 
-  it('copper in aluminum conduit and aluminum in steel conduit: the carried cells (NEC Ch. 9 Table 9, cable maker\'s transcription)', () => {
+  it('copper in aluminum conduit and aluminum in steel conduit: the carried cells (NEC Ch. 9 Table 9, cable maker\'s copy)', () => {
     const cuAlConduit = NEC_CHAPTER9_TABLE9.filter((r) => r.rCu.aluminum !== undefined).map((r) => [r.size, r.rCu.aluminum]);
     expect(cuAlConduit).toEqual([
       ['14 AWG', 3.1], ['2 AWG', 0.2], ['1 AWG', 0.16], ['1/0 AWG', 0.13], ['3/0 AWG', 0.082], ['4/0 AWG', 0.067], ['250 kcmil', 0.057], ['500 kcmil', 0.032],
