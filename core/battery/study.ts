@@ -1,0 +1,105 @@
+/**
+ * The battery backup study of a project: the discharge through the chain (discharge.ts), then —
+ * when the project's `backup` settings ask for them — the bank sizing for the target runtime
+ * (sizing.ts) and the recharge with the given charger and the charger for a target time
+ * (recharge.ts). Pure; returns plain data.
+ */
+import type { BackupStudy, BatteryBankSpec } from '../model.ts';
+import type { Problem } from '../errors.ts';
+import { simulateDischarge, type DischargeResult } from './discharge.ts';
+import { sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
+import { chargerForTargetTime, rechargeTime, type ChargerSizing, type Recharge } from './recharge.ts';
+
+export interface BackupStudyResult {
+  discharge: DischargeResult;
+  /** Smallest bank for `backup.targetRuntimeHours` over the same terminal power profile. */
+  sizing?: BankSizing;
+  /** Recharge from the end state with `backup.chargerCurrent`. */
+  recharge?: Recharge;
+  /** Charger needed to recharge within `backup.targetRechargeHours`. */
+  charger?: ChargerSizing;
+  /** How the terminal power profile given to the sizing was taken. */
+  sizingBasis?: string;
+}
+
+export type BackupStudyOutcome = { ok: true; study: BackupStudyResult } | { ok: false; problems: Problem[] };
+
+/**
+ * The terminal power over the simulated outage as periods of constant power (each step's power
+ * held over the step; equal neighbours merged).
+ */
+export function terminalPowerPeriods(d: DischargeResult): PowerPeriod[] {
+  const { time, power } = d.series;
+  const out: PowerPeriod[] = [];
+  for (let i = 0; i + 1 < time.length; i++) {
+    const duration = time[i + 1]! - time[i]!;
+    if (duration <= 0) continue;
+    const p = power[i]!;
+    const last = out[out.length - 1];
+    if (last && Math.abs(last.power - p) <= 1e-9 * Math.max(Math.abs(p), 1)) last.duration += duration;
+    else out.push({ duration, power: p });
+  }
+  return out;
+}
+
+/** Run the whole study for a project given as untrusted data. Never throws on bad input. */
+export function runBackupStudy(input: unknown): BackupStudyOutcome {
+  const simulated = simulateDischarge(input);
+  if (!simulated.ok) return simulated;
+  const d = simulated.result;
+  // simulateDischarge has validated the input: it is a project with a study and a battery bank.
+  const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec }[] };
+  const study = project.backup;
+  const spec = project.elements.find((e) => e.id === d.batteryId)!.bank!;
+  const result: BackupStudyResult = { discharge: d };
+  const problems: Problem[] = [];
+
+  if (study.targetRuntimeHours !== undefined) {
+    const periods = terminalPowerPeriods(d);
+    result.sizingBasis =
+      'terminal power of the simulated outage, step by step; where the target runtime is longer than the simulated run, the profile is repeated from its start';
+    const sized = sizeBank({
+      elementId: d.batteryId,
+      chemistry: spec.chemistry,
+      ...(spec.overrides ? { overrides: spec.overrides } : {}),
+      busVoltage: d.bank.nominalVoltage,
+      dutyCycle: { basis: 'power', periods },
+      targetRuntime: study.targetRuntimeHours * 3600,
+      ...(study.designMargin !== undefined ? { designMargin: study.designMargin } : {}),
+      ...(study.agingFactor !== undefined ? { agingFactor: study.agingFactor } : {}),
+      temperature: d.temperatureC,
+      ...(study.standardCapacitiesAh ? { ratings: study.standardCapacitiesAh } : {}),
+      ...(spec.cellsPerBlock !== undefined ? { cellsPerBlock: spec.cellsPerBlock } : {}),
+      seriesBlocks: spec.series,
+      fields: { designMargin: 'backup.designMargin', agingFactor: 'backup.agingFactor', targetRuntime: 'backup.targetRuntimeHours', ratings: 'backup.standardCapacitiesAh', temperature: 'backup.temperatureC' },
+    });
+    if (sized.ok) result.sizing = sized.sizing;
+    else problems.push(...sized.problems);
+  }
+
+  // The loads go on while the bank recharges: the charger carries them (average terminal power of the outage).
+  const standing = d.runtimeSeconds > 0 ? d.deliveredWh / (d.runtimeSeconds / 3600) : 0;
+  const base = {
+    elementId: d.batteryId,
+    chemistry: spec.chemistry,
+    ...(spec.overrides ? { overrides: spec.overrides } : {}),
+    capacity: d.bank.capacityAh,
+    seriesCells: d.bank.cellsInSeries,
+    startSoc: d.endSoc,
+    ...(study.chargerEfficiency !== undefined ? { chargerEfficiency: study.chargerEfficiency } : {}),
+    standingLoad: { power: standing },
+    temperature: d.temperatureC,
+    fields: { chargerCurrent: 'backup.chargerCurrent', chargerEfficiency: 'backup.chargerEfficiency', targetTime: 'backup.targetRechargeHours', temperature: 'backup.temperatureC' },
+  };
+  if (study.chargerCurrent !== undefined) {
+    const r = rechargeTime({ ...base, chargerCurrent: study.chargerCurrent });
+    if (r.ok) result.recharge = r.recharge;
+    else problems.push(...r.problems);
+  }
+  if (study.targetRechargeHours !== undefined) {
+    const r = chargerForTargetTime({ ...base, targetTime: study.targetRechargeHours * 3600 });
+    if (r.ok) result.charger = r.charger;
+    else problems.push(...r.problems);
+  }
+  return problems.length ? { ok: false, problems } : { ok: true, study: result };
+}
