@@ -140,6 +140,13 @@ export interface SizingInput {
    * Default false, as the note to that table advises.
    */
   creditAbove25C?: boolean;
+  /**
+   * Lead-acid and NiCd: also size so the duty cycle takes no more than the usable depth of
+   * discharge (Peukert-equivalent charge, as the runtime study counts it). Default true, so the
+   * sized bank passes the runtime study; false sizes to the end voltage only (IEEE 485 as written,
+   * for standby duty).
+   */
+  limitDepthOfDischarge?: boolean;
   /** Standard capacity ratings per string, Ah (rated at the chemistry's rated hours). Omitted: continuous. */
   ratings?: readonly number[];
   /** Datasheet K_t table for the worksheet (lead-acid, NiCd); default Peukert's law. */
@@ -203,7 +210,8 @@ export type SizingMethod = 'ieee-485-worksheet' | 'ieee-1115-worksheet' | 'energ
 export type GoverningLimit =
   | { kind: 'section'; section: number }
   | { kind: 'energy' }
-  | { kind: 'discharge-rate' };
+  | { kind: 'discharge-rate' }
+  | { kind: 'depth-of-discharge' };
 
 export interface BankSizing {
   method: SizingMethod;
@@ -827,6 +835,26 @@ export function sizeBank(input: SizingInput): SizingOutcome {
         `The peak current ${round(peakCurrent)} A is above the preset maximum continuous discharge rate (${preset.maxDischargeCRate} C) of this size; the K_t table given is trusted — confirm the rate with the cell maker.`,
       );
     }
+
+    if (input.limitDepthOfDischarge ?? true) {
+      const dod = preset.usableDepthOfDischarge;
+      const drawn = random === undefined ? merged : [...merged, { duration: random.duration, current: randomCurrent }];
+      const base = depthOfDischargeCapacity(drawn, preset.ratedHours, preset.peukertExponent, dod);
+      const dodSize = base * tempFactor * designMargin * agingFactor;
+      step(
+        'Size for the depth-of-discharge limit',
+        dodSize,
+        'Ah',
+        `smallest C whose usable ${dod} × C covers the Peukert-equivalent charge Σ I·max(1, I·H/C)^(k−1)·t (${round(base)} Ah), × temperature × design margin × aging`,
+      );
+      if (dodSize > required) {
+        required = dodSize;
+        governing = { kind: 'depth-of-discharge' };
+        warnings.push(
+          `The usable depth of discharge (${dod}), not the worksheet, sets the size: the runtime study stops the discharge there. For standby duty sized to the end voltage alone (IEEE 485 as written), turn the depth-of-discharge limit off.`,
+        );
+      }
+    }
   } else {
     // Lithium: energy method.
     method = 'energy';
@@ -1019,6 +1047,43 @@ export function worksheetSection(
     total: positive + negative,
     needed: next === undefined || next.current <= periods[s]!.current,
   };
+}
+
+/**
+ * Smallest rated capacity C (Ah) whose usable part DoD·C covers the Peukert-equivalent charge of
+ * the duty cycle, counted as the runtime study counts it (rated-capacity form of Peukert's law):
+ *   Q(C) = Σ I·max(1, I/I_rated)^(k−1)·t,  I_rated = C/H   (t in h),
+ * i.e. the root of DoD·C = Q(C). Q never rises with C, so the root is unique: C = Ah/DoD when every
+ * current is at or below the rated current of that size; otherwise bisection between Ah/DoD and
+ * H·I_max (where the max() no longer bites), to 1e-12 relative. When every current exceeds I_rated
+ * the root has the closed form C = (H^(k−1)·Σ I^k·t / DoD)^(1/k).
+ */
+export function depthOfDischargeCapacity(
+  periods: readonly CurrentPeriod[],
+  ratedHours: number,
+  k: number,
+  dod: number,
+): number {
+  const q = (c: number) => {
+    let sum = 0;
+    for (const p of periods) {
+      const ratio = (p.current * ratedHours) / c;
+      sum += p.current * (ratio > 1 ? Math.pow(ratio, k - 1) : 1) * (p.duration / 3600);
+    }
+    return sum;
+  };
+  const ah = periods.reduce((a, p) => a + (p.current * p.duration) / 3600, 0);
+  let lo = ah / dod;
+  const iMax = Math.max(...periods.map((p) => p.current));
+  if (lo >= ratedHours * iMax || k === 1) return lo;
+  let hi = Math.max(lo, q(lo) / dod);
+  // DoD·C − Q(C) rises with C: negative at lo (unless lo is the root), ≥ 0 at hi since Q(hi) ≤ Q(lo).
+  for (let i = 0; i < 200 && hi - lo > 1e-12 * hi; i++) {
+    const mid = 0.5 * (lo + hi);
+    if (dod * mid >= q(mid)) hi = mid;
+    else lo = mid;
+  }
+  return hi;
 }
 
 /**

@@ -11,6 +11,7 @@ import {
   ieee485TemperatureFactor,
   peukertCapacityFactor,
   sizeBank,
+  depthOfDischargeCapacity,
   tableCapacityFactor,
   worksheetSections,
   type BankSizing,
@@ -122,6 +123,7 @@ describe('IEEE 485 worksheet, worked by hand', () => {
       chemistry: 'flooded-lead-acid',
       busVoltage: 48,
       temperature: 10,
+      limitDepthOfDischarge: false, // IEEE 485 as written: sized to the end voltage
       ratings: [100, 150, 200, 250, 300],
       dutyCycle: {
         basis: 'current',
@@ -182,6 +184,7 @@ describe('IEEE 485 worksheet, worked by hand', () => {
       chemistry: 'vrla-agm',
       busVoltage: 24,
       cellsPerBlock: 6,
+      limitDepthOfDischarge: false,
       ratings: [100, 110, 125, 150],
       dutyCycle: {
         basis: 'current',
@@ -223,6 +226,57 @@ describe('IEEE 485 worksheet, worked by hand', () => {
     expect(s.warnings.join(' ')).toMatch(/Peukert/);
   });
 
+  it('the depth-of-discharge limit, worked by hand: flooded, 50 A for 2 h, DoD 0.5 (Peukert-equivalent charge)', () => {
+    // Every current above I_rated = C/H, so C = (H^(k−1)·I^k·t / DoD)^(1/k), H = 20 h, k = 1.25:
+    //   20^0.25 = 2.114743; 50^1.25 = 132.9574; × 2 h ÷ 0.5 = 1124.683; ^0.8 → 275.946 Ah
+    //   check: I_rated = 275.946 ÷ 20 = 13.8 A < 50 A. The worksheet alone: 50·K(2 h) =
+    //   50 × 20 × 0.1^0.8 = 158.49 Ah (Peukert K_t), the same formula with DoD = 1.
+    const s = sized({
+      chemistry: 'flooded-lead-acid',
+      busVoltage: 12,
+      designMargin: 1,
+      agingFactor: 1,
+      dutyCycle: { basis: 'current', periods: [{ duration: 7200, current: 50 }] },
+    });
+    expect(s.sections[0]!.total).toBeCloseTo(158.489, 3); // hand working above
+    expect(stepValue(s, 'Size for the depth-of-discharge limit')).toBeCloseTo(275.946, 3); // hand working
+    expect(s.governing).toEqual({ kind: 'depth-of-discharge' });
+    expect(s.warnings.join(' ')).toMatch(/depth of discharge/);
+    // With DoD 1 the limit equals the worksheet for a single period (same Peukert form).
+    const full = sized({
+      chemistry: 'flooded-lead-acid',
+      busVoltage: 12,
+      designMargin: 1,
+      agingFactor: 1,
+      overrides: { usableDepthOfDischarge: 1 },
+      dutyCycle: { basis: 'current', periods: [{ duration: 7200, current: 50 }] },
+    });
+    expect(stepValue(full, 'Size for the depth-of-discharge limit')).toBeCloseTo(full.sections[0]!.total, 9);
+  });
+
+  it('below the rated current no Peukert credit is taken: AGM, 2 A for 10 h, DoD 0.5 → 20 Ah ÷ 0.5 = 40 Ah', () => {
+    // 40 Ah has I_rated = 40/20 = 2 A, so max(1, I/I_rated) = 1 and C = Ah ÷ DoD (hand working).
+    // Worksheet alone: 2 × 20 × 0.5^(1/1.1) = 21.30 Ah (Peukert K_t).
+    const s = sized({
+      chemistry: 'vrla-agm',
+      busVoltage: 12,
+      designMargin: 1,
+      agingFactor: 1,
+      dutyCycle: { basis: 'current', periods: [{ duration: 36000, current: 2 }] },
+    });
+    expect(s.sections[0]!.total).toBeCloseTo(21.3008, 4);
+    expect(s.requiredCapacity).toBeCloseTo(40, 9);
+    expect(s.governing).toEqual({ kind: 'depth-of-discharge' });
+  });
+
+  it('the depth-of-discharge size solves DoD·C = Σ I·max(1, I·H/C)^(k−1)·t (defining equation, mixed rates)', () => {
+    const periods = [{ duration: 3600, current: 40 }, { duration: 5 * 3600, current: 3 }, { duration: 600, current: 90 }];
+    const c = depthOfDischargeCapacity(periods, 20, 1.25, 0.6);
+    const q = periods.reduce((a, p) => a + p.current * Math.max(1, (p.current * 20) / c) ** 0.25 * (p.duration / 3600), 0);
+    expect(0.6 * c).toBeCloseTo(q, 9);
+    expect(3 * 20).toBeLessThan(c); // the 3 A period is below I_rated: no credit, no penalty
+  });
+
   it('holds 1.00 above 25 °C unless credit is asked for (IEEE 485 Table 1 note, from memory)', () => {
     const base: SizingInput = {
       chemistry: 'flooded-lead-acid',
@@ -239,6 +293,7 @@ describe('IEEE 485 worksheet, worked by hand', () => {
       chemistry: 'nicd',
       busVoltage: 110,
       temperature: 0,
+      limitDepthOfDischarge: false,
       dutyCycle: { basis: 'current', periods: [{ duration: 5 * 3600, current: 20 }] },
     });
     expect(s.method).toBe('ieee-1115-worksheet');
@@ -288,7 +343,7 @@ describe('IEEE 485 worksheet, worked by hand', () => {
 
   it('a long minute-by-minute profile keeps every section total and the governing section\u2019s rows', () => {
     const periods = Array.from({ length: 1440 }, (_, i) => ({ duration: 60, current: 5 + (i % 7) }));
-    const s = sized({ chemistry: 'flooded-lead-acid', busVoltage: 24, dutyCycle: { basis: 'current', periods } });
+    const s = sized({ chemistry: 'flooded-lead-acid', busVoltage: 24, limitDepthOfDischarge: false, dutyCycle: { basis: 'current', periods } });
     expect(s.sections).toHaveLength(1440);
     const gov = s.governing.kind === 'section' ? s.governing.section : -1;
     expect(s.sections[gov - 1]!.rows).toHaveLength(gov);
