@@ -23,6 +23,10 @@
  *    overstates what a cell delivers for minutes, so with Peukert K_t the chemistry's maximum
  *    continuous discharge C-rate also bounds the size (a datasheet K_t table is trusted instead,
  *    and a rate above the C-rate is only flagged).
+ *    Depth-of-discharge limit (on by default; not part of IEEE 485, which sizes standby cells to
+ *    the end voltage): the smallest C whose usable DoD·C covers the Peukert-equivalent charge of
+ *    the duty cycle as the runtime study counts it, Σ I·max(1, I·H/C)^(k−1)·t, × the same factors —
+ *    so a bank sized here also passes the runtime study.
  *    Temperature correction: lead-acid from IEEE 485 Table 1 (core/data/ieee-485.ts), held at
  *    1.00 above 25 °C unless credit is asked for; NiCd: IEEE 1115 takes the derating from the
  *    maker (from memory), here 1 / capacity factor of the chemistry's capacity-vs-temperature table.
@@ -238,7 +242,10 @@ export interface BankSizing {
   governing: GoverningLimit;
   /** Peak current of the duty cycle (with any random load), A. */
   peakCurrent: number;
-  /** The duty cycle actually sized for, as currents at the bank terminals. */
+  /**
+   * The duty cycle actually sized for, as currents at the bank terminals (for the worksheet, the
+   * periods its sections number).
+   */
   periods: CurrentPeriod[];
   /** Worksheet sections (lead-acid and NiCd); empty for the energy method. */
   sections: WorksheetSection[];
@@ -277,6 +284,9 @@ export const DEFAULT_MAX_STRINGS = 4;
 
 /** Above this many periods only the governing section keeps its rows (the table would be n²/2 rows). */
 const MAX_PERIODS_WITH_ROWS = 60;
+
+/** Long profiles: neighbouring worksheet periods within this fraction are joined (see sizeBank). */
+const NEAR_CURRENT = 0.005;
 
 /** Reference temperature of rated capacity, °C. */
 const RATED_TEMPERATURE = 25;
@@ -715,6 +725,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
 
   const worksheet = isLeadAcid(preset.chemistry) || preset.chemistry === 'nicd';
   let sections: WorksheetSection[] = [];
+  let worksheetPeriods: CurrentPeriod[] = periods;
   let required: number;
   let governing: GoverningLimit;
   let method: SizingMethod;
@@ -743,7 +754,18 @@ export function sizeBank(input: SizingInput): SizingOutcome {
         ? 'from the datasheet table given (log–log interpolation)'
         : `Peukert's law: K_t = H·(t/H)^(1/k), H = ${preset.ratedHours} h, k = ${preset.peukertExponent} (${preset.provenance.peukertExponent})`,
     );
-    const merged = periods;
+    // A long sampled profile: neighbours within 0.5 % joined at the higher current (conservative:
+    // the size never falls when a current rises), so the O(n²) worksheet stays quick.
+    const merged = periods.length > MAX_PERIODS_WITH_ROWS ? mergeNearPeriods(periods, NEAR_CURRENT) : periods;
+    if (merged.length < periods.length) {
+      step(
+        'Worksheet periods',
+        merged.length,
+        '',
+        `${periods.length} periods; neighbours within ${NEAR_CURRENT * 100} % joined at the higher current (conservative)`,
+      );
+    }
+    worksheetPeriods = merged;
     sections = worksheetSections(merged, kAt, merged.length <= MAX_PERIODS_WITH_ROWS);
     if (!Number.isNaN(missing.time) && table !== undefined) {
       return {
@@ -838,7 +860,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
 
     if (input.limitDepthOfDischarge ?? true) {
       const dod = preset.usableDepthOfDischarge;
-      const drawn = random === undefined ? merged : [...merged, { duration: random.duration, current: randomCurrent }];
+      const drawn = random === undefined ? periods : [...periods, { duration: random.duration, current: randomCurrent }];
       const base = depthOfDischargeCapacity(drawn, preset.ratedHours, preset.peukertExponent, dod);
       const dodSize = base * tempFactor * designMargin * agingFactor;
       step(
@@ -949,7 +971,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       requiredCapacity: required,
       governing,
       peakCurrent,
-      periods,
+      periods: worksheetPeriods,
       sections,
       steps,
       warnings,
@@ -967,6 +989,7 @@ export function worksheetSections(
   kAt: (timeS: number) => number,
   keepRows = true,
 ): WorksheetSection[] {
+  if (!keepRows) return sectionTotals(periods, kAt);
   // K_t depends on the time only; a profile of equal steps repeats the same times in every section.
   const memo = new Map<number, number>();
   const k = (t: number) => {
@@ -978,40 +1001,117 @@ export function worksheetSections(
     return v;
   };
   const sections: WorksheetSection[] = [];
+  for (let s = 0; s < periods.length; s++) sections.push(worksheetSection(periods, s, k, true));
+  return sections;
+}
+
+/** Above this many durations off the common step, section totals fall back to a plain memo. */
+const MAX_ODD_PERIODS = 16;
+
+/**
+ * Section totals without rows, for long sampled profiles (hundreds to thousands of periods).
+ * Each duration is written as c·q + r with q the most common duration (c whole, r = 0 for the
+ * steps of a sampled profile and their merges); a time to the end of a section is then C·q + R,
+ * and K_t is looked up by the whole count C in one array per distinct R (R changes only at the
+ * few "odd" periods, such as a run's partial last step). Same sums as the row-by-row worksheet,
+ * to rounding of the times (C·q + R instead of a running sum).
+ */
+function sectionTotals(periods: readonly CurrentPeriod[], kAt: (timeS: number) => number): WorksheetSection[] {
   const n = periods.length;
-  const d0 = n > 0 ? periods[0]!.duration : 0;
-  if (!keepRows && periods.every((p) => p.duration === d0)) {
-    // Equal steps (a sampled profile): the time to the end depends on the number of periods only,
-    // and accumulates with the same additions as in worksheetSection, so the totals are identical.
-    const kByCount = new Float64Array(n + 1);
-    let acc = 0;
-    for (let m = 1; m <= n; m++) {
-      acc += d0;
-      kByCount[m] = kAt(acc);
+  const seen = new Map<number, number>();
+  let q = 0;
+  let best = 0;
+  for (const p of periods) {
+    const c = (seen.get(p.duration) ?? 0) + 1;
+    seen.set(p.duration, c);
+    if (c > best) {
+      best = c;
+      q = p.duration;
     }
-    const change = periods.map((p, i) => p.current - (i > 0 ? periods[i - 1]!.current : 0));
+  }
+  const whole = new Float64Array(n);
+  const rest = new Float64Array(n);
+  let odd = 0;
+  let totalCount = 0;
+  for (let i = 0; i < n; i++) {
+    const d = periods[i]!.duration;
+    const m = Math.round(d / q);
+    if (m >= 1 && Math.abs(d - m * q) <= 1e-9 * d) {
+      whole[i] = m;
+    } else {
+      whole[i] = Math.floor(d / q);
+      rest[i] = d - whole[i]! * q;
+      odd++;
+    }
+    totalCount += whole[i]!;
+  }
+  const change = periods.map((p, i) => p.current - (i > 0 ? periods[i - 1]!.current : 0));
+  let lookup: (C: number, R: number, Rkey: Float64Array) => number;
+  if (odd <= MAX_ODD_PERIODS && totalCount <= 50_000_000) {
+    const tables = new Map<number, Float64Array>();
+    lookup = (C, R, tab) => {
+      let v = tab[C]!;
+      if (v !== v) {
+        v = kAt(C * q + R);
+        tab[C] = v;
+      }
+      return v;
+    };
+    const tableFor = (R: number) => {
+      let t = tables.get(R);
+      if (t === undefined) {
+        t = new Float64Array(totalCount + 1).fill(Number.NaN);
+        tables.set(R, t);
+      }
+      return t;
+    };
+    const base = tableFor(0);
+    const sections: WorksheetSection[] = [];
     for (let s = 0; s < n; s++) {
+      let C = 0;
+      let R = 0;
+      let tab = base;
       let positive = 0;
       let negative = 0;
       for (let p = s; p >= 0; p--) {
-        const size = change[p]! * kByCount[s - p + 1]!;
+        C += whole[p]!;
+        if (rest[p] !== 0) {
+          R += rest[p]!;
+          tab = tableFor(R);
+        }
+        const size = change[p]! * lookup(C, R, tab);
         if (size >= 0) positive += size;
         else negative += size;
       }
-      const next = periods[s + 1];
-      sections.push({
-        section: s + 1,
-        rows: [],
-        positive,
-        negative,
-        total: positive + negative,
-        needed: next === undefined || next.current <= periods[s]!.current,
-      });
+      sections.push(totalsSection(periods, s, positive, negative));
     }
     return sections;
   }
-  for (let s = 0; s < n; s++) sections.push(worksheetSection(periods, s, k, keepRows));
+  // Many irregular durations: a plain memo by time.
+  const memo = new Map<number, number>();
+  const k = (t: number) => {
+    let v = memo.get(t);
+    if (v === undefined) {
+      v = kAt(t);
+      memo.set(t, v);
+    }
+    return v;
+  };
+  const sections: WorksheetSection[] = [];
+  for (let s = 0; s < n; s++) sections.push(worksheetSection(periods, s, k, false));
   return sections;
+}
+
+function totalsSection(periods: readonly CurrentPeriod[], s: number, positive: number, negative: number): WorksheetSection {
+  const next = periods[s + 1];
+  return {
+    section: s + 1,
+    rows: [],
+    positive,
+    negative,
+    total: positive + negative,
+    needed: next === undefined || next.current <= periods[s]!.current,
+  };
 }
 
 /** Section s + 1 of the worksheet (periods 1…s + 1). */
@@ -1084,6 +1184,25 @@ export function depthOfDischargeCapacity(
     else lo = mid;
   }
   return hi;
+}
+
+/**
+ * Joins neighbouring periods whose currents lie within `rel` of the joined period's current, at the
+ * higher current: never lowers a current, so never lowers the worksheet size (each section grows
+ * with every current, see the property tests), and overstates it by at most `rel`.
+ */
+export function mergeNearPeriods(periods: readonly CurrentPeriod[], rel: number): CurrentPeriod[] {
+  const out: CurrentPeriod[] = [];
+  for (const p of periods) {
+    const last = out[out.length - 1];
+    if (last !== undefined && Math.abs(last.current - p.current) <= rel * Math.max(last.current, p.current)) {
+      last.duration += p.duration;
+      last.current = Math.max(last.current, p.current);
+    } else {
+      out.push({ duration: p.duration, current: p.current });
+    }
+  }
+  return out;
 }
 
 /**
