@@ -24,9 +24,10 @@
  *    continuous discharge C-rate also bounds the size (a datasheet K_t table is trusted instead,
  *    and a rate above the C-rate is only flagged).
  *    Depth-of-discharge limit (on by default; not part of IEEE 485, which sizes standby cells to
- *    the end voltage): the smallest C whose usable DoD·C covers the Peukert-equivalent charge of
- *    the duty cycle as the runtime study counts it, Σ I·max(1, I·H/C)^(k−1)·t, × the same factors —
- *    so a bank sized here also passes the runtime study.
+ *    the end voltage): the smallest C whose usable share DoD·C ÷ (temperature × design margin ×
+ *    aging) covers the Peukert-equivalent charge of the duty cycle as the runtime study counts it,
+ *    Σ I·max(1, I·H/C)^(k−1)·t with I_rated = C/H of the bank itself — so a bank sized here also
+ *    passes the runtime study.
  *    Temperature correction: lead-acid from IEEE 485 Table 1 (core/data/ieee-485.ts), held at
  *    1.00 above 25 °C unless credit is asked for; NiCd: IEEE 1115 takes the derating from the
  *    maker (from memory), here 1 / capacity factor of the chemistry's capacity-vs-temperature table.
@@ -861,13 +862,15 @@ export function sizeBank(input: SizingInput): SizingOutcome {
     if (input.limitDepthOfDischarge ?? true) {
       const dod = preset.usableDepthOfDischarge;
       const drawn = random === undefined ? periods : [...periods, { duration: random.duration, current: randomCurrent }];
-      const base = depthOfDischargeCapacity(drawn, preset.ratedHours, preset.peukertExponent, dod);
-      const dodSize = base * tempFactor * designMargin * agingFactor;
+      // The factors shrink the usable share of the rated capacity, and Peukert's rated current is
+      // that of the bank itself (C/H), as the runtime study counts them.
+      const factors = tempFactor * designMargin * agingFactor;
+      const dodSize = depthOfDischargeCapacity(drawn, preset.ratedHours, preset.peukertExponent, dod / factors);
       step(
         'Size for the depth-of-discharge limit',
         dodSize,
         'Ah',
-        `smallest C whose usable ${dod} × C covers the Peukert-equivalent charge Σ I·max(1, I·H/C)^(k−1)·t (${round(base)} Ah), × temperature × design margin × aging`,
+        `smallest C with ${dod} DoD × C ÷ (temperature × design margin × aging = ${round(factors)}) ≥ the Peukert-equivalent charge Σ I·max(1, I·H/C)^(k−1)·t`,
       );
       if (dodSize > required) {
         required = dodSize;
