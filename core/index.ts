@@ -7,3 +7,36 @@ export { demoProjects, type DemoProject } from './demos/index.ts';
 export { fitLossPolynomial, prepareLoss, weightedEfficiency, efficiencyAt } from './stages/loss-model.ts';
 export { receivingVoltage } from './ac/two-bus.ts';
 export { KINDS } from './stages/index.ts';
+export { defaultCatalogue, approximateDrop, resolveLimits, pathDrops, CONDUCTOR_CAUTION, type ConductorCatalogue } from './conductors/index.ts';
+export {
+  sizeBank,
+  worksheetSections,
+  peukertCapacityFactor,
+  ieee485TemperatureFactor,
+  DEFAULT_AGING_FACTOR,
+  DEFAULT_DESIGN_MARGIN,
+  type SizingInput,
+  type SizingOutcome,
+  type BankSizing,
+  type DutyCycle,
+  type WorksheetSection,
+  type WorksheetRow,
+  type SizingStep,
+} from './battery/sizing.ts';
+export {
+  rechargeTime,
+  chargerForTargetTime,
+  CHARGE_PROFILES,
+  type RechargeInput,
+  type ChargerForTimeInput,
+  type RechargeOutcome,
+  type ChargerOutcome,
+  type Recharge,
+  type ChargerSizing,
+  type ChargeProfile,
+} from './battery/recharge.ts';
+export { CHEMISTRY_PRESETS, CHEMISTRIES, type Chemistry, type ChemistryPreset, type ChemistryValues } from './data/battery-chemistries.ts';
+export { resolveBank, checkBank, ocvAt, bankOcv, capacityFactorAt, type Bank } from './battery/bank.ts';
+export { simulateDischarge, BATTERY_CAUTIONS, type DischargeResult, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './battery/discharge.ts';
+export { runBackupStudy, terminalPowerPeriods, type BackupStudyResult, type BackupStudyOutcome } from './battery/study.ts';
+export { formatBackupStudy } from './battery/text-report.ts';

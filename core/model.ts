@@ -5,6 +5,8 @@
  * metres, ohms, kelvin differences in °C. Display units are converted in `web/format/` only.
  */
 
+import type { Chemistry, ChemistryValues } from './data/battery-chemistries.ts';
+
 /** The kind of electrical (or mechanical) connection between two elements. */
 export type PortKind = 'dc' | 'ac1' | 'ac3' | 'shaft';
 
@@ -69,13 +71,41 @@ export interface AcSource extends ElementBase {
   ratedApparentPower?: number;
 }
 
-/** Battery bank as a DC source: open-circuit voltage behind an internal resistance. */
+/**
+ * A battery bank built from a chemistry preset: `series` cells (or blocks of `cellsPerBlock` cells)
+ * in series per string × `strings` in parallel. Any preset value can be overridden from a datasheet.
+ */
+export interface BatteryBankSpec {
+  chemistry: Chemistry;
+  /** Cells (or blocks) in series per string. */
+  series: number;
+  /** Strings in parallel (default 1). */
+  strings?: number;
+  /** Cells per block: 1 for single cells (default), 6 for a 12 V lead-acid block, … */
+  cellsPerBlock?: number;
+  /** Rated capacity of one string (one cell or block), Ah, at the chemistry's rated hours. */
+  capacityAh: number;
+  /** State of charge at the start of the outage, 0…1 (default 1: full). */
+  initialSoc?: number;
+  /** Datasheet values that replace the preset's (per cell, units as in the preset). */
+  overrides?: Partial<ChemistryValues>;
+}
+
+/**
+ * Battery bank as a DC source: open-circuit voltage behind an internal resistance. Either give
+ * `voltage` (and optionally `internalResistance`) directly, or a `bank`: the open-circuit voltage
+ * is then OCV(initial state of charge) × cells in series, and the internal resistance the preset's
+ * per-cell value scaled by series/strings/capacity (`internalResistance`, if given, overrides it).
+ * A `voltage` given beside a `bank` must agree with the bank's open-circuit voltage.
+ */
 export interface BatterySource extends ElementBase {
   kind: 'battery';
-  /** Open-circuit voltage of the bank, V. */
-  voltage: number;
-  /** Internal resistance of the whole bank, Ω (optional; 0 = stiff). */
+  /** Open-circuit voltage of the bank, V (required without a `bank`). */
+  voltage?: number;
+  /** Internal resistance of the whole bank, Ω (optional; 0 = stiff without a bank). */
   internalResistance?: number;
+  /** Cells, strings and chemistry of the bank. */
+  bank?: BatteryBankSpec;
 }
 
 export type Source = AcSource | BatterySource;
@@ -152,18 +182,69 @@ export interface MotorStage extends FedElement {
   ratedSpeed?: number;
 }
 
+/** NEC raceway type, for the reactance (and AC resistance) columns of NEC Chapter 9 Table 9. */
+export type NecRaceway = 'pvc' | 'aluminum' | 'steel';
+
+/** IEC 60364-5-52 reference installation methods (Table B.52.1). */
+export type IecInstallationMethod = 'A1' | 'A2' | 'B1' | 'B2' | 'C' | 'D1' | 'D2' | 'E' | 'F' | 'G';
+
+interface ConductorSpecBase {
+  material: 'copper' | 'aluminium';
+  /**
+   * A size label from the system's table ("4 AWG", "1/0 AWG", "250 kcmil"; "2.5 mm²"), or "auto"
+   * to pick the smallest size that meets ampacity, protection and voltage drop.
+   */
+  size: string;
+  /** Ambient temperature around the run, °C (default 30, the tables' base). */
+  ambient?: number;
+  /** Apply 125 % to the load current (continuous load, NEC 210.19(A)(1) / 215.2(A)(1)); default false. */
+  continuous?: boolean;
+  /** Allowed voltage drop on this link, % of its sending voltage (default: the project's per-link limit). */
+  maxDropPercent?: number;
+}
+
+/** Conductor chosen from NEC tables (310.16, 310.15, Chapter 9 Tables 8 and 9, 240.6(A)). */
+export interface NecConductorSpec extends ConductorSpecBase {
+  system: 'nec';
+  /** Insulation temperature rating, °C: the Table 310.16 column that corrections apply to. */
+  insulationRating: 60 | 75 | 90;
+  /** Termination temperature rating, °C (NEC 110.14(C); default 75, common practice). */
+  terminationRating?: 60 | 75 | 90;
+  /** Raceway for Table 9 (default "pvc"). */
+  raceway?: NecRaceway;
+  /** Current-carrying conductors in the raceway or cable (default 2 on DC and 1φ, 3 on 3φ). */
+  currentCarryingConductors?: number;
+}
+
+/** Conductor chosen from IEC tables (60228, 60364-5-52, 60898-1). */
+export interface IecConductorSpec extends ConductorSpecBase {
+  system: 'iec';
+  insulation: 'pvc' | 'xlpe';
+  installationMethod: IecInstallationMethod;
+  /** Loaded conductors per circuit, 2 or 3 (default 2 on DC and 1φ, 3 on 3φ). */
+  loadedConductors?: 2 | 3;
+  /** Circuits grouped together (Table B.52.17, bunched; default 1). */
+  groupedCircuits?: number;
+}
+
+export type ConductorSpec = NecConductorSpec | IecConductorSpec;
+
 /**
  * A cable link: passes the interface kind through, drops voltage over its series impedance.
  * DC and single-phase use the loop (go and return) length; three-phase is solved per phase.
+ * Give exactly one of an explicit impedance (`resistancePerKm`, optional `reactancePerKm`) or a
+ * `conductor` spec, from which the impedance is taken (and, with size "auto", the size chosen).
  */
 export interface CableStage extends FedElement {
   kind: 'cable';
   /** One-way route length, m. */
   length: number;
   /** Conductor resistance at operating temperature, Ω per km of one conductor. */
-  resistancePerKm: number;
+  resistancePerKm?: number;
   /** Conductor reactance, Ω per km of one conductor (ignored on DC). */
   reactancePerKm?: number;
+  /** A conductor from the NEC or IEC tables, instead of an explicit impedance. */
+  conductor?: ConductorSpec;
   /** Number of identical conductor sets in parallel (default 1). */
   parallelSets?: number;
 }
@@ -236,4 +317,95 @@ export interface Project {
   description?: string;
   /** Every element of the tree; the single source has no `from`. Order does not matter. */
   elements: Element[];
+  /** Battery backup study (runtime, sizing, recharge) for a project fed by a battery `bank`. */
+  backup?: BackupStudy;
+  /** Voltage-drop limits the whole-path check flags against (default: 3 % per link, 5 % total). */
+  dropLimits?: DropLimits;
+}
+
+/**
+ * Voltage-drop limits, % of the voltage where the path starts. `basis` picks a published set;
+ * `perLinkPercent` / `totalPercent` override it.
+ * - "nec-informational": 3 % per link, 5 % total (NEC 210.19(A) IN No. 3, 215.2(A) IN No. 2;
+ *   informational notes, not enforceable on their own).
+ * - "iec-a-lighting" 3 %, "iec-a-other" 5 %, "iec-b-lighting" 6 %, "iec-b-other" 8 % total
+ *   (IEC 60364-5-52:2009 Annex G, Table G.52.1, informative; A = supplied from a public LV network,
+ *   B = from a private supply).
+ */
+export interface DropLimits {
+  basis?: 'nec-informational' | 'iec-a-lighting' | 'iec-a-other' | 'iec-b-lighting' | 'iec-b-other';
+  perLinkPercent?: number;
+  totalPercent?: number;
+}
+
+// ---------- Battery backup study ----------
+
+/**
+ * How one load is set during a profile segment: a number is its power (W; VA for an
+ * apparent-power load), `true` its power as given in the element, `false` off.
+ */
+export type LoadSetting = number | boolean;
+
+/** One segment of a profile; loads not listed run at their element's power. */
+export interface ProfileSegment {
+  /** Length of the segment, h. */
+  durationHours: number;
+  loads?: Record<string, LoadSetting>;
+}
+
+/** One segment of a repeating 24-hour profile: lasts from `startHour` to the next segment's start. */
+export interface DailySegment {
+  /** Hour of the day at which this segment starts, 0 ≤ startHour < 24. */
+  startHour: number;
+  loads?: Record<string, LoadSetting>;
+}
+
+/** A load that switches on and off on its own (compressor, pump): on for `onMinutes` of every `periodMinutes`. */
+export interface DutySchedule {
+  /** Id of the load element. */
+  load: string;
+  periodMinutes: number;
+  onMinutes: number;
+  /** Minutes into the outage at which the first on-period starts (default 0). */
+  offsetMinutes?: number;
+}
+
+/**
+ * The load over time during the outage.
+ * - `constant`: every load at its element's power.
+ * - `segments`: the segments in turn, once (or over and over with `repeat`).
+ * - `daily`: a 24-hour profile repeating, the outage starting at `startHour` of the day.
+ * `duty` schedules apply on top of any of them (a load is on only when both say so).
+ */
+export type LoadProfile =
+  | { kind: 'constant'; duty?: DutySchedule[] }
+  | { kind: 'segments'; segments: ProfileSegment[]; repeat?: boolean; duty?: DutySchedule[] }
+  | { kind: 'daily'; segments: DailySegment[]; startHour?: number; duty?: DutySchedule[] };
+
+/** Settings of the battery backup study. Times carry their unit in the field name. */
+export interface BackupStudy {
+  profile: LoadProfile;
+  /** Integration time step, s (default 60). */
+  timeStepSeconds?: number;
+  /** Longest outage simulated, h (default 168 = one week). */
+  horizonHours?: number;
+  /** Cell temperature during the outage, °C (default 25). */
+  temperatureC?: number;
+  /** Capacity left after aging, fraction of rated (default 1: a new bank; 0.8 at end of life). */
+  stateOfHealth?: number;
+  // Settings of the sizing and recharge (core/battery/sizing.ts, recharge.ts):
+  /** Runtime the bank must give through the profile, h. */
+  targetRuntimeHours?: number;
+  /** Design margin on the sizing, ≥ 1 (default 1.10). */
+  designMargin?: number;
+  /** Aging factor on the sizing, ≥ 1 (default per chemistry). */
+  agingFactor?: number;
+  /** Standard capacities to pick from, Ah (default: continuous). */
+  standardCapacitiesAh?: number[];
+  /** Charger DC output current, A. */
+  chargerCurrent?: number;
+  /** Charger efficiency (DC out / AC in), 0…1. */
+  chargerEfficiency?: number;
+  /** Time in which the bank must be recharged, h. */
+  targetRechargeHours?: number;
 }

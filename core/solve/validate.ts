@@ -7,6 +7,8 @@ import type { Element, Project } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { KINDS } from '../stages/index.ts';
 import { checkStructure, skeletonOf } from './structure.ts';
+import { backupSchema } from '../battery/profile.ts';
+import { dropLimitsSchema } from '../conductors/path-drop.ts';
 
 const projectShape = z.strictObject({
   format: z.literal('joulepath-project', { error: 'must be "joulepath-project"' }),
@@ -14,6 +16,8 @@ const projectShape = z.strictObject({
   name: z.string({ error: 'must be text' }),
   description: z.string({ error: 'must be text' }).optional(),
   elements: z.array(z.unknown(), { error: 'must be a list of elements' }),
+  backup: backupSchema.optional(),
+  dropLimits: dropLimitsSchema.optional(),
 });
 
 /**

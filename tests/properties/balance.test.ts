@@ -262,6 +262,8 @@ describe('port consistency', () => {
           cables++;
           const spec = project.elements.find((x) => x.id === e.id)!;
           if (spec.kind !== 'cable') throw new Error('kind');
+          // The generator gives every cable an explicit impedance (no conductor spec).
+          if (spec.resistancePerKm === undefined) throw new Error(`${spec.id} has no explicit resistance`);
           const kind = e.input!.kind;
           const km = ((kind === 'ac3' ? 1 : 2) * spec.length) / 1000 / (spec.parallelSets ?? 1);
           const rPh = spec.resistancePerKm * km;
