@@ -37,6 +37,7 @@ export {
 } from './battery/recharge.ts';
 export { CHEMISTRY_PRESETS, CHEMISTRIES, type Chemistry, type ChemistryPreset, type ChemistryValues } from './data/battery-chemistries.ts';
 export { resolveBank, checkBank, ocvAt, bankOcv, capacityFactorAt, type Bank } from './battery/bank.ts';
-export { simulateDischarge, BATTERY_CAUTIONS, type DischargeResult, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './battery/discharge.ts';
+export { simulateDischarge, type DischargeResult, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './battery/discharge.ts';
 export { runBackupStudy, terminalPowerPeriods, type BackupStudyResult, type BackupStudyOutcome } from './battery/study.ts';
 export { formatBackupStudy } from './battery/text-report.ts';
+export { bankCautions, rechargeCautions } from './battery/cautions.ts';

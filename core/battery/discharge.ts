@@ -23,6 +23,7 @@
  * - the profile ends (a `segments` profile run once) or the horizon is reached: the runtime is
  *   then "longer than" that time, never Infinity.
  */
+import { bankCautions } from './cautions.ts';
 import type { BackupStudy, BatterySource, Element, Project } from '../model.ts';
 import type { ElementResult } from '../result.ts';
 import type { Problem } from '../errors.ts';
@@ -122,11 +123,6 @@ export interface DischargeResult {
 
 export type DischargeOutcome = { ok: true; result: DischargeResult } | { ok: false; problems: Problem[] };
 
-export const BATTERY_CAUTIONS: readonly string[] = [
-  'Planning estimate only: the bank maker\u2019s discharge tables, local codes and licensed practice govern the final design.',
-  'Fit overcurrent protection (fuse or breaker) as close to the battery as practical, rated to interrupt the bank\u2019s prospective fault current.',
-  'Lithium cells must not be charged below 0 °C (or the maker\u2019s limit); use the battery management system\u2019s low-temperature charge cut-off.',
-];
 
 const H = 3600;
 
@@ -349,7 +345,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
     warnings.push(`${temperatureC} °C is outside the capacity-vs-temperature table (${t[0]!.temperatureC} to ${t[t.length - 1]!.temperatureC} °C); its end value is used`);
   }
   if (!solver.fast) warnings.push('an element between the bank and the first converter is neither a cable nor a DC bus: the whole chain was re-solved at every step');
-  const cautions = [...BATTERY_CAUTIONS];
+  const cautions = bankCautions(bank.chemistry);
   if (v.minChargeTemperatureC >= 0 && temperatureC < v.minChargeTemperatureC) {
     cautions.push(`At ${temperatureC} °C this ${bank.label} bank must not be charged (minimum ${v.minChargeTemperatureC} °C); warm it first.`);
   }

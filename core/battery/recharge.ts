@@ -30,7 +30,8 @@
  */
 import type { Chemistry, ChemistryPreset, ChemistryValues } from '../data/battery-chemistries.ts';
 import type { Problem } from '../errors.ts';
-import { isLithium, problem, resolvePreset } from './sizing.ts';
+import { problem, resolvePreset } from './sizing.ts';
+import { isLithium, rechargeCautions } from './cautions.ts';
 
 /** How a chemistry charges (common practice, no single source; override from the charger maker). */
 export interface ChargeProfile {
@@ -186,10 +187,6 @@ const DEFAULT_FIELDS: RechargeFieldPaths = {
   targetTime: 'backup.targetRechargeHours',
 };
 
-export const RECHARGE_CAUTIONS: readonly string[] = [
-  'Planning estimate only: the charger and cell makers\u2019 data, local codes and licensed practice govern.',
-  'Set the charge and float voltages from the cell maker\u2019s data (lead-acid: compensated for temperature).',
-];
 
 const isFiniteNumber = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
 
@@ -400,7 +397,7 @@ function build(m: Model, chargerCurrent: number): Recharge {
     acInputEnergyWh,
     steps,
     warnings,
-    cautions: [...RECHARGE_CAUTIONS, ...(isLithium(m.preset.chemistry) ? [`Never charge ${m.preset.label} below ${m.preset.minChargeTemperatureC} °C.`] : [])],
+    cautions: rechargeCautions(m.preset.chemistry),
   };
 }
 

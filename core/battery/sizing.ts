@@ -48,6 +48,7 @@
  * bank voltage (end-of-discharge cell voltage × cells), the conservative choice — the current of a
  * constant-power load is highest there.
  */
+import { bankCautions, isLithium } from './cautions.ts';
 import {
   CHEMISTRIES,
   CHEMISTRY_PRESETS,
@@ -309,25 +310,13 @@ const DEFAULT_FIELDS: SizingFieldPaths = {
   randomLoad: 'backup.randomLoad',
 };
 
-/** The cautions every battery sizing carries. */
-export const SIZING_CAUTIONS: readonly string[] = [
-  'Planning estimate only: the cell maker\u2019s data, local codes and licensed practice govern the final selection.',
-  'Fit a fuse or breaker as close to the bank as practical, rated to interrupt the bank\u2019s prospective short-circuit current (lithium banks can deliver many kA).',
-];
-const VENTED_CAUTION =
-  'Vented cells give off hydrogen on charge: the battery room or enclosure needs ventilation sized for it.';
-const LITHIUM_CAUTION =
-  'Lithium cells need a battery management system that disconnects on over-/under-voltage, over-current and temperature; never charge below the maker\u2019s minimum charge temperature (typically 0 °C).';
-
 // ---------------------------------------------------------------------------------------------
 // Shared helpers (also used by recharge.ts)
 // ---------------------------------------------------------------------------------------------
 
 const LEAD_ACID: ReadonlySet<Chemistry> = new Set<Chemistry>(['flooded-lead-acid', 'vrla-agm', 'gel']);
-const LITHIUM: ReadonlySet<Chemistry> = new Set<Chemistry>(['lifepo4', 'nmc']);
 
 export const isLeadAcid = (c: Chemistry): boolean => LEAD_ACID.has(c);
-export const isLithium = (c: Chemistry): boolean => LITHIUM.has(c);
 
 /** Builds a problem; `value` is kept only when JSON can carry it. */
 export function problem(
@@ -947,9 +936,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
   step('Bank capacity', bankCapacity, 'Ah', `${choice.strings} × ${round(choice.perString)} Ah, rated at ${preset.ratedHours} h`);
   step('Bank energy (nominal)', bankEnergyWh, 'Wh', `${round(bankCapacity)} Ah × ${round(nominalVoltage)} V`);
 
-  const cautions = [...SIZING_CAUTIONS];
-  if (preset.chemistry === 'flooded-lead-acid' || preset.chemistry === 'nicd') cautions.push(VENTED_CAUTION);
-  if (isLithium(preset.chemistry)) cautions.push(LITHIUM_CAUTION);
+  const cautions = bankCautions(preset.chemistry);
   if (worksheet) {
     cautions.push(
       'The worksheet sizes to the end-of-discharge voltage with no depth-of-discharge limit: for daily cycling, size for the depth of discharge instead.',

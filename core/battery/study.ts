@@ -42,6 +42,18 @@ export function terminalPowerPeriods(d: DischargeResult): PowerPeriod[] {
   return out;
 }
 
+/** The project with its bank made too large to run out within `hours` (same R, same start). */
+function withEndlessBank(input: unknown, batteryId: string, internalResistance: number, hours: number): unknown {
+  const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec; internalResistance?: number }[] };
+  return {
+    ...project,
+    backup: { ...project.backup, horizonHours: hours },
+    elements: project.elements.map((e) =>
+      e.id === batteryId && e.bank ? { ...e, internalResistance, bank: { ...e.bank, capacityAh: e.bank.capacityAh * 1e6 } } : e,
+    ),
+  };
+}
+
 /** Run the whole study for a project given as untrusted data. Never throws on bad input. */
 export function runBackupStudy(input: unknown): BackupStudyOutcome {
   const simulated = simulateDischarge(input);
@@ -55,9 +67,19 @@ export function runBackupStudy(input: unknown): BackupStudyOutcome {
   const problems: Problem[] = [];
 
   if (study.targetRuntimeHours !== undefined) {
-    const periods = terminalPowerPeriods(d);
-    result.sizingBasis =
-      'terminal power of the simulated outage, step by step; where the target runtime is longer than the simulated run, the profile is repeated from its start';
+    const target = study.targetRuntimeHours * 3600;
+    let periods = terminalPowerPeriods(d);
+    result.sizingBasis = 'terminal power of the simulated outage, step by step, cut at the target runtime';
+    if (d.runtimeSeconds < target && !d.runtimeIsLowerBound) {
+      // The bank ran out before the target: the profile must go on to the target for the sizing. Run
+      // it again from a bank too large to run out (same internal resistance, same starting charge),
+      // so a daily profile carries on through its next hours instead of restarting.
+      const extended = simulateDischarge(withEndlessBank(input, d.batteryId, d.bank.internalResistance, study.targetRuntimeHours));
+      if (!extended.ok) return extended;
+      periods = terminalPowerPeriods(extended.result);
+      result.sizingBasis =
+        'terminal power of the profile over the whole target runtime, from a run with a bank too large to run out (its voltage stays near full charge, so cable losses late in a real discharge are slightly understated)';
+    }
     const sized = sizeBank({
       elementId: d.batteryId,
       chemistry: spec.chemistry,

@@ -42,7 +42,7 @@ export function formatBackupStudy(study: BackupStudyResult): string {
     out.push(
       '',
       `Bank sizing (${s.method === 'energy' ? 'energy method' : s.method === 'ieee-485-worksheet' ? 'IEEE 485 duty-cycle worksheet' : 'IEEE 1115 duty-cycle worksheet'})`,
-      `  ${s.seriesBlocks} × ${s.cellsPerBlock > 1 ? `${s.cellsPerBlock}-cell blocks` : 'cells'} in series × ${s.strings} string(s) × ${n(s.capacityPerString)} Ah = ${n(s.bankCapacity)} Ah, ${n(s.bankEnergyWh, 0)} Wh (governed by ${s.governing.kind === 'section' ? `section ${s.governing.section}` : s.governing.kind})`,
+      `  ${s.seriesBlocks} ${s.cellsPerBlock > 1 ? `${s.cellsPerBlock}-cell blocks` : 'cells'} in series × ${s.strings} string(s) × ${n(s.capacityPerString)} Ah = ${n(s.bankCapacity)} Ah, ${n(s.bankEnergyWh, 0)} Wh (governed by ${s.governing.kind === 'section' ? `section ${s.governing.section}` : s.governing.kind})`,
     );
     if (study.sizingBasis) out.push(`  Duty cycle: ${study.sizingBasis}`);
     for (const st of s.steps) out.push(`  ${st.label.padEnd(44)} ${`${fmtStep(st.value)} ${st.unit}`.trim().padStart(14)}   ${st.note}`);

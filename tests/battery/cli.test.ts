@@ -25,7 +25,7 @@ describe('command-line battery backup study', () => {
     expect(out).toContain('standby draw of 3 kW inverter');
     expect(out).toContain('Bank sizing (energy method)');
     expect(out).toContain('Recharge with a 40.0 A charger');
-    expect(out).toContain('close to the battery');
+    expect(out).toContain('as close to the bank as practical');
     expect(out).toContain('must not be charged below 0 °C');
     expect(out).toContain('licensed practice govern');
   }, 30_000);

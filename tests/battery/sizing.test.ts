@@ -387,7 +387,7 @@ describe('lithium energy method, worked by hand', () => {
     expect([s.seriesCells, s.strings, s.capacityPerString, s.bankCapacity]).toEqual([15, 2, 280, 560]);
     expect(s.bankEnergyWh).toBeCloseTo(26880, 9); // 560 Ah × 48 V
     expect(s.usableEnergyWh).toBeCloseTo(24192, 9); // × 0.90
-    expect(s.cautions.join(' ')).toMatch(/below the maker.s minimum charge temperature/);
+    expect(s.cautions.join(' ')).toMatch(/must not be charged below 0 °C/); // lithium: common practice (no source)
     expect(s.sections).toEqual([]);
   });
 
