@@ -536,8 +536,9 @@ describe('long sampled profiles', () => {
 
 describe('a bank sized here passes the runtime study (core/battery/discharge.ts)', () => {
   // The hillside demo (invented scenario) with the bank replaced by the sized one: the simulated
-  // runtime through the same daily profile must reach the target. Sizing inputs come from the
-  // study itself (terminal power of the simulated outage, repeated to the target).
+  // runtime through the same daily profile must reach the target, also at end of life (capacity
+  // down to 1/aging factor). Sizing inputs come from the study itself (terminal power of the
+  // profile, continued to the target when the 150 Ah bank runs out first).
   const variants: [string, { chemistry: 'lifepo4' | 'flooded-lead-acid' | 'vrla-agm'; series: number; cellsPerBlock?: number }][] = [
     ['LiFePO4, 16 cells', { chemistry: 'lifepo4', series: 16 }],
     ['flooded lead-acid, 24 cells', { chemistry: 'flooded-lead-acid', series: 24 }],
@@ -556,5 +557,10 @@ describe('a bank sized here passes the runtime study (core/battery/discharge.ts)
     if (!run.ok) throw new Error(JSON.stringify(run.problems));
     // The target (30 h) is reached: the run ends later, or not at all within the 40 h horizon.
     expect(run.result.runtimeSeconds).toBeGreaterThanOrEqual(30 * 3600);
+    // At end of life: state of health 1/1.25, the default aging factor (IEEE 485 common practice).
+    project.backup = { ...project.backup!, stateOfHealth: 1 / 1.25 };
+    const old = simulateDischarge(project);
+    if (!old.ok) throw new Error(JSON.stringify(old.problems));
+    expect(old.result.runtimeSeconds).toBeGreaterThanOrEqual(30 * 3600);
   });
 });
