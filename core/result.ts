@@ -184,7 +184,7 @@ export interface ConductorResult {
 
 /** Cumulative voltage drop from where a path starts to one load. */
 export interface PathDrop {
-  /** The load at the end of the path. */
+  /** The load at the end of the path, or a regulating converter (the drop at its input). */
   loadId: string;
   /** The source or regulating converter the path starts from (it sets the voltage afresh). */
   startId: string;

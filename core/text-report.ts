@@ -100,7 +100,7 @@ export function formatResult(result: SolveResult): string {
     out.push('', `Voltage drop by path (limits: ${paths[0]!.limitBasis})`);
     out.push(
       table(
-        ['load', 'from', 'links', 'total', 'limit', 'status'],
+        ['to', 'from', 'links', 'total', 'limit', 'status'],
         paths
           .filter((p) => p.links.length > 0)
           .map((p) => [

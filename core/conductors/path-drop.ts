@@ -1,5 +1,6 @@
 /**
- * Whole-path voltage drop: for each load, the cable links between it and the nearest upstream
+ * Whole-path voltage drop: for each load — and for each regulating converter's input, whose
+ * supply voltage matters as much — the cable links between it and the nearest upstream
  * point that sets the voltage afresh — the source's terminals or the output of a regulating
  * converter (rectifier, DC-DC, inverter, drive, generic stage), which holds its set point whatever
  * the drop upstream — with each link's drop as a percentage of its own sending voltage, summed.
@@ -58,12 +59,12 @@ export function resolveLimits(limits: DropLimits | undefined): ResolvedLimits {
 /** The allowed drop on one link for sizing: its own setting, else the per-link limit, else the total. */
 export const linkLimit = (own: number | undefined, limits: ResolvedLimits): number => own ?? limits.perLinkPercent ?? limits.totalPercent;
 
-/** Cumulative drop from the path's start to every load, flagged against the limits. */
+/** Cumulative drop from the path's start to every load and converter input, flagged against the limits. */
 export function pathDrops(elements: readonly ElementResult[], limits: ResolvedLimits, perLinkOwn: ReadonlyMap<string, number> = new Map()): PathDrop[] {
   const byId = new Map(elements.map((e) => [e.id, e]));
   const out: PathDrop[] = [];
   for (const load of elements) {
-    if (load.role !== 'load') continue;
+    if (load.role !== 'load' && !REGULATING.has(load.kind)) continue;
     const links: PathDrop['links'] = [];
     let terminal: ElementResult = load;
     let at: ElementResult | undefined = load;

@@ -266,6 +266,11 @@ describe('whole-path voltage drop', () => {
     const radio = paths.find((p) => p.loadId === 'radio')!;
     expect(radio.startId).toBe('conv'); // the DC-DC converter holds 24 V: the path starts afresh there
     expect(radio.links.map((l) => l.id)).toEqual(['tail']);
+    // The converter's own input is a path end too: the feed drop it sees (bus passes it through).
+    const convIn = paths.find((p) => p.loadId === 'conv')!;
+    expect(convIn.startId).toBe('src');
+    expect(convIn.links.map((l) => l.id)).toEqual(['feed']);
+    expect(convIn.totalPercent).toBeCloseTo(pct('feed'), 12);
     // Defaults: 3 % per link, 5 % total (NEC 210.19(A) IN No. 3, informational).
     expect(lamp.perLinkLimitPercent).toBe(3);
     expect(lamp.totalLimitPercent).toBe(5);
