@@ -55,7 +55,7 @@ export interface LinkOutcome {
 const hasConductor = (e: Element): e is CableStage & { conductor: ConductorSpec } => e.kind === 'cable' && e.conductor !== undefined;
 
 /** The project with each conductor link's spec replaced by the explicit impedance of its chosen size. */
-function resolve(project: Project, links: ReadonlyMap<string, Link>): Project {
+function resolve(project: Project, links: ReadonlyMap<string, { r: number; x: number }>): Project {
   return {
     ...project,
     elements: project.elements.map((e) => {
@@ -73,24 +73,23 @@ const indexOf = (order: readonly PlannedElement[], id: string): number => order.
 export function sizeConductors(project: Project, catalogue: ConductorCatalogue = defaultCatalogue): Sized {
   const specs = project.elements.filter(hasConductor);
   const limits = resolveLimits(project.dropLimits);
-  const links = new Map<string, Link>();
-  // Pass 0: conductor links ideal, to learn their port kinds and the lowest currents.
-  for (const e of specs) {
-    links.set(e.id, { element: e, spec: e.conductor, prepared: undefined as unknown as PreparedConductor, limitPercent: linkLimit(e.conductor.maxDropPercent, limits), position: -1, r: 0, x: 0 });
-  }
-  const planned: Plan = plan(resolve(project, links));
-  if (!planned.ok) return planned;
-  if (links.size === 0) {
+  if (specs.length === 0) {
+    const planned = plan(project);
+    if (!planned.ok) return planned;
     const swept = sweep(planned.order);
     return swept.ok ? { ok: true, order: planned.order, point: swept.point, links: new Map(), passes: 0 } : swept;
   }
+  // Pass 0: conductor links ideal, to learn their port kinds and the lowest currents.
+  const planned: Plan = plan(resolve(project, new Map(specs.map((e) => [e.id, { r: 0, x: 0 }]))));
+  if (!planned.ok) return planned;
+  const links = new Map<string, Link>();
   const problems: Problem[] = [];
-  for (const link of links.values()) {
-    const node = planned.order[indexOf(planned.order, link.element.id)];
+  for (const e of specs) {
+    const node = planned.order[indexOf(planned.order, e.id)];
     if (!node?.input) continue; // not reached from the source: plan has reported why
-    const prepared = prepareConductor(link.element, link.spec, node.input.kind, catalogue);
+    const prepared = prepareConductor(e, e.conductor, node.input.kind, catalogue);
     if (!prepared.ok) problems.push(...prepared.problems);
-    else link.prepared = prepared.prepared;
+    else links.set(e.id, { element: e, spec: e.conductor, prepared: prepared.prepared, limitPercent: linkLimit(e.conductor.maxDropPercent, limits), position: -1, r: 0, x: 0 });
   }
   if (problems.length) return { ok: false, problems };
 
@@ -162,9 +161,4 @@ export function attachConductors(result: SolveResult, project: Project, sized: E
     return { ...r, conductor };
   });
   return { ...result, elements, warnings, voltageDrop: pathDrops(elements, limits, own) };
-}
-
-/** Whole-path drops for a result without conductor links (explicit impedances only). */
-export function attachPathDrops(result: SolveResult, project: Project): SolveResult {
-  return { ...result, voltageDrop: pathDrops(result.elements, resolveLimits(project.dropLimits)) };
 }
