@@ -84,7 +84,10 @@ export function chooseDevice(p: PreparedConductor, cand: Candidate, design: numb
   }
   if (rating <= izTotal * (1 + 1e-12)) {
     const d = limit !== undefined ? ` and within the NEC 240.4(D) limit of ${limit} A` : '';
-    return { rating, ok: true, note: `smallest ${deviceWords(p)} rating ≥ ${design.toFixed(1)} A; ${rating} A ≤ ampacity ${izTotal.toFixed(1)} A${d}` };
+    // Ratings are the standard current steps; on DC the device must also be rated for DC at the
+    // circuit voltage (breaking a DC arc is harder; common practice, e.g. IEC 60898-2 / UL 489 DC ratings).
+    const dc = p.kind === 'dc' ? '; on DC use a fuse or breaker rated for DC at this voltage' : '';
+    return { rating, ok: true, note: `smallest ${deviceWords(p)} rating ≥ ${design.toFixed(1)} A; ${rating} A ≤ ampacity ${izTotal.toFixed(1)} A${d}${dc}` };
   }
   if (p.spec.system === 'nec' && rating <= 800) {
     return {
