@@ -1,0 +1,59 @@
+/**
+ * Load from circuit elements: a network of R, L and C (core/ac/network.ts) at the frequency of the
+ * interface feeding it. Unlike the constant-power loads it is a constant-IMPEDANCE load:
+ * S = m·|V_phase|²/conj(Z_phase) (complex power of an impedance, S = V·conj(V/Z)), with m phases
+ * and Z_phase the per-phase star equivalent (the network itself on single-phase and in star, a
+ * third of it in delta: Z_Y = Z_Δ/3). The backward sweep evaluates it at the input voltage of the
+ * previous forward sweep, so the fixed-point iteration of the solve settles it like any other load.
+ */
+import { z } from 'zod';
+import type { NetworkLoad } from '../model.ts';
+import { type Complex, ZERO, abs, c, conj, div, scale } from '../ac/complex.ts';
+import { networkImpedance, parseNetwork, starEquivalent } from '../ac/network.ts';
+import { defineKind, fromField, idField, nameField, phaseCount } from './spec.ts';
+
+/** The network is checked entry by entry; each problem carries its own path (e.g. network.series.1.capacitor). */
+const networkSchema = z.unknown().superRefine((raw, ctx) => {
+  if (raw === undefined) {
+    ctx.addIssue({ code: 'custom', message: 'is required: the circuit elements, e.g. {"series": [{"resistor": "12 Ω"}, {"inductor": "40 mH"}]}' });
+    return;
+  }
+  const parsed = parseNetwork(raw);
+  if (!parsed.ok) for (const issue of parsed.issues) ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path, input: issue.value });
+});
+
+export const networkLoadKind = defineKind<NetworkLoad>({
+  kind: 'network-load',
+  role: 'load',
+  // A connection says the load is three-phase; without one it sits across a single-phase supply,
+  // or is taken as star on three-phase.
+  accepts: (e) => (e.connection === undefined ? ['ac1', 'ac3'] : ['ac3']),
+  schema: z.strictObject({
+    id: idField,
+    name: nameField,
+    from: fromField,
+    kind: z.literal('network-load'),
+    network: networkSchema,
+    connection: z.enum(['star', 'delta'], { error: 'must be "star" or "delta" (three-phase only)' }).optional(),
+  }) as z.ZodType<NetworkLoad>,
+  build(e, input) {
+    const kind = input!.kind;
+    const parsed = parseNetwork(e.network);
+    // The schema passed, so the network reads; a frequency is always present on an AC port.
+    if (!parsed.ok) throw new Error(`network-load "${e.id}" reached the solve unvalidated`);
+    const zNet = networkImpedance(parsed.network, input!.frequency ?? 0);
+    const zPhase = starEquivalent(zNet, kind === 'ac3' ? (e.connection ?? 'star') : 'single-phase');
+    const m = phaseCount(kind);
+    // conj(Y) = 1/conj(Z); an open network (ideal parallel resonance, |Z| infinite) draws nothing.
+    const conjY: Complex = Number.isFinite(abs(zPhase)) ? div(c(1), conj(zPhase)) : ZERO;
+    return {
+      out: null,
+      outputVoltage: () => ZERO,
+      inputPower: (_sOut, vIn) => {
+        const v = abs(vIn);
+        return scale(conjY, m * v * v);
+      },
+      report: () => ({ warnings: [] }),
+    };
+  },
+});
