@@ -104,3 +104,18 @@ export function checkOperatingPoint(speed: number, torque: number, field: string
 export function truePowerFactor(displacement: number, thd: number): number {
   return displacement / Math.sqrt(1 + thd * thd);
 }
+
+/**
+ * Drive loss at a user-given operating point: refuses a point outside 0–100 % (speed or torque)
+ * and bad loss points, naming the field; otherwise the bilinear interpolation of `driveLossAt`.
+ */
+export function driveLossAtPoint(
+  spec: DriveStandardLoss,
+  point: { speed: number; torque: number },
+  elementId = 'drive',
+): { ok: true; result: DriveLossAt & { source: string } } | { ok: false; problems: Problem[] } {
+  const g = driveLossGrid(spec);
+  const issues = [...checkOperatingPoint(point.speed, point.torque, 'operatingPoint'), ...(g.ok ? [] : g.problems)];
+  if (issues.length || !g.ok) return { ok: false, problems: issues.map((p) => ({ ...p, elementId })) };
+  return { ok: true, result: { ...driveLossAt(g.grid, point.speed, point.torque), source: g.grid.source } };
+}

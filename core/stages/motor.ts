@@ -1,12 +1,22 @@
 /**
- * Motor: AC in, shaft power out. Loss from its loss model against shaft output; reactive power from
- * the power factor at the present load fraction: Q = P_in·tan(arccos pf).
+ * Motor: AC in, shaft power out. Efficiency and power factor come from exactly one of
+ * - explicit models: `loss` (against shaft output) and `powerFactor` (constant or vs load fraction);
+ * - an efficiency-class preset (IEC 60034-30-1 IE1–IE4, NEMA MG 1 Table 12-12 Premium) or the
+ *   nameplate full-load values, with the common-practice part-load shape
+ *   (core/machines/motor-rating.ts, core/data/motor-part-load.ts).
+ * Loss: P_loss = P_shaft·(1/η(x) − 1), x = P_shaft / rated output. Reactive power from the power
+ * factor at the present load fraction: Q = P_in·tan(arccos pf).
+ * Service factor: a load above rated but within SF × rated warns; above SF × rated is refused by the
+ * machine check (core/machines/details.ts) and warned here.
+ * Shaft speed: rated speed × (supply frequency / rated frequency) when both are known (a motor on a
+ * drive; slip taken as a constant fraction, common practice).
  */
 import { z } from 'zod';
 import type { MotorStage, PowerFactorModel } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { prepareLoss, interpolate } from './loss-model.ts';
-import { checkLossModel, checkPoints, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction } from './spec.ts';
+import { checkLossModel, checkPoints, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction, type KindWarning } from './spec.ts';
+import { MOTOR_CLASSES, motorRating, ratedAt } from '../machines/motor-rating.ts';
 
 const pfModel = z.discriminatedUnion(
   'model',
@@ -31,6 +41,11 @@ function pfAt(model: PowerFactorModel, x: number): number {
   return interpolate(pts, x).y;
 }
 
+/** Shaft load beyond the service factor: the message the refusal and the warning share. */
+export function serviceFactorMessage(pShaft: number, rated: number, sf: number): string {
+  return `shaft load ${fmtW(pShaft)} (${fmtPct(pShaft / rated)} of rated) exceeds the service factor ${sf} × rated output ${fmtW(rated)}; choose a larger motor or reduce the load`;
+}
+
 export const motorKind = defineKind<MotorStage>({
   kind: 'motor',
   role: 'stage',
@@ -41,34 +56,92 @@ export const motorKind = defineKind<MotorStage>({
     kind: z.literal('motor'),
     from: fromField,
     ratedOutput: positive('W'),
-    loss: lossModelSchema,
-    powerFactor: pfModel,
+    loss: lossModelSchema.optional(),
+    powerFactor: pfModel.optional(),
     ratedSpeed: positive('rpm').optional(),
+    ratedVoltage: positive('V').optional(),
+    poles: z.union([z.literal(2), z.literal(4), z.literal(6), z.literal(8)], { error: 'must be 2, 4, 6 or 8' }).optional(),
+    ratedFrequency: positive('Hz').optional(),
+    efficiencyClass: z.enum(MOTOR_CLASSES as [string, ...string[]], { error: `unknown efficiency class; expected one of ${MOTOR_CLASSES.join(', ')}` }).optional(),
+    nameplate: z
+      .strictObject({
+        efficiency: unitFraction('efficiency').lt(1, 'efficiency must be below 1 (enter 0.93 for 93 %)'),
+        powerFactor: unitFraction('power factor').optional(),
+        current: positive('A').optional(),
+      })
+      .optional(),
+    ratedPowerFactor: unitFraction('power factor').optional(),
+    serviceFactor: z.number({ error: 'must be a number' }).gte(1, 'must be at least 1 (1.15 is common on NEMA motors)').lte(2, 'must not exceed 2').optional(),
   }) as z.ZodType<MotorStage>,
   check(e) {
-    const problems = checkLossModel(e.loss);
-    if (e.powerFactor.model === 'curve') problems.push(...checkPoints(e.powerFactor.points, 'powerFactor.points', 2));
-    return problems;
+    const given = [e.loss !== undefined || e.powerFactor !== undefined, e.efficiencyClass !== undefined, e.nameplate !== undefined].filter(Boolean).length;
+    if (given !== 1) {
+      return [{ code: 'invalid-value', field: given === 0 ? 'loss' : 'efficiencyClass', message: 'give exactly one of: loss and powerFactor, efficiencyClass, or nameplate' }];
+    }
+    if (e.loss !== undefined || e.powerFactor !== undefined) {
+      if (e.loss === undefined) return [{ code: 'invalid-value', field: 'loss', message: 'is required beside powerFactor' }];
+      if (e.powerFactor === undefined) return [{ code: 'invalid-value', field: 'powerFactor', message: 'is required beside loss' }];
+      const problems = checkLossModel(e.loss);
+      if (e.powerFactor.model === 'curve') problems.push(...checkPoints(e.powerFactor.points, 'powerFactor.points', 2));
+      return problems;
+    }
+    const r = motorRating(e);
+    return r.ok ? [] : r.problems;
   },
-  build(e) {
-    const prepared = prepareLoss(e.loss.model === 'constant' && e.loss.ratedPower === undefined ? { ...e.loss, ratedPower: e.ratedOutput } : e.loss);
+  build(e, input) {
+    const sf = e.serviceFactor ?? 1;
+    const speed = e.ratedSpeed !== undefined && e.ratedFrequency !== undefined && input?.frequency !== undefined ? (e.ratedSpeed * input.frequency) / e.ratedFrequency : e.ratedSpeed;
+    const out = { kind: 'shaft' as const, ...(speed !== undefined ? { speed } : {}) };
+    const loadWarnings = (x: number, pShaft: number): KindWarning[] => {
+      const w: KindWarning[] = [];
+      if (x > sf * (1 + 1e-9)) w.push({ code: 'rating-exceeded', message: serviceFactorMessage(pShaft, e.ratedOutput, sf) });
+      else if (x > 1 + 1e-9) w.push({ code: 'rating-exceeded', message: `shaft load ${fmtW(pShaft)} exceeds the rated output ${fmtW(e.ratedOutput)} (within the service factor ${sf}; expect more heating and shorter insulation life)` });
+      if (x > 0 && x < LIGHT_LOAD) {
+        w.push({ code: 'light-load', message: `runs at ${fmtPct(x)} of rated output; efficiency and power factor fall off below about 40–50 % load (common practice)` });
+      }
+      return w;
+    };
+    const r = motorRating(e);
+    const rating = r.ok ? r.rating : undefined;
+    if (rating) {
+      return {
+        out,
+        outputVoltage: () => c(0),
+        inputPower(sOut) {
+          const p = sOut.re;
+          const at = ratedAt(rating, p / e.ratedOutput);
+          const pIn = p / at.efficiency;
+          return c(pIn, reactiveFromPf(pIn, at.powerFactor));
+        },
+        report(sOut) {
+          const x = sOut.re / e.ratedOutput;
+          const warnings = loadWarnings(x, sOut.re);
+          if (ratedAt(rating, x).extrapolated) {
+            warnings.push({ code: 'curve-extrapolated', message: `operating at ${fmtPct(x)} of rated output, outside the part-load shape (25–125 %); its end value is used` });
+          }
+          return { loadFraction: x, warnings };
+        },
+      };
+    }
+    const loss = e.loss!;
+    const pfModelOf = e.powerFactor!;
+    const prepared = prepareLoss(loss.model === 'constant' && loss.ratedPower === undefined ? { ...loss, ratedPower: e.ratedOutput } : loss);
     return {
-      out: { kind: 'shaft', ...(e.ratedSpeed !== undefined ? { speed: e.ratedSpeed } : {}) },
+      out,
       outputVoltage: () => c(0),
       inputPower(sOut) {
         const pIn = sOut.re + prepared.loss(sOut.re).loss;
-        return c(pIn, reactiveFromPf(pIn, pfAt(e.powerFactor, sOut.re / e.ratedOutput)));
+        return c(pIn, reactiveFromPf(pIn, pfAt(pfModelOf, sOut.re / e.ratedOutput)));
       },
       report(sOut) {
         const x = sOut.re / e.ratedOutput;
         const { warnings, fit } = lossReport(prepared, sOut.re);
         const kept = warnings.filter((w) => w.code !== 'rating-exceeded');
-        if (x > 1 + 1e-9) kept.push({ code: 'rating-exceeded', message: `shaft load ${fmtW(sOut.re)} exceeds the rated output ${fmtW(e.ratedOutput)}` });
-        if (x > 0 && x < LIGHT_LOAD) {
-          kept.push({ code: 'light-load', message: `runs at ${fmtPct(x)} of rated output; efficiency and power factor fall off below about 40–50 % load (common practice)` });
-        }
+        kept.push(...loadWarnings(x, sOut.re));
         return { loadFraction: x, warnings: kept, ...(fit ? { fit } : {}) };
       },
     };
   },
 });
+
+export { pfAt as motorPowerFactorAt };
