@@ -23,7 +23,11 @@ export type ProblemCode =
   | 'charge-too-cold'
   | 'not-achievable'
   /** Conductor sizing (core/conductors/): no listed size meets the current, protection or drop limit. */
-  | 'no-size-fits';
+  | 'no-size-fits'
+  /** Power-factor correction (core/ac/pf-correction.ts): no element has the id asked for. */
+  | 'unknown-element'
+  /** Power-factor correction: the interface is DC, a shaft, leading already or draws no power. */
+  | 'not-correctable';
 
 export interface Problem {
   code: ProblemCode;

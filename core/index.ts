@@ -41,3 +41,33 @@ export { simulateDischarge, type DischargeResult, type DischargeOutcome, type Di
 export { runBackupStudy, terminalPowerPeriods, type BackupStudyResult, type BackupStudyOutcome } from './battery/study.ts';
 export { formatBackupStudy } from './battery/text-report.ts';
 export { bankCautions, rechargeCautions } from './battery/cautions.ts';
+export { parseSiValue, formatSi, type ElementUnit, type ParsedValue } from './ac/si-prefix.ts';
+export {
+  parseNetwork,
+  networkImpedance,
+  componentImpedance,
+  starEquivalent,
+  impedanceFigures,
+  describeNetworkLoads,
+  type CircuitNetwork,
+  type ComponentValue,
+  type ParsedNetwork,
+  type NetworkConnection,
+  type ImpedanceFigures,
+  type NetworkLoadFigures,
+} from './ac/network.ts';
+export {
+  correctPowerFactor,
+  requiredReactivePower,
+  bankCapacitance,
+  leadingBelowFraction,
+  PF_CORRECTION_CAUTION,
+  DEFAULT_LIGHT_LOAD_FRACTION,
+  type PfCorrection,
+  type PfCorrectionRequest,
+  type PfCorrectionOutcome,
+  type CapacitorBank,
+  type UpstreamChange,
+  type InterfaceState,
+} from './ac/pf-correction.ts';
+export { formatNetworkLoads, formatPfCorrection } from './ac/text-report.ts';

@@ -11,6 +11,7 @@ import { generatorKind, gridKind } from './grid.ts';
 import { inverterKind } from './inverter.ts';
 import { acLoadKind, acVaLoadKind, dcLoadKind, shaftLoadKind } from './loads.ts';
 import { motorKind } from './motor.ts';
+import { networkLoadKind } from './network-load.ts';
 import { rectifierKind } from './rectifier.ts';
 import { transformerKind } from './transformer.ts';
 
@@ -31,6 +32,7 @@ const all = [
   acLoadKind,
   acVaLoadKind,
   shaftLoadKind,
+  networkLoadKind,
 ] as const;
 
 /** Every kind by its name. */

@@ -15,6 +15,9 @@
  */
 import fc from 'fast-check';
 import type { Element, LossModel, PortKind, Project } from '../../core/model.ts';
+import { abs } from '../../core/ac/complex.ts';
+import { type CircuitNetwork, networkImpedance, parseNetwork, starEquivalent } from '../../core/ac/network.ts';
+import { formatSi } from '../../core/ac/si-prefix.ts';
 
 type Json = Record<string, unknown>;
 
@@ -45,6 +48,7 @@ type Sizing =
   | { type: 'motor'; loadFraction: number; loss: LossSpec; pf: { constant: number } | { rated: number; a: number } }
   | { type: 'dcbus'; fixedLoss: number }
   | { type: 'load' }
+  | { type: 'network'; s: number; net: CircuitNetwork; asText: boolean }
   | { type: 'source'; drop: number; xr: number; ratedLoadFraction: number | null };
 
 /** A generated node before sizing: the element's fixed fields, its sizing choices, its children. */
@@ -145,15 +149,69 @@ const frequency = fc.constantFrom(50, 60);
 
 const node = (fields: Json, sizing: Sizing, output: GenPort | null, children: GenNode[]): GenNode => ({ fields, sizing, output, children });
 
+/** Optional kinds the generator may draw (off in `projectArb`, whose tests expect constant-power loads). */
+export interface GenOptions {
+  /** Loads from circuit elements (constant impedance) on AC ports. */
+  networkLoads?: boolean;
+}
+const DEFAULT_GEN: GenOptions = {};
+
+/** A random R/L/C network of up to three levels, values of order one (scaled to a power when sized). */
+export const circuitNetworkArb: fc.Arbitrary<CircuitNetwork> = fc.letrec<{ net: CircuitNetwork }>((tie) => ({
+  net: fc.oneof(
+    { maxDepth: 3, withCrossShrink: true },
+    fc.record({ resistor: logUniform(0.1, 100) }),
+    fc.record({ inductor: logUniform(1e-4, 0.1) }),
+    fc.record({ capacitor: logUniform(1e-6, 1e-3) }),
+    fc.record({ series: fc.array(tie('net'), { minLength: 1, maxLength: 3 }) }),
+    fc.record({ parallel: fc.array(tie('net'), { minLength: 1, maxLength: 3 }) }),
+  ),
+})).net;
+
+/** A network load of random shape, later scaled to draw `s` VA at the port's nominal voltage. */
+const networkLoadArb = (port: GenPort): fc.Arbitrary<GenNode> =>
+  fc
+    .record({
+      s: logUniform(5, 40_000),
+      net: circuitNetworkArb,
+      asText: fc.boolean(),
+      connection: port.kind === 'ac3' ? fc.constantFrom('star' as const, 'delta' as const, undefined) : fc.constant(undefined),
+      name: optionalName,
+    })
+    .map(({ s, net, asText, connection, name }) => node(withOpt({ kind: 'network-load', connection, name }), { type: 'network', s, net, asText }, null, []));
+
+/**
+ * Scale every impedance of the network by k (R·k, L·k, C/k) so that it draws |S| = s at the port's
+ * nominal voltage: |S| = m·V_phase²/|Z_phase|. Values are written as numbers or as SI-prefixed text.
+ */
+function sizedNetwork(sz: { s: number; net: CircuitNetwork; asText: boolean }, port: GenPort, threePhase: 'star' | 'delta'): CircuitNetwork {
+  const parsed = parseNetwork(sz.net);
+  if (!parsed.ok) throw new Error('generated network does not read');
+  const connection = port.kind === 'ac3' ? threePhase : 'single-phase';
+  const zPhase = abs(starEquivalent(networkImpedance(parsed.network, port.frequency ?? 50), connection));
+  const m = port.kind === 'ac3' ? 3 : 1;
+  const vPhase = port.kind === 'ac3' ? port.voltage / Math.sqrt(3) : port.voltage;
+  const k = (m * vPhase * vPhase) / (sz.s * zPhase);
+  const write = (v: number, unit: string): number | string => (sz.asText ? formatSi(v, unit, 6) : v);
+  const scale = (n: CircuitNetwork): CircuitNetwork => {
+    if ('resistor' in n) return { resistor: write(Number(n.resistor) * k, 'Ω') };
+    if ('inductor' in n) return { inductor: write(Number(n.inductor) * k, 'H') };
+    if ('capacitor' in n) return { capacitor: write(Number(n.capacitor) / k, 'F') };
+    if ('series' in n) return { series: n.series.map(scale) };
+    return { parallel: n.parallel.map(scale) };
+  };
+  return scale(sz.net);
+}
+
 /** Children of a port: 1–3 subtrees (shaft: 1–2 shaft loads). */
-function childrenOf(port: GenPort, depth: number): fc.Arbitrary<GenNode[]> {
-  return fc.array(nodeArb(port, depth), { minLength: 1, maxLength: port.kind === 'shaft' ? 2 : 3 });
+function childrenOf(port: GenPort, depth: number, opts: GenOptions = DEFAULT_GEN): fc.Arbitrary<GenNode[]> {
+  return fc.array(nodeArb(port, depth, opts), { minLength: 1, maxLength: port.kind === 'shaft' ? 2 : 3 });
 }
 
 const loadPower = fc.oneof({ weight: 1, arbitrary: fc.constant(0) }, { weight: 12, arbitrary: logUniform(5, 40_000) });
 
 /** A random element (and subtree) fed from `port`, at `depth` below the source. */
-export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
+export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT_GEN): fc.Arbitrary<GenNode> {
   const load = { type: 'load' as const };
   const loads: fc.Arbitrary<GenNode>[] = [];
   const stages: fc.Arbitrary<GenNode>[] = [];
@@ -175,7 +233,7 @@ export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
         sets: fc.option(fc.integer({ min: 1, max: 4 }), { nil: null }),
       }),
     })
-    .chain(({ name, sizing }) => childrenOf(port, depth + 1).map((ch) => node(withOpt({ kind: 'cable', name }), sizing, { ...port }, ch)));
+    .chain(({ name, sizing }) => childrenOf(port, depth + 1, opts).map((ch) => node(withOpt({ kind: 'cable', name }), sizing, { ...port }, ch)));
   const generic = fc
     .record({
       outputKind: fc.constantFrom('dc' as const, 'ac1' as const, 'ac3' as const),
@@ -197,7 +255,7 @@ export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
         outputFrequency: outputKind === 'dc' ? undefined : f,
         inputPfSense: port.kind === 'dc' ? undefined : sense,
       });
-      return childrenOf(out, depth + 1).map((ch) => node(fields, sizing, out, ch));
+      return childrenOf(out, depth + 1, opts).map((ch) => node(fields, sizing, out, ch));
     });
 
   if (port.kind === 'shaft') {
@@ -208,14 +266,14 @@ export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
     stages.push(
       fc.record({ v: dcVoltage, sizing: converterSizing(false) }).chain(({ v, sizing }) => {
         const out: GenPort = { kind: 'dc', voltage: v };
-        return childrenOf(out, depth + 1).map((ch) => node({ kind: 'dcdc', outputVoltage: v }, sizing, out, ch));
+        return childrenOf(out, depth + 1, opts).map((ch) => node({ kind: 'dcdc', outputVoltage: v }, sizing, out, ch));
       }),
       fc.record({ fixedLoss: uniform(0, 50) }).chain(({ fixedLoss }) =>
-        childrenOf(port, depth + 1).map((ch) => node({ kind: 'dcbus' }, { type: 'dcbus', fixedLoss }, { ...port }, ch)),
+        childrenOf(port, depth + 1, opts).map((ch) => node({ kind: 'dcbus' }, { type: 'dcbus', fixedLoss }, { ...port }, ch)),
       ),
       fc.record({ phases: fc.constantFrom(1 as const, 3 as const), v1: ac1Voltage, v3: ac3Voltage, f: frequency, sizing: converterSizing(false) }).chain(({ phases, v1, v3, f, sizing }) => {
         const out: GenPort = { kind: phases === 3 ? 'ac3' : 'ac1', voltage: phases === 3 ? v3 : v1, frequency: f };
-        return childrenOf(out, depth + 1).map((ch) => node({ kind: 'inverter', phases, outputVoltage: out.voltage, frequency: f }, sizing, out, ch));
+        return childrenOf(out, depth + 1, opts).map((ch) => node({ kind: 'inverter', phases, outputVoltage: out.voltage, frequency: f }, sizing, out, ch));
       }),
       cable,
       generic,
@@ -228,10 +286,11 @@ export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
       .record({ s: loadPower, pf: uniform(0.6, 1), sense: pfSense })
       .map(({ s, pf, sense }) => node(withOpt({ kind: 'ac-va-load', apparentPower: s, powerFactor: pf, pfSense: sense }), load, null, []));
     loads.push(acLoad, acVaLoad);
+    if (opts.networkLoads) loads.push(networkLoadArb(port));
     stages.push(
       fc.record({ v: dcVoltage, sense: pfSense, sizing: converterSizing(true) }).chain(({ v, sense, sizing }) => {
         const out: GenPort = { kind: 'dc', voltage: v };
-        return childrenOf(out, depth + 1).map((ch) => node(withOpt({ kind: 'rectifier', outputVoltage: v, inputPfSense: sense }), sizing, out, ch));
+        return childrenOf(out, depth + 1, opts).map((ch) => node(withOpt({ kind: 'rectifier', outputVoltage: v, inputPfSense: sense }), sizing, out, ch));
       }),
       fc
         .record({
@@ -246,11 +305,11 @@ export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
         })
         .chain(({ v, sizing }) => {
           const out: GenPort = { kind: port.kind, voltage: v, ...(port.frequency !== undefined ? { frequency: port.frequency } : {}) };
-          return childrenOf(out, depth + 1).map((ch) => node({ kind: 'transformer', primaryVoltage: port.voltage, secondaryVoltage: v }, sizing, out, ch));
+          return childrenOf(out, depth + 1, opts).map((ch) => node({ kind: 'transformer', primaryVoltage: port.voltage, secondaryVoltage: v }, sizing, out, ch));
         }),
       fc.record({ v: ac3Voltage, f: uniform(10, 70), sizing: converterSizing(true) }).chain(({ v, f, sizing }) => {
         const out: GenPort = { kind: 'ac3', voltage: v, frequency: f };
-        return childrenOf(out, depth + 1).map((ch) => node({ kind: 'drive', outputVoltage: v, outputFrequency: f }, sizing, out, ch));
+        return childrenOf(out, depth + 1, opts).map((ch) => node({ kind: 'drive', outputVoltage: v, outputFrequency: f }, sizing, out, ch));
       }),
       fc
         .record({
@@ -264,7 +323,7 @@ export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
         })
         .chain(({ speed, sizing }) => {
           const out: GenPort = { kind: 'shaft', voltage: 0 };
-          return childrenOf(out, depth + 1).map((ch) => node(withOpt({ kind: 'motor', ratedSpeed: speed }), sizing, out, ch));
+          return childrenOf(out, depth + 1, opts).map((ch) => node(withOpt({ kind: 'motor', ratedSpeed: speed }), sizing, out, ch));
         }),
       cable,
       generic,
@@ -278,8 +337,8 @@ export function nodeArb(port: GenPort, depth: number): fc.Arbitrary<GenNode> {
   );
 }
 
-/** A source of a random kind with its subtree. */
-export const sourceArb: fc.Arbitrary<GenNode> = fc
+/** A source of a random kind with its subtree (`opts`: which optional kinds to draw as well). */
+export const sourceArbWith = (opts: GenOptions): fc.Arbitrary<GenNode> => fc
   .record({
     kind: fc.constantFrom('grid' as const, 'generator' as const, 'battery' as const),
     phases: fc.constantFrom(1 as const, 3 as const),
@@ -298,8 +357,10 @@ export const sourceArb: fc.Arbitrary<GenNode> = fc
     const out: GenPort =
       kind === 'battery' ? { kind: 'dc', voltage: vb } : { kind: phases === 3 ? 'ac3' : 'ac1', voltage: phases === 3 ? v3 : v1, frequency: f };
     const fields: Json = kind === 'battery' ? { kind, voltage: vb } : { kind, phases, voltage: out.voltage, frequency: f };
-    return childrenOf(out, 1).map((ch) => node(fields, sizing, out, ch));
+    return childrenOf(out, 1, opts).map((ch) => node(fields, sizing, out, ch));
   });
+
+export const sourceArb: fc.Arbitrary<GenNode> = sourceArbWith(DEFAULT_GEN);
 
 /** Series resistance for a drop fraction at an apparent power: per phase on 3φ, loop on DC/1φ. */
 const resistanceFor = (drop: number, voltage: number, s: number): number => (drop * voltage * voltage) / s;
@@ -318,6 +379,9 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
     const sOut = Math.max(sum, 1);
     const sz = n.sizing;
     switch (sz.type) {
+      case 'network':
+        el['network'] = sizedNetwork(sz, input!, el['connection'] === 'delta' ? 'delta' : 'star');
+        return sz.s;
       case 'load':
         if (el['kind'] === 'ac-load') return (el['power'] as number) / (el['powerFactor'] as number);
         if (el['kind'] === 'ac-va-load') return el['apparentPower'] as number;
@@ -388,6 +452,9 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
 
 /** Random valid projects. */
 export const projectArb: fc.Arbitrary<Project> = sourceArb.map((root) => toProject(root));
+
+/** Random valid projects that also hold loads from circuit elements (network-load). */
+export const projectWithNetworksArb: fc.Arbitrary<Project> = sourceArbWith({ networkLoads: true }).map((root) => toProject(root));
 
 /** Scale every load's demand (power or apparent power) by `factor`. Returns a new project. */
 export function scaleLoads(project: Project, factor: number): Project {
