@@ -248,8 +248,10 @@ function compute(s: FlowStudyInput, rating: MotorRating, grid: DriveLossGrid): F
     const pShaft = Q > 0 ? shaft(Q, Hsys) : 0;
     const pMotorIn = motorInput(pShaft);
     const speedPct = 100 * n;
-    const torquePct = Q > 0 ? (100 * (pShaft / n)) / Prated : 0;
-    const at = Q > 0 ? driveLossAt(grid, speedPct, torquePct) : { loss: 0, clamped: false, speed: 0, torque: 0 };
+    // A flow so small that neither speed nor shaft power is distinguishable from zero counts as stopped.
+    const running = Q > 0 && n > 0 && pShaft > 0;
+    const torquePct = running ? (100 * (pShaft / n)) / Prated : 0;
+    const at = running ? driveLossAt(grid, speedPct, torquePct) : { loss: 0, clamped: false, speed: 0, torque: 0 };
     const throttle = fixedSpeed(Q, H0 - a * Q * Q);
     return {
       flow: Q,
