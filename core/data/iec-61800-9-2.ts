@@ -31,24 +31,33 @@ export const SPEED_GRID: Readonly<Record<DriveLossBasis, readonly number[]>> = {
 export const TORQUE_GRID: readonly number[] = [25, 50, 100];
 
 /** The eight points in the standard's order: (0,25) (0,50) (0,100) (50,25) (50,50) (50,100) (90|100,50) (90|100,100). */
-export function standardPoints(basis: DriveLossBasis): readonly OperatingPoint[] {
-  const top = SPEED_GRID[basis][2]!;
-  return [
+export const STANDARD_POINTS: Readonly<Record<DriveLossBasis, readonly OperatingPoint[]>> = {
+  cdm: [
     { speed: 0, torque: 25 },
     { speed: 0, torque: 50 },
     { speed: 0, torque: 100 },
     { speed: 50, torque: 25 },
     { speed: 50, torque: 50 },
     { speed: 50, torque: 100 },
-    { speed: top, torque: 50 },
-    { speed: top, torque: 100 },
-  ];
-}
+    { speed: 90, torque: 50 },
+    { speed: 90, torque: 100 },
+  ],
+  pds: [
+    { speed: 0, torque: 25 },
+    { speed: 0, torque: 50 },
+    { speed: 0, torque: 100 },
+    { speed: 50, torque: 25 },
+    { speed: 50, torque: 50 },
+    { speed: 50, torque: 100 },
+    { speed: 100, torque: 50 },
+    { speed: 100, torque: 100 },
+  ],
+};
 export const POINTS_PROVENANCE: Provenance = 'from memory';
 
 /**
  * IE2-class CDM, relative losses at the eight CDM points, % of rated apparent output power, in
- * the order of `standardPoints('cdm')`. Common practice (no source).
+ * the order of `STANDARD_POINTS.cdm`. Common practice (no source).
  */
 export const IE2_CDM_DEFAULT_LOSS_PERCENT: readonly number[] = [0.9, 1.1, 1.7, 1.0, 1.3, 2.0, 1.5, 2.4];
 export const DEFAULT_LOSS_PROVENANCE: Provenance = 'common practice';

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/index.ts';
 import { driveLossAt, driveLossAtPoint, driveLossGrid, machineDetails, truePowerFactor } from '../../core/machines/index.ts';
-import { standardPoints } from '../../core/data/iec-61800-9-2.ts';
+import { STANDARD_POINTS } from '../../core/data/iec-61800-9-2.ts';
 import type { DriveStandardLoss, Project } from '../../core/model.ts';
 
 // Maker-style losses at the eight points, W (invented for the test; CDM basis).
@@ -19,7 +19,7 @@ const grid = (() => {
 })();
 
 describe('interpolation over the IEC 61800-9-2 points', () => {
-  it.each(standardPoints('cdm').map((p, i) => [p.speed, p.torque, EIGHT[i]!]))('returns the given loss exactly at (%s %%, %s %%) = %s W', (s, t, loss) => {
+  it.each(STANDARD_POINTS.cdm.map((p, i) => [p.speed, p.torque, EIGHT[i]!]))('returns the given loss exactly at (%s %%, %s %%) = %s W', (s, t, loss) => {
     const r = driveLossAt(grid, s, t);
     expect(r.loss).toBe(loss);
     expect(r.clamped).toBe(false);

@@ -6,7 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { IEC_60034_30_1_4P_50HZ, type IeClass } from '../../core/data/iec-60034-30-1.ts';
 import { NEMA_PREMIUM_4P_60HZ_TEFC } from '../../core/data/nema-mg1-12-12.ts';
 import { NEC_430_250, type Nec430Voltage } from '../../core/data/nec-430-250.ts';
-import { standardPoints } from '../../core/data/iec-61800-9-2.ts';
+import { STANDARD_POINTS } from '../../core/data/iec-61800-9-2.ts';
 import { MOTOR_PART_LOAD } from '../../core/data/motor-part-load.ts';
 
 const ie = (kW: number, cls: IeClass) => {
@@ -83,7 +83,7 @@ describe('NEC Table 430.250 (NFPA 70-2023), 3φ induction motors, full-load curr
 
 describe('IEC 61800-9-2 eight operating points (from memory)', () => {
   it('CDM basis tops at 90 % frequency, PDS at 100 % speed', () => {
-    const pairs = (b: 'cdm' | 'pds') => standardPoints(b).map((p) => [p.speed, p.torque]);
+    const pairs = (b: 'cdm' | 'pds') => STANDARD_POINTS[b].map((p) => [p.speed, p.torque]);
     expect(pairs('cdm')).toEqual([[0, 25], [0, 50], [0, 100], [50, 25], [50, 50], [50, 100], [90, 50], [90, 100]]);
     expect(pairs('pds')).toEqual([[0, 25], [0, 50], [0, 100], [50, 25], [50, 50], [50, 100], [100, 50], [100, 100]]);
   });
