@@ -45,7 +45,9 @@ type Sizing =
   | { type: 'cable'; drop: number; xr: number; length: number; sets: number | null }
   | { type: 'transformer'; loadFraction: number; rPct: number; zOverR: number | null; noLoadPu: number }
   | { type: 'converter'; loadFraction: number; loss: LossSpec; inputPf: number | null }
-  | { type: 'motor'; loadFraction: number; loss: LossSpec; pf: { constant: number } | { rated: number; a: number } }
+  | { type: 'motor'; loadFraction: number; loss: LossSpec; pf: { constant: number } | { rated: number; a: number }; nameplate?: { efficiency: number; pf: number } | null }
+  /** A drive with IEC 61800-9-2 point losses (per-unit of its rating; null = the IE2 defaults). */
+  | { type: 'standard-drive'; loadFraction: number; inputPf: number | null; thd: number | null; pointsPu: number[] | null }
   | { type: 'dcbus'; fixedLoss: number }
   | { type: 'load' }
   | { type: 'network'; s: number; net: CircuitNetwork; asText: boolean }
@@ -313,12 +315,29 @@ export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT
       }),
       fc
         .record({
+          v: ac3Voltage,
+          f: uniform(10, 70),
+          sizing: fc.record({
+            type: fc.constant('standard-drive' as const),
+            loadFraction: uniform(0.1, 1.2),
+            inputPf: fc.option(uniform(0.8, 1), { nil: null }),
+            thd: fc.option(uniform(0, 1.2), { nil: null }),
+            pointsPu: fc.option(fc.array(uniform(0.002, 0.04), { minLength: 8, maxLength: 8 }), { nil: null }),
+          }),
+        })
+        .chain(({ v, f, sizing }) => {
+          const out: GenPort = { kind: 'ac3', voltage: v, frequency: f };
+          return childrenOf(out, depth + 1, opts).map((ch) => node({ kind: 'drive', outputVoltage: v, outputFrequency: f }, sizing, out, ch));
+        }),
+      fc
+        .record({
           speed: fc.option(fc.constantFrom(960, 1450, 1780, 2900), { nil: undefined }),
           sizing: fc.record({
             type: fc.constant('motor' as const),
             loadFraction: uniform(0.3, 1.1),
             loss: lossSpec,
             pf: fc.oneof(fc.record({ constant: uniform(0.75, 0.92) }), fc.record({ rated: uniform(0.8, 0.9), a: uniform(0.05, 0.3) })),
+            nameplate: fc.option(fc.record({ efficiency: uniform(0.8, 0.96), pf: uniform(0.75, 0.9) }), { nil: null }),
           }),
         })
         .chain(({ speed, sizing }) => {
@@ -414,9 +433,21 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
         else if (el['kind'] === 'rectifier' || el['kind'] === 'drive') el['inputPowerFactor'] = 0.95;
         return (sum + lossEstimate(sz.loss, sum, rated)) / (sz.inputPf ?? 0.95);
       }
+      case 'standard-drive': {
+        const rated = sOut / sz.loadFraction;
+        el['standardLoss'] = { ratedApparentPower: rated, basis: 'cdm', ...(sz.pointsPu ? { points: sz.pointsPu.map((pu) => pu * rated) } : {}) };
+        el['inputPowerFactor'] = sz.inputPf ?? 0.95;
+        if (sz.thd !== null) el['currentThd'] = sz.thd;
+        return (sum + 0.04 * rated) / (sz.inputPf ?? 0.95);
+      }
       case 'motor': {
         const rated = sOut / sz.loadFraction;
         el['ratedOutput'] = rated;
+        if (sz.nameplate) {
+          // Preset path: nameplate full-load values with the common-practice part-load shape (lowest ratios 0.945, 0.55).
+          el['nameplate'] = { efficiency: sz.nameplate.efficiency, powerFactor: sz.nameplate.pf };
+          return sum / (sz.nameplate.efficiency * 0.945) / (sz.nameplate.pf * 0.55);
+        }
         el['loss'] = buildLoss(sz.loss, rated);
         let pfMin: number;
         if ('constant' in sz.pf) {
