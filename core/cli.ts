@@ -5,6 +5,8 @@
  * A project fed by a battery `bank` with a `backup` study also gets the study: runtime with every
  * derate, bank sizing and recharge (text after the tables; with --json under the key
  * `backupStudy`, shaped as BackupStudyResult in core/battery/study.ts).
+ * `--correct-pf <id>:<target>` adds the capacitor bank that raises that element's interface to the
+ * target power factor and the before/after comparison (with --json under `pfCorrection`).
  */
 import { readFileSync } from 'node:fs';
 import { formatProblem, type Problem } from './errors.ts';
@@ -12,15 +14,27 @@ import { formatResult } from './text-report.ts';
 import { solveProject } from './solve/index.ts';
 import { runBackupStudy, type BackupStudyResult } from './battery/study.ts';
 import { formatBackupStudy } from './battery/text-report.ts';
+import { correctPowerFactor, type PfCorrection } from './ac/pf-correction.ts';
+import { formatPfCorrection, parseCorrectPfFlag, pfCorrectionJson } from './ac/text-report.ts';
+import { MACHINE_USAGE, machineSections, takeMachineFlags } from './machines/cli-flags.ts';
 
-const USAGE = 'usage: npm run solve -- <project.json> [--json]';
+const USAGE = `usage: npm run solve -- <project.json> [--json] [--correct-pf <elementId>:<target power factor>] ${MACHINE_USAGE}`;
 
 function fail(lines: readonly string[]): never {
   for (const l of lines) process.stderr.write(`${l}\n`);
   process.exit(1);
 }
 
-function main(argv: readonly string[]): void {
+function main(args: readonly string[]): void {
+  // --machines, --flow <pump-study.json> (motors, drives and driven machines; core/machines/cli-flags.ts).
+  const mach = takeMachineFlags(args);
+  if (!mach.ok) fail([mach.message, USAGE]);
+  args = mach.rest;
+  // --correct-pf <id>:<target> (power-factor correction at that element's interface; core/ac/pf-correction.ts).
+  const pfAt = args.indexOf('--correct-pf');
+  const pfFlag = pfAt >= 0 ? parseCorrectPfFlag(args[pfAt + 1]) : undefined;
+  if (pfFlag && !pfFlag.ok) fail([pfFlag.message, USAGE]);
+  const argv = pfAt >= 0 ? args.filter((_, i) => i !== pfAt && i !== pfAt + 1) : args;
   const json = argv.includes('--json');
   const files = argv.filter((a) => !a.startsWith('--'));
   const unknown = argv.filter((a) => a.startsWith('--') && a !== '--json');
@@ -46,10 +60,27 @@ function main(argv: readonly string[]): void {
     if (!s.ok) fail([`${file}: the battery backup study cannot be run:`, ...s.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
     study = s.study;
   }
+  let pfc: PfCorrection | undefined;
+  if (pfFlag?.ok) {
+    const c = correctPowerFactor(data, pfFlag.request);
+    if (!c.ok) fail([`${file}: the power-factor correction cannot be worked out:`, ...c.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
+    pfc = c.correction;
+  }
+  let flowData: unknown;
+  if (mach.flowFile !== undefined) {
+    try {
+      flowData = JSON.parse(readFileSync(mach.flowFile, 'utf8'));
+    } catch (err) {
+      fail([`cannot read the pump study ${mach.flowFile}: ${(err as Error).message}`]);
+    }
+  }
+  const machines = mach.machines || mach.flowFile !== undefined ? machineSections(data, mach.machines, flowData) : undefined;
+  if (machines && !machines.ok) fail([`${file}: ${machines.heading}`, ...machines.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
   if (json) {
-    process.stdout.write(`${JSON.stringify(study ? { ...outcome.result, backupStudy: study } : outcome.result, null, 2)}\n`);
+    const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}) };
+    process.stdout.write(`${JSON.stringify({ ...outcome.result, ...extra }, null, 2)}\n`);
   } else {
-    process.stdout.write(`${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}`);
+    process.stdout.write(`${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}`);
   }
 }
 

@@ -6,6 +6,7 @@
  */
 
 import type { Chemistry, ChemistryValues } from './data/battery-chemistries.ts';
+import type { CircuitNetwork } from './ac/network.ts';
 
 /** The kind of electrical (or mechanical) connection between two elements. */
 export type PortKind = 'dc' | 'ac1' | 'ac3' | 'shaft';
@@ -162,24 +163,68 @@ export interface TransformerStage extends FedElement {
   impedancePercent?: number;
 }
 
+/**
+ * Drive losses from the eight standard operating points of IEC 61800-9-2, interpolated bilinearly
+ * in speed and torque (core/machines/drive-loss.ts). `basis` says which points the values are for:
+ * "cdm" (drive module alone: relative motor-stator frequency 0/50/90 %, relative torque-producing
+ * current 25/50/100 %) or "pds" (drive + motor: speed 0/50/100 %, torque 25/50/100 %).
+ */
+export interface DriveStandardLoss {
+  /** Rated apparent output power of the drive, VA. */
+  ratedApparentPower: number;
+  basis: 'cdm' | 'pds';
+  /**
+   * Losses at the eight points, W, in the standard's order (0,25) (0,50) (0,100) (50,25) (50,50)
+   * (50,100) (90|100,50) (90|100,100). Absent: the IE2 class-reference defaults (CDM basis only).
+   */
+  points?: number[];
+}
+
 /** Variable-frequency drive: AC in (1φ or 3φ), three-phase AC out at its own voltage and frequency. */
 export interface DriveStage extends FedElement {
   kind: 'drive';
   outputVoltage: number;
   outputFrequency: number;
+  /** Input displacement power factor (fundamental); sets the reactive power drawn. */
   inputPowerFactor: number;
-  loss: LossModel;
+  /** Give exactly one of `loss` (a converter loss model) and `standardLoss` (IEC 61800-9-2 points). */
+  loss?: LossModel;
+  standardLoss?: DriveStandardLoss;
+  /** Rated frequency of the driven motor, Hz (default: the supply frequency): speed % = outputFrequency / this. */
+  motorRatedFrequency?: number;
+  /** Input current total harmonic distortion THD_i, a fraction (0.35 = 35 %): true pf = displacement/√(1+THD²). */
+  currentThd?: number;
 }
 
-/** Motor: AC in, shaft power out. */
+/** Efficiency-class presets: IEC 60034-30-1 (4-pole 50 Hz) or NEMA Premium (MG 1 Table 12-12, 4-pole 60 Hz). */
+export type MotorEfficiencyClass = 'IE1' | 'IE2' | 'IE3' | 'IE4' | 'NEMA-premium';
+
+/**
+ * Motor: AC in, shaft power out. Its efficiency and power factor come from exactly one of:
+ * `loss` + `powerFactor` (explicit models), `efficiencyClass` (a table preset with the common-practice
+ * part-load shape) or `nameplate` (full-load values with the same shape).
+ */
 export interface MotorStage extends FedElement {
   kind: 'motor';
   /** Rated shaft output, W. Used for the load fraction of curves. */
   ratedOutput: number;
-  loss: LossModel;
-  powerFactor: PowerFactorModel;
+  loss?: LossModel;
+  powerFactor?: PowerFactorModel;
   /** Rated speed, rpm (optional, reported on the shaft). */
   ratedSpeed?: number;
+  /** Rated voltage, V (line-to-line on three-phase); used for the NEC Table 430.250 comparison. */
+  ratedVoltage?: number;
+  /** Number of poles (2, 4, 6, 8). */
+  poles?: number;
+  /** Rated frequency, Hz. */
+  ratedFrequency?: number;
+  efficiencyClass?: MotorEfficiencyClass;
+  /** Full-load nameplate values. */
+  nameplate?: { efficiency: number; powerFactor?: number; current?: number };
+  /** Full-load power factor for a class preset (default: a typical value by size, common practice). */
+  ratedPowerFactor?: number;
+  /** Service factor, ≥ 1 (default 1.0): loads above rated warn, loads above SF × rated are refused. */
+  serviceFactor?: number;
 }
 
 /** NEC raceway type, for the reactance (and AC resistance) columns of NEC Chapter 9 Table 9. */
@@ -304,7 +349,26 @@ export interface ShaftLoad extends FedElement {
   power: number;
 }
 
-export type Load = DcLoad | AcPowerLoad | AcApparentLoad | ShaftLoad;
+/**
+ * AC load given by its circuit elements: a network of resistors, inductors and capacitors in series
+ * and parallel (`CircuitNetwork` in core/ac/network.ts; values in Ω, H, F as numbers, or text with
+ * an SI prefix such as "4.7 mH", "220 µF", "1.2 kΩ", "10k"), evaluated at the frequency of the
+ * interface feeding it. A constant-IMPEDANCE load: its power follows the square of its voltage.
+ * Example: `{ "kind": "network-load", "from": "cab", "connection": "delta",
+ *   "network": { "series": [ { "resistor": "12 Ω" }, { "inductor": "40 mH" } ] } }`.
+ */
+export interface NetworkLoad extends FedElement {
+  kind: 'network-load';
+  network: CircuitNetwork;
+  /**
+   * Three-phase only: the network is one phase of a balanced star (between line and star point;
+   * the default) or one branch of a balanced delta (between two lines). Not given on single-phase,
+   * where the network sits across the supply.
+   */
+  connection?: 'star' | 'delta';
+}
+
+export type Load = DcLoad | AcPowerLoad | AcApparentLoad | ShaftLoad | NetworkLoad;
 
 export type Element = Source | Stage | Load;
 export type ElementKind = Element['kind'];

@@ -30,7 +30,8 @@ import type { Problem } from '../errors.ts';
 import { validateProject } from '../solve/validate.ts';
 import { solveProject } from '../solve/index.ts';
 import { prepareRepeat, type StepPoint } from '../solve/repeat.ts';
-import { prepareLoss } from '../stages/loss-model.ts';
+import { plan } from '../solve/plan.ts';
+import { ZERO, c } from '../ac/complex.ts';
 import { type Bank, bankOcv, capacityFactorAt, resolveBank } from './bank.ts';
 import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
 import { DEFAULT_TIME_STEP_S, buildTimeline, checkStudy } from './profile.ts';
@@ -63,7 +64,7 @@ export interface Derate {
 export interface IdleDraw {
   id: string;
   name: string;
-  /** Loss of the converter at zero output (standby / no-load draw), W. */
+  /** Input power of the stage at zero output (standby / no-load draw), W. */
   watts: number;
   /** watts × runtime, Wh. */
   energyWh: number;
@@ -125,6 +126,21 @@ export type DischargeOutcome = { ok: true; result: DischargeResult } | { ok: fal
 
 
 const H = 3600;
+
+/**
+ * What each stage draws with nothing connected to its output: its input power at zero output,
+ * from its own model (a converter's standby loss, a bus's fixed loss, a transformer's core loss,
+ * whatever loss model or preset it was given). Runs on a project that has already solved.
+ */
+function noLoadDraws(project: Project): Omit<IdleDraw, 'energyWh'>[] {
+  const planned = plan(project);
+  if (!planned.ok) return [];
+  const unit = c(1); // no current flows at zero output: any non-zero voltage gives the same answer
+  return planned.order
+    .filter((n) => n.spec.role === 'stage')
+    .map((n) => ({ id: n.element.id, name: n.element.name ?? n.element.id, watts: n.model.inputPower(ZERO, unit, unit).re }))
+    .filter((d) => d.watts > 0);
+}
 
 const END_TEXT: Record<EndReason, string> = {
   'depth-of-discharge': 'the usable depth of discharge was reached',
@@ -332,12 +348,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
       ],
     };
   }
-  const idle: IdleDraw[] = [];
-  for (const e of project.elements) {
-    if (!('loss' in e)) continue;
-    const watts = prepareLoss(e.loss).loss(0).loss;
-    if (watts > 0) idle.push({ id: e.id, name: e.name ?? e.id, watts, energyWh: (watts * runtime) / H });
-  }
+  const idle: IdleDraw[] = noLoadDraws(fixed).map((d) => ({ ...d, energyWh: (d.watts * runtime) / H }));
   const averageLoadW = runtime > 0 ? acc.load / runtime : 0;
   const warnings: string[] = [];
   if (temp.extrapolated) {

@@ -14,6 +14,7 @@ const ELEMENT_KIND_LABELS: Record<ElementKind, string> = {
   motor: 'Motor',
   cable: 'Cable',
   generic: 'Converter',
+  'network-load': 'Load from R, L, C',
   'dc-load': 'DC load',
   'ac-load': 'AC load',
   'ac-va-load': 'AC load (VA)',
