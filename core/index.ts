@@ -82,7 +82,6 @@ export {
   partLoadRatios,
   necFullLoadCurrent,
   machineDetails,
-  serviceFactorProblems,
   solveWithMachines,
   formatMachines,
   formatFlowStudy,

@@ -17,7 +17,6 @@ import type { DriveStage, Element, MotorStage, Project } from '../model.ts';
 import type { SolveResult } from '../result.ts';
 import { solveProject } from '../solve/index.ts';
 import { validateProject } from '../solve/validate.ts';
-import { serviceFactorMessage } from '../stages/motor.ts';
 import { driveOperatingPoint } from '../stages/drive.ts';
 import { motorRating, necFullLoadCurrent } from './motor-rating.ts';
 import { driveLossAt, driveLossGrid, truePowerFactor } from './drive-loss.ts';
@@ -70,20 +69,6 @@ export interface MachineDetails {
   drives: DriveDetail[];
 }
 
-/** Motors loaded beyond their service factor, as problems (nothing else is reported for such a project). */
-export function serviceFactorProblems(project: Project, result: SolveResult): Problem[] {
-  const out: Problem[] = [];
-  for (const e of project.elements) {
-    if (e.kind !== 'motor') continue;
-    const r = result.elements.find((x) => x.id === e.id);
-    if (!r) continue;
-    const sf = e.serviceFactor ?? 1;
-    if (r.pOut > sf * e.ratedOutput * (1 + 1e-9)) {
-      out.push({ code: 'invalid-value', elementId: e.id, field: 'ratedOutput', value: r.pOut, message: serviceFactorMessage(r.pOut, e.ratedOutput, sf) });
-    }
-  }
-  return out;
-}
 
 function motorDetail(e: MotorStage, result: SolveResult): MotorDetail | undefined {
   const r = result.elements.find((x) => x.id === e.id);
@@ -174,11 +159,10 @@ export type MachineSolveOutcome = { ok: true; result: SolveResult; machines: Mac
  * refuses the whole result (problems naming the motor and its rated output).
  */
 export function solveWithMachines(input: unknown): MachineSolveOutcome {
+  // solveProject itself refuses a motor loaded beyond its service factor (core/stages/motor.ts).
   const outcome = solveProject(input);
   if (!outcome.ok) return outcome;
   const valid = validateProject(input);
   if (!valid.ok) return { ok: false, problems: valid.problems };
-  const refused = serviceFactorProblems(valid.project, outcome.result);
-  if (refused.length) return { ok: false, problems: refused };
   return { ok: true, result: outcome.result, machines: machineDetails(valid.project, outcome.result) };
 }

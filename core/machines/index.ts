@@ -2,5 +2,5 @@
 export { compareFlowControl, STANDARD_GRAVITY, HOURS_PER_YEAR, type FlowStudyInput, type FlowControlResult, type FlowControlOutcome, type DutyPointResult, type MethodEnergy, type SpeedControlPoint, type FixedSpeedPoint } from './flow-control.ts';
 export { driveLossGrid, driveLossAt, driveLossAtPoint, checkOperatingPoint, truePowerFactor, type DriveLossGrid, type DriveLossAt } from './drive-loss.ts';
 export { classEfficiency, motorRating, ratedAt, partLoadRatios, necFullLoadCurrent, typicalPowerFactor, MOTOR_CLASSES, type MotorRating, type FullLoadEfficiency } from './motor-rating.ts';
-export { machineDetails, serviceFactorProblems, solveWithMachines, NEC_TABLE_CURRENT_NOTE, type MachineDetails, type MotorDetail, type DriveDetail, type MachineSolveOutcome } from './details.ts';
+export { machineDetails, solveWithMachines, NEC_TABLE_CURRENT_NOTE, type MachineDetails, type MotorDetail, type DriveDetail, type MachineSolveOutcome } from './details.ts';
 export { formatMachines, formatFlowStudy, MACHINE_CAUTION } from './text-report.ts';

@@ -62,6 +62,7 @@ export function buildResult(
     const vIn = parent < 0 ? vOut[i]! : vOut[parent]!;
     const rep = node.model.report(sOut[i]!, sIn[i]!, vIn);
     for (const w of rep.warnings) warnings.push({ ...w, elementId: e.id });
+    for (const p of rep.problems ?? []) problems.push({ ...p, elementId: e.id });
     const r: ElementResult = {
       id: e.id,
       name: e.name ?? e.id,

@@ -15,7 +15,7 @@ import { z } from 'zod';
 import type { MotorStage, PowerFactorModel } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { prepareLoss, interpolate } from './loss-model.ts';
-import { checkLossModel, checkPoints, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction, type KindWarning } from './spec.ts';
+import { checkLossModel, checkPoints, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
 import { MOTOR_CLASSES, motorRating, ratedAt } from '../machines/motor-rating.ts';
 
 const pfModel = z.discriminatedUnion(
@@ -92,10 +92,12 @@ export const motorKind = defineKind<MotorStage>({
     const sf = e.serviceFactor ?? 1;
     const speed = e.ratedSpeed !== undefined && e.ratedFrequency !== undefined && input?.frequency !== undefined ? (e.ratedSpeed * input.frequency) / e.ratedFrequency : e.ratedSpeed;
     const out = { kind: 'shaft' as const, ...(speed !== undefined ? { speed } : {}) };
+    /** Beyond the service factor the load is refused (the field to change is the rating); up to it, a warning. */
+    const overload = (x: number, pShaft: number): ElementReport['problems'] =>
+      x > sf * (1 + 1e-9) ? [{ code: 'invalid-value', field: 'ratedOutput', value: pShaft, message: serviceFactorMessage(pShaft, e.ratedOutput, sf) }] : [];
     const loadWarnings = (x: number, pShaft: number): KindWarning[] => {
       const w: KindWarning[] = [];
-      if (x > sf * (1 + 1e-9)) w.push({ code: 'rating-exceeded', message: serviceFactorMessage(pShaft, e.ratedOutput, sf) });
-      else if (x > 1 + 1e-9) w.push({ code: 'rating-exceeded', message: `shaft load ${fmtW(pShaft)} exceeds the rated output ${fmtW(e.ratedOutput)} (within the service factor ${sf}; expect more heating and shorter insulation life)` });
+      if (x > 1 + 1e-9 && x <= sf * (1 + 1e-9)) w.push({ code: 'rating-exceeded', message: `shaft load ${fmtW(pShaft)} exceeds the rated output ${fmtW(e.ratedOutput)} (within the service factor ${sf}; expect more heating and shorter insulation life)` });
       if (x > 0 && x < LIGHT_LOAD) {
         w.push({ code: 'light-load', message: `runs at ${fmtPct(x)} of rated output; efficiency and power factor fall off below about 40–50 % load (common practice)` });
       }
@@ -119,7 +121,7 @@ export const motorKind = defineKind<MotorStage>({
           if (ratedAt(rating, x).extrapolated) {
             warnings.push({ code: 'curve-extrapolated', message: `operating at ${fmtPct(x)} of rated output, outside the part-load shape (25–125 %); its end value is used` });
           }
-          return { loadFraction: x, warnings };
+          return { loadFraction: x, warnings, problems: overload(x, sOut.re) };
         },
       };
     }
@@ -138,7 +140,7 @@ export const motorKind = defineKind<MotorStage>({
         const { warnings, fit } = lossReport(prepared, sOut.re);
         const kept = warnings.filter((w) => w.code !== 'rating-exceeded');
         kept.push(...loadWarnings(x, sOut.re));
-        return { loadFraction: x, warnings: kept, ...(fit ? { fit } : {}) };
+        return { loadFraction: x, warnings: kept, problems: overload(x, sOut.re), ...(fit ? { fit } : {}) };
       },
     };
   },

@@ -33,6 +33,11 @@ export interface ElementReport {
   weighted?: WeightedEfficiency;
   fit?: LossFitReport;
   warnings: KindWarning[];
+  /**
+   * Refusals that only the operating point reveals (a motor loaded beyond its service factor): the
+   * solve then returns these problems and no result.
+   */
+  problems?: Omit<Problem, 'elementId'>[];
 }
 
 /** An element made ready for the solve (constants precomputed). Pure functions of their arguments. */

@@ -443,6 +443,8 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
       case 'motor': {
         const rated = sOut / sz.loadFraction;
         el['ratedOutput'] = rated;
+        // Loads above rated need a service factor, else the solve refuses them (1.15: a common NEMA value).
+        if (sz.loadFraction > 1) el['serviceFactor'] = 1.15;
         if (sz.nameplate) {
           // Preset path: nameplate full-load values with the common-practice part-load shape (lowest ratios 0.945, 0.55).
           el['nameplate'] = { efficiency: sz.nameplate.efficiency, powerFactor: sz.nameplate.pf };

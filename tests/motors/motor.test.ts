@@ -146,6 +146,11 @@ describe('service factor', () => {
   it('without a stated service factor (1.0) any overload is refused', () => {
     expect(solveWithMachines(project(nema10, 1.01 * 7457)).ok).toBe(false);
   });
+  it('the plain chain solve refuses it too (the CLI and the app see the same refusal)', () => {
+    const o = solveProject(project({ ...nema10, serviceFactor: 1.15 }, 1.2 * 7457));
+    expect(o.ok).toBe(false);
+    if (!o.ok) expect(o.problems).toEqual([expect.objectContaining({ code: 'invalid-value', elementId: 'm', field: 'ratedOutput' })]);
+  });
 });
 
 describe('bad motor input: a clear problem naming element and field', () => {
