@@ -9,7 +9,7 @@
  * between sweeps, then runs one last backward sweep so that every power matches the reported
  * voltages. Energy balance is exact by construction: each P_in is P_out + loss of the same sweep.
  */
-import { type Complex, ZERO, abs, add, sub } from '../ac/complex.ts';
+import { type Complex, ZERO, abs, add, scale, sub } from '../ac/complex.ts';
 import type { Problem } from '../errors.ts';
 import type { PlannedElement } from './plan.ts';
 
@@ -46,14 +46,37 @@ function backward(order: readonly PlannedElement[], vOut: readonly Complex[], sI
   }
 }
 
-/** Returns the index of an element whose output cannot be delivered, or −1. */
-function forward(order: readonly PlannedElement[], sOut: readonly Complex[], vOut: Complex[]): number {
+/**
+ * Returns the index of the first element whose output cannot be delivered, or −1. With `recover`,
+ * such an element's voltage is halved instead and the sweep goes on (see `sweep`).
+ */
+function forward(order: readonly PlannedElement[], sIn: readonly Complex[], sOut: readonly Complex[], vOut: Complex[], recover = false): number {
+  let bad = -1;
   for (let i = 0; i < order.length; i++) {
-    const v = order[i]!.model.outputVoltage(vInOf(order, vOut, i), sOut[i]!);
-    if (v === null) return i;
-    vOut[i] = v;
+    const node = order[i]!;
+    // Constant-impedance loads fed directly from this output go to the link as their admittance
+    // (solved exactly); the rest of the output as the power they drew in the backward sweep.
+    let y: Complex | undefined;
+    let sConst = sOut[i]!;
+    for (const child of node.children) {
+      const a = order[child]!.model.admittance;
+      if (a === undefined) continue;
+      if (y === undefined) {
+        y = ZERO;
+        sConst = node.children.reduce((sum, ch) => (order[ch]!.model.admittance === undefined ? add(sum, sIn[ch]!) : sum), ZERO);
+      }
+      y = add(y, a);
+    }
+    const v = node.model.outputVoltage(vInOf(order, vOut, i), sConst, y);
+    if (v === null) {
+      if (!recover) return i;
+      if (bad < 0) bad = i;
+      vOut[i] = scale(vOut[i]!, 0.5);
+    } else {
+      vOut[i] = v;
+    }
   }
-  return -1;
+  return bad;
 }
 
 /** Σ of the loads' own power below element i (what the user asked it to carry). */
@@ -75,23 +98,52 @@ function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly C
   };
 }
 
+/**
+ * Sweeps in a row that may overshoot past a link's maximum transfer before the load is declared
+ * infeasible, when the chain has constant-impedance loads.
+ */
+const RECOVERY_SWEEPS = 30;
+/** Smallest under-relaxation factor for chains with constant-impedance loads. */
+const MIN_RELAX = 1 / 1024;
+
 export function sweep(order: readonly PlannedElement[]): SweepOutcome {
   const n = order.length;
   const vOut: Complex[] = new Array<Complex>(n).fill(ZERO);
   const sIn: Complex[] = new Array<Complex>(n).fill(ZERO);
   const sOut: Complex[] = new Array<Complex>(n).fill(ZERO);
-  forward(order, sOut, vOut); // no-load voltages as the starting point
+  forward(order, sIn, sOut, vOut); // no-load voltages (and the impedance loads directly on links) as the starting point
+  // A constant-impedance load draws its power at the previous sweep's voltage: starting from the
+  // no-load voltage it asks for more than it will take, and a heavy one can ask a link for more
+  // than it can transfer although the circuit has a solution. Then the overshooting link's voltage
+  // is halved (its loads then draw a quarter) and the sweeps go on; only a link that stays past its
+  // maximum transfer for RECOVERY_SWEEPS sweeps in a row is infeasible. Chains of constant-power
+  // loads only approach their solution from above and need no recovery: infeasible at once.
+  const recover = order.some((node) => node.model.admittance !== undefined);
+  let overshoots = 0;
+  let relax = 1;
   let residual = Infinity;
   for (let iter = 1; iter <= MAX_SWEEPS; iter++) {
     backward(order, vOut, sIn, sOut);
     const previous = vOut.slice();
-    const bad = forward(order, sOut, vOut);
-    if (bad >= 0) return { ok: false, problems: [infeasible(order, bad, sIn)] };
+    const bad = forward(order, sIn, sOut, vOut, recover);
+    if (bad >= 0) {
+      if (!recover || ++overshoots >= RECOVERY_SWEEPS) return { ok: false, problems: [infeasible(order, bad, sIn)] };
+      continue;
+    }
+    overshoots = 0;
+    if (recover && relax < 1) {
+      // Under-relaxation: V ← V_prev + ω·(V_sweep − V_prev). The fixed point is unchanged.
+      for (let i = 0; i < n; i++) vOut[i] = add(previous[i]!, scale(sub(vOut[i]!, previous[i]!), relax));
+    }
+    const last = residual;
     residual = 0;
     for (let i = 0; i < n; i++) {
       const mag = abs(vOut[i]!);
       if (mag > 0) residual = Math.max(residual, abs(sub(vOut[i]!, previous[i]!)) / mag);
     }
+    // A heavy constant-impedance load makes the plain sweep overshoot and oscillate (each sweep
+    // multiplies the error by about −Z_link/Z_load): damp harder whenever the change stops shrinking.
+    if (recover && residual >= last && relax > MIN_RELAX) relax /= 2;
     if (residual <= TOLERANCE) {
       backward(order, vOut, sIn, sOut);
       return { ok: true, point: { vOut, sIn, sOut, iterations: iter, residual } };

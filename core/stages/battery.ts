@@ -91,7 +91,7 @@ export const batteryKind = defineKind<BatterySource>({
     const source = c(emf);
     return {
       out: { kind: 'dc' },
-      outputVoltage: (_vIn, sOut) => link.outputVoltage(source, sOut),
+      outputVoltage: (_vIn, sOut, y) => link.outputVoltage(source, sOut, y),
       inputPower: (sOut, _vIn, vOut) => link.inputPower(sOut, vOut),
       report: () => ({ warnings: [] }),
     };

@@ -90,7 +90,7 @@ export const cableKind = defineKind<CableStage>({
     const link = seriesLink(z, kind);
     return {
       out: { ...input! },
-      outputVoltage: (vIn, sOut) => link.outputVoltage(vIn, sOut),
+      outputVoltage: (vIn, sOut, y) => link.outputVoltage(vIn, sOut, y),
       inputPower: (sOut, _vIn, vOut) => link.inputPower(sOut, vOut),
       report: () => ({ warnings: [] }),
     };

@@ -32,7 +32,7 @@ const spec = (kind: 'grid' | 'generator') =>
       const link = seriesLink(c(e.resistance ?? 0, e.reactance ?? 0), portKind);
       return {
         out: { kind: portKind, frequency: e.frequency },
-        outputVoltage: (_vIn, sOut) => link.outputVoltage(emf, sOut),
+        outputVoltage: (_vIn, sOut, y) => link.outputVoltage(emf, sOut, y),
         inputPower: (sOut, _vIn, vOut) => link.inputPower(sOut, vOut),
         report(sOut) {
           const s = Math.hypot(sOut.re, sOut.im);

@@ -48,6 +48,7 @@ export const networkLoadKind = defineKind<NetworkLoad>({
     const conjY: Complex = Number.isFinite(abs(zPhase)) ? div(c(1), conj(zPhase)) : ZERO;
     return {
       out: null,
+      admittance: conj(conjY),
       outputVoltage: () => ZERO,
       inputPower: (_sOut, vIn) => {
         const v = abs(vIn);

@@ -9,7 +9,7 @@ import { z } from 'zod';
 import type { Element, ElementKind, PfSense, PortKind } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.ts';
-import { type Complex, ZERO, abs, add, c, scale } from '../ac/complex.ts';
+import { type Complex, ZERO, abs, add, c, conj, div, mul, scale } from '../ac/complex.ts';
 import { receivingVoltage } from '../ac/two-bus.ts';
 import { type PreparedLoss, prepareLoss, weightedEfficiency } from './loss-model.ts';
 
@@ -47,8 +47,17 @@ export interface ElementModel {
   /**
    * Forward sweep: the output voltage phasor from the input voltage (null for a source) and the
    * output power. Returns null when the output power cannot be delivered (infeasible).
+   * `y` is the per-phase admittance of constant-impedance loads fed directly from this output,
+   * whose power is then NOT in `sOut`; only elements whose output voltage depends on the load
+   * (series links) use it.
    */
-  outputVoltage(vIn: Complex, sOut: Complex): Complex | null;
+  outputVoltage(vIn: Complex, sOut: Complex, y?: Complex): Complex | null;
+  /**
+   * Per-phase admittance Y of a constant-impedance load (its input power is m·|V|²·conj(Y)), given
+   * so that the link feeding it can solve it exactly (see seriesLink) rather than at the previous
+   * sweep's voltage.
+   */
+  readonly admittance?: Complex;
   /** Backward sweep: total input complex power from the total output power and the voltages. */
   inputPower(sOut: Complex, vIn: Complex, vOut: Complex): Complex;
   /** Details once the operating point is known. */
@@ -168,7 +177,17 @@ export function reactiveFromPf(p: number, pf: number, sense: PfSense = 'lagging'
 export function seriesLink(z: Complex, kind: PortKind) {
   const m = phaseCount(kind);
   return {
-    outputVoltage: (vIn: Complex, sOut: Complex): Complex | null => receivingVoltage(vIn, z, scale(sOut, 1 / m)),
+    /**
+     * With constant-impedance loads Y (per phase) beside the constant power S_p:
+     * V_s = K·V_r + Z·conj(S_p/V_r), K = 1 + Z·Y. With W = K·V_r this is the two-bus equation
+     * V_s = W + Z·conj(K)·conj(S_p/W), solved exactly; then V_r = W/K.
+     */
+    outputVoltage: (vIn: Complex, sOut: Complex, y?: Complex): Complex | null => {
+      if (y === undefined || (y.re === 0 && y.im === 0)) return receivingVoltage(vIn, z, scale(sOut, 1 / m));
+      const k = add(c(1), mul(z, y));
+      const w = receivingVoltage(vIn, mul(z, conj(k)), scale(sOut, 1 / m));
+      return w === null ? null : div(w, k);
+    },
     /** S_in = S_out + m·|I|²·Z with |I| = |S_out/m| / |V_out|. */
     inputPower: (sOut: Complex, vOut: Complex): Complex => {
       const i = abs(sOut) / m / abs(vOut);

@@ -53,7 +53,7 @@ export const transformerKind = defineKind<TransformerStage>({
     const ratio = e.secondaryVoltage / e.primaryVoltage;
     return {
       out: { kind, ...(input!.frequency !== undefined ? { frequency: input!.frequency } : {}) },
-      outputVoltage: (vIn, sOut) => link.outputVoltage(scale(vIn, ratio), sOut),
+      outputVoltage: (vIn, sOut, y) => link.outputVoltage(scale(vIn, ratio), sOut, y),
       inputPower: (sOut, _vIn, vOut) => add(link.inputPower(sOut, vOut), c(e.noLoadLoss)),
       report(sOut, _sIn, vIn) {
         const s = abs(sOut);
