@@ -16,7 +16,7 @@ import { runBackupStudy, type BackupStudyResult } from './battery/study.ts';
 import { formatBackupStudy } from './battery/text-report.ts';
 import { correctPowerFactor, type PfCorrection } from './ac/pf-correction.ts';
 import { formatPfCorrection, parseCorrectPfFlag, pfCorrectionJson } from './ac/text-report.ts';
-import { MACHINE_USAGE, machineSections, takeMachineFlags } from './machines/cli-flags.ts';
+import { MACHINE_USAGE, hasPumpSections, machineSections, takeMachineFlags } from './machines/cli-flags.ts';
 
 const USAGE = `usage: npm run solve -- <project.json> [--json] [--correct-pf <elementId>:<target power factor>] ${MACHINE_USAGE}`;
 
@@ -74,7 +74,7 @@ function main(args: readonly string[]): void {
       fail([`cannot read the pump study ${mach.flowFile}: ${(err as Error).message}`]);
     }
   }
-  const machines = mach.machines || mach.flowFile !== undefined ? machineSections(data, mach.machines, flowData) : undefined;
+  const machines = mach.machines || mach.flowFile !== undefined || hasPumpSections(data) ? machineSections(data, mach.machines, flowData) : undefined;
   if (machines && !machines.ok) fail([`${file}: ${machines.heading}`, ...machines.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
   if (json) {
     const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}) };

@@ -368,7 +368,33 @@ export interface NetworkLoad extends FedElement {
   connection?: 'star' | 'delta';
 }
 
-export type Load = DcLoad | AcPowerLoad | AcApparentLoad | ShaftLoad | NetworkLoad;
+/**
+ * A centrifugal pump (or fan) on a motor shaft (core/stages/pump.ts). Quadratic pump curve through
+ * the shut-off head and the rated point; system curve H_s + k·Q² through the rated point; constant
+ * pump efficiency (the affinity laws' assumption). Shaft power ρ·g·Q·H/η at the operating point:
+ * - "speed": a drive upstream sets the speed; the pump runs on the system curve (affinity laws);
+ * - "throttle": full speed, a valve takes up the difference; the pump runs on its own curve.
+ */
+export interface PumpLoad extends FedElement {
+  kind: 'pump';
+  /** Flow at the rated (design) point at full speed, m³/s. */
+  ratedFlow: number;
+  /** Head at the rated point, m. */
+  ratedHead: number;
+  /** Head at zero flow at full speed, m (above ratedHead). */
+  shutoffHead: number;
+  /** Pump efficiency, 0…1, constant over the operating range. */
+  efficiency: number;
+  /** Fluid density, kg/m³ (default 1000, water). */
+  density?: number;
+  /** Static head of the system, m (0 ≤ staticHead < ratedHead). */
+  staticHead: number;
+  /** Operating flow, m³/s (0 < flow ≤ ratedFlow; above rated would need overspeed and is refused). */
+  flow: number;
+  control: 'speed' | 'throttle';
+}
+
+export type Load = DcLoad | AcPowerLoad | AcApparentLoad | ShaftLoad | NetworkLoad | PumpLoad;
 
 export type Element = Source | Stage | Load;
 export type ElementKind = Element['kind'];
@@ -385,6 +411,14 @@ export interface Project {
   backup?: BackupStudy;
   /** Voltage-drop limits the whole-path check flags against (default: 3 % per link, 5 % total). */
   dropLimits?: DropLimits;
+  /** Flow-control comparison at a duty profile for a `pump` element (core/machines/project-flow.ts). */
+  flowStudy?: ProjectFlowStudy;
+}
+
+/** The pump element to study and its duty: flow (m³/s) and hours per year at that flow. */
+export interface ProjectFlowStudy {
+  pump: string;
+  duty: { flow: number; hours: number }[];
 }
 
 /**

@@ -34,6 +34,48 @@ export const STANDARD_GRAVITY = 9.80665;
 /** Hours in a (non-leap) year. */
 export const HOURS_PER_YEAR = 8760;
 
+/** The pump's full-speed curve data shared by the study and the chain's `pump` element. */
+export interface PumpCurveData {
+  ratedFlow: number;
+  ratedHead: number;
+  shutoffHead: number;
+  efficiency: number;
+  density?: number;
+}
+
+/** Pump curve at full speed, quadratic (common practice): H(Q) = H0 − a·Q², a = (H0 − H_r)/Q_r². */
+export function pumpCurveHead(p: PumpCurveData, flow: number): number {
+  const a = (p.shutoffHead - p.ratedHead) / (p.ratedFlow * p.ratedFlow);
+  return p.shutoffHead - a * flow * flow;
+}
+
+/** System curve with static head: H_sys(Q) = H_s + k·Q², k = (H_r − H_s)/Q_r² (meets the pump curve at the rated point). */
+export function systemCurveHead(p: PumpCurveData, staticHead: number, flow: number): number {
+  const k = (p.ratedHead - staticHead) / (p.ratedFlow * p.ratedFlow);
+  return staticHead + k * flow * flow;
+}
+
+/**
+ * Speed fraction at which the pump curve (affinity laws: H = n²·H0 − a·Q²) meets the system curve
+ * at the flow Q: n = √((H_s + (k + a)·Q²) / H0).
+ */
+export function affinitySpeed(p: PumpCurveData, staticHead: number, flow: number): number {
+  const Q2 = p.ratedFlow * p.ratedFlow;
+  const a = (p.shutoffHead - p.ratedHead) / Q2;
+  const k = (p.ratedHead - staticHead) / Q2;
+  return Math.sqrt((staticHead + (k + a) * flow * flow) / p.shutoffHead);
+}
+
+/** Hydraulic power P_h = ρ·g·Q·H, W (g = standard gravity; ρ default 1000 kg/m³). */
+export function hydraulicPower(p: PumpCurveData, flow: number, head: number): number {
+  return (p.density ?? 1000) * STANDARD_GRAVITY * flow * head;
+}
+
+/** Shaft power P_h / η_pump, W, at constant pump efficiency (the affinity laws' assumption). */
+export function pumpShaftPower(p: PumpCurveData, flow: number, head: number): number {
+  return hydraulicPower(p, flow, head) / p.efficiency;
+}
+
 export interface FlowStudyInput {
   /** Name used in messages (default "flowStudy"). */
   id?: string;
@@ -223,15 +265,12 @@ export function compareFlowControl(input: FlowStudyInput): FlowControlOutcome {
 }
 
 function compute(s: FlowStudyInput, rating: MotorRating, grid: DriveLossGrid): FlowControlResult {
-  const { ratedFlow: Qr, ratedHead: Hr, shutoffHead: H0, efficiency: etaP } = s.pump;
-  const rho = s.pump.density ?? 1000;
+  const { ratedFlow: Qr, ratedHead: Hr } = s.pump;
   const Hs = s.staticHead;
-  const a = (H0 - Hr) / (Qr * Qr);
-  const k = (Hr - Hs) / (Qr * Qr);
   const Prated = s.motor.ratedOutput;
   const sf = s.motor.serviceFactor ?? 1;
   const warnings: string[] = [];
-  const shaft = (Q: number, H: number): number => (rho * STANDARD_GRAVITY * Q * H) / etaP;
+  const shaft = (Q: number, H: number): number => pumpShaftPower(s.pump, Q, H);
   const motorInput = (pShaft: number): number => (pShaft > 0 ? pShaft / ratedAt(rating, pShaft / Prated).efficiency : 0);
   const fixedSpeed = (Q: number, H: number): FixedSpeedPoint => {
     const pShaft = Q > 0 ? shaft(Q, H) : 0;
@@ -243,8 +282,8 @@ function compute(s: FlowStudyInput, rating: MotorRating, grid: DriveLossGrid): F
   const points: DutyPointResult[] = s.duty.map((d) => {
     const Q = d.flow;
     // Speed control: the pump curve at speed n meets the system curve at Q (affinity laws).
-    const n = Math.sqrt((Hs + (k + a) * Q * Q) / H0);
-    const Hsys = Hs + k * Q * Q;
+    const n = affinitySpeed(s.pump, Hs, Q);
+    const Hsys = systemCurveHead(s.pump, Hs, Q);
     const pShaft = Q > 0 ? shaft(Q, Hsys) : 0;
     const pMotorIn = motorInput(pShaft);
     const speedPct = 100 * n;
@@ -252,7 +291,7 @@ function compute(s: FlowStudyInput, rating: MotorRating, grid: DriveLossGrid): F
     const running = Q > 0 && n > 0 && pShaft > 0;
     const torquePct = running ? (100 * (pShaft / n)) / Prated : 0;
     const at = running ? driveLossAt(grid, speedPct, torquePct) : { loss: 0, clamped: false, speed: 0, torque: 0 };
-    const throttle = fixedSpeed(Q, H0 - a * Q * Q);
+    const throttle = fixedSpeed(Q, pumpCurveHead(s.pump, Q));
     return {
       flow: Q,
       hours: d.hours,

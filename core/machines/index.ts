@@ -4,3 +4,5 @@ export { driveLossGrid, driveLossAt, driveLossAtPoint, checkOperatingPoint, true
 export { classEfficiency, motorRating, ratedAt, partLoadRatios, necFullLoadCurrent, typicalPowerFactor, MOTOR_CLASSES, type MotorRating, type FullLoadEfficiency } from './motor-rating.ts';
 export { machineDetails, solveWithMachines, NEC_TABLE_CURRENT_NOTE, type MachineDetails, type MotorDetail, type DriveDetail, type MachineSolveOutcome } from './details.ts';
 export { formatMachines, formatFlowStudy, MACHINE_CAUTION } from './text-report.ts';
+export { projectFlowStudy, pumpDetails, flowStudySchema, type PumpDetail, type ProjectFlowOutcome } from './project-flow.ts';
+export { affinitySpeed, pumpCurveHead, systemCurveHead, hydraulicPower, pumpShaftPower, type PumpCurveData } from './flow-control.ts';

@@ -9,6 +9,7 @@ import { KINDS } from '../stages/index.ts';
 import { checkStructure, skeletonOf } from './structure.ts';
 import { backupSchema } from '../battery/profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
+import { flowStudySchema } from '../stages/pump.ts';
 
 const projectShape = z.strictObject({
   format: z.literal('joulepath-project', { error: 'must be "joulepath-project"' }),
@@ -18,6 +19,7 @@ const projectShape = z.strictObject({
   elements: z.array(z.unknown(), { error: 'must be a list of elements' }),
   backup: backupSchema.optional(),
   dropLimits: dropLimitsSchema.optional(),
+  flowStudy: flowStudySchema.optional(),
 });
 
 /**

@@ -12,6 +12,7 @@ import { inverterKind } from './inverter.ts';
 import { acLoadKind, acVaLoadKind, dcLoadKind, shaftLoadKind } from './loads.ts';
 import { motorKind } from './motor.ts';
 import { networkLoadKind } from './network-load.ts';
+import { pumpKind } from './pump.ts';
 import { rectifierKind } from './rectifier.ts';
 import { transformerKind } from './transformer.ts';
 
@@ -33,6 +34,7 @@ const all = [
   acVaLoadKind,
   shaftLoadKind,
   networkLoadKind,
+  pumpKind,
 ] as const;
 
 /** Every kind by its name. */

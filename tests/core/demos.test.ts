@@ -135,9 +135,16 @@ describe('riverside pump station (480 V 60 Hz, drive + motor, 45 kVA transformer
     expect(c.loss).toBeCloseTo(3 * c.output!.current ** 2 * 0.0306, 9);
   });
 
-  it('motor: loss and reactive power from its efficiency and power-factor curves at 21.5/29.84 kW', () => {
+  it('intake pump (speed control): H = H_s + k·Q² = 4 + 21·(0.084/0.095)² = 20.4184 m; P = ρgQH/η = 21290.9 W (affinity laws, system curve)', () => {
+    // By hand: (0.084/0.095)² = 0.781856; H = 4 + 21 × 0.781856 = 20.41839 m;
+    // P_shaft = 1000 × 9.80665 × 0.084 × 20.41839 / 0.79 = 21290.92 W.
+    expect(get(r, 'pump').pIn).toBeCloseTo(21290.92, 1);
+  });
+
+  it('motor: loss and reactive power from its efficiency and power-factor curves at 21.29/29.84 kW', () => {
     const m = get(r, 'motor');
-    const x = 21500 / 29840; // 0.7205
+    const x = m.pOut / 29840; // the pump's shaft power (21290.92 W, above) / rated output
+    expect(x).toBeCloseTo(21290.92 / 29840, 6); // 0.713503
     expect(m.loadFraction).toBeCloseTo(x, 12);
     const eta = interp(
       [
@@ -157,11 +164,11 @@ describe('riverside pump station (480 V 60 Hz, drive + motor, 45 kVA transformer
       ],
       x,
     );
-    // By hand: η = 0.937 + 0.006·(0.2205/0.25) = 0.94229; loss = 21500·(1/η − 1) ≈ 1316.70 W.
-    expect(eta).toBeCloseTo(0.94229, 5);
-    expect(m.loss).toBeCloseTo(21500 * (1 / eta - 1), 9);
-    expect(m.loss).toBeCloseTo(1316.7, 1);
-    // Q_in = P_in·tan(arccos pf) (power triangle); pf = 0.74 + 0.08·0.882 = 0.8106.
+    // By hand: η = 0.937 + 0.006·(0.21350/0.25) = 0.942124; loss = 21290.92·(1/η − 1) ≈ 1307.93 W.
+    expect(eta).toBeCloseTo(0.942124, 5);
+    expect(m.loss).toBeCloseTo(m.pOut * (1 / eta - 1), 9);
+    expect(m.loss).toBeCloseTo(1307.93, 1);
+    // Q_in = P_in·tan(arccos pf) (power triangle); pf = 0.74 + 0.08·0.8540 = 0.80832.
     expect(m.input!.q).toBeCloseTo(m.pIn * Math.tan(Math.acos(pf)), 6);
     expect(m.input!.powerFactor).toBeCloseTo(pf, 12);
   });

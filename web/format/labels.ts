@@ -19,6 +19,7 @@ const ELEMENT_KIND_LABELS: Record<ElementKind, string> = {
   'ac-load': 'AC load',
   'ac-va-load': 'AC load (VA)',
   'shaft-load': 'Shaft load',
+  pump: 'Pump',
 };
 
 const PORT_KIND_LABELS: Record<PortKind, string> = {
