@@ -8,7 +8,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { demoProjects, solveProject } from '../../core/index.ts';
+import { demoProjects, pumpDetails, projectFlowStudy, solveProject, validateProject } from '../../core/index.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli.ts', ...args], { encoding: 'utf8' });
@@ -30,11 +30,20 @@ describe('command-line solver', () => {
     }, 30_000);
   }
 
-  it('--json prints the full result, identical to the engine called directly', () => {
+  it('--json prints the full result, identical to the engine called directly (plus the pump sections)', () => {
     const out = execFileSync(TSX, ['core/cli.ts', 'core/demos/riverside-pump-station.json', '--json'], { encoding: 'utf8' });
-    const outcome = solveProject(demoProjects[1]!.project);
+    const demo = demoProjects[1]!.project;
+    const outcome = solveProject(demo);
     expect(outcome.ok).toBe(true);
-    if (outcome.ok) expect(JSON.parse(out)).toEqual(JSON.parse(JSON.stringify(outcome.result)));
+    if (!outcome.ok) return;
+    const { pumps, flowStudy, ...result } = JSON.parse(out);
+    expect(result).toEqual(JSON.parse(JSON.stringify(outcome.result)));
+    // The demo has a pump and a flowStudy: both sections come from core/machines, run in-process here.
+    const study = projectFlowStudy(demo);
+    expect(study.ok).toBe(true);
+    if (study.ok) expect(flowStudy).toEqual(JSON.parse(JSON.stringify(study.result)));
+    const valid = validateProject(demo);
+    if (valid.ok) expect(pumps).toEqual(JSON.parse(JSON.stringify(pumpDetails(valid.project))));
   }, 30_000);
 
   it('exits 1 with one line per problem on bad input', () => {
