@@ -102,3 +102,4 @@ export {
   type DriveDetail,
   type MachineSolveOutcome,
 } from './machines/index.ts';
+export { flowGraph, lossNodeId, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole } from './flow.ts';

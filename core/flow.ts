@@ -1,0 +1,93 @@
+/**
+ * The energy flow of a solved chain as plain data for a Sankey diagram: nodes (the source, every
+ * stage, every load, and one loss node per source/stage) and links carrying real power.
+ *
+ * Method: an energy balance per element taken straight from the solve result (no new physics).
+ * - a link from each element to each element it feeds, value = the child's P_in;
+ * - a link from the source and from each stage to its own loss node, value = its loss (P_in − P_out),
+ *   for the source its internal loss (it delivers P_in including that loss).
+ * At every element the solve makes P_out = Σ children's P_in, so input = outputs + loss holds to the
+ * solve's round-off; `flowGraph` reports the largest relative mismatch it finds (`conservationError`).
+ *
+ * Standby versus conversion loss is NOT split here: the result carries a converter's total loss at
+ * its operating point but not its loss at zero output (only `polynomial-fit` stages carry p0 in
+ * `fit`), so a split would be partial. It needs an `idleLoss` figure per stage in `ElementResult`.
+ */
+import type { ElementKind } from './model.ts';
+import type { SolveResult } from './result.ts';
+
+export type FlowNodeRole = 'source' | 'stage' | 'load' | 'loss';
+
+export interface FlowNode {
+  /** Unique within the graph: the element id, or `<element id>#loss` for a loss node. */
+  id: string;
+  role: FlowNodeRole;
+  /** The element this node stands for (for a loss node: the element that loses the power). */
+  elementId: string;
+  /** The element's name (or id when unnamed); for a loss node, the name of the element. */
+  name: string;
+  kind: ElementKind;
+  /** Real power through the node, W: P_in of an element (the source: what it delivers), the loss of a loss node. */
+  watts: number;
+  /** watts as a percentage of the source power (0 when the source delivers nothing). */
+  percent: number;
+}
+
+export interface FlowLink {
+  /** Id of the node the power leaves. */
+  source: string;
+  /** Id of the node the power reaches. */
+  target: string;
+  /** 'feed': to a fed element (value = its P_in); 'loss': to the element's loss node. */
+  role: 'feed' | 'loss';
+  /** Real power, W. */
+  watts: number;
+  /** watts as a percentage of the source power (0 when the source delivers nothing). */
+  percent: number;
+}
+
+export interface FlowGraph {
+  projectName: string;
+  /** Real power the source delivers, W (totals.sourcePower). */
+  sourcePower: number;
+  /** Nodes in the result's order (source first, depth-first), each loss node right after its element. */
+  nodes: FlowNode[];
+  links: FlowLink[];
+  /** Largest |P_in − Σ out-links| / source power over the source and stages (0 for an empty source). */
+  conservationError: number;
+}
+
+/** Suffix of a loss node's id. */
+export const LOSS_SUFFIX = '#loss';
+
+export function lossNodeId(elementId: string): string {
+  return `${elementId}${LOSS_SUFFIX}`;
+}
+
+/** The Sankey graph of a solved chain (pure; the result is not modified). */
+export function flowGraph(result: SolveResult): FlowGraph {
+  const sourcePower = result.totals.sourcePower;
+  const pct = (w: number) => (sourcePower !== 0 ? (100 * w) / sourcePower : 0);
+  const byId = new Map(result.elements.map((e) => [e.id, e]));
+  const nodes: FlowNode[] = [];
+  const links: FlowLink[] = [];
+  let conservationError = 0;
+
+  for (const e of result.elements) {
+    const name = e.name || e.id;
+    nodes.push({ id: e.id, role: e.role, elementId: e.id, name, kind: e.kind, watts: e.pIn, percent: pct(e.pIn) });
+    if (e.role === 'load') continue;
+    nodes.push({ id: lossNodeId(e.id), role: 'loss', elementId: e.id, name, kind: e.kind, watts: e.loss, percent: pct(e.loss) });
+    let out = e.loss;
+    for (const childId of e.feeds) {
+      const child = byId.get(childId);
+      if (!child) continue;
+      links.push({ source: e.id, target: child.id, role: 'feed', watts: child.pIn, percent: pct(child.pIn) });
+      out += child.pIn;
+    }
+    links.push({ source: e.id, target: lossNodeId(e.id), role: 'loss', watts: e.loss, percent: pct(e.loss) });
+    if (sourcePower !== 0) conservationError = Math.max(conservationError, Math.abs(e.pIn - out) / Math.abs(sourcePower));
+  }
+
+  return { projectName: result.projectName, sourcePower, nodes, links, conservationError };
+}
