@@ -8,7 +8,7 @@ import {
   formatCurrent,
   formatFrequency,
   formatPercent,
-  formatPower,
+  formatPower as formatPowerIn,
   formatPowerFactor,
   formatReactive,
   formatSmallPercent,
@@ -16,6 +16,9 @@ import {
   formatVoltage,
 } from '../format/number.ts';
 import { elementKindLabel, portKindLabel } from '../format/labels.ts';
+import { formatConductorSize, formatLength, formatShaftPower, formatTemperature, type UnitSystem } from '../format/units.ts';
+import { effectiveLocale, unitSystem } from '../state/prefs.ts';
+import { shownProjectInput } from '../state/app.ts';
 
 /** Tree depth of each element (for indenting names), from the `from` links the result carries. */
 function depths(elements: readonly ElementResult[]): Map<string, number> {
@@ -47,6 +50,8 @@ function ElementName({ element, depth, withKind = false }: { element: ElementRes
 
 export function EnergyBalance({ result }: { result: SolveResult }) {
   const t = result.totals;
+  const loc = effectiveLocale();
+  const formatPower = (w: number) => formatPowerIn(w, loc);
   return (
     <section class="balance" aria-labelledby="balance-heading" data-testid="energy-balance">
       <h3 id="balance-heading" class="visually-hidden">Energy balance</h3>
@@ -65,12 +70,12 @@ export function EnergyBalance({ result }: { result: SolveResult }) {
         </div>
         <div>
           <dt>Chain efficiency</dt>
-          <dd data-testid="chain-efficiency">{formatPercent(t.efficiency)}</dd>
+          <dd data-testid="chain-efficiency">{formatPercent(t.efficiency, loc)}</dd>
         </div>
       </dl>
       <p class="balance__line" data-testid="balance-line">
         Energy balance: source {formatPower(t.sourcePower)} = loads {formatPower(t.loadPower)} + losses{' '}
-        {formatPower(t.losses)}; mismatch {formatSmallPercent(t.balanceError)}.
+        {formatPower(t.losses)}; mismatch {formatSmallPercent(t.balanceError, loc)}.
       </p>
     </section>
   );
@@ -79,7 +84,11 @@ export function EnergyBalance({ result }: { result: SolveResult }) {
 export function ElementTable({ result }: { result: SolveResult }) {
   const depth = depths(result.elements);
   const t = result.totals;
+  const loc = effectiveLocale();
+  const units = unitSystem.value;
+  const formatPower = (w: number) => formatPowerIn(w, loc);
   return (
+    <>
     <section aria-labelledby="elements-heading">
       <h3 id="elements-heading">Power at each element</h3>
       <div class="table-scroll" role="region" aria-labelledby="elements-heading" tabIndex={0}>
@@ -101,10 +110,10 @@ export function ElementTable({ result }: { result: SolveResult }) {
                   <th scope="row">
                     <ElementName element={e} depth={depth.get(e.id) ?? 0} withKind />
                   </th>
-                  <td class="num">{formatPower(e.pIn)}</td>
-                  <td class="num">{formatPower(e.pOut)}</td>
+                  <td class="num">{e.input?.kind === 'shaft' ? formatShaftPower(e.pIn, units, loc) : formatPower(e.pIn)}</td>
+                  <td class="num">{e.output?.kind === 'shaft' ? formatShaftPower(e.pOut, units, loc) : formatPower(e.pOut)}</td>
                   <td class="num">{isLoad ? '—' : formatPower(e.loss)}</td>
-                  <td class="num">{isLoad ? '—' : formatPercent(e.efficiency)}</td>
+                  <td class="num">{isLoad ? '—' : formatPercent(e.efficiency, loc)}</td>
                 </tr>
               );
             })}
@@ -120,19 +129,101 @@ export function ElementTable({ result }: { result: SolveResult }) {
               <td class="num">{formatPower(t.sourcePower)}</td>
               <td class="num">{formatPower(t.loadPower)}</td>
               <td class="num">{formatPower(t.losses)}</td>
-              <td class="num" data-testid="totals-efficiency">{formatPercent(t.efficiency)}</td>
+              <td class="num" data-testid="totals-efficiency">{formatPercent(t.efficiency, loc)}</td>
             </tr>
           </tfoot>
         </table>
       </div>
     </section>
+    <CableTable result={result} units={units} locale={loc} />
+    </>
   );
 }
 
-function portKindText(port: PortResult): string {
+/**
+ * The cables: route length (from the project as entered), conductor size as the engine chose it,
+ * estimated conductor temperature, voltage drop and loss. Shown only when the project has cables.
+ */
+function CableTable({ result, units, locale }: { result: SolveResult; units: UnitSystem; locale: string | undefined }) {
+  const cables = result.elements.filter((e) => e.kind === 'cable');
+  if (cables.length === 0) return null;
+  const lengths = cableLengths(shownProjectInput.value);
+  const drops = new Map<string, number>();
+  for (const path of result.voltageDrop ?? []) for (const link of path.links) drops.set(link.id, link.dropPercent);
+  const cautions = [...new Set(cables.flatMap((e) => (e.conductor ? [e.conductor.caution] : [])))];
+  return (
+    <section aria-labelledby="cables-heading" data-testid="cable-panel">
+      <h3 id="cables-heading">Cables</h3>
+      <div class="table-scroll" role="region" aria-labelledby="cables-heading" tabIndex={0}>
+        <table class="data data--cables" data-testid="cable-table">
+          <thead>
+            <tr>
+              <th scope="col">Cable</th>
+              <th scope="col" class="num">Length</th>
+              <th scope="col">Conductor</th>
+              <th scope="col" class="num">Conductor temp.</th>
+              <th scope="col" class="num">Drop</th>
+              <th scope="col" class="num">Loss</th>
+            </tr>
+          </thead>
+          <tbody>
+            {cables.map((e) => {
+              const c = e.conductor;
+              const length = lengths.get(e.id);
+              const dropPercent = c ? c.drop.exactPercent : drops.get(e.id);
+              return (
+                <tr key={e.id} data-element-id={e.id}>
+                  <th scope="row">
+                    <span class="el-name__text">
+                      <span>{e.name || e.id}</span>
+                    </span>
+                  </th>
+                  <td class="num" data-testid="cable-length">{length === undefined ? '—' : formatLength(length, units, locale)}</td>
+                  <td data-testid="cable-size">
+                    {c ? (
+                      <>
+                        {c.parallelSets > 1 ? `${c.parallelSets} × ` : ''}
+                        {formatConductorSize(c.size, c.areaMm2, units, locale)}
+                        <span class="cell-note">{c.auto ? `chosen by ${c.governing}` : 'as given'}</span>
+                      </>
+                    ) : (
+                      <span class="cell-note">given as R and X per km</span>
+                    )}
+                  </td>
+                  <td class="num">{c ? formatTemperature(c.resistance.operatingTemperature, units, locale) : '—'}</td>
+                  <td class="num">{dropPercent === undefined ? '—' : formatPercent(dropPercent / 100, locale, 3)}</td>
+                  <td class="num">{formatPowerIn(e.loss, locale)}</td>
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+      </div>
+      <p class="note">
+        Lengths are one-way route lengths. Drop is the voltage drop along that cable, % of its sending voltage.
+        {cautions.map((text) => ` ${text}`)}
+      </p>
+    </section>
+  );
+}
+
+/** One-way route lengths of the cables in a project as entered (m), for display beside the results. */
+export function cableLengths(project: unknown): Map<string, number> {
+  const out = new Map<string, number>();
+  const elements = typeof project === 'object' && project !== null ? (project as { elements?: unknown }).elements : undefined;
+  if (!Array.isArray(elements)) return out;
+  for (const el of elements as unknown[]) {
+    if (typeof el !== 'object' || el === null) continue;
+    const { id, kind, length } = el as { id?: unknown; kind?: unknown; length?: unknown };
+    if (kind === 'cable' && typeof id === 'string' && typeof length === 'number' && Number.isFinite(length)) out.set(id, length);
+  }
+  return out;
+}
+
+function portKindText(port: PortResult, locale: string | undefined): string {
   const parts = [portKindLabel(port.kind)];
-  if (port.frequency !== undefined && port.kind !== 'dc' && port.kind !== 'shaft') parts.push(formatFrequency(port.frequency));
-  if (port.speed !== undefined) parts.push(formatSpeed(port.speed));
+  if (port.frequency !== undefined && port.kind !== 'dc' && port.kind !== 'shaft') parts.push(formatFrequency(port.frequency, locale));
+  if (port.speed !== undefined) parts.push(formatSpeed(port.speed, locale));
   return parts.join(' · ');
 }
 
@@ -148,6 +239,8 @@ interface PortRowProps {
 }
 
 function PortRow({ element, side, port, depth, nameRows, shade }: PortRowProps) {
+  const loc = effectiveLocale();
+  const units = unitSystem.value;
   const electrical = port.kind !== 'shaft';
   const ac = port.kind === 'ac1' || port.kind === 'ac3';
   return (
@@ -160,15 +253,15 @@ function PortRow({ element, side, port, depth, nameRows, shade }: PortRowProps) 
       <td class="port">
         <div class="port__inner">
           <span class={`port-side port-side--${side}`}>{side}</span>
-          <span class="port__kind">{portKindText(port)}</span>
+          <span class="port__kind">{portKindText(port, loc)}</span>
         </div>
       </td>
-      <td class="num" data-label="V">{electrical ? formatVoltage(port.voltage) : '—'}</td>
-      <td class="num" data-label="I">{electrical ? formatCurrent(port.current) : '—'}</td>
-      <td class="num" data-label="P">{formatPower(port.p)}</td>
-      <td class="num" data-label="Q">{ac ? formatReactive(port.q) : '—'}</td>
-      <td class="num" data-label="S">{ac ? formatApparent(port.s) : '—'}</td>
-      <td class="num pf" data-label="Power factor">{ac ? formatPowerFactor(port.powerFactor, port.pfSense) : '—'}</td>
+      <td class="num" data-label="V">{electrical ? formatVoltage(port.voltage, loc) : '—'}</td>
+      <td class="num" data-label="I">{electrical ? formatCurrent(port.current, loc) : '—'}</td>
+      <td class="num" data-label="P">{electrical ? formatPowerIn(port.p, loc) : formatShaftPower(port.p, units, loc)}</td>
+      <td class="num" data-label="Q">{ac ? formatReactive(port.q, loc) : '—'}</td>
+      <td class="num" data-label="S">{ac ? formatApparent(port.s, loc) : '—'}</td>
+      <td class="num pf" data-label="Power factor">{ac ? formatPowerFactor(port.powerFactor, port.pfSense, loc) : '—'}</td>
     </tr>
   );
 }

@@ -46,6 +46,11 @@ export const shownTitle = computed(() => {
   return selectedDemo.value?.title ?? '';
 });
 
+/** The project as entered (unvalidated data) that is shown: the opened file's, else the demo's. */
+export const shownProjectInput = computed<unknown>(() =>
+  fileReadError.value ? undefined : openedFile.value ? openedFile.value.data : selectedDemo.value?.project,
+);
+
 export const solution = computed<Solution | null>(() => {
   const readError = fileReadError.value;
   if (readError) return { state: 'unreadable', message: readError.message };

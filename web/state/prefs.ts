@@ -1,0 +1,135 @@
+/**
+ * Display preferences as signals: unit system, number locale and colour theme. They change only
+ * what is shown; the project and its solution are untouched (no re-solve on a switch).
+ *
+ * Kept in localStorage when the browser offers it. Reading or writing may fail (private mode, full
+ * or disabled storage, a sandboxed frame); the page then keeps working with the values in memory.
+ */
+import { effect, signal } from '@preact/signals';
+import { UNIT_SYSTEMS, type UnitSystem } from '../format/units.ts';
+
+export type ThemeChoice = 'auto' | 'light' | 'dark';
+export const THEME_CHOICES: readonly ThemeChoice[] = ['auto', 'light', 'dark'];
+
+/** Locales offered in the page (any BCP 47 tag the browser supports also works when stored). */
+export const LOCALE_CHOICES: readonly { tag: string; label: string }[] = [
+  { tag: 'en-US', label: 'English (US) · 1,234.5' },
+  { tag: 'en-GB', label: 'English (UK) · 1,234.5' },
+  { tag: 'de-DE', label: 'Deutsch · 1.234,5' },
+  { tag: 'fr-FR', label: 'Français · 1 234,5' },
+  { tag: 'es-ES', label: 'Español · 1234,5' },
+  { tag: 'pt-BR', label: 'Português (BR) · 1.234,5' },
+  { tag: 'en-IN', label: 'English (India) · 1,234.5' },
+];
+
+export interface DisplayPrefs {
+  units: UnitSystem;
+  /** BCP 47 tag, or '' for the browser's language (navigator.language). */
+  locale: string;
+  theme: ThemeChoice;
+}
+
+export const PREFS_KEY = 'joulepath.display.v1';
+
+export const DEFAULT_PREFS: DisplayPrefs = { units: 'si', locale: '', theme: 'auto' };
+
+/** A locale tag Intl accepts, or undefined. */
+export function validLocale(tag: unknown): string | undefined {
+  if (typeof tag !== 'string' || tag === '') return undefined;
+  try {
+    return Intl.NumberFormat.supportedLocalesOf([tag]).length > 0 ? tag : undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+/** Reads stored preferences; anything missing or malformed falls back to the default. */
+export function parsePrefs(text: string | null | undefined): DisplayPrefs {
+  if (!text) return { ...DEFAULT_PREFS };
+  let raw: unknown;
+  try {
+    raw = JSON.parse(text);
+  } catch {
+    return { ...DEFAULT_PREFS };
+  }
+  const o = typeof raw === 'object' && raw !== null ? (raw as Record<string, unknown>) : {};
+  return {
+    units: UNIT_SYSTEMS.includes(o.units as UnitSystem) ? (o.units as UnitSystem) : DEFAULT_PREFS.units,
+    locale: validLocale(o.locale) ?? DEFAULT_PREFS.locale,
+    theme: THEME_CHOICES.includes(o.theme as ThemeChoice) ? (o.theme as ThemeChoice) : DEFAULT_PREFS.theme,
+  };
+}
+
+/** What this module uses of the browser (typed here so it also type-checks under Node for tests). */
+interface StorageLike {
+  getItem(key: string): string | null;
+  setItem(key: string, value: string): void;
+}
+interface MediaQueryLike {
+  matches: boolean;
+  addEventListener?(type: 'change', listener: (event: { matches: boolean }) => void): void;
+}
+const host = globalThis as {
+  localStorage?: StorageLike;
+  navigator?: { language?: string };
+  matchMedia?: (query: string) => MediaQueryLike;
+  document?: { documentElement: { dataset: Record<string, string | undefined> } };
+};
+
+/** The storage object, or undefined when there is none or touching it throws. */
+function storage(): StorageLike | undefined {
+  try {
+    return host.localStorage ?? undefined;
+  } catch {
+    return undefined;
+  }
+}
+
+function loadPrefs(): DisplayPrefs {
+  try {
+    return parsePrefs(storage()?.getItem(PREFS_KEY));
+  } catch {
+    return { ...DEFAULT_PREFS };
+  }
+}
+
+const initial = loadPrefs();
+
+export const unitSystem = signal<UnitSystem>(initial.units);
+/** The chosen locale tag; '' follows the browser. */
+export const localeChoice = signal<string>(initial.locale);
+export const themeChoice = signal<ThemeChoice>(initial.theme);
+
+/** The locale numbers are formatted in: the choice, else navigator.language, else the runtime's. */
+export function effectiveLocale(choice: string = localeChoice.value): string | undefined {
+  return validLocale(choice) ?? validLocale(host.navigator?.language) ?? undefined;
+}
+
+/** Writes the preferences; returns false when storage is missing or refuses (never throws). */
+export function savePrefs(prefs: DisplayPrefs, store: Pick<StorageLike, 'setItem'> | undefined = storage()): boolean {
+  if (!store) return false;
+  try {
+    store.setItem(PREFS_KEY, JSON.stringify(prefs));
+    return true;
+  } catch {
+    return false;
+  }
+}
+
+/** The device's colour-scheme preference, followed while the theme choice is 'auto'. */
+const darkQuery = host.matchMedia?.('(prefers-color-scheme: dark)');
+export const deviceDark = signal<boolean>(darkQuery?.matches ?? false);
+darkQuery?.addEventListener?.('change', (event) => (deviceDark.value = event.matches));
+
+/** The theme in force: the choice, or the device's preference for 'auto'. */
+export function resolveTheme(choice: ThemeChoice, dark: boolean): 'light' | 'dark' {
+  return choice === 'auto' ? (dark ? 'dark' : 'light') : choice;
+}
+
+// Store every change, and put the theme in force on <html data-theme> for the stylesheet.
+effect(() => {
+  const prefs: DisplayPrefs = { units: unitSystem.value, locale: localeChoice.value, theme: themeChoice.value };
+  savePrefs(prefs);
+  const root = host.document?.documentElement;
+  if (root) root.dataset.theme = resolveTheme(prefs.theme, deviceDark.value);
+});
