@@ -5,7 +5,7 @@
  * download real files, and the diagram neither widens the page on a phone nor loads with the page.
  * Screenshots go to tests/.artifacts/ for a person to look at.
  */
-import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
@@ -206,6 +206,7 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
       expect(pngDownload.suggestedFilename()).toBe(svgDownload.suggestedFilename().replace(/\.svg$/, '.png'));
       const png = readFileSync(await pngDownload.path());
       expect([...png.subarray(0, 8)]).toEqual(PNG_SIGNATURE);
+      writeFileSync(join(artifacts, 'flow-export.png'), png);
       // IHDR width (bytes 16–19, big-endian): twice the diagram's width.
       const svgWidth = Number(await page.getByTestId('flow-svg').getAttribute('width'));
       expect(png.readUInt32BE(16)).toBe(Math.round(svgWidth * 2));
