@@ -3,8 +3,8 @@ import { LOCALE_CHOICES, THEME_CHOICES, localeChoice, themeChoice, unitSystem, t
 import type { UnitSystem } from '../format/units.ts';
 
 const UNIT_LABELS: Record<UnitSystem, string> = {
-  si: 'SI (m, mm², °C, kW)',
-  us: 'US (ft, AWG/kcmil, °F, hp)',
+  si: 'SI (m, mm², °C)',
+  us: 'US (ft, AWG, °F, hp)',
 };
 
 const THEME_LABELS: Record<ThemeChoice, string> = {
@@ -31,7 +31,7 @@ export function Preferences() {
           ))}
         </select>
       </label>
-      <label class="prefs__field">
+      <label class="prefs__field prefs__field--wide">
         <span class="prefs__label">Numbers</span>
         <select data-testid="locale-select" value={localeChoice.value} onChange={(e) => (localeChoice.value = e.currentTarget.value)}>
           <option value="">As the browser{browserLanguage ? ` (${browserLanguage})` : ''}</option>

@@ -2,7 +2,7 @@
  * The solved project as tables: the energy balance, one row per element, one row per port.
  * Every number shown comes from the engine's result; this file only formats and arranges.
  */
-import type { ElementResult, PortResult, SolveResult } from '../../core/result.ts';
+import type { ElementResult, GoverningRule, PortResult, SolveResult } from '../../core/result.ts';
 import {
   formatApparent,
   formatCurrent,
@@ -140,6 +140,15 @@ export function ElementTable({ result }: { result: SolveResult }) {
   );
 }
 
+/** Why the engine chose a size, in words. */
+const GOVERNING_WORDS: Record<GoverningRule, string> = {
+  ampacity: 'set by ampacity',
+  'voltage-drop': 'set by voltage drop',
+  protection: 'set by the protective device',
+  'smallest-size': 'smallest size allowed',
+  fixed: 'size as given',
+};
+
 /**
  * The cables: route length (from the project as entered), conductor size as the engine chose it,
  * estimated conductor temperature, voltage drop and loss. Shown only when the project has cables.
@@ -184,7 +193,7 @@ function CableTable({ result, units, locale }: { result: SolveResult; units: Uni
                       <>
                         {c.parallelSets > 1 ? `${c.parallelSets} × ` : ''}
                         {formatConductorSize(c.size, c.areaMm2, units, locale)}
-                        <span class="cell-note">{c.auto ? `chosen by ${c.governing}` : 'as given'}</span>
+                        <span class="cell-note">{c.auto ? GOVERNING_WORDS[c.governing] : 'size as given'}</span>
                       </>
                     ) : (
                       <span class="cell-note">given as R and X per km</span>

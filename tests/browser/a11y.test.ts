@@ -1,0 +1,269 @@
+/**
+ * Accessibility, themes, units and locale of the built page in real Chromium (playwright-core).
+ *
+ * - axe-core (pinned in package.json) runs on every demo in the light and the dark theme, at phone
+ *   (390×844) and desktop (1366×768) size; any serious or critical violation fails the test.
+ * - Every control has a label, the focus ring shows, and touch targets are at least 44 px high
+ *   (WCAG 2.2 SC 2.5.8 asks 24 px; 44 px is the project's own target, after SC 2.5.5 AAA).
+ * - Switching units and locale changes how the numbers are written, not the numbers: a round trip
+ *   back to SI and en-US gives the same text, and a stored choice survives a reload.
+ * Screenshots of both themes at both sizes go to tests/.artifacts/ for a person to look at.
+ *
+ * Same pattern as app.test.ts: one production build, one preview server and one browser per file.
+ */
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { build, preview, type PreviewServer } from 'vite';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { requireTool, skipWithout } from '../tools/system-tools.ts';
+
+const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
+const configFile = join(repoRoot, 'vite.config.ts');
+const artifacts = join(repoRoot, 'tests', '.artifacts');
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+const VIEWPORTS = {
+  phone: { width: 390, height: 844 },
+  desktop: { width: 1366, height: 768 },
+} as const;
+
+const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+  '--disable-quic',
+];
+
+/** A TCP port that is free right now on 127.0.0.1. */
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = createServer();
+    srv.unref();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const address = srv.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+interface AxeViolation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: { target: unknown[]; failureSummary?: string }[];
+}
+
+describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and locale in Chromium', () => {
+  let outDir = '';
+  let server: PreviewServer | undefined;
+  let browser: Browser | undefined;
+  let baseUrl = '';
+
+  beforeAll(async () => {
+    outDir = mkdtempSync(join(tmpdir(), 'joulepath-a11y-'));
+    await build({ configFile, logLevel: 'warn', build: { outDir, emptyOutDir: true } });
+    server = await preview({
+      configFile,
+      logLevel: 'warn',
+      build: { outDir },
+      preview: { host: '127.0.0.1', port: await freePort(), strictPort: true, open: false },
+    });
+    baseUrl = server.resolvedUrls?.local[0] ?? '';
+    expect(baseUrl, 'the preview server reports its address').toMatch(/^http:\/\/127\.0\.0\.1:\d+\/$/);
+    browser = await chromium.launch({ executablePath: requireTool('chromium'), headless: true, args: CHROMIUM_ARGS });
+    mkdirSync(artifacts, { recursive: true });
+  });
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+    if (outDir) rmSync(outDir, { recursive: true, force: true });
+  });
+
+  async function openPage(
+    viewport: { width: number; height: number },
+    options: { colorScheme?: 'light' | 'dark'; locale?: string; brokenStorage?: boolean } = {},
+  ): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+    const context = await browser!.newContext({
+      viewport,
+      deviceScaleFactor: 1,
+      locale: options.locale ?? 'en-US',
+      colorScheme: options.colorScheme ?? 'light',
+    });
+    if (options.brokenStorage) {
+      // A storage that refuses every write, as a full or locked-down browser does.
+      await context.addInitScript({
+        content: `Storage.prototype.setItem = () => { throw new DOMException('The quota has been exceeded.', 'QuotaExceededError'); };`,
+      });
+    }
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('console', (msg) => {
+      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
+    });
+    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    await page.goto(baseUrl, { waitUntil: 'load' });
+    await page.getByTestId('element-table').waitFor();
+    return { context, page, errors };
+  }
+
+  /** Serious and critical axe-core violations on the page as it is now. */
+  async function axeViolations(page: Page): Promise<AxeViolation[]> {
+    if (!(await page.evaluate('typeof window.axe === "object"'))) await page.addScriptTag({ content: axeSource });
+    const violations = (await page.evaluate(
+      `window.axe.run(document, { resultTypes: ['violations'] }).then((r) => r.violations)`,
+    )) as AxeViolation[];
+    return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+  }
+
+  function describeViolations(vs: AxeViolation[]): string {
+    return vs
+      .map((v) => `${v.impact} ${v.id}: ${v.help}\n  ${v.nodes.map((n) => `${JSON.stringify(n.target)} ${n.failureSummary ?? ''}`).join('\n  ')}`)
+      .join('\n');
+  }
+
+  it.each(Object.entries(VIEWPORTS))('axe finds no serious or critical violation on any demo, light and dark (%s)', async (label, viewport) => {
+    const { context, page, errors } = await openPage(viewport);
+    try {
+      const ids = await page.locator('a[data-demo-id]').evaluateAll((els) => els.map((el) => el.getAttribute('data-demo-id') ?? ''));
+      expect(ids).toHaveLength(3);
+      const failures: string[] = [];
+      for (const theme of ['light', 'dark'] as const) {
+        await page.getByTestId('theme-select').selectOption(theme);
+        await expect.poll(() => page.evaluate('document.documentElement.dataset.theme')).toBe(theme);
+        for (const id of ids) {
+          await page.locator(`a[data-demo-id="${id}"]`).click();
+          await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
+          await page.getByTestId('element-table').waitFor();
+          const found = await axeViolations(page);
+          if (found.length > 0) failures.push(`${theme} theme, ${label}, ${id}:\n${describeViolations(found)}`);
+          if (id === ids[0]) {
+            await page.screenshot({ path: join(artifacts, `theme-${theme}-${label}.png`), fullPage: true });
+            await page.screenshot({ path: join(artifacts, `theme-${theme}-${label}-top.png`) });
+          }
+        }
+      }
+      // All combinations are checked before failing, so one run lists every violation.
+      expect(failures.join('\n\n')).toBe('');
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('follows the device colour scheme until a theme is chosen', async () => {
+    const { context, page } = await openPage(VIEWPORTS.phone, { colorScheme: 'dark' });
+    try {
+      await expect.poll(() => page.evaluate('document.documentElement.dataset.theme')).toBe('dark');
+      const bg = await page.evaluate('getComputedStyle(document.body).backgroundColor');
+      expect(bg).toBe('rgb(15, 20, 18)'); // --bg of the dark theme in web/styles.css
+      await page.getByTestId('theme-select').selectOption('light');
+      await expect.poll(() => page.evaluate('getComputedStyle(document.body).backgroundColor')).toBe('rgb(244, 245, 242)');
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('labels every control, shows a focus ring, and keeps touch targets at least 44 px high', async () => {
+    for (const viewport of Object.values(VIEWPORTS)) {
+      const { context, page } = await openPage(viewport);
+      try {
+        const unlabeled = await page.evaluate(`[...document.querySelectorAll('select, input, button, textarea')]
+          .filter((el) => !(el.labels && el.labels.length) && !el.getAttribute('aria-label') && !el.getAttribute('aria-labelledby')
+            && !(el.tagName === 'BUTTON' && el.textContent.trim() !== ''))
+          .map((el) => el.outerHTML.slice(0, 80))`);
+        expect(unlabeled).toEqual([]);
+        const small = await page.evaluate(`[...document.querySelectorAll('a[href], select, button, label.picker__open')]
+          .map((el) => ({ el: el.outerHTML.slice(0, 60), h: el.getBoundingClientRect().height, w: el.getBoundingClientRect().width }))
+          .filter((t) => t.h < 44 || t.w < 44)`);
+        expect(small).toEqual([]);
+        // Tab to the first control: its outline is drawn (3 px, web/styles.css :focus-visible).
+        await page.keyboard.press('Tab');
+        const outline = (await page.evaluate(
+          `(() => { const s = getComputedStyle(document.activeElement); return [s.outlineStyle, s.outlineWidth]; })()`,
+        )) as [string, string];
+        expect(outline).toEqual(['solid', '3px']);
+      } finally {
+        await context.close();
+      }
+    }
+  });
+
+  it('switches units and locale without changing the figures, and remembers the choice', async () => {
+    const { context, page, errors } = await openPage(VIEWPORTS.desktop);
+    try {
+      await page.getByTestId('locale-select').selectOption('en-US');
+      await page.getByTestId('units-select').selectOption('si');
+      // The demo with an engine-sized cable: its length and conductor are shown.
+      const demo = page.locator('a[data-demo-id="cold-store-dc-bus"]');
+      await demo.click();
+      const cables = page.getByTestId('cable-table');
+      await cables.waitFor();
+      const project = page.getByTestId('project');
+      const siText = await project.innerText();
+      const lengthsSi = await cables.getByTestId('cable-length').allInnerTexts();
+      expect(lengthsSi.every((t) => /^\d[\d,.]*\s?m$/.test(t.trim())), lengthsSi.join(' | ')).toBe(true);
+
+      // US customary: lengths in ft (40 m = 131.2 ft, 1 ft = 0.3048 m exactly, NIST SP 811 B.8).
+      await page.getByTestId('units-select').selectOption('us');
+      await expect.poll(async () => (await cables.getByTestId('cable-length').allInnerTexts()).join(' | ')).toMatch(/ft/);
+      const lengthsUs = await cables.getByTestId('cable-length').allInnerTexts();
+      expect(lengthsUs.every((t) => /^\d[\d,.]*\s?ft$/.test(t.trim())), lengthsUs.join(' | ')).toBe(true);
+      expect(lengthsUs).toContain('131.2\u202fft');
+      const sizeText = (await cables.getByTestId('cable-size').allInnerTexts()).join(' | ');
+      expect(sizeText).toMatch(/mm² \([\d.]+\s?kcmil\)/);
+
+      // Shaft power gets horsepower beside kW (1 hp = 745.7 W, NIST SP 811 B.8) on the pump demo.
+      await page.locator('a[data-demo-id="riverside-pump-station"]').click();
+      await expect.poll(async () => (await page.getByTestId('port-table').innerText()).includes('hp')).toBe(true);
+      await demo.click();
+      await cables.waitFor();
+
+      // German number format: decimal comma, full stop for thousands (CLDR de).
+      await page.getByTestId('locale-select').selectOption('de-DE');
+      await expect.poll(async () => (await cables.getByTestId('cable-length').allInnerTexts()).join(' | ')).toContain('131,2\u202fft');
+      expect(await page.getByTestId('totals-efficiency').innerText()).toMatch(/^\d{1,3}(,\d+)?\s?%$/);
+
+      // Back to SI and en-US: exactly the text first shown (nothing was recomputed or rounded away).
+      await page.getByTestId('units-select').selectOption('si');
+      await page.getByTestId('locale-select').selectOption('en-US');
+      await expect.poll(() => project.innerText()).toBe(siText);
+
+      // The choice survives a reload (localStorage).
+      await page.getByTestId('units-select').selectOption('us');
+      await page.getByTestId('locale-select').selectOption('de-DE');
+      await page.reload({ waitUntil: 'load' });
+      await page.getByTestId('cable-table').waitFor();
+      await expect.poll(() => page.getByTestId('units-select').inputValue()).toBe('us');
+      expect(await page.getByTestId('locale-select').inputValue()).toBe('de-DE');
+      expect((await page.getByTestId('cable-length').allInnerTexts()).join(' | ')).toContain('131,2\u202fft');
+      await page.screenshot({ path: join(artifacts, 'units-us-de-desktop.png'), fullPage: true });
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('keeps working when the browser refuses to store the choice', async () => {
+    const { context, page, errors } = await openPage(VIEWPORTS.phone, { brokenStorage: true });
+    try {
+      await page.getByTestId('units-select').selectOption('us');
+      await page.getByTestId('locale-select').selectOption('de-DE');
+      await page.locator('a[data-demo-id="cold-store-dc-bus"]').click();
+      await expect.poll(async () => (await page.getByTestId('cable-length').allInnerTexts()).join(' | ')).toContain('131,2\u202fft');
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
