@@ -19,6 +19,7 @@ import { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from '../../c
 import type { ElementResult, SolveResult } from '../../core/result.ts';
 import { formatPercent, formatPower } from '../format/number.ts';
 import { elementKindLabel } from '../format/labels.ts';
+import { effectiveLocale } from '../state/prefs.ts';
 import './EnergyFlow.css';
 
 /** Our palette: deep teal for power that flows on, vermilion for converter/source loss, ochre for line loss. */
@@ -82,7 +83,7 @@ function nodeColour(n: FlowNode): string {
   return FLOW_COLOURS.stage;
 }
 
-const figures = (watts: number, percent: number) => `${formatPower(watts)} · ${formatPercent(percent / 100, undefined, 3)}`;
+const figures = (watts: number, percent: number, loc: string | undefined) => `${formatPower(watts, loc)} · ${formatPercent(percent / 100, loc, 3)}`;
 
 function shorten(text: string, max = 24): string {
   return text.length <= max ? text : `${text.slice(0, max - 1)}…`;
@@ -170,7 +171,7 @@ interface LinkLabel {
  * hold the text, at the first point along the link (middle first) where they hit no other label;
  * a link with no such point keeps its figures for hover, tap and focus.
  */
-function placeLabels(l: Layout): { nodes: NodeLabel[]; links: LinkLabel[] } {
+function placeLabels(l: Layout, loc: string | undefined): { nodes: NodeLabel[]; links: LinkLabel[] } {
   const nodes: NodeLabel[] = l.nodes.map((n) => {
     const x0 = n.x0 ?? 0;
     const x1 = n.x1 ?? 0;
@@ -185,7 +186,7 @@ function placeLabels(l: Layout): { nodes: NodeLabel[]; links: LinkLabel[] } {
     const x = x1 + 6;
     const y = (y0 + y1) / 2;
     const name = n.role === 'loss' ? `Loss: ${shorten(n.name, 14)}` : shorten(n.name, 19);
-    const fig = figures(n.watts, n.percent);
+    const fig = figures(n.watts, n.percent, loc);
     const w = Math.max(textWidth(name, true), textWidth(fig));
     return { id: n.id, x, y, anchor: 'start', name, figures: fig, box: { x0: x, y0: y - 16, x1: x + w, y1: y + 14 } };
   });
@@ -197,7 +198,7 @@ function placeLabels(l: Layout): { nodes: NodeLabel[]; links: LinkLabel[] } {
     const tx = nodeOf(link.target).x0 ?? 0;
     const ya = link.y0 ?? 0;
     const yb = link.y1 ?? 0;
-    const text = figures(link.watts, link.percent);
+    const text = figures(link.watts, link.percent, loc);
     const w = textWidth(text, true) + 6;
     for (const u of [0.5, 0.35, 0.65, 0.2, 0.8]) {
       // The link's centre line is a cubic Bézier with both control points at mid x (d3-sankey's horizontal link).
@@ -221,22 +222,22 @@ function nodeOf(x: LaidLink['source']): LaidNode {
   return x as LaidNode;
 }
 
-function linkText(l: LaidLink): string {
+function linkText(l: LaidLink, loc: string | undefined): string {
   const from = nodeOf(l.source);
   const to = nodeOf(l.target);
-  if (l.role === 'loss') return `Loss in ${from.name}: ${figures(l.watts, l.percent)} of the source power`;
-  return `${from.name} to ${to.name}: ${figures(l.watts, l.percent)} of the source power`;
+  if (l.role === 'loss') return `Loss in ${from.name}: ${figures(l.watts, l.percent, loc)} of the source power`;
+  return `${from.name} to ${to.name}: ${figures(l.watts, l.percent, loc)} of the source power`;
 }
 
-function nodeText(n: LaidNode, element: ElementResult | undefined): string {
-  if (n.role === 'loss') return `Loss in ${n.name}: ${figures(n.watts, n.percent)} of the source power`;
-  if (!element) return `${n.name}: ${figures(n.watts, n.percent)}`;
+function nodeText(n: LaidNode, element: ElementResult | undefined, loc: string | undefined): string {
+  if (n.role === 'loss') return `Loss in ${n.name}: ${figures(n.watts, n.percent, loc)} of the source power`;
+  if (!element) return `${n.name}: ${figures(n.watts, n.percent, loc)}`;
   const kind = elementKindLabel(element.kind);
-  if (n.role === 'load') return `${n.name} (${kind}, load): uses ${figures(element.pIn, n.percent)} of the source power`;
+  if (n.role === 'load') return `${n.name} (${kind}, load): uses ${figures(element.pIn, n.percent, loc)} of the source power`;
   const what = n.role === 'source' ? 'delivers' : 'takes in';
   return (
-    `${n.name} (${kind}): ${what} ${figures(element.pIn, n.percent)} of the source power, gives out ${formatPower(element.pOut)}, ` +
-    `loses ${formatPower(element.loss)}, efficiency ${formatPercent(element.efficiency)}`
+    `${n.name} (${kind}): ${what} ${figures(element.pIn, n.percent, loc)} of the source power, gives out ${formatPower(element.pOut, loc)}, ` +
+    `loses ${formatPower(element.loss, loc)}, efficiency ${formatPercent(element.efficiency, loc)}`
   );
 }
 
@@ -328,17 +329,18 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
   useEffect(() => setSelected(null), [result]);
 
   const laid = useMemo(() => (boxWidth > 0 ? layout(graph, boxWidth) : null), [graph, boxWidth]);
-  const labels = useMemo(() => (laid ? placeLabels(laid) : null), [laid]);
+  const loc = effectiveLocale();
+  const labels = useMemo(() => (laid ? placeLabels(laid, loc) : null), [laid, loc]);
   const zeroLoss = graph.nodes.filter((n) => n.role === 'loss' && !(n.watts > ZERO_SHARE * Math.abs(graph.sourcePower)));
   const stem = fileStem(result.projectName || 'joulepath-project');
 
   let details = 'Point at, tap or Tab to a branch or a block to see its figures.';
   if (laid && selected?.type === 'link') {
     const l = laid.links.find((x) => x.key === selected.key);
-    if (l) details = linkText(l);
+    if (l) details = linkText(l, loc);
   } else if (laid && selected?.type === 'node') {
     const n = laid.nodes.find((x) => x.id === selected.id);
-    if (n) details = nodeText(n, elements.get(n.elementId));
+    if (n) details = nodeText(n, elements.get(n.elementId), loc);
   }
 
   async function exportSvg() {
@@ -394,7 +396,7 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
               {laid.links.map((l) => {
                 const colour = l.role === 'loss' ? lossColour(nodeOf(l.source).kind) : FLOW_COLOURS.feed;
                 const isSel = selected?.type === 'link' && selected.key === l.key;
-                const text = linkText(l);
+                const text = linkText(l, loc);
                 return (
                   <path
                     key={l.key}
@@ -426,7 +428,7 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
                 const y1 = n.y1 ?? 0;
                 const isSel = selected?.type === 'node' && selected.id === n.id;
                 const label = labels?.nodes.find((x) => x.id === n.id);
-                const text = nodeText(n, elements.get(n.elementId));
+                const text = nodeText(n, elements.get(n.elementId), loc);
                 return (
                   <g
                     key={n.id}
