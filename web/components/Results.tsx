@@ -187,8 +187,8 @@ function CableTable({ result, units, locale }: { result: SolveResult; units: Uni
                       <span>{e.name || e.id}</span>
                     </span>
                   </th>
-                  <td class="num" data-testid="cable-length">{length === undefined ? '—' : formatLength(length, units, locale)}</td>
-                  <td data-testid="cable-size">
+                  <td class="num" data-label="Length" data-testid="cable-length">{length === undefined ? '—' : formatLength(length, units, locale)}</td>
+                  <td class="cable-size" data-label="Conductor" data-testid="cable-size">
                     {c ? (
                       <>
                         {c.parallelSets > 1 ? `${c.parallelSets} × ` : ''}
@@ -199,9 +199,9 @@ function CableTable({ result, units, locale }: { result: SolveResult; units: Uni
                       <span class="cell-note">given as R and X per km</span>
                     )}
                   </td>
-                  <td class="num">{c ? formatTemperature(c.resistance.operatingTemperature, units, locale) : '—'}</td>
-                  <td class="num">{dropPercent === undefined ? '—' : formatPercent(dropPercent / 100, locale, 3)}</td>
-                  <td class="num">{formatPowerIn(e.loss, locale)}</td>
+                  <td class="num" data-label="Conductor temp.">{c ? formatTemperature(c.resistance.operatingTemperature, units, locale) : '—'}</td>
+                  <td class="num" data-label="Drop">{dropPercent === undefined ? '—' : formatPercent(dropPercent / 100, locale, 3)}</td>
+                  <td class="num" data-label="Loss">{formatPowerIn(e.loss, locale)}</td>
                 </tr>
               );
             })}
