@@ -83,8 +83,8 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
     if (outDir) rmSync(outDir, { recursive: true, force: true });
   });
 
-  async function openPage(viewport: { width: number; height: number }, hash = ''): Promise<{ context: BrowserContext; page: Page; errors: string[]; scripts: string[] }> {
-    const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', acceptDownloads: true });
+  async function openPage(viewport: { width: number; height: number }, colorScheme: 'light' | 'dark' = 'light'): Promise<{ context: BrowserContext; page: Page; errors: string[]; scripts: string[] }> {
+    const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', acceptDownloads: true, colorScheme });
     const page = await context.newPage();
     const errors: string[] = [];
     const scripts: string[] = [];
@@ -96,7 +96,7 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
     page.on('request', (req) => {
       if (req.resourceType() === 'script') scripts.push(req.url());
     });
-    await page.goto(`${baseUrl}${hash}`, { waitUntil: 'load' });
+    await page.goto(baseUrl, { waitUntil: 'load' });
     return { context, page, errors, scripts };
   }
 
@@ -142,7 +142,8 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
   });
 
   it('shows details on hover, on tap and on keyboard focus', async () => {
-    const { context, page, errors } = await openPage(VIEWPORTS.desktop);
+    // In the dark theme (the device's setting), so its screenshot can be looked at too.
+    const { context, page, errors } = await openPage(VIEWPORTS.desktop, 'dark');
     try {
       const details = page.getByTestId('flow-details');
       const g = demoGraph(demoProjects[0]!.id);
@@ -161,7 +162,10 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
       await expect.poll(() => details.innerText()).toContain(`${load.name}`);
 
       // Keyboard: Tab from the PNG button reaches the diagram, and the focused branch is described.
+      // Tab from the PNG button: first the diagram's scroll box, then its first branch or block.
       await page.getByTestId('flow-export-png').focus();
+      await page.keyboard.press('Tab');
+      expect(await page.evaluate(`document.activeElement?.getAttribute('data-testid')`)).toBe('flow-box');
       await page.keyboard.press('Tab');
       // (Page code as a string: this file is type-checked without the DOM library.)
       const focused = (await page.evaluate(
@@ -171,6 +175,7 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
       expect(focused.label).toMatch(/\d.*W/);
       await expect.poll(() => details.innerText()).toBe(focused.label);
       expect(focused.label).not.toBe(before);
+      await page.getByTestId('energy-flow').screenshot({ path: join(artifacts, 'flow-desktop-dark-focus.png') });
       expect(errors).toEqual([]);
     } finally {
       await context.close();

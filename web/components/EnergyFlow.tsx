@@ -255,20 +255,49 @@ async function download(blob: Blob, fileName: string): Promise<void> {
 }
 
 /** The diagram as standalone SVG text (focus outlines and page-only attributes removed). */
-function svgText(svg: SVGSVGElement): string {
+const EXPORT_HEADER = 52;
+
+function svgText(svg: SVGSVGElement, title: string): string {
+  const NS = 'http://www.w3.org/2000/svg';
   const copy = svg.cloneNode(true) as SVGSVGElement;
   copy.querySelectorAll('[tabindex]').forEach((el) => el.removeAttribute('tabindex'));
   copy.querySelectorAll('[data-selected]').forEach((el) => el.removeAttribute('data-selected'));
   copy.removeAttribute('class');
-  copy.setAttribute('xmlns', 'http://www.w3.org/2000/svg');
+  copy.setAttribute('xmlns', NS);
+  // A file stands alone: a heading and the colour key above the diagram.
+  const width = Number(svg.getAttribute('width'));
+  const height = Number(svg.getAttribute('height')) + EXPORT_HEADER;
+  copy.setAttribute('height', String(height));
+  copy.setAttribute('viewBox', `0 0 ${width} ${height}`);
+  const body = copy.ownerDocument.createElementNS(NS, 'g');
+  body.setAttribute('transform', `translate(0 ${EXPORT_HEADER})`);
+  for (const child of [...copy.childNodes]) if ((child as Element).localName !== 'title') body.append(child);
+  const head = copy.ownerDocument.createElementNS(NS, 'g');
+  const bg = copy.ownerDocument.createElementNS(NS, 'rect');
+  Object.entries({ x: '0', y: '0', width: String(width), height: String(height), fill: FLOW_COLOURS.background }).forEach(([k, v]) => bg.setAttribute(k, v));
+  const heading = copy.ownerDocument.createElementNS(NS, 'text');
+  Object.entries({ x: '12', y: '22', 'font-size': '15', 'font-weight': '700', fill: FLOW_COLOURS.ink }).forEach(([k, v]) => heading.setAttribute(k, v));
+  heading.textContent = title;
+  head.append(bg, heading);
+  let x = 12;
+  for (const item of LEGEND) {
+    const sw = copy.ownerDocument.createElementNS(NS, 'rect');
+    Object.entries({ x: String(x), y: '33', width: '18', height: '9', rx: '2', fill: item.colour }).forEach(([k, v]) => sw.setAttribute(k, v));
+    const t = copy.ownerDocument.createElementNS(NS, 'text');
+    Object.entries({ x: String(x + 24), y: '42', 'font-size': '11', fill: FLOW_COLOURS.inkMuted }).forEach(([k, v]) => t.setAttribute(k, v));
+    t.textContent = item.label;
+    head.append(sw, t);
+    x += 24 + item.label.length * 6.2 + 18;
+  }
+  copy.append(head, body);
   return `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
 }
 
 /** The SVG drawn onto a canvas at twice its size, as a PNG. */
-async function pngBlob(svg: SVGSVGElement): Promise<Blob> {
+async function pngBlob(svg: SVGSVGElement, title: string): Promise<Blob> {
   const width = Number(svg.getAttribute('width'));
-  const height = Number(svg.getAttribute('height'));
-  const url = URL.createObjectURL(new Blob([svgText(svg)], { type: 'image/svg+xml' }));
+  const height = Number(svg.getAttribute('height')) + EXPORT_HEADER;
+  const url = URL.createObjectURL(new Blob([svgText(svg, title)], { type: 'image/svg+xml' }));
   try {
     const img = new Image();
     img.src = url;
@@ -290,12 +319,14 @@ async function pngBlob(svg: SVGSVGElement): Promise<Blob> {
   }
 }
 
+const LEGEND = [
+  { colour: FLOW_COLOURS.feed, label: 'Power passed on' },
+  { colour: FLOW_COLOURS.stageLoss, label: 'Loss in the source or a converter' },
+  { colour: FLOW_COLOURS.lineLoss, label: 'Loss in a cable' },
+] as const;
+
 function Legend() {
-  const items = [
-    { colour: FLOW_COLOURS.feed, label: 'Power passed on' },
-    { colour: FLOW_COLOURS.stageLoss, label: 'Loss in the source or a converter' },
-    { colour: FLOW_COLOURS.lineLoss, label: 'Loss in a cable' },
-  ];
+  const items = LEGEND;
   return (
     <ul class="flow__legend">
       {items.map((i) => (
@@ -346,13 +377,13 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
   async function exportSvg() {
     if (!svgRef.current) return;
     setExportError(null);
-    await download(new Blob([svgText(svgRef.current)], { type: 'image/svg+xml' }), `${stem}.svg`);
+    await download(new Blob([svgText(svgRef.current, title)], { type: 'image/svg+xml' }), `${stem}.svg`);
   }
   async function exportPng() {
     if (!svgRef.current) return;
     setExportError(null);
     try {
-      await download(await pngBlob(svgRef.current), `${stem}.png`);
+      await download(await pngBlob(svgRef.current, title), `${stem}.png`);
     } catch (error) {
       setExportError(`The PNG could not be made: ${error instanceof Error ? error.message : String(error)}. The SVG download still works.`);
     }
@@ -375,7 +406,15 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
         </div>
       </div>
       <Legend />
-      <div class="flow__box" ref={boxRef} data-testid="flow-box">
+      <div
+        class="flow__box"
+        ref={boxRef}
+        data-testid="flow-box"
+        // Focusable so the sideways scroll on a narrow screen also works from the keyboard.
+        tabIndex={0}
+        role="region"
+        aria-label="Energy-flow diagram (scrolls sideways on narrow screens)"
+      >
         {graph.sourcePower === 0 && <p class="note">The source delivers nothing in this project, so there is no flow to draw.</p>}
         {laid && graph.sourcePower !== 0 && (
           <svg
