@@ -1,8 +1,13 @@
 /** The page: header, demo picker, the shown project's results or problems, and the footer. */
 import { DemoPicker } from './DemoPicker.tsx';
+import { Preferences } from './Preferences.tsx';
 import { ProblemList } from './ProblemList.tsx';
 import { ElementTable, EnergyBalance, MethodNote, PortTable, WarningList } from './Results.tsx';
+import { lazy, Suspense } from 'preact/compat';
 import { openedFile, selectedDemo, shownTitle, solution } from '../state/app.ts';
+
+/** The energy-flow diagram (and d3-sankey) load only when a solved project is shown. */
+const EnergyFlow = lazy(() => import('./EnergyFlow.tsx'));
 
 function ShownProject() {
   const s = solution.value;
@@ -17,6 +22,7 @@ function ShownProject() {
       {s.state === 'solved' && (
         <>
           <EnergyBalance result={s.result} />
+          <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={s.result} /></Suspense>
           <WarningList result={s.result} />
           <ElementTable result={s.result} />
           <PortTable result={s.result} />
@@ -39,6 +45,7 @@ export function App() {
       <header class="masthead">
         <p class="masthead__name">Joulepath</p>
         <p class="masthead__tagline">Power, losses and currents at every stage of a power chain</p>
+        <Preferences />
       </header>
       <main class="layout">
         <DemoPicker />
@@ -48,6 +55,10 @@ export function App() {
         <p>
           Results are planning estimates. Local electrical codes and licensed professional practice govern the
           design and installation.
+        </p>
+        <p>
+          Figures are computed in SI units; US customary units are shown by conversion (1 ft = 0.3048 m,
+          1 kcmil = 0.506707 mm², 1 hp = 745.7 W, °F = 1.8 × °C + 32).
         </p>
       </footer>
     </div>
