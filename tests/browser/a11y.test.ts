@@ -11,50 +11,16 @@
  *
  * Same pattern as app.test.ts: one production build, one preview server and one browser per file.
  */
-import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
-import { createServer } from 'node:net';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { build, preview, type PreviewServer } from 'vite';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { requireTool, skipWithout } from '../tools/system-tools.ts';
+import { skipWithout } from '../tools/system-tools.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
 
-const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
-const configFile = join(repoRoot, 'vite.config.ts');
-const artifacts = join(repoRoot, 'tests', '.artifacts');
 const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 
-const VIEWPORTS = {
-  phone: { width: 390, height: 844 },
-  desktop: { width: 1366, height: 768 },
-} as const;
-
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--no-first-run',
-  '--disable-quic',
-];
-
-/** A TCP port that is free right now on 127.0.0.1. */
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.unref();
-    srv.on('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const address = srv.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 interface AxeViolation {
   id: string;
@@ -64,30 +30,17 @@ interface AxeViolation {
 }
 
 describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and locale in Chromium', () => {
-  let outDir = '';
-  let server: PreviewServer | undefined;
+  let app: ServedApp | undefined;
   let browser: Browser | undefined;
   let baseUrl = '';
 
   beforeAll(async () => {
-    outDir = mkdtempSync(join(tmpdir(), 'joulepath-a11y-'));
-    await build({ configFile, logLevel: 'warn', build: { outDir, emptyOutDir: true } });
-    server = await preview({
-      configFile,
-      logLevel: 'warn',
-      build: { outDir },
-      preview: { host: '127.0.0.1', port: await freePort(), strictPort: true, open: false },
-    });
-    baseUrl = server.resolvedUrls?.local[0] ?? '';
-    expect(baseUrl, 'the preview server reports its address').toMatch(/^http:\/\/127\.0\.0\.1:\d+\/$/);
-    browser = await chromium.launch({ executablePath: requireTool('chromium'), headless: true, args: CHROMIUM_ARGS });
-    mkdirSync(artifacts, { recursive: true });
+    app = await serveBuiltApp('joulepath-a11y-');
+    ({ browser, baseUrl } = app);
   });
 
   afterAll(async () => {
-    await browser?.close();
-    await server?.close();
-    if (outDir) rmSync(outDir, { recursive: true, force: true });
+    await app?.close();
   });
 
   async function openPage(

@@ -5,80 +5,27 @@
  *
  * One browser and one production build for the whole file keep it fast.
  */
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
-import { createServer } from 'node:net';
-import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { build, preview, type PreviewServer } from 'vite';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { requireTool, skipWithout } from '../tools/system-tools.ts';
+import { skipWithout } from '../tools/system-tools.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
 
-const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
-const configFile = join(repoRoot, 'vite.config.ts');
-const artifacts = join(repoRoot, 'tests', '.artifacts');
-
-const VIEWPORTS = {
-  phone: { width: 390, height: 844 },
-  desktop: { width: 1366, height: 768 },
-} as const;
-
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-gpu',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--no-first-run',
-  '--disable-quic',
-];
-
-/** A TCP port that is free right now on 127.0.0.1. */
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.unref();
-    srv.on('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const address = srv.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
-  let outDir = '';
-  let server: PreviewServer | undefined;
+  let app: ServedApp | undefined;
   let browser: Browser | undefined;
   let baseUrl = '';
   const timings: string[] = [];
 
   beforeAll(async () => {
-    const t0 = performance.now();
-    outDir = mkdtempSync(join(tmpdir(), 'joulepath-build-'));
-    await build({ configFile, logLevel: 'warn', build: { outDir, emptyOutDir: true } });
-    const t1 = performance.now();
-    server = await preview({
-      configFile,
-      logLevel: 'warn',
-      build: { outDir },
-      preview: { host: '127.0.0.1', port: await freePort(), strictPort: true, open: false },
-    });
-    baseUrl = server.resolvedUrls?.local[0] ?? '';
-    expect(baseUrl, 'the preview server reports its address').toMatch(/^http:\/\/127\.0\.0\.1:\d+\/$/);
-    // launch() gives each run a fresh temporary profile (user-data-dir) and removes it on close.
-    browser = await chromium.launch({ executablePath: requireTool('chromium'), headless: true, args: CHROMIUM_ARGS });
-    const t2 = performance.now();
-    timings.push(`build ${((t1 - t0) / 1000).toFixed(1)} s`, `preview+launch ${((t2 - t1) / 1000).toFixed(1)} s`);
-    mkdirSync(artifacts, { recursive: true });
+    app = await serveBuiltApp('joulepath-build-');
+    ({ browser, baseUrl } = app);
+    timings.push(`build ${app.buildSeconds.toFixed(1)} s`, `preview+launch ${app.launchSeconds.toFixed(1)} s`);
   });
 
   afterAll(async () => {
-    await browser?.close();
-    await server?.close();
-    if (outDir) rmSync(outDir, { recursive: true, force: true });
+    await app?.close();
     if (timings.length) console.log(`browser test: ${timings.join(', ')}`);
   });
 

@@ -5,44 +5,20 @@
  * download real files, and the diagram neither widens the page on a phone nor loads with the page.
  * Screenshots go to tests/.artifacts/ for a person to look at.
  */
-import { mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
-import { createServer } from 'node:net';
-import { tmpdir } from 'node:os';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
-import { build, preview, type PreviewServer } from 'vite';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { skipWithout } from '../tools/system-tools.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
 import { demoProjects, flowGraph, solveProject, type FlowGraph } from '../../core/index.ts';
 import { formatPercent, formatPower } from '../../web/format/number.ts';
-import { requireTool, skipWithout } from '../tools/system-tools.ts';
 
-const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
-const configFile = join(repoRoot, 'vite.config.ts');
-const artifacts = join(repoRoot, 'tests', '.artifacts');
 
-const VIEWPORTS = {
-  phone: { width: 390, height: 844 },
-  desktop: { width: 1366, height: 768 },
-} as const;
-
-const CHROMIUM_ARGS = ['--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync', '--no-first-run', '--disable-quic'];
 
 /** PNG file signature (ISO/IEC 15948 / PNG specification, section 5.2). */
 const PNG_SIGNATURE = [0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a];
 
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.unref();
-    srv.on('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const address = srv.address();
-      const port = typeof address === 'object' && address ? address.port : 0;
-      srv.close(() => resolve(port));
-    });
-  });
-}
 
 /** The engine's flow graph of a demo (the figures the page must show). */
 function demoGraph(id: string): FlowGraph {
@@ -57,30 +33,17 @@ function demoGraph(id: string): FlowGraph {
 const expectedLossBranches = (g: FlowGraph) => g.links.filter((l) => l.role === 'loss' && l.watts > 1e-9 * g.sourcePower).length;
 
 describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', () => {
-  let outDir = '';
-  let server: PreviewServer | undefined;
+  let app: ServedApp | undefined;
   let browser: Browser | undefined;
   let baseUrl = '';
 
   beforeAll(async () => {
-    outDir = mkdtempSync(join(tmpdir(), 'joulepath-flow-build-'));
-    await build({ configFile, logLevel: 'warn', build: { outDir, emptyOutDir: true } });
-    server = await preview({
-      configFile,
-      logLevel: 'warn',
-      build: { outDir },
-      preview: { host: '127.0.0.1', port: await freePort(), strictPort: true, open: false },
-    });
-    baseUrl = server.resolvedUrls?.local[0] ?? '';
-    expect(baseUrl).toMatch(/^http:\/\/127\.0\.0\.1:\d+\/$/);
-    browser = await chromium.launch({ executablePath: requireTool('chromium'), headless: true, args: CHROMIUM_ARGS });
-    mkdirSync(artifacts, { recursive: true });
+    app = await serveBuiltApp('joulepath-flow-build-');
+    ({ browser, baseUrl } = app);
   });
 
   afterAll(async () => {
-    await browser?.close();
-    await server?.close();
-    if (outDir) rmSync(outDir, { recursive: true, force: true });
+    await app?.close();
   });
 
   async function openPage(viewport: { width: number; height: number }, colorScheme: 'light' | 'dark' = 'light'): Promise<{ context: BrowserContext; page: Page; errors: string[]; scripts: string[] }> {

@@ -1,0 +1,89 @@
+/**
+ * What every browser test file needs: one production build, one preview server on a free local
+ * port, and one headless Chromium (Debian's, driven by playwright-core) — started once per file.
+ */
+import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { createServer } from 'node:net';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser } from 'playwright-core';
+import { build, preview } from 'vite';
+import { requireTool } from '../tools/system-tools.ts';
+
+export const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
+export const configFile = join(repoRoot, 'vite.config.ts');
+/** Screenshots and downloads for a person to look at (git-ignored). */
+export const artifacts = join(repoRoot, 'tests', '.artifacts');
+
+export const VIEWPORTS = {
+  phone: { width: 390, height: 844 },
+  desktop: { width: 1366, height: 768 },
+} as const;
+
+/** Flags for Chromium as root on a machine without a GPU or network (machine facts of this project). */
+export const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-gpu',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+  '--disable-quic',
+];
+
+/** A TCP port that is free right now on 127.0.0.1. */
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = createServer();
+    srv.unref();
+    srv.on('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const address = srv.address();
+      const port = typeof address === 'object' && address ? address.port : 0;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+export interface ServedApp {
+  /** http://127.0.0.1:<port>/ */
+  baseUrl: string;
+  browser: Browser;
+  /** Seconds spent building, and starting the server and the browser. */
+  buildSeconds: number;
+  launchSeconds: number;
+  /** Close the browser and the server and remove the build. */
+  close(): Promise<void>;
+}
+
+/** Build the app into a fresh temporary folder, serve it and start a browser. */
+export async function serveBuiltApp(prefix: string): Promise<ServedApp> {
+  const t0 = performance.now();
+  const outDir = mkdtempSync(join(tmpdir(), prefix));
+  await build({ configFile, logLevel: 'warn', build: { outDir, emptyOutDir: true } });
+  const t1 = performance.now();
+  const server = await preview({
+    configFile,
+    logLevel: 'warn',
+    build: { outDir },
+    preview: { host: '127.0.0.1', port: await freePort(), strictPort: true, open: false },
+  });
+  const baseUrl = server.resolvedUrls?.local[0] ?? '';
+  if (!/^http:\/\/127\.0\.0\.1:\d+\/$/.test(baseUrl)) throw new Error(`the preview server reported no local address (${baseUrl})`);
+  // launch() gives each run a fresh temporary profile (user-data-dir) and removes it on close.
+  const browser = await chromium.launch({ executablePath: requireTool('chromium'), headless: true, args: CHROMIUM_ARGS });
+  const t2 = performance.now();
+  mkdirSync(artifacts, { recursive: true });
+  return {
+    baseUrl,
+    browser,
+    buildSeconds: (t1 - t0) / 1000,
+    launchSeconds: (t2 - t1) / 1000,
+    async close() {
+      await browser.close();
+      await server.close();
+      rmSync(outDir, { recursive: true, force: true });
+    },
+  };
+}
