@@ -13,6 +13,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { correctPowerFactor, parseNetwork, solveProject, type CircuitNetwork, type ElementResult, type ParsedNetwork, type Project, type SolveResult } from '../../core/index.ts';
 import { requireNgspice, runAc, seriesBranch, sp, type Phasor } from './ngspice.ts';
+import { Agreement } from './agreement.ts';
 
 // ---------- small phasor helpers (test side; deliberately not the engine's complex.ts) ----------
 const cmul = (a: Phasor, b: Phasor): Phasor => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re });
@@ -24,29 +25,7 @@ const power = (v: Phasor, i: Phasor): Phasor => cmul(v, cconj(i));
 const csum = (...xs: Phasor[]): Phasor => xs.reduce((s, x) => ({ re: s.re + x.re, im: s.im + x.im }), { re: 0, im: 0 });
 const polarDeg = (r: number, deg: number): Phasor => ({ re: r * Math.cos((deg * Math.PI) / 180), im: r * Math.sin((deg * Math.PI) / 180) });
 
-const REL_TOL = 1e-3; // 0.1 %
-const ANGLE_TOL_DEG = 0.01;
 
-class Agreement {
-  worstRel = 0;
-  worstRelWhat = '';
-  worstAngle = 0;
-  constructor(readonly name: string) {}
-  rel(what: string, engine: number, spice: number): void {
-    const err = Math.abs(engine - spice) / Math.abs(spice);
-    if (err > this.worstRel) {
-      this.worstRel = err;
-      this.worstRelWhat = what;
-    }
-    expect(err, `${this.name} — ${what}: engine ${engine}, ngspice ${spice}`).toBeLessThanOrEqual(REL_TOL);
-  }
-  angle(what: string, engineDeg: number, spiceDeg: number): void {
-    let d = Math.abs(engineDeg - spiceDeg) % 360;
-    if (d > 180) d = 360 - d;
-    this.worstAngle = Math.max(this.worstAngle, d);
-    expect(d, `${this.name} — ${what}: engine ${engineDeg}°, ngspice ${spiceDeg}°`).toBeLessThanOrEqual(ANGLE_TOL_DEG);
-  }
-}
 
 const summary: Agreement[] = [];
 afterAll(() => {

@@ -19,6 +19,7 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { solveProject, type ElementResult, type Project, type SolveResult } from '../../core/index.ts';
 import { requireNgspice, runAc, seriesBranch, sp, type Phasor } from './ngspice.ts';
+import { Agreement } from './agreement.ts';
 
 // ---------- small phasor helpers (test side; deliberately not the engine's complex.ts) ----------
 const cmul = (a: Phasor, b: Phasor): Phasor => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re });
@@ -30,8 +31,6 @@ const cargDeg = (a: Phasor): number => (Math.atan2(a.im, a.re) * 180) / Math.PI;
 const power = (v: Phasor, i: Phasor): Phasor => cmul(v, cconj(i));
 const csum = (...xs: Phasor[]): Phasor => xs.reduce((s, x) => ({ re: s.re + x.re, im: s.im + x.im }), { re: 0, im: 0 });
 
-const REL_TOL = 1e-3; // 0.1 %
-const ANGLE_TOL_DEG = 0.01;
 
 function solveOk(project: Project): SolveResult {
   const out = solveProject(project);
@@ -56,36 +55,6 @@ function loadImpedance(load: ElementResult): { r: number; x: number } {
   // |V|²/(P − jQ) = |V|²(P + jQ)/(P² + Q²)
   const d = p * p + q * q;
   return { r: (v2 * p) / d, x: (v2 * q) / d };
-}
-
-/** Records the agreement of one case and asserts each figure. */
-class Agreement {
-  worstRel = 0;
-  worstRelWhat = '';
-  worstAngle = 0;
-  rows: string[] = [];
-  constructor(readonly name: string) {}
-  rel(what: string, engine: number, spice: number): void {
-    const err = Math.abs(engine - spice) / Math.abs(spice);
-    this.rows.push(`${what}: engine ${engine.toPrecision(10)}, ngspice ${spice.toPrecision(10)}, rel ${err.toExponential(2)}`);
-    if (err > this.worstRel) {
-      this.worstRel = err;
-      this.worstRelWhat = what;
-    }
-    expect(err, `${this.name} — ${what}: engine ${engine}, ngspice ${spice}`).toBeLessThanOrEqual(REL_TOL);
-  }
-  angle(what: string, engineDeg: number, spiceDeg: number): void {
-    let d = Math.abs(engineDeg - spiceDeg) % 360;
-    if (d > 180) d = 360 - d;
-    this.rows.push(`${what}: engine ${engineDeg.toFixed(6)}°, ngspice ${spiceDeg.toFixed(6)}°, diff ${d.toExponential(2)}°`);
-    this.worstAngle = Math.max(this.worstAngle, d);
-    expect(d, `${this.name} — ${what}: engine ${engineDeg}°, ngspice ${spiceDeg}°`).toBeLessThanOrEqual(ANGLE_TOL_DEG);
-  }
-  /** A quantity that should be zero in both (e.g. neutral current of a balanced load), absolute bound. */
-  nearZero(what: string, spice: number, bound: number): void {
-    this.rows.push(`${what}: ngspice ${spice.toExponential(2)} (bound ${bound})`);
-    expect(Math.abs(spice), `${this.name} — ${what}`).toBeLessThanOrEqual(bound);
-  }
 }
 
 const summary: Agreement[] = [];

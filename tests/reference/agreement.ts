@@ -1,0 +1,40 @@
+/**
+ * Agreement between the engine and ngspice for one case: every figure asserted within the
+ * tolerances the issue sets (0.1 % relative, 0.01° in angle), the worst kept for the summary.
+ */
+import { expect } from 'vitest';
+
+/** Relative tolerance of the reference checks: 0.1 %. */
+export const REL_TOL = 1e-3;
+/** Angle tolerance, degrees. */
+export const ANGLE_TOL_DEG = 0.01;
+
+/** Records the agreement of one case and asserts each figure. */
+export class Agreement {
+  worstRel = 0;
+  worstRelWhat = '';
+  worstAngle = 0;
+  rows: string[] = [];
+  constructor(readonly name: string) {}
+  rel(what: string, engine: number, spice: number): void {
+    const err = Math.abs(engine - spice) / Math.abs(spice);
+    this.rows.push(`${what}: engine ${engine.toPrecision(10)}, ngspice ${spice.toPrecision(10)}, rel ${err.toExponential(2)}`);
+    if (err > this.worstRel) {
+      this.worstRel = err;
+      this.worstRelWhat = what;
+    }
+    expect(err, `${this.name} — ${what}: engine ${engine}, ngspice ${spice}`).toBeLessThanOrEqual(REL_TOL);
+  }
+  angle(what: string, engineDeg: number, spiceDeg: number): void {
+    let d = Math.abs(engineDeg - spiceDeg) % 360;
+    if (d > 180) d = 360 - d;
+    this.rows.push(`${what}: engine ${engineDeg.toFixed(6)}°, ngspice ${spiceDeg.toFixed(6)}°, diff ${d.toExponential(2)}°`);
+    this.worstAngle = Math.max(this.worstAngle, d);
+    expect(d, `${this.name} — ${what}: engine ${engineDeg}°, ngspice ${spiceDeg}°`).toBeLessThanOrEqual(ANGLE_TOL_DEG);
+  }
+  /** A quantity that should be zero in both (e.g. neutral current of a balanced load), absolute bound. */
+  nearZero(what: string, spice: number, bound: number): void {
+    this.rows.push(`${what}: ngspice ${spice.toExponential(2)} (bound ${bound})`);
+    expect(Math.abs(spice), `${this.name} — ${what}`).toBeLessThanOrEqual(bound);
+  }
+}
