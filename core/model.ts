@@ -375,18 +375,22 @@ export interface NetworkLoad extends FedElement {
  * - "speed": a drive upstream sets the speed; the pump runs on the system curve (affinity laws);
  * - "throttle": full speed, a valve takes up the difference; the pump runs on its own curve.
  */
-export interface PumpLoad extends FedElement {
-  kind: 'pump';
+/** A pump's curve at full speed and its efficiency (the quadratic curve through shut-off and rated point). */
+export interface PumpCurve {
   /** Flow at the rated (design) point at full speed, m³/s. */
   ratedFlow: number;
   /** Head at the rated point, m. */
   ratedHead: number;
   /** Head at zero flow at full speed, m (above ratedHead). */
   shutoffHead: number;
-  /** Pump efficiency, 0…1, constant over the operating range. */
+  /** Pump efficiency, 0…1, constant over the operating range (the affinity laws' assumption). */
   efficiency: number;
   /** Fluid density, kg/m³ (default 1000, water). */
   density?: number;
+}
+
+export interface PumpLoad extends FedElement, PumpCurve {
+  kind: 'pump';
   /** Static head of the system, m (0 ≤ staticHead < ratedHead). */
   staticHead: number;
   /** Operating flow, m³/s (0 < flow ≤ ratedFlow; above rated would need overspeed and is refused). */

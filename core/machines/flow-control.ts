@@ -25,7 +25,7 @@
  * A duty row with zero flow counts as the pump stopped, for every method.
  */
 import type { Problem } from '../errors.ts';
-import type { DriveStandardLoss, MotorEfficiencyClass, MotorStage } from '../model.ts';
+import type { DriveStandardLoss, MotorEfficiencyClass, MotorStage, PumpCurve } from '../model.ts';
 import { MOTOR_CLASSES, motorRating, ratedAt, type MotorRating } from './motor-rating.ts';
 import { driveLossAt, driveLossGrid, type DriveLossGrid } from './drive-loss.ts';
 
@@ -34,23 +34,14 @@ export const STANDARD_GRAVITY = 9.80665;
 /** Hours in a (non-leap) year. */
 export const HOURS_PER_YEAR = 8760;
 
-/** The pump's full-speed curve data shared by the study and the chain's `pump` element. */
-export interface PumpCurveData {
-  ratedFlow: number;
-  ratedHead: number;
-  shutoffHead: number;
-  efficiency: number;
-  density?: number;
-}
-
 /** Pump curve at full speed, quadratic (common practice): H(Q) = H0 − a·Q², a = (H0 − H_r)/Q_r². */
-export function pumpCurveHead(p: PumpCurveData, flow: number): number {
+export function pumpCurveHead(p: PumpCurve, flow: number): number {
   const a = (p.shutoffHead - p.ratedHead) / (p.ratedFlow * p.ratedFlow);
   return p.shutoffHead - a * flow * flow;
 }
 
 /** System curve with static head: H_sys(Q) = H_s + k·Q², k = (H_r − H_s)/Q_r² (meets the pump curve at the rated point). */
-export function systemCurveHead(p: PumpCurveData, staticHead: number, flow: number): number {
+export function systemCurveHead(p: PumpCurve, staticHead: number, flow: number): number {
   const k = (p.ratedHead - staticHead) / (p.ratedFlow * p.ratedFlow);
   return staticHead + k * flow * flow;
 }
@@ -59,7 +50,7 @@ export function systemCurveHead(p: PumpCurveData, staticHead: number, flow: numb
  * Speed fraction at which the pump curve (affinity laws: H = n²·H0 − a·Q²) meets the system curve
  * at the flow Q: n = √((H_s + (k + a)·Q²) / H0).
  */
-export function affinitySpeed(p: PumpCurveData, staticHead: number, flow: number): number {
+export function affinitySpeed(p: PumpCurve, staticHead: number, flow: number): number {
   const Q2 = p.ratedFlow * p.ratedFlow;
   const a = (p.shutoffHead - p.ratedHead) / Q2;
   const k = (p.ratedHead - staticHead) / Q2;
@@ -67,30 +58,20 @@ export function affinitySpeed(p: PumpCurveData, staticHead: number, flow: number
 }
 
 /** Hydraulic power P_h = ρ·g·Q·H, W (g = standard gravity; ρ default 1000 kg/m³). */
-export function hydraulicPower(p: PumpCurveData, flow: number, head: number): number {
+export function hydraulicPower(p: PumpCurve, flow: number, head: number): number {
   return (p.density ?? 1000) * STANDARD_GRAVITY * flow * head;
 }
 
 /** Shaft power P_h / η_pump, W, at constant pump efficiency (the affinity laws' assumption). */
-export function pumpShaftPower(p: PumpCurveData, flow: number, head: number): number {
+export function pumpShaftPower(p: PumpCurve, flow: number, head: number): number {
   return hydraulicPower(p, flow, head) / p.efficiency;
 }
 
 export interface FlowStudyInput {
   /** Name used in messages (default "flowStudy"). */
   id?: string;
-  pump: {
-    /** Flow at the rated (design) point at full speed, m³/s. */
-    ratedFlow: number;
-    /** Head at the rated point, m. */
-    ratedHead: number;
-    /** Head at zero flow at full speed, m (above ratedHead). */
-    shutoffHead: number;
-    /** Pump efficiency, 0…1, taken as constant. */
-    efficiency: number;
-    /** Fluid density, kg/m³ (default 1000, water). */
-    density?: number;
-  };
+  pump: PumpCurve;
+
   /** Static head of the system, m (0 ≤ staticHead < ratedHead). */
   staticHead: number;
   /** Flow (m³/s) and hours per year at that flow. */

@@ -5,4 +5,4 @@ export { classEfficiency, motorRating, ratedAt, partLoadRatios, necFullLoadCurre
 export { machineDetails, solveWithMachines, NEC_TABLE_CURRENT_NOTE, type MachineDetails, type MotorDetail, type DriveDetail, type MachineSolveOutcome } from './details.ts';
 export { formatMachines, formatFlowStudy, MACHINE_CAUTION } from './text-report.ts';
 export { projectFlowStudy, pumpDetails, flowStudySchema, type PumpDetail, type ProjectFlowOutcome } from './project-flow.ts';
-export { affinitySpeed, pumpCurveHead, systemCurveHead, hydraulicPower, pumpShaftPower, type PumpCurveData } from './flow-control.ts';
+export { affinitySpeed, pumpCurveHead, systemCurveHead, hydraulicPower, pumpShaftPower } from './flow-control.ts';
