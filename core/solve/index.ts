@@ -28,7 +28,7 @@ export function solveProject(input: unknown): SolveOutcome {
   if (!sized.ok) return sized;
   const built = buildResult(valid.project.name, sized.order, sized.point);
   if (!built.ok) return built;
-  return { ok: true, result: attachConductors(built.result, valid.project, sized) };
+  return { ok: true, result: attachConductors(built.result, sized) };
 }
 
 /** Like solveProject, but throws a ProjectError listing every problem. */

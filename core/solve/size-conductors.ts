@@ -23,7 +23,7 @@ import type { ConductorResult, SolveResult, SolveWarning } from '../result.ts';
 import { type ConductorCatalogue, defaultCatalogue } from '../conductors/catalogue.ts';
 import { type PreparedConductor, prepareConductor } from '../conductors/prepare.ts';
 import { type Choice, choose, conductorResult } from '../conductors/size.ts';
-import { linkLimit, pathDrops, resolveLimits } from '../conductors/path-drop.ts';
+import { type ResolvedLimits, linkLimit, pathDrops, resolveLimits } from '../conductors/path-drop.ts';
 import { type Plan, type PlannedElement, plan } from './plan.ts';
 import { type OperatingPoint, sweep } from './sweep.ts';
 
@@ -44,7 +44,7 @@ interface Link {
 }
 
 export type Sized =
-  | { ok: true; order: PlannedElement[]; point: OperatingPoint; links: ReadonlyMap<string, LinkOutcome>; passes: number }
+  | { ok: true; order: PlannedElement[]; point: OperatingPoint; links: ReadonlyMap<string, LinkOutcome>; passes: number; limits: ResolvedLimits }
   | { ok: false; problems: Problem[] };
 
 export interface LinkOutcome {
@@ -77,7 +77,7 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
     const planned = plan(project);
     if (!planned.ok) return planned;
     const swept = sweep(planned.order);
-    return swept.ok ? { ok: true, order: planned.order, point: swept.point, links: new Map(), passes: 0 } : swept;
+    return swept.ok ? { ok: true, order: planned.order, point: swept.point, links: new Map(), passes: 0, limits } : swept;
   }
   // Pass 0: conductor links ideal, to learn their port kinds and the lowest currents.
   const planned: Plan = plan(resolve(project, new Map(specs.map((e) => [e.id, { r: 0, x: 0 }]))));
@@ -123,7 +123,7 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
     if (problems.length) return { ok: false, problems };
     if (!changed) {
       const outcomes = new Map([...links.values()].map((l) => [l.element.id, { link: l, index: indexOf(order, l.element.id) }]));
-      return { ok: true, order, point, links: outcomes, passes: pass };
+      return { ok: true, order, point, links: outcomes, passes: pass, limits };
     }
     const replanned = plan(resolve(project, links));
     if (!replanned.ok) return replanned;
@@ -138,9 +138,9 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
 }
 
 /** Add each conductor link's sizing and the whole-path drops to a built result. */
-export function attachConductors(result: SolveResult, project: Project, sized: Extract<Sized, { ok: true }>): SolveResult {
+export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok: true }>): SolveResult {
   const warnings: SolveWarning[] = [...result.warnings];
-  const limits = resolveLimits(project.dropLimits);
+  const limits = sized.limits;
   const own = new Map<string, number>();
   const elements = result.elements.map((r) => {
     const outcome = sized.links.get(r.id);
