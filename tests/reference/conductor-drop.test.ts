@@ -11,14 +11,13 @@
  */
 import { afterAll, describe, expect, it } from 'vitest';
 import { approximateDrop, solveProject, type ElementResult, type SolveResult } from '../../core/index.ts';
-import { requireNgspice, runAc, seriesBranch, sp, type Phasor } from './ngspice.ts';
+import { requireNgspice, runAc, seriesBranch, sp } from './ngspice.ts';
+import { cneg, cabs } from './phasor.ts';
 
 const FT = 0.3048; // m per ft (exact)
 const PER_KFT = 1 / (1000 * FT); // Ω/kft → Ω/m
 const REL_TOL = 1e-3; // 0.1 %
 
-const cabs = (a: Phasor): number => Math.hypot(a.re, a.im);
-const cneg = (a: Phasor): Phasor => ({ re: -a.re, im: -a.im });
 
 function solveOk(elements: unknown[]): SolveResult {
   const out = solveProject({ format: 'joulepath-project', version: 1, name: 'drop case', elements });

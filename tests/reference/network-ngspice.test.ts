@@ -13,16 +13,9 @@
 import { afterAll, describe, expect, it } from 'vitest';
 import { correctPowerFactor, parseNetwork, solveProject, type CircuitNetwork, type ElementResult, type ParsedNetwork, type Project, type SolveResult } from '../../core/index.ts';
 import { requireNgspice, runAc, seriesBranch, sp, type Phasor } from './ngspice.ts';
+import { cneg, cabs, cargDeg, power, csum } from './phasor.ts';
 import { Agreement } from './agreement.ts';
 
-// ---------- small phasor helpers (test side; deliberately not the engine's complex.ts) ----------
-const cmul = (a: Phasor, b: Phasor): Phasor => ({ re: a.re * b.re - a.im * b.im, im: a.re * b.im + a.im * b.re });
-const cconj = (a: Phasor): Phasor => ({ re: a.re, im: -a.im });
-const cneg = (a: Phasor): Phasor => ({ re: -a.re, im: -a.im });
-const cabs = (a: Phasor): number => Math.hypot(a.re, a.im);
-const cargDeg = (a: Phasor): number => (Math.atan2(a.im, a.re) * 180) / Math.PI;
-const power = (v: Phasor, i: Phasor): Phasor => cmul(v, cconj(i));
-const csum = (...xs: Phasor[]): Phasor => xs.reduce((s, x) => ({ re: s.re + x.re, im: s.im + x.im }), { re: 0, im: 0 });
 const polarDeg = (r: number, deg: number): Phasor => ({ re: r * Math.cos((deg * Math.PI) / 180), im: r * Math.sin((deg * Math.PI) / 180) });
 
 
