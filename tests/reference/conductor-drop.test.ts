@@ -13,10 +13,10 @@ import { afterAll, describe, expect, it } from 'vitest';
 import { approximateDrop, solveProject, type ElementResult, type SolveResult } from '../../core/index.ts';
 import { requireNgspice, runAc, seriesBranch, sp } from './ngspice.ts';
 import { cneg, cabs } from './phasor.ts';
+import { REL_TOL } from './agreement.ts';
 
 const FT = 0.3048; // m per ft (exact)
 const PER_KFT = 1 / (1000 * FT); // Ω/kft → Ω/m
-const REL_TOL = 1e-3; // 0.1 %
 
 
 function solveOk(elements: unknown[]): SolveResult {
