@@ -1,45 +1,77 @@
-/** The page: header, demo picker, the shown project's results or problems, and the footer. */
+/** The page: header, demo picker, the open project (chain editor and results), and the footer. */
 import { DemoPicker } from './DemoPicker.tsx';
 import { Preferences } from './Preferences.tsx';
 import { ProblemList } from './ProblemList.tsx';
 import { ElementTable, EnergyBalance, MethodNote, PortTable, WarningList } from './Results.tsx';
 import { lazy, Suspense } from 'preact/compat';
-import { openedFile, selectedDemo, shownTitle, solution } from '../state/app.ts';
+import { useEffect } from 'preact/hooks';
+import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
+import { crashMessage, draft, draftOrigin, draftProblems, lastValidResult, resultsState } from '../state/editor.ts';
 
 /** The energy-flow diagram (and d3-sankey) load only when a solved project is shown. */
 const EnergyFlow = lazy(() => import('./EnergyFlow.tsx'));
 
+/** Says plainly when the results on screen are not those of the inputs on screen. */
+function StaleNotice() {
+  const state = resultsState.value;
+  if (state !== 'stale') return null;
+  return (
+    <p class="notice notice--stale" role="status" data-testid="results-stale">
+      Out of date: these are the last valid results. Fix the inputs marked below to update them.
+    </p>
+  );
+}
+
 function ShownProject() {
-  const s = solution.value;
-  if (!s) return <p class="note">No project to show.</p>;
-  const description = openedFile.value ? undefined : selectedDemo.value?.summary;
+  const readError = fileReadError.value;
+  if (readError) {
+    return (
+      <article class="project" aria-labelledby="project-heading" data-testid="project">
+        <header class="project__header">
+          <h2 id="project-heading">{readError.fileName}</h2>
+        </header>
+        <section class="notice notice--error" role="alert" data-testid="unreadable">
+          <p>{readError.message}</p>
+        </section>
+      </article>
+    );
+  }
+  if (!draft.value) return <p class="note">No project to show.</p>;
+  const origin = draftOrigin.value;
+  const description = origin?.kind === 'demo' ? origin.summary : undefined;
+  const result = lastValidResult.value;
+  const problems = draftProblems.value;
+  const crashed = crashMessage.value;
+  const stale = resultsState.value === 'stale';
   return (
     <article class="project" aria-labelledby="project-heading" data-testid="project">
       <header class="project__header">
-        <h2 id="project-heading">{s.state === 'solved' ? s.result.projectName || shownTitle.value : shownTitle.value}</h2>
+        <h2 id="project-heading">{shownTitle.value}</h2>
         {description && <p class="project__summary">{description}</p>}
       </header>
-      {s.state === 'solved' && (
-        <>
-          <EnergyBalance result={s.result} />
-          <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={s.result} /></Suspense>
-          <WarningList result={s.result} />
-          <ElementTable result={s.result} />
-          <PortTable result={s.result} />
-          <MethodNote result={s.result} />
-        </>
-      )}
-      {s.state === 'problems' && <ProblemList problems={s.problems} />}
-      {s.state === 'unreadable' && (
+      {problems.length > 0 && <ProblemList problems={problems} />}
+      {crashed && (
         <section class="notice notice--error" role="alert" data-testid="unreadable">
-          <p>{s.message}</p>
+          <p>{crashed}</p>
         </section>
+      )}
+      {result && (
+        <div class={stale ? 'results results--stale' : 'results'} data-testid="results" data-state={resultsState.value}>
+          <StaleNotice />
+          <EnergyBalance result={result} />
+          <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={result} /></Suspense>
+          <WarningList result={result} />
+          <ElementTable result={result} />
+          <PortTable result={result} />
+          <MethodNote result={result} />
+        </div>
       )}
     </article>
   );
 }
 
 export function App() {
+  useEffect(() => openFromAddress(), []);
   return (
     <div class="page">
       <header class="masthead">

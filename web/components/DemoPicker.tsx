@@ -1,9 +1,9 @@
 /** The list of demo projects (one tap opens one) and the button that opens a file instead. */
 import { demoProjects } from '../../core/index.ts';
-import { chooseDemo, hashForDemo, openProjectFile, openedFile, fileReadError, selectedDemoId } from '../state/app.ts';
+import { chooseDemo, hashForDemo, openProjectFile, fileReadError, selectedDemoId } from '../state/app.ts';
 
 export function DemoPicker() {
-  const showingFile = openedFile.value !== null || fileReadError.value !== null;
+  const showingFile = fileReadError.value !== null;
   return (
     <nav class="picker" aria-labelledby="picker-heading">
       <h2 id="picker-heading" class="picker__heading">Demo projects</h2>

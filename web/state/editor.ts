@@ -1,0 +1,567 @@
+/**
+ * The project being edited: a draft (plain project data), its undo/redo history, the chain
+ * operations (add, insert, remove, reorder, duplicate), field edits checked by the engine's own
+ * validation before they are taken in, and the solution of the draft with the last valid results.
+ *
+ * Rules:
+ * - A field edit the engine rejects for that field (a value out of range, text where a number goes)
+ *   never enters the draft: the field shows the message and the results are marked out of date.
+ *   So nothing is stored from an invalid value.
+ * - Structural states the engine refuses (a kind mismatch after an insert, an infeasible load) may
+ *   be in the draft; their problems are listed and the last valid results stay, marked out of date.
+ * - Every change goes through `edit()`, which records it for undo. Typing in one field coalesces
+ *   into one undo step.
+ */
+import { batch, computed, effect, signal } from '@preact/signals';
+import { solveProject, validateProject, type SolveOutcome } from '../../core/index.ts';
+import type { Problem } from '../../core/errors.ts';
+import type { SolveResult } from '../../core/result.ts';
+
+/** One element as edited: plain data, checked by the engine on every solve. */
+export type DraftElement = { id: string; kind: string; from?: string; name?: string } & Record<string, unknown>;
+
+/** The project as edited (the stored project format of core/model.ts, not yet validated). */
+export type DraftProject = {
+  format: 'joulepath-project';
+  version: number;
+  name: string;
+  description?: string;
+  elements: DraftElement[];
+} & Record<string, unknown>;
+
+/** Where the open project came from. */
+export interface DraftOrigin {
+  kind: 'demo' | 'file' | 'new' | 'stored';
+  title: string;
+  summary?: string;
+  demoId?: string;
+  fileName?: string;
+  /** Key of the stored project, when it is one (storage). */
+  storedKey?: string;
+}
+
+const HISTORY_LIMIT = 200;
+
+export const draft = signal<DraftProject | null>(null);
+export const draftOrigin = signal<DraftOrigin | null>(null);
+/** The element whose form is open. */
+export const selectedId = signal<string | null>(null);
+
+const past = signal<readonly { project: DraftProject; label: string; selected: string | null }[]>([]);
+const future = signal<readonly { project: DraftProject; label: string; selected: string | null }[]>([]);
+/** Coalescing key of the last edit (the same field typed again replaces rather than stacks). */
+let lastCoalesceKey: string | null = null;
+
+export const canUndo = computed(() => past.value.length > 0);
+export const canRedo = computed(() => future.value.length > 0);
+/** What undo would take back / redo would do again, for button titles. */
+export const undoLabel = computed(() => past.value.at(-1)?.label ?? '');
+export const redoLabel = computed(() => future.value.at(-1)?.label ?? '');
+/** A short sentence about the last change, for a polite live region. */
+export const lastChange = signal('');
+
+/** Counts every change to the draft (storage and timing hooks listen to it). */
+export const draftRevision = signal(0);
+
+function clone<T>(value: T): T {
+  return structuredClone(value);
+}
+
+/** Is this plain data shaped enough to be edited (an object with a list of elements with id and kind)? */
+export function isEditable(data: unknown): data is DraftProject {
+  if (typeof data !== 'object' || data === null || Array.isArray(data)) return false;
+  const elements = (data as Record<string, unknown>)['elements'];
+  if (!Array.isArray(elements)) return false;
+  return elements.every(
+    (e) =>
+      typeof e === 'object' &&
+      e !== null &&
+      !Array.isArray(e) &&
+      typeof (e as Record<string, unknown>)['id'] === 'string' &&
+      typeof (e as Record<string, unknown>)['kind'] === 'string',
+  );
+}
+
+/** Open a project for editing: a fresh history, the source selected. */
+export function loadProject(project: DraftProject, origin: DraftOrigin): void {
+  batch(() => {
+    draft.value = clone(project);
+    draftOrigin.value = origin;
+    past.value = [];
+    future.value = [];
+    fieldErrors.value = new Map();
+    lastCoalesceKey = null;
+    selectedId.value = null;
+    lastChange.value = '';
+    draftRevision.value++;
+  });
+}
+
+/** Close the open project (nothing shown). */
+export function closeProject(): void {
+  batch(() => {
+    draft.value = null;
+    draftOrigin.value = null;
+    past.value = [];
+    future.value = [];
+    fieldErrors.value = new Map();
+    selectedId.value = null;
+    draftRevision.value++;
+  });
+}
+
+/**
+ * Apply a change to the draft and record it for undo. `change` receives a copy it may mutate or
+ * replace. With `coalesce`, a change with the same key right after the last one replaces it in the
+ * history (typing in one field is one step).
+ */
+export function edit(
+  label: string,
+  change: (project: DraftProject) => DraftProject | void,
+  options: { coalesce?: string; select?: string | null } = {},
+): void {
+  const current = draft.value;
+  if (!current) return;
+  const copy = clone(current);
+  const next = change(copy) ?? copy;
+  batch(() => {
+    const sameField = options.coalesce !== undefined && options.coalesce === lastCoalesceKey && past.value.length > 0;
+    if (!sameField) {
+      past.value = [...past.value, { project: current, label, selected: selectedId.value }].slice(-HISTORY_LIMIT);
+    }
+    future.value = [];
+    lastCoalesceKey = options.coalesce ?? null;
+    draft.value = next;
+    if (options.select !== undefined) selectedId.value = options.select;
+    lastChange.value = label;
+    draftRevision.value++;
+  });
+}
+
+/** Take back the last change. */
+export function undo(): void {
+  const entry = past.value.at(-1);
+  const current = draft.value;
+  if (!entry || !current) return;
+  batch(() => {
+    past.value = past.value.slice(0, -1);
+    future.value = [...future.value, { project: current, label: entry.label, selected: selectedId.value }];
+    draft.value = entry.project;
+    selectedId.value = entry.selected !== null && entry.project.elements.some((e) => e.id === entry.selected) ? entry.selected : null;
+    fieldErrors.value = new Map();
+    lastCoalesceKey = null;
+    lastChange.value = `Undone: ${entry.label}`;
+    draftRevision.value++;
+  });
+}
+
+/** Do again the last change taken back. */
+export function redo(): void {
+  const entry = future.value.at(-1);
+  const current = draft.value;
+  if (!entry || !current) return;
+  batch(() => {
+    future.value = future.value.slice(0, -1);
+    past.value = [...past.value, { project: current, label: entry.label, selected: selectedId.value }];
+    draft.value = entry.project;
+    fieldErrors.value = new Map();
+    lastCoalesceKey = null;
+    lastChange.value = `Redone: ${entry.label}`;
+    draftRevision.value++;
+  });
+}
+
+// ---------- field paths ----------
+
+/** The value at a dotted path ("loss.efficiency", "loss.points.0.efficiency"). */
+export function getAt(target: unknown, path: string): unknown {
+  let at: unknown = target;
+  for (const key of path.split('.')) {
+    if (typeof at !== 'object' || at === null) return undefined;
+    at = (at as Record<string, unknown>)[key];
+  }
+  return at;
+}
+
+/**
+ * Set the value at a dotted path in place (creating objects on the way); `undefined` removes the
+ * key (an optional field left empty). Numeric keys index arrays.
+ */
+export function setAt(target: Record<string, unknown>, path: string, value: unknown): void {
+  const keys = path.split('.');
+  let at: Record<string, unknown> = target;
+  for (const key of keys.slice(0, -1)) {
+    const next = at[key];
+    if (typeof next !== 'object' || next === null) at[key] = {};
+    at = at[key] as Record<string, unknown>;
+  }
+  const last = keys[keys.length - 1]!;
+  if (value === undefined) {
+    if (Array.isArray(at)) at.splice(Number(last), 1);
+    else delete at[last];
+  } else {
+    at[last] = value;
+  }
+}
+
+// ---------- field edits ----------
+
+function fieldKey(elementId: string, path: string): string {
+  return `${elementId}\u0000${path}`;
+}
+
+/** Messages of fields whose typed text was not taken in (key: element id + path). */
+export const fieldErrors = signal<ReadonlyMap<string, string>>(new Map());
+
+export function fieldError(elementId: string, path: string): string | undefined {
+  return fieldErrors.value.get(fieldKey(elementId, path));
+}
+
+/** Set (or clear, with null) the message shown at a field. */
+export function setFieldError(elementId: string, path: string, message: string | null): void {
+  const key = fieldKey(elementId, path);
+  const had = fieldErrors.value.get(key);
+  if (message === null ? had === undefined : had === message) return;
+  const next = new Map(fieldErrors.value);
+  if (message === null) next.delete(key);
+  else next.set(key, message);
+  fieldErrors.value = next;
+}
+
+/** Problems the engine's validation reports for one field of one element (or of the project). */
+export function problemsForField(project: DraftProject, elementId: string, path: string): Problem[] {
+  const checked = validateProject(project);
+  if (checked.ok) return [];
+  return checked.problems.filter(
+    (p) => p.elementId === elementId && (p.field === path || p.field.startsWith(`${path}.`)) && p.code === 'invalid-value',
+  );
+}
+
+/**
+ * Set one field of one element (or of the project, with elementId "project") — the way every form
+ * field writes. The candidate is checked by the engine's validation first: if the engine rejects this
+ * field, the draft is left as it was, the message is kept at the field and returned. `undefined`
+ * clears an optional field.
+ */
+export function setField(elementId: string, path: string, value: unknown, label?: string): string | null {
+  const current = draft.value;
+  if (!current) return 'No project is open.';
+  const candidate = clone(current);
+  const target =
+    elementId === 'project' ? (candidate as Record<string, unknown>) : candidate.elements.find((e) => e.id === elementId);
+  if (!target) return `There is no element "${elementId}".`;
+  setAt(target, path, value);
+  const problems = problemsForField(candidate, elementId, path);
+  if (problems.length) {
+    const message = problems.map((p) => p.message).join('; ');
+    setFieldError(elementId, path, message);
+    return message;
+  }
+  setFieldError(elementId, path, null);
+  const name = elementId === 'project' ? 'project' : elementName(current, elementId);
+  edit(label ?? `${name}: ${path}`, () => candidate, { coalesce: fieldKey(elementId, path) });
+  return null;
+}
+
+// ---------- the tree ----------
+
+export function elementName(project: DraftProject, id: string): string {
+  const e = project.elements.find((x) => x.id === id);
+  return (e && typeof e.name === 'string' && e.name) || id;
+}
+
+/** Elements fed by `id`, in their display order (the order of the elements list). */
+export function childrenOf(project: DraftProject, id: string): DraftElement[] {
+  return project.elements.filter((e) => e.from === id);
+}
+
+/** The element with no feeder (the source), if exactly one can be told. */
+export function rootOf(project: DraftProject): DraftElement | undefined {
+  return project.elements.find((e) => e.from === undefined);
+}
+
+/** A fresh id, unique in the project, made from a base ("inverter" → "inverter-2"). */
+export function freshId(project: DraftProject, base: string, taken: Set<string> = new Set()): string {
+  const used = new Set([...project.elements.map((e) => e.id), ...taken]);
+  const stem = base.replace(/-\d+$/, '') || 'stage';
+  if (!used.has(stem)) return stem;
+  for (let n = 2; ; n++) if (!used.has(`${stem}-${n}`)) return `${stem}-${n}`;
+}
+
+/** The ids of an element and everything downstream of it. */
+export function subtreeIds(project: DraftProject, id: string): string[] {
+  const out: string[] = [];
+  const seen = new Set<string>();
+  const walk = (at: string) => {
+    if (seen.has(at)) return; // a loop in a damaged file: do not walk forever
+    seen.add(at);
+    out.push(at);
+    for (const c of childrenOf(project, at)) walk(c.id);
+  };
+  walk(id);
+  return out;
+}
+
+/** Result of a chain operation: done, or refused with a sentence saying why. */
+export type OperationOutcome = { ok: true } | { ok: false; message: string };
+
+function refuse(message: string): OperationOutcome {
+  lastChange.value = message;
+  return { ok: false, message };
+}
+
+function withFreshId(project: DraftProject, element: DraftElement): DraftElement {
+  return { ...clone(element), id: freshId(project, element.id || element.kind) };
+}
+
+/** Start a new project from scratch with its source. */
+export function newProject(name: string, source: DraftElement): void {
+  const { from: _from, ...rest } = source;
+  loadProject(
+    { format: 'joulepath-project', version: 1, name, elements: [rest as DraftElement] },
+    { kind: 'new', title: name },
+  );
+  selectedId.value = source.id;
+}
+
+/** Add `element` as a new branch fed from `parentId`. */
+export function addBranch(parentId: string, element: DraftElement): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  if (!p.elements.some((e) => e.id === parentId)) return refuse(`There is no element "${parentId}".`);
+  const added = { ...withFreshId(p, element), from: parentId };
+  edit(`Added ${added.name || added.id}`, (x) => {
+    x.elements.push(added);
+  }, { select: added.id });
+  return { ok: true };
+}
+
+/**
+ * Insert `element` right after `afterId` in the chain: it is fed from `afterId` and everything
+ * `afterId` fed is now fed from it.
+ */
+export function insertAfter(afterId: string, element: DraftElement): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  if (!p.elements.some((e) => e.id === afterId)) return refuse(`There is no element "${afterId}".`);
+  const added = { ...withFreshId(p, element), from: afterId };
+  edit(`Inserted ${added.name || added.id} after ${elementName(p, afterId)}`, (x) => {
+    for (const e of x.elements) if (e.from === afterId) e.from = added.id;
+    const at = x.elements.findIndex((e) => e.id === afterId);
+    x.elements.splice(at + 1, 0, added);
+  }, { select: added.id });
+  return { ok: true };
+}
+
+/**
+ * Insert `element` right before `beforeId`: fed from `beforeId`'s feeder, feeding `beforeId`.
+ * Before the source it becomes nothing useful, so that is refused.
+ */
+export function insertBefore(beforeId: string, element: DraftElement): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  const target = p.elements.find((e) => e.id === beforeId);
+  if (!target) return refuse(`There is no element "${beforeId}".`);
+  if (target.from === undefined) return refuse('Nothing can go before the source: the chain starts there.');
+  const added = { ...withFreshId(p, element), from: target.from };
+  edit(`Inserted ${added.name || added.id} before ${elementName(p, beforeId)}`, (x) => {
+    const t = x.elements.find((e) => e.id === beforeId)!;
+    t.from = added.id;
+    const at = x.elements.findIndex((e) => e.id === beforeId);
+    x.elements.splice(at, 0, added);
+  }, { select: added.id });
+  return { ok: true };
+}
+
+/**
+ * Remove one element; what it fed is fed from its feeder instead (so removing a cable joins its
+ * two ends). The source cannot be removed while it feeds anything.
+ */
+export function removeElement(id: string): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  const target = p.elements.find((e) => e.id === id);
+  if (!target) return refuse(`There is no element "${id}".`);
+  if (target.from === undefined && childrenOf(p, id).length > 0) {
+    return refuse('The source feeds the whole chain: remove what it feeds first, or start a new project.');
+  }
+  edit(`Removed ${elementName(p, id)}`, (x) => {
+    for (const e of x.elements) if (e.from === id) e.from = target.from;
+    x.elements = x.elements.filter((e) => e.id !== id);
+  }, { select: target.from ?? null });
+  return { ok: true };
+}
+
+/** Remove an element and everything downstream of it. */
+export function removeBranch(id: string): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  const target = p.elements.find((e) => e.id === id);
+  if (!target) return refuse(`There is no element "${id}".`);
+  if (target.from === undefined) return refuse('The source is the whole chain: start a new project instead.');
+  const gone = new Set(subtreeIds(p, id));
+  edit(`Removed ${elementName(p, id)} and the ${gone.size - 1} element(s) it fed`, (x) => {
+    x.elements = x.elements.filter((e) => !gone.has(e.id));
+  }, { select: target.from });
+  return { ok: true };
+}
+
+/**
+ * Duplicate an element with everything downstream of it, as a new branch from the same feeder
+ * (a second identical circuit). The copies get fresh ids; names get " (copy)".
+ */
+export function duplicate(id: string): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  const target = p.elements.find((e) => e.id === id);
+  if (!target) return refuse(`There is no element "${id}".`);
+  if (target.from === undefined) return refuse('A project has one source: the source cannot be duplicated.');
+  const ids = subtreeIds(p, id);
+  const taken = new Set<string>();
+  const rename = new Map<string, string>();
+  for (const old of ids) {
+    const fresh = freshId(p, old, taken);
+    taken.add(fresh);
+    rename.set(old, fresh);
+  }
+  const copies = ids.map((old) => {
+    const e = clone(p.elements.find((x) => x.id === old)!);
+    e.id = rename.get(old)!;
+    if (e.from !== undefined && rename.has(e.from)) e.from = rename.get(e.from)!;
+    if (old === id && typeof e.name === 'string' && e.name) e.name = `${e.name} (copy)`;
+    return e;
+  });
+  edit(`Duplicated ${elementName(p, id)}`, (x) => {
+    const last = Math.max(...ids.map((i) => x.elements.findIndex((e) => e.id === i)));
+    x.elements.splice(last + 1, 0, ...copies);
+  }, { select: rename.get(id)! });
+  return { ok: true };
+}
+
+/**
+ * Move a stage one step towards the source: it swaps places with its feeder. Allowed when the
+ * feeder is not the source and feeds only this element (otherwise the other branches would move too).
+ */
+export function moveUpstream(id: string): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  const b = p.elements.find((e) => e.id === id);
+  if (!b || b.from === undefined) return refuse('The source is already first.');
+  const a = p.elements.find((e) => e.id === b.from);
+  if (!a) return refuse(`The feeder "${b.from}" of ${elementName(p, id)} does not exist.`);
+  if (a.from === undefined) return refuse(`${elementName(p, id)} is already next to the source.`);
+  if (childrenOf(p, a.id).length !== 1) {
+    return refuse(`${elementName(p, a.id)} feeds other branches too: swapping would move them. Move the whole branch instead.`);
+  }
+  edit(`Moved ${elementName(p, id)} before ${elementName(p, a.id)}`, (x) => {
+    const xa = x.elements.find((e) => e.id === a.id)!;
+    const xb = x.elements.find((e) => e.id === id)!;
+    for (const e of x.elements) if (e.from === id) e.from = a.id;
+    xb.from = xa.from;
+    xa.from = id;
+    const ia = x.elements.indexOf(xa);
+    const ib = x.elements.indexOf(xb);
+    x.elements[ia] = xb;
+    x.elements[ib] = xa;
+  }, { select: id });
+  return { ok: true };
+}
+
+/** Move a stage one step towards the loads: it swaps places with the one element it feeds. */
+export function moveDownstream(id: string): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  const kids = childrenOf(p, id);
+  if (kids.length !== 1) {
+    return refuse(
+      kids.length === 0
+        ? `${elementName(p, id)} is already at the end of its branch.`
+        : `${elementName(p, id)} feeds ${kids.length} branches: there is no single next stage to swap with.`,
+    );
+  }
+  const target = p.elements.find((e) => e.id === id)!;
+  if (target.from === undefined) return refuse('The source stays first.');
+  return moveUpstream(kids[0]!.id);
+}
+
+/** Move a branch before or after its neighbouring branch from the same feeder (display order). */
+export function reorderBranch(id: string, direction: -1 | 1): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  const target = p.elements.find((e) => e.id === id);
+  if (!target || target.from === undefined) return refuse('The source has no sibling branches.');
+  const siblings = childrenOf(p, target.from);
+  const at = siblings.findIndex((e) => e.id === id);
+  const other = siblings[at + direction];
+  if (!other) return refuse(`${elementName(p, id)} is already the ${direction < 0 ? 'first' : 'last'} branch.`);
+  edit(`Moved ${elementName(p, id)} ${direction < 0 ? 'up' : 'down'} among its branches`, (x) => {
+    const i = x.elements.findIndex((e) => e.id === id);
+    const j = x.elements.findIndex((e) => e.id === other.id);
+    const [ei, ej] = [x.elements[i]!, x.elements[j]!];
+    x.elements[i] = ej;
+    x.elements[j] = ei;
+  }, { select: id });
+  return { ok: true };
+}
+
+/** Give a different feeder to an element (move a branch to another point of the chain). */
+export function reattach(id: string, newFeederId: string): OperationOutcome {
+  const p = draft.value;
+  if (!p) return refuse('No project is open.');
+  const target = p.elements.find((e) => e.id === id);
+  if (!target || target.from === undefined) return refuse('The source has no feeder.');
+  if (subtreeIds(p, id).includes(newFeederId)) return refuse(`${elementName(p, newFeederId)} is downstream of ${elementName(p, id)}: that would make a loop.`);
+  if (!p.elements.some((e) => e.id === newFeederId)) return refuse(`There is no element "${newFeederId}".`);
+  edit(`Moved ${elementName(p, id)} to be fed from ${elementName(p, newFeederId)}`, (x) => {
+    x.elements.find((e) => e.id === id)!.from = newFeederId;
+  }, { select: id });
+  return { ok: true };
+}
+
+// ---------- solution ----------
+
+/** The engine's outcome for the draft as it stands. */
+export const outcome = computed<SolveOutcome | { ok: false; crashed: string } | null>(() => {
+  const p = draft.value;
+  if (!p) return null;
+  try {
+    return solveProject(p);
+  } catch (error) {
+    // An engine fault must not blank the page; show it so it can be reported.
+    return { ok: false, crashed: `The calculation stopped unexpectedly: ${String(error)}` };
+  }
+});
+
+/** The last result the engine gave for a valid draft of this project (kept while inputs are invalid). */
+export const lastValidResult = signal<SolveResult | null>(null);
+effect(() => {
+  const o = outcome.value;
+  if (o?.ok) lastValidResult.value = o.result;
+});
+// A different project starts without old results.
+effect(() => {
+  void draftOrigin.value;
+  const o = outcome.peek();
+  lastValidResult.value = o?.ok ? o.result : null;
+});
+
+/** Problems of the draft as it stands (empty when it solves). */
+export const draftProblems = computed<Problem[]>(() => {
+  const o = outcome.value;
+  return o && !o.ok && 'problems' in o ? o.problems : [];
+});
+
+/** A crash message, when the engine stopped unexpectedly. */
+export const crashMessage = computed(() => {
+  const o = outcome.value;
+  return o && !o.ok && 'crashed' in o ? o.crashed : null;
+});
+
+/**
+ * Whether the results shown are those of the inputs on screen: "current", or "stale" (the draft
+ * does not solve, or a field holds text that was not taken in), or "none" (no valid result yet).
+ */
+export const resultsState = computed<'current' | 'stale' | 'none'>(() => {
+  if (!lastValidResult.value) return 'none';
+  return outcome.value?.ok && fieldErrors.value.size === 0 ? 'current' : 'stale';
+});
