@@ -29,6 +29,15 @@ export const FAHRENHEIT_OFFSET = 32;
  */
 export const WATTS_PER_HORSEPOWER = 745.7;
 
+/**
+ * 1 US gallon = 231 in³ = 3.785411784 L exactly (NIST SP 811, 2008 ed., Appendix B.8, "gallon
+ * [U.S.]"), so 1 US gpm = 3.785411784 L/min. Used for pump flow in US customary units.
+ */
+export const LITRES_PER_US_GALLON = 3.785411784;
+
+/** 1 lb = 0.45359237 kg exactly (NIST SP 811, 2008 ed., Appendix B.8, "pound (avoirdupois)"). */
+export const KILOGRAMS_PER_POUND = 0.45359237;
+
 export const metresToFeet = (m: number): number => m / METRES_PER_FOOT;
 export const feetToMetres = (ft: number): number => ft * METRES_PER_FOOT;
 export const mm2ToKcmil = (mm2: number): number => mm2 / MM2_PER_KCMIL;
@@ -85,4 +94,56 @@ export function formatShaftPower(watts: number, units: UnitSystem, locale?: stri
   const si = formatWithPrefix(watts, 'W', 4, locale);
   if (units !== 'us' || !Number.isFinite(watts)) return si;
   return `${si} · ${formatSignificant(wattsToHorsepower(watts), 4, locale)}${UNIT_GAP}hp`;
+}
+
+// ---------- AWG equivalents and resistance per length (conductor panel) ----------
+
+/**
+ * Cross-section of an AWG gauge, mm²: d = 0.005 in × 92^((36 − n)/39) (ASTM B258-18, the gauge's
+ * defining formula; n = 0, −1, −2, −3 for 1/0…4/0), area = π/4 · d². Rounded as printed in NEC
+ * Chapter 9 Table 8 it gives e.g. 10 AWG 10 380 cmil = 5.26 mm², 4 AWG 41 740 cmil = 21.15 mm².
+ */
+export function awgAreaMm2(gauge: number): number {
+  const dMm = 0.127 * 92 ** ((36 - gauge) / 39);
+  return (Math.PI / 4) * dMm * dMm;
+}
+
+/** An AWG gauge number as the trade writes it (0 → "1/0", −3 → "4/0"). */
+export function awgLabel(gauge: number): string {
+  return gauge <= 0 ? `${1 - gauge}/0 AWG` : `${gauge} AWG`;
+}
+
+/** Gauges in common use, smallest conductor first (18 AWG … 4/0 AWG). */
+const AWG_GAUGES = Array.from({ length: 22 }, (_, i) => 18 - i);
+
+/**
+ * Where a metric cross-section falls among AWG gauges, for a US reader: the gauge it equals (within
+ * 2 %), or the gauges just smaller and just larger. Above 4/0 the trade uses kcmil (formatArea).
+ */
+export function awgBracket(mm2: number): { equal?: string; smaller?: string; larger?: string } {
+  if (!Number.isFinite(mm2) || mm2 <= 0) return {};
+  const equal = AWG_GAUGES.find((g) => Math.abs(awgAreaMm2(g) / mm2 - 1) <= 0.02);
+  if (equal !== undefined) return { equal: awgLabel(equal) };
+  const smaller = [...AWG_GAUGES].reverse().find((g) => awgAreaMm2(g) < mm2);
+  const larger = AWG_GAUGES.find((g) => awgAreaMm2(g) > mm2);
+  return { ...(smaller !== undefined ? { smaller: awgLabel(smaller) } : {}), ...(larger !== undefined ? { larger: awgLabel(larger) } : {}) };
+}
+
+/**
+ * A metric size in AWG words for US units: "≈ 10 AWG", "between 10 AWG and 9 AWG", or "" (above
+ * 4/0 or below 18 AWG, where kcmil or the metric size says it).
+ */
+export function awgWords(mm2: number): string {
+  const b = awgBracket(mm2);
+  if (b.equal) return `≈ ${b.equal}`;
+  if (b.smaller && b.larger) return `between ${b.smaller} and ${b.larger}`;
+  return '';
+}
+
+/** Resistance per length given in Ω/km, shown in Ω/km or Ω/1000 ft (1000 ft = 0.3048 km, NIST SP 811). */
+export function formatResistancePerLength(ohmPerKm: number, units: UnitSystem, locale?: string): string {
+  if (!Number.isFinite(ohmPerKm)) return '—';
+  return units === 'us'
+    ? `${formatSignificant(ohmPerKm * METRES_PER_FOOT, 4, locale)}${UNIT_GAP}Ω/1000${UNIT_GAP}ft`
+    : `${formatSignificant(ohmPerKm, 4, locale)}${UNIT_GAP}Ω/km`;
 }
