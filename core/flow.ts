@@ -4,17 +4,18 @@
  *
  * Method: an energy balance per element taken straight from the solve result (no new physics).
  * - a link from each element to each element it feeds, value = the child's P_in;
- * - a link from the source and from each stage to its own loss node, value = its loss (P_in − P_out),
- *   for the source its internal loss (it delivers P_in including that loss).
+ * - from the source and from each stage, its loss (P_in − P_out; for the source its internal loss,
+ *   since it delivers P_in including that loss) in up to two links to its own loss node: the idle
+ *   part (`ElementResult.idleLoss`: drawn even at zero output — standby, no-load, core, fixed loss)
+ *   and the conversion part (loss − idle: grows with the load — I²R, switching, copper loss).
+ *   The conversion link is always there (0 W when all the loss is idle); the idle link only when
+ *   the element has idle loss. Idle + conversion = loss exactly (the idle part is limited to 0…loss
+ *   by the solve), so the widths stay to scale and the loss node's input equals the element's loss.
  * At every element the solve makes P_out = Σ children's P_in, so input = outputs + loss holds to the
  * solve's round-off; `flowGraph` reports the largest relative mismatch it finds (`conservationError`).
- *
- * Standby versus conversion loss is NOT split here: the result carries a converter's total loss at
- * its operating point but not its loss at zero output (only `polynomial-fit` stages carry p0 in
- * `fit`), so a split would be partial. It needs an `idleLoss` figure per stage in `ElementResult`.
  */
 import type { ElementKind } from './model.ts';
-import type { SolveResult } from './result.ts';
+import type { ElementResult, SolveResult } from './result.ts';
 
 export type FlowNodeRole = 'source' | 'stage' | 'load' | 'loss';
 
@@ -31,7 +32,12 @@ export interface FlowNode {
   watts: number;
   /** watts as a percentage of the source power (0 when the source delivers nothing). */
   percent: number;
+  /** Loss nodes: the idle part of `watts`, W (0 when the element has none); the rest is conversion loss. */
+  idleWatts?: number;
 }
+
+/** Which part of an element's loss a loss link carries. */
+export type LossPart = 'idle' | 'conversion';
 
 export interface FlowLink {
   /** Id of the node the power leaves. */
@@ -40,6 +46,11 @@ export interface FlowLink {
   target: string;
   /** 'feed': to a fed element (value = its P_in); 'loss': to the element's loss node. */
   role: 'feed' | 'loss';
+  /**
+   * Loss links only: 'idle' — drawn even with nothing connected (standby, no-load, core, fixed
+   * loss); 'conversion' — the rest, which grows with the load (I²R, switching, copper loss).
+   */
+  part?: LossPart;
   /** Real power, W. */
   watts: number;
   /** watts as a percentage of the source power (0 when the source delivers nothing). */
@@ -64,6 +75,15 @@ export function lossNodeId(elementId: string): string {
   return `${elementId}${LOSS_SUFFIX}`;
 }
 
+/**
+ * An element's loss split into its idle part (drawn at zero output) and its conversion part
+ * (loss − idle), W. Elements without `idleLoss` have all their loss as conversion loss.
+ */
+export function lossParts(e: Pick<ElementResult, 'loss' | 'idleLoss'>): { idle: number; conversion: number } {
+  const idle = e.idleLoss ?? 0;
+  return { idle, conversion: e.loss - idle };
+}
+
 /** The Sankey graph of a solved chain (pure; the result is not modified). */
 export function flowGraph(result: SolveResult): FlowGraph {
   const sourcePower = result.totals.sourcePower;
@@ -77,15 +97,17 @@ export function flowGraph(result: SolveResult): FlowGraph {
     const name = e.name || e.id;
     nodes.push({ id: e.id, role: e.role, elementId: e.id, name, kind: e.kind, watts: e.pIn, percent: pct(e.pIn) });
     if (e.role === 'load') continue;
-    nodes.push({ id: lossNodeId(e.id), role: 'loss', elementId: e.id, name, kind: e.kind, watts: e.loss, percent: pct(e.loss) });
-    let out = e.loss;
+    const { idle, conversion } = lossParts(e);
+    nodes.push({ id: lossNodeId(e.id), role: 'loss', elementId: e.id, name, kind: e.kind, watts: e.loss, percent: pct(e.loss), idleWatts: idle });
+    let out = idle + conversion;
     for (const childId of e.feeds) {
       const child = byId.get(childId);
       if (!child) continue;
       links.push({ source: e.id, target: child.id, role: 'feed', watts: child.pIn, percent: pct(child.pIn) });
       out += child.pIn;
     }
-    links.push({ source: e.id, target: lossNodeId(e.id), role: 'loss', watts: e.loss, percent: pct(e.loss) });
+    if (idle > 0) links.push({ source: e.id, target: lossNodeId(e.id), role: 'loss', part: 'idle', watts: idle, percent: pct(idle) });
+    links.push({ source: e.id, target: lossNodeId(e.id), role: 'loss', part: 'conversion', watts: conversion, percent: pct(conversion) });
     if (sourcePower !== 0) conservationError = Math.max(conservationError, Math.abs(e.pIn - out) / Math.abs(sourcePower));
   }
 

@@ -92,6 +92,14 @@ export interface ElementResult {
   pOut: number;
   /** pIn − pOut, W. */
   loss: number;
+  /**
+   * The part of `loss` drawn even at zero output (standby or no-load loss: a converter's idleLoss or
+   * P0, a DC bus's fixed loss, a transformer's core loss, a drive's lowest grid loss), W: the
+   * element's input power at zero output at the solved voltages, limited to 0…loss
+   * (core/solve/idle.ts). Absent when the element has none (sources, cables, loads). The rest,
+   * loss − idleLoss, is conversion (load-dependent) loss.
+   */
+  idleLoss?: number;
   /** pOut / pIn, or 1 when pIn = 0. */
   efficiency: number;
   /** Load fraction of a stage with a rated power (P_out / rated). */

@@ -31,7 +31,7 @@ import { validateProject } from '../solve/validate.ts';
 import { solveProject } from '../solve/index.ts';
 import { prepareRepeat, type StepPoint } from '../solve/repeat.ts';
 import { plan } from '../solve/plan.ts';
-import { ZERO, c } from '../ac/complex.ts';
+import { idleDraw } from '../solve/idle.ts';
 import { type Bank, bankOcv, capacityFactorAt, resolveBank } from './bank.ts';
 import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
 import { DEFAULT_TIME_STEP_S, buildTimeline, checkStudy } from './profile.ts';
@@ -135,10 +135,10 @@ const H = 3600;
 function noLoadDraws(project: Project): Omit<IdleDraw, 'energyWh'>[] {
   const planned = plan(project);
   if (!planned.ok) return [];
-  const unit = c(1); // no current flows at zero output: any non-zero voltage gives the same answer
+  // No current flows at zero output: any non-zero voltage gives the same answer (idleDraw's default).
   return planned.order
     .filter((n) => n.spec.role === 'stage')
-    .map((n) => ({ id: n.element.id, name: n.element.name ?? n.element.id, watts: n.model.inputPower(ZERO, unit, unit).re }))
+    .map((n) => ({ id: n.element.id, name: n.element.name ?? n.element.id, watts: idleDraw(n.model) }))
     .filter((d) => d.watts > 0);
 }
 

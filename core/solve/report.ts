@@ -10,6 +10,7 @@ import type { PortInfo } from '../stages/index.ts';
 import { phaseCount } from '../stages/spec.ts';
 import type { PlannedElement } from './plan.ts';
 import { TOLERANCE, type OperatingPoint } from './sweep.ts';
+import { idleDraw, idlePart } from './idle.ts';
 
 /** Q within this fraction of S counts as unity power factor. */
 const UNITY_BAND = 1e-9;
@@ -82,6 +83,11 @@ export function buildResult(
     if (rep.loadFraction !== undefined) r.loadFraction = rep.loadFraction;
     if (rep.weighted) r.weighted = rep.weighted;
     if (rep.fit) r.fit = rep.fit;
+    if (role !== 'load') {
+      // Idle (zero-output) part of the loss at the solved voltages; the rest is conversion loss.
+      const idle = idlePart(idleDraw(node.model, vIn, vOut[i]!), loss);
+      if (idle > 0) r.idleLoss = idle;
+    }
     return r;
   });
   if (problems.length) return { ok: false, problems };

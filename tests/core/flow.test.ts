@@ -13,11 +13,14 @@ function solved(project: unknown): SolveResult {
   return outcome.result;
 }
 
-const link = (g: FlowGraph, source: string, target: string) => {
-  const l = g.links.find((x) => x.source === source && x.target === target);
-  if (!l) throw new Error(`no link ${source} → ${target}`);
+const link = (g: FlowGraph, source: string, target: string, part?: 'idle' | 'conversion') => {
+  const l = g.links.find((x) => x.source === source && x.target === target && (part === undefined || x.part === part));
+  if (!l) throw new Error(`no link ${source} → ${target}${part ? ` (${part})` : ''}`);
   return l;
 };
+
+/** Σ of the links from an element to its loss node (its idle and conversion parts). */
+const lossTotal = (g: FlowGraph, id: string) => g.links.filter((l) => l.source === id && l.target === lossNodeId(id)).reduce((a, l) => a + l.watts, 0);
 
 /** Relative closeness at the brief's 1e-9. */
 const near = (a: number, b: number) => expect(Math.abs(a - b)).toBeLessThanOrEqual(1e-9 * Math.max(Math.abs(b), 1));
@@ -54,16 +57,76 @@ describe('flowGraph on a hand-worked DC chain', () => {
   it('gives each link the fed element’s P_in or the element’s loss, in watts and per cent of the source', () => {
     near(g.sourcePower, convIn); // stiff bank (no internal resistance): it delivers exactly the converter's input
     near(link(g, 'bank', 'conv').watts, convIn);
-    near(link(g, 'bank', lossNodeId('bank')).watts, 0);
+    near(lossTotal(g, 'bank'), 0);
     near(link(g, 'conv', 'bus').watts, busIn);
-    near(link(g, 'conv', lossNodeId('conv')).watts, convIn - busIn); // 29.58 W (hand calculation above)
-    near(link(g, 'bus', lossNodeId('bus')).watts, 10); // the bus's fixed loss, from the project
+    near(lossTotal(g, 'conv'), convIn - busIn); // 29.58 W (hand calculation above)
+    near(lossTotal(g, 'bus'), 10); // the bus's fixed loss, from the project
     near(link(g, 'bus', 'lamp').watts, 500);
     near(link(g, 'bus', 'radio').watts, 200);
     near(link(g, 'bus', 'lamp').percent, (100 * 500) / convIn); // 67.61 % (hand calculation)
-    near(link(g, 'conv', lossNodeId('conv')).percent, 4); // 1 − η = 4 % of the converter's input, which is all the source gives
+    near(link(g, 'conv', lossNodeId('conv'), 'conversion').percent, 4); // 1 − η = 4 % of the converter's input, which is all the source gives
     expect(g.links.every((l) => l.role === (l.target.endsWith('#loss') ? 'loss' : 'feed'))).toBe(true);
     expect(g.conservationError).toBeLessThanOrEqual(1e-12);
+  });
+
+  it('splits each loss into its idle part (drawn at zero output) and its conversion part', () => {
+    // The bus's 10 W is a fixed loss: all idle, 0 W conversion. The constant-efficiency converter
+    // has no idle loss: one conversion link of 29.58 W. The stiff bank loses nothing.
+    expect(result.elements.find((e) => e.id === 'bus')!.idleLoss).toBe(10);
+    expect(result.elements.find((e) => e.id === 'conv')!.idleLoss).toBeUndefined();
+    near(link(g, 'bus', lossNodeId('bus'), 'idle').watts, 10);
+    near(link(g, 'bus', lossNodeId('bus'), 'conversion').watts, 0);
+    near(link(g, 'conv', lossNodeId('conv'), 'conversion').watts, convIn - busIn);
+    expect(g.links.filter((l) => l.source === 'conv' && l.role === 'loss').map((l) => l.part)).toEqual(['conversion']);
+    expect(g.links.filter((l) => l.role === 'loss').every((l) => l.part === 'idle' || l.part === 'conversion')).toBe(true);
+    expect(g.links.filter((l) => l.role === 'feed').every((l) => l.part === undefined)).toBe(true);
+    const busLoss = g.nodes.find((n) => n.id === lossNodeId('bus'))!;
+    expect(busLoss.idleWatts).toBe(10);
+  });
+});
+
+describe('idle and conversion loss of a hand-worked chain', () => {
+  // Invented scenario: a stiff 48 V bank feeding a 300 W-rated 48→12 V converter with the converter
+  // loss polynomial P_loss = P0 + k1·P + k2·P² (P0 = 3.5 W, k1 = 0.03, k2 = 0.00012 /W), and a 230 V
+  // inverter, constant 94 % with 20 W standby, feeding a 750 W load; and a 1 kVA transformer
+  // (no-load loss 12 W, load loss 25 W at rating) behind the inverter feeding a 400 W load.
+  const project = {
+    format: 'joulepath-project',
+    version: 1,
+    name: 'Cabin split',
+    elements: [
+      { id: 'bank', kind: 'battery', voltage: 48 },
+      { id: 'psu', kind: 'dcdc', from: 'bank', outputVoltage: 12, loss: { model: 'polynomial', p0: 3.5, k1: 0.03, k2: 0.00012, ratedPower: 300 } },
+      { id: 'radio', kind: 'dc-load', from: 'psu', power: 85 },
+      { id: 'inv', kind: 'inverter', from: 'bank', phases: 1, outputVoltage: 230, frequency: 50, loss: { model: 'constant', efficiency: 0.94, idleLoss: 20 } },
+      { id: 'heater', kind: 'ac-load', from: 'inv', power: 750, powerFactor: 1 },
+      { id: 'tx', kind: 'transformer', from: 'inv', ratedApparentPower: 1000, primaryVoltage: 230, secondaryVoltage: 115, noLoadLoss: 12, loadLoss: 25 },
+      { id: 'tools', kind: 'ac-load', from: 'tx', power: 400, powerFactor: 1 },
+    ],
+  };
+  const result = deepFreeze(solved(project));
+  const g = flowGraph(result);
+  const el = (id: string) => result.elements.find((e) => e.id === id)!;
+
+  it('takes P0 of the polynomial as the idle part and the k1, k2 terms as conversion loss', () => {
+    // Hand calculation: P_out = 85 W; idle = P0 = 3.5 W; conversion = 0.03·85 + 0.00012·85² = 2.55 + 0.867 = 3.417 W.
+    near(el('psu').idleLoss!, 3.5);
+    near(el('psu').loss, 3.5 + 3.417);
+    near(link(g, 'psu', lossNodeId('psu'), 'idle').watts, 3.5);
+    near(link(g, 'psu', lossNodeId('psu'), 'conversion').watts, 3.417);
+  });
+
+  it('takes a constant-efficiency converter’s idleLoss and a transformer’s no-load loss as idle', () => {
+    near(el('inv').idleLoss!, 20); // the inverter's standby, from the project
+    near(el('tx').idleLoss!, 12); // the transformer's no-load (core) loss, from the project
+    // Transformer copper loss at unity pf: I²R with R = (25 W / 1000 VA)·Z_b on the secondary, so the
+    // conversion part is 25·(S_out/S_rated)²·(115/V_out)² = 25·0.4²·(115/V_out)² ≈ 4 W (IEC 60076-1 load-loss definition).
+    const vOut = el('tx').output!.voltage;
+    near(link(g, 'tx', lossNodeId('tx'), 'conversion').watts, 25 * (400 / 1000) ** 2 * (115 / vOut) ** 2);
+    // Inverter: P_out = 750 + the transformer's input; loss = P_out·(1/0.94 − 1) + 20.
+    const invOut = el('inv').pOut;
+    near(link(g, 'inv', lossNodeId('inv'), 'conversion').watts, invOut * (1 / 0.94 - 1));
+    for (const id of ['psu', 'inv', 'tx']) near(lossTotal(g, id), el(id).loss);
   });
 });
 
@@ -92,6 +155,13 @@ describe('flowGraph on the demo projects', () => {
     near(lossSum / s, result.totals.losses / s);
     near(loadSum / s, result.totals.loadPower / s);
     expect(g.conservationError).toBeLessThanOrEqual(1e-9);
+    // Idle + conversion links of each loss node = the node's loss, and the idle link carries the engine's idleLoss.
+    for (const e of nonLoads) {
+      near(lossTotal(g, e.id) / s, e.loss / s);
+      const idle = g.links.find((l) => l.source === e.id && l.part === 'idle');
+      if (e.idleLoss === undefined) expect(idle).toBeUndefined();
+      else near(idle!.watts, e.idleLoss);
+    }
     // Per cent of the source sums to 100 over losses and loads.
     const pct = g.links.filter((l) => l.role === 'loss' || g.nodes.find((n) => n.id === l.target)?.role === 'load').reduce((a, l) => a + l.percent, 0);
     near(pct / 100, 1);
