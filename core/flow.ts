@@ -66,6 +66,27 @@ export interface FlowGraph {
   links: FlowLink[];
   /** Largest |P_in − Σ out-links| / source power over the source and stages (0 for an empty source). */
   conservationError: number;
+  /** Losses of the whole chain, split into idle and conversion parts, in W and % of the source power. */
+  losses: LossSummary;
+}
+
+/** A power and its share of the source power. */
+export interface Share {
+  /** W. */
+  watts: number;
+  /** % of the source power (0 when the source delivers nothing). */
+  percent: number;
+}
+
+export interface LossSummary {
+  /** Σ losses of the source and stages (= totals.losses). */
+  total: Share;
+  /** Σ idle parts: drawn even with nothing connected. */
+  idle: Share;
+  /** Σ conversion parts: grow with the load. */
+  conversion: Share;
+  /** The element losing the most (absent when nothing loses power). */
+  largest?: Share & { elementId: string; name: string; idleWatts: number };
 }
 
 /** Suffix of a loss node's id. */
@@ -92,6 +113,9 @@ export function flowGraph(result: SolveResult): FlowGraph {
   const nodes: FlowNode[] = [];
   const links: FlowLink[] = [];
   let conservationError = 0;
+  let idleSum = 0;
+  let conversionSum = 0;
+  let largest: FlowNode | undefined;
 
   for (const e of result.elements) {
     const name = e.name || e.id;
@@ -99,6 +123,9 @@ export function flowGraph(result: SolveResult): FlowGraph {
     if (e.role === 'load') continue;
     const { idle, conversion } = lossParts(e);
     nodes.push({ id: lossNodeId(e.id), role: 'loss', elementId: e.id, name, kind: e.kind, watts: e.loss, percent: pct(e.loss), idleWatts: idle });
+    idleSum += idle;
+    conversionSum += conversion;
+    if (e.loss > 0 && (!largest || e.loss > largest.watts)) largest = nodes[nodes.length - 1]!;
     let out = idle + conversion;
     for (const childId of e.feeds) {
       const child = byId.get(childId);
@@ -111,5 +138,12 @@ export function flowGraph(result: SolveResult): FlowGraph {
     if (sourcePower !== 0) conservationError = Math.max(conservationError, Math.abs(e.pIn - out) / Math.abs(sourcePower));
   }
 
-  return { projectName: result.projectName, sourcePower, nodes, links, conservationError };
+  const share = (watts: number): Share => ({ watts, percent: pct(watts) });
+  const losses: LossSummary = {
+    total: share(result.totals.losses),
+    idle: share(idleSum),
+    conversion: share(conversionSum),
+    ...(largest ? { largest: { ...share(largest.watts), elementId: largest.elementId, name: largest.name, idleWatts: largest.idleWatts ?? 0 } } : {}),
+  };
+  return { projectName: result.projectName, sourcePower, nodes, links, conservationError, losses };
 }

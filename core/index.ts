@@ -102,5 +102,5 @@ export {
   type DriveDetail,
   type MachineSolveOutcome,
 } from './machines/index.ts';
-export { flowGraph, lossNodeId, lossParts, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole, type LossPart } from './flow.ts';
+export { flowGraph, lossNodeId, lossParts, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole, type LossPart, type LossSummary, type Share } from './flow.ts';
 export { lossCostPerYear, flowStudyCosts, energyCost, checkCostSettings, HOURS_IN_YEAR, MAX_HOURS_PER_YEAR, type CostSettings, type LossCost, type LossCostRow, type LossCostOutcome, type MethodCosts } from './economics.ts';

@@ -128,6 +128,18 @@ describe('idle and conversion loss of a hand-worked chain', () => {
     near(link(g, 'inv', lossNodeId('inv'), 'conversion').watts, invOut * (1 / 0.94 - 1));
     for (const id of ['psu', 'inv', 'tx']) near(lossTotal(g, id), el(id).loss);
   });
+
+  it('sums the idle and conversion parts of the whole chain and names the largest loss', () => {
+    // Idle: 3.5 (P0) + 20 (standby) + 12 (no-load) = 35.5 W, from the project; the stiff bank loses nothing.
+    near(g.losses.idle.watts, 35.5);
+    near(g.losses.idle.watts + g.losses.conversion.watts, result.totals.losses);
+    near(g.losses.total.watts, result.totals.losses);
+    near(g.losses.total.percent, (100 * result.totals.losses) / result.totals.sourcePower);
+    const biggest = [...result.elements].sort((a, b) => b.loss - a.loss)[0]!;
+    expect(g.losses.largest?.elementId).toBe(biggest.id);
+    expect(g.losses.largest?.elementId).toBe('inv'); // 750 W + transformer through a 94 % inverter: the largest by far
+    near(g.losses.largest!.idleWatts, 20);
+  });
 });
 
 describe('flowGraph on the demo projects', () => {
@@ -181,5 +193,7 @@ describe('flowGraph on the demo projects', () => {
     expect(g.sourcePower).toBe(0);
     expect(g.links.every((l) => l.percent === 0 && Number.isFinite(l.watts))).toBe(true);
     expect(g.conservationError).toBe(0);
+    expect(g.losses.largest).toBeUndefined();
+    expect(g.losses.total).toEqual({ watts: 0, percent: 0 });
   });
 });
