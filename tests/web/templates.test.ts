@@ -1,0 +1,182 @@
+// Default elements of the chain editor (web/editor/templates.ts): every template offered after a
+// port makes a chain the engine solves — alone, with a further offered element after it, and when
+// added after, before or beside each element of the demo projects. The checks are behaviour (the
+// engine's solve succeeds), not values from a source; the defaults themselves are common practice
+// (no source).
+import { describe, expect, it } from 'vitest';
+import { KINDS, demoProjects, solveProject } from '../../core/index.ts';
+import type { ElementKind } from '../../core/model.ts';
+import {
+  ADDABLE_KINDS,
+  SOURCE_TEMPLATES,
+  followsUsPractice,
+  nominalOutput,
+  nominalPorts,
+  offeredTemplates,
+  projectFrequency,
+  templateFor,
+  templatesAfter,
+} from '../../web/editor/templates.ts';
+import { addBranch, draft, insertAfter, insertBefore, loadProject, outcome, type DraftElement, type DraftProject } from '../../web/state/editor.ts';
+
+const project = (elements: DraftElement[]): DraftProject => ({ format: 'joulepath-project', version: 1, name: 'test', elements });
+const source = (key: string) => structuredClone(SOURCE_TEMPLATES.find((s) => s.key === key)!.element);
+
+/** Small projects ending at a feeder whose output port is the one named. */
+function feeders(): { label: string; project: DraftProject; feederId: string }[] {
+  const out: { label: string; project: DraftProject; feederId: string }[] = [];
+  for (const s of SOURCE_TEMPLATES) out.push({ label: s.label, project: project([structuredClone(s.element)]), feederId: s.element.id });
+  out.push({ label: 'battery 12 V (voltage only)', project: project([{ id: 'b', kind: 'battery', voltage: 12.8, internalResistance: 0.005 }]), feederId: 'b' });
+  // One stage of each converting kind after the source that suits it, then its output is the port.
+  const after = (key: string, kind: ElementKind) => {
+    const p = project([source(key)]);
+    const root = p.elements[0]!;
+    const port = nominalPorts(p).get(root.id)!;
+    const t = templateFor(kind, { port, project: p, feeder: root })!;
+    expect(t, `${kind} after ${key}`).not.toBeNull();
+    p.elements.push({ ...t, from: root.id });
+    out.push({ label: `${kind} after ${key}`, project: p, feederId: t.id });
+  };
+  after('battery-48', 'inverter');
+  after('battery-48', 'dcdc');
+  after('battery-48', 'dcbus');
+  after('battery-48', 'cable');
+  after('grid-1-230', 'rectifier');
+  after('grid-3-400', 'transformer');
+  after('grid-3-480-60', 'transformer');
+  after('grid-1-240-60', 'transformer');
+  after('grid-3-400', 'drive');
+  after('grid-3-480-60', 'drive');
+  after('grid-1-230', 'drive');
+  after('grid-3-400', 'motor');
+  after('grid-3-480-60', 'motor');
+  after('grid-1-230', 'motor');
+  after('grid-1-240-60', 'motor');
+  after('grid-3-400', 'generic');
+  after('grid-3-480-60', 'cable');
+  return out;
+}
+
+function solves(p: DraftProject): string {
+  const o = solveProject(p);
+  return o.ok ? 'ok' : o.problems.map((x) => `${x.elementId}.${x.field}: ${x.message}`).join('; ');
+}
+
+describe('templates after every plausible feeding port', () => {
+  it.each(feeders().map((f) => [f.label, f] as const))('%s: each offered template solves, alone and with an offered element after it', (_label, f) => {
+    const port = nominalPorts(f.project).get(f.feederId);
+    expect(port).toBeDefined();
+    const feeder = f.project.elements.find((e) => e.id === f.feederId)!;
+    const offered = templatesAfter({ port: port!, project: f.project, feeder });
+    expect(offered.length).toBeGreaterThan(0);
+    for (const { kind, element } of offered) {
+      // The engine accepts the port kind for this element.
+      expect(KINDS.get(kind)!.accepts(element as never)).toContain(port!.kind);
+      const p1 = structuredClone(f.project);
+      p1.elements.push({ ...element, id: `new-${kind}`, from: f.feederId });
+      expect(solves(p1), `${kind} after ${f.label}`).toBe('ok');
+      const out = nominalOutput(element, port!);
+      if (!out) continue;
+      const added = p1.elements.at(-1)!;
+      for (const next of templatesAfter({ port: out, project: p1, feeder: added })) {
+        const p2 = structuredClone(p1);
+        p2.elements.push({ ...next.element, id: `next-${next.kind}`, from: added.id });
+        expect(solves(p2), `${next.kind} after ${kind} after ${f.label}`).toBe('ok');
+      }
+    }
+  });
+
+  it('offers what each port kind can take and nothing else', () => {
+    const kindsAt = (key: string) => {
+      const p = project([source(key)]);
+      return templatesAfter({ port: nominalPorts(p).get(p.elements[0]!.id)!, project: p }).map((t) => t.kind).sort();
+    };
+    expect(kindsAt('battery-48')).toEqual(['cable', 'dc-load', 'dcbus', 'dcdc', 'generic', 'inverter']);
+    expect(kindsAt('grid-3-400')).toEqual(['ac-load', 'ac-va-load', 'cable', 'drive', 'generic', 'motor', 'network-load', 'rectifier', 'transformer']);
+    const shaft = templatesAfter({ port: { kind: 'shaft' } }).map((t) => t.kind).sort();
+    expect(shaft).toEqual(['pump', 'shaft-load']);
+    // Sources are never offered as a stage.
+    for (const kind of ADDABLE_KINDS) expect(KINDS.get(kind)!.role).not.toBe('source');
+  });
+
+  it('a kind that cannot take the port has no template there', () => {
+    expect(templateFor('inverter', { port: { kind: 'ac3', voltage: 400, frequency: 50 } })).toBeNull();
+    expect(templateFor('dc-load', { port: { kind: 'ac1', voltage: 230, frequency: 50 } })).toBeNull();
+    expect(templateFor('motor', { port: { kind: 'dc', voltage: 48 } })).toBeNull();
+    expect(templateFor('pump', { port: { kind: 'dc', voltage: 48 } })).toBeNull();
+    expect(templateFor('cable', { port: { kind: 'shaft' } })).toBeNull();
+  });
+});
+
+describe('project conventions', () => {
+  it('60 Hz and NEC conductors in a US project, 50 Hz and IEC otherwise', () => {
+    const us = project([source('grid-3-480-60')]);
+    const eu = project([source('grid-3-400')]);
+    expect(followsUsPractice(us)).toBe(true);
+    expect(followsUsPractice(eu)).toBe(false);
+    expect(projectFrequency(us)).toBe(60);
+    expect(projectFrequency(eu)).toBe(50);
+    const cableUs = templateFor('cable', { port: { kind: 'ac3', voltage: 480, frequency: 60 }, project: us })!;
+    const cableEu = templateFor('cable', { port: { kind: 'ac3', voltage: 400, frequency: 50 }, project: eu })!;
+    expect((cableUs['conductor'] as { system: string }).system).toBe('nec');
+    expect((cableEu['conductor'] as { system: string }).system).toBe('iec');
+    expect(cableUs['length']).toBe(10); // demo default, common practice (no source)
+  });
+
+  it('an inverter after a DC port gives 230 V 50 Hz, or 120 V 60 Hz when the project is on 60 Hz', () => {
+    const bank = project([source('battery-48')]);
+    const inv = templateFor('inverter', { port: { kind: 'dc', voltage: 51.2 }, project: bank })!;
+    expect([inv['outputVoltage'], inv['frequency'], inv['phases']]).toEqual([230, 50, 1]); // demo default, common practice (no source)
+    const us = project([source('battery-48'), { id: 'inv', kind: 'inverter', from: 'bank', phases: 1, outputVoltage: 120, frequency: 60, loss: { model: 'constant', efficiency: 0.9 } }]);
+    const inv2 = templateFor('inverter', { port: { kind: 'dc', voltage: 51.2 }, project: us })!;
+    expect([inv2['outputVoltage'], inv2['frequency']]).toEqual([120, 60]); // demo default, common practice (no source)
+  });
+
+  it('a motor takes the IE3 preset on 50 Hz and NEMA Premium on 60 Hz; its shaft load fits it', () => {
+    expect(templateFor('motor', { port: { kind: 'ac3', voltage: 400, frequency: 50 } })!['efficiencyClass']).toBe('IE3');
+    expect(templateFor('motor', { port: { kind: 'ac3', voltage: 480, frequency: 60 } })!['efficiencyClass']).toBe('NEMA-premium');
+    const small = { id: 'm', kind: 'motor', ratedOutput: 2200 } as DraftElement;
+    // 70 % of a 2.2 kW rating, common practice (no source).
+    expect(templateFor('shaft-load', { port: { kind: 'shaft' }, feeder: small })!['power']).toBe(1500);
+  });
+
+  it('every source template solves on its own', () => {
+    for (const s of SOURCE_TEMPLATES) expect(solves(project([structuredClone(s.element)])), s.label).toBe('ok');
+  });
+});
+
+describe('templates offered in the demo projects', () => {
+  const cases = demoProjects.flatMap((demo) =>
+    (['after', 'branch', 'before'] as const).map((op) => [demo.id, op, demo] as const),
+  );
+  it.each(cases)('%s: every template offered %s every element keeps the chain solving', (_id, op, demo) => {
+    const base = demo.project as unknown as DraftProject;
+    let tried = 0;
+    for (const target of base.elements) {
+      for (const { kind, element } of offeredTemplates(base, op, target.id)) {
+        loadProject(base, { kind: 'demo', title: demo.title });
+        const r = op === 'after' ? insertAfter(target.id, element) : op === 'branch' ? addBranch(target.id, element) : insertBefore(target.id, element);
+        expect(r.ok).toBe(true);
+        const o = outcome.value!;
+        const why = o.ok ? 'ok' : 'problems' in o ? o.problems.map((p) => `${p.elementId}.${p.field}: ${p.message}`).join('; ') : o.crashed;
+        expect(why, `${kind} ${op} ${target.id} in ${demo.id}`).toBe('ok');
+        expect(draft.value!.elements.length).toBe(base.elements.length + 1);
+        tried++;
+      }
+    }
+    expect(tried).toBeGreaterThan(0);
+  });
+
+  it('nothing is offered after a load, and no load is offered where it would have to feed something', () => {
+    const hut = demoProjects.find((d) => d.id === 'hillside-relay-hut') ?? demoProjects[0]!;
+    const p = hut.project as unknown as DraftProject;
+    const load = p.elements.find((e) => KINDS.get(e.kind as ElementKind)!.role === 'load')!;
+    expect(offeredTemplates(p, 'after', load.id)).toEqual([]);
+    expect(offeredTemplates(p, 'branch', load.id)).toEqual([]);
+    const before = offeredTemplates(p, 'before', load.id);
+    expect(before.length).toBeGreaterThan(0);
+    for (const t of before) expect(KINDS.get(t.kind)!.role).not.toBe('load');
+    // Before the source nothing can go.
+    expect(offeredTemplates(p, 'before', p.elements.find((e) => e.from === undefined)!.id)).toEqual([]);
+  });
+});

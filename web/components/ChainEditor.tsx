@@ -1,0 +1,455 @@
+/**
+ * The chain editor: the open project's chain as a flow of stage cards from the source to the loads,
+ * with branches stacked; a toolbar of chain operations on the selected card (add after, add a
+ * branch, insert before, remove, remove branch, duplicate, move, reorder), undo and redo, and the
+ * selected stage's form. Every change goes through web/state/editor.ts; refusals are shown in a
+ * polite status line.
+ *
+ * Keyboard: the cards are one composite widget with a roving tabindex. Tab enters the chain at the
+ * selected (or first) card; Left/Right go upstream/downstream, Up/Down between sibling branches,
+ * Home/End to the source/last card; Enter or Space selects and moves into the form; Delete removes
+ * (undo available). Ctrl/Cmd+Z undoes, Ctrl/Cmd+Shift+Z or Ctrl+Y redoes (not while typing in a
+ * text field, where the browser's own undo applies).
+ */
+import { useSignal } from '@preact/signals';
+import { useEffect, useRef } from 'preact/hooks';
+import type { ComponentChildren } from 'preact';
+import type { ElementKind } from '../../core/model.ts';
+import type { ElementResult } from '../../core/result.ts';
+import { nominalPorts, offeredTemplates, type AddOperation, type FeedingPort } from '../editor/templates.ts';
+import { elementKindLabel } from '../format/labels.ts';
+import {
+  addBranch,
+  canRedo,
+  canUndo,
+  childrenOf,
+  draft,
+  draftProblems,
+  duplicate,
+  elementName,
+  insertAfter,
+  insertBefore,
+  lastChange,
+  lastValidResult,
+  moveDownstream,
+  moveUpstream,
+  redo,
+  redoLabel,
+  removeBranch,
+  removeElement,
+  reorderBranch,
+  resultsState,
+  rootOf,
+  selectedId,
+  undo,
+  undoLabel,
+  type DraftElement,
+  type DraftProject,
+  type OperationOutcome,
+} from '../state/editor.ts';
+import { effectiveLocale, unitSystem } from '../state/prefs.ts';
+import { keyInputs, StageCard } from './StageCard.tsx';
+import { StageForm } from './StageForm.tsx';
+import './ChainEditor.css';
+
+// ---------- the tree as the cards show it ----------
+
+interface Layout {
+  /** Elements reached from the source, in display order (depth first). */
+  order: string[];
+  /** Elements not reached from the source (a broken `from`, a loop, a second source). */
+  loose: string[];
+  parent: Map<string, string | undefined>;
+  children: Map<string, string[]>;
+}
+
+function layoutOf(p: DraftProject): Layout {
+  const children = new Map<string, string[]>();
+  const parent = new Map<string, string | undefined>();
+  const order: string[] = [];
+  const seen = new Set<string>();
+  const walk = (id: string, from: string | undefined) => {
+    if (seen.has(id)) return;
+    seen.add(id);
+    order.push(id);
+    parent.set(id, from);
+    const kids = childrenOf(p, id).map((c) => c.id).filter((c) => !seen.has(c));
+    children.set(id, kids);
+    for (const k of kids) walk(k, id);
+  };
+  const root = rootOf(p);
+  if (root) walk(root.id, undefined);
+  const loose = p.elements.map((e) => e.id).filter((id) => !seen.has(id));
+  for (const id of loose) {
+    parent.set(id, undefined);
+    children.set(id, []);
+  }
+  return { order, loose, parent, children };
+}
+
+/** The card reached from `id` by an arrow key, or undefined. */
+function neighbour(layout: Layout, id: string, key: string): string | undefined {
+  const all = [...layout.order, ...layout.loose];
+  if (key === 'Home') return all[0];
+  if (key === 'End') return all.at(-1);
+  if (layout.loose.includes(id)) {
+    const i = layout.loose.indexOf(id);
+    if (key === 'ArrowLeft' || key === 'ArrowUp') return layout.loose[i - 1] ?? layout.order.at(-1);
+    if (key === 'ArrowRight' || key === 'ArrowDown') return layout.loose[i + 1];
+    return undefined;
+  }
+  if (key === 'ArrowLeft') return layout.parent.get(id);
+  if (key === 'ArrowRight') return layout.children.get(id)?.[0];
+  if (key === 'ArrowUp' || key === 'ArrowDown') {
+    const step = key === 'ArrowUp' ? -1 : 1;
+    // The nearest sibling branch in that direction, of this card or of the first ancestor that has one.
+    for (let at: string | undefined = id; at !== undefined; at = layout.parent.get(at)) {
+      const feeder = layout.parent.get(at);
+      if (feeder === undefined) break;
+      const siblings = layout.children.get(feeder) ?? [];
+      const next = siblings[siblings.indexOf(at) + step];
+      if (next !== undefined) return next;
+    }
+    if (step === 1 && layout.loose.length) return layout.loose[0];
+  }
+  return undefined;
+}
+
+// ---------- icons (our own, drawn on a 20 × 20 grid) ----------
+
+const ICONS: Record<string, string> = {
+  after: 'M3 10h9M9 6l4 4-4 4M16 5v10',
+  branch: 'M3 6h6c2 0 3 1 3 3v6M12 15l-3-3M12 15l3-3M3 6h14',
+  before: 'M17 10H8M11 6l-4 4 4 4M4 5v10',
+  remove: 'M5 5l10 10M15 5 5 15',
+  removeBranch: 'M3 10h4M9 5l8 10M17 5l-8 10',
+  duplicate: 'M4 4h8v8H4zM8 8h8v8H8z',
+  up: 'M10 16V4M5 9l5-5 5 5',
+  down: 'M10 4v12M5 11l5 5 5-5',
+  left: 'M16 10H4M9 5l-5 5 5 5',
+  right: 'M4 10h12M11 5l5 5-5 5',
+  undo: 'M7 5 3 9l4 4M3 9h9a5 5 0 0 1 0 10h-2',
+  redo: 'M13 5l4 4-4 4M17 9H8a5 5 0 0 0 0 10h2',
+};
+
+function Icon({ name }: { name: keyof typeof ICONS }) {
+  return (
+    <svg class="editor-icon" viewBox="0 0 20 20" width="20" height="20" aria-hidden="true" focusable="false">
+      <path d={ICONS[name]} fill="none" stroke="currentColor" stroke-width="1.8" stroke-linecap="round" stroke-linejoin="round" />
+    </svg>
+  );
+}
+
+function ToolButton(props: {
+  icon: keyof typeof ICONS;
+  label: string;
+  onClick: (ev: MouseEvent) => void;
+  disabled?: boolean;
+  title?: string;
+  testId?: string;
+  expanded?: boolean;
+}) {
+  return (
+    <button
+      type="button"
+      class="editor-tool"
+      onClick={props.onClick}
+      disabled={props.disabled}
+      title={props.title}
+      data-testid={props.testId}
+      aria-expanded={props.expanded}
+    >
+      <Icon name={props.icon} />
+      <span>{props.label}</span>
+    </button>
+  );
+}
+
+const ADD_WORDS: Record<AddOperation, { button: string; heading: (name: string) => string }> = {
+  after: { button: 'Add after', heading: (n) => `Add after ${n}` },
+  branch: { button: 'Add branch', heading: (n) => `New branch from ${n}` },
+  before: { button: 'Insert before', heading: (n) => `Insert before ${n}` },
+};
+
+const NOTHING_OFFERED: Record<AddOperation, string> = {
+  after: 'Nothing can follow here: a load feeds nothing, and whatever follows must suit what comes after it.',
+  branch: 'No branch can start here: a load feeds nothing, and a motor shaft drives one load.',
+  before: 'Nothing can go before the source: the chain starts there.',
+};
+
+function isTextEntry(target: EventTarget | null): boolean {
+  if (!(target instanceof HTMLElement)) return false;
+  if (target.isContentEditable) return true;
+  if (target instanceof HTMLTextAreaElement || target instanceof HTMLSelectElement) return true;
+  if (target instanceof HTMLInputElement) return !['button', 'checkbox', 'radio', 'submit', 'reset', 'file', 'range', 'color'].includes(target.type);
+  return false;
+}
+
+// ---------- the editor ----------
+
+export function ChainEditor() {
+  const focusId = useSignal<string | null>(null);
+  const chooser = useSignal<{ op: AddOperation; target: string } | null>(null);
+  const refused = useSignal<string | null>(null);
+  const hint = useSignal<string>('');
+  const pendingFocus = useRef<string | 'form' | 'chooser' | null>(null);
+  const root = useRef<HTMLElement>(null);
+  const formRef = useRef<HTMLElement>(null);
+  const chooserOpener = useRef<HTMLElement | null>(null);
+
+  // Undo and redo from the keyboard, anywhere on the page except while typing in a text field.
+  useEffect(() => {
+    const onKey = (ev: KeyboardEvent) => {
+      if (!(ev.ctrlKey || ev.metaKey) || ev.altKey || isTextEntry(ev.target)) return;
+      const key = ev.key.toLowerCase();
+      if (key === 'z' && !ev.shiftKey) {
+        ev.preventDefault();
+        if (canUndo.value) undo();
+      } else if ((key === 'z' && ev.shiftKey) || (key === 'y' && ev.ctrlKey && !ev.shiftKey)) {
+        ev.preventDefault();
+        if (canRedo.value) redo();
+      }
+    };
+    document.addEventListener('keydown', onKey);
+    return () => document.removeEventListener('keydown', onKey);
+  }, []);
+
+  // Move focus where the last action asked, once the cards are drawn.
+  useEffect(() => {
+    const want = pendingFocus.current;
+    if (!want || !root.current) return;
+    pendingFocus.current = null;
+    if (want === 'form') {
+      const form = formRef.current;
+      const first = form?.querySelector<HTMLElement>('input, select, textarea, button, [tabindex="0"]');
+      (first ?? form)?.focus();
+    } else if (want === 'chooser') {
+      root.current.querySelector<HTMLElement>('.kind-chooser button')?.focus();
+    } else {
+      root.current.querySelector<HTMLElement>(`[data-card-id="${CSS.escape(want)}"]`)?.focus();
+    }
+  });
+
+  const p = draft.value;
+  if (!p) return null;
+  const layout = layoutOf(p);
+  const ports = nominalPorts(p);
+  const byId = new Map(p.elements.map((e) => [e.id, e]));
+  const results = new Map<string, ElementResult>((lastValidResult.value?.elements ?? []).map((r) => [r.id, r]));
+  const stale = resultsState.value === 'stale';
+  const problemCount = new Map<string, number>();
+  for (const pr of draftProblems.value) problemCount.set(pr.elementId, (problemCount.get(pr.elementId) ?? 0) + 1);
+  const units = unitSystem.value;
+  const locale = effectiveLocale();
+  const selected = selectedId.value !== null && byId.has(selectedId.value) ? selectedId.value : null;
+  const firstId = layout.order[0] ?? layout.loose[0] ?? null;
+  const active = (focusId.value && byId.has(focusId.value) ? focusId.value : null) ?? selected ?? firstId;
+
+  /** Run a chain operation; a refusal is kept to be shown as such. */
+  const run = (op: () => OperationOutcome, focusAfter?: 'selected') => {
+    const r = op();
+    refused.value = r.ok ? null : r.message;
+    hint.value = '';
+    if (r.ok && focusAfter === 'selected' && selectedId.value) {
+      focusId.value = selectedId.value;
+      pendingFocus.current = selectedId.value;
+    }
+    return r;
+  };
+
+  const select = (id: string, how: 'pointer' | 'keyboard') => {
+    selectedId.value = id;
+    focusId.value = id;
+    chooser.value = null;
+    if (how === 'keyboard') pendingFocus.current = 'form';
+  };
+
+  const openChooser = (op: AddOperation, opener: EventTarget | null) => {
+    if (!selected) return;
+    refused.value = null;
+    chooserOpener.current = opener instanceof HTMLElement ? opener : null;
+    if (chooser.value?.op === op && chooser.value.target === selected) {
+      chooser.value = null;
+      return;
+    }
+    chooser.value = { op, target: selected };
+    pendingFocus.current = 'chooser';
+  };
+
+  const closeChooser = () => {
+    chooser.value = null;
+    chooserOpener.current?.focus();
+  };
+
+  const onChainKey = (ev: KeyboardEvent) => {
+    const target = ev.target as HTMLElement;
+    const id = target.closest<HTMLElement>('[data-card-id]')?.dataset['cardId'];
+    if (!id) return;
+    if (['ArrowLeft', 'ArrowRight', 'ArrowUp', 'ArrowDown', 'Home', 'End'].includes(ev.key)) {
+      ev.preventDefault();
+      const next = neighbour(layout, id, ev.key);
+      if (next) {
+        focusId.value = next;
+        pendingFocus.current = next;
+      }
+    } else if (ev.key === 'Enter' || ev.key === ' ') {
+      ev.preventDefault();
+      select(id, 'keyboard');
+    } else if (ev.key === 'Delete' || ev.key === 'Backspace') {
+      ev.preventDefault();
+      const r = run(() => removeElement(id));
+      if (r.ok) {
+        hint.value = ' Undo brings it back (Ctrl+Z).';
+        const next = selectedId.value ?? rootOf(draft.value!)?.id ?? null;
+        if (next) {
+          focusId.value = next;
+          pendingFocus.current = next;
+        }
+      }
+    }
+  };
+
+  const renderCard = (id: string) => {
+    const e = byId.get(id)!;
+    const feeder = layout.parent.get(id);
+    return (
+      <StageCard
+        element={e}
+        input={feeder !== undefined ? ports.get(feeder) : undefined}
+        result={results.get(id)}
+        stale={stale}
+        problems={problemCount.get(id) ?? 0}
+        selected={id === selected}
+        tabIndex={id === active ? 0 : -1}
+        units={units}
+        locale={locale}
+        onSelect={select}
+        onFocus={(fid) => {
+          focusId.value = fid;
+        }}
+      />
+    );
+  };
+
+  /** A card and what follows it: one child continues the row, several are stacked as branches. */
+  const renderRun = (id: string): ComponentChildren => {
+    const kids = layout.children.get(id) ?? [];
+    return (
+      <div class="chain-run" key={id}>
+        {renderCard(id)}
+        {kids.length > 0 && <span class="chain-link" aria-hidden="true" />}
+        {kids.length === 1 && renderRun(kids[0]!)}
+        {kids.length > 1 && (
+          <div class="chain-branches">
+            {kids.map((k) => (
+              <div class="chain-branch" key={k}>
+                {renderRun(k)}
+              </div>
+            ))}
+          </div>
+        )}
+      </div>
+    );
+  };
+
+  const statusText = refused.value ?? (lastChange.value ? `${lastChange.value}.${hint.value}` : '');
+  const selectedName = selected ? elementName(p, selected) : '';
+  const open = chooser.value && chooser.value.target === selected ? chooser.value : null;
+  const offered = open ? offeredTemplates(p, open.op, open.target) : [];
+
+  return (
+    <section class="editor" aria-labelledby="editor-heading" data-testid="chain-editor" ref={root}>
+      <div class="editor__head">
+        <h3 id="editor-heading">Chain</h3>
+        <div class="editor__history" role="group" aria-label="History">
+          <ToolButton icon="undo" label="Undo" testId="undo" disabled={!canUndo.value} title={canUndo.value ? `Undo: ${undoLabel.value} (Ctrl+Z)` : 'Nothing to undo'} onClick={() => undo()} />
+          <ToolButton icon="redo" label="Redo" testId="redo" disabled={!canRedo.value} title={canRedo.value ? `Redo: ${redoLabel.value} (Ctrl+Shift+Z)` : 'Nothing to redo'} onClick={() => redo()} />
+        </div>
+      </div>
+      <div class="editor__toolbar" role="toolbar" aria-label={selected ? `Change the chain at ${selectedName}` : 'Change the chain (select a stage first)'} aria-controls="chain-cards">
+        <ToolButton icon="after" label="Add after" testId="op-add-after" disabled={!selected} expanded={open?.op === 'after'} onClick={(ev) => openChooser('after', ev.currentTarget)} />
+        <ToolButton icon="branch" label="Add branch" testId="op-add-branch" disabled={!selected} expanded={open?.op === 'branch'} onClick={(ev) => openChooser('branch', ev.currentTarget)} />
+        <ToolButton icon="before" label="Insert before" testId="op-insert-before" disabled={!selected} expanded={open?.op === 'before'} onClick={(ev) => openChooser('before', ev.currentTarget)} />
+        <ToolButton icon="duplicate" label="Duplicate" testId="op-duplicate" disabled={!selected} onClick={() => selected && run(() => duplicate(selected))} />
+        <ToolButton icon="left" label="Towards source" testId="op-move-up" disabled={!selected} onClick={() => selected && run(() => moveUpstream(selected))} />
+        <ToolButton icon="right" label="Towards loads" testId="op-move-down" disabled={!selected} onClick={() => selected && run(() => moveDownstream(selected))} />
+        <ToolButton icon="up" label="Branch up" testId="op-branch-up" disabled={!selected} onClick={() => selected && run(() => reorderBranch(selected, -1))} />
+        <ToolButton icon="down" label="Branch down" testId="op-branch-down" disabled={!selected} onClick={() => selected && run(() => reorderBranch(selected, 1))} />
+        <ToolButton icon="remove" label="Remove" testId="op-remove" disabled={!selected} onClick={() => selected && run(() => removeElement(selected))} />
+        <ToolButton icon="removeBranch" label="Remove branch" testId="op-remove-branch" disabled={!selected} onClick={() => selected && run(() => removeBranch(selected))} />
+      </div>
+      <p class={refused.value ? 'editor__status editor__status--refused' : 'editor__status'} role="status" data-testid="editor-status">
+        {statusText}
+      </p>
+      {open && (
+        <div class="kind-chooser" id="kind-chooser" role="group" aria-labelledby="kind-chooser-heading" data-testid="kind-chooser"
+          onKeyDown={(ev) => {
+            if (ev.key === 'Escape') {
+              ev.preventDefault();
+              closeChooser();
+            }
+          }}
+        >
+          <p class="kind-chooser__heading" id="kind-chooser-heading">
+            {ADD_WORDS[open.op].heading(selectedName)}: choose a kind
+          </p>
+          {offered.length === 0 ? (
+            <p class="kind-chooser__none">{NOTHING_OFFERED[open.op]}</p>
+          ) : (
+            <ul class="kind-chooser__list">
+              {offered.map(({ kind, element }) => (
+                <li key={kind}>
+                  {kindOption(kind, element, ports.get(open.op === 'before' ? (byId.get(open.target)?.from ?? '') : open.target), () => {
+                    const opFn = open.op === 'after' ? insertAfter : open.op === 'branch' ? addBranch : insertBefore;
+                    chooser.value = null;
+                    run(() => opFn(open.target, element), 'selected');
+                  })}
+                </li>
+              ))}
+            </ul>
+          )}
+          <button type="button" class="editor-tool kind-chooser__cancel" onClick={closeChooser}>
+            Cancel
+          </button>
+        </div>
+      )}
+      <div class={selected ? 'editor__body editor__body--form' : 'editor__body'}>
+        <div class="chain-scroll">
+          <p id="chain-help" class="editor__help">
+            Tap a stage to edit it. Keys: arrows move along the chain, Enter opens the stage, Delete removes it, Ctrl+Z undoes.
+          </p>
+          <div class="chain" id="chain-cards" role="group" aria-label="Stages, from the source to the loads" aria-describedby="chain-help" onKeyDown={onChainKey}>
+            {layout.order.length > 0 && renderRun(layout.order[0]!)}
+          </div>
+          {layout.loose.length > 0 && (
+            <div class="chain chain--loose" role="group" aria-label="Stages not connected to the source" onKeyDown={onChainKey}>
+              <p class="editor__loose-note">Not connected to the source:</p>
+              {layout.loose.map((id) => (
+                <div class="chain-run" key={id}>
+                  {renderCard(id)}
+                </div>
+              ))}
+            </div>
+          )}
+        </div>
+        {selected && (
+          <section class="editor__form" aria-label={`Settings of ${selectedName}`} tabIndex={-1} ref={formRef} data-testid="stage-form-area">
+            <StageForm elementId={selected} />
+          </section>
+        )}
+      </div>
+    </section>
+  );
+
+  function kindOption(kind: ElementKind, element: DraftElement, input: FeedingPort | undefined, onChoose: () => void) {
+    const summary = keyInputs(element, input, units, locale).join(' · ');
+    return (
+      <button type="button" class="kind-option" data-kind={kind} onClick={onChoose}>
+        <span class="kind-option__name">{elementKindLabel(kind)}</span>
+        {summary && <span class="kind-option__detail">{summary}</span>}
+      </button>
+    );
+  }
+}
+
+export default ChainEditor;

@@ -1,0 +1,211 @@
+/**
+ * One stage card of the chain editor: the element's name, its kind in words, one or two key inputs
+ * read from the element, and once solved its key result from the engine's last valid result, with a
+ * mark when the engine reports a problem on it. Display only: every figure is either an input as
+ * typed or a value from the engine's result, formatted.
+ */
+import type { ElementResult } from '../../core/result.ts';
+import type { FeedingPort } from '../editor/templates.ts';
+import { elementKindLabel, portKindLabel } from '../format/labels.ts';
+import { formatApparent, formatFrequency, formatPercent, formatPower, formatVoltage } from '../format/number.ts';
+import { formatLength, formatShaftPower, type UnitSystem } from '../format/units.ts';
+import type { DraftElement } from '../state/editor.ts';
+
+const num = (v: unknown): number | undefined => (typeof v === 'number' && Number.isFinite(v) ? v : undefined);
+const rec = (v: unknown): Record<string, unknown> | undefined => (typeof v === 'object' && v !== null && !Array.isArray(v) ? (v as Record<string, unknown>) : undefined);
+
+const phaseWord = (phases: unknown) => (phases === 3 ? '3φ' : '1φ');
+
+/** A loss model in a few words: "95 %", "curve, 3 kW", "loss polynomial". */
+function lossWords(loss: unknown, locale: string | undefined): string | undefined {
+  const l = rec(loss);
+  if (!l) return undefined;
+  const rated = num(l['ratedPower']);
+  const ratedText = rated !== undefined ? `, ${formatPower(rated, locale)}` : '';
+  switch (l['model']) {
+    case 'constant': {
+      const eff = num(l['efficiency']);
+      return eff === undefined ? undefined : `η ${formatPercent(eff, locale, 3)}`;
+    }
+    case 'curve':
+      return `efficiency curve${ratedText}`;
+    case 'polynomial':
+      return `loss polynomial${ratedText}`;
+    case 'polynomial-fit':
+      return `fitted loss${ratedText}`;
+    default:
+      return undefined;
+  }
+}
+
+/**
+ * The key inputs of an element as one or two short lines, e.g. ["48 V → 230 V 1φ 50 Hz", "η 95 %"].
+ * `input` is the nominal port feeding it (for the "from" side of a converter), when known.
+ */
+export function keyInputs(e: DraftElement, input: FeedingPort | undefined, units: UnitSystem, locale: string | undefined): string[] {
+  const v = (x: unknown) => (num(x) !== undefined ? formatVoltage(num(x)!, locale) : '?');
+  const from = input?.voltage !== undefined ? `${formatVoltage(input.voltage, locale)} → ` : '→ ';
+  const lines: (string | undefined)[] = [];
+  switch (e.kind) {
+    case 'grid':
+    case 'generator': {
+      const f = num(e['frequency']);
+      lines.push(`${phaseWord(e['phases'])} ${v(e['voltage'])}${f !== undefined ? ` ${formatFrequency(f, locale)}` : ''}`);
+      const rated = num(e['ratedApparentPower']);
+      if (rated !== undefined) lines.push(formatApparent(rated, locale));
+      break;
+    }
+    case 'battery': {
+      const bank = rec(e['bank']);
+      if (bank) {
+        const strings = num(bank['strings']) ?? 1;
+        const chem = String(bank['chemistry'] ?? '');
+        lines.push(`${chem === 'lifepo4' ? 'LiFePO4' : chem} ${num(bank['series']) ?? '?'} × ${num(bank['capacityAh']) ?? '?'} Ah${strings > 1 ? ` × ${strings}` : ''}`);
+      }
+      if (num(e['voltage']) !== undefined) lines.push(v(e['voltage']));
+      break;
+    }
+    case 'inverter': {
+      const f = num(e['frequency']);
+      lines.push(`${from}${v(e['outputVoltage'])} ${phaseWord(e['phases'])}${f !== undefined ? ` ${formatFrequency(f, locale)}` : ''}`);
+      lines.push(lossWords(e['loss'], locale));
+      break;
+    }
+    case 'rectifier':
+    case 'dcdc':
+      lines.push(`${from}${v(e['outputVoltage'])} DC`);
+      lines.push(lossWords(e['loss'], locale));
+      break;
+    case 'generic': {
+      lines.push(`${portKindLabel(String(e['inputKind']))} → ${v(e['outputVoltage'])} ${portKindLabel(String(e['outputKind']))}`);
+      lines.push(lossWords(e['loss'], locale));
+      break;
+    }
+    case 'dcbus': {
+      const loss = num(e['fixedLoss']);
+      if (loss !== undefined) lines.push(`own loss ${formatPower(loss, locale)}`);
+      break;
+    }
+    case 'transformer': {
+      lines.push(`${v(e['primaryVoltage'])} → ${v(e['secondaryVoltage'])}`);
+      const s = num(e['ratedApparentPower']);
+      if (s !== undefined) lines.push(formatApparent(s, locale));
+      break;
+    }
+    case 'drive': {
+      const f = num(e['outputFrequency']);
+      lines.push(`→ ${v(e['outputVoltage'])} 3φ${f !== undefined ? ` ${formatFrequency(f, locale)}` : ''}`);
+      lines.push(lossWords(e['loss'], locale) ?? (e['standardLoss'] ? 'IEC 61800-9-2 losses' : undefined));
+      break;
+    }
+    case 'motor': {
+      const rated = num(e['ratedOutput']);
+      const cls = typeof e['efficiencyClass'] === 'string' ? (e['efficiencyClass'] === 'NEMA-premium' ? 'NEMA Premium' : e['efficiencyClass']) : undefined;
+      lines.push([rated !== undefined ? formatShaftPower(rated, units, locale) : undefined, cls].filter(Boolean).join(', '));
+      break;
+    }
+    case 'cable': {
+      const length = num(e['length']);
+      const conductor = rec(e['conductor']);
+      const size = conductor ? (conductor['size'] === 'auto' ? 'size chosen' : String(conductor['size'] ?? '')) : undefined;
+      const r = num(e['resistancePerKm']);
+      lines.push([length !== undefined ? formatLength(length, units, locale) : undefined, size ?? (r !== undefined ? `${r} Ω/km` : undefined)].filter(Boolean).join(', '));
+      break;
+    }
+    case 'dc-load':
+    case 'shaft-load': {
+      const p = num(e['power']);
+      if (p !== undefined) lines.push(e.kind === 'shaft-load' ? formatShaftPower(p, units, locale) : formatPower(p, locale));
+      break;
+    }
+    case 'ac-load':
+    case 'ac-va-load': {
+      const p = num(e.kind === 'ac-load' ? e['power'] : e['apparentPower']);
+      const pf = num(e['powerFactor']);
+      lines.push(
+        [p !== undefined ? (e.kind === 'ac-load' ? formatPower(p, locale) : formatApparent(p, locale)) : undefined, pf !== undefined ? `pf ${pf}` : undefined]
+          .filter(Boolean)
+          .join(', '),
+      );
+      break;
+    }
+    case 'network-load':
+      lines.push(e['connection'] ? `R, L, C in ${String(e['connection'])}` : 'R, L, C network');
+      break;
+    case 'pump':
+      lines.push(e['control'] === 'speed' ? 'speed control' : 'throttled');
+      if (num(e['ratedHead']) !== undefined) lines.push(`head ${formatLength(num(e['ratedHead'])!, units, locale)}`);
+      break;
+    default:
+      break;
+  }
+  return lines.filter((x): x is string => typeof x === 'string' && x.length > 0).slice(0, 2);
+}
+
+/** The key result of a solved element in one line: what it delivers or uses, and its loss. */
+export function keyResult(r: ElementResult, units: UnitSystem, locale: string | undefined): string {
+  const power = (w: number, shaft: boolean) => (shaft ? formatShaftPower(w, units, locale) : formatPower(w, locale));
+  if (r.role === 'load') return `uses ${power(r.pOut, r.input?.kind === 'shaft')}`;
+  const out = power(r.pOut, r.output?.kind === 'shaft');
+  if (r.role === 'source') return `delivers ${out}`;
+  return `out ${out} · loss ${formatPower(r.loss, locale)}`;
+}
+
+export interface StageCardProps {
+  element: DraftElement;
+  input: FeedingPort | undefined;
+  result: ElementResult | undefined;
+  /** Results are the last valid ones, not those of the inputs shown. */
+  stale: boolean;
+  problems: number;
+  selected: boolean;
+  tabIndex: 0 | -1;
+  units: UnitSystem;
+  locale: string | undefined;
+  onSelect: (id: string, how: 'pointer' | 'keyboard') => void;
+  onFocus: (id: string) => void;
+}
+
+export function StageCard(props: StageCardProps) {
+  const { element: e, result, problems } = props;
+  const name = (typeof e.name === 'string' && e.name) || e.id;
+  const inputs = keyInputs(e, props.input, props.units, props.locale);
+  const classes = ['stage-card'];
+  if (problems > 0) classes.push('stage-card--problem');
+  if (props.stale) classes.push('stage-card--stale');
+  return (
+    <button
+      type="button"
+      class={classes.join(' ')}
+      data-card-id={e.id}
+      data-testid="stage-card"
+      aria-pressed={props.selected}
+      tabIndex={props.tabIndex}
+      onClick={(ev) => props.onSelect(e.id, ev.detail === 0 ? 'keyboard' : 'pointer')}
+      onFocus={() => props.onFocus(e.id)}
+    >
+      <span class="stage-card__name">{name}</span>
+      <span class="stage-card__kind">{elementKindLabel(e.kind)}</span>
+      {inputs.map((line, i) => (
+        <span key={i} class="stage-card__input">
+          {line}
+        </span>
+      ))}
+      {result && (
+        <span class="stage-card__result" data-testid="stage-card-result">
+          {keyResult(result, props.units, props.locale)}
+          {props.stale && <span class="visually-hidden"> (out of date)</span>}
+        </span>
+      )}
+      {problems > 0 && (
+        <span class="stage-card__problem" data-testid="stage-card-problem">
+          <svg viewBox="0 0 16 16" width="14" height="14" aria-hidden="true" focusable="false">
+            <path d="M8 1.5 15 14.5H1Z" fill="none" stroke="currentColor" stroke-width="1.8" stroke-linejoin="round" />
+            <path d="M8 6v4.2M8 11.8v.9" stroke="currentColor" stroke-width="1.8" stroke-linecap="round" />
+          </svg>
+          {problems === 1 ? '1 problem' : `${problems} problems`}
+        </span>
+      )}
+    </button>
+  );
+}

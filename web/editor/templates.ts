@@ -1,0 +1,359 @@
+/**
+ * Default elements for the chain editor: what a new element of each kind starts as, given the port
+ * that will feed it, and the sources a new project can start from.
+ *
+ * Every value here is a demo default, common practice (no source): a starting point the user edits
+ * in the stage form, not a recommendation. Each template is checked by tests/web/templates.test.ts:
+ * added after a sensible feeder, the chain solves; where it would not, it is not offered.
+ *
+ * The ports used to choose a template are NOMINAL (set-points and ratings read from the elements:
+ * a transformer's secondary voltage, an inverter's output voltage), not solved values; nothing here
+ * computes an engineering result. The pump template's flow is chosen with the engine's own
+ * shaft-power function (core/machines/flow-control.ts).
+ */
+import type { ElementKind, PortKind } from '../../core/model.ts';
+import { KINDS } from '../../core/stages/index.ts';
+import { bankValues, checkBank } from '../../core/battery/bank.ts';
+import { pumpShaftPower } from '../../core/machines/flow-control.ts';
+import type { BatteryBankSpec } from '../../core/model.ts';
+import type { DraftElement, DraftProject } from '../state/editor.ts';
+
+/** A port as the templates see it: its kind and, when known, nominal voltage (line-to-line on 3φ) and frequency. */
+export interface FeedingPort {
+  kind: PortKind;
+  voltage?: number;
+  frequency?: number;
+}
+
+/** Where a new element will go: the port that feeds it, the project (for its conventions) and the feeder. */
+export interface TemplateContext {
+  port: FeedingPort;
+  project?: DraftProject;
+  feeder?: DraftElement;
+}
+
+/** Every kind that can be added to a chain (sources start a project instead). */
+export const ADDABLE_KINDS: readonly ElementKind[] = [...KINDS.values()].filter((k) => k.role !== 'source').map((k) => k.kind);
+
+const num = (v: unknown): number | undefined => (typeof v === 'number' && Number.isFinite(v) ? v : undefined);
+
+/** US customary voltages on AC sources (common practice (no source)). */
+const US_VOLTAGES = new Set([120, 208, 240, 277, 480, 600]);
+
+/**
+ * Does the project follow North American practice (conductors from the NEC tables, 60 Hz,
+ * US service voltages)? Decides NEC vs IEC conductors and 60 vs 50 Hz for new stages.
+ */
+export function followsUsPractice(project: DraftProject | undefined): boolean {
+  if (!project) return false;
+  for (const e of project.elements) {
+    const conductor = e['conductor'] as Record<string, unknown> | undefined;
+    if (conductor && (conductor['system'] === 'nec' || /AWG|kcmil/i.test(String(conductor['size'] ?? '')))) return true;
+    if (conductor && conductor['system'] === 'iec') return false;
+  }
+  const source = project.elements.find((e) => e.kind === 'grid' || e.kind === 'generator');
+  if (source) return num(source['frequency']) === 60 || US_VOLTAGES.has(num(source['voltage']) ?? 0);
+  return project.elements.some((e) => e.kind === 'inverter' && num(e['frequency']) === 60);
+}
+
+/** The mains frequency of the project: its AC source's, else its first inverter's, else 60 Hz for US practice and 50 Hz otherwise. */
+export function projectFrequency(project: DraftProject | undefined): 50 | 60 {
+  const source = project?.elements.find((e) => e.kind === 'grid' || e.kind === 'generator');
+  const f = num(source?.['frequency']) ?? num(project?.elements.find((e) => e.kind === 'inverter')?.['frequency']);
+  if (f === 50 || f === 60) return f;
+  return followsUsPractice(project) ? 60 : 50;
+}
+
+function bankVoltage(bank: unknown): number | undefined {
+  if (typeof bank !== 'object' || bank === null) return undefined;
+  const spec = bank as BatteryBankSpec;
+  try {
+    if (checkBank(spec).length) return undefined;
+    return bankValues(spec).values.nominalCellVoltage * spec.series * (spec.cellsPerBlock ?? 1);
+  } catch {
+    return undefined;
+  }
+}
+
+const acKind = (phases: unknown): PortKind => (phases === 3 ? 'ac3' : 'ac1');
+
+/**
+ * The nominal output port of an element fed at `input` (null for loads and for kinds or data it
+ * cannot read). Read from the element's own set-points: this is what the element is meant to give.
+ */
+export function nominalOutput(e: DraftElement, input: FeedingPort | null): FeedingPort | null {
+  const withV = (kind: PortKind, voltage: number | undefined, frequency?: number): FeedingPort => ({
+    kind,
+    ...(voltage !== undefined ? { voltage } : {}),
+    ...(frequency !== undefined ? { frequency } : {}),
+  });
+  switch (e.kind) {
+    case 'grid':
+    case 'generator':
+      return withV(acKind(e['phases']), num(e['voltage']), num(e['frequency']));
+    case 'battery':
+      return withV('dc', num(e['voltage']) ?? bankVoltage(e['bank']));
+    case 'rectifier':
+    case 'dcdc':
+      return withV('dc', num(e['outputVoltage']));
+    case 'dcbus':
+      return input && input.kind === 'dc' ? input : withV('dc', undefined);
+    case 'cable':
+      return input && input.kind !== 'shaft' ? input : null;
+    case 'inverter':
+      return withV(acKind(e['phases']), num(e['outputVoltage']), num(e['frequency']));
+    case 'transformer':
+      return input && (input.kind === 'ac1' || input.kind === 'ac3') ? withV(input.kind, num(e['secondaryVoltage']), input.frequency) : null;
+    case 'drive':
+      return withV('ac3', num(e['outputVoltage']), num(e['outputFrequency']));
+    case 'motor':
+      return { kind: 'shaft' };
+    case 'generic': {
+      const k = e['outputKind'];
+      if (k !== 'dc' && k !== 'ac1' && k !== 'ac3') return null;
+      return withV(k, num(e['outputVoltage']), k === 'dc' ? undefined : num(e['outputFrequency']));
+    }
+    default:
+      return null;
+  }
+}
+
+/** The nominal output port of every element of the project, walking from its source (loops and orphans are left out). */
+export function nominalPorts(project: DraftProject): Map<string, FeedingPort> {
+  const out = new Map<string, FeedingPort>();
+  const inputs = new Map<string, FeedingPort | null>();
+  const root = project.elements.find((e) => e.from === undefined);
+  if (!root) return out;
+  const seen = new Set<string>();
+  const walk = (e: DraftElement, input: FeedingPort | null) => {
+    if (seen.has(e.id)) return;
+    seen.add(e.id);
+    inputs.set(e.id, input);
+    const port = nominalOutput(e, input);
+    if (!port) return;
+    out.set(e.id, port);
+    for (const child of project.elements) if (child.from === e.id) walk(child, port);
+  };
+  walk(root, null);
+  return out;
+}
+
+/** Round to a tidy number of watts for a default (two significant figures). */
+const tidy = (w: number) => Number(w.toPrecision(2));
+
+/** The rated output of a motor feeding a shaft port, if it can be read. */
+function motorRating(feeder: DraftElement | undefined): number | undefined {
+  return feeder?.kind === 'motor' ? num(feeder['ratedOutput']) : undefined;
+}
+
+/** A shaft load that a motor of this rating carries comfortably: 70 % of rated, at most 5 kW. */
+function shaftPowerFor(feeder: DraftElement | undefined): number {
+  const rated = motorRating(feeder);
+  return rated === undefined ? 5000 : tidy(Math.min(5000, 0.7 * rated));
+}
+
+function cableTemplate(project: DraftProject | undefined): DraftElement {
+  const conductor = followsUsPractice(project)
+    ? { system: 'nec', material: 'copper', size: 'auto', insulationRating: 75 }
+    : { system: 'iec', material: 'copper', size: 'auto', insulation: 'pvc', installationMethod: 'C' };
+  return { id: 'cable', kind: 'cable', length: 10, conductor };
+}
+
+const constantLoss = (efficiency: number, ratedPower?: number) => ({ model: 'constant', efficiency, ...(ratedPower !== undefined ? { ratedPower } : {}) });
+
+/** Pump curve defaults: 30 m rated head, 38 m shut-off, 75 % efficiency, 8 m static head (common practice (no source)). */
+const PUMP = { ratedHead: 30, shutoffHead: 38, efficiency: 0.75, staticHead: 8 } as const;
+const PUMP_FLOWS = [0.001, 0.002, 0.005, 0.01, 0.02, 0.05, 0.1] as const;
+
+function pumpTemplate(feeder: DraftElement | undefined): DraftElement {
+  const budget = motorRating(feeder) === undefined ? 5000 : 0.8 * motorRating(feeder)!;
+  // The largest listed rated flow whose shaft power at the rated point fits the motor (engine's formula).
+  const ratedFlow =
+    [...PUMP_FLOWS].reverse().find((q) => pumpShaftPower({ ...PUMP, ratedFlow: q }, q, PUMP.ratedHead) <= budget) ?? PUMP_FLOWS[0];
+  return { id: 'pump', kind: 'pump', ...PUMP, ratedFlow, flow: Number((0.9 * ratedFlow).toPrecision(3)), control: 'throttle' };
+}
+
+/**
+ * The default element of `kind` for a new element fed at `ctx.port`, or null when the kind cannot
+ * take that port (or has no sensible default there). Ids are bases: the editor makes them unique.
+ */
+export function templateFor(kind: ElementKind, ctx: TemplateContext): DraftElement | null {
+  const { port, project, feeder } = ctx;
+  const ac = port.kind === 'ac1' || port.kind === 'ac3';
+  const f = port.frequency === 50 || port.frequency === 60 ? port.frequency : projectFrequency(project);
+  const us = followsUsPractice(project) || f === 60;
+  let t: DraftElement | null = null;
+  switch (kind) {
+    case 'inverter':
+      if (port.kind === 'dc') {
+        const mains = projectFrequency(project);
+        t = { id: 'inverter', kind, phases: 1, outputVoltage: mains === 60 ? 120 : 230, frequency: mains, loss: constantLoss(0.95) };
+      }
+      break;
+    case 'dcdc':
+      if (port.kind === 'dc') t = { id: 'dcdc', kind, outputVoltage: (port.voltage ?? 48) <= 14 ? 24 : 12, loss: constantLoss(0.94) };
+      break;
+    case 'dcbus':
+      if (port.kind === 'dc') t = { id: 'dc-bus', kind, fixedLoss: 5 };
+      break;
+    case 'rectifier':
+      if (ac) t = { id: 'charger', kind, outputVoltage: 48, inputPowerFactor: 0.95, loss: constantLoss(0.92) };
+      break;
+    case 'transformer':
+      if (ac) {
+        const primary = port.voltage ?? (port.kind === 'ac3' ? (us ? 480 : 400) : us ? 240 : 230);
+        const secondary = us ? (port.kind === 'ac3' ? 208 : 120) : port.kind === 'ac3' ? 400 : 230;
+        // A 15 kVA dry-type unit: about 0.7 % no-load and 2.3 % load loss, 4 % impedance (common practice (no source)).
+        t = { id: 'transformer', kind, ratedApparentPower: 15000, primaryVoltage: primary, secondaryVoltage: secondary, noLoadLoss: 100, loadLoss: 350, impedancePercent: 4 };
+      }
+      break;
+    case 'drive':
+      if (ac) {
+        const out = port.kind === 'ac3' && port.voltage !== undefined ? port.voltage : 230;
+        t = { id: 'drive', kind, outputVoltage: out, outputFrequency: f, inputPowerFactor: 0.95, loss: constantLoss(0.97, 11000) };
+      }
+      break;
+    case 'motor':
+      if (ac) {
+        // IE3 (IEC 60034-30-1) on 50 Hz, NEMA Premium (MG 1 Table 12-12) on 60 Hz: the presets carry 4-pole motors.
+        const three = port.kind === 'ac3';
+        const ratedOutput = f === 60 ? (three ? 7457 : 1491) : three ? 7500 : 2200; // 10 hp / 2 hp; 7.5 kW / 2.2 kW
+        t = { id: 'motor', kind, ratedOutput, efficiencyClass: f === 60 ? 'NEMA-premium' : 'IE3', poles: 4, ratedFrequency: f };
+      }
+      break;
+    case 'cable':
+      if (port.kind !== 'shaft') t = cableTemplate(project);
+      break;
+    case 'generic':
+      if (port.kind !== 'shaft') {
+        t = {
+          id: 'converter',
+          kind,
+          inputKind: port.kind,
+          outputKind: 'dc',
+          outputVoltage: 24,
+          ...(ac ? { inputPowerFactor: 0.95 } : {}),
+          loss: constantLoss(0.93),
+        };
+      }
+      break;
+    case 'dc-load':
+      if (port.kind === 'dc') t = { id: 'dc-load', kind, power: 100 };
+      break;
+    case 'ac-load':
+      if (ac) t = { id: 'load', kind, power: 500, powerFactor: 0.9 };
+      break;
+    case 'ac-va-load':
+      if (ac) t = { id: 'load', kind, apparentPower: 1000, powerFactor: 0.8 };
+      break;
+    case 'network-load':
+      if (ac) t = { id: 'rl-load', kind, network: { series: [{ resistor: '50 Ω' }, { inductor: '50 mH' }] } };
+      break;
+    case 'shaft-load':
+      if (port.kind === 'shaft') t = { id: 'shaft-load', kind, power: shaftPowerFor(feeder) };
+      break;
+    case 'pump':
+      if (port.kind === 'shaft') t = pumpTemplate(feeder);
+      break;
+    default:
+      t = null;
+  }
+  if (!t) return null;
+  // The engine's own word on the port kinds this element accepts.
+  const spec = KINDS.get(kind);
+  return spec && spec.role !== 'source' && spec.accepts(t as never).includes(port.kind) ? t : null;
+}
+
+/** The kinds offered after a port, with their templates, in the registry's order. */
+export function templatesAfter(ctx: TemplateContext): { kind: ElementKind; element: DraftElement }[] {
+  const out: { kind: ElementKind; element: DraftElement }[] = [];
+  for (const kind of ADDABLE_KINDS) {
+    const element = templateFor(kind, ctx);
+    if (element) out.push({ kind, element });
+  }
+  return out;
+}
+
+/** Does `element` accept a port of this kind (the engine's accepts)? */
+export function acceptsPort(element: DraftElement, kind: PortKind): boolean {
+  const spec = KINDS.get(element.kind as ElementKind);
+  if (!spec) return false;
+  try {
+    return spec.accepts(element as never).includes(kind);
+  } catch {
+    return false;
+  }
+}
+
+/** The chain operations that add an element. */
+export type AddOperation = 'after' | 'branch' | 'before';
+
+/**
+ * What can be added at `targetId` by an add operation, each with its template:
+ * - "branch": fed from the target (a new branch);
+ * - "after": fed from the target, feeding what the target fed (its output must suit all of them);
+ * - "before": fed from the target's feeder, feeding the target.
+ * Loads are offered only where nothing would be fed from them; a motor shaft that already drives a
+ * load is offered no second branch.
+ */
+export function offeredTemplates(project: DraftProject, op: AddOperation, targetId: string): { kind: ElementKind; element: DraftElement }[] {
+  const target = project.elements.find((e) => e.id === targetId);
+  if (!target) return [];
+  const ports = nominalPorts(project);
+  const feederId = op === 'before' ? target.from : target.id;
+  if (feederId === undefined) return [];
+  const feeder = project.elements.find((e) => e.id === feederId);
+  const port = ports.get(feederId);
+  if (!port || !feeder) return [];
+  // A shaft drives one load here: a second one would share a motor sized for the first.
+  if (op === 'branch' && port.kind === 'shaft' && project.elements.some((e) => e.from === feederId)) return [];
+  const fed = op === 'after' ? project.elements.filter((e) => e.from === target.id) : op === 'before' ? [target] : [];
+  return templatesAfter({ port, project, feeder }).filter(({ kind, element }) => {
+    if (fed.length === 0) return true;
+    if (KINDS.get(kind)!.role === 'load') return false;
+    // The new element's output must suit everything downstream of it, through pass-through stages (cables, buses).
+    const out = nominalOutput(element, port);
+    return out !== null && fed.every((child) => subtreeFits(project, child, out));
+  });
+}
+
+/** Does every element from `e` down accept the port it would be fed at, starting with `input` at `e`? */
+function subtreeFits(project: DraftProject, e: DraftElement, input: FeedingPort, seen = new Set<string>()): boolean {
+  if (seen.has(e.id)) return true;
+  seen.add(e.id);
+  if (!acceptsPort(e, input.kind)) return false;
+  const children = project.elements.filter((c) => c.from === e.id);
+  if (children.length === 0) return true;
+  const out = nominalOutput(e, input);
+  return out !== null && children.every((c) => subtreeFits(project, c, out, seen));
+}
+
+/** A source a new project can start from. */
+export interface SourceTemplate {
+  key: string;
+  label: string;
+  element: DraftElement;
+}
+
+/** Sources for a new project (demo defaults, common practice (no source)). */
+export const SOURCE_TEMPLATES: readonly SourceTemplate[] = [
+  { key: 'grid-3-400', label: 'Utility supply, 3φ 400 V 50 Hz', element: { id: 'supply', name: '400 V supply', kind: 'grid', phases: 3, voltage: 400, frequency: 50 } },
+  { key: 'grid-1-230', label: 'Utility supply, 1φ 230 V 50 Hz', element: { id: 'supply', name: '230 V supply', kind: 'grid', phases: 1, voltage: 230, frequency: 50 } },
+  {
+    key: 'grid-1-240-60',
+    // Split-phase 120/240 V is modelled across the two lines (240 V); 120 V loads go behind a transformer or as their share.
+    label: 'Utility supply, 1φ 120/240 V 60 Hz',
+    element: { id: 'supply', name: '120/240 V service', kind: 'grid', phases: 1, voltage: 240, frequency: 60 },
+  },
+  { key: 'grid-3-480-60', label: 'Utility supply, 3φ 480 V 60 Hz', element: { id: 'supply', name: '480 V service', kind: 'grid', phases: 3, voltage: 480, frequency: 60 } },
+  {
+    key: 'generator',
+    label: 'Generator, 3φ 400 V 50 Hz, 20 kVA',
+    element: { id: 'generator', name: '20 kVA generator', kind: 'generator', phases: 3, voltage: 400, frequency: 50, resistance: 0.05, reactance: 0.4, ratedApparentPower: 20000 },
+  },
+  {
+    key: 'battery-48',
+    label: 'Battery bank, 48 V LiFePO4 (16 × 100 Ah)',
+    element: { id: 'bank', name: '48 V LiFePO4 bank', kind: 'battery', bank: { chemistry: 'lifepo4', series: 16, strings: 1, capacityAh: 100 } },
+  },
+];
