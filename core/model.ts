@@ -70,6 +70,23 @@ export interface AcSource extends ElementBase {
   reactance?: number;
   /** Rated apparent power, VA (optional; a warning is given when exceeded). */
   ratedApparentPower?: number;
+  // Surges and faults (core/surge/); all optional.
+  /** Generator subtransient reactance X''d, % on its rating (motor-start dip, fault current). */
+  subtransientReactancePercent?: number;
+  /** Largest transient voltage dip allowed while a motor starts, % (generator; default 15 %, common practice). */
+  maxDipPercent?: number;
+  /** Grid: available short-circuit power S''kQ at the supply point, VA (IEC 60909 feeder impedance Z_Q = c·U²/S''kQ). */
+  shortCircuitPower?: number;
+  /** Grid: R/X of that short-circuit impedance (default 0.1, IEC 60909-0 6.2). */
+  shortCircuitRToX?: number;
+  /** Voltage tolerance of the low-voltage system, % (6 → c_max 1.05, 10 → c_max 1.10, IEC 60909-0 Table 1; default 10). */
+  voltageTolerancePercent?: 6 | 10;
+}
+
+/** A protective device (fuse or breaker) and its interrupting rating (breaking capacity), A. */
+export interface ProtectiveDevice {
+  /** Highest prospective current the device can interrupt, A (DC rating on a DC circuit). */
+  interruptingRating: number;
 }
 
 /**
@@ -107,6 +124,8 @@ export interface BatterySource extends ElementBase {
   internalResistance?: number;
   /** Cells, strings and chemistry of the bank. */
   bank?: BatteryBankSpec;
+  /** The fuse or breaker at the bank terminals (checked against the bank's prospective short-circuit current). */
+  bankFuse?: ProtectiveDevice;
 }
 
 export type Source = AcSource | BatterySource;
@@ -144,6 +163,10 @@ export interface InverterStage extends FedElement {
   outputVoltage: number;
   frequency: number;
   loss: LossModel;
+  /** Surge rating: apparent power the inverter can deliver for a short time, VA, and for how long, s. */
+  surge?: { apparentPower: number; durationSeconds: number };
+  /** DC input voltage at which the inverter shuts down, V (checked during a motor start). */
+  lowVoltageCutoff?: number;
 }
 
 /**
@@ -194,6 +217,8 @@ export interface DriveStage extends FedElement {
   motorRatedFrequency?: number;
   /** Input current total harmonic distortion THD_i, a fraction (0.35 = 35 %): true pf = displacement/√(1+THD²). */
   currentThd?: number;
+  /** Output rating the maker allows on a single-phase supply, VA (a three-phase drive fed single-phase is derated). */
+  singlePhaseRating?: number;
 }
 
 /** Efficiency-class presets: IEC 60034-30-1 (4-pole 50 Hz) or NEMA Premium (MG 1 Table 12-12, 4-pole 60 Hz). */
@@ -225,6 +250,32 @@ export interface MotorStage extends FedElement {
   ratedPowerFactor?: number;
   /** Service factor, ≥ 1 (default 1.0): loads above rated warn, loads above SF × rated are refused. */
   serviceFactor?: number;
+  /** How the motor starts (core/surge/): starting current, method and the voltage it needs. */
+  starting?: MotorStarting;
+}
+
+/**
+ * Motor starting data. The locked-rotor current comes from at most one of `codeLetter` (NEC Table
+ * 430.7(B), kVA per hp), `startingCurrentRatio` (IEC I_A/I_N) or `lockedRotorCurrent`; with none, a
+ * common-practice 6 × full-load current is assumed (and said so).
+ */
+export interface MotorStarting {
+  /** direct-on-line, star-delta (⅓ current and torque), soft starter (current limit), drive (about 1.5 × FLC). */
+  method: 'dol' | 'star-delta' | 'soft-starter' | 'drive';
+  /** NEC locked-rotor indicating code letter A–V (no I, O, Q). */
+  codeLetter?: string;
+  /** Locked-rotor current / rated current, I_A/I_N (IEC motor data). */
+  startingCurrentRatio?: number;
+  /** Locked-rotor current at rated voltage, A. */
+  lockedRotorCurrent?: number;
+  /** Soft starter current limit, × full-load current (default 3.5, common practice). */
+  currentLimit?: number;
+  /** Power factor at locked rotor (default by size, 0.2–0.4, common practice). */
+  startingPowerFactor?: number;
+  /** Time to reach speed, s (default by method, common practice). */
+  startSeconds?: number;
+  /** Lowest voltage at the motor terminals during the start, % of rated (default 80 %, common practice). */
+  minTerminalVoltagePercent?: number;
 }
 
 /** NEC raceway type, for the reactance (and AC resistance) columns of NEC Chapter 9 Table 9. */
@@ -292,6 +343,11 @@ export interface CableStage extends FedElement {
   conductor?: ConductorSpec;
   /** Number of identical conductor sets in parallel (default 1). */
   parallelSets?: number;
+  /**
+   * The fuse or breaker at the sending end of this link (the device conductor sizing rates in
+   * `ConductorResult.device`): its interrupting rating is checked against the prospective fault current there.
+   */
+  protection?: ProtectiveDevice;
 }
 
 /** A stage with user-chosen input and output kinds (a regulating converter of any sort). */

@@ -10,6 +10,7 @@ import type { BatteryBankSpec, BatterySource } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { CHEMISTRIES } from '../data/battery-chemistries.ts';
 import { checkBank, resolveBank } from '../battery/bank.ts';
+import { protectiveDeviceSchema } from '../surge/schema.ts';
 import { defineKind, idField, nameField, nonNegative, positive } from './spec.ts';
 import { seriesLink } from './spec.ts';
 
@@ -64,6 +65,7 @@ export const batteryKind = defineKind<BatterySource>({
     voltage: positive('V').optional(),
     internalResistance: nonNegative('Ω').optional(),
     bank: bankSchema.optional(),
+    bankFuse: protectiveDeviceSchema.optional(),
   }) as z.ZodType<BatterySource>,
   check(e) {
     if (!e.bank) {

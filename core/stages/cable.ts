@@ -8,6 +8,7 @@
 import { z } from 'zod';
 import type { CableStage } from '../model.ts';
 import { c } from '../ac/complex.ts';
+import { protectiveDeviceSchema } from '../surge/schema.ts';
 import { defineKind, fromField, idField, nameField, nonNegative, positive, seriesLink } from './spec.ts';
 
 const rating = z.union([z.literal(60), z.literal(75), z.literal(90)], { error: 'must be 60, 75 or 90 (°C)' });
@@ -62,6 +63,7 @@ export const cableKind = defineKind<CableStage>({
     reactancePerKm: nonNegative('Ω/km').optional(),
     conductor: conductorSchema.optional(),
     parallelSets: z.number({ error: 'must be a number' }).int('must be a whole number').gte(1, 'must be at least 1').optional(),
+    protection: protectiveDeviceSchema.optional(),
   }) as z.ZodType<CableStage>,
   check(e) {
     // Exactly one way of giving the impedance.

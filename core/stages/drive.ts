@@ -58,6 +58,7 @@ export const driveKind = defineKind<DriveStage>({
     standardLoss: standardLossSchema.optional(),
     motorRatedFrequency: positive('Hz').optional(),
     currentThd: z.number({ error: 'must be a number' }).gte(0, 'must not be negative').lte(3, 'must not exceed 3 (enter 0.35 for 35 %)').optional(),
+    singlePhaseRating: positive('VA').optional(),
   }) as z.ZodType<DriveStage>,
   check(e) {
     if ((e.loss === undefined) === (e.standardLoss === undefined)) {

@@ -6,6 +6,7 @@
 import { z } from 'zod';
 import type { AcSource } from '../model.ts';
 import { c } from '../ac/complex.ts';
+import { sourceFaultFields } from '../surge/schema.ts';
 import { defineKind, fmtW, idField, nameField, nonNegative, perPhase, phases, positive, seriesLink } from './spec.ts';
 
 const schema = z.strictObject({
@@ -18,6 +19,7 @@ const schema = z.strictObject({
   resistance: nonNegative('Ω').optional(),
   reactance: nonNegative('Ω').optional(),
   ratedApparentPower: positive('VA').optional(),
+  ...sourceFaultFields,
 });
 
 const spec = (kind: 'grid' | 'generator') =>

@@ -1,6 +1,7 @@
 /** Inverter: DC in, regulated single- or three-phase AC out. */
 import { z } from 'zod';
 import type { InverterStage } from '../model.ts';
+import { surgeSchema } from '../surge/schema.ts';
 import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, phases, positive, regulatingConverter } from './spec.ts';
 
 export const inverterKind = defineKind<InverterStage>({
@@ -16,6 +17,8 @@ export const inverterKind = defineKind<InverterStage>({
     outputVoltage: positive('V'),
     frequency: positive('Hz'),
     loss: lossModelSchema,
+    surge: surgeSchema.optional(),
+    lowVoltageCutoff: positive('V').optional(),
   }) as z.ZodType<InverterStage>,
   check: (e) => checkLossModel(e.loss),
   build: (e) =>

@@ -17,6 +17,7 @@ import { c } from '../ac/complex.ts';
 import { prepareLoss, interpolate } from './loss-model.ts';
 import { checkLossModel, checkPoints, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
 import { MOTOR_CLASSES, motorRating, ratedAt } from '../machines/motor-rating.ts';
+import { checkStarting, startingSchema } from '../surge/schema.ts';
 
 const pfModel = z.discriminatedUnion(
   'model',
@@ -72,6 +73,7 @@ export const motorKind = defineKind<MotorStage>({
       .optional(),
     ratedPowerFactor: unitFraction('power factor').optional(),
     serviceFactor: z.number({ error: 'must be a number' }).gte(1, 'must be at least 1 (1.15 is common on NEMA motors)').lte(2, 'must not exceed 2').optional(),
+    starting: startingSchema.optional(),
   }) as z.ZodType<MotorStage>,
   check(e) {
     const given = [e.loss !== undefined || e.powerFactor !== undefined, e.efficiencyClass !== undefined, e.nameplate !== undefined].filter(Boolean).length;
@@ -86,7 +88,7 @@ export const motorKind = defineKind<MotorStage>({
       return problems;
     }
     const r = motorRating(e);
-    return r.ok ? [] : r.problems;
+    return [...(r.ok ? [] : r.problems), ...checkStarting(e.starting)];
   },
   build(e, input) {
     const sf = e.serviceFactor ?? 1;

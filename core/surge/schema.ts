@@ -1,0 +1,59 @@
+/**
+ * Schemas of the optional surge and fault fields on existing element kinds (motor `starting`,
+ * inverter `surge`, source fault data, protective devices). Kept here so each kind's file gains
+ * one line; the kinds' own schemas stay strict.
+ */
+import { z } from 'zod';
+import type { MotorStarting } from '../model.ts';
+import type { Problem } from '../errors.ts';
+import { CODE_LETTERS } from '../data/motor-code-letters.ts';
+
+const num = () => z.number({ error: 'must be a number' });
+const positive = (unit: string) => num().gt(0, `must be greater than 0 ${unit}`.trim());
+
+export const protectiveDeviceSchema = z.strictObject({
+  interruptingRating: positive('A (the interrupting rating, or breaking capacity, from the device maker)'),
+});
+
+export const surgeSchema = z.strictObject({
+  apparentPower: positive('VA'),
+  durationSeconds: positive('s (how long the inverter holds its surge rating)'),
+});
+
+export const startingSchema = z.strictObject({
+  method: z.enum(['dol', 'star-delta', 'soft-starter', 'drive'], { error: 'must be "dol", "star-delta", "soft-starter" or "drive"' }),
+  codeLetter: z
+    .string({ error: 'must be a code letter' })
+    .refine((s) => (CODE_LETTERS as readonly string[]).includes(s), {
+      message: `is not a locked-rotor code letter of NEC Table 430.7(B); expected one of ${CODE_LETTERS.join(', ')} (I, O and Q are not used)`,
+    })
+    .optional(),
+  startingCurrentRatio: num().gt(1, 'must be above 1 (locked-rotor current / rated current, typically 5–8)').lte(20, 'must not exceed 20').optional(),
+  lockedRotorCurrent: positive('A').optional(),
+  currentLimit: num().gt(1, 'must be above 1 (a multiple of full-load current, typically 3–4)').lte(10, 'must not exceed 10').optional(),
+  startingPowerFactor: num().gt(0, 'must be greater than 0').lt(1, 'must be below 1 (typically 0.2–0.4 at locked rotor)').optional(),
+  startSeconds: positive('s').optional(),
+  minTerminalVoltagePercent: num().gt(0, 'must be greater than 0 %').lt(100, 'must be below 100 %').optional(),
+});
+
+/** At most one source of the locked-rotor current; a current limit belongs to a soft starter. */
+export function checkStarting(s: MotorStarting | undefined): Omit<Problem, 'elementId'>[] {
+  if (!s) return [];
+  const given = (['codeLetter', 'startingCurrentRatio', 'lockedRotorCurrent'] as const).filter((k) => s[k] !== undefined);
+  if (given.length > 1) {
+    return [{ code: 'invalid-value', field: `starting.${given[1]}`, value: s[given[1]!], message: `give only one of starting.codeLetter, starting.startingCurrentRatio and starting.lockedRotorCurrent (both ${given.join(' and ')} are given)` }];
+  }
+  if (s.currentLimit !== undefined && s.method !== 'soft-starter') {
+    return [{ code: 'invalid-value', field: 'starting.currentLimit', value: s.currentLimit, message: `a current limit belongs to a soft starter; this motor starts by "${s.method}"` }];
+  }
+  return [];
+}
+
+/** Fault and dip fields shared by the grid and generator kinds. */
+export const sourceFaultFields = {
+  subtransientReactancePercent: positive('% (X\u2033d on the generator rating, typically 10–25 %)').lte(100, 'must not exceed 100 %').optional(),
+  maxDipPercent: positive('%').lt(100, 'must be below 100 %').optional(),
+  shortCircuitPower: positive('VA').optional(),
+  shortCircuitRToX: num().gte(0, 'must not be negative').lte(10, 'must not exceed 10').optional(),
+  voltageTolerancePercent: z.union([z.literal(6), z.literal(10)], { error: 'must be 6 or 10 (% tolerance of the low-voltage system, IEC 60909-0 Table 1)' }).optional(),
+};

@@ -1,0 +1,134 @@
+/**
+ * The surge and fault study's result: plain data, JSON-serialisable, SI units (V, A, VA, Ω, s);
+ * percentages as % numbers. Shaped for the CLI (`--json` key `surgeStudy`) and the page.
+ */
+import type { Problem } from '../errors.ts';
+import type { SolveWarning } from '../result.ts';
+
+export type StartMethod = 'dol' | 'star-delta' | 'soft-starter' | 'drive';
+export type StartVerdict = 'starts' | 'marginal' | 'will-not-start';
+export type CheckStatus = 'pass' | 'marginal' | 'fail';
+
+/** One limit a start is checked against. */
+export interface StartCheck {
+  name: 'terminal-voltage' | 'inverter-surge' | 'surge-duration' | 'inverter-cutoff' | 'generator-dip';
+  /** Element the limit belongs to (the motor, the inverter, the generator). */
+  elementId: string;
+  label: string;
+  value: number;
+  limit: number;
+  unit: string;
+  /** "at-least" (value must not fall below the limit) or "at-most". */
+  sense: 'at-least' | 'at-most';
+  /** value/limit (at-most) or limit/value (at-least): above 1 fails, above 1 − 10 % is marginal. */
+  utilisation: number;
+  status: CheckStatus;
+  /** Where the limit comes from (entered, or the common-practice default). */
+  limitSource: string;
+}
+
+export interface MotorStartResult {
+  motorId: string;
+  name: string;
+  method: StartMethod;
+  /** Rated voltage the starting figures are referred to, V (line-to-line on three-phase). */
+  ratedVoltage: number;
+  ratedVoltageSource: string;
+  phases: 1 | 3;
+  fullLoadCurrent: number;
+  fullLoadCurrentSource: string;
+  /** Direct-on-line locked-rotor current at rated voltage, A, and where it comes from. */
+  lockedRotorCurrent: number;
+  lockedRotorSource: string;
+  /** Line current the chosen method draws at rated voltage, A, and as a multiple of FLC. */
+  startingCurrent: number;
+  startingMultiple: number;
+  startingPowerFactor: number;
+  startingPowerFactorSource: string;
+  /** Starting apparent power at rated voltage, VA. */
+  startingApparentPower: number;
+  startSeconds: number;
+  startSecondsSource: string;
+  /** Solved chain during the start (null when the chain cannot deliver the starting power). */
+  duringStart: {
+    terminalVoltage: number;
+    terminalVoltagePercent: number;
+    /** Line current drawn at the motor terminals during the start, A. */
+    terminalCurrent: number;
+    /** Each cable from the nearest source or converter down to the motor: drop at starting current and pf. */
+    cableDrops: { id: string; dropVolts: number; dropPercent: number }[];
+    cableDropTotalPercent: number;
+  } | null;
+  inverter?: {
+    id: string;
+    /** Apparent power the inverter delivers during the start (the other loads running), VA. */
+    apparentPower: number;
+    surgeRating?: number;
+    surgeSeconds?: number;
+    continuousRating?: number;
+    /** DC voltage at its input during the start, V. */
+    inputVoltage?: number;
+    lowVoltageCutoff?: number;
+    battery?: { id: string; current: number; internalResistance: number; dipVolts: number; terminalVoltage: number; openCircuitVoltage: number };
+  };
+  generator?: {
+    id: string;
+    /** Starting kVA of the motor at rated voltage against the generator's rating. */
+    startingApparentPower: number;
+    ratedApparentPower?: number;
+    startingToRating?: number;
+    subtransientReactancePercent?: number;
+    /** Transient dip by the per-unit divider ΔV = X''d·S_start / (S_gen + X''d·S_start), %. */
+    dipPercent?: number;
+    maxDipPercent: number;
+  };
+  checks: StartCheck[];
+  verdict: StartVerdict;
+  /** The governing reason, in words. */
+  governing: string;
+  /** The methods used, in words (with their sources or "common practice"). */
+  methodText: string;
+  notes: string[];
+}
+
+/** Prospective short-circuit current at one point. */
+export interface FaultPoint {
+  /** The element whose terminals (source) or far end (cable) or secondary (transformer) this is. */
+  elementId: string;
+  location: 'source terminals' | 'bank terminals' | 'far end' | 'secondary terminals';
+  portKind: 'dc' | 'ac1' | 'ac3';
+  /** Nominal voltage used (DC: open-circuit voltage), V. */
+  voltage: number;
+  /** Resistance (DC) or |impedance| (AC, per phase or loop) from the source to the point, Ω. */
+  impedance: number;
+  /** R and X of that impedance (AC), Ω. */
+  r: number;
+  x: number;
+  /** Prospective current, A; null when it cannot be computed (reason in `note`). */
+  current: number | null;
+  note?: string;
+}
+
+export interface DeviceCheck {
+  elementId: string;
+  field: string;
+  /** Where the device sits and which fault it must interrupt. */
+  location: string;
+  interruptingRating: number;
+  prospectiveCurrent: number | null;
+  status: 'adequate' | 'too-weak' | 'unknown';
+  /** The interrupting rating needed (at least the prospective current), A, when too weak. */
+  requiredRating?: number;
+  message: string;
+}
+
+export interface SurgeStudyResult {
+  starts: MotorStartResult[];
+  batteryFaults: { method: string; points: FaultPoint[] };
+  acFaults: { method: string; voltageFactor: number | null; points: FaultPoint[] };
+  devices: DeviceCheck[];
+  warnings: SolveWarning[];
+  cautions: string[];
+}
+
+export type SurgeOutcome = { ok: true; result: SurgeStudyResult } | { ok: false; problems: Problem[] };
