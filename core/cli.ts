@@ -7,6 +7,10 @@
  * `backupStudy`, shaped as BackupStudyResult in core/battery/study.ts).
  * `--correct-pf <id>:<target>` adds the capacitor bank that raises that element's interface to the
  * target power factor and the before/after comparison (with --json under `pfCorrection`).
+ * `--surges` (automatic when the project has starting data, surge ratings, protective devices or
+ * fault data) adds the surge and fault study: motor starting verdicts, battery and AC fault
+ * currents, device checks, trap warnings and cautions (with --json under `surgeStudy`, shaped as
+ * SurgeStudyResult in core/surge/types.ts).
  */
 import { readFileSync } from 'node:fs';
 import { formatProblem, type Problem } from './errors.ts';
@@ -17,8 +21,9 @@ import { formatBackupStudy } from './battery/text-report.ts';
 import { correctPowerFactor, type PfCorrection } from './ac/pf-correction.ts';
 import { formatPfCorrection, parseCorrectPfFlag, pfCorrectionJson } from './ac/text-report.ts';
 import { MACHINE_USAGE, hasPumpSections, machineSections, takeMachineFlags } from './machines/cli-flags.ts';
+import { formatSurgeStudy, hasSurgeInputs, studySurges, type SurgeStudyResult } from './surge/index.ts';
 
-const USAGE = `usage: npm run solve -- <project.json> [--json] [--correct-pf <elementId>:<target power factor>] ${MACHINE_USAGE}`;
+const USAGE = `usage: npm run solve -- <project.json> [--json] [--correct-pf <elementId>:<target power factor>] [--surges] ${MACHINE_USAGE}`;
 
 function fail(lines: readonly string[]): never {
   for (const l of lines) process.stderr.write(`${l}\n`);
@@ -36,8 +41,9 @@ function main(args: readonly string[]): void {
   if (pfFlag && !pfFlag.ok) fail([pfFlag.message, USAGE]);
   const argv = pfAt >= 0 ? args.filter((_, i) => i !== pfAt && i !== pfAt + 1) : args;
   const json = argv.includes('--json');
+  const surgesFlag = argv.includes('--surges');
   const files = argv.filter((a) => !a.startsWith('--'));
-  const unknown = argv.filter((a) => a.startsWith('--') && a !== '--json');
+  const unknown = argv.filter((a) => a.startsWith('--') && a !== '--json' && a !== '--surges');
   if (files.length !== 1 || unknown.length) fail([USAGE]);
   const file = files[0]!;
   let text: string;
@@ -76,11 +82,17 @@ function main(args: readonly string[]): void {
   }
   const machines = mach.machines || mach.flowFile !== undefined || hasPumpSections(data) ? machineSections(data, mach.machines, flowData) : undefined;
   if (machines && !machines.ok) fail([`${file}: ${machines.heading}`, ...machines.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
+  let surges: SurgeStudyResult | undefined;
+  if (surgesFlag || hasSurgeInputs(data)) {
+    const s = studySurges(data);
+    if (!s.ok) fail([`${file}: the surge and fault study cannot be run:`, ...s.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
+    surges = s.result;
+  }
   if (json) {
-    const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}) };
+    const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}) };
     process.stdout.write(`${JSON.stringify({ ...outcome.result, ...extra }, null, 2)}\n`);
   } else {
-    process.stdout.write(`${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}`);
+    process.stdout.write(`${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}`);
   }
 }
 
