@@ -129,6 +129,7 @@ export type Quantity =
   | 'speed'
   | 'capacity'
   | 'time'
+  | 'seconds'
   | 'count'
   | 'ohm-ah'
   | 'c-rate';
@@ -214,6 +215,7 @@ const UNITS: Readonly<Record<Quantity, { si: InputUnit; us: InputUnit }>> = {
   speed: { si: same('rpm', 'revolutions per minute'), us: same('rpm', 'revolutions per minute') },
   capacity: { si: same('Ah', 'ampere-hours'), us: same('Ah', 'ampere-hours') },
   time: { si: same('h', 'hours'), us: same('h', 'hours') },
+  seconds: { si: same('s', 'seconds'), us: same('s', 'seconds') },
   count: { si: same('', ''), us: same('', '') },
   'ohm-ah': { si: same('Ω·Ah', 'ohm ampere-hours'), us: same('Ω·Ah', 'ohm ampere-hours') },
   'c-rate': { si: same('C', 'times the rated capacity per hour'), us: same('C', 'times the rated capacity per hour') },
