@@ -92,6 +92,28 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
         expect(Number(await path.getAttribute('data-watts'))).toBe(widest.watts);
         expect(await path.getAttribute('aria-label')).toContain(expected);
 
+        // Idle and conversion parts: one dashed idle branch per element with idle loss, beside its conversion branch.
+        const idleLinks = g.links.filter((l) => l.part === 'idle' && l.watts > 1e-9 * g.sourcePower);
+        expect(await svg.locator('path.flow__link[data-part="idle"]').count()).toBe(idleLinks.length);
+        for (const l of idleLinks) {
+          expect(Number(await svg.locator(`path.flow__link[data-part="idle"][data-source="${l.source}"]`).getAttribute('data-watts'))).toBe(l.watts);
+        }
+        // No two labels drawn overlap each other (labels that do not fit are left out; their figures stay in the details).
+        const overlaps = (await page.evaluate(`(() => {
+          const boxes = [...document.querySelectorAll('[data-testid="flow-svg"] text')].map((t) => {
+            const b = t.getBBox();
+            return { t: t.textContent, x0: b.x, y0: b.y, x1: b.x + b.width, y1: b.y + b.height };
+          });
+          const out = [];
+          for (let i = 0; i < boxes.length; i++)
+            for (let j = i + 1; j < boxes.length; j++) {
+              const a = boxes[i], b = boxes[j];
+              if (a.x0 < b.x1 - 1 && b.x0 < a.x1 - 1 && a.y0 < b.y1 - 1 && b.y0 < a.y1 - 1) out.push(a.t + ' / ' + b.t);
+            }
+          return out;
+        })()`)) as string[];
+        expect(overlaps, `overlapping labels on ${demo.id} (${label})`).toEqual([]);
+
         const text = await page.getByTestId('energy-flow').innerText();
         expect(text).not.toMatch(/NaN|undefined|Infinity/);
         const overflow = await page.evaluate('document.documentElement.scrollWidth - window.innerWidth');
@@ -116,8 +138,11 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
       // Hover a loss branch: the details line names the element and its loss.
       const loss = g.links.filter((l) => l.role === 'loss').sort((a, b) => b.watts - a.watts)[0]!;
       const lossName = g.nodes.find((n) => n.id === loss.source)!.name;
-      await page.locator(`path.flow__link[data-role="loss"][data-source="${loss.source}"]`).hover({ force: true });
-      await expect.poll(() => details.innerText()).toContain(`Loss in ${lossName}: ${formatPower(loss.watts, 'en-US')}`);
+      await page.locator(`path.flow__link[data-role="loss"][data-source="${loss.source}"][data-part="${loss.part}"]`).hover({ force: true });
+      // The details name the part (idle, conversion, or a cable's loss), the element and the watts of that part.
+      const partWords = loss.part === 'idle' ? 'Idle loss' : g.nodes.find((n) => n.id === loss.source)!.kind === 'cable' ? 'Loss' : 'Conversion loss';
+      await expect.poll(() => details.innerText()).toContain(`${partWords} in ${lossName} (`);
+      expect(await details.innerText()).toContain(`: ${formatPower(loss.watts, 'en-US')} · `);
 
       // Tap (click) a load block.
       const load = g.nodes.find((n) => n.role === 'load')!;

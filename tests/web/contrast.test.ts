@@ -96,3 +96,51 @@ describe.each(Object.entries(THEMES))('the %s theme', (name, colours) => {
     expect(contrastRatio(colours[fg]!, colours[bg]!)).toBeGreaterThanOrEqual(3);
   });
 });
+
+// The energy-flow diagram's palettes (web/components/flow-palette.ts): text 4.5:1 (SC 1.4.3) on the
+// diagram's background and on the loss band; blocks, loss branches and the selection 3:1 (SC 1.4.11);
+// branches checked at the opacity they are drawn with (alpha compositing over the background).
+import { FLOW_PALETTES, PAPER_THEME } from '../../web/components/flow-palette.ts';
+import { blend } from '../../web/format/contrast.ts';
+
+describe('blend', () => {
+  it('gives the background at 0, the colour at 1 and the channel mean at 0.5 (source-over compositing)', () => {
+    expect(blend('#204060', '#ffffff', 0)).toBe('#ffffff');
+    expect(blend('#204060', '#ffffff', 1)).toBe('#204060');
+    expect(blend('#000000', '#ffffff', 0.5)).toBe('#808080'); // 127.5 rounds to 128
+  });
+});
+
+describe.each(Object.entries(FLOW_PALETTES))('the %s energy-flow palette', (_name, p) => {
+  const c = p.colours;
+  it.each([
+    ['ink', 'background'],
+    ['inkMuted', 'background'],
+    ['ink', 'band'],
+    ['inkMuted', 'band'],
+  ] as const)('text %s on %s reaches 4.5:1 (WCAG 2.2 SC 1.4.3)', (fg, bg) => {
+    expect(contrastRatio(c[fg], c[bg])).toBeGreaterThanOrEqual(4.5);
+  });
+
+  it.each(['source', 'stage', 'load', 'conversion', 'idle', 'lineLoss', 'selected'] as const)('block or key colour %s reaches 3:1 on the background and the band (SC 1.4.11)', (k) => {
+    expect(contrastRatio(c[k], c.background)).toBeGreaterThanOrEqual(3);
+    expect(contrastRatio(c[k], c.band)).toBeGreaterThanOrEqual(3);
+  });
+
+  it('draws feed branches at 3:1 and loss branches at 3:1 over the background at their opacity (SC 1.4.11)', () => {
+    expect(contrastRatio(blend(c.feed, c.background, p.feedOpacity), c.background)).toBeGreaterThanOrEqual(3);
+    for (const k of ['conversion', 'idle', 'lineLoss'] as const) {
+      expect(contrastRatio(blend(c[k], c.band, p.lossOpacity), c.band), k).toBeGreaterThanOrEqual(3);
+    }
+  });
+
+  it('keeps the feed, idle, conversion and cable colours apart from each other', () => {
+    const keys = ['feed', 'idle', 'conversion', 'lineLoss'] as const;
+    expect(new Set(keys.map((k) => c[k])).size).toBe(keys.length);
+  });
+});
+
+it('exports and prints in the light palette (white paper)', () => {
+  expect(PAPER_THEME).toBe('light');
+  expect(FLOW_PALETTES[PAPER_THEME].colours.background).toBe('#ffffff');
+});

@@ -13,28 +13,43 @@
  *
  * Colours are written as attributes (not CSS) so an exported SVG or PNG looks exactly as on screen.
  */
+/**
+ * The energy-flow diagram: a Sankey of the solved chain, source on the left, loads on the right,
+ * and every loss gathered in a band along the bottom ("where the energy goes" at a glance: the
+ * top carries what reaches the loads, the bottom what is lost). Each loss branch is split into its
+ * idle part (drawn even with nothing connected: dashed, plum) and its conversion part (grows with
+ * the load). Loaded on demand (App.tsx imports it with a dynamic import()), so d3-sankey is not part
+ * of the first load.
+ *
+ * Every figure comes from core's flowGraph(); this file lays out, colours and formats.
+ *
+ * Layout: d3-sankey places the power that flows on (sources, stages, loads and their feed links);
+ * the loss nodes are then set in the band under everything, each in the column after its element,
+ * so no loss label lands on a feed branch that passes through the column (the crowding a long
+ * branch caused when loss nodes shared the columns). Labels that would still overlap another label
+ * or a block are left out; their figures stay in the hover/tap/focus details and aria-labels.
+ *
+ * Phone layout: the diagram keeps its left-to-right reading (the same direction as the chain) and
+ * scrolls sideways inside its own box when the columns do not fit; squeezing the columns to 390 px
+ * would make the labels unreadable. Every node and link is reachable by Tab and by tap, and the
+ * details line under the diagram repeats the figures in full.
+ *
+ * Colours: the palette of the theme shown (flow-palette.ts), written as attributes with a
+ * data-fill/data-stroke key beside each, so that exported SVG/PNG files are repainted with the
+ * light palette (a file goes onto white paper) and the printed page gets the light palette from the
+ * print rules this component writes.
+ */
 import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { sankey, sankeyLinkHorizontal, type SankeyLink, type SankeyNode } from 'd3-sankey';
 import { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from '../../core/flow.ts';
 import type { ElementResult, SolveResult } from '../../core/result.ts';
 import { formatPercent, formatPower } from '../format/number.ts';
 import { elementKindLabel } from '../format/labels.ts';
-import { effectiveLocale } from '../state/prefs.ts';
+import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state/prefs.ts';
+import { FLOW_PALETTES, PAPER_THEME, type FlowPalette, type PaintKey } from './flow-palette.ts';
 import './EnergyFlow.css';
 
-/** Our palette: deep teal for power that flows on, vermilion for converter/source loss, ochre for line loss. */
-export const FLOW_COLOURS = {
-  background: '#ffffff',
-  ink: '#17201d',
-  inkMuted: '#45524c',
-  feed: '#2a7f8f',
-  stageLoss: '#d2452b',
-  lineLoss: '#b27a00',
-  source: '#12433b',
-  stage: '#3c5a66',
-  load: '#2f6b2a',
-  selected: '#1f6feb',
-} as const;
+export { FLOW_PALETTES } from './flow-palette.ts';
 
 const FONT = "system-ui, -apple-system, 'Segoe UI', Roboto, 'Noto Sans', sans-serif";
 const NODE_WIDTH = 14;
@@ -44,10 +59,16 @@ const COLUMN_WIDTH = 150;
 /** Room to the right of the last column for the loads' labels, px. */
 const RIGHT_LABELS = 150;
 const MARGIN = { top: 30, right: 12, bottom: 16, left: 12 };
+/** Space between the lowest feed and the loss band, px (the band's caption sits in it). */
+const BAND_GAP = 44;
+/** Height kept for one loss label (name, figures, idle part), px. */
+const LOSS_LABEL = 46;
 /** A link narrower than this (px) gets no label on it; its figures are on hover, tap and focus. */
 const LABEL_MIN_WIDTH = 15;
 /** Links carrying less than this share of the source power are not drawn (e.g. a stiff source's 0 W loss). */
 const ZERO_SHARE = 1e-9;
+/** Dash pattern of idle-loss branches and swatches: idle loss is told by pattern as well as colour. */
+const IDLE_DASH = '5 3';
 
 type NodeExtra = FlowNode & { index0: number };
 type LinkExtra = FlowLink & { key: string; value: number };
@@ -72,15 +93,20 @@ function drawnLinks(g: FlowGraph): FlowLink[] {
   return g.links.filter((l) => l.watts > floor);
 }
 
-function lossColour(kind: FlowNode['kind']): string {
-  return kind === 'cable' ? FLOW_COLOURS.lineLoss : FLOW_COLOURS.stageLoss;
+const linkKey = (l: FlowLink) => `${l.source}→${l.target}${l.part ? `:${l.part}` : ''}`;
+
+/** Paint key of a link: feed, idle loss, or conversion loss (cables: line loss). */
+function linkPaint(l: { role: FlowLink['role']; part?: FlowLink['part'] }, sourceKind: FlowNode['kind']): PaintKey {
+  if (l.role === 'feed') return 'feed';
+  if (l.part === 'idle') return 'idle';
+  return sourceKind === 'cable' ? 'lineLoss' : 'conversion';
 }
 
-function nodeColour(n: FlowNode): string {
-  if (n.role === 'loss') return lossColour(n.kind);
-  if (n.role === 'source') return FLOW_COLOURS.source;
-  if (n.role === 'load') return FLOW_COLOURS.load;
-  return FLOW_COLOURS.stage;
+function nodePaint(n: FlowNode): PaintKey {
+  if (n.role === 'loss') return n.kind === 'cable' ? 'lineLoss' : 'conversion';
+  if (n.role === 'source') return 'source';
+  if (n.role === 'load') return 'load';
+  return 'stage';
 }
 
 const figures = (watts: number, percent: number, loc: string | undefined) => `${formatPower(watts, loc)} · ${formatPercent(percent / 100, loc, 3)}`;
@@ -95,44 +121,96 @@ interface Layout {
   nodes: LaidNode[];
   links: LaidLink[];
   columns: number;
+  /** Top of the loss band, px (absent when nothing loses power). */
+  bandTop?: number;
 }
 
+/**
+ * Steps: (1) columns from the chain's depth (loads at the right edge, a loss node one column after
+ * its element); (2) d3-sankey lays out the power that flows on; (3) the loss nodes go into the band
+ * under it, stacked per column; (4) each loss link leaves the bottom of its element's block (the
+ * block's height is its input, so the part below its feed links is exactly its loss) and enters its
+ * loss node, idle part above conversion part.
+ */
 function layout(g: FlowGraph, minWidth: number): Layout | null {
   const links = drawnLinks(g);
   const used = new Set(links.flatMap((l) => [l.source, l.target]));
+  for (const n of g.nodes) if (n.role === 'source') used.add(n.id);
   // Copies: d3-sankey writes its layout into the objects it is given.
   const nodes: NodeExtra[] = g.nodes.filter((n) => used.has(n.id)).map((n, index0) => ({ ...n, index0 }));
   if (nodes.length === 0) return null;
-  const linkCopies: LinkExtra[] = links.map((l) => ({ ...l, key: `${l.source}→${l.target}`, value: l.watts }));
+  const all: LinkExtra[] = links.map((l) => ({ ...l, key: linkKey(l), value: l.watts }));
+  const feedLinks = all.filter((l) => l.role === 'feed');
+  const lossLinks = all.filter((l) => l.role === 'loss');
 
-  // Columns and rows before the real layout: the column count sets the width, the busiest column the height.
+  // (1) Columns.
   const depth = new Map<string, number>();
   for (const n of nodes) if (n.role === 'source') depth.set(n.id, 0);
-  for (const l of linkCopies) depth.set(l.target, (depth.get(l.source) ?? 0) + 1);
+  for (const l of all) depth.set(l.target, (depth.get(l.source) ?? 0) + 1);
   const columns = Math.max(...depth.values()) + 1;
+  const column = (n: FlowNode) => (n.role === 'load' ? columns - 1 : (depth.get(n.id) ?? 0));
+  const flowNodes = nodes.filter((n) => n.role !== 'loss');
+  const lossNodes = nodes.filter((n) => n.role === 'loss');
   const perColumn = new Map<number, number>();
-  for (const n of nodes) {
-    const c = n.role === 'load' ? columns - 1 : (depth.get(n.id) ?? 0);
-    perColumn.set(c, (perColumn.get(c) ?? 0) + 1);
-  }
+  for (const n of flowNodes) perColumn.set(column(n), (perColumn.get(column(n)) ?? 0) + 1);
   const busiest = Math.max(...perColumn.values());
   const width = Math.max(minWidth, MARGIN.left + (columns - 1) * COLUMN_WIDTH + NODE_WIDTH + RIGHT_LABELS + MARGIN.right);
-  const height = Math.max(280, busiest * (NODE_PADDING + 22) + 120);
+  const flowHeight = Math.max(200, busiest * (NODE_PADDING + 22) + 60);
 
+  // (2) The power that flows on.
   const generator = sankey<NodeExtra, LinkExtra>()
     .nodeId((n) => n.id)
     .nodeWidth(NODE_WIDTH)
     .nodePadding(NODE_PADDING)
-    // Loads at the right edge; a loss node in the column after the element that loses the power.
     .nodeAlign((n, count) => (n.role === 'load' ? count - 1 : (n.depth ?? 0)))
-    // Within a column: the chain's own order, loss nodes below the power that flows on.
-    .nodeSort((a, b) => Number(a.role === 'loss') - Number(b.role === 'loss') || a.index0 - b.index0)
+    .nodeSort((a, b) => a.index0 - b.index0)
     .extent([
       [MARGIN.left, MARGIN.top],
-      [width - MARGIN.right - RIGHT_LABELS, height - MARGIN.bottom],
+      [width - MARGIN.right - RIGHT_LABELS, MARGIN.top + flowHeight],
     ]);
-  const laid = generator({ nodes, links: linkCopies });
-  return { width, height, nodes: laid.nodes, links: laid.links, columns };
+  const laid = generator({ nodes: flowNodes, links: feedLinks });
+  // Pixels per watt: a block is as tall as its input (d3-sankey: the larger of in and out).
+  const ref = laid.nodes.find((n) => (n.value ?? 0) > 0);
+  const ky = ref ? ((ref.y1 ?? 0) - (ref.y0 ?? 0)) / (ref.value ?? 1) : 0;
+  const xOf = (c: number) => MARGIN.left + c * COLUMN_WIDTH;
+  for (const n of laid.nodes) {
+    n.x0 = xOf(column(n));
+    n.x1 = n.x0 + NODE_WIDTH;
+    // The source's block also carries its own loss, which leaves it below its feeds.
+    if (n.role === 'source') n.y1 = (n.y0 ?? 0) + Math.max((n.y1 ?? 0) - (n.y0 ?? 0), n.watts * ky);
+  }
+  if (lossNodes.length === 0) return { width, height: MARGIN.top + flowHeight + MARGIN.bottom, nodes: laid.nodes, links: laid.links, columns };
+
+  // (3) The loss band.
+  const flowBottom = Math.max(...laid.nodes.map((n) => n.y1 ?? 0));
+  const bandTop = flowBottom + BAND_GAP;
+  const nextY = new Map<number, number>();
+  const placedLoss: LaidNode[] = lossNodes.map((n) => {
+    const c = Math.min(column(n), columns - 1);
+    const y0 = nextY.get(c) ?? bandTop;
+    const h = n.watts * ky;
+    nextY.set(c, y0 + Math.max(h, LOSS_LABEL) + 10);
+    const x0 = xOf(c);
+    return { ...n, x0, x1: x0 + NODE_WIDTH, y0, y1: y0 + h, sourceLinks: [], targetLinks: [] } as LaidNode;
+  });
+  const byId = new Map<string, LaidNode>([...laid.nodes, ...placedLoss].map((n) => [n.id, n]));
+
+  // (4) Loss links: below the feeds at the element, idle above conversion at the loss node.
+  const outUsed = new Map<string, number>();
+  for (const n of laid.nodes) outUsed.set(n.id, (n.sourceLinks ?? []).reduce((a, l) => a + (l.width ?? 0), 0));
+  const inUsed = new Map<string, number>();
+  const laidLoss: LaidLink[] = lossLinks.map((l) => {
+    const from = byId.get(l.source)!;
+    const to = byId.get(l.target)!;
+    const w = l.watts * ky;
+    const out = outUsed.get(from.id) ?? 0;
+    const inn = inUsed.get(to.id) ?? 0;
+    outUsed.set(from.id, out + w);
+    inUsed.set(to.id, inn + w);
+    return { ...l, source: from, target: to, width: w, y0: (from.y0 ?? 0) + out + w / 2, y1: (to.y0 ?? 0) + inn + w / 2 } as LaidLink;
+  });
+  const height = Math.max(...[...nextY.values()]) + MARGIN.bottom;
+  return { width, height, nodes: [...laid.nodes, ...placedLoss], links: [...laid.links, ...laidLoss], columns, bandTop };
 }
 
 /** A label's box, px (for keeping labels apart). */
@@ -146,15 +224,16 @@ interface Box {
 const overlaps = (a: Box, b: Box) => a.x0 < b.x1 && b.x0 < a.x1 && a.y0 < b.y1 && b.y0 < a.y1;
 /** Rough width of a 12 px label (system sans: about 0.58 em per character, bold a little wider). */
 const textWidth = (text: string, bold = false) => text.length * (bold ? 7.2 : 6.8);
+/** Characters of a bold name that fit in the gap between two columns. */
+const GAP_CHARS = Math.floor((COLUMN_WIDTH - NODE_WIDTH - 10) / 7.2);
 
 interface NodeLabel {
   id: string;
   x: number;
   y: number;
-  anchor: 'start' | 'end';
   name: string;
-  /** Figures line (sinks only: a stage's figures are on the link that feeds it). */
-  figures?: string;
+  /** Further lines (sinks only: a stage's figures are on the link that feeds it). */
+  lines: string[];
   box: Box;
 }
 
@@ -167,12 +246,15 @@ interface LinkLabel {
 
 /**
  * Labels: a source or stage is named just above its block (its figures are on the link into it);
- * a load or loss block gets its name and figures beside it. Link labels go on links wide enough to
- * hold the text, at the first point along the link (middle first) where they hit no other label;
- * a link with no such point keeps its figures for hover, tap and focus.
+ * a load or loss block gets its name and figures beside it (a loss also its idle part). Node labels
+ * are placed in order of importance (loads, then the source and stages, then losses by size) and
+ * one that would overlap a label already placed or a block is left out. Link labels go on links
+ * wide enough to hold the text, at the first point along the link (middle first) where they hit no
+ * other label; a label left out keeps its figures for hover, tap and focus.
  */
-function placeLabels(l: Layout, loc: string | undefined): { nodes: NodeLabel[]; links: LinkLabel[] } {
-  const nodes: NodeLabel[] = l.nodes.map((n) => {
+function placeLabels(l: Layout, loc: string | undefined): { nodes: NodeLabel[]; links: LinkLabel[]; hidden: number } {
+  const blocks: Box[] = l.nodes.map((n) => ({ x0: n.x0 ?? 0, y0: n.y0 ?? 0, x1: n.x1 ?? 0, y1: n.y1 ?? 0 }));
+  const candidates: (NodeLabel & { rank: number; ownBlock: number })[] = l.nodes.map((n, i) => {
     const x0 = n.x0 ?? 0;
     const x1 = n.x1 ?? 0;
     const y0 = n.y0 ?? 0;
@@ -180,17 +262,38 @@ function placeLabels(l: Layout, loc: string | undefined): { nodes: NodeLabel[]; 
     if (n.role === 'source' || n.role === 'stage') {
       const name = shorten(n.name, 19);
       const y = y0 - 7;
-      return { id: n.id, x: x0, y, anchor: 'start', name, box: { x0, y0: y - 12, x1: x0 + textWidth(name, true), y1: y + 3 } };
+      return { id: n.id, x: x0, y, name, lines: [], box: { x0, y0: y - 12, x1: x0 + textWidth(name, true), y1: y + 3 }, rank: 1, ownBlock: i };
     }
     // Every sink is labelled to its right: in the gap before the next column, or in the room kept after the last.
     const x = x1 + 6;
-    const y = (y0 + y1) / 2;
-    const name = n.role === 'loss' ? `Loss: ${shorten(n.name, 14)}` : shorten(n.name, 19);
-    const fig = figures(n.watts, n.percent, loc);
-    const w = Math.max(textWidth(name, true), textWidth(fig));
-    return { id: n.id, x, y, anchor: 'start', name, figures: fig, box: { x0: x, y0: y - 16, x1: x + w, y1: y + 14 } };
+    const lines = [figures(n.watts, n.percent, loc)];
+    let name: string;
+    let y: number;
+    if (n.role === 'loss') {
+      name = shorten(n.name, GAP_CHARS);
+      if ((n.idleWatts ?? 0) > 0) lines.push(`idle ${formatPower(n.idleWatts!, loc)}`);
+      y = y0 + 11; // the band: labels read down from the block's top
+    } else {
+      name = shorten(n.name, 19);
+      y = (y0 + y1) / 2 - 7;
+    }
+    const w = Math.max(textWidth(name, true), ...lines.map((t) => textWidth(t)));
+    const box = { x0: x, y0: y - 12, x1: x + w, y1: y + 3 + 15 * lines.length };
+    return { id: n.id, x, y, name, lines, box, rank: n.role === 'load' ? 0 : 2 + 1 / (1 + n.watts), ownBlock: i };
   });
-  const placed: Box[] = [...nodes.map((n) => n.box), ...l.nodes.map((n) => ({ x0: n.x0 ?? 0, y0: n.y0 ?? 0, x1: n.x1 ?? 0, y1: n.y1 ?? 0 }))];
+  const placed: Box[] = [];
+  const nodes: NodeLabel[] = [];
+  let hidden = 0;
+  for (const c of [...candidates].sort((a, b) => a.rank - b.rank)) {
+    const hitsBlock = blocks.some((b, i) => i !== c.ownBlock && overlaps(b, c.box));
+    if (hitsBlock || placed.some((b) => overlaps(b, c.box)) || c.box.x1 > l.width) {
+      hidden++;
+      continue;
+    }
+    placed.push(c.box);
+    nodes.push({ id: c.id, x: c.x, y: c.y, name: c.name, lines: c.lines, box: c.box });
+  }
+  placed.push(...blocks);
   const links: LinkLabel[] = [];
   for (const link of [...l.links].sort((a, b) => (b.width ?? 0) - (a.width ?? 0))) {
     if ((link.width ?? 0) < LABEL_MIN_WIDTH) continue;
@@ -213,7 +316,7 @@ function placeLabels(l: Layout, loc: string | undefined): { nodes: NodeLabel[]; 
       break;
     }
   }
-  return { nodes, links };
+  return { nodes, links, hidden };
 }
 
 type Selection = { type: 'node'; id: string } | { type: 'link'; key: string } | null;
@@ -225,19 +328,27 @@ function nodeOf(x: LaidLink['source']): LaidNode {
 function linkText(l: LaidLink, loc: string | undefined): string {
   const from = nodeOf(l.source);
   const to = nodeOf(l.target);
-  if (l.role === 'loss') return `Loss in ${from.name}: ${figures(l.watts, l.percent, loc)} of the source power`;
+  if (l.role === 'loss') {
+    if (l.part === 'idle') return `Idle loss in ${from.name} (drawn even with no load): ${figures(l.watts, l.percent, loc)} of the source power`;
+    return `${from.kind === 'cable' ? 'Loss' : 'Conversion loss'} in ${from.name} (grows with the load): ${figures(l.watts, l.percent, loc)} of the source power`;
+  }
   return `${from.name} to ${to.name}: ${figures(l.watts, l.percent, loc)} of the source power`;
 }
 
 function nodeText(n: LaidNode, element: ElementResult | undefined, loc: string | undefined): string {
-  if (n.role === 'loss') return `Loss in ${n.name}: ${figures(n.watts, n.percent, loc)} of the source power`;
+  if (n.role === 'loss') {
+    const idle = n.idleWatts ?? 0;
+    const split = idle > 0 ? ` (idle ${formatPower(idle, loc)}, conversion ${formatPower(n.watts - idle, loc)})` : '';
+    return `Loss in ${n.name}: ${figures(n.watts, n.percent, loc)} of the source power${split}`;
+  }
   if (!element) return `${n.name}: ${figures(n.watts, n.percent, loc)}`;
   const kind = elementKindLabel(element.kind);
   if (n.role === 'load') return `${n.name} (${kind}, load): uses ${figures(element.pIn, n.percent, loc)} of the source power`;
   const what = n.role === 'source' ? 'delivers' : 'takes in';
+  const idle = element.idleLoss ? ` (${formatPower(element.idleLoss, loc)} of it idle)` : '';
   return (
     `${n.name} (${kind}): ${what} ${figures(element.pIn, n.percent, loc)} of the source power, gives out ${formatPower(element.pOut, loc)}, ` +
-    `loses ${formatPower(element.loss, loc)}, efficiency ${formatPercent(element.efficiency, loc)}`
+    `loses ${formatPower(element.loss, loc)}${idle}, efficiency ${formatPercent(element.efficiency, loc)}`
   );
 }
 
@@ -254,50 +365,106 @@ async function download(blob: Blob, fileName: string): Promise<void> {
   setTimeout(() => URL.revokeObjectURL(url), 10_000);
 }
 
-/** The diagram as standalone SVG text (focus outlines and page-only attributes removed). */
-const EXPORT_HEADER = 52;
+/** Paint every element that carries a palette key with the given palette. */
+function repaint(root: Element, palette: FlowPalette): void {
+  root.querySelectorAll('[data-fill]').forEach((el) => el.setAttribute('fill', palette.colours[el.getAttribute('data-fill') as PaintKey]));
+  root.querySelectorAll('[data-stroke]').forEach((el) => el.setAttribute('stroke', palette.colours[el.getAttribute('data-stroke') as PaintKey]));
+  root.querySelectorAll('[data-opacity]').forEach((el) =>
+    el.setAttribute('stroke-opacity', String(el.getAttribute('data-opacity') === 'feed' ? palette.feedOpacity : palette.lossOpacity)),
+  );
+}
 
-function svgText(svg: SVGSVGElement, title: string): string {
+interface LegendItem {
+  paint: PaintKey;
+  label: string;
+  dashed?: boolean;
+}
+
+const LEGEND: readonly LegendItem[] = [
+  { paint: 'feed', label: 'Power passed on' },
+  { paint: 'idle', label: 'Idle loss: drawn even with no load', dashed: true },
+  { paint: 'conversion', label: 'Conversion loss: grows with the load' },
+  { paint: 'lineLoss', label: 'Loss in a cable' },
+];
+
+const EXPORT_ROW = 16;
+
+/** Legend rows of an exported file, wrapped to its width. */
+function exportLegendRows(width: number): { item: LegendItem; x: number; row: number }[] {
+  const out: { item: LegendItem; x: number; row: number }[] = [];
+  let x = 12;
+  let row = 0;
+  for (const item of LEGEND) {
+    const w = 24 + item.label.length * 6.2 + 18;
+    if (x > 12 && x + w > width) {
+      x = 12;
+      row++;
+    }
+    out.push({ item, x, row });
+    x += w;
+  }
+  return out;
+}
+
+const exportHeader = (width: number, summary: string | null) =>
+  40 + EXPORT_ROW * (Math.max(...exportLegendRows(width).map((r) => r.row)) + 1) + (summary ? EXPORT_ROW : 0);
+
+/** The diagram as standalone SVG text in the paper palette (focus outlines and page-only attributes removed). */
+function svgText(svg: SVGSVGElement, title: string, summary: string | null): string {
   const NS = 'http://www.w3.org/2000/svg';
+  const paper = FLOW_PALETTES[PAPER_THEME];
   const copy = svg.cloneNode(true) as SVGSVGElement;
   copy.querySelectorAll('[tabindex]').forEach((el) => el.removeAttribute('tabindex'));
   copy.querySelectorAll('[data-selected]').forEach((el) => el.removeAttribute('data-selected'));
+  repaint(copy, paper);
   copy.removeAttribute('class');
   copy.setAttribute('xmlns', NS);
-  // A file stands alone: a heading and the colour key above the diagram.
+  // A file stands alone: a heading, the colour key and the loss split above the diagram.
   const width = Number(svg.getAttribute('width'));
-  const height = Number(svg.getAttribute('height')) + EXPORT_HEADER;
+  const header = exportHeader(width, summary);
+  const height = Number(svg.getAttribute('height')) + header;
   copy.setAttribute('height', String(height));
   copy.setAttribute('viewBox', `0 0 ${width} ${height}`);
-  const body = copy.ownerDocument.createElementNS(NS, 'g');
-  body.setAttribute('transform', `translate(0 ${EXPORT_HEADER})`);
+  const doc = copy.ownerDocument;
+  const el = (name: string, attrs: Record<string, string>, text?: string) => {
+    const e = doc.createElementNS(NS, name);
+    for (const [k, v] of Object.entries(attrs)) e.setAttribute(k, v);
+    if (text !== undefined) e.textContent = text;
+    return e;
+  };
+  const body = el('g', { transform: `translate(0 ${header})` });
   for (const child of [...copy.childNodes]) if ((child as Element).localName !== 'title') body.append(child);
-  const head = copy.ownerDocument.createElementNS(NS, 'g');
-  const bg = copy.ownerDocument.createElementNS(NS, 'rect');
-  Object.entries({ x: '0', y: '0', width: String(width), height: String(height), fill: FLOW_COLOURS.background }).forEach(([k, v]) => bg.setAttribute(k, v));
-  const heading = copy.ownerDocument.createElementNS(NS, 'text');
-  Object.entries({ x: '12', y: '22', 'font-size': '15', 'font-weight': '700', fill: FLOW_COLOURS.ink }).forEach(([k, v]) => heading.setAttribute(k, v));
-  heading.textContent = title;
-  head.append(bg, heading);
-  let x = 12;
-  for (const item of LEGEND) {
-    const sw = copy.ownerDocument.createElementNS(NS, 'rect');
-    Object.entries({ x: String(x), y: '33', width: '18', height: '9', rx: '2', fill: item.colour }).forEach(([k, v]) => sw.setAttribute(k, v));
-    const t = copy.ownerDocument.createElementNS(NS, 'text');
-    Object.entries({ x: String(x + 24), y: '42', 'font-size': '11', fill: FLOW_COLOURS.inkMuted }).forEach(([k, v]) => t.setAttribute(k, v));
-    t.textContent = item.label;
-    head.append(sw, t);
-    x += 24 + item.label.length * 6.2 + 18;
+  const head = el('g', {});
+  head.append(el('rect', { x: '0', y: '0', width: String(width), height: String(height), fill: paper.colours.background }));
+  head.append(el('text', { x: '12', y: '22', 'font-size': '15', 'font-weight': '700', fill: paper.colours.ink }, title));
+  for (const { item, x, row } of exportLegendRows(width)) {
+    const y = 33 + row * EXPORT_ROW;
+    head.append(
+      el('line', {
+        x1: String(x),
+        x2: String(x + 18),
+        y1: String(y + 4.5),
+        y2: String(y + 4.5),
+        stroke: paper.colours[item.paint],
+        'stroke-width': '9',
+        ...(item.dashed ? { 'stroke-dasharray': IDLE_DASH } : {}),
+      }),
+    );
+    head.append(el('text', { x: String(x + 24), y: String(y + 9), 'font-size': '11', fill: paper.colours.inkMuted }, item.label));
+  }
+  if (summary) {
+    const rows = Math.max(...exportLegendRows(width).map((r) => r.row)) + 1;
+    head.append(el('text', { x: '12', y: String(42 + rows * EXPORT_ROW), 'font-size': '11', fill: paper.colours.ink }, summary));
   }
   copy.append(head, body);
   return `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
 }
 
 /** The SVG drawn onto a canvas at twice its size, as a PNG. */
-async function pngBlob(svg: SVGSVGElement, title: string): Promise<Blob> {
+async function pngBlob(svg: SVGSVGElement, title: string, summary: string | null): Promise<Blob> {
   const width = Number(svg.getAttribute('width'));
-  const height = Number(svg.getAttribute('height')) + EXPORT_HEADER;
-  const url = URL.createObjectURL(new Blob([svgText(svg, title)], { type: 'image/svg+xml' }));
+  const height = Number(svg.getAttribute('height')) + exportHeader(width, summary);
+  const url = URL.createObjectURL(new Blob([svgText(svg, title, summary)], { type: 'image/svg+xml' }));
   try {
     const img = new Image();
     img.src = url;
@@ -308,7 +475,7 @@ async function pngBlob(svg: SVGSVGElement, title: string): Promise<Blob> {
     canvas.height = Math.round(height * scale);
     const ctx = canvas.getContext('2d');
     if (!ctx) throw new Error('this browser gives no 2D canvas');
-    ctx.fillStyle = FLOW_COLOURS.background;
+    ctx.fillStyle = FLOW_PALETTES[PAPER_THEME].colours.background;
     ctx.fillRect(0, 0, canvas.width, canvas.height);
     ctx.drawImage(img, 0, 0, canvas.width, canvas.height);
     return await new Promise<Blob>((resolve, reject) =>
@@ -319,24 +486,47 @@ async function pngBlob(svg: SVGSVGElement, title: string): Promise<Blob> {
   }
 }
 
-const LEGEND = [
-  { colour: FLOW_COLOURS.feed, label: 'Power passed on' },
-  { colour: FLOW_COLOURS.stageLoss, label: 'Loss in the source or a converter' },
-  { colour: FLOW_COLOURS.lineLoss, label: 'Loss in a cable' },
-] as const;
+/**
+ * Print rules: the printed diagram takes the paper palette whatever the theme on screen (CSS
+ * declarations override the SVG's presentation attributes), fills the page width, and loses its
+ * scroll box, buttons and selection.
+ */
+function printRules(): string {
+  const p = FLOW_PALETTES[PAPER_THEME];
+  const keys = Object.keys(p.colours) as PaintKey[];
+  return [
+    '@media print {',
+    ...keys.map((k) => `.flow__svg [data-fill="${k}"] { fill: ${p.colours[k]}; }`),
+    ...keys.map((k) => `.flow__svg [data-stroke="${k}"] { stroke: ${p.colours[k]}; }`),
+    `.flow__svg [data-opacity="feed"] { stroke-opacity: ${p.feedOpacity}; }`,
+    `.flow__svg [data-opacity="loss"] { stroke-opacity: ${p.lossOpacity}; }`,
+    `.flow__box { background: ${p.colours.background} !important; }`,
+    ...LEGEND.map((i) => `.flow__swatch[data-paint="${i.paint}"] { border-top-color: ${p.colours[i.paint]} !important; }`),
+    '}',
+  ].join('\n');
+}
 
-function Legend() {
-  const items = LEGEND;
+function Legend({ palette }: { palette: FlowPalette }) {
   return (
     <ul class="flow__legend">
-      {items.map((i) => (
+      {LEGEND.map((i) => (
         <li key={i.label}>
-          <span class="flow__swatch" style={{ background: i.colour }} aria-hidden="true" />
+          <span
+            class={i.dashed ? 'flow__swatch flow__swatch--dashed' : 'flow__swatch'}
+            data-paint={i.paint}
+            style={{ borderTopColor: palette.colours[i.paint] }}
+            aria-hidden="true"
+          />
           {i.label}
         </li>
       ))}
     </ul>
   );
+}
+
+/** The theme the page shows now (the choice, or the device's setting). */
+export function shownTheme(): 'light' | 'dark' {
+  return resolveTheme(themeChoice.value, deviceDark.value);
 }
 
 export default function EnergyFlow({ result }: { result: SolveResult }) {
@@ -347,6 +537,8 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
   const [boxWidth, setBoxWidth] = useState(0);
   const [selected, setSelected] = useState<Selection>(null);
   const [exportError, setExportError] = useState<string | null>(null);
+  const palette = FLOW_PALETTES[shownTheme()];
+  const c = palette.colours;
 
   useEffect(() => {
     const box = boxRef.current;
@@ -364,6 +556,11 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
   const labels = useMemo(() => (laid ? placeLabels(laid, loc) : null), [laid, loc]);
   const zeroLoss = graph.nodes.filter((n) => n.role === 'loss' && !(n.watts > ZERO_SHARE * Math.abs(graph.sourcePower)));
   const stem = fileStem(result.projectName || 'joulepath-project');
+  const ls = graph.losses;
+  const summary =
+    graph.sourcePower !== 0
+      ? `Losses ${figures(ls.total.watts, ls.total.percent, loc)}: idle ${figures(ls.idle.watts, ls.idle.percent, loc)}, conversion ${figures(ls.conversion.watts, ls.conversion.percent, loc)}`
+      : null;
 
   let details = 'Point at, tap or Tab to a branch or a block to see its figures.';
   if (laid && selected?.type === 'link') {
@@ -377,13 +574,13 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
   async function exportSvg() {
     if (!svgRef.current) return;
     setExportError(null);
-    await download(new Blob([svgText(svgRef.current, title)], { type: 'image/svg+xml' }), `${stem}.svg`);
+    await download(new Blob([svgText(svgRef.current, title, summary)], { type: 'image/svg+xml' }), `${stem}.svg`);
   }
   async function exportPng() {
     if (!svgRef.current) return;
     setExportError(null);
     try {
-      await download(await pngBlob(svgRef.current, title), `${stem}.png`);
+      await download(await pngBlob(svgRef.current, title, summary), `${stem}.png`);
     } catch (error) {
       setExportError(`The PNG could not be made: ${error instanceof Error ? error.message : String(error)}. The SVG download still works.`);
     }
@@ -391,9 +588,11 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
 
   const path = sankeyLinkHorizontal<NodeExtra, LinkExtra>();
   const title = `Energy flow of ${result.projectName || 'the project'}`;
+  const halo = { stroke: c.background, 'data-stroke': 'background', 'stroke-width': '3', 'stroke-linejoin': 'round', 'paint-order': 'stroke' } as const;
 
   return (
-    <section class="flow" aria-labelledby="flow-heading" data-testid="energy-flow">
+    <section class="flow print-keep" aria-labelledby="flow-heading" data-testid="energy-flow">
+      <style>{printRules()}</style>
       <div class="flow__head">
         <h3 id="flow-heading">Where the energy goes</h3>
         <div class="flow__actions">
@@ -405,11 +604,17 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
           </button>
         </div>
       </div>
-      <Legend />
+      <Legend palette={palette} />
+      {summary && (
+        <p class="flow__summary" data-testid="flow-loss-split">
+          {summary}
+        </p>
+      )}
       <div
         class="flow__box"
         ref={boxRef}
         data-testid="flow-box"
+        style={{ background: c.background }}
         // Focusable so the sideways scroll on a narrow screen also works from the keyboard.
         tabIndex={0}
         role="region"
@@ -428,26 +633,40 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
             aria-label={title}
             font-family={FONT}
             data-testid="flow-svg"
+            data-hidden-labels={String(labels?.hidden ?? 0)}
           >
             <title>{title}</title>
-            <rect x="0" y="0" width={laid.width} height={laid.height} fill={FLOW_COLOURS.background} />
+            <rect x="0" y="0" width={laid.width} height={laid.height} fill={c.background} data-fill="background" />
+            {laid.bandTop !== undefined && (
+              <g>
+                <rect x="0" y={laid.bandTop - BAND_GAP / 2} width={laid.width} height={laid.height - laid.bandTop + BAND_GAP / 2} fill={c.band} data-fill="band" />
+                <text x={MARGIN.left} y={laid.bandTop - BAND_GAP / 2 + 17} font-size="12" font-weight="700" fill={c.inkMuted} data-fill="inkMuted">
+                  Losses
+                </text>
+              </g>
+            )}
             <g fill="none">
               {laid.links.map((l) => {
-                const colour = l.role === 'loss' ? lossColour(nodeOf(l.source).kind) : FLOW_COLOURS.feed;
+                const paint = linkPaint(l, nodeOf(l.source).kind);
                 const isSel = selected?.type === 'link' && selected.key === l.key;
                 const text = linkText(l, loc);
+                const isLoss = l.role === 'loss';
                 return (
                   <path
                     key={l.key}
                     d={path(l) ?? ''}
-                    stroke={isSel ? FLOW_COLOURS.selected : colour}
-                    stroke-opacity={isSel ? 0.75 : 0.5}
+                    stroke={isSel ? c.selected : c[paint]}
+                    data-stroke={isSel ? 'selected' : paint}
+                    stroke-opacity={isLoss ? palette.lossOpacity : palette.feedOpacity}
+                    data-opacity={isLoss ? 'loss' : 'feed'}
                     stroke-width={Math.max(1, l.width ?? 1)}
+                    stroke-dasharray={l.part === 'idle' && (l.width ?? 0) >= 2 ? IDLE_DASH : undefined}
                     class="flow__link"
                     tabIndex={0}
                     role="img"
                     aria-label={text}
                     data-role={l.role}
+                    data-part={l.part}
                     data-source={nodeOf(l.source).id}
                     data-target={nodeOf(l.target).id}
                     data-watts={String(l.watts)}
@@ -464,10 +683,13 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
                 const x0 = n.x0 ?? 0;
                 const x1 = n.x1 ?? 0;
                 const y0 = n.y0 ?? 0;
-                const y1 = n.y1 ?? 0;
+                const h = Math.max(2, (n.y1 ?? 0) - y0);
                 const isSel = selected?.type === 'node' && selected.id === n.id;
                 const label = labels?.nodes.find((x) => x.id === n.id);
                 const text = nodeText(n, elements.get(n.elementId), loc);
+                const paint = nodePaint(n);
+                // A loss block shows its idle part on top, as its branches arrive.
+                const idleH = n.role === 'loss' && n.watts > 0 ? (h * (n.idleWatts ?? 0)) / n.watts : 0;
                 return (
                   <g
                     key={n.id}
@@ -486,31 +708,24 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
                       x={x0}
                       y={y0}
                       width={x1 - x0}
-                      height={Math.max(2, y1 - y0)}
-                      fill={nodeColour(n)}
-                      stroke={isSel ? FLOW_COLOURS.selected : 'none'}
+                      height={h}
+                      fill={c[paint]}
+                      data-fill={paint}
+                      stroke={isSel ? c.selected : 'none'}
+                      data-stroke={isSel ? 'selected' : undefined}
                       stroke-width={isSel ? 3 : 0}
                     />
+                    {idleH > 0 && <rect x={x0} y={y0} width={x1 - x0} height={idleH} fill={c.idle} data-fill="idle" />}
                     {label && (
-                      <text
-                        x={label.x}
-                        y={label.y}
-                        text-anchor={label.anchor}
-                        font-size="12"
-                        fill={FLOW_COLOURS.ink}
-                        stroke={FLOW_COLOURS.background}
-                        stroke-width="3"
-                        stroke-linejoin="round"
-                        paint-order="stroke"
-                      >
-                        <tspan x={label.x} dy={label.figures ? '-0.2em' : '0'} font-weight="600">
+                      <text x={label.x} y={label.y} font-size="12" fill={c.ink} data-fill="ink" {...halo}>
+                        <tspan x={label.x} font-weight="600">
                           {label.name}
                         </tspan>
-                        {label.figures && (
-                          <tspan x={label.x} dy="1.2em" fill={FLOW_COLOURS.inkMuted}>
-                            {label.figures}
+                        {label.lines.map((t) => (
+                          <tspan key={t} x={label.x} dy="1.25em" fill={c.inkMuted} data-fill="inkMuted">
+                            {t}
                           </tspan>
-                        )}
+                        ))}
                       </text>
                     )}
                   </g>
@@ -527,11 +742,9 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
                   text-anchor="middle"
                   font-size="12"
                   font-weight="600"
-                  fill={FLOW_COLOURS.ink}
-                  stroke={FLOW_COLOURS.background}
-                  stroke-width="3"
-                  stroke-linejoin="round"
-                  paint-order="stroke"
+                  fill={c.ink}
+                  data-fill="ink"
+                  {...halo}
                   pointer-events="none"
                   data-link={t.key}
                 >
@@ -543,13 +756,18 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
         )}
       </div>
       {laid && laid.width > boxWidth + 1 && (
-        <p class="note" data-testid="flow-scroll-hint">
+        <p class="note flow__screen-only" data-testid="flow-scroll-hint">
           The whole chain is wider than this screen: swipe the diagram sideways to follow it to the loads.
         </p>
       )}
       <p class="flow__details" aria-live="polite" data-testid="flow-details">
         {details}
       </p>
+      {(labels?.hidden ?? 0) > 0 && (
+        <p class="note flow__screen-only" data-testid="flow-hidden-labels">
+          Some small blocks have no label where there is no room for one: point at, tap or Tab to them for their figures.
+        </p>
+      )}
       {zeroLoss.length > 0 && (
         <p class="note" data-testid="flow-no-loss">
           No loss branch drawn for {zeroLoss.map((n) => n.name).join(', ')}: {zeroLoss.length === 1 ? 'it loses' : 'they lose'} nothing in this
@@ -562,7 +780,8 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
         </p>
       )}
       <p class="note">
-        Branch widths are to scale with real power; per cent figures are shares of the power the source delivers.
+        Branch widths are to scale with real power; per cent figures are shares of the power the source delivers. Idle loss is what a stage
+        draws at zero output (standby, no-load or fixed loss); conversion loss is the rest, which grows with the load.
       </p>
     </section>
   );

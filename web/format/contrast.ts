@@ -31,3 +31,13 @@ export function contrastRatio(a: string, b: string): number {
   const lb = relativeLuminance(b);
   return (Math.max(la, lb) + 0.05) / (Math.min(la, lb) + 0.05);
 }
+
+/**
+ * The colour seen when `fg` is painted at `alpha` opacity over `bg` (simple alpha compositing,
+ * "source over", per 8-bit channel, rounded), as #rrggbb.
+ */
+export function blend(fg: string, bg: string, alpha: number): string {
+  const f = parseHex(fg);
+  const b = parseHex(bg);
+  return `#${f.map((x, i) => Math.round(alpha * x + (1 - alpha) * b[i]!).toString(16).padStart(2, '0')).join('')}`;
+}

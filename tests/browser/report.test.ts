@@ -1,0 +1,156 @@
+/**
+ * The client report in real Chromium (playwright-core), against a production build: for each demo
+ * the printed page (print media emulated, and a real PDF from headless Chromium's page.pdf at A4)
+ * holds at most two pages, the project's name, the key figures the engine computes (source power,
+ * delivered power, losses with their idle and conversion parts, the largest loss) and the cautions;
+ * editor controls and buttons are not printed; in the dark theme the printed page is still dark ink
+ * on white, diagram included. Screenshots of the print layout go to tests/.artifacts/ to look at.
+ */
+import { readFileSync, writeFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { join } from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { skipWithout } from '../tools/system-tools.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+import { demoProjects, flowGraph, solveProject, CONDUCTOR_CAUTION } from '../../core/index.ts';
+import { formatPercent, formatPower } from '../../web/format/number.ts';
+
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+/** The caution every report carries (web/components/ClientReport.tsx, REPORT_CAUTION). */
+const PLANNING = 'These results are planning estimates. Local electrical codes and licensed professional practice govern the design and installation.';
+
+/** Pages of a PDF: its page objects, `/Type /Page` (not `/Pages`, the page tree) (PDF 1.7, ISO 32000-1, 7.7.3.3). */
+export function pdfPageCount(pdf: Buffer): number {
+  return (pdf.toString('latin1').match(/\/Type\s*\/Page(?![a-zA-Z])/g) ?? []).length;
+}
+
+function solved(id: string) {
+  const demo = demoProjects.find((d) => d.id === id)!;
+  const outcome = solveProject(demo.project);
+  if (!outcome.ok) throw new Error(JSON.stringify(outcome.problems));
+  return outcome.result;
+}
+
+describe('pdfPageCount', () => {
+  it('counts page objects, not the page tree', () => {
+    const text = '1 0 obj << /Type /Pages /Kids [2 0 R 3 0 R] /Count 2 >> 2 0 obj << /Type /Page >> 3 0 obj <</Type/Page/Parent 1 0 R>>';
+    expect(pdfPageCount(Buffer.from(text, 'latin1'))).toBe(2);
+  });
+});
+
+describe.skipIf(skipWithout('chromium'))('the client report in Chromium', () => {
+  let app: ServedApp | undefined;
+  let browser: Browser | undefined;
+  let baseUrl = '';
+
+  beforeAll(async () => {
+    app = await serveBuiltApp('joulepath-report-build-');
+    ({ browser, baseUrl } = app);
+  });
+
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  async function openPage(colorScheme: 'light' | 'dark'): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US', colorScheme });
+    // window.print() opens a dialog headless Chromium cannot show: record the call instead.
+    await context.addInitScript({ content: 'window.print = () => { window.__printed = (window.__printed ?? 0) + 1; };' });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('console', (msg) => {
+      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
+    });
+    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    await page.goto(baseUrl, { waitUntil: 'load' });
+    return { context, page, errors };
+  }
+
+  async function showDemo(page: Page, id: string): Promise<void> {
+    await page.emulateMedia({ media: 'screen' });
+    await page.locator(`a[data-demo-id="${id}"]`).click();
+    await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
+    await page.getByTestId('flow-svg').waitFor();
+    await page.getByTestId('report-head').waitFor({ state: 'attached' });
+  }
+
+  it.each(Object.entries(VIEWPORTS))('the diagram and the print button pass axe-core in the dark theme on every demo (%s)', async (label, viewport) => {
+    const { context, page, errors } = await openPage('dark');
+    try {
+      await page.setViewportSize(viewport);
+      // Evaluated rather than added as a <script>: the page's CSP (script-src 'self') refuses inline scripts.
+      await page.evaluate(axeSource);
+      for (const demo of demoProjects) {
+        await showDemo(page, demo.id);
+        const violations = (await page.evaluate(
+          `window.axe.run({ include: [['[data-testid="energy-flow"]'], ['[data-testid="report-bar"]']] }, { resultTypes: ['violations'] }).then((r) => r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id + ': ' + v.nodes.map((n) => n.target.join(' ')).join(', ')))`,
+        )) as string[];
+        expect(violations, `${demo.id} (${label})`).toEqual([]);
+        await page.getByTestId('energy-flow').screenshot({ path: join(artifacts, `flow-dark-${label}-${demo.id}.png`) });
+      }
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it.each(['light', 'dark'] as const)('prints each demo on at most two A4 pages with its figures and cautions (%s theme)', async (theme) => {
+    const { context, page, errors } = await openPage(theme);
+    try {
+      for (const demo of demoProjects) {
+        await showDemo(page, demo.id);
+        const result = solved(demo.id);
+        const g = flowGraph(result);
+        const t = result.totals;
+
+        // On screen the report is hidden; its print button shows and calls window.print().
+        expect(await page.getByTestId('report-head').isVisible()).toBe(false);
+        await page.getByTestId('print-report').click();
+        expect(await page.evaluate('window.__printed')).toBeGreaterThanOrEqual(1);
+
+        await page.emulateMedia({ media: 'print' });
+        const text = (await page.evaluate('document.body.innerText')) as string;
+        expect(text).toContain(result.projectName);
+        expect(text).toContain(formatPower(t.sourcePower, 'en-US'));
+        expect(text).toContain(formatPower(t.loadPower, 'en-US'));
+        expect(text).toContain(`${formatPower(g.losses.total.watts, 'en-US')} · ${formatPercent(g.losses.total.percent / 100, 'en-US', 3)}`);
+        expect(text).toContain(formatPower(g.losses.idle.watts, 'en-US'));
+        expect(text).toContain(formatPower(g.losses.conversion.watts, 'en-US'));
+        expect(text).toContain(`${g.losses.largest!.name}: ${formatPower(g.losses.largest!.watts, 'en-US')}`);
+        expect(text).toContain(PLANNING);
+        if (result.elements.some((e) => e.conductor)) expect(text).toContain(CONDUCTOR_CAUTION);
+        expect(text).toContain('Where the energy goes');
+        expect(text).not.toMatch(/NaN|undefined|Infinity/);
+        // The page's controls are not printed: no buttons, no form fields, no demo picker.
+        expect(await page.locator('button:visible, input:visible, select:visible').count()).toBe(0);
+        expect(await page.locator(`a[data-demo-id="${demo.id}"]`).isVisible()).toBe(false);
+        expect(await page.getByTestId('flow-svg').isVisible()).toBe(true);
+
+        // Dark ink on white paper in either theme, the diagram's own background included.
+        const colours = (await page.evaluate(`(() => {
+          const css = (el) => getComputedStyle(el);
+          const svgBg = document.querySelector('[data-testid="flow-svg"] rect[data-fill="background"]');
+          return {
+            body: css(document.body).backgroundColor,
+            ink: css(document.querySelector('.report h1')).color,
+            svg: css(svgBg).fill,
+            feed: css(document.querySelector('path.flow__link[data-role="feed"]')).stroke,
+          };
+        })()`)) as Record<string, string>;
+        expect(colours).toEqual({ body: 'rgb(255, 255, 255)', ink: 'rgb(23, 32, 29)', svg: 'rgb(255, 255, 255)', feed: 'rgb(31, 111, 126)' });
+
+        await page.screenshot({ path: join(artifacts, `report-${theme}-${demo.id}.png`), fullPage: true });
+        const pdf = await page.pdf({ format: 'A4', printBackground: true });
+        writeFileSync(join(artifacts, `report-${theme}-${demo.id}.pdf`), pdf);
+        const pages = pdfPageCount(pdf);
+        expect(pages, `${demo.id}: pages of the printed report`).toBeGreaterThanOrEqual(1);
+        expect(pages, `${demo.id}: pages of the printed report`).toBeLessThanOrEqual(2);
+      }
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});

@@ -1,0 +1,220 @@
+/**
+ * The client report: a one- or two-page summary for the printed page (the browser's "Save as PDF").
+ *
+ * Rendered with the results (not mounted on demand: window.print() lays the page out at once, so
+ * everything it prints must already be in the document). On screen only the "Print / save as PDF"
+ * button shows; web/print.css hides the rest of the page in print and shows, in this order, the
+ * report's head (project, date, chain, key figures), the energy-flow diagram, and the report's tail
+ * (assumptions, warnings, cautions).
+ *
+ * Every figure comes from core (the solve result, flowGraph's loss summary, the engine's cautions);
+ * the page only formats. The date is the page's (core has no clock).
+ */
+import { useEffect, useMemo, useState } from 'preact/hooks';
+import { flowGraph } from '../../core/flow.ts';
+import type { BatterySource, Project } from '../../core/model.ts';
+import type { ElementResult, SolveResult } from '../../core/result.ts';
+import { bankCautions } from '../../core/battery/cautions.ts';
+import { CAUTION as CONDUCTOR_CAUTION } from '../../core/conductors/size.ts';
+import type { Chemistry } from '../../core/data/battery-chemistries.ts';
+import { formatDuration, formatPercent, formatPower, formatSmallPercent } from '../format/number.ts';
+import { formatConductorSize } from '../format/units.ts';
+import { elementKindLabel } from '../format/labels.ts';
+import { draft, resultsState } from '../state/editor.ts';
+import { effectiveLocale, unitSystem } from '../state/prefs.ts';
+
+/**
+ * Battery runtime for the report. The hook for the battery panel: pass the runtime study's
+ * discharge (core's DischargeResult has these fields) as `battery` and the figure is printed.
+ */
+export interface ReportBattery {
+  runtimeSeconds: number;
+  runtimeIsLowerBound: boolean;
+  endText: string;
+}
+
+/** The caution every report carries (results are planning estimates). */
+export const REPORT_CAUTION =
+  'These results are planning estimates. Local electrical codes and licensed professional practice govern the design and installation.';
+
+/** Depth of each element in the chain (source 0). */
+function depths(elements: readonly ElementResult[]): Map<string, number> {
+  const out = new Map<string, number>();
+  for (const e of elements) out.set(e.id, e.from === undefined ? 0 : (out.get(e.from) ?? 0) + 1);
+  return out;
+}
+
+function batterySource(project: Project | null): BatterySource | undefined {
+  const root = project?.elements.find((e) => e.kind === 'battery');
+  return root?.kind === 'battery' ? root : undefined;
+}
+
+function useDate(): Date {
+  const [now, setNow] = useState(() => new Date());
+  useEffect(() => {
+    // A page left open overnight prints today's date.
+    const refresh = () => setNow(new Date());
+    window.addEventListener('beforeprint', refresh);
+    return () => window.removeEventListener('beforeprint', refresh);
+  }, []);
+  return now;
+}
+
+export default function ClientReport({ result, battery }: { result: SolveResult; battery?: ReportBattery }) {
+  const loc = effectiveLocale();
+  const units = unitSystem.value;
+  const graph = useMemo(() => flowGraph(result), [result]);
+  const now = useDate();
+  const project = draft.value as Project | null;
+  const stale = resultsState.value === 'stale';
+  const t = result.totals;
+  const ls = graph.losses;
+  const pct = (p: number) => formatPercent(p / 100, loc, 3);
+  const depth = depths(result.elements);
+  const cables = result.elements.filter((e) => e.kind === 'cable');
+  const bank = batterySource(project)?.bank;
+  const cautions = [
+    REPORT_CAUTION,
+    ...(result.elements.some((e) => e.conductor) ? [CONDUCTOR_CAUTION] : []),
+    ...(bank ? bankCautions(bank.chemistry as Chemistry).filter((c) => !c.startsWith('Planning estimate only')) : []),
+  ];
+  const date = new Intl.DateTimeFormat(loc, { dateStyle: 'long' }).format(now);
+
+  return (
+    <>
+      <div class="report-bar" data-testid="report-bar">
+        <button type="button" class="report-bar__button" onClick={() => window.print()} data-testid="print-report">
+          Print / save as PDF
+        </button>
+        <span class="report-bar__hint">A one- or two-page summary for your client: the chain, the energy flow, key figures and cautions.</span>
+      </div>
+
+      <section class="report report--head print-keep" aria-label="Client report" data-testid="report-head">
+        <header class="report__title">
+          <p class="report__brand">Joulepath · energy report</p>
+          <h1>{result.projectName || 'Untitled project'}</h1>
+          <p class="report__date" data-testid="report-date">
+            {date}
+          </p>
+        </header>
+        {stale && (
+          <p class="report__stale" data-testid="report-stale">
+            Out of date: the inputs hold an error, so these are the last valid results, not those of the inputs as they stand.
+          </p>
+        )}
+        <div class="report__columns">
+          <section>
+            <h2>The chain</h2>
+            <ol class="report__chain" data-testid="report-chain">
+              {result.elements.map((e) => (
+                <li key={e.id} style={{ paddingLeft: `${(depth.get(e.id) ?? 0) * 0.9}em` }}>
+                  <span class="report__el">{e.name}</span> <span class="report__kind">{elementKindLabel(e.kind)}</span>
+                  {e.role === 'load' ? ` · uses ${formatPower(e.pIn, loc)}` : e.loss > 0 ? ` · loses ${formatPower(e.loss, loc)}` : ''}
+                  {e.idleLoss ? ` (${formatPower(e.idleLoss, loc)} idle)` : ''}
+                </li>
+              ))}
+            </ol>
+          </section>
+          <section>
+            <h2>Key figures</h2>
+            <dl class="report__figures" data-testid="report-figures">
+              <dt>Source delivers</dt>
+              <dd>{formatPower(t.sourcePower, loc)}</dd>
+              <dt>Delivered to the loads</dt>
+              <dd>
+                {formatPower(t.loadPower, loc)} ({formatPercent(t.efficiency, loc)} chain efficiency)
+              </dd>
+              <dt>Losses</dt>
+              <dd>
+                {formatPower(ls.total.watts, loc)} · {pct(ls.total.percent)} of the source power
+              </dd>
+              <dt>of which idle</dt>
+              <dd>
+                {formatPower(ls.idle.watts, loc)} · {pct(ls.idle.percent)} (drawn even with no load)
+              </dd>
+              <dt>of which conversion</dt>
+              <dd>
+                {formatPower(ls.conversion.watts, loc)} · {pct(ls.conversion.percent)} (grows with the load)
+              </dd>
+              {ls.largest && (
+                <>
+                  <dt>Largest loss</dt>
+                  <dd data-testid="report-largest">
+                    {ls.largest.name}: {formatPower(ls.largest.watts, loc)} · {pct(ls.largest.percent)}
+                    {ls.largest.idleWatts > 0 ? ` (${formatPower(ls.largest.idleWatts, loc)} idle)` : ''}
+                  </dd>
+                </>
+              )}
+              {(battery || project?.backup) && (
+                <>
+                  <dt>Battery runtime</dt>
+                  <dd data-testid="report-runtime">
+                    {battery
+                      ? `${battery.runtimeIsLowerBound ? 'longer than ' : ''}${formatDuration(battery.runtimeSeconds, loc)} (${battery.endText})`
+                      : 'see the battery backup study (not part of this summary)'}
+                  </dd>
+                </>
+              )}
+              {cables.length > 0 && (
+                <>
+                  <dt>Cables</dt>
+                  <dd>
+                    <ul class="report__cables" data-testid="report-cables">
+                      {cables.map((e) => (
+                        <li key={e.id}>
+                          {e.name}:{' '}
+                          {e.conductor
+                            ? `${formatConductorSize(e.conductor.size, e.conductor.areaMm2, units, loc)} ${e.conductor.material}` +
+                              `${e.conductor.parallelSets > 1 ? ` × ${e.conductor.parallelSets} sets` : ''}, set by ${e.conductor.governing}, ` +
+                              `drop ${formatPercent(e.conductor.drop.exactPercent / 100, loc, 3)}, loss ${formatPower(e.loss, loc)}`
+                            : `impedance as entered, loss ${formatPower(e.loss, loc)}`}
+                        </li>
+                      ))}
+                    </ul>
+                  </dd>
+                </>
+              )}
+            </dl>
+          </section>
+        </div>
+      </section>
+
+      <section class="report report--tail print-keep" aria-label="Assumptions and cautions" data-testid="report-tail">
+        <h2>Assumptions and method</h2>
+        <ul class="report__list">
+          <li>
+            Real power in watts; per cent figures are shares of the power the source delivers. Computed in SI units, shown in{' '}
+            {units === 'us' ? 'US customary units where they apply' : 'SI units'}.
+          </li>
+          <li>
+            Idle loss is what a stage draws at zero output (standby, no-load, core or fixed loss, from its loss model); conversion loss is the
+            rest, which grows with the load.
+          </li>
+          <li data-testid="report-method">
+            Solved by {result.method.name}: {result.method.iterations} {result.method.iterations === 1 ? 'sweep' : 'sweeps'}, stopping below a
+            relative voltage change of {result.method.tolerance.toExponential(0)}; energy balance mismatch{' '}
+            {formatSmallPercent(t.balanceError, loc)}.
+          </li>
+        </ul>
+        {result.warnings.length > 0 && (
+          <>
+            <h2>Warnings</h2>
+            <ul class="report__list" data-testid="report-warnings">
+              {result.warnings.map((w, i) => (
+                <li key={i}>
+                  {result.elements.find((e) => e.id === w.elementId)?.name ?? w.elementId}: {w.message}
+                </li>
+              ))}
+            </ul>
+          </>
+        )}
+        <h2>Cautions</h2>
+        <ul class="report__list report__cautions" data-testid="report-cautions">
+          {cautions.map((c) => (
+            <li key={c}>{c}</li>
+          ))}
+        </ul>
+      </section>
+    </>
+  );
+}
