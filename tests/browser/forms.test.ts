@@ -142,17 +142,17 @@ describe.skipIf(skipWithout('chromium'))('stage forms in Chromium', () => {
       await page.locator('[data-testid="stage-form"][data-element-id="bus"]').waitFor();
       const before = await efficiency(page);
       for (let i = 0; i < 30; i++) {
-        if (await page.evaluate(() => document.activeElement?.getAttribute('data-testid') === 'field-fixedLoss')) break;
+        if ((await page.evaluate('document.activeElement?.getAttribute("data-testid")')) === 'field-fixedLoss') break;
         await page.keyboard.press('Tab');
       }
-      expect(await page.evaluate(() => document.activeElement?.getAttribute('data-testid'))).toBe('field-fixedLoss');
+      expect(await page.evaluate('document.activeElement?.getAttribute("data-testid")')).toBe('field-fixedLoss');
       await page.keyboard.press('ControlOrMeta+a');
       await page.keyboard.type('60');
       await page.keyboard.press('Tab');
       await expect.poll(() => efficiency(page)).not.toBe(before);
       expect(await field(page, 'fixedLoss').inputValue()).toBe('60');
       // The focus ring shows on the next control.
-      const outline = await page.evaluate(() => getComputedStyle(document.activeElement!).outlineStyle);
+      const outline = await page.evaluate('getComputedStyle(document.activeElement).outlineStyle');
       expect(outline).not.toBe('none');
 
       // A choice group switched by keyboard: the loss model of the 48→12 V converter.
