@@ -191,7 +191,8 @@ export function ChainEditor() {
   const focusId = useSignal<string | null>(null);
   const chooser = useSignal<{ op: AddOperation; target: string } | null>(null);
   const refused = useSignal<string | null>(null);
-  const hint = useSignal<string>('');
+  /** A hint added to the status line, for the change it was given with. */
+  const hint = useSignal<{ change: string; text: string } | null>(null);
   const pendingFocus = useRef<string | 'form' | 'chooser' | null>(null);
   const root = useRef<HTMLElement>(null);
   const formRef = useRef<HTMLElement>(null);
@@ -249,7 +250,7 @@ export function ChainEditor() {
   const run = (op: () => OperationOutcome, focusAfter?: 'selected') => {
     const r = op();
     refused.value = r.ok ? null : r.message;
-    hint.value = '';
+    hint.value = null;
     if (r.ok && focusAfter === 'selected' && selectedId.value) {
       focusId.value = selectedId.value;
       pendingFocus.current = selectedId.value;
@@ -299,7 +300,7 @@ export function ChainEditor() {
       ev.preventDefault();
       const r = run(() => removeElement(id));
       if (r.ok) {
-        hint.value = ' Undo brings it back (Ctrl+Z).';
+        hint.value = { change: lastChange.value, text: ' Undo brings it back (Ctrl+Z).' };
         const next = selectedId.value ?? rootOf(draft.value!)?.id ?? null;
         if (next) {
           focusId.value = next;
@@ -352,7 +353,10 @@ export function ChainEditor() {
     );
   };
 
-  const statusText = refused.value ?? (lastChange.value ? `${lastChange.value}.${hint.value}` : '');
+  const hintText = hint.value && hint.value.change === lastChange.value ? hint.value.text : '';
+  // A refusal stays shown until something else changes (refuse() also puts it in lastChange).
+  const refusal = refused.value !== null && refused.value === lastChange.value ? refused.value : null;
+  const statusText = refusal ?? (lastChange.value ? `${lastChange.value}.${hintText}` : '');
   const selectedName = selected ? elementName(p, selected) : '';
   const open = chooser.value && chooser.value.target === selected ? chooser.value : null;
   const offered = open ? offeredTemplates(p, open.op, open.target) : [];
@@ -378,7 +382,7 @@ export function ChainEditor() {
         <ToolButton icon="remove" label="Remove" testId="op-remove" disabled={!selected} onClick={() => selected && run(() => removeElement(selected))} />
         <ToolButton icon="removeBranch" label="Remove branch" testId="op-remove-branch" disabled={!selected} onClick={() => selected && run(() => removeBranch(selected))} />
       </div>
-      <p class={refused.value ? 'editor__status editor__status--refused' : 'editor__status'} role="status" data-testid="editor-status">
+      <p class={refusal ? 'editor__status editor__status--refused' : 'editor__status'} role="status" data-testid="editor-status">
         {statusText}
       </p>
       {open && (
@@ -413,11 +417,11 @@ export function ChainEditor() {
           </button>
         </div>
       )}
-      <div class={selected ? 'editor__body editor__body--form' : 'editor__body'}>
+      <p id="chain-help" class="editor__help">
+        Tap a stage to edit it. Keys: arrows move along the chain, Enter opens the stage, Delete removes it, Ctrl+Z undoes.
+      </p>
+      <div class="editor__body">
         <div class="chain-scroll">
-          <p id="chain-help" class="editor__help">
-            Tap a stage to edit it. Keys: arrows move along the chain, Enter opens the stage, Delete removes it, Ctrl+Z undoes.
-          </p>
           <div class="chain" id="chain-cards" role="group" aria-label="Stages, from the source to the loads" aria-describedby="chain-help" onKeyDown={onChainKey}>
             {layout.order.length > 0 && renderRun(layout.order[0]!)}
           </div>
