@@ -43,15 +43,17 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
   const balance = async (page: Page) => (await page.getByTestId('energy-balance').innerText()).replace(/\s+/g, ' ');
   const tableRows = (page: Page) => page.locator('[data-testid="element-table"] tbody tr');
 
+  // Page expressions are strings: the Node tsconfig has no DOM library.
+  const focusedMatches = (page: Page, selector: string) =>
+    page.evaluate(`document.activeElement ? document.activeElement.matches(${JSON.stringify(selector)}) : false`) as Promise<boolean>;
   /** Press Tab (or Shift+Tab) until the focused element matches `selector`. */
   async function tabTo(page: Page, selector: string, back = false): Promise<void> {
     for (let i = 0; i < 40; i++) {
-      if (await page.evaluate((s) => document.activeElement?.matches(s) ?? false, selector)) return;
+      if (await focusedMatches(page, selector)) return;
       await page.keyboard.press(back ? 'Shift+Tab' : 'Tab');
     }
     throw new Error(`Tab never reached ${selector}`);
   }
-  const focusedMatches = (page: Page, selector: string) => page.evaluate((s) => document.activeElement?.matches(s) ?? false, selector);
 
   it('builds a chain by tapping: battery → inverter → cable → AC load; duplicate, remove, undo, redo (phone)', async () => {
     const { context, page, errors } = await openPage(VIEWPORTS.phone);
@@ -112,12 +114,10 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await expect.poll(() => page.getByTestId('editor-status').innerText()).toMatch(/source feeds the whole chain/);
       expect(await cards(page).count()).toBe(4);
       // Every control in the editor is a 44 px touch target at least.
-      const small = await page.evaluate(() =>
-        [...document.querySelectorAll<HTMLElement>('[data-testid="chain-editor"] button')]
+      const small = (await page.evaluate(`[...document.querySelectorAll('[data-testid="chain-editor"] button')]
           .map((b) => ({ t: b.innerText.trim() || b.getAttribute('aria-label') || '', r: b.getBoundingClientRect() }))
           .filter((x) => x.r.width > 0 && (x.r.width < 44 || x.r.height < 44))
-          .map((x) => `${x.t} ${x.r.width}×${x.r.height}`),
-      );
+          .map((x) => x.t + ' ' + x.r.width + '×' + x.r.height)`)) as string[];
       expect(small).toEqual([]);
       const overflow = await page.evaluate('document.documentElement.scrollWidth - window.innerWidth');
       expect(overflow).toBeLessThanOrEqual(0);
