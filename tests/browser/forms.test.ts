@@ -9,11 +9,25 @@
  * Expected figures: the engine's own (the page only shows them); 35 m = 114.829… ft by
  * 1 ft = 0.3048 m (NIST SP 811, 2008 ed., B.8); behaviour checks are common practice (no source).
  */
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+/** Serious and critical axe-core violations inside the stage form (axe-core, pinned in package.json). */
+async function formViolations(page: Page): Promise<string[]> {
+  // Evaluated rather than added as a script tag: the page's Content-Security-Policy refuses inline scripts.
+  if (!(await page.evaluate('typeof window.axe === "object"'))) await page.evaluate(axeSource);
+  const violations = (await page.evaluate(
+    `window.axe.run('[data-testid="stage-form"]', { resultTypes: ['violations'] }).then((r) => r.violations)`,
+  )) as { id: string; impact: string | null; nodes: { target: unknown }[] }[];
+  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.impact} ${v.id}: ${JSON.stringify(v.nodes.map((n) => n.target))}`);
+}
 
 describe.skipIf(skipWithout('chromium'))('stage forms in Chromium', () => {
   let app: ServedApp | undefined;
@@ -88,6 +102,16 @@ describe.skipIf(skipWithout('chromium'))('stage forms in Chromium', () => {
       await page.setViewportSize(VIEWPORTS.desktop);
       await page.locator('[data-testid="stage-form"]').scrollIntoViewIfNeeded();
       await page.screenshot({ path: join(artifacts, 'forms-error-desktop.png') });
+      expect(await formViolations(page)).toEqual([]);
+      // The other stage kinds of the demo, in the dark theme too (labels, contrast, names).
+      for (const theme of ['light', 'dark']) {
+        await page.getByTestId('theme-select').selectOption(theme);
+        for (const id of ['rectifier', 'ctl-cable', 'poe', 'bus']) {
+          await select(page, id);
+          expect(await formViolations(page), `${id} (${theme})`).toEqual([]);
+        }
+      }
+      await select(page, 'fan-inverter');
 
       // Fixed: the mark goes, the figures follow the new value.
       await input.fill('92');
