@@ -5,7 +5,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { linearScale, linePath, niceNumber, niceTicks, sampleEvery, thinIndices, timeTicksHours } from '../../web/components/charts/scale.ts';
-import { currencyForLocale, formatDuration, formatMoney, UNIT_GAP as g } from '../../web/format/number.ts';
+import { formatDuration, UNIT_GAP as g } from '../../web/format/number.ts';
+import { currencyForLocale, formatMoney } from '../../web/format/panels.ts';
 
 describe('nice ticks (Heckbert, Graphics Gems 1990)', () => {
   it('nice numbers: 1, 2, 5 × 10^n', () => {

@@ -86,7 +86,7 @@ export function formatPowerFactor(pf: number, sense: 'lagging' | 'leading' | 'un
   return sense === 'unity' ? n : `${n} ${sense}`;
 }
 
-// ---------- durations, energy and money (battery, conductor and machines panels) ----------
+// ---------- durations and energy (battery panel, client report) ----------
 
 /** Energy: Wh, kWh, MWh. */
 export const formatEnergy = (wh: number, locale?: string) => formatWithPrefix(wh, 'Wh', 4, locale);
@@ -107,45 +107,4 @@ export function formatDuration(seconds: number, locale?: string): string {
   }
   if (hours === 0) return `${n(minutes)}${UNIT_GAP}min`;
   return `${n(hours)}${UNIT_GAP}h ${String(minutes).padStart(2, '0')}${UNIT_GAP}min`;
-}
-
-/**
- * The currency of a locale's region, for showing a price (ISO 4217 codes). Only regions whose
- * currency is certain are listed; anything else shows a plain number (the user knows their money).
- */
-const REGION_CURRENCY: Readonly<Record<string, string>> = {
-  US: 'USD', GB: 'GBP', IE: 'EUR', DE: 'EUR', FR: 'EUR', ES: 'EUR', IT: 'EUR', NL: 'EUR', BE: 'EUR', AT: 'EUR', PT: 'EUR',
-  FI: 'EUR', GR: 'EUR', BR: 'BRL', IN: 'INR', CA: 'CAD', AU: 'AUD', NZ: 'NZD', ZA: 'ZAR', CH: 'CHF', SE: 'SEK',
-  NO: 'NOK', DK: 'DKK', PL: 'PLN', MX: 'MXN', JP: 'JPY', CN: 'CNY', KE: 'KES', NG: 'NGN',
-};
-
-/** ISO 4217 code for the locale's region (its likely region when the tag names none), or undefined. */
-export function currencyForLocale(locale: string | undefined): string | undefined {
-  if (!locale) return undefined;
-  try {
-    const region = new Intl.Locale(locale).maximize().region;
-    return region ? REGION_CURRENCY[region] : undefined;
-  } catch {
-    return undefined;
-  }
-}
-
-/**
- * An amount of money in the locale's currency ("$1,234.56", "1.234,56 €"); a plain number with two
- * decimals when the locale's currency is not known.
- */
-export function formatMoney(amount: number, locale?: string): string {
-  if (!Number.isFinite(amount)) return '—';
-  const currency = currencyForLocale(locale);
-  const v = Math.abs(amount) < 0.005 ? 0 : amount;
-  if (!currency) return numberFormat(locale, { minimumFractionDigits: 2, maximumFractionDigits: 2 }).format(v);
-  return numberFormat(locale, { style: 'currency', currency }).format(v);
-}
-
-/** The symbol the locale writes its currency with ("$", "€", "R$"), or "" when not known. */
-export function currencySymbol(locale?: string): string {
-  const currency = currencyForLocale(locale);
-  if (!currency) return '';
-  const part = numberFormat(locale, { style: 'currency', currency }).formatToParts(1).find((p) => p.type === 'currency');
-  return part?.value ?? currency;
 }

@@ -133,3 +133,62 @@ effect(() => {
   const root = host.document?.documentElement;
   if (root) root.dataset.theme = resolveTheme(prefs.theme, deviceDark.value);
 });
+
+// ---------- running-cost settings (what the losses cost per year; machines panel) ----------
+// A preference of the person, not project data: a price per kWh in their own currency and the
+// hours a year their chains run. Kept under a key of their own so the display record stays as is.
+
+export interface CostPrefs {
+  /** Price of energy per kWh in the locale's currency; null until the user gives one. */
+  pricePerKWh: number | null;
+  /** Hours per year at the solved operating point (8760 = all year). */
+  hoursPerYear: number;
+}
+
+export const COST_KEY = 'joulepath.cost.v1';
+export const DEFAULT_COST_PREFS: CostPrefs = { pricePerKWh: null, hoursPerYear: 8760 };
+
+/** Reads stored cost settings; anything missing, malformed or out of range falls back to the default. */
+export function parseCostPrefs(text: string | null | undefined): CostPrefs {
+  let raw: unknown;
+  try {
+    raw = text ? JSON.parse(text) : {};
+  } catch {
+    raw = {};
+  }
+  const o = typeof raw === 'object' && raw !== null ? (raw as Record<string, unknown>) : {};
+  const price = o.pricePerKWh;
+  const hours = o.hoursPerYear;
+  return {
+    pricePerKWh: typeof price === 'number' && Number.isFinite(price) && price >= 0 ? price : DEFAULT_COST_PREFS.pricePerKWh,
+    hoursPerYear: typeof hours === 'number' && Number.isFinite(hours) && hours >= 0 && hours <= 8784 ? hours : DEFAULT_COST_PREFS.hoursPerYear,
+  };
+}
+
+const initialCost = (() => {
+  try {
+    return parseCostPrefs(storage()?.getItem(COST_KEY));
+  } catch {
+    return { ...DEFAULT_COST_PREFS };
+  }
+})();
+
+export const energyPrice = signal<number | null>(initialCost.pricePerKWh);
+export const operatingHours = signal<number>(initialCost.hoursPerYear);
+
+effect(() => {
+  const prefs: CostPrefs = { pricePerKWh: energyPrice.value, hoursPerYear: operatingHours.value };
+  const store = storage();
+  try {
+    store?.setItem(COST_KEY, JSON.stringify(prefs));
+  } catch {
+    // Storage refused (private mode, full): the values stay in memory for this visit.
+  }
+});
+
+/** Why a cost setting cannot be taken (the same limits parseCostPrefs applies), or null. */
+export function costPrefProblem(field: 'pricePerKWh' | 'hoursPerYear', value: number): string | null {
+  if (!Number.isFinite(value)) return 'must be a number';
+  if (field === 'pricePerKWh') return value < 0 ? 'the energy price must not be negative' : null;
+  return value < 0 || value > 8784 ? 'the hours per year must be between 0 and 8784 (a leap year; 8760 runs all year)' : null;
+}

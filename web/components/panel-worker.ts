@@ -1,0 +1,125 @@
+/**
+ * The studies behind the battery and machines panels, run in a worker: the battery study solves
+ * the chain at every step of an outage (milliseconds to tens of milliseconds), and the machines
+ * figures re-solve the chain for a capacitor bank. Off the page's thread, typing stays fluid; and
+ * the worker is its own bundle, so these parts of core never weigh on the page's first load (the
+ * page itself uses only the plain solve).
+ *
+ * Requests and replies are plain data (structured clone). Every figure comes from core.
+ */
+import { runBackupStudy, type BackupStudyResult } from '../../core/battery/study.ts';
+import { bankCautions, rechargeCautions } from '../../core/battery/cautions.ts';
+import { machineDetails, type DriveDetail, type MotorDetail } from '../../core/machines/details.ts';
+import { pumpDetails, projectFlowStudy, type PumpDetail } from '../../core/machines/project-flow.ts';
+import type { FlowControlResult } from '../../core/machines/flow-control.ts';
+import { correctPowerFactor, type PfCorrection } from '../../core/ac/pf-correction.ts';
+import { flowStudyCosts, lossCostPerYear, type CostSettings, type LossCost, type MethodCosts } from '../../core/economics.ts';
+import { validateProject } from '../../core/solve/validate.ts';
+import type { Problem } from '../../core/errors.ts';
+import type { SolveResult } from '../../core/result.ts';
+
+export type PanelRequest =
+  | { kind: 'battery'; project: unknown }
+  | { kind: 'machines'; project: unknown; result: SolveResult; cost: CostSettings | null }
+  | { kind: 'pfc'; project: unknown; at: string; targetPowerFactor: number };
+
+export interface BatteryReply {
+  kind: 'battery';
+  outcome: { ok: true; study: BackupStudyResult; cautions: string[] } | { ok: false; problems: Problem[] };
+}
+
+export interface MachinesFigures {
+  motors: MotorDetail[];
+  drives: DriveDetail[];
+  pumps: PumpDetail[];
+  flow?: { ok: true; result: FlowControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
+  lossCost?: { ok: true; cost: LossCost } | { ok: false; problems: Problem[] };
+}
+
+export interface MachinesReply {
+  kind: 'machines';
+  outcome: { ok: true; figures: MachinesFigures } | { ok: false; problems: Problem[] };
+}
+
+/** The correction without the two full results and the corrected project (not shown; heavy to copy). */
+export type PfCorrectionShown = Omit<PfCorrection, 'resultBefore' | 'resultAfter' | 'correctedProject'>;
+
+export interface PfcReply {
+  kind: 'pfc';
+  outcome: { ok: true; correction: PfCorrectionShown } | { ok: false; problems: Problem[] };
+}
+
+export type PanelReply = (BatteryReply | MachinesReply | PfcReply | { kind: 'crash'; message: string }) & {
+  /** Time the work took in the worker, ms. */
+  ms: number;
+};
+
+function battery(project: unknown): BatteryReply {
+  const o = runBackupStudy(project);
+  if (!o.ok) return { kind: 'battery', outcome: o };
+  const s = o.study;
+  const chemistry = s.discharge.bank.chemistry;
+  const cautions = [
+    ...new Set([
+      ...s.discharge.cautions,
+      ...bankCautions(chemistry),
+      ...(s.sizing?.cautions ?? []),
+      ...(s.recharge?.cautions ?? []),
+      ...(s.recharge || s.charger ? rechargeCautions(chemistry) : []),
+    ]),
+  ];
+  return { kind: 'battery', outcome: { ok: true, study: s, cautions } };
+}
+
+function machines(input: unknown, result: SolveResult, cost: CostSettings | null): MachinesReply {
+  const valid = validateProject(input);
+  if (!valid.ok) return { kind: 'machines', outcome: valid };
+  const project = valid.project;
+  const { motors, drives } = machineDetails(project, result);
+  const figures: MachinesFigures = { motors, drives, pumps: pumpDetails(project) };
+  if (project.flowStudy) {
+    const f = projectFlowStudy(input);
+    if (f.ok) {
+      const costs = cost ? flowStudyCosts(f.result, cost.pricePerKWh) : undefined;
+      figures.flow = { ok: true, result: f.result, ...(costs?.ok ? { costs: costs.costs } : {}) };
+    } else figures.flow = { ok: false, problems: f.problems };
+  }
+  if (cost) figures.lossCost = lossCostPerYear(result, cost);
+  return { kind: 'machines', outcome: { ok: true, figures } };
+}
+
+function pfc(project: unknown, at: string, targetPowerFactor: number): PfcReply {
+  const o = correctPowerFactor(project, { at, targetPowerFactor });
+  if (!o.ok) return { kind: 'pfc', outcome: o };
+  const { resultBefore: _b, resultAfter: _a, correctedProject: _p, ...shown } = o.correction;
+  return { kind: 'pfc', outcome: { ok: true, correction: shown } };
+}
+
+/** The worker's side of the messages (typed here so the page's tsconfig needs no worker library). */
+const scope = globalThis as unknown as {
+  onmessage: ((event: { data: { id: number; request: PanelRequest } }) => void) | null;
+  postMessage(message: { id: number; reply: PanelReply }): void;
+};
+
+scope.onmessage = (event) => {
+  const { id, request } = event.data;
+  const t0 = performance.now();
+  let reply: BatteryReply | MachinesReply | PfcReply | { kind: 'crash'; message: string };
+  try {
+    switch (request.kind) {
+      case 'battery':
+        reply = battery(request.project);
+        break;
+      case 'machines':
+        reply = machines(request.project, request.result, request.cost);
+        break;
+      case 'pfc':
+        reply = pfc(request.project, request.at, request.targetPowerFactor);
+        break;
+    }
+  } catch (error) {
+    // An engine fault must not leave the panel waiting: say so, so it can be reported.
+    reply = { kind: 'crash', message: `The calculation stopped unexpectedly: ${String(error)}` };
+  }
+  scope.postMessage({ id, reply: { ...reply, ms: performance.now() - t0 } });
+};
