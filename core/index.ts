@@ -104,3 +104,20 @@ export {
 } from './machines/index.ts';
 export { flowGraph, lossNodeId, lossParts, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole, type LossPart, type LossSummary, type Share } from './flow.ts';
 export { lossCostPerYear, flowStudyCosts, energyCost, checkCostSettings, HOURS_IN_YEAR, MAX_HOURS_PER_YEAR, type CostSettings, type LossCost, type LossCostRow, type LossCostOutcome, type MethodCosts } from './economics.ts';
+export {
+  studySurges,
+  hasSurgeInputs,
+  formatSurgeStudy,
+  startingFigures,
+  voltageFactor,
+  trapWarnings,
+  surgeCautions,
+  type SurgeOutcome,
+  type SurgeStudyResult,
+  type MotorStartResult,
+  type StartCheck,
+  type StartVerdict,
+  type FaultPoint,
+  type DeviceCheck,
+} from './surge/index.ts';
+export { NEC_430_7_B, CODE_LETTERS, type CodeLetter, type CodeLetterRow } from './data/motor-code-letters.ts';

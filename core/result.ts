@@ -46,7 +46,18 @@ export type WarningCode =
   | 'voltage-mismatch'
   | 'check-derating'
   /** A user-fixed conductor size fails its ampacity, protection or voltage-drop check. */
-  | 'conductor-check';
+  | 'conductor-check'
+  // Traps the surge and fault study points out (core/surge/traps.ts): each says why and what to check.
+  /** A bank's capacity looks like the Ah of its series blocks added up (Ah do not add in series). */
+  | 'ah-added-in-series'
+  /** A DC link's drop fails its limit, though a check with the one-way length would pass it. */
+  | 'dc-drop-one-way'
+  /** An inverter far larger than its load: its idle loss is a large part of what it delivers. */
+  | 'inverter-oversized'
+  /** A drive fed single-phase without a single-phase (derated) rating. */
+  | 'drive-single-phase'
+  /** A lithium bank set to charge below 0 °C (or the chemistry's lower limit). */
+  | 'lithium-charge-cold';
 
 export interface SolveWarning {
   code: WarningCode;
