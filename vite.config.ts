@@ -9,9 +9,13 @@
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
 import preact from '@preact/preset-vite';
+import { VitePWA } from 'vite-plugin-pwa';
+import { readFileSync } from 'node:fs';
 
 const repoRoot = fileURLToPath(new URL('.', import.meta.url));
 const webRoot = fileURLToPath(new URL('./web/', import.meta.url));
+/** The version the page shows and the service worker's precache follows (package.json). */
+const appVersion = (JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8')) as { version: string }).version;
 
 export default defineConfig({
   root: webRoot,
@@ -20,7 +24,25 @@ export default defineConfig({
   plugins: [
     // The preset's prerender step is not used: the page is rendered in the browser.
     preact(),
+    // Offline use (issue 7): service-worker/sw.ts is built with the list of every built file injected
+    // (injectManifest). The page registers it itself (web/sw-register.ts) and ships its own
+    // web/public/manifest.webmanifest, so the plugin adds nothing to index.html.
+    VitePWA({
+      strategies: 'injectManifest',
+      srcDir: '../service-worker',
+      filename: 'sw.ts',
+      injectRegister: false,
+      manifest: false,
+      injectManifest: {
+        // The whole shell, lazy chunks included; nothing is fetched at run time.
+        globPatterns: ['**/*.{js,css,html,svg,png,webmanifest}'],
+      },
+      devOptions: { enabled: false },
+    }),
   ],
+  define: {
+    __JOULEPATH_VERSION__: JSON.stringify(appVersion),
+  },
   build: {
     outDir: fileURLToPath(new URL('./dist/', import.meta.url)),
     emptyOutDir: true,

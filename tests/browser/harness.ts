@@ -53,6 +53,11 @@ export interface ServedApp {
   /** Seconds spent building, and starting the server and the browser. */
   buildSeconds: number;
   launchSeconds: number;
+  /**
+   * Build the app again (with `define` overrides, e.g. another version) and serve the new build at
+   * the same address, as a site update would (the offline tests use it for the update prompt).
+   */
+  redeploy(overrides?: { define?: Record<string, string> }): Promise<void>;
   /** Close the browser and the server and remove the build. */
   close(): Promise<void>;
 }
@@ -60,15 +65,18 @@ export interface ServedApp {
 /** Build the app into a fresh temporary folder, serve it and start a browser. */
 export async function serveBuiltApp(prefix: string): Promise<ServedApp> {
   const t0 = performance.now();
-  const outDir = mkdtempSync(join(tmpdir(), prefix));
+  let outDir = mkdtempSync(join(tmpdir(), prefix));
   await build({ configFile, logLevel: 'warn', build: { outDir, emptyOutDir: true } });
   const t1 = performance.now();
-  const server = await preview({
-    configFile,
-    logLevel: 'warn',
-    build: { outDir },
-    preview: { host: '127.0.0.1', port: await freePort(), strictPort: true, open: false },
-  });
+  const port = await freePort();
+  const serve = (dir: string) =>
+    preview({
+      configFile,
+      logLevel: 'warn',
+      build: { outDir: dir },
+      preview: { host: '127.0.0.1', port, strictPort: true, open: false },
+    });
+  let server = await serve(outDir);
   const baseUrl = server.resolvedUrls?.local[0] ?? '';
   if (!/^http:\/\/127\.0\.0\.1:\d+\/$/.test(baseUrl)) throw new Error(`the preview server reported no local address (${baseUrl})`);
   // launch() gives each run a fresh temporary profile (user-data-dir) and removes it on close.
@@ -80,6 +88,14 @@ export async function serveBuiltApp(prefix: string): Promise<ServedApp> {
     browser,
     buildSeconds: (t1 - t0) / 1000,
     launchSeconds: (t2 - t1) / 1000,
+    async redeploy(overrides = {}) {
+      const next = mkdtempSync(join(tmpdir(), prefix));
+      await build({ configFile, logLevel: 'warn', build: { outDir: next, emptyOutDir: true }, ...(overrides.define ? { define: overrides.define } : {}) });
+      await server.close();
+      rmSync(outDir, { recursive: true, force: true });
+      outDir = next;
+      server = await serve(outDir);
+    },
     async close() {
       await browser.close();
       await server.close();

@@ -1,11 +1,13 @@
 /**
- * What is open: a demo (chosen in one tap, named in the address as #demo=<id>), a project file the
- * user opened, or a new project. Whatever is open is loaded into the editor (state/editor.ts),
+ * What is open: a demo (chosen in one tap, named in the address as #demo=<id>), a stored project
+ * (#project=<id>, web/storage/), a project file the user imported, or a new project. Whatever is
+ * open is loaded into the editor (state/editor.ts),
  * which holds the draft, its history and its solution. The page never computes engineering values.
  */
 import { computed, signal } from '@preact/signals';
 import { demoProjects } from '../../core/index.ts';
-import { draft, draftOrigin, isEditable, loadProject, type DraftProject } from './editor.ts';
+import { draft, draftOrigin, loadProject, type DraftProject } from './editor.ts';
+import { importFile, openLatestStored, openStored, storedIdFromHash } from '../storage/session.ts';
 
 const HASH_PREFIX = '#demo=';
 
@@ -47,35 +49,39 @@ export function chooseDemo(id: string, options: { updateAddress?: boolean } = {}
   }
 }
 
-/** Read a project file from the device into the editor. Files that are not projects get a message. */
+/**
+ * Import a project file from the device (web/storage/session.ts): the file is checked without
+ * trust, stored as a new project and opened. A refused file gets a message and changes nothing.
+ */
 export async function openProjectFile(file: File): Promise<void> {
-  const text = await file.text();
-  let data: unknown;
-  try {
-    data = JSON.parse(text);
-  } catch (error) {
-    fileReadError.value = {
-      fileName: file.name,
-      message: `This file is not a JSON project file (${error instanceof Error ? error.message : String(error)}).`,
-    };
-    return;
-  }
-  if (!isEditable(data)) {
-    fileReadError.value = {
-      fileName: file.name,
-      message: 'This file is JSON but not a project: it needs an "elements" list whose entries each have an "id" and a "kind".',
-    };
-    return;
-  }
-  fileReadError.value = null;
-  loadProject(data, { kind: 'file', title: file.name, fileName: file.name });
+  const outcome = await importFile(file);
+  if (outcome.ok) fileReadError.value = null;
+  else if (!outcome.cancelled) fileReadError.value = { fileName: file.name, message: outcome.message };
+}
+
+/** Open a project stored in this browser (the project list, #project=<id>). */
+export async function openStoredProject(id: string, options: { updateAddress?: boolean } = {}): Promise<boolean> {
+  const opened = await openStored(id, options);
+  if (opened) fileReadError.value = null;
+  return opened;
+}
+
+function openFirstDemo(): void {
+  if (!draft.value && demoProjects[0]) chooseDemo(demoProjects[0].id, { updateAddress: false });
 }
 
 /** Open what the address names, or the first demo when nothing is open yet. */
 export function openFromAddress(): void {
-  const id = demoIdFromHash(globalThis.location?.hash ?? '');
+  const hash = globalThis.location?.hash ?? '';
+  // A stored project (#project=<id>); with nothing named, the project saved last, else the first demo.
+  const storedId = storedIdFromHash(hash);
+  if (storedId) {
+    if (storedId !== draftOrigin.value?.storedKey) void openStoredProject(storedId, { updateAddress: false }).then((ok) => ok || openFirstDemo());
+    return;
+  }
+  const id = demoIdFromHash(hash);
   if (id && id !== selectedDemoId.value) chooseDemo(id, { updateAddress: false });
-  else if (!draft.value && !id && demoProjects[0]) chooseDemo(demoProjects[0].id, { updateAddress: false });
+  else if (!draft.value && !id) void openLatestStored().then((ok) => ok || openFirstDemo());
 }
 
 // Follow the address when the user navigates back and forth between demos.

@@ -1,0 +1,138 @@
+/**
+ * The stored project record (one IndexedDB value per project) and the migrations from older layouts.
+ * Pure functions and plain data: no IndexedDB, no DOM, no clock (the caller passes times), so the
+ * Node tests check them directly. The format is documented in web/storage/README.md.
+ */
+import { z } from 'zod';
+import type { DraftProject } from '../state/editor.ts';
+
+/** Version of the stored record layout written by this build. Raise it with a migration below. */
+export const STORAGE_VERSION = 1;
+
+/** Key prefix of project records in the object store ("project:<id>"). */
+export const PROJECT_KEY_PREFIX = 'project:';
+
+export function projectKey(id: string): string {
+  return `${PROJECT_KEY_PREFIX}${id}`;
+}
+
+/** One stored project (layout version 1). */
+export interface StoredProject {
+  storageVersion: 1;
+  /** Key without the prefix; never changes for the life of the record. */
+  id: string;
+  /** ISO 8601 times (UTC). */
+  createdAt: string;
+  savedAt: string;
+  /** Counts writes of this record: a tab that loaded revision n and finds n+1 stored knows another tab wrote. */
+  revision: number;
+  /** The tab that wrote last (a random id per open tab). */
+  tabId: string;
+  /** The demo this project was copied from, if any. */
+  demoId?: string;
+  /** Set while a delete can still be undone; such records are hidden from the list and removed later. */
+  deletedAt?: string;
+  /** The project as edited (the project file format of core/model.ts, possibly with problems to fix). */
+  project: DraftProject;
+}
+
+const isoTime = z.string().refine((s) => !Number.isNaN(Date.parse(s)), 'must be an ISO 8601 time');
+
+const elementShape = z.looseObject({ id: z.string(), kind: z.string(), from: z.string().optional(), name: z.string().optional() });
+const projectShape = z.looseObject({
+  format: z.literal('joulepath-project'),
+  version: z.number(),
+  name: z.string(),
+  description: z.string().optional(),
+  elements: z.array(elementShape),
+});
+
+const recordV1 = z.object({
+  storageVersion: z.literal(1),
+  id: z.string().min(1),
+  createdAt: isoTime,
+  savedAt: isoTime,
+  revision: z.number().int().nonnegative(),
+  tabId: z.string(),
+  demoId: z.string().optional(),
+  deletedAt: isoTime.optional(),
+  project: projectShape,
+});
+
+/**
+ * Layout 0: the development layout before records carried a version (never shipped in a release;
+ * kept so the migration path is exercised from the first version on). The project sat under `data`,
+ * its display name under `title`, and the time of the last write was epoch milliseconds in `updated`.
+ */
+const recordV0 = z.object({
+  title: z.string(),
+  updated: z.number().finite(),
+  data: projectShape.extend({ name: z.string().optional() }),
+});
+
+export type ReadRecord =
+  | { ok: true; record: StoredProject; migratedFrom?: number }
+  | { ok: false; id: string; reason: 'newer' | 'damaged'; message: string };
+
+/** Each step lifts a record from version n to n+1. */
+const MIGRATIONS: Record<number, (raw: unknown, id: string) => unknown> = {
+  0: (raw, id) => {
+    const v0 = recordV0.parse(raw);
+    const time = new Date(v0.updated).toISOString();
+    const { data } = v0;
+    return {
+      storageVersion: 1,
+      id,
+      createdAt: time,
+      savedAt: time,
+      revision: 1,
+      tabId: 'migrated',
+      project: { ...data, name: data.name ?? v0.title },
+    } satisfies Omit<StoredProject, 'project'> & { project: unknown };
+  },
+};
+
+/** The layout version of a stored value (0 for the unversioned development layout). */
+export function storedVersionOf(raw: unknown): number | undefined {
+  if (typeof raw !== 'object' || raw === null) return undefined;
+  const v = (raw as Record<string, unknown>)['storageVersion'];
+  if (v === undefined) return 0;
+  return typeof v === 'number' && Number.isInteger(v) && v >= 0 ? v : undefined;
+}
+
+/** Read a stored value, migrating it to the current layout. Nothing is written here. */
+export function readRecord(id: string, raw: unknown): ReadRecord {
+  const from = storedVersionOf(raw);
+  if (from === undefined) return { ok: false, id, reason: 'damaged', message: 'The stored record is not readable (no layout version).' };
+  if (from > STORAGE_VERSION) {
+    return {
+      ok: false,
+      id,
+      reason: 'newer',
+      message: `This project was saved by a newer version of Joulepath (storage layout ${from}); update the app to open it.`,
+    };
+  }
+  let value = raw;
+  try {
+    for (let v = from; v < STORAGE_VERSION; v++) {
+      const step = MIGRATIONS[v];
+      if (!step) throw new Error(`no migration from layout ${v}`);
+      value = step(value, id);
+    }
+  } catch (error) {
+    return { ok: false, id, reason: 'damaged', message: `The stored record could not be migrated (${error instanceof Error ? error.message : String(error)}).` };
+  }
+  const parsed = recordV1.safeParse(value);
+  if (!parsed.success) {
+    const first = parsed.error.issues[0];
+    return { ok: false, id, reason: 'damaged', message: `The stored record is damaged (${first ? `${first.path.join('.')}: ${first.message}` : 'unknown shape'}).` };
+  }
+  const record = { ...parsed.data, id } as StoredProject;
+  return from < STORAGE_VERSION ? { ok: true, record, migratedFrom: from } : { ok: true, record };
+}
+
+/** The name shown for a stored project. */
+export function recordName(record: StoredProject): string {
+  const name = record.project.name.trim();
+  return name || 'Untitled project';
+}
