@@ -4,7 +4,6 @@
  * made through the chain editor.
  */
 import type { BrowserContext, Page, Request } from 'playwright-core';
-import { expect } from 'vitest';
 
 export interface RecordedPage {
   page: Page;
@@ -74,12 +73,13 @@ export async function duplicateLastStage(page: Page): Promise<void> {
   const before = await cardCount(page);
   await page.locator('[data-card-id]').last().click();
   await page.getByTestId('op-duplicate').click();
-  await expect.poll(() => page.locator('[data-card-id]').count()).toBeGreaterThan(before);
+  await page.waitForFunction(`document.querySelectorAll('[data-card-id]').length > ${before}`, undefined, { timeout: 10_000 });
 }
 
 /** Wait until the last edit is written (the save line says "saved"). */
 export async function waitSaved(page: Page): Promise<void> {
-  await expect.poll(() => page.getByTestId('save-line').getAttribute('data-state'), { timeout: 10_000 }).toBe('saved');
+  // A page-side wait (not expect.poll), so it also works in beforeAll hooks.
+  await page.waitForFunction(`document.querySelector('[data-testid="save-line"]')?.dataset.state === 'saved'`, undefined, { timeout: 10_000 });
 }
 
 /** Wait until the service worker controls the page's scope and is active. */

@@ -188,7 +188,15 @@ async function write(snap: Snapshot): Promise<void> {
     if (snap.origin.kind === 'demo') {
       const name = `${project.name} (my copy)`;
       project = { ...project, name };
+      const unchangedSince = draftOrigin.peek() === snap.origin && draft.peek() === snap.project;
       if (draftOrigin.peek() === snap.origin) renameDraft(name);
+      if (unchangedSince) {
+        // The rename is the only change since the snapshot: it is written now, not a second time.
+        project = draft.peek()!;
+        pending = null;
+        if (timer !== undefined) clearTimeout(timer);
+        timer = undefined;
+      }
     }
     outcome = await s.create(project, tabId, snap.origin.demoId !== undefined ? { demoId: snap.origin.demoId } : {});
     if (outcome.ok) {
