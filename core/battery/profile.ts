@@ -4,28 +4,28 @@
  * every load's power is constant (profile segments and duty switching split it exactly, so the
  * energy of a load is Σ on-time × power with no rounding to the time step).
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { BackupStudy, DutySchedule, Element, LoadSetting, Project } from '../model.ts';
 import type { Problem } from '../errors.ts';
 
 const num = () => z.number({ error: 'must be a number' });
-const positive = (unit: string) => num().gt(0, `must be greater than 0 ${unit}`.trim());
-const nonNegative = (unit: string) => num().gte(0, `must not be negative ${unit}`.trim());
+const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
+const nonNegative = (unit: string) => num().check(z.gte(0, `must not be negative ${unit}`.trim()));
 
-const loadsField = z
-  .record(z.string(), z.union([nonNegative('W'), z.boolean()], { error: 'must be a power in W, true (on) or false (off)' }), {
+const loadsField = z.optional(
+  z.record(z.string(), z.union([nonNegative('W'), z.boolean()], { error: 'must be a power in W, true (on) or false (off)' }), {
     error: 'must map load ids to a power in W, true or false',
-  })
-  .optional();
+  }),
+);
 
 const dutySchema = z.strictObject({
-  load: z.string({ error: 'must name a load' }).min(1, 'must name a load'),
+  load: z.string({ error: 'must name a load' }).check(z.minLength(1, 'must name a load')),
   periodMinutes: positive('min'),
   onMinutes: nonNegative('min'),
-  offsetMinutes: nonNegative('min').optional(),
+  offsetMinutes: z.optional(nonNegative('min')),
 });
 
-const duty = z.array(dutySchema, { error: 'must be a list of duty schedules' }).optional();
+const duty = z.optional(z.array(dutySchema, { error: 'must be a list of duty schedules' }));
 
 export const profileSchema = z.discriminatedUnion(
   'kind',
@@ -34,11 +34,11 @@ export const profileSchema = z.discriminatedUnion(
     z.strictObject({
       kind: z.literal('segments'),
       segments: z
-        .array(z.strictObject({ durationHours: num().gt(0, 'must be greater than 0 h (a segment cannot run backwards or last no time)'), loads: loadsField }), {
+        .array(z.strictObject({ durationHours: num().check(z.gt(0, 'must be greater than 0 h (a segment cannot run backwards or last no time)')), loads: loadsField }), {
           error: 'must be a list of {durationHours, loads} segments',
         })
-        .min(1, 'needs at least one segment'),
-      repeat: z.boolean({ error: 'must be true or false' }).optional(),
+        .check(z.minLength(1, 'needs at least one segment')),
+      repeat: z.optional(z.boolean({ error: 'must be true or false' })),
       duty,
     }),
     z.strictObject({
@@ -46,35 +46,35 @@ export const profileSchema = z.discriminatedUnion(
       segments: z
         .array(
           z.strictObject({
-            startHour: num().gte(0, 'must be 0 or more').lt(24, 'must be below 24'),
+            startHour: num().check(z.gte(0, 'must be 0 or more'), z.lt(24, 'must be below 24')),
             loads: loadsField,
           }),
           { error: 'must be a list of {startHour, loads} segments' },
         )
-        .min(1, 'needs at least one segment'),
-      startHour: num().gte(0, 'must be 0 or more').lt(24, 'must be below 24').optional(),
+        .check(z.minLength(1, 'needs at least one segment')),
+      startHour: z.optional(num().check(z.gte(0, 'must be 0 or more'), z.lt(24, 'must be below 24'))),
       duty,
     }),
   ],
   { error: 'must be one of "constant", "segments", "daily"' },
 );
 
-const fraction = (what: string) => num().gt(0, `${what} must be greater than 0`).lte(1, `${what} must not exceed 1 (enter 0.8 for 80 %)`);
+const fraction = (what: string) => num().check(z.gt(0, `${what} must be greater than 0`), z.lte(1, `${what} must not exceed 1 (enter 0.8 for 80 %)`));
 
 /** Schema of the project's `backup` field (listed in core/solve/validate.ts). */
 export const backupSchema = z.strictObject({
   profile: profileSchema,
-  timeStepSeconds: positive('s').optional(),
-  horizonHours: positive('h').max(24 * 366, 'must not exceed one year (8784 h)').optional(),
-  temperatureC: num().gte(-60, 'must be −60 °C or more').lte(80, 'must be 80 °C or less').optional(),
-  stateOfHealth: fraction('state of health').optional(),
-  targetRuntimeHours: positive('h').optional(),
-  designMargin: num().gte(1, 'must be at least 1 (1.10 adds 10 %)').optional(),
-  agingFactor: num().gte(1, 'must be at least 1 (1.25 for a bank replaced at 80 % capacity)').optional(),
-  standardCapacitiesAh: z.array(positive('Ah'), { error: 'must be a list of capacities in Ah' }).min(1, 'needs at least one capacity').optional(),
-  chargerCurrent: positive('A').optional(),
-  chargerEfficiency: fraction('efficiency').optional(),
-  targetRechargeHours: positive('h').optional(),
+  timeStepSeconds: z.optional(positive('s')),
+  horizonHours: z.optional(positive('h').check(z.lte(24 * 366, 'must not exceed one year (8784 h)'))),
+  temperatureC: z.optional(num().check(z.gte(-60, 'must be −60 °C or more'), z.lte(80, 'must be 80 °C or less'))),
+  stateOfHealth: z.optional(fraction('state of health')),
+  targetRuntimeHours: z.optional(positive('h')),
+  designMargin: z.optional(num().check(z.gte(1, 'must be at least 1 (1.10 adds 10 %)'))),
+  agingFactor: z.optional(num().check(z.gte(1, 'must be at least 1 (1.25 for a bank replaced at 80 % capacity)'))),
+  standardCapacitiesAh: z.optional(z.array(positive('Ah'), { error: 'must be a list of capacities in Ah' }).check(z.minLength(1, 'needs at least one capacity'))),
+  chargerCurrent: z.optional(positive('A')),
+  chargerEfficiency: z.optional(fraction('efficiency')),
+  targetRechargeHours: z.optional(positive('h')),
 });
 
 export const DEFAULT_TIME_STEP_S = 60;

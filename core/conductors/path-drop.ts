@@ -11,19 +11,19 @@
  * Summing percentages of each link's own sending voltage is the usual way the limits are applied;
  * it equals the exact relative drop to first order.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { DropLimits, ElementKind } from '../model.ts';
 import type { ElementResult, PathDrop } from '../result.ts';
 
 /** Schema of the project's optional `dropLimits` (used by core/solve/validate.ts). */
 export const dropLimitsSchema = z.strictObject({
-  basis: z
-    .enum(['nec-informational', 'iec-a-lighting', 'iec-a-other', 'iec-b-lighting', 'iec-b-other'], {
+  basis: z.optional(
+    z.enum(['nec-informational', 'iec-a-lighting', 'iec-a-other', 'iec-b-lighting', 'iec-b-other'], {
       error: 'must be "nec-informational", "iec-a-lighting", "iec-a-other", "iec-b-lighting" or "iec-b-other"',
-    })
-    .optional(),
-  perLinkPercent: z.number({ error: 'must be a number (%)' }).gt(0, 'must be greater than 0 %').lte(100, 'must not exceed 100 %').optional(),
-  totalPercent: z.number({ error: 'must be a number (%)' }).gt(0, 'must be greater than 0 %').lte(100, 'must not exceed 100 %').optional(),
+    }),
+  ),
+  perLinkPercent: z.optional(z.number({ error: 'must be a number (%)' }).check(z.gt(0, 'must be greater than 0 %'), z.lte(100, 'must not exceed 100 %'))),
+  totalPercent: z.optional(z.number({ error: 'must be a number (%)' }).check(z.gt(0, 'must be greater than 0 %'), z.lte(100, 'must not exceed 100 %'))),
 });
 
 const REGULATING: ReadonlySet<ElementKind> = new Set(['rectifier', 'dcdc', 'inverter', 'drive', 'generic']);

@@ -2,11 +2,12 @@
  * Step 1 of the solve: check the project file field by field and the tree's shape (structure.ts).
  * Every problem names the element and the field; nothing is computed from a project that has any.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { Element, Project } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { KINDS } from '../stages/index.ts';
 import { checkStructure, skeletonOf } from './structure.ts';
+import { issueMessage } from './issue-messages.ts';
 import { backupSchema } from '../battery/profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { flowStudySchema } from '../stages/pump.ts';
@@ -15,11 +16,11 @@ const projectShape = z.strictObject({
   format: z.literal('joulepath-project', { error: 'must be "joulepath-project"' }),
   version: z.literal(1, { error: 'must be 1 (the only schema version so far)' }),
   name: z.string({ error: 'must be text' }),
-  description: z.string({ error: 'must be text' }).optional(),
+  description: z.optional(z.string({ error: 'must be text' })),
   elements: z.array(z.unknown(), { error: 'must be a list of elements' }),
-  backup: backupSchema.optional(),
-  dropLimits: dropLimitsSchema.optional(),
-  flowStudy: flowStudySchema.optional(),
+  backup: z.optional(backupSchema),
+  dropLimits: z.optional(dropLimitsSchema),
+  flowStudy: z.optional(flowStudySchema),
 });
 
 /**
@@ -74,7 +75,7 @@ function validateElement(raw: unknown, index: number): { element?: Element; prob
       ],
     };
   }
-  const parsed = spec.schema.safeParse(raw);
+  const parsed = spec.schema.safeParse(raw, { error: issueMessage });
   if (!parsed.success) return { problems: fromIssues(parsed.error.issues, id, raw) };
   const element = parsed.data;
   const problems = (spec.check?.(element) ?? []).map((p) => ({ ...p, elementId: id }));
@@ -83,7 +84,7 @@ function validateElement(raw: unknown, index: number): { element?: Element; prob
 
 /** Check the file, every element and the tree's shape. Port kinds are checked by `plan`. */
 export function validateProject(input: unknown): Validated {
-  const top = projectShape.safeParse(input);
+  const top = projectShape.safeParse(input, { error: issueMessage });
   if (!top.success) return { ok: false, problems: fromIssues(top.error.issues, 'project', input) };
   const problems: Problem[] = [];
   const elements: Element[] = [];

@@ -5,7 +5,7 @@
  * chemistry's OCV at the initial state of charge × cells in series and the resistance is scaled
  * from the preset (core/battery/bank.ts). State of charge over time belongs to core/battery/.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { BatteryBankSpec, BatterySource } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { CHEMISTRIES } from '../data/battery-chemistries.ts';
@@ -15,40 +15,42 @@ import { defineKind, idField, nameField, nonNegative, positive } from './spec.ts
 import { seriesLink } from './spec.ts';
 
 const num = () => z.number({ error: 'must be a number' });
-const fraction = (what: string) => num().gt(0, `${what} must be greater than 0`).lte(1, `${what} must not exceed 1 (enter 0.9 for 90 %)`);
-const wholeAtLeastOne = z.number({ error: 'must be a number' }).int('must be a whole number').gte(1, 'must be at least 1');
+const fraction = (what: string) => num().check(z.gt(0, `${what} must be greater than 0`), z.lte(1, `${what} must not exceed 1 (enter 0.9 for 90 %)`));
+const wholeAtLeastOne = z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'));
 
-const overridesSchema = z.strictObject({
-  nominalCellVoltage: positive('V'),
-  ocvCurve: z
-    .array(z.strictObject({ soc: num().gte(0, 'must be 0 or more').lte(1, 'must not exceed 1'), voltage: positive('V') }), {
-      error: 'must be a list of {soc, voltage} points',
-    })
-    .min(2, 'needs at least two points'),
-  endOfDischargeCellVoltage: positive('V'),
-  peukertExponent: num().gte(1, 'must be at least 1 (1 = no rate effect)').lte(2, 'must not exceed 2 (published exponents are 1.0–1.6)'),
-  usableDepthOfDischarge: fraction('depth of discharge'),
-  internalResistanceOhmAh: nonNegative('Ω·Ah'),
-  capacityVsTemperature: z
-    .array(z.strictObject({ temperatureC: num(), capacityFactor: positive('') }), { error: 'must be a list of {temperatureC, capacityFactor} points' })
-    .min(1, 'needs at least one point'),
-  roundTripEfficiency: fraction('efficiency'),
-  ratedHours: positive('h'),
-  chargeCellVoltage: positive('V'),
-  floatCellVoltage: positive('V'),
-  maxChargeCRate: positive('per hour'),
-  maxDischargeCRate: positive('per hour'),
-  minChargeTemperatureC: num(),
-}).partial();
+const overridesSchema = z.partial(
+  z.strictObject({
+    nominalCellVoltage: positive('V'),
+    ocvCurve: z
+      .array(z.strictObject({ soc: num().check(z.gte(0, 'must be 0 or more'), z.lte(1, 'must not exceed 1')), voltage: positive('V') }), {
+        error: 'must be a list of {soc, voltage} points',
+      })
+      .check(z.minLength(2, 'needs at least two points')),
+    endOfDischargeCellVoltage: positive('V'),
+    peukertExponent: num().check(z.gte(1, 'must be at least 1 (1 = no rate effect)'), z.lte(2, 'must not exceed 2 (published exponents are 1.0–1.6)')),
+    usableDepthOfDischarge: fraction('depth of discharge'),
+    internalResistanceOhmAh: nonNegative('Ω·Ah'),
+    capacityVsTemperature: z
+      .array(z.strictObject({ temperatureC: num(), capacityFactor: positive('') }), { error: 'must be a list of {temperatureC, capacityFactor} points' })
+      .check(z.minLength(1, 'needs at least one point')),
+    roundTripEfficiency: fraction('efficiency'),
+    ratedHours: positive('h'),
+    chargeCellVoltage: positive('V'),
+    floatCellVoltage: positive('V'),
+    maxChargeCRate: positive('per hour'),
+    maxDischargeCRate: positive('per hour'),
+    minChargeTemperatureC: num(),
+  }),
+);
 
 export const bankSchema = z.strictObject({
   chemistry: z.enum(CHEMISTRIES as [string, ...string[]], { error: `must be one of ${CHEMISTRIES.join(', ')}` }),
   series: wholeAtLeastOne,
-  strings: wholeAtLeastOne.optional(),
-  cellsPerBlock: wholeAtLeastOne.optional(),
+  strings: z.optional(wholeAtLeastOne),
+  cellsPerBlock: z.optional(wholeAtLeastOne),
   capacityAh: positive('Ah'),
-  initialSoc: fraction('state of charge').optional(),
-  overrides: overridesSchema.optional(),
+  initialSoc: z.optional(fraction('state of charge')),
+  overrides: z.optional(overridesSchema),
 });
 
 /** Agreement asked between a `voltage` given beside a `bank` and the bank's own open-circuit voltage. */
@@ -62,11 +64,11 @@ export const batteryKind = defineKind<BatterySource>({
     id: idField,
     name: nameField,
     kind: z.literal('battery'),
-    voltage: positive('V').optional(),
-    internalResistance: nonNegative('Ω').optional(),
-    bank: bankSchema.optional(),
-    bankFuse: protectiveDeviceSchema.optional(),
-  }) as z.ZodType<BatterySource>,
+    voltage: z.optional(positive('V')),
+    internalResistance: z.optional(nonNegative('Ω')),
+    bank: z.optional(bankSchema),
+    bankFuse: z.optional(protectiveDeviceSchema),
+  }) as z.ZodMiniType<BatterySource>,
   check(e) {
     if (!e.bank) {
       return e.voltage === undefined

@@ -5,7 +5,7 @@
  * The impedance is given explicitly or taken from a conductor spec (NEC or IEC tables; sized by
  * core/conductors/ through core/solve/size-conductors.ts).
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { CableStage } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { protectiveDeviceSchema } from '../surge/schema.ts';
@@ -14,10 +14,10 @@ import { defineKind, fromField, idField, nameField, nonNegative, positive, serie
 const rating = z.union([z.literal(60), z.literal(75), z.literal(90)], { error: 'must be 60, 75 or 90 (°C)' });
 const common = {
   material: z.enum(['copper', 'aluminium'], { error: 'must be "copper" or "aluminium"' }),
-  size: z.string({ error: 'must be a size from the table (e.g. "4 AWG", "2.5 mm²") or "auto"' }).min(1, 'must not be empty'),
-  ambient: z.number({ error: 'must be a number (°C)' }).optional(),
-  continuous: z.boolean({ error: 'must be true or false' }).optional(),
-  maxDropPercent: positive('%').lte(100, 'must not exceed 100 %').optional(),
+  size: z.string({ error: 'must be a size from the table (e.g. "4 AWG", "2.5 mm²") or "auto"' }).check(z.minLength(1, 'must not be empty')),
+  ambient: z.optional(z.number({ error: 'must be a number (°C)' })),
+  continuous: z.optional(z.boolean({ error: 'must be true or false' })),
+  maxDropPercent: z.optional(positive('%').check(z.lte(100, 'must not exceed 100 %'))),
 };
 
 /**
@@ -31,9 +31,9 @@ const conductorSchema = z.discriminatedUnion(
       system: z.literal('nec'),
       ...common,
       insulationRating: rating,
-      terminationRating: rating.optional(),
-      raceway: z.enum(['pvc', 'aluminum', 'steel'], { error: 'must be "pvc", "aluminum" or "steel" (NEC Chapter 9 Table 9 raceway)' }).optional(),
-      currentCarryingConductors: z.number({ error: 'must be a number' }).int('must be a whole number').gte(1, 'must be at least 1').optional(),
+      terminationRating: z.optional(rating),
+      raceway: z.optional(z.enum(['pvc', 'aluminum', 'steel'], { error: 'must be "pvc", "aluminum" or "steel" (NEC Chapter 9 Table 9 raceway)' })),
+      currentCarryingConductors: z.optional(z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'))),
     }),
     z.strictObject({
       system: z.literal('iec'),
@@ -42,8 +42,8 @@ const conductorSchema = z.discriminatedUnion(
       installationMethod: z.enum(['A1', 'A2', 'B1', 'B2', 'C', 'D1', 'D2', 'E', 'F', 'G'], {
         error: 'must be an IEC 60364-5-52 reference method: A1, A2, B1, B2, C, D1, D2, E, F or G',
       }),
-      loadedConductors: z.union([z.literal(2), z.literal(3)], { error: 'must be 2 or 3' }).optional(),
-      groupedCircuits: z.number({ error: 'must be a number' }).int('must be a whole number').gte(1, 'must be at least 1').optional(),
+      loadedConductors: z.optional(z.union([z.literal(2), z.literal(3)], { error: 'must be 2 or 3' })),
+      groupedCircuits: z.optional(z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'))),
     }),
   ],
   { error: 'must say system "nec" or "iec"' },
@@ -59,12 +59,12 @@ export const cableKind = defineKind<CableStage>({
     kind: z.literal('cable'),
     from: fromField,
     length: positive('m'),
-    resistancePerKm: positive('Ω/km').optional(),
-    reactancePerKm: nonNegative('Ω/km').optional(),
-    conductor: conductorSchema.optional(),
-    parallelSets: z.number({ error: 'must be a number' }).int('must be a whole number').gte(1, 'must be at least 1').optional(),
-    protection: protectiveDeviceSchema.optional(),
-  }) as z.ZodType<CableStage>,
+    resistancePerKm: z.optional(positive('Ω/km')),
+    reactancePerKm: z.optional(nonNegative('Ω/km')),
+    conductor: z.optional(conductorSchema),
+    parallelSets: z.optional(z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'))),
+    protection: z.optional(protectiveDeviceSchema),
+  }) as z.ZodMiniType<CableStage>,
   check(e) {
     // Exactly one way of giving the impedance.
     if (e.conductor && (e.resistancePerKm !== undefined || e.reactancePerKm !== undefined)) {

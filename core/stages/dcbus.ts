@@ -1,5 +1,5 @@
 /** DC bus or distribution board: voltage passes through unchanged; a fixed loss of its own. */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { DcBusStage } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { defineKind, fromField, idField, nameField, nonNegative } from './spec.ts';
@@ -14,7 +14,7 @@ export const dcbusKind = defineKind<DcBusStage>({
     kind: z.literal('dcbus'),
     from: fromField,
     fixedLoss: nonNegative('W'),
-  }) as z.ZodType<DcBusStage>,
+  }) as z.ZodMiniType<DcBusStage>,
   build: (e) => ({
     out: { kind: 'dc' },
     outputVoltage: (vIn) => vIn,

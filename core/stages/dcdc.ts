@@ -1,5 +1,5 @@
 /** DC-DC converter: DC in, regulated DC out. */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { DcDcStage } from '../model.ts';
 import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, positive, regulatingConverter } from './spec.ts';
 
@@ -14,7 +14,7 @@ export const dcdcKind = defineKind<DcDcStage>({
     from: fromField,
     outputVoltage: positive('V'),
     loss: lossModelSchema,
-  }) as z.ZodType<DcDcStage>,
+  }) as z.ZodMiniType<DcDcStage>,
   check: (e) => checkLossModel(e.loss),
   build: (e) => regulatingConverter({ out: { kind: 'dc' }, outputVoltage: e.outputVoltage, inputKind: 'dc', loss: e.loss }),
 });

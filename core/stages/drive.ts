@@ -13,7 +13,7 @@
  * True input power factor with a stated current distortion THD_i (voltage undistorted):
  * pf = pf_disp / √(1 + THD_i²) — reported by core/machines/details.ts.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { DriveStage } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { checkLossModel, defineKind, fmtPct, fromField, idField, lossModelSchema, nameField, positive, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
@@ -22,7 +22,7 @@ import { driveLossAt, driveLossGrid } from '../machines/drive-loss.ts';
 const standardLossSchema = z.strictObject({
   ratedApparentPower: positive('VA'),
   basis: z.enum(['cdm', 'pds'], { error: 'must be "cdm" (drive module: top point 90 % frequency) or "pds" (drive + motor: top point 100 % speed)' }),
-  points: z.array(z.number({ error: 'must be a number' }).gte(0, 'must not be negative W'), { error: 'must be a list of eight losses, W' }).optional(),
+  points: z.optional(z.array(z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative W')), { error: 'must be a list of eight losses, W' })),
 });
 
 /** Speed fraction of the driven motor: drive output frequency / motor rated frequency. */
@@ -54,12 +54,12 @@ export const driveKind = defineKind<DriveStage>({
     outputVoltage: positive('V'),
     outputFrequency: positive('Hz'),
     inputPowerFactor: unitFraction('power factor'),
-    loss: lossModelSchema.optional(),
-    standardLoss: standardLossSchema.optional(),
-    motorRatedFrequency: positive('Hz').optional(),
-    currentThd: z.number({ error: 'must be a number' }).gte(0, 'must not be negative').lte(3, 'must not exceed 3 (enter 0.35 for 35 %)').optional(),
-    singlePhaseRating: positive('VA').optional(),
-  }) as z.ZodType<DriveStage>,
+    loss: z.optional(lossModelSchema),
+    standardLoss: z.optional(standardLossSchema),
+    motorRatedFrequency: z.optional(positive('Hz')),
+    currentThd: z.optional(z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative'), z.lte(3, 'must not exceed 3 (enter 0.35 for 35 %)'))),
+    singlePhaseRating: z.optional(positive('VA')),
+  }) as z.ZodMiniType<DriveStage>,
   check(e) {
     if ((e.loss === undefined) === (e.standardLoss === undefined)) {
       return [{ code: 'invalid-value', field: 'loss', message: 'give exactly one of loss (a loss model) and standardLoss (the IEC 61800-9-2 points)' }];

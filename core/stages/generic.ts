@@ -1,5 +1,5 @@
 /** A converting stage with user-chosen input and output kinds (regulated output). */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { GenericStage } from '../model.ts';
 import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, positive, regulatingConverter, unitFraction } from './spec.ts';
 
@@ -17,11 +17,11 @@ export const genericKind = defineKind<GenericStage>({
     inputKind: electrical,
     outputKind: electrical,
     outputVoltage: positive('V'),
-    outputFrequency: positive('Hz').optional(),
-    inputPowerFactor: unitFraction('power factor').optional(),
+    outputFrequency: z.optional(positive('Hz')),
+    inputPowerFactor: z.optional(unitFraction('power factor')),
     inputPfSense: pfSense,
     loss: lossModelSchema,
-  }) as z.ZodType<GenericStage>,
+  }) as z.ZodMiniType<GenericStage>,
   check(e) {
     const problems = checkLossModel(e.loss);
     if (e.outputKind !== 'dc' && e.outputFrequency === undefined) {

@@ -3,7 +3,7 @@
  * phase. The terminal voltage follows from the exact two-bus solution; the internal I²R is the
  * source's own loss.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { AcSource } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { sourceFaultFields } from '../surge/schema.ts';
@@ -16,9 +16,9 @@ const schema = z.strictObject({
   phases,
   voltage: positive('V'),
   frequency: positive('Hz'),
-  resistance: nonNegative('Ω').optional(),
-  reactance: nonNegative('Ω').optional(),
-  ratedApparentPower: positive('VA').optional(),
+  resistance: z.optional(nonNegative('Ω')),
+  reactance: z.optional(nonNegative('Ω')),
+  ratedApparentPower: z.optional(positive('VA')),
   ...sourceFaultFields,
 });
 
@@ -27,7 +27,7 @@ const spec = (kind: 'grid' | 'generator') =>
     kind,
     role: 'source',
     accepts: () => [],
-    schema: schema as z.ZodType<AcSource>,
+    schema: schema as z.ZodMiniType<AcSource>,
     build(e) {
       const portKind = e.phases === 3 ? 'ac3' : 'ac1';
       const emf = c(perPhase(portKind, e.voltage));

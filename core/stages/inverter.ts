@@ -1,5 +1,5 @@
 /** Inverter: DC in, regulated single- or three-phase AC out. */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { InverterStage } from '../model.ts';
 import { surgeSchema } from '../surge/schema.ts';
 import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, phases, positive, regulatingConverter } from './spec.ts';
@@ -17,9 +17,9 @@ export const inverterKind = defineKind<InverterStage>({
     outputVoltage: positive('V'),
     frequency: positive('Hz'),
     loss: lossModelSchema,
-    surge: surgeSchema.optional(),
-    lowVoltageCutoff: positive('V').optional(),
-  }) as z.ZodType<InverterStage>,
+    surge: z.optional(surgeSchema),
+    lowVoltageCutoff: z.optional(positive('V')),
+  }) as z.ZodMiniType<InverterStage>,
   check: (e) => checkLossModel(e.loss),
   build: (e) =>
     regulatingConverter({

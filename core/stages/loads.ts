@@ -1,5 +1,5 @@
 /** Loads (leaves of the tree), all constant-power: their current rises as their voltage sags. */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { AcApparentLoad, AcPowerLoad, DcLoad, ShaftLoad } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { constantPowerLoad, defineKind, fromField, idField, nameField, nonNegative, pfSense, reactiveFromPf, unitFraction } from './spec.ts';
@@ -10,7 +10,7 @@ export const dcLoadKind = defineKind<DcLoad>({
   kind: 'dc-load',
   role: 'load',
   accepts: () => ['dc'],
-  schema: z.strictObject({ ...base, kind: z.literal('dc-load'), power: nonNegative('W') }) as z.ZodType<DcLoad>,
+  schema: z.strictObject({ ...base, kind: z.literal('dc-load'), power: nonNegative('W') }) as z.ZodMiniType<DcLoad>,
   build: (e) => constantPowerLoad(c(e.power)),
 });
 
@@ -24,7 +24,7 @@ export const acLoadKind = defineKind<AcPowerLoad>({
     power: nonNegative('W'),
     powerFactor: unitFraction('power factor'),
     pfSense,
-  }) as z.ZodType<AcPowerLoad>,
+  }) as z.ZodMiniType<AcPowerLoad>,
   build: (e) => constantPowerLoad(c(e.power, reactiveFromPf(e.power, e.powerFactor, e.pfSense))),
 });
 
@@ -38,7 +38,7 @@ export const acVaLoadKind = defineKind<AcApparentLoad>({
     apparentPower: nonNegative('VA'),
     powerFactor: unitFraction('power factor'),
     pfSense,
-  }) as z.ZodType<AcApparentLoad>,
+  }) as z.ZodMiniType<AcApparentLoad>,
   build(e) {
     const p = e.apparentPower * e.powerFactor;
     return constantPowerLoad(c(p, reactiveFromPf(p, e.powerFactor, e.pfSense)));
@@ -49,6 +49,6 @@ export const shaftLoadKind = defineKind<ShaftLoad>({
   kind: 'shaft-load',
   role: 'load',
   accepts: () => ['shaft'],
-  schema: z.strictObject({ ...base, kind: z.literal('shaft-load'), power: nonNegative('W') }) as z.ZodType<ShaftLoad>,
+  schema: z.strictObject({ ...base, kind: z.literal('shaft-load'), power: nonNegative('W') }) as z.ZodMiniType<ShaftLoad>,
   build: (e) => constantPowerLoad(c(e.power)),
 });

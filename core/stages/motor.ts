@@ -11,7 +11,7 @@
  * Shaft speed: rated speed × (supply frequency / rated frequency) when both are known (a motor on a
  * drive; slip taken as a constant fraction, common practice).
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { MotorStage, PowerFactorModel } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { prepareLoss, interpolate } from './loss-model.ts';
@@ -27,7 +27,7 @@ const pfModel = z.discriminatedUnion(
       model: z.literal('curve'),
       points: z
         .array(z.strictObject({ loadFraction: positive('(a fraction of rated output)'), powerFactor: unitFraction('power factor') }))
-        .min(2, 'needs at least two points'),
+        .check(z.minLength(2, 'needs at least two points')),
     }),
   ],
   { error: 'must be "constant" or "curve"' },
@@ -57,24 +57,24 @@ export const motorKind = defineKind<MotorStage>({
     kind: z.literal('motor'),
     from: fromField,
     ratedOutput: positive('W'),
-    loss: lossModelSchema.optional(),
-    powerFactor: pfModel.optional(),
-    ratedSpeed: positive('rpm').optional(),
-    ratedVoltage: positive('V').optional(),
-    poles: z.union([z.literal(2), z.literal(4), z.literal(6), z.literal(8)], { error: 'must be 2, 4, 6 or 8' }).optional(),
-    ratedFrequency: positive('Hz').optional(),
-    efficiencyClass: z.enum(MOTOR_CLASSES as [string, ...string[]], { error: `unknown efficiency class; expected one of ${MOTOR_CLASSES.join(', ')}` }).optional(),
-    nameplate: z
-      .strictObject({
-        efficiency: unitFraction('efficiency').lt(1, 'efficiency must be below 1 (enter 0.93 for 93 %)'),
-        powerFactor: unitFraction('power factor').optional(),
-        current: positive('A').optional(),
-      })
-      .optional(),
-    ratedPowerFactor: unitFraction('power factor').optional(),
-    serviceFactor: z.number({ error: 'must be a number' }).gte(1, 'must be at least 1 (1.15 is common on NEMA motors)').lte(2, 'must not exceed 2').optional(),
-    starting: startingSchema.optional(),
-  }) as z.ZodType<MotorStage>,
+    loss: z.optional(lossModelSchema),
+    powerFactor: z.optional(pfModel),
+    ratedSpeed: z.optional(positive('rpm')),
+    ratedVoltage: z.optional(positive('V')),
+    poles: z.optional(z.union([z.literal(2), z.literal(4), z.literal(6), z.literal(8)], { error: 'must be 2, 4, 6 or 8' })),
+    ratedFrequency: z.optional(positive('Hz')),
+    efficiencyClass: z.optional(z.enum(MOTOR_CLASSES as [string, ...string[]], { error: `unknown efficiency class; expected one of ${MOTOR_CLASSES.join(', ')}` })),
+    nameplate: z.optional(
+      z.strictObject({
+        efficiency: unitFraction('efficiency').check(z.lt(1, 'efficiency must be below 1 (enter 0.93 for 93 %)')),
+        powerFactor: z.optional(unitFraction('power factor')),
+        current: z.optional(positive('A')),
+      }),
+    ),
+    ratedPowerFactor: z.optional(unitFraction('power factor')),
+    serviceFactor: z.optional(z.number({ error: 'must be a number' }).check(z.gte(1, 'must be at least 1 (1.15 is common on NEMA motors)'), z.lte(2, 'must not exceed 2'))),
+    starting: z.optional(startingSchema),
+  }) as z.ZodMiniType<MotorStage>,
   check(e) {
     const given = [e.loss !== undefined || e.powerFactor !== undefined, e.efficiencyClass !== undefined, e.nameplate !== undefined].filter(Boolean).length;
     if (given !== 1) {

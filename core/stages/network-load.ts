@@ -6,21 +6,23 @@
  * third of it in delta: Z_Y = Z_Δ/3). The backward sweep evaluates it at the input voltage of the
  * previous forward sweep, so the fixed-point iteration of the solve settles it like any other load.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { NetworkLoad } from '../model.ts';
 import { type Complex, ZERO, abs, c, conj, div, scale } from '../ac/complex.ts';
 import { networkImpedance, parseNetwork, starEquivalent } from '../ac/network.ts';
 import { defineKind, fromField, idField, nameField, phaseCount } from './spec.ts';
 
 /** The network is checked entry by entry; each problem carries its own path (e.g. network.series.1.capacitor). */
-const networkSchema = z.unknown().superRefine((raw, ctx) => {
-  if (raw === undefined) {
-    ctx.addIssue({ code: 'custom', message: 'is required: the circuit elements, e.g. {"series": [{"resistor": "12 Ω"}, {"inductor": "40 mH"}]}' });
-    return;
-  }
-  const parsed = parseNetwork(raw);
-  if (!parsed.ok) for (const issue of parsed.issues) ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path, input: issue.value });
-});
+const networkSchema = z.unknown().check(
+  z.superRefine((raw, ctx) => {
+    if (raw === undefined) {
+      ctx.addIssue({ code: 'custom', message: 'is required: the circuit elements, e.g. {"series": [{"resistor": "12 Ω"}, {"inductor": "40 mH"}]}' });
+      return;
+    }
+    const parsed = parseNetwork(raw);
+    if (!parsed.ok) for (const issue of parsed.issues) ctx.addIssue({ code: 'custom', message: issue.message, path: issue.path, input: issue.value });
+  }),
+);
 
 export const networkLoadKind = defineKind<NetworkLoad>({
   kind: 'network-load',
@@ -34,8 +36,8 @@ export const networkLoadKind = defineKind<NetworkLoad>({
     from: fromField,
     kind: z.literal('network-load'),
     network: networkSchema,
-    connection: z.enum(['star', 'delta'], { error: 'must be "star" or "delta" (three-phase only)' }).optional(),
-  }) as z.ZodType<NetworkLoad>,
+    connection: z.optional(z.enum(['star', 'delta'], { error: 'must be "star" or "delta" (three-phase only)' })),
+  }) as z.ZodMiniType<NetworkLoad>,
   build(e, input) {
     const kind = input!.kind;
     const parsed = parseNetwork(e.network);

@@ -16,7 +16,7 @@
  * Whether a drive really feeds a speed-controlled pump is a tree check: core/machines/project-flow.ts
  * (`pumpDetails`) reports it.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { PumpLoad } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { c } from '../ac/complex.ts';
@@ -68,11 +68,11 @@ export const pumpKind = defineKind<PumpLoad>({
     ratedHead: positive('m'),
     shutoffHead: positive('m'),
     efficiency: unitFraction('efficiency'),
-    density: positive('kg/m³').optional(),
+    density: z.optional(positive('kg/m³')),
     staticHead: nonNegative('m'),
     flow: positive('m³/s'),
     control: z.enum(['speed', 'throttle'], { error: 'must be "speed" (a drive sets the speed) or "throttle" (full speed, a valve)' }),
-  }) as z.ZodType<PumpLoad>,
+  }) as z.ZodMiniType<PumpLoad>,
   check(e) {
     const out: Omit<Problem, 'elementId'>[] = [];
     if (!(e.shutoffHead > e.ratedHead)) out.push({ code: 'invalid-value', field: 'shutoffHead', value: e.shutoffHead, message: `must be above the rated head ${e.ratedHead} m (a pump curve falls with flow)` });
@@ -95,14 +95,14 @@ export const pumpKind = defineKind<PumpLoad>({
 
 /** Schema of the project's `flowStudy` field (single-field ranges; the pump id, flows against its rating and the hours of a year are checked by projectFlowStudy, core/machines/project-flow.ts). */
 export const flowStudySchema = z.strictObject({
-  pump: z.string({ error: 'must be the id of a pump element' }).min(1, 'must be the id of a pump element'),
+  pump: z.string({ error: 'must be the id of a pump element' }).check(z.minLength(1, 'must be the id of a pump element')),
   duty: z
     .array(
       z.strictObject({
-        flow: z.number({ error: 'must be a number' }).gte(0, 'must not be negative m³/s'),
-        hours: z.number({ error: 'must be a number' }).gte(0, 'must not be negative h'),
+        flow: z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative m³/s')),
+        hours: z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative h')),
       }),
       { error: 'must be a list of {flow, hours} rows' },
     )
-    .min(1, 'needs at least one {flow, hours} row'),
+    .check(z.minLength(1, 'needs at least one {flow, hours} row')),
 });

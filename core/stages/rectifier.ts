@@ -1,5 +1,5 @@
 /** Rectifier or battery charger: AC (1φ or 3φ) in, regulated DC out. */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { RectifierStage } from '../model.ts';
 import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, positive, regulatingConverter, unitFraction } from './spec.ts';
 
@@ -16,7 +16,7 @@ export const rectifierKind = defineKind<RectifierStage>({
     inputPowerFactor: unitFraction('power factor'),
     inputPfSense: pfSense,
     loss: lossModelSchema,
-  }) as z.ZodType<RectifierStage>,
+  }) as z.ZodMiniType<RectifierStage>,
   check: (e) => checkLossModel(e.loss),
   build: (e, input) =>
     regulatingConverter({

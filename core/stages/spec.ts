@@ -5,7 +5,7 @@
  * line voltage on single-phase, a real number on DC); powers are TOTAL complex powers S = P + jQ
  * (all phases), Q > 0 lagging.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { Element, ElementKind, PfSense, PortKind } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.ts';
@@ -70,7 +70,7 @@ export interface KindSpec<E extends Element = Element> {
   /** Port kinds this element can be fed from (empty for sources). */
   accepts(e: E): readonly PortKind[];
   /** Parameter schema: field types and single-field ranges. */
-  readonly schema: z.ZodType<E>;
+  readonly schema: z.ZodMiniType<E>;
   /** Checks across fields, run after the schema passed. */
   check?(e: E): Omit<Problem, 'elementId'>[];
   /** Prepare the element, given the port that feeds it (null for a source). */
@@ -83,15 +83,15 @@ export const defineKind = <E extends Element>(spec: KindSpec<E>): KindSpec<E> =>
 // ---------- shared schema fragments ----------
 
 const num = () => z.number({ error: 'must be a number' });
-export const positive = (unit: string) => num().gt(0, `must be greater than 0 ${unit}`.trim());
-export const nonNegative = (unit: string) => num().gte(0, `must not be negative ${unit}`.trim());
+export const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
+export const nonNegative = (unit: string) => num().check(z.gte(0, `must not be negative ${unit}`.trim()));
 /** Efficiency or power factor style quantity in (0, 1]. */
 export const unitFraction = (what: string) =>
-  num().gt(0, `${what} must be greater than 0`).lte(1, `${what} must not exceed 1 (enter 0.95 for 95 %)`);
-export const idField = z.string({ error: 'must be text' }).min(1, 'must not be empty');
-export const nameField = z.string({ error: 'must be text' }).optional();
-export const fromField = z.string({ error: 'must name the feeding element' }).min(1, 'must name the feeding element');
-export const pfSense = z.enum(['lagging', 'leading'], { error: 'must be "lagging" or "leading"' }).optional();
+  num().check(z.gt(0, `${what} must be greater than 0`), z.lte(1, `${what} must not exceed 1 (enter 0.95 for 95 %)`));
+export const idField = z.string({ error: 'must be text' }).check(z.minLength(1, 'must not be empty'));
+export const nameField = z.optional(z.string({ error: 'must be text' }));
+export const fromField = z.string({ error: 'must name the feeding element' }).check(z.minLength(1, 'must name the feeding element'));
+export const pfSense = z.optional(z.enum(['lagging', 'leading'], { error: 'must be "lagging" or "leading"' }));
 export const phases = z.union([z.literal(1), z.literal(3)], { error: 'must be 1 or 3' });
 
 const efficiencyPoints = z
@@ -102,7 +102,7 @@ const efficiencyPoints = z
     }),
     { error: 'must be a list of {loadFraction, efficiency} points' },
   )
-  .min(2, 'needs at least two datasheet points');
+  .check(z.minLength(2, 'needs at least two datasheet points'));
 
 export const lossModelSchema = z.discriminatedUnion(
   'model',
@@ -110,26 +110,26 @@ export const lossModelSchema = z.discriminatedUnion(
     z.strictObject({
       model: z.literal('constant'),
       efficiency: unitFraction('efficiency'),
-      idleLoss: nonNegative('W').optional(),
-      ratedPower: positive('W').optional(),
+      idleLoss: z.optional(nonNegative('W')),
+      ratedPower: z.optional(positive('W')),
     }),
     z.strictObject({
       model: z.literal('curve'),
       ratedPower: positive('W'),
       points: efficiencyPoints,
-      idleLoss: nonNegative('W').optional(),
+      idleLoss: z.optional(nonNegative('W')),
     }),
     z.strictObject({
       model: z.literal('polynomial'),
       p0: nonNegative('W'),
       k1: nonNegative(''),
       k2: nonNegative('per W'),
-      ratedPower: positive('W').optional(),
+      ratedPower: z.optional(positive('W')),
     }),
     z.strictObject({
       model: z.literal('polynomial-fit'),
       ratedPower: positive('W'),
-      points: efficiencyPoints.min(3, 'needs at least three datasheet points for a three-term fit'),
+      points: efficiencyPoints.check(z.minLength(3, 'needs at least three datasheet points for a three-term fit')),
     }),
   ],
   { error: 'must be one of "constant", "curve", "polynomial", "polynomial-fit"' },

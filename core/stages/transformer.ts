@@ -7,7 +7,7 @@
  *   X = √(Z%² − R%²)·Z_b/100 when the percent impedance is given, else 0.
  * Regulation then follows from the exact two-bus solution on the secondary side.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { TransformerStage } from '../model.ts';
 import { abs, add, c, scale } from '../ac/complex.ts';
 import { defineKind, fmtPct, fmtW, fromField, idField, nameField, nonNegative, perPhase, positive, seriesLink } from './spec.ts';
@@ -26,8 +26,8 @@ export const transformerKind = defineKind<TransformerStage>({
     secondaryVoltage: positive('V'),
     noLoadLoss: nonNegative('W'),
     loadLoss: nonNegative('W'),
-    impedancePercent: positive('%').optional(),
-  }) as z.ZodType<TransformerStage>,
+    impedancePercent: z.optional(positive('%')),
+  }) as z.ZodMiniType<TransformerStage>,
   check(e) {
     const rPct = (100 * e.loadLoss) / e.ratedApparentPower;
     // A %Z typed equal to %R may differ from the recomputed %R in the last bit: allow for it.

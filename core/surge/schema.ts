@@ -3,13 +3,13 @@
  * inverter `surge`, source fault data, protective devices). Kept here so each kind's file gains
  * one line; the kinds' own schemas stay strict.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { MotorStarting } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { CODE_LETTERS } from '../data/motor-code-letters.ts';
 
 const num = () => z.number({ error: 'must be a number' });
-const positive = (unit: string) => num().gt(0, `must be greater than 0 ${unit}`.trim());
+const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
 
 export const protectiveDeviceSchema = z.strictObject({
   interruptingRating: positive('A (the interrupting rating, or breaking capacity, from the device maker)'),
@@ -22,18 +22,19 @@ export const surgeSchema = z.strictObject({
 
 export const startingSchema = z.strictObject({
   method: z.enum(['dol', 'star-delta', 'soft-starter', 'drive'], { error: 'must be "dol", "star-delta", "soft-starter" or "drive"' }),
-  codeLetter: z
-    .string({ error: 'must be a code letter' })
-    .refine((s) => (CODE_LETTERS as readonly string[]).includes(s), {
-      message: `is not a locked-rotor code letter of NEC Table 430.7(B); expected one of ${CODE_LETTERS.join(', ')} (I, O and Q are not used)`,
-    })
-    .optional(),
-  startingCurrentRatio: num().gt(1, 'must be above 1 (locked-rotor current / rated current, typically 5–8)').lte(20, 'must not exceed 20').optional(),
-  lockedRotorCurrent: positive('A').optional(),
-  currentLimit: num().gt(1, 'must be above 1 (a multiple of full-load current, typically 3–4)').lte(10, 'must not exceed 10').optional(),
-  startingPowerFactor: num().gt(0, 'must be greater than 0').lt(1, 'must be below 1 (typically 0.2–0.4 at locked rotor)').optional(),
-  startSeconds: positive('s').optional(),
-  minTerminalVoltagePercent: num().gt(0, 'must be greater than 0 %').lt(100, 'must be below 100 %').optional(),
+  codeLetter: z.optional(
+    z.string({ error: 'must be a code letter' }).check(
+      z.refine((s) => (CODE_LETTERS as readonly string[]).includes(s), {
+        message: `is not a locked-rotor code letter of NEC Table 430.7(B); expected one of ${CODE_LETTERS.join(', ')} (I, O and Q are not used)`,
+      }),
+    ),
+  ),
+  startingCurrentRatio: z.optional(num().check(z.gt(1, 'must be above 1 (locked-rotor current / rated current, typically 5–8)'), z.lte(20, 'must not exceed 20'))),
+  lockedRotorCurrent: z.optional(positive('A')),
+  currentLimit: z.optional(num().check(z.gt(1, 'must be above 1 (a multiple of full-load current, typically 3–4)'), z.lte(10, 'must not exceed 10'))),
+  startingPowerFactor: z.optional(num().check(z.gt(0, 'must be greater than 0'), z.lt(1, 'must be below 1 (typically 0.2–0.4 at locked rotor)'))),
+  startSeconds: z.optional(positive('s')),
+  minTerminalVoltagePercent: z.optional(num().check(z.gt(0, 'must be greater than 0 %'), z.lt(100, 'must be below 100 %'))),
 });
 
 /** At most one source of the locked-rotor current; a current limit belongs to a soft starter. */
@@ -51,9 +52,9 @@ export function checkStarting(s: MotorStarting | undefined): Omit<Problem, 'elem
 
 /** Fault and dip fields shared by the grid and generator kinds. */
 export const sourceFaultFields = {
-  subtransientReactancePercent: positive('% (X\u2033d on the generator rating, typically 10–25 %)').lte(100, 'must not exceed 100 %').optional(),
-  maxDipPercent: positive('%').lt(100, 'must be below 100 %').optional(),
-  shortCircuitPower: positive('VA').optional(),
-  shortCircuitRToX: num().gte(0, 'must not be negative').lte(10, 'must not exceed 10').optional(),
-  voltageTolerancePercent: z.union([z.literal(6), z.literal(10)], { error: 'must be 6 or 10 (% tolerance of the low-voltage system, IEC 60909-0 Table 1)' }).optional(),
+  subtransientReactancePercent: z.optional(positive('% (X\u2033d on the generator rating, typically 10–25 %)').check(z.lte(100, 'must not exceed 100 %'))),
+  maxDipPercent: z.optional(positive('%').check(z.lt(100, 'must be below 100 %'))),
+  shortCircuitPower: z.optional(positive('VA')),
+  shortCircuitRToX: z.optional(num().check(z.gte(0, 'must not be negative'), z.lte(10, 'must not exceed 10'))),
+  voltageTolerancePercent: z.optional(z.union([z.literal(6), z.literal(10)], { error: 'must be 6 or 10 (% tolerance of the low-voltage system, IEC 60909-0 Table 1)' })),
 };

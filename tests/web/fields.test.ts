@@ -3,7 +3,7 @@
 // schema knows, and an element built from the descriptors' defaults validates — and solves in a
 // small chain. Check values are the engine's own verdicts (core/solve) or "common practice (no source)".
 import { describe, expect, it } from 'vitest';
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import { KINDS, solveProject, validateProject, defaultCatalogue } from '../../core/index.ts';
 import type { ElementKind } from '../../core/model.ts';
 import {
@@ -22,28 +22,38 @@ import {
   type GroupSpec,
 } from '../../web/editor/fields.ts';
 
+// The engine's schemas are zod/mini; these helpers read them through zod's core classes and definitions.
+type Schema = z.core.$ZodType;
+
+/** The schema under optional and nullable wrappers. */
+function unwrap(schema: Schema): Schema {
+  let s = schema;
+  for (let i = 0; i < 5 && (s instanceof z.core.$ZodOptional || s instanceof z.core.$ZodNullable); i++) s = s._zod.def.innerType;
+  return s;
+}
+
 /** The object schema under a zod schema (optional wrappers removed). */
-function objectShape(schema: z.ZodType): Record<string, z.ZodType> | undefined {
-  let s: z.ZodType = schema;
-  for (let i = 0; i < 5 && (s instanceof z.ZodOptional || s instanceof z.ZodNullable); i++) s = (s as z.ZodOptional<z.ZodType>).unwrap();
-  return s instanceof z.ZodObject ? (s.shape as Record<string, z.ZodType>) : undefined;
+function objectShape(schema: Schema): Record<string, Schema> | undefined {
+  const s = unwrap(schema);
+  return s instanceof z.core.$ZodObject ? (s._zod.def.shape as Record<string, Schema>) : undefined;
 }
 
 /** Every variant of a discriminated union or plain object, as shapes. */
-function shapesOf(schema: z.ZodType): Record<string, z.ZodType>[] {
-  let s: z.ZodType = schema;
-  while (s instanceof z.ZodOptional) s = s.unwrap() as z.ZodType;
-  if (s instanceof z.ZodDiscriminatedUnion || s instanceof z.ZodUnion) return (s.options as z.ZodType[]).flatMap(shapesOf);
+function shapesOf(schema: Schema): Record<string, Schema>[] {
+  const s = unwrap(schema);
+  if (s instanceof z.core.$ZodUnion) return (s._zod.def.options as readonly Schema[]).flatMap(shapesOf);
   const shape = objectShape(s);
   return shape ? [shape] : [];
 }
 
 /** Does the engine's schema know this dotted path (array indices and table columns allowed)? */
-function schemaKnows(schema: z.ZodType, path: string[]): boolean {
+function schemaKnows(schema: Schema, path: string[]): boolean {
   if (path.length === 0) return true;
-  let s: z.ZodType = schema;
-  while (s instanceof z.ZodOptional) s = s.unwrap() as z.ZodType;
-  if (s instanceof z.ZodArray) return /^\d+$/.test(path[0]!) ? schemaKnows(s.element as z.ZodType, path.slice(1)) : schemaKnows(s.element as z.ZodType, path);
+  const s = unwrap(schema);
+  if (s instanceof z.core.$ZodArray) {
+    const element = s._zod.def.element as Schema;
+    return /^\d+$/.test(path[0]!) ? schemaKnows(element, path.slice(1)) : schemaKnows(element, path);
+  }
   return shapesOf(s).some((shape) => path[0]! in shape && schemaKnows(shape[path[0]!]!, path.slice(1)));
 }
 
