@@ -8,7 +8,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { demoProjects, pumpDetails, projectFlowStudy, solveProject, validateProject } from '../../core/index.ts';
+import { demoProjects, pumpDetails, projectFlowStudy, solveProject, studySurges, validateProject } from '../../core/index.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli.ts', ...args], { encoding: 'utf8' });
@@ -30,13 +30,13 @@ describe('command-line solver', () => {
     }, 30_000);
   }
 
-  it('--json prints the full result, identical to the engine called directly (plus the pump sections)', () => {
+  it('--json prints the full result, identical to the engine called directly (plus the pump and surge sections)', () => {
     const out = execFileSync(TSX, ['core/cli.ts', 'core/demos/riverside-pump-station.json', '--json'], { encoding: 'utf8' });
     const demo = demoProjects[1]!.project;
     const outcome = solveProject(demo);
     expect(outcome.ok).toBe(true);
     if (!outcome.ok) return;
-    const { pumps, flowStudy, ...result } = JSON.parse(out);
+    const { pumps, flowStudy, surgeStudy, ...result } = JSON.parse(out);
     expect(result).toEqual(JSON.parse(JSON.stringify(outcome.result)));
     // The demo has a pump and a flowStudy: both sections come from core/machines, run in-process here.
     const study = projectFlowStudy(demo);
@@ -44,6 +44,10 @@ describe('command-line solver', () => {
     if (study.ok) expect(flowStudy).toEqual(JSON.parse(JSON.stringify(study.result)));
     const valid = validateProject(demo);
     if (valid.ok) expect(pumps).toEqual(JSON.parse(JSON.stringify(pumpDetails(valid.project))));
+    // The demo carries starting and device data: the surge study comes from core/surge, run in-process here.
+    const surges = studySurges(demo);
+    expect(surges.ok).toBe(true);
+    if (surges.ok) expect(surgeStudy).toEqual(JSON.parse(JSON.stringify(surges.result)));
   }, 30_000);
 
   it('exits 1 with one line per problem on bad input', () => {
