@@ -88,6 +88,8 @@ export default defineConfig({
           // Builds the app and drives a real browser: minutes, not seconds, on a slow machine.
           testTimeout: 180_000,
           hookTimeout: 240_000,
+          // A shared 2-core machine under load: give expect.poll more than its 1 s default.
+          expect: { poll: { timeout: 10_000 } },
         },
       },
     ],

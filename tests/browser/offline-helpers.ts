@@ -57,6 +57,20 @@ export async function storedRecords(page: Page): Promise<{ id: string; revision:
   return entries.map(([, v]) => v);
 }
 
+/**
+ * Poll an expression in the page until it is true. page.evaluate runs it through the debugging
+ * protocol, which the page's content security policy (no eval) does not block, whereas
+ * page.waitForFunction with a string would be refused. Works in hooks too (no expect.poll).
+ */
+export async function pollPage(page: Page, expression: string, what: string, timeoutMs = 10_000): Promise<void> {
+  const end = Date.now() + timeoutMs;
+  while (Date.now() < end) {
+    if ((await page.evaluate(expression)) === true) return;
+    await new Promise((r) => setTimeout(r, 50));
+  }
+  throw new Error(`timed out after ${timeoutMs} ms waiting for ${what}`);
+}
+
 /** Wait until the open project's results are shown. */
 export async function waitForResults(page: Page): Promise<void> {
   await page.getByTestId('element-table').waitFor({ timeout: 30_000 });
@@ -73,13 +87,13 @@ export async function duplicateLastStage(page: Page): Promise<void> {
   const before = await cardCount(page);
   await page.locator('[data-card-id]').last().click();
   await page.getByTestId('op-duplicate').click();
-  await page.waitForFunction(`document.querySelectorAll('[data-card-id]').length > ${before}`, undefined, { timeout: 10_000 });
+  await pollPage(page, `document.querySelectorAll('[data-card-id]').length > ${before}`, 'the duplicated stage to appear');
 }
 
 /** Wait until the last edit is written (the save line says "saved"). */
 export async function waitSaved(page: Page): Promise<void> {
   // A page-side wait (not expect.poll), so it also works in beforeAll hooks.
-  await page.waitForFunction(`document.querySelector('[data-testid="save-line"]')?.dataset.state === 'saved'`, undefined, { timeout: 10_000 });
+  await pollPage(page, `document.querySelector('[data-testid="save-line"]')?.dataset.state === 'saved'`, 'the save line to say saved');
 }
 
 /** Wait until the service worker controls the page's scope and is active. */

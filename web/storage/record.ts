@@ -3,7 +3,7 @@
  * Pure functions and plain data: no IndexedDB, no DOM, no clock (the caller passes times), so the
  * Node tests check them directly. The format is documented in web/storage/README.md.
  */
-import { z } from 'zod';
+import { z } from 'zod/mini';
 import type { DraftProject } from '../state/editor.ts';
 
 /** Version of the stored record layout written by this build. Raise it with a migration below. */
@@ -36,26 +36,27 @@ export interface StoredProject {
   project: DraftProject;
 }
 
-const isoTime = z.string().refine((s) => !Number.isNaN(Date.parse(s)), 'must be an ISO 8601 time');
+// zod/mini (the engine's flavour): the same checks without the chained API in the first load.
+const isoTime = z.string().check(z.refine((s) => !Number.isNaN(Date.parse(s)), 'must be an ISO 8601 time'));
 
-const elementShape = z.looseObject({ id: z.string(), kind: z.string(), from: z.string().optional(), name: z.string().optional() });
+const elementShape = z.looseObject({ id: z.string(), kind: z.string(), from: z.optional(z.string()), name: z.optional(z.string()) });
 const projectShape = z.looseObject({
   format: z.literal('joulepath-project'),
   version: z.number(),
   name: z.string(),
-  description: z.string().optional(),
+  description: z.optional(z.string()),
   elements: z.array(elementShape),
 });
 
 const recordV1 = z.object({
   storageVersion: z.literal(1),
-  id: z.string().min(1),
+  id: z.string().check(z.minLength(1)),
   createdAt: isoTime,
   savedAt: isoTime,
-  revision: z.number().int().nonnegative(),
+  revision: z.int().check(z.nonnegative()),
   tabId: z.string(),
-  demoId: z.string().optional(),
-  deletedAt: isoTime.optional(),
+  demoId: z.optional(z.string()),
+  deletedAt: z.optional(isoTime),
   project: projectShape,
 });
 
@@ -66,8 +67,8 @@ const recordV1 = z.object({
  */
 const recordV0 = z.object({
   title: z.string(),
-  updated: z.number().finite(),
-  data: projectShape.extend({ name: z.string().optional() }),
+  updated: z.number(),
+  data: z.extend(projectShape, { name: z.optional(z.string()) }),
 });
 
 export type ReadRecord =
