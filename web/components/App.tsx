@@ -1,15 +1,84 @@
 /** The page: header, demo picker, the open project (chain editor and results), and the footer. */
 import { DemoPicker } from './DemoPicker.tsx';
+import { ProjectList } from './ProjectList.tsx';
+import { SaveLine, StorageAlerts, StorageDetails } from './StorageStatus.tsx';
 import { Preferences } from './Preferences.tsx';
 import { ProblemList } from './ProblemList.tsx';
 import { ElementTable, EnergyBalance, MethodNote, PortTable, WarningList } from './Results.tsx';
 import { lazy, Suspense } from 'preact/compat';
-import { useEffect } from 'preact/hooks';
+import { useEffect, useState } from 'preact/hooks';
+import type { SolveResult } from '../../core/result.ts';
 import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
 import { crashMessage, draft, draftOrigin, draftProblems, lastValidResult, resultsState } from '../state/editor.ts';
 
 /** The energy-flow diagram (and d3-sankey) load only when a solved project is shown. */
 const EnergyFlow = lazy(() => import('./EnergyFlow.tsx'));
+/** The client report (print-only, with its print button): loads beside the diagram, ready before anyone prints. */
+const ClientReport = lazy(() => import('./ClientReport.tsx'));
+/** The chain editor (cards, chooser, templates) loads beside the first results, outside the first-load budget. */
+const ChainEditor = lazy(() => import('./ChainEditor.tsx'));
+
+/** The battery, conductor and machines panels: each module loads the first time its panel is opened. */
+const BatteryPanel = lazy(() => import('./BatteryPanel.tsx'));
+const ConductorPanel = lazy(() => import('./ConductorPanel.tsx'));
+const MachinesPanel = lazy(() => import('./MachinesPanel.tsx'));
+
+/** A disclosure whose content (a lazily loaded panel) is rendered only while it is open. */
+function PanelDisclosure({ id, title, hint, children }: { id: string; title: string; hint: string; children: () => preact.ComponentChildren }) {
+  const [open, setOpen] = useState(false);
+  return (
+    <details class="panel" data-testid={`panel-${id}`} onToggle={(e) => setOpen((e.currentTarget as HTMLDetailsElement).open)}>
+      <summary class="panel__summary">
+        <span class="panel__title">{title}</span>
+        <span class="panel__hint">{hint}</span>
+      </summary>
+      {open && <Suspense fallback={<p class="note">Opening…</p>}>{children()}</Suspense>}
+    </details>
+  );
+}
+
+/** The panels that apply to the open project (a battery source with a bank; sized conductors; always the machines and cost panel). */
+function PanelShelf({ result }: { result: SolveResult }) {
+  const project = draft.value;
+  if (!project) return null;
+  const root = project.elements.find((e) => e.from === undefined);
+  const battery = root?.kind === 'battery' && typeof root['bank'] === 'object' && root['bank'] !== null;
+  const conductors = result.elements.some((e) => e.conductor);
+  const machines = project.elements.some((e) => e.kind === 'motor' || e.kind === 'drive' || e.kind === 'pump');
+  return (
+    <section class="panels" aria-label="Studies of this project" data-testid="panels">
+      {battery && (
+        <PanelDisclosure id="battery" title="Battery backup" hint="runtime, why not Wh ÷ W, bank sizing, recharge, plot">
+          {() => <BatteryPanel />}
+        </PanelDisclosure>
+      )}
+      {conductors && (
+        <PanelDisclosure id="conductor" title="Conductor sizing" hint="size and why, ampacity, device, drop, heat, working">
+          {() => <ConductorPanel result={result} />}
+        </PanelDisclosure>
+      )}
+      <PanelDisclosure
+        id="machines"
+        title={machines ? 'Machines, power factor and running cost' : 'Power factor and running cost'}
+        hint={machines ? 'motors, drives, pumps, flow study, capacitor bank, cost of losses' : 'capacitor bank, cost of losses per year'}
+      >
+        {() => <MachinesPanel />}
+      </PanelDisclosure>
+    </section>
+  );
+}
+
+/** A fresh key per opened project, so panel state never carries over from another project. */
+const originKeys = new WeakMap<object, number>();
+let lastOriginKey = 0;
+function originKey(origin: object | null): number {
+  if (!origin) return 0;
+  const known = originKeys.get(origin);
+  if (known !== undefined) return known;
+  lastOriginKey += 1;
+  originKeys.set(origin, lastOriginKey);
+  return lastOriginKey;
+}
 
 /** Says plainly when the results on screen are not those of the inputs on screen. */
 function StaleNotice() {
@@ -49,6 +118,7 @@ function ShownProject() {
         <h2 id="project-heading">{shownTitle.value}</h2>
         {description && <p class="project__summary">{description}</p>}
       </header>
+      <Suspense fallback={<p class="note">Opening the chain editor…</p>}><ChainEditor /></Suspense>
       {problems.length > 0 && <ProblemList problems={problems} />}
       {crashed && (
         <section class="notice notice--error" role="alert" data-testid="unreadable">
@@ -59,11 +129,13 @@ function ShownProject() {
         <div class={stale ? 'results results--stale' : 'results'} data-testid="results" data-state={resultsState.value}>
           <StaleNotice />
           <EnergyBalance result={result} />
+          <Suspense fallback={null}><ClientReport result={result} /></Suspense>
           <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={result} /></Suspense>
           <WarningList result={result} />
           <ElementTable result={result} />
           <PortTable result={result} />
           <MethodNote result={result} />
+          <PanelShelf key={originKey(origin)} result={result} />
         </div>
       )}
     </article>
@@ -80,7 +152,12 @@ export function App() {
         <Preferences />
       </header>
       <main class="layout">
-        <DemoPicker />
+        <div class="sidebar">
+          <ProjectList />
+          <SaveLine />
+          <DemoPicker />
+          <StorageDetails />
+        </div>
         <ShownProject />
       </main>
       <footer class="footer">
@@ -93,6 +170,7 @@ export function App() {
           1 kcmil = 0.506707 mm², 1 hp = 745.7 W, °F = 1.8 × °C + 32).
         </p>
       </footer>
+      <StorageAlerts />
     </div>
   );
 }

@@ -97,6 +97,22 @@ export function loadProject(project: DraftProject, origin: DraftOrigin): void {
   });
 }
 
+/**
+ * Give the open project another name without an undo step (a stored copy's name, a rename from the
+ * project list): the history takes the name too, so undo never brings the old one back.
+ */
+export function renameDraft(name: string): void {
+  const d = draft.value;
+  if (!d || d.name === name) return;
+  const rename = (e: { project: DraftProject; label: string; selected: string | null }) => ({ ...e, project: { ...e.project, name } });
+  batch(() => {
+    draft.value = { ...d, name };
+    past.value = past.value.map(rename);
+    future.value = future.value.map(rename);
+    draftRevision.value++;
+  });
+}
+
 /** Close the open project (nothing shown). */
 export function closeProject(): void {
   batch(() => {
@@ -375,15 +391,20 @@ export function insertBefore(beforeId: string, element: DraftElement): Operation
 
 /**
  * Remove one element; what it fed is fed from its feeder instead (so removing a cable joins its
- * two ends). The source cannot be removed while it feeds anything.
+ * two ends). The source is never removed: a project has exactly one.
  */
 export function removeElement(id: string): OperationOutcome {
   const p = draft.value;
   if (!p) return refuse('No project is open.');
   const target = p.elements.find((e) => e.id === id);
   if (!target) return refuse(`There is no element "${id}".`);
-  if (target.from === undefined && childrenOf(p, id).length > 0) {
-    return refuse('The source feeds the whole chain: remove what it feeds first, or start a new project.');
+  // A project keeps its one source (removing a lone source would leave a project with none).
+  if (target.from === undefined) {
+    return refuse(
+      childrenOf(p, id).length > 0
+        ? 'The source feeds the whole chain: remove what it feeds first, or start a new project.'
+        : 'A project keeps its source: start a new project to begin from another one.',
+    );
   }
   edit(`Removed ${elementName(p, id)}`, (x) => {
     for (const e of x.elements) if (e.from === id) e.from = target.from;
