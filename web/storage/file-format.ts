@@ -10,7 +10,8 @@
  * A project whose fields the engine rejects is still accepted (it opens with its problems listed, to
  * be fixed); the engine's checks run on it afterwards, not here.
  */
-import { z } from 'zod';
+import * as z from 'zod/mini';
+import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
 
 export const EXPORT_FORMAT = 'joulepath-export';
@@ -137,37 +138,38 @@ export function scanValue(root: unknown): string | null {
   return null;
 }
 
+const text = (error: string) => z.string({ error });
+
 const elementShape = z.looseObject({
-  id: z.string({ error: 'must be text' }).min(1, 'must not be empty').max(100, 'must be at most 100 characters'),
-  kind: z.string({ error: 'must be text' }).min(1, 'must not be empty').max(60, 'must be at most 60 characters'),
-  from: z.string({ error: 'must be text (the id of the feeding element)' }).optional(),
-  name: z.string({ error: 'must be text' }).optional(),
+  id: text('must be text').check(z.minLength(1, 'must not be empty'), z.maxLength(100, 'must be at most 100 characters')),
+  kind: text('must be text').check(z.minLength(1, 'must not be empty'), z.maxLength(60, 'must be at most 60 characters')),
+  from: z.optional(text('must be text (the id of the feeding element)')),
+  name: z.optional(text('must be text')),
 });
 
 const projectShape = z.looseObject({
   format: z.literal('joulepath-project', { error: 'must be "joulepath-project"' }),
   version: z.number({ error: 'must be a number' }),
-  name: z.string({ error: 'must be text' }).max(200, 'must be at most 200 characters'),
-  description: z.string({ error: 'must be text' }).optional(),
+  name: text('must be text').check(z.maxLength(200, 'must be at most 200 characters')),
+  description: z.optional(text('must be text')),
   elements: z
     .array(elementShape, { error: 'must be a list of elements' })
-    .min(1, 'is empty: a project needs at least its source')
-    .max(IMPORT_LIMITS.maxElements, `has more than ${IMPORT_LIMITS.maxElements} elements`),
+    .check(
+      z.minLength(1, 'is empty: a project needs at least its source'),
+      z.maxLength(IMPORT_LIMITS.maxElements, `has more than ${IMPORT_LIMITS.maxElements} elements`),
+    ),
 });
 
 const envelopeShape = z.object({
   format: z.literal(EXPORT_FORMAT),
   exportVersion: z.number({ error: 'must be a number' }),
-  exportedAt: z.string({ error: 'must be text' }).optional(),
-  exportedBy: z.string({ error: 'must be text' }).optional(),
-  projectId: z
-    .string({ error: 'must be text' })
-    .regex(/^[A-Za-z0-9-]{1,64}$/, 'must be letters, digits and dashes (at most 64)')
-    .optional(),
-  project: z.unknown().optional(),
+  exportedAt: z.optional(text('must be text')),
+  exportedBy: z.optional(text('must be text')),
+  projectId: z.optional(text('must be text').check(z.regex(/^[A-Za-z0-9-]{1,64}$/, 'must be letters, digits and dashes (at most 64)'))),
+  project: z.optional(z.unknown()),
 });
 
-function firstIssue(error: z.ZodError, prefix: (string | number)[] = []): string {
+function firstIssue(error: z.core.$ZodError, prefix: (string | number)[] = []): string {
   const issue = error.issues[0];
   if (!issue) return 'its shape is not that of a project';
   const path = [...prefix, ...issue.path.map((p) => (typeof p === 'number' ? p : String(p)))];
@@ -197,7 +199,7 @@ function checkProject(data: unknown, prefix: (string | number)[]): ImportOutcome
   }
   const version = versionMessage('project schema', (data as Record<string, unknown>)['version'], PROJECT_VERSION);
   if (version) return refuse(version);
-  const parsed = projectShape.safeParse(data);
+  const parsed = projectShape.safeParse(data, { error: issueMessage });
   if (!parsed.success) return refuse(`The project in the file is not usable: ${firstIssue(parsed.error, prefix)}.`);
   const seen = new Map<string, number>();
   for (const [i, e] of parsed.data.elements.entries()) {
@@ -228,7 +230,7 @@ export function parseImportText(text: string): ImportOutcome {
   if (format !== EXPORT_FORMAT) return checkProject(data, []);
   const version = versionMessage('export format', (data as Record<string, unknown>)['exportVersion'], EXPORT_VERSION);
   if (version) return refuse(version);
-  const envelope = envelopeShape.safeParse(data);
+  const envelope = envelopeShape.safeParse(data, { error: issueMessage });
   if (!envelope.success) return refuse(`The file's envelope is not usable: ${firstIssue(envelope.error)}.`);
   const inner = checkProject(envelope.data.project, ['project']);
   if (!inner.ok) return inner;

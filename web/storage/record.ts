@@ -4,6 +4,7 @@
  * Node tests check them directly. The format is documented in web/storage/README.md.
  */
 import { z } from 'zod/mini';
+import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
 
 /** Version of the stored record layout written by this build. Raise it with a migration below. */
@@ -78,7 +79,7 @@ export type ReadRecord =
 /** Each step lifts a record from version n to n+1. */
 const MIGRATIONS: Record<number, (raw: unknown, id: string) => unknown> = {
   0: (raw, id) => {
-    const v0 = recordV0.parse(raw);
+    const v0 = recordV0.parse(raw, { error: issueMessage });
     const time = new Date(v0.updated).toISOString();
     const { data } = v0;
     return {
@@ -123,7 +124,7 @@ export function readRecord(id: string, raw: unknown): ReadRecord {
   } catch (error) {
     return { ok: false, id, reason: 'damaged', message: `The stored record could not be migrated (${error instanceof Error ? error.message : String(error)}).` };
   }
-  const parsed = recordV1.safeParse(value);
+  const parsed = recordV1.safeParse(value, { error: issueMessage });
   if (!parsed.success) {
     const first = parsed.error.issues[0];
     return { ok: false, id, reason: 'damaged', message: `The stored record is damaged (${first ? `${first.path.join('.')}: ${first.message}` : 'unknown shape'}).` };
