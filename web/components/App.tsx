@@ -22,6 +22,9 @@ const ChainEditor = lazy(() => import('./ChainEditor.tsx'));
 const BatteryPanel = lazy(() => import('./BatteryPanel.tsx'));
 const ConductorPanel = lazy(() => import('./ConductorPanel.tsx'));
 const MachinesPanel = lazy(() => import('./MachinesPanel.tsx'));
+const StartingPanel = lazy(() => import('./StartingPanel.tsx'));
+/** Project-level settings (name, description, voltage-drop limits): loaded when opened. */
+const ProjectForm = lazy(() => import('./ProjectForm.tsx').then((m) => ({ default: m.ProjectForm })));
 
 /** A disclosure whose content (a lazily loaded panel) is rendered only while it is open. */
 function PanelDisclosure({ id, title, hint, children }: { id: string; title: string; hint: string; children: () => preact.ComponentChildren }) {
@@ -63,6 +66,13 @@ function PanelShelf({ result }: { result: SolveResult }) {
         hint={machines ? 'motors, drives, pumps, flow study, capacitor bank, cost of losses' : 'capacitor bank, cost of losses per year'}
       >
         {() => <MachinesPanel />}
+      </PanelDisclosure>
+      <PanelDisclosure
+        id="starting"
+        title="Motor starting and fault current"
+        hint="will it start, fault current at each point, device interrupting ratings, traps"
+      >
+        {() => <StartingPanel project={project} />}
       </PanelDisclosure>
     </section>
   );
@@ -119,6 +129,9 @@ function ShownProject() {
         {description && <p class="project__summary">{description}</p>}
       </header>
       <Suspense fallback={<p class="note">Opening the chain editor…</p>}><ChainEditor /></Suspense>
+      <PanelDisclosure id="project-settings" title="Project settings" hint="name, description, voltage-drop limits">
+        {() => <ProjectForm />}
+      </PanelDisclosure>
       {problems.length > 0 && <ProblemList problems={problems} />}
       {crashed && (
         <section class="notice notice--error" role="alert" data-testid="unreadable">

@@ -8,7 +8,10 @@
  * it, the engine (core/) checks every value written. Defaults are planning examples the user is
  * expected to replace; none of them is a computed engineering figure.
  */
-import { CHEMISTRIES, CHEMISTRY_PRESETS, KINDS, MOTOR_CLASSES, defaultCatalogue, resolveLimits } from '../../core/index.ts';
+import { CHEMISTRIES, CHEMISTRY_PRESETS } from '../../core/data/battery-chemistries.ts';
+import { KINDS } from '../../core/stages/index.ts';
+import { MOTOR_CLASSES } from '../../core/machines/motor-rating.ts';
+import { defaultCatalogue, resolveLimits } from '../../core/conductors/index.ts';
 import { CODE_LETTERS } from '../../core/data/motor-code-letters.ts';
 import type { Chemistry, ChemistryValues, DropLimits, ElementKind, IecInstallationMethod } from '../../core/index.ts';
 import type { Quantity } from '../format/parse.ts';

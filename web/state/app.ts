@@ -5,7 +5,7 @@
  * which holds the draft, its history and its solution. The page never computes engineering values.
  */
 import { computed, signal } from '@preact/signals';
-import { demoProjects } from '../../core/index.ts';
+import { demoProjects } from '../../core/demos/index.ts';
 import { draft, draftOrigin, loadProject, type DraftProject } from './editor.ts';
 import { importFile, openLatestStored, openStored, storedIdFromHash } from '../storage/session.ts';
 

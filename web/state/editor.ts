@@ -13,7 +13,7 @@
  *   into one undo step.
  */
 import { batch, computed, effect, signal } from '@preact/signals';
-import { solveProject, validateProject, type SolveOutcome } from '../../core/index.ts';
+import { solveProject, validateProject, type SolveOutcome } from '../../core/solve/index.ts';
 import type { Problem } from '../../core/errors.ts';
 import type { SolveResult } from '../../core/result.ts';
 
