@@ -5,18 +5,20 @@ import { SaveLine, StorageAlerts, StorageDetails } from './StorageStatus.tsx';
 import { Preferences } from './Preferences.tsx';
 import { ProblemList } from './ProblemList.tsx';
 import { ElementTable, EnergyBalance, MethodNote, PortTable, WarningList } from './Results.tsx';
-import { lazy, Suspense } from 'preact/compat';
+import { lazy, memo, Suspense } from 'preact/compat';
 import { useEffect, useState } from 'preact/hooks';
 import type { SolveResult } from '../../core/result.ts';
 import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
-import { crashMessage, draft, draftOrigin, draftProblems, lastValidResult, resultsState } from '../state/editor.ts';
+import { crashMessage, draft, draftOrigin, draftProblems, lastValidResult, openCount, resultsState } from '../state/editor.ts';
 
 /** The energy-flow diagram (and d3-sankey) load only when a solved project is shown. */
 const EnergyFlow = lazy(() => import('./EnergyFlow.tsx'));
 /** The client report (print-only, with its print button): loads beside the diagram, ready before anyone prints. */
 const ClientReport = lazy(() => import('./ClientReport.tsx'));
 /** The chain editor (cards, chooser, templates) loads beside the first results, outside the first-load budget. */
-const ChainEditor = lazy(() => import('./ChainEditor.tsx'));
+// memo: the editor takes no props and follows the editor's signals itself, so the project view
+// re-rendering after an edit does not re-render every card and field again.
+const ChainEditor = memo(lazy(() => import('./ChainEditor.tsx')));
 
 /** The battery, conductor and machines panels: each module loads the first time its panel is opened. */
 const BatteryPanel = lazy(() => import('./BatteryPanel.tsx'));
@@ -78,18 +80,6 @@ function PanelShelf({ result }: { result: SolveResult }) {
   );
 }
 
-/** A fresh key per opened project, so panel state never carries over from another project. */
-const originKeys = new WeakMap<object, number>();
-let lastOriginKey = 0;
-function originKey(origin: object | null): number {
-  if (!origin) return 0;
-  const known = originKeys.get(origin);
-  if (known !== undefined) return known;
-  lastOriginKey += 1;
-  originKeys.set(origin, lastOriginKey);
-  return lastOriginKey;
-}
-
 /** Says plainly when the results on screen are not those of the inputs on screen. */
 function StaleNotice() {
   const state = resultsState.value;
@@ -148,7 +138,7 @@ function ShownProject() {
           <ElementTable result={result} />
           <PortTable result={result} />
           <MethodNote result={result} />
-          <PanelShelf key={originKey(origin)} result={result} />
+          <PanelShelf key={openCount.value} result={result} />
         </div>
       )}
     </article>

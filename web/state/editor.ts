@@ -62,6 +62,11 @@ export const lastChange = signal('');
 
 /** Counts every change to the draft (storage and timing hooks listen to it). */
 export const draftRevision = signal(0);
+/**
+ * Counts projects opened (loadProject): a key for state that belongs to one opened project. It does
+ * not change when the open project only changes where it is kept (a demo's first edit stores a copy).
+ */
+export const openCount = signal(0);
 
 function clone<T>(value: T): T {
   return structuredClone(value);
@@ -87,6 +92,7 @@ export function loadProject(project: DraftProject, origin: DraftOrigin): void {
   batch(() => {
     draft.value = clone(project);
     draftOrigin.value = origin;
+    openCount.value++;
     past.value = [];
     future.value = [];
     fieldErrors.value = new Map();
@@ -561,7 +567,7 @@ effect(() => {
 });
 // A different project starts without old results.
 effect(() => {
-  void draftOrigin.value;
+  void openCount.value;
   const o = outcome.peek();
   lastValidResult.value = o?.ok ? o.result : null;
 });
