@@ -273,7 +273,10 @@ export function setField(elementId: string, path: string, value: unknown, label?
     elementId === 'project' ? (candidate as Record<string, unknown>) : candidate.elements.find((e) => e.id === elementId);
   if (!target) return `There is no element "${elementId}".`;
   setAt(target, path, value);
-  const problems = problemsForField(candidate, elementId, path);
+  // Solve the candidate once: when it solves, no field of it is invalid (the solve validates it
+  // first) and the outcome is kept for `outcome`, so a keystroke validates the project once, not twice.
+  const solved = solveOnce(candidate);
+  const problems = solved?.ok ? [] : problemsForField(candidate, elementId, path);
   if (problems.length) {
     const message = problems.map((p) => p.message).join('; ');
     setFieldError(elementId, path, message);
@@ -547,10 +550,26 @@ export function reattach(id: string, newFeederId: string): OperationOutcome {
 
 // ---------- solution ----------
 
+/** Outcomes solved by setField for the candidate it took in (the draft object itself is the key). */
+const solvedDrafts = new WeakMap<DraftProject, SolveOutcome>();
+
+/** Solve a candidate draft and keep its outcome for `outcome`; undefined when the engine threw (`outcome` reports it). */
+function solveOnce(candidate: DraftProject): SolveOutcome | undefined {
+  try {
+    const o = solveProject(candidate);
+    solvedDrafts.set(candidate, o);
+    return o;
+  } catch {
+    return undefined;
+  }
+}
+
 /** The engine's outcome for the draft as it stands. */
 export const outcome = computed<SolveOutcome | { ok: false; crashed: string } | null>(() => {
   const p = draft.value;
   if (!p) return null;
+  const known = solvedDrafts.get(p);
+  if (known) return known;
   try {
     return solveProject(p);
   } catch (error) {
