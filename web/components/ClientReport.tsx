@@ -10,7 +10,8 @@
  * Every figure comes from core (the solve result, flowGraph's loss summary, the engine's cautions);
  * the page only formats. The date is the page's (core has no clock).
  */
-import { useEffect, useMemo, useState } from 'preact/hooks';
+import { memo } from 'preact/compat';
+import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { flowGraph } from '../../core/flow.ts';
 import type { BatterySource, Project } from '../../core/model.ts';
 import type { ElementResult, SolveResult } from '../../core/result.ts';
@@ -60,35 +61,96 @@ function useDate(): Date {
   return now;
 }
 
+/** What the printed report shows: the result and the few inputs it reads besides. */
+interface ReportInputs {
+  result: SolveResult;
+  battery: ReportBattery | undefined;
+  stale: boolean;
+  /** The project asks for a backup runtime. */
+  backup: boolean;
+  /** Chemistry of the battery source's bank, when it has one. */
+  chemistry: string | undefined;
+  locale: string | undefined;
+  units: 'si' | 'us';
+}
+
+function sameInputs(a: ReportInputs, b: ReportInputs): boolean {
+  return (
+    a.result === b.result &&
+    a.battery === b.battery &&
+    a.stale === b.stale &&
+    a.backup === b.backup &&
+    a.chemistry === b.chemistry &&
+    a.locale === b.locale &&
+    a.units === b.units
+  );
+}
+
+/**
+ * The report is hidden on screen (print only), so after an edit it is brought up to date after the
+ * next frame is painted (an effect runs then) rather than in the edit's own frame: the numbers and
+ * the diagram on screen are painted first. Before printing (beforeprint, or the print media query
+ * turning on) it is brought up to date at once.
+ */
 export default function ClientReport({ result, battery }: { result: SolveResult; battery?: ReportBattery }) {
-  const loc = effectiveLocale();
-  const units = unitSystem.value;
+  const project = draft.value as Project | null;
+  const latest: ReportInputs = {
+    result,
+    battery,
+    stale: resultsState.value === 'stale',
+    backup: Boolean(project?.backup),
+    chemistry: batterySource(project)?.bank?.chemistry,
+    locale: effectiveLocale(),
+    units: unitSystem.value,
+  };
+  const [shown, setShown] = useState(latest);
+  const latestRef = useRef(latest);
+  latestRef.current = latest;
+  useEffect(() => {
+    if (!sameInputs(shown, latest)) setShown(latest);
+  });
+  useEffect(() => {
+    const flush = () => setShown(latestRef.current);
+    const print = window.matchMedia('print');
+    const onChange = () => print.matches && flush();
+    window.addEventListener('beforeprint', flush);
+    print.addEventListener('change', onChange);
+    return () => {
+      window.removeEventListener('beforeprint', flush);
+      print.removeEventListener('change', onChange);
+    };
+  }, []);
+  return (
+    <>
+      <div class="report-bar" data-testid="report-bar">
+        <button type="button" class="report-bar__button" onClick={() => { setShown(latestRef.current); window.print(); }} data-testid="print-report">
+          Print / save as PDF
+        </button>
+        <span class="report-bar__hint">A one- or two-page summary for your client: the chain, the energy flow, key figures and cautions.</span>
+      </div>
+      <ReportBody {...shown} />
+    </>
+  );
+}
+
+/** The report itself; re-rendered only when what it shows has changed. */
+const ReportBody = memo(function ReportBody({ result, battery, stale, backup, chemistry, locale: loc, units }: ReportInputs) {
   const graph = useMemo(() => flowGraph(result), [result]);
   const now = useDate();
-  const project = draft.value as Project | null;
-  const stale = resultsState.value === 'stale';
   const t = result.totals;
   const ls = graph.losses;
   const pct = (p: number) => formatPercent(p / 100, loc, 3);
   const depth = depths(result.elements);
   const cables = result.elements.filter((e) => e.kind === 'cable');
-  const bank = batterySource(project)?.bank;
   const cautions = [
     REPORT_CAUTION,
     ...(result.elements.some((e) => e.conductor) ? [CONDUCTOR_CAUTION] : []),
-    ...(bank ? bankCautions(bank.chemistry as Chemistry).filter((c) => !c.startsWith('Planning estimate only')) : []),
+    ...(chemistry ? bankCautions(chemistry as Chemistry).filter((c) => !c.startsWith('Planning estimate only')) : []),
   ];
   const date = new Intl.DateTimeFormat(loc, { dateStyle: 'long' }).format(now);
 
   return (
     <>
-      <div class="report-bar" data-testid="report-bar">
-        <button type="button" class="report-bar__button" onClick={() => window.print()} data-testid="print-report">
-          Print / save as PDF
-        </button>
-        <span class="report-bar__hint">A one- or two-page summary for your client: the chain, the energy flow, key figures and cautions.</span>
-      </div>
-
       <section class="report report--head print-keep" aria-label="Client report" data-testid="report-head">
         <header class="report__title">
           <p class="report__brand">Joulepath · energy report</p>
@@ -145,7 +207,7 @@ export default function ClientReport({ result, battery }: { result: SolveResult;
                   </dd>
                 </>
               )}
-              {(battery || project?.backup) && (
+              {(battery || backup) && (
                 <>
                   <dt>Battery runtime</dt>
                   <dd data-testid="report-runtime">
@@ -217,4 +279,4 @@ export default function ClientReport({ result, battery }: { result: SolveResult;
       </section>
     </>
   );
-}
+}, sameInputs);
