@@ -17,6 +17,7 @@ import {
 } from '../format/number.ts';
 import { elementKindLabel, portKindLabel } from '../format/labels.ts';
 import { formatConductorSize, formatLength, formatShaftPower, formatTemperature, type UnitSystem } from '../format/units.ts';
+import { memo } from 'preact/compat';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { shownProjectInput } from '../state/app.ts';
 
@@ -36,17 +37,47 @@ function depths(elements: readonly ElementResult[]): Map<string, number> {
   return out;
 }
 
-function ElementName({ element, depth, withKind = false }: { element: ElementResult; depth: number; withKind?: boolean }) {
+interface ElementRowProps {
+  elementId: string;
+  name: string;
+  kind: string;
+  depth: number;
+  /** P in, P out, loss and efficiency, formatted. */
+  cells: readonly string[];
+}
+
+function sameElementRow(a: ElementRowProps, b: ElementRowProps): boolean {
   return (
-    <span class="el-name" style={{ '--depth': String(Math.min(depth, 8)) }}>
-      {depth > 0 && <span class="el-name__branch" aria-hidden="true" />}
-      <span class="el-name__text">
-        <span>{element.name || element.id}</span>
-        {withKind && <span class="el-name__kind">{elementKindLabel(element.kind)}</span>}
-      </span>
-    </span>
+    a.elementId === b.elementId &&
+    a.name === b.name &&
+    a.kind === b.kind &&
+    a.depth === b.depth &&
+    a.cells.length === b.cells.length &&
+    a.cells.every((c, i) => c === b.cells[i])
   );
 }
+
+/** One element's row; re-rendered only when a figure it shows (as formatted) has changed. */
+const ElementRow = memo(function ElementRow({ elementId, name, kind, depth, cells }: ElementRowProps) {
+  return (
+    <tr data-element-id={elementId}>
+      <th scope="row">
+        <span class="el-name" style={{ '--depth': String(Math.min(depth, 8)) }}>
+          {depth > 0 && <span class="el-name__branch" aria-hidden="true" />}
+          <span class="el-name__text">
+            <span>{name}</span>
+            <span class="el-name__kind">{elementKindLabel(kind)}</span>
+          </span>
+        </span>
+      </th>
+      {cells.map((c, i) => (
+        <td key={i} class="num">
+          {c}
+        </td>
+      ))}
+    </tr>
+  );
+}, sameElementRow);
 
 export function EnergyBalance({ result }: { result: SolveResult }) {
   const t = result.totals;
@@ -106,15 +137,19 @@ export function ElementTable({ result }: { result: SolveResult }) {
             {result.elements.map((e) => {
               const isLoad = e.role === 'load';
               return (
-                <tr key={e.id} data-element-id={e.id}>
-                  <th scope="row">
-                    <ElementName element={e} depth={depth.get(e.id) ?? 0} withKind />
-                  </th>
-                  <td class="num">{e.input?.kind === 'shaft' ? formatShaftPower(e.pIn, units, loc) : formatPower(e.pIn)}</td>
-                  <td class="num">{e.output?.kind === 'shaft' ? formatShaftPower(e.pOut, units, loc) : formatPower(e.pOut)}</td>
-                  <td class="num">{isLoad ? '—' : formatPower(e.loss)}</td>
-                  <td class="num">{isLoad ? '—' : formatPercent(e.efficiency, loc)}</td>
-                </tr>
+                <ElementRow
+                  key={e.id}
+                  elementId={e.id}
+                  name={e.name || e.id}
+                  kind={e.kind}
+                  depth={depth.get(e.id) ?? 0}
+                  cells={[
+                    e.input?.kind === 'shaft' ? formatShaftPower(e.pIn, units, loc) : formatPower(e.pIn),
+                    e.output?.kind === 'shaft' ? formatShaftPower(e.pOut, units, loc) : formatPower(e.pOut),
+                    isLoad ? '—' : formatPower(e.loss),
+                    isLoad ? '—' : formatPercent(e.efficiency, loc),
+                  ]}
+                />
               );
             })}
           </tbody>
@@ -237,9 +272,12 @@ function portKindText(port: PortResult, locale: string | undefined): string {
 }
 
 interface PortRowProps {
-  element: ElementResult;
+  elementId: string;
+  /** The element's name as shown (its id when it has none). */
+  name: string;
   side: 'in' | 'out';
-  port: PortResult;
+  /** Port kind, frequency or speed, then V, I, P, Q, S and power factor, formatted. */
+  cells: readonly string[];
   depth: number;
   /** Rows the element's name cell spans (0 = this row continues the element above). */
   nameRows: number;
@@ -247,36 +285,69 @@ interface PortRowProps {
   shade: boolean;
 }
 
-function PortRow({ element, side, port, depth, nameRows, shade }: PortRowProps) {
-  const loc = effectiveLocale();
-  const units = unitSystem.value;
+const PORT_LABELS = ['V', 'I', 'P', 'Q', 'S', 'Power factor'] as const;
+
+/** The formatted cells of one port row: kind, then V, I, P, Q, S, power factor. */
+function portCells(port: PortResult, units: UnitSystem, loc: string | undefined): string[] {
   const electrical = port.kind !== 'shaft';
   const ac = port.kind === 'ac1' || port.kind === 'ac3';
+  return [
+    portKindText(port, loc),
+    electrical ? formatVoltage(port.voltage, loc) : '—',
+    electrical ? formatCurrent(port.current, loc) : '—',
+    electrical ? formatPowerIn(port.p, loc) : formatShaftPower(port.p, units, loc),
+    ac ? formatReactive(port.q, loc) : '—',
+    ac ? formatApparent(port.s, loc) : '—',
+    ac ? formatPowerFactor(port.powerFactor, port.pfSense, loc) : '—',
+  ];
+}
+
+function samePortRow(a: PortRowProps, b: PortRowProps): boolean {
   return (
-    <tr data-element-id={element.id} data-port={side} class={`${shade ? 'shade' : ''}${nameRows === 0 ? ' cont' : ''}`}>
+    a.elementId === b.elementId &&
+    a.name === b.name &&
+    a.side === b.side &&
+    a.depth === b.depth &&
+    a.nameRows === b.nameRows &&
+    a.shade === b.shade &&
+    a.cells.length === b.cells.length &&
+    a.cells.every((c, i) => c === b.cells[i])
+  );
+}
+
+/** One port's row; re-rendered only when a figure it shows (as formatted) has changed. */
+const PortRow = memo(function PortRow({ elementId, name, side, cells, depth, nameRows, shade }: PortRowProps) {
+  return (
+    <tr data-element-id={elementId} data-port={side} class={`${shade ? 'shade' : ''}${nameRows === 0 ? ' cont' : ''}`}>
       {nameRows > 0 && (
         <th scope="rowgroup" rowSpan={nameRows}>
-          <ElementName element={element} depth={depth} />
+          <span class="el-name" style={{ '--depth': String(Math.min(depth, 8)) }}>
+            {depth > 0 && <span class="el-name__branch" aria-hidden="true" />}
+            <span class="el-name__text">
+              <span>{name}</span>
+            </span>
+          </span>
         </th>
       )}
       <td class="port">
         <div class="port__inner">
           <span class={`port-side port-side--${side}`}>{side}</span>
-          <span class="port__kind">{portKindText(port, loc)}</span>
+          <span class="port__kind">{cells[0]}</span>
         </div>
       </td>
-      <td class="num" data-label="V">{electrical ? formatVoltage(port.voltage, loc) : '—'}</td>
-      <td class="num" data-label="I">{electrical ? formatCurrent(port.current, loc) : '—'}</td>
-      <td class="num" data-label="P">{electrical ? formatPowerIn(port.p, loc) : formatShaftPower(port.p, units, loc)}</td>
-      <td class="num" data-label="Q">{ac ? formatReactive(port.q, loc) : '—'}</td>
-      <td class="num" data-label="S">{ac ? formatApparent(port.s, loc) : '—'}</td>
-      <td class="num pf" data-label="Power factor">{ac ? formatPowerFactor(port.powerFactor, port.pfSense, loc) : '—'}</td>
+      {PORT_LABELS.map((label, i) => (
+        <td key={label} class={label === 'Power factor' ? 'num pf' : 'num'} data-label={label}>
+          {cells[i + 1]}
+        </td>
+      ))}
     </tr>
   );
-}
+}, samePortRow);
 
 export function PortTable({ result }: { result: SolveResult }) {
   const depth = depths(result.elements);
+  const loc = effectiveLocale();
+  const units = unitSystem.value;
   return (
     <section aria-labelledby="ports-heading">
       <h3 id="ports-heading">Voltage, current and power at each port</h3>
@@ -304,9 +375,10 @@ export function PortTable({ result }: { result: SolveResult }) {
               return ports.map(({ side, port }, i) => (
                 <PortRow
                   key={`${e.id}-${side}`}
-                  element={e}
+                  elementId={e.id}
+                  name={e.name || e.id}
                   side={side}
-                  port={port}
+                  cells={portCells(port, units, loc)}
                   depth={d}
                   nameRows={i === 0 ? ports.length : 0}
                   shade={index % 2 === 1}
