@@ -12,7 +12,7 @@
  * text field, where the browser's own undo applies).
  */
 import { useSignal } from '@preact/signals';
-import { useEffect, useRef } from 'preact/hooks';
+import { useCallback, useEffect, useRef } from 'preact/hooks';
 import type { ComponentChildren } from 'preact';
 import type { ElementKind } from '../../core/model.ts';
 import type { ElementResult } from '../../core/result.ts';
@@ -197,6 +197,13 @@ export function ChainEditor() {
   const root = useRef<HTMLElement>(null);
   const formRef = useRef<HTMLElement>(null);
   const chooserOpener = useRef<HTMLElement | null>(null);
+  // The cards' handlers keep one identity across renders (the cards are memo'd: an edit re-renders
+  // only the cards whose text changed); they call the handler of the latest render.
+  const selectRef = useRef<(id: string, how: 'pointer' | 'keyboard') => void>(() => {});
+  const onCardSelect = useCallback((id: string, how: 'pointer' | 'keyboard') => selectRef.current(id, how), []);
+  const onCardFocus = useCallback((fid: string) => {
+    focusId.value = fid;
+  }, [focusId]);
 
   // Undo and redo from the keyboard, anywhere on the page except while typing in a text field.
   useEffect(() => {
@@ -264,6 +271,7 @@ export function ChainEditor() {
     chooser.value = null;
     if (how === 'keyboard') pendingFocus.current = 'form';
   };
+  selectRef.current = select;
 
   const openChooser = (op: AddOperation, opener: EventTarget | null) => {
     if (!selected) return;
@@ -324,10 +332,8 @@ export function ChainEditor() {
         tabIndex={id === active ? 0 : -1}
         units={units}
         locale={locale}
-        onSelect={select}
-        onFocus={(fid) => {
-          focusId.value = fid;
-        }}
+        onSelect={onCardSelect}
+        onFocus={onCardFocus}
       />
     );
   };

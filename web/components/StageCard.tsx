@@ -4,6 +4,7 @@
  * mark when the engine reports a problem on it. Display only: every figure is either an input as
  * typed or a value from the engine's result, formatted.
  */
+import { memo } from 'preact/compat';
 import type { ElementResult } from '../../core/result.ts';
 import type { FeedingPort } from '../editor/templates.ts';
 import { elementKindLabel, portKindLabel } from '../format/labels.ts';
@@ -166,7 +167,32 @@ export interface StageCardProps {
   onFocus: (id: string) => void;
 }
 
-export function StageCard(props: StageCardProps) {
+/** Same card text: the element's data and its feeding port as entered, and the result line as shown. */
+function sameCard(a: StageCardProps, b: StageCardProps): boolean {
+  if (
+    a.stale !== b.stale ||
+    a.problems !== b.problems ||
+    a.selected !== b.selected ||
+    a.tabIndex !== b.tabIndex ||
+    a.units !== b.units ||
+    a.locale !== b.locale ||
+    a.onSelect !== b.onSelect ||
+    a.onFocus !== b.onFocus
+  ) {
+    return false;
+  }
+  if (a.element !== b.element && JSON.stringify(a.element) !== JSON.stringify(b.element)) return false;
+  if (a.input !== b.input && JSON.stringify(a.input) !== JSON.stringify(b.input)) return false;
+  if (a.result === b.result) return true;
+  if (!a.result || !b.result) return false;
+  return keyResult(a.result, a.units, a.locale) === keyResult(b.result, b.units, b.locale);
+}
+
+/**
+ * One stage of the chain as a card. Memo'd: after an edit only the cards whose data or result line
+ * changed are rendered again (the handlers must keep their identity, as ChainEditor's do).
+ */
+export const StageCard = memo(function StageCard(props: StageCardProps) {
   const { element: e, result, problems } = props;
   const name = (typeof e.name === 'string' && e.name) || e.id;
   const inputs = keyInputs(e, props.input, props.units, props.locale);
@@ -208,4 +234,4 @@ export function StageCard(props: StageCardProps) {
       )}
     </button>
   );
-}
+}, sameCard);
