@@ -36,12 +36,19 @@ export const DEFAULT_PREFS: DisplayPrefs = { units: 'si', locale: '', theme: 'au
 /** A locale tag Intl accepts, or undefined. */
 export function validLocale(tag: unknown): string | undefined {
   if (typeof tag !== 'string' || tag === '') return undefined;
+  // Asking Intl is slow next to formatting a number, and every figure asks: remember the answer.
+  const known = checkedLocales.get(tag);
+  if (known !== undefined) return known ? tag : undefined;
+  let ok: boolean;
   try {
-    return Intl.NumberFormat.supportedLocalesOf([tag]).length > 0 ? tag : undefined;
+    ok = Intl.NumberFormat.supportedLocalesOf([tag]).length > 0;
   } catch {
-    return undefined;
+    ok = false;
   }
+  checkedLocales.set(tag, ok);
+  return ok ? tag : undefined;
 }
+const checkedLocales = new Map<string, boolean>();
 
 /** Reads stored preferences; anything missing or malformed falls back to the default. */
 export function parsePrefs(text: string | null | undefined): DisplayPrefs {
