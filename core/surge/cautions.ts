@@ -10,9 +10,10 @@ export const ESTIMATE_CAUTION =
   'Starting and fault figures are planning estimates from typical values where the maker’s data are not given; the motor, inverter, generator and protective-device makers’ data, local codes and licensed practice govern.';
 
 export function surgeCautions(project: Project): string[] {
-  const out = [ESTIMATE_CAUTION, PLANNING_CAUTION];
-  const ac = project.elements.some((e) => e.kind === 'grid' || e.kind === 'generator' || e.kind === 'inverter');
   const battery = project.elements.find((e) => e.kind === 'battery');
+  // The battery planning caution names the bank and charger makers: only where there is a bank.
+  const out = battery ? [ESTIMATE_CAUTION, PLANNING_CAUTION] : [ESTIMATE_CAUTION];
+  const ac = project.elements.some((e) => e.kind === 'grid' || e.kind === 'generator' || e.kind === 'inverter');
   if (ac) out.push(ARC_FLASH_CAUTION);
   if (battery || project.elements.some((e) => e.kind === 'rectifier' || e.kind === 'dcbus')) out.push(DC_ARC_CAUTION);
   if (battery?.kind === 'battery' && battery.bank && (battery.bank.chemistry === 'flooded-lead-acid' || battery.bank.chemistry === 'nicd')) out.push(VENTED_CAUTION);

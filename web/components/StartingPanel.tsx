@@ -44,6 +44,7 @@ function MotorStart({ s, locale }: { s: MotorStartResult; locale: string | undef
           {s.duringStart.cableDrops.map((d) => `${d.id} ${formatPercent(d.dropPercent / 100, locale, 3)}`).join(', ') || 'none'}.
         </p>
       ) : null}
+      <div class="table-scroll" role="region" aria-label="Checks during the start" tabIndex={0}>
       <table class="data panel-table">
         <caption>Checks during the start</caption>
         <thead>
@@ -68,6 +69,7 @@ function MotorStart({ s, locale }: { s: MotorStartResult; locale: string | undef
           ))}
         </tbody>
       </table>
+      </div>
       {s.notes.map((n) => (
         <p class="note" key={n}>
           {n}
@@ -84,6 +86,7 @@ function MotorStart({ s, locale }: { s: MotorStartResult; locale: string | undef
 function FaultTable({ title, points, locale }: { title: string; points: FaultPoint[]; locale: string | undefined }) {
   if (!points.length) return null;
   return (
+    <div class="table-scroll" role="region" aria-label={title} tabIndex={0}>
     <table class="data panel-table">
       <caption>{title}</caption>
       <thead>
@@ -105,6 +108,7 @@ function FaultTable({ title, points, locale }: { title: string; points: FaultPoi
         ))}
       </tbody>
     </table>
+    </div>
   );
 }
 
@@ -137,6 +141,7 @@ export function StartingPanel({ project }: { project: unknown }) {
       <FaultTable title="Battery prospective short-circuit current" points={r.batteryFaults.points} locale={locale} />
       <FaultTable title={`AC available fault current (IEC 60909, c = ${r.acFaults.voltageFactor ?? '—'})`} points={r.acFaults.points} locale={locale} />
       {r.devices.length ? (
+        <div class="table-scroll" role="region" aria-label="Protective devices" tabIndex={0}>
         <table class="data panel-table" data-testid="device-checks">
           <caption>Protective devices</caption>
           <thead>
@@ -164,6 +169,7 @@ export function StartingPanel({ project }: { project: unknown }) {
             ))}
           </tbody>
         </table>
+        </div>
       ) : null}
       {r.warnings.length ? (
         <ul class="panel-warnings" aria-label="Warnings">

@@ -1,0 +1,103 @@
+/**
+ * The motor-starting and fault-current panel in a real browser (Debian's Chromium, driven by
+ * playwright-core) against a production build: it opens on demand, shows the engine's verdict for
+ * the riverside pump motor and the IEC 60909 fault currents (the figures of core/surge run here, the
+ * page only formats them), flags a protective device whose interrupting rating is too low after an
+ * edit in the cable's form with the rating it needs, passes axe-core, and fits a phone.
+ *
+ * Expected figures: the engine's own (core/surge/index.ts studySurges on the same demo);
+ * behaviour checks are common practice (no source).
+ */
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
+import { join } from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { demoProjects } from '../../core/demos/index.ts';
+import { studySurges } from '../../core/surge/index.ts';
+import { formatCurrent } from '../../web/format/number.ts';
+import { skipWithout } from '../tools/system-tools.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+/** Spaces of every kind as one ASCII space (numbers and units are joined by a narrow no-break space). */
+const plain = (s: string | null | undefined) => (s ?? '').replace(/[\s\u202f\u00a0]+/g, ' ').trim();
+
+describe.skipIf(skipWithout('chromium'))('the motor-starting and fault panel in Chromium', () => {
+  let app: ServedApp | undefined;
+  let browser: Browser | undefined;
+
+  beforeAll(async () => {
+    app = await serveBuiltApp('joulepath-starting-');
+    browser = app.browser;
+  });
+
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  async function openPanel(viewport: { width: number; height: number }): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+    const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US' });
+    const page = await context.newPage();
+    const errors: string[] = [];
+    page.on('console', (msg) => {
+      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
+    });
+    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    await page.goto(`${app!.baseUrl}#demo=riverside-pump-station`, { waitUntil: 'load' });
+    await page.getByTestId('results').waitFor();
+    await page.locator('[data-testid="panel-starting"] > summary').click();
+    await page.getByTestId('starting-panel').waitFor();
+    return { context, page, errors };
+  }
+
+  it('shows the start verdict, the fault currents and the device check the engine gives', async () => {
+    const demo = demoProjects.find((d) => d.id === 'riverside-pump-station')!.project;
+    const study = studySurges(demo);
+    expect(study.ok).toBe(true);
+    if (!study.ok) return;
+    const { context, page, errors } = await openPanel(VIEWPORTS.desktop);
+    try {
+      const start = page.getByTestId('start-motor');
+      expect(await start.getAttribute('data-verdict')).toBe(study.result.starts[0]!.verdict);
+      expect(plain(await start.innerText())).toContain(plain(study.result.starts[0]!.governing));
+      const panelText = plain(await page.getByTestId('starting-panel').innerText());
+      for (const point of study.result.acFaults.points) {
+        if (point.current !== null) expect(panelText).toContain(plain(formatCurrent(point.current, 'en-US')));
+      }
+      const device = page.locator('[data-testid="device-checks"] tbody tr').first();
+      expect(await device.getAttribute('data-status')).toBe('adequate');
+
+      // Lower the feeder device's interrupting rating in its form: the panel flags it and names the rating needed.
+      await page.locator('[data-testid="stage-card"][data-card-id="feeder"]').click();
+      const rating = page.locator('[data-testid="stage-form"][data-element-id="feeder"] [data-testid="field-protection.interruptingRating"]');
+      await rating.fill('10');
+      await expect.poll(() => device.getAttribute('data-status')).toBe('too-weak');
+      expect(plain(await device.innerText())).toContain('needs at least');
+
+      if (!(await page.evaluate('typeof window.axe === "object"'))) await page.evaluate(axeSource);
+      const violations = (await page.evaluate(
+        `window.axe.run('[data-testid="starting-panel"]', { resultTypes: ['violations'] }).then((r) => r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id))`,
+      )) as string[];
+      expect(violations).toEqual([]);
+      await page.getByTestId('starting-panel').screenshot({ path: join(artifacts, 'panel-starting-desktop.png') });
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('fits a phone without a sideways page', async () => {
+    const { context, page, errors } = await openPanel(VIEWPORTS.phone);
+    try {
+      await page.getByTestId('start-motor').waitFor();
+      const overflow = (await page.evaluate('document.documentElement.scrollWidth - document.documentElement.clientWidth')) as number;
+      expect(overflow).toBeLessThanOrEqual(0);
+      await page.getByTestId('starting-panel').screenshot({ path: join(artifacts, 'panel-starting-phone.png') });
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+});
