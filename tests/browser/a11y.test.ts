@@ -116,6 +116,38 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
     }
   });
 
+  it('axe finds no serious or critical violation with every study panel and the project settings open, light and dark (phone)', async () => {
+    const { context, page, errors } = await openPage(VIEWPORTS.phone);
+    try {
+      const failures: string[] = [];
+      for (const theme of ['light', 'dark'] as const) {
+        await page.getByTestId('theme-select').selectOption(theme);
+        await expect.poll(() => page.evaluate('document.documentElement.dataset.theme')).toBe(theme);
+        for (const id of ['hillside-relay-hut', 'riverside-pump-station', 'cold-store-dc-bus']) {
+          await page.locator(`a[data-demo-id="${id}"]`).click();
+          await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
+          await page.getByTestId('element-table').waitFor();
+          const panels = page.locator('details.panel');
+          const count = await panels.count();
+          for (let i = 0; i < count; i++) {
+            const panel = panels.nth(i);
+            if ((await panel.getAttribute('open')) === null) await panel.locator('> summary').click();
+          }
+          // Each panel's content has loaded (its module is lazy) before axe looks.
+          await expect.poll(() => page.locator('details.panel[open] > :not(summary)').count(), { timeout: 20_000 }).toBeGreaterThanOrEqual(count);
+          await expect.poll(() => page.getByText('Opening…').count(), { timeout: 20_000 }).toBe(0);
+          const found = await axeViolations(page);
+          if (found.length > 0) failures.push(`${theme} theme, ${id}, panels open:\n${describeViolations(found)}`);
+          if (theme === 'dark' && id === 'hillside-relay-hut') await page.screenshot({ path: join(artifacts, 'panels-open-dark-phone.png'), fullPage: true });
+        }
+      }
+      expect(failures.join('\n\n')).toBe('');
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
   it('follows the device colour scheme until a theme is chosen', async () => {
     const { context, page } = await openPage(VIEWPORTS.phone, { colorScheme: 'dark' });
     try {
