@@ -3,7 +3,7 @@
  * horsepower with locked rotor that the nameplate code letter stands for (NEC 430.7(A)(9)).
  *
  * Source: NFPA 70-2023, Table 430.7(B) (the table is the same in recent editions, from memory).
- * Provenance: "corroborated" — recalled, and agreeing with several public transcriptions of the
+ * Provenance: "corroborated" — recalled, and agreeing with several public reproductions of the
  * table; not yet checked against the printed code. Letters I, O and Q are not used.
  *
  * Units: `minKvaPerHp`, `maxKvaPerHp` in kVA per hp (the table's own unit; 1 hp = 745.7 W);

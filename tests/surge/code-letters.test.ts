@@ -1,7 +1,7 @@
 /**
  * NEC Table 430.7(B) as carried in core/data/motor-code-letters.ts, against the published table.
  * Source of every value below: NFPA 70-2023 Table 430.7(B), "Locked-Rotor Indicating Code Letters"
- * (corroborated: recalled, and agreeing with public transcriptions of the table; not yet checked
+ * (corroborated: recalled, and agreeing with public reproductions of the table; not yet checked
  * against the printed code).
  */
 import { describe, expect, it } from 'vitest';
