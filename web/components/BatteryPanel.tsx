@@ -9,6 +9,7 @@
  * shown. When the draft does not give a study the last good figures stay, marked out of date, with
  * the engine's messages.
  */
+import { StudyInput } from './StudyInput.tsx';
 import { useRef, useState } from 'preact/hooks';
 import type { BackupStudyResult } from '../../core/battery/study.ts';
 import type { Derate } from '../../core/battery/discharge.ts';
@@ -74,35 +75,19 @@ function StudyField({ project, path, label, quantity, hint, units, locale, testI
     setField('project', path, read.value, `Backup study: ${label.toLowerCase()}`);
   };
   return (
-    <div class={error ? 'study-field study-field--error' : 'study-field'}>
-      <label for={id} class="study-field__label">
-        {label}
-      </label>
-      <span class="study-field__row">
-        <input
-          id={id}
-          class="study-field__input"
-          type="text"
-          inputMode="decimal"
-          autoComplete="off"
-          value={text ?? inputText(stored, quantity, units, locale)}
-          placeholder={hint}
-          aria-invalid={error ? 'true' : undefined}
-          aria-describedby={error ? `${id}-error` : undefined}
-          onInput={(e) => commit((e.currentTarget as HTMLInputElement).value)}
-          onBlur={() => {
-            if (!fieldError('project', path)) setText(null);
-          }}
-          data-testid={testId}
-        />
-        <span class="study-field__unit">{unit}</span>
-      </span>
-      {error && (
-        <span id={`${id}-error`} class="study-field__error" role="alert">
-          {error}
-        </span>
-      )}
-    </div>
+    <StudyInput
+      id={id}
+      label={label}
+      unit={unit}
+      text={text ?? inputText(stored, quantity, units, locale)}
+      placeholder={hint}
+      message={error}
+      onText={commit}
+      onLeave={() => {
+        if (!fieldError('project', path)) setText(null);
+      }}
+      testId={testId}
+    />
   );
 }
 

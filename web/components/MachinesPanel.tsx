@@ -10,6 +10,7 @@
  * formats. The energy price and hours per year are the user's own settings (web/state/prefs.ts),
  * not project data.
  */
+import { StudyInput } from './StudyInput.tsx';
 import { useRef, useState } from 'preact/hooks';
 import type { DriveDetail, MotorDetail } from '../../core/machines/details.ts';
 import type { PumpDetail } from '../../core/machines/project-flow.ts';
@@ -478,35 +479,19 @@ function PrefNumber({
     onValue(parsed.value);
   };
   return (
-    <div class={message ? 'study-field study-field--error' : 'study-field'}>
-      <label for={id} class="study-field__label">
-        {label}
-      </label>
-      <span class="study-field__row">
-        <input
-          id={id}
-          class="study-field__input"
-          type="text"
-          inputMode="decimal"
-          autoComplete="off"
-          value={text ?? (value === null ? '' : formatForInput(value, locale))}
-          placeholder={placeholder}
-          aria-invalid={message ? 'true' : undefined}
-          aria-describedby={message ? `${id}-error` : undefined}
-          onInput={(e) => commit((e.currentTarget as HTMLInputElement).value)}
-          onBlur={() => {
-            if (!message) setText(null);
-          }}
-          data-testid={testId}
-        />
-        <span class="study-field__unit">{unit}</span>
-      </span>
-      {message && (
-        <span id={`${id}-error`} class="study-field__error" role="alert">
-          {message}
-        </span>
-      )}
-    </div>
+    <StudyInput
+      id={id}
+      label={label}
+      unit={unit}
+      text={text ?? (value === null ? '' : formatForInput(value, locale))}
+      placeholder={placeholder}
+      message={message}
+      onText={commit}
+      onLeave={() => {
+        if (!message) setText(null);
+      }}
+      testId={testId}
+    />
   );
 }
 
