@@ -299,7 +299,11 @@ export function ChainEditor() {
       const next = neighbour(layout, id, ev.key);
       if (next) {
         focusId.value = next;
-        pendingFocus.current = next;
+        // The card is already drawn: focus it now, so a second quick key press starts from it (the
+        // roving tabindex follows on the next render).
+        const card = root.current?.querySelector<HTMLElement>(`[data-card-id="${CSS.escape(next)}"]`);
+        if (card) card.focus();
+        else pendingFocus.current = next;
       }
     } else if (ev.key === 'Enter' || ev.key === ' ') {
       ev.preventDefault();
