@@ -133,6 +133,8 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await page.keyboard.press('Tab');
       await tabTo(page, '[data-testid="new-chain"]');
       await page.keyboard.press('Enter');
+      // The chooser opens on the next render: wait for it before tabbing, or a loaded machine tabs past it.
+      await page.locator('button[data-source="battery-48"]').waitFor();
       await tabTo(page, 'button[data-source="battery-48"]');
       await page.keyboard.press('Enter');
       await expect.poll(() => cards(page).count()).toBe(1);
