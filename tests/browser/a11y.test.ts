@@ -11,23 +11,13 @@
  *
  * Same pattern as app.test.ts: one production build, one preview server and one browser per file.
  */
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
-
-const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type AxeViolation, type ServedApp } from './harness.ts';
 
 
-interface AxeViolation {
-  id: string;
-  impact: string | null;
-  help: string;
-  nodes: { target: unknown[]; failureSummary?: string }[];
-}
 
 describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and locale in Chromium', () => {
   let app: ServedApp | undefined;
@@ -60,25 +50,10 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       });
     }
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('console', (msg) => {
-      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
-    });
-    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    const errors = watchPageErrors(page);
     await page.goto(baseUrl, { waitUntil: 'load' });
     await page.getByTestId('element-table').waitFor();
     return { context, page, errors };
-  }
-
-  /** Serious and critical axe-core violations on the page as it is now. */
-  async function axeViolations(page: Page): Promise<AxeViolation[]> {
-    // The page's content security policy refuses inline script tags, so axe is evaluated from the
-    // test (DevTools evaluation is not subject to the page's policy).
-    if (!(await page.evaluate('typeof window.axe === "object"'))) await page.evaluate(axeSource);
-    const violations = (await page.evaluate(
-      `window.axe.run(document, { resultTypes: ['violations'] }).then((r) => r.violations)`,
-    )) as AxeViolation[];
-    return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
   }
 
   function describeViolations(vs: AxeViolation[]): string {
@@ -100,7 +75,7 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
           await page.locator(`a[data-demo-id="${id}"]`).click();
           await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
           await page.getByTestId('element-table').waitFor();
-          const found = await axeViolations(page);
+          const found = await seriousAxeViolations(page);
           if (found.length > 0) failures.push(`${theme} theme, ${label}, ${id}:\n${describeViolations(found)}`);
           if (id === ids[0]) {
             await page.screenshot({ path: join(artifacts, `theme-${theme}-${label}.png`), fullPage: true });
@@ -136,7 +111,7 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
           // Each panel's content has loaded (its module is lazy) before axe looks.
           await expect.poll(() => page.locator('details.panel[open] > :not(summary)').count(), { timeout: 20_000 }).toBeGreaterThanOrEqual(count);
           await expect.poll(() => page.getByText('Opening…').count(), { timeout: 20_000 }).toBe(0);
-          const found = await axeViolations(page);
+          const found = await seriousAxeViolations(page);
           if (found.length > 0) failures.push(`${theme} theme, ${id}, panels open:\n${describeViolations(found)}`);
           if (theme === 'dark' && id === 'hillside-relay-hut') await page.screenshot({ path: join(artifacts, 'panels-open-dark-phone.png'), fullPage: true });
         }

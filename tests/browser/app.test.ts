@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
 
 
 describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
@@ -33,11 +33,7 @@ describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
   async function openPage(viewport: { width: number; height: number }): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
     const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US' });
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('console', (msg) => {
-      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
-    });
-    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    const errors = watchPageErrors(page);
     page.on('requestfailed', (req) => errors.push(`request failed: ${req.url()} ${req.failure()?.errorText ?? ''}`));
     page.on('response', (res) => {
       if (res.status() >= 400) errors.push(`HTTP ${res.status()}: ${res.url()}`);

@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
 import { demoProjects, flowGraph, solveProject, type FlowGraph } from '../../core/index.ts';
 import { formatPercent, formatPower } from '../../web/format/number.ts';
 
@@ -49,12 +49,8 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
   async function openPage(viewport: { width: number; height: number }, colorScheme: 'light' | 'dark' = 'light'): Promise<{ context: BrowserContext; page: Page; errors: string[]; scripts: string[] }> {
     const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', acceptDownloads: true, colorScheme });
     const page = await context.newPage();
-    const errors: string[] = [];
+    const errors = watchPageErrors(page);
     const scripts: string[] = [];
-    page.on('console', (msg) => {
-      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
-    });
-    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
     page.on('requestfailed', (req) => errors.push(`request failed: ${req.url()}`));
     page.on('request', (req) => {
       if (req.resourceType() === 'script') scripts.push(req.url());

@@ -9,24 +9,17 @@
  * Expected figures: the engine's own (the page only shows them); 35 m = 114.829… ft by
  * 1 ft = 0.3048 m (NIST SP 811, 2008 ed., B.8); behaviour checks are common practice (no source).
  */
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp } from './harness.ts';
 
-const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 
-/** Serious and critical axe-core violations inside the stage form (axe-core, pinned in package.json). */
+/** Serious and critical axe-core violations inside the stage form. */
 async function formViolations(page: Page): Promise<string[]> {
-  // Evaluated rather than added as a script tag: the page's Content-Security-Policy refuses inline scripts.
-  if (!(await page.evaluate('typeof window.axe === "object"'))) await page.evaluate(axeSource);
-  const violations = (await page.evaluate(
-    `window.axe.run('[data-testid="stage-form"]', { resultTypes: ['violations'] }).then((r) => r.violations)`,
-  )) as { id: string; impact: string | null; nodes: { target: unknown }[] }[];
-  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => `${v.impact} ${v.id}: ${JSON.stringify(v.nodes.map((n) => n.target))}`);
+  const violations = await seriousAxeViolations(page, `'[data-testid="stage-form"]'`);
+  return violations.map((v) => `${v.impact} ${v.id}: ${JSON.stringify(v.nodes.map((n) => n.target))}`);
 }
 
 describe.skipIf(skipWithout('chromium'))('stage forms in Chromium', () => {
@@ -46,11 +39,7 @@ describe.skipIf(skipWithout('chromium'))('stage forms in Chromium', () => {
   async function openDemo(viewport: { width: number; height: number }, demo: string): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
     const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US' });
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('console', (msg) => {
-      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
-    });
-    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    const errors = watchPageErrors(page);
     await page.goto(`${baseUrl}#demo=${demo}`, { waitUntil: 'load' });
     await page.getByTestId('chain-editor').waitFor();
     await page.getByTestId('totals-efficiency').waitFor();

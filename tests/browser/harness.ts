@@ -2,12 +2,13 @@
  * What every browser test file needs: one production build, one preview server on a free local
  * port, and one headless Chromium (Debian's, driven by playwright-core) — started once per file.
  */
-import { mkdirSync, mkdtempSync, rmSync } from 'node:fs';
+import { mkdirSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { chromium, type Browser } from 'playwright-core';
+import { chromium, type Browser, type Page } from 'playwright-core';
 import { build, preview } from 'vite';
 import { requireTool } from '../tools/system-tools.ts';
 
@@ -102,4 +103,36 @@ export async function serveBuiltApp(prefix: string): Promise<ServedApp> {
       rmSync(outDir, { recursive: true, force: true });
     },
   };
+}
+
+/** Collects the page's console errors and uncaught errors, as lines a test can expect to be empty. */
+export function watchPageErrors(page: Page): string[] {
+  const errors: string[] = [];
+  page.on('console', (msg) => {
+    if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
+  });
+  page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+  return errors;
+}
+
+/** One axe-core finding (axe-core, pinned in package.json). */
+export interface AxeViolation {
+  id: string;
+  impact: string | null;
+  help: string;
+  nodes: { target: unknown[]; failureSummary?: string }[];
+}
+
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
+
+/**
+ * Serious and critical axe-core violations in `scope` (a JavaScript expression for an axe context:
+ * 'document', a quoted selector, or an { include } object). axe is evaluated from the test rather
+ * than added as a script tag: the page's content security policy refuses inline scripts, and
+ * DevTools evaluation is not subject to it.
+ */
+export async function seriousAxeViolations(page: Page, scope = 'document'): Promise<AxeViolation[]> {
+  if (!(await page.evaluate('typeof window.axe === "object"'))) await page.evaluate(axeSource);
+  const violations = (await page.evaluate(`window.axe.run(${scope}, { resultTypes: ['violations'] }).then((r) => r.violations)`)) as AxeViolation[];
+  return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
 }

@@ -4,6 +4,7 @@
  * made through the chain editor.
  */
 import type { BrowserContext, Page, Request } from 'playwright-core';
+import { watchPageErrors } from './harness.ts';
 
 export interface RecordedPage {
   page: Page;
@@ -13,12 +14,8 @@ export interface RecordedPage {
 
 /** Record console errors, page errors, failed requests, HTTP errors and every request of a page. */
 export function record(page: Page): RecordedPage {
-  const errors: string[] = [];
+  const errors = watchPageErrors(page);
   const requests: Request[] = [];
-  page.on('console', (msg) => {
-    if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
-  });
-  page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
   page.on('request', (req) => requests.push(req));
   page.on('response', (res) => {
     if (res.status() >= 400) errors.push(`HTTP ${res.status()}: ${res.url()}`);

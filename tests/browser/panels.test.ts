@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
 import { correctPowerFactor, demoProjects, formatBackupStudy, projectFlowStudy, runBackupStudy, solveProject } from '../../core/index.ts';
 import { lossCostPerYear } from '../../core/economics.ts';
 import { formatDuration, formatEnergy, formatReactive, formatSignificant } from '../../web/format/number.ts';
@@ -49,11 +49,7 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
   ): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
     const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', colorScheme });
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('console', (msg) => {
-      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
-    });
-    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    const errors = watchPageErrors(page);
     await page.goto(`${baseUrl}#demo=${id}`, { waitUntil: 'load' });
     await page.getByTestId('results').waitFor();
     return { context, page, errors };

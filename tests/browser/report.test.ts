@@ -6,17 +6,15 @@
  * editor controls and buttons are not printed; in the dark theme the printed page is still dark ink
  * on white, diagram included. Screenshots of the print layout go to tests/.artifacts/ to look at.
  */
-import { readFileSync, writeFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp } from './harness.ts';
 import { demoProjects, flowGraph, solveProject, CONDUCTOR_CAUTION } from '../../core/index.ts';
 import { formatPercent, formatPower } from '../../web/format/number.ts';
 
-const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 
 /** The caution every report carries (web/components/ClientReport.tsx, REPORT_CAUTION). */
 const PLANNING = 'These results are planning estimates. Local electrical codes and licensed professional practice govern the design and installation.';
@@ -59,11 +57,7 @@ describe.skipIf(skipWithout('chromium'))('the client report in Chromium', () => 
     // window.print() opens a dialog headless Chromium cannot show: record the call instead.
     await context.addInitScript({ content: 'window.print = () => { window.__printed = (window.__printed ?? 0) + 1; };' });
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('console', (msg) => {
-      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
-    });
-    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    const errors = watchPageErrors(page);
     await page.goto(baseUrl, { waitUntil: 'load' });
     return { context, page, errors };
   }
@@ -80,14 +74,13 @@ describe.skipIf(skipWithout('chromium'))('the client report in Chromium', () => 
     const { context, page, errors } = await openPage('dark');
     try {
       await page.setViewportSize(viewport);
-      // Evaluated rather than added as a <script>: the page's CSP (script-src 'self') refuses inline scripts.
-      await page.evaluate(axeSource);
       for (const demo of demoProjects) {
         await showDemo(page, demo.id);
-        const violations = (await page.evaluate(
-          `window.axe.run({ include: [['[data-testid="energy-flow"]'], ['[data-testid="report-bar"]']] }, { resultTypes: ['violations'] }).then((r) => r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id + ': ' + v.nodes.map((n) => n.target.join(' ')).join(', ')))`,
-        )) as string[];
-        expect(violations, `${demo.id} (${label})`).toEqual([]);
+        const violations = await seriousAxeViolations(page, `{ include: [['[data-testid="energy-flow"]'], ['[data-testid="report-bar"]']] }`);
+        expect(
+          violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`),
+          `${demo.id} (${label})`,
+        ).toEqual([]);
         await page.getByTestId('energy-flow').screenshot({ path: join(artifacts, `flow-dark-${label}-${demo.id}.png`) });
       }
       expect(errors).toEqual([]);

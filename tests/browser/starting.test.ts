@@ -8,8 +8,6 @@
  * Expected figures: the engine's own (core/surge/index.ts studySurges on the same demo);
  * behaviour checks are common practice (no source).
  */
-import { readFileSync } from 'node:fs';
-import { createRequire } from 'node:module';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
@@ -17,9 +15,8 @@ import { demoProjects } from '../../core/demos/index.ts';
 import { studySurges } from '../../core/surge/index.ts';
 import { formatCurrent } from '../../web/format/number.ts';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp } from './harness.ts';
 
-const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8');
 
 /** Spaces of every kind as one ASCII space (numbers and units are joined by a narrow no-break space). */
 const plain = (s: string | null | undefined) => (s ?? '').replace(/[\s\u202f\u00a0]+/g, ' ').trim();
@@ -40,11 +37,7 @@ describe.skipIf(skipWithout('chromium'))('the motor-starting and fault panel in 
   async function openPanel(viewport: { width: number; height: number }): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
     const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US' });
     const page = await context.newPage();
-    const errors: string[] = [];
-    page.on('console', (msg) => {
-      if (msg.type() === 'error') errors.push(`console: ${msg.text()}`);
-    });
-    page.on('pageerror', (err) => errors.push(`page error: ${err.message}`));
+    const errors = watchPageErrors(page);
     await page.goto(`${app!.baseUrl}#demo=riverside-pump-station`, { waitUntil: 'load' });
     await page.getByTestId('results').waitFor();
     await page.locator('[data-testid="panel-starting"] > summary').click();
@@ -76,11 +69,8 @@ describe.skipIf(skipWithout('chromium'))('the motor-starting and fault panel in 
       await expect.poll(() => device.getAttribute('data-status')).toBe('too-weak');
       expect(plain(await device.innerText())).toContain('needs at least');
 
-      if (!(await page.evaluate('typeof window.axe === "object"'))) await page.evaluate(axeSource);
-      const violations = (await page.evaluate(
-        `window.axe.run('[data-testid="starting-panel"]', { resultTypes: ['violations'] }).then((r) => r.violations.filter((v) => v.impact === 'serious' || v.impact === 'critical').map((v) => v.id))`,
-      )) as string[];
-      expect(violations).toEqual([]);
+      const violations = await seriousAxeViolations(page, `'[data-testid="starting-panel"]'`);
+      expect(violations.map((v) => v.id)).toEqual([]);
       await page.getByTestId('starting-panel').screenshot({ path: join(artifacts, 'panel-starting-desktop.png') });
       expect(errors).toEqual([]);
     } finally {
