@@ -60,15 +60,29 @@ export type ParsedNumber =
   /** `problem` completes "'<text>' …", e.g. "is not a number". */
   | { kind: 'invalid'; problem: string };
 
+const patternCache = new Map<string, { groupChars: string; pattern: RegExp; groupSplit: RegExp }>();
+
+/** The pattern of a number typed in a locale, built once per locale (every keystroke reads one). */
+function numberPattern(locale?: string): { groupChars: string; pattern: RegExp; groupSplit: RegExp } {
+  const key = locale ?? '';
+  const cached = patternCache.get(key);
+  if (cached) return cached;
+  const { decimal, group } = localeSeparators(locale);
+  const groupChars = isSpaceGroup(group) ? SPACES : group;
+  const g = groupChars ? `[${escape(groupChars)}]` : '(?!)';
+  const pattern = new RegExp(`^([+-])?(\\d(?:\\d|${g})*)?(?:${escape(decimal)}(\\d*))?(?:[eE]([+-]?\\d+))?$`);
+  const found = { groupChars, pattern, groupSplit: new RegExp(g) };
+  patternCache.set(key, found);
+  return found;
+}
+
 /** Read a number typed in the given locale (see the rules at the top of this file). */
 export function parseLocaleNumber(text: string, locale?: string): ParsedNumber {
   // U+2212 MINUS SIGN is what several locales print; a user may paste it back.
   const s = text.trim().replace(/\u2212/g, '-');
   if (s === '') return { kind: 'empty' };
   const { decimal, group, secondaryGroup } = localeSeparators(locale);
-  const groupChars = isSpaceGroup(group) ? SPACES : group;
-  const g = groupChars ? `[${escape(groupChars)}]` : '(?!)';
-  const pattern = new RegExp(`^([+-])?(\\d(?:\\d|${g})*)?(?:${escape(decimal)}(\\d*))?(?:[eE]([+-]?\\d+))?$`);
+  const { groupChars, pattern, groupSplit } = numberPattern(locale);
   const m = pattern.exec(s);
   const decimalName = decimal === ',' ? 'a comma' : decimal === '.' ? 'a point' : `"${decimal}"`;
   if (!m || (m[2] === undefined && (m[3] === undefined || m[3] === ''))) {
@@ -79,7 +93,7 @@ export function parseLocaleNumber(text: string, locale?: string): ParsedNumber {
     return { kind: 'invalid', problem: `is not a number${hint}` };
   }
   const [, sign = '', intPart = '', frac, exponent] = m;
-  const groups = intPart.split(new RegExp(g));
+  const groups = intPart.split(groupSplit);
   if (groups.length > 1) {
     const last = groups[groups.length - 1]!;
     const first = groups[0]!;
@@ -94,13 +108,21 @@ export function parseLocaleNumber(text: string, locale?: string): ParsedNumber {
   return { kind: 'number', value: Object.is(value, -0) ? 0 : value };
 }
 
+const inputFormats = new Map<string, Intl.NumberFormat>();
+
 /**
  * A stored number as the text of an input: the locale's decimal separator, no grouping (it gets in
  * the way while editing), up to 12 significant digits (enough to show any value a person typed).
  */
 export function formatForInput(value: number, locale?: string): string {
   if (!Number.isFinite(value)) return '';
-  return new Intl.NumberFormat(locale, { maximumSignificantDigits: 12, useGrouping: false }).format(value).replace(/\u2212/g, '-');
+  const key = locale ?? '';
+  let nf = inputFormats.get(key);
+  if (!nf) {
+    nf = new Intl.NumberFormat(locale, { maximumSignificantDigits: 12, useGrouping: false });
+    inputFormats.set(key, nf);
+  }
+  return nf.format(value).replace(/\u2212/g, '-');
 }
 
 // ---------- units of input fields ----------
