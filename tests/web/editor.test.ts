@@ -265,6 +265,26 @@ describe('field edits', () => {
     expect(canUndo.value).toBe(false);
   });
 
+  it('a field edit copies only the element it changes and never changes an earlier draft', () => {
+    const before = draft.value!;
+    const snapshot = structuredClone(before);
+    setField('fridge', 'power', 120);
+    setField('project', 'name', 'renamed');
+    const after = draft.value!;
+    expect(after).not.toBe(before);
+    // Unchanged stages are the same objects (memo'd views skip them); the edited one is new.
+    for (const e of after.elements) {
+      const old = before.elements.find((x) => x.id === e.id)!;
+      if (e.id === 'fridge') expect(e).not.toBe(old);
+      else expect(e).toBe(old);
+    }
+    // The draft the edits started from (kept for undo) is exactly as it was.
+    expect(before).toEqual(snapshot);
+    undo();
+    undo();
+    expect(draft.value).toEqual(snapshot);
+  });
+
   it('a different field, or an operation in between, starts a new step', () => {
     setField('fridge', 'power', 100);
     setField('fridge', 'powerFactor', 0.9);

@@ -145,7 +145,15 @@ export function edit(
   const current = draft.value;
   if (!current) return;
   const copy = clone(current);
-  const next = change(copy) ?? copy;
+  commit(current, change(copy) ?? copy, label, options);
+}
+
+/**
+ * Make `next` the draft, after `current`, as one undoable step. `next` must be a new object that
+ * never changes afterwards; it may share unchanged elements with `current` (setField's candidates
+ * do), since no draft or element is ever changed in place.
+ */
+function commit(current: DraftProject, next: DraftProject, label: string, options: { coalesce?: string; select?: string | null }): void {
   batch(() => {
     const sameField = options.coalesce !== undefined && options.coalesce === lastCoalesceKey && past.value.length > 0;
     if (!sameField) {
@@ -268,10 +276,22 @@ export function problemsForField(project: DraftProject, elementId: string, path:
 export function setField(elementId: string, path: string, value: unknown, label?: string): string | null {
   const current = draft.value;
   if (!current) return 'No project is open.';
-  const candidate = clone(current);
-  const target =
-    elementId === 'project' ? (candidate as Record<string, unknown>) : candidate.elements.find((e) => e.id === elementId);
-  if (!target) return `There is no element "${elementId}".`;
+  // A new project object with a copy of the one element (or of the project's own fields) that
+  // changes; the other elements are shared with the draft, so a memo'd view of an unchanged stage
+  // sees the same object and skips its work.
+  let candidate: DraftProject;
+  let target: Record<string, unknown>;
+  if (elementId === 'project') {
+    const { elements, ...own } = current;
+    candidate = { ...clone(own), elements } as DraftProject;
+    target = candidate as Record<string, unknown>;
+  } else {
+    const at = current.elements.findIndex((e) => e.id === elementId);
+    if (at < 0) return `There is no element "${elementId}".`;
+    const copy = clone(current.elements[at]!);
+    candidate = { ...current, elements: current.elements.map((e, i) => (i === at ? copy : e)) };
+    target = copy;
+  }
   setAt(target, path, value);
   // Solve the candidate once: when it solves, no field of it is invalid (the solve validates it
   // first) and the outcome is kept for `outcome`, so a keystroke validates the project once, not twice.
@@ -284,7 +304,7 @@ export function setField(elementId: string, path: string, value: unknown, label?
   }
   setFieldError(elementId, path, null);
   const name = elementId === 'project' ? 'project' : elementName(current, elementId);
-  edit(label ?? `${name}: ${path}`, () => candidate, { coalesce: fieldKey(elementId, path) });
+  commit(current, candidate, label ?? `${name}: ${path}`, { coalesce: fieldKey(elementId, path) });
   return null;
 }
 
