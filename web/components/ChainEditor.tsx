@@ -12,6 +12,7 @@
  * text field, where the browser's own undo applies).
  */
 import { useSignal } from '@preact/signals';
+import { memo } from 'preact/compat';
 import { useCallback, useEffect, useRef } from 'preact/hooks';
 import type { ComponentChildren } from 'preact';
 import type { ElementKind } from '../../core/model.ts';
@@ -132,18 +133,26 @@ const ICONS: Record<string, string> = {
   redo: 'M13 5l4 4-4 4M17 9H8a5 5 0 0 0 0 10h2',
 };
 
-function Icon({ name }: { name: keyof typeof ICONS }) {
+const Icon = memo(function Icon({ name }: { name: keyof typeof ICONS }) {
   return (
     <svg class="editor-icon" viewBox="0 0 20 20" width="20" height="20" aria-hidden="true" focusable="false">
       <path d={ICONS[name]} fill="none" stroke="currentColor" stroke-width="1.8" stroke-linecap="round" stroke-linejoin="round" />
     </svg>
   );
-}
+});
 
-function ToolButton(props: {
+/** What a toolbar button does (ChainEditor's `act` carries it out). */
+type ToolAction = 'undo' | 'redo' | AddOperation | 'duplicate' | 'upstream' | 'downstream' | 'branchUp' | 'branchDown' | 'remove' | 'removeBranch';
+
+/**
+ * memo: every prop is a plain value and `onAct` keeps one identity, so an edit elsewhere (typing in
+ * a stage form) re-renders only the buttons whose state changed.
+ */
+const ToolButton = memo(function ToolButton(props: {
   icon: keyof typeof ICONS;
   label: string;
-  onClick: (ev: MouseEvent) => void;
+  action: ToolAction;
+  onAct: (action: ToolAction, ev: MouseEvent) => void;
   disabled?: boolean;
   title?: string;
   testId?: string;
@@ -153,7 +162,7 @@ function ToolButton(props: {
     <button
       type="button"
       class="editor-tool"
-      onClick={props.onClick}
+      onClick={(ev) => props.onAct(props.action, ev)}
       disabled={props.disabled}
       title={props.title}
       data-testid={props.testId}
@@ -163,7 +172,7 @@ function ToolButton(props: {
       <span>{props.label}</span>
     </button>
   );
-}
+});
 
 const ADD_WORDS: Record<AddOperation, { button: string; heading: (name: string) => string }> = {
   after: { button: 'Add after', heading: (n) => `Add after ${n}` },
@@ -201,6 +210,9 @@ export function ChainEditor() {
   // only the cards whose text changed); they call the handler of the latest render.
   const selectRef = useRef<(id: string, how: 'pointer' | 'keyboard') => void>(() => {});
   const onCardSelect = useCallback((id: string, how: 'pointer' | 'keyboard') => selectRef.current(id, how), []);
+  // The toolbar's buttons likewise (memo'd): one handler that carries out the latest render's action.
+  const actRef = useRef<(action: ToolAction, ev: MouseEvent) => void>(() => {});
+  const onAct = useCallback((action: ToolAction, ev: MouseEvent) => actRef.current(action, ev), []);
   const onCardFocus = useCallback((fid: string) => {
     focusId.value = fid;
   }, [focusId]);
@@ -272,6 +284,23 @@ export function ChainEditor() {
     if (how === 'keyboard') pendingFocus.current = 'form';
   };
   selectRef.current = select;
+
+  actRef.current = (action, ev) => {
+    if (action === 'undo') return void undo();
+    if (action === 'redo') return void redo();
+    if (action === 'after' || action === 'branch' || action === 'before') return openChooser(action, ev.currentTarget);
+    if (!selected) return;
+    const ops = {
+      duplicate: () => duplicate(selected),
+      upstream: () => moveUpstream(selected),
+      downstream: () => moveDownstream(selected),
+      branchUp: () => reorderBranch(selected, -1),
+      branchDown: () => reorderBranch(selected, 1),
+      remove: () => removeElement(selected),
+      removeBranch: () => removeBranch(selected),
+    } satisfies Record<Exclude<ToolAction, 'undo' | 'redo' | AddOperation>, () => OperationOutcome>;
+    run(ops[action]);
+  };
 
   const openChooser = (op: AddOperation, opener: EventTarget | null) => {
     if (!selected) return;
@@ -372,25 +401,25 @@ export function ChainEditor() {
   const offered = open ? offeredTemplates(p, open.op, open.target) : [];
 
   return (
-    <section class="editor" aria-labelledby="editor-heading" data-testid="chain-editor" ref={root}>
+    <section class="editor skip-offscreen" aria-labelledby="editor-heading" data-testid="chain-editor" ref={root}>
       <div class="editor__head">
         <h3 id="editor-heading">Chain</h3>
         <div class="editor__history" role="group" aria-label="History">
-          <ToolButton icon="undo" label="Undo" testId="undo" disabled={!canUndo.value} title={canUndo.value ? `Undo: ${undoLabel.value} (Ctrl+Z)` : 'Nothing to undo'} onClick={() => undo()} />
-          <ToolButton icon="redo" label="Redo" testId="redo" disabled={!canRedo.value} title={canRedo.value ? `Redo: ${redoLabel.value} (Ctrl+Shift+Z)` : 'Nothing to redo'} onClick={() => redo()} />
+          <ToolButton icon="undo" label="Undo" testId="undo" action="undo" onAct={onAct} disabled={!canUndo.value} title={canUndo.value ? `Undo: ${undoLabel.value} (Ctrl+Z)` : 'Nothing to undo'} />
+          <ToolButton icon="redo" label="Redo" testId="redo" action="redo" onAct={onAct} disabled={!canRedo.value} title={canRedo.value ? `Redo: ${redoLabel.value} (Ctrl+Shift+Z)` : 'Nothing to redo'} />
         </div>
       </div>
       <div class="editor__toolbar" role="toolbar" aria-label={selected ? `Change the chain at ${selectedName}` : 'Change the chain (select a stage first)'} aria-controls="chain-cards">
-        <ToolButton icon="after" label="Add after" testId="op-add-after" disabled={!selected} expanded={open?.op === 'after'} onClick={(ev) => openChooser('after', ev.currentTarget)} />
-        <ToolButton icon="branch" label="Add branch" testId="op-add-branch" disabled={!selected} expanded={open?.op === 'branch'} onClick={(ev) => openChooser('branch', ev.currentTarget)} />
-        <ToolButton icon="before" label="Insert before" testId="op-insert-before" disabled={!selected} expanded={open?.op === 'before'} onClick={(ev) => openChooser('before', ev.currentTarget)} />
-        <ToolButton icon="duplicate" label="Duplicate" testId="op-duplicate" disabled={!selected} onClick={() => selected && run(() => duplicate(selected))} />
-        <ToolButton icon="left" label="Towards source" testId="op-move-up" disabled={!selected} onClick={() => selected && run(() => moveUpstream(selected))} />
-        <ToolButton icon="right" label="Towards loads" testId="op-move-down" disabled={!selected} onClick={() => selected && run(() => moveDownstream(selected))} />
-        <ToolButton icon="up" label="Branch up" testId="op-branch-up" disabled={!selected} onClick={() => selected && run(() => reorderBranch(selected, -1))} />
-        <ToolButton icon="down" label="Branch down" testId="op-branch-down" disabled={!selected} onClick={() => selected && run(() => reorderBranch(selected, 1))} />
-        <ToolButton icon="remove" label="Remove" testId="op-remove" disabled={!selected} onClick={() => selected && run(() => removeElement(selected))} />
-        <ToolButton icon="removeBranch" label="Remove branch" testId="op-remove-branch" disabled={!selected} onClick={() => selected && run(() => removeBranch(selected))} />
+        <ToolButton icon="after" label="Add after" testId="op-add-after" action="after" onAct={onAct} disabled={!selected} expanded={open?.op === 'after'} />
+        <ToolButton icon="branch" label="Add branch" testId="op-add-branch" action="branch" onAct={onAct} disabled={!selected} expanded={open?.op === 'branch'} />
+        <ToolButton icon="before" label="Insert before" testId="op-insert-before" action="before" onAct={onAct} disabled={!selected} expanded={open?.op === 'before'} />
+        <ToolButton icon="duplicate" label="Duplicate" testId="op-duplicate" action="duplicate" onAct={onAct} disabled={!selected} />
+        <ToolButton icon="left" label="Towards source" testId="op-move-up" action="upstream" onAct={onAct} disabled={!selected} />
+        <ToolButton icon="right" label="Towards loads" testId="op-move-down" action="downstream" onAct={onAct} disabled={!selected} />
+        <ToolButton icon="up" label="Branch up" testId="op-branch-up" action="branchUp" onAct={onAct} disabled={!selected} />
+        <ToolButton icon="down" label="Branch down" testId="op-branch-down" action="branchDown" onAct={onAct} disabled={!selected} />
+        <ToolButton icon="remove" label="Remove" testId="op-remove" action="remove" onAct={onAct} disabled={!selected} />
+        <ToolButton icon="removeBranch" label="Remove branch" testId="op-remove-branch" action="removeBranch" onAct={onAct} disabled={!selected} />
       </div>
       <p class={refusal ? 'editor__status editor__status--refused' : 'editor__status'} role="status" data-testid="editor-status">
         {statusText}
