@@ -1,20 +1,5 @@
 /**
  * The energy-flow diagram: a Sankey of the solved chain, source on the left, loads on the right,
- * a loss branch leaving the source and every stage. Loaded on demand (App.tsx imports it with a
- * dynamic import()), so d3-sankey is not part of the first load.
- *
- * Every figure comes from core's flowGraph(); this file lays out, colours and formats.
- *
- * Phone layout: the diagram keeps its left-to-right reading (the same direction as the chain) and
- * scrolls sideways inside its own box when the columns do not fit; squeezing the columns to 390 px
- * would make the labels unreadable, and a vertical Sankey would read against the rest of the app.
- * Every node and link is also reachable by Tab and by tap, and the details line under the diagram
- * repeats the figures in full, so nothing depends on seeing a small label.
- *
- * Colours are written as attributes (not CSS) so an exported SVG or PNG looks exactly as on screen.
- */
-/**
- * The energy-flow diagram: a Sankey of the solved chain, source on the left, loads on the right,
  * and every loss gathered in a band along the bottom ("where the energy goes" at a glance: the
  * top carries what reaches the loads, the bottom what is lost). Each loss branch is split into its
  * idle part (drawn even with nothing connected: dashed, plum) and its conversion part (grows with
@@ -39,7 +24,8 @@
  * light palette (a file goes onto white paper) and the printed page gets the light palette from the
  * print rules this component writes.
  */
-import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
+import { memo } from 'preact/compat';
+import { useCallback, useEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { sankey, sankeyLinkHorizontal, type SankeyLink, type SankeyNode } from 'd3-sankey';
 import { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from '../../core/flow.ts';
 import type { ElementResult, SolveResult } from '../../core/result.ts';
@@ -506,7 +492,141 @@ function printRules(): string {
   ].join('\n');
 }
 
-function Legend({ palette }: { palette: FlowPalette }) {
+/** The light outline around a label, so it reads over a branch. */
+const haloOf = (background: string) =>
+  ({ stroke: background, 'data-stroke': 'background', 'stroke-width': '3', 'stroke-linejoin': 'round', 'paint-order': 'stroke' }) as const;
+
+/*
+ * The drawn parts are memo'd with plain-value props: after an edit only the branches, blocks and
+ * labels whose figures or places changed are compared and written again. Hover, tap and focus are
+ * handled once on the diagram's box (each part carries its key in data-*).
+ */
+
+const FlowPath = memo(function FlowPath(p: {
+  linkKey: string;
+  d: string;
+  paint: PaintKey | 'selected';
+  colour: string;
+  opacityKey: 'loss' | 'feed';
+  opacity: number;
+  width: number;
+  dashed: boolean;
+  label: string;
+  role: FlowLink['role'];
+  part: FlowLink['part'];
+  source: string;
+  target: string;
+  watts: number;
+  selected: boolean;
+}) {
+  return (
+    <path
+      d={p.d}
+      stroke={p.colour}
+      data-stroke={p.paint}
+      stroke-opacity={p.opacity}
+      data-opacity={p.opacityKey}
+      stroke-width={p.width}
+      stroke-dasharray={p.dashed ? IDLE_DASH : undefined}
+      class="flow__link"
+      // Lower case: on an SVG element the attribute name is taken as written, and only "tabindex" counts.
+      tabindex={0}
+      role="img"
+      aria-label={p.label}
+      data-role={p.role}
+      data-part={p.part}
+      data-source={p.source}
+      data-target={p.target}
+      data-watts={String(p.watts)}
+      data-selected={p.selected ? 'true' : undefined}
+      data-link-key={p.linkKey}
+    />
+  );
+});
+
+interface FlowBlockProps {
+  id: string;
+  role: FlowNode['role'];
+  x0: number;
+  x1: number;
+  y0: number;
+  h: number;
+  idleH: number;
+  paint: PaintKey;
+  label: string;
+  text: NodeLabel | undefined;
+  selected: boolean;
+  palette: FlowPalette;
+}
+
+const FlowBlock = memo(function FlowBlock(p: FlowBlockProps) {
+  const c = p.palette.colours;
+  const t = p.text;
+  return (
+    <g class="flow__node" tabindex={0} role="img" aria-label={p.label} data-node={p.id} data-role={p.role} data-selected={p.selected ? 'true' : undefined}>
+      <rect
+        x={p.x0}
+        y={p.y0}
+        width={p.x1 - p.x0}
+        height={p.h}
+        fill={c[p.paint]}
+        data-fill={p.paint}
+        stroke={p.selected ? c.selected : 'none'}
+        data-stroke={p.selected ? 'selected' : undefined}
+        stroke-width={p.selected ? 3 : 0}
+      />
+      {p.idleH > 0 && <rect x={p.x0} y={p.y0} width={p.x1 - p.x0} height={p.idleH} fill={c.idle} data-fill="idle" />}
+      {t && (
+        <text x={t.x} y={t.y} font-size="12" fill={c.ink} data-fill="ink" {...haloOf(c.background)}>
+          <tspan x={t.x} font-weight="600">
+            {t.name}
+          </tspan>
+          {t.lines.map((line, i) => (
+            // Keyed by place, not text: a changed figure rewrites the line instead of replacing it.
+            <tspan key={i} x={t.x} dy="1.25em" fill={c.inkMuted} data-fill="inkMuted">
+              {line}
+            </tspan>
+          ))}
+        </text>
+      )}
+    </g>
+  );
+}, sameBlock);
+
+/** Blocks compare their label by content (placeLabels makes new objects on every layout). */
+function sameBlock(a: FlowBlockProps, b: FlowBlockProps): boolean {
+  for (const k of Object.keys(a) as (keyof typeof a)[]) {
+    if (k === 'text') continue;
+    if (a[k] !== b[k]) return false;
+  }
+  const x = a.text;
+  const y = b.text;
+  if (x === y) return true;
+  if (!x || !y) return false;
+  return x.x === y.x && x.y === y.y && x.name === y.name && x.lines.length === y.lines.length && x.lines.every((l, i) => l === y.lines[i]);
+}
+
+const LinkFigure = memo(function LinkFigure(p: { linkKey: string; x: number; y: number; text: string; ink: string; halo: string }) {
+  return (
+    <text
+      x={p.x}
+      y={p.y}
+      dy="0.35em"
+      text-anchor="middle"
+      font-size="12"
+      font-weight="600"
+      fill={p.ink}
+      data-fill="ink"
+      {...haloOf(p.halo)}
+      pointer-events="none"
+      data-link={p.linkKey}
+    >
+      {p.text}
+    </text>
+  );
+});
+
+const Legend = memo(function Legend({ palette }: { palette: FlowPalette }) {
   return (
     <ul class="flow__legend">
       {LEGEND.map((i) => (
@@ -522,7 +642,7 @@ function Legend({ palette }: { palette: FlowPalette }) {
       ))}
     </ul>
   );
-}
+});
 
 /** The theme the page shows now (the choice, or the device's setting). */
 export function shownTheme(): 'light' | 'dark' {
@@ -554,6 +674,7 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
   const laid = useMemo(() => (boxWidth > 0 ? layout(graph, boxWidth) : null), [graph, boxWidth]);
   const loc = effectiveLocale();
   const labels = useMemo(() => (laid ? placeLabels(laid, loc) : null), [laid, loc]);
+  const nodeLabels = useMemo(() => new Map((labels?.nodes ?? []).map((x) => [x.id, x])), [labels]);
   const zeroLoss = graph.nodes.filter((n) => n.role === 'loss' && !(n.watts > ZERO_SHARE * Math.abs(graph.sourcePower)));
   const stem = fileStem(result.projectName || 'joulepath-project');
   const ls = graph.losses;
@@ -587,8 +708,16 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
   }
 
   const path = sankeyLinkHorizontal<NodeExtra, LinkExtra>();
+  /** Hover, tap, click or focus on a branch or a block selects it (its figures go to the details line). */
+  const pick = useCallback((ev: Event) => {
+    const target = ev.target instanceof Element ? ev.target : null;
+    const link = target?.closest<SVGElement>('[data-link-key]')?.dataset['linkKey'];
+    const node = link === undefined ? target?.closest<SVGElement>('[data-node]')?.dataset['node'] : undefined;
+    // Moving the pointer within one block fires again: keep the same selection (no redraw).
+    if (link !== undefined) setSelected((s) => (s?.type === 'link' && s.key === link ? s : { type: 'link', key: link }));
+    else if (node !== undefined) setSelected((s) => (s?.type === 'node' && s.id === node ? s : { type: 'node', id: node }));
+  }, []);
   const title = `Energy flow of ${result.projectName || 'the project'}`;
-  const halo = { stroke: c.background, 'data-stroke': 'background', 'stroke-width': '3', 'stroke-linejoin': 'round', 'paint-order': 'stroke' } as const;
 
   return (
     <section class="flow print-keep" aria-labelledby="flow-heading" data-testid="energy-flow">
@@ -619,6 +748,12 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
         tabIndex={0}
         role="region"
         aria-label="Energy-flow diagram (scrolls sideways on narrow screens)"
+        // One set of handlers for every branch and block (they carry their key in data-*), so a
+        // redraw after an edit does not hand each of them three new functions. On this box, not on
+        // the <svg>: Chromium makes an SVG element with a focus listener focusable itself.
+        onPointerOver={pick}
+        onClick={pick}
+        onFocusIn={pick}
       >
         {graph.sourcePower === 0 && <p class="note">The source delivers nothing in this project, so there is no flow to draw.</p>}
         {laid && graph.sourcePower !== 0 && (
@@ -649,107 +784,57 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
               {laid.links.map((l) => {
                 const paint = linkPaint(l, nodeOf(l.source).kind);
                 const isSel = selected?.type === 'link' && selected.key === l.key;
-                const text = linkText(l, loc);
                 const isLoss = l.role === 'loss';
                 return (
-                  <path
+                  <FlowPath
                     key={l.key}
+                    linkKey={l.key}
                     d={path(l) ?? ''}
-                    stroke={isSel ? c.selected : c[paint]}
-                    data-stroke={isSel ? 'selected' : paint}
-                    stroke-opacity={isLoss ? palette.lossOpacity : palette.feedOpacity}
-                    data-opacity={isLoss ? 'loss' : 'feed'}
-                    stroke-width={Math.max(1, l.width ?? 1)}
-                    stroke-dasharray={l.part === 'idle' && (l.width ?? 0) >= 2 ? IDLE_DASH : undefined}
-                    class="flow__link"
-                    tabIndex={0}
-                    role="img"
-                    aria-label={text}
-                    data-role={l.role}
-                    data-part={l.part}
-                    data-source={nodeOf(l.source).id}
-                    data-target={nodeOf(l.target).id}
-                    data-watts={String(l.watts)}
-                    data-selected={isSel ? 'true' : undefined}
-                    onPointerEnter={() => setSelected({ type: 'link', key: l.key })}
-                    onClick={() => setSelected({ type: 'link', key: l.key })}
-                    onFocus={() => setSelected({ type: 'link', key: l.key })}
+                    paint={isSel ? 'selected' : paint}
+                    colour={isSel ? c.selected : c[paint]}
+                    opacityKey={isLoss ? 'loss' : 'feed'}
+                    opacity={isLoss ? palette.lossOpacity : palette.feedOpacity}
+                    width={Math.max(1, l.width ?? 1)}
+                    dashed={l.part === 'idle' && (l.width ?? 0) >= 2}
+                    label={linkText(l, loc)}
+                    role={l.role}
+                    part={l.part}
+                    source={nodeOf(l.source).id}
+                    target={nodeOf(l.target).id}
+                    watts={l.watts}
+                    selected={isSel}
                   />
                 );
               })}
             </g>
             <g>
               {laid.nodes.map((n) => {
-                const x0 = n.x0 ?? 0;
-                const x1 = n.x1 ?? 0;
                 const y0 = n.y0 ?? 0;
                 const h = Math.max(2, (n.y1 ?? 0) - y0);
-                const isSel = selected?.type === 'node' && selected.id === n.id;
-                const label = labels?.nodes.find((x) => x.id === n.id);
-                const text = nodeText(n, elements.get(n.elementId), loc);
-                const paint = nodePaint(n);
-                // A loss block shows its idle part on top, as its branches arrive.
-                const idleH = n.role === 'loss' && n.watts > 0 ? (h * (n.idleWatts ?? 0)) / n.watts : 0;
+                const label = nodeLabels.get(n.id);
                 return (
-                  <g
+                  <FlowBlock
                     key={n.id}
-                    class="flow__node"
-                    tabIndex={0}
-                    role="img"
-                    aria-label={text}
-                    data-node={n.id}
-                    data-role={n.role}
-                    data-selected={isSel ? 'true' : undefined}
-                    onPointerEnter={() => setSelected({ type: 'node', id: n.id })}
-                    onClick={() => setSelected({ type: 'node', id: n.id })}
-                    onFocus={() => setSelected({ type: 'node', id: n.id })}
-                  >
-                    <rect
-                      x={x0}
-                      y={y0}
-                      width={x1 - x0}
-                      height={h}
-                      fill={c[paint]}
-                      data-fill={paint}
-                      stroke={isSel ? c.selected : 'none'}
-                      data-stroke={isSel ? 'selected' : undefined}
-                      stroke-width={isSel ? 3 : 0}
-                    />
-                    {idleH > 0 && <rect x={x0} y={y0} width={x1 - x0} height={idleH} fill={c.idle} data-fill="idle" />}
-                    {label && (
-                      <text x={label.x} y={label.y} font-size="12" fill={c.ink} data-fill="ink" {...halo}>
-                        <tspan x={label.x} font-weight="600">
-                          {label.name}
-                        </tspan>
-                        {label.lines.map((t) => (
-                          <tspan key={t} x={label.x} dy="1.25em" fill={c.inkMuted} data-fill="inkMuted">
-                            {t}
-                          </tspan>
-                        ))}
-                      </text>
-                    )}
-                  </g>
+                    id={n.id}
+                    role={n.role}
+                    x0={n.x0 ?? 0}
+                    x1={n.x1 ?? 0}
+                    y0={y0}
+                    h={h}
+                    // A loss block shows its idle part on top, as its branches arrive.
+                    idleH={n.role === 'loss' && n.watts > 0 ? (h * (n.idleWatts ?? 0)) / n.watts : 0}
+                    paint={nodePaint(n)}
+                    label={nodeText(n, elements.get(n.elementId), loc)}
+                    text={label}
+                    selected={selected?.type === 'node' && selected.id === n.id}
+                    palette={palette}
+                  />
                 );
               })}
             </g>
             <g>
               {labels?.links.map((t) => (
-                <text
-                  key={`label-${t.key}`}
-                  x={t.x}
-                  y={t.y}
-                  dy="0.35em"
-                  text-anchor="middle"
-                  font-size="12"
-                  font-weight="600"
-                  fill={c.ink}
-                  data-fill="ink"
-                  {...halo}
-                  pointer-events="none"
-                  data-link={t.key}
-                >
-                  {t.text}
-                </text>
+                <LinkFigure key={`label-${t.key}`} linkKey={t.key} x={t.x} y={t.y} text={t.text} ink={c.ink} halo={c.background} />
               ))}
             </g>
           </svg>
