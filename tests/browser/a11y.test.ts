@@ -172,34 +172,34 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       const cables = page.getByTestId('cable-table');
       await cables.waitFor();
       const project = page.getByTestId('project');
-      const siText = await project.innerText();
-      const lengthsSi = await cables.getByTestId('cable-length').allInnerTexts();
+      const siText = await project.textContent();
+      const lengthsSi = await cables.getByTestId('cable-length').allTextContents();
       expect(lengthsSi.every((t) => /^\d[\d,.]*\s?m$/.test(t.trim())), lengthsSi.join(' | ')).toBe(true);
 
       // US customary: lengths in ft (40 m = 131.2 ft, 1 ft = 0.3048 m exactly, NIST SP 811 B.8).
       await page.getByTestId('units-select').selectOption('us');
-      await expect.poll(async () => (await cables.getByTestId('cable-length').allInnerTexts()).join(' | ')).toMatch(/ft/);
-      const lengthsUs = await cables.getByTestId('cable-length').allInnerTexts();
+      await expect.poll(async () => (await cables.getByTestId('cable-length').allTextContents()).join(' | ')).toMatch(/ft/);
+      const lengthsUs = await cables.getByTestId('cable-length').allTextContents();
       expect(lengthsUs.every((t) => /^\d[\d,.]*\s?ft$/.test(t.trim())), lengthsUs.join(' | ')).toBe(true);
       expect(lengthsUs).toContain('131.2\u202fft');
-      const sizeText = (await cables.getByTestId('cable-size').allInnerTexts()).join(' | ');
+      const sizeText = (await cables.getByTestId('cable-size').allTextContents()).join(' | ');
       expect(sizeText).toMatch(/mm² \([\d.]+\s?kcmil\)/);
 
       // Shaft power gets horsepower beside kW (1 hp = 745.7 W, NIST SP 811 B.8) on the pump demo.
       await page.locator('a[data-demo-id="riverside-pump-station"]').click();
-      await expect.poll(async () => (await page.getByTestId('port-table').innerText()).includes('hp')).toBe(true);
+      await expect.poll(async () => ((await page.getByTestId('port-table').textContent()) ?? '').includes('hp')).toBe(true);
       await demo.click();
       await cables.waitFor();
 
       // German number format: decimal comma, full stop for thousands (CLDR de).
       await page.getByTestId('locale-select').selectOption('de-DE');
-      await expect.poll(async () => (await cables.getByTestId('cable-length').allInnerTexts()).join(' | ')).toContain('131,2\u202fft');
-      expect(await page.getByTestId('totals-efficiency').innerText()).toMatch(/^\d{1,3}(,\d+)?\s?%$/);
+      await expect.poll(async () => (await cables.getByTestId('cable-length').allTextContents()).join(' | ')).toContain('131,2\u202fft');
+      expect(await page.getByTestId('totals-efficiency').textContent()).toMatch(/^\d{1,3}(,\d+)?\s?%$/);
 
       // Back to SI and en-US: exactly the text first shown (nothing was recomputed or rounded away).
       await page.getByTestId('units-select').selectOption('si');
       await page.getByTestId('locale-select').selectOption('en-US');
-      await expect.poll(() => project.innerText()).toBe(siText);
+      await expect.poll(() => project.textContent()).toBe(siText);
 
       // The choice survives a reload (localStorage).
       await page.getByTestId('units-select').selectOption('us');
@@ -208,7 +208,7 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       await page.getByTestId('cable-table').waitFor();
       await expect.poll(() => page.getByTestId('units-select').inputValue()).toBe('us');
       expect(await page.getByTestId('locale-select').inputValue()).toBe('de-DE');
-      expect((await page.getByTestId('cable-length').allInnerTexts()).join(' | ')).toContain('131,2\u202fft');
+      expect((await page.getByTestId('cable-length').allTextContents()).join(' | ')).toContain('131,2\u202fft');
       await page.screenshot({ path: join(artifacts, 'units-us-de-desktop.png'), fullPage: true });
       expect(errors).toEqual([]);
     } finally {
@@ -222,7 +222,7 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       await page.getByTestId('units-select').selectOption('us');
       await page.getByTestId('locale-select').selectOption('de-DE');
       await page.locator('a[data-demo-id="cold-store-dc-bus"]').click();
-      await expect.poll(async () => (await page.getByTestId('cable-length').allInnerTexts()).join(' | ')).toContain('131,2\u202fft');
+      await expect.poll(async () => (await page.getByTestId('cable-length').allTextContents()).join(' | ')).toContain('131,2\u202fft');
       expect(errors).toEqual([]);
     } finally {
       await context.close();

@@ -46,17 +46,17 @@ describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
     await page.getByTestId('element-table').waitFor();
     const totalsRow = page.getByTestId('totals-row');
     await expect.poll(() => totalsRow.count()).toBe(1);
-    const efficiency = (await page.getByTestId('totals-efficiency').innerText()).trim();
+    const efficiency = ((await page.getByTestId('totals-efficiency').textContent()) ?? '').trim();
     expect(efficiency).toMatch(/^\d{1,3}(\.\d+)?\s?%$/);
     // Every element row has a non-empty efficiency cell (a dash for loads).
-    const cells = await page.locator('[data-testid="element-table"] tbody tr td:last-child').allInnerTexts();
+    const cells = await page.locator('[data-testid="element-table"] tbody tr td:last-child').allTextContents();
     expect(cells.length).toBeGreaterThan(1);
     for (const c of cells) expect(c.trim()).not.toBe('');
     const portRows = await page.locator('[data-testid="port-table"] tbody tr').count();
     expect(portRows).toBeGreaterThan(cells.length);
     await expect.poll(async () => (await page.getByTestId('balance-line').innerText()).trim()).toMatch(/^Energy balance: source /);
     // No stray NaN/undefined leaks into the tables.
-    const text = await page.getByTestId('project').innerText();
+    const text = (await page.getByTestId('project').textContent()) ?? '';
     expect(text).not.toMatch(/NaN|undefined|Infinity/);
   }
 

@@ -53,7 +53,7 @@ describe.skipIf(skipWithout('chromium'))('stage forms in Chromium', () => {
 
   const field = (page: Page, path: string) => page.locator(`[data-testid="stage-form"] [data-testid="field-${path}"]`);
   const messageAt = (page: Page, path: string) => page.locator(`[data-testid="stage-form"] [data-path="${path}"] [data-testid="field-message"]`);
-  const efficiency = async (page: Page) => (await page.getByTestId('totals-efficiency').innerText()).trim();
+  const efficiency = async (page: Page) => ((await page.getByTestId('totals-efficiency').textContent()) ?? '').trim();
   const stale = (page: Page) => page.getByTestId('results-stale');
 
   it('a changed value changes the figures; bad input is marked at the field and the last valid figures stay (desktop)', async () => {

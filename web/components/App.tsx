@@ -51,7 +51,7 @@ function PanelShelf({ result }: { result: SolveResult }) {
   const conductors = result.elements.some((e) => e.conductor);
   const machines = project.elements.some((e) => e.kind === 'motor' || e.kind === 'drive' || e.kind === 'pump');
   return (
-    <section class="panels" aria-label="Studies of this project" data-testid="panels">
+    <section class="panels skip-offscreen" aria-label="Studies of this project" data-testid="panels">
       {battery && (
         <PanelDisclosure id="battery" title="Battery backup" hint="runtime, why not Wh ÷ W, bank sizing, recharge, plot">
           {() => <BatteryPanel />}

@@ -120,7 +120,7 @@ export function ElementTable({ result }: { result: SolveResult }) {
   const formatPower = (w: number) => formatPowerIn(w, loc);
   return (
     <>
-    <section aria-labelledby="elements-heading">
+    <section class="skip-offscreen" aria-labelledby="elements-heading">
       <h3 id="elements-heading">Power at each element</h3>
       <div class="table-scroll" role="region" aria-labelledby="elements-heading" tabIndex={0}>
         <table class="data data--stack" data-testid="element-table">
@@ -196,7 +196,7 @@ function CableTable({ result, units, locale }: { result: SolveResult; units: Uni
   for (const path of result.voltageDrop ?? []) for (const link of path.links) drops.set(link.id, link.dropPercent);
   const cautions = [...new Set(cables.flatMap((e) => (e.conductor ? [e.conductor.caution] : [])))];
   return (
-    <section aria-labelledby="cables-heading" data-testid="cable-panel">
+    <section class="skip-offscreen" aria-labelledby="cables-heading" data-testid="cable-panel">
       <h3 id="cables-heading">Cables</h3>
       <div class="table-scroll" role="region" aria-labelledby="cables-heading" tabIndex={0}>
         <table class="data data--cables" data-testid="cable-table">
@@ -349,7 +349,7 @@ export function PortTable({ result }: { result: SolveResult }) {
   const loc = effectiveLocale();
   const units = unitSystem.value;
   return (
-    <section aria-labelledby="ports-heading">
+    <section class="skip-offscreen" aria-labelledby="ports-heading">
       <h3 id="ports-heading">Voltage, current and power at each port</h3>
       <div class="table-scroll" role="region" aria-labelledby="ports-heading" tabIndex={0}>
         <table class="data data--ports" data-testid="port-table">
