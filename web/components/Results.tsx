@@ -123,14 +123,14 @@ export function ElementTable({ result }: { result: SolveResult }) {
     <section class="skip-offscreen" aria-labelledby="elements-heading">
       <h3 id="elements-heading">Power at each element</h3>
       <div class="table-scroll" role="region" aria-labelledby="elements-heading" tabIndex={0}>
-        <table class="data data--stack" data-testid="element-table">
+        <table class="data data--stack data--fixed data--elements" data-testid="element-table">
           <thead>
             <tr>
               <th scope="col">Element</th>
-              <th scope="col" class="num">P in</th>
-              <th scope="col" class="num">P out</th>
-              <th scope="col" class="num">Loss</th>
-              <th scope="col" class="num">Efficiency</th>
+              <th scope="col" class="num col-power">P in</th>
+              <th scope="col" class="num col-power">P out</th>
+              <th scope="col" class="num col-figure">Loss</th>
+              <th scope="col" class="num col-figure">Efficiency</th>
             </tr>
           </thead>
           <tbody>
@@ -199,15 +199,15 @@ function CableTable({ result, units, locale }: { result: SolveResult; units: Uni
     <section class="skip-offscreen" aria-labelledby="cables-heading" data-testid="cable-panel">
       <h3 id="cables-heading">Cables</h3>
       <div class="table-scroll" role="region" aria-labelledby="cables-heading" tabIndex={0}>
-        <table class="data data--cables" data-testid="cable-table">
+        <table class="data data--cables data--fixed" data-testid="cable-table">
           <thead>
             <tr>
               <th scope="col">Cable</th>
-              <th scope="col" class="num">Length</th>
-              <th scope="col">Conductor</th>
-              <th scope="col" class="num">Conductor temp.</th>
-              <th scope="col" class="num">Drop</th>
-              <th scope="col" class="num">Loss</th>
+              <th scope="col" class="num col-short">Length</th>
+              <th scope="col" class="col-conductor">Conductor</th>
+              <th scope="col" class="num col-temperature">Conductor temp.</th>
+              <th scope="col" class="num col-short">Drop</th>
+              <th scope="col" class="num col-short">Loss</th>
             </tr>
           </thead>
           <tbody>
@@ -276,8 +276,10 @@ interface PortRowProps {
   /** The element's name as shown (its id when it has none). */
   name: string;
   side: 'in' | 'out';
-  /** Port kind, frequency or speed, then V, I, P, Q, S and power factor, formatted. */
-  cells: readonly string[];
+  /** The port as solved; formatted in the row (only when one of its figures changed). */
+  port: PortResult;
+  units: UnitSystem;
+  locale: string | undefined;
   depth: number;
   /** Rows the element's name cell spans (0 = this row continues the element above). */
   nameRows: number;
@@ -302,6 +304,23 @@ function portCells(port: PortResult, units: UnitSystem, loc: string | undefined)
   ];
 }
 
+/** Everything a port row shows, compared as numbers (a new solve gives new objects with the same figures). */
+function samePort(a: PortResult, b: PortResult): boolean {
+  return (
+    a === b ||
+    (a.kind === b.kind &&
+      a.frequency === b.frequency &&
+      a.speed === b.speed &&
+      a.voltage === b.voltage &&
+      a.current === b.current &&
+      a.p === b.p &&
+      a.q === b.q &&
+      a.s === b.s &&
+      a.powerFactor === b.powerFactor &&
+      a.pfSense === b.pfSense)
+  );
+}
+
 function samePortRow(a: PortRowProps, b: PortRowProps): boolean {
   return (
     a.elementId === b.elementId &&
@@ -310,13 +329,15 @@ function samePortRow(a: PortRowProps, b: PortRowProps): boolean {
     a.depth === b.depth &&
     a.nameRows === b.nameRows &&
     a.shade === b.shade &&
-    a.cells.length === b.cells.length &&
-    a.cells.every((c, i) => c === b.cells[i])
+    a.units === b.units &&
+    a.locale === b.locale &&
+    samePort(a.port, b.port)
   );
 }
 
-/** One port's row; re-rendered only when a figure it shows (as formatted) has changed. */
-const PortRow = memo(function PortRow({ elementId, name, side, cells, depth, nameRows, shade }: PortRowProps) {
+/** One port's row; formatted and re-rendered only when a figure it shows has changed. */
+const PortRow = memo(function PortRow({ elementId, name, side, port, units, locale, depth, nameRows, shade }: PortRowProps) {
+  const cells = portCells(port, units, locale);
   return (
     <tr data-element-id={elementId} data-port={side} class={`${shade ? 'shade' : ''}${nameRows === 0 ? ' cont' : ''}`}>
       {nameRows > 0 && (
@@ -352,17 +373,17 @@ export function PortTable({ result }: { result: SolveResult }) {
     <section class="skip-offscreen" aria-labelledby="ports-heading">
       <h3 id="ports-heading">Voltage, current and power at each port</h3>
       <div class="table-scroll" role="region" aria-labelledby="ports-heading" tabIndex={0}>
-        <table class="data data--ports" data-testid="port-table">
+        <table class="data data--ports data--fixed" data-testid="port-table">
           <thead>
             <tr>
               <th scope="col">Element</th>
-              <th scope="col">Port</th>
-              <th scope="col" class="num">V</th>
-              <th scope="col" class="num">I</th>
-              <th scope="col" class="num">P</th>
-              <th scope="col" class="num">Q</th>
-              <th scope="col" class="num">S</th>
-              <th scope="col" class="num">Power factor</th>
+              <th scope="col" class="col-port">Port</th>
+              <th scope="col" class="num col-narrow">V</th>
+              <th scope="col" class="num col-narrow">I</th>
+              <th scope="col" class="num col-short">P</th>
+              <th scope="col" class="num col-reactive">Q</th>
+              <th scope="col" class="num col-short">S</th>
+              <th scope="col" class="num col-pf">Power factor</th>
             </tr>
           </thead>
           <tbody>
@@ -378,7 +399,9 @@ export function PortTable({ result }: { result: SolveResult }) {
                   elementId={e.id}
                   name={e.name || e.id}
                   side={side}
-                  cells={portCells(port, units, loc)}
+                  port={port}
+                  units={units}
+                  locale={loc}
                   depth={d}
                   nameRows={i === 0 ? ports.length : 0}
                   shade={index % 2 === 1}

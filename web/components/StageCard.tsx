@@ -143,6 +143,18 @@ export function keyInputs(e: DraftElement, input: FeedingPort | undefined, units
   return lines.filter((x): x is string => typeof x === 'string' && x.length > 0).slice(0, 2);
 }
 
+/** Result lines already formatted, per solved element (each solve gives new objects; a card compares the old and the new one). */
+const shownLines = new WeakMap<ElementResult, { units: UnitSystem; locale: string | undefined; text: string }>();
+
+/** keyResult, formatted once per solved element, unit system and locale. */
+function resultLine(r: ElementResult, units: UnitSystem, locale: string | undefined): string {
+  const known = shownLines.get(r);
+  if (known && known.units === units && known.locale === locale) return known.text;
+  const text = keyResult(r, units, locale);
+  shownLines.set(r, { units, locale, text });
+  return text;
+}
+
 /** The key result of a solved element in one line: what it delivers or uses, and its loss. */
 export function keyResult(r: ElementResult, units: UnitSystem, locale: string | undefined): string {
   const power = (w: number, shaft: boolean) => (shaft ? formatShaftPower(w, units, locale) : formatPower(w, locale));
@@ -185,7 +197,7 @@ function sameCard(a: StageCardProps, b: StageCardProps): boolean {
   if (a.input !== b.input && JSON.stringify(a.input) !== JSON.stringify(b.input)) return false;
   if (a.result === b.result) return true;
   if (!a.result || !b.result) return false;
-  return keyResult(a.result, a.units, a.locale) === keyResult(b.result, b.units, b.locale);
+  return resultLine(a.result, a.units, a.locale) === resultLine(b.result, b.units, b.locale);
 }
 
 /**
@@ -219,7 +231,7 @@ export const StageCard = memo(function StageCard(props: StageCardProps) {
       ))}
       {result && (
         <span class="stage-card__result" data-testid="stage-card-result">
-          {keyResult(result, props.units, props.locale)}
+          {resultLine(result, props.units, props.locale)}
           {props.stale && <span class="visually-hidden"> (out of date)</span>}
         </span>
       )}
