@@ -128,7 +128,8 @@ function markEdited(): void {
   if (!origin || !project) return;
   pending = { origin, project };
   const s = saveStatus.peek().state;
-  if (s !== 'failed' && s !== 'conflict') saveStatus.value = { state: 'pending' };
+  // Set once per batch of edits (a new object on every keystroke would redraw the save line each time).
+  if (s !== 'failed' && s !== 'conflict' && s !== 'pending') saveStatus.value = { state: 'pending' };
   if (timer === undefined) timer = setTimeout(() => void flush(), AUTOSAVE_MS);
 }
 
