@@ -11,11 +11,20 @@ import { recordName } from '../storage/record.ts';
 import { deleteStored, downloadExport, duplicateStored, hashForStored, listLoaded, projectList, renameStored } from '../storage/session.ts';
 import { appVersion } from '../sw-register.ts';
 
+const savedAtFormats = new Map<string, Intl.DateTimeFormat>();
+
 /** A saved time in the display locale ("3 Dec 2025, 14:05"). */
 export function formatSavedAt(iso: string): string {
   const d = new Date(iso);
   if (Number.isNaN(d.getTime())) return 'unknown time';
-  return new Intl.DateTimeFormat(effectiveLocale(), { dateStyle: 'medium', timeStyle: 'short' }).format(d);
+  const locale = effectiveLocale();
+  // Building a DateTimeFormat costs far more than using one; the save line formats after every save.
+  let f = savedAtFormats.get(locale ?? '');
+  if (!f) {
+    f = new Intl.DateTimeFormat(locale, { dateStyle: 'medium', timeStyle: 'short' });
+    savedAtFormats.set(locale ?? '', f);
+  }
+  return f.format(d);
 }
 
 function RenameForm({ id, name, onDone }: { id: string; name: string; onDone: () => void }) {
