@@ -15,7 +15,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type AxeViolation, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type AxeViolation, type ServedApp, fullPageScreenshot } from './harness.ts';
 
 
 
@@ -78,7 +78,7 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
           const found = await seriousAxeViolations(page);
           if (found.length > 0) failures.push(`${theme} theme, ${label}, ${id}:\n${describeViolations(found)}`);
           if (id === ids[0]) {
-            await page.screenshot({ path: join(artifacts, `theme-${theme}-${label}.png`), fullPage: true });
+            await fullPageScreenshot(page, join(artifacts, `theme-${theme}-${label}.png`));
             await page.screenshot({ path: join(artifacts, `theme-${theme}-${label}-top.png`) });
           }
         }
@@ -113,7 +113,7 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
           await expect.poll(() => page.getByText('Opening…').count(), { timeout: 20_000 }).toBe(0);
           const found = await seriousAxeViolations(page);
           if (found.length > 0) failures.push(`${theme} theme, ${id}, panels open:\n${describeViolations(found)}`);
-          if (theme === 'dark' && id === 'hillside-relay-hut') await page.screenshot({ path: join(artifacts, 'panels-open-dark-phone.png'), fullPage: true });
+          if (theme === 'dark' && id === 'hillside-relay-hut') await fullPageScreenshot(page, join(artifacts, 'panels-open-dark-phone.png'));
         }
       }
       expect(failures.join('\n\n')).toBe('');
@@ -209,7 +209,7 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       await expect.poll(() => page.getByTestId('units-select').inputValue()).toBe('us');
       expect(await page.getByTestId('locale-select').inputValue()).toBe('de-DE');
       expect((await page.getByTestId('cable-length').allTextContents()).join(' | ')).toContain('131,2\u202fft');
-      await page.screenshot({ path: join(artifacts, 'units-us-de-desktop.png'), fullPage: true });
+      await fullPageScreenshot(page, join(artifacts, 'units-us-de-desktop.png'));
       expect(errors).toEqual([]);
     } finally {
       await context.close();

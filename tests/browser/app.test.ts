@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp, fullPageScreenshot } from './harness.ts';
 
 
 describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
@@ -78,7 +78,7 @@ describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
         // The page itself never scrolls sideways; wide tables scroll inside their own box.
         const overflow = await page.evaluate('document.documentElement.scrollWidth - window.innerWidth');
         expect(overflow, `page wider than the ${label} viewport on ${id}`).toBeLessThanOrEqual(0);
-        await page.screenshot({ path: join(artifacts, `${label}-${id}.png`), fullPage: true });
+        await fullPageScreenshot(page, join(artifacts, `${label}-${id}.png`));
       }
       // A reload with the address of the last demo opens that demo again.
       await page.reload({ waitUntil: 'load' });
@@ -114,7 +114,7 @@ describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
       const text = await problems.innerText();
       expect(text).toContain('heater');
       expect(text).toContain('power');
-      await page.screenshot({ path: join(artifacts, 'phone-problems.png'), fullPage: true });
+      await fullPageScreenshot(page, join(artifacts, 'phone-problems.png'));
 
       // A file that is not JSON at all says so instead of failing silently.
       await page.getByTestId('open-file').setInputFiles({ name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('not json') });

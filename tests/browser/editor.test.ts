@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp, fullPageScreenshot } from './harness.ts';
 
 describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
   let app: ServedApp | undefined;
@@ -84,7 +84,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       expect(withLoad).not.toBe(empty);
       await expect.poll(() => cards(page).nth(3).innerText()).toMatch(/uses 500\sW/);
       expect(await page.getByTestId('editor-status').innerText()).toMatch(/Inserted load/);
-      await page.screenshot({ path: join(artifacts, 'editor-phone-built.png'), fullPage: true });
+      await fullPageScreenshot(page, join(artifacts, 'editor-phone-built.png'));
       await page.getByTestId('chain-editor').evaluate((el) => el.scrollIntoView());
       await page.screenshot({ path: join(artifacts, 'editor-phone-built-view.png') });
 
@@ -99,7 +99,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       expect(await page.getByTestId('redo').getAttribute('title')).toMatch(/Duplicated load/);
       await page.getByTestId('redo').click();
       await expect.poll(() => cards(page).count()).toBe(5);
-      await page.screenshot({ path: join(artifacts, 'editor-phone-branches.png'), fullPage: true });
+      await fullPageScreenshot(page, join(artifacts, 'editor-phone-branches.png'));
       // Remove the copy; the balance follows.
       await page.getByTestId('op-remove').click();
       await expect.poll(() => cards(page).count()).toBe(4);
@@ -181,7 +181,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await expect.poll(() => cards(page).count()).toBe(3); // nothing left to redo
       await page.keyboard.press('Control+z');
       await expect.poll(() => cards(page).count()).toBe(4);
-      await page.screenshot({ path: join(artifacts, 'editor-desktop-built.png'), fullPage: true });
+      await fullPageScreenshot(page, join(artifacts, 'editor-desktop-built.png'));
       expect(errors).toEqual([]);
     } finally {
       await context.close();
@@ -210,7 +210,9 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
             return texts.findIndex((t) => t.includes('Lights')) < texts.findIndex((t) => t.includes('Vaccine'));
           })
           .toBe(true);
-        await page.screenshot({ path: join(artifacts, `editor-${label}-hillside.png`), fullPage: label === 'phone' });
+        const shot = join(artifacts, `editor-${label}-hillside.png`);
+        if (label === 'phone') await fullPageScreenshot(page, shot);
+        else await page.screenshot({ path: shot });
         await page.getByTestId('chain-editor').evaluate((el) => el.scrollIntoView());
         await page.screenshot({ path: join(artifacts, `editor-${label}-hillside-view.png`) });
         const overflow = await page.evaluate('document.documentElement.scrollWidth - window.innerWidth');

@@ -116,6 +116,22 @@ export function watchPageErrors(page: Page): string[] {
 }
 
 /** One axe-core finding (axe-core, pinned in package.json). */
+/**
+ * A screenshot of the whole page, for a person to look at. Parts of the page skip rendering while
+ * off screen (`skip-offscreen`, content-visibility: auto, web/styles.css) and a full-page capture
+ * does not bring them on screen, so they are rendered for the capture and left as before after it.
+ */
+export async function fullPageScreenshot(page: Page, path: string): Promise<void> {
+  await page.evaluate(
+    `(() => { const s = document.createElement('style'); s.id = 'test-render-all'; s.textContent = '.skip-offscreen { content-visibility: visible !important; }'; document.head.append(s); })()`,
+  );
+  try {
+    await page.screenshot({ path, fullPage: true });
+  } finally {
+    await page.evaluate(`document.getElementById('test-render-all')?.remove()`);
+  }
+}
+
 export interface AxeViolation {
   id: string;
   impact: string | null;

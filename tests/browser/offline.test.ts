@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp, fullPageScreenshot } from './harness.ts';
 import { cardCount, dumpStore, duplicateLastStage, median, newRecordedPage, storedRecords, waitForResults, waitForServiceWorker, waitSaved } from './offline-helpers.ts';
 
 /** Records, in the page, when the results table first appears (ms after navigation start), one frame later. */
@@ -115,7 +115,7 @@ describe.skipIf(skipWithout('chromium'))('offline use (service worker, stored pr
       await page.reload({ waitUntil: 'load' });
       await waitForResults(page);
       expect(await cardCount(page)).toBe(before + 1);
-      await page.screenshot({ path: join(artifacts, 'offline-phone.png'), fullPage: true });
+      await fullPageScreenshot(page, join(artifacts, 'offline-phone.png'));
     } finally {
       await context!.setOffline(false);
     }

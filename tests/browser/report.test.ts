@@ -11,7 +11,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp, fullPageScreenshot } from './harness.ts';
 import { demoProjects, flowGraph, solveProject, CONDUCTOR_CAUTION } from '../../core/index.ts';
 import { formatPercent, formatPower } from '../../web/format/number.ts';
 
@@ -134,7 +134,7 @@ describe.skipIf(skipWithout('chromium'))('the client report in Chromium', () => 
         })()`)) as Record<string, string>;
         expect(colours).toEqual({ body: 'rgb(255, 255, 255)', ink: 'rgb(23, 32, 29)', svg: 'rgb(255, 255, 255)', feed: 'rgb(31, 111, 126)' });
 
-        await page.screenshot({ path: join(artifacts, `report-${theme}-${demo.id}.png`), fullPage: true });
+        await fullPageScreenshot(page, join(artifacts, `report-${theme}-${demo.id}.png`));
         const pdf = await page.pdf({ format: 'A4', printBackground: true });
         writeFileSync(join(artifacts, `report-${theme}-${demo.id}.pdf`), pdf);
         const pages = pdfPageCount(pdf);
