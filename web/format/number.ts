@@ -13,7 +13,7 @@ const ZERO_BELOW = 1e-9;
 const formatters = new Map<string, Intl.NumberFormat>();
 
 /** A cached Intl.NumberFormat (building one is slow compared with using it). */
-function numberFormat(locale: string | undefined, options: Intl.NumberFormatOptions): Intl.NumberFormat {
+export function numberFormat(locale: string | undefined, options: Intl.NumberFormatOptions): Intl.NumberFormat {
   const key = `${locale ?? ''}|${JSON.stringify(options)}`;
   let nf = formatters.get(key);
   if (!nf) {

@@ -3,21 +3,8 @@
  * currency, AWG words for metric sizes and resistance per length. Kept apart
  * from number.ts and units.ts so it loads with the panels, not with the page.
  */
-import { UNIT_GAP, formatSignificant } from './number.ts';
+import { UNIT_GAP, formatSignificant, numberFormat } from './number.ts';
 import { METRES_PER_FOOT, type UnitSystem } from './units.ts';
-
-const formatters = new Map<string, Intl.NumberFormat>();
-
-/** A cached Intl.NumberFormat. */
-function numberFormat(locale: string | undefined, options: Intl.NumberFormatOptions): Intl.NumberFormat {
-  const key = `${locale ?? ''}|${JSON.stringify(options)}`;
-  let nf = formatters.get(key);
-  if (!nf) {
-    nf = new Intl.NumberFormat(locale, options);
-    formatters.set(key, nf);
-  }
-  return nf;
-}
 
 // ---------- money ----------
 

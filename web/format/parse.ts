@@ -22,6 +22,7 @@ import {
   WATTS_PER_HORSEPOWER,
   type UnitSystem,
 } from './units.ts';
+import { numberFormat } from './number.ts';
 
 // ---------- locale numbers ----------
 
@@ -108,21 +109,13 @@ export function parseLocaleNumber(text: string, locale?: string): ParsedNumber {
   return { kind: 'number', value: Object.is(value, -0) ? 0 : value };
 }
 
-const inputFormats = new Map<string, Intl.NumberFormat>();
-
 /**
  * A stored number as the text of an input: the locale's decimal separator, no grouping (it gets in
  * the way while editing), up to 12 significant digits (enough to show any value a person typed).
  */
 export function formatForInput(value: number, locale?: string): string {
   if (!Number.isFinite(value)) return '';
-  const key = locale ?? '';
-  let nf = inputFormats.get(key);
-  if (!nf) {
-    nf = new Intl.NumberFormat(locale, { maximumSignificantDigits: 12, useGrouping: false });
-    inputFormats.set(key, nf);
-  }
-  return nf.format(value).replace(/\u2212/g, '-');
+  return numberFormat(locale, { maximumSignificantDigits: 12, useGrouping: false }).format(value).replace(/\u2212/g, '-');
 }
 
 // ---------- units of input fields ----------
