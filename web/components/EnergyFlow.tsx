@@ -30,7 +30,7 @@ import { sankey, sankeyLinkHorizontal, type SankeyLink, type SankeyNode } from '
 import { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from '../../core/flow.ts';
 import type { ElementResult, SolveResult } from '../../core/result.ts';
 import { formatPercent, formatPower } from '../format/number.ts';
-import { elementKindLabel } from '../format/labels.ts';
+import { elementKindLabel, fileNameStem } from '../format/labels.ts';
 import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state/prefs.ts';
 import { FLOW_PALETTES, PAPER_THEME, type FlowPalette, type PaintKey } from './flow-palette.ts';
 import './EnergyFlow.css';
@@ -63,14 +63,7 @@ type LaidLink = SankeyLink<NodeExtra, LinkExtra>;
 
 /** The file name stem for downloads: the project's name in lower case, words joined by dashes. */
 export function fileStem(projectName: string): string {
-  const stem = projectName
-    .normalize('NFKD')
-    .replace(/[\u0300-\u036f]/g, '')
-    .toLowerCase()
-    .replace(/[^a-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .slice(0, 60);
-  return `${stem || 'joulepath-project'}-energy-flow`;
+  return `${fileNameStem(projectName) || 'joulepath-project'}-energy-flow`;
 }
 
 /** Which links are drawn: everything that carries power (zero branches would be invisible slivers). */

@@ -37,3 +37,17 @@ export function elementKindLabel(kind: string): string {
 export function portKindLabel(kind: string): string {
   return (PORT_KIND_LABELS as Record<string, string>)[kind] ?? kind;
 }
+
+/**
+ * A project name as a file-name stem: accents dropped, lower case, letters and digits joined by
+ * single dashes, at most 60 characters ('' when nothing is left).
+ */
+export function fileNameStem(name: string): string {
+  return name
+    .normalize('NFKD')
+    .replace(/[\u0300-\u036f]/g, '')
+    .toLowerCase()
+    .replace(/[^a-z0-9]+/g, '-')
+    .replace(/^-+|-+$/g, '')
+    .slice(0, 60);
+}

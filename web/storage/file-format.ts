@@ -13,6 +13,7 @@
 import * as z from 'zod/mini';
 import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
+import { fileNameStem } from '../format/labels.ts';
 
 export const EXPORT_FORMAT = 'joulepath-export';
 export const EXPORT_VERSION = 1;
@@ -65,14 +66,7 @@ export function exportText(envelope: ExportEnvelope): string {
 
 /** A file name from the project name: letters, digits and dashes only. */
 export function exportFileName(name: string): string {
-  const stem = name
-    .normalize('NFKD')
-    .replace(/[\u0300-\u036f]/g, '')
-    .toLowerCase()
-    .replace(/[^a-z0-9]+/g, '-')
-    .replace(/^-+|-+$/g, '')
-    .slice(0, 60);
-  return `${stem || 'project'}.joulepath.json`;
+  return `${fileNameStem(name) || 'project'}.joulepath.json`;
 }
 
 export type ImportOutcome =
