@@ -23,11 +23,27 @@ export function numberFormat(locale: string | undefined, options: Intl.NumberFor
   return nf;
 }
 
+/**
+ * The formats used for every figure on the page (significant figures, per cent), found without
+ * building a key: a redraw formats a few hundred numbers, and serialising the options for each
+ * cost three times the formatting itself.
+ */
+const quick = new Map<string, Intl.NumberFormat>();
+function quickFormat(kind: 'significant' | 'percent', digits: number, locale: string | undefined): Intl.NumberFormat {
+  const key = `${kind}${digits}|${locale ?? ''}`;
+  let nf = quick.get(key);
+  if (!nf) {
+    nf = numberFormat(locale, kind === 'percent' ? { style: 'percent', maximumSignificantDigits: digits } : { maximumSignificantDigits: digits });
+    quick.set(key, nf);
+  }
+  return nf;
+}
+
 /** A plain number with at most `digits` significant figures (3–4 is the useful range here). */
 export function formatSignificant(value: number, digits = 4, locale?: string): string {
   if (!Number.isFinite(value)) return '—';
   const v = Math.abs(value) < ZERO_BELOW ? 0 : value;
-  return numberFormat(locale, { maximumSignificantDigits: digits }).format(v);
+  return quickFormat('significant', digits, locale).format(v);
 }
 
 const PREFIXES = [
@@ -46,7 +62,7 @@ export function formatWithPrefix(value: number, unit: string, digits = 4, locale
   const magnitude = Math.abs(value);
   // Choose the prefix from the value as it will be rounded, so 999.96 W shows as "1 kW".
   const rounded = Number(magnitude.toPrecision(digits));
-  const step = PREFIXES.find((p) => rounded >= p.factor) ?? PREFIXES[PREFIXES.length - 1]!;
+  const step = rounded >= 1e9 ? PREFIXES[0] : rounded >= 1e6 ? PREFIXES[1] : rounded >= 1e3 ? PREFIXES[2] : PREFIXES[3];
   return `${formatSignificant(value / step.factor, digits, locale)}${UNIT_GAP}${step.prefix}${unit}`;
 }
 
@@ -69,7 +85,7 @@ export const formatSpeed = (rpm: number, locale?: string) => `${formatSignifican
 export function formatPercent(ratio: number, locale?: string, digits = 4): string {
   if (!Number.isFinite(ratio)) return '—';
   const v = Math.abs(ratio) < ZERO_BELOW ? 0 : ratio;
-  return numberFormat(locale, { style: 'percent', maximumSignificantDigits: digits }).format(v);
+  return quickFormat('percent', digits, locale).format(v);
 }
 
 /** A small ratio such as an energy-balance error, shown to enough decimals to see it is tiny. */

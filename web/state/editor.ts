@@ -611,10 +611,13 @@ effect(() => {
   lastValidResult.value = o?.ok ? o.result : null;
 });
 
+/** One empty list, so that an edit that solves does not hand every reader a new (empty) array. */
+const NO_PROBLEMS = Object.freeze([]) as unknown as Problem[];
+
 /** Problems of the draft as it stands (empty when it solves). */
 export const draftProblems = computed<Problem[]>(() => {
   const o = outcome.value;
-  return o && !o.ok && 'problems' in o ? o.problems : [];
+  return o && !o.ok && 'problems' in o ? o.problems : NO_PROBLEMS;
 });
 
 /** A crash message, when the engine stopped unexpectedly. */
