@@ -4,7 +4,8 @@ import { ProjectList } from './ProjectList.tsx';
 import { SaveLine, StorageAlerts, StorageDetails } from './StorageStatus.tsx';
 import { Preferences } from './Preferences.tsx';
 import { ProblemList } from './ProblemList.tsx';
-import { ElementTable, EnergyBalance, MethodNote, PortTable, WarningList } from './Results.tsx';
+import { CableTable, ElementTable, EnergyBalance, MethodNote, PortTable, WarningList } from './Results.tsx';
+import { useOffscreenLag } from './lag.ts';
 import { lazy, memo, Suspense } from 'preact/compat';
 import { useEffect, useState } from 'preact/hooks';
 import type { SolveResult } from '../../core/result.ts';
@@ -43,7 +44,9 @@ function PanelDisclosure({ id, title, hint, children }: { id: string; title: str
 }
 
 /** The panels that apply to the open project (a battery source with a bank; sized conductors; always the machines and cost panel). */
-function PanelShelf({ result }: { result: SolveResult }) {
+function PanelShelf({ result: latest }: { result: SolveResult }) {
+  // An open panel scrolled out of view follows the edits when the page is idle (lag.ts).
+  const { box, shown: result } = useOffscreenLag(latest);
   const project = draft.value;
   if (!project) return null;
   const root = project.elements.find((e) => e.from === undefined);
@@ -51,7 +54,7 @@ function PanelShelf({ result }: { result: SolveResult }) {
   const conductors = result.elements.some((e) => e.conductor);
   const machines = project.elements.some((e) => e.kind === 'motor' || e.kind === 'drive' || e.kind === 'pump');
   return (
-    <section class="panels skip-offscreen" aria-label="Studies of this project" data-testid="panels">
+    <section class="panels skip-offscreen" aria-label="Studies of this project" data-testid="panels" ref={box}>
       {battery && (
         <PanelDisclosure id="battery" title="Battery backup" hint="runtime, why not Wh ÷ W, bank sizing, recharge, plot">
           {() => <BatteryPanel />}
@@ -136,6 +139,7 @@ function ShownProject() {
           <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={result} /></Suspense>
           <WarningList result={result} />
           <ElementTable result={result} />
+          <CableTable result={result} />
           <PortTable result={result} />
           <MethodNote result={result} />
           <PanelShelf key={openCount.value} result={result} />

@@ -13,10 +13,10 @@
  */
 import { useSignal } from '@preact/signals';
 import { memo } from 'preact/compat';
-import { useCallback, useEffect, useRef } from 'preact/hooks';
+import { useCallback, useEffect, useMemo, useRef } from 'preact/hooks';
 import type { ComponentChildren } from 'preact';
 import type { ElementKind } from '../../core/model.ts';
-import type { ElementResult } from '../../core/result.ts';
+import type { ElementResult, SolveResult } from '../../core/result.ts';
 import { nominalPorts, offeredTemplates, type AddOperation, type FeedingPort } from '../editor/templates.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import {
@@ -50,6 +50,7 @@ import {
 } from '../state/editor.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { keyInputs, StageCard } from './StageCard.tsx';
+import { useOffscreenLag } from './lag.ts';
 import { StageForm } from './StageForm.tsx';
 import './ChainEditor.css';
 
@@ -196,14 +197,39 @@ function isTextEntry(target: EventTarget | null): boolean {
 
 // ---------- the editor ----------
 
+/**
+ * The editor follows the draft and the results; scrolled out of view (an undo from the keyboard
+ * while the diagram is shown, say), its cards follow them when the page is idle (lag.ts), and the
+ * view below is not even compared again until then. The stage form follows the draft itself.
+ */
 export function ChainEditor() {
+  const latest = draft.value;
+  const latestResult = lastValidResult.value;
+  const now = useMemo(() => ({ p: latest, result: latestResult }), [latest, latestResult]);
+  const { box, shown } = useOffscreenLag(now);
+  return <ChainEditorView p={shown.p} result={shown.result} box={box} />;
+}
+
+const ChainEditorView = memo(function ChainEditorView({
+  p,
+  result,
+  box,
+}: {
+  p: DraftProject | null;
+  result: SolveResult | null;
+  box: (el: Element | null) => void;
+}) {
   const focusId = useSignal<string | null>(null);
   const chooser = useSignal<{ op: AddOperation; target: string } | null>(null);
   const refused = useSignal<string | null>(null);
   /** A hint added to the status line, for the change it was given with. */
   const hint = useSignal<{ change: string; text: string } | null>(null);
   const pendingFocus = useRef<string | 'form' | 'chooser' | null>(null);
-  const root = useRef<HTMLElement>(null);
+  const root = useRef<HTMLElement | null>(null);
+  const rootRef = useCallback((el: HTMLElement | null) => {
+    root.current = el;
+    box(el);
+  }, [box]);
   const formRef = useRef<HTMLElement>(null);
   const chooserOpener = useRef<HTMLElement | null>(null);
   // The cards' handlers keep one identity across renders (the cards are memo'd: an edit re-renders
@@ -250,12 +276,11 @@ export function ChainEditor() {
     }
   });
 
-  const p = draft.value;
   if (!p) return null;
   const layout = layoutOf(p);
   const ports = nominalPorts(p);
   const byId = new Map(p.elements.map((e) => [e.id, e]));
-  const results = new Map<string, ElementResult>((lastValidResult.value?.elements ?? []).map((r) => [r.id, r]));
+  const results = new Map<string, ElementResult>((result?.elements ?? []).map((r) => [r.id, r]));
   const stale = resultsState.value === 'stale';
   const problemCount = new Map<string, number>();
   for (const pr of draftProblems.value) problemCount.set(pr.elementId, (problemCount.get(pr.elementId) ?? 0) + 1);
@@ -401,7 +426,7 @@ export function ChainEditor() {
   const offered = open ? offeredTemplates(p, open.op, open.target) : [];
 
   return (
-    <section class="editor skip-offscreen" aria-labelledby="editor-heading" data-testid="chain-editor" ref={root}>
+    <section class="editor skip-offscreen" aria-labelledby="editor-heading" data-testid="chain-editor" ref={rootRef}>
       <div class="editor__head">
         <h3 id="editor-heading">Chain</h3>
         <div class="editor__history" role="group" aria-label="History">
@@ -493,6 +518,6 @@ export function ChainEditor() {
       </button>
     );
   }
-}
+});
 
 export default ChainEditor;

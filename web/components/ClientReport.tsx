@@ -23,6 +23,7 @@ import { formatConductorSize } from '../format/units.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import { draft, resultsState } from '../state/editor.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
+import { whenIdle } from './lag.ts';
 
 /**
  * Battery runtime for the report. The hook for the battery panel: pass the runtime study's
@@ -87,10 +88,10 @@ function sameInputs(a: ReportInputs, b: ReportInputs): boolean {
 }
 
 /**
- * The report is hidden on screen (print only), so after an edit it is brought up to date after the
- * next frame is painted (an effect runs then) rather than in the edit's own frame: the numbers and
- * the diagram on screen are painted first. Before printing (beforeprint, or the print media query
- * turning on) it is brought up to date at once.
+ * The report is hidden on screen (print only), so after an edit it is brought up to date when the
+ * page is next idle after the frame is painted (lag.ts), not in the edit's own frame: the numbers
+ * and the diagram on screen are painted first. Before printing (beforeprint, or the print media
+ * query turning on) it is brought up to date at once.
  */
 export default function ClientReport({ result, battery }: { result: SolveResult; battery?: ReportBattery }) {
   const project = draft.value as Project | null;
@@ -106,9 +107,15 @@ export default function ClientReport({ result, battery }: { result: SolveResult;
   const [shown, setShown] = useState(latest);
   const latestRef = useRef(latest);
   latestRef.current = latest;
+  const pending = useRef<(() => void) | null>(null);
   useEffect(() => {
-    if (!sameInputs(shown, latest)) setShown(latest);
+    if (sameInputs(shown, latest) || pending.current) return;
+    pending.current = whenIdle(() => {
+      pending.current = null;
+      setShown(latestRef.current);
+    });
   });
+  useEffect(() => () => pending.current?.(), []);
   useEffect(() => {
     const flush = () => setShown(latestRef.current);
     const print = window.matchMedia('print');

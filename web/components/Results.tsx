@@ -20,6 +20,10 @@ import { formatConductorSize, formatLength, formatShaftPower, formatTemperature,
 import { memo } from 'preact/compat';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { shownProjectInput } from '../state/app.ts';
+import { lagOffscreen } from './lag.ts';
+
+/** Where a lagging part puts its ref (web/components/lag.ts). */
+type Box = { box: (el: Element | null) => void };
 
 /** Tree depth of each element (for indenting names), from the `from` links the result carries. */
 function depths(elements: readonly ElementResult[]): Map<string, number> {
@@ -79,12 +83,12 @@ const ElementRow = memo(function ElementRow({ elementId, name, kind, depth, cell
   );
 }, sameElementRow);
 
-export function EnergyBalance({ result }: { result: SolveResult }) {
+export const EnergyBalance = lagOffscreen(function EnergyBalance({ result, box }: { result: SolveResult } & Box) {
   const t = result.totals;
   const loc = effectiveLocale();
   const formatPower = (w: number) => formatPowerIn(w, loc);
   return (
-    <section class="balance" aria-labelledby="balance-heading" data-testid="energy-balance">
+    <section class="balance" aria-labelledby="balance-heading" data-testid="energy-balance" ref={box}>
       <h3 id="balance-heading" class="visually-hidden">Energy balance</h3>
       <dl class="balance__figures">
         <div>
@@ -110,17 +114,16 @@ export function EnergyBalance({ result }: { result: SolveResult }) {
       </p>
     </section>
   );
-}
+});
 
-export function ElementTable({ result }: { result: SolveResult }) {
+export const ElementTable = lagOffscreen(function ElementTable({ result, box }: { result: SolveResult } & Box) {
   const depth = depths(result.elements);
   const t = result.totals;
   const loc = effectiveLocale();
   const units = unitSystem.value;
   const formatPower = (w: number) => formatPowerIn(w, loc);
   return (
-    <>
-    <section class="skip-offscreen" aria-labelledby="elements-heading">
+    <section class="skip-offscreen" aria-labelledby="elements-heading" ref={box}>
       <h3 id="elements-heading">Power at each element</h3>
       <div class="table-scroll" role="region" aria-labelledby="elements-heading" tabIndex={0}>
         <table class="data data--stack data--fixed data--elements" data-testid="element-table">
@@ -170,10 +173,8 @@ export function ElementTable({ result }: { result: SolveResult }) {
         </table>
       </div>
     </section>
-    <CableTable result={result} units={units} locale={loc} />
-    </>
   );
-}
+});
 
 /** Why the engine chose a size, in words. */
 const GOVERNING_WORDS: Record<GoverningRule, string> = {
@@ -188,15 +189,19 @@ const GOVERNING_WORDS: Record<GoverningRule, string> = {
  * The cables: route length (from the project as entered), conductor size as the engine chose it,
  * estimated conductor temperature, voltage drop and loss. Shown only when the project has cables.
  */
-function CableTable({ result, units, locale }: { result: SolveResult; units: UnitSystem; locale: string | undefined }) {
+export const CableTable = lagOffscreen(function CableTable({ result, box }: { result: SolveResult } & Box) {
+  const units = unitSystem.value;
+  const locale = effectiveLocale();
   const cables = result.elements.filter((e) => e.kind === 'cable');
   if (cables.length === 0) return null;
-  const lengths = cableLengths(shownProjectInput.value);
+  // peek: the lengths are read with the result they belong to (a new result follows every valid
+  // edit), not on each keystroke, so the table lags off screen with its result (lag.ts).
+  const lengths = cableLengths(shownProjectInput.peek());
   const drops = new Map<string, number>();
   for (const path of result.voltageDrop ?? []) for (const link of path.links) drops.set(link.id, link.dropPercent);
   const cautions = [...new Set(cables.flatMap((e) => (e.conductor ? [e.conductor.caution] : [])))];
   return (
-    <section class="skip-offscreen" aria-labelledby="cables-heading" data-testid="cable-panel">
+    <section class="skip-offscreen" aria-labelledby="cables-heading" data-testid="cable-panel" ref={box}>
       <h3 id="cables-heading">Cables</h3>
       <div class="table-scroll" role="region" aria-labelledby="cables-heading" tabIndex={0}>
         <table class="data data--cables data--fixed" data-testid="cable-table">
@@ -249,7 +254,7 @@ function CableTable({ result, units, locale }: { result: SolveResult; units: Uni
       </p>
     </section>
   );
-}
+});
 
 /** One-way route lengths of the cables in a project as entered (m), for display beside the results. */
 export function cableLengths(project: unknown): Map<string, number> {
@@ -365,12 +370,12 @@ const PortRow = memo(function PortRow({ elementId, name, side, port, units, loca
   );
 }, samePortRow);
 
-export function PortTable({ result }: { result: SolveResult }) {
+export const PortTable = lagOffscreen(function PortTable({ result, box }: { result: SolveResult } & Box) {
   const depth = depths(result.elements);
   const loc = effectiveLocale();
   const units = unitSystem.value;
   return (
-    <section class="skip-offscreen" aria-labelledby="ports-heading">
+    <section class="skip-offscreen" aria-labelledby="ports-heading" ref={box}>
       <h3 id="ports-heading">Voltage, current and power at each port</h3>
       <div class="table-scroll" role="region" aria-labelledby="ports-heading" tabIndex={0}>
         <table class="data data--ports data--fixed" data-testid="port-table">
@@ -417,13 +422,13 @@ export function PortTable({ result }: { result: SolveResult }) {
       </p>
     </section>
   );
-}
+});
 
-export function WarningList({ result }: { result: SolveResult }) {
+export const WarningList = lagOffscreen(function WarningList({ result, box }: { result: SolveResult } & Box) {
   if (result.warnings.length === 0) return null;
   const names = new Map(result.elements.map((e) => [e.id, e.name || e.id]));
   return (
-    <section class="notice notice--warn" aria-labelledby="warnings-heading" data-testid="warnings">
+    <section class="notice notice--warn" aria-labelledby="warnings-heading" data-testid="warnings" ref={box}>
       <h3 id="warnings-heading">Check these</h3>
       <ul>
         {result.warnings.map((w, i) => (
@@ -434,14 +439,14 @@ export function WarningList({ result }: { result: SolveResult }) {
       </ul>
     </section>
   );
-}
+});
 
-export function MethodNote({ result }: { result: SolveResult }) {
+export const MethodNote = lagOffscreen(function MethodNote({ result, box }: { result: SolveResult } & Box) {
   const m = result.method;
   return (
-    <p class="note" data-testid="method-note">
+    <p class="note" data-testid="method-note" ref={box}>
       Solved by {m.name}: {m.iterations} {m.iterations === 1 ? 'sweep' : 'sweeps'}, last relative voltage change{' '}
       {m.residual.toExponential(1)} (stops below {m.tolerance.toExponential(0)}).
     </p>
   );
-}
+});
