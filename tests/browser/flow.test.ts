@@ -96,9 +96,10 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
         }
         // No two labels drawn overlap each other (labels that do not fit are left out; their figures stay in the details).
         const overlaps = (await page.evaluate(`(() => {
+          // On the page, not getBBox(): a label is placed by its group's translation.
           const boxes = [...document.querySelectorAll('[data-testid="flow-svg"] text')].map((t) => {
-            const b = t.getBBox();
-            return { t: t.textContent, x0: b.x, y0: b.y, x1: b.x + b.width, y1: b.y + b.height };
+            const b = t.getBoundingClientRect();
+            return { t: t.textContent, x0: b.left, y0: b.top, x1: b.right, y1: b.bottom };
           });
           const out = [];
           for (let i = 0; i < boxes.length; i++)

@@ -25,7 +25,7 @@
  * print rules this component writes.
  */
 import { memo } from 'preact/compat';
-import { useCallback, useEffect, useMemo, useRef, useState } from 'preact/hooks';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { sankey, sankeyLinkHorizontal, type SankeyLink, type SankeyNode } from 'd3-sankey';
 import { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from '../../core/flow.ts';
 import type { ElementResult, SolveResult } from '../../core/result.ts';
@@ -33,6 +33,8 @@ import { formatPercent, formatPower } from '../format/number.ts';
 import { elementKindLabel, fileNameStem } from '../format/labels.ts';
 import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state/prefs.ts';
 import { FLOW_PALETTES, PAPER_THEME, type FlowPalette, type PaintKey } from './flow-palette.ts';
+import { lagOffscreen } from './lag.ts';
+import { blockLayer, branchLayer, figureLayer, writeBlock, writeBranch, writeFigure, type BlockSpec, type BranchSpec, type FigureSpec } from './flow-draw.ts';
 import './EnergyFlow.css';
 
 export { FLOW_PALETTES } from './flow-palette.ts';
@@ -60,6 +62,13 @@ type NodeExtra = FlowNode & { index0: number };
 type LinkExtra = FlowLink & { key: string; value: number };
 type LaidNode = SankeyNode<NodeExtra, LinkExtra>;
 type LaidLink = SankeyLink<NodeExtra, LinkExtra>;
+
+/** The diagram's drawn layers (flow-draw.ts), kept between redraws. */
+interface Drawn {
+  branches: ReturnType<typeof branchLayer>;
+  blocks: ReturnType<typeof blockLayer>;
+  figures: ReturnType<typeof figureLayer>;
+}
 
 /** The file name stem for downloads: the project's name in lower case, words joined by dashes. */
 export function fileStem(projectName: string): string {
@@ -485,139 +494,8 @@ function printRules(): string {
   ].join('\n');
 }
 
-/** The light outline around a label, so it reads over a branch. */
-const haloOf = (background: string) =>
-  ({ stroke: background, 'data-stroke': 'background', 'stroke-width': '3', 'stroke-linejoin': 'round', 'paint-order': 'stroke' }) as const;
-
-/*
- * The drawn parts are memo'd with plain-value props: after an edit only the branches, blocks and
- * labels whose figures or places changed are compared and written again. Hover, tap and focus are
- * handled once on the diagram's box (each part carries its key in data-*).
- */
-
-const FlowPath = memo(function FlowPath(p: {
-  linkKey: string;
-  d: string;
-  paint: PaintKey | 'selected';
-  colour: string;
-  opacityKey: 'loss' | 'feed';
-  opacity: number;
-  width: number;
-  dashed: boolean;
-  label: string;
-  role: FlowLink['role'];
-  part: FlowLink['part'];
-  source: string;
-  target: string;
-  watts: number;
-  selected: boolean;
-}) {
-  return (
-    <path
-      d={p.d}
-      stroke={p.colour}
-      data-stroke={p.paint}
-      stroke-opacity={p.opacity}
-      data-opacity={p.opacityKey}
-      stroke-width={p.width}
-      stroke-dasharray={p.dashed ? IDLE_DASH : undefined}
-      class="flow__link"
-      // Lower case: on an SVG element the attribute name is taken as written, and only "tabindex" counts.
-      tabindex={0}
-      role="img"
-      aria-label={p.label}
-      data-role={p.role}
-      data-part={p.part}
-      data-source={p.source}
-      data-target={p.target}
-      data-watts={String(p.watts)}
-      data-selected={p.selected ? 'true' : undefined}
-      data-link-key={p.linkKey}
-    />
-  );
-});
-
-interface FlowBlockProps {
-  id: string;
-  role: FlowNode['role'];
-  x0: number;
-  x1: number;
-  y0: number;
-  h: number;
-  idleH: number;
-  paint: PaintKey;
-  label: string;
-  text: NodeLabel | undefined;
-  selected: boolean;
-  palette: FlowPalette;
-}
-
-const FlowBlock = memo(function FlowBlock(p: FlowBlockProps) {
-  const c = p.palette.colours;
-  const t = p.text;
-  return (
-    <g class="flow__node" tabindex={0} role="img" aria-label={p.label} data-node={p.id} data-role={p.role} data-selected={p.selected ? 'true' : undefined}>
-      <rect
-        x={p.x0}
-        y={p.y0}
-        width={p.x1 - p.x0}
-        height={p.h}
-        fill={c[p.paint]}
-        data-fill={p.paint}
-        stroke={p.selected ? c.selected : 'none'}
-        data-stroke={p.selected ? 'selected' : undefined}
-        stroke-width={p.selected ? 3 : 0}
-      />
-      {p.idleH > 0 && <rect x={p.x0} y={p.y0} width={p.x1 - p.x0} height={p.idleH} fill={c.idle} data-fill="idle" />}
-      {t && (
-        <text x={t.x} y={t.y} font-size="12" fill={c.ink} data-fill="ink" {...haloOf(c.background)}>
-          <tspan x={t.x} font-weight="600">
-            {t.name}
-          </tspan>
-          {t.lines.map((line, i) => (
-            // Keyed by place, not text: a changed figure rewrites the line instead of replacing it.
-            <tspan key={i} x={t.x} dy="1.25em" fill={c.inkMuted} data-fill="inkMuted">
-              {line}
-            </tspan>
-          ))}
-        </text>
-      )}
-    </g>
-  );
-}, sameBlock);
-
-/** Blocks compare their label by content (placeLabels makes new objects on every layout). */
-function sameBlock(a: FlowBlockProps, b: FlowBlockProps): boolean {
-  for (const k of Object.keys(a) as (keyof typeof a)[]) {
-    if (k === 'text') continue;
-    if (a[k] !== b[k]) return false;
-  }
-  const x = a.text;
-  const y = b.text;
-  if (x === y) return true;
-  if (!x || !y) return false;
-  return x.x === y.x && x.y === y.y && x.name === y.name && x.lines.length === y.lines.length && x.lines.every((l, i) => l === y.lines[i]);
-}
-
-const LinkFigure = memo(function LinkFigure(p: { linkKey: string; x: number; y: number; text: string; ink: string; halo: string }) {
-  return (
-    <text
-      x={p.x}
-      y={p.y}
-      dy="0.35em"
-      text-anchor="middle"
-      font-size="12"
-      font-weight="600"
-      fill={p.ink}
-      data-fill="ink"
-      {...haloOf(p.halo)}
-      pointer-events="none"
-      data-link={p.linkKey}
-    >
-      {p.text}
-    </text>
-  );
-});
+/** Built once: the rules depend only on the paper palette. */
+const PRINT_RULES = printRules();
 
 const Legend = memo(function Legend({ palette }: { palette: FlowPalette }) {
   return (
@@ -642,7 +520,7 @@ export function shownTheme(): 'light' | 'dark' {
   return resolveTheme(themeChoice.value, deviceDark.value);
 }
 
-export default function EnergyFlow({ result }: { result: SolveResult }) {
+function EnergyFlow({ result, box }: { result: SolveResult; box: (el: Element | null) => void }) {
   const graph = useMemo(() => flowGraph(result), [result]);
   const elements = useMemo(() => new Map(result.elements.map((e) => [e.id, e])), [result]);
   const boxRef = useRef<HTMLDivElement>(null);
@@ -700,7 +578,6 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
     }
   }
 
-  const path = sankeyLinkHorizontal<NodeExtra, LinkExtra>();
   /** Hover, tap, click or focus on a branch or a block selects it (its figures go to the details line). */
   const pick = useCallback((ev: Event) => {
     const target = ev.target instanceof Element ? ev.target : null;
@@ -712,9 +589,79 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
   }, []);
   const title = `Energy flow of ${result.projectName || 'the project'}`;
 
+  // The branches, blocks and labels are written into their layers after each render, before the
+  // frame is painted (flow-draw.ts: only what changed is written).
+  const branchesRef = useRef<SVGGElement>(null);
+  const blocksRef = useRef<SVGGElement>(null);
+  const figuresRef = useRef<SVGGElement>(null);
+  const drawn = useRef<Drawn | null>(null);
+  useLayoutEffect(() => {
+    if (!laid || !branchesRef.current || !blocksRef.current || !figuresRef.current) return;
+    const d = (drawn.current ??= { branches: branchLayer(), blocks: blockLayer(), figures: figureLayer() });
+    const path = sankeyLinkHorizontal<NodeExtra, LinkExtra>();
+    d.branches.draw(
+      branchesRef.current,
+      laid.links.map((l): BranchSpec => {
+        const paint = linkPaint(l, nodeOf(l.source).kind);
+        const isSel = selected?.type === 'link' && selected.key === l.key;
+        const isLoss = l.role === 'loss';
+        return {
+          key: l.key,
+          d: path(l) ?? '',
+          paint: isSel ? 'selected' : paint,
+          colour: isSel ? c.selected : c[paint],
+          opacityKey: isLoss ? 'loss' : 'feed',
+          opacity: isLoss ? palette.lossOpacity : palette.feedOpacity,
+          width: Math.max(1, l.width ?? 1),
+          dash: l.part === 'idle' && (l.width ?? 0) >= 2 ? IDLE_DASH : undefined,
+          label: linkText(l, loc),
+          role: l.role,
+          part: l.part,
+          source: nodeOf(l.source).id,
+          target: nodeOf(l.target).id,
+          watts: l.watts,
+          selected: isSel,
+        };
+      }),
+      (s) => s.key,
+      writeBranch,
+    );
+    d.blocks.draw(
+      blocksRef.current,
+      laid.nodes.map((n): BlockSpec => {
+        const y0 = n.y0 ?? 0;
+        const h = Math.max(2, (n.y1 ?? 0) - y0);
+        const paint = nodePaint(n);
+        return {
+          id: n.id,
+          role: n.role,
+          x0: n.x0 ?? 0,
+          y0,
+          width: (n.x1 ?? 0) - (n.x0 ?? 0),
+          h,
+          // A loss block shows its idle part on top, as its branches arrive.
+          idleH: n.role === 'loss' && n.watts > 0 ? (h * (n.idleWatts ?? 0)) / n.watts : 0,
+          paint,
+          colours: { fill: c[paint], idle: c.idle, selected: c.selected, ink: c.ink, inkMuted: c.inkMuted, background: c.background },
+          label: nodeText(n, elements.get(n.elementId), loc),
+          text: nodeLabels.get(n.id),
+          selected: selected?.type === 'node' && selected.id === n.id,
+        };
+      }),
+      (s) => s.id,
+      writeBlock,
+    );
+    d.figures.draw(
+      figuresRef.current,
+      (labels?.links ?? []).map((t): FigureSpec => ({ key: t.key, x: t.x, y: t.y, text: t.text, ink: c.ink, background: c.background })),
+      (s) => s.key,
+      writeFigure,
+    );
+  }, [laid, labels, nodeLabels, selected, palette, loc, elements]);
+
   return (
-    <section class="flow print-keep" aria-labelledby="flow-heading" data-testid="energy-flow">
-      <style>{printRules()}</style>
+    <section class="flow print-keep" aria-labelledby="flow-heading" data-testid="energy-flow" ref={box}>
+      <style>{PRINT_RULES}</style>
       <div class="flow__head">
         <h3 id="flow-heading">Where the energy goes</h3>
         <div class="flow__actions">
@@ -773,63 +720,10 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
                 </text>
               </g>
             )}
-            <g fill="none">
-              {laid.links.map((l) => {
-                const paint = linkPaint(l, nodeOf(l.source).kind);
-                const isSel = selected?.type === 'link' && selected.key === l.key;
-                const isLoss = l.role === 'loss';
-                return (
-                  <FlowPath
-                    key={l.key}
-                    linkKey={l.key}
-                    d={path(l) ?? ''}
-                    paint={isSel ? 'selected' : paint}
-                    colour={isSel ? c.selected : c[paint]}
-                    opacityKey={isLoss ? 'loss' : 'feed'}
-                    opacity={isLoss ? palette.lossOpacity : palette.feedOpacity}
-                    width={Math.max(1, l.width ?? 1)}
-                    dashed={l.part === 'idle' && (l.width ?? 0) >= 2}
-                    label={linkText(l, loc)}
-                    role={l.role}
-                    part={l.part}
-                    source={nodeOf(l.source).id}
-                    target={nodeOf(l.target).id}
-                    watts={l.watts}
-                    selected={isSel}
-                  />
-                );
-              })}
-            </g>
-            <g>
-              {laid.nodes.map((n) => {
-                const y0 = n.y0 ?? 0;
-                const h = Math.max(2, (n.y1 ?? 0) - y0);
-                const label = nodeLabels.get(n.id);
-                return (
-                  <FlowBlock
-                    key={n.id}
-                    id={n.id}
-                    role={n.role}
-                    x0={n.x0 ?? 0}
-                    x1={n.x1 ?? 0}
-                    y0={y0}
-                    h={h}
-                    // A loss block shows its idle part on top, as its branches arrive.
-                    idleH={n.role === 'loss' && n.watts > 0 ? (h * (n.idleWatts ?? 0)) / n.watts : 0}
-                    paint={nodePaint(n)}
-                    label={nodeText(n, elements.get(n.elementId), loc)}
-                    text={label}
-                    selected={selected?.type === 'node' && selected.id === n.id}
-                    palette={palette}
-                  />
-                );
-              })}
-            </g>
-            <g>
-              {labels?.links.map((t) => (
-                <LinkFigure key={`label-${t.key}`} linkKey={t.key} x={t.x} y={t.y} text={t.text} ink={c.ink} halo={c.background} />
-              ))}
-            </g>
+            {/* Branches, blocks and labels: drawn by the layout effect above (flow-draw.ts). */}
+            <g fill="none" ref={branchesRef} />
+            <g ref={blocksRef} />
+            <g ref={figuresRef} />
           </svg>
         )}
       </div>
@@ -864,3 +758,6 @@ export default function EnergyFlow({ result }: { result: SolveResult }) {
     </section>
   );
 }
+
+/** Scrolled out of view, the diagram follows the edits when the page is idle (lag.ts). */
+export default lagOffscreen(EnergyFlow);
