@@ -21,7 +21,7 @@ import type { Chemistry } from '../../core/data/battery-chemistries.ts';
 import { formatDuration, formatPercent, formatPower, formatSmallPercent } from '../format/number.ts';
 import { formatConductorSize } from '../format/units.ts';
 import { elementKindLabel } from '../format/labels.ts';
-import { draft, resultsState } from '../state/editor.ts';
+import { draft, openCount, resultsState } from '../state/editor.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { whenIdle } from './lag.ts';
 
@@ -104,20 +104,32 @@ export default function ClientReport({ result, battery }: { result: SolveResult;
     locale: effectiveLocale(),
     units: unitSystem.value,
   };
-  const [shown, setShown] = useState(latest);
+  // What the report shows: caught up when the page is idle, at once when another project opens.
+  const shown = useRef(latest);
+  const [, setTick] = useState(0);
+  const show = (inputs: ReportInputs) => {
+    shown.current = inputs;
+    setTick((t) => t + 1);
+  };
+  const opened = openCount.value;
+  const openedShown = useRef(opened);
+  if (opened !== openedShown.current) {
+    openedShown.current = opened;
+    shown.current = latest;
+  }
   const latestRef = useRef(latest);
   latestRef.current = latest;
   const pending = useRef<(() => void) | null>(null);
   useEffect(() => {
-    if (sameInputs(shown, latest) || pending.current) return;
+    if (sameInputs(shown.current, latest) || pending.current) return;
     pending.current = whenIdle(() => {
       pending.current = null;
-      setShown(latestRef.current);
+      show(latestRef.current);
     });
   });
   useEffect(() => () => pending.current?.(), []);
   useEffect(() => {
-    const flush = () => setShown(latestRef.current);
+    const flush = () => show(latestRef.current);
     const print = window.matchMedia('print');
     const onChange = () => print.matches && flush();
     window.addEventListener('beforeprint', flush);
@@ -130,12 +142,12 @@ export default function ClientReport({ result, battery }: { result: SolveResult;
   return (
     <>
       <div class="report-bar" data-testid="report-bar">
-        <button type="button" class="report-bar__button" onClick={() => { setShown(latestRef.current); window.print(); }} data-testid="print-report">
+        <button type="button" class="report-bar__button" onClick={() => { show(latestRef.current); window.print(); }} data-testid="print-report">
           Print / save as PDF
         </button>
         <span class="report-bar__hint">A one- or two-page summary for your client: the chain, the energy flow, key figures and cautions.</span>
       </div>
-      <ReportBody {...shown} />
+      <ReportBody {...shown.current} />
     </>
   );
 }

@@ -32,9 +32,10 @@ import type { ElementResult, SolveResult } from '../../core/result.ts';
 import { formatPercent, formatPower } from '../format/number.ts';
 import { elementKindLabel, fileNameStem } from '../format/labels.ts';
 import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state/prefs.ts';
+import { openCount } from '../state/editor.ts';
 import { FLOW_PALETTES, PAPER_THEME, type FlowPalette, type PaintKey } from './flow-palette.ts';
-import { lagOffscreen } from './lag.ts';
-import { blockLayer, branchLayer, figureLayer, writeBlock, writeBranch, writeFigure, type BlockSpec, type BranchSpec, type FigureSpec } from './flow-draw.ts';
+import { lagOffscreen, whenIdle } from './lag.ts';
+import { blockLayer, branchLayer, figureLayer, writeBlock, writeBranch, writeFigure, type BlockSpec, type BranchSpec, type FigureSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
 import './EnergyFlow.css';
 
 export { FLOW_PALETTES } from './flow-palette.ts';
@@ -49,6 +50,8 @@ const RIGHT_LABELS = 150;
 const MARGIN = { top: 30, right: 12, bottom: 16, left: 12 };
 /** Space between the lowest feed and the loss band, px (the band's caption sits in it). */
 const BAND_GAP = 44;
+/** The drawing's height goes up and down in steps of this, px. */
+const HEIGHT_STEP = 40;
 /** Height kept for one loss label (name, figures, idle part), px. */
 const LOSS_LABEL = 46;
 /** A link narrower than this (px) gets no label on it; its figures are on hover, tap and focus. */
@@ -197,7 +200,9 @@ function layout(g: FlowGraph, minWidth: number): Layout | null {
     inUsed.set(to.id, inn + w);
     return { ...l, source: from, target: to, width: w, y0: (from.y0 ?? 0) + out + w / 2, y1: (to.y0 ?? 0) + inn + w / 2 } as LaidLink;
   });
-  const height = Math.max(...[...nextY.values()]) + MARGIN.bottom;
+  // In steps: an edit that changes a tall loss block a little keeps the drawing's height, so the
+  // page below does not move and the drawing is not laid out again as a whole (a new SVG size does).
+  const height = Math.ceil((Math.max(...[...nextY.values()]) + MARGIN.bottom) / HEIGHT_STEP) * HEIGHT_STEP;
   return { width, height, nodes: [...laid.nodes, ...placedLoss], links: [...laid.links, ...laidLoss], columns, bandTop };
 }
 
@@ -595,69 +600,85 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: (el: Element | 
   const blocksRef = useRef<SVGGElement>(null);
   const figuresRef = useRef<SVGGElement>(null);
   const drawn = useRef<Drawn | null>(null);
+  const latestWords = useRef<() => void>(() => {});
+  const pendingWords = useRef<(() => void) | null>(null);
+  const wordsOpened = useRef(-1);
   useLayoutEffect(() => {
     if (!laid || !branchesRef.current || !blocksRef.current || !figuresRef.current) return;
     const d = (drawn.current ??= { branches: branchLayer(), blocks: blockLayer(), figures: figureLayer() });
     const path = sankeyLinkHorizontal<NodeExtra, LinkExtra>();
-    d.branches.draw(
-      branchesRef.current,
-      laid.links.map((l): BranchSpec => {
-        const paint = linkPaint(l, nodeOf(l.source).kind);
-        const isSel = selected?.type === 'link' && selected.key === l.key;
-        const isLoss = l.role === 'loss';
-        return {
-          key: l.key,
-          d: path(l) ?? '',
-          paint: isSel ? 'selected' : paint,
-          colour: isSel ? c.selected : c[paint],
-          opacityKey: isLoss ? 'loss' : 'feed',
-          opacity: isLoss ? palette.lossOpacity : palette.feedOpacity,
-          width: Math.max(1, l.width ?? 1),
-          dash: l.part === 'idle' && (l.width ?? 0) >= 2 ? IDLE_DASH : undefined,
-          label: linkText(l, loc),
-          role: l.role,
-          part: l.part,
-          source: nodeOf(l.source).id,
-          target: nodeOf(l.target).id,
-          watts: l.watts,
-          selected: isSel,
-        };
-      }),
-      (s) => s.key,
-      writeBranch,
-    );
-    d.blocks.draw(
-      blocksRef.current,
-      laid.nodes.map((n): BlockSpec => {
-        const y0 = n.y0 ?? 0;
-        const h = Math.max(2, (n.y1 ?? 0) - y0);
-        const paint = nodePaint(n);
-        return {
-          id: n.id,
-          role: n.role,
-          x0: n.x0 ?? 0,
-          y0,
-          width: (n.x1 ?? 0) - (n.x0 ?? 0),
-          h,
-          // A loss block shows its idle part on top, as its branches arrive.
-          idleH: n.role === 'loss' && n.watts > 0 ? (h * (n.idleWatts ?? 0)) / n.watts : 0,
-          paint,
-          colours: { fill: c[paint], idle: c.idle, selected: c.selected, ink: c.ink, inkMuted: c.inkMuted, background: c.background },
-          label: nodeText(n, elements.get(n.elementId), loc),
-          text: nodeLabels.get(n.id),
-          selected: selected?.type === 'node' && selected.id === n.id,
-        };
-      }),
-      (s) => s.id,
-      writeBlock,
-    );
-    d.figures.draw(
-      figuresRef.current,
-      (labels?.links ?? []).map((t): FigureSpec => ({ key: t.key, x: t.x, y: t.y, text: t.text, ink: c.ink, background: c.background })),
-      (s) => s.key,
-      writeFigure,
-    );
+    const branches = laid.links.map((l): BranchSpec => {
+      const paint = linkPaint(l, nodeOf(l.source).kind);
+      const isSel = selected?.type === 'link' && selected.key === l.key;
+      const isLoss = l.role === 'loss';
+      return {
+        key: l.key,
+        d: path(l) ?? '',
+        paint: isSel ? 'selected' : paint,
+        colour: isSel ? c.selected : c[paint],
+        opacityKey: isLoss ? 'loss' : 'feed',
+        opacity: isLoss ? palette.lossOpacity : palette.feedOpacity,
+        width: Math.max(1, l.width ?? 1),
+        dash: l.part === 'idle' && (l.width ?? 0) >= 2 ? IDLE_DASH : undefined,
+        role: l.role,
+        part: l.part,
+        source: nodeOf(l.source).id,
+        target: nodeOf(l.target).id,
+        selected: isSel,
+      };
+    });
+    const blocks = laid.nodes.map((n): BlockSpec => {
+      const y0 = n.y0 ?? 0;
+      const h = Math.max(2, (n.y1 ?? 0) - y0);
+      const paint = nodePaint(n);
+      return {
+        id: n.id,
+        role: n.role,
+        x0: n.x0 ?? 0,
+        y0,
+        width: (n.x1 ?? 0) - (n.x0 ?? 0),
+        h,
+        // A loss block shows its idle part on top, as its branches arrive.
+        idleH: n.role === 'loss' && n.watts > 0 ? (h * (n.idleWatts ?? 0)) / n.watts : 0,
+        paint,
+        colours: { fill: c[paint], idle: c.idle, selected: c.selected, ink: c.ink, inkMuted: c.inkMuted, background: c.background },
+        text: nodeLabels.get(n.id),
+        selected: selected?.type === 'node' && selected.id === n.id,
+      };
+    });
+    const onLinks = (labels?.links ?? []).map((t): FigureSpec => ({ key: t.key, x: t.x, y: t.y, text: t.text, ink: c.ink, background: c.background }));
+    const created =
+      d.branches.draw(branchesRef.current, branches, (s) => s.key, writeBranch) + d.blocks.draw(blocksRef.current, blocks, (s) => s.id, writeBlock);
+    d.figures.draw(figuresRef.current, onLinks, (s) => s.key, writeFigure);
+
+    // The parts' accessible names (with their figures) and the branches' watts are not drawn: they
+    // are written when the page is next idle after the paint (lag.ts); at once when a part is new or
+    // another project was opened, so no part is ever without its name or with another project's.
+    const words = () => {
+      d.branches.describe(
+        laid.links.map((l): PartWords => ({ key: l.key, label: linkText(l, loc), watts: l.watts })),
+        (w) => w.key,
+        writeBranchWords,
+      );
+      d.blocks.describe(
+        laid.nodes.map((n): PartWords => ({ key: n.id, label: nodeText(n, elements.get(n.elementId), loc) })),
+        (w) => w.key,
+        writeBlockWords,
+      );
+    };
+    latestWords.current = words;
+    const opened = openCount.peek();
+    if (created > 0 || opened !== wordsOpened.current) {
+      wordsOpened.current = opened;
+      words();
+    } else {
+      pendingWords.current ??= whenIdle(() => {
+        pendingWords.current = null;
+        latestWords.current();
+      });
+    }
   }, [laid, labels, nodeLabels, selected, palette, loc, elements]);
+  useEffect(() => () => pendingWords.current?.(), []);
 
   return (
     <section class="flow print-keep" aria-labelledby="flow-heading" data-testid="energy-flow" ref={box}>

@@ -8,6 +8,8 @@
  * written, and parts that come or go are added or removed in place. EnergyFlow.tsx computes what
  * each part shows (plain strings and numbers) and calls these from a layout effect, so the new
  * diagram is in the same frame as the edit. Focus stays on a part across redraws (same element).
+ * What a part says rather than shows (its accessible name, a branch's watts) is written by
+ * `describe`, which EnergyFlow.tsx runs when the page is idle after the paint.
  */
 
 const NS = 'http://www.w3.org/2000/svg';
@@ -75,8 +77,9 @@ export class PartLayer<Part> {
     private readonly root: (part: Part) => Element,
   ) {}
 
-  /** Draws `specs` in order (keyed by `key`), with `update` writing each part. */
-  draw<Spec>(layer: Element, specs: readonly Spec[], key: (s: Spec) => string, update: (part: Part, spec: Spec) => void): void {
+  /** Draws `specs` in order (keyed by `key`), with `update` writing each part. Returns how many parts are new. */
+  draw<Spec>(layer: Element, specs: readonly Spec[], key: (s: Spec) => string, update: (part: Part, spec: Spec) => void): number {
+    let created = 0;
     const seen = new Set<string>();
     const els: Element[] = [];
     for (const spec of specs) {
@@ -86,13 +89,33 @@ export class PartLayer<Part> {
       if (!part) {
         part = this.create();
         this.parts.set(k, part);
+        created++;
       }
       update(part, spec);
       els.push(this.root(part));
     }
     for (const k of [...this.parts.keys()]) if (!seen.has(k)) this.parts.delete(k);
     arrange(layer, els);
+    return created;
   }
+
+  /** Writes to the parts drawn with these keys (parts no longer drawn are skipped). */
+  describe<Words>(words: readonly Words[], key: (w: Words) => string, update: (part: Part, w: Words) => void): void {
+    for (const w of words) {
+      const part = this.parts.get(key(w));
+      if (part) update(part, w);
+    }
+  }
+}
+
+/**
+ * What a part says rather than shows: its accessible name, and (branches) its power for tests and
+ * tools. Written apart from the drawing, so that it can wait until the page is idle after the paint.
+ */
+export interface PartWords {
+  key: string;
+  label: string;
+  watts?: number;
 }
 
 /** The light outline around a label, so it reads over a branch. */
@@ -116,12 +139,10 @@ export interface BranchSpec {
   opacity: number;
   width: number;
   dash: string | undefined;
-  label: string;
   role: string;
   part: string | undefined;
   source: string;
   target: string;
-  watts: number;
   selected: boolean;
 }
 
@@ -140,15 +161,17 @@ export function writeBranch(k: Kept, s: BranchSpec): void {
     // Lower case: on an SVG element the attribute name is taken as written, and only "tabindex" counts.
     tabindex: 0,
     role: 'img',
-    'aria-label': s.label,
     'data-role': s.role,
     'data-part': s.part,
     'data-source': s.source,
     'data-target': s.target,
-    'data-watts': String(s.watts),
     'data-selected': s.selected ? 'true' : undefined,
     'data-link-key': s.key,
   });
+}
+
+export function writeBranchWords(k: Kept, w: PartWords): void {
+  write(k, { 'aria-label': w.label, 'data-watts': w.watts === undefined ? undefined : String(w.watts) });
 }
 
 // ---------- blocks and their labels ----------
@@ -164,7 +187,6 @@ export interface BlockSpec {
   idleH: number;
   paint: string;
   colours: { fill: string; idle: string; selected: string; ink: string; inkMuted: string; background: string };
-  label: string;
   /** Name and figure lines beside the block, when there is room for them. */
   text: { x: number; y: number; name: string; lines: readonly string[] } | undefined;
   selected: boolean;
@@ -176,7 +198,10 @@ interface Block {
   idle: Kept | null;
   /** The label, placed by its group's translation (moving it does not lay its text out again). */
   place: Kept | null;
-  text: Kept | null;
+  /**
+   * The name and each figure line are <text> elements of their own: a changed figure lays out its
+   * own line only (one <text> with a <tspan> per line lays out all its lines again).
+   */
   name: Kept | null;
   lines: Kept[];
 }
@@ -184,12 +209,15 @@ interface Block {
 export const blockLayer = () =>
   new PartLayer<Block>(
     () => {
-      const b: Block = { g: make('g'), rect: make('rect'), idle: null, place: null, text: null, name: null, lines: [] };
+      const b: Block = { g: make('g'), rect: make('rect'), idle: null, place: null, name: null, lines: [] };
       b.g.el.append(b.rect.el);
       return b;
     },
     (b) => b.g.el,
   );
+
+/** Line pitch of a label, px (1.25 em of its 12 px type). */
+const LINE = 15;
 
 export function writeBlock(b: Block, s: BlockSpec): void {
   const c = s.colours;
@@ -197,7 +225,6 @@ export function writeBlock(b: Block, s: BlockSpec): void {
     class: 'flow__node',
     tabindex: 0,
     role: 'img',
-    'aria-label': s.label,
     'data-node': s.id,
     'data-role': s.role,
     'data-selected': s.selected ? 'true' : undefined,
@@ -226,35 +253,36 @@ export function writeBlock(b: Block, s: BlockSpec): void {
   const t = s.text;
   if (!t) {
     if (b.place) b.place.el.remove();
-    b.place = b.text = b.name = null;
+    b.place = b.name = null;
     b.lines = [];
     return;
   }
-  if (!b.place || !b.text || !b.name) {
+  if (!b.place || !b.name) {
     b.place = make('g');
-    b.text = make('text');
-    b.name = make('tspan');
-    b.text.el.append(b.name.el);
-    b.place.el.append(b.text.el);
+    b.name = make('text');
+    b.place.el.append(b.name.el);
     b.g.el.append(b.place.el);
     b.lines = [];
   }
-  write(b.place, { transform: `translate(${t.x} ${t.y})` });
-  write(b.text, { x: 0, y: 0, 'font-size': 12, fill: c.ink, 'data-fill': 'ink', ...halo(c.background) });
-  write(b.name, { x: 0, 'font-weight': 600 });
+  write(b.place, { transform: `translate(${t.x} ${t.y})`, 'font-size': 12, ...halo(c.background) });
+  write(b.name, { 'font-weight': 600, fill: c.ink, 'data-fill': 'ink' });
   writeText(b.name, t.name);
   // Lines are kept by place: a changed figure rewrites its line instead of replacing it.
   while (b.lines.length > t.lines.length) b.lines.pop()!.el.remove();
   while (b.lines.length < t.lines.length) {
-    const line = make('tspan');
-    b.text.el.append(line.el);
+    const line = make('text');
+    b.place.el.append(line.el);
     b.lines.push(line);
   }
   t.lines.forEach((text, i) => {
     const line = b.lines[i]!;
-    write(line, { x: 0, dy: '1.25em', fill: c.inkMuted, 'data-fill': 'inkMuted' });
+    write(line, { y: LINE * (i + 1), fill: c.inkMuted, 'data-fill': 'inkMuted' });
     writeText(line, text);
   });
+}
+
+export function writeBlockWords(b: Block, w: PartWords): void {
+  write(b.g, { 'aria-label': w.label });
 }
 
 // ---------- figures on the branches ----------
