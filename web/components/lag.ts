@@ -3,11 +3,11 @@
  *
  * After an edit, the parts of the page that show results re-render in the edit's own frame only
  * when they are on screen. A part that is off screen keeps what it showed until the frame with the
- * new figures has been painted, then catches up when the page is next idle: one frame later at the
- * most while someone types (the idle-callback timeout bounds it at 100 ms on a busy page). So the
- * figures and the diagram a person is looking at are painted first, and the tables, cards and
- * panels scrolled away from do not add their rendering to that frame. Their text, in the DOM and the
- * accessibility tree, is never more than that behind.
+ * new figures has been painted, then catches up when the page is next idle: a frame or two later
+ * (about 50 ms after the edit on the test machine; the idle-callback timeout bounds the wait at
+ * 100 ms on a busy page). So the figures and the diagram a person is looking at are painted first,
+ * and the tables, cards and panels scrolled away from do not add their rendering to that frame.
+ * Their text, in the DOM and the accessibility tree, is never more than that behind.
  *
  * Whether a part is on screen comes from one IntersectionObserver (no margin). Until the observer
  * has reported on a part it counts as on screen, so a part shows the latest value when it first
