@@ -11,7 +11,7 @@
  * the page only formats. The date is the page's (core has no clock).
  */
 import { memo } from 'preact/compat';
-import { useEffect, useMemo, useRef, useState } from 'preact/hooks';
+import { useEffect, useMemo, useState } from 'preact/hooks';
 import { flowGraph } from '../../core/flow.ts';
 import type { BatterySource, Project } from '../../core/model.ts';
 import type { ElementResult, SolveResult } from '../../core/result.ts';
@@ -21,9 +21,9 @@ import type { Chemistry } from '../../core/data/battery-chemistries.ts';
 import { formatDuration, formatPercent, formatPower, formatSmallPercent } from '../format/number.ts';
 import { formatConductorSize } from '../format/units.ts';
 import { elementKindLabel } from '../format/labels.ts';
-import { draft, openCount, resultsState } from '../state/editor.ts';
+import { draft, resultsState } from '../state/editor.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
-import { whenIdle } from './lag.ts';
+import { catchUpNow, useOffscreenLag } from './lag.ts';
 
 /**
  * Battery runtime for the report. The hook for the battery panel: pass the runtime study's
@@ -75,18 +75,6 @@ interface ReportInputs {
   units: 'si' | 'us';
 }
 
-function sameInputs(a: ReportInputs, b: ReportInputs): boolean {
-  return (
-    a.result === b.result &&
-    a.battery === b.battery &&
-    a.stale === b.stale &&
-    a.backup === b.backup &&
-    a.chemistry === b.chemistry &&
-    a.locale === b.locale &&
-    a.units === b.units
-  );
-}
-
 /**
  * The report is hidden on screen (print only), so after an edit it is brought up to date when the
  * page is next idle after the frame is painted (lag.ts), not in the edit's own frame: the numbers
@@ -95,65 +83,41 @@ function sameInputs(a: ReportInputs, b: ReportInputs): boolean {
  */
 export default function ClientReport({ result, battery }: { result: SolveResult; battery?: ReportBattery }) {
   const project = draft.value as Project | null;
-  const latest: ReportInputs = {
-    result,
-    battery,
-    stale: resultsState.value === 'stale',
-    backup: Boolean(project?.backup),
-    chemistry: batterySource(project)?.bank?.chemistry,
-    locale: effectiveLocale(),
-    units: unitSystem.value,
-  };
-  // What the report shows: caught up when the page is idle, at once when another project opens.
-  const shown = useRef(latest);
-  const [, setTick] = useState(0);
-  const show = (inputs: ReportInputs) => {
-    shown.current = inputs;
-    setTick((t) => t + 1);
-  };
-  const opened = openCount.value;
-  const openedShown = useRef(opened);
-  if (opened !== openedShown.current) {
-    openedShown.current = opened;
-    shown.current = latest;
-  }
-  const latestRef = useRef(latest);
-  latestRef.current = latest;
-  const pending = useRef<(() => void) | null>(null);
-  useEffect(() => {
-    if (sameInputs(shown.current, latest) || pending.current) return;
-    pending.current = whenIdle(() => {
-      pending.current = null;
-      show(latestRef.current);
-    });
-  });
-  useEffect(() => () => pending.current?.(), []);
-  useEffect(() => {
-    const flush = () => show(latestRef.current);
-    const print = window.matchMedia('print');
-    const onChange = () => print.matches && flush();
-    window.addEventListener('beforeprint', flush);
-    print.addEventListener('change', onChange);
-    return () => {
-      window.removeEventListener('beforeprint', flush);
-      print.removeEventListener('change', onChange);
-    };
-  }, []);
+  const stale = resultsState.value === 'stale';
+  const backup = Boolean(project?.backup);
+  const chemistry = batterySource(project)?.bank?.chemistry;
+  const locale = effectiveLocale();
+  const units = unitSystem.value;
+  const latest = useMemo<ReportInputs>(
+    () => ({ result, battery, stale, backup, chemistry, locale, units }),
+    [result, battery, stale, backup, chemistry, locale, units],
+  );
+  // Hidden on screen, so it always lags (and shows another project at once).
+  const { box, shown } = useOffscreenLag(latest);
   return (
     <>
       <div class="report-bar" data-testid="report-bar">
-        <button type="button" class="report-bar__button" onClick={() => { show(latestRef.current); window.print(); }} data-testid="print-report">
+        <button type="button" class="report-bar__button" onClick={() => { catchUpNow(); window.print(); }} data-testid="print-report">
           Print / save as PDF
         </button>
         <span class="report-bar__hint">A one- or two-page summary for your client: the chain, the energy flow, key figures and cautions.</span>
       </div>
-      <ReportBody {...shown.current} />
+      <ReportBody {...shown} box={box} />
     </>
   );
 }
 
 /** The report itself; re-rendered only when what it shows has changed. */
-const ReportBody = memo(function ReportBody({ result, battery, stale, backup, chemistry, locale: loc, units }: ReportInputs) {
+const ReportBody = memo(function ReportBody({
+  result,
+  battery,
+  stale,
+  backup,
+  chemistry,
+  locale: loc,
+  units,
+  box,
+}: ReportInputs & { box: (el: Element | null) => void }) {
   const graph = useMemo(() => flowGraph(result), [result]);
   const now = useDate();
   const t = result.totals;
@@ -170,7 +134,7 @@ const ReportBody = memo(function ReportBody({ result, battery, stale, backup, ch
 
   return (
     <>
-      <section class="report report--head print-keep" aria-label="Client report" data-testid="report-head">
+      <section class="report report--head print-keep" aria-label="Client report" data-testid="report-head" ref={box}>
         <header class="report__title">
           <p class="report__brand">Joulepath · energy report</p>
           <h1>{result.projectName || 'Untitled project'}</h1>
@@ -298,4 +262,4 @@ const ReportBody = memo(function ReportBody({ result, battery, stale, backup, ch
       </section>
     </>
   );
-}, sameInputs);
+});

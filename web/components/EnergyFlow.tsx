@@ -34,7 +34,7 @@ import { elementKindLabel, fileNameStem } from '../format/labels.ts';
 import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state/prefs.ts';
 import { openCount } from '../state/editor.ts';
 import { FLOW_PALETTES, PAPER_THEME, type FlowPalette, type PaintKey } from './flow-palette.ts';
-import { lagOffscreen, whenIdle } from './lag.ts';
+import { lagOffscreen, useIdleTask } from './lag.ts';
 import { blockLayer, branchLayer, figureLayer, writeBlock, writeBranch, writeFigure, type BlockSpec, type BranchSpec, type FigureSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
 import './EnergyFlow.css';
 
@@ -600,8 +600,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: (el: Element | 
   const blocksRef = useRef<SVGGElement>(null);
   const figuresRef = useRef<SVGGElement>(null);
   const drawn = useRef<Drawn | null>(null);
-  const latestWords = useRef<() => void>(() => {});
-  const pendingWords = useRef<(() => void) | null>(null);
+  const scheduleWords = useIdleTask();
   const wordsOpened = useRef(-1);
   useLayoutEffect(() => {
     if (!laid || !branchesRef.current || !blocksRef.current || !figuresRef.current) return;
@@ -666,19 +665,14 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: (el: Element | 
         writeBlockWords,
       );
     };
-    latestWords.current = words;
     const opened = openCount.peek();
     if (created > 0 || opened !== wordsOpened.current) {
       wordsOpened.current = opened;
       words();
     } else {
-      pendingWords.current ??= whenIdle(() => {
-        pendingWords.current = null;
-        latestWords.current();
-      });
+      scheduleWords(words);
     }
   }, [laid, labels, nodeLabels, selected, palette, loc, elements]);
-  useEffect(() => () => pendingWords.current?.(), []);
 
   return (
     <section class="flow print-keep" aria-labelledby="flow-heading" data-testid="energy-flow" ref={box}>

@@ -47,15 +47,16 @@ function unobserve(el: Element): void {
 const waiting = new Set<() => void>();
 let printHooked = false;
 
-function flushAll(): void {
+/** Runs every catch-up now (before printing; the print button). */
+export function catchUpNow(): void {
   for (const run of [...waiting]) run();
 }
 
 function hookPrint(): void {
   if (printHooked || typeof window === 'undefined') return;
   printHooked = true;
-  window.addEventListener('beforeprint', flushAll);
-  window.matchMedia?.('print').addEventListener?.('change', (e) => e.matches && flushAll());
+  window.addEventListener('beforeprint', catchUpNow);
+  window.matchMedia?.('print').addEventListener?.('change', (e) => e.matches && catchUpNow());
 }
 
 /**
@@ -79,6 +80,23 @@ export function whenIdle(run: () => void): () => void {
     if (!waiting.delete(once)) return;
     if (handle !== undefined) (typeof cancelIdleCallback === 'function' ? cancelIdleCallback : clearTimeout)(handle);
   };
+}
+
+/**
+ * One idle task per component: `schedule(run)` queues it unless one is already waiting, which then
+ * runs the `run` given last. Cancelled when the component goes.
+ */
+export function useIdleTask(): (run: () => void) => void {
+  const pending = useRef<(() => void) | null>(null);
+  const latest = useRef<() => void>(() => {});
+  useEffect(() => () => pending.current?.(), []);
+  return useCallback((run: () => void) => {
+    latest.current = run;
+    pending.current ??= whenIdle(() => {
+      pending.current = null;
+      latest.current();
+    });
+  }, []);
 }
 
 /**
@@ -111,11 +129,10 @@ export function useOffscreenLag<T>(value: T): { box: (el: Element | null) => voi
 
   // One catch-up at a time: it takes the latest value when it runs, so quick edits in a row do not
   // push it back.
-  const pending = useRef<(() => void) | null>(null);
+  const schedule = useIdleTask();
   useEffect(() => {
-    if (shown.current === latest.current || pending.current) return;
-    pending.current = whenIdle(() => {
-      pending.current = null;
+    if (shown.current === latest.current) return;
+    schedule(() => {
       if (shown.current === latest.current) return;
       shown.current = latest.current;
       setTick((t) => t + 1);
@@ -123,7 +140,6 @@ export function useOffscreenLag<T>(value: T): { box: (el: Element | null) => voi
   });
   useEffect(
     () => () => {
-      pending.current?.();
       if (element.current) unobserve(element.current);
     },
     [],
