@@ -2,9 +2,10 @@
  * One config for the app (Vite) and the tests (Vitest).
  *
  * The app lives in web/ and builds to dist/. The tests run in Node from the repository root as
- * projects of one `vitest run`: `unit` (engine, page formatting, tools), `reference` (cases from
- * outside sources), `properties` (fast-check invariants) and `browser` (real Chromium against a
- * production build), which gets long timeouts because it builds the app and starts a browser.
+ * projects: `unit` (engine, page formatting, tools), `reference` (cases from outside sources),
+ * `properties` (fast-check invariants) and `browser` (real Chromium against a production build),
+ * which gets long timeouts because it builds the app and starts a browser; `npm test` runs these in
+ * one `vitest run`, then `timing` (edit-to-paint in Chromium) alone.
  */
 import { fileURLToPath } from 'node:url';
 import { defineConfig } from 'vitest/config';
@@ -84,12 +85,26 @@ export default defineConfig({
         test: {
           name: 'browser',
           include: ['tests/browser/**/*.test.ts'],
+          // The edit-to-paint timings run alone, after everything else (the `timing` project).
+          exclude: ['tests/browser/timing.test.ts', '**/node_modules/**'],
           benchmark: { include: [] },
           // Builds the app and drives a real browser: minutes, not seconds, on a slow machine.
           testTimeout: 180_000,
           hookTimeout: 240_000,
           // A shared 2-core machine under load: give expect.poll more than its 1 s default.
           expect: { poll: { timeout: 10_000 } },
+        },
+      },
+      {
+        // Edit-to-paint timings in Chromium: `npm test` runs this project on its own after the others,
+        // so the figures are not taken while other test files load the machine's two cores.
+        extends: true,
+        test: {
+          name: 'timing',
+          include: ['tests/browser/timing.test.ts'],
+          benchmark: { include: [] },
+          testTimeout: 180_000,
+          hookTimeout: 240_000,
         },
       },
     ],
