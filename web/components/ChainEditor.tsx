@@ -50,7 +50,7 @@ import {
 } from '../state/editor.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { keyInputs, StageCard } from './StageCard.tsx';
-import { useOffscreenLag } from './lag.ts';
+import { useOffscreenLag, type BoxRef } from './lag.ts';
 import { StageForm } from './StageForm.tsx';
 import './ChainEditor.css';
 
@@ -217,7 +217,7 @@ const ChainEditorView = memo(function ChainEditorView({
 }: {
   p: DraftProject | null;
   result: SolveResult | null;
-  box: (el: Element | null) => void;
+  box: BoxRef;
 }) {
   const focusId = useSignal<string | null>(null);
   const chooser = useSignal<{ op: AddOperation; target: string } | null>(null);

@@ -23,7 +23,7 @@ import { formatConductorSize } from '../format/units.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import { draft, resultsState } from '../state/editor.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
-import { catchUpNow, useOffscreenLag } from './lag.ts';
+import { catchUpNow, useOffscreenLag, type BoxRef } from './lag.ts';
 
 /**
  * Battery runtime for the report. The hook for the battery panel: pass the runtime study's
@@ -117,7 +117,7 @@ const ReportBody = memo(function ReportBody({
   locale: loc,
   units,
   box,
-}: ReportInputs & { box: (el: Element | null) => void }) {
+}: ReportInputs & { box: BoxRef }) {
   const graph = useMemo(() => flowGraph(result), [result]);
   const now = useDate();
   const t = result.totals;

@@ -34,7 +34,7 @@ import { elementKindLabel, fileNameStem } from '../format/labels.ts';
 import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state/prefs.ts';
 import { openCount } from '../state/editor.ts';
 import { FLOW_PALETTES, PAPER_THEME, type FlowPalette, type PaintKey } from './flow-palette.ts';
-import { lagOffscreen, useIdleTask } from './lag.ts';
+import { lagOffscreen, useIdleTask, type BoxRef } from './lag.ts';
 import { blockLayer, branchLayer, figureLayer, writeBlock, writeBranch, writeFigure, type BlockSpec, type BranchSpec, type FigureSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
 import './EnergyFlow.css';
 
@@ -525,7 +525,7 @@ export function shownTheme(): 'light' | 'dark' {
   return resolveTheme(themeChoice.value, deviceDark.value);
 }
 
-function EnergyFlow({ result, box }: { result: SolveResult; box: (el: Element | null) => void }) {
+function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   const graph = useMemo(() => flowGraph(result), [result]);
   const elements = useMemo(() => new Map(result.elements.map((e) => [e.id, e])), [result]);
   const boxRef = useRef<HTMLDivElement>(null);

@@ -20,10 +20,10 @@ import { formatConductorSize, formatLength, formatShaftPower, formatTemperature,
 import { memo } from 'preact/compat';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { shownProjectInput } from '../state/app.ts';
-import { lagOffscreen } from './lag.ts';
+import { lagOffscreen, type BoxRef } from './lag.ts';
 
 /** Where a lagging part puts its ref (web/components/lag.ts). */
-type Box = { box: (el: Element | null) => void };
+type Box = { box: BoxRef };
 
 /** Tree depth of each element (for indenting names), from the `from` links the result carries. */
 function depths(elements: readonly ElementResult[]): Map<string, number> {

@@ -99,12 +99,15 @@ export function useIdleTask(): (run: () => void) => void {
   }, []);
 }
 
+/** The ref a lagging part puts on its outermost element. */
+export type BoxRef = (el: Element | null) => void;
+
 /**
  * `value` as this part should show it now: the latest while the part is on screen, the one shown
  * before while it is off screen (the latest follows when the page is idle). `box` is a ref for the
  * part's outermost element (stable between renders).
  */
-export function useOffscreenLag<T>(value: T): { box: (el: Element | null) => void; shown: T } {
+export function useOffscreenLag<T>(value: T): { box: BoxRef; shown: T } {
   const state = useRef<Watched>({ onScreen: true });
   const element = useRef<Element | null>(null);
   const shown = useRef(value);
@@ -152,7 +155,7 @@ export function useOffscreenLag<T>(value: T): { box: (el: Element | null) => voi
  * A results part that lags while off screen: `Part` renders from the value it is given (memo'd, so
  * a lagging part is not even compared again) and puts `box` on its outermost element.
  */
-export function lagOffscreen<P extends { result: unknown; box: (el: Element | null) => void }>(Part: FunctionComponent<P>): FunctionComponent<Omit<P, 'box'>> {
+export function lagOffscreen<P extends { result: unknown; box: BoxRef }>(Part: FunctionComponent<P>): FunctionComponent<Omit<P, 'box'>> {
   const Inner = memo(Part);
   function Lagging(props: Omit<P, 'box'>) {
     const { box, shown } = useOffscreenLag(props.result);
