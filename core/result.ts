@@ -132,6 +132,9 @@ export interface ConductorStep {
 /** Which requirement fixed the size. */
 export type GoverningRule = 'ampacity' | 'voltage-drop' | 'protection' | 'smallest-size' | 'fixed';
 
+/** What a link's design current was taken from (core/conductors/design-current.ts). */
+export type DesignBasisKind = 'load-nominal' | 'motor-branch' | 'motor-feeder' | 'drive-input' | 'inverter-input' | 'charger-output' | 'dcdc-input' | 'given';
+
 /** Conductor sizing result of one cable link (SI units; percentages as % numbers). */
 export interface ConductorResult {
   system: 'nec' | 'iec';
@@ -144,10 +147,26 @@ export interface ConductorResult {
   auto: boolean;
   governing: GoverningRule;
   parallelSets: number;
-  /** Line (or DC) current of the whole link, A. */
+  /** Line (or DC) current of the whole link at the solved operating point, A (same as operatingCurrent). */
   current: number;
-  /** Current the conductor must carry: × 1.25 when continuous, A (whole link). */
+  /** Line (or DC) current of the whole link at the solved operating point, A: shown beside the design current. */
+  operatingCurrent: number;
+  /** The current the code sizes the conductor and device for, A (whole link, 125 % included where the rule says). */
   designCurrent: number;
+  designBasis: {
+    basis: DesignBasisKind;
+    /** Current before any 125 % factor, A: the drop check uses it. */
+    baseCurrent: number;
+    factor: number;
+    /** True when the factor applies to the ampacity after corrections (NEC 430.22, 430.24, 430.122). */
+    stacked: boolean;
+    /** The rule in words, with its clause. */
+    rule: string;
+    /** Why the automatic basis fell back to the load at nominal voltage (the rating to enter). */
+    fallback?: string;
+  };
+  /** Nominal voltage of the link's system, V (line-to-line on three-phase). */
+  nominalVoltage: number;
   ampacity: {
     /** Table value per conductor at the rating column used for corrections, A. */
     table: number;
@@ -159,6 +178,8 @@ export interface ConductorResult {
     corrected: number;
     /** Termination limit per conductor (NEC 110.14(C)), A, when it applies. */
     terminationLimit?: number;
+    /** NEC: the Table 310.16 column the terminations limit to, °C, and the rule that set it. */
+    terminationColumn?: { rating: 60 | 75 | 90; rule: string };
     /** Ampacity of one conductor after every limit, A. */
     perSet: number;
     /** perSet × parallel sets, A. */
@@ -176,6 +197,15 @@ export interface ConductorResult {
     differencePercent: number;
     /** The allowed drop on this link, %. */
     limitPercent: number;
+    /**
+     * The drop the limit is checked on, by the method: NEC Chapter 9 Table 9 (75 °C) effective Z =
+     * R·cosθ + X·sinθ (Table 8 on DC), or IEC 60364-5-52 Annex G (ρ₁ = 1.25·ρ₂₀, λ), at the design
+     * basis current before any 125 % factor, V and % of the nominal voltage.
+     */
+    checkVolts: number;
+    checkPercent: number;
+    /** The method and current of the check, in words. */
+    checkMethod: string;
   };
   resistance: {
     /** Table resistance of one conductor at the table's reference temperature, Ω/km. */
@@ -196,6 +226,10 @@ export interface ConductorResult {
     rating?: number;
     list: string;
     note: string;
+    /** The rule that set the rating (e.g. "NEC 240.4(B)", "NEC Table 430.52(C)(1)", "IEC 60364-4-43 433.1"). */
+    rule?: string;
+    /** IEC: the coordination I_B ≤ I_n ≤ I_z and I₂ ≤ 1.45·I_z, A. */
+    coordination?: { ib: number; in: number; iz: number; i2: number; ok: boolean };
   };
   steps: ConductorStep[];
   caution: string;

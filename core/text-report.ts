@@ -64,10 +64,10 @@ export function formatResult(result: SolveResult): string {
   }
   const sized = result.elements.filter((e) => e.conductor);
   if (sized.length) {
-    out.push('', 'Conductors (drop in V and % of the sending voltage; exact = phasor solve, approx = I·(R·cosθ + X·sinθ) method)');
+    out.push('', 'Conductors (design I = the current the code sizes for; drop check = the method at the design current, % of nominal; solved = phasor solve at the estimated temperature)');
     out.push(
       table(
-        ['cable', 'size', 'governs', 'I', 'ampacity', 'device', 'drop exact', 'drop approx', 'R at T', 'loss'],
+        ['cable', 'size', 'governs', 'design I', 'operating I', 'ampacity', 'device', 'drop check', 'drop solved', 'R at T', 'loss'],
         sized.map((e) => {
           const c = e.conductor!;
           const sets = c.parallelSets > 1 ? `${c.parallelSets} × ` : '';
@@ -75,11 +75,12 @@ export function formatResult(result: SolveResult): string {
             e.name,
             `${sets}${c.size} ${c.material === 'copper' ? 'Cu' : 'Al'}${c.auto ? '' : ' (fixed)'}`,
             c.governing,
-            `${f(c.current, 1)} A`,
+            `${f(c.designCurrent, 1)} A`,
+            `${f(c.operatingCurrent, 1)} A`,
             `${f(c.ampacity.total, 1)} A`,
-            c.device.rating === undefined ? '—' : `${c.device.rating} A`,
+            c.device.rating === undefined ? '—' : `${c.device.rating} A (${c.device.rule ?? c.device.list})`,
+            `${f(c.drop.checkVolts, 2)} V ${f(c.drop.checkPercent, 2)} %`,
             `${f(c.drop.exactVolts, 2)} V ${f(c.drop.exactPercent, 2)} %`,
-            `${f(c.drop.approxVolts, 2)} V ${f(c.drop.approxPercent, 2)} %`,
             `${(c.resistance.perKm).toPrecision(4)} Ω/km @ ${f(c.resistance.operatingTemperature, 0)} °C`,
             `${f(c.loss, 1)} W`,
           ];

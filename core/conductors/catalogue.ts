@@ -73,7 +73,15 @@ export interface IecTables {
   maxTemperature(insulation: 'pvc' | 'xlpe'): number;
   /** IEC 60898-1 preferred rated currents, A, ascending. */
   deviceRatings: readonly number[];
-  cite: { capacity: string; ambient: string; grouping: string; resistance: string; devices: string; reactance: string };
+  /** IEC 60898-1 conventional tripping current I₂ as a multiple of I_n. */
+  breakerI2Multiple: number;
+  /** IEC 60269 gG fuse-link rated currents, A, ascending. */
+  fuseRatings: readonly number[];
+  /** IEC 60269-1 gG conventional fusing current as a multiple of I_n, by rating. */
+  fuseI2Multiple(rating: number): number;
+  /** IEC 60364-5-52 Annex G service resistivity ρ₁ = 1.25·ρ₂₀, Ω·m. */
+  rho1(material: Material): number;
+  cite: { capacity: string; ambient: string; grouping: string; resistance: string; devices: string; reactance: string; fuses: string; fuseI2: string; breakerI2: string };
 }
 
 export interface ConductorCatalogue {

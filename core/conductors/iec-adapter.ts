@@ -6,7 +6,8 @@ import type { IecInstallationMethod } from '../model.ts';
 import type { IecTables, Material, SizeEntry } from './catalogue.ts';
 import { IEC_60228_ALPHA20_PER_K, IEC_60228_CLASS2 } from '../data/iec-60228.ts';
 import { IEC_60364_5_52_CAPACITIES, IEC_ANNEX_G, IEC_B52_14_AMBIENT, IEC_B52_17_GROUPING, IEC_INSULATION_MAX_C } from '../data/iec-60364-5-52.ts';
-import { IEC_60898_1_RATED_CURRENTS } from '../data/iec-60898-1.ts';
+import { IEC_60898_1_CONVENTIONAL_TRIPPING, IEC_60898_1_RATED_CURRENTS } from '../data/iec-60898-1.ts';
+import { IEC_60269_GG_CONVENTIONAL, IEC_60269_GG_RATED_CURRENTS } from '../data/iec-60269.ts';
 
 const label = (mm2: number) => `${mm2} mm²`;
 const rOf = (m: Material, row: (typeof IEC_60228_CLASS2)[number]) => (m === 'copper' ? row.cuPlain : row.al);
@@ -44,7 +45,14 @@ export const IEC_TABLES: IecTables = {
   defaultReactance: IEC_ANNEX_G.lambdaOhmPerM,
   maxTemperature: (insulation) => IEC_INSULATION_MAX_C[ins(insulation)],
   deviceRatings: IEC_60898_1_RATED_CURRENTS.map((r) => r.ratedCurrentA),
+  breakerI2Multiple: IEC_60898_1_CONVENTIONAL_TRIPPING.multiple,
+  fuseRatings: IEC_60269_GG_RATED_CURRENTS,
+  fuseI2Multiple: (rating) => IEC_60269_GG_CONVENTIONAL.find((r) => rating > r.fromA && rating <= r.toA)!.fusingMultiple,
+  rho1: (m) => IEC_ANNEX_G.rho1OhmM[mat(m)],
   cite: {
+    fuses: 'IEC 60269-1 gG fuse-link rated currents',
+    fuseI2: 'IEC 60269-1 Table 2, gG conventional fusing current',
+    breakerI2: 'IEC 60898-1 conventional tripping current 1.45·I_n',
     capacity: 'IEC 60364-5-52:2009 Annex B',
     ambient: 'IEC 60364-5-52:2009 Table B.52.14',
     grouping: 'IEC 60364-5-52:2009 Table B.52.17 item 1',

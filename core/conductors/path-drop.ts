@@ -3,7 +3,9 @@
  * supply voltage matters as much — the cable links between it and the nearest upstream
  * point that sets the voltage afresh — the source's terminals or the output of a regulating
  * converter (rectifier, DC-DC, inverter, drive, generic stage), which holds its set point whatever
- * the drop upstream — with each link's drop as a percentage of its own sending voltage, summed.
+ * the drop upstream — with each link's drop as a percentage, summed: a sized conductor's drop check
+ * by its method (% of the nominal voltage, core/conductors/size.ts), a link given by its impedance
+ * with its solved drop (% of its own sending voltage).
  *
  * Counted: cable links (the conductors: NEC's "feeders and branch circuits", IEC 60364-5-52
  * Annex G's "from the origin of the installation"). Not counted: a transformer's own regulation
@@ -60,7 +62,12 @@ export function resolveLimits(limits: DropLimits | undefined): ResolvedLimits {
 export const linkLimit = (own: number | undefined, limits: ResolvedLimits): number => own ?? limits.perLinkPercent ?? limits.totalPercent;
 
 /** Cumulative drop from the path's start to every load and converter input, flagged against the limits. */
-export function pathDrops(elements: readonly ElementResult[], limits: ResolvedLimits, perLinkOwn: ReadonlyMap<string, number> = new Map()): PathDrop[] {
+export function pathDrops(
+  elements: readonly ElementResult[],
+  limits: ResolvedLimits,
+  perLinkOwn: ReadonlyMap<string, number> = new Map(),
+  checked: ReadonlyMap<string, number> = new Map(),
+): PathDrop[] {
   const byId = new Map(elements.map((e) => [e.id, e]));
   const out: PathDrop[] = [];
   for (const load of elements) {
@@ -79,7 +86,9 @@ export function pathDrops(elements: readonly ElementResult[], limits: ResolvedLi
         break;
       }
       if (parent.kind === 'cable' && parent.input && parent.output && parent.input.voltage > 0) {
-        const pct = (100 * (parent.input.voltage - parent.output.voltage)) / parent.input.voltage;
+        // A sized conductor counts with its drop check by the method (% of nominal); a link given by
+        // its impedance with the solved drop (% of its sending voltage).
+        const pct = checked.get(parent.id) ?? (100 * (parent.input.voltage - parent.output.voltage)) / parent.input.voltage;
         const limit = linkLimit(perLinkOwn.get(parent.id), limits);
         links.unshift({ id: parent.id, dropPercent: pct, exceedsLimit: pct > limit * (1 + 1e-12) });
       }

@@ -20,19 +20,21 @@ import { type ConductorCatalogue, type SizeEntry, findSize } from './catalogue.t
 export interface Candidate {
   readonly index: number;
   readonly size: SizeEntry;
-  /** Table value in the column the corrections apply to, A. */
+  /** Table value in the column the corrections apply to (the insulation rating), A. */
   readonly table: number;
-  /** table × ambient × grouping, A: the current at which the conductor reaches its rated temperature. */
+  /** table × ambient × adjustment (grouping), A: the current at which the conductor reaches its rated temperature. */
   readonly corrected: number;
-  /** Table value in the termination column (NEC 110.14(C)), A; undefined on IEC. */
-  readonly terminationLimit: number | undefined;
-  /** Ampacity after every limit, A. */
-  readonly ampacity: number;
-  /** Resistance at the reference temperature, Ω/m. */
+  /** NEC: Table 310.16 values of this size in the 60, 75 and 90 °C columns (for 110.14(C)); empty on IEC. */
+  readonly columns: Readonly<Partial<Record<60 | 75 | 90, number>>>;
+  /** NEC: a size from 14 AWG to 1 AWG (110.14(C)(1)(a)). */
+  readonly smallAwg: boolean;
+  /** Resistance at the reference temperature, Ω/m (for the operating-temperature estimate). */
   readonly rRef: number;
   /** Reactance, Ω/m (0 on DC). */
   readonly x: number;
-  /** 240.4(D) limit on the protective device, A. */
+  /** Resistance of the drop method, Ω/m: NEC Chapter 9 Table 9 / Table 8 at 75 °C; IEC Annex G ρ₁/S. */
+  readonly rMethod: number;
+  /** 240.4(D) limit on the protective device, A (per conductor). */
   readonly deviceLimit: number | undefined;
 }
 
@@ -48,22 +50,29 @@ export interface PreparedConductor {
   /** What the grouping factor was read for, in words. */
   readonly groupingNote: string;
   readonly column: string;
+  /** NEC: insulation rating (the correction column), °C. */
+  readonly insulation: 60 | 75 | 90 | undefined;
+  /** NEC: termination rating the user marked, °C (absent: 110.14(C)(1) decides per circuit). */
+  readonly terminationGiven: 60 | 75 | 90 | undefined;
   /** Reference temperature of rRef, °C, and the coefficient referred to it (R_T = R_ref·(1 + α(T − T_ref))). */
   readonly tRef: number;
   readonly alpha: number;
   /** Conductor temperature at which `corrected` is reached, °C. */
   readonly tMax: number;
-  readonly continuousFactor: number;
   readonly parallelSets: number;
   readonly deviceRatings: readonly number[];
   readonly deviceList: string;
+  /** IEC: overload device type and its conventional operating current I₂ as a multiple of I_n. */
+  readonly iecDevice?: { type: 'circuit-breaker' | 'gG-fuse'; words: string; i2Multiple: (rating: number) => number; i2Cite: string };
   readonly resistanceCite: string;
   readonly reactanceCite: string;
+  /** The drop method's resistance, in words. */
+  readonly methodCite: string;
+  /** Sizes left off the ladder and why (parallel sets below 1/0 AWG). */
+  readonly excluded?: string;
 }
 
 type Prepared = { ok: true; prepared: PreparedConductor } | { ok: false; problems: Problem[] };
-
-const CONTINUOUS = 1.25; // NEC 210.19(A)(1)(a) / 215.2(A)(1)(a): 125 % of the continuous load
 
 const defaultCount = (kind: PortKind): 2 | 3 => (kind === 'ac3' ? 3 : 2);
 
@@ -84,31 +93,47 @@ function ladder(e: CableStage, spec: ConductorSpec, sizes: readonly SizeEntry[])
   return { ok: true, from: i, to: i };
 }
 
+/** NEC sizes 14 AWG to 1 AWG: the range 110.14(C)(1)(a) names. */
+const SMALL_AWG = /^(14|12|10|8|6|4|3|2|1) AWG$/;
+/** NEC 310.10(G)(1): conductors in parallel only at 1/0 AWG and larger. */
+const PARALLEL_FROM = '1/0 AWG';
+
 function prepareNec(e: CableStage, spec: NecConductorSpec, kind: PortKind, cat: ConductorCatalogue): Prepared {
   const t = cat.nec;
   const ambient = spec.ambient ?? 30;
   const insulation = spec.insulationRating;
-  const termination = spec.terminationRating ?? 75;
-  const limitColumn = Math.min(insulation, termination) as 60 | 75 | 90;
   const fa = t.ambientFactor(insulation, ambient);
   if (fa === undefined) {
     return problem(e, 'ambient', ambient, `${ambient} °C is beyond the ambient correction table (${t.cite.ambient}) for ${insulation} °C conductors, which ends at ${t.ambientMax(insulation)} °C`);
   }
-  const count = spec.currentCarryingConductors ?? defaultCount(kind);
+  const sets = e.parallelSets ?? 1;
+  // 310.15(C)(1): every set of the link counts toward the current-carrying conductors in the raceway.
+  const perSet = defaultCount(kind);
+  const count = (spec.currentCarryingConductors ?? perSet) + (sets - 1) * perSet;
   const fadj = t.adjustmentFactor(count);
   const raceway = spec.raceway ?? 'pvc';
   const sizes = t.sizes(spec.material);
   const range = ladder(e, spec, sizes);
   if (!range.ok) return range.out;
+  const firstParallel = findSize(sizes, PARALLEL_FROM);
+  if (sets > 1 && spec.size !== 'auto' && range.from < firstParallel) {
+    return problem(e, 'size', spec.size, `conductors in parallel must be ${PARALLEL_FROM} or larger (NEC 310.10(G)(1)); ${spec.size} cannot run in ${sets} sets`, 'invalid-value');
+  }
+  const from = sets > 1 ? Math.max(range.from, firstParallel) : range.from;
   const candidates: Candidate[] = [];
-  for (let i = range.from; i <= range.to; i++) {
+  for (let i = from; i <= range.to; i++) {
     const size = sizes[i]!;
     const table = t.ampacity(spec.material, size.label, insulation);
-    const limit = t.ampacity(spec.material, size.label, limitColumn);
-    // DC: Table 8 (DC resistance). AC: Table 9 (AC resistance for the raceway) and its X_L.
+    const columns: Partial<Record<60 | 75 | 90, number>> = {};
+    for (const col of [60, 75, 90] as const) {
+      const v = t.ampacity(spec.material, size.label, col);
+      if (v !== undefined) columns[col] = v;
+    }
+    // DC: Table 8 (DC resistance). AC: Table 9 (AC resistance for the raceway) and its X_L. Both
+    // at 75 °C: the drop method's own basis (Table 9 Note 2).
     const rRef = kind === 'dc' ? t.dcResistance(spec.material, size.label) : t.acResistance(spec.material, size.label, raceway);
     const x = kind === 'dc' ? 0 : t.reactance(size.label, raceway);
-    if (table === undefined || limit === undefined) {
+    if (table === undefined) {
       // A size not made in this material (no Table 310.16 cell) is left off the ladder.
       if (spec.size !== 'auto') return problem(e, 'size', spec.size, `${t.cite.ampacity} gives no ampacity for ${size.label} ${spec.material}`);
       continue;
@@ -123,16 +148,16 @@ function prepareNec(e: CableStage, spec: NecConductorSpec, kind: PortKind, cat: 
         `${t.cite.acImpedance} as carried gives no AC resistance for ${size.label} ${spec.material} in ${raceway} raceway; choose another raceway (pvc has every size) or give the impedance explicitly`,
       );
     }
-    const corrected = table * fa * fadj;
     candidates.push({
       index: i,
       size,
       table,
-      corrected,
-      terminationLimit: limit,
-      ampacity: Math.min(corrected, limit),
+      corrected: table * fa * fadj,
+      columns,
+      smallAwg: SMALL_AWG.test(size.label),
       rRef,
       x,
+      rMethod: rRef,
       deviceLimit: t.smallConductorLimit(spec.material, size.label),
     });
   }
@@ -147,17 +172,23 @@ function prepareNec(e: CableStage, spec: NecConductorSpec, kind: PortKind, cat: 
       ambient,
       ambientFactor: fa,
       groupingFactor: fadj,
-      groupingNote: `${count} current-carrying conductors (${t.cite.adjustment})`,
-      column: `${t.cite.ampacity}, ${spec.material} ${insulation} °C column${limitColumn < insulation ? `, limited by the ${limitColumn} °C column (termination rating, NEC 110.14(C))` : ''}`,
+      groupingNote: `${count} current-carrying conductors${sets > 1 ? ` (${sets} parallel sets counted, 310.15(C)(1))` : ''} (${t.cite.adjustment})`,
+      column: `${t.cite.ampacity}, ${spec.material} ${insulation} °C column`,
+      insulation,
+      terminationGiven: spec.terminationRating,
       tRef: 75,
       alpha: t.alpha75(spec.material),
       tMax: insulation,
-      continuousFactor: spec.continuous ? CONTINUOUS : 1,
-      parallelSets: e.parallelSets ?? 1,
+      parallelSets: sets,
       deviceRatings: t.deviceRatings,
       deviceList: t.cite.devices,
       resistanceCite: kind === 'dc' ? t.cite.dcResistance : `${t.cite.acImpedance}, ${raceway} raceway`,
       reactanceCite: kind === 'dc' ? 'none on DC' : `${t.cite.acImpedance}, ${raceway} raceway`,
+      methodCite:
+        kind === 'dc'
+          ? `${t.cite.dcResistance}: ΔV = 2·I·R·L`
+          : `${t.cite.acImpedance}, ${raceway} raceway, effective Z = R·cosθ + X·sinθ (Table 9 Note 2): ΔV = ${kind === 'ac3' ? '√3' : '2'}·I·Z_e·L`,
+      ...(sets > 1 && range.from < firstParallel ? { excluded: `sizes below ${PARALLEL_FROM} are not offered in parallel (NEC 310.10(G)(1))` } : {}),
     },
   };
 }
@@ -180,15 +211,18 @@ function prepareIec(e: CableStage, spec: IecConductorSpec, kind: PortKind, cat: 
   if (ca === undefined) {
     return problem(e, 'ambient', ambient, `${ambient} °C is beyond the ambient correction table (${t.cite.ambient}) for ${spec.insulation.toUpperCase()}, which ends at ${t.ambientMax(spec.insulation)} °C`);
   }
-  const circuits = spec.groupedCircuits ?? 1;
+  const sets = e.parallelSets ?? 1;
+  // Each parallel set is one more circuit in the group (Table B.52.17).
+  const circuits = (spec.groupedCircuits ?? 1) + sets - 1;
   const cg = t.groupingFactor(circuits);
   if (cg === undefined) {
-    return problem(e, 'groupedCircuits', circuits, `${circuits} circuits is beyond the grouping table (${t.cite.grouping}), which ends at ${t.groupingMax}`);
+    return problem(e, 'groupedCircuits', spec.groupedCircuits ?? 1, `${circuits} circuits${sets > 1 ? ` (with ${sets} parallel sets)` : ''} is beyond the grouping table (${t.cite.grouping}), which ends at ${t.groupingMax}`);
   }
   const loaded = spec.loadedConductors ?? defaultCount(kind);
   const sizes = t.sizes(spec.material);
   const range = ladder(e, spec, sizes);
   if (!range.ok) return range.out;
+  const rho1 = t.rho1(spec.material);
   const candidates: Candidate[] = [];
   for (let i = range.from; i <= range.to; i++) {
     const size = sizes[i]!;
@@ -199,9 +233,22 @@ function prepareIec(e: CableStage, spec: IecConductorSpec, kind: PortKind, cat: 
       continue;
     }
     const corrected = table * ca * cg;
-    candidates.push({ index: i, size, table, corrected, terminationLimit: undefined, ampacity: corrected, rRef, x: kind === 'dc' ? 0 : t.defaultReactance, deviceLimit: undefined });
+    candidates.push({
+      index: i,
+      size,
+      table,
+      corrected,
+      columns: {},
+      smallAwg: false,
+      rRef,
+      x: kind === 'dc' ? 0 : t.defaultReactance,
+      // Annex G: R = ρ₁·L/S with ρ₁ = 1.25·ρ₂₀ (Ω·m / m² = Ω/m).
+      rMethod: rho1 / (size.areaMm2 * 1e-6),
+      deviceLimit: undefined,
+    });
   }
   if (candidates.length === 0) return problem(e, 'installationMethod', spec.installationMethod, `no sizes with capacities for method ${spec.installationMethod}`);
+  const type = spec.deviceType ?? 'circuit-breaker';
   return {
     ok: true,
     prepared: {
@@ -212,17 +259,23 @@ function prepareIec(e: CableStage, spec: IecConductorSpec, kind: PortKind, cat: 
       ambient,
       ambientFactor: ca,
       groupingFactor: cg,
-      groupingNote: `${circuits} circuit${circuits === 1 ? '' : 's'} grouped, bunched (${t.cite.grouping})`,
+      groupingNote: `${circuits} circuit${circuits === 1 ? '' : 's'} grouped${sets > 1 ? ` (${sets} parallel sets counted)` : ''}, bunched (${t.cite.grouping})`,
       column: `${t.cite.capacity}, method ${spec.installationMethod}, ${spec.insulation.toUpperCase()}, ${loaded} loaded conductors, ${spec.material}`,
+      insulation: undefined,
+      terminationGiven: undefined,
       tRef: 20,
       alpha: t.alpha20(spec.material),
       tMax: t.maxTemperature(spec.insulation),
-      continuousFactor: spec.continuous ? CONTINUOUS : 1,
-      parallelSets: e.parallelSets ?? 1,
-      deviceRatings: t.deviceRatings,
-      deviceList: t.cite.devices,
+      parallelSets: sets,
+      deviceRatings: type === 'gG-fuse' ? t.fuseRatings : t.deviceRatings,
+      deviceList: type === 'gG-fuse' ? t.cite.fuses : t.cite.devices,
+      iecDevice:
+        type === 'gG-fuse'
+          ? { type, words: 'gG fuse', i2Multiple: t.fuseI2Multiple, i2Cite: t.cite.fuseI2 }
+          : { type, words: 'circuit-breaker', i2Multiple: () => t.breakerI2Multiple, i2Cite: t.cite.breakerI2 },
       resistanceCite: t.cite.resistance,
       reactanceCite: kind === 'dc' ? 'none on DC' : t.cite.reactance,
+      methodCite: `IEC 60364-5-52 Annex G: u = b·(ρ₁·L·cosφ/S + λ·L·sinφ)·I_B, ρ₁ = 1.25·ρ₂₀ = ${(rho1 * 1e6).toPrecision(3)} Ω·mm²/m${kind === 'dc' ? ' (cosφ = 1 on DC)' : ', λ = 0.08 mΩ/m'}, b = ${kind === 'ac3' ? 1 : 2}`,
     },
   };
 }

@@ -54,3 +54,10 @@ export const IEC_60898_1_INSTANTANEOUS_TRIP: readonly Iec60898TripRow[] = [
   { type: 'C', fromMultiple: 5, toMultiple: 10, provenance: 'confirmed' },
   { type: 'D', fromMultiple: 10, toMultiple: 20, provenance: 'confirmed' },
 ];
+
+/**
+ * IEC 60898-1 conventional tripping current I₂ = 1.45 × In (clause 8.6.2, time-current
+ * characteristic, from memory; the same 1.45 that IEC 60364-4-43 433.1 puts on I_z, which is why a
+ * breaker to this standard meets I₂ ≤ 1.45 I_z whenever I_n ≤ I_z).
+ */
+export const IEC_60898_1_CONVENTIONAL_TRIPPING = { multiple: 1.45, provenance: 'from memory' as Provenance } as const;

@@ -1,46 +1,53 @@
 /**
- * Solve step between validate and report: give every cable with a `conductor` spec its impedance
- * (and, for size "auto", its size) and find the operating point with those conductors in place.
+ * Solve step between validate and report: give every cable with a `conductor` spec its size and
+ * impedance, and find the operating point with those conductors in place.
  *
- * Method (outer fixed point around the chain solve, plan.ts + sweep.ts unchanged):
- * 1. Solve the chain with the auto-sized links ideal (R = X = 0): the lowest current they can carry.
- * 2. For each conductor link, at that operating point, pick the smallest size meeting ampacity,
- *    protection and voltage drop (core/conductors/size.ts; the drop from the exact two-bus solution
- *    at the link's sending voltage and delivered power), never smaller than the size of the
- *    previous pass; its resistance at the temperature the current sets.
- * 3. Put those R and X into the chain and solve again. A link's drop raises the current it and the
- *    links upstream carry (constant-power loads), which may call for a larger size.
- * 4. Stop when no size changed and no resistance moved by more than 1e-10 (relative) since the
- *    previous pass: the result is then self-consistent (the sizes were checked at the very
- *    operating point reported). Sizes only grow and the ladder is finite, so the sizes settle
- *    within Σ(ladder lengths) passes; after that only the temperature estimate moves, a strong
- *    contraction (the current moves by about the drop fraction of a change in R). The pass count
- *    is capped anyway (no-convergence).
+ * Method:
+ * 1. Nominal solve: the chain with every conductor link and every source impedance ideal, so each
+ *    system sits at its nominal voltage. It gives each link's power; the design current is that
+ *    power at the nominal voltage of the link's system, or the equipment rule the link's load calls
+ *    for (core/conductors/design-current.ts).
+ * 2. Sizing, once per link, from the design current alone: ampacity, protective device and the drop
+ *    check by the code's own method (core/conductors/size.ts). Nothing here depends on the solved
+ *    operating point, so a size never grows because an earlier pass saw a sagged voltage, and the
+ *    governing rule is what the next smaller size fails.
+ * 3. Operating solve with the chosen sizes: each conductor's resistance at its estimated temperature,
+ *    which depends on the current the solve finds; a short fixed point (the current moves by about the
+ *    drop fraction of a change in R, a strong contraction) until no resistance moves by 1e-10
+ *    (relative). Sizes do not change in this step.
  */
-import type { CableStage, ConductorSpec, Element, Project } from '../model.ts';
+import type { AcSource, BatterySource, CableStage, ConductorSpec, Element, Project } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import type { ConductorResult, SolveResult, SolveWarning } from '../result.ts';
+import { abs } from '../ac/complex.ts';
 import { type ConductorCatalogue, defaultCatalogue } from '../conductors/catalogue.ts';
 import { type PreparedConductor, prepareConductor } from '../conductors/prepare.ts';
-import { type Choice, choose, conductorResult } from '../conductors/size.ts';
+import { type Choice, type LinkAngle, choose, conductorResult, resistanceAt, temperatureAt } from '../conductors/size.ts';
+import { type DesignContext, type DesignCurrent, designCurrent } from '../conductors/design-current.ts';
 import { type ResolvedLimits, linkLimit, pathDrops, resolveLimits } from '../conductors/path-drop.ts';
+import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
 import { type Plan, type PlannedElement, plan } from './plan.ts';
 import { type OperatingPoint, sweep } from './sweep.ts';
 
-/** Relative change of a conductor's resistance between passes below which the sizing stops. */
+/** Relative change of a conductor's resistance between passes below which the solve stops. */
 export const R_TOLERANCE = 1e-10;
+const MAX_PASSES = 200;
+/** Highest conductor temperature the operating estimate is carried to, °C (far past any insulation rating). */
+export const T_CAP = 250;
 
 interface Link {
   element: CableStage;
   spec: ConductorSpec;
   prepared: PreparedConductor;
   limitPercent: number;
-  /** Position on the prepared ladder, −1 before the first choice. */
-  position: number;
+  design: DesignCurrent;
+  nominal: number;
+  angle: LinkAngle;
+  choice: Extract<Choice, { ok: true }>;
   /** Per-metre resistance and reactance of one conductor put into the solve. */
   r: number;
   x: number;
-  choice?: Extract<Choice, { ok: true }>;
+  temperature: number;
 }
 
 export type Sized =
@@ -67,6 +74,57 @@ function resolve(project: Project, links: ReadonlyMap<string, { r: number; x: nu
   };
 }
 
+/** The project with conductor links ideal and every source stiff: each system at its nominal voltage. */
+function nominalProject(project: Project, specs: readonly CableStage[]): Project {
+  const base = resolve(project, new Map(specs.map((e) => [e.id, { r: 0, x: 0 }])));
+  return {
+    ...base,
+    elements: base.elements.map((e): Element => {
+      if (e.kind === 'grid' || e.kind === 'generator') {
+        const { resistance: _r, reactance: _x, ...rest } = e as AcSource;
+        return rest as AcSource;
+      }
+      if (e.kind === 'battery') return { ...(e as BatterySource), internalResistance: 0 };
+      return e;
+    }),
+  };
+}
+
+/** Nominal voltage of each element's output, V (line-to-line on three-phase), walking down the plan. */
+function nominalVoltages(order: readonly PlannedElement[]): number[] {
+  const out: number[] = [];
+  order.forEach((n, i) => {
+    const e = n.element;
+    const up = n.parent >= 0 ? out[n.parent]! : 0;
+    switch (e.kind) {
+      case 'grid':
+      case 'generator':
+        out[i] = e.voltage;
+        break;
+      case 'battery': {
+        // A bank: cells in series × the chemistry's nominal cell voltage (NEC 480.2 "nominal voltage
+        // (battery or cell)"); otherwise the voltage given.
+        const b = e.bank;
+        out[i] = b ? b.series * (b.cellsPerBlock ?? 1) * (b.overrides?.nominalCellVoltage ?? CHEMISTRY_PRESETS[b.chemistry].nominalCellVoltage) : (e.voltage ?? 0);
+        break;
+      }
+      case 'rectifier':
+      case 'dcdc':
+      case 'inverter':
+      case 'drive':
+      case 'generic':
+        out[i] = e.outputVoltage;
+        break;
+      case 'transformer':
+        out[i] = e.secondaryVoltage;
+        break;
+      default:
+        out[i] = up;
+    }
+  });
+  return out;
+}
+
 const indexOf = (order: readonly PlannedElement[], id: string): number => order.findIndex((n) => n.element.id === id);
 
 /** Size the conductor links and solve the chain with them in place. */
@@ -79,61 +137,104 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
     const swept = sweep(planned.order);
     return swept.ok ? { ok: true, order: planned.order, point: swept.point, links: new Map(), passes: 0, limits } : swept;
   }
-  // Pass 0: conductor links ideal, to learn their port kinds and the lowest currents.
-  const planned: Plan = plan(resolve(project, new Map(specs.map((e) => [e.id, { r: 0, x: 0 }]))));
-  if (!planned.ok) return planned;
+  // 1. Nominal solve: conductor links and sources ideal.
+  const nominalPlan: Plan = plan(nominalProject(project, specs));
+  if (!nominalPlan.ok) return nominalPlan;
+  const nominalSwept = sweep(nominalPlan.order);
+  if (!nominalSwept.ok) return nominalSwept;
+  const order0 = nominalPlan.order;
+  const vNom = nominalVoltages(order0);
+  const children = new Map<string, Element[]>();
+  for (const e of project.elements) if ('from' in e) children.set(e.from, [...(children.get(e.from) ?? []), e]);
+  const ctx: DesignContext = {
+    project,
+    children,
+    byId: new Map(project.elements.map((e) => [e.id, e])),
+    sIn: new Map(order0.map((n, i) => [n.element.id, nominalSwept.point.sIn[i]!])),
+    nominal: new Map(order0.filter((n) => n.parent >= 0).map((n) => [n.element.id, vNom[n.parent]!])),
+    portKind: new Map(order0.filter((n) => n.input).map((n) => [n.element.id, n.input!.kind])),
+  };
+
+  // 2. Sizing from the design current, once.
   const links = new Map<string, Link>();
   const problems: Problem[] = [];
   for (const e of specs) {
-    const node = planned.order[indexOf(planned.order, e.id)];
+    const i = indexOf(order0, e.id);
+    const node = order0[i];
     if (!node?.input) continue; // not reached from the source: plan has reported why
-    const prepared = prepareConductor(e, e.conductor, node.input.kind, catalogue);
-    if (!prepared.ok) problems.push(...prepared.problems);
-    else links.set(e.id, { element: e, spec: e.conductor, prepared: prepared.prepared, limitPercent: linkLimit(e.conductor.maxDropPercent, limits), position: -1, r: 0, x: 0 });
+    const kind = node.input.kind;
+    const prepared = prepareConductor(e, e.conductor, kind, catalogue);
+    if (!prepared.ok) {
+      problems.push(...prepared.problems);
+      continue;
+    }
+    const dc = designCurrent(ctx, e, e.conductor, kind);
+    if (!dc.ok) {
+      problems.push({ code: 'invalid-value', elementId: e.id, field: dc.field, value: dc.value, message: dc.message });
+      continue;
+    }
+    const s = nominalSwept.point.sIn[i]!;
+    const sMag = abs(s);
+    const angle: LinkAngle = sMag > 0 ? { cos: s.re / sMag, sin: s.im / sMag } : { cos: 1, sin: 0 };
+    const nominal = vNom[node.parent]!;
+    const limitPercent = linkLimit(e.conductor.maxDropPercent, limits);
+    const choice = choose(prepared.prepared, e, dc.design, limitPercent, nominal, angle);
+    if (!choice.ok) {
+      problems.push({ code: 'no-size-fits', elementId: e.id, field: choice.field, value: choice.value, message: choice.message });
+      continue;
+    }
+    const cand = choice.chosen.candidate;
+    const p = prepared.prepared;
+    // Start the operating solve at the temperature the design current would give.
+    const t0 = temperatureAt(p, cand, Math.min(dc.design.base, cand.corrected * p.parallelSets) / p.parallelSets);
+    links.set(e.id, {
+      element: e,
+      spec: e.conductor,
+      prepared: p,
+      limitPercent,
+      design: dc.design,
+      nominal,
+      angle,
+      choice,
+      r: resistanceAt(p, cand, t0),
+      x: kind === 'dc' ? 0 : cand.x,
+      temperature: t0,
+    });
   }
   if (problems.length) return { ok: false, problems };
 
-  const maxPasses = [...links.values()].reduce((n, l) => n + l.prepared.candidates.length, 0) + 100;
-  let order = planned.order;
-  for (let pass = 1; pass <= maxPasses; pass++) {
+  // 3. Operating solve: resistance at the estimated temperature, sizes fixed.
+  for (let pass = 1; pass <= MAX_PASSES; pass++) {
+    const planned = plan(resolve(project, links));
+    if (!planned.ok) return planned;
+    const order = planned.order;
     const swept = sweep(order);
     if (!swept.ok) return swept;
     const point = swept.point;
     let changed = false;
     for (const link of links.values()) {
       const i = indexOf(order, link.element.id);
-      const node = order[i]!;
-      const vIn = point.vOut[node.parent]!;
-      const choice = choose(link.prepared, link.element, link.limitPercent, vIn, point.sOut[i]!, Math.max(link.position, 0));
-      if (!choice.ok) {
-        problems.push({ code: 'no-size-fits', elementId: link.element.id, field: choice.field, value: choice.value, message: choice.message });
-        continue;
-      }
-      const position = link.prepared.candidates.indexOf(choice.chosen.candidate);
-      const r = choice.chosen.r;
-      const x = link.prepared.kind === 'dc' ? 0 : choice.chosen.candidate.x;
-      link.choice = choice;
-      if (position !== link.position || Math.abs(r - link.r) > R_TOLERANCE * r || x !== link.x) {
-        changed = true;
-        link.position = position;
-        link.r = r;
-        link.x = x;
-      }
+      const m = link.prepared.kind === 'ac3' ? 3 : 1;
+      const vr = abs(point.vOut[i]!);
+      const current = vr > 0 ? abs(point.sOut[i]!) / m / vr : 0;
+      const cand = link.choice.chosen.candidate;
+      // An overloaded conductor's estimate runs away (more heat, more R, more current under a
+      // constant-power load): the estimate is held at T_CAP, where the insulation has long failed,
+      // and the overload is flagged by the ampacity checks anyway.
+      const t = Math.min(temperatureAt(link.prepared, cand, current / link.prepared.parallelSets), T_CAP);
+      const r = resistanceAt(link.prepared, cand, t);
+      if (Math.abs(r - link.r) > R_TOLERANCE * r) changed = true;
+      link.r = r;
+      link.temperature = t;
     }
-    if (problems.length) return { ok: false, problems };
     if (!changed) {
       const outcomes = new Map([...links.values()].map((l) => [l.element.id, { link: l, index: indexOf(order, l.element.id) }]));
       return { ok: true, order, point, links: outcomes, passes: pass, limits };
     }
-    const replanned = plan(resolve(project, links));
-    if (!replanned.ok) return replanned;
-    order = replanned.order;
   }
   return {
     ok: false,
-    problems: [
-      { code: 'no-convergence', elementId: 'project', field: '', message: `the conductor sizes did not settle within ${maxPasses} passes of the chain solve` },
-    ],
+    problems: [{ code: 'no-convergence', elementId: 'project', field: '', message: `the conductor temperatures did not settle within ${MAX_PASSES} passes of the chain solve` }],
   };
 }
 
@@ -142,6 +243,7 @@ export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok
   const warnings: SolveWarning[] = [...result.warnings];
   const limits = sized.limits;
   const own = new Map<string, number>();
+  const checked = new Map<string, number>();
   const elements = result.elements.map((r) => {
     const outcome = sized.links.get(r.id);
     if (!outcome) return r;
@@ -149,16 +251,35 @@ export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok
     own.set(r.id, link.limitPercent);
     const node = sized.order[index]!;
     const p = sized.point;
-    const conductor: ConductorResult = conductorResult(link.prepared, link.element, link.choice!, link.limitPercent, p.vOut[node.parent]!, p.vOut[index]!, p.sOut[index]!, link.r, r.loss);
+    const conductor: ConductorResult = conductorResult(link.prepared, link.element, link.choice, link.design, link.limitPercent, link.nominal, link.angle, {
+      vIn: p.vOut[node.parent]!,
+      vOut: p.vOut[index]!,
+      sOut: p.sOut[index]!,
+      rUsed: link.r,
+      temperature: link.temperature,
+      loss: r.loss,
+    });
+    checked.set(r.id, conductor.drop.checkPercent);
+    const ev = link.choice.chosen;
+    const name = r.name ?? r.id;
     if (!link.prepared.auto) {
-      const ev = link.choice!.chosen;
       const fails: string[] = [];
-      if (!ev.ampacityOk) fails.push(`carries ${conductor.current.toFixed(1)} A, above its ampacity of ${conductor.ampacity.total.toFixed(1)} A`);
+      if (!ev.ampacityOk) fails.push(`its ampacity of ${conductor.ampacity.total.toFixed(1)} A does not meet the design current of ${conductor.designCurrent.toFixed(1)} A by ${conductor.designBasis.rule}`);
       if (!ev.device.ok) fails.push(ev.device.note);
-      if (conductor.drop.exactPercent > link.limitPercent * (1 + 1e-12)) fails.push(`drops ${conductor.drop.exactPercent.toFixed(2)} %, above the allowed ${link.limitPercent} %`);
-      if (fails.length) warnings.push({ code: 'conductor-check', elementId: r.id, message: `${conductor.size} ${conductor.material}: ${fails.join('; ')}` });
+      if (!ev.dropOk) fails.push(`drops ${conductor.drop.checkPercent.toFixed(2)} % by the method's check, above the allowed ${link.limitPercent} %`);
+      if (fails.length) warnings.push({ code: 'conductor-check', elementId: r.id, message: `cable "${name}", ${conductor.size} ${conductor.material}: ${fails.join('; ')}` });
+    }
+    // A current the user entered can be wrong: flag it when the solved chain carries more than the
+    // link's ampacity. (On the other bases the operating current differs from the design basis only
+    // by the voltage sag, which the code's nominal-voltage rule leaves out on purpose.)
+    if (link.design.basis === 'given' && conductor.operatingCurrent > conductor.ampacity.total * (1 + 1e-9)) {
+      warnings.push({
+        code: 'conductor-check',
+        elementId: r.id,
+        message: `cable "${name}" carries ${conductor.operatingCurrent.toFixed(1)} A in the solved chain, above its ampacity of ${conductor.ampacity.total.toFixed(1)} A: check the design current entered`,
+      });
     }
     return { ...r, conductor };
   });
-  return { ...result, elements, warnings, voltageDrop: pathDrops(elements, limits, own) };
+  return { ...result, elements, warnings, voltageDrop: pathDrops(elements, limits, own, checked) };
 }

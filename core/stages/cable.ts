@@ -18,6 +18,10 @@ const common = {
   ambient: z.optional(z.number({ error: 'must be a number (°C)' })),
   continuous: z.optional(z.boolean({ error: 'must be true or false' })),
   maxDropPercent: z.optional(positive('%').check(z.lte(100, 'must not exceed 100 %'))),
+  designCurrentBasis: z.optional(
+    z.enum(['auto', 'load', 'equipment', 'given'], { error: 'must be "auto", "load", "equipment" or "given"' }),
+  ),
+  designCurrent: z.optional(positive('A')),
 };
 
 /**
@@ -34,6 +38,10 @@ const conductorSchema = z.discriminatedUnion(
       terminationRating: z.optional(rating),
       raceway: z.optional(z.enum(['pvc', 'aluminum', 'steel'], { error: 'must be "pvc", "aluminum" or "steel" (NEC Chapter 9 Table 9 raceway)' })),
       currentCarryingConductors: z.optional(z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'))),
+      multioutletBranch: z.optional(z.boolean({ error: 'must be true or false' })),
+      motorDevice: z.optional(
+        z.enum(['inverse-time-breaker', 'time-delay-fuse', 'non-time-delay-fuse'], { error: 'must be "inverse-time-breaker", "time-delay-fuse" or "non-time-delay-fuse"' }),
+      ),
     }),
     z.strictObject({
       system: z.literal('iec'),
@@ -44,6 +52,7 @@ const conductorSchema = z.discriminatedUnion(
       }),
       loadedConductors: z.optional(z.union([z.literal(2), z.literal(3)], { error: 'must be 2 or 3' })),
       groupedCircuits: z.optional(z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'))),
+      deviceType: z.optional(z.enum(['circuit-breaker', 'gG-fuse'], { error: 'must be "circuit-breaker" or "gG-fuse"' })),
     }),
   ],
   { error: 'must say system "nec" or "iec"' },

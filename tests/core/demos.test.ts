@@ -227,31 +227,33 @@ describe('cold-store DC bus (1φ rectifier, 380 V bus, 48 V and 54 V converters,
     expect(s.loss).toBeCloseTo(s.output!.current ** 2 * 0.08, 9);
   });
 
-  it('controls cable: sized to IEC (6 mm², drop governs), then the exact DC two-bus solution by hand with R at temperature', () => {
-    // Conductor: IEC 60228 class 2 Cu 6 mm² 3.08 Ω/km at 20 °C; R_T = R₂₀·(1 + 0.004·(T − 20))
-    // (IEC 60228 k_t convention); T = 30 + (70 − 30)·(I/46)² (common practice; 46 A = IEC 60364-5-52
-    // B.52.2 PVC method C, 2 loaded). R_loop = 2 × 40 m × R_T; V_s = 48 V (regulated); P = 240 W;
-    // V_out = (V_s + √(V_s² − 4·R·P))/2, I = P/V_out (Ohm's law, quadratic). Iterated by hand to a
-    // fixed point: T = 30.4997 °C, R_loop = 0.256749 Ω, V_out = 46.67996 V, I = 5.14139 A,
-    // loss = I²·R = 6.7869 W, drop 2.750 % (≤ the 3 % set on the link; 4 mm², 4.61 Ω/km, would drop ≈ 4.2 %).
+  it('controls cable: sized to IEC (10 mm², drop governs by Annex G), then the exact DC two-bus solution by hand with R at temperature', () => {
+    // Sizing (IEC 60364-5-52 Annex G): I_B = 240 W / 48 V = 5 A at the converter's nominal 48 V;
+    // u = 2·ρ₁·L·I_B/S with ρ₁ = 0.0225 Ω·mm²/m: 6 mm² → 2 × 0.0225 × 40 × 5 / 6 = 1.5 V = 3.125 % > 3 %
+    // (the limit set on the link); 10 mm² → 0.9 V = 1.875 %. Capacity is no issue (PVC C 2 loaded,
+    // B.52.2: 2.5 mm² 27 A).
+    // Operating point: IEC 60228 class 2 Cu 10 mm² 1.83 Ω/km at 20 °C; R_T = R₂₀·(1 + 0.004·(T − 20))
+    // (IEC 60228 k_t convention); T = 30 + (70 − 30)·(I/63)² (common practice; 63 A = IEC 60364-5-52
+    // B.52.2 PVC method C, 2 loaded, 10 mm²). R_loop = 2 × 40 m × R_T; V_s = 48 V (regulated); P = 240 W;
+    // V_out = (V_s + √(V_s² − 4·R·P))/2, I = P/V_out (Ohm's law, quadratic), iterated by hand to a fixed point.
     let t = 30;
     let rLoop = 0;
     let vOut = 48;
     for (let k = 0; k < 50; k++) {
-      rLoop = 2 * 40 * 3.08e-3 * (1 + 0.004 * (t - 20));
+      rLoop = 2 * 40 * 1.83e-3 * (1 + 0.004 * (t - 20));
       vOut = (48 + Math.sqrt(48 * 48 - 4 * rLoop * 240)) / 2;
-      t = 30 + 40 * (240 / vOut / 46) ** 2;
+      t = 30 + 40 * (240 / vOut / 63) ** 2;
     }
     const c = get(r, 'ctl-cable');
-    expect(c.conductor!.size).toBe('6 mm²');
+    expect(c.conductor!.size).toBe('10 mm²');
     expect(c.conductor!.governing).toBe('voltage-drop');
-    expect(vOut).toBeCloseTo(46.67996, 4);
+    expect(c.conductor!.drop.checkPercent).toBeCloseTo(1.875, 9); // Annex G by hand, above
+    expect(c.conductor!.steps.find((s) => s.label === 'Size')!.note).toMatch(/6 mm²: drop 3\.13 % exceeds 3 %/);
     expect(c.output!.voltage).toBeCloseTo(vOut, 9);
     expect(c.output!.current).toBeCloseTo(240 / vOut, 9);
     expect(c.loss).toBeCloseTo((240 / vOut) ** 2 * rLoop, 9);
-    expect(c.loss).toBeCloseTo(6.787, 3);
-    expect(c.conductor!.drop.exactPercent).toBeCloseTo(2.75, 2);
-    expect(c.conductor!.device.rating).toBe(6); // IEC 60898-1: smallest preferred rating ≥ 5.14 A
+    expect(c.conductor!.drop.exactPercent).toBeCloseTo((100 * (48 - vOut)) / 48, 9);
+    expect(c.conductor!.device.rating).toBe(6); // IEC 60898-1: smallest preferred rating ≥ 5 A
   });
 
   it('whole-path drops against IEC 60364-5-52 Annex G type A, other uses (5 %); controls path starts at the 48 V converter', () => {

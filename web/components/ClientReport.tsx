@@ -211,7 +211,8 @@ const ReportBody = memo(function ReportBody({
                           {e.conductor
                             ? `${formatConductorSize(e.conductor.size, e.conductor.areaMm2, units, loc)} ${e.conductor.material}` +
                               `${e.conductor.parallelSets > 1 ? ` × ${e.conductor.parallelSets} sets` : ''}, set by ${e.conductor.governing}, ` +
-                              `drop ${formatPercent(e.conductor.drop.exactPercent / 100, loc, 3)}, loss ${formatPower(e.loss, loc)}`
+                              `${e.conductor.device.rating !== undefined ? `${e.conductor.device.rating} A device, ` : ''}` +
+                              `drop ${formatPercent(e.conductor.drop.checkPercent / 100, loc, 3)}, loss ${formatPower(e.loss, loc)}`
                             : `impedance as entered, loss ${formatPower(e.loss, loc)}`}
                         </li>
                       ))}

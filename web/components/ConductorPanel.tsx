@@ -1,6 +1,7 @@
 /**
  * The conductor panel: for every cable given a `conductor` spec, the size the engine chose and why,
- * the ampacity after corrections, the protective device, the drop (exact and approximate), the loss
+ * the design current and its basis beside the operating current, the ampacity after corrections,
+ * the protective device and its rule, the drop by the method's check (and the solved estimate), the loss
  * as heat, the conductor temperature, the working step by step and the caution; then the whole-path
  * drops against their limits. Loaded on demand. The cables table of the results (Results.tsx) keeps
  * the one-line summary of every cable; this panel holds the detail, once.
@@ -62,8 +63,8 @@ function CableCard({ element, length, warnings, units, locale }: { element: Elem
   const c = element.conductor!;
   const { size, extra } = sizeWords(c, units, locale);
   const a = c.ampacity;
-  const dropOk = c.drop.exactPercent <= c.drop.limitPercent + 1e-9;
-  const ampOk = a.total >= c.designCurrent - 1e-9;
+  const dropOk = c.drop.checkPercent <= c.drop.limitPercent + 1e-9;
+  const ampOk = a.total >= c.designBasis.baseCurrent - 1e-9;
   return (
     <article class="cond-card" aria-labelledby={`cond-${element.id}`} data-testid="conductor-card" data-element-id={element.id}>
       <h4 id={`cond-${element.id}`}>{element.name || element.id}</h4>
@@ -85,9 +86,20 @@ function CableCard({ element, length, warnings, units, locale }: { element: Elem
       </p>
       <dl class="panel-figures">
         <div>
-          <dt>Current · design current</dt>
-          <dd>
-            {formatCurrent(c.current, locale)} · {formatCurrent(c.designCurrent, locale)}
+          <dt>Design current</dt>
+          <dd data-testid="conductor-design-current" data-basis={c.designBasis.basis}>
+            {formatCurrent(c.designCurrent, locale)}
+            <span class="cell-note">
+              {c.designBasis.rule}
+              {c.designBasis.fallback ? `; the equipment rule could not be used: ${c.designBasis.fallback}` : ''}
+            </span>
+          </dd>
+        </div>
+        <div>
+          <dt>Operating current</dt>
+          <dd data-testid="conductor-operating-current">
+            {formatCurrent(c.operatingCurrent, locale)}
+            <span class="cell-note">in the solved chain, beside the design current</span>
           </dd>
         </div>
         <div>
@@ -96,7 +108,7 @@ function CableCard({ element, length, warnings, units, locale }: { element: Elem
             {formatCurrent(a.total, locale)} {ampOk ? '' : '— too small'}
             <span class="cell-note">
               table {formatCurrent(a.table, locale)} × ambient {formatSignificant(a.ambientFactor, 3, locale)} × grouping {formatSignificant(a.groupingFactor, 3, locale)}
-              {a.terminationLimit !== undefined ? `; terminations limit ${formatCurrent(a.terminationLimit, locale)}` : ''}
+              {a.terminationLimit !== undefined && a.terminationColumn ? `; ${a.terminationColumn.rating} °C termination column ${formatCurrent(a.terminationLimit, locale)} (${a.terminationColumn.rule})` : ''}
               {c.parallelSets > 1 ? `; ${formatCurrent(a.perSet, locale)} per set` : ''}
             </span>
           </dd>
@@ -105,16 +117,19 @@ function CableCard({ element, length, warnings, units, locale }: { element: Elem
           <dt>Protective device</dt>
           <dd data-testid="conductor-device">
             {c.device.rating !== undefined ? formatCurrent(c.device.rating, locale) : 'none in the list fits'}
-            <span class="cell-note">{c.device.list}</span>
+            <span class="cell-note">
+              {c.device.rule ? `${c.device.rule}; ` : ''}
+              {c.device.list}
+            </span>
           </dd>
         </div>
         <div>
           <dt>Voltage drop</dt>
           <dd data-testid="conductor-drop">
-            {formatVoltage(c.drop.exactVolts, locale)} · {formatPercent(c.drop.exactPercent / 100, locale, 3)} {dropOk ? '' : '— over the limit'}
+            {formatVoltage(c.drop.checkVolts, locale)} · {formatPercent(c.drop.checkPercent / 100, locale, 3)} {dropOk ? '' : '— over the limit'}
             <span class="cell-note">
-              allowed {formatPercent(c.drop.limitPercent / 100, locale, 3)}; the usual approximation gives {formatVoltage(c.drop.approxVolts, locale)} ·{' '}
-              {formatPercent(c.drop.approxPercent / 100, locale, 3)}
+              allowed {formatPercent(c.drop.limitPercent / 100, locale, 3)}; {c.drop.checkMethod}. Estimate at the operating temperature (solved chain):{' '}
+              {formatVoltage(c.drop.exactVolts, locale)} · {formatPercent(c.drop.exactPercent / 100, locale, 3)}
             </span>
           </dd>
         </div>

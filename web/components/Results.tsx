@@ -219,7 +219,7 @@ export const CableTable = lagOffscreen(function CableTable({ result, box }: { re
             {cables.map((e) => {
               const c = e.conductor;
               const length = lengths.get(e.id);
-              const dropPercent = c ? c.drop.exactPercent : drops.get(e.id);
+              const dropPercent = c ? c.drop.checkPercent : drops.get(e.id);
               return (
                 <tr key={e.id} data-element-id={e.id}>
                   <th scope="row">
@@ -233,7 +233,10 @@ export const CableTable = lagOffscreen(function CableTable({ result, box }: { re
                       <>
                         {c.parallelSets > 1 ? `${c.parallelSets} × ` : ''}
                         {formatConductorSize(c.size, c.areaMm2, units, locale)}
-                        <span class="cell-note">{c.auto ? GOVERNING_WORDS[c.governing] : 'size as given'}</span>
+                        <span class="cell-note">
+                          {c.auto ? GOVERNING_WORDS[c.governing] : 'size as given'}
+                          {c.device.rating !== undefined ? ` · ${formatCurrent(c.device.rating, locale)} device` : ''} · design {formatCurrent(c.designCurrent, locale)}
+                        </span>
                       </>
                     ) : (
                       <span class="cell-note">given as R and X per km</span>
@@ -249,7 +252,8 @@ export const CableTable = lagOffscreen(function CableTable({ result, box }: { re
         </table>
       </div>
       <p class="note">
-        Lengths are one-way route lengths. Drop is the voltage drop along that cable, % of its sending voltage.
+        Lengths are one-way route lengths. Drop: for a sized conductor, the check by its method at the design current, % of the nominal voltage; for a cable
+        given by its impedance, the solved drop, % of its sending voltage.
         {cautions.map((text) => ` ${text}`)}
       </p>
     </section>

@@ -930,6 +930,23 @@ const conductorCommon = (system: 'nec' | 'iec'): FieldSpec[] => [
     placeholder: () => 30,
     help: 'Around the run; the tables’ base is 30 °C (86 °F).',
   },
+  {
+    type: 'choice',
+    path: 'conductor.designCurrentBasis',
+    label: 'Design current from',
+    required: false,
+    help:
+      system === 'nec'
+        ? 'Empty: automatic. A motor: 125 % of the Table 430.250 / 430.248 full-load current (430.22, 430.24); a drive: 125 % of its rated input current (430.122(A)); an inverter or DC-DC input: its rated output at its lowest input voltage × 1.25; a charger output: 125 % of its rated current; otherwise the load at the nominal voltage (220.5(A)).'
+        : 'Empty: automatic. A motor: its rated current; a drive, inverter, DC-DC converter or charger: its rating; otherwise the load at the nominal voltage (design current I_B).',
+    options: [
+      { value: 'auto', label: 'Automatic (by what the cable feeds)' },
+      { value: 'load', label: 'The load at nominal voltage' },
+      { value: 'equipment', label: 'The equipment rating (required)' },
+      { value: 'given', label: 'A current I enter' },
+    ],
+  },
+  { type: 'number', path: 'conductor.designCurrent', label: 'Design current (entered)', quantity: 'current', required: false, help: 'Only with “A current I enter”; before any 125 % factor.' },
   { type: 'boolean', path: 'conductor.continuous', label: 'Continuous load (size at 125 %)', required: false, help: 'NEC 210.19(A)(1) / 215.2(A)(1); a load on for 3 h or more.' },
   { type: 'number', path: 'conductor.maxDropPercent', label: 'Allowed voltage drop (%)', quantity: 'percent', required: false, help: 'Empty: the project’s per-link limit.' },
 ];
@@ -963,7 +980,7 @@ const cableForm: KindForm = {
               path: 'conductor.terminationRating',
               label: 'Termination rating',
               required: false,
-              help: 'NEC 110.14(C); empty: 75 °C.',
+              help: 'NEC 110.14(C)(1); empty: 60 °C for circuits of 100 A or less or 14–1 AWG, 75 °C above. Choose 75 °C only for terminations listed and marked for it.',
               options: NEC_COLUMNS.map((o) => ({ ...o, label: String(o.label).replace(' column', '') })),
             },
             {
@@ -985,7 +1002,26 @@ const cableForm: KindForm = {
               quantity: 'count',
               integer: true,
               required: false,
-              help: 'Empty: 2 on DC and single-phase, 3 on three-phase.',
+              help: 'With one set of this cable. Empty: 2 on DC and single-phase, 3 on three-phase; each further parallel set adds its own.',
+            },
+            {
+              type: 'boolean',
+              path: 'conductor.multioutletBranch',
+              label: 'Branch circuit with several receptacles',
+              required: false,
+              help: 'Cord-and-plug loads on more than one receptacle: NEC 240.4(B)(1) then forbids the next higher device rating.',
+            },
+            {
+              type: 'choice',
+              path: 'conductor.motorDevice',
+              label: 'Motor branch device',
+              required: false,
+              help: 'For a motor branch circuit: the maximum rating of NEC Table 430.52(C)(1). Empty: inverse time breaker.',
+              options: [
+                { value: 'inverse-time-breaker', label: 'Inverse time breaker (250 %)' },
+                { value: 'time-delay-fuse', label: 'Dual-element (time-delay) fuse (175 %)' },
+                { value: 'non-time-delay-fuse', label: 'Nontime-delay fuse (300 %)' },
+              ],
             },
           ],
         },
@@ -1022,7 +1058,18 @@ const cableForm: KindForm = {
                 { value: 3, label: '3' },
               ],
             },
-            { type: 'number', path: 'conductor.groupedCircuits', label: 'Circuits grouped together', quantity: 'count', integer: true, required: false, placeholder: () => 1 },
+            { type: 'number', path: 'conductor.groupedCircuits', label: 'Circuits grouped together', quantity: 'count', integer: true, required: false, placeholder: () => 1, help: 'Each further parallel set of this cable counts as one more.' },
+            {
+              type: 'choice',
+              path: 'conductor.deviceType',
+              label: 'Overload device',
+              required: false,
+              help: 'IEC 60364-4-43 433.1: I_B ≤ I_n ≤ I_z and I₂ ≤ 1.45·I_z. Empty: circuit-breaker.',
+              options: [
+                { value: 'circuit-breaker', label: 'Circuit-breaker (IEC 60898-1)' },
+                { value: 'gG-fuse', label: 'gG fuse (IEC 60269)' },
+              ],
+            },
           ],
         },
         {

@@ -1,0 +1,332 @@
+/**
+ * The design current of a cable link: the current the code sizes the conductor and its device for,
+ * taken from the circuit, not from the sagged operating point of the solve.
+ *
+ * Bases (each named in the working, chosen automatically unless the user overrides it):
+ * - load at nominal voltage: the link's delivered power in the chain solved with every conductor
+ *   and source impedance ideal, divided by the NOMINAL voltage of its system (NEC 220.5(A): computations
+ *   at the nominal system voltage; IEC 60364 design current I_B), × 1.25 for a continuous load
+ *   (NEC 210.19(A)(1)(a) / 215.2(A)(1)(a); on IEC only when the user asks, not an IEC rule);
+ * - motor branch circuit: 125 % of the full-load current of NEC Table 430.250 (3φ) / 430.248 (1φ),
+ *   never the nameplate or operating current (430.6(A)(1), 430.22); IEC: the motor's rated current;
+ * - feeder to several motors: 125 % of the largest motor's full-load current + the others' + the
+ *   other loads (430.24);
+ * - a drive's input conductors: 125 % of the drive's rated input current (430.122(A));
+ * - an inverter's DC input: its rated continuous output at its lowest input voltage (the low-voltage
+ *   cut-off) divided by its efficiency there (the stand-alone inverter input current rating of NEC
+ *   690.8(A) / 694.12(A)(3) / 706.30), × 1.25 (690.8(B)(1) / 706.30(B));
+ * - a charger's output: 125 % of its rated output current (706.30, the equipment's rating);
+ * - a DC-DC converter's input: its rated output at its lowest input voltage divided by its
+ *   efficiency, × 1.25;
+ * - given: a current the user enters.
+ *
+ * "Stacked" bases (motor, drive: 430.22, 430.24, 430.122) put the 125 % on the conductor's ampacity
+ * after corrections; the others check 125 % against the termination column before corrections and
+ * 100 % against the corrected ampacity (210.19(A)(1)(a)/(b), 690.8(B)(1)/(2)).
+ */
+import type { Complex } from '../ac/complex.ts';
+import { abs } from '../ac/complex.ts';
+import type { ConductorSpec, Element, MotorStage, PortKind, Project } from '../model.ts';
+import type { DesignBasisKind } from '../result.ts';
+import { NEC_430_250 } from '../data/nec-430-250.ts';
+import { WATTS_PER_HP } from '../data/nema-mg1-12-12.ts';
+import { prepareLoss } from '../stages/loss-model.ts';
+import { motorRating } from '../machines/motor-rating.ts';
+
+const SQRT3 = Math.sqrt(3);
+const CONTINUOUS = 1.25;
+
+export interface DesignCurrent {
+  basis: DesignBasisKind;
+  /** Current before any 125 % factor, A (whole link): the drop check uses it. */
+  base: number;
+  /** 1.25 or 1. */
+  factor: number;
+  /** base × factor, A (whole link). */
+  design: number;
+  /** True when the factor applies to the ampacity after corrections (motor and drive rules). */
+  stacked: boolean;
+  /** The rule in words, with its clause. */
+  rule: string;
+  /** Why an automatic basis fell back to the load, if it did (the rating to enter). */
+  fallback?: string;
+  /** Motor circuits: the motors' full-load currents, largest first, for the device rule (NEC 430.52 / 430.62). */
+  motors?: { name: string; flc: number }[];
+  /** Feeder to several motors: the current of the loads other than motors, A. */
+  otherLoads?: number;
+}
+
+export type DesignOutcome = { ok: true; design: DesignCurrent } | { ok: false; field: string; value: unknown; message: string };
+
+/** What the basis needs to know about the chain: the project's elements and the link's nominal-solve power. */
+export interface DesignContext {
+  project: Project;
+  /** Children of each element id, in file order. */
+  children: ReadonlyMap<string, readonly Element[]>;
+  byId: ReadonlyMap<string, Element>;
+  /** Complex power into each element in the nominal solve (cables and sources ideal), by id. */
+  sIn: ReadonlyMap<string, Complex>;
+  /** Nominal voltage of the port feeding each element, V (line-to-line on three-phase), by id. */
+  nominal: ReadonlyMap<string, number>;
+  /** Port kind feeding each element, by id. */
+  portKind: ReadonlyMap<string, PortKind>;
+}
+
+const nameOf = (e: Element): string => `"${e.name ?? e.id}"`;
+const PASSIVE = new Set(['cable', 'dcbus']);
+
+/** The equipment a link feeds: the first non-passive elements below it (through cables and DC buses). */
+export function terminals(ctx: DesignContext, id: string): Element[] {
+  const out: Element[] = [];
+  const walk = (from: string) => {
+    for (const ch of ctx.children.get(from) ?? []) {
+      if (PASSIVE.has(ch.kind)) walk(ch.id);
+      else out.push(ch);
+    }
+  };
+  walk(id);
+  return out;
+}
+
+/** The equipment feeding a link: the first non-passive element above it. */
+function feeder(ctx: DesignContext, e: Element): Element | undefined {
+  let at: Element | undefined = e;
+  while (at && 'from' in at) {
+    const up = ctx.byId.get(at.from);
+    if (!up || !PASSIVE.has(up.kind)) return up;
+    at = up;
+  }
+  return undefined;
+}
+
+/** Current drawn by an element at nominal voltage (the nominal solve's power over the nominal voltage), A. */
+export function nominalCurrent(ctx: DesignContext, id: string): number {
+  const s = ctx.sIn.get(id);
+  const v = ctx.nominal.get(id);
+  const kind = ctx.portKind.get(id);
+  if (!s || !v || v <= 0) return 0;
+  return kind === 'ac3' ? abs(s) / (SQRT3 * v) : abs(s) / v;
+}
+
+/** The voltage column of Table 430.250 / 430.248 for a motor rated at `v` (the table's note on voltage ranges). */
+function necColumn(v: number, phases: 1 | 3): number | undefined {
+  // Table 430.250 note: the listed currents apply to system voltage ranges 110–120, 220–240,
+  // 440–480 and 550–600 V; 200 and 208 V are their own columns.
+  if (Math.abs(v - 200) < 0.5) return 200;
+  if (Math.abs(v - 208) < 0.5) return 208;
+  if (v >= 110 && v <= 120) return phases === 1 ? 115 : undefined;
+  if (v >= 220 && v <= 240) return 230;
+  if (v >= 440 && v <= 480 && phases === 3) return 460;
+  if (v >= 550 && v <= 600 && phases === 3) return 575;
+  return undefined;
+}
+
+/** Single-phase rows (Table 430.248) when carried; empty until the table is in core/data. */
+const SINGLE_PHASE_ROWS: readonly { hp: number; amps: Readonly<Record<number, number>> }[] = [];
+
+/**
+ * NEC full-load current of a motor by 430.6(A)(1): Table 430.250 (3φ) or 430.248 (1φ) at the
+ * motor's horsepower row and voltage column. A motor rated between rows (a kW rating) takes the
+ * next larger row, which gives the larger current.
+ */
+export function necMotorFlc(m: MotorStage, phases: 1 | 3, nominal: number): { amps: number; words: string } | { reason: string } {
+  const v = m.ratedVoltage ?? nominal;
+  const col = necColumn(v, phases);
+  const table = phases === 3 ? 'Table 430.250' : 'Table 430.248';
+  const rows = phases === 3 ? NEC_430_250.map((r) => ({ hp: r.hp, amps: r.amps as Readonly<Record<number, number>> })) : SINGLE_PHASE_ROWS;
+  if (col === undefined) return { reason: `a motor rated ${v} V matches no voltage column of NEC ${table}` };
+  const hp = m.ratedOutput / WATTS_PER_HP;
+  const row = rows.find((r) => r.hp >= hp * (1 - 0.005) && r.amps[col] !== undefined);
+  if (!row) {
+    return {
+      reason: rows.length
+        ? `${hp.toPrecision(3)} hp is above the rows of NEC ${table} carried here (${rows.map((r) => r.hp).join(', ')} hp)`
+        : `NEC ${table} is not carried yet`,
+    };
+  }
+  const exact = Math.abs(row.hp - hp) <= 0.005 * row.hp;
+  return {
+    amps: row.amps[col]!,
+    words: `NEC ${table}, ${row.hp} hp at ${col} V: ${row.amps[col]} A${exact ? '' : ` (the motor's ${hp.toPrecision(3)} hp lies between rows: the next larger row)`}`,
+  };
+}
+
+/** IEC rated current of a motor: the nameplate current, else rated output / (√3·U·η·cosφ) at full load. */
+function iecMotorCurrent(m: MotorStage, phases: 1 | 3, nominal: number): { amps: number; words: string } | { reason: string } {
+  if (m.nameplate?.current !== undefined) return { amps: m.nameplate.current, words: `nameplate rated current ${m.nameplate.current} A` };
+  const rated = motorRating(m);
+  if (!rated.ok || rated.rating === undefined) return { reason: 'give the nameplate current (or an efficiency class) to take the motor\'s rated current' };
+  const v = m.ratedVoltage ?? nominal;
+  const { efficiency, powerFactor } = { efficiency: rated.rating.fullLoad.efficiency, powerFactor: rated.rating.powerFactor };
+  const amps = m.ratedOutput / ((phases === 3 ? SQRT3 : 1) * v * efficiency * powerFactor);
+  return { amps, words: `rated output / (${phases === 3 ? '√3·' : ''}U·η·cosφ) = ${m.ratedOutput} W / (${phases === 3 ? '√3·' : ''}${v} V × ${efficiency.toFixed(3)} × ${powerFactor.toFixed(2)})` };
+}
+
+/** A converter's efficiency at a given output from its loss model: η = P / (P + loss(P)). */
+function efficiencyAtRated(loss: Parameters<typeof prepareLoss>[0], p: number): number {
+  const l = prepareLoss(loss).loss(p).loss;
+  return p / (p + l);
+}
+
+interface Rated {
+  ratedInputCurrent?: number;
+  ratedOutputPower?: number;
+  ratedOutputCurrent?: number;
+  minInputVoltage?: number;
+}
+
+type EquipmentBasis = { ok: true; design: DesignCurrent } | { ok: false; missing: string } | null;
+
+/** The equipment rule for what the link feeds (and what feeds it); null when no rule applies. */
+function equipmentBasis(ctx: DesignContext, link: Element, spec: ConductorSpec, kind: PortKind, nominal: number): EquipmentBasis {
+  const nec = spec.system === 'nec';
+  const f = nec ? CONTINUOUS : 1;
+  const found: DesignCurrent[] = [];
+  const missing: string[] = [];
+  const ends = terminals(ctx, link.id);
+  const phases: 1 | 3 = kind === 'ac3' ? 3 : 1;
+  const motors = ends.filter((e): e is MotorStage => e.kind === 'motor');
+  if (kind !== 'dc' && motors.length > 0) {
+    const flcs: { name: string; flc: number; words: string }[] = [];
+    for (const m of motors) {
+      const r = nec ? necMotorFlc(m, phases, nominal) : iecMotorCurrent(m, phases, nominal);
+      if ('reason' in r) missing.push(`motor ${nameOf(m)}: ${r.reason}`);
+      else flcs.push({ name: m.name ?? m.id, flc: r.amps, words: r.words });
+    }
+    if (flcs.length === motors.length) {
+      flcs.sort((a, b) => b.flc - a.flc);
+      if (ends.length === 1) {
+        const m = flcs[0]!;
+        found.push(
+          nec
+            ? { basis: 'motor-branch', base: m.flc, factor: f, design: m.flc * f, stacked: true, rule: `125 % of the motor's full-load current (NEC 430.22; full-load current from ${m.words}, 430.6(A)(1), not the nameplate or operating current)`, motors: flcs }
+            : { basis: 'motor-branch', base: m.flc, factor: 1, design: m.flc, stacked: true, rule: `the motor's rated current as I_B (IEC 60364-5-52; ${m.words})`, motors: flcs },
+        );
+      } else {
+        const others = ends.filter((e) => e.kind !== 'motor').reduce((s, e) => s + nominalCurrent(ctx, e.id), 0);
+        const sumFlc = flcs.reduce((s, m) => s + m.flc, 0);
+        const largest = flcs[0]!;
+        const base = sumFlc + others;
+        const design = nec ? largest.flc * 1.25 + (sumFlc - largest.flc) + others : base;
+        found.push({
+          basis: 'motor-feeder',
+          base,
+          factor: design / base,
+          design,
+          stacked: true,
+          rule: nec
+            ? `125 % of the largest motor's full-load current (${largest.name}: ${largest.flc} A) + the other motors' (${(sumFlc - largest.flc).toFixed(1)} A) + the other loads at nominal voltage (${others.toFixed(1)} A) (NEC 430.24; full-load currents from Table 430.250 / 430.248, 430.6(A)(1))`
+            : `the motors' rated currents (${flcs.map((m) => `${m.name} ${m.flc.toFixed(1)} A`).join(', ')}) + the other loads at nominal voltage (${others.toFixed(1)} A) as I_B`,
+          motors: flcs,
+          otherLoads: others,
+        });
+      }
+    }
+  }
+  if (ends.length === 1) {
+    const end = ends[0]!;
+    const r = end as Element & Rated;
+    if (end.kind === 'drive') {
+      if (r.ratedInputCurrent === undefined) missing.push(`drive ${nameOf(end)}: enter its rated input current`);
+      else
+        found.push({
+          basis: 'drive-input',
+          base: r.ratedInputCurrent,
+          factor: f,
+          design: r.ratedInputCurrent * f,
+          stacked: true,
+          rule: nec ? `125 % of the drive's rated input current, ${r.ratedInputCurrent} A (NEC 430.122(A))` : `the drive's rated input current, ${r.ratedInputCurrent} A, as I_B`,
+        });
+    }
+    if ((end.kind === 'inverter' || end.kind === 'dcdc') && kind === 'dc') {
+      const inv = end.kind === 'inverter';
+      const p = r.ratedOutputPower ?? end.loss.ratedPower;
+      const vMin = inv ? (end as { lowVoltageCutoff?: number }).lowVoltageCutoff : r.minInputVoltage;
+      const what = inv ? 'inverter' : 'DC-DC converter';
+      if (p === undefined) missing.push(`${what} ${nameOf(end)}: enter its rated continuous output`);
+      if (vMin === undefined) missing.push(`${what} ${nameOf(end)}: enter its ${inv ? 'low-voltage cut-off' : 'lowest input voltage'}`);
+      if (p !== undefined && vMin !== undefined) {
+        const eta = efficiencyAtRated(end.loss, p);
+        const base = p / (eta * vMin);
+        found.push({
+          basis: inv ? 'inverter-input' : 'dcdc-input',
+          base,
+          factor: f,
+          design: base * f,
+          stacked: false,
+          rule: `the ${what}'s rated output at its lowest input voltage: ${p} W / (η ${eta.toFixed(3)} × ${vMin} V)${
+            nec ? ` × 1.25 (NEC 690.8(A)/(B), 706.30: the continuous input current rating at rated power and lowest input voltage)` : ' as I_B (the equipment rating)'
+          }`,
+        });
+      }
+    }
+  }
+  const up = feeder(ctx, link);
+  if (up?.kind === 'rectifier' && kind === 'dc') {
+    const r = up as Element & Rated;
+    if (r.ratedOutputCurrent === undefined) missing.push(`charger ${nameOf(up)}: enter its rated output current`);
+    else
+      found.push({
+        basis: 'charger-output',
+        base: r.ratedOutputCurrent,
+        factor: f,
+        design: r.ratedOutputCurrent * f,
+        stacked: false,
+        rule: nec ? `125 % of the charger's rated output current, ${r.ratedOutputCurrent} A (NEC 706.30, the equipment's rating)` : `the charger's rated output current, ${r.ratedOutputCurrent} A, as I_B`,
+      });
+  }
+  if (found.length) {
+    // Where two equipment rules meet on one link (a charger feeding an inverter), the larger governs.
+    found.sort((a, b) => b.design - a.design);
+    return { ok: true, design: found[0]! };
+  }
+  return missing.length ? { ok: false, missing: missing.join('; ') } : null;
+}
+
+/** The link's design current by the basis its spec asks for. */
+export function designCurrent(ctx: DesignContext, link: Element, spec: ConductorSpec, kind: PortKind): DesignOutcome {
+  const nominal = ctx.nominal.get(link.id) ?? 0;
+  const basis = spec.designCurrentBasis ?? 'auto';
+  const cont = spec.continuous ? CONTINUOUS : 1;
+  const contWords = spec.continuous
+    ? spec.system === 'nec'
+      ? ' × 1.25 for a continuous load (NEC 210.19(A)(1)(a) / 215.2(A)(1)(a))'
+      : ' × 1.25 (continuous factor chosen by the user; not an IEC 60364 rule)'
+    : '';
+  if (basis === 'given') {
+    if (spec.designCurrent === undefined) return { ok: false, field: 'conductor.designCurrent', value: undefined, message: 'enter the design current (A) for the basis "given"' };
+    const base = spec.designCurrent;
+    return { ok: true, design: { basis: 'given', base, factor: cont, design: base * cont, stacked: false, rule: `design current entered by the user, ${base} A${contWords}` } };
+  }
+  if (spec.designCurrent !== undefined) {
+    return { ok: false, field: 'conductor.designCurrent', value: spec.designCurrent, message: 'a design current is only used with the basis "given"; choose that basis or clear the current' };
+  }
+  let fallback: string | undefined;
+  if (basis === 'auto' || basis === 'equipment') {
+    const eq = equipmentBasis(ctx, link, spec, kind, nominal);
+    if (eq?.ok) return { ok: true, design: eq.design };
+    if (basis === 'equipment') {
+      return {
+        ok: false,
+        field: 'conductor.designCurrentBasis',
+        value: basis,
+        message: eq ? `the equipment rating is missing: ${eq.missing}` : 'this link feeds no motor, drive, inverter, DC-DC converter or charger whose rating sets the design current',
+      };
+    }
+    if (eq) fallback = eq.missing;
+  }
+  const base = nominalCurrent(ctx, link.id);
+  const sys = kind === 'ac3' ? `${nominal} V three-phase` : kind === 'ac1' ? `${nominal} V single-phase` : `${nominal} V DC`;
+  return {
+    ok: true,
+    design: {
+      basis: 'load-nominal',
+      base,
+      factor: cont,
+      design: base * cont,
+      stacked: false,
+      rule: `the load at the nominal voltage of its system, ${sys} (NEC 220.5(A); IEC 60364 design current I_B)${contWords}`,
+      ...(fallback ? { fallback } : {}),
+    },
+  };
+}
