@@ -10,28 +10,8 @@
  * not report yet fails the case with its name, never silently.
  */
 import { afterAll, describe, expect, it } from 'vitest';
-import { solveProject } from '../../core/index.ts';
-import { SIZING_EXAMPLES, type SizingExample } from './sizing-examples.ts';
-
-/** Follow a dotted path into a plain object; `undefined` when any step is missing. */
-export function pick(root: unknown, path: string): unknown {
-  let cur: unknown = root;
-  for (const k of path.split('.')) {
-    if (cur === null || typeof cur !== 'object') return undefined;
-    cur = (cur as Record<string, unknown>)[k];
-  }
-  return cur;
-}
-
-/** Solve a case and return its cable's conductor result, or throw with the engine's problems. */
-export function conductorOf(c: Pick<SizingExample, 'project' | 'cable' | 'id'>): Record<string, unknown> {
-  const out = solveProject(c.project);
-  if (!out.ok) throw new Error(`${c.id}: the engine refused the project: ${out.problems.map((p) => `${p.elementId ?? ''} ${p.field ?? ''}: ${p.message}`).join('; ')}`);
-  const el = out.result.elements.find((e) => e.id === c.cable);
-  const cond = (el as unknown as { conductor?: Record<string, unknown> } | undefined)?.conductor;
-  if (!cond) throw new Error(`${c.id}: no conductor result on "${c.cable}"`);
-  return cond;
-}
+import { SIZING_EXAMPLES } from './sizing-examples.ts';
+import { conductorOf, pick } from './conductor-helpers.ts';
 
 function num(cond: Record<string, unknown>, path: string): number {
   const v = pick(cond, path);
