@@ -4,8 +4,9 @@
  * - 240.4(B): the next standard rating above the ampacity only when the ampacity is not itself a
  *   standard rating, only up to 800 A (240.4(C) above), never on a multioutlet branch (240.4(B)(1));
  * - 240.4(D): 14/12/10 AWG Cu at 15/20/30 A, 12/10 AWG Al at 15/25 A, per conductor;
- * - 110.14(C)(1)(a)/(b): the 60 °C column for circuits of 100 A or less (or 14–1 AWG) unless the
- *   terminations are marked 75 °C; the 75 °C column above 100 A;
+ * - 110.14(C)(1)(a)/(b): the 60 °C column for circuits of 100 A or less, and for 14–1 AWG, unless the
+ *   terminations are marked 75 °C; the 75 °C column above 100 A for larger sizes (as the conductor
+ *   interface of issue 14 reads (a): terminals for 14–1 AWG are taken as marked for those sizes);
  * - 310.10(G): parallel sets only at 1/0 AWG and larger, each set counted toward Table 310.15(C)(1)
  *   (IEC: toward the grouped circuits of Table B.52.17).
  *
@@ -63,9 +64,9 @@ describe('NEC 240.4(B): the next higher standard rating', () => {
   });
 
   it('ampacity between standard ratings (130 A) → the next higher (150 A) is allowed: 128 A on 1 AWG', () => {
-    // Above 100 A: 75 °C column (110.14(C)(1)(b)): 2 AWG 115 A < 128 A; 1 AWG 130 A ≥ 128 A;
+    // Terminations marked 75 °C: 2 AWG 115 A < 128 A; 1 AWG 130 A ≥ 128 A;
     // smallest standard ≥ 128 A is 150 A; 130 A is not a standard rating → 240.4(B) allows 150 A.
-    const { cond } = sized(nec({}), 128, { phases: 3 });
+    const { cond } = sized(nec({ terminationRating: 75 }), 128, { phases: 3 });
     expect(cond['size']).toBe('1 AWG');
     expect(rating(cond)).toBe(150);
     expect(total(cond)).toBe(130);
@@ -156,11 +157,18 @@ describe('NEC 110.14(C)(1): the termination column', () => {
     expect(cond['size']).toBe('1 AWG');
     expect(rating(cond)).toBe(100);
   });
-  it('(b) above 100 A → 75 °C column: 120 A is 1 AWG (130 A), not 1/0 (the 60 °C answer, 125 A)', () => {
-    const { cond } = sized(nec({}), 120, { phases: 3 });
+  it('(a) 14–1 AWG stay in the 60 °C column even above 100 A: 105 A is 1 AWG (110 A at 60 °C), device 110 A', () => {
+    const { cond } = sized(nec({}), 105, { phases: 3 });
     expect(cond['size']).toBe('1 AWG');
+    expect(String(pick(cond, 'ampacity.column'))).toContain('60');
+    expect(rating(cond)).toBe(110);
+  });
+  it('(b) above 100 A and larger than 1 AWG → 75 °C column: 140 A is 1/0 AWG (150 A at 75 °C), not 2/0 (the 60 °C answer, 145 A)', () => {
+    // 1 AWG at 60 °C (110 A) is too small; 1/0 AWG is past the 14–1 AWG range, so (b) gives it 150 A.
+    const { cond } = sized(nec({}), 140, { phases: 3 });
+    expect(cond['size']).toBe('1/0 AWG');
     expect(String(pick(cond, 'ampacity.column'))).toContain('75');
-    expect(rating(cond)).toBe(125);
+    expect(rating(cond)).toBe(150);
   });
 });
 

@@ -152,8 +152,8 @@ export const SIZING_EXAMPLES: SizingExample[] = [
     kind: 'ac',
     source: 'NFPA 70 (2023), Informative Annex D, Example D8, feeder to one 25 hp and two 30 hp 460 V motors (from memory)',
     book: 'feeder ampacity 1.25 × 40 A + 40 A + 34 A = 124 A (430.24)',
-    working: '430.24: 1.25 × 40 + 40 + 34 = 124 A; above 100 A → 75 °C column (110.14(C)(1)(b)): 2 AWG 115 A < 124 A, 1 AWG 130 A → 1 AWG',
-    differs: 'the example gives the ampacity only; the size is the code answer',
+    working: '430.24: 1.25 × 40 + 40 + 34 = 124 A; terminations not marked: 14–1 AWG stay in the 60 °C column (110.14(C)(1)(a)): 1 AWG 110 A < 124 A; 1/0 AWG above 100 A in the 75 °C column ((b)): 150 A → 1/0 AWG',
+    differs: 'the example gives the ampacity only; the size is the code answer with unmarked terminations (1 AWG, 130 A at 75 °C, would need terminations marked 75 °C)',
     cable: 'fd',
     project: project('Annex D8, motor feeder', [
       grid(3, 480, 60),
@@ -165,7 +165,7 @@ export const SIZING_EXAMPLES: SizingExample[] = [
       necCable('b3', 'fd', 10, {}),
       ...necMotor('m3', 'b3', 30, 460, 0.936, 38),
     ]),
-    expect: { designCurrent: 124, designTolerance: 1e-9, designBasis: 'motor-feeder', size: '1 AWG', governing: 'ampacity', column: '75' },
+    expect: { designCurrent: 124, designTolerance: 1e-9, designBasis: 'motor-feeder', size: '1/0 AWG', governing: 'ampacity', column: '75' },
   },
 
   // ----- NEC, AC: trade table of motor branch conductors -----
