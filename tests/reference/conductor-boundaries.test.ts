@@ -19,6 +19,7 @@
  * - 240.6(A) standard ratings: … 15, 20, 25, 30, 35, 40, 45, 50, 60, 70, 80, 90, 100, 110, 125, 150,
  *   175, 200, …, 700, 800, 1000, 1200 ….
  * - 240.4(D) limits (from memory; the Table 310.16 asterisk note pointing to 240.4(D) is confirmed).
+ * - Table 430.248 (1φ motors): 2 hp at 230 V = 12 A (confirmed; core/data/nec-430-248.ts).
  * IEC: 60364-5-52:2009 Table B.52.4 method C PVC, 3 loaded: 10 mm² 57 A, 16 mm² 76 A; Table B.52.17
  * bunched, 2 circuits 0.80; IEC 60898-1 rated currents … 63, 80, 100, 125 A.
  */
@@ -186,5 +187,27 @@ describe('parallel sets: each set counts toward the adjustment', () => {
     expect(cond['size']).toBe('16 mm²');
     expect(total(cond)).toBeCloseTo(2 * 76 * 0.8, 6);
     expect(rating(cond)).toBe(100);
+  });
+});
+
+describe('motor branch design current from the NEC tables, not the operating current (430.6(A)(1), 430.22)', () => {
+  it('a 2 hp 230 V single-phase motor at half load: Table 430.248 12 A × 1.25 = 15 A, basis motor-branch; 75 °C terminations → 14 AWG (20 A)', () => {
+    const out = solveProject({
+      format: 'joulepath-project',
+      version: 1,
+      name: '1φ motor branch',
+      elements: [
+        { id: 'g', kind: 'grid', phases: 1, voltage: 240, frequency: 60 },
+        { id: 'c', kind: 'cable', from: 'g', length: 10, conductor: { system: 'nec', material: 'copper', size: 'auto', insulationRating: 75, terminationRating: 75 } },
+        { id: 'm', kind: 'motor', from: 'c', ratedOutput: 2 * 745.7, ratedVoltage: 230, ratedFrequency: 60, poles: 4, nameplate: { efficiency: 0.8, powerFactor: 0.8 } },
+        { id: 'sh', kind: 'shaft-load', from: 'm', power: 745.7 },
+      ],
+    });
+    if (!out.ok) throw new Error(`refused: ${out.problems.map((p) => `${p.field}: ${p.message}`).join('; ')}`);
+    const cond = (out.result.elements.find((e) => e.id === 'c') as unknown as { conductor: Conductor }).conductor;
+    expect(pick(cond, 'designCurrent')).toBeCloseTo(15, 9); // NFPA 70-2023 Table 430.248: 2 hp, 230 V = 12 A
+    expect(pick(cond, 'designBasis.basis')).toBe('motor-branch');
+    expect(cond['size']).toBe('14 AWG'); // Table 310.16 Cu 75 °C 20 A ≥ 15 A
+    expect(pick(cond, 'operatingCurrent') as number).toBeLessThan(15); // half load draws less than the design current
   });
 });
