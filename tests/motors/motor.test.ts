@@ -108,9 +108,12 @@ describe('a NEMA Premium 10 hp motor at 75 % load on a stiff 460 V supply', () =
 });
 
 describe('NEC Table 430.250 applicability', () => {
-  it('no column for 400 V, no row for 7.5 hp: says why', () => {
+  it('no column for 400 V, no row for 6 hp (not a horsepower the table lists): says why', () => {
     expect(necFullLoadCurrent(7457, 400)).toMatchObject({ reason: expect.stringContaining('400 V') });
-    expect(necFullLoadCurrent(7.5 * 745.7, 460)).toMatchObject({ reason: expect.stringContaining('7.50 hp') });
+    expect(necFullLoadCurrent(6 * 745.7, 460)).toMatchObject({ reason: expect.stringContaining('6.00 hp') });
+  });
+  it('7.5 hp at 460 V = 11 A (NFPA 70-2023 Table 430.250)', () => {
+    expect(necFullLoadCurrent(7.5 * 745.7, 460)).toMatchObject({ amps: 11, hp: 7.5 });
   });
   it('50 hp at 230 V = 130 A (NFPA 70-2023 Table 430.250)', () => {
     expect(necFullLoadCurrent(50 * 745.7, 230)).toMatchObject({ amps: 130 });

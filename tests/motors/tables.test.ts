@@ -5,7 +5,8 @@
 import { describe, expect, it } from 'vitest';
 import { IEC_60034_30_1_4P_50HZ, type IeClass } from '../../core/data/iec-60034-30-1.ts';
 import { NEMA_PREMIUM_4P_60HZ_TEFC } from '../../core/data/nema-mg1-12-12.ts';
-import { NEC_430_250, type Nec430Voltage } from '../../core/data/nec-430-250.ts';
+import { NEC_430_250 } from '../../core/data/nec-430-250.ts';
+import { NEC_430_248, NEC_430_248_VOLTAGES } from '../../core/data/nec-430-248.ts';
 import { STANDARD_POINTS } from '../../core/data/iec-61800-9-2.ts';
 import { MOTOR_PART_LOAD } from '../../core/data/motor-part-load.ts';
 
@@ -68,16 +69,77 @@ describe('NEMA MG 1 Table 12-12 (NEMA Premium), 4-pole 60 Hz enclosed — NRCan 
   });
 });
 
+// NFPA 70-2023 Table 430.250, read cell by cell from a published machine-read copy of the 2023 code
+// (S1 of the project's reference notes) and again from a published copy of the NFPA 70-2008 table:
+// the two agree in every cell below. Columns: 115 (½–2 hp only), 200, 208, 230, 460, 575 V.
+const T430_250: [number, number | null, number, number, number, number, number][] = [
+  [0.5, 4.4, 2.5, 2.4, 2.2, 1.1, 0.9],
+  [0.75, 6.4, 3.7, 3.5, 3.2, 1.6, 1.3],
+  [1, 8.4, 4.8, 4.6, 4.2, 2.1, 1.7],
+  [1.5, 12, 6.9, 6.6, 6, 3, 2.4],
+  [2, 13.6, 7.8, 7.5, 6.8, 3.4, 2.7],
+  [3, null, 11, 10.6, 9.6, 4.8, 3.9],
+  [5, null, 17.5, 16.7, 15.2, 7.6, 6.1],
+  [7.5, null, 25.3, 24.2, 22, 11, 9],
+  [10, null, 32.2, 30.8, 28, 14, 11],
+  [15, null, 48.3, 46.2, 42, 21, 17],
+  [20, null, 62.1, 59.4, 54, 27, 22],
+  [25, null, 78.2, 74.8, 68, 34, 27],
+  [30, null, 92, 88, 80, 40, 32],
+  [40, null, 120, 114, 104, 52, 41],
+  [50, null, 150, 143, 130, 65, 52],
+  [60, null, 177, 169, 154, 77, 62],
+  [75, null, 221, 211, 192, 96, 77],
+  [100, null, 285, 273, 248, 124, 99],
+  [125, null, 359, 343, 312, 156, 125],
+  [150, null, 414, 396, 360, 180, 144],
+  [200, null, 552, 528, 480, 240, 192],
+];
+
 describe('NEC Table 430.250 (NFPA 70-2023), 3φ induction motors, full-load current', () => {
-  const cases: [number, Nec430Voltage, number][] = [
-    [1, 230, 4.2], [5, 230, 15.2], [10, 230, 28], [25, 230, 68], [50, 230, 130],
-    [1, 460, 2.1], [5, 460, 7.6], [10, 460, 14], [25, 460, 34], [50, 460, 65],
-    [1, 200, 4.8], [5, 200, 17.5], [10, 200, 32.2], [25, 200, 78.2], [50, 200, 150],
-    [1, 208, 4.6], [5, 208, 16.7], [10, 208, 30.8], [25, 208, 74.8], [50, 208, 143],
-    [1, 575, 1.7], [5, 575, 6.1], [10, 575, 11], [25, 575, 27], [50, 575, 52],
-  ];
-  it.each(cases)('%s hp at %s V = %s A (NFPA 70-2023 Table 430.250, confirmed)', (hp, v, amps) => {
-    expect(NEC_430_250.find((r) => r.hp === hp)!.amps[v]).toBe(amps);
+  it('carries exactly the ½–200 hp rows, in order', () => {
+    expect(NEC_430_250.map((r) => r.hp)).toEqual(T430_250.map((r) => r[0]));
+  });
+  it.each(T430_250)('%s hp: 115 V %s, 200 V %s, 208 V %s, 230 V %s, 460 V %s, 575 V %s A (NFPA 70-2023 Table 430.250, confirmed)', (hp, a115, a200, a208, a230, a460, a575) => {
+    const row = NEC_430_250.find((r) => r.hp === hp)!;
+    expect(row.provenance).toBe('confirmed');
+    const want: Record<string, number> = { 200: a200, 208: a208, 230: a230, 460: a460, 575: a575 };
+    if (a115 !== null) want['115'] = a115;
+    expect(row.amps).toEqual(want); // an absent 115 V cell: the table prints no value there
+  });
+  it('the 460 V column is half the 230 V column in every row (the table is built that way; NFPA 70-2023 Table 430.250)', () => {
+    for (const r of NEC_430_250) expect(r.amps[460]).toBeCloseTo(r.amps[230] / 2, 1);
+  });
+});
+
+// NFPA 70-2023 Table 430.248, read cell by cell from a published machine-read copy of the 2023 code
+// (S1); the 115/230 V columns agree with a trade reference page's copy of the table.
+const T430_248: [number, number, number, number, number][] = [
+  [1 / 6, 4.4, 2.5, 2.4, 2.2],
+  [1 / 4, 5.8, 3.3, 3.2, 2.9],
+  [1 / 3, 7.2, 4.1, 4, 3.6],
+  [0.5, 9.8, 5.6, 5.4, 4.9],
+  [0.75, 13.8, 7.9, 7.6, 6.9],
+  [1, 16, 9.2, 8.8, 8],
+  [1.5, 20, 11.5, 11, 10],
+  [2, 24, 13.8, 13.2, 12],
+  [3, 34, 19.6, 18.7, 17],
+  [5, 56, 32.2, 30.8, 28],
+  [7.5, 80, 46, 44, 40],
+  [10, 100, 57.5, 55, 50],
+];
+
+describe('NEC Table 430.248 (NFPA 70-2023), 1φ motors, full-load current', () => {
+  it('columns are 115, 200, 208, 230 V and every row of the table is carried', () => {
+    expect(NEC_430_248_VOLTAGES).toEqual([115, 200, 208, 230]);
+    expect(NEC_430_248.map((r) => r.hp)).toEqual(T430_248.map((r) => r[0]));
+  });
+  it.each(T430_248)('%s hp: 115 V %s, 200 V %s, 208 V %s, 230 V %s A (NFPA 70-2023 Table 430.248, confirmed)', (hp, a115, a200, a208, a230) => {
+    const row = NEC_430_248.find((r) => r.hp === hp)!;
+    expect(row).toEqual({ hp, amps: { 115: a115, 200: a200, 208: a208, 230: a230 }, provenance: 'confirmed' });
+  });
+  it('10 hp at 230 V = 50 A: a published trade question on Table 430.248 uses the same figure', () => {
+    expect(NEC_430_248.find((r) => r.hp === 10)!.amps[230]).toBe(50);
   });
 });
 
