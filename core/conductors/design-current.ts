@@ -29,6 +29,7 @@ import { abs } from '../ac/complex.ts';
 import type { ConductorSpec, Element, MotorStage, PortKind, Project } from '../model.ts';
 import type { DesignBasisKind } from '../result.ts';
 import { NEC_430_250 } from '../data/nec-430-250.ts';
+import { NEC_430_248 } from '../data/nec-430-248.ts';
 import { WATTS_PER_HP } from '../data/nema-mg1-12-12.ts';
 import { prepareLoss } from '../stages/loss-model.ts';
 import { motorRating } from '../machines/motor-rating.ts';
@@ -114,15 +115,16 @@ function necColumn(v: number, phases: 1 | 3): number | undefined {
   // 440–480 and 550–600 V; 200 and 208 V are their own columns.
   if (Math.abs(v - 200) < 0.5) return 200;
   if (Math.abs(v - 208) < 0.5) return 208;
-  if (v >= 110 && v <= 120) return phases === 1 ? 115 : undefined;
+  if (v >= 110 && v <= 120) return 115;
   if (v >= 220 && v <= 240) return 230;
   if (v >= 440 && v <= 480 && phases === 3) return 460;
   if (v >= 550 && v <= 600 && phases === 3) return 575;
   return undefined;
 }
 
-/** Single-phase rows (Table 430.248) when carried; empty until the table is in core/data. */
-const SINGLE_PHASE_ROWS: readonly { hp: number; amps: Readonly<Record<number, number>> }[] = [];
+type Rows = readonly { hp: number; amps: Readonly<Partial<Record<number, number>>> }[];
+const THREE_PHASE_ROWS: Rows = NEC_430_250;
+const SINGLE_PHASE_ROWS: Rows = NEC_430_248;
 
 /**
  * NEC full-load current of a motor by 430.6(A)(1): Table 430.250 (3φ) or 430.248 (1φ) at the
@@ -133,7 +135,7 @@ export function necMotorFlc(m: MotorStage, phases: 1 | 3, nominal: number): { am
   const v = m.ratedVoltage ?? nominal;
   const col = necColumn(v, phases);
   const table = phases === 3 ? 'Table 430.250' : 'Table 430.248';
-  const rows = phases === 3 ? NEC_430_250.map((r) => ({ hp: r.hp, amps: r.amps as Readonly<Record<number, number>> })) : SINGLE_PHASE_ROWS;
+  const rows = phases === 3 ? THREE_PHASE_ROWS : SINGLE_PHASE_ROWS;
   if (col === undefined) return { reason: `a motor rated ${v} V matches no voltage column of NEC ${table}` };
   const hp = m.ratedOutput / WATTS_PER_HP;
   const row = rows.find((r) => r.hp >= hp * (1 - 0.005) && r.amps[col] !== undefined);
@@ -141,7 +143,7 @@ export function necMotorFlc(m: MotorStage, phases: 1 | 3, nominal: number): { am
     return {
       reason: rows.length
         ? `${hp.toPrecision(3)} hp is above the rows of NEC ${table} carried here (${rows.map((r) => r.hp).join(', ')} hp)`
-        : `NEC ${table} is not carried yet`,
+        : `NEC ${table} is not carried`,
     };
   }
   const exact = Math.abs(row.hp - hp) <= 0.005 * row.hp;

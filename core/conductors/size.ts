@@ -368,7 +368,8 @@ export function conductorResult(
       ? `after corrections and the termination column, must be at least the design current (${dc.basis === 'drive-input' ? 'NEC 430.122(A)' : dc.basis === 'motor-feeder' ? 'NEC 430.24' : 'NEC 430.22'})${ev.ampacityOk ? ' ✓' : ' ✗'}`
       : `the termination column must carry the design current before corrections and the corrected ampacity the load current (NEC 210.19(A)(1)(a)/(b), 215.2(A)(1))${ev.ampacityOk ? ' ✓' : ' ✗'}`;
   step('Ampacity of the link', ev.izTotal, 'A', `${ev.ampacity.toFixed(1)} A per set × ${sets} set${sets === 1 ? '' : 's'}; ${ampRule}`);
-  step('Protective device', ev.device.rating ?? '—', ev.device.rating === undefined ? '' : 'A', `${ev.device.note} (${p.deviceList})`);
+  const shownRating = ev.device.ok ? ev.device.rating : undefined;
+  step('Protective device', shownRating ?? '—', shownRating === undefined ? '' : 'A', `${ev.device.note} (${p.deviceList})`);
   step(
     'Voltage drop, check',
     ev.check.volts,
@@ -443,7 +444,8 @@ export function conductorResult(
     reactancePerKm: kind === 'dc' ? 0 : cand.x * 1000,
     loss: op.loss,
     device: {
-      ...(ev.device.rating !== undefined ? { rating: ev.device.rating } : {}),
+      // A device the rules do not allow on this size (a fixed size) is not shown as a rating.
+      ...(ev.device.rating !== undefined && ev.device.ok ? { rating: ev.device.rating } : {}),
       list: p.deviceList,
       note: ev.device.note,
       rule: ev.device.rule,
