@@ -20,8 +20,8 @@ import './Panels.css';
 /** The rule that set the size, in a sentence. */
 const GOVERNING_SENTENCE: Record<GoverningRule, string> = {
   ampacity: 'Ampacity governs: the smallest size that carries the design current after corrections.',
-  'voltage-drop': 'Voltage drop governs: smaller sizes carry the current but drop more than allowed.',
-  protection: 'The protective device governs: the conductor must be rated for the device that protects it.',
+  'voltage-drop': 'Voltage drop governs: the next smaller size carries the design current but drops more than allowed.',
+  protection: 'The protective device governs: the next smaller size carries the design current, but no device rule lets it be protected.',
   'smallest-size': 'The smallest size allowed for this use governs.',
   fixed: 'Size as given in the project; the checks below say whether it passes.',
 };
