@@ -9,9 +9,12 @@
  * between sweeps, then runs one last backward sweep so that every power matches the reported
  * voltages. Energy balance is exact by construction: each P_in is P_out + loss of the same sweep.
  */
-import { type Complex, ZERO, abs, add, scale, sub } from '../ac/complex.ts';
+import { type Complex, ZERO, abs, add, c, mul, scale, sub } from '../ac/complex.ts';
 import type { Problem } from '../errors.ts';
+import type { Element } from '../model.ts';
 import type { PlannedElement } from './plan.ts';
+
+const ONE: Complex = c(1);
 
 /** Relative voltage change between sweeps at which the solve is taken as converged. */
 export const TOLERANCE = 1e-12;
@@ -46,28 +49,52 @@ function backward(order: readonly PlannedElement[], vOut: readonly Complex[], sI
   }
 }
 
+/** Direction (unit phasor) of a voltage: that of `v`, else of `fallback`, else the real axis. */
+function direction(v: Complex, fallback: Complex): Complex {
+  const m = abs(v);
+  if (m > 0) return scale(v, 1 / m);
+  const f = abs(fallback);
+  return f > 0 ? scale(fallback, 1 / f) : ONE;
+}
+
 /**
  * Returns the index of the first element whose output cannot be delivered, or −1. With `recover`,
  * such an element's voltage is halved instead and the sweep goes on (see `sweep`).
  */
-function forward(order: readonly PlannedElement[], sIn: readonly Complex[], sOut: readonly Complex[], vOut: Complex[], recover = false): number {
+function forward(order: readonly PlannedElement[], sIn: readonly Complex[], sOut: readonly Complex[], vOut: Complex[], recover = false, noLoad = false): number {
   let bad = -1;
   for (let i = 0; i < order.length; i++) {
     const node = order[i]!;
+    const vIn = vInOf(order, vOut, i);
     // Constant-impedance loads fed directly from this output go to the link as their admittance
-    // (solved exactly); the rest of the output as the power they drew in the backward sweep.
+    // (solved exactly), constant-current loads as their current phasor (rotated onto the direction
+    // of this output's voltage as last found: exact on DC); the rest of the output as the power it
+    // drew in the backward sweep.
     let y: Complex | undefined;
+    let j: Complex | undefined;
     let sConst = sOut[i]!;
     for (const child of node.children) {
-      const a = order[child]!.model.admittance;
-      if (a === undefined) continue;
+      const m = order[child]!.model;
+      if (m.admittance === undefined && m.current === undefined) continue;
       if (y === undefined) {
         y = ZERO;
-        sConst = node.children.reduce((sum, ch) => (order[ch]!.model.admittance === undefined ? add(sum, sIn[ch]!) : sum), ZERO);
+        sConst = node.children.reduce((sum, ch) => {
+          const cm = order[ch]!.model;
+          return cm.admittance === undefined && cm.current === undefined ? add(sum, sIn[ch]!) : sum;
+        }, ZERO);
       }
-      y = add(y, a);
+      if (m.admittance !== undefined) y = add(y, m.admittance);
+      if (m.current !== undefined && !noLoad) j = add(j ?? ZERO, m.current);
     }
-    const v = node.model.outputVoltage(vInOf(order, vOut, i), sConst, y);
+    let dir = ONE;
+    if (j !== undefined) {
+      dir = direction(vOut[i]!, vIn);
+      j = mul(j, dir);
+    }
+    let v = node.model.outputVoltage(vIn, sConst, j === undefined ? y : { re: y!.re, im: y!.im, current: j });
+    // A constant-current load's voltage must come out along the direction its current was set on;
+    // the other way round (on DC: I·R ≥ V_s), the link cannot deliver that current.
+    if (v !== null && j !== undefined && v.re * dir.re + v.im * dir.im <= 0) v = null;
     if (v === null) {
       if (!recover) return i;
       if (bad < 0) bad = i;
@@ -86,8 +113,32 @@ function loadBelow(order: readonly PlannedElement[], sIn: readonly Complex[], i:
   return node.children.reduce((sum, child) => sum + loadBelow(order, sIn, child), 0);
 }
 
+/** The constant-current load with the largest current at or below element i, or −1. */
+function largestCurrentBelow(order: readonly PlannedElement[], i: number): number {
+  const node = order[i]!;
+  if (node.model.current !== undefined) return i;
+  let best = -1;
+  for (const child of node.children) {
+    const k = largestCurrentBelow(order, child);
+    if (k >= 0 && (best < 0 || abs(order[k]!.model.current!) > abs(order[best]!.model.current!))) best = k;
+  }
+  return best;
+}
+
 function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly Complex[]): Problem {
   const e = order[i]!.element;
+  // A current given by the user that the link cannot deliver is refused at that load's current.
+  const k = largestCurrentBelow(order, i);
+  if (k >= 0) {
+    const load = order[k]!.element as Element & { current: number };
+    return {
+      code: 'infeasible-load',
+      elementId: load.id,
+      field: 'current',
+      value: load.current,
+      message: `the ${load.current.toPrecision(3)} A cannot be delivered through "${e.name ?? e.id}" (with the other loads beyond it): the voltage would fall to nothing or collapse on the way. Use a larger conductor, a shorter run, a higher voltage or less current`,
+    };
+  }
   const kw = loadBelow(order, sIn, i) / 1000;
   return {
     code: 'infeasible-load',
@@ -111,14 +162,18 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
   const vOut: Complex[] = new Array<Complex>(n).fill(ZERO);
   const sIn: Complex[] = new Array<Complex>(n).fill(ZERO);
   const sOut: Complex[] = new Array<Complex>(n).fill(ZERO);
-  forward(order, sIn, sOut, vOut); // no-load voltages (and the impedance loads directly on links) as the starting point
+  // No-load voltages (and the impedance loads directly on links) as the starting point; the
+  // constant-current loads join from the first sweep on.
+  forward(order, sIn, sOut, vOut, false, true);
   // A constant-impedance load draws its power at the previous sweep's voltage: starting from the
   // no-load voltage it asks for more than it will take, and a heavy one can ask a link for more
   // than it can transfer although the circuit has a solution. Then the overshooting link's voltage
   // is halved (its loads then draw a quarter) and the sweeps go on; only a link that stays past its
   // maximum transfer for RECOVERY_SWEEPS sweeps in a row is infeasible. Chains of constant-power
   // loads only approach their solution from above and need no recovery: infeasible at once.
-  const recover = order.some((node) => node.model.admittance !== undefined);
+  // Constant-current loads behind a bus (not directly on a link) draw their power at the previous
+  // sweep's voltage, from above as well: the same recovery and damping serve them.
+  const recover = order.some((node) => node.model.admittance !== undefined || node.model.current !== undefined);
   let overshoots = 0;
   let relax = 1;
   let residual = Infinity;

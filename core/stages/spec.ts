@@ -9,7 +9,7 @@ import { z } from 'zod/mini';
 import type { Element, ElementKind, PfSense, PortKind } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.ts';
-import { type Complex, ZERO, abs, add, c, conj, div, mul, scale } from '../ac/complex.ts';
+import { type Complex, ZERO, abs, add, c, conj, div, mul, scale, sub } from '../ac/complex.ts';
 import { receivingVoltage } from '../ac/two-bus.ts';
 import { type PreparedLoss, prepareLoss, weightedEfficiency } from './loss-model.ts';
 
@@ -25,6 +25,16 @@ export interface PortInfo {
 export interface KindWarning {
   code: WarningCode;
   message: string;
+}
+
+/**
+ * What the loads fed directly from a series link draw besides constant power: the per-phase
+ * admittance Y of its constant-impedance loads (re, im; zero when none) and, when it has
+ * constant-current loads, `current`: the sum of their per-phase current phasors (absolute angle,
+ * along the link's output voltage as the sweep last found it).
+ */
+export interface DirectLoads extends Complex {
+  readonly current?: Complex;
 }
 
 /** Details reported after the solve. */
@@ -48,16 +58,24 @@ export interface ElementModel {
    * Forward sweep: the output voltage phasor from the input voltage (null for a source) and the
    * output power. Returns null when the output power cannot be delivered (infeasible).
    * `y` is the per-phase admittance of constant-impedance loads fed directly from this output,
-   * whose power is then NOT in `sOut`; only elements whose output voltage depends on the load
+   * and `y.current` the per-phase current phasor of constant-current loads fed directly from it;
+   * the power of both is then NOT in `sOut`. Only elements whose output voltage depends on the load
    * (series links) use it.
    */
-  outputVoltage(vIn: Complex, sOut: Complex, y?: Complex): Complex | null;
+  outputVoltage(vIn: Complex, sOut: Complex, y?: DirectLoads): Complex | null;
   /**
    * Per-phase admittance Y of a constant-impedance load (its input power is m·|V|²·conj(Y)), given
    * so that the link feeding it can solve it exactly (see seriesLink) rather than at the previous
    * sweep's voltage.
    */
   readonly admittance?: Complex;
+  /**
+   * Per-phase current of a constant-current load as a phasor relative to its own voltage
+   * (I·(pf − j·sin φ) lagging, I on DC): its input power is m·|V|·conj(current). Given so that the
+   * link feeding it can take it as a current (see seriesLink) rather than as the power it drew at
+   * the previous sweep's voltage.
+   */
+  readonly current?: Complex;
   /** Backward sweep: total input complex power from the total output power and the voltages. */
   inputPower(sOut: Complex, vIn: Complex, vOut: Complex): Complex;
   /** Details once the operating point is known. */
@@ -181,11 +199,17 @@ export function seriesLink(z: Complex, kind: PortKind) {
      * With constant-impedance loads Y (per phase) beside the constant power S_p:
      * V_s = K·V_r + Z·conj(S_p/V_r), K = 1 + Z·Y. With W = K·V_r this is the two-bus equation
      * V_s = W + Z·conj(K)·conj(S_p/W), solved exactly; then V_r = W/K.
+     * Constant-current loads drawing the phasor J (per phase) add their drop Z·J (Ohm's law):
+     * V_s − Z·J = K·V_r + Z·conj(S_p/V_r), the same equation with the sending voltage V_s − Z·J.
+     * J's angle follows V_r (the sweep passes it along the last V_r; exact on DC, a fixed point in
+     * the angle on AC). A V_r that comes out opposite to J's reference is a current the link cannot
+     * deliver (on DC: I·R ≥ V_s); the sweep refuses it.
      */
-    outputVoltage: (vIn: Complex, sOut: Complex, y?: Complex): Complex | null => {
-      if (y === undefined || (y.re === 0 && y.im === 0)) return receivingVoltage(vIn, z, scale(sOut, 1 / m));
+    outputVoltage: (vIn: Complex, sOut: Complex, y?: DirectLoads): Complex | null => {
+      const vs = y?.current === undefined ? vIn : sub(vIn, mul(z, y.current));
+      if (y === undefined || (y.re === 0 && y.im === 0)) return receivingVoltage(vs, z, scale(sOut, 1 / m));
       const k = add(c(1), mul(z, y));
-      const w = receivingVoltage(vIn, mul(z, conj(k)), scale(sOut, 1 / m));
+      const w = receivingVoltage(vs, mul(z, conj(k)), scale(sOut, 1 / m));
       return w === null ? null : div(w, k);
     },
     /** S_in = S_out + m·|I|²·Z with |I| = |S_out/m| / |V_out|. */
@@ -264,6 +288,23 @@ export function constantPowerLoad(s: Complex): ElementModel {
     out: null,
     outputVoltage: () => ZERO,
     inputPower: () => s,
+    report: () => ({ warnings: [] }),
+  };
+}
+
+/**
+ * A load drawing a constant current (magnitude and angle to its voltage): S = m·|V|·conj(J) with J
+ * the per-phase current phasor relative to the voltage (complex power S = V·I* per phase, the
+ * current held whatever the voltage). The link feeding it takes J as a current (seriesLink).
+ */
+export function constantCurrentLoad(j: Complex, kind: PortKind): ElementModel {
+  const m = phaseCount(kind);
+  const sPerVolt = scale(conj(j), m);
+  return {
+    out: null,
+    current: j,
+    outputVoltage: () => ZERO,
+    inputPower: (_sOut, vIn) => scale(sPerVolt, abs(vIn)),
     report: () => ({ warnings: [] }),
   };
 }
