@@ -99,9 +99,11 @@ function chainFor(kind: ElementKind): FormElement[] {
     case 'generic':
       return [dc, me('src'), { id: 'load', kind: 'dc-load', from: 'me', power: 200 }];
     case 'dc-load':
+    case 'dc-current-load':
       return [dc, me('src')];
     case 'ac-load':
     case 'ac-va-load':
+    case 'ac-current-load':
     case 'network-load':
       return [grid1, me('src')];
     case 'shaft-load':
