@@ -136,7 +136,7 @@ function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly C
       elementId: load.id,
       field: 'current',
       value: load.current,
-      message: `the ${load.current.toPrecision(3)} A cannot be delivered through "${e.name ?? e.id}" (with the other loads beyond it): the voltage would fall to nothing or collapse on the way. Use a larger conductor, a shorter run, a higher voltage or less current`,
+      message: `the ${Number(load.current.toPrecision(4))} A cannot be delivered through "${e.name ?? e.id}" (with the other loads beyond it): the voltage would fall to nothing or collapse on the way. Use a larger conductor, a shorter run, a higher voltage or less current`,
     };
   }
   const kw = loadBelow(order, sIn, i) / 1000;
