@@ -9,7 +9,7 @@
  * between sweeps, then runs one last backward sweep so that every power matches the reported
  * voltages. Energy balance is exact by construction: each P_in is P_out + loss of the same sweep.
  */
-import { type Complex, ZERO, abs, add, c, mul, scale, sub } from '../ac/complex.ts';
+import { type Complex, ZERO, abs, add, c, scale, sub } from '../ac/complex.ts';
 import type { Problem } from '../errors.ts';
 import type { Element } from '../model.ts';
 import type { PlannedElement } from './plan.ts';
@@ -67,9 +67,9 @@ function forward(order: readonly PlannedElement[], sIn: readonly Complex[], sOut
     const node = order[i]!;
     const vIn = vInOf(order, vOut, i);
     // Constant-impedance loads fed directly from this output go to the link as their admittance
-    // (solved exactly), constant-current loads as their current phasor (rotated onto the direction
-    // of this output's voltage as last found: exact on DC); the rest of the output as the power it
-    // drew in the backward sweep.
+    // (solved exactly), constant-current loads as their current phasor relative to their voltage,
+    // with the direction of this output's voltage as last found (see seriesLink); the rest of the
+    // output as the power it drew in the backward sweep.
     let y: Complex | undefined;
     let j: Complex | undefined;
     let sConst = sOut[i]!;
@@ -86,15 +86,8 @@ function forward(order: readonly PlannedElement[], sIn: readonly Complex[], sOut
       if (m.admittance !== undefined) y = add(y, m.admittance);
       if (m.current !== undefined && !noLoad) j = add(j ?? ZERO, m.current);
     }
-    let dir = ONE;
-    if (j !== undefined) {
-      dir = direction(vOut[i]!, vIn);
-      j = mul(j, dir);
-    }
-    let v = node.model.outputVoltage(vIn, sConst, j === undefined ? y : { re: y!.re, im: y!.im, current: j });
-    // A constant-current load's voltage must come out along the direction its current was set on;
-    // the other way round (on DC: I·R ≥ V_s), the link cannot deliver that current.
-    if (v !== null && j !== undefined && v.re * dir.re + v.im * dir.im <= 0) v = null;
+    const direct = j === undefined ? y : { re: y!.re, im: y!.im, current: j, along: direction(vOut[i]!, vIn) };
+    const v = node.model.outputVoltage(vIn, sConst, direct);
     if (v === null) {
       if (!recover) return i;
       if (bad < 0) bad = i;

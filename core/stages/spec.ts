@@ -9,7 +9,7 @@ import { z } from 'zod/mini';
 import type { Element, ElementKind, PfSense, PortKind } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.ts';
-import { type Complex, ZERO, abs, add, c, conj, div, mul, scale, sub } from '../ac/complex.ts';
+import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../ac/complex.ts';
 import { receivingVoltage } from '../ac/two-bus.ts';
 import { type PreparedLoss, prepareLoss, weightedEfficiency } from './loss-model.ts';
 
@@ -30,11 +30,13 @@ export interface KindWarning {
 /**
  * What the loads fed directly from a series link draw besides constant power: the per-phase
  * admittance Y of its constant-impedance loads (re, im; zero when none) and, when it has
- * constant-current loads, `current`: the sum of their per-phase current phasors (absolute angle,
- * along the link's output voltage as the sweep last found it).
+ * constant-current loads, `current`: the sum of their per-phase current phasors relative to the
+ * link's output voltage, with `along`: the direction (unit phasor) of that voltage as the sweep
+ * last found it.
  */
 export interface DirectLoads extends Complex {
   readonly current?: Complex;
+  readonly along?: Complex;
 }
 
 /** Details reported after the solve. */
@@ -199,17 +201,34 @@ export function seriesLink(z: Complex, kind: PortKind) {
      * With constant-impedance loads Y (per phase) beside the constant power S_p:
      * V_s = K·V_r + Z·conj(S_p/V_r), K = 1 + Z·Y. With W = K·V_r this is the two-bus equation
      * V_s = W + Z·conj(K)·conj(S_p/W), solved exactly; then V_r = W/K.
-     * Constant-current loads drawing the phasor J (per phase) add their drop Z·J (Ohm's law):
-     * V_s − Z·J = K·V_r + Z·conj(S_p/V_r), the same equation with the sending voltage V_s − Z·J.
-     * J's angle follows V_r (the sweep passes it along the last V_r; exact on DC, a fixed point in
-     * the angle on AC). A V_r that comes out opposite to J's reference is a current the link cannot
-     * deliver (on DC: I·R ≥ V_s); the sweep refuses it.
+     * Constant-current loads drawing J (per phase, held relative to V_r) add their drop Z·J
+     * (Ohm's law). Alone on the link (no S_p, no Y) they are solved exactly: with V_r = r·e^{jθ},
+     * V_s = e^{jθ}·(r + Z·J), so r = −Re(Z·J) + √(|V_s|² − Im(Z·J)²) and θ = arg V_s − arg(r + Z·J);
+     * no real r > 0 (the square root of a negative number, or r ≤ 0; on DC: I·R ≥ V_s) is a current
+     * the link cannot deliver. Beside other loads, J is set along the last V_r (`along`) and
+     * V_s − Z·J = K·V_r + Z·conj(S_p/V_r) solved as above: exact on DC, a fixed point in the angle
+     * on AC; a V_r that comes out against `along` is a current the link cannot deliver.
      */
     outputVoltage: (vIn: Complex, sOut: Complex, y?: DirectLoads): Complex | null => {
-      const vs = y?.current === undefined ? vIn : sub(vIn, mul(z, y.current));
-      if (y === undefined || (y.re === 0 && y.im === 0)) return receivingVoltage(vs, z, scale(sOut, 1 / m));
+      if (y?.current !== undefined) {
+        const zj = mul(z, y.current);
+        if (sOut.re === 0 && sOut.im === 0 && y.re === 0 && y.im === 0) {
+          const disc = vIn.re * vIn.re + vIn.im * vIn.im - zj.im * zj.im;
+          if (disc < 0) return null;
+          const r = Math.sqrt(disc) - zj.re;
+          if (!(r > 0)) return null;
+          return polar(r, arg(vIn) - arg(add(c(r), zj)));
+        }
+        const along = y.along ?? c(1);
+        const vs = sub(vIn, mul(zj, along));
+        const k = add(c(1), mul(z, y));
+        const w = receivingVoltage(vs, mul(z, conj(k)), scale(sOut, 1 / m));
+        const v = w === null ? null : div(w, k);
+        return v !== null && v.re * along.re + v.im * along.im > 0 ? v : null;
+      }
+      if (y === undefined || (y.re === 0 && y.im === 0)) return receivingVoltage(vIn, z, scale(sOut, 1 / m));
       const k = add(c(1), mul(z, y));
-      const w = receivingVoltage(vs, mul(z, conj(k)), scale(sOut, 1 / m));
+      const w = receivingVoltage(vIn, mul(z, conj(k)), scale(sOut, 1 / m));
       return w === null ? null : div(w, k);
     },
     /** S_in = S_out + m·|I|²·Z with |I| = |S_out/m| / |V_out|. */
