@@ -78,6 +78,11 @@ export interface ElementModel {
    * the previous sweep's voltage.
    */
   readonly current?: Complex;
+  /**
+   * True when the output voltage is the input voltage whatever the load (a DC bus): constant-current
+   * loads behind it are handed to the link feeding it like its own (see the sweep's forward pass).
+   */
+  readonly passesVoltage?: boolean;
   /** Backward sweep: total input complex power from the total output power and the voltages. */
   inputPower(sOut: Complex, vIn: Complex, vOut: Complex): Complex;
   /** Details once the operating point is known. */

@@ -567,6 +567,20 @@ describe('loads given by their current', () => {
     const prob = expectOnly(p, 'infeasible-load', 'winch', 'current', /60 A cannot be delivered through "Yard run"/);
     expect(prob.value).toBe(60);
   });
+
+  it('behind a bus the load’s current is refused too, and beside a power load the cable is named with both demands', () => {
+    // Ohm's law: 1 Ω cannot pass 60 A (60 V of drop) from 48 V, whatever else shares the run.
+    const p = withCurrentLoads();
+    p.elements.push({ id: 'run', kind: 'cable', from: 'bank', length: 50, resistancePerKm: 10, name: 'Yard run' });
+    p.elements.push({ id: 'board', kind: 'dcbus', from: 'run', fixedLoss: 2 });
+    p.elements.push({ id: 'winch', kind: 'dc-current-load', from: 'board', current: 60 });
+    p.elements.push({ id: 'lamp2', kind: 'dc-current-load', from: 'board', current: 1 });
+    expectOnly(p, 'infeasible-load', 'winch', 'current', /60 A cannot be delivered through "Yard run" \(with the other load given by its current/);
+    el(p, 'lamp2').kind = 'dc-load';
+    el(p, 'lamp2').power = 20;
+    delete el(p, 'lamp2').current;
+    expectOnly(p, 'infeasible-load', 'run', '', /kW of load beyond it and the 60 A of loads given by their current/);
+  });
 });
 
 describe('equipment ratings (read by conductor sizing; the solve ignores them)', () => {
