@@ -175,3 +175,51 @@ describe('constant-current AC loads through a link with reactance', () => {
     );
   });
 });
+
+/**
+ * Law (Kirchhoff's current law at the bus, Ohm's law on the cable): a constant-current load I behind
+ * a DC bus of fixed loss P_b, fed through a loop resistance R from a stiff source E, sits at the
+ * larger root of V² − (E − R·I)·V + R·P_b = 0 (the cable carries I + P_b/V); with no real root above
+ * zero the current cannot be delivered.
+ */
+describe('a constant-current load behind a DC bus', () => {
+  it('sits at the larger root of V² − (E − R·I)·V + R·P_b = 0, or is refused at its current when there is none', () => {
+    fc.assert(
+      fc.property(
+        fc.constantFrom(12, 24, 48, 110),
+        fc.double({ min: 0.001, max: 2, noNaN: true }), // R, Ω
+        fc.double({ min: 0, max: 500, noNaN: true }), // P_b, W
+        fc.double({ min: 0.01, max: 1.5, noNaN: true }), // I·R / E
+        (e, r, pBus, k) => {
+          const current = (k * e) / r;
+          const a = e - r * current;
+          const disc = a * a - 4 * r * pBus;
+          const v = a > 0 && disc >= 0 ? (a + Math.sqrt(disc)) / 2 : Number.NaN;
+          const project: Project = {
+            format: 'joulepath-project',
+            version: 1,
+            name: 'Current load behind a bus',
+            elements: [
+              { id: 'src', kind: 'battery', voltage: e },
+              { id: 'run', kind: 'cable', from: 'src', length: 100, resistancePerKm: r / 0.2 },
+              { id: 'bus', kind: 'dcbus', from: 'run', fixedLoss: pBus },
+              { id: 'load', kind: 'dc-current-load', from: 'bus', current },
+            ],
+          };
+          const outcome = solveProject(project);
+          // A margin around the boundary (disc = 0 or V = 0), where rounding may fall either way.
+          if (a > 1e-6 * e && disc > 1e-6 * a * a) {
+            if (!outcome.ok) throw new Error(`refused where V = ${v} V exists: ${JSON.stringify(outcome.problems)}`);
+            const load = outcome.result.elements.find((x) => x.id === 'load')!;
+            expect(Math.abs(load.input!.voltage - v)).toBeLessThanOrEqual(1e-9 * e);
+            expect(Math.abs(load.pIn - v * current)).toBeLessThanOrEqual(1e-9 * e * current);
+          } else if (a < -1e-6 * e || disc < -1e-6 * a * a) {
+            expect(outcome.ok).toBe(false);
+            if (!outcome.ok) expect(outcome.problems.map((p) => [p.code, p.elementId, p.field])).toEqual([['infeasible-load', 'load', 'current']]);
+          }
+        },
+      ),
+      { numRuns: 400 },
+    );
+  });
+});
