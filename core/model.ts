@@ -140,6 +140,11 @@ export interface RectifierStage extends FedElement {
   inputPowerFactor: number;
   inputPfSense?: PfSense;
   loss: LossModel;
+  /**
+   * Rated DC output current, A (the maker's datasheet). Changes nothing in the solve; sets the design
+   * current of the cable its output feeds (conductor sizing, charger output at 125 %).
+   */
+  ratedOutputCurrent?: number;
 }
 
 /** DC → DC converter, regulating its output. */
@@ -147,6 +152,13 @@ export interface DcDcStage extends FedElement {
   kind: 'dcdc';
   outputVoltage: number;
   loss: LossModel;
+  /**
+   * Rated continuous output power, W, and the lowest input voltage it runs at, V (the maker's
+   * datasheet). Change nothing in the solve; together they set the design current of the cable
+   * feeding it (rated output ÷ (efficiency × lowest input voltage), conductor sizing).
+   */
+  ratedOutputPower?: number;
+  minInputVoltage?: number;
 }
 
 /** A DC bus or distribution board: passes voltage through, with its own fixed loss. */
@@ -167,6 +179,12 @@ export interface InverterStage extends FedElement {
   surge?: { apparentPower: number; durationSeconds: number };
   /** DC input voltage at which the inverter shuts down, V (checked during a motor start). */
   lowVoltageCutoff?: number;
+  /**
+   * Rated continuous AC output power, W (the maker's datasheet). Changes nothing in the solve; with
+   * `lowVoltageCutoff` it sets the design current of the DC cable feeding the inverter (rated output ÷
+   * (efficiency × cut-off voltage), conductor sizing).
+   */
+  ratedOutputPower?: number;
 }
 
 /**
@@ -219,6 +237,11 @@ export interface DriveStage extends FedElement {
   currentThd?: number;
   /** Output rating the maker allows on a single-phase supply, VA (a three-phase drive fed single-phase is derated). */
   singlePhaseRating?: number;
+  /**
+   * Rated input current, A rms (the maker's datasheet). Changes nothing in the solve; sets the design
+   * current of the cable feeding the drive (125 %, NEC 430.122(A); conductor sizing).
+   */
+  ratedInputCurrent?: number;
 }
 
 /** Efficiency-class presets: IEC 60034-30-1 (4-pole 50 Hz) or NEMA Premium (MG 1 Table 12-12, 4-pole 60 Hz). */
@@ -425,6 +448,30 @@ export interface AcApparentLoad extends FedElement {
   pfSense?: PfSense;
 }
 
+/**
+ * Constant-CURRENT DC load, A: its current stays as given when the voltage sags, so it draws
+ * P = V·I at whatever voltage the solve finds (a battery charger in current limit, an LED driver,
+ * a heater element behind a current regulator, a load given on its label by its current).
+ */
+export interface DcCurrentLoad extends FedElement {
+  kind: 'dc-current-load';
+  /** Current drawn, A. */
+  current: number;
+}
+
+/**
+ * Constant-CURRENT AC load given by its rms line current and power factor: the current (and its
+ * angle to the voltage) stays as given when the voltage sags, so it draws S = V·I* per phase
+ * (S = V·I on single-phase, √3·V_LL·I on three-phase) at the solved voltage.
+ */
+export interface AcCurrentLoad extends FedElement {
+  kind: 'ac-current-load';
+  /** Rms line current, A. */
+  current: number;
+  powerFactor: number;
+  pfSense?: PfSense;
+}
+
 /** Mechanical load on a motor shaft, W. */
 export interface ShaftLoad extends FedElement {
   kind: 'shaft-load';
@@ -480,7 +527,7 @@ export interface PumpLoad extends FedElement, PumpCurve {
   control: 'speed' | 'throttle';
 }
 
-export type Load = DcLoad | AcPowerLoad | AcApparentLoad | ShaftLoad | NetworkLoad | PumpLoad;
+export type Load = DcLoad | AcPowerLoad | AcApparentLoad | DcCurrentLoad | AcCurrentLoad | ShaftLoad | NetworkLoad | PumpLoad;
 
 export type Element = Source | Stage | Load;
 export type ElementKind = Element['kind'];
@@ -526,7 +573,8 @@ export interface DropLimits {
 
 /**
  * How one load is set during a profile segment: a number is its power (W; VA for an
- * apparent-power load), `true` its power as given in the element, `false` off.
+ * apparent-power load; A for a load given by its current, `dc-current-load` and `ac-current-load`,
+ * which stays a constant-current load), `true` its value as given in the element, `false` off.
  */
 export type LoadSetting = number | boolean;
 

@@ -13,8 +13,8 @@ const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 $
 const nonNegative = (unit: string) => num().check(z.gte(0, `must not be negative ${unit}`.trim()));
 
 const loadsField = z.optional(
-  z.record(z.string(), z.union([nonNegative('W'), z.boolean()], { error: 'must be a power in W, true (on) or false (off)' }), {
-    error: 'must map load ids to a power in W, true or false',
+  z.record(z.string(), z.union([nonNegative(''), z.boolean()], { error: 'must be a power in W (a current in A for a load given by its current), true (on) or false (off)' }), {
+    error: 'must map load ids to a power in W (a current in A for a load given by its current), true or false',
   }),
 );
 
@@ -82,9 +82,12 @@ export const DEFAULT_HORIZON_H = 168;
 /** Most integration steps one study may take (keeps a run and its time series bounded). */
 export const MAX_STEPS = 1_000_000;
 
-const LOAD_KINDS = new Set<Element['kind']>(['dc-load', 'ac-load', 'ac-va-load', 'shaft-load']);
+const LOAD_KINDS = new Set<Element['kind']>(['dc-load', 'ac-load', 'ac-va-load', 'dc-current-load', 'ac-current-load', 'shaft-load']);
 
-/** A load of the project and its rated value (W; VA for an apparent-power load). */
+/**
+ * A load of the project and its rated value: W; VA for an apparent-power load; A for a load given by
+ * its current (a profile's number for it is a current too: the load stays constant-current).
+ */
 export interface ProfileLoad {
   id: string;
   rated: number;
@@ -94,7 +97,7 @@ export function profileLoads(project: Project): ProfileLoad[] {
   const out: ProfileLoad[] = [];
   for (const e of project.elements) {
     if (!LOAD_KINDS.has(e.kind)) continue;
-    const rated = e.kind === 'ac-va-load' ? e.apparentPower : (e as { power: number }).power;
+    const rated = e.kind === 'ac-va-load' ? e.apparentPower : e.kind === 'dc-current-load' || e.kind === 'ac-current-load' ? e.current : (e as { power: number }).power;
     out.push({ id: e.id, rated });
   }
   return out;
@@ -142,7 +145,7 @@ export interface Interval {
 
 export interface Timeline {
   loads: ProfileLoad[];
-  /** Distinct load states: the value of every load (in `loads` order), W (VA for apparent-power loads). */
+  /** Distinct load states: the value of every load (in `loads` order), W (VA for apparent-power loads, A for current loads). */
   states: number[][];
   intervals: Interval[];
   /** End of the timeline, s: the horizon, or the end of a `segments` profile run once. */

@@ -5,7 +5,8 @@
  *
  * Method (exact, not an approximation): a regulating converter's input power depends only on its
  * output power (P_in = P_out + loss(P_out), with the input power factor fixed), and a constant-power
- * load's on nothing, so neither depends on the bank voltage. For each distinct load state the
+ * load's on nothing, so neither depends on the bank voltage (a constant-current load does: P = V·I;
+ * next to the bank it sends the solve to the whole-chain sweep below). For each distinct load state the
  * whole chain is swept once (core/solve/sweep.ts); the input power of every "frontier" element —
  * the converters and loads nearest the bank — is then held. Each step re-solves only the passive
  * elements between the bank and that frontier (cables and DC buses) by the same backward/forward
@@ -58,17 +59,19 @@ export interface RepeatSolver {
   readonly loadIds: readonly string[];
   /** True when each step re-solves only the passive elements next to the bank. */
   readonly fast: boolean;
-  /** Sweep the chain once for a load state (values in `loadIds` order: W, VA for apparent-power loads). */
+  /** Sweep the chain once for a load state (values in `loadIds` order: W, VA for apparent-power loads, A for current loads). */
   prepare(values: readonly number[]): { ok: true; state: number } | { ok: false; problems: Problem[] };
   /** Operating point with the bank at open-circuit voltage `emf` behind `resistance`; null when the chain cannot be carried. */
   solve(state: number, emf: number, resistance: number): StepPoint | null;
 }
 
-const LOAD_FIELD: Partial<Record<Element['kind'], 'power' | 'apparentPower'>> = {
+const LOAD_FIELD: Partial<Record<Element['kind'], 'power' | 'apparentPower' | 'current'>> = {
   'dc-load': 'power',
   'ac-load': 'power',
   'shaft-load': 'power',
   'ac-va-load': 'apparentPower',
+  'dc-current-load': 'current',
+  'ac-current-load': 'current',
 };
 
 /** Plan a validated battery-fed project once for repeated solves. */
@@ -89,7 +92,9 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     if (!inTop[node.parent]) continue;
     const kind = node.element.kind;
     if (PASSIVE.has(kind)) inTop[i] = true;
-    else if (!(REGULATING.has(kind) || node.spec.role === 'load')) fast = false;
+    // A constant-current load next to the bank draws P = V·I at the bank-side voltage, which moves
+    // every step: not a fixed frontier power, so the whole chain is swept instead.
+    else if (!(REGULATING.has(kind) || (node.spec.role === 'load' && node.model.current === undefined))) fast = false;
   }
   const top: number[] = [];
   const topPos = new Map<number, number>();

@@ -9,9 +9,13 @@
  * between sweeps, then runs one last backward sweep so that every power matches the reported
  * voltages. Energy balance is exact by construction: each P_in is P_out + loss of the same sweep.
  */
-import { type Complex, ZERO, abs, add, scale, sub } from '../ac/complex.ts';
+import { type Complex, ZERO, abs, add, c, scale, sub } from '../ac/complex.ts';
 import type { Problem } from '../errors.ts';
+import type { Element } from '../model.ts';
 import type { PlannedElement } from './plan.ts';
+import type { DirectLoads } from '../stages/spec.ts';
+
+const ONE: Complex = c(1);
 
 /** Relative voltage change between sweeps at which the solve is taken as converged. */
 export const TOLERANCE = 1e-12;
@@ -46,28 +50,58 @@ function backward(order: readonly PlannedElement[], vOut: readonly Complex[], sI
   }
 }
 
+/** Direction (unit phasor) of a voltage: that of `v`, else of `fallback`, else the real axis. */
+function direction(v: Complex, fallback: Complex): Complex {
+  const m = abs(v);
+  if (m > 0) return scale(v, 1 / m);
+  const f = abs(fallback);
+  return f > 0 ? scale(fallback, 1 / f) : ONE;
+}
+
 /**
  * Returns the index of the first element whose output cannot be delivered, or −1. With `recover`,
  * such an element's voltage is halved instead and the sweep goes on (see `sweep`).
  */
-function forward(order: readonly PlannedElement[], sIn: readonly Complex[], sOut: readonly Complex[], vOut: Complex[], recover = false): number {
+function forward(
+  order: readonly PlannedElement[],
+  sIn: readonly Complex[],
+  sOut: readonly Complex[],
+  vOut: Complex[],
+  handover: readonly boolean[],
+  behindBus: readonly boolean[],
+  recover = false,
+  noLoad = false,
+): number {
   let bad = -1;
   for (let i = 0; i < order.length; i++) {
     const node = order[i]!;
+    const vIn = vInOf(order, vOut, i);
     // Constant-impedance loads fed directly from this output go to the link as their admittance
-    // (solved exactly); the rest of the output as the power they drew in the backward sweep.
-    let y: Complex | undefined;
+    // (solved exactly), constant-current loads (directly, or behind buses that pass the voltage on)
+    // as their current phasor relative to their voltage, with the direction of this output's
+    // voltage as last found (see seriesLink); the rest of the output as the power it drew in the
+    // backward sweep (a bus: its own loss and its other loads).
     let sConst = sOut[i]!;
-    for (const child of node.children) {
-      const a = order[child]!.model.admittance;
-      if (a === undefined) continue;
-      if (y === undefined) {
-        y = ZERO;
-        sConst = node.children.reduce((sum, ch) => (order[ch]!.model.admittance === undefined ? add(sum, sIn[ch]!) : sum), ZERO);
-      }
-      y = add(y, a);
+    let direct: DirectLoads | undefined;
+    if (handover[i]) {
+      let y = ZERO;
+      let j: Complex | undefined;
+      const collect = (n: number, top: boolean): Complex => {
+        let s = ZERO;
+        for (const child of order[n]!.children) {
+          const m = order[child]!.model;
+          if (top && m.admittance !== undefined) y = add(y, m.admittance);
+          else if (m.current !== undefined) {
+            if (!noLoad) j = add(j ?? ZERO, m.current);
+          } else if (behindBus[child]) s = add(add(s, sub(sIn[child]!, sOut[child]!)), collect(child, false));
+          else s = add(s, sIn[child]!);
+        }
+        return s;
+      };
+      sConst = collect(i, true);
+      direct = j === undefined ? y : { re: y.re, im: y.im, current: j, along: direction(vOut[i]!, vIn) };
     }
-    const v = node.model.outputVoltage(vInOf(order, vOut, i), sConst, y);
+    const v = node.model.outputVoltage(vIn, sConst, direct);
     if (v === null) {
       if (!recover) return i;
       if (bad < 0) bad = i;
@@ -79,22 +113,75 @@ function forward(order: readonly PlannedElement[], sIn: readonly Complex[], sOut
   return bad;
 }
 
-/** Σ of the loads' own power below element i (what the user asked it to carry). */
-function loadBelow(order: readonly PlannedElement[], sIn: readonly Complex[], i: number): number {
+/**
+ * What the user asked element i to carry: Σ power of the loads below it, W (constant-current loads
+ * not counted: their power follows the voltage), and Σ current of the constant-current loads, A.
+ */
+function loadBelow(order: readonly PlannedElement[], sIn: readonly Complex[], i: number): { watts: number; amps: number } {
   const node = order[i]!;
-  if (node.spec.role === 'load') return sIn[i]!.re;
-  return node.children.reduce((sum, child) => sum + loadBelow(order, sIn, child), 0);
+  if (node.model.current !== undefined) return { watts: 0, amps: abs(node.model.current) };
+  if (node.spec.role === 'load') return { watts: sIn[i]!.re, amps: 0 };
+  const total = { watts: 0, amps: 0 };
+  for (const child of node.children) {
+    const below = loadBelow(order, sIn, child);
+    total.watts += below.watts;
+    total.amps += below.amps;
+  }
+  return total;
 }
+
+/** Elements that pass a load's current on (scaled by a ratio at most): a current beyond them is still a current. */
+const PASS_THROUGH = new Set<Element['kind']>(['cable', 'dcbus', 'transformer']);
+
+/**
+ * The constant-current loads below element i when everything the link carries is such loads
+ * (through cables, buses and transformers only), or null: beside power loads or converters the
+ * link itself is named.
+ */
+function currentLoadsBehind(order: readonly PlannedElement[], i: number): number[] | null {
+  const found: number[] = [];
+  for (const child of order[i]!.children) {
+    const node = order[child]!;
+    if (node.model.current !== undefined) found.push(child);
+    else if (PASS_THROUGH.has(node.element.kind)) {
+      const below = currentLoadsBehind(order, child);
+      if (below === null) return null;
+      found.push(...below);
+    } else return null;
+  }
+  return found;
+}
+
+const amps = (a: number): string => `${Number(a.toPrecision(4))} A`;
 
 function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly Complex[]): Problem {
   const e = order[i]!.element;
-  const kw = loadBelow(order, sIn, i) / 1000;
+  const link = `"${e.name ?? e.id}"`;
+  // A current given by the user that the link cannot deliver is refused at that load's current
+  // (the largest, when several share the link).
+  const loads = currentLoadsBehind(order, i);
+  if (loads !== null && loads.length > 0) {
+    const k = loads.reduce((best, x) => (abs(order[x]!.model.current!) > abs(order[best]!.model.current!) ? x : best));
+    const load = order[k]!.element as Element & { current: number };
+    const others = loads.length === 1 ? '' : loads.length === 2 ? ' (with the other load given by its current beyond it)' : ` (with the other ${loads.length - 1} loads given by their current beyond it)`;
+    return {
+      code: 'infeasible-load',
+      elementId: load.id,
+      field: 'current',
+      value: load.current,
+      message: `${amps(load.current)} cannot be delivered through ${link}${others}: the voltage at the load would fall to nothing or collapse. Use a larger conductor, a shorter run, a higher voltage or less current`,
+    };
+  }
+  const below = loadBelow(order, sIn, i);
+  const kw = below.watts / 1000;
+  const current = below.amps > 0 ? ` and the ${amps(below.amps)} of loads given by their current` : '';
+  const what = below.watts === 0 && below.amps > 0 ? `the ${amps(below.amps)} of loads given by their current beyond it` : `the ${kw.toPrecision(3)} kW of load beyond it${current}`;
   return {
     code: 'infeasible-load',
     elementId: e.id,
     field: '',
-    value: kw * 1000,
-    message: `cannot carry the ${kw.toPrecision(3)} kW of load beyond it (plus the losses on the way): the voltage would collapse, past the most power this link can transfer. Use a larger conductor, a shorter run, a higher voltage or less load`,
+    value: below.watts,
+    message: `cannot carry ${what} (plus the losses on the way): the voltage would collapse, past the most power this link can transfer. Use a larger conductor, a shorter run, a higher voltage or less load`,
   };
 }
 
@@ -111,23 +198,42 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
   const vOut: Complex[] = new Array<Complex>(n).fill(ZERO);
   const sIn: Complex[] = new Array<Complex>(n).fill(ZERO);
   const sOut: Complex[] = new Array<Complex>(n).fill(ZERO);
-  forward(order, sIn, sOut, vOut); // no-load voltages (and the impedance loads directly on links) as the starting point
+  // No-load voltages (and the impedance loads directly on links) as the starting point; the
+  // constant-current loads join from the first sweep on.
+  // Which outputs hand loads to their link: admittances and currents of their own loads, and the
+  // currents behind buses that pass the voltage on (children come after their parent in `order`).
+  const behindBus = new Array<boolean>(n).fill(false);
+  const handover = new Array<boolean>(n).fill(false);
+  for (let i = n - 1; i >= 0; i--) {
+    const node = order[i]!;
+    const carries = node.children.some((ch) => order[ch]!.model.current !== undefined || behindBus[ch]!);
+    behindBus[i] = node.model.passesVoltage === true && carries;
+    handover[i] = carries || node.children.some((ch) => order[ch]!.model.admittance !== undefined);
+  }
+  forward(order, sIn, sOut, vOut, handover, behindBus, false, true);
   // A constant-impedance load draws its power at the previous sweep's voltage: starting from the
   // no-load voltage it asks for more than it will take, and a heavy one can ask a link for more
   // than it can transfer although the circuit has a solution. Then the overshooting link's voltage
   // is halved (its loads then draw a quarter) and the sweeps go on; only a link that stays past its
   // maximum transfer for RECOVERY_SWEEPS sweeps in a row is infeasible. Chains of constant-power
   // loads only approach their solution from above and need no recovery: infeasible at once.
-  const recover = order.some((node) => node.model.admittance !== undefined);
+  // Constant-current loads behind a bus (not directly on a link) draw their power at the previous
+  // sweep's voltage, from above as well: the same recovery and damping serve them.
+  const recover = order.some((node) => node.model.admittance !== undefined || node.model.current !== undefined);
   let overshoots = 0;
+  let firstBad = -1;
   let relax = 1;
   let residual = Infinity;
   for (let iter = 1; iter <= MAX_SWEEPS; iter++) {
     backward(order, vOut, sIn, sOut);
     const previous = vOut.slice();
-    const bad = forward(order, sIn, sOut, vOut, recover);
+    const bad = forward(order, sIn, sOut, vOut, handover, behindBus, recover);
     if (bad >= 0) {
-      if (!recover || ++overshoots >= RECOVERY_SWEEPS) return { ok: false, problems: [infeasible(order, bad, sIn)] };
+      // The element that failed first in this run of overshoots is named: the halving that follows
+      // can push the links upstream of it past their limit too (its input current grows as its
+      // voltage falls), which says nothing about them.
+      if (overshoots === 0) firstBad = bad;
+      if (!recover || ++overshoots >= RECOVERY_SWEEPS) return { ok: false, problems: [infeasible(order, firstBad, sIn)] };
       continue;
     }
     overshoots = 0;

@@ -17,6 +17,7 @@ export const dcbusKind = defineKind<DcBusStage>({
   }) as z.ZodMiniType<DcBusStage>,
   build: (e) => ({
     out: { kind: 'dc' },
+    passesVoltage: true,
     outputVoltage: (vIn) => vIn,
     inputPower: (sOut) => c(sOut.re + e.fixedLoss),
     report: () => ({ warnings: [] }),

@@ -14,6 +14,9 @@ export const dcdcKind = defineKind<DcDcStage>({
     from: fromField,
     outputVoltage: positive('V'),
     loss: lossModelSchema,
+    // Maker's ratings, read by conductor sizing only (the solve does not use them).
+    ratedOutputPower: z.optional(positive('W')),
+    minInputVoltage: z.optional(positive('V')),
   }) as z.ZodMiniType<DcDcStage>,
   check: (e) => checkLossModel(e.loss),
   build: (e) => regulatingConverter({ out: { kind: 'dc' }, outputVoltage: e.outputVoltage, inputKind: 'dc', loss: e.loss }),

@@ -59,6 +59,8 @@ export const driveKind = defineKind<DriveStage>({
     motorRatedFrequency: z.optional(positive('Hz')),
     currentThd: z.optional(z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative'), z.lte(3, 'must not exceed 3 (enter 0.35 for 35 %)'))),
     singlePhaseRating: z.optional(positive('VA')),
+    // Maker's rating, read by conductor sizing only (the solve does not use it).
+    ratedInputCurrent: z.optional(positive('A')),
   }) as z.ZodMiniType<DriveStage>,
   check(e) {
     if ((e.loss === undefined) === (e.standardLoss === undefined)) {

@@ -9,7 +9,7 @@ import { driveKind } from './drive.ts';
 import { genericKind } from './generic.ts';
 import { generatorKind, gridKind } from './grid.ts';
 import { inverterKind } from './inverter.ts';
-import { acLoadKind, acVaLoadKind, dcLoadKind, shaftLoadKind } from './loads.ts';
+import { acCurrentLoadKind, acLoadKind, acVaLoadKind, dcCurrentLoadKind, dcLoadKind, shaftLoadKind } from './loads.ts';
 import { motorKind } from './motor.ts';
 import { networkLoadKind } from './network-load.ts';
 import { pumpKind } from './pump.ts';
@@ -32,6 +32,8 @@ const all = [
   dcLoadKind,
   acLoadKind,
   acVaLoadKind,
+  dcCurrentLoadKind,
+  acCurrentLoadKind,
   shaftLoadKind,
   networkLoadKind,
   pumpKind,

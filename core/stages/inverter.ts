@@ -19,6 +19,8 @@ export const inverterKind = defineKind<InverterStage>({
     loss: lossModelSchema,
     surge: z.optional(surgeSchema),
     lowVoltageCutoff: z.optional(positive('V')),
+    // Maker's rating, read by conductor sizing only (the solve does not use it).
+    ratedOutputPower: z.optional(positive('W')),
   }) as z.ZodMiniType<InverterStage>,
   check: (e) => checkLossModel(e.loss),
   build: (e) =>

@@ -1,8 +1,13 @@
-/** Loads (leaves of the tree), all constant-power: their current rises as their voltage sags. */
+/**
+ * Loads (leaves of the tree). Most are constant-power: their current rises as their voltage sags.
+ * The two given by their current (`dc-current-load`, `ac-current-load`) are constant-CURRENT: the
+ * current and its angle to the voltage stay as given, so they draw P = V·I (DC) and S = V·I* per
+ * phase (S = V·I single-phase, √3·V_LL·I three-phase) at the solved voltage (constantCurrentLoad).
+ */
 import { z } from 'zod/mini';
-import type { AcApparentLoad, AcPowerLoad, DcLoad, ShaftLoad } from '../model.ts';
+import type { AcApparentLoad, AcCurrentLoad, AcPowerLoad, DcCurrentLoad, DcLoad, ShaftLoad } from '../model.ts';
 import { c } from '../ac/complex.ts';
-import { constantPowerLoad, defineKind, fromField, idField, nameField, nonNegative, pfSense, reactiveFromPf, unitFraction } from './spec.ts';
+import { constantCurrentLoad, constantPowerLoad, defineKind, fromField, idField, nameField, nonNegative, pfSense, reactiveFromPf, unitFraction } from './spec.ts';
 
 const base = { id: idField, name: nameField, from: fromField };
 
@@ -51,4 +56,32 @@ export const shaftLoadKind = defineKind<ShaftLoad>({
   accepts: () => ['shaft'],
   schema: z.strictObject({ ...base, kind: z.literal('shaft-load'), power: nonNegative('W') }) as z.ZodMiniType<ShaftLoad>,
   build: (e) => constantPowerLoad(c(e.power)),
+});
+
+export const dcCurrentLoadKind = defineKind<DcCurrentLoad>({
+  kind: 'dc-current-load',
+  role: 'load',
+  accepts: () => ['dc'],
+  schema: z.strictObject({ ...base, kind: z.literal('dc-current-load'), current: nonNegative('A') }) as z.ZodMiniType<DcCurrentLoad>,
+  build: (e) => constantCurrentLoad(c(e.current), 'dc'),
+});
+
+export const acCurrentLoadKind = defineKind<AcCurrentLoad>({
+  kind: 'ac-current-load',
+  role: 'load',
+  accepts: () => ['ac1', 'ac3'],
+  schema: z.strictObject({
+    ...base,
+    kind: z.literal('ac-current-load'),
+    current: nonNegative('A'),
+    powerFactor: unitFraction('power factor'),
+    pfSense,
+  }) as z.ZodMiniType<AcCurrentLoad>,
+  build(e, input) {
+    // The current phasor relative to the voltage: I·(cos φ − j·sin φ), lagging behind it (Q > 0) or
+    // leading (Q < 0), so that S = V·I* = |V|·I·(cos φ ± j·sin φ) per phase.
+    const sin = Math.sqrt(Math.max(0, 1 - e.powerFactor * e.powerFactor));
+    const im = e.pfSense === 'leading' ? sin : -sin;
+    return constantCurrentLoad(c(e.current * e.powerFactor, e.current * im), input!.kind);
+  },
 });

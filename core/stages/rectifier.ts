@@ -16,6 +16,8 @@ export const rectifierKind = defineKind<RectifierStage>({
     inputPowerFactor: unitFraction('power factor'),
     inputPfSense: pfSense,
     loss: lossModelSchema,
+    // Maker's rating, read by conductor sizing only (the solve does not use it).
+    ratedOutputCurrent: z.optional(positive('A')),
   }) as z.ZodMiniType<RectifierStage>,
   check: (e) => checkLossModel(e.loss),
   build: (e, input) =>

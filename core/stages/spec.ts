@@ -9,7 +9,7 @@ import { z } from 'zod/mini';
 import type { Element, ElementKind, PfSense, PortKind } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.ts';
-import { type Complex, ZERO, abs, add, c, conj, div, mul, scale } from '../ac/complex.ts';
+import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../ac/complex.ts';
 import { receivingVoltage } from '../ac/two-bus.ts';
 import { type PreparedLoss, prepareLoss, weightedEfficiency } from './loss-model.ts';
 
@@ -25,6 +25,18 @@ export interface PortInfo {
 export interface KindWarning {
   code: WarningCode;
   message: string;
+}
+
+/**
+ * What the loads fed directly from a series link draw besides constant power: the per-phase
+ * admittance Y of its constant-impedance loads (re, im; zero when none) and, when it has
+ * constant-current loads, `current`: the sum of their per-phase current phasors relative to the
+ * link's output voltage, with `along`: the direction (unit phasor) of that voltage as the sweep
+ * last found it.
+ */
+export interface DirectLoads extends Complex {
+  readonly current?: Complex;
+  readonly along?: Complex;
 }
 
 /** Details reported after the solve. */
@@ -48,16 +60,29 @@ export interface ElementModel {
    * Forward sweep: the output voltage phasor from the input voltage (null for a source) and the
    * output power. Returns null when the output power cannot be delivered (infeasible).
    * `y` is the per-phase admittance of constant-impedance loads fed directly from this output,
-   * whose power is then NOT in `sOut`; only elements whose output voltage depends on the load
+   * and `y.current` the per-phase current phasor of constant-current loads fed directly from it;
+   * the power of both is then NOT in `sOut`. Only elements whose output voltage depends on the load
    * (series links) use it.
    */
-  outputVoltage(vIn: Complex, sOut: Complex, y?: Complex): Complex | null;
+  outputVoltage(vIn: Complex, sOut: Complex, y?: DirectLoads): Complex | null;
   /**
    * Per-phase admittance Y of a constant-impedance load (its input power is m·|V|²·conj(Y)), given
    * so that the link feeding it can solve it exactly (see seriesLink) rather than at the previous
    * sweep's voltage.
    */
   readonly admittance?: Complex;
+  /**
+   * Per-phase current of a constant-current load as a phasor relative to its own voltage
+   * (I·(pf − j·sin φ) lagging, I on DC): its input power is m·|V|·conj(current). Given so that the
+   * link feeding it can take it as a current (see seriesLink) rather than as the power it drew at
+   * the previous sweep's voltage.
+   */
+  readonly current?: Complex;
+  /**
+   * True when the output voltage is the input voltage whatever the load (a DC bus): constant-current
+   * loads behind it are handed to the link feeding it like its own (see the sweep's forward pass).
+   */
+  readonly passesVoltage?: boolean;
   /** Backward sweep: total input complex power from the total output power and the voltages. */
   inputPower(sOut: Complex, vIn: Complex, vOut: Complex): Complex;
   /** Details once the operating point is known. */
@@ -181,8 +206,31 @@ export function seriesLink(z: Complex, kind: PortKind) {
      * With constant-impedance loads Y (per phase) beside the constant power S_p:
      * V_s = K·V_r + Z·conj(S_p/V_r), K = 1 + Z·Y. With W = K·V_r this is the two-bus equation
      * V_s = W + Z·conj(K)·conj(S_p/W), solved exactly; then V_r = W/K.
+     * Constant-current loads drawing J (per phase, held relative to V_r) add their drop Z·J
+     * (Ohm's law). Alone on the link (no S_p, no Y) they are solved exactly: with V_r = r·e^{jθ},
+     * V_s = e^{jθ}·(r + Z·J), so r = −Re(Z·J) + √(|V_s|² − Im(Z·J)²) and θ = arg V_s − arg(r + Z·J);
+     * no real r > 0 (the square root of a negative number, or r ≤ 0; on DC: I·R ≥ V_s) is a current
+     * the link cannot deliver. Beside other loads, J is set along the last V_r (`along`) and
+     * V_s − Z·J = K·V_r + Z·conj(S_p/V_r) solved as above: exact on DC, a fixed point in the angle
+     * on AC; a V_r that comes out against `along` is a current the link cannot deliver.
      */
-    outputVoltage: (vIn: Complex, sOut: Complex, y?: Complex): Complex | null => {
+    outputVoltage: (vIn: Complex, sOut: Complex, y?: DirectLoads): Complex | null => {
+      if (y?.current !== undefined) {
+        const zj = mul(z, y.current);
+        if (sOut.re === 0 && sOut.im === 0 && y.re === 0 && y.im === 0) {
+          const disc = vIn.re * vIn.re + vIn.im * vIn.im - zj.im * zj.im;
+          if (disc < 0) return null;
+          const r = Math.sqrt(disc) - zj.re;
+          if (!(r > 0)) return null;
+          return polar(r, arg(vIn) - arg(add(c(r), zj)));
+        }
+        const along = y.along ?? c(1);
+        const vs = sub(vIn, mul(zj, along));
+        const k = add(c(1), mul(z, y));
+        const w = receivingVoltage(vs, mul(z, conj(k)), scale(sOut, 1 / m));
+        const v = w === null ? null : div(w, k);
+        return v !== null && v.re * along.re + v.im * along.im > 0 ? v : null;
+      }
       if (y === undefined || (y.re === 0 && y.im === 0)) return receivingVoltage(vIn, z, scale(sOut, 1 / m));
       const k = add(c(1), mul(z, y));
       const w = receivingVoltage(vIn, mul(z, conj(k)), scale(sOut, 1 / m));
@@ -264,6 +312,23 @@ export function constantPowerLoad(s: Complex): ElementModel {
     out: null,
     outputVoltage: () => ZERO,
     inputPower: () => s,
+    report: () => ({ warnings: [] }),
+  };
+}
+
+/**
+ * A load drawing a constant current (magnitude and angle to its voltage): S = m·|V|·conj(J) with J
+ * the per-phase current phasor relative to the voltage (complex power S = V·I* per phase, the
+ * current held whatever the voltage). The link feeding it takes J as a current (seriesLink).
+ */
+export function constantCurrentLoad(j: Complex, kind: PortKind): ElementModel {
+  const m = phaseCount(kind);
+  const sPerVolt = scale(conj(j), m);
+  return {
+    out: null,
+    current: j,
+    outputVoltage: () => ZERO,
+    inputPower: (_sOut, vIn) => scale(sPerVolt, abs(vIn)),
     report: () => ({ warnings: [] }),
   };
 }

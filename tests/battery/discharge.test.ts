@@ -57,6 +57,40 @@ describe('profiles and duty cycling', () => {
   });
 });
 
+describe('loads given by their current', () => {
+  /** The flat 12 V bank feeding one constant-current load (and optionally a cable to it). */
+  const currentLoad = (current: number, study: Parameters<typeof directLoad>[2] = {}, resistancePerKm?: number): Project => {
+    const p = directLoad(flatBank(100, 20, 1), 0, study);
+    const load = { id: 'load', kind: 'dc-current-load', from: resistancePerKm === undefined ? 'bank' : 'run', current } as Element;
+    const run = { id: 'run', kind: 'cable', from: 'bank', length: 10, resistancePerKm } as Element;
+    p.elements = [p.elements[0]!, ...(resistancePerKm === undefined ? [] : [run]), load];
+    return p;
+  };
+
+  it('5 A from a flat, ideal 100 Ah bank with no Peukert effect runs 100 Ah / 5 A = 20 h, at 12 V × 5 A = 60 W (by hand)', () => {
+    const r = ok(currentLoad(5));
+    expect(r.runtimeIsLowerBound).toBe(false);
+    expect(r.runtimeSeconds / 3600).toBeCloseTo(20, 6);
+    expect(r.deliveredAh).toBeCloseTo(100, 6);
+    expect(r.loadWh).toBeCloseTo(12 * 100, 4);
+  });
+
+  it('a profile sets a current load in amperes: 2 h at 4 A, then 1 h at its own 10 A = 18 Ah, 216 Wh at 12 V (by hand)', () => {
+    const r = ok(currentLoad(10, { profile: { kind: 'segments', segments: [{ durationHours: 2, loads: { load: 4 } }, { durationHours: 1, loads: { load: true } }] } }));
+    expect(r.endReason).toBe('profile-complete');
+    expect(r.deliveredAh).toBeCloseTo(18, 9);
+    expect(r.loadWh).toBeCloseTo(216, 9);
+  });
+
+  it('behind a cable the current stays and the load gets V − I·R: 10 A through 0.1 Ω for 2 h = 20 Ah, (12 − 1) V × 10 A × 2 h = 220 Wh (Ohm’s law)', () => {
+    // Loop R = 2 × 10 m × 5 Ω/km = 0.1 Ω.
+    const r = ok(currentLoad(10, { profile: { kind: 'segments', segments: [{ durationHours: 2 }] } }, 5));
+    expect(r.deliveredAh).toBeCloseTo(20, 9);
+    expect(r.loadWh).toBeCloseTo(220, 9);
+    expect(r.chainLossWh).toBeCloseTo(10 * 10 * 0.1 * 2, 9); // I²R × t
+  });
+});
+
 describe('repeated solve agrees with the full engine', () => {
   /** Re-solve the chain with the bank replaced by its Thévenin equivalent at a state of charge, all loads on. */
   function engineAt(project: Project, soc: number) {

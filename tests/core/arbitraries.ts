@@ -2,8 +2,9 @@
  * Shared fast-check generators: random VALID power-chain projects built from every element kind.
  *
  * A tree is grown top-down from a source of a random kind; each child is drawn from the kinds that
- * accept the feeding port (DC → dcdc/dcbus/inverter/cable/generic/dc-load; AC → rectifier/
- * transformer/drive/motor/cable/generic/ac-load/ac-va-load; shaft → shaft-load). Series links are
+ * accept the feeding port (DC → dcdc/dcbus/inverter/cable/generic/dc-load/dc-current-load; AC →
+ * rectifier/transformer/drive/motor/cable/generic/ac-load/ac-va-load/ac-current-load; shaft →
+ * shaft-load). Series links are
  * then SIZED bottom-up from an estimate of the apparent power they carry, the way a designer sizes
  * them: each cable, source impedance and transformer gets a modest voltage drop (a few per cent),
  * so the constant-power loads stay well away from voltage collapse (a few runs may still be
@@ -265,6 +266,8 @@ export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT
   }
   if (port.kind === 'dc') {
     loads.push(fc.record({ power: loadPower, name: optionalName }).map(({ power, name }) => node(withOpt({ kind: 'dc-load', power, name }), load, null, [])));
+    // A load given by its current: the current that draws about the same power at the nominal voltage.
+    loads.push(fc.record({ power: loadPower, name: optionalName }).map(({ power, name }) => node(withOpt({ kind: 'dc-current-load', current: power / port.voltage, name }), load, null, [])));
     stages.push(
       fc.record({ v: dcVoltage, sizing: converterSizing(false) }).chain(({ v, sizing }) => {
         const out: GenPort = { kind: 'dc', voltage: v };
@@ -287,7 +290,12 @@ export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT
     const acVaLoad = fc
       .record({ s: loadPower, pf: uniform(0.6, 1), sense: pfSense })
       .map(({ s, pf, sense }) => node(withOpt({ kind: 'ac-va-load', apparentPower: s, powerFactor: pf, pfSense: sense }), load, null, []));
-    loads.push(acLoad, acVaLoad);
+    // S = V·I (1φ) or √3·V_LL·I (3φ) at the nominal voltage sets a current of about the same demand.
+    const lineCurrent = (s: number) => s / (port.kind === 'ac3' ? Math.sqrt(3) * port.voltage : port.voltage);
+    const acCurrentLoad = fc
+      .record({ s: loadPower, pf: uniform(0.6, 1), sense: pfSense, name: optionalName })
+      .map(({ s, pf, sense, name }) => node(withOpt({ kind: 'ac-current-load', current: lineCurrent(s), powerFactor: pf, pfSense: sense, name }), load, null, []));
+    loads.push(acLoad, acVaLoad, acCurrentLoad);
     if (opts.networkLoads) loads.push(networkLoadArb(port));
     stages.push(
       fc.record({ v: dcVoltage, sense: pfSense, sizing: converterSizing(true) }).chain(({ v, sense, sizing }) => {
@@ -404,6 +412,9 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
       case 'load':
         if (el['kind'] === 'ac-load') return (el['power'] as number) / (el['powerFactor'] as number);
         if (el['kind'] === 'ac-va-load') return el['apparentPower'] as number;
+        // A load given by its current: its apparent power at the nominal voltage of its port.
+        if (el['kind'] === 'dc-current-load') return (el['current'] as number) * input!.voltage;
+        if (el['kind'] === 'ac-current-load') return (el['current'] as number) * input!.voltage * (input!.kind === 'ac3' ? Math.sqrt(3) : 1);
         return el['power'] as number;
       case 'dcbus':
         el['fixedLoss'] = sz.fixedLoss;
@@ -489,7 +500,7 @@ export const projectArb: fc.Arbitrary<Project> = sourceArb.map((root) => toProje
 /** Random valid projects that also hold loads from circuit elements (network-load). */
 export const projectWithNetworksArb: fc.Arbitrary<Project> = sourceArbWith({ networkLoads: true }).map((root) => toProject(root));
 
-/** Scale every load's demand (power or apparent power) by `factor`. Returns a new project. */
+/** Scale every load's demand (power, apparent power or current) by `factor`. Returns a new project. */
 export function scaleLoads(project: Project, factor: number): Project {
   return {
     ...project,
@@ -501,6 +512,9 @@ export function scaleLoads(project: Project, factor: number): Project {
           return { ...e, power: e.power * factor };
         case 'ac-va-load':
           return { ...e, apparentPower: e.apparentPower * factor };
+        case 'dc-current-load':
+        case 'ac-current-load':
+          return { ...e, current: e.current * factor };
         default:
           return e;
       }

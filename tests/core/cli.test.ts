@@ -71,6 +71,31 @@ describe('command-line solver', () => {
     expect(r.stderr).toContain('element "heater", field "powerFactor": power factor must not exceed 1');
   }, 30_000);
 
+  it('prints a load given by its current, and refuses a current the cable cannot deliver at that load’s field', () => {
+    // Ohm's law: 30 A through the 0.0915 Ω loop (2 × 25 m × 1.83 Ω/km) leaves 48 − 2.745 = 45.255 V;
+    // 600 A would need 54.9 V of drop from 48 V.
+    const make = (current: number) => ({
+      format: 'joulepath-project',
+      version: 1,
+      name: 'current load',
+      elements: [
+        { id: 'bank', kind: 'battery', voltage: 48 },
+        { id: 'run', kind: 'cable', from: 'bank', length: 25, resistancePerKm: 1.83, name: 'Yard run' },
+        { id: 'charger', kind: 'dc-current-load', from: 'run', current, name: 'Charger in current limit' },
+      ],
+    });
+    const good = join(scratch, 'current-good.json');
+    writeFileSync(good, JSON.stringify(make(30)));
+    const ok = run(good);
+    expect(ok.status).toBe(0);
+    expect(ok.stdout).toMatch(/Yard run → Charger in current limit\s+DC\s+45\.26\s+30\.00\s+1357\.7/);
+    const bad = join(scratch, 'current-bad.json');
+    writeFileSync(bad, JSON.stringify(make(600)));
+    const refused = run(bad);
+    expect(refused.status).toBe(1);
+    expect(refused.stderr).toContain('element "charger", field "current": 600 A cannot be delivered through "Yard run"');
+  }, 30_000);
+
   it('exits 1 on a file that is not JSON, a missing file, and wrong arguments', () => {
     const file = join(scratch, 'not-json.json');
     writeFileSync(file, '{ this is not json');

@@ -508,3 +508,126 @@ describe('several problems at once', () => {
     ]);
   });
 });
+
+describe('loads given by their current', () => {
+  /** The fixture with a DC and an AC load given by their current. */
+  function withCurrentLoads(): Json {
+    const p = validProject();
+    p.elements.push({ id: 'charger', kind: 'dc-current-load', from: 'bank', current: 5 });
+    p.elements.push({ id: 'heat-trace', kind: 'ac-current-load', from: 'feed', current: 2, powerFactor: 0.95 });
+    return p;
+  }
+
+  it('the fixture with them solves', () => {
+    const outcome = solveProject(withCurrentLoads());
+    expect(outcome.ok ? [] : outcome.problems).toEqual([]);
+  });
+
+  // model.ts: a load given by its current draws a current, A ≥ 0 (as every load draws, never gives).
+  it.each([
+    ['charger', -1, /negative/],
+    ['heat-trace', -0.5, /negative/],
+    ['charger', '5 A', /number/],
+    ['heat-trace', Number.NaN, /number/],
+    ['charger', Number.POSITIVE_INFINITY, /number/],
+  ])('current: %s = %s', (id, value, says) => {
+    const p = withCurrentLoads();
+    el(p, id).current = value;
+    expectOnly(p, 'invalid-value', id, 'current', says);
+  });
+
+  it('a missing current is named', () => {
+    const p = withCurrentLoads();
+    delete el(p, 'charger').current;
+    expectOnly(p, 'invalid-value', 'charger', 'current', /required/);
+  });
+
+  // Power factor = P/S lies in (0, 1] (definition; model.ts unitFraction).
+  it.each([
+    [0, /greater than 0/],
+    [1.2, /not exceed 1/],
+  ])('AC current load power factor %s', (value, says) => {
+    const p = withCurrentLoads();
+    el(p, 'heat-trace').powerFactor = value;
+    expectOnly(p, 'invalid-value', 'heat-trace', 'powerFactor', says);
+  });
+
+  it('a DC current load on an AC port, and an AC one on DC, are refused at "from"', () => {
+    const p = withCurrentLoads();
+    el(p, 'charger').from = 'inv1';
+    el(p, 'heat-trace').from = 'conv';
+    expect(problemsOf(p).map((x) => `${x.code}:${x.elementId}:${x.field}`).sort()).toEqual(['kind-mismatch:charger:from', 'kind-mismatch:heat-trace:from']);
+  });
+
+  it('a current the cable cannot deliver is refused at the load’s current, naming the cable', () => {
+    // Ohm's law: 1 Ω of loop resistance cannot pass 60 A from a 48 V bank (60 V of drop).
+    const p = withCurrentLoads();
+    p.elements.push({ id: 'run', kind: 'cable', from: 'bank', length: 50, resistancePerKm: 10, name: 'Yard run' });
+    p.elements.push({ id: 'winch', kind: 'dc-current-load', from: 'run', current: 60 });
+    const prob = expectOnly(p, 'infeasible-load', 'winch', 'current', /60 A cannot be delivered through "Yard run"/);
+    expect(prob.value).toBe(60);
+  });
+
+  it('behind a bus the load’s current is refused too, and beside a power load the cable is named with both demands', () => {
+    // Ohm's law: 1 Ω cannot pass 60 A (60 V of drop) from 48 V, whatever else shares the run.
+    const p = withCurrentLoads();
+    p.elements.push({ id: 'run', kind: 'cable', from: 'bank', length: 50, resistancePerKm: 10, name: 'Yard run' });
+    p.elements.push({ id: 'board', kind: 'dcbus', from: 'run', fixedLoss: 2 });
+    p.elements.push({ id: 'winch', kind: 'dc-current-load', from: 'board', current: 60 });
+    p.elements.push({ id: 'lamp2', kind: 'dc-current-load', from: 'board', current: 1 });
+    expectOnly(p, 'infeasible-load', 'winch', 'current', /60 A cannot be delivered through "Yard run" \(with the other load given by its current/);
+    el(p, 'lamp2').kind = 'dc-load';
+    el(p, 'lamp2').power = 20;
+    delete el(p, 'lamp2').current;
+    expectOnly(p, 'infeasible-load', 'run', '', /kW of load beyond it and the 60 A of loads given by their current/);
+  });
+});
+
+describe('equipment ratings (read by conductor sizing; the solve ignores them)', () => {
+  const grid3 = { id: 'sup', kind: 'grid', phases: 3, voltage: 400, frequency: 50 };
+  /** A project holding each rated kind once. */
+  function rated(): Json {
+    return {
+      format: 'joulepath-project',
+      version: 1,
+      name: 'Ratings fixture',
+      elements: [
+        grid3,
+        { id: 'vfd', kind: 'drive', from: 'sup', outputVoltage: 400, outputFrequency: 50, inputPowerFactor: 0.95, loss: { model: 'constant', efficiency: 0.97 } },
+        { id: 'mot', kind: 'motor', from: 'vfd', ratedOutput: 7500, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 },
+        { id: 'fan', kind: 'shaft-load', from: 'mot', power: 5000 },
+        { id: 'chg', kind: 'rectifier', from: 'sup', outputVoltage: 54, inputPowerFactor: 0.99, loss: { model: 'constant', efficiency: 0.92 } },
+        { id: 'conv', kind: 'dcdc', from: 'chg', outputVoltage: 12, loss: { model: 'constant', efficiency: 0.94 } },
+        { id: 'lamp', kind: 'dc-load', from: 'conv', power: 60 },
+        { id: 'inv', kind: 'inverter', from: 'chg', phases: 1, outputVoltage: 230, frequency: 50, loss: { model: 'constant', efficiency: 0.95 } },
+        { id: 'sockets', kind: 'ac-load', from: 'inv', power: 300, powerFactor: 0.9 },
+      ],
+    };
+  }
+  const RATINGS: [string, string, number][] = [
+    ['vfd', 'ratedInputCurrent', 14.9],
+    ['inv', 'ratedOutputPower', 3000],
+    ['chg', 'ratedOutputCurrent', 40],
+    ['conv', 'ratedOutputPower', 240],
+    ['conv', 'minInputVoltage', 40],
+  ];
+
+  it('given, they change nothing in the solve', () => {
+    const plain = solveProject(rated());
+    const p = rated();
+    for (const [id, field, value] of RATINGS) el(p, id)[field] = value;
+    const withRatings = solveProject(p);
+    expect(plain.ok).toBe(true);
+    expect(withRatings).toStrictEqual(plain);
+  });
+
+  // Ratings are positive, finite amounts (model.ts).
+  it.each(RATINGS.flatMap(([id, field]) => [[id, field, 0, /greater than 0/] as const, [id, field, -3, /greater than 0/] as const, [id, field, Number.POSITIVE_INFINITY, /number/] as const]))(
+    '%s.%s = %s is refused',
+    (id, field, value, says) => {
+      const p = rated();
+      el(p, id)[field] = value;
+      expectOnly(p, 'invalid-value', id, field, says);
+    },
+  );
+});

@@ -53,10 +53,13 @@ function expectClose(actual: number, expected: number, scale: number, what: stri
 
 const byId = (r: SolveResult) => new Map(r.elements.map((e) => [e.id, e]));
 
-/** The demand a constant-power load declares, W. */
-function declaredLoadPower(project: Project, id: string): number {
+/** The demand a constant-power load declares, W; undefined for a load given by its current. */
+function declaredLoadPower(project: Project, id: string): number | undefined {
   const e = project.elements.find((x) => x.id === id)!;
   switch (e.kind) {
+    case 'dc-current-load':
+    case 'ac-current-load':
+      return undefined;
     case 'dc-load':
     case 'ac-load':
     case 'shaft-load':
@@ -97,8 +100,18 @@ describe('energy balance over random chains of every element kind', () => {
         for (const e of r.elements) {
           expectClose(e.pIn, e.pOut + e.loss, Math.max(Math.abs(e.pIn), Math.abs(e.pOut)), `${e.id} pIn = pOut + loss`);
           if (e.role === 'load') {
-            // A constant-power load draws what it declares, whatever its voltage.
-            expectClose(e.pIn, declaredLoadPower(project, e.id), e.pIn, `${e.id} load power`);
+            // A constant-power load draws what it declares, whatever its voltage; a constant-current
+            // load its current, so P = V·I·pf at its solved voltage (P = V·I on DC; S = V·I on
+            // single-phase, √3·V_LL·I on three-phase — checked with the ports in (d)).
+            const declared = declaredLoadPower(project, e.id);
+            if (declared !== undefined) expectClose(e.pIn, declared, e.pIn, `${e.id} load power`);
+            else {
+              const spec = project.elements.find((x) => x.id === e.id)! as { current: number; powerFactor?: number };
+              expectClose(e.input!.current, spec.current, spec.current, `${e.id} load current`);
+              const m = e.input!.kind === 'ac3' ? SQRT3 : 1;
+              const pf = spec.powerFactor ?? 1;
+              expectClose(e.pIn, m * e.input!.voltage * spec.current * pf, e.pIn, `${e.id} load power = V·I·pf`);
+            }
             expect(e.feeds).toEqual([]);
             continue;
           }
@@ -323,7 +336,7 @@ describe('port consistency', () => {
             if (pf < 1 - 1e-9) expect(e.input!.pfSense, `${e.id} input pf sense`).toBe(sense);
           }
           // A load draws at its declared power factor and sense.
-          if ((spec.kind === 'ac-load' || spec.kind === 'ac-va-load') && e.pIn > 0) {
+          if ((spec.kind === 'ac-load' || spec.kind === 'ac-va-load' || spec.kind === 'ac-current-load') && e.pIn > 0) {
             expectClose(e.input!.powerFactor, spec.powerFactor, 1, `${e.id} load power factor`);
             if (spec.powerFactor < 1 - 1e-9) expect(e.input!.pfSense, `${e.id} load pf sense`).toBe(spec.pfSense ?? 'lagging');
           }

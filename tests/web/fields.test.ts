@@ -99,9 +99,11 @@ function chainFor(kind: ElementKind): FormElement[] {
     case 'generic':
       return [dc, me('src'), { id: 'load', kind: 'dc-load', from: 'me', power: 200 }];
     case 'dc-load':
+    case 'dc-current-load':
       return [dc, me('src')];
     case 'ac-load':
     case 'ac-va-load':
+    case 'ac-current-load':
     case 'network-load':
       return [grid1, me('src')];
     case 'shaft-load':
@@ -236,5 +238,27 @@ describe('the project form', () => {
       const checked = validateProject(p);
       expect(checked.ok ? [] : checked.problems, f.path).toEqual([]);
     }
+  });
+});
+
+describe('equipment ratings and loads given by their current', () => {
+  // The ratings conductor sizing reads (issue 14): optional, in the trade's units, with help that says
+  // where the figure comes from and what it sets (common practice (no source): wording of the brief).
+  it.each([
+    ['drive', 'ratedInputCurrent', 'current'],
+    ['inverter', 'ratedOutputPower', 'power-rating'],
+    ['rectifier', 'ratedOutputCurrent', 'current'],
+    ['dcdc', 'ratedOutputPower', 'power-rating'],
+    ['dcdc', 'minInputVoltage', 'voltage'],
+  ] as const)('%s.%s is an optional %s field from the maker’s datasheet that sets a cable’s design current', (kind, path, quantity) => {
+    const f = allFields(KIND_FORMS[kind].fields).find((x) => x.type !== 'group' && x.path === path);
+    expect(f).toMatchObject({ type: 'number', quantity, required: false });
+    expect(f!.help).toMatch(/maker’s datasheet/);
+    expect(f!.help).toMatch(/design current of the cable/);
+  });
+
+  it.each(['dc-current-load', 'ac-current-load'] as const)('%s asks for a current in amperes', (kind) => {
+    const f = allFields(KIND_FORMS[kind].fields).find((x) => x.type !== 'group' && x.path === 'current');
+    expect(f).toMatchObject({ type: 'number', quantity: 'current', required: true });
   });
 });

@@ -91,8 +91,8 @@ describe('templates after every plausible feeding port', () => {
       const p = project([source(key)]);
       return templatesAfter({ port: nominalPorts(p).get(p.elements[0]!.id)!, project: p }).map((t) => t.kind).sort();
     };
-    expect(kindsAt('battery-48')).toEqual(['cable', 'dc-load', 'dcbus', 'dcdc', 'generic', 'inverter']);
-    expect(kindsAt('grid-3-400')).toEqual(['ac-load', 'ac-va-load', 'cable', 'drive', 'generic', 'motor', 'network-load', 'rectifier', 'transformer']);
+    expect(kindsAt('battery-48')).toEqual(['cable', 'dc-current-load', 'dc-load', 'dcbus', 'dcdc', 'generic', 'inverter']);
+    expect(kindsAt('grid-3-400')).toEqual(['ac-current-load', 'ac-load', 'ac-va-load', 'cable', 'drive', 'generic', 'motor', 'network-load', 'rectifier', 'transformer']);
     const shaft = templatesAfter({ port: { kind: 'shaft' } }).map((t) => t.kind).sort();
     expect(shaft).toEqual(['pump', 'shaft-load']);
     // Sources are never offered as a stage.
@@ -102,6 +102,8 @@ describe('templates after every plausible feeding port', () => {
   it('a kind that cannot take the port has no template there', () => {
     expect(templateFor('inverter', { port: { kind: 'ac3', voltage: 400, frequency: 50 } })).toBeNull();
     expect(templateFor('dc-load', { port: { kind: 'ac1', voltage: 230, frequency: 50 } })).toBeNull();
+    expect(templateFor('dc-current-load', { port: { kind: 'ac3', voltage: 400, frequency: 50 } })).toBeNull();
+    expect(templateFor('ac-current-load', { port: { kind: 'dc', voltage: 48 } })).toBeNull();
     expect(templateFor('motor', { port: { kind: 'dc', voltage: 48 } })).toBeNull();
     expect(templateFor('pump', { port: { kind: 'dc', voltage: 48 } })).toBeNull();
     expect(templateFor('cable', { port: { kind: 'shaft' } })).toBeNull();

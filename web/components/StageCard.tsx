@@ -8,7 +8,7 @@ import { memo } from 'preact/compat';
 import type { ElementResult } from '../../core/result.ts';
 import type { FeedingPort } from '../editor/templates.ts';
 import { elementKindLabel, portKindLabel } from '../format/labels.ts';
-import { formatApparent, formatFrequency, formatPercent, formatPower, formatVoltage } from '../format/number.ts';
+import { formatApparent, formatCurrent, formatFrequency, formatPercent, formatPower, formatVoltage } from '../format/number.ts';
 import { formatLength, formatShaftPower, type UnitSystem } from '../format/units.ts';
 import type { DraftElement } from '../state/editor.ts';
 
@@ -128,6 +128,13 @@ export function keyInputs(e: DraftElement, input: FeedingPort | undefined, units
           .filter(Boolean)
           .join(', '),
       );
+      break;
+    }
+    case 'dc-current-load':
+    case 'ac-current-load': {
+      const i = num(e['current']);
+      const pf = e.kind === 'ac-current-load' ? num(e['powerFactor']) : undefined;
+      lines.push([i !== undefined ? formatCurrent(i, locale) : undefined, pf !== undefined ? `pf ${pf}` : undefined].filter(Boolean).join(', '));
       break;
     }
     case 'network-load':

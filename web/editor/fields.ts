@@ -504,6 +504,13 @@ const batteryForm: KindForm = {
 
 // ---------- stages ----------
 
+/**
+ * An equipment rating from the maker's datasheet (optional). The solve does not use it; conductor
+ * sizing takes the design current of the cable next to the equipment from it.
+ */
+const ratingField = (path: string, label: string, quantity: Quantity, help: string): NumberSpec => ({ type: 'number', path, label, quantity, required: false, help });
+const DESIGN_CURRENT_HELP = 'From the maker’s datasheet; sets the design current of the cable feeding it.';
+
 const rectifierForm: KindForm = {
   kind: 'rectifier',
   fields: [
@@ -512,10 +519,20 @@ const rectifierForm: KindForm = {
     powerFactor('inputPowerFactor', 'Input power factor (0–1)', true, 0.99),
     pfSense('inputPfSense', 'Input power factor sense'),
     lossGroup(),
+    ratingField('ratedOutputCurrent', 'Rated DC output current', 'current', 'From the maker’s datasheet; sets the design current of the cable its output feeds.'),
   ],
 };
 
-const dcdcForm: KindForm = { kind: 'dcdc', fields: [name, voltage('outputVoltage', 'Output voltage', 12), lossGroup()] };
+const dcdcForm: KindForm = {
+  kind: 'dcdc',
+  fields: [
+    name,
+    voltage('outputVoltage', 'Output voltage', 12),
+    lossGroup(),
+    ratingField('ratedOutputPower', 'Rated continuous output power', 'power-rating', DESIGN_CURRENT_HELP),
+    ratingField('minInputVoltage', 'Lowest input voltage', 'voltage', 'From the maker’s datasheet (the bottom of its input range); with the rated output it sets the design current of the cable feeding it.'),
+  ],
+};
 
 const dcbusForm: KindForm = {
   kind: 'dcbus',
@@ -542,6 +559,7 @@ const inverterForm: KindForm = {
     frequency('frequency', 'Output frequency'),
     lossGroup(),
     { type: 'number', path: 'lowVoltageCutoff', label: 'Low-voltage cut-off (DC input)', quantity: 'voltage', required: false, help: 'Where it shuts down; checked while a motor starts.' },
+    ratingField('ratedOutputPower', 'Rated continuous output power', 'power-rating', 'From the maker’s datasheet; with the low-voltage cut-off it sets the design current of the cable feeding it.'),
     optionalBlock(
       'surge',
       'Surge rating',
@@ -598,6 +616,7 @@ const driveForm: KindForm = {
       required: false,
       help: 'The maker’s derated figure when a three-phase drive is fed single-phase.',
     },
+    ratingField('ratedInputCurrent', 'Rated input current', 'current', DESIGN_CURRENT_HELP),
     {
       type: 'group',
       key: 'drive-loss',
@@ -1140,6 +1159,24 @@ const acVaLoadForm: KindForm = {
   ],
 };
 
+/** A load given by its current keeps that current when the voltage sags (constant current). */
+const CURRENT_LOAD_HELP = 'The current stays at this value when the voltage sags; the power drawn follows the voltage.';
+
+const dcCurrentLoadForm: KindForm = {
+  kind: 'dc-current-load',
+  fields: [name, { type: 'number', path: 'current', label: 'Current drawn', quantity: 'current', required: true, default: 2, help: CURRENT_LOAD_HELP }],
+};
+
+const acCurrentLoadForm: KindForm = {
+  kind: 'ac-current-load',
+  fields: [
+    name,
+    { type: 'number', path: 'current', label: 'Line current drawn (rms)', quantity: 'current', required: true, default: 4, help: CURRENT_LOAD_HELP },
+    powerFactor('powerFactor', undefined, true, 0.9),
+    pfSense('pfSense'),
+  ],
+};
+
 const shaftLoadForm: KindForm = {
   kind: 'shaft-load',
   fields: [name, { type: 'number', path: 'power', label: 'Shaft power', quantity: 'shaft-power', required: true, default: 5000 }],
@@ -1214,6 +1251,8 @@ export const KIND_FORMS: Readonly<Record<ElementKind, KindForm>> = {
   'dc-load': dcLoadForm,
   'ac-load': acLoadForm,
   'ac-va-load': acVaLoadForm,
+  'dc-current-load': dcCurrentLoadForm,
+  'ac-current-load': acCurrentLoadForm,
   'shaft-load': shaftLoadForm,
   'network-load': networkLoadForm,
   pump: pumpForm,

@@ -246,6 +246,13 @@ export function templateFor(kind: ElementKind, ctx: TemplateContext): DraftEleme
     case 'ac-va-load':
       if (ac) t = { id: 'load', kind, apparentPower: 1000, powerFactor: 0.8 };
       break;
+    case 'dc-current-load':
+      // A few amperes: a small DC load given by its label current (a planning example to replace).
+      if (port.kind === 'dc') t = { id: 'dc-load', kind, current: 2 };
+      break;
+    case 'ac-current-load':
+      if (ac) t = { id: 'load', kind, current: 4, powerFactor: 0.9 };
+      break;
     case 'network-load':
       if (ac) t = { id: 'rl-load', kind, network: { series: [{ resistor: '50 Ω' }, { inductor: '50 mH' }] } };
       break;

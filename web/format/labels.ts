@@ -18,6 +18,8 @@ const ELEMENT_KIND_LABELS: Record<ElementKind, string> = {
   'dc-load': 'DC load',
   'ac-load': 'AC load',
   'ac-va-load': 'AC load (VA)',
+  'dc-current-load': 'DC load (amperes)',
+  'ac-current-load': 'AC load (amperes)',
   'shaft-load': 'Shaft load',
   pump: 'Pump',
 };
