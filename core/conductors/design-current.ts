@@ -89,12 +89,15 @@ export function terminals(ctx: DesignContext, id: string): Element[] {
   return out;
 }
 
-/** The equipment feeding a link: the first non-passive element above it. */
+/**
+ * The equipment whose output a link carries: up through cables only. A DC bus is a branch point,
+ * so a cable beyond it is a branch of the bus, not the equipment's output circuit.
+ */
 function feeder(ctx: DesignContext, e: Element): Element | undefined {
   let at: Element | undefined = e;
   while (at && 'from' in at) {
     const up = ctx.byId.get(at.from);
-    if (!up || !PASSIVE.has(up.kind)) return up;
+    if (!up || up.kind !== 'cable') return up;
     at = up;
   }
   return undefined;
@@ -170,13 +173,6 @@ function efficiencyAtRated(loss: Parameters<typeof prepareLoss>[0], p: number): 
   return p / (p + l);
 }
 
-interface Rated {
-  ratedInputCurrent?: number;
-  ratedOutputPower?: number;
-  ratedOutputCurrent?: number;
-  minInputVoltage?: number;
-}
-
 type EquipmentBasis = { ok: true; design: DesignCurrent } | { ok: false; missing: string } | null;
 
 /** The equipment rule for what the link feeds (and what feeds it); null when no rule applies. */
@@ -227,23 +223,23 @@ function equipmentBasis(ctx: DesignContext, link: Element, spec: ConductorSpec, 
   }
   if (ends.length === 1) {
     const end = ends[0]!;
-    const r = end as Element & Rated;
     if (end.kind === 'drive') {
-      if (r.ratedInputCurrent === undefined) missing.push(`drive ${nameOf(end)}: enter its rated input current`);
+      const rated = end.ratedInputCurrent;
+      if (rated === undefined) missing.push(`drive ${nameOf(end)}: enter its rated input current`);
       else
         found.push({
           basis: 'drive-input',
-          base: r.ratedInputCurrent,
+          base: rated,
           factor: f,
-          design: r.ratedInputCurrent * f,
+          design: rated * f,
           stacked: true,
-          rule: nec ? `125 % of the drive's rated input current, ${r.ratedInputCurrent} A (NEC 430.122(A))` : `the drive's rated input current, ${r.ratedInputCurrent} A, as I_B`,
+          rule: nec ? `125 % of the drive's rated input current, ${rated} A (NEC 430.122(A))` : `the drive's rated input current, ${rated} A, as I_B`,
         });
     }
     if ((end.kind === 'inverter' || end.kind === 'dcdc') && kind === 'dc') {
       const inv = end.kind === 'inverter';
-      const p = r.ratedOutputPower ?? end.loss.ratedPower;
-      const vMin = inv ? (end as { lowVoltageCutoff?: number }).lowVoltageCutoff : r.minInputVoltage;
+      const p = end.ratedOutputPower ?? end.loss.ratedPower;
+      const vMin = end.kind === 'inverter' ? end.lowVoltageCutoff : end.minInputVoltage;
       const what = inv ? 'inverter' : 'DC-DC converter';
       if (p === undefined) missing.push(`${what} ${nameOf(end)}: enter its rated continuous output`);
       if (vMin === undefined) missing.push(`${what} ${nameOf(end)}: enter its ${inv ? 'low-voltage cut-off' : 'lowest input voltage'}`);
@@ -265,16 +261,16 @@ function equipmentBasis(ctx: DesignContext, link: Element, spec: ConductorSpec, 
   }
   const up = feeder(ctx, link);
   if (up?.kind === 'rectifier' && kind === 'dc') {
-    const r = up as Element & Rated;
-    if (r.ratedOutputCurrent === undefined) missing.push(`charger ${nameOf(up)}: enter its rated output current`);
+    const rated = up.ratedOutputCurrent;
+    if (rated === undefined) missing.push(`charger ${nameOf(up)}: enter its rated output current`);
     else
       found.push({
         basis: 'charger-output',
-        base: r.ratedOutputCurrent,
+        base: rated,
         factor: f,
-        design: r.ratedOutputCurrent * f,
+        design: rated * f,
         stacked: false,
-        rule: nec ? `125 % of the charger's rated output current, ${r.ratedOutputCurrent} A (NEC 706.30, the equipment's rating)` : `the charger's rated output current, ${r.ratedOutputCurrent} A, as I_B`,
+        rule: nec ? `125 % of the charger's rated output current, ${rated} A (NEC 706.30, the equipment's rating)` : `the charger's rated output current, ${rated} A, as I_B`,
       });
   }
   if (found.length) {

@@ -168,3 +168,38 @@ describe('parallel sets (NEC 310.10(G), 310.15(C)(1))', () => {
     expect(c.size).toBe('1/0 AWG'); // 10 A would fit 14 AWG, but parallel conductors start at 1/0 AWG
   });
 });
+
+describe('equipment ratings: drive input, charger output, DC-DC input', () => {
+  it('a drive’s input conductors: 125 % of its rated input current (NEC 430.122(A)), whatever the motor draws today', () => {
+    const c = cond([
+      grid480,
+      { id: 'run', kind: 'cable', from: 'src', length: 10, conductor: nec() },
+      { id: 'vfd', kind: 'drive', from: 'run', outputVoltage: 460, outputFrequency: 45, inputPowerFactor: 0.95, ratedInputCurrent: 27, loss: { model: 'constant', efficiency: 0.97 } },
+      ...motor('m', 'vfd', 15),
+    ]);
+    expect(c.designBasis.basis).toBe('drive-input');
+    expect(c.designCurrent).toBeCloseTo(1.25 * 27, 12); // 430.122(A), hand
+    // A 35 A circuit → 60 °C column (110.14(C)(1)(a)): 10 AWG 30 A < 33.75 A ≤ 8 AWG 40 A (Table 310.16)
+    expect(c.size).toBe('8 AWG');
+    expect(c.device.rating).toBe(35); // smallest 240.6(A) rating ≥ 33.75 A, ≤ 40 A
+  });
+
+  it('a charger’s output: 125 % of its rated output current; a DC-DC converter’s input: rated output / (η × lowest input voltage) × 1.25', () => {
+    const elements = [
+      { id: 'src', kind: 'grid', phases: 1, voltage: 240, frequency: 60 },
+      { id: 'chg', kind: 'rectifier', from: 'src', outputVoltage: 54, inputPowerFactor: 0.99, ratedOutputCurrent: 40, loss: { model: 'constant', efficiency: 0.94 } },
+      { id: 'run', kind: 'cable', from: 'chg', length: 3, conductor: nec() },
+      { id: 'bus', kind: 'dcbus', from: 'run', fixedLoss: 0 },
+      { id: 'feed', kind: 'cable', from: 'bus', length: 3, conductor: nec() },
+      { id: 'conv', kind: 'dcdc', from: 'feed', outputVoltage: 12, ratedOutputPower: 600, minInputVoltage: 42, loss: { model: 'constant', efficiency: 0.9 } },
+      { id: 'ld', kind: 'dc-load', from: 'conv', power: 200 },
+      { id: 'lamp', kind: 'dc-load', from: 'bus', power: 300 },
+    ];
+    const charger = cond(elements, 'run');
+    expect(charger.designBasis.basis).toBe('charger-output');
+    expect(charger.designCurrent).toBeCloseTo(50, 12); // 1.25 × 40 A (hand)
+    const feed = cond(elements, 'feed');
+    expect(feed.designBasis.basis).toBe('dcdc-input');
+    expect(feed.designCurrent).toBeCloseTo((1.25 * 600) / (0.9 * 42), 9); // 19.84 A (hand)
+  });
+});

@@ -210,7 +210,10 @@ export const SIZING_EXAMPLES: SizingExample[] = [
     kind: 'dc',
     source: 'blog post "Wire sizing between inverter & battery in stand-alone PV system" (blogspot, May 2010), NEC 690.8 method',
     book: '2500 W / 0.85 / 22 V = 134 A; × 1.25 = 167 A; 41–45 °C: 60 °C column factor 0.71 → 167 / 0.71 = 235 A → 300 kcmil',
-    working: '2500 / (0.85 × 22) × 1.25 = 167.11 A; 60 °C insulation at 45 °C: Table 310.15(B)(1)(1) 0.71; 250 kcmil 215 × 0.71 = 152.7 A < 167.1, 300 kcmil 240 × 0.71 = 170.4 A → 300 kcmil; device: 170.4 A is not a standard rating → next higher 175 A (240.4(B))',
+    working:
+      '2500 / (0.85 × 22) = 133.7 A, × 1.25 = 167.11 A. NEC 2023 690.8(B): the larger of 125 % without correction (167.1 A ≤ 250 kcmil 60 °C 215 A) and 100 % with correction (133.7 A ≤ 215 × 0.71 = 152.7 A): 250 kcmil carries it. 4/0: ampacity min(195 × 0.71, 195) = 138.5 A; the 175 A device (smallest 240.6(A) ≥ 167.1 A) is not the next rating above 138.5 A (150 A), so 240.4(B) does not allow it: protection governs. 250 kcmil: 152.7 A, next rating above is 175 A (240.4(B)).',
+    differs:
+      'the page (2010) stacks the 125 % with the 0.71 correction (167 / 0.71 = 235 A → 300 kcmil), as editions before 690.8(B) was split into (1) and (2) were read; NEC 2023 690.8(B)(1)/(2) takes the larger of the two conditions, which 250 kcmil meets',
     cable: 'bat-cable',
     project: project('Battery to 2.5 kW inverter', [
       { id: 'bat', kind: 'battery', voltage: 24 },
@@ -218,7 +221,7 @@ export const SIZING_EXAMPLES: SizingExample[] = [
       { id: 'inv', kind: 'inverter', from: 'bat-cable', phases: 1, outputVoltage: 120, frequency: 60, ratedOutputPower: 2500, lowVoltageCutoff: 22, loss: { model: 'constant', efficiency: 0.85 } },
       { id: 'ld', kind: 'ac-load', from: 'inv', power: 1200, powerFactor: 1 },
     ]),
-    expect: { designCurrent: 2500 / (0.85 * 22) * 1.25, designTolerance: 1e-9, designBasis: 'inverter-input', size: '300 kcmil', governing: 'ampacity', deviceRating: 175 },
+    expect: { designCurrent: 2500 / (0.85 * 22) * 1.25, designTolerance: 1e-9, designBasis: 'inverter-input', size: '250 kcmil', governing: 'protection', deviceRating: 175 },
   },
   {
     id: 'battery-inverter-12V-2000W-nec',
