@@ -18,6 +18,8 @@
  * - a charger's output: 125 % of its rated output current (706.30, the equipment's rating);
  * - a DC-DC converter's input: its rated output at its lowest input voltage divided by its
  *   efficiency, × 1.25;
+ * - a DC feeder to a bus with converters (a bank to its bus): each converter's rated input current
+ *   as above plus the other loads at nominal voltage, × 1.25 (NEC 706.30, 215.2(A)(1));
  * - given: a current the user enters.
  *
  * "Stacked" bases (motor, drive: 430.22, 430.24, 430.122) put the 125 % on the conductor's ampacity
@@ -26,7 +28,7 @@
  */
 import type { Complex } from '../ac/complex.ts';
 import { abs } from '../ac/complex.ts';
-import type { ConductorSpec, Element, MotorStage, PortKind, Project } from '../model.ts';
+import type { ConductorSpec, DcDcStage, Element, InverterStage, MotorStage, PortKind, Project } from '../model.ts';
 import type { DesignBasisKind } from '../result.ts';
 import { NEC_430_250 } from '../data/nec-430-250.ts';
 import { NEC_430_248 } from '../data/nec-430-248.ts';
@@ -173,6 +175,24 @@ function efficiencyAtRated(loss: Parameters<typeof prepareLoss>[0], p: number): 
   return p / (p + l);
 }
 
+/**
+ * A converter's rated DC input current: its rated continuous output over its efficiency at that
+ * output and its lowest input voltage (an inverter's low-voltage cut-off; a DC-DC converter's lowest
+ * input voltage), I = P / (η·V_min).
+ */
+function converterInput(e: InverterStage | DcDcStage): { amps: number; words: string } | { missing: string[] } {
+  const inv = e.kind === 'inverter';
+  const p = e.ratedOutputPower ?? e.loss.ratedPower;
+  const vMin = e.kind === 'inverter' ? e.lowVoltageCutoff : e.minInputVoltage;
+  const what = inv ? 'inverter' : 'DC-DC converter';
+  const missing: string[] = [];
+  if (p === undefined) missing.push(`${what} ${nameOf(e)}: enter its rated continuous output`);
+  if (vMin === undefined) missing.push(`${what} ${nameOf(e)}: enter its ${inv ? 'low-voltage cut-off' : 'lowest input voltage'}`);
+  if (p === undefined || vMin === undefined) return { missing };
+  const eta = efficiencyAtRated(e.loss, p);
+  return { amps: p / (eta * vMin), words: `the ${what}'s rated output at its lowest input voltage: ${p} W / (η ${eta.toFixed(3)} × ${vMin} V)` };
+}
+
 type EquipmentBasis = { ok: true; design: DesignCurrent } | { ok: false; missing: string } | null;
 
 /** The equipment rule for what the link feeds (and what feeds it); null when no rule applies. */
@@ -237,26 +257,48 @@ function equipmentBasis(ctx: DesignContext, link: Element, spec: ConductorSpec, 
         });
     }
     if ((end.kind === 'inverter' || end.kind === 'dcdc') && kind === 'dc') {
-      const inv = end.kind === 'inverter';
-      const p = end.ratedOutputPower ?? end.loss.ratedPower;
-      const vMin = end.kind === 'inverter' ? end.lowVoltageCutoff : end.minInputVoltage;
-      const what = inv ? 'inverter' : 'DC-DC converter';
-      if (p === undefined) missing.push(`${what} ${nameOf(end)}: enter its rated continuous output`);
-      if (vMin === undefined) missing.push(`${what} ${nameOf(end)}: enter its ${inv ? 'low-voltage cut-off' : 'lowest input voltage'}`);
-      if (p !== undefined && vMin !== undefined) {
-        const eta = efficiencyAtRated(end.loss, p);
-        const base = p / (eta * vMin);
+      const r = converterInput(end);
+      if ('missing' in r) missing.push(...r.missing);
+      else
         found.push({
-          basis: inv ? 'inverter-input' : 'dcdc-input',
-          base,
+          basis: end.kind === 'inverter' ? 'inverter-input' : 'dcdc-input',
+          base: r.amps,
           factor: f,
-          design: base * f,
+          design: r.amps * f,
           stacked: false,
-          rule: `the ${what}'s rated output at its lowest input voltage: ${p} W / (η ${eta.toFixed(3)} × ${vMin} V)${
-            nec ? ` × 1.25 (NEC 690.8(A)/(B), 706.30: the continuous input current rating at rated power and lowest input voltage)` : ' as I_B (the equipment rating)'
-          }`,
+          rule: `${r.words}${nec ? ' × 1.25 (NEC 690.8(A)/(B), 706.30: the continuous input current rating at rated power and lowest input voltage)' : ' as I_B (the equipment rating)'}`,
         });
+    }
+  }
+  // A DC feeder to a bus with converters on it (a bank to its bus): each converter at its rated
+  // input current, the other loads at nominal voltage, summed (the equipment ratings, not today's load).
+  const converters = ends.filter((e): e is InverterStage | DcDcStage => e.kind === 'inverter' || e.kind === 'dcdc');
+  if (kind === 'dc' && ends.length > 1 && converters.length > 0) {
+    const parts: string[] = [];
+    let base = 0;
+    let rated = 0;
+    for (const e of ends) {
+      const r = e.kind === 'inverter' || e.kind === 'dcdc' ? converterInput(e) : null;
+      if (r && !('missing' in r)) {
+        base += r.amps;
+        rated++;
+        parts.push(`${nameOf(e)} ${r.amps.toFixed(1)} A (${r.words})`);
+      } else {
+        if (r) missing.push(...r.missing);
+        const i = nominalCurrent(ctx, e.id);
+        base += i;
+        parts.push(`${nameOf(e)} ${i.toFixed(1)} A at nominal voltage`);
       }
+    }
+    if (rated === converters.length) {
+      found.push({
+        basis: 'dc-feeder',
+        base,
+        factor: f,
+        design: base * f,
+        stacked: false,
+        rule: `the equipment on the bus at its ratings: ${parts.join(' + ')}${nec ? ', × 1.25 (NEC 706.30, 215.2(A)(1))' : ', as I_B'}`,
+      });
     }
   }
   const up = feeder(ctx, link);

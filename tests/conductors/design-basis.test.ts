@@ -203,3 +203,23 @@ describe('equipment ratings: drive input, charger output, DC-DC input', () => {
     expect(feed.designCurrent).toBeCloseTo((1.25 * 600) / (0.9 * 42), 9); // 19.84 A (hand)
   });
 });
+
+describe('a DC feeder to a bus with converters (a bank to its bus)', () => {
+  it('each converter at its rated input current plus the other loads at nominal voltage, × 1.25', () => {
+    const c = cond([
+      { id: 'src', kind: 'battery', voltage: 51.2 },
+      { id: 'run', kind: 'cable', from: 'src', length: 2, conductor: nec({ insulationRating: 90 }) },
+      { id: 'bus', kind: 'dcbus', from: 'run', fixedLoss: 0 },
+      { id: 'inv', kind: 'inverter', from: 'bus', phases: 1, outputVoltage: 230, frequency: 50, ratedOutputPower: 3000, lowVoltageCutoff: 44, loss: { model: 'constant', efficiency: 0.94 } },
+      { id: 'ac', kind: 'ac-load', from: 'inv', power: 500, powerFactor: 1 },
+      { id: 'conv', kind: 'dcdc', from: 'bus', outputVoltage: 12, ratedOutputPower: 240, minInputVoltage: 40, loss: { model: 'constant', efficiency: 0.9 } },
+      { id: 'radio', kind: 'dc-load', from: 'conv', power: 60 },
+      { id: 'lamp', kind: 'dc-load', from: 'bus', power: 51.2 },
+    ]);
+    expect(c.designBasis.basis).toBe('dc-feeder');
+    // Hand: 3000 / (0.94 × 44) = 72.53 A; 240 / (0.9 × 40) = 6.667 A; 51.2 W / 51.2 V = 1 A; Σ = 80.20 A; × 1.25 (706.30).
+    const base = 3000 / (0.94 * 44) + 240 / (0.9 * 40) + 1;
+    expect(c.designBasis.baseCurrent).toBeCloseTo(base, 9);
+    expect(c.designCurrent).toBeCloseTo(1.25 * base, 9);
+  });
+});
