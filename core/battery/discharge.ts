@@ -16,14 +16,18 @@
  * Available capacity C_avail = C × temperature factor × state of health; SoC = SoC_0 − Q_eq/C_avail.
  *
  * End of discharge, whichever comes first:
- * - depth of discharge: SoC reaches 1 − usable DoD (found exactly inside the step);
+ * - depth of discharge: SoC reaches 1 − usable DoD (found exactly inside the step) — lithium, and
+ *   lead-acid / NiCd in a cycling design only; a backup design (the default) discharges lead-acid
+ *   and NiCd to the end voltage as IEEE 485 / IEEE 1115 size standby cells, so there the SoC limit
+ *   is 0: the rated capacity at the Peukert rate is the charge the cells give to their end voltage
+ *   (end reason 'rated-capacity');
  * - cut-off voltage: the terminal voltage under load falls below end-of-discharge V/cell × cells in
  *   series (found between two steps by linear interpolation of the terminal voltage);
  * - the chain cannot be carried any more (voltage collapse on a link);
  * - the profile ends (a `segments` profile run once) or the horizon is reached: the runtime is
  *   then "longer than" that time, never Infinity.
  */
-import { bankCautions } from './cautions.ts';
+import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, type BankDesign } from './cautions.ts';
 import type { BackupStudy, BatterySource, Element, Project } from '../model.ts';
 import type { ElementResult } from '../result.ts';
 import type { Problem } from '../errors.ts';
@@ -36,7 +40,7 @@ import { type Bank, bankOcv, capacityFactorAt, resolveBank } from './bank.ts';
 import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
 import { DEFAULT_TIME_STEP_S, buildTimeline, checkStudy } from './profile.ts';
 
-export type EndReason = 'depth-of-discharge' | 'cut-off-voltage' | 'chain-collapse' | 'profile-complete' | 'horizon';
+export type EndReason = 'depth-of-discharge' | 'rated-capacity' | 'cut-off-voltage' | 'chain-collapse' | 'profile-complete' | 'horizon';
 
 /** Time series for plotting: one entry per step boundary (struct of arrays). */
 export interface DischargeSeries {
@@ -101,8 +105,12 @@ export interface DischargeResult {
   /** Lowest terminal voltage over the run, V. */
   minVoltage: number;
   cutoffVoltage: number;
-  /** State of charge at the depth-of-discharge limit. */
+  /** State of charge at the depth-of-discharge limit (0 in a lead-acid or NiCd backup design). */
   socLimit: number;
+  /** What the bank is designed for (the study's `design`, default 'backup'). */
+  design: BankDesign;
+  /** Where the discharge ends, in words (the same sentence the sizing gives). */
+  basis: string;
   temperatureC: number;
   temperatureFactor: number;
   temperatureExtrapolated: boolean;
@@ -144,6 +152,7 @@ function noLoadDraws(project: Project): Omit<IdleDraw, 'energyWh'>[] {
 
 const END_TEXT: Record<EndReason, string> = {
   'depth-of-discharge': 'the usable depth of discharge was reached',
+  'rated-capacity': 'the rated capacity at this rate was used: the cells are at their end-of-discharge voltage',
   'cut-off-voltage': 'the terminal voltage under load fell to the cut-off',
   'chain-collapse': 'the chain could no longer be carried (voltage collapse on a link)',
   'profile-complete': 'the bank carried the whole profile',
@@ -214,11 +223,16 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const step = study.timeStepSeconds ?? DEFAULT_TIME_STEP_S;
   const temperatureC = study.temperatureC ?? 25;
   const temp = capacityFactorAt(v.capacityVsTemperature, temperatureC);
+  if (temp.refused !== undefined) {
+    return { ok: false, problems: [{ code: 'outside-table', elementId: 'project', field: 'backup.temperatureC', value: temperatureC, message: temp.refused }] };
+  }
+  const design: BankDesign = study.design ?? 'backup';
+  const dodApplies = depthOfDischargeApplies(bank.chemistry, design);
   const soh = study.stateOfHealth ?? 1;
   const availableAs = bank.capacityAh * temp.factor * soh * H; // A·s
   const k = v.peukertExponent;
   const iRated = bank.ratedCurrent;
-  const socLimit = 1 - v.usableDepthOfDischarge;
+  const socLimit = dodApplies ? 1 - v.usableDepthOfDischarge : 0;
   const R = bank.internalResistance;
   const cutoff = bank.cutoffVoltage;
 
@@ -326,7 +340,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
       carried = after === null ? null : { p: after, state };
       record(acc.t, acc.soc, after ?? p);
       if (hitsLimit) {
-        endReason = 'depth-of-discharge';
+        endReason = dodApplies ? 'depth-of-discharge' : 'rated-capacity';
         break outer;
       }
     }
@@ -353,10 +367,14 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const warnings: string[] = [];
   if (temp.extrapolated) {
     const t = v.capacityVsTemperature;
-    warnings.push(`${temperatureC} °C is outside the capacity-vs-temperature table (${t[0]!.temperatureC} to ${t[t.length - 1]!.temperatureC} °C); its end value is used`);
+    warnings.push(
+      `${temperatureC} °C is outside the capacity-vs-temperature table (${t[0]!.temperatureC} to ${t[t.length - 1]!.temperatureC} °C): the capacity factor ${temp.factor.toFixed(3)} is extrapolated linearly along the table\u2019s end slope, never above its end value; use the maker\u2019s figure for this temperature`,
+    );
   }
   if (!solver.fast) warnings.push('an element between the bank and the first converter is neither a cable nor a DC bus: the whole chain was re-solved at every step');
-  const cautions = bankCautions(bank.chemistry);
+  const from = (k: 'endOfDischargeCellVoltage' | 'usableDepthOfDischarge') => (bank.overridden.includes(k) ? 'maker\u2019s figure, as given' : TYPICAL_VALUE);
+  const basis = designBasis(bank.chemistry, design, v.endOfDischargeCellVoltage, from('endOfDischargeCellVoltage'), v.usableDepthOfDischarge, from('usableDepthOfDischarge'));
+  const cautions = [...bankCautions(bank.chemistry), basis];
   if (v.minChargeTemperatureC >= 0 && temperatureC < v.minChargeTemperatureC) {
     cautions.push(`At ${temperatureC} °C this ${bank.label} bank must not be charged (minimum ${v.minChargeTemperatureC} °C); warm it first.`);
   }
@@ -364,8 +382,10 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const derates: Derate[] = [
     { label: 'nameplate energy', value: bank.nominalWh, unit: 'Wh', note: `${bank.nominalVoltage.toFixed(1)} V nominal × ${bank.capacityAh} Ah (C${v.ratedHours})` },
     { label: 'simple estimate Wh ÷ W', value: loadW > 0 ? bank.nominalWh / loadW : 0, unit: 'h', note: `nameplate Wh ÷ average load ${loadW.toFixed(1)} W` },
-    { label: 'usable depth of discharge', value: v.usableDepthOfDischarge, unit: '', note: `the discharge stops at ${(socLimit * 100).toFixed(0)} % state of charge` },
-    { label: 'temperature', value: temp.factor, unit: '', note: `capacity at ${temperatureC} °C vs 25 °C${temp.extrapolated ? ' (outside the table: end value)' : ''}` },
+    dodApplies
+      ? { label: 'usable depth of discharge', value: v.usableDepthOfDischarge, unit: '', note: `the discharge stops at ${(socLimit * 100).toFixed(0)} % state of charge (${from('usableDepthOfDischarge')})` }
+      : { label: 'end-of-discharge voltage per cell', value: v.endOfDischargeCellVoltage, unit: 'V', note: `backup design: discharged to the end voltage, no depth-of-discharge limit (${from('endOfDischargeCellVoltage')})` },
+    { label: 'temperature', value: temp.factor, unit: '', note: `capacity at ${temperatureC} °C vs 25 °C${temp.extrapolated ? ' (outside the table: extrapolated along its end slope, never above its end value)' : ''}` },
     { label: 'aging (state of health)', value: soh, unit: '', note: 'capacity left after aging' },
     {
       label: 'Peukert at the actual rate',
@@ -399,6 +419,8 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
       minVoltage: Number.isFinite(acc.minV) ? acc.minV : bank.initialOcv,
       cutoffVoltage: cutoff,
       socLimit,
+      design,
+      basis,
       temperatureC,
       temperatureFactor: temp.factor,
       temperatureExtrapolated: temp.extrapolated,
