@@ -357,7 +357,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
           elementId: source.id,
           field: source.bank!.strings === undefined ? 'bank.capacityAh' : 'bank.strings',
           value: acc.peak,
-          message: `the peak current ${acc.peak.toFixed(1)} A is above the ${bank.label} limit of ${v.maxDischargeCRate} C = ${bank.maxDischargeCurrent.toFixed(1)} A for this bank (${bank.capacityAh} Ah); add strings or a larger capacity, or give the maker\u2019s rating in bank.overrides.maxDischargeCRate`,
+          message: `the peak current ${acc.peak.toFixed(1)} A is above the ${bank.label} limit of ${v.maxDischargeCRate} C = ${bank.maxDischargeCurrent.toFixed(1)} A for this bank (${bank.capacityAh} Ah); add strings or a larger capacity, or give the maker\u2019s maximum discharge rate`,
         },
       ],
     };
@@ -372,7 +372,13 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
     );
   }
   if (!solver.fast) warnings.push('an element between the bank and the first converter is neither a cable nor a DC bus: the whole chain was re-solved at every step');
-  const from = (k: 'endOfDischargeCellVoltage' | 'usableDepthOfDischarge') => (bank.overridden.includes(k) ? 'maker\u2019s figure, as given' : TYPICAL_VALUE);
+  const from = (k: keyof typeof v) => (bank.overridden.includes(k) ? 'maker\u2019s figure, as given' : TYPICAL_VALUE);
+  const leadAcid = bank.chemistry === 'flooded-lead-acid' || bank.chemistry === 'vrla-agm' || bank.chemistry === 'gel';
+  const temperatureSource = bank.overridden.includes('capacityVsTemperature')
+    ? 'maker\u2019s figure, as given'
+    : leadAcid
+      ? '1 ÷ the IEEE 485 Table 1 factor, 1.00 above 25 °C as the note to Table 1 advises'
+      : TYPICAL_VALUE;
   const basis = designBasis(bank.chemistry, design, v.endOfDischargeCellVoltage, from('endOfDischargeCellVoltage'), v.usableDepthOfDischarge, from('usableDepthOfDischarge'));
   const cautions = [...bankCautions(bank.chemistry), basis];
   if (v.minChargeTemperatureC >= 0 && temperatureC < v.minChargeTemperatureC) {
@@ -385,16 +391,16 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
     dodApplies
       ? { label: 'usable depth of discharge', value: v.usableDepthOfDischarge, unit: '', note: `the discharge stops at ${(socLimit * 100).toFixed(0)} % state of charge (${from('usableDepthOfDischarge')})` }
       : { label: 'end-of-discharge voltage per cell', value: v.endOfDischargeCellVoltage, unit: 'V', note: `backup design: discharged to the end voltage, no depth-of-discharge limit (${from('endOfDischargeCellVoltage')})` },
-    { label: 'temperature', value: temp.factor, unit: '', note: `capacity at ${temperatureC} °C vs 25 °C${temp.extrapolated ? ' (outside the table: extrapolated along its end slope, never above its end value)' : ''}` },
+    { label: 'temperature', value: temp.factor, unit: '', note: `capacity at ${temperatureC} °C vs 25 °C (${temperatureSource})${temp.extrapolated ? '; outside the table: extrapolated along its end slope, never above its end value' : ''}` },
     { label: 'aging (state of health)', value: soh, unit: '', note: 'capacity left after aging' },
     {
       label: 'Peukert at the actual rate',
       value: 1 / peukertFactor,
       unit: '',
-      note: `k = ${k}, rated current ${iRated.toFixed(1)} A (C/${v.ratedHours}), average current ${(runtime > 0 ? acc.charge / runtime : 0).toFixed(1)} A`,
+      note: `k = ${k} (${from('peukertExponent')}), rated current ${iRated.toFixed(1)} A (C/${v.ratedHours}), average current ${(runtime > 0 ? acc.charge / runtime : 0).toFixed(1)} A`,
     },
     { label: 'chain losses (cables, bus, converters)', value: acc.chain / H, unit: 'Wh', note: 'drawn from the bank but not used by the loads' },
-    { label: 'bank internal I²R', value: acc.internal / H, unit: 'Wh', note: `internal resistance ${(R * 1000).toFixed(2)} mΩ` },
+    { label: 'bank internal I²R', value: acc.internal / H, unit: 'Wh', note: `internal resistance ${(R * 1000).toFixed(2)} mΩ (${source.internalResistance !== undefined ? 'as given' : from('internalResistanceOhmAh')})` },
     ...idle.map((d): Derate => ({ label: `standby draw of ${d.name}`, value: d.energyWh, unit: 'Wh', note: `${d.watts.toFixed(1)} W over the runtime (part of the chain losses)` })),
   ];
   return {

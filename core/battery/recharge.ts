@@ -356,7 +356,7 @@ function build(m: Model, chargerCurrent: number): Recharge {
       `The charger could give the bank ${fmt(available)} A, above its maximum charge rate (${m.preset.maxChargeCRate} C = ${fmt(m.maxBankCurrent)} A): set the charger's current limit (or the battery management system will).`,
     );
   }
-  step('Charge efficiency', eta, '', 'Ah stored ÷ Ah put in (common practice per chemistry)');
+  step('Charge efficiency', eta, '', 'Ah stored ÷ Ah put in (typical value per chemistry: use the maker\u2019s figure)');
   step('CV time constant τ', m.tau * 3600, 's', `(1 − ${m.profile.cvTransitionSoc}) ÷ (η × ${m.profile.referenceCRate} C)`);
   const st = stages(m, bankCurrent);
   step('Start state of charge', m.startSoc, '', '');

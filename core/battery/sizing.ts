@@ -630,8 +630,9 @@ function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok: false;
   }
   if (input.capacityFactors !== undefined) {
     const t = input.capacityFactors;
-    if (!Array.isArray(t) || t.length < 2) {
-      out.push(problem('invalid-value', elementId, fields.capacityFactors, t, 'a K_t table needs at least two points'));
+    // One point is a maker's figure for a single time (a one-period duty cycle of that length).
+    if (!Array.isArray(t) || t.length < 1) {
+      out.push(problem('invalid-value', elementId, fields.capacityFactors, t, 'a K_t table needs at least one point'));
     } else {
       t.forEach((p, i) => {
         const base = `${fields.capacityFactors}[${i}]`;
@@ -652,8 +653,8 @@ function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok: false;
   }
   if (input.powerFactors !== undefined) {
     const t = input.powerFactors;
-    if (!Array.isArray(t) || t.length < 2) {
-      out.push(problem('invalid-value', elementId, fields.powerFactors, t, 'a constant-power table needs at least two points'));
+    if (!Array.isArray(t) || t.length < 1) {
+      out.push(problem('invalid-value', elementId, fields.powerFactors, t, 'a constant-power table needs at least one point'));
     } else {
       t.forEach((p, i) => {
         const base = `${fields.powerFactors}[${i}]`;
