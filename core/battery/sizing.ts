@@ -246,6 +246,11 @@ export interface WorksheetSection {
    * It is computed anyway; the maximum is unchanged.
    */
   needed: boolean;
+  /**
+   * Set when the worksheet size inside the section's last period (before its end) is larger than
+   * F_S: time into that period (s) and the size there, Ah. See `interiorPeak`.
+   */
+  interiorPeak?: { time: number; size: number };
 }
 
 export type SizingMethod = 'ieee-485-worksheet' | 'ieee-1115-worksheet' | 'energy';
@@ -892,16 +897,62 @@ export function sizeBank(input: SizingInput): SizingOutcome {
         ],
       };
     }
+    // Inside a period the superposition can rise above both of its ends (a load step down earlier
+    // is credited along a concave K_t): a section is also sized at its largest point inside its
+    // last period, so the size never falls when the duty cycle is cut later (a longer target).
+    const endMax = sections.reduce((m, x) => Math.max(m, x.total), -Infinity);
+    const minTime = table === undefined ? 0 : table[0]!.time;
+    let floor = endMax;
+    // Peukert's K_t is concave with K(0) = 0, so over period i the sum can exceed its end value F_i
+    // by at most |ΔA_i|·K(M_i) (a step down at i) + N·(K(M_{i−1} + M_i) − K(M_{i−1})), N the sum of
+    // the earlier steps down (each increment K(d + M_i) − K(d) is largest at the smallest d): a
+    // cheap test that skips most periods of a long profile before the exact search.
+    let stepsDown = 0;
+    const candidates: { x: WorksheetSection; bound: number }[] = [];
+    for (const x of sections) {
+      const i = x.section - 1;
+      const m = merged[i]!.duration;
+      const change = merged[i]!.current - (i > 0 ? merged[i - 1]!.current : 0);
+      const before = stepsDown;
+      if (change < 0) stepsDown -= change;
+      if (table === undefined) {
+        const prev = i > 0 ? merged[i - 1]!.duration : 0;
+        const quick = x.total + (change < 0 ? -change * kAt(m) : 0) + (i > 0 ? before * (kAt(prev + m) - kAt(prev)) : 0);
+        if (!(quick > floor * (1 + 1e-12))) continue;
+      }
+      const bound = interiorBound(merged, i, kAt, minTime);
+      if (bound > floor * (1 + 1e-12)) candidates.push({ x, bound });
+    }
+    // Best first: the largest bound is searched first, and the floor it raises prunes the rest.
+    candidates.sort((p, q) => q.bound - p.bound);
+    for (const { x, bound } of candidates) {
+      if (!(bound > floor * (1 + 1e-12))) break;
+      const peak = interiorPeak(merged, x.section - 1, kAt, floor, minTime);
+      if (peak !== null) {
+        x.interiorPeak = peak;
+        floor = Math.max(floor, peak.size);
+      }
+    }
+    const sizeOf = (x: WorksheetSection) => Math.max(x.total, x.interiorPeak?.size ?? -Infinity);
     let best = sections[0]!;
-    for (const s of sections) if (s.total > best.total) best = s;
+    for (const s of sections) if (sizeOf(s) > sizeOf(best)) best = s;
     if (merged.length > MAX_PERIODS_WITH_ROWS) {
       best.rows = worksheetSection(merged, best.section - 1, kAt, true).rows;
       warnings.push(
         `The duty cycle has ${merged.length} periods: every section's total is listed, but the period rows of the governing section S${best.section} only.`,
       );
     }
-    step('Maximum section size', best.total, 'Ah', `section S${best.section} of ${sections.length} (worksheet line 9)`);
-    let uncorrected = best.total;
+    if (best.interiorPeak !== undefined && best.interiorPeak.size > best.total) {
+      step(
+        'Maximum section size',
+        best.interiorPeak.size,
+        'Ah',
+        `section S${best.section} of ${sections.length} at ${round(best.interiorPeak.time / 60)} min into its last period, where the worksheet sum is ${round(best.interiorPeak.size)} Ah, above its ${round(best.total)} Ah at the period end (worksheet line 9, taken at its largest: conservative)`,
+      );
+    } else {
+      step('Maximum section size', best.total, 'Ah', `section S${best.section} of ${sections.length} (worksheet line 9)`);
+    }
+    let uncorrected = sizeOf(best);
     if (random !== undefined) {
       const kr = kAt(random.duration);
       if (Number.isNaN(kr)) {
@@ -1130,6 +1181,116 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       cautions,
     },
   };
+}
+
+/**
+ * Upper bound of the worksheet sum over period s (0-based) for τ in [minTime, M_s]: K_t rises with
+ * time, so F(τ) ≤ Σ_{ΔA>0} ΔA·K(d_P + M_s) + Σ_{ΔA<0} ΔA·K(d_P + minTime) (d_P as in interiorPeak).
+ */
+export function interiorBound(periods: readonly CurrentPeriod[], s: number, kAt: (timeS: number) => number, minTime: number): number {
+  const m = periods[s]!.duration;
+  const lo = Math.max(0, minTime);
+  if (!(lo < m)) return -Infinity;
+  let bound = 0;
+  let d = 0;
+  for (let p = s; p >= 0; p--) {
+    if (p < s) d += periods[p]!.duration;
+    const cp = periods[p]!.current - (p > 0 ? periods[p - 1]!.current : 0);
+    if (cp > 0) bound += cp * kAt(d + m);
+    else if (cp < 0) bound += cp * kAt(d + lo);
+  }
+  return bound;
+}
+
+/** Samples of the worksheet sum inside a period before the best one is refined. */
+const PEAK_SAMPLES = 32;
+
+/**
+ * The largest worksheet sum inside period s (0-based), F(τ) = Σ_{P≤s} (A_P − A_{P−1})·K_t(d_P + τ)
+ * for τ in [minTime, M_s] (d_P the time from the start of period P to the start of period s), when
+ * it exceeds `floor`; null otherwise.
+ * Method: a bound first — K_t rises with time, so F(τ) ≤ Σ_{ΔA>0} ΔA·K(d + M_s) + Σ_{ΔA<0} ΔA·K(d)
+ * over the whole period, and a period whose bound does not pass `floor` is skipped. Otherwise F is
+ * sampled at PEAK_SAMPLES points (half spaced geometrically from the start, where the newest
+ * term's K_t is steepest, half evenly) and the best sample refined by golden-section search
+ * between its neighbours to 1e-10 of the period (F is flat at a maximum, so its value is then
+ * exact to rounding).
+ */
+export function interiorPeak(
+  periods: readonly CurrentPeriod[],
+  s: number,
+  kAt: (timeS: number) => number,
+  floor: number,
+  minTime: number,
+): { time: number; size: number } | null {
+  const m = periods[s]!.duration;
+  const lo = Math.max(0, minTime);
+  if (!(lo < m)) return null;
+  const n = s + 1;
+  const d = new Float64Array(n);
+  const c = new Float64Array(n);
+  for (let p = s; p >= 0; p--) {
+    d[p] = p === s ? 0 : d[p + 1]! + periods[p]!.duration;
+    c[p] = periods[p]!.current - (p > 0 ? periods[p - 1]!.current : 0);
+  }
+  let bound = 0;
+  for (let p = 0; p < n; p++) {
+    const cp = c[p]!;
+    if (cp > 0) bound += cp * kAt(d[p]! + m);
+    else if (cp < 0) bound += cp * kAt(d[p]! + lo);
+  }
+  if (!(bound > floor)) return null;
+  const f = (tau: number) => {
+    let sum = 0;
+    for (let p = 0; p < n; p++) if (c[p] !== 0) sum += c[p]! * kAt(d[p]! + tau);
+    return sum;
+  };
+  const taus: number[] = [];
+  const half = PEAK_SAMPLES / 2;
+  const first = lo > 0 ? lo : m * 1e-6;
+  for (let i = 0; i < half; i++) taus.push(first * Math.pow(m / first, i / half));
+  for (let i = 0; i <= half; i++) taus.push(lo + ((m - lo) * i) / half);
+  taus.sort((x, y) => x - y);
+  let bi = 0;
+  let bv = -Infinity;
+  const values = taus.map((t) => f(t));
+  values.forEach((v, i) => {
+    if (v > bv) {
+      bv = v;
+      bi = i;
+    }
+  });
+  let best = { time: taus[bi]!, size: bv };
+  if (bi > 0 && bi < taus.length - 1) {
+    // Golden-section search for the maximum between the best sample's neighbours.
+    const g = (Math.sqrt(5) - 1) / 2;
+    let x0 = taus[bi - 1]!;
+    let x3 = taus[bi + 1]!;
+    let x1 = x3 - g * (x3 - x0);
+    let x2 = x0 + g * (x3 - x0);
+    let f1 = f(x1);
+    let f2 = f(x2);
+    while (x3 - x0 > 1e-10 * m) {
+      if (f1 >= f2) {
+        x3 = x2;
+        x2 = x1;
+        f2 = f1;
+        x1 = x3 - g * (x3 - x0);
+        f1 = f(x1);
+      } else {
+        x0 = x1;
+        x1 = x2;
+        f1 = f2;
+        x2 = x0 + g * (x3 - x0);
+        f2 = f(x2);
+      }
+    }
+    if (f1 > best.size) best = { time: x1, size: f1 };
+    if (f2 > best.size) best = { time: x2, size: f2 };
+  }
+  const end = f(m);
+  if (end >= best.size) return null; // the period's end governs (it is the worksheet's F_S)
+  return best.size > floor * (1 + 1e-12) && Number.isFinite(best.size) ? best : null;
 }
 
 /**
