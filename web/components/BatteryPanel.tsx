@@ -107,8 +107,8 @@ function DesignChoice({ project }: { project: DraftProject }) {
         onChange={(e) => setField('project', 'backup.design', (e.currentTarget as HTMLSelectElement).value, 'Backup study: design')}
         data-testid="battery-design"
       >
-        <option value="backup">Backup: discharge to the end voltage</option>
-        <option value="cycling">Cycling: also stop at the usable depth of discharge</option>
+        <option value="backup">Backup (to the end voltage)</option>
+        <option value="cycling">Cycling (depth-of-discharge limit)</option>
       </select>
     </div>
   );
@@ -445,9 +445,12 @@ function StudyFigures({ study, cautions, locale, units }: { study: BackupStudyRe
       <section class="panel-section panel-cautions" aria-labelledby="battery-cautions-heading" data-testid="battery-cautions">
         <h4 id="battery-cautions-heading">Cautions</h4>
         <ul>
-          {cautions.map((c) => (
-            <li key={c}>{c}</li>
-          ))}
+          {/* The basis sentence is shown with the runtime and the sizing above. */}
+          {cautions
+            .filter((c) => c !== d.basis)
+            .map((c) => (
+              <li key={c}>{c}</li>
+            ))}
         </ul>
       </section>
     </>
