@@ -181,7 +181,10 @@ export function checkBank(spec: BatteryBankSpec): BankProblem[] {
     out.push(bad(where('floatCellVoltage'), v.floatCellVoltage, `the float voltage must not exceed the charge voltage ${v.chargeCellVoltage} V/cell`));
   }
   const soc0 = spec.initialSoc ?? 1;
-  if (soc0 <= 1 - v.usableDepthOfDischarge) {
+  // Lithium always stops at its usable depth of discharge (the BMS window); lead-acid and NiCd only
+  // in a cycling design, which the discharge checks (a backup design runs to the end voltage).
+  const lithium = spec.chemistry === 'lifepo4' || spec.chemistry === 'nmc';
+  if (lithium && soc0 <= 1 - v.usableDepthOfDischarge) {
     out.push(
       bad('bank.initialSoc', soc0, `starts at or below the usable depth-of-discharge limit (state of charge ${(1 - v.usableDepthOfDischarge).toFixed(2)}); nothing could be drawn`),
     );

@@ -233,6 +233,20 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const k = v.peukertExponent;
   const iRated = bank.ratedCurrent;
   const socLimit = dodApplies ? 1 - v.usableDepthOfDischarge : 0;
+  if (bank.initialSoc <= socLimit) {
+    return {
+      ok: false,
+      problems: [
+        {
+          code: 'invalid-value',
+          elementId: source.id,
+          field: 'bank.initialSoc',
+          value: bank.initialSoc,
+          message: `starts at or below the usable depth-of-discharge limit of this ${design} design (state of charge ${socLimit.toFixed(2)}); nothing could be drawn`,
+        },
+      ],
+    };
+  }
   const R = bank.internalResistance;
   const cutoff = bank.cutoffVoltage;
 

@@ -45,6 +45,14 @@ describe('point 9: lead-acid backup discharges to its end voltage, not to the de
     expect(backup.runtimeSeconds).toBeGreaterThan(1.5 * cycling.runtimeSeconds);
   });
 
+  it('a lead-acid bank that starts at 40 % runs in a backup design and is refused in a cycling design (below its 50 % DoD limit, preset typical value)', () => {
+    const part = { ...bank, initialSoc: 0.4 };
+    expect(run(directLoad(part, 60)).endSoc).toBeLessThan(0.4);
+    const refused = simulateDischarge(directLoad(part, 60, { design: 'cycling' }));
+    expect(refused.ok).toBe(false);
+    if (!refused.ok) expect(refused.problems[0]!.field).toBe('bank.initialSoc');
+  });
+
   it('lithium keeps its usable depth of discharge (BMS window) in both designs (preset 0.9, common practice)', () => {
     const li: BatteryBankSpec = { chemistry: 'lifepo4', series: 4, capacityAh: 100 };
     for (const design of ['backup', 'cycling'] as const) {
