@@ -1024,7 +1024,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       }
     } else if (rateSize > worksheetSize) {
       warnings.push(
-        `The peak current ${round(peakCurrent)} A is above the preset maximum continuous discharge rate (${preset.maxDischargeCRate} C) of this size; the K_t table given is trusted — confirm the rate with the cell maker.`,
+        `The peak current ${round(peakCurrent)} A is above the maximum continuous discharge rate (${preset.maxDischargeCRate} C, ${userSource('maxDischargeCRate')}) of this size; the K_t table given is trusted — confirm the rate with the cell maker.`,
       );
     }
 
