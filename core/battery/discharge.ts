@@ -371,7 +371,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
           elementId: source.id,
           field: source.bank!.strings === undefined ? 'bank.capacityAh' : 'bank.strings',
           value: acc.peak,
-          message: `the peak current ${acc.peak.toFixed(1)} A is above the ${bank.label} limit of ${v.maxDischargeCRate} C (${bank.overridden.includes('maxDischargeCRate') ? 'maker\u2019s figure, as given' : TYPICAL_VALUE}) = ${bank.maxDischargeCurrent.toFixed(1)} A for this bank (${bank.capacityAh} Ah); add strings or a larger capacity, or give the maker\u2019s maximum discharge rate`,
+          message: `the peak current ${acc.peak.toFixed(1)} A is above the ${bank.label} limit of ${v.maxDischargeCRate} C = ${bank.maxDischargeCurrent.toFixed(1)} A (${bank.overridden.includes('maxDischargeCRate') ? 'maker\u2019s figure, as given' : TYPICAL_VALUE}) for this bank (${bank.capacityAh} Ah); add strings or a larger capacity, or give the maker\u2019s maximum discharge rate`,
         },
       ],
     };
