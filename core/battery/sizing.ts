@@ -54,9 +54,10 @@
  * arithmetic (it is linear in the load), as makers size constant-power (UPS) duty from their
  * W/cell tables.
  *
- * Temperature outside the tables: below IEEE 485 Table 1 (−3.9 °C) its factor is extrapolated
- * linearly from the two coldest rows (never below the coldest factor); the chemistry's capacity
- * table likewise (core/battery/bank.ts capacityFactorAt), refused farther than 20 °C out.
+ * Temperature outside the tables: below IEEE 485 Table 1 (−3.9 °C) the capacity (1 ÷ factor) is
+ * extrapolated linearly from the two coldest rows (never below the coldest factor), as the runtime
+ * study extrapolates the chemistry's capacity table (core/battery/bank.ts capacityFactorAt);
+ * refused farther than 20 °C out.
  *
  * Constant-power duty cycles are converted to current at a stated voltage: by default the minimum
  * bank voltage (end-of-discharge cell voltage × cells), the conservative choice — the current of a
@@ -491,9 +492,10 @@ export function ieee485TemperatureFactor(temperature: number): number | null {
 }
 
 /**
- * The sizing's lead-acid temperature factor: IEEE 485 Table 1 inside it; below −3.9 °C linear
- * extrapolation from the two coldest rows (−3.9 °C 1.52, −1.1 °C 1.43), never below the coldest
- * factor, up to MAX_TEMPERATURE_EXTRAPOLATION_C below the table; above 51.7 °C 1.00 without
+ * The sizing's lead-acid temperature factor: IEEE 485 Table 1 inside it; below −3.9 °C the capacity
+ * (1 ÷ factor) extrapolated linearly from the two coldest rows (−3.9 °C 1.52, −1.1 °C 1.43), as the
+ * runtime study extrapolates the same rows of the chemistry's capacity table (bank.ts), so the two
+ * agree; never below the coldest factor, up to MAX_TEMPERATURE_EXTRAPOLATION_C below the table; above 51.7 °C 1.00 without
  * credit (the table's note), refused with credit (extrapolating would flatter the capacity).
  * Null when refused.
  */
@@ -505,8 +507,10 @@ export function leadAcidTemperatureFactor(temperature: number, credit: boolean):
   const second = rows[1]!;
   if (temperature < first.celsius) {
     if (first.celsius - temperature > MAX_TEMPERATURE_EXTRAPOLATION_C) return null;
-    const slope = (second.factor - first.factor) / (second.celsius - first.celsius);
-    return { raw: Math.max(first.factor, first.factor + slope * (temperature - first.celsius)), extrapolated: true };
+    const slope = (1 / second.factor - 1 / first.factor) / (second.celsius - first.celsius);
+    const capacity = 1 / first.factor + slope * (temperature - first.celsius);
+    if (!(capacity > 0)) return null;
+    return { raw: Math.max(first.factor, 1 / capacity), extrapolated: true };
   }
   return credit ? null : { raw: 1, extrapolated: true };
 }
@@ -977,7 +981,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
         tempFactor,
         '',
         t.extrapolated && temperature < 25
-          ? `${temperature} °C is below IEEE 485 Table 1: extrapolated linearly from its two coldest rows (−3.9 °C 1.52, −1.1 °C 1.43), never below 1.52; use the maker\u2019s figure for this temperature`
+          ? `${temperature} °C is below IEEE 485 Table 1: the capacity (1 ÷ factor) extrapolated linearly from its two coldest rows (−3.9 °C 1.52, −1.1 °C 1.43), never below 1.52; use the maker\u2019s figure for this temperature`
           : t.extrapolated
             ? `${temperature} °C is above IEEE 485 Table 1: 1.00, no credit for heat (the note to Table 1)`
             : `IEEE 485 Table 1 at ${temperature} °C${raw < 1 && !input.creditAbove25C ? ` (table gives ${raw}; held at 1.00 above 25 °C as the note to the table advises)` : ''}`,

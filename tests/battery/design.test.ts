@@ -167,9 +167,14 @@ describe('point 10: design margin and aging factor as inputs; banks in whole mod
 describe('point 11: temperatures beyond the capacity tables', () => {
   const good: SizingInput = { chemistry: 'flooded-lead-acid', busVoltage: 12, dutyCycle: { basis: 'current', periods: [{ duration: 8 * 3600, current: 10 }] } };
 
-  it('lead-acid below IEEE 485 Table 1: −10 °C → 1.52 + 6.1 × 0.09 ÷ 2.8 = 1.7161 (linear from the −3.9 °C 1.52 and −1.1 °C 1.43 rows, from memory; method in sizing.ts)', () => {
+  it('lead-acid below IEEE 485 Table 1: −10 °C → 1 ÷ (1/1.52 − 6.1 × (1/1.43 − 1/1.52) ÷ 2.8) = 1.7615, the capacity linear from the −3.9 °C 1.52 and −1.1 °C 1.43 rows (from memory; method in sizing.ts), the same as the runtime study', () => {
     const s = sized({ ...good, temperature: -10 });
-    expect(step(s, 'Temperature correction factor').value).toBeCloseTo(1.52 + (6.1 * 0.09) / 2.8, 12);
+    const capacity = 1 / 1.52 - (6.1 * (1 / 1.43 - 1 / 1.52)) / 2.8;
+    expect(step(s, 'Temperature correction factor').value).toBeCloseTo(1 / capacity, 12);
+    expect(1 / capacity).toBeCloseTo(1.7615, 4); // hand working in the title
+    // The runtime study counts the same capacity at −10 °C (chemistry table: the same two rows).
+    const d = run(directLoad({ chemistry: 'flooded-lead-acid', series: 6, capacityAh: 100 }, 60, { temperatureC: -10 }));
+    expect(d.temperatureFactor).toBeCloseTo(capacity, 12);
     expect(s.warnings.join(' ')).toMatch(/below IEEE 485 Table 1/);
     // Boundary: the coldest row itself is the table's value, not extrapolated.
     expect(step(sized({ ...good, temperature: -3.9 }), 'Temperature correction factor').value).toBeCloseTo(1.52, 12);
