@@ -549,12 +549,12 @@ describe('a bank sized here passes the runtime study (core/battery/discharge.ts)
     ['flooded lead-acid, 24 cells', { chemistry: 'flooded-lead-acid', series: 24 }],
     ['AGM, 4 × 12 V blocks', { chemistry: 'vrla-agm', series: 4, cellsPerBlock: 6 }],
   ];
-  it.each(variants)('%s, 30 h target at 10 °C', (_name, bank) => {
+  it.each(variants.flatMap(([name, bank]) => (['backup', 'cycling'] as const).map((design) => [name, bank, design] as const)))('%s, 30 h target at 10 °C, %s design', (_name, bank, design) => {
     const project = structuredClone(demoProjects.find((d) => d.id === 'hillside-relay-hut')!.project) as Project;
     const battery = project.elements.find((e) => e.kind === 'battery')! as BatterySource;
     battery.bank = { ...bank, strings: 1, capacityAh: 150 };
     // No recharge target: a backup design discharges lead-acid to its end voltage, deeper than the demo's charger is meant for.
-    project.backup = { ...project.backup!, targetRuntimeHours: 30, horizonHours: 40 };
+    project.backup = { ...project.backup!, design, targetRuntimeHours: 30, horizonHours: 40 };
     delete project.backup.targetRechargeHours;
     const study = runBackupStudy(project);
     if (!study.ok) throw new Error(JSON.stringify(study.problems));
