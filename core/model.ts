@@ -625,6 +625,13 @@ export interface BackupStudy {
   temperatureC?: number;
   /** Capacity left after aging, fraction of rated (default 1: a new bank; 0.8 at end of life). */
   stateOfHealth?: number;
+  /**
+   * What the bank is for (default 'backup'). 'backup': lead-acid and NiCd discharge to the maker's
+   * end-of-discharge voltage per cell with no depth-of-discharge limit, and are sized so (IEEE 485,
+   * IEEE 1115 standby sizing). 'cycling': the usable depth of discharge also ends the discharge and
+   * bounds the size. Lithium keeps its usable depth of discharge (the BMS window) in both.
+   */
+  design?: 'backup' | 'cycling';
   // Settings of the sizing and recharge (core/battery/sizing.ts, recharge.ts):
   /** Runtime the bank must give through the profile, h. */
   targetRuntimeHours?: number;

@@ -65,17 +65,63 @@ export function ocvAt(curve: readonly OcvPoint[], soc: number): number {
 }
 
 /**
- * Capacity factor at a temperature: linear interpolation in the chemistry's table, held at the end
- * values outside it (`extrapolated` then says so).
+ * How far beyond the ends of a capacity-vs-temperature table the trend of its last two points is
+ * trusted, °C (our planning limit, common practice (no source)): farther out the temperature is
+ * refused and the maker's figure asked for.
  */
-export function capacityFactorAt(
-  table: readonly CapacityTemperaturePoint[],
-  temperatureC: number,
-): { factor: number; extrapolated: boolean } {
+export const MAX_TEMPERATURE_EXTRAPOLATION_C = 20;
+
+/** Capacity factor at a temperature, or why none is given. */
+export interface CapacityAtTemperature {
+  /** Available capacity ÷ capacity at 25 °C (0 when refused). */
+  factor: number;
+  /** True outside the table: the factor was extrapolated (method in `capacityFactorAt`). */
+  extrapolated: boolean;
+  /** Set when the temperature is refused: the message says why (the factor is then not to be used). */
+  refused?: string;
+}
+
+/**
+ * Capacity factor at a temperature: linear interpolation in the chemistry's table. Outside it,
+ * conservative linear extrapolation from the two end points on that side, never above the end
+ * value (so cold below the table lowers the capacity along the table's own slope, and heat above it
+ * never flatters it); never the end value held where the trend falls. Refused more than
+ * MAX_TEMPERATURE_EXTRAPOLATION_C beyond the table, or where the extrapolated capacity reaches 0.
+ */
+export function capacityFactorAt(table: readonly CapacityTemperaturePoint[], temperatureC: number): CapacityAtTemperature {
   const first = table[0]!;
   const last = table[table.length - 1]!;
-  if (temperatureC < first.temperatureC) return { factor: first.capacityFactor, extrapolated: true };
-  if (temperatureC > last.temperatureC) return { factor: last.capacityFactor, extrapolated: true };
+  const outside = temperatureC < first.temperatureC ? 'below' : temperatureC > last.temperatureC ? 'above' : null;
+  if (outside !== null) {
+    const end = outside === 'below' ? first : last;
+    const next = outside === 'below' ? table[1] : table[table.length - 2];
+    const span = `${first.temperatureC} °C to ${last.temperatureC} °C`;
+    if (Math.abs(temperatureC - end.temperatureC) > MAX_TEMPERATURE_EXTRAPOLATION_C) {
+      return {
+        factor: 0,
+        extrapolated: true,
+        refused: `${temperatureC} °C is more than ${MAX_TEMPERATURE_EXTRAPOLATION_C} °C ${outside} the capacity-vs-temperature table (${span}); give the maker\u2019s capacity at this temperature`,
+      };
+    }
+    if (next === undefined) {
+      return {
+        factor: 0,
+        extrapolated: true,
+        refused: `${temperatureC} °C is outside the one-point capacity-vs-temperature table (${span}): no trend to extrapolate; give the maker\u2019s capacity at this temperature`,
+      };
+    }
+    // Linear extrapolation through the two end points on this side, capped at the end value.
+    const slope = (end.capacityFactor - next.capacityFactor) / (end.temperatureC - next.temperatureC);
+    const factor = Math.min(end.capacityFactor, end.capacityFactor + slope * (temperatureC - end.temperatureC));
+    if (!(factor > 0)) {
+      return {
+        factor: 0,
+        extrapolated: true,
+        refused: `at ${temperatureC} °C the capacity-vs-temperature table (${span}), extrapolated along its end slope, leaves no capacity; give the maker\u2019s capacity at this temperature`,
+      };
+    }
+    return { factor, extrapolated: true };
+  }
   for (let i = 1; i < table.length; i++) {
     const b = table[i]!;
     if (temperatureC <= b.temperatureC) {
@@ -135,7 +181,10 @@ export function checkBank(spec: BatteryBankSpec): BankProblem[] {
     out.push(bad(where('floatCellVoltage'), v.floatCellVoltage, `the float voltage must not exceed the charge voltage ${v.chargeCellVoltage} V/cell`));
   }
   const soc0 = spec.initialSoc ?? 1;
-  if (soc0 <= 1 - v.usableDepthOfDischarge) {
+  // Lithium always stops at its usable depth of discharge (the BMS window); lead-acid and NiCd only
+  // in a cycling design, which the discharge checks (a backup design runs to the end voltage).
+  const lithium = spec.chemistry === 'lifepo4' || spec.chemistry === 'nmc';
+  if (lithium && soc0 <= 1 - v.usableDepthOfDischarge) {
     out.push(
       bad('bank.initialSoc', soc0, `starts at or below the usable depth-of-discharge limit (state of charge ${(1 - v.usableDepthOfDischarge).toFixed(2)}); nothing could be drawn`),
     );

@@ -28,3 +28,41 @@ export function bankCautions(chemistry: Chemistry): string[] {
 export function rechargeCautions(chemistry: Chemistry): string[] {
   return [PLANNING_CAUTION, CHARGE_VOLTAGE_CAUTION, ...(isLithium(chemistry) ? [LITHIUM_CAUTION] : []), ...(isVented(chemistry) ? [VENTED_CAUTION] : [])];
 }
+
+/** What the bank is designed for (BackupStudy.design). */
+export type BankDesign = 'backup' | 'cycling';
+
+/** User words for a value taken from a preset rather than the maker's data. */
+export const TYPICAL_VALUE = 'typical value: use the maker\u2019s figure';
+
+/**
+ * Whether the usable depth of discharge ends the discharge and bounds the size: always for
+ * lithium (the battery management system's window), for lead-acid and NiCd only in a cycling
+ * design (a standby bank is discharged to its end voltage, IEEE 485 / IEEE 1115).
+ */
+export const depthOfDischargeApplies = (chemistry: Chemistry, design: BankDesign): boolean => isLithium(chemistry) || design === 'cycling';
+
+/**
+ * The one sentence that says where a discharge ends and what sized the bank, shared by the runtime
+ * study and the sizing so the two never say different things. `endSource` and `dodSource` are
+ * user words ("typical value: use the maker's figure" or "maker's figure, as given").
+ */
+export function designBasis(
+  chemistry: Chemistry,
+  design: BankDesign,
+  endCellVoltage: number,
+  endSource: string,
+  dod: number,
+  dodSource: string,
+): string {
+  const end = `${endCellVoltage} V/cell under load (${endSource})`;
+  const pct = `${Math.round(dod * 100)} %`;
+  if (isLithium(chemistry)) {
+    return `The discharge ends at the usable depth of discharge, ${pct} (the battery management system\u2019s window; ${dodSource}), or at the end-of-discharge voltage ${end}, whichever comes first; the bank is sized for the usable share.`;
+  }
+  if (design === 'backup') {
+    const std = chemistry === 'nicd' ? 'IEEE 1115' : 'IEEE 485';
+    return `Backup design: the bank is discharged to its end-of-discharge voltage, ${end}, with no depth-of-discharge limit, and sized so (${std} standby sizing). For a bank that is cycled daily, choose the cycling design.`;
+  }
+  return `Cycling design: the discharge ends at the usable depth of discharge, ${pct} (${dodSource}), or at the end-of-discharge voltage ${end}, whichever comes first; the bank is sized for both.`;
+}

@@ -16,14 +16,18 @@
  * Available capacity C_avail = C × temperature factor × state of health; SoC = SoC_0 − Q_eq/C_avail.
  *
  * End of discharge, whichever comes first:
- * - depth of discharge: SoC reaches 1 − usable DoD (found exactly inside the step);
+ * - depth of discharge: SoC reaches 1 − usable DoD (found exactly inside the step) — lithium, and
+ *   lead-acid / NiCd in a cycling design only; a backup design (the default) discharges lead-acid
+ *   and NiCd to the end voltage as IEEE 485 / IEEE 1115 size standby cells, so there the SoC limit
+ *   is 0: the rated capacity at the Peukert rate is the charge the cells give to their end voltage
+ *   (end reason 'rated-capacity');
  * - cut-off voltage: the terminal voltage under load falls below end-of-discharge V/cell × cells in
  *   series (found between two steps by linear interpolation of the terminal voltage);
  * - the chain cannot be carried any more (voltage collapse on a link);
  * - the profile ends (a `segments` profile run once) or the horizon is reached: the runtime is
  *   then "longer than" that time, never Infinity.
  */
-import { bankCautions } from './cautions.ts';
+import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, type BankDesign } from './cautions.ts';
 import type { BackupStudy, BatterySource, Element, Project } from '../model.ts';
 import type { ElementResult } from '../result.ts';
 import type { Problem } from '../errors.ts';
@@ -36,7 +40,7 @@ import { type Bank, bankOcv, capacityFactorAt, resolveBank } from './bank.ts';
 import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
 import { DEFAULT_TIME_STEP_S, buildTimeline, checkStudy } from './profile.ts';
 
-export type EndReason = 'depth-of-discharge' | 'cut-off-voltage' | 'chain-collapse' | 'profile-complete' | 'horizon';
+export type EndReason = 'depth-of-discharge' | 'rated-capacity' | 'cut-off-voltage' | 'chain-collapse' | 'profile-complete' | 'horizon';
 
 /** Time series for plotting: one entry per step boundary (struct of arrays). */
 export interface DischargeSeries {
@@ -101,8 +105,12 @@ export interface DischargeResult {
   /** Lowest terminal voltage over the run, V. */
   minVoltage: number;
   cutoffVoltage: number;
-  /** State of charge at the depth-of-discharge limit. */
+  /** State of charge at the depth-of-discharge limit (0 in a lead-acid or NiCd backup design). */
   socLimit: number;
+  /** What the bank is designed for (the study's `design`, default 'backup'). */
+  design: BankDesign;
+  /** Where the discharge ends, in words (the same sentence the sizing gives). */
+  basis: string;
   temperatureC: number;
   temperatureFactor: number;
   temperatureExtrapolated: boolean;
@@ -144,6 +152,7 @@ function noLoadDraws(project: Project): Omit<IdleDraw, 'energyWh'>[] {
 
 const END_TEXT: Record<EndReason, string> = {
   'depth-of-discharge': 'the usable depth of discharge was reached',
+  'rated-capacity': 'the rated capacity at this rate was used: the cells are at their end-of-discharge voltage',
   'cut-off-voltage': 'the terminal voltage under load fell to the cut-off',
   'chain-collapse': 'the chain could no longer be carried (voltage collapse on a link)',
   'profile-complete': 'the bank carried the whole profile',
@@ -214,11 +223,30 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const step = study.timeStepSeconds ?? DEFAULT_TIME_STEP_S;
   const temperatureC = study.temperatureC ?? 25;
   const temp = capacityFactorAt(v.capacityVsTemperature, temperatureC);
+  if (temp.refused !== undefined) {
+    return { ok: false, problems: [{ code: 'outside-table', elementId: 'project', field: 'backup.temperatureC', value: temperatureC, message: temp.refused }] };
+  }
+  const design: BankDesign = study.design ?? 'backup';
+  const dodApplies = depthOfDischargeApplies(bank.chemistry, design);
   const soh = study.stateOfHealth ?? 1;
   const availableAs = bank.capacityAh * temp.factor * soh * H; // A·s
   const k = v.peukertExponent;
   const iRated = bank.ratedCurrent;
-  const socLimit = 1 - v.usableDepthOfDischarge;
+  const socLimit = dodApplies ? 1 - v.usableDepthOfDischarge : 0;
+  if (bank.initialSoc <= socLimit) {
+    return {
+      ok: false,
+      problems: [
+        {
+          code: 'invalid-value',
+          elementId: source.id,
+          field: 'bank.initialSoc',
+          value: bank.initialSoc,
+          message: `starts at or below the usable depth-of-discharge limit of this ${design} design (state of charge ${socLimit.toFixed(2)}); nothing could be drawn`,
+        },
+      ],
+    };
+  }
   const R = bank.internalResistance;
   const cutoff = bank.cutoffVoltage;
 
@@ -326,7 +354,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
       carried = after === null ? null : { p: after, state };
       record(acc.t, acc.soc, after ?? p);
       if (hitsLimit) {
-        endReason = 'depth-of-discharge';
+        endReason = dodApplies ? 'depth-of-discharge' : 'rated-capacity';
         break outer;
       }
     }
@@ -343,7 +371,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
           elementId: source.id,
           field: source.bank!.strings === undefined ? 'bank.capacityAh' : 'bank.strings',
           value: acc.peak,
-          message: `the peak current ${acc.peak.toFixed(1)} A is above the ${bank.label} limit of ${v.maxDischargeCRate} C = ${bank.maxDischargeCurrent.toFixed(1)} A for this bank (${bank.capacityAh} Ah); add strings or a larger capacity, or give the maker\u2019s rating in bank.overrides.maxDischargeCRate`,
+          message: `the peak current ${acc.peak.toFixed(1)} A is above the ${bank.label} limit of ${v.maxDischargeCRate} C = ${bank.maxDischargeCurrent.toFixed(1)} A (${bank.overridden.includes('maxDischargeCRate') ? 'maker\u2019s figure, as given' : TYPICAL_VALUE}) for this bank (${bank.capacityAh} Ah); add strings or a larger capacity, or give the maker\u2019s maximum discharge rate`,
         },
       ],
     };
@@ -353,10 +381,20 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const warnings: string[] = [];
   if (temp.extrapolated) {
     const t = v.capacityVsTemperature;
-    warnings.push(`${temperatureC} °C is outside the capacity-vs-temperature table (${t[0]!.temperatureC} to ${t[t.length - 1]!.temperatureC} °C); its end value is used`);
+    warnings.push(
+      `${temperatureC} °C is outside the capacity-vs-temperature table (${t[0]!.temperatureC} to ${t[t.length - 1]!.temperatureC} °C): the capacity factor ${temp.factor.toFixed(3)} is extrapolated linearly along the table\u2019s end slope, never above its end value; use the maker\u2019s figure for this temperature`,
+    );
   }
   if (!solver.fast) warnings.push('an element between the bank and the first converter is neither a cable nor a DC bus: the whole chain was re-solved at every step');
-  const cautions = bankCautions(bank.chemistry);
+  const from = (k: keyof typeof v) => (bank.overridden.includes(k) ? 'maker\u2019s figure, as given' : TYPICAL_VALUE);
+  const leadAcid = bank.chemistry === 'flooded-lead-acid' || bank.chemistry === 'vrla-agm' || bank.chemistry === 'gel';
+  const temperatureSource = bank.overridden.includes('capacityVsTemperature')
+    ? 'maker\u2019s figure, as given'
+    : leadAcid
+      ? '1 ÷ the IEEE 485 Table 1 factor, 1.00 above 25 °C as the note to Table 1 advises'
+      : TYPICAL_VALUE;
+  const basis = designBasis(bank.chemistry, design, v.endOfDischargeCellVoltage, from('endOfDischargeCellVoltage'), v.usableDepthOfDischarge, from('usableDepthOfDischarge'));
+  const cautions = [...bankCautions(bank.chemistry), basis];
   if (v.minChargeTemperatureC >= 0 && temperatureC < v.minChargeTemperatureC) {
     cautions.push(`At ${temperatureC} °C this ${bank.label} bank must not be charged (minimum ${v.minChargeTemperatureC} °C); warm it first.`);
   }
@@ -364,17 +402,19 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const derates: Derate[] = [
     { label: 'nameplate energy', value: bank.nominalWh, unit: 'Wh', note: `${bank.nominalVoltage.toFixed(1)} V nominal × ${bank.capacityAh} Ah (C${v.ratedHours})` },
     { label: 'simple estimate Wh ÷ W', value: loadW > 0 ? bank.nominalWh / loadW : 0, unit: 'h', note: `nameplate Wh ÷ average load ${loadW.toFixed(1)} W` },
-    { label: 'usable depth of discharge', value: v.usableDepthOfDischarge, unit: '', note: `the discharge stops at ${(socLimit * 100).toFixed(0)} % state of charge` },
-    { label: 'temperature', value: temp.factor, unit: '', note: `capacity at ${temperatureC} °C vs 25 °C${temp.extrapolated ? ' (outside the table: end value)' : ''}` },
+    dodApplies
+      ? { label: 'usable depth of discharge', value: v.usableDepthOfDischarge, unit: '', note: `the discharge stops at ${(socLimit * 100).toFixed(0)} % state of charge (${from('usableDepthOfDischarge')})` }
+      : { label: 'end-of-discharge voltage per cell', value: v.endOfDischargeCellVoltage, unit: 'V', note: `backup design: discharged to the end voltage, no depth-of-discharge limit (${from('endOfDischargeCellVoltage')})` },
+    { label: 'temperature', value: temp.factor, unit: '', note: `capacity at ${temperatureC} °C vs 25 °C (${temperatureSource})${temp.extrapolated ? '; outside the table: extrapolated along its end slope, never above its end value' : ''}` },
     { label: 'aging (state of health)', value: soh, unit: '', note: 'capacity left after aging' },
     {
       label: 'Peukert at the actual rate',
       value: 1 / peukertFactor,
       unit: '',
-      note: `k = ${k}, rated current ${iRated.toFixed(1)} A (C/${v.ratedHours}), average current ${(runtime > 0 ? acc.charge / runtime : 0).toFixed(1)} A`,
+      note: `k = ${k} (${from('peukertExponent')}), rated current ${iRated.toFixed(1)} A (C/${v.ratedHours}), average current ${(runtime > 0 ? acc.charge / runtime : 0).toFixed(1)} A`,
     },
     { label: 'chain losses (cables, bus, converters)', value: acc.chain / H, unit: 'Wh', note: 'drawn from the bank but not used by the loads' },
-    { label: 'bank internal I²R', value: acc.internal / H, unit: 'Wh', note: `internal resistance ${(R * 1000).toFixed(2)} mΩ` },
+    { label: 'bank internal I²R', value: acc.internal / H, unit: 'Wh', note: `internal resistance ${(R * 1000).toFixed(2)} mΩ (${source.internalResistance !== undefined ? 'as given' : from('internalResistanceOhmAh')})` },
     ...idle.map((d): Derate => ({ label: `standby draw of ${d.name}`, value: d.energyWh, unit: 'Wh', note: `${d.watts.toFixed(1)} W over the runtime (part of the chain losses)` })),
   ];
   return {
@@ -399,6 +439,8 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
       minVoltage: Number.isFinite(acc.minV) ? acc.minV : bank.initialOcv,
       cutoffVoltage: cutoff,
       socLimit,
+      design,
+      basis,
       temperatureC,
       temperatureFactor: temp.factor,
       temperatureExtrapolated: temp.extrapolated,

@@ -68,6 +68,7 @@ export const backupSchema = z.strictObject({
   horizonHours: z.optional(positive('h').check(z.lte(24 * 366, 'must not exceed one year (8784 h)'))),
   temperatureC: z.optional(num().check(z.gte(-60, 'must be −60 °C or more'), z.lte(80, 'must be 80 °C or less'))),
   stateOfHealth: z.optional(fraction('state of health')),
+  design: z.optional(z.enum(['backup', 'cycling'], { error: 'must be "backup" (discharge to the end voltage) or "cycling" (also stop at the usable depth of discharge)' })),
   targetRuntimeHours: z.optional(positive('h')),
   designMargin: z.optional(num().check(z.gte(1, 'must be at least 1 (1.10 adds 10 %)'))),
   agingFactor: z.optional(num().check(z.gte(1, 'must be at least 1 (1.25 for a bank replaced at 80 % capacity)'))),

@@ -193,6 +193,8 @@ const isFiniteNumber = (x: unknown): x is number => typeof x === 'number' && Num
 /** The checked model constants (hours and Ah inside; results converted to s). */
 interface Model {
   preset: ChemistryPreset;
+  /** The maximum charge rate in the user's words: the maker's figure as given, or a typical value. */
+  chargeRateSource: string;
   profile: ChargeProfile;
   fields: RechargeFieldPaths;
   elementId: string;
@@ -301,6 +303,7 @@ function checkBase(input: RechargeBase): { ok: true; m: Model } | { ok: false; p
     ok: true,
     m: {
       preset,
+      chargeRateSource: input.overrides?.maxChargeCRate !== undefined ? 'maker\u2019s figure, as given' : 'typical value: use the maker\u2019s figure',
       profile,
       fields,
       elementId,
@@ -350,20 +353,20 @@ function build(m: Model, chargerCurrent: number): Recharge {
   const bankCurrent = Math.min(available, m.maxBankCurrent);
   step('Charger current', chargerCurrent, 'A', 'DC output rating');
   step('Standing load carried by the charger', m.loadCurrent, 'A', 'served before the bank');
-  step('Current into the bank (CC)', bankCurrent, 'A', bankCurrent < available ? `held at the maximum charge rate ${m.preset.maxChargeCRate} C` : 'charger − load');
+  step('Current into the bank (CC)', bankCurrent, 'A', bankCurrent < available ? `held at the maximum charge rate ${m.preset.maxChargeCRate} C (${m.chargeRateSource})` : 'charger − load');
   if (bankCurrent < available) {
     warnings.push(
-      `The charger could give the bank ${fmt(available)} A, above its maximum charge rate (${m.preset.maxChargeCRate} C = ${fmt(m.maxBankCurrent)} A): set the charger's current limit (or the battery management system will).`,
+      `The charger could give the bank ${fmt(available)} A, above its maximum charge rate (${m.preset.maxChargeCRate} C = ${fmt(m.maxBankCurrent)} A, ${m.chargeRateSource}): set the charger's current limit (or the battery management system will).`,
     );
   }
-  step('Charge efficiency', eta, '', 'Ah stored ÷ Ah put in (common practice per chemistry)');
+  step('Charge efficiency', eta, '', 'Ah stored ÷ Ah put in (typical value per chemistry: use the maker\u2019s figure)');
   step('CV time constant τ', m.tau * 3600, 's', `(1 − ${m.profile.cvTransitionSoc}) ÷ (η × ${m.profile.referenceCRate} C)`);
   const st = stages(m, bankCurrent);
   step('Start state of charge', m.startSoc, '', '');
-  step('CC → CV transition state of charge', st.sCv, '', `1 − η·I·τ/C for this charger (${m.profile.cvTransitionSoc} at ${m.profile.referenceCRate} C)`);
+  step('CC → CV transition state of charge', st.sCv, '', `1 − η·I·τ/C for this charger (${m.profile.cvTransitionSoc} at ${m.profile.referenceCRate} C: typical values per chemistry, use the maker\u2019s figures)`);
   step('Constant-current stage', st.tcc * 3600, 's', '(s_cv − s_0)·C ÷ (η·I)');
   step('Constant-voltage stage', st.tcv * 3600, 's', 'τ·ln((1 − s_cv)/(1 − s_end)): exponential taper');
-  step('End state of charge', st.reached, '', m.endSoc < 1 ? `CV ends at ${fmt(st.iEnd)} A (${m.profile.terminationCRate} C termination, or the target given)` : '');
+  step('End state of charge', st.reached, '', m.endSoc < 1 ? `CV ends at ${fmt(st.iEnd)} A (${m.profile.terminationCRate} C termination, typical value: use the maker\u2019s figure; or the target given)` : '');
   if (m.startSoc >= m.endSoc) warnings.push('The bank already stands at or above the end state of charge: no recharge is needed.');
   if (bankCurrent <= m.terminationCurrent && m.startSoc < m.endSoc) {
     warnings.push(
@@ -461,7 +464,7 @@ export function chargerForTargetTime(input: ChargerForTimeInput): ChargerOutcome
           m.elementId,
           m.fields.targetTime,
           target,
-          `no charger can recharge this bank within ${fmt(targetH)} h: even at its maximum charge rate (${m.preset.maxChargeCRate} C = ${fmt(m.maxBankCurrent)} A) it takes ${fmt(fastest)} h, the taper of the constant-voltage stage included`,
+          `no charger can recharge this bank within ${fmt(targetH)} h: even at its maximum charge rate (${m.preset.maxChargeCRate} C = ${fmt(m.maxBankCurrent)} A, ${m.chargeRateSource}) it takes ${fmt(fastest)} h, the taper of the constant-voltage stage included`,
         ),
       ],
     };

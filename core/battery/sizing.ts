@@ -23,8 +23,10 @@
  *    overstates what a cell delivers for minutes, so with Peukert K_t the chemistry's maximum
  *    continuous discharge C-rate also bounds the size (a datasheet K_t table is trusted instead,
  *    and a rate above the C-rate is only flagged).
- *    Depth-of-discharge limit (on by default; not part of IEEE 485, which sizes standby cells to
- *    the end voltage): the smallest C whose usable share DoD·C ÷ (temperature × design margin ×
+ *    Design (`design`, default 'backup'): a backup design sizes to the end-of-discharge voltage
+ *    only, as IEEE 485 / IEEE 1115 size standby cells (K_t is rated to that end voltage), and the
+ *    runtime study then discharges to it. A cycling design adds the depth-of-discharge limit
+ *    (not part of IEEE 485): the smallest C whose usable share DoD·C ÷ (temperature × design margin ×
  *    aging) covers the Peukert-equivalent charge of the duty cycle as the runtime study counts it,
  *    Σ I·max(1, I·H/C)^(k−1)·t with I_rated = C/H of the bank itself — so a bank sized here also
  *    passes the runtime study.
@@ -41,14 +43,28 @@
  *    must have at least I_peak ÷ C-rate Ah (more capacity or more strings when it fails).
  *    Peukert effects are neglected for lithium (k ≈ 1.0–1.05).
  *
- * 4. Strings: with a list of standard ratings, the fewest strings (up to `maxStrings`) for which a
- *    rating covers required Ah ÷ strings, then the smallest such rating; continuous otherwise.
+ * 4. Strings: in the user's module (`moduleAh`, the block or cell of the bank as given), whole
+ *    strings n = ⌈required Ah ÷ module Ah⌉ in parallel, each of the series blocks; with a list of
+ *    standard ratings instead, the fewest strings (up to `maxStrings`) for which a rating covers
+ *    required Ah ÷ strings, then the smallest such rating; continuous otherwise.
+ *
+ * Constant-power worksheet: with a maker's constant-power table (`powerFactors`: watts per cell per
+ * rated Ah to the end voltage for t), the worksheet runs on watts per cell in place of amperes,
+ * F_S = Σ (P_P − P_{P−1})/cells · K_t^W, K_t^W = 1 ÷ (W per cell per Ah) — the same section
+ * arithmetic (it is linear in the load), as makers size constant-power (UPS) duty from their
+ * W/cell tables.
+ *
+ * Temperature outside the tables: below IEEE 485 Table 1 (−3.9 °C) the capacity (1 ÷ factor) is
+ * extrapolated linearly from the two coldest rows (never below the coldest factor), as the runtime
+ * study extrapolates the chemistry's capacity table (core/battery/bank.ts capacityFactorAt);
+ * refused farther than 20 °C out.
  *
  * Constant-power duty cycles are converted to current at a stated voltage: by default the minimum
  * bank voltage (end-of-discharge cell voltage × cells), the conservative choice — the current of a
  * constant-power load is highest there.
  */
-import { bankCautions, isLithium } from './cautions.ts';
+import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, isLithium, type BankDesign } from './cautions.ts';
+import { MAX_TEMPERATURE_EXTRAPOLATION_C, capacityFactorAt as extrapolatedCapacityFactor } from './bank.ts';
 import {
   CHEMISTRIES,
   CHEMISTRY_PRESETS,
@@ -93,6 +109,15 @@ export type DutyCycle =
 /** A random (non-continuous) load of the worksheet: its current or power and its duration (s). */
 export type RandomLoad = { duration: number; current: number } | { duration: number; power: number };
 
+/**
+ * One point of a maker's constant-power table: the watts one cell gives per rated Ah for `time`
+ * (s) to the end voltage (W/cell/Ah).
+ */
+export interface PowerFactorPoint {
+  time: number;
+  wattsPerCellPerAh: number;
+}
+
 /** One point of a datasheet capacity-rating-factor table: K_t (h = rated Ah per A) at time t (s). */
 export interface CapacityFactorPoint {
   time: number;
@@ -118,6 +143,9 @@ export interface SizingFieldPaths {
   seriesBlocks: string;
   maxStrings: string;
   randomLoad: string;
+  design: string;
+  moduleAh: string;
+  powerFactors: string;
 }
 
 export interface SizingInput {
@@ -147,12 +175,23 @@ export interface SizingInput {
    */
   creditAbove25C?: boolean;
   /**
-   * Lead-acid and NiCd: also size so the duty cycle takes no more than the usable depth of
-   * discharge (Peukert-equivalent charge, as the runtime study counts it). Default true, so the
-   * sized bank passes the runtime study; false sizes to the end voltage only (IEEE 485 as written,
-   * for standby duty).
+   * What the bank is for (default 'backup'): lead-acid and NiCd are sized to the end voltage only
+   * (IEEE 485 / IEEE 1115 standby sizing) in a backup design, and also for the usable depth of
+   * discharge in a cycling design. Lithium is sized for its usable depth of discharge in both.
+   */
+  design?: BankDesign;
+  /**
+   * Lead-acid and NiCd: overrides what `design` implies (true: also size for the usable depth of
+   * discharge, as a cycling design does; false: the end voltage only, as a backup design does).
    */
   limitDepthOfDischarge?: boolean;
+  /**
+   * Capacity of the user's module (the block or cell of one string, Ah at the rated hours): the
+   * bank comes in whole strings of it, n = ⌈required ÷ module⌉. Ignored when `ratings` are given.
+   */
+  moduleAh?: number;
+  /** A maker's constant-power table (W per cell per Ah at t) for a power duty cycle (see header). */
+  powerFactors?: readonly PowerFactorPoint[];
   /** Standard capacity ratings per string, Ah (rated at the chemistry's rated hours). Omitted: continuous. */
   ratings?: readonly number[];
   /** Datasheet K_t table for the worksheet (lead-acid, NiCd); default Peukert's law. */
@@ -208,6 +247,11 @@ export interface WorksheetSection {
    * It is computed anyway; the maximum is unchanged.
    */
   needed: boolean;
+  /**
+   * Set when the worksheet size inside the section's last period (before its end) is larger than
+   * F_S: time into that period (s) and the size there, Ah. See `interiorPeak`.
+   */
+  interiorPeak?: { time: number; size: number };
 }
 
 export type SizingMethod = 'ieee-485-worksheet' | 'ieee-1115-worksheet' | 'energy';
@@ -221,6 +265,14 @@ export type GoverningLimit =
 
 export interface BankSizing {
   method: SizingMethod;
+  /** The design sized for (lead-acid and NiCd: 'cycling' when the depth of discharge bounded it). */
+  design: BankDesign;
+  /** Where the discharge ends and what sized the bank, in words (the runtime study says the same). */
+  basis: string;
+  /** The bank in the user's words, e.g. "3 strings × 200 Ah = 600 Ah, 30.7 kWh". */
+  summary: string;
+  /** The worksheet's load column: amperes, or watts per cell with a maker's constant-power table. */
+  worksheetBasis: 'current' | 'power-per-cell';
   chemistry: Chemistry;
   /** Cells in series. */
   seriesCells: number;
@@ -308,6 +360,9 @@ const DEFAULT_FIELDS: SizingFieldPaths = {
   seriesBlocks: 'bank.series',
   maxStrings: 'backup.maxStrings',
   randomLoad: 'backup.randomLoad',
+  design: 'backup.design',
+  moduleAh: 'bank.capacityAh',
+  powerFactors: 'backup.powerFactors',
 };
 
 // ---------------------------------------------------------------------------------------------
@@ -425,7 +480,8 @@ export function capacityFactorAt(table: readonly CapacityTemperaturePoint[], tem
 
 /**
  * IEEE 485 Table 1 cell-size temperature correction factor at an electrolyte temperature (°C):
- * linear interpolation on the standard's own °C column; null outside −3.9…51.7 °C.
+ * linear interpolation on the standard's own °C column; null outside −3.9…51.7 °C (see
+ * `leadAcidTemperatureFactor` for the sizing's conservative extrapolation below the table).
  */
 export function ieee485TemperatureFactor(temperature: number): number | null {
   return interpolate(
@@ -433,6 +489,30 @@ export function ieee485TemperatureFactor(temperature: number): number | null {
     IEEE_485_TEMPERATURE_FACTORS.map((r) => r.factor),
     temperature,
   );
+}
+
+/**
+ * The sizing's lead-acid temperature factor: IEEE 485 Table 1 inside it; below −3.9 °C the capacity
+ * (1 ÷ factor) extrapolated linearly from the two coldest rows (−3.9 °C 1.52, −1.1 °C 1.43), as the
+ * runtime study extrapolates the same rows of the chemistry's capacity table (bank.ts), so the two
+ * agree; never below the coldest factor, up to MAX_TEMPERATURE_EXTRAPOLATION_C below the table; above 51.7 °C 1.00 without
+ * credit (the table's note), refused with credit (extrapolating would flatter the capacity).
+ * Null when refused.
+ */
+export function leadAcidTemperatureFactor(temperature: number, credit: boolean): { raw: number; extrapolated: boolean } | null {
+  const inside = ieee485TemperatureFactor(temperature);
+  if (inside !== null) return { raw: inside, extrapolated: false };
+  const rows = IEEE_485_TEMPERATURE_FACTORS;
+  const first = rows[0]!;
+  const second = rows[1]!;
+  if (temperature < first.celsius) {
+    if (first.celsius - temperature > MAX_TEMPERATURE_EXTRAPOLATION_C) return null;
+    const slope = (1 / second.factor - 1 / first.factor) / (second.celsius - first.celsius);
+    const capacity = 1 / first.factor + slope * (temperature - first.celsius);
+    if (!(capacity > 0)) return null;
+    return { raw: Math.max(first.factor, 1 / capacity), extrapolated: true };
+  }
+  return credit ? null : { raw: 1, extrapolated: true };
 }
 
 /**
@@ -529,17 +609,23 @@ function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok: false;
   if (!isFiniteNumber(temperature)) {
     out.push(problem('invalid-value', elementId, fields.temperature, temperature, 'temperature must be a number (°C)'));
   } else if (isLeadAcid(preset.chemistry)) {
-    if (ieee485TemperatureFactor(temperature) === null) {
+    if (leadAcidTemperatureFactor(temperature, input.creditAbove25C === true) === null) {
       const rows = IEEE_485_TEMPERATURE_FACTORS;
       out.push(
-        problem('outside-table', elementId, fields.temperature, temperature, `electrolyte temperature ${temperature} °C is outside IEEE 485 Table 1 (${rows[0]!.celsius} °C to ${rows[rows.length - 1]!.celsius} °C); no correction factor is published there`),
+        problem(
+          'outside-table',
+          elementId,
+          fields.temperature,
+          temperature,
+          temperature < rows[0]!.celsius
+            ? `electrolyte temperature ${temperature} °C is more than ${MAX_TEMPERATURE_EXTRAPOLATION_C} °C below IEEE 485 Table 1 (${rows[0]!.celsius} °C to ${rows[rows.length - 1]!.celsius} °C); give the maker\u2019s capacity at this temperature`
+            : `electrolyte temperature ${temperature} °C is above IEEE 485 Table 1 (up to ${rows[rows.length - 1]!.celsius} °C): no credit for heat can be taken there`,
+        ),
       );
     }
-  } else if (capacityFactorAt(preset.capacityVsTemperature, temperature) === null) {
-    const t = preset.capacityVsTemperature;
-    out.push(
-      problem('outside-table', elementId, fields.temperature, temperature, `cell temperature ${temperature} °C is outside the ${preset.label} capacity-vs-temperature table (${t[0]!.temperatureC} °C to ${t[t.length - 1]!.temperatureC} °C)`),
-    );
+  } else {
+    const c = extrapolatedCapacityFactor(preset.capacityVsTemperature, temperature);
+    if (c.refused !== undefined) out.push(problem('outside-table', elementId, fields.temperature, temperature, `cell temperature: ${c.refused}`));
   }
 
   if (input.ratings !== undefined) {
@@ -553,8 +639,9 @@ function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok: false;
   }
   if (input.capacityFactors !== undefined) {
     const t = input.capacityFactors;
-    if (!Array.isArray(t) || t.length < 2) {
-      out.push(problem('invalid-value', elementId, fields.capacityFactors, t, 'a K_t table needs at least two points'));
+    // One point is a maker's figure for a single time (a one-period duty cycle of that length).
+    if (!Array.isArray(t) || t.length < 1) {
+      out.push(problem('invalid-value', elementId, fields.capacityFactors, t, 'a K_t table needs at least one point'));
     } else {
       t.forEach((p, i) => {
         const base = `${fields.capacityFactors}[${i}]`;
@@ -566,6 +653,31 @@ function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok: false;
     if (!isLeadAcid(preset.chemistry) && preset.chemistry !== 'nicd') {
       out.push(problem('invalid-value', elementId, fields.capacityFactors, t, 'a K_t table applies to the lead-acid and NiCd worksheet only; lithium is sized by energy'));
     }
+  }
+  if (input.moduleAh !== undefined && (!isFiniteNumber(input.moduleAh) || input.moduleAh <= 0)) {
+    out.push(problem('invalid-value', elementId, fields.moduleAh, input.moduleAh, 'the module capacity must be greater than 0 Ah'));
+  }
+  if (input.design !== undefined && input.design !== 'backup' && input.design !== 'cycling') {
+    out.push(problem('invalid-value', elementId, fields.design, input.design, 'design must be "backup" or "cycling"'));
+  }
+  if (input.powerFactors !== undefined) {
+    const t = input.powerFactors;
+    if (!Array.isArray(t) || t.length < 1) {
+      out.push(problem('invalid-value', elementId, fields.powerFactors, t, 'a constant-power table needs at least one point'));
+    } else {
+      t.forEach((p, i) => {
+        const base = `${fields.powerFactors}[${i}]`;
+        if (!isFiniteNumber(p.time) || p.time <= 0) out.push(problem('invalid-value', elementId, `${base}.time`, p.time, 'time must be greater than 0 s'));
+        else if (i > 0 && isFiniteNumber(t[i - 1]!.time) && p.time <= t[i - 1]!.time) out.push(problem('invalid-value', elementId, `${base}.time`, p.time, 'times must rise from one point to the next'));
+        if (!isFiniteNumber(p.wattsPerCellPerAh) || p.wattsPerCellPerAh <= 0) out.push(problem('invalid-value', elementId, `${base}.wattsPerCellPerAh`, p.wattsPerCellPerAh, 'W per cell per Ah must be greater than 0'));
+      });
+    }
+    if (!isLeadAcid(preset.chemistry) && preset.chemistry !== 'nicd') {
+      out.push(problem('invalid-value', elementId, fields.powerFactors, t, 'a constant-power table applies to the lead-acid and NiCd worksheet only; lithium is sized by energy'));
+    }
+    if (input.capacityFactors !== undefined) out.push(problem('invalid-value', elementId, fields.powerFactors, t, 'give either a K_t table (amperes) or a constant-power table (watts per cell), not both'));
+    if (input.dutyCycle?.basis !== 'power') out.push(problem('invalid-value', elementId, fields.powerFactors, t, 'a constant-power table needs a duty cycle given in watts'));
+    if (input.randomLoad !== undefined && 'current' in input.randomLoad) out.push(problem('invalid-value', elementId, `${fields.randomLoad}.current`, input.randomLoad.current, 'with a constant-power table give the random load in watts'));
   }
   const cellsPerBlock = input.cellsPerBlock ?? 1;
   if (!Number.isInteger(cellsPerBlock) || cellsPerBlock < 1) {
@@ -638,6 +750,8 @@ export function sizeBank(input: SizingInput): SizingOutcome {
   const steps: SizingStep[] = [];
   const warnings: string[] = [];
   const step = (label: string, value: number, unit: string, note: string) => steps.push({ label, value, unit, note });
+  // Where a preset value came from, in the user's words (the provenance marks stay in the data file).
+  const userSource = (k: keyof ChemistryValues) => (input.overrides?.[k] !== undefined ? 'maker\u2019s figure, as given' : TYPICAL_VALUE);
 
   // 1. Series count from the bus voltage.
   const blockVoltage = preset.nominalCellVoltage * cellsPerBlock;
@@ -645,7 +759,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
   const seriesCells = seriesBlocks * cellsPerBlock;
   const nominalVoltage = seriesCells * preset.nominalCellVoltage;
   const minimumVoltage = seriesCells * preset.endOfDischargeCellVoltage;
-  step('Nominal cell voltage', preset.nominalCellVoltage, 'V', `${preset.label} (${preset.provenance.nominalCellVoltage})`);
+  step('Nominal cell voltage', preset.nominalCellVoltage, 'V', `${preset.label} (${userSource('nominalCellVoltage')})`);
   step(
     cellsPerBlock > 1 ? 'Blocks in series' : 'Cells in series',
     seriesBlocks,
@@ -653,7 +767,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
     input.seriesBlocks !== undefined ? 'as given' : `round(${input.busVoltage} V ÷ ${round(blockVoltage)} V)`,
   );
   step('Nominal bank voltage', nominalVoltage, 'V', `${seriesCells} cells × ${preset.nominalCellVoltage} V`);
-  step('Minimum bank voltage', minimumVoltage, 'V', `${seriesCells} cells × ${preset.endOfDischargeCellVoltage} V/cell end of discharge`);
+  step('Minimum bank voltage', minimumVoltage, 'V', `${seriesCells} cells × ${preset.endOfDischargeCellVoltage} V/cell end of discharge (${userSource('endOfDischargeCellVoltage')})`);
   if (Math.abs(nominalVoltage - input.busVoltage) > 0.05 * input.busVoltage) {
     warnings.push(
       `The nominal bank voltage ${round(nominalVoltage)} V differs from the bus voltage ${input.busVoltage} V by more than 5 %: check the equipment's input range.`,
@@ -714,6 +828,11 @@ export function sizeBank(input: SizingInput): SizingOutcome {
   step('Peak current', peakCurrent, 'A', random !== undefined ? 'largest period current + random load' : 'largest period current');
 
   const worksheet = isLeadAcid(preset.chemistry) || preset.chemistry === 'nicd';
+  // The design: a backup design sizes lead-acid and NiCd to the end voltage only; an explicit
+  // limitDepthOfDischarge decides it (and the basis then says the design it amounts to).
+  const limitDoD = worksheet ? (input.limitDepthOfDischarge ?? depthOfDischargeApplies(preset.chemistry, input.design ?? 'backup')) : true;
+  const design: BankDesign = worksheet ? (limitDoD ? 'cycling' : 'backup') : (input.design ?? 'backup');
+  const powerTable = worksheet ? input.powerFactors : undefined;
   let sections: WorksheetSection[] = [];
   let worksheetPeriods: CurrentPeriod[] = periods;
   let required: number;
@@ -722,7 +841,16 @@ export function sizeBank(input: SizingInput): SizingOutcome {
 
   if (worksheet) {
     method = preset.chemistry === 'nicd' ? 'ieee-1115-worksheet' : 'ieee-485-worksheet';
-    const table = input.capacityFactors;
+    // With a maker's constant-power table, K_t^W = 1 ÷ (W per cell per Ah), in the same log–log form.
+    const table: readonly CapacityFactorPoint[] | undefined =
+      powerTable !== undefined ? powerTable.map((p) => ({ time: p.time, factor: 1 / p.wattsPerCellPerAh })) : input.capacityFactors;
+    const tableField = powerTable !== undefined ? fields.powerFactors : fields.capacityFactors;
+    let loadColumn = periods;
+    if (powerTable !== undefined && powerPeriods !== null) {
+      // The worksheet's load column in watts per cell (the duty cycle's power ÷ cells in series).
+      loadColumn = mergeEqualPeriods(powerPeriods.map((p) => ({ duration: p.duration, current: p.power / seriesCells })));
+      step('Load per cell', Math.max(...loadColumn.map((p) => p.current)), 'W', `largest period power ÷ ${seriesCells} cells; the worksheet runs on watts per cell`);
+    }
     // First time the datasheet table does not cover (NaN while none).
     const missing = { time: Number.NaN };
     const kAt = (timeS: number): number => {
@@ -740,19 +868,21 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       'Capacity rating factor K_t',
       table !== undefined ? table.length : preset.peukertExponent,
       table !== undefined ? 'points' : '',
-      table !== undefined
-        ? 'from the datasheet table given (log–log interpolation)'
-        : `Peukert's law: K_t = H·(t/H)^(1/k), H = ${preset.ratedHours} h, k = ${preset.peukertExponent} (${preset.provenance.peukertExponent})`,
+      powerTable !== undefined
+        ? 'K_t = 1 ÷ (W per cell per Ah) from the maker\u2019s constant-power table given (log–log interpolation)'
+        : table !== undefined
+          ? 'from the datasheet table given (log–log interpolation)'
+          : `Peukert's law: K_t = H·(t/H)^(1/k), H = ${preset.ratedHours} h, k = ${preset.peukertExponent} (${userSource('peukertExponent')})`,
     );
     // A long sampled profile: neighbours within 0.5 % joined at the higher current (conservative:
     // the size never falls when a current rises), so the O(n²) worksheet stays quick.
-    const merged = periods.length > MAX_PERIODS_WITH_ROWS ? mergeNearPeriods(periods, NEAR_CURRENT) : periods;
-    if (merged.length < periods.length) {
+    const merged = loadColumn.length > MAX_PERIODS_WITH_ROWS ? mergeNearPeriods(loadColumn, NEAR_CURRENT) : loadColumn;
+    if (merged.length < loadColumn.length) {
       step(
         'Worksheet periods',
         merged.length,
         '',
-        `${periods.length} periods; neighbours within ${NEAR_CURRENT * 100} % joined at the higher current (conservative)`,
+        `${loadColumn.length} periods; neighbours within ${NEAR_CURRENT * 100} % joined at the higher current (conservative)`,
       );
     }
     worksheetPeriods = merged;
@@ -764,23 +894,69 @@ export function sizeBank(input: SizingInput): SizingOutcome {
           problem(
             'outside-table',
             elementId,
-            fields.capacityFactors,
+            tableField,
             missing.time,
             `the worksheet needs K_t at ${round(missing.time)} s; the table given spans ${table[0]!.time} s to ${table[table.length - 1]!.time} s — extend it from the datasheet`,
           ),
         ],
       };
     }
+    // Inside a period the superposition can rise above both of its ends (a load step down earlier
+    // is credited along a concave K_t): a section is also sized at its largest point inside its
+    // last period, so the size never falls when the duty cycle is cut later (a longer target).
+    const endMax = sections.reduce((m, x) => Math.max(m, x.total), -Infinity);
+    const minTime = table === undefined ? 0 : table[0]!.time;
+    let floor = endMax;
+    // Peukert's K_t is concave with K(0) = 0, so over period i the sum can exceed its end value F_i
+    // by at most |ΔA_i|·K(M_i) (a step down at i) + N·(K(M_{i−1} + M_i) − K(M_{i−1})), N the sum of
+    // the earlier steps down (each increment K(d + M_i) − K(d) is largest at the smallest d): a
+    // cheap test that skips most periods of a long profile before the exact search.
+    let stepsDown = 0;
+    const candidates: { x: WorksheetSection; bound: number }[] = [];
+    for (const x of sections) {
+      const i = x.section - 1;
+      const m = merged[i]!.duration;
+      const change = merged[i]!.current - (i > 0 ? merged[i - 1]!.current : 0);
+      const before = stepsDown;
+      if (change < 0) stepsDown -= change;
+      if (table === undefined) {
+        const prev = i > 0 ? merged[i - 1]!.duration : 0;
+        const quick = x.total + (change < 0 ? -change * kAt(m) : 0) + (i > 0 ? before * (kAt(prev + m) - kAt(prev)) : 0);
+        if (!(quick > floor * (1 + 1e-12))) continue;
+      }
+      const bound = interiorBound(merged, i, kAt, minTime);
+      if (bound > floor * (1 + 1e-12)) candidates.push({ x, bound });
+    }
+    // Best first: the largest bound is searched first, and the floor it raises prunes the rest.
+    candidates.sort((p, q) => q.bound - p.bound);
+    for (const { x, bound } of candidates) {
+      if (!(bound > floor * (1 + 1e-12))) break;
+      const peak = interiorPeak(merged, x.section - 1, kAt, floor, minTime);
+      if (peak !== null) {
+        x.interiorPeak = peak;
+        floor = Math.max(floor, peak.size);
+      }
+    }
+    const sizeOf = (x: WorksheetSection) => Math.max(x.total, x.interiorPeak?.size ?? -Infinity);
     let best = sections[0]!;
-    for (const s of sections) if (s.total > best.total) best = s;
+    for (const s of sections) if (sizeOf(s) > sizeOf(best)) best = s;
     if (merged.length > MAX_PERIODS_WITH_ROWS) {
       best.rows = worksheetSection(merged, best.section - 1, kAt, true).rows;
       warnings.push(
         `The duty cycle has ${merged.length} periods: every section's total is listed, but the period rows of the governing section S${best.section} only.`,
       );
     }
-    step('Maximum section size', best.total, 'Ah', `section S${best.section} of ${sections.length} (worksheet line 9)`);
-    let uncorrected = best.total;
+    if (best.interiorPeak !== undefined && best.interiorPeak.size > best.total) {
+      step(
+        'Maximum section size',
+        best.interiorPeak.size,
+        'Ah',
+        `section S${best.section} of ${sections.length} at ${round(best.interiorPeak.time / 60)} min into its last period, where the worksheet sum is ${round(best.interiorPeak.size)} Ah, above its ${round(best.total)} Ah at the period end (worksheet line 9, taken at its largest: conservative)`,
+      );
+    } else {
+      step('Maximum section size', best.total, 'Ah', `section S${best.section} of ${sections.length} (worksheet line 9)`);
+    }
+    let uncorrected = sizeOf(best);
     if (random !== undefined) {
       const kr = kAt(random.duration);
       if (Number.isNaN(kr)) {
@@ -789,32 +965,40 @@ export function sizeBank(input: SizingInput): SizingOutcome {
           problems: [problem('outside-table', elementId, `${fields.randomLoad}.duration`, random.duration, 'the random load\u2019s duration lies outside the K_t table given')],
         };
       }
-      step('Random-load section size', randomCurrent * kr, 'Ah', `${round(randomCurrent)} A × K_t ${round(kr)} h at ${random.duration} s (worksheet line 10)`);
-      uncorrected += randomCurrent * kr;
+      const randomLoad = powerTable !== undefined && 'power' in random ? random.power / seriesCells : randomCurrent;
+      step('Random-load section size', randomLoad * kr, 'Ah', `${round(randomLoad)} ${powerTable !== undefined ? 'W per cell' : 'A'} × K_t ${round(kr)} at ${random.duration} s (worksheet line 10)`);
+      uncorrected += randomLoad * kr;
     }
     step('Uncorrected size', uncorrected, 'Ah', 'worksheet line 11');
 
     let tempFactor: number;
     if (isLeadAcid(preset.chemistry)) {
-      const raw = ieee485TemperatureFactor(temperature)!;
+      const t = leadAcidTemperatureFactor(temperature, input.creditAbove25C === true)!;
+      const raw = t.raw;
       tempFactor = raw < 1 && !input.creditAbove25C ? 1 : raw;
       step(
         'Temperature correction factor',
         tempFactor,
         '',
-        `IEEE 485 Table 1 at ${temperature} °C${raw < 1 && !input.creditAbove25C ? ` (table gives ${raw}; held at 1.00 above 25 °C as the note to the table advises)` : ''}`,
+        t.extrapolated && temperature < 25
+          ? `${temperature} °C is below IEEE 485 Table 1: the capacity (1 ÷ factor) extrapolated linearly from its two coldest rows (−3.9 °C 1.52, −1.1 °C 1.43), never below 1.52; use the maker\u2019s figure for this temperature`
+          : t.extrapolated
+            ? `${temperature} °C is above IEEE 485 Table 1: 1.00, no credit for heat (the note to Table 1)`
+            : `IEEE 485 Table 1 at ${temperature} °C${raw < 1 && !input.creditAbove25C ? ` (table gives ${raw}; held at 1.00 above 25 °C as the note to the table advises)` : ''}`,
       );
+      if (t.extrapolated && temperature < 25) warnings.push(`${temperature} °C is below IEEE 485 Table 1 (from −3.9 °C): its temperature factor ${round(tempFactor)} is extrapolated from the two coldest rows; ask the cell maker for the capacity at this temperature.`);
     } else {
-      tempFactor = 1 / capacityFactorAt(preset.capacityVsTemperature, temperature)!;
+      const c = extrapolatedCapacityFactor(preset.capacityVsTemperature, temperature);
+      tempFactor = 1 / c.factor;
       step(
         'Temperature derating factor',
         tempFactor,
         '',
-        `1 ÷ capacity factor at ${temperature} °C (IEEE 1115 takes it from the maker; default ${preset.provenance.capacityVsTemperature})`,
+        `1 ÷ capacity factor at ${temperature} °C (IEEE 1115 takes it from the maker; ${userSource('capacityVsTemperature')}${c.extrapolated ? '; outside the table: extrapolated along its end slope, never above its end value' : ''})`,
       );
     }
-    step('Design margin', designMargin, '', input.designMargin === undefined ? 'default 1.10 (IEEE 485, common practice)' : 'as given');
-    step('Aging factor', agingFactor, '', input.agingFactor === undefined ? 'default 1.25 (replace at 80 % of rated capacity)' : 'as given');
+    step('Design margin', designMargin, '', input.designMargin === undefined ? 'default 1.10 (IEEE 485 worksheet line 13; 1.10–1.15 is usual)' : 'as given');
+    step('Aging factor', agingFactor, '', input.agingFactor === undefined ? 'default 1.25 (IEEE 485 worksheet line 14: replaced at 80 % of rated capacity, 1 ÷ 0.80)' : 'as given');
     const worksheetSize = uncorrected * tempFactor * designMargin * agingFactor;
     step('Required size (worksheet)', worksheetSize, 'Ah', 'uncorrected × temperature × design margin × aging');
     required = worksheetSize;
@@ -827,7 +1011,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
         'Size for the discharge-rate limit',
         rateSize,
         'Ah',
-        `peak ${round(peakCurrent)} A ÷ ${preset.maxDischargeCRate} C maximum continuous discharge (${preset.provenance.maxDischargeCRate})`,
+        `peak ${round(peakCurrent)} A ÷ ${preset.maxDischargeCRate} C maximum continuous discharge (${userSource('maxDischargeCRate')})`,
       );
       if (rateSize > required) {
         required = rateSize;
@@ -844,11 +1028,11 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       }
     } else if (rateSize > worksheetSize) {
       warnings.push(
-        `The peak current ${round(peakCurrent)} A is above the preset maximum continuous discharge rate (${preset.maxDischargeCRate} C) of this size; the K_t table given is trusted — confirm the rate with the cell maker.`,
+        `The peak current ${round(peakCurrent)} A is above the maximum continuous discharge rate (${preset.maxDischargeCRate} C, ${userSource('maxDischargeCRate')}) of this size; the K_t table given is trusted — confirm the rate with the cell maker.`,
       );
     }
 
-    if (input.limitDepthOfDischarge ?? true) {
+    if (limitDoD) {
       const dod = preset.usableDepthOfDischarge;
       const drawn = random === undefined ? periods : [...periods, { duration: random.duration, current: randomCurrent }];
       // The factors shrink the usable share of the rated capacity, and Peukert's rated current is
@@ -865,7 +1049,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
         required = dodSize;
         governing = { kind: 'depth-of-discharge' };
         warnings.push(
-          `The usable depth of discharge (${dod}), not the worksheet, sets the size: the runtime study stops the discharge there. For standby duty sized to the end voltage alone (IEEE 485 as written), turn the depth-of-discharge limit off.`,
+          `Cycling design: the usable depth of discharge (${dod}), not the worksheet, sets the size; the runtime study stops the discharge there too.`,
         );
       }
     }
@@ -884,11 +1068,12 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       energyWh += er;
     }
     const dod = preset.usableDepthOfDischarge;
-    const capFactor = capacityFactorAt(preset.capacityVsTemperature, temperature)!;
-    step('Usable depth of discharge', dod, '', preset.provenance.usableDepthOfDischarge);
-    step('Capacity factor at temperature', capFactor, '', `${temperature} °C (${preset.provenance.capacityVsTemperature})`);
-    step('Design margin', designMargin, '', input.designMargin === undefined ? 'default 1.10 (common practice)' : 'as given');
-    step('Aging factor', agingFactor, '', input.agingFactor === undefined ? 'default 1.25 (end of life at 80 % of rated, common practice)' : 'as given');
+    const cap = extrapolatedCapacityFactor(preset.capacityVsTemperature, temperature);
+    const capFactor = cap.factor;
+    step('Usable depth of discharge', dod, '', userSource('usableDepthOfDischarge'));
+    step('Capacity factor at temperature', capFactor, '', `${temperature} °C (${userSource('capacityVsTemperature')}${cap.extrapolated ? '; outside the table: extrapolated along its end slope, never above its end value' : ''})`);
+    step('Design margin', designMargin, '', input.designMargin === undefined ? `default 1.10 (the IEEE 485 design margin applied to lithium; ${TYPICAL_VALUE})` : 'as given');
+    step('Aging factor', agingFactor, '', input.agingFactor === undefined ? `default 1.25 (end of life at 80 % of rated; ${TYPICAL_VALUE})` : 'as given');
     const wh = (energyWh / (dod * capFactor)) * designMargin * agingFactor;
     step('Required energy', wh, 'Wh', 'energy ÷ (DoD × capacity factor) × design margin × aging');
     const energyAh = wh / nominalVoltage;
@@ -898,7 +1083,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       'Required capacity (discharge rate)',
       rateAh,
       'Ah',
-      `peak ${round(peakCurrent)} A ÷ ${preset.maxDischargeCRate} C maximum continuous discharge (${preset.provenance.maxDischargeCRate})`,
+      `peak ${round(peakCurrent)} A ÷ ${preset.maxDischargeCRate} C maximum continuous discharge (${userSource('maxDischargeCRate')})`,
     );
     if (rateAh > energyAh) {
       required = rateAh;
@@ -912,8 +1097,11 @@ export function sizeBank(input: SizingInput): SizingOutcome {
     }
   }
 
-  // 4. Strings and the standard rating.
-  const choice = chooseStrings(required, input.ratings, maxStrings);
+  // 4. Strings: whole modules of the user's block, or a standard rating, or continuous.
+  const byModule = input.ratings === undefined && input.moduleAh !== undefined;
+  const choice = byModule
+    ? { strings: Math.max(1, Math.ceil((required / input.moduleAh!) * (1 - 1e-12))), perString: input.moduleAh! }
+    : chooseStrings(required, input.ratings, maxStrings);
   if (choice === null) {
     const largest = Math.max(...input.ratings!);
     return {
@@ -929,24 +1117,53 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       ],
     };
   }
-  step('Strings in parallel', choice.strings, '', input.ratings === undefined ? 'continuous size: one string' : `fewest strings (of at most ${maxStrings}) a standard rating can serve`);
-  step('Capacity per string', choice.perString, 'Ah', input.ratings === undefined ? 'continuous (not rounded)' : `next standard rating ≥ ${round(required / choice.strings)} Ah`);
+  step(
+    'Strings in parallel',
+    choice.strings,
+    '',
+    byModule
+      ? `⌈${round(required)} Ah ÷ ${round(choice.perString)} Ah per module⌉: whole strings of your module`
+      : input.ratings === undefined
+        ? 'continuous size: one string'
+        : `fewest strings (of at most ${maxStrings}) a standard rating can serve`,
+  );
+  step(
+    'Capacity per string',
+    choice.perString,
+    'Ah',
+    byModule ? 'your module, as given' : input.ratings === undefined ? 'continuous (not rounded)' : `next standard rating ≥ ${round(required / choice.strings)} Ah`,
+  );
+  if (byModule && choice.strings > DEFAULT_MAX_STRINGS) {
+    warnings.push(`${choice.strings} strings in parallel share the current unevenly; a larger module (block or cell) needs fewer.`);
+  }
   const bankCapacity = choice.strings * choice.perString;
   const bankEnergyWh = bankCapacity * nominalVoltage;
   step('Bank capacity', bankCapacity, 'Ah', `${choice.strings} × ${round(choice.perString)} Ah, rated at ${preset.ratedHours} h`);
   step('Bank energy (nominal)', bankEnergyWh, 'Wh', `${round(bankCapacity)} Ah × ${round(nominalVoltage)} V`);
 
-  const cautions = bankCautions(preset.chemistry);
-  if (worksheet) {
-    cautions.push(
-      'The worksheet sizes to the end-of-discharge voltage with no depth-of-discharge limit: for daily cycling, size for the depth of discharge instead.',
-    );
-  }
+  // One sentence says what sized the bank; the runtime study gives the same one (designBasis).
+  const basis = designBasis(
+    preset.chemistry,
+    design,
+    preset.endOfDischargeCellVoltage,
+    userSource('endOfDischargeCellVoltage'),
+    preset.usableDepthOfDischarge,
+    userSource('usableDepthOfDischarge'),
+  );
+  const cautions = [...bankCautions(preset.chemistry), basis];
+  const blockVolts = round(preset.nominalCellVoltage * cellsPerBlock);
+  const summary =
+    `${choice.strings} string${choice.strings > 1 ? 's' : ''} × ${round(choice.perString)} Ah = ${round(bankCapacity)} Ah, ${Number((bankEnergyWh / 1000).toPrecision(3))} kWh` +
+    ` (each string ${seriesBlocks} × ${blockVolts} V ${cellsPerBlock > 1 ? 'blocks' : 'cells'} in series, ${round(nominalVoltage)} V)`;
 
   return {
     ok: true,
     sizing: {
       method,
+      design,
+      basis,
+      summary,
+      worksheetBasis: powerTable !== undefined ? 'power-per-cell' : 'current',
       chemistry: preset.chemistry,
       seriesCells,
       cellsPerBlock,
@@ -968,6 +1185,116 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       cautions,
     },
   };
+}
+
+/**
+ * Upper bound of the worksheet sum over period s (0-based) for τ in [minTime, M_s]: K_t rises with
+ * time, so F(τ) ≤ Σ_{ΔA>0} ΔA·K(d_P + M_s) + Σ_{ΔA<0} ΔA·K(d_P + minTime) (d_P as in interiorPeak).
+ */
+export function interiorBound(periods: readonly CurrentPeriod[], s: number, kAt: (timeS: number) => number, minTime: number): number {
+  const m = periods[s]!.duration;
+  const lo = Math.max(0, minTime);
+  if (!(lo < m)) return -Infinity;
+  let bound = 0;
+  let d = 0;
+  for (let p = s; p >= 0; p--) {
+    if (p < s) d += periods[p]!.duration;
+    const cp = periods[p]!.current - (p > 0 ? periods[p - 1]!.current : 0);
+    if (cp > 0) bound += cp * kAt(d + m);
+    else if (cp < 0) bound += cp * kAt(d + lo);
+  }
+  return bound;
+}
+
+/** Samples of the worksheet sum inside a period before the best one is refined. */
+const PEAK_SAMPLES = 32;
+
+/**
+ * The largest worksheet sum inside period s (0-based), F(τ) = Σ_{P≤s} (A_P − A_{P−1})·K_t(d_P + τ)
+ * for τ in [minTime, M_s] (d_P the time from the start of period P to the start of period s), when
+ * it exceeds `floor`; null otherwise.
+ * Method: a bound first — K_t rises with time, so F(τ) ≤ Σ_{ΔA>0} ΔA·K(d + M_s) + Σ_{ΔA<0} ΔA·K(d)
+ * over the whole period, and a period whose bound does not pass `floor` is skipped. Otherwise F is
+ * sampled at PEAK_SAMPLES points (half spaced geometrically from the start, where the newest
+ * term's K_t is steepest, half evenly) and the best sample refined by golden-section search
+ * between its neighbours to 1e-10 of the period (F is flat at a maximum, so its value is then
+ * exact to rounding).
+ */
+export function interiorPeak(
+  periods: readonly CurrentPeriod[],
+  s: number,
+  kAt: (timeS: number) => number,
+  floor: number,
+  minTime: number,
+): { time: number; size: number } | null {
+  const m = periods[s]!.duration;
+  const lo = Math.max(0, minTime);
+  if (!(lo < m)) return null;
+  const n = s + 1;
+  const d = new Float64Array(n);
+  const c = new Float64Array(n);
+  for (let p = s; p >= 0; p--) {
+    d[p] = p === s ? 0 : d[p + 1]! + periods[p]!.duration;
+    c[p] = periods[p]!.current - (p > 0 ? periods[p - 1]!.current : 0);
+  }
+  let bound = 0;
+  for (let p = 0; p < n; p++) {
+    const cp = c[p]!;
+    if (cp > 0) bound += cp * kAt(d[p]! + m);
+    else if (cp < 0) bound += cp * kAt(d[p]! + lo);
+  }
+  if (!(bound > floor)) return null;
+  const f = (tau: number) => {
+    let sum = 0;
+    for (let p = 0; p < n; p++) if (c[p] !== 0) sum += c[p]! * kAt(d[p]! + tau);
+    return sum;
+  };
+  const taus: number[] = [];
+  const half = PEAK_SAMPLES / 2;
+  const first = lo > 0 ? lo : m * 1e-6;
+  for (let i = 0; i < half; i++) taus.push(first * Math.pow(m / first, i / half));
+  for (let i = 0; i <= half; i++) taus.push(lo + ((m - lo) * i) / half);
+  taus.sort((x, y) => x - y);
+  let bi = 0;
+  let bv = -Infinity;
+  const values = taus.map((t) => f(t));
+  values.forEach((v, i) => {
+    if (v > bv) {
+      bv = v;
+      bi = i;
+    }
+  });
+  let best = { time: taus[bi]!, size: bv };
+  if (bi > 0 && bi < taus.length - 1) {
+    // Golden-section search for the maximum between the best sample's neighbours.
+    const g = (Math.sqrt(5) - 1) / 2;
+    let x0 = taus[bi - 1]!;
+    let x3 = taus[bi + 1]!;
+    let x1 = x3 - g * (x3 - x0);
+    let x2 = x0 + g * (x3 - x0);
+    let f1 = f(x1);
+    let f2 = f(x2);
+    while (x3 - x0 > 1e-10 * m) {
+      if (f1 >= f2) {
+        x3 = x2;
+        x2 = x1;
+        f2 = f1;
+        x1 = x3 - g * (x3 - x0);
+        f1 = f(x1);
+      } else {
+        x0 = x1;
+        x1 = x2;
+        f1 = f2;
+        x2 = x0 + g * (x3 - x0);
+        f2 = f(x2);
+      }
+    }
+    if (f1 > best.size) best = { time: x1, size: f1 };
+    if (f2 > best.size) best = { time: x2, size: f2 };
+  }
+  const end = f(m);
+  if (end >= best.size) return null; // the period's end governs (it is the worksheet's F_S)
+  return best.size > floor * (1 + 1e-12) && Number.isFinite(best.size) ? best : null;
 }
 
 /**

@@ -1,7 +1,8 @@
 /**
  * The battery backup study of a project: the discharge through the chain (discharge.ts), then —
  * when the project's `backup` settings ask for them — the bank sizing for the target runtime
- * (sizing.ts) and the recharge with the given charger and the charger for a target time
+ * (sizing.ts) in whole strings of the user's module (the bank's block or cell as given), with the
+ * runtime of that bank from a second discharge through the same chain, and the recharge with the given charger and the charger for a target time
  * (recharge.ts). Pure; returns plain data.
  */
 import type { BackupStudy, BatteryBankSpec } from '../model.ts';
@@ -14,6 +15,11 @@ export interface BackupStudyResult {
   discharge: DischargeResult;
   /** Smallest bank for `backup.targetRuntimeHours` over the same terminal power profile. */
   sizing?: BankSizing;
+  /**
+   * The discharge re-run with the sized bank (same chain, profile, temperature and state of
+   * health): the runtime of the bank the sizing gives.
+   */
+  sizedDischarge?: DischargeResult;
   /** Recharge from the end state with `backup.chargerCurrent`. */
   recharge?: Recharge;
   /** Charger needed to recharge within `backup.targetRechargeHours`. */
@@ -54,6 +60,23 @@ function withEndlessBank(input: unknown, batteryId: string, internalResistance: 
   };
 }
 
+/** The project with the sized bank in place of the given one (same module, the sized strings). */
+function withSizedBank(input: unknown, batteryId: string, sizing: BankSizing, target: number): unknown {
+  const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec; internalResistance?: number }[] };
+  return {
+    ...project,
+    // Long enough to see the sized bank run out (it is sized with margins beyond the target).
+    backup: { ...project.backup, horizonHours: Math.max(project.backup.horizonHours ?? 0, 4 * target) },
+    elements: project.elements.map((e) => {
+      if (e.id !== batteryId || !e.bank) return e;
+      const strings = e.bank.strings ?? 1;
+      // A given bank resistance scales as 1/strings (Ohm's law for equal strings in parallel).
+      const r = e.internalResistance === undefined ? {} : { internalResistance: (e.internalResistance * strings) / sizing.strings };
+      return { ...e, ...r, bank: { ...e.bank, series: sizing.seriesBlocks, strings: sizing.strings, capacityAh: sizing.capacityPerString } };
+    }),
+  };
+}
+
 /** Run the whole study for a project given as untrusted data. Never throws on bad input. */
 export function runBackupStudy(input: unknown): BackupStudyOutcome {
   const simulated = simulateDischarge(input);
@@ -86,6 +109,9 @@ export function runBackupStudy(input: unknown): BackupStudyOutcome {
       ...(spec.overrides ? { overrides: spec.overrides } : {}),
       busVoltage: d.bank.nominalVoltage,
       dutyCycle: { basis: 'power', periods },
+      design: study.design ?? 'backup',
+      // Whole strings of the user's module, unless standard capacities are listed to pick from.
+      ...(study.standardCapacitiesAh ? {} : { moduleAh: spec.capacityAh }),
       targetRuntime: study.targetRuntimeHours * 3600,
       ...(study.designMargin !== undefined ? { designMargin: study.designMargin } : {}),
       ...(study.agingFactor !== undefined ? { agingFactor: study.agingFactor } : {}),
@@ -93,10 +119,14 @@ export function runBackupStudy(input: unknown): BackupStudyOutcome {
       ...(study.standardCapacitiesAh ? { ratings: study.standardCapacitiesAh } : {}),
       ...(spec.cellsPerBlock !== undefined ? { cellsPerBlock: spec.cellsPerBlock } : {}),
       seriesBlocks: spec.series,
-      fields: { designMargin: 'backup.designMargin', agingFactor: 'backup.agingFactor', targetRuntime: 'backup.targetRuntimeHours', ratings: 'backup.standardCapacitiesAh', temperature: 'backup.temperatureC' },
+      fields: { designMargin: 'backup.designMargin', agingFactor: 'backup.agingFactor', targetRuntime: 'backup.targetRuntimeHours', ratings: 'backup.standardCapacitiesAh', temperature: 'backup.temperatureC', design: 'backup.design' },
     });
-    if (sized.ok) result.sizing = sized.sizing;
-    else problems.push(...sized.problems);
+    if (sized.ok) {
+      result.sizing = sized.sizing;
+      const again = simulateDischarge(withSizedBank(input, d.batteryId, sized.sizing, study.targetRuntimeHours));
+      if (again.ok) result.sizedDischarge = again.result;
+      else problems.push(...again.problems);
+    } else problems.push(...sized.problems);
   }
 
   // The loads go on while the bank recharges: the charger carries them (average terminal power of the outage).

@@ -15,7 +15,12 @@ const n = (x: number, d = 1): string => x.toFixed(d);
 const pct = (x: number): string => `${(x * 100).toFixed(0)} %`;
 
 function derateLine(d: Derate): string {
-  const value = d.unit === '' ? (d.label.startsWith('Peukert') || d.label === 'temperature' || d.label.startsWith('aging') ? `× ${d.value.toFixed(3)}` : pct(d.value)) : `${n(d.value)} ${d.unit}`;
+  const value =
+    d.unit === ''
+      ? d.label.startsWith('Peukert') || d.label === 'temperature' || d.label.startsWith('aging')
+        ? `× ${d.value.toFixed(3)}`
+        : pct(d.value)
+      : `${n(d.value, d.unit === 'V' ? 2 : 1)} ${d.unit}`;
   return `  ${d.label.padEnd(44)} ${value.padStart(12)}   ${d.note}`;
 }
 
@@ -42,8 +47,11 @@ export function formatBackupStudy(study: BackupStudyResult): string {
     out.push(
       '',
       `Bank sizing (${s.method === 'energy' ? 'energy method' : s.method === 'ieee-485-worksheet' ? 'IEEE 485 duty-cycle worksheet' : 'IEEE 1115 duty-cycle worksheet'})`,
-      `  ${s.seriesBlocks} ${s.cellsPerBlock > 1 ? `${s.cellsPerBlock}-cell blocks` : 'cells'} in series × ${s.strings} string(s) × ${n(s.capacityPerString)} Ah = ${n(s.bankCapacity)} Ah, ${n(s.bankEnergyWh, 0)} Wh (governed by ${s.governing.kind === 'section' ? `section ${s.governing.section}` : s.governing.kind})`,
+      `  ${s.summary}; governed by ${s.governing.kind === 'section' ? `worksheet section ${s.governing.section}` : s.governing.kind}`,
+      `  ${s.basis}`,
     );
+    const r = study.sizedDischarge;
+    if (r) out.push(`  Runtime of this bank through the chain: ${r.runtimeIsLowerBound ? 'longer than ' : ''}${hours(r.runtimeSeconds)} — ${r.endText}`);
     if (study.sizingBasis) out.push(`  Duty cycle: ${study.sizingBasis}`);
     for (const st of s.steps) out.push(`  ${st.label.padEnd(44)} ${`${fmtStep(st.value)} ${st.unit}`.trim().padStart(14)}   ${st.note}`);
     if (s.sections.length) {

@@ -15,6 +15,12 @@
  *   inside each range is common practice. NMC and NiCd exponents are from memory.
  * - "common practice": typical values used by installers and in makers' literature, no single
  *   source. "from memory": recalled, not checked against a printed source.
+ * - End-of-discharge voltage 1.75 V/cell for lead-acid: common practice, corroborated by a
+ *   published UPS battery specification (its table of cell end-of-discharge voltages: lead-acid
+ *   1.75 V general applications, 1.85 V PV; NiCd 1.10 V / 1.15 V) and by the capacity definition
+ *   example "100 Ah @ C10 to 1.75 V/cell" of the IEEE 485 introduction on myelectrical.com (S16 in
+ *   published-values.md). Makers rate UPS blocks to other end voltages too (a VRLA maker's
+ *   constant-power example uses 1.70 V/cell): the user sees "typical value: use the maker's figure".
  *
  * Units (SI except where the unit is in the field name):
  * - voltages in V per cell; state of charge as a fraction 0…1; depth of discharge as a fraction;

@@ -69,10 +69,16 @@ export const IEEE_485_TEMPERATURE_FACTORS: readonly TemperatureFactorRow[] = [
 ];
 
 /**
- * Sizing factors other than temperature (IEEE 485 clause on sizing; from memory, common practice).
+ * Sizing factors other than temperature (IEEE 485 worksheet lines (13) design margin and (14) aging
+ * factor; line numbers from memory, corroborated by a published worksheet layout — see
+ * shared/reference/published-values.md §8c).
  * - Aging factor 1.25: the battery is replaced when its capacity falls to 80 % of rated
- *   (1 / 0.80 = 1.25), for cells whose capacity stays flat to end of life.
+ *   (1 / 0.80 = 1.25), for cells whose capacity stays flat to end of life. Corroborated: the UPS
+ *   battery sizing example of UFC 3-520-01 (Interior Electrical Systems) Appendix E applies
+ *   "Aging: 1.25 (corresponding to 80 percent capacity)", and a published UPS battery
+ *   specification sheet uses AF = 1.25 for all battery types.
  * - Design margin 1.10 (1.10–1.15 typical) for load growth and less-than-optimum conditions.
+ *   Corroborated: the same specification sheet uses a design factor DF = 1.1 (common practice).
  */
 export const IEEE_485_DEFAULT_AGING_FACTOR = 1.25;
 export const IEEE_485_DEFAULT_DESIGN_MARGIN = 1.1;

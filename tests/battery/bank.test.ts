@@ -69,8 +69,48 @@ describe('OCV and temperature tables', () => {
     expect(f).toBeCloseTo(expected, 12);
   });
 
-  it('below the table the end value is held and flagged: LiFePO4 at −30 °C → 0.65 (preset, from memory)', () => {
-    expect(capacityFactorAt(CHEMISTRY_PRESETS.lifepo4.capacityVsTemperature, -30)).toEqual({ factor: 0.65, extrapolated: true });
+  it('below the table the capacity is extrapolated linearly from the two coldest points: LiFePO4 at −30 °C → 0.65 − 10 × 0.015 = 0.50 (preset rows −20 °C 0.65, −10 °C 0.80, from memory; method in bank.ts)', () => {
+    const r = capacityFactorAt(CHEMISTRY_PRESETS.lifepo4.capacityVsTemperature, -30);
+    expect(r.factor).toBeCloseTo(0.5, 12); // hand working in the title
+    expect(r.extrapolated).toBe(true);
+    expect(r.refused).toBeUndefined();
+    // Never the end value held: colder is always less (boundary just below the table).
+    expect(capacityFactorAt(CHEMISTRY_PRESETS.lifepo4.capacityVsTemperature, -20.5).factor).toBeLessThan(0.65);
+  });
+
+  it('lead-acid below IEEE 485 Table 1: −10 °C → 1/1.52 − 6.1 × (1/1.43 − 1/1.52)/2.8 (Table 1 rows −3.9 °C and −1.1 °C, from memory; linear, method in bank.ts)', () => {
+    const a = 1 / 1.52;
+    const b = 1 / 1.43;
+    const expected = a + ((a - b) / (-3.9 - -1.1)) * (-10 - -3.9);
+    expect(capacityFactorAt(CHEMISTRY_PRESETS['flooded-lead-acid'].capacityVsTemperature, -10).factor).toBeCloseTo(expected, 12);
+    expect(expected).toBeLessThan(a);
+  });
+
+  it('refuses more than 20 °C beyond the table, or where the extrapolated capacity reaches 0 (our planning limit, common practice (no source))', () => {
+    const t = CHEMISTRY_PRESETS.lifepo4.capacityVsTemperature;
+    expect(capacityFactorAt(t, -40).refused).toBeUndefined(); // exactly 20 °C below −20 °C
+    expect(capacityFactorAt(t, -40.01).refused).toMatch(/more than 20 °C below/);
+    // A steep invented table: 0.5 at 0 °C, 1 at 10 °C → zero at −10 °C, refused there.
+    const steep = [
+      { temperatureC: 0, capacityFactor: 0.5 },
+      { temperatureC: 10, capacityFactor: 1 },
+    ];
+    expect(capacityFactorAt(steep, -5).factor).toBeCloseTo(0.25, 12); // linear, hand working
+    expect(capacityFactorAt(steep, -10).refused).toMatch(/no capacity/);
+    expect(capacityFactorAt([{ temperatureC: 25, capacityFactor: 1 }], 20).refused).toMatch(/one-point/);
+  });
+
+  it('above the table a falling trend is extrapolated, a rising one never flatters (capped at the end value) (method in bank.ts; invented tables)', () => {
+    const falling = [
+      { temperatureC: 25, capacityFactor: 1 },
+      { temperatureC: 45, capacityFactor: 0.9 },
+    ];
+    expect(capacityFactorAt(falling, 55).factor).toBeCloseTo(0.85, 12); // 0.9 − 10 × 0.005
+    const rising = [
+      { temperatureC: 0, capacityFactor: 0.9 },
+      { temperatureC: 25, capacityFactor: 1 },
+    ];
+    expect(capacityFactorAt(rising, 35).factor).toBe(1);
   });
 
   it('every preset is consistent: cut-off below nominal, OCV rising from soc 0 to 1, float ≤ charge, every value has a provenance', () => {

@@ -24,6 +24,10 @@ describe('command-line battery backup study', () => {
     expect(out).toContain('Why not simply Wh ÷ W');
     expect(out).toContain('standby draw of 3 kW inverter');
     expect(out).toContain('Bank sizing (energy method)');
+    expect(out).toContain(study.sizing!.summary); // e.g. "2 strings × 200 Ah = 400 Ah, 20.5 kWh"
+    expect(out).toContain('Runtime of this bank through the chain');
+    expect(out).toContain(study.discharge.basis);
+    expect(out).not.toMatch(/from memory|common practice/);
     expect(out).toContain('Recharge with a 40.0 A charger');
     expect(out).toContain('as close to the bank as practical');
     expect(out).toContain('must not be charged below 0 °C');

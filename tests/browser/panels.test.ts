@@ -108,8 +108,14 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
       const sizing = page.getByTestId('battery-sizing-ah');
       const at24 = plain(await sizing.textContent());
       expect(at24).toBe(plain(`${formatSignificant(study.study.sizing!.bankCapacity, 4, 'en-US')} Ah`));
+      // The basis of the sizing and the runtime of the sized bank are shown (core's own words).
+      expect(await page.getByTestId('battery-sizing-basis').textContent()).toBe(study.study.sizing!.basis);
+      expect(await page.getByTestId('battery-basis').textContent()).toBe(study.study.discharge.basis);
+      expect(await page.getByTestId('battery-sized-runtime').textContent()).toContain(study.study.sizedDischarge!.endText);
+      expect(await page.getByTestId('battery-design').inputValue()).toBe('backup');
       const longer = runBackupStudy({ ...project, backup: { ...(project.backup as object), targetRuntimeHours: 48 } });
       if (!longer.ok) throw new Error(JSON.stringify(longer.problems));
+      expect(longer.study.sizing!.bankCapacity).toBeGreaterThan(study.study.sizing!.bankCapacity);
       const field = page.getByTestId('battery-target-runtime');
       await field.fill('48');
       await expect.poll(async () => plain(await sizing.textContent())).toBe(plain(`${formatSignificant(longer.study.sizing!.bankCapacity, 4, 'en-US')} Ah`));

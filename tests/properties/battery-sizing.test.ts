@@ -105,6 +105,30 @@ describe('sizing: monotone in load and runtime', () => {
     );
   });
 
+  it('a longer target runtime never gives a smaller bank, in whole strings of the user\u2019s module (any chemistry, any duty cycle, backup or cycling design)', () => {
+    // Why: a bank that carries the duty cycle for T' also carries it for T < T'. The worksheet
+    // honours this because each section is also sized at its largest point inside its last
+    // period (interiorPeak), so the sum at a cut T is never lost when the cut moves later.
+    fc.assert(
+      fc.property(
+        chemistryArb,
+        dutyArb,
+        fc.double({ min: 600, max: 12 * 3600, noNaN: true }),
+        fc.double({ min: 1, max: 3, noNaN: true }),
+        fc.constantFrom<'backup' | 'cycling'>('backup', 'cycling'),
+        fc.double({ min: 5, max: 400, noNaN: true }),
+        (chem, periods, runtime, lambda, design, moduleAh) => {
+          const a = sizingOf(chem, periods, undefined, { targetRuntime: runtime, design, moduleAh });
+          const b = sizingOf(chem, periods, undefined, { targetRuntime: runtime * lambda, design, moduleAh });
+          notLess(b.requiredCapacity, a.requiredCapacity);
+          expect(b.bankCapacity).toBeGreaterThanOrEqual(a.bankCapacity);
+          expect(b.strings).toBeGreaterThanOrEqual(a.strings);
+        },
+      ),
+      runs(100),
+    );
+  });
+
   it('a larger allowed depth of discharge never raises the required capacity', () => {
     fc.assert(
       fc.property(
@@ -114,8 +138,8 @@ describe('sizing: monotone in load and runtime', () => {
         fc.double({ min: 0.2, max: 1, noNaN: true }),
         (chem, periods, d1, d2) => {
           const [lo, hi] = d1 <= d2 ? [d1, d2] : [d2, d1];
-          const a = sizingOf(chem, periods, undefined, { overrides: { usableDepthOfDischarge: lo } });
-          const b = sizingOf(chem, periods, undefined, { overrides: { usableDepthOfDischarge: hi } });
+          const a = sizingOf(chem, periods, undefined, { design: 'cycling', overrides: { usableDepthOfDischarge: lo } });
+          const b = sizingOf(chem, periods, undefined, { design: 'cycling', overrides: { usableDepthOfDischarge: hi } });
           expect(b.requiredCapacity).toBeLessThanOrEqual(a.requiredCapacity * (1 + REL));
         },
       ),

@@ -91,12 +91,38 @@ function StudyField({ project, path, label, quantity, hint, units, locale, testI
   );
 }
 
+/** Backup or cycling design: where a lead-acid or NiCd discharge ends, and what sizes the bank. */
+function DesignChoice({ project }: { project: DraftProject }) {
+  const stored = getAt(project, 'backup.design');
+  const value = stored === 'cycling' ? 'cycling' : 'backup';
+  return (
+    <div class="study-field">
+      <label for="study-backup-design" class="study-field__label">
+        Design
+      </label>
+      <select
+        id="study-backup-design"
+        class="study-field__input"
+        value={value}
+        onChange={(e) => setField('project', 'backup.design', (e.currentTarget as HTMLSelectElement).value, 'Backup study: design')}
+        data-testid="battery-design"
+      >
+        <option value="backup">Backup (to the end voltage)</option>
+        <option value="cycling">Cycling (depth-of-discharge limit)</option>
+      </select>
+    </div>
+  );
+}
+
 function StudySettings({ project, units, locale }: { project: DraftProject; units: UnitSystem; locale: string | undefined }) {
   const common = { project, units, locale };
   return (
     <fieldset class="study-settings" data-testid="battery-settings">
       <legend>Study settings</legend>
+      <DesignChoice project={project} />
       <StudyField {...common} path="backup.targetRuntimeHours" label="Target runtime" quantity="time" hint="none" testId="battery-target-runtime" />
+      <StudyField {...common} path="backup.designMargin" label="Design margin" quantity="ratio" hint="1.10" testId="battery-design-margin" />
+      <StudyField {...common} path="backup.agingFactor" label="Aging factor" quantity="ratio" hint="1.25" testId="battery-aging-factor" />
       <StudyField {...common} path="backup.temperatureC" label="Cell temperature" quantity="temperature" hint={units === 'us' ? '77' : '25'} testId="battery-temperature" />
       <StudyField {...common} path="backup.stateOfHealth" label="State of health" quantity="fraction-percent" hint="100" testId="battery-soh" />
       <StudyField {...common} path="backup.chargerCurrent" label="Charger current" quantity="current" hint="none" testId="battery-charger" />
@@ -148,12 +174,18 @@ function governingWords(g: NonNullable<BackupStudyResult['sizing']>['governing']
   }
 }
 
+/** The value of a named step of the working (NaN when the sizing has none). */
+function stepOf(s: NonNullable<BackupStudyResult['sizing']>, label: string): number {
+  return s.steps.find((x) => x.label === label)?.value ?? Number.NaN;
+}
+
 function stepValue(value: number, unit: string, locale: string | undefined): string {
   const n = Number.isInteger(value) ? formatSignificant(value, 12, locale) : formatSignificant(value, 4, locale);
   return unit ? `${n}${UNIT_GAP}${unit}` : n;
 }
 
 function Sizing({ study, locale }: { study: BackupStudyResult; locale: string | undefined }) {
+  const again = study.sizedDischarge;
   const s = study.sizing;
   if (!s) {
     return (
@@ -168,12 +200,28 @@ function Sizing({ study, locale }: { study: BackupStudyResult; locale: string | 
     <section class="panel-section" aria-labelledby="battery-sizing-heading" data-testid="battery-sizing">
       <h4 id="battery-sizing-heading">Bank for the target runtime</h4>
       <p class="panel-headline" data-testid="battery-sizing-result">
-        {s.seriesBlocks} {s.cellsPerBlock > 1 ? `${s.cellsPerBlock}-cell blocks` : 'cells'} in series × {s.strings} string{s.strings > 1 ? 's' : ''} ×{' '}
-        {formatSignificant(s.capacityPerString, 4, locale)}
+        {s.strings} string{s.strings > 1 ? 's' : ''} × {formatSignificant(s.capacityPerString, 4, locale)}
         {UNIT_GAP}Ah = <strong data-testid="battery-sizing-ah">{formatSignificant(s.bankCapacity, 4, locale)}{UNIT_GAP}Ah</strong>, {formatEnergy(s.bankEnergyWh, locale)}
       </p>
       <p class="note">
-        By the {METHOD_WORDS[s.method]}; the size is set by {governingWords(s.governing)}. Duty cycle: {study.sizingBasis}.
+        Each string: {s.seriesBlocks} {s.cellsPerBlock > 1 ? `${s.cellsPerBlock}-cell blocks` : 'cells'} in series, {formatVoltage(s.nominalVoltage, locale)} nominal.
+      </p>
+      {again && (
+        <p class="panel-headline" data-testid="battery-sized-runtime">
+          Runtime of this bank through the chain:{' '}
+          <strong>
+            {again.runtimeIsLowerBound ? 'longer than ' : ''}
+            {formatDuration(again.runtimeSeconds, locale)}
+          </strong>{' '}
+          — {again.endText}
+        </p>
+      )}
+      <p class="note">
+        By the {METHOD_WORDS[s.method]}; the size is set by {governingWords(s.governing)}. Design margin ×{formatSignificant(stepOf(s, 'Design margin'), 3, locale)}, aging factor ×
+        {formatSignificant(stepOf(s, 'Aging factor'), 3, locale)}. Duty cycle: {study.sizingBasis}.
+      </p>
+      <p class="note" data-testid="battery-sizing-basis">
+        {s.basis}
       </p>
       <details class="panel-steps">
         <summary>The working, step by step</summary>
@@ -283,7 +331,7 @@ function Plot({ study, locale }: { study: BackupStudyResult; locale: string | un
       unit: '%',
       values: s.soc.map((v) => v * 100),
       domain: [0, 100],
-      guide: { value: d.socLimit * 100, label: `usable limit ${formatPercent(d.socLimit, locale, 3)}` },
+      ...(d.socLimit > 0 ? { guide: { value: d.socLimit * 100, label: `usable limit ${formatPercent(d.socLimit, locale, 3)}` } } : {}),
       digits: 3,
     },
     { key: 'voltage', title: 'Terminal voltage, V', unit: 'V', values: s.voltage, guide: { value: d.cutoffVoltage, label: `cut-off ${formatVoltage(d.cutoffVoltage, locale)}` } },
@@ -294,7 +342,8 @@ function Plot({ study, locale }: { study: BackupStudyResult; locale: string | un
   const minCurrent = s.current.reduce((m, v) => Math.min(m, v), Number.POSITIVE_INFINITY);
   const summary =
     `Over ${formatDuration(d.runtimeSeconds, locale)} the state of charge falls from ${formatPercent(first(s.soc), locale, 3)} to ${formatPercent(last(s.soc), locale, 3)}` +
-    ` (the usable limit is ${formatPercent(d.socLimit, locale, 3)}); the terminal voltage goes from ${formatVoltage(first(s.voltage), locale)} to ${formatVoltage(last(s.voltage), locale)}` +
+    (d.socLimit > 0 ? ` (the usable limit is ${formatPercent(d.socLimit, locale, 3)})` : ' (backup design: no depth-of-discharge limit)') +
+    `; the terminal voltage goes from ${formatVoltage(first(s.voltage), locale)} to ${formatVoltage(last(s.voltage), locale)}` +
     ` (lowest ${formatVoltage(d.minVoltage, locale)}, cut-off ${formatVoltage(d.cutoffVoltage, locale)}); the bank current varies between ${formatCurrent(minCurrent, locale)} and ${formatCurrent(d.peakCurrent, locale)}.`;
   return (
     <section class="panel-section" aria-labelledby="battery-plot-heading">
@@ -317,6 +366,9 @@ function StudyFigures({ study, cautions, locale, units }: { study: BackupStudyRe
             {formatDuration(d.runtimeSeconds, locale)}
           </strong>{' '}
           <span data-testid="battery-end-reason">— {d.endText}</span>
+        </p>
+        <p class="note" data-testid="battery-basis">
+          {d.basis}
         </p>
         <p class="note">
           {b.label}: {b.cellsInSeries} cells in series × {b.strings} string{b.strings > 1 ? 's' : ''}, {formatSignificant(b.capacityAh, 4, locale)}
@@ -393,9 +445,12 @@ function StudyFigures({ study, cautions, locale, units }: { study: BackupStudyRe
       <section class="panel-section panel-cautions" aria-labelledby="battery-cautions-heading" data-testid="battery-cautions">
         <h4 id="battery-cautions-heading">Cautions</h4>
         <ul>
-          {cautions.map((c) => (
-            <li key={c}>{c}</li>
-          ))}
+          {/* The basis sentence is shown with the runtime and the sizing above. */}
+          {cautions
+            .filter((c) => c !== d.basis)
+            .map((c) => (
+              <li key={c}>{c}</li>
+            ))}
         </ul>
       </section>
     </>

@@ -418,7 +418,7 @@ const override = (key: keyof ChemistryValues, label: string, quantity: Quantity,
   quantity,
   required: false,
   placeholder: (e) => presetValue(e, key),
-  help: help ?? 'Empty: the chemistry preset’s value (shown greyed).',
+  help: help ?? 'Empty: the chemistry preset’s value (shown greyed), a typical value: use the maker’s figure.',
 });
 
 const batteryForm: KindForm = {
@@ -465,9 +465,14 @@ const batteryForm: KindForm = {
             { type: 'number', path: 'bank.capacityAh', label: 'Capacity of one string', quantity: 'capacity', required: true, default: 100, help: 'At the chemistry’s rated hours (e.g. C20).' },
             { type: 'number', path: 'bank.initialSoc', label: percentOf('State of charge at the start'), quantity: 'fraction-percent', required: false, placeholder: () => 1 },
             override('nominalCellVoltage', 'Nominal cell voltage', 'voltage'),
-            override('endOfDischargeCellVoltage', 'Cut-off cell voltage', 'voltage'),
+            override(
+              'endOfDischargeCellVoltage',
+              'Cut-off cell voltage',
+              'voltage',
+              'End-of-discharge voltage per cell under load; a backup design discharges to it. Empty: the preset’s (lead-acid 1.75 V), a typical value: use the maker’s figure.',
+            ),
             override('usableDepthOfDischarge', percentOf('Usable depth of discharge'), 'fraction-percent'),
-            override('peukertExponent', 'Peukert exponent', 'ratio', 'Empty: the preset’s; 1 = no rate effect.'),
+            override('peukertExponent', 'Peukert exponent', 'ratio', 'Empty: the preset’s, a typical value: use the maker’s figure; 1 = no rate effect.'),
             override('internalResistanceOhmAh', 'Cell resistance × capacity', 'ohm-ah'),
             override('roundTripEfficiency', percentOf('Round-trip efficiency'), 'fraction-percent'),
             override('ratedHours', 'Capacity rated at (hours)', 'time'),
