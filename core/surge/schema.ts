@@ -53,6 +53,7 @@ export function checkStarting(s: MotorStarting | undefined): Omit<Problem, 'elem
 /** Fault and dip fields shared by the grid and generator kinds. */
 export const sourceFaultFields = {
   subtransientReactancePercent: z.optional(positive('% (X\u2033d on the generator rating, typically 10–25 %)').check(z.lte(100, 'must not exceed 100 %'))),
+  transientReactancePercent: z.optional(positive('% (X\u2032d on the generator rating, typically 15–35 %)').check(z.lte(200, 'must not exceed 200 %'))),
   maxDipPercent: z.optional(positive('%').check(z.lt(100, 'must be below 100 %'))),
   shortCircuitPower: z.optional(positive('VA')),
   shortCircuitRToX: z.optional(num().check(z.gte(0, 'must not be negative'), z.lte(10, 'must not exceed 10'))),
