@@ -52,7 +52,7 @@ export function studySurges(input: unknown): SurgeOutcome {
 export function hasSurgeInputs(input: unknown): boolean {
   const els = (input as { elements?: unknown })?.elements;
   if (!Array.isArray(els)) return false;
-  const keys = ['starting', 'surge', 'lowVoltageCutoff', 'protection', 'bankFuse', 'subtransientReactancePercent', 'shortCircuitPower'];
+  const keys = ['starting', 'surge', 'lowVoltageCutoff', 'protection', 'bankFuse', 'subtransientReactancePercent', 'transientReactancePercent', 'shortCircuitPower'];
   return els.some((e) => typeof e === 'object' && e !== null && keys.some((k) => k in e));
 }
 
