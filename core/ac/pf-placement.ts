@@ -91,7 +91,8 @@ export function pfCorrectionCandidates(result: SolveResult, target: number = DEF
     const conv = converterOutputAt(byId, e, side);
     const offered = !conv;
     const reason = conv ? `on the output of ${conv.kind === 'drive' ? 'the drive' : 'the inverter'} ${conv.name}: ${conv.kind === 'drive' ? DRIVE_OUTPUT_REASON : INVERTER_OUTPUT_REASON}` : undefined;
-    const needed = offered && port.p > 0 && port.pfSense === 'lagging' && port.powerFactor < target;
+    // A pf equal to the target within rounding (0.9499999… against 0.95) needs no bank.
+    const needed = offered && port.p > 0 && port.pfSense === 'lagging' && port.powerFactor < target - 1e-6;
     out.push({ id: e.id, name: e.name, side, powerFactor: port.powerFactor, pfSense: port.pfSense, offered, needed, ...(reason ? { reason } : {}) });
   }
   return out;
