@@ -219,8 +219,8 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
     startLoad = { id: motor.id, kind: 'ac-va-load', from: motor.from, apparentPower: f.startingApparentPower, powerFactor: f.startingPowerFactor };
   }
   const drives = up.filter((e) => e.kind === 'drive');
-  if (s.method === 'drive' && drives.length === 0) notes.push('method "drive" but no drive feeds this motor: the start is modelled at the motor as a drive would draw it');
-  if (s.method !== 'drive' && up[0]?.kind === 'drive') notes.push(`the motor is fed by the drive "${up[0].id}" but its method is "${s.method}": check the method`);
+  if (s.method === 'drive' && drives.length === 0) notes.push('the starting method is a drive but no drive feeds this motor: the start is modelled at the motor as a drive would draw it');
+  if (s.method !== 'drive' && up[0]?.kind === 'drive') notes.push(`the motor is fed by the drive "${up[0].name ?? up[0].id}" but starts by ${METHOD_WORDS[s.method]}: check the starting method`);
 
   // Every series impedance between the source and the motor counts during the start. The engine's
   // solve reads a source's resistance and reactance only; the fault data (a grid's short-circuit
@@ -356,17 +356,17 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
         ...(inv.lowVoltageCutoff !== undefined ? { lowVoltageCutoff: inv.lowVoltageCutoff } : {}),
       };
       if (inv.surge) {
-        checks.push(check({ name: 'inverter-surge', elementId: inv.id, label: 'inverter apparent power during the start', value: sInv, limit: inv.surge.apparentPower, unit: 'VA', sense: 'at-most', limitSource: 'surge rating (surge.apparentPower)' }));
+        checks.push(check({ name: 'inverter-surge', elementId: inv.id, label: 'inverter apparent power during the start', value: sInv, limit: inv.surge.apparentPower, unit: 'VA', sense: 'at-most', limitSource: 'its surge apparent power' }));
         if (continuous === undefined || sInv > continuous) {
-          checks.push(check({ name: 'surge-duration', elementId: inv.id, label: 'start time against the surge duration', value: f.startSeconds, limit: inv.surge.durationSeconds, unit: 's', sense: 'at-most', limitSource: 'surge.durationSeconds' }));
+          checks.push(check({ name: 'surge-duration', elementId: inv.id, label: 'start time against the surge duration', value: f.startSeconds, limit: inv.surge.durationSeconds, unit: 's', sense: 'at-most', limitSource: 'how long it holds its surge' }));
         }
       } else if (continuous !== undefined) {
-        checks.push(check({ name: 'inverter-surge', elementId: inv.id, label: 'inverter apparent power during the start (no surge rating given: against its continuous rating)', value: sInv, limit: continuous, unit: 'VA', sense: 'at-most', limitSource: 'loss.ratedPower, taken as VA (no surge rating given)' }));
+        checks.push(check({ name: 'inverter-surge', elementId: inv.id, label: 'inverter apparent power during the start (no surge rating given: against its continuous rating)', value: sInv, limit: continuous, unit: 'VA', sense: 'at-most', limitSource: 'its rated power, taken as VA (no surge rating given)' }));
       } else {
-        notes.push(`inverter "${inv.id}" has no surge rating (surge) and no rated power: its surge capability is not checked`);
+        notes.push(`inverter "${inv.name ?? inv.id}" has no surge rating and no rated power: its surge capability is not checked`);
       }
       if (inv.lowVoltageCutoff !== undefined) {
-        checks.push(check({ name: 'inverter-cutoff', elementId: inv.id, label: 'inverter DC input voltage during the start', value: ir.input!.voltage, limit: inv.lowVoltageCutoff, unit: 'V', sense: 'at-least', limitSource: 'lowVoltageCutoff' }));
+        checks.push(check({ name: 'inverter-cutoff', elementId: inv.id, label: 'inverter DC input voltage during the start', value: ir.input!.voltage, limit: inv.lowVoltageCutoff, unit: 'V', sense: 'at-least', limitSource: 'its low-voltage cut-off' }));
       }
       if (root.kind === 'battery') {
         const b = sr.get(root.id)!;
