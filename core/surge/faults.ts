@@ -6,7 +6,9 @@
  * return (2 × length), parallel sets dividing R. The voltage E is the worst case, not the state of
  * charge of the backup study: IEC 61660-1:1997 (short-circuit currents in d.c. auxiliary
  * installations) takes the battery fully charged for the maximum short-circuit current, its
- * open-circuit voltage E_B (clause 2.4; from memory, not checked against the printed standard). A
+ * open-circuit voltage E_B (its clause on stationary lead-acid batteries; from memory, the clause
+ * number not checked against the printed standard, so the text names the clause by its subject; a
+ * public summary of the standard agrees that E_B is the open-circuit voltage). A
  * bank held by a charger sits at its charge voltage, above that open-circuit voltage, so this study
  * takes the higher of the two: the fully charged open-circuit voltage (OCV curve at state of charge
  * 1) and the charge (absorption) voltage, both per cell × cells in series, from the bank's preset or
@@ -49,8 +51,8 @@ export function batteryFaultVoltage(e: BatterySource): { voltage: number; basis:
   const charge = bank.values.chargeCellVoltage * bank.cellsInSeries;
   const n = bank.cellsInSeries;
   return charge > full
-    ? { voltage: charge, basis: `the charge voltage ${fmtV(charge)} (${bank.values.chargeCellVoltage} V × ${n} cells), above the fully charged open-circuit voltage ${fmtV(full)} (IEC 61660-1 2.4)` }
-    : { voltage: full, basis: `the fully charged open-circuit voltage ${fmtV(full)} (IEC 61660-1 2.4: the battery fully charged), at or above the charge voltage ${fmtV(charge)}` };
+    ? { voltage: charge, basis: `the charge voltage ${fmtV(charge)} (${bank.values.chargeCellVoltage} V × ${n} cells), above the fully charged open-circuit voltage ${fmtV(full)} (IEC 61660-1, battery clause)` }
+    : { voltage: full, basis: `the fully charged open-circuit voltage ${fmtV(full)} (IEC 61660-1, battery clause: the battery fully charged), at or above the charge voltage ${fmtV(charge)}` };
 }
 
 const fmtV = (v: number): string => `${v.toPrecision(4)} V`;

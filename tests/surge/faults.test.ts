@@ -59,7 +59,7 @@ describe('battery prospective short-circuit current (worked by hand)', () => {
       ]),
     );
     expect(res.batteryFaults.points[0]!.current).toBeCloseTo(54.4 / 0.04, 6);
-    expect(res.batteryFaults.voltageBasis).toMatch(/^the fully charged open-circuit voltage 54\.40 V \(IEC 61660-1 2\.4/);
+    expect(res.batteryFaults.voltageBasis).toMatch(/^the fully charged open-circuit voltage 54\.40 V \(IEC 61660-1, battery clause: the battery fully charged\)/);
   });
 
   it('a battery given by its voltage alone: that voltage, and the result says so', () => {
