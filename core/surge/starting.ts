@@ -149,6 +149,9 @@ const METHOD_WORDS: Record<StartMethod, string> = {
   drive: 'a drive',
 };
 
+const SERIES_WORDS =
+  'every transformer (its u_k and load loss) and every cable (carrying the starting current, with the size and resistance of the running solve: a start lasts seconds) are in the solve';
+
 const REACTANCE_WORDS = { transient: 'transient reactance X′d', subtransient: 'subtransient reactance X″d' } as const;
 
 const check = (c: Omit<StartCheck, 'utilisation' | 'status'>): StartCheck => {
@@ -285,9 +288,20 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
     }
   }
   if (problems.length) return { ok: false, problems };
+  // A cable given by a conductor from the tables keeps, during the start, the size and resistance the
+  // running solve gave it: a start lasts seconds, so the conductor neither heats up to the starting
+  // current nor is sized for it (the engine would size an "auto" conductor afresh for the starting
+  // current, and take its resistance at the temperature that current would reach if it lasted).
+  const atRunning = (e: Element): Element => {
+    if (e.kind !== 'cable' || !e.conductor) return e;
+    const c = res.get(e.id)?.conductor;
+    if (!c) return e;
+    const { conductor: _c, ...cable } = e;
+    return { ...cable, resistancePerKm: c.resistance.perKm, reactancePerKm: c.reactancePerKm, parallelSets: c.parallelSets };
+  };
   const elements = project.elements
     .filter((e) => !below.has(e.id))
-    .map((e) => (e.id === motor.id ? startLoad : startRoot && e.id === startRoot.id ? startRoot : e));
+    .map((e) => (e.id === motor.id ? startLoad : startRoot && e.id === startRoot.id ? startRoot : atRunning(e)));
   const { backup: _b, flowStudy: _f, ...rest } = project;
   const solved = solveProject({ ...rest, elements });
 
@@ -443,8 +457,8 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
       ? 'Chain: the engine’s solve with the motor as a constant impedance at locked rotor (Z = V_phase / I_start at the starting power factor); cable drops |V_send| − |V_receive| at that operating point.'
       : 'Chain: the engine’s solve with the motor as a constant apparent power at rated voltage (the starter or drive regulates the current); cable drops |V_send| − |V_receive|.',
     sourceImpedance
-      ? `Source during the start: ${sourceImpedance.basis}; it, every transformer (its u_k and load loss) and every cable (at its operating temperature, carrying the starting current) are in the solve.`
-      : 'Source during the start: no impedance given, taken as stiff; every transformer and cable between it and the motor is in the solve.',
+      ? `Source during the start: ${sourceImpedance.basis}; it, ${SERIES_WORDS}.`
+      : `Source during the start: no impedance given, taken as stiff; ${SERIES_WORDS}.`,
     ...(genReactance
       ? [`Generator dip by the per-unit divider ΔV = X·S_start / (S_gen + X·S_start) with X its ${REACTANCE_WORDS[genReactance.kind]} (${genReactance.kind === 'transient' ? 'the dip while the motor accelerates, before the voltage regulator acts' : 'the first cycles; X′d gives the deeper dip that follows'}; common practice).`]
       : []),

@@ -4,7 +4,7 @@
  * a start that succeeds, one marginal and one that fails; the inverter and generator checks.
  */
 import { describe, expect, it } from 'vitest';
-import { studySurges, type MotorStartResult } from '../../core/index.ts';
+import { solveProject, studySurges, type MotorStartResult } from '../../core/index.ts';
 import { startingFigures } from '../../core/surge/starting.ts';
 import type { MotorStage } from '../../core/model.ts';
 import { dolOnCable, project, pumpOnInverter, transformerFed, weakGrid } from './fixtures.ts';
@@ -347,5 +347,28 @@ describe('published example: 300 kW motor on a 1000 kVA, 5.75 % transformer', ()
     expect(Math.abs(drop - 100 * book)).toBeLessThan(0.5);
     expect(drop).toBeLessThan(10); // the book's choice: 1000 kVA is enough
     expect(s.startingApparentPower / 1000).toBeCloseTo(1687.6, 0); // the book's 1688 kVA = √3 × 460 V × 2118 A
+  });
+});
+
+describe('a table conductor during the start', () => {
+  const p = project('motor on an auto-sized cable', [
+    { id: 'grid', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },
+    { id: 'run', kind: 'cable', from: 'grid', length: 80, conductor: { system: 'iec', material: 'copper', size: 'auto', insulation: 'pvc', installationMethod: 'C' } },
+    { id: 'm', kind: 'motor', from: 'run', ratedOutput: 30000, ratedVoltage: 400, nameplate: { efficiency: 0.93, powerFactor: 0.86, current: 55 }, starting: { method: 'dol', lockedRotorCurrent: 400, startingPowerFactor: 0.3 } },
+    { id: 'pump', kind: 'shaft-load', from: 'm', power: 25000 },
+  ]);
+
+  it('keeps the size and resistance of the running solve (it was sized afresh for 400 A and refused): the divider with the running R and X (hand)', () => {
+    const running = solveProject(p);
+    if (!running.ok) throw new Error('does not solve');
+    const c = running.result.elements.find((e) => e.id === 'run')!.conductor!;
+    expect(c.auto).toBe(true);
+    const s = start(p, 'm');
+    expect(s.duringStart).not.toBeNull();
+    const zm = 400 / SQRT3 / 400;
+    const rc = c.resistance.perKm * 0.08;
+    const xc = c.reactancePerKm * 0.08;
+    expect(s.duringStart!.terminalVoltagePercent).toBeCloseTo((100 * zm) / Math.hypot(zm * 0.3 + rc, zm * Math.sqrt(1 - 0.09) + xc), 6);
+    expect(s.methodText).toContain('with the size and resistance of the running solve');
   });
 });
