@@ -184,7 +184,7 @@ export function acFaults(project: Project, result: SolveResult): { walk: Walk; v
   const point = (elementId: string, location: FaultPoint['location'], u: number, z: { r: number; x: number }, c: number, note?: string): FaultPoint => {
     const mag = Math.hypot(z.r, z.x);
     const current = mag > 0 ? (c * u) / ((kind === 'ac3' ? SQRT3 : 1) * mag) : null;
-    const why = mag > 0 ? note : 'no impedance between the source and this point (a stiff source): give the grid’s shortCircuitPower or its resistance and reactance';
+    const why = mag > 0 ? note : `no impedance between the source and this point (a stiff source): ${root.kind === 'generator' ? 'give the generator’s subtransient reactance X″d (the transient X′d would understate the first cycles’ current) and its rating' : 'give the supply’s short-circuit power or its resistance and reactance'}`;
     return { elementId, location, portKind: kind, voltage: u, impedance: mag, r: z.r, x: z.x, current, ...(why ? { note: why } : {}) };
   };
   const at0 = point(root.id, 'source terminals', root.voltage, zs, cRoot, sourceNote);

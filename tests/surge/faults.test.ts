@@ -133,7 +133,7 @@ describe('AC available fault current, IEC 60909-0 (worked by hand)', () => {
   it('a stiff grid with no impedance and nothing in between: not computed (never Infinity)', () => {
     const rr = study(project('stiff', [{ id: 'g', kind: 'grid', phases: 1, voltage: 230, frequency: 50 }, { id: 'l', kind: 'ac-load', from: 'g', power: 100, powerFactor: 1 }]));
     expect(rr.acFaults.points[0]!.current).toBeNull();
-    expect(rr.acFaults.points[0]!.note).toContain('shortCircuitPower');
+    expect(rr.acFaults.points[0]!.note).toContain('short-circuit power');
   });
 });
 
