@@ -70,6 +70,7 @@ export {
   type UpstreamChange,
   type InterfaceState,
 } from './ac/pf-correction.ts';
+export { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates, type PfCandidate } from './ac/pf-placement.ts';
 export { formatNetworkLoads, formatPfCorrection } from './ac/text-report.ts';
 export {
   compareFlowControl,

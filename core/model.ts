@@ -73,6 +73,8 @@ export interface AcSource extends ElementBase {
   // Surges and faults (core/surge/); all optional.
   /** Generator subtransient reactance X''d, % on its rating (motor-start dip, fault current). */
   subtransientReactancePercent?: number;
+  /** Generator transient reactance X'd, % on its rating (≥ X''d; the motor-start dip uses it when given). */
+  transientReactancePercent?: number;
   /** Largest transient voltage dip allowed while a motor starts, % (generator; default 15 %, common practice). */
   maxDipPercent?: number;
   /** Grid: available short-circuit power S''kQ at the supply point, VA (IEC 60909 feeder impedance Z_Q = c·U²/S''kQ). */

@@ -17,13 +17,17 @@
  *
  * Where the bank goes: a load, or a stage whose output is not AC (motor, rectifier), is corrected
  * at its own input terminals (its own P and Q; the bank hangs beside it); a source or a stage with
- * an AC output at that output (all it delivers). Pure: no clock, no storage.
+ * an AC output at that output (all it delivers). Where it does not belong (core/ac/pf-placement.ts):
+ * a drive's output bus (the drive itself, or a motor or load it feeds through cables or transformers)
+ * is refused with the reason; an inverter's output bus is computed with a warning; a bus that feeds a
+ * drive gets a warning about its rectifier. Pure: no clock, no storage.
  */
 import type { Element, NetworkLoad, Project } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import type { ElementResult, PortResult, SolveResult } from '../result.ts';
 import { solveProject, validateProject } from '../solve/index.ts';
 import type { NetworkConnection } from './network.ts';
+import { DRIVE_INPUT_REASON, DRIVE_OUTPUT_REASON, INVERTER_OUTPUT_REASON, converterOutputAt, drivesOnBus } from './pf-placement.ts';
 
 /** Default light-load check: a quarter of the present real power (common practice, no source). */
 export const DEFAULT_LIGHT_LOAD_FRACTION = 0.25;
@@ -220,10 +224,13 @@ export function correctPowerFactor(input: unknown, request: PfCorrectionRequest)
     const what = port ? KIND_WORDS[port.kind] ?? port.kind : 'nothing';
     return { ok: false, problems: [problem('not-correctable', at, 'at', at, `its ${side} is ${what}: there is no reactive power to correct (name an element on the AC side)`)] };
   }
-  if (side === 'output' && element.kind === 'drive') {
+  const byIdSolved = new Map(before.elements.map((e) => [e.id, e]));
+  const converter = converterOutputAt(byIdSolved, element, side);
+  if (converter?.kind === 'drive') {
+    const where = converter.id === element.id ? 'is a variable-frequency drive' : `is on the output of the drive ${converter.name}`;
     return {
       ok: false,
-      problems: [problem('not-correctable', at, 'at', at, 'is a variable-frequency drive: capacitors on a drive output are not used (its switching would overload them, and the drive already supplies the motor var); correct at the drive input instead, e.g. at the cable feeding it')],
+      problems: [problem('not-correctable', at, 'at', at, `${where}: no capacitor bank on a drive output — ${DRIVE_OUTPUT_REASON}; correct at the drive input instead, e.g. at the cable feeding it`)],
     };
   }
   const kind = port.kind;
@@ -317,8 +324,14 @@ export function correctPowerFactor(input: unknown, request: PfCorrectionRequest)
       'a bank switched with the motor should not exceed the motor’s no-load reactive power, or the motor can self-excite when switched off (common practice); check with the motor maker',
     );
   }
-  if (side === 'output' && (element.kind === 'inverter' || element.kind === 'generic')) {
+  if (converter?.kind === 'inverter') {
+    warnings.push(`a bank here is on the output of the inverter ${converter.name}, where this app does not propose one: ${INVERTER_OUTPUT_REASON}`);
+  } else if (side === 'output' && element.kind === 'generic') {
     warnings.push(`${element.name} regulates its output and supplies its reactive power itself: the bank lowers its output current, not the power drawn upstream of it`);
+  }
+  const fedDrives = drivesOnBus(byIdSolved, bankFrom);
+  if (fedDrives.length) {
+    warnings.push(`this bus feeds the drive${fedDrives.length > 1 ? 's' : ''} ${fedDrives.map((d) => d.name).join(', ')}: ${DRIVE_INPUT_REASON}`);
   }
   const miss = Math.abs(afterSolved.powerFactor - target);
   if (miss > 0.005 && afterSolved.pfSense === 'lagging') {

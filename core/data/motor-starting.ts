@@ -7,8 +7,29 @@
  * percentages as % numbers.
  */
 
-/** Locked-rotor current of a cage motor when neither code letter, ratio nor current is given, × FLC (common practice: 6–7 for IE2/IE3 cage motors; 6 used). */
+/** Locked-rotor current of a cage motor when neither code letter, ratio nor current is given, × FLC (common practice: 6–7 for IE1/IE2 cage motors; 6 used). */
 export const DEFAULT_LOCKED_ROTOR_RATIO = 6;
+
+/**
+ * The same default by efficiency class, × FLC. Premium-efficiency motors draw more: lower-resistance
+ * rotor cages give a higher locked-rotor current. IEC 60034-12:2016 added the designs NE and HE
+ * ("E": extended efficiency, for IE3/IE4 motors) with a higher locked-rotor apparent power allowed
+ * than designs N and H (clause 5, design letters; the printed limits not checked: from memory);
+ * NEMA MG 1 design B caps the locked-rotor current, design A does not, and premium-efficiency
+ * designs reach the upper code letters (from memory). Values common practice, from memory: IE1/IE2
+ * 6, IE3 7, IE4 8, NEMA Premium 8 (the upper end of the usual 6–8 band). The user sees "typical
+ * value: use the maker's figure".
+ */
+export const DEFAULT_LOCKED_ROTOR_RATIO_BY_CLASS: Readonly<Record<'IE1' | 'IE2' | 'IE3' | 'IE4' | 'NEMA-premium', number>> = {
+  IE1: 6,
+  IE2: 6,
+  IE3: 7,
+  IE4: 8,
+  'NEMA-premium': 8,
+};
+
+/** What a user reads beside every typical value this app assumes (issue 14, point 16). */
+export const TYPICAL_VALUE = 'typical value: use the maker’s figure';
 
 /** Star-delta: line current and torque are 1/3 of direct-on-line (textbook relation: phase voltage ÷ √3 on a delta winding switched to star). */
 export const STAR_DELTA_FACTOR = 1 / 3;

@@ -1,11 +1,20 @@
 /**
  * Prospective short-circuit currents and the devices that must interrupt them.
  *
- * Battery (DC), method: the bank as its open-circuit voltage behind its internal resistance
- * (Thévenin model, the one the solve uses): I_sc = V_oc / (R_internal + R_cables to the point),
- * each DC cable counted go and return (2 × length), parallel sets dividing R. A bolted fault;
- * arc resistance and the bank's own connection resistances would lower it (not counted: on the
- * safe side for the device check).
+ * Battery (DC), method: the bank as a voltage behind its internal resistance (Thévenin model, the
+ * one the solve uses): I_sc = E / (R_internal + R_cables to the point), each DC cable counted go and
+ * return (2 × length), parallel sets dividing R. The voltage E is the worst case, not the state of
+ * charge of the backup study: IEC 61660-1:1997 (short-circuit currents in d.c. auxiliary
+ * installations) takes the battery fully charged for the maximum short-circuit current, its
+ * open-circuit voltage E_B (its clause on stationary lead-acid batteries; from memory, the clause
+ * number not checked against the printed standard, so the text names the clause by its subject; a
+ * public summary of the standard agrees that E_B is the open-circuit voltage). A
+ * bank held by a charger sits at its charge voltage, above that open-circuit voltage, so this study
+ * takes the higher of the two: the fully charged open-circuit voltage (OCV curve at state of charge
+ * 1) and the charge (absorption) voltage, both per cell × cells in series, from the bank's preset or
+ * datasheet overrides. A battery given by its voltage alone uses that voltage (said so). A bolted
+ * fault; arc resistance and the bank's own connection resistances would lower it, a charger's own
+ * current-limited contribution would add a little (neither counted).
  *
  * AC, method: IEC 60909-0 equivalent voltage source at the fault location, three-phase bolted
  * fault: I″k = c·U_n / (√3·|Z_k|) (single-phase interfaces: the loop, I″k = c·U_n / |Z_loop|, the
@@ -22,6 +31,7 @@ import type { AcSource, BatterySource, CableStage, Element, Project, Transformer
 import type { ConductorResult, SolveResult } from '../result.ts';
 import type { Problem } from '../errors.ts';
 import { batteryEquivalent } from '../stages/battery.ts';
+import { bankOcv, resolveBank } from '../battery/bank.ts';
 import { CONDUCTOR_MATERIALS } from '../data/conductor-materials.ts';
 import { FEEDER_R_OVER_X, IEC_60909_VOLTAGE_FACTORS, KT_NUMERATOR, KT_XT_COEFFICIENT } from '../data/iec-60909.ts';
 import type { DeviceCheck, FaultPoint, SurgeStudyResult } from './types.ts';
@@ -29,7 +39,23 @@ import type { DeviceCheck, FaultPoint, SurgeStudyResult } from './types.ts';
 const SQRT3 = Math.sqrt(3);
 
 export const BATTERY_FAULT_METHOD =
-  'Bolted fault: I_sc = V_oc / (R_internal + R of the DC cables to the point), cables go and return; arc and connection resistances not counted (on the safe side for the device check).';
+  'Bolted fault: I_sc = E / (R_internal + R of the DC cables to the point), cables go and return; E is the worst case: the higher of the fully charged open-circuit voltage (IEC 61660-1 takes the battery fully charged for the maximum short-circuit current) and the charge voltage a charger holds the bank at; arc and connection resistances and a charger’s own contribution not counted.';
+
+/** The voltage a battery fault is worked at (IEC 61660-1 maximum case, or the charge voltage), and why. */
+export function batteryFaultVoltage(e: BatterySource): { voltage: number; basis: string } {
+  if (!e.bank) {
+    return { voltage: e.voltage!, basis: `the bank voltage as entered, ${e.voltage} V (give the bank's cells and chemistry to work it at the fully charged and the charge voltage)` };
+  }
+  const bank = resolveBank(e.bank, e.internalResistance);
+  const full = bankOcv(bank, 1);
+  const charge = bank.values.chargeCellVoltage * bank.cellsInSeries;
+  const n = bank.cellsInSeries;
+  return charge > full
+    ? { voltage: charge, basis: `the charge voltage ${fmtV(charge)} (${bank.values.chargeCellVoltage} V × ${n} cells), above the fully charged open-circuit voltage ${fmtV(full)} (IEC 61660-1, battery clause)` }
+    : { voltage: full, basis: `the fully charged open-circuit voltage ${fmtV(full)} (IEC 61660-1, battery clause: the battery fully charged), at or above the charge voltage ${fmtV(charge)}` };
+}
+
+const fmtV = (v: number): string => `${v.toPrecision(4)} V`;
 export const AC_FAULT_METHOD =
   'IEC 60909-0 equivalent voltage source, three-phase bolted fault I″k = c·U_n / (√3·|Z_k|) (single-phase: the loop, c·U_n / |Z_loop|); c = c_max of IEC 60909-0 Table 1; transformer K_T = 0.95·c_max/(1 + 0.6·x_T); cables at 20 °C. Motor contributions and the generator factor K_G are not included.';
 
@@ -37,6 +63,21 @@ export const AC_FAULT_METHOD =
 export function voltageFactor(nominalVoltage: number, tolerancePercent: 6 | 10): number {
   const row = IEC_60909_VOLTAGE_FACTORS.find((r) => nominalVoltage <= r.maxNominalVoltage && (r.tolerancePercent === null || r.tolerancePercent === tolerancePercent))!;
   return row.cMax;
+}
+
+/**
+ * A grid's feeder impedance from its short-circuit power (IEC 60909-0:2016 6.2, eq. 6):
+ * Z_Q = c·U_n²/S″kQ with c = c_max of Table 1, X_Q = Z_Q/√(1 + (R/X)²), R_Q = (R/X)·X_Q, R/X as
+ * entered or 0.1 (6.2). Per phase (star equivalent) on three-phase; the loop on single-phase.
+ * Null without a short-circuit power.
+ */
+export function feederImpedance(root: AcSource): { r: number; x: number; z: number; c: number; rToX: number } | null {
+  if (root.kind !== 'grid' || root.shortCircuitPower === undefined) return null;
+  const c = voltageFactor(root.voltage, root.voltageTolerancePercent ?? 10);
+  const z = (c * root.voltage * root.voltage) / root.shortCircuitPower;
+  const rToX = root.shortCircuitRToX ?? FEEDER_R_OVER_X;
+  const x = z / Math.sqrt(1 + rToX * rToX);
+  return { r: rToX * x, x, z, c, rToX };
 }
 
 /** Conductor resistance at 20 °C from a sized link's table value (linear law R_T = R₂₀·[1 + α₂₀(T − 20)]). */
@@ -56,6 +97,8 @@ function cableZ(e: CableStage, kind: 'dc' | 'ac1' | 'ac3', conductor: ConductorR
 
 interface Walk {
   points: FaultPoint[];
+  /** Battery: the voltage the fault is worked at, in words. */
+  voltageBasis?: string;
   /** Prospective current at each element's output (for the devices at the sending end of what it feeds). */
   atOutput: Map<string, FaultPoint>;
 }
@@ -90,7 +133,10 @@ export function batteryFaults(project: Project, result: SolveResult): { ok: true
   }
   const res = new Map(result.elements.map((e) => [e.id, e]));
   const kids = childrenOf(project.elements);
-  const terminals: FaultPoint = { elementId: root.id, location: 'bank terminals', portKind: 'dc', voltage: eq.emf, impedance: eq.resistance, r: eq.resistance, x: 0, current: eq.emf / eq.resistance };
+  const worst = batteryFaultVoltage(root);
+  const emf = worst.voltage;
+  walk.voltageBasis = worst.basis;
+  const terminals: FaultPoint = { elementId: root.id, location: 'bank terminals', portKind: 'dc', voltage: emf, impedance: eq.resistance, r: eq.resistance, x: 0, current: emf / eq.resistance };
   walk.points.push(terminals);
   walk.atOutput.set(root.id, terminals);
   const visit = (id: string, rTo: number) => {
@@ -98,7 +144,7 @@ export function batteryFaults(project: Project, result: SolveResult): { ok: true
       if (child.kind === 'cable') {
         const z = cableZ(child, 'dc', res.get(child.id)?.conductor);
         const r = rTo + z.r;
-        const p: FaultPoint = { elementId: child.id, location: 'far end', portKind: 'dc', voltage: eq.emf, impedance: r, r, x: 0, current: eq.emf / r };
+        const p: FaultPoint = { elementId: child.id, location: 'far end', portKind: 'dc', voltage: emf, impedance: r, r, x: 0, current: emf / r };
         walk.points.push(p);
         walk.atOutput.set(child.id, p);
         visit(child.id, r);
@@ -123,11 +169,9 @@ export function acFaults(project: Project, result: SolveResult): { walk: Walk; v
   let zs: { r: number; x: number };
   let sourceNote: string;
   if (root.kind === 'grid' && root.shortCircuitPower !== undefined) {
-    const zq = (cRoot * root.voltage * root.voltage) / root.shortCircuitPower;
-    const rx = root.shortCircuitRToX ?? FEEDER_R_OVER_X;
-    const x = zq / Math.sqrt(1 + rx * rx);
-    zs = { r: rx * x, x };
-    sourceNote = `feeder Z_Q = c·U²/S″kQ with R/X ${rx}`;
+    const q = feederImpedance(root)!;
+    zs = { r: q.r, x: q.x };
+    sourceNote = `feeder Z_Q = c·U²/S″kQ with R/X ${q.rToX}`;
   } else if (root.kind === 'generator' && root.subtransientReactancePercent !== undefined && root.ratedApparentPower !== undefined) {
     zs = { r: root.resistance ?? 0, x: ((root.subtransientReactancePercent / 100) * root.voltage * root.voltage) / root.ratedApparentPower };
     sourceNote = 'generator X″d on its rating';
@@ -140,7 +184,7 @@ export function acFaults(project: Project, result: SolveResult): { walk: Walk; v
   const point = (elementId: string, location: FaultPoint['location'], u: number, z: { r: number; x: number }, c: number, note?: string): FaultPoint => {
     const mag = Math.hypot(z.r, z.x);
     const current = mag > 0 ? (c * u) / ((kind === 'ac3' ? SQRT3 : 1) * mag) : null;
-    const why = mag > 0 ? note : 'no impedance between the source and this point (a stiff source): give the grid’s shortCircuitPower or its resistance and reactance';
+    const why = mag > 0 ? note : `no impedance between the source and this point (a stiff source): ${root.kind === 'generator' ? 'give the generator’s subtransient reactance X″d (the transient X′d would understate the first cycles’ current) and its rating' : 'give the supply’s short-circuit power or its resistance and reactance'}`;
     return { elementId, location, portKind: kind, voltage: u, impedance: mag, r: z.r, x: z.x, current, ...(why ? { note: why } : {}) };
   };
   const at0 = point(root.id, 'source terminals', root.voltage, zs, cRoot, sourceNote);

@@ -39,7 +39,7 @@ export function studySurges(input: unknown): SurgeOutcome {
     ok: true,
     result: {
       starts,
-      batteryFaults: { method: BATTERY_FAULT_METHOD, points: bat.walk.points },
+      batteryFaults: { method: BATTERY_FAULT_METHOD, ...(bat.walk.voltageBasis !== undefined ? { voltageBasis: bat.walk.voltageBasis } : {}), points: bat.walk.points },
       acFaults: { method: AC_FAULT_METHOD, voltageFactor: ac.voltageFactor, points: ac.walk.points },
       devices: deviceChecks(project, atOutput),
       warnings: trapWarnings(project, result),
@@ -52,7 +52,7 @@ export function studySurges(input: unknown): SurgeOutcome {
 export function hasSurgeInputs(input: unknown): boolean {
   const els = (input as { elements?: unknown })?.elements;
   if (!Array.isArray(els)) return false;
-  const keys = ['starting', 'surge', 'lowVoltageCutoff', 'protection', 'bankFuse', 'subtransientReactancePercent', 'shortCircuitPower'];
+  const keys = ['starting', 'surge', 'lowVoltageCutoff', 'protection', 'bankFuse', 'subtransientReactancePercent', 'transientReactancePercent', 'shortCircuitPower'];
   return els.some((e) => typeof e === 'object' && e !== null && keys.some((k) => k in e));
 }
 

@@ -29,10 +29,10 @@ export const startingSchema = z.strictObject({
       }),
     ),
   ),
-  startingCurrentRatio: z.optional(num().check(z.gt(1, 'must be above 1 (locked-rotor current / rated current, typically 5–8)'), z.lte(20, 'must not exceed 20'))),
+  startingCurrentRatio: z.optional(num().check(z.gt(1, 'must be above 1 (locked-rotor current / rated current; typical value 5–8: use the maker’s figure)'), z.lte(20, 'must not exceed 20'))),
   lockedRotorCurrent: z.optional(positive('A')),
-  currentLimit: z.optional(num().check(z.gt(1, 'must be above 1 (a multiple of full-load current, typically 3–4)'), z.lte(10, 'must not exceed 10'))),
-  startingPowerFactor: z.optional(num().check(z.gt(0, 'must be greater than 0'), z.lt(1, 'must be below 1 (typically 0.2–0.4 at locked rotor)'))),
+  currentLimit: z.optional(num().check(z.gt(1, 'must be above 1 (a multiple of full-load current; typical value 3–4: use the maker’s figure)'), z.lte(10, 'must not exceed 10'))),
+  startingPowerFactor: z.optional(num().check(z.gt(0, 'must be greater than 0'), z.lt(1, 'must be below 1 (at locked rotor; typical value 0.2–0.4: use the maker’s figure)'))),
   startSeconds: z.optional(positive('s')),
   minTerminalVoltagePercent: z.optional(num().check(z.gt(0, 'must be greater than 0 %'), z.lt(100, 'must be below 100 %'))),
 });
@@ -52,7 +52,8 @@ export function checkStarting(s: MotorStarting | undefined): Omit<Problem, 'elem
 
 /** Fault and dip fields shared by the grid and generator kinds. */
 export const sourceFaultFields = {
-  subtransientReactancePercent: z.optional(positive('% (X\u2033d on the generator rating, typically 10–25 %)').check(z.lte(100, 'must not exceed 100 %'))),
+  subtransientReactancePercent: z.optional(positive('% (X\u2033d on the generator rating; typical value 10–25 %: use the maker’s figure)').check(z.lte(100, 'must not exceed 100 %'))),
+  transientReactancePercent: z.optional(positive('% (X\u2032d on the generator rating; typical value 15–35 %: use the maker’s figure)').check(z.lte(200, 'must not exceed 200 %'))),
   maxDipPercent: z.optional(positive('%').check(z.lt(100, 'must be below 100 %'))),
   shortCircuitPower: z.optional(positive('VA')),
   shortCircuitRToX: z.optional(num().check(z.gte(0, 'must not be negative'), z.lte(10, 'must not exceed 10'))),

@@ -27,7 +27,7 @@
  *   minimum); u > 1 fails ("will not start"); 0.9 < u ≤ 1 is "marginal" (within 10 % of a limit);
  *   the check with the largest u governs.
  */
-import type { AcSource, BatterySource, Element, InverterStage, MotorStage, Project } from '../model.ts';
+import type { AcSource, BatterySource, Element, InverterStage, MotorStage, Project, TransformerStage } from '../model.ts';
 import type { SolveResult } from '../result.ts';
 import type { Problem } from '../errors.ts';
 import { solveProject } from '../solve/index.ts';
@@ -38,6 +38,8 @@ import { batteryEquivalent } from '../stages/battery.ts';
 import { NEC_430_7_B, WATTS_PER_HP } from '../data/motor-code-letters.ts';
 import {
   DEFAULT_LOCKED_ROTOR_RATIO,
+  DEFAULT_LOCKED_ROTOR_RATIO_BY_CLASS,
+  TYPICAL_VALUE,
   DEFAULT_MAX_GENERATOR_DIP_PERCENT,
   DEFAULT_MIN_TERMINAL_VOLTAGE_PERCENT,
   DEFAULT_SOFT_STARTER_LIMIT,
@@ -47,10 +49,12 @@ import {
   STARTING_POWER_FACTOR,
   STAR_DELTA_FACTOR,
 } from '../data/motor-starting.ts';
-import type { CheckStatus, MotorStartResult, StartCheck, StartVerdict } from './types.ts';
+import { feederImpedance } from './faults.ts';
+import type { CheckStatus, MotorStartResult, SeriesDrop, StartCheck, StartMethod, StartVerdict } from './types.ts';
 
 const SQRT3 = Math.sqrt(3);
-const CP = 'common practice, no source';
+/** Beside every default the user reads (the defaults are common practice, no source; see core/data/motor-starting.ts). */
+const CP = TYPICAL_VALUE;
 
 const fmt = (x: number, digits = 3): string => (Math.abs(x) >= 1000 ? Math.round(x).toString() : x.toPrecision(digits));
 
@@ -90,8 +94,11 @@ export function startingFigures(e: MotorStage, phases: 1 | 3, ratedVoltage: numb
     lockedRotorCurrent = s.lockedRotorCurrent;
     lockedRotorSource = 'entered';
   } else {
-    lockedRotorCurrent = DEFAULT_LOCKED_ROTOR_RATIO * fullLoadCurrent;
-    lockedRotorSource = `not given: ${DEFAULT_LOCKED_ROTOR_RATIO} × full-load current assumed (${CP}); enter the code letter, I_A/I_N or the locked-rotor current`;
+    const cls = e.efficiencyClass;
+    const k = cls !== undefined ? DEFAULT_LOCKED_ROTOR_RATIO_BY_CLASS[cls] : DEFAULT_LOCKED_ROTOR_RATIO;
+    const clsWords = cls === undefined ? '' : ` for ${cls === 'NEMA-premium' ? 'a NEMA Premium' : `an ${cls}`} motor${cls === 'IE3' || cls === 'IE4' || cls === 'NEMA-premium' ? ', premium-efficiency motors drawing more' : ''}`;
+    lockedRotorCurrent = k * fullLoadCurrent;
+    lockedRotorSource = `not given: ${k} × full-load current assumed${clsWords} (${CP}); enter the code letter, I_A/I_N or the locked-rotor current`;
   }
   let startingCurrent: number;
   let how: string;
@@ -118,7 +125,7 @@ export function startingFigures(e: MotorStage, phases: 1 | 3, ratedVoltage: numb
   const pfRow = STARTING_POWER_FACTOR.find((r) => e.ratedOutput <= r.upToWatts)!;
   const startingPowerFactor = s.method === 'drive' ? fl.powerFactor : (s.startingPowerFactor ?? pfRow.powerFactor);
   const startingPowerFactorSource =
-    s.method === 'drive' ? 'the motor’s full-load power factor (a drive starts at rated flux)' : s.startingPowerFactor !== undefined ? 'entered' : `typical by size, ${pfRow.powerFactor} (${CP})`;
+    s.method === 'drive' ? 'the motor’s full-load power factor (a drive starts at rated flux)' : s.startingPowerFactor !== undefined ? 'entered' : `${pfRow.powerFactor} by size (${CP})`;
   return {
     fullLoadCurrent,
     fullLoadCurrentSource,
@@ -131,9 +138,21 @@ export function startingFigures(e: MotorStage, phases: 1 | 3, ratedVoltage: numb
     startingPowerFactorSource,
     startingApparentPower: perVolt * startingCurrent,
     startSeconds: s.startSeconds ?? DEFAULT_START_SECONDS[s.method],
-    startSecondsSource: s.startSeconds !== undefined ? 'entered' : `default for ${s.method} (${CP})`,
+    startSecondsSource: s.startSeconds !== undefined ? 'entered' : `${DEFAULT_START_SECONDS[s.method]} s for ${METHOD_WORDS[s.method]} (${CP})`,
   };
 }
+
+const METHOD_WORDS: Record<StartMethod, string> = {
+  dol: 'direct on line',
+  'star-delta': 'star-delta',
+  'soft-starter': 'a soft starter',
+  drive: 'a drive',
+};
+
+const SERIES_WORDS =
+  'every transformer (its u_k and load loss) and every cable (carrying the starting current, with the size and resistance of the running solve: a start lasts seconds) are in the solve';
+
+const REACTANCE_WORDS = { transient: 'transient reactance X′d', subtransient: 'subtransient reactance X″d' } as const;
 
 const check = (c: Omit<StartCheck, 'utilisation' | 'status'>): StartCheck => {
   const u = c.sense === 'at-most' ? c.value / c.limit : c.value > 0 ? c.limit / c.value : Infinity;
@@ -203,28 +222,92 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
     startLoad = { id: motor.id, kind: 'ac-va-load', from: motor.from, apparentPower: f.startingApparentPower, powerFactor: f.startingPowerFactor };
   }
   const drives = up.filter((e) => e.kind === 'drive');
-  if (s.method === 'drive' && drives.length === 0) notes.push('method "drive" but no drive feeds this motor: the start is modelled at the motor as a drive would draw it');
-  if (s.method !== 'drive' && up[0]?.kind === 'drive') notes.push(`the motor is fed by the drive "${up[0].id}" but its method is "${s.method}": check the method`);
+  if (s.method === 'drive' && drives.length === 0) notes.push('the starting method is a drive but no drive feeds this motor: the start is modelled at the motor as a drive would draw it');
+  if (s.method !== 'drive' && up[0]?.kind === 'drive') notes.push(`the motor is fed by the drive "${up[0].name ?? up[0].id}" but starts by ${METHOD_WORDS[s.method]}: check the starting method`);
 
-  let generatorX: number | undefined;
-  const gen = root.kind === 'generator' ? (root as AcSource) : undefined;
-  if (gen?.subtransientReactancePercent !== undefined) {
-    if (gen.ratedApparentPower === undefined) {
-      problems.push({ code: 'invalid-value', elementId: gen.id, field: 'ratedApparentPower', message: 'is needed beside subtransientReactancePercent (X″d is given on the generator’s rating)' });
+  // Every series impedance between the source and the motor counts during the start. The engine's
+  // solve reads a source's resistance and reactance only; the fault data (a grid's short-circuit
+  // power, a generator's X'd / X''d) are turned into that impedance here, for the start's solve.
+  const acRoot = root.kind === 'grid' || root.kind === 'generator' ? (root as AcSource) : undefined;
+  const gen = acRoot?.kind === 'generator' ? acRoot : undefined;
+  let sourceImpedance: MotorStartResult['sourceImpedance'];
+  let startRoot: AcSource | undefined;
+  let genReactance: { percent: number; kind: 'transient' | 'subtransient' } | undefined;
+  if (gen) {
+    const xdd = gen.subtransientReactancePercent;
+    const xd = gen.transientReactancePercent;
+    if ((xdd !== undefined || xd !== undefined) && gen.ratedApparentPower === undefined) {
+      problems.push({ code: 'invalid-value', elementId: gen.id, field: 'ratedApparentPower', message: `is needed beside ${xd !== undefined ? 'transientReactancePercent' : 'subtransientReactancePercent'} (the generator’s reactances are given on its rating)` });
+    }
+    if (xd !== undefined && xdd !== undefined && xd < xdd) {
+      problems.push({ code: 'invalid-value', elementId: gen.id, field: 'transientReactancePercent', value: xd, message: `must not be below the subtransient reactance X″d ${xdd} % (a synchronous machine’s X′d is always at least its X″d)` });
+    }
+    if (problems.length === 0 && (xd !== undefined || xdd !== undefined)) {
+      genReactance = xd !== undefined ? { percent: xd, kind: 'transient' } : { percent: xdd!, kind: 'subtransient' };
+      const ohms = (genReactance.percent / 100) * (gen.voltage * gen.voltage) / gen.ratedApparentPower!;
+      startRoot = { ...gen, reactance: ohms };
+      sourceImpedance = {
+        elementId: gen.id,
+        r: gen.resistance ?? 0,
+        x: ohms,
+        basis: `generator ${REACTANCE_WORDS[genReactance.kind]} ${genReactance.percent} % on its ${fmt(gen.ratedApparentPower! / 1000)} kVA rating = ${fmt(ohms)} Ω per phase${gen.resistance !== undefined ? `, with the resistance entered (${fmt(gen.resistance)} Ω)` : ''}`,
+      };
+      if (genReactance.kind === 'subtransient') {
+        notes.push(`generator "${gen.name ?? gen.id}": only the subtransient reactance X″d is given, so the dip is the first cycles’ figure; the transient reactance X′d (larger) gives the deeper dip the motor sees while it accelerates, before the voltage regulator acts: enter it from the generator data`);
+      }
+    }
+  } else if (acRoot) {
+    const q = feederImpedance(acRoot);
+    if (q) {
+      startRoot = { ...acRoot, resistance: q.r, reactance: q.x };
+      sourceImpedance = {
+        elementId: acRoot.id,
+        r: q.r,
+        x: q.x,
+        basis: `feeder impedance Z_Q = c·U²/S″kQ = ${q.c} × (${fmt(acRoot.voltage)} V)² / ${fmt(acRoot.shortCircuitPower! / 1000)} kVA = ${fmt(q.z * 1000)} mΩ, R/X ${q.rToX} (IEC 60909-0:2016 6.2; c = c_max, Table 1)`,
+      };
+      if (acRoot.resistance !== undefined || acRoot.reactance !== undefined) {
+        notes.push(`supply "${acRoot.name ?? acRoot.id}": during the start its short-circuit power sets its impedance; the resistance and reactance entered are not used for the start`);
+      }
+    }
+  }
+  if (acRoot && !sourceImpedance) {
+    if ((acRoot.resistance ?? 0) > 0 || (acRoot.reactance ?? 0) > 0) {
+      sourceImpedance = { elementId: acRoot.id, r: acRoot.resistance ?? 0, x: acRoot.reactance ?? 0, basis: 'the source resistance and reactance as entered' };
     } else {
-      generatorX = (gen.subtransientReactancePercent / 100) * (gen.voltage * gen.voltage) / gen.ratedApparentPower;
+      notes.push(
+        acRoot.kind === 'grid'
+          ? `supply "${acRoot.name ?? acRoot.id}" has no short-circuit power (nor resistance or reactance): it is taken as infinitely stiff, so only the cables and transformers dip the voltage; ask the network operator for the short-circuit power at the supply point`
+          : `generator "${acRoot.name ?? acRoot.id}": give its transient reactance X′d (or subtransient X″d) and rating to check the dip; without them it is taken as infinitely stiff`,
+      );
+    }
+  }
+  for (const a of up) {
+    if (a.kind === 'transformer' && (a as TransformerStage).impedancePercent === undefined) {
+      notes.push(`transformer "${a.name ?? a.id}" has no impedance (u_k %): only its winding resistance is counted during the start, which understates the dip; enter u_k from its nameplate`);
     }
   }
   if (problems.length) return { ok: false, problems };
+  // A cable given by a conductor from the tables keeps, during the start, the size and resistance the
+  // running solve gave it: a start lasts seconds, so the conductor neither heats up to the starting
+  // current nor is sized for it (the engine would size an "auto" conductor afresh for the starting
+  // current, and take its resistance at the temperature that current would reach if it lasted).
+  const atRunning = (e: Element): Element => {
+    if (e.kind !== 'cable' || !e.conductor) return e;
+    const c = res.get(e.id)?.conductor;
+    if (!c) return e;
+    const { conductor: _c, ...cable } = e;
+    return { ...cable, resistancePerKm: c.resistance.perKm, reactancePerKm: c.reactancePerKm, parallelSets: c.parallelSets };
+  };
   const elements = project.elements
     .filter((e) => !below.has(e.id))
-    .map((e) => (e.id === motor.id ? startLoad : gen && e.id === gen.id && generatorX !== undefined ? { ...gen, reactance: generatorX } : e));
+    .map((e) => (e.id === motor.id ? startLoad : startRoot && e.id === startRoot.id ? startRoot : atRunning(e)));
   const { backup: _b, flowStudy: _f, ...rest } = project;
   const solved = solveProject({ ...rest, elements });
 
   const checks: StartCheck[] = [];
   const minV = s.minTerminalVoltagePercent ?? DEFAULT_MIN_TERMINAL_VOLTAGE_PERCENT;
-  const minVSource = s.minTerminalVoltagePercent !== undefined ? 'entered (starting.minTerminalVoltagePercent)' : `default ${DEFAULT_MIN_TERMINAL_VOLTAGE_PERCENT} % (${CP})`;
+  const minVSource = s.minTerminalVoltagePercent !== undefined ? 'entered (lowest terminal voltage while starting)' : `${DEFAULT_MIN_TERMINAL_VOLTAGE_PERCENT} %, ${CP}`;
   let duringStart: MotorStartResult['duringStart'] = null;
   let inverterOut: MotorStartResult['inverter'];
   let generatorOut: MotorStartResult['generator'];
@@ -245,7 +328,26 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
       }
       if (a.kind !== 'cable' && a.kind !== 'transformer') break;
     }
+    const seriesDrops: SeriesDrop[] = [];
+    for (const a of up) {
+      const r = sr.get(a.id)!;
+      let sending: number;
+      let receiving: number;
+      if (a.kind === 'cable') {
+        sending = r.input!.voltage;
+        receiving = r.output!.voltage;
+      } else if (a.kind === 'transformer') {
+        // Referred to the secondary: the ideal ratio's output less what the winding impedance drops.
+        sending = r.input!.voltage * (a.secondaryVoltage / a.primaryVoltage);
+        receiving = r.output!.voltage;
+      } else if (a.kind === 'grid' || a.kind === 'generator') {
+        sending = a.voltage;
+        receiving = r.output!.voltage;
+      } else break;
+      seriesDrops.push({ id: a.id, name: a.name ?? a.id, kind: a.kind, dropVolts: sending - receiving, dropPercent: (100 * (sending - receiving)) / sending });
+    }
     duringStart = {
+      seriesDrops,
       terminalVoltage: vT,
       terminalVoltagePercent: (100 * vT) / ratedVoltage,
       terminalCurrent: m.input!.current,
@@ -268,17 +370,17 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
         ...(inv.lowVoltageCutoff !== undefined ? { lowVoltageCutoff: inv.lowVoltageCutoff } : {}),
       };
       if (inv.surge) {
-        checks.push(check({ name: 'inverter-surge', elementId: inv.id, label: 'inverter apparent power during the start', value: sInv, limit: inv.surge.apparentPower, unit: 'VA', sense: 'at-most', limitSource: 'surge rating (surge.apparentPower)' }));
+        checks.push(check({ name: 'inverter-surge', elementId: inv.id, label: 'inverter apparent power during the start', value: sInv, limit: inv.surge.apparentPower, unit: 'VA', sense: 'at-most', limitSource: 'its surge apparent power' }));
         if (continuous === undefined || sInv > continuous) {
-          checks.push(check({ name: 'surge-duration', elementId: inv.id, label: 'start time against the surge duration', value: f.startSeconds, limit: inv.surge.durationSeconds, unit: 's', sense: 'at-most', limitSource: 'surge.durationSeconds' }));
+          checks.push(check({ name: 'surge-duration', elementId: inv.id, label: 'start time against the surge duration', value: f.startSeconds, limit: inv.surge.durationSeconds, unit: 's', sense: 'at-most', limitSource: 'how long it holds its surge' }));
         }
       } else if (continuous !== undefined) {
-        checks.push(check({ name: 'inverter-surge', elementId: inv.id, label: 'inverter apparent power during the start (no surge rating given: against its continuous rating)', value: sInv, limit: continuous, unit: 'VA', sense: 'at-most', limitSource: 'loss.ratedPower, taken as VA (no surge rating given)' }));
+        checks.push(check({ name: 'inverter-surge', elementId: inv.id, label: 'inverter apparent power during the start (no surge rating given: against its continuous rating)', value: sInv, limit: continuous, unit: 'VA', sense: 'at-most', limitSource: 'its rated power, taken as VA (no surge rating given)' }));
       } else {
-        notes.push(`inverter "${inv.id}" has no surge rating (surge) and no rated power: its surge capability is not checked`);
+        notes.push(`inverter "${inv.name ?? inv.id}" has no surge rating and no rated power: its surge capability is not checked`);
       }
       if (inv.lowVoltageCutoff !== undefined) {
-        checks.push(check({ name: 'inverter-cutoff', elementId: inv.id, label: 'inverter DC input voltage during the start', value: ir.input!.voltage, limit: inv.lowVoltageCutoff, unit: 'V', sense: 'at-least', limitSource: 'lowVoltageCutoff' }));
+        checks.push(check({ name: 'inverter-cutoff', elementId: inv.id, label: 'inverter DC input voltage during the start', value: ir.input!.voltage, limit: inv.lowVoltageCutoff, unit: 'V', sense: 'at-least', limitSource: 'its low-voltage cut-off' }));
       }
       if (root.kind === 'battery') {
         const b = sr.get(root.id)!;
@@ -301,15 +403,38 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
       generatorOut.ratedApparentPower = gen.ratedApparentPower;
       generatorOut.startingToRating = f.startingApparentPower / gen.ratedApparentPower;
     }
-    if (gen.subtransientReactancePercent !== undefined && gen.ratedApparentPower !== undefined) {
-      // Per-unit divider: EMF behind X''d feeding the starting impedance (common practice).
-      const xd = gen.subtransientReactancePercent / 100;
-      const dip = (100 * xd * f.startingApparentPower) / (gen.ratedApparentPower + xd * f.startingApparentPower);
-      generatorOut.subtransientReactancePercent = gen.subtransientReactancePercent;
+    if (genReactance) {
+      // Per-unit divider: the EMF behind the generator's reactance feeding the starting impedance (common practice).
+      const rated = gen.ratedApparentPower!;
+      const dipAt = (percent: number) => {
+        const x = percent / 100;
+        return (100 * x * f.startingApparentPower) / (rated + x * f.startingApparentPower);
+      };
+      const dip = dipAt(genReactance.percent);
+      if (gen.subtransientReactancePercent !== undefined) {
+        generatorOut.subtransientReactancePercent = gen.subtransientReactancePercent;
+        generatorOut.subtransientDipPercent = dipAt(gen.subtransientReactancePercent);
+      }
+      if (gen.transientReactancePercent !== undefined) {
+        generatorOut.transientReactancePercent = gen.transientReactancePercent;
+        generatorOut.transientDipPercent = dipAt(gen.transientReactancePercent);
+      }
+      generatorOut.reactanceUsed = genReactance.kind;
       generatorOut.dipPercent = dip;
-      checks.push(check({ name: 'generator-dip', elementId: gen.id, label: 'generator transient voltage dip', value: dip, limit: maxDip, unit: '%', sense: 'at-most', limitSource: gen.maxDipPercent !== undefined ? 'entered (maxDipPercent)' : `default ${DEFAULT_MAX_GENERATOR_DIP_PERCENT} % (${CP})` }));
-    } else {
-      notes.push(`generator "${gen.id}": give subtransientReactancePercent (X″d) and ratedApparentPower to check the transient dip`);
+      checks.push(
+        check({
+          name: 'generator-dip',
+          elementId: gen.id,
+          label: `generator voltage dip behind its ${REACTANCE_WORDS[genReactance.kind]}`,
+          value: dip,
+          limit: maxDip,
+          unit: '%',
+          sense: 'at-most',
+          limitSource: gen.maxDipPercent !== undefined ? 'entered (largest dip allowed)' : `${DEFAULT_MAX_GENERATOR_DIP_PERCENT} %, ${CP}`,
+        }),
+      );
+    } else if (!notes.some((n) => n.startsWith(`generator "${gen.name ?? gen.id}"`))) {
+      notes.push(`generator "${gen.name ?? gen.id}": give its transient reactance X′d (or subtransient X″d) and rating to check the dip`);
     }
   }
 
@@ -331,7 +456,12 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
     s.method === 'dol' || s.method === 'star-delta'
       ? 'Chain: the engine’s solve with the motor as a constant impedance at locked rotor (Z = V_phase / I_start at the starting power factor); cable drops |V_send| − |V_receive| at that operating point.'
       : 'Chain: the engine’s solve with the motor as a constant apparent power at rated voltage (the starter or drive regulates the current); cable drops |V_send| − |V_receive|.',
-    ...(gen ? ['Generator: reactance X″d during the start; transient dip by the per-unit divider ΔV = X″d·S_start / (S_gen + X″d·S_start) (common practice).'] : []),
+    sourceImpedance
+      ? `Source during the start: ${sourceImpedance.basis}; it, ${SERIES_WORDS}.`
+      : `Source during the start: no impedance given, taken as stiff; ${SERIES_WORDS}.`,
+    ...(genReactance
+      ? [`Generator dip by the per-unit divider ΔV = X·S_start / (S_gen + X·S_start) with X its ${REACTANCE_WORDS[genReactance.kind]} (${genReactance.kind === 'transient' ? 'the dip while the motor accelerates, before the voltage regulator acts' : 'the first cycles; X′d gives the deeper dip that follows'}; common practice).`]
+      : []),
     'Verdict: a limit exceeded → will not start; within 10 % of a limit → marginal (this app’s rule).',
   ].join(' ');
   return {
@@ -355,6 +485,7 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
       startSeconds: f.startSeconds,
       startSecondsSource: f.startSecondsSource,
       duringStart,
+      ...(sourceImpedance ? { sourceImpedance } : {}),
       ...(inverterOut ? { inverter: inverterOut } : {}),
       ...(generatorOut ? { generator: generatorOut } : {}),
       checks,

@@ -12,9 +12,11 @@ function startLines(s: MotorStartResult): string[] {
     `    full-load ${amps(s.fullLoadCurrent)} (${s.fullLoadCurrentSource}); locked-rotor ${amps(s.lockedRotorCurrent)} (${s.lockedRotorSource})`,
     `    starting ${amps(s.startingCurrent)} = ${g(s.startingMultiple)} × FLC at pf ${g(s.startingPowerFactor, 2)} (${s.startingPowerFactorSource}); ${va(s.startingApparentPower)} at ${g(s.ratedVoltage)} V; ${g(s.startSeconds)} s (${s.startSecondsSource})`,
   ];
+  if (s.sourceImpedance) out.push(`    source impedance during the start: ${s.sourceImpedance.basis}`);
   if (s.duringStart) {
     const d = s.duringStart;
     out.push(`    during the start: ${g(d.terminalVoltage)} V at the motor (${g(d.terminalVoltagePercent)} % of rated), ${amps(d.terminalCurrent)}`);
+    if (d.seriesDrops.length) out.push(`      drops: ${d.seriesDrops.map((x) => `${x.kind} ${x.name} ${g(x.dropPercent)} %`).join(', ')}`);
     for (const c of d.cableDrops) out.push(`      cable ${c.id}: drop ${g(c.dropVolts)} V (${g(c.dropPercent)} %)`);
     if (d.cableDrops.length) out.push(`      cables together: ${g(d.cableDropTotalPercent)} %`);
   }
@@ -25,7 +27,7 @@ function startLines(s: MotorStartResult): string[] {
   }
   if (s.generator) {
     const gen = s.generator;
-    out.push(`    generator ${gen.id}: starting ${va(gen.startingApparentPower)}${gen.ratedApparentPower !== undefined ? ` against ${va(gen.ratedApparentPower)} rating (× ${g(gen.startingToRating!)})` : ''}${gen.dipPercent !== undefined ? `; transient dip ${g(gen.dipPercent)} % (limit ${g(gen.maxDipPercent)} %)` : ''}`);
+    out.push(`    generator ${gen.id}: starting ${va(gen.startingApparentPower)}${gen.ratedApparentPower !== undefined ? ` against ${va(gen.ratedApparentPower)} rating (× ${g(gen.startingToRating!)})` : ''}${gen.dipPercent !== undefined ? `; dip ${g(gen.dipPercent)} % behind ${gen.reactanceUsed === 'transient' ? 'X′d' : 'X″d'} (limit ${g(gen.maxDipPercent)} %)` : ''}${gen.reactanceUsed === 'transient' && gen.subtransientDipPercent !== undefined ? `; first cycles behind X″d ${g(gen.subtransientDipPercent)} %` : ''}`);
   }
   for (const c of s.checks) out.push(`    check ${c.label}: ${g(c.value)} ${c.unit} ${c.sense === 'at-least' ? '≥' : '≤'} ${g(c.limit)} ${c.unit} → ${c.status} (${c.limitSource})`);
   for (const n of s.notes) out.push(`    note: ${n}`);
@@ -46,7 +48,7 @@ export function formatSurgeStudy(r: SurgeStudyResult): string {
     for (const s of r.starts) out.push(...startLines(s));
   }
   if (r.batteryFaults.points.length) {
-    out.push('', ' Battery prospective short-circuit current', ...r.batteryFaults.points.map(faultLine), `  method: ${r.batteryFaults.method}`);
+    out.push('', ' Battery prospective short-circuit current', ...(r.batteryFaults.voltageBasis ? [`  worked at ${r.batteryFaults.voltageBasis}`] : []), ...r.batteryFaults.points.map(faultLine), `  method: ${r.batteryFaults.method}`);
   }
   if (r.acFaults.points.length) {
     out.push('', ` AC available fault current (c = ${r.acFaults.voltageFactor})`, ...r.acFaults.points.map(faultLine), `  method: ${r.acFaults.method}`);

@@ -9,6 +9,16 @@ export type StartMethod = 'dol' | 'star-delta' | 'soft-starter' | 'drive';
 export type StartVerdict = 'starts' | 'marginal' | 'will-not-start';
 export type CheckStatus = 'pass' | 'marginal' | 'fail';
 
+/** The drop across one series impedance during a start, referred to its own sending side. */
+export interface SeriesDrop {
+  id: string;
+  name: string;
+  kind: 'cable' | 'transformer' | 'grid' | 'generator';
+  /** Sending minus receiving magnitude, V (a transformer's sending side is its ratio times its input; a source's its EMF). */
+  dropVolts: number;
+  dropPercent: number;
+}
+
 /** One limit a start is checked against. */
 export interface StartCheck {
   name: 'terminal-voltage' | 'inverter-surge' | 'surge-duration' | 'inverter-cutoff' | 'generator-dip';
@@ -49,8 +59,12 @@ export interface MotorStartResult {
   startingApparentPower: number;
   startSeconds: number;
   startSecondsSource: string;
+  /** The source's series impedance during the start and where it comes from (absent: a stiff source). */
+  sourceImpedance?: { elementId: string; r: number; x: number; basis: string };
   /** Solved chain during the start (null when the chain cannot deliver the starting power). */
   duringStart: {
+    /** Every series impedance from the motor up to the source or the first converter, nearest first. */
+    seriesDrops: SeriesDrop[];
     terminalVoltage: number;
     terminalVoltagePercent: number;
     /** Line current drawn at the motor terminals during the start, A. */
@@ -78,8 +92,14 @@ export interface MotorStartResult {
     ratedApparentPower?: number;
     startingToRating?: number;
     subtransientReactancePercent?: number;
-    /** Transient dip by the per-unit divider ΔV = X''d·S_start / (S_gen + X''d·S_start), %. */
+    transientReactancePercent?: number;
+    /** Which reactance the checked dip (and the start's solve) used: X'd when given, else X''d. */
+    reactanceUsed?: 'transient' | 'subtransient';
+    /** Dip by the per-unit divider ΔV = X·S_start / (S_gen + X·S_start) with the reactance used, %. */
     dipPercent?: number;
+    /** The same divider with X''d (the first cycles) and with X'd, when each is given, %. */
+    subtransientDipPercent?: number;
+    transientDipPercent?: number;
     maxDipPercent: number;
   };
   checks: StartCheck[];
@@ -124,7 +144,8 @@ export interface DeviceCheck {
 
 export interface SurgeStudyResult {
   starts: MotorStartResult[];
-  batteryFaults: { method: string; points: FaultPoint[] };
+  /** `voltageBasis`: the voltage the bank's fault is worked at and why (IEC 61660-1 worst case or the charge voltage). */
+  batteryFaults: { method: string; voltageBasis?: string; points: FaultPoint[] };
   acFaults: { method: string; voltageFactor: number | null; points: FaultPoint[] };
   devices: DeviceCheck[];
   warnings: SolveWarning[];

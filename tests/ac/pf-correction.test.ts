@@ -14,6 +14,7 @@ import {
   bankCapacitance,
   correctPowerFactor,
   leadingBelowFraction,
+  pfCorrectionCandidates,
   requiredReactivePower,
   solveProject,
   type PfCorrection,
@@ -235,5 +236,83 @@ describe('bad requests: a problem naming the element and field; nothing computed
     expect(m.warnings.join(' ')).toMatch(/self-excite/);
     const r = corrected(lagging, { at: 'rect', targetPowerFactor: 0.995 });
     expect(r.side).toBe('input');
+  });
+});
+
+/**
+ * Where a bank belongs (core/ac/pf-placement.ts): the rules are common practice in capacitor
+ * application guides (IEEE Std 1036 on harmonic resonance) and drive and inverter makers' manuals,
+ * which forbid capacitors on a drive output; no figures to check, the choice is asserted.
+ */
+describe('capacitor banks only where they belong', () => {
+  const plant = project([
+    { id: 'sup', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },
+    { id: 'feed', kind: 'cable', from: 'sup', length: 30, resistancePerKm: 0.524, reactancePerKm: 0.08 },
+    { id: 'vfd', kind: 'drive', from: 'feed', outputVoltage: 400, outputFrequency: 45, inputPowerFactor: 0.97, loss: { model: 'constant', efficiency: 0.97 } },
+    { id: 'mcable', kind: 'cable', from: 'vfd', length: 20, resistancePerKm: 1.83, reactancePerKm: 0.08 },
+    { id: 'fanmotor', kind: 'motor', from: 'mcable', ratedOutput: 15_000, loss: { model: 'constant', efficiency: 0.92 }, powerFactor: { model: 'constant', powerFactor: 0.82 } },
+    { id: 'fan', kind: 'shaft-load', from: 'fanmotor', power: 11_000 },
+    { id: 'press', kind: 'ac-load', from: 'sup', power: 30_000, powerFactor: 0.78 },
+  ]);
+
+  it.each([
+    ['the drive itself', 'vfd', /is a variable-frequency drive/],
+    ['the motor the drive feeds (through its cable)', 'fanmotor', /is on the output of the drive vfd/],
+    ['the cable on the drive output', 'mcable', /is on the output of the drive vfd/],
+  ])('refused at %s, with the reason (PWM output; the drive supplies the motor var)', (_what, at, where) => {
+    const out = correctPowerFactor(plant, { at, targetPowerFactor: 0.95 });
+    expect(out.ok).toBe(false);
+    if (out.ok) return;
+    expect(out.problems[0]).toMatchObject({ code: 'not-correctable', elementId: at, field: 'at' });
+    expect(out.problems[0]!.message).toMatch(where);
+    expect(out.problems[0]!.message).toMatch(/pulse-width modulated/);
+    expect(out.problems[0]!.message).toMatch(/input power factor is set by its rectifier/);
+  });
+
+  it('at the cable that feeds the drive: computed, with the warning that the drive’s input pf is set by its rectifier (harmonic resonance)', () => {
+    const out = correctPowerFactor(plant, { at: 'feed', targetPowerFactor: 0.99 });
+    if (!out.ok) throw new Error(JSON.stringify(out.problems));
+    expect(out.correction.warnings.join(' ')).toMatch(/feeds the drive vfd: a drive’s input power factor is set by its rectifier .* resonate/);
+  });
+
+  it('on an inverter’s output: computed, with the warning why it is not proposed there', () => {
+    const backup = project([
+      { id: 'bank', kind: 'battery', voltage: 51.2, internalResistance: 0.01 },
+      { id: 'inv', kind: 'inverter', from: 'bank', phases: 1, outputVoltage: 230, frequency: 50, loss: { model: 'constant', efficiency: 0.94 } },
+      { id: 'run', kind: 'cable', from: 'inv', length: 15, resistancePerKm: 7.41, reactancePerKm: 0.1 },
+      { id: 'compressor', kind: 'ac-load', from: 'run', power: 1500, powerFactor: 0.7 },
+    ]);
+    const out = correctPowerFactor(backup, { at: 'compressor', targetPowerFactor: 0.95 });
+    if (!out.ok) throw new Error(JSON.stringify(out.problems));
+    expect(out.correction.warnings.join(' ')).toMatch(/on the output of the inverter inv, where this app does not propose one: the inverter supplies the reactive power from its DC side/);
+    const offered = pfCorrectionCandidates(out.correction.resultBefore).filter((c) => c.offered);
+    expect(offered).toEqual([]);
+  });
+
+  it('the proposals: never the drive, its cable, its motor or the inverter output; the lagging press is the one that needs a bank', () => {
+    const solved = solveProject(plant);
+    if (!solved.ok) throw new Error('plant does not solve');
+    const list = pfCorrectionCandidates(solved.result);
+    const byId = new Map(list.map((c) => [c.id, c]));
+    for (const id of ['vfd', 'mcable', 'fanmotor']) {
+      expect(byId.get(id)!.offered).toBe(false);
+      expect(byId.get(id)!.reason).toMatch(/on the output of the drive vfd: a drive’s output is pulse-width modulated/);
+    }
+    expect(byId.get('press')).toMatchObject({ offered: true, needed: true, side: 'input' });
+    expect(byId.get('sup')!.offered).toBe(true);
+  });
+
+  it('a project already above the default target 0.95: no place needs a bank, and asking the proposals gives no error', () => {
+    const good = project([
+      { id: 'sup', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },
+      { id: 'heater', kind: 'ac-load', from: 'sup', power: 20_000, powerFactor: 1 },
+      { id: 'pump', kind: 'ac-load', from: 'sup', power: 10_000, powerFactor: 0.97 },
+    ]);
+    const solved = solveProject(good);
+    if (!solved.ok) throw new Error('does not solve');
+    const list = pfCorrectionCandidates(solved.result);
+    expect(list.length).toBeGreaterThan(0);
+    expect(list.some((c) => c.needed)).toBe(false);
+    expect(list.find((c) => c.id === 'pump')).toMatchObject({ offered: true, needed: false, pfSense: 'lagging' });
   });
 });

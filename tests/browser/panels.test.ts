@@ -197,7 +197,8 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
     const project = demo('riverside-pump-station');
     const flow = projectFlowStudy(project);
     if (!flow.ok) throw new Error(JSON.stringify(flow.problems));
-    const pfc = correctPowerFactor(project, { at: 'motor', targetPowerFactor: 0.95 });
+    // The motor is fed by the drive: no bank there (issue 14, point 13); the control offers the service first.
+    const pfc = correctPowerFactor(project, { at: 'service', targetPowerFactor: 0.95 });
     if (!pfc.ok) throw new Error(JSON.stringify(pfc.problems));
     const solved = solveProject(project);
     if (!solved.ok) throw new Error('the demo does not solve');
@@ -214,8 +215,10 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
         expect(plain(await page.getByTestId('flow-energy-on-off').textContent())).toBe(plain(formatEnergy(flow.result.onOff.energyWh, 'en-US')));
         expect(await page.getByTestId('motor-card').count()).toBe(1);
 
-        // The capacitor bank for the motor at 0.95 (the control's default choice and target).
-        await expect.poll(() => page.getByTestId('pfc-at').inputValue()).toBe('motor');
+        // The capacitor bank at the service at 0.95 (the control's default choice and target; never the drive-fed motor).
+        await expect.poll(() => page.getByTestId('pfc-at').inputValue()).toBe('service');
+        expect(await page.locator('#pfc-at option[value="motor"]').count()).toBe(0);
+        expect(await page.getByTestId('pfc-excluded').textContent()).toMatch(/Not offered: Pump drive, Drive to motor, 4 AWG Cu, 40 hp pump motor — on the output of the drive Pump drive/);
         const kvar = page.getByTestId('pfc-kvar');
         await kvar.waitFor();
         expect(plain(await kvar.textContent())).toBe(plain(formatReactive(pfc.correction.bank.reactivePower, 'en-US')));

@@ -91,4 +91,35 @@ describe.skipIf(skipWithout('chromium'))('the motor-starting and fault panel in 
       await context.close();
     }
   });
+  it('the capacitor control on a project whose power factor is already above 0.95: "no correction needed", never an error', async () => {
+    // An invented project: a heater at pf 1 and a pump load at pf 0.97 lagging on a stiff 400 V supply.
+    const good = {
+      format: 'joulepath-project',
+      version: 1,
+      name: 'Good power factor',
+      elements: [
+        { id: 'sup', name: 'Supply', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },
+        { id: 'heater', name: 'Heater', kind: 'ac-load', from: 'sup', power: 20000, powerFactor: 1 },
+        { id: 'pump', name: 'Pump', kind: 'ac-load', from: 'sup', power: 10000, powerFactor: 0.97 },
+      ],
+    };
+    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US' });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    try {
+      await page.goto(`${app!.baseUrl}#demo=riverside-pump-station`, { waitUntil: 'load' });
+      await page.getByTestId('results').waitFor();
+      await page.getByTestId('open-file').setInputFiles({ name: 'good-pf.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(good)) });
+      await expect.poll(async () => plain(await page.getByTestId('results').textContent())).toContain('Heater');
+      await page.locator('[data-testid="panel-machines"] > summary').click();
+      const notNeeded = page.getByTestId('pfc-not-needed');
+      await notNeeded.waitFor();
+      expect(plain(await notNeeded.textContent())).toMatch(/^No correction needed anywhere a bank belongs: Supply is at pf 0\.9\d+ lagging, at or above the target 0\.95\.$/);
+      expect(await page.locator('[data-testid="pfc"] [role="alert"]').count()).toBe(0);
+      expect(await page.getByTestId('pfc-result').count()).toBe(0);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
 });

@@ -2,12 +2,16 @@
  * Invariants of the surge and fault study (fast-check):
  * - a longer cable never raises the prospective fault current at its far end (AC and DC);
  * - a larger motor (by rating, same code letter) never lowers the generator's transient dip,
- *   and never raises the voltage at its terminals during the start.
+ *   and never raises the voltage at its terminals during the start;
+ * - a weaker supply (smaller short-circuit power) never raises the voltage at the motor during
+ *   the start, and a stiffer one never lowers it (every series impedance counts);
+ * - a transformer of higher u_k never raises it either;
+ * - the generator's transient reactance X'd (≥ X''d) never gives a smaller dip than X''d alone.
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { studySurges, type SurgeStudyResult } from '../../core/index.ts';
-import { gridTransformerCable, project } from '../surge/fixtures.ts';
+import { gridTransformerCable, project, transformerFed, weakGrid } from '../surge/fixtures.ts';
 
 function study(p: unknown): SurgeStudyResult {
   const o = studySurges(p);
@@ -78,6 +82,49 @@ describe('generator dip grows with motor size', () => {
         },
       ),
       { numRuns: 25 },
+    );
+  });
+});
+
+describe('every series impedance lowers the voltage at a starting motor', () => {
+  it('a weaker supply (smaller S″kQ) never gives a higher terminal voltage', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 2e5, max: 5e7, noNaN: true }), fc.double({ min: 1.01, max: 10, noNaN: true }), fc.double({ min: 100, max: 600, noNaN: true }), (sk, k, ilr) => {
+        const v = (s: number) => {
+          const st = study(weakGrid({ lockedRotorCurrent: ilr, startingPowerFactor: 0.3 }, { shortCircuitPower: s })).starts[0]!;
+          return st.duringStart === null ? 0 : st.duringStart.terminalVoltagePercent;
+        };
+        expect(v(sk)).toBeLessThanOrEqual(v(sk * k));
+        expect(v(sk * k)).toBeLessThan(100);
+      }),
+      { numRuns: 25 },
+    );
+  });
+
+  it('a transformer of higher u_k never gives a higher terminal voltage', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 2, max: 10, noNaN: true }), fc.double({ min: 1.01, max: 2, noNaN: true }), (uk, k) => {
+        const v = (z: number) => study(transformerFed(z)).starts[0]!.duringStart!.terminalVoltagePercent;
+        expect(v(uk * k)).toBeLessThan(v(uk));
+      }),
+      { numRuns: 20 },
+    );
+  });
+
+  it('a generator dip behind X′d is never below the dip behind X″d alone', () => {
+    fc.assert(
+      fc.property(fc.double({ min: 5, max: 25, noNaN: true }), fc.double({ min: 1, max: 3, noNaN: true }), (xdd, k) => {
+        const run = (extra: Record<string, unknown>) =>
+          study(
+            project('gen', [
+              { id: 'gen', kind: 'generator', phases: 3, voltage: 400, frequency: 50, ratedApparentPower: 150000, subtransientReactancePercent: xdd, ...extra },
+              { id: 'm', kind: 'motor', from: 'gen', ratedOutput: 11000, ratedVoltage: 400, nameplate: { efficiency: 0.9, powerFactor: 0.85, current: 21 }, starting: { method: 'dol', lockedRotorCurrent: 150 } },
+              { id: 's', kind: 'shaft-load', from: 'm', power: 9000 },
+            ]),
+          ).starts[0]!.generator!.dipPercent!;
+        expect(run({ transientReactancePercent: xdd * k })).toBeGreaterThanOrEqual(run({}));
+      }),
+      { numRuns: 20 },
     );
   });
 });

@@ -38,6 +38,34 @@ describe('battery prospective short-circuit current (worked by hand)', () => {
     expect(p.current).toBeCloseTo(p.voltage / 0.04, 9);
   });
 
+  it('worked at the worst-case voltage, not the backup study’s state of charge: 16 × 3.55 V charge voltage = 56.8 V above the full OCV 16 × 3.40 V = 54.4 V, so 56.8 V / 40 mΩ = 1420 A (preset values, common practice; IEC 61660-1 takes the battery fully charged)', () => {
+    const res = study(
+      project('bank half charged', [
+        { id: 'b', kind: 'battery', bank: { chemistry: 'lifepo4', series: 16, strings: 2, capacityAh: 100, initialSoc: 0.5, overrides: { internalResistanceOhmAh: 0.5 } } },
+        { id: 'l', kind: 'dc-load', from: 'b', power: 100 },
+      ]),
+    );
+    const p = res.batteryFaults.points[0]!;
+    expect(p.voltage).toBeCloseTo(56.8, 9);
+    expect(p.current).toBeCloseTo(1420, 6);
+    expect(res.batteryFaults.voltageBasis).toMatch(/the charge voltage 56\.80 V .* above the fully charged open-circuit voltage 54\.40 V \(IEC 61660-1/);
+  });
+
+  it('a charge voltage at or below the full OCV: the fully charged open-circuit voltage 54.4 V (IEC 61660-1), 1360 A', () => {
+    const res = study(
+      project('bank low charge setting', [
+        { id: 'b', kind: 'battery', bank: { chemistry: 'lifepo4', series: 16, strings: 2, capacityAh: 100, overrides: { internalResistanceOhmAh: 0.5, chargeCellVoltage: 3.35, floatCellVoltage: 3.35 } } },
+        { id: 'l', kind: 'dc-load', from: 'b', power: 100 },
+      ]),
+    );
+    expect(res.batteryFaults.points[0]!.current).toBeCloseTo(54.4 / 0.04, 6);
+    expect(res.batteryFaults.voltageBasis).toMatch(/^the fully charged open-circuit voltage 54\.40 V \(IEC 61660-1, battery clause: the battery fully charged\)/);
+  });
+
+  it('a battery given by its voltage alone: that voltage, and the result says so', () => {
+    expect(r.batteryFaults.voltageBasis).toMatch(/bank voltage as entered, 51\.2 V/);
+  });
+
   it('the bank fuse rated 20 kA covers 12.8 kA; the 10 kA cable breaker at the bank is too weak and needs at least 12.8 kA', () => {
     const fuse = r.devices.find((d) => d.elementId === 'bank')!;
     expect(fuse.status).toBe('adequate');
@@ -105,7 +133,7 @@ describe('AC available fault current, IEC 60909-0 (worked by hand)', () => {
   it('a stiff grid with no impedance and nothing in between: not computed (never Infinity)', () => {
     const rr = study(project('stiff', [{ id: 'g', kind: 'grid', phases: 1, voltage: 230, frequency: 50 }, { id: 'l', kind: 'ac-load', from: 'g', power: 100, powerFactor: 1 }]));
     expect(rr.acFaults.points[0]!.current).toBeNull();
-    expect(rr.acFaults.points[0]!.note).toContain('shortCircuitPower');
+    expect(rr.acFaults.points[0]!.note).toContain('short-circuit power');
   });
 });
 

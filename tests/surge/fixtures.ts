@@ -63,3 +63,25 @@ export function gridTransformerCable(cableLength = 30, breaking = { board: 25000
     { id: 'load', kind: 'ac-load', from: 'sub', power: 40000, powerFactor: 0.9 },
   ]);
 }
+
+/** 400 V supply of S″kQ 500 kVA (R/X 0.1) feeding one 30 kW IE3 motor directly, DOL; `starting` adds to its starting data. */
+export const weakGrid = (starting: Record<string, unknown>, extra: Record<string, unknown> = {}) =>
+  project('motor on a weak supply', [
+    { id: 'grid', kind: 'grid', phases: 3, voltage: 400, frequency: 50, shortCircuitPower: 500e3, ...extra },
+    { id: 'm', kind: 'motor', from: 'grid', ratedOutput: 30000, ratedVoltage: 400, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50, starting: { method: 'dol', ...starting } },
+    { id: 'pump', kind: 'shaft-load', from: 'm', power: 25000 },
+  ]);
+
+/**
+ * 11 kV supply (S″kQ 250 MVA, R/X 0.1) → 500 kVA 11 kV/400 V transformer (u_k 5 %, load loss 5 kW,
+ * no core loss) → 60 m cable (0.193 + j0.08 Ω/km) → 90 kW motor, DOL, 1100 A locked rotor at pf 0.25.
+ */
+export const transformerFed = (impedancePercent: number | null = 5) =>
+  project('motor behind a transformer', [
+    { id: 'grid', kind: 'grid', phases: 3, voltage: 11000, frequency: 50, shortCircuitPower: 250e6, shortCircuitRToX: 0.1 },
+    { id: 'tx', kind: 'transformer', from: 'grid', ratedApparentPower: 500000, primaryVoltage: 11000, secondaryVoltage: 400, noLoadLoss: 0, loadLoss: 5000, ...(impedancePercent !== null ? { impedancePercent } : {}) },
+    { id: 'feed', kind: 'cable', from: 'tx', length: 60, resistancePerKm: 0.193, reactancePerKm: 0.08 },
+    { id: 'm', kind: 'motor', from: 'feed', ratedOutput: 90000, ratedVoltage: 400, nameplate: { efficiency: 0.95, powerFactor: 0.87, current: 157 }, starting: { method: 'dol', lockedRotorCurrent: 1100, startingPowerFactor: 0.25 } },
+    { id: 'fan', kind: 'shaft-load', from: 'm', power: 80000 },
+  ]);
+

@@ -15,7 +15,8 @@ import { useRef, useState } from 'preact/hooks';
 import type { DriveDetail, MotorDetail } from '../../core/machines/details.ts';
 import type { PumpDetail } from '../../core/machines/project-flow.ts';
 import type { Problem } from '../../core/errors.ts';
-import type { ElementResult, PortResult, SolveResult } from '../../core/result.ts';
+import type { SolveResult } from '../../core/result.ts';
+import { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from '../../core/ac/pf-placement.ts';
 import type { MachinesFigures, PfCorrectionShown } from './panel-worker.ts';
 import { useWorkerReply } from './panel-client.ts';
 import {
@@ -267,35 +268,38 @@ function ProblemLines({ problems }: { problems: Problem[] }) {
 
 // ---------- power-factor correction ----------
 
-/** The AC port a bank at this element would correct: a source's or AC-output stage's output, else its input. */
-function correctedPort(e: ElementResult): PortResult | undefined {
-  const acOut = e.output && (e.output.kind === 'ac1' || e.output.kind === 'ac3');
-  return e.role === 'source' || (e.role === 'stage' && acOut) ? e.output : e.input;
-}
-
-const isAc = (p: PortResult | undefined): p is PortResult => !!p && (p.kind === 'ac1' || p.kind === 'ac3');
-
 function PfCorrectionControl({ result, locale }: { result: SolveResult; locale: Locale }) {
   const input = draft.value;
-  const candidates = result.elements.filter((e) => isAc(correctedPort(e)));
-  const preferred =
-    candidates.find((e) => e.kind === 'motor' && correctedPort(e)?.pfSense === 'lagging') ??
-    candidates.find((e) => correctedPort(e)?.pfSense === 'lagging') ??
-    candidates[0];
   const [at, setAt] = useState<string | null>(null);
-  const [targetText, setTargetText] = useState(() => formatForInput(0.95, locale));
-  const chosen = at !== null && candidates.some((e) => e.id === at) ? at : preferred?.id;
+  const [targetText, setTargetText] = useState(() => formatForInput(DEFAULT_TARGET_POWER_FACTOR, locale));
   const parsed = parseLocaleNumber(targetText, locale);
   const target = parsed.kind === 'number' ? parsed.value : Number.NaN;
+  // Where a bank belongs and where one is needed (at the default target, so the choice does not
+  // jump while a target is typed) come from core: never a drive or inverter output.
+  const all = pfCorrectionCandidates(result, DEFAULT_TARGET_POWER_FACTOR);
+  const candidates = all.filter((c) => c.offered);
+  const kindOf = new Map(result.elements.map((e) => [e.id, e.kind]));
+  const preferred =
+    candidates.find((c) => c.needed && kindOf.get(c.id) === 'motor') ?? candidates.find((c) => c.needed) ?? candidates[0];
+  const chosenCandidate = (at !== null ? candidates.find((c) => c.id === at) : undefined) ?? preferred;
+  const chosen = chosenCandidate?.id;
+  // A place not lagging, or already at or above the default target, needs no bank: say so and ask the
+  // worker nothing (the panel never opens in an error). A target typed below the present pf still gets
+  // the engine's own message at the field.
+  const notNeeded = !!chosenCandidate && !chosenCandidate.needed && (chosenCandidate.pfSense !== 'lagging' || target === DEFAULT_TARGET_POWER_FACTOR);
   const { reply, pending } = useWorkerReply<'pfc'>(
-    () => (input && chosen && Number.isFinite(target) ? { kind: 'pfc', project: input, at: chosen, targetPowerFactor: target } : null),
-    [input, chosen, target],
+    () => (input && chosen && Number.isFinite(target) && !notNeeded ? { kind: 'pfc', project: input, at: chosen, targetPowerFactor: target } : null),
+    [input, chosen, target, notNeeded],
   );
   if (candidates.length === 0) return null;
+  const noneNeeded = !candidates.some((c) => c.needed);
+  const excludedByReason = new Map<string, string[]>();
+  for (const c of all) if (!c.offered && c.reason) excludedByReason.set(c.reason, [...(excludedByReason.get(c.reason) ?? []), c.name]);
+  const excluded = [...excludedByReason];
   const outcome = reply?.kind === 'pfc' ? reply.outcome : null;
   const crash = reply?.kind === 'crash' ? reply.message : null;
   const inputError = parsed.kind === 'invalid' ? `Target power factor: '${targetText.trim()}' ${parsed.problem}` : parsed.kind === 'empty' ? 'Target power factor: give a value such as 0.95' : null;
-  const targetProblem = outcome && !outcome.ok ? outcome.problems.find((p) => p.field === 'targetPowerFactor') : undefined;
+  const targetProblem = !notNeeded && outcome && !outcome.ok ? outcome.problems.find((p) => p.field === 'targetPowerFactor') : undefined;
   const fieldMessage = inputError ?? (targetProblem ? `Target power factor: ${targetProblem.message}` : null);
   return (
     <section class="panel-section" aria-labelledby="pfc-heading" data-testid="pfc" data-state={pending ? 'pending' : 'current'}>
@@ -306,14 +310,11 @@ function PfCorrectionControl({ result, locale }: { result: SolveResult; locale: 
             Capacitor bank at
           </label>
           <select id="pfc-at" class="study-field__input" value={chosen} onChange={(e) => setAt((e.currentTarget as HTMLSelectElement).value)} data-testid="pfc-at">
-            {candidates.map((e) => {
-              const port = correctedPort(e)!;
-              return (
-                <option key={e.id} value={e.id}>
-                  {e.name || e.id} — pf {formatPowerFactor(port.powerFactor, port.pfSense, locale)}
-                </option>
-              );
-            })}
+            {candidates.map((c) => (
+              <option key={c.id} value={c.id}>
+                {c.name || c.id} — pf {formatPowerFactor(c.powerFactor, c.pfSense, locale)}
+              </option>
+            ))}
           </select>
         </div>
         <div class={fieldMessage ? 'study-field study-field--error' : 'study-field'}>
@@ -342,9 +343,20 @@ function PfCorrectionControl({ result, locale }: { result: SolveResult; locale: 
           )}
         </div>
       </div>
-      {crash && <p class="notice notice--error" role="alert">{crash}</p>}
-      {!inputError && outcome && !outcome.ok && !targetProblem && <ProblemLines problems={outcome.problems} />}
-      {!inputError && outcome?.ok && <PfResult c={outcome.correction} locale={locale} />}
+      {!inputError && notNeeded && chosenCandidate && (
+        <p class="panel-headline" data-testid="pfc-not-needed">
+          No correction needed{noneNeeded ? ' anywhere a bank belongs' : ''}: {chosenCandidate.name} is at pf {formatPowerFactor(chosenCandidate.powerFactor, chosenCandidate.pfSense, locale)}
+          {chosenCandidate.pfSense === 'lagging' ? `, at or above the target ${formatSignificant(target, 3, locale)}` : ', not lagging'}.
+        </p>
+      )}
+      {excluded.map(([reason, names]) => (
+        <p class="cell-note" data-testid="pfc-excluded" key={reason}>
+          Not offered: {names.join(', ')} — {reason}.
+        </p>
+      ))}
+      {crash && !notNeeded && <p class="notice notice--error" role="alert">{crash}</p>}
+      {!inputError && !notNeeded && outcome && !outcome.ok && !targetProblem && <ProblemLines problems={outcome.problems} />}
+      {!inputError && !notNeeded && outcome?.ok && <PfResult c={outcome.correction} locale={locale} />}
     </section>
   );
 }

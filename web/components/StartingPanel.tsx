@@ -39,11 +39,12 @@ function MotorStart({ s, locale }: { s: MotorStartResult; locale: string | undef
         power factor {formatSignificant(s.startingPowerFactor, 2, locale)}; locked-rotor {formatCurrent(s.lockedRotorCurrent, locale)} ({s.lockedRotorSource}).
       </p>
       {s.duringStart ? (
-        <p class="note">
-          During the start: {formatVoltage(s.duringStart.terminalVoltage, locale)} at the motor ({formatPercent(s.duringStart.terminalVoltagePercent / 100, locale, 3)} of rated); cable drops{' '}
-          {s.duringStart.cableDrops.map((d) => `${d.id} ${formatPercent(d.dropPercent / 100, locale, 3)}`).join(', ') || 'none'}.
+        <p class="note" data-testid="start-drops">
+          During the start: {formatVoltage(s.duringStart.terminalVoltage, locale)} at the motor ({formatPercent(s.duringStart.terminalVoltagePercent / 100, locale, 3)} of rated); drops{' '}
+          {s.duringStart.seriesDrops.map((d) => `${d.name} ${formatPercent(d.dropPercent / 100, locale, 3)}`).join(', ') || 'none'}.
         </p>
       ) : null}
+      {s.sourceImpedance ? <p class="note">Source impedance during the start: {s.sourceImpedance.basis}.</p> : null}
       <div class="table-scroll" role="region" aria-label="Checks during the start" tabIndex={0}>
       <table class="data panel-table">
         <caption>Checks during the start</caption>
@@ -83,12 +84,15 @@ function MotorStart({ s, locale }: { s: MotorStartResult; locale: string | undef
   );
 }
 
-function FaultTable({ title, points, locale }: { title: string; points: FaultPoint[]; locale: string | undefined }) {
+function FaultTable({ title, points, locale, names, basis }: { title: string; points: FaultPoint[]; locale: string | undefined; names: ReadonlyMap<string, string>; basis?: string | undefined }) {
   if (!points.length) return null;
   return (
     <div class="table-scroll" role="region" aria-label={title} tabIndex={0}>
     <table class="data panel-table">
-      <caption>{title}</caption>
+      <caption>
+        {title}
+        {basis ? <span class="cell-note">Worked at {basis}.</span> : null}
+      </caption>
       <thead>
         <tr>
           <th scope="col">Where</th>
@@ -100,7 +104,7 @@ function FaultTable({ title, points, locale }: { title: string; points: FaultPoi
         {points.map((p) => (
           <tr key={`${p.elementId}-${p.location}`}>
             <th scope="row">
-              {p.elementId}, {p.location}
+              {names.get(p.elementId) ?? p.elementId}, {p.location}
             </th>
             <td>{formatVoltage(p.voltage, locale)}</td>
             <td>{p.current === null ? <span title={p.note}>not computed — {p.note}</span> : formatCurrent(p.current, locale)}</td>
@@ -131,6 +135,10 @@ export function StartingPanel({ project }: { project: unknown }) {
     );
   }
   const r = outcome.result;
+  const names = new Map<string, string>();
+  for (const e of (project as { elements?: { id?: unknown; name?: unknown }[] }).elements ?? []) {
+    if (typeof e.id === 'string') names.set(e.id, typeof e.name === 'string' && e.name !== '' ? e.name : e.id);
+  }
   return (
     <section class="panel-body" data-testid="starting-panel" aria-label="Motor starting and fault currents">
       {r.starts.length ? (
@@ -138,8 +146,8 @@ export function StartingPanel({ project }: { project: unknown }) {
       ) : (
         <p class="note">No motor has starting data: give a motor its starting method (and code letter or locked-rotor current) to check its start.</p>
       )}
-      <FaultTable title="Battery prospective short-circuit current" points={r.batteryFaults.points} locale={locale} />
-      <FaultTable title={`AC available fault current (IEC 60909, c = ${r.acFaults.voltageFactor ?? '—'})`} points={r.acFaults.points} locale={locale} />
+      <FaultTable title="Battery prospective short-circuit current" points={r.batteryFaults.points} locale={locale} names={names} basis={r.batteryFaults.voltageBasis} />
+      <FaultTable title={`AC available fault current (IEC 60909, c = ${r.acFaults.voltageFactor ?? '—'})`} points={r.acFaults.points} locale={locale} names={names} />
       {r.devices.length ? (
         <div class="table-scroll" role="region" aria-label="Protective devices" tabIndex={0}>
         <table class="data panel-table" data-testid="device-checks">
