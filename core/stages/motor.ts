@@ -15,7 +15,7 @@ import { z } from 'zod/mini';
 import type { MotorStage, PowerFactorModel } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { prepareLoss, interpolate } from './loss-model.ts';
-import { checkLossModel, checkPoints, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
+import { checkLossModel, checkPoints, defineKind, efficiencyField, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
 import { MOTOR_CLASSES, motorRating, ratedAt } from '../machines/motor-rating.ts';
 import { checkStarting, startingSchema } from '../surge/schema.ts';
 
@@ -66,7 +66,7 @@ export const motorKind = defineKind<MotorStage>({
     efficiencyClass: z.optional(z.enum(MOTOR_CLASSES as [string, ...string[]], { error: `unknown efficiency class; expected one of ${MOTOR_CLASSES.join(', ')}` })),
     nameplate: z.optional(
       z.strictObject({
-        efficiency: unitFraction('efficiency').check(z.lt(1, 'efficiency must be below 1 (enter 0.93 for 93 %)')),
+        efficiency: efficiencyField().check(z.lt(1, 'efficiency must be below 1 (enter 0.93 for 93 %)')),
         powerFactor: z.optional(unitFraction('power factor')),
         current: z.optional(positive('A')),
       }),
