@@ -115,7 +115,7 @@ export function motorRating(e: MotorStage): { ok: true; rating: MotorRating | un
   }
   const given = e.nameplate?.powerFactor ?? e.ratedPowerFactor;
   const powerFactor = given ?? typicalPowerFactor(e.ratedOutput);
-  const powerFactorSource = given !== undefined ? (e.nameplate?.powerFactor !== undefined ? 'nameplate' : 'ratedPowerFactor') : 'typical full-load power factor by size (common practice, no source)';
+  const powerFactorSource = given !== undefined ? (e.nameplate?.powerFactor !== undefined ? 'nameplate' : 'rated power factor') : `typical full-load power factor by size (typical value: use the maker's figure)`;
   return { ok: true, rating: { fullLoad, powerFactor, powerFactorSource } };
 }
 
@@ -127,7 +127,7 @@ export function ratedAt(rating: MotorRating, x: number): { efficiency: number; p
 
 /** NEC Table 430.250 full-load current for a 3φ induction motor, when a row and column apply. */
 export function necFullLoadCurrent(ratedOutput: number, voltage: number | undefined): { amps: number; hp: number; voltage: Nec430Voltage } | { reason: string } {
-  if (voltage === undefined) return { reason: 'no ratedVoltage given' };
+  if (voltage === undefined) return { reason: 'no rated voltage given' };
   const col = NEC_430_250_VOLTAGES.find((v) => v === voltage);
   if (col === undefined) return { reason: `${voltage} V is not a column of Table 430.250 (${NEC_430_250_VOLTAGES.join(', ')} V)` };
   const hp = ratedOutput / WATTS_PER_HP;
