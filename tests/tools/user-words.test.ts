@@ -9,7 +9,8 @@
  * steps, warnings, method), the CLI text report, the machines, surge and battery text reports and
  * their results' strings (cautions, methods), power-factor correction and costs; and the page's
  * static words: string literals and JSX text of web/**\/*.tsx, and the labels, help and choices of
- * web/editor/fields.ts.
+ * web/editor/fields.ts; and every string literal of the engine's sources (core/, tables aside) for
+ * the forbidden words, so a message on a path no project here reaches is caught as well.
  *
  * Each offender is reported with where it was read and the area that writes it; one test per area,
  * so every offender of every area shows at once. Areas other helpers own (battery, surge,
@@ -287,6 +288,48 @@ function formReads(): Read[] {
   return reads;
 }
 
+// ---------- what the engine could say on paths no project above reaches ----------
+
+/** The area of an engine source file (others' areas are reported, not fixed, here). */
+function areaOfFile(file: string): Area | undefined {
+  if (file.startsWith('core/battery/')) return 'battery';
+  if (file.startsWith('core/surge/')) return 'surge';
+  if (file === 'core/ac/pf-correction.ts') return 'pf-correction';
+  if (file.startsWith('core/conductors/') || file === 'core/solve/size-conductors.ts' || file === 'core/stages/cable.ts') return 'conductors';
+  // Tables (core/data/) carry provenance marks as data, by the data-table rules: not text.
+  if (file.startsWith('core/data/') || file === 'core/cli.ts') return undefined;
+  return 'ours';
+}
+
+/** A provenance mark compared or stored as data (`mark === 'from memory'`), not a sentence. */
+const MARKS = new Set(['from memory', 'common practice']);
+
+/**
+ * The string literals and template text of every engine file, checked for the forbidden words
+ * only (their numbers are filled in at run time; field names appear in refusals on purpose).
+ */
+function engineSourceReads(): Read[] {
+  const reads: Read[] = [];
+  for (const path of sourceFiles(join(repoRoot, 'core'), /\.ts$/)) {
+    const file = relative(repoRoot, path).split('\\').join('/');
+    const area = areaOfFile(file);
+    if (!area) continue;
+    const ast = parse(readFileSync(path, 'utf8'), { sourceType: 'module', plugins: ['typescript'] });
+    const walk = (node: unknown): void => {
+      if (Array.isArray(node)) return node.forEach(walk);
+      if (typeof node !== 'object' || node === null) return;
+      const n = node as { type?: string; loc?: { start: { line: number } }; [k: string]: unknown };
+      if (n.type === 'ImportDeclaration' || n.type?.startsWith('TS')) return;
+      const line = n.loc?.start.line ?? 0;
+      const text = n.type === 'StringLiteral' ? (n['value'] as string) : n.type === 'TemplateElement' ? (n['value'] as { cooked?: string }).cooked : undefined;
+      if (text && !MARKS.has(text.trim())) reads.push({ area, where: `${file}:${line}`, text, code: true });
+      for (const [k, v] of Object.entries(n)) if (k !== 'loc' && k !== 'start' && k !== 'end' && k !== 'extra' && k !== 'leadingComments' && k !== 'trailingComments' && k !== 'innerComments') walk(v);
+    };
+    walk(ast.program);
+  }
+  return reads;
+}
+
 // ---------- the checks ----------
 
 function offenders(reads: readonly Read[]): Map<Area, string[]> {
@@ -311,11 +354,12 @@ describe('what users read uses their words', () => {
   reads.push({ area: 'conductors', where: 'CONDUCTOR_CAUTION', text: CONDUCTOR_CAUTION });
   for (const path of sourceFiles(join(repoRoot, 'web'), /\.tsx$/)) reads.push(...tsxReads(path));
   reads.push(...formReads());
+  reads.push(...engineSourceReads());
   const found = offenders(reads);
 
   it('reads a meaningful amount of text (the collectors work)', () => {
     // Every kind of text source is present: results, CLI text, each study, the page.
-    for (const marker of ['CLI text', 'surge text', 'machines text', 'battery text', 'pf correction', 'web/components/', 'web/editor/fields.ts']) {
+    for (const marker of ['CLI text', 'surge text', 'machines text', 'battery text', 'pf correction', 'web/components/', 'web/editor/fields.ts', 'core/stages/']) {
       expect(reads.some((r) => r.where.includes(marker)), marker).toBe(true);
     }
     expect(reads.length).toBeGreaterThan(2000);
