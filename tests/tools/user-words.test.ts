@@ -152,10 +152,16 @@ function textReads(text: string, area: Area, where: string, others: readonly Rea
   });
 }
 
+/** Projects that did not solve (each must: a refused project would be read for nothing). */
+const unsolved: string[] = [];
+
 function projectReads(project: unknown, label: string): Read[] {
   const reads: Read[] = [];
   const solved = solveProject(project);
-  if (!solved.ok) return reads;
+  if (!solved.ok) {
+    unsolved.push(`${label}: ${solved.problems.map((p) => p.message).join('; ')}`);
+    return reads;
+  }
   const result = solved.result;
   const fromResult = resultReads(result, label);
   reads.push(...fromResult);
@@ -202,7 +208,20 @@ function projectReads(project: unknown, label: string): Read[] {
   return reads;
 }
 
-/** Built projects: random valid chains over every kind (fixed seeds, so the list is stable), a backed-up bank. */
+/** A demo changed by `edit` (a copy; the demo itself is left alone). */
+function variant(id: string, edit: (p: { elements: Record<string, unknown>[]; [k: string]: unknown }) => void): unknown {
+  const p = structuredClone(demoProjects.find((d) => d.id === id)!.project) as unknown as { elements: Record<string, unknown>[] };
+  edit(p);
+  return p;
+}
+const element = (p: { elements: Record<string, unknown>[] }, id: string) => p.elements.find((e) => e['id'] === id)!;
+
+/**
+ * Built projects: random valid chains over every kind (fixed seeds, so the list is stable), a
+ * backed-up bank, and demos turned to the paths their defaults do not take (a motor by efficiency
+ * class started direct on line from a weak grid given by its short-circuit power, a lead-acid bank,
+ * presets without the maker's figures).
+ */
 function builtProjects(): { label: string; project: unknown }[] {
   const chains = fc.sample(projectArb, { seed: 14, numRuns: 25 });
   const networks = fc.sample(projectWithNetworksArb, { seed: 16, numRuns: 10 });
@@ -210,6 +229,35 @@ function builtProjects(): { label: string; project: unknown }[] {
     ...chains.map((project, i) => ({ label: `built chain ${i + 1}`, project })),
     ...networks.map((project, i) => ({ label: `built chain with circuit loads ${i + 1}`, project })),
     { label: 'built battery bank with a backup study', project: batteryBenchProject() },
+    {
+      label: 'pump station, NEMA Premium motor by class, started direct on line, grid by short-circuit power',
+      project: variant('riverside-pump-station', (p) => {
+        const grid = element(p, 'service');
+        delete grid['resistance'];
+        delete grid['reactance'];
+        grid['shortCircuitPower'] = 5e6;
+        const motor = element(p, 'motor');
+        delete motor['loss'];
+        delete motor['powerFactor'];
+        motor['efficiencyClass'] = 'NEMA-premium';
+        motor['poles'] = 4;
+        motor['ratedFrequency'] = 60;
+        motor['starting'] = { method: 'dol' };
+      }),
+    },
+    {
+      label: 'relay hut on a lead-acid bank',
+      project: variant('hillside-relay-hut', (p) => {
+        element(p, 'bank')['bank'] = { chemistry: 'vrla-agm', series: 24, strings: 1, capacityAh: 200 };
+      }),
+    },
+    {
+      label: 'relay hut on a flooded lead-acid bank, cold',
+      project: variant('hillside-relay-hut', (p) => {
+        element(p, 'bank')['bank'] = { chemistry: 'flooded-lead-acid', series: 24, strings: 1, capacityAh: 300 };
+        (p['backup'] as Record<string, unknown>)['temperatureC'] = -5;
+      }),
+    },
   ];
 }
 
@@ -363,6 +411,7 @@ describe('what users read uses their words', () => {
       expect(reads.some((r) => r.where.includes(marker)), marker).toBe(true);
     }
     expect(reads.length).toBeGreaterThan(2000);
+    expect(unsolved).toEqual([]);
     // The schema keys include the names users must not see (the brief's examples).
     expect(CAMEL_KEYS).toEqual(expect.arrayContaining(['ratedVoltage', 'shortCircuitPower', 'maxDropPercent']));
   });
