@@ -35,6 +35,7 @@ import { currencySymbol, formatMoney } from '../format/panels.ts';
 import { formatShaftPower, type UnitSystem } from '../format/units.ts';
 import { costPrefProblem, effectiveLocale, energyPrice, operatingHours, unitSystem } from '../state/prefs.ts';
 import { draft, outcome, resultsState } from '../state/editor.ts';
+import { problemLine } from './problem-words.ts';
 import './Panels.css';
 
 type Locale = string | undefined;
@@ -257,8 +258,7 @@ function ProblemLines({ problems }: { problems: Problem[] }) {
     <ul class="panel-warnings" role="alert">
       {problems.map((p, i) => (
         <li key={i}>
-          {p.elementId !== 'project' ? `${p.elementId}` : ''}
-          {p.field ? ` (${p.field})` : ''}: {p.message}
+          {problemLine(p, draft.value)}
         </li>
       ))}
     </ul>

@@ -7,9 +7,9 @@
  * and this file only formats (web/format/number.ts, in the chosen locale).
  */
 import { useMemo } from 'preact/hooks';
-import { formatProblem } from '../../core/errors.ts';
 import { studySurges } from '../../core/surge/index.ts';
 import { elementNames, nonFiniteProblems } from '../../core/solve/finite.ts';
+import { problemLine } from './problem-words.ts';
 import type { DeviceCheck, FaultPoint, MotorStartResult, StartCheck } from '../../core/surge/types.ts';
 import { formatApparent, formatCurrent, formatPercent, formatSignificant, formatVoltage, UNIT_GAP } from '../format/number.ts';
 import { effectiveLocale } from '../state/prefs.ts';
@@ -129,7 +129,7 @@ export function StartingPanel({ project }: { project: unknown }) {
         <ul class="panel-warnings">
           {outcome.problems.map((p) => (
             <li class="panel-warnings-line" key={`${p.elementId}-${p.field}-${p.code}`}>
-              {formatProblem(p)}
+              {problemLine(p, project)}
             </li>
           ))}
         </ul>
