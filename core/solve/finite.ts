@@ -22,10 +22,16 @@ export interface NonFiniteFigure {
 
 const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null;
 
-/** The element an object of a result stands for: `elementId`, or `id` beside a `name` or `kind`. */
+/** Keys the studies' results name their element by (besides `id`). */
+const ELEMENT_KEYS = ['elementId', 'batteryId', 'motorId', 'driveId'] as const;
+
+/** The element an object of a result stands for: `elementId` (or the like), or `id` beside a `name` or `kind`. */
 function elementOf(obj: Record<string, unknown>): { id: string; name?: string } | undefined {
   const name = typeof obj['name'] === 'string' ? obj['name'] : undefined;
-  if (typeof obj['elementId'] === 'string') return { id: obj['elementId'], ...(name !== undefined ? { name } : {}) };
+  for (const key of ELEMENT_KEYS) {
+    const id = obj[key];
+    if (typeof id === 'string') return { id, ...(name !== undefined ? { name } : {}) };
+  }
   if (typeof obj['id'] === 'string' && (name !== undefined || typeof obj['kind'] === 'string')) return { id: obj['id'], ...(name !== undefined ? { name } : {}) };
   return undefined;
 }

@@ -100,9 +100,17 @@ export const unitFraction = (what: string) =>
 export const MIN_EFFICIENCY = 0.01;
 export const efficiencyField = () =>
   num().check(
-    z.gte(MIN_EFFICIENCY, 'efficiency must be at least 0.01 (1 %): below that the loss would be over 99 times the output (enter 0.95 for 95 %)'),
+    z.gte(MIN_EFFICIENCY, 'efficiency must be at least 1 %: below that the loss would be over 99 times the output (enter 0.95 for 95 %)'),
     z.lte(1, 'efficiency must not exceed 1 (enter 0.95 for 95 %)'),
   );
+/**
+ * A source's own resistance or reactance, Ω: 0 is an ideal source; anything else must be at least
+ * 1 pΩ, since V/R (the short-circuit current) and I²·R overflow the doubles for the subnormal values
+ * a slip can give (1.4e-322 Ω). No real source comes near 1 pΩ.
+ */
+export const MIN_SOURCE_OHMS = 1e-12;
+export const sourceOhms = () =>
+  nonNegative('Ω').check(z.refine((v) => v <= 0 || v >= MIN_SOURCE_OHMS, { message: 'must be 0 (an ideal source) or at least 1e-12 Ω: a smaller value makes the short-circuit current overflow' }));
 export const idField = z.string({ error: 'must be text' }).check(z.minLength(1, 'must not be empty'));
 export const nameField = z.optional(z.string({ error: 'must be text' }));
 export const fromField = z.string({ error: 'must name the feeding element' }).check(z.minLength(1, 'must name the feeding element'));
