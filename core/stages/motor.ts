@@ -101,7 +101,7 @@ export const motorKind = defineKind<MotorStage>({
       const w: KindWarning[] = [];
       if (x > 1 + 1e-9 && x <= sf * (1 + 1e-9)) w.push({ code: 'rating-exceeded', message: `shaft load ${fmtW(pShaft)} exceeds the rated output ${fmtW(e.ratedOutput)} (within the service factor ${sf}; expect more heating and shorter insulation life)` });
       if (x > 0 && x < LIGHT_LOAD) {
-        w.push({ code: 'light-load', message: `runs at ${fmtPct(x)} of rated output; efficiency and power factor fall off below about 40–50 % load (common practice)` });
+        w.push({ code: 'light-load', message: `runs at ${fmtPct(x)} of rated output; efficiency and power factor fall off below about 40–50 % load on typical motors (the maker's part-load figures govern)` });
       }
       return w;
     };

@@ -99,7 +99,7 @@ function MotorCard({ m, locale }: { m: MotorDetail; locale: Locale }) {
       </dl>
       {m.loadFraction < 0.5 && (
         <p class="panel-warnings-line">
-          Lightly loaded: motors are most efficient around 60–85 % load (common practice); a smaller motor may run cooler and cheaper.
+          Lightly loaded: typical motors are most efficient around 60–85 % load; a smaller motor may run cooler and cheaper.
         </p>
       )}
       {m.nec && <p class="note">{m.nec.note}</p>}

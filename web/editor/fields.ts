@@ -645,7 +645,7 @@ const driveForm: KindForm = {
                 {
                   id: 'ie2',
                   label: 'IE2 reference defaults',
-                  help: 'Typical losses of an IE2 drive module (common practice); CDM only.',
+                  help: "Typical losses of an IE2 drive module (typical values: use the maker's figures); CDM only.",
                   apply: (e) => {
                     const s = obj(e['standardLoss']);
                     delete s['points'];
@@ -836,8 +836,8 @@ const motorForm: KindForm = {
           placeholder: () => 3.5,
           when: (e) => valueAt(e, 'starting.method') === 'soft-starter',
         },
-        { type: 'number', path: 'starting.startingPowerFactor', label: 'Power factor at locked rotor (0–1)', quantity: 'ratio', required: false, help: 'Empty: by size, 0.2–0.4 (common practice).' },
-        { type: 'number', path: 'starting.startSeconds', label: 'Time to reach speed', quantity: 'seconds', required: false, help: 'Empty: by method (common practice).' },
+        { type: 'number', path: 'starting.startingPowerFactor', label: 'Power factor at locked rotor (0–1)', quantity: 'ratio', required: false, help: "Empty: a typical value by size, 0.2–0.4 (typical value: use the maker's figure)." },
+        { type: 'number', path: 'starting.startSeconds', label: 'Time to reach speed', quantity: 'seconds', required: false, help: "Empty: a typical time by method (typical value: use the maker's figure)." },
         { type: 'number', path: 'starting.minTerminalVoltagePercent', label: 'Lowest terminal voltage while starting (% of rated)', quantity: 'percent', required: false, placeholder: () => 80 },
       ],
       'Starting current, the dip it causes, and whether the source can carry it.',
