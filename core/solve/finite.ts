@@ -121,7 +121,7 @@ export function nonFiniteProblems(what: string, value: unknown, names?: Readonly
       message:
         `${what} gives figures for ${subject} that are not finite numbers: ${listed}. Nothing computed is shown. ` +
         (elementId === 'project'
-          ? 'The totals follow from the elements: check the values of the elements named beside this.'
+          ? "These figures follow from the elements' values and the project's settings: check those named beside this, and the settings."
           : 'A value of this element or of one it feeds is out of range (near zero or huge, or a unit slip): check them.'),
     };
   });

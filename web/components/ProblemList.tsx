@@ -75,7 +75,8 @@ export function ProblemList({ problems, elements }: { problems: readonly Problem
                 {p.field && (
                   <>
                     {' · '}
-                    <em>{fieldLabel(fields, el?.kind, p.elementId, p.field)}</em>
+                    {/* A figure that is not finite is a result field, not one of the form's. */}
+                    <em>{p.code === 'non-finite' ? fieldWords(p.field.split('.')) : fieldLabel(fields, el?.kind, p.elementId, p.field)}</em>
                   </>
                 )}
               </p>
