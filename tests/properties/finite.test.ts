@@ -1,5 +1,6 @@
 /**
- * Property (issue 14, point 15): any project that solves gives a result holding finite numbers only
+ * Property (issue 14, point 15): any project that solves gives a result holding finite numbers only,
+ * and so do the studies printed beside it (surge and fault, machines, loss cost)
  * (and so does the energy-flow graph drawn from it); a project that does not solve is refused with
  * problems naming an element of the project (or the project) and a field, in words without NaN.
  *
@@ -10,7 +11,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { flowGraph, solveProject } from '../../core/index.ts';
+import { flowGraph, lossCostPerYear, solveProject, studySurges } from '../../core/index.ts';
+import { machineSections } from '../../core/machines/cli-flags.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
 
@@ -104,6 +106,26 @@ describe('a solved result is finite everywhere', () => {
       runs(150),
     );
     expect(solved).toBeGreaterThanOrEqual(0.8 * total);
+  }, 30_000 * SCALE);
+
+  it('the studies printed beside a solved chain (surge and fault, machines, loss cost) are finite too', () => {
+    let studied = 0;
+    fc.assert(
+      fc.property(fc.oneof(projectArb, projectWithNetworksArb), (project) => {
+        const solved = solveProject(project);
+        if (!solved.ok) return;
+        const surge = studySurges(project);
+        if (surge.ok) {
+          studied++;
+          expect(findNonFinite(surge.result)).toEqual([]);
+        }
+        const machines = machineSections(project, true, undefined);
+        if (machines.ok) expect(findNonFinite(machines.json)).toEqual([]);
+        expect(findNonFinite(lossCostPerYear(solved.result, { pricePerKWh: 0.2, hoursPerYear: 8760 }))).toEqual([]);
+      }),
+      runs(100),
+    );
+    expect(studied).toBeGreaterThan(0);
   }, 30_000 * SCALE);
 
   it('chains whose figures span 1e-300 … 1e300: solved and finite, or refused naming element and field', () => {
