@@ -11,11 +11,14 @@
  * fault data) adds the surge and fault study: motor starting verdicts, battery and AC fault
  * currents, device checks, trap warnings and cautions (with --json under `surgeStudy`, shaped as
  * SurgeStudyResult in core/surge/types.ts).
+ * A result or study holding a figure that is not a finite number is refused (exit code 1, one line
+ * per element naming it and the field; core/solve/finite.ts): never a table of NaN.
  */
 import { readFileSync } from 'node:fs';
 import { formatProblem, type Problem } from './errors.ts';
 import { formatResult } from './text-report.ts';
 import { solveProject } from './solve/index.ts';
+import { elementNames, nonFiniteProblems } from './solve/finite.ts';
 import { runBackupStudy, type BackupStudyResult } from './battery/study.ts';
 import { formatBackupStudy } from './battery/text-report.ts';
 import { correctPowerFactor, type PfCorrection } from './ac/pf-correction.ts';
@@ -58,6 +61,13 @@ function main(args: readonly string[]): void {
   } catch (err) {
     fail([`${file} is not valid JSON: ${(err as Error).message}`]);
   }
+  // Every study's figures must be finite numbers, or the study is refused (core/solve/finite.ts);
+  // the solve checks its own result.
+  const names = elementNames(data);
+  const refuseNonFinite = (heading: string, what: string, value: unknown): void => {
+    const bad = nonFiniteProblems(what, value, names);
+    if (bad.length) fail([`${file}: ${heading}`, ...bad.map((p: Problem) => `  ${formatProblem(p)}`)]);
+  };
   const outcome = solveProject(data);
   if (!outcome.ok) fail([`${file}: the project cannot be solved:`, ...outcome.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
   let study: BackupStudyResult | undefined;
@@ -65,12 +75,14 @@ function main(args: readonly string[]): void {
     const s = runBackupStudy(data);
     if (!s.ok) fail([`${file}: the battery backup study cannot be run:`, ...s.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
     study = s.study;
+    refuseNonFinite('the battery backup study cannot be shown:', 'The battery backup study', study);
   }
   let pfc: PfCorrection | undefined;
   if (pfFlag?.ok) {
     const c = correctPowerFactor(data, pfFlag.request);
     if (!c.ok) fail([`${file}: the power-factor correction cannot be worked out:`, ...c.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
     pfc = c.correction;
+    refuseNonFinite('the power-factor correction cannot be shown:', 'The power-factor correction', pfc);
   }
   let flowData: unknown;
   if (mach.flowFile !== undefined) {
@@ -82,11 +94,13 @@ function main(args: readonly string[]): void {
   }
   const machines = mach.machines || mach.flowFile !== undefined || hasPumpSections(data) ? machineSections(data, mach.machines, flowData) : undefined;
   if (machines && !machines.ok) fail([`${file}: ${machines.heading}`, ...machines.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
+  if (machines?.ok) refuseNonFinite('the machines study cannot be shown:', 'The machines study', machines.json);
   let surges: SurgeStudyResult | undefined;
   if (surgesFlag || hasSurgeInputs(data)) {
     const s = studySurges(data);
     if (!s.ok) fail([`${file}: the surge and fault study cannot be run:`, ...s.problems.map((p: Problem) => `  ${formatProblem(p)}`)]);
     surges = s.result;
+    refuseNonFinite('the surge and fault study cannot be shown:', 'The surge and fault study', surges);
   }
   if (json) {
     const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}) };

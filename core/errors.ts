@@ -27,7 +27,9 @@ export type ProblemCode =
   /** Power-factor correction (core/ac/pf-correction.ts): no element has the id asked for. */
   | 'unknown-element'
   /** Power-factor correction: the interface is DC, a shaft, leading already or draws no power. */
-  | 'not-correctable';
+  | 'not-correctable'
+  /** A computed figure is not a finite number (NaN, ±Infinity): the result is refused (core/solve/finite.ts). */
+  | 'non-finite';
 
 export interface Problem {
   code: ProblemCode;

@@ -18,7 +18,7 @@ export type PfSense = 'lagging' | 'leading';
 export interface EfficiencyPoint {
   /** Output power as a fraction of rated output (0.1 = 10 %). */
   loadFraction: number;
-  /** Efficiency at that point, 0 < η ≤ 1. */
+  /** Efficiency at that point, 0.01 ≤ η ≤ 1 (below 1 % refused: the loss P_out·(1/η − 1) would swamp every figure). */
   efficiency: number;
 }
 

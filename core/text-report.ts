@@ -11,7 +11,11 @@ function table(header: readonly string[], rows: readonly (readonly string[])[]):
   return [line(header), widths.map((w) => '-'.repeat(w)).join('  '), ...rows.map(line)].join('\n');
 }
 
-const f = (x: number, digits = 1): string => x.toFixed(digits);
+/** Fixed decimals, but never more than 6 significant digits (10949.62 V prints 10949.6). */
+const f = (x: number, digits = 1): string => {
+  const fixed = x.toFixed(digits);
+  return fixed.replace(/^-|\./g, '').replace(/^0+/, '').length > 6 && Math.abs(x) < 1e21 ? String(Number(x.toPrecision(6))) : fixed;
+};
 const pct = (x: number): string => `${(x * 100).toFixed(2)} %`;
 
 function portRow(label: string, kind: string, p: PortResult): string[] {

@@ -22,7 +22,7 @@ import { motorRating, necFullLoadCurrent } from './motor-rating.ts';
 import { driveLossAt, driveLossGrid, truePowerFactor } from './drive-loss.ts';
 
 export const NEC_TABLE_CURRENT_NOTE =
-  'NEC sizes motor conductors and protection from the Table 430.250 current, not the nameplate current (NEC 430.6(A)(1), from memory); planning estimate only — local codes and licensed practice govern.';
+  'NEC sizes motor conductors and protection from the Table 430.250 current, not the nameplate current (NEC 430.6(A)(1)); planning estimate only — local codes and licensed practice govern.';
 
 export interface MotorDetail {
   id: string;

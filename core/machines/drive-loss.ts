@@ -50,7 +50,7 @@ export function driveLossGrid(spec: DriveStandardLoss): { ok: true; grid: DriveL
       return { ok: false, problems: [{ code: 'invalid-value', field: 'standardLoss.points', message: 'defaults exist for a drive module alone (basis "cdm"); for basis "pds" give the eight measured losses' }] };
     }
     eight = IE2_CDM_DEFAULT_LOSS_PERCENT.map((pct) => (pct / 100) * spec.ratedApparentPower);
-    source = 'IE2 class-reference typical losses (common practice, no source)';
+    source = "IE2 class-reference drive losses (typical values: use the maker's figures)";
   }
   const [l0_25, l0_50, l0_100, l50_25, l50_50, l50_100, lt_50, lt_100] = eight as [number, number, number, number, number, number, number, number];
   const lt_25 = Math.max(0, lt_50 + (l50_25 - l50_50));

@@ -328,7 +328,7 @@ function compute(s: FlowStudyInput, rating: MotorRating, grid: DriveLossGrid): F
     savingVsThrottleFraction: throttle.energyWh > 0 ? (throttle.energyWh - speedControl.energyWh) / throttle.energyWh : 0,
     savingVsOnOffFraction: onOff.energyWh > 0 ? (onOff.energyWh - speedControl.energyWh) / onOff.energyWh : 0,
     totalHours,
-    motorSource: `${rating.fullLoad.source}; part-load shape common practice (no source)`,
+    motorSource: `${rating.fullLoad.source}; typical part-load shape (typical values: use the maker's figures)`,
     driveSource: grid.source,
     warnings,
     method: 'affinity laws at constant pump efficiency; quadratic pump curve; system curve H = H_s + k·Q²; IEC 61800-9-2 bilinear drive loss',

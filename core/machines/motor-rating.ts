@@ -58,13 +58,13 @@ const isIssue = (x: FullLoadEfficiency | Issue): x is Issue => 'code' in x;
 export function classEfficiency(cls: MotorEfficiencyClass, ratedOutput: number, poles: number | undefined, frequency: number | undefined): FullLoadEfficiency | Issue {
   if (cls === 'NEMA-premium') {
     if (poles !== 4 || frequency !== 60) {
-      return { code: 'outside-table', field: poles !== 4 ? 'poles' : 'ratedFrequency', value: poles !== 4 ? poles : frequency, message: 'the NEMA Premium values carried (MG 1 Table 12-12) are for 4-pole 60 Hz motors: give poles 4 and ratedFrequency 60, or the nameplate efficiency' };
+      return { code: 'outside-table', field: poles !== 4 ? 'poles' : 'ratedFrequency', value: poles !== 4 ? poles : frequency, message: 'the NEMA Premium values carried (MG 1 Table 12-12) are for 4-pole 60 Hz motors: give 4 poles and a rated frequency of 60 Hz, or the nameplate efficiency' };
     }
     const rows = NEMA_PREMIUM_4P_60HZ_TEFC.map((r) => ({ size: r.hp, eff: r.efficiency, prov: r.provenance }));
     return lookupLog(rows, ratedOutput / WATTS_PER_HP, 'hp', 'NEMA MG 1 Table 12-12 (NEMA Premium, 4-pole, 60 Hz, enclosed)', 'ratedOutput');
   }
   if (poles !== 4 || frequency !== 50) {
-    return { code: 'outside-table', field: poles !== 4 ? 'poles' : 'ratedFrequency', value: poles !== 4 ? poles : frequency, message: 'the IEC 60034-30-1 values carried are for 4-pole 50 Hz motors: give poles 4 and ratedFrequency 50, or the nameplate efficiency' };
+    return { code: 'outside-table', field: poles !== 4 ? 'poles' : 'ratedFrequency', value: poles !== 4 ? poles : frequency, message: 'the IEC 60034-30-1 values carried are for 4-pole 50 Hz motors: give 4 poles and a rated frequency of 50 Hz, or the nameplate efficiency' };
   }
   const rows = IEC_60034_30_1_4P_50HZ.map((r) => ({ size: r.kW, eff: r.efficiency[cls], prov: r.provenance[cls] }));
   return lookupLog(rows, ratedOutput / 1000, 'kW', `IEC 60034-30-1:2014 ${cls} (4-pole, 50 Hz)`, 'ratedOutput');
@@ -115,7 +115,7 @@ export function motorRating(e: MotorStage): { ok: true; rating: MotorRating | un
   }
   const given = e.nameplate?.powerFactor ?? e.ratedPowerFactor;
   const powerFactor = given ?? typicalPowerFactor(e.ratedOutput);
-  const powerFactorSource = given !== undefined ? (e.nameplate?.powerFactor !== undefined ? 'nameplate' : 'ratedPowerFactor') : 'typical full-load power factor by size (common practice, no source)';
+  const powerFactorSource = given !== undefined ? (e.nameplate?.powerFactor !== undefined ? 'nameplate' : 'rated power factor') : `typical full-load power factor by size (typical value: use the maker's figure)`;
   return { ok: true, rating: { fullLoad, powerFactor, powerFactorSource } };
 }
 
@@ -127,7 +127,7 @@ export function ratedAt(rating: MotorRating, x: number): { efficiency: number; p
 
 /** NEC Table 430.250 full-load current for a 3φ induction motor, when a row and column apply. */
 export function necFullLoadCurrent(ratedOutput: number, voltage: number | undefined): { amps: number; hp: number; voltage: Nec430Voltage } | { reason: string } {
-  if (voltage === undefined) return { reason: 'no ratedVoltage given' };
+  if (voltage === undefined) return { reason: 'no rated voltage given' };
   const col = NEC_430_250_VOLTAGES.find((v) => v === voltage);
   if (col === undefined) return { reason: `${voltage} V is not a column of Table 430.250 (${NEC_430_250_VOLTAGES.join(', ')} V)` };
   const hp = ratedOutput / WATTS_PER_HP;

@@ -133,7 +133,7 @@ export function projectFlowStudy(input: unknown): ProjectFlowOutcome {
     const full = rating.rating!.fullLoad.efficiency * rating.rating!.powerFactor;
     driveLoss = { ratedApparentPower: motor.ratedOutput / full, basis: 'cdm' };
     warnings.push(
-      `${drive ? `drive "${drive.id}" has no IEC 61800-9-2 points (standardLoss)` : `no drive feeds motor "${motor.id}"`}: the speed-control figures use the IE2 class-reference drive losses (common practice, no source) for a drive sized to the motor, ${(driveLoss.ratedApparentPower / 1000).toPrecision(3)} kVA = P_rated / (η_FL·pf_FL)`,
+      `${drive ? `drive "${drive.name ?? drive.id}" has no IEC 61800-9-2 operating points` : `no drive feeds motor "${motor.name ?? motor.id}"`}: the speed-control figures use the IE2 class-reference drive losses (typical values: use the maker's figures) for a drive sized to the motor, ${(driveLoss.ratedApparentPower / 1000).toPrecision(3)} kVA = P_rated / (η_FL·pf_FL)`,
     );
   }
   const flowInput: FlowStudyInput = {
@@ -167,7 +167,7 @@ function studyMotor(motor: MotorStage, warnings: string[]): FlowStudyInput['moto
   const efficiency = efficiencyAt(prepared, motor.ratedOutput);
   const powerFactor = motorPowerFactorAt(motor.powerFactor!, 1);
   warnings.push(
-    `motor "${motor.id}" is given by a loss model: its efficiency at rated output, ${(100 * efficiency).toFixed(1)} %, is taken as the nameplate value with the common-practice part-load shape (no source)`,
+    `motor "${motor.name ?? motor.id}" is given by a loss model: its efficiency at rated output, ${(100 * efficiency).toFixed(1)} %, is taken as the nameplate value with a typical part-load shape (typical values: use the maker's figures)`,
   );
   return { ...common, nameplate: { efficiency, powerFactor } };
 }

@@ -12,6 +12,7 @@ import { validateProject } from './validate.ts';
 import { plan } from './plan.ts';
 import { buildResult } from './report.ts';
 import { attachConductors, sizeConductors } from './size-conductors.ts';
+import { nonFiniteProblems } from './finite.ts';
 
 export type SolveOutcome = { ok: true; result: SolveResult } | { ok: false; problems: Problem[] };
 
@@ -28,7 +29,12 @@ export function solveProject(input: unknown): SolveOutcome {
   if (!sized.ok) return sized;
   const built = buildResult(valid.project.name, sized.order, sized.point);
   if (!built.ok) return built;
-  return { ok: true, result: attachConductors(built.result, sized) };
+  const result = attachConductors(built.result, sized);
+  // Last step: a figure that is not finite anywhere refuses the whole result (never a table of NaN).
+  const names = new Map(valid.project.elements.map((e) => [e.id, e.name ?? e.id]));
+  const notFinite = nonFiniteProblems('The solve', result, names);
+  if (notFinite.length) return { ok: false, problems: notFinite };
+  return { ok: true, result };
 }
 
 /** Like solveProject, but throws a ProjectError listing every problem. */

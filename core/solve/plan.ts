@@ -53,6 +53,7 @@ export function plan(project: Project): Plan {
       }
     }
     const model = spec.build(e, input);
+    for (const p of model.problems ?? []) problems.push({ ...p, elementId: e.id });
     const index = order.length;
     order.push({ element: e, spec, model, parent, children: [], input });
     if (parent >= 0) order[parent]!.children.push(index);

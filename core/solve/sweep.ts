@@ -185,6 +185,22 @@ function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly C
   };
 }
 
+const finite = (z: Complex): boolean => Number.isFinite(z.re) && Number.isFinite(z.im);
+
+/** The first element (in tree order) whose output voltage or input power is not a finite number. */
+function nonFiniteAt(order: readonly PlannedElement[], vOut: readonly Complex[], sIn: readonly Complex[]): Problem | undefined {
+  const i = order.findIndex((_, k) => !finite(vOut[k]!) || !finite(sIn[k]!));
+  if (i < 0) return undefined;
+  const e = order[i]!.element;
+  const voltage = !finite(vOut[i]!);
+  return {
+    code: 'non-finite',
+    elementId: e.id,
+    field: voltage ? 'output.voltage' : 'input.p',
+    message: `the ${voltage ? 'output voltage' : 'input power'} of "${e.name ?? e.id}" is not a finite number during the solve: nothing computed is shown. A value of this element or of one it feeds is out of range (near zero or huge, or a unit slip): check them`,
+  };
+}
+
 /**
  * Sweeps in a row that may overshoot past a link's maximum transfer before the load is declared
  * infeasible, when the chain has constant-impedance loads.
@@ -236,6 +252,10 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
       if (!recover || ++overshoots >= RECOVERY_SWEEPS) return { ok: false, problems: [infeasible(order, firstBad, sIn)] };
       continue;
     }
+    // Figures past the range of doubles (a 1e78 V output from 0.1 V, a 1e300 W load) never settle:
+    // refuse at once, naming the first element whose voltage or power left it.
+    const lost = nonFiniteAt(order, vOut, sIn);
+    if (lost) return { ok: false, problems: [lost] };
     overshoots = 0;
     if (recover && relax < 1) {
       // Under-relaxation: V ← V_prev + ω·(V_sweep − V_prev). The fixed point is unchanged.

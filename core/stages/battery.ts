@@ -11,7 +11,7 @@ import { c } from '../ac/complex.ts';
 import { CHEMISTRIES } from '../data/battery-chemistries.ts';
 import { checkBank, resolveBank } from '../battery/bank.ts';
 import { protectiveDeviceSchema } from '../surge/schema.ts';
-import { defineKind, idField, nameField, nonNegative, positive } from './spec.ts';
+import { defineKind, idField, nameField, nonNegative, positive, sourceOhms } from './spec.ts';
 import { seriesLink } from './spec.ts';
 
 const num = () => z.number({ error: 'must be a number' });
@@ -65,7 +65,7 @@ export const batteryKind = defineKind<BatterySource>({
     name: nameField,
     kind: z.literal('battery'),
     voltage: z.optional(positive('V')),
-    internalResistance: z.optional(nonNegative('Ω')),
+    internalResistance: z.optional(sourceOhms()),
     bank: z.optional(bankSchema),
     bankFuse: z.optional(protectiveDeviceSchema),
   }) as z.ZodMiniType<BatterySource>,

@@ -16,7 +16,7 @@
 import { z } from 'zod/mini';
 import type { DriveStage } from '../model.ts';
 import { c } from '../ac/complex.ts';
-import { checkLossModel, defineKind, fmtPct, fromField, idField, lossModelSchema, nameField, positive, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
+import { checkLossModel, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, positive, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
 import { driveLossAt, driveLossGrid } from '../machines/drive-loss.ts';
 
 const standardLossSchema = z.strictObject({
@@ -120,7 +120,7 @@ export const driveKind = defineKind<DriveStage>({
         const op = driveOperatingPoint(e, phi, sOut.re);
         const at = lossAt(sOut.re);
         if (op.torque > 100 * (1 + 1e-9)) {
-          warnings.push({ code: 'rating-exceeded', message: `relative torque-producing current ${op.torque.toFixed(1)} % exceeds the drive's rating (${rated} VA at ${fmtPct(phi)} speed)` });
+          warnings.push({ code: 'rating-exceeded', message: `relative torque-producing current ${op.torque.toFixed(1)} % exceeds the drive's rating (${fmtW(rated).replace('W', 'VA')} at ${fmtPct(phi)} speed)` });
         }
         if (at.clamped) {
           warnings.push({

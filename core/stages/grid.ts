@@ -7,7 +7,7 @@ import { z } from 'zod/mini';
 import type { AcSource } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { sourceFaultFields } from '../surge/schema.ts';
-import { defineKind, fmtW, idField, nameField, nonNegative, perPhase, phases, positive, seriesLink } from './spec.ts';
+import { defineKind, fmtW, idField, nameField, nonNegative, perPhase, phases, positive, seriesLink, sourceOhms } from './spec.ts';
 
 const schema = z.strictObject({
   id: idField,
@@ -16,8 +16,8 @@ const schema = z.strictObject({
   phases,
   voltage: positive('V'),
   frequency: positive('Hz'),
-  resistance: z.optional(nonNegative('Ω')),
-  reactance: z.optional(nonNegative('Ω')),
+  resistance: z.optional(sourceOhms()),
+  reactance: z.optional(sourceOhms()),
   ratedApparentPower: z.optional(positive('VA')),
   ...sourceFaultFields,
 });

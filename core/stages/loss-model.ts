@@ -80,6 +80,33 @@ export function fitLossPolynomial(ratedPower: number, points: readonly Efficienc
   };
 }
 
+/**
+ * Condition number (1-norm, ‖N‖·‖N⁻¹‖) of the normal equations of the loss fit at these load
+ * fractions: the fit's coefficients lose about log10 of it in significant digits. Infinite when
+ * the equations are singular. The inverse is taken by cofactors (3×3).
+ */
+export function fitConditioning(fractions: readonly number[]): number {
+  const n = [
+    [0, 0, 0],
+    [0, 0, 0],
+    [0, 0, 0],
+  ];
+  for (const x of fractions) {
+    const basis = [1, x, x * x];
+    for (let r = 0; r < 3; r++) for (let k = 0; k < 3; k++) n[r]![k]! += basis[r]! * basis[k]!;
+  }
+  const [[a, b, c], [d, e, f], [g, h, i]] = n as [[number, number, number], [number, number, number], [number, number, number]];
+  const cof = [
+    [e * i - f * h, -(b * i - c * h), b * f - c * e],
+    [-(d * i - f * g), a * i - c * g, -(a * f - c * d)],
+    [d * h - e * g, -(a * h - b * g), a * e - b * d],
+  ];
+  const det = a * cof[0]![0]! + b * cof[1]![0]! + c * cof[2]![0]!;
+  if (det === 0 || !Number.isFinite(det)) return Infinity;
+  const norm1 = (m: number[][]): number => Math.max(...[0, 1, 2].map((k) => m.reduce((sum, row) => sum + Math.abs(row[k]!), 0)));
+  return (norm1(n) * norm1(cof)) / Math.abs(det);
+}
+
 function solve3(m: number[][]): [number, number, number] {
   const a = m.map((r) => r.slice());
   for (let col = 0; col < 3; col++) {

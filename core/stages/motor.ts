@@ -15,7 +15,7 @@ import { z } from 'zod/mini';
 import type { MotorStage, PowerFactorModel } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { prepareLoss, interpolate } from './loss-model.ts';
-import { checkLossModel, checkPoints, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
+import { checkLossModel, checkPoints, defineKind, efficiencyField, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
 import { MOTOR_CLASSES, motorRating, ratedAt } from '../machines/motor-rating.ts';
 import { checkStarting, startingSchema } from '../surge/schema.ts';
 
@@ -66,7 +66,7 @@ export const motorKind = defineKind<MotorStage>({
     efficiencyClass: z.optional(z.enum(MOTOR_CLASSES as [string, ...string[]], { error: `unknown efficiency class; expected one of ${MOTOR_CLASSES.join(', ')}` })),
     nameplate: z.optional(
       z.strictObject({
-        efficiency: unitFraction('efficiency').check(z.lt(1, 'efficiency must be below 1 (enter 0.93 for 93 %)')),
+        efficiency: efficiencyField().check(z.lt(1, 'efficiency must be below 1 (enter 0.93 for 93 %)')),
         powerFactor: z.optional(unitFraction('power factor')),
         current: z.optional(positive('A')),
       }),
@@ -101,7 +101,7 @@ export const motorKind = defineKind<MotorStage>({
       const w: KindWarning[] = [];
       if (x > 1 + 1e-9 && x <= sf * (1 + 1e-9)) w.push({ code: 'rating-exceeded', message: `shaft load ${fmtW(pShaft)} exceeds the rated output ${fmtW(e.ratedOutput)} (within the service factor ${sf}; expect more heating and shorter insulation life)` });
       if (x > 0 && x < LIGHT_LOAD) {
-        w.push({ code: 'light-load', message: `runs at ${fmtPct(x)} of rated output; efficiency and power factor fall off below about 40–50 % load (common practice)` });
+        w.push({ code: 'light-load', message: `runs at ${fmtPct(x)} of rated output; efficiency and power factor fall off below about 40–50 % load on typical motors (the maker's part-load figures govern)` });
       }
       return w;
     };

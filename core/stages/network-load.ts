@@ -24,6 +24,9 @@ const networkSchema = z.unknown().check(
   }),
 );
 
+/** Smallest per-phase impedance accepted, Ω (below it the load is a short circuit). */
+const MIN_IMPEDANCE = 1e-6;
+
 export const networkLoadKind = defineKind<NetworkLoad>({
   kind: 'network-load',
   role: 'load',
@@ -46,6 +49,19 @@ export const networkLoadKind = defineKind<NetworkLoad>({
     const zNet = networkImpedance(parsed.network, input!.frequency ?? 0);
     const zPhase = starEquivalent(zNet, kind === 'ac3' ? (e.connection ?? 'star') : 'single-phase');
     const m = phaseCount(kind);
+    // A near-zero impedance (a 1e-300 Ω resistor, a series L–C at resonance) is a short circuit:
+    // its power m·V²/|Z| overflows every figure after it. Refused below 1 µΩ per phase, which at
+    // 230 V would already draw some 50 GW.
+    const zAbs = abs(zPhase);
+    const problems =
+      zAbs < MIN_IMPEDANCE
+        ? [{
+            code: 'invalid-value' as const,
+            field: 'network',
+            value: e.network,
+            message: `the circuit's impedance${input!.frequency ? ` at ${input!.frequency} Hz` : ''} is ${zAbs === 0 ? '0' : zAbs.toExponential(1)} Ω per phase, under 1 µΩ: a short circuit, which no supply can feed. Check the values and their units`,
+          }]
+        : [];
     // conj(Y) = 1/conj(Z); an open network (ideal parallel resonance, |Z| infinite) draws nothing.
     const conjY: Complex = Number.isFinite(abs(zPhase)) ? div(c(1), conj(zPhase)) : ZERO;
     return {
@@ -57,6 +73,7 @@ export const networkLoadKind = defineKind<NetworkLoad>({
         return scale(conjY, m * v * v);
       },
       report: () => ({ warnings: [] }),
+      ...(problems.length ? { problems } : {}),
     };
   },
 });

@@ -21,7 +21,7 @@ import type { PumpLoad } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { c } from '../ac/complex.ts';
 import { affinitySpeed, hydraulicPower, pumpCurveHead, pumpShaftPower, systemCurveHead } from '../machines/flow-control.ts';
-import { constantPowerLoad, defineKind, fromField, idField, nameField, nonNegative, positive, unitFraction } from './spec.ts';
+import { constantPowerLoad, defineKind, efficiencyField, fromField, idField, nameField, nonNegative, positive } from './spec.ts';
 
 /** The pump's operating point. */
 export interface PumpOperatingPoint {
@@ -67,7 +67,7 @@ export const pumpKind = defineKind<PumpLoad>({
     ratedFlow: positive('m³/s'),
     ratedHead: positive('m'),
     shutoffHead: positive('m'),
-    efficiency: unitFraction('efficiency'),
+    efficiency: efficiencyField(),
     density: z.optional(positive('kg/m³')),
     staticHead: nonNegative('m'),
     flow: positive('m³/s'),

@@ -11,7 +11,7 @@ import type { Problem } from '../errors.ts';
 import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.ts';
 import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../ac/complex.ts';
 import { receivingVoltage } from '../ac/two-bus.ts';
-import { type PreparedLoss, prepareLoss, weightedEfficiency } from './loss-model.ts';
+import { type PreparedLoss, fitConditioning, prepareLoss, weightedEfficiency } from './loss-model.ts';
 
 /** The port an element's output presents to the elements it feeds. */
 export interface PortInfo {
@@ -87,6 +87,11 @@ export interface ElementModel {
   inputPower(sOut: Complex, vIn: Complex, vOut: Complex): Complex;
   /** Details once the operating point is known. */
   report(sOut: Complex, sIn: Complex, vIn: Complex): ElementReport;
+  /**
+   * Refusals that need the feeding port to decide (a circuit whose impedance at the port's
+   * frequency is next to nothing): the plan returns them and nothing is solved.
+   */
+  readonly problems?: Omit<Problem, 'elementId'>[];
 }
 
 export interface KindSpec<E extends Element = Element> {
@@ -113,6 +118,24 @@ export const nonNegative = (unit: string) => num().check(z.gte(0, `must not be n
 /** Efficiency or power factor style quantity in (0, 1]. */
 export const unitFraction = (what: string) =>
   num().check(z.gt(0, `${what} must be greater than 0`), z.lte(1, `${what} must not exceed 1 (enter 0.95 for 95 %)`));
+/**
+ * A converter's, motor's or pump's efficiency: the loss is P_out·(1/η − 1), so η near zero makes it
+ * huge (1e-300 overflows every figure after it). Below 1 % no real machine is built: refused.
+ */
+export const MIN_EFFICIENCY = 0.01;
+export const efficiencyField = () =>
+  num().check(
+    z.gte(MIN_EFFICIENCY, 'efficiency must be at least 1 %: below that the loss would be over 99 times the output (enter 0.95 for 95 %)'),
+    z.lte(1, 'efficiency must not exceed 1 (enter 0.95 for 95 %)'),
+  );
+/**
+ * A source's own resistance or reactance, Ω: 0 is an ideal source; anything else must be at least
+ * 1 pΩ, since V/R (the short-circuit current) and I²·R overflow the doubles for the subnormal values
+ * a slip can give (1.4e-322 Ω). No real source comes near 1 pΩ.
+ */
+export const MIN_SOURCE_OHMS = 1e-12;
+export const sourceOhms = () =>
+  nonNegative('Ω').check(z.refine((v) => v <= 0 || v >= MIN_SOURCE_OHMS, { message: 'must be 0 (an ideal source) or at least 1e-12 Ω: a smaller value makes the short-circuit current overflow' }));
 export const idField = z.string({ error: 'must be text' }).check(z.minLength(1, 'must not be empty'));
 export const nameField = z.optional(z.string({ error: 'must be text' }));
 export const fromField = z.string({ error: 'must name the feeding element' }).check(z.minLength(1, 'must name the feeding element'));
@@ -123,7 +146,7 @@ const efficiencyPoints = z
   .array(
     z.strictObject({
       loadFraction: positive('(a fraction of rated output, 0.1 = 10 %)'),
-      efficiency: unitFraction('efficiency'),
+      efficiency: efficiencyField(),
     }),
     { error: 'must be a list of {loadFraction, efficiency} points' },
   )
@@ -134,7 +157,7 @@ export const lossModelSchema = z.discriminatedUnion(
   [
     z.strictObject({
       model: z.literal('constant'),
-      efficiency: unitFraction('efficiency'),
+      efficiency: efficiencyField(),
       idleLoss: z.optional(nonNegative('W')),
       ratedPower: z.optional(positive('W')),
     }),
@@ -178,9 +201,26 @@ export function checkPoints(
 
 export function checkLossModel(loss: z.infer<typeof lossModelSchema>): Omit<Problem, 'elementId'>[] {
   if (loss.model === 'curve') return checkPoints(loss.points, 'loss.points', 2);
-  if (loss.model === 'polynomial-fit') return checkPoints(loss.points, 'loss.points', 3);
+  if (loss.model === 'polynomial-fit') {
+    const points = checkPoints(loss.points, 'loss.points', 3);
+    if (points.length) return points;
+    // The fit solves normal equations; points bunched together make them nearly singular and the
+    // coefficients meaningless (or NaN): refuse above a condition number that leaves ~6 digits.
+    const cond = fitConditioning(loss.points.map((p) => p.loadFraction));
+    if (!(cond <= MAX_FIT_CONDITION)) {
+      return [{
+        code: 'invalid-value',
+        field: 'loss.points',
+        value: loss.points.map((p) => p.loadFraction),
+        message: `the load fractions are too close together for a three-term loss fit (the condition number of its equations is ${Number.isFinite(cond) ? cond.toExponential(1) : 'infinite'}; at most 1e10 is accepted): take datasheet points spread over the load range, e.g. 10 %, 50 % and 100 %`,
+      }];
+    }
+  }
   return [];
 }
+
+/** Condition number (1-norm) above which a loss fit is refused: the coefficients keep about 6 significant digits. */
+export const MAX_FIT_CONDITION = 1e10;
 
 // ---------- shared electrical helpers ----------
 

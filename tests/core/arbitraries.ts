@@ -477,12 +477,15 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
       case 'source': {
         const port = n.output!;
         const r = resistanceFor(sz.drop, port.voltage, sOut) / Math.sqrt(1 + sz.xr * sz.xr);
+        // A source's R or X under 1 pΩ is refused (core/stages/spec.ts sourceOhms): such a drop
+        // (fast-check reaches subnormal doubles) is an ideal source instead.
+        const ohms = (v: number) => v >= 1e-12;
         if (el['kind'] === 'battery') {
-          if (sz.drop > 0) el['internalResistance'] = r;
+          if (sz.drop > 0 && ohms(r)) el['internalResistance'] = r;
         } else {
-          if (sz.drop > 0) {
+          if (sz.drop > 0 && ohms(r)) {
             el['resistance'] = r;
-            el['reactance'] = r * sz.xr;
+            if (ohms(r * sz.xr)) el['reactance'] = r * sz.xr;
           }
           if (sz.ratedLoadFraction !== null) el['ratedApparentPower'] = sOut / sz.ratedLoadFraction;
         }

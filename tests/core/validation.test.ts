@@ -100,11 +100,14 @@ describe('the fixture', () => {
 });
 
 describe('bad field values', () => {
-  // model.ts: "Efficiency at that point, 0 < η ≤ 1".
+  // model.ts: "Efficiency at that point, 0.01 ≤ η ≤ 1": below 1 % refused (core/stages/spec.ts
+  // MIN_EFFICIENCY: the loss P_out·(1/η − 1) overflows at 1e-300; common practice, no source).
   it.each([
-    [0, /greater than 0/],
+    [0, /at least 1 %/],
     [1.2, /not exceed 1/],
-    [-0.5, /greater than 0/],
+    [-0.5, /at least 1 %/],
+    [1e-300, /at least 1 %/],
+    [0.0099, /at least 1 %/],
   ])('efficiency %s', (value, says) => {
     const p = validProject();
     el(p, 'conv').loss.efficiency = value;

@@ -50,7 +50,7 @@ describe('interpolation over the IEC 61800-9-2 points', () => {
     const g = driveLossGrid({ ratedApparentPower: 10000, basis: 'cdm' });
     if (!g.ok) throw new Error('grid');
     expect(driveLossAt(g.grid, 90, 100).loss).toBeCloseTo(240, 9);
-    expect(g.grid.source).toContain('common practice');
+    expect(g.grid.source).toContain("typical values: use the maker's figures");
   });
 });
 

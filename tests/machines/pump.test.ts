@@ -139,7 +139,7 @@ describe('projectFlowStudy: the chain\'s own pump, motor and drive', () => {
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(out.input.drive.basis).toBe('cdm');
     expect(out.input.drive.points).toBeUndefined();
-    expect(out.result.warnings.join(' ')).toMatch(/drive "drive" has no IEC 61800-9-2 points/);
+    expect(out.result.warnings.join(' ')).toMatch(/drive "drive" has no IEC 61800-9-2 operating points/);
   });
 
   const bad = (flowStudy: unknown) => {

@@ -219,6 +219,10 @@ describe('messages at the field', () => {
     expect(messageForField({ label: 'Efficiency (%)', quantity: 'fraction-percent' }, 'efficiency must not exceed 1 (enter 0.95 for 95 %)')).toBe(
       'Efficiency (%): efficiency must not exceed 100 %',
     );
+    // η below 1 % (core/stages/spec.ts efficiencyField): the limit is already in per cent.
+    expect(messageForField({ label: 'Efficiency (%)', quantity: 'fraction-percent' }, 'efficiency must be at least 1 %: below that the loss would be over 99 times the output (enter 0.95 for 95 %)')).toBe(
+      'Efficiency (%): efficiency must be at least 1 %: below that the loss would be over 99 times the output',
+    );
     expect(messageForField({ label: 'Output voltage', quantity: 'voltage' }, 'must be greater than 0 V')).toBe('Output voltage: must be greater than 0 V');
     expect(messageForField({ label: 'Output voltage' }, "Output voltage: '23o' is not a number")).toBe("Output voltage: '23o' is not a number");
   });

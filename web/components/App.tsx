@@ -125,7 +125,7 @@ function ShownProject() {
       <PanelDisclosure id="project-settings" title="Project settings" hint="name, description, voltage-drop limits">
         {() => <ProjectForm />}
       </PanelDisclosure>
-      {problems.length > 0 && <ProblemList problems={problems} />}
+      {problems.length > 0 && <ProblemList problems={problems} elements={draft.value.elements} />}
       {crashed && (
         <section class="notice notice--error" role="alert" data-testid="unreadable">
           <p>{crashed}</p>

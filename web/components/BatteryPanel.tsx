@@ -30,6 +30,7 @@ import { inputText, inputUnit, readNumberField, type Quantity } from '../format/
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { draft, edit, fieldError, getAt, resultsState, setField, setFieldError, type DraftProject } from '../state/editor.ts';
 import { TimeChart, type ChartSeries } from './charts/TimeChart.tsx';
+import { problemLine } from './problem-words.ts';
 import './Panels.css';
 
 /** Defaults of a new backup study: every load on at its rated power, one day wanted (common practice, no source). */
@@ -500,8 +501,7 @@ export default function BatteryPanel() {
           <ul>
             {problems.map((p, i) => (
               <li key={i}>
-                {p.elementId === 'project' ? '' : `${p.elementId}: `}
-                {p.field ? <code>{p.field}</code> : null} {p.message}
+                {problemLine(p, project)}
               </li>
             ))}
           </ul>

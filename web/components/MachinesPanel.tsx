@@ -36,6 +36,7 @@ import { currencySymbol, formatMoney } from '../format/panels.ts';
 import { formatShaftPower, type UnitSystem } from '../format/units.ts';
 import { costPrefProblem, effectiveLocale, energyPrice, operatingHours, unitSystem } from '../state/prefs.ts';
 import { draft, outcome, resultsState } from '../state/editor.ts';
+import { problemLine } from './problem-words.ts';
 import './Panels.css';
 
 type Locale = string | undefined;
@@ -99,7 +100,7 @@ function MotorCard({ m, locale }: { m: MotorDetail; locale: Locale }) {
       </dl>
       {m.loadFraction < 0.5 && (
         <p class="panel-warnings-line">
-          Lightly loaded: motors are most efficient around 60–85 % load (common practice); a smaller motor may run cooler and cheaper.
+          Lightly loaded: typical motors are most efficient around 60–85 % load; a smaller motor may run cooler and cheaper.
         </p>
       )}
       {m.nec && <p class="note">{m.nec.note}</p>}
@@ -258,8 +259,7 @@ function ProblemLines({ problems }: { problems: Problem[] }) {
     <ul class="panel-warnings" role="alert">
       {problems.map((p, i) => (
         <li key={i}>
-          {p.elementId !== 'project' ? `${p.elementId}` : ''}
-          {p.field ? ` (${p.field})` : ''}: {p.message}
+          {problemLine(p, draft.value)}
         </li>
       ))}
     </ul>

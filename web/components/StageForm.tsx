@@ -9,6 +9,7 @@ import { draft, draftProblems } from '../state/editor.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import { formFor, shownFields, type FormElement } from '../editor/fields.ts';
 import { FieldList } from './fields/FieldList.tsx';
+import { fieldWords } from '../../core/solve/finite.ts';
 
 export function StageForm({ elementId }: { elementId: string }) {
   const project = draft.value;
@@ -43,7 +44,7 @@ export function StageForm({ elementId }: { elementId: string }) {
         <ul class="sform__problems" role="alert" data-testid="stage-form-problems">
           {elsewhere.map((p, i) => (
             <li key={i}>
-              {p.field ? <code>{p.field}</code> : null} {p.message}
+              {p.field ? <em>{fieldWords(p.field.split('.'))}</em> : null} {p.message}
             </li>
           ))}
         </ul>

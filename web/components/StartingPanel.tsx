@@ -7,8 +7,9 @@
  * and this file only formats (web/format/number.ts, in the chosen locale).
  */
 import { useMemo } from 'preact/hooks';
-import { formatProblem } from '../../core/errors.ts';
 import { studySurges } from '../../core/surge/index.ts';
+import { elementNames, nonFiniteProblems } from '../../core/solve/finite.ts';
+import { problemLine } from './problem-words.ts';
 import type { DeviceCheck, FaultPoint, MotorStartResult, StartCheck } from '../../core/surge/types.ts';
 import { formatApparent, formatCurrent, formatPercent, formatSignificant, formatVoltage, UNIT_GAP } from '../format/number.ts';
 import { effectiveLocale } from '../state/prefs.ts';
@@ -119,7 +120,12 @@ function FaultTable({ title, points, locale, names, basis }: { title: string; po
 /** The starting and fault panel for one project. */
 export function StartingPanel({ project }: { project: unknown }) {
   const locale = effectiveLocale();
-  const outcome = useMemo(() => studySurges(project), [project]);
+  const outcome = useMemo(() => {
+    const o = studySurges(project);
+    // Figures that are not finite numbers refuse the study (core/solve/finite.ts), never a table of NaN.
+    const notFinite = o.ok ? nonFiniteProblems('The surge and fault study', o.result, elementNames(project)) : [];
+    return notFinite.length ? { ok: false as const, problems: notFinite } : o;
+  }, [project]);
   if (!outcome.ok) {
     return (
       <section class="panel-body" data-testid="starting-panel" aria-label="Motor starting and fault currents">
@@ -127,7 +133,7 @@ export function StartingPanel({ project }: { project: unknown }) {
         <ul class="panel-warnings">
           {outcome.problems.map((p) => (
             <li class="panel-warnings-line" key={`${p.elementId}-${p.field}-${p.code}`}>
-              {formatProblem(p)}
+              {problemLine(p, project)}
             </li>
           ))}
         </ul>

@@ -5,7 +5,9 @@
  * the worker is its own bundle, so these parts of core never weigh on the page's first load (the
  * page itself uses only the plain solve).
  *
- * Requests and replies are plain data (structured clone). Every figure comes from core.
+ * Requests and replies are plain data (structured clone). Every figure comes from core. A study
+ * whose figures are not all finite numbers comes back refused, naming the element and the field
+ * (core/solve/finite.ts), never as a panel of NaN.
  */
 import { runBackupStudy, type BackupStudyResult } from '../../core/battery/study.ts';
 import { bankCautions, rechargeCautions } from '../../core/battery/cautions.ts';
@@ -15,6 +17,7 @@ import type { FlowControlResult } from '../../core/machines/flow-control.ts';
 import { correctPowerFactor, type PfCorrection } from '../../core/ac/pf-correction.ts';
 import { flowStudyCosts, lossCostPerYear, type CostSettings, type LossCost, type MethodCosts } from '../../core/economics.ts';
 import { validateProject } from '../../core/solve/validate.ts';
+import { elementNames, nonFiniteProblems } from '../../core/solve/finite.ts';
 import type { Problem } from '../../core/errors.ts';
 import type { SolveResult } from '../../core/result.ts';
 
@@ -68,6 +71,8 @@ function battery(project: unknown): BatteryReply {
       ...(s.recharge || s.charger ? rechargeCautions(chemistry) : []),
     ]),
   ];
+  const notFinite = nonFiniteProblems('The battery backup study', s, elementNames(project));
+  if (notFinite.length) return { kind: 'battery', outcome: { ok: false, problems: notFinite } };
   return { kind: 'battery', outcome: { ok: true, study: s, cautions } };
 }
 
@@ -85,6 +90,8 @@ function machines(input: unknown, result: SolveResult, cost: CostSettings | null
     } else figures.flow = { ok: false, problems: f.problems };
   }
   if (cost) figures.lossCost = lossCostPerYear(result, cost);
+  const notFinite = nonFiniteProblems('The machines study', figures, elementNames(input));
+  if (notFinite.length) return { kind: 'machines', outcome: { ok: false, problems: notFinite } };
   return { kind: 'machines', outcome: { ok: true, figures } };
 }
 
@@ -92,6 +99,8 @@ function pfc(project: unknown, at: string, targetPowerFactor: number): PfcReply 
   const o = correctPowerFactor(project, { at, targetPowerFactor });
   if (!o.ok) return { kind: 'pfc', outcome: o };
   const { resultBefore: _b, resultAfter: _a, correctedProject: _p, ...shown } = o.correction;
+  const notFinite = nonFiniteProblems('The power-factor correction', shown, elementNames(project));
+  if (notFinite.length) return { kind: 'pfc', outcome: { ok: false, problems: notFinite } };
   return { kind: 'pfc', outcome: { ok: true, correction: shown } };
 }
 

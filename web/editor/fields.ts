@@ -677,7 +677,7 @@ const driveForm: KindForm = {
                 {
                   id: 'ie2',
                   label: 'IE2 reference defaults',
-                  help: 'Typical losses of an IE2 drive module (common practice); CDM only.',
+                  help: "Typical losses of an IE2 drive module (typical values: use the maker's figures); CDM only.",
                   apply: (e) => {
                     const s = obj(e['standardLoss']);
                     delete s['points'];

@@ -1,0 +1,140 @@
+/**
+ * The last check before anything computed is shown: a result holding a number that is not finite
+ * (NaN, ±Infinity) anywhere is refused, with a problem naming the element and the result field.
+ * A figure that overflowed or divided by zero is never shown as a table of NaN.
+ *
+ * Used by the solve (core/solve/index.ts) on every result, and by the callers of the studies (the
+ * CLI, the page's panel worker) on the battery, machines, surge, power-factor and cost results:
+ * the studies themselves need not know of it.
+ */
+import type { Problem } from '../errors.ts';
+
+/** One number that is not finite, where it sits, and the element it belongs to. */
+export interface NonFiniteFigure {
+  /** Element id, or "project" when the figure belongs to no element. */
+  elementId: string;
+  /** The element's name as the result gives it, when it gives one. */
+  elementName?: string;
+  /** Path of the figure inside its element's part of the result (or inside the whole result). */
+  path: string[];
+  value: number;
+}
+
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null;
+
+/** Keys the studies' results name their element by (besides `id`). */
+const ELEMENT_KEYS = ['elementId', 'batteryId', 'motorId', 'driveId'] as const;
+
+/** The element an object of a result stands for: `elementId` (or the like), or `id` beside a `name` or `kind`. */
+function elementOf(obj: Record<string, unknown>): { id: string; name?: string } | undefined {
+  const name = typeof obj['name'] === 'string' ? obj['name'] : undefined;
+  for (const key of ELEMENT_KEYS) {
+    const id = obj[key];
+    if (typeof id === 'string') return { id, ...(name !== undefined ? { name } : {}) };
+  }
+  if (typeof obj['id'] === 'string' && (name !== undefined || typeof obj['kind'] === 'string')) return { id: obj['id'], ...(name !== undefined ? { name } : {}) };
+  return undefined;
+}
+
+/**
+ * Every number in a plain-data value that is not finite, at most `limit` of them (a broken result
+ * is usually broken in many places; the first few say where).
+ */
+export function findNonFinite(value: unknown, limit = 50): NonFiniteFigure[] {
+  const found: NonFiniteFigure[] = [];
+  const seen = new WeakSet<object>();
+  const walk = (v: unknown, path: string[], owner: { id: string; name?: string; depth: number }): void => {
+    if (found.length >= limit) return;
+    if (typeof v === 'number') {
+      if (!Number.isFinite(v)) {
+        found.push({ elementId: owner.id, ...(owner.name !== undefined ? { elementName: owner.name } : {}), path: path.slice(owner.depth), value: v });
+      }
+      return;
+    }
+    if (!isRecord(v) || seen.has(v)) return;
+    seen.add(v);
+    const el = Array.isArray(v) ? undefined : elementOf(v);
+    const here = el ? { ...el, depth: path.length } : owner;
+    if (Array.isArray(v)) v.forEach((item, i) => walk(item, [...path, String(i)], here));
+    else for (const [key, item] of Object.entries(v)) walk(item, [...path, key], here);
+  };
+  walk(value, [], { id: 'project', depth: 0 });
+  return found;
+}
+
+/** Words for the result fields users meet most; any other key is spelled out from its parts. */
+const FIELD_WORDS: Record<string, string> = {
+  pIn: 'power in',
+  pOut: 'power out',
+  p: 'real power',
+  q: 'reactive power',
+  s: 'apparent power',
+  re: 'real part',
+  im: 'imaginary part',
+  idleLoss: 'idle loss',
+  powerFactor: 'power factor',
+  pfSense: 'power factor sense',
+  loadFraction: 'load fraction',
+  sourcePower: 'source power',
+  loadPower: 'load power',
+  balanceError: 'balance error',
+  p0: 'no-load loss',
+  k1: 'linear loss term',
+  k2: 'resistive loss term',
+  euro: 'European weighted efficiency',
+  cec: 'CEC weighted efficiency',
+};
+
+/** A result path in words: `input.current` → "input current"; list indices become "item n". */
+export function fieldWords(path: readonly string[]): string {
+  return path
+    .map((key) => (/^\d+$/.test(key) ? `item ${Number(key) + 1}` : FIELD_WORDS[key] ?? key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase()))
+    .join(' ');
+}
+
+const valueWords = (v: number): string => (Number.isNaN(v) ? 'not a number' : v > 0 ? 'infinite' : 'minus infinite');
+
+/**
+ * The problems for a result that holds numbers that are not finite: one per element, naming it
+ * (by the name users gave it when `names` or the result knows it) and its first such field, with
+ * up to three fields in the message. Empty when every number is finite.
+ * `what` says what was computed ("the solve", "the battery backup study").
+ */
+export function nonFiniteProblems(what: string, value: unknown, names?: ReadonlyMap<string, string>): Problem[] {
+  const byElement = new Map<string, NonFiniteFigure[]>();
+  for (const f of findNonFinite(value)) {
+    const list = byElement.get(f.elementId);
+    if (list) list.push(f);
+    else byElement.set(f.elementId, [f]);
+  }
+  return [...byElement].map(([elementId, figures]) => {
+    const first = figures[0]!;
+    const name = names?.get(elementId) ?? first.elementName;
+    const subject = elementId === 'project' ? 'the project as a whole' : `"${name ?? elementId}"`;
+    const fields = [...new Set(figures.map((f) => `${fieldWords(f.path)} (${valueWords(f.value)})`))];
+    const listed = fields.slice(0, 3).join(', ') + (fields.length > 3 ? ` and ${fields.length - 3} more` : '');
+    return {
+      code: 'non-finite' as const,
+      elementId,
+      field: first.path.join('.'),
+      value: String(first.value),
+      message:
+        `${what} gives figures for ${subject} that are not finite numbers: ${listed}. Nothing computed is shown. ` +
+        (elementId === 'project'
+          ? "These figures follow from the elements' values and the project's settings: check those named beside this, and the settings."
+          : 'A value of this element or of one it feeds is out of range (near zero or huge, or a unit slip): check them.'),
+    };
+  });
+}
+
+/** The names users gave the elements of a project given as untrusted data (id → name). */
+export function elementNames(project: unknown): Map<string, string> {
+  const names = new Map<string, string>();
+  const elements = isRecord(project) ? project['elements'] : undefined;
+  if (Array.isArray(elements)) {
+    for (const e of elements) {
+      if (isRecord(e) && typeof e['id'] === 'string' && typeof e['name'] === 'string' && e['name'] !== '') names.set(e['id'], e['name']);
+    }
+  }
+  return names;
+}
