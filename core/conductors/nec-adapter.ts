@@ -59,6 +59,7 @@ export const NEC_TABLES: NecTables = {
     dcResistance: 'NEC 2023 Chapter 9 Table 8, stranded, 75 °C',
     acImpedance: 'NEC Chapter 9 Table 9, 75 °C, 60 Hz',
     devices: 'NEC 2023 240.6(A)',
-    smallConductor: 'NEC 2023 240.4(D) (limits from memory)',
+    // The 240.4(D) limits are carried from memory (core/data/nec-310-16.ts); users read the clause.
+    smallConductor: 'NEC 2023 240.4(D)',
   },
 };

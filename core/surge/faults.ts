@@ -235,11 +235,12 @@ export function deviceChecks(project: Project, atOutput: ReadonlyMap<string, Fau
   const out: DeviceCheck[] = [];
   const judge = (elementId: string, field: string, location: string, rating: number, p: FaultPoint | undefined, unknownWhy: string): DeviceCheck => {
     const i = p?.current ?? null;
-    if (i === null) return { elementId, field, location, interruptingRating: rating, prospectiveCurrent: null, status: 'unknown', message: p?.note ?? unknownWhy };
+    const label = field.startsWith('bankFuse') ? 'bank fuse' : 'protective device';
+    if (i === null) return { elementId, field, label, location, interruptingRating: rating, prospectiveCurrent: null, status: 'unknown', message: p?.note ?? unknownWhy };
     if (i > rating) {
-      return { elementId, field, location, interruptingRating: rating, prospectiveCurrent: i, status: 'too-weak', requiredRating: i, message: `interrupting rating ${kA(rating)} is below the prospective ${kA(i)}: fit a device rated to interrupt at least ${kA(i)}${p!.portKind === 'dc' ? ' DC' : ''}` };
+      return { elementId, field, label, location, interruptingRating: rating, prospectiveCurrent: i, status: 'too-weak', requiredRating: i, message: `interrupting rating ${kA(rating)} is below the prospective ${kA(i)}: fit a device rated to interrupt at least ${kA(i)}${p!.portKind === 'dc' ? ' DC' : ''}` };
     }
-    return { elementId, field, location, interruptingRating: rating, prospectiveCurrent: i, status: 'adequate', message: `interrupting rating ${kA(rating)} covers the prospective ${kA(i)}` };
+    return { elementId, field, label, location, interruptingRating: rating, prospectiveCurrent: i, status: 'adequate', message: `interrupting rating ${kA(rating)} covers the prospective ${kA(i)}` };
   };
   for (const e of project.elements) {
     if (e.kind === 'battery' && e.bankFuse) out.push(judge(e.id, 'bankFuse.interruptingRating', 'bank terminals', e.bankFuse.interruptingRating, atOutput.get(e.id), 'no bank fault current'));

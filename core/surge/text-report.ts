@@ -38,7 +38,7 @@ function startLines(s: MotorStartResult): string[] {
 const faultLine = (p: FaultPoint): string =>
   `  ${`${p.elementId} ${p.location}`.padEnd(36)} ${p.portKind.padEnd(4)} ${g(p.voltage).padStart(7)} V  ${p.current === null ? 'not computed'.padStart(10) : amps(p.current).padStart(10)}  |Z| ${g(p.impedance * 1000)} mΩ${p.note ? `  (${p.note})` : ''}`;
 
-const deviceLine = (d: DeviceCheck): string => `  ${d.elementId} ${d.field} at the ${d.location}: ${d.status.toUpperCase()} — ${d.message}`;
+const deviceLine = (d: DeviceCheck): string => `  ${d.elementId} ${d.label} at the ${d.location}: ${d.status.toUpperCase()} — ${d.message}`;
 
 /** Human-readable report of the study. */
 export function formatSurgeStudy(r: SurgeStudyResult): string {

@@ -90,7 +90,7 @@ export function trapWarnings(project: Project, result: SolveResult): SolveWarnin
           out.push({
             code: 'drive-single-phase',
             elementId: e.id,
-            message: 'is fed single-phase with no single-phase rating given: a three-phase drive on a single-phase supply must be derated (commonly to about half) because its rectifier and DC-link capacitors carry more ripple current. Check the maker allows single-phase input and enter its single-phase output rating in singlePhaseRating.',
+            message: 'is fed single-phase with no single-phase rating given: a three-phase drive on a single-phase supply must be derated (commonly to about half) because its rectifier and DC-link capacitors carry more ripple current. Check the maker allows single-phase input and enter its "Output rating on a single-phase supply".',
           });
         } else if (s > e.singlePhaseRating) {
           out.push({

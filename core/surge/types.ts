@@ -131,7 +131,10 @@ export interface FaultPoint {
 
 export interface DeviceCheck {
   elementId: string;
+  /** The file-format path of the rating (for the form), never shown. */
   field: string;
+  /** The device in words ("bank fuse", "protective device at the sending end"). */
+  label: string;
   /** Where the device sits and which fault it must interrupt. */
   location: string;
   interruptingRating: number;

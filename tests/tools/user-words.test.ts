@@ -120,7 +120,8 @@ function offence(text: string, code = false): string | undefined {
 // ---------- what the engine says ----------
 
 /** Result keys whose strings are identifiers or the user's own words, not the engine's. */
-const NOT_PROSE = new Set(['id', 'elementId', 'from', 'feeds', 'kind', 'code', 'projectName', 'name', 'at', 'role', 'pfSense', 'system', 'material']);
+// `field`: the file-format path a check or problem points the form at; shown only through its label.
+const NOT_PROSE = new Set(['id', 'elementId', 'field', 'from', 'feeds', 'kind', 'code', 'projectName', 'name', 'at', 'role', 'pfSense', 'system', 'material']);
 
 /** Every string of a plain-data value, with its path (identifiers and user-given names left out). */
 function strings(value: unknown, path = ''): { path: string; text: string }[] {

@@ -170,7 +170,7 @@ export function StartingPanel({ project }: { project: unknown }) {
             {r.devices.map((d) => (
               <tr key={`${d.elementId}-${d.field}`} data-status={d.status}>
                 <th scope="row">
-                  {d.elementId} ({d.location})
+                  {names.get(d.elementId) ?? d.elementId}: {d.label} ({d.location})
                 </th>
                 <td>{formatCurrent(d.interruptingRating, locale)}</td>
                 <td>{d.prospectiveCurrent === null ? '—' : formatCurrent(d.prospectiveCurrent, locale)}</td>
