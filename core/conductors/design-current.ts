@@ -193,6 +193,9 @@ function converterInput(e: InverterStage | DcDcStage): { amps: number; words: st
   return { amps: p / (eta * vMin), words: `the ${what}'s rated output at its lowest input voltage: ${p} W / (η ${eta.toFixed(3)} × ${vMin} V)` };
 }
 
+/** A design current from an equipment rating: the rated current × the rule's factor. */
+const fromRating = (basis: DesignBasisKind, rated: number, factor: number, stacked: boolean, rule: string): DesignCurrent => ({ basis, base: rated, factor, design: rated * factor, stacked, rule });
+
 type EquipmentBasis = { ok: true; design: DesignCurrent } | { ok: false; missing: string } | null;
 
 /** The equipment rule for what the link feeds (and what feeds it); null when no rule applies. */
@@ -246,15 +249,7 @@ function equipmentBasis(ctx: DesignContext, link: Element, spec: ConductorSpec, 
     if (end.kind === 'drive') {
       const rated = end.ratedInputCurrent;
       if (rated === undefined) missing.push(`drive ${nameOf(end)}: enter its rated input current`);
-      else
-        found.push({
-          basis: 'drive-input',
-          base: rated,
-          factor: f,
-          design: rated * f,
-          stacked: true,
-          rule: nec ? `125 % of the drive's rated input current, ${rated} A (NEC 430.122(A))` : `the drive's rated input current, ${rated} A, as I_B`,
-        });
+      else found.push(fromRating('drive-input', rated, f, true, nec ? `125 % of the drive's rated input current, ${rated} A (NEC 430.122(A))` : `the drive's rated input current, ${rated} A, as I_B`));
     }
     if ((end.kind === 'inverter' || end.kind === 'dcdc') && kind === 'dc') {
       const r = converterInput(end);
@@ -305,15 +300,7 @@ function equipmentBasis(ctx: DesignContext, link: Element, spec: ConductorSpec, 
   if (up?.kind === 'rectifier' && kind === 'dc') {
     const rated = up.ratedOutputCurrent;
     if (rated === undefined) missing.push(`charger ${nameOf(up)}: enter its rated output current`);
-    else
-      found.push({
-        basis: 'charger-output',
-        base: rated,
-        factor: f,
-        design: rated * f,
-        stacked: false,
-        rule: nec ? `125 % of the charger's rated output current, ${rated} A (NEC 706.30, the equipment's rating)` : `the charger's rated output current, ${rated} A, as I_B`,
-      });
+    else found.push(fromRating('charger-output', rated, f, false, nec ? `125 % of the charger's rated output current, ${rated} A (NEC 706.30, the equipment's rating)` : `the charger's rated output current, ${rated} A, as I_B`));
   }
   if (found.length) {
     // Where two equipment rules meet on one link (a charger feeding an inverter), the larger governs.

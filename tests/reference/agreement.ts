@@ -2,7 +2,8 @@
  * Agreement between the engine and ngspice for one case: every figure asserted within the
  * tolerances the issue sets (0.1 % relative, 0.01° in angle), the worst kept for the summary.
  */
-import { expect } from 'vitest';
+import { afterAll, expect } from 'vitest';
+import type { Project } from '../../core/model.ts';
 
 /** Relative tolerance of the reference checks: 0.1 %. */
 export const REL_TOL = 1e-3;
@@ -37,4 +38,18 @@ export class Agreement {
     this.rows.push(`${what}: ngspice ${spice.toExponential(2)} (bound ${bound})`);
     expect(Math.abs(spice), `${this.name} — ${what}`).toBeLessThanOrEqual(bound);
   }
+}
+
+/** A project of the given elements (test data; validated by the solve). */
+export const projectOf = (name: string, elements: unknown[]): Project => ({ format: 'joulepath-project', version: 1, name, elements }) as Project;
+
+/** Collects each case's agreement and prints the worst figures of every case when the file ends. */
+export function agreementSummary(title: string): Agreement[] {
+  const summary: Agreement[] = [];
+  afterAll(() => {
+    if (summary.length === 0) return;
+    const lines = summary.map((a) => `  ${a.name}: worst relative error ${a.worstRel.toExponential(2)} (${a.worstRelWhat}), worst angle error ${a.worstAngle.toExponential(2)}°`);
+    console.log(`${title}:\n${lines.join('\n')}`);
+  });
+  return summary;
 }

@@ -11,11 +11,11 @@
  * current behind the voltage), which the engine had to find by itself. Tolerances as ngspice.test.ts:
  * 0.1 %, 0.01°.
  */
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { solveProject, type ElementResult, type Project, type SolveResult } from '../../core/index.ts';
 import { requireNgspice, runAc, seriesBranch, sp } from './ngspice.ts';
 import { cabs, cargDeg, cneg, power } from './phasor.ts';
-import { Agreement } from './agreement.ts';
+import { Agreement, agreementSummary, projectOf } from './agreement.ts';
 
 function solveOk(project: Project): SolveResult {
   const out = solveProject(project);
@@ -40,12 +40,9 @@ function loadImpedance(load: ElementResult): { r: number; x: number } {
 /** A SPICE AC current source from node a to node b (the current leaves a through the source: a load). */
 const currentSource = (name: string, a: string, b: string, i: { re: number; im: number }) => `I${name} ${a} ${b} AC ${sp(cabs(i))} ${sp(cargDeg(i))}`;
 
-const summary: Agreement[] = [];
-afterAll(() => {
-  if (summary.length) console.log(`Current loads, engine vs ngspice:\n${summary.map((a) => `  ${a.name}: worst relative error ${a.worstRel.toExponential(2)} (${a.worstRelWhat}), worst angle error ${a.worstAngle.toExponential(2)}°`).join('\n')}`);
-});
+const summary = agreementSummary('Current loads, engine vs ngspice');
 
-const project = (name: string, elements: unknown[]): Project => ({ format: 'joulepath-project', version: 1, name, elements }) as Project;
+const project = projectOf;
 
 describe('constant-current loads against ngspice', () => {
   it('ngspice is installed (otherwise: apt-get install -y ngspice)', () => {

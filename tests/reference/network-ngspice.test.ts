@@ -10,24 +10,19 @@
  * A last case checks a power-factor correction: the chain re-solved with the capacitor bank
  * (delta) beside the load, against the same circuit with the capacitors in SPICE.
  */
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { correctPowerFactor, parseNetwork, solveProject, type CircuitNetwork, type ElementResult, type ParsedNetwork, type Project, type SolveResult } from '../../core/index.ts';
 import { requireNgspice, runAc, seriesBranch, sp, type Phasor } from './ngspice.ts';
 import { cneg, cabs, cargDeg, power, csum } from './phasor.ts';
-import { Agreement } from './agreement.ts';
+import { Agreement, agreementSummary, projectOf } from './agreement.ts';
 
 const polarDeg = (r: number, deg: number): Phasor => ({ re: r * Math.cos((deg * Math.PI) / 180), im: r * Math.sin((deg * Math.PI) / 180) });
 
 
 
-const summary: Agreement[] = [];
-afterAll(() => {
-  if (summary.length === 0) return;
-  const lines = summary.map((a) => `  ${a.name}: worst relative error ${a.worstRel.toExponential(2)} (${a.worstRelWhat}), worst angle error ${a.worstAngle.toExponential(2)}°`);
-  console.log(`Network loads vs ngspice agreement:\n${lines.join('\n')}`);
-});
+const summary = agreementSummary('Network loads vs ngspice agreement');
 
-const project = (name: string, elements: unknown[]): Project => ({ format: 'joulepath-project', version: 1, name, elements }) as Project;
+const project = projectOf;
 
 function solveOk(p: Project): SolveResult {
   const out = solveProject(p);

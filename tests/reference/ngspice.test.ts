@@ -16,11 +16,11 @@
  * (line-to-line on three-phase), engine phasors per phase (phase-to-neutral on three-phase), angles
  * referred to the source EMF (or the regulating converter's output) at 0°.
  */
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { solveProject, type ElementResult, type Project, type SolveResult } from '../../core/index.ts';
 import { requireNgspice, runAc, seriesBranch, sp, type Phasor } from './ngspice.ts';
 import { cneg, cabs, cargDeg, power, csum } from './phasor.ts';
-import { Agreement } from './agreement.ts';
+import { Agreement, agreementSummary, projectOf } from './agreement.ts';
 
 
 
@@ -49,16 +49,9 @@ function loadImpedance(load: ElementResult): { r: number; x: number } {
   return { r: (v2 * p) / d, x: (v2 * q) / d };
 }
 
-const summary: Agreement[] = [];
-afterAll(() => {
-  if (summary.length === 0) return;
-  const lines = summary.map(
-    (a) => `  ${a.name}: worst relative error ${a.worstRel.toExponential(2)} (${a.worstRelWhat}), worst angle error ${a.worstAngle.toExponential(2)}°`,
-  );
-  console.log(`Engine vs ngspice agreement:\n${lines.join('\n')}`);
-});
+const summary = agreementSummary('Engine vs ngspice agreement');
 
-const project = (name: string, elements: unknown[]): Project => ({ format: 'joulepath-project', version: 1, name, elements }) as Project;
+const project = projectOf;
 
 describe('engine AC solve against ngspice', () => {
   it('ngspice is installed (otherwise: apt-get install -y ngspice)', () => {
