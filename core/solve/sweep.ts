@@ -175,12 +175,18 @@ function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly C
   const below = loadBelow(order, sIn, i);
   const kw = below.watts / 1000;
   const current = below.amps > 0 ? ` and the ${amps(below.amps)} of loads given by their current` : '';
-  const what = below.watts === 0 && below.amps > 0 ? `the ${amps(below.amps)} of loads given by their current beyond it` : `the ${kw.toPrecision(3)} kW of load beyond it${current}`;
+  // The load below may itself be out of range (a power drawn at a voltage that left the doubles):
+  // then the message names no figure rather than print "NaN".
+  const what = !Number.isFinite(below.watts) || !Number.isFinite(below.amps)
+    ? 'the load beyond it'
+    : below.watts === 0 && below.amps > 0
+      ? `the ${amps(below.amps)} of loads given by their current beyond it`
+      : `the ${kw.toPrecision(3)} kW of load beyond it${current}`;
   return {
     code: 'infeasible-load',
     elementId: e.id,
     field: '',
-    value: below.watts,
+    value: Number.isFinite(below.watts) ? below.watts : null,
     message: `cannot carry ${what} (plus the losses on the way): the voltage would collapse, past the most power this link can transfer. Use a larger conductor, a shorter run, a higher voltage or less load`,
   };
 }

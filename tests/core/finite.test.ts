@@ -186,3 +186,24 @@ describe('the CLI exits non-zero on each of them, naming element and field', () 
     }, 30_000);
   }
 });
+
+describe('messages never print a figure that left the doubles', () => {
+  it('a link that cannot carry an out-of-range load is refused without "NaN kW" (fast-check counterexample, seed -1916471725)', () => {
+    const out = solveProject({
+      format: 'joulepath-project',
+      version: 1,
+      name: 'Extreme chain',
+      elements: [
+        { id: 'src', name: 'Supply', kind: 'grid', phases: 1, voltage: 0.1, frequency: 50, resistance: 1 },
+        { id: 'ac-run', name: 'Feeder', kind: 'cable', from: 'src', length: 1e88, resistancePerKm: 0.1 },
+        { id: 'rect', name: 'Rectifier', kind: 'rectifier', from: 'ac-run', outputVoltage: 1, inputPowerFactor: 0.95, loss: { model: 'constant', efficiency: 1 } },
+        { id: 'dc-run', name: 'DC run', kind: 'cable', from: 'rect', length: 10, resistancePerKm: 0.1 },
+        { id: 'dc', name: 'DC load', kind: 'dc-load', from: 'dc-run', power: 4.057428534040044e22 },
+        { id: 'side', name: 'Side load', kind: 'network-load', from: 'ac-run', network: { series: [{ resistor: 0.1 }] } },
+      ],
+    });
+    expect(out.ok).toBe(false);
+    if (out.ok) return;
+    for (const p of out.problems) expect(p.message).not.toMatch(/NaN|Infinity/);
+  });
+});
