@@ -79,7 +79,7 @@ const nameOf = (e: Element): string => `"${e.name ?? e.id}"`;
 const PASSIVE = new Set(['cable', 'dcbus']);
 
 /** The equipment a link feeds: the first non-passive elements below it (through cables and DC buses). */
-export function terminals(ctx: DesignContext, id: string): Element[] {
+function terminals(ctx: DesignContext, id: string): Element[] {
   const out: Element[] = [];
   const walk = (from: string) => {
     for (const ch of ctx.children.get(from) ?? []) {
@@ -106,7 +106,7 @@ function feeder(ctx: DesignContext, e: Element): Element | undefined {
 }
 
 /** Current drawn by an element at nominal voltage (the nominal solve's power over the nominal voltage), A. */
-export function nominalCurrent(ctx: DesignContext, id: string): number {
+function nominalCurrent(ctx: DesignContext, id: string): number {
   const s = ctx.sIn.get(id);
   const v = ctx.nominal.get(id);
   const kind = ctx.portKind.get(id);
@@ -136,7 +136,7 @@ const SINGLE_PHASE_ROWS: Rows = NEC_430_248;
  * motor's horsepower row and voltage column. A motor rated between rows (a kW rating) takes the
  * next larger row, which gives the larger current.
  */
-export function necMotorFlc(m: MotorStage, phases: 1 | 3, nominal: number): { amps: number; words: string } | { reason: string } {
+function necMotorFlc(m: MotorStage, phases: 1 | 3, nominal: number): { amps: number; words: string } | { reason: string } {
   const v = m.ratedVoltage ?? nominal;
   const col = necColumn(v, phases);
   const table = phases === 3 ? 'Table 430.250' : 'Table 430.248';

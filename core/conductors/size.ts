@@ -26,7 +26,7 @@
  *   ../ac/two-bus.ts) with R at the estimated operating temperature (common practice):
  *   T = T_a + (T_max − T_a)·(I/I_z)², R_T = R_ref·(1 + α·(T − T_ref)).
  */
-import { type Complex, abs, c } from '../ac/complex.ts';
+import { type Complex, abs } from '../ac/complex.ts';
 import type { CableStage, NecConductorSpec, PortKind } from '../model.ts';
 import type { ConductorResult, ConductorStep, GoverningRule } from '../result.ts';
 import { NEC_430_52_C_1 } from '../data/nec-430-52.ts';
@@ -39,8 +39,6 @@ export const CAUTION =
 const SQRT3 = Math.sqrt(3);
 const EPS = 1e-12;
 const phaseCount = (kind: PortKind): number => (kind === 'ac3' ? 3 : 1);
-/** Conductors in the per-phase impedance: loop (go and return) on DC and single-phase. */
-const loopFactor = (kind: PortKind): number => (kind === 'ac3' ? 1 : 2);
 const fmt = (x: number) => (Math.abs(x - Math.round(x)) < 1e-9 ? String(Math.round(x)) : x.toFixed(1));
 
 /** The operating point's power factor angle of the link, for the drop formulas. */
@@ -81,12 +79,6 @@ export const resistanceAt = (p: PreparedConductor, cand: Candidate, t: number): 
 /** Estimated conductor temperature (common practice): T = T_a + (T_max − T_a)·(I/I_z)². */
 export const temperatureAt = (p: PreparedConductor, cand: Candidate, perConductor: number): number =>
   p.ambient + (p.tMax - p.ambient) * (perConductor / cand.corrected) ** 2;
-
-/** Per-phase series impedance of the link for a conductor of r, x Ω/m. */
-export function linkImpedance(kind: PortKind, length: number, sets: number, r: number, x: number): Complex {
-  const metres = (length * loopFactor(kind)) / sets;
-  return c(r * metres, kind === 'dc' ? 0 : x * metres);
-}
 
 const smallestAtLeast = (list: readonly number[], x: number): number | undefined => list.find((r) => r >= x * (1 - EPS));
 const isStandard = (list: readonly number[], x: number): boolean => list.some((r) => Math.abs(r - x) <= 1e-9 * Math.max(1, x));
