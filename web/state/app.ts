@@ -7,14 +7,33 @@
 import { computed, signal } from '@preact/signals';
 import { demoProjects } from '../../core/demos/index.ts';
 import { draft, draftOrigin, loadProject, type DraftProject } from './editor.ts';
-import { importFile, openLatestStored, openStored, storedIdFromHash } from '../storage/session.ts';
+import { importFile, openLatestStored, openStored, storageNotice, storedIdFromHash } from '../storage/session.ts';
 
 const HASH_PREFIX = '#demo=';
 
-/** The demo named by the address (#demo=<id>), or undefined. */
+/** decodeURIComponent that never throws: undefined for a malformed escape ("%E0%A4%A", "%"). */
+export function decodeHashValue(text: string): string | undefined {
+  try {
+    return decodeURIComponent(text);
+  } catch {
+    return undefined;
+  }
+}
+
+/** The demo named by the address (#demo=<id>), or undefined (also for an address that cannot be decoded). */
 export function demoIdFromHash(hash: string): string | undefined {
-  const fromHash = hash.startsWith(HASH_PREFIX) ? decodeURIComponent(hash.slice(HASH_PREFIX.length)) : '';
+  const fromHash = hash.startsWith(HASH_PREFIX) ? (decodeHashValue(hash.slice(HASH_PREFIX.length)) ?? '') : '';
   return demoProjects.some((d) => d.id === fromHash) ? fromHash : undefined;
+}
+
+/**
+ * What to tell the user when the address names a demo or a project in a form that cannot be read (a
+ * broken %-escape, e.g. a link cut short): the app then opens as without an address. Null otherwise.
+ */
+export function addressProblem(hash: string): string | null {
+  const named = /^#(demo|project)=(.*)$/s.exec(hash);
+  if (!named || decodeHashValue(named[2]!) !== undefined) return null;
+  return `The address names a ${named[1] === 'demo' ? 'demo' : 'stored project'} this app cannot read (the link may be cut short or damaged), so it opened without it.`;
 }
 
 export function hashForDemo(id: string): string {
@@ -73,6 +92,13 @@ function openFirstDemo(): void {
 /** Open what the address names, or the first demo when nothing is open yet. */
 export function openFromAddress(): void {
   const hash = globalThis.location?.hash ?? '';
+  // A damaged address opens the app with a message, never a blank page.
+  const problem = addressProblem(hash);
+  if (problem) {
+    storageNotice.value = problem;
+    if (!draft.value) void openLatestStored().then((ok) => ok || openFirstDemo());
+    return;
+  }
   // A stored project (#project=<id>); with nothing named, the project saved last, else the first demo.
   const storedId = storedIdFromHash(hash);
   if (storedId) {
