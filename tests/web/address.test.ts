@@ -3,7 +3,7 @@
 // ECMA-262, Decode). The demo id is the project's own invented demo.
 import { describe, expect, it } from 'vitest';
 import { demoProjects } from '../../core/demos/index.ts';
-import { addressProblem, decodeHashValue, demoIdFromHash, hashForDemo } from '../../web/state/app.ts';
+import { addressProblem, decodeHashValue, demoIdFromHash, hashForDemo } from '../../web/state/address.ts';
 
 const hostile = ['#project=%E0%A4%A', '#demo=%', '#demo=%E0%A4%A', '#project=%', '#project=%ZZ', '#demo=%ED%A0%80'];
 

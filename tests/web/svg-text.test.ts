@@ -3,7 +3,7 @@
 // [#x10000-#x10FFFF]. The browser check (DOMParser on the exported file) is in tests/browser/hostile-page.test.ts.
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { xmlSafeText } from '../../web/components/flow-draw.ts';
+import { xmlSafeText } from '../../web/components/xml-text.ts';
 
 /** XML 1.0 §2.2 Char, code point by code point. */
 const xmlChar = (cp: number) => cp === 0x9 || cp === 0xa || cp === 0xd || (cp >= 0x20 && cp <= 0xd7ff) || (cp >= 0xe000 && cp <= 0xfffd) || (cp >= 0x10000 && cp <= 0x10ffff);

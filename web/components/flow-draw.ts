@@ -11,6 +11,7 @@
  * What a part says rather than shows (its accessible name, a branch's watts) is written by
  * `describe`, which EnergyFlow.tsx runs when the page is idle after the paint.
  */
+import { xmlSafeText } from './xml-text.ts';
 
 const NS = 'http://www.w3.org/2000/svg';
 
@@ -326,16 +327,7 @@ export function writeFigure(f: Figure, s: FigureSpec): void {
   writeText(f.text, s.text);
 }
 
-/**
- * Text fit for an XML 1.0 file: characters XML forbids (Char production, XML 1.0 §2.2: C0 controls
- * other than tab, line feed and carriage return; U+FFFE, U+FFFF; unpaired surrogates) are left out. A
- * name typed or imported with such a character still exports as an SVG file every reader opens.
- */
-export function xmlSafeText(text: string): string {
-  return text.replace(/[\u0000-\u0008\u000B\u000C\u000E-\u001F\uFFFE\uFFFF]|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/g, '');
-}
-
-/** Make every text and attribute value under `root` fit for an XML 1.0 file (xmlSafeText), in place. */
+/** Make every text and attribute value under `root` fit for an XML 1.0 file (xml-text.ts), in place. */
 export function makeXmlSafe(root: Element): void {
   const visit = (node: Node) => {
     if (node.nodeType === 3 /* text */ || node.nodeType === 4 /* CDATA */) {

@@ -8,37 +8,10 @@ import { computed, signal } from '@preact/signals';
 import { demoProjects } from '../../core/demos/index.ts';
 import { draft, draftOrigin, loadProject, type DraftProject } from './editor.ts';
 import { importFile, openLatestStored, openStored, storageNotice, storedIdFromHash } from '../storage/session.ts';
+import { addressProblem, demoIdFromHash, hashForDemo } from './address.ts';
 
-const HASH_PREFIX = '#demo=';
-
-/** decodeURIComponent that never throws: undefined for a malformed escape ("%E0%A4%A", "%"). */
-export function decodeHashValue(text: string): string | undefined {
-  try {
-    return decodeURIComponent(text);
-  } catch {
-    return undefined;
-  }
-}
-
-/** The demo named by the address (#demo=<id>), or undefined (also for an address that cannot be decoded). */
-export function demoIdFromHash(hash: string): string | undefined {
-  const fromHash = hash.startsWith(HASH_PREFIX) ? (decodeHashValue(hash.slice(HASH_PREFIX.length)) ?? '') : '';
-  return demoProjects.some((d) => d.id === fromHash) ? fromHash : undefined;
-}
-
-/**
- * What to tell the user when the address names a demo or a project in a form that cannot be read (a
- * broken %-escape, e.g. a link cut short): the app then opens as without an address. Null otherwise.
- */
-export function addressProblem(hash: string): string | null {
-  const named = /^#(demo|project)=(.*)$/s.exec(hash);
-  if (!named || decodeHashValue(named[2]!) !== undefined) return null;
-  return `The address names a ${named[1] === 'demo' ? 'demo' : 'stored project'} this app cannot read (the link may be cut short or damaged), so it opened without it.`;
-}
-
-export function hashForDemo(id: string): string {
-  return `${HASH_PREFIX}${encodeURIComponent(id)}`;
-}
+// The hash parsing is pure (address.ts); re-exported for the page's modules that read it from here.
+export { addressProblem, demoIdFromHash, hashForDemo } from './address.ts';
 
 /** Set when an opened file could not be read as a project at all (nothing to edit). */
 export const fileReadError = signal<{ fileName: string; message: string } | null>(null);
