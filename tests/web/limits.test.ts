@@ -22,23 +22,24 @@ import {
   type DraftProject,
 } from '../../web/state/editor.ts';
 import { IMPORT_LIMITS, buildExport, exportText, parseImportText } from '../../web/storage/file-format.ts';
+import { scanLimits } from '../../web/storage/limits.ts';
 
 const loss = { model: 'constant', efficiency: 0.95 };
 /** bank → cable → inverter → fridge; bank → dcdc → radio (with a simple network load on the inverter). */
 function chain(): DraftProject {
-  return {
+  return structuredClone<DraftProject>({
     format: 'joulepath-project',
     version: 1,
     name: 'limits chain',
     elements: [
       { id: 'bank', kind: 'battery', voltage: 51.2, internalResistance: 0.01 },
       { id: 'cab', kind: 'cable', from: 'bank', length: 3, resistancePerKm: 0.5 },
-      { id: 'inv', kind: 'inverter', from: 'cab', phases: 1, outputVoltage: 230, frequency: 50, loss },
+      { id: 'inv', kind: 'inverter', from: 'cab', phases: 1, outputVoltage: 230, frequency: 50, loss: { ...loss } },
       { id: 'fridge', kind: 'ac-load', from: 'inv', power: 150, powerFactor: 0.8 },
-      { id: 'dcdc', kind: 'dcdc', from: 'bank', outputVoltage: 12, loss },
+      { id: 'dcdc', kind: 'dcdc', from: 'bank', outputVoltage: 12, loss: { ...loss } },
       { id: 'radio', kind: 'dc-load', from: 'dcdc', power: 40 },
     ],
-  };
+  });
 }
 
 const lamp: DraftElement = { id: 'lamp', kind: 'dc-load', power: 5 };
@@ -93,6 +94,42 @@ describe('a field edit past a limit of the project file is refused at the field'
     const back = roundTrip(draft.value!);
     expect(back.ok).toBe(true);
   });
+
+  it('nesting is counted as the import counts it: the deepest the file holds is taken in, one more is not', () => {
+    // The element sits at depth 3 of the export (envelope → project → elements → [i]); `extra` at 4;
+    // nested(d) puts its innermost text at depth 5 + d, and the file holds depth 32: d = 27 fits.
+    const put = (d: number) => edit('nest', (p) => {
+      p.elements.find((e) => e.id === 'radio')!['extra'] = nested(d);
+    });
+    expect(put(28)).toMatch(/more than 32 levels deep/);
+    expect(put(27)).toBeNull();
+    expect(roundTrip(draft.value!).ok).toBe(true);
+  });
+
+  it('values are counted as the import counts them: the editor takes in exactly the largest table the file holds', () => {
+    const rows = (n: number) => Array.from({ length: n }, (_v, i) => ({ load: i / 1e6, efficiency: 0.9 }));
+    const withRows = (n: number) => {
+      const p = chain();
+      (p.elements.find((e) => e.id === 'dcdc')!['loss'] as Record<string, unknown>)['points'] = rows(n);
+      return p;
+    };
+    // Each row adds 3 values (the row and its two numbers): from the count of a one-row file, the
+    // largest table the file holds; the import's own verdict confirms it on both sides.
+    const exported = (n: number) => exportText(buildExport(withRows(n), { exportedAt: new Date(Date.UTC(2026, 0, 1)), appVersion: 'test', projectId: 'abc-123' }));
+    const one = scanLimits(JSON.parse(exported(1))).count;
+    const lo = 1 + Math.floor((IMPORT_LIMITS.maxValues - one) / 3);
+    expect(parseImportText(exported(lo)).ok).toBe(true);
+    expect(parseImportText(exported(lo + 1)).ok).toBe(false);
+    const put = (n: number) => {
+      loadProject(chain(), { kind: 'new', title: 'rows' });
+      return edit('rows', (p) => {
+        (p.elements.find((e) => e.id === 'dcdc')!['loss'] as Record<string, unknown>)['points'] = rows(n);
+      });
+    };
+    expect(put(lo)).toBeNull();
+    expect(roundTrip(draft.value!).ok).toBe(true);
+    expect(put(lo + 1)).toMatch(/more than 200.000 values/);
+  }, 30_000);
 
   it('a table grown past the file\'s value count is refused, the draft unchanged', () => {
     const before = draft.value;

@@ -92,7 +92,7 @@ export function limitWords(issue: LimitIssue): string {
     case 'infinite':
       return 'must be a finite number';
     case 'magnitude':
-      return `${issue.value} is larger than any value in a power chain (at most ${figure(FILE_LIMITS.maxMagnitude)} in SI units), so a project file could not hold it`;
+      return `is larger than any value in a power chain (at most ${figure(FILE_LIMITS.maxMagnitude)} in SI units: 1 PW, 1 PJ), so a project file could not hold it`;
     case 'string':
       return `${figure(issue.length)} characters is too long: a project file holds at most ${figure(FILE_LIMITS.maxStringLength)} characters in one text`;
     case 'forbidden-key':
