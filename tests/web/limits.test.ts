@@ -16,6 +16,7 @@ import {
   insertBefore,
   lastChange,
   loadProject,
+  newProject,
   removeElement,
   setField,
   type DraftElement,
@@ -182,6 +183,12 @@ describe('what an edit makes of ids and names stays within the file\'s limits', 
     expect(freshId(draft.value!, long).length).toBeLessThanOrEqual(IMPORT_LIMITS.maxIdLength);
     expect(duplicate(long).ok).toBe(true);
     expect(draft.value!.elements.every((e) => e.id.length <= IMPORT_LIMITS.maxIdLength)).toBe(true);
+    expect(roundTrip(draft.value!).ok).toBe(true);
+  });
+
+  it('a new project named past the project-name limit gets a name the import reads', () => {
+    newProject('n'.repeat(300), { id: 'bank', kind: 'battery', voltage: 48, internalResistance: 0.01 });
+    expect(draft.value!.name).toHaveLength(IMPORT_LIMITS.maxProjectNameLength);
     expect(roundTrip(draft.value!).ok).toBe(true);
   });
 

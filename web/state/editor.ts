@@ -484,9 +484,11 @@ function withFreshId(project: DraftProject, element: DraftElement): DraftElement
 /** Start a new project from scratch with its source. */
 export function newProject(name: string, source: DraftElement): void {
   const { from: _from, ...rest } = source;
+  // A project name the file holds (the new-chain box has no length limit of its own).
+  const named = withSuffix(name, '', FILE_LIMITS.maxProjectNameLength);
   loadProject(
-    { format: 'joulepath-project', version: 1, name, elements: [rest as DraftElement] },
-    { kind: 'new', title: name },
+    { format: 'joulepath-project', version: 1, name: named, elements: [rest as DraftElement] },
+    { kind: 'new', title: named },
   );
   selectedId.value = source.id;
 }
