@@ -76,6 +76,10 @@ describe.skipIf(skipWithout('chromium'))('hostile surroundings in Chromium', () 
       await page.goto(app!.baseUrl, { waitUntil: 'load' });
       await waitForResults(page);
       expect(await page.getByTestId('framed-notice').count()).toBe(0);
+      // The build ships the hosts' headers file beside the page (web/public/_headers → dist/_headers).
+      const headers = await (await page.request.get(new URL('_headers', app!.baseUrl).href)).text();
+      expect(headers).toContain("frame-ancestors 'none'");
+      expect(headers).toContain('X-Frame-Options: DENY');
       expect(errors).toEqual([]);
     } finally {
       await page.close();
