@@ -6,12 +6,14 @@
 import { cacheNames, setCacheNameDetails } from 'workbox-core';
 import { createHandlerBoundToURL } from 'workbox-precaching';
 import { NavigationRoute, registerRoute } from 'workbox-routing';
+import { deleteUnknownCaches, OWN_CACHE_PREFIX } from './cache-owner.ts';
 
 declare const self: ServiceWorkerGlobalScope;
 
 /** Cache names carry the app's name and the shell format's version (bump on a change of layout). */
 export const SHELL_CACHE_DETAILS = {
-  prefix: 'joulepath',
+  // Workbox joins prefix and name with "-": every name starts with OWN_CACHE_PREFIX ("joulepath-").
+  prefix: OWN_CACHE_PREFIX.slice(0, -1),
   precache: 'shell-v1',
   apply(): void {
     setCacheNameDetails({ prefix: this.prefix, precache: this.precache, runtime: 'runtime-v1' });
@@ -26,9 +28,10 @@ export function routeNavigationsToShell(): void {
   registerRoute(new NavigationRoute(createHandlerBoundToURL('index.html')));
 }
 
-/** On activation, delete caches this worker does not use (older shells, older layouts). */
-export async function deleteUnknownCaches(): Promise<void> {
-  const keep = new Set([cacheNames.precache, cacheNames.runtime]);
-  const names = await self.caches.keys();
-  await Promise.all(names.filter((name) => !keep.has(name)).map((name) => self.caches.delete(name)));
+/**
+ * On activation, delete this app's caches the worker does not use (older shells, older layouts);
+ * caches of other apps on the same origin stay (cache-owner.ts).
+ */
+export async function deleteOwnUnusedCaches(): Promise<void> {
+  await deleteUnknownCaches(self.caches, [cacheNames.precache, cacheNames.runtime], OWN_CACHE_PREFIX);
 }

@@ -10,7 +10,7 @@
 /// <reference lib="webworker" />
 import { precacheAndRoute } from 'workbox-precaching';
 import type { PrecacheEntry } from 'workbox-precaching';
-import { deleteUnknownCaches, routeNavigationsToShell, SHELL_CACHE_DETAILS } from './routes.ts';
+import { deleteOwnUnusedCaches, routeNavigationsToShell, SHELL_CACHE_DETAILS } from './routes.ts';
 import { isSkipWaitingMessage } from './messages.ts';
 
 declare const self: ServiceWorkerGlobalScope & { __WB_MANIFEST: (string | PrecacheEntry)[] };
@@ -20,7 +20,7 @@ precacheAndRoute(self.__WB_MANIFEST);
 routeNavigationsToShell();
 
 self.addEventListener('activate', (event) => {
-  event.waitUntil(deleteUnknownCaches());
+  event.waitUntil(deleteOwnUnusedCaches());
 });
 
 self.addEventListener('message', (event) => {

@@ -5,9 +5,15 @@ import './styles.css';
 import './print.css';
 import { startStorage } from './storage/session.ts';
 import { registerServiceWorker } from './sw-register.ts';
+import { framedByAnotherOrigin, showFramedNotice } from './frame-guard.ts';
 
 const root = document.getElementById('app');
 if (!root) throw new Error('The page has no #app element.');
-render(<App />, root);
-startStorage();
-void registerServiceWorker();
+if (framedByAnotherOrigin(window as unknown as Parameters<typeof framedByAnotherOrigin>[0])) {
+  // Inside another origin's frame: no app, no storage, no service worker (web/frame-guard.ts).
+  showFramedNotice(root, window.location.href);
+} else {
+  render(<App />, root);
+  startStorage();
+  void registerServiceWorker();
+}

@@ -30,6 +30,7 @@ const BAD_FILES: [string, Buffer, RegExp][] = [
   ['duplicated ids', Buffer.from(envelope({ ...project, elements: [{ id: 'bank', kind: 'battery' }, { id: 'bank', kind: 'dc-load', from: 'bank' }] })), /Two elements share the id "bank"/],
   ['UTF-16 text with a byte-order mark', Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(envelope(project), 'utf16le')]), /UTF-16/],
   ['deep nesting', Buffer.from(`{"format":"joulepath-project","x":${'['.repeat(3000)}${']'.repeat(3000)}}`), /levels deep/],
+  ['a key longer than 200 characters', Buffer.from(envelope({ ...project, elements: [{ id: 'bank', kind: 'battery', voltage: 48, ['k'.repeat(201)]: 1 }] })), /keys are at most 200 characters/],
   ['too many elements', Buffer.from(envelope({ ...project, elements: Array.from({ length: 2001 }, (_, i) => ({ id: `e${i}`, kind: 'dc-load', from: 'bank' })) })), /more than 2000 elements/],
 ];
 

@@ -132,6 +132,13 @@ describe.skipIf(skipWithout('chromium'))('offline use (service worker, stored pr
   it('shows the update prompt for a new build, keeps the data, and reloads only when asked', async () => {
     const storedBefore = await dumpStore(page);
     expect(storedBefore).not.toBe('[]');
+    // Another app on the same origin keeps its offline copy when our new worker takes over; an old
+    // cache of ours goes (issue 15, point 11).
+    // (Page code as a string: this file is type-checked without the DOM library.)
+    await page.evaluate(`(async () => {
+      await (await caches.open('other-app-v1')).put('/other-app/index.html', new Response('other app'));
+      await (await caches.open('joulepath-shell-v0-old-layout')).put('/old.html', new Response('old shell'));
+    })()`);
     await app!.redeploy({ define: { __JOULEPATH_VERSION__: JSON.stringify('0.1.0-next') } });
     // The browser checks for a new service worker on navigation.
     await page.reload({ waitUntil: 'load' });
@@ -151,6 +158,13 @@ describe.skipIf(skipWithout('chromium'))('offline use (service worker, stored pr
     await expect.poll(() => page.getByTestId('storage-details').innerText()).toContain('version 0.1.0-next');
     expect(await page.getByTestId('update-prompt').count()).toBe(0);
     expect(await dumpStore(page)).toBe(storedBefore);
+    // The new worker has activated (it deleted our old cache) and left the other app's alone.
+    const cacheKeys = async () => (await page.evaluate('caches.keys()')) as string[];
+    await expect.poll(cacheKeys).not.toContain('joulepath-shell-v0-old-layout');
+    const keys = await cacheKeys();
+    expect(keys).toContain('other-app-v1');
+    expect(await page.evaluate(`caches.open('other-app-v1').then((c) => c.match('/other-app/index.html')).then((r) => r?.text())`)).toBe('other app');
+    expect(keys.some((k) => k.startsWith('joulepath-shell-v1-'))).toBe(true);
     expect(errors).toEqual([]);
   });
 });

@@ -97,6 +97,7 @@ describe('bad files are refused with the reason', () => {
     ['a prototype key', envelope({ ...riverside, elements: [{ id: 'a', kind: 'battery', prototype: 1 }] }), /key named "prototype"/],
     ['deep nesting', `{"format":"joulepath-project","deep":${'['.repeat(5000)}${']'.repeat(5000)}}`, /more than 32 levels deep/],
     ['too many elements', envelope({ ...riverside, elements: Array.from({ length: IMPORT_LIMITS.maxElements + 1 }, (_, i) => ({ id: `e${i}`, kind: 'dc-load' })) }), /more than 2000 elements/],
+    ['a key longer than 200 characters', envelope({ ...riverside, elements: [{ id: 'a', kind: 'battery', ['k'.repeat(IMPORT_LIMITS.maxKeyLength + 1)]: 1 }] }), /keys are at most 200 characters/],
     ['a very long text', envelope({ ...riverside, name: 'x'.repeat(IMPORT_LIMITS.maxStringLength + 1) }), /characters long/],
     ['a bad project id in the envelope', envelope(riverside, { projectId: '../../etc' }), /projectId must be letters/],
     ['UTF-16 text', new Uint8Array([0xff, 0xfe, ...Array.from(enc('{}')).flatMap((b) => [b, 0])]), /UTF-16/],

@@ -31,6 +31,7 @@ import {
   insertAfter,
   insertBefore,
   lastChange,
+  roomForElements,
   lastValidResult,
   moveDownstream,
   moveUpstream,
@@ -330,6 +331,11 @@ const ChainEditorView = memo(function ChainEditorView({
   const openChooser = (op: AddOperation, opener: EventTarget | null) => {
     if (!selected) return;
     refused.value = null;
+    // At the project file's element limit nothing is offered: the reason is shown instead.
+    if (!run(() => roomForElements(1)).ok) {
+      chooser.value = null;
+      return;
+    }
     chooserOpener.current = opener instanceof HTMLElement ? opener : null;
     if (chooser.value?.op === op && chooser.value.target === selected) {
       chooser.value = null;

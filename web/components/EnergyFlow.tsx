@@ -35,7 +35,7 @@ import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state
 import { openCount } from '../state/editor.ts';
 import { FLOW_PALETTES, PAPER_THEME, type FlowPalette, type PaintKey } from './flow-palette.ts';
 import { lagOffscreen, useIdleTask, type BoxRef } from './lag.ts';
-import { blockLayer, branchLayer, figureLayer, writeBlock, writeBranch, writeFigure, type BlockSpec, type BranchSpec, type FigureSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
+import { blockLayer, branchLayer, figureLayer, writeBlock, writeBranch, writeFigure, type BlockSpec, type BranchSpec, type FigureSpec, type PartWords, writeBlockWords, writeBranchWords, makeXmlSafe } from './flow-draw.ts';
 import './EnergyFlow.css';
 
 export { FLOW_PALETTES } from './flow-palette.ts';
@@ -450,6 +450,8 @@ function svgText(svg: SVGSVGElement, title: string, summary: string | null): str
     head.append(el('text', { x: '12', y: String(42 + rows * EXPORT_ROW), 'font-size': '11', fill: paper.colours.ink }, summary));
   }
   copy.append(head, body);
+  // Names may hold characters XML 1.0 forbids (a control character pasted or imported): left out.
+  makeXmlSafe(copy);
   return `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
 }
 

@@ -11,6 +11,7 @@
  * What a part says rather than shows (its accessible name, a branch's watts) is written by
  * `describe`, which EnergyFlow.tsx runs when the page is idle after the paint.
  */
+import { xmlSafeText } from './xml-text.ts';
 
 const NS = 'http://www.w3.org/2000/svg';
 
@@ -324,4 +325,24 @@ export function writeFigure(f: Figure, s: FigureSpec): void {
     'data-link': s.key,
   });
   writeText(f.text, s.text);
+}
+
+/** Make every text and attribute value under `root` fit for an XML 1.0 file (xml-text.ts), in place. */
+export function makeXmlSafe(root: Element): void {
+  const visit = (node: Node) => {
+    if (node.nodeType === 3 /* text */ || node.nodeType === 4 /* CDATA */) {
+      const safe = xmlSafeText(node.nodeValue ?? '');
+      if (safe !== node.nodeValue) node.nodeValue = safe;
+      return;
+    }
+    if (node.nodeType === 1 /* element */) {
+      const el = node as Element;
+      for (const attr of [...el.attributes]) {
+        const safe = xmlSafeText(attr.value);
+        if (safe !== attr.value) el.setAttribute(attr.name, safe);
+      }
+    }
+    for (const child of [...node.childNodes]) visit(child);
+  };
+  visit(root);
 }

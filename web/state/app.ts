@@ -7,19 +7,11 @@
 import { computed, signal } from '@preact/signals';
 import { demoProjects } from '../../core/demos/index.ts';
 import { draft, draftOrigin, loadProject, type DraftProject } from './editor.ts';
-import { importFile, openLatestStored, openStored, storedIdFromHash } from '../storage/session.ts';
+import { importFile, openLatestStored, openStored, storageNotice, storedIdFromHash } from '../storage/session.ts';
+import { addressProblem, demoIdFromHash, hashForDemo } from './address.ts';
 
-const HASH_PREFIX = '#demo=';
-
-/** The demo named by the address (#demo=<id>), or undefined. */
-export function demoIdFromHash(hash: string): string | undefined {
-  const fromHash = hash.startsWith(HASH_PREFIX) ? decodeURIComponent(hash.slice(HASH_PREFIX.length)) : '';
-  return demoProjects.some((d) => d.id === fromHash) ? fromHash : undefined;
-}
-
-export function hashForDemo(id: string): string {
-  return `${HASH_PREFIX}${encodeURIComponent(id)}`;
-}
+// The hash parsing is pure (address.ts); re-exported for the page's modules that read it from here.
+export { addressProblem, demoIdFromHash, hashForDemo } from './address.ts';
 
 /** Set when an opened file could not be read as a project at all (nothing to edit). */
 export const fileReadError = signal<{ fileName: string; message: string } | null>(null);
@@ -73,6 +65,13 @@ function openFirstDemo(): void {
 /** Open what the address names, or the first demo when nothing is open yet. */
 export function openFromAddress(): void {
   const hash = globalThis.location?.hash ?? '';
+  // A damaged address opens the app with a message, never a blank page.
+  const problem = addressProblem(hash);
+  if (problem) {
+    storageNotice.value = problem;
+    if (!draft.value) void openLatestStored().then((ok) => ok || openFirstDemo());
+    return;
+  }
   // A stored project (#project=<id>); with nothing named, the project saved last, else the first demo.
   const storedId = storedIdFromHash(hash);
   if (storedId) {

@@ -11,11 +11,15 @@
  *   be in the draft; their problems are listed and the last valid results stay, marked out of date.
  * - Every change goes through `edit()`, which records it for undo. Typing in one field coalesces
  *   into one undo step.
+ * - No edit makes a project the import would refuse (web/storage/limits.ts: text lengths, number
+ *   sizes, nesting, values and elements): a field edit past a limit is refused at the field, a chain
+ *   operation past one is refused with a message, and the draft stays as it was.
  */
 import { batch, computed, effect, signal } from '@preact/signals';
 import { solveProject, validateProject, type SolveOutcome } from '../../core/solve/index.ts';
 import type { Problem } from '../../core/errors.ts';
 import type { SolveResult } from '../../core/result.ts';
+import { DEPTH_IN_FILE, ENVELOPE_VALUES, FILE_LIMITS, limitWords, scanLimits, withSuffix, type LimitIssue } from '../storage/limits.ts';
 
 /** One element as edited: plain data, checked by the engine on every solve. */
 export type DraftElement = { id: string; kind: string; from?: string; name?: string } & Record<string, unknown>;
@@ -141,11 +145,19 @@ export function edit(
   label: string,
   change: (project: DraftProject) => DraftProject | void,
   options: { coalesce?: string; select?: string | null } = {},
-): void {
+): string | null {
   const current = draft.value;
-  if (!current) return;
+  if (!current) return 'No project is open.';
   const copy = clone(current);
-  commit(current, change(copy) ?? copy, label, options);
+  const next = change(copy) ?? copy;
+  // A change that would make a project the import refuses is not taken in (limits.ts).
+  const limit = newLimitIssue(current, next);
+  if (limit) {
+    lastChange.value = `Not done: ${limit.where}${limit.words}`;
+    return lastChange.value;
+  }
+  commit(current, next, label, options);
+  return null;
 }
 
 /**
@@ -234,6 +246,104 @@ export function setAt(target: Record<string, unknown>, path: string, value: unkn
   }
 }
 
+// ---------- the project file's limits ----------
+
+/** A limit of the project file passed by a draft: where (element id, field path) and what. */
+interface DraftLimitIssue {
+  elementId: string;
+  path: string;
+  issue: LimitIssue | { kind: 'elements' } | { kind: 'id'; id: string } | { kind: 'project-name'; length: number };
+  /** "Inverter 2, loss: " (empty for the project's own fields). */
+  where: string;
+  words: string;
+}
+
+/** Each element's own scan (count and first issue), kept by identity: drafts share unchanged elements. */
+const elementScans = new WeakMap<DraftElement, ReturnType<typeof scanLimits>>();
+
+function scanElement(e: DraftElement): ReturnType<typeof scanLimits> {
+  let scan = elementScans.get(e);
+  if (!scan) {
+    scan = scanLimits(e, { depth: DEPTH_IN_FILE.element });
+    elementScans.set(e, scan);
+  }
+  return scan;
+}
+
+const pathWords = (path: (string | number)[]) => path.join('.');
+
+/**
+ * The first limit of the project file (web/storage/limits.ts, the import's own) that a draft passes,
+ * or null: what `exportText` writes of this draft is then a file `parseImportText` reads.
+ */
+export function draftLimitIssue(project: DraftProject): DraftLimitIssue | null {
+  if (project.elements.length > FILE_LIMITS.maxElements) {
+    return { elementId: 'project', path: 'elements', issue: { kind: 'elements' }, where: '', words: elementsWords(project.elements.length) };
+  }
+  const { elements, ...own } = project;
+  const ownScan = scanLimits(own, { depth: DEPTH_IN_FILE.project });
+  if (ownScan.issue) {
+    return { elementId: 'project', path: pathWords(ownScan.issue.path), issue: ownScan.issue, where: '', words: limitWords(ownScan.issue) };
+  }
+  if (typeof project.name === 'string' && project.name.length > FILE_LIMITS.maxProjectNameLength) {
+    const issue = { kind: 'project-name', length: project.name.length } as const;
+    return { elementId: 'project', path: 'name', issue, where: '', words: `a project name holds at most ${FILE_LIMITS.maxProjectNameLength} characters (this one has ${project.name.length})` };
+  }
+  let count = ENVELOPE_VALUES + ownScan.count;
+  for (const e of elements) {
+    const scan = scanElement(e);
+    if (scan.issue) {
+      const path = pathWords(scan.issue.path);
+      return { elementId: e.id, path, issue: scan.issue, where: `${elementName(project, e.id)}${path ? `, ${path}` : ''}: `, words: limitWords(scan.issue) };
+    }
+    if (e.id.length > FILE_LIMITS.maxIdLength) {
+      return { elementId: e.id, path: 'id', issue: { kind: 'id', id: e.id }, where: `${elementName(project, e.id)}: `, words: `its id is longer than ${FILE_LIMITS.maxIdLength} characters` };
+    }
+    count += scan.count;
+  }
+  if (count > FILE_LIMITS.maxValues) {
+    const issue: LimitIssue = { kind: 'count', path: [] };
+    return { elementId: 'project', path: '', issue, where: '', words: limitWords(issue) };
+  }
+  return null;
+}
+
+function elementsWords(count: number): string {
+  return `a project holds at most ${FILE_LIMITS.maxElements} elements (this would make ${count}); remove some first, or plan the rest of the chain as a second project`;
+}
+
+/**
+ * The limit `next` passes that `current` did not pass at the same place, or null. A project stored
+ * before a limit existed can still be edited (its old excess is not the edit's doing), but never
+ * made worse at a new place.
+ */
+function newLimitIssue(current: DraftProject, next: DraftProject): DraftLimitIssue | null {
+  const after = draftLimitIssue(next);
+  if (!after) return null;
+  const before = draftLimitIssue(current);
+  const same = before && before.elementId === after.elementId && before.path === after.path && before.issue.kind === after.issue.kind;
+  if (same && !(after.issue.kind === 'elements' && next.elements.length > current.elements.length)) return null;
+  return after;
+}
+
+/** Whether `added` more elements fit in the open project (a chain operation asks before it adds). */
+function roomFor(project: DraftProject, added: number): OperationOutcome {
+  const count = project.elements.length + added;
+  if (count <= FILE_LIMITS.maxElements) return { ok: true };
+  const at = project.elements.length >= FILE_LIMITS.maxElements;
+  return refuse(
+    at
+      ? `Not added: ${elementsWords(count)}.`
+      : `Not added: this adds ${added} elements and ${elementsWords(count)}.`,
+  );
+}
+
+/** Whether `added` more elements fit in the open project; a refusal says so (the chain editor asks before it offers kinds). */
+export function roomForElements(added = 1): OperationOutcome {
+  const p = draft.value;
+  return p ? roomFor(p, added) : refuse('No project is open.');
+}
+
 // ---------- field edits ----------
 
 function fieldKey(elementId: string, path: string): string {
@@ -293,6 +403,13 @@ export function setField(elementId: string, path: string, value: unknown, label?
     target = copy;
   }
   setAt(target, path, value);
+  // What the import would refuse never enters the draft (limits.ts), before anything is solved.
+  const limit = newLimitIssue(current, candidate);
+  if (limit) {
+    const message = limit.words;
+    setFieldError(elementId, path, message);
+    return message;
+  }
   // Solve the candidate once: when it solves, no field of it is invalid (the solve validates it
   // first) and the outcome is kept for `outcome`, so a keystroke validates the project once, not twice.
   const solved = solveOnce(candidate);
@@ -329,8 +446,13 @@ export function rootOf(project: DraftProject): DraftElement | undefined {
 export function freshId(project: DraftProject, base: string, taken: Set<string> = new Set()): string {
   const used = new Set([...project.elements.map((e) => e.id), ...taken]);
   const stem = base.replace(/-\d+$/, '') || 'stage';
-  if (!used.has(stem)) return stem;
-  for (let n = 2; ; n++) if (!used.has(`${stem}-${n}`)) return `${stem}-${n}`;
+  if (!used.has(stem) && stem.length <= FILE_LIMITS.maxIdLength) return stem;
+  // An id stays within the file's limit, however long the one it was made from.
+  for (let n = 2; ; n++) {
+    const suffix = `-${n}`;
+    const id = `${stem.slice(0, FILE_LIMITS.maxIdLength - suffix.length)}${suffix}`;
+    if (!used.has(id)) return id;
+  }
 }
 
 /** The ids of an element and everything downstream of it. */
@@ -362,9 +484,11 @@ function withFreshId(project: DraftProject, element: DraftElement): DraftElement
 /** Start a new project from scratch with its source. */
 export function newProject(name: string, source: DraftElement): void {
   const { from: _from, ...rest } = source;
+  // A project name the file holds (the new-chain box has no length limit of its own).
+  const named = withSuffix(name, '', FILE_LIMITS.maxProjectNameLength);
   loadProject(
-    { format: 'joulepath-project', version: 1, name, elements: [rest as DraftElement] },
-    { kind: 'new', title: name },
+    { format: 'joulepath-project', version: 1, name: named, elements: [rest as DraftElement] },
+    { kind: 'new', title: named },
   );
   selectedId.value = source.id;
 }
@@ -374,11 +498,13 @@ export function addBranch(parentId: string, element: DraftElement): OperationOut
   const p = draft.value;
   if (!p) return refuse('No project is open.');
   if (!p.elements.some((e) => e.id === parentId)) return refuse(`There is no element "${parentId}".`);
+  const room = roomFor(p, 1);
+  if (!room.ok) return room;
   const added = { ...withFreshId(p, element), from: parentId };
-  edit(`Added ${added.name || added.id}`, (x) => {
+  const notDone = edit(`Added ${added.name || added.id}`, (x) => {
     x.elements.push(added);
   }, { select: added.id });
-  return { ok: true };
+  return notDone ? { ok: false, message: notDone } : { ok: true };
 }
 
 /**
@@ -389,13 +515,15 @@ export function insertAfter(afterId: string, element: DraftElement): OperationOu
   const p = draft.value;
   if (!p) return refuse('No project is open.');
   if (!p.elements.some((e) => e.id === afterId)) return refuse(`There is no element "${afterId}".`);
+  const room = roomFor(p, 1);
+  if (!room.ok) return room;
   const added = { ...withFreshId(p, element), from: afterId };
-  edit(`Inserted ${added.name || added.id} after ${elementName(p, afterId)}`, (x) => {
+  const notDone = edit(`Inserted ${added.name || added.id} after ${elementName(p, afterId)}`, (x) => {
     for (const e of x.elements) if (e.from === afterId) e.from = added.id;
     const at = x.elements.findIndex((e) => e.id === afterId);
     x.elements.splice(at + 1, 0, added);
   }, { select: added.id });
-  return { ok: true };
+  return notDone ? { ok: false, message: notDone } : { ok: true };
 }
 
 /**
@@ -408,14 +536,16 @@ export function insertBefore(beforeId: string, element: DraftElement): Operation
   const target = p.elements.find((e) => e.id === beforeId);
   if (!target) return refuse(`There is no element "${beforeId}".`);
   if (target.from === undefined) return refuse('Nothing can go before the source: the chain starts there.');
+  const room = roomFor(p, 1);
+  if (!room.ok) return room;
   const added = { ...withFreshId(p, element), from: target.from };
-  edit(`Inserted ${added.name || added.id} before ${elementName(p, beforeId)}`, (x) => {
+  const notDone = edit(`Inserted ${added.name || added.id} before ${elementName(p, beforeId)}`, (x) => {
     const t = x.elements.find((e) => e.id === beforeId)!;
     t.from = added.id;
     const at = x.elements.findIndex((e) => e.id === beforeId);
     x.elements.splice(at, 0, added);
   }, { select: added.id });
-  return { ok: true };
+  return notDone ? { ok: false, message: notDone } : { ok: true };
 }
 
 /**
@@ -435,11 +565,11 @@ export function removeElement(id: string): OperationOutcome {
         : 'A project keeps its source: start a new project to begin from another one.',
     );
   }
-  edit(`Removed ${elementName(p, id)}`, (x) => {
+  const notDone = edit(`Removed ${elementName(p, id)}`, (x) => {
     for (const e of x.elements) if (e.from === id) e.from = target.from;
     x.elements = x.elements.filter((e) => e.id !== id);
   }, { select: target.from ?? null });
-  return { ok: true };
+  return notDone ? { ok: false, message: notDone } : { ok: true };
 }
 
 /** Remove an element and everything downstream of it. */
@@ -450,10 +580,10 @@ export function removeBranch(id: string): OperationOutcome {
   if (!target) return refuse(`There is no element "${id}".`);
   if (target.from === undefined) return refuse('The source is the whole chain: start a new project instead.');
   const gone = new Set(subtreeIds(p, id));
-  edit(`Removed ${elementName(p, id)} and the ${gone.size - 1} element(s) it fed`, (x) => {
+  const notDone = edit(`Removed ${elementName(p, id)} and the ${gone.size - 1} element(s) it fed`, (x) => {
     x.elements = x.elements.filter((e) => !gone.has(e.id));
   }, { select: target.from });
-  return { ok: true };
+  return notDone ? { ok: false, message: notDone } : { ok: true };
 }
 
 /**
@@ -467,6 +597,8 @@ export function duplicate(id: string): OperationOutcome {
   if (!target) return refuse(`There is no element "${id}".`);
   if (target.from === undefined) return refuse('A project has one source: the source cannot be duplicated.');
   const ids = subtreeIds(p, id);
+  const room = roomFor(p, ids.length);
+  if (!room.ok) return room;
   const taken = new Set<string>();
   const rename = new Map<string, string>();
   for (const old of ids) {
@@ -478,14 +610,14 @@ export function duplicate(id: string): OperationOutcome {
     const e = clone(p.elements.find((x) => x.id === old)!);
     e.id = rename.get(old)!;
     if (e.from !== undefined && rename.has(e.from)) e.from = rename.get(e.from)!;
-    if (old === id && typeof e.name === 'string' && e.name) e.name = `${e.name} (copy)`;
+    if (old === id && typeof e.name === 'string' && e.name) e.name = withSuffix(e.name, ' (copy)', FILE_LIMITS.maxStringLength);
     return e;
   });
-  edit(`Duplicated ${elementName(p, id)}`, (x) => {
+  const notDone = edit(`Duplicated ${elementName(p, id)}`, (x) => {
     const last = Math.max(...ids.map((i) => x.elements.findIndex((e) => e.id === i)));
     x.elements.splice(last + 1, 0, ...copies);
   }, { select: rename.get(id)! });
-  return { ok: true };
+  return notDone ? { ok: false, message: notDone } : { ok: true };
 }
 
 /**
@@ -503,7 +635,7 @@ export function moveUpstream(id: string): OperationOutcome {
   if (childrenOf(p, a.id).length !== 1) {
     return refuse(`${elementName(p, a.id)} feeds other branches too: swapping would move them. Move the whole branch instead.`);
   }
-  edit(`Moved ${elementName(p, id)} before ${elementName(p, a.id)}`, (x) => {
+  const notDone = edit(`Moved ${elementName(p, id)} before ${elementName(p, a.id)}`, (x) => {
     const xa = x.elements.find((e) => e.id === a.id)!;
     const xb = x.elements.find((e) => e.id === id)!;
     for (const e of x.elements) if (e.from === id) e.from = a.id;
@@ -514,7 +646,7 @@ export function moveUpstream(id: string): OperationOutcome {
     x.elements[ia] = xb;
     x.elements[ib] = xa;
   }, { select: id });
-  return { ok: true };
+  return notDone ? { ok: false, message: notDone } : { ok: true };
 }
 
 /** Move a stage one step towards the loads: it swaps places with the one element it feeds. */
@@ -544,14 +676,14 @@ export function reorderBranch(id: string, direction: -1 | 1): OperationOutcome {
   const at = siblings.findIndex((e) => e.id === id);
   const other = siblings[at + direction];
   if (!other) return refuse(`${elementName(p, id)} is already the ${direction < 0 ? 'first' : 'last'} branch.`);
-  edit(`Moved ${elementName(p, id)} ${direction < 0 ? 'up' : 'down'} among its branches`, (x) => {
+  const notDone = edit(`Moved ${elementName(p, id)} ${direction < 0 ? 'up' : 'down'} among its branches`, (x) => {
     const i = x.elements.findIndex((e) => e.id === id);
     const j = x.elements.findIndex((e) => e.id === other.id);
     const [ei, ej] = [x.elements[i]!, x.elements[j]!];
     x.elements[i] = ej;
     x.elements[j] = ei;
   }, { select: id });
-  return { ok: true };
+  return notDone ? { ok: false, message: notDone } : { ok: true };
 }
 
 /** Give a different feeder to an element (move a branch to another point of the chain). */
@@ -562,10 +694,10 @@ export function reattach(id: string, newFeederId: string): OperationOutcome {
   if (!target || target.from === undefined) return refuse('The source has no feeder.');
   if (subtreeIds(p, id).includes(newFeederId)) return refuse(`${elementName(p, newFeederId)} is downstream of ${elementName(p, id)}: that would make a loop.`);
   if (!p.elements.some((e) => e.id === newFeederId)) return refuse(`There is no element "${newFeederId}".`);
-  edit(`Moved ${elementName(p, id)} to be fed from ${elementName(p, newFeederId)}`, (x) => {
+  const notDone = edit(`Moved ${elementName(p, id)} to be fed from ${elementName(p, newFeederId)}`, (x) => {
     x.elements.find((e) => e.id === id)!.from = newFeederId;
   }, { select: id });
-  return { ok: true };
+  return notDone ? { ok: false, message: notDone } : { ok: true };
 }
 
 // ---------- solution ----------

@@ -14,27 +14,19 @@ import * as z from 'zod/mini';
 import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
 import { fileNameStem } from '../format/labels.ts';
+import { FILE_LIMITS, FORBIDDEN_KEYS, scanLimits } from './limits.ts';
 
 export const EXPORT_FORMAT = 'joulepath-export';
 export const EXPORT_VERSION = 1;
 /** The project schema version this build reads (core/model.ts). */
 export const PROJECT_VERSION = 1;
 
-/** Limits of an import (each refusal names the one that was passed). */
-export const IMPORT_LIMITS = {
-  /** Largest file read at all; a 200-stage project is about 100 kB. */
-  maxBytes: 5 * 1024 * 1024,
-  maxElements: 2000,
-  /** Objects and lists inside one another (a project needs about 6). */
-  maxDepth: 32,
-  /** Every value in the file counted (numbers, strings, objects …). */
-  maxValues: 200_000,
-  maxStringLength: 20_000,
-  /** No quantity in a power chain comes near this in SI units (1 PW, 1 PJ …). */
-  maxMagnitude: 1e15,
-} as const;
-
-export const FORBIDDEN_KEYS: readonly string[] = ['__proto__', 'constructor', 'prototype'];
+/**
+ * Limits of an import (each refusal names the one that was passed). They live in limits.ts, which the
+ * editor reads too, so no edit can make a project this import refuses.
+ */
+export const IMPORT_LIMITS = FILE_LIMITS;
+export { FORBIDDEN_KEYS };
 
 /** The export envelope (documented in web/storage/README.md). */
 export interface ExportEnvelope {
@@ -104,39 +96,35 @@ function pathText(path: readonly (string | number)[]): string {
 
 /**
  * Walk the parsed value without recursion (so no file can exhaust the stack): depth, count, keys,
- * numbers and string lengths. Returns the first reason to refuse, or null.
+ * numbers and string lengths (limits.ts). Returns the first reason to refuse, or null.
  */
 export function scanValue(root: unknown): string | null {
-  const stack: { value: unknown; path: (string | number)[] }[] = [{ value: root, path: [] }];
-  let count = 0;
-  while (stack.length) {
-    const { value, path } = stack.pop()!;
-    if (++count > IMPORT_LIMITS.maxValues) return `The file holds more than ${IMPORT_LIMITS.maxValues} values; that is not a project this app wrote.`;
-    if (path.length > IMPORT_LIMITS.maxDepth) return `The file nests objects and lists more than ${IMPORT_LIMITS.maxDepth} levels deep (at ${pathText(path.slice(0, 6))}…).`;
-    if (typeof value === 'number') {
-      if (!Number.isFinite(value)) return `The number at ${pathText(path)} is too large to be read (it overflows to infinity).`;
-      if (Math.abs(value) > IMPORT_LIMITS.maxMagnitude) return `The number at ${pathText(path)} (${value}) is larger than any value in a power chain (limit ${IMPORT_LIMITS.maxMagnitude}).`;
-    } else if (typeof value === 'string') {
-      if (value.length > IMPORT_LIMITS.maxStringLength) return `The text at ${pathText(path)} is ${value.length} characters long (limit ${IMPORT_LIMITS.maxStringLength}).`;
-    } else if (Array.isArray(value)) {
-      value.forEach((v, i) => stack.push({ value: v, path: [...path, i] }));
-    } else if (typeof value === 'object' && value !== null) {
-      for (const key of Object.keys(value)) {
-        if (FORBIDDEN_KEYS.includes(key)) {
-          return `The file holds a key named "${key}" (at ${pathText(path)}), which could alter the app's own objects; such files are refused.`;
-        }
-        stack.push({ value: (value as Record<string, unknown>)[key], path: [...path, key] });
-      }
-    }
+  const { issue } = scanLimits(root);
+  if (!issue) return null;
+  const { path } = issue;
+  switch (issue.kind) {
+    case 'count':
+      return `The file holds more than ${IMPORT_LIMITS.maxValues} values; that is not a project this app wrote.`;
+    case 'depth':
+      return `The file nests objects and lists more than ${IMPORT_LIMITS.maxDepth} levels deep (at ${pathText(path.slice(0, 6))}…).`;
+    case 'infinite':
+      return `The number at ${pathText(path)} is too large to be read (it overflows to infinity).`;
+    case 'magnitude':
+      return `The number at ${pathText(path)} (${issue.value}) is larger than any value in a power chain (limit ${IMPORT_LIMITS.maxMagnitude}).`;
+    case 'string':
+      return `The text at ${pathText(path)} is ${issue.length} characters long (limit ${IMPORT_LIMITS.maxStringLength}).`;
+    case 'forbidden-key':
+      return `The file holds a key named "${issue.key}" (at ${pathText(path)}), which could alter the app's own objects; such files are refused.`;
+    case 'key-length':
+      return `The file holds a key ${issue.key.length} characters long (at ${pathText(path)}, starting "${issue.key.slice(0, 40)}…"); keys are at most ${IMPORT_LIMITS.maxKeyLength} characters.`;
   }
-  return null;
 }
 
 const text = (error: string) => z.string({ error });
 
 const elementShape = z.looseObject({
-  id: text('must be text').check(z.minLength(1, 'must not be empty'), z.maxLength(100, 'must be at most 100 characters')),
-  kind: text('must be text').check(z.minLength(1, 'must not be empty'), z.maxLength(60, 'must be at most 60 characters')),
+  id: text('must be text').check(z.minLength(1, 'must not be empty'), z.maxLength(FILE_LIMITS.maxIdLength, `must be at most ${FILE_LIMITS.maxIdLength} characters`)),
+  kind: text('must be text').check(z.minLength(1, 'must not be empty'), z.maxLength(FILE_LIMITS.maxKindLength, `must be at most ${FILE_LIMITS.maxKindLength} characters`)),
   from: z.optional(text('must be text (the id of the feeding element)')),
   name: z.optional(text('must be text')),
 });
@@ -144,7 +132,7 @@ const elementShape = z.looseObject({
 const projectShape = z.looseObject({
   format: z.literal('joulepath-project', { error: 'must be "joulepath-project"' }),
   version: z.number({ error: 'must be a number' }),
-  name: text('must be text').check(z.maxLength(200, 'must be at most 200 characters')),
+  name: text('must be text').check(z.maxLength(FILE_LIMITS.maxProjectNameLength, `must be at most ${FILE_LIMITS.maxProjectNameLength} characters`)),
   description: z.optional(text('must be text')),
   elements: z
     .array(elementShape, { error: 'must be a list of elements' })

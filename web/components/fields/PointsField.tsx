@@ -5,6 +5,7 @@
  */
 import { valueAt, type PointsSpec } from '../../editor/fields.ts';
 import { NumberField } from './NumberField.tsx';
+import { setFieldError } from '../../state/editor.ts';
 import { FieldNotes, clearFieldErrors, editOwner, fieldId, useFieldMessage, type FieldOwner } from './common.tsx';
 
 export function PointsField({ owner, spec }: { owner: FieldOwner; spec: PointsSpec }) {
@@ -16,12 +17,14 @@ export function PointsField({ owner, spec }: { owner: FieldOwner; spec: PointsSp
 
   const setRows = (label: string, next: Record<string, unknown>[]) => {
     clearFieldErrors(owner.id, spec.path);
-    editOwner(owner.id, label, (data) => {
+    const refused = editOwner(owner.id, label, (data) => {
       const keys = spec.path.split('.');
       let at = data;
       for (const k of keys.slice(0, -1)) at = (at[k] ??= {}) as typeof data;
       at[keys[keys.length - 1]!] = next;
     });
+    // Past a limit of the project file (limits.ts): the rows stay as they were, the reason at the table.
+    if (refused) setFieldError(owner.id, spec.path, refused);
   };
 
   return (

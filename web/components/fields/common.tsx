@@ -51,9 +51,12 @@ export function ownerName(owner: string): string {
   return elementName(p, owner);
 }
 
-/** Change the owner's data in one undoable step (variant switches, table rows, dependent choices). */
-export function editOwner(owner: string, label: string, change: (data: FormElement) => void): void {
-  edit(`${ownerName(owner)}: ${label}`, (p: DraftProject) => {
+/**
+ * Change the owner's data in one undoable step (variant switches, table rows, dependent choices).
+ * Returns why the change was not taken in (a limit of the project file), or null.
+ */
+export function editOwner(owner: string, label: string, change: (data: FormElement) => void): string | null {
+  return edit(`${ownerName(owner)}: ${label}`, (p: DraftProject) => {
     const target = owner === 'project' ? (p as FormElement) : p.elements.find((e) => e.id === owner);
     if (target) change(target as FormElement);
   });
