@@ -201,6 +201,36 @@ describe('a record of a newer layout is never written over (point 3)', () => {
   });
 });
 
+describe('refused writes and project switches', () => {
+  it('a project whose changes were refused reopens with them, and they are stored once writes work again', async () => {
+    const x = await createdByB('Chapel');
+    const y = await createdByB('Annex');
+    await session.openStored(x);
+    const put = IDBObjectStore.prototype.put;
+    IDBObjectStore.prototype.put = function () {
+      throw new DOMException('The quota has been exceeded.', 'QuotaExceededError');
+    };
+    try {
+      addLoad('a-x', 1);
+      await settle();
+      expect(session.saveStatus.value.state).toBe('failed');
+      await session.openStored(y);
+      await settle();
+      await session.openStored(x);
+      expect(draft.value?.elements.map((e) => e.id)).toEqual(['src', 'load-1', 'a-x']);
+      addLoad('a-x2', 2);
+      await settle();
+    } finally {
+      IDBObjectStore.prototype.put = put;
+    }
+    expect((await stored(x))?.elements.map((e) => e.id)).toEqual(['src', 'load-1']);
+    addLoad('a-x3', 3);
+    await settle();
+    expect((await stored(x))?.elements.map((e) => e.id)).toEqual(['src', 'load-1', 'a-x', 'a-x2', 'a-x3']);
+    expect(session.saveStatus.value.state).toBe('saved');
+  });
+});
+
 describe('copy names (point 4)', () => {
   it('a demo whose first save is refused (quota) keeps one " (my copy)" through the retries', async () => {
     loadProject(project('Riverside demo'), { kind: 'demo', title: 'Riverside demo', demoId: 'riverside-test' });

@@ -168,3 +168,41 @@ export function copyName(name: string, taken: Iterable<string>, label: 'copy' | 
   for (let n = 2; used.has(candidate); n++) candidate = `${base} (${label} ${n})`;
   return candidate;
 }
+
+/** Key prefix of rescue copies ("rescue:<tab id>:<project id or draft id>"). */
+export const RESCUE_KEY_PREFIX = 'rescue:';
+
+/**
+ * A rescue copy: the changes a page had not stored yet when it was hidden or left, written in one
+ * put without reading first (so it lands even when the page is torn down right after). It never
+ * replaces a project record; the next start applies it with the revision check (or keeps it as a
+ * copy) and removes it.
+ */
+export interface RescueRecord {
+  rescueVersion: 1;
+  /** The tab that wrote it (its lock tells whether it is still open). */
+  tabId: string;
+  savedAt: string;
+  /** The stored project these changes belong to, and the revision they were made on (null: none known). */
+  storedId?: string;
+  baseRevision: number | null;
+  /** Not stored yet: a demo's first changes (its copy gets " (my copy)") or a new project. */
+  demoId?: string;
+  project: DraftProject;
+}
+
+const rescueShape = z.object({
+  rescueVersion: z.literal(1),
+  tabId: z.string(),
+  savedAt: isoTime,
+  storedId: z.optional(z.string()),
+  baseRevision: z.nullable(z.int()),
+  demoId: z.optional(z.string()),
+  project: projectShape,
+});
+
+/** A rescue copy as stored, or undefined when it is not one this build reads (left alone). */
+export function readRescue(raw: unknown): RescueRecord | undefined {
+  const parsed = rescueShape.safeParse(raw, { error: issueMessage });
+  return parsed.success ? (parsed.data as RescueRecord) : undefined;
+}

@@ -31,7 +31,7 @@ import {
 } from '../state/editor.ts';
 // The file checks and their schemas load on the first import or export (outside the first-load budget).
 const fileFormat = () => import('./file-format.ts');
-import { copyName, recordName, type StoredProject } from './record.ts';
+import { RESCUE_KEY_PREFIX, copyName, readRescue, recordName, type RescueRecord, type StoredProject } from './record.ts';
 import { ProjectStore, type ListedProject, type WriteOutcome } from './store.ts';
 
 /** Longest wait between an edit and its write. */
@@ -122,7 +122,9 @@ function setAddress(id: string, push: boolean): void {
 
 // ---------- autosave ----------
 
-type Snapshot = { origin: DraftOrigin; project: DraftProject };
+/** One version of a project to write; `seq` numbers the edits of this tab (later edits, higher numbers). */
+type Snapshot = { origin: DraftOrigin; project: DraftProject; seq: number };
+let editSeq = 0;
 
 /** Edits not yet written, at most one (the latest) per project, oldest first. */
 let pending: Snapshot[] = [];
@@ -134,6 +136,10 @@ let queue: Promise<void> = Promise.resolve();
 let writing = 0;
 /** Demo / new / file origins whose first edit has been stored, and the id it got. */
 const createdFor = new WeakMap<DraftOrigin, string>();
+/** The id a not-yet-stored origin's first write uses (chosen before the write, so a rescue copy names it too). */
+const plannedFor = new WeakMap<DraftOrigin, string>();
+/** Snapshots taken by a write round and not written yet. */
+const inFlight = new Set<Snapshot>();
 /** The revision of each record this tab last loaded or wrote. */
 const known = new Map<string, number>();
 /** The origin of the draft the autosave last saw: a different one means a project was opened. */
@@ -190,7 +196,7 @@ function markEdited(): void {
     setConflict({ ...c, mine: project });
     return;
   }
-  pending = [...pending.filter((p) => !sameProject(p.origin, origin)), { origin, project }];
+  pending = [...pending.filter((p) => !sameProject(p.origin, origin)), { origin, project, seq: ++editSeq }];
   const s = saveStatus.peek().state;
   // Set once per batch of edits (a new object on every keystroke would redraw the save line each time).
   if (s !== 'failed' && s !== 'conflict' && s !== 'pending') saveStatus.value = { state: 'pending' };
@@ -207,9 +213,16 @@ export function flush(): Promise<void> {
   if (snaps.length) {
     pending = [];
     writing++;
+    for (const snap of snaps) inFlight.add(snap);
     queue = queue
       .then(async () => {
-        for (const snap of snaps) await write(snap);
+        for (const snap of snaps) {
+          try {
+            await write(snap);
+          } finally {
+            inFlight.delete(snap);
+          }
+        }
       })
       .catch((error: unknown) => {
         saveStatus.value = { state: 'failed', message: `the save stopped unexpectedly (${String(error)})` };
@@ -292,7 +305,9 @@ async function write(snap: Snapshot): Promise<void> {
       // The draft is renamed only once the copy is stored: a refused write and its retries keep one mark.
       project = { ...project, name: copyName(project.name, listedNames(), 'my copy') };
     }
-    outcome = await s.create(project, tabId, snap.origin.demoId !== undefined ? { demoId: snap.origin.demoId } : {});
+    let planned = plannedFor.get(snap.origin);
+    if (planned === undefined) plannedFor.set(snap.origin, (planned = globalThis.crypto.randomUUID()));
+    outcome = await s.create(project, tabId, snap.origin.demoId !== undefined ? { demoId: snap.origin.demoId, id: planned } : { id: planned });
     if (outcome.ok) {
       const name = recordName(outcome.record);
       createdFor.set(snap.origin, outcome.record.id);
@@ -306,6 +321,7 @@ async function write(snap: Snapshot): Promise<void> {
   const ms = performance.now() - t0;
   if (outcome.ok) {
     known.set(outcome.record.id, outcome.record.revision);
+    dropRescue(outcome.record.id, snap.seq);
     lastWriteMs.value = ms;
     if (!pending.some((p) => unwritten.has(p)) && isOpen(snap.origin)) saveStatus.value = { state: 'saved', savedAt: outcome.record.savedAt };
     announce({ type: 'saved', id: outcome.record.id, revision: outcome.record.revision, tabId });
@@ -338,11 +354,13 @@ function openRecord(record: StoredProject, push: boolean): void {
 
 /**
  * Open a stored project; false (with a notice) when it cannot be read. A project with an open
- * question opens with this tab's version (the question's `mine`), still waiting for the answer.
+ * question opens with this tab's version (the question's `mine`), still waiting for the answer; one
+ * whose last changes were refused opens with them (never with the older stored version).
  */
 export async function openStored(id: string, options: { updateAddress?: boolean } = {}): Promise<boolean> {
   const s = store();
   if (!s) return false;
+  await starting;
   await flush();
   const held = conflictFor(id);
   if (held) {
@@ -350,6 +368,14 @@ export async function openStored(id: string, options: { updateAddress?: boolean 
     saveStatus.value = { state: 'conflict' };
     setAddress(id, options.updateAddress !== false);
     storageNotice.value = `This is your version of “${held.mine.name || 'Untitled project'}”, not saved yet: choose which version to keep.`;
+    return true;
+  }
+  const waiting = pending.filter((p) => storedIdOf(p.origin) === id).at(-1);
+  if (waiting) {
+    // Its last changes could not be written (refused): this tab's version is newer than the stored one.
+    loadProject(waiting.project, { kind: 'stored', title: waiting.project.name || 'Untitled project', storedKey: id });
+    setAddress(id, options.updateAddress !== false);
+    storageNotice.value = `This is your version of “${waiting.project.name || 'Untitled project'}”, with changes not stored yet.`;
     return true;
   }
   const read = await s.get(id);
@@ -365,6 +391,7 @@ export async function openStored(id: string, options: { updateAddress?: boolean 
 export async function openLatestStored(): Promise<boolean> {
   const s = store();
   if (!s) return false;
+  await starting;
   const list = await s.list().catch(() => []);
   const latest = list.find((r) => r.ok);
   return latest?.ok ? openStored(latest.record.id, { updateAddress: false }) : false;
@@ -556,7 +583,7 @@ function requeue(id: string, project: DraftProject): void {
   const open = draftOrigin.peek();
   const origin = open && storedIdOf(open) === id ? open : { kind: 'stored' as const, title: project.name, storedKey: id };
   const latest = origin === open ? (draft.peek() ?? project) : project;
-  pending = [...pending.filter((p) => storedIdOf(p.origin) !== id), { origin, project: latest }];
+  pending = [...pending.filter((p) => storedIdOf(p.origin) !== id), { origin, project: latest, seq: ++editSeq }];
   if (origin === open) saveStatus.value = { state: 'pending' };
   void flush();
 }
@@ -586,6 +613,7 @@ export async function resolveConflict(choice: ConflictChoice, id?: string): Prom
   if (choice === 'load-theirs') {
     dropConflict(c.id);
     takePending(c.id);
+    dropRescue(c.id, null);
     if (c.kind === 'changed') {
       const read = await s.get(c.id);
       if (wasOpen && openId() === c.id && read?.ok && !read.record.deletedAt) openRecord(read.record, false);
@@ -604,6 +632,7 @@ export async function resolveConflict(choice: ConflictChoice, id?: string): Prom
     }
     const latest = conflictFor(c.id)?.mine ?? c.mine;
     dropConflict(c.id);
+    dropRescue(c.id, null);
     known.set(c.id, out.record.revision);
     announce({ type: 'saved', id: c.id, revision: out.record.revision, tabId });
     if (openId() === c.id) saveStatus.value = { state: 'saved', savedAt: out.record.savedAt };
@@ -619,6 +648,7 @@ export async function resolveConflict(choice: ConflictChoice, id?: string): Prom
       return false;
     }
     dropConflict(c.id);
+    dropRescue(c.id, null);
     known.set(out.record.id, out.record.revision);
     const open = draftOrigin.peek();
     if (open && storedIdOf(open) === c.id) {
@@ -635,6 +665,132 @@ export async function resolveConflict(choice: ConflictChoice, id?: string): Prom
   }
   await refreshList();
   return false;
+}
+
+// ---------- rescue copies (the page goes away) ----------
+
+const TAB_LOCK_PREFIX = 'joulepath-tab:';
+/** Rescue keys this tab wrote, with the edit number of the version each holds (Infinity: an open question's). */
+const rescued = new Map<string, number>();
+function rescueKeyOf(origin: DraftOrigin): { key: string; storedId: string } {
+  let id = storedIdOf(origin) ?? plannedFor.get(origin);
+  // Not stored yet: the id its first write will use is chosen now, so the copy and that write agree.
+  if (id === undefined) plannedFor.set(origin, (id = globalThis.crypto.randomUUID()));
+  return { key: `${RESCUE_KEY_PREFIX}${tabId}:${id}`, storedId: id };
+}
+
+/**
+ * The page is hidden or left: write a rescue copy of every version not stored yet (edits waiting,
+ * writes under way, answers not given). One committed put each, no read first — the normal write
+ * (a read, then a write, for the revision check) may be cut off when the page is torn down. The next
+ * start applies them (recoverRescued).
+ */
+function writeRescues(): void {
+  const s = store();
+  if (!s) return;
+  const time = new Date().toISOString();
+  const items = new Map<string, { seq: number; value: RescueRecord }>();
+  for (const snap of [...inFlight, ...pending]) {
+    const { key, storedId } = rescueKeyOf(snap.origin);
+    const stored = storedIdOf(snap.origin) !== undefined;
+    const value: RescueRecord = {
+      rescueVersion: 1,
+      tabId,
+      savedAt: time,
+      storedId,
+      baseRevision: stored ? (known.get(storedId) ?? null) : null,
+      ...(!stored && snap.origin.kind === 'demo' && snap.origin.demoId !== undefined ? { demoId: snap.origin.demoId } : {}),
+      project: snap.project,
+    };
+    items.set(key, { seq: snap.seq, value });
+  }
+  for (const c of conflicts.peek()) {
+    const value: RescueRecord = { rescueVersion: 1, tabId, savedAt: time, storedId: c.id, baseRevision: known.get(c.id) ?? null, project: c.mine };
+    items.set(`${RESCUE_KEY_PREFIX}${tabId}:${c.id}`, { seq: Infinity, value });
+  }
+  for (const [key, { seq, value }] of items) {
+    if (rescued.get(key) === seq && seq !== Infinity) continue; // this version is in its copy already
+    rescued.set(key, seq);
+    s.putRescue(key, value).catch(() => rescued.delete(key));
+  }
+}
+
+/**
+ * Remove this tab's rescue copy of a project once what it holds is stored: `seq` is the edit number of
+ * the version just written (the copy stays while it holds a later one); null when an answer to a
+ * question settled the project.
+ */
+function dropRescue(id: string, seq: number | null): void {
+  const key = `${RESCUE_KEY_PREFIX}${tabId}:${id}`;
+  const held = rescued.get(key);
+  if (held === undefined || (seq !== null && seq < held)) return;
+  rescued.delete(key);
+  void store()?.removeRescue(key).catch(() => undefined);
+}
+
+/** Tabs still open (each holds a lock for its life), or null when the browser cannot say. */
+async function openTabs(): Promise<Set<string> | null> {
+  const locks = typeof navigator !== 'undefined' ? navigator.locks : undefined;
+  if (!locks?.query) return null;
+  try {
+    const { held = [] } = await locks.query();
+    return new Set(held.flatMap((l) => (l.name?.startsWith(TAB_LOCK_PREFIX) ? [l.name.slice(TAB_LOCK_PREFIX.length)] : [])));
+  } catch {
+    return null;
+  }
+}
+
+function sameContent(a: DraftProject, b: DraftProject): boolean {
+  return JSON.stringify(a) === JSON.stringify(b);
+}
+
+/**
+ * At start: apply the rescue copies of pages that are gone. A copy made on the version still stored
+ * is saved over it (with the revision check); one that is stored already is dropped; otherwise (the
+ * project changed or was deleted since) it is kept as a copy beside it. Nothing is written over
+ * another tab's newer work, and nothing is lost.
+ */
+export async function recoverRescued(): Promise<void> {
+  const s = store();
+  if (!s) return;
+  const raw = await s.rescues().catch(() => []);
+  if (!raw.length) return;
+  const alive = await openTabs();
+  const names = await s.names().catch(() => [] as string[]);
+  const recovered: string[] = [];
+  for (const [key, value] of raw) {
+    const r = readRescue(value);
+    if (!r || r.tabId === tabId || alive?.has(r.tabId)) continue; // not ours to read, or that tab is still open
+    const read = r.storedId !== undefined ? await s.get(r.storedId) : undefined;
+    const record = read?.ok && !read.record.deletedAt ? read.record : undefined;
+    // A first write that landed: the rescue copy carries the draft's name before the copy got its own.
+    const base = r.baseRevision ?? (record && record.tabId === r.tabId && record.revision === 1 ? 1 : null);
+    const project = record && r.baseRevision === null && base !== null ? { ...r.project, name: record.project.name } : r.project;
+    let out: WriteOutcome | undefined;
+    let label = recordName({ project } as StoredProject);
+    if (record && sameContent(record.project, project)) {
+      await s.removeRescue(key).catch(() => undefined);
+      continue;
+    }
+    if (record && base !== null && record.revision === base) {
+      out = await s.save(record.id, project, tabId, base);
+    } else if (r.storedId !== undefined && !read && r.baseRevision === null) {
+      // A first write that never landed: stored now under the id it was meant to get.
+      const name = r.demoId !== undefined ? copyName(project.name, names, 'my copy') : project.name;
+      out = await s.create({ ...project, name }, tabId, { id: r.storedId, ...(r.demoId !== undefined ? { demoId: r.demoId } : {}) });
+      label = name;
+    }
+    if (!out?.ok) {
+      if (out && out.reason === 'write-failed') continue; // tried again at the next start
+      label = copyName(project.name, names);
+      out = await s.create({ ...project, name: label }, tabId);
+      if (!out.ok) continue;
+    }
+    names.push(recordName(out.record));
+    recovered.push(`“${recordName(out.record)}”`);
+    await s.removeRescue(key).catch(() => undefined);
+  }
+  if (recovered.length) storageNotice.value = `Changes a closed page had not stored are saved: ${recovered.join(', ')}.`;
 }
 
 // ---------- files ----------
@@ -761,6 +917,8 @@ export async function checkPersistence(askForIt: boolean): Promise<void> {
 // ---------- start ----------
 
 let started = false;
+/** The start's own work (old deletes removed, rescue copies applied): opening a project waits for it. */
+let starting: Promise<void> = Promise.resolve();
 
 /** Start autosave, the tab channel and the list (once, from main.tsx). */
 export function startStorage(): void {
@@ -781,7 +939,12 @@ export function startStorage(): void {
     batch(markEdited);
   });
   const flushNow = () => void flush();
-  globalThis.addEventListener?.('pagehide', flushNow);
+  // Leaving or hidden: the normal write starts, and a rescue copy is committed at once beside it.
+  const leaving = () => {
+    flushNow();
+    writeRescues();
+  };
+  globalThis.addEventListener?.('pagehide', leaving);
   // Leaving while a write waits, failed or waits for an answer: the browser asks first (a write
   // started now still runs, and the page-hide flush follows if the user leaves anyway).
   globalThis.addEventListener?.('beforeunload', (event: BeforeUnloadEvent) => {
@@ -793,14 +956,20 @@ export function startStorage(): void {
     event.returnValue = '';
   });
   globalThis.document?.addEventListener('visibilitychange', () => {
-    if (document.visibilityState === 'hidden') flushNow();
+    if (document.visibilityState === 'hidden') leaving();
   });
   if (typeof BroadcastChannel !== 'undefined') {
     channel = new BroadcastChannel(CHANNEL_NAME);
     channel.onmessage = (event: MessageEvent) => void onChannelMessage(event.data);
   }
-  void (async () => {
+  // Held for the life of this tab: another tab's start leaves this tab's rescue copies alone.
+  void globalThis.navigator?.locks?.request(`${TAB_LOCK_PREFIX}${tabId}`, () => new Promise<void>(() => undefined)).catch(() => undefined);
+  starting = (async () => {
     await store()?.purgeDeletedBefore(STALE_DELETE_MS).catch(() => 0);
+    await recoverRescued().catch(() => undefined);
+  })();
+  void (async () => {
+    await starting;
     await refreshList();
     await checkPersistence(false);
   })();

@@ -8,6 +8,7 @@ import { createStore, entries, get, promisifyRequest, type UseStore } from 'idb-
 import type { DraftProject } from '../state/editor.ts';
 import {
   PROJECT_KEY_PREFIX,
+  RESCUE_KEY_PREFIX,
   STORAGE_VERSION,
   copyName,
   notWritableMessage,
@@ -15,6 +16,7 @@ import {
   readRecord,
   recordName,
   type ReadRecord,
+  type RescueRecord,
   type StoredProject,
 } from './record.ts';
 
@@ -258,6 +260,34 @@ export class ProjectStore {
       });
     }
     return removed;
+  }
+
+  /**
+   * Write a rescue copy in one put and commit at once, without reading first: a page being torn
+   * down gets no second turn (a read-then-write started in \`pagehide\` can be cut off between the
+   * two). Never under a project key.
+   */
+  async putRescue(key: string, value: RescueRecord): Promise<void> {
+    if (!key.startsWith(RESCUE_KEY_PREFIX)) throw new Error('not a rescue key');
+    await this.#store('readwrite', (s) => {
+      s.put(value, key);
+      // Hand the transaction to the database now rather than after this task.
+      s.transaction.commit?.();
+      return promisifyRequest(s.transaction);
+    });
+  }
+
+  /** Every rescue copy (raw values; record.ts readRescue reads them). */
+  async rescues(): Promise<[string, unknown][]> {
+    return (await entries(this.#store)).flatMap(([k, v]) => (typeof k === 'string' && k.startsWith(RESCUE_KEY_PREFIX) ? [[k, v] as [string, unknown]] : []));
+  }
+
+  async removeRescue(key: string): Promise<void> {
+    if (!key.startsWith(RESCUE_KEY_PREFIX)) return;
+    await this.#store('readwrite', (s) => {
+      s.delete(key);
+      return promisifyRequest(s.transaction);
+    });
   }
 
   /** Every raw value in the store (tests and the browser tests compare before/after). */
