@@ -26,6 +26,8 @@ interface SessionApi {
   deleteStored(id: string): Promise<boolean>;
   resolveConflict(choice: 'load-theirs' | 'keep-mine' | 'save-copy', id?: string): Promise<boolean>;
   onChannelMessage(message: unknown): Promise<void>;
+  recoverRescued(): Promise<void>;
+  tabId: string;
   hasUnsavedWork(): boolean;
   saveStatus: Signal<{ state: string; message?: string }>;
   storageNotice: Signal<string>;
@@ -356,5 +358,62 @@ describe('delete with undo across tabs (point 6)', () => {
     const read = await tabB.get(x);
     expect(read?.ok && read.record.project.elements.map((e) => e.id)).toEqual(['src', 'load-1', 'a-x']);
     expect(session.saveStatus.value.state).toBe('saved');
+  });
+});
+
+describe('rescue copies of a page that went away (point 2)', () => {
+  const rescue = (storedId: string, baseRevision: number | null, p: DraftProject, extra: { demoId?: string; tab?: string } = {}) => ({
+    rescueVersion: 1,
+    tabId: extra.tab ?? 'tab-gone',
+    savedAt: '2026-01-01T00:00:00.000Z',
+    storedId,
+    baseRevision,
+    ...(extra.demoId !== undefined ? { demoId: extra.demoId } : {}),
+    project: p,
+  });
+
+  it('applies a copy made on the stored revision, keeps one made on an older revision as a copy, stores a first save that never landed, drops one already stored, and leaves this tab\'s own', async () => {
+    const same = await createdByB('Loft');
+    const moved = await createdByB('Quarry');
+    const done = await createdByB('Mill');
+    await tabB.save(moved, project('Quarry', 2), 'tab-b', 1); // revision 2: changed after the closed page's version
+    const newer = {
+      storageVersion: STORAGE_VERSION + 1,
+      id: 'newer-1',
+      createdAt: '2026-01-01T00:00:00.000Z',
+      savedAt: '2026-01-01T00:00:00.000Z',
+      revision: 3,
+      tabId: 'tab-new-app',
+      project: { format: 'joulepath-project', version: 2, name: 'Forge', elements: [] },
+    };
+    await set(projectKey('newer-1'), newer, idb);
+    await set(`rescue:tab-gone:${same}`, rescue(same, 1, project('Loft', 4)), idb);
+    await set(`rescue:tab-gone:${moved}`, rescue(moved, 1, project('Quarry', 5)), idb);
+    await set('rescue:tab-gone:planned-1', rescue('planned-1', null, project('Harbour demo', 3), { demoId: 'harbour' }), idb);
+    await set(`rescue:tab-gone:${done}`, rescue(done, 1, project('Mill')), idb);
+    await set('rescue:tab-gone:newer-1', rescue('newer-1', 3, project('Forge', 2)), idb);
+    await set(`rescue:${session.tabId}:${same}`, rescue(same, 1, project('Loft', 9), { tab: session.tabId }), idb);
+    const newerBefore = JSON.stringify((await tabB.dump()).find(([k]) => k === projectKey('newer-1')));
+    await session.recoverRescued();
+    expect((await stored(same))?.elements).toHaveLength(5); // applied over revision 1
+    expect((await stored(moved))?.elements).toHaveLength(3); // the other tab's revision 2 stays
+    expect((await stored('planned-1'))?.name).toBe('Harbour demo (my copy)');
+    const planned = await tabB.get('planned-1');
+    expect(planned?.ok && planned.record.demoId).toBe('harbour');
+    expect((await stored(done))?.elements).toHaveLength(2);
+    // Sorted as text ("Quarry (copy),6" before "Quarry,3").
+    const names = (await tabB.list()).flatMap((r) => (r.ok ? [[r.record.project.name, r.record.project.elements.length]] : [])).sort();
+    expect(names).toEqual([
+      ['Forge (copy)', 3],
+      ['Harbour demo (my copy)', 4],
+      ['Loft', 5],
+      ['Mill', 2],
+      ['Quarry (copy)', 6],
+      ['Quarry', 3],
+    ]);
+    expect(JSON.stringify((await tabB.dump()).find(([k]) => k === projectKey('newer-1')))).toBe(newerBefore);
+    // Every rescue copy of the closed page is gone; this tab's own is left for this tab.
+    expect((await tabB.rescues()).map(([k]) => k)).toEqual([`rescue:${session.tabId}:${same}`]);
+    expect(session.storageNotice.value).toMatch(/Changes a closed page had not stored are saved: .*“Loft”/);
   });
 });
