@@ -214,11 +214,15 @@ describe.skipIf(skipWithout('chromium'))('stored projects under faults in Chromi
           tx.onerror = () => reject(tx.error);
         };
       })`);
+      const rawOf = async (id: string) => JSON.stringify((JSON.parse(await dumpStore(page)) as [string, unknown][]).find(([k]) => k === `project:${id}`));
       const before = await dumpStore(page);
+      const newerBefore = await rawOf(record!.id);
       await duplicateLastStage(page);
+      const edited = await cardIds(page);
       const alert = page.getByTestId('save-failed');
       await alert.waitFor();
       expect(await alert.innerText()).toMatch(/newer version of Joulepath \(storage layout 2\).*update the app/s);
+      await page.waitForTimeout(500);
       expect(await dumpStore(page)).toBe(before);
       // The list shows it as unreadable, with the same advice; nothing is offered that would write.
       await page.reload({ waitUntil: 'load' });
@@ -226,7 +230,10 @@ describe.skipIf(skipWithout('chromium'))('stored projects under faults in Chromi
       const listed = page.getByTestId('project-list').locator(`li[data-project-id="${record!.id}"]`);
       await expect.poll(() => listed.innerText()).toMatch(/newer version of Joulepath.*update the app/);
       expect(await listed.getByRole('button').count()).toBe(0);
-      expect(await dumpStore(page)).toBe(before);
+      expect(await rawOf(record!.id)).toBe(newerBefore);
+      // The edit the newer record refused was not lost: the page's rescue copy is kept as a copy beside it.
+      const copy = (await byName(page)).get(`${record!.project.name.replace(/ \(my copy\)$/, '')} (copy)`);
+      expect(elementIds(copy)).toEqual(edited);
       expect(errors).toEqual([]);
     } finally {
       await context.close();

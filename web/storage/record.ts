@@ -190,19 +190,3 @@ export interface RescueRecord {
   demoId?: string;
   project: DraftProject;
 }
-
-const rescueShape = z.object({
-  rescueVersion: z.literal(1),
-  tabId: z.string(),
-  savedAt: isoTime,
-  storedId: z.optional(z.string()),
-  baseRevision: z.nullable(z.int()),
-  demoId: z.optional(z.string()),
-  project: projectShape,
-});
-
-/** A rescue copy as stored, or undefined when it is not one this build reads (left alone). */
-export function readRescue(raw: unknown): RescueRecord | undefined {
-  const parsed = rescueShape.safeParse(raw, { error: issueMessage });
-  return parsed.success ? (parsed.data as RescueRecord) : undefined;
-}

@@ -31,7 +31,7 @@ import {
 } from '../state/editor.ts';
 // The file checks and their schemas load on the first import or export (outside the first-load budget).
 const fileFormat = () => import('./file-format.ts');
-import { RESCUE_KEY_PREFIX, copyName, readRescue, recordName, type RescueRecord, type StoredProject } from './record.ts';
+import { RESCUE_KEY_PREFIX, copyName, recordName, type RescueRecord, type StoredProject } from './record.ts';
 import { ProjectStore, type ListedProject, type WriteOutcome } from './store.ts';
 
 /** Longest wait between an edit and its write. */
@@ -728,69 +728,18 @@ function dropRescue(id: string, seq: number | null): void {
   void store()?.removeRescue(key).catch(() => undefined);
 }
 
-/** Tabs still open (each holds a lock for its life), or null when the browser cannot say. */
-async function openTabs(): Promise<Set<string> | null> {
-  const locks = typeof navigator !== 'undefined' ? navigator.locks : undefined;
-  if (!locks?.query) return null;
-  try {
-    const { held = [] } = await locks.query();
-    return new Set(held.flatMap((l) => (l.name?.startsWith(TAB_LOCK_PREFIX) ? [l.name.slice(TAB_LOCK_PREFIX.length)] : [])));
-  } catch {
-    return null;
-  }
-}
-
-function sameContent(a: DraftProject, b: DraftProject): boolean {
-  return JSON.stringify(a) === JSON.stringify(b);
-}
-
 /**
- * At start: apply the rescue copies of pages that are gone. A copy made on the version still stored
- * is saved over it (with the revision check); one that is stored already is dropped; otherwise (the
- * project changed or was deleted since) it is kept as a copy beside it. Nothing is written over
- * another tab's newer work, and nothing is lost.
+ * At start: apply the rescue copies of pages that are gone (recover.ts, loaded only when there are
+ * any). Nothing is written over another tab's newer work, and nothing is lost.
  */
 export async function recoverRescued(): Promise<void> {
   const s = store();
   if (!s) return;
   const raw = await s.rescues().catch(() => []);
   if (!raw.length) return;
-  const alive = await openTabs();
-  const names = await s.names().catch(() => [] as string[]);
-  const recovered: string[] = [];
-  for (const [key, value] of raw) {
-    const r = readRescue(value);
-    if (!r || r.tabId === tabId || alive?.has(r.tabId)) continue; // not ours to read, or that tab is still open
-    const read = r.storedId !== undefined ? await s.get(r.storedId) : undefined;
-    const record = read?.ok && !read.record.deletedAt ? read.record : undefined;
-    // A first write that landed: the rescue copy carries the draft's name before the copy got its own.
-    const base = r.baseRevision ?? (record && record.tabId === r.tabId && record.revision === 1 ? 1 : null);
-    const project = record && r.baseRevision === null && base !== null ? { ...r.project, name: record.project.name } : r.project;
-    let out: WriteOutcome | undefined;
-    let label = recordName({ project } as StoredProject);
-    if (record && sameContent(record.project, project)) {
-      await s.removeRescue(key).catch(() => undefined);
-      continue;
-    }
-    if (record && base !== null && record.revision === base) {
-      out = await s.save(record.id, project, tabId, base);
-    } else if (r.storedId !== undefined && !read && r.baseRevision === null) {
-      // A first write that never landed: stored now under the id it was meant to get.
-      const name = r.demoId !== undefined ? copyName(project.name, names, 'my copy') : project.name;
-      out = await s.create({ ...project, name }, tabId, { id: r.storedId, ...(r.demoId !== undefined ? { demoId: r.demoId } : {}) });
-      label = name;
-    }
-    if (!out?.ok) {
-      if (out && out.reason === 'write-failed') continue; // tried again at the next start
-      label = copyName(project.name, names);
-      out = await s.create({ ...project, name: label }, tabId);
-      if (!out.ok) continue;
-    }
-    names.push(recordName(out.record));
-    recovered.push(`“${recordName(out.record)}”`);
-    await s.removeRescue(key).catch(() => undefined);
-  }
-  if (recovered.length) storageNotice.value = `Changes a closed page had not stored are saved: ${recovered.join(', ')}.`;
+  const { recoverRescues } = await import('./recover.ts');
+  const recovered = await recoverRescues(s, raw, tabId, TAB_LOCK_PREFIX);
+  if (recovered.length) storageNotice.value = `Changes a closed page had not stored are saved: ${recovered.map((n) => `“${n}”`).join(', ')}.`;
 }
 
 // ---------- files ----------

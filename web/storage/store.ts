@@ -277,7 +277,7 @@ export class ProjectStore {
     });
   }
 
-  /** Every rescue copy (raw values; record.ts readRescue reads them). */
+  /** Every rescue copy (raw values; recover.ts reads them). */
   async rescues(): Promise<[string, unknown][]> {
     return (await entries(this.#store)).flatMap(([k, v]) => (typeof k === 'string' && k.startsWith(RESCUE_KEY_PREFIX) ? [[k, v] as [string, unknown]] : []));
   }
