@@ -43,8 +43,16 @@ async function stillOpen(tabs: Set<string>, prefix: string): Promise<Set<string>
   const locks = typeof navigator !== 'undefined' ? navigator.locks : undefined;
   if (!locks?.request) return null;
   const open = new Set<string>();
+  // Locks nobody holds need no wait (the usual case: those tabs closed long ago).
+  let held: Set<string> | null = null;
+  try {
+    held = new Set(((await locks.query()).held ?? []).flatMap((l) => (l.name ? [l.name] : [])));
+  } catch {
+    held = null;
+  }
   await Promise.all(
     [...tabs].map(async (tab) => {
+      if (held && !held.has(`${prefix}${tab}`)) return;
       try {
         await locks.request(`${prefix}${tab}`, { signal: AbortSignal.timeout(CLOSING_TAB_WAIT_MS) }, () => undefined);
       } catch {
