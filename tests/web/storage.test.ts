@@ -7,7 +7,7 @@ import { readFileSync } from 'node:fs';
 import { createStore, set, type UseStore } from 'idb-keyval';
 import { beforeEach, describe, expect, it } from 'vitest';
 import type { DraftProject } from '../../web/state/editor.ts';
-import { STORAGE_VERSION, projectKey, readRecord, recordName, storedVersionOf } from '../../web/storage/record.ts';
+import { STORAGE_VERSION, copyName, projectKey, readRecord, recordName, storedVersionOf } from '../../web/storage/record.ts';
 import { ProjectStore, describeWriteError } from '../../web/storage/store.ts';
 
 const v0Fixture: unknown = JSON.parse(readFileSync(new URL('./fixtures/stored-v0.json', import.meta.url), 'utf8'));
@@ -111,6 +111,7 @@ describe('the project store', () => {
     expect(names).toEqual(['Alpha, renamed', 'Bravo']);
     const dup = await store.duplicate('p-2', 'tab-a');
     expect(dup.ok && dup.record.project.name).toBe('Bravo (copy)');
+    expect(dup.ok && dup.record.demoId).toBeUndefined();
     expect(dup.ok && dup.record.id).toBe('p-3');
     expect((await store.list()).length).toBe(3);
     const bravo = await store.get('p-2');
@@ -139,28 +140,53 @@ describe('the project store', () => {
     expect(forced.ok && forced.record.createdAt).toBe(created.ok ? created.record.createdAt : '');
   });
 
-  it('writes again a record deleted meanwhile, so the work of an open tab is never dropped', async () => {
+  it('refuses to write over a record deleted in another tab (undo pending or removed), unless told to restore it', async () => {
     await store.create(project('Gone elsewhere'), 'tab-a');
+    // Tab A deletes it; its undo period is running. Tab B, which loaded revision 1, saves.
     await store.markDeleted('p-1');
+    const pendingDelete = await store.save('p-1', project('Gone elsewhere, edited in B', 3), 'tab-b', 1);
+    expect(pendingDelete).toMatchObject({ ok: false, reason: 'deleted' });
+    if (!pendingDelete.ok && pendingDelete.reason === 'deleted') expect(pendingDelete.theirs?.deletedAt).toBeDefined();
+    const stillMarked = await store.get('p-1');
+    expect(stillMarked?.ok && stillMarked.record.deletedAt).toBeTruthy(); // not silently brought back
+    expect(stillMarked?.ok && stillMarked.record.project.name).toBe('Gone elsewhere');
+    // Removed for good: B's save is refused the same way, nothing is stored again.
     await store.purge('p-1');
+    const removed = await store.save('p-1', project('Gone elsewhere, edited in B', 3), 'tab-b', 1);
+    expect(removed).toEqual({ ok: false, reason: 'deleted', theirs: null });
     expect(await store.get('p-1')).toBeUndefined();
-    const again = await store.save('p-1', project('Gone elsewhere'), 'tab-a', 1);
-    expect(again.ok && again.record.revision).toBe(2);
+    expect(await store.dump()).toEqual([]);
+    // B's user chooses "restore it with my version": written knowingly.
+    const again = await store.save('p-1', project('Gone elsewhere, edited in B', 3), 'tab-b', null);
+    expect(again.ok && again.record.revision).toBe(1);
+    expect(again.ok && again.record.deletedAt).toBeUndefined();
+  });
+
+  it('restoring with "keep mine" over a delete still in its undo period clears the mark', async () => {
+    await store.create(project('Marked'), 'tab-a');
+    await store.markDeleted('p-1');
+    const kept = await store.save('p-1', project('Marked, kept by B'), 'tab-b', null);
+    expect(kept.ok && kept.record.revision).toBe(2);
+    const read = await store.get('p-1');
+    expect(read?.ok && read.record.deletedAt).toBeUndefined();
+    // The other tab's purge at the end of its undo period leaves it alone.
+    await store.purge('p-1');
+    expect((await store.list()).map((r) => r.ok && r.record.project.name)).toEqual(['Marked, kept by B']);
   });
 
   it('deletes with undo: hidden first, removed only by purge, restorable until then', async () => {
     await store.create(project('Keep me'), 'tab-a');
     await store.create(project('Delete me'), 'tab-a');
-    expect(await store.markDeleted('p-2')).toBe(true);
+    expect((await store.markDeleted('p-2')).ok).toBe(true);
     expect((await store.list()).map((r) => r.ok && r.record.id)).toEqual(['p-1']);
     expect((await store.dump()).length).toBe(2); // still stored during the undo period
-    expect(await store.restore('p-2')).toBe(true);
+    expect((await store.restore('p-2')).ok).toBe(true);
     expect((await store.list()).length).toBe(2);
     await store.markDeleted('p-2');
     await store.purge('p-2');
     expect((await store.dump()).map(([k]) => k)).toEqual([projectKey('p-1')]);
     // Restoring a missing record reports false and writes nothing.
-    expect(await store.restore('nope')).toBe(false);
+    expect((await store.restore('nope')).ok).toBe(false);
     expect((await store.dump()).length).toBe(1);
   });
 
@@ -187,5 +213,60 @@ describe('the project store', () => {
     const created = await full.create(project('New'), 'tab-a');
     expect(created.ok).toBe(false);
     expect(await store.dump()).toEqual(before);
+  });
+
+  it('never writes over a record of a newer layout: save, rename, delete, undo and purge leave it byte-identical', async () => {
+    // A record as a later version of the app might write it: a higher layout and fields this build does not know.
+    const newer = {
+      storageVersion: STORAGE_VERSION + 1,
+      id: 'future',
+      createdAt: '2026-01-01T00:00:00.000Z',
+      savedAt: '2026-01-02T00:00:00.000Z',
+      revision: 7,
+      tabId: 'tab-future',
+      deletedAt: undefined,
+      layoutNotes: { branches: [1, 2, 3], colour: 'teal' },
+      project: { format: 'joulepath-project', version: 2, name: 'From the future', elements: [], groups: [{ id: 'g1' }] },
+    };
+    await set(projectKey('future'), newer, idb);
+    const before = JSON.stringify(await store.dump());
+    const saved = await store.save('future', project('Older layout'), 'tab-a', 7);
+    expect(saved).toMatchObject({ ok: false, reason: 'not-writable' });
+    if (!saved.ok && saved.reason === 'not-writable') expect(saved.message).toMatch(/newer version of Joulepath \(storage layout 2\).*update the app/);
+    expect(await store.save('future', project('Older layout'), 'tab-a', null)).toMatchObject({ ok: false, reason: 'not-writable' });
+    const renamed = await store.rename('future', 'Renamed', 'tab-a');
+    expect(renamed).toMatchObject({ ok: false, reason: 'not-writable' });
+    const deleted = await store.markDeleted('future');
+    expect(deleted.ok).toBe(false);
+    if (!deleted.ok) expect(deleted.message).toMatch(/update the app/);
+    const restored = await store.restore('future');
+    expect(restored.ok).toBe(false);
+    await store.purge('future');
+    clockMs += 3_600_000;
+    expect(await store.purgeDeletedBefore(0)).toBe(0);
+    expect((await store.duplicate('future', 'tab-a')).ok).toBe(false);
+    // Byte-identical, unknown fields included (the structured clone of the stored value, as JSON).
+    expect(JSON.stringify(await store.dump())).toBe(before);
+    const [[, raw]] = (await store.dump()) as [[string, Record<string, unknown>]];
+    expect(raw['layoutNotes']).toEqual({ branches: [1, 2, 3], colour: 'teal' });
+    // It is still listed, with the message to update the app.
+    expect(await store.list()).toMatchObject([{ ok: false, reason: 'newer' }]);
+  });
+
+  it('names copies without piling up marks', async () => {
+    // Our own naming rule (web/storage/record.ts copyName): common practice (no source).
+    expect(copyName('Pump house', [])).toBe('Pump house (copy)');
+    expect(copyName('Pump house (copy)', ['Pump house (copy)'])).toBe('Pump house (copy 2)');
+    expect(copyName('Pump house (copy 2)', ['Pump house (copy)', 'Pump house (copy 2)'])).toBe('Pump house (copy 3)');
+    expect(copyName('Pump house (my copy)', [], 'copy')).toBe('Pump house (copy)');
+    expect(copyName('Pump house (my copy) (my copy)', [], 'my copy')).toBe('Pump house (my copy)');
+    expect(copyName('Riverside', ['Riverside (my copy)'], 'my copy')).toBe('Riverside (my copy 2)');
+    expect(copyName('  ', [])).toBe('Untitled project (copy)');
+    // Duplicating a copy through the store: "(copy 2)", never "(copy) (copy)".
+    await store.create(project('Bravo'), 'tab-a');
+    const first = await store.duplicate('p-1', 'tab-a');
+    const second = first.ok ? await store.duplicate(first.record.id, 'tab-a') : first;
+    expect(first.ok && first.record.project.name).toBe('Bravo (copy)');
+    expect(second.ok && second.record.project.name).toBe('Bravo (copy 2)');
   });
 });

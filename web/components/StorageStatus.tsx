@@ -4,9 +4,11 @@
  * whether the browser keeps the data for good and how much room it uses.
  */
 import { formatSavedAt } from './ProjectList.tsx';
+import { demoProjects } from '../../core/demos/index.ts';
+import { chooseDemo } from '../state/app.ts';
 import {
   checkPersistence,
-  conflict,
+  conflicts,
   importQuestion,
   lastWriteMs,
   pendingDelete,
@@ -15,6 +17,7 @@ import {
   saveStatus,
   storageNotice,
   undoDelete,
+  type StorageConflict,
 } from '../storage/session.ts';
 import { draftOrigin } from '../state/editor.ts';
 import { effectiveLocale } from '../state/prefs.ts';
@@ -95,10 +98,46 @@ export function StorageDetails() {
   );
 }
 
+/**
+ * The question about one project changed or deleted in another tab. It names the project and says
+ * when it is not the open one (parked: the answer still writes only that project's own version).
+ */
+function ConflictQuestion({ c, open }: { c: StorageConflict; open: boolean }) {
+  const name = c.mine.name || 'Untitled project';
+  const textId = `conflict-text-${c.id}`;
+  const answer = (choice: 'load-theirs' | 'keep-mine' | 'save-copy') =>
+    void resolveConflict(choice, c.id).then((leftDeleted) => {
+      if (leftDeleted && demoProjects[0]) chooseDemo(demoProjects[0].id);
+    });
+  const where = open ? 'This project' : `“${name}” (not the open project; your unsaved version of it is kept here)`;
+  const what =
+    c.kind === 'changed'
+      ? `${where} was changed in another tab${c.theirs ? ` (saved ${formatSavedAt(c.theirs.savedAt)})` : ''}. Which version do you want?`
+      : `${where} was deleted in another tab. Your version is still here: what should happen to it?`;
+  return (
+    <section class="storage-alert" role="alertdialog" aria-labelledby={textId} data-testid="conflict" data-project-id={c.id} data-kind={c.kind}>
+      <p id={textId}>{what}</p>
+      <div class="storage-alert__actions">
+        <button type="button" class="store-btn" onClick={() => answer('load-theirs')}>
+          {c.kind === 'changed' ? (open ? 'Load that version' : 'Keep that version (drop mine)') : 'Leave it deleted (drop mine)'}
+        </button>
+        <button type="button" class="store-btn" onClick={() => answer('keep-mine')}>
+          {c.kind === 'changed' ? 'Keep mine (save over it)' : 'Restore it with my version'}
+        </button>
+        <button type="button" class="store-btn" onClick={() => answer('save-copy')}>
+          Save mine as a copy
+        </button>
+      </div>
+    </section>
+  );
+}
+
 /** Messages that need an answer or must not be missed, fixed at the bottom of the screen. */
 export function StorageAlerts() {
   const s = saveStatus.value;
-  const c = conflict.value;
+  const cs = conflicts.value;
+  const origin = draftOrigin.value;
+  const openId = origin?.kind === 'stored' ? origin.storedKey : undefined;
   const q = importQuestion.value;
   const d = pendingDelete.value;
   return (
@@ -112,24 +151,9 @@ export function StorageAlerts() {
           </p>
         </section>
       )}
-      {c && (
-        <section class="storage-alert" role="alertdialog" aria-labelledby="conflict-text" data-testid="conflict">
-          <p id="conflict-text">
-            This project was changed in another tab (saved {formatSavedAt(c.theirs.savedAt)}). Which version do you want?
-          </p>
-          <div class="storage-alert__actions">
-            <button type="button" class="store-btn" onClick={() => void resolveConflict('load-theirs')}>
-              Load that version
-            </button>
-            <button type="button" class="store-btn" onClick={() => void resolveConflict('keep-mine')}>
-              Keep mine (save over it)
-            </button>
-            <button type="button" class="store-btn" onClick={() => void resolveConflict('save-copy')}>
-              Save mine as a copy
-            </button>
-          </div>
-        </section>
-      )}
+      {cs.map((c) => (
+        <ConflictQuestion key={c.id} c={c} open={c.id === openId} />
+      ))}
       {q && (
         <section class="storage-alert" role="alertdialog" aria-labelledby="import-question" data-testid="import-question">
           <p id="import-question">

@@ -74,7 +74,7 @@ const recordV0 = z.object({
 
 export type ReadRecord =
   | { ok: true; record: StoredProject; migratedFrom?: number }
-  | { ok: false; id: string; reason: 'newer' | 'damaged'; message: string };
+  | { ok: false; id: string; reason: 'newer' | 'damaged'; message: string; /** The newer layout's version. */ layout?: number };
 
 /** Each step lifts a record from version n to n+1. */
 const MIGRATIONS: Record<number, (raw: unknown, id: string) => unknown> = {
@@ -111,6 +111,7 @@ export function readRecord(id: string, raw: unknown): ReadRecord {
       ok: false,
       id,
       reason: 'newer',
+      layout: from,
       message: `This project was saved by a newer version of Joulepath (storage layout ${from}); update the app to open it.`,
     };
   }
@@ -133,8 +134,59 @@ export function readRecord(id: string, raw: unknown): ReadRecord {
   return from < STORAGE_VERSION ? { ok: true, record, migratedFrom: from } : { ok: true, record };
 }
 
+/**
+ * Why a stored value that cannot be read is not written over (a newer layout: update the app; a
+ * damaged one: it is left as it is). A sentence part, after "Not saved: ".
+ */
+export function notWritableMessage(read: Extract<ReadRecord, { ok: false }>): string {
+  if (read.reason === 'newer') {
+    return `this project was saved by a newer version of Joulepath (storage layout ${read.layout ?? '?'}), so this version never writes over it: update the app (reload the page, or accept the update when it is offered) to change it`;
+  }
+  return 'the stored project is damaged and is left as it is';
+}
+
 /** The name shown for a stored project. */
 export function recordName(record: StoredProject): string {
   const name = record.project.name.trim();
   return name || 'Untitled project';
+}
+
+/** A trailing copy mark this app adds: " (copy)", " (copy 2)", " (my copy)", " (my copy 3)". */
+const COPY_MARK = / \((?:my )?copy(?: \d+)?\)$/;
+
+/**
+ * The name of a copy: the name without the copy mark it may already carry, then " (<label>)", or
+ * " (<label> 2)", " (<label> 3)" … when that name is taken. A copy of a copy, or a copy retried after
+ * a failed write, never grows a chain of marks ("X (copy) (copy)").
+ */
+export function copyName(name: string, taken: Iterable<string>, label: 'copy' | 'my copy' = 'copy'): string {
+  let base = name.trim();
+  while (COPY_MARK.test(base)) base = base.replace(COPY_MARK, '').trim();
+  base ||= 'Untitled project';
+  const used = new Set(taken);
+  let candidate = `${base} (${label})`;
+  for (let n = 2; used.has(candidate); n++) candidate = `${base} (${label} ${n})`;
+  return candidate;
+}
+
+/** Key prefix of rescue copies ("rescue:<tab id>:<project id or draft id>"). */
+export const RESCUE_KEY_PREFIX = 'rescue:';
+
+/**
+ * A rescue copy: the changes a page had not stored yet when it was hidden or left, written in one
+ * put without reading first (so it lands even when the page is torn down right after). It never
+ * replaces a project record; the next start applies it with the revision check (or keeps it as a
+ * copy) and removes it.
+ */
+export interface RescueRecord {
+  rescueVersion: 1;
+  /** The tab that wrote it (its lock tells whether it is still open). */
+  tabId: string;
+  savedAt: string;
+  /** The stored project these changes belong to, and the revision they were made on (null: none known). */
+  storedId?: string;
+  baseRevision: number | null;
+  /** Not stored yet: a demo's first changes (its copy gets " (my copy)") or a new project. */
+  demoId?: string;
+  project: DraftProject;
 }

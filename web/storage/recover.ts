@@ -1,0 +1,117 @@
+/**
+ * Rescue copies at start (web/storage/README.md "Leaving the page"): the changes a page had not stored
+ * when it was hidden or left, applied once that page is closed. Loaded only when there are rescue
+ * copies, so it stays out of the first load.
+ */
+import { z } from 'zod/mini';
+import { issueMessage } from '../../core/solve/issue-messages.ts';
+import type { DraftProject } from '../state/editor.ts';
+import { copyName, recordName, type RescueRecord, type StoredProject } from './record.ts';
+import type { ProjectStore, WriteOutcome } from './store.ts';
+
+const isoTime = z.string().check(z.refine((s) => !Number.isNaN(Date.parse(s)), 'must be an ISO 8601 time'));
+const rescueShape = z.object({
+  rescueVersion: z.literal(1),
+  tabId: z.string(),
+  savedAt: isoTime,
+  storedId: z.optional(z.string()),
+  baseRevision: z.nullable(z.int()),
+  demoId: z.optional(z.string()),
+  project: z.looseObject({
+    format: z.literal('joulepath-project'),
+    version: z.number(),
+    name: z.string(),
+    elements: z.array(z.looseObject({ id: z.string(), kind: z.string() })),
+  }),
+});
+
+/** A rescue copy as stored, or undefined when it is not one this build reads (left alone). */
+export function readRescue(raw: unknown): RescueRecord | undefined {
+  const parsed = rescueShape.safeParse(raw, { error: issueMessage });
+  return parsed.success ? (parsed.data as RescueRecord) : undefined;
+}
+
+/** How long the start waits for a closing tab to let go of its lock (a reload opens the new page at once). */
+const CLOSING_TAB_WAIT_MS = 1500;
+
+/**
+ * Which of `tabs` are still open: each tab holds the lock `<prefix><tab id>` for its life. A tab
+ * that is closing lets go shortly after its page is gone, so each lock is waited for a moment.
+ * Null when the browser cannot say (no Web Locks): every copy is then applied.
+ */
+async function stillOpen(tabs: Set<string>, prefix: string): Promise<Set<string> | null> {
+  const locks = typeof navigator !== 'undefined' ? navigator.locks : undefined;
+  if (!locks?.request) return null;
+  const open = new Set<string>();
+  // Locks nobody holds need no wait (the usual case: those tabs closed long ago).
+  let held: Set<string> | null = null;
+  try {
+    held = new Set(((await locks.query()).held ?? []).flatMap((l) => (l.name ? [l.name] : [])));
+  } catch {
+    held = null;
+  }
+  await Promise.all(
+    [...tabs].map(async (tab) => {
+      if (held && !held.has(`${prefix}${tab}`)) return;
+      try {
+        await locks.request(`${prefix}${tab}`, { signal: AbortSignal.timeout(CLOSING_TAB_WAIT_MS) }, () => undefined);
+      } catch {
+        open.add(tab); // not let go in time: that tab is open
+      }
+    }),
+  );
+  return open;
+}
+
+function sameContent(a: DraftProject, b: DraftProject): boolean {
+  return JSON.stringify(a) === JSON.stringify(b);
+}
+
+/**
+ * Apply the rescue copies `raw` of closed tabs: one made on the revision still stored is saved over
+ * it (with the revision check); one already stored is dropped; a first save that never landed is
+ * stored under the id it was meant to get; otherwise (the project changed or was deleted since, or is
+ * of a newer layout) it is kept as a copy beside it. Copies of tabs still open, and of this tab, are
+ * left alone; a write the browser refuses leaves its copy for the next start. Returns the names saved.
+ */
+export async function recoverRescues(s: ProjectStore, raw: [string, unknown][], ownTabId: string, lockPrefix: string): Promise<string[]> {
+  const tabs = new Set(
+    raw.flatMap(([, v]) => {
+      const r = readRescue(v);
+      return r && r.tabId !== ownTabId ? [r.tabId] : [];
+    }),
+  );
+  const alive = await stillOpen(tabs, lockPrefix);
+  const names = await s.names().catch(() => [] as string[]);
+  const recovered: string[] = [];
+  for (const [key, value] of raw) {
+    const r = readRescue(value);
+    if (!r || r.tabId === ownTabId || alive?.has(r.tabId)) continue;
+    const read = r.storedId !== undefined ? await s.get(r.storedId) : undefined;
+    const record = read?.ok && !read.record.deletedAt ? read.record : undefined;
+    // A first write that landed: the rescue copy carries the draft's name from before the copy got its own.
+    const base = r.baseRevision ?? (record && record.tabId === r.tabId && record.revision === 1 ? 1 : null);
+    const project = record && r.baseRevision === null && base !== null ? { ...r.project, name: record.project.name } : r.project;
+    if (record && sameContent(record.project, project)) {
+      await s.removeRescue(key).catch(() => undefined);
+      continue;
+    }
+    let out: WriteOutcome | undefined;
+    if (record && base !== null && record.revision === base) {
+      out = await s.save(record.id, project, ownTabId, base);
+    } else if (r.storedId !== undefined && !read && r.baseRevision === null) {
+      const name = r.demoId !== undefined ? copyName(project.name, names, 'my copy') : project.name;
+      out = await s.create({ ...project, name }, ownTabId, { id: r.storedId, ...(r.demoId !== undefined ? { demoId: r.demoId } : {}) });
+    }
+    if (!out?.ok) {
+      if (out?.reason === 'write-failed') continue;
+      out = await s.create({ ...project, name: copyName(project.name, names) }, ownTabId);
+      if (!out.ok) continue;
+    }
+    const name = recordName(out.record as StoredProject);
+    names.push(name);
+    recovered.push(name);
+    await s.removeRescue(key).catch(() => undefined);
+  }
+  return recovered;
+}
