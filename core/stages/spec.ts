@@ -12,6 +12,7 @@ import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.t
 import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../ac/complex.ts';
 import { receivingVoltage } from '../ac/two-bus.ts';
 import { type PreparedLoss, fitConditioning, prepareLoss, weightedEfficiency } from './loss-model.ts';
+import { ranged } from './ranges.ts';
 
 /** The port an element's output presents to the elements it feeds. */
 export interface PortInfo {
@@ -135,7 +136,7 @@ export const efficiencyField = () =>
  */
 export const MIN_SOURCE_OHMS = 1e-12;
 export const sourceOhms = () =>
-  nonNegative('Ω').check(z.refine((v) => v <= 0 || v >= MIN_SOURCE_OHMS, { message: 'must be 0 (an ideal source) or at least 1e-12 Ω: a smaller value makes the short-circuit current overflow' }));
+  ranged('sourceOhms', 'non-negative', 'Ω').check(z.refine((v) => v <= 0 || v >= MIN_SOURCE_OHMS, { message: 'must be 0 (an ideal source) or at least 1e-12 Ω: a smaller value makes the short-circuit current overflow' }));
 export const idField = z.string({ error: 'must be text' }).check(z.minLength(1, 'must not be empty'));
 export const nameField = z.optional(z.string({ error: 'must be text' }));
 export const fromField = z.string({ error: 'must name the feeding element' }).check(z.minLength(1, 'must name the feeding element'));
@@ -145,7 +146,7 @@ export const phases = z.union([z.literal(1), z.literal(3)], { error: 'must be 1 
 const efficiencyPoints = z
   .array(
     z.strictObject({
-      loadFraction: positive('(a fraction of rated output, 0.1 = 10 %)'),
+      loadFraction: ranged('loadFraction', 'positive', '(a fraction of rated output, 0.1 = 10 %)'),
       efficiency: efficiencyField(),
     }),
     { error: 'must be a list of {loadFraction, efficiency} points' },
@@ -158,25 +159,25 @@ export const lossModelSchema = z.discriminatedUnion(
     z.strictObject({
       model: z.literal('constant'),
       efficiency: efficiencyField(),
-      idleLoss: z.optional(nonNegative('W')),
-      ratedPower: z.optional(positive('W')),
+      idleLoss: z.optional(ranged('power', 'non-negative')),
+      ratedPower: z.optional(ranged('ratedPower')),
     }),
     z.strictObject({
       model: z.literal('curve'),
-      ratedPower: positive('W'),
+      ratedPower: ranged('ratedPower'),
       points: efficiencyPoints,
-      idleLoss: z.optional(nonNegative('W')),
+      idleLoss: z.optional(ranged('power', 'non-negative')),
     }),
     z.strictObject({
       model: z.literal('polynomial'),
-      p0: nonNegative('W'),
-      k1: nonNegative(''),
-      k2: nonNegative('per W'),
-      ratedPower: z.optional(positive('W')),
+      p0: ranged('power', 'non-negative'),
+      k1: ranged('lossK1', 'non-negative'),
+      k2: ranged('lossK2', 'non-negative'),
+      ratedPower: z.optional(ranged('ratedPower')),
     }),
     z.strictObject({
       model: z.literal('polynomial-fit'),
-      ratedPower: positive('W'),
+      ratedPower: ranged('ratedPower'),
       points: efficiencyPoints.check(z.minLength(3, 'needs at least three datasheet points for a three-term fit')),
     }),
   ],
@@ -276,9 +277,23 @@ export function seriesLink(z: Complex, kind: PortKind) {
       const w = receivingVoltage(vIn, mul(z, conj(k)), scale(sOut, 1 / m));
       return w === null ? null : div(w, k);
     },
-    /** S_in = S_out + m·|I|²·Z with |I| = |S_out/m| / |V_out|. */
-    inputPower: (sOut: Complex, vOut: Complex): Complex => {
-      const i = abs(sOut) / m / abs(vOut);
+    /**
+     * S_in = S_out + m·|I|²·Z with |I| = |S_out/m| / |V_out|.
+     * Given the sending voltage V_s: while the link cannot deliver S_out from V_s at all (no
+     * two-bus solution, past the nose of its P–V curve) it has no operating point, and the loss at
+     * the last receiving voltage is fictitious and can be enormous (a 100 km run of thin wire
+     * starting from the no-load voltage: megawatts). Passed upstream, it drives the source or a
+     * feeder past its own limit first, and the refusal would land there. So, only then, |I| is
+     * counted at most at |V_s|/(2|Z|), the current at the link's maximum transfer (a resistive
+     * link): the forward sweep reaches this link and names it. Where the link can deliver S_out
+     * the figure is exact, so a converged operating point is unchanged.
+     */
+    inputPower: (sOut: Complex, vOut: Complex, vSend?: Complex): Complex => {
+      let i = abs(sOut) / m / abs(vOut);
+      if (vSend !== undefined) {
+        const atMaxTransfer = abs(vSend) / (2 * abs(z));
+        if (i > atMaxTransfer && receivingVoltage(vSend, z, scale(sOut, 1 / m)) === null) i = atMaxTransfer;
+      }
       return add(sOut, scale(z, m * i * i));
     },
   };

@@ -25,7 +25,8 @@ const studyArb = (maxFlowFraction: number, minFlowFraction = 0) =>
       motorLoad: uniform(0.5, 1.0),
       motorEff: uniform(0.8, 0.96),
       driveSize: uniform(1.0, 1.5),
-      duty: fc.array(fc.record({ f: uniform(minFlowFraction, maxFlowFraction), hours: uniform(0, 2000) }), { minLength: 1, maxLength: 4 }),
+      // A duty flow is above 0 (zero is refused, as the pump element's own flow): from 0.1 % of rated.
+      duty: fc.array(fc.record({ f: uniform(Math.max(minFlowFraction, 0.001), maxFlowFraction), hours: uniform(0, 2000) }), { minLength: 1, maxLength: 4 }),
     })
     .map((g) => {
       const pDesign = (1000 * 9.80665 * g.ratedFlow * g.ratedHead) / g.pumpEff;
