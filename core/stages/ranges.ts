@@ -106,6 +106,12 @@ export const RANGES = {
   seconds: { min: 0, max: 3600, unit: 's', what: 'a duration', prefix: false },
   /** Parallel cable sets, current-carrying conductors, grouped circuits: up to 1000. */
   conductorCount: { min: 1, max: 1000, unit: '', what: 'a number of conductors or circuits' },
+  /**
+   * A power factor: 0.001 up to 1. Below 0.001 the reactive power is over 1000 times the real power
+   * (Q = P·tan(arccos pf)), which overflows at 1e-308 and is no real load (a capacitor bank is given
+   * as a circuit load instead).
+   */
+  powerFactor: { min: 0.001, max: 1, unit: '', what: 'a power factor' },
   /** A transformer's short-circuit impedance: up to 100 % (practice: 2–20 %). */
   impedancePercent: { min: 0, max: 100, unit: '%', what: 'an impedance percent' },
 } as const satisfies Record<string, PlausibleRange>;

@@ -12,7 +12,7 @@ import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.t
 import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../ac/complex.ts';
 import { receivingVoltage } from '../ac/two-bus.ts';
 import { type PreparedLoss, fitConditioning, prepareLoss, weightedEfficiency } from './loss-model.ts';
-import { ranged } from './ranges.ts';
+import { RANGES, rangeText, ranged } from './ranges.ts';
 
 /** The port an element's output presents to the elements it feeds. */
 export interface PortInfo {
@@ -116,9 +116,15 @@ export const defineKind = <E extends Element>(spec: KindSpec<E>): KindSpec<E> =>
 const num = () => z.number({ error: 'must be a number' });
 export const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
 export const nonNegative = (unit: string) => num().check(z.gte(0, `must not be negative ${unit}`.trim()));
-/** Efficiency or power factor style quantity in (0, 1]. */
+/** Power factor in (0, 1], at least 0.001 (the range table's power factor). */
 export const unitFraction = (what: string) =>
-  num().check(z.gt(0, `${what} must be greater than 0`), z.lte(1, `${what} must not exceed 1 (enter 0.95 for 95 %)`));
+  num().check(
+    z.gt(0, `${what} must be greater than 0`),
+    z.lte(1, `${what} must not exceed 1 (enter 0.95 for 95 %)`),
+    z.superRefine((v: number, ctx) => {
+      if (v > 0 && v < RANGES.powerFactor.min) ctx.addIssue({ code: 'custom', message: `${what} must be at least ${RANGES.powerFactor.min}: the plausible range of a power factor is ${rangeText('powerFactor')}`, input: v });
+    }),
+  );
 /**
  * A converter's, motor's or pump's efficiency: the loss is P_out·(1/η − 1), so η near zero makes it
  * huge (1e-300 overflows every figure after it). Below 1 % no real machine is built: refused.

@@ -7,7 +7,7 @@ import { z } from 'zod/mini';
 import type { MotorStarting } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { CODE_LETTERS } from '../data/motor-code-letters.ts';
-import { ranged } from '../stages/ranges.ts';
+import { RANGES, rangeText, ranged } from '../stages/ranges.ts';
 
 const num = () => z.number({ error: 'must be a number' });
 const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
@@ -33,7 +33,15 @@ export const startingSchema = z.strictObject({
   startingCurrentRatio: z.optional(num().check(z.gt(1, 'must be above 1 (locked-rotor current / rated current; typical value 5–8: use the maker’s figure)'), z.lte(20, 'must not exceed 20'))),
   lockedRotorCurrent: z.optional(ranged('current')),
   currentLimit: z.optional(num().check(z.gt(1, 'must be above 1 (a multiple of full-load current; typical value 3–4: use the maker’s figure)'), z.lte(10, 'must not exceed 10'))),
-  startingPowerFactor: z.optional(num().check(z.gt(0, 'must be greater than 0'), z.lt(1, 'must be below 1 (at locked rotor; typical value 0.2–0.4: use the maker’s figure)'))),
+  startingPowerFactor: z.optional(
+    num().check(
+      z.gt(0, 'must be greater than 0'),
+      z.lt(1, 'must be below 1 (at locked rotor; typical value 0.2–0.4: use the maker’s figure)'),
+      z.superRefine((v: number, ctx) => {
+        if (v > 0 && v < RANGES.powerFactor.min) ctx.addIssue({ code: 'custom', message: `must be at least ${RANGES.powerFactor.min}: the plausible range of a power factor is ${rangeText('powerFactor')}`, input: v });
+      }),
+    ),
+  ),
   startSeconds: z.optional(ranged('seconds')),
   minTerminalVoltagePercent: z.optional(num().check(z.gt(0, 'must be greater than 0 %'), z.lt(100, 'must be below 100 %'))),
 });
