@@ -4,7 +4,8 @@
  * JSON), hostile ids (reserved object keys, empty, very long, control characters, duplicates, an
  * element fed from itself) and hostile shapes (a field removed, null, a list, an object, text,
  * true/false in its place) applied to any field. Every outcome of the solve, and of the battery
- * backup study and the surge and fault study where the project has them, is either
+ * backup study, the surge and fault study and the flow-control study where the project has them, is
+ * either
  * - a clean refusal: every problem names an element of the project (its id, or "#n" for the n-th
  *   element when it has no readable id, or "project") and a field where it is about one field,
  *   with a message in words (no NaN, Infinity, undefined, [object Object]); or
@@ -26,6 +27,7 @@ import { solveProject } from '../../core/solve/index.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { runBackupStudy } from '../../core/battery/study.ts';
 import { hasSurgeInputs, studySurges } from '../../core/surge/index.ts';
+import { projectFlowStudy } from '../../core/machines/project-flow.ts';
 import type { Problem } from '../../core/errors.ts';
 import { projectArb } from '../core/arbitraries.ts';
 import { RANGES } from '../../core/stages/ranges.ts';
@@ -187,6 +189,12 @@ function checkProject(project: Json): void {
     stats.studies++;
     if (study.ok) expect(findNonFinite(study.study)).toEqual([]);
     else expectCleanRefusal('backup study', study.problems, project);
+  }
+  if (project['flowStudy'] !== undefined) {
+    const flow = projectFlowStudy(project);
+    stats.studies++;
+    if (flow.ok) expect(findNonFinite(flow.result)).toEqual([]);
+    else expectCleanRefusal('flow-control study', flow.problems, project);
   }
   if (hasSurgeInputs(project)) {
     const surges = studySurges(project);
