@@ -87,19 +87,22 @@ export const RANGES = {
    * because the battery study probes the runtime with the bank made a million times larger
    * (withEndlessBank in core/battery/study.ts) and validates that project too: 1e6 Ah × 1e6.
    */
-  capacity: { min: 0, max: 1e12, unit: 'Ah', what: 'a capacity' },
+  capacity: { min: 0.001, max: 1e12, unit: 'Ah', what: 'a capacity' },
   /** Cells or blocks in series per string, strings in parallel: up to 10 000. */
   cellCount: { min: 1, max: 10_000, unit: '', what: 'a number of cells or strings' },
   /** Cells per block: up to 1000 (a 12 V lead-acid block has 6). */
   cellsPerBlock: { min: 1, max: 1000, unit: '', what: 'a number of cells per block' },
-  /** A cell's voltage (per cell, as the presets): up to 100 V, room for a block typed as a cell. */
-  cellVoltage: { min: 0, max: 100, unit: 'V', what: 'a cell voltage', prefix: true },
+  /**
+   * A cell's voltage (per cell, as the presets): from 0.1 V (below any cell's end of discharge, some
+   * 0.8–1.0 V for nickel cells) up to 100 V, room for a block typed as a cell.
+   */
+  cellVoltage: { min: 0.1, max: 100, unit: 'V', what: 'a cell voltage', prefix: true },
   /** Cell resistance × capacity: some 0.1–1 Ω·Ah in practice; 1000 Ω·Ah leaves room. */
   resistanceAh: { min: 0, max: 1000, unit: 'Ω·Ah', what: 'a resistance × capacity' },
-  /** Capacity factor against temperature: up to 10. */
-  capacityFactor: { min: 0, max: 10, unit: '', what: 'a capacity factor' },
-  /** A duration in hours (rated discharge hours): up to 10 000 h. */
-  hours: { min: 0, max: 1e4, unit: 'h', what: 'a number of hours' },
+  /** Capacity factor against temperature: 0.001 up to 10 (a bank at 0.1 % of its capacity is no bank). */
+  capacityFactor: { min: 0.001, max: 10, unit: '', what: 'a capacity factor' },
+  /** The hours a capacity is rated at (C/20 → 20 h): 0.01 h (a 100 C rating) up to 10 000 h. */
+  hours: { min: 0.01, max: 1e4, unit: 'h', what: 'a rated discharge time' },
   /** A charge or discharge rate: up to 1000 per hour (supercapacitor-like cells reach some 100 C). */
   cRate: { min: 0, max: 1000, unit: 'per hour', what: 'a charge or discharge rate' },
   /** A short duration (surge, motor start): up to 1 hour. */

@@ -14,6 +14,7 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
+import { problemsForField, type DraftProject } from '../../web/state/editor.ts';
 import { ABSOLUTE_ZERO_C, RANGES, boundText, rangeText, type Quantity } from '../../core/stages/ranges.ts';
 
 type Json = Record<string, unknown>;
@@ -203,6 +204,13 @@ describe('the range table: each message names the plausible range with its unit'
     const o = solveProject(d);
     expect(o.ok).toBe(false);
     if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'drive', field: 'outputFrequency', message: expect.stringContaining('must not exceed 1 kHz') }]);
+  });
+
+  it('the page\'s form field gets the same message (setField checks a value with problemsForField, web/state/editor.ts)', () => {
+    const d = demo('riverside-pump-station');
+    (d['elements'] as Json[]).find((e) => e['id'] === 'drive')!['outputFrequency'] = 1e20;
+    const atField = problemsForField(d as unknown as DraftProject, 'drive', 'outputFrequency');
+    expect(atField.map((p) => p.message)).toEqual(['must not exceed 1 kHz: the plausible range of a frequency is 0.1 Hz to 1 kHz (check the value and its unit)']);
   });
 
   it('an ambient below absolute zero (−273.15 °C, ISO 80000-5) says so; −80 °C is accepted', () => {
