@@ -103,8 +103,11 @@ export const RANGES = {
   capacityFactor: { min: 0.001, max: 10, unit: '', what: 'a capacity factor' },
   /** The hours a capacity is rated at (C/20 → 20 h): 0.01 h (a 100 C rating) up to 10 000 h. */
   hours: { min: 0.01, max: 1e4, unit: 'h', what: 'a rated discharge time' },
-  /** A charge or discharge rate: up to 1000 per hour (supercapacitor-like cells reach some 100 C). */
-  cRate: { min: 0, max: 1000, unit: 'per hour', what: 'a charge or discharge rate' },
+  /**
+   * A charge or discharge rate: from 0.001 per hour (C/1000, below any trickle charge; a subnormal
+   * rate made the recharge time infinite) up to 1000 per hour (supercapacitor-like cells reach some 100 C).
+   */
+  cRate: { min: 0.001, max: 1000, unit: 'per hour', what: 'a charge or discharge rate' },
   /** A short duration (surge, motor start): up to 1 hour. */
   seconds: { min: 0, max: 3600, unit: 's', what: 'a duration', prefix: false },
   /** Parallel cable sets, current-carrying conductors, grouped circuits: up to 1000. */

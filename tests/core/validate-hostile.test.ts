@@ -6,6 +6,7 @@ import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { studySurges } from '../../core/surge/index.ts';
+import { runBackupStudy } from '../../core/battery/study.ts';
 
 type Json = Record<string, unknown>;
 const project = (elements: unknown[]) => ({ format: 'joulepath-project', version: 1, name: 'hostile', elements });
@@ -60,5 +61,24 @@ describe('hostile-input counterexamples', () => {
     (motor['powerFactor'] as { points: { powerFactor: number }[] }).points[3]!.powerFactor = 0.001;
     const surges = studySurges(demo);
     if (surges.ok) expect(findNonFinite(surges.result)).toEqual([]);
+  });
+
+  it('a charge rate of 5e-324 C is refused at its field (the recharge refusal printed "Infinity h")', () => {
+    const demo = JSON.parse(readFileSync('core/demos/hillside-relay-hut.json', 'utf8')) as Json;
+    const bank = (demo['elements'] as Json[]).find((e) => e['kind'] === 'battery')!['bank'] as Json;
+    bank['overrides'] = { maxChargeCRate: 5e-324 };
+    const o = runBackupStudy(demo);
+    expect(o.ok).toBe(false);
+    // C/1000: the range table's slowest rate (core/stages/ranges.ts; common practice, no source).
+    if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'bank', field: 'bank.overrides.maxChargeCRate', message: expect.stringContaining('must be at least 0.001 per hour') }]);
+  });
+
+  it('a rated discharge time of 5e-324 h is refused at its field (the backup study gave an infinite rated current)', () => {
+    const demo = JSON.parse(readFileSync('core/demos/hillside-relay-hut.json', 'utf8')) as Json;
+    const bank = (demo['elements'] as Json[]).find((e) => e['kind'] === 'battery')!['bank'] as Json;
+    bank['overrides'] = { ratedHours: 5e-324 };
+    const o = runBackupStudy(demo);
+    expect(o.ok).toBe(false);
+    if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'bank', field: 'bank.overrides.ratedHours', message: expect.stringContaining('must be at least 0.01 h') }]);
   });
 });

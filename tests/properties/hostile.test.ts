@@ -40,7 +40,36 @@ const SEED = Number(process.env['JP_FC_SEED'] ?? '0') || 0;
 const CASE_BUDGET_MS = 2000;
 
 type Json = Record<string, unknown>;
-const DEMOS: readonly Json[] = ['cold-store-dc-bus', 'hillside-relay-hut', 'riverside-pump-station'].map((id) => JSON.parse(readFileSync(`core/demos/${id}.json`, 'utf8')) as Json);
+const demo = (id: string): Json => JSON.parse(readFileSync(`core/demos/${id}.json`, 'utf8')) as Json;
+
+/**
+ * The hillside demo with the bank's datasheet figures given (LiFePO4 figures of the kind a maker
+ * prints; invented here), so that the mutations reach every override the backup study reads.
+ */
+function hillsideWithOverrides(): Json {
+  const p = demo('hillside-relay-hut');
+  const bank = (p['elements'] as Json[]).find((e) => e['kind'] === 'battery')!['bank'] as Json;
+  bank['initialSoc'] = 0.95;
+  bank['overrides'] = {
+    nominalCellVoltage: 3.2,
+    ocvCurve: [{ soc: 0, voltage: 2.8 }, { soc: 0.5, voltage: 3.28 }, { soc: 1, voltage: 3.4 }],
+    endOfDischargeCellVoltage: 2.8,
+    peukertExponent: 1.05,
+    usableDepthOfDischarge: 0.9,
+    internalResistanceOhmAh: 0.1,
+    capacityVsTemperature: [{ temperatureC: -10, capacityFactor: 0.8 }, { temperatureC: 25, capacityFactor: 1 }, { temperatureC: 45, capacityFactor: 1.02 }],
+    roundTripEfficiency: 0.95,
+    ratedHours: 1,
+    chargeCellVoltage: 3.55,
+    floatCellVoltage: 3.4,
+    maxChargeCRate: 0.5,
+    maxDischargeCRate: 1,
+    minChargeTemperatureC: 0,
+  };
+  return p;
+}
+
+const DEMOS: readonly Json[] = [demo('cold-store-dc-bus'), demo('hillside-relay-hut'), demo('riverside-pump-station'), hillsideWithOverrides()];
 
 // ---------- hostile values ----------
 
