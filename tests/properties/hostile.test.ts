@@ -29,7 +29,7 @@ import { runBackupStudy } from '../../core/battery/study.ts';
 import { hasSurgeInputs, studySurges } from '../../core/surge/index.ts';
 import { projectFlowStudy } from '../../core/machines/project-flow.ts';
 import type { Problem } from '../../core/errors.ts';
-import { projectArb } from '../core/arbitraries.ts';
+import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
 import { RANGES } from '../../core/stages/ranges.ts';
 
 /** Multiply every numRuns by JP_FC_SCALE (default 1) for a longer hunt, e.g. JP_FC_SCALE=20. */
@@ -261,9 +261,9 @@ describe('hostile input: a clean refusal or a finite, balanced result; no throw,
     }
   }, 120_000 * SCALE);
 
-  it('small random trees of every kind with 1–3 hostile numbers, ids or shapes', () => {
+  it('small random trees of every kind (circuit loads too) with 1–3 hostile numbers, ids or shapes', () => {
     fc.assert(
-      fc.property(projectArb, fc.array(mutationArb, { minLength: 1, maxLength: 3 }), (project, mutations) => {
+      fc.property(fc.oneof(projectArb, projectWithNetworksArb), fc.array(mutationArb, { minLength: 1, maxLength: 3 }), (project, mutations) => {
         checkProject(mutate(project, mutations));
       }),
       { numRuns: 1500 * SCALE, seed: 15_010 + SEED, endOnFailure: true },
