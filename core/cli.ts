@@ -53,7 +53,7 @@ function readInput(file: string, what: string): { ok: true; text: string } | { o
   } catch (err) {
     return { ok: false, message: `cannot read ${what} ${file}: ${(err as Error).message}` };
   }
-  if (size > MAX_INPUT_BYTES) return { ok: false, message: `cannot read ${what} ${file}: it is ${MB(size)}; project files are limited to ${MB(MAX_INPUT_BYTES)}` };
+  if (size > MAX_INPUT_BYTES) return { ok: false, message: `cannot read ${what} ${file}: it is ${MB(size)} (${size} bytes); project files are limited to ${MB(MAX_INPUT_BYTES)} (${MAX_INPUT_BYTES} bytes), as on the page` };
   let bytes: Buffer;
   try {
     // O_NONBLOCK: should the path have become a FIFO since the check, opening it does not wait.
@@ -63,7 +63,7 @@ function readInput(file: string, what: string): { ok: true; text: string } | { o
       const buf = Buffer.alloc(MAX_INPUT_BYTES + 1);
       let n = 0;
       for (let got = -1; got !== 0 && n < buf.length; n += got) got = readSync(fd, buf, n, buf.length - n, null);
-      if (n > MAX_INPUT_BYTES) return { ok: false, message: `cannot read ${what} ${file}: it is over ${MB(MAX_INPUT_BYTES)}, the limit of project files` };
+      if (n > MAX_INPUT_BYTES) return { ok: false, message: `cannot read ${what} ${file}: it is over ${MB(MAX_INPUT_BYTES)} (${MAX_INPUT_BYTES} bytes), the limit of project files` };
       bytes = buf.subarray(0, n);
     } finally {
       closeSync(fd);

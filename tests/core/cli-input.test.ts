@@ -62,7 +62,7 @@ describe('CLI input files', () => {
     closeSync(fd);
     const err = refused(run(f));
     expect(err.trim().split('\n')).toHaveLength(1);
-    expect(err).toMatch(/5\.0 MB/);
+    expect(err).toMatch(/5242881 bytes\); project files are limited to 5\.0 MB \(5242880 bytes\)/);
     // Exactly at the limit is not refused for its size (it is refused as not JSON: zero bytes).
     const at = join(scratch, 'at-limit.json');
     const fd2 = openSync(at, 'w');
