@@ -82,3 +82,23 @@ describe('hostile-input counterexamples', () => {
     if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'bank', field: 'bank.overrides.ratedHours', message: expect.stringContaining('must be at least 0.01 h') }]);
   });
 });
+
+describe('reserved ids (issue 15, point 5, on the engine side)', () => {
+  // Object.prototype's own keys (ECMAScript 2024, 20.1.3) and "__proto__": a plain-object lookup finds them on every object.
+  for (const id of ['__proto__', 'toString', 'constructor', 'hasOwnProperty', 'valueOf']) {
+    it(`a load with the id "${id}" is refused at its id (the backup study reported a voltage collapse at the bank)`, () => {
+      const text = readFileSync('core/demos/hillside-relay-hut.json', 'utf8').replaceAll('"fridge"', JSON.stringify(id));
+      const demo = JSON.parse(text) as Json;
+      const solved = solveProject(demo);
+      expect(solved.ok).toBe(false);
+      if (!solved.ok) expect(solved.problems).toMatchObject([{ elementId: id, field: 'id', message: expect.stringContaining('reserves') }]);
+      const study = runBackupStudy(demo);
+      expect(study.ok).toBe(false);
+      if (!study.ok) expect(study.problems.map((p) => [p.elementId, p.field])).toContainEqual([id, 'id']);
+    });
+  }
+  it('an ordinary id that merely contains such a word is accepted', () => {
+    const text = readFileSync('core/demos/hillside-relay-hut.json', 'utf8').replaceAll('"fridge"', '"constructor-fridge"');
+    expect(solveProject(JSON.parse(text)).ok).toBe(true);
+  });
+});
