@@ -22,7 +22,8 @@
  *   sized to the motor; interpolated bilinearly (core/machines/drive-loss.ts).
  * Assumption throughout: pump efficiency is constant (the affinity laws' own assumption); real pumps
  * lose efficiency away from their best point and at low speed, which the result does not include.
- * A duty row with zero flow counts as the pump stopped, for every method.
+ * A duty row's flow must be greater than 0, as the pump element's own flow (a study of a pump that
+ * stands still is refused; hours it stands still use no energy by any method and are left out).
  */
 import type { Problem } from '../errors.ts';
 import type { DriveStandardLoss, MotorEfficiencyClass, MotorStage, PumpCurve } from '../model.ts';
@@ -153,6 +154,9 @@ export interface FlowControlResult {
 
 export type FlowControlOutcome = { ok: true; result: FlowControlResult } | { ok: false; problems: Problem[] };
 
+/** A duty row's flow of 0 or less: refused in the pump element's words for its own flow (core/stages/pump.ts). */
+export const DUTY_FLOW_MESSAGE = 'must be greater than 0 m³/s, as the pump\'s own flow (hours the pump stands still use no energy by any method: leave them out)';
+
 const finite = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
 
 const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
@@ -187,7 +191,7 @@ function checkInput(s: FlowStudyInput, id: string): Problem[] {
   else {
     let total = 0;
     s.duty.forEach((d, i) => {
-      if (!finite(d.flow) || d.flow < 0) bad(`duty[${i}].flow`, d.flow, 'must not be negative m³/s');
+      if (!finite(d.flow) || d.flow <= 0) bad(`duty[${i}].flow`, d.flow, DUTY_FLOW_MESSAGE);
       else if (finite(p.ratedFlow) && d.flow > p.ratedFlow * (1 + 1e-9)) bad(`duty[${i}].flow`, d.flow, `is above the rated flow ${p.ratedFlow} m³/s, which the system reaches at full speed (the design point)`);
       if (!finite(d.hours) || d.hours < 0) bad(`duty[${i}].hours`, d.hours, 'must not be negative h');
       else total += d.hours;

@@ -101,6 +101,18 @@ export type ProjectFlowOutcome = { ok: true; result: FlowControlResult; input: F
 
 const STUDY = 'flowStudy';
 
+/**
+ * A problem of the project's flow study: it belongs to the project (no element has the id
+ * "flowStudy"), at the field's path as the validation writes it, e.g. "flowStudy.duty.1.flow".
+ */
+const studyProblem = (field: string, value: unknown, message: string): Problem => ({
+  code: 'invalid-value',
+  elementId: 'project',
+  field: `${STUDY}${field ? `.${field.replace(/\[(\d+)\]/g, '.$1')}` : ''}`,
+  value,
+  message,
+});
+
 /** Build the study input from the chain (pump, its motor, the drive above) and run compareFlowControl. */
 export function projectFlowStudy(input: unknown): ProjectFlowOutcome {
   const valid = validateProject(input);
@@ -110,15 +122,15 @@ export function projectFlowStudy(input: unknown): ProjectFlowOutcome {
   if (study === undefined) return { ok: false, problems: [{ code: 'invalid-value', elementId: 'project', field: STUDY, message: 'is required for a flow-control study ({ pump, duty })' }] };
   const elements = byId(project);
   const pump = elements.get(study.pump);
-  if (!pump) return { ok: false, problems: [{ code: 'invalid-value', elementId: STUDY, field: 'pump', value: study.pump, message: `names no element of the project (give the id of a pump element)` }] };
-  if (pump.kind !== 'pump') return { ok: false, problems: [{ code: 'invalid-value', elementId: STUDY, field: 'pump', value: study.pump, message: `names a "${pump.kind}" element, not a pump` }] };
+  if (!pump) return { ok: false, problems: [studyProblem('pump', study.pump, `names no element of the project (give the id of a pump element)`)] };
+  if (pump.kind !== 'pump') return { ok: false, problems: [studyProblem('pump', study.pump, `names a "${pump.kind}" element, not a pump`)] };
   const problems: Problem[] = [];
   let total = 0;
   study.duty.forEach((d, i) => {
-    if (d.flow > pump.ratedFlow * (1 + 1e-9)) problems.push({ code: 'invalid-value', elementId: STUDY, field: `duty[${i}].flow`, value: d.flow, message: `is above the rated flow ${pump.ratedFlow} m³/s of pump "${pump.id}", which the system reaches at full speed` });
+    if (d.flow > pump.ratedFlow * (1 + 1e-9)) problems.push(studyProblem(`duty[${i}].flow`, d.flow, `is above the rated flow ${pump.ratedFlow} m³/s of pump "${pump.id}", which the system reaches at full speed`));
     total += d.hours;
   });
-  if (total > HOURS_PER_YEAR * (1 + 1e-12)) problems.push({ code: 'invalid-value', elementId: STUDY, field: 'duty', value: total, message: `the hours add up to ${total} h, more than the ${HOURS_PER_YEAR} h of a year` });
+  if (total > HOURS_PER_YEAR * (1 + 1e-12)) problems.push(studyProblem('duty', total, `the hours add up to ${total} h, more than the ${HOURS_PER_YEAR} h of a year`));
   if (problems.length) return { ok: false, problems };
 
   const motor = elements.get(pump.from) as MotorStage;
@@ -179,5 +191,5 @@ function renameProblem(p: Problem, pump: PumpLoad, motor: MotorStage, drive: Dri
   if (f === 'staticHead') return { ...p, elementId: pump.id };
   if (f === 'motor' || f.startsWith('motor.')) return { ...p, elementId: motor.id, field: f === 'motor' ? '' : f.slice(6) };
   if (f.startsWith('drive.') && drive) return { ...p, elementId: drive.id, field: `standardLoss.${f.slice(6)}` };
-  return p;
+  return p.elementId === STUDY ? { ...studyProblem(f, p.value, p.message), code: p.code } : p;
 }

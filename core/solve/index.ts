@@ -20,8 +20,10 @@ export type SolveOutcome = { ok: true; result: SolveResult } | { ok: false; prob
 export function solveProject(input: unknown): SolveOutcome {
   const valid = validateProject(input);
   if (!valid.ok) {
-    // Every field is fine and only the tree is wrong: also report the port-kind mismatches.
-    const ports = valid.project ? plan(valid.project) : undefined;
+    // Every field is fine and only the tree is wrong: also report the port-kind mismatches. Not with
+    // two elements of one id: the plan would take the second's children as the first's, build a
+    // stage fed by a load's missing port, or walk a loop without end (found by tests/properties/hostile.test.ts).
+    const ports = valid.project && !valid.problems.some((p) => p.code === 'duplicate-id') ? plan(valid.project) : undefined;
     return { ok: false, problems: ports && !ports.ok ? [...valid.problems, ...ports.problems] : valid.problems };
   }
   // Conductor links get their size and impedance; the chain is solved with them in place.

@@ -78,6 +78,16 @@ function tooBig(issue: Extract<RawIssue, { code: 'too_big' }>): string {
   }
 }
 
+/**
+ * The message for an element's `kind` that is missing or not one of the known kinds (the kind picks
+ * the schema, so it is checked before any schema runs): never "unknown kind undefined".
+ */
+export function unknownKindMessage(kind: unknown, known: readonly string[]): string {
+  const expected = `one of ${known.join(', ')}`;
+  if (kind === undefined) return `is required: ${expected}`;
+  return typeof kind === 'string' ? `unknown kind ${JSON.stringify(kind)}; expected ${expected}` : `unknown kind: ${given(kind)}; expected ${expected}`;
+}
+
 /** The message of a schema issue that has none of its own. Never empty, never zod's wording. */
 export function issueMessage(issue: RawIssue): string {
   switch (issue.code) {

@@ -7,7 +7,7 @@ import type { Element, Project } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { KINDS } from '../stages/index.ts';
 import { checkStructure, skeletonOf } from './structure.ts';
-import { issueMessage } from './issue-messages.ts';
+import { issueMessage, unknownKindMessage } from './issue-messages.ts';
 import { backupSchema } from '../battery/profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { flowStudySchema } from '../stages/pump.ts';
@@ -70,7 +70,7 @@ function validateElement(raw: unknown, index: number): { element?: Element; prob
           elementId: id,
           field: 'kind',
           value: kind,
-          message: `unknown kind ${JSON.stringify(kind)}; expected one of ${[...KINDS.keys()].join(', ')}`,
+          message: unknownKindMessage(kind, [...KINDS.keys()]),
         },
       ],
     };

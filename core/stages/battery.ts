@@ -11,44 +11,45 @@ import { c } from '../ac/complex.ts';
 import { CHEMISTRIES } from '../data/battery-chemistries.ts';
 import { checkBank, resolveBank } from '../battery/bank.ts';
 import { protectiveDeviceSchema } from '../surge/schema.ts';
-import { defineKind, idField, nameField, nonNegative, positive, sourceOhms } from './spec.ts';
+import { defineKind, idField, nameField, sourceOhms } from './spec.ts';
 import { seriesLink } from './spec.ts';
+import { outOfRange, ranged, rangedCount } from './ranges.ts';
 
 const num = () => z.number({ error: 'must be a number' });
 const fraction = (what: string) => num().check(z.gt(0, `${what} must be greater than 0`), z.lte(1, `${what} must not exceed 1 (enter 0.9 for 90 %)`));
-const wholeAtLeastOne = z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'));
+
 
 const overridesSchema = z.partial(
   z.strictObject({
-    nominalCellVoltage: positive('V'),
+    nominalCellVoltage: ranged('cellVoltage'),
     ocvCurve: z
-      .array(z.strictObject({ soc: num().check(z.gte(0, 'must be 0 or more'), z.lte(1, 'must not exceed 1')), voltage: positive('V') }), {
+      .array(z.strictObject({ soc: num().check(z.gte(0, 'must be 0 or more'), z.lte(1, 'must not exceed 1')), voltage: ranged('cellVoltage') }), {
         error: 'must be a list of {soc, voltage} points',
       })
       .check(z.minLength(2, 'needs at least two points')),
-    endOfDischargeCellVoltage: positive('V'),
+    endOfDischargeCellVoltage: ranged('cellVoltage'),
     peukertExponent: num().check(z.gte(1, 'must be at least 1 (1 = no rate effect)'), z.lte(2, 'must not exceed 2 (published exponents are 1.0–1.6)')),
     usableDepthOfDischarge: fraction('depth of discharge'),
-    internalResistanceOhmAh: nonNegative('Ω·Ah'),
+    internalResistanceOhmAh: ranged('resistanceAh', 'non-negative'),
     capacityVsTemperature: z
-      .array(z.strictObject({ temperatureC: num(), capacityFactor: positive('') }), { error: 'must be a list of {temperatureC, capacityFactor} points' })
+      .array(z.strictObject({ temperatureC: ranged('temperature', 'range'), capacityFactor: ranged('capacityFactor') }), { error: 'must be a list of {temperatureC, capacityFactor} points' })
       .check(z.minLength(1, 'needs at least one point')),
     roundTripEfficiency: fraction('efficiency'),
-    ratedHours: positive('h'),
-    chargeCellVoltage: positive('V'),
-    floatCellVoltage: positive('V'),
-    maxChargeCRate: positive('per hour'),
-    maxDischargeCRate: positive('per hour'),
-    minChargeTemperatureC: num(),
+    ratedHours: ranged('hours'),
+    chargeCellVoltage: ranged('cellVoltage'),
+    floatCellVoltage: ranged('cellVoltage'),
+    maxChargeCRate: ranged('cRate'),
+    maxDischargeCRate: ranged('cRate'),
+    minChargeTemperatureC: ranged('temperature', 'range'),
   }),
 );
 
 export const bankSchema = z.strictObject({
   chemistry: z.enum(CHEMISTRIES as [string, ...string[]], { error: `must be one of ${CHEMISTRIES.join(', ')}` }),
-  series: wholeAtLeastOne,
-  strings: z.optional(wholeAtLeastOne),
-  cellsPerBlock: z.optional(wholeAtLeastOne),
-  capacityAh: positive('Ah'),
+  series: rangedCount('cellCount'),
+  strings: z.optional(rangedCount('cellCount')),
+  cellsPerBlock: z.optional(rangedCount('cellsPerBlock')),
+  capacityAh: ranged('capacity'),
   initialSoc: z.optional(fraction('state of charge')),
   overrides: z.optional(overridesSchema),
 });
@@ -64,7 +65,7 @@ export const batteryKind = defineKind<BatterySource>({
     id: idField,
     name: nameField,
     kind: z.literal('battery'),
-    voltage: z.optional(positive('V')),
+    voltage: z.optional(ranged('voltage')),
     internalResistance: z.optional(sourceOhms()),
     bank: z.optional(bankSchema),
     bankFuse: z.optional(protectiveDeviceSchema),
@@ -76,6 +77,15 @@ export const batteryKind = defineKind<BatterySource>({
         : [];
     }
     const problems = checkBank(e.bank);
+    if (problems.length === 0) {
+      // Each field is in its range, but cells × blocks × cell voltage may still give a bank no chain has.
+      const ocv = resolveBank(e.bank).initialOcv;
+      const wrong = outOfRange('voltage', ocv);
+      if (wrong !== null) {
+        problems.push({ code: 'invalid-value', field: 'bank.series', value: e.bank.series, message: `gives a bank open-circuit voltage of ${Number(ocv.toPrecision(4))} V; the bank's voltage ${wrong}` });
+        return problems;
+      }
+    }
     if (problems.length === 0 && e.voltage !== undefined) {
       const ocv = resolveBank(e.bank).initialOcv;
       if (Math.abs(e.voltage - ocv) > VOLTAGE_AGREEMENT * ocv) {
@@ -96,7 +106,7 @@ export const batteryKind = defineKind<BatterySource>({
     return {
       out: { kind: 'dc' },
       outputVoltage: (_vIn, sOut, y) => link.outputVoltage(source, sOut, y),
-      inputPower: (sOut, _vIn, vOut) => link.inputPower(sOut, vOut),
+      inputPower: (sOut, _vIn, vOut) => link.inputPower(sOut, vOut, source),
       report: () => ({ warnings: [] }),
     };
   },

@@ -9,19 +9,20 @@ import { z } from 'zod/mini';
 import type { CableStage } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { protectiveDeviceSchema } from '../surge/schema.ts';
-import { defineKind, fromField, idField, nameField, nonNegative, positive, seriesLink } from './spec.ts';
+import { defineKind, fromField, idField, nameField, positive, seriesLink } from './spec.ts';
+import { ranged, rangedCount } from './ranges.ts';
 
 const rating = z.union([z.literal(60), z.literal(75), z.literal(90)], { error: 'must be 60, 75 or 90 (°C)' });
 const common = {
   material: z.enum(['copper', 'aluminium'], { error: 'must be "copper" or "aluminium"' }),
   size: z.string({ error: 'must be a size from the table (e.g. "4 AWG", "2.5 mm²") or "auto"' }).check(z.minLength(1, 'must not be empty')),
-  ambient: z.optional(z.number({ error: 'must be a number (°C)' })),
+  ambient: z.optional(ranged('temperature', 'range')),
   continuous: z.optional(z.boolean({ error: 'must be true or false' })),
   maxDropPercent: z.optional(positive('%').check(z.lte(100, 'must not exceed 100 %'))),
   designCurrentBasis: z.optional(
     z.enum(['auto', 'load', 'equipment', 'given'], { error: 'must be "auto", "load", "equipment" or "given"' }),
   ),
-  designCurrent: z.optional(positive('A')),
+  designCurrent: z.optional(ranged('current')),
 };
 
 /**
@@ -37,7 +38,7 @@ const conductorSchema = z.discriminatedUnion(
       insulationRating: rating,
       terminationRating: z.optional(rating),
       raceway: z.optional(z.enum(['pvc', 'aluminum', 'steel'], { error: 'must be "pvc", "aluminum" or "steel" (NEC Chapter 9 Table 9 raceway)' })),
-      currentCarryingConductors: z.optional(z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'))),
+      currentCarryingConductors: z.optional(rangedCount('conductorCount')),
       multioutletBranch: z.optional(z.boolean({ error: 'must be true or false' })),
       motorDevice: z.optional(
         z.enum(['inverse-time-breaker', 'time-delay-fuse', 'non-time-delay-fuse'], { error: 'must be "inverse-time-breaker", "time-delay-fuse" or "non-time-delay-fuse"' }),
@@ -51,7 +52,7 @@ const conductorSchema = z.discriminatedUnion(
         error: 'must be an IEC 60364-5-52 reference method: A1, A2, B1, B2, C, D1, D2, E, F or G',
       }),
       loadedConductors: z.optional(z.union([z.literal(2), z.literal(3)], { error: 'must be 2 or 3' })),
-      groupedCircuits: z.optional(z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'))),
+      groupedCircuits: z.optional(rangedCount('conductorCount')),
       deviceType: z.optional(z.enum(['circuit-breaker', 'gG-fuse'], { error: 'must be "circuit-breaker" or "gG-fuse"' })),
     }),
   ],
@@ -67,11 +68,11 @@ export const cableKind = defineKind<CableStage>({
     name: nameField,
     kind: z.literal('cable'),
     from: fromField,
-    length: positive('m'),
-    resistancePerKm: z.optional(positive('Ω/km')),
-    reactancePerKm: z.optional(nonNegative('Ω/km')),
+    length: ranged('length'),
+    resistancePerKm: z.optional(ranged('resistancePerKm')),
+    reactancePerKm: z.optional(ranged('reactancePerKm', 'non-negative')),
     conductor: z.optional(conductorSchema),
-    parallelSets: z.optional(z.number({ error: 'must be a number' }).check(z.int('must be a whole number'), z.gte(1, 'must be at least 1'))),
+    parallelSets: z.optional(rangedCount('conductorCount')),
     protection: z.optional(protectiveDeviceSchema),
   }) as z.ZodMiniType<CableStage>,
   check(e) {
@@ -102,7 +103,7 @@ export const cableKind = defineKind<CableStage>({
     return {
       out: { ...input! },
       outputVoltage: (vIn, sOut, y) => link.outputVoltage(vIn, sOut, y),
-      inputPower: (sOut, _vIn, vOut) => link.inputPower(sOut, vOut),
+      inputPower: (sOut, vIn, vOut) => link.inputPower(sOut, vOut, vIn),
       report: () => ({ warnings: [] }),
     };
   },

@@ -2,7 +2,8 @@
 import { z } from 'zod/mini';
 import type { DcBusStage } from '../model.ts';
 import { c } from '../ac/complex.ts';
-import { defineKind, fromField, idField, nameField, nonNegative } from './spec.ts';
+import { defineKind, fromField, idField, nameField } from './spec.ts';
+import { ranged } from './ranges.ts';
 
 export const dcbusKind = defineKind<DcBusStage>({
   kind: 'dcbus',
@@ -13,7 +14,7 @@ export const dcbusKind = defineKind<DcBusStage>({
     name: nameField,
     kind: z.literal('dcbus'),
     from: fromField,
-    fixedLoss: nonNegative('W'),
+    fixedLoss: ranged('power', 'non-negative'),
   }) as z.ZodMiniType<DcBusStage>,
   build: (e) => ({
     out: { kind: 'dc' },

@@ -16,13 +16,14 @@
 import { z } from 'zod/mini';
 import type { DriveStage } from '../model.ts';
 import { c } from '../ac/complex.ts';
-import { checkLossModel, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, positive, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
+import { checkLossModel, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
 import { driveLossAt, driveLossGrid } from '../machines/drive-loss.ts';
+import { ranged } from './ranges.ts';
 
 const standardLossSchema = z.strictObject({
-  ratedApparentPower: positive('VA'),
+  ratedApparentPower: ranged('ratedApparentPower'),
   basis: z.enum(['cdm', 'pds'], { error: 'must be "cdm" (drive module: top point 90 % frequency) or "pds" (drive + motor: top point 100 % speed)' }),
-  points: z.optional(z.array(z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative W')), { error: 'must be a list of eight losses, W' })),
+  points: z.optional(z.array(ranged('power', 'non-negative'), { error: 'must be a list of eight losses, W' })),
 });
 
 /** Speed fraction of the driven motor: drive output frequency / motor rated frequency. */
@@ -51,16 +52,16 @@ export const driveKind = defineKind<DriveStage>({
     name: nameField,
     kind: z.literal('drive'),
     from: fromField,
-    outputVoltage: positive('V'),
-    outputFrequency: positive('Hz'),
+    outputVoltage: ranged('voltage'),
+    outputFrequency: ranged('frequency'),
     inputPowerFactor: unitFraction('power factor'),
     loss: z.optional(lossModelSchema),
     standardLoss: z.optional(standardLossSchema),
-    motorRatedFrequency: z.optional(positive('Hz')),
+    motorRatedFrequency: z.optional(ranged('frequency')),
     currentThd: z.optional(z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative'), z.lte(3, 'must not exceed 3 (enter 0.35 for 35 %)'))),
-    singlePhaseRating: z.optional(positive('VA')),
+    singlePhaseRating: z.optional(ranged('ratedApparentPower')),
     // Maker's rating, read by conductor sizing only (the solve does not use it).
-    ratedInputCurrent: z.optional(positive('A')),
+    ratedInputCurrent: z.optional(ranged('current')),
   }) as z.ZodMiniType<DriveStage>,
   check(e) {
     if ((e.loss === undefined) === (e.standardLoss === undefined)) {

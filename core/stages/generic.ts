@@ -1,7 +1,8 @@
 /** A converting stage with user-chosen input and output kinds (regulated output). */
 import { z } from 'zod/mini';
 import type { GenericStage } from '../model.ts';
-import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, positive, regulatingConverter, unitFraction } from './spec.ts';
+import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, regulatingConverter, unitFraction } from './spec.ts';
+import { ranged } from './ranges.ts';
 
 const electrical = z.enum(['dc', 'ac1', 'ac3'], { error: 'must be "dc", "ac1" or "ac3"' });
 
@@ -16,8 +17,8 @@ export const genericKind = defineKind<GenericStage>({
     from: fromField,
     inputKind: electrical,
     outputKind: electrical,
-    outputVoltage: positive('V'),
-    outputFrequency: z.optional(positive('Hz')),
+    outputVoltage: ranged('voltage'),
+    outputFrequency: z.optional(ranged('frequency')),
     inputPowerFactor: z.optional(unitFraction('power factor')),
     inputPfSense: pfSense,
     loss: lossModelSchema,

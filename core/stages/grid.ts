@@ -7,18 +7,19 @@ import { z } from 'zod/mini';
 import type { AcSource } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { sourceFaultFields } from '../surge/schema.ts';
-import { defineKind, fmtW, idField, nameField, nonNegative, perPhase, phases, positive, seriesLink, sourceOhms } from './spec.ts';
+import { defineKind, fmtW, idField, nameField, perPhase, phases, seriesLink, sourceOhms } from './spec.ts';
+import { ranged } from './ranges.ts';
 
 const schema = z.strictObject({
   id: idField,
   name: nameField,
   kind: z.enum(['grid', 'generator']),
   phases,
-  voltage: positive('V'),
-  frequency: positive('Hz'),
+  voltage: ranged('voltage'),
+  frequency: ranged('frequency'),
   resistance: z.optional(sourceOhms()),
   reactance: z.optional(sourceOhms()),
-  ratedApparentPower: z.optional(positive('VA')),
+  ratedApparentPower: z.optional(ranged('ratedApparentPower')),
   ...sourceFaultFields,
 });
 
@@ -35,7 +36,7 @@ const spec = (kind: 'grid' | 'generator') =>
       return {
         out: { kind: portKind, frequency: e.frequency },
         outputVoltage: (_vIn, sOut, y) => link.outputVoltage(emf, sOut, y),
-        inputPower: (sOut, _vIn, vOut) => link.inputPower(sOut, vOut),
+        inputPower: (sOut, _vIn, vOut) => link.inputPower(sOut, vOut, emf),
         report(sOut) {
           const s = Math.hypot(sOut.re, sOut.im);
           const rated = e.ratedApparentPower;

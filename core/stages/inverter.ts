@@ -2,7 +2,8 @@
 import { z } from 'zod/mini';
 import type { InverterStage } from '../model.ts';
 import { surgeSchema } from '../surge/schema.ts';
-import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, phases, positive, regulatingConverter } from './spec.ts';
+import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, phases, regulatingConverter } from './spec.ts';
+import { ranged } from './ranges.ts';
 
 export const inverterKind = defineKind<InverterStage>({
   kind: 'inverter',
@@ -14,13 +15,13 @@ export const inverterKind = defineKind<InverterStage>({
     kind: z.literal('inverter'),
     from: fromField,
     phases,
-    outputVoltage: positive('V'),
-    frequency: positive('Hz'),
+    outputVoltage: ranged('voltage'),
+    frequency: ranged('frequency'),
     loss: lossModelSchema,
     surge: z.optional(surgeSchema),
-    lowVoltageCutoff: z.optional(positive('V')),
+    lowVoltageCutoff: z.optional(ranged('voltage')),
     // Maker's rating, read by conductor sizing only (the solve does not use it).
-    ratedOutputPower: z.optional(positive('W')),
+    ratedOutputPower: z.optional(ranged('ratedPower')),
   }) as z.ZodMiniType<InverterStage>,
   check: (e) => checkLossModel(e.loss),
   build: (e) =>

@@ -7,7 +7,8 @@
 import { z } from 'zod/mini';
 import type { AcApparentLoad, AcCurrentLoad, AcPowerLoad, DcCurrentLoad, DcLoad, ShaftLoad } from '../model.ts';
 import { c } from '../ac/complex.ts';
-import { constantCurrentLoad, constantPowerLoad, defineKind, fromField, idField, nameField, nonNegative, pfSense, reactiveFromPf, unitFraction } from './spec.ts';
+import { constantCurrentLoad, constantPowerLoad, defineKind, fromField, idField, nameField, pfSense, reactiveFromPf, unitFraction } from './spec.ts';
+import { ranged } from './ranges.ts';
 
 const base = { id: idField, name: nameField, from: fromField };
 
@@ -15,7 +16,7 @@ export const dcLoadKind = defineKind<DcLoad>({
   kind: 'dc-load',
   role: 'load',
   accepts: () => ['dc'],
-  schema: z.strictObject({ ...base, kind: z.literal('dc-load'), power: nonNegative('W') }) as z.ZodMiniType<DcLoad>,
+  schema: z.strictObject({ ...base, kind: z.literal('dc-load'), power: ranged('power', 'non-negative') }) as z.ZodMiniType<DcLoad>,
   build: (e) => constantPowerLoad(c(e.power)),
 });
 
@@ -26,7 +27,7 @@ export const acLoadKind = defineKind<AcPowerLoad>({
   schema: z.strictObject({
     ...base,
     kind: z.literal('ac-load'),
-    power: nonNegative('W'),
+    power: ranged('power', 'non-negative'),
     powerFactor: unitFraction('power factor'),
     pfSense,
   }) as z.ZodMiniType<AcPowerLoad>,
@@ -40,7 +41,7 @@ export const acVaLoadKind = defineKind<AcApparentLoad>({
   schema: z.strictObject({
     ...base,
     kind: z.literal('ac-va-load'),
-    apparentPower: nonNegative('VA'),
+    apparentPower: ranged('apparentPower', 'non-negative'),
     powerFactor: unitFraction('power factor'),
     pfSense,
   }) as z.ZodMiniType<AcApparentLoad>,
@@ -54,7 +55,7 @@ export const shaftLoadKind = defineKind<ShaftLoad>({
   kind: 'shaft-load',
   role: 'load',
   accepts: () => ['shaft'],
-  schema: z.strictObject({ ...base, kind: z.literal('shaft-load'), power: nonNegative('W') }) as z.ZodMiniType<ShaftLoad>,
+  schema: z.strictObject({ ...base, kind: z.literal('shaft-load'), power: ranged('power', 'non-negative') }) as z.ZodMiniType<ShaftLoad>,
   build: (e) => constantPowerLoad(c(e.power)),
 });
 
@@ -62,7 +63,7 @@ export const dcCurrentLoadKind = defineKind<DcCurrentLoad>({
   kind: 'dc-current-load',
   role: 'load',
   accepts: () => ['dc'],
-  schema: z.strictObject({ ...base, kind: z.literal('dc-current-load'), current: nonNegative('A') }) as z.ZodMiniType<DcCurrentLoad>,
+  schema: z.strictObject({ ...base, kind: z.literal('dc-current-load'), current: ranged('current', 'non-negative') }) as z.ZodMiniType<DcCurrentLoad>,
   build: (e) => constantCurrentLoad(c(e.current), 'dc'),
 });
 
@@ -73,7 +74,7 @@ export const acCurrentLoadKind = defineKind<AcCurrentLoad>({
   schema: z.strictObject({
     ...base,
     kind: z.literal('ac-current-load'),
-    current: nonNegative('A'),
+    current: ranged('current', 'non-negative'),
     powerFactor: unitFraction('power factor'),
     pfSense,
   }) as z.ZodMiniType<AcCurrentLoad>,

@@ -15,9 +15,10 @@ import { z } from 'zod/mini';
 import type { MotorStage, PowerFactorModel } from '../model.ts';
 import { c } from '../ac/complex.ts';
 import { prepareLoss, interpolate } from './loss-model.ts';
-import { checkLossModel, checkPoints, defineKind, efficiencyField, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, positive, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
+import { checkLossModel, checkPoints, defineKind, efficiencyField, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
 import { MOTOR_CLASSES, motorRating, ratedAt } from '../machines/motor-rating.ts';
 import { checkStarting, startingSchema } from '../surge/schema.ts';
+import { ranged } from './ranges.ts';
 
 const pfModel = z.discriminatedUnion(
   'model',
@@ -26,7 +27,7 @@ const pfModel = z.discriminatedUnion(
     z.strictObject({
       model: z.literal('curve'),
       points: z
-        .array(z.strictObject({ loadFraction: positive('(a fraction of rated output)'), powerFactor: unitFraction('power factor') }))
+        .array(z.strictObject({ loadFraction: ranged('loadFraction', 'positive', '(a fraction of rated output)'), powerFactor: unitFraction('power factor') }))
         .check(z.minLength(2, 'needs at least two points')),
     }),
   ],
@@ -56,19 +57,19 @@ export const motorKind = defineKind<MotorStage>({
     name: nameField,
     kind: z.literal('motor'),
     from: fromField,
-    ratedOutput: positive('W'),
+    ratedOutput: ranged('ratedPower'),
     loss: z.optional(lossModelSchema),
     powerFactor: z.optional(pfModel),
-    ratedSpeed: z.optional(positive('rpm')),
-    ratedVoltage: z.optional(positive('V')),
+    ratedSpeed: z.optional(ranged('speed')),
+    ratedVoltage: z.optional(ranged('voltage')),
     poles: z.optional(z.union([z.literal(2), z.literal(4), z.literal(6), z.literal(8)], { error: 'must be 2, 4, 6 or 8' })),
-    ratedFrequency: z.optional(positive('Hz')),
+    ratedFrequency: z.optional(ranged('frequency')),
     efficiencyClass: z.optional(z.enum(MOTOR_CLASSES as [string, ...string[]], { error: `unknown efficiency class; expected one of ${MOTOR_CLASSES.join(', ')}` })),
     nameplate: z.optional(
       z.strictObject({
         efficiency: efficiencyField().check(z.lt(1, 'efficiency must be below 1 (enter 0.93 for 93 %)')),
         powerFactor: z.optional(unitFraction('power factor')),
-        current: z.optional(positive('A')),
+        current: z.optional(ranged('current')),
       }),
     ),
     ratedPowerFactor: z.optional(unitFraction('power factor')),

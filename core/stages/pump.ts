@@ -20,8 +20,9 @@ import { z } from 'zod/mini';
 import type { PumpLoad } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { c } from '../ac/complex.ts';
-import { affinitySpeed, hydraulicPower, pumpCurveHead, pumpShaftPower, systemCurveHead } from '../machines/flow-control.ts';
-import { constantPowerLoad, defineKind, efficiencyField, fromField, idField, nameField, nonNegative, positive } from './spec.ts';
+import { DUTY_FLOW_MESSAGE, affinitySpeed, hydraulicPower, pumpCurveHead, pumpShaftPower, systemCurveHead } from '../machines/flow-control.ts';
+import { constantPowerLoad, defineKind, efficiencyField, fromField, idField, nameField } from './spec.ts';
+import { outOfRange, ranged } from './ranges.ts';
 
 /** The pump's operating point. */
 export interface PumpOperatingPoint {
@@ -64,13 +65,13 @@ export const pumpKind = defineKind<PumpLoad>({
     name: nameField,
     kind: z.literal('pump'),
     from: fromField,
-    ratedFlow: positive('m³/s'),
-    ratedHead: positive('m'),
-    shutoffHead: positive('m'),
+    ratedFlow: ranged('flow'),
+    ratedHead: ranged('head'),
+    shutoffHead: ranged('head'),
     efficiency: efficiencyField(),
-    density: z.optional(positive('kg/m³')),
-    staticHead: nonNegative('m'),
-    flow: positive('m³/s'),
+    density: z.optional(ranged('density')),
+    staticHead: ranged('head', 'non-negative'),
+    flow: ranged('flow'),
     control: z.enum(['speed', 'throttle'], { error: 'must be "speed" (a drive sets the speed) or "throttle" (full speed, a valve)' }),
   }) as z.ZodMiniType<PumpLoad>,
   check(e) {
@@ -99,7 +100,10 @@ export const flowStudySchema = z.strictObject({
   duty: z
     .array(
       z.strictObject({
-        flow: z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative m³/s')),
+        flow: z.number({ error: 'must be a number' }).check(z.gt(0, DUTY_FLOW_MESSAGE), z.superRefine((v: number, ctx) => {
+          const m = outOfRange('flow', v);
+          if (v > 0 && m !== null) ctx.addIssue({ code: 'custom', message: m, input: v });
+        })),
         hours: z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative h')),
       }),
       { error: 'must be a list of {flow, hours} rows' },

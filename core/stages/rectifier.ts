@@ -1,7 +1,8 @@
 /** Rectifier or battery charger: AC (1φ or 3φ) in, regulated DC out. */
 import { z } from 'zod/mini';
 import type { RectifierStage } from '../model.ts';
-import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, positive, regulatingConverter, unitFraction } from './spec.ts';
+import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, regulatingConverter, unitFraction } from './spec.ts';
+import { ranged } from './ranges.ts';
 
 export const rectifierKind = defineKind<RectifierStage>({
   kind: 'rectifier',
@@ -12,12 +13,12 @@ export const rectifierKind = defineKind<RectifierStage>({
     name: nameField,
     kind: z.literal('rectifier'),
     from: fromField,
-    outputVoltage: positive('V'),
+    outputVoltage: ranged('voltage'),
     inputPowerFactor: unitFraction('power factor'),
     inputPfSense: pfSense,
     loss: lossModelSchema,
     // Maker's rating, read by conductor sizing only (the solve does not use it).
-    ratedOutputCurrent: z.optional(positive('A')),
+    ratedOutputCurrent: z.optional(ranged('current')),
   }) as z.ZodMiniType<RectifierStage>,
   check: (e) => checkLossModel(e.loss),
   build: (e, input) =>

@@ -12,6 +12,7 @@ import type { LossFitReport, WarningCode, WeightedEfficiency } from '../result.t
 import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../ac/complex.ts';
 import { receivingVoltage } from '../ac/two-bus.ts';
 import { type PreparedLoss, fitConditioning, prepareLoss, weightedEfficiency } from './loss-model.ts';
+import { RANGES, rangeText, ranged } from './ranges.ts';
 
 /** The port an element's output presents to the elements it feeds. */
 export interface PortInfo {
@@ -115,9 +116,15 @@ export const defineKind = <E extends Element>(spec: KindSpec<E>): KindSpec<E> =>
 const num = () => z.number({ error: 'must be a number' });
 export const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
 export const nonNegative = (unit: string) => num().check(z.gte(0, `must not be negative ${unit}`.trim()));
-/** Efficiency or power factor style quantity in (0, 1]. */
+/** Power factor in (0, 1], at least 0.001 (the range table's power factor). */
 export const unitFraction = (what: string) =>
-  num().check(z.gt(0, `${what} must be greater than 0`), z.lte(1, `${what} must not exceed 1 (enter 0.95 for 95 %)`));
+  num().check(
+    z.gt(0, `${what} must be greater than 0`),
+    z.lte(1, `${what} must not exceed 1 (enter 0.95 for 95 %)`),
+    z.superRefine((v: number, ctx) => {
+      if (v > 0 && v < RANGES.powerFactor.min) ctx.addIssue({ code: 'custom', message: `${what} must be at least ${RANGES.powerFactor.min}: the plausible range of a power factor is ${rangeText('powerFactor')}`, input: v });
+    }),
+  );
 /**
  * A converter's, motor's or pump's efficiency: the loss is P_out·(1/η − 1), so η near zero makes it
  * huge (1e-300 overflows every figure after it). Below 1 % no real machine is built: refused.
@@ -135,8 +142,20 @@ export const efficiencyField = () =>
  */
 export const MIN_SOURCE_OHMS = 1e-12;
 export const sourceOhms = () =>
-  nonNegative('Ω').check(z.refine((v) => v <= 0 || v >= MIN_SOURCE_OHMS, { message: 'must be 0 (an ideal source) or at least 1e-12 Ω: a smaller value makes the short-circuit current overflow' }));
-export const idField = z.string({ error: 'must be text' }).check(z.minLength(1, 'must not be empty'));
+  ranged('sourceOhms', 'non-negative', 'Ω').check(z.refine((v) => v <= 0 || v >= MIN_SOURCE_OHMS, { message: 'must be 0 (an ideal source) or at least 1e-12 Ω: a smaller value makes the short-circuit current overflow' }));
+/**
+ * Ids an element may not take: the keys every plain object already has ("__proto__", "toString",
+ * "constructor" …). Anything that looks an id up in a plain object would find the object's own
+ * member instead of the element (a load named "toString" made the battery study report a voltage
+ * collapse at the bank); refused here, once, for every kind.
+ */
+export const RESERVED_IDS: ReadonlySet<string> = new Set(['__proto__', 'prototype', ...Object.getOwnPropertyNames(Object.prototype)]);
+export const idField = z
+  .string({ error: 'must be text' })
+  .check(
+    z.minLength(1, 'must not be empty'),
+    z.refine((id) => !RESERVED_IDS.has(id), { message: 'is a name the app reserves (every object in the program has a member of that name): choose another id' }),
+  );
 export const nameField = z.optional(z.string({ error: 'must be text' }));
 export const fromField = z.string({ error: 'must name the feeding element' }).check(z.minLength(1, 'must name the feeding element'));
 export const pfSense = z.optional(z.enum(['lagging', 'leading'], { error: 'must be "lagging" or "leading"' }));
@@ -145,7 +164,7 @@ export const phases = z.union([z.literal(1), z.literal(3)], { error: 'must be 1 
 const efficiencyPoints = z
   .array(
     z.strictObject({
-      loadFraction: positive('(a fraction of rated output, 0.1 = 10 %)'),
+      loadFraction: ranged('loadFraction', 'positive', '(a fraction of rated output, 0.1 = 10 %)'),
       efficiency: efficiencyField(),
     }),
     { error: 'must be a list of {loadFraction, efficiency} points' },
@@ -158,25 +177,25 @@ export const lossModelSchema = z.discriminatedUnion(
     z.strictObject({
       model: z.literal('constant'),
       efficiency: efficiencyField(),
-      idleLoss: z.optional(nonNegative('W')),
-      ratedPower: z.optional(positive('W')),
+      idleLoss: z.optional(ranged('power', 'non-negative')),
+      ratedPower: z.optional(ranged('ratedPower')),
     }),
     z.strictObject({
       model: z.literal('curve'),
-      ratedPower: positive('W'),
+      ratedPower: ranged('ratedPower'),
       points: efficiencyPoints,
-      idleLoss: z.optional(nonNegative('W')),
+      idleLoss: z.optional(ranged('power', 'non-negative')),
     }),
     z.strictObject({
       model: z.literal('polynomial'),
-      p0: nonNegative('W'),
-      k1: nonNegative(''),
-      k2: nonNegative('per W'),
-      ratedPower: z.optional(positive('W')),
+      p0: ranged('power', 'non-negative'),
+      k1: ranged('lossK1', 'non-negative'),
+      k2: ranged('lossK2', 'non-negative'),
+      ratedPower: z.optional(ranged('ratedPower')),
     }),
     z.strictObject({
       model: z.literal('polynomial-fit'),
-      ratedPower: positive('W'),
+      ratedPower: ranged('ratedPower'),
       points: efficiencyPoints.check(z.minLength(3, 'needs at least three datasheet points for a three-term fit')),
     }),
   ],
@@ -276,9 +295,23 @@ export function seriesLink(z: Complex, kind: PortKind) {
       const w = receivingVoltage(vIn, mul(z, conj(k)), scale(sOut, 1 / m));
       return w === null ? null : div(w, k);
     },
-    /** S_in = S_out + m·|I|²·Z with |I| = |S_out/m| / |V_out|. */
-    inputPower: (sOut: Complex, vOut: Complex): Complex => {
-      const i = abs(sOut) / m / abs(vOut);
+    /**
+     * S_in = S_out + m·|I|²·Z with |I| = |S_out/m| / |V_out|.
+     * Given the sending voltage V_s: while the link cannot deliver S_out from V_s at all (no
+     * two-bus solution, past the nose of its P–V curve) it has no operating point, and the loss at
+     * the last receiving voltage is fictitious and can be enormous (a 100 km run of thin wire
+     * starting from the no-load voltage: megawatts). Passed upstream, it drives the source or a
+     * feeder past its own limit first, and the refusal would land there. So, only then, |I| is
+     * counted at most at |V_s|/(2|Z|), the current at the link's maximum transfer (a resistive
+     * link): the forward sweep reaches this link and names it. Where the link can deliver S_out
+     * the figure is exact, so a converged operating point is unchanged.
+     */
+    inputPower: (sOut: Complex, vOut: Complex, vSend?: Complex): Complex => {
+      let i = abs(sOut) / m / abs(vOut);
+      if (vSend !== undefined) {
+        const atMaxTransfer = abs(vSend) / (2 * abs(z));
+        if (i > atMaxTransfer && receivingVoltage(vSend, z, scale(sOut, 1 / m)) === null) i = atMaxTransfer;
+      }
       return add(sOut, scale(z, m * i * i));
     },
   };

@@ -10,7 +10,8 @@
 import { z } from 'zod/mini';
 import type { TransformerStage } from '../model.ts';
 import { abs, add, c, scale } from '../ac/complex.ts';
-import { defineKind, fmtPct, fmtW, fromField, idField, nameField, nonNegative, perPhase, positive, seriesLink } from './spec.ts';
+import { defineKind, fmtPct, fmtW, fromField, idField, nameField, perPhase, seriesLink } from './spec.ts';
+import { ranged } from './ranges.ts';
 
 export const transformerKind = defineKind<TransformerStage>({
   kind: 'transformer',
@@ -21,12 +22,12 @@ export const transformerKind = defineKind<TransformerStage>({
     name: nameField,
     kind: z.literal('transformer'),
     from: fromField,
-    ratedApparentPower: positive('VA'),
-    primaryVoltage: positive('V'),
-    secondaryVoltage: positive('V'),
-    noLoadLoss: nonNegative('W'),
-    loadLoss: nonNegative('W'),
-    impedancePercent: z.optional(positive('%')),
+    ratedApparentPower: ranged('ratedApparentPower'),
+    primaryVoltage: ranged('voltage'),
+    secondaryVoltage: ranged('voltage'),
+    noLoadLoss: ranged('power', 'non-negative'),
+    loadLoss: ranged('power', 'non-negative'),
+    impedancePercent: z.optional(ranged('impedancePercent')),
   }) as z.ZodMiniType<TransformerStage>,
   check(e) {
     const rPct = (100 * e.loadLoss) / e.ratedApparentPower;
@@ -54,7 +55,7 @@ export const transformerKind = defineKind<TransformerStage>({
     return {
       out: { kind, ...(input!.frequency !== undefined ? { frequency: input!.frequency } : {}) },
       outputVoltage: (vIn, sOut, y) => link.outputVoltage(scale(vIn, ratio), sOut, y),
-      inputPower: (sOut, _vIn, vOut) => add(link.inputPower(sOut, vOut), c(e.noLoadLoss)),
+      inputPower: (sOut, vIn, vOut) => add(link.inputPower(sOut, vOut, scale(vIn, ratio)), c(e.noLoadLoss)),
       report(sOut, _sIn, vIn) {
         const s = abs(sOut);
         const warnings = [];

@@ -7,17 +7,18 @@ import { z } from 'zod/mini';
 import type { MotorStarting } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { CODE_LETTERS } from '../data/motor-code-letters.ts';
+import { RANGES, rangeText, ranged } from '../stages/ranges.ts';
 
 const num = () => z.number({ error: 'must be a number' });
 const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
 
 export const protectiveDeviceSchema = z.strictObject({
-  interruptingRating: positive('A (the interrupting rating, or breaking capacity, from the device maker)'),
+  interruptingRating: ranged('interruptingCurrent', 'positive', 'A (the interrupting rating, or breaking capacity, from the device maker)'),
 });
 
 export const surgeSchema = z.strictObject({
-  apparentPower: positive('VA'),
-  durationSeconds: positive('s (how long the inverter holds its surge rating)'),
+  apparentPower: ranged('ratedApparentPower'),
+  durationSeconds: ranged('seconds', 'positive', 's (how long the inverter holds its surge rating)'),
 });
 
 export const startingSchema = z.strictObject({
@@ -30,10 +31,18 @@ export const startingSchema = z.strictObject({
     ),
   ),
   startingCurrentRatio: z.optional(num().check(z.gt(1, 'must be above 1 (locked-rotor current / rated current; typical value 5–8: use the maker’s figure)'), z.lte(20, 'must not exceed 20'))),
-  lockedRotorCurrent: z.optional(positive('A')),
+  lockedRotorCurrent: z.optional(ranged('current')),
   currentLimit: z.optional(num().check(z.gt(1, 'must be above 1 (a multiple of full-load current; typical value 3–4: use the maker’s figure)'), z.lte(10, 'must not exceed 10'))),
-  startingPowerFactor: z.optional(num().check(z.gt(0, 'must be greater than 0'), z.lt(1, 'must be below 1 (at locked rotor; typical value 0.2–0.4: use the maker’s figure)'))),
-  startSeconds: z.optional(positive('s')),
+  startingPowerFactor: z.optional(
+    num().check(
+      z.gt(0, 'must be greater than 0'),
+      z.lt(1, 'must be below 1 (at locked rotor; typical value 0.2–0.4: use the maker’s figure)'),
+      z.superRefine((v: number, ctx) => {
+        if (v > 0 && v < RANGES.powerFactor.min) ctx.addIssue({ code: 'custom', message: `must be at least ${RANGES.powerFactor.min}: the plausible range of a power factor is ${rangeText('powerFactor')}`, input: v });
+      }),
+    ),
+  ),
+  startSeconds: z.optional(ranged('seconds')),
   minTerminalVoltagePercent: z.optional(num().check(z.gt(0, 'must be greater than 0 %'), z.lt(100, 'must be below 100 %'))),
 });
 
@@ -55,7 +64,7 @@ export const sourceFaultFields = {
   subtransientReactancePercent: z.optional(positive('% (X\u2033d on the generator rating; typical value 10–25 %: use the maker’s figure)').check(z.lte(100, 'must not exceed 100 %'))),
   transientReactancePercent: z.optional(positive('% (X\u2032d on the generator rating; typical value 15–35 %: use the maker’s figure)').check(z.lte(200, 'must not exceed 200 %'))),
   maxDipPercent: z.optional(positive('%').check(z.lt(100, 'must be below 100 %'))),
-  shortCircuitPower: z.optional(positive('VA')),
+  shortCircuitPower: z.optional(ranged('shortCircuitPower')),
   shortCircuitRToX: z.optional(num().check(z.gte(0, 'must not be negative'), z.lte(10, 'must not exceed 10'))),
   voltageTolerancePercent: z.optional(z.union([z.literal(6), z.literal(10)], { error: 'must be 6 or 10 (% tolerance of the low-voltage system, IEC 60909-0 Table 1)' })),
 };

@@ -19,6 +19,7 @@ import type { Element, LossModel, PortKind, Project } from '../../core/model.ts'
 import { abs } from '../../core/ac/complex.ts';
 import { type CircuitNetwork, networkImpedance, parseNetwork, starEquivalent } from '../../core/ac/network.ts';
 import { formatSi } from '../../core/ac/si-prefix.ts';
+import { RANGES } from '../../core/stages/ranges.ts';
 
 type Json = Record<string, unknown>;
 
@@ -424,8 +425,10 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
         const r = resistanceFor(sz.drop, port.voltage, sOut);
         const perKmOf = (ohms: number) => (port.kind === 'ac3' ? ohms / (sz.length / 1000) : ohms / ((2 * sz.length) / 1000)) * (sz.sets ?? 1);
         el['length'] = sz.length;
-        el['resistancePerKm'] = perKmOf(r);
-        if (port.kind !== 'dc' && sz.xr > 0) el['reactancePerKm'] = perKmOf(r * sz.xr);
+        // A few watts at 11 kV would "need" hundreds of MΩ/km for a few per cent of drop: such runs
+        // are drawn at the plausible bound instead (core/stages/ranges.ts), which only lowers the drop.
+        el['resistancePerKm'] = Math.min(perKmOf(r), RANGES.resistancePerKm.max);
+        if (port.kind !== 'dc' && sz.xr > 0) el['reactancePerKm'] = Math.min(perKmOf(r * sz.xr), RANGES.reactancePerKm.max);
         if (sz.sets !== null) el['parallelSets'] = sz.sets;
         return sum * (1 + 2 * sz.drop);
       }

@@ -13,6 +13,10 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
+import { validateProject } from '../../core/solve/validate.ts';
+import { plan } from '../../core/solve/plan.ts';
+import { sweep } from '../../core/solve/sweep.ts';
+import { c } from '../../core/ac/complex.ts';
 import { elementNames, fieldWords, findNonFinite, nonFiniteProblems } from '../../core/solve/finite.ts';
 import { fitConditioning, fitLossPolynomial } from '../../core/stages/loss-model.ts';
 import { MAX_FIT_CONDITION } from '../../core/stages/spec.ts';
@@ -156,11 +160,26 @@ describe('the final guard walks the whole result', () => {
     expect(fieldWords(['shortCircuitPower'])).toBe('short circuit power');
   });
 
-  it('the solve refuses a chain that overflows although every field passed (names the element by its name)', () => {
-    // 1e308 W through an ideal supply: the supply's I²·Z term, (1e308/230)² · 0, is NaN (IEEE 754:
+  it('a load of 1e308 W is refused at its field with the plausible range (core/stages/ranges.ts), before any sweep', () => {
+    const o = solveProject(project(supply, { id: 'ld', name: 'Furnace', kind: 'ac-load', from: 'src', power: 1e308, powerFactor: 0.5 }));
+    if (o.ok) throw new Error('solved, expected a refusal');
+    expect(o.problems.map((p) => [p.code, p.elementId, p.field])).toEqual([['invalid-value', 'ld', 'power']]);
+    // 1 GW: the table's largest plausible power (common practice, no source).
+    expect(o.problems[0]!.message).toMatch(/must not exceed 1 GW/);
+  });
+
+  it('the sweep refuses a chain whose figures overflow (names the first element that left the doubles)', () => {
+    // No field in its plausible range overflows any more, so the load's model is replaced after the
+    // plan by one drawing 1e308 W: the ideal supply's I²·Z term, (1e308/230)² · 0, is NaN (IEEE 754:
     // the double maximum is about 1.8e308, and Infinity · 0 is NaN). The sweep stops at the first
     // element whose voltage or power leaves the doubles; nothing is shown.
-    const o = solveProject(project(supply, { id: 'ld', name: 'Furnace', kind: 'ac-load', from: 'src', power: 1e308, powerFactor: 0.5 }));
+    const valid = validateProject(project(supply, { id: 'ld', name: 'Furnace', kind: 'ac-load', from: 'src', power: 1000, powerFactor: 0.5 }));
+    if (!valid.ok) throw new Error(JSON.stringify(valid.problems));
+    const planned = plan(valid.project);
+    if (!planned.ok) throw new Error(JSON.stringify(planned.problems));
+    const load = planned.order[1]!;
+    load.model = { ...load.model, inputPower: () => c(1e308, 1e308) };
+    const o = sweep(planned.order);
     if (o.ok) throw new Error('solved, expected a refusal');
     expect(o.problems.map((p) => [p.code, p.elementId, p.field])).toEqual([['non-finite', 'src', 'input.p']]);
     expect(o.problems[0]!.message).toContain('input power of "Supply"');

@@ -107,7 +107,6 @@ describe('projectFlowStudy: the chain\'s own pump, motor and drive', () => {
     { flow: 0.05, hours: 1000 },
     { flow: 0.04, hours: 3000 },
     { flow: 0.025, hours: 2000 },
-    { flow: 0, hours: 500 },
   ];
   it('equals compareFlowControl run by hand on the same inputs', () => {
     const out = projectFlowStudy(project({ ...pumpBase, control: 'speed' }, { flowStudy: { pump: 'pump', duty } }));
@@ -149,7 +148,8 @@ describe('projectFlowStudy: the chain\'s own pump, motor and drive', () => {
     return out.ok ? [] : out.problems;
   };
   it('unknown pump id', () => {
-    expect(bad({ pump: 'nope', duty })).toMatchObject([{ elementId: 'flowStudy', field: 'pump', value: 'nope' }]);
+    // The study belongs to the project: its problems name the project and the study's field (no element is "flowStudy").
+    expect(bad({ pump: 'nope', duty })).toMatchObject([{ elementId: 'project', field: 'flowStudy.pump', value: 'nope' }]);
   });
   it('an element that is not a pump', () => {
     expect(bad({ pump: 'motor', duty })[0]!.message).toMatch(/"motor" element, not a pump/);
@@ -159,10 +159,10 @@ describe('projectFlowStudy: the chain\'s own pump, motor and drive', () => {
     expect(problems.map((p) => p.field).sort()).toEqual(['flowStudy.duty.0.flow', 'flowStudy.duty.1.hours']);
   });
   it('hours over 8760 in total (5000 + 4000 = 9000 h)', () => {
-    expect(bad({ pump: 'pump', duty: [{ flow: 0.03, hours: 5000 }, { flow: 0.02, hours: 4000 }] })).toMatchObject([{ elementId: 'flowStudy', field: 'duty', value: 9000 }]);
+    expect(bad({ pump: 'pump', duty: [{ flow: 0.03, hours: 5000 }, { flow: 0.02, hours: 4000 }] })).toMatchObject([{ elementId: 'project', field: 'flowStudy.duty', value: 9000 }]);
   });
   it('a flow above the pump\'s rated flow', () => {
-    expect(bad({ pump: 'pump', duty: [{ flow: 0.051, hours: 10 }] })).toMatchObject([{ elementId: 'flowStudy', field: 'duty[0].flow', value: 0.051 }]);
+    expect(bad({ pump: 'pump', duty: [{ flow: 0.051, hours: 10 }] })).toMatchObject([{ elementId: 'project', field: 'flowStudy.duty.0.flow', value: 0.051 }]);
   });
   it('no flowStudy at all', () => {
     expect(bad(undefined)).toMatchObject([{ elementId: 'project', field: 'flowStudy' }]);

@@ -22,10 +22,14 @@ const studyArb = (maxFlowFraction: number, minFlowFraction = 0) =>
       ratedHead: uniform(5, 80),
       shutoffRatio: uniform(1.05, 1.6),
       pumpEff: uniform(0.4, 0.9),
-      motorLoad: uniform(0.5, 1.0),
+      // Up to 0.99: throttled below the design flow a steep pump needs up to ~0.6 % more shaft power
+      // than at its design point (shut-off head 1.6 × rated; quadratic curve), which a motor loaded to
+      // exactly 1.0 at the design point then refuses (beyond its service factor 1.0).
+      motorLoad: uniform(0.5, 0.99),
       motorEff: uniform(0.8, 0.96),
       driveSize: uniform(1.0, 1.5),
-      duty: fc.array(fc.record({ f: uniform(minFlowFraction, maxFlowFraction), hours: uniform(0, 2000) }), { minLength: 1, maxLength: 4 }),
+      // A duty flow is above 0 (zero is refused, as the pump element's own flow): from 0.1 % of rated.
+      duty: fc.array(fc.record({ f: uniform(Math.max(minFlowFraction, 0.001), maxFlowFraction), hours: uniform(0, 2000) }), { minLength: 1, maxLength: 4 }),
     })
     .map((g) => {
       const pDesign = (1000 * 9.80665 * g.ratedFlow * g.ratedHead) / g.pumpEff;
