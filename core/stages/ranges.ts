@@ -39,8 +39,8 @@ export const ABSOLUTE_ZERO_C = -273.15;
 export const RANGES = {
   /** Low-voltage DC from a single cell (0.5 V) up to a 1 MV transmission line. */
   voltage: { min: 0.1, max: 1e6, unit: 'V', what: 'a voltage', prefix: true },
-  /** Drives down to a creep speed of 0.1 Hz; supplies at 16.7, 50, 60 and 400 Hz; drives up to 1 kHz. */
-  frequency: { min: 0.1, max: 1000, unit: 'Hz', what: 'a frequency', prefix: true },
+  /** Drives down to a creep speed of 0.1 Hz; supplies at 16.7, 50, 60 and 400 Hz; high-speed spindle drives up to 3 kHz. */
+  frequency: { min: 0.1, max: 3000, unit: 'Hz', what: 'a frequency', prefix: true },
   /** A load or a loss: 0 (off) up to 1 GW, a large power plant. */
   power: { min: 0, max: 1e9, unit: 'W', what: 'a power', prefix: true },
   /** A rating: 1 mW (a sensor supply) up to 1 GW. */
