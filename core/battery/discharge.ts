@@ -210,6 +210,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const bank = resolveBank(source.bank!, source.internalResistance);
   const v = bank.values;
   const timeline = buildTimeline(project, study);
+  if (timeline.refused) return { ok: false, problems: [timeline.refused] };
   // Load values in the solver's order for each state of the timeline.
   const pos = new Map(timeline.loads.map((l, i) => [l.id, i]));
   const stateIds: number[] = [];

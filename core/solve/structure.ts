@@ -53,7 +53,7 @@ export function reservedIdProblem(id: string, elementId: string): Problem | null
     elementId,
     field: 'id',
     value: id,
-    message: `"${id}" is a name reserved by the programs that read project files; choose another id (for example "${id.replace(/^_+/, '') || 'element'}-1")`,
+    message: `"${id}" is a reserved name (programs that read the project file would take it for one of their own): choose another id`,
   };
 }
 
