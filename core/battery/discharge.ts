@@ -308,7 +308,10 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   };
   outer: for (const interval of timeline.intervals) {
     const state = stateIds[interval.state]!;
-    while (acc.t < interval.end - 1e-9 * step) {
+    // Slack against a sliver step from rounding, relative to the interval or the step, whichever is
+    // shorter (a step longer than the whole outage must not swallow it).
+    const slack = 1e-9 * Math.min(step, interval.end - interval.start);
+    while (acc.t < interval.end - slack) {
       const emf = bankOcv(bank, acc.soc);
       const reuse = carried !== null && carried.state === state;
       const p = reuse ? carried!.p : solver.solve(state, emf, R);

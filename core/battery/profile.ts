@@ -9,6 +9,9 @@ import type { BackupStudy, DutySchedule, Element, LoadSetting, Project } from '.
 import type { Problem } from '../errors.ts';
 import { RESERVED_IDS } from '../solve/structure.ts';
 
+/** Longest horizon (and target runtime) of a study: one leap year, h. */
+export const MAX_HORIZON_H = 24 * 366;
+
 const num = () => z.number({ error: 'must be a number' });
 const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
 const nonNegative = (unit: string) => num().check(z.gte(0, `must not be negative ${unit}`.trim()));
@@ -66,16 +69,19 @@ const fraction = (what: string) => num().check(z.gt(0, `${what} must be greater 
 export const backupSchema = z.strictObject({
   profile: profileSchema,
   timeStepSeconds: z.optional(positive('s')),
-  horizonHours: z.optional(positive('h').check(z.lte(24 * 366, 'must not exceed one year (8784 h)'))),
+  horizonHours: z.optional(positive('h').check(z.lte(MAX_HORIZON_H, 'must not exceed one year (8784 h)'))),
   temperatureC: z.optional(num().check(z.gte(-60, 'must be −60 °C or more'), z.lte(80, 'must be 80 °C or less'))),
   stateOfHealth: z.optional(fraction('state of health')),
   design: z.optional(z.enum(['backup', 'cycling'], { error: 'must be "backup" (discharge to the end voltage) or "cycling" (also stop at the usable depth of discharge)' })),
-  targetRuntimeHours: z.optional(positive('h')),
+  // The study runs the chain out to the target runtime: no longer than its longest horizon.
+  targetRuntimeHours: z.optional(positive('h').check(z.lte(MAX_HORIZON_H, 'must not exceed one year (8784 h), the longest a study runs'))),
   designMargin: z.optional(num().check(z.gte(1, 'must be at least 1 (1.10 adds 10 %)'))),
   agingFactor: z.optional(num().check(z.gte(1, 'must be at least 1 (1.25 for a bank replaced at 80 % capacity)'))),
   standardCapacitiesAh: z.optional(z.array(positive('Ah'), { error: 'must be a list of capacities in Ah' }).check(z.minLength(1, 'needs at least one capacity'))),
   chargerCurrent: z.optional(positive('A')),
-  chargerEfficiency: z.optional(fraction('efficiency')),
+  // At least 1 %, as every efficiency the solve takes (core/stages/spec.ts MIN_EFFICIENCY): the AC
+  // input is the DC energy ÷ η, which overflows as η nears 0.
+  chargerEfficiency: z.optional(fraction('efficiency').check(z.gte(0.01, 'efficiency must be at least 1 % (enter 0.9 for 90 %)'))),
   targetRechargeHours: z.optional(positive('h')),
 });
 

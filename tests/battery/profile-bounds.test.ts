@@ -14,6 +14,7 @@ import { runBackupStudy } from '../../core/battery/study.ts';
 import { MAX_LOAD_CHANGES, MAX_LOAD_STATES, buildTimeline } from '../../core/battery/profile.ts';
 import { demoProjects, type BackupStudy, type Project } from '../../core/index.ts';
 import type { Problem } from '../../core/errors.ts';
+import { findNonFinite } from '../../core/solve/finite.ts';
 import { directLoad, flatBank } from './helpers.ts';
 
 type Json = Record<string, any>; // fixtures hold values the schema refuses on purpose
@@ -109,6 +110,58 @@ describe('very short segments and duty periods are refused at their field, namin
     const out = runBackupStudy(p);
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.problems.map((x) => x.field)).toEqual(['backup.profile.duty.0.periodMinutes']);
+  });
+});
+
+describe('the study\'s other settings at the ends of their range', () => {
+  it('a horizon of 1e-9 h with a 24 h target runtime is refused at the horizon (today the sizing repeated 3.6 µs to 24 h until the process ran out of memory)', () => {
+    const p = demo();
+    p.backup.horizonHours = 1e-9;
+    const out = runBackupStudy(p);
+    expect(out.ok).toBe(false);
+    if (!out.ok) {
+      expect(out.problems.map((x) => x.field)).toEqual(['backup.horizonHours']);
+      expect(out.problems[0]!.message).toMatch(/give a horizon at least as long as the target runtime/);
+    }
+  });
+
+  it('a target runtime of 3000 h is sized (the sized run stays within the year a study runs); past a year it is refused at its field', () => {
+    const p = demo();
+    p.backup.targetRuntimeHours = 3000;
+    const out = runBackupStudy(p);
+    if (!out.ok) throw new Error(JSON.stringify(out.problems));
+    // 3000 h is over 100 times the 24 h the demo's own bank covers: far more strings.
+    expect(out.study.sizing!.strings).toBeGreaterThan(100);
+    const q = demo();
+    q.backup.targetRuntimeHours = 9000;
+    const refusedLong = runBackupStudy(q);
+    expect(refusedLong.ok).toBe(false);
+    if (!refusedLong.ok) expect(refusedLong.problems.map((x) => x.field)).toEqual(['backup.targetRuntimeHours']);
+  });
+
+  it('a state of health of 5e-324 with a target runtime gives a finite study (the run to the target is made with a bank at full health)', () => {
+    const p = demo();
+    p.backup.stateOfHealth = 5e-324;
+    const out = runBackupStudy(p);
+    if (!out.ok) throw new Error(JSON.stringify(out.problems));
+    expect(findNonFinite(out.study)).toEqual([]);
+  });
+
+  it('a charger efficiency below 1 % is refused at its field (the charger\'s AC input, DC ÷ η, overflowed at 5e-324)', () => {
+    const p = demo();
+    p.backup.chargerEfficiency = 5e-324;
+    const out = runBackupStudy(p);
+    expect(out.ok).toBe(false);
+    if (!out.ok) expect(out.problems.map((x) => x.field)).toEqual(['backup.chargerEfficiency']);
+  });
+
+  it('a time step longer than the whole outage still runs it: 60 W from a flat 12 V, 100 Ah bank lasts 20 h at any step (by hand: 100 Ah × 12 V ÷ 60 W)', () => {
+    for (const step of [60, 1e300]) {
+      const out = simulateDischarge(directLoad(flatBank(100, 20, 1), 60, { timeStepSeconds: step }));
+      if (!out.ok) throw new Error(JSON.stringify(out.problems));
+      expect(out.result.runtimeSeconds / 3600).toBeCloseTo(20, 9);
+      expect(out.result.endReason).toBe('rated-capacity');
+    }
   });
 });
 
