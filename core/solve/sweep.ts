@@ -59,10 +59,6 @@ function direction(v: Complex, fallback: Complex): Complex {
 }
 
 /**
- * Returns the index of the first element whose output cannot be delivered, or −1. With `recover`,
- * such an element's voltage is halved instead and the sweep goes on (see `sweep`).
- */
-/**
  * What the constant-current loads and other loads behind a bus hand on to the link above it: for
  * every bus that passes its voltage on and carries such loads (`behindBus`), the power of its own
  * loss and of its loads that are not given by their current, and the sum of the currents of those
