@@ -6,6 +6,9 @@
  * - `wide`: grid → one cable → n − 2 loads side by side on it;
  * - `tree`: grid → a binary tree of cables, a load at every leaf;
  * - `deepSized`: grid → cables whose size the conductor sizing chooses → load;
+ * - `comb`: grid → cable → cable … with a load at the far end of every cable (deep and wide at
+ *   once; its whole-path drops list every cable above each load, so that part of the result grows
+ *   with the square of the depth);
  * - `loop`: a chain whose elements (but the source) feed each other in a ring.
  * `n` is the element count, source and loads included.
  */
@@ -81,6 +84,17 @@ export function deepSized(n: number): Project {
   const p = project(`Deep sized run, ${n} elements`, elements);
   // The whole run is one path: its total drop may pass the whole-path limit (a warning, not a refusal).
   return { ...p, dropLimits: { totalPercent: 100 } };
+}
+
+export function comb(n: number): Project {
+  const elements: Element[] = [grid];
+  let from = 'grid';
+  for (let i = 1; elements.length < n; i++) {
+    elements.push(piece(`k${i}`, from));
+    if (elements.length < n) elements.push({ id: `kl${i}`, kind: 'ac-load', from: `k${i}`, power: 10, powerFactor: 0.9 });
+    from = `k${i}`;
+  }
+  return project(`Comb of ${n} elements`, elements);
 }
 
 /** grid → load, plus a ring of n − 2 cables that feed each other (no source reaches them). */

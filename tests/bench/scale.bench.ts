@@ -8,13 +8,16 @@
  * - deep converters: bank → DC-DC → … → load;
  * - wide: grid → one cable → n − 2 loads side by side;
  * - tree: grid → a binary tree of cables, a load at every leaf;
- * - deep sized: grid → cables sized by the IEC method → load (the conductor sizing's walks).
+ * - deep sized: grid → cables sized by the IEC method → load (the conductor sizing's walks);
+ * - comb: a run of cables with a load at the end of each (deep and wide at once). Its result lists,
+ *   for every load, every cable above it (whole-path drops): that part grows with the square of the
+ *   depth, so its time per element grows too; the checks and the solve itself stay linear.
  * Plus the check alone (`validateProject`, what the editor runs per keystroke) on the deep run.
  */
 import { bench, describe } from 'vitest';
 import type { Project } from '../../core/index.ts';
 import { bundledCore } from './bundled-core.ts';
-import { deepCables, deepConverters, deepSized, tree, wide } from './chains.ts';
+import { comb, deepCables, deepConverters, deepSized, tree, wide } from './chains.ts';
 
 const core = await bundledCore();
 const SIZES = [500, 1000, 2000] as const;
@@ -24,6 +27,7 @@ const SHAPES: [string, (n: number) => Project][] = [
   ['wide', wide],
   ['tree', tree],
   ['deep sized', deepSized],
+  ['comb', comb],
 ];
 
 for (const [name, make] of SHAPES) {

@@ -156,6 +156,14 @@ describe('the final guard walks the whole result', () => {
     expect(fieldWords(['shortCircuitPower'])).toBe('short circuit power');
   });
 
+  it('the walk has no recursion limit: a value nested 100 000 deep is walked, its figure found with its path (issue 15, point 8)', () => {
+    let nested: unknown = { elementId: 'deep', name: 'Deep', value: Number.NaN };
+    for (let i = 0; i < 100_000; i++) nested = { next: nested };
+    const found = findNonFinite(nested);
+    expect(found).toHaveLength(1);
+    expect(found[0]).toMatchObject({ elementId: 'deep', elementName: 'Deep', path: ['value'] });
+  });
+
   it('the solve refuses a chain that overflows although every field passed (names the element by its name)', () => {
     // 1e308 W through an ideal supply: the supply's I²·Z term, (1e308/230)² · 0, is NaN (IEEE 754:
     // the double maximum is about 1.8e308, and Infinity · 0 is NaN). The sweep stops at the first
