@@ -102,7 +102,7 @@ const FIELD_WORDS: Record<string, string> = {
 /** A result path in words: `input.current` → "input current"; list indices become "item n". */
 export function fieldWords(path: readonly string[]): string {
   return path
-    .map((key) => (/^\d+$/.test(key) ? `item ${Number(key) + 1}` : FIELD_WORDS[key] ?? key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase()))
+    .map((key) => (/^\d+$/.test(key) ? `item ${Number(key) + 1}` : (Object.hasOwn(FIELD_WORDS, key) ? FIELD_WORDS[key] : undefined) ?? key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase()))
     .join(' ');
 }
 

@@ -9,6 +9,7 @@ import { describe, expect, it } from 'vitest';
 import { demoProjects, solveProject, validateProject, type Element, type Project } from '../../core/index.ts';
 import { simulateDischarge } from '../../core/battery/discharge.ts';
 import { RESERVED_IDS } from '../../core/solve/structure.ts';
+import { fieldWords } from '../../core/solve/finite.ts';
 
 const chain = (loadId: string): Project => ({
   format: 'joulepath-project',
@@ -42,6 +43,10 @@ describe('reserved ids', () => {
     const v = validateProject(p);
     expect(v.ok).toBe(false);
     if (!v.ok) expect(v.problems.map((x) => [x.code, x.elementId, x.field])).toEqual([['unknown-feed', 'lamp', 'from']]);
+  });
+
+  it('words for a result field are looked up by own keys: "constructor" is spelled out, not the text of a function', () => {
+    expect(fieldWords(['constructor', 'toString', 'pIn'])).toBe('constructor to string power in');
   });
 
   it('ids that only look like them are accepted: "proto", "toString2", "Constructor"', () => {
