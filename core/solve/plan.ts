@@ -66,7 +66,9 @@ export function plan(project: Project): Plan {
     const index = order.length;
     order.push({ element: e, spec, model, parent, children: [], input });
     if (parent >= 0) order[parent]!.children.push(index);
-    const below = children.get(e.id) ?? [];
+    // An element with no output (a load) feeds nothing: what names it as its feed is refused by
+    // validate ("not-a-feeder") and not built here (it would be built without an input port).
+    const below = model.out ? (children.get(e.id) ?? []) : [];
     for (let k = below.length - 1; k >= 0; k--) stack.push({ e: below[k]!, parent: index, input: model.out });
   }
   return problems.length ? { ok: false, problems } : { ok: true, order };

@@ -277,6 +277,12 @@ describe('tree structure', () => {
     expectOnly(p, 'not-a-feeder', 'lamp2', 'from', /load/);
   });
 
+  it('a cable fed from a load is refused, not built without an input port (fast-check counterexample, issue 15: it threw a TypeError)', () => {
+    const p = validProject();
+    p.elements.push({ id: 'after-lamp', kind: 'cable', from: 'lamp', length: 1, resistancePerKm: 0.1 });
+    expectOnly(p, 'not-a-feeder', 'after-lamp', 'from', /load/);
+  });
+
   it('a cycle a → b → a beside a proper source', () => {
     const p = validProject();
     p.elements.push({ id: 'a', kind: 'dcbus', from: 'b', fixedLoss: 1 }, { id: 'b', kind: 'dcbus', from: 'a', fixedLoss: 1 });
