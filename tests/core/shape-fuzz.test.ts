@@ -1,7 +1,8 @@
 /**
  * Hostile shapes at random (issue 15, points 5 and 8): ids drawn from a small pool that holds
  * reserved names (`__proto__`, `toString` …) and repeats, `from` naming any id, itself, nothing
- * or no element. The solve never throws; it returns a finite result whose energy balances to 1e-9, or
+ * or no element. The solve never throws; it returns a finite result whose energy balances to 1e-9 (and
+ * a fault study of it that is finite or refused), or
  * problems naming an element (or the project) and a field; every loop of `from` is reported exactly
  * once, on its first element in file order; every reserved id is refused at its `id`.
  *
@@ -10,7 +11,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { solveProject } from '../../core/index.ts';
+import { solveProject, studySurges } from '../../core/index.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { RESERVED_IDS } from '../../core/solve/structure.ts';
 
@@ -77,6 +78,9 @@ describe('hostile shapes', () => {
         if (out.ok) {
           expect(findNonFinite(out.result)).toEqual([]);
           expect(out.result.totals.balanceError).toBeLessThanOrEqual(1e-9);
+          // The fault study walks the same tree: finite, or refused.
+          const surge = studySurges(project);
+          if (surge.ok) expect(findNonFinite(surge.result)).toEqual([]);
           return;
         }
         for (const p of out.problems) {
