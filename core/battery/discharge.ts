@@ -210,6 +210,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const bank = resolveBank(source.bank!, source.internalResistance);
   const v = bank.values;
   const timeline = buildTimeline(project, study);
+  if (timeline.refused) return { ok: false, problems: [timeline.refused] };
   // Load values in the solver's order for each state of the timeline.
   const pos = new Map(timeline.loads.map((l, i) => [l.id, i]));
   const stateIds: number[] = [];
@@ -307,7 +308,10 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   };
   outer: for (const interval of timeline.intervals) {
     const state = stateIds[interval.state]!;
-    while (acc.t < interval.end - 1e-9 * step) {
+    // Slack against a sliver step from rounding, relative to the interval or the step, whichever is
+    // shorter (a step longer than the whole outage must not swallow it).
+    const slack = 1e-9 * Math.min(step, interval.end - interval.start);
+    while (acc.t < interval.end - slack) {
       const emf = bankOcv(bank, acc.soc);
       const reuse = carried !== null && carried.state === state;
       const p = reuse ? carried!.p : solver.solve(state, emf, R);

@@ -7,6 +7,10 @@
 import { z } from 'zod/mini';
 import type { BackupStudy, DutySchedule, Element, LoadSetting, Project } from '../model.ts';
 import type { Problem } from '../errors.ts';
+import { RESERVED_IDS } from '../solve/structure.ts';
+
+/** Longest horizon (and target runtime) of a study: one leap year, h. */
+export const MAX_HORIZON_H = 24 * 366;
 
 const num = () => z.number({ error: 'must be a number' });
 const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
@@ -65,23 +69,42 @@ const fraction = (what: string) => num().check(z.gt(0, `${what} must be greater 
 export const backupSchema = z.strictObject({
   profile: profileSchema,
   timeStepSeconds: z.optional(positive('s')),
-  horizonHours: z.optional(positive('h').check(z.lte(24 * 366, 'must not exceed one year (8784 h)'))),
+  horizonHours: z.optional(positive('h').check(z.lte(MAX_HORIZON_H, 'must not exceed one year (8784 h)'))),
   temperatureC: z.optional(num().check(z.gte(-60, 'must be −60 °C or more'), z.lte(80, 'must be 80 °C or less'))),
   stateOfHealth: z.optional(fraction('state of health')),
   design: z.optional(z.enum(['backup', 'cycling'], { error: 'must be "backup" (discharge to the end voltage) or "cycling" (also stop at the usable depth of discharge)' })),
-  targetRuntimeHours: z.optional(positive('h')),
+  // The study runs the chain out to the target runtime: no longer than its longest horizon.
+  targetRuntimeHours: z.optional(positive('h').check(z.lte(MAX_HORIZON_H, 'must not exceed one year (8784 h), the longest a study runs'))),
   designMargin: z.optional(num().check(z.gte(1, 'must be at least 1 (1.10 adds 10 %)'))),
   agingFactor: z.optional(num().check(z.gte(1, 'must be at least 1 (1.25 for a bank replaced at 80 % capacity)'))),
   standardCapacitiesAh: z.optional(z.array(positive('Ah'), { error: 'must be a list of capacities in Ah' }).check(z.minLength(1, 'needs at least one capacity'))),
   chargerCurrent: z.optional(positive('A')),
-  chargerEfficiency: z.optional(fraction('efficiency')),
+  // At least 1 %, as every efficiency the solve takes (core/stages/spec.ts MIN_EFFICIENCY): the AC
+  // input is the DC energy ÷ η, which overflows as η nears 0.
+  chargerEfficiency: z.optional(fraction('efficiency').check(z.gte(0.01, 'efficiency must be at least 1 % (enter 0.9 for 90 %)'))),
   targetRechargeHours: z.optional(positive('h')),
 });
 
 export const DEFAULT_TIME_STEP_S = 60;
 export const DEFAULT_HORIZON_H = 168;
-/** Most integration steps one study may take (keeps a run and its time series bounded). */
+/**
+ * Most integration steps one study may take at its time step (horizon ÷ step): keeps a run and its
+ * time series bounded (a year at 1-minute steps is 527 040; a week at 1-second steps 604 800).
+ */
 export const MAX_STEPS = 1_000_000;
+/**
+ * Most load changes one study's timeline may hold: segment boundaries and duty switching instants
+ * over the horizon (each ends a step early, so a run takes at most MAX_STEPS + MAX_LOAD_CHANGES
+ * steps). A daily profile of 24 segments over a year is 8 808; a compressor on a 10-minute duty
+ * cycle for a week 2 016.
+ */
+export const MAX_LOAD_CHANGES = 100_000;
+/**
+ * Most distinct combinations of load levels (load states) one study may meet: each is one solve of
+ * the whole chain before the run, and its levels are kept for the run. A day of 24 segments with
+ * three loads cycling on their own duty schedules meets at most 24 × 2³ = 192.
+ */
+export const MAX_LOAD_STATES = 1_000;
 
 const LOAD_KINDS = new Set<Element['kind']>(['dc-load', 'ac-load', 'ac-va-load', 'dc-current-load', 'ac-current-load', 'shaft-load']);
 
@@ -106,13 +129,25 @@ export function profileLoads(project: Project): ProfileLoad[] {
 
 const bad = (field: string, value: unknown, message: string): Problem => ({ code: 'invalid-value', elementId: 'project', field, value, message });
 
-/** Checks that need the project: load ids, duty on-times, daily start hours, step count. */
+/**
+ * Where a profile names an element by id that is not a load it can set: the words, or null when
+ * `id` is a load of the project. Looked up in a Map: an id such as "toString" names nothing.
+ */
+function notALoad(id: string, byId: ReadonlyMap<string, Element>): string | null {
+  const e = byId.get(id);
+  if (!e) return `no element has the id "${id}"`;
+  if (!LOAD_KINDS.has(e.kind)) return `"${e.name ?? e.id}" is not a load: a profile sets the level of loads only`;
+  return null;
+}
+
+/** Checks that need the project: load ids, duty on-times, daily start hours, step count, load changes. */
 export function checkStudy(study: BackupStudy, project: Project): Problem[] {
   const problems: Problem[] = [];
-  const loads = new Set(profileLoads(project).map((l) => l.id));
+  const byId = new Map(project.elements.map((e) => [e.id, e]));
   const checkLoads = (settings: Record<string, LoadSetting> | undefined, field: string) => {
     for (const id of Object.keys(settings ?? {})) {
-      if (!loads.has(id)) problems.push(bad(`${field}.${id}`, id, `no load has the id "${id}" (a profile sets loads only)`));
+      const why = notALoad(id, byId);
+      if (why) problems.push(bad(`${field}.${id}`, id, why));
     }
   };
   const p = study.profile;
@@ -126,13 +161,116 @@ export function checkStudy(study: BackupStudy, project: Project): Problem[] {
   }
   (p.duty ?? []).forEach((d, i) => {
     const field = `backup.profile.duty.${i}`;
-    if (!loads.has(d.load)) problems.push(bad(`${field}.load`, d.load, `no load has the id "${d.load}"`));
+    const why = notALoad(d.load, byId);
+    if (why) problems.push(bad(`${field}.load`, d.load, why));
     if (d.onMinutes > d.periodMinutes) problems.push(bad(`${field}.onMinutes`, d.onMinutes, `must not exceed the period of ${d.periodMinutes} min`));
   });
   const step = study.timeStepSeconds ?? DEFAULT_TIME_STEP_S;
   const horizon = (study.horizonHours ?? DEFAULT_HORIZON_H) * 3600;
   if (horizon / step > MAX_STEPS) {
-    problems.push(bad('backup.timeStepSeconds', step, `gives ${Math.ceil(horizon / step)} steps over the ${horizon / 3600} h horizon; at most ${MAX_STEPS} — use a longer step or a shorter horizon`));
+    problems.push(bad('backup.timeStepSeconds', step, `gives ${count(horizon / step)} steps over the ${hours(horizon)} horizon; at most ${count(MAX_STEPS)}: use a longer step or a shorter horizon`));
+  }
+  const changes = loadChanges(study);
+  if (changes !== null) problems.push(changes);
+  return problems;
+}
+
+/** A count in words: grouped digits, or "far more than …" past what a double counts exactly. */
+const count = (n: number): string => (Number.isFinite(n) && n < 1e15 ? Math.ceil(n).toLocaleString('en-US').replace(/,/g, ' ') : `far more than ${(1e15).toExponential(0)}`);
+/** A duration in s as hours, minutes or seconds, 4 significant digits. */
+function hours(seconds: number): string {
+  if (seconds >= HOUR) return `${Number((seconds / HOUR).toPrecision(4))} h`;
+  if (seconds >= 60) return `${Number((seconds / 60).toPrecision(4))} min`;
+  return `${Number(seconds.toPrecision(4))} s`;
+}
+/** " (N with the profile's other load changes)" when other parts add to this one's. */
+const withOthers = (own: number, others: number): string => (others > 0 ? ` (${count(own + others)} with the profile's other load changes)` : '');
+/** A duration rounded up to 3 significant digits (a lower bound stays a lower bound). */
+const upTo3 = (x: number): number => {
+  const scale = 10 ** (Math.floor(Math.log10(x)) - 2);
+  return Math.ceil(x / scale) * scale;
+};
+
+/**
+ * The load changes the timeline would hold (see buildTimeline), counted from the settings alone
+ * before anything is built; a problem naming the field to change when they pass MAX_LOAD_CHANGES.
+ * Counted as buildTimeline places them: every segment start of every repeat or day that begins
+ * before the end, and two instants per duty period.
+ */
+function loadChanges(study: BackupStudy): Problem | null {
+  const horizon = (study.horizonHours ?? DEFAULT_HORIZON_H) * HOUR;
+  const p = study.profile;
+  let end = horizon;
+  const parts: { changes: number; problem: (others: number) => Problem }[] = [];
+  if (p.kind === 'segments') {
+    const total = p.segments.reduce((t, s) => t + s.durationHours * HOUR, 0);
+    if (!p.repeat && total < horizon) end = total;
+    const n = p.segments.length;
+    const cycles = p.repeat ? Math.ceil(end / total) : 1;
+    let shortest = 0;
+    p.segments.forEach((s, i) => {
+      if (s.durationHours < p.segments[shortest]!.durationHours) shortest = i;
+    });
+    parts.push({
+      changes: n * cycles,
+      problem: (others) => {
+        const field = `backup.profile.segments.${shortest}.durationHours`;
+        if (!p.repeat) return bad('backup.profile.segments', n, `${count(n)} segments${withOthers(n, others)} are more than the ${count(MAX_LOAD_CHANGES)} load changes a study holds: join segments`);
+        // The cycle that keeps these changes within what the others leave: n × horizon ÷ cycle.
+        const room = MAX_LOAD_CHANGES - others;
+        const cycle = room >= n ? (n * horizon) / (room - n + 1) : Infinity;
+        const longer = Number.isFinite(cycle) ? ` make segment ${shortest + 1} at least ${hours(upTo3(p.segments[shortest]!.durationHours * HOUR + cycle - total))} long (the repeating cycle at least ${hours(upTo3(cycle))}), turn repeat off or shorten the horizon` : ' turn repeat off or shorten the horizon';
+        return bad(field, p.segments[shortest]!.durationHours, `repeated over the ${hours(horizon)} horizon, a cycle of ${hours(total)} changes the load ${count(n * cycles)} times${withOthers(n * cycles, others)}; a study holds at most ${count(MAX_LOAD_CHANGES)} load changes:${longer}`);
+      },
+    });
+  } else if (p.kind === 'daily') {
+    const offset = (p.startHour ?? 0) * HOUR;
+    const days = Math.ceil((end + offset) / DAY) + 1;
+    const n = p.segments.length;
+    parts.push({
+      changes: n * days,
+      problem: (others) => bad('backup.profile.segments', n, `${n} segments a day over the ${hours(horizon)} horizon change the load ${count(n * days)} times${withOthers(n * days, others)}; a study holds at most ${count(MAX_LOAD_CHANGES)} load changes: use fewer segments or a shorter horizon`),
+    });
+  }
+  (p.duty ?? []).forEach((d, i) => {
+    const period = d.periodMinutes * 60;
+    const offset = (d.offsetMinutes ?? 0) * 60;
+    const periods = offset < end ? Math.ceil((end - offset) / period) : 0;
+    parts.push({
+      changes: 2 * periods,
+      problem: (others) => {
+        const room = MAX_LOAD_CHANGES - others;
+        const needed = room >= 2 ? (2 * (end - offset)) / room : Infinity;
+        const longer = Number.isFinite(needed) ? `make the period at least ${hours(upTo3(needed))} or shorten the horizon` : 'shorten the horizon or remove other schedules';
+        return bad(`backup.profile.duty.${i}.periodMinutes`, d.periodMinutes, `switches the load ${count(2 * periods)} times over the ${hours(end)} the study runs${withOthers(2 * periods, others)}; a study holds at most ${count(MAX_LOAD_CHANGES)} load changes: ${longer}`);
+      },
+    });
+  });
+  const total = parts.reduce((t, x) => t + x.changes, 0);
+  if (!(total > MAX_LOAD_CHANGES)) return null;
+  // The part that gives the most changes is named; the room it has is what the others leave.
+  const worst = parts.reduce((a, b) => (b.changes > a.changes ? b : a));
+  return worst.problem(parts.reduce((t, x) => (x === worst ? t : t + x.changes), 0));
+}
+
+/**
+ * Keys of the raw `backup` settings (as read from the file, before the schema) that name a load by
+ * a reserved id (`__proto__`, `toString` … see core/solve/structure.ts): no element can have one,
+ * and a schema may drop `__proto__` without a word, so they are refused here at their field.
+ */
+export function reservedKeyProblems(rawBackup: unknown): Problem[] {
+  const problems: Problem[] = [];
+  const own = (o: unknown, key: string): unknown => (typeof o === 'object' && o !== null && Object.hasOwn(o, key) ? (o as Record<string, unknown>)[key] : undefined);
+  const profile = own(rawBackup, 'profile');
+  const segments = own(profile, 'segments');
+  if (Array.isArray(segments)) {
+    segments.forEach((segment, i) => {
+      const loads = own(segment, 'loads');
+      if (typeof loads !== 'object' || loads === null) return;
+      for (const id of Object.keys(loads)) {
+        if (RESERVED_IDS.has(id)) problems.push(bad(`backup.profile.segments.${i}.loads.${id}`, id, `no element can have the id "${id}" (a reserved name)`));
+      }
+    });
   }
   return problems;
 }
@@ -153,6 +291,8 @@ export interface Timeline {
   end: number;
   /** True when a `segments` profile (no repeat) ends before the horizon. */
   profileEnds: boolean;
+  /** Set when the profile meets more than MAX_LOAD_STATES load states: the timeline stops there and the study is refused. */
+  refused?: Problem;
 }
 
 const HOUR = 3600;
@@ -166,7 +306,10 @@ const settingValue = (rated: number, s: LoadSetting | undefined): number =>
 function dutyBreaks(d: DutySchedule, end: number, into: number[]): void {
   const period = d.periodMinutes * 60;
   const on = d.onMinutes * 60;
-  for (let t = (d.offsetMinutes ?? 0) * 60; t < end; t += period) {
+  const offset = (d.offsetMinutes ?? 0) * 60;
+  // t = offset + k·period, not a running sum: a period below the resolution of t still ends the
+  // loop (the count is bounded by checkStudy's MAX_LOAD_CHANGES, and here once more).
+  for (let k = 0, t = offset; t < end && k <= MAX_LOAD_CHANGES; k++, t = offset + k * period) {
     into.push(t, t + on);
   }
 }
@@ -177,6 +320,26 @@ function dutyOn(d: DutySchedule, t: number): boolean {
   const period = d.periodMinutes * 60;
   const into = (t - offset) % period;
   return into < d.onMinutes * 60;
+}
+
+/** Index of the last of the rising `starts` at or before t, −1 when t comes before them all (binary search). */
+function lastAtOrBefore(starts: readonly number[], t: number): number {
+  let lo = 0;
+  let hi = starts.length;
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1;
+    if (starts[mid]! <= t) lo = mid + 1;
+    else hi = mid;
+  }
+  return lo - 1;
+}
+
+function tooManyStates(at: number): Problem {
+  return bad(
+    'backup.profile',
+    MAX_LOAD_STATES,
+    `gives more than ${count(MAX_LOAD_STATES)} different combinations of load levels (the first past that at ${hours(at)} into the outage), each solved through the whole chain: use fewer segments or duty schedules, or give duty schedules periods that fit into each other`,
+  );
 }
 
 /**
@@ -205,22 +368,18 @@ export function buildTimeline(project: Project, study: BackupStudy): Timeline {
       end = total;
       profileEnds = true;
     }
-    for (let cycle = 0; cycle * total < end; cycle++) for (const s of starts) breaks.push(cycle * total + s);
+    for (let cycle = 0; cycle * total < end && breaks.length <= MAX_LOAD_CHANGES * 2; cycle++) for (const s of starts) breaks.push(cycle * total + s);
     base = (t) => {
-      const local = t % total;
-      let i = starts.length - 1;
-      while (i > 0 && starts[i]! > local) i--;
-      return p.segments[i]!.loads;
+      const i = lastAtOrBefore(starts, t % total);
+      return p.segments[Math.max(i, 0)]!.loads;
     };
   } else {
     const offset = (p.startHour ?? 0) * HOUR;
     const starts = p.segments.map((s) => s.startHour * HOUR);
     for (let day = -1; day * DAY < end + offset; day++) for (const s of starts) breaks.push(day * DAY + s - offset);
     base = (t) => {
-      const local = (t + offset) % DAY;
-      // The segment in force is the last one starting at or before `local`; before the first start, the last of the day.
-      let i = starts.length - 1;
-      while (i >= 0 && starts[i]! > local) i--;
+      // The segment in force is the last one starting at or before the time of day; before the first start, the last of the day.
+      const i = lastAtOrBefore(starts, (t + offset) % DAY);
       return p.segments[i < 0 ? starts.length - 1 : i]!.loads;
     };
   }
@@ -229,7 +388,17 @@ export function buildTimeline(project: Project, study: BackupStudy): Timeline {
   const cuts = [...new Set(breaks.filter((t) => t >= 0 && t < end))].sort((a, b) => a - b);
   cuts.push(end);
   const dutyByLoad = new Map<string, DutySchedule[]>();
-  for (const d of duty) dutyByLoad.set(d.load, [...(dutyByLoad.get(d.load) ?? []), d]);
+  for (const d of duty) {
+    const list = dutyByLoad.get(d.load);
+    if (list) list.push(d);
+    else dutyByLoad.set(d.load, [d]);
+  }
+  // Only the loads the profile names can change; the others stay at their rating throughout, so each
+  // interval looks at the named ones alone.
+  const named = new Set<string>(dutyByLoad.keys());
+  if (p.kind !== 'constant') for (const seg of p.segments) for (const id of Object.keys(seg.loads ?? {})) named.add(id);
+  const varying = loads.flatMap((l, k) => (named.has(l.id) ? [k] : []));
+  const steady = loads.map((l) => l.rated);
 
   const states: number[][] = [];
   const keys = new Map<string, number>();
@@ -239,16 +408,23 @@ export function buildTimeline(project: Project, study: BackupStudy): Timeline {
     const stop = cuts[i + 1]!;
     const mid = (start + stop) / 2;
     const settings = base(mid);
-    const values = loads.map((l) => {
+    const values = varying.map((k) => {
+      const l = loads[k]!;
       const schedules = dutyByLoad.get(l.id);
       if (schedules && !schedules.every((d) => dutyOn(d, mid))) return 0;
-      return settingValue(l.rated, settings?.[l.id]);
+      // Own keys only: a settings object answers to names it does not hold ("constructor" …).
+      return settingValue(l.rated, settings && Object.hasOwn(settings, l.id) ? settings[l.id] : undefined);
     });
     const key = values.join(',');
     let state = keys.get(key);
     if (state === undefined) {
+      if (states.length >= MAX_LOAD_STATES) {
+        return { loads, states, intervals, end, profileEnds, refused: tooManyStates(start) };
+      }
       state = states.length;
-      states.push(values);
+      const all = steady.slice();
+      varying.forEach((k, j) => (all[k] = values[j]!));
+      states.push(all);
       keys.set(key, state);
     }
     const last = intervals[intervals.length - 1];

@@ -599,6 +599,19 @@ function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok: false;
   }
   if (input.targetRuntime !== undefined && (!isFiniteNumber(input.targetRuntime) || input.targetRuntime <= 0)) {
     out.push(problem('invalid-value', elementId, fields.targetRuntime, input.targetRuntime, 'target runtime must be greater than 0'));
+  } else if (input.targetRuntime !== undefined && Array.isArray(input.dutyCycle?.periods)) {
+    const repeated = repeatedPeriods(input.dutyCycle.periods, input.targetRuntime);
+    if (repeated > MAX_REPEATED_PERIODS) {
+      out.push(
+        problem(
+          'invalid-value',
+          elementId,
+          fields.targetRuntime,
+          input.targetRuntime,
+          `the duty cycle would have to repeat into ${repeated > 1e15 ? 'far more than 10^15' : Math.ceil(repeated)} periods to fill the target runtime; at most ${MAX_REPEATED_PERIODS}: give a duty cycle closer to the target runtime`,
+        ),
+      );
+    }
   }
   const designMargin = input.designMargin ?? DEFAULT_DESIGN_MARGIN;
   checkFactor(out, elementId, fields.designMargin, designMargin, 'design margin');
@@ -705,6 +718,19 @@ function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok: false;
 // ---------------------------------------------------------------------------------------------
 
 /** The duty cycle over exactly `target` seconds: repeated from its start, or cut. */
+/**
+ * Most periods a duty cycle may be repeated or cut into to fill the target runtime (the run of a
+ * study holds at most about as many steps: core/battery/profile.ts, MAX_STEPS + MAX_LOAD_CHANGES).
+ */
+export const MAX_REPEATED_PERIODS = 1_100_000;
+
+/** How many periods `fitToRuntime` would give: the cycle's periods × the repeats it takes (an upper bound). */
+export function repeatedPeriods(periods: readonly { duration: number }[], target: number): number {
+  const total = periods.reduce((s, p) => s + (Number.isFinite(p.duration) && p.duration > 0 ? p.duration : 0), 0);
+  if (!(total > 0)) return 0;
+  return periods.length * Math.ceil(target / total);
+}
+
 export function fitToRuntime<T extends { duration: number }>(periods: readonly T[], target: number): T[] {
   const out: T[] = [];
   let left = target;

@@ -8,7 +8,8 @@
 import type { BackupStudy, BatteryBankSpec } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { simulateDischarge, type DischargeResult } from './discharge.ts';
-import { sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
+import { MAX_REPEATED_PERIODS, repeatedPeriods, sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
+import { MAX_HORIZON_H } from './profile.ts';
 import { chargerForTargetTime, rechargeTime, type ChargerSizing, type Recharge } from './recharge.ts';
 
 export interface BackupStudyResult {
@@ -48,14 +49,19 @@ export function terminalPowerPeriods(d: DischargeResult): PowerPeriod[] {
   return out;
 }
 
-/** The project with its bank made too large to run out within `hours` (same R, same start). */
+/**
+ * The project with its bank made too large to run out within `hours` (same R, same start): a
+ * million times its capacity, at least 1e9 Ah, at full health (a bank entered at a state of health
+ * near 0 would otherwise still run out at once).
+ */
 function withEndlessBank(input: unknown, batteryId: string, internalResistance: number, hours: number): unknown {
   const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec; internalResistance?: number }[] };
+  const { stateOfHealth: _soh, ...backup } = project.backup;
   return {
     ...project,
-    backup: { ...project.backup, horizonHours: hours },
+    backup: { ...backup, horizonHours: hours },
     elements: project.elements.map((e) =>
-      e.id === batteryId && e.bank ? { ...e, internalResistance, bank: { ...e.bank, capacityAh: e.bank.capacityAh * 1e6 } } : e,
+      e.id === batteryId && e.bank ? { ...e, internalResistance, bank: { ...e.bank, capacityAh: Math.max(e.bank.capacityAh * 1e6, 1e9) } } : e,
     ),
   };
 }
@@ -65,8 +71,9 @@ function withSizedBank(input: unknown, batteryId: string, sizing: BankSizing, ta
   const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec; internalResistance?: number }[] };
   return {
     ...project,
-    // Long enough to see the sized bank run out (it is sized with margins beyond the target).
-    backup: { ...project.backup, horizonHours: Math.max(project.backup.horizonHours ?? 0, 4 * target) },
+    // Long enough to see the sized bank run out (it is sized with margins beyond the target), within
+    // the year a study runs at most.
+    backup: { ...project.backup, horizonHours: Math.min(Math.max(project.backup.horizonHours ?? 0, 4 * target), MAX_HORIZON_H) },
     elements: project.elements.map((e) => {
       if (e.id !== batteryId || !e.bank) return e;
       const strings = e.bank.strings ?? 1;
@@ -75,6 +82,20 @@ function withSizedBank(input: unknown, batteryId: string, sizing: BankSizing, ta
       return { ...e, ...r, bank: { ...e.bank, series: sizing.seriesBlocks, strings: sizing.strings, capacityAh: sizing.capacityPerString } };
     }),
   };
+}
+
+/**
+ * The run the sizing reads is far shorter than the target runtime (or holds no time at all), so
+ * repeated to the target it would pass MAX_REPEATED_PERIODS: refused at the setting that cut it short.
+ */
+function tooShortForTarget(run: DischargeResult, study: BackupStudy): Problem {
+  const lasted = `the outage the study simulates lasts ${Number((run.runtimeSeconds / 3600).toPrecision(3))} h`;
+  // (a run of no time at all gives no periods to repeat: the same refusal)
+  const repeat = `repeated to the target runtime of ${study.targetRuntimeHours} h it would give more than ${MAX_REPEATED_PERIODS.toLocaleString('en-US').replace(/,/g, ' ')} periods`;
+  const at = (field: string, value: unknown, what: string, fix: string): Problem => ({ code: 'invalid-value', elementId: 'project', field, value, message: `${lasted} (${what}); ${repeat}: ${fix}` });
+  if (run.endReason === 'horizon') return at('backup.horizonHours', study.horizonHours, 'the horizon', 'give a horizon at least as long as the target runtime');
+  if (run.endReason === 'profile-complete') return at('backup.profile', study.profile.kind, 'the profile, run once', 'give a profile as long as the target runtime, or let it repeat');
+  return at('backup.targetRuntimeHours', study.targetRuntimeHours, run.endText, 'check the bank and the chain, or give a shorter target runtime');
 }
 
 /** Run the whole study for a project given as untrusted data. Never throws on bad input. */
@@ -92,6 +113,7 @@ export function runBackupStudy(input: unknown): BackupStudyOutcome {
   if (study.targetRuntimeHours !== undefined) {
     const target = study.targetRuntimeHours * 3600;
     let periods = terminalPowerPeriods(d);
+    let run = d;
     result.sizingBasis = 'terminal power of the simulated outage, step by step, cut at the target runtime';
     if (d.runtimeSeconds < target && !d.runtimeIsLowerBound) {
       // The bank ran out before the target: the profile must go on to the target for the sizing. Run
@@ -100,9 +122,13 @@ export function runBackupStudy(input: unknown): BackupStudyOutcome {
       const extended = simulateDischarge(withEndlessBank(input, d.batteryId, d.bank.internalResistance, study.targetRuntimeHours));
       if (!extended.ok) return extended;
       periods = terminalPowerPeriods(extended.result);
+      run = extended.result;
       result.sizingBasis =
         'terminal power of the profile over the whole target runtime, from a run with a bank too large to run out (its voltage stays near full charge, so cable losses late in a real discharge are slightly understated)';
     }
+    // The run is cut or repeated to the target runtime for the sizing: a run far shorter than the
+    // target (a horizon of seconds) would repeat into more periods than any run holds.
+    if (periods.length === 0 || repeatedPeriods(periods, target) > MAX_REPEATED_PERIODS) return { ok: false, problems: [tooShortForTarget(run, study)] };
     const sized = sizeBank({
       elementId: d.batteryId,
       chemistry: spec.chemistry,

@@ -78,31 +78,84 @@ export interface DesignContext {
 const nameOf = (e: Element): string => `"${e.name ?? e.id}"`;
 const PASSIVE = new Set(['cable', 'dcbus']);
 
-/** The equipment a link feeds: the first non-passive elements below it (through cables and DC buses). */
-function terminals(ctx: DesignContext, id: string): Element[] {
-  const out: Element[] = [];
-  const walk = (from: string) => {
-    for (const ch of ctx.children.get(from) ?? []) {
-      if (PASSIVE.has(ch.kind)) walk(ch.id);
+/** Per solve: the terminals and the feeder found for each element, so that every walk is done once. */
+const walks = new WeakMap<DesignContext, { terminals: Map<string, readonly Element[]>; feeder: Map<string, Element | undefined> }>();
+
+function walksOf(ctx: DesignContext) {
+  let w = walks.get(ctx);
+  if (!w) {
+    w = { terminals: new Map(), feeder: new Map() };
+    walks.set(ctx, w);
+  }
+  return w;
+}
+
+/**
+ * The equipment a link feeds: the first non-passive elements below it (through cables and DC
+ * buses), in file order. Without recursion, and remembered per element: a run of thousands of
+ * cables is walked once, and an element with one passive child shares that child's list.
+ */
+function terminals(ctx: DesignContext, id: string): readonly Element[] {
+  const known = walksOf(ctx).terminals;
+  // Post-order over the passive elements below `id`: an element's list is made once its passive
+  // children's lists are known.
+  const stack: { id: string; expanded: boolean }[] = [{ id, expanded: false }];
+  while (stack.length) {
+    const top = stack[stack.length - 1]!;
+    if (known.has(top.id)) {
+      stack.pop();
+      continue;
+    }
+    const children = ctx.children.get(top.id) ?? [];
+    if (!top.expanded) {
+      top.expanded = true;
+      for (let k = children.length - 1; k >= 0; k--) {
+        const ch = children[k]!;
+        if (PASSIVE.has(ch.kind) && !known.has(ch.id)) stack.push({ id: ch.id, expanded: false });
+      }
+      continue;
+    }
+    stack.pop();
+    const only = children.length === 1 && PASSIVE.has(children[0]!.kind) ? known.get(children[0]!.id) : undefined;
+    if (only) {
+      known.set(top.id, only);
+      continue;
+    }
+    const out: Element[] = [];
+    for (const ch of children) {
+      if (PASSIVE.has(ch.kind)) for (const t of known.get(ch.id) ?? []) out.push(t);
       else out.push(ch);
     }
-  };
-  walk(id);
-  return out;
+    known.set(top.id, out);
+  }
+  return known.get(id) ?? [];
 }
 
 /**
  * The equipment whose output a link carries: up through cables only. A DC bus is a branch point,
- * so a cable beyond it is a branch of the bus, not the equipment's output circuit.
+ * so a cable beyond it is a branch of the bus, not the equipment's output circuit. Remembered
+ * along the way, so a long run of cables is walked once.
  */
 function feeder(ctx: DesignContext, e: Element): Element | undefined {
+  const known = walksOf(ctx).feeder;
+  const passed: string[] = [];
+  let found: Element | undefined;
   let at: Element | undefined = e;
   while (at && 'from' in at) {
+    if (known.has(at.id)) {
+      found = known.get(at.id);
+      break;
+    }
+    passed.push(at.id);
     const up = ctx.byId.get(at.from);
-    if (!up || up.kind !== 'cable') return up;
+    if (!up || up.kind !== 'cable') {
+      found = up;
+      break;
+    }
     at = up;
   }
-  return undefined;
+  for (const id of passed) known.set(id, found);
+  return found;
 }
 
 /** Current drawn by an element at nominal voltage (the nominal solve's power over the nominal voltage), A. */

@@ -90,11 +90,13 @@ export function pathDrops(
         // its impedance with the solved drop (% of its sending voltage).
         const pct = checked.get(parent.id) ?? (100 * (parent.input.voltage - parent.output.voltage)) / parent.input.voltage;
         const limit = linkLimit(perLinkOwn.get(parent.id), limits);
-        links.unshift({ id: parent.id, dropPercent: pct, exceedsLimit: pct > limit * (1 + 1e-12) });
+        // Collected load-first, put in source-first order below (one reverse, not a shift per link).
+        links.push({ id: parent.id, dropPercent: pct, exceedsLimit: pct > limit * (1 + 1e-12) });
       }
       at = parent;
     }
     if (!start?.output) continue;
+    links.reverse();
     const totalPercent = links.reduce((s, l) => s + l.dropPercent, 0);
     const exceeds = totalPercent > limits.totalPercent * (1 + 1e-12) || links.some((l) => l.exceedsLimit);
     out.push({

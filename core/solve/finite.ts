@@ -41,24 +41,38 @@ function elementOf(obj: Record<string, unknown>): { id: string; name?: string } 
  * is usually broken in many places; the first few say where).
  */
 export function findNonFinite(value: unknown, limit = 50): NonFiniteFigure[] {
+  type Owner = { id: string; name?: string; depth: number };
   const found: NonFiniteFigure[] = [];
   const seen = new WeakSet<object>();
-  const walk = (v: unknown, path: string[], owner: { id: string; name?: string; depth: number }): void => {
-    if (found.length >= limit) return;
+  // Depth-first in the order of the keys, without recursion and without a path per value: one path
+  // of keys, cut back to each entry's depth, copied only for a figure that is reported. `depth` is
+  // the length of the path to the entry's container.
+  const path: string[] = [];
+  const stack: { v: unknown; depth: number; key: string | null; owner: Owner }[] = [{ v: value, depth: 0, key: null, owner: { id: 'project', depth: 0 } }];
+  while (stack.length > 0 && found.length < limit) {
+    const { v, depth, key, owner } = stack.pop()!;
     if (typeof v === 'number') {
       if (!Number.isFinite(v)) {
+        path.length = depth;
+        if (key !== null) path.push(key);
         found.push({ elementId: owner.id, ...(owner.name !== undefined ? { elementName: owner.name } : {}), path: path.slice(owner.depth), value: v });
       }
-      return;
+      continue;
     }
-    if (!isRecord(v) || seen.has(v)) return;
+    if (!isRecord(v) || seen.has(v)) continue;
     seen.add(v);
+    path.length = depth;
+    if (key !== null) path.push(key);
     const el = Array.isArray(v) ? undefined : elementOf(v);
-    const here = el ? { ...el, depth: path.length } : owner;
-    if (Array.isArray(v)) v.forEach((item, i) => walk(item, [...path, String(i)], here));
-    else for (const [key, item] of Object.entries(v)) walk(item, [...path, key], here);
-  };
-  walk(value, [], { id: 'project', depth: 0 });
+    const here: Owner = el ? { ...el, depth: path.length } : owner;
+    const d = path.length;
+    if (Array.isArray(v)) {
+      for (let i = v.length - 1; i >= 0; i--) stack.push({ v: v[i], depth: d, key: String(i), owner: here });
+    } else {
+      const keys = Object.keys(v);
+      for (let i = keys.length - 1; i >= 0; i--) stack.push({ v: v[keys[i]!], depth: d, key: keys[i]!, owner: here });
+    }
+  }
   return found;
 }
 
@@ -88,7 +102,7 @@ const FIELD_WORDS: Record<string, string> = {
 /** A result path in words: `input.current` → "input current"; list indices become "item n". */
 export function fieldWords(path: readonly string[]): string {
   return path
-    .map((key) => (/^\d+$/.test(key) ? `item ${Number(key) + 1}` : FIELD_WORDS[key] ?? key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase()))
+    .map((key) => (/^\d+$/.test(key) ? `item ${Number(key) + 1}` : (Object.hasOwn(FIELD_WORDS, key) ? FIELD_WORDS[key] : undefined) ?? key.replace(/([a-z0-9])([A-Z])/g, '$1 $2').toLowerCase()))
     .join(' ');
 }
 

@@ -22,7 +22,7 @@ export type Plan = { ok: true; order: PlannedElement[] } | { ok: false; problems
 
 const KIND_NAMES: Record<string, string> = { dc: 'DC', ac1: 'single-phase AC', ac3: 'three-phase AC', shaft: 'a motor shaft' };
 
-/** Depth-first order from the source; children in the order they appear in the file. */
+/** Depth-first order from the source; children in the order they appear in the file. Linear in the elements. */
 export function plan(project: Project): Plan {
   const problems: Problem[] = [];
   const children = new Map<string, Element[]>();
@@ -37,7 +37,16 @@ export function plan(project: Project): Plan {
     else children.set(e.from, [e]);
   }
   const order: PlannedElement[] = [];
-  const visit = (e: Element, parent: number, input: PortInfo | null): void => {
+  // Depth-first without recursion (a chain may be thousands of elements deep): a stack of the
+  // elements still to visit, children pushed last-first so they come off in file order.
+  const stack: { e: Element; parent: number; input: PortInfo | null }[] = source ? [{ e: source, parent: -1, input: null }] : [];
+  // Each element is placed once: with duplicate ids (refused by validate, beside which plan may run)
+  // an element could otherwise be reached again through its own id.
+  const placed = new Set<Element>();
+  while (stack.length) {
+    const { e, parent, input } = stack.pop()!;
+    if (placed.has(e)) continue;
+    placed.add(e);
     const spec = KINDS.get(e.kind)!;
     if (input) {
       const accepted = spec.accepts(e);
@@ -49,7 +58,7 @@ export function plan(project: Project): Plan {
           value: 'from' in e ? e.from : undefined,
           message: `is fed ${KIND_NAMES[input.kind]} but takes ${accepted.map((k) => KIND_NAMES[k]).join(' or ')}`,
         });
-        return; // what hangs below cannot be built without this element's output port
+        continue; // what hangs below cannot be built without this element's output port
       }
     }
     const model = spec.build(e, input);
@@ -57,8 +66,10 @@ export function plan(project: Project): Plan {
     const index = order.length;
     order.push({ element: e, spec, model, parent, children: [], input });
     if (parent >= 0) order[parent]!.children.push(index);
-    for (const child of children.get(e.id) ?? []) visit(child, index, model.out);
-  };
-  if (source) visit(source, -1, null);
+    // An element with no output (a load) feeds nothing: what names it as its feed is refused by
+    // validate ("not-a-feeder") and not built here (it would be built without an input port).
+    const below = model.out ? (children.get(e.id) ?? []) : [];
+    for (let k = below.length - 1; k >= 0; k--) stack.push({ e: below[k]!, parent: index, input: model.out });
+  }
   return problems.length ? { ok: false, problems } : { ok: true, order };
 }

@@ -50,8 +50,11 @@ interface PreparedState {
   /** Σ losses of the elements below the frontier (converters and what they feed), W. */
   belowLoss: number;
   loadPower: number;
-  /** Models of the loads in this state (for the whole-chain fallback). */
-  order: PlannedElement[];
+  /**
+   * The loads' elements and models in this state, in `loadIdx` order, for the whole-chain fallback
+   * only (the fast path needs none: a study's states then hold a few numbers each, not a chain).
+   */
+  loads?: { element: Element; model: ElementModel }[];
 }
 
 export interface RepeatSolver {
@@ -126,16 +129,23 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
   const sOut = new Float64Array(nTop);
   let warm = false;
 
-  const prepare: RepeatSolver['prepare'] = (values) => {
-    const stateOrder = order.map((n) => ({ ...n }));
+  /** The plan with the loads of one state in place (a shallow copy: the other elements are shared). */
+  const withLoads = (loads: readonly { element: Element; model: ElementModel }[]): PlannedElement[] => {
+    const stateOrder = order.slice();
     loadIdx.forEach((i, k) => {
-      const node = stateOrder[i]!;
+      stateOrder[i] = { ...order[i]!, ...loads[k]! };
+    });
+    return stateOrder;
+  };
+
+  const prepare: RepeatSolver['prepare'] = (values) => {
+    const loads = loadIdx.map((i, k) => {
+      const node = order[i]!;
       const field = LOAD_FIELD[node.element.kind]!;
       const element = { ...node.element, [field]: values[k]! } as Element;
-      node.element = element;
-      node.model = node.spec.build(element, node.input);
+      return { element, model: node.spec.build(element, node.input) };
     });
-    const swept = sweep(stateOrder);
+    const swept = sweep(withLoads(loads));
     if (!swept.ok) return swept;
     const { sIn: pin, sOut: pout } = swept.point;
     const fixed = new Float64Array(nTop);
@@ -148,7 +158,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       if (node.spec.role !== 'load') belowLoss += pin[i]!.re - pout[i]!.re;
       if (inTop[node.parent]) fixed[topPos.get(node.parent)!]! += pin[i]!.re;
     }
-    states.push({ fixed, belowLoss, loadPower, order: stateOrder });
+    states.push({ fixed, belowLoss, loadPower, ...(fast ? {} : { loads }) });
     return { ok: true, state: states.length - 1 };
   };
 
@@ -264,7 +274,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     const src = order[0]!;
     const element = { ...src.element, voltage: emf, internalResistance: resistance } as Element;
     delete (element as { bank?: unknown }).bank;
-    const stepOrder = st.order.slice();
+    const stepOrder = withLoads(st.loads!);
     stepOrder[0] = { ...src, element, model: src.spec.build(element, null) };
     const swept = sweep(stepOrder);
     if (!swept.ok) return null;

@@ -125,7 +125,8 @@ function nominalVoltages(order: readonly PlannedElement[]): number[] {
   return out;
 }
 
-const indexOf = (order: readonly PlannedElement[], id: string): number => order.findIndex((n) => n.element.id === id);
+/** Place of each element in a plan, by id (one Map per plan: a lookup per link stays constant-time). */
+const indexById = (order: readonly PlannedElement[]): Map<string, number> => new Map(order.map((n, i) => [n.element.id, i]));
 
 /** Size the conductor links and solve the chain with them in place. */
 export function sizeConductors(project: Project, catalogue: ConductorCatalogue = defaultCatalogue): Sized {
@@ -145,7 +146,12 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
   const order0 = nominalPlan.order;
   const vNom = nominalVoltages(order0);
   const children = new Map<string, Element[]>();
-  for (const e of project.elements) if ('from' in e) children.set(e.from, [...(children.get(e.from) ?? []), e]);
+  for (const e of project.elements) {
+    if (!('from' in e)) continue;
+    const siblings = children.get(e.from);
+    if (siblings) siblings.push(e);
+    else children.set(e.from, [e]);
+  }
   const ctx: DesignContext = {
     project,
     children,
@@ -158,8 +164,9 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
   // 2. Sizing from the design current, once.
   const links = new Map<string, Link>();
   const problems: Problem[] = [];
+  const at0 = indexById(order0);
   for (const e of specs) {
-    const i = indexOf(order0, e.id);
+    const i = at0.get(e.id) ?? -1;
     const node = order0[i];
     if (!node?.input) continue; // not reached from the source: plan has reported why
     const kind = node.input.kind;
@@ -211,9 +218,10 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
     const swept = sweep(order);
     if (!swept.ok) return swept;
     const point = swept.point;
+    const at = indexById(order);
     let changed = false;
     for (const link of links.values()) {
-      const i = indexOf(order, link.element.id);
+      const i = at.get(link.element.id)!;
       const m = link.prepared.kind === 'ac3' ? 3 : 1;
       const vr = abs(point.vOut[i]!);
       const current = vr > 0 ? abs(point.sOut[i]!) / m / vr : 0;
@@ -228,7 +236,7 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
       link.temperature = t;
     }
     if (!changed) {
-      const outcomes = new Map([...links.values()].map((l) => [l.element.id, { link: l, index: indexOf(order, l.element.id) }]));
+      const outcomes = new Map([...links.values()].map((l) => [l.element.id, { link: l, index: at.get(l.element.id)! }]));
       return { ok: true, order, point, links: outcomes, passes: pass, limits };
     }
   }

@@ -59,6 +59,40 @@ function direction(v: Complex, fallback: Complex): Complex {
 }
 
 /**
+ * What the constant-current loads and other loads behind a bus hand on to the link above it: for
+ * every bus that passes its voltage on and carries such loads (`behindBus`), the power of its own
+ * loss and of its loads that are not given by their current, and the sum of the currents of those
+ * that are, through nested buses. Worked bottom-up once per sweep (children come after their
+ * parent in `order`), so each element is visited once whatever the depth.
+ */
+function behindBusLoads(
+  order: readonly PlannedElement[],
+  sIn: readonly Complex[],
+  sOut: readonly Complex[],
+  behindBus: readonly boolean[],
+  noLoad: boolean,
+): { s: Complex; j: Complex | undefined }[] {
+  const out = new Array<{ s: Complex; j: Complex | undefined }>(order.length);
+  for (let n = order.length - 1; n >= 0; n--) {
+    if (!behindBus[n]) continue;
+    let s = ZERO;
+    let j: Complex | undefined;
+    for (const child of order[n]!.children) {
+      const m = order[child]!.model;
+      if (m.current !== undefined) {
+        if (!noLoad) j = add(j ?? ZERO, m.current);
+      } else if (behindBus[child]) {
+        const deep = out[child]!;
+        s = add(add(s, sub(sIn[child]!, sOut[child]!)), deep.s);
+        if (deep.j !== undefined) j = add(j ?? ZERO, deep.j);
+      } else s = add(s, sIn[child]!);
+    }
+    out[n] = { s, j };
+  }
+  return out;
+}
+
+/**
  * Returns the index of the first element whose output cannot be delivered, or −1. With `recover`,
  * such an element's voltage is halved instead and the sweep goes on (see `sweep`).
  */
@@ -73,6 +107,8 @@ function forward(
   noLoad = false,
 ): number {
   let bad = -1;
+  // The powers and currents behind buses depend only on the backward sweep: worked once here.
+  const deep = handover.some((h) => h) ? behindBusLoads(order, sIn, sOut, behindBus, noLoad) : [];
   for (let i = 0; i < order.length; i++) {
     const node = order[i]!;
     const vIn = vInOf(order, vOut, i);
@@ -86,19 +122,19 @@ function forward(
     if (handover[i]) {
       let y = ZERO;
       let j: Complex | undefined;
-      const collect = (n: number, top: boolean): Complex => {
-        let s = ZERO;
-        for (const child of order[n]!.children) {
-          const m = order[child]!.model;
-          if (top && m.admittance !== undefined) y = add(y, m.admittance);
-          else if (m.current !== undefined) {
-            if (!noLoad) j = add(j ?? ZERO, m.current);
-          } else if (behindBus[child]) s = add(add(s, sub(sIn[child]!, sOut[child]!)), collect(child, false));
-          else s = add(s, sIn[child]!);
-        }
-        return s;
-      };
-      sConst = collect(i, true);
+      let s = ZERO;
+      for (const child of node.children) {
+        const m = order[child]!.model;
+        if (m.admittance !== undefined) y = add(y, m.admittance);
+        else if (m.current !== undefined) {
+          if (!noLoad) j = add(j ?? ZERO, m.current);
+        } else if (behindBus[child]) {
+          const below = deep[child]!;
+          s = add(add(s, sub(sIn[child]!, sOut[child]!)), below.s);
+          if (below.j !== undefined) j = add(j ?? ZERO, below.j);
+        } else s = add(s, sIn[child]!);
+      }
+      sConst = s;
       direct = j === undefined ? y : { re: y.re, im: y.im, current: j, along: direction(vOut[i]!, vIn) };
     }
     const v = node.model.outputVoltage(vIn, sConst, direct);
@@ -118,16 +154,31 @@ function forward(
  * not counted: their power follows the voltage), and Σ current of the constant-current loads, A.
  */
 function loadBelow(order: readonly PlannedElement[], sIn: readonly Complex[], i: number): { watts: number; amps: number } {
-  const node = order[i]!;
-  if (node.model.current !== undefined) return { watts: 0, amps: abs(node.model.current) };
-  if (node.spec.role === 'load') return { watts: sIn[i]!.re, amps: 0 };
-  const total = { watts: 0, amps: 0 };
-  for (const child of node.children) {
-    const below = loadBelow(order, sIn, child);
-    total.watts += below.watts;
-    total.amps += below.amps;
+  // Bottom-up over the subtree of i, no recursion: the same sums, child by child in order. In the
+  // depth-first order the subtree is the run of indices after i whose feeder lies at i or after it.
+  let end = i + 1;
+  while (end < order.length && order[end]!.parent >= i) end++;
+  const watts = new Float64Array(end - i);
+  const ampsBelow = new Float64Array(end - i);
+  for (let k = end - 1; k >= i; k--) {
+    const node = order[k]!;
+    if (node.model.current !== undefined) {
+      watts[k - i] = 0;
+      ampsBelow[k - i] = abs(node.model.current);
+    } else if (node.spec.role === 'load') {
+      watts[k - i] = sIn[k]!.re;
+    } else {
+      let w = 0;
+      let a = 0;
+      for (const child of node.children) {
+        w += watts[child - i]!;
+        a += ampsBelow[child - i]!;
+      }
+      watts[k - i] = w;
+      ampsBelow[k - i] = a;
+    }
   }
-  return total;
+  return { watts: watts[0]!, amps: ampsBelow[0]! };
 }
 
 /** Elements that pass a load's current on (scaled by a ratio at most): a current beyond them is still a current. */
@@ -140,13 +191,14 @@ const PASS_THROUGH = new Set<Element['kind']>(['cable', 'dcbus', 'transformer'])
  */
 function currentLoadsBehind(order: readonly PlannedElement[], i: number): number[] | null {
   const found: number[] = [];
-  for (const child of order[i]!.children) {
+  // Depth-first in file order without recursion: children pushed last-first.
+  const stack = [...order[i]!.children].reverse();
+  while (stack.length) {
+    const child = stack.pop()!;
     const node = order[child]!;
     if (node.model.current !== undefined) found.push(child);
     else if (PASS_THROUGH.has(node.element.kind)) {
-      const below = currentLoadsBehind(order, child);
-      if (below === null) return null;
-      found.push(...below);
+      for (let k = node.children.length - 1; k >= 0; k--) stack.push(node.children[k]!);
     } else return null;
   }
   return found;

@@ -8,7 +8,7 @@ import type { Problem } from '../errors.ts';
 import { KINDS } from '../stages/index.ts';
 import { checkStructure, skeletonOf } from './structure.ts';
 import { issueMessage, unknownKindMessage } from './issue-messages.ts';
-import { backupSchema } from '../battery/profile.ts';
+import { backupSchema, reservedKeyProblems } from '../battery/profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { flowStudySchema } from '../stages/pump.ts';
 
@@ -35,6 +35,8 @@ function valueAt(obj: unknown, path: readonly PropertyKey[]): unknown {
   let v = obj;
   for (const key of path) {
     if (!isRecord(v) && !Array.isArray(v)) return undefined;
+    // Own fields only: a path through a plain object never reads what it inherits.
+    if (!Object.hasOwn(v as object, key)) return undefined;
     v = (v as Record<PropertyKey, unknown>)[key];
   }
   return v;
@@ -93,6 +95,8 @@ export function validateProject(input: unknown): Validated {
     problems.push(...r.problems);
     if (r.element) elements.push(r.element);
   });
+  // A load level keyed by a reserved id: the schema may have dropped it (`__proto__`) unseen.
+  if (isRecord(input)) problems.push(...reservedKeyProblems(Object.hasOwn(input, 'backup') ? input['backup'] : undefined));
   const fieldsValid = problems.length === 0;
   // Tree checks on every element whose id and kind can be read, so they come with the field problems.
   problems.push(...checkStructure(top.data.elements.map(skeletonOf).filter((s) => s !== null)));

@@ -143,19 +143,8 @@ export const efficiencyField = () =>
 export const MIN_SOURCE_OHMS = 1e-12;
 export const sourceOhms = () =>
   ranged('sourceOhms', 'non-negative', 'Ω').check(z.refine((v) => v <= 0 || v >= MIN_SOURCE_OHMS, { message: 'must be 0 (an ideal source) or at least 1e-12 Ω: a smaller value makes the short-circuit current overflow' }));
-/**
- * Ids an element may not take: the keys every plain object already has ("__proto__", "toString",
- * "constructor" …). Anything that looks an id up in a plain object would find the object's own
- * member instead of the element (a load named "toString" made the battery study report a voltage
- * collapse at the bank); refused here, once, for every kind.
- */
-export const RESERVED_IDS: ReadonlySet<string> = new Set(['__proto__', 'prototype', ...Object.getOwnPropertyNames(Object.prototype)]);
-export const idField = z
-  .string({ error: 'must be text' })
-  .check(
-    z.minLength(1, 'must not be empty'),
-    z.refine((id) => !RESERVED_IDS.has(id), { message: 'is a name the app reserves (every object in the program has a member of that name): choose another id' }),
-  );
+/** Reserved ids (`__proto__`, `toString` …) are refused by the tree checks (core/solve/structure.ts). */
+export const idField = z.string({ error: 'must be text' }).check(z.minLength(1, 'must not be empty'));
 export const nameField = z.optional(z.string({ error: 'must be text' }));
 export const fromField = z.string({ error: 'must name the feeding element' }).check(z.minLength(1, 'must name the feeding element'));
 export const pfSense = z.optional(z.enum(['lagging', 'leading'], { error: 'must be "lagging" or "leading"' }));

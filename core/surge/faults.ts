@@ -105,7 +105,12 @@ interface Walk {
 
 function childrenOf(elements: readonly Element[]): Map<string, Element[]> {
   const m = new Map<string, Element[]>();
-  for (const e of elements) if ('from' in e && e.from !== undefined) m.set(e.from, [...(m.get(e.from) ?? []), e]);
+  for (const e of elements) {
+    if (!('from' in e) || e.from === undefined) continue;
+    const siblings = m.get(e.from);
+    if (siblings) siblings.push(e);
+    else m.set(e.from, [e]);
+  }
   return m;
 }
 
@@ -139,22 +144,28 @@ export function batteryFaults(project: Project, result: SolveResult): { ok: true
   const terminals: FaultPoint = { elementId: root.id, location: 'bank terminals', portKind: 'dc', voltage: emf, impedance: eq.resistance, r: eq.resistance, x: 0, current: emf / eq.resistance };
   walk.points.push(terminals);
   walk.atOutput.set(root.id, terminals);
-  const visit = (id: string, rTo: number) => {
-    for (const child of kids.get(id) ?? []) {
-      if (child.kind === 'cable') {
-        const z = cableZ(child, 'dc', res.get(child.id)?.conductor);
-        const r = rTo + z.r;
-        const p: FaultPoint = { elementId: child.id, location: 'far end', portKind: 'dc', voltage: emf, impedance: r, r, x: 0, current: emf / r };
-        walk.points.push(p);
-        walk.atOutput.set(child.id, p);
-        visit(child.id, r);
-      } else if (child.kind === 'dcbus') {
-        walk.atOutput.set(child.id, walk.atOutput.get(id)!);
-        visit(child.id, rTo);
-      }
-    }
+  // Depth-first from the bank in file order (the points in the order a recursive walk gives),
+  // without recursion: a run may be thousands of cables long.
+  const stack: { child: Element; from: string; rTo: number }[] = [];
+  const pushChildren = (id: string, rTo: number) => {
+    const list = kids.get(id) ?? [];
+    for (let k = list.length - 1; k >= 0; k--) stack.push({ child: list[k]!, from: id, rTo });
   };
-  visit(root.id, eq.resistance);
+  pushChildren(root.id, eq.resistance);
+  while (stack.length) {
+    const { child, from, rTo } = stack.pop()!;
+    if (child.kind === 'cable') {
+      const z = cableZ(child, 'dc', res.get(child.id)?.conductor);
+      const r = rTo + z.r;
+      const p: FaultPoint = { elementId: child.id, location: 'far end', portKind: 'dc', voltage: emf, impedance: r, r, x: 0, current: emf / r };
+      walk.points.push(p);
+      walk.atOutput.set(child.id, p);
+      pushChildren(child.id, r);
+    } else if (child.kind === 'dcbus') {
+      walk.atOutput.set(child.id, walk.atOutput.get(from)!);
+      pushChildren(child.id, rTo);
+    }
+  }
   return { ok: true, walk };
 }
 
@@ -190,40 +201,48 @@ export function acFaults(project: Project, result: SolveResult): { walk: Walk; v
   const at0 = point(root.id, 'source terminals', root.voltage, zs, cRoot, sourceNote);
   walk.points.push(at0);
   walk.atOutput.set(root.id, at0);
-  const visit = (id: string, u: number, z: { r: number; x: number } | null, why?: string) => {
-    for (const child of kids.get(id) ?? []) {
-      if (child.kind === 'cable') {
-        const cz = cableZ(child, kind, res.get(child.id)?.conductor);
-        const nz = z && { r: z.r + cz.r, x: z.x + cz.x };
-        const p = nz ? point(child.id, 'far end', u, nz, voltageFactor(u, tolerance)) : { elementId: child.id, location: 'far end' as const, portKind: kind, voltage: u, impedance: 0, r: 0, x: 0, current: null, note: why! };
-        walk.points.push(p);
-        walk.atOutput.set(child.id, p);
-        visit(child.id, u, nz, why);
-      } else if (child.kind === 'transformer') {
-        const t = child as TransformerStage;
-        const u2 = t.secondaryVoltage;
-        let nz: { r: number; x: number } | null = null;
-        let nwhy = why;
-        if (t.impedancePercent === undefined) {
-          nwhy = `transformer "${t.id}" has no impedancePercent: its short-circuit impedance limits the fault current; enter u_k from its nameplate`;
-        } else if (z) {
-          const ratio2 = (u2 / t.primaryVoltage) ** 2;
-          const zBase = (u2 * u2) / t.ratedApparentPower;
-          const zT = (t.impedancePercent / 100) * zBase;
-          const rT = (t.loadLoss / t.ratedApparentPower) * zBase;
-          const xT = Math.sqrt(Math.max(0, zT * zT - rT * rT));
-          const cMax = voltageFactor(u2, tolerance);
-          const kT = (KT_NUMERATOR * cMax) / (1 + KT_XT_COEFFICIENT * (xT / zBase));
-          nz = { r: z.r * ratio2 + kT * rT, x: z.x * ratio2 + kT * xT };
-        }
-        const p = nz ? point(t.id, 'secondary terminals', u2, nz, voltageFactor(u2, tolerance)) : { elementId: t.id, location: 'secondary terminals' as const, portKind: kind, voltage: u2, impedance: 0, r: 0, x: 0, current: null, note: nwhy! };
-        walk.points.push(p);
-        walk.atOutput.set(t.id, p);
-        visit(t.id, u2, nz, nwhy);
-      }
-    }
+  // Depth-first from the source in file order (the points in the order a recursive walk gives),
+  // without recursion: a run may be thousands of cables long.
+  type Here = { u: number; z: { r: number; x: number } | null; why: string | undefined };
+  const stack: { child: Element; here: Here }[] = [];
+  const pushChildren = (id: string, here: Here) => {
+    const list = kids.get(id) ?? [];
+    for (let k = list.length - 1; k >= 0; k--) stack.push({ child: list[k]!, here });
   };
-  visit(root.id, root.voltage, zs);
+  pushChildren(root.id, { u: root.voltage, z: zs, why: undefined });
+  while (stack.length) {
+    const { child, here } = stack.pop()!;
+    const { u, z, why } = here;
+    if (child.kind === 'cable') {
+      const cz = cableZ(child, kind, res.get(child.id)?.conductor);
+      const nz = z && { r: z.r + cz.r, x: z.x + cz.x };
+      const p = nz ? point(child.id, 'far end', u, nz, voltageFactor(u, tolerance)) : { elementId: child.id, location: 'far end' as const, portKind: kind, voltage: u, impedance: 0, r: 0, x: 0, current: null, note: why! };
+      walk.points.push(p);
+      walk.atOutput.set(child.id, p);
+      pushChildren(child.id, { u, z: nz, why });
+    } else if (child.kind === 'transformer') {
+      const t = child as TransformerStage;
+      const u2 = t.secondaryVoltage;
+      let nz: { r: number; x: number } | null = null;
+      let nwhy = why;
+      if (t.impedancePercent === undefined) {
+        nwhy = `transformer "${t.id}" has no impedancePercent: its short-circuit impedance limits the fault current; enter u_k from its nameplate`;
+      } else if (z) {
+        const ratio2 = (u2 / t.primaryVoltage) ** 2;
+        const zBase = (u2 * u2) / t.ratedApparentPower;
+        const zT = (t.impedancePercent / 100) * zBase;
+        const rT = (t.loadLoss / t.ratedApparentPower) * zBase;
+        const xT = Math.sqrt(Math.max(0, zT * zT - rT * rT));
+        const cMax = voltageFactor(u2, tolerance);
+        const kT = (KT_NUMERATOR * cMax) / (1 + KT_XT_COEFFICIENT * (xT / zBase));
+        nz = { r: z.r * ratio2 + kT * rT, x: z.x * ratio2 + kT * xT };
+      }
+      const p = nz ? point(t.id, 'secondary terminals', u2, nz, voltageFactor(u2, tolerance)) : { elementId: t.id, location: 'secondary terminals' as const, portKind: kind, voltage: u2, impedance: 0, r: 0, x: 0, current: null, note: nwhy! };
+      walk.points.push(p);
+      walk.atOutput.set(t.id, p);
+      pushChildren(t.id, { u: u2, z: nz, why: nwhy });
+    }
+  }
   return { walk, voltageFactor: cRoot };
 }
 

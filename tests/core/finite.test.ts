@@ -160,6 +160,14 @@ describe('the final guard walks the whole result', () => {
     expect(fieldWords(['shortCircuitPower'])).toBe('short circuit power');
   });
 
+  it('the walk has no recursion limit: a value nested 100 000 deep is walked, its figure found with its path (issue 15, point 8)', () => {
+    let nested: unknown = { elementId: 'deep', name: 'Deep', value: Number.NaN };
+    for (let i = 0; i < 100_000; i++) nested = { next: nested };
+    const found = findNonFinite(nested);
+    expect(found).toHaveLength(1);
+    expect(found[0]).toMatchObject({ elementId: 'deep', elementName: 'Deep', path: ['value'] });
+  });
+
   it('a load of 1e308 W is refused at its field with the plausible range (core/stages/ranges.ts), before any sweep', () => {
     const o = solveProject(project(supply, { id: 'ld', name: 'Furnace', kind: 'ac-load', from: 'src', power: 1e308, powerFactor: 0.5 }));
     if (o.ok) throw new Error('solved, expected a refusal');

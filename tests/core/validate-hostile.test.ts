@@ -91,7 +91,7 @@ describe('reserved ids (issue 15, point 5, on the engine side)', () => {
       const demo = JSON.parse(text) as Json;
       const solved = solveProject(demo);
       expect(solved.ok).toBe(false);
-      if (!solved.ok) expect(solved.problems).toMatchObject([{ elementId: id, field: 'id', message: expect.stringContaining('reserves') }]);
+      if (!solved.ok) expect(solved.problems).toMatchObject([{ elementId: id, field: 'id', message: expect.stringContaining('reserved name') }]);
       const study = runBackupStudy(demo);
       expect(study.ok).toBe(false);
       if (!study.ok) expect(study.problems.map((p) => [p.elementId, p.field])).toContainEqual([id, 'id']);

@@ -277,15 +277,19 @@ describe('tree structure', () => {
     expectOnly(p, 'not-a-feeder', 'lamp2', 'from', /load/);
   });
 
+  it('a cable fed from a load is refused, not built without an input port (fast-check counterexample, issue 15: it threw a TypeError)', () => {
+    const p = validProject();
+    p.elements.push({ id: 'after-lamp', kind: 'cable', from: 'lamp', length: 1, resistancePerKm: 0.1 });
+    expectOnly(p, 'not-a-feeder', 'after-lamp', 'from', /load/);
+  });
+
   it('a cycle a → b → a beside a proper source', () => {
     const p = validProject();
     p.elements.push({ id: 'a', kind: 'dcbus', from: 'b', fixedLoss: 1 }, { id: 'b', kind: 'dcbus', from: 'a', fixedLoss: 1 });
+    // One loop, one problem: on its first element in file order, naming both (issue 15, point 8).
     const problems = problemsOf(p);
-    expect(problems.map((x) => [x.code, x.elementId, x.field]).sort()).toEqual([
-      ['cycle', 'a', 'from'],
-      ['cycle', 'b', 'from'],
-    ]);
-    for (const x of problems) expect(x.message).toMatch(/loop/);
+    expect(problems.map((x) => [x.code, x.elementId, x.field])).toEqual([['cycle', 'a', 'from']]);
+    expect(problems[0]!.message).toMatch(/loop of 2 elements \("a" → "b" → "a"\)/);
     problems.forEach(expectReadable);
   });
 
