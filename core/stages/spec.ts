@@ -249,6 +249,8 @@ export function reactiveFromPf(p: number, pf: number, sense: PfSense = 'lagging'
  */
 export function seriesLink(z: Complex, kind: PortKind) {
   const m = phaseCount(kind);
+  /** The highest sending voltage magnitude seen by `inputPower` (see there). */
+  let highestSend = 0;
   return {
     /**
      * With constant-impedance loads Y (per phase) beside the constant power S_p:
@@ -294,11 +296,16 @@ export function seriesLink(z: Complex, kind: PortKind) {
      * counted at most at |V_s|/(2|Z|), the current at the link's maximum transfer (a resistive
      * link): the forward sweep reaches this link and names it. Where the link can deliver S_out
      * the figure is exact, so a converged operating point is unchanged.
+     * |V_s| here is the highest sending voltage the link has seen (at first the no-load voltage),
+     * not the last one: deep in a chain that is collapsing as a whole, the last V_s falls towards
+     * zero, and a cap that fell with it would hide the demand from the links above and keep the
+     * sweeps from settling on the refusal.
      */
     inputPower: (sOut: Complex, vOut: Complex, vSend?: Complex): Complex => {
       let i = abs(sOut) / m / abs(vOut);
       if (vSend !== undefined) {
-        const atMaxTransfer = abs(vSend) / (2 * abs(z));
+        highestSend = Math.max(highestSend, abs(vSend));
+        const atMaxTransfer = highestSend / (2 * abs(z));
         if (i > atMaxTransfer && receivingVoltage(vSend, z, scale(sOut, 1 / m)) === null) i = atMaxTransfer;
       }
       return add(sOut, scale(z, m * i * i));
