@@ -38,7 +38,7 @@ import { plan } from '../solve/plan.ts';
 import { idleDraw } from '../solve/idle.ts';
 import { type Bank, bankOcv, capacityFactorAt, resolveBank } from './bank.ts';
 import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
-import { DEFAULT_TIME_STEP_S, buildTimeline, checkStudy } from './profile.ts';
+import { DEFAULT_HORIZON_H, DEFAULT_TIME_STEP_S, MAX_WHOLE_CHAIN_WORK, buildTimeline, checkStudy } from './profile.ts';
 
 export type EndReason = 'depth-of-discharge' | 'rated-capacity' | 'cut-off-voltage' | 'chain-collapse' | 'profile-complete' | 'horizon';
 
@@ -222,6 +222,26 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   }
 
   const step = study.timeStepSeconds ?? DEFAULT_TIME_STEP_S;
+  if (!solver.fast) {
+    // Every step sweeps the whole chain: bound steps × elements (MAX_WHOLE_CHAIN_WORK).
+    const steps = Math.ceil(((study.horizonHours ?? DEFAULT_HORIZON_H) * 3600) / step);
+    const work = steps * fixed.elements.length;
+    if (work > MAX_WHOLE_CHAIN_WORK) {
+      const longest = Math.ceil(((study.horizonHours ?? DEFAULT_HORIZON_H) * 3600 * fixed.elements.length) / MAX_WHOLE_CHAIN_WORK);
+      return {
+        ok: false,
+        problems: [
+          {
+            code: 'invalid-value',
+            elementId: 'project',
+            field: 'backup.timeStepSeconds',
+            value: step,
+            message: `this chain must be solved whole at every step (a load whose draw follows the bank voltage, given by its current or as a circuit, sits on the cables next to the bank), and ${steps.toLocaleString('en-US')} steps × ${fixed.elements.length} elements passes the study's limit of ${MAX_WHOLE_CHAIN_WORK.toLocaleString('en-US')} element solves: use a time step of at least ${longest} s or a shorter horizon`,
+          },
+        ],
+      };
+    }
+  }
   const temperatureC = study.temperatureC ?? 25;
   const temp = capacityFactorAt(v.capacityVsTemperature, temperatureC);
   if (temp.refused !== undefined) {

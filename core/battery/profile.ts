@@ -100,6 +100,14 @@ export const MAX_STEPS = 1_000_000;
  */
 export const MAX_LOAD_CHANGES = 100_000;
 /**
+ * Most element solves one study may spend when every step must sweep the whole chain (a current
+ * load or a converter of a kind the fast path cannot hold right next to the bank:
+ * core/solve/repeat.ts): steps × elements. About 0.5 µs each on a 2-core laptop, so the bound keeps
+ * such a run to a few seconds; the fast path re-solves only the cables and buses next to the bank
+ * and is bounded by MAX_STEPS alone.
+ */
+export const MAX_WHOLE_CHAIN_WORK = 20_000_000;
+/**
  * Most distinct combinations of load levels (load states) one study may meet: each is one solve of
  * the whole chain before the run, and its levels are kept for the run. A day of 24 segments with
  * three loads cycling on their own duty schedules meets at most 24 × 2³ = 192.

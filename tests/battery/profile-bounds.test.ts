@@ -11,7 +11,7 @@
 import { describe, expect, it } from 'vitest';
 import { simulateDischarge } from '../../core/battery/discharge.ts';
 import { runBackupStudy } from '../../core/battery/study.ts';
-import { MAX_LOAD_CHANGES, MAX_LOAD_STATES, buildTimeline } from '../../core/battery/profile.ts';
+import { MAX_LOAD_CHANGES, MAX_LOAD_STATES, MAX_WHOLE_CHAIN_WORK, buildTimeline } from '../../core/battery/profile.ts';
 import { demoProjects, type BackupStudy, type Project } from '../../core/index.ts';
 import type { Problem } from '../../core/errors.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
@@ -210,5 +210,29 @@ describe('profile keys', () => {
       [40, 60],
       [10, 60],
     ]);
+  });
+});
+
+describe('a run that sweeps the whole chain at every step is bounded in steps × elements (issue 15, point 7)', () => {
+  // A current load on the bank makes every step a whole-chain sweep (core/solve/repeat.ts); 49 small
+  // loads and the 10 W load beside it make 52 elements with the bank. Limits: the engine's own MAX_WHOLE_CHAIN_WORK (core/battery/profile.ts).
+  const withCurrentLoad = (study: Partial<BackupStudy>): Project => {
+    const extra = Array.from({ length: 49 }, (_, i) => ({ id: `lamp${i}`, kind: 'dc-load', from: 'bank', power: 1 }) as const);
+    return directLoad(flatBank(100, 20, 1.2), 10, study, [{ id: 'relay', kind: 'dc-current-load', from: 'bank', current: 0.5 }, ...extra]);
+  };
+  it('a year at 1-minute steps (525 600 steps × 52 elements) is refused at the time step, naming the limit and a step that fits', () => {
+    const p = refusedAt(withCurrentLoad({ horizonHours: 8760, timeStepSeconds: 60 }), 'backup.timeStepSeconds', /20,000,000 element solves/);
+    // 8760 h × 3600 s × 52 / 2e7 = 81.99 s → at least 82 s (hand-worked).
+    expect(p.message).toMatch(/at least 82 s/);
+    expect(MAX_WHOLE_CHAIN_WORK).toBe(20_000_000);
+  });
+  it('the same run at the step it names is within the limit and runs', () => {
+    const out = simulateDischarge(withCurrentLoad({ horizonHours: 8760, timeStepSeconds: 82 }));
+    expect(out.ok ? [] : out.problems).toEqual([]);
+  });
+  it('the fast path (constant-power loads only) is not held to it', () => {
+    const p = directLoad(flatBank(100, 20, 1.2), 10, { horizonHours: 8760, timeStepSeconds: 60 }, Array.from({ length: 60 }, (_, i) => ({ id: `lamp${i}`, kind: 'dc-load', from: 'bank', power: 1 })));
+    const out = simulateDischarge(p);
+    expect(out.ok ? [] : out.problems).toEqual([]);
   });
 });
