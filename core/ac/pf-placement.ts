@@ -47,16 +47,14 @@ export function converterOutputAt(byId: ReadonlyMap<string, ElementResult>, e: E
 
 /** Drives fed from the bank's bus (directly or through cables and transformers). */
 export function drivesOnBus(byId: ReadonlyMap<string, ElementResult>, busId: string): ElementResult[] {
+  // Depth first with a stack (no recursion on depth), in the order the feeds list them.
   const out: ElementResult[] = [];
-  const visit = (id: string) => {
-    for (const k of byId.get(id)?.feeds ?? []) {
-      const x = byId.get(k);
-      if (!x) continue;
-      if (x.kind === 'drive') out.push(x);
-      else if (PASSIVE.has(x.kind)) visit(k);
-    }
-  };
-  visit(busId);
+  const stack = [...(byId.get(busId)?.feeds ?? [])].reverse();
+  while (stack.length) {
+    const x = byId.get(stack.pop()!);
+    if (x?.kind === 'drive') out.push(x);
+    else if (x && PASSIVE.has(x.kind)) for (let j = x.feeds.length - 1; j >= 0; j--) stack.push(x.feeds[j]!);
+  }
   return out;
 }
 

@@ -177,12 +177,22 @@ function ancestors(byId: ReadonlyMap<string, Element>, id: string): Element[] {
 
 /** Elements fed (directly or further down) by `id`. */
 function descendants(elements: readonly Element[], id: string): Set<string> {
+  // One pass builds the children lists; a stack walks them (linear, no recursion on depth).
+  const children = new Map<string, string[]>();
+  for (const e of elements) {
+    if (!('from' in e) || e.from === undefined) continue;
+    const list = children.get(e.from);
+    if (list) list.push(e.id);
+    else children.set(e.from, [e.id]);
+  }
   const out = new Set<string>();
-  let frontier = [id];
-  while (frontier.length) {
-    const next: string[] = [];
-    for (const e of elements) if ('from' in e && e.from !== undefined && frontier.includes(e.from) && !out.has(e.id)) { out.add(e.id); next.push(e.id); }
-    frontier = next;
+  const stack = [id];
+  while (stack.length) {
+    for (const k of children.get(stack.pop()!) ?? []) {
+      if (out.has(k)) continue;
+      out.add(k);
+      stack.push(k);
+    }
   }
   return out;
 }
