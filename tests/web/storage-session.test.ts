@@ -416,4 +416,21 @@ describe('rescue copies of a page that went away (point 2)', () => {
     expect((await tabB.rescues()).map(([k]) => k)).toEqual([`rescue:${session.tabId}:${same}`]);
     expect(session.storageNotice.value).toMatch(/Changes a closed page had not stored are saved: .*“Loft”/);
   });
+
+  it('drops a copy that holds the stored version with its keys in another order (no "(copy)" beside it)', async () => {
+    // Seen in Chromium: the flush stored the edit, the page went before its rescue copy was removed,
+    // and the copy's elements listed "kind" after "name" where the record listed it before.
+    const mill = await createdByB('Mill');
+    const reordered = (p: DraftProject): DraftProject => {
+      const { elements, ...rest } = p;
+      return { elements: elements.map((e) => Object.fromEntries(Object.entries(e).reverse()) as typeof e), ...rest };
+    };
+    const copy = reordered(project('Mill'));
+    expect(JSON.stringify(copy)).not.toBe(JSON.stringify(project('Mill')));
+    await set(`rescue:tab-gone:${mill}`, rescue(mill, 0, copy), idb);
+    await session.recoverRescued();
+    const names = (await tabB.list()).flatMap((r) => (r.ok ? [r.record.project.name] : []));
+    expect(names.filter((n) => n.startsWith('Mill'))).toEqual(['Mill']);
+    expect(await tabB.rescues()).toEqual([]);
+  });
 });

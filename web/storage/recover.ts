@@ -63,8 +63,37 @@ async function stillOpen(tabs: Set<string>, prefix: string): Promise<Set<string>
   return open;
 }
 
+/**
+ * The same project data, whatever the order of keys (the record and its rescue copy come from drafts
+ * whose elements were rebuilt in different key orders by the editor and the store).
+ */
 function sameContent(a: DraftProject, b: DraftProject): boolean {
-  return JSON.stringify(a) === JSON.stringify(b);
+  return sameJson(a, b);
+}
+
+/** Equal plain JSON values, key order ignored (an explicit stack: no recursion on depth). */
+export function sameJson(a: unknown, b: unknown): boolean {
+  const stack: [unknown, unknown][] = [[a, b]];
+  while (stack.length) {
+    const [x, y] = stack.pop()!;
+    if (x === y) continue;
+    if (typeof x !== 'object' || typeof y !== 'object' || x === null || y === null) return false;
+    if (Array.isArray(x) !== Array.isArray(y)) return false;
+    if (Array.isArray(x) && Array.isArray(y)) {
+      if (x.length !== y.length) return false;
+      x.forEach((v, i) => stack.push([v, y[i]]));
+      continue;
+    }
+    const xo = x as Record<string, unknown>;
+    const yo = y as Record<string, unknown>;
+    const keys = Object.keys(xo).filter((k) => xo[k] !== undefined);
+    if (keys.length !== Object.keys(yo).filter((k) => yo[k] !== undefined).length) return false;
+    for (const k of keys) {
+      if (!Object.hasOwn(yo, k)) return false;
+      stack.push([xo[k], yo[k]]);
+    }
+  }
+  return true;
 }
 
 /**
