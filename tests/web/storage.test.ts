@@ -262,6 +262,11 @@ describe('the project store', () => {
     expect(copyName('Pump house (my copy) (my copy)', [], 'my copy')).toBe('Pump house (my copy)');
     expect(copyName('Riverside', ['Riverside (my copy)'], 'my copy')).toBe('Riverside (my copy 2)');
     expect(copyName('  ', [])).toBe('Untitled project (copy)');
+    // A copy of a name at the import's 200-character limit (limits.ts) stays within it: the name is shortened, the mark kept.
+    const long = 'P'.repeat(200);
+    expect(copyName(long, [])).toBe(`${'P'.repeat(193)} (copy)`);
+    expect(copyName(long, [`${'P'.repeat(193)} (copy)`])).toHaveLength(200);
+    expect(copyName(long, [], 'my copy')).toMatch(/^P{190} \(my copy\)$/);
     // Duplicating a copy through the store: "(copy 2)", never "(copy) (copy)".
     await store.create(project('Bravo'), 'tab-a');
     const first = await store.duplicate('p-1', 'tab-a');

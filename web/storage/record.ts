@@ -3,6 +3,7 @@
  * Pure functions and plain data: no IndexedDB, no DOM, no clock (the caller passes times), so the
  * Node tests check them directly. The format is documented in web/storage/README.md.
  */
+import { FILE_LIMITS, withSuffix } from './limits.ts';
 import { z } from 'zod/mini';
 import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
@@ -164,8 +165,10 @@ export function copyName(name: string, taken: Iterable<string>, label: 'copy' | 
   while (COPY_MARK.test(base)) base = base.replace(COPY_MARK, '').trim();
   base ||= 'Untitled project';
   const used = new Set(taken);
-  let candidate = `${base} (${label})`;
-  for (let n = 2; used.has(candidate); n++) candidate = `${base} (${label} ${n})`;
+  // Within the project-name limit the import checks (limits.ts): a long name is shortened, not the mark.
+  const named = (mark: string) => withSuffix(base, ` (${mark})`, FILE_LIMITS.maxProjectNameLength);
+  let candidate = named(label);
+  for (let n = 2; used.has(candidate); n++) candidate = named(`${label} ${n}`);
   return candidate;
 }
 
