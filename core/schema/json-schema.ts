@@ -86,6 +86,10 @@ export function projectSchemaParts(): { project: JsonSchema; definitions: Record
     (schema['properties'] as Record<string, JsonSchema>)['kind'] = { type: 'string', const: kind };
     definitions[kind] = { title: `Element of kind "${kind}"`, ...schema };
   }
+  // The network of a circuit load is read by parseNetwork (core/ac/network.ts), not by a zod schema
+  // (each entry's problem carries its own path): its shape is stated here, the way that parser reads it.
+  (definitions['network-load']!['properties'] as Record<string, JsonSchema>)['network'] = { $ref: '#/definitions/circuit-network' };
+  definitions['circuit-network'] = circuitNetworkSchema();
   const project = fragment(projectShape);
   const properties = project['properties'] as Record<string, JsonSchema>;
   properties['$schema'] = { ...properties['$schema'], description: 'The JSON Schema of this file (for editors); the engine ignores it.' };
@@ -102,6 +106,46 @@ export function projectSchemaParts(): { project: JsonSchema; definitions: Record
     },
   };
   return { project, definitions };
+}
+
+/**
+ * The circuit network of a `network-load`, as `parseNetwork` reads it: exactly one entry per object,
+ * a component (resistor Ω, inductor H, capacitor F: a number > 0 in the base unit, or text with an SI
+ * prefix such as "4.7 mH") or a non-empty series / parallel list of entries. Not stated: the depth
+ * (MAX_NETWORK_DEPTH) and component (MAX_NETWORK_COMPONENTS) limits and the reading of the text.
+ */
+function circuitNetworkSchema(): JsonSchema {
+  const value = (unit: string, name: string): JsonSchema => ({
+    description: `A ${name} in ${unit}: a number greater than 0, or text with an SI prefix (e.g. "4.7 m${unit}", "220 µ${unit}", "10k").`,
+    anyOf: [
+      { type: 'number', exclusiveMinimum: 0 },
+      { type: 'string', minLength: 1 },
+    ],
+  });
+  const one = (key: string, schema: JsonSchema): JsonSchema => ({
+    type: 'object',
+    properties: { [key]: schema },
+    required: [key],
+    additionalProperties: false,
+  });
+  const list = (how: string): JsonSchema => ({
+    description: `Entries connected in ${how}.`,
+    type: 'array',
+    minItems: 1,
+    items: { $ref: '#/definitions/circuit-network' },
+  });
+  return {
+    title: 'Circuit network',
+    description:
+      'Resistors, inductors and capacitors in series and parallel: each entry is exactly one of {"resistor": …}, {"inductor": …}, {"capacitor": …}, {"series": […]}, {"parallel": […]}, nested as needed.',
+    oneOf: [
+      one('resistor', value('Ω', 'resistance')),
+      one('inductor', value('H', 'inductance')),
+      one('capacitor', value('F', 'capacitance')),
+      one('series', list('series')),
+      one('parallel', list('parallel')),
+    ],
+  };
 }
 
 /** The text every generated schema opens with. */

@@ -99,6 +99,39 @@ describe('the published JSON Schema', () => {
   });
 });
 
+describe('the circuit network of a network-load', () => {
+  // Networks of our own invention; parseNetwork (core/ac/network.ts) is the engine's reading.
+  const withNetwork = (network: unknown) => ({
+    format: 'joulepath-project',
+    version: 1,
+    name: 'x',
+    elements: [
+      { id: 'g', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },
+      { id: 'n', kind: 'network-load', from: 'g', network },
+    ],
+  });
+  const cases: [string, unknown, boolean][] = [
+    ['a resistor', { resistor: 12 }, true],
+    ['text with a prefix', { inductor: '40 mH' }, true],
+    ['nested series and parallel', { series: [{ resistor: '12 Ω' }, { parallel: [{ inductor: '40 mH' }, { capacitor: '100 µF' }] }] }, true],
+    ['two entries in one object', { resistor: 1, inductor: 1 }, false],
+    ['an unknown entry', { diode: 1 }, false],
+    ['an empty series', { series: [] }, false],
+    ['a resistor of 0 Ω', { resistor: 0 }, false],
+    ['a list instead of an entry', [{ resistor: 1 }], false],
+    ['no network', undefined, false],
+  ];
+  it('is accepted and refused as the engine reads it', () => {
+    for (const [what, network, ok] of cases) {
+      const p = withNetwork(network);
+      expect(errorsOf(checkProject, p).length === 0, what).toBe(ok);
+      const engine = validateProject(p);
+      expect(engine.ok, what).toBe(ok);
+      if (!engine.ok) expect(engine.problems.every((x) => x.elementId === 'n' && x.field.startsWith('network')), what).toBe(true);
+    }
+  });
+});
+
 describe('$schema in a project file', () => {
   it('is accepted by the engine, left out of the validated project, and the solve is the same with or without it', () => {
     for (const { id, project } of demoProjects) {
