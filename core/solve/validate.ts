@@ -12,7 +12,9 @@ import { backupSchema, reservedKeyProblems } from '../battery/profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { flowStudySchema } from '../stages/pump.ts';
 
-const projectShape = z.strictObject({
+export const projectShape = z.strictObject({
+  /** The JSON Schema an editor checks the file against (schema/joulepath-project.schema.json); not read by the engine. */
+  $schema: z.optional(z.string({ error: 'must be text (the address of the file format\'s JSON Schema)' })),
   format: z.literal('joulepath-project', { error: 'must be "joulepath-project"' }),
   version: z.literal(1, { error: 'must be 1 (the only schema version so far)' }),
   name: z.string({ error: 'must be text' }),
@@ -100,7 +102,8 @@ export function validateProject(input: unknown): Validated {
   const fieldsValid = problems.length === 0;
   // Tree checks on every element whose id and kind can be read, so they come with the field problems.
   problems.push(...checkStructure(top.data.elements.map(skeletonOf).filter((s) => s !== null)));
-  const { description, ...rest } = top.data;
+  // `$schema` names the file's JSON Schema for editors; it is no part of the project the engine solves.
+  const { description, $schema: _schema, ...rest } = top.data;
   const project: Project = { ...rest, ...(description !== undefined ? { description } : {}), elements } as Project;
   if (problems.length) return fieldsValid ? { ok: false, problems, project } : { ok: false, problems };
   return { ok: true, project };

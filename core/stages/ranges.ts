@@ -158,6 +158,18 @@ export function rangeMessage(q: Quantity, v: number, floor: Floor, signUnit?: st
   return null;
 }
 
+/**
+ * The quantity and sign rule of every range check made by `ranged` / `rangedCount` (keyed by the
+ * check, which a schema keeps when `.check()` or `z.optional` derive another from it), so the
+ * published JSON Schema (core/schema/json-schema.ts) can state the range the refinement enforces.
+ */
+export const RANGE_CHECKS = new WeakMap<object, { quantity: Quantity; floor: Floor }>();
+
+function rangeCheck<T extends object>(check: T, quantity: Quantity, floor: Floor): T {
+  RANGE_CHECKS.set(check, { quantity, floor });
+  return check;
+}
+
 const num = () => z.number({ error: 'must be a number' });
 
 /**
@@ -167,20 +179,28 @@ const num = () => z.number({ error: 'must be a number' });
  */
 export const ranged = (q: Quantity, floor: Floor = 'positive', signUnit?: string) =>
   num().check(
-    z.superRefine((v: number, ctx) => {
-      const message = rangeMessage(q, v, floor, signUnit);
-      if (message !== null) ctx.addIssue({ code: 'custom', message, input: v });
-    }),
+    rangeCheck(
+      z.superRefine((v: number, ctx) => {
+        const message = rangeMessage(q, v, floor, signUnit);
+        if (message !== null) ctx.addIssue({ code: 'custom', message, input: v });
+      }),
+      q,
+      floor,
+    ),
   );
 
 /** A whole-number count in the quantity's range, e.g. cells in series. */
 export const rangedCount = (q: Quantity) =>
   num().check(
     z.int('must be a whole number'),
-    z.superRefine((v: number, ctx) => {
-      const message = rangeMessage(q, v, 'range');
-      if (message !== null) ctx.addIssue({ code: 'custom', message, input: v });
-    }),
+    rangeCheck(
+      z.superRefine((v: number, ctx) => {
+        const message = rangeMessage(q, v, 'range');
+        if (message !== null) ctx.addIssue({ code: 'custom', message, input: v });
+      }),
+      q,
+      'range',
+    ),
   );
 
 /** The range check of a value outside a schema (cross-field results, e.g. a bank's voltage). */

@@ -31,9 +31,9 @@ export const FORBIDDEN_KEYS: readonly string[] = ['__proto__', 'constructor', 'p
 export const DEPTH_IN_FILE = { project: 1, element: 3 } as const;
 /**
  * Values the export adds around the project, counted as the import counts them: the envelope object,
- * format, exportVersion, exportedAt, exportedBy, projectId, and the elements list.
+ * $schema, format, exportVersion, exportedAt, exportedBy, projectId, and the elements list.
  */
-export const ENVELOPE_VALUES = 7;
+export const ENVELOPE_VALUES = 8;
 
 export type LimitIssue =
   | { kind: 'count'; path: (string | number)[] }
