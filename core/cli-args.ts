@@ -24,8 +24,9 @@ voltages at every stage, and the studies the project asks for.
 ${USAGE}
        joulepath --help
 
-  <project.json>…   one or more project files (as the page exports them). With one file the
-                    tables are printed; with several, one summary line per project.
+  <project.json>…   one or more project files (as the page exports them), or folders: a folder
+                    stands for its *.json files, in name order. With one file the tables are
+                    printed; with several (or a folder), one summary line per project.
   --json            the full result of one project as JSON (one file only)
   --summary         one summary line per project, also for a single file
   --csv             one CSV row per project, with a header row (columns below)

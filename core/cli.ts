@@ -22,9 +22,10 @@
  * Input files are read as the page's import reads them (web/storage/file-format.ts): refused at
  * once, before any byte is read, when they are not a regular file (a directory, /dev/zero, a FIFO)
  * or larger than MAX_INPUT_BYTES; UTF-8 with an optional byte-order mark; UTF-16 and text that is not
- * UTF-8 are refused.
+ * UTF-8 are refused. A folder given as an argument stands for its *.json files (expandFolders).
  */
-import { closeSync, fstatSync, openSync, readSync, statSync, constants as fsConstants } from 'node:fs';
+import { closeSync, fstatSync, openSync, readSync, readdirSync, statSync, constants as fsConstants } from 'node:fs';
+import { join } from 'node:path';
 import { formatProblem, type Problem } from './errors.ts';
 import { formatResult } from './text-report.ts';
 import { solveProject } from './solve/index.ts';
@@ -108,6 +109,42 @@ function refused(file: string, heading: string, problems: readonly Problem[], pr
 
 /** Refused with one message (a file that cannot be read or parsed). */
 const refusedWith = (file: string, message: string): ProjectRun => ({ ok: false, lines: [message], line: { file, ok: false, reasons: [message] } });
+
+/** One project to run: a file, or a folder argument that holds none (refused with that message). */
+type Entry = { file: string; refusal?: string };
+
+/**
+ * A folder given as an argument stands for its `.json` files (not its sub-folders), in name order,
+ * so a folder of sites runs where the shell does not expand `*.json`; a folder holding none is one
+ * refused entry. Anything else is left to readInput (a device or a pipe is refused there, unread).
+ */
+function expandFolders(files: readonly string[]): { entries: Entry[]; folders: boolean } {
+  const entries: Entry[] = [];
+  let folders = false;
+  for (const file of files) {
+    let isDir = false;
+    try {
+      isDir = statSync(file).isDirectory();
+    } catch {
+      // Missing or unreadable: readInput says why.
+    }
+    if (!isDir) {
+      entries.push({ file });
+      continue;
+    }
+    folders = true;
+    let names: string[];
+    try {
+      names = readdirSync(file).filter((n) => n.toLowerCase().endsWith('.json')).sort();
+    } catch (err) {
+      entries.push({ file, refusal: `cannot read the folder ${file}: ${(err as Error).message}` });
+      continue;
+    }
+    if (names.length === 0) entries.push({ file, refusal: `the folder ${file} holds no project files (*.json)` });
+    for (const n of names) entries.push({ file: join(file, n) });
+  }
+  return { entries, folders };
+}
 
 /** Read, solve and study one project file as the request asks. */
 function runProject(file: string, req: SolveRequest, flowData: unknown): ProjectRun {
@@ -207,7 +244,14 @@ function main(argv: readonly string[]): number {
       return EXIT_REFUSED;
     }
   }
-  if (req.output === 'tables' || req.output === 'json') {
+  const { entries, folders } = expandFolders(req.files);
+  // A folder asks for one line per project, as several files do (--json and --correct-pf, --flow: one file).
+  if (folders && (req.output === 'json' || req.correctPf || req.flowFile !== undefined)) {
+    writeErr([`joulepath: ${req.output === 'json' ? '--json' : req.correctPf ? '--correct-pf' : '--flow'} runs with one project file, not a folder`, USAGE, 'joulepath --help lists the flags and exit codes']);
+    return EXIT_USAGE;
+  }
+  const output = folders && req.output === 'tables' ? 'summary' : req.output;
+  if (output === 'tables' || output === 'json') {
     // parseArgs allows these with one file only.
     const r = runProject(req.files[0]!, req, flowData);
     if (!r.ok) {
@@ -219,10 +263,10 @@ function main(argv: readonly string[]): number {
   }
   // Several projects: one line (or CSV row) each, in the order given; a refused one does not stop the rest.
   let code = EXIT_SOLVED;
-  if (req.output === 'csv') process.stdout.write(`${csvHeader()}\n`);
-  for (const file of req.files) {
-    const r = runProject(file, req, flowData);
-    process.stdout.write(`${req.output === 'csv' ? csvRow(r.line) : summaryLine(r.line)}\n`);
+  if (output === 'csv') process.stdout.write(`${csvHeader()}\n`);
+  for (const { file, refusal } of entries) {
+    const r = refusal !== undefined ? refusedWith(file, refusal) : runProject(file, req, flowData);
+    process.stdout.write(`${output === 'csv' ? csvRow(r.line) : summaryLine(r.line)}\n`);
     if (!r.ok) {
       writeErr(r.lines);
       code = EXIT_REFUSED;
@@ -236,5 +280,11 @@ function hasBackupStudy(data: unknown): boolean {
   const p = data as { backup?: unknown; elements?: unknown } | null;
   return p !== null && typeof p === 'object' && p.backup !== undefined && Array.isArray(p.elements) && p.elements.some((e: { kind?: unknown; bank?: unknown }) => e?.kind === 'battery' && e.bank !== undefined);
 }
+
+// Output piped into a reader that stops early (`| head`): stop quietly, as other command-line tools do.
+process.stdout.on('error', (err: NodeJS.ErrnoException) => {
+  if (err.code === 'EPIPE') process.exit(process.exitCode ?? EXIT_SOLVED);
+  throw err;
+});
 
 process.exitCode = main(process.argv.slice(2));

@@ -93,6 +93,18 @@ describe('the packed command-line tool', () => {
     expect(run('solve', ...demoProjects.map((d) => `${d.id}.json`)).status).toBe(0);
   });
 
+  it('a folder stands for its *.json files in name order; --json with a folder is a usage error', () => {
+    const r = run('solve', '.');
+    expect(r.status).toBe(1); // zero-volt.json is refused
+    const names = r.stdout.trimEnd().split('\n').map((l) => l.slice(0, l.indexOf(': ')));
+    // The demos (cold-store, hillside, riverside) and zero-volt.json, sorted by name; not the tarball, not package/.
+    expect(names).toEqual(['cold-store-dc-bus.json', 'hillside-relay-hut.json', 'riverside-pump-station.json', 'zero-volt.json']);
+    expect(r.stdout).toContain('zero-volt.json: refused: the project cannot be solved:');
+    const j = run('solve', '.', '--json');
+    expect(j.status).toBe(2);
+    expect(j.stderr).toContain('--json runs with one project file, not a folder');
+  });
+
   it('--csv: a header with the documented columns and one row per project', () => {
     const r = run('solve', '--csv', 'riverside-pump-station.json', 'zero-volt.json');
     expect(r.status).toBe(1);
