@@ -3,8 +3,8 @@
  * with vite.cli.config.ts) into a temporary folder, the tarball extracted there, and its `bin` run
  * with plain `node`, away from this repository's node_modules and without a TypeScript runner: no
  * network is needed. Checks the help, exit codes 0/1/2, one summary line per project and CSV with
- * several files (one refused among them), and that the bundle's figures are the engine's own
- * (computed in-process here). Prints the start-up time of a demo (from start to printed result; the
+ * several files (one refused among them) and a folder, that the bundle's figures are the engine's own
+ * (computed in-process here) and that `npm run solve` (the source) prints the same. Prints the start-up time of a demo (from start to printed result; the
  * target of issue 16 is 0.3 s; not asserted: timings are figures, not tests).
  */
 import { execFileSync, spawnSync } from 'node:child_process';
@@ -128,6 +128,21 @@ describe('the packed command-line tool', () => {
       expect(r.stderr).toContain('usage: joulepath solve');
     }
   });
+
+  it('`npm run solve` (the source through tsx) keeps working and prints what the bundle prints', () => {
+    const demos = demoProjects.map((d) => `core/demos/${d.id}.json`);
+    const fromSource = spawnSync('npm', ['run', '--silent', 'solve', '--', ...demos, '--csv'], { encoding: 'utf8', timeout: 60_000 });
+    const fromBundle = spawnSync(process.execPath, [bin, 'solve', ...demos, '--csv'], { encoding: 'utf8', timeout: 30_000 });
+    expect(fromSource.status).toBe(0);
+    expect(fromBundle.status).toBe(0);
+    expect(fromSource.stdout.trimEnd().split('\n')).toHaveLength(1 + demos.length);
+    expect(fromBundle.stdout).toBe(fromSource.stdout);
+    const t0 = process.hrtime.bigint();
+    const tables = spawnSync('npm', ['run', '--silent', 'solve', '--', 'core/demos/hillside-relay-hut.json'], { encoding: 'utf8', timeout: 60_000 });
+    console.log(`npm run solve -- core/demos/hillside-relay-hut.json (source, tsx): ${(Number(process.hrtime.bigint() - t0) / 1e6).toFixed(0)} ms, one run, for comparison`);
+    expect(tables.status).toBe(0);
+    expect(spawnSync(process.execPath, [bin, 'core/demos/hillside-relay-hut.json'], { encoding: 'utf8' }).stdout).toBe(tables.stdout);
+  }, 120_000);
 
   it('prints the start-up time of a demo, from start to printed result (target 0.3 s, not asserted)', () => {
     const times: number[] = [];
