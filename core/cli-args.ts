@@ -22,7 +22,7 @@ export const HELP = `joulepath: plan an electrical power chain from a project fi
 voltages at every stage, and the studies the project asks for.
 
 ${USAGE}
-       joulepath --help
+       joulepath --help | --version
 
   <project.json>…   one or more project files (as the page exports them), or folders: a folder
                     stands for its *.json files, in name order. With one file the tables are
@@ -38,6 +38,7 @@ ${USAGE}
   --flow <pump-study.json>
                     the flow-control comparison of a pump study file (one project file only)
   --help, -h        this text
+  --version         the version of the tool
 
 Summary line: "<file>: solved: <project name>: source … W, loads … W, losses … W, efficiency … %,
 <n> warnings[, backup runtime … h]", or "<file>: refused: <the first reason>" (every reason
@@ -57,6 +58,7 @@ export type CliOutput = 'tables' | 'json' | 'summary' | 'csv';
 
 export type CliRequest =
   | { kind: 'help' }
+  | { kind: 'version' }
   | { kind: 'usage'; message: string }
   | {
       kind: 'solve';
@@ -82,6 +84,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   if (dashes >= 0) args = args.slice(0, dashes);
   const first = args[0];
   if (first === 'help' || args.includes('--help') || args.includes('-h')) return { kind: 'help' };
+  if (args.includes('--version')) return { kind: 'version' };
   if (first === 'solve') args = args.slice(1);
   else if (first !== undefined && !first.startsWith('-') && !/[./\\]/.test(first)) {
     return usage(`unknown command "${first}" (the command is "solve"; write ./${first} for a file of that name)`);

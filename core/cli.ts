@@ -92,6 +92,10 @@ function readInput(file: string, what: string): { ok: true; text: string } | { o
   }
 }
 
+/** package.json's version, set by the bundle's build (vite.cli.config.ts); absent when run from the source. */
+declare const __JOULEPATH_VERSION__: string;
+const VERSION = typeof __JOULEPATH_VERSION__ === 'string' ? __JOULEPATH_VERSION__ : 'development (run from the source)';
+
 type SolveRequest = Extract<CliRequest, { kind: 'solve' }>;
 
 /** One project's outcome: the text to print (tables or JSON, when asked for) and its summary, or why it was refused. */
@@ -223,6 +227,10 @@ function main(argv: readonly string[]): number {
   const req = parseArgs(argv);
   if (req.kind === 'help') {
     process.stdout.write(`${HELP}\n`);
+    return EXIT_SOLVED;
+  }
+  if (req.kind === 'version') {
+    process.stdout.write(`joulepath ${VERSION}\n`);
     return EXIT_SOLVED;
   }
   if (req.kind === 'usage') {

@@ -33,6 +33,11 @@ describe('joulepath command line: arguments', () => {
     }
   });
 
+  it('asks for the version with --version', () => {
+    expect(parseArgs(['--version'])).toEqual({ kind: 'version' });
+    expect(parseArgs(['solve', 'a.json', '--version'])).toEqual({ kind: 'version' });
+  });
+
   it.each([
     [['solve'], /no project file given/],
     [['solve', 'a.json', '--frobnicate'], /unknown flag --frobnicate/],
@@ -56,7 +61,7 @@ describe('joulepath command line: arguments', () => {
     expect(HELP).toMatch(/Exit codes: 0 every project solved; 1 a project or a file it names was refused/);
     expect(HELP).toMatch(/2 wrong command\s+line/);
     expect(HELP).toContain(`CSV columns: ${CSV_COLUMNS.join(',')}`);
-    for (const flag of ['--json', '--summary', '--csv', '--surges', '--correct-pf', '--machines', '--flow', '--help']) expect(HELP).toContain(flag);
+    for (const flag of ['--json', '--summary', '--csv', '--surges', '--correct-pf', '--machines', '--flow', '--help', '--version']) expect(HELP).toContain(flag);
     expect(HELP).toContain('licensed professionals');
   });
 });

@@ -59,6 +59,13 @@ describe('the packed command-line tool', () => {
     expect(r.stdout).toContain(CSV_COLUMNS.join(','));
   });
 
+  it('--version prints the version of package.json', () => {
+    const { version } = JSON.parse(readFileSync('package.json', 'utf8')) as { version: string };
+    const r = run('--version');
+    expect(r.status).toBe(0);
+    expect(r.stdout).toBe(`joulepath ${version}\n`);
+  });
+
   it('solve on one demo prints the tables (exit 0); --json is the engine\'s own result', () => {
     const r = run('solve', 'cold-store-dc-bus.json');
     expect(r.status).toBe(0);
