@@ -218,6 +218,19 @@ function runProject(file: string, req: SolveRequest, flowData: unknown): Project
   return { ok: true, text, line };
 }
 
+/**
+ * runProject for one of several projects: should the engine throw on one (a fault in the engine, not
+ * in the file), that project's line says so, its stack goes to standard error, and the others still run.
+ */
+function runGuarded(file: string, req: SolveRequest, flowData: unknown): ProjectRun {
+  try {
+    return runProject(file, req, flowData);
+  } catch (err) {
+    const message = `the engine failed on this project (a fault in Joulepath, not in the file; please report it): ${(err as Error)?.message ?? String(err)}`;
+    return { ok: false, lines: [`${file}: ${message}`, String((err as Error)?.stack ?? err)], line: { file, ok: false, reasons: [message] } };
+  }
+}
+
 const writeErr = (lines: readonly string[]): void => {
   for (const l of lines) process.stderr.write(`${l}\n`);
 };
@@ -259,9 +272,10 @@ function main(argv: readonly string[]): number {
     return EXIT_USAGE;
   }
   const output = folders && req.output === 'tables' ? 'summary' : req.output;
+  const asked: SolveRequest = { ...req, output };
   if (output === 'tables' || output === 'json') {
     // parseArgs allows these with one file only.
-    const r = runProject(req.files[0]!, req, flowData);
+    const r = runProject(req.files[0]!, asked, flowData);
     if (!r.ok) {
       writeErr(r.lines);
       return EXIT_REFUSED;
@@ -273,7 +287,7 @@ function main(argv: readonly string[]): number {
   let code = EXIT_SOLVED;
   if (output === 'csv') process.stdout.write(`${csvHeader()}\n`);
   for (const { file, refusal } of entries) {
-    const r = refusal !== undefined ? refusedWith(file, refusal) : runProject(file, req, flowData);
+    const r = refusal !== undefined ? refusedWith(file, refusal) : runGuarded(file, asked, flowData);
     process.stdout.write(`${output === 'csv' ? csvRow(r.line) : summaryLine(r.line)}\n`);
     if (!r.ok) {
       writeErr(r.lines);
