@@ -8,10 +8,10 @@
  * target of issue 16 is 0.3 s; not asserted: timings are figures, not tests).
  */
 import { execFileSync, spawnSync } from 'node:child_process';
-import { copyFileSync, existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
+import { copyFileSync, existsSync, mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { beforeAll, describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoProjects, solveProject } from '../../core/index.ts';
 import { CSV_COLUMNS } from '../../core/cli-summary.ts';
 
@@ -35,6 +35,8 @@ beforeAll(() => {
     JSON.stringify({ format: 'joulepath-project', version: 1, name: 'Zero volt site', elements: [{ id: 'g', name: 'Grid', kind: 'grid', voltage: 0, frequency: 50, phases: 3 }] }),
   );
 }, 240_000);
+
+afterAll(() => rmSync(work, { recursive: true, force: true }));
 
 describe('the packed command-line tool', () => {
   it('ships one bundled file with a node shebang as its bin, and the demos', () => {
