@@ -2,7 +2,7 @@
  * The command-line flag `--correct-pf <elementId>:<target>` as a user runs it
  * (`tsx core/cli.ts <file> --correct-pf …`): the printed bank and comparison carry the engine's own
  * figures (computed in-process here), --json carries them under `pfCorrection`, and bad values give
- * a message naming the element and field with exit code 1.
+ * a message naming the element and field with exit code 1 (2 when the flag itself is malformed).
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
@@ -57,16 +57,17 @@ describe('npm run solve -- <file> --correct-pf <id>:<target>', () => {
     expect(out.pfCorrection['correctedProject']).toBeUndefined();
   }, 30_000);
 
+  // Exit codes (core/cli-args.ts): 1 the project refuses the request, 2 the flag itself is malformed (usage).
   it.each([
-    [['--correct-pf', 'comp:0.5'], /element "comp", field "targetPowerFactor": must be above the present power factor/],
-    [['--correct-pf', 'pump:0.95'], /element "pump", field "at": no element "pump"/],
-    [['--correct-pf', 'comp:1.5'], /element "comp", field "targetPowerFactor": must not exceed 1/],
-    [['--correct-pf', 'comp:high'], /the target power factor "high" is not a number/],
-    [['--correct-pf', 'comp'], /write <elementId>:<target power factor>/],
-    [['--correct-pf'], /--correct-pf needs <elementId>:<target power factor>/],
-  ])('refuses %j with a message and exit code 1', (args, message) => {
+    [['--correct-pf', 'comp:0.5'], /element "comp", field "targetPowerFactor": must be above the present power factor/, 1],
+    [['--correct-pf', 'pump:0.95'], /element "pump", field "at": no element "pump"/, 1],
+    [['--correct-pf', 'comp:1.5'], /element "comp", field "targetPowerFactor": must not exceed 1/, 1],
+    [['--correct-pf', 'comp:high'], /the target power factor "high" is not a number/, 2],
+    [['--correct-pf', 'comp'], /write <elementId>:<target power factor>/, 2],
+    [['--correct-pf'], /--correct-pf needs <elementId>:<target power factor>/, 2],
+  ])('refuses %j with a message and exit code %i', (args, message, code) => {
     const r = run(file, ...args);
-    expect(r.status).toBe(1);
+    expect(r.status).toBe(code);
     expect(r.stderr).toMatch(message);
     expect(r.stdout).toBe('');
   }, 30_000);

@@ -72,11 +72,20 @@ describe('CLI input files', () => {
   }, 30_000);
 
   it('refuses a directory, /dev/zero and a FIFO at once, in one line', () => {
+    // A folder stands for its *.json files (joulepath solve <folder>, core/cli.ts expandFolders): one
+    // holding none is refused in one line, on its summary line and on stderr; a folder named *.json
+    // inside it is not a regular file.
     const dir = join(scratch, 'a-directory.json');
     mkdirSync(dir);
-    const e1 = refused(run(dir));
-    expect(e1.trim().split('\n')).toHaveLength(1);
-    expect(e1).toMatch(/not a regular file/);
+    const r1 = run(dir);
+    expect(r1.error).toBeUndefined();
+    expect(r1.status).toBe(1);
+    expect(r1.stdout).toBe(`${dir}: refused: the folder ${dir} holds no project files (*.json)\n`);
+    expect(r1.stderr.trim().split('\n')).toHaveLength(1);
+    mkdirSync(join(dir, 'inner.json'));
+    const r1b = run(dir);
+    expect(r1b.status).toBe(1);
+    expect(r1b.stdout).toMatch(/inner\.json: refused: cannot read the project .*inner\.json: it is not a regular file \(a directory\)\n$/);
     const e2 = refused(run('/dev/zero'));
     expect(e2.trim().split('\n')).toHaveLength(1);
     expect(e2).toMatch(/not a regular file/);

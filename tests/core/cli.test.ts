@@ -96,7 +96,7 @@ describe('command-line solver', () => {
     expect(refused.stderr).toContain('element "charger", field "current": 600 A cannot be delivered through "Yard run"');
   }, 30_000);
 
-  it('exits 1 on a file that is not JSON, a missing file, and wrong arguments', () => {
+  it('exits 1 on a file that is not JSON or a missing file, and 2 on wrong arguments', () => {
     const file = join(scratch, 'not-json.json');
     writeFileSync(file, '{ this is not json');
     const notJson = run(file);
@@ -106,7 +106,7 @@ describe('command-line solver', () => {
     expect(missing.status).toBe(1);
     expect(missing.stderr).toMatch(/cannot read/);
     const usage = run();
-    expect(usage.status).toBe(1);
-    expect(usage.stderr).toMatch(/^usage: npm run solve/);
+    expect(usage.status).toBe(2); // usage error (core/cli-args.ts EXIT_USAGE)
+    expect(usage.stderr).toMatch(/^joulepath: no project file given\nusage: joulepath solve/);
   }, 30_000);
 });

@@ -81,7 +81,7 @@ describe('CLI --machines and --flow', () => {
 
   it('--flow without a file is a usage error', () => {
     const r = run(write('p4.json', project(4000)), '--flow');
-    expect(r.status).toBe(1);
+    expect(r.status).toBe(2); // usage error (core/cli-args.ts EXIT_USAGE)
     expect(r.stderr).toContain('--flow needs the pump study file');
   }, 30_000);
 });
