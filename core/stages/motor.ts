@@ -6,8 +6,8 @@
  *   (core/machines/motor-rating.ts, core/data/motor-part-load.ts).
  * Loss: P_loss = P_shaft·(1/η(x) − 1), x = P_shaft / rated output. Reactive power from the power
  * factor at the present load fraction: Q = P_in·tan(arccos pf).
- * Service factor: a load above rated but within SF × rated warns; above SF × rated is refused by the
- * machine check (core/machines/details.ts) and warned here.
+ * Service factor: a load above rated but within SF × rated warns; above SF × rated the element's
+ * report returns a problem at `ratedOutput`, so the solve itself refuses the chain.
  * Shaft speed: rated speed × (supply frequency / rated frequency) when both are known (a motor on a
  * drive; slip taken as a constant fraction, common practice).
  */
