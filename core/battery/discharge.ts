@@ -38,7 +38,7 @@ import { plan } from '../solve/plan.ts';
 import { idleDraw } from '../solve/idle.ts';
 import { type Bank, bankOcv, capacityFactorAt, resolveBank } from './bank.ts';
 import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
-import { DEFAULT_HORIZON_H, DEFAULT_TIME_STEP_S, MAX_WHOLE_CHAIN_WORK, buildTimeline, checkStudy } from './profile.ts';
+import { DEFAULT_HORIZON_H, DEFAULT_TIME_STEP_S, MAX_WHOLE_CHAIN_WORK, buildTimeline, checkStudy, count } from './profile.ts';
 
 export type EndReason = 'depth-of-discharge' | 'rated-capacity' | 'cut-off-voltage' | 'chain-collapse' | 'profile-complete' | 'horizon';
 
@@ -236,7 +236,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
             elementId: 'project',
             field: 'backup.timeStepSeconds',
             value: step,
-            message: `this chain must be solved whole at every step (a load whose draw follows the bank voltage, given by its current or as a circuit, sits on the cables next to the bank), and ${steps.toLocaleString('en-US')} steps × ${fixed.elements.length} elements passes the study's limit of ${MAX_WHOLE_CHAIN_WORK.toLocaleString('en-US')} element solves: use a time step of at least ${longest} s or a shorter horizon`,
+            message: `this chain must be solved whole at every step (a load whose draw follows the bank voltage, given by its current or as a circuit, sits on the cables next to the bank), and ${count(steps)} steps × ${fixed.elements.length} elements passes the study's limit of ${count(MAX_WHOLE_CHAIN_WORK)} element solves: use a time step of at least ${longest} s or a shorter horizon`,
           },
         ],
       };

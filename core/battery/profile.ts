@@ -184,7 +184,7 @@ export function checkStudy(study: BackupStudy, project: Project): Problem[] {
 }
 
 /** A count in words: grouped digits, or "far more than …" past what a double counts exactly. */
-const count = (n: number): string => (Number.isFinite(n) && n < 1e15 ? Math.ceil(n).toLocaleString('en-US').replace(/,/g, ' ') : `far more than ${(1e15).toExponential(0)}`);
+export const count = (n: number): string => (Number.isFinite(n) && n < 1e15 ? Math.ceil(n).toLocaleString('en-US').replace(/,/g, ' ') : `far more than ${(1e15).toExponential(0)}`);
 /** A duration in s as hours, minutes or seconds, 4 significant digits. */
 function hours(seconds: number): string {
   if (seconds >= HOUR) return `${Number((seconds / HOUR).toPrecision(4))} h`;

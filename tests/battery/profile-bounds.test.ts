@@ -221,7 +221,7 @@ describe('a run that sweeps the whole chain at every step is bounded in steps ×
     return directLoad(flatBank(100, 20, 1.2), 10, study, [{ id: 'relay', kind: 'dc-current-load', from: 'bank', current: 0.5 }, ...extra]);
   };
   it('a year at 1-minute steps (525 600 steps × 52 elements) is refused at the time step, naming the limit and a step that fits', () => {
-    const p = refusedAt(withCurrentLoad({ horizonHours: 8760, timeStepSeconds: 60 }), 'backup.timeStepSeconds', /20,000,000 element solves/);
+    const p = refusedAt(withCurrentLoad({ horizonHours: 8760, timeStepSeconds: 60 }), 'backup.timeStepSeconds', /20 000 000 element solves/);
     // 8760 h × 3600 s × 52 / 2e7 = 81.99 s → at least 82 s (hand-worked).
     expect(p.message).toMatch(/at least 82 s/);
     expect(MAX_WHOLE_CHAIN_WORK).toBe(20_000_000);
