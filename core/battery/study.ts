@@ -9,7 +9,7 @@ import type { BackupStudy, BatteryBankSpec } from '../model.ts';
 import type { Problem } from '../errors.ts';
 import { simulateDischarge, type DischargeResult } from './discharge.ts';
 import { MAX_REPEATED_PERIODS, repeatedPeriods, sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
-import { MAX_HORIZON_H } from './profile.ts';
+import { MAX_HORIZON_H, count } from './profile.ts';
 import { chargerForTargetTime, rechargeTime, type ChargerSizing, type Recharge } from './recharge.ts';
 
 export interface BackupStudyResult {
@@ -91,7 +91,7 @@ function withSizedBank(input: unknown, batteryId: string, sizing: BankSizing, ta
 function tooShortForTarget(run: DischargeResult, study: BackupStudy): Problem {
   const lasted = `the outage the study simulates lasts ${Number((run.runtimeSeconds / 3600).toPrecision(3))} h`;
   // (a run of no time at all gives no periods to repeat: the same refusal)
-  const repeat = `repeated to the target runtime of ${study.targetRuntimeHours} h it would give more than ${MAX_REPEATED_PERIODS.toLocaleString('en-US').replace(/,/g, ' ')} periods`;
+  const repeat = `repeated to the target runtime of ${study.targetRuntimeHours} h it would give more than ${count(MAX_REPEATED_PERIODS)} periods`;
   const at = (field: string, value: unknown, what: string, fix: string): Problem => ({ code: 'invalid-value', elementId: 'project', field, value, message: `${lasted} (${what}); ${repeat}: ${fix}` });
   if (run.endReason === 'horizon') return at('backup.horizonHours', study.horizonHours, 'the horizon', 'give a horizon at least as long as the target runtime');
   if (run.endReason === 'profile-complete') return at('backup.profile', study.profile.kind, 'the profile, run once', 'give a profile as long as the target runtime, or let it repeat');

@@ -64,15 +64,10 @@ async function stillOpen(tabs: Set<string>, prefix: string): Promise<Set<string>
 }
 
 /**
- * The same project data, whatever the order of keys (the record and its rescue copy come from drafts
- * whose elements were rebuilt in different key orders by the editor and the store).
+ * Equal plain JSON values, key order ignored (a record and its rescue copy come from drafts whose
+ * elements were rebuilt in different key orders); an explicit stack, no recursion on depth.
  */
-function sameContent(a: DraftProject, b: DraftProject): boolean {
-  return sameJson(a, b);
-}
-
-/** Equal plain JSON values, key order ignored (an explicit stack: no recursion on depth). */
-export function sameJson(a: unknown, b: unknown): boolean {
+function sameJson(a: unknown, b: unknown): boolean {
   const stack: [unknown, unknown][] = [[a, b]];
   while (stack.length) {
     const [x, y] = stack.pop()!;
@@ -121,7 +116,7 @@ export async function recoverRescues(s: ProjectStore, raw: [string, unknown][], 
     // A first write that landed: the rescue copy carries the draft's name from before the copy got its own.
     const base = r.baseRevision ?? (record && record.tabId === r.tabId && record.revision === 1 ? 1 : null);
     const project = record && r.baseRevision === null && base !== null ? { ...r.project, name: record.project.name } : r.project;
-    if (record && sameContent(record.project, project)) {
+    if (record && sameJson(record.project, project)) {
       await s.removeRescue(key).catch(() => undefined);
       continue;
     }
