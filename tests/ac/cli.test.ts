@@ -65,7 +65,7 @@ describe('npm run solve -- <file> --correct-pf <id>:<target>', () => {
     [['--correct-pf', 'comp:high'], /the target power factor "high" is not a number/, 2],
     [['--correct-pf', 'comp'], /write <elementId>:<target power factor>/, 2],
     [['--correct-pf'], /--correct-pf needs <elementId>:<target power factor>/, 2],
-  ])('refuses %j with a message and exit code %i', (args, message, code) => {
+  ])('refuses %j with a message matching %s and exit code %i', (args, message, code) => {
     const r = run(file, ...args);
     expect(r.status).toBe(code);
     expect(r.stderr).toMatch(message);
