@@ -1,7 +1,7 @@
 /**
  * The command-line tool as one self-contained ES module: `dist-cli/joulepath.mjs`.
  *
- * An SSR (Node) build of core/cli.ts with every dependency bundled in (zod and the engine), so the file
+ * An SSR (Node) build of core/cli/cli.ts with every dependency bundled in (zod and the engine), so the file
  * runs with Node 20 alone, without node_modules and without a TypeScript runner: `npm run build:cli`
  * writes it and `npm pack` (the `prepack` script) builds it before packing. The package's `bin`
  * (`joulepath`) points at it. Separate from vite.config.ts, which builds the page and runs the tests.
@@ -27,7 +27,7 @@ export default defineConfig({
     target: 'node',
   },
   build: {
-    ssr: 'core/cli.ts',
+    ssr: 'core/cli/cli.ts',
     outDir: 'dist-cli',
     emptyOutDir: true,
     target: 'node20',

@@ -14,7 +14,7 @@ import { VitePWA } from 'vite-plugin-pwa';
 import { readFileSync } from 'node:fs';
 
 const repoRoot = fileURLToPath(new URL('.', import.meta.url));
-const webRoot = fileURLToPath(new URL('./web/', import.meta.url));
+const webRoot = fileURLToPath(new URL('./web', import.meta.url));
 /** The version the page shows and the service worker's precache follows (package.json). */
 const appVersion = (JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8')) as { version: string }).version;
 

@@ -1,13 +1,13 @@
 /** Joulepath engine: the public API (re-exports only). */
-export type * from './model.ts';
-export type * from './result.ts';
-export { ProjectError, formatProblem, type Problem, type ProblemCode } from './errors.ts';
+export type * from './model/project.ts';
+export type * from './model/result.ts';
+export { ProjectError, formatProblem, type Problem, type ProblemCode } from './model/errors.ts';
 export { solveProject, solve, validateProject, type SolveOutcome } from './solve/index.ts';
 export { findNonFinite, nonFiniteProblems, elementNames, type NonFiniteFigure } from './solve/finite.ts';
 export { demoProjects, type DemoProject } from './demos/index.ts';
-export { fitLossPolynomial, prepareLoss, weightedEfficiency, efficiencyAt } from './stages/loss-model.ts';
-export { receivingVoltage } from './ac/two-bus.ts';
-export { KINDS } from './stages/index.ts';
+export { fitLossPolynomial, prepareLoss, weightedEfficiency, efficiencyAt } from './physics/loss-model.ts';
+export { receivingVoltage } from './physics/two-bus.ts';
+export { KINDS } from './kinds/index.ts';
 export { defaultCatalogue, approximateDrop, resolveLimits, pathDrops, CONDUCTOR_CAUTION, type ConductorCatalogue } from './conductors/index.ts';
 export {
   sizeBank,
@@ -23,7 +23,7 @@ export {
   type WorksheetSection,
   type WorksheetRow,
   type SizingStep,
-} from './battery/sizing.ts';
+} from './studies/backup/sizing.ts';
 export {
   rechargeTime,
   chargerForTargetTime,
@@ -35,14 +35,14 @@ export {
   type Recharge,
   type ChargerSizing,
   type ChargeProfile,
-} from './battery/recharge.ts';
+} from './studies/backup/recharge.ts';
 export { CHEMISTRY_PRESETS, CHEMISTRIES, type Chemistry, type ChemistryPreset, type ChemistryValues } from './data/battery-chemistries.ts';
-export { resolveBank, checkBank, ocvAt, bankOcv, capacityFactorAt, type Bank } from './battery/bank.ts';
-export { simulateDischarge, type DischargeResult, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './battery/discharge.ts';
-export { runBackupStudy, terminalPowerPeriods, type BackupStudyResult, type BackupStudyOutcome } from './battery/study.ts';
-export { formatBackupStudy } from './battery/text-report.ts';
-export { bankCautions, rechargeCautions } from './battery/cautions.ts';
-export { parseSiValue, formatSi, type ElementUnit, type ParsedValue } from './ac/si-prefix.ts';
+export { resolveBank, checkBank, ocvAt, bankOcv, capacityFactorAt, type Bank } from './physics/bank.ts';
+export { simulateDischarge, type DischargeResult, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './studies/backup/discharge.ts';
+export { runBackupStudy, terminalPowerPeriods, type BackupStudyResult, type BackupStudyOutcome } from './studies/backup/study.ts';
+export { formatBackupStudy } from './studies/backup/text-report.ts';
+export { bankCautions, rechargeCautions } from './studies/backup/cautions.ts';
+export { parseSiValue, formatSi, type ElementUnit, type ParsedValue } from './physics/si-prefix.ts';
 export {
   parseNetwork,
   networkImpedance,
@@ -56,7 +56,7 @@ export {
   type NetworkConnection,
   type ImpedanceFigures,
   type NetworkLoadFigures,
-} from './ac/network.ts';
+} from './physics/network.ts';
 export {
   correctPowerFactor,
   requiredReactivePower,
@@ -70,9 +70,9 @@ export {
   type CapacitorBank,
   type UpstreamChange,
   type InterfaceState,
-} from './ac/pf-correction.ts';
-export { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates, type PfCandidate } from './ac/pf-placement.ts';
-export { formatNetworkLoads, formatPfCorrection } from './ac/text-report.ts';
+} from './studies/pf/correction.ts';
+export { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates, type PfCandidate } from './studies/pf/placement.ts';
+export { formatNetworkLoads, formatPfCorrection } from './studies/pf/text-report.ts';
 export {
   compareFlowControl,
   driveLossGrid,
@@ -103,9 +103,9 @@ export {
   type MotorDetail,
   type DriveDetail,
   type MachineSolveOutcome,
-} from './machines/index.ts';
-export { flowGraph, lossNodeId, lossParts, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole, type LossPart, type LossSummary, type Share } from './flow.ts';
-export { lossCostPerYear, flowStudyCosts, energyCost, checkCostSettings, HOURS_IN_YEAR, MAX_HOURS_PER_YEAR, type CostSettings, type LossCost, type LossCostRow, type LossCostOutcome, type MethodCosts } from './economics.ts';
+} from './studies/machines/index.ts';
+export { flowGraph, lossNodeId, lossParts, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole, type LossPart, type LossSummary, type Share } from './studies/energy-flow.ts';
+export { lossCostPerYear, flowStudyCosts, energyCost, checkCostSettings, HOURS_IN_YEAR, MAX_HOURS_PER_YEAR, type CostSettings, type LossCost, type LossCostRow, type LossCostOutcome, type MethodCosts } from './studies/economics.ts';
 export {
   studySurges,
   hasSurgeInputs,
@@ -121,5 +121,5 @@ export {
   type StartVerdict,
   type FaultPoint,
   type DeviceCheck,
-} from './surge/index.ts';
+} from './studies/surge/index.ts';
 export { NEC_430_7_B, CODE_LETTERS, type CodeLetter, type CodeLetterRow } from './data/motor-code-letters.ts';

@@ -8,7 +8,7 @@
  * an ambient beyond the correction table, a method without published capacities): the engine
  * turns that into a problem naming the field, never into a guess.
  */
-import type { IecInstallationMethod, NecRaceway } from '../model.ts';
+import type { IecInstallationMethod, NecRaceway } from '../model/project.ts';
 import { NEC_TABLES } from './nec-adapter.ts';
 import { IEC_TABLES } from './iec-adapter.ts';
 

@@ -26,15 +26,15 @@
  * after corrections; the others check 125 % against the termination column before corrections and
  * 100 % against the corrected ampacity (210.19(A)(1)(a)/(b), 690.8(B)(1)/(2)).
  */
-import type { Complex } from '../ac/complex.ts';
-import { abs } from '../ac/complex.ts';
-import type { ConductorSpec, DcDcStage, Element, InverterStage, MotorStage, PortKind, Project } from '../model.ts';
-import type { DesignBasisKind } from '../result.ts';
+import type { Complex } from '../physics/complex.ts';
+import { abs } from '../physics/complex.ts';
+import type { ConductorSpec, DcDcStage, Element, InverterStage, MotorStage, PortKind, Project } from '../model/project.ts';
+import type { DesignBasisKind } from '../model/result.ts';
 import { NEC_430_250 } from '../data/nec-430-250.ts';
 import { NEC_430_248 } from '../data/nec-430-248.ts';
 import { WATTS_PER_HP } from '../data/nema-mg1-12-12.ts';
-import { prepareLoss } from '../stages/loss-model.ts';
-import { motorRating } from '../machines/motor-rating.ts';
+import { prepareLoss } from '../physics/loss-model.ts';
+import { motorRating } from '../physics/motor-rating.ts';
 
 const SQRT3 = Math.sqrt(3);
 const CONTINUOUS = 1.25;

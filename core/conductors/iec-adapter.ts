@@ -2,7 +2,7 @@
  * Maps the IEC tables of `core/data/` into the lookups of `IecTables` (catalogue.ts). No values
  * here: every number comes from the cited table files.
  */
-import type { IecInstallationMethod } from '../model.ts';
+import type { IecInstallationMethod } from '../model/project.ts';
 import type { IecTables, Material, SizeEntry } from './catalogue.ts';
 import { IEC_60228_ALPHA20_PER_K, IEC_60228_CLASS2 } from '../data/iec-60228.ts';
 import { IEC_60364_5_52_CAPACITIES, IEC_ANNEX_G, IEC_B52_14_AMBIENT, IEC_B52_17_GROUPING, IEC_INSULATION_MAX_C } from '../data/iec-60364-5-52.ts';

@@ -2,7 +2,7 @@
  * Maps the NEC tables of `core/data/` into the lookups of `NecTables` (catalogue.ts). No values
  * here: every number comes from the cited table files.
  */
-import type { NecRaceway } from '../model.ts';
+import type { NecRaceway } from '../model/project.ts';
 import type { Material, NecTables, SizeEntry } from './catalogue.ts';
 import { M2_PER_CMIL } from '../data/nec-sizes.ts';
 import { NEC_240_4_D, NEC_310_16, type NecTempRating } from '../data/nec-310-16.ts';

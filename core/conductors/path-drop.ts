@@ -14,8 +14,8 @@
  * it equals the exact relative drop to first order.
  */
 import { z } from 'zod/mini';
-import type { DropLimits, ElementKind } from '../model.ts';
-import type { ElementResult, PathDrop } from '../result.ts';
+import type { DropLimits, ElementKind } from '../model/project.ts';
+import type { ElementResult, PathDrop } from '../model/result.ts';
 
 /** Schema of the project's optional `dropLimits` (used by core/solve/validate.ts). */
 export const dropLimitsSchema = z.strictObject({

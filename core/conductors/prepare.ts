@@ -12,8 +12,8 @@
  * - IEC: the IEC 60364-5-52 Annex B capacity for the method, insulation and loaded conductors ×
  *   Table B.52.14 (ambient) × Table B.52.17 (grouping, bunched row).
  */
-import type { CableStage, ConductorSpec, IecConductorSpec, NecConductorSpec, PortKind } from '../model.ts';
-import type { Problem } from '../errors.ts';
+import type { CableStage, ConductorSpec, IecConductorSpec, NecConductorSpec, PortKind } from '../model/project.ts';
+import type { Problem } from '../model/errors.ts';
 import { type ConductorCatalogue, type SizeEntry, findSize } from './catalogue.ts';
 
 /** One size on the ladder, with what the sizing step needs. Per conductor; Ω per metre. */

@@ -26,9 +26,9 @@
  *   ../ac/two-bus.ts) with R at the estimated operating temperature (common practice):
  *   T = T_a + (T_max − T_a)·(I/I_z)², R_T = R_ref·(1 + α·(T − T_ref)).
  */
-import { type Complex, abs } from '../ac/complex.ts';
-import type { CableStage, NecConductorSpec, PortKind } from '../model.ts';
-import type { ConductorResult, ConductorStep, GoverningRule } from '../result.ts';
+import { type Complex, abs } from '../physics/complex.ts';
+import type { CableStage, NecConductorSpec, PortKind } from '../model/project.ts';
+import type { ConductorResult, ConductorStep, GoverningRule } from '../model/result.ts';
 import { NEC_430_52_C_1 } from '../data/nec-430-52.ts';
 import type { DesignCurrent } from './design-current.ts';
 import type { Candidate, PreparedConductor } from './prepare.ts';

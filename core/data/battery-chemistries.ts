@@ -1,5 +1,5 @@
 /**
- * Battery chemistry presets: per-cell defaults for the bank model in core/battery/.
+ * Battery chemistry presets: per-cell defaults for the bank model in core/studies/backup/.
  *
  * Every value can be overridden from the cell or block maker's datasheet, which always takes
  * precedence; these are planning defaults only.

@@ -13,7 +13,7 @@
  *
  * Note (IEEE 485, from memory): factors below 1.00 above 25 °C should generally not be used to
  * reduce the cell size — the gain in capacity is offset by a shorter life. The sizing in
- * core/battery/sizing.ts therefore holds 1.00 above 25 °C unless told otherwise.
+ * core/studies/backup/sizing.ts therefore holds 1.00 above 25 °C unless told otherwise.
  */
 export interface TemperatureFactorRow {
   readonly fahrenheit: number;

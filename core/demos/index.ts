@@ -1,5 +1,5 @@
 /** The demo projects (invented scenarios), shared by the command-line solver and the app. */
-import type { Project } from '../model.ts';
+import type { Project } from '../model/project.ts';
 import hillside from './hillside-relay-hut.json' with { type: 'json' };
 import riverside from './riverside-pump-station.json' with { type: 'json' };
 import coldStore from './cold-store-dc-bus.json' with { type: 'json' };

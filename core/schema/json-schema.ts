@@ -7,7 +7,7 @@
  *
  * What comes through: every field, its type, required fields, unknown fields refused, enums and
  * literals, the bounds zod states (z.gt, z.lte, lengths, whole numbers), and the plausible range of
- * every physical quantity (core/stages/ranges.ts: a refinement in zod, stated here as minimum /
+ * every physical quantity (core/kinds/ranges.ts: a refinement in zod, stated here as minimum /
  * maximum with a description naming the unit). What JSON Schema cannot say is left out and stays the
  * engine's: cross-field checks (`check(e)` of a kind, e.g. %Z ≥ %R, a segment's loads naming loads of
  * the project), the tree's shape (one source, every `from` naming an element, port kinds), the
@@ -16,8 +16,8 @@
  */
 import { z } from 'zod/mini';
 import { projectShape } from '../solve/validate.ts';
-import { KINDS } from '../stages/index.ts';
-import { RANGES, RANGE_CHECKS, rangeText, type Floor, type Quantity } from '../stages/ranges.ts';
+import { KINDS } from '../kinds/index.ts';
+import { RANGES, RANGE_CHECKS, rangeText, type Floor, type Quantity } from '../kinds/ranges.ts';
 
 /** A JSON Schema object (draft-07), as plain data. */
 export type JsonSchema = { [key: string]: unknown };
@@ -86,7 +86,7 @@ export function projectSchemaParts(): { project: JsonSchema; definitions: Record
     (schema['properties'] as Record<string, JsonSchema>)['kind'] = { type: 'string', const: kind };
     definitions[kind] = { title: `Element of kind "${kind}"`, ...schema };
   }
-  // The network of a circuit load is read by parseNetwork (core/ac/network.ts), not by a zod schema
+  // The network of a circuit load is read by parseNetwork (core/physics/network.ts), not by a zod schema
   // (each entry's problem carries its own path): its shape is stated here, the way that parser reads it.
   (definitions['network-load']!['properties'] as Record<string, JsonSchema>)['network'] = { $ref: '#/definitions/circuit-network' };
   definitions['circuit-network'] = circuitNetworkSchema();

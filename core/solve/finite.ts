@@ -7,7 +7,7 @@
  * CLI, the page's panel worker) on the battery, machines, surge, power-factor and cost results:
  * the studies themselves need not know of it.
  */
-import type { Problem } from '../errors.ts';
+import type { Problem } from '../model/errors.ts';
 
 /** One number that is not finite, where it sits, and the element it belongs to. */
 export interface NonFiniteFigure {

@@ -10,8 +10,8 @@
  * One function for the solve's result (`ElementResult.idleLoss`, at the solved voltages) and the
  * battery study (`IdleDraw`, the draw that runs all night).
  */
-import { type Complex, ZERO, abs, c } from '../ac/complex.ts';
-import type { ElementModel } from '../stages/spec.ts';
+import { type Complex, ZERO, abs, c } from '../physics/complex.ts';
+import type { ElementModel } from '../kinds/spec.ts';
 
 const UNIT = c(1);
 

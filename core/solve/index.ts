@@ -5,9 +5,9 @@
  * (ports, totals, balance) → conductor results and whole-path voltage drops.
  * Pure: takes plain data, returns new plain data, mutates nothing.
  */
-import type { Project } from '../model.ts';
-import { ProjectError, type Problem } from '../errors.ts';
-import type { SolveResult } from '../result.ts';
+import type { Project } from '../model/project.ts';
+import { ProjectError, type Problem } from '../model/errors.ts';
+import type { SolveResult } from '../model/result.ts';
 import { validateProject } from './validate.ts';
 import { plan } from './plan.ts';
 import { buildResult } from './report.ts';

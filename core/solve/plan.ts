@@ -3,9 +3,9 @@
  * port of a kind it accepts, and build each element's model. Elements that hang off a bad `from`
  * or a loop are not reached; `validate` reports those, so `plan` may run beside its problems.
  */
-import type { Element, Project } from '../model.ts';
-import type { Problem } from '../errors.ts';
-import { KINDS, type ElementModel, type KindSpec, type PortInfo } from '../stages/index.ts';
+import type { Element, Project } from '../model/project.ts';
+import type { Problem } from '../model/errors.ts';
+import { KINDS, type ElementModel, type KindSpec, type PortInfo } from '../kinds/index.ts';
 
 export interface PlannedElement {
   element: Element;

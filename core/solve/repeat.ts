@@ -1,7 +1,7 @@
 /**
  * Repeated solves of one planned chain whose battery source changes (open-circuit voltage and
  * internal resistance) while its loads take a few distinct states — the inner loop of the
- * discharge simulation in core/battery/discharge.ts.
+ * discharge simulation in core/studies/backup/discharge.ts.
  *
  * Method (exact, not an approximation): a regulating converter's input power depends only on its
  * output power (P_in = P_out + loss(P_out), with the input power factor fixed), and a constant-power
@@ -14,11 +14,11 @@
  * Where an element of another kind sits between the bank and the frontier, the whole chain is
  * swept at every step instead (slower, same answer).
  */
-import { type Complex, c } from '../ac/complex.ts';
-import { receivingVoltage } from '../ac/two-bus.ts';
-import type { Element, Project } from '../model.ts';
-import type { Problem } from '../errors.ts';
-import type { ElementModel } from '../stages/index.ts';
+import { type Complex, c } from '../physics/complex.ts';
+import { receivingVoltage } from '../physics/two-bus.ts';
+import type { Element, Project } from '../model/project.ts';
+import type { Problem } from '../model/errors.ts';
+import type { ElementModel } from '../kinds/index.ts';
 import { plan, type PlannedElement } from './plan.ts';
 import { MAX_SWEEPS, TOLERANCE, sweep } from './sweep.ts';
 

@@ -2,12 +2,12 @@
  * Step 4 of the solve: turn the operating point into the plain result (ports, per-element
  * powers, totals, balance check, warnings).
  */
-import { type Complex, abs, conj, div, scale } from '../ac/complex.ts';
-import type { PortKind } from '../model.ts';
-import type { Problem } from '../errors.ts';
-import type { ElementResult, PortResult, SolveResult, SolveWarning } from '../result.ts';
-import type { PortInfo } from '../stages/index.ts';
-import { phaseCount } from '../stages/spec.ts';
+import { type Complex, abs, conj, div, scale } from '../physics/complex.ts';
+import type { PortKind } from '../model/project.ts';
+import type { Problem } from '../model/errors.ts';
+import type { ElementResult, PortResult, SolveResult, SolveWarning } from '../model/result.ts';
+import type { PortInfo } from '../kinds/index.ts';
+import { phaseCount } from '../kinds/spec.ts';
 import type { PlannedElement } from './plan.ts';
 import { TOLERANCE, type OperatingPoint } from './sweep.ts';
 import { idleDraw, idlePart } from './idle.ts';

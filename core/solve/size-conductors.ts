@@ -16,10 +16,10 @@
  *    drop fraction of a change in R, a strong contraction) until no resistance moves by 1e-10
  *    (relative). Sizes do not change in this step.
  */
-import type { AcSource, BatterySource, CableStage, ConductorSpec, Element, Project } from '../model.ts';
-import type { Problem } from '../errors.ts';
-import type { ConductorResult, SolveResult, SolveWarning } from '../result.ts';
-import { abs } from '../ac/complex.ts';
+import type { AcSource, BatterySource, CableStage, ConductorSpec, Element, Project } from '../model/project.ts';
+import type { Problem } from '../model/errors.ts';
+import type { ConductorResult, SolveResult, SolveWarning } from '../model/result.ts';
+import { abs } from '../physics/complex.ts';
 import { type ConductorCatalogue, defaultCatalogue } from '../conductors/catalogue.ts';
 import { type PreparedConductor, prepareConductor } from '../conductors/prepare.ts';
 import { type Choice, type LinkAngle, choose, conductorResult, resistanceAt, temperatureAt } from '../conductors/size.ts';

@@ -7,9 +7,9 @@
  * Cost: linear in the number of elements (one Map of ids; the loop search visits each element
  * once, without recursion), so a chain of thousands of elements, deep or wide, is checked at once.
  */
-import type { ElementKind } from '../model.ts';
-import type { Problem } from '../errors.ts';
-import { KINDS } from '../stages/index.ts';
+import type { ElementKind } from '../model/project.ts';
+import type { Problem } from '../model/errors.ts';
+import { KINDS } from '../kinds/index.ts';
 
 /** What the tree checks need of an element. */
 export interface Skeleton {

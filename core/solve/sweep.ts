@@ -9,11 +9,11 @@
  * between sweeps, then runs one last backward sweep so that every power matches the reported
  * voltages. Energy balance is exact by construction: each P_in is P_out + loss of the same sweep.
  */
-import { type Complex, ZERO, abs, add, c, scale, sub } from '../ac/complex.ts';
-import type { Problem } from '../errors.ts';
-import type { Element } from '../model.ts';
+import { type Complex, ZERO, abs, add, c, scale, sub } from '../physics/complex.ts';
+import type { Problem } from '../model/errors.ts';
+import type { Element } from '../model/project.ts';
 import type { PlannedElement } from './plan.ts';
-import type { DirectLoads } from '../stages/spec.ts';
+import type { DirectLoads } from '../kinds/spec.ts';
 
 const ONE: Complex = c(1);
 

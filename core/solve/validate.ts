@@ -3,14 +3,14 @@
  * Every problem names the element and the field; nothing is computed from a project that has any.
  */
 import { z } from 'zod/mini';
-import type { Element, Project } from '../model.ts';
-import type { Problem } from '../errors.ts';
-import { KINDS } from '../stages/index.ts';
+import type { Element, Project } from '../model/project.ts';
+import type { Problem } from '../model/errors.ts';
+import { KINDS } from '../kinds/index.ts';
 import { checkStructure, skeletonOf } from './structure.ts';
 import { issueMessage, unknownKindMessage } from './issue-messages.ts';
-import { backupSchema, reservedKeyProblems } from '../battery/profile.ts';
+import { backupSchema, reservedKeyProblems } from './load-profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
-import { flowStudySchema } from '../stages/pump.ts';
+import { flowStudySchema } from '../kinds/pump.ts';
 
 export const projectShape = z.strictObject({
   /** The JSON Schema an editor checks the file against (schema/joulepath-project.schema.json); not read by the engine. */

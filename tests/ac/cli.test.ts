@@ -1,6 +1,6 @@
 /**
  * The command-line flag `--correct-pf <elementId>:<target>` as a user runs it
- * (`tsx core/cli.ts <file> --correct-pf …`): the printed bank and comparison carry the engine's own
+ * (`tsx core/cli/cli.ts <file> --correct-pf …`): the printed bank and comparison carry the engine's own
  * figures (computed in-process here), --json carries them under `pfCorrection`, and bad values give
  * a message naming the element and field with exit code 1 (2 when the flag itself is malformed).
  */
@@ -12,7 +12,7 @@ import { describe, expect, it } from 'vitest';
 import { correctPowerFactor } from '../../core/index.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
-const run = (...args: string[]) => spawnSync(TSX, ['core/cli.ts', ...args], { encoding: 'utf8' });
+const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
 const scratch = mkdtempSync(join(tmpdir(), 'joulepath-pf-cli-'));
 
 /** An invented workshop: a compressor entered by its elements behind a 90 m feeder. */
@@ -57,7 +57,7 @@ describe('npm run solve -- <file> --correct-pf <id>:<target>', () => {
     expect(out.pfCorrection['correctedProject']).toBeUndefined();
   }, 30_000);
 
-  // Exit codes (core/cli-args.ts): 1 the project refuses the request, 2 the flag itself is malformed (usage).
+  // Exit codes (core/cli/args.ts): 1 the project refuses the request, 2 the flag itself is malformed (usage).
   it.each([
     [['--correct-pf', 'comp:0.5'], /element "comp", field "targetPowerFactor": must be above the present power factor/, 1],
     [['--correct-pf', 'pump:0.95'], /element "pump", field "at": no element "pump"/, 1],

@@ -1,5 +1,5 @@
 /**
- * Loads from circuit elements (core/ac/network.ts, core/stages/network-load.ts).
+ * Loads from circuit elements (core/physics/network.ts, core/kinds/network-load.ts).
  *
  * Sources of the check values:
  * - impedances worked by hand from Z_R = R, Z_L = jωL, Z_C = 1/(jωC), series Σ Z, parallel

@@ -1,5 +1,5 @@
 /**
- * Power-factor correction (core/ac/pf-correction.ts).
+ * Power-factor correction (core/studies/pf/correction.ts).
  *
  * Check values are worked by hand (calculator) from the published relations:
  * - bank rating Qc = P·(tan φ1 − tan φ2) (IEEE Std 1036, Guide for the Application of Shunt Power
@@ -240,7 +240,7 @@ describe('bad requests: a problem naming the element and field; nothing computed
 });
 
 /**
- * Where a bank belongs (core/ac/pf-placement.ts): the rules are common practice in capacitor
+ * Where a bank belongs (core/studies/pf/placement.ts): the rules are common practice in capacitor
  * application guides (IEEE Std 1036 on harmonic resonance) and drive and inverter makers' manuals,
  * which forbid capacitors on a drive output; no figures to check, the choice is asserted.
  */

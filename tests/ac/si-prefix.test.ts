@@ -1,10 +1,10 @@
 /**
- * Reading component values with SI prefixes (core/ac/si-prefix.ts).
+ * Reading component values with SI prefixes (core/physics/si-prefix.ts).
  * Expected values: the prefix factors of the BIPM SI Brochure, 9th edition (2019), Table 7
  * (f 1e-15, p 1e-12, n 1e-9, µ 1e-6, m 1e-3, k 1e3, M 1e6, G 1e9), applied by hand.
  */
 import { describe, expect, it } from 'vitest';
-import { formatSi, parseSiValue, type ElementUnit } from '../../core/ac/si-prefix.ts';
+import { formatSi, parseSiValue, type ElementUnit } from '../../core/physics/si-prefix.ts';
 
 const REL = 1e-15;
 

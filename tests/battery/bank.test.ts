@@ -4,9 +4,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import { solveProject, type Project } from '../../core/index.ts';
-import { capacityFactorAt, ocvAt, resolveBank } from '../../core/battery/bank.ts';
+import { capacityFactorAt, ocvAt, resolveBank } from '../../core/physics/bank.ts';
 import { CHEMISTRY_PRESETS, CHEMISTRIES } from '../../core/data/battery-chemistries.ts';
-import { simulateDischarge } from '../../core/battery/discharge.ts';
+import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { directLoad, flatBank } from './helpers.ts';
 
 describe('bank figures', () => {

@@ -6,7 +6,7 @@ import { execFileSync } from 'node:child_process';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { demoProjects } from '../../core/index.ts';
-import { runBackupStudy } from '../../core/battery/study.ts';
+import { runBackupStudy } from '../../core/studies/backup/study.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const demo = demoProjects.find((d) => d.id === 'hillside-relay-hut')!;
@@ -17,7 +17,7 @@ describe('command-line battery backup study', () => {
   const study = inProcess.study;
 
   it('prints runtime, derates, sizing, recharge and the cautions', () => {
-    const out = execFileSync(TSX, ['core/cli.ts', 'core/demos/hillside-relay-hut.json'], { encoding: 'utf8' });
+    const out = execFileSync(TSX, ['core/cli/cli.ts', 'core/demos/hillside-relay-hut.json'], { encoding: 'utf8' });
     expect(out).toContain('Battery backup');
     const h = Math.floor(study.discharge.runtimeSeconds / 3600);
     expect(out).toContain(`Runtime: ${h} h`);
@@ -35,7 +35,7 @@ describe('command-line battery backup study', () => {
   }, 30_000);
 
   it('--json carries the study under "backupStudy", equal to the study run in-process', () => {
-    const out = JSON.parse(execFileSync(TSX, ['core/cli.ts', 'core/demos/hillside-relay-hut.json', '--json'], { encoding: 'utf8' }));
+    const out = JSON.parse(execFileSync(TSX, ['core/cli/cli.ts', 'core/demos/hillside-relay-hut.json', '--json'], { encoding: 'utf8' }));
     expect(out.backupStudy).toEqual(JSON.parse(JSON.stringify(study)));
     expect(out.elements[0].id).toBe('bank');
   }, 30_000);

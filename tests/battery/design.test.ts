@@ -4,10 +4,10 @@
  * and whole modules with the runtime of that bank; temperatures beyond the capacity tables.
  */
 import { describe, expect, it } from 'vitest';
-import { sizeBank, type BankSizing, type SizingInput } from '../../core/battery/sizing.ts';
-import { simulateDischarge, type DischargeResult } from '../../core/battery/discharge.ts';
-import { runBackupStudy } from '../../core/battery/study.ts';
-import { formatBackupStudy } from '../../core/battery/text-report.ts';
+import { sizeBank, type BankSizing, type SizingInput } from '../../core/studies/backup/sizing.ts';
+import { simulateDischarge, type DischargeResult } from '../../core/studies/backup/discharge.ts';
+import { runBackupStudy } from '../../core/studies/backup/study.ts';
+import { formatBackupStudy } from '../../core/studies/backup/text-report.ts';
 import { demoProjects, type BackupStudy, type BatteryBankSpec, type Project } from '../../core/index.ts';
 import type { Chemistry } from '../../core/data/battery-chemistries.ts';
 import { directLoad } from './helpers.ts';

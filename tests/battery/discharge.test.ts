@@ -4,9 +4,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import { demoProjects, solveProject, type Element, type Project } from '../../core/index.ts';
-import { simulateDischarge, type DischargeResult } from '../../core/battery/discharge.ts';
-import { bankOcv, resolveBank } from '../../core/battery/bank.ts';
-import { buildTimeline } from '../../core/battery/profile.ts';
+import { simulateDischarge, type DischargeResult } from '../../core/studies/backup/discharge.ts';
+import { bankOcv, resolveBank } from '../../core/physics/bank.ts';
+import { buildTimeline } from '../../core/solve/load-profile.ts';
 import { directLoad, flatBank } from './helpers.ts';
 import { batteryBenchProject } from './fixtures.ts';
 

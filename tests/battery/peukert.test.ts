@@ -7,7 +7,7 @@
  * bdbatteries.com "Peukert's law" and electrotechnik.net "Peukert law and discharge of lead-acid").
  */
 import { describe, expect, it } from 'vitest';
-import { simulateDischarge } from '../../core/battery/discharge.ts';
+import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { directLoad, flatBank } from './helpers.ts';
 
 function runtimeHours(capacityAh: number, ratedHours: number, k: number, current: number, timeStepSeconds = 60): number {

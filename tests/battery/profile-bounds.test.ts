@@ -4,16 +4,16 @@
  * crash, no runaway memory); a profile key is looked up by own keys only, and a key that names no
  * element, or an element that is not a load, is refused at that field.
  *
- * The limits are the engine's own (core/battery/profile.ts, stated in core/battery/README.md):
+ * The limits are the engine's own (core/solve/load-profile.ts, stated in core/studies/backup/README.md):
  * 100 000 load changes, 1 000 load states, 1 000 000 steps. The energies are worked by hand
  * (energy = Σ on-time × power).
  */
 import { describe, expect, it } from 'vitest';
-import { simulateDischarge } from '../../core/battery/discharge.ts';
-import { runBackupStudy } from '../../core/battery/study.ts';
-import { MAX_LOAD_CHANGES, MAX_LOAD_STATES, MAX_WHOLE_CHAIN_WORK, buildTimeline } from '../../core/battery/profile.ts';
+import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
+import { runBackupStudy } from '../../core/studies/backup/study.ts';
+import { MAX_LOAD_CHANGES, MAX_LOAD_STATES, MAX_WHOLE_CHAIN_WORK, buildTimeline } from '../../core/solve/load-profile.ts';
 import { demoProjects, type BackupStudy, type Project } from '../../core/index.ts';
-import type { Problem } from '../../core/errors.ts';
+import type { Problem } from '../../core/model/errors.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { directLoad, flatBank } from './helpers.ts';
 
@@ -215,7 +215,7 @@ describe('profile keys', () => {
 
 describe('a run that sweeps the whole chain at every step is bounded in steps × elements (issue 15, point 7)', () => {
   // A current load on the bank makes every step a whole-chain sweep (core/solve/repeat.ts); 49 small
-  // loads and the 10 W load beside it make 52 elements with the bank. Limits: the engine's own MAX_WHOLE_CHAIN_WORK (core/battery/profile.ts).
+  // loads and the 10 W load beside it make 52 elements with the bank. Limits: the engine's own MAX_WHOLE_CHAIN_WORK (core/solve/load-profile.ts).
   const withCurrentLoad = (study: Partial<BackupStudy>): Project => {
     const extra = Array.from({ length: 49 }, (_, i) => ({ id: `lamp${i}`, kind: 'dc-load', from: 'bank', power: 1 }) as const);
     return directLoad(flatBank(100, 20, 1.2), 10, study, [{ id: 'relay', kind: 'dc-current-load', from: 'bank', current: 0.5 }, ...extra]);

@@ -5,11 +5,11 @@
  * a run whose every figure is finite and whose energy balances: energy from the cells = energy out of
  * the terminals + internal I²R, and energy out of the terminals = energy of the loads + chain losses
  * (conservation of energy, to 1e-9 relative). No case throws; none runs out of memory (the bounds
- * of core/battery/profile.ts). A case that hangs fails on the test's time limit.
+ * of core/solve/load-profile.ts). A case that hangs fails on the test's time limit.
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { simulateDischarge } from '../../core/battery/discharge.ts';
+import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { demoProjects } from '../../core/index.ts';
 

@@ -1,5 +1,5 @@
 /**
- * Recharge (core/battery/recharge.ts): CC-CV recharge time worked by hand from the closed forms of
+ * Recharge (core/studies/backup/recharge.ts): CC-CV recharge time worked by hand from the closed forms of
  * the model (constant current: ΔSoC·C ÷ (η·I); exponential taper: τ·ln of the ratio of the charge
  * still lacking), the standing load carried by the charger, the charge-rate cap, the AC input, the
  * charger for a target time, and refusals of bad input.
@@ -14,7 +14,7 @@ import {
   rechargeTime,
   type Recharge,
   type RechargeInput,
-} from '../../core/battery/recharge.ts';
+} from '../../core/studies/backup/recharge.ts';
 
 function ok(input: RechargeInput): Recharge {
   const r = rechargeTime(input);

@@ -4,7 +4,7 @@
  * module Ah), not only the arithmetic.
  */
 import { describe, expect, it } from 'vitest';
-import { sizeBank, type BankSizing, type SizingInput } from '../../core/battery/sizing.ts';
+import { sizeBank, type BankSizing, type SizingInput } from '../../core/studies/backup/sizing.ts';
 
 function sized(input: SizingInput): BankSizing {
   const r = sizeBank(input);

@@ -1,5 +1,5 @@
 /**
- * Bank sizing (core/battery/sizing.ts): IEEE 485 Table 1 temperature factors, the IEEE 485 duty-cycle
+ * Bank sizing (core/studies/backup/sizing.ts): IEEE 485 Table 1 temperature factors, the IEEE 485 duty-cycle
  * worksheet worked by hand (K_t from a datasheet-style table and from Peukert's law), the lithium
  * energy method worked by hand, string selection, and refusals of bad input.
  *
@@ -16,10 +16,10 @@ import {
   worksheetSections,
   type BankSizing,
   type SizingInput,
-} from '../../core/battery/sizing.ts';
+} from '../../core/studies/backup/sizing.ts';
 import { IEEE_485_TEMPERATURE_FACTORS } from '../../core/data/ieee-485.ts';
-import { runBackupStudy } from '../../core/battery/study.ts';
-import { simulateDischarge } from '../../core/battery/discharge.ts';
+import { runBackupStudy } from '../../core/studies/backup/study.ts';
+import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { demoProjects, type BatterySource, type Project } from '../../core/index.ts';
 
 function sized(input: SizingInput): BankSizing {
@@ -539,7 +539,7 @@ describe('long sampled profiles', () => {
   });
 });
 
-describe('a bank sized here passes the runtime study (core/battery/discharge.ts)', () => {
+describe('a bank sized here passes the runtime study (core/studies/backup/discharge.ts)', () => {
   // The hillside demo (invented scenario) with the bank replaced by the sized one: the simulated
   // runtime through the same daily profile must reach the target, also at end of life (capacity
   // down to 1/aging factor). Sizing inputs come from the study itself (terminal power of the

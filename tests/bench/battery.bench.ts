@@ -4,7 +4,7 @@
  * `npm run bench`; the median is reported in issue notes, not asserted here.
  */
 import { bench, describe } from 'vitest';
-import { simulateDischarge } from '../../core/battery/discharge.ts';
+import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { batteryBenchProject } from '../battery/fixtures.ts';
 
 const project = batteryBenchProject();

@@ -1,4 +1,4 @@
-/** Speed of the energy-flow graph (core/flow.ts) on the demo projects, solved once beforehand. */
+/** Speed of the energy-flow graph (core/studies/energy-flow.ts) on the demo projects, solved once beforehand. */
 import { bench, describe } from 'vitest';
 import { demoProjects, flowGraph, solveProject, type SolveResult } from '../../core/index.ts';
 

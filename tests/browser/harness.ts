@@ -12,7 +12,7 @@ import { chromium, type Browser, type Page } from 'playwright-core';
 import { build, preview } from 'vite';
 import { requireTool } from '../tools/system-tools.ts';
 
-export const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
+export const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 export const configFile = join(repoRoot, 'vite.config.ts');
 /** Screenshots and downloads for a person to look at (git-ignored). */
 export const artifacts = join(repoRoot, 'tests', '.artifacts');

@@ -10,7 +10,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
 import { correctPowerFactor, demoProjects, formatBackupStudy, projectFlowStudy, runBackupStudy, solveProject } from '../../core/index.ts';
-import { lossCostPerYear } from '../../core/economics.ts';
+import { lossCostPerYear } from '../../core/studies/economics.ts';
 import { formatDuration, formatEnergy, formatReactive, formatSignificant } from '../../web/format/number.ts';
 import { formatMoney } from '../../web/format/panels.ts';
 

@@ -1,18 +1,18 @@
 /**
  * The motor-starting and fault-current panel in a real browser (Debian's Chromium, driven by
  * playwright-core) against a production build: it opens on demand, shows the engine's verdict for
- * the riverside pump motor and the IEC 60909 fault currents (the figures of core/surge run here, the
+ * the riverside pump motor and the IEC 60909 fault currents (the figures of core/studies/surge run here, the
  * page only formats them), flags a protective device whose interrupting rating is too low after an
  * edit in the cable's form with the rating it needs, passes axe-core, and fits a phone.
  *
- * Expected figures: the engine's own (core/surge/index.ts studySurges on the same demo);
+ * Expected figures: the engine's own (core/studies/surge/index.ts studySurges on the same demo);
  * behaviour checks are common practice (no source).
  */
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoProjects } from '../../core/demos/index.ts';
-import { studySurges } from '../../core/surge/index.ts';
+import { studySurges } from '../../core/studies/surge/index.ts';
 import { formatCurrent } from '../../web/format/number.ts';
 import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp } from './harness.ts';

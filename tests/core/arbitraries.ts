@@ -15,11 +15,11 @@
  * so datasheet-like curves rise steeply at light load and droop slightly near full load.
  */
 import fc from 'fast-check';
-import type { Element, LossModel, PortKind, Project } from '../../core/model.ts';
-import { abs } from '../../core/ac/complex.ts';
-import { type CircuitNetwork, networkImpedance, parseNetwork, starEquivalent } from '../../core/ac/network.ts';
-import { formatSi } from '../../core/ac/si-prefix.ts';
-import { RANGES } from '../../core/stages/ranges.ts';
+import type { Element, LossModel, PortKind, Project } from '../../core/model/project.ts';
+import { abs } from '../../core/physics/complex.ts';
+import { type CircuitNetwork, networkImpedance, parseNetwork, starEquivalent } from '../../core/physics/network.ts';
+import { formatSi } from '../../core/physics/si-prefix.ts';
+import { RANGES } from '../../core/kinds/ranges.ts';
 
 type Json = Record<string, unknown>;
 
@@ -426,7 +426,7 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
         const perKmOf = (ohms: number) => (port.kind === 'ac3' ? ohms / (sz.length / 1000) : ohms / ((2 * sz.length) / 1000)) * (sz.sets ?? 1);
         el['length'] = sz.length;
         // A few watts at 11 kV would "need" hundreds of MΩ/km for a few per cent of drop: such runs
-        // are drawn at the plausible bound instead (core/stages/ranges.ts), which only lowers the drop.
+        // are drawn at the plausible bound instead (core/kinds/ranges.ts), which only lowers the drop.
         el['resistancePerKm'] = Math.min(perKmOf(r), RANGES.resistancePerKm.max);
         if (port.kind !== 'dc' && sz.xr > 0) el['reactancePerKm'] = Math.min(perKmOf(r * sz.xr), RANGES.reactancePerKm.max);
         if (sz.sets !== null) el['parallelSets'] = sz.sets;
@@ -480,7 +480,7 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
       case 'source': {
         const port = n.output!;
         const r = resistanceFor(sz.drop, port.voltage, sOut) / Math.sqrt(1 + sz.xr * sz.xr);
-        // A source's R or X under 1 pΩ is refused (core/stages/spec.ts sourceOhms): such a drop
+        // A source's R or X under 1 pΩ is refused (core/kinds/spec.ts sourceOhms): such a drop
         // (fast-check reaches subnormal doubles) is an ideal source instead.
         const ohms = (v: number) => v >= 1e-12;
         if (el['kind'] === 'battery') {

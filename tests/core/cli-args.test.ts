@@ -1,12 +1,12 @@
 /**
- * The command line's parser and words (core/cli-args.ts, core/cli-summary.ts), in-process: which
+ * The command line's parser and words (core/cli/args.ts, core/cli/summary.ts), in-process: which
  * output each argument list asks for, which lists are usage errors (exit code 2), the help text
  * naming the exit codes and CSV columns, and the summary line and CSV row carrying the engine's own
  * figures. The same commands run as a user runs them in tests/tools/cli-package.test.ts.
  */
 import { describe, expect, it } from 'vitest';
-import { EXIT_REFUSED, EXIT_SOLVED, EXIT_USAGE, HELP, parseArgs } from '../../core/cli-args.ts';
-import { CSV_COLUMNS, csvField, csvHeader, csvRow, summaryLine } from '../../core/cli-summary.ts';
+import { EXIT_REFUSED, EXIT_SOLVED, EXIT_USAGE, HELP, parseArgs } from '../../core/cli/args.ts';
+import { CSV_COLUMNS, csvField, csvHeader, csvRow, summaryLine } from '../../core/cli/summary.ts';
 import { demoProjects, solveProject } from '../../core/index.ts';
 
 describe('joulepath command line: arguments', () => {
@@ -82,7 +82,7 @@ describe('joulepath command line: summary line and CSV row', () => {
       `site.json: solved: ${result.projectName}: source ${t.sourcePower.toFixed(1)} W, loads ${t.loadPower.toFixed(1)} W, losses ${t.losses.toFixed(1)} W, efficiency ${(100 * t.efficiency).toFixed(2)} %, ${result.warnings.length} warnings`,
     );
     const hut = solved(hillside!.project);
-    // 27.6667 h = 27 h 40 min, the runtime the tables print for this demo (core/battery/text-report.ts, run in tests/battery/cli.test.ts).
+    // 27.6667 h = 27 h 40 min, the runtime the tables print for this demo (core/studies/backup/text-report.ts, run in tests/battery/cli.test.ts).
     expect(summaryLine({ file: 'hut.json', ok: true, result: hut, backupRuntimeHours: 27 + 40 / 60 })).toMatch(/, backup runtime 27\.67 h$/);
     expect(summaryLine({ file: 'hut.json', ok: true, result: hut, backupRuntimeHours: 48, backupRuntimeIsLowerBound: true })).toMatch(/, backup runtime over 48\.00 h$/);
   });

@@ -13,7 +13,7 @@ import { describe, expect, it } from 'vitest';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 /** Every run has a time limit: a CLI that reads /dev/zero or waits on a FIFO is a failure, not a hang. */
-const run = (...args: string[]) => spawnSync(TSX, ['core/cli.ts', ...args], { encoding: 'utf8', timeout: 20_000 });
+const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8', timeout: 20_000 });
 const scratch = mkdtempSync(join(tmpdir(), 'joulepath-cli-input-'));
 
 const project = (elements: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project', version: 1, name: 'hostile', elements, ...extra });
@@ -72,7 +72,7 @@ describe('CLI input files', () => {
   }, 30_000);
 
   it('refuses a directory, /dev/zero and a FIFO at once, in one line', () => {
-    // A folder stands for its *.json files (joulepath solve <folder>, core/cli.ts expandFolders): one
+    // A folder stands for its *.json files (joulepath solve <folder>, core/cli/cli.ts expandFolders): one
     // holding none is refused in one line, on its summary line and on stderr; a folder named *.json
     // inside it is not a regular file.
     const dir = join(scratch, 'a-directory.json');
@@ -110,7 +110,7 @@ describe('CLI input files', () => {
     };
     const err = refused(run(write('cold.json', project([mains, cable, { ...heater, from: 'run' }]))));
     expect(err).not.toMatch(/settle|NaN/);
-    // Absolute zero is −273.15 °C (ISO 80000-5); the plausible range is the table's (core/stages/ranges.ts).
+    // Absolute zero is −273.15 °C (ISO 80000-5); the plausible range is the table's (core/kinds/ranges.ts).
     expect(err).toMatch(/element "run", field "conductor\.ambient": .*°C/);
     expect(err).toMatch(/−80 °C/);
   }, 30_000);
@@ -125,7 +125,7 @@ describe('CLI input files', () => {
     const demo = JSON.parse(readFileSync('core/demos/riverside-pump-station.json', 'utf8'));
     demo.flowStudy.duty[1].flow = 0;
     const err = refused(run(write('zero-flow.json', demo)));
-    // The pump element's own words for flow 0 (core/stages/pump.ts): "must be greater than 0 m³/s".
+    // The pump element's own words for flow 0 (core/kinds/pump.ts): "must be greater than 0 m³/s".
     expect(err).toMatch(/project, field "flowStudy\.duty\.1\.flow": must be greater than 0 m³\/s/);
   }, 30_000);
 

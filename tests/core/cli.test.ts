@@ -1,5 +1,5 @@
 /**
- * The command-line solver as a user runs it: `tsx core/cli.ts <file> [--json]`.
+ * The command-line solver as a user runs it: `tsx core/cli/cli.ts <file> [--json]`.
  * Checks exit codes, that the tables and the JSON carry the engine's own figures, and that bad input
  * gives one line per problem naming element and field.
  */
@@ -11,7 +11,7 @@ import { describe, expect, it } from 'vitest';
 import { demoProjects, pumpDetails, projectFlowStudy, solveProject, studySurges, validateProject } from '../../core/index.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
-const run = (...args: string[]) => spawnSync(TSX, ['core/cli.ts', ...args], { encoding: 'utf8' });
+const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
 const scratch = mkdtempSync(join(tmpdir(), 'joulepath-cli-'));
 
 describe('command-line solver', () => {
@@ -31,20 +31,20 @@ describe('command-line solver', () => {
   }
 
   it('--json prints the full result, identical to the engine called directly (plus the pump and surge sections)', () => {
-    const out = execFileSync(TSX, ['core/cli.ts', 'core/demos/riverside-pump-station.json', '--json'], { encoding: 'utf8' });
+    const out = execFileSync(TSX, ['core/cli/cli.ts', 'core/demos/riverside-pump-station.json', '--json'], { encoding: 'utf8' });
     const demo = demoProjects[1]!.project;
     const outcome = solveProject(demo);
     expect(outcome.ok).toBe(true);
     if (!outcome.ok) return;
     const { pumps, flowStudy, surgeStudy, ...result } = JSON.parse(out);
     expect(result).toEqual(JSON.parse(JSON.stringify(outcome.result)));
-    // The demo has a pump and a flowStudy: both sections come from core/machines, run in-process here.
+    // The demo has a pump and a flowStudy: both sections come from core/studies/machines, run in-process here.
     const study = projectFlowStudy(demo);
     expect(study.ok).toBe(true);
     if (study.ok) expect(flowStudy).toEqual(JSON.parse(JSON.stringify(study.result)));
     const valid = validateProject(demo);
     if (valid.ok) expect(pumps).toEqual(JSON.parse(JSON.stringify(pumpDetails(valid.project))));
-    // The demo carries starting and device data: the surge study comes from core/surge, run in-process here.
+    // The demo carries starting and device data: the surge study comes from core/studies/surge, run in-process here.
     const surges = studySurges(demo);
     expect(surges.ok).toBe(true);
     if (surges.ok) expect(surgeStudy).toEqual(JSON.parse(JSON.stringify(surges.result)));
@@ -106,7 +106,7 @@ describe('command-line solver', () => {
     expect(missing.status).toBe(1);
     expect(missing.stderr).toMatch(/cannot read/);
     const usage = run();
-    expect(usage.status).toBe(2); // usage error (core/cli-args.ts EXIT_USAGE)
+    expect(usage.status).toBe(2); // usage error (core/cli/args.ts EXIT_USAGE)
     expect(usage.stderr).toMatch(/^joulepath: no project file given\nusage: joulepath solve/);
   }, 30_000);
 });

@@ -1,6 +1,6 @@
 /**
- * The engine's phasor arithmetic (core/ac/complex.ts) and its exact two-bus link solution
- * (core/ac/two-bus.ts), checked against outside references:
+ * The engine's phasor arithmetic (core/physics/complex.ts) and its exact two-bus link solution
+ * (core/physics/two-bus.ts), checked against outside references:
  * - complex.js (the npm library, an independent implementation) for every operation, over random
  *   inputs from fast-check, to a relative tolerance of 1e-12 of the result's magnitude;
  * - the closed form of the DC constant-power link quadratic, V_r = (V_s + √(V_s² − 4RP))/2
@@ -14,8 +14,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import Complex from 'complex.js';
-import { add, sub, mul, div, conj, abs, arg, polar, type Complex as EngineComplex } from '../../core/ac/complex.ts';
-import { receivingVoltage } from '../../core/ac/two-bus.ts';
+import { add, sub, mul, div, conj, abs, arg, polar, type Complex as EngineComplex } from '../../core/physics/complex.ts';
+import { receivingVoltage } from '../../core/physics/two-bus.ts';
 
 const REL = 1e-12;
 const RUNS = 2000;
@@ -40,7 +40,7 @@ function expectClose(got: EngineComplex, want: Complex, scale: number, rel = REL
   expect(err, `got ${got.re}+j${got.im}, complex.js ${want.re}+j${want.im}`).toBeLessThanOrEqual(rel * Math.max(scale, 1e-300));
 }
 
-describe('core/ac/complex.ts against complex.js (fast-check, relative tolerance 1e-12)', () => {
+describe('core/physics/complex.ts against complex.js (fast-check, relative tolerance 1e-12)', () => {
   it('add', () => {
     fc.assert(
       fc.property(complexArb, complexArb, (a, b) => {
@@ -137,7 +137,7 @@ describe('core/ac/complex.ts against complex.js (fast-check, relative tolerance 
   });
 });
 
-describe('core/ac/two-bus.ts receivingVoltage', () => {
+describe('core/physics/two-bus.ts receivingVoltage', () => {
   it('(a) DC constant-power link equals the closed form of the quadratic V_r = (V_s + √(V_s² − 4RP))/2', () => {
     // Hand derivation (Ohm's law): V_s = V_r + R·I, I = P/V_r ⇒ V_r² − V_s·V_r + R·P = 0; the larger root
     // is the operating point.

@@ -1,4 +1,4 @@
-// Yearly cost of losses (core/economics.ts): E = P × t, cost = E (kWh) × price. Check values are
+// Yearly cost of losses (core/studies/economics.ts): E = P × t, cost = E (kWh) × price. Check values are
 // hand-worked below each case (common practice (no source): the definition of the kWh, 1 kWh =
 // 1000 W × 1 h, and of a tariff per kWh).
 import { describe, expect, it } from 'vitest';
@@ -10,9 +10,9 @@ import {
   HOURS_IN_YEAR,
   lossCostPerYear,
   MAX_HOURS_PER_YEAR,
-} from '../../core/economics.ts';
+} from '../../core/studies/economics.ts';
 import { demoProjects, solveProject } from '../../core/index.ts';
-import type { ElementResult, SolveResult } from '../../core/result.ts';
+import type { ElementResult, SolveResult } from '../../core/model/result.ts';
 
 function element(id: string, role: ElementResult['role'], kind: ElementResult['kind'], pIn: number, pOut: number): ElementResult {
   return { id, name: id.toUpperCase(), kind, role, feeds: [], pIn, pOut, loss: pIn - pOut, efficiency: pIn > 0 ? pOut / pIn : 1 };

@@ -16,10 +16,10 @@ import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
 import { plan } from '../../core/solve/plan.ts';
 import { sweep } from '../../core/solve/sweep.ts';
-import { c } from '../../core/ac/complex.ts';
+import { c } from '../../core/physics/complex.ts';
 import { elementNames, fieldWords, findNonFinite, nonFiniteProblems } from '../../core/solve/finite.ts';
-import { fitConditioning, fitLossPolynomial } from '../../core/stages/loss-model.ts';
-import { MAX_FIT_CONDITION } from '../../core/stages/spec.ts';
+import { fitConditioning, fitLossPolynomial } from '../../core/physics/loss-model.ts';
+import { MAX_FIT_CONDITION } from '../../core/kinds/spec.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const scratch = mkdtempSync(join(tmpdir(), 'joulepath-finite-'));
@@ -168,7 +168,7 @@ describe('the final guard walks the whole result', () => {
     expect(found[0]).toMatchObject({ elementId: 'deep', elementName: 'Deep', path: ['value'] });
   });
 
-  it('a load of 1e308 W is refused at its field with the plausible range (core/stages/ranges.ts), before any sweep', () => {
+  it('a load of 1e308 W is refused at its field with the plausible range (core/kinds/ranges.ts), before any sweep', () => {
     const o = solveProject(project(supply, { id: 'ld', name: 'Furnace', kind: 'ac-load', from: 'src', power: 1e308, powerFactor: 0.5 }));
     if (o.ok) throw new Error('solved, expected a refusal');
     expect(o.problems.map((p) => [p.code, p.elementId, p.field])).toEqual([['invalid-value', 'ld', 'power']]);
@@ -205,7 +205,7 @@ describe('the CLI exits non-zero on each of them, naming element and field', () 
     it(name, () => {
       const file = join(scratch, `${name}.json`);
       writeFileSync(file, JSON.stringify(input));
-      const r = spawnSync(TSX, ['core/cli.ts', file], { encoding: 'utf8' });
+      const r = spawnSync(TSX, ['core/cli/cli.ts', file], { encoding: 'utf8' });
       expect(r.status).toBe(1);
       expect(r.stdout).toBe('');
       expect(r.stderr).toContain(`field "${field}"`);

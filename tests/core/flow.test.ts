@@ -1,5 +1,5 @@
 /**
- * The energy-flow graph (core/flow.ts): a hand-worked chain whose every figure follows from the
+ * The energy-flow graph (core/studies/energy-flow.ts): a hand-worked chain whose every figure follows from the
  * element parameters, and the three demo projects (conservation at every node, one loss branch per
  * source and stage, link values equal to the engine's P_in and loss).
  */

@@ -3,15 +3,15 @@
  * itself get a plain message, and no bad value anywhere in an element or the project settings comes
  * back with zod's own wording ("Invalid input", "expected …, received …") or an empty message.
  * Expected messages are the engine's own wording (no outside source); the rule "a nested group must
- * be an object, a list must be a list" is the project file format of core/model.ts.
+ * be an object, a list must be a list" is the project file format of core/model/project.ts.
  */
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod/mini';
 import { KINDS, validateProject, type Problem } from '../../core/index.ts';
 import { issueMessage } from '../../core/solve/issue-messages.ts';
-import { backupSchema } from '../../core/battery/profile.ts';
+import { backupSchema } from '../../core/solve/load-profile.ts';
 import { dropLimitsSchema } from '../../core/conductors/path-drop.ts';
-import { flowStudySchema } from '../../core/stages/pump.ts';
+import { flowStudySchema } from '../../core/kinds/pump.ts';
 
 type Json = Record<string, unknown>;
 
@@ -27,7 +27,7 @@ const bank: Json = { id: 'bank', kind: 'battery', voltage: 48, internalResistanc
 
 describe('messages for issues a schema does not word itself', () => {
   it('a nested group given something else: "must be an object", saying what was given', () => {
-    // The engine's own wording (no source): an inverter's surge rating is a group of fields (core/model.ts).
+    // The engine's own wording (no source): an inverter's surge rating is a group of fields (core/model/project.ts).
     const inverter = (surge: unknown) => ({ ...dcdc(), id: 'inv', kind: 'inverter', phases: 1, outputVoltage: 230, frequency: 50, surge });
     expect(at(project({}, [bank, inverter(3)]), 'surge')).toBe('must be an object ({ … }), not the number 3');
     expect(at(project({}, [bank, inverter([])]), 'surge')).toBe('must be an object ({ … }), not a list');
@@ -37,7 +37,7 @@ describe('messages for issues a schema does not word itself', () => {
   });
 
   it('a list given something else: "must be a list"', () => {
-    // The engine's own wording (no source): a motor power-factor curve is a list of points (core/model.ts).
+    // The engine's own wording (no source): a motor power-factor curve is a list of points (core/model/project.ts).
     const motor = {
       id: 'm',
       kind: 'motor',
@@ -57,7 +57,7 @@ describe('messages for issues a schema does not word itself', () => {
   });
 
   it('fields that word their own messages keep them', () => {
-    // Unchanged wording of core/stages/spec.ts and core/surge/schema.ts (no source).
+    // Unchanged wording of core/kinds/spec.ts and core/kinds/starting-fields.ts (no source).
     expect(at(project({}, [bank, dcdc({ outputVoltage: 'x' })]), 'outputVoltage')).toBe('must be a number');
     expect(at(project({}, [bank, dcdc({ outputVoltage: 0 })]), 'outputVoltage')).toBe('must be greater than 0 V');
     expect(at(project({}, [bank, dcdc({ loss: { model: 'constant', efficiency: 1.2 } })]), 'loss.efficiency')).toBe(

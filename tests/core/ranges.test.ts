@@ -3,10 +3,10 @@
  *
  * - Every number field of every kind (each kind below is given with all its optional fields) refuses
  *   1e300 at that very field, and the quantities of the range table name their plausible range with
- *   the unit (core/stages/ranges.ts); a value at the bound passes.
+ *   the unit (core/kinds/ranges.ts); a value at the bound passes.
  * - A link that cannot carry its load is named itself, not the source or feeder above it, also when
  *   its impedance is huge (a 100 km run of thin wire): the loss a link cannot have no longer reaches
- *   the elements upstream (seriesLink, core/stages/spec.ts).
+ *   the elements upstream (seriesLink, core/kinds/spec.ts).
  *
  * The bounds are common practice (no source): generous limits, see the table's comments.
  */
@@ -15,7 +15,7 @@ import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
 import { problemsForField, type DraftProject } from '../../web/state/editor.ts';
-import { ABSOLUTE_ZERO_C, RANGES, boundText, rangeText, type Quantity } from '../../core/stages/ranges.ts';
+import { ABSOLUTE_ZERO_C, RANGES, boundText, rangeText, type Quantity } from '../../core/kinds/ranges.ts';
 
 type Json = Record<string, unknown>;
 const project = (elements: unknown[], extra: Json = {}) => ({ format: 'joulepath-project', version: 1, name: 'ranges', elements, ...extra });

@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { demoProjects, solveProject, validateProject, type Element, type Project } from '../../core/index.ts';
-import { simulateDischarge } from '../../core/battery/discharge.ts';
+import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { RESERVED_IDS } from '../../core/solve/structure.ts';
 import { fieldWords } from '../../core/solve/finite.ts';
 

@@ -14,8 +14,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { solveProject, validateProject, type Element, type Project, type SolveResult } from '../../core/index.ts';
-import { flowGraph } from '../../core/flow.ts';
-import { studySurges } from '../../core/surge/index.ts';
+import { flowGraph } from '../../core/studies/energy-flow.ts';
+import { studySurges } from '../../core/studies/surge/index.ts';
 import { deepCables, deepConverters, deepSized, loop, tree, wide } from '../bench/chains.ts';
 
 /** Generous per-test limit: the machine is shared; this is no timing assertion, only a guard against a hang. */
@@ -45,7 +45,7 @@ describe('deep series chains', () => {
       const one = solved(base);
       expectRelative(loadOf(r).input!.voltage, loadOf(one).input!.voltage);
       expectRelative(r.totals.losses, one.totals.losses);
-      // The diagram's graph of it conserves power at every node (core/flow.ts contract).
+      // The diagram's graph of it conserves power at every node (core/studies/energy-flow.ts contract).
       expect(flowGraph(r).conservationError).toBeLessThan(1e-9);
     },
     LONG,

@@ -5,8 +5,8 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
-import { studySurges } from '../../core/surge/index.ts';
-import { runBackupStudy } from '../../core/battery/study.ts';
+import { studySurges } from '../../core/studies/surge/index.ts';
+import { runBackupStudy } from '../../core/studies/backup/study.ts';
 
 type Json = Record<string, unknown>;
 const project = (elements: unknown[]) => ({ format: 'joulepath-project', version: 1, name: 'hostile', elements });
@@ -56,7 +56,7 @@ describe('hostile-input counterexamples', () => {
     (motor['powerFactor'] as { points: { powerFactor: number }[] }).points[3]!.powerFactor = 5e-324;
     const o = solveProject(demo);
     expect(o.ok).toBe(false);
-    // 0.001: the range table's smallest power factor (core/stages/ranges.ts; common practice, no source).
+    // 0.001: the range table's smallest power factor (core/kinds/ranges.ts; common practice, no source).
     if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'motor', field: 'powerFactor.points.3.powerFactor', message: expect.stringContaining('must be at least 0.001') }]);
     (motor['powerFactor'] as { points: { powerFactor: number }[] }).points[3]!.powerFactor = 0.001;
     const surges = studySurges(demo);
@@ -69,7 +69,7 @@ describe('hostile-input counterexamples', () => {
     bank['overrides'] = { maxChargeCRate: 5e-324 };
     const o = runBackupStudy(demo);
     expect(o.ok).toBe(false);
-    // C/1000: the range table's slowest rate (core/stages/ranges.ts; common practice, no source).
+    // C/1000: the range table's slowest rate (core/kinds/ranges.ts; common practice, no source).
     if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'bank', field: 'bank.overrides.maxChargeCRate', message: expect.stringContaining('must be at least 0.001 per hour') }]);
   });
 

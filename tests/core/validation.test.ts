@@ -1,7 +1,7 @@
 /**
  * Validation: every bad value gives a problem naming the element id, the field path and a readable
  * message, and nothing is computed. Each bad value is checked against the rule documented in
- * core/model.ts (quoted beside the case) or a plain physical fact (noted beside it).
+ * core/model/project.ts (quoted beside the case) or a plain physical fact (noted beside it).
  */
 import { describe, expect, it } from 'vitest';
 import { formatProblem, solveProject, type Problem, type ProblemCode } from '../../core/index.ts';
@@ -100,7 +100,7 @@ describe('the fixture', () => {
 });
 
 describe('bad field values', () => {
-  // model.ts: "Efficiency at that point, 0.01 ≤ η ≤ 1": below 1 % refused (core/stages/spec.ts
+  // model.ts: "Efficiency at that point, 0.01 ≤ η ≤ 1": below 1 % refused (core/kinds/spec.ts
   // MIN_EFFICIENCY: the loss P_out·(1/η − 1) overflows at 1e-300; common practice, no source).
   it.each([
     [0, /at least 1 %/],

@@ -1,5 +1,5 @@
 /**
- * The command-line hook of core/machines: `--machines` prints motor and drive details (and refuses a
+ * The command-line hook of core/studies/machines: `--machines` prints motor and drive details (and refuses a
  * motor beyond its service factor), `--flow <study.json>` the flow-control comparison; with --json
  * they appear under `machines` and `flowStudy`, equal to the engine called directly.
  */
@@ -11,7 +11,7 @@ import { describe, expect, it } from 'vitest';
 import { compareFlowControl, solveWithMachines, type FlowStudyInput } from '../../core/index.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
-const run = (...args: string[]) => spawnSync(TSX, ['core/cli.ts', ...args], { encoding: 'utf8' });
+const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
 const scratch = mkdtempSync(join(tmpdir(), 'joulepath-machines-'));
 
 // Invented scenario: a 10 hp NEMA Premium pump motor on a drive at 48 Hz.
@@ -81,7 +81,7 @@ describe('CLI --machines and --flow', () => {
 
   it('--flow without a file is a usage error', () => {
     const r = run(write('p4.json', project(4000)), '--flow');
-    expect(r.status).toBe(2); // usage error (core/cli-args.ts EXIT_USAGE)
+    expect(r.status).toBe(2); // usage error (core/cli/args.ts EXIT_USAGE)
     expect(r.stderr).toContain('--flow needs the pump study file');
   }, 30_000);
 });

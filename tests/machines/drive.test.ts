@@ -5,9 +5,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/index.ts';
-import { driveLossAt, driveLossAtPoint, driveLossGrid, machineDetails, truePowerFactor } from '../../core/machines/index.ts';
+import { driveLossAt, driveLossAtPoint, driveLossGrid, machineDetails, truePowerFactor } from '../../core/studies/machines/index.ts';
 import { STANDARD_POINTS } from '../../core/data/iec-61800-9-2.ts';
-import type { DriveStandardLoss, Project } from '../../core/model.ts';
+import type { DriveStandardLoss, Project } from '../../core/model/project.ts';
 
 // Maker-style losses at the eight points, W (invented for the test; CDM basis).
 const EIGHT = [90, 110, 170, 100, 130, 200, 150, 240];

@@ -3,7 +3,7 @@
  * duty profile, the static-head effect, and refusals naming the field.
  */
 import { describe, expect, it } from 'vitest';
-import { compareFlowControl, STANDARD_GRAVITY, type FlowStudyInput } from '../../core/machines/index.ts';
+import { compareFlowControl, STANDARD_GRAVITY, type FlowStudyInput } from '../../core/studies/machines/index.ts';
 
 const G = STANDARD_GRAVITY; // 9.80665 m/s², standard gravity (3rd CGPM 1901)
 // Design point: 0.1 m³/s at 20 m, pump efficiency 0.8 → shaft = ρgQH/η = 1000·g·0.1·20/0.8.

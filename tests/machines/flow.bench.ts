@@ -1,6 +1,6 @@
 /** Speed of the flow-control comparison and of one drive-loss lookup (vitest bench; never asserted). */
 import { bench, describe } from 'vitest';
-import { compareFlowControl, driveLossAt, driveLossGrid, type FlowStudyInput } from '../../core/machines/index.ts';
+import { compareFlowControl, driveLossAt, driveLossGrid, type FlowStudyInput } from '../../core/studies/machines/index.ts';
 
 // Invented scenario: a 22 kW river-intake pump over a year of twelve flow bands.
 const study: FlowStudyInput = {

@@ -1,10 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
-import { compareFlowControl, type FlowStudyInput } from '../../core/machines/flow-control.ts';
-import { projectFlowStudy, pumpDetails } from '../../core/machines/project-flow.ts';
-import { pumpOperatingPoint } from '../../core/stages/pump.ts';
-import type { Project, PumpLoad } from '../../core/model.ts';
+import { compareFlowControl, type FlowStudyInput } from '../../core/physics/pump-fan.ts';
+import { projectFlowStudy, pumpDetails } from '../../core/studies/machines/pump-duty.ts';
+import { pumpOperatingPoint } from '../../core/kinds/pump.ts';
+import type { Project, PumpLoad } from '../../core/model/project.ts';
 
 // Invented pump: Q_r = 0.05 m³/s, H_r = 30 m, H0 = 40 m, H_s = 10 m, η = 0.75, water.
 const pumpBase = { id: 'pump', kind: 'pump', from: 'motor', ratedFlow: 0.05, ratedHead: 30, shutoffHead: 40, efficiency: 0.75, staticHead: 10, flow: 0.04 } as const;

@@ -5,8 +5,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/index.ts';
-import { classEfficiency, machineDetails, necFullLoadCurrent, partLoadRatios, solveWithMachines } from '../../core/machines/index.ts';
-import type { Project } from '../../core/model.ts';
+import { classEfficiency, machineDetails, necFullLoadCurrent, partLoadRatios, solveWithMachines } from '../../core/studies/machines/index.ts';
+import type { Project } from '../../core/model/project.ts';
 
 const SQRT3 = Math.sqrt(3);
 

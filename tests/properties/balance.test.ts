@@ -267,7 +267,7 @@ describe('port consistency', () => {
     // Series element laws: Kirchhoff's current law (one current through a series impedance),
     // Ohm's law for the phasor drop, Joule's law for the loss. Z per phase: the loop (2 × length)
     // on DC and single-phase, one conductor on three-phase, divided by the parallel sets
-    // (the model documented in core/model.ts).
+    // (the model documented in core/model/project.ts).
     const t = tally();
     let cables = 0;
     fc.assert(

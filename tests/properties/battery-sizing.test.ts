@@ -1,5 +1,5 @@
 /**
- * Property tests of bank sizing and recharge (core/battery/sizing.ts, recharge.ts) over random duty
+ * Property tests of bank sizing and recharge (core/studies/backup/sizing.ts, recharge.ts) over random duty
  * cycles, chemistries and chargers.
  *
  * Why these hold (the reasoning the properties check):
@@ -14,8 +14,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { sizeBank, type BankSizing, type CurrentPeriod, type SizingInput } from '../../core/battery/sizing.ts';
-import { CHARGE_PROFILES, chargerForTargetTime, rechargeTime, type RechargeInput } from '../../core/battery/recharge.ts';
+import { sizeBank, type BankSizing, type CurrentPeriod, type SizingInput } from '../../core/studies/backup/sizing.ts';
+import { CHARGE_PROFILES, chargerForTargetTime, rechargeTime, type RechargeInput } from '../../core/studies/backup/recharge.ts';
 import type { Chemistry } from '../../core/data/battery-chemistries.ts';
 
 /** Multiply every numRuns by JP_FC_SCALE (default 1) for a longer hunt. */

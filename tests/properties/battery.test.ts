@@ -9,7 +9,7 @@ import fc from 'fast-check';
 import type { Project } from '../../core/index.ts';
 import type { Chemistry } from '../../core/data/battery-chemistries.ts';
 import { CHEMISTRIES } from '../../core/data/battery-chemistries.ts';
-import { simulateDischarge, type DischargeResult } from '../../core/battery/discharge.ts';
+import { simulateDischarge, type DischargeResult } from '../../core/studies/backup/discharge.ts';
 
 const RUNS = Number(process.env['JP_FC_RUNS'] ?? 40);
 

@@ -10,9 +10,9 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { solveProject, type Project } from '../../core/index.ts';
-import { RANGES } from '../../core/stages/ranges.ts';
+import { RANGES } from '../../core/kinds/ranges.ts';
 
-/** Loads beyond the plausible ranges (1 GW, 1 MA: core/stages/ranges.ts) are refused at their own field, before any law applies. */
+/** Loads beyond the plausible ranges (1 GW, 1 MA: core/kinds/ranges.ts) are refused at their own field, before any law applies. */
 const plausible = (watts: number, amps = 0) => watts <= RANGES.power.max && amps <= RANGES.current.max;
 
 type Kind = 'dc' | 'ac1' | 'ac3';

@@ -12,7 +12,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { flowGraph, lossCostPerYear, solveProject, studySurges } from '../../core/index.ts';
-import { machineSections } from '../../core/machines/cli-flags.ts';
+import { machineSections } from '../../core/cli/machines-flags.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
 
@@ -22,7 +22,7 @@ const runs = (n: number) => ({ numRuns: n * SCALE });
 
 /**
  * A positive double anywhere from 1e-300 to 1e300 (log-uniform), or an ordinary one. Ordinary values
- * weigh 4 to 1: most extreme values are now refused at their field (core/stages/ranges.ts), and a
+ * weigh 4 to 1: most extreme values are now refused at their field (core/kinds/ranges.ts), and a
  * chain solves only when all its figures are in range, so with even odds too few cases reached the
  * solve (about 1 in 100; none at all in 400 runs now and then).
  */

@@ -25,12 +25,12 @@ import { afterAll, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { solveProject } from '../../core/solve/index.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
-import { runBackupStudy } from '../../core/battery/study.ts';
-import { hasSurgeInputs, studySurges } from '../../core/surge/index.ts';
-import { projectFlowStudy } from '../../core/machines/project-flow.ts';
-import type { Problem } from '../../core/errors.ts';
+import { runBackupStudy } from '../../core/studies/backup/study.ts';
+import { hasSurgeInputs, studySurges } from '../../core/studies/surge/index.ts';
+import { projectFlowStudy } from '../../core/studies/machines/pump-duty.ts';
+import type { Problem } from '../../core/model/errors.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
-import { RANGES } from '../../core/stages/ranges.ts';
+import { RANGES } from '../../core/kinds/ranges.ts';
 
 /** Multiply every numRuns by JP_FC_SCALE (default 1) for a longer hunt, e.g. JP_FC_SCALE=20. */
 const SCALE = Math.max(1, Number(process.env['JP_FC_SCALE'] ?? '1') || 1);
@@ -82,7 +82,7 @@ const hostileNumber: fc.Arbitrary<number> = fc.oneof(
 );
 
 /**
- * Numbers at the edges of the plausible ranges (core/stages/ranges.ts): they pass the field checks,
+ * Numbers at the edges of the plausible ranges (core/kinds/ranges.ts): they pass the field checks,
  * so they reach the solve and the studies (a 1 MV source, a 1 GW load, a 100 km run, 0.1 Hz …).
  */
 const edgeNumber: fc.Arbitrary<number> = fc

@@ -15,8 +15,8 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { flowGraph, lossNodeId, lossParts, solveProject, type Element, type ElementResult, type LossModel, type Project } from '../../core/index.ts';
-import { driveLossAt, driveLossGrid } from '../../core/machines/drive-loss.ts';
-import { driveSpeedFraction } from '../../core/stages/drive.ts';
+import { driveLossAt, driveLossGrid } from '../../core/physics/drive-loss.ts';
+import { driveSpeedFraction } from '../../core/kinds/drive.ts';
 import { projectArb, scaleLoads } from '../core/arbitraries.ts';
 
 const SCALE = Math.max(1, Number(process.env['JP_FC_SCALE'] ?? '1') || 1);

@@ -11,7 +11,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { compareFlowControl, driveLossAt, driveLossGrid, type FlowStudyInput } from '../../core/machines/index.ts';
+import { compareFlowControl, driveLossAt, driveLossGrid, type FlowStudyInput } from '../../core/studies/machines/index.ts';
 
 const uniform = (lo: number, hi: number) => fc.double({ min: lo, max: hi, noNaN: true });
 

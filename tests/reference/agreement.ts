@@ -3,7 +3,7 @@
  * tolerances the issue sets (0.1 % relative, 0.01° in angle), the worst kept for the summary.
  */
 import { afterAll, expect } from 'vitest';
-import type { Project } from '../../core/model.ts';
+import type { Project } from '../../core/model/project.ts';
 
 /** Relative tolerance of the reference checks: 0.1 %. */
 export const REL_TOL = 1e-3;

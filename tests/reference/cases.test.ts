@@ -15,7 +15,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/index.ts';
 
-const CASES_DIR = fileURLToPath(new URL('./cases/', import.meta.url));
+const CASES_DIR = fileURLToPath(new URL('./cases', import.meta.url));
 
 interface Expectation {
   path: string;

@@ -336,7 +336,7 @@ describe('engine AC solve against ngspice', () => {
     const rc = (rkm * len) / 1000;
     const xc = (xkm * len) / 1000;
     const n = tx.vs / tx.vp;
-    // Transformer, as the engine documents its model (core/model.ts, TransformerStage): an ideal ratio
+    // Transformer, as the engine documents its model (core/model/project.ts, TransformerStage): an ideal ratio
     // n = V_sec/V_pri, then the short-circuit impedance referred to the secondary on the base
     // Z_b = V_sec,LL²/S_rated with R% = 100·P_load/S_rated and X% = √(Z%² − R%²) (the usual
     // percent-impedance relations, e.g. any transformer handbook), per phase of a star equivalent.

@@ -1,6 +1,6 @@
 /**
  * Phasor arithmetic for the reference tests, written on the test side on purpose: the checks
- * against ngspice must not lean on the engine's own core/ac/complex.ts.
+ * against ngspice must not lean on the engine's own core/physics/complex.ts.
  */
 import type { Phasor } from './ngspice.ts';
 

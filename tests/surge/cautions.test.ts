@@ -4,9 +4,9 @@
  */
 import { describe, expect, it } from 'vitest';
 import { demoProjects } from '../../core/demos/index.ts';
-import type { Project } from '../../core/model.ts';
-import { PLANNING_CAUTION } from '../../core/battery/cautions.ts';
-import { ARC_FLASH_CAUTION, DC_ARC_CAUTION, ESTIMATE_CAUTION, surgeCautions } from '../../core/surge/cautions.ts';
+import type { Project } from '../../core/model/project.ts';
+import { PLANNING_CAUTION } from '../../core/studies/backup/cautions.ts';
+import { ARC_FLASH_CAUTION, DC_ARC_CAUTION, ESTIMATE_CAUTION, surgeCautions } from '../../core/studies/surge/cautions.ts';
 
 const demo = (id: string) => demoProjects.find((d) => d.id === id)!.project as unknown as Project;
 

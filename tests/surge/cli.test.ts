@@ -18,7 +18,7 @@ const write = (name: string, data: unknown): string => {
   writeFileSync(f, JSON.stringify(data));
   return f;
 };
-const run = (args: string[]): string => execFileSync(TSX, ['core/cli.ts', ...args], { encoding: 'utf8' });
+const run = (args: string[]): string => execFileSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
 
 describe('command-line surge and fault study', () => {
   it('prints each verdict with its reason: starts, marginal, will not start', () => {

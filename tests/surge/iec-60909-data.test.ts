@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { IEC_60909_VOLTAGE_FACTORS, KT_NUMERATOR, KT_XT_COEFFICIENT } from '../../core/data/iec-60909.ts';
-import { voltageFactor } from '../../core/surge/faults.ts';
+import { voltageFactor } from '../../core/studies/surge/faults.ts';
 
 describe('IEC 60909-0 voltage factor c (Table 1)', () => {
   it('low voltage, 6 % tolerance: c_max 1.05, c_min 0.95 (IEC 60909-0:2016 Table 1; pandapower docs)', () => {

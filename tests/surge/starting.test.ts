@@ -5,8 +5,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { solveProject, studySurges, type MotorStartResult } from '../../core/index.ts';
-import { startingFigures } from '../../core/surge/starting.ts';
-import type { MotorStage } from '../../core/model.ts';
+import { startingFigures } from '../../core/studies/surge/starting.ts';
+import type { MotorStage } from '../../core/model/project.ts';
 import { dolOnCable, project, pumpOnInverter, transformerFed, weakGrid } from './fixtures.ts';
 
 const SQRT3 = Math.sqrt(3);

@@ -1,7 +1,7 @@
 /**
  * The trap warnings: each fires on the pattern that reveals the mistake, says why and what to
  * check, and stays quiet on the corrected input. Thresholds are this app's rules (common practice,
- * no source), documented in core/surge/traps.ts.
+ * no source), documented in core/studies/surge/traps.ts.
  */
 import { describe, expect, it } from 'vitest';
 import { demoProjects, studySurges } from '../../core/index.ts';

@@ -13,7 +13,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { demoProjects, solveProject } from '../../core/index.ts';
-import { CSV_COLUMNS } from '../../core/cli-summary.ts';
+import { CSV_COLUMNS } from '../../core/cli/summary.ts';
 
 const work = mkdtempSync(join(tmpdir(), 'joulepath-pack-'));
 let pkgDir = '';

@@ -8,6 +8,6 @@ const needed = ['vite', 'preact', '@preact/signals', '@preact/preset-vite'];
 const absent = needed.filter((name) => !existsSync(new URL(`../../node_modules/${name}/package.json`, import.meta.url)));
 if (absent.length > 0) {
   console.log(`Installing npm packages (missing: ${absent.join(', ')})…`);
-  const r = spawnSync('npm', ['ci'], { stdio: 'inherit', cwd: new URL('../../', import.meta.url) });
+  const r = spawnSync('npm', ['ci'], { stdio: 'inherit', cwd: new URL('../..', import.meta.url) });
   process.exit(r.status ?? 1);
 }

@@ -2,7 +2,7 @@
 // `npm run schema`): up to date, and read by a general-purpose validator (Ajv, draft-07) the way the
 // engine reads the files — every demo and an export pass, broken projects fail at the field the
 // engine names. `$schema` is accepted by the engine, the page's import and the command-line solver.
-// The bounds checked are the table of core/stages/ranges.ts (common practice, no source) and the
+// The bounds checked are the table of core/kinds/ranges.ts (common practice, no source) and the
 // file format's own rules (our format: no outside source).
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
@@ -10,7 +10,7 @@ import { spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
 import { Ajv, type ValidateFunction } from 'ajv';
 import { demoProjects, solveProject, validateProject } from '../../core/index.ts';
-import { KINDS } from '../../core/stages/index.ts';
+import { KINDS } from '../../core/kinds/index.ts';
 import type { DraftProject } from '../../web/state/editor.ts';
 import { EXPORT_SCHEMA, buildExport, exportText, parseImportText } from '../../web/storage/file-format.ts';
 import { schemaFiles } from './json-schema-files.ts';
@@ -100,7 +100,7 @@ describe('the published JSON Schema', () => {
 });
 
 describe('the circuit network of a network-load', () => {
-  // Networks of our own invention; parseNetwork (core/ac/network.ts) is the engine's reading.
+  // Networks of our own invention; parseNetwork (core/physics/network.ts) is the engine's reading.
   const withNetwork = (network: unknown) => ({
     format: 'joulepath-project',
     version: 1,
@@ -156,7 +156,7 @@ describe('$schema in a project file', () => {
   });
 
   it('is accepted by the command-line solver', () => {
-    const run = spawnSync(join('node_modules', '.bin', 'tsx'), ['core/cli.ts', 'core/demos/hillside-relay-hut.json'], { encoding: 'utf8', cwd: ROOT });
+    const run = spawnSync(join('node_modules', '.bin', 'tsx'), ['core/cli/cli.ts', 'core/demos/hillside-relay-hut.json'], { encoding: 'utf8', cwd: ROOT });
     expect(run.stderr).toBe('');
     expect(run.status).toBe(0);
   });

@@ -24,29 +24,29 @@ import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { demoProjects } from '../../core/demos/index.ts';
 import { solveProject } from '../../core/solve/index.ts';
-import { formatResult } from '../../core/text-report.ts';
-import { KINDS } from '../../core/stages/index.ts';
-import { backupSchema } from '../../core/battery/profile.ts';
+import { formatResult } from '../../core/cli/text-report.ts';
+import { KINDS } from '../../core/kinds/index.ts';
+import { backupSchema } from '../../core/solve/load-profile.ts';
 import { dropLimitsSchema } from '../../core/conductors/path-drop.ts';
-import { flowStudySchema } from '../../core/stages/pump.ts';
-import { studySurges, formatSurgeStudy } from '../../core/surge/index.ts';
-import { runBackupStudy } from '../../core/battery/study.ts';
-import { formatBackupStudy } from '../../core/battery/text-report.ts';
-import { bankCautions, rechargeCautions } from '../../core/battery/cautions.ts';
-import { machineSections } from '../../core/machines/cli-flags.ts';
-import { correctPowerFactor } from '../../core/ac/pf-correction.ts';
-import { formatPfCorrection } from '../../core/ac/text-report.ts';
-import { flowGraph } from '../../core/flow.ts';
-import { lossCostPerYear, flowStudyCosts } from '../../core/economics.ts';
-import { projectFlowStudy } from '../../core/machines/project-flow.ts';
+import { flowStudySchema } from '../../core/kinds/pump.ts';
+import { studySurges, formatSurgeStudy } from '../../core/studies/surge/index.ts';
+import { runBackupStudy } from '../../core/studies/backup/study.ts';
+import { formatBackupStudy } from '../../core/studies/backup/text-report.ts';
+import { bankCautions, rechargeCautions } from '../../core/studies/backup/cautions.ts';
+import { machineSections } from '../../core/cli/machines-flags.ts';
+import { correctPowerFactor } from '../../core/studies/pf/correction.ts';
+import { formatPfCorrection } from '../../core/studies/pf/text-report.ts';
+import { flowGraph } from '../../core/studies/energy-flow.ts';
+import { lossCostPerYear, flowStudyCosts } from '../../core/studies/economics.ts';
+import { projectFlowStudy } from '../../core/studies/machines/pump-duty.ts';
 import { CONDUCTOR_CAUTION } from '../../core/conductors/index.ts';
-import type { SolveResult } from '../../core/result.ts';
+import type { SolveResult } from '../../core/model/result.ts';
 import { DROP_BASES, KIND_FORMS, PROJECT_FIELDS, allFields, defaultElement, type FieldSpec } from '../../web/editor/fields.ts';
-import type { ElementKind } from '../../core/model.ts';
+import type { ElementKind } from '../../core/model/project.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
 import { batteryBenchProject } from '../battery/fixtures.ts';
 
-const repoRoot = fileURLToPath(new URL('../../', import.meta.url));
+const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 
 /** Who writes a text: our areas, or an area another helper owns (reported, not fixed, here). */
 type Area = 'ours' | 'battery' | 'surge' | 'pf-correction' | 'conductors';
@@ -341,12 +341,12 @@ function formReads(): Read[] {
 
 /** The area of an engine source file (others' areas are reported, not fixed, here). */
 function areaOfFile(file: string): Area | undefined {
-  if (file.startsWith('core/battery/')) return 'battery';
-  if (file.startsWith('core/surge/')) return 'surge';
-  if (file === 'core/ac/pf-correction.ts') return 'pf-correction';
-  if (file.startsWith('core/conductors/') || file === 'core/solve/size-conductors.ts' || file === 'core/stages/cable.ts') return 'conductors';
+  if (file.startsWith('core/studies/backup/')) return 'battery';
+  if (file.startsWith('core/studies/surge/')) return 'surge';
+  if (file === 'core/studies/pf/correction.ts') return 'pf-correction';
+  if (file.startsWith('core/conductors/') || file === 'core/solve/size-conductors.ts' || file === 'core/kinds/cable.ts') return 'conductors';
   // Tables (core/data/) carry provenance marks as data, by the data-table rules: not text.
-  if (file.startsWith('core/data/') || file === 'core/cli.ts') return undefined;
+  if (file.startsWith('core/data/') || file === 'core/cli/cli.ts') return undefined;
   return 'ours';
 }
 
@@ -408,7 +408,7 @@ describe('what users read uses their words', () => {
 
   it('reads a meaningful amount of text (the collectors work)', () => {
     // Every kind of text source is present: results, CLI text, each study, the page.
-    for (const marker of ['CLI text', 'surge text', 'machines text', 'battery text', 'pf correction', 'web/components/', 'web/editor/fields.ts', 'core/stages/']) {
+    for (const marker of ['CLI text', 'surge text', 'machines text', 'battery text', 'pf correction', 'web/components/', 'web/editor/fields.ts', 'core/kinds/']) {
       expect(reads.some((r) => r.where.includes(marker)), marker).toBe(true);
     }
     expect(reads.length).toBeGreaterThan(2000);

@@ -5,7 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import { z } from 'zod/mini';
 import { KINDS, solveProject, validateProject, defaultCatalogue } from '../../core/index.ts';
-import type { ElementKind } from '../../core/model.ts';
+import type { ElementKind } from '../../core/model/project.ts';
 import {
   KIND_FORMS,
   PROJECT_FIELDS,
@@ -215,11 +215,11 @@ describe('choices from the engine’s tables', () => {
 
 describe('messages at the field', () => {
   it('names the field and puts per-cent limits in per cent for fields typed in %', () => {
-    // The engine's own message for η = 1.2 (core/stages/spec.ts unitFraction).
+    // The engine's own message for η = 1.2 (core/kinds/spec.ts unitFraction).
     expect(messageForField({ label: 'Efficiency (%)', quantity: 'fraction-percent' }, 'efficiency must not exceed 1 (enter 0.95 for 95 %)')).toBe(
       'Efficiency (%): efficiency must not exceed 100 %',
     );
-    // η below 1 % (core/stages/spec.ts efficiencyField): the limit is already in per cent.
+    // η below 1 % (core/kinds/spec.ts efficiencyField): the limit is already in per cent.
     expect(messageForField({ label: 'Efficiency (%)', quantity: 'fraction-percent' }, 'efficiency must be at least 1 %: below that the loss would be over 99 times the output (enter 0.95 for 95 %)')).toBe(
       'Efficiency (%): efficiency must be at least 1 %: below that the loss would be over 99 times the output',
     );

@@ -8,7 +8,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 
-const root = new URL('../../', import.meta.url);
+const root = new URL('../..', import.meta.url);
 const html = readFileSync(new URL('web/index.html', root), 'utf8');
 const headersFile = readFileSync(new URL('web/public/_headers', root), 'utf8');
 

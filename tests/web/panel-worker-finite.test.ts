@@ -8,8 +8,8 @@ import { describe, expect, it, vi } from 'vitest';
 import { demoProjects } from '../../core/demos/index.ts';
 import { solveProject } from '../../core/solve/index.ts';
 
-vi.mock('../../core/battery/study.ts', async (importOriginal) => {
-  const real = await importOriginal<typeof import('../../core/battery/study.ts')>();
+vi.mock('../../core/studies/backup/study.ts', async (importOriginal) => {
+  const real = await importOriginal<typeof import('../../core/studies/backup/study.ts')>();
   return {
     ...real,
     runBackupStudy: (input: unknown) => {

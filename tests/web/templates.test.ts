@@ -5,7 +5,7 @@
 // (no source).
 import { describe, expect, it } from 'vitest';
 import { KINDS, demoProjects, solveProject } from '../../core/index.ts';
-import type { ElementKind } from '../../core/model.ts';
+import type { ElementKind } from '../../core/model/project.ts';
 import {
   ADDABLE_KINDS,
   SOURCE_TEMPLATES,

@@ -11,9 +11,9 @@
  */
 import { StudyInput } from './StudyInput.tsx';
 import { useRef, useState } from 'preact/hooks';
-import type { BackupStudyResult } from '../../core/battery/study.ts';
-import type { Derate } from '../../core/battery/discharge.ts';
-import type { Problem } from '../../core/errors.ts';
+import type { BackupStudyResult } from '../../core/studies/backup/study.ts';
+import type { Derate } from '../../core/studies/backup/discharge.ts';
+import type { Problem } from '../../core/model/errors.ts';
 import { useWorkerReply } from './panel-client.ts';
 import {
   formatCurrent,

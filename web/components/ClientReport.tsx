@@ -12,10 +12,10 @@
  */
 import { memo } from 'preact/compat';
 import { useEffect, useMemo, useState } from 'preact/hooks';
-import { flowGraph } from '../../core/flow.ts';
-import type { BatterySource, Project } from '../../core/model.ts';
-import type { ElementResult, SolveResult } from '../../core/result.ts';
-import { bankCautions } from '../../core/battery/cautions.ts';
+import { flowGraph } from '../../core/studies/energy-flow.ts';
+import type { BatterySource, Project } from '../../core/model/project.ts';
+import type { ElementResult, SolveResult } from '../../core/model/result.ts';
+import { bankCautions } from '../../core/studies/backup/cautions.ts';
 import { CAUTION as CONDUCTOR_CAUTION } from '../../core/conductors/size.ts';
 import type { Chemistry } from '../../core/data/battery-chemistries.ts';
 import { formatDuration, formatPercent, formatPower, formatSmallPercent } from '../format/number.ts';

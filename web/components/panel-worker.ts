@@ -9,17 +9,17 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { runBackupStudy, type BackupStudyResult } from '../../core/battery/study.ts';
-import { bankCautions, rechargeCautions } from '../../core/battery/cautions.ts';
-import { machineDetails, type DriveDetail, type MotorDetail } from '../../core/machines/details.ts';
-import { pumpDetails, projectFlowStudy, type PumpDetail } from '../../core/machines/project-flow.ts';
-import type { FlowControlResult } from '../../core/machines/flow-control.ts';
-import { correctPowerFactor, type PfCorrection } from '../../core/ac/pf-correction.ts';
-import { flowStudyCosts, lossCostPerYear, type CostSettings, type LossCost, type MethodCosts } from '../../core/economics.ts';
+import { runBackupStudy, type BackupStudyResult } from '../../core/studies/backup/study.ts';
+import { bankCautions, rechargeCautions } from '../../core/studies/backup/cautions.ts';
+import { machineDetails, type DriveDetail, type MotorDetail } from '../../core/studies/machines/details.ts';
+import { pumpDetails, projectFlowStudy, type PumpDetail } from '../../core/studies/machines/pump-duty.ts';
+import type { FlowControlResult } from '../../core/physics/pump-fan.ts';
+import { correctPowerFactor, type PfCorrection } from '../../core/studies/pf/correction.ts';
+import { flowStudyCosts, lossCostPerYear, type CostSettings, type LossCost, type MethodCosts } from '../../core/studies/economics.ts';
 import { validateProject } from '../../core/solve/validate.ts';
 import { elementNames, nonFiniteProblems } from '../../core/solve/finite.ts';
-import type { Problem } from '../../core/errors.ts';
-import type { SolveResult } from '../../core/result.ts';
+import type { Problem } from '../../core/model/errors.ts';
+import type { SolveResult } from '../../core/model/result.ts';
 
 export type PanelRequest =
   | { kind: 'battery'; project: unknown }

@@ -9,8 +9,8 @@
  * expected to replace; none of them is a computed engineering figure.
  */
 import { CHEMISTRIES, CHEMISTRY_PRESETS } from '../../core/data/battery-chemistries.ts';
-import { KINDS } from '../../core/stages/index.ts';
-import { MOTOR_CLASSES } from '../../core/machines/motor-rating.ts';
+import { KINDS } from '../../core/kinds/index.ts';
+import { MOTOR_CLASSES } from '../../core/physics/motor-rating.ts';
 import { defaultCatalogue, resolveLimits } from '../../core/conductors/index.ts';
 import { CODE_LETTERS } from '../../core/data/motor-code-letters.ts';
 import type { Chemistry, ChemistryValues, DropLimits, ElementKind, IecInstallationMethod } from '../../core/index.ts';
@@ -92,7 +92,7 @@ export interface PointsSpec extends FieldBase {
   newRow(rows: readonly Record<string, number>[]): Record<string, number>;
 }
 
-/** A circuit network of R, L, C parts (core/ac/network.ts), values as text with SI prefixes. */
+/** A circuit network of R, L, C parts (core/physics/network.ts), values as text with SI prefixes. */
 export interface NetworkSpec extends FieldBase {
   type: 'network';
   default: unknown;
@@ -347,7 +347,7 @@ const deviceBlock = (path: string, label: string, help: string): GroupSpec =>
     { type: 'number', path: `${path}.interruptingRating`, label: 'Interrupting rating (breaking capacity)', quantity: 'current', required: true, default: 10000, help: 'From the device maker; the DC rating on a DC circuit.' },
   ], help);
 
-/** Fault and dip data of a grid or generator (core/surge/, IEC 60909). */
+/** Fault and dip data of a grid or generator (core/studies/surge/, IEC 60909). */
 const sourceFaultFields = (kind: 'grid' | 'generator'): FieldSpec[] => [
   {
     type: 'number',

@@ -9,13 +9,13 @@
  * The ports used to choose a template are NOMINAL (set-points and ratings read from the elements:
  * a transformer's secondary voltage, an inverter's output voltage), not solved values; nothing here
  * computes an engineering result. The pump template's flow is chosen with the engine's own
- * shaft-power function (core/machines/flow-control.ts).
+ * shaft-power function (core/physics/pump-fan.ts).
  */
-import type { ElementKind, PortKind } from '../../core/model.ts';
-import { KINDS } from '../../core/stages/index.ts';
-import { bankValues, checkBank } from '../../core/battery/bank.ts';
-import { pumpShaftPower } from '../../core/machines/flow-control.ts';
-import type { BatteryBankSpec } from '../../core/model.ts';
+import type { ElementKind, PortKind } from '../../core/model/project.ts';
+import { KINDS } from '../../core/kinds/index.ts';
+import { bankValues, checkBank } from '../../core/physics/bank.ts';
+import { pumpShaftPower } from '../../core/physics/pump-fan.ts';
+import type { BatteryBankSpec } from '../../core/model/project.ts';
 import type { DraftElement, DraftProject } from '../state/editor.ts';
 
 /** A port as the templates see it: its kind and, when known, nominal voltage (line-to-line on 3φ) and frequency. */

@@ -17,14 +17,14 @@
  */
 import { batch, computed, effect, signal } from '@preact/signals';
 import { solveProject, validateProject, type SolveOutcome } from '../../core/solve/index.ts';
-import type { Problem } from '../../core/errors.ts';
-import type { SolveResult } from '../../core/result.ts';
+import type { Problem } from '../../core/model/errors.ts';
+import type { SolveResult } from '../../core/model/result.ts';
 import { DEPTH_IN_FILE, ENVELOPE_VALUES, FILE_LIMITS, limitWords, scanLimits, withSuffix, type LimitIssue } from '../storage/limits.ts';
 
 /** One element as edited: plain data, checked by the engine on every solve. */
 export type DraftElement = { id: string; kind: string; from?: string; name?: string } & Record<string, unknown>;
 
-/** The project as edited (the stored project format of core/model.ts, not yet validated). */
+/** The project as edited (the stored project format of core/model/project.ts, not yet validated). */
 export type DraftProject = {
   format: 'joulepath-project';
   version: number;

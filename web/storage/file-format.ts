@@ -18,7 +18,7 @@ import { FILE_LIMITS, FORBIDDEN_KEYS, scanLimits } from './limits.ts';
 
 export const EXPORT_FORMAT = 'joulepath-export';
 export const EXPORT_VERSION = 1;
-/** The project schema version this build reads (core/model.ts). */
+/** The project schema version this build reads (core/model/project.ts). */
 export const PROJECT_VERSION = 1;
 /**
  * The export's JSON Schema, named by `$schema` on the envelope so editors check and complete the

@@ -34,7 +34,7 @@ export interface StoredProject {
   demoId?: string;
   /** Set while a delete can still be undone; such records are hidden from the list and removed later. */
   deletedAt?: string;
-  /** The project as edited (the project file format of core/model.ts, possibly with problems to fix). */
+  /** The project as edited (the project file format of core/model/project.ts, possibly with problems to fix). */
   project: DraftProject;
 }
 

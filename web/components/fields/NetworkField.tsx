@@ -1,8 +1,8 @@
 /**
  * The circuit of a load given by its elements. A simple circuit (parts all in series, or all in
  * parallel) is a list: a kind and a value per part, the value as text with an SI prefix ("4.7 mH",
- * "220 µF", "1.2 kΩ"), which the engine reads (core/ac/si-prefix.ts). A nested circuit is shown as
- * its JSON text, the network exactly as the engine documents it (core/ac/network.ts).
+ * "220 µF", "1.2 kΩ"), which the engine reads (core/physics/si-prefix.ts). A nested circuit is shown as
+ * its JSON text, the network exactly as the engine documents it (core/physics/network.ts).
  */
 import { useState } from 'preact/hooks';
 import { setField, setFieldError, fieldError } from '../../state/editor.ts';

@@ -1,0 +1,94 @@
+/**
+ * The command-line hook of core/studies/machines (pure: cli.ts reads the files).
+ * `--machines`: motor and drive details, and the service-factor refusal.
+ * `--flow <study.json>`: the flow-control comparison of a pump study file (a FlowStudyInput).
+ * A project with a `flowStudy` ({ pump, duty }) runs the same comparison on its own pump, motor and
+ * drive (core/studies/machines/pump-duty.ts) unless --flow gives a study file, which then replaces it.
+ * A project with `pump` elements gets their operating points and tree checks (`pumps`).
+ * With --json they appear under `machines`, `flowStudy` and `pumps`.
+ */
+import type { Problem } from '../model/errors.ts';
+import { solveWithMachines, type MachineDetails } from '../studies/machines/details.ts';
+import { compareFlowControl, type FlowControlResult, type FlowStudyInput } from '../physics/pump-fan.ts';
+import { formatFlowStudy, formatMachines } from '../studies/machines/text-report.ts';
+import { projectFlowStudy, pumpDetails, type PumpDetail } from '../studies/machines/pump-duty.ts';
+import { validateProject } from '../solve/validate.ts';
+
+/** Whether the project asks for the pump sections without a flag: a `flowStudy` or a `pump` element. */
+export function hasPumpSections(project: unknown): boolean {
+  const p = project as { flowStudy?: unknown; elements?: unknown };
+  return typeof p === 'object' && p !== null && (p.flowStudy !== undefined || (Array.isArray(p.elements) && p.elements.some((e: { kind?: unknown }) => e?.kind === 'pump')));
+}
+
+/** Plain text of the pumps' operating points and tree checks. */
+export function formatPumps(pumps: readonly PumpDetail[]): string {
+  const lines = ['Pumps (constant pump efficiency, affinity laws; quadratic pump curve, system curve H_s + k·Q²):'];
+  for (const d of pumps) {
+    const op = d.operatingPoint;
+    lines.push(
+      `  ${d.name} [${d.id}] ${op.control === 'speed' ? 'speed control' : 'throttled'}: ${op.flow} m³/s at ${op.head.toFixed(2)} m, speed ${(100 * op.speed).toFixed(1)} %, hydraulic ${(op.hydraulicPower / 1000).toFixed(2)} kW, shaft ${(op.shaftPower / 1000).toFixed(2)} kW (motor "${d.motorId}"${d.driveId ? `, drive "${d.driveId}"${d.driveSpeed !== undefined ? ` at ${(100 * d.driveSpeed).toFixed(1)} %` : ''}` : ', no drive'})`,
+    );
+    for (const w of d.warnings) lines.push(`    warning: ${w}`);
+  }
+  return lines.join('\n');
+}
+
+export const MACHINE_USAGE = '[--machines] [--flow <pump-study.json>]';
+
+export type MachineFlags = { ok: true; rest: string[]; machines: boolean; flowFile?: string } | { ok: false; message: string };
+
+/** Take --machines and --flow <file> out of the argument list. */
+export function takeMachineFlags(args: readonly string[]): MachineFlags {
+  const rest: string[] = [];
+  let machines = false;
+  let flowFile: string | undefined;
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    if (a === '--machines') machines = true;
+    else if (a === '--flow') {
+      const f = args[i + 1];
+      if (f === undefined || f.startsWith('--')) return { ok: false, message: '--flow needs the pump study file after it' };
+      flowFile = f;
+      i++;
+    } else rest.push(a);
+  }
+  return { ok: true, rest, machines, ...(flowFile !== undefined ? { flowFile } : {}) };
+}
+
+export type MachineSections =
+  | { ok: true; text: string; json: { machines?: MachineDetails; flowStudy?: FlowControlResult; pumps?: PumpDetail[] } }
+  | { ok: false; heading: string; problems: Problem[] };
+
+/** Run what the flags ask for on the parsed project (and the parsed flow study). */
+export function machineSections(project: unknown, machines: boolean, flowStudy: unknown): MachineSections {
+  const text: string[] = [];
+  const json: { machines?: MachineDetails; flowStudy?: FlowControlResult; pumps?: PumpDetail[] } = {};
+  if (machines) {
+    const m = solveWithMachines(project);
+    if (!m.ok) return { ok: false, heading: 'the motors and drives cannot be reported:', problems: m.problems };
+    json.machines = m.machines;
+    text.push(formatMachines(m.machines));
+  }
+  if (hasPumpSections(project)) {
+    const v = validateProject(project);
+    if (!v.ok) return { ok: false, heading: 'the pumps cannot be reported:', problems: v.problems };
+    const pumps = pumpDetails(v.project);
+    if (pumps.length) {
+      json.pumps = pumps;
+      text.push(formatPumps(pumps));
+    }
+    if (flowStudy === undefined && v.project.flowStudy !== undefined) {
+      const f = projectFlowStudy(v.project);
+      if (!f.ok) return { ok: false, heading: 'the flow-control study of the project cannot be run:', problems: f.problems };
+      json.flowStudy = f.result;
+      text.push(formatFlowStudy(f.result));
+    }
+  }
+  if (flowStudy !== undefined) {
+    const f = compareFlowControl(flowStudy as FlowStudyInput);
+    if (!f.ok) return { ok: false, heading: 'the flow-control study cannot be run:', problems: f.problems };
+    json.flowStudy = f.result;
+    text.push(formatFlowStudy(f.result));
+  }
+  return { ok: true, text: text.map((t) => `\n${t}\n`).join(''), json };
+}

@@ -1,0 +1,26 @@
+/** DC bus or distribution board: voltage passes through unchanged; a fixed loss of its own. */
+import { z } from 'zod/mini';
+import type { DcBusStage } from '../model/project.ts';
+import { c } from '../physics/complex.ts';
+import { defineKind, fromField, idField, nameField } from './spec.ts';
+import { ranged } from './ranges.ts';
+
+export const dcbusKind = defineKind<DcBusStage>({
+  kind: 'dcbus',
+  role: 'stage',
+  accepts: () => ['dc'],
+  schema: z.strictObject({
+    id: idField,
+    name: nameField,
+    kind: z.literal('dcbus'),
+    from: fromField,
+    fixedLoss: ranged('power', 'non-negative'),
+  }) as z.ZodMiniType<DcBusStage>,
+  build: (e) => ({
+    out: { kind: 'dc' },
+    passesVoltage: true,
+    outputVoltage: (vIn) => vIn,
+    inputPower: (sOut) => c(sOut.re + e.fixedLoss),
+    report: () => ({ warnings: [] }),
+  }),
+});

@@ -1,0 +1,24 @@
+/** DC-DC converter: DC in, regulated DC out. */
+import { z } from 'zod/mini';
+import type { DcDcStage } from '../model/project.ts';
+import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, regulatingConverter } from './spec.ts';
+import { ranged } from './ranges.ts';
+
+export const dcdcKind = defineKind<DcDcStage>({
+  kind: 'dcdc',
+  role: 'stage',
+  accepts: () => ['dc'],
+  schema: z.strictObject({
+    id: idField,
+    name: nameField,
+    kind: z.literal('dcdc'),
+    from: fromField,
+    outputVoltage: ranged('voltage'),
+    loss: lossModelSchema,
+    // Maker's ratings, read by conductor sizing only (the solve does not use them).
+    ratedOutputPower: z.optional(ranged('ratedPower')),
+    minInputVoltage: z.optional(ranged('voltage')),
+  }) as z.ZodMiniType<DcDcStage>,
+  check: (e) => checkLossModel(e.loss),
+  build: (e) => regulatingConverter({ out: { kind: 'dc' }, outputVoltage: e.outputVoltage, inputKind: 'dc', loss: e.loss }),
+});

@@ -1,0 +1,136 @@
+/**
+ * Variable-frequency drive: AC (1φ or 3φ) in, three-phase AC out at its own voltage and frequency.
+ * Input real power = output + drive loss; input reactive power from the input DISPLACEMENT power
+ * factor (the fundamental): Q = P_in·tan(arccos pf_disp).
+ *
+ * Loss: either a converter loss model (`loss`) against output power, or the eight IEC 61800-9-2
+ * points (`standardLoss`) interpolated bilinearly at the operating point (core/physics/drive-loss.ts):
+ * - speed % = 100 · outputFrequency / motorRatedFrequency (default: the supply frequency);
+ * - torque % = relative torque-producing current ≈ 100 · P_out / (S_rated · speed fraction): the
+ *   active output current P/(√3·V) with the voltage following the frequency (V/f), against the
+ *   rated current S_rated/(√3·V_rated). This is the drive's own measure (the CDM axis of the
+ *   standard); it sees the motor's input power, so motor losses are inside it.
+ * True input power factor with a stated current distortion THD_i (voltage undistorted):
+ * pf = pf_disp / √(1 + THD_i²) — reported by core/studies/machines/details.ts.
+ */
+import { z } from 'zod/mini';
+import type { DriveStage } from '../model/project.ts';
+import { c } from '../physics/complex.ts';
+import { checkLossModel, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
+import { driveLossAt, driveLossGrid } from '../physics/drive-loss.ts';
+import { ranged } from './ranges.ts';
+
+const standardLossSchema = z.strictObject({
+  ratedApparentPower: ranged('ratedApparentPower'),
+  basis: z.enum(['cdm', 'pds'], { error: 'must be "cdm" (drive module: top point 90 % frequency) or "pds" (drive + motor: top point 100 % speed)' }),
+  points: z.optional(z.array(ranged('power', 'non-negative'), { error: 'must be a list of eight losses, W' })),
+});
+
+/** Speed fraction of the driven motor: drive output frequency / motor rated frequency. */
+export function driveSpeedFraction(e: DriveStage, input: PortInfo | null): number | undefined {
+  const rated = e.motorRatedFrequency ?? input?.frequency;
+  return rated === undefined ? undefined : e.outputFrequency / rated;
+}
+
+/** Operating point (speed %, torque %) of a drive with standard losses at output power pOut. */
+export function driveOperatingPoint(e: DriveStage, speedFraction: number, pOut: number): { speed: number; torque: number } {
+  const rated = e.standardLoss!.ratedApparentPower;
+  return { speed: 100 * speedFraction, torque: (100 * pOut) / (rated * speedFraction) };
+}
+
+const singlePhaseWarning: KindWarning = {
+  code: 'check-derating',
+  message: 'three-phase drive fed single-phase: most drives must then be derated (often to about half); check the maker’s single-phase rating',
+};
+
+export const driveKind = defineKind<DriveStage>({
+  kind: 'drive',
+  role: 'stage',
+  accepts: () => ['ac1', 'ac3'],
+  schema: z.strictObject({
+    id: idField,
+    name: nameField,
+    kind: z.literal('drive'),
+    from: fromField,
+    outputVoltage: ranged('voltage'),
+    outputFrequency: ranged('frequency'),
+    inputPowerFactor: unitFraction('power factor'),
+    loss: z.optional(lossModelSchema),
+    standardLoss: z.optional(standardLossSchema),
+    motorRatedFrequency: z.optional(ranged('frequency')),
+    currentThd: z.optional(z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative'), z.lte(3, 'must not exceed 3 (enter 0.35 for 35 %)'))),
+    singlePhaseRating: z.optional(ranged('ratedApparentPower')),
+    // Maker's rating, read by conductor sizing only (the solve does not use it).
+    ratedInputCurrent: z.optional(ranged('current')),
+  }) as z.ZodMiniType<DriveStage>,
+  check(e) {
+    if ((e.loss === undefined) === (e.standardLoss === undefined)) {
+      return [{ code: 'invalid-value', field: 'loss', message: 'give exactly one of loss (a loss model) and standardLoss (the IEC 61800-9-2 points)' }];
+    }
+    if (e.loss) return checkLossModel(e.loss);
+    const g = driveLossGrid(e.standardLoss!);
+    const problems = g.ok ? [] : g.problems;
+    if (e.motorRatedFrequency !== undefined && e.outputFrequency > e.motorRatedFrequency * (1 + 1e-9)) {
+      problems.push({
+        code: 'invalid-value',
+        field: 'outputFrequency',
+        value: e.outputFrequency,
+        message: `gives an operating speed of ${fmtPct(e.outputFrequency / e.motorRatedFrequency)}, outside 0–100 % of the motor's rated frequency ${e.motorRatedFrequency} Hz`,
+      });
+    }
+    return problems;
+  },
+  build(e, input) {
+    const inputKind = input!.kind;
+    const withPhaseWarning = (model: ElementModel): ElementModel =>
+      inputKind !== 'ac1'
+        ? model
+        : {
+            ...model,
+            report(sOut, sIn, vIn) {
+              const r = model.report(sOut, sIn, vIn);
+              r.warnings.push(singlePhaseWarning);
+              return r;
+            },
+          };
+    if (e.loss) {
+      return withPhaseWarning(
+        regulatingConverter({ out: { kind: 'ac3', frequency: e.outputFrequency }, outputVoltage: e.outputVoltage, inputKind, inputPowerFactor: e.inputPowerFactor, loss: e.loss }),
+      );
+    }
+    const g = driveLossGrid(e.standardLoss!);
+    if (!g.ok) throw new Error(`drive "${e.id}": standardLoss was not validated`);
+    const grid = g.grid;
+    // Without a supply frequency (fed from a source-less test) or a motor frequency the speed is taken as rated.
+    const phi = driveSpeedFraction(e, input) ?? 1;
+    const rated = e.standardLoss!.ratedApparentPower;
+    const lossAt = (pOut: number) => {
+      const op = driveOperatingPoint(e, phi, pOut);
+      return driveLossAt(grid, op.speed, op.torque);
+    };
+    const vOut = c(e.outputVoltage / Math.sqrt(3));
+    return withPhaseWarning({
+      out: { kind: 'ac3', frequency: e.outputFrequency },
+      outputVoltage: () => vOut,
+      inputPower(sOut) {
+        const pIn = sOut.re + lossAt(sOut.re).loss;
+        return c(pIn, e.inputPowerFactor === 1 ? 0 : reactiveFromPf(pIn, e.inputPowerFactor));
+      },
+      report(sOut) {
+        const warnings: KindWarning[] = [];
+        const op = driveOperatingPoint(e, phi, sOut.re);
+        const at = lossAt(sOut.re);
+        if (op.torque > 100 * (1 + 1e-9)) {
+          warnings.push({ code: 'rating-exceeded', message: `relative torque-producing current ${op.torque.toFixed(1)} % exceeds the drive's rating (${fmtW(rated).replace('W', 'VA')} at ${fmtPct(phi)} speed)` });
+        }
+        if (at.clamped) {
+          warnings.push({
+            code: 'curve-extrapolated',
+            message: `operating point (${op.speed.toFixed(1)} % speed, ${op.torque.toFixed(1)} % torque) lies outside the IEC 61800-9-2 grid; the loss at (${at.speed.toFixed(1)} %, ${at.torque.toFixed(1)} %) on its edge is used`,
+          });
+        }
+        return { loadFraction: sOut.re / rated, warnings };
+      },
+    });
+  },
+});

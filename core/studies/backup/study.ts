@@ -1,0 +1,183 @@
+/**
+ * The battery backup study of a project: the discharge through the chain (discharge.ts), then —
+ * when the project's `backup` settings ask for them — the bank sizing for the target runtime
+ * (sizing.ts) in whole strings of the user's module (the bank's block or cell as given), with the
+ * runtime of that bank from a second discharge through the same chain, and the recharge with the given charger and the charger for a target time
+ * (recharge.ts). Pure; returns plain data.
+ */
+import type { BackupStudy, BatteryBankSpec } from '../../model/project.ts';
+import type { Problem } from '../../model/errors.ts';
+import { simulateDischarge, type DischargeResult } from './discharge.ts';
+import { MAX_REPEATED_PERIODS, repeatedPeriods, sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
+import { MAX_HORIZON_H, count } from '../../solve/load-profile.ts';
+import { chargerForTargetTime, rechargeTime, type ChargerSizing, type Recharge } from './recharge.ts';
+
+export interface BackupStudyResult {
+  discharge: DischargeResult;
+  /** Smallest bank for `backup.targetRuntimeHours` over the same terminal power profile. */
+  sizing?: BankSizing;
+  /**
+   * The discharge re-run with the sized bank (same chain, profile, temperature and state of
+   * health): the runtime of the bank the sizing gives.
+   */
+  sizedDischarge?: DischargeResult;
+  /** Recharge from the end state with `backup.chargerCurrent`. */
+  recharge?: Recharge;
+  /** Charger needed to recharge within `backup.targetRechargeHours`. */
+  charger?: ChargerSizing;
+  /** How the terminal power profile given to the sizing was taken. */
+  sizingBasis?: string;
+}
+
+export type BackupStudyOutcome = { ok: true; study: BackupStudyResult } | { ok: false; problems: Problem[] };
+
+/**
+ * The terminal power over the simulated outage as periods of constant power (each step's power
+ * held over the step; equal neighbours merged).
+ */
+export function terminalPowerPeriods(d: DischargeResult): PowerPeriod[] {
+  const { time, power } = d.series;
+  const out: PowerPeriod[] = [];
+  for (let i = 0; i + 1 < time.length; i++) {
+    const duration = time[i + 1]! - time[i]!;
+    if (duration <= 0) continue;
+    const p = power[i]!;
+    const last = out[out.length - 1];
+    if (last && Math.abs(last.power - p) <= 1e-9 * Math.max(Math.abs(p), 1)) last.duration += duration;
+    else out.push({ duration, power: p });
+  }
+  return out;
+}
+
+/**
+ * The project with its bank made too large to run out within `hours` (same R, same start): a
+ * million times its capacity, at least 1e9 Ah, at full health (a bank entered at a state of health
+ * near 0 would otherwise still run out at once).
+ */
+function withEndlessBank(input: unknown, batteryId: string, internalResistance: number, hours: number): unknown {
+  const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec; internalResistance?: number }[] };
+  const { stateOfHealth: _soh, ...backup } = project.backup;
+  return {
+    ...project,
+    backup: { ...backup, horizonHours: hours },
+    elements: project.elements.map((e) =>
+      e.id === batteryId && e.bank ? { ...e, internalResistance, bank: { ...e.bank, capacityAh: Math.max(e.bank.capacityAh * 1e6, 1e9) } } : e,
+    ),
+  };
+}
+
+/** The project with the sized bank in place of the given one (same module, the sized strings). */
+function withSizedBank(input: unknown, batteryId: string, sizing: BankSizing, target: number): unknown {
+  const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec; internalResistance?: number }[] };
+  return {
+    ...project,
+    // Long enough to see the sized bank run out (it is sized with margins beyond the target), within
+    // the year a study runs at most.
+    backup: { ...project.backup, horizonHours: Math.min(Math.max(project.backup.horizonHours ?? 0, 4 * target), MAX_HORIZON_H) },
+    elements: project.elements.map((e) => {
+      if (e.id !== batteryId || !e.bank) return e;
+      const strings = e.bank.strings ?? 1;
+      // A given bank resistance scales as 1/strings (Ohm's law for equal strings in parallel).
+      const r = e.internalResistance === undefined ? {} : { internalResistance: (e.internalResistance * strings) / sizing.strings };
+      return { ...e, ...r, bank: { ...e.bank, series: sizing.seriesBlocks, strings: sizing.strings, capacityAh: sizing.capacityPerString } };
+    }),
+  };
+}
+
+/**
+ * The run the sizing reads is far shorter than the target runtime (or holds no time at all), so
+ * repeated to the target it would pass MAX_REPEATED_PERIODS: refused at the setting that cut it short.
+ */
+function tooShortForTarget(run: DischargeResult, study: BackupStudy): Problem {
+  const lasted = `the outage the study simulates lasts ${Number((run.runtimeSeconds / 3600).toPrecision(3))} h`;
+  // (a run of no time at all gives no periods to repeat: the same refusal)
+  const repeat = `repeated to the target runtime of ${study.targetRuntimeHours} h it would give more than ${count(MAX_REPEATED_PERIODS)} periods`;
+  const at = (field: string, value: unknown, what: string, fix: string): Problem => ({ code: 'invalid-value', elementId: 'project', field, value, message: `${lasted} (${what}); ${repeat}: ${fix}` });
+  if (run.endReason === 'horizon') return at('backup.horizonHours', study.horizonHours, 'the horizon', 'give a horizon at least as long as the target runtime');
+  if (run.endReason === 'profile-complete') return at('backup.profile', study.profile.kind, 'the profile, run once', 'give a profile as long as the target runtime, or let it repeat');
+  return at('backup.targetRuntimeHours', study.targetRuntimeHours, run.endText, 'check the bank and the chain, or give a shorter target runtime');
+}
+
+/** Run the whole study for a project given as untrusted data. Never throws on bad input. */
+export function runBackupStudy(input: unknown): BackupStudyOutcome {
+  const simulated = simulateDischarge(input);
+  if (!simulated.ok) return simulated;
+  const d = simulated.result;
+  // simulateDischarge has validated the input: it is a project with a study and a battery bank.
+  const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec }[] };
+  const study = project.backup;
+  const spec = project.elements.find((e) => e.id === d.batteryId)!.bank!;
+  const result: BackupStudyResult = { discharge: d };
+  const problems: Problem[] = [];
+
+  if (study.targetRuntimeHours !== undefined) {
+    const target = study.targetRuntimeHours * 3600;
+    let periods = terminalPowerPeriods(d);
+    let run = d;
+    result.sizingBasis = 'terminal power of the simulated outage, step by step, cut at the target runtime';
+    if (d.runtimeSeconds < target && !d.runtimeIsLowerBound) {
+      // The bank ran out before the target: the profile must go on to the target for the sizing. Run
+      // it again from a bank too large to run out (same internal resistance, same starting charge),
+      // so a daily profile carries on through its next hours instead of restarting.
+      const extended = simulateDischarge(withEndlessBank(input, d.batteryId, d.bank.internalResistance, study.targetRuntimeHours));
+      if (!extended.ok) return extended;
+      periods = terminalPowerPeriods(extended.result);
+      run = extended.result;
+      result.sizingBasis =
+        'terminal power of the profile over the whole target runtime, from a run with a bank too large to run out (its voltage stays near full charge, so cable losses late in a real discharge are slightly understated)';
+    }
+    // The run is cut or repeated to the target runtime for the sizing: a run far shorter than the
+    // target (a horizon of seconds) would repeat into more periods than any run holds.
+    if (periods.length === 0 || repeatedPeriods(periods, target) > MAX_REPEATED_PERIODS) return { ok: false, problems: [tooShortForTarget(run, study)] };
+    const sized = sizeBank({
+      elementId: d.batteryId,
+      chemistry: spec.chemistry,
+      ...(spec.overrides ? { overrides: spec.overrides } : {}),
+      busVoltage: d.bank.nominalVoltage,
+      dutyCycle: { basis: 'power', periods },
+      design: study.design ?? 'backup',
+      // Whole strings of the user's module, unless standard capacities are listed to pick from.
+      ...(study.standardCapacitiesAh ? {} : { moduleAh: spec.capacityAh }),
+      targetRuntime: study.targetRuntimeHours * 3600,
+      ...(study.designMargin !== undefined ? { designMargin: study.designMargin } : {}),
+      ...(study.agingFactor !== undefined ? { agingFactor: study.agingFactor } : {}),
+      temperature: d.temperatureC,
+      ...(study.standardCapacitiesAh ? { ratings: study.standardCapacitiesAh } : {}),
+      ...(spec.cellsPerBlock !== undefined ? { cellsPerBlock: spec.cellsPerBlock } : {}),
+      seriesBlocks: spec.series,
+      fields: { designMargin: 'backup.designMargin', agingFactor: 'backup.agingFactor', targetRuntime: 'backup.targetRuntimeHours', ratings: 'backup.standardCapacitiesAh', temperature: 'backup.temperatureC', design: 'backup.design' },
+    });
+    if (sized.ok) {
+      result.sizing = sized.sizing;
+      const again = simulateDischarge(withSizedBank(input, d.batteryId, sized.sizing, study.targetRuntimeHours));
+      if (again.ok) result.sizedDischarge = again.result;
+      else problems.push(...again.problems);
+    } else problems.push(...sized.problems);
+  }
+
+  // The loads go on while the bank recharges: the charger carries them (average terminal power of the outage).
+  const standing = d.runtimeSeconds > 0 ? d.deliveredWh / (d.runtimeSeconds / 3600) : 0;
+  const base = {
+    elementId: d.batteryId,
+    chemistry: spec.chemistry,
+    ...(spec.overrides ? { overrides: spec.overrides } : {}),
+    capacity: d.bank.capacityAh,
+    seriesCells: d.bank.cellsInSeries,
+    startSoc: d.endSoc,
+    ...(study.chargerEfficiency !== undefined ? { chargerEfficiency: study.chargerEfficiency } : {}),
+    standingLoad: { power: standing },
+    temperature: d.temperatureC,
+    fields: { chargerCurrent: 'backup.chargerCurrent', chargerEfficiency: 'backup.chargerEfficiency', targetTime: 'backup.targetRechargeHours', temperature: 'backup.temperatureC' },
+  };
+  if (study.chargerCurrent !== undefined) {
+    const r = rechargeTime({ ...base, chargerCurrent: study.chargerCurrent });
+    if (r.ok) result.recharge = r.recharge;
+    else problems.push(...r.problems);
+  }
+  if (study.targetRechargeHours !== undefined) {
+    const r = chargerForTargetTime({ ...base, targetTime: study.targetRechargeHours * 3600 });
+    if (r.ok) result.charger = r.charger;
+    else problems.push(...r.problems);
+  }
+  return problems.length ? { ok: false, problems } : { ok: true, study: result };
+}
