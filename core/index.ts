@@ -74,7 +74,7 @@ export {
 export { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates, type PfCandidate } from './studies/pf/placement.ts';
 export { formatNetworkLoads, formatPfCorrection } from './studies/pf/text-report.ts';
 export {
-  compareFlowControl,
+  comparePumpControl,
   driveLossGrid,
   driveLossAt,
   driveLossAtPoint,
@@ -86,16 +86,16 @@ export {
   machineDetails,
   solveWithMachines,
   formatMachines,
-  formatFlowStudy,
-  projectFlowStudy,
+  formatPumpDuty,
+  projectPumpDuty,
   pumpDetails,
   type PumpDetail,
-  type ProjectFlowOutcome,
+  type PumpDutyOutcome,
   MOTOR_CLASSES,
   NEC_TABLE_CURRENT_NOTE,
-  type FlowStudyInput,
-  type FlowControlResult,
-  type FlowControlOutcome,
+  type PumpDutyInput,
+  type PumpControlResult,
+  type PumpControlOutcome,
   type DriveLossGrid,
   type DriveLossAt,
   type MotorRating,
@@ -105,7 +105,7 @@ export {
   type MachineSolveOutcome,
 } from './studies/machines/index.ts';
 export { flowGraph, lossNodeId, lossParts, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole, type LossPart, type LossSummary, type Share } from './studies/energy-flow.ts';
-export { lossCostPerYear, flowStudyCosts, energyCost, checkCostSettings, HOURS_IN_YEAR, MAX_HOURS_PER_YEAR, type CostSettings, type LossCost, type LossCostRow, type LossCostOutcome, type MethodCosts } from './studies/economics.ts';
+export { lossCostPerYear, pumpDutyCosts, energyCost, checkCostSettings, HOURS_IN_YEAR, MAX_HOURS_PER_YEAR, type CostSettings, type LossCost, type LossCostRow, type LossCostOutcome, type MethodCosts } from './studies/economics.ts';
 export {
   studySurges,
   hasSurgeInputs,

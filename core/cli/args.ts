@@ -35,7 +35,7 @@ ${USAGE}
   --correct-pf <elementId>:<target power factor>
                     size the capacitor bank for that element's interface (one file only)
   --machines        motor and drive details
-  --flow <pump-study.json>
+  --pump-duty <pump-study.json>
                     the flow-control comparison of a pump study file (one project file only)
   --help, -h        this text
   --version         the version of the tool
@@ -66,7 +66,7 @@ export type CliRequest =
       output: CliOutput;
       surges: boolean;
       machines: boolean;
-      flowFile?: string;
+      pumpDutyFile?: string;
       correctPf?: PfCorrectionRequest;
     };
 
@@ -89,7 +89,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   else if (first !== undefined && !first.startsWith('-') && !/[./\\]/.test(first)) {
     return usage(`unknown command "${first}" (the command is "solve"; write ./${first} for a file of that name)`);
   }
-  // --machines, --flow <pump-study.json> (core/cli/machines-flags.ts).
+  // --machines, --pump-duty <pump-study.json> (core/cli/machines-flags.ts).
   const mach = takeMachineFlags(args);
   if (!mach.ok) return usage(mach.message);
   args = mach.rest;
@@ -118,7 +118,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   const several = files.length > 1;
   if (several && distinct[0] === 'json') return usage('--json prints one project: give one file (--csv or --summary for several)');
   if (several && correctPf) return usage('--correct-pf names an element of one project: give one file');
-  if (several && mach.flowFile !== undefined) return usage('--flow runs with one project file: give one file');
+  if (several && mach.pumpDutyFile !== undefined) return usage('--pump-duty runs with one project file: give one file');
   const output: CliOutput = distinct[0] ?? (several ? 'summary' : 'tables');
   return {
     kind: 'solve',
@@ -126,7 +126,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
     output,
     surges,
     machines: mach.machines,
-    ...(mach.flowFile !== undefined ? { flowFile: mach.flowFile } : {}),
+    ...(mach.pumpDutyFile !== undefined ? { pumpDutyFile: mach.pumpDutyFile } : {}),
     ...(correctPf ? { correctPf } : {}),
   };
 }

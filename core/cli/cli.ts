@@ -187,7 +187,7 @@ function runProject(file: string, req: SolveRequest, flowData: unknown): Project
     const bad = nonFinite('the power-factor correction cannot be shown:', 'The power-factor correction', pfc);
     if (bad) return bad;
   }
-  const machines = req.machines || req.flowFile !== undefined || hasPumpSections(data) ? machineSections(data, req.machines, flowData) : undefined;
+  const machines = req.machines || req.pumpDutyFile !== undefined || hasPumpSections(data) ? machineSections(data, req.machines, flowData) : undefined;
   if (machines && !machines.ok) return refused(file, machines.heading, machines.problems, projectName);
   if (machines?.ok) {
     const bad = nonFinite('the machines study cannot be shown:', 'The machines study', machines.json);
@@ -252,23 +252,23 @@ function main(argv: readonly string[]): number {
   }
   // The pump study file is checked and read before anything is computed.
   let flowData: unknown;
-  if (req.flowFile !== undefined) {
-    const flowInput = readInput(req.flowFile, 'the pump study');
-    if (!flowInput.ok) {
-      writeErr([flowInput.message]);
+  if (req.pumpDutyFile !== undefined) {
+    const pumpDutyInput = readInput(req.pumpDutyFile, 'the pump study');
+    if (!pumpDutyInput.ok) {
+      writeErr([pumpDutyInput.message]);
       return EXIT_REFUSED;
     }
     try {
-      flowData = JSON.parse(flowInput.text);
+      flowData = JSON.parse(pumpDutyInput.text);
     } catch (err) {
-      writeErr([`the pump study ${req.flowFile} is not valid JSON: ${(err as Error).message}`]);
+      writeErr([`the pump study ${req.pumpDutyFile} is not valid JSON: ${(err as Error).message}`]);
       return EXIT_REFUSED;
     }
   }
   const { entries, folders } = expandFolders(req.files);
-  // A folder asks for one line per project, as several files do (--json and --correct-pf, --flow: one file).
-  if (folders && (req.output === 'json' || req.correctPf || req.flowFile !== undefined)) {
-    writeErr([`joulepath: ${req.output === 'json' ? '--json' : req.correctPf ? '--correct-pf' : '--flow'} runs with one project file, not a folder`, USAGE, 'joulepath --help lists the flags and exit codes']);
+  // A folder asks for one line per project, as several files do (--json and --correct-pf, --pump-duty: one file).
+  if (folders && (req.output === 'json' || req.correctPf || req.pumpDutyFile !== undefined)) {
+    writeErr([`joulepath: ${req.output === 'json' ? '--json' : req.correctPf ? '--correct-pf' : '--pump-duty'} runs with one project file, not a folder`, USAGE, 'joulepath --help lists the flags and exit codes']);
     return EXIT_USAGE;
   }
   const output = folders && req.output === 'tables' ? 'summary' : req.output;

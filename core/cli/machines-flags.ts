@@ -1,23 +1,23 @@
 /**
  * The command-line hook of core/studies/machines (pure: cli.ts reads the files).
  * `--machines`: motor and drive details, and the service-factor refusal.
- * `--flow <study.json>`: the flow-control comparison of a pump study file (a FlowStudyInput).
- * A project with a `flowStudy` ({ pump, duty }) runs the same comparison on its own pump, motor and
- * drive (core/studies/machines/pump-duty.ts) unless --flow gives a study file, which then replaces it.
+ * `--pump-duty <study.json>`: the flow-control comparison of a pump study file (a PumpDutyInput).
+ * A project with a `pumpDuty` ({ pump, duty }) runs the same comparison on its own pump, motor and
+ * drive (core/studies/machines/pump-duty.ts) unless --pump-duty gives a study file, which then replaces it.
  * A project with `pump` elements gets their operating points and tree checks (`pumps`).
- * With --json they appear under `machines`, `flowStudy` and `pumps`.
+ * With --json they appear under `machines`, `pumpDuty` and `pumps`.
  */
 import type { Problem } from '../model/errors.ts';
 import { solveWithMachines, type MachineDetails } from '../studies/machines/details.ts';
-import { compareFlowControl, type FlowControlResult, type FlowStudyInput } from '../physics/pump-fan.ts';
-import { formatFlowStudy, formatMachines } from '../studies/machines/text-report.ts';
-import { projectFlowStudy, pumpDetails, type PumpDetail } from '../studies/machines/pump-duty.ts';
+import { comparePumpControl, type PumpControlResult, type PumpDutyInput } from '../physics/pump-fan.ts';
+import { formatPumpDuty, formatMachines } from '../studies/machines/text-report.ts';
+import { projectPumpDuty, pumpDetails, type PumpDetail } from '../studies/machines/pump-duty.ts';
 import { validateProject } from '../solve/validate.ts';
 
-/** Whether the project asks for the pump sections without a flag: a `flowStudy` or a `pump` element. */
+/** Whether the project asks for the pump sections without a flag: a `pumpDuty` or a `pump` element. */
 export function hasPumpSections(project: unknown): boolean {
-  const p = project as { flowStudy?: unknown; elements?: unknown };
-  return typeof p === 'object' && p !== null && (p.flowStudy !== undefined || (Array.isArray(p.elements) && p.elements.some((e: { kind?: unknown }) => e?.kind === 'pump')));
+  const p = project as { pumpDuty?: unknown; elements?: unknown };
+  return typeof p === 'object' && p !== null && (p.pumpDuty !== undefined || (Array.isArray(p.elements) && p.elements.some((e: { kind?: unknown }) => e?.kind === 'pump')));
 }
 
 /** Plain text of the pumps' operating points and tree checks. */
@@ -33,36 +33,36 @@ export function formatPumps(pumps: readonly PumpDetail[]): string {
   return lines.join('\n');
 }
 
-export const MACHINE_USAGE = '[--machines] [--flow <pump-study.json>]';
+export const MACHINE_USAGE = '[--machines] [--pump-duty <pump-study.json>]';
 
-export type MachineFlags = { ok: true; rest: string[]; machines: boolean; flowFile?: string } | { ok: false; message: string };
+export type MachineFlags = { ok: true; rest: string[]; machines: boolean; pumpDutyFile?: string } | { ok: false; message: string };
 
-/** Take --machines and --flow <file> out of the argument list. */
+/** Take --machines and --pump-duty <file> out of the argument list (`--flow`, its spelling before format 2, is still read). */
 export function takeMachineFlags(args: readonly string[]): MachineFlags {
   const rest: string[] = [];
   let machines = false;
-  let flowFile: string | undefined;
+  let pumpDutyFile: string | undefined;
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
     if (a === '--machines') machines = true;
-    else if (a === '--flow') {
+    else if (a === '--pump-duty' || a === '--flow') {
       const f = args[i + 1];
-      if (f === undefined || f.startsWith('--')) return { ok: false, message: '--flow needs the pump study file after it' };
-      flowFile = f;
+      if (f === undefined || f.startsWith('--')) return { ok: false, message: `${a} needs the pump study file after it` };
+      pumpDutyFile = f;
       i++;
     } else rest.push(a);
   }
-  return { ok: true, rest, machines, ...(flowFile !== undefined ? { flowFile } : {}) };
+  return { ok: true, rest, machines, ...(pumpDutyFile !== undefined ? { pumpDutyFile } : {}) };
 }
 
 export type MachineSections =
-  | { ok: true; text: string; json: { machines?: MachineDetails; flowStudy?: FlowControlResult; pumps?: PumpDetail[] } }
+  | { ok: true; text: string; json: { machines?: MachineDetails; pumpDuty?: PumpControlResult; pumps?: PumpDetail[] } }
   | { ok: false; heading: string; problems: Problem[] };
 
-/** Run what the flags ask for on the parsed project (and the parsed flow study). */
-export function machineSections(project: unknown, machines: boolean, flowStudy: unknown): MachineSections {
+/** Run what the flags ask for on the parsed project (and the parsed pump duty study). */
+export function machineSections(project: unknown, machines: boolean, pumpDuty: unknown): MachineSections {
   const text: string[] = [];
-  const json: { machines?: MachineDetails; flowStudy?: FlowControlResult; pumps?: PumpDetail[] } = {};
+  const json: { machines?: MachineDetails; pumpDuty?: PumpControlResult; pumps?: PumpDetail[] } = {};
   if (machines) {
     const m = solveWithMachines(project);
     if (!m.ok) return { ok: false, heading: 'the motors and drives cannot be reported:', problems: m.problems };
@@ -77,18 +77,18 @@ export function machineSections(project: unknown, machines: boolean, flowStudy: 
       json.pumps = pumps;
       text.push(formatPumps(pumps));
     }
-    if (flowStudy === undefined && v.project.flowStudy !== undefined) {
-      const f = projectFlowStudy(v.project);
-      if (!f.ok) return { ok: false, heading: 'the flow-control study of the project cannot be run:', problems: f.problems };
-      json.flowStudy = f.result;
-      text.push(formatFlowStudy(f.result));
+    if (pumpDuty === undefined && v.project.pumpDuty !== undefined) {
+      const f = projectPumpDuty(v.project);
+      if (!f.ok) return { ok: false, heading: 'the pump duty study of the project cannot be run:', problems: f.problems };
+      json.pumpDuty = f.result;
+      text.push(formatPumpDuty(f.result));
     }
   }
-  if (flowStudy !== undefined) {
-    const f = compareFlowControl(flowStudy as FlowStudyInput);
-    if (!f.ok) return { ok: false, heading: 'the flow-control study cannot be run:', problems: f.problems };
-    json.flowStudy = f.result;
-    text.push(formatFlowStudy(f.result));
+  if (pumpDuty !== undefined) {
+    const f = comparePumpControl(pumpDuty as PumpDutyInput);
+    if (!f.ok) return { ok: false, heading: 'the pump duty study cannot be run:', problems: f.problems };
+    json.pumpDuty = f.result;
+    text.push(formatPumpDuty(f.result));
   }
   return { ok: true, text: text.map((t) => `\n${t}\n`).join(''), json };
 }

@@ -76,7 +76,7 @@ export interface DesignContext {
 }
 
 const nameOf = (e: Element): string => `"${e.name ?? e.id}"`;
-const PASSIVE = new Set(['cable', 'dcbus']);
+const PASSIVE = new Set(['cable', 'dc-bus']);
 
 /** Per solve: the terminals and the feeder found for each element, so that every walk is done once. */
 const walks = new WeakMap<DesignContext, { terminals: Map<string, readonly Element[]>; feeder: Map<string, Element | undefined> }>();
@@ -304,12 +304,12 @@ function equipmentBasis(ctx: DesignContext, link: Element, spec: ConductorSpec, 
       if (rated === undefined) missing.push(`drive ${nameOf(end)}: enter its rated input current`);
       else found.push(fromRating('drive-input', rated, f, true, nec ? `125 % of the drive's rated input current, ${rated} A (NEC 430.122(A))` : `the drive's rated input current, ${rated} A, as I_B`));
     }
-    if ((end.kind === 'inverter' || end.kind === 'dcdc') && kind === 'dc') {
+    if ((end.kind === 'inverter' || end.kind === 'dc-dc') && kind === 'dc') {
       const r = converterInput(end);
       if ('missing' in r) missing.push(...r.missing);
       else
         found.push({
-          basis: end.kind === 'inverter' ? 'inverter-input' : 'dcdc-input',
+          basis: end.kind === 'inverter' ? 'inverter-input' : 'dc-dc-input',
           base: r.amps,
           factor: f,
           design: r.amps * f,
@@ -320,13 +320,13 @@ function equipmentBasis(ctx: DesignContext, link: Element, spec: ConductorSpec, 
   }
   // A DC feeder to a bus with converters on it (a bank to its bus): each converter at its rated
   // input current, the other loads at nominal voltage, summed (the equipment ratings, not today's load).
-  const converters = ends.filter((e): e is InverterStage | DcDcStage => e.kind === 'inverter' || e.kind === 'dcdc');
+  const converters = ends.filter((e): e is InverterStage | DcDcStage => e.kind === 'inverter' || e.kind === 'dc-dc');
   if (kind === 'dc' && ends.length > 1 && converters.length > 0) {
     const parts: string[] = [];
     let base = 0;
     let rated = 0;
     for (const e of ends) {
-      const r = e.kind === 'inverter' || e.kind === 'dcdc' ? converterInput(e) : null;
+      const r = e.kind === 'inverter' || e.kind === 'dc-dc' ? converterInput(e) : null;
       if (r && !('missing' in r)) {
         base += r.amps;
         rated++;

@@ -28,7 +28,7 @@ export const dropLimitsSchema = z.strictObject({
   totalPercent: z.optional(z.number({ error: 'must be a number (%)' }).check(z.gt(0, 'must be greater than 0 %'), z.lte(100, 'must not exceed 100 %'))),
 });
 
-const REGULATING: ReadonlySet<ElementKind> = new Set(['rectifier', 'dcdc', 'inverter', 'drive', 'generic']);
+const REGULATING: ReadonlySet<ElementKind> = new Set(['rectifier', 'dc-dc', 'inverter', 'drive', 'generic']);
 
 export interface ResolvedLimits {
   perLinkPercent?: number;

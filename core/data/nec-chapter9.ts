@@ -115,7 +115,7 @@ export const NEC_TABLE_8_ALPHA_75: readonly NecAlphaRow[] = [
 ];
 
 /** Raceway (conduit) types of Table 9. */
-export type NecRaceway = 'pvc' | 'aluminum' | 'steel';
+export type NecRaceway = 'pvc' | 'aluminium' | 'steel';
 
 /** Ω to neutral per 1000 ft by raceway; `null` = the table prints none; absent = not carried here. */
 export type NecRacewayCells = Readonly<Partial<Record<NecRaceway, number | null>>>;
@@ -147,25 +147,25 @@ const T9_ZE_PVC_ONE_COPY = { ...T9_CHECKED, zeCu085Pvc: 'corroborated' } as cons
 
 /** NEC Chapter 9 Table 9 (values as in NFPA 70-2008 to 2023), 14 AWG to 500 kcmil, smallest first. */
 export const NEC_CHAPTER9_TABLE9: readonly NecTable9Row[] = [
-  // 14 AWG aluminum: the table prints no value (from memory).
-  { size: '14 AWG', areaCmil: 4110, xl: { pvc: 0.058, aluminum: 0.058, steel: 0.073 }, rCu: { pvc: 3.1, aluminum: 3.1, steel: 3.1 }, rAl: { pvc: null, aluminum: null, steel: null }, zeCu085: { pvc: 2.7, steel: 2.7 }, provenance: { ...T9_CHECKED, rAl: 'from memory' } },
-  { size: '12 AWG', areaCmil: 6530, xl: { pvc: 0.054, aluminum: 0.054, steel: 0.068 }, rCu: { pvc: 2.0, steel: 2.0 }, rAl: { pvc: 3.2 }, zeCu085: { pvc: 1.7, steel: 1.7 }, provenance: T9_CHECKED },
-  { size: '10 AWG', areaCmil: 10380, xl: { pvc: 0.05, aluminum: 0.05, steel: 0.063 }, rCu: { pvc: 1.2, steel: 1.2 }, rAl: { pvc: 2.0 }, zeCu085: { pvc: 1.1, steel: 1.1 }, provenance: T9_CHECKED },
-  { size: '8 AWG', areaCmil: 16510, xl: { pvc: 0.052, aluminum: 0.052, steel: 0.065 }, rCu: { pvc: 0.78, steel: 0.78 }, rAl: { pvc: 1.3 }, zeCu085: { pvc: 0.69, steel: 0.7 }, provenance: T9_CHECKED },
-  { size: '6 AWG', areaCmil: 26240, xl: { pvc: 0.051, aluminum: 0.051, steel: 0.064 }, rCu: { pvc: 0.49, steel: 0.49 }, rAl: { pvc: 0.81 }, zeCu085: { pvc: 0.44, steel: 0.45 }, provenance: T9_CHECKED },
-  { size: '4 AWG', areaCmil: 41740, xl: { pvc: 0.048, aluminum: 0.048, steel: 0.06 }, rCu: { pvc: 0.31, steel: 0.31 }, rAl: { pvc: 0.51 }, zeCu085: { pvc: 0.29, steel: 0.3 }, provenance: T9_CHECKED },
-  { size: '3 AWG', areaCmil: 52620, xl: { pvc: 0.047, aluminum: 0.047, steel: 0.059 }, rCu: { pvc: 0.25, steel: 0.25 }, rAl: { pvc: 0.4 }, zeCu085: { pvc: 0.23, steel: 0.24 }, provenance: T9_CHECKED },
-  { size: '2 AWG', areaCmil: 66360, xl: { pvc: 0.045, aluminum: 0.045, steel: 0.057 }, rCu: { pvc: 0.19, aluminum: 0.2, steel: 0.2 }, rAl: { pvc: 0.32 }, zeCu085: { pvc: 0.19, steel: 0.2 }, provenance: T9_CHECKED },
-  { size: '1 AWG', areaCmil: 83690, xl: { pvc: 0.046, aluminum: 0.046, steel: 0.057 }, rCu: { pvc: 0.15, aluminum: 0.16, steel: 0.16 }, rAl: { pvc: 0.25 }, zeCu085: { pvc: 0.16, steel: 0.16 }, provenance: T9_CHECKED },
-  { size: '1/0 AWG', areaCmil: 105600, xl: { pvc: 0.044, aluminum: 0.044, steel: 0.055 }, rCu: { pvc: 0.12, aluminum: 0.13, steel: 0.12 }, rAl: { pvc: 0.2 }, zeCu085: { pvc: 0.13, steel: 0.13 }, provenance: T9_CHECKED },
-  { size: '2/0 AWG', areaCmil: 133100, xl: { pvc: 0.043, aluminum: 0.043, steel: 0.054 }, rCu: { pvc: 0.1, steel: 0.1 }, rAl: { pvc: 0.16 }, zeCu085: { pvc: 0.11, steel: 0.11 }, provenance: T9_ZE_PVC_ONE_COPY },
-  { size: '3/0 AWG', areaCmil: 167800, xl: { pvc: 0.042, aluminum: 0.042, steel: 0.052 }, rCu: { pvc: 0.077, aluminum: 0.082, steel: 0.079 }, rAl: { pvc: 0.13 }, zeCu085: { pvc: 0.088, steel: 0.094 }, provenance: T9_ZE_PVC_ONE_COPY },
-  { size: '4/0 AWG', areaCmil: 211600, xl: { pvc: 0.041, aluminum: 0.041, steel: 0.051 }, rCu: { pvc: 0.062, aluminum: 0.067, steel: 0.063 }, rAl: { pvc: 0.1 }, zeCu085: { pvc: 0.074, steel: 0.08 }, provenance: T9_ZE_PVC_ONE_COPY },
-  { size: '250 kcmil', areaCmil: 250000, xl: { pvc: 0.041, aluminum: 0.041, steel: 0.052 }, rCu: { pvc: 0.052, aluminum: 0.057, steel: 0.054 }, rAl: { pvc: 0.085, steel: 0.086 }, zeCu085: { pvc: 0.066, steel: 0.073 }, provenance: T9_ZE_PVC_ONE_COPY },
-  { size: '300 kcmil', areaCmil: 300000, xl: { pvc: 0.041, aluminum: 0.041, steel: 0.051 }, rCu: { pvc: 0.044, steel: 0.045 }, rAl: { pvc: 0.071 }, zeCu085: { pvc: 0.059, steel: 0.065 }, provenance: T9_ZE_PVC_ONE_COPY },
-  { size: '350 kcmil', areaCmil: 350000, xl: { pvc: 0.04, aluminum: 0.04, steel: 0.05 }, rCu: { pvc: 0.038, steel: 0.039 }, rAl: { pvc: 0.061 }, zeCu085: { pvc: 0.053, steel: 0.06 }, provenance: T9_ZE_PVC_ONE_COPY },
-  { size: '400 kcmil', areaCmil: 400000, xl: { pvc: 0.04, aluminum: 0.04, steel: 0.049 }, rCu: { pvc: 0.033, steel: 0.035 }, rAl: { pvc: 0.054 }, zeCu085: { pvc: 0.049, steel: 0.056 }, provenance: T9_ZE_PVC_ONE_COPY },
-  { size: '500 kcmil', areaCmil: 500000, xl: { pvc: 0.039, aluminum: 0.039, steel: 0.048 }, rCu: { pvc: 0.027, aluminum: 0.032, steel: 0.029 }, rAl: { pvc: 0.043, steel: 0.045 }, zeCu085: { pvc: 0.043, steel: 0.05 }, provenance: T9_ZE_PVC_ONE_COPY },
+  // 14 AWG aluminium: the table prints no value (from memory).
+  { size: '14 AWG', areaCmil: 4110, xl: { pvc: 0.058, aluminium: 0.058, steel: 0.073 }, rCu: { pvc: 3.1, aluminium: 3.1, steel: 3.1 }, rAl: { pvc: null, aluminium: null, steel: null }, zeCu085: { pvc: 2.7, steel: 2.7 }, provenance: { ...T9_CHECKED, rAl: 'from memory' } },
+  { size: '12 AWG', areaCmil: 6530, xl: { pvc: 0.054, aluminium: 0.054, steel: 0.068 }, rCu: { pvc: 2.0, steel: 2.0 }, rAl: { pvc: 3.2 }, zeCu085: { pvc: 1.7, steel: 1.7 }, provenance: T9_CHECKED },
+  { size: '10 AWG', areaCmil: 10380, xl: { pvc: 0.05, aluminium: 0.05, steel: 0.063 }, rCu: { pvc: 1.2, steel: 1.2 }, rAl: { pvc: 2.0 }, zeCu085: { pvc: 1.1, steel: 1.1 }, provenance: T9_CHECKED },
+  { size: '8 AWG', areaCmil: 16510, xl: { pvc: 0.052, aluminium: 0.052, steel: 0.065 }, rCu: { pvc: 0.78, steel: 0.78 }, rAl: { pvc: 1.3 }, zeCu085: { pvc: 0.69, steel: 0.7 }, provenance: T9_CHECKED },
+  { size: '6 AWG', areaCmil: 26240, xl: { pvc: 0.051, aluminium: 0.051, steel: 0.064 }, rCu: { pvc: 0.49, steel: 0.49 }, rAl: { pvc: 0.81 }, zeCu085: { pvc: 0.44, steel: 0.45 }, provenance: T9_CHECKED },
+  { size: '4 AWG', areaCmil: 41740, xl: { pvc: 0.048, aluminium: 0.048, steel: 0.06 }, rCu: { pvc: 0.31, steel: 0.31 }, rAl: { pvc: 0.51 }, zeCu085: { pvc: 0.29, steel: 0.3 }, provenance: T9_CHECKED },
+  { size: '3 AWG', areaCmil: 52620, xl: { pvc: 0.047, aluminium: 0.047, steel: 0.059 }, rCu: { pvc: 0.25, steel: 0.25 }, rAl: { pvc: 0.4 }, zeCu085: { pvc: 0.23, steel: 0.24 }, provenance: T9_CHECKED },
+  { size: '2 AWG', areaCmil: 66360, xl: { pvc: 0.045, aluminium: 0.045, steel: 0.057 }, rCu: { pvc: 0.19, aluminium: 0.2, steel: 0.2 }, rAl: { pvc: 0.32 }, zeCu085: { pvc: 0.19, steel: 0.2 }, provenance: T9_CHECKED },
+  { size: '1 AWG', areaCmil: 83690, xl: { pvc: 0.046, aluminium: 0.046, steel: 0.057 }, rCu: { pvc: 0.15, aluminium: 0.16, steel: 0.16 }, rAl: { pvc: 0.25 }, zeCu085: { pvc: 0.16, steel: 0.16 }, provenance: T9_CHECKED },
+  { size: '1/0 AWG', areaCmil: 105600, xl: { pvc: 0.044, aluminium: 0.044, steel: 0.055 }, rCu: { pvc: 0.12, aluminium: 0.13, steel: 0.12 }, rAl: { pvc: 0.2 }, zeCu085: { pvc: 0.13, steel: 0.13 }, provenance: T9_CHECKED },
+  { size: '2/0 AWG', areaCmil: 133100, xl: { pvc: 0.043, aluminium: 0.043, steel: 0.054 }, rCu: { pvc: 0.1, steel: 0.1 }, rAl: { pvc: 0.16 }, zeCu085: { pvc: 0.11, steel: 0.11 }, provenance: T9_ZE_PVC_ONE_COPY },
+  { size: '3/0 AWG', areaCmil: 167800, xl: { pvc: 0.042, aluminium: 0.042, steel: 0.052 }, rCu: { pvc: 0.077, aluminium: 0.082, steel: 0.079 }, rAl: { pvc: 0.13 }, zeCu085: { pvc: 0.088, steel: 0.094 }, provenance: T9_ZE_PVC_ONE_COPY },
+  { size: '4/0 AWG', areaCmil: 211600, xl: { pvc: 0.041, aluminium: 0.041, steel: 0.051 }, rCu: { pvc: 0.062, aluminium: 0.067, steel: 0.063 }, rAl: { pvc: 0.1 }, zeCu085: { pvc: 0.074, steel: 0.08 }, provenance: T9_ZE_PVC_ONE_COPY },
+  { size: '250 kcmil', areaCmil: 250000, xl: { pvc: 0.041, aluminium: 0.041, steel: 0.052 }, rCu: { pvc: 0.052, aluminium: 0.057, steel: 0.054 }, rAl: { pvc: 0.085, steel: 0.086 }, zeCu085: { pvc: 0.066, steel: 0.073 }, provenance: T9_ZE_PVC_ONE_COPY },
+  { size: '300 kcmil', areaCmil: 300000, xl: { pvc: 0.041, aluminium: 0.041, steel: 0.051 }, rCu: { pvc: 0.044, steel: 0.045 }, rAl: { pvc: 0.071 }, zeCu085: { pvc: 0.059, steel: 0.065 }, provenance: T9_ZE_PVC_ONE_COPY },
+  { size: '350 kcmil', areaCmil: 350000, xl: { pvc: 0.04, aluminium: 0.04, steel: 0.05 }, rCu: { pvc: 0.038, steel: 0.039 }, rAl: { pvc: 0.061 }, zeCu085: { pvc: 0.053, steel: 0.06 }, provenance: T9_ZE_PVC_ONE_COPY },
+  { size: '400 kcmil', areaCmil: 400000, xl: { pvc: 0.04, aluminium: 0.04, steel: 0.049 }, rCu: { pvc: 0.033, steel: 0.035 }, rAl: { pvc: 0.054 }, zeCu085: { pvc: 0.049, steel: 0.056 }, provenance: T9_ZE_PVC_ONE_COPY },
+  { size: '500 kcmil', areaCmil: 500000, xl: { pvc: 0.039, aluminium: 0.039, steel: 0.048 }, rCu: { pvc: 0.027, aluminium: 0.032, steel: 0.029 }, rAl: { pvc: 0.043, steel: 0.045 }, zeCu085: { pvc: 0.043, steel: 0.05 }, provenance: T9_ZE_PVC_ONE_COPY },
 ];
 
 /** Power factor at which Table 9 prints its effective-Z columns. */

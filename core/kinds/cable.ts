@@ -37,7 +37,7 @@ const conductorSchema = z.discriminatedUnion(
       ...common,
       insulationRating: rating,
       terminationRating: z.optional(rating),
-      raceway: z.optional(z.enum(['pvc', 'aluminum', 'steel'], { error: 'must be "pvc", "aluminum" or "steel" (NEC Chapter 9 Table 9 raceway)' })),
+      raceway: z.optional(z.enum(['pvc', 'aluminium', 'steel'], { error: 'must be "pvc", "aluminium" or "steel" (NEC Chapter 9 Table 9 raceway)' })),
       currentCarryingConductors: z.optional(rangedCount('conductorCount')),
       multioutletBranch: z.optional(z.boolean({ error: 'must be true or false' })),
       motorDevice: z.optional(

@@ -6,13 +6,13 @@ import { defineKind, fromField, idField, nameField } from './spec.ts';
 import { ranged } from './ranges.ts';
 
 export const dcbusKind = defineKind<DcBusStage>({
-  kind: 'dcbus',
+  kind: 'dc-bus',
   role: 'stage',
   accepts: () => ['dc'],
   schema: z.strictObject({
     id: idField,
     name: nameField,
-    kind: z.literal('dcbus'),
+    kind: z.literal('dc-bus'),
     from: fromField,
     fixedLoss: ranged('power', 'non-negative'),
   }) as z.ZodMiniType<DcBusStage>,

@@ -5,13 +5,13 @@ import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameFi
 import { ranged } from './ranges.ts';
 
 export const dcdcKind = defineKind<DcDcStage>({
-  kind: 'dcdc',
+  kind: 'dc-dc',
   role: 'stage',
   accepts: () => ['dc'],
   schema: z.strictObject({
     id: idField,
     name: nameField,
-    kind: z.literal('dcdc'),
+    kind: z.literal('dc-dc'),
     from: fromField,
     outputVoltage: ranged('voltage'),
     loss: lossModelSchema,

@@ -1,7 +1,7 @@
 /**
  * Pump (or fan) on a motor shaft: a load whose shaft power follows from its flow and head.
  *
- * Methods (the functions are shared with the flow-control study, core/physics/pump-fan.ts):
+ * Methods (the functions are shared with the pump duty study, core/physics/pump-fan.ts):
  * - pump curve at full speed, quadratic (common practice): H(Q) = H0 − a·Q², a = (H0 − H_r)/Q_r²;
  * - system curve with static head: H_sys(Q) = H_s + k·Q², k = (H_r − H_s)/Q_r², meeting the
  *   full-speed pump curve at the rated point;
@@ -94,8 +94,8 @@ export const pumpKind = defineKind<PumpLoad>({
   },
 });
 
-/** Schema of the project's `flowStudy` field (single-field ranges; the pump id, flows against its rating and the hours of a year are checked by projectFlowStudy, core/studies/machines/pump-duty.ts). */
-export const flowStudySchema = z.strictObject({
+/** Schema of the project's `pumpDuty` field (single-field ranges; the pump id, flows against its rating and the hours of a year are checked by projectPumpDuty, core/studies/machines/pump-duty.ts). */
+export const pumpDutySchema = z.strictObject({
   pump: z.string({ error: 'must be the id of a pump element' }).check(z.minLength(1, 'must be the id of a pump element')),
   duty: z
     .array(

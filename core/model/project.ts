@@ -150,7 +150,7 @@ export interface RectifierStage extends FedElement {
 
 /** DC → DC converter, regulating its output. */
 export interface DcDcStage extends FedElement {
-  kind: 'dcdc';
+  kind: 'dc-dc';
   outputVoltage: number;
   loss: LossModel;
   /**
@@ -164,7 +164,7 @@ export interface DcDcStage extends FedElement {
 
 /** A DC bus or distribution board: passes voltage through, with its own fixed loss. */
 export interface DcBusStage extends FedElement {
-  kind: 'dcbus';
+  kind: 'dc-bus';
   /** Fixed loss of the bus itself (monitoring, fans, contactor coils), W. */
   fixedLoss: number;
 }
@@ -303,7 +303,7 @@ export interface MotorStarting {
 }
 
 /** NEC raceway type, for the reactance (and AC resistance) columns of NEC Chapter 9 Table 9. */
-export type NecRaceway = 'pvc' | 'aluminum' | 'steel';
+export type NecRaceway = 'pvc' | 'aluminium' | 'steel';
 
 /** IEC 60364-5-52 reference installation methods (Table B.52.1). */
 export type IecInstallationMethod = 'A1' | 'A2' | 'B1' | 'B2' | 'C' | 'D1' | 'D2' | 'E' | 'F' | 'G';
@@ -536,7 +536,7 @@ export type ElementKind = Element['kind'];
 /** A whole project as stored and exchanged (schema-versioned). */
 export interface Project {
   format: 'joulepath-project';
-  version: 1;
+  version: 2;
   name: string;
   description?: string;
   /** Every element of the tree; the single source has no `from`. Order does not matter. */
@@ -546,11 +546,11 @@ export interface Project {
   /** Voltage-drop limits the whole-path check flags against (default: 3 % per link, 5 % total). */
   dropLimits?: DropLimits;
   /** Flow-control comparison at a duty profile for a `pump` element (core/studies/machines/pump-duty.ts). */
-  flowStudy?: ProjectFlowStudy;
+  pumpDuty?: PumpDutyStudy;
 }
 
 /** The pump element to study and its duty: flow (m³/s) and hours per year at that flow. */
-export interface ProjectFlowStudy {
+export interface PumpDutyStudy {
   pump: string;
   duty: { flow: number; hours: number }[];
 }

@@ -133,7 +133,7 @@ export interface ConductorStep {
 export type GoverningRule = 'ampacity' | 'voltage-drop' | 'protection' | 'smallest-size' | 'fixed';
 
 /** What a link's design current was taken from (core/conductors/design-current.ts). */
-export type DesignBasisKind = 'load-nominal' | 'motor-branch' | 'motor-feeder' | 'drive-input' | 'inverter-input' | 'charger-output' | 'dcdc-input' | 'dc-feeder' | 'given';
+export type DesignBasisKind = 'load-nominal' | 'motor-branch' | 'motor-feeder' | 'drive-input' | 'inverter-input' | 'charger-output' | 'dc-dc-input' | 'dc-feeder' | 'given';
 
 /** Conductor sizing result of one cable link (SI units; percentages as % numbers). */
 export interface ConductorResult {

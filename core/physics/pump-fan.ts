@@ -68,8 +68,8 @@ export function pumpShaftPower(p: PumpCurve, flow: number, head: number): number
   return hydraulicPower(p, flow, head) / p.efficiency;
 }
 
-export interface FlowStudyInput {
-  /** Name used in messages (default "flowStudy"). */
+export interface PumpDutyInput {
+  /** Name used in messages (default "pumpDuty"). */
   id?: string;
   pump: PumpCurve;
 
@@ -130,7 +130,7 @@ export interface MethodEnergy {
   driveLossWh: number;
 }
 
-export interface FlowControlResult {
+export interface PumpControlResult {
   designPoint: { flow: number; head: number; shaftPower: number; inputPower: number; motorLoadFraction: number };
   points: DutyPointResult[];
   speedControl: MethodEnergy;
@@ -152,7 +152,7 @@ export interface FlowControlResult {
   method: string;
 }
 
-export type FlowControlOutcome = { ok: true; result: FlowControlResult } | { ok: false; problems: Problem[] };
+export type PumpControlOutcome = { ok: true; result: PumpControlResult } | { ok: false; problems: Problem[] };
 
 /** A duty row's flow of 0 or less: refused in the pump element's words for its own flow (core/kinds/pump.ts). */
 export const DUTY_FLOW_MESSAGE = 'must be greater than 0 m³/s, as the pump\'s own flow (hours the pump stands still use no energy by any method: leave them out)';
@@ -163,8 +163,8 @@ const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'obj
 
 /** The study's parts must be objects (and the duty a list) before their fields can be read (input may be parsed JSON). */
 function checkShape(input: unknown): Problem[] {
-  if (!isObject(input)) return [{ code: 'invalid-value', elementId: 'flowStudy', field: '', value: input, message: 'must be an object with pump, staticHead, duty, motor and drive' }];
-  const id = typeof input['id'] === 'string' ? input['id'] : 'flowStudy';
+  if (!isObject(input)) return [{ code: 'invalid-value', elementId: 'pumpDuty', field: '', value: input, message: 'must be an object with pump, staticHead, duty, motor and drive' }];
+  const id = typeof input['id'] === 'string' ? input['id'] : 'pumpDuty';
   const out: Problem[] = [];
   for (const part of ['pump', 'motor', 'drive'] as const) {
     if (!isObject(input[part])) out.push({ code: 'invalid-value', elementId: id, field: part, value: input[part], message: input[part] === undefined ? 'is required' : 'must be an object' });
@@ -177,7 +177,7 @@ function checkShape(input: unknown): Problem[] {
 }
 
 /** Field checks; every problem names the study and the field. */
-function checkInput(s: FlowStudyInput, id: string): Problem[] {
+function checkInput(s: PumpDutyInput, id: string): Problem[] {
   const out: Problem[] = [];
   const bad = (field: string, value: unknown, message: string) => out.push({ code: 'invalid-value', elementId: id, field, value, message });
   const p = s.pump;
@@ -214,10 +214,10 @@ function checkInput(s: FlowStudyInput, id: string): Problem[] {
  * yearly electrical energy of each (motor and drive losses included) and the differences.
  * Bad input gives problems naming the field; nothing is computed from it.
  */
-export function compareFlowControl(input: FlowStudyInput): FlowControlOutcome {
+export function comparePumpControl(input: PumpDutyInput): PumpControlOutcome {
   const shape = checkShape(input);
   if (shape.length) return { ok: false, problems: shape };
-  const id = input.id ?? 'flowStudy';
+  const id = input.id ?? 'pumpDuty';
   const problems = checkInput(input, id);
   if (problems.length) return { ok: false, problems };
   const motorElement = { id, kind: 'motor', from: '', ...input.motor } as MotorStage;
@@ -249,7 +249,7 @@ export function compareFlowControl(input: FlowStudyInput): FlowControlOutcome {
   return { ok: true, result };
 }
 
-function compute(s: FlowStudyInput, rating: MotorRating, grid: DriveLossGrid): FlowControlResult {
+function compute(s: PumpDutyInput, rating: MotorRating, grid: DriveLossGrid): PumpControlResult {
   const { ratedFlow: Qr, ratedHead: Hr } = s.pump;
   const Hs = s.staticHead;
   const Prated = s.motor.ratedOutput;

@@ -23,9 +23,9 @@ import { plan, type PlannedElement } from './plan.ts';
 import { MAX_SWEEPS, TOLERANCE, sweep } from './sweep.ts';
 
 /** Kinds whose input power depends on their input voltage and that pass DC on (re-solved per step). */
-const PASSIVE = new Set<Element['kind']>(['cable', 'dcbus']);
+const PASSIVE = new Set<Element['kind']>(['cable', 'dc-bus']);
 /** Kinds whose input power depends on their output power only. */
-const REGULATING = new Set<Element['kind']>(['dcdc', 'inverter', 'generic', 'rectifier', 'drive']);
+const REGULATING = new Set<Element['kind']>(['dc-dc', 'inverter', 'generic', 'rectifier', 'drive']);
 
 /** Operating point of one step, at the bank. */
 export interface StepPoint {
@@ -315,7 +315,7 @@ function dcEquivalent(e: Element, model: ElementModel): { resistance: number; fi
   if (e.kind === 'cable') {
     if (e.resistancePerKm === undefined || e.conductor) return null;
     resistance = (e.resistancePerKm * 2 * e.length) / 1000 / (e.parallelSets ?? 1);
-  } else if (e.kind === 'dcbus') {
+  } else if (e.kind === 'dc-bus') {
     fixedLoss = e.fixedLoss;
   } else {
     return null;

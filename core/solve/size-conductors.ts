@@ -109,7 +109,7 @@ function nominalVoltages(order: readonly PlannedElement[]): number[] {
         break;
       }
       case 'rectifier':
-      case 'dcdc':
+      case 'dc-dc':
       case 'inverter':
       case 'drive':
       case 'generic':

@@ -182,7 +182,7 @@ function loadBelow(order: readonly PlannedElement[], sIn: readonly Complex[], i:
 }
 
 /** Elements that pass a load's current on (scaled by a ratio at most): a current beyond them is still a current. */
-const PASS_THROUGH = new Set<Element['kind']>(['cable', 'dcbus', 'transformer']);
+const PASS_THROUGH = new Set<Element['kind']>(['cable', 'dc-bus', 'transformer']);
 
 /**
  * The constant-current loads below element i when everything the link carries is such loads

@@ -2,6 +2,7 @@
  * Step 1 of the solve: check the project file field by field and the tree's shape (structure.ts).
  * Every problem names the element and the field; nothing is computed from a project that has any.
  */
+import { OLDEST_PROJECT_VERSION, PROJECT_VERSION, migrateProject } from '../model/migrate.ts';
 import { z } from 'zod/mini';
 import type { Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
@@ -10,19 +11,24 @@ import { checkStructure, skeletonOf } from './structure.ts';
 import { issueMessage, unknownKindMessage } from './issue-messages.ts';
 import { backupSchema, reservedKeyProblems } from './load-profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
-import { flowStudySchema } from '../kinds/pump.ts';
+import { pumpDutySchema } from '../kinds/pump.ts';
 
 export const projectShape = z.strictObject({
   /** The JSON Schema an editor checks the file against (schema/joulepath-project.schema.json); not read by the engine. */
   $schema: z.optional(z.string({ error: 'must be text (the address of the file format\'s JSON Schema)' })),
   format: z.literal('joulepath-project', { error: 'must be "joulepath-project"' }),
-  version: z.literal(1, { error: 'must be 1 (the only schema version so far)' }),
+  version: z.literal(PROJECT_VERSION, {
+    error: (issue) =>
+      typeof issue.input === 'number' && Number.isInteger(issue.input) && issue.input > PROJECT_VERSION
+        ? `is ${issue.input}: the file was written by a newer version of Joulepath, which this one (format ${PROJECT_VERSION}) cannot read; update the app`
+        : `must be ${PROJECT_VERSION} (files of format ${OLDEST_PROJECT_VERSION} are brought up to date as they are read)`,
+  }),
   name: z.string({ error: 'must be text' }),
   description: z.optional(z.string({ error: 'must be text' })),
   elements: z.array(z.unknown(), { error: 'must be a list of elements' }),
   backup: z.optional(backupSchema),
   dropLimits: z.optional(dropLimitsSchema),
-  flowStudy: z.optional(flowStudySchema),
+  pumpDuty: z.optional(pumpDutySchema),
 });
 
 /**
@@ -87,7 +93,9 @@ function validateElement(raw: unknown, index: number): { element?: Element; prob
 }
 
 /** Check the file, every element and the tree's shape. Port kinds are checked by `plan`. */
-export function validateProject(input: unknown): Validated {
+export function validateProject(file: unknown): Validated {
+  // An older format is brought up to date first (core/model/migrate.ts); the problems name today's fields.
+  const input = migrateProject(file).value;
   const top = projectShape.safeParse(input, { error: issueMessage });
   if (!top.success) return { ok: false, problems: fromIssues(top.error.issues, 'project', input) };
   const problems: Problem[] = [];

@@ -99,7 +99,7 @@ export function lossCostPerYear(result: SolveResult, settings: CostSettings): Lo
   return { ok: true, cost: { pricePerKWh, hoursPerYear, rows, totalLossW, totalEnergyKWh, totalCost } };
 }
 
-/** Yearly energy of each flow-control method (Wh, as the flow study gives it). */
+/** Yearly energy of each flow-control method (Wh, as the pump duty study gives it). */
 export interface MethodEnergies {
   speedControl: { energyWh: number };
   throttle: { energyWh: number };
@@ -116,7 +116,7 @@ export interface MethodCosts {
 }
 
 /** The yearly energy cost of each flow-control method and the drive's savings (cost = E × price). */
-export function flowStudyCosts(energies: MethodEnergies, pricePerKWh: number): { ok: true; costs: MethodCosts } | { ok: false; problems: Problem[] } {
+export function pumpDutyCosts(energies: MethodEnergies, pricePerKWh: number): { ok: true; costs: MethodCosts } | { ok: false; problems: Problem[] } {
   const problems = checkCostSettings({ pricePerKWh, hoursPerYear: 0 });
   if (problems.length) return { ok: false, problems };
   const speedControl = energyCost(energies.speedControl.energyWh, pricePerKWh);

@@ -18,7 +18,7 @@ const scratch = mkdtempSync(join(tmpdir(), 'joulepath-pf-cli-'));
 /** An invented workshop: a compressor entered by its elements behind a 90 m feeder. */
 const workshop = {
   format: 'joulepath-project',
-  version: 1,
+  version: 2,
   name: 'Workshop compressor feeder',
   elements: [
     { id: 'sup', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },

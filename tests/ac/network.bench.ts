@@ -20,7 +20,7 @@ for (let k = 1; k <= 20; k++) {
     network: { parallel: [{ series: [{ resistor: `${40 + k} Ω` }, { inductor: `${90 + 2 * k} mH` }] }, { capacitor: '4.7 µF' }] },
   });
 }
-const plant = { format: 'joulepath-project', version: 1, name: 'Plant room', elements };
+const plant = { format: 'joulepath-project', version: 2, name: 'Plant room', elements };
 
 /** 100 components: 25 groups in series, each R + L in parallel with C and a further R. */
 const ladder: CircuitNetwork = {

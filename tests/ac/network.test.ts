@@ -11,7 +11,7 @@
 import { describe, expect, it } from 'vitest';
 import { describeNetworkLoads, networkImpedance, parseNetwork, solveProject, type Project, type SolveResult } from '../../core/index.ts';
 
-const project = (elements: unknown[]): Project => ({ format: 'joulepath-project', version: 1, name: 'network test', elements }) as Project;
+const project = (elements: unknown[]): Project => ({ format: 'joulepath-project', version: 2, name: 'network test', elements }) as Project;
 
 function solved(p: Project): SolveResult {
   const out = solveProject(p);

@@ -22,7 +22,7 @@ import {
 } from '../../core/index.ts';
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
-const project = (elements: unknown[]): Project => ({ format: 'joulepath-project', version: 1, name: 'pf test', elements }) as Project;
+const project = (elements: unknown[]): Project => ({ format: 'joulepath-project', version: 2, name: 'pf test', elements }) as Project;
 
 function corrected(p: unknown, request: Parameters<typeof correctPowerFactor>[1]): PfCorrection {
   const out = correctPowerFactor(p, request);

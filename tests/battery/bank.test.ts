@@ -165,7 +165,7 @@ describe('temperature and aging in the runtime', () => {
 describe('static solve with a bank', () => {
   const project = (battery: object): Project => ({
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 't',
     elements: [{ id: 'bank', kind: 'battery', ...battery } as never, { id: 'load', kind: 'dc-load', from: 'bank', power: 1000 }],
   });

@@ -10,7 +10,7 @@ export function batteryBenchProject(): Project {
   const elements: Element[] = [
     { id: 'bank', kind: 'battery', bank: { chemistry: 'lifepo4', series: 16, strings: 2, capacityAh: 280 } },
     { id: 'bank-cable', kind: 'cable', from: 'bank', length: 2, resistancePerKm: 0.39 },
-    { id: 'bus', kind: 'dcbus', from: 'bank-cable', fixedLoss: 8 },
+    { id: 'bus', kind: 'dc-bus', from: 'bank-cable', fixedLoss: 8 },
     { id: 'inv-cable', kind: 'cable', from: 'bus', length: 3, resistancePerKm: 0.78 },
     {
       id: 'inverter', kind: 'inverter', from: 'inv-cable', phases: 1, outputVoltage: 230, frequency: 50,
@@ -21,10 +21,10 @@ export function batteryBenchProject(): Project {
     { id: 'lights', kind: 'ac-load', from: 'board-cable', power: 150, powerFactor: 0.95 },
     { id: 'pump', kind: 'ac-va-load', from: 'board-cable', apparentPower: 500, powerFactor: 0.85 },
     { id: 'dcdc-cable', kind: 'cable', from: 'bus', length: 4, resistancePerKm: 1.83 },
-    { id: 'dcdc', kind: 'dcdc', from: 'dcdc-cable', outputVoltage: 24, loss: { model: 'polynomial', p0: 4, k1: 0.03, k2: 1e-4 } },
-    { id: 'radio-cable', kind: 'cable', from: 'dcdc', length: 10, resistancePerKm: 3.08 },
+    { id: 'dc-dc', kind: 'dc-dc', from: 'dcdc-cable', outputVoltage: 24, loss: { model: 'polynomial', p0: 4, k1: 0.03, k2: 1e-4 } },
+    { id: 'radio-cable', kind: 'cable', from: 'dc-dc', length: 10, resistancePerKm: 3.08 },
     { id: 'radios', kind: 'dc-load', from: 'radio-cable', power: 120 },
-    { id: 'fan-psu', kind: 'dcdc', from: 'bus', outputVoltage: 12, loss: { model: 'constant', efficiency: 0.9, idleLoss: 1 } },
+    { id: 'fan-psu', kind: 'dc-dc', from: 'bus', outputVoltage: 12, loss: { model: 'constant', efficiency: 0.9, idleLoss: 1 } },
     { id: 'fans', kind: 'dc-load', from: 'fan-psu', power: 30 },
   ];
   const backup: BackupStudy = {
@@ -44,7 +44,7 @@ export function batteryBenchProject(): Project {
     horizonHours: 48,
     temperatureC: 20,
   };
-  return { format: 'joulepath-project', version: 1, name: 'Bench: cabinet on a 48 V bank', elements, backup };
+  return { format: 'joulepath-project', version: 2, name: 'Bench: cabinet on a 48 V bank', elements, backup };
 }
 
 /** A bank spec with defaults for tests. */

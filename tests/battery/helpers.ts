@@ -5,7 +5,7 @@ import type { BackupStudy, BatteryBankSpec, Element, Project } from '../../core/
 export function directLoad(bank: BatteryBankSpec, power: number, study: Partial<BackupStudy> = {}, extra: Element[] = []): Project {
   return {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'test: bank and one DC load',
     elements: [{ id: 'bank', kind: 'battery', bank }, { id: 'load', kind: 'dc-load', from: 'bank', power }, ...extra],
     backup: { profile: { kind: 'constant' }, horizonHours: 400, ...study },

@@ -196,7 +196,7 @@ describe('profile keys', () => {
     // a segment that names no load leaves every load at its rating, whatever the load is called.
     const project: Project = {
       format: 'joulepath-project',
-      version: 1,
+      version: 2,
       name: 'own keys',
       elements: [
         { id: 'bank', kind: 'battery', voltage: 48, internalResistance: 0.01 },

@@ -14,7 +14,7 @@
  */
 import type { Element, Project } from '../../core/index.ts';
 
-const project = (name: string, elements: Element[]): Project => ({ format: 'joulepath-project', version: 1, name, elements });
+const project = (name: string, elements: Element[]): Project => ({ format: 'joulepath-project', version: 2, name, elements });
 
 const grid: Element = { id: 'grid', kind: 'grid', phases: 3, voltage: 400, frequency: 50, resistance: 0.001, reactance: 0.003 };
 
@@ -39,7 +39,7 @@ export function deepConverters(n: number): Project {
   for (let i = 1; i <= n - 2; i++) {
     const id = `dcdc${i}`;
     // 99.99 %: 2000 stages in series lose about 18 % of the power, well inside what the bank gives.
-    elements.push({ id, kind: 'dcdc', from, outputVoltage: i % 2 ? 24 : 48, loss: { model: 'constant', efficiency: 0.9999 } });
+    elements.push({ id, kind: 'dc-dc', from, outputVoltage: i % 2 ? 24 : 48, loss: { model: 'constant', efficiency: 0.9999 } });
     from = id;
   }
   elements.push({ id: 'load', kind: 'dc-load', from, power: 100 });

@@ -9,10 +9,10 @@ export function twentyStageTree(): Project {
     { id: 'tx', kind: 'transformer', from: 'main-cable', ratedApparentPower: 100e3, primaryVoltage: 400, secondaryVoltage: 400, noLoadLoss: 250, loadLoss: 1200, impedancePercent: 4 },
     { id: 'rect', kind: 'rectifier', from: 'tx', outputVoltage: 400, inputPowerFactor: 0.98,
       loss: { model: 'curve', ratedPower: 20e3, points: [ { loadFraction: 0.1, efficiency: 0.9 }, { loadFraction: 0.5, efficiency: 0.96 }, { loadFraction: 1, efficiency: 0.955 } ] } },
-    { id: 'bus', kind: 'dcbus', from: 'rect', fixedLoss: 20 },
+    { id: 'bus', kind: 'dc-bus', from: 'rect', fixedLoss: 20 },
     { id: 'dc-cable', kind: 'cable', from: 'bus', length: 15, resistancePerKm: 1.15 },
-    { id: 'dcdc', kind: 'dcdc', from: 'dc-cable', outputVoltage: 48, loss: { model: 'polynomial', p0: 5, k1: 0.02, k2: 1e-5 } },
-    { id: 'dc-load', kind: 'dc-load', from: 'dcdc', power: 600 },
+    { id: 'dc-dc', kind: 'dc-dc', from: 'dc-cable', outputVoltage: 48, loss: { model: 'polynomial', p0: 5, k1: 0.02, k2: 1e-5 } },
+    { id: 'dc-load', kind: 'dc-load', from: 'dc-dc', power: 600 },
     { id: 'inv', kind: 'inverter', from: 'bus', phases: 1, outputVoltage: 230, frequency: 50, loss: { ...eff(0.95), idleLoss: 30 } },
     { id: 'ups-load', kind: 'ac-load', from: 'inv', power: 2500, powerFactor: 0.9 },
     { id: 'drive', kind: 'drive', from: 'tx', outputVoltage: 400, outputFrequency: 45, inputPowerFactor: 0.95,
@@ -27,5 +27,5 @@ export function twentyStageTree(): Project {
     { id: 'caps', kind: 'ac-load', from: 'tx', power: 10, powerFactor: 0.05, pfSense: 'leading' },
     { id: 'sockets', kind: 'ac-va-load', from: 'tx', apparentPower: 5000, powerFactor: 0.9 },
   ];
-  return { format: 'joulepath-project', version: 1, name: 'Bench: plant room', elements };
+  return { format: 'joulepath-project', version: 2, name: 'Bench: plant room', elements };
 }

@@ -97,7 +97,7 @@ describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
       // the check does not depend on the order in which the engine validates).
       const broken = {
         format: 'joulepath-project',
-        version: 1,
+        version: 2,
         name: 'Broken on purpose',
         elements: [
           { id: 'supply', kind: 'battery', voltage: 48 },

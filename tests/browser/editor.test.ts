@@ -221,7 +221,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
         // A project the engine refuses: the card of the element at fault carries a mark in words.
         const broken = {
           format: 'joulepath-project',
-          version: 1,
+          version: 2,
           name: 'Broken on purpose',
           elements: [
             { id: 'supply', kind: 'battery', voltage: 48 },

@@ -15,7 +15,7 @@ import { newRecordedPage, waitForResults } from './offline-helpers.ts';
 /** A project whose names hold characters XML 1.0 forbids (NUL, BEL, backspace, ESC, U+FFFE, an unpaired surrogate). */
 const controlNames = {
   format: 'joulepath-project',
-  version: 1,
+  version: 2,
   name: 'Site\u0007 plan\uFFFE',
   elements: [
     { id: 'bank', kind: 'battery', voltage: 48, internalResistance: 0.01, name: 'Bank\u0000 A' },

@@ -11,7 +11,7 @@ import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
 import { dumpStore, duplicateLastStage, newRecordedPage, storedRecords, waitForResults, waitSaved } from './offline-helpers.ts';
 
-const project = { format: 'joulepath-project', version: 1, name: 'Import check', elements: [{ id: 'bank', kind: 'battery', voltage: 48 }, { id: 'lamp', kind: 'dc-load', from: 'bank', power: 40 }] };
+const project = { format: 'joulepath-project', version: 2, name: 'Import check', elements: [{ id: 'bank', kind: 'battery', voltage: 48 }, { id: 'lamp', kind: 'dc-load', from: 'bank', power: 40 }] };
 const envelope = (p: unknown, extra: object = {}) => JSON.stringify({ format: 'joulepath-export', exportVersion: 1, project: p, ...extra });
 
 /** [label, file bytes, expected message] — bad files of our own making. */

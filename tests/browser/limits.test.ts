@@ -17,7 +17,7 @@ import { newRecordedPage, storedRecords, waitForResults, waitSaved } from './off
 function wide(count: number) {
   const elements: Record<string, unknown>[] = [{ id: 'bank', kind: 'battery', voltage: 48, internalResistance: 0.01 }];
   for (let i = 1; i < count; i++) elements.push({ id: `l${i}`, kind: 'dc-load', from: 'bank', power: 1 });
-  return { format: 'joulepath-project', version: 1, name: 'Two thousand loads', elements };
+  return { format: 'joulepath-project', version: 2, name: 'Two thousand loads', elements };
 }
 
 describe.skipIf(skipWithout('chromium'))('the project file\'s limits while editing, in Chromium', () => {

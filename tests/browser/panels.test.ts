@@ -9,7 +9,7 @@ import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
-import { correctPowerFactor, demoProjects, formatBackupStudy, projectFlowStudy, runBackupStudy, solveProject } from '../../core/index.ts';
+import { correctPowerFactor, demoProjects, formatBackupStudy, projectPumpDuty, runBackupStudy, solveProject } from '../../core/index.ts';
 import { lossCostPerYear } from '../../core/studies/economics.ts';
 import { formatDuration, formatEnergy, formatReactive, formatSignificant } from '../../web/format/number.ts';
 import { formatMoney } from '../../web/format/panels.ts';
@@ -193,9 +193,9 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
     }
   });
 
-  it('machines: the flow study energies, a capacitor bank, the yearly cost of the losses', async () => {
+  it('machines: the pump duty study energies, a capacitor bank, the yearly cost of the losses', async () => {
     const project = demo('riverside-pump-station');
-    const flow = projectFlowStudy(project);
+    const flow = projectPumpDuty(project);
     if (!flow.ok) throw new Error(JSON.stringify(flow.problems));
     // The motor is fed by the drive: no bank there (issue 14, point 13); the control offers the service first.
     const pfc = correctPowerFactor(project, { at: 'service', targetPowerFactor: 0.95 });

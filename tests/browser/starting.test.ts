@@ -95,7 +95,7 @@ describe.skipIf(skipWithout('chromium'))('the motor-starting and fault panel in 
     // An invented project: a heater at pf 1 and a pump load at pf 0.97 lagging on a stiff 400 V supply.
     const good = {
       format: 'joulepath-project',
-      version: 1,
+      version: 2,
       name: 'Good power factor',
       elements: [
         { id: 'sup', name: 'Supply', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },

@@ -218,7 +218,7 @@ describe.skipIf(skipWithout('chromium'))('stored projects under faults in Chromi
         const o = indexedDB.open('joulepath');
         o.onsuccess = () => {
           const tx = o.result.transaction('projects', 'readwrite');
-          tx.objectStore('projects').put({ ...${JSON.stringify(record)}, storageVersion: 2, revision: 40, wiring: { sheets: 3 } }, 'project:${record!.id}');
+          tx.objectStore('projects').put({ ...${JSON.stringify(record)}, storageVersion: 3, revision: 40, wiring: { sheets: 3 } }, 'project:${record!.id}');
           tx.oncomplete = () => { o.result.close(); resolve(true); };
           tx.onerror = () => reject(tx.error);
         };
@@ -230,7 +230,7 @@ describe.skipIf(skipWithout('chromium'))('stored projects under faults in Chromi
       const edited = await cardIds(page);
       const alert = page.getByTestId('save-failed');
       await alert.waitFor();
-      expect(await alert.innerText()).toMatch(/newer version of Joulepath \(storage layout 2\).*update the app/s);
+      expect(await alert.innerText()).toMatch(/newer version of Joulepath \(storage layout 3\).*update the app/s);
       await page.waitForTimeout(500);
       expect(await dumpStore(page)).toBe(before);
       // The list shows it as unreadable, with the same advice; nothing is offered that would write.

@@ -15,7 +15,7 @@ import { cardCount, duplicateLastStage, median, newRecordedPage, storedRecords, 
 function bigProject(): object {
   return {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'Two hundred stages',
     elements: [
       { id: 'bank', kind: 'battery', voltage: 48, name: 'Bank' },

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { solveProject, type ConductorResult, type Problem } from '../../core/index.ts';
 
-const project = (elements: unknown[]) => ({ format: 'joulepath-project', version: 1, name: 'design basis case', elements });
+const project = (elements: unknown[]) => ({ format: 'joulepath-project', version: 2, name: 'design basis case', elements });
 function cond(elements: unknown[], id = 'run'): ConductorResult {
   const out = solveProject(project(elements));
   if (!out.ok) throw new Error(JSON.stringify(out.problems));
@@ -189,9 +189,9 @@ describe('equipment ratings: drive input, charger output, DC-DC input', () => {
       { id: 'src', kind: 'grid', phases: 1, voltage: 240, frequency: 60 },
       { id: 'chg', kind: 'rectifier', from: 'src', outputVoltage: 54, inputPowerFactor: 0.99, ratedOutputCurrent: 40, loss: { model: 'constant', efficiency: 0.94 } },
       { id: 'run', kind: 'cable', from: 'chg', length: 3, conductor: nec() },
-      { id: 'bus', kind: 'dcbus', from: 'run', fixedLoss: 0 },
+      { id: 'bus', kind: 'dc-bus', from: 'run', fixedLoss: 0 },
       { id: 'feed', kind: 'cable', from: 'bus', length: 3, conductor: nec() },
-      { id: 'conv', kind: 'dcdc', from: 'feed', outputVoltage: 12, ratedOutputPower: 600, minInputVoltage: 42, loss: { model: 'constant', efficiency: 0.9 } },
+      { id: 'conv', kind: 'dc-dc', from: 'feed', outputVoltage: 12, ratedOutputPower: 600, minInputVoltage: 42, loss: { model: 'constant', efficiency: 0.9 } },
       { id: 'ld', kind: 'dc-load', from: 'conv', power: 200 },
       { id: 'lamp', kind: 'dc-load', from: 'bus', power: 300 },
     ];
@@ -199,7 +199,7 @@ describe('equipment ratings: drive input, charger output, DC-DC input', () => {
     expect(charger.designBasis.basis).toBe('charger-output');
     expect(charger.designCurrent).toBeCloseTo(50, 12); // 1.25 × 40 A (hand)
     const feed = cond(elements, 'feed');
-    expect(feed.designBasis.basis).toBe('dcdc-input');
+    expect(feed.designBasis.basis).toBe('dc-dc-input');
     expect(feed.designCurrent).toBeCloseTo((1.25 * 600) / (0.9 * 42), 9); // 19.84 A (hand)
   });
 });
@@ -209,10 +209,10 @@ describe('a DC feeder to a bus with converters (a bank to its bus)', () => {
     const c = cond([
       { id: 'src', kind: 'battery', voltage: 51.2 },
       { id: 'run', kind: 'cable', from: 'src', length: 2, conductor: nec({ insulationRating: 90 }) },
-      { id: 'bus', kind: 'dcbus', from: 'run', fixedLoss: 0 },
+      { id: 'bus', kind: 'dc-bus', from: 'run', fixedLoss: 0 },
       { id: 'inv', kind: 'inverter', from: 'bus', phases: 1, outputVoltage: 230, frequency: 50, ratedOutputPower: 3000, lowVoltageCutoff: 44, loss: { model: 'constant', efficiency: 0.94 } },
       { id: 'ac', kind: 'ac-load', from: 'inv', power: 500, powerFactor: 1 },
-      { id: 'conv', kind: 'dcdc', from: 'bus', outputVoltage: 12, ratedOutputPower: 240, minInputVoltage: 40, loss: { model: 'constant', efficiency: 0.9 } },
+      { id: 'conv', kind: 'dc-dc', from: 'bus', outputVoltage: 12, ratedOutputPower: 240, minInputVoltage: 40, loss: { model: 'constant', efficiency: 0.9 } },
       { id: 'radio', kind: 'dc-load', from: 'conv', power: 60 },
       { id: 'lamp', kind: 'dc-load', from: 'bus', power: 51.2 },
     ]);

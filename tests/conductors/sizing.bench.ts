@@ -11,7 +11,7 @@ const coldStore = demoProjects.find((d) => d.id === 'cold-store-dc-bus')!.projec
 const nec = { system: 'nec', material: 'copper', size: 'auto', insulationRating: 75 };
 const feeder = {
   format: 'joulepath-project',
-  version: 1,
+  version: 2,
   name: 'bench: three sized links',
   elements: [
     { id: 'g', kind: 'grid', phases: 3, voltage: 480, frequency: 60 },

@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { CONDUCTOR_CAUTION, solveProject, type ElementResult, type Problem, type SolveResult } from '../../core/index.ts';
 
-const project = (elements: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project', version: 1, name: 'conductor case', elements, ...extra });
+const project = (elements: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project', version: 2, name: 'conductor case', elements, ...extra });
 
 function solved(elements: unknown[], extra: Record<string, unknown> = {}): SolveResult {
   const out = solveProject(project(elements, extra));
@@ -230,7 +230,7 @@ describe('feedback into the chain solve', () => {
     const r = solved([
       { id: 'src', kind: 'battery', voltage: 24 },
       { id: 'main', kind: 'cable', from: 'src', length: 4, conductor: { system: 'nec', material: 'copper', size: 'auto', insulationRating: 90, continuous: true } },
-      { id: 'bus', kind: 'dcbus', from: 'main', fixedLoss: 0 },
+      { id: 'bus', kind: 'dc-bus', from: 'main', fixedLoss: 0 },
       { id: 'branch', kind: 'cable', from: 'bus', length: 20, conductor: { system: 'iec', material: 'copper', size: 'auto', insulation: 'xlpe', installationMethod: 'C' } },
       { id: 'ld', kind: 'dc-load', from: 'branch', power: 800 },
     ]);
@@ -265,10 +265,10 @@ describe('whole-path voltage drop', () => {
     const r = solved([
       { id: 'src', kind: 'battery', voltage: 48 },
       { id: 'feed', kind: 'cable', from: 'src', length: 10, resistancePerKm: 3.08 },
-      { id: 'bus', kind: 'dcbus', from: 'feed', fixedLoss: 0 },
+      { id: 'bus', kind: 'dc-bus', from: 'feed', fixedLoss: 0 },
       { id: 'branch', kind: 'cable', from: 'bus', length: 15, resistancePerKm: 3.08 },
       { id: 'lamp', kind: 'dc-load', from: 'branch', power: 300 },
-      { id: 'conv', kind: 'dcdc', from: 'bus', outputVoltage: 24, loss: { model: 'constant', efficiency: 0.95 } },
+      { id: 'conv', kind: 'dc-dc', from: 'bus', outputVoltage: 24, loss: { model: 'constant', efficiency: 0.95 } },
       { id: 'tail', kind: 'cable', from: 'conv', length: 5, resistancePerKm: 3.08 },
       { id: 'radio', kind: 'dc-load', from: 'tail', power: 50 },
     ]);

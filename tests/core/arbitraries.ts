@@ -2,7 +2,7 @@
  * Shared fast-check generators: random VALID power-chain projects built from every element kind.
  *
  * A tree is grown top-down from a source of a random kind; each child is drawn from the kinds that
- * accept the feeding port (DC → dcdc/dcbus/inverter/cable/generic/dc-load/dc-current-load; AC →
+ * accept the feeding port (DC → dc-dc/dc-bus/inverter/cable/generic/dc-load/dc-current-load; AC →
  * rectifier/transformer/drive/motor/cable/generic/ac-load/ac-va-load/ac-current-load; shaft →
  * shaft-load). Series links are
  * then SIZED bottom-up from an estimate of the apparent power they carry, the way a designer sizes
@@ -50,7 +50,7 @@ type Sizing =
   | { type: 'motor'; loadFraction: number; loss: LossSpec; pf: { constant: number } | { rated: number; a: number }; nameplate?: { efficiency: number; pf: number } | null }
   /** A drive with IEC 61800-9-2 point losses (per-unit of its rating; null = the IE2 defaults). */
   | { type: 'standard-drive'; loadFraction: number; inputPf: number | null; thd: number | null; pointsPu: number[] | null }
-  | { type: 'dcbus'; fixedLoss: number }
+  | { type: 'dc-bus'; fixedLoss: number }
   | { type: 'load' }
   | { type: 'network'; s: number; net: CircuitNetwork; asText: boolean }
   | { type: 'source'; drop: number; xr: number; ratedLoadFraction: number | null };
@@ -272,10 +272,10 @@ export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT
     stages.push(
       fc.record({ v: dcVoltage, sizing: converterSizing(false) }).chain(({ v, sizing }) => {
         const out: GenPort = { kind: 'dc', voltage: v };
-        return childrenOf(out, depth + 1, opts).map((ch) => node({ kind: 'dcdc', outputVoltage: v }, sizing, out, ch));
+        return childrenOf(out, depth + 1, opts).map((ch) => node({ kind: 'dc-dc', outputVoltage: v }, sizing, out, ch));
       }),
       fc.record({ fixedLoss: uniform(0, 50) }).chain(({ fixedLoss }) =>
-        childrenOf(port, depth + 1, opts).map((ch) => node({ kind: 'dcbus' }, { type: 'dcbus', fixedLoss }, { ...port }, ch)),
+        childrenOf(port, depth + 1, opts).map((ch) => node({ kind: 'dc-bus' }, { type: 'dc-bus', fixedLoss }, { ...port }, ch)),
       ),
       fc.record({ phases: fc.constantFrom(1 as const, 3 as const), v1: ac1Voltage, v3: ac3Voltage, f: frequency, sizing: converterSizing(false) }).chain(({ phases, v1, v3, f, sizing }) => {
         const out: GenPort = { kind: phases === 3 ? 'ac3' : 'ac1', voltage: phases === 3 ? v3 : v1, frequency: f };
@@ -417,7 +417,7 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
         if (el['kind'] === 'dc-current-load') return (el['current'] as number) * input!.voltage;
         if (el['kind'] === 'ac-current-load') return (el['current'] as number) * input!.voltage * (input!.kind === 'ac3' ? Math.sqrt(3) : 1);
         return el['power'] as number;
-      case 'dcbus':
+      case 'dc-bus':
         el['fixedLoss'] = sz.fixedLoss;
         return sum + sz.fixedLoss;
       case 'cable': {
@@ -497,7 +497,7 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
     }
   };
   visit(root, undefined, undefined);
-  return { format: 'joulepath-project', version: 1, name, elements };
+  return { format: 'joulepath-project', version: 2, name, elements };
 }
 
 /** Random valid projects. */

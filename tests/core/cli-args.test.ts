@@ -20,7 +20,9 @@ describe('joulepath command line: arguments', () => {
     expect(parseArgs(['solve', '--csv', 'a.json', 'b.json'])).toMatchObject({ files: ['a.json', 'b.json'], output: 'csv' });
     expect(parseArgs(['solve', 'a.json', '--surges', '--machines'])).toMatchObject({ surges: true, machines: true });
     expect(parseArgs(['solve', 'a.json', '--correct-pf', 'feeder:0.95'])).toMatchObject({ correctPf: { at: 'feeder', targetPowerFactor: 0.95 } });
-    expect(parseArgs(['solve', 'a.json', '--flow', 's.json'])).toMatchObject({ flowFile: 's.json' });
+    expect(parseArgs(['solve', 'a.json', '--pump-duty', 's.json'])).toMatchObject({ pumpDutyFile: 's.json' });
+    // The spelling before format 2 is still read (common practice (no source): keep old scripts running).
+    expect(parseArgs(['solve', 'a.json', '--flow', 's.json'])).toMatchObject({ pumpDutyFile: 's.json' });
     // `--` ends the flags: a file whose name starts with a dash.
     expect(parseArgs(['solve', '--csv', '--', '-odd.json'])).toMatchObject({ files: ['-odd.json'], output: 'csv' });
   });
@@ -45,8 +47,8 @@ describe('joulepath command line: arguments', () => {
     [['solve', 'a.json', '--json', '--csv'], /--json and --csv do not go together/],
     [['solve', 'a.json', 'b.json', '--json'], /--json prints one project/],
     [['solve', 'a.json', 'b.json', '--correct-pf', 'x:0.9'], /--correct-pf names an element of one project/],
-    [['solve', 'a.json', 'b.json', '--flow', 's.json'], /--flow runs with one project file/],
-    [['solve', 'a.json', '--flow'], /--flow needs the pump study file/],
+    [['solve', 'a.json', 'b.json', '--pump-duty', 's.json'], /--pump-duty runs with one project file/],
+    [['solve', 'a.json', '--pump-duty'], /--pump-duty needs the pump study file/],
     [['solve', 'a.json', '--correct-pf'], /--correct-pf needs <elementId>:<target power factor>/],
     [['solve', 'a.json', '--correct-pf', 'x:high'], /the target power factor "high" is not a number/],
   ])('%j is a usage error naming the problem', (argv, message) => {
@@ -61,7 +63,7 @@ describe('joulepath command line: arguments', () => {
     expect(HELP).toMatch(/Exit codes: 0 every project solved; 1 a project or a file it names was refused/);
     expect(HELP).toMatch(/2 wrong command\s+line/);
     expect(HELP).toContain(`CSV columns: ${CSV_COLUMNS.join(',')}`);
-    for (const flag of ['--json', '--summary', '--csv', '--surges', '--correct-pf', '--machines', '--flow', '--help', '--version']) expect(HELP).toContain(flag);
+    for (const flag of ['--json', '--summary', '--csv', '--surges', '--correct-pf', '--machines', '--pump-duty', '--help', '--version']) expect(HELP).toContain(flag);
     expect(HELP).toContain('licensed professionals');
   });
 });

@@ -3,7 +3,7 @@
  * accepts it accepts (a UTF-8 byte-order mark), what the import refuses before reading (a file over
  * 5 MB, something that is not a regular file) it refuses at once in one line, a value outside its
  * physical range is refused at its field with the plausible range (never "did not settle" or NaN),
- * and a flow study with zero flow is refused as the pump element refuses it.
+ * and a pump duty study with zero flow is refused as the pump element refuses it.
  */
 import { spawnSync } from 'node:child_process';
 import { closeSync, mkdirSync, mkdtempSync, openSync, readFileSync, writeFileSync, ftruncateSync } from 'node:fs';
@@ -16,7 +16,7 @@ const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8', timeout: 20_000 });
 const scratch = mkdtempSync(join(tmpdir(), 'joulepath-cli-input-'));
 
-const project = (elements: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project', version: 1, name: 'hostile', elements, ...extra });
+const project = (elements: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project', version: 2, name: 'hostile', elements, ...extra });
 const mains = { id: 'mains', name: 'Mains', kind: 'grid', phases: 1, voltage: 230, frequency: 50 };
 const heater = { id: 'heater', name: 'Heater', kind: 'ac-load', from: 'mains', power: 2000, powerFactor: 1 };
 const write = (name: string, data: unknown): string => {
@@ -121,15 +121,15 @@ describe('CLI input files', () => {
     expect(err).toMatch(/element "mains", field "voltage": .*1 MV/);
   }, 30_000);
 
-  it('refuses a flow study with zero flow at that row, as the pump element refuses a zero flow', () => {
+  it('refuses a pump duty study with zero flow at that row, as the pump element refuses a zero flow', () => {
     const demo = JSON.parse(readFileSync('core/demos/riverside-pump-station.json', 'utf8'));
-    demo.flowStudy.duty[1].flow = 0;
+    demo.pumpDuty.duty[1].flow = 0;
     const err = refused(run(write('zero-flow.json', demo)));
     // The pump element's own words for flow 0 (core/kinds/pump.ts): "must be greater than 0 m³/s".
-    expect(err).toMatch(/project, field "flowStudy\.duty\.1\.flow": must be greater than 0 m³\/s/);
+    expect(err).toMatch(/project, field "pumpDuty\.duty\.1\.flow": must be greater than 0 m³\/s/);
   }, 30_000);
 
-  it('refuses a --flow study file with zero flow the same way', () => {
+  it('refuses a --pump duty study file with zero flow the same way', () => {
     const study = {
       id: 'well',
       pump: { ratedFlow: 0.02, ratedHead: 25, shutoffHead: 32, efficiency: 0.7 },

@@ -8,7 +8,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { demoProjects, pumpDetails, projectFlowStudy, solveProject, studySurges, validateProject } from '../../core/index.ts';
+import { demoProjects, pumpDetails, projectPumpDuty, solveProject, studySurges, validateProject } from '../../core/index.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
@@ -36,12 +36,12 @@ describe('command-line solver', () => {
     const outcome = solveProject(demo);
     expect(outcome.ok).toBe(true);
     if (!outcome.ok) return;
-    const { pumps, flowStudy, surgeStudy, ...result } = JSON.parse(out);
+    const { pumps, pumpDuty, surgeStudy, ...result } = JSON.parse(out);
     expect(result).toEqual(JSON.parse(JSON.stringify(outcome.result)));
-    // The demo has a pump and a flowStudy: both sections come from core/studies/machines, run in-process here.
-    const study = projectFlowStudy(demo);
+    // The demo has a pump and a pumpDuty: both sections come from core/studies/machines, run in-process here.
+    const study = projectPumpDuty(demo);
     expect(study.ok).toBe(true);
-    if (study.ok) expect(flowStudy).toEqual(JSON.parse(JSON.stringify(study.result)));
+    if (study.ok) expect(pumpDuty).toEqual(JSON.parse(JSON.stringify(study.result)));
     const valid = validateProject(demo);
     if (valid.ok) expect(pumps).toEqual(JSON.parse(JSON.stringify(pumpDetails(valid.project))));
     // The demo carries starting and device data: the surge study comes from core/studies/surge, run in-process here.
@@ -56,7 +56,7 @@ describe('command-line solver', () => {
       file,
       JSON.stringify({
         format: 'joulepath-project',
-        version: 1,
+        version: 2,
         name: 'bad',
         elements: [
           { id: 'mains', kind: 'grid', phases: 1, voltage: 0, frequency: 50 },
@@ -76,7 +76,7 @@ describe('command-line solver', () => {
     // 600 A would need 54.9 V of drop from 48 V.
     const make = (current: number) => ({
       format: 'joulepath-project',
-      version: 1,
+      version: 2,
       name: 'current load',
       elements: [
         { id: 'bank', kind: 'battery', voltage: 48 },

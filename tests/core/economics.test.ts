@@ -6,7 +6,7 @@ import fc from 'fast-check';
 import {
   checkCostSettings,
   energyCost,
-  flowStudyCosts,
+  pumpDutyCosts,
   HOURS_IN_YEAR,
   lossCostPerYear,
   MAX_HOURS_PER_YEAR,
@@ -111,7 +111,7 @@ describe('cost of a year of energy', () => {
   });
 
   it('flow-control methods: costs and the drive’s savings (hand-worked)', () => {
-    const out = flowStudyCosts({ speedControl: { energyWh: 142e6 }, throttle: { energyWh: 208e6 }, onOff: { energyWh: 190e6 } }, 0.1);
+    const out = pumpDutyCosts({ speedControl: { energyWh: 142e6 }, throttle: { energyWh: 208e6 }, onOff: { energyWh: 190e6 } }, 0.1);
     if (!out.ok) throw new Error('refused');
     // 142 000 kWh × 0.10 = 14 200; 208 000 × 0.10 = 20 800; 190 000 × 0.10 = 19 000 (hand-worked).
     expect(out.costs.speedControl).toBeCloseTo(14200, 6);
@@ -120,6 +120,6 @@ describe('cost of a year of energy', () => {
     // Savings: 20 800 − 14 200 = 6600; 19 000 − 14 200 = 4800 (hand-worked).
     expect(out.costs.savingVsThrottle).toBeCloseTo(6600, 6);
     expect(out.costs.savingVsOnOff).toBeCloseTo(4800, 6);
-    expect(flowStudyCosts({ speedControl: { energyWh: 1 }, throttle: { energyWh: 1 }, onOff: { energyWh: 1 } }, -1).ok).toBe(false);
+    expect(pumpDutyCosts({ speedControl: { energyWh: 1 }, throttle: { energyWh: 1 }, onOff: { energyWh: 1 } }, -1).ok).toBe(false);
   });
 });

@@ -20,7 +20,7 @@ vi.mock('../../core/solve/report.ts', async (importOriginal) => {
 
 const chain = (name: string) => ({
   format: 'joulepath-project',
-  version: 1,
+  version: 2,
   name,
   elements: [
     { id: 'src', name: 'Supply', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },

@@ -27,7 +27,7 @@ const scratch = mkdtempSync(join(tmpdir(), 'joulepath-finite-'));
 const supply = { id: 'src', name: 'Supply', kind: 'grid', phases: 1, voltage: 230, frequency: 50 };
 const rectifier = (loss: unknown) => ({ id: 'rect', name: 'Rectifier', kind: 'rectifier', from: 'src', outputVoltage: 48, inputPowerFactor: 0.99, loss });
 const dcLoad = { id: 'ld', name: 'Load', kind: 'dc-load', from: 'rect', power: 100 };
-const project = (...elements: unknown[]) => ({ format: 'joulepath-project', version: 1, name: 'Finite', elements });
+const project = (...elements: unknown[]) => ({ format: 'joulepath-project', version: 2, name: 'Finite', elements });
 
 const tinyEfficiency = project(supply, rectifier({ model: 'constant', efficiency: 1e-300 }), dcLoad);
 const bunchedFit = (d: number) =>
@@ -218,7 +218,7 @@ describe('messages never print a figure that left the doubles', () => {
   it('a link that cannot carry an out-of-range load is refused without "NaN kW" (fast-check counterexample, seed -1916471725)', () => {
     const out = solveProject({
       format: 'joulepath-project',
-      version: 1,
+      version: 2,
       name: 'Extreme chain',
       elements: [
         { id: 'src', name: 'Supply', kind: 'grid', phases: 1, voltage: 0.1, frequency: 50, resistance: 1 },

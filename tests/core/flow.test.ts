@@ -30,12 +30,12 @@ describe('flowGraph on a hand-worked DC chain', () => {
   // of its own, two loads (500 W and 200 W) on the bus.
   const project = {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'Workshop bench supply',
     elements: [
       { id: 'bank', kind: 'battery', voltage: 48 },
-      { id: 'conv', kind: 'dcdc', from: 'bank', outputVoltage: 24, loss: { model: 'constant', efficiency: 0.96 } },
-      { id: 'bus', kind: 'dcbus', from: 'conv', fixedLoss: 10 },
+      { id: 'conv', kind: 'dc-dc', from: 'bank', outputVoltage: 24, loss: { model: 'constant', efficiency: 0.96 } },
+      { id: 'bus', kind: 'dc-bus', from: 'conv', fixedLoss: 10 },
       { id: 'lamp', kind: 'dc-load', from: 'bus', power: 500 },
       { id: 'radio', kind: 'dc-load', from: 'bus', power: 200 },
     ],
@@ -92,11 +92,11 @@ describe('idle and conversion loss of a hand-worked chain', () => {
   // (no-load loss 12 W, load loss 25 W at rating) behind the inverter feeding a 400 W load.
   const project = {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'Cabin split',
     elements: [
       { id: 'bank', kind: 'battery', voltage: 48 },
-      { id: 'psu', kind: 'dcdc', from: 'bank', outputVoltage: 12, loss: { model: 'polynomial', p0: 3.5, k1: 0.03, k2: 0.00012, ratedPower: 300 } },
+      { id: 'psu', kind: 'dc-dc', from: 'bank', outputVoltage: 12, loss: { model: 'polynomial', p0: 3.5, k1: 0.03, k2: 0.00012, ratedPower: 300 } },
       { id: 'radio', kind: 'dc-load', from: 'psu', power: 85 },
       { id: 'inv', kind: 'inverter', from: 'bank', phases: 1, outputVoltage: 230, frequency: 50, loss: { model: 'constant', efficiency: 0.94, idleLoss: 20 } },
       { id: 'heater', kind: 'ac-load', from: 'inv', power: 750, powerFactor: 1 },
@@ -182,7 +182,7 @@ describe('flowGraph on the demo projects', () => {
   it('leaves a source that delivers nothing at 0 % rather than dividing by zero', () => {
     const r = solved({
       format: 'joulepath-project',
-      version: 1,
+      version: 2,
       name: 'Idle',
       elements: [
         { id: 'bank', kind: 'battery', voltage: 12 },

@@ -11,18 +11,18 @@ import { KINDS, validateProject, type Problem } from '../../core/index.ts';
 import { issueMessage } from '../../core/solve/issue-messages.ts';
 import { backupSchema } from '../../core/solve/load-profile.ts';
 import { dropLimitsSchema } from '../../core/conductors/path-drop.ts';
-import { flowStudySchema } from '../../core/kinds/pump.ts';
+import { pumpDutySchema } from '../../core/kinds/pump.ts';
 
 type Json = Record<string, unknown>;
 
-const project = (extra: Json = {}, elements: unknown[] = []) => ({ format: 'joulepath-project', version: 1, name: 'Error map fixture', elements, ...extra });
+const project = (extra: Json = {}, elements: unknown[] = []) => ({ format: 'joulepath-project', version: 2, name: 'Error map fixture', elements, ...extra });
 const problems = (input: unknown): Problem[] => {
   const r = validateProject(input);
   return r.ok ? [] : r.problems;
 };
 const at = (input: unknown, field: string) => problems(input).find((p) => p.field === field)?.message;
 
-const dcdc = (extra: Json = {}): Json => ({ id: 'conv', kind: 'dcdc', from: 'bank', outputVoltage: 12, loss: { model: 'constant', efficiency: 0.92 }, ...extra });
+const dcdc = (extra: Json = {}): Json => ({ id: 'conv', kind: 'dc-dc', from: 'bank', outputVoltage: 12, loss: { model: 'constant', efficiency: 0.92 }, ...extra });
 const bank: Json = { id: 'bank', kind: 'battery', voltage: 48, internalResistance: 0.01 };
 
 describe('messages for issues a schema does not word itself', () => {
@@ -149,7 +149,7 @@ describe('no zod wording reaches the user', () => {
   it.each([
     ['backup', backupSchema],
     ['dropLimits', dropLimitsSchema],
-    ['flowStudy', flowStudySchema],
+    ['pumpDuty', pumpDutySchema],
   ] as const)('project %s: every field and sub-field set to bad values', (name, schema) => {
     let count = 0;
     for (const path of [[], ...fieldsOf(schema)]) {

@@ -14,11 +14,11 @@ const rel = (a: number, b: number) => Math.abs(a - b) / Math.max(Math.abs(b), 1e
 function converterProject(loss: LossModel, load: number): Project {
   return {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'Loss model check',
     elements: [
       { id: 'bank', kind: 'battery', voltage: 48 },
-      { id: 'conv', kind: 'dcdc', from: 'bank', outputVoltage: 24, loss },
+      { id: 'conv', kind: 'dc-dc', from: 'bank', outputVoltage: 24, loss },
       { id: 'load', kind: 'dc-load', from: 'conv', power: load },
     ],
   };

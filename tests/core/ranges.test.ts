@@ -18,7 +18,7 @@ import { problemsForField, type DraftProject } from '../../web/state/editor.ts';
 import { ABSOLUTE_ZERO_C, RANGES, boundText, rangeText, type Quantity } from '../../core/kinds/ranges.ts';
 
 type Json = Record<string, unknown>;
-const project = (elements: unknown[], extra: Json = {}) => ({ format: 'joulepath-project', version: 1, name: 'ranges', elements, ...extra });
+const project = (elements: unknown[], extra: Json = {}) => ({ format: 'joulepath-project', version: 2, name: 'ranges', elements, ...extra });
 const demo = (id: string): Json => JSON.parse(readFileSync(`core/demos/${id}.json`, 'utf8'));
 
 const curve = { model: 'curve', ratedPower: 3000, idleLoss: 20, points: [{ loadFraction: 0.2, efficiency: 0.9 }, { loadFraction: 1, efficiency: 0.95 }] };
@@ -63,8 +63,8 @@ const ELEMENTS: readonly Json[] = [
   { id: 'iec', kind: 'cable', from: 'grid', length: 30, conductor: { system: 'iec', material: 'copper', size: 'auto', ambient: 30, insulation: 'pvc', installationMethod: 'C', loadedConductors: 3, groupedCircuits: 2 } },
   { id: 'xfmr', kind: 'transformer', from: 'grid', ratedApparentPower: 45000, primaryVoltage: 480, secondaryVoltage: 208, noLoadLoss: 150, loadLoss: 900, impedancePercent: 4 },
   { id: 'rect', kind: 'rectifier', from: 'grid', outputVoltage: 54, inputPowerFactor: 0.95, loss: curve, ratedOutputCurrent: 60 },
-  { id: 'dcdc', kind: 'dcdc', from: 'bat', outputVoltage: 12, loss: poly, ratedOutputPower: 300, minInputVoltage: 36 },
-  { id: 'bus', kind: 'dcbus', from: 'bat', fixedLoss: 5 },
+  { id: 'dc-dc', kind: 'dc-dc', from: 'bat', outputVoltage: 12, loss: poly, ratedOutputPower: 300, minInputVoltage: 36 },
+  { id: 'bus', kind: 'dc-bus', from: 'bat', fixedLoss: 5 },
   { id: 'inv', kind: 'inverter', from: 'bat', phases: 1, outputVoltage: 230, frequency: 50, loss: fit, surge: { apparentPower: 6000, durationSeconds: 5 }, lowVoltageCutoff: 44, ratedOutputPower: 3000 },
   { id: 'vfd', kind: 'drive', from: 'grid', outputVoltage: 400, outputFrequency: 45, inputPowerFactor: 0.95, standardLoss: { ratedApparentPower: 30000, basis: 'cdm', points: [300, 310, 330, 360, 400, 450, 520, 600] }, motorRatedFrequency: 50, currentThd: 0.35, singlePhaseRating: 15000, ratedInputCurrent: 45 },
   { id: 'vfd2', kind: 'drive', from: 'grid', outputVoltage: 400, outputFrequency: 45, inputPowerFactor: 0.95, loss: constant },
@@ -163,8 +163,8 @@ const RANGED: readonly [string, string, Quantity][] = [
   ['xfmr', 'impedancePercent', 'impedancePercent'],
   ['rect', 'loss.ratedPower', 'ratedPower'],
   ['rect', 'loss.points.0.loadFraction', 'loadFraction'],
-  ['dcdc', 'loss.k1', 'lossK1'],
-  ['dcdc', 'loss.k2', 'lossK2'],
+  ['dc-dc', 'loss.k1', 'lossK1'],
+  ['dc-dc', 'loss.k2', 'lossK2'],
   ['inv', 'surge.durationSeconds', 'seconds'],
   ['vfd2', 'outputFrequency', 'frequency'], // vfd's own check bounds it by the motor's rated frequency
   ['vfd', 'standardLoss.points.3', 'power'],

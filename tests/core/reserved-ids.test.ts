@@ -13,7 +13,7 @@ import { fieldWords } from '../../core/solve/finite.ts';
 
 const chain = (loadId: string): Project => ({
   format: 'joulepath-project',
-  version: 1,
+  version: 2,
   name: 'reserved ids',
   elements: [
     { id: 'grid', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },

@@ -67,11 +67,11 @@ describe('deep series chains', () => {
       const elements: Element[] = [{ id: 'bank', kind: 'battery', voltage: 48, internalResistance: 0.01 }];
       let from = 'bank';
       for (let i = 1; i <= 4998; i++) {
-        elements.push({ id: `b${i}`, kind: 'dcbus', from, fixedLoss: 0 });
+        elements.push({ id: `b${i}`, kind: 'dc-bus', from, fixedLoss: 0 });
         from = `b${i}`;
       }
       elements.push({ id: 'load', kind: 'dc-current-load', from, current: 10 });
-      const r = solved({ format: 'joulepath-project', version: 1, name: 'Deep buses', elements });
+      const r = solved({ format: 'joulepath-project', version: 2, name: 'Deep buses', elements });
       // Ohm's law at the bank: V = E − I·R = 48 − 10 × 0.01 V; P = V·I.
       expect(loadOf(r).input!.voltage).toBeCloseTo(47.9, 9);
       expect(loadOf(r).pIn).toBeCloseTo(479, 9);
@@ -103,7 +103,7 @@ describe('deep series chains', () => {
       }
       // 4998 m go and return of 1 Ω/km: about 10 Ω; 100 A would need 1000 V of drop from 48 V.
       elements.push({ id: 'load', kind: 'dc-current-load', from, current: 100 });
-      const out = solveProject({ format: 'joulepath-project', version: 1, name: 'Deep current', elements });
+      const out = solveProject({ format: 'joulepath-project', version: 2, name: 'Deep current', elements });
       expect(out.ok).toBe(false);
       if (!out.ok) expect(out.problems.map((x) => [x.code, x.elementId, x.field])).toEqual([['infeasible-load', 'load', 'current']]);
     },
@@ -134,7 +134,7 @@ describe('deep series chains', () => {
         from = `c${i}`;
       }
       dc.push({ id: 'load', kind: 'dc-load', from, power: 10 });
-      const bat = studySurges({ format: 'joulepath-project', version: 1, name: 'Deep DC faults', elements: dc });
+      const bat = studySurges({ format: 'joulepath-project', version: 2, name: 'Deep DC faults', elements: dc });
       expect(bat.ok).toBe(true);
       if (bat.ok) {
         expect(bat.result.batteryFaults.points).toHaveLength(4999);
@@ -195,11 +195,11 @@ describe('tree checks on big files', () => {
   it('two separate loops are two problems, each on its own first element', () => {
     const p = deepCables(4);
     p.elements.push(
-      { id: 'a', kind: 'dcbus', from: 'b', fixedLoss: 0 },
-      { id: 'x', kind: 'dcbus', from: 'x', fixedLoss: 0 },
-      { id: 'b', kind: 'dcbus', from: 'a', fixedLoss: 0 },
+      { id: 'a', kind: 'dc-bus', from: 'b', fixedLoss: 0 },
+      { id: 'x', kind: 'dc-bus', from: 'x', fixedLoss: 0 },
+      { id: 'b', kind: 'dc-bus', from: 'a', fixedLoss: 0 },
       // Hangs off the loop a ↔ b: not on it, so not named as its member.
-      { id: 'tail', kind: 'dcbus', from: 'b', fixedLoss: 0 },
+      { id: 'tail', kind: 'dc-bus', from: 'b', fixedLoss: 0 },
     );
     const v = validateProject(p);
     expect(v.ok).toBe(false);

@@ -24,8 +24,8 @@ const POOL = ['a', 'b', 'c', 'd', 'e', 'f', 'g', 'h', '__proto__', 'toString', '
 /** A DC chain's worth of element bodies: every kind here takes and (but the load) gives DC. */
 const body = fc.constantFrom<Json>(
   { kind: 'cable', length: 1, resistancePerKm: 0.1 },
-  { kind: 'dcbus', fixedLoss: 0.5 },
-  { kind: 'dcdc', outputVoltage: 24, loss: { model: 'constant', efficiency: 0.95 } },
+  { kind: 'dc-bus', fixedLoss: 0.5 },
+  { kind: 'dc-dc', outputVoltage: 24, loss: { model: 'constant', efficiency: 0.95 } },
   { kind: 'dc-load', power: 10 },
   { kind: 'dc-current-load', current: 0.5 },
   // Kinds that do not fit a DC feed, a second source, a kind nobody knows.
@@ -73,7 +73,7 @@ describe('hostile shapes', () => {
       fc.property(shape, (drawn) => {
         const elements: Json[] = [{ id: 'bank', kind: 'battery', voltage: 48, internalResistance: 0.01 }];
         for (const d of drawn) elements.push({ id: d.id, ...(d.from !== undefined ? { from: d.from } : {}), ...d.body });
-        const project = { format: 'joulepath-project', version: 1, name: 'shape', elements };
+        const project = { format: 'joulepath-project', version: 2, name: 'shape', elements };
         const out = solveProject(project);
         if (out.ok) {
           expect(findNonFinite(out.result)).toEqual([]);

@@ -14,7 +14,7 @@ import { solveProject } from '../../core/index.ts';
  */
 const chain = (power: number, split = false) => ({
   format: 'joulepath-project',
-  version: 1,
+  version: 2,
   name: 'near collapse',
   elements: [
     { id: 'bank', kind: 'battery', voltage: 48, internalResistance: split ? 0.1 : 0 },

@@ -9,7 +9,7 @@ import { studySurges } from '../../core/studies/surge/index.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
 
 type Json = Record<string, unknown>;
-const project = (elements: unknown[]) => ({ format: 'joulepath-project', version: 1, name: 'hostile', elements });
+const project = (elements: unknown[]) => ({ format: 'joulepath-project', version: 2, name: 'hostile', elements });
 
 describe('hostile-input counterexamples', () => {
   it('a load that takes the id of the element feeding others is refused as a duplicate id, not a TypeError in the plan', () => {

@@ -155,21 +155,21 @@ describe('NEC Chapter 9 Table 9 spot checks (Ω to neutral / 1000 ft, 75 °C, 60
     ['10 AWG', 'zeCu085', 'pvc', 1.1, 'NEC Ch. 9 Table 9, 10 AWG Cu Ze 0.85 PF PVC'],
     ['8 AWG', 'zeCu085', 'steel', 0.7, 'NEC Ch. 9 Table 9, 8 AWG Cu Ze 0.85 PF steel'],
     ['2 AWG', 'rCu', 'steel', 0.2, 'NEC Ch. 9 Table 9, 2 AWG Cu R steel'],
-    ['1 AWG', 'rCu', 'aluminum', 0.16, 'NEC Ch. 9 Table 9, 1 AWG Cu R aluminum conduit'],
+    ['1 AWG', 'rCu', 'aluminium', 0.16, 'NEC Ch. 9 Table 9, 1 AWG Cu R aluminum conduit'],
     ['1/0 AWG', 'xl', 'steel', 0.055, 'NEC Ch. 9 Table 9, 1/0 XL steel'],
     ['3/0 AWG', 'rCu', 'steel', 0.079, 'NEC Ch. 9 Table 9, 3/0 Cu R steel'],
     ['4/0 AWG', 'zeCu085', 'steel', 0.08, 'NEC Ch. 9 Table 9, 4/0 Cu Ze steel'],
     ['250 kcmil', 'rAl', 'steel', 0.086, 'NEC Ch. 9 Table 9, 250 kcmil Al R steel'],
     ['400 kcmil', 'rCu', 'steel', 0.035, 'NEC Ch. 9 Table 9, 400 kcmil Cu R steel'],
     ['500 kcmil', 'rCu', 'pvc', 0.027, 'NEC Ch. 9 Table 9, 500 kcmil Cu R PVC'],
-    ['500 kcmil', 'rCu', 'aluminum', 0.032, 'NEC Ch. 9 Table 9, 500 kcmil Cu R aluminum conduit'],
+    ['500 kcmil', 'rCu', 'aluminium', 0.032, 'NEC Ch. 9 Table 9, 500 kcmil Cu R aluminum conduit'],
     ['500 kcmil', 'zeCu085', 'pvc', 0.043, 'NEC Ch. 9 Table 9, 500 kcmil Cu Ze PVC (single web copy, corroborated)'],
   ] as const)('%s %s %s = %d (%s)', (size, column, raceway, value, _source) => {
     expect(t9(size)[column][raceway]).toBe(value);
   });
 
   it('PVC and aluminum conduit share one reactance column (NEC Ch. 9 Table 9 layout)', () => {
-    for (const r of NEC_CHAPTER9_TABLE9) expect(r.xl.aluminum).toBe(r.xl.pvc);
+    for (const r of NEC_CHAPTER9_TABLE9) expect(r.xl.aluminium).toBe(r.xl.pvc);
   });
 
   it('marks the 2/0–500 kcmil PVC Ze cells as corroborated, not confirmed (single web copy)', () => {
@@ -182,7 +182,7 @@ describe('NEC Chapter 9 Table 9 spot checks (Ω to neutral / 1000 ft, 75 °C, 60
   it('14 AWG aluminum has no printed value (null, from memory); cells not carried are absent, never 0', () => {
     expect(t9('14 AWG').rAl.pvc).toBeNull();
     expect(t9('14 AWG').provenance.rAl).toBe('from memory');
-    expect('aluminum' in t9('12 AWG').rAl).toBe(false);
+    expect('aluminium' in t9('12 AWG').rAl).toBe(false);
     for (const r of NEC_CHAPTER9_TABLE9) {
       for (const cells of [r.rCu, r.rAl, r.zeCu085]) {
         for (const v of Object.values(cells)) if (v !== null) expect(v).toBeGreaterThan(0);
@@ -192,7 +192,7 @@ describe('NEC Chapter 9 Table 9 spot checks (Ω to neutral / 1000 ft, 75 °C, 60
 });
 
 describe('Table 9 structure and cross-checks', () => {
-  const RACEWAYS: readonly NecRaceway[] = ['pvc', 'aluminum', 'steel'];
+  const RACEWAYS: readonly NecRaceway[] = ['pvc', 'aluminium', 'steel'];
   const halfUnit = (x: number) => 0.5 * 10 ** (Math.floor(Math.log10(x)) - 1); // two significant figures
 
   it('rows are the NEC sizes in order; resistance never rises with size; copper PVC R ≈ Table 8 stranded DC', () => {
@@ -303,7 +303,7 @@ describe('NEC Chapter 9 Tables 8 and 9, every carried cell as printed', () => {
   });
 
   it('copper in aluminum conduit and aluminum in steel conduit: the carried cells (NEC Ch. 9 Table 9, cable maker\'s copy)', () => {
-    const cuAlConduit = NEC_CHAPTER9_TABLE9.filter((r) => r.rCu.aluminum !== undefined).map((r) => [r.size, r.rCu.aluminum]);
+    const cuAlConduit = NEC_CHAPTER9_TABLE9.filter((r) => r.rCu.aluminium !== undefined).map((r) => [r.size, r.rCu.aluminium]);
     expect(cuAlConduit).toEqual([
       ['14 AWG', 3.1], ['2 AWG', 0.2], ['1 AWG', 0.16], ['1/0 AWG', 0.13], ['3/0 AWG', 0.082], ['4/0 AWG', 0.067], ['250 kcmil', 0.057], ['500 kcmil', 0.032],
     ]);

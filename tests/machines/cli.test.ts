@@ -1,14 +1,14 @@
 /**
  * The command-line hook of core/studies/machines: `--machines` prints motor and drive details (and refuses a
- * motor beyond its service factor), `--flow <study.json>` the flow-control comparison; with --json
- * they appear under `machines` and `flowStudy`, equal to the engine called directly.
+ * motor beyond its service factor), `--pump-duty <study.json>` the flow-control comparison; with --json
+ * they appear under `machines` and `pumpDuty`, equal to the engine called directly.
  */
 import { spawnSync } from 'node:child_process';
 import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { compareFlowControl, solveWithMachines, type FlowStudyInput } from '../../core/index.ts';
+import { comparePumpControl, solveWithMachines, type PumpDutyInput } from '../../core/index.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
@@ -17,7 +17,7 @@ const scratch = mkdtempSync(join(tmpdir(), 'joulepath-machines-'));
 // Invented scenario: a 10 hp NEMA Premium pump motor on a drive at 48 Hz.
 const project = (shaft: number) => ({
   format: 'joulepath-project',
-  version: 1,
+  version: 2,
   name: 'Well pump',
   elements: [
     { id: 'mains', kind: 'grid', phases: 3, voltage: 460, frequency: 60 },
@@ -26,7 +26,7 @@ const project = (shaft: number) => ({
     { id: 'pump', kind: 'shaft-load', from: 'm', power: shaft },
   ],
 });
-const study: FlowStudyInput = {
+const study: PumpDutyInput = {
   id: 'well',
   pump: { ratedFlow: 0.02, ratedHead: 25, shutoffHead: 32, efficiency: 0.7 },
   staticHead: 8,
@@ -43,7 +43,7 @@ const write = (name: string, data: unknown) => {
   return f;
 };
 
-describe('CLI --machines and --flow', () => {
+describe('CLI --machines and --pump-duty', () => {
   it('prints motor details with the NEC table current and the drive operating point', () => {
     const r = run(write('p.json', project(4000)), '--machines');
     expect(r.status).toBe(0);
@@ -61,27 +61,27 @@ describe('CLI --machines and --flow', () => {
     expect(r.stderr).toContain('service factor 1.15');
   }, 30_000);
 
-  it('--json carries machines and flowStudy equal to the engine called directly', () => {
-    const r = run(write('p2.json', project(4000)), '--machines', '--flow', write('s.json', study), '--json');
+  it('--json carries machines and pumpDuty equal to the engine called directly', () => {
+    const r = run(write('p2.json', project(4000)), '--machines', '--pump-duty', write('s.json', study), '--json');
     expect(r.status).toBe(0);
-    const out = JSON.parse(r.stdout) as { machines: unknown; flowStudy: unknown };
+    const out = JSON.parse(r.stdout) as { machines: unknown; pumpDuty: unknown };
     const m = solveWithMachines(project(4000));
-    const f = compareFlowControl(study);
+    const f = comparePumpControl(study);
     if (!m.ok || !f.ok) throw new Error('engine refused');
     expect(out.machines).toEqual(JSON.parse(JSON.stringify(m.machines)));
-    expect(out.flowStudy).toEqual(JSON.parse(JSON.stringify(f.result)));
+    expect(out.pumpDuty).toEqual(JSON.parse(JSON.stringify(f.result)));
   }, 30_000);
 
   it('a bad pump study names the field', () => {
-    const r = run(write('p3.json', project(4000)), '--flow', write('bad.json', { ...study, duty: [{ flow: 0.01, hours: 9000 }] }));
+    const r = run(write('p3.json', project(4000)), '--pump-duty', write('bad.json', { ...study, duty: [{ flow: 0.01, hours: 9000 }] }));
     expect(r.status).toBe(1);
     expect(r.stderr).toContain('"well", field "duty"');
     expect(r.stderr).toContain('8760');
   }, 30_000);
 
-  it('--flow without a file is a usage error', () => {
-    const r = run(write('p4.json', project(4000)), '--flow');
+  it('--pump-duty without a file is a usage error', () => {
+    const r = run(write('p4.json', project(4000)), '--pump-duty');
     expect(r.status).toBe(2); // usage error (core/cli/args.ts EXIT_USAGE)
-    expect(r.stderr).toContain('--flow needs the pump study file');
+    expect(r.stderr).toContain('--pump-duty needs the pump study file');
   }, 30_000);
 });

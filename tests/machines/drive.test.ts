@@ -88,7 +88,7 @@ describe('true power factor (pf = pf_disp/√(1 + THD_i²), undistorted voltage)
 const chain = (drive: Record<string, unknown>, load = 3750): Project =>
   ({
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'drive test',
     elements: [
       { id: 'mains', kind: 'grid', phases: 3, voltage: 480, frequency: 60 },

@@ -1,15 +1,15 @@
 /**
- * compareFlowControl: affinity-law cases, drive vs throttle vs on-off worked by hand on a two-point
+ * comparePumpControl: affinity-law cases, drive vs throttle vs on-off worked by hand on a two-point
  * duty profile, the static-head effect, and refusals naming the field.
  */
 import { describe, expect, it } from 'vitest';
-import { compareFlowControl, STANDARD_GRAVITY, type FlowStudyInput } from '../../core/studies/machines/index.ts';
+import { comparePumpControl, STANDARD_GRAVITY, type PumpDutyInput } from '../../core/studies/machines/index.ts';
 
 const G = STANDARD_GRAVITY; // 9.80665 m/s², standard gravity (3rd CGPM 1901)
 // Design point: 0.1 m³/s at 20 m, pump efficiency 0.8 → shaft = ρgQH/η = 1000·g·0.1·20/0.8.
 const P_DESIGN = (1000 * G * 0.1 * 20) / 0.8;
 
-const study = (over: Partial<FlowStudyInput> = {}): FlowStudyInput => ({
+const study = (over: Partial<PumpDutyInput> = {}): PumpDutyInput => ({
   id: 'pumpset',
   pump: { ratedFlow: 0.1, ratedHead: 20, shutoffHead: 25, efficiency: 0.8 },
   staticHead: 0,
@@ -22,8 +22,8 @@ const study = (over: Partial<FlowStudyInput> = {}): FlowStudyInput => ({
   ...over,
 });
 
-const ok = (s: FlowStudyInput) => {
-  const r = compareFlowControl(s);
+const ok = (s: PumpDutyInput) => {
+  const r = comparePumpControl(s);
   if (!r.ok) throw new Error(JSON.stringify(r.problems));
   return r.result;
 };
@@ -107,7 +107,7 @@ describe('service factor', () => {
 
 describe('bad input: refused naming the field, nothing computed', () => {
   const problem = (s: unknown) => {
-    const r = compareFlowControl(s as FlowStudyInput);
+    const r = comparePumpControl(s as PumpDutyInput);
     expect(r.ok).toBe(false);
     if (r.ok) throw new Error('expected a refusal');
     expect(r).not.toHaveProperty('result');

@@ -1,22 +1,22 @@
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
-import { compareFlowControl, type FlowStudyInput } from '../../core/physics/pump-fan.ts';
-import { projectFlowStudy, pumpDetails } from '../../core/studies/machines/pump-duty.ts';
+import { comparePumpControl, type PumpDutyInput } from '../../core/physics/pump-fan.ts';
+import { projectPumpDuty, pumpDetails } from '../../core/studies/machines/pump-duty.ts';
 import { pumpOperatingPoint } from '../../core/kinds/pump.ts';
 import type { Project, PumpLoad } from '../../core/model/project.ts';
 
 // Invented pump: Q_r = 0.05 m³/s, H_r = 30 m, H0 = 40 m, H_s = 10 m, η = 0.75, water.
 const pumpBase = { id: 'pump', kind: 'pump', from: 'motor', ratedFlow: 0.05, ratedHead: 30, shutoffHead: 40, efficiency: 0.75, staticHead: 10, flow: 0.04 } as const;
 
-function project(pump: Record<string, unknown>, opts: { drive?: boolean; driveFrequency?: number; flowStudy?: unknown } = {}): Record<string, unknown> {
+function project(pump: Record<string, unknown>, opts: { drive?: boolean; driveFrequency?: number; pumpDuty?: unknown } = {}): Record<string, unknown> {
   const elements: Record<string, unknown>[] = [{ id: 'grid', kind: 'grid', phases: 3, voltage: 400, frequency: 50 }];
   if (opts.drive !== false) {
     elements.push({ id: 'drive', kind: 'drive', from: 'grid', outputVoltage: 400, outputFrequency: opts.driveFrequency ?? 42.72, inputPowerFactor: 0.95, standardLoss: { ratedApparentPower: 30000, basis: 'cdm' } });
   }
   elements.push({ id: 'motor', kind: 'motor', from: opts.drive === false ? 'grid' : 'drive', ratedOutput: 22000, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 });
   elements.push(pump);
-  return { format: 'joulepath-project', version: 1, name: 'pump test', elements, ...(opts.flowStudy !== undefined ? { flowStudy: opts.flowStudy } : {}) };
+  return { format: 'joulepath-project', version: 2, name: 'pump test', elements, ...(opts.pumpDuty !== undefined ? { pumpDuty: opts.pumpDuty } : {}) };
 }
 
 describe('pump element: shaft power ρ·g·Q·H/η at the operating point (constant pump efficiency)', () => {
@@ -102,24 +102,24 @@ describe('pump tree checks (pumpDetails)', () => {
   });
 });
 
-describe('projectFlowStudy: the chain\'s own pump, motor and drive', () => {
+describe('projectPumpDuty: the chain\'s own pump, motor and drive', () => {
   const duty = [
     { flow: 0.05, hours: 1000 },
     { flow: 0.04, hours: 3000 },
     { flow: 0.025, hours: 2000 },
   ];
-  it('equals compareFlowControl run by hand on the same inputs', () => {
-    const out = projectFlowStudy(project({ ...pumpBase, control: 'speed' }, { flowStudy: { pump: 'pump', duty } }));
+  it('equals comparePumpControl run by hand on the same inputs', () => {
+    const out = projectPumpDuty(project({ ...pumpBase, control: 'speed' }, { pumpDuty: { pump: 'pump', duty } }));
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
-    const byHand: FlowStudyInput = {
-      id: 'flowStudy',
+    const byHand: PumpDutyInput = {
+      id: 'pumpDuty',
       pump: { ratedFlow: 0.05, ratedHead: 30, shutoffHead: 40, efficiency: 0.75 },
       staticHead: 10,
       duty,
       motor: { ratedOutput: 22000, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 },
       drive: { ratedApparentPower: 30000, basis: 'cdm' },
     };
-    const ref = compareFlowControl(byHand);
+    const ref = comparePumpControl(byHand);
     if (!ref.ok) throw new Error(JSON.stringify(ref.problems));
     expect(out.input).toEqual(byHand);
     expect(out.result.speedControl).toEqual(ref.result.speedControl);
@@ -131,56 +131,56 @@ describe('projectFlowStudy: the chain\'s own pump, motor and drive', () => {
   });
 
   it('a drive with a loss model (not standardLoss) enters as IE2 defaults sized to the motor, said in a warning', () => {
-    const p = project({ ...pumpBase, control: 'speed' }, { flowStudy: { pump: 'pump', duty } });
+    const p = project({ ...pumpBase, control: 'speed' }, { pumpDuty: { pump: 'pump', duty } });
     const els = p['elements'] as Record<string, unknown>[];
     els[1] = { id: 'drive', kind: 'drive', from: 'grid', outputVoltage: 400, outputFrequency: 42.72, inputPowerFactor: 0.95, loss: { model: 'constant', efficiency: 0.97 } };
-    const out = projectFlowStudy(p);
+    const out = projectPumpDuty(p);
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(out.input.drive.basis).toBe('cdm');
     expect(out.input.drive.points).toBeUndefined();
     expect(out.result.warnings.join(' ')).toMatch(/drive "drive" has no IEC 61800-9-2 operating points/);
   });
 
-  const bad = (flowStudy: unknown) => {
-    const p = project({ ...pumpBase, control: 'speed' }, { flowStudy });
-    const out = projectFlowStudy(p);
+  const bad = (pumpDuty: unknown) => {
+    const p = project({ ...pumpBase, control: 'speed' }, { pumpDuty });
+    const out = projectPumpDuty(p);
     expect(out.ok).toBe(false);
     return out.ok ? [] : out.problems;
   };
   it('unknown pump id', () => {
-    // The study belongs to the project: its problems name the project and the study's field (no element is "flowStudy").
-    expect(bad({ pump: 'nope', duty })).toMatchObject([{ elementId: 'project', field: 'flowStudy.pump', value: 'nope' }]);
+    // The study belongs to the project: its problems name the project and the study's field (no element is "pumpDuty").
+    expect(bad({ pump: 'nope', duty })).toMatchObject([{ elementId: 'project', field: 'pumpDuty.pump', value: 'nope' }]);
   });
   it('an element that is not a pump', () => {
     expect(bad({ pump: 'motor', duty })[0]!.message).toMatch(/"motor" element, not a pump/);
   });
   it('negative flow and negative hours name the duty row', () => {
     const problems = bad({ pump: 'pump', duty: [{ flow: -0.01, hours: 10 }, { flow: 0.01, hours: -5 }] });
-    expect(problems.map((p) => p.field).sort()).toEqual(['flowStudy.duty.0.flow', 'flowStudy.duty.1.hours']);
+    expect(problems.map((p) => p.field).sort()).toEqual(['pumpDuty.duty.0.flow', 'pumpDuty.duty.1.hours']);
   });
   it('hours over 8760 in total (5000 + 4000 = 9000 h)', () => {
-    expect(bad({ pump: 'pump', duty: [{ flow: 0.03, hours: 5000 }, { flow: 0.02, hours: 4000 }] })).toMatchObject([{ elementId: 'project', field: 'flowStudy.duty', value: 9000 }]);
+    expect(bad({ pump: 'pump', duty: [{ flow: 0.03, hours: 5000 }, { flow: 0.02, hours: 4000 }] })).toMatchObject([{ elementId: 'project', field: 'pumpDuty.duty', value: 9000 }]);
   });
   it('a flow above the pump\'s rated flow', () => {
-    expect(bad({ pump: 'pump', duty: [{ flow: 0.051, hours: 10 }] })).toMatchObject([{ elementId: 'project', field: 'flowStudy.duty.0.flow', value: 0.051 }]);
+    expect(bad({ pump: 'pump', duty: [{ flow: 0.051, hours: 10 }] })).toMatchObject([{ elementId: 'project', field: 'pumpDuty.duty.0.flow', value: 0.051 }]);
   });
-  it('no flowStudy at all', () => {
-    expect(bad(undefined)).toMatchObject([{ elementId: 'project', field: 'flowStudy' }]);
+  it('no pumpDuty at all', () => {
+    expect(bad(undefined)).toMatchObject([{ elementId: 'project', field: 'pumpDuty' }]);
   });
   it('a motor too small for the throttled peak is refused on the motor element', () => {
-    const p = project({ ...pumpBase, control: 'speed' }, { flowStudy: { pump: 'pump', duty } });
+    const p = project({ ...pumpBase, control: 'speed' }, { pumpDuty: { pump: 'pump', duty } });
     const els = p['elements'] as Record<string, unknown>[];
     els[2] = { ...els[2], ratedOutput: 18500 };
-    const out = projectFlowStudy(p);
+    const out = projectPumpDuty(p);
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.problems[0]).toMatchObject({ elementId: 'motor', field: 'ratedOutput' });
   });
 });
 
-describe('riverside demo carries its flow study', () => {
+describe('riverside demo carries its pump duty study', () => {
   it('runs on the demo file', async () => {
     const demo = (await import('../../core/demos/riverside-pump-station.json', { with: { type: 'json' } })).default as unknown as Project;
-    const out = projectFlowStudy(demo);
+    const out = projectPumpDuty(demo);
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(out.result.totalHours).toBe(8000);
     expect(out.result.savingVsThrottleWh).toBeGreaterThan(0);

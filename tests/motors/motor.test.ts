@@ -13,7 +13,7 @@ const SQRT3 = Math.sqrt(3);
 const project = (motor: Record<string, unknown>, shaftPower: number, grid: Record<string, unknown> = { voltage: 460, frequency: 60 }): Project =>
   ({
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'motor test',
     elements: [
       { id: 'mains', kind: 'grid', phases: 3, ...grid },

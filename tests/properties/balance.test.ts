@@ -312,7 +312,7 @@ describe('port consistency', () => {
   });
 
   it('regulating converters hold their output voltage; AC inputs and loads draw at their declared power factor', () => {
-    // Law of a regulated output (model.ts: rectifier, dcdc, inverter, drive, generic regulate);
+    // Law of a regulated output (model.ts: rectifier, dc-dc, inverter, drive, generic regulate);
     // power factor = P/S by definition, declared per element.
     const t = tally();
     fc.assert(
@@ -322,7 +322,7 @@ describe('port consistency', () => {
         if (!r) return;
         for (const e of r.elements) {
           const spec = project.elements.find((x) => x.id === e.id)!;
-          if (spec.kind === 'rectifier' || spec.kind === 'dcdc' || spec.kind === 'inverter' || spec.kind === 'drive' || spec.kind === 'generic') {
+          if (spec.kind === 'rectifier' || spec.kind === 'dc-dc' || spec.kind === 'inverter' || spec.kind === 'drive' || spec.kind === 'generic') {
             expectClose(e.output!.voltage, spec.outputVoltage, spec.outputVoltage, `${e.id} output voltage`);
           }
           // An AC-fed converter draws at its declared input power factor (generic: default 1), with

@@ -36,15 +36,15 @@ const caseArb = fc.record({
 function project(c: Case): Project {
   return {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'property chain',
     elements: [
       { id: 'bank', kind: 'battery', bank: { chemistry: c.chemistry, series: c.series, capacityAh: c.capacityAh, overrides: { maxDischargeCRate: 10 } } },
       { id: 'cable', kind: 'cable', from: 'bank', length: 3, resistancePerKm: c.cableR },
-      { id: 'bus', kind: 'dcbus', from: 'cable', fixedLoss: 3 },
+      { id: 'bus', kind: 'dc-bus', from: 'cable', fixedLoss: 3 },
       { id: 'inv', kind: 'inverter', from: 'bus', phases: 1, outputVoltage: 230, frequency: 50, loss: { model: 'constant', efficiency: 0.93, idleLoss: 15 } },
       { id: 'ac', kind: 'ac-load', from: 'inv', power: c.acLoad, powerFactor: 0.9 },
-      { id: 'conv', kind: 'dcdc', from: 'bus', outputVoltage: 12, loss: { model: 'polynomial', p0: 2, k1: 0.03, k2: 1e-4 } },
+      { id: 'conv', kind: 'dc-dc', from: 'bus', outputVoltage: 12, loss: { model: 'polynomial', p0: 2, k1: 0.03, k2: 1e-4 } },
       { id: 'dc', kind: 'dc-load', from: 'conv', power: c.dcLoad },
     ],
     backup: {

@@ -30,7 +30,7 @@ function link(c: Case, length: number, power: number) {
       ? { system: 'nec', material: 'copper', size: 'auto', insulationRating: 75, continuous: c.continuous }
       : { system: 'iec', material: 'copper', size: 'auto', insulation: 'xlpe', installationMethod: 'C', continuous: c.continuous };
   const load = c.kind === 'dc' ? { id: 'ld', kind: 'dc-load', from: 'run', power } : { id: 'ld', kind: 'ac-load', from: 'run', power, powerFactor: 0.9 };
-  return { format: 'joulepath-project', version: 1, name: 'sizing property', elements: [source, { id: 'run', kind: 'cable', from: 'src', length, conductor }, load] };
+  return { format: 'joulepath-project', version: 2, name: 'sizing property', elements: [source, { id: 'run', kind: 'cable', from: 'src', length, conductor }, load] };
 }
 
 /** The sized conductor, or null when refused (no size fits, or the link collapses). */

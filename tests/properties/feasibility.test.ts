@@ -25,7 +25,7 @@ function link(kind: Kind, voltage: number, length: number, rPerKm: number, power
   const load = kind === 'dc' ? { id: 'load', kind: 'dc-load' as const, from: 'run', power } : { id: 'load', kind: 'ac-load' as const, from: 'run', power, powerFactor: 1 };
   return {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'Nose check',
     elements: [source, { id: 'run', kind: 'cable', from: 'src', length, resistancePerKm: rPerKm }, load],
   };
@@ -157,7 +157,7 @@ describe('constant-current AC loads through a link with reactance', () => {
         const vr = disc >= 0 ? Math.sqrt(disc) - zr : Number.NaN;
         const project: Project = {
           format: 'joulepath-project',
-          version: 1,
+          version: 2,
           name: 'Current load with reactance',
           elements: [
             { id: 'src', kind: 'grid', phases: kind === 'ac3' ? 3 : 1, voltage: v, frequency: 50 },
@@ -205,12 +205,12 @@ describe('a constant-current load behind a DC bus', () => {
           const v = a > 0 && disc >= 0 ? (a + Math.sqrt(disc)) / 2 : Number.NaN;
           const project: Project = {
             format: 'joulepath-project',
-            version: 1,
+            version: 2,
             name: 'Current load behind a bus',
             elements: [
               { id: 'src', kind: 'battery', voltage: e },
               { id: 'run', kind: 'cable', from: 'src', length: 100, resistancePerKm: r / 0.2 },
-              { id: 'bus', kind: 'dcbus', from: 'run', fixedLoss: pBus },
+              { id: 'bus', kind: 'dc-bus', from: 'run', fixedLoss: pBus },
               { id: 'load', kind: 'dc-current-load', from: 'bus', current },
             ],
           };

@@ -67,7 +67,7 @@ const extremeProjectArb = fc
   })
   .map((v) => ({
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'Extreme chain',
     elements: [
       { id: 'src', name: 'Supply', kind: 'grid', phases: 1, voltage: v.voltage, frequency: 50, ...(v.sourceR !== undefined ? { resistance: v.sourceR } : {}) },

@@ -4,7 +4,7 @@
  * JSON), hostile ids (reserved object keys, empty, very long, control characters, duplicates, an
  * element fed from itself) and hostile shapes (a field removed, null, a list, an object, text,
  * true/false in its place) applied to any field. Every outcome of the solve, and of the battery
- * backup study, the surge and fault study and the flow-control study where the project has them, is
+ * backup study, the surge and fault study and the pump duty study where the project has them, is
  * either
  * - a clean refusal: every problem names an element of the project (its id, or "#n" for the n-th
  *   element when it has no readable id, or "project") and a field where it is about one field,
@@ -27,7 +27,7 @@ import { solveProject } from '../../core/solve/index.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
 import { hasSurgeInputs, studySurges } from '../../core/studies/surge/index.ts';
-import { projectFlowStudy } from '../../core/studies/machines/pump-duty.ts';
+import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
 import type { Problem } from '../../core/model/errors.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
 import { RANGES } from '../../core/kinds/ranges.ts';
@@ -91,7 +91,7 @@ const edgeNumber: fc.Arbitrary<number> = fc
 
 /** Ids that are object keys of every object, placeholders the engine uses, or otherwise awkward. */
 const hostileId: fc.Arbitrary<string> = fc.oneof(
-  fc.constantFrom('__proto__', 'toString', 'constructor', 'prototype', 'hasOwnProperty', 'valueOf', 'project', 'flowStudy', '#1', '', ' ', '\u0000', '\u202e', 'a'.repeat(5000), '💥', 'e1'),
+  fc.constantFrom('__proto__', 'toString', 'constructor', 'prototype', 'hasOwnProperty', 'valueOf', 'project', 'pumpDuty', '#1', '', ' ', '\u0000', '\u202e', 'a'.repeat(5000), '💥', 'e1'),
   fc.string({ maxLength: 12 }),
 );
 
@@ -219,11 +219,11 @@ function checkProject(project: Json): void {
     if (study.ok) expect(findNonFinite(study.study)).toEqual([]);
     else expectCleanRefusal('backup study', study.problems, project);
   }
-  if (project['flowStudy'] !== undefined) {
-    const flow = projectFlowStudy(project);
+  if (project['pumpDuty'] !== undefined) {
+    const flow = projectPumpDuty(project);
     stats.studies++;
     if (flow.ok) expect(findNonFinite(flow.result)).toEqual([]);
-    else expectCleanRefusal('flow-control study', flow.problems, project);
+    else expectCleanRefusal('pump duty study', flow.problems, project);
   }
   if (hasSurgeInputs(project)) {
     const surges = studySurges(project);
@@ -272,7 +272,7 @@ describe('hostile input: a clean refusal or a finite, balanced result; no throw,
   }, 120_000 * SCALE);
 
   it('the whole project replaced by something else', () => {
-    for (const input of [null, 0, 'text', [], {}, { format: 'joulepath-project' }, { format: 'joulepath-project', version: 1, name: 'x', elements: {} }, { format: 'joulepath-project', version: 1, name: 'x', elements: [null, 1, 'a', []] }]) {
+    for (const input of [null, 0, 'text', [], {}, { format: 'joulepath-project' }, { format: 'joulepath-project', version: 2, name: 'x', elements: {} }, { format: 'joulepath-project', version: 2, name: 'x', elements: [null, 1, 'a', []] }]) {
       const solved = solveProject(input);
       expect(solved.ok).toBe(false);
       if (!solved.ok) expectCleanRefusal('solve', solved.problems, input as Json);

@@ -43,7 +43,7 @@ function modelIdle(loss: LossModel, r: ElementResult): number {
 function expectedIdle(e: Element, r: ElementResult): number {
   switch (e.kind) {
     case 'rectifier':
-    case 'dcdc':
+    case 'dc-dc':
     case 'inverter':
     case 'generic':
       return modelIdle(e.loss, r);
@@ -56,7 +56,7 @@ function expectedIdle(e: Element, r: ElementResult): number {
       const phi = driveSpeedFraction(e, { kind: r.input!.kind, ...(r.input!.frequency !== undefined ? { frequency: r.input!.frequency } : {}) }) ?? 1;
       return driveLossAt(g.grid, 100 * phi, 0).loss;
     }
-    case 'dcbus':
+    case 'dc-bus':
       return e.fixedLoss;
     case 'transformer':
       return e.noLoadLoss;
@@ -124,7 +124,7 @@ describe('idle and conversion loss over random chains', () => {
         if (!full || !half) return;
         const halfById = new Map(half.elements.map((e) => [e.id, e]));
         for (const r of full.elements) {
-          if (!['rectifier', 'dcdc', 'inverter', 'generic', 'dcbus', 'transformer'].includes(r.kind)) continue;
+          if (!['rectifier', 'dc-dc', 'inverter', 'generic', 'dc-bus', 'transformer'].includes(r.kind)) continue;
           const h = halfById.get(r.id)!;
           // Only where the 0…loss limit acts on neither (it can, for a fit with a negative term).
           if (r.idleLoss === undefined || h.idleLoss === undefined || h.idleLoss >= h.loss || r.idleLoss >= r.loss) continue;

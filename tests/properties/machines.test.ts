@@ -11,7 +11,7 @@
  */
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { compareFlowControl, driveLossAt, driveLossGrid, type FlowStudyInput } from '../../core/studies/machines/index.ts';
+import { comparePumpControl, driveLossAt, driveLossGrid, type PumpDutyInput } from '../../core/studies/machines/index.ts';
 
 const uniform = (lo: number, hi: number) => fc.double({ min: lo, max: hi, noNaN: true });
 
@@ -34,7 +34,7 @@ const studyArb = (maxFlowFraction: number, minFlowFraction = 0) =>
     .map((g) => {
       const pDesign = (1000 * 9.80665 * g.ratedFlow * g.ratedHead) / g.pumpEff;
       const rated = pDesign / g.motorLoad;
-      return (staticHead: number): FlowStudyInput => ({
+      return (staticHead: number): PumpDutyInput => ({
         pump: { ratedFlow: g.ratedFlow, ratedHead: g.ratedHead, shutoffHead: g.ratedHead * g.shutoffRatio, efficiency: g.pumpEff },
         staticHead: staticHead * g.ratedHead,
         duty: g.duty.map((d) => ({ flow: d.f * g.ratedFlow, hours: d.hours })),
@@ -43,8 +43,8 @@ const studyArb = (maxFlowFraction: number, minFlowFraction = 0) =>
       });
     });
 
-const run = (s: FlowStudyInput) => {
-  const r = compareFlowControl(s);
+const run = (s: PumpDutyInput) => {
+  const r = comparePumpControl(s);
   if (!r.ok) throw new Error(JSON.stringify(r.problems));
   return r.result;
 };

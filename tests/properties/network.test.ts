@@ -95,7 +95,7 @@ describe('network impedance laws', () => {
         expect(z.im).toBe(0);
         const out = solveProject({
           format: 'joulepath-project',
-          version: 1,
+          version: 2,
           name: 'R only',
           elements: [
             { id: 'g', kind: 'grid', phases: 1, voltage: 230, frequency: f },
@@ -218,7 +218,7 @@ describe('power-factor correction laws', () => {
         const out = correctPowerFactor(
           {
             format: 'joulepath-project',
-            version: 1,
+            version: 2,
             name: 'stiff',
             elements: [
               { id: 'g', kind: 'grid', phases, voltage: v, frequency: f },
@@ -254,7 +254,7 @@ describe('power-factor correction laws', () => {
         const out = correctPowerFactor(
           {
             format: 'joulepath-project',
-            version: 1,
+            version: 2,
             name: 'feeder',
             elements: [
               { id: 'g', kind: 'grid', phases, voltage: v, frequency: f },

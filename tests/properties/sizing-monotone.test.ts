@@ -33,7 +33,7 @@ function project(c: Case, length: number, amps: number) {
       : { system: 'iec', material: 'copper', size: 'auto', insulation: 'pvc', installationMethod: 'C', continuous: c.continuous, ...(c.variant ? { deviceType: 'gG-fuse' } : {}) };
   // Constant-power load drawing `amps` at the nominal voltage: P = V·I (DC), V·I·pf (1φ), √3·V·I·pf (3φ).
   const load = c.kind === 'dc' ? { id: 'ld', kind: 'dc-load', from: 'run', power: v * amps } : { id: 'ld', kind: 'ac-load', from: 'run', power: v * amps * 0.9 * (c.kind === 'ac3' ? Math.sqrt(3) : 1), powerFactor: 0.9 };
-  return { format: 'joulepath-project', version: 1, name: 'monotone', elements: [source, { id: 'run', kind: 'cable', from: 'src', length, conductor }, load] };
+  return { format: 'joulepath-project', version: 2, name: 'monotone', elements: [source, { id: 'run', kind: 'cable', from: 'src', length, conductor }, load] };
 }
 
 interface Sized {

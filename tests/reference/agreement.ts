@@ -41,7 +41,7 @@ export class Agreement {
 }
 
 /** A project of the given elements (test data; validated by the solve). */
-export const projectOf = (name: string, elements: unknown[]): Project => ({ format: 'joulepath-project', version: 1, name, elements }) as Project;
+export const projectOf = (name: string, elements: unknown[]): Project => ({ format: 'joulepath-project', version: 2, name, elements }) as Project;
 
 /** Collects each case's agreement and prints the worst figures of every case when the file ends. */
 export function agreementSummary(title: string): Agreement[] {

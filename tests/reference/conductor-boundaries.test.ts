@@ -36,7 +36,7 @@ function sized(conductor: Record<string, unknown>, amps: number, opts: { phases?
   const power = phases === 3 ? Math.sqrt(3) * volts * amps : volts * amps; // P = √3·V·I or V·I at pf 1
   const out = solveProject({
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'boundary',
     elements: [
       { id: 'g', kind: 'grid', phases, voltage: volts, frequency: 60 },
@@ -194,7 +194,7 @@ describe('motor branch design current from the NEC tables, not the operating cur
   it('a 2 hp 230 V single-phase motor at half load: Table 430.248 12 A × 1.25 = 15 A, basis motor-branch; 75 °C terminations → 14 AWG (20 A)', () => {
     const out = solveProject({
       format: 'joulepath-project',
-      version: 1,
+      version: 2,
       name: '1φ motor branch',
       elements: [
         { id: 'g', kind: 'grid', phases: 1, voltage: 240, frequency: 60 },

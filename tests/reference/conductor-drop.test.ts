@@ -20,7 +20,7 @@ const PER_KFT = 1 / (1000 * FT); // Ω/kft → Ω/m
 
 
 function solveOk(elements: unknown[]): SolveResult {
-  const out = solveProject({ format: 'joulepath-project', version: 1, name: 'drop case', elements });
+  const out = solveProject({ format: 'joulepath-project', version: 2, name: 'drop case', elements });
   if (!out.ok) throw new Error(JSON.stringify(out.problems));
   return out.result;
 }

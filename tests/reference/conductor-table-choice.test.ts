@@ -64,7 +64,7 @@ function expected(amps: number, marked75: boolean): string {
 function chosen(amps: number, marked75: boolean): { size: string; designCurrent: number } {
   const out = solveProject({
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'table choice',
     elements: [
       { id: 'bat', kind: 'battery', voltage: 240 },

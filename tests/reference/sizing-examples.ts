@@ -48,7 +48,7 @@ export interface SizingExample {
   differs?: string;
   /** The cable element to check. */
   cable: string;
-  project: { format: 'joulepath-project'; version: 1; name: string; elements: Record<string, unknown>[]; dropLimits?: Record<string, unknown> };
+  project: { format: 'joulepath-project'; version: 2; name: string; elements: Record<string, unknown>[]; dropLimits?: Record<string, unknown> };
   expect: {
     size?: string;
     parallelSets?: number;
@@ -71,7 +71,7 @@ const HP = 745.7; // W per hp (NEMA MG 1 / the definition of the mechanical hors
 const FT = 0.3048; // m per ft (exact)
 
 type El = Record<string, unknown>;
-const project = (name: string, elements: El[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project' as const, version: 1 as const, name, elements, ...extra });
+const project = (name: string, elements: El[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project' as const, version: 2 as const, name, elements, ...extra });
 
 const grid = (phases: 1 | 3, voltage: number, frequency: number): El => ({ id: 'g', kind: 'grid', phases, voltage, frequency });
 

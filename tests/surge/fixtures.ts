@@ -1,6 +1,6 @@
 /** Small projects for the surge and fault tests (invented scenarios). */
 
-export const project = (name: string, elements: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project', version: 1, name, elements, ...extra });
+export const project = (name: string, elements: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project', version: 2, name, elements, ...extra });
 
 /** 400 V stiff supply → cable (3.08 Ω/km, 0.09 Ω/km) of `length` m → 15 kW motor, DOL, 200 A locked rotor at pf 0.35. */
 export function dolOnCable(length: number, starting: Record<string, unknown> = {}) {

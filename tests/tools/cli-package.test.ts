@@ -32,7 +32,7 @@ beforeAll(() => {
   for (const d of demoProjects) copyFileSync(join(pkgDir, 'core', 'demos', `${d.id}.json`), join(work, `${d.id}.json`));
   writeFileSync(
     join(work, 'zero-volt.json'),
-    JSON.stringify({ format: 'joulepath-project', version: 1, name: 'Zero volt site', elements: [{ id: 'g', name: 'Grid', kind: 'grid', voltage: 0, frequency: 50, phases: 3 }] }),
+    JSON.stringify({ format: 'joulepath-project', version: 2, name: 'Zero volt site', elements: [{ id: 'g', name: 'Grid', kind: 'grid', voltage: 0, frequency: 50, phases: 3 }] }),
   );
 }, 240_000);
 

@@ -73,7 +73,7 @@ describe('the published JSON Schema', () => {
       // ranges.ts: a voltage is 0.1 V to 1 MV (common practice, no source).
       ['a DC-DC output of 1e300 V', (p) => void (p.elements[7]!['outputVoltage'] = 1e300), /\/elements\/7\/outputVoltage must be <= 1000000/],
       ['a wrong format', (p) => void ((p as Record<string, unknown>)['format'] = 'something-else'), /\/format must be equal to constant/],
-      ['a version other than 1', (p) => void ((p as Record<string, unknown>)['version'] = 2), /\/version must be equal to constant/],
+      ['a version other than 2', (p) => void ((p as Record<string, unknown>)['version'] = 0), /\/version must be equal to constant/],
     ];
     for (const [what, spoil, where] of cases) {
       const p = clone(base);
@@ -91,7 +91,7 @@ describe('the published JSON Schema', () => {
     // ranges.ts: voltage 0.1 V to 1 MV; a cable length over 0 m up to 100 km (common practice, no source).
     expect(defs['battery']!.properties['voltage']).toMatchObject({ type: 'number', minimum: 0.1, maximum: 1e6 });
     expect(defs['cable']!.properties['length']).toMatchObject({ type: 'number', exclusiveMinimum: 0, maximum: 1e5 });
-    const errors = (v: number) => errorsOf(checkProject, { format: 'joulepath-project', version: 1, name: 'x', elements: [{ id: 'b', kind: 'battery', voltage: v }] });
+    const errors = (v: number) => errorsOf(checkProject, { format: 'joulepath-project', version: 2, name: 'x', elements: [{ id: 'b', kind: 'battery', voltage: v }] });
     expect(errors(0.1)).toEqual([]);
     expect(errors(0.09).join()).toMatch(/voltage must be >= 0.1/);
     expect(errors(1e6)).toEqual([]);
@@ -103,7 +103,7 @@ describe('the circuit network of a network-load', () => {
   // Networks of our own invention; parseNetwork (core/physics/network.ts) is the engine's reading.
   const withNetwork = (network: unknown) => ({
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'x',
     elements: [
       { id: 'g', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },

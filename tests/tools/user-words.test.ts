@@ -28,7 +28,7 @@ import { formatResult } from '../../core/cli/text-report.ts';
 import { KINDS } from '../../core/kinds/index.ts';
 import { backupSchema } from '../../core/solve/load-profile.ts';
 import { dropLimitsSchema } from '../../core/conductors/path-drop.ts';
-import { flowStudySchema } from '../../core/kinds/pump.ts';
+import { pumpDutySchema } from '../../core/kinds/pump.ts';
 import { studySurges, formatSurgeStudy } from '../../core/studies/surge/index.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
 import { formatBackupStudy } from '../../core/studies/backup/text-report.ts';
@@ -37,8 +37,8 @@ import { machineSections } from '../../core/cli/machines-flags.ts';
 import { correctPowerFactor } from '../../core/studies/pf/correction.ts';
 import { formatPfCorrection } from '../../core/studies/pf/text-report.ts';
 import { flowGraph } from '../../core/studies/energy-flow.ts';
-import { lossCostPerYear, flowStudyCosts } from '../../core/studies/economics.ts';
-import { projectFlowStudy } from '../../core/studies/machines/pump-duty.ts';
+import { lossCostPerYear, pumpDutyCosts } from '../../core/studies/economics.ts';
+import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
 import { CONDUCTOR_CAUTION } from '../../core/conductors/index.ts';
 import type { SolveResult } from '../../core/model/result.ts';
 import { DROP_BASES, KIND_FORMS, PROJECT_FIELDS, allFields, defaultElement, type FieldSpec } from '../../web/editor/fields.ts';
@@ -89,7 +89,7 @@ function schemaKeys(): string[] {
     }
   };
   for (const spec of KINDS.values()) walk(spec.schema);
-  [backupSchema, dropLimitsSchema, flowStudySchema].forEach(walk);
+  [backupSchema, dropLimitsSchema, pumpDutySchema].forEach(walk);
   return [...keys].filter((k) => /[a-z][A-Z]/.test(k)).sort();
 }
 const CAMEL_KEYS = schemaKeys();
@@ -181,9 +181,9 @@ function projectReads(project: unknown, label: string): Read[] {
     reads.push(...textReads(machines.text, 'ours', `${label} machines text`, []));
     for (const s of strings(machines.json)) reads.push({ area: 'ours', where: `${label} machines ${s.path}`, text: s.text });
   }
-  const flow = projectFlowStudy(project);
+  const flow = projectPumpDuty(project);
   if (flow.ok) {
-    const costs = flowStudyCosts(flow.result, 0.2);
+    const costs = pumpDutyCosts(flow.result, 0.2);
     if (costs.ok) for (const s of strings(costs.costs)) reads.push({ area: 'ours', where: `${label} flow-study costs ${s.path}`, text: s.text });
   }
   const p = project as { backup?: unknown; elements: { id: string; kind: string; bank?: unknown }[] };

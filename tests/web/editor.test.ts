@@ -36,11 +36,11 @@ import {
 } from '../../web/state/editor.ts';
 
 const loss = { model: 'constant', efficiency: 0.95 };
-/** bank → cable → inverter → {fridge, lights}; bank → dcdc → radio. */
+/** bank → cable → inverter → {fridge, lights}; bank → dc-dc → radio. */
 function chain(): DraftProject {
   return {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'test chain',
     elements: [
       { id: 'bank', kind: 'battery', voltage: 51.2, internalResistance: 0.01 },
@@ -48,8 +48,8 @@ function chain(): DraftProject {
       { id: 'inv', kind: 'inverter', from: 'cab', phases: 1, outputVoltage: 230, frequency: 50, loss },
       { id: 'fridge', kind: 'ac-load', from: 'inv', power: 150, powerFactor: 0.8 },
       { id: 'lights', kind: 'ac-load', from: 'inv', power: 200, powerFactor: 0.95 },
-      { id: 'dcdc', kind: 'dcdc', from: 'bank', outputVoltage: 12, loss },
-      { id: 'radio', kind: 'dc-load', from: 'dcdc', power: 40 },
+      { id: 'dc-dc', kind: 'dc-dc', from: 'bank', outputVoltage: 12, loss },
+      { id: 'radio', kind: 'dc-load', from: 'dc-dc', power: 40 },
     ],
   };
 }
@@ -82,7 +82,7 @@ describe('adding', () => {
   });
 
   it('insertBefore puts the element between the target and its feeder', () => {
-    insertBefore('inv', { id: 'bus', kind: 'dcbus', fixedLoss: 4 });
+    insertBefore('inv', { id: 'bus', kind: 'dc-bus', fixedLoss: 4 });
     expect(fromOf('bus')).toBe('cab');
     expect(fromOf('inv')).toBe('bus');
     expect(solved()).toBe(true);
@@ -113,7 +113,7 @@ describe('removing', () => {
 
   it('removeBranch removes everything downstream', () => {
     removeBranch('cab');
-    expect(ids().sort()).toEqual(['bank', 'dcdc', 'radio']);
+    expect(ids().sort()).toEqual(['bank', 'dc-dc', 'radio']);
   });
 
   it('refuses to remove the source', () => {
@@ -149,7 +149,7 @@ describe('duplicate, move, reorder, reattach', () => {
     insertAfter('inv', { id: 'ac-cable', kind: 'cable', length: 10, resistancePerKm: 2 });
     // inv → ac-cable → loads; move the inverter's feeder cable below it is not allowed (a kind
     // change), but swapping two pass-through stages is: put a bus after the DC cable first.
-    insertAfter('cab', { id: 'bus', kind: 'dcbus', fixedLoss: 2 });
+    insertAfter('cab', { id: 'bus', kind: 'dc-bus', fixedLoss: 2 });
     expect(fromOf('bus')).toBe('cab');
     expect(moveUpstream('bus').ok).toBe(true);
     expect(fromOf('bus')).toBe('bank');
@@ -159,14 +159,14 @@ describe('duplicate, move, reorder, reattach', () => {
   });
 
   it('moveDownstream is the same swap seen from the other side', () => {
-    insertAfter('cab', { id: 'bus', kind: 'dcbus', fixedLoss: 2 });
+    insertAfter('cab', { id: 'bus', kind: 'dc-bus', fixedLoss: 2 });
     expect(moveDownstream('cab').ok).toBe(true);
     expect(fromOf('bus')).toBe('bank');
     expect(fromOf('cab')).toBe('bus');
   });
 
   it('refuses a swap when the feeder has other branches, next to the source, or past a fork', () => {
-    // bank feeds cab and dcdc: cab is next to the source.
+    // bank feeds cab and dc-dc: cab is next to the source.
     expect(moveUpstream('cab').ok).toBe(false);
     // inv feeds two loads: moving a load upstream would move the other too.
     const r = moveUpstream('fridge');
@@ -185,8 +185,8 @@ describe('duplicate, move, reorder, reattach', () => {
   });
 
   it('reattach moves a branch and refuses a loop', () => {
-    expect(reattach('dcdc', 'cab').ok).toBe(true);
-    expect(fromOf('dcdc')).toBe('cab');
+    expect(reattach('dc-dc', 'cab').ok).toBe(true);
+    expect(fromOf('dc-dc')).toBe('cab');
     expect(reattach('cab', 'inv').ok).toBe(false);
     expect(reattach('cab', 'cab').ok).toBe(false);
     expect(reattach('bank', 'cab').ok).toBe(false);
@@ -198,12 +198,12 @@ describe('undo and redo', () => {
     const original = structuredClone(draft.value);
     const steps: (() => unknown)[] = [
       () => addBranch('inv', { id: 'x', kind: 'ac-load', power: 10, powerFactor: 1 }),
-      () => insertAfter('cab', { id: 'bus', kind: 'dcbus', fixedLoss: 1 }),
+      () => insertAfter('cab', { id: 'bus', kind: 'dc-bus', fixedLoss: 1 }),
       () => insertBefore('radio', { id: 'rc', kind: 'cable', length: 1, resistancePerKm: 1 }),
-      () => duplicate('dcdc'),
+      () => duplicate('dc-dc'),
       () => moveUpstream('bus'),
       () => reorderBranch('lights', -1),
-      () => reattach('dcdc', 'bus'),
+      () => reattach('dc-dc', 'bus'),
       () => removeElement('cab'),
       () => removeBranch('inv'),
     ];
@@ -240,7 +240,7 @@ describe('undo and redo', () => {
     removeElement('cab');
     undo();
     expect(canRedo.value).toBe(true);
-    duplicate('dcdc');
+    duplicate('dc-dc');
     expect(canRedo.value).toBe(false);
   });
 

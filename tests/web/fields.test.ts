@@ -83,8 +83,8 @@ function chainFor(kind: ElementKind): FormElement[] {
       return [me(), { id: 'load', kind: 'dc-load', from: 'me', power: 500 }];
     case 'rectifier':
       return [grid1, me('src'), { id: 'load', kind: 'dc-load', from: 'me', power: 300 }];
-    case 'dcdc':
-    case 'dcbus':
+    case 'dc-dc':
+    case 'dc-bus':
       return [dc, me('src'), { id: 'load', kind: 'dc-load', from: 'me', power: 300 }];
     case 'inverter':
       return [dc, me('src'), { id: 'load', kind: 'ac-load', from: 'me', power: 300, powerFactor: 0.9 }];
@@ -112,7 +112,7 @@ function chainFor(kind: ElementKind): FormElement[] {
   }
 }
 
-const project = (elements: FormElement[]) => ({ format: 'joulepath-project', version: 1, name: 'form defaults', elements });
+const project = (elements: FormElement[]) => ({ format: 'joulepath-project', version: 2, name: 'form defaults', elements });
 
 describe('a form for every kind the engine knows', () => {
   it.each(kinds)('%s has a form', (kind) => {
@@ -230,7 +230,7 @@ describe('messages at the field', () => {
 
 describe('the project form', () => {
   it('writes only fields the engine knows at project level', () => {
-    const base = { format: 'joulepath-project', version: 1, name: 'x', elements: [{ id: 'b', kind: 'battery', voltage: 12 }] };
+    const base = { format: 'joulepath-project', version: 2, name: 'x', elements: [{ id: 'b', kind: 'battery', voltage: 12 }] };
     const sample: Record<string, unknown> = { name: 'Pump house', description: 'text', 'dropLimits.basis': 'iec-a-other', 'dropLimits.perLinkPercent': 2, 'dropLimits.totalPercent': 4 };
     for (const f of PROJECT_FIELDS) {
       if (f.type === 'group') continue;
@@ -252,8 +252,8 @@ describe('equipment ratings and loads given by their current', () => {
     ['drive', 'ratedInputCurrent', 'current'],
     ['inverter', 'ratedOutputPower', 'power-rating'],
     ['rectifier', 'ratedOutputCurrent', 'current'],
-    ['dcdc', 'ratedOutputPower', 'power-rating'],
-    ['dcdc', 'minInputVoltage', 'voltage'],
+    ['dc-dc', 'ratedOutputPower', 'power-rating'],
+    ['dc-dc', 'minInputVoltage', 'voltage'],
   ] as const)('%s.%s is an optional %s field from the maker’s datasheet that sets a cable’s design current', (kind, path, quantity) => {
     const f = allFields(KIND_FORMS[kind].fields).find((x) => x.type !== 'group' && x.path === path);
     expect(f).toMatchObject({ type: 'number', quantity, required: false });

@@ -59,7 +59,7 @@ describe('export and import back', () => {
   });
 
   it('accepts a project the engine rejects field by field, so it can be fixed in the app', () => {
-    const broken = { format: 'joulepath-project', version: 1, name: 'Negative heater', elements: [{ id: 'b', kind: 'battery' }, { id: 'h', kind: 'dc-load', from: 'b', power: -5 }] };
+    const broken = { format: 'joulepath-project', version: 2, name: 'Negative heater', elements: [{ id: 'b', kind: 'battery' }, { id: 'h', kind: 'dc-load', from: 'b', power: -5 }] };
     expect(parseImportText(envelope(broken)).ok).toBe(true);
   });
 
@@ -85,14 +85,14 @@ describe('bad files are refused with the reason', () => {
     ['a wrong format name', JSON.stringify({ format: 'circuit-sheet', elements: [] }), /format is "circuit-sheet"/],
     ['a newer export version', envelope(riverside).replace('"exportVersion":1', '"exportVersion":7'), /newer version of Joulepath \(export format version 7\)/],
     ['a nonsense export version', envelope(riverside).replace('"exportVersion":1', '"exportVersion":"one"'), /export format version is "one"/],
-    ['a newer project version', JSON.stringify({ ...riverside, version: 2 }), /project schema version 2/],
+    ['a newer project version', JSON.stringify({ ...riverside, version: 3 }), /project schema version 3/],
     ['an envelope without a project', JSON.stringify({ format: EXPORT_FORMAT, exportVersion: 1 }), /project must be an object/],
     ['elements that are not a list', JSON.stringify({ ...riverside, elements: {} }), /elements must be a list/],
     ['a project with 0 elements', envelope({ ...riverside, elements: [] }), /elements is empty/],
     ['an element without an id', JSON.stringify({ ...riverside, elements: [{ kind: 'battery' }] }), /elements\[0\]\.id/],
     ['an element whose kind is a number', JSON.stringify({ ...riverside, elements: [{ id: 'a', kind: 5 }] }), /elements\[0\]\.kind must be text/],
     ['duplicated ids', JSON.stringify({ ...riverside, elements: [{ id: 'a', kind: 'battery' }, { id: 'a', kind: 'dc-load', from: 'a' }] }), /Two elements share the id "a" \(elements 1 and 2\)/],
-    ['a number that overflows', JSON.stringify(riverside).replace('"version":1', '"version":1,"x":1e400'), /too large to be read/],
+    ['a number that overflows', JSON.stringify(riverside).replace('"version":2', '"version":2,"x":1e400'), /too large to be read/],
     ['a huge number', envelope({ ...riverside, elements: [{ id: 'a', kind: 'battery', voltage: 1e300 }] }), /larger than any value in a power chain/],
     ['a __proto__ key', '{"format":"joulepath-project","version":1,"name":"x","elements":[{"id":"a","kind":"battery","__proto__":{"polluted":"yes"}}]}', /key named "__proto__"/],
     ['a constructor key', envelope({ ...riverside, constructor: { prototype: { polluted: 'yes' } } }), /key named "constructor"/],

@@ -26,19 +26,19 @@ import { IMPORT_LIMITS, buildExport, exportText, parseImportText } from '../../w
 import { scanLimits } from '../../web/storage/limits.ts';
 
 const loss = { model: 'constant', efficiency: 0.95 };
-/** bank → cable → inverter → fridge; bank → dcdc → radio (with a simple network load on the inverter). */
+/** bank → cable → inverter → fridge; bank → dc-dc → radio (with a simple network load on the inverter). */
 function chain(): DraftProject {
   return structuredClone<DraftProject>({
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name: 'limits chain',
     elements: [
       { id: 'bank', kind: 'battery', voltage: 51.2, internalResistance: 0.01 },
       { id: 'cab', kind: 'cable', from: 'bank', length: 3, resistancePerKm: 0.5 },
       { id: 'inv', kind: 'inverter', from: 'cab', phases: 1, outputVoltage: 230, frequency: 50, loss: { ...loss } },
       { id: 'fridge', kind: 'ac-load', from: 'inv', power: 150, powerFactor: 0.8 },
-      { id: 'dcdc', kind: 'dcdc', from: 'bank', outputVoltage: 12, loss: { ...loss } },
-      { id: 'radio', kind: 'dc-load', from: 'dcdc', power: 40 },
+      { id: 'dc-dc', kind: 'dc-dc', from: 'bank', outputVoltage: 12, loss: { ...loss } },
+      { id: 'radio', kind: 'dc-load', from: 'dc-dc', power: 40 },
     ],
   });
 }
@@ -61,7 +61,7 @@ function nested(depth: number): unknown {
 function wide(count: number): DraftProject {
   const elements: DraftElement[] = [{ id: 'bank', kind: 'battery', voltage: 48, internalResistance: 0.01 }];
   for (let i = 1; i < count; i++) elements.push({ id: `l${i}`, kind: 'dc-load', from: 'bank', power: 1 });
-  return { format: 'joulepath-project', version: 1, name: 'wide', elements };
+  return { format: 'joulepath-project', version: 2, name: 'wide', elements };
 }
 
 beforeEach(() => {
@@ -111,7 +111,7 @@ describe('a field edit past a limit of the project file is refused at the field'
     const rows = (n: number) => Array.from({ length: n }, (_v, i) => ({ load: i / 1e6, efficiency: 0.9 }));
     const withRows = (n: number) => {
       const p = chain();
-      (p.elements.find((e) => e.id === 'dcdc')!['loss'] as Record<string, unknown>)['points'] = rows(n);
+      (p.elements.find((e) => e.id === 'dc-dc')!['loss'] as Record<string, unknown>)['points'] = rows(n);
       return p;
     };
     // Each row adds 3 values (the row and its two numbers): from the count of a one-row file, the
@@ -124,7 +124,7 @@ describe('a field edit past a limit of the project file is refused at the field'
     const put = (n: number) => {
       loadProject(chain(), { kind: 'new', title: 'rows' });
       return edit('rows', (p) => {
-        (p.elements.find((e) => e.id === 'dcdc')!['loss'] as Record<string, unknown>)['points'] = rows(n);
+        (p.elements.find((e) => e.id === 'dc-dc')!['loss'] as Record<string, unknown>)['points'] = rows(n);
       });
     };
     expect(put(lo)).toBeNull();
@@ -136,7 +136,7 @@ describe('a field edit past a limit of the project file is refused at the field'
     const before = draft.value;
     const rows = Array.from({ length: IMPORT_LIMITS.maxValues / 2 }, (_v, i) => ({ load: i / 1e5, efficiency: 0.9 }));
     const message = edit('many rows', (p) => {
-      (p.elements.find((e) => e.id === 'dcdc')!['loss'] as Record<string, unknown>)['points'] = rows;
+      (p.elements.find((e) => e.id === 'dc-dc')!['loss'] as Record<string, unknown>)['points'] = rows;
     });
     expect(message).toMatch(/more than 200.000 values/);
     expect(draft.value).toBe(before);
@@ -178,7 +178,7 @@ describe('what an edit makes of ids and names stays within the file\'s limits', 
   it('a fresh id made from a 100-character id is at most 100 characters', () => {
     const long = 'c'.repeat(IMPORT_LIMITS.maxIdLength);
     const p = chain();
-    p.elements.push({ id: long, kind: 'dc-load', from: 'dcdc', power: 2 });
+    p.elements.push({ id: long, kind: 'dc-load', from: 'dc-dc', power: 2 });
     loadProject(p, { kind: 'new', title: 'long id' });
     expect(freshId(draft.value!, long).length).toBeLessThanOrEqual(IMPORT_LIMITS.maxIdLength);
     expect(duplicate(long).ok).toBe(true);

@@ -48,7 +48,7 @@ const tabB = new ProjectStore({ store: idb });
 function project(name: string, loads = 1): DraftProject {
   return {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name,
     elements: [
       { id: 'src', kind: 'battery', voltage: 48 },

@@ -15,7 +15,7 @@ const v0Fixture: unknown = JSON.parse(readFileSync(new URL('./fixtures/stored-v0
 function project(name: string, elements = 2): DraftProject {
   return {
     format: 'joulepath-project',
-    version: 1,
+    version: 2,
     name,
     elements: [
       { id: 'src', kind: 'battery', voltage: 48 },
@@ -41,7 +41,7 @@ beforeEach(() => {
 describe('record layout and migrations', () => {
   it('reads a current record as it is', () => {
     const raw = {
-      storageVersion: 1,
+      storageVersion: 2,
       id: 'a',
       createdAt: '2025-01-01T00:00:00.000Z',
       savedAt: '2025-01-02T00:00:00.000Z',
@@ -78,7 +78,7 @@ describe('record layout and migrations', () => {
     const newer = readRecord('n', { storageVersion: STORAGE_VERSION + 1, whatever: true });
     expect(newer).toMatchObject({ ok: false, reason: 'newer' });
     if (!newer.ok) expect(newer.message).toMatch(/newer version of Joulepath/);
-    const damaged = readRecord('d', { storageVersion: 1, id: 'd', project: 'not a project' });
+    const damaged = readRecord('d', { storageVersion: 2, id: 'd', project: 'not a project' });
     expect(damaged).toMatchObject({ ok: false, reason: 'damaged' });
     expect(readRecord('x', 'text')).toMatchObject({ ok: false, reason: 'damaged' });
     expect(readRecord('y', { title: 'v0 without data', updated: 5 })).toMatchObject({ ok: false, reason: 'damaged' });
@@ -232,7 +232,7 @@ describe('the project store', () => {
     const before = JSON.stringify(await store.dump());
     const saved = await store.save('future', project('Older layout'), 'tab-a', 7);
     expect(saved).toMatchObject({ ok: false, reason: 'not-writable' });
-    if (!saved.ok && saved.reason === 'not-writable') expect(saved.message).toMatch(/newer version of Joulepath \(storage layout 2\).*update the app/);
+    if (!saved.ok && saved.reason === 'not-writable') expect(saved.message).toMatch(/newer version of Joulepath \(storage layout 3\).*update the app/);
     expect(await store.save('future', project('Older layout'), 'tab-a', null)).toMatchObject({ ok: false, reason: 'not-writable' });
     const renamed = await store.rename('future', 'Renamed', 'tab-a');
     expect(renamed).toMatchObject({ ok: false, reason: 'not-writable' });

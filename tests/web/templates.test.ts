@@ -19,7 +19,7 @@ import {
 } from '../../web/editor/templates.ts';
 import { addBranch, draft, insertAfter, insertBefore, loadProject, outcome, type DraftElement, type DraftProject } from '../../web/state/editor.ts';
 
-const project = (elements: DraftElement[]): DraftProject => ({ format: 'joulepath-project', version: 1, name: 'test', elements });
+const project = (elements: DraftElement[]): DraftProject => ({ format: 'joulepath-project', version: 2, name: 'test', elements });
 const source = (key: string) => structuredClone(SOURCE_TEMPLATES.find((s) => s.key === key)!.element);
 
 /** Small projects ending at a feeder whose output port is the one named. */
@@ -38,8 +38,8 @@ function feeders(): { label: string; project: DraftProject; feederId: string }[]
     out.push({ label: `${kind} after ${key}`, project: p, feederId: t.id });
   };
   after('battery-48', 'inverter');
-  after('battery-48', 'dcdc');
-  after('battery-48', 'dcbus');
+  after('battery-48', 'dc-dc');
+  after('battery-48', 'dc-bus');
   after('battery-48', 'cable');
   after('grid-1-230', 'rectifier');
   after('grid-3-400', 'transformer');
@@ -91,7 +91,7 @@ describe('templates after every plausible feeding port', () => {
       const p = project([source(key)]);
       return templatesAfter({ port: nominalPorts(p).get(p.elements[0]!.id)!, project: p }).map((t) => t.kind).sort();
     };
-    expect(kindsAt('battery-48')).toEqual(['cable', 'dc-current-load', 'dc-load', 'dcbus', 'dcdc', 'generic', 'inverter']);
+    expect(kindsAt('battery-48')).toEqual(['cable', 'dc-bus', 'dc-current-load', 'dc-dc', 'dc-load', 'generic', 'inverter']);
     expect(kindsAt('grid-3-400')).toEqual(['ac-current-load', 'ac-load', 'ac-va-load', 'cable', 'drive', 'generic', 'motor', 'network-load', 'rectifier', 'transformer']);
     const shaft = templatesAfter({ port: { kind: 'shaft' } }).map((t) => t.kind).sort();
     expect(shaft).toEqual(['pump', 'shaft-load']);

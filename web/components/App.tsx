@@ -68,7 +68,7 @@ function PanelShelf({ result: latest }: { result: SolveResult }) {
       <PanelDisclosure
         id="machines"
         title={machines ? 'Machines, power factor and running cost' : 'Power factor and running cost'}
-        hint={machines ? 'motors, drives, pumps, flow study, capacitor bank, cost of losses' : 'capacitor bank, cost of losses per year'}
+        hint={machines ? 'motors, drives, pumps, pump duty study, capacitor bank, cost of losses' : 'capacitor bank, cost of losses per year'}
       >
         {() => <MachinesPanel />}
       </PanelDisclosure>

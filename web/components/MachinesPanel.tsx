@@ -1,12 +1,12 @@
 /**
  * The machines panel: motors (load, efficiency and power factor at the operating point, the NEC
  * Table 430.250 current), drives (operating point, losses, true power factor), pumps (operating
- * point), the project's flow-control study (energy per year by drive, throttle and on-off), a
+ * point), the project's pump duty study (energy per year by drive, throttle and on-off), a
  * power-factor correction control for any AC interface, and what the losses cost per year.
  * Loaded on demand.
  *
- * Every figure comes from core (machineDetails, pumpDetails, projectFlowStudy, correctPowerFactor,
- * lossCostPerYear, flowStudyCosts), run in the panel worker (panel-worker.ts); this file only
+ * Every figure comes from core (machineDetails, pumpDetails, projectPumpDuty, correctPowerFactor,
+ * lossCostPerYear, pumpDutyCosts), run in the panel worker (panel-worker.ts); this file only
  * formats. The energy price and hours per year are the user's own settings (web/state/prefs.ts),
  * not project data.
  */
@@ -184,9 +184,9 @@ function PumpCard({ p, units, locale }: { p: PumpDetail; units: UnitSystem; loca
   );
 }
 
-// ---------- flow study ----------
+// ---------- pump duty study ----------
 
-function FlowStudy({ flow, locale }: { flow: NonNullable<MachinesFigures['flow']>; locale: Locale }) {
+function PumpDuty({ flow, locale }: { flow: NonNullable<MachinesFigures['flow']>; locale: Locale }) {
   if (!flow.ok) {
     return (
       <section class="panel-section" aria-labelledby="flow-study-heading">
@@ -630,7 +630,7 @@ export default function MachinesPanel() {
           </div>
         </section>
       )}
-      {flow && <FlowStudy flow={flow} locale={locale} />}
+      {flow && <PumpDuty flow={flow} locale={locale} />}
       <PfCorrectionControl result={shown.result} locale={locale} />
       <LossCost lossCost={lossCost} locale={locale} />
     </div>

@@ -73,7 +73,7 @@ export function keyInputs(e: DraftElement, input: FeedingPort | undefined, units
       break;
     }
     case 'rectifier':
-    case 'dcdc':
+    case 'dc-dc':
       lines.push(`${from}${v(e['outputVoltage'])} DC`);
       lines.push(lossWords(e['loss'], locale));
       break;
@@ -82,7 +82,7 @@ export function keyInputs(e: DraftElement, input: FeedingPort | undefined, units
       lines.push(lossWords(e['loss'], locale));
       break;
     }
-    case 'dcbus': {
+    case 'dc-bus': {
       const loss = num(e['fixedLoss']);
       if (loss !== undefined) lines.push(`own loss ${formatPower(loss, locale)}`);
       break;

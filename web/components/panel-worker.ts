@@ -12,10 +12,10 @@
 import { runBackupStudy, type BackupStudyResult } from '../../core/studies/backup/study.ts';
 import { bankCautions, rechargeCautions } from '../../core/studies/backup/cautions.ts';
 import { machineDetails, type DriveDetail, type MotorDetail } from '../../core/studies/machines/details.ts';
-import { pumpDetails, projectFlowStudy, type PumpDetail } from '../../core/studies/machines/pump-duty.ts';
-import type { FlowControlResult } from '../../core/physics/pump-fan.ts';
+import { pumpDetails, projectPumpDuty, type PumpDetail } from '../../core/studies/machines/pump-duty.ts';
+import type { PumpControlResult } from '../../core/physics/pump-fan.ts';
 import { correctPowerFactor, type PfCorrection } from '../../core/studies/pf/correction.ts';
-import { flowStudyCosts, lossCostPerYear, type CostSettings, type LossCost, type MethodCosts } from '../../core/studies/economics.ts';
+import { pumpDutyCosts, lossCostPerYear, type CostSettings, type LossCost, type MethodCosts } from '../../core/studies/economics.ts';
 import { validateProject } from '../../core/solve/validate.ts';
 import { elementNames, nonFiniteProblems } from '../../core/solve/finite.ts';
 import type { Problem } from '../../core/model/errors.ts';
@@ -35,7 +35,7 @@ export interface MachinesFigures {
   motors: MotorDetail[];
   drives: DriveDetail[];
   pumps: PumpDetail[];
-  flow?: { ok: true; result: FlowControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
+  flow?: { ok: true; result: PumpControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
   lossCost?: { ok: true; cost: LossCost } | { ok: false; problems: Problem[] };
 }
 
@@ -82,10 +82,10 @@ function machines(input: unknown, result: SolveResult, cost: CostSettings | null
   const project = valid.project;
   const { motors, drives } = machineDetails(project, result);
   const figures: MachinesFigures = { motors, drives, pumps: pumpDetails(project) };
-  if (project.flowStudy) {
-    const f = projectFlowStudy(input);
+  if (project.pumpDuty) {
+    const f = projectPumpDuty(input);
     if (f.ok) {
-      const costs = cost ? flowStudyCosts(f.result, cost.pricePerKWh) : undefined;
+      const costs = cost ? pumpDutyCosts(f.result, cost.pricePerKWh) : undefined;
       figures.flow = { ok: true, result: f.result, ...(costs?.ok ? { costs: costs.costs } : {}) };
     } else figures.flow = { ok: false, problems: f.problems };
   }

@@ -537,7 +537,7 @@ const rectifierForm: KindForm = {
 };
 
 const dcdcForm: KindForm = {
-  kind: 'dcdc',
+  kind: 'dc-dc',
   fields: [
     name,
     voltage('outputVoltage', 'Output voltage', 12),
@@ -548,7 +548,7 @@ const dcdcForm: KindForm = {
 };
 
 const dcbusForm: KindForm = {
-  kind: 'dcbus',
+  kind: 'dc-bus',
   fields: [
     name,
     {
@@ -1023,7 +1023,7 @@ const cableForm: KindForm = {
               help: 'Empty: PVC.',
               options: [
                 { value: 'pvc', label: 'PVC conduit' },
-                { value: 'aluminum', label: 'Aluminum conduit' },
+                { value: 'aluminium', label: 'Aluminum conduit' },
                 { value: 'steel', label: 'Steel conduit' },
               ],
             },
@@ -1253,8 +1253,8 @@ export const KIND_FORMS: Readonly<Record<ElementKind, KindForm>> = {
   generator: acSource('generator'),
   battery: batteryForm,
   rectifier: rectifierForm,
-  dcdc: dcdcForm,
-  dcbus: dcbusForm,
+  'dc-dc': dcdcForm,
+  'dc-bus': dcbusForm,
   inverter: inverterForm,
   transformer: transformerForm,
   drive: driveForm,

@@ -94,9 +94,9 @@ export function nominalOutput(e: DraftElement, input: FeedingPort | null): Feedi
     case 'battery':
       return withV('dc', num(e['voltage']) ?? bankVoltage(e['bank']));
     case 'rectifier':
-    case 'dcdc':
+    case 'dc-dc':
       return withV('dc', num(e['outputVoltage']));
-    case 'dcbus':
+    case 'dc-bus':
       return input && input.kind === 'dc' ? input : withV('dc', undefined);
     case 'cable':
       return input && input.kind !== 'shaft' ? input : null;
@@ -190,10 +190,10 @@ export function templateFor(kind: ElementKind, ctx: TemplateContext): DraftEleme
         t = { id: 'inverter', kind, phases: 1, outputVoltage: mains === 60 ? 120 : 230, frequency: mains, loss: constantLoss(0.95) };
       }
       break;
-    case 'dcdc':
-      if (port.kind === 'dc') t = { id: 'dcdc', kind, outputVoltage: (port.voltage ?? 48) <= 14 ? 24 : 12, loss: constantLoss(0.94) };
+    case 'dc-dc':
+      if (port.kind === 'dc') t = { id: 'dc-dc', kind, outputVoltage: (port.voltage ?? 48) <= 14 ? 24 : 12, loss: constantLoss(0.94) };
       break;
-    case 'dcbus':
+    case 'dc-bus':
       if (port.kind === 'dc') t = { id: 'dc-bus', kind, fixedLoss: 5 };
       break;
     case 'rectifier':

@@ -19,6 +19,7 @@ import { batch, computed, effect, signal } from '@preact/signals';
 import { solveProject, validateProject, type SolveOutcome } from '../../core/solve/index.ts';
 import type { Problem } from '../../core/model/errors.ts';
 import type { SolveResult } from '../../core/model/result.ts';
+import { PROJECT_VERSION } from '../../core/model/migrate.ts';
 import { DEPTH_IN_FILE, ENVELOPE_VALUES, FILE_LIMITS, limitWords, scanLimits, withSuffix, type LimitIssue } from '../storage/limits.ts';
 
 /** One element as edited: plain data, checked by the engine on every solve. */
@@ -487,7 +488,7 @@ export function newProject(name: string, source: DraftElement): void {
   // A project name the file holds (the new-chain box has no length limit of its own).
   const named = withSuffix(name, '', FILE_LIMITS.maxProjectNameLength);
   loadProject(
-    { format: 'joulepath-project', version: 1, name: named, elements: [rest as DraftElement] },
+    { format: 'joulepath-project', version: PROJECT_VERSION, name: named, elements: [rest as DraftElement] },
     { kind: 'new', title: named },
   );
   selectedId.value = source.id;

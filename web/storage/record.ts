@@ -6,10 +6,11 @@
 import { FILE_LIMITS, withSuffix } from './limits.ts';
 import { z } from 'zod/mini';
 import { issueMessage } from '../../core/solve/issue-messages.ts';
+import { migrateProject } from '../../core/model/migrate.ts';
 import type { DraftProject } from '../state/editor.ts';
 
 /** Version of the stored record layout written by this build. Raise it with a migration below. */
-export const STORAGE_VERSION = 1;
+export const STORAGE_VERSION = 2;
 
 /** Key prefix of project records in the object store ("project:<id>"). */
 export const PROJECT_KEY_PREFIX = 'project:';
@@ -18,9 +19,9 @@ export function projectKey(id: string): string {
   return `${PROJECT_KEY_PREFIX}${id}`;
 }
 
-/** One stored project (layout version 1). */
+/** One stored project (layout version 2: layout 1 with its project in file format 2). */
 export interface StoredProject {
-  storageVersion: 1;
+  storageVersion: 2;
   /** Key without the prefix; never changes for the life of the record. */
   id: string;
   /** ISO 8601 times (UTC). */
@@ -50,8 +51,8 @@ const projectShape = z.looseObject({
   elements: z.array(elementShape),
 });
 
-const recordV1 = z.object({
-  storageVersion: z.literal(1),
+const recordV2 = z.object({
+  storageVersion: z.literal(2),
   id: z.string().check(z.minLength(1)),
   createdAt: isoTime,
   savedAt: isoTime,
@@ -91,7 +92,13 @@ const MIGRATIONS: Record<number, (raw: unknown, id: string) => unknown> = {
       revision: 1,
       tabId: 'migrated',
       project: { ...data, name: data.name ?? v0.title },
-    } satisfies Omit<StoredProject, 'project'> & { project: unknown };
+    };
+  },
+  // Layout 2: the project inside is brought to file format 2 (core/model/migrate.ts: kind and field
+  // renames). The record's other fields are unchanged; an older build then refuses to write over it.
+  1: (raw) => {
+    const v1 = z.looseObject({ storageVersion: z.literal(1), project: z.unknown() }).parse(raw, { error: issueMessage });
+    return { ...v1, storageVersion: 2, project: migrateProject(v1.project).value } satisfies Partial<Omit<StoredProject, 'project'>> & { project: unknown };
   },
 };
 
@@ -126,7 +133,7 @@ export function readRecord(id: string, raw: unknown): ReadRecord {
   } catch (error) {
     return { ok: false, id, reason: 'damaged', message: `The stored record could not be migrated (${error instanceof Error ? error.message : String(error)}).` };
   }
-  const parsed = recordV1.safeParse(value, { error: issueMessage });
+  const parsed = recordV2.safeParse(value, { error: issueMessage });
   if (!parsed.success) {
     const first = parsed.error.issues[0];
     return { ok: false, id, reason: 'damaged', message: `The stored record is damaged (${first ? `${first.path.join('.')}: ${first.message}` : 'unknown shape'}).` };

@@ -3,6 +3,7 @@
  * when it was hidden or left, applied once that page is closed. Loaded only when there are rescue
  * copies, so it stays out of the first load.
  */
+import { migrateProject } from '../../core/model/migrate.ts';
 import { z } from 'zod/mini';
 import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
@@ -28,7 +29,9 @@ const rescueShape = z.object({
 /** A rescue copy as stored, or undefined when it is not one this build reads (left alone). */
 export function readRescue(raw: unknown): RescueRecord | undefined {
   const parsed = rescueShape.safeParse(raw, { error: issueMessage });
-  return parsed.success ? (parsed.data as RescueRecord) : undefined;
+  if (!parsed.success) return undefined;
+  // A copy written by a build of an older file format holds its project in that format: brought up to date.
+  return { ...parsed.data, project: migrateProject(parsed.data.project).value } as RescueRecord;
 }
 
 /** How long the start waits for a closing tab to let go of its lock (a reload opens the new page at once). */

@@ -1,8 +1,8 @@
 /** Motors, drives and driven machines: the public entry of core/studies/machines (re-exports only). */
-export { compareFlowControl, STANDARD_GRAVITY, HOURS_PER_YEAR, type FlowStudyInput, type FlowControlResult, type FlowControlOutcome, type DutyPointResult, type MethodEnergy, type SpeedControlPoint, type FixedSpeedPoint } from '../../physics/pump-fan.ts';
+export { comparePumpControl, STANDARD_GRAVITY, HOURS_PER_YEAR, type PumpDutyInput, type PumpControlResult, type PumpControlOutcome, type DutyPointResult, type MethodEnergy, type SpeedControlPoint, type FixedSpeedPoint } from '../../physics/pump-fan.ts';
 export { driveLossGrid, driveLossAt, driveLossAtPoint, checkOperatingPoint, truePowerFactor, type DriveLossGrid, type DriveLossAt } from '../../physics/drive-loss.ts';
 export { classEfficiency, motorRating, ratedAt, partLoadRatios, necFullLoadCurrent, typicalPowerFactor, MOTOR_CLASSES, type MotorRating, type FullLoadEfficiency } from '../../physics/motor-rating.ts';
 export { machineDetails, solveWithMachines, NEC_TABLE_CURRENT_NOTE, type MachineDetails, type MotorDetail, type DriveDetail, type MachineSolveOutcome } from './details.ts';
-export { formatMachines, formatFlowStudy, MACHINE_CAUTION } from './text-report.ts';
-export { projectFlowStudy, pumpDetails, flowStudySchema, type PumpDetail, type ProjectFlowOutcome } from './pump-duty.ts';
+export { formatMachines, formatPumpDuty, MACHINE_CAUTION } from './text-report.ts';
+export { projectPumpDuty, pumpDetails, pumpDutySchema, type PumpDetail, type PumpDutyOutcome } from './pump-duty.ts';
 export { affinitySpeed, pumpCurveHead, systemCurveHead, hydraulicPower, pumpShaftPower } from '../../physics/pump-fan.ts';

@@ -1,6 +1,6 @@
 /**
- * The flow-control study of a project's own pump: `flowStudy: { pump, duty }` names a `pump`
- * element; the study (compareFlowControl, core/physics/pump-fan.ts) takes
+ * The pump duty study of a project's own pump: `pumpDuty: { pump, duty }` names a `pump`
+ * element; the study (comparePumpControl, core/physics/pump-fan.ts) takes
  * - the pump curve, efficiency, density and static head from that element (its own `flow` and
  *   `control` are the chain's present operating point and play no part: the duty replaces them);
  * - the motor feeding it: its rating and efficiency class or nameplate; a motor given by an
@@ -22,10 +22,10 @@ import { validateProject } from '../../solve/validate.ts';
 import { motorPowerFactorAt } from '../../kinds/motor.ts';
 import { pumpOperatingPoint, type PumpOperatingPoint } from '../../kinds/pump.ts';
 import { efficiencyAt, prepareLoss } from '../../physics/loss-model.ts';
-import { compareFlowControl, HOURS_PER_YEAR, type FlowControlResult, type FlowStudyInput } from '../../physics/pump-fan.ts';
+import { comparePumpControl, HOURS_PER_YEAR, type PumpControlResult, type PumpDutyInput } from '../../physics/pump-fan.ts';
 import { motorRating } from '../../physics/motor-rating.ts';
 
-export { flowStudySchema } from '../../kinds/pump.ts';
+export { pumpDutySchema } from '../../kinds/pump.ts';
 
 /** Drive speed and needed speed may differ by this fraction of full speed before a warning (common practice, no source). */
 const SPEED_TOLERANCE = 0.02;
@@ -97,13 +97,13 @@ export function pumpDetails(project: Project): PumpDetail[] {
   return out;
 }
 
-export type ProjectFlowOutcome = { ok: true; result: FlowControlResult; input: FlowStudyInput } | { ok: false; problems: Problem[] };
+export type PumpDutyOutcome = { ok: true; result: PumpControlResult; input: PumpDutyInput } | { ok: false; problems: Problem[] };
 
-const STUDY = 'flowStudy';
+const STUDY = 'pumpDuty';
 
 /**
- * A problem of the project's flow study: it belongs to the project (no element has the id
- * "flowStudy"), at the field's path as the validation writes it, e.g. "flowStudy.duty.1.flow".
+ * A problem of the project's pump duty study: it belongs to the project (no element has the id
+ * "pumpDuty"), at the field's path as the validation writes it, e.g. "pumpDuty.duty.1.flow".
  */
 const studyProblem = (field: string, value: unknown, message: string): Problem => ({
   code: 'invalid-value',
@@ -113,13 +113,13 @@ const studyProblem = (field: string, value: unknown, message: string): Problem =
   message,
 });
 
-/** Build the study input from the chain (pump, its motor, the drive above) and run compareFlowControl. */
-export function projectFlowStudy(input: unknown): ProjectFlowOutcome {
+/** Build the study input from the chain (pump, its motor, the drive above) and run comparePumpControl. */
+export function projectPumpDuty(input: unknown): PumpDutyOutcome {
   const valid = validateProject(input);
   if (!valid.ok) return { ok: false, problems: valid.problems };
   const project = valid.project;
-  const study = project.flowStudy;
-  if (study === undefined) return { ok: false, problems: [{ code: 'invalid-value', elementId: 'project', field: STUDY, message: 'is required for a flow-control study ({ pump, duty })' }] };
+  const study = project.pumpDuty;
+  if (study === undefined) return { ok: false, problems: [{ code: 'invalid-value', elementId: 'project', field: STUDY, message: 'is required for a pump duty study ({ pump, duty })' }] };
   const elements = byId(project);
   const pump = elements.get(study.pump);
   if (!pump) return { ok: false, problems: [studyProblem('pump', study.pump, `names no element of the project (give the id of a pump element)`)] };
@@ -148,7 +148,7 @@ export function projectFlowStudy(input: unknown): ProjectFlowOutcome {
       `${drive ? `drive "${drive.name ?? drive.id}" has no IEC 61800-9-2 operating points` : `no drive feeds motor "${motor.name ?? motor.id}"`}: the speed-control figures use the IE2 class-reference drive losses (typical values: use the maker's figures) for a drive sized to the motor, ${(driveLoss.ratedApparentPower / 1000).toPrecision(3)} kVA = P_rated / (η_FL·pf_FL)`,
     );
   }
-  const flowInput: FlowStudyInput = {
+  const pumpDutyInput: PumpDutyInput = {
     id: STUDY,
     pump: { ratedFlow: pump.ratedFlow, ratedHead: pump.ratedHead, shutoffHead: pump.shutoffHead, efficiency: pump.efficiency, ...(pump.density !== undefined ? { density: pump.density } : {}) },
     staticHead: pump.staticHead,
@@ -156,15 +156,15 @@ export function projectFlowStudy(input: unknown): ProjectFlowOutcome {
     motor: m,
     drive: driveLoss,
   };
-  const r = compareFlowControl(flowInput);
+  const r = comparePumpControl(pumpDutyInput);
   if (!r.ok) return { ok: false, problems: r.problems.map((p) => renameProblem(p, pump, motor, drive)) };
   const tree = pumpDetails(project).find((d) => d.id === pump.id)!;
   r.result.warnings.unshift(...warnings, ...tree.warnings.map((w) => `pump "${pump.id}": ${w}`));
-  return { ok: true, result: r.result, input: flowInput };
+  return { ok: true, result: r.result, input: pumpDutyInput };
 }
 
 /** The study's motor description from a chain motor (explicit loss models enter by their rated-output efficiency). */
-function studyMotor(motor: MotorStage, warnings: string[]): FlowStudyInput['motor'] {
+function studyMotor(motor: MotorStage, warnings: string[]): PumpDutyInput['motor'] {
   const common = {
     ratedOutput: motor.ratedOutput,
     ...(motor.poles !== undefined ? { poles: motor.poles } : {}),

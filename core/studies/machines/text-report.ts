@@ -1,6 +1,6 @@
 /** Plain-text report of motor/drive details and of the flow-control comparison (CLI). */
 import type { MachineDetails } from './details.ts';
-import type { FlowControlResult } from '../../physics/pump-fan.ts';
+import type { PumpControlResult } from '../../physics/pump-fan.ts';
 
 const pct = (x: number) => `${(x * 100).toFixed(1)} %`;
 const kwh = (wh: number) => `${(wh / 1000).toFixed(0)} kWh`;
@@ -35,7 +35,7 @@ export function formatMachines(m: MachineDetails): string {
   return out.join('\n');
 }
 
-export function formatFlowStudy(r: FlowControlResult): string {
+export function formatPumpDuty(r: PumpControlResult): string {
   const out: string[] = ['Flow control comparison (energy per year)'];
   out.push(`  design point: ${(r.designPoint.flow * 3600).toFixed(1)} m³/h at ${r.designPoint.head.toFixed(1)} m, shaft ${kw(r.designPoint.shaftPower)} (${pct(r.designPoint.motorLoadFraction)} of motor rating), input ${kw(r.designPoint.inputPower)}`);
   out.push('  flow m³/h   hours   drive: speed  input      throttle: input   on-off: run');

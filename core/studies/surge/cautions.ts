@@ -15,7 +15,7 @@ export function surgeCautions(project: Project): string[] {
   const out = battery ? [ESTIMATE_CAUTION, PLANNING_CAUTION] : [ESTIMATE_CAUTION];
   const ac = project.elements.some((e) => e.kind === 'grid' || e.kind === 'generator' || e.kind === 'inverter');
   if (ac) out.push(ARC_FLASH_CAUTION);
-  if (battery || project.elements.some((e) => e.kind === 'rectifier' || e.kind === 'dcbus')) out.push(DC_ARC_CAUTION);
+  if (battery || project.elements.some((e) => e.kind === 'rectifier' || e.kind === 'dc-bus')) out.push(DC_ARC_CAUTION);
   if (battery?.kind === 'battery' && battery.bank && (battery.bank.chemistry === 'flooded-lead-acid' || battery.bank.chemistry === 'nicd')) out.push(VENTED_CAUTION);
   return out;
 }

@@ -161,7 +161,7 @@ export function batteryFaults(project: Project, result: SolveResult): { ok: true
       walk.points.push(p);
       walk.atOutput.set(child.id, p);
       pushChildren(child.id, r);
-    } else if (child.kind === 'dcbus') {
+    } else if (child.kind === 'dc-bus') {
       walk.atOutput.set(child.id, walk.atOutput.get(from)!);
       pushChildren(child.id, rTo);
     }

@@ -160,7 +160,7 @@ const check = (c: Omit<StartCheck, 'utilisation' | 'status'>): StartCheck => {
   return { ...c, utilisation: Number.isFinite(u) ? u : 1e9, status };
 };
 
-const REGULATING = new Set(['rectifier', 'dcdc', 'inverter', 'drive', 'generic']);
+const REGULATING = new Set(['rectifier', 'dc-dc', 'inverter', 'drive', 'generic']);
 
 /** The elements from `id` up to the root, nearest first (excluding `id`). */
 function ancestors(byId: ReadonlyMap<string, Element>, id: string): Element[] {
@@ -312,7 +312,7 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
   const elements = project.elements
     .filter((e) => !below.has(e.id))
     .map((e) => (e.id === motor.id ? startLoad : startRoot && e.id === startRoot.id ? startRoot : atRunning(e)));
-  const { backup: _b, flowStudy: _f, ...rest } = project;
+  const { backup: _b, pumpDuty: _f, ...rest } = project;
   const solved = solveProject({ ...rest, elements });
 
   const checks: StartCheck[] = [];
