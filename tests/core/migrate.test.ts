@@ -16,7 +16,7 @@ import { solveProject, validateProject } from '../../core/solve/index.ts';
 import { demoProjects } from '../../core/demos/index.ts';
 import { parseImportText } from '../../web/storage/file-format.ts';
 import { readRecord } from '../../web/storage/record.ts';
-import { readRescue } from '../../web/storage/recover.ts';
+import { readRescue } from '../../web/storage/record.ts';
 
 type Json = Record<string, unknown>;
 const clone = <T>(v: T): T => JSON.parse(JSON.stringify(v)) as T;

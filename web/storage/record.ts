@@ -200,3 +200,28 @@ export interface RescueRecord {
   demoId?: string;
   project: DraftProject;
 }
+
+// ---------- Rescue copies (read at start by recover.ts) ----------
+
+const rescueShape = z.object({
+  rescueVersion: z.literal(1),
+  tabId: z.string(),
+  savedAt: isoTime,
+  storedId: z.optional(z.string()),
+  baseRevision: z.nullable(z.int()),
+  demoId: z.optional(z.string()),
+  project: z.looseObject({
+    format: z.literal('joulepath-project'),
+    version: z.number(),
+    name: z.string(),
+    elements: z.array(z.looseObject({ id: z.string(), kind: z.string() })),
+  }),
+});
+
+/** A rescue copy as stored, or undefined when it is not one this build reads (left alone). */
+export function readRescue(raw: unknown): RescueRecord | undefined {
+  const parsed = rescueShape.safeParse(raw, { error: issueMessage });
+  if (!parsed.success) return undefined;
+  // A copy written by a build of an older file format holds its project in that format: brought up to date.
+  return { ...parsed.data, project: migrateProject(parsed.data.project).value } as RescueRecord;
+}

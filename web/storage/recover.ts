@@ -3,36 +3,11 @@
  * when it was hidden or left, applied once that page is closed. Loaded only when there are rescue
  * copies, so it stays out of the first load.
  */
-import { migrateProject } from '../../core/model/migrate.ts';
-import { z } from 'zod/mini';
-import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
-import { copyName, recordName, type RescueRecord, type StoredProject } from './record.ts';
+import { copyName, readRescue, recordName, type StoredProject } from './record.ts';
+
+export { readRescue };
 import type { ProjectStore, WriteOutcome } from './store.ts';
-
-const isoTime = z.string().check(z.refine((s) => !Number.isNaN(Date.parse(s)), 'must be an ISO 8601 time'));
-const rescueShape = z.object({
-  rescueVersion: z.literal(1),
-  tabId: z.string(),
-  savedAt: isoTime,
-  storedId: z.optional(z.string()),
-  baseRevision: z.nullable(z.int()),
-  demoId: z.optional(z.string()),
-  project: z.looseObject({
-    format: z.literal('joulepath-project'),
-    version: z.number(),
-    name: z.string(),
-    elements: z.array(z.looseObject({ id: z.string(), kind: z.string() })),
-  }),
-});
-
-/** A rescue copy as stored, or undefined when it is not one this build reads (left alone). */
-export function readRescue(raw: unknown): RescueRecord | undefined {
-  const parsed = rescueShape.safeParse(raw, { error: issueMessage });
-  if (!parsed.success) return undefined;
-  // A copy written by a build of an older file format holds its project in that format: brought up to date.
-  return { ...parsed.data, project: migrateProject(parsed.data.project).value } as RescueRecord;
-}
 
 /** How long the start waits for a closing tab to let go of its lock (a reload opens the new page at once). */
 const CLOSING_TAB_WAIT_MS = 1500;
