@@ -35,6 +35,7 @@ import { NEC_430_248 } from '../data/nec-430-248.ts';
 import { WATTS_PER_HP } from '../data/nema-mg1-12-12.ts';
 import { prepareLoss } from '../physics/loss-model.ts';
 import { motorRating } from '../physics/motor-rating.ts';
+import { isPassive } from '../kinds/index.ts';
 
 const SQRT3 = Math.sqrt(3);
 const CONTINUOUS = 1.25;
@@ -76,7 +77,6 @@ export interface DesignContext {
 }
 
 const nameOf = (e: Element): string => `"${e.name ?? e.id}"`;
-const PASSIVE = new Set(['cable', 'dc-bus']);
 
 /** Per solve: the terminals and the feeder found for each element, so that every walk is done once. */
 const walks = new WeakMap<DesignContext, { terminals: Map<string, readonly Element[]>; feeder: Map<string, Element | undefined> }>();
@@ -91,9 +91,10 @@ function walksOf(ctx: DesignContext) {
 }
 
 /**
- * The equipment a link feeds: the first non-passive elements below it (through cables and DC
- * buses), in file order. Without recursion, and remembered per element: a run of thousands of
- * cables is walked once, and an element with one passive child shares that child's list.
+ * The equipment a link feeds: the first non-passive elements below it (through the kinds with the
+ * `passive` trait: cables and DC buses), in file order. Without recursion, and remembered per
+ * element: a run of thousands of cables is walked once, and an element with one passive child
+ * shares that child's list.
  */
 function terminals(ctx: DesignContext, id: string): readonly Element[] {
   const known = walksOf(ctx).terminals;
@@ -111,19 +112,19 @@ function terminals(ctx: DesignContext, id: string): readonly Element[] {
       top.expanded = true;
       for (let k = children.length - 1; k >= 0; k--) {
         const ch = children[k]!;
-        if (PASSIVE.has(ch.kind) && !known.has(ch.id)) stack.push({ id: ch.id, expanded: false });
+        if (isPassive(ch.kind) && !known.has(ch.id)) stack.push({ id: ch.id, expanded: false });
       }
       continue;
     }
     stack.pop();
-    const only = children.length === 1 && PASSIVE.has(children[0]!.kind) ? known.get(children[0]!.id) : undefined;
+    const only = children.length === 1 && isPassive(children[0]!.kind) ? known.get(children[0]!.id) : undefined;
     if (only) {
       known.set(top.id, only);
       continue;
     }
     const out: Element[] = [];
     for (const ch of children) {
-      if (PASSIVE.has(ch.kind)) for (const t of known.get(ch.id) ?? []) out.push(t);
+      if (isPassive(ch.kind)) for (const t of known.get(ch.id) ?? []) out.push(t);
       else out.push(ch);
     }
     known.set(top.id, out);

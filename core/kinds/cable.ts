@@ -92,6 +92,9 @@ export const cableKind = defineKind<CableStage>({
     }
     return [];
   },
+  passive: true,
+  // The port it is fed at (a cable carries no shaft).
+  nominalOutput: (_e, input) => (input && input.kind !== 'shaft' ? input : null),
   build(e, input) {
     const kind = input!.kind;
     const conductors = kind === 'ac3' ? 1 : 2; // loop length on DC and single-phase

@@ -8,6 +8,7 @@ import { z } from 'zod/mini';
 import type { BackupStudy, DutySchedule, Element, LoadSetting, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import { RESERVED_IDS } from './structure.ts';
+import { kindSpec } from '../kinds/index.ts';
 
 /** Longest horizon (and target runtime) of a study: one leap year, h. */
 export const MAX_HORIZON_H = 24 * 366;
@@ -114,7 +115,8 @@ export const MAX_WHOLE_CHAIN_WORK = 20_000_000;
  */
 export const MAX_LOAD_STATES = 1_000;
 
-const LOAD_KINDS = new Set<Element['kind']>(['dc-load', 'ac-load', 'ac-va-load', 'dc-current-load', 'ac-current-load', 'shaft-load']);
+/** The rated field of a load a profile can set (its kind's `load` trait), or undefined for any other element. */
+const loadField = (e: Element) => kindSpec(e.kind)?.load?.field;
 
 /**
  * A load of the project and its rated value: W; VA for an apparent-power load; A for a load given by
@@ -128,9 +130,9 @@ export interface ProfileLoad {
 export function profileLoads(project: Project): ProfileLoad[] {
   const out: ProfileLoad[] = [];
   for (const e of project.elements) {
-    if (!LOAD_KINDS.has(e.kind)) continue;
-    const rated = e.kind === 'ac-va-load' ? e.apparentPower : e.kind === 'dc-current-load' || e.kind === 'ac-current-load' ? e.current : (e as { power: number }).power;
-    out.push({ id: e.id, rated });
+    const field = loadField(e);
+    if (field === undefined) continue;
+    out.push({ id: e.id, rated: (e as unknown as Record<typeof field, number>)[field] });
   }
   return out;
 }
@@ -144,7 +146,7 @@ const bad = (field: string, value: unknown, message: string): Problem => ({ code
 function notALoad(id: string, byId: ReadonlyMap<string, Element>): string | null {
   const e = byId.get(id);
   if (!e) return `no element has the id "${id}"`;
-  if (!LOAD_KINDS.has(e.kind)) return `"${e.name ?? e.id}" is not a load: a profile sets the level of loads only`;
+  if (loadField(e) === undefined) return `"${e.name ?? e.id}" is not a load: a profile sets the level of loads only`;
   return null;
 }
 

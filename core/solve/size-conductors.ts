@@ -25,7 +25,7 @@ import { type PreparedConductor, prepareConductor } from '../conductors/prepare.
 import { type Choice, type LinkAngle, choose, conductorResult, resistanceAt, temperatureAt } from '../conductors/size.ts';
 import { type DesignContext, type DesignCurrent, designCurrent } from '../conductors/design-current.ts';
 import { type ResolvedLimits, linkLimit, pathDrops, resolveLimits } from '../conductors/path-drop.ts';
-import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
+import type { NominalPort } from '../kinds/index.ts';
 import { type Plan, type PlannedElement, plan } from './plan.ts';
 import { type OperatingPoint, sweep } from './sweep.ts';
 
@@ -90,39 +90,19 @@ function nominalProject(project: Project, specs: readonly CableStage[]): Project
   };
 }
 
-/** Nominal voltage of each element's output, V (line-to-line on three-phase), walking down the plan. */
+/**
+ * Nominal voltage of each element's output, V (line-to-line on three-phase), walking down the plan:
+ * each kind's `nominalOutput` trait (its set-point or rating; a cable or bus passes on what feeds
+ * it; a battery bank gives cells in series × the chemistry's nominal cell voltage, NEC 480.2), 0
+ * where there is none (loads, a motor's shaft).
+ */
 function nominalVoltages(order: readonly PlannedElement[]): number[] {
-  const out: number[] = [];
-  order.forEach((n, i) => {
-    const e = n.element;
-    const up = n.parent >= 0 ? out[n.parent]! : 0;
-    switch (e.kind) {
-      case 'grid':
-      case 'generator':
-        out[i] = e.voltage;
-        break;
-      case 'battery': {
-        // A bank: cells in series × the chemistry's nominal cell voltage (NEC 480.2 "nominal voltage
-        // (battery or cell)"); otherwise the voltage given.
-        const b = e.bank;
-        out[i] = b ? b.series * (b.cellsPerBlock ?? 1) * (b.overrides?.nominalCellVoltage ?? CHEMISTRY_PRESETS[b.chemistry].nominalCellVoltage) : (e.voltage ?? 0);
-        break;
-      }
-      case 'rectifier':
-      case 'dc-dc':
-      case 'inverter':
-      case 'drive':
-      case 'generic':
-        out[i] = e.outputVoltage;
-        break;
-      case 'transformer':
-        out[i] = e.secondaryVoltage;
-        break;
-      default:
-        out[i] = up;
-    }
+  const ports: (NominalPort | null)[] = [];
+  return order.map((n, i) => {
+    const input = n.parent >= 0 ? ports[n.parent]! : null;
+    ports[i] = n.spec.nominalOutput?.(n.element, input) ?? null;
+    return ports[i]?.voltage ?? 0;
   });
-  return out;
 }
 
 /** Place of each element in a plan, by id (one Map per plan: a lookup per link stays constant-time). */
