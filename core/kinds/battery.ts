@@ -100,6 +100,7 @@ export const batteryKind = defineKind<BatterySource>({
     return problems;
   },
   nominalOutput: (e) => nominalPort('dc', bankNominalVoltage(e.bank) ?? finiteOrNone(e.voltage)),
+  ideal: (e) => ({ ...e, internalResistance: 0 }),
   studies: ['backup', 'fault-current'],
   build(e) {
     const { emf, resistance } = batteryEquivalent(e);

@@ -31,6 +31,7 @@ const spec = (kind: 'grid' | 'generator') =>
     schema: schema as z.ZodMiniType<AcSource>,
     // Its rated voltage and frequency, single- or three-phase.
     nominalOutput: (e) => nominalPort(e.phases === 3 ? 'ac3' : 'ac1', finiteOrNone(e.voltage), finiteOrNone(e.frequency)),
+    ideal: ({ resistance: _r, reactance: _x, ...rest }) => rest,
     studies: ['fault-current'],
     build(e) {
       const portKind = e.phases === 3 ? 'ac3' : 'ac1';

@@ -174,6 +174,11 @@ export interface KindSpec<E extends KindElement = Element> {
    * counts as absent). Absent on loads.
    */
   nominalOutput?(e: E, input: NominalPort | null): NominalPort | null;
+  /**
+   * Sources: the same element with its own impedance taken out (an ideal source at its EMF), for
+   * the nominal solve of the conductor sizing, which puts every system at its nominal voltage.
+   */
+  ideal?(e: E): E;
   /** The studies an element of this kind takes part in (see KindStudy); absent when none. */
   readonly studies?: readonly KindStudy[];
 }

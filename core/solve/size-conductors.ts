@@ -16,7 +16,7 @@
  *    drop fraction of a change in R, a strong contraction) until no resistance moves by 1e-10
  *    (relative). Sizes do not change in this step.
  */
-import type { AcSource, BatterySource, CableStage, ConductorSpec, Element, Project } from '../model/project.ts';
+import type { CableStage, ConductorSpec, Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import type { ConductorResult, SolveResult, SolveWarning } from '../model/result.ts';
 import { abs } from '../physics/complex.ts';
@@ -25,7 +25,7 @@ import { type PreparedConductor, prepareConductor } from '../conductors/prepare.
 import { type Choice, type LinkAngle, choose, conductorResult, resistanceAt, temperatureAt } from '../conductors/size.ts';
 import { type DesignContext, type DesignCurrent, designCurrent } from '../conductors/design-current.ts';
 import { type ResolvedLimits, linkLimit, pathDrops, resolveLimits } from '../conductors/path-drop.ts';
-import type { NominalPort } from '../kinds/index.ts';
+import { KINDS, type NominalPort } from '../kinds/index.ts';
 import { type Plan, type PlannedElement, plan } from './plan.ts';
 import { type OperatingPoint, sweep } from './sweep.ts';
 
@@ -74,19 +74,15 @@ function resolve(project: Project, links: ReadonlyMap<string, { r: number; x: nu
   };
 }
 
-/** The project with conductor links ideal and every source stiff: each system at its nominal voltage. */
+/**
+ * The project with conductor links ideal and every source stiff (its kind's `ideal` trait): each
+ * system at its nominal voltage.
+ */
 function nominalProject(project: Project, specs: readonly CableStage[]): Project {
   const base = resolve(project, new Map(specs.map((e) => [e.id, { r: 0, x: 0 }])));
   return {
     ...base,
-    elements: base.elements.map((e): Element => {
-      if (e.kind === 'grid' || e.kind === 'generator') {
-        const { resistance: _r, reactance: _x, ...rest } = e as AcSource;
-        return rest as AcSource;
-      }
-      if (e.kind === 'battery') return { ...(e as BatterySource), internalResistance: 0 };
-      return e;
-    }),
+    elements: base.elements.map((e): Element => KINDS.get(e.kind)?.ideal?.(e) ?? e),
   };
 }
 
