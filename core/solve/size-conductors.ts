@@ -22,7 +22,8 @@ import type { ConductorResult, SolveResult, SolveWarning } from '../model/result
 import { abs } from '../physics/complex.ts';
 import { type ConductorCatalogue, defaultCatalogue } from '../conductors/catalogue.ts';
 import { type PreparedConductor, prepareConductor } from '../conductors/prepare.ts';
-import { type Choice, type LinkAngle, choose, conductorResult, resistanceAt, temperatureAt } from '../conductors/size.ts';
+import { type Choice, type LinkAngle, choose, resistanceAt, temperatureAt } from '../conductors/size.ts';
+import { conductorResult } from '../conductors/link-result.ts';
 import { type DesignContext, type DesignCurrent, designCurrent } from '../conductors/design-current.ts';
 import { type ResolvedLimits, linkLimit, pathDrops, resolveLimits } from '../conductors/path-drop.ts';
 import { KINDS, type NominalPort } from '../kinds/index.ts';
