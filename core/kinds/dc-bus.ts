@@ -19,6 +19,7 @@ export const dcbusKind = defineKind<DcBusStage>({
   passive: true,
   // The voltage it is fed at.
   nominalOutput: (_e, input) => (input && input.kind === 'dc' ? input : nominalPort('dc')),
+  dcEquivalent: (e) => ({ resistance: 0, fixedLoss: e.fixedLoss }),
   build: (e) => ({
     out: { kind: 'dc' },
     passesVoltage: true,

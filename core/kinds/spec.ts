@@ -164,6 +164,12 @@ export interface KindSpec<E extends KindElement = Element> {
    * every step.
    */
   readonly passive?: boolean;
+  /**
+   * Passive kinds on DC: the loop resistance (Ω) and fixed loss (W) the element is, or null when it
+   * is not so simple (a cable still to be sized). The battery study's repeated solve then re-solves
+   * it in real arithmetic, after checking the equivalent against the model (core/solve/repeat.ts).
+   */
+  dcEquivalent?(e: E): { resistance: number; fixedLoss: number } | null;
   /** A load whose level a load profile sets: its rated field and unit (absent on other kinds). */
   readonly load?: LoadQuantity;
   /**

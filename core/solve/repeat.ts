@@ -100,7 +100,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
   const topModels: ElementModel[] = top.map((i) => order[i]!.model);
   const nTop = top.length;
   // DC equivalents of the top elements, each checked against the element's own model.
-  const dc = top.map((i, j) => (j === 0 ? null : dcEquivalent(order[i]!.element, topModels[j]!)));
+  const dc = top.map((i, j) => (j === 0 ? null : dcEquivalent(order[i]!, topModels[j]!)));
   const realArithmetic = dc.every((d, j) => j === 0 || d !== null);
   const topR = new Float64Array(nTop);
   const topFixedLoss = new Float64Array(nTop);
@@ -295,21 +295,15 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
 const PROBE_TOLERANCE = 1e-12;
 
 /**
- * The DC equivalent of a passive element — a loop resistance (cable: resistance per km × 2 × length
- * ÷ parallel sets) or a fixed loss (bus) — when its model behaves exactly so at two probe points;
- * null otherwise (then the element's model is used as it is).
+ * The DC equivalent of a passive element — a loop resistance and a fixed loss, its kind's
+ * `dcEquivalent` trait (a cable: resistance per km × 2 × length ÷ parallel sets; a bus: its fixed
+ * loss) — when its model behaves exactly so at two probe points; null otherwise (then the element's
+ * model is used as it is).
  */
-function dcEquivalent(e: Element, model: ElementModel): { resistance: number; fixedLoss: number } | null {
-  let resistance = 0;
-  let fixedLoss = 0;
-  if (e.kind === 'cable') {
-    if (e.resistancePerKm === undefined || e.conductor) return null;
-    resistance = (e.resistancePerKm * 2 * e.length) / 1000 / (e.parallelSets ?? 1);
-  } else if (e.kind === 'dc-bus') {
-    fixedLoss = e.fixedLoss;
-  } else {
-    return null;
-  }
+function dcEquivalent(node: PlannedElement, model: ElementModel): { resistance: number; fixedLoss: number } | null {
+  const eq = node.spec.dcEquivalent?.(node.element) ?? null;
+  if (eq === null) return null;
+  const { resistance, fixedLoss } = eq;
   const close = (a: number, b: number) => Math.abs(a - b) <= PROBE_TOLERANCE * Math.max(Math.abs(a), Math.abs(b), 1);
   for (const [vs, p] of [
     [50, 400],

@@ -113,6 +113,29 @@ describe('passive: a stage passes its input on unchanged (idle: the same port ki
   });
 });
 
+describe('dcEquivalent: on DC the element is its loop resistance and fixed loss', () => {
+  // Invented elements; the expected figures follow from the equivalent by Ohm's law:
+  // V_r = (V_s + √(V_s² − 4·R·P)) / 2, P_in = P + R·(P/V_r)² + P_fixed.
+  const samples: Partial<Record<ElementKind, Json>> = {
+    cable: { id: 'x', kind: 'cable', from: 'src', length: 12, resistancePerKm: 1.83, parallelSets: 2 },
+    'dc-bus': { id: 'x', kind: 'dc-bus', from: 'src', fixedLoss: 7 },
+  };
+  it.each(kinds.filter(([, s]) => s.dcEquivalent).map(([k]) => k))('%s', (kind) => {
+    const spec = KINDS.get(kind)!;
+    expect(spec.passive, 'only passive kinds have one').toBe(true);
+    const e = samples[kind]!;
+    const eq = spec.dcEquivalent!(e as never)!;
+    const model = spec.build(e as never, { kind: 'dc' });
+    const [vs, p] = [48, 300];
+    const vr = (vs + Math.sqrt(vs * vs - 4 * eq.resistance * p)) / 2;
+    expect(model.outputVoltage({ re: vs, im: 0 }, { re: p, im: 0 })!.re).toBeCloseTo(vr, 9);
+    expect(model.inputPower({ re: p, im: 0 }, { re: vs, im: 0 }, { re: vr, im: 0 }).re).toBeCloseTo(p + eq.resistance * (p / vr) ** 2 + eq.fixedLoss, 9);
+  });
+  it('a cable still to be sized has none (its impedance comes from the sizing)', () => {
+    expect(KINDS.get('cable')!.dcEquivalent!({ id: 'x', kind: 'cable', from: 'src', length: 12, conductor: { system: 'nec', material: 'copper', size: 'auto' } } as never)).toBeNull();
+  });
+});
+
 describe('load: the rated field a profile sets is what the load draws', () => {
   it.each(kinds.filter(([, s]) => s.role === 'load').map(([k, s]) => [k, s] as const))('%s', (kind, spec) => {
     const element = FIXTURES[kind](1200).find((e) => e['id'] === 'x')!;
