@@ -46,15 +46,28 @@ export function followsUsPractice(project: DraftProject | undefined): boolean {
     if (conductor && (conductor['system'] === 'nec' || /AWG|kcmil/i.test(String(conductor['size'] ?? '')))) return true;
     if (conductor && conductor['system'] === 'iec') return false;
   }
-  const source = project.elements.find((e) => e.kind === 'grid' || e.kind === 'generator');
-  if (source) return num(source['frequency']) === 60 || US_VOLTAGES.has(num(source['voltage']) ?? 0);
+  const source = acSourcePort(project);
+  if (source) return source.frequency === 60 || US_VOLTAGES.has(source.voltage ?? 0);
   return project.elements.some((e) => e.kind === 'inverter' && num(e['frequency']) === 60);
+}
+
+/**
+ * The nominal output port of the project's AC source (the first element of a source kind whose
+ * `nominalOutput` is AC), if it has one. The inverter's frequency is read by kind beside it: the
+ * mains an inverter makes, where a drive's or converter's output frequency is a setting of its own.
+ */
+function acSourcePort(project: DraftProject | undefined): FeedingPort | undefined {
+  for (const e of project?.elements ?? []) {
+    if (KINDS.get(e.kind as ElementKind)?.role !== 'source') continue;
+    const port = nominalOutput(e, null);
+    if (port && (port.kind === 'ac1' || port.kind === 'ac3')) return port;
+  }
+  return undefined;
 }
 
 /** The mains frequency of the project: its AC source's, else its first inverter's, else 60 Hz for US practice and 50 Hz otherwise. */
 export function projectFrequency(project: DraftProject | undefined): 50 | 60 {
-  const source = project?.elements.find((e) => e.kind === 'grid' || e.kind === 'generator');
-  const f = num(source?.['frequency']) ?? num(project?.elements.find((e) => e.kind === 'inverter')?.['frequency']);
+  const f = acSourcePort(project)?.frequency ?? num(project?.elements.find((e) => e.kind === 'inverter')?.['frequency']);
   if (f === 50 || f === 60) return f;
   return followsUsPractice(project) ? 60 : 50;
 }
