@@ -22,6 +22,9 @@
  *   as above plus the other loads at nominal voltage, × 1.25 (NEC 706.30, 215.2(A)(1));
  * - given: a current the user enters.
  *
+ * The equipment's rated currents (a motor's full-load current, a converter's rated input) are worked
+ * out in equipment-current.ts.
+ *
  * "Stacked" bases (motor, drive: 430.22, 430.24, 430.122) put the 125 % on the conductor's ampacity
  * after corrections; the others check 125 % against the termination column before corrections and
  * 100 % against the corrected ampacity (210.19(A)(1)(a)/(b), 690.8(B)(1)/(2)).
@@ -30,11 +33,8 @@ import type { Complex } from '../physics/complex.ts';
 import { abs } from '../physics/complex.ts';
 import type { ConductorSpec, DcDcStage, Element, InverterStage, MotorStage, PortKind, Project } from '../model/project.ts';
 import type { DesignBasisKind } from '../model/result.ts';
-import { NEC_430_250 } from '../data/nec-430-250.ts';
-import { NEC_430_248 } from '../data/nec-430-248.ts';
-import { WATTS_PER_HP } from '../data/nema-mg1-12-12.ts';
-import { prepareLoss } from '../physics/loss-model.ts';
-import { motorRating } from '../physics/motor-rating.ts';
+import { isPassive } from '../kinds/index.ts';
+import { converterInput, iecMotorCurrent, necMotorFlc } from './equipment-current.ts';
 
 const SQRT3 = Math.sqrt(3);
 const CONTINUOUS = 1.25;
@@ -76,7 +76,6 @@ export interface DesignContext {
 }
 
 const nameOf = (e: Element): string => `"${e.name ?? e.id}"`;
-const PASSIVE = new Set(['cable', 'dc-bus']);
 
 /** Per solve: the terminals and the feeder found for each element, so that every walk is done once. */
 const walks = new WeakMap<DesignContext, { terminals: Map<string, readonly Element[]>; feeder: Map<string, Element | undefined> }>();
@@ -91,9 +90,10 @@ function walksOf(ctx: DesignContext) {
 }
 
 /**
- * The equipment a link feeds: the first non-passive elements below it (through cables and DC
- * buses), in file order. Without recursion, and remembered per element: a run of thousands of
- * cables is walked once, and an element with one passive child shares that child's list.
+ * The equipment a link feeds: the first non-passive elements below it (through the kinds with the
+ * `passive` trait: cables and DC buses), in file order. Without recursion, and remembered per
+ * element: a run of thousands of cables is walked once, and an element with one passive child
+ * shares that child's list.
  */
 function terminals(ctx: DesignContext, id: string): readonly Element[] {
   const known = walksOf(ctx).terminals;
@@ -111,19 +111,19 @@ function terminals(ctx: DesignContext, id: string): readonly Element[] {
       top.expanded = true;
       for (let k = children.length - 1; k >= 0; k--) {
         const ch = children[k]!;
-        if (PASSIVE.has(ch.kind) && !known.has(ch.id)) stack.push({ id: ch.id, expanded: false });
+        if (isPassive(ch.kind) && !known.has(ch.id)) stack.push({ id: ch.id, expanded: false });
       }
       continue;
     }
     stack.pop();
-    const only = children.length === 1 && PASSIVE.has(children[0]!.kind) ? known.get(children[0]!.id) : undefined;
+    const only = children.length === 1 && isPassive(children[0]!.kind) ? known.get(children[0]!.id) : undefined;
     if (only) {
       known.set(top.id, only);
       continue;
     }
     const out: Element[] = [];
     for (const ch of children) {
-      if (PASSIVE.has(ch.kind)) for (const t of known.get(ch.id) ?? []) out.push(t);
+      if (isPassive(ch.kind)) for (const t of known.get(ch.id) ?? []) out.push(t);
       else out.push(ch);
     }
     known.set(top.id, out);
@@ -165,85 +165,6 @@ function nominalCurrent(ctx: DesignContext, id: string): number {
   const kind = ctx.portKind.get(id);
   if (!s || !v || v <= 0) return 0;
   return kind === 'ac3' ? abs(s) / (SQRT3 * v) : abs(s) / v;
-}
-
-/** The voltage column of Table 430.250 / 430.248 for a motor rated at `v` (the table's note on voltage ranges). */
-function necColumn(v: number, phases: 1 | 3): number | undefined {
-  // Table 430.250 note: the listed currents apply to system voltage ranges 110–120, 220–240,
-  // 440–480 and 550–600 V; 200 and 208 V are their own columns.
-  if (Math.abs(v - 200) < 0.5) return 200;
-  if (Math.abs(v - 208) < 0.5) return 208;
-  if (v >= 110 && v <= 120) return 115;
-  if (v >= 220 && v <= 240) return 230;
-  if (v >= 440 && v <= 480 && phases === 3) return 460;
-  if (v >= 550 && v <= 600 && phases === 3) return 575;
-  return undefined;
-}
-
-type Rows = readonly { hp: number; amps: Readonly<Partial<Record<number, number>>> }[];
-const THREE_PHASE_ROWS: Rows = NEC_430_250;
-const SINGLE_PHASE_ROWS: Rows = NEC_430_248;
-
-/**
- * NEC full-load current of a motor by 430.6(A)(1): Table 430.250 (3φ) or 430.248 (1φ) at the
- * motor's horsepower row and voltage column. A motor rated between rows (a kW rating) takes the
- * next larger row, which gives the larger current.
- */
-function necMotorFlc(m: MotorStage, phases: 1 | 3, nominal: number): { amps: number; words: string } | { reason: string } {
-  const v = m.ratedVoltage ?? nominal;
-  const col = necColumn(v, phases);
-  const table = phases === 3 ? 'Table 430.250' : 'Table 430.248';
-  const rows = phases === 3 ? THREE_PHASE_ROWS : SINGLE_PHASE_ROWS;
-  if (col === undefined) return { reason: `a motor rated ${v} V matches no voltage column of NEC ${table}` };
-  const hp = m.ratedOutput / WATTS_PER_HP;
-  const row = rows.find((r) => r.hp >= hp * (1 - 0.005) && r.amps[col] !== undefined);
-  if (!row) {
-    return {
-      reason: rows.length
-        ? `${hp.toPrecision(3)} hp is above the rows of NEC ${table} carried here (${rows.map((r) => r.hp).join(', ')} hp)`
-        : `NEC ${table} is not carried`,
-    };
-  }
-  const exact = Math.abs(row.hp - hp) <= 0.005 * row.hp;
-  return {
-    amps: row.amps[col]!,
-    words: `NEC ${table}, ${row.hp} hp at ${col} V: ${row.amps[col]} A${exact ? '' : ` (the motor's ${hp.toPrecision(3)} hp lies between rows: the next larger row)`}`,
-  };
-}
-
-/** IEC rated current of a motor: the nameplate current, else rated output / (√3·U·η·cosφ) at full load. */
-function iecMotorCurrent(m: MotorStage, phases: 1 | 3, nominal: number): { amps: number; words: string } | { reason: string } {
-  if (m.nameplate?.current !== undefined) return { amps: m.nameplate.current, words: `nameplate rated current ${m.nameplate.current} A` };
-  const rated = motorRating(m);
-  if (!rated.ok || rated.rating === undefined) return { reason: 'give the nameplate current (or an efficiency class) to take the motor\'s rated current' };
-  const v = m.ratedVoltage ?? nominal;
-  const { efficiency, powerFactor } = { efficiency: rated.rating.fullLoad.efficiency, powerFactor: rated.rating.powerFactor };
-  const amps = m.ratedOutput / ((phases === 3 ? SQRT3 : 1) * v * efficiency * powerFactor);
-  return { amps, words: `rated output / (${phases === 3 ? '√3·' : ''}U·η·cosφ) = ${m.ratedOutput} W / (${phases === 3 ? '√3·' : ''}${v} V × ${efficiency.toFixed(3)} × ${powerFactor.toFixed(2)})` };
-}
-
-/** A converter's efficiency at a given output from its loss model: η = P / (P + loss(P)). */
-function efficiencyAtRated(loss: Parameters<typeof prepareLoss>[0], p: number): number {
-  const l = prepareLoss(loss).loss(p).loss;
-  return p / (p + l);
-}
-
-/**
- * A converter's rated DC input current: its rated continuous output over its efficiency at that
- * output and its lowest input voltage (an inverter's low-voltage cut-off; a DC-DC converter's lowest
- * input voltage), I = P / (η·V_min).
- */
-function converterInput(e: InverterStage | DcDcStage): { amps: number; words: string } | { missing: string[] } {
-  const inv = e.kind === 'inverter';
-  const p = e.ratedOutputPower ?? e.loss.ratedPower;
-  const vMin = e.kind === 'inverter' ? e.lowVoltageCutoff : e.minInputVoltage;
-  const what = inv ? 'inverter' : 'DC-DC converter';
-  const missing: string[] = [];
-  if (p === undefined) missing.push(`${what} ${nameOf(e)}: enter its rated continuous output`);
-  if (vMin === undefined) missing.push(`${what} ${nameOf(e)}: enter its ${inv ? 'low-voltage cut-off' : 'lowest input voltage'}`);
-  if (p === undefined || vMin === undefined) return { missing };
-  const eta = efficiencyAtRated(e.loss, p);
-  return { amps: p / (eta * vMin), words: `the ${what}'s rated output at its lowest input voltage: ${p} W / (η ${eta.toFixed(3)} × ${vMin} V)` };
 }
 
 /** A design current from an equipment rating: the rated current × the rule's factor. */

@@ -2,8 +2,8 @@
  * Whole-path voltage drop: for each load — and for each regulating converter's input, whose
  * supply voltage matters as much — the cable links between it and the nearest upstream
  * point that sets the voltage afresh — the source's terminals or the output of a regulating
- * converter (rectifier, DC-DC, inverter, drive, generic stage), which holds its set point whatever
- * the drop upstream — with each link's drop as a percentage, summed: a sized conductor's drop check
+ * converter (a kind with the `regulatesVoltage` trait: rectifier, DC-DC, inverter, drive, generic
+ * stage), which holds its set point whatever the drop upstream — with each link's drop as a percentage, summed: a sized conductor's drop check
  * by its method (% of the nominal voltage, core/conductors/size.ts), a link given by its impedance
  * with its solved drop (% of its own sending voltage).
  *
@@ -14,8 +14,9 @@
  * it equals the exact relative drop to first order.
  */
 import { z } from 'zod/mini';
-import type { DropLimits, ElementKind } from '../model/project.ts';
+import type { DropLimits } from '../model/project.ts';
 import type { ElementResult, PathDrop } from '../model/result.ts';
+import { regulatesVoltage } from '../kinds/index.ts';
 
 /** Schema of the project's optional `dropLimits` (used by core/solve/validate.ts). */
 export const dropLimitsSchema = z.strictObject({
@@ -27,8 +28,6 @@ export const dropLimitsSchema = z.strictObject({
   perLinkPercent: z.optional(z.number({ error: 'must be a number (%)' }).check(z.gt(0, 'must be greater than 0 %'), z.lte(100, 'must not exceed 100 %'))),
   totalPercent: z.optional(z.number({ error: 'must be a number (%)' }).check(z.gt(0, 'must be greater than 0 %'), z.lte(100, 'must not exceed 100 %'))),
 });
-
-const REGULATING: ReadonlySet<ElementKind> = new Set(['rectifier', 'dc-dc', 'inverter', 'drive', 'generic']);
 
 export interface ResolvedLimits {
   perLinkPercent?: number;
@@ -71,7 +70,7 @@ export function pathDrops(
   const byId = new Map(elements.map((e) => [e.id, e]));
   const out: PathDrop[] = [];
   for (const load of elements) {
-    if (load.role !== 'load' && !REGULATING.has(load.kind)) continue;
+    if (load.role !== 'load' && !regulatesVoltage(load.kind)) continue;
     const links: PathDrop['links'] = [];
     let terminal: ElementResult = load;
     let at: ElementResult | undefined = load;
@@ -81,7 +80,7 @@ export function pathDrops(
       if (!parent) break;
       // The load's electrical terminals: for a shaft load, the motor's input.
       if (terminal.input?.kind === 'shaft' && parent.input && parent.input.kind !== 'shaft') terminal = parent;
-      if (parent.role === 'source' || REGULATING.has(parent.kind)) {
+      if (parent.role === 'source' || regulatesVoltage(parent.kind)) {
         start = parent;
         break;
       }

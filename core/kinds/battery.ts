@@ -8,10 +8,10 @@
 import { z } from 'zod/mini';
 import type { BatteryBankSpec, BatterySource } from '../model/project.ts';
 import { c } from '../physics/complex.ts';
-import { CHEMISTRIES } from '../data/battery-chemistries.ts';
+import { CHEMISTRIES, CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
 import { checkBank, resolveBank } from '../physics/bank.ts';
 import { protectiveDeviceSchema } from './starting-fields.ts';
-import { defineKind, idField, nameField, sourceOhms } from './spec.ts';
+import { defineKind, finiteOrNone, idField, nameField, nominalPort, sourceOhms } from './spec.ts';
 import { seriesLink } from './spec.ts';
 import { outOfRange, ranged, rangedCount } from './ranges.ts';
 
@@ -99,6 +99,9 @@ export const batteryKind = defineKind<BatterySource>({
     }
     return problems;
   },
+  nominalOutput: (e) => nominalPort('dc', bankNominalVoltage(e.bank) ?? finiteOrNone(e.voltage)),
+  ideal: (e) => ({ ...e, internalResistance: 0 }),
+  studies: ['backup', 'fault-current'],
   build(e) {
     const { emf, resistance } = batteryEquivalent(e);
     const link = seriesLink(c(resistance), 'dc');
@@ -111,6 +114,22 @@ export const batteryKind = defineKind<BatterySource>({
     };
   },
 });
+
+/**
+ * A bank's nominal voltage: cells in series × the chemistry's nominal cell voltage (NEC 480.2
+ * "nominal voltage (battery or cell)"), or undefined when the bank cannot be read (a draft's
+ * half-typed bank).
+ */
+function bankNominalVoltage(bank: unknown): number | undefined {
+  if (typeof bank !== 'object' || bank === null) return undefined;
+  const b = bank as BatteryBankSpec;
+  try {
+    if (!Object.hasOwn(CHEMISTRY_PRESETS, b.chemistry) || checkBank(b).length) return undefined;
+    return finiteOrNone(b.series * (b.cellsPerBlock ?? 1) * (b.overrides?.nominalCellVoltage ?? CHEMISTRY_PRESETS[b.chemistry].nominalCellVoltage));
+  } catch {
+    return undefined;
+  }
+}
 
 /** Open-circuit voltage and internal resistance the static solve uses (bank at its initial state of charge). */
 export function batteryEquivalent(e: BatterySource): { emf: number; resistance: number } {

@@ -92,6 +92,12 @@ export const cableKind = defineKind<CableStage>({
     }
     return [];
   },
+  passive: true,
+  // The port it is fed at (a cable carries no shaft).
+  nominalOutput: (_e, input) => (input && input.kind !== 'shaft' ? input : null),
+  // On DC: resistance per km × 2 × length ÷ parallel sets (the go and return conductors, Ohm's law).
+  dcEquivalent: (e) =>
+    e.resistancePerKm === undefined || e.conductor ? null : { resistance: (e.resistancePerKm * 2 * e.length) / 1000 / (e.parallelSets ?? 1), fixedLoss: 0 },
   build(e, input) {
     const kind = input!.kind;
     const conductors = kind === 'ac3' ? 1 : 2; // loop length on DC and single-phase

@@ -2,7 +2,7 @@
 import { z } from 'zod/mini';
 import type { DcBusStage } from '../model/project.ts';
 import { c } from '../physics/complex.ts';
-import { defineKind, fromField, idField, nameField } from './spec.ts';
+import { defineKind, fromField, idField, nameField, nominalPort } from './spec.ts';
 import { ranged } from './ranges.ts';
 
 export const dcbusKind = defineKind<DcBusStage>({
@@ -16,6 +16,10 @@ export const dcbusKind = defineKind<DcBusStage>({
     from: fromField,
     fixedLoss: ranged('power', 'non-negative'),
   }) as z.ZodMiniType<DcBusStage>,
+  passive: true,
+  // The voltage it is fed at.
+  nominalOutput: (_e, input) => (input && input.kind === 'dc' ? input : nominalPort('dc')),
+  dcEquivalent: (e) => ({ resistance: 0, fixedLoss: e.fixedLoss }),
   build: (e) => ({
     out: { kind: 'dc' },
     passesVoltage: true,

@@ -1,7 +1,7 @@
 /** DC-DC converter: DC in, regulated DC out. */
 import { z } from 'zod/mini';
 import type { DcDcStage } from '../model/project.ts';
-import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, regulatingConverter } from './spec.ts';
+import { checkLossModel, defineKind, finiteOrNone, fromField, idField, lossModelSchema, nameField, nominalPort, regulatingConverter } from './spec.ts';
 import { ranged } from './ranges.ts';
 
 export const dcdcKind = defineKind<DcDcStage>({
@@ -20,5 +20,7 @@ export const dcdcKind = defineKind<DcDcStage>({
     minInputVoltage: z.optional(ranged('voltage')),
   }) as z.ZodMiniType<DcDcStage>,
   check: (e) => checkLossModel(e.loss),
+  regulatesVoltage: true,
+  nominalOutput: (e) => nominalPort('dc', finiteOrNone(e.outputVoltage)),
   build: (e) => regulatingConverter({ out: { kind: 'dc' }, outputVoltage: e.outputVoltage, inputKind: 'dc', loss: e.loss }),
 });

@@ -16,7 +16,7 @@
 import { z } from 'zod/mini';
 import type { DriveStage } from '../model/project.ts';
 import { c } from '../physics/complex.ts';
-import { checkLossModel, defineKind, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
+import { checkLossModel, defineKind, finiteOrNone, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, nominalPort, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
 import { driveLossAt, driveLossGrid } from '../physics/drive-loss.ts';
 import { ranged } from './ranges.ts';
 
@@ -80,6 +80,10 @@ export const driveKind = defineKind<DriveStage>({
     }
     return problems;
   },
+  regulatesVoltage: true,
+  // Three-phase at its set output voltage and frequency, whatever it is fed with.
+  nominalOutput: (e) => nominalPort('ac3', finiteOrNone(e.outputVoltage), finiteOrNone(e.outputFrequency)),
+  studies: ['machines'],
   build(e, input) {
     const inputKind = input!.kind;
     const withPhaseWarning = (model: ElementModel): ElementModel =>

@@ -1,7 +1,7 @@
 /** A converting stage with user-chosen input and output kinds (regulated output). */
 import { z } from 'zod/mini';
 import type { GenericStage } from '../model/project.ts';
-import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, regulatingConverter, unitFraction } from './spec.ts';
+import { checkLossModel, defineKind, finiteOrNone, fromField, idField, lossModelSchema, nameField, nominalPort, pfSense, regulatingConverter, unitFraction } from './spec.ts';
 import { ranged } from './ranges.ts';
 
 const electrical = z.enum(['dc', 'ac1', 'ac3'], { error: 'must be "dc", "ac1" or "ac3"' });
@@ -29,6 +29,12 @@ export const genericKind = defineKind<GenericStage>({
       problems.push({ code: 'invalid-value', field: 'outputFrequency', message: 'is needed when the output is AC' });
     }
     return problems;
+  },
+  regulatesVoltage: true,
+  nominalOutput(e) {
+    const k = e.outputKind;
+    if (k !== 'dc' && k !== 'ac1' && k !== 'ac3') return null;
+    return nominalPort(k, finiteOrNone(e.outputVoltage), k === 'dc' ? undefined : finiteOrNone(e.outputFrequency));
   },
   build: (e, input) =>
     regulatingConverter({

@@ -7,7 +7,7 @@ import { z } from 'zod/mini';
 import type { AcSource } from '../model/project.ts';
 import { c } from '../physics/complex.ts';
 import { sourceFaultFields } from './starting-fields.ts';
-import { defineKind, fmtW, idField, nameField, perPhase, phases, seriesLink, sourceOhms } from './spec.ts';
+import { defineKind, finiteOrNone, fmtW, idField, nameField, nominalPort, perPhase, phases, seriesLink, sourceOhms } from './spec.ts';
 import { ranged } from './ranges.ts';
 
 const schema = z.strictObject({
@@ -29,6 +29,10 @@ const spec = (kind: 'grid' | 'generator') =>
     role: 'source',
     accepts: () => [],
     schema: schema as z.ZodMiniType<AcSource>,
+    // Its rated voltage and frequency, single- or three-phase.
+    nominalOutput: (e) => nominalPort(e.phases === 3 ? 'ac3' : 'ac1', finiteOrNone(e.voltage), finiteOrNone(e.frequency)),
+    ideal: ({ resistance: _r, reactance: _x, ...rest }) => rest,
+    studies: ['fault-current'],
     build(e) {
       const portKind = e.phases === 3 ? 'ac3' : 'ac1';
       const emf = c(perPhase(portKind, e.voltage));

@@ -2,7 +2,7 @@
 import { z } from 'zod/mini';
 import type { InverterStage } from '../model/project.ts';
 import { surgeSchema } from './starting-fields.ts';
-import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, phases, regulatingConverter } from './spec.ts';
+import { checkLossModel, defineKind, finiteOrNone, fromField, idField, lossModelSchema, nameField, nominalPort, phases, regulatingConverter } from './spec.ts';
 import { ranged } from './ranges.ts';
 
 export const inverterKind = defineKind<InverterStage>({
@@ -24,6 +24,8 @@ export const inverterKind = defineKind<InverterStage>({
     ratedOutputPower: z.optional(ranged('ratedPower')),
   }) as z.ZodMiniType<InverterStage>,
   check: (e) => checkLossModel(e.loss),
+  regulatesVoltage: true,
+  nominalOutput: (e) => nominalPort(e.phases === 3 ? 'ac3' : 'ac1', finiteOrNone(e.outputVoltage), finiteOrNone(e.frequency)),
   build: (e) =>
     regulatingConverter({
       out: { kind: e.phases === 3 ? 'ac3' : 'ac1', frequency: e.frequency },

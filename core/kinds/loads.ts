@@ -15,6 +15,7 @@ const base = { id: idField, name: nameField, from: fromField };
 export const dcLoadKind = defineKind<DcLoad>({
   kind: 'dc-load',
   role: 'load',
+  load: { field: 'power', unit: 'W' },
   accepts: () => ['dc'],
   schema: z.strictObject({ ...base, kind: z.literal('dc-load'), power: ranged('power', 'non-negative') }) as z.ZodMiniType<DcLoad>,
   build: (e) => constantPowerLoad(c(e.power)),
@@ -23,6 +24,7 @@ export const dcLoadKind = defineKind<DcLoad>({
 export const acLoadKind = defineKind<AcPowerLoad>({
   kind: 'ac-load',
   role: 'load',
+  load: { field: 'power', unit: 'W' },
   accepts: () => ['ac1', 'ac3'],
   schema: z.strictObject({
     ...base,
@@ -37,6 +39,7 @@ export const acLoadKind = defineKind<AcPowerLoad>({
 export const acVaLoadKind = defineKind<AcApparentLoad>({
   kind: 'ac-va-load',
   role: 'load',
+  load: { field: 'apparentPower', unit: 'VA' },
   accepts: () => ['ac1', 'ac3'],
   schema: z.strictObject({
     ...base,
@@ -54,6 +57,7 @@ export const acVaLoadKind = defineKind<AcApparentLoad>({
 export const shaftLoadKind = defineKind<ShaftLoad>({
   kind: 'shaft-load',
   role: 'load',
+  load: { field: 'power', unit: 'W' },
   accepts: () => ['shaft'],
   schema: z.strictObject({ ...base, kind: z.literal('shaft-load'), power: ranged('power', 'non-negative') }) as z.ZodMiniType<ShaftLoad>,
   build: (e) => constantPowerLoad(c(e.power)),
@@ -62,6 +66,7 @@ export const shaftLoadKind = defineKind<ShaftLoad>({
 export const dcCurrentLoadKind = defineKind<DcCurrentLoad>({
   kind: 'dc-current-load',
   role: 'load',
+  load: { field: 'current', unit: 'A' },
   accepts: () => ['dc'],
   schema: z.strictObject({ ...base, kind: z.literal('dc-current-load'), current: ranged('current', 'non-negative') }) as z.ZodMiniType<DcCurrentLoad>,
   build: (e) => constantCurrentLoad(c(e.current), 'dc'),
@@ -70,6 +75,7 @@ export const dcCurrentLoadKind = defineKind<DcCurrentLoad>({
 export const acCurrentLoadKind = defineKind<AcCurrentLoad>({
   kind: 'ac-current-load',
   role: 'load',
+  load: { field: 'current', unit: 'A' },
   accepts: () => ['ac1', 'ac3'],
   schema: z.strictObject({
     ...base,

@@ -91,6 +91,8 @@ export const motorKind = defineKind<MotorStage>({
     const r = motorRating(e);
     return [...(r.ok ? [] : r.problems), ...checkStarting(e.starting)];
   },
+  nominalOutput: () => ({ kind: 'shaft' }),
+  studies: ['machines', 'motor-start'],
   build(e, input) {
     const sf = e.serviceFactor ?? 1;
     const speed = e.ratedSpeed !== undefined && e.ratedFrequency !== undefined && input?.frequency !== undefined ? (e.ratedSpeed * input.frequency) / e.ratedFrequency : e.ratedSpeed;

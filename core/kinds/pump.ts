@@ -83,6 +83,7 @@ export const pumpKind = defineKind<PumpLoad>({
     }
     return out;
   },
+  studies: ['machines', 'pump-duty'],
   build(e) {
     const op = pumpOperatingPoint(e);
     const model = constantPowerLoad(c(op.shaftPower));

@@ -1,7 +1,7 @@
 /** Rectifier or battery charger: AC (1φ or 3φ) in, regulated DC out. */
 import { z } from 'zod/mini';
 import type { RectifierStage } from '../model/project.ts';
-import { checkLossModel, defineKind, fromField, idField, lossModelSchema, nameField, pfSense, regulatingConverter, unitFraction } from './spec.ts';
+import { checkLossModel, defineKind, finiteOrNone, fromField, idField, lossModelSchema, nameField, nominalPort, pfSense, regulatingConverter, unitFraction } from './spec.ts';
 import { ranged } from './ranges.ts';
 
 export const rectifierKind = defineKind<RectifierStage>({
@@ -21,6 +21,8 @@ export const rectifierKind = defineKind<RectifierStage>({
     ratedOutputCurrent: z.optional(ranged('current')),
   }) as z.ZodMiniType<RectifierStage>,
   check: (e) => checkLossModel(e.loss),
+  regulatesVoltage: true,
+  nominalOutput: (e) => nominalPort('dc', finiteOrNone(e.outputVoltage)),
   build: (e, input) =>
     regulatingConverter({
       out: { kind: 'dc' },

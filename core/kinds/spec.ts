@@ -1,18 +1,22 @@
 /**
- * What every element kind provides to the solver, and the helpers the kinds share.
+ * What every element kind provides to the solver (its model and the traits the rest of the engine
+ * reads from the registry), and the schema parts the kinds share. The shared electrical models
+ * (series link, regulating converter, loads, loss report) live in models.ts and are re-exported
+ * here.
  *
  * Conventions of the solve: voltages are per-phase phasors (phase-to-neutral on three-phase, the
  * line voltage on single-phase, a real number on DC); powers are TOTAL complex powers S = P + jQ
  * (all phases), Q > 0 lagging.
  */
 import { z } from 'zod/mini';
-import type { Element, ElementKind, PfSense, PortKind } from '../model/project.ts';
+import type { Element, ElementKind, PortKind } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import type { LossFitReport, WarningCode, WeightedEfficiency } from '../model/result.ts';
-import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../physics/complex.ts';
-import { receivingVoltage } from '../physics/two-bus.ts';
-import { type PreparedLoss, fitConditioning, prepareLoss, weightedEfficiency } from '../physics/loss-model.ts';
+import type { Complex } from '../physics/complex.ts';
+import { fitConditioning } from '../physics/loss-model.ts';
 import { RANGES, rangeText, ranged } from './ranges.ts';
+
+export * from './models.ts';
 
 /** The port an element's output presents to the elements it feeds. */
 export interface PortInfo {
@@ -95,7 +99,44 @@ export interface ElementModel {
   readonly problems?: Omit<Problem, 'elementId'>[];
 }
 
-export interface KindSpec<E extends Element = Element> {
+/**
+ * A port as it is rated (read from set-points and ratings, not solved): its kind and, when known,
+ * its nominal voltage (line-to-line on three-phase) and frequency.
+ */
+export interface NominalPort {
+  kind: PortKind;
+  voltage?: number;
+  frequency?: number;
+}
+
+/**
+ * A load's rated quantity: the field a load profile of the battery study sets (and the repeated
+ * solve changes per load state) and its SI unit.
+ */
+export interface LoadQuantity {
+  readonly field: 'power' | 'apparentPower' | 'current';
+  readonly unit: 'W' | 'VA' | 'A';
+}
+
+/**
+ * The studies an element of a kind takes part in beyond the plain solve:
+ * - `backup`: a battery source with a bank: runtime, bank sizing and recharge (core/studies/backup);
+ * - `machines`: motor, drive and pump details (core/studies/machines);
+ * - `motor-start`: a motor with starting data (core/studies/surge/starting.ts);
+ * - `pump-duty`: the flow-control comparison of a pump (core/studies/machines/pump-duty.ts);
+ * - `fault-current`: a source whose prospective fault current the surge study works out
+ *   (core/studies/surge/faults.ts).
+ */
+export type KindStudy = 'backup' | 'machines' | 'motor-start' | 'pump-duty' | 'fault-current';
+
+/** What every element record has, whatever its kind (a made-up kind in a test has it too). */
+export interface KindElement {
+  id: string;
+  name?: string;
+  kind: string;
+}
+
+export interface KindSpec<E extends KindElement = Element> {
   readonly kind: E['kind'];
   readonly role: 'source' | 'stage' | 'load';
   /** Port kinds this element can be fed from (empty for sources). */
@@ -106,10 +147,60 @@ export interface KindSpec<E extends Element = Element> {
   check?(e: E): Omit<Problem, 'elementId'>[];
   /** Prepare the element, given the port that feeds it (null for a source). */
   build(e: E, input: PortInfo | null): ElementModel;
+
+  // ---------- traits: facts about the kind, declared here once and read from the registry ----------
+
+  /**
+   * A converter that holds its output voltage at its set point whatever its input voltage, drawing
+   * P_in = P_out + loss(P_out) (regulatingConverter in models.ts). Read by the whole-path drop (a
+   * path starts afresh at its output), the battery study's repeated solve (its input power does not
+   * depend on the bank voltage) and the motor-start study (the start's dip stops at it).
+   */
+  readonly regulatesVoltage?: boolean;
+  /**
+   * An element that carries its input on without converting it (a cable, a DC bus): the same port
+   * kind, a voltage that follows its input's, an input power that depends on that voltage. The
+   * conductor rules look through it to the equipment it feeds; the battery study re-solves it at
+   * every step.
+   */
+  readonly passive?: boolean;
+  /**
+   * Passive kinds on DC: the loop resistance (Ω) and fixed loss (W) the element is, or null when it
+   * is not so simple (a cable still to be sized). The battery study's repeated solve then re-solves
+   * it in real arithmetic, after checking the equivalent against the model (core/solve/repeat.ts).
+   */
+  dcEquivalent?(e: E): { resistance: number; fixedLoss: number } | null;
+  /** A load whose level a load profile sets: its rated field and unit (absent on other kinds). */
+  readonly load?: LoadQuantity;
+  /**
+   * The output port the element is meant to give when fed at `input` (its nominal port, from its
+   * own set-points and ratings; null when it has none or cannot be read). Read by the conductor
+   * sizing (the nominal voltage of each system) and by the page's templates, which call it on
+   * drafts: it must not throw on a missing or mistyped field (a field that is not a finite number
+   * counts as absent). Absent on loads.
+   */
+  nominalOutput?(e: E, input: NominalPort | null): NominalPort | null;
+  /**
+   * Sources: the same element with its own impedance taken out (an ideal source at its EMF), for
+   * the nominal solve of the conductor sizing, which puts every system at its nominal voltage.
+   */
+  ideal?(e: E): E;
+  /** The studies an element of this kind takes part in (see KindStudy); absent when none. */
+  readonly studies?: readonly KindStudy[];
 }
 
 /** Helper to keep each kind's spec typed to its element. */
-export const defineKind = <E extends Element>(spec: KindSpec<E>): KindSpec<E> => spec;
+export const defineKind = <E extends KindElement>(spec: KindSpec<E>): KindSpec<E> => spec;
+
+/** A field read for a nominal port: a finite number, or undefined (drafts may hold anything). */
+export const finiteOrNone = (v: unknown): number | undefined => (typeof v === 'number' && Number.isFinite(v) ? v : undefined);
+
+/** A nominal port with the voltage and frequency given, leaving out what is not known. */
+export const nominalPort = (kind: PortKind, voltage?: number, frequency?: number): NominalPort => ({
+  kind,
+  ...(voltage !== undefined ? { voltage } : {}),
+  ...(frequency !== undefined ? { frequency } : {}),
+});
 
 // ---------- shared schema fragments ----------
 
@@ -229,177 +320,5 @@ export function checkLossModel(loss: z.infer<typeof lossModelSchema>): Omit<Prob
 
 /** Condition number (1-norm) above which a loss fit is refused: the coefficients keep about 6 significant digits. */
 export const MAX_FIT_CONDITION = 1e10;
-
-// ---------- shared electrical helpers ----------
-
-export const phaseCount = (kind: PortKind): number => (kind === 'ac3' ? 3 : 1);
-
-/** Per-phase voltage magnitude from the rated voltage (line-to-line on three-phase). */
-export const perPhase = (kind: PortKind, voltage: number): number => (kind === 'ac3' ? voltage / Math.sqrt(3) : voltage);
-
-/** Q drawn at a given P and power factor: Q = P·tan(arccos pf), negative when leading. */
-export function reactiveFromPf(p: number, pf: number, sense: PfSense = 'lagging'): number {
-  const q = Math.abs(p) * Math.tan(Math.acos(pf));
-  return sense === 'leading' ? -q : q;
-}
-
-/**
- * A series impedance link solved exactly per phase (cables, transformer windings, source
- * impedance). `z` is the per-phase impedance: the loop impedance on DC and single-phase.
- */
-export function seriesLink(z: Complex, kind: PortKind) {
-  const m = phaseCount(kind);
-  /** The highest sending voltage magnitude seen by `inputPower` (see there). */
-  let highestSend = 0;
-  return {
-    /**
-     * With constant-impedance loads Y (per phase) beside the constant power S_p:
-     * V_s = K·V_r + Z·conj(S_p/V_r), K = 1 + Z·Y. With W = K·V_r this is the two-bus equation
-     * V_s = W + Z·conj(K)·conj(S_p/W), solved exactly; then V_r = W/K.
-     * Constant-current loads drawing J (per phase, held relative to V_r) add their drop Z·J
-     * (Ohm's law). Alone on the link (no S_p, no Y) they are solved exactly: with V_r = r·e^{jθ},
-     * V_s = e^{jθ}·(r + Z·J), so r = −Re(Z·J) + √(|V_s|² − Im(Z·J)²) and θ = arg V_s − arg(r + Z·J);
-     * no real r > 0 (the square root of a negative number, or r ≤ 0; on DC: I·R ≥ V_s) is a current
-     * the link cannot deliver. Beside other loads, J is set along the last V_r (`along`) and
-     * V_s − Z·J = K·V_r + Z·conj(S_p/V_r) solved as above: exact on DC, a fixed point in the angle
-     * on AC; a V_r that comes out against `along` is a current the link cannot deliver.
-     */
-    outputVoltage: (vIn: Complex, sOut: Complex, y?: DirectLoads): Complex | null => {
-      if (y?.current !== undefined) {
-        const zj = mul(z, y.current);
-        if (sOut.re === 0 && sOut.im === 0 && y.re === 0 && y.im === 0) {
-          const disc = vIn.re * vIn.re + vIn.im * vIn.im - zj.im * zj.im;
-          if (disc < 0) return null;
-          const r = Math.sqrt(disc) - zj.re;
-          if (!(r > 0)) return null;
-          return polar(r, arg(vIn) - arg(add(c(r), zj)));
-        }
-        const along = y.along ?? c(1);
-        const vs = sub(vIn, mul(zj, along));
-        const k = add(c(1), mul(z, y));
-        const w = receivingVoltage(vs, mul(z, conj(k)), scale(sOut, 1 / m));
-        const v = w === null ? null : div(w, k);
-        return v !== null && v.re * along.re + v.im * along.im > 0 ? v : null;
-      }
-      if (y === undefined || (y.re === 0 && y.im === 0)) return receivingVoltage(vIn, z, scale(sOut, 1 / m));
-      const k = add(c(1), mul(z, y));
-      const w = receivingVoltage(vIn, mul(z, conj(k)), scale(sOut, 1 / m));
-      return w === null ? null : div(w, k);
-    },
-    /**
-     * S_in = S_out + m·|I|²·Z with |I| = |S_out/m| / |V_out|.
-     * Given the sending voltage V_s: while the link cannot deliver S_out from V_s at all (no
-     * two-bus solution, past the nose of its P–V curve) it has no operating point, and the loss at
-     * the last receiving voltage is fictitious and can be enormous (a 100 km run of thin wire
-     * starting from the no-load voltage: megawatts). Passed upstream, it drives the source or a
-     * feeder past its own limit first, and the refusal would land there. So, only then, |I| is
-     * counted at most at |V_s|/(2|Z|), the current at the link's maximum transfer (a resistive
-     * link): the forward sweep reaches this link and names it. Where the link can deliver S_out
-     * the figure is exact, so a converged operating point is unchanged.
-     * |V_s| here is the highest sending voltage the link has seen (at first the no-load voltage),
-     * not the last one: deep in a chain that is collapsing as a whole, the last V_s falls towards
-     * zero, and a cap that fell with it would hide the demand from the links above and keep the
-     * sweeps from settling on the refusal.
-     */
-    inputPower: (sOut: Complex, vOut: Complex, vSend?: Complex): Complex => {
-      let i = abs(sOut) / m / abs(vOut);
-      if (vSend !== undefined) {
-        highestSend = Math.max(highestSend, abs(vSend));
-        const atMaxTransfer = highestSend / (2 * abs(z));
-        if (i > atMaxTransfer && receivingVoltage(vSend, z, scale(sOut, 1 / m)) === null) i = atMaxTransfer;
-      }
-      return add(sOut, scale(z, m * i * i));
-    },
-  };
-}
-
-/**
- * A regulating converter: sets its output voltage (and frequency), draws P_in = P_out + P_loss and,
- * on an AC input, Q_in from its input power factor. Reactive power on its output is supplied by the
- * converter and does not pass upstream.
- */
-export function regulatingConverter(opts: {
-  out: PortInfo;
-  outputVoltage: number;
-  inputKind: PortKind;
-  inputPowerFactor?: number;
-  inputPfSense?: PfSense;
-  loss: z.infer<typeof lossModelSchema>;
-  /** Name of the rated quantity for messages, e.g. "rated output". */
-}): ElementModel {
-  const prepared: PreparedLoss = prepareLoss(opts.loss);
-  const vOut = c(perPhase(opts.out.kind, opts.outputVoltage));
-  const pf = opts.inputKind === 'dc' ? 1 : (opts.inputPowerFactor ?? 1);
-  return {
-    out: opts.out,
-    outputVoltage: () => vOut,
-    inputPower: (sOut) => {
-      const pIn = sOut.re + prepared.loss(sOut.re).loss;
-      return c(pIn, pf === 1 ? 0 : reactiveFromPf(pIn, pf, opts.inputPfSense));
-    },
-    report: (sOut) => lossReport(prepared, sOut.re),
-  };
-}
-
-/** Load fraction, weighted efficiencies, fit and warnings of a loss model at an operating point. */
-export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport {
-  const warnings: KindWarning[] = [];
-  const rated = prepared.ratedPower;
-  const { extrapolated } = prepared.loss(pOut);
-  if (extrapolated) {
-    warnings.push({
-      code: 'curve-extrapolated',
-      message: `operating at ${fmtPct(pOut / (rated ?? 1))} of rated output, outside the datasheet points; the end value is used`,
-    });
-  }
-  if (rated !== undefined && pOut > rated * (1 + 1e-9)) {
-    warnings.push({ code: 'rating-exceeded', message: `output ${fmtW(pOut)} exceeds the rated ${fmtW(rated)}` });
-  }
-  if (prepared.fit) {
-    const f = prepared.fit;
-    if (f.p0 < 0 || f.k1 < 0 || f.k2 < 0) {
-      warnings.push({
-        code: 'fit-error',
-        message: 'the fitted loss polynomial has a negative term; check the datasheet points (the fit may not hold outside them)',
-      });
-    }
-  }
-  const report: ElementReport = { warnings };
-  if (rated !== undefined) report.loadFraction = pOut / rated;
-  const weighted = weightedEfficiency(prepared);
-  if (weighted) report.weighted = weighted;
-  if (prepared.fit) report.fit = prepared.fit;
-  return report;
-}
-
-export const fmtW = (w: number): string => (Math.abs(w) >= 1000 ? `${(w / 1000).toPrecision(4)} kW` : `${w.toPrecision(4)} W`);
-export const fmtPct = (x: number): string => `${(x * 100).toFixed(1)} %`;
-
-/** A load: constant complex power regardless of voltage. */
-export function constantPowerLoad(s: Complex): ElementModel {
-  return {
-    out: null,
-    outputVoltage: () => ZERO,
-    inputPower: () => s,
-    report: () => ({ warnings: [] }),
-  };
-}
-
-/**
- * A load drawing a constant current (magnitude and angle to its voltage): S = m·|V|·conj(J) with J
- * the per-phase current phasor relative to the voltage (complex power S = V·I* per phase, the
- * current held whatever the voltage). The link feeding it takes J as a current (seriesLink).
- */
-export function constantCurrentLoad(j: Complex, kind: PortKind): ElementModel {
-  const m = phaseCount(kind);
-  const sPerVolt = scale(conj(j), m);
-  return {
-    out: null,
-    current: j,
-    outputVoltage: () => ZERO,
-    inputPower: (_sOut, vIn) => scale(sPerVolt, abs(vIn)),
-    report: () => ({ warnings: [] }),
-  };
-}
 
 export type { ElementKind };

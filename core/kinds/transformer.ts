@@ -10,7 +10,7 @@
 import { z } from 'zod/mini';
 import type { TransformerStage } from '../model/project.ts';
 import { abs, add, c, scale } from '../physics/complex.ts';
-import { defineKind, fmtPct, fmtW, fromField, idField, nameField, perPhase, seriesLink } from './spec.ts';
+import { defineKind, finiteOrNone, fmtPct, fmtW, fromField, idField, nameField, nominalPort, perPhase, seriesLink } from './spec.ts';
 import { ranged } from './ranges.ts';
 
 export const transformerKind = defineKind<TransformerStage>({
@@ -44,6 +44,9 @@ export const transformerKind = defineKind<TransformerStage>({
     }
     return [];
   },
+  // Its rated secondary voltage, at the phase count and frequency it is fed at.
+  nominalOutput: (e, input) =>
+    input && (input.kind === 'ac1' || input.kind === 'ac3') ? nominalPort(input.kind, finiteOrNone(e.secondaryVoltage), input.frequency) : null,
   build(e, input) {
     const kind = input!.kind;
     const zBase = (e.secondaryVoltage * e.secondaryVoltage) / e.ratedApparentPower;

@@ -22,10 +22,9 @@ import type { ElementModel } from '../kinds/index.ts';
 import { plan, type PlannedElement } from './plan.ts';
 import { MAX_SWEEPS, TOLERANCE, sweep } from './sweep.ts';
 
-/** Kinds whose input power depends on their input voltage and that pass DC on (re-solved per step). */
-const PASSIVE = new Set<Element['kind']>(['cable', 'dc-bus']);
-/** Kinds whose input power depends on their output power only. */
-const REGULATING = new Set<Element['kind']>(['dc-dc', 'inverter', 'generic', 'rectifier', 'drive']);
+// The kinds' traits (core/kinds/spec.ts) decide the top: `passive` kinds (their input power depends
+// on their input voltage; they pass DC on) are re-solved per step; `regulatesVoltage` kinds (their
+// input power depends on their output power only) and constant-power loads hold the frontier.
 
 /** Operating point of one step, at the bank. */
 export interface StepPoint {
@@ -68,15 +67,6 @@ export interface RepeatSolver {
   solve(state: number, emf: number, resistance: number): StepPoint | null;
 }
 
-const LOAD_FIELD: Partial<Record<Element['kind'], 'power' | 'apparentPower' | 'current'>> = {
-  'dc-load': 'power',
-  'ac-load': 'power',
-  'shaft-load': 'power',
-  'ac-va-load': 'apparentPower',
-  'dc-current-load': 'current',
-  'ac-current-load': 'current',
-};
-
 /** Plan a validated battery-fed project once for repeated solves. */
 export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolver } | { ok: false; problems: Problem[] } {
   const planned = plan(project);
@@ -93,11 +83,10 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
   for (let i = 1; i < order.length; i++) {
     const node = order[i]!;
     if (!inTop[node.parent]) continue;
-    const kind = node.element.kind;
-    if (PASSIVE.has(kind)) inTop[i] = true;
+    if (node.spec.passive) inTop[i] = true;
     // A constant-current load next to the bank draws P = V·I at the bank-side voltage, which moves
     // every step: not a fixed frontier power, so the whole chain is swept instead.
-    else if (!(REGULATING.has(kind) || (node.spec.role === 'load' && node.model.current === undefined))) fast = false;
+    else if (!(node.spec.regulatesVoltage || (node.spec.role === 'load' && node.model.current === undefined))) fast = false;
   }
   const top: number[] = [];
   const topPos = new Map<number, number>();
@@ -111,7 +100,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
   const topModels: ElementModel[] = top.map((i) => order[i]!.model);
   const nTop = top.length;
   // DC equivalents of the top elements, each checked against the element's own model.
-  const dc = top.map((i, j) => (j === 0 ? null : dcEquivalent(order[i]!.element, topModels[j]!)));
+  const dc = top.map((i, j) => (j === 0 ? null : dcEquivalent(order[i]!, topModels[j]!)));
   const realArithmetic = dc.every((d, j) => j === 0 || d !== null);
   const topR = new Float64Array(nTop);
   const topFixedLoss = new Float64Array(nTop);
@@ -141,8 +130,9 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
   const prepare: RepeatSolver['prepare'] = (values) => {
     const loads = loadIdx.map((i, k) => {
       const node = order[i]!;
-      const field = LOAD_FIELD[node.element.kind]!;
-      const element = { ...node.element, [field]: values[k]! } as Element;
+      // The load's own quantity (its kind's `load` trait); a load a profile cannot set keeps its fields.
+      const field = node.spec.load?.field;
+      const element = (field ? { ...node.element, [field]: values[k]! } : node.element) as Element;
       return { element, model: node.spec.build(element, node.input) };
     });
     const swept = sweep(withLoads(loads));
@@ -305,21 +295,15 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
 const PROBE_TOLERANCE = 1e-12;
 
 /**
- * The DC equivalent of a passive element — a loop resistance (cable: resistance per km × 2 × length
- * ÷ parallel sets) or a fixed loss (bus) — when its model behaves exactly so at two probe points;
- * null otherwise (then the element's model is used as it is).
+ * The DC equivalent of a passive element — a loop resistance and a fixed loss, its kind's
+ * `dcEquivalent` trait (a cable: resistance per km × 2 × length ÷ parallel sets; a bus: its fixed
+ * loss) — when its model behaves exactly so at two probe points; null otherwise (then the element's
+ * model is used as it is).
  */
-function dcEquivalent(e: Element, model: ElementModel): { resistance: number; fixedLoss: number } | null {
-  let resistance = 0;
-  let fixedLoss = 0;
-  if (e.kind === 'cable') {
-    if (e.resistancePerKm === undefined || e.conductor) return null;
-    resistance = (e.resistancePerKm * 2 * e.length) / 1000 / (e.parallelSets ?? 1);
-  } else if (e.kind === 'dc-bus') {
-    fixedLoss = e.fixedLoss;
-  } else {
-    return null;
-  }
+function dcEquivalent(node: PlannedElement, model: ElementModel): { resistance: number; fixedLoss: number } | null {
+  const eq = node.spec.dcEquivalent?.(node.element) ?? null;
+  if (eq === null) return null;
+  const { resistance, fixedLoss } = eq;
   const close = (a: number, b: number) => Math.abs(a - b) <= PROBE_TOLERANCE * Math.max(Math.abs(a), Math.abs(b), 1);
   for (const [vs, p] of [
     [50, 400],

@@ -16,16 +16,17 @@
  *    drop fraction of a change in R, a strong contraction) until no resistance moves by 1e-10
  *    (relative). Sizes do not change in this step.
  */
-import type { AcSource, BatterySource, CableStage, ConductorSpec, Element, Project } from '../model/project.ts';
+import type { CableStage, ConductorSpec, Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import type { ConductorResult, SolveResult, SolveWarning } from '../model/result.ts';
 import { abs } from '../physics/complex.ts';
 import { type ConductorCatalogue, defaultCatalogue } from '../conductors/catalogue.ts';
 import { type PreparedConductor, prepareConductor } from '../conductors/prepare.ts';
-import { type Choice, type LinkAngle, choose, conductorResult, resistanceAt, temperatureAt } from '../conductors/size.ts';
+import { type Choice, type LinkAngle, choose, resistanceAt, temperatureAt } from '../conductors/size.ts';
+import { conductorResult } from '../conductors/link-result.ts';
 import { type DesignContext, type DesignCurrent, designCurrent } from '../conductors/design-current.ts';
 import { type ResolvedLimits, linkLimit, pathDrops, resolveLimits } from '../conductors/path-drop.ts';
-import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
+import { KINDS, type NominalPort } from '../kinds/index.ts';
 import { type Plan, type PlannedElement, plan } from './plan.ts';
 import { type OperatingPoint, sweep } from './sweep.ts';
 
@@ -74,55 +75,31 @@ function resolve(project: Project, links: ReadonlyMap<string, { r: number; x: nu
   };
 }
 
-/** The project with conductor links ideal and every source stiff: each system at its nominal voltage. */
+/**
+ * The project with conductor links ideal and every source stiff (its kind's `ideal` trait): each
+ * system at its nominal voltage.
+ */
 function nominalProject(project: Project, specs: readonly CableStage[]): Project {
   const base = resolve(project, new Map(specs.map((e) => [e.id, { r: 0, x: 0 }])));
   return {
     ...base,
-    elements: base.elements.map((e): Element => {
-      if (e.kind === 'grid' || e.kind === 'generator') {
-        const { resistance: _r, reactance: _x, ...rest } = e as AcSource;
-        return rest as AcSource;
-      }
-      if (e.kind === 'battery') return { ...(e as BatterySource), internalResistance: 0 };
-      return e;
-    }),
+    elements: base.elements.map((e): Element => KINDS.get(e.kind)?.ideal?.(e) ?? e),
   };
 }
 
-/** Nominal voltage of each element's output, V (line-to-line on three-phase), walking down the plan. */
+/**
+ * Nominal voltage of each element's output, V (line-to-line on three-phase), walking down the plan:
+ * each kind's `nominalOutput` trait (its set-point or rating; a cable or bus passes on what feeds
+ * it; a battery bank gives cells in series × the chemistry's nominal cell voltage, NEC 480.2), 0
+ * where there is none (loads, a motor's shaft).
+ */
 function nominalVoltages(order: readonly PlannedElement[]): number[] {
-  const out: number[] = [];
-  order.forEach((n, i) => {
-    const e = n.element;
-    const up = n.parent >= 0 ? out[n.parent]! : 0;
-    switch (e.kind) {
-      case 'grid':
-      case 'generator':
-        out[i] = e.voltage;
-        break;
-      case 'battery': {
-        // A bank: cells in series × the chemistry's nominal cell voltage (NEC 480.2 "nominal voltage
-        // (battery or cell)"); otherwise the voltage given.
-        const b = e.bank;
-        out[i] = b ? b.series * (b.cellsPerBlock ?? 1) * (b.overrides?.nominalCellVoltage ?? CHEMISTRY_PRESETS[b.chemistry].nominalCellVoltage) : (e.voltage ?? 0);
-        break;
-      }
-      case 'rectifier':
-      case 'dc-dc':
-      case 'inverter':
-      case 'drive':
-      case 'generic':
-        out[i] = e.outputVoltage;
-        break;
-      case 'transformer':
-        out[i] = e.secondaryVoltage;
-        break;
-      default:
-        out[i] = up;
-    }
+  const ports: (NominalPort | null)[] = [];
+  return order.map((n, i) => {
+    const input = n.parent >= 0 ? ports[n.parent]! : null;
+    ports[i] = n.spec.nominalOutput?.(n.element, input) ?? null;
+    return ports[i]?.voltage ?? 0;
   });
-  return out;
 }
 
 /** Place of each element in a plan, by id (one Map per plan: a lookup per link stays constant-time). */

@@ -17,6 +17,7 @@ import {
   templateFor,
   templatesAfter,
 } from '../../web/editor/templates.ts';
+import { registerMadeUpKinds } from '../core/made-up-kinds.ts';
 import { addBranch, draft, insertAfter, insertBefore, loadProject, outcome, type DraftElement, type DraftProject } from '../../web/state/editor.ts';
 
 const project = (elements: DraftElement[]): DraftProject => ({ format: 'joulepath-project', version: 2, name: 'test', elements });
@@ -180,5 +181,35 @@ describe('templates offered in the demo projects', () => {
     for (const t of before) expect(KINDS.get(t.kind)!.role).not.toBe('load');
     // Before the source nothing can go.
     expect(offeredTemplates(p, 'before', p.elements.find((e) => e.from === undefined)!.id)).toEqual([]);
+  });
+});
+
+describe('a made-up kind (tests/core/made-up-kinds.ts): the templates read its nominal output from the registry', () => {
+  it('what it feeds is offered at its own set point, and the nominal ports pass through it', () => {
+    const off = registerMadeUpKinds();
+    try {
+      // A 230 V supply, the made-up regulator at 24 V (its own definition), a cable after it.
+      const p = project([
+        structuredClone(source('grid-1-230')),
+        { id: 'reg', kind: 'test-regulator', from: 'supply', outputVoltage: 24, efficiency: 0.9 },
+        { id: 'run', kind: 'cable', from: 'reg', length: 5, resistancePerKm: 7.41 },
+      ]);
+      const ports = nominalPorts(p);
+      expect(ports.get('reg')).toEqual({ kind: 'dc', voltage: 24 }); // its nominalOutput trait
+      expect(ports.get('run')).toEqual({ kind: 'dc', voltage: 24 }); // a cable passes its port on
+      const offered = offeredTemplates(p, 'branch', 'reg').map((t) => t.kind);
+      expect(offered).toContain('dc-load');
+      expect(offered).toContain('inverter');
+      expect(offered).not.toContain('ac-load');
+      // A 24 V port gets the 12 V DC-DC template (the templates' rule for ports above 14 V).
+      expect(offeredTemplates(p, 'branch', 'reg').find((t) => t.kind === 'dc-dc')!.element['outputVoltage']).toBe(12);
+      // Each offered element solves behind the made-up kind.
+      for (const t of offeredTemplates(p, 'branch', 'run')) {
+        const next = project([...p.elements, { ...t.element, id: 'new', from: 'run' }]);
+        expect(solveProject(next).ok, t.kind).toBe(true);
+      }
+    } finally {
+      off();
+    }
   });
 });

@@ -7,23 +7,18 @@
  * added after a sensible feeder, the chain solves; where it would not, it is not offered.
  *
  * The ports used to choose a template are NOMINAL (set-points and ratings read from the elements:
- * a transformer's secondary voltage, an inverter's output voltage), not solved values; nothing here
- * computes an engineering result. The pump template's flow is chosen with the engine's own
+ * a transformer's secondary voltage, an inverter's output voltage), not solved values: each kind's
+ * `nominalOutput` trait from the engine's registry (core/kinds/), the same one the conductor sizing
+ * reads; nothing here computes an engineering result. The pump template's flow is chosen with the engine's own
  * shaft-power function (core/physics/pump-fan.ts).
  */
 import type { ElementKind, PortKind } from '../../core/model/project.ts';
-import { KINDS } from '../../core/kinds/index.ts';
-import { bankValues, checkBank } from '../../core/physics/bank.ts';
+import { KINDS, type NominalPort } from '../../core/kinds/index.ts';
 import { pumpShaftPower } from '../../core/physics/pump-fan.ts';
-import type { BatteryBankSpec } from '../../core/model/project.ts';
 import type { DraftElement, DraftProject } from '../state/editor.ts';
 
 /** A port as the templates see it: its kind and, when known, nominal voltage (line-to-line on 3φ) and frequency. */
-export interface FeedingPort {
-  kind: PortKind;
-  voltage?: number;
-  frequency?: number;
-}
+export type FeedingPort = NominalPort;
 
 /** Where a new element will go: the port that feeds it, the project (for its conventions) and the feeder. */
 export interface TemplateContext {
@@ -51,70 +46,43 @@ export function followsUsPractice(project: DraftProject | undefined): boolean {
     if (conductor && (conductor['system'] === 'nec' || /AWG|kcmil/i.test(String(conductor['size'] ?? '')))) return true;
     if (conductor && conductor['system'] === 'iec') return false;
   }
-  const source = project.elements.find((e) => e.kind === 'grid' || e.kind === 'generator');
-  if (source) return num(source['frequency']) === 60 || US_VOLTAGES.has(num(source['voltage']) ?? 0);
+  const source = acSourcePort(project);
+  if (source) return source.frequency === 60 || US_VOLTAGES.has(source.voltage ?? 0);
   return project.elements.some((e) => e.kind === 'inverter' && num(e['frequency']) === 60);
+}
+
+/**
+ * The nominal output port of the project's AC source (the first element of a source kind whose
+ * `nominalOutput` is AC), if it has one. The inverter's frequency is read by kind beside it: the
+ * mains an inverter makes, where a drive's or converter's output frequency is a setting of its own.
+ */
+function acSourcePort(project: DraftProject | undefined): FeedingPort | undefined {
+  for (const e of project?.elements ?? []) {
+    if (KINDS.get(e.kind as ElementKind)?.role !== 'source') continue;
+    const port = nominalOutput(e, null);
+    if (port && (port.kind === 'ac1' || port.kind === 'ac3')) return port;
+  }
+  return undefined;
 }
 
 /** The mains frequency of the project: its AC source's, else its first inverter's, else 60 Hz for US practice and 50 Hz otherwise. */
 export function projectFrequency(project: DraftProject | undefined): 50 | 60 {
-  const source = project?.elements.find((e) => e.kind === 'grid' || e.kind === 'generator');
-  const f = num(source?.['frequency']) ?? num(project?.elements.find((e) => e.kind === 'inverter')?.['frequency']);
+  const f = acSourcePort(project)?.frequency ?? num(project?.elements.find((e) => e.kind === 'inverter')?.['frequency']);
   if (f === 50 || f === 60) return f;
   return followsUsPractice(project) ? 60 : 50;
 }
 
-function bankVoltage(bank: unknown): number | undefined {
-  if (typeof bank !== 'object' || bank === null) return undefined;
-  const spec = bank as BatteryBankSpec;
-  try {
-    if (checkBank(spec).length) return undefined;
-    return bankValues(spec).values.nominalCellVoltage * spec.series * (spec.cellsPerBlock ?? 1);
-  } catch {
-    return undefined;
-  }
-}
-
-const acKind = (phases: unknown): PortKind => (phases === 3 ? 'ac3' : 'ac1');
-
 /**
  * The nominal output port of an element fed at `input` (null for loads and for kinds or data it
- * cannot read). Read from the element's own set-points: this is what the element is meant to give.
+ * cannot read): its kind's `nominalOutput` trait, read from the element's own set-points — what the
+ * element is meant to give. A draft may hold anything: a trait that cannot read it gives null.
  */
 export function nominalOutput(e: DraftElement, input: FeedingPort | null): FeedingPort | null {
-  const withV = (kind: PortKind, voltage: number | undefined, frequency?: number): FeedingPort => ({
-    kind,
-    ...(voltage !== undefined ? { voltage } : {}),
-    ...(frequency !== undefined ? { frequency } : {}),
-  });
-  switch (e.kind) {
-    case 'grid':
-    case 'generator':
-      return withV(acKind(e['phases']), num(e['voltage']), num(e['frequency']));
-    case 'battery':
-      return withV('dc', num(e['voltage']) ?? bankVoltage(e['bank']));
-    case 'rectifier':
-    case 'dc-dc':
-      return withV('dc', num(e['outputVoltage']));
-    case 'dc-bus':
-      return input && input.kind === 'dc' ? input : withV('dc', undefined);
-    case 'cable':
-      return input && input.kind !== 'shaft' ? input : null;
-    case 'inverter':
-      return withV(acKind(e['phases']), num(e['outputVoltage']), num(e['frequency']));
-    case 'transformer':
-      return input && (input.kind === 'ac1' || input.kind === 'ac3') ? withV(input.kind, num(e['secondaryVoltage']), input.frequency) : null;
-    case 'drive':
-      return withV('ac3', num(e['outputVoltage']), num(e['outputFrequency']));
-    case 'motor':
-      return { kind: 'shaft' };
-    case 'generic': {
-      const k = e['outputKind'];
-      if (k !== 'dc' && k !== 'ac1' && k !== 'ac3') return null;
-      return withV(k, num(e['outputVoltage']), k === 'dc' ? undefined : num(e['outputFrequency']));
-    }
-    default:
-      return null;
+  const spec = KINDS.get(e.kind as ElementKind);
+  try {
+    return spec?.nominalOutput?.(e as never, input) ?? null;
+  } catch {
+    return null;
   }
 }
 

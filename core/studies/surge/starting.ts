@@ -160,8 +160,6 @@ const check = (c: Omit<StartCheck, 'utilisation' | 'status'>): StartCheck => {
   return { ...c, utilisation: Number.isFinite(u) ? u : 1e9, status };
 };
 
-const REGULATING = new Set(['rectifier', 'dc-dc', 'inverter', 'drive', 'generic']);
-
 /** The elements from `id` up to the root, nearest first (excluding `id`). */
 function ancestors(byId: ReadonlyMap<string, Element>, id: string): Element[] {
   const out: Element[] = [];
