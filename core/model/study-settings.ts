@@ -24,7 +24,6 @@ export interface DropLimits {
   totalPercent?: number;
 }
 
-
 /**
  * How one load is set during a profile segment: a number is its power (W; VA for an
  * apparent-power load; A for a load given by its current, `dc-current-load` and `ac-current-load`,

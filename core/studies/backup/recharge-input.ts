@@ -4,6 +4,7 @@
  * constants (τ, current ceiling, end state of charge) they give.
  */
 import type { Problem } from '../../model/errors.ts';
+import { PROJECT_LEVEL } from '../../model/errors.ts';
 import { isLithium } from './cautions.ts';
 import { problem, resolvePreset } from './sizing-input.ts';
 import {
@@ -20,7 +21,7 @@ import {
 export const isFiniteNumber = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
 
 export function checkBase(input: RechargeBase): { ok: true; m: Model } | { ok: false; problems: Problem[] } {
-  const elementId = input.elementId ?? 'project';
+  const elementId = input.elementId ?? PROJECT_LEVEL;
   const fields: RechargeFieldPaths = { ...DEFAULT_FIELDS, ...(input.fields ?? {}) };
   const resolved = resolvePreset(input.chemistry, input.overrides, elementId, fields.chemistry, fields.overrides);
   if (!resolved.ok) return resolved;

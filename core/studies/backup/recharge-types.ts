@@ -60,7 +60,7 @@ export interface RechargeFieldPaths {
 }
 
 export interface RechargeBase {
-  /** Element id used in problems: the battery's id, or "project" (default). */
+  /** Element id used in problems: the battery's id, or PROJECT_LEVEL (default: the project as a whole). */
   elementId?: string;
   chemistry: string;
   overrides?: Partial<ChemistryValues>;

@@ -6,6 +6,7 @@ import { MAX_TEMPERATURE_EXTRAPOLATION_C, capacityFactorAt as extrapolatedCapaci
 import { CHEMISTRIES, CHEMISTRY_PRESETS, type Chemistry, type ChemistryPreset, type ChemistryValues } from '../../data/battery-chemistries.ts';
 import { IEEE_485_TEMPERATURE_FACTORS } from '../../data/ieee-485.ts';
 import type { Problem, ProblemCode } from '../../model/errors.ts';
+import { PROJECT_LEVEL } from '../../model/errors.ts';
 import { isLeadAcid, leadAcidTemperatureFactor } from './sizing-factors.ts';
 import { MAX_REPEATED_PERIODS, repeatedPeriods } from './sizing-periods.ts';
 import {
@@ -136,7 +137,7 @@ function checkPeriods(out: Problem[], elementId: string, field: string, duty: Du
 }
 
 export function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok: false; problems: Problem[] } {
-  const elementId = input.elementId ?? 'project';
+  const elementId = input.elementId ?? PROJECT_LEVEL;
   const fields: SizingFieldPaths = { ...DEFAULT_FIELDS, ...(input.fields ?? {}) };
   const resolved = resolvePreset(input.chemistry, input.overrides, elementId, fields.chemistry, fields.overrides);
   if (!resolved.ok) return resolved;

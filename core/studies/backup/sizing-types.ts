@@ -72,7 +72,7 @@ export interface SizingFieldPaths {
 }
 
 export interface SizingInput {
-  /** Element id used in problems: the battery's id, or "project" (default). */
+  /** Element id used in problems: the battery's id, or PROJECT_LEVEL (default: the project as a whole). */
   elementId?: string;
   /** Chemistry preset name (see core/data/battery-chemistries.ts). */
   chemistry: string;
