@@ -1,7 +1,7 @@
 /** Joulepath engine: the public API (re-exports only). */
 export type * from './model/project.ts';
 export type * from './model/result.ts';
-export { ProjectError, formatProblem, type Problem, type ProblemCode } from './model/errors.ts';
+export { PROJECT_LEVEL, ProjectError, formatProblem, type Problem, type ProblemCode } from './model/errors.ts';
 export { solveProject, solve, validateProject, type SolveOutcome } from './solve/index.ts';
 export { findNonFinite, nonFiniteProblems, elementNames, type NonFiniteFigure } from './solve/finite.ts';
 export { demoProjects, type DemoProject } from './demos/index.ts';

@@ -24,7 +24,7 @@
  *   u = b·(ρ₁·L·cosφ/S + λ·L·sinφ)·I_B with ρ₁ = 1.25·ρ₂₀; at the design basis current before any
  *   125 % factor, as % of the nominal voltage.
  * - Beside it, labelled: the exact drop |V_s| − |V_r| of the solved chain (the two-bus solution of
- *   ../ac/two-bus.ts) with R at the estimated operating temperature (common practice):
+ *   core/physics/two-bus.ts) with R at the estimated operating temperature (common practice):
  *   T = T_a + (T_max − T_a)·(I/I_z)², R_T = R_ref·(1 + α·(T − T_ref)).
  */
 import type { CableStage, NecConductorSpec } from '../model/project.ts';

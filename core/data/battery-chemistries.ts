@@ -1,6 +1,9 @@
 /**
  * Battery chemistry presets: per-cell defaults for the bank model in core/studies/backup/.
  *
+ * One file over 400 lines on purpose: it is one table (one preset per chemistry, the same fields
+ * each, every field with its provenance mark), read and checked against its sources as a whole.
+ *
  * Every value can be overridden from the cell or block maker's datasheet, which always takes
  * precedence; these are planning defaults only.
  *

@@ -3,6 +3,11 @@
  * equipment — Wiring systems: current-carrying capacities (Annex B), their ambient-temperature and
  * grouping correction factors, and the voltage-drop limits and formula of Annex G.
  *
+ * One file over 400 lines on purpose: it carries one published set, the standard's Annex B capacity
+ * tables with the correction factors that apply to them (and Annex G), which the sizing reads
+ * together and tests/data checks against the publication together; split, one table's method
+ * columns and its correction factors would sit in different files.
+ *
  * ── Current-carrying capacities (Annex B), copper, ambient air 30 °C ──
  * Tables: B.52.2 (PVC, 2 loaded conductors), B.52.3 (XLPE/EPR, 2 loaded), B.52.4 (PVC, 3 loaded),
  * B.52.5 (XLPE/EPR, 3 loaded) for methods B1, B2, C; B.52.10 (PVC) and B.52.12 (XLPE/EPR) for

@@ -8,10 +8,11 @@
  * the studies themselves need not know of it.
  */
 import type { Problem } from '../model/errors.ts';
+import { PROJECT_LEVEL } from '../model/errors.ts';
 
 /** One number that is not finite, where it sits, and the element it belongs to. */
 export interface NonFiniteFigure {
-  /** Element id, or "project" when the figure belongs to no element. */
+  /** Element id, or PROJECT_LEVEL when the figure belongs to no element. */
   elementId: string;
   /** The element's name as the result gives it, when it gives one. */
   elementName?: string;
@@ -48,7 +49,7 @@ export function findNonFinite(value: unknown, limit = 50): NonFiniteFigure[] {
   // of keys, cut back to each entry's depth, copied only for a figure that is reported. `depth` is
   // the length of the path to the entry's container.
   const path: string[] = [];
-  const stack: { v: unknown; depth: number; key: string | null; owner: Owner }[] = [{ v: value, depth: 0, key: null, owner: { id: 'project', depth: 0 } }];
+  const stack: { v: unknown; depth: number; key: string | null; owner: Owner }[] = [{ v: value, depth: 0, key: null, owner: { id: PROJECT_LEVEL, depth: 0 } }];
   while (stack.length > 0 && found.length < limit) {
     const { v, depth, key, owner } = stack.pop()!;
     if (typeof v === 'number') {
@@ -124,7 +125,7 @@ export function nonFiniteProblems(what: string, value: unknown, names?: Readonly
   return [...byElement].map(([elementId, figures]) => {
     const first = figures[0]!;
     const name = names?.get(elementId) ?? first.elementName;
-    const subject = elementId === 'project' ? 'the project as a whole' : `"${name ?? elementId}"`;
+    const subject = elementId === PROJECT_LEVEL ? 'the project as a whole' : `"${name ?? elementId}"`;
     const fields = [...new Set(figures.map((f) => `${fieldWords(f.path)} (${valueWords(f.value)})`))];
     const listed = fields.slice(0, 3).join(', ') + (fields.length > 3 ? ` and ${fields.length - 3} more` : '');
     return {
@@ -134,7 +135,7 @@ export function nonFiniteProblems(what: string, value: unknown, names?: Readonly
       value: String(first.value),
       message:
         `${what} gives figures for ${subject} that are not finite numbers: ${listed}. Nothing computed is shown. ` +
-        (elementId === 'project'
+        (elementId === PROJECT_LEVEL
           ? "These figures follow from the elements' values and the project's settings: check those named beside this, and the settings."
           : 'A value of this element or of one it feeds is out of range (near zero or huge, or a unit slip): check them.'),
     };

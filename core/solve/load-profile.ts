@@ -6,6 +6,7 @@
  */
 import type { BackupStudy, DutySchedule, Element, LoadSetting, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
+import { PROJECT_LEVEL } from '../model/errors.ts';
 import { RESERVED_IDS } from './structure.ts';
 import { kindSpec } from '../kinds/index.ts';
 
@@ -63,7 +64,7 @@ export function profileLoads(project: Project): ProfileLoad[] {
   return out;
 }
 
-const bad = (field: string, value: unknown, message: string): Problem => ({ code: 'invalid-value', elementId: 'project', field, value, message });
+const bad = (field: string, value: unknown, message: string): Problem => ({ code: 'invalid-value', elementId: PROJECT_LEVEL, field, value, message });
 
 /**
  * Where a profile names an element by id that is not a load it can set: the words, or null when

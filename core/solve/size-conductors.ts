@@ -18,6 +18,7 @@
  */
 import type { CableStage, ConductorSpec, Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
+import { PROJECT_LEVEL } from '../model/errors.ts';
 import type { ConductorResult, SolveResult, SolveWarning } from '../model/result.ts';
 import { abs } from '../physics/complex.ts';
 import { type ConductorCatalogue, defaultCatalogue } from '../conductors/catalogue.ts';
@@ -219,7 +220,7 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
   }
   return {
     ok: false,
-    problems: [{ code: 'no-convergence', elementId: 'project', field: '', message: `the conductor temperatures did not settle within ${MAX_PASSES} passes of the chain solve` }],
+    problems: [{ code: 'no-convergence', elementId: PROJECT_LEVEL, field: '', message: `the conductor temperatures did not settle within ${MAX_PASSES} passes of the chain solve` }],
   };
 }
 

@@ -9,6 +9,7 @@
  */
 import type { ElementKind } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
+import { PROJECT_LEVEL } from '../model/errors.ts';
 import { KINDS } from '../kinds/index.ts';
 
 /** What the tree checks need of an element. */
@@ -105,7 +106,7 @@ export function checkStructure(skeletons: readonly Skeleton[]): Problem[] {
   const sources = skeletons.filter((s) => roleOf(s) === 'source');
   // An element of unknown kind might have been meant as the source: do not also claim none exists.
   if (sources.length === 0 && skeletons.every((s) => s.kind !== undefined)) {
-    problems.push({ code: 'missing-source', elementId: 'project', field: 'elements', message: 'needs one source (grid, generator or battery) to feed the chain' });
+    problems.push({ code: 'missing-source', elementId: PROJECT_LEVEL, field: 'elements', message: 'needs one source (grid, generator or battery) to feed the chain' });
   }
   for (const s of sources.slice(1)) {
     problems.push({ code: 'several-sources', elementId: s.id, field: 'kind', value: s.kind!, message: `a chain has one source; "${sources[0]!.id}" is already the source` });

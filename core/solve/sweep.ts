@@ -11,6 +11,7 @@
  */
 import { type Complex, ZERO, abs, add, c, scale, sub } from '../physics/complex.ts';
 import type { Problem } from '../model/errors.ts';
+import { PROJECT_LEVEL } from '../model/errors.ts';
 import type { Element } from '../model/project.ts';
 import type { PlannedElement } from './plan.ts';
 import type { DirectLoads } from '../kinds/spec.ts';
@@ -338,7 +339,7 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
     problems: [
       {
         code: 'no-convergence',
-        elementId: 'project',
+        elementId: PROJECT_LEVEL,
         field: '',
         value: residual,
         message: `the operating point did not settle within ${MAX_SWEEPS} sweeps (last voltage change ${residual.toExponential(2)}); the chain is close to voltage collapse`,

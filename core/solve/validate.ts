@@ -6,6 +6,7 @@ import { OLDEST_PROJECT_VERSION, PROJECT_VERSION, migrateProject } from '../mode
 import { z } from 'zod/mini';
 import type { Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
+import { PROJECT_LEVEL } from '../model/errors.ts';
 import { KINDS } from '../kinds/index.ts';
 import { checkStructure, skeletonOf } from './structure.ts';
 import { issueMessage, unknownKindMessage } from './issue-messages.ts';
@@ -97,7 +98,7 @@ export function validateProject(file: unknown): Validated {
   // An older format is brought up to date first (core/model/migrate.ts); the problems name today's fields.
   const input = migrateProject(file).value;
   const top = projectShape.safeParse(input, { error: issueMessage });
-  if (!top.success) return { ok: false, problems: fromIssues(top.error.issues, 'project', input) };
+  if (!top.success) return { ok: false, problems: fromIssues(top.error.issues, PROJECT_LEVEL, input) };
   const problems: Problem[] = [];
   const elements: Element[] = [];
   top.data.elements.forEach((raw, i) => {

@@ -8,6 +8,7 @@
  * user thinks in (the page shows the symbol of their locale).
  */
 import type { Problem } from '../model/errors.ts';
+import { PROJECT_LEVEL } from '../model/errors.ts';
 import type { ElementKind } from '../model/project.ts';
 import type { SolveResult } from '../model/result.ts';
 
@@ -50,21 +51,21 @@ export interface LossCost {
 
 export type LossCostOutcome = { ok: true; cost: LossCost } | { ok: false; problems: Problem[] };
 
-/** Problems of the cost settings (element "project", fields `pricePerKWh`, `hoursPerYear`). */
+/** Problems of the cost settings (PROJECT_LEVEL, fields `pricePerKWh`, `hoursPerYear`). */
 export function checkCostSettings(settings: CostSettings): Problem[] {
   const out: Problem[] = [];
   const { pricePerKWh: price, hoursPerYear: hours } = settings;
   if (typeof price !== 'number' || !Number.isFinite(price)) {
-    out.push({ code: 'invalid-value', elementId: 'project', field: 'pricePerKWh', value: price, message: 'the energy price must be a number (per kWh)' });
+    out.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'pricePerKWh', value: price, message: 'the energy price must be a number (per kWh)' });
   } else if (price < 0) {
-    out.push({ code: 'invalid-value', elementId: 'project', field: 'pricePerKWh', value: price, message: 'the energy price must not be negative' });
+    out.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'pricePerKWh', value: price, message: 'the energy price must not be negative' });
   }
   if (typeof hours !== 'number' || !Number.isFinite(hours)) {
-    out.push({ code: 'invalid-value', elementId: 'project', field: 'hoursPerYear', value: hours, message: 'the hours per year must be a number' });
+    out.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'hoursPerYear', value: hours, message: 'the hours per year must be a number' });
   } else if (hours < 0 || hours > MAX_HOURS_PER_YEAR) {
     out.push({
       code: 'invalid-value',
-      elementId: 'project',
+      elementId: PROJECT_LEVEL,
       field: 'hoursPerYear',
       value: hours,
       message: `the hours per year must be between 0 and ${MAX_HOURS_PER_YEAR} (a leap year; 8760 runs all year)`,

@@ -10,6 +10,7 @@
  * - I²R loss of a series conductor (Joule's law): loss after/loss before = (I after/I before)².
  */
 import { describe, expect, it } from 'vitest';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import {
   bankCapacitance,
   correctPowerFactor,
@@ -200,7 +201,7 @@ describe('bad requests: a problem naming the element and field; nothing computed
     ['a target that is not a number', { at: 'mill', targetPowerFactor: Number.NaN }, { code: 'invalid-value', elementId: 'mill', field: 'targetPowerFactor', message: /must be a number/ }],
     ['a light-load fraction of 0', { at: 'mill', targetPowerFactor: 0.95, lightLoadFraction: 0 }, { code: 'invalid-value', elementId: 'mill', field: 'lightLoadFraction', message: /between 0 and 1/ }],
     ['an unknown element id', { at: 'mil', targetPowerFactor: 0.95 }, { code: 'unknown-element', elementId: 'mil', field: 'at', message: /no element "mil"/ }],
-    ['an empty element id', { at: '', targetPowerFactor: 0.95 }, { code: 'invalid-value', elementId: 'project', field: 'at', message: /must name the element/ }],
+    ['an empty element id', { at: '', targetPowerFactor: 0.95 }, { code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'at', message: /must name the element/ }],
     ['an interface that is leading already', { at: 'ups', targetPowerFactor: 0.95 }, { code: 'not-correctable', elementId: 'ups', field: 'at', message: /leading already/ }],
     ['a resistive load (unity pf)', { at: 'heater', targetPowerFactor: 0.99 }, { code: 'not-correctable', elementId: 'heater', field: 'at', message: /unity power factor/ }],
     ['a DC interface', { at: 'dc', targetPowerFactor: 0.95 }, { code: 'not-correctable', elementId: 'dc', field: 'at', message: /input is DC/ }],

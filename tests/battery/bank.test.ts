@@ -3,6 +3,7 @@
  * static solve at the initial state of charge, and refusals of bad input naming the field.
  */
 import { describe, expect, it } from 'vitest';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { solveProject, type Project } from '../../core/index.ts';
 import { capacityFactorAt, ocvAt, resolveBank } from '../../core/physics/bank.ts';
 import { CHEMISTRY_PRESETS, CHEMISTRIES } from '../../core/data/battery-chemistries.ts';
@@ -218,7 +219,7 @@ describe('bad input names the field', () => {
 
   it('a negative segment duration → backup.profile.segments.0.durationHours', () => {
     const p = directLoad({ chemistry: 'lifepo4', series: 16, capacityAh: 100 }, 100, { profile: { kind: 'segments', segments: [{ durationHours: -2 }] } });
-    expect(first(p)![0]).toMatchObject({ elementId: 'project', field: 'backup.profile.segments.0.durationHours', value: -2 });
+    expect(first(p)![0]).toMatchObject({ elementId: PROJECT_LEVEL, field: 'backup.profile.segments.0.durationHours', value: -2 });
   });
 
   it('a peak current beyond the chemistry\u2019s max C-rate → bank.capacityAh (LiFePO4 1 C = 100 A; 6 kW at ≈ 53 V ≈ 113 A)', () => {

@@ -8,6 +8,7 @@
  * of core/solve/load-profile.ts). A case that hangs fails on the test's time limit.
  */
 import { describe, expect, it } from 'vitest';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import fc from 'fast-check';
 import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
@@ -77,7 +78,7 @@ describe('hostile backup profiles', () => {
             expect(typeof x.elementId).toBe('string');
             // A problem of the project names its field; one of an element may be the element as a whole ('').
             expect(typeof x.field).toBe('string');
-            if (x.elementId === 'project') expect(x.field.length, JSON.stringify(x)).toBeGreaterThan(0);
+            if (x.elementId === PROJECT_LEVEL) expect(x.field.length, JSON.stringify(x)).toBeGreaterThan(0);
             expect(x.message).not.toMatch(/NaN|Infinity|undefined|\[object/);
           }
           return;

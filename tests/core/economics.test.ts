@@ -2,6 +2,7 @@
 // hand-worked below each case (common practice (no source): the definition of the kWh, 1 kWh =
 // 1000 W × 1 h, and of a tariff per kWh).
 import { describe, expect, it } from 'vitest';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import fc from 'fast-check';
 import {
   checkCostSettings,
@@ -76,8 +77,8 @@ describe('cost of the losses per year', () => {
     expect(bad.ok).toBe(false);
     if (bad.ok) return;
     expect(bad.problems.map((p) => [p.elementId, p.field])).toEqual([
-      ['project', 'pricePerKWh'],
-      ['project', 'hoursPerYear'],
+      [PROJECT_LEVEL, 'pricePerKWh'],
+      [PROJECT_LEVEL, 'hoursPerYear'],
     ]);
     expect(checkCostSettings({ pricePerKWh: Number.NaN, hoursPerYear: Number.POSITIVE_INFINITY }).map((p) => p.field)).toEqual(['pricePerKWh', 'hoursPerYear']);
     // 366 × 24 = 8784 h is the longest year (a leap year): accepted; one more hour is not.

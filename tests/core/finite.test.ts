@@ -12,6 +12,7 @@ import { mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
 import { plan } from '../../core/solve/plan.ts';
@@ -132,13 +133,13 @@ describe('the final guard walks the whole result', () => {
     expect(findNonFinite(broken)).toEqual([
       { elementId: 'rect', elementName: 'Rectifier', path: ['input', 'current'], value: Number.NaN },
       { elementId: 'ld', elementName: 'Load', path: ['pIn'], value: Number.POSITIVE_INFINITY },
-      { elementId: 'project', path: ['totals', 'losses'], value: Number.NEGATIVE_INFINITY },
+      { elementId: PROJECT_LEVEL, path: ['totals', 'losses'], value: Number.NEGATIVE_INFINITY },
     ]);
     const problems = nonFiniteProblems('The solve', broken, new Map([['rect', 'Front rectifier']]));
     expect(problems.map((p) => [p.code, p.elementId, p.field])).toEqual([
       ['non-finite', 'rect', 'input.current'],
       ['non-finite', 'ld', 'pIn'],
-      ['non-finite', 'project', 'totals.losses'],
+      ['non-finite', PROJECT_LEVEL, 'totals.losses'],
     ]);
     // Users read the element's name and the field in words, not ids or file-format names.
     expect(problems[0]!.message).toContain('"Front rectifier"');
@@ -152,7 +153,7 @@ describe('the final guard walks the whole result', () => {
     const study = { steps: [{ t: 0, soc: 1 }, { t: 60, soc: Number.NaN }], devices: [{ elementId: 'brk', name: 'Main breaker', faultCurrent: Infinity }] };
     const problems = nonFiniteProblems('The study', study);
     expect(problems.map((p) => [p.elementId, p.field])).toEqual([
-      ['project', 'steps.1.soc'],
+      [PROJECT_LEVEL, 'steps.1.soc'],
       ['brk', 'faultCurrent'],
     ]);
     expect(problems[0]!.message).toContain('steps item 2 soc');

@@ -4,6 +4,7 @@
  * core/model/project.ts (quoted beside the case) or a plain physical fact (noted beside it).
  */
 import { describe, expect, it } from 'vitest';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { formatProblem, solveProject, type Problem, type ProblemCode } from '../../core/index.ts';
 
 type Json = Record<string, any>; // test fixtures are deliberately loose: they hold invalid data
@@ -76,7 +77,7 @@ function expectReadable(p: Problem) {
   expect(p.message).not.toMatch(/undefined|\[object|NaN|ZodError|^\s*$/);
   // The one-line form names the element and the field.
   const line = formatProblem(p);
-  if (p.elementId !== 'project') expect(line).toContain(`"${p.elementId}"`);
+  if (p.elementId !== PROJECT_LEVEL) expect(line).toContain(`"${p.elementId}"`);
   if (p.field) expect(line).toContain(`"${p.field}"`);
 }
 
@@ -246,7 +247,7 @@ describe('tree structure', () => {
     p.elements = p.elements.filter((e: Json) => e.id !== 'bank');
     // The three elements that were fed from the removed bank now name a missing feeder as well.
     expect(problemsOf(p).map((x) => `${x.code}:${x.elementId}:${x.field}`).sort()).toEqual([
-      'missing-source:project:elements',
+      `missing-source:${PROJECT_LEVEL}:elements`,
       'unknown-feed:conv:from',
       'unknown-feed:inv1:from',
       'unknown-feed:inv3:from',
@@ -256,7 +257,7 @@ describe('tree structure', () => {
   it('no elements at all', () => {
     const p = validProject();
     p.elements = [];
-    expectOnly(p, 'missing-source', 'project', 'elements', /source/);
+    expectOnly(p, 'missing-source', PROJECT_LEVEL, 'elements', /source/);
   });
 
   it('two sources', () => {
@@ -414,39 +415,39 @@ describe('the project file', () => {
   ])('not an object: %s', (_label, input) => {
     const problems = problemsOf(input);
     expect(problems).toHaveLength(1);
-    expect(problems[0]).toMatchObject({ code: 'invalid-value', elementId: 'project', field: '' });
+    expect(problems[0]).toMatchObject({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: '' });
     expect(problems[0]!.message).toMatch(/object/);
     expectReadable(problems[0]!);
   });
 
   it('undefined (nothing given) does not throw and is refused', () => {
-    expect(problemsOf(undefined)[0]).toMatchObject({ elementId: 'project' });
+    expect(problemsOf(undefined)[0]).toMatchObject({ elementId: PROJECT_LEVEL });
   });
 
   it('wrong format', () => {
     const p = validProject();
     p.format = 'powerchain';
-    expectOnly(p, 'invalid-value', 'project', 'format', /joulepath-project/);
+    expectOnly(p, 'invalid-value', PROJECT_LEVEL, 'format', /joulepath-project/);
   });
 
   it('wrong version', () => {
     const p = validProject();
     p.version = 0;
-    expectOnly(p, 'invalid-value', 'project', 'version', /must be 2 \(files of format 1 are brought up to date/);
+    expectOnly(p, 'invalid-value', PROJECT_LEVEL, 'version', /must be 2 \(files of format 1 are brought up to date/);
     p.version = 3;
-    expectOnly(p, 'invalid-value', 'project', 'version', /is 3: the file was written by a newer version of Joulepath/);
+    expectOnly(p, 'invalid-value', PROJECT_LEVEL, 'version', /is 3: the file was written by a newer version of Joulepath/);
   });
 
   it('elements not a list', () => {
     const p = validProject();
     p.elements = { bank: {} };
-    expectOnly(p, 'invalid-value', 'project', 'elements', /list/);
+    expectOnly(p, 'invalid-value', PROJECT_LEVEL, 'elements', /list/);
   });
 
   it('unknown top-level field', () => {
     const p = validProject();
     p.author = 'someone';
-    expectOnly(p, 'invalid-value', 'project', 'author', /unknown field/);
+    expectOnly(p, 'invalid-value', PROJECT_LEVEL, 'author', /unknown field/);
   });
 });
 

@@ -5,6 +5,7 @@ import { comparePumpControl, type PumpDutyInput } from '../../core/physics/pump-
 import { projectPumpDuty, pumpDetails } from '../../core/studies/machines/pump-duty.ts';
 import { pumpOperatingPoint } from '../../core/kinds/pump.ts';
 import type { Project, PumpLoad } from '../../core/model/project.ts';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 
 // Invented pump: Q_r = 0.05 m³/s, H_r = 30 m, H0 = 40 m, H_s = 10 m, η = 0.75, water.
 const pumpBase = { id: 'pump', kind: 'pump', from: 'motor', ratedFlow: 0.05, ratedHead: 30, shutoffHead: 40, efficiency: 0.75, staticHead: 10, flow: 0.04 } as const;
@@ -149,7 +150,7 @@ describe('projectPumpDuty: the chain\'s own pump, motor and drive', () => {
   };
   it('unknown pump id', () => {
     // The study belongs to the project: its problems name the project and the study's field (no element is "pumpDuty").
-    expect(bad({ pump: 'nope', duty })).toMatchObject([{ elementId: 'project', field: 'pumpDuty.pump', value: 'nope' }]);
+    expect(bad({ pump: 'nope', duty })).toMatchObject([{ elementId: PROJECT_LEVEL, field: 'pumpDuty.pump', value: 'nope' }]);
   });
   it('an element that is not a pump', () => {
     expect(bad({ pump: 'motor', duty })[0]!.message).toMatch(/"motor" element, not a pump/);
@@ -159,13 +160,13 @@ describe('projectPumpDuty: the chain\'s own pump, motor and drive', () => {
     expect(problems.map((p) => p.field).sort()).toEqual(['pumpDuty.duty.0.flow', 'pumpDuty.duty.1.hours']);
   });
   it('hours over 8760 in total (5000 + 4000 = 9000 h)', () => {
-    expect(bad({ pump: 'pump', duty: [{ flow: 0.03, hours: 5000 }, { flow: 0.02, hours: 4000 }] })).toMatchObject([{ elementId: 'project', field: 'pumpDuty.duty', value: 9000 }]);
+    expect(bad({ pump: 'pump', duty: [{ flow: 0.03, hours: 5000 }, { flow: 0.02, hours: 4000 }] })).toMatchObject([{ elementId: PROJECT_LEVEL, field: 'pumpDuty.duty', value: 9000 }]);
   });
   it('a flow above the pump\'s rated flow', () => {
-    expect(bad({ pump: 'pump', duty: [{ flow: 0.051, hours: 10 }] })).toMatchObject([{ elementId: 'project', field: 'pumpDuty.duty.0.flow', value: 0.051 }]);
+    expect(bad({ pump: 'pump', duty: [{ flow: 0.051, hours: 10 }] })).toMatchObject([{ elementId: PROJECT_LEVEL, field: 'pumpDuty.duty.0.flow', value: 0.051 }]);
   });
   it('no pumpDuty at all', () => {
-    expect(bad(undefined)).toMatchObject([{ elementId: 'project', field: 'pumpDuty' }]);
+    expect(bad(undefined)).toMatchObject([{ elementId: PROJECT_LEVEL, field: 'pumpDuty' }]);
   });
   it('a motor too small for the throttled peak is refused on the motor element', () => {
     const p = project({ ...pumpBase, control: 'speed' }, { pumpDuty: { pump: 'pump', duty } });

@@ -12,6 +12,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { flowGraph, lossCostPerYear, solveProject, studySurges } from '../../core/index.ts';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { machineSections } from '../../core/cli/machines-flags.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
@@ -89,7 +90,7 @@ function solvedFinite(project: { elements: readonly { id: string }[] }): boolean
     expect(findNonFinite(flowGraph(outcome.result))).toEqual([]);
     return true;
   }
-  const ids = new Set(['project', ...project.elements.map((e) => e.id)]);
+  const ids = new Set([PROJECT_LEVEL, ...project.elements.map((e) => e.id)]);
   for (const p of outcome.problems) {
     expect(ids.has(p.elementId)).toBe(true);
     expect(p.message).not.toMatch(/NaN|Infinity/);

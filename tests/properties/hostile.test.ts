@@ -7,7 +7,7 @@
  * backup study, the surge and fault study and the pump duty study where the project has them, is
  * either
  * - a clean refusal: every problem names an element of the project (its id, or "#n" for the n-th
- *   element when it has no readable id, or "project") and a field where it is about one field,
+ *   element when it has no readable id, or PROJECT_LEVEL, the project as a whole) and a field where it is about one field,
  *   with a message in words (no NaN, Infinity, undefined, [object Object]); or
  * - a result whose every number is finite and whose energy balance holds to 1e-9.
  * No case throws, and no case takes longer than CASE_BUDGET_MS (a hang is a failure, not a wait).
@@ -29,6 +29,7 @@ import { runBackupStudy } from '../../core/studies/backup/study.ts';
 import { hasSurgeInputs, studySurges } from '../../core/studies/surge/index.ts';
 import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
 import type { Problem } from '../../core/model/errors.ts';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
 import { RANGES } from '../../core/kinds/ranges.ts';
 
@@ -158,9 +159,9 @@ function mutate(project: unknown, mutations: readonly Mutation[]): Json {
 
 // ---------- what every outcome must be ----------
 
-/** Ids a problem may name: each element's id, "#n" for the n-th element, and "project". */
+/** Ids a problem may name: each element's id, "#n" for the n-th element, and PROJECT_LEVEL. */
 function namable(project: Json): Set<string> {
-  const ids = new Set(['project']);
+  const ids = new Set([PROJECT_LEVEL]);
   const elements = isRecord(project) ? project['elements'] : undefined;
   if (Array.isArray(elements)) {
     elements.forEach((e, i) => {
@@ -175,7 +176,7 @@ const isRecord = (v: unknown): boolean => typeof v === 'object' && v !== null &&
 
 /** What a problem is about: the project, the n-th element ("#n") or the element of that id. */
 function subjectOf(project: Json, elementId: string): unknown {
-  if (elementId === 'project') return project;
+  if (elementId === PROJECT_LEVEL) return project;
   const elements = isRecord(project) && Array.isArray(project['elements']) ? (project['elements'] as unknown[]) : [];
   const n = /^#(\d+)$/.exec(elementId);
   if (n) return elements[Number(n[1]) - 1];

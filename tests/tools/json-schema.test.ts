@@ -8,6 +8,7 @@ import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { spawnSync } from 'node:child_process';
 import { describe, expect, it } from 'vitest';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { Ajv, type ValidateFunction } from 'ajv';
 import { demoProjects, solveProject, validateProject } from '../../core/index.ts';
 import { KINDS } from '../../core/kinds/index.ts';
@@ -143,7 +144,7 @@ describe('$schema in a project file', () => {
     }
     const bad = validateProject({ ...demoProjects[0]!.project, $schema: 7 });
     expect(bad.ok).toBe(false);
-    if (!bad.ok) expect(bad.problems[0]).toMatchObject({ elementId: 'project', field: '$schema' });
+    if (!bad.ok) expect(bad.problems[0]).toMatchObject({ elementId: PROJECT_LEVEL, field: '$schema' });
   });
 
   it('is accepted by the page\'s import, bare and on an envelope', () => {

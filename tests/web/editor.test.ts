@@ -3,6 +3,7 @@
 // invented chains, not values from a source: common practice (no source). Powers in the solved
 // checks come from the engine itself (no hand values).
 import { beforeEach, describe, expect, it } from 'vitest';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import {
   addBranch,
   canRedo,
@@ -269,7 +270,7 @@ describe('field edits', () => {
     const before = draft.value!;
     const snapshot = structuredClone(before);
     setField('fridge', 'power', 120);
-    setField('project', 'name', 'renamed');
+    setField(PROJECT_LEVEL, 'name', 'renamed');
     const after = draft.value!;
     expect(after).not.toBe(before);
     // Unchanged stages are the same objects (memo'd views skip them); the edited one is new.

@@ -4,6 +4,7 @@
 // common practice (no source). The chains are invented test data.
 import { beforeEach, describe, expect, it } from 'vitest';
 import fc from 'fast-check';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import {
   addBranch,
   canUndo,
@@ -73,8 +74,8 @@ describe('a field edit past a limit of the project file is refused at the field'
     ['a number larger than 1e15 (SI)', 'cab', 'length', 2e15, /larger than any value in a power chain/],
     ['a negative number past -1e15', 'bank', 'voltage', -5e15, /larger than any value/],
     ['an element name of 20 001 characters', 'cab', 'name', 'x'.repeat(IMPORT_LIMITS.maxStringLength + 1), /too long.*at most 20.000 characters/],
-    ['a description of 20 001 characters', 'project', 'description', 'd'.repeat(IMPORT_LIMITS.maxStringLength + 1), /at most 20.000 characters/],
-    ['a project name of 201 characters', 'project', 'name', 'n'.repeat(201), /project name holds at most 200 characters/],
+    ['a description of 20 001 characters', PROJECT_LEVEL, 'description', 'd'.repeat(IMPORT_LIMITS.maxStringLength + 1), /at most 20.000 characters/],
+    ['a project name of 201 characters', PROJECT_LEVEL, 'name', 'n'.repeat(201), /project name holds at most 200 characters/],
     ['a network nested 40 levels deep', 'fridge', 'network', nested(40), /more than 32 levels deep/],
     ['a key of 201 characters', 'fridge', 'network', { ['k'.repeat(201)]: 1 }, /names of at most 200/],
     ['a "__proto__" key (as JSON.parse makes it)', 'fridge', 'network', JSON.parse('{"__proto__":{"resistor":"1 Ω"}}'), /"__proto__" cannot be used/],
@@ -91,7 +92,7 @@ describe('a field edit past a limit of the project file is refused at the field'
 
   it('a value at the limit is taken in and the file reads back', () => {
     expect(setField('cab', 'name', 'x'.repeat(IMPORT_LIMITS.maxStringLength))).toBeNull();
-    expect(setField('project', 'name', 'n'.repeat(IMPORT_LIMITS.maxProjectNameLength))).toBeNull();
+    expect(setField(PROJECT_LEVEL, 'name', 'n'.repeat(IMPORT_LIMITS.maxProjectNameLength))).toBeNull();
     const back = roundTrip(draft.value!);
     expect(back.ok).toBe(true);
   });
@@ -228,7 +229,7 @@ describe('export → import round-trips after any sequence of accepted edits (fa
         loadProject(chain(), { kind: 'new', title: 'fuzz' });
         for (const c of commands) {
           if (c.op === 'project') {
-            setField('project', c.path, c.value);
+            setField(PROJECT_LEVEL, c.path, c.value);
             continue;
           }
           const all = ids();

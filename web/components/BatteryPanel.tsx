@@ -14,6 +14,7 @@ import { useRef, useState } from 'preact/hooks';
 import type { BackupStudyResult } from '../../core/studies/backup/study.ts';
 import type { Derate } from '../../core/studies/backup/discharge.ts';
 import type { Problem } from '../../core/model/errors.ts';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { useWorkerReply } from './panel-client.ts';
 import {
   formatCurrent,
@@ -63,17 +64,17 @@ interface FieldProps {
 function StudyField({ project, path, label, quantity, hint, units, locale, testId }: FieldProps) {
   const [text, setText] = useState<string | null>(null);
   const stored = getAt(project, path);
-  const error = fieldError('project', path);
+  const error = fieldError(PROJECT_LEVEL, path);
   const id = `study-${path.replace(/\W+/g, '-')}`;
   const unit = inputUnit(quantity, units).symbol;
   const commit = (value: string) => {
     setText(value);
     const read = readNumberField(value, { label, quantity, required: false }, units, locale);
     if (!read.ok) {
-      setFieldError('project', path, read.message);
+      setFieldError(PROJECT_LEVEL, path, read.message);
       return;
     }
-    setField('project', path, read.value, `Backup study: ${label.toLowerCase()}`);
+    setField(PROJECT_LEVEL, path, read.value, `Backup study: ${label.toLowerCase()}`);
   };
   return (
     <StudyInput
@@ -85,7 +86,7 @@ function StudyField({ project, path, label, quantity, hint, units, locale, testI
       message={error}
       onText={commit}
       onLeave={() => {
-        if (!fieldError('project', path)) setText(null);
+        if (!fieldError(PROJECT_LEVEL, path)) setText(null);
       }}
       testId={testId}
     />
@@ -105,7 +106,7 @@ function DesignChoice({ project }: { project: DraftProject }) {
         id="study-backup-design"
         class="study-field__input"
         value={value}
-        onChange={(e) => setField('project', 'backup.design', (e.currentTarget as HTMLSelectElement).value, 'Backup study: design')}
+        onChange={(e) => setField(PROJECT_LEVEL, 'backup.design', (e.currentTarget as HTMLSelectElement).value, 'Backup study: design')}
         data-testid="battery-design"
       >
         <option value="backup">Backup (to the end voltage)</option>
@@ -471,7 +472,7 @@ export default function BatteryPanel() {
     reply?.kind === 'battery' && !reply.outcome.ok
       ? reply.outcome.problems
       : reply?.kind === 'crash'
-        ? [{ code: 'invalid-value', elementId: 'project', field: '', message: reply.message }]
+        ? [{ code: 'invalid-value', elementId: PROJECT_LEVEL, field: '', message: reply.message }]
         : [];
 
   if (!project) return null;

@@ -5,6 +5,7 @@
  */
 import { useEffect, useState } from 'preact/hooks';
 import type { Problem } from '../../core/model/errors.ts';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { fieldWords } from '../../core/solve/finite.ts';
 
 type FieldsModule = typeof import('../editor/fields.ts');
@@ -39,7 +40,7 @@ function elementInfo(elements: readonly unknown[] | undefined): Map<string, Elem
 /** The form label of the longest path of the element's form that the field starts with, then the rest in words. */
 function fieldLabel(fields: FieldsModule | undefined, kind: string | undefined, elementId: string, field: string): string {
   const parts = field.split('.');
-  const specs = fields ? (elementId === 'project' ? fields.allFields(fields.PROJECT_FIELDS) : kind ? fields.allFields(fields.formFor(kind)?.fields ?? []) : []) : [];
+  const specs = fields ? (elementId === PROJECT_LEVEL ? fields.allFields(fields.PROJECT_FIELDS) : kind ? fields.allFields(fields.formFor(kind)?.fields ?? []) : []) : [];
   for (let n = parts.length; n > 0; n--) {
     const path = parts.slice(0, n).join('.');
     const spec = specs.find((f) => f.type !== 'group' && f.path === path);
@@ -71,7 +72,7 @@ export function ProblemList({ problems, elements }: { problems: readonly Problem
           return (
             <li key={`${p.elementId}-${p.field}-${i}`} class="problem" data-problem-code={p.code} data-element-id={p.elementId} data-field={p.field}>
               <p class="problem__where">
-                {p.elementId === 'project' ? 'Project' : <>Element <strong>{el?.name ?? p.elementId}</strong></>}
+                {p.elementId === PROJECT_LEVEL ? 'Project' : <>Element <strong>{el?.name ?? p.elementId}</strong></>}
                 {p.field && (
                   <>
                     {' · '}

@@ -1,9 +1,10 @@
 /**
  * The project's own settings: name, description and the voltage-drop limits the whole-path check
- * flags against. Written with setField('project', path, value), checked by the engine like any field.
+ * flags against. Written with setField(PROJECT_LEVEL, path, value), checked by the engine like any field.
  */
 import './StageForm.css';
 import { draft } from '../state/editor.ts';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { PROJECT_FIELDS, type FormElement } from '../editor/fields.ts';
 import { FieldList } from './fields/FieldList.tsx';
 
@@ -15,7 +16,7 @@ export function ProjectForm() {
       <h3 id="sf-project-heading" class="sform__title">
         Project settings
       </h3>
-      <FieldList owner={{ id: 'project', data: project as FormElement }} fields={PROJECT_FIELDS} />
+      <FieldList owner={{ id: PROJECT_LEVEL, data: project as FormElement }} fields={PROJECT_FIELDS} />
     </form>
   );
 }

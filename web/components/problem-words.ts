@@ -3,10 +3,11 @@
  * the field in words (form labels need the editor's field list: see ProblemList), then the message.
  */
 import type { Problem } from '../../core/model/errors.ts';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { elementNames, fieldWords } from '../../core/solve/finite.ts';
 
 export function problemLine(p: Problem, project: unknown): string {
-  const where = p.elementId === 'project' ? '' : (elementNames(project).get(p.elementId) ?? p.elementId);
+  const where = p.elementId === PROJECT_LEVEL ? '' : (elementNames(project).get(p.elementId) ?? p.elementId);
   const field = p.field ? fieldWords(p.field.split('.')) : '';
   const head = [where, field && (where ? `(${field})` : field)].filter(Boolean).join(' ');
   return head ? `${head}: ${p.message}` : p.message;

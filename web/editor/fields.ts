@@ -1365,7 +1365,7 @@ function basisOnly(p: FormElement): DropLimits {
   return DROP_BASES.some((b) => b.value === basis) ? { basis: basis as NonNullable<DropLimits['basis']> } : {};
 }
 
-/** The project-level form: written with setField('project', path, value). */
+/** The project-level form: written with setField(PROJECT_LEVEL, path, value). */
 export const PROJECT_FIELDS: readonly FieldSpec[] = [
   { type: 'text', path: 'name', label: 'Project name', required: true },
   { type: 'text', path: 'description', label: 'Description', required: false, multiline: true, help: 'Site, purpose, anything the client report should say.' },

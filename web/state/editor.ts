@@ -18,6 +18,7 @@
 import { batch, computed, effect, signal } from '@preact/signals';
 import { solveProject, validateProject, type SolveOutcome } from '../../core/solve/index.ts';
 import type { Problem } from '../../core/model/errors.ts';
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import type { SolveResult } from '../../core/model/result.ts';
 import { PROJECT_VERSION } from '../../core/model/migrate.ts';
 import { DEPTH_IN_FILE, ENVELOPE_VALUES, FILE_LIMITS, limitWords, scanLimits, withSuffix, type LimitIssue } from '../storage/limits.ts';
@@ -279,16 +280,16 @@ const pathWords = (path: (string | number)[]) => path.join('.');
  */
 export function draftLimitIssue(project: DraftProject): DraftLimitIssue | null {
   if (project.elements.length > FILE_LIMITS.maxElements) {
-    return { elementId: 'project', path: 'elements', issue: { kind: 'elements' }, where: '', words: elementsWords(project.elements.length) };
+    return { elementId: PROJECT_LEVEL, path: 'elements', issue: { kind: 'elements' }, where: '', words: elementsWords(project.elements.length) };
   }
   const { elements, ...own } = project;
   const ownScan = scanLimits(own, { depth: DEPTH_IN_FILE.project });
   if (ownScan.issue) {
-    return { elementId: 'project', path: pathWords(ownScan.issue.path), issue: ownScan.issue, where: '', words: limitWords(ownScan.issue) };
+    return { elementId: PROJECT_LEVEL, path: pathWords(ownScan.issue.path), issue: ownScan.issue, where: '', words: limitWords(ownScan.issue) };
   }
   if (typeof project.name === 'string' && project.name.length > FILE_LIMITS.maxProjectNameLength) {
     const issue = { kind: 'project-name', length: project.name.length } as const;
-    return { elementId: 'project', path: 'name', issue, where: '', words: `a project name holds at most ${FILE_LIMITS.maxProjectNameLength} characters (this one has ${project.name.length})` };
+    return { elementId: PROJECT_LEVEL, path: 'name', issue, where: '', words: `a project name holds at most ${FILE_LIMITS.maxProjectNameLength} characters (this one has ${project.name.length})` };
   }
   let count = ENVELOPE_VALUES + ownScan.count;
   for (const e of elements) {
@@ -304,7 +305,7 @@ export function draftLimitIssue(project: DraftProject): DraftLimitIssue | null {
   }
   if (count > FILE_LIMITS.maxValues) {
     const issue: LimitIssue = { kind: 'count', path: [] };
-    return { elementId: 'project', path: '', issue, where: '', words: limitWords(issue) };
+    return { elementId: PROJECT_LEVEL, path: '', issue, where: '', words: limitWords(issue) };
   }
   return null;
 }
@@ -379,7 +380,7 @@ export function problemsForField(project: DraftProject, elementId: string, path:
 }
 
 /**
- * Set one field of one element (or of the project, with elementId "project") — the way every form
+ * Set one field of one element (or of the project, with elementId PROJECT_LEVEL) — the way every form
  * field writes. The candidate is checked by the engine's validation first: if the engine rejects this
  * field, the draft is left as it was, the message is kept at the field and returned. `undefined`
  * clears an optional field.
@@ -392,7 +393,7 @@ export function setField(elementId: string, path: string, value: unknown, label?
   // sees the same object and skips its work.
   let candidate: DraftProject;
   let target: Record<string, unknown>;
-  if (elementId === 'project') {
+  if (elementId === PROJECT_LEVEL) {
     const { elements, ...own } = current;
     candidate = { ...clone(own), elements } as DraftProject;
     target = candidate as Record<string, unknown>;
@@ -421,7 +422,7 @@ export function setField(elementId: string, path: string, value: unknown, label?
     return message;
   }
   setFieldError(elementId, path, null);
-  const name = elementId === 'project' ? 'project' : elementName(current, elementId);
+  const name = elementId === PROJECT_LEVEL ? 'project' : elementName(current, elementId);
   commit(current, candidate, label ?? `${name}: ${path}`, { coalesce: fieldKey(elementId, path) });
   return null;
 }

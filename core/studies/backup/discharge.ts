@@ -31,6 +31,7 @@ import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, type
 import type { BackupStudy, BatterySource, Element, Project } from '../../model/project.ts';
 import type { ElementResult } from '../../model/result.ts';
 import type { Problem } from '../../model/errors.ts';
+import { PROJECT_LEVEL } from '../../model/errors.ts';
 import { validateProject } from '../../solve/validate.ts';
 import { solveProject } from '../../solve/index.ts';
 import { prepareRepeat, type StepPoint } from '../../solve/repeat.ts';
@@ -185,9 +186,9 @@ export function simulateDischarge(input: unknown): DischargeOutcome {
   const study = project.backup;
   const source = project.elements.find((e): e is BatterySource => e.kind === 'battery');
   const problems: Problem[] = [];
-  if (!study) problems.push({ code: 'invalid-value', elementId: 'project', field: 'backup', message: 'is required for a runtime study (profile, time step, temperature …)' });
+  if (!study) problems.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'backup', message: 'is required for a runtime study (profile, time step, temperature …)' });
   if (!source) {
-    problems.push({ code: 'invalid-value', elementId: 'project', field: 'elements', message: 'a runtime study needs a battery as the chain\u2019s source' });
+    problems.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'elements', message: 'a runtime study needs a battery as the chain\u2019s source' });
   } else if (!source.bank) {
     problems.push({ code: 'invalid-value', elementId: source.id, field: 'bank', message: 'is required for a runtime study (chemistry, cells in series, strings, capacity)' });
   }
@@ -233,7 +234,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
         problems: [
           {
             code: 'invalid-value',
-            elementId: 'project',
+            elementId: PROJECT_LEVEL,
             field: 'backup.timeStepSeconds',
             value: step,
             message: `this chain must be solved whole at every step (a load whose draw follows the bank voltage, given by its current or as a circuit, sits on the cables next to the bank), and ${count(steps)} steps × ${fixed.elements.length} elements passes the study's limit of ${count(MAX_WHOLE_CHAIN_WORK)} element solves: use a time step of at least ${longest} s or a shorter horizon`,
@@ -245,7 +246,7 @@ function discharge(project: Project, study: BackupStudy, source: BatterySource):
   const temperatureC = study.temperatureC ?? 25;
   const temp = capacityFactorAt(v.capacityVsTemperature, temperatureC);
   if (temp.refused !== undefined) {
-    return { ok: false, problems: [{ code: 'outside-table', elementId: 'project', field: 'backup.temperatureC', value: temperatureC, message: temp.refused }] };
+    return { ok: false, problems: [{ code: 'outside-table', elementId: PROJECT_LEVEL, field: 'backup.temperatureC', value: temperatureC, message: temp.refused }] };
   }
   const design: BankDesign = study.design ?? 'backup';
   const dodApplies = depthOfDischargeApplies(bank.chemistry, design);

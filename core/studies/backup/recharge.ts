@@ -28,298 +28,37 @@
  * Generator fuel for the recharge (AC energy × a set's specific consumption) is left for a later
  * issue; the AC input energy here is its input.
  */
-import type { Chemistry, ChemistryPreset, ChemistryValues } from '../../data/battery-chemistries.ts';
-import type { Problem } from '../../model/errors.ts';
-import { problem, resolvePreset } from './sizing.ts';
-import { isLithium, rechargeCautions } from './cautions.ts';
+import { problem } from './sizing-input.ts';
+import { rechargeCautions } from './cautions.ts';
+import { checkBase, isFiniteNumber } from './recharge-input.ts';
+import {
+  fmt,
+  type ChargerForTimeInput,
+  type ChargerOutcome,
+  type Model,
+  type Recharge,
+  type RechargeInput,
+  type RechargeOutcome,
+  type RechargeStep,
+} from './recharge-types.ts';
 
-/** How a chemistry charges (common practice, no single source; override from the charger maker). */
-export interface ChargeProfile {
-  /** State of charge at which the CC stage hands over to CV when charged at `referenceCRate`, 0…1. */
-  cvTransitionSoc: number;
-  /** Charge rate at which `cvTransitionSoc` holds, C-rate (1/h). */
-  referenceCRate: number;
-  /** Bank current at which the CV stage ends, C-rate (1/h). */
-  terminationCRate: number;
-  /** Coulombic charge efficiency (Ah stored ÷ Ah put in), 0…1. */
-  chargeEfficiency: number;
-}
-
-/**
- * Defaults per chemistry — common practice (no source):
- * lead-acid reaches its absorption voltage at about 80 % when charged at C/10 and is treated as
- * charged when the absorption current falls to 2 % of C; LiFePO4 holds CC to about 95 % at 0.5C
- * and terminates at 0.05C; NMC hands over near 80 % at 0.5C; vented NiCd about 80 % at 0.2C.
- * Coulombic efficiency: flooded 0.85, VRLA 0.90, lithium 0.99, NiCd 0.75 (NiCd makers ask for
- * 120–140 % charge input).
- */
-export const CHARGE_PROFILES: Readonly<Record<Chemistry, ChargeProfile>> = {
-  'flooded-lead-acid': { cvTransitionSoc: 0.8, referenceCRate: 0.1, terminationCRate: 0.02, chargeEfficiency: 0.85 },
-  'vrla-agm': { cvTransitionSoc: 0.8, referenceCRate: 0.1, terminationCRate: 0.02, chargeEfficiency: 0.9 },
-  gel: { cvTransitionSoc: 0.8, referenceCRate: 0.1, terminationCRate: 0.02, chargeEfficiency: 0.9 },
-  lifepo4: { cvTransitionSoc: 0.95, referenceCRate: 0.5, terminationCRate: 0.05, chargeEfficiency: 0.99 },
-  nmc: { cvTransitionSoc: 0.8, referenceCRate: 0.5, terminationCRate: 0.05, chargeEfficiency: 0.99 },
-  nicd: { cvTransitionSoc: 0.8, referenceCRate: 0.2, terminationCRate: 0.02, chargeEfficiency: 0.75 },
-};
-
-/** Charger AC→DC efficiency when none is given: common practice (switch-mode chargers 0.85–0.95). */
-export const DEFAULT_CHARGER_EFFICIENCY = 0.9;
-
-/** The standing load during the recharge, at the bank: a current, or a power (W). */
-export type StandingLoad = { current: number } | { power: number };
-
-/**
- * Where each input lives in the project, for problem messages. Defaults follow the project model
- * (`bank.*` of the battery element, `backup.*` of the study); pass a map to change them.
- */
-export interface RechargeFieldPaths {
-  chemistry: string;
-  overrides: string;
-  capacity: string;
-  seriesCells: string;
-  startSoc: string;
-  targetSoc: string;
-  chargerCurrent: string;
-  chargerEfficiency: string;
-  chargeProfile: string;
-  standingLoad: string;
-  temperature: string;
-  targetTime: string;
-}
-
-export interface RechargeBase {
-  /** Element id used in problems: the battery's id, or "project" (default). */
-  elementId?: string;
-  chemistry: string;
-  overrides?: Partial<ChemistryValues>;
-  /** Bank rated capacity (all strings), Ah. */
-  capacity: number;
-  /** Cells in series (for voltages and a load given in W). */
-  seriesCells: number;
-  /** State of charge at the start of the recharge (the end of the outage), 0…1. */
-  startSoc: number;
-  /** State of charge to recharge to; default the state at which the CV stage terminates. */
-  targetSoc?: number;
-  /** Charger AC→DC efficiency, 0…1 (default 0.9, common practice). */
-  chargerEfficiency?: number;
-  /** Chemistry charge behaviour, overriding CHARGE_PROFILES. */
-  chargeProfile?: Partial<ChargeProfile>;
-  /** Load carried by the charger while it recharges; default none. */
-  standingLoad?: StandingLoad;
-  /** Cell temperature during the recharge, °C (default 25). */
-  temperature?: number;
-  fields?: Partial<RechargeFieldPaths>;
-}
-
-export interface RechargeInput extends RechargeBase {
-  /** Charger DC output current rating, A. */
-  chargerCurrent: number;
-}
-
-export interface ChargerForTimeInput extends RechargeBase {
-  /** Time to recharge within, s. */
-  targetTime: number;
-}
-
-export interface RechargeStep {
-  label: string;
-  value: number;
-  unit: string;
-  note: string;
-}
-
-export interface Recharge {
-  /** Total time, s. */
-  time: number;
-  /** Constant-current stage, s. */
-  constantCurrentTime: number;
-  /** Constant-voltage (taper) stage, s. */
-  constantVoltageTime: number;
-  startSoc: number;
-  /** State of charge at which CC hands over to CV for this charger (≤ start when none). */
-  transitionSoc: number;
-  /** State of charge reached. */
-  endSoc: number;
-  chargerCurrent: number;
-  /** Standing-load current carried by the charger, A. */
-  loadCurrent: number;
-  /** Current into the bank during the CC stage, A. */
-  bankCurrent: number;
-  /** Bank current at the end of the CV stage, A. */
-  endCurrent: number;
-  /** CV time constant τ, s. */
-  timeConstant: number;
-  /** Charge put into the bank, Ah (before the coulombic loss). */
-  chargeIn: number;
-  /** Largest AC input power of the charger (CC stage, at the charge voltage), W. */
-  acInputPower: number;
-  /** AC energy drawn by the charger over the recharge (upper bound), Wh. */
-  acInputEnergyWh: number;
-  steps: RechargeStep[];
-  warnings: string[];
-  cautions: string[];
-}
-
-export type RechargeOutcome = { ok: true; recharge: Recharge } | { ok: false; problems: Problem[] };
-
-export interface ChargerSizing {
-  /** Smallest charger DC current that recharges within the target time, A. */
-  chargerCurrent: number;
-  /** The recharge with that charger. */
-  recharge: Recharge;
-  steps: RechargeStep[];
-}
-
-export type ChargerOutcome = { ok: true; charger: ChargerSizing } | { ok: false; problems: Problem[] };
-
-const DEFAULT_FIELDS: RechargeFieldPaths = {
-  chemistry: 'bank.chemistry',
-  overrides: 'bank.overrides',
-  capacity: 'bank.capacityAh',
-  seriesCells: 'bank.series',
-  startSoc: 'backup.startSoc',
-  targetSoc: 'backup.targetSoc',
-  chargerCurrent: 'backup.chargerCurrent',
-  chargerEfficiency: 'backup.chargerEfficiency',
-  chargeProfile: 'backup.chargeProfile',
-  standingLoad: 'backup.profile',
-  temperature: 'backup.temperatureC',
-  targetTime: 'backup.targetRechargeHours',
-};
-
-
-const isFiniteNumber = (x: unknown): x is number => typeof x === 'number' && Number.isFinite(x);
-
-/** The checked model constants (hours and Ah inside; results converted to s). */
-interface Model {
-  preset: ChemistryPreset;
-  /** The maximum charge rate in the user's words: the maker's figure as given, or a typical value. */
-  chargeRateSource: string;
-  profile: ChargeProfile;
-  fields: RechargeFieldPaths;
-  elementId: string;
-  capacity: number;
-  startSoc: number;
-  chargerEfficiency: number;
-  loadCurrent: number;
-  /** τ, h. */
-  tau: number;
-  /** Bank current ceiling from the maximum charge C-rate, A. */
-  maxBankCurrent: number;
-  terminationCurrent: number;
-  /** State of charge the recharge ends at. */
-  endSoc: number;
-  /** Charge voltage of the bank, V. */
-  chargeVoltage: number;
-  nominalVoltage: number;
-}
-
-function checkBase(input: RechargeBase): { ok: true; m: Model } | { ok: false; problems: Problem[] } {
-  const elementId = input.elementId ?? 'project';
-  const fields: RechargeFieldPaths = { ...DEFAULT_FIELDS, ...(input.fields ?? {}) };
-  const resolved = resolvePreset(input.chemistry, input.overrides, elementId, fields.chemistry, fields.overrides);
-  if (!resolved.ok) return resolved;
-  const preset = resolved.preset;
-  const out: Problem[] = [];
-  const bad = (field: string, value: unknown, message: string) => out.push(problem('invalid-value', elementId, field, value, message));
-
-  if (!isFiniteNumber(input.capacity) || input.capacity <= 0) bad(fields.capacity, input.capacity, 'bank capacity must be greater than 0 Ah');
-  if (!Number.isInteger(input.seriesCells) || input.seriesCells < 1) bad(fields.seriesCells, input.seriesCells, 'cells in series must be a whole number of at least 1');
-  if (!isFiniteNumber(input.startSoc) || input.startSoc < 0 || input.startSoc > 1) bad(fields.startSoc, input.startSoc, 'state of charge must be between 0 and 1');
-  const chargerEfficiency = input.chargerEfficiency ?? DEFAULT_CHARGER_EFFICIENCY;
-  if (!isFiniteNumber(chargerEfficiency) || chargerEfficiency <= 0 || chargerEfficiency > 1) {
-    bad(fields.chargerEfficiency, chargerEfficiency, 'charger efficiency must be greater than 0 and at most 1');
-  }
-  const profile: ChargeProfile = { ...CHARGE_PROFILES[preset.chemistry], ...(input.chargeProfile ?? {}) };
-  const pf = (name: keyof ChargeProfile) => `${fields.chargeProfile}.${name}`;
-  if (!isFiniteNumber(profile.cvTransitionSoc) || profile.cvTransitionSoc <= 0 || profile.cvTransitionSoc >= 1) {
-    bad(pf('cvTransitionSoc'), profile.cvTransitionSoc, 'CV transition state of charge must be between 0 and 1 (exclusive)');
-  }
-  if (!isFiniteNumber(profile.referenceCRate) || profile.referenceCRate <= 0) bad(pf('referenceCRate'), profile.referenceCRate, 'reference charge rate must be greater than 0 C');
-  if (!isFiniteNumber(profile.terminationCRate) || profile.terminationCRate <= 0) {
-    bad(pf('terminationCRate'), profile.terminationCRate, 'termination current must be greater than 0 C');
-  } else if (isFiniteNumber(profile.referenceCRate) && profile.terminationCRate >= profile.referenceCRate) {
-    bad(pf('terminationCRate'), profile.terminationCRate, `termination current must be below the reference charge rate (${profile.referenceCRate} C)`);
-  }
-  if (!isFiniteNumber(profile.chargeEfficiency) || profile.chargeEfficiency <= 0 || profile.chargeEfficiency > 1) {
-    bad(pf('chargeEfficiency'), profile.chargeEfficiency, 'charge efficiency must be greater than 0 and at most 1');
-  }
-  const temperature = input.temperature ?? 25;
-  if (!isFiniteNumber(temperature)) {
-    bad(fields.temperature, temperature, 'temperature must be a number (°C)');
-  } else if (temperature < preset.minChargeTemperatureC) {
-    out.push(
-      problem(
-        'charge-too-cold',
-        elementId,
-        fields.temperature,
-        temperature,
-        isLithium(preset.chemistry)
-          ? `${preset.label} must not be charged below ${preset.minChargeTemperatureC} °C (lithium plating damages the cells and can make them unsafe): warm the cells or hold the charger off with a temperature cut-out`
-          : `${preset.label} must not be charged below ${preset.minChargeTemperatureC} °C`,
-      ),
-    );
-  }
-  let loadCurrent = 0;
-  const nominalVoltage = (Number.isInteger(input.seriesCells) ? input.seriesCells : 0) * preset.nominalCellVoltage;
-  if (input.standingLoad !== undefined) {
-    const l = input.standingLoad;
-    if ('current' in l) {
-      if (!isFiniteNumber(l.current) || l.current < 0) bad(fields.standingLoad, l.current, 'standing load must be at least 0 A');
-      else loadCurrent = l.current;
-    } else if ('power' in l) {
-      if (!isFiniteNumber(l.power) || l.power < 0) bad(fields.standingLoad, l.power, 'standing load must be at least 0 W');
-      else if (nominalVoltage > 0) loadCurrent = l.power / nominalVoltage;
-    } else {
-      bad(fields.standingLoad, l, 'standing load must give a current (A) or a power (W)');
-    }
-  }
-  if (out.length > 0) return { ok: false, problems: out };
-
-  const C = input.capacity;
-  const eta = profile.chargeEfficiency;
-  const tau = (1 - profile.cvTransitionSoc) / (eta * profile.referenceCRate);
-  const terminationCurrent = profile.terminationCRate * C;
-  const terminationSoc = 1 - (eta * terminationCurrent * tau) / C;
-  const targetSoc = input.targetSoc ?? terminationSoc;
-  if (!isFiniteNumber(targetSoc) || targetSoc <= 0) {
-    return { ok: false, problems: [problem('invalid-value', elementId, fields.targetSoc, targetSoc, 'target state of charge must be greater than 0')] };
-  }
-  if (targetSoc > terminationSoc + 1e-12) {
-    return {
-      ok: false,
-      problems: [
-        problem(
-          'not-achievable',
-          elementId,
-          fields.targetSoc,
-          targetSoc,
-          `the charge terminates at ${pct(terminationSoc)} (bank current down to ${profile.terminationCRate} C); a target of ${pct(targetSoc)} is reached only on float — lower the target or the termination current`,
-        ),
-      ],
-    };
-  }
-  return {
-    ok: true,
-    m: {
-      preset,
-      chargeRateSource: input.overrides?.maxChargeCRate !== undefined ? 'maker\u2019s figure, as given' : 'typical value: use the maker\u2019s figure',
-      profile,
-      fields,
-      elementId,
-      capacity: C,
-      startSoc: input.startSoc,
-      chargerEfficiency,
-      loadCurrent,
-      tau,
-      maxBankCurrent: preset.maxChargeCRate * C,
-      terminationCurrent,
-      endSoc: targetSoc,
-      chargeVoltage: input.seriesCells * preset.chargeCellVoltage,
-      nominalVoltage,
-    },
-  };
-}
+// The types, charge profiles and defaults live in recharge-types.ts, the input checks in
+// recharge-input.ts; re-exported here so importers keep one entry (this file).
+export {
+  CHARGE_PROFILES,
+  DEFAULT_CHARGER_EFFICIENCY,
+  type ChargeProfile,
+  type ChargerForTimeInput,
+  type ChargerOutcome,
+  type ChargerSizing,
+  type Recharge,
+  type RechargeBase,
+  type RechargeFieldPaths,
+  type RechargeInput,
+  type RechargeOutcome,
+  type RechargeStep,
+  type StandingLoad,
+} from './recharge-types.ts';
 
 /** Time figures (h) for a net bank current I_n (A): the closed forms of the header. */
 function stages(m: Model, bankCurrent: number) {
@@ -486,10 +225,3 @@ export function chargerForTargetTime(input: ChargerForTimeInput): ChargerOutcome
   return { ok: true, charger: { chargerCurrent: current, recharge: build(m, current), steps } };
 }
 
-/** For messages only. */
-function fmt(x: number): string {
-  return String(Number(x.toPrecision(4)));
-}
-function pct(x: number): string {
-  return `${fmt(100 * x)} %`;
-}

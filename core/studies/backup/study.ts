@@ -7,6 +7,7 @@
  */
 import type { BackupStudy, BatteryBankSpec } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
+import { PROJECT_LEVEL } from '../../model/errors.ts';
 import { simulateDischarge, type DischargeResult } from './discharge.ts';
 import { MAX_REPEATED_PERIODS, repeatedPeriods, sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
 import { MAX_HORIZON_H, count } from '../../solve/load-profile.ts';
@@ -92,7 +93,7 @@ function tooShortForTarget(run: DischargeResult, study: BackupStudy): Problem {
   const lasted = `the outage the study simulates lasts ${Number((run.runtimeSeconds / 3600).toPrecision(3))} h`;
   // (a run of no time at all gives no periods to repeat: the same refusal)
   const repeat = `repeated to the target runtime of ${study.targetRuntimeHours} h it would give more than ${count(MAX_REPEATED_PERIODS)} periods`;
-  const at = (field: string, value: unknown, what: string, fix: string): Problem => ({ code: 'invalid-value', elementId: 'project', field, value, message: `${lasted} (${what}); ${repeat}: ${fix}` });
+  const at = (field: string, value: unknown, what: string, fix: string): Problem => ({ code: 'invalid-value', elementId: PROJECT_LEVEL, field, value, message: `${lasted} (${what}); ${repeat}: ${fix}` });
   if (run.endReason === 'horizon') return at('backup.horizonHours', study.horizonHours, 'the horizon', 'give a horizon at least as long as the target runtime');
   if (run.endReason === 'profile-complete') return at('backup.profile', study.profile.kind, 'the profile, run once', 'give a profile as long as the target runtime, or let it repeat');
   return at('backup.targetRuntimeHours', study.targetRuntimeHours, run.endText, 'check the bank and the chain, or give a shorter target runtime');

@@ -17,6 +17,7 @@
  * a throttled pump fed through a drive.
  */
 import type { Problem } from '../../model/errors.ts';
+import { PROJECT_LEVEL } from '../../model/errors.ts';
 import type { DriveStage, DriveStandardLoss, Element, MotorStage, Project, PumpLoad } from '../../model/project.ts';
 import { validateProject } from '../../solve/validate.ts';
 import { motorPowerFactorAt } from '../../kinds/motor.ts';
@@ -107,7 +108,7 @@ const STUDY = 'pumpDuty';
  */
 const studyProblem = (field: string, value: unknown, message: string): Problem => ({
   code: 'invalid-value',
-  elementId: 'project',
+  elementId: PROJECT_LEVEL,
   field: `${STUDY}${field ? `.${field.replace(/\[(\d+)\]/g, '.$1')}` : ''}`,
   value,
   message,
@@ -119,7 +120,7 @@ export function projectPumpDuty(input: unknown): PumpDutyOutcome {
   if (!valid.ok) return { ok: false, problems: valid.problems };
   const project = valid.project;
   const study = project.pumpDuty;
-  if (study === undefined) return { ok: false, problems: [{ code: 'invalid-value', elementId: 'project', field: STUDY, message: 'is required for a pump duty study ({ pump, duty })' }] };
+  if (study === undefined) return { ok: false, problems: [{ code: 'invalid-value', elementId: PROJECT_LEVEL, field: STUDY, message: 'is required for a pump duty study ({ pump, duty })' }] };
   const elements = byId(project);
   const pump = elements.get(study.pump);
   if (!pump) return { ok: false, problems: [studyProblem('pump', study.pump, `names no element of the project (give the id of a pump element)`)] };

@@ -24,6 +24,7 @@
  */
 import type { Element, NetworkLoad, Project } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
+import { PROJECT_LEVEL } from '../../model/errors.ts';
 import type { ElementResult, PortResult, SolveResult } from '../../model/result.ts';
 import { solveProject, validateProject } from '../../solve/index.ts';
 import type { NetworkConnection } from '../../physics/network.ts';
@@ -172,9 +173,9 @@ const fromPort = (port: PortResult): InterfaceState => ({
 const problem = (code: Problem['code'], elementId: string, field: string, value: unknown, message: string): Problem => ({ code, elementId, field, value, message });
 
 function checkRequest(r: PfCorrectionRequest): Problem[] {
-  const id = typeof r.at === 'string' && r.at !== '' ? r.at : 'project';
+  const id = typeof r.at === 'string' && r.at !== '' ? r.at : PROJECT_LEVEL;
   const out: Problem[] = [];
-  if (typeof r.at !== 'string' || r.at === '') out.push(problem('invalid-value', 'project', 'at', r.at, 'must name the element whose interface is corrected'));
+  if (typeof r.at !== 'string' || r.at === '') out.push(problem('invalid-value', PROJECT_LEVEL, 'at', r.at, 'must name the element whose interface is corrected'));
   const t = r.targetPowerFactor;
   if (typeof t !== 'number' || !Number.isFinite(t)) out.push(problem('invalid-value', id, 'targetPowerFactor', t, 'must be a number'));
   else if (t <= 0) out.push(problem('invalid-value', id, 'targetPowerFactor', t, 'must be greater than 0'));

@@ -4,11 +4,12 @@
  * tie the label, the help line and the message to the control.
  */
 import type { ComponentChildren } from 'preact';
+import { PROJECT_LEVEL } from '../../../core/model/errors.ts';
 import { draft, draftProblems, edit, elementName, fieldErrors, fieldError, setFieldError, type DraftProject } from '../../state/editor.ts';
 import { messageForField, type FormElement } from '../../editor/fields.ts';
 import type { Quantity } from '../../format/parse.ts';
 
-/** Which object a field belongs to: an element id, or "project" for project-level fields. */
+/** Which object a field belongs to: an element id, or PROJECT_LEVEL for project-level fields. */
 export interface FieldOwner {
   id: string;
   /** The element's (or project's) data as it stands in the draft. */
@@ -47,7 +48,7 @@ export function clearFieldErrors(owner: string, prefix: string): void {
 /** The name used in undo labels. */
 export function ownerName(owner: string): string {
   const p = draft.value;
-  if (owner === 'project' || !p) return 'Project';
+  if (owner === PROJECT_LEVEL || !p) return 'Project';
   return elementName(p, owner);
 }
 
@@ -57,7 +58,7 @@ export function ownerName(owner: string): string {
  */
 export function editOwner(owner: string, label: string, change: (data: FormElement) => void): string | null {
   return edit(`${ownerName(owner)}: ${label}`, (p: DraftProject) => {
-    const target = owner === 'project' ? (p as FormElement) : p.elements.find((e) => e.id === owner);
+    const target = owner === PROJECT_LEVEL ? (p as FormElement) : p.elements.find((e) => e.id === owner);
     if (target) change(target as FormElement);
   });
 }

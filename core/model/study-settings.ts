@@ -1,0 +1,103 @@
+/**
+ * The file format, part 7: the project-level study settings — pump duty, voltage-drop limits, the
+ * battery backup study and its load profile.
+ */
+
+/** The pump element to study and its duty: flow (m³/s) and hours per year at that flow. */
+export interface PumpDutyStudy {
+  pump: string;
+  duty: { flow: number; hours: number }[];
+}
+
+/**
+ * Voltage-drop limits, % of the voltage where the path starts. `basis` picks a published set;
+ * `perLinkPercent` / `totalPercent` override it.
+ * - "nec-informational": 3 % per link, 5 % total (NEC 210.19(A) IN No. 3, 215.2(A) IN No. 2;
+ *   informational notes, not enforceable on their own).
+ * - "iec-a-lighting" 3 %, "iec-a-other" 5 %, "iec-b-lighting" 6 %, "iec-b-other" 8 % total
+ *   (IEC 60364-5-52:2009 Annex G, Table G.52.1, informative; A = supplied from a public LV network,
+ *   B = from a private supply).
+ */
+export interface DropLimits {
+  basis?: 'nec-informational' | 'iec-a-lighting' | 'iec-a-other' | 'iec-b-lighting' | 'iec-b-other';
+  perLinkPercent?: number;
+  totalPercent?: number;
+}
+
+/**
+ * How one load is set during a profile segment: a number is its power (W; VA for an
+ * apparent-power load; A for a load given by its current, `dc-current-load` and `ac-current-load`,
+ * which stays a constant-current load), `true` its value as given in the element, `false` off.
+ */
+export type LoadSetting = number | boolean;
+
+/** One segment of a profile; loads not listed run at their element's power. */
+export interface ProfileSegment {
+  /** Length of the segment, h. */
+  durationHours: number;
+  loads?: Record<string, LoadSetting>;
+}
+
+/** One segment of a repeating 24-hour profile: lasts from `startHour` to the next segment's start. */
+export interface DailySegment {
+  /** Hour of the day at which this segment starts, 0 ≤ startHour < 24. */
+  startHour: number;
+  loads?: Record<string, LoadSetting>;
+}
+
+/** A load that switches on and off on its own (compressor, pump): on for `onMinutes` of every `periodMinutes`. */
+export interface DutySchedule {
+  /** Id of the load element. */
+  load: string;
+  periodMinutes: number;
+  onMinutes: number;
+  /** Minutes into the outage at which the first on-period starts (default 0). */
+  offsetMinutes?: number;
+}
+
+/**
+ * The load over time during the outage.
+ * - `constant`: every load at its element's power.
+ * - `segments`: the segments in turn, once (or over and over with `repeat`).
+ * - `daily`: a 24-hour profile repeating, the outage starting at `startHour` of the day.
+ * `duty` schedules apply on top of any of them (a load is on only when both say so).
+ */
+export type LoadProfile =
+  | { kind: 'constant'; duty?: DutySchedule[] }
+  | { kind: 'segments'; segments: ProfileSegment[]; repeat?: boolean; duty?: DutySchedule[] }
+  | { kind: 'daily'; segments: DailySegment[]; startHour?: number; duty?: DutySchedule[] };
+
+/** Settings of the battery backup study. Times carry their unit in the field name. */
+export interface BackupStudy {
+  profile: LoadProfile;
+  /** Integration time step, s (default 60). */
+  timeStepSeconds?: number;
+  /** Longest outage simulated, h (default 168 = one week). */
+  horizonHours?: number;
+  /** Cell temperature during the outage, °C (default 25). */
+  temperatureC?: number;
+  /** Capacity left after aging, fraction of rated (default 1: a new bank; 0.8 at end of life). */
+  stateOfHealth?: number;
+  /**
+   * What the bank is for (default 'backup'). 'backup': lead-acid and NiCd discharge to the maker's
+   * end-of-discharge voltage per cell with no depth-of-discharge limit, and are sized so (IEEE 485,
+   * IEEE 1115 standby sizing). 'cycling': the usable depth of discharge also ends the discharge and
+   * bounds the size. Lithium keeps its usable depth of discharge (the BMS window) in both.
+   */
+  design?: 'backup' | 'cycling';
+  // Settings of the sizing and recharge (core/studies/backup/sizing.ts, recharge.ts):
+  /** Runtime the bank must give through the profile, h. */
+  targetRuntimeHours?: number;
+  /** Design margin on the sizing, ≥ 1 (default 1.10). */
+  designMargin?: number;
+  /** Aging factor on the sizing, ≥ 1 (default per chemistry). */
+  agingFactor?: number;
+  /** Standard capacities to pick from, Ah (default: continuous). */
+  standardCapacitiesAh?: number[];
+  /** Charger DC output current, A. */
+  chargerCurrent?: number;
+  /** Charger efficiency (DC out / AC in), 0…1. */
+  chargerEfficiency?: number;
+  /** Time in which the bank must be recharged, h. */
+  targetRechargeHours?: number;
+}
