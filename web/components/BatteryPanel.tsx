@@ -11,9 +11,8 @@
  */
 import { StudyInput } from './StudyInput.tsx';
 import { useRef, useState } from 'preact/hooks';
-import type { BackupStudyResult } from '../../core/studies/backup/study.ts';
-import type { Derate } from '../../core/studies/backup/discharge.ts';
-import type { Problem } from '../../core/model/errors.ts';
+import type { BackupStudyResult, Derate } from '../../core/studies/index.ts';
+import type { Problem } from '../../core/page.ts';
 import { useWorkerReply } from './panel-client.ts';
 import {
   formatCurrent,

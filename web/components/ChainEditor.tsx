@@ -15,8 +15,7 @@ import { useSignal } from '@preact/signals';
 import { memo } from 'preact/compat';
 import { useCallback, useEffect, useMemo, useRef } from 'preact/hooks';
 import type { ComponentChildren } from 'preact';
-import type { ElementKind } from '../../core/model/project.ts';
-import type { ElementResult, SolveResult } from '../../core/model/result.ts';
+import type { ElementKind, ElementResult, SolveResult } from '../../core/page.ts';
 import { nominalPorts, offeredTemplates, type AddOperation, type FeedingPort } from '../editor/templates.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import {

@@ -27,8 +27,8 @@
 import { memo } from 'preact/compat';
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { sankey, sankeyLinkHorizontal, type SankeyLink, type SankeyNode } from 'd3-sankey';
-import { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from '../../core/studies/energy-flow.ts';
-import type { ElementResult, SolveResult } from '../../core/model/result.ts';
+import { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from '../../core/studies/index.ts';
+import type { ElementResult, SolveResult } from '../../core/page.ts';
 import { formatPercent, formatPower } from '../format/number.ts';
 import { elementKindLabel, fileNameStem } from '../format/labels.ts';
 import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state/prefs.ts';

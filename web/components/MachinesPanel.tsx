@@ -12,11 +12,8 @@
  */
 import { StudyInput } from './StudyInput.tsx';
 import { useRef, useState } from 'preact/hooks';
-import type { DriveDetail, MotorDetail } from '../../core/studies/machines/details.ts';
-import type { PumpDetail } from '../../core/studies/machines/pump-duty.ts';
-import type { Problem } from '../../core/model/errors.ts';
-import type { SolveResult } from '../../core/model/result.ts';
-import { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from '../../core/studies/pf/placement.ts';
+import { DEFAULT_TARGET_POWER_FACTOR, type DriveDetail, type MotorDetail, pfCorrectionCandidates, type PumpDetail } from '../../core/studies/index.ts';
+import type { Problem, SolveResult } from '../../core/page.ts';
 import type { MachinesFigures, PfCorrectionShown } from './panel-worker.ts';
 import { useWorkerReply } from './panel-client.ts';
 import {

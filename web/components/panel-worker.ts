@@ -9,17 +9,8 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { runBackupStudy, type BackupStudyResult } from '../../core/studies/backup/study.ts';
-import { bankCautions, rechargeCautions } from '../../core/studies/backup/cautions.ts';
-import { machineDetails, type DriveDetail, type MotorDetail } from '../../core/studies/machines/details.ts';
-import { pumpDetails, projectPumpDuty, type PumpDetail } from '../../core/studies/machines/pump-duty.ts';
-import type { PumpControlResult } from '../../core/physics/pump-fan.ts';
-import { correctPowerFactor, type PfCorrection } from '../../core/studies/pf/correction.ts';
-import { pumpDutyCosts, lossCostPerYear, type CostSettings, type LossCost, type MethodCosts } from '../../core/studies/economics.ts';
-import { validateProject } from '../../core/solve/validate.ts';
-import { elementNames, nonFiniteProblems } from '../../core/solve/finite.ts';
-import type { Problem } from '../../core/model/errors.ts';
-import type { SolveResult } from '../../core/model/result.ts';
+import { type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, pumpDutyCosts, rechargeCautions, runBackupStudy } from '../../core/studies/index.ts';
+import { elementNames, nonFiniteProblems, type Problem, type SolveResult, validateProject } from '../../core/page.ts';
 
 export type PanelRequest =
   | { kind: 'battery'; project: unknown }

@@ -8,12 +8,7 @@
  * it, the engine (core/) checks every value written. Defaults are planning examples the user is
  * expected to replace; none of them is a computed engineering figure.
  */
-import { CHEMISTRIES, CHEMISTRY_PRESETS } from '../../core/data/battery-chemistries.ts';
-import { KINDS } from '../../core/kinds/index.ts';
-import { MOTOR_CLASSES } from '../../core/physics/motor-rating.ts';
-import { defaultCatalogue, resolveLimits } from '../../core/conductors/index.ts';
-import { CODE_LETTERS } from '../../core/data/motor-code-letters.ts';
-import type { Chemistry, ChemistryValues, DropLimits, ElementKind, IecInstallationMethod } from '../../core/index.ts';
+import { CHEMISTRIES, type Chemistry, CHEMISTRY_PRESETS, type ChemistryValues, CODE_LETTERS, defaultCatalogue, type DropLimits, type ElementKind, type IecInstallationMethod, KINDS, MOTOR_CLASSES, resolveLimits } from '../../core/page.ts';
 import type { Quantity } from '../format/parse.ts';
 import { formatConductorSize, type UnitSystem } from '../format/units.ts';
 

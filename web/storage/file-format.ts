@@ -10,9 +10,8 @@
  * A project whose fields the engine rejects is still accepted (it opens with its problems listed, to
  * be fixed); the engine's checks run on it afterwards, not here.
  */
-import { PROJECT_VERSION, migrateProject } from '../../core/model/migrate.ts';
+import { issueMessage, migrateProject, PROJECT_VERSION } from '../../core/page.ts';
 import * as z from 'zod/mini';
-import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
 import { fileNameStem } from '../format/labels.ts';
 import { FILE_LIMITS, FORBIDDEN_KEYS, scanLimits } from './limits.ts';

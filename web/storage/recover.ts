@@ -3,9 +3,8 @@
  * when it was hidden or left, applied once that page is closed. Loaded only when there are rescue
  * copies, so it stays out of the first load.
  */
-import { migrateProject } from '../../core/model/migrate.ts';
+import { issueMessage, migrateProject } from '../../core/page.ts';
 import { z } from 'zod/mini';
-import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
 import { copyName, recordName, type RescueRecord, type StoredProject } from './record.ts';
 import type { ProjectStore, WriteOutcome } from './store.ts';
