@@ -183,31 +183,31 @@ function PumpCard({ p, units, locale }: { p: PumpDetail; units: UnitSystem; loca
 
 // ---------- pump duty study ----------
 
-function PumpDuty({ flow, locale }: { flow: NonNullable<MachinesFigures['flow']>; locale: Locale }) {
-  if (!flow.ok) {
+function PumpDuty({ duty, locale }: { duty: NonNullable<MachinesFigures['pumpDuty']>; locale: Locale }) {
+  if (!duty.ok) {
     return (
-      <section class="panel-section" aria-labelledby="flow-study-heading">
-        <h4 id="flow-study-heading">Flow control over a year</h4>
-        <ProblemLines problems={flow.problems} />
+      <section class="panel-section" aria-labelledby="pump-duty-heading">
+        <h4 id="pump-duty-heading">Pump duty: flow control over a year</h4>
+        <ProblemLines problems={duty.problems} />
       </section>
     );
   }
-  const f = flow.result;
-  const c = flow.costs ?? null;
+  const f = duty.result;
+  const c = duty.costs ?? null;
   const rows: { key: string; label: string; energy: number; cost?: number }[] = [
     { key: 'drive', label: 'Drive (speed control)', energy: f.speedControl.energyWh, cost: c?.speedControl },
     { key: 'throttle', label: 'Throttle valve', energy: f.throttle.energyWh, cost: c?.throttle },
     { key: 'on-off', label: 'On-off at the design point', energy: f.onOff.energyWh, cost: c?.onOff },
   ];
   return (
-    <section class="panel-section" aria-labelledby="flow-study-heading" data-testid="flow-study">
-      <h4 id="flow-study-heading">Flow control over a year</h4>
+    <section class="panel-section" aria-labelledby="pump-duty-heading" data-testid="pump-duty-study">
+      <h4 id="pump-duty-heading">Pump duty: flow control over a year</h4>
       <p class="note">
         {formatSignificant(f.totalHours, 5, locale)}
         {UNIT_GAP}h a year over {f.points.length} duty points. Method: {f.method}.
       </p>
-      <div class="table-scroll" role="region" aria-labelledby="flow-study-heading" tabIndex={0}>
-        <table class="data panel-table" data-testid="flow-study-table">
+      <div class="table-scroll" role="region" aria-labelledby="pump-duty-heading" tabIndex={0}>
+        <table class="data panel-table" data-testid="pump-duty-table">
           <thead>
             <tr>
               <th scope="col">Method</th>
@@ -219,7 +219,7 @@ function PumpDuty({ flow, locale }: { flow: NonNullable<MachinesFigures['flow']>
             {rows.map((r) => (
               <tr key={r.key} data-method={r.key}>
                 <th scope="row">{r.label}</th>
-                <td class="num" data-testid={`flow-energy-${r.key}`}>
+                <td class="num" data-testid={`pump-duty-energy-${r.key}`}>
                   {formatEnergy(r.energy, locale)}
                 </td>
                 {c && <td class="num">{formatMoney(r.cost ?? Number.NaN, locale)}</td>}
@@ -228,7 +228,7 @@ function PumpDuty({ flow, locale }: { flow: NonNullable<MachinesFigures['flow']>
           </tbody>
         </table>
       </div>
-      <p class="panel-headline" data-testid="flow-savings">
+      <p class="panel-headline" data-testid="pump-duty-savings">
         The drive saves {formatEnergy(f.savingVsThrottleWh, locale)} a year against throttling ({formatPercent(f.savingVsThrottleFraction, locale, 3)})
         {c ? `, ${formatMoney(c.savingVsThrottle, locale)}` : ''}, and {formatEnergy(f.savingVsOnOffWh, locale)} against on-off ({formatPercent(f.savingVsOnOffFraction, locale, 3)})
         {c ? `, ${formatMoney(c.savingVsOnOff, locale)}` : ''}.
@@ -602,7 +602,7 @@ export default function MachinesPanel() {
   const crash = reply?.kind === 'crash' ? reply.message : null;
   const stale = !result || resultsState.value === 'stale' || problems.length > 0;
   if (!shown) return <p class="note" data-testid="machines-panel" data-state={pending ? 'pending' : 'none'}>{crash ?? 'Working out the figures…'}</p>;
-  const { motors, drives, pumps, flow, lossCost } = shown.figures;
+  const { motors, drives, pumps, pumpDuty, lossCost } = shown.figures;
   return (
     <div class={stale ? 'panel-body panel-body--stale' : 'panel-body'} data-testid="machines-panel" data-state={pending ? 'pending' : stale ? 'stale' : 'current'} data-study-ms={reply ? reply.ms.toFixed(2) : ''}>
       {stale && (
@@ -627,7 +627,7 @@ export default function MachinesPanel() {
           </div>
         </section>
       )}
-      {flow && <PumpDuty flow={flow} locale={locale} />}
+      {pumpDuty && <PumpDuty duty={pumpDuty} locale={locale} />}
       <PfCorrectionControl result={shown.result} locale={locale} />
       <LossCost lossCost={lossCost} locale={locale} />
     </div>

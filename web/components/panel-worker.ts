@@ -26,7 +26,7 @@ export interface MachinesFigures {
   motors: MotorDetail[];
   drives: DriveDetail[];
   pumps: PumpDetail[];
-  flow?: { ok: true; result: PumpControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
+  pumpDuty?: { ok: true; result: PumpControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
   lossCost?: { ok: true; cost: LossCost } | { ok: false; problems: Problem[] };
 }
 
@@ -77,8 +77,8 @@ function machines(input: unknown, result: SolveResult, cost: CostSettings | null
     const f = projectPumpDuty(input);
     if (f.ok) {
       const costs = cost ? pumpDutyCosts(f.result, cost.pricePerKWh) : undefined;
-      figures.flow = { ok: true, result: f.result, ...(costs?.ok ? { costs: costs.costs } : {}) };
-    } else figures.flow = { ok: false, problems: f.problems };
+      figures.pumpDuty = { ok: true, result: f.result, ...(costs?.ok ? { costs: costs.costs } : {}) };
+    } else figures.pumpDuty = { ok: false, problems: f.problems };
   }
   if (cost) figures.lossCost = lossCostPerYear(result, cost);
   const notFinite = nonFiniteProblems('The machines study', figures, elementNames(input));
