@@ -5,7 +5,8 @@
  */
 import type { DraftOrigin } from '../state/editor.ts';
 import { RESCUE_KEY_PREFIX, type RescueRecord } from './record.ts';
-import { conflicts, inFlight, known, pending, plannedFor, storageNotice, store, storedIdOf, tabId } from './session-state.ts';
+import { conflicts, inFlight, known, plannedFor, storageNotice, store, storedIdOf, tabId } from './session-state.ts';
+import { pending } from './write-queue.ts';
 
 export const TAB_LOCK_PREFIX = 'joulepath-tab:';
 /** Rescue keys this tab wrote, with the edit number of the version each holds (Infinity: an open question's). */

@@ -1,8 +1,8 @@
 /**
  * What the parts of the storage session share (web/storage/session.ts is the session's API): the
- * signals the page shows, the store, the address of a stored project, the bookkeeping of the write
- * queue and of open questions (which edits wait, which records this tab knows at which revision), the
- * project list and the browser's storage status. No part runs anything at import.
+ * signals the page shows, the store, the address of a stored project, the bookkeeping of open
+ * questions and of the records this tab knows (at which revision, under which id), the project list
+ * and the browser's storage status. The edits waiting to be written belong to write-queue.ts.
  */
 import { signal } from '@preact/signals';
 import { draftOrigin, type DraftOrigin, type DraftProject, loadProject } from '../state/editor.ts';
@@ -99,22 +99,7 @@ export function setAddress(id: string, push: boolean): void {
 /** One version of a project to write; `seq` numbers the edits of this tab (later edits, higher numbers). */
 export type Snapshot = { origin: DraftOrigin; project: DraftProject; seq: number };
 
-// What several parts of the session change: each part reads the live binding, only these setters assign it.
-/** Edits not yet written, at most one (the latest) per project, oldest first. */
-export let pending: Snapshot[] = [];
-export const setPending = (next: Snapshot[]): void => {
-  pending = next;
-};
-/** The origin of the draft the autosave last saw: a different one means a project was opened. */
-export let seenOrigin: DraftOrigin | null = null;
-export const setSeenOrigin = (origin: DraftOrigin | null): void => {
-  seenOrigin = origin;
-};
-/** Set while the write queue points the open draft at its new stored record (not a project opened). */
-export let rebinding = false;
-export const setRebinding = (on: boolean): void => {
-  rebinding = on;
-};
+// Set by the list actions (session.ts) and ended by the tabs (tabs.ts): changed through its setter only.
 /** Removes a deleted project for good when the undo period ends. */
 let deleteTimer: ReturnType<typeof setTimeout> | undefined;
 /** Start the undo period's timer, or end it (undefined); a timer still running is cleared first. */
@@ -161,13 +146,6 @@ export function dropConflict(id: string): void {
   conflicts.value = conflicts.peek().filter((c) => c.id !== id);
 }
 
-/** Take the pending edit of a project out of the queue (it goes into a question, or is given up). */
-export function takePending(id: string): Snapshot | undefined {
-  const mine = pending.filter((p) => storedIdOf(p.origin) === id);
-  if (!mine.length) return undefined;
-  setPending(pending.filter((p) => !mine.includes(p)));
-  return mine.at(-1);
-}
 
 export function listedNames(): string[] {
   return projectList.peek().flatMap((r) => (r.ok ? [recordName(r.record)] : []));

@@ -23,11 +23,11 @@
  * bookkeeping, the list and the storage status), write-queue.ts (autosave), tabs.ts (the other tabs and
  * the questions' answers), rescue.ts (leaving the page), files.ts (export and import).
  */
-import { batch, effect } from '@preact/signals';
-import { draftOrigin, draftRevision, loadProject, renameDraft } from '../state/editor.ts';
+import { effect } from '@preact/signals';
+import { loadProject, renameDraft } from '../state/editor.ts';
 import { recordName } from './record.ts';
-import { checkPersistence, conflictFor, openId, openRecord, pending, pendingDelete, projectList, rebinding, refreshList, saveStatus, seenOrigin, setAddress, setDeleteTimer, setSeenOrigin, STALE_DELETE_MS, storageNotice, store, storedIdOf, tabId, UNDO_DELETE_MS } from './session-state.ts';
-import { flush, hasUnsavedWork, markEdited } from './write-queue.ts';
+import { checkPersistence, conflictFor, openId, openRecord, pendingDelete, projectList, refreshList, saveStatus, setAddress, setDeleteTimer, STALE_DELETE_MS, storageNotice, store, storedIdOf, tabId, UNDO_DELETE_MS } from './session-state.ts';
+import { flush, followDraft, hasUnsavedWork, pending } from './write-queue.ts';
 import { announce, openChannel } from './tabs.ts';
 import { recoverRescued, TAB_LOCK_PREFIX, writeRescues } from './rescue.ts';
 
@@ -191,20 +191,7 @@ let starting: Promise<void> = Promise.resolve();
 export function startStorage(): void {
   if (started) return;
   started = true;
-  effect(() => {
-    void draftRevision.value;
-    const origin = draftOrigin.value;
-    if (rebinding) return;
-    if (origin !== seenOrigin) {
-      // Another project was opened: write what the last one still had pending, then start afresh. A
-      // question about the last one stays open (parked) and keeps that project's own version.
-      setSeenOrigin(origin);
-      if (pending.length) void flush();
-      if (origin?.kind !== 'stored' && saveStatus.peek().state !== 'failed') saveStatus.value = { state: 'idle' };
-      return;
-    }
-    batch(markEdited);
-  });
+  effect(followDraft);
   const flushNow = () => void flush();
   // Leaving or hidden: the normal write starts, and a rescue copy is committed at once beside it.
   const leaving = () => {

@@ -5,8 +5,8 @@
  */
 import { draft, draftOrigin, type DraftOrigin, type DraftProject } from '../state/editor.ts';
 import { copyName, recordName } from './record.ts';
-import { CHANNEL_NAME, conflictFor, conflicts, dropConflict, known, listedNames, openId, openRecord, pending, pendingDelete, refreshList, saveStatus, setConflict, setDeleteTimer, setPending, storageNotice, store, storedIdOf, tabId, takePending } from './session-state.ts';
-import { flush, nameDraftAsStored, rebind, requeue } from './write-queue.ts';
+import { CHANNEL_NAME, conflictFor, conflicts, dropConflict, known, listedNames, openId, openRecord, pendingDelete, refreshList, saveStatus, setConflict, setDeleteTimer, storageNotice, store, storedIdOf, tabId } from './session-state.ts';
+import { flush, nameDraftAsStored, pending, rebind, requeue, retarget, takePending } from './write-queue.ts';
 import { dropRescue } from './rescue.ts';
 
 let channel: BroadcastChannel | null = null;
@@ -162,7 +162,7 @@ export async function resolveConflict(choice: ConflictChoice, id?: string): Prom
     if (open && storedIdOf(open) === c.id) {
       // The open draft becomes the copy; edits waiting for the old id follow it (they are the copy's).
       const to: DraftOrigin = { kind: 'stored', title: copy, storedKey: out.record.id };
-      setPending(pending.map((p) => (storedIdOf(p.origin) === c.id ? { ...p, origin: to } : p)));
+      retarget(c.id, to);
       rebind(open, to);
       nameDraftAsStored(copy, c.mine);
       saveStatus.value = pending.length ? { state: 'pending' } : { state: 'saved', savedAt: out.record.savedAt };

@@ -4,14 +4,20 @@
  * copy, a new project is stored from its first edit; a refused write keeps the version in memory and
  * says so; a write that meets another tab's change or delete becomes a question (session-state.ts).
  */
-import { draft, draftOrigin, type DraftOrigin, type DraftProject, lastValidResult, renameDraft } from '../state/editor.ts';
+import { batch } from '@preact/signals';
+import { draft, draftOrigin, draftRevision, type DraftOrigin, type DraftProject, lastValidResult, renameDraft } from '../state/editor.ts';
 import { copyName, recordName } from './record.ts';
 import type { WriteOutcome } from './store.ts';
-import { AUTOSAVE_MS, checkPersistence, conflictFor, conflicts, createdFor, inFlight, known, lastWriteMs, listedNames, NO_STORAGE, pending, plannedFor, refreshList, sameProject, saveStatus, setAddress, setConflict, setPending, setRebinding, setSeenOrigin, type Snapshot, storageNotice, store, storedIdOf, tabId, takePending } from './session-state.ts';
+import { AUTOSAVE_MS, checkPersistence, conflictFor, conflicts, createdFor, inFlight, known, lastWriteMs, listedNames, NO_STORAGE, plannedFor, refreshList, sameProject, saveStatus, setAddress, setConflict, type Snapshot, storageNotice, store, storedIdOf, tabId } from './session-state.ts';
 import { announce } from './tabs.ts';
 import { dropRescue } from './rescue.ts';
 
 let editSeq = 0;
+/** Edits not yet written, at most one (the latest) per project, oldest first (other parts read it; only this file changes it). */
+export let pending: Snapshot[] = [];
+/** The origin of the draft the autosave last saw: a different one means a project was opened. */
+let seenOrigin: DraftOrigin | null = null;
+let rebinding = false;
 /** Snapshots kept after a refused write (the save line stays "Not saved" while any is left). */
 const unwritten = new WeakSet<Snapshot>();
 let timer: ReturnType<typeof setTimeout> | undefined;
@@ -30,7 +36,7 @@ export function markEdited(): void {
     setConflict({ ...c, mine: project });
     return;
   }
-  setPending([...pending.filter((p) => !sameProject(p.origin, origin)), { origin, project, seq: ++editSeq }]);
+  pending = [...pending.filter((p) => !sameProject(p.origin, origin)), { origin, project, seq: ++editSeq }];
   const s = saveStatus.peek().state;
   // Set once per batch of edits (a new object on every keystroke would redraw the save line each time).
   if (s !== 'failed' && s !== 'conflict' && s !== 'pending') saveStatus.value = { state: 'pending' };
@@ -45,7 +51,7 @@ export function flush(): Promise<void> {
   }
   const snaps = pending;
   if (snaps.length) {
-    setPending([]);
+    pending = [];
     writing++;
     for (const snap of snaps) inFlight.add(snap);
     queue = queue
@@ -71,7 +77,7 @@ export function flush(): Promise<void> {
 /** Keep a snapshot that could not be written, unless a newer edit of that project replaced it meanwhile. */
 function keepUnwritten(snap: Snapshot): void {
   unwritten.add(snap);
-  if (!pending.some((p) => sameProject(p.origin, snap.origin))) setPending([snap, ...pending]);
+  if (!pending.some((p) => sameProject(p.origin, snap.origin))) pending = [snap, ...pending];
 }
 
 /** Whether leaving the page now could lose work: a write waiting or under way, refused, or held by a question. */
@@ -84,14 +90,14 @@ export function hasUnsavedWork(): boolean {
 export function rebind(from: DraftOrigin, to: DraftOrigin): void {
   if (draftOrigin.peek() !== from) return;
   const keep = lastValidResult.peek();
-  setRebinding(true);
+  rebinding = true;
   try {
-    setSeenOrigin(to);
+    seenOrigin = to;
     draftOrigin.value = to;
     // The editor clears the last valid results when the origin changes; this is the same project.
     lastValidResult.value = keep;
   } finally {
-    setRebinding(false);
+    rebinding = false;
   }
   if (to.storedKey) setAddress(to.storedKey, false);
 }
@@ -105,7 +111,7 @@ export function nameDraftAsStored(name: string, written: DraftProject): void {
   renameDraft(name);
   if (!unchanged) return;
   const origin = draftOrigin.peek();
-  if (origin) setPending(pending.filter((p) => !sameProject(p.origin, origin)));
+  if (origin) pending = pending.filter((p) => !sameProject(p.origin, origin));
   if (!pending.length && timer !== undefined) {
     clearTimeout(timer);
     timer = undefined;
@@ -178,7 +184,38 @@ export function requeue(id: string, project: DraftProject): void {
   const open = draftOrigin.peek();
   const origin = open && storedIdOf(open) === id ? open : { kind: 'stored' as const, title: project.name, storedKey: id };
   const latest = origin === open ? (draft.peek() ?? project) : project;
-  setPending([...pending.filter((p) => storedIdOf(p.origin) !== id), { origin, project: latest, seq: ++editSeq }]);
+  pending = [...pending.filter((p) => storedIdOf(p.origin) !== id), { origin, project: latest, seq: ++editSeq }];
   if (origin === open) saveStatus.value = { state: 'pending' };
   void flush();
+}
+
+/** Take the pending edit of a project out of the queue (it goes into a question, or is given up). */
+export function takePending(id: string): Snapshot | undefined {
+  const mine = pending.filter((p) => storedIdOf(p.origin) === id);
+  if (!mine.length) return undefined;
+  pending = pending.filter((p) => !mine.includes(p));
+  return mine.at(-1);
+}
+
+/**
+ * The autosave's reaction to the draft (run as an effect from startStorage): an edit is queued; another
+ * project opened writes what the last one still had pending, then starts afresh. A question about the
+ * last one stays open (parked) and keeps that project's own version.
+ */
+export function followDraft(): void {
+  void draftRevision.value;
+  const origin = draftOrigin.value;
+  if (rebinding) return;
+  if (origin !== seenOrigin) {
+    seenOrigin = origin;
+    if (pending.length) void flush();
+    if (origin?.kind !== 'stored' && saveStatus.peek().state !== 'failed') saveStatus.value = { state: 'idle' };
+    return;
+  }
+  batch(markEdited);
+}
+
+/** The open draft became a copy stored as `to`: its edits waiting under the old id follow it. */
+export function retarget(id: string, to: DraftOrigin): void {
+  pending = pending.map((p) => (storedIdOf(p.origin) === id ? { ...p, origin: to } : p));
 }
