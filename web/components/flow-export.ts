@@ -28,7 +28,7 @@ export async function download(blob: Blob, fileName: string): Promise<void> {
 }
 
 /** Paint every element that carries a palette key with the given palette. */
-export function repaint(root: Element, palette: FlowPalette): void {
+function repaint(root: Element, palette: FlowPalette): void {
   root.querySelectorAll('[data-fill]').forEach((el) => el.setAttribute('fill', palette.colours[el.getAttribute('data-fill') as PaintKey]));
   root.querySelectorAll('[data-stroke]').forEach((el) => el.setAttribute('stroke', palette.colours[el.getAttribute('data-stroke') as PaintKey]));
   root.querySelectorAll('[data-opacity]').forEach((el) =>
@@ -36,10 +36,10 @@ export function repaint(root: Element, palette: FlowPalette): void {
   );
 }
 
-export const EXPORT_ROW = 16;
+const EXPORT_ROW = 16;
 
 /** Legend rows of an exported file, wrapped to its width. */
-export function exportLegendRows(width: number): { item: LegendItem; x: number; row: number }[] {
+function exportLegendRows(width: number): { item: LegendItem; x: number; row: number }[] {
   const out: { item: LegendItem; x: number; row: number }[] = [];
   let x = 12;
   let row = 0;
@@ -55,7 +55,7 @@ export function exportLegendRows(width: number): { item: LegendItem; x: number; 
   return out;
 }
 
-export const exportHeader = (width: number, summary: string | null) =>
+const exportHeader = (width: number, summary: string | null) =>
   40 + EXPORT_ROW * (Math.max(...exportLegendRows(width).map((r) => r.row)) + 1) + (summary ? EXPORT_ROW : 0);
 
 /** The diagram as standalone SVG text in the paper palette (focus outlines and page-only attributes removed). */
@@ -142,7 +142,7 @@ export async function pngBlob(svg: SVGSVGElement, title: string, summary: string
  * declarations override the SVG's presentation attributes), fills the page width, and loses its
  * scroll box, buttons and selection.
  */
-export function printRules(): string {
+function printRules(): string {
   const p = FLOW_PALETTES[PAPER_THEME];
   const keys = Object.keys(p.colours) as PaintKey[];
   return [

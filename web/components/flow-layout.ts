@@ -9,21 +9,21 @@ import { formatPercent, formatPower } from '../format/number.ts';
 import type { PaintKey } from './flow-palette.ts';
 
 export const FONT = "system-ui, -apple-system, 'Segoe UI', Roboto, 'Noto Sans', sans-serif";
-export const NODE_WIDTH = 14;
-export const NODE_PADDING = 40;
+const NODE_WIDTH = 14;
+const NODE_PADDING = 40;
 /** Width given to one column of the diagram, px (labels sit in the gap to the next column). */
-export const COLUMN_WIDTH = 150;
+const COLUMN_WIDTH = 150;
 /** Room to the right of the last column for the loads' labels, px. */
-export const RIGHT_LABELS = 150;
+const RIGHT_LABELS = 150;
 export const MARGIN = { top: 30, right: 12, bottom: 16, left: 12 };
 /** Space between the lowest feed and the loss band, px (the band's caption sits in it). */
 export const BAND_GAP = 44;
 /** The drawing's height goes up and down in steps of this, px. */
-export const HEIGHT_STEP = 40;
+const HEIGHT_STEP = 40;
 /** Height kept for one loss label (name, figures, idle part), px. */
-export const LOSS_LABEL = 46;
+const LOSS_LABEL = 46;
 /** A link narrower than this (px) gets no label on it; its figures are on hover, tap and focus. */
-export const LABEL_MIN_WIDTH = 15;
+const LABEL_MIN_WIDTH = 15;
 /** Links carrying less than this share of the source power are not drawn (e.g. a stiff source's 0 W loss). */
 export const ZERO_SHARE = 1e-9;
 /** Dash pattern of idle-loss branches and swatches: idle loss is told by pattern as well as colour. */
@@ -35,12 +35,12 @@ export type LaidNode = SankeyNode<NodeExtra, LinkExtra>;
 export type LaidLink = SankeyLink<NodeExtra, LinkExtra>;
 
 /** Which links are drawn: everything that carries power (zero branches would be invisible slivers). */
-export function drawnLinks(g: FlowGraph): FlowLink[] {
+function drawnLinks(g: FlowGraph): FlowLink[] {
   const floor = ZERO_SHARE * Math.abs(g.sourcePower);
   return g.links.filter((l) => l.watts > floor);
 }
 
-export const linkKey = (l: FlowLink) => `${l.source}→${l.target}${l.part ? `:${l.part}` : ''}`;
+const linkKey = (l: FlowLink) => `${l.source}→${l.target}${l.part ? `:${l.part}` : ''}`;
 
 /** Paint key of a link: feed, idle loss, or conversion loss (cables: line loss). */
 export function linkPaint(l: { role: FlowLink['role']; part?: FlowLink['part'] }, sourceKind: FlowNode['kind']): PaintKey {
@@ -58,11 +58,11 @@ export function nodePaint(n: FlowNode): PaintKey {
 
 export const figures = (watts: number, percent: number, loc: string | undefined) => `${formatPower(watts, loc)} · ${formatPercent(percent / 100, loc, 3)}`;
 
-export function shorten(text: string, max = 24): string {
+function shorten(text: string, max = 24): string {
   return text.length <= max ? text : `${text.slice(0, max - 1)}…`;
 }
 
-export interface Layout {
+interface Layout {
   width: number;
   height: number;
   nodes: LaidNode[];
@@ -163,20 +163,20 @@ export function layout(g: FlowGraph, minWidth: number): Layout | null {
 }
 
 /** A label's box, px (for keeping labels apart). */
-export interface Box {
+interface Box {
   x0: number;
   y0: number;
   x1: number;
   y1: number;
 }
 
-export const overlaps = (a: Box, b: Box) => a.x0 < b.x1 && b.x0 < a.x1 && a.y0 < b.y1 && b.y0 < a.y1;
+const overlaps = (a: Box, b: Box) => a.x0 < b.x1 && b.x0 < a.x1 && a.y0 < b.y1 && b.y0 < a.y1;
 /** Rough width of a 12 px label (system sans: about 0.58 em per character, bold a little wider). */
-export const textWidth = (text: string, bold = false) => text.length * (bold ? 7.2 : 6.8);
+const textWidth = (text: string, bold = false) => text.length * (bold ? 7.2 : 6.8);
 /** Characters of a bold name that fit in the gap between two columns. */
-export const GAP_CHARS = Math.floor((COLUMN_WIDTH - NODE_WIDTH - 10) / 7.2);
+const GAP_CHARS = Math.floor((COLUMN_WIDTH - NODE_WIDTH - 10) / 7.2);
 
-export interface NodeLabel {
+interface NodeLabel {
   id: string;
   x: number;
   y: number;
@@ -186,7 +186,7 @@ export interface NodeLabel {
   box: Box;
 }
 
-export interface LinkLabel {
+interface LinkLabel {
   key: string;
   x: number;
   y: number;

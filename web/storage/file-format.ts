@@ -1,6 +1,6 @@
 /**
  * The project file: export (an envelope around the project) and import (never trusting the file).
- * Pure: bytes in, a checked project or a message out. No DOM, no storage — web/storage/session.ts reads
+ * Pure: bytes in, a checked project or a message out. No DOM, no storage — web/storage/files.ts reads
  * the file and stores the result; the Node tests call these functions directly.
  *
  * An import is refused, with a sentence saying why, when the file is too large, empty, not UTF-8 text,

@@ -26,7 +26,7 @@ let queue: Promise<void> = Promise.resolve();
 let writing = 0;
 let askedPersistence = false;
 
-export function markEdited(): void {
+function markEdited(): void {
   const origin = draftOrigin.peek();
   const project = draft.peek();
   if (!origin || !project) return;

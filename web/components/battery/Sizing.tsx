@@ -27,13 +27,13 @@ export function derateValue(d: Derate, locale: string | undefined, units: UnitSy
   }
 }
 
-export const METHOD_WORDS = {
+const METHOD_WORDS = {
   energy: 'lithium energy method',
   'ieee-485-worksheet': 'IEEE 485 duty-cycle worksheet',
   'ieee-1115-worksheet': 'IEEE 1115 duty-cycle worksheet',
 } as const;
 
-export function governingWords(g: NonNullable<BackupStudyResult['sizing']>['governing']): string {
+function governingWords(g: NonNullable<BackupStudyResult['sizing']>['governing']): string {
   switch (g.kind) {
     case 'section':
       return `worksheet section ${g.section}`;
@@ -47,11 +47,11 @@ export function governingWords(g: NonNullable<BackupStudyResult['sizing']>['gove
 }
 
 /** The value of a named step of the working (NaN when the sizing has none). */
-export function stepOf(s: NonNullable<BackupStudyResult['sizing']>, label: string): number {
+function stepOf(s: NonNullable<BackupStudyResult['sizing']>, label: string): number {
   return s.steps.find((x) => x.label === label)?.value ?? Number.NaN;
 }
 
-export function stepValue(value: number, unit: string, locale: string | undefined): string {
+function stepValue(value: number, unit: string, locale: string | undefined): string {
   const n = Number.isInteger(value) ? formatSignificant(value, 12, locale) : formatSignificant(value, 4, locale);
   return unit ? `${n}${UNIT_GAP}${unit}` : n;
 }

@@ -8,7 +8,7 @@ import { formatTemperature, type UnitSystem } from '../../format/units.ts';
 import { TimeChart, type ChartSeries } from '../charts/TimeChart.tsx';
 import { derateValue, Sizing } from './Sizing.tsx';
 
-export function RechargeFigures({ study, locale }: { study: BackupStudyResult; locale: string | undefined }) {
+function RechargeFigures({ study, locale }: { study: BackupStudyResult; locale: string | undefined }) {
   const r = study.recharge;
   const c = study.charger;
   return (
@@ -66,7 +66,7 @@ export function RechargeFigures({ study, locale }: { study: BackupStudyResult; l
   );
 }
 
-export function Plot({ study, locale }: { study: BackupStudyResult; locale: string | undefined }) {
+function Plot({ study, locale }: { study: BackupStudyResult; locale: string | undefined }) {
   const d = study.discharge;
   const s = d.series;
   const series: ChartSeries[] = [

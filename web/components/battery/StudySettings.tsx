@@ -8,7 +8,7 @@ import type { UnitSystem } from '../../format/units.ts';
 import { inputText, inputUnit, readNumberField, type Quantity } from '../../format/parse.ts';
 import { fieldError, getAt, setField, setFieldError, type DraftProject } from '../../state/editor.ts';
 
-export interface FieldProps {
+interface FieldProps {
   project: DraftProject;
   path: string;
   label: string;
@@ -24,7 +24,7 @@ export interface FieldProps {
  * One study setting: a labelled input in the user's units and number format, writing the SI value
  * through the engine-checked setField; its message shows at the field and nothing is stored from it.
  */
-export function StudyField({ project, path, label, quantity, hint, units, locale, testId }: FieldProps) {
+function StudyField({ project, path, label, quantity, hint, units, locale, testId }: FieldProps) {
   const [text, setText] = useState<string | null>(null);
   const stored = getAt(project, path);
   const error = fieldError('project', path);
@@ -57,7 +57,7 @@ export function StudyField({ project, path, label, quantity, hint, units, locale
 }
 
 /** Backup or cycling design: where a lead-acid or NiCd discharge ends, and what sizes the bank. */
-export function DesignChoice({ project }: { project: DraftProject }) {
+function DesignChoice({ project }: { project: DraftProject }) {
   const stored = getAt(project, 'backup.design');
   const value = stored === 'cycling' ? 'cycling' : 'backup';
   return (

@@ -7,7 +7,7 @@ import type { AddOperation } from '../../editor/templates.ts';
 
 // ---------- icons (our own, drawn on a 20 × 20 grid) ----------
 
-export const ICONS: Record<string, string> = {
+const ICONS: Record<string, string> = {
   after: 'M3 10h9M9 6l4 4-4 4M16 5v10',
   branch: 'M3 6h6c2 0 3 1 3 3v6M12 15l-3-3M12 15l3-3M3 6h14',
   before: 'M17 10H8M11 6l-4 4 4 4M4 5v10',
@@ -22,7 +22,7 @@ export const ICONS: Record<string, string> = {
   redo: 'M13 5l4 4-4 4M17 9H8a5 5 0 0 0 0 10h2',
 };
 
-export const Icon = memo(function Icon({ name }: { name: keyof typeof ICONS }) {
+const Icon = memo(function Icon({ name }: { name: keyof typeof ICONS }) {
   return (
     <svg class="editor-icon" viewBox="0 0 20 20" width="20" height="20" aria-hidden="true" focusable="false">
       <path d={ICONS[name]} fill="none" stroke="currentColor" stroke-width="1.8" stroke-linecap="round" stroke-linejoin="round" />

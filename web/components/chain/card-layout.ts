@@ -4,7 +4,7 @@
  */
 import { childrenOf, rootOf, type DraftProject } from '../../state/editor.ts';
 
-export interface Layout {
+interface Layout {
   /** Elements reached from the source, in display order (depth first). */
   order: string[];
   /** Elements not reached from the source (a broken `from`, a loop, a second source). */

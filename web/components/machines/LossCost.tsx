@@ -12,7 +12,7 @@ import { costPrefProblem, energyPrice, operatingHours } from '../../state/prefs.
 import { type Locale, ProblemLines } from './shared.tsx';
 
 /** A number setting kept in the user's preferences (typed in their number format, checked by core). */
-export function PrefNumber({
+function PrefNumber({
   id,
   label,
   unit,

@@ -8,7 +8,7 @@ import { fromSi, inputUnit } from '../../format/parse.ts';
 import { formatShaftPower, type UnitSystem } from '../../format/units.ts';
 import type { Locale } from './shared.tsx';
 
-export const quantity = (kind: 'flow' | 'head', si: number, units: UnitSystem, locale: Locale) =>
+const quantity = (kind: 'flow' | 'head', si: number, units: UnitSystem, locale: Locale) =>
   `${formatSignificant(fromSi(kind, units, si), 4, locale)}${UNIT_GAP}${inputUnit(kind, units).symbol}`;
 
 export function MotorCard({ m, locale }: { m: MotorDetail; locale: Locale }) {

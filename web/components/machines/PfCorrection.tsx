@@ -104,7 +104,7 @@ export function PfCorrectionControl({ result, locale }: { result: SolveResult; l
   );
 }
 
-export function PfResult({ c, locale }: { c: PfCorrectionShown; locale: Locale }) {
+function PfResult({ c, locale }: { c: PfCorrectionShown; locale: Locale }) {
   const cap = c.bank.capacitance;
   const uF = (f: number | undefined) => (f === undefined ? '—' : `${formatSignificant(f * 1e6, 4, locale)}${UNIT_GAP}µF`);
   return (

@@ -7,14 +7,14 @@ import { formatConductorSize } from '../../format/units.ts';
 import { deviceBlock, name, obj, remove, valueAt } from './common.ts';
 import type { ChoiceOption, FieldSpec, FormContext, FormElement, KindForm } from './types.ts';
 
-export const NEC_COLUMNS: readonly ChoiceOption[] = [
+const NEC_COLUMNS: readonly ChoiceOption[] = [
   { value: 60, label: '60 °C (140 °F) column' },
   { value: 75, label: '75 °C (167 °F) column' },
   { value: 90, label: '90 °C (194 °F) column' },
 ];
 
-export const IEC_METHODS: readonly IecInstallationMethod[] = ['A1', 'A2', 'B1', 'B2', 'C', 'D1', 'D2', 'E', 'F', 'G'];
-export const IEC_METHOD_WORDS: Record<IecInstallationMethod, string> = {
+const IEC_METHODS: readonly IecInstallationMethod[] = ['A1', 'A2', 'B1', 'B2', 'C', 'D1', 'D2', 'E', 'F', 'G'];
+const IEC_METHOD_WORDS: Record<IecInstallationMethod, string> = {
   A1: 'A1 — in conduit in an insulated wall',
   A2: 'A2 — multi-core in conduit in an insulated wall',
   B1: 'B1 — in conduit on a wall',
@@ -27,9 +27,9 @@ export const IEC_METHOD_WORDS: Record<IecInstallationMethod, string> = {
   G: 'G — single-core spaced, in free air',
 };
 
-export type Material = 'copper' | 'aluminium';
-export const materialOf = (e: FormElement): Material => (valueAt(e, 'conductor.material') === 'aluminium' ? 'aluminium' : 'copper');
-export const systemOf = (e: FormElement): 'nec' | 'iec' => (valueAt(e, 'conductor.system') === 'iec' ? 'iec' : 'nec');
+type Material = 'copper' | 'aluminium';
+const materialOf = (e: FormElement): Material => (valueAt(e, 'conductor.material') === 'aluminium' ? 'aluminium' : 'copper');
+const systemOf = (e: FormElement): 'nec' | 'iec' => (valueAt(e, 'conductor.system') === 'iec' ? 'iec' : 'nec');
 
 /** Conductor sizes of the system's table for the material, "auto" first (core's catalogue). */
 export function sizeOptions(e: FormElement, ctx: FormContext): ChoiceOption[] {
@@ -52,7 +52,7 @@ export function methodOptions(e: FormElement): ChoiceOption[] {
 }
 
 /** A size missing from the new material's (or system's) table goes back to "auto". */
-export const keepSize = (e: FormElement) => {
+const keepSize = (e: FormElement) => {
   const c = obj(e['conductor']);
   const size = c['size'];
   if (size === 'auto') return;
@@ -60,7 +60,7 @@ export const keepSize = (e: FormElement) => {
   if (!listed) c['size'] = 'auto';
 };
 
-export const conductorCommon = (system: 'nec' | 'iec'): FieldSpec[] => [
+const conductorCommon = (system: 'nec' | 'iec'): FieldSpec[] => [
   {
     type: 'choice',
     path: 'conductor.material',

@@ -17,7 +17,7 @@ export function valueAt(e: unknown, path: string): unknown {
 }
 
 export const obj = (v: unknown): FormElement => (typeof v === 'object' && v !== null && !Array.isArray(v) ? (v as FormElement) : {});
-export const num = (v: unknown): number | undefined => (typeof v === 'number' && Number.isFinite(v) ? v : undefined);
+const num = (v: unknown): number | undefined => (typeof v === 'number' && Number.isFinite(v) ? v : undefined);
 export const remove = (e: FormElement, ...keys: string[]) => keys.forEach((k) => delete e[k]);
 
 export const name: TextSpec = { type: 'text', path: 'name', label: 'Name', required: false, help: 'What you call it on site, e.g. "Inverter to hut board".' };
@@ -25,14 +25,14 @@ export const name: TextSpec = { type: 'text', path: 'name', label: 'Name', requi
 export const percentOf = (what: string) => `${what} (%)`;
 
 /** Example datasheet points of a converter (common practice shape, for the user to replace). */
-export const EXAMPLE_POINTS = [
+const EXAMPLE_POINTS = [
   { loadFraction: 0.1, efficiency: 0.9 },
   { loadFraction: 0.25, efficiency: 0.94 },
   { loadFraction: 0.5, efficiency: 0.955 },
   { loadFraction: 1, efficiency: 0.95 },
 ];
 
-export const efficiencyColumns: readonly PointsColumn[] = [
+const efficiencyColumns: readonly PointsColumn[] = [
   { key: 'loadFraction', label: 'Load (% of rated output)', quantity: 'fraction-percent' },
   { key: 'efficiency', label: 'Efficiency (%)', quantity: 'fraction-percent' },
 ];
@@ -44,7 +44,7 @@ export function nextPoint(rows: readonly Record<string, number>[], valueKey: str
   return { loadFraction: Math.round((x + 0.25) * 100) / 100, [valueKey]: last?.[valueKey] ?? fallback };
 }
 
-export function pointsSpec(path: string, label: string, minRows: number, help: string): PointsSpec {
+function pointsSpec(path: string, label: string, minRows: number, help: string): PointsSpec {
   return {
     type: 'points',
     path,

@@ -82,13 +82,13 @@ export const transformerForm: KindForm = {
   ],
 };
 
-export const electricalKinds: readonly ChoiceOption[] = [
+const electricalKinds: readonly ChoiceOption[] = [
   { value: 'dc', label: 'DC' },
   { value: 'ac1', label: 'AC single-phase' },
   { value: 'ac3', label: 'AC three-phase' },
 ];
-export const acIn = (e: FormElement) => e['inputKind'] !== 'dc';
-export const acOut = (e: FormElement) => e['outputKind'] !== 'dc';
+const acIn = (e: FormElement) => e['inputKind'] !== 'dc';
+const acOut = (e: FormElement) => e['outputKind'] !== 'dc';
 
 export const genericForm: KindForm = {
   kind: 'generic',

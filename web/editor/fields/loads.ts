@@ -26,7 +26,7 @@ export const acVaLoadForm: KindForm = {
 };
 
 /** A load given by its current keeps that current when the voltage sags (constant current). */
-export const CURRENT_LOAD_HELP = 'The current stays at this value when the voltage sags; the power drawn follows the voltage.';
+const CURRENT_LOAD_HELP = 'The current stays at this value when the voltage sags; the power drawn follows the voltage.';
 
 export const dcCurrentLoadForm: KindForm = {
   kind: 'dc-current-load',

@@ -7,7 +7,7 @@ import { DESIGN_CURRENT_HELP, frequency, LINE_TO_LINE, lossGroup, name, nextPoin
 import type { KindForm, NumberSpec, PointsSpec } from './types.ts';
 
 /** Losses of an IEC 61800-9-2 IE2 reference drive at the eight points, % of rated VA (core/data/iec-61800-9-2.ts). */
-export const IE2_POINT_LABELS = [
+const IE2_POINT_LABELS = [
   '0 % speed, 25 % torque',
   '0 % speed, 50 % torque',
   '0 % speed, 100 % torque',
@@ -112,7 +112,7 @@ export const driveForm: KindForm = {
   ],
 };
 
-export const CLASS_LABELS: Record<string, string> = {
+const CLASS_LABELS: Record<string, string> = {
   IE1: 'IE1 standard (IEC 60034-30-1)',
   IE2: 'IE2 high (IEC 60034-30-1)',
   IE3: 'IE3 premium (IEC 60034-30-1)',
@@ -120,7 +120,7 @@ export const CLASS_LABELS: Record<string, string> = {
   'NEMA-premium': 'NEMA Premium (MG 1 Table 12-12)',
 };
 
-export const pfCurvePoints: PointsSpec = {
+const pfCurvePoints: PointsSpec = {
   type: 'points',
   path: 'powerFactor.points',
   label: 'Power factor points',

@@ -15,7 +15,7 @@ export const DROP_BASES: readonly ChoiceOption[] = [
 ];
 
 /** The limits of the chosen basis alone (the engine's values shown as placeholders). */
-export function basisOnly(p: FormElement): DropLimits {
+function basisOnly(p: FormElement): DropLimits {
   const basis = valueAt(p, 'dropLimits.basis');
   return DROP_BASES.some((b) => b.value === basis) ? { basis: basis as NonNullable<DropLimits['basis']> } : {};
 }

@@ -64,7 +64,7 @@ export function shownFields(fields: readonly FieldSpec[], e: FormElement): Field
   return out;
 }
 
-export function fillDefaults(fields: readonly FieldSpec[], e: FormElement): void {
+function fillDefaults(fields: readonly FieldSpec[], e: FormElement): void {
   for (const f of fields) {
     if (f.when && !f.when(e)) continue;
     if (f.type === 'group') {
@@ -80,7 +80,7 @@ export function fillDefaults(fields: readonly FieldSpec[], e: FormElement): void
   }
 }
 
-export function setPath(e: FormElement, path: string, value: unknown): void {
+function setPath(e: FormElement, path: string, value: unknown): void {
   const keys = path.split('.');
   let at: FormElement = e;
   for (const k of keys.slice(0, -1)) {

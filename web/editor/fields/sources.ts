@@ -29,14 +29,14 @@ export const acSource = (kind: 'grid' | 'generator'): KindForm => ({
 });
 
 /** Preset value of one chemistry field, for an override's placeholder. */
-export function presetValue(e: FormElement, key: keyof ChemistryValues): number | undefined {
+function presetValue(e: FormElement, key: keyof ChemistryValues): number | undefined {
   const chemistry = valueAt(e, 'bank.chemistry');
   const preset = typeof chemistry === 'string' ? CHEMISTRY_PRESETS[chemistry as Chemistry] : undefined;
   const v = preset?.[key];
   return typeof v === 'number' ? v : undefined;
 }
 
-export const override = (key: keyof ChemistryValues, label: string, quantity: Quantity, help?: string): NumberSpec => ({
+const override = (key: keyof ChemistryValues, label: string, quantity: Quantity, help?: string): NumberSpec => ({
   type: 'number',
   path: `bank.overrides.${String(key)}`,
   label,

@@ -22,7 +22,7 @@ export interface ChoiceOption {
   disabled?: string;
 }
 
-export interface FieldBase {
+interface FieldBase {
   /** Dotted path inside the element ("loss.efficiency", "conductor.size"). */
   path: string;
   label: string;
