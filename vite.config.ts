@@ -14,6 +14,8 @@ import { VitePWA } from 'vite-plugin-pwa';
 import { readFileSync } from 'node:fs';
 
 const repoRoot = fileURLToPath(new URL('.', import.meta.url));
+/** The engine's entry files for the page: re-exports only, so free of side effects (see build below). */
+const ENGINE_ENTRY = /[\\/]core[\\/](page|studies[\\/]index)\.ts$/;
 const webRoot = fileURLToPath(new URL('./web', import.meta.url));
 /** The version the page shows and the service worker's precache follows (package.json). */
 const appVersion = (JSON.parse(readFileSync(new URL('./package.json', import.meta.url), 'utf8')) as { version: string }).version;
@@ -48,6 +50,17 @@ export default defineConfig({
     outDir: fileURLToPath(new URL('./dist/', import.meta.url)),
     emptyOutDir: true,
     target: 'es2022',
+    rollupOptions: {
+      // The engine's entry files for the page (core/page.ts, core/studies/index.ts) are re-exports only
+      // (tests/tools/entry-points.test.ts checks it), so importing one runs nothing of its own: without
+      // this the bundler would keep every module behind an entry that has a top-level call (a study
+      // the importing chunk never uses) and a lazy chunk would load other studies' code.
+      treeshake: { moduleSideEffects: (id: string) => !ENGINE_ENTRY.test(id) },
+    },
+  },
+  // The panel worker is bundled on its own: the same rule for the engine's entry files there.
+  worker: {
+    rollupOptions: { treeshake: { moduleSideEffects: (id: string) => !ENGINE_ENTRY.test(id) } },
   },
   server: {
     host: '127.0.0.1',

@@ -195,8 +195,8 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
 
   it('machines: the pump duty study energies, a capacitor bank, the yearly cost of the losses', async () => {
     const project = demo('riverside-pump-station');
-    const flow = projectPumpDuty(project);
-    if (!flow.ok) throw new Error(JSON.stringify(flow.problems));
+    const duty = projectPumpDuty(project);
+    if (!duty.ok) throw new Error(JSON.stringify(duty.problems));
     // The motor is fed by the drive: no bank there (issue 14, point 13); the control offers the service first.
     const pfc = correctPowerFactor(project, { at: 'service', targetPowerFactor: 0.95 });
     if (!pfc.ok) throw new Error(JSON.stringify(pfc.problems));
@@ -209,10 +209,10 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
       const { context, page, errors } = await openDemo('riverside-pump-station', viewport);
       try {
         const body = await openPanel(page, 'machines');
-        await page.getByTestId('flow-study').waitFor();
-        expect(plain(await page.getByTestId('flow-energy-drive').textContent())).toBe(plain(formatEnergy(flow.result.speedControl.energyWh, 'en-US')));
-        expect(plain(await page.getByTestId('flow-energy-throttle').textContent())).toBe(plain(formatEnergy(flow.result.throttle.energyWh, 'en-US')));
-        expect(plain(await page.getByTestId('flow-energy-on-off').textContent())).toBe(plain(formatEnergy(flow.result.onOff.energyWh, 'en-US')));
+        await page.getByTestId('pump-duty-study').waitFor();
+        expect(plain(await page.getByTestId('pump-duty-energy-drive').textContent())).toBe(plain(formatEnergy(duty.result.speedControl.energyWh, 'en-US')));
+        expect(plain(await page.getByTestId('pump-duty-energy-throttle').textContent())).toBe(plain(formatEnergy(duty.result.throttle.energyWh, 'en-US')));
+        expect(plain(await page.getByTestId('pump-duty-energy-on-off').textContent())).toBe(plain(formatEnergy(duty.result.onOff.energyWh, 'en-US')));
         expect(await page.getByTestId('motor-card').count()).toBe(1);
 
         // The capacitor bank at the service at 0.95 (the control's default choice and target; never the drive-fed motor).

@@ -16,7 +16,7 @@ export const LAYERS: readonly { name: string; paths: readonly string[] }[] = [
   { name: 'conductor sizing', paths: ['core/conductors/'] },
   { name: 'solve', paths: ['core/solve/'] },
   { name: 'studies', paths: ['core/studies/'] },
-  { name: 'command line and public API', paths: ['core/cli/', 'core/schema/', 'core/demos/', 'core/index.ts'] },
+  { name: 'command line and public API', paths: ['core/cli/', 'core/schema/', 'core/demos/', 'core/index.ts', 'core/page.ts'] },
 ];
 
 /** The layer's index of a file of core/, or undefined when no layer claims it. */

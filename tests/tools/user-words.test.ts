@@ -184,7 +184,7 @@ function projectReads(project: unknown, label: string): Read[] {
   const flow = projectPumpDuty(project);
   if (flow.ok) {
     const costs = pumpDutyCosts(flow.result, 0.2);
-    if (costs.ok) for (const s of strings(costs.costs)) reads.push({ area: 'ours', where: `${label} flow-study costs ${s.path}`, text: s.text });
+    if (costs.ok) for (const s of strings(costs.costs)) reads.push({ area: 'ours', where: `${label} pump-duty costs ${s.path}`, text: s.text });
   }
   const p = project as { backup?: unknown; elements: { id: string; kind: string; bank?: unknown }[] };
   if (p.backup !== undefined && p.elements.some((e) => e.kind === 'battery' && e.bank !== undefined)) {

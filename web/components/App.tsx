@@ -8,7 +8,7 @@ import { CableTable, ElementTable, EnergyBalance, MethodNote, PortTable, Warning
 import { useOffscreenLag } from './lag.ts';
 import { lazy, memo, Suspense } from 'preact/compat';
 import { useEffect, useState } from 'preact/hooks';
-import type { SolveResult } from '../../core/model/result.ts';
+import type { SolveResult } from '../../core/page.ts';
 import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
 import { crashMessage, draft, draftOrigin, draftProblems, lastValidResult, openCount, resultsState } from '../state/editor.ts';
 

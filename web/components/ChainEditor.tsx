@@ -15,15 +15,13 @@ import { useSignal } from '@preact/signals';
 import { memo } from 'preact/compat';
 import { useCallback, useEffect, useMemo, useRef } from 'preact/hooks';
 import type { ComponentChildren } from 'preact';
-import type { ElementKind } from '../../core/model/project.ts';
-import type { ElementResult, SolveResult } from '../../core/model/result.ts';
+import type { ElementKind, ElementResult, SolveResult } from '../../core/page.ts';
 import { nominalPorts, offeredTemplates, type AddOperation, type FeedingPort } from '../editor/templates.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import {
   addBranch,
   canRedo,
   canUndo,
-  childrenOf,
   draft,
   draftProblems,
   duplicate,
@@ -53,140 +51,9 @@ import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { keyInputs, StageCard } from './StageCard.tsx';
 import { useOffscreenLag, type BoxRef } from './lag.ts';
 import { StageForm } from './StageForm.tsx';
+import { ADD_WORDS, NOTHING_OFFERED, type ToolAction, ToolButton } from './chain/Toolbar.tsx';
+import { layoutOf, neighbour } from './chain/card-layout.ts';
 import './ChainEditor.css';
-
-// ---------- the tree as the cards show it ----------
-
-interface Layout {
-  /** Elements reached from the source, in display order (depth first). */
-  order: string[];
-  /** Elements not reached from the source (a broken `from`, a loop, a second source). */
-  loose: string[];
-  parent: Map<string, string | undefined>;
-  children: Map<string, string[]>;
-}
-
-function layoutOf(p: DraftProject): Layout {
-  const children = new Map<string, string[]>();
-  const parent = new Map<string, string | undefined>();
-  const order: string[] = [];
-  const seen = new Set<string>();
-  const walk = (id: string, from: string | undefined) => {
-    if (seen.has(id)) return;
-    seen.add(id);
-    order.push(id);
-    parent.set(id, from);
-    const kids = childrenOf(p, id).map((c) => c.id).filter((c) => !seen.has(c));
-    children.set(id, kids);
-    for (const k of kids) walk(k, id);
-  };
-  const root = rootOf(p);
-  if (root) walk(root.id, undefined);
-  const loose = p.elements.map((e) => e.id).filter((id) => !seen.has(id));
-  for (const id of loose) {
-    parent.set(id, undefined);
-    children.set(id, []);
-  }
-  return { order, loose, parent, children };
-}
-
-/** The card reached from `id` by an arrow key, or undefined. */
-function neighbour(layout: Layout, id: string, key: string): string | undefined {
-  const all = [...layout.order, ...layout.loose];
-  if (key === 'Home') return all[0];
-  if (key === 'End') return all.at(-1);
-  if (layout.loose.includes(id)) {
-    const i = layout.loose.indexOf(id);
-    if (key === 'ArrowLeft' || key === 'ArrowUp') return layout.loose[i - 1] ?? layout.order.at(-1);
-    if (key === 'ArrowRight' || key === 'ArrowDown') return layout.loose[i + 1];
-    return undefined;
-  }
-  if (key === 'ArrowLeft') return layout.parent.get(id);
-  if (key === 'ArrowRight') return layout.children.get(id)?.[0];
-  if (key === 'ArrowUp' || key === 'ArrowDown') {
-    const step = key === 'ArrowUp' ? -1 : 1;
-    // The nearest sibling branch in that direction, of this card or of the first ancestor that has one.
-    for (let at: string | undefined = id; at !== undefined; at = layout.parent.get(at)) {
-      const feeder = layout.parent.get(at);
-      if (feeder === undefined) break;
-      const siblings = layout.children.get(feeder) ?? [];
-      const next = siblings[siblings.indexOf(at) + step];
-      if (next !== undefined) return next;
-    }
-    if (step === 1 && layout.loose.length) return layout.loose[0];
-  }
-  return undefined;
-}
-
-// ---------- icons (our own, drawn on a 20 × 20 grid) ----------
-
-const ICONS: Record<string, string> = {
-  after: 'M3 10h9M9 6l4 4-4 4M16 5v10',
-  branch: 'M3 6h6c2 0 3 1 3 3v6M12 15l-3-3M12 15l3-3M3 6h14',
-  before: 'M17 10H8M11 6l-4 4 4 4M4 5v10',
-  remove: 'M5 5l10 10M15 5 5 15',
-  removeBranch: 'M3 10h4M9 5l8 10M17 5l-8 10',
-  duplicate: 'M4 4h8v8H4zM8 8h8v8H8z',
-  up: 'M10 16V4M5 9l5-5 5 5',
-  down: 'M10 4v12M5 11l5 5 5-5',
-  left: 'M16 10H4M9 5l-5 5 5 5',
-  right: 'M4 10h12M11 5l5 5-5 5',
-  undo: 'M7 5 3 9l4 4M3 9h9a5 5 0 0 1 0 10h-2',
-  redo: 'M13 5l4 4-4 4M17 9H8a5 5 0 0 0 0 10h2',
-};
-
-const Icon = memo(function Icon({ name }: { name: keyof typeof ICONS }) {
-  return (
-    <svg class="editor-icon" viewBox="0 0 20 20" width="20" height="20" aria-hidden="true" focusable="false">
-      <path d={ICONS[name]} fill="none" stroke="currentColor" stroke-width="1.8" stroke-linecap="round" stroke-linejoin="round" />
-    </svg>
-  );
-});
-
-/** What a toolbar button does (ChainEditor's `act` carries it out). */
-type ToolAction = 'undo' | 'redo' | AddOperation | 'duplicate' | 'upstream' | 'downstream' | 'branchUp' | 'branchDown' | 'remove' | 'removeBranch';
-
-/**
- * memo: every prop is a plain value and `onAct` keeps one identity, so an edit elsewhere (typing in
- * a stage form) re-renders only the buttons whose state changed.
- */
-const ToolButton = memo(function ToolButton(props: {
-  icon: keyof typeof ICONS;
-  label: string;
-  action: ToolAction;
-  onAct: (action: ToolAction, ev: MouseEvent) => void;
-  disabled?: boolean;
-  title?: string;
-  testId?: string;
-  expanded?: boolean;
-}) {
-  return (
-    <button
-      type="button"
-      class="editor-tool"
-      onClick={(ev) => props.onAct(props.action, ev)}
-      disabled={props.disabled}
-      title={props.title}
-      data-testid={props.testId}
-      aria-expanded={props.expanded}
-    >
-      <Icon name={props.icon} />
-      <span>{props.label}</span>
-    </button>
-  );
-});
-
-const ADD_WORDS: Record<AddOperation, { button: string; heading: (name: string) => string }> = {
-  after: { button: 'Add after', heading: (n) => `Add after ${n}` },
-  branch: { button: 'Add branch', heading: (n) => `New branch from ${n}` },
-  before: { button: 'Insert before', heading: (n) => `Insert before ${n}` },
-};
-
-const NOTHING_OFFERED: Record<AddOperation, string> = {
-  after: 'Nothing can follow here: a load feeds nothing, and whatever follows must suit what comes after it.',
-  branch: 'No branch can start here: a load feeds nothing, and a motor shaft drives one load.',
-  before: 'Nothing can go before the source: the chain starts there.',
-};
 
 function isTextEntry(target: EventTarget | null): boolean {
   if (!(target instanceof HTMLElement)) return false;

@@ -12,12 +12,8 @@
  */
 import { memo } from 'preact/compat';
 import { useEffect, useMemo, useState } from 'preact/hooks';
-import { flowGraph } from '../../core/studies/energy-flow.ts';
-import type { BatterySource, Project } from '../../core/model/project.ts';
-import type { ElementResult, SolveResult } from '../../core/model/result.ts';
-import { bankCautions } from '../../core/studies/backup/cautions.ts';
-import { CAUTION as CONDUCTOR_CAUTION } from '../../core/conductors/size.ts';
-import type { Chemistry } from '../../core/data/battery-chemistries.ts';
+import { bankCautions, flowGraph } from '../../core/studies/index.ts';
+import { type BatterySource, type Chemistry, CONDUCTOR_CAUTION, type ElementResult, type Project, type SolveResult } from '../../core/page.ts';
 import { formatDuration, formatPercent, formatPower, formatSmallPercent } from '../format/number.ts';
 import { formatConductorSize } from '../format/units.ts';
 import { elementKindLabel } from '../format/labels.ts';

@@ -8,7 +8,7 @@
  *
  * Every figure comes from the engine's result (ConductorResult, PathDrop); this file only formats.
  */
-import type { ConductorResult, ConductorStep, ElementResult, GoverningRule, PathDrop, SolveResult } from '../../core/model/result.ts';
+import type { ConductorResult, ConductorStep, ElementResult, GoverningRule, PathDrop, SolveResult } from '../../core/page.ts';
 import { formatCurrent, formatPercent, formatPower, formatSignificant, formatVoltage, UNIT_GAP } from '../format/number.ts';
 import { formatArea, formatConductorSize, formatLength, formatTemperature, type UnitSystem } from '../format/units.ts';
 import { awgWords, formatResistancePerLength } from '../format/panels.ts';

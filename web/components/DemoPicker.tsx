@@ -1,5 +1,5 @@
 /** The list of demo projects (one tap opens one) and the button that opens a file instead. */
-import { demoProjects } from '../../core/demos/index.ts';
+import { demoProjects } from '../../core/page.ts';
 import { chooseDemo, hashForDemo, openProjectFile, fileReadError, selectedDemoId } from '../state/app.ts';
 import { useSignal } from '@preact/signals';
 import type { SourceTemplate } from '../editor/templates.ts';

@@ -4,9 +4,7 @@
  * until then, and for result figures, the field's path in plain words).
  */
 import { useEffect, useState } from 'preact/hooks';
-import type { Problem } from '../../core/model/errors.ts';
-import { PROJECT_LEVEL } from '../../core/model/errors.ts';
-import { fieldWords } from '../../core/solve/finite.ts';
+import { PROJECT_LEVEL, fieldWords, type Problem } from '../../core/page.ts';
 
 type FieldsModule = typeof import('../editor/fields.ts');
 

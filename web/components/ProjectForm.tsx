@@ -4,7 +4,7 @@
  */
 import './StageForm.css';
 import { draft } from '../state/editor.ts';
-import { PROJECT_LEVEL } from '../../core/model/errors.ts';
+import { PROJECT_LEVEL } from '../../core/page.ts';
 import { PROJECT_FIELDS, type FormElement } from '../editor/fields.ts';
 import { FieldList } from './fields/FieldList.tsx';
 

@@ -6,7 +6,7 @@ import { useState } from 'preact/hooks';
 import { chooseDemo, openStoredProject } from '../state/app.ts';
 import { draftOrigin } from '../state/editor.ts';
 import { effectiveLocale } from '../state/prefs.ts';
-import { demoProjects } from '../../core/demos/index.ts';
+import { demoProjects } from '../../core/page.ts';
 import { recordName } from '../storage/record.ts';
 import { deleteStored, downloadExport, duplicateStored, hashForStored, listLoaded, projectList, renameStored } from '../storage/session.ts';
 import { appVersion } from '../sw-register.ts';

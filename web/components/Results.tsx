@@ -2,7 +2,7 @@
  * The solved project as tables: the energy balance, one row per element, one row per port.
  * Every number shown comes from the engine's result; this file only formats and arranges.
  */
-import type { ElementResult, GoverningRule, PortResult, SolveResult } from '../../core/model/result.ts';
+import type { ElementResult, GoverningRule, PortResult, SolveResult } from '../../core/page.ts';
 import {
   formatApparent,
   formatCurrent,

@@ -5,7 +5,7 @@
  * typed or a value from the engine's result, formatted.
  */
 import { memo } from 'preact/compat';
-import type { ElementResult } from '../../core/model/result.ts';
+import type { ElementResult } from '../../core/page.ts';
 import type { FeedingPort } from '../editor/templates.ts';
 import { elementKindLabel, portKindLabel } from '../format/labels.ts';
 import { formatApparent, formatCurrent, formatFrequency, formatPercent, formatPower, formatVoltage } from '../format/number.ts';

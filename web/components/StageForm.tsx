@@ -9,7 +9,7 @@ import { draft, draftProblems } from '../state/editor.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import { formFor, shownFields, type FormElement } from '../editor/fields.ts';
 import { FieldList } from './fields/FieldList.tsx';
-import { fieldWords } from '../../core/solve/finite.ts';
+import { fieldWords } from '../../core/page.ts';
 
 export function StageForm({ elementId }: { elementId: string }) {
   const project = draft.value;

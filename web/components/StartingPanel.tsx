@@ -7,10 +7,9 @@
  * and this file only formats (web/format/number.ts, in the chosen locale).
  */
 import { useMemo } from 'preact/hooks';
-import { studySurges } from '../../core/studies/surge/index.ts';
-import { elementNames, nonFiniteProblems } from '../../core/solve/finite.ts';
+import { type DeviceCheck, type FaultPoint, type MotorStartResult, type StartCheck, studySurges } from '../../core/studies/index.ts';
+import { elementNames, nonFiniteProblems } from '../../core/page.ts';
 import { problemLine } from './problem-words.ts';
-import type { DeviceCheck, FaultPoint, MotorStartResult, StartCheck } from '../../core/studies/surge/types.ts';
 import { formatApparent, formatCurrent, formatPercent, formatSignificant, formatVoltage, UNIT_GAP } from '../format/number.ts';
 import { effectiveLocale } from '../state/prefs.ts';
 import './Panels.css';

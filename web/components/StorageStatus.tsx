@@ -4,7 +4,7 @@
  * whether the browser keeps the data for good and how much room it uses.
  */
 import { formatSavedAt } from './ProjectList.tsx';
-import { demoProjects } from '../../core/demos/index.ts';
+import { demoProjects } from '../../core/page.ts';
 import { chooseDemo } from '../state/app.ts';
 import {
   checkPersistence,

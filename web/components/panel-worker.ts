@@ -9,17 +9,8 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { runBackupStudy, type BackupStudyResult } from '../../core/studies/backup/study.ts';
-import { bankCautions, rechargeCautions } from '../../core/studies/backup/cautions.ts';
-import { machineDetails, type DriveDetail, type MotorDetail } from '../../core/studies/machines/details.ts';
-import { pumpDetails, projectPumpDuty, type PumpDetail } from '../../core/studies/machines/pump-duty.ts';
-import type { PumpControlResult } from '../../core/physics/pump-fan.ts';
-import { correctPowerFactor, type PfCorrection } from '../../core/studies/pf/correction.ts';
-import { pumpDutyCosts, lossCostPerYear, type CostSettings, type LossCost, type MethodCosts } from '../../core/studies/economics.ts';
-import { validateProject } from '../../core/solve/validate.ts';
-import { elementNames, nonFiniteProblems } from '../../core/solve/finite.ts';
-import type { Problem } from '../../core/model/errors.ts';
-import type { SolveResult } from '../../core/model/result.ts';
+import { type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, pumpDutyCosts, rechargeCautions, runBackupStudy } from '../../core/studies/index.ts';
+import { elementNames, nonFiniteProblems, type Problem, type SolveResult, validateProject } from '../../core/page.ts';
 
 export type PanelRequest =
   | { kind: 'battery'; project: unknown }
@@ -35,7 +26,7 @@ export interface MachinesFigures {
   motors: MotorDetail[];
   drives: DriveDetail[];
   pumps: PumpDetail[];
-  flow?: { ok: true; result: PumpControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
+  pumpDuty?: { ok: true; result: PumpControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
   lossCost?: { ok: true; cost: LossCost } | { ok: false; problems: Problem[] };
 }
 
@@ -86,8 +77,8 @@ function machines(input: unknown, result: SolveResult, cost: CostSettings | null
     const f = projectPumpDuty(input);
     if (f.ok) {
       const costs = cost ? pumpDutyCosts(f.result, cost.pricePerKWh) : undefined;
-      figures.flow = { ok: true, result: f.result, ...(costs?.ok ? { costs: costs.costs } : {}) };
-    } else figures.flow = { ok: false, problems: f.problems };
+      figures.pumpDuty = { ok: true, result: f.result, ...(costs?.ok ? { costs: costs.costs } : {}) };
+    } else figures.pumpDuty = { ok: false, problems: f.problems };
   }
   if (cost) figures.lossCost = lossCostPerYear(result, cost);
   const notFinite = nonFiniteProblems('The machines study', figures, elementNames(input));

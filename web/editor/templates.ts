@@ -12,9 +12,7 @@
  * reads; nothing here computes an engineering result. The pump template's flow is chosen with the engine's own
  * shaft-power function (core/physics/pump-fan.ts).
  */
-import type { ElementKind, PortKind } from '../../core/model/project.ts';
-import { KINDS, type NominalPort } from '../../core/kinds/index.ts';
-import { pumpShaftPower } from '../../core/physics/pump-fan.ts';
+import { type ElementKind, KINDS, type NominalPort, type PortKind, pumpShaftPower } from '../../core/page.ts';
 import type { DraftElement, DraftProject } from '../state/editor.ts';
 
 /** A port as the templates see it: its kind and, when known, nominal voltage (line-to-line on 3φ) and frequency. */

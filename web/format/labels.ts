@@ -1,5 +1,5 @@
 /** Words shown for the engine's element and port kinds (display only). */
-import type { ElementKind, PortKind } from '../../core/model/project.ts';
+import type { ElementKind, PortKind } from '../../core/page.ts';
 
 const ELEMENT_KIND_LABELS: Record<ElementKind, string> = {
   grid: 'Utility supply',

@@ -3,7 +3,7 @@
  * cut short, "#project=%E0%A4%A") makes decodeURIComponent throw, which must never stop the page from
  * opening. Pure (no DOM), so the Node tests check it; app.ts acts on it.
  */
-import { demoProjects } from '../../core/demos/index.ts';
+import { demoProjects } from '../../core/page.ts';
 
 export const DEMO_HASH_PREFIX = '#demo=';
 

@@ -5,7 +5,7 @@
  * which holds the draft, its history and its solution. The page never computes engineering values.
  */
 import { computed, signal } from '@preact/signals';
-import { demoProjects } from '../../core/demos/index.ts';
+import { demoProjects } from '../../core/page.ts';
 import { draft, draftOrigin, loadProject, type DraftProject } from './editor.ts';
 import { importFile, openLatestStored, openStored, storageNotice, storedIdFromHash } from '../storage/session.ts';
 import { addressProblem, demoIdFromHash, hashForDemo } from './address.ts';

@@ -16,11 +16,7 @@
  *   operation past one is refused with a message, and the draft stays as it was.
  */
 import { batch, computed, effect, signal } from '@preact/signals';
-import { solveProject, validateProject, type SolveOutcome } from '../../core/solve/index.ts';
-import type { Problem } from '../../core/model/errors.ts';
-import { PROJECT_LEVEL } from '../../core/model/errors.ts';
-import type { SolveResult } from '../../core/model/result.ts';
-import { PROJECT_VERSION } from '../../core/model/migrate.ts';
+import { PROJECT_LEVEL, type Problem, PROJECT_VERSION, type SolveOutcome, solveProject, type SolveResult, validateProject } from '../../core/page.ts';
 import { DEPTH_IN_FILE, ENVELOPE_VALUES, FILE_LIMITS, limitWords, scanLimits, withSuffix, type LimitIssue } from '../storage/limits.ts';
 
 /** One element as edited: plain data, checked by the engine on every solve. */

@@ -1,6 +1,6 @@
 /**
  * The project file: export (an envelope around the project) and import (never trusting the file).
- * Pure: bytes in, a checked project or a message out. No DOM, no storage — web/storage/session.ts reads
+ * Pure: bytes in, a checked project or a message out. No DOM, no storage — web/storage/files.ts reads
  * the file and stores the result; the Node tests call these functions directly.
  *
  * An import is refused, with a sentence saying why, when the file is too large, empty, not UTF-8 text,
@@ -10,9 +10,8 @@
  * A project whose fields the engine rejects is still accepted (it opens with its problems listed, to
  * be fixed); the engine's checks run on it afterwards, not here.
  */
-import { PROJECT_VERSION, migrateProject } from '../../core/model/migrate.ts';
+import { issueMessage, migrateProject, PROJECT_VERSION } from '../../core/page.ts';
 import * as z from 'zod/mini';
-import { issueMessage } from '../../core/solve/issue-messages.ts';
 import type { DraftProject } from '../state/editor.ts';
 import { fileNameStem } from '../format/labels.ts';
 import { FILE_LIMITS, FORBIDDEN_KEYS, scanLimits } from './limits.ts';

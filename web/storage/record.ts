@@ -5,8 +5,7 @@
  */
 import { FILE_LIMITS, withSuffix } from './limits.ts';
 import { z } from 'zod/mini';
-import { issueMessage } from '../../core/solve/issue-messages.ts';
-import { migrateProject } from '../../core/model/migrate.ts';
+import { issueMessage, migrateProject } from '../../core/page.ts';
 import type { DraftProject } from '../state/editor.ts';
 
 /** Version of the stored record layout written by this build. Raise it with a migration below. */

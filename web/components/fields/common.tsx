@@ -4,7 +4,7 @@
  * tie the label, the help line and the message to the control.
  */
 import type { ComponentChildren } from 'preact';
-import { PROJECT_LEVEL } from '../../../core/model/errors.ts';
+import { PROJECT_LEVEL } from '../../../core/page.ts';
 import { draft, draftProblems, edit, elementName, fieldErrors, fieldError, setFieldError, type DraftProject } from '../../state/editor.ts';
 import { messageForField, type FormElement } from '../../editor/fields.ts';
 import type { Quantity } from '../../format/parse.ts';

@@ -1,0 +1,18 @@
+/**
+ * The studies as the page loads them on demand (re-exports only; design in DEVELOPERS.md, "Entry points").
+ *
+ * The study panels, the energy-flow diagram, the client report and the panel worker import studies
+ * through this file; nothing the first screen loads statically may (tests/tools/entry-points.test.ts),
+ * so study code stays in lazy chunks. The rest of the engine the page needs is in `core/page.ts`.
+ */
+export { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from './energy-flow.ts';
+export { runBackupStudy, type BackupStudyResult } from './backup/study.ts';
+export type { Derate } from './backup/discharge.ts';
+export { bankCautions, rechargeCautions } from './backup/cautions.ts';
+export { machineDetails, type DriveDetail, type MotorDetail } from './machines/details.ts';
+export { projectPumpDuty, pumpDetails, type PumpDetail } from './machines/pump-duty.ts';
+export type { PumpControlResult } from '../physics/pump-fan.ts';
+export { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from './pf/placement.ts';
+export { correctPowerFactor, type PfCorrection } from './pf/correction.ts';
+export { lossCostPerYear, pumpDutyCosts, type CostSettings, type LossCost, type MethodCosts } from './economics.ts';
+export { studySurges, type DeviceCheck, type FaultPoint, type MotorStartResult, type StartCheck } from './surge/index.ts';

@@ -1,0 +1,75 @@
+/**
+ * The machines panel's pump duty study: energy per year by drive, throttle and on-off, and what each costs.
+ */
+import type { MachinesFigures } from '../panel-worker.ts';
+import { formatEnergy, formatPercent, formatSignificant, UNIT_GAP } from '../../format/number.ts';
+import { formatMoney } from '../../format/panels.ts';
+import { type Locale, ProblemLines } from './shared.tsx';
+
+export function PumpDuty({ duty, locale }: { duty: NonNullable<MachinesFigures['pumpDuty']>; locale: Locale }) {
+  if (!duty.ok) {
+    return (
+      <section class="panel-section" aria-labelledby="pump-duty-heading">
+        <h4 id="pump-duty-heading">Pump duty: flow control over a year</h4>
+        <ProblemLines problems={duty.problems} />
+      </section>
+    );
+  }
+  const f = duty.result;
+  const c = duty.costs ?? null;
+  const rows: { key: string; label: string; energy: number; cost?: number }[] = [
+    { key: 'drive', label: 'Drive (speed control)', energy: f.speedControl.energyWh, cost: c?.speedControl },
+    { key: 'throttle', label: 'Throttle valve', energy: f.throttle.energyWh, cost: c?.throttle },
+    { key: 'on-off', label: 'On-off at the design point', energy: f.onOff.energyWh, cost: c?.onOff },
+  ];
+  return (
+    <section class="panel-section" aria-labelledby="pump-duty-heading" data-testid="pump-duty-study">
+      <h4 id="pump-duty-heading">Pump duty: flow control over a year</h4>
+      <p class="note">
+        {formatSignificant(f.totalHours, 5, locale)}
+        {UNIT_GAP}h a year over {f.points.length} duty points. Method: {f.method}.
+      </p>
+      <div class="table-scroll" role="region" aria-labelledby="pump-duty-heading" tabIndex={0}>
+        <table class="data panel-table" data-testid="pump-duty-table">
+          <thead>
+            <tr>
+              <th scope="col">Method</th>
+              <th scope="col" class="num">Energy per year</th>
+              {c && <th scope="col" class="num">Cost per year</th>}
+            </tr>
+          </thead>
+          <tbody>
+            {rows.map((r) => (
+              <tr key={r.key} data-method={r.key}>
+                <th scope="row">{r.label}</th>
+                <td class="num" data-testid={`pump-duty-energy-${r.key}`}>
+                  {formatEnergy(r.energy, locale)}
+                </td>
+                {c && <td class="num">{formatMoney(r.cost ?? Number.NaN, locale)}</td>}
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+      <p class="panel-headline" data-testid="pump-duty-savings">
+        The drive saves {formatEnergy(f.savingVsThrottleWh, locale)} a year against throttling ({formatPercent(f.savingVsThrottleFraction, locale, 3)})
+        {c ? `, ${formatMoney(c.savingVsThrottle, locale)}` : ''}, and {formatEnergy(f.savingVsOnOffWh, locale)} against on-off ({formatPercent(f.savingVsOnOffFraction, locale, 3)})
+        {c ? `, ${formatMoney(c.savingVsOnOff, locale)}` : ''}.
+      </p>
+      <p class="note">
+        Shaft energy with the drive on the system curve: {formatEnergy(f.speedControlShaftEnergyWh, locale)}; the bare cube law would say{' '}
+        {formatEnergy(f.cubeLawShaftEnergyWh, locale)} — static head keeps the real figure above it, so the cube law oversells the savings.
+      </p>
+      <p class="note">
+        Motor: {f.motorSource}. Drive: {f.driveSource}.
+      </p>
+      {f.warnings.length > 0 && (
+        <ul class="panel-warnings">
+          {f.warnings.map((w) => (
+            <li key={w}>{w}</li>
+          ))}
+        </ul>
+      )}
+    </section>
+  );
+}
