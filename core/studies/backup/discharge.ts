@@ -29,10 +29,9 @@
  */
 import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, type BankDesign } from './cautions.ts';
 import type { BackupStudy, BatterySource, Element, Project } from '../../model/project.ts';
-import type { ElementResult } from '../../model/result.ts';
+import type { ElementResult, SolveResult } from '../../model/result.ts';
 import type { Problem } from '../../model/errors.ts';
-import { validateProject } from '../../solve/validate.ts';
-import { solveProject } from '../../solve/index.ts';
+import { solveVariant, variantProject, type Solved, type VariantChange } from '../../solve/index.ts';
 import { prepareRepeat, type StepPoint } from '../../solve/repeat.ts';
 import { plan } from '../../solve/plan.ts';
 import { idleDraw } from '../../solve/idle.ts';
@@ -177,11 +176,36 @@ function holdConductors(project: Project, elements: readonly ElementResult[]): P
   };
 }
 
-/** Run the battery backup study of a project given as untrusted data. Never throws on bad input. */
-export function simulateDischarge(input: unknown): DischargeOutcome {
-  const valid = validateProject(input);
-  if (!valid.ok) return { ok: false, problems: valid.problems };
-  const project = valid.project;
+/**
+ * The discharge of a solved project's bank over its `backup` profile. Takes the solved value: the
+ * project is not validated again, and its result gives the conductor sizes held during the outage.
+ */
+export function simulateDischarge(solved: Solved): DischargeOutcome {
+  return dischargeOf(solved.project, solved.result);
+}
+
+/**
+ * The discharge of a changed copy of a solved project (a larger or sized bank, another horizon:
+ * core/studies/backup/study.ts). The copy is built by core/solve/variant.ts, which checks what
+ * changed; it is solved again (solveVariant) only when cables with a conductor spec need the sizes of
+ * its own start of outage. Never validates the whole project again.
+ */
+export function dischargeVariant(solved: Solved, change: VariantChange): DischargeOutcome {
+  const batteryId = solved.project.elements.find((e) => e.kind === 'battery')?.id ?? '';
+  if (hasConductorSpecs(solved.project)) {
+    const v = solveVariant(solved, change);
+    if (!v.ok) return { ok: false, problems: v.problems.map((p) => startProblem(p, batteryId)) };
+    return dischargeOf(v.project, v.result);
+  }
+  const v = variantProject(solved, change);
+  if (!v.ok) return v;
+  return dischargeOf(v.project, undefined);
+}
+
+const hasConductorSpecs = (project: Project): boolean => project.elements.some((e) => e.kind === 'cable' && e.conductor);
+
+/** The study's own checks (a backup setting, a battery with a bank), then the discharge. */
+function dischargeOf(project: Project, nominal: SolveResult | undefined): DischargeOutcome {
   const study = project.backup;
   const source = project.elements.find((e): e is BatterySource => e.kind === 'battery');
   const problems: Problem[] = [];
@@ -193,17 +217,13 @@ export function simulateDischarge(input: unknown): DischargeOutcome {
   }
   if (study) problems.push(...checkStudy(study, project));
   if (problems.length || !study || !source?.bank) return { ok: false, problems };
-  return discharge(project, study, source);
+  return discharge(project, study, source, nominal);
 }
 
-function discharge(project: Project, study: BackupStudy, source: BatterySource): DischargeOutcome {
-  // Cables with a conductor spec take their size and resistance from the nominal solve.
-  let fixed = project;
-  if (project.elements.some((e) => e.kind === 'cable' && e.conductor)) {
-    const nominal = solveProject(project);
-    if (!nominal.ok) return { ok: false, problems: nominal.problems.map((p) => startProblem(p, source.id)) };
-    fixed = holdConductors(project, nominal.result.elements);
-  }
+function discharge(project: Project, study: BackupStudy, source: BatterySource, nominal: SolveResult | undefined): DischargeOutcome {
+  // Cables with a conductor spec take their size and resistance from the nominal solve (the solved
+  // value's result, or the variant's own solve).
+  const fixed = hasConductorSpecs(project) && nominal ? holdConductors(project, nominal.elements) : project;
   const prepared = prepareRepeat(fixed);
   if (!prepared.ok) return { ok: false, problems: prepared.problems.map((p) => startProblem(p, source.id)) };
   const solver = prepared.solver;

@@ -30,7 +30,7 @@
 import type { AcSource, BatterySource, Element, InverterStage, MotorStage, Project, TransformerStage } from '../../model/project.ts';
 import type { SolveResult } from '../../model/result.ts';
 import type { Problem } from '../../model/errors.ts';
-import { solveProject } from '../../solve/index.ts';
+import { solveVariant, type Solved } from '../../solve/index.ts';
 import { motorRating } from '../../physics/motor-rating.ts';
 import { prepareLoss } from '../../physics/loss-model.ts';
 import { motorPowerFactorAt } from '../../kinds/motor.ts';
@@ -197,8 +197,10 @@ function descendants(elements: readonly Element[], id: string): Set<string> {
   return out;
 }
 
-/** Study the start of one motor with `starting` data. `running` is the project's own solve. */
-export function studyStart(project: Project, running: SolveResult, motor: MotorStage): { ok: true; start: MotorStartResult } | { ok: false; problems: Problem[] } {
+/** Study the start of one motor with `starting` data, from the solved project (its result is the running state). */
+export function studyStart(solved: Solved, motor: MotorStage): { ok: true; start: MotorStartResult } | { ok: false; problems: Problem[] } {
+  const project = solved.project;
+  const running = solved.result;
   const s = motor.starting!;
   const byId = new Map(project.elements.map((e) => [e.id, e]));
   const res = new Map(running.elements.map((e) => [e.id, e]));
@@ -309,11 +311,17 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
     const { conductor: _c, ...cable } = e;
     return { ...cable, resistancePerKm: c.resistance.perKm, reactancePerKm: c.reactancePerKm, parallelSets: c.parallelSets };
   };
-  const elements = project.elements
-    .filter((e) => !below.has(e.id))
-    .map((e) => (e.id === motor.id ? startLoad : startRoot && e.id === startRoot.id ? startRoot : atRunning(e)));
-  const { backup: _b, pumpDuty: _f, ...rest } = project;
-  const solved = solveProject({ ...rest, elements });
+  // The start is a variant of the solved project (core/solve/variant.ts checks every element it
+  // changes): the branch below the motor goes, the motor becomes its starting load, the source takes
+  // its impedance for the start, cables keep their running sizes; the backup and pump duty studies,
+  // which may name what is gone, are dropped.
+  const replace: Element[] = [startLoad];
+  for (const e of project.elements) {
+    if (below.has(e.id) || e.id === motor.id) continue;
+    const during = startRoot && e.id === startRoot.id ? startRoot : atRunning(e);
+    if (during !== e) replace.push(during);
+  }
+  const starting = solveVariant(solved, { remove: below, replace, backup: null, pumpDuty: null });
 
   const checks: StartCheck[] = [];
   const minV = s.minTerminalVoltagePercent ?? DEFAULT_MIN_TERMINAL_VOLTAGE_PERCENT;
@@ -323,10 +331,10 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
   let generatorOut: MotorStartResult['generator'];
   let collapse: string | undefined;
 
-  if (!solved.ok) {
-    collapse = solved.problems.map((p) => p.message).join('; ');
+  if (!starting.ok) {
+    collapse = starting.problems.map((p) => p.message).join('; ');
   } else {
-    const sr = new Map(solved.result.elements.map((e) => [e.id, e]));
+    const sr = new Map(starting.result.elements.map((e) => [e.id, e]));
     const m = sr.get(motor.id)!;
     const vT = m.input!.voltage;
     const drops: { id: string; dropVolts: number; dropPercent: number }[] = [];
