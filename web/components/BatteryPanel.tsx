@@ -28,7 +28,7 @@ import {
 import { formatTemperature, type UnitSystem } from '../format/units.ts';
 import { inputText, inputUnit, readNumberField, type Quantity } from '../format/parse.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
-import { draft, edit, fieldError, getAt, resultsState, setField, setFieldError, type DraftProject } from '../state/editor.ts';
+import { draft, edit, fieldError, getAt, lastSolved, resultsState, setField, setFieldError, type DraftProject } from '../state/editor.ts';
 import { TimeChart, type ChartSeries } from './charts/TimeChart.tsx';
 import { problemLine } from './problem-words.ts';
 import './Panels.css';
@@ -463,7 +463,9 @@ export default function BatteryPanel() {
   const units = unitSystem.value;
   const locale = effectiveLocale();
   const hasStudy = project !== null && typeof project.backup === 'object' && project.backup !== null;
-  const { reply, pending } = useWorkerReply<'battery'>(() => (project && hasStudy ? { kind: 'battery', project } : null), [project, hasStudy]);
+  // The study runs on the last valid solved pair (the worker never validates or solves it again).
+  const solved = lastSolved.value;
+  const { reply, pending } = useWorkerReply<'battery'>(() => (solved && hasStudy ? { kind: 'battery', solved } : null), [solved, hasStudy]);
   /** The last study that ran, kept while later drafts give none. */
   const last = useRef<{ study: BackupStudyResult; cautions: string[] } | null>(null);
   if (reply?.kind === 'battery' && reply.outcome.ok) last.current = { study: reply.outcome.study, cautions: reply.outcome.cautions };

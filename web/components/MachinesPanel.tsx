@@ -16,6 +16,7 @@ import type { DriveDetail, MotorDetail } from '../../core/studies/machines/detai
 import type { PumpDetail } from '../../core/studies/machines/pump-duty.ts';
 import type { Problem } from '../../core/model/errors.ts';
 import type { SolveResult } from '../../core/model/result.ts';
+import type { Solved } from '../../core/solve/index.ts';
 import { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from '../../core/studies/pf/placement.ts';
 import type { MachinesFigures, PfCorrectionShown } from './panel-worker.ts';
 import { useWorkerReply } from './panel-client.ts';
@@ -268,8 +269,8 @@ function ProblemLines({ problems }: { problems: Problem[] }) {
 
 // ---------- power-factor correction ----------
 
-function PfCorrectionControl({ result, locale }: { result: SolveResult; locale: Locale }) {
-  const input = draft.value;
+function PfCorrectionControl({ solved, locale }: { solved: Solved; locale: Locale }) {
+  const result = solved.result;
   const [at, setAt] = useState<string | null>(null);
   const [targetText, setTargetText] = useState(() => formatForInput(DEFAULT_TARGET_POWER_FACTOR, locale));
   const parsed = parseLocaleNumber(targetText, locale);
@@ -288,8 +289,8 @@ function PfCorrectionControl({ result, locale }: { result: SolveResult; locale: 
   // the engine's own message at the field.
   const notNeeded = !!chosenCandidate && !chosenCandidate.needed && (chosenCandidate.pfSense !== 'lagging' || target === DEFAULT_TARGET_POWER_FACTOR);
   const { reply, pending } = useWorkerReply<'pfc'>(
-    () => (input && chosen && Number.isFinite(target) && !notNeeded ? { kind: 'pfc', project: input, at: chosen, targetPowerFactor: target } : null),
-    [input, chosen, target, notNeeded],
+    () => (chosen && Number.isFinite(target) && !notNeeded ? { kind: 'pfc', solved, at: chosen, targetPowerFactor: target } : null),
+    [solved, chosen, target, notNeeded],
   );
   if (candidates.length === 0) return null;
   const noneNeeded = !candidates.some((c) => c.needed);
@@ -583,23 +584,24 @@ function LossCost({ lossCost, locale }: { lossCost: MachinesFigures['lossCost'];
 }
 
 export default function MachinesPanel() {
-  const input = draft.value;
   const o = outcome.value;
   const units = unitSystem.value;
   const locale = effectiveLocale();
   const price = energyPrice.value;
   const hours = operatingHours.value;
-  const result = o?.ok ? o.result : null;
-  /** The result the latest request was built from (the reply that is shown is always the latest's). */
-  const sent = useRef<SolveResult | null>(null);
+  // The draft's own solved pair (project and result), handed whole to the worker.
+  const solved = o?.ok ? o : null;
+  const result = solved?.result ?? null;
+  /** The solved pair the latest request was built from (the reply that is shown is always the latest's). */
+  const sent = useRef<Solved | null>(null);
   const { reply, pending } = useWorkerReply<'machines'>(() => {
-    if (!input || !result) return null;
-    sent.current = result;
-    return { kind: 'machines', project: input, result, cost: price !== null ? { pricePerKWh: price, hoursPerYear: hours } : null };
-  }, [input, result, price, hours]);
-  /** The last figures of a valid draft, with the result they belong to (kept while later drafts do not solve). */
-  const last = useRef<{ figures: MachinesFigures; result: SolveResult } | null>(null);
-  if (!pending && reply?.kind === 'machines' && reply.outcome.ok && sent.current) last.current = { figures: reply.outcome.figures, result: sent.current };
+    if (!solved) return null;
+    sent.current = solved;
+    return { kind: 'machines', solved, cost: price !== null ? { pricePerKWh: price, hoursPerYear: hours } : null };
+  }, [solved, price, hours]);
+  /** The last figures of a valid draft, with the solved pair they belong to (kept while later drafts do not solve). */
+  const last = useRef<{ figures: MachinesFigures; solved: Solved } | null>(null);
+  if (!pending && reply?.kind === 'machines' && reply.outcome.ok && sent.current) last.current = { figures: reply.outcome.figures, solved: sent.current };
   const shown = last.current;
   const problems = reply?.kind === 'machines' && !reply.outcome.ok ? reply.outcome.problems : [];
   const crash = reply?.kind === 'crash' ? reply.message : null;
@@ -631,7 +633,7 @@ export default function MachinesPanel() {
         </section>
       )}
       {flow && <PumpDuty flow={flow} locale={locale} />}
-      <PfCorrectionControl result={shown.result} locale={locale} />
+      <PfCorrectionControl solved={shown.solved} locale={locale} />
       <LossCost lossCost={lossCost} locale={locale} />
     </div>
   );

@@ -23,7 +23,7 @@ import {
   draft,
   draftOrigin,
   draftRevision,
-  lastValidResult,
+  lastSolved,
   loadProject,
   renameDraft,
   type DraftOrigin,
@@ -249,13 +249,13 @@ export function hasUnsavedWork(): boolean {
 /** Point the open draft at its stored record (after its first edit was stored) without reloading it. */
 function rebind(from: DraftOrigin, to: DraftOrigin): void {
   if (draftOrigin.peek() !== from) return;
-  const keep = lastValidResult.peek();
+  const keep = lastSolved.peek();
   rebinding = true;
   try {
     seenOrigin = to;
     draftOrigin.value = to;
     // The editor clears the last valid results when the origin changes; this is the same project.
-    lastValidResult.value = keep;
+    lastSolved.value = keep;
   } finally {
     rebinding = false;
   }
