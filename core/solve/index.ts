@@ -11,7 +11,7 @@
  * project through `solveVariant` (variant.ts), which skips the whole-project validation.
  */
 import type { Project } from '../model/project.ts';
-import { ProjectError, type Problem } from '../model/errors.ts';
+import { ProjectError } from '../model/errors.ts';
 import type { SolveResult } from '../model/result.ts';
 import { validateProject, type ValidProject } from './validate.ts';
 import { plan } from './plan.ts';

@@ -15,7 +15,6 @@ import { useRef, useState } from 'preact/hooks';
 import type { DriveDetail, MotorDetail } from '../../core/studies/machines/details.ts';
 import type { PumpDetail } from '../../core/studies/machines/pump-duty.ts';
 import type { Problem } from '../../core/model/errors.ts';
-import type { SolveResult } from '../../core/model/result.ts';
 import type { Solved } from '../../core/solve/index.ts';
 import { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from '../../core/studies/pf/placement.ts';
 import type { MachinesFigures, PfCorrectionShown } from './panel-worker.ts';
