@@ -2,7 +2,8 @@
 export type * from './model/project.ts';
 export type * from './model/result.ts';
 export { ProjectError, formatProblem, type Problem, type ProblemCode } from './model/errors.ts';
-export { solveProject, solve, validateProject, solveVariant, variantProject, type SolveOutcome, type Solved, type ValidProject, type VariantChange } from './solve/index.ts';
+export { solveProject, solve, validateProject, type SolveOutcome, type Solved, type ValidProject } from './solve/index.ts';
+export { solveVariant, variantProject, type VariantChange } from './solve/variant.ts';
 export { readSolveCounts, resetSolveCounts, type SolveCounts } from './solve/count.ts';
 export { findNonFinite, nonFiniteProblems, elementNames, type NonFiniteFigure } from './solve/finite.ts';
 export { demoProjects, type DemoProject } from './demos/index.ts';

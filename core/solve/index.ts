@@ -8,7 +8,8 @@
  * `solveProject` returns one solved value, `Solved` = { ok, project, result }: the validated,
  * normalised project (format 2) beside its result. Every study takes that value and never validates
  * or solves the base case again; a study that must solve a changed chain does it from the solved
- * project through `solveVariant` (variant.ts), which skips the whole-project validation.
+ * project through `solveVariant` (variant.ts, imported from there: the page's first load, which
+ * solves only the base case, does not carry it), which skips the whole-project validation.
  */
 import type { Project } from '../model/project.ts';
 import { ProjectError } from '../model/errors.ts';
@@ -40,4 +41,3 @@ export function solve(project: Project): SolveResult {
 }
 
 export { validateProject, type ValidProject, type Solved, type SolveOutcome };
-export { solveVariant, variantProject, type VariantChange } from './variant.ts';

@@ -7,7 +7,8 @@
 import type { BatterySource, Project } from '../../model/project.ts';
 import type { SolveResult } from '../../model/result.ts';
 import type { Problem } from '../../model/errors.ts';
-import { solveVariant, variantProject, type Solved, type VariantChange } from '../../solve/index.ts';
+import type { Solved } from '../../solve/index.ts';
+import { solveVariant, variantProject, type VariantChange } from '../../solve/variant.ts';
 import { CHEMISTRY_PRESETS } from '../../data/battery-chemistries.ts';
 import { checkStudy } from '../../solve/load-profile.ts';
 import { hasConductorSpecs, runDischarge, startProblem } from './discharge-run.ts';

@@ -7,7 +7,8 @@
  */
 import type { BackupStudy, BatterySource } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
-import type { Solved, VariantChange } from '../../solve/index.ts';
+import type { Solved } from '../../solve/index.ts';
+import type { VariantChange } from '../../solve/variant.ts';
 import { dischargeVariant, simulateDischarge, type DischargeResult } from './discharge.ts';
 import { MAX_REPEATED_PERIODS, repeatedPeriods, sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
 import { MAX_HORIZON_H, count } from '../../solve/load-profile.ts';

@@ -25,7 +25,8 @@
 import type { Element, NetworkLoad, Project } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
 import type { ElementResult, PortResult, SolveResult } from '../../model/result.ts';
-import { solveVariant, type Solved } from '../../solve/index.ts';
+import type { Solved } from '../../solve/index.ts';
+import { solveVariant } from '../../solve/variant.ts';
 import type { NetworkConnection } from '../../physics/network.ts';
 import { DRIVE_INPUT_REASON, DRIVE_OUTPUT_REASON, INVERTER_OUTPUT_REASON, converterOutputAt, drivesOnBus } from './placement.ts';
 

@@ -33,7 +33,8 @@
  */
 import type { AcSource, BatterySource, Element, InverterStage, MotorStage, TransformerStage } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
-import { solveVariant, type Solved } from '../../solve/index.ts';
+import type { Solved } from '../../solve/index.ts';
+import { solveVariant } from '../../solve/variant.ts';
 import { batteryEquivalent } from '../../kinds/battery.ts';
 import { TYPICAL_VALUE, DEFAULT_MAX_GENERATOR_DIP_PERCENT, DEFAULT_MIN_TERMINAL_VOLTAGE_PERCENT, MARGINAL_FRACTION } from '../../data/motor-starting.ts';
 import { METHOD_WORDS, startingFigures } from './starting-current.ts';
