@@ -11,15 +11,17 @@ import { describe, expect, it } from 'vitest';
 import { parseArgs } from '../../core/cli/args.ts';
 import { runParsed, type SolveRequest } from '../../core/cli/run.ts';
 import { readSolveCounts, resetSolveCounts } from '../../core/solve/count.ts';
+import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
+import { solvedOf } from './solved.ts';
 
 /** A CLI run in-process: the arguments as a user types them, the file read as the CLI reads it. */
-function counted(argv: string[]) {
+function counted(argv: string[], flowData?: unknown) {
   const req = parseArgs(argv);
   if (req.kind !== 'solve') throw new Error(`not a solve request: ${req.kind}`);
   const file = req.files[0]!;
   const data: unknown = JSON.parse(readFileSync(file, 'utf8'));
   resetSolveCounts();
-  const run = runParsed(file, data, req as SolveRequest, undefined);
+  const run = runParsed(file, data, req as SolveRequest, flowData);
   const counts = readSolveCounts();
   return { run, counts };
 }
@@ -54,6 +56,16 @@ describe('one validation and one base solve per project and run', () => {
       expect(counts.solves).toBe(1);
     }, 60_000);
   }
+
+  it('riverside with a pump study file as well (--pump-duty: the file is the study\u2019s own input, checked by the study)', () => {
+    const file = 'core/demos/riverside-pump-station.json';
+    // A pump study file as a user would write it: the one the project's own pump duty study builds.
+    const own = projectPumpDuty(solvedOf(JSON.parse(readFileSync(file, 'utf8'))));
+    if (!own.ok) throw new Error('the demo\u2019s pump duty study must run');
+    const { run, counts } = counted(['solve', file, '--json', '--surges', '--machines', '--correct-pf', 'panel:0.98', '--pump-duty', 'study.json'], own.input);
+    expect(run.ok).toBe(true);
+    expect(counts).toEqual({ validations: 1, solves: 1, variantSolves: 2, variants: 2 });
+  }, 60_000);
 
   it('a refused project is validated once and not solved', () => {
     resetSolveCounts();
