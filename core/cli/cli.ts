@@ -3,7 +3,8 @@
  * file by vite.cli.config.ts: dist-cli/joulepath.mjs), or `npm run solve -- <project.json> [flags]`
  * from the source. `--help` prints the flags, the summary and CSV columns and the exit codes
  * (core/cli/args.ts): 0 every project solved, 1 a project or a file it names refused, 2 wrong command
- * line. The only Node-specific file of core/.
+ * line. The only Node-specific file of core/: it reads the files and writes the output; each project is
+ * validated and solved once and every study asked for takes that solved value (core/cli/run.ts).
  * One file: per-element and per-interface tables (or the full result as JSON with --json); on bad
  * input one line per problem. Several files (or --summary, --csv): one summary line or CSV row per
  * project (core/cli/summary.ts); a refused project's line says why (every reason on standard error)
