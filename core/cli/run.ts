@@ -39,16 +39,16 @@ export const refusedWith = (file: string, message: string): ProjectRun => ({ ok:
 export function runParsed(file: string, data: unknown, req: SolveRequest, flowData: unknown): ProjectRun {
   const rawName = (data as { name?: unknown } | null)?.name;
   const projectName = typeof rawName === 'string' ? rawName : undefined;
+  // Validated and solved once: every study below takes this solved value.
+  const outcome = solveProject(data);
+  if (!outcome.ok) return refused(file, 'the project cannot be solved:', outcome.problems, projectName);
   // Every study's figures must be finite numbers, or the study is refused (core/solve/finite.ts);
-  // the solve checks its own result.
-  const names = elementNames(data);
+  // the solve checks its own result. Elements are named as in the solved project.
+  const names = elementNames(outcome.project);
   const nonFinite = (heading: string, what: string, value: unknown): ProjectRun | undefined => {
     const bad = nonFiniteProblems(what, value, names);
     return bad.length ? refused(file, heading, bad, projectName) : undefined;
   };
-  // Validated and solved once: every study below takes this solved value.
-  const outcome = solveProject(data);
-  if (!outcome.ok) return refused(file, 'the project cannot be solved:', outcome.problems, projectName);
   let study: BackupStudyResult | undefined;
   if (hasBackupStudy(outcome)) {
     const s = runBackupStudy(outcome);
