@@ -2,7 +2,9 @@
 export type * from './model/project.ts';
 export type * from './model/result.ts';
 export { PROJECT_LEVEL, ProjectError, formatProblem, type Problem, type ProblemCode } from './model/errors.ts';
-export { solveProject, solve, validateProject, type SolveOutcome } from './solve/index.ts';
+export { solveProject, solve, validateProject, type SolveOutcome, type Solved, type ValidProject } from './solve/index.ts';
+export { solveVariant, variantProject, type VariantChange } from './solve/variant.ts';
+export { readSolveCounts, resetSolveCounts, type SolveCounts } from './solve/count.ts';
 export { findNonFinite, nonFiniteProblems, elementNames, type NonFiniteFigure } from './solve/finite.ts';
 export { demoProjects, type DemoProject } from './demos/index.ts';
 export { fitLossPolynomial, prepareLoss, weightedEfficiency, efficiencyAt } from './physics/loss-model.ts';
@@ -38,7 +40,7 @@ export {
 } from './studies/backup/recharge.ts';
 export { CHEMISTRY_PRESETS, CHEMISTRIES, type Chemistry, type ChemistryPreset, type ChemistryValues } from './data/battery-chemistries.ts';
 export { resolveBank, checkBank, ocvAt, bankOcv, capacityFactorAt, type Bank } from './physics/bank.ts';
-export { simulateDischarge, type DischargeResult, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './studies/backup/discharge.ts';
+export { simulateDischarge, dischargeVariant, type DischargeResult, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './studies/backup/discharge.ts';
 export { runBackupStudy, terminalPowerPeriods, type BackupStudyResult, type BackupStudyOutcome } from './studies/backup/study.ts';
 export { formatBackupStudy } from './studies/backup/text-report.ts';
 export { bankCautions, rechargeCautions } from './studies/backup/cautions.ts';

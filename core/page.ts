@@ -12,7 +12,7 @@ export type * from './model/project.ts';
 export type * from './model/result.ts';
 export { PROJECT_LEVEL, type Problem } from './model/errors.ts';
 export { PROJECT_VERSION, migrateProject } from './model/migrate.ts';
-export { solveProject, validateProject, type SolveOutcome } from './solve/index.ts';
+export { solveProject, validateProject, type SolveOutcome, type Solved, type ValidProject } from './solve/index.ts';
 export { elementNames, fieldWords, nonFiniteProblems } from './solve/finite.ts';
 export { issueMessage } from './solve/issue-messages.ts';
 export { demoProjects, type DemoProject } from './demos/index.ts';

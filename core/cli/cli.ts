@@ -3,7 +3,8 @@
  * file by vite.cli.config.ts: dist-cli/joulepath.mjs), or `npm run solve -- <project.json> [flags]`
  * from the source. `--help` prints the flags, the summary and CSV columns and the exit codes
  * (core/cli/args.ts): 0 every project solved, 1 a project or a file it names refused, 2 wrong command
- * line. The only Node-specific file of core/.
+ * line. The only Node-specific file of core/: it reads the files and writes the output; each project is
+ * validated and solved once and every study asked for takes that solved value (core/cli/run.ts).
  * One file: per-element and per-interface tables (or the full result as JSON with --json); on bad
  * input one line per problem. Several files (or --summary, --csv): one summary line or CSV row per
  * project (core/cli/summary.ts); a refused project's line says why (every reason on standard error)
@@ -26,18 +27,9 @@
  */
 import { closeSync, fstatSync, openSync, readSync, readdirSync, statSync, constants as fsConstants } from 'node:fs';
 import { join } from 'node:path';
-import { formatProblem, type Problem } from '../model/errors.ts';
-import { formatResult } from './text-report.ts';
-import { solveProject } from '../solve/index.ts';
-import { elementNames, nonFiniteProblems } from '../solve/finite.ts';
-import { runBackupStudy, type BackupStudyResult } from '../studies/backup/study.ts';
-import { formatBackupStudy } from '../studies/backup/text-report.ts';
-import { correctPowerFactor, type PfCorrection } from '../studies/pf/correction.ts';
-import { formatPfCorrection, pfCorrectionJson } from '../studies/pf/text-report.ts';
-import { hasPumpSections, machineSections } from './machines-flags.ts';
-import { formatSurgeStudy, hasSurgeInputs, studySurges, type SurgeStudyResult } from '../studies/surge/index.ts';
-import { EXIT_REFUSED, EXIT_SOLVED, EXIT_USAGE, HELP, USAGE, parseArgs, type CliRequest } from './args.ts';
-import { csvHeader, csvRow, summaryLine, type ProjectLine } from './summary.ts';
+import { EXIT_REFUSED, EXIT_SOLVED, EXIT_USAGE, HELP, USAGE, parseArgs } from './args.ts';
+import { csvHeader, csvRow, summaryLine } from './summary.ts';
+import { refusedWith, runParsed, type ProjectRun, type SolveRequest } from './run.ts';
 
 /**
  * Largest input file read at all, bytes: 5 MiB, the same figure as the page's import
@@ -96,24 +88,6 @@ function readInput(file: string, what: string): { ok: true; text: string } | { o
 declare const __JOULEPATH_VERSION__: string;
 const VERSION = typeof __JOULEPATH_VERSION__ === 'string' ? __JOULEPATH_VERSION__ : 'development (run from the source)';
 
-type SolveRequest = Extract<CliRequest, { kind: 'solve' }>;
-
-/** One project's outcome: the text to print (tables or JSON, when asked for) and its summary, or why it was refused. */
-type ProjectRun = { ok: true; text: string; line: ProjectLine } | { ok: false; lines: string[]; line: ProjectLine };
-
-/** Refused: `<file>: <heading>` and one indented line per problem; the summary keeps the heading with each problem. */
-function refused(file: string, heading: string, problems: readonly Problem[], projectName?: string): ProjectRun {
-  const reasons = problems.map((p) => `${heading} ${formatProblem(p)}`);
-  return {
-    ok: false,
-    lines: [`${file}: ${heading}`, ...problems.map((p) => `  ${formatProblem(p)}`)],
-    line: { file, ok: false, reasons: reasons.length ? reasons : [heading], ...(projectName !== undefined ? { projectName } : {}) },
-  };
-}
-
-/** Refused with one message (a file that cannot be read or parsed). */
-const refusedWith = (file: string, message: string): ProjectRun => ({ ok: false, lines: [message], line: { file, ok: false, reasons: [message] } });
-
 /** One project to run: a file, or a folder argument that holds none (refused with that message). */
 type Entry = { file: string; refusal?: string };
 
@@ -160,62 +134,7 @@ function runProject(file: string, req: SolveRequest, flowData: unknown): Project
   } catch (err) {
     return refusedWith(file, `${file} is not valid JSON: ${(err as Error).message}`);
   }
-  const rawName = (data as { name?: unknown } | null)?.name;
-  const projectName = typeof rawName === 'string' ? rawName : undefined;
-  // Every study's figures must be finite numbers, or the study is refused (core/solve/finite.ts);
-  // the solve checks its own result.
-  const names = elementNames(data);
-  const nonFinite = (heading: string, what: string, value: unknown): ProjectRun | undefined => {
-    const bad = nonFiniteProblems(what, value, names);
-    return bad.length ? refused(file, heading, bad, projectName) : undefined;
-  };
-  const outcome = solveProject(data);
-  if (!outcome.ok) return refused(file, 'the project cannot be solved:', outcome.problems, projectName);
-  let study: BackupStudyResult | undefined;
-  if (hasBackupStudy(data)) {
-    const s = runBackupStudy(data);
-    if (!s.ok) return refused(file, 'the battery backup study cannot be run:', s.problems, projectName);
-    study = s.study;
-    const bad = nonFinite('the battery backup study cannot be shown:', 'The battery backup study', study);
-    if (bad) return bad;
-  }
-  let pfc: PfCorrection | undefined;
-  if (req.correctPf) {
-    const c = correctPowerFactor(data, req.correctPf);
-    if (!c.ok) return refused(file, 'the power-factor correction cannot be worked out:', c.problems, projectName);
-    pfc = c.correction;
-    const bad = nonFinite('the power-factor correction cannot be shown:', 'The power-factor correction', pfc);
-    if (bad) return bad;
-  }
-  const machines = req.machines || req.pumpDutyFile !== undefined || hasPumpSections(data) ? machineSections(data, req.machines, flowData) : undefined;
-  if (machines && !machines.ok) return refused(file, machines.heading, machines.problems, projectName);
-  if (machines?.ok) {
-    const bad = nonFinite('the machines study cannot be shown:', 'The machines study', machines.json);
-    if (bad) return bad;
-  }
-  let surges: SurgeStudyResult | undefined;
-  if (req.surges || hasSurgeInputs(data)) {
-    const s = studySurges(data);
-    if (!s.ok) return refused(file, 'the surge and fault study cannot be run:', s.problems, projectName);
-    surges = s.result;
-    const bad = nonFinite('the surge and fault study cannot be shown:', 'The surge and fault study', surges);
-    if (bad) return bad;
-  }
-  const run = study?.discharge;
-  const line: ProjectLine = {
-    file,
-    ok: true,
-    result: outcome.result,
-    ...(run ? { backupRuntimeHours: run.runtimeSeconds / 3600, backupRuntimeIsLowerBound: run.runtimeIsLowerBound } : {}),
-  };
-  let text = '';
-  if (req.output === 'json') {
-    const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}) };
-    text = `${JSON.stringify({ ...outcome.result, ...extra }, null, 2)}\n`;
-  } else if (req.output === 'tables') {
-    text = `${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}`;
-  }
-  return { ok: true, text, line };
+  return runParsed(file, data, req, flowData);
 }
 
 /**
@@ -295,12 +214,6 @@ function main(argv: readonly string[]): number {
     }
   }
   return code;
-}
-
-/** A study runs when the project has `backup` settings and a battery given as a `bank`. */
-function hasBackupStudy(data: unknown): boolean {
-  const p = data as { backup?: unknown; elements?: unknown } | null;
-  return p !== null && typeof p === 'object' && p.backup !== undefined && Array.isArray(p.elements) && p.elements.some((e: { kind?: unknown; bank?: unknown }) => e?.kind === 'battery' && e.bank !== undefined);
 }
 
 // Output piped into a reader that stops early (`| head`): stop quietly, as other command-line tools do.

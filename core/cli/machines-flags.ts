@@ -12,12 +12,11 @@ import { solveWithMachines, type MachineDetails } from '../studies/machines/deta
 import { comparePumpControl, type PumpControlResult, type PumpDutyInput } from '../physics/pump-fan.ts';
 import { formatPumpDuty, formatMachines } from '../studies/machines/text-report.ts';
 import { projectPumpDuty, pumpDetails, type PumpDetail } from '../studies/machines/pump-duty.ts';
-import { validateProject } from '../solve/validate.ts';
+import type { Solved } from '../solve/index.ts';
 
 /** Whether the project asks for the pump sections without a flag: a `pumpDuty` or a `pump` element. */
-export function hasPumpSections(project: unknown): boolean {
-  const p = project as { pumpDuty?: unknown; elements?: unknown };
-  return typeof p === 'object' && p !== null && (p.pumpDuty !== undefined || (Array.isArray(p.elements) && p.elements.some((e: { kind?: unknown }) => e?.kind === 'pump')));
+export function hasPumpSections({ project }: Solved): boolean {
+  return project.pumpDuty !== undefined || project.elements.some((e) => e.kind === 'pump');
 }
 
 /** Plain text of the pumps' operating points and tree checks. */
@@ -59,26 +58,27 @@ export type MachineSections =
   | { ok: true; text: string; json: { machines?: MachineDetails; pumpDuty?: PumpControlResult; pumps?: PumpDetail[] } }
   | { ok: false; heading: string; problems: Problem[] };
 
-/** Run what the flags ask for on the parsed project (and the parsed pump duty study). */
-export function machineSections(project: unknown, machines: boolean, pumpDuty: unknown): MachineSections {
+/**
+ * Run what the flags ask for on the solved project (and the parsed pump duty study, which is not part
+ * of the project: comparePumpControl checks it, naming its fields).
+ */
+export function machineSections(solved: Solved, machines: boolean, pumpDuty: unknown): MachineSections {
   const text: string[] = [];
   const json: { machines?: MachineDetails; pumpDuty?: PumpControlResult; pumps?: PumpDetail[] } = {};
   if (machines) {
-    const m = solveWithMachines(project);
+    const m = solveWithMachines(solved);
     if (!m.ok) return { ok: false, heading: 'the motors and drives cannot be reported:', problems: m.problems };
     json.machines = m.machines;
     text.push(formatMachines(m.machines));
   }
-  if (hasPumpSections(project)) {
-    const v = validateProject(project);
-    if (!v.ok) return { ok: false, heading: 'the pumps cannot be reported:', problems: v.problems };
-    const pumps = pumpDetails(v.project);
+  if (hasPumpSections(solved)) {
+    const pumps = pumpDetails(solved.project);
     if (pumps.length) {
       json.pumps = pumps;
       text.push(formatPumps(pumps));
     }
-    if (pumpDuty === undefined && v.project.pumpDuty !== undefined) {
-      const f = projectPumpDuty(v.project);
+    if (pumpDuty === undefined && solved.project.pumpDuty !== undefined) {
+      const f = projectPumpDuty(solved);
       if (!f.ok) return { ok: false, heading: 'the pump duty study of the project cannot be run:', problems: f.problems };
       json.pumpDuty = f.result;
       text.push(formatPumpDuty(f.result));

@@ -4,17 +4,20 @@
  * loop that sizes conductor links and re-solves until sizes and resistances settle) → report
  * (ports, totals, balance) → conductor results and whole-path voltage drops.
  * Pure: takes plain data, returns new plain data, mutates nothing.
+ *
+ * `solveProject` returns one solved value, `Solved` = { ok, project, result }: the validated,
+ * normalised project (format 2) beside its result. Every study takes that value and never validates
+ * or solves the base case again; a study that must solve a changed chain does it from the solved
+ * project through `solveVariant` (variant.ts, imported from there: the page's first load, which
+ * solves only the base case, does not carry it), which skips the whole-project validation.
  */
 import type { Project } from '../model/project.ts';
-import { ProjectError, type Problem } from '../model/errors.ts';
+import { ProjectError } from '../model/errors.ts';
 import type { SolveResult } from '../model/result.ts';
-import { validateProject } from './validate.ts';
+import { validateProject, type ValidProject } from './validate.ts';
 import { plan } from './plan.ts';
-import { buildResult } from './report.ts';
-import { attachConductors, sizeConductors } from './size-conductors.ts';
-import { nonFiniteProblems } from './finite.ts';
-
-export type SolveOutcome = { ok: true; result: SolveResult } | { ok: false; problems: Problem[] };
+import { countSolveStep } from './count.ts';
+import { solveValid, type Solved, type SolveOutcome } from './solved.ts';
 
 /** Validate and solve a project given as untrusted data (e.g. parsed JSON). Never throws on bad input. */
 export function solveProject(input: unknown): SolveOutcome {
@@ -26,17 +29,8 @@ export function solveProject(input: unknown): SolveOutcome {
     const ports = valid.project && !valid.problems.some((p) => p.code === 'duplicate-id') ? plan(valid.project) : undefined;
     return { ok: false, problems: ports && !ports.ok ? [...valid.problems, ...ports.problems] : valid.problems };
   }
-  // Conductor links get their size and impedance; the chain is solved with them in place.
-  const sized = sizeConductors(valid.project);
-  if (!sized.ok) return sized;
-  const built = buildResult(valid.project.name, sized.order, sized.point);
-  if (!built.ok) return built;
-  const result = attachConductors(built.result, sized);
-  // Last step: a figure that is not finite anywhere refuses the whole result (never a table of NaN).
-  const names = new Map(valid.project.elements.map((e) => [e.id, e.name ?? e.id]));
-  const notFinite = nonFiniteProblems('The solve', result, names);
-  if (notFinite.length) return { ok: false, problems: notFinite };
-  return { ok: true, result };
+  countSolveStep('solves');
+  return solveValid(valid.project);
 }
 
 /** Like solveProject, but throws a ProjectError listing every problem. */
@@ -46,4 +40,4 @@ export function solve(project: Project): SolveResult {
   return outcome.result;
 }
 
-export { validateProject };
+export { validateProject, type ValidProject, type Solved, type SolveOutcome };

@@ -4,7 +4,7 @@
  */
 import { OLDEST_PROJECT_VERSION, PROJECT_VERSION, migrateProject } from '../model/migrate.ts';
 import { z } from 'zod/mini';
-import type { Element, Project } from '../model/project.ts';
+import type { BackupStudy, Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
 import { KINDS } from '../kinds/index.ts';
@@ -13,6 +13,15 @@ import { issueMessage, unknownKindMessage } from './issue-messages.ts';
 import { backupSchema, reservedKeyProblems } from './load-profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { pumpDutySchema } from '../kinds/pump.ts';
+import { countSolveStep } from './count.ts';
+
+declare const VALID: unique symbol;
+/**
+ * A project that passed `validateProject` (or was built from one by core/solve/variant.ts, which
+ * checks every element it changes): the brand is a type only, given in these two places alone, so
+ * a study cannot hand the solve a project nobody checked. Plain data at run time.
+ */
+export type ValidProject = Project & { readonly [VALID]: true };
 
 export const projectShape = z.strictObject({
   /** The JSON Schema an editor checks the file against (schema/joulepath-project.schema.json); not read by the engine. */
@@ -36,7 +45,7 @@ export const projectShape = z.strictObject({
  * On failure, `fieldsValid` says whether every element passed its own checks (only the tree's
  * shape is wrong); `project` is then still given so the port kinds can be checked as well.
  */
-type Validated = { ok: true; project: Project } | { ok: false; problems: Problem[]; project?: Project };
+type Validated = { ok: true; project: ValidProject } | { ok: false; problems: Problem[]; project?: Project };
 
 const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
 
@@ -66,7 +75,7 @@ function fromIssues(issues: readonly z.core.$ZodIssue[], elementId: string, subj
 }
 
 /** Validate one element's fields: its kind must be known, then its own schema and cross-field checks. */
-function validateElement(raw: unknown, index: number): { element?: Element; problems: Problem[] } {
+export function validateElement(raw: unknown, index: number): { element?: Element; problems: Problem[] } {
   if (!isRecord(raw)) {
     return { problems: [{ code: 'invalid-value', elementId: `#${index + 1}`, field: '', value: raw, message: 'must be an object' }] };
   }
@@ -93,8 +102,20 @@ function validateElement(raw: unknown, index: number): { element?: Element; prob
   return problems.length ? { problems } : { element, problems };
 }
 
+/**
+ * Check a project's backup study settings alone (a study's changed copy of them, core/solve/variant.ts):
+ * the same schema and reserved-key checks as in the whole file, problems at `backup.<field>`.
+ */
+export function validateBackup(raw: unknown): { ok: true; backup: BackupStudy } | { ok: false; problems: Problem[] } {
+  const parsed = backupSchema.safeParse(raw, { error: issueMessage });
+  if (!parsed.success) return { ok: false, problems: fromIssues(parsed.error.issues, PROJECT_LEVEL, raw).map((p) => ({ ...p, field: p.field ? `backup.${p.field}` : 'backup' })) };
+  const reserved = reservedKeyProblems(raw);
+  return reserved.length ? { ok: false, problems: reserved } : { ok: true, backup: parsed.data as BackupStudy };
+}
+
 /** Check the file, every element and the tree's shape. Port kinds are checked by `plan`. */
 export function validateProject(file: unknown): Validated {
+  countSolveStep('validations');
   // An older format is brought up to date first (core/model/migrate.ts); the problems name today's fields.
   const input = migrateProject(file).value;
   const top = projectShape.safeParse(input, { error: issueMessage });
@@ -115,5 +136,5 @@ export function validateProject(file: unknown): Validated {
   const { description, $schema: _schema, ...rest } = top.data;
   const project: Project = { ...rest, ...(description !== undefined ? { description } : {}), elements } as Project;
   if (problems.length) return fieldsValid ? { ok: false, problems, project } : { ok: false, problems };
-  return { ok: true, project };
+  return { ok: true, project: project as ValidProject };
 }

@@ -10,6 +10,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { correctPowerFactor } from '../../core/index.ts';
+import { onSolved } from '../core/solved.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
@@ -33,7 +34,7 @@ describe('npm run solve -- <file> --correct-pf <id>:<target>', () => {
   it('prints the bank, the before/after comparison and the caution after the tables', () => {
     const r = run(file, '--correct-pf', 'comp:0.95');
     expect(r.status, r.stderr).toBe(0);
-    const c = correctPowerFactor(workshop, { at: 'comp', targetPowerFactor: 0.95 });
+    const c = onSolved(correctPowerFactor, workshop, { at: 'comp', targetPowerFactor: 0.95 });
     if (!c.ok) throw new Error('does not correct');
     expect(r.stdout).toContain('Elements (W)');
     expect(r.stdout).toContain('Power-factor correction at the terminals of comp to 0.95 lagging');
@@ -48,7 +49,7 @@ describe('npm run solve -- <file> --correct-pf <id>:<target>', () => {
     const r = run(file, '--json', '--correct-pf', 'comp:0.9');
     expect(r.status, r.stderr).toBe(0);
     const out = JSON.parse(r.stdout) as { pfCorrection: Record<string, unknown>; elements: unknown[] };
-    const c = correctPowerFactor(workshop, { at: 'comp', targetPowerFactor: 0.9 });
+    const c = onSolved(correctPowerFactor, workshop, { at: 'comp', targetPowerFactor: 0.9 });
     if (!c.ok) throw new Error('does not correct');
     expect(out.elements).toHaveLength(3);
     expect(out.pfCorrection['bank']).toEqual(JSON.parse(JSON.stringify(c.correction.bank)));

@@ -4,6 +4,7 @@
  */
 import { bench, describe } from 'vitest';
 import { correctPowerFactor, networkImpedance, parseNetwork, solveProject, type CircuitNetwork } from '../../core/index.ts';
+import { onSolved } from '../core/solved.ts';
 
 /** An invented plant room: 20 motors-as-networks (R + L with a small parallel C) on 20 cables off one board. */
 const elements: unknown[] = [
@@ -36,7 +37,7 @@ describe('network loads', () => {
     solveProject(plant);
   });
   bench('power-factor correction at the main cable output (two solves)', () => {
-    correctPowerFactor(plant, { at: 'main', targetPowerFactor: 0.95 });
+    onSolved(correctPowerFactor, plant, { at: 'main', targetPowerFactor: 0.95 });
   });
   bench('read a 100-component network (text values)', () => {
     parseNetwork(ladder);

@@ -21,12 +21,13 @@ import {
   type PfCorrection,
   type Project,
 } from '../../core/index.ts';
+import { onSolved } from '../core/solved.ts';
 
 const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 const project = (elements: unknown[]): Project => ({ format: 'joulepath-project', version: 2, name: 'pf test', elements }) as Project;
 
 function corrected(p: unknown, request: Parameters<typeof correctPowerFactor>[1]): PfCorrection {
-  const out = correctPowerFactor(p, request);
+  const out = onSolved(correctPowerFactor, p, request);
   if (!out.ok) throw new Error(JSON.stringify(out.problems));
   return out.correction;
 }
@@ -210,7 +211,7 @@ describe('bad requests: a problem naming the element and field; nothing computed
     ['a bad bank connection', { at: 'mill', targetPowerFactor: 0.95, connection: 'zigzag' as 'star' }, { code: 'invalid-value', elementId: 'mill', field: 'connection', message: /"star" or "delta"/ }],
   ];
   it.each(cases)('%s', (_what, request, want) => {
-    const out = correctPowerFactor(lagging, request);
+    const out = onSolved(correctPowerFactor, lagging, request);
     expect(out.ok).toBe(false);
     if (out.ok) return;
     expect(out.problems).toHaveLength(1);
@@ -219,7 +220,7 @@ describe('bad requests: a problem naming the element and field; nothing computed
   });
 
   it('a project that does not solve gives its own problems', () => {
-    const out = correctPowerFactor(project([{ id: 'sup', kind: 'grid', phases: 3, voltage: 0, frequency: 50 }]), { at: 'sup', targetPowerFactor: 0.95 });
+    const out = onSolved(correctPowerFactor, project([{ id: 'sup', kind: 'grid', phases: 3, voltage: 0, frequency: 50 }]), { at: 'sup', targetPowerFactor: 0.95 });
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.problems[0]).toMatchObject({ elementId: 'sup', field: 'voltage' });
   });
@@ -261,7 +262,7 @@ describe('capacitor banks only where they belong', () => {
     ['the motor the drive feeds (through its cable)', 'fanmotor', /is on the output of the drive vfd/],
     ['the cable on the drive output', 'mcable', /is on the output of the drive vfd/],
   ])('refused at %s, with the reason (PWM output; the drive supplies the motor var)', (_what, at, where) => {
-    const out = correctPowerFactor(plant, { at, targetPowerFactor: 0.95 });
+    const out = onSolved(correctPowerFactor, plant, { at, targetPowerFactor: 0.95 });
     expect(out.ok).toBe(false);
     if (out.ok) return;
     expect(out.problems[0]).toMatchObject({ code: 'not-correctable', elementId: at, field: 'at' });
@@ -271,7 +272,7 @@ describe('capacitor banks only where they belong', () => {
   });
 
   it('at the cable that feeds the drive: computed, with the warning that the drive’s input pf is set by its rectifier (harmonic resonance)', () => {
-    const out = correctPowerFactor(plant, { at: 'feed', targetPowerFactor: 0.99 });
+    const out = onSolved(correctPowerFactor, plant, { at: 'feed', targetPowerFactor: 0.99 });
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(out.correction.warnings.join(' ')).toMatch(/feeds the drive vfd: a drive’s input power factor is set by its rectifier .* resonate/);
   });
@@ -283,7 +284,7 @@ describe('capacitor banks only where they belong', () => {
       { id: 'run', kind: 'cable', from: 'inv', length: 15, resistancePerKm: 7.41, reactancePerKm: 0.1 },
       { id: 'compressor', kind: 'ac-load', from: 'run', power: 1500, powerFactor: 0.7 },
     ]);
-    const out = correctPowerFactor(backup, { at: 'compressor', targetPowerFactor: 0.95 });
+    const out = onSolved(correctPowerFactor, backup, { at: 'compressor', targetPowerFactor: 0.95 });
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(out.correction.warnings.join(' ')).toMatch(/on the output of the inverter inv, where this app does not propose one: the inverter supplies the reactive power from its DC side/);
     const offered = pfCorrectionCandidates(out.correction.resultBefore).filter((c) => c.offered);

@@ -7,12 +7,13 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { demoProjects } from '../../core/index.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
+import { onSolved } from '../core/solved.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const demo = demoProjects.find((d) => d.id === 'hillside-relay-hut')!;
 
 describe('command-line battery backup study', () => {
-  const inProcess = runBackupStudy(demo.project);
+  const inProcess = onSolved(runBackupStudy, demo.project);
   if (!inProcess.ok) throw new Error(JSON.stringify(inProcess.problems));
   const study = inProcess.study;
 

@@ -11,6 +11,7 @@ import { formatBackupStudy } from '../../core/studies/backup/text-report.ts';
 import { demoProjects, type BackupStudy, type BatteryBankSpec, type Project } from '../../core/index.ts';
 import type { Chemistry } from '../../core/data/battery-chemistries.ts';
 import { directLoad } from './helpers.ts';
+import { onSolved } from '../core/solved.ts';
 
 function sized(input: SizingInput): BankSizing {
   const r = sizeBank(input);
@@ -18,7 +19,7 @@ function sized(input: SizingInput): BankSizing {
   return r.sizing;
 }
 function run(project: Project): DischargeResult {
-  const r = simulateDischarge(project);
+  const r = onSolved(simulateDischarge, project);
   if (!r.ok) throw new Error(JSON.stringify(r.problems));
   return r.result;
 }
@@ -48,7 +49,7 @@ describe('point 9: lead-acid backup discharges to its end voltage, not to the de
   it('a lead-acid bank that starts at 40 % runs in a backup design and is refused in a cycling design (below its 50 % DoD limit, preset typical value)', () => {
     const part = { ...bank, initialSoc: 0.4 };
     expect(run(directLoad(part, 60)).endSoc).toBeLessThan(0.4);
-    const refused = simulateDischarge(directLoad(part, 60, { design: 'cycling' }));
+    const refused = onSolved(simulateDischarge, directLoad(part, 60, { design: 'cycling' }));
     expect(refused.ok).toBe(false);
     if (!refused.ok) expect(refused.problems[0]!.field).toBe('bank.initialSoc');
   });
@@ -85,7 +86,7 @@ describe('point 9: lead-acid backup discharges to its end voltage, not to the de
       delete backup.targetRechargeHours;
       delete backup.chargerCurrent;
       project.backup = backup;
-      const r = runBackupStudy(project);
+      const r = onSolved(runBackupStudy, project);
       if (!r.ok) throw new Error(JSON.stringify(r.problems));
       const { discharge, sizing } = r.study;
       expect(sizing!.basis).toBe(discharge.basis);
@@ -150,7 +151,7 @@ describe('point 10: design margin and aging factor as inputs; banks in whole mod
   });
 
   it('the study sizes in the project\u2019s own module and re-runs the discharge with that bank (hillside demo, invented)', () => {
-    const r = runBackupStudy(hillside());
+    const r = onSolved(runBackupStudy, hillside());
     if (!r.ok) throw new Error(JSON.stringify(r.problems));
     const s = r.study.sizing!;
     const again = r.study.sizedDischarge!;
@@ -194,13 +195,13 @@ describe('point 11: temperatures beyond the capacity tables', () => {
     expect(cold.warnings.join(' ')).toMatch(/extrapolated linearly/);
     const colder = run(directLoad(li, 100, { temperatureC: -35 }));
     expect(colder.runtimeSeconds).toBeLessThan(cold.runtimeSeconds); // never the end value held
-    const refused = simulateDischarge(directLoad(li, 100, { temperatureC: -45 }));
+    const refused = onSolved(simulateDischarge, directLoad(li, 100, { temperatureC: -45 }));
     expect(refused.ok).toBe(false);
     if (!refused.ok) {
       expect(refused.problems[0]!.field).toBe('backup.temperatureC');
       expect(refused.problems[0]!.message).toMatch(/more than 20 °C below/);
     }
-    const lead = simulateDischarge(directLoad({ chemistry: 'vrla-agm', series: 6, capacityAh: 100 }, 60, { temperatureC: -60 }));
+    const lead = onSolved(simulateDischarge, directLoad({ chemistry: 'vrla-agm', series: 6, capacityAh: 100 }, 60, { temperatureC: -60 }));
     expect(lead.ok).toBe(false);
   });
 });

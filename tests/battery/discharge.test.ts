@@ -9,9 +9,10 @@ import { bankOcv, resolveBank } from '../../core/physics/bank.ts';
 import { buildTimeline } from '../../core/solve/load-profile.ts';
 import { directLoad, flatBank } from './helpers.ts';
 import { batteryBenchProject } from './fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 const ok = (p: unknown): DischargeResult => {
-  const out = simulateDischarge(p);
+  const out = onSolved(simulateDischarge, p);
   if (!out.ok) throw new Error(JSON.stringify(out.problems));
   return out.result;
 };

@@ -9,9 +9,10 @@
 import { describe, expect, it } from 'vitest';
 import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { directLoad, flatBank } from './helpers.ts';
+import { onSolved } from '../core/solved.ts';
 
 function runtimeHours(capacityAh: number, ratedHours: number, k: number, current: number, timeStepSeconds = 60): number {
-  const out = simulateDischarge(directLoad(flatBank(capacityAh, ratedHours, k), current * 12, { timeStepSeconds }));
+  const out = onSolved(simulateDischarge, directLoad(flatBank(capacityAh, ratedHours, k), current * 12, { timeStepSeconds }));
   if (!out.ok) throw new Error(JSON.stringify(out.problems));
   // A lead-acid bank in a backup design (the default) runs to its rated capacity at the Peukert rate,
   // which is the charge it gives to its end voltage (IEEE 485 standby sizing).
@@ -45,7 +46,7 @@ describe("Peukert's law, constant current", () => {
     [50, 79.4],
     [100, 74.1],
   ])('100 Ah at C20, k = 1.1, I = %d A → available %d Ah = I·t (rated-capacity form, computed)', (current, ah) => {
-    const out = simulateDischarge(directLoad(flatBank(100, 20, 1.1), current * 12));
+    const out = onSolved(simulateDischarge, directLoad(flatBank(100, 20, 1.1), current * 12));
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(out.result.deliveredAh).toBeCloseTo(ah, 1);
     // The reported Peukert factor is (I/I_rated)^(k−1) at the one current drawn.

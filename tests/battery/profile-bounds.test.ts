@@ -16,6 +16,7 @@ import { demoProjects, type BackupStudy, type Project } from '../../core/index.t
 import type { Problem } from '../../core/model/errors.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { directLoad, flatBank } from './helpers.ts';
+import { onSolved } from '../core/solved.ts';
 
 type Json = Record<string, any>; // fixtures hold values the schema refuses on purpose
 
@@ -23,7 +24,7 @@ const demo = (): Json => structuredClone(demoProjects.find((d) => d.id === 'hill
 
 /** The study's problems; fails when the study ran. */
 function refused(p: unknown): Problem[] {
-  const out = simulateDischarge(p);
+  const out = onSolved(simulateDischarge, p);
   expect(out.ok, 'the study must be refused').toBe(false);
   return out.ok ? [] : out.problems;
 }
@@ -96,7 +97,7 @@ describe('very short segments and duty periods are refused at their field, namin
     const p = directLoad(flatBank(5000, 20, 1), 50, {
       profile: { kind: 'segments', segments: [{ durationHours: 168 }], duty: [{ load: 'pump', periodMinutes: 1, onMinutes: 0.5 }] },
     }, [{ id: 'pump', kind: 'dc-load', from: 'bank', power: 100 }]);
-    const out = simulateDischarge(p);
+    const out = onSolved(simulateDischarge, p);
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(out.result.endReason).toBe('profile-complete');
     // 168 h × 50 W + 168 h × 0.5 × 100 W = 8400 + 8400 Wh (by hand).
@@ -107,7 +108,7 @@ describe('very short segments and duty periods are refused at their field, namin
     const p = demo();
     p.backup.profile.duty[0].periodMinutes = 1e-6;
     p.backup.profile.duty[0].onMinutes = 1e-7;
-    const out = runBackupStudy(p);
+    const out = onSolved(runBackupStudy, p);
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.problems.map((x) => x.field)).toEqual(['backup.profile.duty.0.periodMinutes']);
   });
@@ -117,7 +118,7 @@ describe('the study\'s other settings at the ends of their range', () => {
   it('a horizon of 1e-9 h with a 24 h target runtime is refused at the horizon (today the sizing repeated 3.6 µs to 24 h until the process ran out of memory)', () => {
     const p = demo();
     p.backup.horizonHours = 1e-9;
-    const out = runBackupStudy(p);
+    const out = onSolved(runBackupStudy, p);
     expect(out.ok).toBe(false);
     if (!out.ok) {
       expect(out.problems.map((x) => x.field)).toEqual(['backup.horizonHours']);
@@ -128,13 +129,13 @@ describe('the study\'s other settings at the ends of their range', () => {
   it('a target runtime of 3000 h is sized (the sized run stays within the year a study runs); past a year it is refused at its field', () => {
     const p = demo();
     p.backup.targetRuntimeHours = 3000;
-    const out = runBackupStudy(p);
+    const out = onSolved(runBackupStudy, p);
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     // 3000 h is over 100 times the 24 h the demo's own bank covers: far more strings.
     expect(out.study.sizing!.strings).toBeGreaterThan(100);
     const q = demo();
     q.backup.targetRuntimeHours = 9000;
-    const refusedLong = runBackupStudy(q);
+    const refusedLong = onSolved(runBackupStudy, q);
     expect(refusedLong.ok).toBe(false);
     if (!refusedLong.ok) expect(refusedLong.problems.map((x) => x.field)).toEqual(['backup.targetRuntimeHours']);
   });
@@ -142,7 +143,7 @@ describe('the study\'s other settings at the ends of their range', () => {
   it('a state of health of 5e-324 with a target runtime gives a finite study (the run to the target is made with a bank at full health)', () => {
     const p = demo();
     p.backup.stateOfHealth = 5e-324;
-    const out = runBackupStudy(p);
+    const out = onSolved(runBackupStudy, p);
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(findNonFinite(out.study)).toEqual([]);
   });
@@ -150,14 +151,14 @@ describe('the study\'s other settings at the ends of their range', () => {
   it('a charger efficiency below 1 % is refused at its field (the charger\'s AC input, DC ÷ η, overflowed at 5e-324)', () => {
     const p = demo();
     p.backup.chargerEfficiency = 5e-324;
-    const out = runBackupStudy(p);
+    const out = onSolved(runBackupStudy, p);
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.problems.map((x) => x.field)).toEqual(['backup.chargerEfficiency']);
   });
 
   it('a time step longer than the whole outage still runs it: 60 W from a flat 12 V, 100 Ah bank lasts 20 h at any step (by hand: 100 Ah × 12 V ÷ 60 W)', () => {
     for (const step of [60, 1e300]) {
-      const out = simulateDischarge(directLoad(flatBank(100, 20, 1), 60, { timeStepSeconds: step }));
+      const out = onSolved(simulateDischarge, directLoad(flatBank(100, 20, 1), 60, { timeStepSeconds: step }));
       if (!out.ok) throw new Error(JSON.stringify(out.problems));
       expect(out.result.runtimeSeconds / 3600).toBeCloseTo(20, 9);
       expect(out.result.endReason).toBe('rated-capacity');
@@ -227,12 +228,12 @@ describe('a run that sweeps the whole chain at every step is bounded in steps ×
     expect(MAX_WHOLE_CHAIN_WORK).toBe(20_000_000);
   });
   it('the same run at the step it names is within the limit and runs', () => {
-    const out = simulateDischarge(withCurrentLoad({ horizonHours: 8760, timeStepSeconds: 82 }));
+    const out = onSolved(simulateDischarge, withCurrentLoad({ horizonHours: 8760, timeStepSeconds: 82 }));
     expect(out.ok ? [] : out.problems).toEqual([]);
   });
   it('the fast path (constant-power loads only) is not held to it', () => {
     const p = directLoad(flatBank(100, 20, 1.2), 10, { horizonHours: 8760, timeStepSeconds: 60 }, Array.from({ length: 60 }, (_, i) => ({ id: `lamp${i}`, kind: 'dc-load', from: 'bank', power: 1 })));
-    const out = simulateDischarge(p);
+    const out = onSolved(simulateDischarge, p);
     expect(out.ok ? [] : out.problems).toEqual([]);
   });
 });

@@ -13,6 +13,7 @@ import fc from 'fast-check';
 import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { demoProjects } from '../../core/index.ts';
+import { onSolved } from '../core/solved.ts';
 
 type Json = Record<string, any>; // fixtures hold values the schema refuses on purpose
 
@@ -71,7 +72,7 @@ describe('hostile backup profiles', () => {
       fc.property(settings, (s) => {
         // The demo's temperature and bank; its profile, horizon and step replaced by the drawn ones.
         const p: Json = { ...structuredClone(base), backup: { temperatureC: base['backup'].temperatureC, ...s } };
-        const out = simulateDischarge(p);
+        const out = onSolved(simulateDischarge, p);
         if (!out.ok) {
           expect(out.problems.length).toBeGreaterThan(0);
           for (const x of out.problems) {

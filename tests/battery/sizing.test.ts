@@ -21,6 +21,7 @@ import { IEEE_485_TEMPERATURE_FACTORS } from '../../core/data/ieee-485.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
 import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { demoProjects, type BatterySource, type Project } from '../../core/index.ts';
+import { onSolved } from '../core/solved.ts';
 
 function sized(input: SizingInput): BankSizing {
   const r = sizeBank(input);
@@ -556,17 +557,17 @@ describe('a bank sized here passes the runtime study (core/studies/backup/discha
     // No recharge target: a backup design discharges lead-acid to its end voltage, deeper than the demo's charger is meant for.
     project.backup = { ...project.backup!, design, targetRuntimeHours: 30, horizonHours: 40 };
     delete project.backup.targetRechargeHours;
-    const study = runBackupStudy(project);
+    const study = onSolved(runBackupStudy, project);
     if (!study.ok) throw new Error(JSON.stringify(study.problems));
     const s = study.study.sizing!;
     battery.bank = { ...bank, strings: s.strings, capacityAh: s.capacityPerString };
-    const run = simulateDischarge(project);
+    const run = onSolved(simulateDischarge, project);
     if (!run.ok) throw new Error(JSON.stringify(run.problems));
     // The target (30 h) is reached: the run ends later, or not at all within the 40 h horizon.
     expect(run.result.runtimeSeconds).toBeGreaterThanOrEqual(30 * 3600);
     // At end of life: state of health 1/1.25, the default aging factor (IEEE 485 common practice).
     project.backup = { ...project.backup!, stateOfHealth: 1 / 1.25 };
-    const old = simulateDischarge(project);
+    const old = onSolved(simulateDischarge, project);
     if (!old.ok) throw new Error(JSON.stringify(old.problems));
     expect(old.result.runtimeSeconds).toBeGreaterThanOrEqual(30 * 3600);
   });

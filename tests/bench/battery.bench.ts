@@ -6,9 +6,10 @@
 import { bench, describe } from 'vitest';
 import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { batteryBenchProject } from '../battery/fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 const project = batteryBenchProject();
-const check = simulateDischarge(project);
+const check = onSolved(simulateDischarge, project);
 if (!check.ok) throw new Error(`bench project does not run: ${JSON.stringify(check.problems)}`);
 if (check.result.endReason !== 'profile-complete' || check.result.series.time.length < 1440) {
   throw new Error(`bench project should run the whole 24 h profile, ended: ${check.result.endText}`);
@@ -16,6 +17,6 @@ if (check.result.endReason !== 'profile-complete' || check.result.series.time.le
 
 describe('battery backup study', () => {
   bench('24 h profile, 1-minute steps, 10-stage chain, two duty-cycled loads', () => {
-    simulateDischarge(project);
+    onSolved(simulateDischarge, project);
   });
 });

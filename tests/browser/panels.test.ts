@@ -13,6 +13,7 @@ import { correctPowerFactor, demoProjects, formatBackupStudy, projectPumpDuty, r
 import { lossCostPerYear } from '../../core/studies/economics.ts';
 import { formatDuration, formatEnergy, formatReactive, formatSignificant } from '../../web/format/number.ts';
 import { formatMoney } from '../../web/format/panels.ts';
+import { onSolved } from '../core/solved.ts';
 
 const demo = (id: string) => {
   const d = demoProjects.find((x) => x.id === id);
@@ -67,7 +68,7 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
 
   it('battery: runtime as the command-line solver prints it, the plot, the sizing following the target runtime', async () => {
     const project = demo('hillside-relay-hut');
-    const study = runBackupStudy(project);
+    const study = onSolved(runBackupStudy, project);
     if (!study.ok) throw new Error(JSON.stringify(study.problems));
     // The command-line solver's text for this demo ("Runtime: 27 h 40 min — …").
     const cliRuntime = /Runtime: (.+?) —/.exec(formatBackupStudy(study.study))?.[1];
@@ -113,7 +114,7 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
       expect(await page.getByTestId('battery-basis').textContent()).toBe(study.study.discharge.basis);
       expect(await page.getByTestId('battery-sized-runtime').textContent()).toContain(study.study.sizedDischarge!.endText);
       expect(await page.getByTestId('battery-design').inputValue()).toBe('backup');
-      const longer = runBackupStudy({ ...project, backup: { ...(project.backup as object), targetRuntimeHours: 48 } });
+      const longer = onSolved(runBackupStudy, { ...project, backup: { ...(project.backup as object), targetRuntimeHours: 48 } });
       if (!longer.ok) throw new Error(JSON.stringify(longer.problems));
       expect(longer.study.sizing!.bankCapacity).toBeGreaterThan(study.study.sizing!.bankCapacity);
       const field = page.getByTestId('battery-target-runtime');
@@ -195,10 +196,10 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
 
   it('machines: the pump duty study energies, a capacitor bank, the yearly cost of the losses', async () => {
     const project = demo('riverside-pump-station');
-    const duty = projectPumpDuty(project);
+    const duty = onSolved(projectPumpDuty, project);
     if (!duty.ok) throw new Error(JSON.stringify(duty.problems));
     // The motor is fed by the drive: no bank there (issue 14, point 13); the control offers the service first.
-    const pfc = correctPowerFactor(project, { at: 'service', targetPowerFactor: 0.95 });
+    const pfc = onSolved(correctPowerFactor, project, { at: 'service', targetPowerFactor: 0.95 });
     if (!pfc.ok) throw new Error(JSON.stringify(pfc.problems));
     const solved = solveProject(project);
     if (!solved.ok) throw new Error('the demo does not solve');

@@ -12,7 +12,7 @@ import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp, fullPageScreenshot } from './harness.ts';
-import { demoProjects, flowGraph, solveProject, CONDUCTOR_CAUTION } from '../../core/index.ts';
+import { bankCautions, demoProjects, flowGraph, solveProject, CONDUCTOR_CAUTION } from '../../core/index.ts';
 import { formatPercent, formatPower } from '../../web/format/number.ts';
 
 
@@ -141,6 +141,81 @@ describe.skipIf(skipWithout('chromium'))('the client report in Chromium', () => 
         expect(pages, `${demo.id}: pages of the printed report`).toBeGreaterThanOrEqual(1);
         expect(pages, `${demo.id}: pages of the printed report`).toBeLessThanOrEqual(2);
       }
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('after an edit that makes the draft invalid, prints the last valid pair marked out of date, never the new names beside old figures', async () => {
+    const { context, page, errors } = await openPage('light');
+    try {
+      await showDemo(page, 'cold-store-dc-bus');
+      const result = solved('cold-store-dc-bus');
+      const select = async (id: string) => {
+        await page.locator(`[data-testid="stage-card"][data-card-id="${id}"]`).click();
+        await page.locator(`[data-testid="stage-form"][data-element-id="${id}"]`).waitFor();
+      };
+      const field = (path: string) => page.locator(`[data-testid="stage-form"] [data-testid="field-${path}"]`);
+      // 400 kW of fans on the 35 m, 2.5 mm² run: past what the link can transfer, so the engine
+      // refuses the whole chain (infeasible load; taken into the draft, as a structural refusal is).
+      await select('fans');
+      const unit = await page.locator('[data-testid="stage-form"] [data-path="power"] .sf-unit').innerText();
+      await field('power').fill(unit === 'kW' ? '400' : '400000');
+      await field('power').blur();
+      await page.getByTestId('results-stale').waitFor();
+      // Then a new name, in the invalid draft only.
+      await field('name').fill('Renamed in the draft');
+      await field('name').blur();
+      await expect.poll(() => page.locator('[data-card-id="fans"]').innerText()).toContain('Renamed in the draft');
+
+      await page.emulateMedia({ media: 'print' });
+      await expect.poll(() => page.getByTestId('report-stale').isVisible()).toBe(true);
+      expect(await page.getByTestId('report-stale').innerText()).toMatch(/Out of date/);
+      const chain = await page.getByTestId('report-chain').innerText();
+      // The last valid pair: its own name for the fans, with its own figures.
+      expect(chain).toContain('Evaporator fans');
+      expect(chain).not.toContain('Renamed in the draft');
+      const text = (await page.evaluate('document.body.innerText')) as string;
+      expect(text).not.toContain('Renamed in the draft');
+      expect(text).toContain(formatPower(result.totals.sourcePower, 'en-US'));
+      expect(text).toContain(formatPower(result.totals.loadPower, 'en-US'));
+      await fullPageScreenshot(page, join(artifacts, 'report-stale-cold-store.png'));
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('the cautions of an out-of-date report are those of the pair’s own bank, not of a chemistry typed since into the invalid draft', async () => {
+    const { context, page, errors } = await openPage('light');
+    try {
+      await showDemo(page, 'hillside-relay-hut');
+      const select = async (id: string) => {
+        await page.locator(`[data-testid="stage-card"][data-card-id="${id}"]`).click();
+        await page.locator(`[data-testid="stage-form"][data-element-id="${id}"]`).waitFor();
+      };
+      const field = (path: string) => page.locator(`[data-testid="stage-form"] [data-testid="field-${path}"]`);
+      // 400 kW through the hut's 25 m, 2.5 mm² run: the engine refuses the chain (infeasible load).
+      await select('fridge');
+      const unit = await page.locator('[data-testid="stage-form"] [data-path="power"] .sf-unit').innerText();
+      await field('power').fill(unit === 'kW' ? '400' : '400000');
+      await field('power').blur();
+      await page.getByTestId('results-stale').waitFor();
+      // The bank's chemistry changed in the invalid draft: LiFePO4 → flooded lead-acid (vented: another caution).
+      await select('bank');
+      await field('bank.chemistry').selectOption('flooded-lead-acid');
+      await expect.poll(() => field('bank.chemistry').inputValue()).toBe('flooded-lead-acid');
+
+      await page.emulateMedia({ media: 'print' });
+      await expect.poll(() => page.getByTestId('report-stale').isVisible()).toBe(true);
+      const cautions = await page.getByTestId('report-cautions').innerText();
+      const own = bankCautions('lifepo4').filter((c) => !c.startsWith('Planning estimate only'));
+      const typed = bankCautions('flooded-lead-acid').filter((c) => !c.startsWith('Planning estimate only') && !own.includes(c));
+      expect(own.length).toBeGreaterThan(0);
+      expect(typed.length).toBeGreaterThan(0);
+      for (const c of own) expect(cautions).toContain(c);
+      for (const c of typed) expect(cautions).not.toContain(c);
       expect(errors).toEqual([]);
     } finally {
       await context.close();

@@ -16,6 +16,7 @@ import { studySurges } from '../../core/studies/surge/index.ts';
 import { formatCurrent } from '../../web/format/number.ts';
 import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp } from './harness.ts';
+import { onSolved } from '../core/solved.ts';
 
 
 /** Spaces of every kind as one ASCII space (numbers and units are joined by a narrow no-break space). */
@@ -47,7 +48,7 @@ describe.skipIf(skipWithout('chromium'))('the motor-starting and fault panel in 
 
   it('shows the start verdict, the fault currents and the device check the engine gives', async () => {
     const demo = demoProjects.find((d) => d.id === 'riverside-pump-station')!.project;
-    const study = studySurges(demo);
+    const study = onSolved(studySurges, demo);
     expect(study.ok).toBe(true);
     if (!study.ok) return;
     const { context, page, errors } = await openPanel(VIEWPORTS.desktop);

@@ -9,6 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { demoProjects, pumpDetails, projectPumpDuty, solveProject, studySurges, validateProject } from '../../core/index.ts';
+import { onSolved } from './solved.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
@@ -39,13 +40,13 @@ describe('command-line solver', () => {
     const { pumps, pumpDuty, surgeStudy, ...result } = JSON.parse(out);
     expect(result).toEqual(JSON.parse(JSON.stringify(outcome.result)));
     // The demo has a pump and a pumpDuty: both sections come from core/studies/machines, run in-process here.
-    const study = projectPumpDuty(demo);
+    const study = onSolved(projectPumpDuty, demo);
     expect(study.ok).toBe(true);
     if (study.ok) expect(pumpDuty).toEqual(JSON.parse(JSON.stringify(study.result)));
     const valid = validateProject(demo);
     if (valid.ok) expect(pumps).toEqual(JSON.parse(JSON.stringify(pumpDetails(valid.project))));
     // The demo carries starting and device data: the surge study comes from core/studies/surge, run in-process here.
-    const surges = studySurges(demo);
+    const surges = onSolved(studySurges, demo);
     expect(surges.ok).toBe(true);
     if (surges.ok) expect(surgeStudy).toEqual(JSON.parse(JSON.stringify(surges.result)));
   }, 30_000);

@@ -10,6 +10,7 @@ import { demoProjects, solveProject, validateProject, type Element, type Project
 import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { RESERVED_IDS } from '../../core/solve/structure.ts';
 import { fieldWords } from '../../core/solve/finite.ts';
+import { onSolved } from './solved.ts';
 
 const chain = (loadId: string): Project => ({
   format: 'joulepath-project',
@@ -57,7 +58,7 @@ describe('reserved ids', () => {
     const demo = structuredClone(demoProjects.find((d) => d.id === 'hillside-relay-hut')!.project);
     // The demo's fridge (on a duty schedule, named by no segment) renamed.
     const p = JSON.parse(JSON.stringify(demo).replaceAll('"fridge"', '"toString"'));
-    const out = simulateDischarge(p);
+    const out = onSolved(simulateDischarge, p);
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.problems.map((x) => [x.elementId, x.field])).toEqual([['toString', 'id']]);
   });

@@ -17,6 +17,7 @@ import { solveProject, validateProject, type Element, type Project, type SolveRe
 import { flowGraph } from '../../core/studies/energy-flow.ts';
 import { studySurges } from '../../core/studies/surge/index.ts';
 import { deepCables, deepConverters, deepSized, loop, tree, wide } from '../bench/chains.ts';
+import { onSolved } from './solved.ts';
 
 /** Generous per-test limit: the machine is shared; this is no timing assertion, only a guard against a hang. */
 const LONG = 120_000;
@@ -134,14 +135,14 @@ describe('deep series chains', () => {
         from = `c${i}`;
       }
       dc.push({ id: 'load', kind: 'dc-load', from, power: 10 });
-      const bat = studySurges({ format: 'joulepath-project', version: 2, name: 'Deep DC faults', elements: dc });
+      const bat = onSolved(studySurges, { format: 'joulepath-project', version: 2, name: 'Deep DC faults', elements: dc });
       expect(bat.ok).toBe(true);
       if (bat.ok) {
         expect(bat.result.batteryFaults.points).toHaveLength(4999);
         // Thévenin: I = E / (R_internal + 2 × 4998 m × 0.1 Ω/km) at the far end.
         expectRelative(bat.result.batteryFaults.points.at(-1)!.current!, 48 / (0.01 + (2 * 4998 * 0.1) / 1000));
       }
-      const ac = studySurges(deepCables(5000));
+      const ac = onSolved(studySurges, deepCables(5000));
       expect(ac.ok).toBe(true);
       if (ac.ok) expect(ac.result.acFaults.points).toHaveLength(4999);
     },

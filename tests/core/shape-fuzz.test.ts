@@ -14,6 +14,7 @@ import fc from 'fast-check';
 import { solveProject, studySurges } from '../../core/index.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { RESERVED_IDS } from '../../core/solve/structure.ts';
+import { onSolved } from './solved.ts';
 
 type Json = Record<string, any>;
 
@@ -79,7 +80,7 @@ describe('hostile shapes', () => {
           expect(findNonFinite(out.result)).toEqual([]);
           expect(out.result.totals.balanceError).toBeLessThanOrEqual(1e-9);
           // The fault study walks the same tree: finite, or refused.
-          const surge = studySurges(project);
+          const surge = onSolved(studySurges, project);
           if (surge.ok) expect(findNonFinite(surge.result)).toEqual([]);
           return;
         }

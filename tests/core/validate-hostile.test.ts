@@ -7,6 +7,7 @@ import { solveProject } from '../../core/solve/index.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { studySurges } from '../../core/studies/surge/index.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
+import { onSolved } from './solved.ts';
 
 type Json = Record<string, unknown>;
 const project = (elements: unknown[]) => ({ format: 'joulepath-project', version: 2, name: 'hostile', elements });
@@ -59,7 +60,7 @@ describe('hostile-input counterexamples', () => {
     // 0.001: the range table's smallest power factor (core/kinds/ranges.ts; common practice, no source).
     if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'motor', field: 'powerFactor.points.3.powerFactor', message: expect.stringContaining('must be at least 0.001') }]);
     (motor['powerFactor'] as { points: { powerFactor: number }[] }).points[3]!.powerFactor = 0.001;
-    const surges = studySurges(demo);
+    const surges = onSolved(studySurges, demo);
     if (surges.ok) expect(findNonFinite(surges.result)).toEqual([]);
   });
 
@@ -67,7 +68,7 @@ describe('hostile-input counterexamples', () => {
     const demo = JSON.parse(readFileSync('core/demos/hillside-relay-hut.json', 'utf8')) as Json;
     const bank = (demo['elements'] as Json[]).find((e) => e['kind'] === 'battery')!['bank'] as Json;
     bank['overrides'] = { maxChargeCRate: 5e-324 };
-    const o = runBackupStudy(demo);
+    const o = onSolved(runBackupStudy, demo);
     expect(o.ok).toBe(false);
     // C/1000: the range table's slowest rate (core/kinds/ranges.ts; common practice, no source).
     if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'bank', field: 'bank.overrides.maxChargeCRate', message: expect.stringContaining('must be at least 0.001 per hour') }]);
@@ -77,7 +78,7 @@ describe('hostile-input counterexamples', () => {
     const demo = JSON.parse(readFileSync('core/demos/hillside-relay-hut.json', 'utf8')) as Json;
     const bank = (demo['elements'] as Json[]).find((e) => e['kind'] === 'battery')!['bank'] as Json;
     bank['overrides'] = { ratedHours: 5e-324 };
-    const o = runBackupStudy(demo);
+    const o = onSolved(runBackupStudy, demo);
     expect(o.ok).toBe(false);
     if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'bank', field: 'bank.overrides.ratedHours', message: expect.stringContaining('must be at least 0.01 h') }]);
   });
@@ -92,7 +93,7 @@ describe('reserved ids (issue 15, point 5, on the engine side)', () => {
       const solved = solveProject(demo);
       expect(solved.ok).toBe(false);
       if (!solved.ok) expect(solved.problems).toMatchObject([{ elementId: id, field: 'id', message: expect.stringContaining('reserved name') }]);
-      const study = runBackupStudy(demo);
+      const study = onSolved(runBackupStudy, demo);
       expect(study.ok).toBe(false);
       if (!study.ok) expect(study.problems.map((p) => [p.elementId, p.field])).toContainEqual([id, 'id']);
     });

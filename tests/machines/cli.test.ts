@@ -9,6 +9,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { comparePumpControl, solveWithMachines, type PumpDutyInput } from '../../core/index.ts';
+import { onSolved } from '../core/solved.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
@@ -65,7 +66,7 @@ describe('CLI --machines and --pump-duty', () => {
     const r = run(write('p2.json', project(4000)), '--machines', '--pump-duty', write('s.json', study), '--json');
     expect(r.status).toBe(0);
     const out = JSON.parse(r.stdout) as { machines: unknown; pumpDuty: unknown };
-    const m = solveWithMachines(project(4000));
+    const m = onSolved(solveWithMachines, project(4000));
     const f = comparePumpControl(study);
     if (!m.ok || !f.ok) throw new Error('engine refused');
     expect(out.machines).toEqual(JSON.parse(JSON.stringify(m.machines)));

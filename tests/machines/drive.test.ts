@@ -111,7 +111,7 @@ describe('the drive stage in a solved chain', () => {
   });
   it('input displacement pf as given; details give the operating point, true pf and rms current', () => {
     expect(vfd.input!.powerFactor).toBeCloseTo(0.96, 12);
-    const d = machineDetails(p, o.result).drives[0]!;
+    const d = machineDetails(o).drives[0]!;
     expect(d.speedPercent).toBeCloseTo(75, 12);
     expect(d.torquePercent).toBeCloseTo(50, 12);
     expect(d.clamped).toBe(false);

@@ -1,3 +1,4 @@
+import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
@@ -5,7 +6,7 @@ import { comparePumpControl, type PumpDutyInput } from '../../core/physics/pump-
 import { projectPumpDuty, pumpDetails } from '../../core/studies/machines/pump-duty.ts';
 import { pumpOperatingPoint } from '../../core/kinds/pump.ts';
 import type { Project, PumpLoad } from '../../core/model/project.ts';
-import { PROJECT_LEVEL } from '../../core/model/errors.ts';
+import { onSolved } from '../core/solved.ts';
 
 // Invented pump: Q_r = 0.05 m³/s, H_r = 30 m, H0 = 40 m, H_s = 10 m, η = 0.75, water.
 const pumpBase = { id: 'pump', kind: 'pump', from: 'motor', ratedFlow: 0.05, ratedHead: 30, shutoffHead: 40, efficiency: 0.75, staticHead: 10, flow: 0.04 } as const;
@@ -110,7 +111,7 @@ describe('projectPumpDuty: the chain\'s own pump, motor and drive', () => {
     { flow: 0.025, hours: 2000 },
   ];
   it('equals comparePumpControl run by hand on the same inputs', () => {
-    const out = projectPumpDuty(project({ ...pumpBase, control: 'speed' }, { pumpDuty: { pump: 'pump', duty } }));
+    const out = onSolved(projectPumpDuty, project({ ...pumpBase, control: 'speed' }, { pumpDuty: { pump: 'pump', duty } }));
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     const byHand: PumpDutyInput = {
       id: 'pumpDuty',
@@ -135,7 +136,7 @@ describe('projectPumpDuty: the chain\'s own pump, motor and drive', () => {
     const p = project({ ...pumpBase, control: 'speed' }, { pumpDuty: { pump: 'pump', duty } });
     const els = p['elements'] as Record<string, unknown>[];
     els[1] = { id: 'drive', kind: 'drive', from: 'grid', outputVoltage: 400, outputFrequency: 42.72, inputPowerFactor: 0.95, loss: { model: 'constant', efficiency: 0.97 } };
-    const out = projectPumpDuty(p);
+    const out = onSolved(projectPumpDuty, p);
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(out.input.drive.basis).toBe('cdm');
     expect(out.input.drive.points).toBeUndefined();
@@ -144,7 +145,7 @@ describe('projectPumpDuty: the chain\'s own pump, motor and drive', () => {
 
   const bad = (pumpDuty: unknown) => {
     const p = project({ ...pumpBase, control: 'speed' }, { pumpDuty });
-    const out = projectPumpDuty(p);
+    const out = onSolved(projectPumpDuty, p);
     expect(out.ok).toBe(false);
     return out.ok ? [] : out.problems;
   };
@@ -172,7 +173,7 @@ describe('projectPumpDuty: the chain\'s own pump, motor and drive', () => {
     const p = project({ ...pumpBase, control: 'speed' }, { pumpDuty: { pump: 'pump', duty } });
     const els = p['elements'] as Record<string, unknown>[];
     els[2] = { ...els[2], ratedOutput: 18500 };
-    const out = projectPumpDuty(p);
+    const out = onSolved(projectPumpDuty, p);
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.problems[0]).toMatchObject({ elementId: 'motor', field: 'ratedOutput' });
   });
@@ -181,7 +182,7 @@ describe('projectPumpDuty: the chain\'s own pump, motor and drive', () => {
 describe('riverside demo carries its pump duty study', () => {
   it('runs on the demo file', async () => {
     const demo = (await import('../../core/demos/riverside-pump-station.json', { with: { type: 'json' } })).default as unknown as Project;
-    const out = projectPumpDuty(demo);
+    const out = onSolved(projectPumpDuty, demo);
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     expect(out.result.totalHours).toBe(8000);
     expect(out.result.savingVsThrottleWh).toBeGreaterThan(0);

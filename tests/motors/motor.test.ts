@@ -7,6 +7,7 @@ import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/index.ts';
 import { classEfficiency, machineDetails, necFullLoadCurrent, partLoadRatios, solveWithMachines } from '../../core/studies/machines/index.ts';
 import type { Project } from '../../core/model/project.ts';
+import { onSolved } from '../core/solved.ts';
 
 const SQRT3 = Math.sqrt(3);
 
@@ -93,8 +94,7 @@ describe('a NEMA Premium 10 hp motor at 75 % load on a stiff 460 V supply', () =
     expect(m.input!.current).toBeCloseTo(pIn / (SQRT3 * 460 * pf), 9);
   });
   it('reports the NEC Table 430.250 current 14 A (10 hp, 460 V; NFPA 70-2023) with the 430.6(A)(1) note, and the rating estimate', () => {
-    const valid = project(nema10, shaft);
-    const d = machineDetails(valid, outcome.result).motors[0]!;
+    const d = machineDetails(outcome).motors[0]!;
     expect(d.nec).toMatchObject({ amps: 14, hp: 10, voltage: 460 });
     expect(d.nec!.note).toContain('430.6(A)(1)');
     expect(d.nec!.note).toContain('licensed practice');
@@ -132,12 +132,12 @@ describe('nameplate motor', () => {
 
 describe('service factor', () => {
   it('a load between rated and SF × rated solves with a warning', () => {
-    const o = solveWithMachines(project({ ...nema10, serviceFactor: 1.15 }, 1.1 * 7457));
+    const o = onSolved(solveWithMachines, project({ ...nema10, serviceFactor: 1.15 }, 1.1 * 7457));
     expect(o.ok).toBe(true);
     if (o.ok) expect(o.result.warnings.map((w) => w.message).join()).toContain('within the service factor 1.15');
   });
   it('a load beyond SF × rated is refused naming the motor and ratedOutput; nothing is returned', () => {
-    const o = solveWithMachines(project({ ...nema10, serviceFactor: 1.15 }, 1.2 * 7457));
+    const o = onSolved(solveWithMachines, project({ ...nema10, serviceFactor: 1.15 }, 1.2 * 7457));
     expect(o.ok).toBe(false);
     if (!o.ok) {
       expect(o.problems).toHaveLength(1);
@@ -147,7 +147,7 @@ describe('service factor', () => {
     }
   });
   it('without a stated service factor (1.0) any overload is refused', () => {
-    expect(solveWithMachines(project(nema10, 1.01 * 7457)).ok).toBe(false);
+    expect(onSolved(solveWithMachines, project(nema10, 1.01 * 7457)).ok).toBe(false);
   });
   it('the plain chain solve refuses it too (the CLI and the app see the same refusal)', () => {
     const o = solveProject(project({ ...nema10, serviceFactor: 1.15 }, 1.2 * 7457));

@@ -10,6 +10,7 @@ import type { Project } from '../../core/index.ts';
 import type { Chemistry } from '../../core/data/battery-chemistries.ts';
 import { CHEMISTRIES } from '../../core/data/battery-chemistries.ts';
 import { simulateDischarge, type DischargeResult } from '../../core/studies/backup/discharge.ts';
+import { onSolved } from '../core/solved.ts';
 
 const RUNS = Number(process.env['JP_FC_RUNS'] ?? 40);
 
@@ -56,7 +57,7 @@ function project(c: Case): Project {
 }
 
 function run(p: Project): DischargeResult | null {
-  const out = simulateDischarge(p);
+  const out = onSolved(simulateDischarge, p);
   return out.ok ? out.result : null;
 }
 

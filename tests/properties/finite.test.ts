@@ -16,6 +16,7 @@ import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { machineSections } from '../../core/cli/machines-flags.ts';
 import { findNonFinite } from '../../core/solve/finite.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
+import { onSolved } from '../core/solved.ts';
 
 /** Multiply every numRuns by JP_FC_SCALE (default 1) for a longer hunt, e.g. JP_FC_SCALE=50. */
 const SCALE = Math.max(1, Number(process.env['JP_FC_SCALE'] ?? '1') || 1);
@@ -120,12 +121,12 @@ describe('a solved result is finite everywhere', () => {
       fc.property(fc.oneof(projectArb, projectWithNetworksArb), (project) => {
         const solved = solveProject(project);
         if (!solved.ok) return;
-        const surge = studySurges(project);
+        const surge = onSolved(studySurges, project);
         if (surge.ok) {
           studied++;
           expect(findNonFinite(surge.result)).toEqual([]);
         }
-        const machines = machineSections(project, true, undefined);
+        const machines = machineSections(solved, true, undefined);
         if (machines.ok) expect(findNonFinite(machines.json)).toEqual([]);
         expect(findNonFinite(lossCostPerYear(solved.result, { pricePerKWh: 0.2, hoursPerYear: 8760 }))).toEqual([]);
       }),

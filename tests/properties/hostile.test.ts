@@ -32,6 +32,7 @@ import type { Problem } from '../../core/model/errors.ts';
 import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
 import { RANGES } from '../../core/kinds/ranges.ts';
+import { onSolved } from '../core/solved.ts';
 
 /** Multiply every numRuns by JP_FC_SCALE (default 1) for a longer hunt, e.g. JP_FC_SCALE=20. */
 const SCALE = Math.max(1, Number(process.env['JP_FC_SCALE'] ?? '1') || 1);
@@ -215,19 +216,19 @@ function checkProject(project: Json): void {
     expectCleanRefusal('solve', solved.problems, project);
   }
   if (project['backup'] !== undefined) {
-    const study = runBackupStudy(project);
+    const study = onSolved(runBackupStudy, project);
     stats.studies++;
     if (study.ok) expect(findNonFinite(study.study)).toEqual([]);
     else expectCleanRefusal('backup study', study.problems, project);
   }
   if (project['pumpDuty'] !== undefined) {
-    const flow = projectPumpDuty(project);
+    const flow = onSolved(projectPumpDuty, project);
     stats.studies++;
     if (flow.ok) expect(findNonFinite(flow.result)).toEqual([]);
     else expectCleanRefusal('pump duty study', flow.problems, project);
   }
-  if (hasSurgeInputs(project)) {
-    const surges = studySurges(project);
+  if (solved.ok && hasSurgeInputs(solved)) {
+    const surges = onSolved(studySurges, project);
     stats.studies++;
     if (surges.ok) expect(findNonFinite(surges.result)).toEqual([]);
     else expectCleanRefusal('surge study', surges.problems, project);

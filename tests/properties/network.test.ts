@@ -29,6 +29,7 @@ import {
   type SolveResult,
 } from '../../core/index.ts';
 import { circuitNetworkArb, projectWithNetworksArb } from '../core/arbitraries.ts';
+import { onSolved } from '../core/solved.ts';
 
 const SCALE = Math.max(1, Number(process.env['JP_FC_SCALE'] ?? '1') || 1);
 const runs = (n: number) => ({ numRuns: n * SCALE });
@@ -215,7 +216,7 @@ describe('power-factor correction laws', () => {
       fc.property(case3, ({ p, pf, gain, x, phases, v, f }) => {
         const target = pf + (1 - pf) * gain; // above the present pf, at most 1
         fc.pre(target - pf > 1e-6);
-        const out = correctPowerFactor(
+        const out = onSolved(correctPowerFactor, 
           {
             format: 'joulepath-project',
             version: 2,
@@ -251,7 +252,7 @@ describe('power-factor correction laws', () => {
         // Cable resistance for about `drop` of the voltage at this load (per phase on 3φ, loop on 1φ).
         const rLoop = (drop * v * v) / s;
         const perKm = phases === 3 ? rLoop / 0.1 : rLoop / 0.2;
-        const out = correctPowerFactor(
+        const out = onSolved(correctPowerFactor, 
           {
             format: 'joulepath-project',
             version: 2,

@@ -12,9 +12,10 @@ import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { studySurges, type SurgeStudyResult } from '../../core/index.ts';
 import { gridTransformerCable, project, transformerFed, weakGrid } from '../surge/fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 function study(p: unknown): SurgeStudyResult {
-  const o = studySurges(p);
+  const o = onSolved(studySurges, p);
   if (!o.ok) throw new Error(JSON.stringify(o.problems));
   return o.result;
 }

@@ -15,6 +15,7 @@ import { correctPowerFactor, parseNetwork, solveProject, type CircuitNetwork, ty
 import { requireNgspice, runAc, seriesBranch, sp, type Phasor } from './ngspice.ts';
 import { cneg, cabs, cargDeg, power, csum } from './phasor.ts';
 import { Agreement, agreementSummary, projectOf } from './agreement.ts';
+import { onSolved } from '../core/solved.ts';
 
 const polarDeg = (r: number, deg: number): Phasor => ({ re: r * Math.cos((deg * Math.PI) / 180), im: r * Math.sin((deg * Math.PI) / 180) });
 
@@ -219,7 +220,7 @@ describe('network loads against ngspice', () => {
       { id: 'cab', kind: 'cable', from: 'sup', length: len, resistancePerKm: rkm, reactancePerKm: xkm },
       { id: 'comp', kind: 'network-load', from: 'cab', connection: 'star', network },
     ]);
-    const out = correctPowerFactor(p, { at: 'comp', targetPowerFactor: 0.95 });
+    const out = onSolved(correctPowerFactor, p, { at: 'comp', targetPowerFactor: 0.95 });
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
     const c = out.correction;
     const farads = c.bank.capacitance.delta!;

@@ -19,12 +19,13 @@ import { runAc, sp, seriesBranch } from './ngspice.ts';
 import { cabs } from './phasor.ts';
 import { REL_TOL } from './agreement.ts';
 import { gridTransformerCable, pumpOnInverter, transformerFed, weakGrid } from '../surge/fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 const F = 50;
 const C = 1.1; // IEC 60909-0 Table 1, c_max (10 % tolerance LV; above 1 kV)
 
 function study(p: unknown): SurgeStudyResult {
-  const o = studySurges(p);
+  const o = onSolved(studySurges, p);
   if (!o.ok) throw new Error(JSON.stringify(o.problems));
   return o.result;
 }

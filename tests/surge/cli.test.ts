@@ -10,6 +10,7 @@ import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { studySurges } from '../../core/index.ts';
 import { dolOnCable, gridTransformerCable, pumpOnInverter } from './fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const dir = mkdtempSync(join(tmpdir(), 'joulepath-surge-'));
@@ -42,7 +43,7 @@ describe('command-line surge and fault study', () => {
 
   it('--json carries the study under "surgeStudy", equal to the study run in-process', () => {
     const p = pumpOnInverter({ surge: 6000 });
-    const o = studySurges(p);
+    const o = onSolved(studySurges, p);
     if (!o.ok) throw new Error('study failed');
     const out = JSON.parse(run([write('inv-json.json', p), '--json']));
     expect(out.surgeStudy).toEqual(JSON.parse(JSON.stringify(o.result)));

@@ -6,9 +6,10 @@
 import { describe, expect, it } from 'vitest';
 import { studySurges, type SurgeStudyResult } from '../../core/index.ts';
 import { gridTransformerCable, project, pumpOnInverter } from './fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 function study(p: unknown): SurgeStudyResult {
-  const o = studySurges(p);
+  const o = onSolved(studySurges, p);
   if (!o.ok) throw new Error(JSON.stringify(o.problems));
   return o.result;
 }
@@ -139,7 +140,7 @@ describe('AC available fault current, IEC 60909-0 (worked by hand)', () => {
 
 describe('bad input: a clear problem naming element and field, nothing computed', () => {
   const problemsOf = (p: unknown) => {
-    const o = studySurges(p);
+    const o = onSolved(studySurges, p);
     expect(o.ok).toBe(false);
     return o.ok ? [] : o.problems;
   };

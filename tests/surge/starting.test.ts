@@ -8,11 +8,12 @@ import { solveProject, studySurges, type MotorStartResult } from '../../core/ind
 import { startingFigures } from '../../core/studies/surge/starting.ts';
 import type { MotorStage } from '../../core/model/project.ts';
 import { dolOnCable, project, pumpOnInverter, transformerFed, weakGrid } from './fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 const SQRT3 = Math.sqrt(3);
 
 function start(p: unknown, id: string): MotorStartResult {
-  const o = studySurges(p);
+  const o = onSolved(studySurges, p);
   if (!o.ok) throw new Error(JSON.stringify(o.problems));
   return o.result.starts.find((s) => s.motorId === id)!;
 }
@@ -204,13 +205,13 @@ describe('generator: transient reactance X′d beside X″d', () => {
   });
 
   it('X′d below X″d, or X′d without the rating, is refused naming the field', () => {
-    const low = studySurges(gen({ transientReactancePercent: 10 }));
+    const low = onSolved(studySurges, gen({ transientReactancePercent: 10 }));
     expect(low.ok).toBe(false);
     if (!low.ok) expect(low.problems[0]).toMatchObject({ elementId: 'gen', field: 'transientReactancePercent' });
     const p = gen({ transientReactancePercent: 25 }) as { elements: Record<string, unknown>[] };
     delete p.elements[0]!.ratedApparentPower;
     delete p.elements[0]!.subtransientReactancePercent;
-    const noRating = studySurges(p);
+    const noRating = onSolved(studySurges, p);
     expect(noRating.ok).toBe(false);
     if (!noRating.ok) expect(noRating.problems[0]).toMatchObject({ elementId: 'gen', field: 'ratedApparentPower' });
   });

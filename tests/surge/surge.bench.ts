@@ -2,13 +2,14 @@
 import { bench, describe } from 'vitest';
 import { studySurges } from '../../core/index.ts';
 import { dolOnCable, gridTransformerCable, pumpOnInverter } from './fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 const inverter = pumpOnInverter();
 const cable = dolOnCable(120);
 const grid = gridTransformerCable();
 
 describe('studySurges', () => {
-  bench('pump on an inverter (one start, battery faults, two devices)', () => void studySurges(inverter));
-  bench('DOL motor on a cable (one start, AC faults)', () => void studySurges(cable));
-  bench('grid, transformer, cables (AC faults, two devices)', () => void studySurges(grid));
+  bench('pump on an inverter (one start, battery faults, two devices)', () => void onSolved(studySurges, inverter));
+  bench('DOL motor on a cable (one start, AC faults)', () => void onSolved(studySurges, cable));
+  bench('grid, transformer, cables (AC faults, two devices)', () => void onSolved(studySurges, grid));
 });

@@ -6,9 +6,10 @@
 import { describe, expect, it } from 'vitest';
 import { demoProjects, studySurges } from '../../core/index.ts';
 import { project } from './fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 const warnings = (p: unknown) => {
-  const o = studySurges(p);
+  const o = onSolved(studySurges, p);
   if (!o.ok) throw new Error(JSON.stringify(o.problems));
   return o.result.warnings;
 };

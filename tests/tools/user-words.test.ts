@@ -45,6 +45,7 @@ import { DROP_BASES, KIND_FORMS, PROJECT_FIELDS, allFields, defaultElement, type
 import type { ElementKind } from '../../core/model/project.ts';
 import { projectArb, projectWithNetworksArb } from '../core/arbitraries.ts';
 import { batteryBenchProject } from '../battery/fixtures.ts';
+import { onSolved } from '../core/solved.ts';
 
 const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -171,24 +172,24 @@ function projectReads(project: unknown, label: string): Read[] {
   const cost = lossCostPerYear(result, { pricePerKWh: 0.2, hoursPerYear: 8760 });
   for (const s of strings(cost)) reads.push({ area: 'ours', where: `${label} loss cost ${s.path}`, text: s.text });
 
-  const surge = studySurges(project);
+  const surge = onSolved(studySurges, project);
   if (surge.ok) {
     const surgeReads = strings(surge.result).map((s): Read => ({ area: 'surge', where: `${label} surge ${s.path}`, text: s.text }));
     reads.push(...surgeReads, ...textReads(formatSurgeStudy(surge.result), 'surge', `${label} surge text`, []));
   }
-  const machines = machineSections(project, true, undefined);
+  const machines = machineSections(solved, true, undefined);
   if (machines.ok) {
     reads.push(...textReads(machines.text, 'ours', `${label} machines text`, []));
     for (const s of strings(machines.json)) reads.push({ area: 'ours', where: `${label} machines ${s.path}`, text: s.text });
   }
-  const flow = projectPumpDuty(project);
+  const flow = onSolved(projectPumpDuty, project);
   if (flow.ok) {
     const costs = pumpDutyCosts(flow.result, 0.2);
     if (costs.ok) for (const s of strings(costs.costs)) reads.push({ area: 'ours', where: `${label} pump-duty costs ${s.path}`, text: s.text });
   }
   const p = project as { backup?: unknown; elements: { id: string; kind: string; bank?: unknown }[] };
   if (p.backup !== undefined && p.elements.some((e) => e.kind === 'battery' && e.bank !== undefined)) {
-    const study = runBackupStudy(project);
+    const study = onSolved(runBackupStudy, project);
     if (study.ok) {
       const chemistry = study.study.discharge.bank.chemistry;
       reads.push(...textReads(formatBackupStudy(study.study), 'battery', `${label} battery text`, []));
@@ -199,7 +200,7 @@ function projectReads(project: unknown, label: string): Read[] {
   // Power-factor correction at the first element with a lagging AC interface below 0.95.
   const at = result.elements.find((e) => e.input && e.input.kind !== 'dc' && e.input.kind !== 'shaft' && e.input.pfSense === 'lagging' && e.input.powerFactor < 0.95);
   if (at) {
-    const c = correctPowerFactor(project, { at: at.id, targetPowerFactor: 0.97 });
+    const c = onSolved(correctPowerFactor, project, { at: at.id, targetPowerFactor: 0.97 });
     if (c.ok) {
       const { resultBefore: _b, resultAfter: _a, correctedProject: _p, ...shown } = c.correction;
       for (const s of strings(shown)) reads.push({ area: 'pf-correction', where: `${label} pf correction ${s.path}`, text: s.text });

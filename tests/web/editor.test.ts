@@ -15,7 +15,7 @@ import {
   insertAfter,
   insertBefore,
   lastChange,
-  lastValidResult,
+  lastSolved,
   loadProject,
   moveDownstream,
   moveUpstream,
@@ -71,7 +71,7 @@ describe('adding', () => {
     expect(fromOf('load')).toBe('inv');
     expect(selectedId.value).toBe('load');
     expect(solved()).toBe(true);
-    expect(lastValidResult.value!.totals.loadPower).toBeGreaterThan(390); // 150 + 200 + 40 + 100 W of loads, from the engine
+    expect(lastSolved.value!.result.totals.loadPower).toBeGreaterThan(390); // 150 + 200 + 40 + 100 W of loads, from the engine
   });
 
   it('insertAfter puts the element between the target and everything it fed', () => {
@@ -318,12 +318,12 @@ describe('field edits', () => {
   });
 
   it('edit() with a structural change the engine refuses keeps the last valid result, marked stale', () => {
-    const good = lastValidResult.value;
+    const good = lastSolved.value;
     edit('break the chain', (p) => {
       p.elements.find((e) => e.id === 'radio')!.from = 'inv'; // a DC load on an AC port
     });
     expect(outcome.value?.ok).toBe(false);
-    expect(lastValidResult.value).toBe(good);
+    expect(lastSolved.value).toBe(good);
     expect(resultsState.value).toBe('stale');
     undo();
     expect(resultsState.value).toBe('current');

@@ -2,19 +2,20 @@
  * The panel worker refuses a study whose figures are not all finite numbers (issue 14, point 15):
  * the battery study is made to hand back one NaN, as a slip in it would, and the reply must be a
  * refusal naming the element by its name and the field, never a panel of NaN. The machines study
- * of a demo must pass through unchanged.
+ * of a demo must pass through unchanged. Each request carries the solved value, as the page sends it.
  */
 import { describe, expect, it, vi } from 'vitest';
 import { demoProjects } from '../../core/demos/index.ts';
-import { solveProject } from '../../core/solve/index.ts';
+import { solveProject, type Solved } from '../../core/solve/index.ts';
+import { solvedOf } from '../core/solved.ts';
 
 vi.mock('../../core/studies/backup/study.ts', async (importOriginal) => {
   const real = await importOriginal<typeof import('../../core/studies/backup/study.ts')>();
   return {
     ...real,
-    runBackupStudy: (input: unknown) => {
-      const o = real.runBackupStudy(input);
-      if (o.ok && (input as { name?: string }).name === 'Poisoned') o.study.discharge.runtimeSeconds = Number.NaN;
+    runBackupStudy: (solved: Solved) => {
+      const o = real.runBackupStudy(solved);
+      if (o.ok && solved.project.name === 'Poisoned') o.study.discharge.runtimeSeconds = Number.NaN;
       return o;
     },
   };
@@ -36,13 +37,13 @@ const hut = demoProjects.find((d) => d.id === 'hillside-relay-hut')!.project;
 
 describe('panel worker: non-finite study figures are refused', () => {
   it('passes a finite battery study through', async () => {
-    const reply = await ask({ kind: 'battery', project: hut });
+    const reply = await ask({ kind: 'battery', solved: solvedOf(hut) });
     expect(reply.kind).toBe('battery');
     expect(reply.outcome.ok).toBe(true);
   });
 
   it('refuses a battery study holding NaN, naming where', async () => {
-    const reply = await ask({ kind: 'battery', project: { ...hut, name: 'Poisoned' } });
+    const reply = await ask({ kind: 'battery', solved: solvedOf({ ...hut, name: 'Poisoned' }) });
     expect(reply.outcome.ok).toBe(false);
     const p = reply.outcome.problems!;
     expect(p.map((q) => q.code)).toEqual(['non-finite']);
@@ -56,7 +57,7 @@ describe('panel worker: non-finite study figures are refused', () => {
     const pump = demoProjects.find((d) => d.id === 'riverside-pump-station')!.project;
     const solved = solveProject(pump);
     if (!solved.ok) throw new Error('demo must solve');
-    const reply = await ask({ kind: 'machines', project: pump, result: solved.result, cost: { pricePerKWh: 0.2, hoursPerYear: 8760 } });
+    const reply = await ask({ kind: 'machines', solved, cost: { pricePerKWh: 0.2, hoursPerYear: 8760 } });
     expect(reply.outcome.ok).toBe(true);
   });
 });

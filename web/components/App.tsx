@@ -8,9 +8,9 @@ import { CableTable, ElementTable, EnergyBalance, MethodNote, PortTable, Warning
 import { useOffscreenLag } from './lag.ts';
 import { lazy, memo, Suspense } from 'preact/compat';
 import { useEffect, useState } from 'preact/hooks';
-import type { SolveResult } from '../../core/page.ts';
+import type { Solved, SolveResult } from '../../core/page.ts';
 import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
-import { crashMessage, draft, draftOrigin, draftProblems, lastValidResult, openCount, resultsState } from '../state/editor.ts';
+import { crashMessage, draft, draftOrigin, draftProblems, lastSolved, openCount, resultsState } from '../state/editor.ts';
 
 /** The energy-flow diagram (and d3-sankey) load only when a solved project is shown. */
 const EnergyFlow = lazy(() => import('./EnergyFlow.tsx'));
@@ -43,14 +43,16 @@ function PanelDisclosure({ id, title, hint, children }: { id: string; title: str
   );
 }
 
-/** The panels that apply to the open project (a battery source with a bank; sized conductors; always the machines and cost panel). */
-function PanelShelf({ result: latest }: { result: SolveResult }) {
+/**
+ * The panels that apply to the open project (a battery source with a bank; sized conductors; always
+ * the machines and cost panel), read from the last valid solved pair the panels study.
+ */
+function PanelShelf({ solved: latest }: { solved: Solved }) {
   // An open panel scrolled out of view follows the edits when the page is idle (lag.ts).
-  const { box, shown: result } = useOffscreenLag(latest);
-  const project = draft.value;
-  if (!project) return null;
-  const root = project.elements.find((e) => e.from === undefined);
-  const battery = root?.kind === 'battery' && typeof root['bank'] === 'object' && root['bank'] !== null;
+  const { box, shown: solved } = useOffscreenLag(latest);
+  const { project, result } = solved;
+  // A battery is always the chain's source.
+  const battery = project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined);
   const conductors = result.elements.some((e) => e.conductor);
   const machines = project.elements.some((e) => e.kind === 'motor' || e.kind === 'drive' || e.kind === 'pump');
   return (
@@ -62,7 +64,7 @@ function PanelShelf({ result: latest }: { result: SolveResult }) {
       )}
       {conductors && (
         <PanelDisclosure id="conductor" title="Conductor sizing" hint="size and why, ampacity, device, drop, heat, working">
-          {() => <ConductorPanel result={result} />}
+          {() => <ConductorPanel solved={solved} />}
         </PanelDisclosure>
       )}
       <PanelDisclosure
@@ -77,7 +79,7 @@ function PanelShelf({ result: latest }: { result: SolveResult }) {
         title="Motor starting and fault current"
         hint="will it start, fault current at each point, device interrupting ratings, traps"
       >
-        {() => <StartingPanel project={project} />}
+        {() => <StartingPanel solved={solved} />}
       </PanelDisclosure>
     </section>
   );
@@ -111,7 +113,9 @@ function ShownProject() {
   if (!draft.value) return <p class="note">No project to show.</p>;
   const origin = draftOrigin.value;
   const description = origin?.kind === 'demo' ? origin.summary : undefined;
-  const result = lastValidResult.value;
+  // The last valid solved pair: every results view reads its result, and its project for any input fact.
+  const solved = lastSolved.value;
+  const result = solved?.result;
   const problems = draftProblems.value;
   const crashed = crashMessage.value;
   const stale = resultsState.value === 'stale';
@@ -135,14 +139,14 @@ function ShownProject() {
         <div class={stale ? 'results results--stale' : 'results'} data-testid="results" data-state={resultsState.value}>
           <StaleNotice />
           <EnergyBalance result={result} />
-          <Suspense fallback={null}><ClientReport result={result} /></Suspense>
+          <Suspense fallback={null}><ClientReport solved={solved!} stale={stale} /></Suspense>
           <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={result} /></Suspense>
           <WarningList result={result} />
           <ElementTable result={result} />
-          <CableTable result={result} />
+          <CableTable result={solved!} />
           <PortTable result={result} />
           <MethodNote result={result} />
-          <PanelShelf key={openCount.value} result={result} />
+          <PanelShelf key={openCount.value} solved={solved!} />
         </div>
       )}
     </article>

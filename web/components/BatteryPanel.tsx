@@ -3,7 +3,7 @@
  * for the target runtime, the recharge, a plot of state of charge, voltage and current, and the
  * study's common settings. Loaded on demand (App.tsx imports it when the panel is opened).
  *
- * Every figure comes from core's runBackupStudy() on the draft; this file only formats. The study
+ * Every figure comes from core's runBackupStudy() on the last valid solved pair (web/state/solution.ts); this file only formats. The study
  * takes several milliseconds (it solves the chain at every step of the outage), so it runs in the
  * panel worker (panel-worker.ts), off the page's thread, and only the latest draft's reply is
  * shown. When the draft does not give a study the last good figures stay, marked out of date, with
@@ -15,7 +15,7 @@ import type { BackupStudyResult } from '../../core/studies/index.ts';
 import { PROJECT_LEVEL, type Problem } from '../../core/page.ts';
 import { useWorkerReply } from './panel-client.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
-import { draft, edit, resultsState } from '../state/editor.ts';
+import { draft, edit, lastSolved, resultsState } from '../state/editor.ts';
 import { problemLine } from './problem-words.ts';
 import { StudyFigures } from './battery/StudyFigures.tsx';
 import { StudySettings } from './battery/StudySettings.tsx';
@@ -35,7 +35,9 @@ export default function BatteryPanel() {
   const units = unitSystem.value;
   const locale = effectiveLocale();
   const hasStudy = project !== null && typeof project.backup === 'object' && project.backup !== null;
-  const { reply, pending } = useWorkerReply<'battery'>(() => (project && hasStudy ? { kind: 'battery', project } : null), [project, hasStudy]);
+  // The study runs on the last valid solved pair (the worker never validates or solves it again).
+  const solved = lastSolved.value;
+  const { reply, pending } = useWorkerReply<'battery'>(() => (solved?.project.backup ? { kind: 'battery', solved } : null), [solved]);
   /** The last study that ran, kept while later drafts give none. */
   const last = useRef<{ study: BackupStudyResult; cautions: string[] } | null>(null);
   if (reply?.kind === 'battery' && reply.outcome.ok) last.current = { study: reply.outcome.study, cautions: reply.outcome.cautions };

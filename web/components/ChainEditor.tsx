@@ -30,7 +30,7 @@ import {
   insertBefore,
   lastChange,
   roomForElements,
-  lastValidResult,
+  lastSolved,
   moveDownstream,
   moveUpstream,
   redo,
@@ -72,7 +72,7 @@ function isTextEntry(target: EventTarget | null): boolean {
  */
 export function ChainEditor() {
   const latest = draft.value;
-  const latestResult = lastValidResult.value;
+  const latestResult = lastSolved.value?.result ?? null;
   const now = useMemo(() => ({ p: latest, result: latestResult }), [latest, latestResult]);
   const { box, shown } = useOffscreenLag(now);
   return <ChainEditorView p={shown.p} result={shown.result} box={box} />;

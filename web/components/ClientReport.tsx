@@ -9,15 +9,20 @@
  *
  * Every figure comes from core (the solve result, flowGraph's loss summary, the engine's cautions);
  * the page only formats. The date is the page's (core has no clock).
+ *
+ * It prints one solved pair (web/state/solution.ts `lastSolved`): the result and the project it came
+ * from, never a result beside a draft it did not come from. While the draft is invalid it prints the
+ * last valid pair, its names and figures together, and says at the top that it is out of date (what
+ * an engineer printing mid-edit expects: the last consistent design, plainly marked, rather than
+ * nothing); with no valid pair yet the page shows no results and so no report.
  */
 import { memo } from 'preact/compat';
 import { useEffect, useMemo, useState } from 'preact/hooks';
 import { bankCautions, flowGraph } from '../../core/studies/index.ts';
-import { type BatterySource, type Chemistry, CONDUCTOR_CAUTION, type ElementResult, type Project, type SolveResult } from '../../core/page.ts';
+import { type BatterySource, type Chemistry, CONDUCTOR_CAUTION, type ElementResult, type Project, type Solved, type SolveResult } from '../../core/page.ts';
 import { formatDuration, formatPercent, formatPower, formatSmallPercent } from '../format/number.ts';
 import { formatConductorSize } from '../format/units.ts';
 import { elementKindLabel } from '../format/labels.ts';
-import { draft, resultsState } from '../state/editor.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { catchUpNow, useOffscreenLag, type BoxRef } from './lag.ts';
 
@@ -42,8 +47,8 @@ function depths(elements: readonly ElementResult[]): Map<string, number> {
   return out;
 }
 
-function batterySource(project: Project | null): BatterySource | undefined {
-  const root = project?.elements.find((e) => e.kind === 'battery');
+function batterySource(project: Project): BatterySource | undefined {
+  const root = project.elements.find((e) => e.kind === 'battery');
   return root?.kind === 'battery' ? root : undefined;
 }
 
@@ -77,10 +82,10 @@ interface ReportInputs {
  * and the diagram on screen are painted first. Before printing (beforeprint, or the print media
  * query turning on) it is brought up to date at once.
  */
-export default function ClientReport({ result, battery }: { result: SolveResult; battery?: ReportBattery }) {
-  const project = draft.value as Project | null;
-  const stale = resultsState.value === 'stale';
-  const backup = Boolean(project?.backup);
+export default function ClientReport({ solved, stale, battery }: { solved: Solved; stale: boolean; battery?: ReportBattery }) {
+  // The inputs the report reads besides the result come from the project the result came from.
+  const { project, result } = solved;
+  const backup = Boolean(project.backup);
   const chemistry = batterySource(project)?.bank?.chemistry;
   const locale = effectiveLocale();
   const units = unitSystem.value;

@@ -13,7 +13,8 @@ import { formatCurrent, formatPercent, formatPower, formatSignificant, formatVol
 import { formatArea, formatConductorSize, formatLength, formatTemperature, type UnitSystem } from '../format/units.ts';
 import { awgWords, formatResistancePerLength } from '../format/panels.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
-import { draft, resultsState } from '../state/editor.ts';
+import { resultsState } from '../state/editor.ts';
+import type { Solved } from '../../core/page.ts';
 import { cableLengths } from './Results.tsx';
 import './Panels.css';
 
@@ -217,11 +218,13 @@ function PathDrops({ result, locale }: { result: SolveResult; locale: string | u
   );
 }
 
-export default function ConductorPanel({ result }: { result: SolveResult }) {
+/** The conductor cards of the last valid solved pair: sizes from its result, lengths from its project. */
+export default function ConductorPanel({ solved }: { solved: Solved }) {
   const units = unitSystem.value;
   const locale = effectiveLocale();
   const stale = resultsState.value === 'stale';
-  const lengths = cableLengths(draft.value);
+  const result = solved.result;
+  const lengths = cableLengths(solved.project);
   const cables = result.elements.filter((e) => e.kind === 'cable' && e.conductor);
   const warningsOf = (id: string) => result.warnings.filter((w) => w.elementId === id).map((w) => w.message);
   return (

@@ -12,11 +12,11 @@
  * web/components/machines/: MachineCards.tsx, PumpDutyStudy.tsx, PfCorrection.tsx, LossCost.tsx.
  */
 import { useRef } from 'preact/hooks';
-import type { SolveResult } from '../../core/page.ts';
+import type { Solved } from '../../core/page.ts';
 import type { MachinesFigures } from './panel-worker.ts';
 import { useWorkerReply } from './panel-client.ts';
 import { effectiveLocale, energyPrice, operatingHours, unitSystem } from '../state/prefs.ts';
-import { draft, outcome, resultsState } from '../state/editor.ts';
+import { outcome, resultsState } from '../state/editor.ts';
 import { LossCost } from './machines/LossCost.tsx';
 import { DriveCard, MotorCard, PumpCard } from './machines/MachineCards.tsx';
 import { PfCorrectionControl } from './machines/PfCorrection.tsx';
@@ -24,23 +24,24 @@ import { PumpDuty } from './machines/PumpDutyStudy.tsx';
 import './Panels.css';
 
 export default function MachinesPanel() {
-  const input = draft.value;
   const o = outcome.value;
   const units = unitSystem.value;
   const locale = effectiveLocale();
   const price = energyPrice.value;
   const hours = operatingHours.value;
-  const result = o?.ok ? o.result : null;
-  /** The result the latest request was built from (the reply that is shown is always the latest's). */
-  const sent = useRef<SolveResult | null>(null);
+  // The draft's own solved pair (project and result), handed whole to the worker.
+  const solved = o?.ok ? o : null;
+  const result = solved?.result ?? null;
+  /** The solved pair the latest request was built from (the reply that is shown is always the latest's). */
+  const sent = useRef<Solved | null>(null);
   const { reply, pending } = useWorkerReply<'machines'>(() => {
-    if (!input || !result) return null;
-    sent.current = result;
-    return { kind: 'machines', project: input, result, cost: price !== null ? { pricePerKWh: price, hoursPerYear: hours } : null };
-  }, [input, result, price, hours]);
-  /** The last figures of a valid draft, with the result they belong to (kept while later drafts do not solve). */
-  const last = useRef<{ figures: MachinesFigures; result: SolveResult } | null>(null);
-  if (!pending && reply?.kind === 'machines' && reply.outcome.ok && sent.current) last.current = { figures: reply.outcome.figures, result: sent.current };
+    if (!solved) return null;
+    sent.current = solved;
+    return { kind: 'machines', solved, cost: price !== null ? { pricePerKWh: price, hoursPerYear: hours } : null };
+  }, [solved, price, hours]);
+  /** The last figures of a valid draft, with the solved pair they belong to (kept while later drafts do not solve). */
+  const last = useRef<{ figures: MachinesFigures; solved: Solved } | null>(null);
+  if (!pending && reply?.kind === 'machines' && reply.outcome.ok && sent.current) last.current = { figures: reply.outcome.figures, solved: sent.current };
   const shown = last.current;
   const problems = reply?.kind === 'machines' && !reply.outcome.ok ? reply.outcome.problems : [];
   const crash = reply?.kind === 'crash' ? reply.message : null;
@@ -72,7 +73,7 @@ export default function MachinesPanel() {
         </section>
       )}
       {pumpDuty && <PumpDuty duty={pumpDuty} locale={locale} />}
-      <PfCorrectionControl result={shown.result} locale={locale} />
+      <PfCorrectionControl solved={shown.solved} locale={locale} />
       <LossCost lossCost={lossCost} locale={locale} />
     </div>
   );

@@ -2,7 +2,7 @@
  * The solved project as tables: the energy balance, one row per element, one row per port.
  * Every number shown comes from the engine's result; this file only formats and arranges.
  */
-import type { ElementResult, GoverningRule, PortResult, SolveResult } from '../../core/page.ts';
+import type { ElementResult, GoverningRule, PortResult, Project, Solved, SolveResult } from '../../core/page.ts';
 import {
   formatApparent,
   formatCurrent,
@@ -19,7 +19,6 @@ import { elementKindLabel, portKindLabel } from '../format/labels.ts';
 import { formatConductorSize, formatLength, formatShaftPower, formatTemperature, type UnitSystem } from '../format/units.ts';
 import { memo } from 'preact/compat';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
-import { shownProjectInput } from '../state/app.ts';
 import { lagOffscreen, type BoxRef } from './lag.ts';
 
 /** Where a lagging part puts its ref (web/components/lag.ts). */
@@ -186,17 +185,18 @@ const GOVERNING_WORDS: Record<GoverningRule, string> = {
 };
 
 /**
- * The cables: route length (from the project as entered), conductor size as the engine chose it,
- * estimated conductor temperature, voltage drop and loss. Shown only when the project has cables.
+ * The cables: route length (from the solved project the result came from), conductor size as the
+ * engine chose it, estimated conductor temperature, voltage drop and loss. Shown only when the
+ * project has cables. Takes the solved pair (lagOffscreen lags its `result` prop: here the pair), so
+ * the lengths are always those of the project the figures belong to, never the draft's.
  */
-export const CableTable = lagOffscreen(function CableTable({ result, box }: { result: SolveResult } & Box) {
+export const CableTable = lagOffscreen(function CableTable({ result: solved, box }: { result: Solved } & Box) {
   const units = unitSystem.value;
   const locale = effectiveLocale();
+  const result = solved.result;
   const cables = result.elements.filter((e) => e.kind === 'cable');
   if (cables.length === 0) return null;
-  // peek: the lengths are read with the result they belong to (a new result follows every valid
-  // edit), not on each keystroke, so the table lags off screen with its result (lag.ts).
-  const lengths = cableLengths(shownProjectInput.peek());
+  const lengths = cableLengths(solved.project);
   const drops = new Map<string, number>();
   for (const path of result.voltageDrop ?? []) for (const link of path.links) drops.set(link.id, link.dropPercent);
   const cautions = [...new Set(cables.flatMap((e) => (e.conductor ? [e.conductor.caution] : [])))];
@@ -261,15 +261,10 @@ export const CableTable = lagOffscreen(function CableTable({ result, box }: { re
 });
 
 /** One-way route lengths of the cables in a project as entered (m), for display beside the results. */
-export function cableLengths(project: unknown): Map<string, number> {
+/** Each cable's route length, m, from a solved (valid) project. */
+export function cableLengths(project: Project): Map<string, number> {
   const out = new Map<string, number>();
-  const elements = typeof project === 'object' && project !== null ? (project as { elements?: unknown }).elements : undefined;
-  if (!Array.isArray(elements)) return out;
-  for (const el of elements as unknown[]) {
-    if (typeof el !== 'object' || el === null) continue;
-    const { id, kind, length } = el as { id?: unknown; kind?: unknown; length?: unknown };
-    if (kind === 'cable' && typeof id === 'string' && typeof length === 'number' && Number.isFinite(length)) out.set(id, length);
-  }
+  for (const e of project.elements) if (e.kind === 'cable') out.set(e.id, e.length);
   return out;
 }
 

@@ -3,12 +3,12 @@
  * not start) with the governing reason, prospective fault currents against the devices' ratings
  * (the rating a too-weak device needs), the trap warnings and the cautions.
  *
- * Self-contained: give it the project (the draft); every figure comes from core's studySurges()
+ * Self-contained: give it the solved project (the page's last valid pair); every figure comes from core's studySurges()
  * and this file only formats (web/format/number.ts, in the chosen locale).
  */
 import { useMemo } from 'preact/hooks';
 import { type DeviceCheck, type FaultPoint, type MotorStartResult, type StartCheck, studySurges } from '../../core/studies/index.ts';
-import { elementNames, nonFiniteProblems } from '../../core/page.ts';
+import { elementNames, nonFiniteProblems, type Solved } from '../../core/page.ts';
 import { problemLine } from './problem-words.ts';
 import { formatApparent, formatCurrent, formatPercent, formatSignificant, formatVoltage, UNIT_GAP } from '../format/number.ts';
 import { effectiveLocale } from '../state/prefs.ts';
@@ -116,15 +116,15 @@ function FaultTable({ title, points, locale, names, basis }: { title: string; po
   );
 }
 
-/** The starting and fault panel for one project. */
-export function StartingPanel({ project }: { project: unknown }) {
+/** The starting and fault panel for one solved project (the page's last valid pair). */
+export function StartingPanel({ solved }: { solved: Solved }) {
   const locale = effectiveLocale();
   const outcome = useMemo(() => {
-    const o = studySurges(project);
+    const o = studySurges(solved);
     // Figures that are not finite numbers refuse the study (core/solve/finite.ts), never a table of NaN.
-    const notFinite = o.ok ? nonFiniteProblems('The surge and fault study', o.result, elementNames(project)) : [];
+    const notFinite = o.ok ? nonFiniteProblems('The surge and fault study', o.result, elementNames(solved.project)) : [];
     return notFinite.length ? { ok: false as const, problems: notFinite } : o;
-  }, [project]);
+  }, [solved]);
   if (!outcome.ok) {
     return (
       <section class="panel-body" data-testid="starting-panel" aria-label="Motor starting and fault currents">
@@ -132,7 +132,7 @@ export function StartingPanel({ project }: { project: unknown }) {
         <ul class="panel-warnings">
           {outcome.problems.map((p) => (
             <li class="panel-warnings-line" key={`${p.elementId}-${p.field}-${p.code}`}>
-              {problemLine(p, project)}
+              {problemLine(p, solved.project)}
             </li>
           ))}
         </ul>
@@ -141,9 +141,7 @@ export function StartingPanel({ project }: { project: unknown }) {
   }
   const r = outcome.result;
   const names = new Map<string, string>();
-  for (const e of (project as { elements?: { id?: unknown; name?: unknown }[] }).elements ?? []) {
-    if (typeof e.id === 'string') names.set(e.id, typeof e.name === 'string' && e.name !== '' ? e.name : e.id);
-  }
+  for (const e of solved.project.elements) names.set(e.id, e.name !== undefined && e.name !== '' ? e.name : e.id);
   return (
     <section class="panel-body" data-testid="starting-panel" aria-label="Motor starting and fault currents">
       {r.starts.length ? (

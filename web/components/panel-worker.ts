@@ -5,17 +5,21 @@
  * the worker is its own bundle, so these parts of core never weigh on the page's first load (the
  * page itself uses only the plain solve).
  *
+ * Each request carries the page's last valid solved value (core/solve's `Solved`: the validated
+ * project and its result, web/state/solution.ts `lastSolved`): the worker never validates or solves
+ * the base case again; a capacitor bank or a battery variant is solved from it (core/solve/variant.ts).
+ *
  * Requests and replies are plain data (structured clone). Every figure comes from core. A study
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
 import { type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, pumpDutyCosts, rechargeCautions, runBackupStudy } from '../../core/studies/index.ts';
-import { elementNames, nonFiniteProblems, type Problem, type SolveResult, validateProject } from '../../core/page.ts';
+import { elementNames, nonFiniteProblems, type Problem, type Solved } from '../../core/page.ts';
 
 export type PanelRequest =
-  | { kind: 'battery'; project: unknown }
-  | { kind: 'machines'; project: unknown; result: SolveResult; cost: CostSettings | null }
-  | { kind: 'pfc'; project: unknown; at: string; targetPowerFactor: number };
+  | { kind: 'battery'; solved: Solved }
+  | { kind: 'machines'; solved: Solved; cost: CostSettings | null }
+  | { kind: 'pfc'; solved: Solved; at: string; targetPowerFactor: number };
 
 export interface BatteryReply {
   kind: 'battery';
@@ -48,8 +52,8 @@ export type PanelReply = (BatteryReply | MachinesReply | PfcReply | { kind: 'cra
   ms: number;
 };
 
-function battery(project: unknown): BatteryReply {
-  const o = runBackupStudy(project);
+function battery(solved: Solved): BatteryReply {
+  const o = runBackupStudy(solved);
   if (!o.ok) return { kind: 'battery', outcome: o };
   const s = o.study;
   const chemistry = s.discharge.bank.chemistry;
@@ -62,35 +66,33 @@ function battery(project: unknown): BatteryReply {
       ...(s.recharge || s.charger ? rechargeCautions(chemistry) : []),
     ]),
   ];
-  const notFinite = nonFiniteProblems('The battery backup study', s, elementNames(project));
+  const notFinite = nonFiniteProblems('The battery backup study', s, elementNames(solved.project));
   if (notFinite.length) return { kind: 'battery', outcome: { ok: false, problems: notFinite } };
   return { kind: 'battery', outcome: { ok: true, study: s, cautions } };
 }
 
-function machines(input: unknown, result: SolveResult, cost: CostSettings | null): MachinesReply {
-  const valid = validateProject(input);
-  if (!valid.ok) return { kind: 'machines', outcome: valid };
-  const project = valid.project;
-  const { motors, drives } = machineDetails(project, result);
+function machines(solved: Solved, cost: CostSettings | null): MachinesReply {
+  const { project, result } = solved;
+  const { motors, drives } = machineDetails(solved);
   const figures: MachinesFigures = { motors, drives, pumps: pumpDetails(project) };
   if (project.pumpDuty) {
-    const f = projectPumpDuty(input);
+    const f = projectPumpDuty(solved);
     if (f.ok) {
       const costs = cost ? pumpDutyCosts(f.result, cost.pricePerKWh) : undefined;
       figures.pumpDuty = { ok: true, result: f.result, ...(costs?.ok ? { costs: costs.costs } : {}) };
     } else figures.pumpDuty = { ok: false, problems: f.problems };
   }
   if (cost) figures.lossCost = lossCostPerYear(result, cost);
-  const notFinite = nonFiniteProblems('The machines study', figures, elementNames(input));
+  const notFinite = nonFiniteProblems('The machines study', figures, elementNames(project));
   if (notFinite.length) return { kind: 'machines', outcome: { ok: false, problems: notFinite } };
   return { kind: 'machines', outcome: { ok: true, figures } };
 }
 
-function pfc(project: unknown, at: string, targetPowerFactor: number): PfcReply {
-  const o = correctPowerFactor(project, { at, targetPowerFactor });
+function pfc(solved: Solved, at: string, targetPowerFactor: number): PfcReply {
+  const o = correctPowerFactor(solved, { at, targetPowerFactor });
   if (!o.ok) return { kind: 'pfc', outcome: o };
   const { resultBefore: _b, resultAfter: _a, correctedProject: _p, ...shown } = o.correction;
-  const notFinite = nonFiniteProblems('The power-factor correction', shown, elementNames(project));
+  const notFinite = nonFiniteProblems('The power-factor correction', shown, elementNames(solved.project));
   if (notFinite.length) return { kind: 'pfc', outcome: { ok: false, problems: notFinite } };
   return { kind: 'pfc', outcome: { ok: true, correction: shown } };
 }
@@ -108,13 +110,13 @@ scope.onmessage = (event) => {
   try {
     switch (request.kind) {
       case 'battery':
-        reply = battery(request.project);
+        reply = battery(request.solved);
         break;
       case 'machines':
-        reply = machines(request.project, request.result, request.cost);
+        reply = machines(request.solved, request.cost);
         break;
       case 'pfc':
-        reply = pfc(request.project, request.at, request.targetPowerFactor);
+        reply = pfc(request.solved, request.at, request.targetPowerFactor);
         break;
     }
   } catch (error) {

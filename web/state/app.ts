@@ -26,9 +26,6 @@ export const shownTitle = computed(() => {
   return (d && typeof d.name === 'string' && d.name) || draftOrigin.value?.title || '';
 });
 
-/** The project as entered (unvalidated data) that is shown. */
-export const shownProjectInput = computed<unknown>(() => (fileReadError.value ? undefined : draft.value));
-
 /** Open a demo in the editor (a copy: the demo itself never changes). */
 export function chooseDemo(id: string, options: { updateAddress?: boolean } = {}): void {
   const demo = demoProjects.find((d) => d.id === id);

@@ -5,7 +5,7 @@
  * says so; a write that meets another tab's change or delete becomes a question (session-state.ts).
  */
 import { batch } from '@preact/signals';
-import { draft, draftOrigin, draftRevision, type DraftOrigin, type DraftProject, lastValidResult, renameDraft } from '../state/editor.ts';
+import { draft, draftOrigin, draftRevision, type DraftOrigin, type DraftProject, lastSolved, renameDraft } from '../state/editor.ts';
 import { copyName, recordName } from './record.ts';
 import type { WriteOutcome } from './store.ts';
 import { AUTOSAVE_MS, checkPersistence, conflictFor, conflicts, createdFor, inFlight, known, lastWriteMs, listedNames, NO_STORAGE, plannedFor, refreshList, sameProject, saveStatus, setAddress, setConflict, type Snapshot, storageNotice, store, storedIdOf, tabId } from './session-state.ts';
@@ -89,13 +89,13 @@ export function hasUnsavedWork(): boolean {
 /** Point the open draft at its stored record (after its first edit was stored) without reloading it. */
 export function rebind(from: DraftOrigin, to: DraftOrigin): void {
   if (draftOrigin.peek() !== from) return;
-  const keep = lastValidResult.peek();
+  const keep = lastSolved.peek();
   rebinding = true;
   try {
     seenOrigin = to;
     draftOrigin.value = to;
     // The editor clears the last valid results when the origin changes; this is the same project.
-    lastValidResult.value = keep;
+    lastSolved.value = keep;
   } finally {
     rebinding = false;
   }

@@ -5,10 +5,11 @@
  * runtime of that bank from a second discharge through the same chain, and the recharge with the given charger and the charger for a target time
  * (recharge.ts). Pure; returns plain data.
  */
-import type { BackupStudy, BatteryBankSpec } from '../../model/project.ts';
-import type { Problem } from '../../model/errors.ts';
-import { PROJECT_LEVEL } from '../../model/errors.ts';
-import { simulateDischarge, type DischargeResult } from './discharge.ts';
+import type { BackupStudy, BatterySource } from '../../model/project.ts';
+import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
+import type { Solved } from '../../solve/index.ts';
+import type { VariantChange } from '../../solve/variant.ts';
+import { dischargeVariant, simulateDischarge, type DischargeResult } from './discharge.ts';
 import { MAX_REPEATED_PERIODS, repeatedPeriods, sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
 import { MAX_HORIZON_H, count } from '../../solve/load-profile.ts';
 import { chargerForTargetTime, rechargeTime, type ChargerSizing, type Recharge } from './recharge.ts';
@@ -51,37 +52,28 @@ export function terminalPowerPeriods(d: DischargeResult): PowerPeriod[] {
 }
 
 /**
- * The project with its bank made too large to run out within `hours` (same R, same start): a
+ * The change that makes the bank too large to run out within `hours` (same R, same start): a
  * million times its capacity, at least 1e9 Ah, at full health (a bank entered at a state of health
- * near 0 would otherwise still run out at once).
+ * near 0 would otherwise still run out at once). Checked and applied by core/solve/variant.ts.
  */
-function withEndlessBank(input: unknown, batteryId: string, internalResistance: number, hours: number): unknown {
-  const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec; internalResistance?: number }[] };
-  const { stateOfHealth: _soh, ...backup } = project.backup;
+function endlessBank(battery: BatterySource, study: BackupStudy, internalResistance: number, hours: number): VariantChange {
+  const { stateOfHealth: _soh, ...backup } = study;
   return {
-    ...project,
     backup: { ...backup, horizonHours: hours },
-    elements: project.elements.map((e) =>
-      e.id === batteryId && e.bank ? { ...e, internalResistance, bank: { ...e.bank, capacityAh: Math.max(e.bank.capacityAh * 1e6, 1e9) } } : e,
-    ),
+    replace: [{ ...battery, internalResistance, bank: { ...battery.bank!, capacityAh: Math.max(battery.bank!.capacityAh * 1e6, 1e9) } }],
   };
 }
 
-/** The project with the sized bank in place of the given one (same module, the sized strings). */
-function withSizedBank(input: unknown, batteryId: string, sizing: BankSizing, target: number): unknown {
-  const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec; internalResistance?: number }[] };
+/** The change that puts the sized bank in place of the given one (same module, the sized strings). */
+function sizedBank(battery: BatterySource, study: BackupStudy, sizing: BankSizing, target: number): VariantChange {
+  const strings = battery.bank!.strings ?? 1;
+  // A given bank resistance scales as 1/strings (Ohm's law for equal strings in parallel).
+  const r = battery.internalResistance === undefined ? {} : { internalResistance: (battery.internalResistance * strings) / sizing.strings };
   return {
-    ...project,
     // Long enough to see the sized bank run out (it is sized with margins beyond the target), within
     // the year a study runs at most.
-    backup: { ...project.backup, horizonHours: Math.min(Math.max(project.backup.horizonHours ?? 0, 4 * target), MAX_HORIZON_H) },
-    elements: project.elements.map((e) => {
-      if (e.id !== batteryId || !e.bank) return e;
-      const strings = e.bank.strings ?? 1;
-      // A given bank resistance scales as 1/strings (Ohm's law for equal strings in parallel).
-      const r = e.internalResistance === undefined ? {} : { internalResistance: (e.internalResistance * strings) / sizing.strings };
-      return { ...e, ...r, bank: { ...e.bank, series: sizing.seriesBlocks, strings: sizing.strings, capacityAh: sizing.capacityPerString } };
-    }),
+    backup: { ...study, horizonHours: Math.min(Math.max(study.horizonHours ?? 0, 4 * target), MAX_HORIZON_H) },
+    replace: [{ ...battery, ...r, bank: { ...battery.bank!, series: sizing.seriesBlocks, strings: sizing.strings, capacityAh: sizing.capacityPerString } }],
   };
 }
 
@@ -99,15 +91,18 @@ function tooShortForTarget(run: DischargeResult, study: BackupStudy): Problem {
   return at('backup.targetRuntimeHours', study.targetRuntimeHours, run.endText, 'check the bank and the chain, or give a shorter target runtime');
 }
 
-/** Run the whole study for a project given as untrusted data. Never throws on bad input. */
-export function runBackupStudy(input: unknown): BackupStudyOutcome {
-  const simulated = simulateDischarge(input);
+/**
+ * Run the whole study on a solved project (never validated or solved again; the larger and the sized
+ * bank are variants of it, core/solve/variant.ts). Never throws on bad input.
+ */
+export function runBackupStudy(solved: Solved): BackupStudyOutcome {
+  const simulated = simulateDischarge(solved);
   if (!simulated.ok) return simulated;
   const d = simulated.result;
-  // simulateDischarge has validated the input: it is a project with a study and a battery bank.
-  const project = input as { backup: BackupStudy; elements: { id: string; bank?: BatteryBankSpec }[] };
-  const study = project.backup;
-  const spec = project.elements.find((e) => e.id === d.batteryId)!.bank!;
+  // simulateDischarge has checked that the project has a study and a battery bank.
+  const study = solved.project.backup!;
+  const battery = solved.project.elements.find((e): e is BatterySource => e.id === d.batteryId && e.kind === 'battery')!;
+  const spec = battery.bank!;
   const result: BackupStudyResult = { discharge: d };
   const problems: Problem[] = [];
 
@@ -120,7 +115,7 @@ export function runBackupStudy(input: unknown): BackupStudyOutcome {
       // The bank ran out before the target: the profile must go on to the target for the sizing. Run
       // it again from a bank too large to run out (same internal resistance, same starting charge),
       // so a daily profile carries on through its next hours instead of restarting.
-      const extended = simulateDischarge(withEndlessBank(input, d.batteryId, d.bank.internalResistance, study.targetRuntimeHours));
+      const extended = dischargeVariant(solved, endlessBank(battery, study, d.bank.internalResistance, study.targetRuntimeHours));
       if (!extended.ok) return extended;
       periods = terminalPowerPeriods(extended.result);
       run = extended.result;
@@ -150,7 +145,7 @@ export function runBackupStudy(input: unknown): BackupStudyOutcome {
     });
     if (sized.ok) {
       result.sizing = sized.sizing;
-      const again = simulateDischarge(withSizedBank(input, d.batteryId, sized.sizing, study.targetRuntimeHours));
+      const again = dischargeVariant(solved, sizedBank(battery, study, sized.sizing, study.targetRuntimeHours));
       if (again.ok) result.sizedDischarge = again.result;
       else problems.push(...again.problems);
     } else problems.push(...sized.problems);

@@ -15,8 +15,7 @@
 import type { Problem } from '../../model/errors.ts';
 import type { DriveStage, Element, MotorStage, Project } from '../../model/project.ts';
 import type { SolveResult } from '../../model/result.ts';
-import { solveProject } from '../../solve/index.ts';
-import { validateProject } from '../../solve/validate.ts';
+import type { Solved } from '../../solve/index.ts';
 import { driveOperatingPoint } from '../../kinds/drive.ts';
 import { motorRating, necFullLoadCurrent } from '../../physics/motor-rating.ts';
 import { driveLossAt, driveLossGrid, truePowerFactor } from '../../physics/drive-loss.ts';
@@ -137,7 +136,8 @@ function driveDetail(e: DriveStage, result: SolveResult, project: Project): Driv
 }
 
 /** Details of every motor and drive of a solved project. */
-export function machineDetails(project: Project, result: SolveResult): MachineDetails {
+export function machineDetails(solved: Solved): MachineDetails {
+  const { project, result } = solved;
   const motors: MotorDetail[] = [];
   const drives: DriveDetail[] = [];
   for (const e of project.elements as Element[]) {
@@ -155,14 +155,10 @@ export function machineDetails(project: Project, result: SolveResult): MachineDe
 export type MachineSolveOutcome = { ok: true; result: SolveResult; machines: MachineDetails } | { ok: false; problems: Problem[] };
 
 /**
- * Solve a project and add its motor and drive details; a motor loaded beyond its service factor
- * refuses the whole result (problems naming the motor and its rated output).
+ * A solved project's result with its motor and drive details. A motor loaded beyond its service
+ * factor has already refused the solve itself (core/kinds/motor.ts), so this never fails; the
+ * outcome keeps its shape for callers that check it.
  */
-export function solveWithMachines(input: unknown): MachineSolveOutcome {
-  // solveProject itself refuses a motor loaded beyond its service factor (core/kinds/motor.ts).
-  const outcome = solveProject(input);
-  if (!outcome.ok) return outcome;
-  const valid = validateProject(input);
-  if (!valid.ok) return { ok: false, problems: valid.problems };
-  return { ok: true, result: outcome.result, machines: machineDetails(valid.project, outcome.result) };
+export function solveWithMachines(solved: Solved): MachineSolveOutcome {
+  return { ok: true, result: solved.result, machines: machineDetails(solved) };
 }

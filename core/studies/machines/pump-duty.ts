@@ -19,7 +19,7 @@
 import type { Problem } from '../../model/errors.ts';
 import { PROJECT_LEVEL } from '../../model/errors.ts';
 import type { DriveStage, DriveStandardLoss, Element, MotorStage, Project, PumpLoad } from '../../model/project.ts';
-import { validateProject } from '../../solve/validate.ts';
+import type { Solved } from '../../solve/index.ts';
 import { motorPowerFactorAt } from '../../kinds/motor.ts';
 import { pumpOperatingPoint, type PumpOperatingPoint } from '../../kinds/pump.ts';
 import { efficiencyAt, prepareLoss } from '../../physics/loss-model.ts';
@@ -115,10 +115,8 @@ const studyProblem = (field: string, value: unknown, message: string): Problem =
 });
 
 /** Build the study input from the chain (pump, its motor, the drive above) and run comparePumpControl. */
-export function projectPumpDuty(input: unknown): PumpDutyOutcome {
-  const valid = validateProject(input);
-  if (!valid.ok) return { ok: false, problems: valid.problems };
-  const project = valid.project;
+export function projectPumpDuty(solved: Solved): PumpDutyOutcome {
+  const project = solved.project;
   const study = project.pumpDuty;
   if (study === undefined) return { ok: false, problems: [{ code: 'invalid-value', elementId: PROJECT_LEVEL, field: STUDY, message: 'is required for a pump duty study ({ pump, duty })' }] };
   const elements = byId(project);

@@ -26,7 +26,8 @@ import type { Element, NetworkLoad, Project } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
 import { PROJECT_LEVEL } from '../../model/errors.ts';
 import type { ElementResult, PortResult, SolveResult } from '../../model/result.ts';
-import { solveProject, validateProject } from '../../solve/index.ts';
+import type { Solved } from '../../solve/index.ts';
+import { solveVariant } from '../../solve/variant.ts';
 import type { NetworkConnection } from '../../physics/network.ts';
 import { DRIVE_INPUT_REASON, DRIVE_OUTPUT_REASON, INVERTER_OUTPUT_REASON, converterOutputAt, drivesOnBus } from './placement.ts';
 
@@ -201,17 +202,14 @@ const KIND_WORDS: Record<string, string> = { dc: 'DC', shaft: 'a mechanical shaf
 
 /**
  * Size the capacitor bank that raises the interface of `request.at` to the target power factor,
- * and re-solve the chain with it. Bad input (project or request) gives problems naming the
- * element and field; nothing is computed from it.
+ * and re-solve the chain with it (a variant of the solved project, core/solve/variant.ts). The
+ * project is not validated or solved again; the request, which is not part of it, is checked here
+ * (problems naming the field); nothing is computed from a bad one.
  */
-export function correctPowerFactor(input: unknown, request: PfCorrectionRequest): PfCorrectionOutcome {
+export function correctPowerFactor(solved: Solved, request: PfCorrectionRequest): PfCorrectionOutcome {
   const requestProblems = checkRequest(request);
   if (requestProblems.length) return { ok: false, problems: requestProblems };
-  const solved = solveProject(input);
-  if (!solved.ok) return solved;
-  const valid = validateProject(input);
-  if (!valid.ok) return { ok: false, problems: valid.problems };
-  const project = valid.project;
+  const project = solved.project;
   const before = solved.result;
   const at = request.at;
   const target = request.targetPowerFactor;
@@ -286,9 +284,9 @@ export function correctPowerFactor(input: unknown, request: PfCorrectionRequest)
     network: { capacitor: farads },
     ...(kind === 'ac3' ? { connection: connection as 'star' | 'delta' } : {}),
   };
-  const correctedProject: Project = { ...project, elements: [...project.elements, bankElement] };
-  const resolved = solveProject(correctedProject);
+  const resolved = solveVariant(solved, { add: [bankElement] });
   if (!resolved.ok) return resolved;
+  const correctedProject: Project = resolved.project;
   const after = resolved.result;
   const byIdAfter = new Map(after.elements.map((e) => [e.id, e]));
   const atAfter = byIdAfter.get(at)!;

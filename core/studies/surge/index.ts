@@ -3,24 +3,22 @@
  * flow at each interface, and can each protective device interrupt it. Plus the trap warnings
  * and cautions. Pure: project in, plain result out (contract in README.md beside this file).
  *
- * Steps: validate and solve the project (the engine) → battery fault currents (problems for a
+ * Steps, on the solved project (core/solve: never validated or solved again here) → battery fault currents (problems for a
  * zero internal resistance) → AC fault currents → device checks → each motor with `starting`
  * studied by re-solving the chain with its starting load → trap warnings → cautions.
  */
-import type { MotorStage, Project } from '../../model/project.ts';
+import type { MotorStage } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
-import { solveProject } from '../../solve/index.ts';
+import type { Solved } from '../../solve/index.ts';
 import { AC_FAULT_METHOD, BATTERY_FAULT_METHOD, acFaults, batteryFaults, deviceChecks } from './faults.ts';
 import { studyStart } from './starting.ts';
 import { trapWarnings } from './traps.ts';
 import { surgeCautions } from './cautions.ts';
 import type { FaultPoint, MotorStartResult, SurgeOutcome } from './types.ts';
 
-/** Run the surge and fault study on untrusted data (e.g. parsed JSON). Never throws on bad input. */
-export function studySurges(input: unknown): SurgeOutcome {
-  const solved = solveProject(input);
-  if (!solved.ok) return solved;
-  const project = input as Project;
+/** Run the surge and fault study on a solved project. Never throws on bad input. */
+export function studySurges(solved: Solved): SurgeOutcome {
+  const project = solved.project;
   const result = solved.result;
   const bat = batteryFaults(project, result);
   if (!bat.ok) return bat;
@@ -30,7 +28,7 @@ export function studySurges(input: unknown): SurgeOutcome {
   const problems: Problem[] = [];
   for (const e of project.elements) {
     if (e.kind !== 'motor' || !(e as MotorStage).starting) continue;
-    const s = studyStart(project, result, e as MotorStage);
+    const s = studyStart(solved, e as MotorStage);
     if (s.ok) starts.push(s.start);
     else problems.push(...s.problems);
   }
@@ -48,12 +46,10 @@ export function studySurges(input: unknown): SurgeOutcome {
   };
 }
 
-/** True when a project carries any input of this study (starting data, surge ratings, devices, fault data). */
-export function hasSurgeInputs(input: unknown): boolean {
-  const els = (input as { elements?: unknown })?.elements;
-  if (!Array.isArray(els)) return false;
+/** True when a solved project carries any input of this study (starting data, surge ratings, devices, fault data). */
+export function hasSurgeInputs(solved: Solved): boolean {
   const keys = ['starting', 'surge', 'lowVoltageCutoff', 'protection', 'bankFuse', 'subtransientReactancePercent', 'transientReactancePercent', 'shortCircuitPower'];
-  return els.some((e) => typeof e === 'object' && e !== null && keys.some((k) => k in e));
+  return solved.project.elements.some((e) => keys.some((k) => k in e));
 }
 
 export { formatSurgeStudy } from './text-report.ts';

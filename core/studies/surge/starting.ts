@@ -1,5 +1,9 @@
 /**
- * Motor starting through the chain that feeds the motor.
+ * Motor starting through the chain that feeds the motor. The motor's own starting current
+ * (locked-rotor current, current by starting method) is worked out in starting-current.ts; here the
+ * chain during the start and the verdict (about 410 lines: studyStart is one walk up the chain
+ * whose steps read each other's figures — source impedance, the start's solve, inverter, generator,
+ * checks — and reads best whole).
  *
  * Methods (each also written into the result's `method` text):
  * - Locked-rotor current: NEC Table 430.7(B) code letter — S_LR = kVA/hp (the upper end of the
@@ -27,127 +31,21 @@
  *   minimum); u > 1 fails ("will not start"); 0.9 < u ≤ 1 is "marginal" (within 10 % of a limit);
  *   the check with the largest u governs.
  */
-import type { AcSource, BatterySource, Element, InverterStage, MotorStage, Project, TransformerStage } from '../../model/project.ts';
-import type { SolveResult } from '../../model/result.ts';
+import type { AcSource, BatterySource, Element, InverterStage, MotorStage, TransformerStage } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
-import { solveProject } from '../../solve/index.ts';
-import { motorRating } from '../../physics/motor-rating.ts';
-import { prepareLoss } from '../../physics/loss-model.ts';
-import { motorPowerFactorAt } from '../../kinds/motor.ts';
+import type { Solved } from '../../solve/index.ts';
+import { solveVariant } from '../../solve/variant.ts';
 import { batteryEquivalent } from '../../kinds/battery.ts';
-import { NEC_430_7_B, WATTS_PER_HP } from '../../data/motor-code-letters.ts';
-import {
-  DEFAULT_LOCKED_ROTOR_RATIO,
-  DEFAULT_LOCKED_ROTOR_RATIO_BY_CLASS,
-  TYPICAL_VALUE,
-  DEFAULT_MAX_GENERATOR_DIP_PERCENT,
-  DEFAULT_MIN_TERMINAL_VOLTAGE_PERCENT,
-  DEFAULT_SOFT_STARTER_LIMIT,
-  DEFAULT_START_SECONDS,
-  DRIVE_START_RATIO,
-  MARGINAL_FRACTION,
-  STARTING_POWER_FACTOR,
-  STAR_DELTA_FACTOR,
-} from '../../data/motor-starting.ts';
+import { TYPICAL_VALUE, DEFAULT_MAX_GENERATOR_DIP_PERCENT, DEFAULT_MIN_TERMINAL_VOLTAGE_PERCENT, MARGINAL_FRACTION } from '../../data/motor-starting.ts';
+import { METHOD_WORDS, startingFigures } from './starting-current.ts';
 import { feederImpedance } from './faults.ts';
-import type { CheckStatus, MotorStartResult, SeriesDrop, StartCheck, StartMethod, StartVerdict } from './types.ts';
+import type { CheckStatus, MotorStartResult, SeriesDrop, StartCheck, StartVerdict } from './types.ts';
 
 const SQRT3 = Math.sqrt(3);
 /** Beside every default the user reads (the defaults are common practice, no source; see core/data/motor-starting.ts). */
 const CP = TYPICAL_VALUE;
 
 const fmt = (x: number, digits = 3): string => (Math.abs(x) >= 1000 ? Math.round(x).toString() : x.toPrecision(digits));
-
-/** Full-load efficiency and power factor of a motor from its own model (class, nameplate or explicit). */
-function fullLoad(e: MotorStage): { efficiency: number; powerFactor: number } {
-  const r = motorRating(e);
-  if (r.ok && r.rating) return { efficiency: r.rating.fullLoad.efficiency, powerFactor: r.rating.powerFactor };
-  const loss = e.loss!;
-  const prepared = prepareLoss(loss.model === 'constant' && loss.ratedPower === undefined ? { ...loss, ratedPower: e.ratedOutput } : loss);
-  const p = e.ratedOutput;
-  return { efficiency: p / (p + prepared.loss(p).loss), powerFactor: motorPowerFactorAt(e.powerFactor!, 1) };
-}
-
-/** Starting figures of one motor at rated voltage (no chain yet). */
-export function startingFigures(e: MotorStage, phases: 1 | 3, ratedVoltage: number) {
-  const s = e.starting!;
-  const fl = fullLoad(e);
-  const perVolt = phases === 3 ? SQRT3 * ratedVoltage : ratedVoltage;
-  const flcFromRating = e.ratedOutput / (fl.efficiency * fl.powerFactor) / perVolt;
-  const fullLoadCurrent = e.nameplate?.current ?? flcFromRating;
-  const fullLoadCurrentSource =
-    e.nameplate?.current !== undefined
-      ? 'nameplate current'
-      : `rated output / (η ${fmt(fl.efficiency)} × pf ${fmt(fl.powerFactor)}) / (${phases === 3 ? '√3 × ' : ''}${fmt(ratedVoltage)} V)`;
-  let lockedRotorCurrent: number;
-  let lockedRotorSource: string;
-  if (s.codeLetter !== undefined) {
-    const row = NEC_430_7_B.find((r) => r.letter === s.codeLetter)!;
-    const kvaPerHp = row.maxKvaPerHp ?? row.minKvaPerHp;
-    const hp = e.ratedOutput / WATTS_PER_HP;
-    lockedRotorCurrent = (kvaPerHp * 1000 * hp) / perVolt;
-    lockedRotorSource = `code letter ${s.codeLetter}: ${kvaPerHp} kVA/hp (${row.maxKvaPerHp === null ? 'lower end; the letter has no upper end' : 'upper end of the band'}, NEC Table 430.7(B)) × ${fmt(hp)} hp`;
-  } else if (s.startingCurrentRatio !== undefined) {
-    lockedRotorCurrent = s.startingCurrentRatio * fullLoadCurrent;
-    lockedRotorSource = `I_A/I_N ${s.startingCurrentRatio} × full-load current (motor data)`;
-  } else if (s.lockedRotorCurrent !== undefined) {
-    lockedRotorCurrent = s.lockedRotorCurrent;
-    lockedRotorSource = 'entered';
-  } else {
-    const cls = e.efficiencyClass;
-    const k = cls !== undefined ? DEFAULT_LOCKED_ROTOR_RATIO_BY_CLASS[cls] : DEFAULT_LOCKED_ROTOR_RATIO;
-    const clsWords = cls === undefined ? '' : ` for ${cls === 'NEMA-premium' ? 'a NEMA Premium' : `an ${cls}`} motor${cls === 'IE3' || cls === 'IE4' || cls === 'NEMA-premium' ? ', premium-efficiency motors drawing more' : ''}`;
-    lockedRotorCurrent = k * fullLoadCurrent;
-    lockedRotorSource = `not given: ${k} × full-load current assumed${clsWords} (${CP}); enter the code letter, I_A/I_N or the locked-rotor current`;
-  }
-  let startingCurrent: number;
-  let how: string;
-  switch (s.method) {
-    case 'dol':
-      startingCurrent = lockedRotorCurrent;
-      how = 'direct-on-line: the locked-rotor current';
-      break;
-    case 'star-delta':
-      startingCurrent = lockedRotorCurrent * STAR_DELTA_FACTOR;
-      how = 'star-delta: ⅓ of the direct-on-line current and torque (textbook relation)';
-      break;
-    case 'soft-starter': {
-      const k = s.currentLimit ?? DEFAULT_SOFT_STARTER_LIMIT;
-      startingCurrent = Math.min(k * fullLoadCurrent, lockedRotorCurrent);
-      how = `soft starter: current limit ${k} × FLC${s.currentLimit === undefined ? ` (not given; ${CP})` : ''}${k * fullLoadCurrent > lockedRotorCurrent ? ', above the locked-rotor current, so the locked-rotor current' : ''}`;
-      break;
-    }
-    case 'drive':
-      startingCurrent = DRIVE_START_RATIO * fullLoadCurrent;
-      how = `drive: about ${DRIVE_START_RATIO} × FLC while accelerating (${CP})`;
-      break;
-  }
-  const pfRow = STARTING_POWER_FACTOR.find((r) => e.ratedOutput <= r.upToWatts)!;
-  const startingPowerFactor = s.method === 'drive' ? fl.powerFactor : (s.startingPowerFactor ?? pfRow.powerFactor);
-  const startingPowerFactorSource =
-    s.method === 'drive' ? 'the motor’s full-load power factor (a drive starts at rated flux)' : s.startingPowerFactor !== undefined ? 'entered' : `${pfRow.powerFactor} by size (${CP})`;
-  return {
-    fullLoadCurrent,
-    fullLoadCurrentSource,
-    ratedPowerFactor: fl.powerFactor,
-    lockedRotorCurrent,
-    lockedRotorSource,
-    startingCurrent,
-    how,
-    startingPowerFactor,
-    startingPowerFactorSource,
-    startingApparentPower: perVolt * startingCurrent,
-    startSeconds: s.startSeconds ?? DEFAULT_START_SECONDS[s.method],
-    startSecondsSource: s.startSeconds !== undefined ? 'entered' : `${DEFAULT_START_SECONDS[s.method]} s for ${METHOD_WORDS[s.method]} (${CP})`,
-  };
-}
-
-const METHOD_WORDS: Record<StartMethod, string> = {
-  dol: 'direct on line',
-  'star-delta': 'star-delta',
-  'soft-starter': 'a soft starter',
-  drive: 'a drive',
-};
 
 const SERIES_WORDS =
   'every transformer (its u_k and load loss) and every cable (carrying the starting current, with the size and resistance of the running solve: a start lasts seconds) are in the solve';
@@ -195,8 +93,10 @@ function descendants(elements: readonly Element[], id: string): Set<string> {
   return out;
 }
 
-/** Study the start of one motor with `starting` data. `running` is the project's own solve. */
-export function studyStart(project: Project, running: SolveResult, motor: MotorStage): { ok: true; start: MotorStartResult } | { ok: false; problems: Problem[] } {
+/** Study the start of one motor with `starting` data, from the solved project (its result is the running state). */
+export function studyStart(solved: Solved, motor: MotorStage): { ok: true; start: MotorStartResult } | { ok: false; problems: Problem[] } {
+  const project = solved.project;
+  const running = solved.result;
   const s = motor.starting!;
   const byId = new Map(project.elements.map((e) => [e.id, e]));
   const res = new Map(running.elements.map((e) => [e.id, e]));
@@ -307,11 +207,17 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
     const { conductor: _c, ...cable } = e;
     return { ...cable, resistancePerKm: c.resistance.perKm, reactancePerKm: c.reactancePerKm, parallelSets: c.parallelSets };
   };
-  const elements = project.elements
-    .filter((e) => !below.has(e.id))
-    .map((e) => (e.id === motor.id ? startLoad : startRoot && e.id === startRoot.id ? startRoot : atRunning(e)));
-  const { backup: _b, pumpDuty: _f, ...rest } = project;
-  const solved = solveProject({ ...rest, elements });
+  // The start is a variant of the solved project (core/solve/variant.ts checks every element it
+  // changes): the branch below the motor goes, the motor becomes its starting load, the source takes
+  // its impedance for the start, cables keep their running sizes; the backup and pump duty studies,
+  // which may name what is gone, are dropped.
+  const replace: Element[] = [startLoad];
+  for (const e of project.elements) {
+    if (below.has(e.id) || e.id === motor.id) continue;
+    const during = startRoot && e.id === startRoot.id ? startRoot : atRunning(e);
+    if (during !== e) replace.push(during);
+  }
+  const starting = solveVariant(solved, { remove: below, replace, backup: null, pumpDuty: null });
 
   const checks: StartCheck[] = [];
   const minV = s.minTerminalVoltagePercent ?? DEFAULT_MIN_TERMINAL_VOLTAGE_PERCENT;
@@ -321,10 +227,10 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
   let generatorOut: MotorStartResult['generator'];
   let collapse: string | undefined;
 
-  if (!solved.ok) {
-    collapse = solved.problems.map((p) => p.message).join('; ');
+  if (!starting.ok) {
+    collapse = starting.problems.map((p) => p.message).join('; ');
   } else {
-    const sr = new Map(solved.result.elements.map((e) => [e.id, e]));
+    const sr = new Map(starting.result.elements.map((e) => [e.id, e]));
     const m = sr.get(motor.id)!;
     const vT = m.input!.voltage;
     const drops: { id: string; dropVolts: number; dropPercent: number }[] = [];
@@ -504,3 +410,5 @@ export function studyStart(project: Project, running: SolveResult, motor: MotorS
     },
   };
 }
+
+export { startingFigures } from './starting-current.ts';

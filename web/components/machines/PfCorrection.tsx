@@ -3,16 +3,15 @@
  */
 import { useState } from 'preact/hooks';
 import { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from '../../../core/studies/index.ts';
-import type { SolveResult } from '../../../core/page.ts';
+import type { Solved } from '../../../core/page.ts';
 import type { PfCorrectionShown } from '../panel-worker.ts';
 import { useWorkerReply } from '../panel-client.ts';
 import { formatApparent, formatCurrent, formatPercent, formatPower, formatPowerFactor, formatReactive, formatSignificant, formatVoltage, UNIT_GAP } from '../../format/number.ts';
 import { formatForInput, parseLocaleNumber } from '../../format/parse.ts';
-import { draft } from '../../state/editor.ts';
 import { type Locale, ProblemLines } from './shared.tsx';
 
-export function PfCorrectionControl({ result, locale }: { result: SolveResult; locale: Locale }) {
-  const input = draft.value;
+export function PfCorrectionControl({ solved, locale }: { solved: Solved; locale: Locale }) {
+  const result = solved.result;
   const [at, setAt] = useState<string | null>(null);
   const [targetText, setTargetText] = useState(() => formatForInput(DEFAULT_TARGET_POWER_FACTOR, locale));
   const parsed = parseLocaleNumber(targetText, locale);
@@ -31,8 +30,8 @@ export function PfCorrectionControl({ result, locale }: { result: SolveResult; l
   // the engine's own message at the field.
   const notNeeded = !!chosenCandidate && !chosenCandidate.needed && (chosenCandidate.pfSense !== 'lagging' || target === DEFAULT_TARGET_POWER_FACTOR);
   const { reply, pending } = useWorkerReply<'pfc'>(
-    () => (input && chosen && Number.isFinite(target) && !notNeeded ? { kind: 'pfc', project: input, at: chosen, targetPowerFactor: target } : null),
-    [input, chosen, target, notNeeded],
+    () => (chosen && Number.isFinite(target) && !notNeeded ? { kind: 'pfc', solved, at: chosen, targetPowerFactor: target } : null),
+    [solved, chosen, target, notNeeded],
   );
   if (candidates.length === 0) return null;
   const noneNeeded = !candidates.some((c) => c.needed);

@@ -1,0 +1,103 @@
+/**
+ * One project of a command-line run, from its parsed JSON to the text and summary line (pure: no
+ * file or process access; core/cli/cli.ts reads the files and writes the output). The project is
+ * validated and solved once (solveProject); every study asked for takes that solved value
+ * (tests/core/solve-count.test.ts counts the validations and solves of a run).
+ */
+import { formatProblem, type Problem } from '../model/errors.ts';
+import { formatResult } from './text-report.ts';
+import { solveProject, type Solved } from '../solve/index.ts';
+import { elementNames, nonFiniteProblems } from '../solve/finite.ts';
+import { runBackupStudy, type BackupStudyResult } from '../studies/backup/study.ts';
+import { formatBackupStudy } from '../studies/backup/text-report.ts';
+import { correctPowerFactor, type PfCorrection } from '../studies/pf/correction.ts';
+import { formatPfCorrection, pfCorrectionJson } from '../studies/pf/text-report.ts';
+import { hasPumpSections, machineSections } from './machines-flags.ts';
+import { formatSurgeStudy, hasSurgeInputs, studySurges, type SurgeStudyResult } from '../studies/surge/index.ts';
+import type { CliRequest } from './args.ts';
+import type { ProjectLine } from './summary.ts';
+
+export type SolveRequest = Extract<CliRequest, { kind: 'solve' }>;
+
+/** One project's outcome: the text to print (tables or JSON, when asked for) and its summary, or why it was refused. */
+export type ProjectRun = { ok: true; text: string; line: ProjectLine } | { ok: false; lines: string[]; line: ProjectLine };
+
+/** Refused: `<file>: <heading>` and one indented line per problem; the summary keeps the heading with each problem. */
+export function refused(file: string, heading: string, problems: readonly Problem[], projectName?: string): ProjectRun {
+  const reasons = problems.map((p) => `${heading} ${formatProblem(p)}`);
+  return {
+    ok: false,
+    lines: [`${file}: ${heading}`, ...problems.map((p) => `  ${formatProblem(p)}`)],
+    line: { file, ok: false, reasons: reasons.length ? reasons : [heading], ...(projectName !== undefined ? { projectName } : {}) },
+  };
+}
+
+/** Refused with one message (a file that cannot be read or parsed). */
+export const refusedWith = (file: string, message: string): ProjectRun => ({ ok: false, lines: [message], line: { file, ok: false, reasons: [message] } });
+
+/** Solve one parsed project once and run on it every study the request asks for. */
+export function runParsed(file: string, data: unknown, req: SolveRequest, flowData: unknown): ProjectRun {
+  const rawName = (data as { name?: unknown } | null)?.name;
+  const projectName = typeof rawName === 'string' ? rawName : undefined;
+  // Validated and solved once: every study below takes this solved value.
+  const outcome = solveProject(data);
+  if (!outcome.ok) return refused(file, 'the project cannot be solved:', outcome.problems, projectName);
+  // Every study's figures must be finite numbers, or the study is refused (core/solve/finite.ts);
+  // the solve checks its own result. Elements are named as in the solved project.
+  const names = elementNames(outcome.project);
+  const nonFinite = (heading: string, what: string, value: unknown): ProjectRun | undefined => {
+    const bad = nonFiniteProblems(what, value, names);
+    return bad.length ? refused(file, heading, bad, projectName) : undefined;
+  };
+  let study: BackupStudyResult | undefined;
+  if (hasBackupStudy(outcome)) {
+    const s = runBackupStudy(outcome);
+    if (!s.ok) return refused(file, 'the battery backup study cannot be run:', s.problems, projectName);
+    study = s.study;
+    const bad = nonFinite('the battery backup study cannot be shown:', 'The battery backup study', study);
+    if (bad) return bad;
+  }
+  let pfc: PfCorrection | undefined;
+  if (req.correctPf) {
+    const c = correctPowerFactor(outcome, req.correctPf);
+    if (!c.ok) return refused(file, 'the power-factor correction cannot be worked out:', c.problems, projectName);
+    pfc = c.correction;
+    const bad = nonFinite('the power-factor correction cannot be shown:', 'The power-factor correction', pfc);
+    if (bad) return bad;
+  }
+  const machines = req.machines || req.pumpDutyFile !== undefined || hasPumpSections(outcome) ? machineSections(outcome, req.machines, flowData) : undefined;
+  if (machines && !machines.ok) return refused(file, machines.heading, machines.problems, projectName);
+  if (machines?.ok) {
+    const bad = nonFinite('the machines study cannot be shown:', 'The machines study', machines.json);
+    if (bad) return bad;
+  }
+  let surges: SurgeStudyResult | undefined;
+  if (req.surges || hasSurgeInputs(outcome)) {
+    const s = studySurges(outcome);
+    if (!s.ok) return refused(file, 'the surge and fault study cannot be run:', s.problems, projectName);
+    surges = s.result;
+    const bad = nonFinite('the surge and fault study cannot be shown:', 'The surge and fault study', surges);
+    if (bad) return bad;
+  }
+  const run = study?.discharge;
+  const line: ProjectLine = {
+    file,
+    ok: true,
+    result: outcome.result,
+    ...(run ? { backupRuntimeHours: run.runtimeSeconds / 3600, backupRuntimeIsLowerBound: run.runtimeIsLowerBound } : {}),
+  };
+  let text = '';
+  if (req.output === 'json') {
+    const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}) };
+    text = `${JSON.stringify({ ...outcome.result, ...extra }, null, 2)}\n`;
+  } else if (req.output === 'tables') {
+    text = `${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}`;
+  }
+  return { ok: true, text, line };
+}
+
+/** A study runs when the project has `backup` settings and a battery given as a `bank`. */
+function hasBackupStudy({ project }: Solved): boolean {
+  return project.backup !== undefined && project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined);
+}
+
