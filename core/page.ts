@@ -16,7 +16,7 @@ export { solveProject, validateProject, type SolveOutcome, type Solved, type Val
 export { elementNames, fieldWords, nonFiniteProblems } from './solve/finite.ts';
 export { issueMessage } from './solve/issue-messages.ts';
 export { demoProjects, type DemoProject } from './demos/index.ts';
-export { KINDS, type NominalPort } from './kinds/index.ts';
+export { KINDS, studiesOf, type NominalPort } from './kinds/index.ts';
 export { CHEMISTRIES, CHEMISTRY_PRESETS, type Chemistry, type ChemistryValues } from './data/battery-chemistries.ts';
 export { CODE_LETTERS } from './data/motor-code-letters.ts';
 export { MOTOR_CLASSES } from './physics/motor-rating.ts';

@@ -13,10 +13,11 @@ import { comparePumpControl, type PumpControlResult, type PumpDutyInput } from '
 import { formatPumpDuty, formatMachines } from '../studies/machines/text-report.ts';
 import { projectPumpDuty, pumpDetails, type PumpDetail } from '../studies/machines/pump-duty.ts';
 import type { Solved } from '../solve/index.ts';
+import { studiesOf } from '../kinds/index.ts';
 
-/** Whether the project asks for the pump sections without a flag: a `pumpDuty` or a `pump` element. */
+/** Whether the project asks for the pump sections without a flag: a `pumpDuty`, or an element whose kind takes part in the pump duty study. */
 export function hasPumpSections({ project }: Solved): boolean {
-  return project.pumpDuty !== undefined || project.elements.some((e) => e.kind === 'pump');
+  return project.pumpDuty !== undefined || studiesOf(project.elements).has('pump-duty');
 }
 
 /** Plain text of the pumps' operating points and tree checks. */

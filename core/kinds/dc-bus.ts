@@ -5,7 +5,7 @@ import { c } from '../physics/complex.ts';
 import { defineKind, fromField, idField, nameField, nominalPort } from './spec.ts';
 import { ranged } from './ranges.ts';
 
-export const dcbusKind = defineKind<DcBusStage>({
+export const dcBusKind = defineKind<DcBusStage>({
   kind: 'dc-bus',
   role: 'stage',
   accepts: () => ['dc'],

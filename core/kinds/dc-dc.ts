@@ -4,7 +4,7 @@ import type { DcDcStage } from '../model/project.ts';
 import { checkLossModel, defineKind, finiteOrNone, fromField, idField, lossModelSchema, nameField, nominalPort, regulatingConverter } from './spec.ts';
 import { ranged } from './ranges.ts';
 
-export const dcdcKind = defineKind<DcDcStage>({
+export const dcDcKind = defineKind<DcDcStage>({
   kind: 'dc-dc',
   role: 'stage',
   accepts: () => ['dc'],

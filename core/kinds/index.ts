@@ -8,8 +8,8 @@ import type { Element, ElementKind } from '../model/project.ts';
 import type { KindElement, KindSpec, KindStudy } from './spec.ts';
 import { batteryKind } from './battery.ts';
 import { cableKind } from './cable.ts';
-import { dcbusKind } from './dc-bus.ts';
-import { dcdcKind } from './dc-dc.ts';
+import { dcBusKind } from './dc-bus.ts';
+import { dcDcKind } from './dc-dc.ts';
 import { driveKind } from './drive.ts';
 import { genericKind } from './generic.ts';
 import { generatorKind, gridKind } from './grid.ts';
@@ -26,8 +26,8 @@ const all = [
   generatorKind,
   batteryKind,
   rectifierKind,
-  dcdcKind,
-  dcbusKind,
+  dcDcKind,
+  dcBusKind,
   inverterKind,
   transformerKind,
   driveKind,

@@ -8,7 +8,7 @@ import { CableTable, ElementTable, EnergyBalance, MethodNote, PortTable, Warning
 import { useOffscreenLag } from './lag.ts';
 import { lazy, memo, Suspense } from 'preact/compat';
 import { useEffect, useState } from 'preact/hooks';
-import type { Solved, SolveResult } from '../../core/page.ts';
+import { type Solved, type SolveResult, studiesOf } from '../../core/page.ts';
 import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
 import { crashMessage, draft, draftOrigin, draftProblems, lastSolved, openCount, resultsState } from '../state/editor.ts';
 
@@ -51,10 +51,11 @@ function PanelShelf({ solved: latest }: { solved: Solved }) {
   // An open panel scrolled out of view follows the edits when the page is idle (lag.ts).
   const { box, shown: solved } = useOffscreenLag(latest);
   const { project, result } = solved;
-  // A battery is always the chain's source.
-  const battery = project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined);
+  // Which studies apply: the kinds' `studies` traits (core/kinds). The backup study needs the bank itself.
+  const studies = studiesOf(project.elements);
+  const battery = studies.has('backup') && project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined);
   const conductors = result.elements.some((e) => e.conductor);
-  const machines = project.elements.some((e) => e.kind === 'motor' || e.kind === 'drive' || e.kind === 'pump');
+  const machines = studies.has('machines');
   return (
     <section class="panels skip-offscreen" aria-label="Studies of this project" data-testid="panels" ref={box}>
       {battery && (

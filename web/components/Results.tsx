@@ -1,8 +1,9 @@
 /**
- * The solved project as tables: the energy balance, one row per element, one row per port.
+ * The solved project as tables: the energy balance, one row per element, one row per port (the
+ * cables' table is CableTable.tsx, re-exported here).
  * Every number shown comes from the engine's result; this file only formats and arranges.
  */
-import type { ElementResult, GoverningRule, PortResult, Project, Solved, SolveResult } from '../../core/page.ts';
+import type { ElementResult, PortResult, SolveResult } from '../../core/page.ts';
 import {
   formatApparent,
   formatCurrent,
@@ -16,10 +17,12 @@ import {
   formatVoltage,
 } from '../format/number.ts';
 import { elementKindLabel, portKindLabel } from '../format/labels.ts';
-import { formatConductorSize, formatLength, formatShaftPower, formatTemperature, type UnitSystem } from '../format/units.ts';
+import { formatShaftPower, type UnitSystem } from '../format/units.ts';
 import { memo } from 'preact/compat';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { lagOffscreen, type BoxRef } from './lag.ts';
+
+export { CableTable, cableLengths } from './CableTable.tsx';
 
 /** Where a lagging part puts its ref (web/components/lag.ts). */
 type Box = { box: BoxRef };
@@ -174,99 +177,6 @@ export const ElementTable = lagOffscreen(function ElementTable({ result, box }: 
     </section>
   );
 });
-
-/** Why the engine chose a size, in words. */
-const GOVERNING_WORDS: Record<GoverningRule, string> = {
-  ampacity: 'set by ampacity',
-  'voltage-drop': 'set by voltage drop',
-  protection: 'set by the protective device',
-  'smallest-size': 'smallest size allowed',
-  fixed: 'size as given',
-};
-
-/**
- * The cables: route length (from the solved project the result came from), conductor size as the
- * engine chose it, estimated conductor temperature, voltage drop and loss. Shown only when the
- * project has cables. Takes the solved pair (lagOffscreen lags its `result` prop: here the pair), so
- * the lengths are always those of the project the figures belong to, never the draft's.
- */
-export const CableTable = lagOffscreen(function CableTable({ result: solved, box }: { result: Solved } & Box) {
-  const units = unitSystem.value;
-  const locale = effectiveLocale();
-  const result = solved.result;
-  const cables = result.elements.filter((e) => e.kind === 'cable');
-  if (cables.length === 0) return null;
-  const lengths = cableLengths(solved.project);
-  const drops = new Map<string, number>();
-  for (const path of result.voltageDrop ?? []) for (const link of path.links) drops.set(link.id, link.dropPercent);
-  const cautions = [...new Set(cables.flatMap((e) => (e.conductor ? [e.conductor.caution] : [])))];
-  return (
-    <section class="skip-offscreen" aria-labelledby="cables-heading" data-testid="cable-panel" ref={box}>
-      <h3 id="cables-heading">Cables</h3>
-      <div class="table-scroll" role="region" aria-labelledby="cables-heading" tabIndex={0}>
-        <table class="data data--cables data--fixed" data-testid="cable-table">
-          <thead>
-            <tr>
-              <th scope="col">Cable</th>
-              <th scope="col" class="num col-short">Length</th>
-              <th scope="col" class="col-conductor">Conductor</th>
-              <th scope="col" class="num col-temperature">Conductor temp.</th>
-              <th scope="col" class="num col-short">Drop</th>
-              <th scope="col" class="num col-short">Loss</th>
-            </tr>
-          </thead>
-          <tbody>
-            {cables.map((e) => {
-              const c = e.conductor;
-              const length = lengths.get(e.id);
-              const dropPercent = c ? c.drop.checkPercent : drops.get(e.id);
-              return (
-                <tr key={e.id} data-element-id={e.id}>
-                  <th scope="row">
-                    <span class="el-name__text">
-                      <span>{e.name || e.id}</span>
-                    </span>
-                  </th>
-                  <td class="num" data-label="Length" data-testid="cable-length">{length === undefined ? '—' : formatLength(length, units, locale)}</td>
-                  <td class="cable-size" data-label="Conductor" data-testid="cable-size">
-                    {c ? (
-                      <>
-                        {c.parallelSets > 1 ? `${c.parallelSets} × ` : ''}
-                        {formatConductorSize(c.size, c.areaMm2, units, locale)}
-                        <span class="cell-note">
-                          {c.auto ? GOVERNING_WORDS[c.governing] : 'size as given'}
-                          {c.device.rating !== undefined ? ` · ${formatCurrent(c.device.rating, locale)} device` : ''} · design {formatCurrent(c.designCurrent, locale)}
-                        </span>
-                      </>
-                    ) : (
-                      <span class="cell-note">given as R and X per km</span>
-                    )}
-                  </td>
-                  <td class="num" data-label="Conductor temp.">{c ? formatTemperature(c.resistance.operatingTemperature, units, locale) : '—'}</td>
-                  <td class="num" data-label="Drop">{dropPercent === undefined ? '—' : formatPercent(dropPercent / 100, locale, 3)}</td>
-                  <td class="num" data-label="Loss">{formatPowerIn(e.loss, locale)}</td>
-                </tr>
-              );
-            })}
-          </tbody>
-        </table>
-      </div>
-      <p class="note">
-        Lengths are one-way route lengths. Drop: for a sized conductor, the check by its method at the design current, % of the nominal voltage; for a cable
-        given by its impedance, the solved drop, % of its sending voltage.
-        {cautions.map((text) => ` ${text}`)}
-      </p>
-    </section>
-  );
-});
-
-/** One-way route lengths of the cables in a project as entered (m), for display beside the results. */
-/** Each cable's route length, m, from a solved (valid) project. */
-export function cableLengths(project: Project): Map<string, number> {
-  const out = new Map<string, number>();
-  for (const e of project.elements) if (e.kind === 'cable') out.set(e.id, e.length);
-  return out;
-}
 
 function portKindText(port: PortResult, locale: string | undefined): string {
   const parts = [portKindLabel(port.kind)];

@@ -18,7 +18,7 @@ export const rectifierForm: KindForm = {
   ],
 };
 
-export const dcdcForm: KindForm = {
+export const dcDcForm: KindForm = {
   kind: 'dc-dc',
   fields: [
     name,
@@ -29,7 +29,7 @@ export const dcdcForm: KindForm = {
   ],
 };
 
-export const dcbusForm: KindForm = {
+export const dcBusForm: KindForm = {
   kind: 'dc-bus',
   fields: [
     name,

@@ -6,7 +6,7 @@
 import { type ElementKind, KINDS } from '../../../core/page.ts';
 import { cableForm } from './cable.ts';
 import { valueAt } from './common.ts';
-import { dcbusForm, dcdcForm, genericForm, inverterForm, rectifierForm, transformerForm } from './converters.ts';
+import { dcBusForm, dcDcForm, genericForm, inverterForm, rectifierForm, transformerForm } from './converters.ts';
 import { acCurrentLoadForm, acLoadForm, acVaLoadForm, dcCurrentLoadForm, dcLoadForm, networkLoadForm, pumpForm, shaftLoadForm } from './loads.ts';
 import { driveForm, motorForm } from './machines.ts';
 import { acSource, batteryForm } from './sources.ts';
@@ -17,8 +17,8 @@ export const KIND_FORMS: Readonly<Record<ElementKind, KindForm>> = {
   generator: acSource('generator'),
   battery: batteryForm,
   rectifier: rectifierForm,
-  'dc-dc': dcdcForm,
-  'dc-bus': dcbusForm,
+  'dc-dc': dcDcForm,
+  'dc-bus': dcBusForm,
   inverter: inverterForm,
   transformer: transformerForm,
   drive: driveForm,
