@@ -1,19 +1,12 @@
 // Keeps core/ free of DOM, storage, network, clock and web/ imports (rules in core-purity.ts).
-import { readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { sourceFiles } from './source-files.ts';
 import { checkCoreFile, type PurityViolation } from './core-purity.ts';
 
 const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
-
-function sourceFiles(dir: string): string[] {
-  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
-    const path = join(dir, entry.name);
-    if (entry.isDirectory()) return sourceFiles(path);
-    return /\.(ts|tsx|mts|js|mjs)$/.test(entry.name) ? [path] : [];
-  });
-}
 
 describe('core/ stays a pure engine', () => {
   it('no file in core/ uses the DOM, storage, network, clock or web/', () => {

@@ -1,19 +1,12 @@
 // The page imports the engine through its entry points, and study code stays lazy (rules in entry-points.ts).
-import { readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { sourceFiles } from './source-files.ts';
 import { ENTRY_POINTS, STUDIES, checkEntryImports, importsOf, notReexports, staticClosure } from './entry-points.ts';
 
 const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
-
-function sourceFiles(dir: string): string[] {
-  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
-    const path = join(dir, entry.name);
-    if (entry.isDirectory()) return sourceFiles(path);
-    return /\.(ts|tsx|mts|js|mjs)$/.test(entry.name) ? [path] : [];
-  });
-}
 
 const rel = (p: string) => relative(repoRoot, p).split('\\').join('/');
 

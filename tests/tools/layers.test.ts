@@ -1,19 +1,12 @@
 // The engine's layers read one way (rules in layers.ts; the order is the project's own design).
-import { readdirSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { describe, expect, it } from 'vitest';
+import { sourceFiles } from './source-files.ts';
 import { LAYERS, checkLayers, layerOf } from './layers.ts';
 
 const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
-
-function sourceFiles(dir: string): string[] {
-  return readdirSync(dir, { withFileTypes: true }).flatMap((entry) => {
-    const path = join(dir, entry.name);
-    if (entry.isDirectory()) return sourceFiles(path);
-    return /\.(ts|tsx|mts|js|mjs)$/.test(entry.name) ? [path] : [];
-  });
-}
 
 describe('the engine layers read one way', () => {
   it('no file of core/ imports from a layer above its own', () => {

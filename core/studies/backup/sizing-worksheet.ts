@@ -126,15 +126,7 @@ export function worksheetSections(
 ): WorksheetSection[] {
   if (!keepRows) return sectionTotals(periods, kAt);
   // K_t depends on the time only; a profile of equal steps repeats the same times in every section.
-  const memo = new Map<number, number>();
-  const k = (t: number) => {
-    let v = memo.get(t);
-    if (v === undefined) {
-      v = kAt(t);
-      memo.set(t, v);
-    }
-    return v;
-  };
+  const k = memoByTime(kAt);
   const sections: WorksheetSection[] = [];
   for (let s = 0; s < periods.length; s++) sections.push(worksheetSection(periods, s, k, true));
   return sections;
@@ -223,15 +215,7 @@ function sectionTotals(periods: readonly CurrentPeriod[], kAt: (timeS: number) =
     return sections;
   }
   // Many irregular durations: a plain memo by time.
-  const memo = new Map<number, number>();
-  const k = (t: number) => {
-    let v = memo.get(t);
-    if (v === undefined) {
-      v = kAt(t);
-      memo.set(t, v);
-    }
-    return v;
-  };
+  const k = memoByTime(kAt);
   const sections: WorksheetSection[] = [];
   for (let s = 0; s < n; s++) sections.push(worksheetSection(periods, s, k, false));
   return sections;
@@ -319,4 +303,17 @@ export function depthOfDischargeCapacity(
     else lo = mid;
   }
   return hi;
+}
+
+/** K_t by time, each time worked out once (a worksheet asks for the same times again and again). */
+function memoByTime(kAt: (timeS: number) => number): (timeS: number) => number {
+  const memo = new Map<number, number>();
+  return (t) => {
+    let v = memo.get(t);
+    if (v === undefined) {
+      v = kAt(t);
+      memo.set(t, v);
+    }
+    return v;
+  };
 }
