@@ -11,6 +11,12 @@
  * `nominalOutput` trait from the engine's registry (core/kinds/), the same one the conductor sizing
  * reads; nothing here computes an engineering result. The pump template's flow is chosen with the engine's own
  * shaft-power function (core/physics/pump-fan.ts).
+ *
+ * Defaults taken from the chain: a motor's rated voltage from the nominal voltage of the port that
+ * feeds it (motorRatedVoltage: NEC/NEMA motor voltages in North American projects, the system voltage
+ * for IEC); a drive offered in front of motors is rated for them (offeredTemplates: the next listed
+ * drive rating up from their rated output); a motor offered behind a drive stays within its rating.
+ * A drive the user set is never changed here: the engine warns when it is smaller than its motors.
  */
 import { type ElementKind, KINDS, type NominalPort, type PortKind, pumpShaftPower } from '../../core/page.ts';
 import type { DraftElement, DraftProject } from '../state/editor.ts';
