@@ -227,6 +227,12 @@ describe('defaults taken from the chain', () => {
     // IEC motor rating series (common practice (no source)): the largest at or below 5.5 kW is 5.5 kW (the preset is 7.5 kW).
     expect(motorAfter(p, 'vfd')['ratedOutput']).toBe(5500);
     expect(driveRated(p.elements[1]!)).toBe(5500);
+    // On 60 Hz the NEMA hp series (NEMA MG 1 ratings, from memory): 7.5 hp = 5.59 kW is above 5.5 kW, so 5 hp = 3728.5 W.
+    const us = project([
+      source('grid-3-480-60'),
+      { id: 'vfd', kind: 'drive', from: 'supply', outputVoltage: 480, outputFrequency: 60, inputPowerFactor: 0.95, loss: { model: 'constant', efficiency: 0.97, ratedPower: 5500 } },
+    ]);
+    expect(motorAfter(us, 'vfd')['ratedOutput']).toBe(3728.5);
     // Behind the 11 kW preset drive the 7.5 kW preset motor stays (demo default, common practice (no source)).
     expect(motorAfter(project([source('grid-3-400'), { ...p.elements[1]!, loss: { model: 'constant', efficiency: 0.97, ratedPower: 11000 } }]), 'vfd')['ratedOutput']).toBe(7500);
   });

@@ -140,6 +140,17 @@ export const DRIVE_RATINGS: readonly number[] = [
   160000, 200000, 250000, 315000, 355000,
 ];
 
+/** NEMA MG 1 standard motor ratings, hp (1 … 300 hp), for 60 Hz motors (from memory: MG 1 Part 10 rating series). */
+const NEMA_HP: readonly number[] = [1, 1.5, 2, 3, 5, 7.5, 10, 15, 20, 25, 30, 40, 50, 60, 75, 100, 125, 150, 200, 250, 300];
+/** 1 hp = 745.7 W (the mechanical horsepower, 550 ft·lbf/s). */
+const HP = 745.7;
+
+/** The largest standard motor rating, W, at or below `power` W: NEMA hp on 60 Hz, the IEC kW series otherwise. */
+function motorRatingWithin(power: number, f: 50 | 60): number {
+  const series = f === 60 ? NEMA_HP.map((hp) => Number((hp * HP).toFixed(1))) : DRIVE_RATINGS;
+  return [...series].reverse().find((r) => r <= power * (1 + 1e-9)) ?? power;
+}
+
 /** The smallest listed drive rating at or above `power` W; above the list, `power` itself rounded up to a kilowatt. */
 export function driveRatingFor(power: number): number {
   return DRIVE_RATINGS.find((r) => r >= power * (1 - 1e-9)) ?? Math.ceil(power / 1000) * 1000;
@@ -266,7 +277,7 @@ export function templateFor(kind: ElementKind, ctx: TemplateContext): DraftEleme
         let ratedOutput = f === 60 ? (three ? 7457 : 1491) : three ? 7500 : 2200; // 10 hp / 2 hp; 7.5 kW / 2.2 kW
         // Behind a drive the motor stays within the drive's rating (the user's drive is never changed here).
         const drive = driveRating(feeder);
-        if (drive !== undefined && ratedOutput > drive) ratedOutput = [...DRIVE_RATINGS].reverse().find((r) => r <= drive) ?? drive;
+        if (drive !== undefined && ratedOutput > drive) ratedOutput = motorRatingWithin(drive, f);
         // Rated voltage from the port that feeds it (a drive's output follows its supply's voltage class).
         const ratedVoltage = motorRatedVoltage(port, us);
         t = { id: 'motor', kind, ratedOutput, ...(ratedVoltage !== undefined ? { ratedVoltage } : {}), efficiencyClass: f === 60 ? 'NEMA-premium' : 'IE3', poles: 4, ratedFrequency: f };
