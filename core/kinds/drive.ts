@@ -14,7 +14,7 @@
  * pf = pf_disp / √(1 + THD_i²) — reported by core/studies/machines/details.ts.
  */
 import { z } from 'zod/mini';
-import type { DriveStage } from '../model/project.ts';
+import type { DriveStage, Element, MotorStage } from '../model/project.ts';
 import { c } from '../physics/complex.ts';
 import { checkLossModel, defineKind, finiteOrNone, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, nominalPort, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
 import { driveLossAt, driveLossGrid } from '../physics/drive-loss.ts';
@@ -42,6 +42,32 @@ const singlePhaseWarning: KindWarning = {
   code: 'check-derating',
   message: 'three-phase drive fed single-phase: most drives must then be derated (often to about half); check the maker’s single-phase rating',
 };
+
+/** The drive's rated power, W: its loss model's rated power, or its IEC 61800-9-2 rated apparent power (VA); undefined when neither is given. */
+export function driveRatedPower(e: DriveStage): number | undefined {
+  return e.loss?.ratedPower ?? e.standardLoss?.ratedApparentPower;
+}
+
+/**
+ * An undersized drive: the motors it feeds (through cables) are rated above the drive, whatever load
+ * they run now. Common practice (no source): a drive is chosen at least as large as its motor's rated
+ * output (the maker's motor-current rating governs). The message names the drive and the motors.
+ */
+export function undersizedDriveWarnings(e: DriveStage, fed: readonly Element[]): KindWarning[] {
+  const rated = driveRatedPower(e);
+  const motors = fed.filter((x): x is MotorStage => x.kind === 'motor');
+  if (rated === undefined || motors.length === 0) return [];
+  const total = motors.reduce((sum, m) => sum + m.ratedOutput, 0);
+  if (total <= rated * (1 + 1e-9)) return [];
+  const names = motors.map((m) => `"${m.name ?? m.id}"`).join(', ');
+  const unit = e.loss?.ratedPower !== undefined ? 'W' : 'VA';
+  return [
+    {
+      code: 'rating-exceeded',
+      message: `drive "${e.name ?? e.id}" is rated ${fmtW(rated).replace('W', unit)}, below the ${fmtW(total)} rated output of motor${motors.length > 1 ? 's' : ''} ${names} it feeds; choose a drive rated at least for the motor (the maker's rating governs)`,
+    },
+  ];
+}
 
 export const driveKind = defineKind<DriveStage>({
   kind: 'drive',
@@ -84,6 +110,7 @@ export const driveKind = defineKind<DriveStage>({
   // Three-phase at its set output voltage and frequency, whatever it is fed with.
   nominalOutput: (e) => nominalPort('ac3', finiteOrNone(e.outputVoltage), finiteOrNone(e.outputFrequency)),
   studies: ['machines'],
+  fedWarnings: undersizedDriveWarnings,
   build(e, input) {
     const inputKind = input!.kind;
     const withPhaseWarning = (model: ElementModel): ElementModel =>

@@ -181,6 +181,12 @@ export interface KindSpec<E extends KindElement = Element> {
    */
   nominalOutput?(e: E, input: NominalPort | null): NominalPort | null;
   /**
+   * Warnings that need the elements this one feeds (its model's report sees only powers): `fed`
+   * holds them, looked through pass-through stages (cables, buses) to the equipment below. Read by
+   * the solve's result (core/solve/report.ts), beside the model's own warnings. Absent on most kinds.
+   */
+  fedWarnings?(e: E, fed: readonly Element[]): KindWarning[];
+  /**
    * Sources: the same element with its own impedance taken out (an ideal source at its EMF), for
    * the nominal solve of the conductor sizing, which puts every system at its nominal voltage.
    */

@@ -42,6 +42,19 @@ export function portResult(port: PortInfo, v: Complex, s: Complex): PortResult {
   };
 }
 
+/** The elements node `i` feeds, looked through pass-through stages (cables, buses) to what they feed. */
+function fedThrough(order: readonly PlannedElement[], i: number): PlannedElement['element'][] {
+  const out: PlannedElement['element'][] = [];
+  const walk = (j: number) => {
+    for (const k of order[j]!.children) {
+      if (order[k]!.spec.passive) walk(k);
+      else out.push(order[k]!.element);
+    }
+  };
+  walk(i);
+  return out;
+}
+
 export function buildResult(
   projectName: string,
   order: readonly PlannedElement[],
@@ -63,6 +76,7 @@ export function buildResult(
     const vIn = parent < 0 ? vOut[i]! : vOut[parent]!;
     const rep = node.model.report(sOut[i]!, sIn[i]!, vIn);
     for (const w of rep.warnings) warnings.push({ ...w, elementId: e.id });
+    for (const w of node.spec.fedWarnings?.(e, fedThrough(order, i)) ?? []) warnings.push({ ...w, elementId: e.id });
     for (const p of rep.problems ?? []) problems.push({ ...p, elementId: e.id });
     const r: ElementResult = {
       id: e.id,

@@ -83,7 +83,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       expect(withInverter).toBe(empty);
       expect(withLoad).not.toBe(empty);
       await expect.poll(() => cards(page).nth(3).innerText()).toMatch(/uses 500\sW/);
-      expect(await page.getByTestId('editor-status').innerText()).toMatch(/Inserted load/);
+      expect(await page.getByTestId('editor-status').innerText()).toMatch(/Inserted AC load/);
       await fullPageScreenshot(page, join(artifacts, 'editor-phone-built.png'));
       await page.getByTestId('chain-editor').evaluate((el) => el.scrollIntoView());
       await page.screenshot({ path: join(artifacts, 'editor-phone-built-view.png') });
@@ -96,7 +96,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await page.getByTestId('undo').click();
       await expect.poll(() => cards(page).count()).toBe(4);
       await expect.poll(() => balance(page)).toMatch(/Loads use 500 W/);
-      expect(await page.getByTestId('redo').getAttribute('title')).toMatch(/Duplicated load/);
+      expect(await page.getByTestId('redo').getAttribute('title')).toMatch(/Duplicated AC load/);
       await page.getByTestId('redo').click();
       await expect.poll(() => cards(page).count()).toBe(5);
       await fullPageScreenshot(page, join(artifacts, 'editor-phone-branches.png'));
@@ -172,7 +172,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await page.locator('[data-card-id="cable"]').focus();
       await page.keyboard.press('Delete');
       await expect.poll(() => cards(page).count()).toBe(3);
-      await expect.poll(() => page.getByTestId('editor-status').innerText()).toMatch(/Removed cable.*Undo/);
+      await expect.poll(() => page.getByTestId('editor-status').innerText()).toMatch(/Removed Cable.*Undo/);
       await page.keyboard.press('Control+z');
       await expect.poll(() => cards(page).count()).toBe(4);
       await page.keyboard.press('Control+Shift+z');
@@ -182,6 +182,31 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await page.keyboard.press('Control+z');
       await expect.poll(() => cards(page).count()).toBe(4);
       await fullPageScreenshot(page, join(artifacts, 'editor-desktop-built.png'));
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('a motor added after a 480 V 60 Hz service is named "Motor" and its form shows the rated voltage 460 V (desktop)', async () => {
+    const { context, page, errors } = await openPage(VIEWPORTS.desktop);
+    try {
+      await page.getByTestId('new-chain').click();
+      await page.locator('button[data-source="grid-3-480-60"]').click();
+      await expect.poll(() => cards(page).count()).toBe(1);
+      await page.getByTestId('op-add-after').click();
+      await page.getByTestId('kind-chooser').waitFor();
+      await page.locator('.kind-option[data-kind="motor"]').click();
+      await expect.poll(() => cards(page).count()).toBe(2);
+      // The new card is selected and its form shows the rated voltage taken from the chain:
+      // NEC Table 430.250 / NEMA MG 1: a motor on a 480 V system is rated 460 V.
+      const form = page.locator('[data-testid="stage-form"][data-element-id="motor"]');
+      await form.waitFor();
+      await expect.poll(() => form.getByTestId('field-ratedVoltage').inputValue()).toBe('460');
+      await expect.poll(() => form.getByTestId('field-name').inputValue()).toBe('Motor');
+      expect(await form.innerText()).toMatch(/typical value[^.]*use the maker's figure/i);
+      expect(await page.getByTestId('editor-status').innerText()).toMatch(/Inserted Motor after 480 V service/);
+      await page.screenshot({ path: join(artifacts, 'editor-desktop-motor-defaults.png') });
       expect(errors).toEqual([]);
     } finally {
       await context.close();

@@ -137,3 +137,43 @@ describe('the drive stage in a solved chain', () => {
     if (o2.ok) expect(o2.result.warnings.map((w) => w.code)).toEqual(['rating-exceeded', 'curve-extrapolated']);
   });
 });
+
+describe('a drive rated below the motor it feeds', () => {
+  const chain = (driveRated: number, motorRated: number, shaft: number, via = false): Project =>
+    ({
+      format: 'joulepath-project',
+      version: 2,
+      name: 'undersized drive',
+      elements: [
+        { id: 'supply', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },
+        { id: 'vfd', name: 'Fan drive', kind: 'drive', from: 'supply', outputVoltage: 400, outputFrequency: 50, inputPowerFactor: 0.95, loss: { model: 'constant', efficiency: 0.97, ratedPower: driveRated } },
+        ...(via ? [{ id: 'run', kind: 'cable', from: 'vfd', length: 5, resistancePerKm: 0.5 }] : []),
+        { id: 'm', name: 'Fan motor', kind: 'motor', from: via ? 'run' : 'vfd', ratedOutput: motorRated, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 },
+        { id: 'fan', kind: 'shaft-load', from: 'm', power: shaft },
+      ],
+    }) as Project;
+  const warnings = (p: Project) => {
+    const o = solveProject(p);
+    if (!o.ok) throw new Error(JSON.stringify(o.problems));
+    return o.result.warnings.filter((w) => w.elementId === 'vfd');
+  };
+
+  it('warns, naming the drive and the motor, when an 11 kW drive feeds a 22 kW motor at light load', () => {
+    // Common practice (no source): a drive is rated at least for its motor's rated output. At 5 kW on
+    // the shaft the drive's own load check (output above its rating) does not fire; this one does.
+    const w = warnings(chain(11000, 22000, 5000));
+    expect(w).toHaveLength(1);
+    expect(w[0]!.code).toBe('rating-exceeded');
+    expect(w[0]!.message).toContain('drive "Fan drive" is rated 11.00 kW');
+    expect(w[0]!.message).toContain('22.00 kW rated output of motor "Fan motor"');
+    expect(w[0]!.message).not.toMatch(/"vfd"|"m"/);
+    // Through a cable the same.
+    expect(warnings(chain(11000, 22000, 5000, true))).toHaveLength(1);
+  });
+
+  it('is quiet when the drive is rated for the motor (22 kW on 22 kW, 30 kW on 22 kW)', () => {
+    // Common practice (no source): equal ratings are a matched pair.
+    expect(warnings(chain(22000, 22000, 15000))).toEqual([]);
+    expect(warnings(chain(30000, 22000, 15000))).toEqual([]);
+  });
+});

@@ -95,6 +95,40 @@ describe('adding', () => {
     expect(fromOf('inv')).toBe('cab-2');
   });
 
+  it('names a new element in sentence case after its kind, numbered when the name is taken; ids are made as before', () => {
+    // The kinds' words of web/format/labels.ts (common practice (no source)).
+    addBranch('bank', { id: 'dc-dc', kind: 'dc-dc', outputVoltage: 24, loss });
+    const added = draft.value!.elements.at(-1)!;
+    expect([added.id, added.name]).toEqual(['dc-dc-2', 'DC–DC converter']);
+    addBranch('inv', { id: 'load', kind: 'ac-va-load', apparentPower: 100, powerFactor: 0.9 });
+    expect(draft.value!.elements.at(-1)!.name).toBe('AC load'); // the bracketed "(VA)" of the kind's word left out
+    expect(lastChange.value).toBe('Added AC load');
+    insertBefore('inv', { id: 'motor-bus', kind: 'dc-bus', fixedLoss: 1 });
+    expect(draft.value!.elements.find((e) => e.id === 'motor-bus')!.name).toBe('DC bus');
+    insertBefore('inv', { id: 'bus', kind: 'dc-bus', fixedLoss: 1 });
+    expect(draft.value!.elements.find((e) => e.id === 'bus')!.name).toBe('DC bus 2');
+    insertAfter('cab', { id: 'cable', kind: 'cable', length: 2, resistancePerKm: 1 });
+    // The older unnamed cable "cab" shows its id; "Cable" is still free.
+    expect(draft.value!.elements.find((e) => e.id === 'cable')!.name).toBe('Cable');
+    // A name given with the element is kept.
+    addBranch('bank', { id: 'x', name: 'Bilge pump feed', kind: 'dc-load', power: 5 });
+    expect(draft.value!.elements.at(-1)!.name).toBe('Bilge pump feed');
+    expect(solved()).toBe(true);
+  });
+
+  it('numbers a name taken by an older element shown by its id, whatever its case', () => {
+    addBranch('dc-dc', { id: 'dc-dc', kind: 'dc-dc', outputVoltage: 5, loss });
+    addBranch('dc-dc', { id: 'radio', kind: 'dc-load', power: 5 });
+    // "radio" has no name: the new load is "DC load"; the next one "DC load 2".
+    addBranch('dc-dc', { id: 'radio', kind: 'dc-load', power: 5 });
+    const names = draft.value!.elements.filter((e) => e.kind === 'dc-load' && e.id !== 'radio').map((e) => e.name);
+    expect(names).toEqual(['DC load', 'DC load 2']);
+    // An older unnamed element shown by its id "cable" takes "Cable": a new cable is "Cable 2".
+    loadProject({ ...chain(), elements: [...chain().elements, { id: 'cable', kind: 'cable', from: 'dc-dc', length: 1, resistancePerKm: 1 }] }, { kind: 'new', title: 't' });
+    insertAfter('bank', { id: 'cable', kind: 'cable', length: 1, resistancePerKm: 1 });
+    expect(draft.value!.elements.find((e) => e.id === 'cable-2')!.name).toBe('Cable 2');
+  });
+
   it('refuses to insert before the source', () => {
     const r = insertBefore('bank', cable);
     expect(r.ok).toBe(false);

@@ -14,6 +14,9 @@ import {
   nominalPorts,
   offeredTemplates,
   projectFrequency,
+  DRIVE_RATINGS,
+  driveRatingFor,
+  motorRatedVoltage,
   templateFor,
   templatesAfter,
 } from '../../web/editor/templates.ts';
@@ -145,6 +148,93 @@ describe('project conventions', () => {
 
   it('every source template solves on its own', () => {
     for (const s of SOURCE_TEMPLATES) expect(solves(project([structuredClone(s.element)])), s.label).toBe('ok');
+  });
+});
+
+describe('defaults taken from the chain', () => {
+  /** The motor offered after `feederId` in `p`. */
+  const motorAfter = (p: DraftProject, feederId: string) => offeredTemplates(p, 'branch', feederId).find((t) => t.kind === 'motor')!.element;
+  const driveRated = (e: DraftElement) => (e['loss'] as { ratedPower: number }).ratedPower;
+
+  it('a motor on a 480 V NEC feed is rated 460 V; on a 400 V IEC feed 400 V', () => {
+    // NEC Table 430.250 column / NEMA MG 1 utilization voltage: a 480 V system's motors are rated 460 V.
+    expect(motorAfter(project([source('grid-3-480-60')]), 'supply')['ratedVoltage']).toBe(460);
+    // IEC 60038 system voltage 400 V: IEC motors are rated at it.
+    expect(motorAfter(project([source('grid-3-400')]), 'supply')['ratedVoltage']).toBe(400);
+    // 1φ: 230 V IEC system → 230 V; 120/240 V service (modelled at 240 V) → 230 V (NEC Table 430.248 column).
+    expect(motorAfter(project([source('grid-1-230')]), 'supply')['ratedVoltage']).toBe(230);
+    expect(motorAfter(project([source('grid-1-240-60')]), 'supply')['ratedVoltage']).toBe(230);
+  });
+
+  it('maps each North American system voltage to the motor voltage of the NEC tables, and keeps IEC voltages', () => {
+    // NEC Tables 430.248 / 430.250 columns (115, 200, 230, 460, 575 V) against the system voltages
+    // 120, 208, 240, 480, 600 V (NEMA MG 1 rated voltages).
+    const us = (v: number) => motorRatedVoltage({ kind: 'ac3', voltage: v, frequency: 60 }, true);
+    expect([120, 208, 240, 480, 600].map(us)).toEqual([115, 200, 230, 460, 575]);
+    // A voltage the map does not hold is kept (from memory: 4160 V systems take 4000 V motors; not mapped here).
+    expect(us(4160)).toBe(4160);
+    // IEC 60038: 230 / 400 / 690 V motors on 230 / 400 / 690 V systems.
+    expect([230, 400, 690].map((v) => motorRatedVoltage({ kind: 'ac3', voltage: v, frequency: 50 }, false))).toEqual([230, 400, 690]);
+    expect(motorRatedVoltage({ kind: 'ac3', frequency: 50 }, false)).toBeUndefined();
+  });
+
+  it('a motor behind a drive takes the drive\'s supply voltage class, and behind a 208 V transformer 200 V', () => {
+    const p = project([source('grid-3-480-60')]);
+    const drive = offeredTemplates(p, 'branch', 'supply').find((t) => t.kind === 'drive')!.element;
+    p.elements.push({ ...drive, from: 'supply' });
+    // The drive's output follows its 480 V supply; NEC Table 430.250: 460 V motor.
+    expect(drive['outputVoltage']).toBe(480);
+    expect(motorAfter(p, 'drive')['ratedVoltage']).toBe(460);
+    const q = project([source('grid-3-480-60')]);
+    const tx = offeredTemplates(q, 'branch', 'supply').find((t) => t.kind === 'transformer')!.element;
+    q.elements.push({ ...tx, from: 'supply' });
+    // NEMA MG 1 / NEC Table 430.250: a 208 V system's motors are rated 200 V.
+    expect(motorAfter(q, 'transformer')['ratedVoltage']).toBe(200);
+    expect(solveProject({ ...q, elements: [...q.elements, { ...motorAfter(q, 'transformer'), from: 'transformer' }] } as never).ok).toBe(true);
+  });
+
+  it('a drive inserted in front of a 22 kW motor is rated 22 kW (the next listed rating, never smaller)', () => {
+    const p = project([source('grid-3-400'), { id: 'm', kind: 'motor', from: 'supply', ratedOutput: 22000, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 }]);
+    // IEC motor rating series (common practice (no source)): 22 kW is listed, so the drive is 22 kW, not the 11 kW preset.
+    const before = offeredTemplates(p, 'before', 'm').find((t) => t.kind === 'drive')!.element;
+    expect(driveRated(before)).toBe(22000);
+    // Inserted after the supply (between it and the motor): the same.
+    expect(driveRated(offeredTemplates(p, 'after', 'supply').find((t) => t.kind === 'drive')!.element)).toBe(22000);
+    // A new branch feeds no motor: the 11 kW preset (demo default, common practice (no source)).
+    expect(driveRated(offeredTemplates(p, 'branch', 'supply').find((t) => t.kind === 'drive')!.element)).toBe(11000);
+    // Through a cable, and a rating between the listed ones: 20 kW → 22 kW; 400 kW (above the list) → 400 kW.
+    const q = project([
+      source('grid-3-400'),
+      { id: 'run', kind: 'cable', from: 'supply', length: 10, resistancePerKm: 0.5 },
+      { id: 'm', kind: 'motor', from: 'run', ratedOutput: 20000, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 },
+    ]);
+    expect(driveRated(offeredTemplates(q, 'before', 'run').find((t) => t.kind === 'drive')!.element)).toBe(22000);
+    expect(driveRatingFor(400000)).toBe(400000);
+    expect(driveRatingFor(370)).toBe(370);
+    // The series runs 0.37 … 355 kW (IEC motor ratings, common practice (no source)).
+    expect([DRIVE_RATINGS[0], DRIVE_RATINGS.at(-1)]).toEqual([370, 355000]);
+    // The chain with the sized drive solves.
+    loadProject(p, { kind: 'new', title: 'drive in front' });
+    expect(insertBefore('m', before).ok).toBe(true);
+    expect(outcome.value!.ok).toBe(true);
+  });
+
+  it('a motor added after a drive the user rated 5.5 kW is at most 5.5 kW; the drive is left as set', () => {
+    const p = project([
+      source('grid-3-400'),
+      { id: 'vfd', kind: 'drive', from: 'supply', outputVoltage: 400, outputFrequency: 50, inputPowerFactor: 0.95, loss: { model: 'constant', efficiency: 0.97, ratedPower: 5500 } },
+    ]);
+    // IEC motor rating series (common practice (no source)): the largest at or below 5.5 kW is 5.5 kW (the preset is 7.5 kW).
+    expect(motorAfter(p, 'vfd')['ratedOutput']).toBe(5500);
+    expect(driveRated(p.elements[1]!)).toBe(5500);
+    // On 60 Hz the NEMA hp series (NEMA MG 1 ratings, from memory): 7.5 hp = 5.59 kW is above 5.5 kW, so 5 hp = 3728.5 W.
+    const us = project([
+      source('grid-3-480-60'),
+      { id: 'vfd', kind: 'drive', from: 'supply', outputVoltage: 480, outputFrequency: 60, inputPowerFactor: 0.95, loss: { model: 'constant', efficiency: 0.97, ratedPower: 5500 } },
+    ]);
+    expect(motorAfter(us, 'vfd')['ratedOutput']).toBe(3728.5);
+    // Behind the 11 kW preset drive the 7.5 kW preset motor stays (demo default, common practice (no source)).
+    expect(motorAfter(project([source('grid-3-400'), { ...p.elements[1]!, loss: { model: 'constant', efficiency: 0.97, ratedPower: 11000 } }]), 'vfd')['ratedOutput']).toBe(7500);
   });
 });
 

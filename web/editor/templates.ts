@@ -11,6 +11,12 @@
  * `nominalOutput` trait from the engine's registry (core/kinds/), the same one the conductor sizing
  * reads; nothing here computes an engineering result. The pump template's flow is chosen with the engine's own
  * shaft-power function (core/physics/pump-fan.ts).
+ *
+ * Defaults taken from the chain: a motor's rated voltage from the nominal voltage of the port that
+ * feeds it (motorRatedVoltage: NEC/NEMA motor voltages in North American projects, the system voltage
+ * for IEC); a drive offered in front of motors is rated for them (offeredTemplates: the next listed
+ * drive rating up from their rated output); a motor offered behind a drive stays within its rating.
+ * A drive the user set is never changed here: the engine warns when it is smaller than its motors.
  */
 import { type ElementKind, KINDS, type NominalPort, type PortKind, pumpShaftPower } from '../../core/page.ts';
 import type { DraftElement, DraftProject } from '../state/editor.ts';
@@ -104,6 +110,90 @@ export function nominalPorts(project: DraftProject): Map<string, FeedingPort> {
   return out;
 }
 
+/**
+ * A motor's rated voltage on a port of nominal (system) voltage `system`. North American motors are
+ * rated at the utilization voltage, a little below the system's nominal voltage: the voltages of
+ * NEC Table 430.250 (3φ) and 430.248 (1φ) and NEMA MG 1 (motors on a 480 V system are rated 460 V,
+ * on 208 V 200 V, on 240 V 230 V, on 600 V 575 V, on 120 V 115 V). IEC motors are rated at the
+ * system voltage (IEC 60038: 230/400 V). Voltages outside the map are kept as they are.
+ */
+const NEC_MOTOR_VOLTAGE: ReadonlyMap<number, number> = new Map([
+  [120, 115],
+  [208, 200],
+  [240, 230],
+  [480, 460],
+  [600, 575],
+]);
+
+/** The rated voltage a motor fed at `port` is given (undefined when the port's voltage is not known). */
+export function motorRatedVoltage(port: FeedingPort, us: boolean): number | undefined {
+  if (port.voltage === undefined) return undefined;
+  return us ? (NEC_MOTOR_VOLTAGE.get(port.voltage) ?? port.voltage) : port.voltage;
+}
+
+/**
+ * Common drive (and motor) ratings, W: the IEC motor rating series 0.37 … 355 kW that drive makers
+ * list their frames by (common practice (no source)).
+ */
+export const DRIVE_RATINGS: readonly number[] = [
+  370, 550, 750, 1100, 1500, 2200, 3000, 4000, 5500, 7500, 11000, 15000, 18500, 22000, 30000, 37000, 45000, 55000, 75000, 90000, 110000, 132000,
+  160000, 200000, 250000, 315000, 355000,
+];
+
+/** NEMA MG 1 standard motor ratings, hp (1 … 300 hp), for 60 Hz motors (from memory: MG 1 Part 10 rating series). */
+const NEMA_HP: readonly number[] = [1, 1.5, 2, 3, 5, 7.5, 10, 15, 20, 25, 30, 40, 50, 60, 75, 100, 125, 150, 200, 250, 300];
+/** 1 hp = 745.7 W (the mechanical horsepower, 550 ft·lbf/s). */
+const HP = 745.7;
+
+/** The largest standard motor rating, W, at or below `power` W: NEMA hp on 60 Hz, the IEC kW series otherwise. */
+function motorRatingWithin(power: number, f: 50 | 60): number {
+  const series = f === 60 ? NEMA_HP.map((hp) => Number((hp * HP).toFixed(1))) : DRIVE_RATINGS;
+  return [...series].reverse().find((r) => r <= power * (1 + 1e-9)) ?? power;
+}
+
+/** The smallest listed drive rating at or above `power` W; above the list, `power` itself rounded up to a kilowatt. */
+export function driveRatingFor(power: number): number {
+  return DRIVE_RATINGS.find((r) => r >= power * (1 - 1e-9)) ?? Math.ceil(power / 1000) * 1000;
+}
+
+/** The rated power of a drive element (its loss model's rated power, or its IEC 61800-9-2 rated apparent power), if given. */
+export function driveRating(e: DraftElement | undefined): number | undefined {
+  if (e?.kind !== 'drive') return undefined;
+  const loss = e['loss'] as Record<string, unknown> | undefined;
+  const standard = e['standardLoss'] as Record<string, unknown> | undefined;
+  return num(loss?.['ratedPower']) ?? num(standard?.['ratedApparentPower']);
+}
+
+/**
+ * The total rated output of the motors `e` feeds, looking through pass-through stages (cables, buses)
+ * to the first motors below: what a drive put in front of `e` must carry. Undefined when none.
+ */
+function motorsFed(project: DraftProject, fed: readonly DraftElement[]): number | undefined {
+  let total: number | undefined;
+  const seen = new Set<string>();
+  const walk = (e: DraftElement) => {
+    if (seen.has(e.id)) return;
+    seen.add(e.id);
+    if (e.kind === 'motor') {
+      const r = num(e['ratedOutput']);
+      if (r !== undefined) total = (total ?? 0) + r;
+      return;
+    }
+    if (!KINDS.get(e.kind as ElementKind)?.passive) return;
+    for (const child of project.elements) if (child.from === e.id) walk(child);
+  };
+  for (const e of fed) walk(e);
+  return total;
+}
+
+/** A drive template rated for motors of `motors` W in all: the next listed rating up, never smaller than the motors. */
+function driveSizedFor(element: DraftElement, motors: number): DraftElement {
+  const rated = driveRatingFor(motors);
+  const loss = element['loss'] as Record<string, unknown> | undefined;
+  if (!loss || (num(loss['ratedPower']) ?? 0) >= rated) return element;
+  return { ...element, loss: { ...loss, ratedPower: rated } };
+}
+
 /** Round to a tidy number of watts for a default (two significant figures). */
 const tidy = (w: number) => Number(w.toPrecision(2));
 
@@ -182,9 +272,15 @@ export function templateFor(kind: ElementKind, ctx: TemplateContext): DraftEleme
     case 'motor':
       if (ac) {
         // IE3 (IEC 60034-30-1) on 50 Hz, NEMA Premium (MG 1 Table 12-12) on 60 Hz: the presets carry 4-pole motors.
+        // Phases: a motor has no phase field of its own; it runs on the port's (1φ or 3φ, the preset's size follows it).
         const three = port.kind === 'ac3';
-        const ratedOutput = f === 60 ? (three ? 7457 : 1491) : three ? 7500 : 2200; // 10 hp / 2 hp; 7.5 kW / 2.2 kW
-        t = { id: 'motor', kind, ratedOutput, efficiencyClass: f === 60 ? 'NEMA-premium' : 'IE3', poles: 4, ratedFrequency: f };
+        let ratedOutput = f === 60 ? (three ? 7457 : 1491) : three ? 7500 : 2200; // 10 hp / 2 hp; 7.5 kW / 2.2 kW
+        // Behind a drive the motor stays within the drive's rating (the user's drive is never changed here).
+        const drive = driveRating(feeder);
+        if (drive !== undefined && ratedOutput > drive) ratedOutput = motorRatingWithin(drive, f);
+        // Rated voltage from the port that feeds it (a drive's output follows its supply's voltage class).
+        const ratedVoltage = motorRatedVoltage(port, us);
+        t = { id: 'motor', kind, ratedOutput, ...(ratedVoltage !== undefined ? { ratedVoltage } : {}), efficiencyClass: f === 60 ? 'NEMA-premium' : 'IE3', poles: 4, ratedFrequency: f };
       }
       break;
     case 'cable':
@@ -281,7 +377,12 @@ export function offeredTemplates(project: DraftProject, op: AddOperation, target
   // A shaft drives one load here: a second one would share a motor sized for the first.
   if (op === 'branch' && port.kind === 'shaft' && project.elements.some((e) => e.from === feederId)) return [];
   const fed = op === 'after' ? project.elements.filter((e) => e.from === target.id) : op === 'before' ? [target] : [];
-  return templatesAfter({ port, project, feeder }).filter(({ kind, element }) => {
+  // A drive put in front of motors is rated for them.
+  const motors = motorsFed(project, fed);
+  const offered = templatesAfter({ port, project, feeder }).map((o) =>
+    o.kind === 'drive' && motors !== undefined ? { ...o, element: driveSizedFor(o.element, motors) } : o,
+  );
+  return offered.filter(({ kind, element }) => {
     if (fed.length === 0) return true;
     if (KINDS.get(kind)!.role === 'load') return false;
     // The new element's output must suit everything downstream of it, through pass-through stages (cables, buses).

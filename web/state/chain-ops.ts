@@ -7,6 +7,7 @@ import { PROJECT_VERSION } from '../../core/page.ts';
 import { FILE_LIMITS, withSuffix } from '../storage/limits.ts';
 import { clone, draft, edit, lastChange, loadProject, selectedId, type DraftElement, type DraftProject } from './draft.ts';
 import { elementsWords } from './draft-limits.ts';
+import { elementKindLabel } from '../format/labels.ts';
 import { childrenOf, elementName, freshId, subtreeIds } from './tree.ts';
 
 /** Result of a chain operation: done, or refused with a sentence saying why. */
@@ -17,8 +18,22 @@ function refuse(message: string): OperationOutcome {
   return { ok: false, message };
 }
 
+/**
+ * A new element's name: its kind's word in sentence case ("Motor", "DC–DC converter", without a
+ * bracketed note such as "(VA)"), with a number when another element already has it ("Motor 2").
+ */
+export function freshName(project: DraftProject, kind: string): string {
+  const base = elementKindLabel(kind).replace(/\s*\(.*\)$/, '') || 'Stage';
+  // Compared without case: an older element shown by its id "motor" takes "Motor" too.
+  const used = new Set(project.elements.map((e) => (typeof e.name === 'string' && e.name ? e.name : e.id).toLowerCase()));
+  if (!used.has(base.toLowerCase())) return base;
+  for (let n = 2; ; n++) if (!used.has(`${base} ${n}`.toLowerCase())) return `${base} ${n}`;
+}
+
+/** The element with an id unique in the project (made as before) and, when it has none, a name after its kind. */
 function withFreshId(project: DraftProject, element: DraftElement): DraftElement {
-  return { ...clone(element), id: freshId(project, element.id || element.kind) };
+  const named = typeof element.name === 'string' && element.name ? {} : { name: freshName(project, element.kind) };
+  return { ...clone(element), ...named, id: freshId(project, element.id || element.kind) };
 }
 
 /** Start a new project from scratch with its source. */

@@ -142,7 +142,7 @@ export const motorForm: KindForm = {
   fields: [
     name,
     { type: 'number', path: 'ratedOutput', label: 'Rated shaft output', quantity: 'shaft-power', required: true, default: 7500 },
-    { type: 'number', path: 'ratedVoltage', label: 'Rated voltage', quantity: 'voltage', required: false, help: `${LINE_TO_LINE} Used for the NEC Table 430.250 current.` },
+    { type: 'number', path: 'ratedVoltage', label: 'Rated voltage', quantity: 'voltage', required: false, help: `${LINE_TO_LINE} Used for the NEC Table 430.250 current. A new motor starts at a typical value from the voltage that feeds it (460 V on a 480 V system in North American practice): use the maker's figure.` },
     frequency('ratedFrequency', 'Rated frequency', false),
     {
       type: 'choice',
