@@ -44,14 +44,14 @@ export function portResult(port: PortInfo, v: Complex, s: Complex): PortResult {
 
 /** The elements node `i` feeds, looked through pass-through stages (cables, buses) to what they feed. */
 function fedThrough(order: readonly PlannedElement[], i: number): PlannedElement['element'][] {
+  // An explicit stack, not recursion: a chain may hold thousands of cables in a row.
   const out: PlannedElement['element'][] = [];
-  const walk = (j: number) => {
-    for (const k of order[j]!.children) {
-      if (order[k]!.spec.passive) walk(k);
-      else out.push(order[k]!.element);
-    }
-  };
-  walk(i);
+  const stack = [...order[i]!.children].reverse();
+  while (stack.length) {
+    const k = stack.pop()!;
+    if (order[k]!.spec.passive) stack.push(...[...order[k]!.children].reverse());
+    else out.push(order[k]!.element);
+  }
   return out;
 }
 
