@@ -17,6 +17,8 @@ export { elementNames, fieldWords, nonFiniteProblems } from './solve/finite.ts';
 export { issueMessage } from './solve/issue-messages.ts';
 export { demoProjects, type DemoProject } from './demos/index.ts';
 export { KINDS, studiesOf, type NominalPort } from './kinds/index.ts';
+export { driveRatedPower } from './kinds/drive.ts';
+export { WATTS_PER_HP } from './data/nema-mg1-12-12.ts';
 export { CHEMISTRIES, CHEMISTRY_PRESETS, type Chemistry, type ChemistryValues } from './data/battery-chemistries.ts';
 export { CODE_LETTERS } from './data/motor-code-letters.ts';
 export { MOTOR_CLASSES } from './physics/motor-rating.ts';

@@ -18,7 +18,7 @@
  * drive rating up from their rated output); a motor offered behind a drive stays within its rating.
  * A drive the user set is never changed here: the engine warns when it is smaller than its motors.
  */
-import { type ElementKind, KINDS, type NominalPort, type PortKind, pumpShaftPower } from '../../core/page.ts';
+import { type DriveStage, driveRatedPower, type ElementKind, KINDS, type NominalPort, type PortKind, pumpShaftPower, WATTS_PER_HP } from '../../core/page.ts';
 import type { DraftElement, DraftProject } from '../state/editor.ts';
 
 /** A port as the templates see it: its kind and, when known, nominal voltage (line-to-line on 3φ) and frequency. */
@@ -142,12 +142,10 @@ export const DRIVE_RATINGS: readonly number[] = [
 
 /** NEMA MG 1 standard motor ratings, hp (1 … 300 hp), for 60 Hz motors (from memory: MG 1 Part 10 rating series). */
 const NEMA_HP: readonly number[] = [1, 1.5, 2, 3, 5, 7.5, 10, 15, 20, 25, 30, 40, 50, 60, 75, 100, 125, 150, 200, 250, 300];
-/** 1 hp = 745.7 W (the mechanical horsepower, 550 ft·lbf/s). */
-const HP = 745.7;
 
 /** The largest standard motor rating, W, at or below `power` W: NEMA hp on 60 Hz, the IEC kW series otherwise. */
 function motorRatingWithin(power: number, f: 50 | 60): number {
-  const series = f === 60 ? NEMA_HP.map((hp) => Number((hp * HP).toFixed(1))) : DRIVE_RATINGS;
+  const series = f === 60 ? NEMA_HP.map((hp) => Number((hp * WATTS_PER_HP).toFixed(1))) : DRIVE_RATINGS;
   return [...series].reverse().find((r) => r <= power * (1 + 1e-9)) ?? power;
 }
 
@@ -156,12 +154,14 @@ export function driveRatingFor(power: number): number {
   return DRIVE_RATINGS.find((r) => r >= power * (1 - 1e-9)) ?? Math.ceil(power / 1000) * 1000;
 }
 
-/** The rated power of a drive element (its loss model's rated power, or its IEC 61800-9-2 rated apparent power), if given. */
+/**
+ * The rated power of a drive element, if given: the drive kind's own reading (its loss model's rated
+ * power, or its IEC 61800-9-2 rated apparent power; core/kinds/drive.ts), the one the engine's
+ * undersized-drive warning uses, kept only when the draft holds a finite number there.
+ */
 export function driveRating(e: DraftElement | undefined): number | undefined {
   if (e?.kind !== 'drive') return undefined;
-  const loss = e['loss'] as Record<string, unknown> | undefined;
-  const standard = e['standardLoss'] as Record<string, unknown> | undefined;
-  return num(loss?.['ratedPower']) ?? num(standard?.['ratedApparentPower']);
+  return num(driveRatedPower(e as unknown as DriveStage));
 }
 
 /**
