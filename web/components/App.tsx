@@ -5,10 +5,10 @@ import { SaveLine, StorageAlerts, StorageDetails } from './StorageStatus.tsx';
 import { Preferences } from './Preferences.tsx';
 import { ProblemList } from './ProblemList.tsx';
 import { CableTable, ElementTable, EnergyBalance, MethodNote, PortTable, WarningList } from './Results.tsx';
-import { useOffscreenLag } from './lag.ts';
+import { PanelDisclosure, PanelShelf } from './PanelShelf.tsx';
+import { AnswersStrip } from './answers/AnswersStrip.tsx';
 import { lazy, memo, Suspense } from 'preact/compat';
-import { useEffect, useState } from 'preact/hooks';
-import { type Solved, type SolveResult, studiesOf } from '../../core/page.ts';
+import { useEffect } from 'preact/hooks';
 import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
 import { crashMessage, draft, draftOrigin, draftProblems, lastSolved, openCount, resultsState } from '../state/editor.ts';
 
@@ -21,70 +21,8 @@ const ClientReport = lazy(() => import('./ClientReport.tsx'));
 // re-rendering after an edit does not re-render every card and field again.
 const ChainEditor = memo(lazy(() => import('./ChainEditor.tsx')));
 
-/** The battery, conductor and machines panels: each module loads the first time its panel is opened. */
-const BatteryPanel = lazy(() => import('./BatteryPanel.tsx'));
-const ConductorPanel = lazy(() => import('./ConductorPanel.tsx'));
-const MachinesPanel = lazy(() => import('./MachinesPanel.tsx'));
-const StartingPanel = lazy(() => import('./StartingPanel.tsx'));
 /** Project-level settings (name, description, voltage-drop limits): loaded when opened. */
 const ProjectForm = lazy(() => import('./ProjectForm.tsx').then((m) => ({ default: m.ProjectForm })));
-
-/** A disclosure whose content (a lazily loaded panel) is rendered only while it is open. */
-function PanelDisclosure({ id, title, hint, children }: { id: string; title: string; hint: string; children: () => preact.ComponentChildren }) {
-  const [open, setOpen] = useState(false);
-  return (
-    <details class="panel" data-testid={`panel-${id}`} onToggle={(e) => setOpen((e.currentTarget as HTMLDetailsElement).open)}>
-      <summary class="panel__summary">
-        <span class="panel__title">{title}</span>
-        <span class="panel__hint">{hint}</span>
-      </summary>
-      {open && <Suspense fallback={<p class="note">Opening…</p>}>{children()}</Suspense>}
-    </details>
-  );
-}
-
-/**
- * The panels that apply to the open project (a battery source with a bank; sized conductors; always
- * the machines and cost panel), read from the last valid solved pair the panels study.
- */
-function PanelShelf({ solved: latest }: { solved: Solved }) {
-  // An open panel scrolled out of view follows the edits when the page is idle (lag.ts).
-  const { box, shown: solved } = useOffscreenLag(latest);
-  const { project, result } = solved;
-  // Which studies apply: the kinds' `studies` traits (core/kinds). The backup study needs the bank itself.
-  const studies = studiesOf(project.elements);
-  const battery = studies.has('backup') && project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined);
-  const conductors = result.elements.some((e) => e.conductor);
-  const machines = studies.has('machines');
-  return (
-    <section class="panels skip-offscreen" aria-label="Studies of this project" data-testid="panels" ref={box}>
-      {battery && (
-        <PanelDisclosure id="battery" title="Battery backup" hint="runtime, why not Wh ÷ W, bank sizing, recharge, plot">
-          {() => <BatteryPanel />}
-        </PanelDisclosure>
-      )}
-      {conductors && (
-        <PanelDisclosure id="conductor" title="Conductor sizing" hint="size and why, ampacity, device, drop, heat, working">
-          {() => <ConductorPanel solved={solved} />}
-        </PanelDisclosure>
-      )}
-      <PanelDisclosure
-        id="machines"
-        title={machines ? 'Machines, power factor and running cost' : 'Power factor and running cost'}
-        hint={machines ? 'motors, drives, pumps, pump duty study, capacitor bank, cost of losses' : 'capacitor bank, cost of losses per year'}
-      >
-        {() => <MachinesPanel />}
-      </PanelDisclosure>
-      <PanelDisclosure
-        id="starting"
-        title="Motor starting and fault current"
-        hint="will it start, fault current at each point, device interrupting ratings, traps"
-      >
-        {() => <StartingPanel solved={solved} />}
-      </PanelDisclosure>
-    </section>
-  );
-}
 
 /** Says plainly when the results on screen are not those of the inputs on screen. */
 function StaleNotice() {
@@ -126,6 +64,7 @@ function ShownProject() {
         <h2 id="project-heading">{shownTitle.value}</h2>
         {description && <p class="project__summary">{description}</p>}
       </header>
+      {result && <AnswersStrip result={result} stale={stale} />}
       <Suspense fallback={<p class="note">Opening the chain editor…</p>}><ChainEditor /></Suspense>
       <PanelDisclosure id="project-settings" title="Project settings" hint="name, description, voltage-drop limits">
         {() => <ProjectForm />}

@@ -1,0 +1,86 @@
+/**
+ * The study panels under the results (battery backup, conductor sizing, machines and cost, starting and
+ * fault current) and the disclosure each sits in. A panel opens (and scrolls into view) when the user
+ * opens it, or when another part of the page asks for its working through `web/state/working.ts`.
+ */
+import { lazy, Suspense } from 'preact/compat';
+import { useEffect, useRef, useState } from 'preact/hooks';
+import { type Solved, studiesOf } from '../../core/page.ts';
+import { useOffscreenLag } from './lag.ts';
+import { workingRequest } from '../state/working.ts';
+
+/** The battery, conductor and machines panels: each module loads the first time its panel is opened. */
+const BatteryPanel = lazy(() => import('./BatteryPanel.tsx'));
+const ConductorPanel = lazy(() => import('./ConductorPanel.tsx'));
+const MachinesPanel = lazy(() => import('./MachinesPanel.tsx'));
+const StartingPanel = lazy(() => import('./StartingPanel.tsx'));
+/**
+ * A disclosure whose content (a lazily loaded panel) is rendered only while it is open. It opens,
+ * scrolls into view and takes the focus when a figure elsewhere asks for its working (`showWorking`).
+ */
+export function PanelDisclosure({ id, title, hint, children }: { id: string; title: string; hint: string; children: () => preact.ComponentChildren }) {
+  const [open, setOpen] = useState(false);
+  const ref = useRef<HTMLDetailsElement>(null);
+  const request = workingRequest.value;
+  useEffect(() => {
+    const box = ref.current;
+    if (!request || request.panel !== id || !box) return;
+    box.open = true;
+    setOpen(true);
+    box.scrollIntoView({ block: 'start' });
+    box.querySelector<HTMLElement>('summary')?.focus({ preventScroll: true });
+  }, [request, id]);
+  return (
+    <details ref={ref} class="panel" data-testid={`panel-${id}`} onToggle={(e) => setOpen((e.currentTarget as HTMLDetailsElement).open)}>
+      <summary class="panel__summary">
+        <span class="panel__title">{title}</span>
+        <span class="panel__hint">{hint}</span>
+      </summary>
+      {open && <Suspense fallback={<p class="note">Opening…</p>}>{children()}</Suspense>}
+    </details>
+  );
+}
+
+/**
+ * The panels that apply to the open project (a battery source with a bank; sized conductors; always
+ * the machines and cost panel), read from the last valid solved pair the panels study.
+ */
+export function PanelShelf({ solved: latest }: { solved: Solved }) {
+  // An open panel scrolled out of view follows the edits when the page is idle (lag.ts).
+  const { box, shown: solved } = useOffscreenLag(latest);
+  const { project, result } = solved;
+  // Which studies apply: the kinds' `studies` traits (core/kinds). The backup study needs the bank itself.
+  const studies = studiesOf(project.elements);
+  const battery = studies.has('backup') && project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined);
+  const conductors = result.elements.some((e) => e.conductor);
+  const machines = studies.has('machines');
+  return (
+    <section class="panels skip-offscreen" aria-label="Studies of this project" data-testid="panels" ref={box}>
+      {battery && (
+        <PanelDisclosure id="battery" title="Battery backup" hint="runtime, why not Wh ÷ W, bank sizing, recharge, plot">
+          {() => <BatteryPanel />}
+        </PanelDisclosure>
+      )}
+      {conductors && (
+        <PanelDisclosure id="conductor" title="Conductor sizing" hint="size and why, ampacity, device, drop, heat, working">
+          {() => <ConductorPanel solved={solved} />}
+        </PanelDisclosure>
+      )}
+      <PanelDisclosure
+        id="machines"
+        title={machines ? 'Machines, power factor and running cost' : 'Power factor and running cost'}
+        hint={machines ? 'motors, drives, pumps, pump duty study, capacitor bank, cost of losses' : 'capacitor bank, cost of losses per year'}
+      >
+        {() => <MachinesPanel />}
+      </PanelDisclosure>
+      <PanelDisclosure
+        id="starting"
+        title="Motor starting and fault current"
+        hint="will it start, fault current at each point, device interrupting ratings, traps"
+      >
+        {() => <StartingPanel solved={solved} />}
+      </PanelDisclosure>
+    </section>
+  );
+}
+
