@@ -14,8 +14,9 @@ if (framedByAnotherOrigin(window as unknown as Parameters<typeof framedByAnother
   // Inside another origin's frame: no app, no storage, no service worker (web/frame-guard.ts).
   showFramedNotice(root, window.location.href);
 } else {
-  // The engine (validation, solve, conductor sizing) loads beside the first paint and the storage read.
-  void loadEngine();
+  // The engine (validation, solve, conductor sizing) loads beside the first paint and the storage read;
+  // a failure is shown in place of the results (web/state/engine.ts `engineFailure`).
+  loadEngine().catch(() => {});
   render(<App />, root);
   startStorage();
   void registerServiceWorker();

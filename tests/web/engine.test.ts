@@ -6,8 +6,8 @@
  */
 import { afterEach, describe, expect, it } from 'vitest';
 import { demoProjects } from '../../core/demos/index.ts';
-import { engine, loadEngine } from '../../web/state/engine.ts';
-import { draft, lastSolved, loadProject, outcome, resultsState, setField, type DraftProject } from '../../web/state/editor.ts';
+import { engine, engineFailure, loadEngine } from '../../web/state/engine.ts';
+import { crashMessage, draft, lastSolved, loadProject, outcome, resultsState, setField, type DraftProject } from '../../web/state/editor.ts';
 
 const hut = demoProjects.find((d) => d.id === 'hillside-relay-hut')!.project as DraftProject;
 
@@ -41,5 +41,23 @@ describe('the engine on demand', () => {
 
   it('is fetched once: later calls share the first load', async () => {
     expect(await loadEngine()).toBe(await loadEngine());
+  });
+});
+
+describe('the engine that cannot be loaded', () => {
+  afterEach(() => {
+    engineFailure.value = null;
+  });
+
+  it('shows why in place of results, and field writes say so; its arrival clears it', async () => {
+    engine.value = null;
+    engineFailure.value = 'The calculation could not be loaded. Check the connection and reload the page.';
+    loadProject(hut, { kind: 'demo', title: hut.name, demoId: 'hillside-relay-hut' });
+    expect(crashMessage.value).toMatch(/could not be loaded/);
+    expect(lastSolved.value).toBeNull();
+    expect(setField('fridge', 'name', 'Cold box')).toMatch(/could not be loaded/);
+    engine.value = await loadEngine();
+    expect(crashMessage.value).toBeNull();
+    expect(outcome.value?.ok).toBe(true);
   });
 });

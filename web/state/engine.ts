@@ -12,14 +12,29 @@ export type Engine = typeof import('./engine-lazy.ts');
 /** The loaded engine, or null while it is on its way. */
 export const engine = signal<Engine | null>(null);
 
+/**
+ * Why the engine could not be loaded (its files could not be fetched: offline before the app was
+ * ever stored for offline use, or a new version replaced them), or null. The solution shows it in
+ * place of results; the next `loadEngine()` tries again.
+ */
+export const engineFailure = signal<string | null>(null);
+
 let loading: Promise<Engine> | undefined;
 
 /** Fetch the engine once (later calls share the first); the signal is set when it arrives. */
 export function loadEngine(): Promise<Engine> {
-  loading ??= import('./engine-lazy.ts').then((m) => {
-    engine.value = m;
-    return m;
-  });
+  loading ??= import('./engine-lazy.ts').then(
+    (m) => {
+      engineFailure.value = null;
+      engine.value = m;
+      return m;
+    },
+    (error: unknown) => {
+      loading = undefined;
+      engineFailure.value = 'The calculation could not be loaded. Check the connection and reload the page.';
+      throw error;
+    },
+  );
   return loading;
 }
 

@@ -5,7 +5,7 @@
  * an invalid value.
  */
 import { PROJECT_LEVEL, type Problem } from '../../core/page.ts';
-import { engine } from './engine.ts';
+import { engine, engineFailure } from './engine.ts';
 import { clone, commit, draft, setAt, type DraftProject } from './draft.ts';
 import { newLimitIssue } from './draft-limits.ts';
 import { fieldKey, setFieldError } from './field-errors.ts';
@@ -34,7 +34,7 @@ export function setField(elementId: string, path: string, value: unknown, label?
   if (!current) return 'No project is open.';
   // Nothing enters the draft unchecked: before the engine has arrived (web/state/engine.ts, a
   // moment after the page opens) a field write is refused and the field keeps its text.
-  if (!engine.value) return 'The calculation is still loading: try again in a moment.';
+  if (!engine.value) return engineFailure.value ?? 'The calculation is still loading: try again in a moment.';
   // A new project object with a copy of the one element (or of the project's own fields) that
   // changes; the other elements are shared with the draft, so a memo'd view of an unchanged stage
   // sees the same object and skips its work.

@@ -8,7 +8,7 @@
  */
 import { computed, effect, signal } from '@preact/signals';
 import type { Problem, Solved, SolveOutcome } from '../../core/page.ts';
-import { engine } from './engine.ts';
+import { engine, engineFailure } from './engine.ts';
 import { draft, openCount, type DraftProject } from './draft.ts';
 import { fieldErrors } from './field-errors.ts';
 
@@ -38,7 +38,10 @@ export const outcome = computed<SolveOutcome | { ok: false; crashed: string } | 
   const known = solvedDrafts.get(p);
   if (known) return known;
   const e = engine.value;
-  if (!e) return null;
+  if (!e) {
+    const failure = engineFailure.value;
+    return failure ? { ok: false, crashed: failure } : null;
+  }
   try {
     return e.solveProject(p);
   } catch (error) {
