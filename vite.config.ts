@@ -80,6 +80,8 @@ export default defineConfig({
         test: {
           name: 'unit',
           include: ['tests/**/*.test.ts'],
+          // The page's engine loads on demand (web/state/engine.ts); the page-state tests have it loaded.
+          setupFiles: ['tests/web/engine.setup.ts'],
           // Benchmarks belong to this project only, so `vitest bench` runs each of them once.
           benchmark: { include: ['tests/**/*.bench.ts'] },
           exclude: ['tests/browser/**', 'tests/reference/**', 'tests/properties/**', '**/node_modules/**'],
@@ -93,7 +95,13 @@ export default defineConfig({
         extends: true,
         // Properties run hundreds of cases each; on a loaded CI machine one that takes 0.7 s alone took
         // over Vitest's default 5 s. A hang is still caught (the hostile-input property also times each case).
-        test: { name: 'properties', include: ['tests/properties/**/*.test.ts'], testTimeout: 30_000, benchmark: { include: [] } },
+        test: {
+          name: 'properties',
+          include: ['tests/properties/**/*.test.ts'],
+          setupFiles: ['tests/web/engine.setup.ts'],
+          testTimeout: 30_000,
+          benchmark: { include: [] },
+        },
       },
       {
         extends: true,

@@ -4,6 +4,7 @@ import { App } from './components/App.tsx';
 import './styles.css';
 import './print.css';
 import { startStorage } from './storage/session.ts';
+import { loadEngine } from './state/engine.ts';
 import { registerServiceWorker } from './sw-register.ts';
 import { framedByAnotherOrigin, showFramedNotice } from './frame-guard.ts';
 
@@ -13,6 +14,9 @@ if (framedByAnotherOrigin(window as unknown as Parameters<typeof framedByAnother
   // Inside another origin's frame: no app, no storage, no service worker (web/frame-guard.ts).
   showFramedNotice(root, window.location.href);
 } else {
+  // The engine (validation, solve, conductor sizing) loads beside the first paint and the storage read;
+  // a failure is shown in place of the results (web/state/engine.ts `engineFailure`).
+  loadEngine().catch(() => {});
   render(<App />, root);
   startStorage();
   void registerServiceWorker();

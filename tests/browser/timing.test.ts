@@ -19,9 +19,17 @@
  * - worst phase: the edit comes right after a paint, so one whole frame of waiting is in every
  *   figure (its floor is one frame, ~16.7 ms at 60 Hz).
  * The medians go to the console and to tests/.artifacts/edit-to-paint.json.
+ *
+ * Where the time goes: one more run per view is traced (Chromium's timeline through a CDP session)
+ * and each edit's frame is split into the main thread's parts: the script of the edit's own task
+ * after the edit (input handler, solve, signals, Preact's render), other script before the paint
+ * (animation-frame callbacks), style and layout, and paint (pre-paint, paint, layerize, commit),
+ * each a median over the edits (`breakdown` in the artifact). Tracing adds a little to every part,
+ * so these are read as shares, not as the figures above.
  */
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
+import { loadavg } from 'node:os';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp } from './harness.ts';
@@ -99,6 +107,7 @@ const PROBE = `async ({ selector, values, edits, edit, phase, seed, parts }) => 
     const before = edit ? texts() : null;
     if (edit) input.value = values[i % 2];
     const t0 = performance.now();
+    if (edit) performance.mark('joulepath-edit');
     if (edit) input.dispatchEvent(new Event('input', { bubbles: true }));
     else document.body.dispatchEvent(new Event('joulepath-nothing'));
     const t1 = await afterPaint();
@@ -145,27 +154,99 @@ interface Figures {
   onScreen: string[];
   /** From the edit until every part, on screen or not, shows the new figures (median). */
   wholePageMedian: number;
+  /** Where the time of the edit's frame goes, from a traced run (random phase only). */
+  breakdown?: Breakdown;
+}
+
+/** One edit's frame on the main thread (ms), from the trace: see `frameParts`. */
+interface Breakdown {
+  /** The edit's own task from the edit on: input handler, solve, signals, Preact's render. */
+  editScript: number;
+  /** Other script before the paint (animation-frame callbacks, timers). */
+  otherScript: number;
+  /** Style recalculation and layout. */
+  styleLayout: number;
+  /** Pre-paint, paint, layerize and commit. */
+  paint: number;
+  /** From the edit to the end of the frame's commit. */
+  frame: number;
+}
+
+interface TraceEvent {
+  name: string;
+  ph: string;
+  ts: number;
+  dur?: number;
+  pid: number;
+  tid: number;
+  args?: { data?: { type?: string } };
+}
+
+/**
+ * Splits each edit's frame (from the 'joulepath-edit' mark to the end of the first commit after it,
+ * on the renderer's main thread) into the parts of `Breakdown`, and returns their medians.
+ */
+function frameParts(events: TraceEvent[]): Breakdown & { edits: number } {
+  const marks = events.filter((e) => e.name === 'joulepath-edit');
+  const input = events.find((e) => e.name === 'EventDispatch' && e.args?.data?.type === 'input');
+  if (!input || marks.length === 0) throw new Error('the trace holds no edit');
+  const main = events.filter((e) => e.pid === input.pid && e.tid === input.tid && e.ph === 'X' && e.dur !== undefined);
+  const end = (e: TraceEvent) => e.ts + (e.dur ?? 0);
+  const commits = main.filter((e) => e.name === 'Commit').map(end).sort((a, b) => a - b);
+  const tasks = main.filter((e) => e.name === 'RunTask');
+  const parts = { editScript: [] as number[], otherScript: [] as number[], styleLayout: [] as number[], paint: [] as number[], frame: [] as number[] };
+  const sum = (list: TraceEvent[], names: string[]) => list.filter((e) => names.includes(e.name)).reduce((s, e) => s + (e.dur ?? 0), 0) / 1000;
+  for (const mark of marks) {
+    const stop = commits.find((c) => c > mark.ts);
+    if (stop === undefined) continue;
+    const own = tasks.find((t) => t.ts <= mark.ts && end(t) >= mark.ts);
+    const ownEnd = own ? end(own) : mark.ts;
+    const inFrame = main.filter((e) => e.ts >= ownEnd && e.ts < stop);
+    parts.editScript.push((ownEnd - mark.ts) / 1000);
+    parts.otherScript.push(sum(inFrame, ['FunctionCall', 'TimerFire']));
+    parts.styleLayout.push(sum(inFrame, ['UpdateLayoutTree', 'Layout']));
+    parts.paint.push(sum(inFrame, ['PrePaint', 'Paint', 'Layerize', 'Commit']) - sum(inFrame.filter((e) => e.name === 'Paint' && inFrame.some((o) => o !== e && o.name === 'Paint' && o.ts <= e.ts && end(o) >= end(e))), ['Paint']));
+    parts.frame.push((stop - mark.ts) / 1000);
+  }
+  const median = (a: number[]) => quantile([...a].sort((x, y) => x - y), 0.5);
+  return {
+    editScript: median(parts.editScript),
+    otherScript: median(parts.otherScript),
+    styleLayout: median(parts.styleLayout),
+    paint: median(parts.paint),
+    frame: median(parts.frame),
+    edits: parts.frame.length,
+  };
 }
 
 describe.skipIf(skipWithout('chromium'))('edit-to-paint timing in Chromium', () => {
   let app: ServedApp | undefined;
   const figures: Record<string, Record<string, Figures>> = {};
 
+  /** The machine's load (1-minute average) before and after: figures on a busy machine run slower. */
+  const load: number[] = [];
+
   beforeAll(async () => {
     app = await serveBuiltApp('joulepath-timing-');
+    load.push(loadavg()[0]!);
   });
 
   afterAll(async () => {
+    load.push(loadavg()[0]!);
     await app?.close();
     if (Object.keys(figures).length) {
-      writeFileSync(join(artifacts, 'edit-to-paint.json'), `${JSON.stringify(figures, null, 2)}\n`);
+      const loadNote = `machine load (1-minute average) ${load.map((l) => l.toFixed(2)).join(' before, ')} after`;
+      writeFileSync(join(artifacts, 'edit-to-paint.json'), `${JSON.stringify({ load: loadNote, ...figures }, null, 2)}\n`);
       const lines = Object.entries(figures).flatMap(([demo, runs]) =>
         Object.entries(runs).map(
           ([run, f]) =>
-            `${demo} ${run}: median ${f.median.toFixed(1)} p90 ${f.p90.toFixed(1)} max ${f.max.toFixed(1)} (no-edit floor ${f.floorMedian.toFixed(1)}; on screen: ${f.onScreen.join(', ')}; whole page ${f.wholePageMedian.toFixed(1)})`,
+            `${demo} ${run}: median ${f.median.toFixed(1)} p90 ${f.p90.toFixed(1)} max ${f.max.toFixed(1)} (no-edit floor ${f.floorMedian.toFixed(1)}; on screen: ${f.onScreen.join(', ')}; whole page ${f.wholePageMedian.toFixed(1)})` +
+            (f.breakdown
+              ? `\n    traced frame ${f.breakdown.frame.toFixed(1)}: edit's script ${f.breakdown.editScript.toFixed(1)}, other script ${f.breakdown.otherScript.toFixed(1)}, style+layout ${f.breakdown.styleLayout.toFixed(1)}, paint ${f.breakdown.paint.toFixed(1)}`
+              : ''),
         ),
       );
-      console.log(`edit-to-paint (ms):\n  ${lines.join('\n  ')}`);
+      console.log(`edit-to-paint (ms), ${loadNote}:\n  ${lines.join('\n  ')}`);
     }
   });
 
@@ -198,6 +279,26 @@ describe.skipIf(skipWithout('chromium'))('edit-to-paint timing in Chromium', () 
             expect(run.problems, 'parts on screen are new in the first paint; the rest catch up').toEqual([]);
             const floor = (await probe({ edit: false, phase, edits: EDITS, seed: 20261202 })).times.sort((a, b) => a - b);
             const sorted = [...run.times].sort((a, b) => a - b);
+            let breakdown: Breakdown | undefined;
+            if (phase === 'random') {
+              // A traced run of its own, so tracing never touches the figures above.
+              const cdp = await context.newCDPSession(page);
+              const events: TraceEvent[] = [];
+              cdp.on('Tracing.dataCollected', (e) => void events.push(...(e.value as unknown as TraceEvent[])));
+              await cdp.send('Tracing.start', {
+                categories: 'devtools.timeline,disabled-by-default-devtools.timeline,blink.user_timing',
+                transferMode: 'ReportEvents',
+              });
+              const traced = await probe({ edit: true, phase, edits: 20, seed: 20261203 });
+              const complete = new Promise((resolve) => cdp.once('Tracing.tracingComplete', resolve));
+              await cdp.send('Tracing.end');
+              await complete;
+              await cdp.detach();
+              expect(traced.problems).toEqual([]);
+              const { edits: tracedEdits, ...parts } = frameParts(events);
+              expect(tracedEdits).toBeGreaterThan(15);
+              breakdown = parts;
+            }
             runs[`${view} in view, ${phase} phase`] = {
               median: quantile(sorted, 0.5),
               p90: quantile(sorted, 0.9),
@@ -206,6 +307,7 @@ describe.skipIf(skipWithout('chromium'))('edit-to-paint timing in Chromium', () 
               floorMedian: quantile(floor, 0.5),
               onScreen: run.shownParts,
               wholePageMedian: quantile([...run.whole].sort((a, b) => a - b), 0.5),
+              ...(breakdown ? { breakdown } : {}),
             };
           }
         }

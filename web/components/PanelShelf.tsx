@@ -5,7 +5,8 @@
  */
 import { lazy, Suspense } from 'preact/compat';
 import { useEffect, useRef, useState } from 'preact/hooks';
-import { type Solved, studiesOf } from '../../core/page.ts';
+import type { Solved } from '../../core/page.ts';
+import { studiesOf } from '../state/engine.ts';
 import { useOffscreenLag } from './lag.ts';
 import { workingRequest } from '../state/working.ts';
 

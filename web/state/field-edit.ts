@@ -4,7 +4,8 @@
  * field and the draft unchanged, when the engine rejects that field. So nothing is ever stored from
  * an invalid value.
  */
-import { PROJECT_LEVEL, type Problem, validateProject } from '../../core/page.ts';
+import { PROJECT_LEVEL, type Problem } from '../../core/page.ts';
+import { engine, engineFailure } from './engine.ts';
 import { clone, commit, draft, setAt, type DraftProject } from './draft.ts';
 import { newLimitIssue } from './draft-limits.ts';
 import { fieldKey, setFieldError } from './field-errors.ts';
@@ -13,7 +14,9 @@ import { solveOnce } from './solution.ts';
 
 /** Problems the engine's validation reports for one field of one element (or of the project). */
 export function problemsForField(project: DraftProject, elementId: string, path: string): Problem[] {
-  const checked = validateProject(project);
+  const e = engine.value;
+  if (!e) return [];
+  const checked = e.validateProject(project);
   if (checked.ok) return [];
   return checked.problems.filter(
     (p) => p.elementId === elementId && (p.field === path || p.field.startsWith(`${path}.`)) && p.code === 'invalid-value',
@@ -29,6 +32,9 @@ export function problemsForField(project: DraftProject, elementId: string, path:
 export function setField(elementId: string, path: string, value: unknown, label?: string): string | null {
   const current = draft.value;
   if (!current) return 'No project is open.';
+  // Nothing enters the draft unchecked: before the engine has arrived (web/state/engine.ts, a
+  // moment after the page opens) a field write is refused and the field keeps its text.
+  if (!engine.value) return engineFailure.value ?? 'The calculation is still loading: try again in a moment.';
   // A new project object with a copy of the one element (or of the project's own fields) that
   // changes; the other elements are shared with the draft, so a memo'd view of an unchanged stage
   // sees the same object and skips its work.

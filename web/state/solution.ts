@@ -7,17 +7,23 @@
  * one ("stale").
  */
 import { computed, effect, signal } from '@preact/signals';
-import { type Problem, solveProject, type Solved, type SolveOutcome } from '../../core/page.ts';
+import type { Problem, Solved, SolveOutcome } from '../../core/page.ts';
+import { engine, engineFailure } from './engine.ts';
 import { draft, openCount, type DraftProject } from './draft.ts';
 import { fieldErrors } from './field-errors.ts';
 
 /** Outcomes solved by setField for the candidate it took in (the draft object itself is the key). */
 const solvedDrafts = new WeakMap<DraftProject, SolveOutcome>();
 
-/** Solve a candidate draft and keep its outcome for `outcome`; undefined when the engine threw (`outcome` reports it). */
+/**
+ * Solve a candidate draft and keep its outcome for `outcome`; undefined when the engine threw
+ * (`outcome` reports it) or has not arrived yet (`web/state/engine.ts`).
+ */
 export function solveOnce(candidate: DraftProject): SolveOutcome | undefined {
+  const e = engine.value;
+  if (!e) return undefined;
   try {
-    const o = solveProject(candidate);
+    const o = e.solveProject(candidate);
     solvedDrafts.set(candidate, o);
     return o;
   } catch {
@@ -25,14 +31,19 @@ export function solveOnce(candidate: DraftProject): SolveOutcome | undefined {
   }
 }
 
-/** The engine's outcome for the draft as it stands. */
+/** The engine's outcome for the draft as it stands (null while the engine is on its way: nothing to show yet). */
 export const outcome = computed<SolveOutcome | { ok: false; crashed: string } | null>(() => {
   const p = draft.value;
   if (!p) return null;
   const known = solvedDrafts.get(p);
   if (known) return known;
+  const e = engine.value;
+  if (!e) {
+    const failure = engineFailure.value;
+    return failure ? { ok: false, crashed: failure } : null;
+  }
   try {
-    return solveProject(p);
+    return e.solveProject(p);
   } catch (error) {
     // An engine fault must not blank the page; show it so it can be reported.
     return { ok: false, crashed: `The calculation stopped unexpectedly: ${String(error)}` };
