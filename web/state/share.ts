@@ -14,7 +14,9 @@ import { parseImportBytes } from '../storage/file-format.ts';
 import { IMPORT_LIMITS } from '../storage/file-format.ts';
 import type { DraftProject } from './draft.ts';
 
-export const SHARE_HASH_PREFIX = '#share=';
+import { SHARE_HASH_PREFIX } from './address.ts';
+
+export { SHARE_HASH_PREFIX };
 
 /**
  * Longest fragment a share link may carry. Browsers take far longer addresses (Chromium about 2 MB),
@@ -132,4 +134,3 @@ export async function decodeShare(hash: string): Promise<ShareOutcome> {
   return { ok: true, project: checked.project };
 }
 
-export const isShareHash = (hash: string): boolean => hash.startsWith(SHARE_HASH_PREFIX);
