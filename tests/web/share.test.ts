@@ -10,7 +10,7 @@ const bytes = (s: string) => new TextEncoder().encode(s);
 const text = (b: Uint8Array | null) => (b ? new TextDecoder().decode(b) : null);
 
 async function deflate(data: Uint8Array): Promise<string> {
-  const out = new Response(new Blob([data as Uint8Array<ArrayBuffer>]).stream().pipeThrough(new CompressionStream('deflate-raw')));
+  const out = new Response(new Blob([data as Uint8Array<ArrayBuffer>]).stream().pipeThrough(new CompressionStream('deflate')));
   return toBase64Url(new Uint8Array(await out.arrayBuffer()));
 }
 
@@ -32,6 +32,11 @@ describe('base64url', () => {
     expect(fromBase64Url('+/8')).toBeNull();
     expect(fromBase64Url('Zg==')).toBeNull();
     expect(fromBase64Url('Zm9vY')).toBeNull();
+    // Non-zero leftover bits in a short last group (RFC 4648 §3.5): "Zh" is not canonical for "f".
+    expect(fromBase64Url('Zh')).toBeNull();
+    expect(fromBase64Url('Zm8')).not.toBeNull();
+    expect(fromBase64Url('Zm9')).toBeNull();
+    expect(fromBase64Url('Zm-')).toBeNull();
   });
 });
 
@@ -57,15 +62,20 @@ describe('share link', () => {
   it('refuses a damaged, cut or foreign fragment with a plain message', async () => {
     const good = `${SHARE_HASH_PREFIX}${await encodeShare(demoProjects[0]!.project as unknown as DraftProject)}`;
     const cut = good.slice(0, Math.floor(good.length / 2));
-    const flipped = good.slice(0, 40) + (good[40] === 'A' ? 'B' : 'A') + good.slice(41);
-    for (const hash of [cut, flipped, '#share=', '#share=%%%', '#share=Zg==', `${good}!`]) {
+    // One character changed: the zlib checksum (Adler-32, RFC 1950 §2.2) refuses it wherever it is
+    // (the first and last 16 places, and every 7th between).
+    const at = Array.from({ length: good.length - SHARE_HASH_PREFIX.length }, (_, k) => SHARE_HASH_PREFIX.length + k).filter(
+      (i) => i < SHARE_HASH_PREFIX.length + 16 || i >= good.length - 16 || i % 7 === 0,
+    );
+    const flipped = at.map((i) => good.slice(0, i) + (good[i] === 'A' ? 'B' : 'A') + good.slice(i + 1));
+    for (const hash of [cut, ...flipped, '#share=', '#share=%%%', '#share=Zg==', `${good}!`]) {
       const out = await decodeShare(hash);
       expect(out.ok, hash.slice(0, 60)).toBe(false);
       if (!out.ok) expect(out.message).toMatch(/Nothing stored in this browser was changed\.$/);
     }
   });
 
-  it('refuses valid DEFLATE that is not a project, naming the problem', async () => {
+  it('refuses a valid zlib stream that is not a project, naming the problem', async () => {
     const notJson = await decodeShare(`${SHARE_HASH_PREFIX}${await deflate(bytes('hello'))}`);
     expect(notJson).toMatchObject({ ok: false, message: expect.stringMatching(/not a JSON project file/) });
     const notProject = await decodeShare(`${SHARE_HASH_PREFIX}${await deflate(bytes('[1,2]'))}`);

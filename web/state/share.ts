@@ -3,9 +3,11 @@
  * (`#share=<data>`). The fragment never leaves the browser (RFC 3986 §3.5: it is not sent with the
  * request), so opening the link sends the project to no server.
  *
- * Encoding: the project's JSON (UTF-8) → raw DEFLATE (RFC 1951, the browser's CompressionStream
- * 'deflate-raw') → base64url without padding (RFC 4648 §5). Decoding reverses it and then runs the
- * project file import's own checks (web/storage/file-format.ts: limits, shape, ids), so a link is
+ * Encoding: the project's JSON (UTF-8) → zlib (RFC 1950: DEFLATE, RFC 1951, with an Adler-32
+ * checksum; the browser's CompressionStream 'deflate') → base64url without padding (RFC 4648 §5).
+ * The zlib wrapper costs 6 bytes over raw DEFLATE and is kept for its checksum: a link with one
+ * character changed can still inflate to a project (a changed literal), and only the checksum tells.
+ * Decoding reverses it and then runs the project file import's own checks (web/storage/file-format.ts: limits, shape, ids), so a link is
  * trusted no more than a file.
  *
  * Pure apart from the streams (no DOM, no storage): the Node tests run it (Node 18+ has the streams).
@@ -58,6 +60,8 @@ export function fromBase64Url(text: string): Uint8Array | null {
       if (c < 0) return null;
       n = (n << 6) | c;
     }
+    // Canonical only (RFC 4648 §3.5): the bits a short last group leaves over must be zero, so no two links read alike.
+    if ((chunk === 2 && (n & 0xffff) !== 0) || (chunk === 3 && (n & 0xff) !== 0)) return null;
     out[o++] = (n >> 16) & 255;
     if (chunk > 2) out[o++] = (n >> 8) & 255;
     if (chunk > 3) out[o++] = n & 255;
@@ -95,7 +99,7 @@ async function pipe(bytes: Uint8Array, stream: CompressionStream | Decompression
 /** The fragment's data for a project (without the `#share=` prefix). */
 export async function encodeShare(project: DraftProject): Promise<string> {
   const json = new TextEncoder().encode(JSON.stringify(project));
-  const packed = await pipe(json, new CompressionStream('deflate-raw'));
+  const packed = await pipe(json, new CompressionStream('deflate'));
   return toBase64Url(packed!);
 }
 
@@ -124,7 +128,7 @@ export async function decodeShare(hash: string): Promise<ShareOutcome> {
   if (!packed) return { ok: false, message: DAMAGED };
   let json: Uint8Array | null;
   try {
-    json = await pipe(packed, new DecompressionStream('deflate-raw'), IMPORT_LIMITS.maxBytes);
+    json = await pipe(packed, new DecompressionStream('deflate'), IMPORT_LIMITS.maxBytes);
   } catch {
     return { ok: false, message: DAMAGED };
   }

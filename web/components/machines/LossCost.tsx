@@ -74,7 +74,7 @@ export function LossCost({ lossCost, locale }: { lossCost: MachinesFigures['loss
   return (
     <section class="panel-section" aria-labelledby="loss-cost-heading" data-testid="loss-cost">
       <h4 id="loss-cost-heading">What the losses cost per year</h4>
-      <CsvButton name="Yearly cost of losses" />
+      {cost?.ok && <CsvButton name="Yearly cost of losses" />}
       <div class="study-settings study-settings--inline">
         <PrefNumber
           id="cost-price"
