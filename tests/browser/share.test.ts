@@ -325,9 +325,18 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
           g.imageSmoothingEnabled = false;
           g.drawImage(img, 0, 0, ${size}, ${size});
           URL.revokeObjectURL(url);
-          return Array.from(g.getImageData(0, 0, ${size}, ${size}).data);
-        })()`)) as number[];
-        const read = jsQR(new Uint8ClampedArray(pixels), size, size);
+          // One character per pixel, '1' dark: a short answer to carry back from the page.
+          const d = g.getImageData(0, 0, ${size}, ${size}).data;
+          let out = '';
+          for (let i = 0; i < d.length; i += 4) out += d[i] < 128 ? '1' : '0';
+          return out;
+        })()`)) as string;
+        const rgba = new Uint8ClampedArray(size * size * 4);
+        for (let i = 0; i < size * size; i++) {
+          rgba.fill(pixels[i] === '1' ? 0 : 255, i * 4, i * 4 + 3);
+          rgba[i * 4 + 3] = 255;
+        }
+        const read = jsQR(rgba, size, size);
         expect(read?.data, demo.id).toBe(link);
 
         // On paper: shown on the first page, beside the chain.
