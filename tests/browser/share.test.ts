@@ -140,6 +140,8 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
         await openPanels(page);
         const outcome = solveProject(demo.project);
         if (!outcome.ok) throw new Error('demo does not solve');
+        await page.locator('[data-testid="csv-button"][data-table="Power at each element"]').scrollIntoViewIfNeeded();
+        await page.screenshot({ path: join(artifacts, `csv-button-${demo.id}.png`) });
         const buttons = await page.getByTestId('csv-button').all();
         expect(buttons.length, demo.id).toBeGreaterThanOrEqual(3);
         for (const button of buttons) {
@@ -207,6 +209,8 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
       await page.getByTestId('share-button').click();
       const url = await page.getByTestId('share-url').inputValue();
       expect(url.startsWith(`${baseUrl}#share=`)).toBe(true);
+      await page.getByTestId('share').scrollIntoViewIfNeeded();
+      await page.screenshot({ path: join(artifacts, 'share-link-made.png') });
       const decoded = await decodeShare(new URL(url).hash);
       expect(decoded.ok).toBe(true);
       if (decoded.ok) expect(decoded.project.elements.find((e) => e.id === 'fans')?.name).toBe('Evaporator fans, north');
@@ -240,6 +244,8 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
         await phone.waitForTimeout(500);
         expect((await phone.evaluate(STORED)) as string).not.toContain('Evaporator fans, north');
         await fullPageScreenshot(phone, join(artifacts, 'share-read-only-phone.png'));
+        await phone.getByTestId('shared-banner').scrollIntoViewIfNeeded();
+        await phone.screenshot({ path: join(artifacts, 'share-read-only-phone-banner.png') });
 
         // "Save a copy to my projects" stores it as a new project and opens that copy, editable.
         await phone.getByTestId('save-shared-copy').click();
