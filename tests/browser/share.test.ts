@@ -141,6 +141,8 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
         const outcome = solveProject(demo.project);
         if (!outcome.ok) throw new Error('demo does not solve');
         await page.locator('[data-testid="csv-button"][data-table="Power at each element"]').scrollIntoViewIfNeeded();
+        // The tables skip rendering off screen (content-visibility) and catch up when idle: let them paint.
+        await expect.poll(() => page.getByTestId('element-table').evaluate((t) => (t as HTMLElement).innerText.length)).toBeGreaterThan(0);
         await page.screenshot({ path: join(artifacts, `csv-button-${demo.id}.png`) });
         const buttons = await page.getByTestId('csv-button').all();
         expect(buttons.length, demo.id).toBeGreaterThanOrEqual(3);
