@@ -6,7 +6,7 @@
  * they were, and "Save a copy" stores it as a new project; a damaged link says so and changes
  * nothing; the printed report carries the link as a QR code that decodes (jsQR) to the link itself.
  */
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import jsQR from 'jsqr';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
@@ -16,6 +16,7 @@ import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolati
 import { demoProjects, solveProject } from '../../core/index.ts';
 import { csvFileName } from '../../web/format/csv.ts';
 import { decodeShare } from '../../web/state/share.ts';
+import { elementKindLabel } from '../../web/format/labels.ts';
 
 /** RFC 4180 records (quoted fields, doubled quotes, CRLF), read strictly: anything else throws. */
 function parseCsv(text: string): string[][] {
@@ -161,6 +162,14 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
             if (!/\([^)]+\)$/.test(head)) return;
             for (const r of rows.slice(1)) expect(r[c]!, `${demo.id}: ${table}: ${head}`).toMatch(r[c] === '' ? /^$/ : NUMBER);
           });
+          writeFileSync(join(artifacts, name), text);
+          if (table === 'Power at each element') {
+            // The name and its kind stay apart: "48 V LiFePO4 bank (Battery bank)", never glued together.
+            const source = outcome.result.elements.find((e) => e.from === undefined)!;
+            expect(rows.map((r) => r[0]), `${demo.id}: element names`).toContain(`${source.name} (${elementKindLabel(source.kind)})`);
+            const p = rows[0]!.indexOf('P in (W)');
+            expect(p, rows[0]!.join('|')).toBeGreaterThan(0);
+          }
           if (table === 'Voltage, current and power at each port') {
             // The source's output port power as the engine computes it, to the 4 significant figures shown.
             const p = rows[0]!.indexOf('P (W)');

@@ -19,8 +19,28 @@ function tableFor(button: HTMLElement): HTMLTableElement | null {
   return null;
 }
 
+/**
+ * A cell's text as read: parts laid out apart (a name and its kind on two lines) are kept apart, a
+ * note beside a figure in brackets ("48 V bank (Battery bank)"); decoration hidden from assistive
+ * technology and buttons are left out.
+ */
+function cellText(node: Node): string {
+  let out = '';
+  for (const child of node.childNodes) {
+    if (child.nodeType === Node.TEXT_NODE) out += child.textContent ?? '';
+    else if (child instanceof HTMLElement) {
+      if (child.getAttribute('aria-hidden') === 'true' || child.tagName === 'BUTTON') continue;
+      const text = cellText(child).trim();
+      if (!text) continue;
+      if (child.matches('.el-name__kind, .cell-note')) out += ` (${text}) `;
+      else out += getComputedStyle(child).display === 'inline' ? text : ` ${text} `;
+    }
+  }
+  return out;
+}
+
 const rowsOf = (rows: Iterable<HTMLTableRowElement>) =>
-  [...rows].map((r) => [...r.cells].map((c) => ({ text: c.dataset['csv'] ?? c.textContent ?? '', rowSpan: c.rowSpan, colSpan: c.colSpan })));
+  [...rows].map((r) => [...r.cells].map((c) => ({ text: c.dataset['csv'] ?? cellText(c), rowSpan: c.rowSpan, colSpan: c.colSpan })));
 
 export async function downloadTableCsv(button: HTMLElement, name: string): Promise<void> {
   const table = tableFor(button);
