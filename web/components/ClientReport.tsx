@@ -5,7 +5,7 @@
  * everything it prints must already be in the document). On screen only the "Print / save as PDF"
  * and "Share read-only" buttons show; web/print.css hides the rest of the page in print and shows, in
  * this order, the report's head (project, date, client, site, prepared by, the answers, the chain,
- * the share link's QR code), the energy-flow diagram, the report's tail (warnings, cautions), and
+ * the share link's QR code), the report's tail (warnings, cautions), the energy-flow diagram, and
  * on a page of its own the engineer's page (assumptions, the method and the engine's working: the
  * figures at each element's input and output). The client's pages use the trade's words only; the
  * solver's vocabulary stays on the engineer's page. Every page carries "page n of m", the project
