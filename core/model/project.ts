@@ -22,6 +22,9 @@ export * from './loads.ts';
 export * from './circuit-network.ts';
 export * from './study-settings.ts';
 
+/** Longest client, site or prepared-by text (one printed line or two on the report's first page). */
+export const REPORT_TEXT_MAX = 200;
+
 export type Element = Source | Stage | Load;
 export type ElementKind = Element['kind'];
 
@@ -31,6 +34,12 @@ export interface Project {
   version: 2;
   name: string;
   description?: string;
+  /** Who the project is for, printed on the client report's first page (at most REPORT_TEXT_MAX characters). */
+  client?: string;
+  /** Where the installation is (address or site name), printed on the client report's first page. */
+  site?: string;
+  /** Who prepared the design (name, firm, licence number), printed on the client report's first page. */
+  preparedBy?: string;
   /** Every element of the tree; the single source has no `from`. Order does not matter. */
   elements: Element[];
   /** Battery backup study (runtime, sizing, recharge) for a project fed by a battery `bank`. */

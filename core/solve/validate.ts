@@ -5,6 +5,7 @@
 import { OLDEST_PROJECT_VERSION, PROJECT_VERSION, migrateProject } from '../model/migrate.ts';
 import { z } from 'zod/mini';
 import type { BackupStudy, Element, Project } from '../model/project.ts';
+import { REPORT_TEXT_MAX } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
 import { KINDS } from '../kinds/index.ts';
@@ -23,6 +24,9 @@ declare const VALID: unique symbol;
  */
 export type ValidProject = Project & { readonly [VALID]: true };
 
+/** The client report's own lines (client, site, prepared by): plain text of a printable length. */
+const reportText = z.string({ error: 'must be text' }).check(z.maxLength(REPORT_TEXT_MAX, `must be at most ${REPORT_TEXT_MAX} characters (it is printed on the report's first page)`));
+
 export const projectShape = z.strictObject({
   /** The JSON Schema an editor checks the file against (schema/joulepath-project.schema.json); not read by the engine. */
   $schema: z.optional(z.string({ error: 'must be text (the address of the file format\'s JSON Schema)' })),
@@ -35,6 +39,9 @@ export const projectShape = z.strictObject({
   }),
   name: z.string({ error: 'must be text' }),
   description: z.optional(z.string({ error: 'must be text' })),
+  client: z.optional(reportText),
+  site: z.optional(reportText),
+  preparedBy: z.optional(reportText),
   elements: z.array(z.unknown(), { error: 'must be a list of elements' }),
   backup: z.optional(backupSchema),
   dropLimits: z.optional(dropLimitsSchema),

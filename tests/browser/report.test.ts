@@ -1,11 +1,14 @@
 /**
  * The client report in real Chromium (playwright-core), against a production build: for each demo
- * the printed page (print media emulated, and a real PDF from headless Chromium's page.pdf at A4)
- * holds at most two pages, the project's name, the key figures the engine computes (source power,
+ * the printed page (print media emulated, and a real PDF from headless Chromium's page.pdf at A4,
+ * read page by page with unpdf) has "page n of m" and the date on every page, the client's pages
+ * first (no solver words), the engineer's page last (the method), no page holding only a line or
+ * two, at most three pages in all, the project's name, the key figures the engine computes (source power,
  * delivered power, losses with their idle and conversion parts, the largest loss) and the cautions;
  * editor controls and buttons are not printed; in the dark theme the printed page is still dark ink
  * on white, diagram included. Screenshots of the print layout go to tests/.artifacts/ to look at.
  */
+import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
@@ -14,6 +17,7 @@ import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp, fullPageScreenshot } from './harness.ts';
 import { bankCautions, demoProjects, flowGraph, solveProject, CONDUCTOR_CAUTION } from '../../core/index.ts';
 import { formatPercent, formatPower } from '../../web/format/number.ts';
+import { extractText } from 'unpdf';
 
 
 /** The caution every report carries (web/components/ClientReport.tsx, REPORT_CAUTION). */
@@ -22,6 +26,49 @@ const PLANNING = 'These results are planning estimates. Local electrical codes a
 /** Pages of a PDF: its page objects, `/Type /Page` (not `/Pages`, the page tree) (PDF 1.7, ISO 32000-1, 7.7.3.3). */
 export function pdfPageCount(pdf: Buffer): number {
   return (pdf.toString('latin1').match(/\/Type\s*\/Page(?![a-zA-Z])/g) ?? []).length;
+}
+
+/** The text of each page of a PDF (pdf.js through unpdf), one string per page. */
+export async function pdfPageTexts(pdf: Buffer): Promise<string[]> {
+  return (await extractText(new Uint8Array(pdf), { mergePages: false })).text;
+}
+
+/**
+ * The solver's vocabulary, kept off the client's pages (issue 17): whole words only, so "report" and
+ * "support" do not count as "port".
+ */
+export const SOLVER_WORDS = /\b(solve[ds]?|solver|solving|ports?|nodes?|sweeps?|converged|convergence|balance error)\b/i;
+
+/** Lines of a page's text besides its margin (the page number and the "project · date" line). */
+const bodyLines = (text: string, date: string) =>
+  text
+    .split('\n')
+    .map((l) => l.trim())
+    .filter((l) => l !== '' && !/^page \d+ of \d+$/.test(l) && !l.endsWith(` · ${date}`));
+
+/**
+ * Checks every printed report shares: page n of m and the date on each page, the engineer's page
+ * last with the method, no solver words before it, and more than a few lines of text on every page
+ * (a page with one or two lines is the orphan the print rules avoid).
+ */
+export async function checkPrintedPages(pdf: Buffer, date: string, label: string): Promise<string[]> {
+  const pages = await pdfPageTexts(pdf);
+  expect(pages.length, `${label}: pages`).toBe(pdfPageCount(pdf));
+  expect(pages.length, `${label}: pages`).toBeGreaterThanOrEqual(2);
+  expect(pages.length, `${label}: pages`).toBeLessThanOrEqual(3);
+  pages.forEach((text, i) => {
+    const flat = text.replace(/\s+/g, ' ');
+    expect(flat, `${label}: page ${i + 1}`).toContain(`page ${i + 1} of ${pages.length}`);
+    expect(flat, `${label}: page ${i + 1}`).toContain(date);
+    expect(bodyLines(text, date).length, `${label}: lines on page ${i + 1}:\n${text}`).toBeGreaterThan(5);
+    if (i < pages.length - 1) expect(flat, `${label}: client's page ${i + 1}`).not.toMatch(SOLVER_WORDS);
+  });
+  const last = pages.at(-1)!.replace(/\s+/g, ' ');
+  expect(last).toContain('For the engineer: method and working');
+  expect(last).toMatch(/Solved by .+ sweeps?/);
+  // The engineer's page holds only the engineer's part: the client's answers are all on the pages before.
+  expect(last).not.toContain('The answers');
+  return pages;
 }
 
 function solved(id: string) {
@@ -89,7 +136,7 @@ describe.skipIf(skipWithout('chromium'))('the client report in Chromium', () => 
     }
   });
 
-  it.each(['light', 'dark'] as const)('prints each demo on at most two A4 pages with its figures and cautions (%s theme)', async (theme) => {
+  it.each(['light', 'dark'] as const)('prints each demo on two or three A4 pages (the engineer\'s last) with its figures and cautions (%s theme)', async (theme) => {
     const { context, page, errors } = await openPage(theme);
     try {
       for (const demo of demoProjects) {
@@ -137,10 +184,59 @@ describe.skipIf(skipWithout('chromium'))('the client report in Chromium', () => 
         await fullPageScreenshot(page, join(artifacts, `report-${theme}-${demo.id}.png`));
         const pdf = await page.pdf({ format: 'A4', printBackground: true });
         writeFileSync(join(artifacts, `report-${theme}-${demo.id}.pdf`), pdf);
-        const pages = pdfPageCount(pdf);
-        expect(pages, `${demo.id}: pages of the printed report`).toBeGreaterThanOrEqual(1);
-        expect(pages, `${demo.id}: pages of the printed report`).toBeLessThanOrEqual(2);
+        const date = await page.getByTestId('report-date').innerText();
+        const texts = await checkPrintedPages(pdf, date, `${demo.id} (${theme})`);
+        // The answers come first: on the first page, before the chain.
+        const first = texts[0]!.replace(/\s+/g, ' ');
+        expect(first).toContain('The answers');
+        expect(first.indexOf('The answers')).toBeLessThan(first.indexOf('The chain'));
+        // Each page as an image, to look at (poppler's pdftoppm, when the machine has it; not a check).
+        try {
+          execFileSync('pdftoppm', ['-png', '-r', '60', join(artifacts, `report-${theme}-${demo.id}.pdf`), join(artifacts, `report-${theme}-${demo.id}-page`)]);
+        } catch {
+          // pdftoppm is not installed: the PDF itself is in tests/.artifacts/.
+        }
       }
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('client, site and prepared-by typed in the project settings print on the first page; a text past 200 characters is refused at its field', async () => {
+    const { context, page, errors } = await openPage('light');
+    try {
+      await showDemo(page, 'cold-store-dc-bus');
+      await page.getByTestId('panel-project-settings').locator('summary').click();
+      const form = page.getByTestId('project-form');
+      await form.waitFor();
+      const entries = [
+        ['client', 'Ridge Farm Co-op'],
+        ['site', '12 Quarry Lane, cold store 2'],
+        ['preparedBy', 'A. Volt, licence 4471'],
+      ] as const;
+      for (const [path, text] of entries) {
+        await form.getByTestId(`field-${path}`).fill(text);
+        await form.getByTestId(`field-${path}`).blur();
+      }
+      // The limit (core/solve/validate.ts, REPORT_TEXT_MAX): the engine's message at the field, nothing stored.
+      await form.getByTestId('field-client').fill('x'.repeat(201));
+      await form.getByTestId('field-client').blur();
+      await expect.poll(() => form.getByTestId('field-message').first().innerText()).toMatch(/at most 200 characters/);
+      await form.getByTestId('field-client').fill('Ridge Farm Co-op');
+      await form.getByTestId('field-client').blur();
+      await expect.poll(() => form.getByTestId('field-message').count()).toBe(0);
+
+      await page.emulateMedia({ media: 'print' });
+      await expect.poll(() => page.getByTestId('report-parties').innerText()).toContain('Ridge Farm Co-op');
+      const parties = await page.getByTestId('report-parties').innerText();
+      for (const [, text] of entries) expect(parties).toContain(text);
+      const pdf = await page.pdf({ format: 'A4', printBackground: true });
+      writeFileSync(join(artifacts, 'report-client-fields.pdf'), pdf);
+      const pages = await checkPrintedPages(pdf, await page.getByTestId('report-date').innerText(), 'client fields');
+      const first = pages[0]!.replace(/\s+/g, ' ');
+      for (const [, text] of entries) expect(first).toContain(text);
+      for (const label of ['Client', 'Site', 'Prepared by']) expect(first).toContain(label);
       expect(errors).toEqual([]);
     } finally {
       await context.close();

@@ -22,6 +22,9 @@ const ClientReport = lazy(() => import('./ClientReport.tsx'));
 const ChainEditor = memo(lazy(() => import('./ChainEditor.tsx')));
 
 /** Project-level settings (name, description, voltage-drop limits): loaded when opened. */
+/** The read-only notice of a project opened from a share link: loaded only then. */
+const SharedBanner = lazy(() => import('./report/SharedBanner.tsx').then((m) => ({ default: m.SharedBanner })));
+
 const ProjectForm = lazy(() => import('./ProjectForm.tsx').then((m) => ({ default: m.ProjectForm })));
 
 /** Says plainly when the results on screen are not those of the inputs on screen. */
@@ -58,17 +61,19 @@ function ShownProject() {
   const problems = draftProblems.value;
   const crashed = crashMessage.value;
   const stale = resultsState.value === 'stale';
+  const shared = origin?.kind === 'shared';
   return (
     <article class="project" aria-labelledby="project-heading" data-testid="project">
       <header class="project__header">
         <h2 id="project-heading">{shownTitle.value}</h2>
         {description && <p class="project__summary">{description}</p>}
       </header>
+      {shared && <Suspense fallback={null}><SharedBanner /></Suspense>}
       {result && <AnswersStrip result={result} stale={stale} />}
-      <Suspense fallback={<p class="note">Opening the chain editor…</p>}><ChainEditor /></Suspense>
-      <PanelDisclosure id="project-settings" title="Project settings" hint="name, description, voltage-drop limits">
+      {!shared && <Suspense fallback={<p class="note">Opening the chain editor…</p>}><ChainEditor /></Suspense>}
+      {!shared && <PanelDisclosure id="project-settings" title="Project settings" hint="name, client, site, voltage-drop limits">
         {() => <ProjectForm />}
-      </PanelDisclosure>
+      </PanelDisclosure>}
       {problems.length > 0 && <ProblemList problems={problems} elements={draft.value.elements} />}
       {crashed && (
         <section class="notice notice--error" role="alert" data-testid="unreadable">

@@ -8,6 +8,7 @@ import { formatCurrent, formatPercent, formatPower as formatPowerIn } from '../f
 import { formatConductorSize, formatLength, formatTemperature } from '../format/units.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { lagOffscreen, type BoxRef } from './lag.ts';
+import { CsvButton } from './report/CsvButton.tsx';
 
 /** Where a lagging part puts its ref (web/components/lag.ts). */
 type Box = { box: BoxRef };
@@ -40,6 +41,7 @@ export const CableTable = lagOffscreen(function CableTable({ result: solved, box
   return (
     <section class="skip-offscreen" aria-labelledby="cables-heading" data-testid="cable-panel" ref={box}>
       <h3 id="cables-heading">Cables</h3>
+      <CsvButton name="Cables" />
       <div class="table-scroll" role="region" aria-labelledby="cables-heading" tabIndex={0}>
         <table class="data data--cables data--fixed" data-testid="cable-table">
           <thead>

@@ -3,9 +3,13 @@
  *
  * Rendered with the results (not mounted on demand: window.print() lays the page out at once, so
  * everything it prints must already be in the document). On screen only the "Print / save as PDF"
- * button shows; web/print.css hides the rest of the page in print and shows, in this order, the
- * report's head (project, date, chain, key figures), the energy-flow diagram, and the report's tail
- * (assumptions, warnings, cautions).
+ * and "Share read-only" buttons show; web/print.css hides the rest of the page in print and shows, in
+ * this order, the report's head (project, date, client, site, prepared by, the answers, the chain,
+ * the share link's QR code), the report's tail (warnings, cautions), the energy-flow diagram, and
+ * on a page of its own the engineer's page (assumptions, the method and the engine's working: the
+ * figures at each element's input and output). The client's pages use the trade's words only; the
+ * solver's vocabulary stays on the engineer's page. Every page carries "page n of m", the project
+ * and the date in its margin (CSS paged media, @page margin boxes).
  *
  * Every figure comes from core (the solve result, flowGraph's loss summary, the engine's cautions);
  * the page only formats. The date is the page's (core has no clock).
@@ -20,11 +24,14 @@ import { memo } from 'preact/compat';
 import { useEffect, useMemo, useState } from 'preact/hooks';
 import { bankCautions, flowGraph } from '../../core/studies/index.ts';
 import { type BatterySource, type Chemistry, CONDUCTOR_CAUTION, type ElementResult, type Project, type Solved, type SolveResult } from '../../core/page.ts';
-import { formatDuration, formatPercent, formatPower, formatSmallPercent } from '../format/number.ts';
+import { formatCurrent, formatDuration, formatPercent, formatPower, formatSmallPercent, formatVoltage } from '../format/number.ts';
 import { formatConductorSize } from '../format/units.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { catchUpNow, useOffscreenLag, type BoxRef } from './lag.ts';
+import type { DraftProject } from '../state/draft.ts';
+import { ReportQr } from './report/ReportQr.tsx';
+import { ShareLink } from './report/ShareLink.tsx';
 
 /**
  * Battery runtime for the report. The hook for the battery panel: pass the runtime study's
@@ -74,6 +81,13 @@ interface ReportInputs {
   chemistry: string | undefined;
   locale: string | undefined;
   units: 'si' | 'us';
+  /** The solved pair's project: its client, site, prepared-by and description lines, and the share link. */
+  project: Project;
+}
+
+/** A CSS string literal (CSS Syntax 3, 4.3.5): quotes and backslashes escaped, line breaks as escapes. */
+function cssString(text: string): string {
+  return `"${text.replace(/[\\"]/g, (c) => `\\${c}`).replace(/[\n\r\f]/g, ' ')}"`;
 }
 
 /**
@@ -90,8 +104,8 @@ export default function ClientReport({ solved, stale, battery }: { solved: Solve
   const locale = effectiveLocale();
   const units = unitSystem.value;
   const latest = useMemo<ReportInputs>(
-    () => ({ result, battery, stale, backup, chemistry, locale, units }),
-    [result, battery, stale, backup, chemistry, locale, units],
+    () => ({ result, battery, stale, backup, chemistry, locale, units, project }),
+    [result, battery, stale, backup, chemistry, locale, units, project],
   );
   // Hidden on screen, so it always lags (and shows another project at once).
   const { box, shown } = useOffscreenLag(latest);
@@ -101,7 +115,10 @@ export default function ClientReport({ solved, stale, battery }: { solved: Solve
         <button type="button" class="report-bar__button" onClick={() => { catchUpNow(); window.print(); }} data-testid="print-report">
           Print / save as PDF
         </button>
-        <span class="report-bar__hint">A one- or two-page summary for your client: the chain, the energy flow, key figures and cautions.</span>
+        <ShareLink project={project as unknown as DraftProject} />
+        <span class="report-bar__hint">
+          A short report for your client: the answers, the chain, the energy flow and cautions, with a last page of working for the engineer.
+        </span>
       </div>
       <ReportBody {...shown} box={box} />
     </>
@@ -117,6 +134,7 @@ const ReportBody = memo(function ReportBody({
   chemistry,
   locale: loc,
   units,
+  project,
   box,
 }: ReportInputs & { box: BoxRef }) {
   const graph = useMemo(() => flowGraph(result), [result]);
@@ -132,22 +150,105 @@ const ReportBody = memo(function ReportBody({
     ...(chemistry ? bankCautions(chemistry as Chemistry).filter((c) => !c.startsWith('Planning estimate only')) : []),
   ];
   const date = new Intl.DateTimeFormat(loc, { dateStyle: 'long' }).format(now);
+  const title = result.projectName || 'Untitled project';
+  const parties = [
+    ['Client', project.client],
+    ['Site', project.site],
+    ['Prepared by', project.preparedBy],
+  ].filter((p): p is [string, string] => typeof p[1] === 'string' && p[1].trim() !== '');
+  // Page numbers, project and date in every page's margin (CSS Paged Media 3, page-margin boxes).
+  const pageCss = `@media print { @page { @bottom-left { content: ${cssString(`${title} · ${date}`)}; } } }`;
 
   return (
     <>
       <section class="report report--head print-keep" aria-label="Client report" data-testid="report-head" ref={box}>
         <header class="report__title">
           <p class="report__brand">Joulepath · energy report</p>
-          <h1>{result.projectName || 'Untitled project'}</h1>
+          <h1>{title}</h1>
           <p class="report__date" data-testid="report-date">
             {date}
           </p>
         </header>
+        <style>{pageCss}</style>
+        {parties.length > 0 && (
+          <dl class="report__parties" data-testid="report-parties">
+            {parties.map(([label, text]) => (
+              <div key={label}>
+                <dt>{label}</dt>
+                <dd>{text}</dd>
+              </div>
+            ))}
+          </dl>
+        )}
+        {project.description && <p class="report__description">{project.description}</p>}
         {stale && (
           <p class="report__stale" data-testid="report-stale">
             Out of date: the inputs hold an error, so these are the last valid results, not those of the inputs as they stand.
           </p>
         )}
+        {/* The answers first. Placeholder until web/components/answers/ReportAnswers.tsx takes this place (same test id). */}
+        <section class="report__answers" aria-label="The answers" data-testid="report-answers">
+          <h2>The answers</h2>
+          <dl class="report__figures" data-testid="report-figures">
+            <dt>Source delivers</dt>
+            <dd>{formatPower(t.sourcePower, loc)}</dd>
+            <dt>Delivered to the loads</dt>
+            <dd>
+              {formatPower(t.loadPower, loc)} ({formatPercent(t.efficiency, loc)} chain efficiency)
+            </dd>
+            <dt>Losses</dt>
+            <dd>
+              {formatPower(ls.total.watts, loc)} · {pct(ls.total.percent)} of the source power
+            </dd>
+            <dt>of which idle</dt>
+            <dd>
+              {formatPower(ls.idle.watts, loc)} · {pct(ls.idle.percent)} (drawn even with no load)
+            </dd>
+            <dt>of which conversion</dt>
+            <dd>
+              {formatPower(ls.conversion.watts, loc)} · {pct(ls.conversion.percent)} (grows with the load)
+            </dd>
+            {ls.largest && (
+              <>
+                <dt>Largest loss</dt>
+                <dd data-testid="report-largest">
+                  {ls.largest.name}: {formatPower(ls.largest.watts, loc)} · {pct(ls.largest.percent)}
+                  {ls.largest.idleWatts > 0 ? ` (${formatPower(ls.largest.idleWatts, loc)} idle)` : ''}
+                </dd>
+              </>
+            )}
+            {(battery || backup) && (
+              <>
+                <dt>Battery runtime</dt>
+                <dd data-testid="report-runtime">
+                  {battery
+                    ? `${battery.runtimeIsLowerBound ? 'longer than ' : ''}${formatDuration(battery.runtimeSeconds, loc)} (${battery.endText})`
+                    : 'see the battery backup study (not part of this summary)'}
+                </dd>
+              </>
+            )}
+            {cables.length > 0 && (
+              <>
+                <dt>Cables</dt>
+                <dd>
+                  <ul class="report__cables" data-testid="report-cables">
+                    {cables.map((e) => (
+                      <li key={e.id}>
+                        {e.name}:{' '}
+                        {e.conductor
+                          ? `${formatConductorSize(e.conductor.size, e.conductor.areaMm2, units, loc)} ${e.conductor.material}` +
+                            `${e.conductor.parallelSets > 1 ? ` × ${e.conductor.parallelSets} sets` : ''}, set by ${e.conductor.governing}, ` +
+                            `${e.conductor.device.rating !== undefined ? `${e.conductor.device.rating} A device, ` : ''}` +
+                            `drop ${formatPercent(e.conductor.drop.checkPercent / 100, loc, 3)}, loss ${formatPower(e.loss, loc)}`
+                          : `impedance as entered, loss ${formatPower(e.loss, loc)}`}
+                      </li>
+                    ))}
+                  </ul>
+                </dd>
+              </>
+            )}
+          </dl>
+        </section>
         <div class="report__columns">
           <section>
             <h2>The chain</h2>
@@ -161,91 +262,14 @@ const ReportBody = memo(function ReportBody({
               ))}
             </ol>
           </section>
-          <section>
-            <h2>Key figures</h2>
-            <dl class="report__figures" data-testid="report-figures">
-              <dt>Source delivers</dt>
-              <dd>{formatPower(t.sourcePower, loc)}</dd>
-              <dt>Delivered to the loads</dt>
-              <dd>
-                {formatPower(t.loadPower, loc)} ({formatPercent(t.efficiency, loc)} chain efficiency)
-              </dd>
-              <dt>Losses</dt>
-              <dd>
-                {formatPower(ls.total.watts, loc)} · {pct(ls.total.percent)} of the source power
-              </dd>
-              <dt>of which idle</dt>
-              <dd>
-                {formatPower(ls.idle.watts, loc)} · {pct(ls.idle.percent)} (drawn even with no load)
-              </dd>
-              <dt>of which conversion</dt>
-              <dd>
-                {formatPower(ls.conversion.watts, loc)} · {pct(ls.conversion.percent)} (grows with the load)
-              </dd>
-              {ls.largest && (
-                <>
-                  <dt>Largest loss</dt>
-                  <dd data-testid="report-largest">
-                    {ls.largest.name}: {formatPower(ls.largest.watts, loc)} · {pct(ls.largest.percent)}
-                    {ls.largest.idleWatts > 0 ? ` (${formatPower(ls.largest.idleWatts, loc)} idle)` : ''}
-                  </dd>
-                </>
-              )}
-              {(battery || backup) && (
-                <>
-                  <dt>Battery runtime</dt>
-                  <dd data-testid="report-runtime">
-                    {battery
-                      ? `${battery.runtimeIsLowerBound ? 'longer than ' : ''}${formatDuration(battery.runtimeSeconds, loc)} (${battery.endText})`
-                      : 'see the battery backup study (not part of this summary)'}
-                  </dd>
-                </>
-              )}
-              {cables.length > 0 && (
-                <>
-                  <dt>Cables</dt>
-                  <dd>
-                    <ul class="report__cables" data-testid="report-cables">
-                      {cables.map((e) => (
-                        <li key={e.id}>
-                          {e.name}:{' '}
-                          {e.conductor
-                            ? `${formatConductorSize(e.conductor.size, e.conductor.areaMm2, units, loc)} ${e.conductor.material}` +
-                              `${e.conductor.parallelSets > 1 ? ` × ${e.conductor.parallelSets} sets` : ''}, set by ${e.conductor.governing}, ` +
-                              `${e.conductor.device.rating !== undefined ? `${e.conductor.device.rating} A device, ` : ''}` +
-                              `drop ${formatPercent(e.conductor.drop.checkPercent / 100, loc, 3)}, loss ${formatPower(e.loss, loc)}`
-                            : `impedance as entered, loss ${formatPower(e.loss, loc)}`}
-                        </li>
-                      ))}
-                    </ul>
-                  </dd>
-                </>
-              )}
-            </dl>
-          </section>
+          <ReportQr project={project as unknown as DraftProject} />
         </div>
       </section>
 
-      <section class="report report--tail print-keep" aria-label="Assumptions and cautions" data-testid="report-tail">
-        <h2>Assumptions and method</h2>
-        <ul class="report__list">
-          <li>
-            Real power in watts; per cent figures are shares of the power the source delivers. Computed in SI units, shown in{' '}
-            {units === 'us' ? 'US customary units where they apply' : 'SI units'}.
-          </li>
-          <li>
-            Idle loss is what a stage draws at zero output (standby, no-load, core or fixed loss, from its loss model); conversion loss is the
-            rest, which grows with the load.
-          </li>
-          <li data-testid="report-method">
-            Solved by {result.method.name}: {result.method.iterations} {result.method.iterations === 1 ? 'sweep' : 'sweeps'}, stopping below a
-            relative voltage change of {result.method.tolerance.toExponential(0)}; energy balance mismatch{' '}
-            {formatSmallPercent(t.balanceError, loc)}.
-          </li>
-        </ul>
+      <section class="report report--tail print-keep" aria-label="Warnings and cautions" data-testid="report-tail">
         {result.warnings.length > 0 && (
           <>
-            <h2>Warnings</h2>
+            <h2>Check these</h2>
             <ul class="report__list" data-testid="report-warnings">
               {result.warnings.map((w, i) => (
                 <li key={i}>
@@ -261,6 +285,55 @@ const ReportBody = memo(function ReportBody({
             <li key={c}>{c}</li>
           ))}
         </ul>
+      </section>
+
+      <section class="report report--engineer print-keep" aria-label="For the engineer: method and working" data-testid="report-engineer">
+        <h2>For the engineer: method and working</h2>
+        <ul class="report__list">
+          <li>
+            Real power in watts; per cent figures are shares of the power the source delivers. Computed in SI units, shown in{' '}
+            {units === 'us' ? 'US customary units where they apply' : 'SI units'}.
+          </li>
+          <li>
+            Idle loss is what a stage draws at zero output (standby, no-load, core or fixed loss, from its loss model); conversion loss is the
+            rest, which grows with the load.
+          </li>
+          <li data-testid="report-method">
+            Solved by {result.method.name}: {result.method.iterations} {result.method.iterations === 1 ? 'sweep' : 'sweeps'}, stopping below a
+            relative voltage change of {result.method.tolerance.toExponential(0)}; energy balance mismatch{' '}
+            {formatSmallPercent(t.balanceError, loc)}.
+          </li>
+          <li>AC voltages are line-to-line for three-phase, currents are line currents; P is real power at the port.</li>
+        </ul>
+        <table class="report__working" data-testid="report-working">
+          <caption>The engine's working: each element's input and output port</caption>
+          <thead>
+            <tr>
+              <th scope="col">Element</th>
+              <th scope="col">In: V</th>
+              <th scope="col">In: I</th>
+              <th scope="col">In: P</th>
+              <th scope="col">Out: V</th>
+              <th scope="col">Out: I</th>
+              <th scope="col">Out: P</th>
+              <th scope="col">Loss</th>
+            </tr>
+          </thead>
+          <tbody>
+            {result.elements.map((e) => (
+              <tr key={e.id}>
+                <th scope="row">{e.name}</th>
+                <td>{e.input ? formatVoltage(e.input.voltage, loc) : ''}</td>
+                <td>{e.input ? formatCurrent(e.input.current, loc) : ''}</td>
+                <td>{e.input ? formatPower(e.input.p, loc) : ''}</td>
+                <td>{e.output ? formatVoltage(e.output.voltage, loc) : ''}</td>
+                <td>{e.output ? formatCurrent(e.output.current, loc) : ''}</td>
+                <td>{e.output ? formatPower(e.output.p, loc) : ''}</td>
+                <td>{formatPower(e.loss, loc)}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
       </section>
     </>
   );

@@ -17,6 +17,7 @@ import { resultsState } from '../state/editor.ts';
 import type { Solved } from '../../core/page.ts';
 import { cableLengths } from './Results.tsx';
 import './Panels.css';
+import { CsvButton } from './report/CsvButton.tsx';
 
 /** The rule that set the size, in a sentence. */
 const GOVERNING_SENTENCE: Record<GoverningRule, string> = {
@@ -183,6 +184,7 @@ function PathDrops({ result, locale }: { result: SolveResult; locale: string | u
   return (
     <section class="panel-section" aria-labelledby="path-drops-heading">
       <h4 id="path-drops-heading">Voltage drop along each path</h4>
+      <CsvButton name="Voltage drop along each path" />
       <div class="table-scroll" role="region" aria-labelledby="path-drops-heading" tabIndex={0}>
         <table class="data panel-table" data-testid="path-drops">
           <thead>

@@ -21,6 +21,7 @@ import { formatShaftPower, type UnitSystem } from '../format/units.ts';
 import { memo } from 'preact/compat';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { lagOffscreen, type BoxRef } from './lag.ts';
+import { CsvButton } from './report/CsvButton.tsx';
 
 export { CableTable, cableLengths } from './CableTable.tsx';
 
@@ -127,6 +128,7 @@ export const ElementTable = lagOffscreen(function ElementTable({ result, box }: 
   return (
     <section class="skip-offscreen" aria-labelledby="elements-heading" ref={box}>
       <h3 id="elements-heading">Power at each element</h3>
+      <CsvButton name="Power at each element" />
       <div class="table-scroll" role="region" aria-labelledby="elements-heading" tabIndex={0}>
         <table class="data data--stack data--fixed data--elements" data-testid="element-table">
           <thead>
@@ -286,6 +288,7 @@ export const PortTable = lagOffscreen(function PortTable({ result, box }: { resu
   return (
     <section class="skip-offscreen" aria-labelledby="ports-heading" ref={box}>
       <h3 id="ports-heading">Voltage, current and power at each port</h3>
+      <CsvButton name="Voltage, current and power at each port" />
       <div class="table-scroll" role="region" aria-labelledby="ports-heading" tabIndex={0}>
         <table class="data data--ports data--fixed" data-testid="port-table">
           <thead>

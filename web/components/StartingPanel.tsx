@@ -13,6 +13,7 @@ import { problemLine } from './problem-words.ts';
 import { formatApparent, formatCurrent, formatPercent, formatSignificant, formatVoltage, UNIT_GAP } from '../format/number.ts';
 import { effectiveLocale } from '../state/prefs.ts';
 import './Panels.css';
+import { CsvButton } from './report/CsvButton.tsx';
 
 const VERDICT: Record<MotorStartResult['verdict'], string> = { starts: 'Starts', marginal: 'Marginal', 'will-not-start': 'Will not start' };
 const DEVICE: Record<DeviceCheck['status'], string> = { adequate: 'Adequate', 'too-weak': 'Too weak', unknown: 'Not known' };
@@ -45,6 +46,7 @@ function MotorStart({ s, locale }: { s: MotorStartResult; locale: string | undef
         </p>
       ) : null}
       {s.sourceImpedance ? <p class="note">Source impedance during the start: {s.sourceImpedance.basis}.</p> : null}
+      <CsvButton name="Checks during the start" />
       <div class="table-scroll" role="region" aria-label="Checks during the start" tabIndex={0}>
       <table class="data panel-table">
         <caption>Checks during the start</caption>
@@ -87,6 +89,8 @@ function MotorStart({ s, locale }: { s: MotorStartResult; locale: string | undef
 function FaultTable({ title, points, locale, names, basis }: { title: string; points: FaultPoint[]; locale: string | undefined; names: ReadonlyMap<string, string>; basis?: string | undefined }) {
   if (!points.length) return null;
   return (
+    <>
+    <CsvButton name={title} />
     <div class="table-scroll" role="region" aria-label={title} tabIndex={0}>
     <table class="data panel-table">
       <caption>
@@ -113,6 +117,7 @@ function FaultTable({ title, points, locale, names, basis }: { title: string; po
       </tbody>
     </table>
     </div>
+    </>
   );
 }
 
@@ -151,6 +156,7 @@ export function StartingPanel({ solved }: { solved: Solved }) {
       )}
       <FaultTable title="Battery prospective short-circuit current" points={r.batteryFaults.points} locale={locale} names={names} basis={r.batteryFaults.voltageBasis} />
       <FaultTable title={`AC available fault current (IEC 60909, c = ${r.acFaults.voltageFactor ?? '—'})`} points={r.acFaults.points} locale={locale} names={names} />
+      {r.devices.length ? <CsvButton name="Protective devices" /> : null}
       {r.devices.length ? (
         <div class="table-scroll" role="region" aria-label="Protective devices" tabIndex={0}>
         <table class="data panel-table" data-testid="device-checks">

@@ -6,6 +6,11 @@
 import { demoProjects } from '../../core/page.ts';
 
 export const DEMO_HASH_PREFIX = '#demo=';
+/** A read-only share link's fragment (web/state/share.ts): the project itself, compressed. */
+export const SHARE_HASH_PREFIX = '#share=';
+
+/** Does the address carry a shared project (read by web/state/share-open.ts, loaded only then)? */
+export const isShareHash = (hash: string): boolean => hash.startsWith(SHARE_HASH_PREFIX);
 
 /** decodeURIComponent that never throws: undefined for a malformed escape ("%E0%A4%A", "%"). */
 export function decodeHashValue(text: string): string | undefined {

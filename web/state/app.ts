@@ -8,7 +8,7 @@ import { computed, signal } from '@preact/signals';
 import { demoProjects } from '../../core/page.ts';
 import { draft, draftOrigin, loadProject, type DraftProject } from './editor.ts';
 import { importFile, openLatestStored, openStored, storageNotice, storedIdFromHash } from '../storage/session.ts';
-import { addressProblem, demoIdFromHash, hashForDemo } from './address.ts';
+import { addressProblem, demoIdFromHash, hashForDemo, isShareHash } from './address.ts';
 
 // The hash parsing is pure (address.ts); re-exported for the page's modules that read it from here.
 export { addressProblem, demoIdFromHash, hashForDemo } from './address.ts';
@@ -67,6 +67,13 @@ export function openFromAddress(): void {
   if (problem) {
     storageNotice.value = problem;
     if (!draft.value) void openLatestStored().then((ok) => ok || openFirstDemo());
+    return;
+  }
+  // A read-only share link (#share=…): decoded on demand (web/state/share-open.ts); a bad one opens as without an address.
+  if (isShareHash(hash)) {
+    void import('./share-open.ts').then(async (m) => {
+      if (!(await m.openShared(hash)) && !draft.value) openFirstDemo();
+    });
     return;
   }
   // A stored project (#project=<id>); with nothing named, the project saved last, else the first demo.

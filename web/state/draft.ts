@@ -25,7 +25,8 @@ export type DraftProject = {
 
 /** Where the open project came from. */
 export interface DraftOrigin {
-  kind: 'demo' | 'file' | 'new' | 'stored';
+  /** 'shared': opened from a read-only share link (web/state/share-open.ts): no edit is taken, nothing is stored. */
+  kind: 'demo' | 'file' | 'new' | 'stored' | 'shared';
   title: string;
   summary?: string;
   demoId?: string;
@@ -156,6 +157,11 @@ export function edit(
  * do), since no draft or element is ever changed in place.
  */
 export function commit(current: DraftProject, next: DraftProject, label: string, options: { coalesce?: string; select?: string | null }): void {
+  // A project opened from a share link is read-only: save a copy to change it.
+  if (draftOrigin.peek()?.kind === 'shared') {
+    lastChange.value = 'Not done: a shared project is read-only. Save a copy to your projects to change it.';
+    return;
+  }
   batch(() => {
     const sameField = options.coalesce !== undefined && options.coalesce === lastCoalesceKey && past.value.length > 0;
     if (!sameField) {

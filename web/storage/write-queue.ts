@@ -212,6 +212,8 @@ export function followDraft(): void {
     if (origin?.kind !== 'stored' && saveStatus.peek().state !== 'failed') saveStatus.value = { state: 'idle' };
     return;
   }
+  // A shared project is read-only and never stored by itself (web/state/share-open.ts).
+  if (origin?.kind === 'shared') return;
   batch(markEdited);
 }
 

@@ -4,6 +4,7 @@
 import type { BackupStudyResult, Derate } from '../../../core/studies/index.ts';
 import { formatCurrent, formatDuration, formatEnergy, formatPercent, formatPower, formatSignificant, formatVoltage, UNIT_GAP } from '../../format/number.ts';
 import { formatTemperature, type UnitSystem } from '../../format/units.ts';
+import { CsvButton } from '../report/CsvButton.tsx';
 
 /** A derate's value in words: a share, a factor, an energy, a time. */
 export function derateValue(d: Derate, locale: string | undefined, units: UnitSystem): string {
@@ -97,6 +98,7 @@ export function Sizing({ study, locale }: { study: BackupStudyResult; locale: st
       </p>
       <details class="panel-steps">
         <summary>The working, step by step</summary>
+        <CsvButton name="Battery sizing steps" />
         <div class="table-scroll" role="region" aria-label="Sizing steps" tabIndex={0}>
           <table class="data panel-table">
             <thead>

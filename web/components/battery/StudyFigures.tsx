@@ -7,6 +7,7 @@ import { formatCurrent, formatDuration, formatEnergy, formatPercent, formatPower
 import { formatTemperature, type UnitSystem } from '../../format/units.ts';
 import { TimeChart, type ChartSeries } from '../charts/TimeChart.tsx';
 import { derateValue, Sizing } from './Sizing.tsx';
+import { CsvButton } from '../report/CsvButton.tsx';
 
 function RechargeFigures({ study, locale }: { study: BackupStudyResult; locale: string | undefined }) {
   const r = study.recharge;
@@ -163,6 +164,7 @@ export function StudyFigures({ study, cautions, locale, units }: { study: Backup
       </section>
       <section class="panel-section" aria-labelledby="battery-derates-heading">
         <h4 id="battery-derates-heading">Why not simply Wh ÷ W</h4>
+        <CsvButton name="Battery derates" />
         <div class="table-scroll" role="region" aria-labelledby="battery-derates-heading" tabIndex={0}>
           <table class="data panel-table" data-testid="battery-derates">
             <thead>

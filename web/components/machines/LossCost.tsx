@@ -10,6 +10,7 @@ import { formatForInput, parseLocaleNumber } from '../../format/parse.ts';
 import { currencySymbol, formatMoney } from '../../format/panels.ts';
 import { costPrefProblem, energyPrice, operatingHours } from '../../state/prefs.ts';
 import { type Locale, ProblemLines } from './shared.tsx';
+import { CsvButton } from '../report/CsvButton.tsx';
 
 /** A number setting kept in the user's preferences (typed in their number format, checked by core). */
 function PrefNumber({
@@ -73,6 +74,7 @@ export function LossCost({ lossCost, locale }: { lossCost: MachinesFigures['loss
   return (
     <section class="panel-section" aria-labelledby="loss-cost-heading" data-testid="loss-cost">
       <h4 id="loss-cost-heading">What the losses cost per year</h4>
+      {cost?.ok && <CsvButton name="Yearly cost of losses" />}
       <div class="study-settings study-settings--inline">
         <PrefNumber
           id="cost-price"

@@ -9,6 +9,7 @@ import { useWorkerReply } from '../panel-client.ts';
 import { formatApparent, formatCurrent, formatPercent, formatPower, formatPowerFactor, formatReactive, formatSignificant, formatVoltage, UNIT_GAP } from '../../format/number.ts';
 import { formatForInput, parseLocaleNumber } from '../../format/parse.ts';
 import { type Locale, ProblemLines } from './shared.tsx';
+import { CsvButton } from '../report/CsvButton.tsx';
 
 export function PfCorrectionControl({ solved, locale }: { solved: Solved; locale: Locale }) {
   const result = solved.result;
@@ -152,6 +153,7 @@ function PfResult({ c, locale }: { c: PfCorrectionShown; locale: Locale }) {
           </dd>
         </div>
       </dl>
+      {c.upstream.length > 0 && <CsvButton name="Upstream of the bank" />}
       {c.upstream.length > 0 && (
         <div class="table-scroll" role="region" aria-label="Upstream of the bank, before and after" tabIndex={0}>
           <table class="data panel-table" data-testid="pfc-upstream">

@@ -5,6 +5,7 @@ import type { MachinesFigures } from '../panel-worker.ts';
 import { formatEnergy, formatPercent, formatSignificant, UNIT_GAP } from '../../format/number.ts';
 import { formatMoney } from '../../format/panels.ts';
 import { type Locale, ProblemLines } from './shared.tsx';
+import { CsvButton } from '../report/CsvButton.tsx';
 
 export function PumpDuty({ duty, locale }: { duty: NonNullable<MachinesFigures['pumpDuty']>; locale: Locale }) {
   if (!duty.ok) {
@@ -25,6 +26,7 @@ export function PumpDuty({ duty, locale }: { duty: NonNullable<MachinesFigures['
   return (
     <section class="panel-section" aria-labelledby="pump-duty-heading" data-testid="pump-duty-study">
       <h4 id="pump-duty-heading">Pump duty: flow control over a year</h4>
+      <CsvButton name="Pump duty" />
       <p class="note">
         {formatSignificant(f.totalHours, 5, locale)}
         {UNIT_GAP}h a year over {f.points.length} duty points. Method: {f.method}.

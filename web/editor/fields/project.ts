@@ -24,6 +24,9 @@ function basisOnly(p: FormElement): DropLimits {
 export const PROJECT_FIELDS: readonly FieldSpec[] = [
   { type: 'text', path: 'name', label: 'Project name', required: true },
   { type: 'text', path: 'description', label: 'Description', required: false, multiline: true, help: 'Site, purpose, anything the client report should say.' },
+  { type: 'text', path: 'client', label: 'Client', required: false, help: 'Who the design is for: printed on the report’s first page.' },
+  { type: 'text', path: 'site', label: 'Site', required: false, help: 'Address or name of the installation: printed on the report’s first page.' },
+  { type: 'text', path: 'preparedBy', label: 'Prepared by', required: false, help: 'Your name, firm or licence number: printed on the report’s first page.' },
   {
     type: 'choice',
     path: 'dropLimits.basis',
