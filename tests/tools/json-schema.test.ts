@@ -160,5 +160,5 @@ describe('$schema in a project file', () => {
     const run = spawnSync(join('node_modules', '.bin', 'tsx'), ['core/cli/cli.ts', 'core/demos/hillside-relay-hut.json'], { encoding: 'utf8', cwd: ROOT });
     expect(run.stderr).toBe('');
     expect(run.status).toBe(0);
-  });
+  }, 30_000); // one tsx process start: seconds on a loaded machine
 });
