@@ -105,9 +105,13 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await chainOp(page, 'op-remove');
       await expect.poll(() => cards(page).count()).toBe(4);
       await expect.poll(() => balance(page)).toMatch(/Loads use 500 W/);
-      // A refusal is said politely and changes nothing: the source cannot be removed.
+      // The source's tools offer no Remove (a project keeps its source); the Delete key is refused
+      // politely and changes nothing.
       await cards(page).first().click();
-      await chainOp(page, 'op-remove');
+      await expect.poll(() => page.getByTestId('card-tools').count()).toBe(1);
+      expect(await page.getByTestId('op-remove').count()).toBe(0);
+      await cards(page).first().focus();
+      await page.keyboard.press('Delete');
       await expect.poll(() => page.getByTestId('editor-status').innerText()).toMatch(/source feeds the whole chain/);
       expect(await cards(page).count()).toBe(4);
       // Every control in the editor is a 44 px touch target at least.
@@ -127,7 +131,9 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
   it('builds the same chain by keyboard alone, moves along it with arrows, removes with Delete and undoes with Ctrl+Z (desktop)', async () => {
     const { context, page, errors } = await openPage(VIEWPORTS.desktop);
     try {
-      await page.keyboard.press('Tab');
+      // The projects column follows the project in reading order: start from the demo picker's first
+      // link, then keys alone.
+      await page.locator('a[data-demo-id]').first().focus();
       await tabTo(page, '[data-testid="new-chain"]');
       await page.keyboard.press('Enter');
       // The chooser opens on the next render: wait for it before tabbing, or a loaded machine tabs past it.
@@ -139,7 +145,8 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await expect.poll(() => focusedMatches(page, '[data-card-id="bank"]')).toBe(true);
 
       const addAfterByKeys = async (kind: string) => {
-        await tabTo(page, '[data-testid="op-add-after"]', true);
+        // The selected card's tools come right after the cards.
+        await tabTo(page, '[data-testid="op-add-after"]');
         await page.keyboard.press('Enter');
         await expect.poll(() => focusedMatches(page, '.kind-option')).toBe(true);
         await tabTo(page, `.kind-option[data-kind="${kind}"]`);
