@@ -146,6 +146,10 @@ const ChainEditorView = memo(function ChainEditorView({
     }
   });
 
+  // The selected card's fitting operations, worked out again only when the chain or the selection changes.
+  const selectedNow = selectedId.value;
+  const fitting = useMemo(() => (p && selectedNow !== null ? fittingActions(p, selectedNow) : []), [p, selectedNow]);
+
   if (!p) return null;
   const layout = layoutOf(p);
   const ports = nominalPorts(p);
@@ -300,7 +304,6 @@ const ChainEditorView = memo(function ChainEditorView({
   const open = chooser.value && chooser.value.target === selected ? chooser.value : null;
   const offered = open ? offeredTemplates(p, open.op, open.target) : [];
   // The selected card's operations that fit it: the first ones on the toolbar, the rest in "More".
-  const fitting = selected ? fittingActions(p, selected) : [];
   const tools = { primary: fitting.filter((a) => PRIMARY_ACTIONS.includes(a)), more: fitting.filter((a) => !PRIMARY_ACTIONS.includes(a)) };
 
   return (
