@@ -63,8 +63,11 @@ describe.skipIf(skipWithout('chromium'))('offline use (service worker, stored pr
     expect(manifest.name).toBe('Joulepath');
     expect(manifest.icons.some((i) => i.purpose === 'maskable')).toBe(true);
     expect(manifest.icons.map((i) => i.sizes)).toEqual(expect.arrayContaining(['192x192', '512x512']));
+    await showProjectsView(page);
     await page.getByText('Storage and offline use').click();
     await expect.poll(async () => page.getByTestId('offline-ready').innerText()).toMatch(/Works offline/);
+    await page.getByTestId('projects-back').click();
+    await page.getByTestId('project').waitFor();
   });
 
   it('stores the first edit of a demo as a copy, which a reload opens again', async () => {
@@ -155,6 +158,9 @@ describe.skipIf(skipWithout('chromium'))('offline use (service worker, stored pr
     await page.getByText('Storage and offline use').click();
     expect(await page.getByTestId('storage-details').innerText()).toContain('version 0.1.0.');
     expect(await dumpStore(page)).toBe(storedBefore);
+    // Back to the project (the projects view is a history entry a reload would keep).
+    await page.getByTestId('projects-back').click();
+    await page.getByTestId('project').waitFor();
     await Promise.all([page.waitForEvent('load', { timeout: 60_000 }), prompt.getByRole('button', { name: 'Reload now' }).click()]);
     await waitForResults(page);
     await showProjectsView(page);
