@@ -339,6 +339,7 @@ const ChainEditorView = memo(function ChainEditorView({
         </div>
         {selected && (
           <div class="editor__toolbar" role="toolbar" aria-label={`Change the chain at ${selectedName}`} aria-controls="chain-cards" data-testid="card-tools">
+            <span class="editor__toolbar-subject" aria-hidden="true">{selectedName}</span>
             {tools.primary.map((a) => (
               <ToolButton key={a} icon={TOOL_WORDS[a].icon} label={TOOL_WORDS[a].label} testId={TOOL_WORDS[a].testId} action={a} onAct={onAct}
                 expanded={a === 'after' || a === 'branch' ? open?.op === a : undefined} />
