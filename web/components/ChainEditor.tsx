@@ -146,13 +146,16 @@ const ChainEditorView = memo(function ChainEditorView({
     }
   });
 
-  // The selected card's fitting operations, worked out again only when the chain or the selection changes.
+  // The selected card's fitting operations, worked out again only when the selection, the chain's shape
+  // (ids, feeders, kinds) or a nominal port changes, not at every keystroke in a name or a rating (they
+  // cost up to 1 ms on a demo; the chooser itself is worked out afresh when opened).
+  const ports = useMemo(() => (p ? nominalPorts(p) : new Map<string, FeedingPort>()), [p]);
   const selectedNow = selectedId.value;
-  const fitting = useMemo(() => (p && selectedNow !== null ? fittingActions(p, selectedNow) : []), [p, selectedNow]);
+  const fitKey = p && selectedNow !== null ? `${p.elements.map((e) => `${e.id}<${e.from ?? ''}:${e.kind}`).join('|')}#${JSON.stringify([...ports])}` : '';
+  const fitting = useMemo(() => (p && selectedNow !== null ? fittingActions(p, selectedNow) : []), [fitKey, selectedNow]);
 
   if (!p) return null;
   const layout = layoutOf(p);
-  const ports = nominalPorts(p);
   const byId = new Map(p.elements.map((e) => [e.id, e]));
   const results = new Map<string, ElementResult>((result?.elements ?? []).map((r) => [r.id, r]));
   const stale = resultsState.value === 'stale';
