@@ -126,6 +126,16 @@ describe.skipIf(skipWithout('chromium'))('phone first', () => {
   it('shows the projects in their own view; Back (the button or the browser’s) returns to the project', async () => {
     const { context, page, errors } = await openDemo('hillside-relay-hut');
     try {
+      // The description is cut to two lines so the answers stay on the first screen; a tap shows it all.
+      const summary = page.locator('#project-summary');
+      const cut = (await summary.boundingBox())!.height;
+      const toggle = page.getByTestId('summary-toggle');
+      expect(await toggle.getAttribute('aria-expanded')).toBe('false');
+      await toggle.tap();
+      await expect.poll(async () => (await summary.boundingBox())!.height).toBeGreaterThan(cut * 2);
+      expect(await toggle.getAttribute('aria-expanded')).toBe('true');
+      await toggle.tap();
+      await expect.poll(async () => (await summary.boundingBox())!.height).toBe(cut);
       expect(await page.getByTestId('projects-view').isVisible()).toBe(false);
       expect(await page.getByTestId('project').isVisible()).toBe(true);
       await page.getByTestId('projects-button').tap();
@@ -170,6 +180,8 @@ describe.skipIf(skipWithout('chromium'))('phone first', () => {
     try {
       expect(await page.getByTestId('projects-view').isVisible()).toBe(true);
       expect(await page.getByTestId('projects-button').isVisible()).toBe(false);
+      // The description is whole on a wide screen, with no button to show it.
+      expect(await page.getByTestId('summary-toggle').count()).toBe(0);
       const answers = await page.getByTestId('answers').boundingBox();
       expect(answers!.y + answers!.height).toBeLessThanOrEqual(VIEWPORTS.desktop.height);
       const side = await page.getByTestId('projects-view').boundingBox();

@@ -13,7 +13,8 @@ import { CableTable, ElementTable, EnergyBalance, MethodNote, PortTable, Warning
 import { PanelDisclosure, PanelShelf } from './PanelShelf.tsx';
 import { AnswersStrip } from './answers/AnswersStrip.tsx';
 import { lazy, memo, Suspense } from 'preact/compat';
-import { useEffect, useRef } from 'preact/hooks';
+import { useSignal } from '@preact/signals';
+import { useEffect, useLayoutEffect, useRef } from 'preact/hooks';
 import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
 import { pageView, showProject, showProjects } from '../state/view.ts';
 import { crashMessage, draft, draftOrigin, draftProblems, lastSolved, openCount, resultsState } from '../state/editor.ts';
@@ -38,6 +39,32 @@ function StaleNotice() {
     <p class="notice notice--stale" role="status" data-testid="results-stale">
       Out of date: these are the last valid results. Fix the inputs marked below to update them.
     </p>
+  );
+}
+
+/**
+ * The project's description: on a phone cut to two lines (styles.css) so the answers stay on the first
+ * screen, with a button that shows it all; shown whole where it fits.
+ */
+function ProjectSummary({ text }: { text: string }) {
+  const open = useSignal(false);
+  const clipped = useSignal(false);
+  const ref = useRef<HTMLParagraphElement>(null);
+  useLayoutEffect(() => {
+    const el = ref.current;
+    if (el && !open.value) clipped.value = el.scrollHeight > el.clientHeight + 1;
+  }, [text]);
+  return (
+    <>
+      <p ref={ref} id="project-summary" class={open.value ? 'project__summary project__summary--open' : 'project__summary'}>
+        {text}
+      </p>
+      {clipped.value && (
+        <button type="button" class="summary-toggle" aria-expanded={open.value} aria-controls="project-summary" data-testid="summary-toggle" onClick={() => (open.value = !open.value)}>
+          {open.value ? 'Show less' : 'Show the whole description'}
+        </button>
+      )}
+    </>
   );
 }
 
@@ -68,7 +95,7 @@ function ShownProject() {
     <article class="project" aria-labelledby="project-heading" data-testid="project">
       <header class="project__header">
         <h2 id="project-heading" tabIndex={-1}>{shownTitle.value}</h2>
-        {description && <p class="project__summary">{description}</p>}
+        {description && <ProjectSummary key={openCount.value} text={description} />}
       </header>
       {result && <AnswersStrip result={result} stale={stale} />}
       <Suspense fallback={<p class="note">Opening the chain editor…</p>}><ChainEditor /></Suspense>
