@@ -15,7 +15,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type AxeViolation, type ServedApp, fullPageScreenshot } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type AxeViolation, type ServedApp, fullPageScreenshot, chooseSetting, pickDemo } from './harness.ts';
 
 
 
@@ -69,10 +69,10 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       expect(ids).toHaveLength(3);
       const failures: string[] = [];
       for (const theme of ['light', 'dark'] as const) {
-        await page.getByTestId('theme-select').selectOption(theme);
+        await chooseSetting(page, 'theme-select', theme);
         await expect.poll(() => page.evaluate('document.documentElement.dataset.theme')).toBe(theme);
         for (const id of ids) {
-          await page.locator(`a[data-demo-id="${id}"]`).click();
+          await pickDemo(page, id);
           await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
           await page.getByTestId('element-table').waitFor();
           const found = await seriousAxeViolations(page);
@@ -96,10 +96,10 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
     try {
       const failures: string[] = [];
       for (const theme of ['light', 'dark'] as const) {
-        await page.getByTestId('theme-select').selectOption(theme);
+        await chooseSetting(page, 'theme-select', theme);
         await expect.poll(() => page.evaluate('document.documentElement.dataset.theme')).toBe(theme);
         for (const id of ['hillside-relay-hut', 'riverside-pump-station', 'cold-store-dc-bus']) {
-          await page.locator(`a[data-demo-id="${id}"]`).click();
+          await pickDemo(page, id);
           await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
           await page.getByTestId('element-table').waitFor();
           const panels = page.locator('details.panel');
@@ -129,7 +129,7 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       await expect.poll(() => page.evaluate('document.documentElement.dataset.theme')).toBe('dark');
       const bg = await page.evaluate('getComputedStyle(document.body).backgroundColor');
       expect(bg).toBe('rgb(15, 20, 18)'); // --bg of the dark theme in web/styles.css
-      await page.getByTestId('theme-select').selectOption('light');
+      await chooseSetting(page, 'theme-select', 'light');
       await expect.poll(() => page.evaluate('getComputedStyle(document.body).backgroundColor')).toBe('rgb(244, 245, 242)');
     } finally {
       await context.close();
@@ -145,7 +145,9 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
             && !(el.tagName === 'BUTTON' && el.textContent.trim() !== ''))
           .map((el) => el.outerHTML.slice(0, 80))`);
         expect(unlabeled).toEqual([]);
+        // Every control drawn on screen (those of the other view and of a closed menu are not drawn).
         const small = await page.evaluate(`[...document.querySelectorAll('a[href], select, button, label.picker__open')]
+          .filter((el) => el.getClientRects().length > 0)
           .map((el) => ({ el: el.outerHTML.slice(0, 60), h: el.getBoundingClientRect().height, w: el.getBoundingClientRect().width }))
           .filter((t) => t.h < 44 || t.w < 44)`);
         expect(small).toEqual([]);
@@ -164,8 +166,8 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
   it('switches units and locale without changing the figures, and remembers the choice', async () => {
     const { context, page, errors } = await openPage(VIEWPORTS.desktop);
     try {
-      await page.getByTestId('locale-select').selectOption('en-US');
-      await page.getByTestId('units-select').selectOption('si');
+      await chooseSetting(page, 'locale-select', 'en-US');
+      await chooseSetting(page, 'units-select', 'si');
       // The demo with an engine-sized cable: its length and conductor are shown.
       const demo = page.locator('a[data-demo-id="cold-store-dc-bus"]');
       await demo.click();
@@ -177,7 +179,7 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       expect(lengthsSi.every((t) => /^\d[\d,.]*\s?m$/.test(t.trim())), lengthsSi.join(' | ')).toBe(true);
 
       // US customary: lengths in ft (40 m = 131.2 ft, 1 ft = 0.3048 m exactly, NIST SP 811 B.8).
-      await page.getByTestId('units-select').selectOption('us');
+      await chooseSetting(page, 'units-select', 'us');
       await expect.poll(async () => (await cables.getByTestId('cable-length').allTextContents()).join(' | ')).toMatch(/ft/);
       const lengthsUs = await cables.getByTestId('cable-length').allTextContents();
       expect(lengthsUs.every((t) => /^\d[\d,.]*\s?ft$/.test(t.trim())), lengthsUs.join(' | ')).toBe(true);
@@ -186,24 +188,24 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       expect(sizeText).toMatch(/mm² \([\d.]+\s?kcmil\)/);
 
       // Shaft power gets horsepower beside kW (1 hp = 745.7 W, NIST SP 811 B.8) on the pump demo.
-      await page.locator('a[data-demo-id="riverside-pump-station"]').click();
+      await pickDemo(page, 'riverside-pump-station');
       await expect.poll(async () => ((await page.getByTestId('port-table').textContent()) ?? '').includes('hp')).toBe(true);
       await demo.click();
       await cables.waitFor();
 
       // German number format: decimal comma, full stop for thousands (CLDR de).
-      await page.getByTestId('locale-select').selectOption('de-DE');
+      await chooseSetting(page, 'locale-select', 'de-DE');
       await expect.poll(async () => (await cables.getByTestId('cable-length').allTextContents()).join(' | ')).toContain('131,2\u202fft');
       expect(await page.getByTestId('totals-efficiency').textContent()).toMatch(/^\d{1,3}(,\d+)?\s?%$/);
 
       // Back to SI and en-US: exactly the text first shown (nothing was recomputed or rounded away).
-      await page.getByTestId('units-select').selectOption('si');
-      await page.getByTestId('locale-select').selectOption('en-US');
+      await chooseSetting(page, 'units-select', 'si');
+      await chooseSetting(page, 'locale-select', 'en-US');
       await expect.poll(() => project.textContent()).toBe(siText);
 
       // The choice survives a reload (localStorage).
-      await page.getByTestId('units-select').selectOption('us');
-      await page.getByTestId('locale-select').selectOption('de-DE');
+      await chooseSetting(page, 'units-select', 'us');
+      await chooseSetting(page, 'locale-select', 'de-DE');
       await page.reload({ waitUntil: 'load' });
       await page.getByTestId('cable-table').waitFor();
       await expect.poll(() => page.getByTestId('units-select').inputValue()).toBe('us');
@@ -219,9 +221,9 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
   it('keeps working when the browser refuses to store the choice', async () => {
     const { context, page, errors } = await openPage(VIEWPORTS.phone, { brokenStorage: true });
     try {
-      await page.getByTestId('units-select').selectOption('us');
-      await page.getByTestId('locale-select').selectOption('de-DE');
-      await page.locator('a[data-demo-id="cold-store-dc-bus"]').click();
+      await chooseSetting(page, 'units-select', 'us');
+      await chooseSetting(page, 'locale-select', 'de-DE');
+      await pickDemo(page, 'cold-store-dc-bus');
       await expect.poll(async () => (await page.getByTestId('cable-length').allTextContents()).join(' | ')).toContain('131,2\u202fft');
       expect(errors).toEqual([]);
     } finally {

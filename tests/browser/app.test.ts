@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp, fullPageScreenshot } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp, fullPageScreenshot, pickDemo, showProjectsView } from './harness.ts';
 
 
 describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
@@ -71,7 +71,7 @@ describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
       // The first demo is open before any tap.
       await expectTablesShown(page);
       for (const id of ids) {
-        await page.locator(`a[data-demo-id="${id}"]`).click();
+        await pickDemo(page, id);
         await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
         expect(page.url()).toContain(`#demo=${id}`);
         await expectTablesShown(page);
@@ -121,7 +121,8 @@ describe.skipIf(skipWithout('chromium'))('the page in Chromium', () => {
       await page.getByTestId('open-file').setInputFiles({ name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('not json') });
       await expect.poll(async () => (await page.getByTestId('unreadable').innerText()).includes('not a JSON project file')).toBe(true);
 
-      // Tapping a demo again leaves the file and shows the demo.
+      // Tapping a demo again (in the projects view) leaves the file and shows the demo.
+      await showProjectsView(page);
       await page.locator('a[data-demo-id]').first().click();
       await expectTablesShown(page);
       expect(errors).toEqual([]);

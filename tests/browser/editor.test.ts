@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp, fullPageScreenshot } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp, fullPageScreenshot, chainOp, pickDemo, showProjectsView } from './harness.ts';
 
 describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
   let app: ServedApp | undefined;
@@ -54,6 +54,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
   it('builds a chain by tapping: battery → inverter → cable → AC load; duplicate, remove, undo, redo (phone)', async () => {
     const { context, page, errors } = await openPage(VIEWPORTS.phone);
     try {
+      await showProjectsView(page);
       await page.getByTestId('new-chain').click();
       await page.locator('button[data-source="battery-48"]').click();
       await expect.poll(() => cards(page).count()).toBe(1);
@@ -63,7 +64,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       const empty = await balance(page);
 
       const addAfter = async (kind: string) => {
-        await page.getByTestId('op-add-after').click();
+        await chainOp(page, 'op-add-after');
         await page.getByTestId('kind-chooser').waitFor();
         await page.locator(`.kind-option[data-kind="${kind}"]`).click();
       };
@@ -89,7 +90,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await page.screenshot({ path: join(artifacts, 'editor-phone-built-view.png') });
 
       // Duplicate the load: a second branch from the cable.
-      await page.getByTestId('op-duplicate').click();
+      await chainOp(page, 'op-duplicate');
       await expect.poll(() => cards(page).count()).toBe(5);
       await expect.poll(() => balance(page)).toMatch(/Loads use 1 kW/);
       // Undo and redo the duplicate.
@@ -101,12 +102,16 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await expect.poll(() => cards(page).count()).toBe(5);
       await fullPageScreenshot(page, join(artifacts, 'editor-phone-branches.png'));
       // Remove the copy; the balance follows.
-      await page.getByTestId('op-remove').click();
+      await chainOp(page, 'op-remove');
       await expect.poll(() => cards(page).count()).toBe(4);
       await expect.poll(() => balance(page)).toMatch(/Loads use 500 W/);
-      // A refusal is said politely and changes nothing: the source cannot be removed.
+      // The source's tools offer no Remove (a project keeps its source); the Delete key is refused
+      // politely and changes nothing.
       await cards(page).first().click();
-      await page.getByTestId('op-remove').click();
+      await expect.poll(() => page.getByTestId('card-tools').count()).toBe(1);
+      expect(await page.getByTestId('op-remove').count()).toBe(0);
+      await cards(page).first().focus();
+      await page.keyboard.press('Delete');
       await expect.poll(() => page.getByTestId('editor-status').innerText()).toMatch(/source feeds the whole chain/);
       expect(await cards(page).count()).toBe(4);
       // Every control in the editor is a 44 px touch target at least.
@@ -126,7 +131,9 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
   it('builds the same chain by keyboard alone, moves along it with arrows, removes with Delete and undoes with Ctrl+Z (desktop)', async () => {
     const { context, page, errors } = await openPage(VIEWPORTS.desktop);
     try {
-      await page.keyboard.press('Tab');
+      // The projects column follows the project in reading order: start from the demo picker's first
+      // link, then keys alone.
+      await page.locator('a[data-demo-id]').first().focus();
       await tabTo(page, '[data-testid="new-chain"]');
       await page.keyboard.press('Enter');
       // The chooser opens on the next render: wait for it before tabbing, or a loaded machine tabs past it.
@@ -138,7 +145,8 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await expect.poll(() => focusedMatches(page, '[data-card-id="bank"]')).toBe(true);
 
       const addAfterByKeys = async (kind: string) => {
-        await tabTo(page, '[data-testid="op-add-after"]', true);
+        // The selected card's tools come right after the cards.
+        await tabTo(page, '[data-testid="op-add-after"]');
         await page.keyboard.press('Enter');
         await expect.poll(() => focusedMatches(page, '.kind-option')).toBe(true);
         await tabTo(page, `.kind-option[data-kind="${kind}"]`);
@@ -194,7 +202,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
       await page.getByTestId('new-chain').click();
       await page.locator('button[data-source="grid-3-480-60"]').click();
       await expect.poll(() => cards(page).count()).toBe(1);
-      await page.getByTestId('op-add-after').click();
+      await chainOp(page, 'op-add-after');
       await page.getByTestId('kind-chooser').waitFor();
       await page.locator('.kind-option[data-kind="motor"]').click();
       await expect.poll(() => cards(page).count()).toBe(2);
@@ -217,7 +225,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
     for (const [label, viewport] of Object.entries(VIEWPORTS)) {
       const { context, page, errors } = await openPage(viewport);
       try {
-        await page.locator('a[data-demo-id="hillside-relay-hut"]').click();
+        await pickDemo(page, 'hillside-relay-hut');
         await expect.poll(() => cards(page).count()).toBe(9);
         // The fridge and the lights are sibling branches of the inverter's cable.
         await page.locator('[data-card-id="fridge"]').click();
@@ -228,7 +236,7 @@ describe.skipIf(skipWithout('chromium'))('the chain editor in Chromium', () => {
         expect(await page.locator('[data-card-id="fridge"]').innerText()).toMatch(/uses 150\sW/);
         // Branch up: the lights come before the fridge.
         await page.locator('[data-card-id="lights"]').click();
-        await page.getByTestId('op-branch-up').click();
+        await chainOp(page, 'op-branch-up');
         await expect
           .poll(async () => {
             const texts = await cards(page).allInnerTexts();

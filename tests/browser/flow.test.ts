@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp, pickDemo } from './harness.ts';
 import { demoProjects, flowGraph, solveProject, type FlowGraph } from '../../core/index.ts';
 import { formatPercent, formatPower } from '../../web/format/number.ts';
 
@@ -60,7 +60,7 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
   }
 
   async function showDemo(page: Page, id: string): Promise<void> {
-    await page.locator(`a[data-demo-id="${id}"]`).click();
+    await pickDemo(page, id);
     await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
     await page.getByTestId('flow-svg').waitFor();
   }

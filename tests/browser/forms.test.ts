@@ -13,7 +13,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp, chooseSetting } from './harness.ts';
 
 
 /** Serious and critical axe-core violations inside the stage form. */
@@ -94,7 +94,7 @@ describe.skipIf(skipWithout('chromium'))('stage forms in Chromium', () => {
       expect(await formViolations(page)).toEqual([]);
       // The other stage kinds of the demo, in the dark theme too (labels, contrast, names).
       for (const theme of ['light', 'dark']) {
-        await page.getByTestId('theme-select').selectOption(theme);
+        await chooseSetting(page, 'theme-select', theme);
         for (const id of ['rectifier', 'ctl-cable', 'poe', 'bus']) {
           await select(page, id);
           expect(await formViolations(page), `${id} (${theme})`).toEqual([]);
@@ -120,23 +120,23 @@ describe.skipIf(skipWithout('chromium'))('stage forms in Chromium', () => {
       await select(page, 'fan-cable');
       const length = field(page, 'length');
       expect(await length.inputValue()).toBe('35');
-      await page.getByTestId('units-select').selectOption('us');
+      await chooseSetting(page, 'units-select', 'us');
       // 35 m ÷ 0.3048 m/ft (NIST SP 811 B.8), 12 significant digits in the input.
       await expect.poll(() => length.inputValue()).toBe('114.829396325');
       expect(await page.locator('[data-testid="stage-form"] [data-path="length"] .sf-unit').innerText()).toBe('ft');
       expect(await field(page, 'resistancePerKm').inputValue()).toBe('2.65176'); // 8.7 Ω/km × 0.3048 = Ω per 1000 ft
-      await page.getByTestId('units-select').selectOption('si');
+      await chooseSetting(page, 'units-select', 'si');
       await expect.poll(() => length.inputValue()).toBe('35');
 
       // Typing in feet stores metres: 100 ft = 30.48 m.
-      await page.getByTestId('units-select').selectOption('us');
+      await chooseSetting(page, 'units-select', 'us');
       await length.fill('100');
       await length.blur();
-      await page.getByTestId('units-select').selectOption('si');
+      await chooseSetting(page, 'units-select', 'si');
       await expect.poll(() => length.inputValue()).toBe('30.48');
 
       // An error on a phone, for a person to look at.
-      await page.getByTestId('units-select').selectOption('us');
+      await chooseSetting(page, 'units-select', 'us');
       await length.fill('12o');
       await expect.poll(() => messageAt(page, 'length').innerText()).toBe("Route length (one way): '12o' is not a number");
       await page.locator('[data-testid="stage-form"] [data-path="length"]').scrollIntoViewIfNeeded();

@@ -152,3 +152,30 @@ export async function seriousAxeViolations(page: Page, scope = 'document'): Prom
   const violations = (await page.evaluate(`window.axe.run(${scope}, { resultTypes: ['violations'] }).then((r) => r.violations)`)) as AxeViolation[];
   return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
 }
+
+/** Open a demo from the demo picker; on a narrow screen the picker is in the projects view, opened first. */
+export async function pickDemo(page: Page, id: string): Promise<void> {
+  await showProjectsView(page);
+  await page.locator(`a[data-demo-id="${id}"]`).click();
+}
+
+/** Show the projects view (stored projects, demo picker) when it is not on screen (a narrow screen). */
+export async function showProjectsView(page: Page): Promise<void> {
+  if (!(await page.getByTestId('projects-view').isVisible())) await page.getByTestId('projects-button').click();
+}
+
+/** Choose a display setting (units, number format, theme) in the header's settings menu, then close it. */
+export async function chooseSetting(page: Page, testId: 'units-select' | 'locale-select' | 'theme-select', value: string): Promise<void> {
+  const button = page.getByTestId('settings-button');
+  if ((await button.getAttribute('aria-expanded')) !== 'true') await button.click();
+  await page.getByTestId(testId).selectOption(value);
+  await page.getByTestId('settings-panel').getByRole('button', { name: 'Done' }).click();
+}
+
+/** Carry out a chain operation on the selected card: from its toolbar, or else from its "More" menu. */
+export async function chainOp(page: Page, testId: string): Promise<void> {
+  const direct = page.locator(`[data-testid="card-tools"] > [data-testid="${testId}"]`);
+  if ((await direct.count()) > 0) return direct.click();
+  await page.getByTestId('op-more').click();
+  await page.getByTestId('more-menu').getByTestId(testId).click();
+}

@@ -10,7 +10,7 @@ import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
 import { IMPORT_LIMITS, parseImportText } from '../../web/storage/file-format.ts';
-import { VIEWPORTS, serveBuiltApp, type ServedApp } from './harness.ts';
+import { VIEWPORTS, serveBuiltApp, type ServedApp, chainOp } from './harness.ts';
 import { newRecordedPage, storedRecords, waitForResults, waitSaved } from './offline-helpers.ts';
 
 /** One bank feeding `count − 1` small DC loads. */
@@ -76,11 +76,11 @@ describe.skipIf(skipWithout('chromium'))('the project file\'s limits while editi
     await expect.poll(() => page.locator('#project-heading').innerText(), { timeout: 60_000 }).toBe('Two thousand loads');
     await waitForResults(page);
     await page.locator('[data-testid="stage-card"][data-card-id="bank"]').click();
-    await page.getByTestId('op-add-branch').click();
+    await chainOp(page, 'op-add-branch');
     await expect.poll(() => page.getByTestId('editor-status').textContent()).toMatch(/at most 2000 elements/);
     expect(await page.getByTestId('kind-chooser').count()).toBe(0);
     await page.locator('[data-testid="stage-card"][data-card-id="l5"]').click();
-    await page.getByTestId('op-duplicate').click();
+    await chainOp(page, 'op-duplicate');
     await expect.poll(() => page.getByTestId('editor-status').textContent()).toMatch(/Not added: a project holds at most 2000 elements/);
     expect(await page.locator('[data-card-id]').count()).toBe(IMPORT_LIMITS.maxElements);
     const back = await exportAndCheck();

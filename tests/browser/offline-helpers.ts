@@ -4,7 +4,7 @@
  * made through the chain editor.
  */
 import type { BrowserContext, Page, Request } from 'playwright-core';
-import { watchPageErrors } from './harness.ts';
+import { watchPageErrors, chainOp } from './harness.ts';
 
 export interface RecordedPage {
   page: Page;
@@ -83,7 +83,7 @@ export async function cardCount(page: Page): Promise<number> {
 export async function duplicateLastStage(page: Page): Promise<void> {
   const before = await cardCount(page);
   await page.locator('[data-card-id]').last().click();
-  await page.getByTestId('op-duplicate').click();
+  await chainOp(page, 'op-duplicate');
   await pollPage(page, `document.querySelectorAll('[data-card-id]').length > ${before}`, 'the duplicated stage to appear');
 }
 

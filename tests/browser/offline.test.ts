@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp, fullPageScreenshot } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, type ServedApp, fullPageScreenshot, showProjectsView } from './harness.ts';
 import { cardCount, dumpStore, duplicateLastStage, median, newRecordedPage, storedRecords, waitForResults, waitForServiceWorker, waitSaved } from './offline-helpers.ts';
 
 /** Records, in the page, when the results table first appears (ms after navigation start), one frame later. */
@@ -63,8 +63,11 @@ describe.skipIf(skipWithout('chromium'))('offline use (service worker, stored pr
     expect(manifest.name).toBe('Joulepath');
     expect(manifest.icons.some((i) => i.purpose === 'maskable')).toBe(true);
     expect(manifest.icons.map((i) => i.sizes)).toEqual(expect.arrayContaining(['192x192', '512x512']));
+    await showProjectsView(page);
     await page.getByText('Storage and offline use').click();
     await expect.poll(async () => page.getByTestId('offline-ready').innerText()).toMatch(/Works offline/);
+    await page.getByTestId('projects-back').click();
+    await page.getByTestId('project').waitFor();
   });
 
   it('stores the first edit of a demo as a copy, which a reload opens again', async () => {
@@ -104,10 +107,12 @@ describe.skipIf(skipWithout('chromium'))('offline use (service worker, stored pr
       expect(await cardCount(page)).toBe(before);
       // A demo solves offline.
       const demo = page.locator('a[data-demo-id]').nth(1);
+      await showProjectsView(page);
       await demo.click();
       await waitForResults(page);
       await expect.poll(() => demo.getAttribute('aria-current')).toBe('page');
       // The stored project opens from the list, and an edit made offline survives a reload.
+      await showProjectsView(page);
       await page.getByTestId('project-list').locator('a.picker__item').first().click();
       await expect.poll(() => cardCount(page)).toBe(before);
       await duplicateLastStage(page);
@@ -149,11 +154,16 @@ describe.skipIf(skipWithout('chromium'))('offline use (service worker, stored pr
     await page.screenshot({ path: join(artifacts, 'update-prompt-phone.png') });
     // Nothing reloads by itself: the old version stays until the user taps.
     await page.waitForTimeout(1500);
+    await showProjectsView(page);
     await page.getByText('Storage and offline use').click();
     expect(await page.getByTestId('storage-details').innerText()).toContain('version 0.1.0.');
     expect(await dumpStore(page)).toBe(storedBefore);
+    // Back to the project (the projects view is a history entry a reload would keep).
+    await page.getByTestId('projects-back').click();
+    await page.getByTestId('project').waitFor();
     await Promise.all([page.waitForEvent('load', { timeout: 60_000 }), prompt.getByRole('button', { name: 'Reload now' }).click()]);
     await waitForResults(page);
+    await showProjectsView(page);
     await page.getByText('Storage and offline use').click();
     await expect.poll(() => page.getByTestId('storage-details').innerText()).toContain('version 0.1.0-next');
     expect(await page.getByTestId('update-prompt').count()).toBe(0);

@@ -8,7 +8,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp, chooseSetting } from './harness.ts';
 import { correctPowerFactor, demoProjects, formatBackupStudy, projectPumpDuty, runBackupStudy, solveProject } from '../../core/index.ts';
 import { lossCostPerYear } from '../../core/studies/economics.ts';
 import { formatDuration, formatEnergy, formatReactive, formatSignificant } from '../../web/format/number.ts';
@@ -179,14 +179,14 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
         expect(await page.getByTestId('path-drops').locator('tbody tr').count()).toBeGreaterThan(0);
         await page.getByTestId('panel-conductor').screenshot({ path: join(artifacts, `panel-conductor-${label}.png`) });
 
-        await page.getByTestId('units-select').selectOption('us');
+        await chooseSetting(page, 'units-select', 'us');
         // 10 mm² = 19.74 kcmil (÷ 0.506707, ASTM B258), between 8 AWG (8.37 mm², NEC Ch. 9 Table 8) and 7 AWG
         // (10.55 mm², ASTM B258 gauge formula d = 0.005 in × 92^((36 − n)/39)).
         await expect.poll(async () => plain(await card.getByTestId('conductor-size').textContent())).toBe('10 mm² (19.74 kcmil)');
         expect(await card.getByTestId('conductor-awg').textContent()).toContain('between 8 AWG and 7 AWG');
         expect(await noOverflow(page)).toBeLessThanOrEqual(0);
         await page.getByTestId('panel-conductor').screenshot({ path: join(artifacts, `panel-conductor-us-${label}.png`) });
-        await page.getByTestId('units-select').selectOption('si');
+        await chooseSetting(page, 'units-select', 'si');
         expect(errors).toEqual([]);
       } finally {
         await context.close();

@@ -14,7 +14,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp, fullPageScreenshot } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp, fullPageScreenshot, pickDemo } from './harness.ts';
 import { bankCautions, demoProjects, flowGraph, solveProject, CONDUCTOR_CAUTION } from '../../core/index.ts';
 import { formatPercent, formatPower } from '../../web/format/number.ts';
 import { extractText } from 'unpdf';
@@ -111,7 +111,7 @@ describe.skipIf(skipWithout('chromium'))('the client report in Chromium', () => 
 
   async function showDemo(page: Page, id: string): Promise<void> {
     await page.emulateMedia({ media: 'screen' });
-    await page.locator(`a[data-demo-id="${id}"]`).click();
+    await pickDemo(page, id);
     await expect.poll(() => page.locator(`a[data-demo-id="${id}"]`).getAttribute('aria-current')).toBe('page');
     await page.getByTestId('flow-svg').waitFor();
     await page.getByTestId('report-head').waitFor({ state: 'attached' });

@@ -1,15 +1,22 @@
-/** The page: header, demo picker, the open project (chain editor and results), and the footer. */
+/**
+ * The page: header (the Projects button, the settings menu), the open project (its name and answers
+ * first, then the chain editor and the results) and the projects view (stored projects, save line, demo
+ * picker, storage details), and the footer. On a narrow screen one of the two views is shown at a time
+ * (web/state/view.ts); on a wide one the projects sit in a side column beside the project.
+ */
 import { DemoPicker } from './DemoPicker.tsx';
 import { ProjectList } from './ProjectList.tsx';
 import { SaveLine, StorageAlerts, StorageDetails } from './StorageStatus.tsx';
-import { Preferences } from './Preferences.tsx';
+import { SettingsMenu } from './Preferences.tsx';
 import { ProblemList } from './ProblemList.tsx';
 import { CableTable, ElementTable, EnergyBalance, MethodNote, PortTable, WarningList } from './Results.tsx';
 import { PanelDisclosure, PanelShelf } from './PanelShelf.tsx';
 import { AnswersStrip } from './answers/AnswersStrip.tsx';
 import { lazy, memo, Suspense } from 'preact/compat';
-import { useEffect } from 'preact/hooks';
+import { useSignal } from '@preact/signals';
+import { useEffect, useLayoutEffect, useRef } from 'preact/hooks';
 import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
+import { pageView, showProject, showProjects } from '../state/view.ts';
 import { crashMessage, draft, draftOrigin, draftProblems, lastSolved, openCount, resultsState } from '../state/editor.ts';
 
 /** The energy-flow diagram (and d3-sankey) load only when a solved project is shown. */
@@ -38,13 +45,39 @@ function StaleNotice() {
   );
 }
 
+/**
+ * The project's description: on a phone cut to two lines (styles.css) so the answers stay on the first
+ * screen, with a button that shows it all; shown whole where it fits.
+ */
+function ProjectSummary({ text }: { text: string }) {
+  const open = useSignal(false);
+  const clipped = useSignal(false);
+  const ref = useRef<HTMLParagraphElement>(null);
+  useLayoutEffect(() => {
+    const el = ref.current;
+    if (el && !open.value) clipped.value = el.scrollHeight > el.clientHeight + 1;
+  }, [text]);
+  return (
+    <>
+      <p ref={ref} id="project-summary" class={open.value ? 'project__summary project__summary--open' : 'project__summary'}>
+        {text}
+      </p>
+      {clipped.value && (
+        <button type="button" class="summary-toggle" aria-expanded={open.value} aria-controls="project-summary" data-testid="summary-toggle" onClick={() => (open.value = !open.value)}>
+          {open.value ? 'Show less' : 'Show the whole description'}
+        </button>
+      )}
+    </>
+  );
+}
+
 function ShownProject() {
   const readError = fileReadError.value;
   if (readError) {
     return (
       <article class="project" aria-labelledby="project-heading" data-testid="project">
         <header class="project__header">
-          <h2 id="project-heading">{readError.fileName}</h2>
+          <h2 id="project-heading" tabIndex={-1}>{readError.fileName}</h2>
         </header>
         <section class="notice notice--error" role="alert" data-testid="unreadable">
           <p>{readError.message}</p>
@@ -65,8 +98,8 @@ function ShownProject() {
   return (
     <article class="project" aria-labelledby="project-heading" data-testid="project">
       <header class="project__header">
-        <h2 id="project-heading">{shownTitle.value}</h2>
-        {description && <p class="project__summary">{description}</p>}
+        <h2 id="project-heading" tabIndex={-1}>{shownTitle.value}</h2>
+        {description && <ProjectSummary key={openCount.value} text={description} />}
       </header>
       {shared && <Suspense fallback={null}><SharedBanner /></Suspense>}
       {result && <AnswersStrip result={result} stale={stale} />}
@@ -98,23 +131,58 @@ function ShownProject() {
   );
 }
 
+/** The narrow-screen layout (one view at a time), as in styles.css. */
+const NARROW = '(max-width: 959px)';
+
 export function App() {
   useEffect(() => openFromAddress(), []);
+  const view = pageView.value;
+  const backButton = useRef<HTMLButtonElement>(null);
+  const shownView = useRef(view);
+  // On a narrow screen a change of view starts at its top, with the focus on its first control.
+  useEffect(() => {
+    if (shownView.current === view) return;
+    shownView.current = view;
+    if (!globalThis.matchMedia?.(NARROW).matches) return;
+    globalThis.scrollTo(0, 0);
+    if (view === 'projects') backButton.current?.focus();
+    else document.getElementById('project-heading')?.focus({ preventScroll: true });
+  }, [view]);
   return (
     <div class="page">
       <header class="masthead">
         <p class="masthead__name">Joulepath</p>
         <p class="masthead__tagline">Power, losses and currents at every stage of a power chain</p>
-        <Preferences />
+        <nav class="masthead__tools" aria-label="Views and settings">
+          <button
+            type="button"
+            class="masthead__button masthead__projects"
+            aria-controls="projects-view"
+            aria-expanded={view === 'projects'}
+            data-testid="projects-button"
+            onClick={() => (view === 'projects' ? showProject({ viaHistory: true }) : showProjects())}
+          >
+            <svg class="masthead__icon" viewBox="0 0 20 20" width="20" height="20" aria-hidden="true" focusable="false">
+              <path d="M3 4h5l2 2h7v10H3z" fill="none" stroke="currentColor" stroke-width="1.8" stroke-linejoin="round" />
+            </svg>
+            <span>Projects</span>
+          </button>
+          <SettingsMenu />
+        </nav>
       </header>
-      <main class="layout">
-        <div class="sidebar">
+      <main class={`layout layout--${view}`} data-view={view}>
+        <div class="layout__project" id="project-view">
+          <ShownProject />
+        </div>
+        <div class="sidebar" id="projects-view" data-testid="projects-view">
+          <button type="button" class="store-btn sidebar__back" ref={backButton} data-testid="projects-back" onClick={() => showProject({ viaHistory: true })}>
+            ← Back to {shownTitle.value || 'the project'}
+          </button>
           <ProjectList />
           <SaveLine />
           <DemoPicker />
           <StorageDetails />
         </div>
-        <ShownProject />
       </main>
       <footer class="footer">
         <p>

@@ -1,8 +1,9 @@
 /**
  * The chain editor: the open project's chain as a flow of stage cards from the source to the loads,
- * with branches stacked; a toolbar of chain operations on the selected card (add after, add a
- * branch, insert before, remove, remove branch, duplicate, move, reorder), undo and redo, and the
- * selected stage's form. Every change goes through web/state/editor.ts; refusals are shown in a
+ * with branches stacked; under the cards, for the selected card only, a toolbar of the chain
+ * operations that fit it (chain/tools.ts: add after, add a branch, remove on the toolbar; insert
+ * before, duplicate, move, reorder, remove branch in its "More" menu), then the selected stage's
+ * form; undo and redo beside the heading. Every change goes through web/state/editor.ts; refusals are shown in a
  * polite status line.
  *
  * Keyboard: the cards are one composite widget with a roving tabindex. Tab enters the chain at the
@@ -51,7 +52,8 @@ import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { keyInputs, StageCard } from './StageCard.tsx';
 import { useOffscreenLag, type BoxRef } from './lag.ts';
 import { StageForm } from './StageForm.tsx';
-import { ADD_WORDS, NOTHING_OFFERED, type ToolAction, ToolButton } from './chain/Toolbar.tsx';
+import { ADD_WORDS, MoreMenu, NOTHING_OFFERED, TOOL_WORDS, type ToolAction, ToolButton } from './chain/Toolbar.tsx';
+import { fittingActions, PRIMARY_ACTIONS } from './chain/tools.ts';
 import { layoutOf, neighbour } from './chain/card-layout.ts';
 import './ChainEditor.css';
 
@@ -105,8 +107,8 @@ const ChainEditorView = memo(function ChainEditorView({
   const selectRef = useRef<(id: string, how: 'pointer' | 'keyboard') => void>(() => {});
   const onCardSelect = useCallback((id: string, how: 'pointer' | 'keyboard') => selectRef.current(id, how), []);
   // The toolbar's buttons likewise (memo'd): one handler that carries out the latest render's action.
-  const actRef = useRef<(action: ToolAction, ev: MouseEvent) => void>(() => {});
-  const onAct = useCallback((action: ToolAction, ev: MouseEvent) => actRef.current(action, ev), []);
+  const actRef = useRef<(action: ToolAction, opener: HTMLElement | null) => void>(() => {});
+  const onAct = useCallback((action: ToolAction, opener: HTMLElement | null) => actRef.current(action, opener), []);
   const onCardFocus = useCallback((fid: string) => {
     focusId.value = fid;
   }, [focusId]);
@@ -144,9 +146,16 @@ const ChainEditorView = memo(function ChainEditorView({
     }
   });
 
+  // The selected card's fitting operations, worked out again only when the selection, the chain's shape
+  // (ids, feeders, kinds) or a nominal port changes, not at every keystroke in a name or a rating (they
+  // cost up to 1 ms on a demo; the chooser itself is worked out afresh when opened).
+  const ports = useMemo(() => (p ? nominalPorts(p) : new Map<string, FeedingPort>()), [p]);
+  const selectedNow = selectedId.value;
+  const fitKey = p && selectedNow !== null ? `${p.elements.map((e) => `${e.id}<${e.from ?? ''}:${e.kind}`).join('|')}#${JSON.stringify([...ports])}` : '';
+  const fitting = useMemo(() => (p && selectedNow !== null ? fittingActions(p, selectedNow) : []), [fitKey, selectedNow]);
+
   if (!p) return null;
   const layout = layoutOf(p);
-  const ports = nominalPorts(p);
   const byId = new Map(p.elements.map((e) => [e.id, e]));
   const results = new Map<string, ElementResult>((result?.elements ?? []).map((r) => [r.id, r]));
   const stale = resultsState.value === 'stale';
@@ -178,10 +187,10 @@ const ChainEditorView = memo(function ChainEditorView({
   };
   selectRef.current = select;
 
-  actRef.current = (action, ev) => {
+  actRef.current = (action, opener) => {
     if (action === 'undo') return void undo();
     if (action === 'redo') return void redo();
-    if (action === 'after' || action === 'branch' || action === 'before') return openChooser(action, ev.currentTarget);
+    if (action === 'after' || action === 'branch' || action === 'before') return openChooser(action, opener);
     if (!selected) return;
     const ops = {
       duplicate: () => duplicate(selected),
@@ -195,7 +204,7 @@ const ChainEditorView = memo(function ChainEditorView({
     run(ops[action]);
   };
 
-  const openChooser = (op: AddOperation, opener: EventTarget | null) => {
+  const openChooser = (op: AddOperation, opener: HTMLElement | null) => {
     if (!selected) return;
     refused.value = null;
     // At the project file's element limit nothing is offered: the reason is shown instead.
@@ -203,7 +212,7 @@ const ChainEditorView = memo(function ChainEditorView({
       chooser.value = null;
       return;
     }
-    chooserOpener.current = opener instanceof HTMLElement ? opener : null;
+    chooserOpener.current = opener;
     if (chooser.value?.op === op && chooser.value.target === selected) {
       chooser.value = null;
       return;
@@ -297,6 +306,8 @@ const ChainEditorView = memo(function ChainEditorView({
   const selectedName = selected ? elementName(p, selected) : '';
   const open = chooser.value && chooser.value.target === selected ? chooser.value : null;
   const offered = open ? offeredTemplates(p, open.op, open.target) : [];
+  // The selected card's operations that fit it: the first ones on the toolbar, the rest in "More".
+  const tools = { primary: fitting.filter((a) => PRIMARY_ACTIONS.includes(a)), more: fitting.filter((a) => !PRIMARY_ACTIONS.includes(a)) };
 
   return (
     <section class="editor skip-offscreen" aria-labelledby="editor-heading" data-testid="chain-editor" ref={rootRef}>
@@ -307,53 +318,9 @@ const ChainEditorView = memo(function ChainEditorView({
           <ToolButton icon="redo" label="Redo" testId="redo" action="redo" onAct={onAct} disabled={!canRedo.value} title={canRedo.value ? `Redo: ${redoLabel.value} (Ctrl+Shift+Z)` : 'Nothing to redo'} />
         </div>
       </div>
-      <div class="editor__toolbar" role="toolbar" aria-label={selected ? `Change the chain at ${selectedName}` : 'Change the chain (select a stage first)'} aria-controls="chain-cards">
-        <ToolButton icon="after" label="Add after" testId="op-add-after" action="after" onAct={onAct} disabled={!selected} expanded={open?.op === 'after'} />
-        <ToolButton icon="branch" label="Add branch" testId="op-add-branch" action="branch" onAct={onAct} disabled={!selected} expanded={open?.op === 'branch'} />
-        <ToolButton icon="before" label="Insert before" testId="op-insert-before" action="before" onAct={onAct} disabled={!selected} expanded={open?.op === 'before'} />
-        <ToolButton icon="duplicate" label="Duplicate" testId="op-duplicate" action="duplicate" onAct={onAct} disabled={!selected} />
-        <ToolButton icon="left" label="Towards source" testId="op-move-up" action="upstream" onAct={onAct} disabled={!selected} />
-        <ToolButton icon="right" label="Towards loads" testId="op-move-down" action="downstream" onAct={onAct} disabled={!selected} />
-        <ToolButton icon="up" label="Branch up" testId="op-branch-up" action="branchUp" onAct={onAct} disabled={!selected} />
-        <ToolButton icon="down" label="Branch down" testId="op-branch-down" action="branchDown" onAct={onAct} disabled={!selected} />
-        <ToolButton icon="remove" label="Remove" testId="op-remove" action="remove" onAct={onAct} disabled={!selected} />
-        <ToolButton icon="removeBranch" label="Remove branch" testId="op-remove-branch" action="removeBranch" onAct={onAct} disabled={!selected} />
-      </div>
       <p class={refusal ? 'editor__status editor__status--refused' : 'editor__status'} role="status" data-testid="editor-status">
         {statusText}
       </p>
-      {open && (
-        <div class="kind-chooser" id="kind-chooser" role="group" aria-labelledby="kind-chooser-heading" data-testid="kind-chooser"
-          onKeyDown={(ev) => {
-            if (ev.key === 'Escape') {
-              ev.preventDefault();
-              closeChooser();
-            }
-          }}
-        >
-          <p class="kind-chooser__heading" id="kind-chooser-heading">
-            {ADD_WORDS[open.op].heading(selectedName)}: choose a kind
-          </p>
-          {offered.length === 0 ? (
-            <p class="kind-chooser__none">{NOTHING_OFFERED[open.op]}</p>
-          ) : (
-            <ul class="kind-chooser__list">
-              {offered.map(({ kind, element }) => (
-                <li key={kind}>
-                  {kindOption(kind, element, ports.get(open.op === 'before' ? (byId.get(open.target)?.from ?? '') : open.target), () => {
-                    const opFn = open.op === 'after' ? insertAfter : open.op === 'branch' ? addBranch : insertBefore;
-                    chooser.value = null;
-                    run(() => opFn(open.target, element), 'selected');
-                  })}
-                </li>
-              ))}
-            </ul>
-          )}
-          <button type="button" class="editor-tool kind-chooser__cancel" onClick={closeChooser}>
-            Cancel
-          </button>
-        </div>
-      )}
       <p id="chain-help" class="editor__help">
         Tap a stage to edit it. Keys: arrows move along the chain, Enter opens the stage, Delete removes it, Ctrl+Z undoes.
       </p>
@@ -373,6 +340,48 @@ const ChainEditorView = memo(function ChainEditorView({
             </div>
           )}
         </div>
+        {selected && (
+          <div class="editor__toolbar" role="toolbar" aria-label={`Change the chain at ${selectedName}`} aria-controls="chain-cards" data-testid="card-tools">
+            <span class="editor__toolbar-subject" aria-hidden="true">{selectedName}</span>
+            {tools.primary.map((a) => (
+              <ToolButton key={a} icon={TOOL_WORDS[a].icon} label={TOOL_WORDS[a].label} testId={TOOL_WORDS[a].testId} action={a} onAct={onAct}
+                expanded={a === 'after' || a === 'branch' ? open?.op === a : undefined} />
+            ))}
+            {tools.more.length > 0 && <MoreMenu key={selected} actions={tools.more} onAct={onAct} subject={selectedName} />}
+          </div>
+        )}
+        {open && (
+          <div class="kind-chooser" id="kind-chooser" role="group" aria-labelledby="kind-chooser-heading" data-testid="kind-chooser"
+            onKeyDown={(ev) => {
+              if (ev.key === 'Escape') {
+                ev.preventDefault();
+                closeChooser();
+              }
+            }}
+          >
+            <p class="kind-chooser__heading" id="kind-chooser-heading">
+              {ADD_WORDS[open.op].heading(selectedName)}: choose a kind
+            </p>
+            {offered.length === 0 ? (
+              <p class="kind-chooser__none">{NOTHING_OFFERED[open.op]}</p>
+            ) : (
+              <ul class="kind-chooser__list">
+                {offered.map(({ kind, element }) => (
+                  <li key={kind}>
+                    {kindOption(kind, element, ports.get(open.op === 'before' ? (byId.get(open.target)?.from ?? '') : open.target), () => {
+                      const opFn = open.op === 'after' ? insertAfter : open.op === 'branch' ? addBranch : insertBefore;
+                      chooser.value = null;
+                      run(() => opFn(open.target, element), 'selected');
+                    })}
+                  </li>
+                ))}
+              </ul>
+            )}
+            <button type="button" class="editor-tool kind-chooser__cancel" onClick={closeChooser}>
+              Cancel
+            </button>
+          </div>
+        )}
         {selected && (
           <section class="editor__form" aria-label={`Settings of ${selectedName}`} tabIndex={-1} ref={formRef} data-testid="stage-form-area">
             <StageForm elementId={selected} />

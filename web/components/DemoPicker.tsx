@@ -4,6 +4,7 @@ import { chooseDemo, hashForDemo, openProjectFile, fileReadError, selectedDemoId
 import { useSignal } from '@preact/signals';
 import type { SourceTemplate } from '../editor/templates.ts';
 import { newProject } from '../state/editor.ts';
+import { showProject } from '../state/view.ts';
 
 /** "New chain": name it, pick the source it starts from (web/editor/templates.ts), and it opens in the editor. */
 function NewChain() {
@@ -39,6 +40,7 @@ function NewChain() {
                     fileReadError.value = null;
                     newProject(name.value.trim() || 'New chain', structuredClone(s.element));
                     open.value = false;
+                    showProject();
                     // The address no longer names a demo (a reload opens the first demo, not this one).
                     if (globalThis.location?.hash) globalThis.history.replaceState(null, '', globalThis.location.pathname + globalThis.location.search);
                     // Straight to the chain, where the new source is selected.
@@ -74,6 +76,7 @@ export function DemoPicker() {
                 onClick={(event) => {
                   event.preventDefault();
                   chooseDemo(demo.id);
+                  showProject();
                 }}
               >
                 <span class="picker__title">{demo.title}</span>
@@ -93,7 +96,10 @@ export function DemoPicker() {
           onChange={(event) => {
             const input = event.currentTarget;
             const file = input.files?.[0];
-            if (file) void openProjectFile(file);
+            if (file) {
+              void openProjectFile(file);
+              showProject();
+            }
             input.value = '';
           }}
         />

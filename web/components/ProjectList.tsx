@@ -1,6 +1,6 @@
 /**
  * Projects stored in this browser: open, rename, duplicate, delete (with undo), newest save first;
- * export of the open project. Sits beside the demo picker.
+ * export of the open project. Sits beside the demo picker, in the projects view (web/state/view.ts).
  */
 import { useState } from 'preact/hooks';
 import { chooseDemo, openStoredProject } from '../state/app.ts';
@@ -10,6 +10,7 @@ import { demoProjects } from '../../core/page.ts';
 import { recordName } from '../storage/record.ts';
 import { deleteStored, downloadExport, duplicateStored, hashForStored, listLoaded, projectList, renameStored } from '../storage/session.ts';
 import { appVersion } from '../sw-register.ts';
+import { showProject } from '../state/view.ts';
 
 const savedAtFormats = new Map<string, Intl.DateTimeFormat>();
 
@@ -94,6 +95,7 @@ export function ProjectList() {
                   onClick={(event) => {
                     event.preventDefault();
                     void openStoredProject(r.id);
+                    showProject();
                   }}
                 >
                   <span class="picker__title">{name}</span>
