@@ -17,6 +17,7 @@ import { useSignal } from '@preact/signals';
 import { useEffect, useLayoutEffect, useRef } from 'preact/hooks';
 import { fileReadError, openFromAddress, shownTitle } from '../state/app.ts';
 import { pageView, showProject, showProjects } from '../state/view.ts';
+import { engine, engineFailure } from '../state/engine.ts';
 import { crashMessage, draft, draftOrigin, draftProblems, lastSolved, openCount, resultsState } from '../state/editor.ts';
 
 /** The energy-flow diagram (and d3-sankey) load only when a solved project is shown. */
@@ -103,6 +104,9 @@ function ShownProject() {
       </header>
       {shared && <Suspense fallback={null}><SharedBanner /></Suspense>}
       {result && <AnswersStrip result={result} stale={stale} />}
+      {!result && !engine.value && !engineFailure.value && (
+        <p class="note" role="status" data-testid="engine-loading">Working out the figures…</p>
+      )}
       {!shared && <Suspense fallback={<p class="note">Opening the chain editor…</p>}><ChainEditor /></Suspense>}
       {!shared && <PanelDisclosure id="project-settings" title="Project settings" hint="name, client, site, voltage-drop limits">
         {() => <ProjectForm />}
