@@ -34,6 +34,8 @@ function repaint(root: Element, palette: FlowPalette): void {
   root.querySelectorAll('[data-opacity]').forEach((el) =>
     el.setAttribute('stroke-opacity', String(el.getAttribute('data-opacity') === 'feed' ? palette.feedOpacity : palette.lossOpacity)),
   );
+  // Pipes (the flow through a column) take the feed branches' opacity.
+  root.querySelectorAll('[data-fill-opacity]').forEach((el) => el.setAttribute('fill-opacity', String(palette.feedOpacity)));
 }
 
 const EXPORT_ROW = 16;
@@ -67,6 +69,8 @@ export function svgText(svg: SVGSVGElement, title: string, summary: string | nul
   copy.querySelectorAll('[data-selected]').forEach((el) => el.removeAttribute('data-selected'));
   repaint(copy, paper);
   copy.removeAttribute('class');
+  // The page's zoom is not the file's: the file has the drawing's own size.
+  copy.removeAttribute('style');
   copy.setAttribute('xmlns', NS);
   // A file stands alone: a heading, the colour key and the loss split above the diagram.
   const width = Number(svg.getAttribute('width'));
@@ -151,6 +155,7 @@ function printRules(): string {
     ...keys.map((k) => `.flow__svg [data-stroke="${k}"] { stroke: ${p.colours[k]}; }`),
     `.flow__svg [data-opacity="feed"] { stroke-opacity: ${p.feedOpacity}; }`,
     `.flow__svg [data-opacity="loss"] { stroke-opacity: ${p.lossOpacity}; }`,
+    `.flow__svg [data-fill-opacity] { fill-opacity: ${p.feedOpacity}; }`,
     `.flow__box { background: ${p.colours.background} !important; }`,
     ...LEGEND.map((i) => `.flow__swatch[data-paint="${i.paint}"] { border-top-color: ${p.colours[i.paint]} !important; }`),
     '}',
