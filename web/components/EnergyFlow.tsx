@@ -137,11 +137,14 @@ function pageMeasure(): Measure {
   const ctx = typeof document !== 'undefined' ? document.createElement('canvas').getContext('2d') : null;
   if (!ctx) return roughMeasure;
   const cache = new Map<string, number>();
+  let boldSet: boolean | undefined;
   return (text, bold) => {
     const key = (bold ? 'b' : 'n') + text;
     let w = cache.get(key);
     if (w === undefined) {
-      ctx.font = `${bold ? '600 ' : ''}12px ${FONT}`;
+      // Setting the font parses it: only when it changes.
+      if (boldSet !== bold) ctx.font = `${bold ? '600 ' : ''}12px ${FONT}`;
+      boldSet = bold;
       // A little room kept: another font may stand in for this one in an exported file.
       w = ctx.measureText(text).width * 1.04;
       if (cache.size > 2000) cache.clear();
