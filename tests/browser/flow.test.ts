@@ -10,7 +10,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, seriousAxeViolations, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
 import { demoProjects, flowGraph, solveProject, type FlowGraph } from '../../core/index.ts';
 import { formatCurrent, formatPercent, formatPower } from '../../web/format/number.ts';
 import { thirtyElementChain } from '../bench/flow-chain.ts';
@@ -347,6 +347,8 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
       expect(text).toContain(formatCurrent(inv.input!.current, 'en-US'));
       expect(await inView(), 'the card lies inside the phone screen').toBe(true);
       await page.screenshot({ path: join(artifacts, 'flow-phone-card.png') });
+      const violations = await seriousAxeViolations(page, `{ include: [['[data-testid="energy-flow"]']] }`);
+      expect(violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`), 'axe on the diagram with its card open').toEqual([]);
 
       // Escape closes it; Enter on a focused block opens the block's card, in view.
       await page.keyboard.press('Escape');
