@@ -57,8 +57,8 @@ interface Drawn {
 }
 
 type Selection = { type: 'node'; id: string } | { type: 'link'; key: string } | null;
-/** An open card: what it shows, and where (px from the diagram section's top left corner). */
-type Card = { sel: NonNullable<Selection>; x: number; y: number };
+/** An open card: what it shows, the part it belongs to, and where (px from the diagram section's top left corner). */
+type Card = { sel: NonNullable<Selection>; el: Element; x: number; y: number };
 
 /** Zoom steps of the diagram (1: full size, 12 px labels). */
 const ZOOMS = [0.25, 0.35, 0.5, 0.75, 1, 1.5, 2];
@@ -262,7 +262,12 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     const x = (at ? at.x : r.left + Math.min(r.width, 120) / 2) - s.left;
     const y = (at ? at.y : r.top + Math.min(r.height, 40)) - s.top + 12;
     setSelected(part.sel);
-    setCard({ sel: part.sel, x, y });
+    setCard({ sel: part.sel, el: part.el, x, y });
+  };
+  /** Closes the card; focus goes back to its part when it was in the card (the part stays the same element across redraws). */
+  const closeCard = () => {
+    if (card && cardRef.current?.contains(document.activeElement) && card.el.isConnected) (card.el as SVGElement).focus();
+    setCard(null);
   };
   const onClick = (ev: MouseEvent) => {
     const part = partOf(ev);
@@ -270,7 +275,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   };
   const onKeyDown = (ev: KeyboardEvent) => {
     if (ev.key === 'Escape' && card) {
-      setCard(null);
+      closeCard();
       return;
     }
     if (ev.key !== 'Enter' && ev.key !== ' ') return;
@@ -377,6 +382,8 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     setZoom(steps[0] ?? (dir > 0 ? ZOOMS[ZOOMS.length - 1]! : Math.min(fitZoom, ZOOMS[0]!)));
   };
   const wide = laid !== null && laid.width > boxWidth + 1;
+  // The zoom buttons: while the drawing is wider than its box, or shown at another size (so it can be set back).
+  const zoomable = laid !== null && (wide || shownZoom !== 1);
 
   return (
     <section
@@ -403,7 +410,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
           {summary}
         </p>
       )}
-      {wide && (
+      {zoomable && (
         <div class="flow__zoom flow__screen-only" role="group" aria-label="Diagram size">
           <button type="button" class="flow__button" onClick={() => zoomStep(-1)} disabled={shownZoom <= fitZoom + 1e-6} data-testid="flow-zoom-out" aria-label="Zoom out">
             −
@@ -468,10 +475,17 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         {details}
       </p>
       {card && cardShown && (
-        <div class="flow__card flow__screen-only" ref={cardRef} role="group" aria-label={`Figures of ${cardShown.name}`} data-testid="flow-card">
+        <div
+          class="flow__card flow__screen-only"
+          ref={cardRef}
+          role="group"
+          aria-label={`Figures of ${cardShown.name}`}
+          data-testid="flow-card"
+          onKeyDown={(ev) => ev.key === 'Escape' && closeCard()}
+        >
           <div class="flow__card-head">
             <strong>{cardShown.name}</strong>
-            <button type="button" class="flow__card-close" onClick={() => setCard(null)} aria-label="Close the figures">
+            <button type="button" class="flow__card-close" onClick={closeCard} aria-label="Close the figures">
               ×
             </button>
           </div>
