@@ -280,8 +280,9 @@ export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, 
         labels.push({ id: f.id, x: x0, y: y0 - lines.length * LINE - 4 + 11, anchor: 'start', lines });
         const loss = lossOf.get(f.id);
         if (loss) {
+          // The block at least 1 px wide; its idle part to scale.
           const w = Math.max(1, loss.watts * ky);
-          const idleW = loss.watts > 0 ? (w * (loss.idleWatts ?? 0)) / loss.watts : 0;
+          const idleW = (loss.idleWatts ?? 0) * ky;
           const cx = x0 + COLUMN / 2;
           const ly0 = y0 + h + STUB;
           laid.set(loss.id, { ...loss, index0: index0.get(loss.id)!, column: c, x0: cx - w / 2, x1: cx + w / 2, y0: ly0, y1: ly0 + LOSS_BLOCK, idleWidth: idleW });
@@ -322,12 +323,11 @@ export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, 
       outUsed.set(from.id, out + width);
       laidLinks.push({ ...l, key, width, sx: from.x1, sy: from.y0 + out + width / 2, tx: to.x0, ty: to.y0 + width / 2, sourceNode: from, targetNode: to });
     } else {
-      // Idle first (left), then conversion, side by side across the loss block's width.
+      // Idle first (left), then conversion, side by side, centred on the loss block.
       const left = lossUsed.get(to.id) ?? 0;
-      const w = l.part === 'idle' ? to.idleWidth : to.x1 - to.x0 - to.idleWidth;
-      lossUsed.set(to.id, left + w);
-      const x = to.x0 + left + w / 2;
-      laidLinks.push({ ...l, key, width: w, sx: x, sy: from.y1, tx: x, ty: to.y0, sourceNode: from, targetNode: to });
+      lossUsed.set(to.id, left + width);
+      const x = (to.x0 + to.x1) / 2 - (to.watts * ky) / 2 + left + width / 2;
+      laidLinks.push({ ...l, key, width, sx: x, sy: from.y1, tx: x, ty: to.y0, sourceNode: from, targetNode: to });
     }
   }
 
