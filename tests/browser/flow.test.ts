@@ -356,7 +356,12 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
       const violations = await seriousAxeViolations(page, `{ include: [['[data-testid="energy-flow"]']] }`);
       expect(violations.map((v) => `${v.id}: ${v.nodes.map((n) => n.target.join(' ')).join(', ')}`), 'axe on the diagram with its card open').toEqual([]);
 
-      // Escape closes it; Enter on a focused block opens the block's card, in view.
+      // A tap on the drawing's background closes it; tapped again, Escape closes it; Enter on a
+      // focused block opens the block's card, in view.
+      await page.getByTestId('flow-svg').locator('rect[data-fill="background"]').click({ position: { x: 4, y: 4 }, force: true });
+      await expect.poll(() => card.count()).toBe(0);
+      await page.locator('path.flow__link[data-role="loss"][data-source="inverter"][data-part="conversion"]').click({ force: true });
+      await card.waitFor();
       await page.keyboard.press('Escape');
       await expect.poll(() => card.count()).toBe(0);
       const load = outcome.result.elements.find((e) => e.role === 'load')!;

@@ -272,6 +272,8 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   const onClick = (ev: MouseEvent) => {
     const part = partOf(ev);
     if (part) openCard(part, { x: ev.clientX, y: ev.clientY });
+    // A tap on the drawing's background closes the card.
+    else setCard(null);
   };
   const onKeyDown = (ev: KeyboardEvent) => {
     if (ev.key === 'Escape' && card) {
