@@ -127,7 +127,9 @@ const GEOMETRY = (names: Record<string, string>) => `(() => {
   for (const [id, name] of Object.entries(names)) {
     const g = [...svg.querySelectorAll('g.flow__node')].find((n) => n.getAttribute('data-node') === id);
     const shown = g ? [...g.querySelectorAll('text')].filter((t) => t.getAttribute('font-weight') === '600').map((t) => t.textContent).join('') : '';
-    if (shown.replace(/\\s+/g, '') !== name.replace(/\\s+/g, '')) out.push('name of ' + id + ' shown as "' + shown + '", not "' + name + '"');
+    // Shown in full, or (a name past its label's lines) shortened with the full name kept for the exported legend.
+    const full = g && g.getAttribute('data-full-name') === name;
+    if (!full && shown.replace(/\\s+/g, '') !== name.replace(/\\s+/g, '')) out.push('name of ' + id + ' shown as "' + shown + '", not "' + name + '"');
   }
   let lowest = 0;
   for (const el of svg.querySelectorAll('path, text, g.flow__node rect')) { const b = el.getBoundingClientRect(); if (b.height > 0 || b.width > 0) lowest = Math.max(lowest, b.bottom); }
@@ -426,9 +428,32 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
       const png = readFileSync(await pngDownload.path());
       expect([...png.subarray(0, 8)]).toEqual(PNG_SIGNATURE);
       writeFileSync(join(artifacts, 'flow-export.png'), png);
+
       // IHDR width (bytes 16–19, big-endian): twice the diagram's width.
       const svgWidth = Number(await page.getByTestId('flow-svg').getAttribute('width'));
       expect(png.readUInt32BE(16)).toBe(Math.round(svgWidth * 2));
+      // A name too long for its label (an invented 400-character one) is shortened in the drawing and
+      // given in full in the exported file's legend.
+      const long = 'Feeder from the main board to the far pump house. '.repeat(8).trim();
+      const project = {
+        format: 'joulepath-project',
+        version: 2,
+        name: 'Long name',
+        elements: [
+          { id: 'grid', kind: 'grid', phases: 3, voltage: 400, frequency: 50, resistance: 0.01, reactance: 0.03 },
+          { id: 'run', name: long, kind: 'cable', from: 'grid', length: 50, resistancePerKm: 0.727, reactancePerKm: 0.08 },
+          { id: 'pump', name: 'Pump', kind: 'ac-load', from: 'run', power: 5000, powerFactor: 0.85 },
+        ],
+      };
+      await page.getByTestId('open-file').setInputFiles({ name: 'long-name.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(project)) });
+      await page.locator('g.flow__node[data-node="run"]').waitFor();
+      expect(await page.locator('g.flow__node[data-node="run"]').getAttribute('data-full-name')).toBe(long);
+      const [longDownload] = await Promise.all([page.waitForEvent('download'), page.getByTestId('flow-export-svg').click()]);
+      const legend = (await page.evaluate(`(() => {
+        const doc = new DOMParser().parseFromString(${JSON.stringify(readFileSync(await longDownload.path(), 'utf8'))}, 'image/svg+xml');
+        return [...doc.querySelectorAll('text[data-legend-name]')].map((t) => t.textContent).join(' ');
+      })()`)) as string;
+      expect(legend.replace(/\s+/g, ' ')).toContain(`• ${long}`);
       expect(errors).toEqual([]);
     } finally {
       await context.close();

@@ -9,7 +9,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { demoProjects, flowGraph, solveProject, type Project } from '../../core/index.ts';
-import { COLUMN, columnX, GAP, layout, LINE, roughMeasure, wrap } from '../../web/components/flow-layout.ts';
+import { COLUMN, columnX, GAP, layout, LINE, MAX_NAME_LINES, roughMeasure, wrap } from '../../web/components/flow-layout.ts';
 import { deepCables } from '../bench/chains.ts';
 import { thirtyElementChain } from '../bench/flow-chain.ts';
 
@@ -108,6 +108,33 @@ describe.each(projects)('the layout of %s', (_id, project) => {
     for (const n of laid.nodes.filter((x) => x.role !== 'loss' && x.watts * ky >= 2)) expect(n.y1 - n.y0).toBeCloseTo(n.watts * ky, 6);
     for (const l of laid.links) expect(l.width).toBeCloseTo(l.watts * ky, 6);
   });
+});
+
+it('shortens only a name past its lines, ending it with an ellipsis and keeping the full name for the legend', () => {
+  // An invented pasted name of 400 characters (ten times a plain sentence).
+  const long = 'Feeder from the main board to the far pump house. '.repeat(8).trim();
+  const project: Project = {
+    format: 'joulepath-project',
+    version: 2,
+    name: 'Long name',
+    elements: [
+      { id: 'grid', kind: 'grid', phases: 3, voltage: 400, frequency: 50, resistance: 0.01, reactance: 0.03 },
+      { id: 'run', name: long, kind: 'cable', from: 'grid', length: 50, resistancePerKm: 0.727, reactancePerKm: 0.08 },
+      { id: 'pump', name: 'Pump', kind: 'ac-load', from: 'run', power: 5000, powerFactor: 0.85 },
+    ],
+  };
+  const laid = layout(graphOf(project), 390, 'en-US')!;
+  const run = laid.labels.find((l) => l.id === 'run')!;
+  const name = run.lines.filter((l) => l.bold).map((l) => l.text);
+  expect(name).toHaveLength(MAX_NAME_LINES);
+  expect(name[name.length - 1]!.endsWith('…')).toBe(true);
+  expect(long.startsWith(name.join(' ').slice(0, -1))).toBe(true);
+  expect(run.fullName).toBe(long);
+  expect(laid.labels.find((l) => l.id === 'pump')!.fullName).toBeUndefined();
+  // A 5000-character word (no spaces) is broken quickly, not character by character.
+  const t = performance.now();
+  expect(wrap(['x'.repeat(5000)], ' ', 100, true, roughMeasure).join('')).toBe('x'.repeat(5000));
+  expect(performance.now() - t).toBeLessThan(2000);
 });
 
 it('lays out a run of 2000 elements (the import limit) without running out of stack', () => {

@@ -209,7 +209,7 @@ export interface BlockSpec {
   top: (RectSpec & { paint: string }) | undefined;
   colours: { fill: string; top: string; selected: string; ink: string; inkMuted: string; background: string };
   /** The label's lines (names bold), from (x, y) down; centred on x or starting there. */
-  text: { x: number; y: number; anchor: 'start' | 'middle'; lines: readonly { text: string; bold: boolean }[] } | undefined;
+  text: { x: number; y: number; anchor: 'start' | 'middle'; lines: readonly { text: string; bold: boolean }[]; fullName?: string } | undefined;
   selected: boolean;
 }
 
@@ -245,6 +245,8 @@ export function writeBlock(b: Block, s: BlockSpec): void {
     'data-node': s.id,
     'data-role': s.role,
     'data-selected': s.selected ? 'true' : undefined,
+    // A name shortened in the drawing: the exported file lists it in full (flow-export.ts).
+    'data-full-name': s.text?.fullName,
   });
   write(b.rect, {
     x: s.rect.x,

@@ -5,8 +5,9 @@
  *
  * The drawing is made of columns (one per depth of the chain, source first) and the gaps between them:
  * - in a column, each source, stage and load is a straight piece of the flow (its "pipe", as tall as
- *   the power it takes in), with its label (name, wrapped to the column, never cut; then its power and
- *   share of the source) just above it, and its loss right under it: a branch leaving the pipe's bottom
+ *   the power it takes in), with its label (name, wrapped to the column, never cut — past
+ *   MAX_NAME_LINES lines shortened, the full name then in the exported file's legend; then its power
+ *   and share of the source) just above it, and its loss right under it: a branch leaving the pipe's bottom
  *   straight down (idle part on the left, conversion part on the right), a small loss block, and the
  *   loss label centred under the stage;
  * - in a gap, only the branches that carry power on (each from its element to an element of the next
@@ -99,6 +100,8 @@ export interface NodeLabel {
   y: number;
   anchor: 'start' | 'middle';
   lines: readonly { text: string; bold: boolean }[];
+  /** The full name, when the label had to shorten it (more than MAX_NAME_LINES lines). */
+  fullName?: string;
 }
 
 export interface Layout {
@@ -151,10 +154,16 @@ export function wrap(pieces: readonly string[], sep: string, room: number, bold:
     if (line !== '') lines.push(line);
     line = '';
     while (measure(piece, bold) > room && piece.length > 1) {
-      let n = piece.length - 1;
-      while (n > 1 && measure(piece.slice(0, n), bold) > room) n--;
-      lines.push(piece.slice(0, n));
-      piece = piece.slice(n);
+      // The longest head that fits (a binary search: a pasted name may be thousands of characters).
+      let lo = 1;
+      let hi = piece.length - 1;
+      while (lo < hi) {
+        const mid = Math.ceil((lo + hi) / 2);
+        if (measure(piece.slice(0, mid), bold) <= room) lo = mid;
+        else hi = mid - 1;
+      }
+      lines.push(piece.slice(0, lo));
+      piece = piece.slice(lo);
     }
     line = piece;
   }
@@ -162,11 +171,24 @@ export function wrap(pieces: readonly string[], sep: string, room: number, bold:
   return lines;
 }
 
-/** The lines of a source's, stage's or load's label: its name (bold, wrapped), then its power and share. */
-function nodeLines(n: FlowNode, loc: string | undefined, measure: Measure): { text: string; bold: boolean }[] {
-  const name = wrap(n.name.split(/\s+/), ' ', TEXT_ROOM, true, measure).map((text) => ({ text, bold: true }));
+/** Lines a name may take in the drawing; a longer one is shortened there, with its full name in the exported file's legend. */
+export const MAX_NAME_LINES = 6;
+
+/**
+ * The lines of a source's, stage's or load's label: its name (bold, wrapped), then its power and
+ * share; and whether the name had to be shortened (only past MAX_NAME_LINES lines).
+ */
+function nodeLines(n: FlowNode, loc: string | undefined, measure: Measure): { lines: { text: string; bold: boolean }[]; shortened: boolean } {
+  let name = wrap(n.name.split(/\s+/), ' ', TEXT_ROOM, true, measure);
+  const shortened = name.length > MAX_NAME_LINES;
+  if (shortened) {
+    name = name.slice(0, MAX_NAME_LINES);
+    let last = name[MAX_NAME_LINES - 1]!;
+    while (last.length > 1 && measure(`${last}…`, true) > TEXT_ROOM) last = last.slice(0, -1);
+    name[MAX_NAME_LINES - 1] = `${last}…`;
+  }
   const figs = wrap([formatPower(n.watts, loc), formatPercent(n.percent / 100, loc, 3)], ' · ', TEXT_ROOM, false, measure);
-  return [...name, ...figs.map((text) => ({ text, bold: false }))];
+  return { lines: [...name.map((text) => ({ text, bold: true })), ...figs.map((text) => ({ text, bold: false }))], shortened };
 }
 
 /** The lines of a loss label (under its own stage, so without the name): the loss, its share, its idle part. */
@@ -233,10 +255,12 @@ export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, 
 
   // (3) Labels and heights.
   const labelLines = new Map<string, { text: string; bold: boolean }[]>();
+  const shortened = new Set<string>();
   const head = new Map<string, number>();
   const below = new Map<string, number>();
   for (const n of flowNodes) {
-    const lines = nodeLines(n, loc, measure);
+    const { lines, shortened: cut } = nodeLines(n, loc, measure);
+    if (cut) shortened.add(n.id);
     labelLines.set(n.id, lines);
     head.set(n.id, lines.length * LINE + 4);
     const loss = lossOf.get(n.id);
@@ -277,7 +301,7 @@ export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, 
         const h = pipeH(n);
         laid.set(f.id, { ...n, index0: index0.get(f.id)!, column: c, x0, x1: x0 + COLUMN, y0, y1: y0 + h, idleWidth: 0 });
         const lines = labelLines.get(f.id)!;
-        labels.push({ id: f.id, x: x0, y: y0 - lines.length * LINE - 4 + 11, anchor: 'start', lines });
+        labels.push({ id: f.id, x: x0, y: y0 - lines.length * LINE - 4 + 11, anchor: 'start', lines, ...(shortened.has(f.id) ? { fullName: n.name } : {}) });
         const loss = lossOf.get(f.id);
         if (loss) {
           // The block at least 1 px wide; its idle part to scale.
