@@ -187,6 +187,16 @@ function nodeLines(n: FlowNode, loc: string | undefined, measure: Measure): { li
     while (last.length > 1 && measure(`${last}…`, true) > TEXT_ROOM) last = last.slice(0, -1);
     name[MAX_NAME_LINES - 1] = `${last}…`;
   }
+  // A line that ends where the name has a space keeps that space (SVG does not draw it), so that the
+  // file's text, read as a whole (copied, searched, read aloud), holds the name with its spaces.
+  const full = n.name.split(/\s+/).join(' ');
+  let at = 0;
+  name = name.map((line) => {
+    at += line.length;
+    if (full[at] !== ' ') return line;
+    at++;
+    return `${line} `;
+  });
   const figs = wrap([formatPower(n.watts, loc), formatPercent(n.percent / 100, loc, 3)], ' · ', TEXT_ROOM, false, measure);
   return { lines: [...name.map((text) => ({ text, bold: true })), ...figs.map((text) => ({ text, bold: false }))], shortened };
 }
