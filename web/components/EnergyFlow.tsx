@@ -23,7 +23,8 @@
  * scrolled into view; Escape or its Close button closes it.
  *
  * Phone: the diagram keeps its left-to-right reading (the same direction as the chain) at full size
- * (12 px labels) and pans inside its own box (swipe, or the arrow keys once the box has focus); the
+ * (12 px labels) and pans inside its own box, at most three quarters of the screen tall (swipe, or
+ * the arrow keys once the box has focus); the
  * zoom buttons shrink it to the box's width to see the whole chain, and back. A top-to-bottom layout
  * was not chosen: it helps a long series run but a board with many branches side by side would then
  * need a sideways pan anyway, and the labels would have to share a row's width; pan and zoom work
@@ -436,7 +437,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         // Focusable so the pan on a narrow screen also works from the keyboard (arrow keys).
         tabIndex={0}
         role="region"
-        aria-label="Energy-flow diagram (pans sideways on narrow screens; zoom buttons above)"
+        aria-label="Energy-flow diagram (pans on narrow screens; zoom buttons above)"
         // One set of handlers for every branch and block (they carry their key in data-*), so a
         // redraw after an edit does not hand each of them new functions. On this box, not on the
         // <svg>: Chromium makes an SVG element with a focus listener focusable itself.
