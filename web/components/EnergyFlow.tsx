@@ -1,26 +1,34 @@
 /**
  * The energy-flow diagram: a Sankey of the solved chain, source on the left, loads on the right,
- * and every loss gathered in a band along the bottom ("where the energy goes" at a glance: the
- * top carries what reaches the loads, the bottom what is lost). Each loss branch is split into its
+ * and every loss hanging under the stage that loses it ("where the energy goes" at a glance: the
+ * flow carries what reaches the loads, the branches down what is lost). Each loss branch is split into its
  * idle part (drawn even with nothing connected: dashed, plum) and its conversion part (grows with
- * the load). Loaded on demand (App.tsx imports it with a dynamic import()), so d3-sankey is not part
- * of the first load.
+ * the load). Loaded on demand (App.tsx imports it with a dynamic import()), so it is not part of the
+ * first load.
  *
  * Every figure comes from core's flowGraph(); this file draws the diagram and answers hover, tap and
- * focus. Its parts: flow-layout.ts (columns, loss band, labels that fit), flow-draw.ts (one SVG element
+ * focus. Its parts: flow-layout.ts (columns, pipes, losses, wrapped labels), flow-draw.ts (one SVG element
  * per part, written only where it changed), flow-export.ts (download name, SVG and PNG files, print
  * rules), flow-legend.tsx (legend), flow-palette.ts (colours per theme).
  *
- * Layout: d3-sankey places the power that flows on (sources, stages, loads and their feed links);
- * the loss nodes are then set in the band under everything, each in the column after its element,
- * so no loss label lands on a feed branch that passes through the column (the crowding a long
- * branch caused when loss nodes shared the columns). Labels that would still overlap another label
- * or a block are left out; their figures stay in the hover/tap/focus details and aria-labels.
+ * Layout (flow-layout.ts): one column per depth of the chain, feed branches only in the gaps between
+ * columns; each source, stage and load is a straight piece of flow in its column with its label (full
+ * name, wrapped, never cut) above it and its loss hanging straight down under it, loss label centred
+ * under the stage. So no loss branch crosses a main flow or a label, and the losses take only the
+ * height they need. Nothing is left unlabelled.
  *
- * Phone layout: the diagram keeps its left-to-right reading (the same direction as the chain) and
- * scrolls sideways inside its own box when the columns do not fit; squeezing the columns to 390 px
- * would make the labels unreadable. Every node and link is reachable by Tab and by tap, and the
- * details line under the diagram repeats the figures in full.
+ * Figures on demand: pointing at or focusing a branch or block puts its figures in the details line
+ * under the diagram; tapping or clicking it, or Enter or Space on it, opens a card of its element's
+ * figures (power, share of the source, loss, efficiency, current where known) right next to it,
+ * scrolled into view; Escape or its Close button closes it.
+ *
+ * Phone: the diagram keeps its left-to-right reading (the same direction as the chain) at full size
+ * (12 px labels) and pans inside its own box, at most three quarters of the screen tall (swipe, or
+ * the arrow keys once the box has focus); the
+ * zoom buttons shrink it to the box's width to see the whole chain, and back. A top-to-bottom layout
+ * was not chosen: it helps a long series run but a board with many branches side by side would then
+ * need a sideways pan anyway, and the labels would have to share a row's width; pan and zoom work
+ * for deep and wide chains alike, and the card shows a tapped part's figures in full.
  *
  * Colours: the palette of the theme shown (flow-palette.ts), written as attributes with a
  * data-fill/data-stroke key beside each, so that exported SVG/PNG files are repainted with the
@@ -28,18 +36,17 @@
  * print rules this component writes.
  */
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'preact/hooks';
-import { sankeyLinkHorizontal } from 'd3-sankey';
 import { flowGraph } from '../../core/studies/index.ts';
 import type { ElementResult, SolveResult } from '../../core/page.ts';
-import { formatPercent, formatPower } from '../format/number.ts';
+import { formatCurrent, formatPercent, formatPower, formatVoltage } from '../format/number.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state/prefs.ts';
 import { openCount } from '../state/editor.ts';
 import { FLOW_PALETTES } from './flow-palette.ts';
 import { lagOffscreen, useIdleTask, type BoxRef } from './lag.ts';
-import { blockLayer, branchLayer, figureLayer, writeBlock, writeBranch, writeFigure, type BlockSpec, type BranchSpec, type FigureSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
+import { blockLayer, branchLayer, writeBlock, writeBranch, type BlockSpec, type BranchSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
 import { download, fileStem, pngBlob, PRINT_RULES, svgText } from './flow-export.ts';
-import { BAND_GAP, figures, FONT, IDLE_DASH, type LaidLink, type LaidNode, layout, type LinkExtra, linkPaint, MARGIN, type NodeExtra, nodeOf, nodePaint, placeLabels, ZERO_SHARE } from './flow-layout.ts';
+import { figures, FONT, IDLE_DASH, type LaidLink, type LaidNode, layout, linkPaint, linkPath, MARK, type Measure, nodePaint, roughMeasure, ZERO_SHARE } from './flow-layout.ts';
 import { Legend } from './flow-legend.tsx';
 import './EnergyFlow.css';
 export { FLOW_PALETTES } from './flow-palette.ts';
@@ -48,14 +55,18 @@ export { FLOW_PALETTES } from './flow-palette.ts';
 interface Drawn {
   branches: ReturnType<typeof branchLayer>;
   blocks: ReturnType<typeof blockLayer>;
-  figures: ReturnType<typeof figureLayer>;
 }
 
 type Selection = { type: 'node'; id: string } | { type: 'link'; key: string } | null;
+/** An open card: what it shows, the part it belongs to, and where (px from the diagram section's top left corner). */
+type Card = { sel: NonNullable<Selection>; el: Element; x: number; y: number };
+
+/** Zoom steps of the diagram (1: full size, 12 px labels). */
+const ZOOMS = [0.25, 0.35, 0.5, 0.75, 1, 1.5, 2];
 
 function linkText(l: LaidLink, loc: string | undefined): string {
-  const from = nodeOf(l.source);
-  const to = nodeOf(l.target);
+  const from = l.sourceNode;
+  const to = l.targetNode;
   if (l.role === 'loss') {
     if (l.part === 'idle') return `Idle loss in ${from.name} (drawn even with no load): ${figures(l.watts, l.percent, loc)} of the source power`;
     return `${from.kind === 'cable' ? 'Loss' : 'Conversion loss'} in ${from.name} (grows with the load): ${figures(l.watts, l.percent, loc)} of the source power`;
@@ -80,6 +91,70 @@ function nodeText(n: LaidNode, element: ElementResult | undefined, loc: string |
   );
 }
 
+/**
+ * A card's figures: those of the element the tapped part belongs to (a block's own element, a loss's
+ * element, the element a feed branch feeds), named, with what was tapped.
+ */
+function cardContent(sel: NonNullable<Selection>, laid: { nodes: LaidNode[]; links: LaidLink[] }, elements: Map<string, ElementResult>, sourcePower: number, loc: string | undefined) {
+  let element: ElementResult | undefined;
+  let what: string;
+  if (sel.type === 'link') {
+    const l = laid.links.find((x) => x.key === sel.key);
+    if (!l) return null;
+    if (l.role === 'loss') {
+      element = elements.get(l.sourceNode.elementId);
+      what = l.part === 'idle' ? `Idle loss branch: ${formatPower(l.watts, loc)}` : `${l.sourceNode.kind === 'cable' ? 'Loss' : 'Conversion loss'} branch: ${formatPower(l.watts, loc)}`;
+    } else {
+      element = elements.get(l.targetNode.elementId);
+      what = `Branch from ${l.sourceNode.name}`;
+    }
+  } else {
+    const n = laid.nodes.find((x) => x.id === sel.id);
+    if (!n) return null;
+    element = elements.get(n.elementId);
+    what = n.role === 'loss' ? 'Its loss' : '';
+  }
+  if (!element) return null;
+  const e = element;
+  const rows: [string, string][] = [];
+  const share = sourcePower !== 0 ? e.pIn / sourcePower : 0;
+  rows.push([e.role === 'source' ? 'Power delivered' : e.role === 'load' ? 'Power used' : 'Power in', formatPower(e.pIn, loc)]);
+  rows.push(['Share of the source', formatPercent(share, loc, 3)]);
+  if (e.role !== 'load') {
+    rows.push(['Power out', formatPower(e.pOut, loc)]);
+    rows.push(['Loss', `${formatPower(e.loss, loc)} (${formatPercent(sourcePower !== 0 ? e.loss / sourcePower : 0, loc, 3)} of the source)${e.idleLoss ? `, idle ${formatPower(e.idleLoss, loc)}` : ''}`]);
+    rows.push(['Efficiency', formatPercent(e.efficiency, loc)]);
+  }
+  // The current where the port carries one (a shaft carries none): what a source gives out, what the rest take in.
+  const port = e.role === 'source' ? e.output : e.input;
+  if (port && port.current > 0 && Number.isFinite(port.current)) {
+    rows.push([e.role === 'source' ? 'Current out' : 'Current in', `${formatCurrent(port.current, loc)}${port.voltage > 0 ? ` at ${formatVoltage(port.voltage, loc)}` : ''}`]);
+  }
+  return { name: e.name || e.id, kind: elementKindLabel(e.kind), what, rows };
+}
+
+/** Widths of label lines in the page's own font (canvas text metrics), cached; the rough estimate without a canvas. */
+function pageMeasure(): Measure {
+  const ctx = typeof document !== 'undefined' ? document.createElement('canvas').getContext('2d') : null;
+  if (!ctx) return roughMeasure;
+  const cache = new Map<string, number>();
+  let boldSet: boolean | undefined;
+  return (text, bold) => {
+    const key = (bold ? 'b' : 'n') + text;
+    let w = cache.get(key);
+    if (w === undefined) {
+      // Setting the font parses it: only when it changes.
+      if (boldSet !== bold) ctx.font = `${bold ? '600 ' : ''}12px ${FONT}`;
+      boldSet = bold;
+      // A little room kept: another font may stand in for this one in an exported file.
+      w = ctx.measureText(text).width * 1.04;
+      if (cache.size > 2000) cache.clear();
+      cache.set(key, w);
+    }
+    return w;
+  };
+}
+
 /** The theme the page shows now (the choice, or the device's setting). */
 export function shownTheme(): 'light' | 'dark' {
   return resolveTheme(themeChoice.value, deviceDark.value);
@@ -88,29 +163,44 @@ export function shownTheme(): 'light' | 'dark' {
 function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   const graph = useMemo(() => flowGraph(result), [result]);
   const elements = useMemo(() => new Map(result.elements.map((e) => [e.id, e])), [result]);
+  const sectionRef = useRef<HTMLElement | null>(null);
+  // One callback for the section: lag.ts watches it as the part's box, the card is placed in it.
+  const sectionBox = useCallback(
+    (el: Element | null) => {
+      sectionRef.current = el as HTMLElement | null;
+      box(el);
+    },
+    [box],
+  );
   const boxRef = useRef<HTMLDivElement>(null);
   const svgRef = useRef<SVGSVGElement>(null);
+  const cardRef = useRef<HTMLDivElement>(null);
   const [boxWidth, setBoxWidth] = useState(0);
   const [selected, setSelected] = useState<Selection>(null);
+  const [card, setCard] = useState<Card | null>(null);
+  const [zoom, setZoom] = useState(1);
   const [exportError, setExportError] = useState<string | null>(null);
+  const measure = useMemo(pageMeasure, []);
   const palette = FLOW_PALETTES[shownTheme()];
   const c = palette.colours;
 
   useEffect(() => {
     const box = boxRef.current;
     if (!box) return;
-    const measure = () => setBoxWidth(box.clientWidth);
-    measure();
-    const observer = new ResizeObserver(measure);
+    const measureBox = () => setBoxWidth(box.clientWidth);
+    measureBox();
+    const observer = new ResizeObserver(measureBox);
     observer.observe(box);
     return () => observer.disconnect();
   }, []);
-  useEffect(() => setSelected(null), [result]);
+  useEffect(() => {
+    setSelected(null);
+    setCard(null);
+  }, [result]);
 
-  const laid = useMemo(() => (boxWidth > 0 ? layout(graph, boxWidth) : null), [graph, boxWidth]);
   const loc = effectiveLocale();
-  const labels = useMemo(() => (laid ? placeLabels(laid, loc) : null), [laid, loc]);
-  const nodeLabels = useMemo(() => new Map((labels?.nodes ?? []).map((x) => [x.id, x])), [labels]);
+  const laid = useMemo(() => (boxWidth > 0 ? layout(graph, boxWidth, loc, measure) : null), [graph, boxWidth, loc, measure]);
+  const nodeLabels = useMemo(() => new Map((laid?.labels ?? []).map((x) => [x.id, x])), [laid]);
   const zeroLoss = graph.nodes.filter((n) => n.role === 'loss' && !(n.watts > ZERO_SHARE * Math.abs(graph.sourcePower)));
   const stem = fileStem(result.projectName || 'joulepath-project');
   const ls = graph.losses;
@@ -118,8 +208,11 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     graph.sourcePower !== 0
       ? `Losses ${figures(ls.total.watts, ls.total.percent, loc)}: idle ${figures(ls.idle.watts, ls.idle.percent, loc)}, conversion ${figures(ls.conversion.watts, ls.conversion.percent, loc)}`
       : null;
+  // The zoom that fits the whole drawing in the box (never above full size).
+  const fitZoom = laid ? Math.min(1, (boxWidth - 2) / laid.width) : 1;
+  const shownZoom = Math.max(zoom, Math.min(fitZoom, 1));
 
-  let details = 'Point at, tap or Tab to a branch or a block to see its figures.';
+  let details = 'Point at, tap or Tab to a branch or a block to see its figures; tap it or press Enter for all of them.';
   if (laid && selected?.type === 'link') {
     const l = laid.links.find((x) => x.key === selected.key);
     if (l) details = linkText(l, loc);
@@ -127,6 +220,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     const n = laid.nodes.find((x) => x.id === selected.id);
     if (n) details = nodeText(n, elements.get(n.elementId), loc);
   }
+  const cardShown = card && laid ? cardContent(card.sel, laid, elements, graph.sourcePower, loc) : null;
 
   async function exportSvg() {
     if (!svgRef.current) return;
@@ -143,72 +237,124 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     }
   }
 
+  /** The part (branch or block) an event happened on, and its element. */
+  const partOf = (ev: Event): { sel: NonNullable<Selection>; el: Element } | null => {
+    const target = ev.target instanceof Element ? ev.target : null;
+    const linkEl = target?.closest<SVGElement>('[data-link-key]');
+    if (linkEl) return { sel: { type: 'link', key: linkEl.dataset['linkKey']! }, el: linkEl };
+    const nodeEl = target?.closest<SVGElement>('[data-node]');
+    if (nodeEl) return { sel: { type: 'node', id: nodeEl.dataset['node']! }, el: nodeEl };
+    return null;
+  };
   /** Hover, tap, click or focus on a branch or a block selects it (its figures go to the details line). */
   const pick = useCallback((ev: Event) => {
-    const target = ev.target instanceof Element ? ev.target : null;
-    const link = target?.closest<SVGElement>('[data-link-key]')?.dataset['linkKey'];
-    const node = link === undefined ? target?.closest<SVGElement>('[data-node]')?.dataset['node'] : undefined;
+    const part = partOf(ev);
+    if (!part) return;
+    const sel = part.sel;
     // Moving the pointer within one block fires again: keep the same selection (no redraw).
-    if (link !== undefined) setSelected((s) => (s?.type === 'link' && s.key === link ? s : { type: 'link', key: link }));
-    else if (node !== undefined) setSelected((s) => (s?.type === 'node' && s.id === node ? s : { type: 'node', id: node }));
+    setSelected((s) => (s && s.type === sel.type && (s.type === 'link' ? s.key === (sel as { key: string }).key : s.id === (sel as { id: string }).id) ? s : sel));
   }, []);
+  /** Opens the card of a part next to it: at the tap, or (keyboard) by the part's middle. */
+  const openCard = (part: { sel: NonNullable<Selection>; el: Element }, at?: { x: number; y: number }) => {
+    const section = sectionRef.current;
+    if (!section) return;
+    const s = section.getBoundingClientRect();
+    const r = part.el.getBoundingClientRect();
+    const x = (at ? at.x : r.left + Math.min(r.width, 120) / 2) - s.left;
+    const y = (at ? at.y : r.top + Math.min(r.height, 40)) - s.top + 12;
+    setSelected(part.sel);
+    setCard({ sel: part.sel, el: part.el, x, y });
+  };
+  /** Closes the card; focus goes back to its part when it was in the card (the part stays the same element across redraws). */
+  const closeCard = () => {
+    if (card && cardRef.current?.contains(document.activeElement) && card.el.isConnected) (card.el as SVGElement).focus();
+    setCard(null);
+  };
+  const onClick = (ev: MouseEvent) => {
+    const part = partOf(ev);
+    if (part) openCard(part, { x: ev.clientX, y: ev.clientY });
+    // A tap on the drawing's background closes the card.
+    else setCard(null);
+  };
+  const onKeyDown = (ev: KeyboardEvent) => {
+    if (ev.key === 'Escape' && card) {
+      closeCard();
+      return;
+    }
+    if (ev.key !== 'Enter' && ev.key !== ' ') return;
+    const part = partOf(ev);
+    if (!part) return;
+    ev.preventDefault();
+    openCard(part);
+  };
+  // The card stays inside the section's width and is scrolled into view (a phone shows it whole).
+  useLayoutEffect(() => {
+    const el = cardRef.current;
+    const section = sectionRef.current;
+    if (!el || !section || !card) return;
+    const left = Math.max(0, Math.min(card.x - el.offsetWidth / 2, section.clientWidth - el.offsetWidth));
+    el.style.left = `${left}px`;
+    el.style.top = `${card.y}px`;
+    el.scrollIntoView({ block: 'nearest', inline: 'nearest' });
+  }, [card, cardShown !== null]);
+
   const title = `Energy flow of ${result.projectName || 'the project'}`;
 
   // The branches, blocks and labels are written into their layers after each render, before the
   // frame is painted (flow-draw.ts: only what changed is written).
   const branchesRef = useRef<SVGGElement>(null);
   const blocksRef = useRef<SVGGElement>(null);
-  const figuresRef = useRef<SVGGElement>(null);
   const drawn = useRef<Drawn | null>(null);
   const scheduleWords = useIdleTask();
   const wordsOpened = useRef(-1);
   useLayoutEffect(() => {
-    if (!laid || !branchesRef.current || !blocksRef.current || !figuresRef.current) return;
-    const d = (drawn.current ??= { branches: branchLayer(), blocks: blockLayer(), figures: figureLayer() });
-    const path = sankeyLinkHorizontal<NodeExtra, LinkExtra>();
+    if (!laid || !branchesRef.current || !blocksRef.current) return;
+    const d = (drawn.current ??= { branches: branchLayer(), blocks: blockLayer() });
     const branches = laid.links.map((l): BranchSpec => {
-      const paint = linkPaint(l, nodeOf(l.source).kind);
+      const paint = linkPaint(l, l.sourceNode.kind);
       const isSel = selected?.type === 'link' && selected.key === l.key;
       const isLoss = l.role === 'loss';
       return {
         key: l.key,
-        d: path(l) ?? '',
+        d: linkPath(l),
         paint: isSel ? 'selected' : paint,
         colour: isSel ? c.selected : c[paint],
         opacityKey: isLoss ? 'loss' : 'feed',
         opacity: isLoss ? palette.lossOpacity : palette.feedOpacity,
-        width: Math.max(1, l.width ?? 1),
-        dash: l.part === 'idle' && (l.width ?? 0) >= 2 ? IDLE_DASH : undefined,
+        width: Math.max(1, l.width),
+        dash: l.part === 'idle' && l.width >= 2 ? IDLE_DASH : undefined,
         role: l.role,
         part: l.part,
-        source: nodeOf(l.source).id,
-        target: nodeOf(l.target).id,
+        ribbon: !isLoss,
+        source: l.sourceNode.id,
+        target: l.targetNode.id,
         selected: isSel,
       };
     });
     const blocks = laid.nodes.map((n): BlockSpec => {
-      const y0 = n.y0 ?? 0;
-      const h = Math.max(2, (n.y1 ?? 0) - y0);
       const paint = nodePaint(n);
+      const rect = { x: n.x0, y: n.y0, w: n.x1 - n.x0, h: Math.max(2, n.y1 - n.y0) };
+      const isLoss = n.role === 'loss';
+      // A pipe carries its role's mark where the flow enters it (a load's where it ends); a loss block its idle part on the left.
+      const top = isLoss
+        ? n.idleWidth > 0
+          ? { x: n.x0, y: n.y0, w: n.idleWidth, h: rect.h, paint: 'idle' }
+          : undefined
+        : { x: n.role === 'load' ? n.x1 - MARK : n.x0, y: n.y0, w: MARK, h: rect.h, paint };
       return {
         id: n.id,
         role: n.role,
-        x0: n.x0 ?? 0,
-        y0,
-        width: (n.x1 ?? 0) - (n.x0 ?? 0),
-        h,
-        // A loss block shows its idle part on top, as its branches arrive.
-        idleH: n.role === 'loss' && n.watts > 0 ? (h * (n.idleWatts ?? 0)) / n.watts : 0,
-        paint,
-        colours: { fill: c[paint], idle: c.idle, selected: c.selected, ink: c.ink, inkMuted: c.inkMuted, background: c.background },
+        rect,
+        paint: isLoss ? paint : 'feed',
+        opacity: isLoss ? undefined : { key: 'feed', value: palette.feedOpacity },
+        top,
+        colours: { fill: isLoss ? c[paint] : c.feed, top: isLoss ? c.idle : c[paint], selected: c.selected, ink: c.ink, inkMuted: c.inkMuted, background: c.background },
         text: nodeLabels.get(n.id),
         selected: selected?.type === 'node' && selected.id === n.id,
       };
     });
-    const onLinks = (labels?.links ?? []).map((t): FigureSpec => ({ key: t.key, x: t.x, y: t.y, text: t.text, ink: c.ink, background: c.background }));
     const created =
       d.branches.draw(branchesRef.current, branches, (s) => s.key, writeBranch) + d.blocks.draw(blocksRef.current, blocks, (s) => s.id, writeBlock);
-    d.figures.draw(figuresRef.current, onLinks, (s) => s.key, writeFigure);
 
     // The parts' accessible names (with their figures) and the branches' watts are not drawn: they
     // are written when the page is next idle after the paint (lag.ts); at once when a part is new or
@@ -232,10 +378,23 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     } else {
       scheduleWords(words);
     }
-  }, [laid, labels, nodeLabels, selected, palette, loc, elements]);
+  }, [laid, nodeLabels, selected, palette, loc, elements]);
+
+  const zoomStep = (dir: 1 | -1) => {
+    const steps = dir > 0 ? ZOOMS.filter((z) => z > shownZoom + 1e-6) : ZOOMS.filter((z) => z < shownZoom - 1e-6).reverse();
+    setZoom(steps[0] ?? (dir > 0 ? ZOOMS[ZOOMS.length - 1]! : Math.min(fitZoom, ZOOMS[0]!)));
+  };
+  const wide = laid !== null && laid.width > boxWidth + 1;
+  // The zoom buttons: while the drawing is wider than its box, or shown at another size (so it can be set back).
+  const zoomable = laid !== null && (wide || shownZoom !== 1);
 
   return (
-    <section class="flow print-keep" aria-labelledby="flow-heading" data-testid="energy-flow" ref={box}>
+    <section
+      class="flow print-keep"
+      aria-labelledby="flow-heading"
+      data-testid="energy-flow"
+      ref={sectionBox}
+    >
       <style>{PRINT_RULES}</style>
       <div class="flow__head">
         <h3 id="flow-heading">Where the energy goes</h3>
@@ -254,20 +413,37 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
           {summary}
         </p>
       )}
+      {zoomable && (
+        <div class="flow__zoom flow__screen-only" role="group" aria-label="Diagram size">
+          <button type="button" class="flow__button" onClick={() => zoomStep(-1)} disabled={shownZoom <= fitZoom + 1e-6} data-testid="flow-zoom-out" aria-label="Zoom out">
+            −
+          </button>
+          <button type="button" class="flow__button" onClick={() => zoomStep(1)} disabled={shownZoom >= ZOOMS[ZOOMS.length - 1]! - 1e-6} data-testid="flow-zoom-in" aria-label="Zoom in">
+            +
+          </button>
+          <button type="button" class="flow__button" onClick={() => setZoom(shownZoom < 1 ? 1 : fitZoom)} data-testid="flow-zoom-fit">
+            {shownZoom < 1 ? 'Full size' : 'Whole chain'}
+          </button>
+          <span class="flow__zoom-level" aria-live="polite">
+            {formatPercent(shownZoom, loc, 2)}
+          </span>
+        </div>
+      )}
       <div
         class="flow__box"
         ref={boxRef}
         data-testid="flow-box"
         style={{ background: c.background }}
-        // Focusable so the sideways scroll on a narrow screen also works from the keyboard.
+        // Focusable so the pan on a narrow screen also works from the keyboard (arrow keys).
         tabIndex={0}
         role="region"
-        aria-label="Energy-flow diagram (scrolls sideways on narrow screens)"
+        aria-label="Energy-flow diagram (pans on narrow screens; zoom buttons above)"
         // One set of handlers for every branch and block (they carry their key in data-*), so a
-        // redraw after an edit does not hand each of them three new functions. On this box, not on
-        // the <svg>: Chromium makes an SVG element with a focus listener focusable itself.
+        // redraw after an edit does not hand each of them new functions. On this box, not on the
+        // <svg>: Chromium makes an SVG element with a focus listener focusable itself.
         onPointerOver={pick}
-        onClick={pick}
+        onClick={onClick}
+        onKeyDown={onKeyDown}
         onFocusIn={pick}
       >
         {graph.sourcePower === 0 && <p class="note">The source delivers nothing in this project, so there is no flow to draw.</p>}
@@ -278,42 +454,57 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
             class="flow__svg"
             width={laid.width}
             height={laid.height}
+            style={shownZoom !== 1 ? { width: `${laid.width * shownZoom}px`, height: `${laid.height * shownZoom}px` } : undefined}
             viewBox={`0 0 ${laid.width} ${laid.height}`}
             role="group"
             aria-label={title}
             font-family={FONT}
             data-testid="flow-svg"
-            data-hidden-labels={String(labels?.hidden ?? 0)}
           >
             <title>{title}</title>
             <rect x="0" y="0" width={laid.width} height={laid.height} fill={c.background} data-fill="background" />
-            {laid.bandTop !== undefined && (
-              <g>
-                <rect x="0" y={laid.bandTop - BAND_GAP / 2} width={laid.width} height={laid.height - laid.bandTop + BAND_GAP / 2} fill={c.band} data-fill="band" />
-                <text x={MARGIN.left} y={laid.bandTop - BAND_GAP / 2 + 17} font-size="12" font-weight="700" fill={c.inkMuted} data-fill="inkMuted">
-                  Losses
-                </text>
-              </g>
-            )}
             {/* Branches, blocks and labels: drawn by the layout effect above (flow-draw.ts). */}
             <g fill="none" ref={branchesRef} />
             <g ref={blocksRef} />
-            <g ref={figuresRef} />
           </svg>
         )}
       </div>
-      {laid && laid.width > boxWidth + 1 && (
+      {wide && (
         <p class="note flow__screen-only" data-testid="flow-scroll-hint">
-          The whole chain is wider than this screen: swipe the diagram sideways to follow it to the loads.
+          The whole chain is wider than this screen: swipe the diagram sideways to follow it to the loads, or use “Whole chain” to see all of it.
         </p>
       )}
       <p class="flow__details" aria-live="polite" data-testid="flow-details">
         {details}
       </p>
-      {(labels?.hidden ?? 0) > 0 && (
-        <p class="note flow__screen-only" data-testid="flow-hidden-labels">
-          Some small blocks have no label where there is no room for one: point at, tap or Tab to them for their figures.
-        </p>
+      {card && cardShown && (
+        <div
+          class="flow__card flow__screen-only"
+          ref={cardRef}
+          role="group"
+          aria-label={`Figures of ${cardShown.name}`}
+          data-testid="flow-card"
+          onKeyDown={(ev) => ev.key === 'Escape' && closeCard()}
+        >
+          <div class="flow__card-head">
+            <strong>{cardShown.name}</strong>
+            <button type="button" class="flow__card-close" onClick={closeCard} aria-label="Close the figures">
+              ×
+            </button>
+          </div>
+          <p class="flow__card-kind">
+            {cardShown.kind}
+            {cardShown.what ? ` · ${cardShown.what}` : ''}
+          </p>
+          <dl>
+            {cardShown.rows.map(([k, v]) => (
+              <div key={k}>
+                <dt>{k}</dt>
+                <dd>{v}</dd>
+              </div>
+            ))}
+          </dl>
+        </div>
       )}
       {zeroLoss.length > 0 && (
         <p class="note" data-testid="flow-no-loss">

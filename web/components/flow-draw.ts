@@ -11,6 +11,7 @@
  * What a part says rather than shows (its accessible name, a branch's watts) is written by
  * `describe`, which EnergyFlow.tsx runs when the page is idle after the paint.
  */
+import { LINE } from './flow-layout.ts';
 import { xmlSafeText } from './xml-text.ts';
 
 const NS = 'http://www.w3.org/2000/svg';
@@ -142,6 +143,8 @@ export interface BranchSpec {
   dash: string | undefined;
   role: string;
   part: string | undefined;
+  /** A filled ribbon (feed branches: `width` is then its stroke's, none) rather than a stroked line. */
+  ribbon: boolean;
   source: string;
   target: string;
   selected: boolean;
@@ -152,11 +155,16 @@ export const branchLayer = () => new PartLayer<Kept>(() => make('path'), (k) => 
 export function writeBranch(k: Kept, s: BranchSpec): void {
   write(k, {
     d: s.d,
+    // A ribbon is filled; its stroke keeps the colour (print rules and exports repaint it) at no width.
+    fill: s.ribbon ? s.colour : undefined,
+    'data-fill': s.ribbon ? s.paint : undefined,
+    'fill-opacity': s.ribbon ? s.opacity : undefined,
+    'data-fill-opacity': s.ribbon ? s.opacityKey : undefined,
     stroke: s.colour,
     'data-stroke': s.paint,
     'stroke-opacity': s.opacity,
     'data-opacity': s.opacityKey,
-    'stroke-width': s.width,
+    'stroke-width': s.ribbon ? 0 : s.width,
     'stroke-dasharray': s.dash,
     class: 'flow__link',
     // Lower case: on an SVG element the attribute name is taken as written, and only "tabindex" counts.
@@ -177,48 +185,56 @@ export function writeBranchWords(k: Kept, w: PartWords): void {
 
 // ---------- blocks and their labels ----------
 
+/** A rectangle, px. */
+export interface RectSpec {
+  x: number;
+  y: number;
+  w: number;
+  h: number;
+}
+
 export interface BlockSpec {
   id: string;
   role: string;
-  x0: number;
-  y0: number;
-  width: number;
-  h: number;
-  /** Height of the idle part drawn on top (0: none). */
-  idleH: number;
+  /** The block: a source's, stage's or load's pipe (the flow through its column), or a loss block. */
+  rect: RectSpec;
+  /** Palette key of the block's fill. */
   paint: string;
-  colours: { fill: string; idle: string; selected: string; ink: string; inkMuted: string; background: string };
-  /** Name and figure lines beside the block, when there is room for them. */
-  text: { x: number; y: number; name: string; lines: readonly string[] } | undefined;
+  /** Fill opacity (pipes take their branches' opacity), and its key for the exports; none: opaque. */
+  opacity: { key: 'feed'; value: number } | undefined;
+  /**
+   * A second rectangle on top: a pipe's mark in its role's colour (source, stage, load), or a loss
+   * block's idle part; with its palette key.
+   */
+  top: (RectSpec & { paint: string }) | undefined;
+  colours: { fill: string; top: string; selected: string; ink: string; inkMuted: string; background: string };
+  /** The label's lines (names bold), from (x, y) down; centred on x or starting there. */
+  text: { x: number; y: number; anchor: 'start' | 'middle'; lines: readonly { text: string; bold: boolean }[]; fullName?: string } | undefined;
   selected: boolean;
 }
 
 interface Block {
   g: Kept;
   rect: Kept;
-  idle: Kept | null;
+  top: Kept | null;
   /** The label, placed by its group's translation (moving it does not lay its text out again). */
   place: Kept | null;
   /**
-   * The name and each figure line are <text> elements of their own: a changed figure lays out its
-   * own line only (one <text> with a <tspan> per line lays out all its lines again).
+   * Each line is a <text> element of its own: a changed figure lays out its own line only (one
+   * <text> with a <tspan> per line lays out all its lines again).
    */
-  name: Kept | null;
   lines: Kept[];
 }
 
 export const blockLayer = () =>
   new PartLayer<Block>(
     () => {
-      const b: Block = { g: make('g'), rect: make('rect'), idle: null, place: null, name: null, lines: [] };
+      const b: Block = { g: make('g'), rect: make('rect'), top: null, place: null, lines: [] };
       b.g.el.append(b.rect.el);
       return b;
     },
     (b) => b.g.el,
   );
-
-/** Line pitch of a label, px (1.25 em of its 12 px type). */
-const LINE = 15;
 
 export function writeBlock(b: Block, s: BlockSpec): void {
   const c = s.colours;
@@ -229,45 +245,45 @@ export function writeBlock(b: Block, s: BlockSpec): void {
     'data-node': s.id,
     'data-role': s.role,
     'data-selected': s.selected ? 'true' : undefined,
+    // A name shortened in the drawing: the exported file lists it in full (flow-export.ts).
+    'data-full-name': s.text?.fullName,
   });
   write(b.rect, {
-    x: s.x0,
-    y: s.y0,
-    width: s.width,
-    height: s.h,
+    x: s.rect.x,
+    y: s.rect.y,
+    width: s.rect.w,
+    height: s.rect.h,
     fill: c.fill,
     'data-fill': s.paint,
+    'fill-opacity': s.opacity?.value,
+    'data-fill-opacity': s.opacity?.key,
     stroke: s.selected ? c.selected : 'none',
     'data-stroke': s.selected ? 'selected' : undefined,
     'stroke-width': s.selected ? 3 : 0,
   });
-  if (s.idleH > 0) {
-    if (!b.idle) {
-      b.idle = make('rect');
-      b.rect.el.after(b.idle.el);
+  if (s.top) {
+    if (!b.top) {
+      b.top = make('rect');
+      b.rect.el.after(b.top.el);
     }
-    write(b.idle, { x: s.x0, y: s.y0, width: s.width, height: s.idleH, fill: c.idle, 'data-fill': 'idle' });
-  } else if (b.idle) {
-    b.idle.el.remove();
-    b.idle = null;
+    write(b.top, { x: s.top.x, y: s.top.y, width: s.top.w, height: s.top.h, fill: c.top, 'data-fill': s.top.paint });
+  } else if (b.top) {
+    b.top.el.remove();
+    b.top = null;
   }
   const t = s.text;
   if (!t) {
     if (b.place) b.place.el.remove();
-    b.place = b.name = null;
+    b.place = null;
     b.lines = [];
     return;
   }
-  if (!b.place || !b.name) {
+  if (!b.place) {
     b.place = make('g');
-    b.name = make('text');
-    b.place.el.append(b.name.el);
     b.g.el.append(b.place.el);
     b.lines = [];
   }
-  write(b.place, { transform: `translate(${t.x} ${t.y})`, 'font-size': 12, ...halo(c.background) });
-  write(b.name, { 'font-weight': 600, fill: c.ink, 'data-fill': 'ink' });
-  writeText(b.name, t.name);
+  write(b.place, { transform: `translate(${t.x} ${t.y})`, 'font-size': 12, 'text-anchor': t.anchor, ...halo(c.background) });
   // Lines are kept by place: a changed figure rewrites its line instead of replacing it.
   while (b.lines.length > t.lines.length) b.lines.pop()!.el.remove();
   while (b.lines.length < t.lines.length) {
@@ -275,56 +291,20 @@ export function writeBlock(b: Block, s: BlockSpec): void {
     b.place.el.append(line.el);
     b.lines.push(line);
   }
-  t.lines.forEach((text, i) => {
+  t.lines.forEach((l, i) => {
     const line = b.lines[i]!;
-    write(line, { y: LINE * (i + 1), fill: c.inkMuted, 'data-fill': 'inkMuted' });
-    writeText(line, text);
+    write(line, {
+      y: LINE * i,
+      'font-weight': l.bold ? 600 : undefined,
+      fill: l.bold ? c.ink : c.inkMuted,
+      'data-fill': l.bold ? 'ink' : 'inkMuted',
+    });
+    writeText(line, l.text);
   });
 }
 
 export function writeBlockWords(b: Block, w: PartWords): void {
   write(b.g, { 'aria-label': w.label });
-}
-
-// ---------- figures on the branches ----------
-
-export interface FigureSpec {
-  key: string;
-  x: number;
-  y: number;
-  text: string;
-  ink: string;
-  background: string;
-}
-
-interface Figure {
-  place: Kept;
-  text: Kept;
-}
-
-export const figureLayer = () =>
-  new PartLayer<Figure>(
-    () => {
-      const f: Figure = { place: make('g'), text: make('text') };
-      f.place.el.append(f.text.el);
-      return f;
-    },
-    (f) => f.place.el,
-  );
-
-export function writeFigure(f: Figure, s: FigureSpec): void {
-  write(f.place, { transform: `translate(${s.x} ${s.y})`, 'pointer-events': 'none' });
-  write(f.text, {
-    dy: '0.35em',
-    'text-anchor': 'middle',
-    'font-size': 12,
-    'font-weight': 600,
-    fill: s.ink,
-    'data-fill': 'ink',
-    ...halo(s.background),
-    'data-link': s.key,
-  });
-  writeText(f.text, s.text);
 }
 
 /** Make every text and attribute value under `root` fit for an XML 1.0 file (xml-text.ts), in place. */

@@ -6,7 +6,7 @@
 import { fileNameStem } from '../format/labels.ts';
 import { FLOW_PALETTES, PAPER_THEME, type FlowPalette, type PaintKey } from './flow-palette.ts';
 import { makeXmlSafe } from './flow-draw.ts';
-import { IDLE_DASH } from './flow-layout.ts';
+import { IDLE_DASH, roughMeasure, wrap } from './flow-layout.ts';
 import { LEGEND, type LegendItem } from './flow-legend.tsx';
 
 /** The file name stem for downloads: the project's name in lower case, words joined by dashes. */
@@ -34,6 +34,8 @@ function repaint(root: Element, palette: FlowPalette): void {
   root.querySelectorAll('[data-opacity]').forEach((el) =>
     el.setAttribute('stroke-opacity', String(el.getAttribute('data-opacity') === 'feed' ? palette.feedOpacity : palette.lossOpacity)),
   );
+  // Pipes (the flow through a column) take the feed branches' opacity.
+  root.querySelectorAll('[data-fill-opacity]').forEach((el) => el.setAttribute('fill-opacity', String(palette.feedOpacity)));
 }
 
 const EXPORT_ROW = 16;
@@ -55,6 +57,20 @@ function exportLegendRows(width: number): { item: LegendItem; x: number; row: nu
   return out;
 }
 
+/**
+ * The legend of names the drawing had to shorten (a name longer than its label's lines, flow-layout.ts):
+ * each full name, wrapped to the file's width, under the drawing. Empty when no name was shortened.
+ */
+function shortenedNames(svg: Element, width: number): string[] {
+  const names = [...svg.querySelectorAll('[data-full-name]')].map((el) => el.getAttribute('data-full-name') ?? '');
+  if (names.length === 0) return [];
+  const lines = ['Names shortened in the drawing, in full:'];
+  for (const name of names) lines.push(...wrap(`• ${name}`.split(/\s+/), ' ', width - 24, false, roughMeasure));
+  return lines;
+}
+
+const exportFooter = (lines: readonly string[]) => (lines.length ? lines.length * EXPORT_ROW + 12 : 0);
+
 const exportHeader = (width: number, summary: string | null) =>
   40 + EXPORT_ROW * (Math.max(...exportLegendRows(width).map((r) => r.row)) + 1) + (summary ? EXPORT_ROW : 0);
 
@@ -67,11 +83,15 @@ export function svgText(svg: SVGSVGElement, title: string, summary: string | nul
   copy.querySelectorAll('[data-selected]').forEach((el) => el.removeAttribute('data-selected'));
   repaint(copy, paper);
   copy.removeAttribute('class');
+  // The page's zoom is not the file's: the file has the drawing's own size.
+  copy.removeAttribute('style');
   copy.setAttribute('xmlns', NS);
   // A file stands alone: a heading, the colour key and the loss split above the diagram.
   const width = Number(svg.getAttribute('width'));
   const header = exportHeader(width, summary);
-  const height = Number(svg.getAttribute('height')) + header;
+  const footer = shortenedNames(svg, width);
+  const drawingHeight = Number(svg.getAttribute('height'));
+  const height = drawingHeight + header + exportFooter(footer);
   copy.setAttribute('height', String(height));
   copy.setAttribute('viewBox', `0 0 ${width} ${height}`);
   const doc = copy.ownerDocument;
@@ -105,7 +125,11 @@ export function svgText(svg: SVGSVGElement, title: string, summary: string | nul
     const rows = Math.max(...exportLegendRows(width).map((r) => r.row)) + 1;
     head.append(el('text', { x: '12', y: String(42 + rows * EXPORT_ROW), 'font-size': '11', fill: paper.colours.ink }, summary));
   }
-  copy.append(head, body);
+  const foot = el('g', { transform: `translate(0 ${header + drawingHeight})` });
+  footer.forEach((line, i) =>
+    foot.append(el('text', { x: '12', y: String(EXPORT_ROW * (i + 1)), 'font-size': '11', fill: paper.colours.ink, 'data-legend-name': '' }, line)),
+  );
+  copy.append(head, body, foot);
   // Names may hold characters XML 1.0 forbids (a control character pasted or imported): left out.
   makeXmlSafe(copy);
   return `<?xml version="1.0" encoding="UTF-8"?>\n${new XMLSerializer().serializeToString(copy)}`;
@@ -114,7 +138,7 @@ export function svgText(svg: SVGSVGElement, title: string, summary: string | nul
 /** The SVG drawn onto a canvas at twice its size, as a PNG. */
 export async function pngBlob(svg: SVGSVGElement, title: string, summary: string | null): Promise<Blob> {
   const width = Number(svg.getAttribute('width'));
-  const height = Number(svg.getAttribute('height')) + exportHeader(width, summary);
+  const height = Number(svg.getAttribute('height')) + exportHeader(width, summary) + exportFooter(shortenedNames(svg, width));
   const url = URL.createObjectURL(new Blob([svgText(svg, title, summary)], { type: 'image/svg+xml' }));
   try {
     const img = new Image();
@@ -151,6 +175,7 @@ function printRules(): string {
     ...keys.map((k) => `.flow__svg [data-stroke="${k}"] { stroke: ${p.colours[k]}; }`),
     `.flow__svg [data-opacity="feed"] { stroke-opacity: ${p.feedOpacity}; }`,
     `.flow__svg [data-opacity="loss"] { stroke-opacity: ${p.lossOpacity}; }`,
+    `.flow__svg [data-fill-opacity] { fill-opacity: ${p.feedOpacity}; }`,
     `.flow__box { background: ${p.colours.background} !important; }`,
     ...LEGEND.map((i) => `.flow__swatch[data-paint="${i.paint}"] { border-top-color: ${p.colours[i.paint]} !important; }`),
     '}',

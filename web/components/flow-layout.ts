@@ -1,38 +1,117 @@
 /**
  * The energy-flow diagram's layout (EnergyFlow.tsx draws it): which links are drawn, their paint keys, the
- * columns, d3-sankey's placing of the power that flows on, the loss band under it, and the labels that fit
- * (steps in `layout` and `placeLabels`). Pure functions of the graph core's flowGraph() gives.
+ * columns, the place of every block, branch and label. Pure functions of the graph core's flowGraph() gives
+ * (and of a text measure, so that names wrap where the page's font needs it).
+ *
+ * The drawing is made of columns (one per depth of the chain, source first) and the gaps between them:
+ * - in a column, each source, stage and load is a straight piece of the flow (its "pipe", as tall as
+ *   the power it takes in), with its label (name, wrapped to the column, never cut — past
+ *   MAX_NAME_LINES lines shortened, the full name then in the exported file's legend; then its power
+ *   and share of the source) just above it, and its loss right under it: a branch leaving the pipe's bottom
+ *   straight down (idle part on the left, conversion part on the right), a small loss block, and the
+ *   loss label centred under the stage;
+ * - in a gap, only the branches that carry power on (each from its element to an element of the next
+ *   column: a chain is a tree, so every feed joins neighbouring columns).
+ * Labels and loss branches stay inside their column and feed branches inside their gap, so no loss
+ * branch can cross a main flow or a label. A stage's subtree takes the rows its stages, labels and
+ * losses need (a tidy tree: children stacked under each other, the first continuing its parent's flow
+ * at the same height), so the losses take only the height they need, under their own stage.
  */
-import { sankey, type SankeyLink, type SankeyNode } from 'd3-sankey';
 import type { FlowGraph, FlowLink, FlowNode } from '../../core/studies/index.ts';
 import { formatPercent, formatPower } from '../format/number.ts';
 import type { PaintKey } from './flow-palette.ts';
 
 export const FONT = "system-ui, -apple-system, 'Segoe UI', Roboto, 'Noto Sans', sans-serif";
-const NODE_WIDTH = 14;
-const NODE_PADDING = 40;
-/** Width given to one column of the diagram, px (labels sit in the gap to the next column). */
-const COLUMN_WIDTH = 150;
-/** Room to the right of the last column for the loads' labels, px. */
-const RIGHT_LABELS = 150;
-export const MARGIN = { top: 30, right: 12, bottom: 16, left: 12 };
-/** Space between the lowest feed and the loss band, px (the band's caption sits in it). */
-export const BAND_GAP = 44;
+/** Width of a column (its pipes and labels), px. */
+export const COLUMN = 140;
+/** Width of the gap between two columns (feed branches only), px. */
+export const GAP = 48;
+/** Width of the coloured mark at a pipe's start (source, stage, load colour), px. */
+export const MARK = 6;
+export const MARGIN = { top: 12, right: 12, bottom: 16, left: 12 };
 /** The drawing's height goes up and down in steps of this, px. */
 const HEIGHT_STEP = 40;
-/** Height kept for one loss label (name, figures, idle part), px. */
-const LOSS_LABEL = 46;
-/** A link narrower than this (px) gets no label on it; its figures are on hover, tap and focus. */
-const LABEL_MIN_WIDTH = 15;
+/** Tallest pipe (the source's), px. */
+const MAX_PIPE = 150;
+/** Length of a loss branch from its pipe to its loss block, px. */
+const STUB = 14;
+/** Height of a loss block, px. */
+const LOSS_BLOCK = 4;
+/** Line pitch of a label, px (1.25 em of its 12 px type). */
+export const LINE = 15;
+/** Room kept under a subtree before the next one, px. */
+const PAD = 14;
 /** Links carrying less than this share of the source power are not drawn (e.g. a stiff source's 0 W loss). */
 export const ZERO_SHARE = 1e-9;
 /** Dash pattern of idle-loss branches and swatches: idle loss is told by pattern as well as colour. */
 export const IDLE_DASH = '5 3';
+/** Room a label line may take in its column, px (a little kept free on each side). */
+const TEXT_ROOM = COLUMN - 4;
 
-export type NodeExtra = FlowNode & { index0: number };
-export type LinkExtra = FlowLink & { key: string; value: number };
-export type LaidNode = SankeyNode<NodeExtra, LinkExtra>;
-export type LaidLink = SankeyLink<NodeExtra, LinkExtra>;
+/** Width of a 12 px label line, px. */
+export type Measure = (text: string, bold: boolean) => number;
+
+/**
+ * Rough width of a 12 px line when no page measures it (benchmarks, Node): per character, from the
+ * advance widths of DejaVu Sans (one of the wider system sans faces: digits 0.64 em, capitals about
+ * 0.7 em, lower case about 0.6 em, spaces and stops 0.32 em), bold about 8 % wider. From memory.
+ */
+export const roughMeasure: Measure = (text, bold) => {
+  let em = 0;
+  for (const ch of text) {
+    if (ch >= '0' && ch <= '9') em += 0.64;
+    else if (ch === ' ' || ch === '.' || ch === ',' || ch === ':' || ch === '·' || ch === 'i' || ch === 'l') em += 0.32;
+    else if (ch >= 'A' && ch <= 'Z') em += 0.72;
+    else em += 0.62;
+  }
+  return em * 12 * (bold ? 1.08 : 1);
+};
+
+export interface LaidNode extends FlowNode {
+  index0: number;
+  /** Column (0: the source). */
+  column: number;
+  /** The block: a pipe for a source, stage or load; the small loss block for a loss node. */
+  x0: number;
+  y0: number;
+  x1: number;
+  y1: number;
+  /** Loss nodes: width of the idle part at the block's left, px. */
+  idleWidth: number;
+}
+
+export interface LaidLink extends FlowLink {
+  key: string;
+  /** Drawn width, px (to scale with the power). */
+  width: number;
+  /** Centre line: from (sx, sy) to (tx, ty): a feed branch bends across its gap, a loss branch runs straight down. */
+  sx: number;
+  sy: number;
+  tx: number;
+  ty: number;
+  sourceNode: LaidNode;
+  targetNode: LaidNode;
+}
+
+/** A label: lines from (x, y) down (y is the first line's baseline), left-aligned or centred on x. */
+export interface NodeLabel {
+  id: string;
+  x: number;
+  y: number;
+  anchor: 'start' | 'middle';
+  lines: readonly { text: string; bold: boolean }[];
+  /** The full name, when the label had to shorten it (more than MAX_NAME_LINES lines). */
+  fullName?: string;
+}
+
+export interface Layout {
+  width: number;
+  height: number;
+  nodes: LaidNode[];
+  links: LaidLink[];
+  labels: NodeLabel[];
+  columns: number;
+}
 
 /** Which links are drawn: everything that carries power (zero branches would be invisible slivers). */
 function drawnLinks(g: FlowGraph): FlowLink[] {
@@ -58,216 +137,252 @@ export function nodePaint(n: FlowNode): PaintKey {
 
 export const figures = (watts: number, percent: number, loc: string | undefined) => `${formatPower(watts, loc)} · ${formatPercent(percent / 100, loc, 3)}`;
 
-function shorten(text: string, max = 24): string {
-  return text.length <= max ? text : `${text.slice(0, max - 1)}…`;
+/**
+ * Words into lines of at most `room` px: pieces joined by `sep` while they fit; a piece wider than
+ * a line on its own is broken between characters (nothing is ever cut off).
+ */
+export function wrap(pieces: readonly string[], sep: string, room: number, bold: boolean, measure: Measure): string[] {
+  const lines: string[] = [];
+  let line = '';
+  for (let piece of pieces) {
+    if (piece === '') continue;
+    const joined = line === '' ? piece : line + sep + piece;
+    if (measure(joined, bold) <= room) {
+      line = joined;
+      continue;
+    }
+    if (line !== '') lines.push(line);
+    line = '';
+    while (measure(piece, bold) > room && piece.length > 1) {
+      // The longest head that fits (a binary search: a pasted name may be thousands of characters).
+      let lo = 1;
+      let hi = piece.length - 1;
+      while (lo < hi) {
+        const mid = Math.ceil((lo + hi) / 2);
+        if (measure(piece.slice(0, mid), bold) <= room) lo = mid;
+        else hi = mid - 1;
+      }
+      lines.push(piece.slice(0, lo));
+      piece = piece.slice(lo);
+    }
+    line = piece;
+  }
+  if (line !== '') lines.push(line);
+  return lines;
 }
 
-interface Layout {
-  width: number;
-  height: number;
-  nodes: LaidNode[];
-  links: LaidLink[];
-  columns: number;
-  /** Top of the loss band, px (absent when nothing loses power). */
-  bandTop?: number;
-}
+/** Lines a name may take in the drawing; a longer one is shortened there, with its full name in the exported file's legend. */
+export const MAX_NAME_LINES = 6;
 
 /**
- * Steps: (1) columns from the chain's depth (loads at the right edge, a loss node one column after
- * its element); (2) d3-sankey lays out the power that flows on; (3) the loss nodes go into the band
- * under it, stacked per column; (4) each loss link leaves the bottom of its element's block (the
- * block's height is its input, so the part below its feed links is exactly its loss) and enters its
- * loss node, idle part above conversion part.
+ * The lines of a source's, stage's or load's label: its name (bold, wrapped), then its power and
+ * share; and whether the name had to be shortened (only past MAX_NAME_LINES lines).
  */
-export function layout(g: FlowGraph, minWidth: number): Layout | null {
+function nodeLines(n: FlowNode, loc: string | undefined, measure: Measure): { lines: { text: string; bold: boolean }[]; shortened: boolean } {
+  let name = wrap(n.name.split(/\s+/), ' ', TEXT_ROOM, true, measure);
+  const shortened = name.length > MAX_NAME_LINES;
+  if (shortened) {
+    name = name.slice(0, MAX_NAME_LINES);
+    let last = name[MAX_NAME_LINES - 1]!;
+    while (last.length > 1 && measure(`${last}…`, true) > TEXT_ROOM) last = last.slice(0, -1);
+    name[MAX_NAME_LINES - 1] = `${last}…`;
+  }
+  // A line that ends where the name has a space keeps that space (SVG does not draw it), so that the
+  // file's text, read as a whole (copied, searched, read aloud), holds the name with its spaces.
+  const full = n.name.split(/\s+/).join(' ');
+  let at = 0;
+  name = name.map((line) => {
+    at += line.length;
+    if (full[at] !== ' ') return line;
+    at++;
+    return `${line} `;
+  });
+  const figs = wrap([formatPower(n.watts, loc), formatPercent(n.percent / 100, loc, 3)], ' · ', TEXT_ROOM, false, measure);
+  return { lines: [...name.map((text) => ({ text, bold: true })), ...figs.map((text) => ({ text, bold: false }))], shortened };
+}
+
+/** The lines of a loss label (under its own stage, so without the name): the loss, its share, its idle part. */
+function lossLines(n: FlowNode, loc: string | undefined, measure: Measure): { text: string; bold: boolean }[] {
+  const lines = wrap([`loss ${formatPower(n.watts, loc)}`, formatPercent(n.percent / 100, loc, 3)], ' · ', TEXT_ROOM, false, measure);
+  if ((n.idleWatts ?? 0) > 0) lines.push(...wrap([`idle ${formatPower(n.idleWatts!, loc)}`], ' ', TEXT_ROOM, false, measure));
+  return lines.map((text) => ({ text, bold: false }));
+}
+
+/** Left edge of a column, px. */
+export const columnX = (c: number) => MARGIN.left + c * (COLUMN + GAP);
+
+/**
+ * Steps: (1) the tree of drawn feeds (children in the graph's order) and each element's column;
+ * (2) the scale (the source's pipe at most MAX_PIPE px tall, the widest loss branch within a column);
+ * (3) each label's lines, the height above a pipe its label needs, and the height a subtree's first
+ * line of flow needs above it (its "ascent": a first child continues its parent's flow at the same
+ * height, so the taller label of the two sets it); (4) the subtrees placed top to bottom, each pipe
+ * with its loss under it; (5) the branches: feeds leave their pipe's right end stacked from the top
+ * and enter their child's pipe; loss branches leave the pipe's bottom, idle part left of conversion.
+ */
+export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, measure: Measure = roughMeasure): Layout | null {
   const links = drawnLinks(g);
   const used = new Set(links.flatMap((l) => [l.source, l.target]));
   for (const n of g.nodes) if (n.role === 'source') used.add(n.id);
-  // Copies: d3-sankey writes its layout into the objects it is given.
-  const nodes: NodeExtra[] = g.nodes.filter((n) => used.has(n.id)).map((n, index0) => ({ ...n, index0 }));
-  if (nodes.length === 0) return null;
-  const all: LinkExtra[] = links.map((l) => ({ ...l, key: linkKey(l), value: l.watts }));
-  const feedLinks = all.filter((l) => l.role === 'feed');
-  const lossLinks = all.filter((l) => l.role === 'loss');
+  const all = g.nodes.filter((n) => used.has(n.id));
+  if (all.length === 0) return null;
+  const byId = new Map<string, FlowNode>(all.map((n) => [n.id, n]));
 
-  // (1) Columns.
-  const depth = new Map<string, number>();
-  for (const n of nodes) if (n.role === 'source') depth.set(n.id, 0);
-  for (const l of all) depth.set(l.target, (depth.get(l.source) ?? 0) + 1);
-  const columns = Math.max(...depth.values()) + 1;
-  const column = (n: FlowNode) => (n.role === 'load' ? columns - 1 : (depth.get(n.id) ?? 0));
-  const flowNodes = nodes.filter((n) => n.role !== 'loss');
-  const lossNodes = nodes.filter((n) => n.role === 'loss');
-  const perColumn = new Map<number, number>();
-  for (const n of flowNodes) perColumn.set(column(n), (perColumn.get(column(n)) ?? 0) + 1);
-  const busiest = Math.max(...perColumn.values());
-  const width = Math.max(minWidth, MARGIN.left + (columns - 1) * COLUMN_WIDTH + NODE_WIDTH + RIGHT_LABELS + MARGIN.right);
-  const flowHeight = Math.max(200, busiest * (NODE_PADDING + 22) + 60);
-
-  // (2) The power that flows on.
-  const generator = sankey<NodeExtra, LinkExtra>()
-    .nodeId((n) => n.id)
-    .nodeWidth(NODE_WIDTH)
-    .nodePadding(NODE_PADDING)
-    .nodeAlign((n, count) => (n.role === 'load' ? count - 1 : (n.depth ?? 0)))
-    .nodeSort((a, b) => a.index0 - b.index0)
-    .extent([
-      [MARGIN.left, MARGIN.top],
-      [width - MARGIN.right - RIGHT_LABELS, MARGIN.top + flowHeight],
-    ]);
-  const laid = generator({ nodes: flowNodes, links: feedLinks });
-  // Pixels per watt: a block is as tall as its input (d3-sankey: the larger of in and out).
-  const ref = laid.nodes.find((n) => (n.value ?? 0) > 0);
-  const ky = ref ? ((ref.y1 ?? 0) - (ref.y0 ?? 0)) / (ref.value ?? 1) : 0;
-  const xOf = (c: number) => MARGIN.left + c * COLUMN_WIDTH;
-  for (const n of laid.nodes) {
-    n.x0 = xOf(column(n));
-    n.x1 = n.x0 + NODE_WIDTH;
-    // The source's block also carries its own loss, which leaves it below its feeds.
-    if (n.role === 'source') n.y1 = (n.y0 ?? 0) + Math.max((n.y1 ?? 0) - (n.y0 ?? 0), n.watts * ky);
+  // (1) The tree.
+  const children = new Map<string, string[]>();
+  const hasParent = new Set<string>();
+  const lossOf = new Map<string, FlowNode>();
+  for (const l of links) {
+    if (l.role === 'feed') {
+      if (hasParent.has(l.target) || !byId.has(l.target)) continue;
+      hasParent.add(l.target);
+      (children.get(l.source) ?? children.set(l.source, []).get(l.source)!).push(l.target);
+    } else if (!lossOf.has(l.source)) lossOf.set(l.source, byId.get(l.target)!);
   }
-  if (lossNodes.length === 0) return { width, height: MARGIN.top + flowHeight + MARGIN.bottom, nodes: laid.nodes, links: laid.links, columns };
+  const flowNodes = all.filter((n) => n.role !== 'loss');
+  const roots = flowNodes.filter((n) => !hasParent.has(n.id));
+  const column = new Map<string, number>();
+  // Depth by an explicit walk: a chain may hold thousands of elements in a row.
+  const order: string[] = [];
+  for (const r of roots) {
+    const stack: [string, number][] = [[r.id, 0]];
+    while (stack.length) {
+      const [id, c] = stack.pop()!;
+      if (column.has(id)) continue;
+      column.set(id, c);
+      order.push(id);
+      const kids = children.get(id) ?? [];
+      for (let i = kids.length - 1; i >= 0; i--) stack.push([kids[i]!, c + 1]);
+    }
+  }
+  const columns = Math.max(...column.values()) + 1;
 
-  // (3) The loss band.
-  const flowBottom = Math.max(...laid.nodes.map((n) => n.y1 ?? 0));
-  const bandTop = flowBottom + BAND_GAP;
-  const nextY = new Map<number, number>();
-  const placedLoss: LaidNode[] = lossNodes.map((n) => {
-    const c = Math.min(column(n), columns - 1);
-    const y0 = nextY.get(c) ?? bandTop;
-    const h = n.watts * ky;
-    nextY.set(c, y0 + Math.max(h, LOSS_LABEL) + 10);
-    const x0 = xOf(c);
-    return { ...n, x0, x1: x0 + NODE_WIDTH, y0, y1: y0 + h, sourceLinks: [], targetLinks: [] } as LaidNode;
-  });
-  const byId = new Map<string, LaidNode>([...laid.nodes, ...placedLoss].map((n) => [n.id, n]));
+  // (2) Scale, px per W.
+  const flowMax = Math.max(...roots.map((n) => Math.abs(n.watts)), 0);
+  const lossMax = Math.max(...[...lossOf.values()].map((n) => n.watts), 0);
+  const ky = Math.min(flowMax > 0 ? MAX_PIPE / flowMax : 0, lossMax > 0 ? (COLUMN - 24) / lossMax : Infinity);
+  const pipeH = (n: FlowNode) => Math.max(2, n.watts * ky);
 
-  // (4) Loss links: below the feeds at the element, idle above conversion at the loss node.
+  // (3) Labels and heights.
+  const labelLines = new Map<string, { text: string; bold: boolean }[]>();
+  const shortened = new Set<string>();
+  const head = new Map<string, number>();
+  const below = new Map<string, number>();
+  for (const n of flowNodes) {
+    const { lines, shortened: cut } = nodeLines(n, loc, measure);
+    if (cut) shortened.add(n.id);
+    labelLines.set(n.id, lines);
+    head.set(n.id, lines.length * LINE + 4);
+    const loss = lossOf.get(n.id);
+    let d = pipeH(n);
+    if (loss) {
+      const ll = lossLines(loss, loc, measure);
+      labelLines.set(loss.id, ll);
+      d += STUB + LOSS_BLOCK + 4 + ll.length * LINE;
+    }
+    below.set(n.id, d + PAD);
+  }
+  const ascent = new Map<string, number>();
+  for (let i = order.length - 1; i >= 0; i--) {
+    const id = order[i]!;
+    const first = children.get(id)?.[0];
+    ascent.set(id, Math.max(head.get(id)!, first ? ascent.get(first)! : 0));
+  }
+
+  // (4) Subtrees top to bottom: a node's pipe sits its ascent below its subtree's top.
+  const laid = new Map<string, LaidNode>();
+  const index0 = new Map(all.map((n, i) => [n.id, i]));
+  const labels: NodeLabel[] = [];
+  let bottom = MARGIN.top;
+  // Explicit stack again: each frame holds its subtree's top and where its next child goes (`cursor`).
+  const subtreeBottom = new Map<string, number>();
+  for (const r of roots) {
+    const top = bottom;
+    const stack: { id: string; top: number; next: number; cursor: number; done: boolean }[] = [{ id: r.id, top, next: 0, cursor: top, done: false }];
+    while (stack.length) {
+      const f = stack[stack.length - 1]!;
+      const n = byId.get(f.id)!;
+      const kids = children.get(f.id) ?? [];
+      if (!f.done) {
+        f.done = true;
+        const c = column.get(f.id)!;
+        const x0 = columnX(c);
+        const y0 = f.top + ascent.get(f.id)!;
+        const h = pipeH(n);
+        laid.set(f.id, { ...n, index0: index0.get(f.id)!, column: c, x0, x1: x0 + COLUMN, y0, y1: y0 + h, idleWidth: 0 });
+        const lines = labelLines.get(f.id)!;
+        labels.push({ id: f.id, x: x0, y: y0 - lines.length * LINE - 4 + 11, anchor: 'start', lines, ...(shortened.has(f.id) ? { fullName: n.name } : {}) });
+        const loss = lossOf.get(f.id);
+        if (loss) {
+          // The block at least 1 px wide; its idle part to scale.
+          const w = Math.max(1, loss.watts * ky);
+          const idleW = (loss.idleWatts ?? 0) * ky;
+          const cx = x0 + COLUMN / 2;
+          const ly0 = y0 + h + STUB;
+          laid.set(loss.id, { ...loss, index0: index0.get(loss.id)!, column: c, x0: cx - w / 2, x1: cx + w / 2, y0: ly0, y1: ly0 + LOSS_BLOCK, idleWidth: idleW });
+          labels.push({ id: loss.id, x: cx, y: ly0 + LOSS_BLOCK + 4 + 11, anchor: 'middle', lines: labelLines.get(loss.id)! });
+        }
+        subtreeBottom.set(f.id, y0 + below.get(f.id)!);
+      }
+      if (f.next < kids.length) {
+        const kid = kids[f.next]!;
+        // The first child continues its parent's flow at the same height; the others stack under it.
+        const kidTop = f.next === 0 ? f.top + ascent.get(f.id)! - ascent.get(kid)! : f.cursor;
+        f.next++;
+        stack.push({ id: kid, top: kidTop, next: 0, cursor: kidTop, done: false });
+        continue;
+      }
+      stack.pop();
+      const parent = stack[stack.length - 1];
+      if (parent) {
+        parent.cursor = subtreeBottom.get(f.id)!;
+        subtreeBottom.set(parent.id, Math.max(subtreeBottom.get(parent.id)!, parent.cursor));
+      }
+    }
+    bottom = subtreeBottom.get(r.id)!;
+  }
+
+  // (5) Branches.
   const outUsed = new Map<string, number>();
-  for (const n of laid.nodes) outUsed.set(n.id, (n.sourceLinks ?? []).reduce((a, l) => a + (l.width ?? 0), 0));
-  const inUsed = new Map<string, number>();
-  const laidLoss: LaidLink[] = lossLinks.map((l) => {
-    const from = byId.get(l.source)!;
-    const to = byId.get(l.target)!;
-    const w = l.watts * ky;
-    const out = outUsed.get(from.id) ?? 0;
-    const inn = inUsed.get(to.id) ?? 0;
-    outUsed.set(from.id, out + w);
-    inUsed.set(to.id, inn + w);
-    return { ...l, source: from, target: to, width: w, y0: (from.y0 ?? 0) + out + w / 2, y1: (to.y0 ?? 0) + inn + w / 2 } as LaidLink;
-  });
-  // In steps: an edit that changes a tall loss block a little keeps the drawing's height, so the
-  // page below does not move and the drawing is not laid out again as a whole (a new SVG size does).
-  const height = Math.ceil((Math.max(...[...nextY.values()]) + MARGIN.bottom) / HEIGHT_STEP) * HEIGHT_STEP;
-  return { width, height, nodes: [...laid.nodes, ...placedLoss], links: [...laid.links, ...laidLoss], columns, bandTop };
-}
+  const laidLinks: LaidLink[] = [];
+  const lossUsed = new Map<string, number>();
+  for (const l of links) {
+    const from = laid.get(l.source);
+    const to = laid.get(l.target);
+    if (!from || !to) continue;
+    const width = l.watts * ky;
+    const key = linkKey(l);
+    if (l.role === 'feed') {
+      const out = outUsed.get(from.id) ?? 0;
+      outUsed.set(from.id, out + width);
+      laidLinks.push({ ...l, key, width, sx: from.x1, sy: from.y0 + out + width / 2, tx: to.x0, ty: to.y0 + width / 2, sourceNode: from, targetNode: to });
+    } else {
+      // Idle first (left), then conversion, side by side, centred on the loss block.
+      const left = lossUsed.get(to.id) ?? 0;
+      lossUsed.set(to.id, left + width);
+      const x = (to.x0 + to.x1) / 2 - (to.watts * ky) / 2 + left + width / 2;
+      laidLinks.push({ ...l, key, width, sx: x, sy: from.y1, tx: x, ty: to.y0, sourceNode: from, targetNode: to });
+    }
+  }
 
-/** A label's box, px (for keeping labels apart). */
-interface Box {
-  x0: number;
-  y0: number;
-  x1: number;
-  y1: number;
-}
-
-const overlaps = (a: Box, b: Box) => a.x0 < b.x1 && b.x0 < a.x1 && a.y0 < b.y1 && b.y0 < a.y1;
-/** Rough width of a 12 px label (system sans: about 0.58 em per character, bold a little wider). */
-const textWidth = (text: string, bold = false) => text.length * (bold ? 7.2 : 6.8);
-/** Characters of a bold name that fit in the gap between two columns. */
-const GAP_CHARS = Math.floor((COLUMN_WIDTH - NODE_WIDTH - 10) / 7.2);
-
-interface NodeLabel {
-  id: string;
-  x: number;
-  y: number;
-  name: string;
-  /** Further lines (sinks only: a stage's figures are on the link that feeds it). */
-  lines: string[];
-  box: Box;
-}
-
-interface LinkLabel {
-  key: string;
-  x: number;
-  y: number;
-  text: string;
+  const width = Math.max(minWidth, columnX(columns - 1) + COLUMN + MARGIN.right);
+  // In steps: an edit that changes a tall block a little keeps the drawing's height, so the page
+  // below does not move and the drawing is not laid out again as a whole (a new SVG size does).
+  const height = Math.ceil((bottom - PAD + MARGIN.bottom) / HEIGHT_STEP) * HEIGHT_STEP;
+  const nodes = all.map((n) => laid.get(n.id)).filter((n): n is LaidNode => n !== undefined);
+  return { width, height, nodes, links: laidLinks, labels, columns };
 }
 
 /**
- * Labels: a source or stage is named just above its block (its figures are on the link into it);
- * a load or loss block gets its name and figures beside it (a loss also its idle part). Node labels
- * are placed in order of importance (loads, then the source and stages, then losses by size) and
- * one that would overlap a label already placed or a block is left out. Link labels go on links
- * wide enough to hold the text, at the first point along the link (middle first) where they hit no
- * other label; a label left out keeps its figures for hover, tap and focus.
+ * The SVG path of a branch. A loss branch: its centre line, straight down (drawn with a stroke as wide
+ * as the branch). A feed branch: a ribbon filled between two curves (each a cubic Bézier with both
+ * control points at mid x), as tall as the branch all along, so that a steep branch stays inside its
+ * gap (a wide stroke along a steep curve would bulge over the columns beside it).
  */
-export function placeLabels(l: Layout, loc: string | undefined): { nodes: NodeLabel[]; links: LinkLabel[]; hidden: number } {
-  const blocks: Box[] = l.nodes.map((n) => ({ x0: n.x0 ?? 0, y0: n.y0 ?? 0, x1: n.x1 ?? 0, y1: n.y1 ?? 0 }));
-  const candidates: (NodeLabel & { rank: number; ownBlock: number })[] = l.nodes.map((n, i) => {
-    const x0 = n.x0 ?? 0;
-    const x1 = n.x1 ?? 0;
-    const y0 = n.y0 ?? 0;
-    const y1 = n.y1 ?? 0;
-    if (n.role === 'source' || n.role === 'stage') {
-      const name = shorten(n.name, 19);
-      const y = y0 - 7;
-      return { id: n.id, x: x0, y, name, lines: [], box: { x0, y0: y - 12, x1: x0 + textWidth(name, true), y1: y + 3 }, rank: 1, ownBlock: i };
-    }
-    // Every sink is labelled to its right: in the gap before the next column, or in the room kept after the last.
-    const x = x1 + 6;
-    const lines = [figures(n.watts, n.percent, loc)];
-    let name: string;
-    let y: number;
-    if (n.role === 'loss') {
-      name = shorten(n.name, GAP_CHARS);
-      if ((n.idleWatts ?? 0) > 0) lines.push(`idle ${formatPower(n.idleWatts!, loc)}`);
-      y = y0 + 11; // the band: labels read down from the block's top
-    } else {
-      name = shorten(n.name, 19);
-      y = (y0 + y1) / 2 - 7;
-    }
-    const w = Math.max(textWidth(name, true), ...lines.map((t) => textWidth(t)));
-    const box = { x0: x, y0: y - 12, x1: x + w, y1: y + 3 + 15 * lines.length };
-    return { id: n.id, x, y, name, lines, box, rank: n.role === 'load' ? 0 : 2 + 1 / (1 + n.watts), ownBlock: i };
-  });
-  const placed: Box[] = [];
-  const nodes: NodeLabel[] = [];
-  let hidden = 0;
-  for (const c of [...candidates].sort((a, b) => a.rank - b.rank)) {
-    const hitsBlock = blocks.some((b, i) => i !== c.ownBlock && overlaps(b, c.box));
-    if (hitsBlock || placed.some((b) => overlaps(b, c.box)) || c.box.x1 > l.width) {
-      hidden++;
-      continue;
-    }
-    placed.push(c.box);
-    nodes.push({ id: c.id, x: c.x, y: c.y, name: c.name, lines: c.lines, box: c.box });
-  }
-  placed.push(...blocks);
-  const links: LinkLabel[] = [];
-  for (const link of [...l.links].sort((a, b) => (b.width ?? 0) - (a.width ?? 0))) {
-    if ((link.width ?? 0) < LABEL_MIN_WIDTH) continue;
-    const sx = nodeOf(link.source).x1 ?? 0;
-    const tx = nodeOf(link.target).x0 ?? 0;
-    const ya = link.y0 ?? 0;
-    const yb = link.y1 ?? 0;
-    const text = figures(link.watts, link.percent, loc);
-    const w = textWidth(text, true) + 6;
-    for (const u of [0.5, 0.35, 0.65, 0.2, 0.8]) {
-      // The link's centre line is a cubic Bézier with both control points at mid x (d3-sankey's horizontal link).
-      const xm = (sx + tx) / 2;
-      const x = (1 - u) ** 3 * sx + 3 * (1 - u) * u * xm + u ** 3 * tx;
-      const y = ya + (yb - ya) * (3 * u * u - 2 * u * u * u);
-      const box = { x0: x - w / 2, y0: y - 8, x1: x + w / 2, y1: y + 8 };
-      if (box.x0 < sx || box.x1 > tx) continue;
-      if (placed.some((b) => overlaps(b, box))) continue;
-      placed.push(box);
-      links.push({ key: link.key, x, y, text });
-      break;
-    }
-  }
-  return { nodes, links, hidden };
-}
-
-export function nodeOf(x: LaidLink['source']): LaidNode {
-  return x as LaidNode;
+export function linkPath(l: LaidLink): string {
+  if (l.role === 'loss') return `M${l.sx},${l.sy}V${l.ty}`;
+  const xm = (l.sx + l.tx) / 2;
+  const h = Math.max(1, l.width) / 2;
+  const [s0, s1, t0, t1] = [l.sy - h, l.sy + h, l.ty - h, l.ty + h];
+  return `M${l.sx},${s0}C${xm},${s0},${xm},${t0},${l.tx},${t0}L${l.tx},${t1}C${xm},${t1},${xm},${s1},${l.sx},${s1}Z`;
 }
