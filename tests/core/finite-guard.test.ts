@@ -4,7 +4,11 @@
  * the whole result naming that element (by its name) and the field, with nothing computed shown.
  */
 import { describe, expect, it, vi } from 'vitest';
-import { solveProject } from '../../core/solve/index.ts';
+
+// The unit project's setup (tests/web/engine.setup.ts) has already loaded the solve with the real
+// report step: drop the loaded modules so this file's solve is built over the mock below.
+vi.resetModules();
+const { solveProject } = await import('../../core/solve/index.ts');
 
 vi.mock('../../core/solve/report.ts', async (importOriginal) => {
   const real = await importOriginal<typeof import('../../core/solve/report.ts')>();
