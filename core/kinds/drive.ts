@@ -91,7 +91,7 @@ export const driveKind = defineKind<DriveStage>({
   }) as z.ZodMiniType<DriveStage>,
   check(e) {
     if ((e.loss === undefined) === (e.standardLoss === undefined)) {
-      return [{ code: 'invalid-value', field: 'loss', message: 'give exactly one of loss (a loss model) and standardLoss (the IEC 61800-9-2 points)' }];
+      return [{ code: 'invalid-value', field: 'loss', message: 'give the drive losses one way: a converter loss model or the IEC 61800-9-2 operating points, not both or neither' }];
     }
     if (e.loss) return checkLossModel(e.loss);
     const g = driveLossGrid(e.standardLoss!);
@@ -130,7 +130,7 @@ export const driveKind = defineKind<DriveStage>({
       );
     }
     const g = driveLossGrid(e.standardLoss!);
-    if (!g.ok) throw new Error(`drive "${e.id}": standardLoss was not validated`);
+    if (!g.ok) throw new Error(`drive "${e.name ?? e.id}": its IEC 61800-9-2 operating points were not validated`);
     const grid = g.grid;
     // Without a supply frequency (fed from a source-less test) or a motor frequency the speed is taken as rated.
     const phi = driveSpeedFraction(e, input) ?? 1;

@@ -10,6 +10,7 @@
  */
 import type { z } from 'zod/mini';
 import type { PfSense, PortKind } from '../model/project.ts';
+import { figure, q, valueText } from '../model/message.ts';
 import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../physics/complex.ts';
 import { receivingVoltage } from '../physics/two-bus.ts';
 import { type PreparedLoss, prepareLoss, weightedEfficiency } from '../physics/loss-model.ts';
@@ -155,8 +156,8 @@ export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport 
   return report;
 }
 
-export const fmtW = (w: number): string => (Math.abs(w) >= 1000 ? `${(w / 1000).toPrecision(4)} kW` : `${w.toPrecision(4)} W`);
-export const fmtPct = (x: number): string => `${(x * 100).toFixed(1)} %`;
+export const fmtW = (w: number): string => (Math.abs(w) >= 1e6 || !Number.isFinite(w) ? valueText(q(w, 'W')) : Math.abs(w) >= 1000 ? `${(w / 1000).toPrecision(4)} kW` : `${w.toPrecision(4)} W`);
+export const fmtPct = (x: number): string => `${figure(x * 100, 1)} %`;
 
 /** A load: constant complex power regardless of voltage. */
 export function constantPowerLoad(s: Complex): ElementModel {

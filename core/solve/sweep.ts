@@ -12,6 +12,7 @@
 import { type Complex, ZERO, abs, add, c, scale, sub } from '../physics/complex.ts';
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
+import { q, valueText } from '../model/message.ts';
 import type { Element } from '../model/project.ts';
 import type { PlannedElement } from './plan.ts';
 import type { DirectLoads } from '../kinds/spec.ts';
@@ -226,7 +227,6 @@ function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly C
     };
   }
   const below = loadBelow(order, sIn, i);
-  const kw = below.watts / 1000;
   const current = below.amps > 0 ? ` and the ${amps(below.amps)} of loads given by their current` : '';
   // The load below may itself be out of range (a power drawn at a voltage that left the doubles):
   // then the message names no figure rather than print "NaN".
@@ -234,7 +234,7 @@ function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly C
     ? 'the load beyond it'
     : below.watts === 0 && below.amps > 0
       ? `the ${amps(below.amps)} of loads given by their current beyond it`
-      : `the ${kw.toPrecision(3)} kW of load beyond it${current}`;
+      : `the ${valueText(q(below.watts, 'W'))} of load beyond it${current}`;
   return {
     code: 'infeasible-load',
     elementId: e.id,
