@@ -164,7 +164,7 @@ export function rangeWorded(quantity: Quantity, v: number, floor: Floor, signUni
   const low = q(r.min, u);
   const high = q(r.max, u);
   const plausible = say`the plausible range of ${r.what} is ${low} to ${high}`;
-  if (r.unit === '°C' && v < ABSOLUTE_ZERO_C) return say`is below absolute zero (${q(ABSOLUTE_ZERO_C, '°C')}): ${plausible}`;
+  if (r.unit === '°C' && v < ABSOLUTE_ZERO_C) return say`is below absolute zero (−273.15 °C): ${plausible}`;
   if (v < r.min) return say`must be at least ${low}: ${plausible}`;
   if (v > r.max) return say`must not exceed ${high}: ${plausible} (check the value and its unit)`;
   return null;

@@ -52,10 +52,9 @@ export interface Worded {
 export const q = (si: number, unit: MessageUnit): MessageValue => ({ si, unit });
 
 /** Units written with an SI prefix (BIPM SI Brochure, Table 7) when the value is large or small. */
-const PREFIXED: ReadonlySet<MessageUnit> = new Set(['V', 'A', 'W', 'VA', 'var', 'Hz', 'Ω', 'Ω/km']);
+const PREFIXED: ReadonlySet<MessageUnit> = new Set(['V', 'A', 'W', 'VA', 'var', 'Hz', 'Ω', 'Ω/km', 'm']);
 
 const STEPS: readonly [number, string][] = [
-  [1e12, 'T'],
   [1e9, 'G'],
   [1e6, 'M'],
   [1e3, 'k'],
@@ -101,8 +100,9 @@ const superscript = (e: number): string => (e < 0 ? '⁻' : '') + String(Math.ab
 /** A value as the CLI and the SI rendering of a message write it: 3 significant digits, SI prefixes where the unit takes them. */
 export function valueText(v: MessageValue): string {
   const a = Math.abs(v.si);
-  // Prefixes for large and small values only: "0.1 V to 1 MV" reads better than "100 mV to 1 MV".
-  if (PREFIXED.has(v.unit) && Number.isFinite(v.si) && (a >= 1000 || (a !== 0 && a < 0.1))) {
+  // Prefixes for large values only, as the range messages always wrote them: "0.1 V to 1 MV" reads
+  // better than "100 mV to 1 MV"; a tiny value is written with its power of ten (sigText).
+  if (PREFIXED.has(v.unit) && Number.isFinite(v.si) && a >= 1000) {
     const [factor, prefix] = STEPS.find(([f]) => a >= f * (1 - 1e-12)) ?? STEPS[STEPS.length - 1]!;
     return `${sigText(v.si / factor)} ${prefix}${v.unit}`;
   }
