@@ -10,7 +10,7 @@
  */
 import type { z } from 'zod/mini';
 import type { PfSense, PortKind } from '../model/project.ts';
-import { figure, q, valueText } from '../model/message.ts';
+import { figure, q, say, valueText } from '../model/message.ts';
 import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../physics/complex.ts';
 import { receivingVoltage } from '../physics/two-bus.ts';
 import { type PreparedLoss, prepareLoss, weightedEfficiency } from '../physics/loss-model.ts';
@@ -137,7 +137,7 @@ export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport 
     });
   }
   if (rated !== undefined && pOut > rated * (1 + 1e-9)) {
-    warnings.push({ code: 'rating-exceeded', message: `output ${fmtW(pOut)} exceeds the rated ${fmtW(rated)}` });
+    warnings.push({ code: 'rating-exceeded', ...say`output ${q(pOut, 'W')} exceeds the rated ${q(rated, 'W')}` });
   }
   if (prepared.fit) {
     const f = prepared.fit;

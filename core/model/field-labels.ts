@@ -339,6 +339,9 @@ const KEY_WORDS: Readonly<Record<string, string>> = {
   p0: 'no-load loss',
   k1: 'linear loss term',
   k2: 'resistive loss term',
+  // The power-factor correction's request (the CLI's --correct-pf, the machines panel's form).
+  at: 'element to correct',
+  targetPowerFactor: 'target power factor',
 };
 
 /** A path users have no label for, in plain words: `segments.0.loads` → "segments item 1 loads". */

@@ -76,7 +76,8 @@ export function sigText(value: number, digits = 3): string {
     const [m, e] = n.toExponential(digits - 1).split('e');
     text = `${Number(m)} × 10${superscript(Number(e))}`;
   } else if (a >= 1e15) {
-    const [m, e] = n.toExponential(digits - 1).split('e');
+    // From the value itself: rounding 1.797e308 to 3 digits overflows to Infinity.
+    const [m, e] = value.toExponential(digits - 1).split('e');
     text = `${Number(m)} × 10${superscript(Number(e))}`;
   } else if (a >= 1e6 && Number.isInteger(n)) {
     text = String(n).replace(/\B(?=(\d{3})+(?!\d))/g, '\u202f');

@@ -54,7 +54,7 @@ export function reservedIdProblem(id: string, elementId: string): Problem | null
     elementId,
     field: 'id',
     value: id,
-    message: `the id ${JSON.stringify(id)} is a reserved word (programs that read the project file would take it for one of their own): choose another id`,
+    message: `the id ${JSON.stringify(id)} is a reserved name (programs that read the project file would take it for one of their own): choose another id`,
   };
 }
 
