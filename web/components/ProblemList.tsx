@@ -9,10 +9,21 @@ import { PROJECT_LEVEL, type Problem } from '../../core/page.ts';
 import { selectedId } from '../state/editor.ts';
 import { fieldDomId } from '../state/field-errors.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
-import { messageText, problemPlace } from './problem-words.ts';
+import { messageText, messageValueText, problemPlace } from './problem-words.ts';
+import { formatSignificant } from '../format/number.ts';
+import type { UnitSystem } from '../format/units.ts';
 
-function valueText(value: unknown): string | undefined {
+/**
+ * The value given, as users read it: a number in the unit of the message's own quantities (the field's
+ * bounds or rated figure share its unit: a flow in m³/h), else with 4 significant digits; other values as written.
+ */
+function valueText(p: Problem, units: UnitSystem, locale: string | undefined): string | undefined {
+  const value = p.value;
   if (value === undefined) return undefined;
+  if (typeof value === 'number' && Number.isFinite(value)) {
+    const unit = p.values?.[0]?.unit;
+    return unit !== undefined && p.values!.every((v) => v.unit === unit) ? messageValueText({ si: value, unit }, units, locale) : formatSignificant(value, 4, locale);
+  }
   try {
     const text = JSON.stringify(value);
     return text.length > 80 ? `${text.slice(0, 77)}…` : text;
@@ -104,7 +115,7 @@ export function ProblemList({ problems, elements }: { problems: readonly Problem
       )}
       <ul class="problems">
         {problems.map((p, i) => {
-          const value = valueText(p.value);
+          const value = valueText(p, units, locale);
           const { element, field } = problemPlace(p, project);
           return (
             <li key={`${p.elementId}-${p.field}-${i}`} class="problem" data-problem-code={p.code} data-element-id={p.elementId} data-field={p.field}>

@@ -40,10 +40,20 @@ export function messageText(m: { message: string; template?: string; values?: re
   return fillTemplate(m.template, m.values.map((v) => messageValueText(v, units, locale)));
 }
 
+function isNamed(project: unknown, id: string): boolean {
+  const elements = (project as { elements?: unknown } | null)?.elements;
+  if (!Array.isArray(elements)) return false;
+  const e = elements.find((x: unknown) => typeof x === 'object' && x !== null && (x as { id?: unknown }).id === id) as { name?: unknown } | undefined;
+  return typeof e?.name === 'string' && e.name.trim() !== '';
+}
+
 /** Where a problem is, in words: "“Pump drive” › Output frequency", "Project › Design margin". */
 export function problemPlace(p: Problem, project: unknown): { element: string; field: string } {
   const words = elementWords(project);
-  const element = p.elementId === PROJECT_LEVEL ? 'Project' : (words.names.get(p.elementId) ?? p.elementId);
+  // An unnamed element is called what its card calls it, its id (web/state/tree.ts elementName); the
+  // CLI, which shows no cards, calls it by its kind and place ("DC load #2", formatProblem).
+  const named = isNamed(project, p.elementId);
+  const element = p.elementId === PROJECT_LEVEL ? 'Project' : named ? (words.names.get(p.elementId) ?? p.elementId) : p.elementId;
   const kind = p.elementId === PROJECT_LEVEL ? 'project' : words.kinds.get(p.elementId);
   // A figure that is not finite is a result's field, not one of the form's.
   const field = !p.field ? '' : p.code === 'non-finite' ? pathWords(p.field.split('.')) : fieldLabel(kind, p.field);
