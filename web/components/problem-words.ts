@@ -5,40 +5,12 @@
  * works in for that quantity (m³/h or gpm for a pump's flow, ft for a length in US units): the
  * engine keeps them as quantities (`template`, `values`; core/model/message.ts).
  */
-import { PROJECT_LEVEL, elementWords, fieldLabel, fillTemplate, pathWords, type MessageUnit, type MessageValue, type Problem } from '../../core/page.ts';
-import { UNIT_GAP, formatSignificant, formatWithPrefix } from '../format/number.ts';
-import { inputUnit, type Quantity } from '../format/parse.ts';
+import { PROJECT_LEVEL, elementWords, fieldLabel, pathWords, type Problem } from '../../core/page.ts';
+import { messageText } from '../format/message-text.ts';
 import type { UnitSystem } from '../format/units.ts';
+
+export { messageText, messageValueText } from '../format/message-text.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
-
-/** Units the forms show in a unit of their own (converted, or in another system's unit). */
-const FORM_QUANTITY: Partial<Record<MessageUnit, Quantity>> = {
-  'm³/s': 'flow',
-  m: 'length',
-  '°C': 'temperature',
-  'kg/m³': 'density',
-  'Ω/km': 'resistance-per-length',
-};
-
-/** Units written with k/M/G at each thousand, as the results tables write them. */
-const PREFIXED: ReadonlySet<MessageUnit> = new Set(['V', 'A', 'W', 'VA', 'var', 'Hz', 'Ω']);
-
-/** One value of a message in the user's units and number format, 3 significant digits. */
-export function messageValueText(v: MessageValue, units: UnitSystem, locale?: string): string {
-  const q = FORM_QUANTITY[v.unit];
-  if (q) {
-    const unit = inputUnit(q, units);
-    return `${formatSignificant(unit.fromSi(v.si), 3, locale)}${unit.symbol ? `${UNIT_GAP}${unit.symbol}` : ''}`;
-  }
-  if (PREFIXED.has(v.unit)) return formatWithPrefix(v.si, v.unit, 3, locale);
-  return `${formatSignificant(v.si, 3, locale)}${v.unit ? `${UNIT_GAP}${v.unit}` : ''}`;
-}
-
-/** A message in the user's units: its template filled with the page's formatting, else its text as the engine wrote it. */
-export function messageText(m: { message: string; template?: string; values?: readonly MessageValue[] }, units: UnitSystem, locale?: string): string {
-  if (!m.template || !m.values) return m.message;
-  return fillTemplate(m.template, m.values.map((v) => messageValueText(v, units, locale)));
-}
 
 function isNamed(project: unknown, id: string): boolean {
   const elements = (project as { elements?: unknown } | null)?.elements;
