@@ -33,6 +33,7 @@ import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
 import { correctPowerFactor } from '../../core/studies/pf/correction.ts';
 import { lossCostPerYear, pumpDutyCosts } from '../../core/studies/economics.ts';
 import { batteryBenchProject } from '../battery/fixtures.ts';
+import { figure, q, say, sigText, valueText } from '../../core/model/message.ts';
 
 const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 
@@ -378,5 +379,43 @@ describe('the engine\'s message texts (static walk over core/)', () => {
   it('no message text names a file-format field or quotes an element id', () => {
     if (process.env['JP_MESSAGES_DUMP']) writeFileSync(`${process.env['JP_MESSAGES_DUMP']}.static`, found.join('\n'));
     expect(found.join('\n')).toBe('');
+  });
+});
+
+// ---------- how a number is written ----------
+
+describe('numbers in messages (core/model/message.ts)', () => {
+  it('3 significant digits, SI prefixes from 1000 up, large whole numbers grouped, tiny and huge ones with a power of ten', () => {
+    // SI Brochure, 9th ed.: prefixes (Table 7), digits grouped in threes (5.4.4); common practice (no source) for 3 digits.
+    expect(valueText(q(1e6, 'V'))).toBe('1 MV');
+    expect(valueText(q(0.1, 'V'))).toBe('0.1 V');
+    expect(valueText(q(1e5, 'm'))).toBe('100 km');
+    expect(valueText(q(150 / 3600, 'm³/s'))).toBe('0.0417 m³/s');
+    expect(valueText(q(1e12, 'Ah'))).toBe('1\u202f000\u202f000\u202f000\u202f000 Ah');
+    expect(valueText(q(1 / 24000, 'A'))).toBe('4.17 × 10⁻⁵ A');
+    expect(valueText(q(-80, '°C'))).toBe('−80 °C');
+    expect(sigText(1.7976931348623157e308)).toBe('1.8 × 10³⁰⁸');
+    expect(figure(1920, 1)).toBe('1920');
+    expect(figure(5, 1)).toBe('5.0');
+  });
+  it('say keeps the quantities: the SI text, the template and the values; a message inside a message keeps its own', () => {
+    const inner = say`the plausible range is ${q(0, 'm³/s')} to ${q(1000, 'm³/s')}`;
+    const w = say`must not exceed ${q(1000, 'm³/s')}: ${inner}`;
+    expect(w.message).toBe('must not exceed 1000 m³/s: the plausible range is 0 m³/s to 1000 m³/s');
+    expect(w.template).toBe('must not exceed {0}: the plausible range is {1} to {2}');
+    expect(w.values).toEqual([q(1000, 'm³/s'), q(0, 'm³/s'), q(1000, 'm³/s')]);
+    expect(say`no numbers`).toEqual({ message: 'no numbers' });
+  });
+  it('a range refusal carries its bounds to the page through the validation', () => {
+    const p = structuredClone(demoProjects.find((d) => d.id === 'riverside-pump-station')!.project) as unknown as ProjectJson;
+    p.elements.find((e) => e['id'] === 'feeder')!['length'] = 1e9;
+    const s = solveProject(p);
+    if (s.ok) throw new Error('solved');
+    const at = s.problems.find((x) => x.field === 'length')!;
+    // core/kinds/ranges.ts: a cable run is at most 100 km.
+    expect(at.message).toBe('must not exceed 100 km: the plausible range of a cable length is 0 m to 100 km (check the value and its unit)');
+    expect(at.template).toBe('must not exceed {0}: the plausible range of a cable length is {1} to {2} (check the value and its unit)');
+    expect(at.values).toEqual([q(1e5, 'm'), q(0, 'm'), q(1e5, 'm')]);
+    expect(formatProblem(at, p)).toBe(`"Feeder to drive, 1/0 Cu in PVC conduit", Route length (one way): ${at.message}`);
   });
 });
