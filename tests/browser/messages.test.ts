@@ -83,14 +83,17 @@ describe.skipIf(skipWithout('chromium'))('the problem banner in Chromium', () =>
     }, 120_000);
   }
 
-  it('in US units the flow is in gpm', async () => {
-    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US' });
+  it('in US units the flow is in gpm (dark theme, phone)', async () => {
+    const context = await browser!.newContext({ viewport: VIEWPORTS.phone, deviceScaleFactor: 1, locale: 'en-US', colorScheme: 'dark' });
     const page = await context.newPage();
     try {
       await page.addInitScript(() => localStorage.setItem('joulepath.display.v1', JSON.stringify({ units: 'us', locale: 'en-US', theme: 'auto' })));
       await open(page);
       // 0.0416667 m³/s ÷ 6.309e-5 m³/s per gpm (NIST SP 811 B.8) = 660 gpm at 3 significant digits.
       await expect.poll(() => page.getByTestId('problems').innerText()).toMatch(/rated flow 660\s?gpm/);
+      await page.getByTestId('problems').scrollIntoViewIfNeeded();
+      await page.screenshot({ path: join(artifacts, 'messages-banner-us-dark-phone.png') });
+      expect(await seriousAxeViolations(page, 'document.querySelector(\'[data-testid="problems"]\')')).toEqual([]);
     } finally {
       await context.close();
     }
