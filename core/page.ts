@@ -14,6 +14,8 @@ export { PROJECT_LEVEL, type Problem } from './model/errors.ts';
 export { PROJECT_VERSION, migrateProject } from './model/migrate.ts';
 export { solveProject, validateProject, type SolveOutcome, type Solved, type ValidProject } from './solve/index.ts';
 export { elementNames, fieldWords, nonFiniteProblems } from './solve/finite.ts';
+export { FIELD_LABELS, KIND_LABELS, elementWords, fieldLabel, kindLabel, pathWords } from './model/field-labels.ts';
+export { fillTemplate, type MessageUnit, type MessageValue } from './model/message.ts';
 export { issueMessage } from './solve/issue-messages.ts';
 export { demoProjects, type DemoProject } from './demos/index.ts';
 export { KINDS, studiesOf, type NominalPort } from './kinds/index.ts';

@@ -23,11 +23,11 @@ export type SolveRequest = Extract<CliRequest, { kind: 'solve' }>;
 export type ProjectRun = { ok: true; text: string; line: ProjectLine } | { ok: false; lines: string[]; line: ProjectLine };
 
 /** Refused: `<file>: <heading>` and one indented line per problem; the summary keeps the heading with each problem. */
-export function refused(file: string, heading: string, problems: readonly Problem[], projectName?: string): ProjectRun {
-  const reasons = problems.map((p) => `${heading} ${formatProblem(p)}`);
+export function refused(file: string, heading: string, problems: readonly Problem[], projectName?: string, project?: unknown): ProjectRun {
+  const reasons = problems.map((p) => `${heading} ${formatProblem(p, project)}`);
   return {
     ok: false,
-    lines: [`${file}: ${heading}`, ...problems.map((p) => `  ${formatProblem(p)}`)],
+    lines: [`${file}: ${heading}`, ...problems.map((p) => `  ${formatProblem(p, project)}`)],
     line: { file, ok: false, reasons: reasons.length ? reasons : [heading], ...(projectName !== undefined ? { projectName } : {}) },
   };
 }
@@ -41,18 +41,18 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   const projectName = typeof rawName === 'string' ? rawName : undefined;
   // Validated and solved once: every study below takes this solved value.
   const outcome = solveProject(data);
-  if (!outcome.ok) return refused(file, 'the project cannot be solved:', outcome.problems, projectName);
+  if (!outcome.ok) return refused(file, 'the project cannot be solved:', outcome.problems, projectName, data);
   // Every study's figures must be finite numbers, or the study is refused (core/solve/finite.ts);
   // the solve checks its own result. Elements are named as in the solved project.
   const names = elementNames(outcome.project);
   const nonFinite = (heading: string, what: string, value: unknown): ProjectRun | undefined => {
     const bad = nonFiniteProblems(what, value, names);
-    return bad.length ? refused(file, heading, bad, projectName) : undefined;
+    return bad.length ? refused(file, heading, bad, projectName, data) : undefined;
   };
   let study: BackupStudyResult | undefined;
   if (hasBackupStudy(outcome)) {
     const s = runBackupStudy(outcome);
-    if (!s.ok) return refused(file, 'the battery backup study cannot be run:', s.problems, projectName);
+    if (!s.ok) return refused(file, 'the battery backup study cannot be run:', s.problems, projectName, data);
     study = s.study;
     const bad = nonFinite('the battery backup study cannot be shown:', 'The battery backup study', study);
     if (bad) return bad;
@@ -60,13 +60,13 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   let pfc: PfCorrection | undefined;
   if (req.correctPf) {
     const c = correctPowerFactor(outcome, req.correctPf);
-    if (!c.ok) return refused(file, 'the power-factor correction cannot be worked out:', c.problems, projectName);
+    if (!c.ok) return refused(file, 'the power-factor correction cannot be worked out:', c.problems, projectName, data);
     pfc = c.correction;
     const bad = nonFinite('the power-factor correction cannot be shown:', 'The power-factor correction', pfc);
     if (bad) return bad;
   }
   const machines = req.machines || req.pumpDutyFile !== undefined || hasPumpSections(outcome) ? machineSections(outcome, req.machines, flowData) : undefined;
-  if (machines && !machines.ok) return refused(file, machines.heading, machines.problems, projectName);
+  if (machines && !machines.ok) return refused(file, machines.heading, machines.problems, projectName, data);
   if (machines?.ok) {
     const bad = nonFinite('the machines study cannot be shown:', 'The machines study', machines.json);
     if (bad) return bad;
@@ -74,7 +74,7 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   let surges: SurgeStudyResult | undefined;
   if (req.surges || hasSurgeInputs(outcome)) {
     const s = studySurges(outcome);
-    if (!s.ok) return refused(file, 'the surge and fault study cannot be run:', s.problems, projectName);
+    if (!s.ok) return refused(file, 'the surge and fault study cannot be run:', s.problems, projectName, data);
     surges = s.result;
     const bad = nonFinite('the surge and fault study cannot be shown:', 'The surge and fault study', surges);
     if (bad) return bad;

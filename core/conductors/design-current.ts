@@ -35,6 +35,7 @@ import type { ConductorSpec, DcDcStage, Element, InverterStage, MotorStage, Port
 import type { DesignBasisKind } from '../model/result.ts';
 import { isPassive } from '../kinds/index.ts';
 import { converterInput, iecMotorCurrent, necMotorFlc } from './equipment-current.ts';
+import { sigText } from '../model/message.ts';
 
 const SQRT3 = Math.sqrt(3);
 const CONTINUOUS = 1.25;
@@ -317,7 +318,7 @@ export function designCurrent(ctx: DesignContext, link: Element, spec: Conductor
     if (eq) fallback = eq.missing;
   }
   const base = nominalCurrent(ctx, link.id);
-  const sys = kind === 'ac3' ? `${nominal} V three-phase` : kind === 'ac1' ? `${nominal} V single-phase` : `${nominal} V DC`;
+  const sys = `${sigText(nominal, 4)} V ${kind === 'ac3' ? 'three-phase' : kind === 'ac1' ? 'single-phase' : 'DC'}`;
   return {
     ok: true,
     design: {

@@ -12,6 +12,7 @@ import type { ConductorResult, ConductorStep, GoverningRule } from '../model/res
 import type { DesignCurrent } from './design-current.ts';
 import type { PreparedConductor } from './prepare.ts';
 import { CAUTION, type Choice, type LinkAngle } from './size.ts';
+import { figure, sigText } from '../model/message.ts';
 
 const SQRT3 = Math.sqrt(3);
 const phaseCount = (kind: PortKind): number => (kind === 'ac3' ? 3 : 1);
@@ -99,7 +100,7 @@ export function conductorResult(
     'Voltage drop, check',
     ev.check.volts,
     'V',
-    `${p.methodCite}, at ${dc.base.toFixed(1)} A${kind === 'dc' ? '' : `, cosθ = ${angle.cos.toFixed(3)}`}: ${ev.check.percent.toFixed(3)} % of ${nominalWords}; allowed ${limitPercent} % ${ev.dropOk ? '✓' : '✗'}`,
+    `${p.methodCite}, at ${dc.base.toFixed(1)} A${kind === 'dc' ? '' : `, cosθ = ${angle.cos.toFixed(3)}`}: ${ev.check.percent.toFixed(3)} % of ${nominalWords}; allowed ${sigText(limitPercent, 3)} % ${ev.dropOk ? '✓' : '✗'}`,
   );
   step(
     'Conductor temperature (estimate)',
@@ -114,10 +115,10 @@ export function conductorResult(
     `R_T = R_${p.tRef}·(1 + α(T − ${p.tRef})) = ${(cand.rRef * 1000).toPrecision(4)} Ω/km × (1 + ${p.alpha}·(${op.temperature.toFixed(1)} − ${p.tRef})), one conductor (${p.resistanceCite})`,
   );
   if (kind !== 'dc') step('Reactance', cand.x * 1000, 'Ω/km', `one conductor (${p.reactanceCite})`);
-  step('Voltage drop, solved chain', exactVolts, 'V', `estimate at the operating temperature: |V_send| − |V_receive| from the phasor solve, ${exactPercent.toFixed(3)} % of ${sending.toFixed(1)} V${kind === 'ac3' ? ' line-to-line' : ''}`);
+  step('Voltage drop, solved chain', exactVolts, 'V', `estimate at the operating temperature: |V_send| − |V_receive| from the phasor solve, ${exactPercent.toFixed(3)} % of ${figure(sending, 1)} V${kind === 'ac3' ? ' line-to-line' : ''}`);
   const formula =
     kind === 'dc'
-      ? `2 × ${e.length} m × ${(op.rUsed * 1000).toPrecision(4)} Ω/km × ${(current / sets).toFixed(2)} A (DC loop)`
+      ? `2 × ${sigText(e.length, 4)} m × ${(op.rUsed * 1000).toPrecision(4)} Ω/km × ${(current / sets).toFixed(2)} A (DC loop)`
       : `${kind === 'ac3' ? '√3' : '2'} × I·(R·cosθ + X·sinθ)·L at the operating current and temperature`;
   step('Voltage drop, approximate', approxVolts, 'V', `${formula}: ${approxPercent.toFixed(3)} %`);
   step('Loss', op.loss, 'W', `I²R of the ${kind === 'ac3' ? 'three phase conductors' : 'go and return conductors'}${sets > 1 ? `, all ${sets} sets` : ''}, at the operating current`);

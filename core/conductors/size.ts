@@ -32,6 +32,7 @@ import type { GoverningRule } from '../model/result.ts';
 import { NEC_430_52_C_1 } from '../data/nec-430-52.ts';
 import type { DesignCurrent } from './design-current.ts';
 import type { Candidate, PreparedConductor } from './prepare.ts';
+import { sigText } from '../model/message.ts';
 
 export const CAUTION =
   'Planning estimate only: terminations, conduit fill, short-circuit withstand and local rules also apply; the final design belongs to a licensed professional under the local code.';
@@ -245,7 +246,7 @@ function why(e: Evaluation, p: PreparedConductor, dc: DesignCurrent, limit: numb
     return `corrected ampacity ${cand.corrected.toFixed(1)} A is below the load current ${(dc.base / sets).toFixed(1)} A`;
   }
   if (!e.device.ok) return e.device.note;
-  return `drop ${e.check.percent.toFixed(2)} % exceeds ${limit} %`;
+  return `drop ${e.check.percent.toFixed(2)} % exceeds ${sigText(limit, 3)} %`;
 }
 
 /** The smallest size that meets ampacity, protection and the drop check, or why none does. */
@@ -272,7 +273,7 @@ export function choose(p: PreparedConductor, e: CableStage, dc: DesignCurrent, l
       ok: false,
       field: 'conductor.maxDropPercent',
       value: limitPercent,
-      message: `even the largest listed size, ${top.candidate.size.label} ${p.spec.material} in ${setWords}, drops ${top.check.percent.toFixed(2)} % at ${dc.base.toFixed(1)} A, more than the allowed ${limitPercent} %: add parallel sets, shorten the run, raise the voltage or allow more drop`,
+      message: `even the largest listed size, ${top.candidate.size.label} ${p.spec.material} in ${setWords}, drops ${top.check.percent.toFixed(2)} % at ${dc.base.toFixed(1)} A, more than the allowed ${sigText(limitPercent, 3)} %: add parallel sets, shorten the run, raise the voltage or allow more drop`,
     };
   }
   // The rule that governs is the one the next smaller size fails: the working names it beside

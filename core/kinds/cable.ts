@@ -83,7 +83,7 @@ export const cableKind = defineKind<CableStage>({
           code: 'invalid-value',
           field: e.resistancePerKm !== undefined ? 'resistancePerKm' : 'reactancePerKm',
           value: e.resistancePerKm ?? e.reactancePerKm,
-          message: 'give either the impedance (resistancePerKm, reactancePerKm) or a conductor, not both',
+          message: 'give either the impedance (resistance and reactance per km) or a conductor, not both',
         },
       ];
     }

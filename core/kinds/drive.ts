@@ -19,6 +19,7 @@ import { c } from '../physics/complex.ts';
 import { checkLossModel, defineKind, finiteOrNone, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, nominalPort, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
 import { driveLossAt, driveLossGrid } from '../physics/drive-loss.ts';
 import { ranged } from './ranges.ts';
+import { q, say } from '../model/message.ts';
 
 const standardLossSchema = z.strictObject({
   ratedApparentPower: ranged('ratedApparentPower'),
@@ -64,7 +65,7 @@ export function undersizedDriveWarnings(e: DriveStage, fed: readonly Element[]):
   return [
     {
       code: 'rating-exceeded',
-      message: `drive "${e.name ?? e.id}" is rated ${fmtW(rated).replace('W', unit)}, below the ${fmtW(total)} rated output of motor${motors.length > 1 ? 's' : ''} ${names} it feeds; choose a drive rated at least for the motor (the maker's rating governs)`,
+      ...say`drive "${e.name ?? e.id}" is rated ${q(rated, unit)}, below the ${q(total, 'W')} rated output of motor${motors.length > 1 ? 's' : ''} ${names} it feeds; choose a drive rated at least for the motor (the maker's rating governs)`,
     },
   ];
 }
@@ -91,7 +92,7 @@ export const driveKind = defineKind<DriveStage>({
   }) as z.ZodMiniType<DriveStage>,
   check(e) {
     if ((e.loss === undefined) === (e.standardLoss === undefined)) {
-      return [{ code: 'invalid-value', field: 'loss', message: 'give exactly one of loss (a loss model) and standardLoss (the IEC 61800-9-2 points)' }];
+      return [{ code: 'invalid-value', field: 'loss', message: 'give the drive losses one way: a converter loss model or the IEC 61800-9-2 operating points, not both or neither' }];
     }
     if (e.loss) return checkLossModel(e.loss);
     const g = driveLossGrid(e.standardLoss!);
@@ -130,7 +131,7 @@ export const driveKind = defineKind<DriveStage>({
       );
     }
     const g = driveLossGrid(e.standardLoss!);
-    if (!g.ok) throw new Error(`drive "${e.id}": standardLoss was not validated`);
+    if (!g.ok) throw new Error(`drive "${e.name ?? e.id}": its IEC 61800-9-2 operating points were not validated`);
     const grid = g.grid;
     // Without a supply frequency (fed from a source-less test) or a motor frequency the speed is taken as rated.
     const phi = driveSpeedFraction(e, input) ?? 1;
@@ -152,7 +153,7 @@ export const driveKind = defineKind<DriveStage>({
         const op = driveOperatingPoint(e, phi, sOut.re);
         const at = lossAt(sOut.re);
         if (op.torque > 100 * (1 + 1e-9)) {
-          warnings.push({ code: 'rating-exceeded', message: `relative torque-producing current ${op.torque.toFixed(1)} % exceeds the drive's rating (${fmtW(rated).replace('W', 'VA')} at ${fmtPct(phi)} speed)` });
+          warnings.push({ code: 'rating-exceeded', ...say`relative torque-producing current ${op.torque.toFixed(1)} % exceeds the drive's rating (${q(rated, 'VA')} at ${fmtPct(phi)} speed)` });
         }
         if (at.clamped) {
           warnings.push({

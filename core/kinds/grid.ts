@@ -9,6 +9,7 @@ import { c } from '../physics/complex.ts';
 import { sourceFaultFields } from './starting-fields.ts';
 import { defineKind, finiteOrNone, fmtW, idField, nameField, nominalPort, perPhase, phases, seriesLink, sourceOhms } from './spec.ts';
 import { ranged } from './ranges.ts';
+import { q, say } from '../model/message.ts';
 
 const schema = z.strictObject({
   id: idField,
@@ -47,7 +48,7 @@ const spec = (kind: 'grid' | 'generator') =>
           if (rated === undefined) return { warnings: [] };
           const warnings =
             s > rated * (1 + 1e-9)
-              ? [{ code: 'rating-exceeded' as const, message: `delivers ${fmtW(s).replace('W', 'VA')}, above its rating of ${fmtW(rated).replace('W', 'VA')}` }]
+              ? [{ code: 'rating-exceeded' as const, ...say`delivers ${q(s, 'VA')}, above its rating of ${q(rated, 'VA')}` }]
               : [];
           return { loadFraction: s / rated, warnings };
         },

@@ -10,6 +10,7 @@
  */
 import type { z } from 'zod/mini';
 import type { PfSense, PortKind } from '../model/project.ts';
+import { figure, q, say, valueText } from '../model/message.ts';
 import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub } from '../physics/complex.ts';
 import { receivingVoltage } from '../physics/two-bus.ts';
 import { type PreparedLoss, prepareLoss, weightedEfficiency } from '../physics/loss-model.ts';
@@ -136,7 +137,7 @@ export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport 
     });
   }
   if (rated !== undefined && pOut > rated * (1 + 1e-9)) {
-    warnings.push({ code: 'rating-exceeded', message: `output ${fmtW(pOut)} exceeds the rated ${fmtW(rated)}` });
+    warnings.push({ code: 'rating-exceeded', ...say`output ${q(pOut, 'W')} exceeds the rated ${q(rated, 'W')}` });
   }
   if (prepared.fit) {
     const f = prepared.fit;
@@ -155,8 +156,8 @@ export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport 
   return report;
 }
 
-export const fmtW = (w: number): string => (Math.abs(w) >= 1000 ? `${(w / 1000).toPrecision(4)} kW` : `${w.toPrecision(4)} W`);
-export const fmtPct = (x: number): string => `${(x * 100).toFixed(1)} %`;
+export const fmtW = (w: number): string => (Math.abs(w) >= 1e6 || !Number.isFinite(w) ? valueText(q(w, 'W')) : Math.abs(w) >= 1000 ? `${(w / 1000).toPrecision(4)} kW` : `${w.toPrecision(4)} W`);
+export const fmtPct = (x: number): string => `${figure(x * 100, 1)} %`;
 
 /** A load: constant complex power regardless of voltage. */
 export function constantPowerLoad(s: Complex): ElementModel {

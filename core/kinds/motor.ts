@@ -79,10 +79,10 @@ export const motorKind = defineKind<MotorStage>({
   check(e) {
     const given = [e.loss !== undefined || e.powerFactor !== undefined, e.efficiencyClass !== undefined, e.nameplate !== undefined].filter(Boolean).length;
     if (given !== 1) {
-      return [{ code: 'invalid-value', field: given === 0 ? 'loss' : 'efficiencyClass', message: 'give exactly one of: loss and powerFactor, efficiencyClass, or nameplate' }];
+      return [{ code: 'invalid-value', field: given === 0 ? 'loss' : 'efficiencyClass', message: 'give the motor one way: a loss model with its power factor, an efficiency class, or the nameplate figures' }];
     }
     if (e.loss !== undefined || e.powerFactor !== undefined) {
-      if (e.loss === undefined) return [{ code: 'invalid-value', field: 'loss', message: 'is required beside powerFactor' }];
+      if (e.loss === undefined) return [{ code: 'invalid-value', field: 'loss', message: 'is required beside the power factor' }];
       if (e.powerFactor === undefined) return [{ code: 'invalid-value', field: 'powerFactor', message: 'is required beside loss' }];
       const problems = checkLossModel(e.loss);
       if (e.powerFactor.model === 'curve') problems.push(...checkPoints(e.powerFactor.points, 'powerFactor.points', 2));

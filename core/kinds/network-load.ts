@@ -45,7 +45,7 @@ export const networkLoadKind = defineKind<NetworkLoad>({
     const kind = input!.kind;
     const parsed = parseNetwork(e.network);
     // The schema passed, so the network reads; a frequency is always present on an AC port.
-    if (!parsed.ok) throw new Error(`network-load "${e.id}" reached the solve unvalidated`);
+    if (!parsed.ok) throw new Error(`load "${e.name ?? e.id}" (R, L, C) reached the solve unvalidated`);
     const zNet = networkImpedance(parsed.network, input!.frequency ?? 0);
     const zPhase = starEquivalent(zNet, kind === 'ac3' ? (e.connection ?? 'star') : 'single-phase');
     const m = phaseCount(kind);

@@ -22,7 +22,8 @@ import type { Problem } from '../model/errors.ts';
 import { c } from '../physics/complex.ts';
 import { DUTY_FLOW_MESSAGE, affinitySpeed, hydraulicPower, pumpCurveHead, pumpShaftPower, systemCurveHead } from '../physics/pump-fan.ts';
 import { constantPowerLoad, defineKind, efficiencyField, fromField, idField, nameField } from './spec.ts';
-import { outOfRange, ranged } from './ranges.ts';
+import { rangeWorded, ranged } from './ranges.ts';
+import { q, say, wordedParams } from '../model/message.ts';
 
 /** The pump's operating point. */
 export interface PumpOperatingPoint {
@@ -76,10 +77,10 @@ export const pumpKind = defineKind<PumpLoad>({
   }) as z.ZodMiniType<PumpLoad>,
   check(e) {
     const out: Omit<Problem, 'elementId'>[] = [];
-    if (!(e.shutoffHead > e.ratedHead)) out.push({ code: 'invalid-value', field: 'shutoffHead', value: e.shutoffHead, message: `must be above the rated head ${e.ratedHead} m (a pump curve falls with flow)` });
-    if (!(e.staticHead < e.ratedHead)) out.push({ code: 'invalid-value', field: 'staticHead', value: e.staticHead, message: `must be below the rated head ${e.ratedHead} m (the system curve meets the pump curve at the rated point)` });
+    if (!(e.shutoffHead > e.ratedHead)) out.push({ code: 'invalid-value', field: 'shutoffHead', value: e.shutoffHead, ...say`must be above the rated head ${q(e.ratedHead, 'm')} (a pump curve falls with flow)` });
+    if (!(e.staticHead < e.ratedHead)) out.push({ code: 'invalid-value', field: 'staticHead', value: e.staticHead, ...say`must be below the rated head ${q(e.ratedHead, 'm')} (the system curve meets the pump curve at the rated point)` });
     if (e.flow > e.ratedFlow * (1 + 1e-9)) {
-      out.push({ code: 'invalid-value', field: 'flow', value: e.flow, message: `is above the rated flow ${e.ratedFlow} m³/s, which the system reaches at full speed; more would need overspeed` });
+      out.push({ code: 'invalid-value', field: 'flow', value: e.flow, ...say`is above the rated flow ${q(e.ratedFlow, 'm³/s')}, which the system reaches at full speed; more would need overspeed` });
     }
     return out;
   },
@@ -102,8 +103,8 @@ export const pumpDutySchema = z.strictObject({
     .array(
       z.strictObject({
         flow: z.number({ error: 'must be a number' }).check(z.gt(0, DUTY_FLOW_MESSAGE), z.superRefine((v: number, ctx) => {
-          const m = outOfRange('flow', v);
-          if (v > 0 && m !== null) ctx.addIssue({ code: 'custom', message: m, input: v });
+          const m = rangeWorded('flow', v, 'range');
+          if (v > 0 && m !== null) ctx.addIssue({ code: 'custom', message: m.message, input: v, params: wordedParams(m) });
         })),
         hours: z.number({ error: 'must be a number' }).check(z.gte(0, 'must not be negative h')),
       }),

@@ -15,6 +15,7 @@
  */
 import { z } from 'zod/mini';
 import { formatSi } from '../physics/si-prefix.ts';
+import { q, say, wordedParams, type MessageUnit, type Worded } from '../model/message.ts';
 
 export interface PlausibleRange {
   /** Smallest plausible value (inclusive), SI; 0 when the field's sign rule is the only lower bound. */
@@ -147,14 +148,25 @@ export type Floor = 'positive' | 'non-negative' | 'range';
  * keeps "must not be negative …", "range" words the lower bound from the table.
  */
 export function rangeMessage(q: Quantity, v: number, floor: Floor, signUnit?: string): string | null {
-  const r: PlausibleRange = RANGES[q];
+  return rangeWorded(q, v, floor, signUnit)?.message ?? null;
+}
+
+/**
+ * `rangeMessage` with its bounds kept as quantities (core/model/message.ts), so the page writes
+ * them in the user's units: "must not exceed {0}: the plausible range of a flow is {1} to {2}".
+ */
+export function rangeWorded(quantity: Quantity, v: number, floor: Floor, signUnit?: string): Worded | null {
+  const r: PlausibleRange = RANGES[quantity];
   const unit = (signUnit ?? r.unit).trim();
-  if (floor === 'positive' && !(v > 0)) return `must be greater than 0 ${unit}`.trim();
-  if (floor === 'non-negative' && !(v >= 0)) return `must not be negative ${unit}`.trim();
-  const plausible = `the plausible range of ${r.what} is ${rangeText(q)}`;
-  if (r.unit === '°C' && v < ABSOLUTE_ZERO_C) return `is below absolute zero (−273.15 °C): ${plausible}`;
-  if (v < r.min) return `must be at least ${boundText(r.min, r)}: ${plausible}`;
-  if (v > r.max) return `must not exceed ${boundText(r.max, r)}: ${plausible} (check the value and its unit)`;
+  if (floor === 'positive' && !(v > 0)) return { message: `must be greater than 0 ${unit}`.trim() };
+  if (floor === 'non-negative' && !(v >= 0)) return { message: `must not be negative ${unit}`.trim() };
+  const u = r.unit as MessageUnit;
+  const low = q(r.min, u);
+  const high = q(r.max, u);
+  const plausible = say`the plausible range of ${r.what} is ${low} to ${high}`;
+  if (r.unit === '°C' && v < ABSOLUTE_ZERO_C) return say`is below absolute zero (−273.15 °C): ${plausible}`;
+  if (v < r.min) return say`must be at least ${low}: ${plausible}`;
+  if (v > r.max) return say`must not exceed ${high}: ${plausible} (check the value and its unit)`;
   return null;
 }
 
@@ -181,8 +193,8 @@ export const ranged = (q: Quantity, floor: Floor = 'positive', signUnit?: string
   num().check(
     rangeCheck(
       z.superRefine((v: number, ctx) => {
-        const message = rangeMessage(q, v, floor, signUnit);
-        if (message !== null) ctx.addIssue({ code: 'custom', message, input: v });
+        const w = rangeWorded(q, v, floor, signUnit);
+        if (w !== null) ctx.addIssue({ code: 'custom', message: w.message, input: v, params: wordedParams(w) });
       }),
       q,
       floor,
@@ -195,8 +207,8 @@ export const rangedCount = (q: Quantity) =>
     z.int('must be a whole number'),
     rangeCheck(
       z.superRefine((v: number, ctx) => {
-        const message = rangeMessage(q, v, 'range');
-        if (message !== null) ctx.addIssue({ code: 'custom', message, input: v });
+        const w = rangeWorded(q, v, 'range');
+        if (w !== null) ctx.addIssue({ code: 'custom', message: w.message, input: v, params: wordedParams(w) });
       }),
       q,
       'range',

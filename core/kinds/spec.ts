@@ -15,6 +15,7 @@ import type { LossFitReport, WarningCode, WeightedEfficiency } from '../model/re
 import type { Complex } from '../physics/complex.ts';
 import { fitConditioning } from '../physics/loss-model.ts';
 import { RANGES, rangeText, ranged } from './ranges.ts';
+import type { MessageValue } from '../model/message.ts';
 
 export * from './models.ts';
 
@@ -30,6 +31,9 @@ export interface PortInfo {
 export interface KindWarning {
   code: WarningCode;
   message: string;
+  /** The message with its numbers as quantities (core/model/message.ts), when it carries numbers. */
+  template?: string;
+  values?: MessageValue[];
 }
 
 /**

@@ -12,6 +12,7 @@ import type { TransformerStage } from '../model/project.ts';
 import { abs, add, c, scale } from '../physics/complex.ts';
 import { defineKind, finiteOrNone, fmtPct, fmtW, fromField, idField, nameField, nominalPort, perPhase, seriesLink } from './spec.ts';
 import { ranged } from './ranges.ts';
+import { q, say } from '../model/message.ts';
 
 export const transformerKind = defineKind<TransformerStage>({
   kind: 'transformer',
@@ -63,12 +64,12 @@ export const transformerKind = defineKind<TransformerStage>({
         const s = abs(sOut);
         const warnings = [];
         if (s > e.ratedApparentPower * (1 + 1e-9)) {
-          warnings.push({ code: 'rating-exceeded' as const, message: `carries ${fmtW(s).replace('W', 'VA')}, above its rating of ${fmtW(e.ratedApparentPower).replace('W', 'VA')}` });
+          warnings.push({ code: 'rating-exceeded' as const, ...say`carries ${q(s, 'VA')}, above its rating of ${q(e.ratedApparentPower, 'VA')}` });
         }
         const vRated = perPhase(kind, e.primaryVoltage);
         const dev = abs(vIn) / vRated - 1;
         if (Math.abs(dev) > 0.05) {
-          warnings.push({ code: 'voltage-mismatch' as const, message: `fed at ${fmtPct(1 + dev)} of its rated primary voltage` });
+          warnings.push({ code: 'voltage-mismatch' as const, ...say`fed at ${q(100 * (1 + dev), '%')} of its rated primary voltage` });
         }
         return { loadFraction: s / e.ratedApparentPower, warnings };
       },

@@ -3,6 +3,9 @@
  * and the field, carries the offending value, and has a message a user can act on.
  */
 
+import { elementName, elementWords, fieldLabel, pathWords } from './field-labels.ts';
+import type { MessageValue } from './message.ts';
+
 export type ProblemCode =
   | 'invalid-value'
   | 'unknown-kind'
@@ -48,7 +51,11 @@ export interface Problem {
   /** Field path inside the element, e.g. "loss.efficiency" ("" when the element as a whole). */
   field: string;
   value?: unknown;
+  /** The message in SI with sensible digits, naming elements by name and fields by form label. */
   message: string;
+  /** The message with holes `{0}` … for `values` (core/model/message.ts); the page renders it in the user's units. */
+  template?: string;
+  values?: MessageValue[];
 }
 
 /** Thrown (or returned) when a project cannot be solved as given. Nothing is computed from it. */
@@ -61,9 +68,17 @@ export class ProjectError extends Error {
   }
 }
 
-/** One line per problem: `element "inv1", field "loss.efficiency": must be …`. */
-export function formatProblem(p: Problem): string {
-  const where = p.elementId === PROJECT_LEVEL ? 'project' : `element "${p.elementId}"`;
-  const field = p.field ? `, field "${p.field}"` : '';
+/**
+ * One line per problem, in the user's words: `"3 kW inverter", Efficiency (%): must be …`,
+ * `Project, Design margin: must be …`. Given the project (as read, untrusted), the element is named
+ * by its name (its kind and place when unnamed) and the field by its form label
+ * (core/model/field-labels.ts); without it, by the element's id and the field's path in words.
+ */
+export function formatProblem(p: Problem, project?: unknown): string {
+  const words = project === undefined ? undefined : elementWords(project);
+  const kind = p.elementId === PROJECT_LEVEL ? 'project' : words?.kinds.get(p.elementId);
+  const where = p.elementId === PROJECT_LEVEL ? 'Project' : elementName(words, p.elementId);
+  // A figure that is not finite is a result's field, not one of the form's.
+  const field = p.field ? `, ${p.code === 'non-finite' ? pathWords(p.field.split('.')) : fieldLabel(kind, p.field)}` : '';
   return `${where}${field}: ${p.message}`;
 }

@@ -2,6 +2,7 @@
  * The solved result: plain data, JSON-serialisable, documented in README.md ("Result shape").
  */
 import type { ElementKind, PfSense, PortKind } from './project.ts';
+import type { MessageValue } from './message.ts';
 
 /** A complex number as plain data. */
 export interface ComplexData {
@@ -63,6 +64,9 @@ export interface SolveWarning {
   code: WarningCode;
   elementId: string;
   message: string;
+  /** The message with its numbers as quantities (core/model/message.ts); the page renders it in the user's units. */
+  template?: string;
+  values?: MessageValue[];
 }
 
 /** Weighted efficiencies of a converter (needs a rated power). */

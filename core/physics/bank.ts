@@ -11,6 +11,7 @@ import {
   type ChemistryValues,
   type OcvPoint,
 } from '../data/battery-chemistries.ts';
+import { sigText } from '../model/message.ts';
 
 /** A bank resolved from its spec: every figure the discharge and the sizing need. */
 export interface Bank {
@@ -100,14 +101,14 @@ export function capacityFactorAt(table: readonly CapacityTemperaturePoint[], tem
       return {
         factor: 0,
         extrapolated: true,
-        refused: `${temperatureC} °C is more than ${MAX_TEMPERATURE_EXTRAPOLATION_C} °C ${outside} the capacity-vs-temperature table (${span}); give the maker\u2019s capacity at this temperature`,
+        refused: `${sigText(temperatureC, 3)} °C is more than ${MAX_TEMPERATURE_EXTRAPOLATION_C} °C ${outside} the capacity-vs-temperature table (${span}); give the maker\u2019s capacity at this temperature`,
       };
     }
     if (next === undefined) {
       return {
         factor: 0,
         extrapolated: true,
-        refused: `${temperatureC} °C is outside the one-point capacity-vs-temperature table (${span}): no trend to extrapolate; give the maker\u2019s capacity at this temperature`,
+        refused: `${sigText(temperatureC, 3)} °C is outside the one-point capacity-vs-temperature table (${span}): no trend to extrapolate; give the maker\u2019s capacity at this temperature`,
       };
     }
     // Linear extrapolation through the two end points on this side, capped at the end value.
@@ -117,7 +118,7 @@ export function capacityFactorAt(table: readonly CapacityTemperaturePoint[], tem
       return {
         factor: 0,
         extrapolated: true,
-        refused: `at ${temperatureC} °C the capacity-vs-temperature table (${span}), extrapolated along its end slope, leaves no capacity; give the maker\u2019s capacity at this temperature`,
+        refused: `at ${sigText(temperatureC, 3)} °C the capacity-vs-temperature table (${span}), extrapolated along its end slope, leaves no capacity; give the maker\u2019s capacity at this temperature`,
       };
     }
     return { factor, extrapolated: true };

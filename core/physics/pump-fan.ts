@@ -163,7 +163,7 @@ const isObject = (v: unknown): v is Record<string, unknown> => typeof v === 'obj
 
 /** The study's parts must be objects (and the duty a list) before their fields can be read (input may be parsed JSON). */
 function checkShape(input: unknown): Problem[] {
-  if (!isObject(input)) return [{ code: 'invalid-value', elementId: 'pumpDuty', field: '', value: input, message: 'must be an object with pump, staticHead, duty, motor and drive' }];
+  if (!isObject(input)) return [{ code: 'invalid-value', elementId: 'pumpDuty', field: '', value: input, message: 'must be an object with the pump, the static head, the duty points, the motor and the drive' }];
   const id = typeof input['id'] === 'string' ? input['id'] : 'pumpDuty';
   const out: Problem[] = [];
   for (const part of ['pump', 'motor', 'drive'] as const) {

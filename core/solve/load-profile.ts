@@ -7,6 +7,7 @@
 import type { BackupStudy, DutySchedule, Element, LoadSetting, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
+import { q, say } from '../model/message.ts';
 import { RESERVED_IDS } from './structure.ts';
 import { kindSpec } from '../kinds/index.ts';
 
@@ -100,7 +101,7 @@ export function checkStudy(study: BackupStudy, project: Project): Problem[] {
     const field = `backup.profile.duty.${i}`;
     const why = notALoad(d.load, byId);
     if (why) problems.push(bad(`${field}.load`, d.load, why));
-    if (d.onMinutes > d.periodMinutes) problems.push(bad(`${field}.onMinutes`, d.onMinutes, `must not exceed the period of ${d.periodMinutes} min`));
+    if (d.onMinutes > d.periodMinutes) problems.push({ ...bad(`${field}.onMinutes`, d.onMinutes, ''), ...say`must not exceed the period of ${q(d.periodMinutes, 'min')}` });
   });
   const step = study.timeStepSeconds ?? DEFAULT_TIME_STEP_S;
   const horizon = (study.horizonHours ?? DEFAULT_HORIZON_H) * 3600;

@@ -30,6 +30,7 @@ import { type ResolvedLimits, linkLimit, pathDrops, resolveLimits } from '../con
 import { KINDS, type NominalPort } from '../kinds/index.ts';
 import { type Plan, type PlannedElement, plan } from './plan.ts';
 import { type OperatingPoint, sweep } from './sweep.ts';
+import { sigText } from '../model/message.ts';
 
 /** Relative change of a conductor's resistance between passes below which the solve stops. */
 export const R_TOLERANCE = 1e-10;
@@ -252,7 +253,7 @@ export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok
       const fails: string[] = [];
       if (!ev.ampacityOk) fails.push(`its ampacity of ${conductor.ampacity.total.toFixed(1)} A does not meet the design current of ${conductor.designCurrent.toFixed(1)} A by ${conductor.designBasis.rule}`);
       if (!ev.device.ok) fails.push(ev.device.note);
-      if (!ev.dropOk) fails.push(`drops ${conductor.drop.checkPercent.toFixed(2)} % by the method's check, above the allowed ${link.limitPercent} %`);
+      if (!ev.dropOk) fails.push(`drops ${conductor.drop.checkPercent.toFixed(2)} % by the method's check, above the allowed ${sigText(link.limitPercent, 3)} %`);
       if (fails.length) warnings.push({ code: 'conductor-check', elementId: r.id, message: `cable "${name}", ${conductor.size} ${conductor.material}: ${fails.join('; ')}` });
     }
     // A current the user entered can be wrong: flag it when the solved chain carries more than the

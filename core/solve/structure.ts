@@ -54,7 +54,7 @@ export function reservedIdProblem(id: string, elementId: string): Problem | null
     elementId,
     field: 'id',
     value: id,
-    message: `"${id}" is a reserved name (programs that read the project file would take it for one of their own): choose another id`,
+    message: `the id ${JSON.stringify(id)} is a reserved name (programs that read the project file would take it for one of their own): choose another id`,
   };
 }
 
@@ -80,12 +80,14 @@ export function skeletonOf(raw: unknown): Skeleton | null {
 
 const roleOf = (s: Skeleton) => (s.kind === undefined ? undefined : KINDS.get(s.kind)!.role);
 
+/** An element as messages name it: by its name, by its id only when it has none (the file's own handle then). */
+const label = (s: Skeleton) => `"${s.name ?? s.id}"`;
+
 /** Names listed in a loop's message before "… n more". */
 const LOOP_NAMES_SHOWN = 4;
 
 /** The words for a loop: its first few elements by name, in feeding order upwards, back to the first. */
 function loopWords(loop: readonly Skeleton[]): string {
-  const label = (s: Skeleton) => `"${s.name ?? s.id}"`;
   const shown = loop.slice(0, LOOP_NAMES_SHOWN).map(label);
   const more = loop.length - shown.length;
   return [...shown, ...(more > 0 ? [`… ${more} more`] : []), label(loop[0]!)].join(' → ');
@@ -109,7 +111,7 @@ export function checkStructure(skeletons: readonly Skeleton[]): Problem[] {
     problems.push({ code: 'missing-source', elementId: PROJECT_LEVEL, field: 'elements', message: 'needs one source (grid, generator or battery) to feed the chain' });
   }
   for (const s of sources.slice(1)) {
-    problems.push({ code: 'several-sources', elementId: s.id, field: 'kind', value: s.kind!, message: `a chain has one source; "${sources[0]!.id}" is already the source` });
+    problems.push({ code: 'several-sources', elementId: s.id, field: 'kind', value: s.kind!, message: `a chain has one source; ${label(sources[0]!)} is already the source` });
   }
   for (const s of skeletons) {
     if (s.from === undefined) continue;
@@ -117,7 +119,7 @@ export function checkStructure(skeletons: readonly Skeleton[]): Problem[] {
     if (!feeder) {
       problems.push({ code: 'unknown-feed', elementId: s.id, field: 'from', value: s.from, message: `no element has the id "${s.from}"` });
     } else if (roleOf(feeder) === 'load') {
-      problems.push({ code: 'not-a-feeder', elementId: s.id, field: 'from', value: s.from, message: `"${s.from}" is a load and feeds nothing` });
+      problems.push({ code: 'not-a-feeder', elementId: s.id, field: 'from', value: s.from, message: `${label(feeder)} is a load and feeds nothing` });
     }
   }
   problems.push(...loopProblems(skeletons, byId));

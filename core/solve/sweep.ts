@@ -12,6 +12,7 @@
 import { type Complex, ZERO, abs, add, c, scale, sub } from '../physics/complex.ts';
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
+import { q, say } from '../model/message.ts';
 import type { Element } from '../model/project.ts';
 import type { PlannedElement } from './plan.ts';
 import type { DirectLoads } from '../kinds/spec.ts';
@@ -205,8 +206,6 @@ function currentLoadsBehind(order: readonly PlannedElement[], i: number): number
   return found;
 }
 
-const amps = (a: number): string => `${Number(a.toPrecision(4))} A`;
-
 function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly Complex[]): Problem {
   const e = order[i]!.element;
   const link = `"${e.name ?? e.id}"`;
@@ -222,25 +221,24 @@ function infeasible(order: readonly PlannedElement[], i: number, sIn: readonly C
       elementId: load.id,
       field: 'current',
       value: load.current,
-      message: `${amps(load.current)} cannot be delivered through ${link}${others}: the voltage at the load would fall to nothing or collapse. Use a larger conductor, a shorter run, a higher voltage or less current`,
+      ...say`${q(load.current, 'A')} cannot be delivered through ${link}${others}: the voltage at the load would fall to nothing or collapse. Use a larger conductor, a shorter run, a higher voltage or less current`,
     };
   }
   const below = loadBelow(order, sIn, i);
-  const kw = below.watts / 1000;
-  const current = below.amps > 0 ? ` and the ${amps(below.amps)} of loads given by their current` : '';
+  const current = below.amps > 0 ? say` and the ${q(below.amps, 'A')} of loads given by their current` : '';
   // The load below may itself be out of range (a power drawn at a voltage that left the doubles):
   // then the message names no figure rather than print "NaN".
   const what = !Number.isFinite(below.watts) || !Number.isFinite(below.amps)
     ? 'the load beyond it'
     : below.watts === 0 && below.amps > 0
-      ? `the ${amps(below.amps)} of loads given by their current beyond it`
-      : `the ${kw.toPrecision(3)} kW of load beyond it${current}`;
+      ? say`the ${q(below.amps, 'A')} of loads given by their current beyond it`
+      : say`the ${q(below.watts, 'W')} of load beyond it${current}`;
   return {
     code: 'infeasible-load',
     elementId: e.id,
     field: '',
     value: Number.isFinite(below.watts) ? below.watts : null,
-    message: `cannot carry ${what} (plus the losses on the way): the voltage would collapse, past the most power this link can transfer. Use a larger conductor, a shorter run, a higher voltage or less load`,
+    ...say`cannot carry ${what} (plus the losses on the way): the voltage would collapse, past the most power this link can transfer. Use a larger conductor, a shorter run, a higher voltage or less load`,
   };
 }
 

@@ -15,6 +15,7 @@ import { backupSchema, reservedKeyProblems } from './load-profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { pumpDutySchema } from '../kinds/pump.ts';
 import { countSolveStep } from './count.ts';
+import { wordedFromParams } from '../model/message.ts';
 
 declare const VALID: unique symbol;
 /**
@@ -77,7 +78,9 @@ function fromIssues(issues: readonly z.core.$ZodIssue[], elementId: string, subj
     }
     const value = valueAt(subject, issue.path);
     const message = value === undefined && issue.code === 'invalid_type' ? 'is required' : issue.message;
-    return { code: 'invalid-value', elementId, field: path.join('.'), value, message };
+    // A range check keeps its bounds as quantities (core/kinds/ranges.ts rangeWorded).
+    const worded = issue.code === 'custom' ? wordedFromParams(issue.params) : {};
+    return { code: 'invalid-value', elementId, field: path.join('.'), value, message, ...worded };
   });
 }
 

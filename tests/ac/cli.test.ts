@@ -60,9 +60,9 @@ describe('npm run solve -- <file> --correct-pf <id>:<target>', () => {
 
   // Exit codes (core/cli/args.ts): 1 the project refuses the request, 2 the flag itself is malformed (usage).
   it.each([
-    [['--correct-pf', 'comp:0.5'], /element "comp", field "targetPowerFactor": must be above the present power factor/, 1],
-    [['--correct-pf', 'pump:0.95'], /element "pump", field "at": no element "pump"/, 1],
-    [['--correct-pf', 'comp:1.5'], /element "comp", field "targetPowerFactor": must not exceed 1/, 1],
+    [['--correct-pf', 'comp:0.5'], /"Load from R, L, C #\d+", target power factor: must be above the present power factor/, 1],
+    [['--correct-pf', 'pump:0.95'], /"pump", element to correct: no element "pump"/, 1],
+    [['--correct-pf', 'comp:1.5'], /"Load from R, L, C #\d+", target power factor: must not exceed 1/, 1],
     [['--correct-pf', 'comp:high'], /the target power factor "high" is not a number/, 2],
     [['--correct-pf', 'comp'], /write <elementId>:<target power factor>/, 2],
     [['--correct-pf'], /--correct-pf needs <elementId>:<target power factor>/, 2],

@@ -90,8 +90,8 @@ describe('joulepath command line: summary line and CSV row', () => {
   });
 
   it('a refused project: its first reason and how many more', () => {
-    expect(summaryLine({ file: 'bad.json', ok: false, reasons: ['the project cannot be solved: element "a", field "voltage": must be above 0'] })).toBe(
-      'bad.json: refused: the project cannot be solved: element "a", field "voltage": must be above 0',
+    expect(summaryLine({ file: 'bad.json', ok: false, reasons: ['the project cannot be solved: "Supply", Open-circuit voltage: must be above 0'] })).toBe(
+      'bad.json: refused: the project cannot be solved: "Supply", Open-circuit voltage: must be above 0',
     );
     expect(summaryLine({ file: 'bad.json', ok: false, reasons: ['first', 'second', 'third'] })).toBe('bad.json: refused: first (and 2 more)');
   });

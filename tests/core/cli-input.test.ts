@@ -111,14 +111,14 @@ describe('CLI input files', () => {
     const err = refused(run(write('cold.json', project([mains, cable, { ...heater, from: 'run' }]))));
     expect(err).not.toMatch(/settle|NaN/);
     // Absolute zero is −273.15 °C (ISO 80000-5); the plausible range is the table's (core/kinds/ranges.ts).
-    expect(err).toMatch(/element "run", field "conductor\.ambient": .*°C/);
+    expect(err).toMatch(/"Feeder", Ambient temperature: .*°C/);
     expect(err).toMatch(/−80 °C/);
   }, 30_000);
 
   it('refuses a source of 1e300 V at its voltage, naming the plausible range with the unit', () => {
     const err = refused(run(write('1e300.json', project([{ ...mains, voltage: 1e300 }, heater]))));
     expect(err).not.toMatch(/not a finite number|NaN/);
-    expect(err).toMatch(/element "mains", field "voltage": .*1 MV/);
+    expect(err).toMatch(/"Mains", Open-circuit voltage: .*1 MV/);
   }, 30_000);
 
   it('refuses a pump duty study with zero flow at that row, as the pump element refuses a zero flow', () => {
@@ -126,7 +126,7 @@ describe('CLI input files', () => {
     demo.pumpDuty.duty[1].flow = 0;
     const err = refused(run(write('zero-flow.json', demo)));
     // The pump element's own words for flow 0 (core/kinds/pump.ts): "must be greater than 0 m³/s".
-    expect(err).toMatch(/project, field "pumpDuty\.duty\.1\.flow": must be greater than 0 m³\/s/);
+    expect(err).toMatch(/Project, Duty points, item 2 flow: must be greater than 0 m³\/s/);
   }, 30_000);
 
   it('refuses a --pump duty study file with zero flow the same way', () => {
@@ -139,6 +139,6 @@ describe('CLI input files', () => {
       drive: { ratedApparentPower: 12000, basis: 'cdm' },
     };
     const err = refused(run(write('ok2.json', project([mains, heater])), '--flow', write('study.json', study)));
-    expect(err).toMatch(/field "duty\[0\]\.flow": must be greater than 0 m³\/s/);
+    expect(err).toMatch(/"well", duty\[0\] flow: must be greater than 0 m³\/s/);
   }, 30_000);
 });

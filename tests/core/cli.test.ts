@@ -68,8 +68,9 @@ describe('command-line solver', () => {
     const r = run(file);
     expect(r.status).toBe(1);
     expect(r.stdout).toBe('');
-    expect(r.stderr).toContain('element "mains", field "voltage": must be greater than 0 V');
-    expect(r.stderr).toContain('element "heater", field "powerFactor": power factor must not exceed 1');
+    // Unnamed elements are named by their kind and place; fields by their form labels.
+    expect(r.stderr).toContain('"Utility supply #1", Open-circuit voltage: must be greater than 0 V');
+    expect(r.stderr).toContain('"AC load #2", Power factor (0–1): power factor must not exceed 1');
   }, 30_000);
 
   it('prints a load given by its current, and refuses a current the cable cannot deliver at that load’s field', () => {
@@ -94,7 +95,7 @@ describe('command-line solver', () => {
     writeFileSync(bad, JSON.stringify(make(600)));
     const refused = run(bad);
     expect(refused.status).toBe(1);
-    expect(refused.stderr).toContain('element "charger", field "current": 600 A cannot be delivered through "Yard run"');
+    expect(refused.stderr).toContain('"Charger in current limit", Current drawn: 600 A cannot be delivered through "Yard run"');
   }, 30_000);
 
   it('exits 1 on a file that is not JSON or a missing file, and 2 on wrong arguments', () => {

@@ -199,9 +199,10 @@ describe('the final guard walks the whole result', () => {
 
 describe('the CLI exits non-zero on each of them, naming element and field', () => {
   for (const [name, input, field] of [
-    ['tiny-efficiency', tinyEfficiency, 'loss.efficiency'],
-    ['bunched-fit', bunchedFit(1e-15), 'loss.points'],
-    ['tiny-resistor', tinyResistor, 'network'],
+    // The fields by their form labels (core/model/field-labels.ts): the rectifier's efficiency and datasheet points, the R, L, C load's circuit.
+    ['tiny-efficiency', tinyEfficiency, 'Efficiency (%)'],
+    ['bunched-fit', bunchedFit(1e-15), 'Datasheet points'],
+    ['tiny-resistor', tinyResistor, 'Circuit'],
   ] as const) {
     it(name, () => {
       const file = join(scratch, `${name}.json`);
@@ -209,7 +210,7 @@ describe('the CLI exits non-zero on each of them, naming element and field', () 
       const r = spawnSync(TSX, ['core/cli/cli.ts', file], { encoding: 'utf8' });
       expect(r.status).toBe(1);
       expect(r.stdout).toBe('');
-      expect(r.stderr).toContain(`field "${field}"`);
+      expect(r.stderr).toContain(`, ${field}: `);
       expect(r.stderr).not.toMatch(/NaN|Infinity/);
     }, 30_000);
   }

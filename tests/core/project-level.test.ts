@@ -43,7 +43,10 @@ describe('PROJECT_LEVEL', () => {
     const problems = problemsOf(withProjectElement({}, -5));
     expect(problems).toHaveLength(1);
     expect(problems[0]).toMatchObject({ elementId: 'project', field: 'power' });
-    expect(formatProblem(problems[0]!)).toMatch(/^element "project", field "power": /);
+    // Without the project the line names the element by its id and the field in words; with it, by
+    // its name and the field by its form label.
+    expect(formatProblem(problems[0]!)).toMatch(/^"project", power: /);
+    expect(formatProblem(problems[0]!, withProjectElement({}, -5))).toMatch(/^"Project lamp", Power drawn: /);
   });
 
   it('a project-level setting refused (a backup study design margin below 1) lands on the project', () => {
@@ -53,7 +56,7 @@ describe('PROJECT_LEVEL', () => {
     for (const p of problems) expect(p.elementId).toBe(PROJECT_LEVEL);
     expect(problems.some((p) => p.field === 'backup.designMargin')).toBe(true);
     // Users read "project" in words, never the empty id.
-    expect(formatProblem(problems[0]!)).toMatch(/^project, field "backup\.designMargin": /);
+    expect(formatProblem(problems[0]!)).toMatch(/^Project, Design margin: /);
   });
 
   it('a project without a source is refused at the project, beside an element called "project"', () => {

@@ -53,6 +53,6 @@ describe('sweep near voltage collapse', () => {
     expect(outcome.problems).toEqual([
       expect.objectContaining({ code: 'infeasible-load', elementId: 'run', value: 5000 }),
     ]);
-    expect(outcome.problems[0]!.message).toContain('5.00 kW of load beyond it');
+    expect(outcome.problems[0]!.message).toContain('the 5 kW of load beyond it');
   });
 });

@@ -6,6 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { formatProblem, solveProject, type Problem, type ProblemCode } from '../../core/index.ts';
+import { fieldLabel } from '../../core/model/field-labels.ts';
 
 type Json = Record<string, any>; // test fixtures are deliberately loose: they hold invalid data
 
@@ -75,10 +76,13 @@ function expectReadable(p: Problem) {
   expect(typeof p.message).toBe('string');
   expect(p.message.length).toBeGreaterThanOrEqual(8);
   expect(p.message).not.toMatch(/undefined|\[object|NaN|ZodError|^\s*$/);
-  // The one-line form names the element and the field.
+  // The one-line form names the element and the field: without the project by the element's id and
+  // the field's path in words; never the file-format path itself when it is a camelCase key.
   const line = formatProblem(p);
   if (p.elementId !== PROJECT_LEVEL) expect(line).toContain(`"${p.elementId}"`);
-  if (p.field) expect(line).toContain(`"${p.field}"`);
+  else expect(line).toMatch(/^Project[,:]/);
+  if (p.field) expect(line).toContain(`, ${fieldLabel(undefined, p.field)}: `);
+  expect(line).not.toMatch(/^[^:]*field "/);
 }
 
 /** Exactly one problem with this element, field and code, and a message matching `says`. */
@@ -590,7 +594,7 @@ describe('loads given by their current', () => {
     el(p, 'lamp2').kind = 'dc-load';
     el(p, 'lamp2').power = 20;
     delete el(p, 'lamp2').current;
-    expectOnly(p, 'infeasible-load', 'run', '', /kW of load beyond it and the 60 A of loads given by their current/);
+    expectOnly(p, 'infeasible-load', 'run', '', /the 20 W of load beyond it and the 60 A of loads given by their current/);
   });
 });
 

@@ -92,14 +92,14 @@ describe('pump tree checks (pumpDetails)', () => {
   });
   it('speed control with no drive upstream of the motor warns', () => {
     const d = details(project({ ...pumpBase, control: 'speed' }, { drive: false }));
-    expect(d.warnings.join(' ')).toMatch(/no drive feeds motor "motor"/);
+    expect(d.warnings.join(' ')).toMatch(/no drive feeds the motor "motor"/);
   });
   it('speed control with the drive at another speed (50/50 = 100 % vs 85.4 %) warns', () => {
     const d = details(project({ ...pumpBase, control: 'speed' }, { driveFrequency: 50 }));
-    expect(d.warnings.join(' ')).toMatch(/drive "drive" runs motor "motor" at 100.0 %/);
+    expect(d.warnings.join(' ')).toMatch(/the drive "drive" runs the motor "motor" at 100.0 %/);
   });
   it('throttle fed through a drive warns; throttle on the grid does not', () => {
-    expect(details(project({ ...pumpBase, control: 'throttle' })).warnings.join(' ')).toMatch(/control "throttle" runs at full speed, but drive "drive"/);
+    expect(details(project({ ...pumpBase, control: 'throttle' })).warnings.join(' ')).toMatch(/flow control "Throttle valve at full speed" runs at full speed, but the drive "drive"/);
     expect(details(project({ ...pumpBase, control: 'throttle' }, { drive: false })).warnings).toEqual([]);
   });
 });
@@ -154,7 +154,7 @@ describe('projectPumpDuty: the chain\'s own pump, motor and drive', () => {
     expect(bad({ pump: 'nope', duty })).toMatchObject([{ elementId: PROJECT_LEVEL, field: 'pumpDuty.pump', value: 'nope' }]);
   });
   it('an element that is not a pump', () => {
-    expect(bad({ pump: 'motor', duty })[0]!.message).toMatch(/"motor" element, not a pump/);
+    expect(bad({ pump: 'motor', duty })[0]!.message).toMatch(/names "motor", a motor, not a pump/);
   });
   it('negative flow and negative hours name the duty row', () => {
     const problems = bad({ pump: 'pump', duty: [{ flow: -0.01, hours: 10 }, { flow: 0.01, hours: -5 }] });

@@ -57,6 +57,6 @@ describe('command-line surge and fault study', () => {
     } catch (e) {
       err = String((e as { stderr: string }).stderr);
     }
-    expect(err).toContain('element "inv", field "surge.durationSeconds"');
+    expect(err).toContain('"Inverter #3", For how long: ');
   }, 60_000);
 });

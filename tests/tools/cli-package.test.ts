@@ -94,10 +94,10 @@ describe('the packed command-line tool', () => {
     }
     // The hillside demo has a backup study: its runtime, 27 h 40 min in the tables (tests/battery/cli.test.ts).
     expect(lines[0]).toMatch(/backup runtime 27\.67 h$/);
-    expect(lines[3]).toMatch(/^zero-volt\.json: refused: the project cannot be solved: element "g", field "voltage": /);
+    expect(lines[3]).toMatch(/^zero-volt\.json: refused: the project cannot be solved: "Grid", Open-circuit voltage: /);
     expect(lines[4]).toMatch(/^missing\.json: refused: cannot read the project missing\.json/);
     // Every reason on standard error, under the file's name.
-    expect(r.stderr).toMatch(/^zero-volt\.json: the project cannot be solved:\n {2}element "g", field "voltage"/m);
+    expect(r.stderr).toMatch(/^zero-volt\.json: the project cannot be solved:\n {2}"Grid", Open-circuit voltage: /m);
     // All solved: exit 0.
     expect(run('solve', ...demoProjects.map((d) => `${d.id}.json`)).status).toBe(0);
   });
@@ -126,7 +126,7 @@ describe('the packed command-line tool', () => {
     const t = outcome.result.totals;
     expect(solved).toBe(`riverside-pump-station.json,solved,${outcome.result.projectName},${t.sourcePower.toFixed(1)},${t.loadPower.toFixed(1)},${t.losses.toFixed(1)},${(100 * t.efficiency).toFixed(2)},${outcome.result.warnings.length},,,`);
     // The reason holds commas and quotes: quoted, quotes doubled (RFC 4180 section 2).
-    expect(refused).toMatch(/^zero-volt\.json,refused,Zero volt site,,,,,,,,"the project cannot be solved: element ""g"", field ""voltage"": must be greater than 0 V"$/);
+    expect(refused).toMatch(/^zero-volt\.json,refused,Zero volt site,,,,,,,,"the project cannot be solved: ""Grid"", Open-circuit voltage: must be greater than 0 V"$/);
   });
 
   it('wrong command lines exit 2 with the usage line', () => {

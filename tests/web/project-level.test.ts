@@ -35,7 +35,7 @@ describe('an element called "project" beside the project', () => {
     expect(draft.value!.name).toBe('Renamed shed');
     expect(element('project')).toBe(before);
     expect(element('project')['name']).toBe('Step-down');
-    expect(undoLabel.value).toBe('project: name');
+    expect(undoLabel.value).toBe('project: Project name'); // the field by its form label (core/model/field-labels.ts)
   });
 
   it('a backup study setting lands on the project', () => {

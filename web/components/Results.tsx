@@ -22,6 +22,7 @@ import { memo } from 'preact/compat';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { lagOffscreen, type BoxRef } from './lag.ts';
 import { CsvButton } from './report/CsvButton.tsx';
+import { messageText } from './problem-words.ts';
 
 export { CableTable, cableLengths } from './CableTable.tsx';
 
@@ -345,7 +346,7 @@ export const WarningList = lagOffscreen(function WarningList({ result, box }: { 
       <ul>
         {result.warnings.map((w, i) => (
           <li key={`${w.elementId}-${w.code}-${i}`}>
-            <strong>{names.get(w.elementId) ?? w.elementId}:</strong> {w.message}
+            <strong>{names.get(w.elementId) ?? w.elementId}:</strong> {messageText(w, unitSystem.value, effectiveLocale())}
           </li>
         ))}
       </ul>

@@ -4,8 +4,10 @@
  * field and the draft unchanged, when the engine rejects that field. So nothing is ever stored from
  * an invalid value.
  */
-import { PROJECT_LEVEL, type Problem } from '../../core/page.ts';
+import { PROJECT_LEVEL, fieldLabel, type Problem } from '../../core/page.ts';
 import { engine, engineFailure } from './engine.ts';
+import { messageText } from '../format/message-text.ts';
+import { effectiveLocale, unitSystem } from './prefs.ts';
 import { clone, commit, draft, setAt, type DraftProject } from './draft.ts';
 import { newLimitIssue } from './draft-limits.ts';
 import { fieldKey, setFieldError } from './field-errors.ts';
@@ -64,12 +66,15 @@ export function setField(elementId: string, path: string, value: unknown, label?
   const solved = solveOnce(candidate);
   const problems = solved?.ok ? [] : problemsForField(candidate, elementId, path);
   if (problems.length) {
-    const message = problems.map((p) => p.message).join('; ');
+    // The message's numbers in the user's units (web/format/message-text.ts).
+    const message = problems.map((p) => messageText(p, unitSystem.value, effectiveLocale())).join('; ');
     setFieldError(elementId, path, message);
     return message;
   }
   setFieldError(elementId, path, null);
   const name = elementId === PROJECT_LEVEL ? 'project' : elementName(current, elementId);
-  commit(current, candidate, label ?? `${name}: ${path}`, { coalesce: fieldKey(elementId, path) });
+  // The undo label names the field by its form label, not its path in the file.
+  const kind = elementId === PROJECT_LEVEL ? 'project' : current.elements.find((e) => e.id === elementId)?.kind;
+  commit(current, candidate, label ?? `${name}: ${fieldLabel(typeof kind === 'string' ? kind : undefined, path)}`, { coalesce: fieldKey(elementId, path) });
   return null;
 }

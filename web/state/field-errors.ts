@@ -1,6 +1,15 @@
 /** Messages at fields whose typed text was not taken in (set by the forms and by setField). */
 import { signal } from '@preact/signals';
 
+/**
+ * The DOM id of a field's control: the forms give each input this id (web/components/fields/common.tsx
+ * `fieldId`, the same formula; tests/web/field-focus.test.ts checks they agree), so the problem
+ * banner can focus the field it names without loading the forms.
+ */
+export function fieldDomId(owner: string, path: string): string {
+  return `sf-${owner}-${path}`.replace(/[^A-Za-z0-9_-]/g, '_');
+}
+
 export function fieldKey(elementId: string, path: string): string {
   return `${elementId}\u0000${path}`;
 }

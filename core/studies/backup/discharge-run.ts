@@ -37,6 +37,7 @@ import { idleDraw } from '../../solve/idle.ts';
 import { type Bank, bankOcv, capacityFactorAt, resolveBank } from '../../physics/bank.ts';
 import { DEFAULT_HORIZON_H, DEFAULT_TIME_STEP_S, MAX_WHOLE_CHAIN_WORK, buildTimeline, count } from '../../solve/load-profile.ts';
 import { END_TEXT, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './discharge-types.ts';
+import { figure, sigText } from '../../model/message.ts';
 
 const H = 3600;
 
@@ -282,7 +283,7 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
   if (temp.extrapolated) {
     const t = v.capacityVsTemperature;
     warnings.push(
-      `${temperatureC} °C is outside the capacity-vs-temperature table (${t[0]!.temperatureC} to ${t[t.length - 1]!.temperatureC} °C): the capacity factor ${temp.factor.toFixed(3)} is extrapolated linearly along the table\u2019s end slope, never above its end value; use the maker\u2019s figure for this temperature`,
+      `${sigText(temperatureC, 3)} °C is outside the capacity-vs-temperature table (${t[0]!.temperatureC} to ${t[t.length - 1]!.temperatureC} °C): the capacity factor ${temp.factor.toFixed(3)} is extrapolated linearly along the table\u2019s end slope, never above its end value; use the maker\u2019s figure for this temperature`,
     );
   }
   if (!solver.fast) warnings.push('an element between the bank and the first converter is neither a cable nor a DC bus: the whole chain was re-solved at every step');
@@ -296,22 +297,22 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
   const basis = designBasis(bank.chemistry, design, v.endOfDischargeCellVoltage, from('endOfDischargeCellVoltage'), v.usableDepthOfDischarge, from('usableDepthOfDischarge'));
   const cautions = [...bankCautions(bank.chemistry), basis];
   if (v.minChargeTemperatureC >= 0 && temperatureC < v.minChargeTemperatureC) {
-    cautions.push(`At ${temperatureC} °C this ${bank.label} bank must not be charged (minimum ${v.minChargeTemperatureC} °C); warm it first.`);
+    cautions.push(`At ${sigText(temperatureC, 3)} °C this ${bank.label} bank must not be charged (minimum ${v.minChargeTemperatureC} °C); warm it first.`);
   }
   const loadW = averageLoadW;
   const derates: Derate[] = [
     { label: 'nameplate energy', value: bank.nominalWh, unit: 'Wh', note: `${bank.nominalVoltage.toFixed(1)} V nominal × ${bank.capacityAh} Ah (C${v.ratedHours})` },
-    { label: 'simple estimate Wh ÷ W', value: loadW > 0 ? bank.nominalWh / loadW : 0, unit: 'h', note: `nameplate Wh ÷ average load ${loadW.toFixed(1)} W` },
+    { label: 'simple estimate Wh ÷ W', value: loadW > 0 ? bank.nominalWh / loadW : 0, unit: 'h', note: `nameplate Wh ÷ average load ${figure(loadW, 1)} W` },
     dodApplies
       ? { label: 'usable depth of discharge', value: v.usableDepthOfDischarge, unit: '', note: `the discharge stops at ${(socLimit * 100).toFixed(0)} % state of charge (${from('usableDepthOfDischarge')})` }
       : { label: 'end-of-discharge voltage per cell', value: v.endOfDischargeCellVoltage, unit: 'V', note: `backup design: discharged to the end voltage, no depth-of-discharge limit (${from('endOfDischargeCellVoltage')})` },
-    { label: 'temperature', value: temp.factor, unit: '', note: `capacity at ${temperatureC} °C vs 25 °C (${temperatureSource})${temp.extrapolated ? '; outside the table: extrapolated along its end slope, never above its end value' : ''}` },
+    { label: 'temperature', value: temp.factor, unit: '', note: `capacity at ${sigText(temperatureC, 3)} °C vs 25 °C (${temperatureSource})${temp.extrapolated ? '; outside the table: extrapolated along its end slope, never above its end value' : ''}` },
     { label: 'aging (state of health)', value: soh, unit: '', note: 'capacity left after aging' },
     {
       label: 'Peukert at the actual rate',
       value: 1 / peukertFactor,
       unit: '',
-      note: `k = ${k} (${from('peukertExponent')}), rated current ${iRated.toFixed(1)} A (C/${v.ratedHours}), average current ${(runtime > 0 ? acc.charge / runtime : 0).toFixed(1)} A`,
+      note: `k = ${k} (${from('peukertExponent')}), rated current ${figure(iRated, 1)} A (C/${v.ratedHours}), average current ${figure(runtime > 0 ? acc.charge / runtime : 0, 1)} A`,
     },
     { label: 'chain losses (cables, bus, converters)', value: acc.chain / H, unit: 'Wh', note: 'drawn from the bank but not used by the loads' },
     { label: 'bank internal I²R', value: acc.internal / H, unit: 'Wh', note: `internal resistance ${(R * 1000).toFixed(2)} mΩ (${source.internalResistance !== undefined ? 'as given' : from('internalResistanceOhmAh')})` },

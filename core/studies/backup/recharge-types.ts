@@ -4,6 +4,7 @@
  */
 import type { Chemistry, ChemistryPreset, ChemistryValues } from '../../data/battery-chemistries.ts';
 import type { Problem } from '../../model/errors.ts';
+import { sigText } from '../../model/message.ts';
 
 /** How a chemistry charges (common practice, no single source; override from the charger maker). */
 export interface ChargeProfile {
@@ -185,7 +186,7 @@ export interface Model {
 
 /** For messages only. */
 export function fmt(x: number): string {
-  return String(Number(x.toPrecision(4)));
+  return sigText(x, 4);
 }
 export function pct(x: number): string {
   return `${fmt(100 * x)} %`;

@@ -6,6 +6,7 @@
 import { capacityFactorAt as extrapolatedCapacityFactor } from '../../physics/bank.ts';
 import { TYPICAL_VALUE } from './cautions.ts';
 import { round, type GoverningLimit, type MethodContext, type MethodOutcome, type SizingMethod } from './sizing-types.ts';
+import { sigText } from '../../model/message.ts';
 
 /** Sizes a lithium bank by its energy. */
 export function sizeByEnergy(ctx: MethodContext): MethodOutcome {
@@ -34,7 +35,7 @@ export function sizeByEnergy(ctx: MethodContext): MethodOutcome {
   const cap = extrapolatedCapacityFactor(preset.capacityVsTemperature, temperature);
   const capFactor = cap.factor;
   step('Usable depth of discharge', dod, '', userSource('usableDepthOfDischarge'));
-  step('Capacity factor at temperature', capFactor, '', `${temperature} °C (${userSource('capacityVsTemperature')}${cap.extrapolated ? '; outside the table: extrapolated along its end slope, never above its end value' : ''})`);
+  step('Capacity factor at temperature', capFactor, '', `${sigText(temperature, 3)} °C (${userSource('capacityVsTemperature')}${cap.extrapolated ? '; outside the table: extrapolated along its end slope, never above its end value' : ''})`);
   step('Design margin', designMargin, '', input.designMargin === undefined ? `default 1.10 (the IEEE 485 design margin applied to lithium; ${TYPICAL_VALUE})` : 'as given');
   step('Aging factor', agingFactor, '', input.agingFactor === undefined ? `default 1.25 (end of life at 80 % of rated; ${TYPICAL_VALUE})` : 'as given');
   const wh = (energyWh / (dod * capFactor)) * designMargin * agingFactor;

@@ -18,6 +18,8 @@
  */
 import type { Problem } from '../../model/errors.ts';
 import { PROJECT_LEVEL } from '../../model/errors.ts';
+import { q, say, valueText, type Worded } from '../../model/message.ts';
+import { kindLabel } from '../../model/field-labels.ts';
 import type { DriveStage, DriveStandardLoss, Element, MotorStage, Project, PumpLoad } from '../../model/project.ts';
 import type { Solved } from '../../solve/index.ts';
 import { motorPowerFactorAt } from '../../kinds/motor.ts';
@@ -85,13 +87,16 @@ export function pumpDetails(project: Project): PumpDetail[] {
       if (rated !== undefined) driveSpeed = drive.outputFrequency / rated;
     }
     const pct = (x: number) => `${(100 * x).toFixed(1)} %`;
+    const flow = valueText(q(e.flow, 'm³/s'));
+    const motorName = `"${motor.name ?? motor.id}"`;
+    // The flow control's choices as the form words them (web/editor/fields/loads.ts).
     if (e.control === 'speed' && !drive) {
-      warnings.push(`control "speed" needs ${pct(op.speed)} speed for ${e.flow} m³/s, but no drive feeds motor "${motor.id}"; on a fixed-frequency supply the pump runs at full speed (use control "throttle")`);
+      warnings.push(`flow control "Speed (a drive upstream)" needs ${pct(op.speed)} speed for ${flow}, but no drive feeds the motor ${motorName}; on a fixed-frequency supply the pump runs at full speed (choose "Throttle valve at full speed")`);
     } else if (e.control === 'speed' && driveSpeed !== undefined && Math.abs(driveSpeed - op.speed) > SPEED_TOLERANCE) {
-      warnings.push(`needs ${pct(op.speed)} speed for ${e.flow} m³/s, but drive "${drive!.id}" runs motor "${motor.id}" at ${pct(driveSpeed)} (output frequency / motor rated frequency); the shaft power is computed at the needed speed`);
+      warnings.push(`needs ${pct(op.speed)} speed for ${flow}, but the drive "${drive!.name ?? drive!.id}" runs the motor ${motorName} at ${pct(driveSpeed)} (output frequency / motor rated frequency); the shaft power is computed at the needed speed`);
     }
     if (e.control === 'throttle' && drive) {
-      warnings.push(`control "throttle" runs at full speed, but drive "${drive.id}" feeds motor "${motor.id}"; with a drive, speed control saves the valve's loss (use control "speed")`);
+      warnings.push(`flow control "Throttle valve at full speed" runs at full speed, but the drive "${drive.name ?? drive.id}" feeds the motor ${motorName}; with a drive, speed control saves the valve's loss (choose "Speed (a drive upstream)")`);
     }
     out.push({ id: e.id, name: e.name ?? e.id, operatingPoint: op, motorId: motor.id, ...(drive ? { driveId: drive.id } : {}), ...(driveSpeed !== undefined ? { driveSpeed } : {}), warnings });
   }
@@ -106,12 +111,12 @@ const STUDY = 'pumpDuty';
  * A problem of the project's pump duty study: it belongs to the project (no element has the id
  * "pumpDuty"), at the field's path as the validation writes it, e.g. "pumpDuty.duty.1.flow".
  */
-const studyProblem = (field: string, value: unknown, message: string): Problem => ({
+const studyProblem = (field: string, value: unknown, message: string | Worded): Problem => ({
   code: 'invalid-value',
   elementId: PROJECT_LEVEL,
   field: `${STUDY}${field ? `.${field.replace(/\[(\d+)\]/g, '.$1')}` : ''}`,
   value,
-  message,
+  ...(typeof message === 'string' ? { message } : message),
 });
 
 /** Build the study input from the chain (pump, its motor, the drive above) and run comparePumpControl. */
@@ -122,14 +127,14 @@ export function projectPumpDuty(solved: Solved): PumpDutyOutcome {
   const elements = byId(project);
   const pump = elements.get(study.pump);
   if (!pump) return { ok: false, problems: [studyProblem('pump', study.pump, `names no element of the project (give the id of a pump element)`)] };
-  if (pump.kind !== 'pump') return { ok: false, problems: [studyProblem('pump', study.pump, `names a "${pump.kind}" element, not a pump`)] };
+  if (pump.kind !== 'pump') return { ok: false, problems: [studyProblem('pump', study.pump, `names ${JSON.stringify(pump.name ?? pump.id)}, a ${kindLabel(pump.kind).toLowerCase()}, not a pump`)] };
   const problems: Problem[] = [];
   let total = 0;
   study.duty.forEach((d, i) => {
-    if (d.flow > pump.ratedFlow * (1 + 1e-9)) problems.push(studyProblem(`duty[${i}].flow`, d.flow, `is above the rated flow ${pump.ratedFlow} m³/s of pump "${pump.id}", which the system reaches at full speed`));
+    if (d.flow > pump.ratedFlow * (1 + 1e-9)) problems.push(studyProblem(`duty[${i}].flow`, d.flow, say`is above the rated flow ${q(pump.ratedFlow, 'm³/s')} of the pump "${pump.name ?? pump.id}", which the system reaches at full speed`));
     total += d.hours;
   });
-  if (total > HOURS_PER_YEAR * (1 + 1e-12)) problems.push(studyProblem('duty', total, `the hours add up to ${total} h, more than the ${HOURS_PER_YEAR} h of a year`));
+  if (total > HOURS_PER_YEAR * (1 + 1e-12)) problems.push(studyProblem('duty', total, say`the hours add up to ${q(total, 'h')}, more than the ${q(HOURS_PER_YEAR, 'h')} of a year`));
   if (problems.length) return { ok: false, problems };
 
   const motor = elements.get(pump.from) as MotorStage;

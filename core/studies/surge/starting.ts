@@ -145,7 +145,7 @@ export function studyStart(solved: Solved, motor: MotorStage): { ok: true; start
     const xdd = gen.subtransientReactancePercent;
     const xd = gen.transientReactancePercent;
     if ((xdd !== undefined || xd !== undefined) && gen.ratedApparentPower === undefined) {
-      problems.push({ code: 'invalid-value', elementId: gen.id, field: 'ratedApparentPower', message: `is needed beside ${xd !== undefined ? 'transientReactancePercent' : 'subtransientReactancePercent'} (the generator’s reactances are given on its rating)` });
+      problems.push({ code: 'invalid-value', elementId: gen.id, field: 'ratedApparentPower', message: `is needed beside the ${xd !== undefined ? 'transient reactance X′d' : 'subtransient reactance X″d'} (the generator’s reactances are given on its rating)` });
     }
     if (xd !== undefined && xdd !== undefined && xd < xdd) {
       problems.push({ code: 'invalid-value', elementId: gen.id, field: 'transientReactancePercent', value: xd, message: `must not be below the subtransient reactance X″d ${xdd} % (a synchronous machine’s X′d is always at least its X″d)` });

@@ -8,6 +8,8 @@ import { PROJECT_LEVEL } from '../../../core/page.ts';
 import { draft, draftProblems, edit, elementName, fieldErrors, fieldError, setFieldError, type DraftProject } from '../../state/editor.ts';
 import { messageForField, type FormElement } from '../../editor/fields.ts';
 import type { Quantity } from '../../format/parse.ts';
+import { messageText } from '../problem-words.ts';
+import { effectiveLocale, unitSystem } from '../../state/prefs.ts';
 
 /** Which object a field belongs to: an element id, or PROJECT_LEVEL for project-level fields. */
 export interface FieldOwner {
@@ -23,7 +25,8 @@ export function fieldId(owner: string, path: string, suffix = ''): string {
 
 /** The engine's problems of the draft that name this field exactly. */
 export function engineProblems(owner: string, path: string): string[] {
-  return draftProblems.value.filter((p) => p.elementId === owner && p.field === path).map((p) => p.message);
+  // The message's numbers in the user's units and number format (web/components/problem-words.ts).
+  return draftProblems.value.filter((p) => p.elementId === owner && p.field === path).map((p) => messageText(p, unitSystem.value, effectiveLocale()));
 }
 
 /**
