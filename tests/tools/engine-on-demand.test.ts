@@ -10,7 +10,12 @@ import { staticClosure } from './entry-points.ts';
 const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 
 /** What the first screen may take from core/page.ts at run time (types are free). */
-const LIGHT = new Set(['PROJECT_LEVEL', 'PROJECT_VERSION', 'migrateProject', 'issueMessage', 'demoProjects', 'fieldWords', 'elementNames', 'nonFiniteProblems']);
+// The message words (field labels, element words, a message's template filled in) are tables and
+// string work, no solve: the banner and the undo labels need them on the first screen.
+const LIGHT = new Set([
+  'PROJECT_LEVEL', 'PROJECT_VERSION', 'migrateProject', 'issueMessage', 'demoProjects', 'fieldWords', 'elementNames', 'nonFiniteProblems',
+  'fieldLabel', 'fillTemplate', 'elementWords', 'pathWords',
+]);
 
 /** The run-time names a source imports (or re-exports) from core/page.ts, with `type` ones left out. */
 function pageNames(source: string): string[] {
