@@ -25,7 +25,7 @@
  * - Each warning, by element name.
  */
 import type { ElementKind } from '../model/project.ts';
-import type { ConductorResult, ElementResult, GoverningRule, SolveResult, WarningCode } from '../model/result.ts';
+import type { ConductorResult, DesignBasisKind, ElementResult, GoverningRule, SolveResult, WarningCode } from '../model/result.ts';
 import type { Solved } from './solved.ts';
 
 /** The panel (or results part) that holds an answer's working (web/state/working.ts names the same). */
@@ -38,6 +38,19 @@ export const GOVERNING_WORDS: Record<GoverningRule, string> = {
   protection: 'set by the protective device',
   'smallest-size': 'the smallest size allowed',
   fixed: 'size given by the user',
+};
+
+/** What a design current was taken from, in a few words (the full rule, with its clause, is `rule`). */
+export const DESIGN_BASIS_WORDS: Record<DesignBasisKind, string> = {
+  'load-nominal': 'the load at nominal voltage',
+  'motor-branch': 'the motor’s full-load current',
+  'motor-feeder': 'the motors’ full-load currents',
+  'drive-input': 'the drive’s rated input current',
+  'inverter-input': 'the inverter’s rated input current',
+  'charger-output': 'the charger’s rated output current',
+  'dc-dc-input': 'the converter’s rated input current',
+  'dc-feeder': 'the equipment on the bus at its ratings',
+  given: 'the current entered',
 };
 
 export interface LossSplit {
@@ -72,6 +85,7 @@ export interface CableAnswer {
   dropLimitPercent: number;
   /** The current the code sizes conductor and device for, A. */
   designCurrent: number;
+  designBasis: DesignBasisKind;
   designRule: string;
   panel: 'conductor';
 }
@@ -85,6 +99,7 @@ export interface BankCableCurrent {
   /** The current before any continuous-load factor, A, and the factor. */
   baseAmps: number;
   factor: number;
+  basis: DesignBasisKind;
   /** The rule the engine names for it (design-current.ts). */
   rule: string;
   deviceRating?: number;
@@ -145,6 +160,7 @@ function cableAnswer(e: ElementResult, c: ConductorResult): CableAnswer {
     dropPercent: c.drop.checkPercent,
     dropLimitPercent: c.drop.limitPercent,
     designCurrent: c.designCurrent,
+    designBasis: c.designBasis.basis,
     designRule: c.designBasis.rule,
     panel: 'conductor',
   };
@@ -203,6 +219,7 @@ export function solveAnswers(solved: Pick<Solved, 'result'>): SolveAnswers {
                 amps: c.designCurrent,
                 baseAmps: c.designBasis.baseCurrent,
                 factor: c.designBasis.factor,
+                basis: c.designBasis.basis,
                 rule: c.designBasis.rule,
                 ...(c.device.rating !== undefined ? { deviceRating: c.device.rating } : {}),
                 panel: 'conductor' as const,

@@ -138,7 +138,7 @@ export function StudyFigures({ study, cautions, locale, units }: { study: Backup
           </div>
           <div>
             <dt>Peak current</dt>
-            <dd>
+            <dd data-testid="battery-peak-current">
               {formatCurrent(d.peakCurrent, locale)} <span class="cell-note">limit {formatCurrent(b.maxDischargeCurrent, locale)}</span>
             </dd>
           </div>
