@@ -29,7 +29,8 @@ function pointAt(box: HTMLElement, figure: string | undefined, elementId: string
       if (performance.now() < until) frame = requestAnimationFrame(look);
       return;
     }
-    target.scrollIntoView({ block: 'center' });
+    // A tall target (a cable's whole working) from its top; a figure in the middle of the screen.
+    target.scrollIntoView({ block: target.getBoundingClientRect().height > window.innerHeight * 0.6 ? 'start' : 'center' });
     if (!target.hasAttribute('tabindex') && !target.matches('button, a, input, select, textarea')) target.tabIndex = -1;
     target.focus({ preventScroll: true });
     target.classList.add('working-target');

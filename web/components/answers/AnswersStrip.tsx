@@ -43,7 +43,7 @@ export function openWorking(target: WorkingTarget): void {
   at.focus({ preventScroll: true });
 }
 
-/** One figure as a button that opens its working; `label` is read before it by a screen reader. */
+/** One figure as a button that opens its working; `label` (the figure's label beside it) is its tooltip's subject. */
 function Fig({ label, children, to, state, testId }: { label: string; children: ComponentChildren; to: WorkingTarget; state?: 'updating' | 'working'; testId?: string }) {
   return (
     <button
@@ -52,9 +52,8 @@ function Fig({ label, children, to, state, testId }: { label: string; children: 
       onClick={() => openWorking(to)}
       aria-busy={state ? 'true' : undefined}
       data-testid={testId}
-      title="Show the working"
+      title={`${label}: show the working`}
     >
-      <span class="visually-hidden">{label}: </span>
       {children}
       {state === 'updating' && <span class="visually-hidden"> (updating)</span>}
     </button>
@@ -73,6 +72,12 @@ function Line({ label, children, note, name, tone }: { label: string; children: 
 
 const WORKING = 'working…';
 
+/** A target runtime in short words: "24 h" for whole hours, else the duration as the panels write it. */
+function hoursWords(seconds: number, loc: string | undefined): string {
+  const h = seconds / 3600;
+  return Number.isInteger(h) ? `${formatSignificant(h, 6, loc)}${UNIT_GAP}h` : formatDuration(seconds, loc);
+}
+
 /** The bank's lines: runtime, the bank for the target, the current for its cable and fuse. */
 function BankLines({ quick, bank, state, loc }: { quick: SolveAnswers['banks'][number]; bank: BankStudyAnswer | undefined; state: 'current' | 'updating' | 'none'; loc: string | undefined }) {
   const shown = state === 'none' ? undefined : bank;
@@ -83,14 +88,14 @@ function BankLines({ quick, bank, state, loc }: { quick: SolveAnswers['banks'][n
   return (
     <>
       <Line label="Runtime" name="runtime" tone={shown?.meetsTarget === false ? 'warn' : undefined}
-        note={shown ? (target !== undefined ? (shown.meetsTarget ? `meets the ${formatDuration(target, loc)} target` : `short of the ${formatDuration(target, loc)} target`) : 'to the end of discharge') : undefined}>
+        note={shown ? (target !== undefined ? (shown.meetsTarget ? `meets the ${hoursWords(target, loc)} target` : `short of the ${hoursWords(target, loc)} target`) : 'to the end of discharge') : undefined}>
         <Fig label="Runtime" to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-runtime' }} state={figState} testId="answer-runtime">
           {runtime}
         </Fig>
       </Line>
       {shown?.sizedBank !== undefined && target !== undefined && (
-        <Line label={`Bank for ${formatDuration(target, loc)}`} name="sized-bank">
-          <Fig label={`Bank for ${formatDuration(target, loc)}`} to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-sizing-result' }} state={figState} testId="answer-sized-bank">
+        <Line label={`Bank for ${hoursWords(target, loc)}`} name="sized-bank">
+          <Fig label={`Bank for ${hoursWords(target, loc)}`} to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-sizing-result' }} state={figState} testId="answer-sized-bank">
             {formatSignificant(shown.sizedCapacityAh ?? 0, 4, loc)}{UNIT_GAP}Ah
           </Fig>
           <span class="answer__note"> {shown.sizedBank.replace(/ \(.*\)$/, '')}</span>
@@ -105,7 +110,7 @@ function BankLines({ quick, bank, state, loc }: { quick: SolveAnswers['banks'][n
         </Line>
       ) : (
         <Line label="Bank cable and fuse carry" name="bank-current"
-          note={shown ? `highest discharge current, at the end of discharge (${formatCurrent(quick.operatingCurrent, loc)} at full charge); no ×1.25 applied: give “${quick.cableName ?? 'the bank’s cable'}” a conductor sizing for the code’s design current` : undefined}>
+          note={shown ? `highest discharge current, at the end of discharge (${formatCurrent(quick.operatingCurrent, loc)} at full charge), before any ×1.25 the code asks` : undefined}>
           <Fig label="Bank cable and fuse carry" to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-peak-current' }} state={figState} testId="answer-bank-current">
             {shown ? formatCurrent(shown.peakCurrent, loc) : WORKING}
           </Fig>
