@@ -73,7 +73,7 @@ function Line({ label, children, note, name, tone }: { label: string; children: 
 const WORKING = 'working…';
 
 /** A target runtime in short words: "24 h" for whole hours, else the duration as the panels write it. */
-function hoursWords(seconds: number, loc: string | undefined): string {
+export function hoursWords(seconds: number, loc: string | undefined): string {
   const h = seconds / 3600;
   return Number.isInteger(h) ? `${formatSignificant(h, 6, loc)}${UNIT_GAP}h` : formatDuration(seconds, loc);
 }
