@@ -78,9 +78,10 @@ describe.skipIf(skipWithout('chromium'))('the answers strip in Chromium', () => 
           if (label === 'phone') {
             // The strip sits right under the project's name and, with the name, fits one phone screen.
             // (Where the project itself starts on a phone is the page layout's part: logged here.)
+            await page.evaluate('window.scrollTo(0, 0)');
             const box = (await strip.boundingBox())!;
             const heading = (await page.locator('#project-heading').boundingBox())!;
-            console.log(`${id} ${scheme} phone: project name at ${heading.y.toFixed(0)} px, strip ${box.y.toFixed(0)}–${(box.y + box.height).toFixed(0)} px (${box.height.toFixed(0)} px high)`);
+            console.log(`${id} ${scheme} phone: project name at ${heading.y.toFixed(0)} px of the page, strip ${box.y.toFixed(0)}–${(box.y + box.height).toFixed(0)} px (${box.height.toFixed(0)} px high)`);
             // The strip itself takes at most 60 % of the screen, leaving room for the name above it.
             expect(box.height).toBeLessThan(0.6 * viewport.height);
           }

@@ -22,7 +22,7 @@ import { formatCurrent, formatDuration, formatPercent, formatPower, formatSignif
 import { effectiveLocale } from '../../state/prefs.ts';
 import { openCount } from '../../state/editor.ts';
 import { entryState, moneyFormat, studyAnswers } from './study-answers.ts';
-import { hoursWords } from './AnswersStrip.tsx';
+import { hoursWords } from './AnswersLines.tsx';
 
 export interface ReportAnswersProps {
   solved: Solved;
