@@ -11,9 +11,10 @@
  * The bank's cable and fuse current: the design current of the conductor sizing of the cable that
  * leaves the bank (core/conductors/design-current.ts: the equipment on the bus at its ratings, or
  * the load at nominal voltage, × 1.25 where the rule says so) when that cable has a sizing;
- * otherwise the highest discharge current of the backup study (`peakCurrent`): for a
- * constant-power load the current rises as the bank's voltage falls, so it is highest at the end of
- * discharge, above the solve's operating current (taken at the charged bank's voltage). The
+ * otherwise the highest discharge current of the backup study (`peakCurrent`, the highest over the
+ * outage's steps): for a constant-power load the current rises as the bank's voltage falls, so it
+ * is highest toward the end of discharge, above the solve's operating current (taken at the charged
+ * bank's voltage). The
  * highest discharge current carries no continuous-load factor: the answer says so and names the
  * sizing that would apply one.
  */
@@ -33,7 +34,7 @@ export interface BankStudyAnswer {
   runtimeIsLowerBound: boolean;
   /** Why the discharge ended, in words. */
   endText: string;
-  /** Highest bank current over the outage, A (at the end of discharge for a constant-power load). */
+  /** Highest bank current over the outage, A (toward the end of discharge for a constant-power load). */
   peakCurrent: number;
   /** Lowest terminal voltage over the outage (the end-of-discharge voltage), V. */
   minVoltage: number;
@@ -100,7 +101,7 @@ export function studyAnswersFrom(
         : {
             amps: d.peakCurrent,
             basis: 'highest-discharge',
-            rule: 'the highest discharge current over the outage, at the lowest terminal voltage (a constant-power load draws the most current at the end of discharge); no continuous-load factor applied: give the bank’s cable a conductor sizing for the code’s design current',
+            rule: 'the highest discharge current over the outage (a constant-power load draws more current as the bank’s voltage falls, so it is highest toward the end of discharge); no continuous-load factor applied: give the bank’s cable a conductor sizing for the code’s design current',
             ...(bank?.cableId ? { cableId: bank.cableId } : {}),
           },
       ...(target !== undefined ? { targetSeconds: target * 3600, meetsTarget: d.runtimeIsLowerBound || d.runtimeSeconds >= target * 3600 } : {}),

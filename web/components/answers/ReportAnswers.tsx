@@ -78,8 +78,8 @@ export function ReportAnswers({ solved, answers, studies: given, locale }: Repor
                 </>
               ) : s ? (
                 <>
-                  Its cable and fuse must carry at least <strong>{formatCurrent(s.cableCurrent.amps, loc)}</strong>, the highest current the bank gives, at the end of
-                  discharge, before any allowance the local code asks for continuous use.
+                  Its cable and fuse must carry at least <strong>{formatCurrent(s.cableCurrent.amps, loc)}</strong>, the highest current the bank gives over the outage
+                  (it rises as the voltage falls), before any allowance the local code asks for continuous use.
                 </>
               ) : null}
             </li>
