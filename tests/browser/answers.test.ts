@@ -82,8 +82,10 @@ describe.skipIf(skipWithout('chromium'))('the answers strip in Chromium', () => 
             const box = (await strip.boundingBox())!;
             const heading = (await page.locator('#project-heading').boundingBox())!;
             console.log(`${id} ${scheme} phone: project name at ${heading.y.toFixed(0)} px of the page, strip ${box.y.toFixed(0)}–${(box.y + box.height).toFixed(0)} px (${box.height.toFixed(0)} px high)`);
-            // The strip itself takes at most 60 % of the screen, leaving room for the name above it.
+            // The strip itself takes at most 60 % of the screen, leaving room for the name above it, and
+            // scrolled to the project's name the whole strip is on that screen.
             expect(box.height).toBeLessThan(0.6 * viewport.height);
+            expect(box.y + box.height - heading.y).toBeLessThan(viewport.height);
           }
           expect(await seriousAxeViolations(page, `'[data-testid="answers"]'`)).toEqual([]);
           expect(errors).toEqual([]);
@@ -108,6 +110,8 @@ describe.skipIf(skipWithout('chromium'))('the answers strip in Chromium', () => 
       // The bank's card carries its runtime and cable current (from the same study answers).
       const card = page.locator('[data-testid="stage-card"][data-card-id="bank"] [data-testid="stage-card-figure"]');
       await expect.poll(async () => plain(await card.textContent())).toContain(shown);
+      await page.locator('[data-testid="stage-card"][data-card-id="bank"]').scrollIntoViewIfNeeded();
+      await page.locator('#chain-cards').screenshot({ path: join(artifacts, 'answers-cards-hillside-phone.png') });
       // The bank current answer opens the peak current the study gives (the bank's cable has no sizing).
       await page.getByTestId('answer-bank-current').click();
       await expect.poll(() => inView(page, page.getByTestId('battery-peak-current'))).toBe(true);

@@ -37,10 +37,23 @@ export function needsStudies(solved: Solved, cost: CostSettings | null): boolean
 let ticket = 0;
 /** The last solved pair asked about (a second ask for the same pair and cost sends nothing). */
 let asked: { solved: Solved; price: number | null; hours: number } | null = null;
+/** True while a request is with the worker; a newer ask then waits (only the latest) instead of queueing. */
+let inFlight = false;
+let waitingAsk: (() => void) | null = null;
+/**
+ * Quick edits in a row (typing) ask once they pause: an ask within BURST_MS of the previous one waits
+ * PAUSE_MS for a newer one, so the worker's studies (the battery study solves the chain at every step)
+ * do not take the machine's cores from the page while the user types. An ask after a pause goes at once.
+ */
+const BURST_MS = 400;
+const PAUSE_MS = 250;
+let lastAskAt = -Infinity;
+let pauseTimer: ReturnType<typeof setTimeout> | undefined;
 
 /**
  * Ask the worker for the study answers of `solved`; the reply is kept only if no newer request was
- * made meanwhile. Without anything to study, the entry is set at once (empty answers).
+ * made meanwhile. While one request is with the worker, only the latest newer one waits for it (quick
+ * edits do not queue a study each). Without anything to study, the entry is set at once.
  */
 export function requestStudyAnswers(solved: Solved, open: number, cost: CostSettings | null): void {
   const price = cost?.pricePerKWh ?? null;
@@ -49,20 +62,43 @@ export function requestStudyAnswers(solved: Solved, open: number, cost: CostSett
   asked = { solved, price, hours };
   const mine = ++ticket;
   if (!needsStudies(solved, cost)) {
+    waitingAsk = null;
+    if (pauseTimer !== undefined) clearTimeout(pauseTimer);
+    pauseTimer = undefined;
     studyAnswers.value = { solved, open, outcome: { ok: true, answers: { banks: [], starts: [], cost: { ok: false, reason: 'no energy price given', panel: 'machines' } } }, ms: 0 };
     return;
   }
-  void askPanelWorker({ kind: 'answers', solved, cost }).then(async (reply) => {
-    if (mine !== ticket) return;
-    if (reply.kind === 'answers' && reply.outcome.ok && reply.outcome.answers.cost.ok && !moneyFormat.value) {
-      const m = await import('../../format/panels.ts');
-      moneyFormat.value = m.formatMoney;
+  const send = () => {
+    inFlight = true;
+    void askPanelWorker({ kind: 'answers', solved, cost }).then(async (reply) => {
+      inFlight = false;
+      const next = waitingAsk;
+      waitingAsk = null;
+      next?.();
       if (mine !== ticket) return;
-    }
-    const outcome: StudyAnswersEntry['outcome'] =
-      reply.kind === 'answers' ? reply.outcome : reply.kind === 'crash' ? { ok: false, crash: reply.message } : { ok: false, crash: 'unexpected reply' };
-    studyAnswers.value = { solved, open, outcome, ms: reply.ms };
-  });
+      if (reply.kind === 'answers' && reply.outcome.ok && reply.outcome.answers.cost.ok && !moneyFormat.value) {
+        const m = await import('../../format/panels.ts');
+        moneyFormat.value = m.formatMoney;
+        if (mine !== ticket) return;
+      }
+      const outcome: StudyAnswersEntry['outcome'] =
+        reply.kind === 'answers' ? reply.outcome : reply.kind === 'crash' ? { ok: false, crash: reply.message } : { ok: false, crash: 'unexpected reply' };
+      studyAnswers.value = { solved, open, outcome, ms: reply.ms };
+    });
+  };
+  const go = () => {
+    pauseTimer = undefined;
+    if (inFlight) waitingAsk = send;
+    else send();
+  };
+  const now = performance.now();
+  const inBurst = now - lastAskAt < BURST_MS;
+  lastAskAt = now;
+  if (pauseTimer !== undefined) clearTimeout(pauseTimer);
+  // An older ask waiting for the worker is dropped: this one replaces it.
+  waitingAsk = null;
+  if (inBurst) pauseTimer = setTimeout(go, PAUSE_MS);
+  else go();
 }
 
 /** How an entry stands for the pair on screen: current, updating (older state of this project) or none. */
