@@ -18,7 +18,7 @@ import { formatCurrent, formatDuration, formatPower, formatSignificant, UNIT_GAP
 import { effectiveLocale, energyPrice, operatingHours } from '../../state/prefs.ts';
 import { openCount } from '../../state/editor.ts';
 import { Fig, type WorkingTarget } from './fig.tsx';
-import { entryState, moneyFormat, requestStudyAnswers, studyAnswers } from './study-answers.ts';
+import { entryState, moneyFormat, needsStudies, NO_STUDIES, requestStudyAnswers, studyAnswers } from './study-answers.ts';
 
 /** A line of the strip: a label, its figure(s) and a short note. */
 function Line({ label, children, note, name, tone }: { label: string; children: ComponentChildren; note?: ComponentChildren; name: string; tone?: 'warn' }) {
@@ -92,12 +92,14 @@ export function AnswersLines({ solved, part }: { solved: Solved; part: 'first' |
   const price = energyPrice.value;
   const hours = operatingHours.value;
   // After the paint: ask the worker for the study answers of the pair on screen (once, from the first part).
+  const cost = price !== null ? { pricePerKWh: price, hoursPerYear: hours } : null;
   useEffect(() => {
-    if (part === 'first') requestStudyAnswers(solved, open, price !== null ? { pricePerKWh: price, hoursPerYear: hours } : null);
+    if (part === 'first') requestStudyAnswers(solved, open, cost);
   }, [part, solved, open, price, hours]);
-  const entry = studyAnswers.value;
-  const state = entryState(entry, solved, open);
-  const studies: StudyAnswers | undefined = state !== 'none' && entry?.outcome.ok ? entry.outcome.answers : undefined;
+  const nothingToStudy = !needsStudies(solved, cost);
+  const entry = nothingToStudy ? null : studyAnswers.value;
+  const state = nothingToStudy ? 'current' : entryState(entry, solved, open);
+  const studies: StudyAnswers | undefined = nothingToStudy ? NO_STUDIES : state !== 'none' && entry?.outcome.ok ? entry.outcome.answers : undefined;
   const figState = state === 'updating' ? 'updating' : studies ? undefined : 'working';
   if (part === 'first') {
     if (a.banks.length === 0) return null;
@@ -111,7 +113,7 @@ export function AnswersLines({ solved, part }: { solved: Solved; part: 'first' |
   }
   const l = a.losses;
   const money = moneyFormat.value;
-  const cost = studies?.cost;
+  const costAnswer = studies?.cost;
   const firstWarning = a.warnings[0];
   return (
     <ul class="answers__list">
@@ -123,10 +125,10 @@ export function AnswersLines({ solved, part }: { solved: Solved; part: 'first' |
       <Line
         label="Losses cost"
         name="loss-cost"
-        note={cost?.ok ? `a year at ${formatSignificant(cost.hoursPerYear, 4, loc)} h` : cost ? (cost.reason === 'no energy price given' ? 'give an energy price' : cost.reason) : undefined}
+        note={costAnswer?.ok ? `a year at ${formatSignificant(costAnswer.hoursPerYear, 4, loc)} h` : costAnswer ? (costAnswer.reason === 'no energy price given' ? 'give an energy price' : costAnswer.reason) : undefined}
       >
-        <Fig label="Losses cost" to={{ panel: 'machines', figure: 'loss-cost' }} state={cost ? figState : 'working'} testId="answer-loss-cost">
-          {cost?.ok ? (money ? money(cost.cost, loc) : formatSignificant(cost.cost, 4, loc)) : cost ? 'no price' : WORKING}
+        <Fig label="Losses cost" to={{ panel: 'machines', figure: 'loss-cost' }} state={costAnswer ? figState : 'working'} testId="answer-loss-cost">
+          {costAnswer?.ok ? (money ? money(costAnswer.cost, loc) : formatSignificant(costAnswer.cost, 4, loc)) : costAnswer ? 'no price' : WORKING}
         </Fig>
       </Line>
       {a.cables.map((c) => (

@@ -19,9 +19,9 @@
 import { DESIGN_BASIS_WORDS, solveAnswers, type Solved, type SolveAnswers } from '../../../core/page.ts';
 import type { StudyAnswers } from '../../../core/studies/index.ts';
 import { formatCurrent, formatDuration, formatPercent, formatPower, formatSignificant, UNIT_GAP } from '../../format/number.ts';
-import { effectiveLocale } from '../../state/prefs.ts';
+import { effectiveLocale, energyPrice, operatingHours } from '../../state/prefs.ts';
 import { openCount } from '../../state/editor.ts';
-import { entryState, moneyFormat, studyAnswers } from './study-answers.ts';
+import { entryState, moneyFormat, needsStudies, NO_STUDIES, studyAnswers } from './study-answers.ts';
 import { hoursWords } from './AnswersLines.tsx';
 
 export interface ReportAnswersProps {
@@ -36,8 +36,10 @@ const LATER = 'being calculated';
 export function ReportAnswers({ solved, answers, studies: given, locale }: ReportAnswersProps) {
   const a = answers ?? solveAnswers(solved);
   const loc = locale ?? effectiveLocale();
+  const price = energyPrice.value;
+  const nothingToStudy = given === undefined && !needsStudies(solved, price !== null ? { pricePerKWh: price, hoursPerYear: operatingHours.value } : null);
   const entry = studyAnswers.value;
-  const fromStrip = entryState(entry, solved, openCount.value) === 'current' && entry?.outcome.ok ? entry.outcome.answers : undefined;
+  const fromStrip = nothingToStudy ? NO_STUDIES : entryState(entry, solved, openCount.value) === 'current' && entry?.outcome.ok ? entry.outcome.answers : undefined;
   const studies = given === undefined ? fromStrip : given ?? undefined;
   const l = a.losses;
   const money = moneyFormat.value;

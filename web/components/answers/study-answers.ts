@@ -23,6 +23,9 @@ export interface StudyAnswersEntry {
 
 export const studyAnswers = signal<StudyAnswersEntry | null>(null);
 
+/** The study answers of a project with nothing to study (no bank with a study, no motor, no price). */
+export const NO_STUDIES: StudyAnswers = { banks: [], starts: [], cost: { ok: false, reason: 'no energy price given', panel: 'machines' } };
+
 /** Money in the locale's currency (web/format/panels.ts, loaded with the first cost answer). */
 export const moneyFormat = signal<((amount: number, locale?: string) => string) | null>(null);
 
@@ -53,7 +56,7 @@ let pauseTimer: ReturnType<typeof setTimeout> | undefined;
 /**
  * Ask the worker for the study answers of `solved`; the reply is kept only if no newer request was
  * made meanwhile. While one request is with the worker, only the latest newer one waits for it (quick
- * edits do not queue a study each). Without anything to study, the entry is set at once.
+ * edits do not queue a study each). Without anything to study nothing is sent: readers use NO_STUDIES.
  */
 export function requestStudyAnswers(solved: Solved, open: number, cost: CostSettings | null): void {
   const price = cost?.pricePerKWh ?? null;
@@ -65,7 +68,7 @@ export function requestStudyAnswers(solved: Solved, open: number, cost: CostSett
     waitingAsk = null;
     if (pauseTimer !== undefined) clearTimeout(pauseTimer);
     pauseTimer = undefined;
-    studyAnswers.value = { solved, open, outcome: { ok: true, answers: { banks: [], starts: [], cost: { ok: false, reason: 'no energy price given', panel: 'machines' } } }, ms: 0 };
+    // Nothing to study: readers take NO_STUDIES for this pair themselves (no write, no second render).
     return;
   }
   const send = () => {
