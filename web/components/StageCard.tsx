@@ -6,8 +6,8 @@
  */
 import { memo } from 'preact/compat';
 import type { ElementResult } from '../../core/page.ts';
-import { lastSolved, openCount } from '../state/editor.ts';
-import { entryState, studyAnswers } from './answers/study-answers.ts';
+import { openCount } from '../state/editor.ts';
+import { studyAnswers } from './answers/study-answers.ts';
 import type { FeedingPort } from '../editor/templates.ts';
 import { elementKindLabel, portKindLabel } from '../format/labels.ts';
 import { formatApparent, formatCurrent, formatDuration, formatFrequency, formatPercent, formatPower, formatVoltage } from '../format/number.ts';
@@ -187,15 +187,14 @@ export function keyResult(r: ElementResult, units: UnitSystem, locale: string | 
 }
 
 /**
- * A bank's runtime or a motor's start verdict on its card, from the study answers of the pair on
- * screen (the panel worker's, after the paint: study-answers.ts). Only these cards read the answers,
- * so their arrival renders them alone.
+ * A bank's runtime or a motor's start verdict on its card, from the latest study answers of the open
+ * project (the panel worker's, after the paint: study-answers.ts; never another project's). Only these
+ * cards read the answers, so their arrival renders them alone; an edit does not (the card keeps the
+ * last figure until the next answers arrive; the answers strip marks them as updating meanwhile).
  */
 function CardStudyFigure({ id, kind, locale }: { id: string; kind: string; locale: string | undefined }) {
   const entry = studyAnswers.value;
-  const solved = lastSolved.value;
-  const state = solved ? entryState(entry, solved, openCount.value) : 'none';
-  const answers = state !== 'none' && entry?.outcome.ok ? entry.outcome.answers : undefined;
+  const answers = entry && entry.open === openCount.value && entry.outcome.ok ? entry.outcome.answers : undefined;
   let text: string | undefined;
   if (kind === 'battery') {
     const b = answers?.banks.find((x) => x.elementId === id);
@@ -208,7 +207,6 @@ function CardStudyFigure({ id, kind, locale }: { id: string; kind: string; local
   return (
     <span class="stage-card__figure" data-testid="stage-card-figure">
       {text}
-      {state === 'updating' && <span class="visually-hidden"> (updating)</span>}
     </span>
   );
 }
