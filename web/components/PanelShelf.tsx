@@ -16,6 +16,32 @@ const ConductorPanel = lazy(() => import('./ConductorPanel.tsx'));
 const MachinesPanel = lazy(() => import('./MachinesPanel.tsx'));
 const StartingPanel = lazy(() => import('./StartingPanel.tsx'));
 /**
+ * Brings the asked-for figure (its `data-testid`) or the element's row (`data-element-id`) of an opened
+ * panel into view, marks it and gives it the focus. The panel loads lazily and its study may come from
+ * the worker, so the target is looked for on each frame for a few seconds. Returns the cancel.
+ */
+function pointAt(box: HTMLElement, figure: string | undefined, elementId: string | undefined): () => void {
+  const selector = figure !== undefined ? `[data-testid="${CSS.escape(figure)}"]` : `[data-element-id="${CSS.escape(elementId!)}"]`;
+  const until = performance.now() + 5000;
+  let frame = 0;
+  const look = () => {
+    const target = box.querySelector<HTMLElement>(selector);
+    if (!target) {
+      if (performance.now() < until) frame = requestAnimationFrame(look);
+      return;
+    }
+    // A tall target (a cable's whole working) from its top; a figure in the middle of the screen.
+    target.scrollIntoView({ block: target.getBoundingClientRect().height > window.innerHeight * 0.6 ? 'start' : 'center' });
+    if (!target.hasAttribute('tabindex') && !target.matches('button, a, input, select, textarea')) target.tabIndex = -1;
+    target.focus({ preventScroll: true });
+    target.classList.add('working-target');
+    target.addEventListener('blur', () => target.classList.remove('working-target'), { once: true });
+  };
+  frame = requestAnimationFrame(look);
+  return () => cancelAnimationFrame(frame);
+}
+
+/**
  * A disclosure whose content (a lazily loaded panel) is rendered only while it is open. It opens,
  * scrolls into view and takes the focus when a figure elsewhere asks for its working (`showWorking`).
  */
@@ -30,6 +56,8 @@ export function PanelDisclosure({ id, title, hint, children }: { id: string; tit
     setOpen(true);
     box.scrollIntoView({ block: 'start' });
     box.querySelector<HTMLElement>('summary')?.focus({ preventScroll: true });
+    if (request.elementId === undefined && request.figure === undefined) return;
+    return pointAt(box, request.figure, request.elementId);
   }, [request, id]);
   return (
     <details ref={ref} class="panel" data-testid={`panel-${id}`} onToggle={(e) => setOpen((e.currentTarget as HTMLDetailsElement).open)}>

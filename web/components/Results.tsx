@@ -87,38 +87,14 @@ const ElementRow = memo(function ElementRow({ elementId, name, kind, depth, cell
   );
 }, sameElementRow);
 
-export const EnergyBalance = lagOffscreen(function EnergyBalance({ result, box }: { result: SolveResult } & Box) {
-  const t = result.totals;
-  const loc = effectiveLocale();
-  const formatPower = (w: number) => formatPowerIn(w, loc);
-  return (
-    <section class="balance" aria-labelledby="balance-heading" data-testid="energy-balance" ref={box}>
-      <h3 id="balance-heading" class="visually-hidden">Energy balance</h3>
-      <dl class="balance__figures">
-        <div>
-          <dt>Source delivers</dt>
-          <dd>{formatPower(t.sourcePower)}</dd>
-        </div>
-        <div>
-          <dt>Loads use</dt>
-          <dd>{formatPower(t.loadPower)}</dd>
-        </div>
-        <div>
-          <dt>Losses</dt>
-          <dd>{formatPower(t.losses)}</dd>
-        </div>
-        <div>
-          <dt>Chain efficiency</dt>
-          <dd data-testid="chain-efficiency">{formatPercent(t.efficiency, loc)}</dd>
-        </div>
-      </dl>
-      <p class="balance__line" data-testid="balance-line">
-        Energy balance: source {formatPower(t.sourcePower)} = loads {formatPower(t.loadPower)} + losses{' '}
-        {formatPower(t.losses)}; mismatch {formatSmallPercent(t.balanceError, loc)}.
-      </p>
-    </section>
-  );
-});
+/**
+ * The energy balance is folded into the answers strip (web/components/answers/AnswersStrip.tsx: source,
+ * loads, losses, efficiency and the balance line "source = loads + losses; mismatch"). Kept as an empty
+ * part until its mount in App.tsx is removed.
+ */
+export function EnergyBalance(_props: { result: SolveResult }) {
+  return null;
+}
 
 export const ElementTable = lagOffscreen(function ElementTable({ result, box }: { result: SolveResult } & Box) {
   const depth = depths(result.elements);

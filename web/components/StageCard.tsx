@@ -6,9 +6,11 @@
  */
 import { memo } from 'preact/compat';
 import type { ElementResult } from '../../core/page.ts';
+import { openCount } from '../state/editor.ts';
+import { studyAnswers } from './answers/study-answers.ts';
 import type { FeedingPort } from '../editor/templates.ts';
 import { elementKindLabel, portKindLabel } from '../format/labels.ts';
-import { formatApparent, formatCurrent, formatFrequency, formatPercent, formatPower, formatVoltage } from '../format/number.ts';
+import { formatApparent, formatCurrent, formatDuration, formatFrequency, formatPercent, formatPower, formatVoltage } from '../format/number.ts';
 import { formatLength, formatShaftPower, type UnitSystem } from '../format/units.ts';
 import type { DraftElement } from '../state/editor.ts';
 
@@ -108,7 +110,7 @@ export function keyInputs(e: DraftElement, input: FeedingPort | undefined, units
     case 'cable': {
       const length = num(e['length']);
       const conductor = rec(e['conductor']);
-      const size = conductor ? (conductor['size'] === 'auto' ? 'size chosen' : String(conductor['size'] ?? '')) : undefined;
+      const size = conductor ? (conductor['size'] === 'auto' ? 'size by the code' : String(conductor['size'] ?? '')) : undefined;
       const r = num(e['resistancePerKm']);
       lines.push([length !== undefined ? formatLength(length, units, locale) : undefined, size ?? (r !== undefined ? `${r} Ω/km` : undefined)].filter(Boolean).join(', '));
       break;
@@ -162,13 +164,51 @@ function resultLine(r: ElementResult, units: UnitSystem, locale: string | undefi
   return text;
 }
 
-/** The key result of a solved element in one line: what it delivers or uses, and its loss. */
+/** Kinds whose card shows the efficiency at this load (they convert; cables and buses only lose). */
+const CONVERTERS: ReadonlySet<string> = new Set(['inverter', 'rectifier', 'dc-dc', 'generic', 'drive', 'transformer']);
+
+/**
+ * The key result of a solved element in one line: what it delivers or uses, and its key figure: a
+ * sized cable its size, device and drop; a converter its efficiency at this load; a bank its current
+ * (the solve's, at the charged bank's voltage); other stages their loss.
+ */
 export function keyResult(r: ElementResult, units: UnitSystem, locale: string | undefined): string {
   const power = (w: number, shaft: boolean) => (shaft ? formatShaftPower(w, units, locale) : formatPower(w, locale));
   if (r.role === 'load') return `uses ${power(r.pOut, r.input?.kind === 'shaft')}`;
   const out = power(r.pOut, r.output?.kind === 'shaft');
-  if (r.role === 'source') return `delivers ${out}`;
+  if (r.role === 'source') return r.kind === 'battery' && r.output ? `delivers ${out} · ${formatCurrent(r.output.current, locale)}` : `delivers ${out}`;
+  const c = r.conductor;
+  if (c) {
+    const device = c.device.rating !== undefined ? ` · ${formatCurrent(c.device.rating, locale)} device` : '';
+    return `${c.parallelSets > 1 ? `${c.parallelSets} × ` : ''}${c.size}${device} · ${formatPercent(c.drop.checkPercent / 100, locale, 2)} drop`;
+  }
+  if (CONVERTERS.has(r.kind)) return `out ${out} · η ${formatPercent(r.efficiency, locale, 3)}`;
   return `out ${out} · loss ${formatPower(r.loss, locale)}`;
+}
+
+/**
+ * A bank's runtime or a motor's start verdict on its card, from the latest study answers of the open
+ * project (the panel worker's, after the paint: study-answers.ts; never another project's). Only these
+ * cards read the answers, so their arrival renders them alone; an edit does not (the card keeps the
+ * last figure until the next answers arrive; the answers strip marks them as updating meanwhile).
+ */
+function CardStudyFigure({ id, kind, locale }: { id: string; kind: string; locale: string | undefined }) {
+  const entry = studyAnswers.value;
+  const answers = entry && entry.open === openCount.value && entry.outcome.ok ? entry.outcome.answers : undefined;
+  let text: string | undefined;
+  if (kind === 'battery') {
+    const b = answers?.banks.find((x) => x.elementId === id);
+    if (b) text = `runtime ${b.runtimeIsLowerBound ? 'over ' : ''}${formatDuration(b.runtimeSeconds, locale)} · cable ${formatCurrent(b.cableCurrent.amps, locale)}`;
+  } else {
+    const s = answers?.starts.find((x) => x.elementId === id);
+    if (s) text = s.verdict === 'starts' ? 'starts' : s.verdict === 'marginal' ? 'start is marginal' : 'will not start';
+  }
+  if (!text) return null;
+  return (
+    <span class="stage-card__figure" data-testid="stage-card-figure">
+      {text}
+    </span>
+  );
 }
 
 export interface StageCardProps {
@@ -242,6 +282,7 @@ export const StageCard = memo(function StageCard(props: StageCardProps) {
           {props.stale && <span class="visually-hidden"> (out of date)</span>}
         </span>
       )}
+      {result && (e.kind === 'battery' || e.kind === 'motor') && <CardStudyFigure id={e.id} kind={e.kind} locale={props.locale} />}
       {problems > 0 && (
         <span class="stage-card__problem" data-testid="stage-card-problem">
           <svg viewBox="0 0 16 16" width="14" height="14" aria-hidden="true" focusable="false">

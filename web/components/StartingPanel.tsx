@@ -30,7 +30,7 @@ function checkLimit(c: StartCheck, locale: string | undefined): string {
 
 function MotorStart({ s, locale }: { s: MotorStartResult; locale: string | undefined }) {
   return (
-    <article class="starting-motor" data-testid={`start-${s.motorId}`} data-verdict={s.verdict}>
+    <article class="starting-motor" data-testid={`start-${s.motorId}`} data-element-id={s.motorId} data-verdict={s.verdict}>
       <h4>
         {s.name}: <strong>{VERDICT[s.verdict]}</strong>
       </h4>

@@ -13,13 +13,20 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, pumpDutyCosts, rechargeCautions, runBackupStudy } from '../../core/studies/index.ts';
+import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, pumpDutyCosts, rechargeCautions, runBackupStudy, type StudyAnswers } from '../../core/studies/index.ts';
 import { elementNames, nonFiniteProblems, type Problem, type Solved } from '../../core/page.ts';
 
 export type PanelRequest =
   | { kind: 'battery'; solved: Solved }
   | { kind: 'machines'; solved: Solved; cost: CostSettings | null }
-  | { kind: 'pfc'; solved: Solved; at: string; targetPowerFactor: number };
+  | { kind: 'pfc'; solved: Solved; at: string; targetPowerFactor: number }
+  /** The answers strip's study figures (runtime, bank for the target, start verdicts, cost of losses). */
+  | { kind: 'answers'; solved: Solved; cost: CostSettings | null };
+
+export interface AnswersReply {
+  kind: 'answers';
+  outcome: { ok: true; answers: StudyAnswers } | { ok: false; problems: Problem[] };
+}
 
 export interface BatteryReply {
   kind: 'battery';
@@ -47,7 +54,7 @@ export interface PfcReply {
   outcome: { ok: true; correction: PfCorrectionShown } | { ok: false; problems: Problem[] };
 }
 
-export type PanelReply = (BatteryReply | MachinesReply | PfcReply | { kind: 'crash'; message: string }) & {
+export type PanelReply = (BatteryReply | MachinesReply | PfcReply | AnswersReply | { kind: 'crash'; message: string }) & {
   /** Time the work took in the worker, ms. */
   ms: number;
 };
@@ -97,6 +104,13 @@ function pfc(solved: Solved, at: string, targetPowerFactor: number): PfcReply {
   return { kind: 'pfc', outcome: { ok: true, correction: shown } };
 }
 
+function answers(solved: Solved, cost: CostSettings | null): AnswersReply {
+  const a = answerStudies(solved, cost);
+  const notFinite = nonFiniteProblems('The answers', a, elementNames(solved.project));
+  if (notFinite.length) return { kind: 'answers', outcome: { ok: false, problems: notFinite } };
+  return { kind: 'answers', outcome: { ok: true, answers: a } };
+}
+
 /** The worker's side of the messages (typed here so the page's tsconfig needs no worker library). */
 const scope = globalThis as unknown as {
   onmessage: ((event: { data: { id: number; request: PanelRequest } }) => void) | null;
@@ -106,7 +120,7 @@ const scope = globalThis as unknown as {
 scope.onmessage = (event) => {
   const { id, request } = event.data;
   const t0 = performance.now();
-  let reply: BatteryReply | MachinesReply | PfcReply | { kind: 'crash'; message: string };
+  let reply: BatteryReply | MachinesReply | PfcReply | AnswersReply | { kind: 'crash'; message: string };
   try {
     switch (request.kind) {
       case 'battery':
@@ -117,6 +131,9 @@ scope.onmessage = (event) => {
         break;
       case 'pfc':
         reply = pfc(request.solved, request.at, request.targetPowerFactor);
+        break;
+      case 'answers':
+        reply = answers(request.solved, request.cost);
         break;
     }
   } catch (error) {

@@ -138,8 +138,8 @@ export function StudyFigures({ study, cautions, locale, units }: { study: Backup
             <dd data-testid="battery-end-soc">{formatPercent(d.endSoc, locale, 3)}</dd>
           </div>
           <div>
-            <dt>Peak current</dt>
-            <dd>
+            <dt>Highest current over the outage (the bank’s cable and fuse carry at least this)</dt>
+            <dd data-testid="battery-peak-current">
               {formatCurrent(d.peakCurrent, locale)} <span class="cell-note">limit {formatCurrent(b.maxDischargeCurrent, locale)}</span>
             </dd>
           </div>
