@@ -9,7 +9,7 @@ import { ProjectList } from './ProjectList.tsx';
 import { SaveLine, StorageAlerts, StorageDetails } from './StorageStatus.tsx';
 import { SettingsMenu } from './Preferences.tsx';
 import { ProblemList } from './ProblemList.tsx';
-import { CableTable, ElementTable, EnergyBalance, MethodNote, PortTable, WarningList } from './Results.tsx';
+import { CableTable, ElementTable, MethodNote, PortTable, WarningList } from './Results.tsx';
 import { PanelDisclosure, PanelShelf } from './PanelShelf.tsx';
 import { AnswersStrip } from './answers/AnswersStrip.tsx';
 import { lazy, memo, Suspense } from 'preact/compat';
@@ -103,7 +103,7 @@ function ShownProject() {
         {description && <ProjectSummary key={openCount.value} text={description} />}
       </header>
       {shared && <Suspense fallback={null}><SharedBanner /></Suspense>}
-      {result && <AnswersStrip result={result} stale={stale} />}
+      {result && <AnswersStrip result={result} stale={stale} solved={solved!} />}
       {!result && !engine.value && !engineFailure.value && (
         <p class="note" role="status" data-testid="engine-loading">Working out the figures…</p>
       )}
@@ -120,7 +120,6 @@ function ShownProject() {
       {result && (
         <div class={stale ? 'results results--stale' : 'results'} data-testid="results" data-state={resultsState.value}>
           <StaleNotice />
-          <EnergyBalance result={result} />
           <Suspense fallback={null}><ClientReport solved={solved!} stale={stale} /></Suspense>
           <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={result} /></Suspense>
           <WarningList result={result} />

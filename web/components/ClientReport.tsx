@@ -11,7 +11,7 @@
  * solver's vocabulary stays on the engineer's page. Every page carries "page n of m", the project
  * and the date in its margin (CSS paged media, @page margin boxes).
  *
- * Every figure comes from core (the solve result, flowGraph's loss summary, the engine's cautions);
+ * Every figure comes from core (the solve result, the answers of core/solve/answers.ts, the engine's cautions);
  * the page only formats. The date is the page's (core has no clock).
  *
  * It prints one solved pair (web/state/solution.ts `lastSolved`): the result and the project it came
@@ -20,28 +20,18 @@
  * an engineer printing mid-edit expects: the last consistent design, plainly marked, rather than
  * nothing); with no valid pair yet the page shows no results and so no report.
  */
+import { ReportAnswers } from './answers/ReportAnswers.tsx';
 import { memo } from 'preact/compat';
 import { useEffect, useMemo, useState } from 'preact/hooks';
-import { bankCautions, flowGraph } from '../../core/studies/index.ts';
+import { bankCautions } from '../../core/studies/index.ts';
 import { type BatterySource, type Chemistry, CONDUCTOR_CAUTION, type ElementResult, type Project, type Solved, type SolveResult } from '../../core/page.ts';
-import { formatCurrent, formatDuration, formatPercent, formatPower, formatSmallPercent, formatVoltage } from '../format/number.ts';
-import { formatConductorSize } from '../format/units.ts';
+import { formatCurrent, formatPower, formatSmallPercent, formatVoltage } from '../format/number.ts';
 import { elementKindLabel } from '../format/labels.ts';
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { catchUpNow, useOffscreenLag, type BoxRef } from './lag.ts';
 import type { DraftProject } from '../state/draft.ts';
 import { ReportQr } from './report/ReportQr.tsx';
 import { ShareLink } from './report/ShareLink.tsx';
-
-/**
- * Battery runtime for the report. The hook for the battery panel: pass the runtime study's
- * discharge (core's DischargeResult has these fields) as `battery` and the figure is printed.
- */
-export interface ReportBattery {
-  runtimeSeconds: number;
-  runtimeIsLowerBound: boolean;
-  endText: string;
-}
 
 /** The caution every report carries (results are planning estimates). */
 export const REPORT_CAUTION =
@@ -73,7 +63,6 @@ function useDate(): Date {
 /** What the printed report shows: the result and the few inputs it reads besides. */
 interface ReportInputs {
   result: SolveResult;
-  battery: ReportBattery | undefined;
   stale: boolean;
   /** The project asks for a backup runtime. */
   backup: boolean;
@@ -83,6 +72,8 @@ interface ReportInputs {
   units: 'si' | 'us';
   /** The solved pair's project: its client, site, prepared-by and description lines, and the share link. */
   project: Project;
+  /** The same pair whole, for the answers (ReportAnswers.tsx). */
+  solved: Solved;
 }
 
 /** A CSS string literal (CSS Syntax 3, 4.3.5): quotes and backslashes escaped, line breaks as escapes. */
@@ -96,7 +87,7 @@ function cssString(text: string): string {
  * and the diagram on screen are painted first. Before printing (beforeprint, or the print media
  * query turning on) it is brought up to date at once.
  */
-export default function ClientReport({ solved, stale, battery }: { solved: Solved; stale: boolean; battery?: ReportBattery }) {
+export default function ClientReport({ solved, stale }: { solved: Solved; stale: boolean }) {
   // The inputs the report reads besides the result come from the project the result came from.
   const { project, result } = solved;
   const backup = Boolean(project.backup);
@@ -104,8 +95,8 @@ export default function ClientReport({ solved, stale, battery }: { solved: Solve
   const locale = effectiveLocale();
   const units = unitSystem.value;
   const latest = useMemo<ReportInputs>(
-    () => ({ result, battery, stale, backup, chemistry, locale, units, project }),
-    [result, battery, stale, backup, chemistry, locale, units, project],
+    () => ({ result, stale, backup, chemistry, locale, units, project, solved }),
+    [result, stale, backup, chemistry, locale, units, project, solved],
   );
   // Hidden on screen, so it always lags (and shows another project at once).
   const { box, shown } = useOffscreenLag(latest);
@@ -128,22 +119,18 @@ export default function ClientReport({ solved, stale, battery }: { solved: Solve
 /** The report itself; re-rendered only when what it shows has changed. */
 const ReportBody = memo(function ReportBody({
   result,
-  battery,
   stale,
   backup,
   chemistry,
   locale: loc,
   units,
   project,
+  solved,
   box,
 }: ReportInputs & { box: BoxRef }) {
-  const graph = useMemo(() => flowGraph(result), [result]);
   const now = useDate();
   const t = result.totals;
-  const ls = graph.losses;
-  const pct = (p: number) => formatPercent(p / 100, loc, 3);
   const depth = depths(result.elements);
-  const cables = result.elements.filter((e) => e.kind === 'cable');
   const cautions = [
     REPORT_CAUTION,
     ...(result.elements.some((e) => e.conductor) ? [CONDUCTOR_CAUTION] : []),
@@ -186,69 +173,8 @@ const ReportBody = memo(function ReportBody({
             Out of date: the inputs hold an error, so these are the last valid results, not those of the inputs as they stand.
           </p>
         )}
-        {/* The answers first. Placeholder until web/components/answers/ReportAnswers.tsx takes this place (same test id). */}
-        <section class="report__answers" aria-label="The answers" data-testid="report-answers">
-          <h2>The answers</h2>
-          <dl class="report__figures" data-testid="report-figures">
-            <dt>Source delivers</dt>
-            <dd>{formatPower(t.sourcePower, loc)}</dd>
-            <dt>Delivered to the loads</dt>
-            <dd>
-              {formatPower(t.loadPower, loc)} ({formatPercent(t.efficiency, loc)} chain efficiency)
-            </dd>
-            <dt>Losses</dt>
-            <dd>
-              {formatPower(ls.total.watts, loc)} · {pct(ls.total.percent)} of the source power
-            </dd>
-            <dt>of which idle</dt>
-            <dd>
-              {formatPower(ls.idle.watts, loc)} · {pct(ls.idle.percent)} (drawn even with no load)
-            </dd>
-            <dt>of which conversion</dt>
-            <dd>
-              {formatPower(ls.conversion.watts, loc)} · {pct(ls.conversion.percent)} (grows with the load)
-            </dd>
-            {ls.largest && (
-              <>
-                <dt>Largest loss</dt>
-                <dd data-testid="report-largest">
-                  {ls.largest.name}: {formatPower(ls.largest.watts, loc)} · {pct(ls.largest.percent)}
-                  {ls.largest.idleWatts > 0 ? ` (${formatPower(ls.largest.idleWatts, loc)} idle)` : ''}
-                </dd>
-              </>
-            )}
-            {(battery || backup) && (
-              <>
-                <dt>Battery runtime</dt>
-                <dd data-testid="report-runtime">
-                  {battery
-                    ? `${battery.runtimeIsLowerBound ? 'longer than ' : ''}${formatDuration(battery.runtimeSeconds, loc)} (${battery.endText})`
-                    : 'see the battery backup study (not part of this summary)'}
-                </dd>
-              </>
-            )}
-            {cables.length > 0 && (
-              <>
-                <dt>Cables</dt>
-                <dd>
-                  <ul class="report__cables" data-testid="report-cables">
-                    {cables.map((e) => (
-                      <li key={e.id}>
-                        {e.name}:{' '}
-                        {e.conductor
-                          ? `${formatConductorSize(e.conductor.size, e.conductor.areaMm2, units, loc)} ${e.conductor.material}` +
-                            `${e.conductor.parallelSets > 1 ? ` × ${e.conductor.parallelSets} sets` : ''}, set by ${e.conductor.governing}, ` +
-                            `${e.conductor.device.rating !== undefined ? `${e.conductor.device.rating} A device, ` : ''}` +
-                            `drop ${formatPercent(e.conductor.drop.checkPercent / 100, loc, 3)}, loss ${formatPower(e.loss, loc)}`
-                          : `impedance as entered, loss ${formatPower(e.loss, loc)}`}
-                      </li>
-                    ))}
-                  </ul>
-                </dd>
-              </>
-            )}
-          </dl>
-        </section>
+        {/* The answers first, in the client's words (web/components/answers/ReportAnswers.tsx). */}
+        <ReportAnswers solved={solved} />
         <div class="report__columns">
           <section>
             <h2>The chain</h2>

@@ -87,15 +87,6 @@ const ElementRow = memo(function ElementRow({ elementId, name, kind, depth, cell
   );
 }, sameElementRow);
 
-/**
- * The energy balance is folded into the answers strip (web/components/answers/AnswersStrip.tsx: source,
- * loads, losses, efficiency and the balance line "source = loads + losses; mismatch"). Kept as an empty
- * part until its mount in App.tsx is removed.
- */
-export function EnergyBalance(_props: { result: SolveResult }) {
-  return null;
-}
-
 export const ElementTable = lagOffscreen(function ElementTable({ result, box }: { result: SolveResult } & Box) {
   const depth = depths(result.elements);
   const t = result.totals;
