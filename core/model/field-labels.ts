@@ -313,6 +313,9 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
   project: {
     name: "Project name",
     description: "Description",
+    client: "Client",
+    site: "Site",
+    preparedBy: "Prepared by",
     "dropLimits.basis": "Voltage-drop limits from",
     "dropLimits.perLinkPercent": "Allowed drop per link (%)",
     "dropLimits.totalPercent": "Allowed drop in total (%)",
