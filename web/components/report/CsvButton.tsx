@@ -6,6 +6,7 @@
  * machine-readable form; the file is named after the project and the table.
  */
 import { lastSolved } from '../../state/editor.ts';
+import { catchUpNow } from '../lag.ts';
 import { effectiveLocale } from '../../state/prefs.ts';
 
 /** The table the button belongs to: the one whose caption holds it, else the first after it in its section. */
@@ -43,9 +44,12 @@ const rowsOf = (rows: Iterable<HTMLTableRowElement>) =>
   [...rows].map((r) => [...r.cells].map((c) => ({ text: c.dataset['csv'] ?? cellText(c), rowSpan: c.rowSpan, colSpan: c.colSpan })));
 
 export async function downloadTableCsv(button: HTMLElement, name: string): Promise<void> {
+  // A table scrolled out of view may still show the figures before the last edit (lag.ts): bring
+  // every lagging part up to date, and read the table after the import has let that render.
+  catchUpNow();
+  const { tableCsv, csvFileName } = await import('../../format/csv.ts');
   const table = tableFor(button);
   if (!table) return;
-  const { tableCsv, csvFileName } = await import('../../format/csv.ts');
   const head = table.tHead ? rowsOf(table.tHead.rows) : [];
   const body = [...table.tBodies].flatMap((b) => rowsOf(b.rows));
   // A byte-order mark, so spreadsheet programs read the file as UTF-8 (°C, mm², names in any script).
