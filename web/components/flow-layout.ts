@@ -16,6 +16,14 @@
  * branch can cross a main flow or a label. A stage's subtree takes the rows its stages, labels and
  * losses need (a tidy tree: children stacked under each other, the first continuing its parent's flow
  * at the same height), so the losses take only the height they need, under their own stage.
+ *
+ * Who does what: d3-sankey (0.12, `sankey()` run on copies, as it writes into what it is given) lays
+ * out the main flows only (sources, stages, loads and the feeds between them): each node's column
+ * (its depth), its value, each feed's width and the feeds' order at each node. The code here adds
+ * what a Sankey layout does not know: the labels (wrapped names, figures) and the tidy tree that
+ * places the pipes with their labels above and losses under them; then `sankey.update` attaches the
+ * feeds to the pipes where they now are. The loss branches and blocks (not given to d3-sankey) hang
+ * under their stage, placed here.
  */
 import { sankey, sankeyLeft, type SankeyLink, type SankeyNode } from 'd3-sankey';
 import type { FlowGraph, FlowLink, FlowNode } from '../../core/studies/index.ts';
