@@ -98,6 +98,28 @@ describe.each(projects)('the layout of %s', (_id, project) => {
     expect(clashes).toEqual([]);
   });
 
+  it('attaches the feeds as d3-sankey stacks them: from the pipe’s top in the chain’s order into the top of the next pipe, a first child level with its parent', () => {
+    for (const n of laid.nodes.filter((x) => x.role !== 'loss')) {
+      // Feeds out, in the graph's order (the chain's): each starts where the one above it ends.
+      const out = laid.links.filter((l) => l.role === 'feed' && l.sourceNode.id === n.id);
+      let top = n.y0;
+      for (const l of out) {
+        expect(l.sy - l.width / 2).toBeCloseTo(top, 6);
+        expect(l.ty - l.width / 2).toBeCloseTo(l.targetNode.y0, 6);
+        top += l.width;
+      }
+      expect(top).toBeLessThanOrEqual(n.y1 + 1e-6);
+      if (out[0]) expect(out[0].targetNode.y0).toBeCloseTo(n.y0, 6);
+    }
+  });
+
+  it('leaves the graph it is given as it was (d3-sankey writes into its input, so it gets copies)', () => {
+    const before = JSON.stringify(g);
+    layout(g, 1200, 'en-US');
+    expect(JSON.stringify(g)).toBe(before);
+    expect(laid.nodes.every((n) => !('sourceLinks' in n))).toBe(true);
+  });
+
   it('draws every name in full and the pipes to scale', () => {
     for (const n of g.nodes.filter((x) => x.role !== 'loss')) {
       const label = laid.labels.find((l) => l.id === n.id)!;

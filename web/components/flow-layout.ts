@@ -16,7 +16,16 @@
  * branch can cross a main flow or a label. A stage's subtree takes the rows its stages, labels and
  * losses need (a tidy tree: children stacked under each other, the first continuing its parent's flow
  * at the same height), so the losses take only the height they need, under their own stage.
+ *
+ * Who does what: d3-sankey (0.12, `sankey()` run on copies, as it writes into what it is given) lays
+ * out the main flows only (sources, stages, loads and the feeds between them): each node's column
+ * (its depth), its value, each feed's width and the feeds' order at each node. The code here adds
+ * what a Sankey layout does not know: the labels (wrapped names, figures) and the tidy tree that
+ * places the pipes with their labels above and losses under them; then `sankey.update` attaches the
+ * feeds to the pipes where they now are. The loss branches and blocks (not given to d3-sankey) hang
+ * under their stage, placed here.
  */
+import { sankey, sankeyLeft, type SankeyLink, type SankeyNode } from 'd3-sankey';
 import type { FlowGraph, FlowLink, FlowNode } from '../../core/studies/index.ts';
 import { formatPercent, formatPower } from '../format/number.ts';
 import type { PaintKey } from './flow-palette.ts';
@@ -211,14 +220,28 @@ function lossLines(n: FlowNode, loc: string | undefined, measure: Measure): { te
 /** Left edge of a column, px. */
 export const columnX = (c: number) => MARGIN.left + c * (COLUMN + GAP);
 
+/** A source, stage or load as d3-sankey gets it (a copy: d3-sankey writes its layout into it). */
+type FlowIn = FlowNode & { index0: number; fixedValue?: number };
+/** A feed as d3-sankey gets it (a copy, with the graph's link beside it). */
+type FeedIn = { source: string; target: string; value: number; link: FlowLink };
+type SNode = SankeyNode<FlowIn, FeedIn>;
+type SLink = SankeyLink<FlowIn, FeedIn>;
+
+/** d3-sankey's node or link end (an object once the layout has run). */
+const nodeOf = (x: SLink['source']) => x as SNode;
+
 /**
- * Steps: (1) the tree of drawn feeds (children in the graph's order) and each element's column;
- * (2) the scale (the source's pipe at most MAX_PIPE px tall, the widest loss branch within a column);
- * (3) each label's lines, the height above a pipe its label needs, and the height a subtree's first
+ * Steps: (1) d3-sankey over the main flows (sources, stages, loads and their feeds; the loss links
+ * stay out of it): each node's column (its depth), its value (its feed in; a source's own power,
+ * which also carries its own loss), each feed's width (the extent's height is chosen so that its
+ * scale is this diagram's: the source's pipe at most MAX_PIPE px tall, the widest loss branch within
+ * a column) and the order of the feeds at each node (the graph's, which is the chain's);
+ * (2) each label's lines, the height above a pipe its label needs, and the height a subtree's first
  * line of flow needs above it (its "ascent": a first child continues its parent's flow at the same
- * height, so the taller label of the two sets it); (4) the subtrees placed top to bottom, each pipe
- * with its loss under it; (5) the branches: feeds leave their pipe's right end stacked from the top
- * and enter their child's pipe; loss branches leave the pipe's bottom, idle part left of conversion.
+ * height, so the taller label of the two sets it); (3) the subtrees placed top to bottom, each pipe
+ * with its loss under it (this writes the nodes' x0, x1, y0, y1 over d3-sankey's own placing);
+ * (4) d3-sankey's `update` attaches the feeds to the pipes where they now are (stacked from a pipe's
+ * top in its feeds' order); the loss branches leave the pipe's bottom, idle part left of conversion.
  */
 export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, measure: Measure = roughMeasure): Layout | null {
   const links = drawnLinks(g);
@@ -227,48 +250,54 @@ export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, 
   const all = g.nodes.filter((n) => used.has(n.id));
   if (all.length === 0) return null;
   const byId = new Map<string, FlowNode>(all.map((n) => [n.id, n]));
-
-  // (1) The tree.
-  const children = new Map<string, string[]>();
-  const hasParent = new Set<string>();
+  const index0 = new Map(all.map((n, i) => [n.id, i]));
   const lossOf = new Map<string, FlowNode>();
-  for (const l of links) {
-    if (l.role === 'feed') {
-      if (hasParent.has(l.target) || !byId.has(l.target)) continue;
-      hasParent.add(l.target);
-      (children.get(l.source) ?? children.set(l.source, []).get(l.source)!).push(l.target);
-    } else if (!lossOf.has(l.source)) lossOf.set(l.source, byId.get(l.target)!);
-  }
-  const flowNodes = all.filter((n) => n.role !== 'loss');
-  const roots = flowNodes.filter((n) => !hasParent.has(n.id));
-  const column = new Map<string, number>();
-  // Depth by an explicit walk: a chain may hold thousands of elements in a row.
-  const order: string[] = [];
-  for (const r of roots) {
-    const stack: [string, number][] = [[r.id, 0]];
-    while (stack.length) {
-      const [id, c] = stack.pop()!;
-      if (column.has(id)) continue;
-      column.set(id, c);
-      order.push(id);
-      const kids = children.get(id) ?? [];
-      for (let i = kids.length - 1; i >= 0; i--) stack.push([kids[i]!, c + 1]);
-    }
-  }
-  const columns = Math.max(...column.values()) + 1;
+  for (const l of links) if (l.role === 'loss' && !lossOf.has(l.source) && byId.has(l.target)) lossOf.set(l.source, byId.get(l.target)!);
 
-  // (2) Scale, px per W.
-  const flowMax = Math.max(...roots.map((n) => Math.abs(n.watts)), 0);
+  // (1) d3-sankey over copies of the main flows.
+  const flowIn: FlowIn[] = all
+    .filter((n) => n.role !== 'loss')
+    .map((n) => ({ ...n, index0: index0.get(n.id)!, ...(n.role === 'source' && n.watts > 0 ? { fixedValue: n.watts } : {}) }));
+  const feedIn: FeedIn[] = links.filter((l) => l.role === 'feed' && byId.has(l.source) && byId.has(l.target)).map((l) => ({ source: l.source, target: l.target, value: l.watts, link: l }));
+  // Scale, px per W: the source's pipe at most MAX_PIPE px, the widest loss branch within its column.
+  const sources = flowIn.filter((n) => n.role === 'source');
+  const flowMax = Math.max(...sources.map((n) => Math.abs(n.watts)), 0);
   const lossMax = Math.max(...[...lossOf.values()].map((n) => n.watts), 0);
-  const ky = Math.min(flowMax > 0 ? MAX_PIPE / flowMax : 0, lossMax > 0 ? (COLUMN - 24) / lossMax : Infinity);
-  const pipeH = (n: FlowNode) => Math.max(2, n.watts * ky);
+  const kyWanted = Math.min(flowMax > 0 ? MAX_PIPE / flowMax : 0, lossMax > 0 ? (COLUMN - 24) / lossMax : Infinity);
+  // d3-sankey's scale is the extent's height over the busiest column's value (no padding between nodes):
+  // the sources' column, since every node passes on at most what it takes in.
+  const sourceTotal = sources.reduce((a, n) => a + (n.fixedValue ?? 0), 0);
+  // nodeAlign(sankeyLeft): a node's column is its depth. No relaxation (iterations 0): it only moves
+  // nodes up and down, and step (3) places them. The extent's width is one column: d3-sankey would
+  // spread the columns over it, while here each column is COLUMN wide with a GAP after it however many
+  // there are, so a node's x comes from its column (columnX(node.depth)).
+  const generator = sankey<FlowIn, FeedIn>()
+    .nodeId((n) => n.id)
+    .nodeAlign(sankeyLeft)
+    .nodeSort((a, b) => a.index0 - b.index0)
+    .linkSort(null)
+    .nodeWidth(COLUMN)
+    .nodePadding(0)
+    .iterations(0)
+    .extent([
+      [MARGIN.left, MARGIN.top],
+      [MARGIN.left + COLUMN, MARGIN.top + Math.max(1, kyWanted * sourceTotal)],
+    ]);
+  const graph = generator({ nodes: flowIn, links: feedIn });
+  // d3-sankey's scale, px per W (a feed's width over its value), for the pipes and the loss branches.
+  const first = graph.links.find((l) => l.value > 0 && Number.isFinite(l.width));
+  const ky = first ? first.width! / first.value : kyWanted;
+  const pipeH = (n: SNode) => Math.max(2, (n.value ?? 0) * ky);
+  const roots = graph.nodes.filter((n) => n.targetLinks!.length === 0);
+  // A chain is a tree: a node's children are the targets of its feeds, in d3-sankey's order.
+  const children = (n: SNode): SNode[] => n.sourceLinks!.map((l) => nodeOf(l.target)).filter((t) => nodeOf(t.targetLinks![0]!.source) === n);
 
-  // (3) Labels and heights.
+  // (2) Labels and heights.
   const labelLines = new Map<string, { text: string; bold: boolean }[]>();
   const shortened = new Set<string>();
   const head = new Map<string, number>();
   const below = new Map<string, number>();
-  for (const n of flowNodes) {
+  for (const n of graph.nodes) {
     const { lines, shortened: cut } = nodeLines(n, loc, measure);
     if (cut) shortened.add(n.id);
     labelLines.set(n.id, lines);
@@ -282,82 +311,83 @@ export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, 
     }
     below.set(n.id, d + PAD);
   }
+  // Deepest column first, so a child's ascent is known before its parent's.
   const ascent = new Map<string, number>();
-  for (let i = order.length - 1; i >= 0; i--) {
-    const id = order[i]!;
-    const first = children.get(id)?.[0];
-    ascent.set(id, Math.max(head.get(id)!, first ? ascent.get(first)! : 0));
+  for (const n of [...graph.nodes].sort((a, b) => b.depth! - a.depth!)) {
+    const kid = children(n)[0];
+    ascent.set(n.id, Math.max(head.get(n.id)!, kid ? ascent.get(kid.id)! : 0));
   }
 
-  // (4) Subtrees top to bottom: a node's pipe sits its ascent below its subtree's top.
+  // (3) Subtrees top to bottom: a node's pipe sits its ascent below its subtree's top.
+  // What EnergyFlow draws: a copy of each graph node with its place (d3-sankey's node objects stay its own).
   const laid = new Map<string, LaidNode>();
-  const index0 = new Map(all.map((n, i) => [n.id, i]));
   const labels: NodeLabel[] = [];
   let bottom = MARGIN.top;
-  // Explicit stack again: each frame holds its subtree's top and where its next child goes (`cursor`).
+  // Explicit stack (a chain may hold thousands of elements in a row): each frame holds its subtree's
+  // top and where its next child goes (`cursor`).
   const subtreeBottom = new Map<string, number>();
   for (const r of roots) {
     const top = bottom;
-    const stack: { id: string; top: number; next: number; cursor: number; done: boolean }[] = [{ id: r.id, top, next: 0, cursor: top, done: false }];
+    const stack: { n: SNode; kids: SNode[]; top: number; next: number; cursor: number }[] = [];
+    const enter = (n: SNode, top: number) => {
+      const c = n.depth!;
+      n.x0 = columnX(c);
+      n.x1 = n.x0 + COLUMN;
+      n.y0 = top + ascent.get(n.id)!;
+      n.y1 = n.y0 + pipeH(n);
+      const src = byId.get(n.id)!;
+      laid.set(n.id, { ...src, index0: n.index0, column: c, x0: n.x0, y0: n.y0, x1: n.x1, y1: n.y1, idleWidth: 0 });
+      const lines = labelLines.get(n.id)!;
+      labels.push({ id: n.id, x: n.x0, y: n.y0 - lines.length * LINE - 4 + 11, anchor: 'start', lines, ...(shortened.has(n.id) ? { fullName: src.name } : {}) });
+      const loss = lossOf.get(n.id);
+      if (loss) {
+        // The block at least 1 px wide; its idle part to scale.
+        const w = Math.max(1, loss.watts * ky);
+        const cx = n.x0 + COLUMN / 2;
+        const ly0 = n.y1 + STUB;
+        laid.set(loss.id, { ...loss, index0: index0.get(loss.id)!, column: c, x0: cx - w / 2, x1: cx + w / 2, y0: ly0, y1: ly0 + LOSS_BLOCK, idleWidth: (loss.idleWatts ?? 0) * ky });
+        labels.push({ id: loss.id, x: cx, y: ly0 + LOSS_BLOCK + 4 + 11, anchor: 'middle', lines: labelLines.get(loss.id)! });
+      }
+      subtreeBottom.set(n.id, n.y0 + below.get(n.id)!);
+      stack.push({ n, kids: children(n), top, next: 0, cursor: top });
+    };
+    enter(r, top);
     while (stack.length) {
       const f = stack[stack.length - 1]!;
-      const n = byId.get(f.id)!;
-      const kids = children.get(f.id) ?? [];
-      if (!f.done) {
-        f.done = true;
-        const c = column.get(f.id)!;
-        const x0 = columnX(c);
-        const y0 = f.top + ascent.get(f.id)!;
-        const h = pipeH(n);
-        laid.set(f.id, { ...n, index0: index0.get(f.id)!, column: c, x0, x1: x0 + COLUMN, y0, y1: y0 + h, idleWidth: 0 });
-        const lines = labelLines.get(f.id)!;
-        labels.push({ id: f.id, x: x0, y: y0 - lines.length * LINE - 4 + 11, anchor: 'start', lines, ...(shortened.has(f.id) ? { fullName: n.name } : {}) });
-        const loss = lossOf.get(f.id);
-        if (loss) {
-          // The block at least 1 px wide; its idle part to scale.
-          const w = Math.max(1, loss.watts * ky);
-          const idleW = (loss.idleWatts ?? 0) * ky;
-          const cx = x0 + COLUMN / 2;
-          const ly0 = y0 + h + STUB;
-          laid.set(loss.id, { ...loss, index0: index0.get(loss.id)!, column: c, x0: cx - w / 2, x1: cx + w / 2, y0: ly0, y1: ly0 + LOSS_BLOCK, idleWidth: idleW });
-          labels.push({ id: loss.id, x: cx, y: ly0 + LOSS_BLOCK + 4 + 11, anchor: 'middle', lines: labelLines.get(loss.id)! });
-        }
-        subtreeBottom.set(f.id, y0 + below.get(f.id)!);
-      }
-      if (f.next < kids.length) {
-        const kid = kids[f.next]!;
+      if (f.next < f.kids.length) {
+        const kid = f.kids[f.next]!;
         // The first child continues its parent's flow at the same height; the others stack under it.
-        const kidTop = f.next === 0 ? f.top + ascent.get(f.id)! - ascent.get(kid)! : f.cursor;
+        const kidTop = f.next === 0 ? f.top + ascent.get(f.n.id)! - ascent.get(kid.id)! : f.cursor;
         f.next++;
-        stack.push({ id: kid, top: kidTop, next: 0, cursor: kidTop, done: false });
+        enter(kid, kidTop);
         continue;
       }
       stack.pop();
       const parent = stack[stack.length - 1];
       if (parent) {
-        parent.cursor = subtreeBottom.get(f.id)!;
-        subtreeBottom.set(parent.id, Math.max(subtreeBottom.get(parent.id)!, parent.cursor));
+        parent.cursor = subtreeBottom.get(f.n.id)!;
+        subtreeBottom.set(parent.n.id, Math.max(subtreeBottom.get(parent.n.id)!, parent.cursor));
       }
     }
     bottom = subtreeBottom.get(r.id)!;
   }
 
-  // (5) Branches.
-  const outUsed = new Map<string, number>();
+  // (4) Branches: d3-sankey attaches the feeds to the pipes where they now are.
+  generator.update(graph);
+  const feedOf = new Map<FlowLink, SLink>(graph.links.map((l) => [l.link, l]));
   const laidLinks: LaidLink[] = [];
   const lossUsed = new Map<string, number>();
   for (const l of links) {
     const from = laid.get(l.source);
     const to = laid.get(l.target);
     if (!from || !to) continue;
-    const width = l.watts * ky;
     const key = linkKey(l);
     if (l.role === 'feed') {
-      const out = outUsed.get(from.id) ?? 0;
-      outUsed.set(from.id, out + width);
-      laidLinks.push({ ...l, key, width, sx: from.x1, sy: from.y0 + out + width / 2, tx: to.x0, ty: to.y0 + width / 2, sourceNode: from, targetNode: to });
+      const f = feedOf.get(l)!;
+      laidLinks.push({ ...l, key, width: f.width!, sx: from.x1, sy: f.y0!, tx: to.x0, ty: f.y1!, sourceNode: from, targetNode: to });
     } else {
       // Idle first (left), then conversion, side by side, centred on the loss block.
+      const width = l.watts * ky;
       const left = lossUsed.get(to.id) ?? 0;
       lossUsed.set(to.id, left + width);
       const x = (to.x0 + to.x1) / 2 - (to.watts * ky) / 2 + left + width / 2;
@@ -365,6 +395,7 @@ export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, 
     }
   }
 
+  const columns = Math.max(...graph.nodes.map((n) => n.depth!)) + 1;
   const width = Math.max(minWidth, columnX(columns - 1) + COLUMN + MARGIN.right);
   // In steps: an edit that changes a tall block a little keeps the drawing's height, so the page
   // below does not move and the drawing is not laid out again as a whole (a new SVG size does).
