@@ -12,7 +12,7 @@ import jsQR from 'jsqr';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp, fullPageScreenshot } from './harness.ts';
+import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp, fullPageScreenshot, chooseSetting } from './harness.ts';
 import { demoProjects, solveProject } from '../../core/index.ts';
 import { csvFileName } from '../../web/format/csv.ts';
 import { decodeShare } from '../../web/state/share.ts';
@@ -189,7 +189,7 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
 
       // In US units the header names feet, and the figure is the metres converted (1 ft = 0.3048 m, exact).
       await openDemo(page, 'hillside-relay-hut');
-      await page.getByTestId('units-select').selectOption('us');
+      await chooseSetting(page, 'units-select', 'us');
       const cables = await downloadCsv(page, page.locator('[data-testid="csv-button"][data-table="Cables"]'));
       const rows = parseCsv(cables.text.slice(1));
       const col = rows[0]!.indexOf('Length (ft)');

@@ -17,7 +17,7 @@
  * "node", "sweep"): the method belongs on the engineer's page.
  */
 import { DESIGN_BASIS_WORDS, solveAnswers, type Solved, type SolveAnswers } from '../../../core/page.ts';
-import type { StudyAnswers } from '../../../core/studies/index.ts';
+import { flowGraph, type StudyAnswers } from '../../../core/studies/index.ts';
 import { formatCurrent, formatDuration, formatPercent, formatPower, formatSignificant, UNIT_GAP } from '../../format/number.ts';
 import { effectiveLocale, energyPrice, operatingHours } from '../../state/prefs.ts';
 import { openCount } from '../../state/editor.ts';
@@ -45,6 +45,8 @@ export function ReportAnswers({ solved, answers, studies: given, locale }: Repor
   const money = moneyFormat.value;
   const cost = studies?.cost;
   const motors = solved.project.elements.filter((e) => e.kind === 'motor');
+  // The element losing most (core/studies/energy-flow.ts, the diagram's own loss summary).
+  const largest = flowGraph(solved.result).losses.largest;
   return (
     <section class="report-answers" aria-labelledby="report-answers-heading" data-testid="report-answers">
       <h3 id="report-answers-heading">The answers</h3>
@@ -63,6 +65,12 @@ export function ReportAnswers({ solved, answers, studies: given, locale }: Repor
               ? 'No energy price was given, so their yearly cost is not stated.'
               : `Their yearly cost: ${LATER}.`}
         </li>
+        {largest && (
+          <li data-testid="report-answers-largest">
+            The largest single loss is in {largest.name}: {formatPower(largest.watts, loc)} ({formatPercent(largest.percent / 100, loc, 3)} of what the supply delivers)
+            {largest.idleWatts > 0 ? `, of which ${formatPower(largest.idleWatts, loc)} is drawn even with no load` : ''}.
+          </li>
+        )}
         {a.banks.map((b) => {
           const s = studies?.banks.find((x) => x.elementId === b.elementId);
           const target = s?.targetSeconds;
