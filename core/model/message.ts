@@ -54,7 +54,8 @@ export const q = (si: number, unit: MessageUnit): MessageValue => ({ si, unit })
 /** Units written with an SI prefix (BIPM SI Brochure, Table 7) when the value is large or small. */
 const PREFIXED: ReadonlySet<MessageUnit> = new Set(['V', 'A', 'W', 'VA', 'var', 'Hz', 'Ω', 'Ω/km', 'm']);
 
-const STEPS: readonly [number, string][] = [
+/** The SI prefixes used, largest first (BIPM SI Brochure, Table 7); core/physics/si-prefix.ts reads it too. */
+export const SI_PREFIX_STEPS: readonly [number, string][] = [
   [1e9, 'G'],
   [1e6, 'M'],
   [1e3, 'k'],
@@ -63,7 +64,9 @@ const STEPS: readonly [number, string][] = [
   [1e-6, 'µ'],
   [1e-9, 'n'],
   [1e-12, 'p'],
+  [1e-15, 'f'],
 ];
+const STEPS = SI_PREFIX_STEPS;
 
 /** A plain number with `digits` significant digits, large whole numbers grouped in threes (SI Brochure 5.4.4). */
 export function sigText(value: number, digits = 3): string {

@@ -9,6 +9,7 @@
  * a lower-case unit letter after a prefix ("100 uf", "4.7 mh"), which cannot be misread.
  * Nothing else is guessed: "4k7", "meg" and unknown letters are refused with a message.
  */
+import { SI_PREFIX_STEPS } from '../model/message.ts';
 
 /** The base units of the three circuit elements. */
 export type ElementUnit = 'Ω' | 'H' | 'F';
@@ -100,17 +101,7 @@ function example(unit: ElementUnit): string {
 /** A value in engineering notation with an SI prefix, e.g. 4.7e-3 H → "4.7 mH" (for messages and reports). */
 export function formatSi(value: number, unit: string, digits = 4): string {
   if (value === 0 || !Number.isFinite(value)) return `${value} ${unit}`;
-  const steps: readonly [number, string][] = [
-    [1e9, 'G'],
-    [1e6, 'M'],
-    [1e3, 'k'],
-    [1, ''],
-    [1e-3, 'm'],
-    [1e-6, 'µ'],
-    [1e-9, 'n'],
-    [1e-12, 'p'],
-    [1e-15, 'f'],
-  ];
+  const steps = SI_PREFIX_STEPS;
   const a = Math.abs(value);
   const [factor, prefix] = steps.find(([f]) => a >= f * (1 - 1e-12)) ?? steps[steps.length - 1]!;
   return `${Number((value / factor).toPrecision(digits))} ${prefix}${unit}`;

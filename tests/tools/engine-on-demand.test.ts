@@ -14,7 +14,7 @@ const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 // string work, no solve: the banner and the undo labels need them on the first screen.
 const LIGHT = new Set([
   'PROJECT_LEVEL', 'PROJECT_VERSION', 'migrateProject', 'issueMessage', 'demoProjects', 'fieldWords', 'elementNames', 'nonFiniteProblems',
-  'fieldLabel', 'fillTemplate', 'elementWords', 'pathWords',
+  'fieldLabel', 'fillTemplate', 'elementWords', 'pathWords', 'KIND_LABELS',
 ]);
 
 /** The run-time names a source imports (or re-exports) from core/page.ts, with `type` ones left out. */

@@ -1,28 +1,8 @@
 /** Words shown for the engine's element and port kinds (display only). */
-import type { ElementKind, PortKind } from '../../core/page.ts';
+import { KIND_LABELS, type ElementKind, type PortKind } from '../../core/page.ts';
 
-const ELEMENT_KIND_LABELS: Record<ElementKind, string> = {
-  grid: 'Utility supply',
-  generator: 'Generator',
-  battery: 'Battery bank',
-  rectifier: 'Rectifier',
-  'dc-dc': 'DC–DC converter',
-  'dc-bus': 'DC bus',
-  inverter: 'Inverter',
-  transformer: 'Transformer',
-  drive: 'Variable-frequency drive',
-  motor: 'Motor',
-  cable: 'Cable',
-  generic: 'Converter',
-  'network-load': 'Load from R, L, C',
-  'dc-load': 'DC load',
-  'ac-load': 'AC load',
-  'ac-va-load': 'AC load (VA)',
-  'dc-current-load': 'DC load (amperes)',
-  'ac-current-load': 'AC load (amperes)',
-  'shaft-load': 'Shaft load',
-  pump: 'Pump',
-};
+/** The kinds' trade names: one table, in core (core/model/field-labels.ts), which the engine's messages use too. */
+const ELEMENT_KIND_LABELS: Readonly<Record<ElementKind, string>> = KIND_LABELS;
 
 const PORT_KIND_LABELS: Record<PortKind, string> = {
   dc: 'DC',
