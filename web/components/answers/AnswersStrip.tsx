@@ -10,12 +10,12 @@
  * the losses split and their yearly cost, the cables' size · device · drop, the motors' start
  * verdicts and the warnings. Off screen, the strip keeps what it showed (lag.ts).
  */
-import { lazy, Suspense } from 'preact/compat';
+import { lazy, memo, Suspense } from 'preact/compat';
 import type { Solved, SolveResult } from '../../../core/page.ts';
 import { formatPercent, formatPower, formatSmallPercent } from '../../format/number.ts';
 import { effectiveLocale } from '../../state/prefs.ts';
 import { lastSolved } from '../../state/editor.ts';
-import { useOffscreenLag } from '../lag.ts';
+import { useOffscreenLag, type BoxRef } from '../lag.ts';
 import { Fig, type WorkingTarget } from './fig.tsx';
 
 /** The strip's lines (banks, losses split and cost, cables, starts, warnings) load outside the first load. */
@@ -30,8 +30,23 @@ const results = (elementId?: string): WorkingTarget => ({ results: 'element-tabl
 export function AnswersStrip({ result: given, stale, solved: pair }: { result: SolveResult; stale: boolean; solved?: Solved }) {
   const latest = pair ?? lastSolved.value;
   const { box, shown } = useOffscreenLag(latest);
-  const solved = shown ?? null;
-  const result = solved?.result ?? given;
+  // While the strip is off screen `shown` stays the same object, so the memo'd body is not even
+  // compared again: an edit made with the strip scrolled away costs it nothing in the edit's frame.
+  return <StripBody solved={shown ?? null} given={shown ? undefined : given} stale={stale} box={box} />;
+}
+
+const StripBody = memo(function StripBody({
+  solved,
+  given,
+  stale,
+  box,
+}: {
+  solved: Solved | null;
+  given: SolveResult | undefined;
+  stale: boolean;
+  box: BoxRef;
+}) {
+  const result = solved?.result ?? given!;
   const t = result.totals;
   const loc = effectiveLocale();
   // Elements are in solve order: the source first.
@@ -91,4 +106,4 @@ export function AnswersStrip({ result: given, stale, solved: pair }: { result: S
       </p>
     </section>
   );
-}
+});
