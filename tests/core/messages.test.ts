@@ -19,13 +19,10 @@ import { join, relative } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { parse } from '@babel/parser';
 import { describe, expect, it } from 'vitest';
+import { CAMEL_KEYS, CAMEL_RE } from '../tools/schema-keys.ts';
 import { demoProjects } from '../../core/demos/index.ts';
 import { solveProject, type Solved } from '../../core/solve/index.ts';
 import { formatProblem, type Problem } from '../../core/model/errors.ts';
-import { KINDS } from '../../core/kinds/index.ts';
-import { backupSchema } from '../../core/solve/load-profile.ts';
-import { dropLimitsSchema } from '../../core/conductors/path-drop.ts';
-import { pumpDutySchema } from '../../core/kinds/pump.ts';
 import { studySurges } from '../../core/studies/surge/index.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
 import { machineDetails } from '../../core/studies/machines/details.ts';
@@ -39,33 +36,6 @@ const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 
 // ---------- what must not reach users ----------
 
-/** Every camelCase key of the file format's schemas (zod mini definitions, walked). */
-function schemaKeys(): string[] {
-  const keys = new Set<string>();
-  const seen = new Set<unknown>();
-  const walk = (s: unknown): void => {
-    if (typeof s !== 'object' || s === null || seen.has(s)) return;
-    seen.add(s);
-    const def = (s as { _zod?: { def?: Record<string, unknown> } })._zod?.def;
-    if (!def) return;
-    const shape = def['shape'];
-    if (shape && typeof shape === 'object') {
-      for (const [k, v] of Object.entries(shape)) {
-        keys.add(k);
-        walk(v);
-      }
-    }
-    for (const v of Object.values(def)) {
-      if (Array.isArray(v)) v.forEach(walk);
-      else walk(v);
-    }
-  };
-  for (const spec of KINDS.values()) walk(spec.schema);
-  [backupSchema, dropLimitsSchema, pumpDutySchema].forEach(walk);
-  return [...keys].filter((k) => /[a-z][A-Z]/.test(k)).sort();
-}
-const CAMEL_KEYS = schemaKeys();
-const CAMEL_RE = new RegExp(`(?<![\\w.-])(${CAMEL_KEYS.join('|')})(?![\\w-])`);
 
 /**
  * A number printed with more digits than a reader uses: a decimal with more than 4 significant

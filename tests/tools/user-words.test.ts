@@ -22,13 +22,10 @@ import { fileURLToPath } from 'node:url';
 import { parse } from '@babel/parser';
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
+import { CAMEL_KEYS, CAMEL_RE } from './schema-keys.ts';
 import { demoProjects } from '../../core/demos/index.ts';
 import { solveProject } from '../../core/solve/index.ts';
 import { formatResult } from '../../core/cli/text-report.ts';
-import { KINDS } from '../../core/kinds/index.ts';
-import { backupSchema } from '../../core/solve/load-profile.ts';
-import { dropLimitsSchema } from '../../core/conductors/path-drop.ts';
-import { pumpDutySchema } from '../../core/kinds/pump.ts';
 import { studySurges, formatSurgeStudy } from '../../core/studies/surge/index.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
 import { formatBackupStudy } from '../../core/studies/backup/text-report.ts';
@@ -68,33 +65,6 @@ interface Read {
 /** The owner's rules: these belong in code comments and tests only. */
 const FORBIDDEN: readonly RegExp[] = [/from memory/i, /no source/i];
 
-/** Every key of the file format's schemas (zod mini definitions, walked), camelCase ones only. */
-function schemaKeys(): string[] {
-  const keys = new Set<string>();
-  const seen = new Set<unknown>();
-  const walk = (s: unknown): void => {
-    if (typeof s !== 'object' || s === null || seen.has(s)) return;
-    seen.add(s);
-    const def = (s as { _zod?: { def?: Record<string, unknown> } })._zod?.def;
-    if (!def) return;
-    const shape = def['shape'];
-    if (shape && typeof shape === 'object') {
-      for (const [k, v] of Object.entries(shape)) {
-        keys.add(k);
-        walk(v);
-      }
-    }
-    for (const v of Object.values(def)) {
-      if (Array.isArray(v)) v.forEach(walk);
-      else walk(v);
-    }
-  };
-  for (const spec of KINDS.values()) walk(spec.schema);
-  [backupSchema, dropLimitsSchema, pumpDutySchema].forEach(walk);
-  return [...keys].filter((k) => /[a-z][A-Z]/.test(k)).sort();
-}
-const CAMEL_KEYS = schemaKeys();
-const CAMEL_RE = new RegExp(`(?<![\\w.-])(${CAMEL_KEYS.join('|')})(?![\\w-])`);
 
 /** A decimal with more than 6 significant digits (leading zeros are not significant). */
 function longFloat(text: string): string | undefined {
