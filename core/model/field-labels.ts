@@ -37,14 +37,14 @@ export const KIND_LABELS: Readonly<Record<ElementKind, string>> = {
 
 /** The loss model's fields, the same in every converter's form (core/physics/loss-model.ts). */
 const CONVERTER_LOSS_LABELS: Readonly<Record<string, string>> = {
-    loss: "Loss model",
-    "loss.efficiency": "Efficiency (%)",
-    "loss.idleLoss": "Idle draw (no-load loss)",
-    "loss.ratedPower": "Rated output power",
-    "loss.points": "Datasheet points",
-    "loss.p0": "P0, no-load loss",
-    "loss.k1": "k1, loss per W (proportional)",
-    "loss.k2": "k2, loss per W² (resistive)",
+  loss: "Loss model",
+  "loss.efficiency": "Efficiency (%)",
+  "loss.idleLoss": "Idle draw (no-load loss)",
+  "loss.ratedPower": "Rated output power",
+  "loss.points": "Datasheet points",
+  "loss.p0": "P0, no-load loss",
+  "loss.k1": "k1, loss per W (proportional)",
+  "loss.k2": "k2, loss per W² (resistive)",
 };
 
 /** Form labels per kind (and "project" for the project's own fields and study settings). */
@@ -154,15 +154,8 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     motorRatedFrequency: "Motor rated frequency",
     singlePhaseRating: "Output rating on a single-phase supply",
     ratedInputCurrent: "Rated input current",
-    loss: "Loss model",
+    ...CONVERTER_LOSS_LABELS,
     standardLoss: "Drive losses",
-    "loss.efficiency": "Efficiency (%)",
-    "loss.idleLoss": "Idle draw (no-load loss)",
-    "loss.ratedPower": "Rated output power",
-    "loss.points": "Datasheet points",
-    "loss.p0": "P0, no-load loss",
-    "loss.k1": "k1, loss per W (proportional)",
-    "loss.k2": "k2, loss per W² (resistive)",
     "standardLoss.ratedApparentPower": "Drive rating",
     "standardLoss.basis": "Points are for",
     "standardLoss.points": "Losses at the points",
