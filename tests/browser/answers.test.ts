@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, seriousAxeViolations, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, answersSettled, artifacts, serveBuiltApp, seriousAxeViolations, watchPageErrors, type ServedApp } from './harness.ts';
 import { demoProjects } from '../../core/index.ts';
 import { answerStudies } from '../../core/studies/answers.ts';
 import { solveAnswers } from '../../core/solve/answers.ts';
@@ -51,6 +51,8 @@ describe.skipIf(skipWithout('chromium'))('the answers strip in Chromium', () => 
     const errors = watchPageErrors(page);
     await page.goto(`${baseUrl}#demo=${id}`, { waitUntil: 'load' });
     await page.getByTestId('answers').waitFor();
+    // The strip's lines load lazily: until they mount, "no figure says working…" would hold vacuously.
+    await page.getByTestId('answer-loss-split').waitFor();
     return { context, page, errors };
   }
 
@@ -64,7 +66,8 @@ describe.skipIf(skipWithout('chromium'))('the answers strip in Chromium', () => 
         try {
           const strip = page.getByTestId('answers');
           // The study answers arrive from the worker: none stays "working…".
-          await expect.poll(async () => plain(await strip.innerText())).not.toContain('working…');
+          await answersSettled(page);
+          expect(plain(await strip.innerText())).not.toContain('working…');
           await strip.screenshot({ path: join(artifacts, `answers-${id}-${label}-${scheme}.png`) });
           if (label === 'phone') await page.screenshot({ path: join(artifacts, `answers-${id}-phone-${scheme}-first-screen.png`) });
           const text = plain(await strip.innerText());

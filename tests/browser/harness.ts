@@ -179,3 +179,19 @@ export async function chainOp(page: Page, testId: string): Promise<void> {
   await page.getByTestId('op-more').click();
   await page.getByTestId('more-menu').getByTestId(testId).click();
 }
+
+/**
+ * Wait until the answers strip is whole: its lines (loaded beside the first results, lazily) have
+ * mounted and no figure in it is still working or updating. Before the lines mount the strip holds no
+ * study figure at all, so a check that "none says working…" would hold vacuously.
+ */
+export async function answersSettled(page: Page, timeout = 20_000): Promise<void> {
+  await page.waitForFunction(
+    () => {
+      const strip = document.querySelector('[data-testid="answers"]');
+      return !!strip && !!strip.querySelector('[data-testid="answer-loss-split"]') && !strip.querySelector('[aria-busy="true"]');
+    },
+    undefined,
+    { timeout },
+  );
+}

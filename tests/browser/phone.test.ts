@@ -11,7 +11,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, chooseSetting, fullPageScreenshot, seriousAxeViolations, serveBuiltApp, watchPageErrors, type AxeViolation, type ServedApp } from './harness.ts';
+import { VIEWPORTS, answersSettled, artifacts, chooseSetting, fullPageScreenshot, seriousAxeViolations, serveBuiltApp, watchPageErrors, type AxeViolation, type ServedApp } from './harness.ts';
 
 const DEMOS = ['hillside-relay-hut', 'riverside-pump-station', 'cold-store-dc-bus'] as const;
 
@@ -37,6 +37,8 @@ describe.skipIf(skipWithout('chromium'))('phone first', () => {
     await page.getByTestId('element-table').waitFor();
     await page.getByTestId('chain-editor').waitFor();
     await expect.poll(() => page.getByText('Drawing the energy flow…').count(), { timeout: 20_000 }).toBe(0);
+    // The strip's heights are measured whole: with its lazy lines and study figures in.
+    await answersSettled(page);
     return { context, page, errors };
   }
 
