@@ -232,7 +232,7 @@ function GroupView({ ctx, group, path }: { ctx: Ctx; group: GroupNode; path: Nod
           class="sf-button"
           id={`${nid}-add-part`}
           data-testid="circuit-add-part"
-          aria-label={`Add a part to ${where}`}
+          aria-label={`Add part to ${where}`}
           onClick={() => {
             const next = addPart(tree, path);
             // The new part's kind first: it is a resistor until the user picks another.
@@ -246,7 +246,7 @@ function GroupView({ ctx, group, path }: { ctx: Ctx; group: GroupNode; path: Nod
           class="sf-button"
           id={`${nid}-add-group`}
           data-testid="circuit-add-group"
-          aria-label={`Add a group to ${where}`}
+          aria-label={`Add group to ${where}`}
           onClick={() => {
             const next = addGroup(tree, path);
             ctx.change(next.tree, `added a group to ${where}`, [`${ctx.nid(next.path)}-join`]);
