@@ -198,6 +198,7 @@ describe.skipIf(skipWithout('chromium'))('the circuit editor in Chromium', () =>
       await expect.poll(() => inductor.inputValue()).toBe('0,04 H');
       await expect.poll(() => watts(page)).toBeCloseTo(P_HAND, 6);
       expect(await field(page).getByTestId('circuit-z').innerText()).toBe('12 + j20,76\u202fΩ');
+      expect(await field(page).locator('.sf-help').last().innerText()).toContain('"4,7 mH"');
       // A point is not a decimal there: refused at the part, in the user's terms.
       await inductor.focus();
       await page.keyboard.press('Control+a');
@@ -265,6 +266,13 @@ describe.skipIf(skipWithout('chromium'))('the circuit editor in Chromium', () =>
       expect(JSON.parse(await field(page).getByTestId('circuit-text').inputValue())).toEqual({
         series: [{ resistor: '12 Ω' }, { parallel: [{ inductor: '40 mH' }, { capacitor: '100 µF' }] }],
       });
+      // Pasted text is checked by the same engine: a bad value in it is refused, nothing stored.
+      const text = field(page).getByTestId('circuit-text');
+      await text.fill(JSON.stringify({ series: [{ resistor: '12 Ω' }, { resistor: '4.7 mQ' }] }));
+      await expect.poll(() => field(page).locator(':scope > [data-testid="field-message"]').innerText()).toMatch(/^Circuit: "4\.7 mQ": unknown prefix or unit "mQ"/);
+      await stale(page).waitFor();
+      await text.fill(JSON.stringify({ series: [{ resistor: '12 Ω' }, { parallel: [{ inductor: '40 mH' }, { capacitor: '100 µF' }] }] }));
+      await expect.poll(() => stale(page).count()).toBe(0);
       await field(page).getByTestId('circuit-as-text').tap();
       await expect.poll(() => parts(page).count()).toBe(3);
 

@@ -16,6 +16,7 @@ import { describeNetworkLoads, type Project } from '../../../core/page.ts';
 import { draftProblems, fieldError, lastSolved, resultsState, setField, setFieldError } from '../../state/editor.ts';
 import { effectiveLocale, unitSystem } from '../../state/prefs.ts';
 import { messageText } from '../problem-words.ts';
+import { localeSeparators } from '../../format/parse.ts';
 import { messageForField, valueAt, type NetworkSpec } from '../../editor/fields.ts';
 import { FieldNotes, clearFieldErrors, describedBy, fieldId, ownerName, useFieldMessage, type FieldOwner } from './common.tsx';
 import {
@@ -101,6 +102,9 @@ export function NetworkField({ owner, spec }: { owner: FieldOwner; spec: Network
     if (refused) setFieldError(owner.id, spec.path, messageForField(spec, refused));
     return refused;
   };
+  // The help's examples in the user's number format ("4,7 mH" in de-DE).
+  const decimal = localeSeparators(locale).decimal;
+  const help = spec.help && decimal !== '.' ? spec.help.replace(/(\d)\.(\d)/g, `$1${decimal}$2`) : spec.help;
   const textMode = asText || !tree;
   const ctx: Ctx | undefined = tree
     ? {
@@ -139,7 +143,7 @@ export function NetworkField({ owner, spec }: { owner: FieldOwner; spec: Network
           Edit as text
         </button>
       )}
-      <FieldNotes helpId={`${id}-help`} help={spec.help} messageId={`${id}-msg`} message={message} />
+      <FieldNotes helpId={`${id}-help`} help={help} messageId={`${id}-msg`} message={message} />
     </fieldset>
   );
 }
@@ -192,14 +196,15 @@ function GroupView({ ctx, group, path }: { ctx: Ctx; group: GroupNode; path: Nod
   const lone = top && tree.bare && group.items.length === 1;
   const where = top ? 'the circuit' : name.charAt(0).toLowerCase() + name.slice(1);
   return (
-    <div class={top ? 'sf-circuit-group sf-circuit-group--top' : 'sf-circuit-group'} role="group" aria-labelledby={`${nid}-name`} data-testid="circuit-group" data-place={placeNumber(path)}>
+    <div class={top ? 'sf-circuit-group sf-circuit-group--top' : 'sf-circuit-group'} role="group" aria-label={top ? 'The circuit' : name} data-testid="circuit-group" data-place={placeNumber(path)}>
       <div class="sf-circuit-group__head">
-        <span class="sf-circuit-group__name" id={`${nid}-name`}>
-          {top ? 'Parts' : name}
+        {/* Seen: "Group 2" beside its connection; heard: "Parallel group 2" (the group's accessible name). */}
+        <span class="sf-circuit-group__name" aria-hidden="true">
+          {top ? 'Parts' : `Group ${placeNumber(path)}`}
         </span>
         {!lone && (
           <span class="sf-circuit-join">
-            <label for={`${nid}-join`} class="sf-circuit-join__label">
+            <label for={`${nid}-join`} class={top ? 'sf-circuit-join__label' : 'visually-hidden'}>
               <span class="visually-hidden">{top ? 'The circuit' : name}: </span>connected in
             </label>
             <select
