@@ -204,7 +204,7 @@ describe.skipIf(skipWithout('chromium'))('study inputs in Chromium', () => {
         if (locale === 'de-DE') await chooseSetting(page, 'locale-select', 'de-DE');
         const body = await openPanel(page, 'machines');
         const section = page.getByTestId('loss-cost');
-        expect(plain(await section.textContent())).toContain('8760 h runs all year');
+        expect(plain(await section.textContent())).toContain(locale === 'de-DE' ? '8.760 h runs all year' : '8,760 h runs all year');
         await page.getByTestId('cost-price').fill(locale === 'de-DE' ? '0,2' : '0.2');
         await page.getByTestId('cost-hours').fill('6000');
         const cost = lossCostPerYear(solved.result, { pricePerKWh: 0.2, hoursPerYear: 6000 });

@@ -8,6 +8,7 @@
 import { useState } from 'preact/hooks';
 import type { UnitSystem } from '../../format/units.ts';
 import { formatForInput, parseLocaleNumber, type Quantity } from '../../format/parse.ts';
+import { numberFormat } from '../../format/number.ts';
 import { fieldError, getAt, setField, setFieldError, type DraftProject } from '../../state/editor.ts';
 import { CHEMISTRY_PRESETS, PROJECT_LEVEL, type Chemistry } from '../../../core/page.ts';
 import { SettingField } from '../SettingField.tsx';
@@ -101,20 +102,22 @@ export function StudySettings({ project, units, locale }: { project: DraftProjec
   const chemistry = typeof chemistryName === 'string' && Object.hasOwn(CHEMISTRY_PRESETS, chemistryName) ? (chemistryName as Chemistry) : undefined;
   const preset = chemistry ? CHEMISTRY_PRESETS[chemistry] : undefined;
   const us = units === 'us';
+  // Typical values in the user's number format, with the decimals the trade writes them with (1.10, not 1.1).
+  const n = (x: number, decimals = 2) => numberFormat(locale, { minimumFractionDigits: decimals, maximumFractionDigits: decimals }).format(x);
   const agingHelp =
     chemistry && LITHIUM.has(chemistry)
-      ? 'Typical 1.25: end of life at 80 % of rated capacity; typical value: use the maker’s figure. Empty: 1.25.'
-      : 'Typical 1.25 (IEEE 485): the bank is replaced when it falls to 80 % of its rated capacity. Empty: 1.25.';
+      ? `Typical ${n(1.25)}: end of life at 80 % of rated capacity; typical value: use the maker’s figure. Empty: ${n(1.25)}.`
+      : `Typical ${n(1.25)} (IEEE 485): the bank is replaced when it falls to 80 % of its rated capacity. Empty: ${n(1.25)}.`;
   const cutoffHelp = preset
-    ? `Per cell, under load. Empty: ${formatForInput(preset.endOfDischargeCellVoltage, locale)} V, the ${preset.label} preset${chemistry && LEAD_ACID.has(chemistry) ? ' (1.75 V is the usual IEEE 485 sizing end voltage)' : ''}; typical value: use the maker’s figure, with capacities rated to the same voltage.`
+    ? `Per cell, under load. Empty: ${formatForInput(preset.endOfDischargeCellVoltage, locale)} V, the ${preset.label} preset${chemistry && LEAD_ACID.has(chemistry) ? ` (${n(1.75)} V is the usual IEEE 485 sizing end voltage)` : ''}; typical value: use the maker’s figure, with capacities rated to the same voltage.`
     : 'Per cell, under load; typical value: use the maker’s figure.';
   return (
     <fieldset class="study-settings" data-testid="battery-settings">
       <legend>Study settings</legend>
       <DesignChoice project={project} />
       {study('targetRuntimeHours', 'Target runtime', 'time', 'none', 'How long the bank must carry the load; the bank is sized for it. Empty: no sizing.', 'battery-target-runtime')}
-      {study('designMargin', 'Design margin', 'ratio', '1.10', 'Typical 1.10–1.15 (IEEE 485): room for load growth and less-than-ideal conditions. Empty: 1.10.', 'battery-design-margin')}
-      {study('agingFactor', 'Aging factor', 'ratio', '1.25', agingHelp, 'battery-aging-factor')}
+      {study('designMargin', 'Design margin', 'ratio', n(1.1), `Typical ${n(1.1)}–${n(1.15)} (IEEE 485): room for load growth and less-than-ideal conditions. Empty: ${n(1.1)}.`, 'battery-design-margin')}
+      {study('agingFactor', 'Aging factor', 'ratio', n(1.25), agingHelp, 'battery-aging-factor')}
       {study(
         'temperatureC',
         'Cell temperature',

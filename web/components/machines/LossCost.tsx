@@ -7,6 +7,7 @@
 import type { MachinesFigures } from '../panel-worker.ts';
 import { formatEnergy, formatPower, formatSignificant } from '../../format/number.ts';
 import { currencySymbol, formatMoney } from '../../format/panels.ts';
+import { formatForInput } from '../../format/parse.ts';
 import type { UnitSystem } from '../../format/units.ts';
 import { energyPrice, operatingHours, runningInForce } from '../../state/prefs.ts';
 import { fieldError, setField, setFieldError, type DraftProject } from '../../state/editor.ts';
@@ -66,7 +67,7 @@ export function LossCost({ lossCost, project, units, locale }: { lossCost: Machi
           label={PRICE_LABEL}
           quantity="ratio"
           unit={symbol ? `${symbol}/kWh` : 'per kWh'}
-          placeholder="e.g. 0.25"
+          placeholder={`e.g. ${formatForInput(0.25, locale)}`}
           fallback={running.fromDevice ? price : undefined}
           help="Your tariff per kWh, in your own currency (the project keeps the number). Empty: no cost."
           write={(v) => writeRunning(project, 'energyPricePerKWh', v, PRICE_LABEL)}
@@ -77,9 +78,9 @@ export function LossCost({ lossCost, project, units, locale }: { lossCost: Machi
           path="running.hoursPerYear"
           label={HOURS_LABEL}
           quantity="time"
-          placeholder="8760"
+          placeholder={formatForInput(8760, locale)}
           fallback={running.fromDevice ? hours : undefined}
-          help="8760 h runs all year; a 40-hour week is about 2000 h. Empty: 8760 h."
+          help={`${formatSignificant(8760, 4, locale)} h runs all year; a 40-hour week is about ${formatSignificant(2000, 4, locale)} h. Empty: ${formatSignificant(8760, 4, locale)} h.`}
           write={(v) => writeRunning(project, 'hoursPerYear', v, HOURS_LABEL)}
           testId="cost-hours"
         />
