@@ -199,7 +199,8 @@ describe.skipIf(skipWithout('chromium'))('study inputs in Chromium', () => {
     if (!solved.ok) throw new Error('the demo does not solve');
     for (const [label, viewport] of Object.entries(VIEWPORTS)) {
       const locale = label === 'phone' ? 'de-DE' : 'en-US';
-      const { context, page, errors } = await openDemo('riverside-pump-station', viewport);
+      // The phone in the dark theme, the desktop in the light one.
+      const { context, page, errors } = await openDemo('riverside-pump-station', viewport, { colorScheme: label === 'phone' ? 'dark' : 'light' });
       try {
         if (locale === 'de-DE') await chooseSetting(page, 'locale-select', 'de-DE');
         const body = await openPanel(page, 'machines');
