@@ -15,6 +15,8 @@ import { formatProblem, PROJECT_LEVEL } from '../../core/model/errors.ts';
 import { solveProject, validateProject } from '../../core/solve/index.ts';
 import { costSettingsOf, HOURS_IN_YEAR, lossCostPerYear } from '../../core/studies/economics.ts';
 import { demoProjects } from '../../core/demos/index.ts';
+import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
+import { onSolved } from './solved.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
@@ -89,7 +91,7 @@ describe('the running settings in the file', () => {
   });
 });
 
-describe('the command-line solver reads the price and hours of the project', () => {
+describe('the command-line solver reads the price and hours of the project', { timeout: 30_000 }, () => {
   it('prints the yearly cost of the losses: 50 W × 4000 h × 0.30 per kWh = 60.00', () => {
     const r = run(write('cost.json', chain({ energyPricePerKWh: 0.3, hoursPerYear: 4000 })));
     expect(r.stderr).toBe('');
@@ -107,6 +109,21 @@ describe('the command-line solver reads the price and hours of the project', () 
     expect(out.lossCost.hoursPerYear).toBe(8760);
     expect(out.lossCost.totalEnergyKWh).toBeCloseTo(438, 6);
     expect(out.lossCost.totalCost).toBeCloseTo(131.4, 6);
+  });
+
+  it("with a pump duty study, each flow-control method's yearly energy × the project's price", () => {
+    const riverside = { ...(demoProjects.find((d) => d.id === 'riverside-pump-station')!.project as object), running: { energyPricePerKWh: 0.2 } };
+    const duty = onSolved(projectPumpDuty, riverside as never);
+    if (!duty.ok) throw new Error(JSON.stringify(duty.problems));
+    const r = run(write('riverside-cost.json', riverside), '--json');
+    expect(r.status).toBe(0);
+    const out = JSON.parse(r.stdout) as { pumpDutyCost: { speedControl: number; throttle: number; onOff: number; savingVsThrottle: number } };
+    // Cost = E (Wh) ÷ 1000 × 0.20 per kWh, each method's energy from the pump duty study of the same file.
+    expect(out.pumpDutyCost.speedControl).toBeCloseTo((duty.result.speedControl.energyWh / 1000) * 0.2, 6);
+    expect(out.pumpDutyCost.throttle).toBeCloseTo((duty.result.throttle.energyWh / 1000) * 0.2, 6);
+    expect(out.pumpDutyCost.onOff).toBeCloseTo((duty.result.onOff.energyWh / 1000) * 0.2, 6);
+    // The choice: at this duty the drive costs less than throttling (affinity laws: power falls with the cube of speed).
+    expect(out.pumpDutyCost.savingVsThrottle).toBeGreaterThan(0);
   });
 
   it('a project without a price prints no cost; a bad price is refused naming the field', () => {
