@@ -40,6 +40,9 @@ ${USAGE}
   --help, -h        this text
   --version         the version of the tool
 
+A project file with "running": { "energyPricePerKWh": …, "hoursPerYear": … } also gets the yearly
+cost of its losses (and of its pump duty methods); the file is the way in, there is no flag.
+
 Summary line: "<file>: solved: <project name>: source … W, loads … W, losses … W, efficiency … %,
 <n> warnings[, backup runtime … h]", or "<file>: refused: <the first reason>" (every reason
 follows on standard error). Several files: one project refused does not stop the others.

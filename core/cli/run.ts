@@ -14,6 +14,7 @@ import { correctPowerFactor, type PfCorrection } from '../studies/pf/correction.
 import { formatPfCorrection, pfCorrectionJson } from '../studies/pf/text-report.ts';
 import { hasPumpSections, machineSections } from './machines-flags.ts';
 import { formatSurgeStudy, hasSurgeInputs, studySurges, type SurgeStudyResult } from '../studies/surge/index.ts';
+import { costSettingsOf, formatLossCost, lossCostPerYear, pumpDutyCosts, type LossCost, type MethodCosts } from '../studies/economics.ts';
 import type { CliRequest } from './args.ts';
 import type { ProjectLine } from './summary.ts';
 
@@ -79,6 +80,22 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
     const bad = nonFinite('the surge and fault study cannot be shown:', 'The surge and fault study', surges);
     if (bad) return bad;
   }
+  // What the losses cost a year, when the project gives an energy price (its `running` settings).
+  let lossCost: LossCost | undefined;
+  let pumpDutyCost: MethodCosts | undefined;
+  const cost = costSettingsOf(outcome.project);
+  if (cost) {
+    const c = lossCostPerYear(outcome.result, cost);
+    if (!c.ok) return refused(file, 'the yearly cost of the losses cannot be worked out:', c.problems, projectName, data);
+    lossCost = c.cost;
+    const duty = machines?.ok ? machines.json.pumpDuty : undefined;
+    if (duty) {
+      const d = pumpDutyCosts(duty, cost.pricePerKWh);
+      if (d.ok) pumpDutyCost = d.costs;
+    }
+    const bad = nonFinite('the yearly cost of the losses cannot be shown:', 'The yearly cost of the losses', { lossCost, pumpDutyCost });
+    if (bad) return bad;
+  }
   const run = study?.discharge;
   const line: ProjectLine = {
     file,
@@ -88,10 +105,10 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   };
   let text = '';
   if (req.output === 'json') {
-    const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}) };
+    const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}) };
     text = `${JSON.stringify({ ...outcome.result, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}`;
+    text = `${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}`;
   }
   return { ok: true, text, line };
 }
@@ -101,3 +118,9 @@ function hasBackupStudy({ project }: Solved): boolean {
   return project.backup !== undefined && project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined);
 }
 
+
+/** The pump duty methods' yearly energy cost at the project's price (money without a symbol: the file holds none). */
+function formatPumpDutyCost(c: MethodCosts): string {
+  const m = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toFixed(2));
+  return `Pump duty energy cost per year: drive speed control ${m(c.speedControl)}, throttling ${m(c.throttle)}, on-off ${m(c.onOff)}; the drive saves ${m(c.savingVsThrottle)} against throttling, ${m(c.savingVsOnOff)} against on-off`;
+}

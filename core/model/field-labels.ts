@@ -308,6 +308,8 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "backup.horizonHours": "Study length",
     "backup.standardCapacitiesAh": "Standard capacities",
     "backup.profile": "Load profile",
+    "running.energyPricePerKWh": "Energy price per kWh",
+    "running.hoursPerYear": "Hours per year at this load",
     "pumpDuty.pump": "Pump of the duty study",
     "pumpDuty.duty": "Duty points",
   },

@@ -12,7 +12,7 @@
 import type { Source } from './sources.ts';
 import type { Stage } from './stages.ts';
 import type { Load } from './loads.ts';
-import type { BackupStudy, DropLimits, PumpDutyStudy } from './study-settings.ts';
+import type { BackupStudy, DropLimits, PumpDutyStudy, RunningCost } from './study-settings.ts';
 
 export type { PortKind, PfSense, EfficiencyPoint, LossModel, PowerFactorModel, ProtectiveDevice } from './element-base.ts';
 export type { AcSource, BatteryBankSpec, BatterySource, Source } from './sources.ts';
@@ -48,4 +48,6 @@ export interface Project {
   dropLimits?: DropLimits;
   /** Flow-control comparison at a duty profile for a `pump` element (core/studies/machines/pump-duty.ts). */
   pumpDuty?: PumpDutyStudy;
+  /** Energy price and hours a year, for what the losses cost (core/studies/economics.ts). */
+  running?: RunningCost;
 }

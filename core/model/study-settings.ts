@@ -101,3 +101,16 @@ export interface BackupStudy {
   /** Time in which the bank must be recharged, h. */
   targetRechargeHours?: number;
 }
+
+/**
+ * What running the chain costs: the energy price and the hours a year it runs at the solved
+ * operating point (core/studies/economics.ts, the yearly cost of the losses and of the pump duty
+ * methods). The currency is the user's own (the page shows their locale's symbol; the file holds a
+ * plain number).
+ */
+export interface RunningCost {
+  /** Price of energy, currency units per kWh (≥ 0). Without it no cost is worked out. */
+  energyPricePerKWh?: number;
+  /** Hours per year at the solved operating point, 0…8784 h (default 8760: all year). */
+  hoursPerYear?: number;
+}

@@ -9,13 +9,17 @@
  */
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
-import type { ElementKind } from '../model/project.ts';
+import type { ElementKind, Project } from '../model/project.ts';
 import type { SolveResult } from '../model/result.ts';
+import { HOURS_IN_YEAR, MAX_HOURS_PER_YEAR } from '../solve/running-schema.ts';
+import { sigText } from '../model/message.ts';
 
-/** Hours in a leap year (366 × 24): the most a year can hold. */
-export const MAX_HOURS_PER_YEAR = 8784;
-/** Hours in a common year (365 × 24): running all year round. */
-export const HOURS_IN_YEAR = 8760;
+// Hours in a leap year (the most a year can hold) and in a common year (all year round, the default).
+export { HOURS_IN_YEAR, MAX_HOURS_PER_YEAR };
+
+/** Where the price and hours live in the project file (problems name them so; the forms mark those fields). */
+export const PRICE_FIELD = 'running.energyPricePerKWh';
+export const HOURS_FIELD = 'running.hoursPerYear';
 
 /** Losses smaller than this (W) are solver round-off, not a stage that loses power. */
 const ROUND_OFF_W = 1e-9;
@@ -51,22 +55,34 @@ export interface LossCost {
 
 export type LossCostOutcome = { ok: true; cost: LossCost } | { ok: false; problems: Problem[] };
 
-/** Problems of the cost settings (PROJECT_LEVEL, fields `pricePerKWh`, `hoursPerYear`). */
+/**
+ * The cost settings a project carries (`running`): its price per kWh and hours per year (default
+ * HOURS_IN_YEAR, all year). Null without a price: nothing to cost. The command line reads them so;
+ * the page too, falling back to the user's earlier setting on that device for a project that has no
+ * `running` yet (web/state/prefs.ts).
+ */
+export function costSettingsOf(project: Pick<Project, 'running'>): CostSettings | null {
+  const r = project.running;
+  if (r?.energyPricePerKWh === undefined) return null;
+  return { pricePerKWh: r.energyPricePerKWh, hoursPerYear: r.hoursPerYear ?? HOURS_IN_YEAR };
+}
+
+/** Problems of the cost settings (PROJECT_LEVEL, the project's fields `running.energyPricePerKWh`, `running.hoursPerYear`). */
 export function checkCostSettings(settings: CostSettings): Problem[] {
   const out: Problem[] = [];
   const { pricePerKWh: price, hoursPerYear: hours } = settings;
   if (typeof price !== 'number' || !Number.isFinite(price)) {
-    out.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'pricePerKWh', value: price, message: 'the energy price must be a number (per kWh)' });
+    out.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: PRICE_FIELD, value: price, message: 'the energy price must be a number (per kWh)' });
   } else if (price < 0) {
-    out.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'pricePerKWh', value: price, message: 'the energy price must not be negative' });
+    out.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: PRICE_FIELD, value: price, message: 'the energy price must not be negative' });
   }
   if (typeof hours !== 'number' || !Number.isFinite(hours)) {
-    out.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'hoursPerYear', value: hours, message: 'the hours per year must be a number' });
+    out.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: HOURS_FIELD, value: hours, message: 'the hours per year must be a number' });
   } else if (hours < 0 || hours > MAX_HOURS_PER_YEAR) {
     out.push({
       code: 'invalid-value',
       elementId: PROJECT_LEVEL,
-      field: 'hoursPerYear',
+      field: HOURS_FIELD,
       value: hours,
       message: `the hours per year must be between 0 and ${MAX_HOURS_PER_YEAR} (a leap year; 8760 runs all year)`,
     });
@@ -124,4 +140,17 @@ export function pumpDutyCosts(energies: MethodEnergies, pricePerKWh: number): { 
   const throttle = energyCost(energies.throttle.energyWh, pricePerKWh);
   const onOff = energyCost(energies.onOff.energyWh, pricePerKWh);
   return { ok: true, costs: { speedControl, throttle, onOff, savingVsThrottle: throttle - speedControl, savingVsOnOff: onOff - speedControl } };
+}
+
+/** The yearly cost of the losses as plain text (the command line; money without a currency symbol, the file holds none). */
+export function formatLossCost(c: LossCost): string {
+  const money = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toFixed(2));
+  const lines = [
+    `What the losses cost per year (E = loss × ${sigText(c.hoursPerYear, 5)} h, at ${sigText(c.pricePerKWh, 4)} per kWh; the operating point held all those hours):`,
+  ];
+  const width = Math.max(5, ...c.rows.map((r) => r.name.length));
+  lines.push(`  ${'Where'.padEnd(width)}  ${'Loss W'.padStart(10)}  ${'kWh/year'.padStart(10)}  ${'Cost/year'.padStart(10)}`);
+  for (const r of c.rows) lines.push(`  ${r.name.padEnd(width)}  ${sigText(r.lossW, 4).padStart(10)}  ${sigText(r.energyKWh, 4).padStart(10)}  ${money(r.cost).padStart(10)}`);
+  lines.push(`  ${'All losses'.padEnd(width)}  ${sigText(c.totalLossW, 4).padStart(10)}  ${sigText(c.totalEnergyKWh, 4).padStart(10)}  ${money(c.totalCost).padStart(10)}`);
+  return lines.join('\n');
 }

@@ -77,10 +77,10 @@ describe('cost of the losses per year', () => {
     expect(bad.ok).toBe(false);
     if (bad.ok) return;
     expect(bad.problems.map((p) => [p.elementId, p.field])).toEqual([
-      [PROJECT_LEVEL, 'pricePerKWh'],
-      [PROJECT_LEVEL, 'hoursPerYear'],
+      [PROJECT_LEVEL, 'running.energyPricePerKWh'],
+      [PROJECT_LEVEL, 'running.hoursPerYear'],
     ]);
-    expect(checkCostSettings({ pricePerKWh: Number.NaN, hoursPerYear: Number.POSITIVE_INFINITY }).map((p) => p.field)).toEqual(['pricePerKWh', 'hoursPerYear']);
+    expect(checkCostSettings({ pricePerKWh: Number.NaN, hoursPerYear: Number.POSITIVE_INFINITY }).map((p) => p.field)).toEqual(['running.energyPricePerKWh', 'running.hoursPerYear']);
     // 366 × 24 = 8784 h is the longest year (a leap year): accepted; one more hour is not.
     expect(checkCostSettings({ pricePerKWh: 0, hoursPerYear: MAX_HOURS_PER_YEAR })).toEqual([]);
     expect(checkCostSettings({ pricePerKWh: 0, hoursPerYear: MAX_HOURS_PER_YEAR + 1 })).toHaveLength(1);

@@ -186,6 +186,8 @@ function brokenValues(v: unknown): unknown[] {
 const bases: { label: string; project: unknown }[] = [
   ...demoProjects.map((d) => ({ label: `demo ${d.id}`, project: d.project as unknown })),
   { label: 'battery bank with a backup study', project: batteryBenchProject() },
+  // The running cost (energy price, hours a year) in the file: its broken values too.
+  { label: 'demo riverside-pump-station with its running cost', project: { ...(demoProjects.find((d) => d.id === 'riverside-pump-station')!.project as object), running: { energyPricePerKWh: 0.2, hoursPerYear: 6000 } } },
 ];
 
 describe('every message the engine produces is in the user\'s words', () => {
@@ -204,7 +206,7 @@ describe('every message the engine produces is in the user\'s words', () => {
         }
       }
     });
-    for (const key of ['backup', 'dropLimits', 'pumpDuty'] as const) {
+    for (const key of ['backup', 'dropLimits', 'pumpDuty', 'running'] as const) {
       if (p[key] === undefined) continue;
       for (const path of leaves(p[key])) {
         let v: unknown = p[key];

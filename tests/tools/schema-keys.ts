@@ -1,12 +1,13 @@
 /**
  * Every camelCase key of the file format's schemas (the zod mini definitions of every kind, the backup
- * study, the drop limits and the pump duty, walked), and a pattern that finds one standing as a word:
+ * study, the drop limits, the pump duty and the running cost, walked), and a pattern that finds one standing as a word:
  * what must never reach users as a field's name (tests/core/messages.test.ts, tests/tools/user-words.test.ts).
  */
 import { KINDS } from '../../core/kinds/index.ts';
 import { backupSchema } from '../../core/solve/load-profile.ts';
 import { dropLimitsSchema } from '../../core/conductors/path-drop.ts';
 import { pumpDutySchema } from '../../core/kinds/pump.ts';
+import { runningSchema } from '../../core/solve/running-schema.ts';
 
 export function schemaKeys(): string[] {
   const keys = new Set<string>();
@@ -29,7 +30,7 @@ export function schemaKeys(): string[] {
     }
   };
   for (const spec of KINDS.values()) walk(spec.schema);
-  [backupSchema, dropLimitsSchema, pumpDutySchema].forEach(walk);
+  [backupSchema, dropLimitsSchema, pumpDutySchema, runningSchema].forEach(walk);
   return [...keys].filter((k) => /[a-z][A-Z]/.test(k)).sort();
 }
 

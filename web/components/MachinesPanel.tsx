@@ -7,16 +7,16 @@
  *
  * Every figure comes from core (machineDetails, pumpDetails, projectPumpDuty, correctPowerFactor,
  * lossCostPerYear, pumpDutyCosts), run in the panel worker (panel-worker.ts); the panel only
- * formats. The energy price and hours per year are the user's own settings (web/state/prefs.ts),
- * not project data. This file asks the worker and lays the panel out; its sections are in
+ * formats. The energy price and hours per year are the project's `running` settings (a project
+ * without them starts from this device's earlier setting, web/state/prefs.ts `costInForce`). This file asks the worker and lays the panel out; its sections are in
  * web/components/machines/: MachineCards.tsx, PumpDutyStudy.tsx, PfCorrection.tsx, LossCost.tsx.
  */
 import { useRef } from 'preact/hooks';
 import type { Solved } from '../../core/page.ts';
 import type { MachinesFigures } from './panel-worker.ts';
 import { useWorkerReply } from './panel-client.ts';
-import { effectiveLocale, energyPrice, operatingHours, unitSystem } from '../state/prefs.ts';
-import { outcome, resultsState } from '../state/editor.ts';
+import { costInForce, effectiveLocale, unitSystem } from '../state/prefs.ts';
+import { draft, outcome, resultsState } from '../state/editor.ts';
 import { LossCost } from './machines/LossCost.tsx';
 import { DriveCard, MotorCard, PumpCard } from './machines/MachineCards.tsx';
 import { PfCorrectionControl } from './machines/PfCorrection.tsx';
@@ -27,17 +27,19 @@ export default function MachinesPanel() {
   const o = outcome.value;
   const units = unitSystem.value;
   const locale = effectiveLocale();
-  const price = energyPrice.value;
-  const hours = operatingHours.value;
   // The draft's own solved pair (project and result), handed whole to the worker.
   const solved = o?.ok ? o : null;
+  // The price and hours of the solved project (a value the engine refused never enters it).
+  const cost = costInForce(solved?.project ?? null);
+  const price = cost?.pricePerKWh ?? null;
+  const hours = cost?.hoursPerYear ?? 0;
   const result = solved?.result ?? null;
   /** The solved pair the latest request was built from (the reply that is shown is always the latest's). */
   const sent = useRef<Solved | null>(null);
   const { reply, pending } = useWorkerReply<'machines'>(() => {
     if (!solved) return null;
     sent.current = solved;
-    return { kind: 'machines', solved, cost: price !== null ? { pricePerKWh: price, hoursPerYear: hours } : null };
+    return { kind: 'machines', solved, cost };
   }, [solved, price, hours]);
   /** The last figures of a valid draft, with the solved pair they belong to (kept while later drafts do not solve). */
   const last = useRef<{ figures: MachinesFigures; solved: Solved } | null>(null);
@@ -74,7 +76,7 @@ export default function MachinesPanel() {
       )}
       {pumpDuty && <PumpDuty duty={pumpDuty} locale={locale} />}
       <PfCorrectionControl solved={shown.solved} locale={locale} />
-      <LossCost lossCost={lossCost} locale={locale} />
+      {draft.value && <LossCost lossCost={lossCost} project={draft.value} units={units} locale={locale} />}
     </div>
   );
 }

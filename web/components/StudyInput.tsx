@@ -10,6 +10,8 @@ export interface StudyInputProps {
   /** The text shown: what the user is typing, or the stored value formatted. */
   text: string;
   placeholder?: string | undefined;
+  /** One short line under the field: the typical value and why. */
+  help?: string | undefined;
   /** The message at the field, when the text cannot be used. */
   message?: string | null | undefined;
   onText: (text: string) => void;
@@ -18,7 +20,8 @@ export interface StudyInputProps {
   testId: string;
 }
 
-export function StudyInput({ id, label, unit, text, placeholder, message, onText, onLeave, testId }: StudyInputProps) {
+export function StudyInput({ id, label, unit, text, placeholder, help, message, onText, onLeave, testId }: StudyInputProps) {
+  const described = [help ? `${id}-help` : '', message ? `${id}-error` : ''].filter(Boolean).join(' ');
   return (
     <div class={message ? 'study-field study-field--error' : 'study-field'}>
       <label for={id} class="study-field__label">
@@ -34,13 +37,18 @@ export function StudyInput({ id, label, unit, text, placeholder, message, onText
           value={text}
           placeholder={placeholder}
           aria-invalid={message ? 'true' : undefined}
-          aria-describedby={message ? `${id}-error` : undefined}
+          aria-describedby={described || undefined}
           onInput={(e) => onText((e.currentTarget as HTMLInputElement).value)}
           onBlur={onLeave}
           data-testid={testId}
         />
         <span class="study-field__unit">{unit}</span>
       </span>
+      {help && (
+        <span id={`${id}-help`} class="study-field__help">
+          {help}
+        </span>
+      )}
       {message && (
         <span id={`${id}-error`} class="study-field__error" role="alert">
           {message}

@@ -142,8 +142,11 @@ effect(() => {
 });
 
 // ---------- running-cost settings (what the losses cost per year; machines panel) ----------
-// A preference of the person, not project data: a price per kWh in their own currency and the
-// hours a year their chains run. Kept under a key of their own so the display record stays as is.
+// The energy price and hours a year now live in the project file (`running`, core/model/study-settings.ts).
+// What was the person's preference (a price per kWh in their own currency, the hours a year their
+// chains run, kept on this device) is what a project without `running` starts from: an older file, a
+// new project. The last value typed in a project becomes it, so the next new project starts there.
+// Kept under a key of its own so the display record stays as is.
 
 export interface CostPrefs {
   /** Price of energy per kWh in the locale's currency; null until the user gives one. */
@@ -198,4 +201,36 @@ export function costPrefProblem(field: 'pricePerKWh' | 'hoursPerYear', value: nu
   if (!Number.isFinite(value)) return 'must be a number';
   if (field === 'pricePerKWh') return value < 0 ? 'the energy price must not be negative' : null;
   return value < 0 || value > 8784 ? 'the hours per year must be between 0 and 8784 (a leap year; 8760 runs all year)' : null;
+}
+
+/** Hours in a common year (365 × 24): a project's `running` without hours runs all year (core/studies/economics.ts). */
+const ALL_YEAR_H = 8760;
+
+/** The running cost a project works with, and whether it comes from this device (the project has no `running` yet). */
+export interface RunningInForce {
+  /** Price per kWh; null: none given, no cost. */
+  price: number | null;
+  hours: number;
+  fromDevice: boolean;
+}
+
+const isRecord = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/**
+ * The energy price and hours a project works with: its own `running` settings (hours 8760 when left
+ * out, as the engine and the command line read them), or, for a project without them (an older file,
+ * a new project), the setting kept on this device.
+ */
+export function runningInForce(project: unknown, device: CostPrefs = { pricePerKWh: energyPrice.value, hoursPerYear: operatingHours.value }): RunningInForce {
+  const running = isRecord(project) ? project['running'] : undefined;
+  if (!isRecord(running)) return { price: device.pricePerKWh, hours: device.hoursPerYear, fromDevice: true };
+  const price = running['energyPricePerKWh'];
+  const hours = running['hoursPerYear'];
+  return { price: typeof price === 'number' ? price : null, hours: typeof hours === 'number' ? hours : ALL_YEAR_H, fromDevice: false };
+}
+
+/** The cost settings the studies take ({ pricePerKWh, hoursPerYear }), or null without a price. */
+export function costInForce(project: unknown): { pricePerKWh: number; hoursPerYear: number } | null {
+  const r = runningInForce(project);
+  return r.price === null ? null : { pricePerKWh: r.price, hoursPerYear: r.hours };
 }

@@ -15,7 +15,7 @@ import { useEffect } from 'preact/hooks';
 import { DESIGN_BASIS_WORDS, solveAnswers, type Solved, type SolveAnswers } from '../../../core/page.ts';
 import type { BankStudyAnswer, StudyAnswers } from '../../../core/studies/index.ts';
 import { formatCurrent, formatDuration, formatPower, formatSignificant, UNIT_GAP } from '../../format/number.ts';
-import { effectiveLocale, energyPrice, operatingHours } from '../../state/prefs.ts';
+import { costInForce, effectiveLocale } from '../../state/prefs.ts';
 import { openCount } from '../../state/editor.ts';
 import { Fig, type WorkingTarget } from './fig.tsx';
 import { entryState, moneyFormat, needsStudies, NO_STUDIES, requestStudyAnswers, studyAnswers } from './study-answers.ts';
@@ -89,10 +89,11 @@ export function AnswersLines({ solved, part }: { solved: Solved; part: 'first' |
   const a = solveAnswers(solved);
   const loc = effectiveLocale();
   const open = openCount.value;
-  const price = energyPrice.value;
-  const hours = operatingHours.value;
+  // The project's price and hours (or, for a project without them, this device's earlier setting).
+  const cost = costInForce(solved.project);
+  const price = cost?.pricePerKWh ?? null;
+  const hours = cost?.hoursPerYear ?? 0;
   // After the paint: ask the worker for the study answers of the pair on screen (once, from the first part).
-  const cost = price !== null ? { pricePerKWh: price, hoursPerYear: hours } : null;
   useEffect(() => {
     if (part === 'first') requestStudyAnswers(solved, open, cost);
   }, [part, solved, open, price, hours]);

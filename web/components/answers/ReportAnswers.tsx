@@ -19,7 +19,7 @@
 import { DESIGN_BASIS_WORDS, solveAnswers, type Solved, type SolveAnswers } from '../../../core/page.ts';
 import { flowGraph, type StudyAnswers } from '../../../core/studies/index.ts';
 import { formatCurrent, formatDuration, formatPercent, formatPower, formatSignificant, UNIT_GAP } from '../../format/number.ts';
-import { effectiveLocale, energyPrice, operatingHours } from '../../state/prefs.ts';
+import { costInForce, effectiveLocale } from '../../state/prefs.ts';
 import { openCount } from '../../state/editor.ts';
 import { entryState, moneyFormat, needsStudies, NO_STUDIES, studyAnswers } from './study-answers.ts';
 import { hoursWords } from './AnswersLines.tsx';
@@ -36,8 +36,7 @@ const LATER = 'being calculated';
 export function ReportAnswers({ solved, answers, studies: given, locale }: ReportAnswersProps) {
   const a = answers ?? solveAnswers(solved);
   const loc = locale ?? effectiveLocale();
-  const price = energyPrice.value;
-  const nothingToStudy = given === undefined && !needsStudies(solved, price !== null ? { pricePerKWh: price, hoursPerYear: operatingHours.value } : null);
+  const nothingToStudy = given === undefined && !needsStudies(solved, costInForce(solved.project));
   const entry = studyAnswers.value;
   const fromStrip = nothingToStudy ? NO_STUDIES : entryState(entry, solved, openCount.value) === 'current' && entry?.outcome.ok ? entry.outcome.answers : undefined;
   const studies = given === undefined ? fromStrip : given ?? undefined;

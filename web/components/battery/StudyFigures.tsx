@@ -45,7 +45,7 @@ function RechargeFigures({ study, locale }: { study: BackupStudyResult; locale: 
             </div>
             <div>
               <dt>AC energy for the recharge</dt>
-              <dd>{formatEnergy(r.acInputEnergyWh, locale)}</dd>
+              <dd data-testid="battery-recharge-ac-energy">{formatEnergy(r.acInputEnergyWh, locale)}</dd>
             </div>
           </dl>
           {r.warnings.length > 0 && (
@@ -146,7 +146,7 @@ export function StudyFigures({ study, cautions, locale, units }: { study: Backup
           <div>
             <dt>Lowest terminal voltage</dt>
             <dd>
-              {formatVoltage(d.minVoltage, locale)} <span class="cell-note">cut-off {formatVoltage(d.cutoffVoltage, locale)}</span>
+              {formatVoltage(d.minVoltage, locale)} <span class="cell-note" data-testid="battery-cutoff-voltage">cut-off {formatVoltage(d.cutoffVoltage, locale)}</span>
             </dd>
           </div>
           <div>

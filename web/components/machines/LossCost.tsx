@@ -1,105 +1,101 @@
 /**
- * The machines panel's running cost of the losses: the energy price and hours (the user's settings) and the
- * cost per element per year.
+ * The machines panel's running cost of the losses: the energy price and hours per year (the project's
+ * `running` settings, written through the engine-checked setField; a project without them starts from
+ * this device's earlier setting, web/state/prefs.ts) and the cost per element per year. A value the
+ * engine refuses keeps its message at the field, and the last valid cost stays, marked out of date.
  */
-import { StudyInput } from '../StudyInput.tsx';
-import { useState } from 'preact/hooks';
 import type { MachinesFigures } from '../panel-worker.ts';
 import { formatEnergy, formatPower, formatSignificant } from '../../format/number.ts';
-import { formatForInput, parseLocaleNumber } from '../../format/parse.ts';
 import { currencySymbol, formatMoney } from '../../format/panels.ts';
-import { costPrefProblem, energyPrice, operatingHours } from '../../state/prefs.ts';
+import { formatForInput } from '../../format/parse.ts';
+import type { UnitSystem } from '../../format/units.ts';
+import { energyPrice, operatingHours, runningInForce } from '../../state/prefs.ts';
+import { fieldError, setField, setFieldError, type DraftProject } from '../../state/editor.ts';
+import { PROJECT_LEVEL } from '../../../core/page.ts';
 import { type Locale, ProblemLines } from './shared.tsx';
 import { CsvButton } from '../report/CsvButton.tsx';
+import { SettingField } from '../SettingField.tsx';
 
-/** A number setting kept in the user's preferences (typed in their number format, checked by core). */
-function PrefNumber({
-  id,
-  label,
-  unit,
-  value,
-  onValue,
-  check,
-  locale,
-  placeholder,
-  testId,
-}: {
-  id: string;
-  label: string;
-  unit: string;
-  value: number | null;
-  onValue: (v: number | null) => void;
-  check: (v: number) => string | null;
-  locale: Locale;
-  placeholder?: string;
-  testId: string;
-}) {
-  const [text, setText] = useState<string | null>(null);
-  const [message, setMessage] = useState<string | null>(null);
-  const commit = (t: string) => {
-    setText(t);
-    const parsed = parseLocaleNumber(t, locale);
-    if (parsed.kind === 'invalid') return setMessage(`${label}: '${t.trim()}' ${parsed.problem}`);
-    if (parsed.kind === 'empty') {
-      setMessage(null);
-      return onValue(null);
-    }
-    const problem = check(parsed.value);
-    if (problem) return setMessage(`${label}: ${problem}`);
-    setMessage(null);
-    onValue(parsed.value);
-  };
-  return (
-    <StudyInput
-      id={id}
-      label={label}
-      unit={unit}
-      text={text ?? (value === null ? '' : formatForInput(value, locale))}
-      placeholder={placeholder}
-      message={message}
-      onText={commit}
-      onLeave={() => {
-        if (!message) setText(null);
-      }}
-      testId={testId}
-    />
-  );
+type RunningKey = 'energyPricePerKWh' | 'hoursPerYear';
+const PRICE_LABEL = 'Energy price per kWh';
+const HOURS_LABEL = 'Hours per year at this load';
+
+/**
+ * Write one running setting. A project that has no `running` yet gets the whole object at once: the
+ * value typed and the other setting as shown (carried over from this device), so what the page showed
+ * is what the file then holds. The device's setting follows the last value taken (a new project starts there).
+ */
+export function writeRunning(project: DraftProject, key: RunningKey, value: number | undefined, label: string): string | null {
+  const path = `running.${key}`;
+  const own = project['running'];
+  let message: string | null;
+  if (typeof own === 'object' && own !== null) {
+    message = setField(PROJECT_LEVEL, path, value, `Running cost: ${label.toLowerCase()}`);
+  } else {
+    const shown = runningInForce(project);
+    const running: Record<string, number> = { hoursPerYear: shown.hours };
+    if (shown.price !== null) running['energyPricePerKWh'] = shown.price;
+    if (value === undefined) delete running[key];
+    else running[key] = value;
+    message = setField(PROJECT_LEVEL, 'running', running, `Running cost: ${label.toLowerCase()}`);
+    // The message belongs at the field typed in, not at the object.
+    setFieldError(PROJECT_LEVEL, 'running', null);
+    setFieldError(PROJECT_LEVEL, path, message);
+  }
+  if (message === null) {
+    if (key === 'energyPricePerKWh') energyPrice.value = value ?? null;
+    else operatingHours.value = value ?? 8760;
+  }
+  return message;
 }
 
-export function LossCost({ lossCost, locale }: { lossCost: MachinesFigures['lossCost']; locale: Locale }) {
-  const price = energyPrice.value;
-  const hours = operatingHours.value;
+export function LossCost({ lossCost, project, units, locale }: { lossCost: MachinesFigures['lossCost']; project: DraftProject; units: UnitSystem; locale: Locale }) {
+  const running = runningInForce(project);
+  const { price, hours } = running;
   const symbol = currencySymbol(locale);
   const cost = price !== null ? lossCost ?? null : null;
+  const refused = fieldError(PROJECT_LEVEL, 'running.energyPricePerKWh') !== undefined || fieldError(PROJECT_LEVEL, 'running.hoursPerYear') !== undefined;
+  const common = { project, units, locale };
   return (
     <section class="panel-section" aria-labelledby="loss-cost-heading" data-testid="loss-cost">
       <h4 id="loss-cost-heading">What the losses cost per year</h4>
       {cost?.ok && <CsvButton name="Yearly cost of losses" />}
       <div class="study-settings study-settings--inline">
-        <PrefNumber
-          id="cost-price"
-          label={`Energy price${symbol ? `, ${symbol}` : ''} per kWh`}
+        <SettingField
+          {...common}
+          path="running.energyPricePerKWh"
+          label={PRICE_LABEL}
+          quantity="ratio"
           unit={symbol ? `${symbol}/kWh` : 'per kWh'}
-          value={price}
-          onValue={(v) => (energyPrice.value = v)}
-          check={(v) => costPrefProblem('pricePerKWh', v)}
-          locale={locale}
-          placeholder="e.g. 0.25"
+          placeholder={`e.g. ${formatForInput(0.25, locale)}`}
+          fallback={running.fromDevice ? price : undefined}
+          help="Your tariff per kWh, in your own currency (the project keeps the number). Empty: no cost."
+          write={(v) => writeRunning(project, 'energyPricePerKWh', v, PRICE_LABEL)}
           testId="cost-price"
         />
-        <PrefNumber
-          id="cost-hours"
-          label="Hours per year at this load"
-          unit="h"
-          value={hours}
-          onValue={(v) => (operatingHours.value = v ?? 8760)}
-          check={(v) => costPrefProblem('hoursPerYear', v)}
-          locale={locale}
-          placeholder="8760"
+        <SettingField
+          {...common}
+          path="running.hoursPerYear"
+          label={HOURS_LABEL}
+          quantity="time"
+          placeholder={formatForInput(8760, locale)}
+          fallback={running.fromDevice ? hours : undefined}
+          help={`${formatSignificant(8760, 4, locale)} h runs all year; a 40-hour week is about ${formatSignificant(2000, 4, locale)} h. Empty: ${formatSignificant(8760, 4, locale)} h.`}
+          write={(v) => writeRunning(project, 'hoursPerYear', v, HOURS_LABEL)}
           testId="cost-hours"
         />
       </div>
-      {!cost && <p class="note">Give your energy price to see what each stage’s loss costs a year (kept on this device, not in the project).</p>}
+      {running.fromDevice && price !== null && (
+        <p class="note" data-testid="cost-from-device">
+          The price and hours shown are this device’s earlier setting: the project does not hold them yet. Change either to keep them in the project and its exported file.
+        </p>
+      )}
+      {!cost && <p class="note">Give your energy price to see what each stage’s loss costs a year (kept in the project).</p>}
+      {refused && cost?.ok && (
+        <p class="notice notice--stale" role="status" data-testid="loss-cost-stale">
+          Out of date: the cost of the last valid price and hours. Fix the field marked above to update it.
+        </p>
+      )}
       {cost && !cost.ok && <ProblemLines problems={cost.problems} />}
       {cost?.ok && (
         <>
