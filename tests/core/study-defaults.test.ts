@@ -113,9 +113,21 @@ describe('each input given in the file changes what the study gives', () => {
     // The worksheet's minimum bank voltage (IEEE 485 header: minimum cell voltage × cells) follows it.
     expect(preset.sizing!.minimumVoltage).toBeCloseTo(42, 9);
     expect(high.sizing!.minimumVoltage).toBeCloseTo(44.4, 9);
+    // Raising the cut-off never makes the bank smaller: the preset's capacity holds to 1.75 V/cell only
+    // (a lead-acid cell gives less to a higher end voltage; IEEE 485 reads Kt for the chosen end voltage,
+    // from memory), so the power → current step keeps 24 × 1.75 V = 42 V and the required capacity
+    // is the preset's. Before this rule it fell (279 → 264 Ah): a smaller bank for a harder duty.
+    const toCurrent = (r: typeof preset) => r.sizing!.steps.find((x) => x.label === 'Voltage for power → current')!;
+    expect(toCurrent(high).value).toBeCloseTo(42, 9);
+    expect(toCurrent(high).note).toMatch(/1\.75 V\/cell, the end voltage the capacities are rated to/);
+    expect(high.sizing!.requiredCapacity).toBeGreaterThanOrEqual(preset.sizing!.requiredCapacity * (1 - 1e-12));
+    // And both results say the figures do not count the loss of capacity to the higher end voltage.
+    const caution = /cut-off 1\.85 V\/cell is above the 1\.75 V\/cell/;
+    expect(high.sizing!.cautions.some((c) => caution.test(c))).toBe(true);
+    expect(high.discharge.cautions.some((c) => caution.test(c))).toBe(true);
+    expect(preset.discharge.cautions.some((c) => caution.test(c))).toBe(false);
     // Not asserted: the runtime. The lead-acid model ends at the rated capacity at the rate, which the
-    // preset takes as delivered down to the end voltage; a maker's capacity table for the other end
-    // voltage belongs with it (the page's help says so).
+    // preset takes as delivered down to the end voltage; the caution asks for the maker's table.
   });
 
   it('standard capacities: the sizing picks the smallest listed capacity that meets the need', () => {

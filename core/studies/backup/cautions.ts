@@ -29,6 +29,18 @@ export function rechargeCautions(chemistry: Chemistry): string[] {
   return [PLANNING_CAUTION, CHARGE_VOLTAGE_CAUTION, ...(isLithium(chemistry) ? [LITHIUM_CAUTION] : []), ...(isVented(chemistry) ? [VENTED_CAUTION] : [])];
 }
 
+/**
+ * A cut-off above the voltage the capacities are rated to. A lead-acid or NiCd cell delivers less
+ * capacity to a higher end voltage (IEEE 485 reads its capacity rating factor Kt from the maker's
+ * table for the chosen end voltage — from memory, IEEE 485-2010 clause 6.3); the presets' capacity
+ * and Peukert exponent hold for their own end voltage only, so the figures cannot take that loss
+ * into account. Lithium's usable window is set by the BMS, not by a rating end voltage: no caution.
+ */
+export function endVoltageCaution(chemistry: Chemistry, givenCellVoltage: number, ratedCellVoltage: number): string | null {
+  if (isLithium(chemistry) || !(givenCellVoltage > ratedCellVoltage + 1e-9)) return null;
+  return `The cut-off ${givenCellVoltage} V/cell is above the ${ratedCellVoltage} V/cell that the capacities here are rated to. A lead-acid or NiCd cell gives less capacity to a higher end voltage, and these figures do not count that loss: give the string capacity and Peukert exponent the maker rates to ${givenCellVoltage} V/cell, or size from the maker\u2019s table for that end voltage.`;
+}
+
 /** What the bank is designed for (BackupStudy.design). */
 export type BankDesign = 'backup' | 'cycling';
 

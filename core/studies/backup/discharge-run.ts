@@ -27,7 +27,8 @@
  * - the profile ends (a `segments` profile run once) or the horizon is reached: the runtime is
  *   then "longer than" that time, never Infinity.
  */
-import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, type BankDesign } from './cautions.ts';
+import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, endVoltageCaution, type BankDesign } from './cautions.ts';
+import { CHEMISTRY_PRESETS } from '../../data/battery-chemistries.ts';
 import type { BackupStudy, BatterySource, Element, Project } from '../../model/project.ts';
 import type { ElementResult, SolveResult } from '../../model/result.ts';
 import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
@@ -295,7 +296,8 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
       ? '1 ÷ the IEEE 485 Table 1 factor, 1.00 above 25 °C as the note to Table 1 advises'
       : TYPICAL_VALUE;
   const basis = designBasis(bank.chemistry, design, v.endOfDischargeCellVoltage, from('endOfDischargeCellVoltage'), v.usableDepthOfDischarge, from('usableDepthOfDischarge'));
-  const cautions = [...bankCautions(bank.chemistry), basis];
+  const endCaution = endVoltageCaution(bank.chemistry, v.endOfDischargeCellVoltage, CHEMISTRY_PRESETS[bank.chemistry].endOfDischargeCellVoltage);
+  const cautions = [...bankCautions(bank.chemistry), basis, ...(endCaution ? [endCaution] : [])];
   if (v.minChargeTemperatureC >= 0 && temperatureC < v.minChargeTemperatureC) {
     cautions.push(`At ${sigText(temperatureC, 3)} °C this ${bank.label} bank must not be charged (minimum ${v.minChargeTemperatureC} °C); warm it first.`);
   }

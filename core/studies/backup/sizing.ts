@@ -63,8 +63,8 @@
  * bank voltage (end-of-discharge cell voltage × cells), the conservative choice — the current of a
  * constant-power load is highest there.
  */
-import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, type BankDesign } from './cautions.ts';
-import type { ChemistryValues } from '../../data/battery-chemistries.ts';
+import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, endVoltageCaution, type BankDesign } from './cautions.ts';
+import { CHEMISTRY_PRESETS, type ChemistryValues } from '../../data/battery-chemistries.ts';
 import { sizeByEnergy } from './sizing-by-energy.ts';
 import { sizeByWorksheet } from './sizing-by-worksheet.ts';
 import { isLeadAcid } from './sizing-factors.ts';
@@ -168,12 +168,22 @@ export function sizeBank(input: SizingInput): SizingOutcome {
   if (duty.basis === 'current') {
     periods = duty.periods.map((p) => ({ duration: p.duration, current: p.current }));
   } else {
-    voltageBasis = duty.voltage ?? minimumVoltage;
+    // A cut-off above the preset's rated end voltage gives no credit (a smaller current): the preset's
+    // capacity and Peukert exponent hold to its own end voltage only, and the file cannot say that a
+    // string capacity is rated to another (cautions.ts, endVoltageCaution). So raising the cut-off
+    // never makes the bank smaller; the caution asks for the maker's table.
+    const ratedEnd = CHEMISTRY_PRESETS[preset.chemistry].endOfDischargeCellVoltage;
+    const noCredit = endVoltageCaution(preset.chemistry, preset.endOfDischargeCellVoltage, ratedEnd) !== null;
+    voltageBasis = duty.voltage ?? (noCredit ? seriesCells * ratedEnd : minimumVoltage);
     step(
       'Voltage for power → current',
       voltageBasis,
       'V',
-      duty.voltage !== undefined ? 'as given' : 'minimum bank voltage (conservative: a constant-power load draws most current there)',
+      duty.voltage !== undefined
+        ? 'as given'
+        : noCredit
+          ? `${seriesCells} cells × ${ratedEnd} V/cell, the end voltage the capacities are rated to, not the higher cut-off (no credit for the higher cut-off: see the caution)`
+          : 'minimum bank voltage (conservative: a constant-power load draws most current there)',
     );
     periods = duty.periods.map((p) => ({ duration: p.duration, current: p.power / voltageBasis }));
   }
@@ -295,7 +305,8 @@ export function sizeBank(input: SizingInput): SizingOutcome {
     preset.usableDepthOfDischarge,
     userSource('usableDepthOfDischarge'),
   );
-  const cautions = [...bankCautions(preset.chemistry), basis];
+  const endCaution = endVoltageCaution(preset.chemistry, preset.endOfDischargeCellVoltage, CHEMISTRY_PRESETS[preset.chemistry].endOfDischargeCellVoltage);
+  const cautions = [...bankCautions(preset.chemistry), basis, ...(endCaution ? [endCaution] : [])];
   const blockVolts = round(preset.nominalCellVoltage * cellsPerBlock);
   const summary =
     `${choice.strings} string${choice.strings > 1 ? 's' : ''} × ${round(choice.perString)} Ah = ${round(bankCapacity)} Ah, ${Number((bankEnergyWh / 1000).toPrecision(3))} kWh` +
