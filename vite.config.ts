@@ -85,6 +85,9 @@ export default defineConfig({
           // Benchmarks belong to this project only, so `vitest bench` runs each of them once.
           benchmark: { include: ['tests/**/*.bench.ts'] },
           exclude: ['tests/browser/**', 'tests/reference/**', 'tests/properties/**', '**/node_modules/**'],
+          // Several unit tests start a process (the CLI, tsc on the schema, a packed install): under load on a
+          // shared 2-core machine one took over Vitest's default 5 s. A hang is still caught at 30 s.
+          testTimeout: 30_000,
         },
       },
       {
