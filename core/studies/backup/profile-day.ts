@@ -49,6 +49,26 @@ export interface ProfileDay {
 
 export type ProfileDayOutcome = { ok: true; day: ProfileDay } | { ok: false; problems: Problem[] };
 
+/** A load a profile can set: its id, its name (the id when unnamed), its rated value and that value's unit. */
+export interface ProfileLoadInfo {
+  id: string;
+  name: string;
+  rated: number;
+  unit: 'W' | 'VA' | 'A';
+}
+
+/** The loads of a project (or a draft of it) a profile can set, in the project's order. */
+export function profileLoadList(project: Project): ProfileLoadInfo[] {
+  const out: ProfileLoadInfo[] = [];
+  for (const e of project.elements) {
+    const load = kindSpec(e.kind)?.load;
+    if (!load) continue;
+    const rated = (e as unknown as Record<string, unknown>)[load.field];
+    out.push({ id: e.id, name: typeof e.name === 'string' && e.name ? e.name : e.id, rated: typeof rated === 'number' && Number.isFinite(rated) ? rated : 0, unit: load.unit });
+  }
+  return out;
+}
+
 /** The outage's start on the clock, h: a daily profile's `startHour`, else midnight. */
 export const profileStartHour = (p: LoadProfile): number => (p.kind === 'daily' ? (p.startHour ?? 0) : 0);
 
