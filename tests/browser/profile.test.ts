@@ -62,6 +62,17 @@ function cliRuntime(project: Json): { text: string; seconds: number; page: strin
 /** Spaces of every kind as one ASCII space (the page joins numbers and units with a narrow no-break space). */
 const plain = (s: string | null | undefined) => (s ?? '').replace(/[\s\u202f\u00a0]+/g, ' ').trim();
 
+/** A screenshot of a part of the panel: parts off screen skip rendering (`skip-offscreen`), so everything is rendered for it. */
+async function shot(page: Page, testId: string, file: string): Promise<void> {
+  await page.evaluate(`(() => { const s = document.createElement('style'); s.id = 'test-render-all'; s.textContent = '.skip-offscreen { content-visibility: visible !important; }'; document.head.append(s); })()`);
+  try {
+    await page.getByTestId(testId).scrollIntoViewIfNeeded();
+    await page.getByTestId(testId).screenshot({ path: join(artifacts, file) });
+  } finally {
+    await page.evaluate(`document.getElementById('test-render-all')?.remove()`);
+  }
+}
+
 describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', () => {
   let app: ServedApp | undefined;
 
@@ -207,9 +218,8 @@ describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', 
       expect(current?.length ?? 0).toBeGreaterThan(100);
 
       expect(await seriousAxeViolations(page)).toEqual([]);
-      await page.getByTestId('profile-editor').screenshot({ path: join(artifacts, 'profile-editor-desktop.png') });
-      await page.getByTestId('profile-seg-0').scrollIntoViewIfNeeded();
-      await page.getByTestId('profile-strip').screenshot({ path: join(artifacts, 'profile-strip-desktop.png') });
+      await shot(page, 'profile-editor', 'profile-editor-desktop.png');
+      await shot(page, 'profile-strip', 'profile-strip-desktop.png');
       expect(errors).toEqual([]);
     } finally {
       await context.close();
@@ -267,10 +277,73 @@ describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', 
       await shownRuntime(page, body, cliRuntime(fridgeAndLightsProject(FRIDGE_AND_LIGHTS)).page);
       expect(await seriousAxeViolations(page)).toEqual([]);
       expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
-      await page.getByTestId('profile-editor').screenshot({ path: join(artifacts, 'profile-editor-phone.png') });
-      await page.getByTestId('profile-strip').screenshot({ path: join(artifacts, 'profile-strip-phone.png') });
+      await shot(page, 'profile-editor', 'profile-editor-phone.png');
+      await shot(page, 'profile-strip', 'profile-strip-phone.png');
       await page.emulateMedia({ colorScheme: 'dark' });
-      await page.getByTestId('profile-editor').screenshot({ path: join(artifacts, 'profile-editor-phone-dark.png') });
+      await shot(page, 'profile-editor', 'profile-editor-phone-dark.png');
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('shows the hillside demo’s profile and edits it: a level as a share of the rating, a bad value kept at its field', async () => {
+    const context = await app!.browser.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US', colorScheme: 'dark' });
+    try {
+      const page = await context.newPage();
+      const errors = watchPageErrors(page);
+      await page.goto(`${app!.baseUrl}#demo=hillside-relay-hut`, { waitUntil: 'load' });
+      await page.getByTestId('results').waitFor();
+      await page.getByTestId('panel-battery').locator('summary').click();
+      const body = page.getByTestId('battery-panel');
+      await body.waitFor();
+      await page.getByTestId('profile-editor').waitFor();
+      // The demo's profile (core/demos/hillside-relay-hut.json): lights 80 W from 06:00, 220 W from 18:00,
+      // 40 W from 23:00; the fridge 12 min in 30; the outage at 18:00; a study of 96 h.
+      const handles = page.locator('[data-testid^="profile-handle-"]');
+      expect(await handles.count()).toBe(3);
+      expect(await Promise.all([0, 1, 2].map((i) => page.getByTestId(`profile-handle-${i}`).getAttribute('aria-valuetext')))).toEqual(['06:00', '18:00', '23:00']);
+      // Loads by their names: the fridge is the first load, the lights the second.
+      expect(await page.locator('label[for="profile-seg-0-load-1-mode"]').textContent()).toBe('Lights and sockets');
+      expect(await Promise.all([0, 1, 2].map((i) => page.getByTestId(`profile-seg-${i}-value-1`).inputValue()))).toEqual(['80', '220', '40']);
+      expect(await page.getByTestId('profile-duty-0-load').inputValue()).toBe('fridge');
+      expect(await page.getByTestId('profile-duty-0-on').inputValue()).toBe('12');
+      expect(await page.getByTestId('profile-outage-start').inputValue()).toBe('18:00');
+      expect(await page.getByTestId('profile-horizon').inputValue()).toBe('96');
+      // The day by hand (E = Σ P·Δt): fridge 150 W × 24 h × 0.4 = 1440 Wh; lights 80 W × 12 h + 220 W × 5 h
+      // + 40 W × 7 h = 2340 Wh; radios 85 W × 24 h = 2040 Wh: 5820 Wh, 242.5 W on average, 455 W at the peak.
+      await expect.poll(async () => plain(await page.getByTestId('profile-energy').textContent())).toBe('5.82 kWh');
+      expect(plain(await page.getByTestId('profile-average').textContent())).toBe('242.5 W');
+      expect(plain(await page.getByTestId('profile-peak').textContent())).toBe('455 W');
+      const demo = structuredClone(demoProjects.find((d) => d.id === 'hillside-relay-hut')!.project) as unknown as Json;
+      await shownRuntime(page, body, cliRuntime(demo).page);
+
+      // The evening's lights at 50 % of their 220 W rating: 110 W from 18:00 to 23:00.
+      await page.getByTestId('profile-seg-1-mode-1').selectOption('percent');
+      expect(await page.getByTestId('profile-seg-1-value-1').inputValue()).toBe('100');
+      await page.getByTestId('profile-seg-1-value-1').fill('50');
+      // By hand: 5820 − (220 − 110) W × 5 h = 5270 Wh.
+      await expect.poll(async () => plain(await page.getByTestId('profile-energy').textContent())).toBe('5.27 kWh');
+      demo['backup'].profile.segments[1].loads.lights = { percent: 50 };
+      await shownRuntime(page, body, cliRuntime(demo).page);
+
+      // Above 100 % of the rating: refused at the field with the engine's words, nothing stored.
+      await page.getByTestId('profile-seg-1-value-1').fill('120');
+      await expect.poll(async () => plain(await page.locator('#profile-seg-1-load-1-value-error').textContent())).toMatch(/must not exceed 100 % of the load's rating/);
+      expect(plain(await page.getByTestId('profile-energy').textContent())).toBe('5.27 kWh');
+      await page.getByTestId('profile-seg-1-value-1').fill('50');
+      await expect.poll(() => page.locator('#profile-seg-1-load-1-value-error').count()).toBe(0);
+
+      // A study length the study cannot run: the message at the field, the last figures kept.
+      await page.getByTestId('profile-horizon').fill('-3');
+      await expect.poll(async () => plain(await page.locator('#profile-horizon-error').textContent())).toMatch(/greater than 0/);
+      await expect.poll(() => body.getAttribute('data-state')).toBe('stale');
+      expect(plain(await page.getByTestId('battery-runtime').textContent())).toBe(plain(cliRuntime(demo).page));
+      await page.getByTestId('profile-horizon').fill('96');
+      await expect.poll(() => page.locator('#profile-horizon-error').count()).toBe(0);
+
+      expect(await seriousAxeViolations(page)).toEqual([]);
+      await shot(page, 'profile-editor', 'profile-editor-hillside-desktop-dark.png');
       expect(errors).toEqual([]);
     } finally {
       await context.close();
