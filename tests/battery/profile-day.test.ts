@@ -176,3 +176,20 @@ describe('property: the energy of a day is Σ segments’ power × time', () => 
     );
   });
 });
+
+describe('the command-line solver prints the day of the profile', () => {
+  it('a "Load profile" section before the backup study, and `profileDay` in --json', async () => {
+    const { runParsed } = await import('../../core/cli/run.ts');
+    const { parseArgs } = await import('../../core/cli/args.ts');
+    const text = runParsed('hut.json', hillside, parseArgs(['hut.json']) as never, undefined);
+    const json = runParsed('hut.json', hillside, parseArgs(['hut.json', '--json']) as never, undefined);
+    if (!text.ok || !json.ok) throw new Error('the CLI refused the demo');
+    // The hillside day by hand (E = Σ P·Δt): fridge 150 W × 24 h × 12/30 = 1440 Wh; lights 80 W × 12 h
+    // + 220 W × 5 h + 40 W × 7 h = 2340 Wh; radios 85 W × 24 h = 2040 Wh: 5820 Wh, 242.5 W average,
+    // peak 150 + 220 + 85 = 455 W (18:00–23:00, the fridge on).
+    expect(text.text).toContain('Load profile\n  First day of the outage, from 18:00');
+    expect(text.text).toContain('5.82 kWh, average 242.5 W, peak 455.0 W');
+    expect(text.text.indexOf('Load profile')).toBeLessThan(text.text.indexOf('Battery backup'));
+    expect(JSON.parse(json.text).profileDay.energyWh).toBeCloseTo(5820, 9);
+  });
+});

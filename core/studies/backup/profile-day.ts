@@ -155,3 +155,20 @@ export function profileDay(project: Project, study: unknown, solved?: SolveResul
   const covered = timeline.end / HOUR;
   return { ok: true, day: { intervals, energyWh, averageW: covered > 0 ? energyWh / covered : 0, peakW, startHour: start, uncounted } };
 }
+
+/** An hour of the day as a clock shows it: 18.5 → "18:30". */
+const clock = (hour: number): string => {
+  const minutes = Math.round(hour * 60);
+  return `${String(Math.floor(minutes / 60)).padStart(2, '0')}:${String(minutes % 60).padStart(2, '0')}`;
+};
+
+/** The day of the profile as the command-line solver prints it, under the battery backup study. */
+export function formatProfileDay(day: ProfileDay): string {
+  const lines = [
+    '',
+    'Load profile',
+    `  First day of the outage, from ${clock(day.startHour)} (the loads alone; the chain's losses come on top): ${(day.energyWh / 1000).toFixed(2)} kWh, average ${day.averageW.toFixed(1)} W, peak ${day.peakW.toFixed(1)} W`,
+  ];
+  if (day.uncounted.length) lines.push(`  (not counted in that figure: ${day.uncounted.length} load(s) given by current)`);
+  return lines.join('\n');
+}

@@ -344,22 +344,22 @@ function Preview({ project, common }: { project: DraftProject; common: Common })
         <p id="profile-preview-summary" class="tchart__summary">
           Total power of the loads over the first day of the outage, by the clock (the chain's own losses come on top; the study counts them).
         </p>
-        <dl class="panel-figures">
-          <div>
-            <dt>Energy over the day</dt>
-            <dd data-testid="profile-energy">{formatEnergy(day.energyWh, locale)}</dd>
-          </div>
-          <div>
-            <dt>Average</dt>
-            <dd data-testid="profile-average">{formatPower(day.averageW, locale)}</dd>
-          </div>
-          <div>
-            <dt>Peak</dt>
-            <dd data-testid="profile-peak">{formatPower(day.peakW, locale)}</dd>
-          </div>
-        </dl>
         {uncounted.length > 0 && <p class="note">Not counted here until the chain solves: {uncounted.join(', ')} (given by current).</p>}
       </figcaption>
+      <dl class="panel-figures">
+        <div>
+          <dt>Energy over the day</dt>
+          <dd data-testid="profile-energy">{formatEnergy(day.energyWh, locale)}</dd>
+        </div>
+        <div>
+          <dt>Average</dt>
+          <dd data-testid="profile-average">{formatPower(day.averageW, locale)}</dd>
+        </div>
+        <div>
+          <dt>Peak</dt>
+          <dd data-testid="profile-peak">{formatPower(day.peakW, locale)}</dd>
+        </div>
+      </dl>
     </figure>
   );
 }
