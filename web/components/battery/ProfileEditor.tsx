@@ -122,6 +122,10 @@ function LevelControl({ day, seg, load, common }: { day: DailyProfile; seg: numb
   const rated = formatWithPrefix(load.rated, load.unit, 4, locale);
   const label = `${load.name}: ${mode === 'percent' ? 'share of its rating' : UNIT_WORD[load.unit]}`;
   const undo = `Load profile: ${load.name} in segment ${seg + 1}`;
+  const put = (level: LoadSetting | undefined) => {
+    const next = withLevel(day, seg, load.id, level);
+    return writeProfile(next, path, undo, { path: `backup.profile.segments.${seg}.loads`, value: next.segments[seg]!.loads });
+  };
   return (
     <div class="profile-level">
       <div class="study-field">
@@ -134,7 +138,7 @@ function LevelControl({ day, seg, load, common }: { day: DailyProfile; seg: numb
           value={mode}
           onChange={(e) => {
             const next = (e.currentTarget as HTMLSelectElement).value as LevelMode;
-            writeProfile(withLevel(day, seg, load.id, levelOfMode(next, setting, load.rated)), path, undo);
+            put(levelOfMode(next, setting, load.rated));
           }}
           data-testid={`profile-seg-${seg}-mode-${k}`}
         >
@@ -152,13 +156,19 @@ function LevelControl({ day, seg, load, common }: { day: DailyProfile; seg: numb
           fieldPath={path}
           shown={mode === 'percent' ? inputText((setting as { percent: number }).percent, 'percent', units, locale) : inputText(setting, quantity, units, locale)}
           read={numberReader(label, quantity, units, locale)}
-          write={(v) => writeProfile(withLevel(day, seg, load.id, mode === 'percent' ? { percent: v! } : v!), path, undo)}
+          write={(v) => put(mode === 'percent' ? { percent: v! } : v!)}
           testId={`profile-seg-${seg}-value-${k}`}
         />
       )}
     </div>
   );
 }
+
+/** A segment's new start hour (typed or from the strip). */
+const moveStart = (day: DailyProfile, seg: number, hour: number) => {
+  const path = `backup.profile.segments.${seg}.startHour`;
+  return writeProfile(withStartHour(day, seg, hour), path, `Load profile: start of segment ${seg + 1}`, { path, value: hour });
+};
 
 function SegmentCard({ day, seg, common }: { day: DailyProfile; seg: number; common: Common }) {
   const s = day.segments[seg]!;
@@ -177,12 +187,12 @@ function SegmentCard({ day, seg, common }: { day: DailyProfile; seg: number; com
           fieldPath={`backup.profile.segments.${seg}.startHour`}
           shown={clockText(s.startHour)}
           read={clockReader(`Segment ${seg + 1} starts at`, common.locale)}
-          write={(hour) => writeProfile(withStartHour(day, seg, hour), `backup.profile.segments.${seg}.startHour`, `Load profile: start of segment ${seg + 1}`)}
+          write={(hour) => moveStart(day, seg, hour)}
           hint="18:00"
           testId={`profile-seg-${seg}-start`}
         />
         {day.segments.length > 1 && (
-          <button type="button" class="panel-button" onClick={() => writeProfile(removeSegment(day, seg), 'backup.profile.segments', `Load profile: removed segment ${seg + 1}`)} data-testid={`profile-seg-${seg}-remove`}>
+          <button type="button" class="panel-button" onClick={() => writeProfile(removeSegment(day, seg), 'backup.profile.segments', `Load profile: removed segment ${seg + 1}`, { path: 'backup.profile.segments', value: removeSegment(day, seg).segments })} data-testid={`profile-seg-${seg}-remove`}>
             Remove segment {seg + 1}
           </button>
         )}
@@ -191,6 +201,16 @@ function SegmentCard({ day, seg, common }: { day: DailyProfile; seg: number; com
         {common.loads.map((load) => (
           <LevelControl key={load.id} day={day} seg={seg} load={load} common={common} />
         ))}
+        {Object.keys(s.loads ?? {})
+          .filter((id) => !common.loads.some((l) => l.id === id))
+          .map((id) => (
+            <p key={id} class="note">
+              The profile sets “{id}”, which is not a load of this project.{' '}
+              <button type="button" class="panel-button" onClick={() => writeProfile(withLevel(day, seg, id, undefined), `backup.profile.segments.${seg}.loads.${id}`, `Load profile: removed “${id}” from segment ${seg + 1}`)}>
+                Remove it from segment {seg + 1}
+              </button>
+            </p>
+          ))}
       </div>
     </fieldset>
   );
@@ -208,7 +228,7 @@ function DutyRow({ profile, k, common }: { profile: LoadProfile; k: number; comm
       if (merged.offsetMinutes === undefined) delete merged.offsetMinutes;
       return merged;
     });
-    return writeProfile(withDuty(profile, duty), `${path}.${field}`, `Load profile: duty cycle of ${name}`);
+    return writeProfile(withDuty(profile, duty), `${path}.${field}`, `Load profile: duty cycle of ${name}`, { path, value: duty[k] });
   };
   const minutes = (label: string, required: boolean) => numberReader(label, 'ratio', units, locale, required);
   return (
@@ -384,7 +404,7 @@ export function ProfileEditor({ project, units, locale }: { project: DraftProjec
             fieldPath="backup.profile.startHour"
             shown={clockText(day.startHour ?? 0)}
             read={clockReader('Outage starts at', locale)}
-            write={(hour) => writeProfile({ ...day, startHour: hour }, 'backup.profile.startHour', 'Load profile: outage start')}
+            write={(hour) => writeProfile({ ...day, startHour: hour }, 'backup.profile.startHour', 'Load profile: outage start', { path: 'backup.profile.startHour', value: hour })}
             hint="00:00"
             testId="profile-outage-start"
           />
@@ -404,13 +424,13 @@ export function ProfileEditor({ project, units, locale }: { project: DraftProjec
       {day ? (
         <>
           <h5 class="profile-editor__sub">The day by the clock</h5>
-          <DayStrip segments={day.segments} outageHour={day.startHour ?? 0} onMove={(i, hour) => writeProfile(withStartHour(day, i, hour), `backup.profile.segments.${i}.startHour`, `Load profile: start of segment ${i + 1}`)} />
+          <DayStrip segments={day.segments} outageHour={day.startHour ?? 0} onMove={(i, hour) => moveStart(day, i, hour)} />
           <div class="profile-segments">
             {day.segments.map((_, i) => (
               <SegmentCard key={i} day={day} seg={i} common={common} />
             ))}
           </div>
-          <button type="button" class="panel-button" onClick={() => writeProfile(addSegment(day), 'backup.profile.segments', 'Load profile: added a segment')} data-testid="profile-add-segment">
+          <button type="button" class="panel-button" onClick={() => writeProfile(addSegment(day), 'backup.profile.segments', 'Load profile: added a segment', { path: 'backup.profile.segments', value: addSegment(day).segments })} data-testid="profile-add-segment">
             Add a segment
           </button>
         </>

@@ -7,7 +7,7 @@
  */
 import { PROJECT_LEVEL, type LoadProfile } from '../../../../core/page.ts';
 import { backupSettingsProblems } from '../../../../core/studies/index.ts';
-import { draft, setField, setFieldError, type DraftProject } from '../../../state/editor.ts';
+import { draft, setAt, setField, setFieldError, type DraftProject } from '../../../state/editor.ts';
 import { messageText } from '../../../format/message-text.ts';
 import { effectiveLocale, unitSystem } from '../../../state/prefs.ts';
 import type { Project } from '../../../../core/page.ts';
@@ -22,9 +22,8 @@ const under = (field: string, path: string) => field === path || field.startsWit
 export function writeStudy(path: string, value: unknown, fieldPath: string, label: string): string | null {
   const project = draft.value;
   if (!project) return 'No project is open.';
-  const backup = (project.backup ?? {}) as Record<string, unknown>;
-  const key = path.replace(/^backup\./, '');
-  const candidate = { ...backup, [key]: value };
+  const candidate = structuredClone((project.backup ?? {}) as Record<string, unknown>);
+  setAt(candidate, path.replace(/^backup\./, ''), value);
   const problems = backupSettingsProblems(project as unknown as Project, candidate).filter((p) => p.elementId === PROJECT_LEVEL && (under(p.field, fieldPath) || under(fieldPath, p.field)));
   if (problems.length) {
     const message = problems.map((p) => messageText(p, unitSystem.value, effectiveLocale())).join('; ');
@@ -37,8 +36,17 @@ export function writeStudy(path: string, value: unknown, fieldPath: string, labe
   return refused;
 }
 
-/** Store a whole profile, the message of a refusal at `fieldPath`. */
-export const writeProfile = (profile: LoadProfile, fieldPath: string, label: string): string | null => writeStudy('backup.profile', profile, fieldPath, label);
+/**
+ * Store a changed profile, the message of a refusal at `fieldPath`. With `part` (a path under
+ * `backup.profile` and its value, which applied to the stored profile gives `profile`), only that part
+ * is written while the stored profile is of the same kind: an undo step then covers one field's typing
+ * (setField coalesces the edits of one path), not every edit of the profile in a row.
+ */
+export function writeProfile(profile: LoadProfile, fieldPath: string, label: string, part?: { path: string; value: unknown }): string | null {
+  const stored = draft.value ? draftProfile(draft.value) : undefined;
+  if (part && stored && stored.kind === profile.kind) return writeStudy(part.path, part.value, fieldPath, label);
+  return writeStudy('backup.profile', profile, fieldPath, label);
+}
 
 /** The study's profile in the draft, or undefined. */
 export function draftProfile(project: DraftProject): LoadProfile | undefined {
