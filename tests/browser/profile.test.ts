@@ -228,6 +228,14 @@ describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', 
       expect(plotSummary).toContain(plain(`the bank current varies between ${formatCurrent(low, 'en-US')} and ${formatCurrent(high, 'en-US')}`));
       expect(plotSummary).toContain(plain(`Over ${expectedRuntime.page}`));
 
+      // Undo takes back one field's edit (typing "18:00" was one step), redo puts it back.
+      await press('profile-handle-0', 'Control+z');
+      await expect.poll(() => page.getByTestId('profile-outage-start').inputValue()).toBe('00:00');
+      expect(await page.getByTestId('profile-duty-0-on').inputValue()).toBe('12');
+      await press('profile-handle-0', 'Control+Shift+z');
+      await expect.poll(() => page.getByTestId('profile-outage-start').inputValue()).toBe('18:00');
+      await shownRuntime(page, body, expectedRuntime.page);
+
       expect(await seriousAxeViolations(page)).toEqual([]);
       await shot(page, 'profile-editor', 'profile-editor-desktop.png');
       await shot(page, 'profile-strip', 'profile-strip-desktop.png');
