@@ -299,6 +299,7 @@ describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', 
       await shot(page, 'profile-editor', 'profile-editor-phone.png');
       await shot(page, 'profile-strip', 'profile-strip-phone.png');
       await page.emulateMedia({ colorScheme: 'dark' });
+      expect(await seriousAxeViolations(page)).toEqual([]);
       await shot(page, 'profile-editor', 'profile-editor-phone-dark.png');
       expect(errors).toEqual([]);
     } finally {
