@@ -109,3 +109,24 @@ describe('hours of the day as typed and shown', () => {
     expect(clockText(23.75)).toBe('23:45');
   });
 });
+
+describe('a profile with every kind of level goes out and back in through the file', () => {
+  it('export, then import: the same profile, { percent } included', async () => {
+    const { buildExport, exportText, parseImportText } = await import('../../web/storage/file-format.ts');
+    const profile: LoadProfile = {
+      kind: 'daily',
+      startHour: 18,
+      segments: [
+        { startHour: 6, loads: { lights: false, radios: { percent: 40 } } },
+        { startHour: 18, loads: { lights: 40, radios: true } },
+      ],
+      duty: [{ load: 'fridge', periodMinutes: 30, onMinutes: 12, offsetMinutes: 5 }],
+    };
+    const project = withProfile(profile);
+    const text = exportText(buildExport(project as never, { exportedAt: new Date(0), appVersion: 'test' }));
+    const back = parseImportText(text);
+    if (!back.ok) throw new Error(back.message);
+    expect((back.project as unknown as Project).backup!.profile).toEqual(profile);
+    expect(accepted(profile)).toBe(true);
+  });
+});
