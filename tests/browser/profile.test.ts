@@ -106,6 +106,15 @@ describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', 
     const body = page.getByTestId('battery-panel');
     await body.waitFor();
     await page.getByTestId('profile-editor').waitFor();
+    expect(await page.getByTestId('profile-words').textContent()).toBe('Every load at its rating all day.');
+    // The editor's controls behind "Change the load profile".
+    const open = page.getByTestId('profile-edit-summary');
+    if (touch) await open.tap();
+    else {
+      await open.focus();
+      await page.keyboard.press('Enter');
+    }
+    await page.getByTestId('profile-add-segment').waitFor();
     // The empty study: one segment, every load at its rating, no duty cycle.
     expect(await page.locator('[data-testid^="profile-handle-"]').count()).toBe(1);
     expect(await page.getByTestId('profile-seg-0-mode-1').inputValue()).toBe('rated');
@@ -203,6 +212,7 @@ describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', 
       await checkPreview(page);
 
       expect(await reachable()).toEqual([]);
+      expect(await page.getByTestId('profile-words').textContent()).toBe('By the clock: 2 segments a day, the outage beginning at 18:00; cycling on their own: Vaccine fridge.');
 
       // The runtime shown is the CLI's for the exported file, whose profile is the one intended.
       const expectedRuntime = cliRuntime(fridgeAndLightsProject(FRIDGE_AND_LIGHTS));
@@ -318,6 +328,8 @@ describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', 
       const body = page.getByTestId('battery-panel');
       await body.waitFor();
       await page.getByTestId('profile-editor').waitFor();
+      expect(await page.getByTestId('profile-words').textContent()).toBe('By the clock: 3 segments a day, the outage beginning at 18:00; cycling on their own: Vaccine fridge.');
+      await page.getByTestId('profile-edit-summary').click();
       // The demo's profile (core/demos/hillside-relay-hut.json): lights 80 W from 06:00, 220 W from 18:00,
       // 40 W from 23:00; the fridge 12 min in 30; the outage at 18:00; a study of 96 h.
       const handles = page.locator('[data-testid^="profile-handle-"]');

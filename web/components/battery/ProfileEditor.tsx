@@ -384,6 +384,19 @@ function Preview({ project, common }: { project: DraftProject; common: Common })
   );
 }
 
+/** The profile in a few words, for the line under the heading. */
+function profileWords(profile: LoadProfile | undefined, loads: readonly ProfileLoadInfo[]): string {
+  const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`;
+  const base =
+    !profile || profile.kind === 'constant'
+      ? 'Every load at its rating all day'
+      : profile.kind === 'daily'
+        ? `By the clock: ${plural(profile.segments.length, 'segment', 'segments')} a day, the outage beginning at ${clockText(profile.startHour ?? 0)}`
+        : `${plural(profile.segments.length, 'period', 'periods')} from the outage's start, ${profile.repeat ? 'repeating' : 'run once'}`;
+  const cycling = (profile?.duty ?? []).map((d) => loads.find((l) => l.id === d.load)?.name ?? d.load);
+  return cycling.length ? `${base}; cycling on their own: ${[...new Set(cycling)].join(', ')}.` : `${base}.`;
+}
+
 export function ProfileEditor({ project, units, locale }: { project: DraftProject; units: UnitSystem; locale: string | undefined }) {
   const loads = useMemo(() => profileLoadList(project as unknown as Project), [project.elements]);
   const profile = draftProfile(project);
@@ -393,70 +406,77 @@ export function ProfileEditor({ project, units, locale }: { project: DraftProjec
   return (
     <section class="panel-section profile-editor" aria-labelledby="profile-heading" data-testid="profile-editor">
       <h4 id="profile-heading">Load profile</h4>
-      <p class="note">How the loads run during the outage: by time of day, each load's level, and loads that switch on and off on their own.</p>
-      <StartingPoints profile={profile} common={common} />
-      <div class="study-settings study-settings--inline profile-times">
-        {day && (
-          <EditField
-            id="profile-outage-start"
-            label="Outage starts at"
-            unit=""
-            fieldPath="backup.profile.startHour"
-            shown={clockText(day.startHour ?? 0)}
-            read={clockReader('Outage starts at', locale)}
-            write={(hour) => writeProfile({ ...day, startHour: hour }, 'backup.profile.startHour', 'Load profile: outage start', { path: 'backup.profile.startHour', value: hour })}
-            hint="00:00"
-            testId="profile-outage-start"
-          />
-        )}
-        <EditField
-          id="profile-horizon"
-          label="Study length"
-          unit={inputUnit('time', units).symbol}
-          fieldPath="backup.horizonHours"
-          shown={inputText(getAt(project, 'backup.horizonHours'), 'time', units, locale)}
-          read={horizonReader}
-          write={(v) => writeStudy('backup.horizonHours', v, 'backup.horizonHours', 'Backup study: study length')}
-          hint="168"
-          testId="profile-horizon"
-        />
-      </div>
-      {day ? (
-        <>
-          <h5 class="profile-editor__sub">The day by the clock</h5>
-          <DayStrip segments={day.segments} outageHour={day.startHour ?? 0} onMove={(i, hour) => moveStart(day, i, hour)} />
-          <div class="profile-segments">
-            {day.segments.map((_, i) => (
-              <SegmentCard key={i} day={day} seg={i} common={common} />
-            ))}
-          </div>
-          <button type="button" class="panel-button" onClick={() => writeProfile(addSegment(day), 'backup.profile.segments', 'Load profile: added a segment', { path: 'backup.profile.segments', value: addSegment(day).segments })} data-testid="profile-add-segment">
-            Add a segment
-          </button>
-        </>
-      ) : (
-        <p class="note" data-testid="profile-periods">
-          This profile runs its periods in turn from the outage's start rather than by the clock; its duty cycles are below. Choose a starting point above to edit it as a day.
-        </p>
-      )}
-      {profile && (
-        <>
-          <h5 class="profile-editor__sub">Duty cycles</h5>
-          <p class="note">A load that switches on and off on its own, such as a fridge's compressor: on for part of every period, counted from the outage's start.</p>
-          <div class="profile-duties">
-            {(profile.duty ?? []).map((_, k) => (
-              <DutyRow key={k} profile={profile} k={k} common={common} />
-            ))}
-          </div>
-          {loads.length > 0 && (
-            <button type="button" class="panel-button" onClick={() => writeProfile(addDuty(profile, loads.map((l) => l.id)), 'backup.profile.duty', 'Load profile: added a duty cycle')} data-testid="profile-add-duty">
-              Add a duty cycle
-            </button>
-          )}
-        </>
-      )}
-      <h5 class="profile-editor__sub">Preview</h5>
+      <p class="panel-headline" data-testid="profile-words">
+        {profileWords(profile, loads)}
+      </p>
       <Preview project={project} common={common} />
+      <details class="profile-edit" data-testid="profile-edit">
+        <summary class="profile-edit__summary" data-testid="profile-edit-summary">
+          Change the load profile
+        </summary>
+        <p class="note">How the loads run during the outage: by time of day, each load's level, and loads that switch on and off on their own.</p>
+        <StartingPoints profile={profile} common={common} />
+        <div class="study-settings study-settings--inline profile-times">
+          {day && (
+            <EditField
+              id="profile-outage-start"
+              label="Outage starts at"
+              unit=""
+              fieldPath="backup.profile.startHour"
+              shown={clockText(day.startHour ?? 0)}
+              read={clockReader('Outage starts at', locale)}
+              write={(hour) => writeProfile({ ...day, startHour: hour }, 'backup.profile.startHour', 'Load profile: outage start', { path: 'backup.profile.startHour', value: hour })}
+              hint="00:00"
+              testId="profile-outage-start"
+            />
+          )}
+          <EditField
+            id="profile-horizon"
+            label="Study length"
+            unit={inputUnit('time', units).symbol}
+            fieldPath="backup.horizonHours"
+            shown={inputText(getAt(project, 'backup.horizonHours'), 'time', units, locale)}
+            read={horizonReader}
+            write={(v) => writeStudy('backup.horizonHours', v, 'backup.horizonHours', 'Backup study: study length')}
+            hint="168"
+            testId="profile-horizon"
+          />
+        </div>
+        {day ? (
+          <>
+            <h5 class="profile-editor__sub">The day by the clock</h5>
+            <DayStrip segments={day.segments} outageHour={day.startHour ?? 0} onMove={(i, hour) => moveStart(day, i, hour)} />
+            <div class="profile-segments">
+              {day.segments.map((_, i) => (
+                <SegmentCard key={i} day={day} seg={i} common={common} />
+              ))}
+            </div>
+            <button type="button" class="panel-button" onClick={() => writeProfile(addSegment(day), 'backup.profile.segments', 'Load profile: added a segment', { path: 'backup.profile.segments', value: addSegment(day).segments })} data-testid="profile-add-segment">
+              Add a segment
+            </button>
+          </>
+        ) : (
+          <p class="note" data-testid="profile-periods">
+            This profile runs its periods in turn from the outage's start rather than by the clock; its duty cycles are below. Choose a starting point above to edit it as a day.
+          </p>
+        )}
+        {profile && (
+          <>
+            <h5 class="profile-editor__sub">Duty cycles</h5>
+            <p class="note">A load that switches on and off on its own, such as a fridge's compressor: on for part of every period, counted from the outage's start.</p>
+            <div class="profile-duties">
+              {(profile.duty ?? []).map((_, k) => (
+                <DutyRow key={k} profile={profile} k={k} common={common} />
+              ))}
+            </div>
+            {loads.length > 0 && (
+              <button type="button" class="panel-button" onClick={() => writeProfile(addDuty(profile, loads.map((l) => l.id)), 'backup.profile.duty', 'Load profile: added a duty cycle')} data-testid="profile-add-duty">
+                Add a duty cycle
+              </button>
+            )}
+          </>
+        )}
+      </details>
     </section>
   );
 }
