@@ -320,7 +320,7 @@ function StartingPoints({ profile, common }: { profile: LoadProfile | undefined;
           <button type="button" class="panel-button" onClick={() => writeProfile(alwaysOn(profile), 'backup.profile', 'Load profile: always on')} data-testid="profile-start-always">
             Always on
           </button>{' '}
-          every load at its rating all day and night
+          every load at its rating all day and night, no duty cycles
         </li>
         {loadId !== undefined && (
           <>
@@ -328,7 +328,7 @@ function StartingPoints({ profile, common }: { profile: LoadProfile | undefined;
               <button type="button" class="panel-button" onClick={() => writeProfile(eveningAndNight(profile, loadId), 'backup.profile', `Load profile: ${name} in the evening and night`)} data-testid="profile-start-evening">
                 Evening and night
               </button>{' '}
-              {name} on from 18:00 to 06:00, off by day
+              {name} on from 18:00 to 06:00, off by day (the day's segments replaced)
             </li>
             <li>
               <button type="button" class="panel-button" onClick={() => writeProfile(compressorCycling(profile, loadId), 'backup.profile', `Load profile: ${name} cycling`)} data-testid="profile-start-compressor">

@@ -14,7 +14,7 @@ const HEIGHT = 150;
 const TOP = 10;
 const BOTTOM = 36;
 const LEFT = 52;
-const RIGHT = 14;
+const RIGHT = 22;
 
 export function DayChart({ intervals, locale, labelledBy }: { intervals: readonly DayInterval[]; locale: string | undefined; labelledBy: string }) {
   const box = useRef<HTMLDivElement>(null);
