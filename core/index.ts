@@ -43,6 +43,7 @@ export { resolveBank, checkBank, ocvAt, bankOcv, capacityFactorAt, type Bank } f
 export { simulateDischarge, dischargeVariant, type DischargeResult, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './studies/backup/discharge.ts';
 export { runBackupStudy, terminalPowerPeriods, type BackupStudyResult, type BackupStudyOutcome } from './studies/backup/study.ts';
 export { formatBackupStudy } from './studies/backup/text-report.ts';
+export { backupSettingsProblems, profileDay, type DayInterval, type ProfileDay, type ProfileDayOutcome } from './studies/backup/profile-day.ts';
 export { bankCautions, rechargeCautions } from './studies/backup/cautions.ts';
 export { parseSiValue, formatSi, type ElementUnit, type ParsedValue } from './physics/si-prefix.ts';
 export {

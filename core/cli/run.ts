@@ -10,6 +10,7 @@ import { solveProject, type Solved } from '../solve/index.ts';
 import { elementNames, nonFiniteProblems } from '../solve/finite.ts';
 import { runBackupStudy, type BackupStudyResult } from '../studies/backup/study.ts';
 import { formatBackupStudy } from '../studies/backup/text-report.ts';
+import { formatProfileDay, profileDay } from '../studies/backup/profile-day.ts';
 import { correctPowerFactor, type PfCorrection } from '../studies/pf/correction.ts';
 import { formatPfCorrection, pfCorrectionJson } from '../studies/pf/text-report.ts';
 import { hasPumpSections, machineSections } from './machines-flags.ts';
@@ -104,11 +105,13 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
     ...(run ? { backupRuntimeHours: run.runtimeSeconds / 3600, backupRuntimeIsLowerBound: run.runtimeIsLowerBound } : {}),
   };
   let text = '';
+  // The profile's first day (the editor's preview), beside the study: `profileDay` in the JSON.
+  const day = study && req.output !== 'summary' && req.output !== 'csv' ? profileDay(outcome.project, outcome.project.backup, outcome.result) : undefined;
   if (req.output === 'json') {
-    const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}) };
+    const extra = { ...(study ? { backupStudy: study } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}) };
     text = `${JSON.stringify({ ...outcome.result, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}`;
+    text = `${formatResult(outcome.result)}\n${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}`;
   }
   return { ok: true, text, line };
 }

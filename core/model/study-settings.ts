@@ -27,9 +27,17 @@ export interface DropLimits {
 /**
  * How one load is set during a profile segment: a number is its power (W; VA for an
  * apparent-power load; A for a load given by its current, `dc-current-load` and `ac-current-load`,
- * which stays a constant-current load), `true` its value as given in the element, `false` off.
+ * which stays a constant-current load), `true` its value as given in the element, `false` off,
+ * `{ percent }` a share of the element's own rated value (its power, apparent power or current),
+ * 0…100: the element's value is the load's full draw, which the conductor sizing and the
+ * converters' loading read from the element, so a level above it belongs in the element itself.
  */
-export type LoadSetting = number | boolean;
+export type LoadSetting = number | boolean | LoadPercent;
+
+/** A load's level as a share of its element's rated value, % (0…100). */
+export interface LoadPercent {
+  percent: number;
+}
 
 /** One segment of a profile; loads not listed run at their element's power. */
 export interface ProfileSegment {

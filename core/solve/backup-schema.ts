@@ -12,9 +12,18 @@ const num = () => z.number({ error: 'must be a number' });
 const positive = (unit: string) => num().check(z.gt(0, `must be greater than 0 ${unit}`.trim()));
 const nonNegative = (unit: string) => num().check(z.gte(0, `must not be negative ${unit}`.trim()));
 
+/**
+ * A load's level as a share of its rating, 0…100 % (core/model/study-settings.ts LoadPercent: the
+ * element's value is its full draw, so a level above it is set in the element).
+ */
+const percentSetting = z.strictObject(
+  { percent: num().check(z.gte(0, 'must not be negative %'), z.lte(100, 'must not exceed 100 % of the load\'s rating (raise the load\'s own power for more)')) },
+  { error: 'must be a share of the rating in %' },
+);
+
 const loadsField = z.optional(
-  z.record(z.string(), z.union([nonNegative(''), z.boolean()], { error: 'must be a power in W (a current in A for a load given by its current), true (on) or false (off)' }), {
-    error: 'must map load ids to a power in W (a current in A for a load given by its current), true or false',
+  z.record(z.string(), z.union([nonNegative(''), z.boolean(), percentSetting], { error: 'must be a power in W (a current in A for a load given by its current), a share of its rating in %, true (on) or false (off)' }), {
+    error: 'must map load ids to a power in W (a current in A for a load given by its current), a share of its rating in %, true or false',
   }),
 );
 

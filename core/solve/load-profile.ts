@@ -236,9 +236,9 @@ export interface Timeline {
 const HOUR = 3600;
 const DAY = 24 * HOUR;
 
-/** Setting of one load during a base segment. */
-const settingValue = (rated: number, s: LoadSetting | undefined): number =>
-  s === undefined || s === true ? rated : s === false ? 0 : s;
+/** Setting of one load during a base segment (a share of the rating: rated × percent ÷ 100). */
+export const settingValue = (rated: number, s: LoadSetting | undefined): number =>
+  s === undefined || s === true ? rated : s === false ? 0 : typeof s === 'number' ? s : (rated * s.percent) / 100;
 
 /** On-intervals of a duty schedule ([start, end), s) that meet [0, end). */
 function dutyBreaks(d: DutySchedule, end: number, into: number[]): void {

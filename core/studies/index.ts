@@ -9,6 +9,7 @@ export { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from './energ
 export { runBackupStudy, type BackupStudyResult } from './backup/study.ts';
 export type { Derate } from './backup/discharge.ts';
 export { bankCautions, rechargeCautions } from './backup/cautions.ts';
+export { backupSettingsProblems, profileDay, profileLoadList, profileStartHour, type DayInterval, type ProfileLoadInfo, type ProfileDay, type ProfileDayOutcome } from './backup/profile-day.ts';
 export { machineDetails, type DriveDetail, type MotorDetail } from './machines/details.ts';
 export { projectPumpDuty, pumpDetails, type PumpDetail } from './machines/pump-duty.ts';
 export type { PumpControlResult } from '../physics/pump-fan.ts';

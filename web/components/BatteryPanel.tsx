@@ -19,6 +19,7 @@ import { draft, edit, lastSolved, resultsState } from '../state/editor.ts';
 import { problemLine } from './problem-words.ts';
 import { StudyFigures } from './battery/StudyFigures.tsx';
 import { StudySettings } from './battery/StudySettings.tsx';
+import { ProfileEditor } from './battery/ProfileEditor.tsx';
 import './Panels.css';
 
 /** Defaults of a new backup study: every load on at its rated power, one day wanted (common practice, no source). */
@@ -69,6 +70,7 @@ export default function BatteryPanel() {
   return (
     <div class={stale ? 'panel-body panel-body--stale' : 'panel-body'} data-testid="battery-panel" data-state={state} data-study-ms={reply ? reply.ms.toFixed(2) : ''}>
       <StudySettings project={project} units={units} locale={locale} />
+      <ProfileEditor project={project} units={units} locale={locale} />
       {failed && (
         <section class="notice notice--error" role="alert" data-testid="battery-problems">
           <p>The study cannot run with these inputs{study ? '; the figures below are the last good ones, out of date' : ''}:</p>
