@@ -26,6 +26,7 @@ export { CODE_LETTERS } from './data/motor-code-letters.ts';
 export { MOTOR_CLASSES } from './physics/motor-rating.ts';
 export { bankValues, checkBank } from './physics/bank.ts';
 export { pumpShaftPower } from './physics/pump-fan.ts';
+export { fanAsPumpCurve } from './physics/fan.ts';
 export { defaultCatalogue } from './conductors/catalogue.ts';
 export { resolveLimits } from './conductors/path-drop.ts';
 export { CAUTION as CONDUCTOR_CAUTION } from './conductors/size.ts';

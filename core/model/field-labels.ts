@@ -33,6 +33,7 @@ export const KIND_LABELS: Readonly<Record<ElementKind, string>> = {
   'ac-current-load': 'AC load (amperes)',
   'shaft-load': 'Shaft load',
   pump: 'Pump',
+  fan: 'Fan',
 };
 
 /** The loss model's fields, the same in every converter's form (core/physics/loss-model.ts). */
@@ -287,6 +288,16 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     flow: "Operating flow",
     control: "Flow control",
   },
+  fan: {
+    name: "Name",
+    ratedFlow: "Rated air flow",
+    ratedPressure: "Rated fan pressure",
+    shutoffPressure: "Shut-off pressure (zero flow)",
+    efficiency: "Fan efficiency (%)",
+    density: "Air density at the fan",
+    flow: "Operating air flow",
+    control: "Air flow control",
+  },
   project: {
     name: "Project name",
     description: "Description",
@@ -308,7 +319,7 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "backup.horizonHours": "Study length",
     "backup.standardCapacitiesAh": "Standard capacities",
     "backup.profile": "Load profile",
-    "pumpDuty.pump": "Pump of the duty study",
+    "pumpDuty.pump": "Pump or fan of the duty study",
     "pumpDuty.duty": "Duty points",
   },
 };

@@ -14,6 +14,7 @@ const FORM_QUANTITY: Partial<Record<MessageUnit, Quantity>> = {
   m: 'length',
   '°C': 'temperature',
   'kg/m³': 'density',
+  Pa: 'pressure',
   'Ω/km': 'resistance-per-length',
 };
 
