@@ -13,6 +13,8 @@ import type { FanLoad } from '../../core/model/project.ts';
 import { fanOperatingPoint } from '../../core/physics/fan.ts';
 import { curveAt, fitFallingQuadratic } from '../../core/physics/curve-fit.ts';
 import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
+import { curveFromPoints, dutyCurves } from '../../core/studies/machines/duty-curves.ts';
+import type { PumpLoad } from '../../core/model/project.ts';
 import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
 import { onSolved } from '../core/solved.ts';
@@ -176,5 +178,42 @@ describe('pump or fan curve from the maker\'s points: least squares of y = y0 �
     expect(fitFallingQuadratic([{ flow: 0.05, value: 40 }, { flow: 0.05, value: 30 }, { flow: 0.05, value: 35 }])).toMatchObject({ ok: false, message: expect.stringMatching(/two flows/) });
     expect(fitFallingQuadratic([{ flow: 0, value: 30 }, { flow: 0.03, value: 35 }, { flow: 0.05, value: 40 }])).toMatchObject({ ok: false, message: expect.stringMatching(/do not fall/) });
     expect(fitFallingQuadratic([{ flow: 0, value: 30 }, { flow: -1, value: 35 }, { flow: 0.05, value: 20 }])).toMatchObject({ ok: false, index: 1, field: 'flow' });
+  });
+});
+
+describe('the duty editor\'s curves and the fitted curve written back as the element\'s fields', () => {
+  const pump = { id: 'pump', kind: 'pump', from: 'motor', ratedFlow: 0.05, ratedHead: 30, shutoffHead: 40, efficiency: 0.75, staticHead: 10, flow: 0.04, control: 'speed' } as PumpLoad;
+  it('pump at 50 % flow: the system needs 10 + 8000 × 0.025² = 15 m, the pump gives 40 − 4000 × 0.025² = 37.5 m at full speed', () => {
+    // k = (30 − 10)/0.05² = 8000 m/(m³/s)², a = (40 − 30)/0.05² = 4000 m/(m³/s)² (system and quadratic pump curves).
+    const c = dutyCurves(pump);
+    expect(c.unit).toBe('m');
+    const half = c.rows.find((r) => r.fraction === 0.5)!;
+    expect(half.system).toBeCloseTo(15, 12);
+    expect(half.machine).toBeCloseTo(37.5, 12);
+    expect(c.rows.at(-1)).toMatchObject({ fraction: 1 });
+    expect(c.rows.at(-1)!.system).toBeCloseTo(30, 12);
+    expect(c.rows.at(-1)!.machine).toBeCloseTo(30, 12);
+  });
+
+  it('fan at 50 % flow: the ducts need 1000 × 0.25 = 250 Pa, the fan gives 1225 Pa at full speed', () => {
+    const c = dutyCurves({ ...fanBase, control: 'damper' } as FanLoad);
+    expect(c.unit).toBe('Pa');
+    const half = c.rows.find((r) => r.fraction === 0.5)!;
+    expect(half.system).toBeCloseTo(250, 9);
+    expect(half.machine).toBeCloseTo(1225, 9);
+  });
+
+  it('points on H = 44 − 5600·Q² give shut-off 44 m and 30 m at the rated 0.05 m³/s; the shut-off is written first (it stays above the old rated head)', () => {
+    // By hand: 44 − 5600 × 0.0009 = 38.96 m; 44 − 5600 × 0.0025 = 30 m.
+    const out = curveFromPoints(pump, [{ flow: 0, value: 44 }, { flow: 0.03, value: 38.96 }, { flow: 0.05, value: 30 }]);
+    if (!out.ok) throw new Error(out.message);
+    expect(out.shutoff).toBeCloseTo(44, 9);
+    expect(out.rated).toBeCloseTo(30, 9);
+    expect(out.writes.map((w) => w.path)).toEqual(['shutoffHead', 'ratedHead']);
+  });
+
+  it('a fitted curve that would fall below the static head at the rated flow is refused', () => {
+    const out = curveFromPoints(pump, [{ flow: 0, value: 12 }, { flow: 0.03, value: 10 }, { flow: 0.05, value: 8 }]);
+    expect(out).toMatchObject({ ok: false, message: expect.stringMatching(/static head/) });
   });
 });

@@ -21,6 +21,7 @@ import { LossCost } from './machines/LossCost.tsx';
 import { DriveCard, MotorCard, PumpCard } from './machines/MachineCards.tsx';
 import { PfCorrectionControl } from './machines/PfCorrection.tsx';
 import { PumpDuty } from './machines/PumpDutyStudy.tsx';
+import { DutyEditor } from './machines/DutyEditor.tsx';
 import './Panels.css';
 
 export default function MachinesPanel() {
@@ -72,6 +73,7 @@ export default function MachinesPanel() {
           </div>
         </section>
       )}
+      <DutyEditor solved={shown.solved} problems={pumpDuty && !pumpDuty.ok ? pumpDuty.problems : []} units={units} locale={locale} />
       {pumpDuty && <PumpDuty duty={pumpDuty} locale={locale} />}
       <PfCorrectionControl solved={shown.solved} locale={locale} />
       <LossCost lossCost={lossCost} locale={locale} />
