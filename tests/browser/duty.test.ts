@@ -113,6 +113,11 @@ describe.skipIf(skipWithout('chromium'))('the duty editor in Chromium', () => {
 
         await typeDuty(page, PUMP_DUTY, true);
         expect(await page.getByTestId('duty-row').count()).toBe(3);
+        // A fourth point added and taken away again.
+        await page.getByTestId('duty-add').click();
+        await expect.poll(() => page.getByTestId('duty-row').count()).toBe(4);
+        await page.getByTestId('duty-remove-3').click();
+        await expect.poll(() => page.getByTestId('duty-row').count()).toBe(3);
         const pump = expected(PLANT.elements, 'pump', PUMP_DUTY);
         await expect.poll(() => energies(page), { timeout: 20_000 }).toEqual(want(pump));
         expect(await page.getByTestId('pump-duty-study').getAttribute('data-machine')).toBe('pump');
@@ -135,6 +140,7 @@ describe.skipIf(skipWithout('chromium'))('the duty editor in Chromium', () => {
         await expect.poll(() => rowError.count()).toBe(0);
         await editor.scrollIntoViewIfNeeded();
         await page.screenshot({ path: join(artifacts, `duty-pump-${label}.png`) });
+        await page.getByTestId('pump-duty-study').screenshot({ path: join(artifacts, `duty-pump-study-${label}.png`) });
         expect(await seriousAxeViolations(page)).toEqual([]);
 
         // A fan added in the page after the fan motor, from the kind chooser.
@@ -174,6 +180,7 @@ describe.skipIf(skipWithout('chromium'))('the duty editor in Chromium', () => {
         await editor.scrollIntoViewIfNeeded();
         await page.screenshot({ path: join(artifacts, `duty-fan-${label}.png`) });
         await fullPageScreenshot(page, join(artifacts, `duty-fan-${label}-full.png`));
+        await page.getByTestId('pump-duty-study').screenshot({ path: join(artifacts, `duty-fan-study-${label}.png`) });
         expect(await seriousAxeViolations(page)).toEqual([]);
         expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
         expect(errors).toEqual([]);

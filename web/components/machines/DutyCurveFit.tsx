@@ -121,18 +121,19 @@ export function DutyCurveFit({ element, units, locale }: Props) {
           <li key={i} class="duty-row" aria-label={`Curve point ${i + 1}`}>
             {cell(i, 'flow', 'Flow', flowUnit.symbol)}
             {cell(i, 'value', valueLabel, valueUnit.symbol)}
-            <button
-              type="button"
-              class="panel-button duty-row__remove"
-              disabled={rows.length <= 3}
-              onClick={() => {
-                setRows(rows.filter((__, j) => j !== i));
-                setFit(null);
-              }}
-              aria-label={`Remove curve point ${i + 1}`}
-            >
-              Remove
-            </button>
+            {rows.length > 3 && (
+              <button
+                type="button"
+                class="panel-button duty-row__remove"
+                onClick={() => {
+                  setRows(rows.filter((__, j) => j !== i));
+                  setFit(null);
+                }}
+                aria-label={`Remove curve point ${i + 1}`}
+              >
+                Remove
+              </button>
+            )}
           </li>
         ))}
       </ol>

@@ -133,9 +133,11 @@ export function DutyEditor({ solved, problems, units, locale }: Props) {
                   undoLabel={`Duty point ${i + 1}: hours`}
                   studyMessage={messageAt(`pumpDuty.duty.${i}.hours`)}
                 />
-                <button type="button" class="panel-button duty-row__remove" disabled={rows.length <= 1} onClick={() => removeRow(i)} aria-label={`Remove duty point ${i + 1}`} data-testid={`duty-remove-${i}`}>
-                  Remove
-                </button>
+                {rows.length > 1 && (
+                  <button type="button" class="panel-button duty-row__remove" onClick={() => removeRow(i)} aria-label={`Remove duty point ${i + 1}`} data-testid={`duty-remove-${i}`}>
+                    Remove
+                  </button>
+                )}
               </li>
             ))}
           </ol>
