@@ -91,6 +91,8 @@ export {
   formatPumpDuty,
   projectPumpDuty,
   pumpDetails,
+  fanDetails,
+  type FanDetail,
   type PumpDetail,
   type PumpDutyOutcome,
   MOTOR_CLASSES,

@@ -11,6 +11,7 @@ export type { Derate } from './backup/discharge.ts';
 export { bankCautions, rechargeCautions } from './backup/cautions.ts';
 export { machineDetails, type DriveDetail, type MotorDetail } from './machines/details.ts';
 export { projectPumpDuty, pumpDetails, type PumpDetail } from './machines/pump-duty.ts';
+export { fanDetails, type FanDetail } from './machines/pump-duty.ts';
 export type { PumpControlResult } from '../physics/pump-fan.ts';
 export { curveFromPoints, dutyCurves, type CurveFromPoints, type DutyCurves } from './machines/duty-curves.ts';
 export { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from './pf/placement.ts';

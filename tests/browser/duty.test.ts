@@ -150,6 +150,8 @@ describe.skipIf(skipWithout('chromium'))('the duty editor in Chromium', () => {
         await page.locator('.kind-option[data-kind="fan"]').click();
         await expect.poll(() => page.locator('[data-testid="stage-card"][data-card-id="fan"]').count()).toBe(1);
         await expect.poll(() => page.locator('[data-testid="duty-machine"] option[value="fan"]').count(), { timeout: 20_000 }).toBe(1);
+        // The fan's card: its operating point from the page's template (1.6 m³/s = 5760 m³/h behind the damper).
+        await expect.poll(async () => plain(await page.getByTestId('fan-card').textContent()), { timeout: 20_000 }).toMatch(/5,760 m³\/h at .* Pa.*outlet damper at full speed/);
         await page.getByTestId('duty-machine').selectOption('fan');
         await expect.poll(() => page.locator('label[for="sf--pumpDuty_duty_0_flow"]').textContent()).toBe('Air flow');
         await typeDuty(page, FAN_DUTY, false);

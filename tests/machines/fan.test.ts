@@ -12,7 +12,7 @@ import { PROJECT_LEVEL } from '../../core/model/errors.ts';
 import type { FanLoad } from '../../core/model/project.ts';
 import { fanOperatingPoint } from '../../core/physics/fan.ts';
 import { curveAt, fitFallingQuadratic } from '../../core/physics/curve-fit.ts';
-import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
+import { fanDetails, projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
 import { curveFromPoints, dutyCurves } from '../../core/studies/machines/duty-curves.ts';
 import type { PumpLoad } from '../../core/model/project.ts';
 import { solveProject } from '../../core/solve/index.ts';
@@ -113,6 +113,16 @@ describe('fan duty study: drive speed control against outlet dampers and on-off'
     expect(r.method).toMatch(/outlet damper/);
   });
 
+  it('fanDetails: the operating point and the tree check of a damper behind a drive', () => {
+    const p = project({ ...fanBase, control: 'damper' });
+    const v = validateProject(p);
+    if (!v.ok) throw new Error(JSON.stringify(v.problems));
+    const [d] = fanDetails(v.project);
+    expect(d!.operatingPoint.shaftPower).toBeCloseTo(1750, 6);
+    expect(d!.driveId).toBe('drive');
+    expect(d!.warnings.join(' ')).toMatch(/"Outlet damper at full speed" runs at full speed, but the drive "drive" feeds the motor "motor"/);
+  });
+
   it('a fan on speed control with no drive warns by name; the study names a fan that is not in the project', () => {
     const out = onSolved(projectPumpDuty, project({ ...fanBase, control: 'speed' }, { drive: false, pumpDuty: { pump: 'fan', duty } }));
     if (!out.ok) throw new Error(JSON.stringify(out.problems));
@@ -139,6 +149,8 @@ describe('fan duty study: drive speed control against outlet dampers and on-off'
     expect(r.stdout).toContain('design point: 7200.0 m³/h at 1000 Pa, shaft 2.86 kW');
     expect(r.stdout).toMatch(/outlet dampers: +\d+ kWh/);
     expect(r.stdout).toMatch(/drive saves \d+ kWh \(\d+\.\d %\) against outlet dampers/);
+    // The fan's operating point: speed control at 1 m³/s, 250 Pa, 0.36 kW at the shaft (worked above).
+    expect(r.stdout).toContain('Supply fan [fan] speed control: 1 m³/s at 250 Pa, speed 50.0 %, shaft 0.36 kW (motor "motor", drive "drive")');
   }, 30_000);
 });
 

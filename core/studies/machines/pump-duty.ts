@@ -23,7 +23,7 @@ import { PROJECT_LEVEL } from '../../model/errors.ts';
 import { q, say, valueText, type Worded } from '../../model/message.ts';
 import { kindLabel } from '../../model/field-labels.ts';
 import type { DriveStage, DriveStandardLoss, Element, FanLoad, MotorStage, Project, PumpLoad } from '../../model/project.ts';
-import { fanAsPumpCurve } from '../../physics/fan.ts';
+import { fanAsPumpCurve, fanOperatingPoint, type FanOperatingPoint } from '../../physics/fan.ts';
 import type { Solved } from '../../solve/index.ts';
 import { motorPowerFactorAt } from '../../kinds/motor.ts';
 import { pumpOperatingPoint, type PumpOperatingPoint } from '../../kinds/pump.ts';
@@ -102,6 +102,29 @@ export function pumpDetails(project: Project): PumpDetail[] {
       warnings.push(`flow control "Throttle valve at full speed" runs at full speed, but the drive "${drive.name ?? drive.id}" feeds the motor ${motorName}; with a drive, speed control saves the valve's loss (choose "Speed (a drive upstream)")`);
     }
     out.push({ id: e.id, name: e.name ?? e.id, operatingPoint: op, motorId: motor.id, ...(drive ? { driveId: drive.id } : {}), ...(driveSpeed !== undefined ? { driveSpeed } : {}), warnings });
+  }
+  return out;
+}
+
+export interface FanDetail {
+  id: string;
+  name: string;
+  operatingPoint: FanOperatingPoint;
+  motorId: string;
+  /** The drive upstream of the motor, if any. */
+  driveId?: string;
+  warnings: string[];
+}
+
+/** Operating point and tree checks (speed control with no drive, a damper behind a drive) of every fan of a VALIDATED project. */
+export function fanDetails(project: Project): FanDetail[] {
+  const elements = byId(project);
+  const out: FanDetail[] = [];
+  for (const e of project.elements) {
+    if (e.kind !== 'fan') continue;
+    const motor = elements.get(e.from) as MotorStage;
+    const drive = driveAbove(elements, motor.from);
+    out.push({ id: e.id, name: e.name ?? e.id, operatingPoint: fanOperatingPoint(e), motorId: motor.id, ...(drive ? { driveId: drive.id } : {}), warnings: fanTreeWarnings(elements, e, motor) });
   }
   return out;
 }
