@@ -11,7 +11,7 @@ import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, chainOp, fullPageScreenshot, seriousAxeViolations, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, chainOp, chooseSetting, fullPageScreenshot, seriousAxeViolations, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
 import { formatPumpDuty, projectPumpDuty } from '../../core/index.ts';
 import { formatEnergy } from '../../web/format/number.ts';
 import { onSolved } from '../core/solved.ts';
@@ -185,6 +185,12 @@ describe.skipIf(skipWithout('chromium'))('the duty editor in Chromium', () => {
         await page.getByTestId('pump-duty-study').screenshot({ path: join(artifacts, `duty-fan-study-${label}.png`) });
         expect(await seriousAxeViolations(page)).toEqual([]);
         expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
+        // In US units the fan's flows are in cfm and its pressures in inches of water: 2 m³/s = 2 / (0.3048³/60) = 4237.76 cfm
+        // (NIST SP 811 B.8, foot); 1100 Pa = 1100 / 248.84 = 4.42 in. w.g. (inch of water at 60 °F).
+        await chooseSetting(page, 'units-select', 'us');
+        await expect.poll(() => page.locator('[data-testid="duty-row"]').first().locator('.study-field__unit').first().textContent()).toBe('cfm');
+        expect(await page.getByTestId('duty-flow-0').inputValue()).toMatch(/^4,?237\.76/);
+        expect(await page.getByTestId('duty-ratedPressure').inputValue()).toMatch(/^4\.42/);
         expect(errors).toEqual([]);
       } finally {
         await context.close();
