@@ -224,6 +224,15 @@ describe('the duty editor\'s curves and the fitted curve written back as the ele
     expect(out.writes.map((w) => w.path)).toEqual(['shutoffHead', 'ratedHead']);
   });
 
+  it('a lower curve (shut-off 28 m, below the old rated 30 m) writes the rated head first, so each write stays valid', () => {
+    // Points on H = 28 − 3200·Q²: 28, 28 − 3200 × 0.0009 = 25.12, 28 − 3200 × 0.0025 = 20 m.
+    const out = curveFromPoints(pump, [{ flow: 0, value: 28 }, { flow: 0.03, value: 25.12 }, { flow: 0.05, value: 20 }]);
+    if (!out.ok) throw new Error(out.message);
+    expect(out.writes.map((w) => w.path)).toEqual(['ratedHead', 'shutoffHead']);
+    expect(out.writes[0]!.value).toBeCloseTo(20, 9);
+    expect(out.writes[1]!.value).toBeCloseTo(28, 9);
+  });
+
   it('a fitted curve that would fall below the static head at the rated flow is refused', () => {
     const out = curveFromPoints(pump, [{ flow: 0, value: 12 }, { flow: 0.03, value: 10 }, { flow: 0.05, value: 8 }]);
     expect(out).toMatchObject({ ok: false, message: expect.stringMatching(/static head/) });

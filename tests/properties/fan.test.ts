@@ -10,6 +10,7 @@ import { describe, expect, it } from 'vitest';
 import type { FanLoad, PumpLoad } from '../../core/model/project.ts';
 import { fanOperatingPoint } from '../../core/physics/fan.ts';
 import { pumpOperatingPoint } from '../../core/kinds/pump.ts';
+import { solveProject } from '../../core/solve/index.ts';
 
 const uniform = (lo: number, hi: number) => fc.double({ min: lo, max: hi, noNaN: true });
 
@@ -62,5 +63,56 @@ describe('speed control never uses more than fixed speed at the same flow', () =
       ),
       { numRuns: 300 },
     );
+  });
+});
+
+/** Numbers a slip or a hostile file may hold (fixed list plus random doubles of every size). */
+const hostile = fc.oneof(
+  fc.constantFrom(0, -1, 1e-300, 5e-324, 1e-9, 1e9, 1e300, Number.MAX_VALUE, -0, 0.5, 1, 2, 1000),
+  fc.double({ noNaN: true, noDefaultInfinity: true }),
+);
+
+/** A plausible value four times in five, else a hostile one: so that some fans are whole and solve. */
+const or = (plausible: fc.Arbitrary<number>) => fc.oneof({ weight: 4, arbitrary: plausible }, { weight: 1, arbitrary: hostile });
+
+describe('a fan with hostile numbers: refused at one of its fields, or solved with every figure finite', () => {
+  it('validate and solve', () => {
+    let solved = 0;
+    fc.assert(
+      fc.property(
+        fc.record({
+          ratedFlow: or(uniform(0.1, 10)),
+          ratedPressure: or(uniform(100, 3000)),
+          shutoffPressure: or(uniform(3000, 5000)),
+          efficiency: or(uniform(0.3, 0.9)),
+          density: or(uniform(0.5, 1.5)),
+          flow: or(uniform(0.01, 0.1)),
+          control: fc.constantFrom('speed', 'damper'),
+        }),
+        (f) => {
+          const project = {
+            format: 'joulepath-project',
+            version: 2,
+            name: 'hostile fan',
+            elements: [
+              { id: 'grid', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },
+              { id: 'motor', kind: 'motor', from: 'grid', ratedOutput: 1e6, nameplate: { efficiency: 0.95, powerFactor: 0.85 }, serviceFactor: 2 },
+              { id: 'fan', kind: 'fan', from: 'motor', ...f },
+            ],
+          };
+          const out = solveProject(project);
+          if (out.ok) {
+            solved++;
+            for (const e of out.result.elements) expect(Number.isFinite(e.pIn) && Number.isFinite(e.loss), e.id).toBe(true);
+          } else {
+            expect(out.problems.length).toBeGreaterThan(0);
+            for (const p of out.problems) expect(typeof p.message === 'string' && p.message.length > 0).toBe(true);
+          }
+        },
+      ),
+      { numRuns: 300 },
+    );
+    // Not a vacuous check: about a quarter of the fans have every field plausible and solve.
+    expect(solved).toBeGreaterThan(0);
   });
 });
