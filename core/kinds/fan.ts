@@ -42,7 +42,7 @@ export const fanKind = defineKind<FanLoad>({
     const out: Omit<Problem, 'elementId'>[] = [];
     if (!(e.shutoffPressure > e.ratedPressure)) out.push({ code: 'invalid-value', field: 'shutoffPressure', value: e.shutoffPressure, ...say`must be above the rated pressure ${q(e.ratedPressure, 'Pa')} (a fan curve falls with flow)` });
     if (e.flow > e.ratedFlow * (1 + 1e-9)) {
-      out.push({ code: 'invalid-value', field: 'flow', value: e.flow, ...say`is above the rated flow ${q(e.ratedFlow, 'm³/s')}, which the system reaches at full speed; more would need overspeed` });
+      out.push({ code: 'invalid-value', field: 'flow', value: e.flow, ...say`is above the rated flow ${{ ...q(e.ratedFlow, 'm³/s'), air: true }}, which the system reaches at full speed; more would need overspeed` });
     }
     return out;
   },

@@ -40,6 +40,8 @@ export type MessageUnit =
 export interface MessageValue {
   si: number;
   unit: MessageUnit;
+  /** A flow of air (a fan's): the page shows it in the fan form's unit (m³/h or cfm), not a pump's. */
+  air?: true;
 }
 
 /** A message with its numbers kept as quantities (see the file's head). */

@@ -159,7 +159,7 @@ export function projectPumpDuty(solved: Solved): PumpDutyOutcome {
   const problems: Problem[] = [];
   let total = 0;
   study.duty.forEach((d, i) => {
-    if (d.flow > pump.ratedFlow * (1 + 1e-9)) problems.push(studyProblem(`duty[${i}].flow`, d.flow, say`is above the rated flow ${q(pump.ratedFlow, 'm³/s')} of the ${machineWord} "${pump.name ?? pump.id}", which the system reaches at full speed`));
+    if (d.flow > pump.ratedFlow * (1 + 1e-9)) problems.push(studyProblem(`duty[${i}].flow`, d.flow, say`is above the rated flow ${fan ? { ...q(pump.ratedFlow, 'm³/s'), air: true as const } : q(pump.ratedFlow, 'm³/s')} of the ${machineWord} "${pump.name ?? pump.id}", which the system reaches at full speed`));
     total += d.hours;
   });
   if (total > HOURS_PER_YEAR * (1 + 1e-12)) problems.push(studyProblem('duty', total, say`the hours add up to ${q(total, 'h')}, more than the ${q(HOURS_PER_YEAR, 'h')} of a year`));
