@@ -162,6 +162,8 @@ describe.skipIf(skipWithout('chromium'))('the duty editor in Chromium', () => {
         expect(await page.getByTestId('pump-duty-table').textContent()).toContain('Outlet dampers');
         expect(await page.locator('#pump-duty-heading').textContent()).toBe('Fan duty: flow control over a year');
         expect(fan.speedControl.energyWh).toBeLessThan(Math.min(fan.throttle.energyWh, fan.onOff.energyWh));
+        // Each point's drive speed: with no static pressure the affinity laws give speed = flow / rated flow: 100 %, 75 %, 50 %.
+        expect(await page.getByTestId('duty-point-speed').allTextContents()).toEqual(['100%', '75%', '50%'].map((t) => t));
 
         // The fan's curve from three of the maker's points on Δp = 1400 − 75·Q² (Q in m³/s, standard air):
         // 0 → 1400 Pa, 3600 m³/h (1 m³/s) → 1325 Pa, 7200 m³/h (2 m³/s) → 1100 Pa. Least squares gives it back:

@@ -78,7 +78,7 @@ export default function MachinesPanel() {
         </section>
       )}
       <DutyEditor solved={shown.solved} problems={pumpDuty && !pumpDuty.ok ? pumpDuty.problems : []} units={units} locale={locale} />
-      {pumpDuty && <PumpDuty duty={pumpDuty} locale={locale} />}
+      {pumpDuty && <PumpDuty duty={pumpDuty} locale={locale} units={units} />}
       <PfCorrectionControl solved={shown.solved} locale={locale} />
       <LossCost lossCost={lossCost} locale={locale} />
     </div>

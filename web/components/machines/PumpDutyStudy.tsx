@@ -5,14 +5,16 @@
  */
 import { useRef } from 'preact/hooks';
 import type { MachinesFigures } from '../panel-worker.ts';
-import { formatEnergy, formatPercent, formatSignificant, UNIT_GAP } from '../../format/number.ts';
+import { formatEnergy, formatPercent, formatPower, formatSignificant, UNIT_GAP } from '../../format/number.ts';
+import { inputUnit } from '../../format/parse.ts';
+import type { UnitSystem } from '../../format/units.ts';
 import { formatMoney } from '../../format/panels.ts';
 import { type Locale, ProblemLines } from './shared.tsx';
 import { CsvButton } from '../report/CsvButton.tsx';
 
 type Shown = Extract<NonNullable<MachinesFigures['pumpDuty']>, { ok: true }>;
 
-export function PumpDuty({ duty, locale }: { duty: NonNullable<MachinesFigures['pumpDuty']>; locale: Locale }) {
+export function PumpDuty({ duty, locale, units }: { duty: NonNullable<MachinesFigures['pumpDuty']>; locale: Locale; units: UnitSystem }) {
   /** The last valid comparison, kept on screen (out of date) while the inputs cannot be used. */
   const last = useRef<Shown | null>(null);
   if (duty.ok) last.current = duty;
@@ -78,6 +80,7 @@ export function PumpDuty({ duty, locale }: { duty: NonNullable<MachinesFigures['
           </tbody>
         </table>
       </div>
+      <PointsTable points={f.points} fan={fan} units={units} locale={locale} />
       <p class="panel-headline" data-testid="pump-duty-savings">
         The drive saves {formatEnergy(f.savingVsThrottleWh, locale)} a year against {fixed} ({formatPercent(f.savingVsThrottleFraction, locale, 3)})
         {c ? `, ${formatMoney(c.savingVsThrottle, locale)}` : ''}, and {formatEnergy(f.savingVsOnOffWh, locale)} against on-off ({formatPercent(f.savingVsOnOffFraction, locale, 3)})
@@ -104,5 +107,52 @@ export function PumpDuty({ duty, locale }: { duty: NonNullable<MachinesFigures['
         </ul>
       )}
     </section>
+  );
+}
+
+/** Each duty point: the drive's speed and the electrical input of each method there (core's figures). */
+function PointsTable({ points, fan, units, locale }: { points: Shown['result']['points']; fan: boolean; units: UnitSystem; locale: Locale }) {
+  const flowUnit = inputUnit(fan ? 'air-flow' : 'flow', units);
+  return (
+    <>
+      <p id="duty-points-caption" class="note">
+        At each duty point: the drive's speed and the input power of each method.
+      </p>
+      <div class="table-scroll" role="region" aria-labelledby="duty-points-caption" tabIndex={0}>
+        <table class="data panel-table" data-testid="duty-points-table">
+          <thead>
+            <tr>
+              <th scope="col">Flow</th>
+              <th scope="col" class="num">Hours a year</th>
+              <th scope="col" class="num">Drive speed</th>
+              <th scope="col" class="num">Drive input</th>
+              <th scope="col" class="num">{fan ? 'Dampers input' : 'Throttle input'}</th>
+              <th scope="col" class="num">On-off runs</th>
+            </tr>
+          </thead>
+          <tbody>
+            {points.map((p, i) => (
+              <tr key={i}>
+                <th scope="row">
+                  {formatSignificant(flowUnit.fromSi(p.flow), 4, locale)}
+                  {UNIT_GAP}
+                  {flowUnit.symbol}
+                </th>
+                <td class="num">
+                  {formatSignificant(p.hours, 5, locale)}
+                  {UNIT_GAP}h
+                </td>
+                <td class="num" data-testid="duty-point-speed">
+                  {formatPercent(p.speedControl.speed, locale, 3)}
+                </td>
+                <td class="num">{formatPower(p.speedControl.inputPower, locale)}</td>
+                <td class="num">{formatPower(p.throttle.inputPower, locale)}</td>
+                <td class="num">{formatPercent(p.onOffRunFraction, locale, 3)} of the time</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </div>
+    </>
   );
 }
