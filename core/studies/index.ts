@@ -13,7 +13,7 @@ export { machineDetails, type DriveDetail, type MotorDetail } from './machines/d
 export { projectPumpDuty, pumpDetails, type PumpDetail } from './machines/pump-duty.ts';
 export { fanDetails, type FanDetail } from './machines/pump-duty.ts';
 export type { PumpControlResult } from '../physics/pump-fan.ts';
-export { curveFromPoints, dutyCurves, type CurveFromPoints, type DutyCurves } from './machines/duty-curves.ts';
+export { curveFromPoints, dutyCurves, dutyFlowAtSpeed, dutySpeedAtFlow, type CurveFromPoints, type DutyCurves } from './machines/duty-curves.ts';
 export { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from './pf/placement.ts';
 export { correctPowerFactor, type PfCorrection } from './pf/correction.ts';
 export { lossCostPerYear, pumpDutyCosts, type CostSettings, type LossCost, type MethodCosts } from './economics.ts';

@@ -128,6 +128,19 @@ describe.skipIf(skipWithout('chromium'))('the duty editor in Chromium', () => {
         // The command line gives the same figures for the same file.
         expect(formatPumpDuty(pump)).toContain(`speed control by drive: ${(pump.speedControl.energyWh / 1000).toFixed(0)} kWh`);
 
+        // The same levels as speeds of the drive (affinity laws on the system curve, core): 144 m³/h needs
+        // √0.73 = 85.44 % (worked in tests/machines/pump.test.ts); 40 % cannot lift the 10 m static head
+        // (the least speed is √(10/40) = 50 %): refused at the field, nothing stored.
+        await page.getByTestId('duty-given').selectOption('speed');
+        await expect.poll(() => page.getByTestId('duty-speed-1').inputValue()).toMatch(/^85\.4/);
+        await page.getByTestId('duty-speed-1').fill('40');
+        await expect.poll(async () => plain(await page.locator('#sf--pumpDuty_duty_1_flow-error').textContent())).toMatch(/Speed: must be above 50\.0 %/);
+        await page.getByTestId('duty-speed-1').fill('100');
+        await page.getByTestId('duty-given').selectOption('flow');
+        await expect.poll(() => page.getByTestId('duty-flow-1').inputValue()).toBe('180');
+        await page.getByTestId('duty-flow-1').fill('144');
+        await expect.poll(() => energies(page), { timeout: 20_000 }).toEqual(want(pump));
+
         // A flow above the rated 180 m³/h: the study's message at its row; the last comparison stays, out of date.
         await page.getByTestId('duty-flow-2').fill('300');
         const rowError = page.locator('#sf--pumpDuty_duty_2_flow-error');

@@ -13,7 +13,7 @@ import type { FanLoad } from '../../core/model/project.ts';
 import { fanOperatingPoint } from '../../core/physics/fan.ts';
 import { curveAt, fitFallingQuadratic } from '../../core/physics/curve-fit.ts';
 import { fanDetails, projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
-import { curveFromPoints, dutyCurves } from '../../core/studies/machines/duty-curves.ts';
+import { curveFromPoints, dutyCurves, dutyFlowAtSpeed, dutySpeedAtFlow } from '../../core/studies/machines/duty-curves.ts';
 import type { PumpLoad } from '../../core/model/project.ts';
 import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
@@ -236,5 +236,29 @@ describe('the duty editor\'s curves and the fitted curve written back as the ele
   it('a fitted curve that would fall below the static head at the rated flow is refused', () => {
     const out = curveFromPoints(pump, [{ flow: 0, value: 12 }, { flow: 0.03, value: 10 }, { flow: 0.05, value: 8 }]);
     expect(out).toMatchObject({ ok: false, message: expect.stringMatching(/static head/) });
+  });
+});
+
+describe('duty levels given as a speed: the flow on the system curve (inverse of the affinity laws)', () => {
+  const pump = { id: 'pump', kind: 'pump', from: 'motor', ratedFlow: 0.05, ratedHead: 30, shutoffHead: 40, efficiency: 0.75, staticHead: 10, flow: 0.04, control: 'speed' } as PumpLoad;
+  it('pump: n = √0.73 gives 0.04 m³/s (n² = (H_s + (k + a)·Q²)/H0 = (10 + 12000 × 0.0016)/40 = 0.73), and back', () => {
+    const out = dutyFlowAtSpeed(pump, Math.sqrt(0.73));
+    if (!out.ok) throw new Error(out.message);
+    expect(out.flow).toBeCloseTo(0.04, 12);
+    expect(dutySpeedAtFlow(pump, 0.04)).toBeCloseTo(Math.sqrt(0.73), 12);
+    expect(dutyFlowAtSpeed(pump, 1)).toEqual({ ok: true, flow: 0.05 });
+  });
+
+  it('pump: at or below √(H_s/H0) = √(10/40) = 50 % speed it lifts no water: refused, naming the least speed', () => {
+    expect(dutyFlowAtSpeed(pump, 0.5)).toMatchObject({ ok: false, message: expect.stringMatching(/above 50.0 %/) });
+    expect(dutyFlowAtSpeed(pump, 1.2)).toMatchObject({ ok: false, message: expect.stringMatching(/at most 100 %/) });
+  });
+
+  it('fan: no static pressure, so flow = speed × rated flow (affinity laws): 50 % gives 1 m³/s of 2', () => {
+    const fan = { ...fanBase, control: 'speed' } as FanLoad;
+    const out = dutyFlowAtSpeed(fan, 0.5);
+    if (!out.ok) throw new Error(out.message);
+    expect(out.flow).toBeCloseTo(1, 12);
+    expect(dutySpeedAtFlow(fan, 1.5)).toBeCloseTo(0.75, 12);
   });
 });

@@ -13,7 +13,7 @@
 import type { FanLoad, PumpLoad } from '../../model/project.ts';
 import { fitFallingQuadratic, curveAt, type CurveFit, type CurvePoint } from '../../physics/curve-fit.ts';
 import { fanAsPumpCurve, fanPressureOfHead } from '../../physics/fan.ts';
-import { pumpCurveHead, systemCurveHead } from '../../physics/pump-fan.ts';
+import { affinitySpeed, pumpCurveHead, systemCurveHead } from '../../physics/pump-fan.ts';
 
 /** One row of the curve table: at this flow, what the system needs and what the machine gives at full speed (m or Pa). */
 export interface CurveRow {
@@ -93,4 +93,35 @@ export function curveFromPoints(e: PumpLoad | FanLoad, points: readonly CurvePoi
       ? [{ path: shutoffPath, value: shutoff }, { path: ratedPath, value: rated }]
       : [{ path: ratedPath, value: rated }, { path: shutoffPath, value: shutoff }];
   return { ok: true, fit: out.fit, shutoff, rated, writes };
+}
+
+/** The machine's curve for the affinity laws: a pump's own, a fan's as a pump of standard air with no static head. */
+const affinityCurve = (e: PumpLoad | FanLoad) => (e.kind === 'fan' ? { curve: fanAsPumpCurve(e), staticHead: 0 } : { curve: e, staticHead: e.staticHead });
+
+/** The speed (fraction of full speed) at which the machine gives this flow on its system curve (affinity laws, pump-fan.ts `affinitySpeed`). */
+export function dutySpeedAtFlow(e: PumpLoad | FanLoad, flow: number): number {
+  const { curve, staticHead } = affinityCurve(e);
+  return affinitySpeed(curve, staticHead, flow);
+}
+
+export type FlowAtSpeed = { ok: true; flow: number } | { ok: false; message: string };
+
+/**
+ * The flow a duty level given as a speed gives on the system curve: the inverse of the affinity laws'
+ * n = √((H_s + (k + a)·Q²)/H0), Q = √((n²·H0 − H_s)/(k + a)) (with no static head, Q = n·Q_r). A speed
+ * at which the machine cannot lift the static head gives no flow and is refused, as is one above full
+ * speed (the rated flow is the most the system takes at full speed).
+ */
+export function dutyFlowAtSpeed(e: PumpLoad | FanLoad, speed: number): FlowAtSpeed {
+  const { curve, staticHead } = affinityCurve(e);
+  if (!Number.isFinite(speed) || speed > 1 + 1e-12) return { ok: false, message: 'must be at most 100 % (full speed gives the rated flow)' };
+  const Q2 = curve.ratedFlow * curve.ratedFlow;
+  const a = (curve.shutoffHead - curve.ratedHead) / Q2;
+  const k = (curve.ratedHead - staticHead) / Q2;
+  const lift = speed * speed * curve.shutoffHead - staticHead;
+  if (!(lift > 0)) {
+    const least = Math.sqrt(staticHead / curve.shutoffHead);
+    return { ok: false, message: `must be above ${(100 * least).toPrecision(3)} %: below it the pump does not lift the static head and gives no flow` };
+  }
+  return { ok: true, flow: Math.min(curve.ratedFlow, Math.sqrt(lift / (k + a))) };
 }

@@ -6,6 +6,6 @@ export { machineDetails, solveWithMachines, NEC_TABLE_CURRENT_NOTE, type Machine
 export { formatMachines, formatPumpDuty, MACHINE_CAUTION } from './text-report.ts';
 export { projectPumpDuty, pumpDetails, fanDetails, pumpDutySchema, type PumpDetail, type FanDetail, type PumpDutyOutcome } from './pump-duty.ts';
 export { affinitySpeed, pumpCurveHead, systemCurveHead, hydraulicPower, pumpShaftPower } from '../../physics/pump-fan.ts';
-export { curveFromPoints, dutyCurves, type CurveFromPoints, type DutyCurves, type CurveRow } from './duty-curves.ts';
+export { curveFromPoints, dutyCurves, dutyFlowAtSpeed, dutySpeedAtFlow, type FlowAtSpeed, type CurveFromPoints, type DutyCurves, type CurveRow } from './duty-curves.ts';
 export { fitFallingQuadratic, curveAt, CURVE_FIT_METHOD, type CurveFit, type CurvePoint } from '../../physics/curve-fit.ts';
 export { fanOperatingPoint, fanAsPumpCurve, STANDARD_AIR_DENSITY, type FanOperatingPoint } from '../../physics/fan.ts';

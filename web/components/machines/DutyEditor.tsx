@@ -7,7 +7,8 @@
  * names a pump or a fan (core/model/study-settings.ts). The comparison itself is PumpDutyStudy.tsx.
  */
 import { FIELD_LABELS, PROJECT_LEVEL, type FanLoad, type Problem, type PumpLoad, type Solved } from '../../../core/page.ts';
-import { dutyCurves } from '../../../core/studies/index.ts';
+import { useState } from 'preact/hooks';
+import { dutyCurves, dutyFlowAtSpeed, dutySpeedAtFlow } from '../../../core/studies/index.ts';
 import { formatSignificant, formatPercent, UNIT_GAP } from '../../format/number.ts';
 import { inputUnit, type Quantity } from '../../format/parse.ts';
 import type { UnitSystem } from '../../format/units.ts';
@@ -34,6 +35,8 @@ const nameOf = (e: { id: string; name?: string | undefined }) => (e.name && e.na
 const YEAR_HOURS = 8760;
 
 export function DutyEditor({ solved, problems, units, locale }: Props) {
+  /** Duty levels typed as flows (as stored) or as speeds (converted to flows by the affinity laws in core). */
+  const [given, setGiven] = useState<'flow' | 'speed'>('flow');
   const project = draft.value;
   if (!project) return null;
   const machines = project.elements.filter(isMachine);
@@ -75,6 +78,16 @@ export function DutyEditor({ solved, problems, units, locale }: Props) {
   // The element as the last valid solve has it (validated), for the table of the two curves.
   const solvedMachine = chosen ? solved.project.elements.find((e) => e.id === chosen.id) : undefined;
   const curveElement = solvedMachine && (solvedMachine.kind === 'pump' || solvedMachine.kind === 'fan') ? solvedMachine : undefined;
+  const bySpeed = given === 'speed' && curveElement !== undefined;
+  const speedConvert = curveElement
+    ? {
+        toStored: (speed: number) => {
+          const out = dutyFlowAtSpeed(curveElement, speed);
+          return out.ok ? { ok: true as const, value: out.flow } : out;
+        },
+        fromStored: (flow: number) => dutySpeedAtFlow(curveElement, flow),
+      }
+    : undefined;
 
   return (
     <section class="panel-section duty-editor" aria-labelledby="duty-editor-heading" data-testid="duty-editor">
@@ -108,19 +121,32 @@ export function DutyEditor({ solved, problems, units, locale }: Props) {
       {chosen && (
         <>
           <h5 class="duty-subheading">Duty points: flow and hours a year</h5>
+          {curveElement && (
+            <div class="study-field duty-given">
+              <label for="duty-given" class="study-field__label">
+                Duty levels given as
+              </label>
+              <select id="duty-given" class="study-field__input" value={given} onChange={(e) => setGiven((e.currentTarget as HTMLSelectElement).value === 'speed' ? 'speed' : 'flow')} data-testid="duty-given">
+                <option value="flow">Flow</option>
+                <option value="speed">Speed of the drive (% of full speed)</option>
+              </select>
+            </div>
+          )}
           <ol class="duty-rows" data-testid="duty-rows">
             {rows.map((_, i) => (
               <li key={i} class="duty-row" aria-label={`Duty point ${i + 1}`} data-testid="duty-row">
                 <DutyInput
+                  key={bySpeed ? 'speed' : 'flow'}
                   owner={PROJECT_LEVEL}
                   path={`pumpDuty.duty.${i}.flow`}
-                  label={fan ? 'Air flow' : 'Flow'}
-                  quantity={flowQ}
+                  label={bySpeed ? 'Speed' : fan ? 'Air flow' : 'Flow'}
+                  quantity={bySpeed ? 'fraction-percent' : flowQ}
                   units={units}
                   locale={locale}
-                  testId={`duty-flow-${i}`}
-                  undoLabel={`Duty point ${i + 1}: flow`}
+                  testId={bySpeed ? `duty-speed-${i}` : `duty-flow-${i}`}
+                  undoLabel={`Duty point ${i + 1}: ${bySpeed ? 'speed' : 'flow'}`}
                   studyMessage={messageAt(`pumpDuty.duty.${i}.flow`)}
+                  convert={bySpeed ? speedConvert : undefined}
                 />
                 <DutyInput
                   owner={PROJECT_LEVEL}

@@ -24,9 +24,14 @@ export interface DutyInputProps {
   undoLabel: string;
   /** A message about the stored value from the study (a flow above the rated flow), shown when the field has none of its own. */
   studyMessage?: string | undefined;
+  /**
+   * When the field is typed as another quantity than it is stored in (a duty level typed as a speed,
+   * stored as a flow): the engine's conversion each way, in SI.
+   */
+  convert?: { toStored(typed: number): { ok: true; value: number } | { ok: false; message: string }; fromStored(stored: number): number } | undefined;
 }
 
-export function DutyInput({ owner, path, label, quantity, units, locale, testId, undoLabel, studyMessage }: DutyInputProps) {
+export function DutyInput({ owner, path, label, quantity, units, locale, testId, undoLabel, studyMessage, convert }: DutyInputProps) {
   const [text, setText] = useState<string | null>(null);
   const project = draft.value;
   const target = owner === PROJECT_LEVEL ? project : project?.elements.find((e) => e.id === owner);
@@ -42,14 +47,24 @@ export function DutyInput({ owner, path, label, quantity, units, locale, testId,
       setFieldError(owner, path, read.message);
       return;
     }
+    if (convert && read.value !== undefined) {
+      const stored = convert.toStored(read.value);
+      if (!stored.ok) {
+        setFieldError(owner, path, `${label}: ${stored.message}`);
+        return;
+      }
+      setField(owner, path, stored.value, undoLabel);
+      return;
+    }
     setField(owner, path, read.value, undoLabel);
   };
+  const shown = convert && typeof stored === 'number' ? convert.fromStored(stored) : stored;
   return (
     <StudyInput
       id={id}
       label={label}
       unit={inputUnit(quantity, units).symbol}
-      text={text ?? inputText(stored, quantity, units, locale)}
+      text={text ?? inputText(shown, quantity, units, locale)}
       message={error}
       onText={commit}
       onLeave={() => {
