@@ -9,8 +9,7 @@
  * lossCostPerYear, pumpDutyCosts), run in the panel worker (panel-worker.ts); the panel only
  * formats. The energy price and hours per year are the user's own settings (web/state/prefs.ts),
  * not project data. This file asks the worker and lays the panel out; its sections are in
- * web/components/machines/: MachineCards.tsx, FanCard.tsx, DutyEditor.tsx (the pump or fan duty, edited
- * in the draft through setField), PumpDutyStudy.tsx, PfCorrection.tsx, LossCost.tsx.
+ * web/components/machines/: MachineCards.tsx, PumpDutyStudy.tsx, PfCorrection.tsx, LossCost.tsx.
  */
 import { useRef } from 'preact/hooks';
 import type { Solved } from '../../core/page.ts';
