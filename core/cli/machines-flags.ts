@@ -98,7 +98,7 @@ export function machineSections(solved: Solved, machines: boolean, pumpDuty: unk
     }
     if (pumpDuty === undefined && solved.project.pumpDuty !== undefined) {
       const f = projectPumpDuty(solved);
-      if (!f.ok) return { ok: false, heading: 'the pump duty study of the project cannot be run:', problems: f.problems };
+      if (!f.ok) return { ok: false, heading: 'the pump or fan duty study of the project cannot be run:', problems: f.problems };
       json.pumpDuty = f.result;
       text.push(formatPumpDuty(f.result));
     }

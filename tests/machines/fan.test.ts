@@ -152,6 +152,16 @@ describe('fan duty study: drive speed control against outlet dampers and on-off'
     // The fan's operating point: speed control at 1 m³/s, 250 Pa, 0.36 kW at the shaft (worked above).
     expect(r.stdout).toContain('Supply fan [fan] speed control: 1 m³/s at 250 Pa, speed 50.0 %, shaft 0.36 kW (motor "motor", drive "drive")');
   }, 30_000);
+
+  it('the command line refuses a fan duty above the rated flow, naming the study, the row and the fan', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'joulepath-fan-'));
+    const file = join(dir, 'fan-bad.json');
+    writeFileSync(file, JSON.stringify(project({ ...fanBase, control: 'speed' }, { pumpDuty: { pump: 'fan', duty: [{ flow: 2.5, hours: 100 }] } })));
+    const r = spawnSync(join('node_modules', '.bin', 'tsx'), ['core/cli/cli.ts', file], { encoding: 'utf8' });
+    expect(r.status).toBe(1);
+    expect(r.stderr).toContain('the pump or fan duty study of the project cannot be run:');
+    expect(r.stderr).toMatch(/Duty points, item 1 flow: is above the rated flow 2 m³\/s of the fan "Supply fan"/);
+  }, 30_000);
 });
 
 describe('pump or fan curve from the maker\'s points: least squares of y = y0 − a·Q²', () => {
