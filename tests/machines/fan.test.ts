@@ -123,6 +123,19 @@ describe('fan duty study: drive speed control against outlet dampers and on-off'
     expect(d!.warnings.join(' ')).toMatch(/"Outlet damper at full speed" runs at full speed, but the drive "drive" feeds the motor "motor"/);
   });
 
+  it('a fan on speed control: a drive at 25 Hz of 50 Hz runs it at the 50 % its 1 of 2 m³/s needs (no warning); at 40 Hz it warns', () => {
+    // n = Q/Q_r = 0.5 (affinity laws); the fixture's drive runs at 25 Hz / 50 Hz = 50 %; 40 Hz is 80 %, beyond 2 % of full speed.
+    const at = (hz: number) => {
+      const p = project({ ...fanBase, control: 'speed' });
+      (p['elements'] as Record<string, unknown>[])[1]!['outputFrequency'] = hz;
+      const v = validateProject(p);
+      if (!v.ok) throw new Error(JSON.stringify(v.problems));
+      return fanDetails(v.project)[0]!.warnings;
+    };
+    expect(at(25)).toEqual([]);
+    expect(at(40).join(' ')).toMatch(/needs 50\.0 % speed for 1 m³\/s, but the drive "drive" runs the motor "motor" at 80\.0 %/);
+  });
+
   it('a fan on speed control with no drive warns by name; the study names a fan that is not in the project', () => {
     const out = onSolved(projectPumpDuty, project({ ...fanBase, control: 'speed' }, { drive: false, pumpDuty: { pump: 'fan', duty } }));
     if (!out.ok) throw new Error(JSON.stringify(out.problems));

@@ -227,6 +227,15 @@ function fanTreeWarnings(elements: Map<string, Element>, fan: FanLoad, motor: Mo
   // The air flow control's choices as the form words them (web/editor/fields/loads.ts).
   if (fan.control === 'speed' && !drive) return [`flow control "Speed (a drive upstream)" needs a drive, but none feeds the motor ${motorName}; on a fixed-frequency supply the fan runs at full speed (choose "Outlet damper at full speed")`];
   if (fan.control === 'damper' && drive) return [`flow control "Outlet damper at full speed" runs at full speed, but the drive "${drive.name ?? drive.id}" feeds the motor ${motorName}; with a drive, speed control saves the damper's loss`];
+  if (fan.control === 'speed' && drive) {
+    // The drive's speed (output frequency / motor rated frequency) against the speed the affinity laws need (n = Q/Q_r).
+    const rated = drive.motorRatedFrequency ?? motor.ratedFrequency ?? supplyFrequency(elements, drive.from);
+    const needed = fanOperatingPoint(fan).speed;
+    if (rated !== undefined && Math.abs(drive.outputFrequency / rated - needed) > SPEED_TOLERANCE) {
+      const pct = (x: number) => `${(100 * x).toFixed(1)} %`;
+      return [`needs ${pct(needed)} speed for ${valueText(q(fan.flow, 'm³/s'))}, but the drive "${drive.name ?? drive.id}" runs the motor ${motorName} at ${pct(drive.outputFrequency / rated)} (output frequency / motor rated frequency); the shaft power is computed at the needed speed`];
+    }
+  }
   return [];
 }
 
