@@ -92,6 +92,8 @@ export {
   formatPumpDuty,
   projectPumpDuty,
   pumpDetails,
+  fanDetails,
+  type FanDetail,
   type PumpDetail,
   type PumpDutyOutcome,
   MOTOR_CLASSES,
@@ -106,6 +108,12 @@ export {
   type MotorDetail,
   type DriveDetail,
   type MachineSolveOutcome,
+  curveFromPoints,
+  dutyCurves,
+  fitFallingQuadratic,
+  fanOperatingPoint,
+  type CurveFit,
+  type DutyCurves,
 } from './studies/machines/index.ts';
 export { flowGraph, lossNodeId, lossParts, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole, type LossPart, type LossSummary, type Share } from './studies/energy-flow.ts';
 export { lossCostPerYear, pumpDutyCosts, energyCost, checkCostSettings, HOURS_IN_YEAR, MAX_HOURS_PER_YEAR, type CostSettings, type LossCost, type LossCostRow, type LossCostOutcome, type MethodCosts } from './studies/economics.ts';

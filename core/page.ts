@@ -27,6 +27,7 @@ export { MOTOR_CLASSES } from './physics/motor-rating.ts';
 export { bankValues, checkBank } from './physics/bank.ts';
 export { pumpShaftPower } from './physics/pump-fan.ts';
 export { describeNetworkLoads, type NetworkLoadFigures } from './physics/network.ts';
+export { fanAsPumpCurve } from './physics/fan.ts';
 export { defaultCatalogue } from './conductors/catalogue.ts';
 export { resolveLimits } from './conductors/path-drop.ts';
 export { CAUTION as CONDUCTOR_CAUTION } from './conductors/size.ts';

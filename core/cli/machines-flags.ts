@@ -5,13 +5,13 @@
  * A project with a `pumpDuty` ({ pump, duty }) runs the same comparison on its own pump, motor and
  * drive (core/studies/machines/pump-duty.ts) unless --pump-duty gives a study file, which then replaces it.
  * A project with `pump` elements gets their operating points and tree checks (`pumps`).
- * With --json they appear under `machines`, `pumpDuty` and `pumps`.
+ * With --json they appear under `machines`, `pumpDuty`, `pumps` and `fans`.
  */
 import type { Problem } from '../model/errors.ts';
 import { solveWithMachines, type MachineDetails } from '../studies/machines/details.ts';
 import { comparePumpControl, type PumpControlResult, type PumpDutyInput } from '../physics/pump-fan.ts';
 import { formatPumpDuty, formatMachines } from '../studies/machines/text-report.ts';
-import { projectPumpDuty, pumpDetails, type PumpDetail } from '../studies/machines/pump-duty.ts';
+import { fanDetails, projectPumpDuty, pumpDetails, type FanDetail, type PumpDetail } from '../studies/machines/pump-duty.ts';
 import type { Solved } from '../solve/index.ts';
 import { studiesOf } from '../kinds/index.ts';
 
@@ -27,6 +27,19 @@ export function formatPumps(pumps: readonly PumpDetail[]): string {
     const op = d.operatingPoint;
     lines.push(
       `  ${d.name} [${d.id}] ${op.control === 'speed' ? 'speed control' : 'throttled'}: ${op.flow} m³/s at ${op.head.toFixed(2)} m, speed ${(100 * op.speed).toFixed(1)} %, hydraulic ${(op.hydraulicPower / 1000).toFixed(2)} kW, shaft ${(op.shaftPower / 1000).toFixed(2)} kW (motor "${d.motorId}"${d.driveId ? `, drive "${d.driveId}"${d.driveSpeed !== undefined ? ` at ${(100 * d.driveSpeed).toFixed(1)} %` : ''}` : ', no drive'})`,
+    );
+    for (const w of d.warnings) lines.push(`    warning: ${w}`);
+  }
+  return lines.join('\n');
+}
+
+/** The fans' operating points and tree checks, for the CLI (Pa, m³/s as the file carries them). */
+export function formatFans(fans: readonly FanDetail[]): string {
+  const lines = ['Fans (constant fan efficiency, affinity laws; quadratic fan curve, no static pressure):'];
+  for (const d of fans) {
+    const op = d.operatingPoint;
+    lines.push(
+      `  ${d.name} [${d.id}] ${op.control === 'speed' ? 'speed control' : 'outlet damper'}: ${op.flow} m³/s at ${op.pressure.toFixed(0)} Pa, speed ${(100 * op.speed).toFixed(1)} %, shaft ${(op.shaftPower / 1000).toFixed(2)} kW (motor "${d.motorId}"${d.driveId ? `, drive "${d.driveId}"` : ', no drive'})`,
     );
     for (const w of d.warnings) lines.push(`    warning: ${w}`);
   }
@@ -56,7 +69,7 @@ export function takeMachineFlags(args: readonly string[]): MachineFlags {
 }
 
 export type MachineSections =
-  | { ok: true; text: string; json: { machines?: MachineDetails; pumpDuty?: PumpControlResult; pumps?: PumpDetail[] } }
+  | { ok: true; text: string; json: { machines?: MachineDetails; pumpDuty?: PumpControlResult; pumps?: PumpDetail[]; fans?: FanDetail[] } }
   | { ok: false; heading: string; problems: Problem[] };
 
 /**
@@ -65,7 +78,7 @@ export type MachineSections =
  */
 export function machineSections(solved: Solved, machines: boolean, pumpDuty: unknown): MachineSections {
   const text: string[] = [];
-  const json: { machines?: MachineDetails; pumpDuty?: PumpControlResult; pumps?: PumpDetail[] } = {};
+  const json: { machines?: MachineDetails; pumpDuty?: PumpControlResult; pumps?: PumpDetail[]; fans?: FanDetail[] } = {};
   if (machines) {
     const m = solveWithMachines(solved);
     if (!m.ok) return { ok: false, heading: 'the motors and drives cannot be reported:', problems: m.problems };
@@ -78,9 +91,14 @@ export function machineSections(solved: Solved, machines: boolean, pumpDuty: unk
       json.pumps = pumps;
       text.push(formatPumps(pumps));
     }
+    const fans = fanDetails(solved.project);
+    if (fans.length) {
+      json.fans = fans;
+      text.push(formatFans(fans));
+    }
     if (pumpDuty === undefined && solved.project.pumpDuty !== undefined) {
       const f = projectPumpDuty(solved);
-      if (!f.ok) return { ok: false, heading: 'the pump duty study of the project cannot be run:', problems: f.problems };
+      if (!f.ok) return { ok: false, heading: 'the pump or fan duty study of the project cannot be run:', problems: f.problems };
       json.pumpDuty = f.result;
       text.push(formatPumpDuty(f.result));
     }

@@ -18,6 +18,7 @@ import { acCurrentLoadKind, acLoadKind, acVaLoadKind, dcCurrentLoadKind, dcLoadK
 import { motorKind } from './motor.ts';
 import { networkLoadKind } from './network-load.ts';
 import { pumpKind } from './pump.ts';
+import { fanKind } from './fan.ts';
 import { rectifierKind } from './rectifier.ts';
 import { transformerKind } from './transformer.ts';
 
@@ -42,6 +43,7 @@ const all = [
   shaftLoadKind,
   networkLoadKind,
   pumpKind,
+  fanKind,
 ] as const;
 
 const registry = new Map<ElementKind, KindSpec>(all.map((k) => [k.kind, k as unknown as KindSpec<Element>]));

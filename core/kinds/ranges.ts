@@ -75,6 +75,8 @@ export const RANGES = {
   flow: { min: 0, max: 1000, unit: 'm³/s', what: 'a flow' },
   /** Pump head: up to 10 000 m (multistage boiler-feed pumps reach some 4000 m). */
   head: { min: 0, max: 1e4, unit: 'm', what: 'a head' },
+  /** Fan pressure: up to 1 MPa (high-pressure blowers reach some 20 kPa; process compressors more). */
+  pressure: { min: 0, max: 1e6, unit: 'Pa', what: 'a fan pressure', prefix: true },
   /** Fluid density: from a gas at 0.01 kg/m³ (fans at altitude) to 25 000 kg/m³ (mercury is 13 534). */
   density: { min: 0.01, max: 25_000, unit: 'kg/m³', what: 'a density' },
   /** Datasheet load fraction: up to 10 (1000 % of rated output). */

@@ -33,6 +33,7 @@ export const KIND_LABELS: Readonly<Record<ElementKind, string>> = {
   'ac-current-load': 'AC load (amperes)',
   'shaft-load': 'Shaft load',
   pump: 'Pump',
+  fan: 'Fan',
 };
 
 /** The loss model's fields, the same in every converter's form (core/physics/loss-model.ts). */
@@ -287,6 +288,16 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     flow: "Operating flow",
     control: "Flow control",
   },
+  fan: {
+    name: "Name",
+    ratedFlow: "Rated air flow",
+    ratedPressure: "Rated fan pressure",
+    shutoffPressure: "Shut-off pressure (zero flow)",
+    efficiency: "Fan efficiency (%)",
+    density: "Air density at the fan",
+    flow: "Operating air flow",
+    control: "Air flow control",
+  },
   project: {
     name: "Project name",
     description: "Description",
@@ -313,7 +324,7 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "backup.profile.startHour": "Outage starts at",
     "backup.profile.segments": "Time-of-day segments",
     "backup.profile.duty": "Duty cycles",
-    "pumpDuty.pump": "Pump of the duty study",
+    "pumpDuty.pump": "Pump or fan of the duty study",
     "pumpDuty.duty": "Duty points",
   },
 };

@@ -1,6 +1,6 @@
 /**
  * The file format, part 5: the loads at the leaves (constant power, apparent power, current, shaft,
- * circuit network, pump).
+ * circuit network, pump, fan).
  */
 import type { CircuitNetwork } from './circuit-network.ts';
 import type { FedElement, PfSense } from './element-base.ts';
@@ -107,4 +107,29 @@ export interface PumpLoad extends FedElement, PumpCurve {
   control: 'speed' | 'throttle';
 }
 
-export type Load = DcLoad | AcPowerLoad | AcApparentLoad | DcCurrentLoad | AcCurrentLoad | ShaftLoad | NetworkLoad | PumpLoad;
+/**
+ * A fan on a motor shaft (core/kinds/fan.ts): quadratic fan curve (pressure against flow) through
+ * the shut-off pressure and the rated point, as the maker gives it at standard air (1.2 kg/m³);
+ * no static head: the system's pressure is k·Q², through the rated point. Shaft power Q·Δp/η at
+ * the operating point, Δp scaled by ρ/1.2 for air of another density (fan laws):
+ * - "speed": a drive upstream sets the speed; affinity laws on the system curve (power ∝ speed³);
+ * - "damper": full speed, an outlet damper takes up the difference; the fan rides its own curve.
+ */
+export interface FanLoad extends FedElement {
+  kind: 'fan';
+  /** Flow at the rated (design) point at full speed, m³/s. */
+  ratedFlow: number;
+  /** Fan pressure at the rated point, Pa (at standard air, 1.2 kg/m³). */
+  ratedPressure: number;
+  /** Fan pressure at zero flow at full speed, Pa (above ratedPressure). */
+  shutoffPressure: number;
+  /** Fan efficiency, 0…1, constant over the operating range (the affinity laws' assumption). */
+  efficiency: number;
+  /** Density of the air at the fan, kg/m³ (default 1.2, standard air). */
+  density?: number;
+  /** Operating flow, m³/s (0 < flow ≤ ratedFlow). */
+  flow: number;
+  control: 'speed' | 'damper';
+}
+
+export type Load = DcLoad | AcPowerLoad | AcApparentLoad | DcCurrentLoad | AcCurrentLoad | ShaftLoad | NetworkLoad | PumpLoad | FanLoad;

@@ -24,6 +24,7 @@ export type MessageUnit =
   | 'm'
   | 'm³/s'
   | 'kg/m³'
+  | 'Pa'
   | '°C'
   | 's'
   | 'min'
@@ -39,6 +40,8 @@ export type MessageUnit =
 export interface MessageValue {
   si: number;
   unit: MessageUnit;
+  /** A flow of air (a fan's): the page shows it in the fan form's unit (m³/h or cfm), not a pump's. */
+  air?: true;
 }
 
 /** A message with its numbers kept as quantities (see the file's head). */
@@ -52,7 +55,7 @@ export interface Worded {
 export const q = (si: number, unit: MessageUnit): MessageValue => ({ si, unit });
 
 /** Units written with an SI prefix (BIPM SI Brochure, Table 7) when the value is large or small. */
-const PREFIXED: ReadonlySet<MessageUnit> = new Set(['V', 'A', 'W', 'VA', 'var', 'Hz', 'Ω', 'Ω/km', 'm']);
+const PREFIXED: ReadonlySet<MessageUnit> = new Set(['V', 'A', 'W', 'VA', 'var', 'Hz', 'Ω', 'Ω/km', 'm', 'Pa']);
 
 /** The SI prefixes used, largest first (BIPM SI Brochure, Table 7); core/physics/si-prefix.ts reads it too. */
 export const SI_PREFIX_STEPS: readonly [number, string][] = [

@@ -46,7 +46,7 @@ export interface Project {
   backup?: BackupStudy;
   /** Voltage-drop limits the whole-path check flags against (default: 3 % per link, 5 % total). */
   dropLimits?: DropLimits;
-  /** Flow-control comparison at a duty profile for a `pump` element (core/studies/machines/pump-duty.ts). */
+  /** Flow-control comparison at a duty profile for a `pump` or `fan` element (core/studies/machines/pump-duty.ts). */
   pumpDuty?: PumpDutyStudy;
   /** Energy price and hours a year, for what the losses cost (core/studies/economics.ts). */
   running?: RunningCost;

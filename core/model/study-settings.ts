@@ -3,7 +3,11 @@
  * battery backup study and its load profile.
  */
 
-/** The pump element to study and its duty: flow (m³/s) and hours per year at that flow. */
+/**
+ * The pump or fan element to study and its duty: flow (m³/s) and hours per year at that flow.
+ * `pump` names a `pump` or a `fan` element by its id: the key kept its name from before fans
+ * existed, so every file written before still opens unchanged (no format version step).
+ */
 export interface PumpDutyStudy {
   pump: string;
   duty: { flow: number; hours: number }[];

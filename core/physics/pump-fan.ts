@@ -14,6 +14,9 @@
  *   H(Q) = H0 − a·Q² (its own curve at that flow);
  * - on-off: the pump runs at the design point for the fraction Q/Q_r of the hours (a tank or the
  *   process takes up the difference; starts not counted);
+ * - a fan is the same model with no static head (core/physics/fan.ts): speed control by the affinity
+ *   laws (n = Q/Q_r, power ∝ n³), its outlet damper is the throttling case (full speed on its own
+ *   curve), on-off the same;
  * - hydraulic power P_h = ρ·g·Q·H (g = 9.80665 m/s², standard gravity); shaft power P_h / η_pump;
  * - motor input P_shaft / η_motor(x), x = P_shaft / rated output (core/physics/motor-rating.ts);
  *   on the drive the same part-load curve is used at reduced speed (extra harmonic loss ignored);
@@ -71,6 +74,12 @@ export function pumpShaftPower(p: PumpCurve, flow: number, head: number): number
 export interface PumpDutyInput {
   /** Name used in messages (default "pumpDuty"). */
   id?: string;
+  /**
+   * A pump (default) or a fan. A fan enters as a pump of the same model (core/physics/fan.ts
+   * `fanAsPumpCurve`: its pressure as a head of standard air, static head 0); its result also
+   * carries the pressures, and its fixed-speed method is the outlet damper.
+   */
+  machine?: 'pump' | 'fan';
   pump: PumpCurve;
 
   /** Static head of the system, m (0 ≤ staticHead < ratedHead). */
@@ -99,6 +108,8 @@ export interface SpeedControlPoint {
   driveLoss: number;
   /** Electrical input power, W. */
   inputPower: number;
+  /** Fan pressure ρ·g·H, Pa (fans only). */
+  pressure?: number;
   /** The drive's operating point, %, and whether it was clamped to the grid. */
   driveSpeedPercent: number;
   driveTorquePercent: number;
@@ -107,6 +118,8 @@ export interface SpeedControlPoint {
 
 export interface FixedSpeedPoint {
   head: number;
+  /** Fan pressure ρ·g·H, Pa (fans only). */
+  pressure?: number;
   shaftPower: number;
   motorLoss: number;
   inputPower: number;
@@ -131,7 +144,9 @@ export interface MethodEnergy {
 }
 
 export interface PumpControlResult {
-  designPoint: { flow: number; head: number; shaftPower: number; inputPower: number; motorLoadFraction: number };
+  /** What was studied: a pump, or a fan (its fixed-speed method is then the outlet damper, its heads also given as pressures). */
+  machine: 'pump' | 'fan';
+  designPoint: { flow: number; head: number; pressure?: number; shaftPower: number; inputPower: number; motorLoadFraction: number };
   points: DutyPointResult[];
   speedControl: MethodEnergy;
   throttle: MethodEnergy;
@@ -241,7 +256,7 @@ export function comparePumpControl(input: PumpDutyInput): PumpControlOutcome {
           elementId: id,
           field: 'motor.ratedOutput',
           value: input.motor.ratedOutput,
-          message: `the pump needs up to ${(peak / 1000).toPrecision(3)} kW at the shaft, beyond the service factor ${sf} × rated output ${(input.motor.ratedOutput / 1000).toPrecision(3)} kW; choose a larger motor`,
+          message: `the ${input.machine ?? 'pump'} needs up to ${(peak / 1000).toPrecision(3)} kW at the shaft, beyond the service factor ${sf} × rated output ${(input.motor.ratedOutput / 1000).toPrecision(3)} kW; choose a larger motor`,
         },
       ],
     };
@@ -257,10 +272,13 @@ function compute(s: PumpDutyInput, rating: MotorRating, grid: DriveLossGrid): Pu
   const warnings: string[] = [];
   const shaft = (Q: number, H: number): number => pumpShaftPower(s.pump, Q, H);
   const motorInput = (pShaft: number): number => (pShaft > 0 ? pShaft / ratedAt(rating, pShaft / Prated).efficiency : 0);
+  const fan = s.machine === 'fan';
+  // A fan's pressure from its head of air: Δp = ρ·g·H (core/physics/fan.ts).
+  const pressure = (H: number) => (fan ? { pressure: (s.pump.density ?? 1000) * STANDARD_GRAVITY * H } : {});
   const fixedSpeed = (Q: number, H: number): FixedSpeedPoint => {
     const pShaft = Q > 0 ? shaft(Q, H) : 0;
     const pIn = motorInput(pShaft);
-    return { head: H, shaftPower: pShaft, motorLoss: pIn - pShaft, inputPower: pIn };
+    return { head: H, ...pressure(H), shaftPower: pShaft, motorLoss: pIn - pShaft, inputPower: pIn };
   };
   const design = fixedSpeed(Qr, Hr);
 
@@ -283,6 +301,7 @@ function compute(s: PumpDutyInput, rating: MotorRating, grid: DriveLossGrid): Pu
       speedControl: {
         speed: n,
         head: Hsys,
+        ...pressure(Hsys),
         shaftPower: pShaft,
         motorLoss: pMotorIn - pShaft,
         driveLoss: at.loss,
@@ -320,7 +339,8 @@ function compute(s: PumpDutyInput, rating: MotorRating, grid: DriveLossGrid): Pu
   }
   const totalHours = points.reduce((acc, p) => acc + p.hours, 0);
   return {
-    designPoint: { flow: Qr, head: Hr, shaftPower: design.shaftPower, inputPower: design.inputPower, motorLoadFraction: design.shaftPower / Prated },
+    machine: fan ? 'fan' : 'pump',
+    designPoint: { flow: Qr, head: Hr, ...pressure(Hr), shaftPower: design.shaftPower, inputPower: design.inputPower, motorLoadFraction: design.shaftPower / Prated },
     points,
     speedControl,
     throttle,
@@ -335,7 +355,9 @@ function compute(s: PumpDutyInput, rating: MotorRating, grid: DriveLossGrid): Pu
     motorSource: `${rating.fullLoad.source}; typical part-load shape (typical values: use the maker's figures)`,
     driveSource: grid.source,
     warnings,
-    method: 'affinity laws at constant pump efficiency; quadratic pump curve; system curve H = H_s + k·Q²; IEC 61800-9-2 bilinear drive loss',
+    method: fan
+      ? 'affinity laws at constant fan efficiency (no static head: power ∝ speed³); quadratic fan curve; system pressure k·Q²; outlet damper: full speed on the fan curve; IEC 61800-9-2 bilinear drive loss'
+      : 'affinity laws at constant pump efficiency; quadratic pump curve; system curve H = H_s + k·Q²; IEC 61800-9-2 bilinear drive loss',
   };
 }
 

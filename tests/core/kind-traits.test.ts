@@ -70,6 +70,12 @@ const FIXTURES: Record<ElementKind, (level: number) => Json[]> = {
     { id: 'm', kind: 'motor', from: 'src', ratedOutput: 7500, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 },
     { id: 'x', kind: 'pump', from: 'm', ratedFlow: 0.01, ratedHead: 30, shutoffHead: 38, efficiency: 0.75, staticHead: 8, flow: 0.009, control: 'throttle' },
   ],
+  // A ventilation fan: 2 m³/s at 1000 Pa, 1300 Pa shut-off, 70 % (invented for the fixture).
+  fan: () => [
+    GRID3,
+    { id: 'm', kind: 'motor', from: 'src', ratedOutput: 7500, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 },
+    { id: 'x', kind: 'fan', from: 'm', ratedFlow: 2, ratedPressure: 1000, shutoffPressure: 1300, efficiency: 0.7, flow: 1.6, control: 'damper' },
+  ],
 };
 
 const kinds = [...KINDS.entries()];
@@ -232,9 +238,10 @@ describe('studies: what each kind declares matches the fields the studies read',
     // (core/studies/backup, core/studies/surge/starting.ts); fault currents start at a source.
     expect(studies.has('backup'), 'backup').toBe(fields(s).includes('bank'));
     expect(studies.has('motor-start'), 'motor-start').toBe(fields(s).includes('starting'));
+    // The pump duty study compares the flow control of a pump or fan: the kinds with a curve's shut-off point.
     expect(studies.has('fault-current'), 'fault-current').toBe(s.role === 'source');
     // The pump duty study compares the flow control of a pump: the kind with a pump curve.
-    expect(studies.has('pump-duty'), 'pump-duty').toBe(fields(s).includes('shutoffHead'));
+    expect(studies.has('pump-duty'), 'pump-duty').toBe(fields(s).includes('shutoffHead') || fields(s).includes('shutoffPressure'));
     if (studies.has('pump-duty') || studies.has('motor-start')) expect(studies.has('machines')).toBe(true);
   });
   it('the demos: a bank, a pump and a drive each bring their studies', () => {

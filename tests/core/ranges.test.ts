@@ -93,6 +93,7 @@ const ELEMENTS: readonly Json[] = [
   { id: 'ac-i', kind: 'ac-current-load', from: 'grid', current: 10, powerFactor: 0.9 },
   { id: 'shaft', kind: 'shaft-load', from: 'motor', power: 15000 },
   { id: 'pump', kind: 'pump', from: 'motor', ratedFlow: 0.05, ratedHead: 30, shutoffHead: 40, efficiency: 0.75, density: 998, staticHead: 10, flow: 0.04, control: 'speed' },
+  { id: 'fan', kind: 'fan', from: 'motor', ratedFlow: 0.5, ratedPressure: 1000, shutoffPressure: 1300, efficiency: 0.7, density: 1.2, flow: 0.4, control: 'damper' },
 ];
 
 /** Every number in an element, with its path as the problems give it ("loss.points.0.loadFraction"). */
@@ -177,6 +178,8 @@ const RANGED: readonly [string, string, Quantity][] = [
   ['pump', 'ratedFlow', 'flow'],
   ['pump', 'shutoffHead', 'head'],
   ['pump', 'density', 'density'],
+  ['fan', 'ratedPressure', 'pressure'],
+  ['fan', 'density', 'density'],
 ];
 
 describe('the range table: each message names the plausible range with its unit', () => {

@@ -108,6 +108,7 @@ function chainFor(kind: ElementKind): FormElement[] {
       return [grid1, me('src')];
     case 'shaft-load':
     case 'pump':
+    case 'fan':
       return [grid3, { id: 'mot', kind: 'motor', from: 'src', ratedOutput: 7500, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 }, { ...me('mot') }];
   }
 }

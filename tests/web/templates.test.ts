@@ -98,7 +98,7 @@ describe('templates after every plausible feeding port', () => {
     expect(kindsAt('battery-48')).toEqual(['cable', 'dc-bus', 'dc-current-load', 'dc-dc', 'dc-load', 'generic', 'inverter']);
     expect(kindsAt('grid-3-400')).toEqual(['ac-current-load', 'ac-load', 'ac-va-load', 'cable', 'drive', 'generic', 'motor', 'network-load', 'rectifier', 'transformer']);
     const shaft = templatesAfter({ port: { kind: 'shaft' } }).map((t) => t.kind).sort();
-    expect(shaft).toEqual(['pump', 'shaft-load']);
+    expect(shaft).toEqual(['fan', 'pump', 'shaft-load']);
     // Sources are never offered as a stage.
     for (const kind of ADDABLE_KINDS) expect(KINDS.get(kind)!.role).not.toBe('source');
   });

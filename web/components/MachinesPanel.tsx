@@ -21,6 +21,8 @@ import { LossCost } from './machines/LossCost.tsx';
 import { DriveCard, MotorCard, PumpCard } from './machines/MachineCards.tsx';
 import { PfCorrectionControl } from './machines/PfCorrection.tsx';
 import { PumpDuty } from './machines/PumpDutyStudy.tsx';
+import { DutyEditor } from './machines/DutyEditor.tsx';
+import { FanCard } from './machines/FanCard.tsx';
 import './Panels.css';
 
 export default function MachinesPanel() {
@@ -49,7 +51,7 @@ export default function MachinesPanel() {
   const crash = reply?.kind === 'crash' ? reply.message : null;
   const stale = !result || resultsState.value === 'stale' || problems.length > 0;
   if (!shown) return <p class="note" data-testid="machines-panel" data-state={pending ? 'pending' : 'none'}>{crash ?? 'Working out the figures…'}</p>;
-  const { motors, drives, pumps, pumpDuty, lossCost } = shown.figures;
+  const { motors, drives, pumps, fans, pumpDuty, lossCost } = shown.figures;
   return (
     <div class={stale ? 'panel-body panel-body--stale' : 'panel-body'} data-testid="machines-panel" data-state={pending ? 'pending' : stale ? 'stale' : 'current'} data-study-ms={reply ? reply.ms.toFixed(2) : ''}>
       {stale && (
@@ -58,9 +60,9 @@ export default function MachinesPanel() {
         </p>
       )}
       {crash && <p class="notice notice--error" role="alert">{crash}</p>}
-      {(motors.length > 0 || drives.length > 0 || pumps.length > 0) && (
+      {(motors.length > 0 || drives.length > 0 || pumps.length > 0 || fans.length > 0) && (
         <section class="panel-section" aria-labelledby="machines-heading">
-          <h4 id="machines-heading">Motors, drives and pumps at the operating point</h4>
+          <h4 id="machines-heading">{fans.length > 0 ? 'Motors, drives, pumps and fans at the operating point' : 'Motors, drives and pumps at the operating point'}</h4>
           <div class="cond-cards">
             {motors.map((m) => (
               <MotorCard key={m.id} m={m} locale={locale} />
@@ -71,10 +73,14 @@ export default function MachinesPanel() {
             {pumps.map((p) => (
               <PumpCard key={p.id} p={p} units={units} locale={locale} />
             ))}
+            {fans.map((f) => (
+              <FanCard key={f.id} f={f} units={units} locale={locale} />
+            ))}
           </div>
         </section>
       )}
-      {pumpDuty && <PumpDuty duty={pumpDuty} locale={locale} />}
+      <DutyEditor solved={shown.solved} problems={pumpDuty && !pumpDuty.ok ? pumpDuty.problems : []} units={units} locale={locale} />
+      {pumpDuty && <PumpDuty duty={pumpDuty} locale={locale} units={units} />}
       <PfCorrectionControl solved={shown.solved} locale={locale} />
       {draft.value && <LossCost lossCost={lossCost} project={draft.value} units={units} locale={locale} />}
     </div>

@@ -10,7 +10,8 @@ import { openCount } from '../state/editor.ts';
 import { studyAnswers } from './answers/study-answers.ts';
 import type { FeedingPort } from '../editor/templates.ts';
 import { elementKindLabel, portKindLabel } from '../format/labels.ts';
-import { formatApparent, formatCurrent, formatDuration, formatFrequency, formatPercent, formatPower, formatVoltage } from '../format/number.ts';
+import { formatApparent, formatCurrent, formatDuration, formatFrequency, formatPercent, formatPower, formatSignificant, formatVoltage, UNIT_GAP } from '../format/number.ts';
+import { inputUnit } from '../format/parse.ts';
 import { formatLength, formatShaftPower, type UnitSystem } from '../format/units.ts';
 import type { DraftElement } from '../state/editor.ts';
 
@@ -141,6 +142,13 @@ export function keyInputs(e: DraftElement, input: FeedingPort | undefined, units
     }
     case 'network-load':
       lines.push(e['connection'] ? `R, L, C in ${String(e['connection'])}` : 'R, L, C network');
+      break;
+    case 'fan':
+      lines.push(e['control'] === 'speed' ? 'speed control' : 'outlet damper');
+      if (num(e['ratedPressure']) !== undefined) {
+        const unit = inputUnit('pressure', units);
+        lines.push(`${formatSignificant(unit.fromSi(num(e['ratedPressure'])!), 3, locale)}${UNIT_GAP}${unit.symbol} rated`);
+      }
       break;
     case 'pump':
       lines.push(e['control'] === 'speed' ? 'speed control' : 'throttled');

@@ -13,7 +13,7 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, pumpDutyCosts, rechargeCautions, runBackupStudy, type StudyAnswers } from '../../core/studies/index.ts';
+import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, type StudyAnswers } from '../../core/studies/index.ts';
 import { elementNames, nonFiniteProblems, type Problem, type Solved } from '../../core/page.ts';
 
 export type PanelRequest =
@@ -37,6 +37,7 @@ export interface MachinesFigures {
   motors: MotorDetail[];
   drives: DriveDetail[];
   pumps: PumpDetail[];
+  fans: FanDetail[];
   pumpDuty?: { ok: true; result: PumpControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
   lossCost?: { ok: true; cost: LossCost } | { ok: false; problems: Problem[] };
 }
@@ -81,7 +82,7 @@ function battery(solved: Solved): BatteryReply {
 function machines(solved: Solved, cost: CostSettings | null): MachinesReply {
   const { project, result } = solved;
   const { motors, drives } = machineDetails(solved);
-  const figures: MachinesFigures = { motors, drives, pumps: pumpDetails(project) };
+  const figures: MachinesFigures = { motors, drives, pumps: pumpDetails(project), fans: fanDetails(project) };
   if (project.pumpDuty) {
     const f = projectPumpDuty(solved);
     if (f.ok) {

@@ -18,7 +18,7 @@
  * drive rating up from their rated output); a motor offered behind a drive stays within its rating.
  * A drive the user set is never changed here: the engine warns when it is smaller than its motors.
  */
-import { type DriveStage, driveRatedPower, type ElementKind, KINDS, type NominalPort, type PortKind, pumpShaftPower, WATTS_PER_HP } from '../../core/page.ts';
+import { type DriveStage, driveRatedPower, type ElementKind, fanAsPumpCurve, KINDS, type NominalPort, type PortKind, pumpShaftPower, WATTS_PER_HP } from '../../core/page.ts';
 import type { DraftElement, DraftProject } from '../state/editor.ts';
 
 /** A port as the templates see it: its kind and, when known, nominal voltage (line-to-line on 3φ) and frequency. */
@@ -229,6 +229,21 @@ function pumpTemplate(feeder: DraftElement | undefined): DraftElement {
   return { id: 'pump', kind: 'pump', ...PUMP, ratedFlow, flow: Number((0.9 * ratedFlow).toPrecision(3)), control: 'throttle' };
 }
 
+/** Fan curve defaults: 1000 Pa rated, 1300 Pa shut-off, 70 % efficiency (common practice (no source)). */
+const FAN = { ratedPressure: 1000, shutoffPressure: 1300, efficiency: 0.7 } as const;
+const FAN_FLOWS = [0.1, 0.2, 0.5, 1, 2, 5, 10, 20] as const;
+
+function fanTemplate(feeder: DraftElement | undefined): DraftElement {
+  const budget = motorRating(feeder) === undefined ? 5000 : 0.8 * motorRating(feeder)!;
+  // The largest listed rated flow whose shaft power at the rated point fits the motor (engine's formula).
+  const fits = (q: number) => {
+    const curve = fanAsPumpCurve({ ...FAN, ratedFlow: q });
+    return pumpShaftPower(curve, q, curve.ratedHead) <= budget;
+  };
+  const ratedFlow = [...FAN_FLOWS].reverse().find(fits) ?? FAN_FLOWS[0];
+  return { id: 'fan', kind: 'fan', ...FAN, ratedFlow, flow: Number((0.8 * ratedFlow).toPrecision(3)), control: 'damper' };
+}
+
 /**
  * The default element of `kind` for a new element fed at `ctx.port`, or null when the kind cannot
  * take that port (or has no sensible default there). Ids are bases: the editor makes them unique.
@@ -323,6 +338,9 @@ export function templateFor(kind: ElementKind, ctx: TemplateContext): DraftEleme
       break;
     case 'pump':
       if (port.kind === 'shaft') t = pumpTemplate(feeder);
+      break;
+    case 'fan':
+      if (port.kind === 'shaft') t = fanTemplate(feeder);
       break;
     default:
       t = null;

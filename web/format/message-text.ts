@@ -14,6 +14,7 @@ const FORM_QUANTITY: Partial<Record<MessageUnit, Quantity>> = {
   m: 'length',
   '°C': 'temperature',
   'kg/m³': 'density',
+  Pa: 'pressure',
   'Ω/km': 'resistance-per-length',
 };
 
@@ -22,7 +23,8 @@ const PREFIXED: ReadonlySet<MessageUnit> = new Set(['V', 'A', 'W', 'VA', 'var', 
 
 /** One value of a message in the user's units and number format, 3 significant digits. */
 export function messageValueText(v: MessageValue, units: UnitSystem, locale?: string): string {
-  const q = FORM_QUANTITY[v.unit];
+  // A fan's flow in the fan form's unit (m³/h or cfm), not a pump's (m³/h or gpm).
+  const q = v.air && v.unit === 'm³/s' ? 'air-flow' : FORM_QUANTITY[v.unit];
   if (q) {
     const unit = inputUnit(q, units);
     return `${formatSignificant(unit.fromSi(v.si), 3, locale)}${unit.symbol ? `${UNIT_GAP}${unit.symbol}` : ''}`;

@@ -140,6 +140,8 @@ export type Quantity =
   | 'ratio'
   | 'per-watt'
   | 'flow'
+  | 'air-flow'
+  | 'pressure'
   | 'density'
   | 'speed'
   | 'capacity'
@@ -175,6 +177,10 @@ const scaled = (symbol: string, name: string, factor: number): InputUnit => ({
 const SECONDS_PER_HOUR = 3600;
 /** 1 US gpm in m³/s: 3.785411784 L/min ÷ 1000 L/m³ ÷ 60 s/min (NIST SP 811 B.8, "gallon [U.S.]"). */
 export const CUBIC_METRES_PER_SECOND_PER_GPM = LITRES_PER_US_GALLON / 1000 / 60;
+/** 1 cfm in m³/s: 0.3048³ m³ ÷ 60 s (NIST SP 811, 2008 ed., Appendix B.8, "foot"; exact). */
+export const CUBIC_METRES_PER_SECOND_PER_CFM = METRES_PER_FOOT ** 3 / 60;
+/** 1 inch of water (60 °F) in Pa: NIST SP 811, 2008 ed., Appendix B.8, 2.4884E+02 Pa (from memory); fan pressures in US practice ("in. w.g."). */
+export const PASCALS_PER_INCH_OF_WATER = 248.84;
 /** 1 lb/ft³ in kg/m³: 0.45359237 kg ÷ 0.3048³ m³ (NIST SP 811 B.8, "pound", "foot"). */
 export const KG_PER_M3_PER_LB_PER_FT3 = KILOGRAMS_PER_POUND / METRES_PER_FOOT ** 3;
 
@@ -226,6 +232,10 @@ const UNITS: Readonly<Record<Quantity, { si: InputUnit; us: InputUnit }>> = {
     si: divided('m³/h', 'cubic metres per hour', SECONDS_PER_HOUR),
     us: scaled('gpm', 'US gallons per minute', CUBIC_METRES_PER_SECOND_PER_GPM),
   },
+  // Air flow of fans: m³/h, or cubic feet per minute in US practice.
+  'air-flow': { si: divided('m³/h', 'cubic metres per hour', SECONDS_PER_HOUR), us: scaled('cfm', 'cubic feet per minute', CUBIC_METRES_PER_SECOND_PER_CFM) },
+  // Fan pressure: Pa, or inches of water gauge in US practice.
+  pressure: { si: same('Pa', 'pascals'), us: scaled('in. w.g.', 'inches of water', PASCALS_PER_INCH_OF_WATER) },
   density: { si: same('kg/m³', 'kilograms per cubic metre'), us: scaled('lb/ft³', 'pounds per cubic foot', KG_PER_M3_PER_LB_PER_FT3) },
   speed: { si: same('rpm', 'revolutions per minute'), us: same('rpm', 'revolutions per minute') },
   capacity: { si: same('Ah', 'ampere-hours'), us: same('Ah', 'ampere-hours') },

@@ -1,6 +1,8 @@
 /**
- * The pump duty study of a project's own pump: `pumpDuty: { pump, duty }` names a `pump`
- * element; the study (comparePumpControl, core/physics/pump-fan.ts) takes
+ * The pump duty study of a project's own pump or fan: `pumpDuty: { pump, duty }` names a `pump`
+ * or a `fan` element (a fan enters as the pump model with no static head, core/physics/fan.ts
+ * `fanAsPumpCurve`; its fixed-speed method is the outlet damper); the study (comparePumpControl,
+ * core/physics/pump-fan.ts) takes
  * - the pump curve, efficiency, density and static head from that element (its own `flow` and
  *   `control` are the chain's present operating point and play no part: the duty replaces them);
  * - the motor feeding it: its rating and efficiency class or nameplate; a motor given by an
@@ -20,7 +22,8 @@ import type { Problem } from '../../model/errors.ts';
 import { PROJECT_LEVEL } from '../../model/errors.ts';
 import { q, say, valueText, type Worded } from '../../model/message.ts';
 import { kindLabel } from '../../model/field-labels.ts';
-import type { DriveStage, DriveStandardLoss, Element, MotorStage, Project, PumpLoad } from '../../model/project.ts';
+import type { DriveStage, DriveStandardLoss, Element, FanLoad, MotorStage, Project, PumpLoad } from '../../model/project.ts';
+import { fanAsPumpCurve, fanOperatingPoint, type FanOperatingPoint } from '../../physics/fan.ts';
 import type { Solved } from '../../solve/index.ts';
 import { motorPowerFactorAt } from '../../kinds/motor.ts';
 import { pumpOperatingPoint, type PumpOperatingPoint } from '../../kinds/pump.ts';
@@ -103,6 +106,29 @@ export function pumpDetails(project: Project): PumpDetail[] {
   return out;
 }
 
+export interface FanDetail {
+  id: string;
+  name: string;
+  operatingPoint: FanOperatingPoint;
+  motorId: string;
+  /** The drive upstream of the motor, if any. */
+  driveId?: string;
+  warnings: string[];
+}
+
+/** Operating point and tree checks (speed control with no drive, a damper behind a drive) of every fan of a VALIDATED project. */
+export function fanDetails(project: Project): FanDetail[] {
+  const elements = byId(project);
+  const out: FanDetail[] = [];
+  for (const e of project.elements) {
+    if (e.kind !== 'fan') continue;
+    const motor = elements.get(e.from) as MotorStage;
+    const drive = driveAbove(elements, motor.from);
+    out.push({ id: e.id, name: e.name ?? e.id, operatingPoint: fanOperatingPoint(e), motorId: motor.id, ...(drive ? { driveId: drive.id } : {}), warnings: fanTreeWarnings(elements, e, motor) });
+  }
+  return out;
+}
+
 export type PumpDutyOutcome = { ok: true; result: PumpControlResult; input: PumpDutyInput } | { ok: false; problems: Problem[] };
 
 const STUDY = 'pumpDuty';
@@ -126,12 +152,14 @@ export function projectPumpDuty(solved: Solved): PumpDutyOutcome {
   if (study === undefined) return { ok: false, problems: [{ code: 'invalid-value', elementId: PROJECT_LEVEL, field: STUDY, message: 'is required for a pump duty study ({ pump, duty })' }] };
   const elements = byId(project);
   const pump = elements.get(study.pump);
-  if (!pump) return { ok: false, problems: [studyProblem('pump', study.pump, `names no element of the project (give the id of a pump element)`)] };
-  if (pump.kind !== 'pump') return { ok: false, problems: [studyProblem('pump', study.pump, `names ${JSON.stringify(pump.name ?? pump.id)}, a ${kindLabel(pump.kind).toLowerCase()}, not a pump`)] };
+  if (!pump) return { ok: false, problems: [studyProblem('pump', study.pump, `names no element of the project (give the id of a pump or fan element)`)] };
+  if (pump.kind !== 'pump' && pump.kind !== 'fan') return { ok: false, problems: [studyProblem('pump', study.pump, `names ${JSON.stringify(pump.name ?? pump.id)}, a ${kindLabel(pump.kind).toLowerCase()}, not a pump or fan`)] };
+  const fan = pump.kind === 'fan';
+  const machineWord = fan ? 'fan' : 'pump';
   const problems: Problem[] = [];
   let total = 0;
   study.duty.forEach((d, i) => {
-    if (d.flow > pump.ratedFlow * (1 + 1e-9)) problems.push(studyProblem(`duty[${i}].flow`, d.flow, say`is above the rated flow ${q(pump.ratedFlow, 'm³/s')} of the pump "${pump.name ?? pump.id}", which the system reaches at full speed`));
+    if (d.flow > pump.ratedFlow * (1 + 1e-9)) problems.push(studyProblem(`duty[${i}].flow`, d.flow, say`is above the rated flow ${fan ? { ...q(pump.ratedFlow, 'm³/s'), air: true as const } : q(pump.ratedFlow, 'm³/s')} of the ${machineWord} "${pump.name ?? pump.id}", which the system reaches at full speed`));
     total += d.hours;
   });
   if (total > HOURS_PER_YEAR * (1 + 1e-12)) problems.push(studyProblem('duty', total, say`the hours add up to ${q(total, 'h')}, more than the ${q(HOURS_PER_YEAR, 'h')} of a year`));
@@ -154,16 +182,20 @@ export function projectPumpDuty(solved: Solved): PumpDutyOutcome {
   }
   const pumpDutyInput: PumpDutyInput = {
     id: STUDY,
-    pump: { ratedFlow: pump.ratedFlow, ratedHead: pump.ratedHead, shutoffHead: pump.shutoffHead, efficiency: pump.efficiency, ...(pump.density !== undefined ? { density: pump.density } : {}) },
-    staticHead: pump.staticHead,
+    ...(fan ? { machine: 'fan' as const } : {}),
+    pump: fan
+      ? fanAsPumpCurve(pump)
+      : { ratedFlow: pump.ratedFlow, ratedHead: pump.ratedHead, shutoffHead: pump.shutoffHead, efficiency: pump.efficiency, ...(pump.density !== undefined ? { density: pump.density } : {}) },
+    // A fan's duct system has no static head (core/physics/fan.ts).
+    staticHead: fan ? 0 : pump.staticHead,
     duty: study.duty.map((d) => ({ flow: d.flow, hours: d.hours })),
     motor: m,
     drive: driveLoss,
   };
   const r = comparePumpControl(pumpDutyInput);
   if (!r.ok) return { ok: false, problems: r.problems.map((p) => renameProblem(p, pump, motor, drive)) };
-  const tree = pumpDetails(project).find((d) => d.id === pump.id)!;
-  r.result.warnings.unshift(...warnings, ...tree.warnings.map((w) => `pump "${pump.id}": ${w}`));
+  const tree = fan ? fanTreeWarnings(elements, pump, motor) : pumpDetails(project).find((d) => d.id === pump.id)!.warnings;
+  r.result.warnings.unshift(...warnings, ...tree.map((w) => `${machineWord} "${pump.name ?? pump.id}": ${w}`));
   return { ok: true, result: r.result, input: pumpDutyInput };
 }
 
@@ -188,10 +220,32 @@ function studyMotor(motor: MotorStage, warnings: string[]): PumpDutyInput['motor
   return { ...common, nameplate: { efficiency, powerFactor } };
 }
 
-/** Problems of the study input renamed to the chain's elements (pump.*, staticHead → pump; motor.* → motor; drive.* → drive). */
-function renameProblem(p: Problem, pump: PumpLoad, motor: MotorStage, drive: DriveStage | undefined): Problem {
+/** A fan's tree checks: speed control with no drive above its motor, a damper behind a drive. */
+function fanTreeWarnings(elements: Map<string, Element>, fan: FanLoad, motor: MotorStage): string[] {
+  const drive = driveAbove(elements, motor.from);
+  const motorName = `"${motor.name ?? motor.id}"`;
+  // The air flow control's choices as the form words them (web/editor/fields/loads.ts).
+  if (fan.control === 'speed' && !drive) return [`flow control "Speed (a drive upstream)" needs a drive, but none feeds the motor ${motorName}; on a fixed-frequency supply the fan runs at full speed (choose "Outlet damper at full speed")`];
+  if (fan.control === 'damper' && drive) return [`flow control "Outlet damper at full speed" runs at full speed, but the drive "${drive.name ?? drive.id}" feeds the motor ${motorName}; with a drive, speed control saves the damper's loss`];
+  if (fan.control === 'speed' && drive) {
+    // The drive's speed (output frequency / motor rated frequency) against the speed the affinity laws need (n = Q/Q_r).
+    const rated = drive.motorRatedFrequency ?? motor.ratedFrequency ?? supplyFrequency(elements, drive.from);
+    const needed = fanOperatingPoint(fan).speed;
+    if (rated !== undefined && Math.abs(drive.outputFrequency / rated - needed) > SPEED_TOLERANCE) {
+      const pct = (x: number) => `${(100 * x).toFixed(1)} %`;
+      return [`needs ${pct(needed)} speed for ${valueText(q(fan.flow, 'm³/s'))}, but the drive "${drive.name ?? drive.id}" runs the motor ${motorName} at ${pct(drive.outputFrequency / rated)} (output frequency / motor rated frequency); the shaft power is computed at the needed speed`];
+    }
+  }
+  return [];
+}
+
+/** The fan's own field for a field of its pump-model curve. */
+const FAN_FIELDS: Readonly<Record<string, string>> = { ratedFlow: 'ratedFlow', ratedHead: 'ratedPressure', shutoffHead: 'shutoffPressure', efficiency: 'efficiency', density: 'density' };
+
+/** Problems of the study input renamed to the chain's elements (pump.*, staticHead → pump or fan; motor.* → motor; drive.* → drive). */
+function renameProblem(p: Problem, pump: PumpLoad | FanLoad, motor: MotorStage, drive: DriveStage | undefined): Problem {
   const f = p.field;
-  if (f.startsWith('pump.')) return { ...p, elementId: pump.id, field: f.slice(5) };
+  if (f.startsWith('pump.')) return { ...p, elementId: pump.id, field: pump.kind === 'fan' ? FAN_FIELDS[f.slice(5)] ?? f.slice(5) : f.slice(5) };
   if (f === 'staticHead') return { ...p, elementId: pump.id };
   if (f === 'motor' || f.startsWith('motor.')) return { ...p, elementId: motor.id, field: f === 'motor' ? '' : f.slice(6) };
   if (f.startsWith('drive.') && drive) return { ...p, elementId: drive.id, field: `standardLoss.${f.slice(6)}` };

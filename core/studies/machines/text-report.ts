@@ -7,7 +7,7 @@ const kwh = (wh: number) => `${(wh / 1000).toFixed(0)} kWh`;
 const kw = (w: number) => `${(w / 1000).toFixed(2)} kW`;
 
 export const MACHINE_CAUTION =
-  'Motor, drive and pump figures are planning estimates from published tables and common-practice curves; the maker\'s data, local codes and licensed practice govern.';
+  'Motor, drive, pump and fan figures are planning estimates from published tables and common-practice curves; the maker\'s data, local codes and licensed practice govern.';
 
 export function formatMachines(m: MachineDetails): string {
   const out: string[] = ['Motors'];
@@ -36,19 +36,23 @@ export function formatMachines(m: MachineDetails): string {
 }
 
 export function formatPumpDuty(r: PumpControlResult): string {
-  const out: string[] = ['Flow control comparison (energy per year)'];
-  out.push(`  design point: ${(r.designPoint.flow * 3600).toFixed(1)} m³/h at ${r.designPoint.head.toFixed(1)} m, shaft ${kw(r.designPoint.shaftPower)} (${pct(r.designPoint.motorLoadFraction)} of motor rating), input ${kw(r.designPoint.inputPower)}`);
-  out.push('  flow m³/h   hours   drive: speed  input      throttle: input   on-off: run');
+  // A fan's fixed-speed method is the outlet damper and its heads are given as pressures (core/physics/fan.ts).
+  const fan = r.machine === 'fan';
+  const fixed = fan ? 'outlet dampers' : 'throttling';
+  const out: string[] = [fan ? 'Fan duty: flow control comparison (energy per year)' : 'Flow control comparison (energy per year)'];
+  const at = fan ? `${(r.designPoint.pressure ?? Number.NaN).toFixed(0)} Pa` : `${r.designPoint.head.toFixed(1)} m`;
+  out.push(`  design point: ${(r.designPoint.flow * 3600).toFixed(1)} m³/h at ${at}, shaft ${kw(r.designPoint.shaftPower)} (${pct(r.designPoint.motorLoadFraction)} of motor rating), input ${kw(r.designPoint.inputPower)}`);
+  out.push(fan ? '  flow m³/h   hours   drive: speed  input        damper: input   on-off: run' : '  flow m³/h   hours   drive: speed  input      throttle: input   on-off: run');
   for (const p of r.points) {
     out.push(
       `  ${(p.flow * 3600).toFixed(1).padStart(9)} ${p.hours.toFixed(0).padStart(7)}   ${pct(p.speedControl.speed).padStart(11)}  ${kw(p.speedControl.inputPower).padStart(9)}  ${kw(p.throttle.inputPower).padStart(16)}  ${pct(p.onOffRunFraction).padStart(11)}`,
     );
   }
   out.push(`  speed control by drive: ${kwh(r.speedControl.energyWh)} (motor losses ${kwh(r.speedControl.motorLossWh)}, drive losses ${kwh(r.speedControl.driveLossWh)})`);
-  out.push(`  throttling:             ${kwh(r.throttle.energyWh)} (motor losses ${kwh(r.throttle.motorLossWh)})`);
+  out.push(`  ${`${fixed}:`.padEnd(23)} ${kwh(r.throttle.energyWh)} (motor losses ${kwh(r.throttle.motorLossWh)})`);
   out.push(`  on-off:                 ${kwh(r.onOff.energyWh)} (motor losses ${kwh(r.onOff.motorLossWh)})`);
-  out.push(`  drive saves ${kwh(r.savingVsThrottleWh)} (${pct(r.savingVsThrottleFraction)}) against throttling and ${kwh(r.savingVsOnOffWh)} (${pct(r.savingVsOnOffFraction)}) against on-off`);
-  out.push(`  shaft energy with the static head: ${kwh(r.speedControlShaftEnergyWh)}; the bare cube law would claim ${kwh(r.cubeLawShaftEnergyWh)}`);
+  out.push(`  drive saves ${kwh(r.savingVsThrottleWh)} (${pct(r.savingVsThrottleFraction)}) against ${fixed} and ${kwh(r.savingVsOnOffWh)} (${pct(r.savingVsOnOffFraction)}) against on-off`);
+  if (!fan) out.push(`  shaft energy with the static head: ${kwh(r.speedControlShaftEnergyWh)}; the bare cube law would claim ${kwh(r.cubeLawShaftEnergyWh)}`);
   out.push(`  motor: ${r.motorSource}; drive: ${r.driveSource}`);
   out.push(`  method: ${r.method}`);
   for (const w of r.warnings) out.push(`  warning: ${w}`);

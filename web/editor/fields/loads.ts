@@ -1,5 +1,5 @@
 /**
- * The forms of the loads: power, apparent power, current, shaft, circuit network and pump.
+ * The forms of the loads: power, apparent power, current, shaft, circuit network, pump and fan.
  * Part of the form descriptors; web/editor/fields.ts is their entry (today's exports, callers import it).
  */
 import { name, percentOf, pfSense, powerFactor } from './common.ts';
@@ -94,6 +94,38 @@ export const pumpForm: KindForm = {
       options: [
         { value: 'speed', label: 'Speed (a drive upstream)' },
         { value: 'throttle', label: 'Throttle valve at full speed' },
+      ],
+    },
+  ],
+};
+
+export const fanForm: KindForm = {
+  kind: 'fan',
+  fields: [
+    name,
+    { type: 'number', path: 'ratedFlow', label: 'Rated air flow', quantity: 'air-flow', required: true, default: 2, help: 'At the design point, full speed.' },
+    { type: 'number', path: 'ratedPressure', label: 'Rated fan pressure', quantity: 'pressure', required: true, default: 1000, help: 'From the maker\'s curve at standard air, 1.2 kg/m³.' },
+    { type: 'number', path: 'shutoffPressure', label: 'Shut-off pressure (zero flow)', quantity: 'pressure', required: true, default: 1300 },
+    { type: 'number', path: 'efficiency', label: percentOf('Fan efficiency'), quantity: 'fraction-percent', required: true, default: 0.7 },
+    {
+      type: 'number',
+      path: 'density',
+      label: 'Air density at the fan',
+      quantity: 'density',
+      required: false,
+      placeholder: () => 1.2,
+      help: 'Empty: standard air, 1.2 kg/m³ (typical value). Pressure and power follow the density.',
+    },
+    { type: 'number', path: 'flow', label: 'Operating air flow', quantity: 'air-flow', required: true, default: 1.6, help: 'Up to the rated air flow. The duct system has no static pressure: its pressure rises with the square of the flow.' },
+    {
+      type: 'choice',
+      path: 'control',
+      label: 'Air flow control',
+      required: true,
+      default: 'damper',
+      options: [
+        { value: 'speed', label: 'Speed (a drive upstream)' },
+        { value: 'damper', label: 'Outlet damper at full speed' },
       ],
     },
   ],

@@ -7,7 +7,7 @@ import { type ElementKind, KINDS } from '../../../core/page.ts';
 import { cableForm } from './cable.ts';
 import { valueAt } from './common.ts';
 import { dcBusForm, dcDcForm, genericForm, inverterForm, rectifierForm, transformerForm } from './converters.ts';
-import { acCurrentLoadForm, acLoadForm, acVaLoadForm, dcCurrentLoadForm, dcLoadForm, networkLoadForm, pumpForm, shaftLoadForm } from './loads.ts';
+import { acCurrentLoadForm, acLoadForm, acVaLoadForm, dcCurrentLoadForm, dcLoadForm, fanForm, networkLoadForm, pumpForm, shaftLoadForm } from './loads.ts';
 import { driveForm, motorForm } from './machines.ts';
 import { acSource, batteryForm } from './sources.ts';
 import type { FieldSpec, FormElement, KindForm } from './types.ts';
@@ -33,6 +33,7 @@ export const KIND_FORMS: Readonly<Record<ElementKind, KindForm>> = {
   'shaft-load': shaftLoadForm,
   'network-load': networkLoadForm,
   pump: pumpForm,
+  fan: fanForm,
 };
 
 /** The form of a kind, or undefined for a kind the engine does not know. */
