@@ -91,8 +91,8 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
     }
   });
 
-  it('axe finds no serious or critical violation with every study panel and the project settings open, light and dark (phone)', async () => {
-    const { context, page, errors } = await openPage(VIEWPORTS.phone);
+  it.each(Object.entries(VIEWPORTS))('axe finds no serious or critical violation with every study panel, every editor in it and the project settings open, light and dark (%s)', async (label, viewport) => {
+    const { context, page, errors } = await openPage(viewport);
     try {
       const failures: string[] = [];
       for (const theme of ['light', 'dark'] as const) {
@@ -111,9 +111,17 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
           // Each panel's content has loaded (its module is lazy) before axe looks.
           await expect.poll(() => page.locator('details.panel[open] > :not(summary)').count(), { timeout: 20_000 }).toBeGreaterThanOrEqual(count);
           await expect.poll(() => page.getByText('Opening…').count(), { timeout: 20_000 }).toBe(0);
+          // Every editor inside the panels too (the load profile editor, the duty curve fit, the sizing
+          // steps: disclosures of their own), so axe sees each editor's controls open.
+          const nested = page.locator('details.panel[open] details:not([open]) > summary');
+          for (let guard = 0; guard < 20 && (await nested.count()) > 0; guard++) await nested.first().click();
+          expect(await page.locator('details.panel[open] details:not([open])').count()).toBe(0);
+          // The editors axe must see: the hillside hut's load profile, the pump station's duty.
+          if (id === 'hillside-relay-hut') await page.getByTestId('profile-editor').waitFor();
+          if (id === 'riverside-pump-station') await page.getByTestId('duty-editor').waitFor();
           const found = await seriousAxeViolations(page);
           if (found.length > 0) failures.push(`${theme} theme, ${id}, panels open:\n${describeViolations(found)}`);
-          if (theme === 'dark' && id === 'hillside-relay-hut') await fullPageScreenshot(page, join(artifacts, 'panels-open-dark-phone.png'));
+          if (theme === 'dark' && id === 'hillside-relay-hut') await fullPageScreenshot(page, join(artifacts, `panels-open-dark-${label}.png`));
         }
       }
       expect(failures.join('\n\n')).toBe('');
