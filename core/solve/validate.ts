@@ -14,6 +14,7 @@ import { issueMessage, unknownKindMessage } from './issue-messages.ts';
 import { backupSchema, reservedKeyProblems } from './load-profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { pumpDutySchema } from '../kinds/pump.ts';
+import { standbySchema } from './standby-schema.ts';
 import { countSolveStep } from './count.ts';
 import { wordedFromParams } from '../model/message.ts';
 
@@ -47,6 +48,7 @@ export const projectShape = z.strictObject({
   backup: z.optional(backupSchema),
   dropLimits: z.optional(dropLimitsSchema),
   pumpDuty: z.optional(pumpDutySchema),
+  standby: z.optional(standbySchema),
 });
 
 /**
