@@ -14,6 +14,10 @@ import { correctPowerFactor, type PfCorrection } from '../studies/pf/correction.
 import { formatPfCorrection, pfCorrectionJson } from '../studies/pf/text-report.ts';
 import { hasPumpSections, machineSections } from './machines-flags.ts';
 import { formatSurgeStudy, hasSurgeInputs, studySurges, type SurgeStudyResult } from '../studies/surge/index.ts';
+import { runModesStudy, type ModesStudyResult } from '../studies/modes/study.ts';
+import { formatModesStudy } from '../studies/modes/text-report.ts';
+import { solveModes } from '../solve/modes.ts';
+import type { SolveResult } from '../model/result.ts';
 import type { CliRequest } from './args.ts';
 import type { ProjectLine } from './summary.ts';
 
@@ -79,6 +83,17 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
     const bad = nonFinite('the surge and fault study cannot be shown:', 'The surge and fault study', surges);
     if (bad) return bad;
   }
+  // A bank on a bus: both modes (core/solve/modes.ts) and the modes study.
+  const modes = solveModes(outcome);
+  let modesStudy: ModesStudyResult | undefined;
+  if (modes) {
+    const m = runModesStudy(outcome, modes);
+    if (m && !m.ok) return refused(file, 'the two modes cannot be worked out:', m.problems, projectName, data);
+    if (m) modesStudy = m.study;
+    const bad = nonFinite('the two modes cannot be shown:', 'The two modes', { study: modesStudy, battery: modes.battery.ok ? modes.battery.result : undefined });
+    if (bad) return bad;
+  }
+  const batteryResult: SolveResult | undefined = modes?.battery.ok ? modes.battery.result : undefined;
   const run = study?.discharge;
   const line: ProjectLine = {
     file,
@@ -88,10 +103,12 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   };
   let text = '';
   if (req.output === 'json') {
-    const extra = { ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}) };
-    text = `${JSON.stringify({ ...outcome.result, ...extra }, null, 2)}\n`;
+    const top = req.mode === 'battery' && batteryResult ? batteryResult : outcome.result;
+    const modesJson = modes ? { mode: top === batteryResult ? 'battery' : 'supply', modes: { supply: outcome.result, battery: modes.battery.ok ? modes.battery.result : { problems: modes.battery.problems }, study: modesStudy } } : {};
+    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}) };
+    text = `${JSON.stringify({ ...top, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${formatResult(outcome.result)}\n${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}`;
+    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}`;
   }
   return { ok: true, text, line };
 }
@@ -101,3 +118,11 @@ function hasBackupStudy({ project }: Solved): boolean {
   return project.backup !== undefined && project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined);
 }
 
+
+/** The element tables of a project with a bank on a bus: both modes by default, or the one asked for. */
+function modeTables(supply: SolveResult, battery: SolveResult | undefined, batteryRefusal: string | undefined, mode: 'supply' | 'battery' | undefined): string {
+  const parts: string[] = [];
+  if (mode !== 'battery') parts.push(`Mode: on supply (the bank on float)\n${formatResult(supply)}`);
+  if (mode !== 'supply') parts.push(battery ? `Mode: on battery (the supply cut, the bank carries its bus)\n${formatResult(battery)}` : `Mode: on battery: cannot be solved: ${batteryRefusal ?? 'no solution'}`);
+  return parts.join('\n\n');
+}

@@ -30,7 +30,7 @@ import { STANDBY_CHARGE } from '../../data/standby-charge.ts';
 import { isPassive } from '../../kinds/index.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveVariant } from '../../solve/variant.ts';
-import { onBatteryChange, rechargeChange, solveModes, type BankPlace } from '../../solve/modes.ts';
+import { onBatteryChange, rechargeChange, solveModes, type BankPlace, type Modes } from '../../solve/modes.ts';
 import { HOURS_IN_YEAR } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
 
@@ -51,7 +51,6 @@ export interface ModeFigures {
   /** |source − loads − losses| ÷ source (the solve's balance error). */
   balanceError: number;
   efficiency: number;
-  result: SolveResult;
 }
 
 export interface ChargerSizing {
@@ -141,7 +140,7 @@ export type ModesStudyOutcome = { ok: true; study: ModesStudyResult } | { ok: fa
 
 const figuresOf = (mode: ModeName, r: SolveResult): ModeFigures => {
   const src = r.elements[0]!;
-  return { mode, sourceId: src.id, sourceName: src.name, sourcePower: r.totals.sourcePower, loadPower: r.totals.loadPower, losses: r.totals.losses, balanceError: r.totals.balanceError, efficiency: r.totals.efficiency, result: r };
+  return { mode, sourceId: src.id, sourceName: src.name, sourcePower: r.totals.sourcePower, loadPower: r.totals.loadPower, losses: r.totals.losses, balanceError: r.totals.balanceError, efficiency: r.totals.efficiency };
 };
 
 const byId = (r: SolveResult): Map<string, ElementResult> => new Map(r.elements.map((e) => [e.id, e]));
@@ -153,8 +152,7 @@ const hoursOnSupply = (outage: number): number => Math.max(0, HOURS_IN_YEAR - ou
  * The modes study of a solved project: null when the project has no bank on a bus. Never validates or
  * solves the base case again; the on-battery, recharge and transfer chains are variants.
  */
-export function runModesStudy(solved: Solved): ModesStudyOutcome {
-  const modes = solveModes(solved);
+export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(solved)): ModesStudyOutcome {
   if (!modes) return null;
   const { place } = modes;
   const project = solved.project;
