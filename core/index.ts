@@ -43,6 +43,9 @@ export { resolveBank, checkBank, ocvAt, bankOcv, capacityFactorAt, type Bank } f
 export { simulateDischarge, dischargeVariant, type DischargeResult, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './studies/backup/discharge.ts';
 export { runBackupStudy, terminalPowerPeriods, type BackupStudyResult, type BackupStudyOutcome } from './studies/backup/study.ts';
 export { formatBackupStudy } from './studies/backup/text-report.ts';
+export { solveModes, bankOnBus, onBatteryChange, rechargeChange, outageSolve, type Modes, type BankPlace } from './solve/modes.ts';
+export { runModesStudy, type ModesStudyResult, type ModesStudyOutcome, type ModeFigures, type RectifierSizing, type StandingLosses, type Transfer } from './studies/modes/study.ts';
+export { formatModesStudy } from './studies/modes/text-report.ts';
 export { bankCautions, rechargeCautions } from './studies/backup/cautions.ts';
 export { parseSiValue, formatSi, type ElementUnit, type ParsedValue } from './physics/si-prefix.ts';
 export {

@@ -53,7 +53,7 @@ export interface ModeFigures {
   efficiency: number;
 }
 
-export interface ChargerSizing {
+export interface RectifierSizing {
   method: string;
   /** The converter that feeds the bus (the rectifier or charger). */
   chargerId: string | null;
@@ -127,7 +127,7 @@ export interface ModesStudyResult {
   supply: ModeFigures;
   /** On battery, or why the bank cannot carry the bus. */
   battery: ModeFigures | { ok: false; problems: Problem[] };
-  charger: ChargerSizing;
+  charger: RectifierSizing;
   standing: StandingLosses;
   transfer: Transfer | null;
   /** Cables whose size differs between the modes (each mode sizes for its own current; the larger governs). */
@@ -178,7 +178,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   const required = loadCurrent + rechargeCurrent;
   const charger = feederConverter(project.elements, place.busId);
   const redundancy = settings.redundancy ?? 'n+1';
-  let modules: ChargerSizing['modules'];
+  let modules: RectifierSizing['modules'];
   if (settings.moduleCurrent !== undefined && settings.moduleCurrent > 0) {
     const needed = Math.max(1, Math.ceil(required / settings.moduleCurrent - 1e-9));
     const installed = needed + (redundancy === 'n+1' ? 1 : 0);
@@ -188,7 +188,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     warnings.push(say`the rated output current ${q(charger.ratedOutputCurrent, 'A')} of "${charger.name ?? charger.id}" is below the ${q(required, 'A')} it must give to carry the bus and recharge the bank in ${q(H, 'h')}`);
   }
   const recharge = solveVariant(solved, rechargeChange(project, place, rechargeCurrent));
-  let rechargeCase: ChargerSizing['rechargeCase'];
+  let rechargeCase: RectifierSizing['rechargeCase'];
   if (recharge.ok) {
     const rr = byId(recharge.result);
     const root = recharge.result.elements[0]!;
@@ -203,7 +203,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   } else {
     rechargeCase = { ok: false, problems: recharge.problems };
   }
-  const chargerSizing: ChargerSizing = {
+  const chargerSizing: RectifierSizing = {
     method: 'IEEE Std 946 charger sizing: A = L + k·C/H (continuous load plus the recharge current)',
     chargerId: charger?.id ?? null,
     chargerName: charger ? (charger.name ?? charger.id) : null,
