@@ -11,6 +11,7 @@ import { solveModes } from '../../core/solve/modes.ts';
 import { runModesStudy } from '../../core/studies/modes/study.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
 import { formatBackupStudy } from '../../core/studies/backup/text-report.ts';
+import { demoProjects } from '../../core/demos/index.ts';
 
 const bankSpec = { chemistry: 'vrla-agm', series: 16, cellsPerBlock: 6, capacityAh: 100, floatCurrent: 0.1 };
 const backup = { profile: { kind: 'constant' }, timeStepSeconds: 60, horizonHours: 24, temperatureC: 25 };
@@ -98,5 +99,27 @@ describe('an online UPS on battery: the outage', () => {
     const h = onBus.study.discharge.runtimeSeconds / 3600;
     expect(h).toBeLessThan(9.33);
     expect(h).toBeGreaterThan(6);
+  });
+});
+
+describe('the online UPS demo: the supply cable is sized for the recharge case', () => {
+  it('2.5 mm² carries the float case, the recharge case needs 4 mm²', () => {
+    const demo = demoProjects.find((d) => d.id === 'harbour-clinic-ups')!;
+    const out = runModesStudy(solvedOf(demo.project))!;
+    if (!out || !out.ok) throw new Error('no study');
+    const c = out.study.charger;
+    // L ≈ 16.8 A on the bus + k·C/H = 1.1 × 100 Ah ÷ 8 h = 13.75 A (IEEE Std 946, k from memory) → about 30.5 A.
+    expect(c.rechargeCurrent).toBeCloseTo(13.75, 9);
+    expect(c.requiredCurrent).toBeGreaterThan(30);
+    expect(c.requiredCurrent).toBeLessThan(31);
+    // 30.5 A ÷ 10 A modules → 4, with N+1 → 5 (hand calculation).
+    expect(c.modules).toMatchObject({ needed: 4, installed: 5 });
+    // IEC 60364-5-52:2009 Table B.52.4, method C, PVC, 2 loaded copper conductors: 2.5 mm² 27 A, 4 mm² 36 A;
+    // the recharge case's design current is over 27 A, so 4 mm² (and a 32 A breaker, IEC 60898-1 preferred
+    // ratings, I_B ≤ I_n ≤ I_z). On float the supply cable carries about 18 A: 2.5 mm² (20 A breaker).
+    expect(out.study.cableSizes).toEqual([{ id: 'supply-cable', name: 'Board to UPS', float: '2.5 mm²', recharge: '4 mm²', use: '4 mm²' }]);
+    if (!c.rechargeCase.ok) throw new Error('recharge case');
+    expect(c.rechargeCase.cables[0]!.designCurrent!).toBeGreaterThan(27);
+    expect(c.rechargeCase.cables[0]!.designCurrent!).toBeLessThanOrEqual(36);
   });
 });

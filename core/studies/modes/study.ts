@@ -130,8 +130,11 @@ export interface ModesStudyResult {
   charger: RectifierSizing;
   standing: StandingLosses;
   transfer: Transfer | null;
-  /** Cables whose size differs between the modes (each mode sizes for its own current; the larger governs). */
-  cableSizes: { id: string; name: string; supply?: string; battery?: string }[];
+  /**
+   * Cables whose size differs between the cases (each case sizes the cables it carries for its own
+   * current: on supply at float, on supply recharging, on battery); `use` is the largest (by area).
+   */
+  cableSizes: { id: string; name: string; float?: string; recharge?: string; battery?: string; use: string }[];
   warnings: Worded[];
   cautions: string[];
 }
@@ -188,6 +191,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     warnings.push(say`the rated output current ${q(charger.ratedOutputCurrent, 'A')} of "${charger.name ?? charger.id}" is below the ${q(required, 'A')} it must give to carry the bus and recharge the bank in ${q(H, 'h')}`);
   }
   const recharge = solveVariant(solved, rechargeChange(project, place, rechargeCurrent));
+  const rechargeResult = recharge.ok ? recharge.result : undefined;
   let rechargeCase: RectifierSizing['rechargeCase'];
   if (recharge.ok) {
     const rr = byId(recharge.result);
@@ -288,15 +292,23 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   }
   if (problems.length) return { ok: false, problems };
 
-  // ---- cables sized differently in the two modes ----
+  // ---- cables sized differently in the cases (float, recharge, on battery): the largest governs ----
   const cableSizes: ModesStudyResult['cableSizes'] = [];
-  if (modes.battery.ok) {
-    const br = byId(modes.battery.result);
-    for (const e of supply.elements) {
-      if (e.kind !== 'cable' || !e.conductor) continue;
-      const other = br.get(e.id)?.conductor;
-      if (other && other.size !== e.conductor.size) cableSizes.push({ id: e.id, name: e.name, supply: e.conductor.size, battery: other.size });
-    }
+  const cases = { recharge: rechargeResult ? byId(rechargeResult) : undefined, battery: modes.battery.ok ? byId(modes.battery.result) : undefined };
+  for (const e of supply.elements) {
+    if (e.kind !== 'cable' || !e.conductor) continue;
+    const sizes = [e.conductor, cases.recharge?.get(e.id)?.conductor, cases.battery?.get(e.id)?.conductor];
+    const known = sizes.filter((c) => c !== undefined);
+    if (known.every((c) => c.size === e.conductor!.size)) continue;
+    const largest = known.reduce((a, b) => (b.areaMm2 * b.parallelSets > a.areaMm2 * a.parallelSets ? b : a));
+    cableSizes.push({
+      id: e.id,
+      name: e.name,
+      float: e.conductor.size,
+      ...(sizes[1] ? { recharge: sizes[1].size } : {}),
+      ...(sizes[2] ? { battery: sizes[2].size } : {}),
+      use: largest.parallelSets > 1 ? `${largest.parallelSets} × ${largest.size}` : largest.size,
+    });
   }
   return {
     ok: true,

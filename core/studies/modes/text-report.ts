@@ -50,8 +50,8 @@ export function formatModesStudy(s: ModesStudyResult): string {
     out.push(`  Bus voltage: ${v(t.busVoltageOnSupply)} on supply, ${v(t.busVoltageAtTransfer)} at transfer${t.busVoltageSettled !== null ? `, ${v(t.busVoltageSettled)} settled on battery` : ''}`);
   }
   if (s.cableSizes.length) {
-    out.push('', 'Cables sized differently in the two modes (use the larger)');
-    for (const k of s.cableSizes) out.push(`  ${k.name}: ${k.supply ?? '—'} on supply, ${k.battery ?? '—'} on battery`);
+    out.push('', 'Cables sized differently in the cases (use the largest)');
+    for (const k of s.cableSizes) out.push(`  ${k.name}: ${k.float ?? '—'} on float, ${k.recharge ?? '—'} recharging, ${k.battery ?? '—'} on battery: use ${k.use}`);
   }
   for (const x of s.warnings) out.push(`  Warning: ${x.message}`);
   for (const x of s.cautions) out.push(`  Caution: ${x}`);
