@@ -114,7 +114,7 @@ describe('the online UPS demo: the supply cable is sized for the recharge case',
     expect(c.requiredCurrent).toBeLessThan(31);
     // 30.5 A ÷ 10 A modules → 4, with N+1 → 5 (hand calculation).
     expect(c.modules).toMatchObject({ needed: 4, installed: 5 });
-    // IEC 60364-5-52:2009 Table B.52.4, method C, PVC, 2 loaded copper conductors: 2.5 mm² 27 A, 4 mm² 36 A;
+    // IEC 60364-5-52:2009 Table B.52.2 (PVC, 2 loaded conductors), method C, copper: 2.5 mm² 27 A, 4 mm² 36 A;
     // the recharge case's design current is over 27 A, so 4 mm² (and a 32 A breaker, IEC 60898-1 preferred
     // ratings, I_B ≤ I_n ≤ I_z). On float the supply cable carries about 18 A: 2.5 mm² (20 A breaker).
     expect(out.study.cableSizes).toEqual([{ id: 'supply-cable', name: 'Board to UPS', float: '2.5 mm²', recharge: '4 mm²', use: '4 mm²' }]);
