@@ -150,6 +150,16 @@ describe('the modes study: charger sizing, standing losses, transfer', () => {
     expect(out.study.warnings.map((w) => w.message).join('\n')).toMatch(/above its maximum discharge current 20 A/);
   });
 
+  it('warns when a converter on the bus stops above the on-battery bus voltage', () => {
+    const p = plant();
+    // A DC-DC converter that needs 52 V at its input: 50.44 V settled on battery (above) is below it.
+    p.elements.push({ id: 'dcdc', name: 'Radio converter', kind: 'dc-dc', from: 'bus', outputVoltage: 12, minInputVoltage: 52, loss: { model: 'constant', efficiency: 0.9 } } as never);
+    p.elements.push({ id: 'radios', kind: 'dc-load', from: 'dcdc', power: 100 } as never);
+    const out = runModesStudy(solvedOf(p))!;
+    if (!out || !out.ok) throw new Error('no study');
+    expect(out.study.warnings.map((w) => w.message).join('\n')).toMatch(/on battery "Radio converter" is fed .* below the 52 V it stops at/);
+  });
+
   it('a project with the bank as its source has one mode', () => {
     const p = { format: 'joulepath-project', version: 2, name: 'x', elements: [{ id: 'b', kind: 'battery', voltage: 12 }, { id: 'l', kind: 'dc-load', from: 'b', power: 10 }] };
     expect(runModesStudy(solvedOf(p))).toBeNull();

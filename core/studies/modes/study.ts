@@ -287,6 +287,17 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   } else if (modes.battery.ok) {
     problems.push(...instant.problems);
   }
+  // Converters on the bus that stop below an input voltage (an inverter's low-voltage cut-off, a DC-DC
+  // converter's lowest input): the on-battery path cannot carry their loads below it.
+  const onBatteryResults = [instant.ok ? instant.result : undefined, modes.battery.ok ? modes.battery.result : undefined].filter((r) => r !== undefined);
+  for (const e of project.elements) {
+    const limit = e.kind === 'inverter' ? e.lowVoltageCutoff : e.kind === 'dc-dc' ? e.minInputVoltage : undefined;
+    if (limit === undefined) continue;
+    const lowest = Math.min(...onBatteryResults.map((r) => byId(r).get(e.id)?.input?.voltage ?? Infinity));
+    if (Number.isFinite(lowest) && lowest < limit) {
+      warnings.push(say`on battery "${e.name ?? e.id}" is fed ${q(lowest, 'V')}, below the ${q(limit, 'V')} it stops at: the on-battery path cannot carry its loads`);
+    }
+  }
   if (modes.battery.ok) {
     for (const w of modes.battery.result.warnings) warnings.push({ message: `on battery: ${w.message}`, ...(w.template ? { template: `on battery: ${w.template}`, values: w.values ?? [] } : {}) });
   }
