@@ -95,10 +95,10 @@ describe('an online UPS on battery: the outage', () => {
     expect(onBus.study.discharge.runtimeSeconds).toBe(alone.study.discharge.runtimeSeconds);
     // Hand estimate, Peukert at constant current (IEEE 485 / makers' notes): about 2010 W ÷ 200 V ≈ 10 A from a
     // 100 Ah C20 block, k = 1.1: t = 20 h × (100/(10 × 20))^1.1 = 9.33 h; the current rises as the voltage falls
-    // and the end voltage comes first, so the runtime is below it but of that order.
+    // and the end voltage comes first, so the runtime is below it, within 15 % of it (the study gives 9.04 h).
     const h = onBus.study.discharge.runtimeSeconds / 3600;
     expect(h).toBeLessThan(9.33);
-    expect(h).toBeGreaterThan(6);
+    expect(h).toBeGreaterThan(0.85 * 9.33);
   });
 });
 
