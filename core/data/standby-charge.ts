@@ -13,7 +13,8 @@
  *   0.03 ÷ 730 h ≈ 0.04 mA/Ah (common practice). Users see "typical value: use the maker's figure".
  * - Charge-return factor: IEEE Std 946 (DC auxiliary power systems for stationary applications),
  *   charger sizing A = L + k·C/H with k = 1.1 for lead-acid (from memory, corroborated by charger
- *   sizing guides that name a 10 % IEEE 946 margin); NiCd 1.4 (from memory, the value sizing guides
+ *   sizing guides that name a 10 % IEEE 946 margin, and by a published UPS charger-sizing guide whose
+ *   recharge factor is 1.1–1.15: 100 Ah × 1.15 ÷ 8 h + 16.7 A = 31 A, tests/modes/charger-reference.test.ts); NiCd 1.4 (from memory, the value sizing guides
  *   give for NiCd's lower charge efficiency); lithium 1.05 (common practice: coulombic efficiency
  *   near 99 %, a margin kept).
  */

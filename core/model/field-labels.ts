@@ -313,6 +313,7 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "pumpDuty.duty": "Duty points",
     "standby.targetRechargeHours": "Recharge time after an outage",
     "standby.rechargeAh": "Charge to put back",
+    "standby.chargeReturnFactor": "Charge-return factor",
     "standby.moduleCurrent": "Rectifier module current",
     "standby.redundancy": "Redundant modules",
     "standby.outageHoursPerYear": "Outage hours per year",

@@ -11,6 +11,8 @@ export interface StandbySettings {
   targetRechargeHours?: number;
   /** Charge to put back after an outage, Ah (default: the bank's rated capacity, all strings). */
   rechargeAh?: number;
+  /** Charge put back per charge taken out (IEEE 946's k; default the chemistry's, core/data/standby-charge.ts). */
+  chargeReturnFactor?: number;
   /** Rated output current of one rectifier or charger module, A (the modules are counted when given). */
   moduleCurrent?: number;
   /** Redundant modules beyond those the load needs (default 'n+1'). */

@@ -65,8 +65,9 @@ export interface RectifierSizing {
   rechargeAhFrom: 'given' | 'bank capacity';
   /** Target recharge time H, h. */
   rechargeHours: number;
-  /** Charge-return factor k and its note. */
+  /** Charge-return factor k (the user's, else the chemistry's typical value) and where it came from. */
   chargeReturnFactor: number;
+  chargeReturnFactorFrom: 'given' | 'typical';
   /** Recharge current k·C/H, A. */
   rechargeCurrent: number;
   /** Charger capacity A = L + k·C/H, A. */
@@ -174,7 +175,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   const floatCurrent = bankRes.input!.current;
   const loadCurrent = Math.max(0, busRes.input!.current - floatCurrent);
   const chemistry = STANDBY_CHARGE[spec.chemistry];
-  const k = chemistry.chargeReturnFactor;
+  const k = settings.chargeReturnFactor ?? chemistry.chargeReturnFactor;
   const rechargeAh = settings.rechargeAh ?? bank.capacityAh;
   const H = settings.targetRechargeHours ?? DEFAULT_RECHARGE_HOURS;
   const rechargeCurrent = (k * rechargeAh) / H;
@@ -216,6 +217,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     rechargeAhFrom: settings.rechargeAh !== undefined ? 'given' : 'bank capacity',
     rechargeHours: H,
     chargeReturnFactor: k,
+    chargeReturnFactorFrom: settings.chargeReturnFactor !== undefined ? 'given' : 'typical',
     rechargeCurrent,
     requiredCurrent: required,
     ...(modules ? { modules } : {}),

@@ -23,7 +23,7 @@ export function formatModesStudy(s: ModesStudyResult): string {
   const c = s.charger;
   out.push('', `Charger sizing (${c.method})`);
   out.push(`  Charger: ${c.chargerName ?? 'none found above the bus'}`);
-  out.push(`  L = ${a(c.loadCurrent)} continuous load on the bus; C = ${sigText(c.rechargeAh, 4)} Ah (${c.rechargeAhFrom}); H = ${sigText(c.rechargeHours, 3)} h; k = ${c.chargeReturnFactor}`);
+  out.push(`  L = ${a(c.loadCurrent)} continuous load on the bus; C = ${sigText(c.rechargeAh, 4)} Ah (${c.rechargeAhFrom}); H = ${sigText(c.rechargeHours, 3)} h; k = ${c.chargeReturnFactor}${c.chargeReturnFactorFrom === 'typical' ? ' (typical value: use the maker\u2019s figure)' : ''}`);
   out.push(`  Recharge current k·C/H = ${a(c.rechargeCurrent)}; charger capacity A = ${a(c.requiredCurrent)}`);
   if (c.modules) {
     const m = c.modules;
