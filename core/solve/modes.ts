@@ -19,7 +19,6 @@
 import type { BatterySource, Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import { KINDS } from '../kinds/index.ts';
-import type { ValidProject } from './validate.ts';
 import type { Solved, SolveOutcome } from './solved.ts';
 import { solveVariant, type VariantChange } from './variant.ts';
 
@@ -35,7 +34,8 @@ export interface BankPlace {
 
 /** The bank on a bus of a valid project and its path to the bus, or null when the project has none. */
 export function bankOnBus(project: Project): BankPlace | null {
-  const bank = project.elements.find((e): e is BatterySource => e.kind === 'battery' && e.from !== undefined);
+  // A source kind with the `fedRole` trait, fed: the bank on a bus (the battery kind).
+  const bank = project.elements.find((e): e is BatterySource => 'from' in e && e.from !== undefined && KINDS.get(e.kind)?.fedRole !== undefined);
   if (!bank) return null;
   const byId = new Map(project.elements.map((e) => [e.id, e]));
   const path: string[] = [];
@@ -48,9 +48,6 @@ export function bankOnBus(project: Project): BankPlace | null {
   }
   return null;
 }
-
-/** True when the kind is a source kind that may sit on a bus (the `fedRole` trait). */
-const mayHangOnBus = (kind: string): boolean => KINDS.get(kind as Element['kind'])?.fedRole !== undefined;
 
 /** Ids of the element and everything below it. */
 function branchOf(project: Project, rootId: string): Set<string> {
@@ -133,6 +130,3 @@ export function outageSolve(solved: Solved): { ok: true; solved: Solved; onBatte
   const battery = solveVariant(solved, onBatteryChange(solved.project, place));
   return battery.ok ? { ok: true, solved: battery, onBattery: true } : battery;
 }
-
-/** True when the project's elements hold a bank on a bus (a fed source kind). */
-export const hasBankOnBus = (project: ValidProject | Project): boolean => project.elements.some((e) => 'from' in e && e.from !== undefined && mayHangOnBus(e.kind));
