@@ -40,6 +40,7 @@ describe('--mode', () => {
     expect(both.stdout).toMatch(/Modules of 10 A: 4 needed, 5 with N\+1 \(50 A installed\)/);
     expect(both.stdout).toContain('Cost of standing by (on supply)');
     expect(both.stdout).toContain('Transfer (the supply cut)');
+    expect(both.stdout).toContain('The studies below run on supply (the file as drawn), except the battery backup study, which runs on battery.');
     expect(both.stdout).toContain('Mode: on battery (the supply cut, the bank on its bus carries the loads)');
     const battery = run(FILE, '--mode', 'battery');
     expect(battery.stdout).not.toContain('Mode: on supply');

@@ -65,6 +65,18 @@ describe('a bank on a bus: the file and its two modes', () => {
     if (!out2.ok) expect(out2.problems.map((p) => [p.elementId, p.field])).toContainEqual(['bank', 'bank']);
   });
 
+  it('refuses a second bank on a bus, naming it and the first', () => {
+    const p = plant();
+    p.elements.push({ id: 'bank2', name: 'Second bank', kind: 'battery', from: 'bus', bank: { chemistry: 'vrla-agm', series: 24, capacityAh: 100 } } as never);
+    const out = solveProject(p);
+    expect(out.ok).toBe(false);
+    if (!out.ok) {
+      const p2 = out.problems.find((x) => x.elementId === 'bank2')!;
+      expect([p2.code, p2.field]).toEqual(['several-sources', 'from']);
+      expect(p2.message).toBe('a project holds one bank on a bus; "Bank" is already on one');
+    }
+  });
+
   it('a bank reached through a cable: the cable is turned round on battery', () => {
     const p = plant();
     p.elements.splice(3, 1, { id: 'bcable', name: 'Bank cable', kind: 'cable', from: 'bus', length: 5, resistancePerKm: 2, reactancePerKm: 0 } as never, {

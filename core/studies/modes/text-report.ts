@@ -54,6 +54,7 @@ export function formatModesStudy(s: ModesStudyResult): string {
     for (const k of s.cableSizes) out.push(`  ${k.name}: ${k.float ?? '—'} on float, ${k.recharge ?? '—'} recharging, ${k.battery ?? '—'} on battery: use ${k.use}`);
   }
   for (const x of s.warnings) out.push(`  Warning: ${x.message}`);
+  out.push('  The studies below run on supply (the file as drawn), except the battery backup study, which runs on battery.');
   for (const x of s.cautions) out.push(`  Caution: ${x}`);
   return out.join('\n');
 }
