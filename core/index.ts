@@ -44,6 +44,9 @@ export { simulateDischarge, dischargeVariant, type DischargeResult, type Dischar
 export { runBackupStudy, terminalPowerPeriods, type BackupStudyResult, type BackupStudyOutcome } from './studies/backup/study.ts';
 export { formatBackupStudy } from './studies/backup/text-report.ts';
 export { backupSettingsProblems, profileDay, type DayInterval, type ProfileDay, type ProfileDayOutcome } from './studies/backup/profile-day.ts';
+export { solveModes, bankOnBus, onBatteryChange, rechargeChange, outageSolve, type Modes, type BankPlace } from './solve/modes.ts';
+export { runModesStudy, type ModesStudyResult, type ModesStudyOutcome, type ModeFigures, type RectifierSizing, type StandingLosses, type Transfer } from './studies/modes/study.ts';
+export { formatModesStudy } from './studies/modes/text-report.ts';
 export { bankCautions, rechargeCautions } from './studies/backup/cautions.ts';
 export { parseSiValue, formatSi, type ElementUnit, type ParsedValue } from './physics/si-prefix.ts';
 export {

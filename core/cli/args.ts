@@ -15,7 +15,7 @@ export const EXIT_SOLVED = 0;
 export const EXIT_REFUSED = 1;
 export const EXIT_USAGE = 2;
 
-export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--correct-pf <elementId>:<target power factor>] ${MACHINE_USAGE}`;
+export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--mode supply|battery] [--correct-pf <elementId>:<target power factor>] ${MACHINE_USAGE}`;
 
 /** What `joulepath --help` prints. */
 export const HELP = `joulepath: plan an electrical power chain from a project file: power, losses, currents and
@@ -32,6 +32,9 @@ ${USAGE}
   --csv             one CSV row per project, with a header row (columns below)
   --surges          add the motor starting and fault study (runs by itself when the project
                     has starting, surge, protection or fault data)
+  --mode supply|battery
+                    a project with a bank on a bus has two modes: the tables of both are
+                    printed by default; this prints one (with --json, its result at the top)
   --correct-pf <elementId>:<target power factor>
                     size the capacitor bank for that element's interface (one file only)
   --machines        motor and drive details
@@ -69,6 +72,8 @@ export type CliRequest =
       output: CliOutput;
       surges: boolean;
       machines: boolean;
+      /** The one mode of a project with a bank on a bus whose tables are printed (both when absent). */
+      mode?: 'supply' | 'battery';
       pumpDutyFile?: string;
       correctPf?: PfCorrectionRequest;
     };
@@ -100,9 +105,15 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   const files: string[] = [];
   const outputs: CliOutput[] = [];
   let surges = false;
+  let mode: 'supply' | 'battery' | undefined;
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
-    if (a === '--json') outputs.push('json');
+    if (a === '--mode') {
+      const m = args[i + 1];
+      if (m !== 'supply' && m !== 'battery') return usage(`--mode takes supply or battery${m === undefined ? '' : `, not "${m}"`}`);
+      mode = m;
+      i++;
+    } else if (a === '--json') outputs.push('json');
     else if (a === '--csv') outputs.push('csv');
     else if (a === '--summary') outputs.push('summary');
     else if (a === '--surges') surges = true;
@@ -129,6 +140,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
     output,
     surges,
     machines: mach.machines,
+    ...(mode !== undefined ? { mode } : {}),
     ...(mach.pumpDutyFile !== undefined ? { pumpDutyFile: mach.pumpDutyFile } : {}),
     ...(correctPf ? { correctPf } : {}),
   };

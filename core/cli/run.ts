@@ -16,6 +16,10 @@ import { formatPfCorrection, pfCorrectionJson } from '../studies/pf/text-report.
 import { hasPumpSections, machineSections } from './machines-flags.ts';
 import { formatSurgeStudy, hasSurgeInputs, studySurges, type SurgeStudyResult } from '../studies/surge/index.ts';
 import { costSettingsOf, formatLossCost, lossCostPerYear, pumpDutyCosts, type LossCost, type MethodCosts } from '../studies/economics.ts';
+import { runModesStudy, type ModesStudyResult } from '../studies/modes/study.ts';
+import { formatModesStudy } from '../studies/modes/text-report.ts';
+import { solveModes } from '../solve/modes.ts';
+import type { SolveResult } from '../model/result.ts';
 import type { CliRequest } from './args.ts';
 import type { ProjectLine } from './summary.ts';
 
@@ -97,6 +101,17 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
     const bad = nonFinite('the yearly cost of the losses cannot be shown:', 'The yearly cost of the losses', { lossCost, pumpDutyCost });
     if (bad) return bad;
   }
+  // A bank on a bus: both modes (core/solve/modes.ts) and the modes study.
+  const modes = solveModes(outcome);
+  let modesStudy: ModesStudyResult | undefined;
+  if (modes) {
+    const m = runModesStudy(outcome, modes);
+    if (m && !m.ok) return refused(file, 'the two modes cannot be worked out:', m.problems, projectName, data);
+    if (m) modesStudy = m.study;
+    const bad = nonFinite('the two modes cannot be shown:', 'The two modes', { study: modesStudy, battery: modes.battery.ok ? modes.battery.result : undefined });
+    if (bad) return bad;
+  }
+  const batteryResult: SolveResult | undefined = modes?.battery.ok ? modes.battery.result : undefined;
   const run = study?.discharge;
   const line: ProjectLine = {
     file,
@@ -108,10 +123,12 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   // The profile's first day (the editor's preview), beside the study: `profileDay` in the JSON.
   const day = study && req.output !== 'summary' && req.output !== 'csv' ? profileDay(outcome.project, outcome.project.backup, outcome.result) : undefined;
   if (req.output === 'json') {
-    const extra = { ...(study ? { backupStudy: study } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}) };
-    text = `${JSON.stringify({ ...outcome.result, ...extra }, null, 2)}\n`;
+    const top = req.mode === 'battery' && batteryResult ? batteryResult : outcome.result;
+    const modesJson = modes ? { mode: top === batteryResult ? 'battery' : 'supply', modes: { supply: outcome.result, battery: modes.battery.ok ? modes.battery.result : { problems: modes.battery.problems }, study: modesStudy } } : {};
+    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}) };
+    text = `${JSON.stringify({ ...top, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${formatResult(outcome.result)}\n${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}`;
+    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}`;
   }
   return { ok: true, text, line };
 }
@@ -126,4 +143,12 @@ function hasBackupStudy({ project }: Solved): boolean {
 function formatPumpDutyCost(c: MethodCosts): string {
   const m = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toFixed(2));
   return `Pump duty energy cost per year: drive speed control ${m(c.speedControl)}, throttling ${m(c.throttle)}, on-off ${m(c.onOff)}; the drive saves ${m(c.savingVsThrottle)} against throttling, ${m(c.savingVsOnOff)} against on-off`;
+}
+
+/** The element tables of a project with a bank on a bus: both modes by default, or the one asked for. */
+function modeTables(supply: SolveResult, battery: SolveResult | undefined, batteryRefusal: string | undefined, mode: 'supply' | 'battery' | undefined): string {
+  const parts: string[] = [];
+  if (mode !== 'battery') parts.push(`Mode: on supply (the bank on float)\n${formatResult(supply)}`);
+  if (mode !== 'supply') parts.push(battery ? `Mode: on battery (the supply cut, the bank carries its bus)\n${formatResult(battery)}` : `Mode: on battery: cannot be solved: ${batteryRefusal ?? 'no solution'}`);
+  return parts.join('\n\n');
 }

@@ -142,7 +142,7 @@ function feeder(ctx: DesignContext, e: Element): Element | undefined {
   const passed: string[] = [];
   let found: Element | undefined;
   let at: Element | undefined = e;
-  while (at && 'from' in at) {
+  while (at && 'from' in at && at.from !== undefined) {
     if (known.has(at.id)) {
       found = known.get(at.id);
       break;

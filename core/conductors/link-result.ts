@@ -106,7 +106,7 @@ export function conductorResult(
     'Conductor temperature (estimate)',
     op.temperature,
     '°C',
-    `T = T_a + (T_max − T_a)·(I/I_z)² = ${p.ambient} + (${p.tMax} − ${p.ambient})·(${(current / sets).toFixed(2)}/${cand.corrected.toFixed(1)})², at the operating current (typical estimate)`,
+    `T = T_a + (T_max − T_a)·(I/I_z)² = ${p.ambient} + (${p.tMax} − ${p.ambient})·(${sigText(current / sets, 4)}/${sigText(cand.corrected, 4)})², at the operating current (typical estimate)`,
   );
   step(
     'Resistance at that temperature',

@@ -3,6 +3,7 @@ import type { Project } from '../model/project.ts';
 import hillside from './hillside-relay-hut.json' with { type: 'json' };
 import riverside from './riverside-pump-station.json' with { type: 'json' };
 import coldStore from './cold-store-dc-bus.json' with { type: 'json' };
+import harbourClinic from './harbour-clinic-ups.json' with { type: 'json' };
 
 export interface DemoProject {
   /** File stem under core/demos/. */
@@ -21,4 +22,5 @@ export const demoProjects: readonly DemoProject[] = [
   demo('hillside-relay-hut', hillside),
   demo('riverside-pump-station', riverside),
   demo('cold-store-dc-bus', coldStore),
+  demo('harbour-clinic-ups', harbourClinic),
 ];

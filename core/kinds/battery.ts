@@ -4,6 +4,11 @@
  * internal I²R is the bank's own loss. With a `bank` spec the open-circuit voltage is the
  * chemistry's OCV at the initial state of charge × cells in series and the resistance is scaled
  * from the preset (core/physics/bank.ts). State of charge over time belongs to core/studies/backup/.
+ *
+ * A bank on a bus (a `from` naming a DC bus, directly or through cables; core/solve/modes.ts): on
+ * supply it is a constant-current DC load drawing its float current (the charger holds the bus at
+ * the float voltage and the bank takes what keeps it full: P = V_bus·I_float); on battery the modes
+ * re-root the chain at it and it is the source again.
  */
 import { z } from 'zod/mini';
 import type { BatteryBankSpec, BatterySource } from '../model/project.ts';
@@ -11,7 +16,8 @@ import { c } from '../physics/complex.ts';
 import { CHEMISTRIES, CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
 import { checkBank, resolveBank } from '../physics/bank.ts';
 import { protectiveDeviceSchema } from './starting-fields.ts';
-import { defineKind, finiteOrNone, idField, nameField, nominalPort, sourceOhms } from './spec.ts';
+import { constantCurrentLoad, defineKind, finiteOrNone, fromField, idField, nameField, nominalPort, sourceOhms } from './spec.ts';
+import { STANDBY_CHARGE } from '../data/standby-charge.ts';
 import { seriesLink } from './spec.ts';
 import { outOfRange, ranged, rangedCount } from './ranges.ts';
 
@@ -52,6 +58,7 @@ export const bankSchema = z.strictObject({
   capacityAh: ranged('capacity'),
   initialSoc: z.optional(fraction('state of charge')),
   overrides: z.optional(overridesSchema),
+  floatCurrent: z.optional(ranged('current', 'non-negative')),
 });
 
 /** Agreement asked between a `voltage` given beside a `bank` and the bank's own open-circuit voltage. */
@@ -60,17 +67,23 @@ const VOLTAGE_AGREEMENT = 0.01;
 export const batteryKind = defineKind<BatterySource>({
   kind: 'battery',
   role: 'source',
-  accepts: () => [],
+  fedRole: 'load',
+  // A bank on a bus is fed DC; as the chain's source it has no `from` and is fed nothing.
+  accepts: () => ['dc'],
   schema: z.strictObject({
     id: idField,
     name: nameField,
     kind: z.literal('battery'),
+    from: z.optional(fromField),
     voltage: z.optional(ranged('voltage')),
     internalResistance: z.optional(sourceOhms()),
     bank: z.optional(bankSchema),
     bankFuse: z.optional(protectiveDeviceSchema),
   }) as z.ZodMiniType<BatterySource>,
   check(e) {
+    if (e.from !== undefined && !e.bank) {
+      return [{ code: 'invalid-value', field: 'bank', message: 'is required for a bank on a bus (chemistry, cells in series and capacity: its float current and its discharge come from them)' }];
+    }
     if (!e.bank) {
       return e.voltage === undefined
         ? [{ code: 'invalid-value', field: 'voltage', message: 'is required (or give a `bank` with chemistry, series and capacity)' }]
@@ -102,7 +115,9 @@ export const batteryKind = defineKind<BatterySource>({
   nominalOutput: (e) => nominalPort('dc', bankNominalVoltage(e.bank) ?? finiteOrNone(e.voltage)),
   ideal: (e) => ({ ...e, internalResistance: 0 }),
   studies: ['backup', 'fault-current'],
-  build(e) {
+  build(e, input) {
+    // On a bus, on supply: the float current at the bus voltage (constant current, DC).
+    if (input !== null) return constantCurrentLoad(c(bankFloatCurrent(e.bank!)), 'dc');
     const { emf, resistance } = batteryEquivalent(e);
     const link = seriesLink(c(resistance), 'dc');
     const source = c(emf);
@@ -138,4 +153,13 @@ export function batteryEquivalent(e: BatterySource): { emf: number; resistance: 
     return { emf: bank.initialOcv, resistance: bank.internalResistance };
   }
   return { emf: e.voltage!, resistance: e.internalResistance ?? 0 };
+}
+
+/**
+ * The float current of a whole bank, A: the string's float current (the maker's `floatCurrent`, else
+ * the chemistry's typical float current per Ah × the string's Ah, core/data/standby-charge.ts) × strings.
+ */
+export function bankFloatCurrent(bank: BatteryBankSpec): number {
+  const perString = bank.floatCurrent ?? STANDBY_CHARGE[bank.chemistry].floatCurrentPerAh * bank.capacityAh;
+  return perString * (bank.strings ?? 1);
 }

@@ -195,6 +195,13 @@ export interface KindSpec<E extends KindElement = Element> {
    * the nominal solve of the conductor sizing, which puts every system at its nominal voltage.
    */
   ideal?(e: E): E;
+  /**
+   * A source kind that may also be fed from a bus (a battery bank on a DC bus): what it is in the
+   * chain when it has a `from` (it is then built with its feeding port and drawn as a load: the
+   * bank's float current on supply). Read by the plan (each element's role), the tree checks (it is
+   * not then the chain's source) and core/solve/modes.ts. Absent on other kinds.
+   */
+  readonly fedRole?: 'load';
   /** The studies an element of this kind takes part in (see KindStudy); absent when none. */
   readonly studies?: readonly KindStudy[];
 }

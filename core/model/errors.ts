@@ -16,6 +16,8 @@ export type ProblemCode =
   | 'cycle'
   | 'kind-mismatch'
   | 'not-a-feeder'
+  /** A bank on a bus fed from something that is not a DC bus (through cables at most). */
+  | 'not-on-bus'
   | 'infeasible-load'
   | 'no-convergence'
   // Battery sizing and recharge (core/studies/backup/sizing.ts, recharge.ts).

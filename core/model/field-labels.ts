@@ -101,6 +101,7 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "bank.overrides.maxChargeCRate": "Maximum charge rate",
     "bank.overrides.maxDischargeCRate": "Maximum discharge rate",
     "bank.overrides.minChargeTemperatureC": "Lowest charging temperature",
+    "bank.floatCurrent": "Float current of one string",
     voltage: "Open-circuit voltage",
     internalResistance: "Internal resistance of the bank",
     bankFuse: "Fuse or breaker at the bank",
@@ -326,6 +327,12 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "backup.profile.duty": "Duty cycles",
     "pumpDuty.pump": "Pump or fan of the duty study",
     "pumpDuty.duty": "Duty points",
+    "standby.targetRechargeHours": "Recharge time after an outage",
+    "standby.rechargeAh": "Charge to put back",
+    "standby.chargeReturnFactor": "Charge-return factor",
+    "standby.moduleCurrent": "Rectifier module current",
+    "standby.redundancy": "Redundant modules",
+    "standby.outageHoursPerYear": "Outage hours per year",
   },
 };
 

@@ -13,6 +13,7 @@ import type { Source } from './sources.ts';
 import type { Stage } from './stages.ts';
 import type { Load } from './loads.ts';
 import type { BackupStudy, DropLimits, PumpDutyStudy, RunningCost } from './study-settings.ts';
+import type { StandbySettings } from './standby.ts';
 
 export type { PortKind, PfSense, EfficiencyPoint, LossModel, PowerFactorModel, ProtectiveDevice } from './element-base.ts';
 export type { AcSource, BatteryBankSpec, BatterySource, Source } from './sources.ts';
@@ -21,6 +22,7 @@ export type { NecRaceway, IecInstallationMethod, NecConductorSpec, IecConductorS
 export * from './loads.ts';
 export * from './circuit-network.ts';
 export * from './study-settings.ts';
+export type { StandbySettings } from './standby.ts';
 
 /** Longest client, site or prepared-by text (one printed line or two on the report's first page). */
 export const REPORT_TEXT_MAX = 200;
@@ -50,4 +52,6 @@ export interface Project {
   pumpDuty?: PumpDutyStudy;
   /** Energy price and hours a year, for what the losses cost (core/studies/economics.ts). */
   running?: RunningCost;
+  /** A bank on a bus: the charger sizing, float and standing-loss settings of the two modes (core/model/standby.ts). */
+  standby?: StandbySettings;
 }

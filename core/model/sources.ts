@@ -50,6 +50,12 @@ export interface BatteryBankSpec {
   initialSoc?: number;
   /** Datasheet values that replace the preset's (per cell, units as in the preset). */
   overrides?: Partial<ChemistryValues>;
+  /**
+   * Float current of one string at the float voltage, A, the maker's figure (a bank on a bus draws
+   * it on supply; default: the chemistry's typical float current per Ah × `capacityAh`,
+   * core/data/standby-charge.ts).
+   */
+  floatCurrent?: number;
 }
 
 /**
@@ -61,6 +67,12 @@ export interface BatteryBankSpec {
  */
 export interface BatterySource extends ElementBase {
   kind: 'battery';
+  /**
+   * A bank on a bus: the DC bus it is connected to (directly, or through cables to that bus). Without
+   * it the bank is the chain's source; with it the chain's source is the supply, the bank draws its
+   * float current on supply and carries the bus when the supply is cut (core/solve/modes.ts).
+   */
+  from?: string;
   /** Open-circuit voltage of the bank, V (required without a `bank`). */
   voltage?: number;
   /** Internal resistance of the whole bank, Ω (optional; 0 = stiff without a bank). */

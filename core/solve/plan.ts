@@ -10,6 +10,8 @@ import { KINDS, type ElementModel, type KindSpec, type PortInfo } from '../kinds
 export interface PlannedElement {
   element: Element;
   spec: KindSpec;
+  /** What the element is in this chain: its kind's role, or its `fedRole` when a source kind is fed (a bank on a bus). */
+  role: KindSpec['role'];
   model: ElementModel;
   /** Index of the feeding element in the plan, −1 for the source. */
   parent: number;
@@ -28,7 +30,7 @@ export function plan(project: Project): Plan {
   const children = new Map<string, Element[]>();
   let source: Element | undefined;
   for (const e of project.elements) {
-    if (!('from' in e)) {
+    if (!('from' in e) || e.from === undefined) {
       source ??= e;
       continue;
     }
@@ -64,7 +66,8 @@ export function plan(project: Project): Plan {
     const model = spec.build(e, input);
     for (const p of model.problems ?? []) problems.push({ ...p, elementId: e.id });
     const index = order.length;
-    order.push({ element: e, spec, model, parent, children: [], input });
+    const role = input !== null && spec.fedRole !== undefined ? spec.fedRole : spec.role;
+    order.push({ element: e, spec, role, model, parent, children: [], input });
     if (parent >= 0) order[parent]!.children.push(index);
     // An element with no output (a load) feeds nothing: what names it as its feed is refused by
     // validate ("not-a-feeder") and not built here (it would be built without an input port).

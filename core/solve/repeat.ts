@@ -74,7 +74,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
   const order = planned.order;
   const loadIdx: number[] = [];
   order.forEach((n, i) => {
-    if (n.spec.role === 'load') loadIdx.push(i);
+    if (n.role === 'load') loadIdx.push(i);
   });
   // The top: the source and the passive elements reachable from it through passive elements only.
   const inTop = new Array<boolean>(order.length).fill(false);
@@ -86,7 +86,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     if (node.spec.passive) inTop[i] = true;
     // A constant-current load next to the bank draws P = V·I at the bank-side voltage, which moves
     // every step: not a fixed frontier power, so the whole chain is swept instead.
-    else if (!(node.spec.regulatesVoltage || (node.spec.role === 'load' && node.model.current === undefined))) fast = false;
+    else if (!(node.spec.regulatesVoltage || (node.role === 'load' && node.model.current === undefined))) fast = false;
   }
   const top: number[] = [];
   const topPos = new Map<number, number>();
@@ -143,9 +143,9 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     let loadPower = 0;
     for (let i = 1; i < order.length; i++) {
       const node = order[i]!;
-      if (node.spec.role === 'load') loadPower += pin[i]!.re;
+      if (node.role === 'load') loadPower += pin[i]!.re;
       if (inTop[i]) continue;
-      if (node.spec.role !== 'load') belowLoss += pin[i]!.re - pout[i]!.re;
+      if (node.role !== 'load') belowLoss += pin[i]!.re - pout[i]!.re;
       if (inTop[node.parent]) fixed[topPos.get(node.parent)!]! += pin[i]!.re;
     }
     states.push({ fixed, belowLoss, loadPower, ...(fast ? {} : { loads }) });
@@ -272,7 +272,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     let chainLoss = 0;
     let loadPower = 0;
     for (let i = 1; i < order.length; i++) {
-      if (order[i]!.spec.role === 'load') loadPower += pin[i]!.re;
+      if (order[i]!.role === 'load') loadPower += pin[i]!.re;
       else chainLoss += pin[i]!.re - pout[i]!.re;
     }
     const terminalPower = pout[0]!.re;

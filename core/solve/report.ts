@@ -65,7 +65,7 @@ export function buildResult(
   const problems: Problem[] = [];
   const elements: ElementResult[] = order.map((node, i) => {
     const e = node.element;
-    const role = node.spec.role;
+    const role = node.role;
     const parent = node.parent;
     const pIn = sIn[i]!.re;
     const pOut = role === 'load' ? pIn : sOut[i]!.re;

@@ -126,7 +126,7 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
   const vNom = nominalVoltages(order0);
   const children = new Map<string, Element[]>();
   for (const e of project.elements) {
-    if (!('from' in e)) continue;
+    if (!('from' in e) || e.from === undefined) continue;
     const siblings = children.get(e.from);
     if (siblings) siblings.push(e);
     else children.set(e.from, [e]);

@@ -78,7 +78,12 @@ export function skeletonOf(raw: unknown): Skeleton | null {
   };
 }
 
-const roleOf = (s: Skeleton) => (s.kind === undefined ? undefined : KINDS.get(s.kind)!.role);
+/** What an element is in the tree: its kind's role, or its `fedRole` when a source kind is fed (a bank on a bus). */
+const roleOf = (s: Skeleton) => {
+  if (s.kind === undefined) return undefined;
+  const spec = KINDS.get(s.kind)!;
+  return s.from !== undefined && spec.fedRole !== undefined ? spec.fedRole : spec.role;
+};
 
 /** An element as messages name it: by its name, by its id only when it has none (the file's own handle then). */
 const label = (s: Skeleton) => `"${s.name ?? s.id}"`;
@@ -123,6 +128,33 @@ export function checkStructure(skeletons: readonly Skeleton[]): Problem[] {
     }
   }
   problems.push(...loopProblems(skeletons, byId));
+  problems.push(...bankOnBusProblems(skeletons, byId));
+  return problems;
+}
+
+/**
+ * A bank on a bus (a source kind with a `fedRole`, fed): it must hang on a DC bus, directly or
+ * through cables only (the path core/solve/modes.ts turns round when the supply is cut), and a
+ * project holds one (the on-battery mode has one root). Walks stop at a loop (reported above).
+ */
+function bankOnBusProblems(skeletons: readonly Skeleton[], byId: ReadonlyMap<string, Skeleton>): Problem[] {
+  const problems: Problem[] = [];
+  const banks = skeletons.filter((s) => s.from !== undefined && s.kind !== undefined && KINDS.get(s.kind)!.fedRole !== undefined);
+  for (const b of banks.slice(1)) {
+    problems.push({ code: 'several-sources', elementId: b.id, field: 'from', value: b.from, message: `a project holds one bank on a bus; ${label(banks[0]!)} is already on one` });
+  }
+  for (const b of banks) {
+    const seen = new Set<string>([b.id]);
+    let at = b.from === undefined ? undefined : byId.get(b.from);
+    while (at !== undefined && at.kind === 'cable' && at.from !== undefined && !seen.has(at.id)) {
+      seen.add(at.id);
+      at = byId.get(at.from);
+    }
+    if (at === undefined || seen.has(at.id)) continue; // an unknown feed or a loop: reported above
+    if (at.kind !== 'dc-bus') {
+      problems.push({ code: 'not-on-bus', elementId: b.id, field: 'from', value: b.from, message: `a bank on a bus must be fed from a DC bus, directly or through cables; ${label(at)} is not a DC bus` });
+    }
+  }
   return problems;
 }
 

@@ -167,7 +167,7 @@ function loadBelow(order: readonly PlannedElement[], sIn: readonly Complex[], i:
     if (node.model.current !== undefined) {
       watts[k - i] = 0;
       ampsBelow[k - i] = abs(node.model.current);
-    } else if (node.spec.role === 'load') {
+    } else if (node.role === 'load') {
       watts[k - i] = sIn[k]!.re;
     } else {
       let w = 0;

@@ -15,6 +15,7 @@ import { backupSchema, reservedKeyProblems } from './load-profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { pumpDutySchema } from '../kinds/pump.ts';
 import { runningSchema } from './running-schema.ts';
+import { standbySchema } from './standby-schema.ts';
 import { countSolveStep } from './count.ts';
 import { wordedFromParams } from '../model/message.ts';
 
@@ -49,6 +50,7 @@ export const projectShape = z.strictObject({
   dropLimits: z.optional(dropLimitsSchema),
   pumpDuty: z.optional(pumpDutySchema),
   running: z.optional(runningSchema),
+  standby: z.optional(standbySchema),
 });
 
 /**

@@ -128,7 +128,10 @@ export function answerStudies(solved: Solved, cost: CostSettings | null): StudyA
   const out: StudyAnswers = { banks: [], starts: [], cost: { ok: false, reason: 'no energy price given', panel: 'machines' } };
   let backup: BackupStudyResult | undefined;
   const source = project.elements.find((e) => !('from' in e) || e.from === undefined);
-  if (source?.kind === 'battery' && source.bank !== undefined && project.backup) {
+  // The bank is the chain's source, or sits on a bus (the study then runs in the on-battery mode).
+  const bankOnBus = project.elements.find((e) => e.kind === 'battery' && e.from !== undefined);
+  const bank = source?.kind === 'battery' ? source : bankOnBus?.kind === 'battery' ? bankOnBus : undefined;
+  if (bank !== undefined && bank.bank !== undefined && project.backup) {
     const o = runBackupStudy(solved);
     if (o.ok) backup = o.study;
     else out.bankProblems = o.problems;

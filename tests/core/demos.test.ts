@@ -35,8 +35,8 @@ function interp(points: [number, number][], x: number): number {
 const SQRT3 = Math.sqrt(3);
 
 describe('all demos', () => {
-  it('there are three demos', () => {
-    expect(demoProjects.map((d) => d.id)).toEqual(['hillside-relay-hut', 'riverside-pump-station', 'cold-store-dc-bus']);
+  it('there are four demos', () => {
+    expect(demoProjects.map((d) => d.id)).toEqual(['hillside-relay-hut', 'riverside-pump-station', 'cold-store-dc-bus', 'harbour-clinic-ups']);
   });
 
   it.each(demoProjects.map((d) => [d.id]))('%s solves, balances to 1e-9 and gives no warnings', (id) => {

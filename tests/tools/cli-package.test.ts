@@ -94,8 +94,9 @@ describe('the packed command-line tool', () => {
     }
     // The hillside demo has a backup study: its runtime, 27 h 40 min in the tables (tests/battery/cli.test.ts).
     expect(lines[0]).toMatch(/backup runtime 27\.67 h$/);
-    expect(lines[3]).toMatch(/^zero-volt\.json: refused: the project cannot be solved: "Grid", Open-circuit voltage: /);
-    expect(lines[4]).toMatch(/^missing\.json: refused: cannot read the project missing\.json/);
+    const n = demoProjects.length;
+    expect(lines[n]).toMatch(/^zero-volt\.json: refused: the project cannot be solved: "Grid", Open-circuit voltage: /);
+    expect(lines[n + 1]).toMatch(/^missing\.json: refused: cannot read the project missing\.json/);
     // Every reason on standard error, under the file's name.
     expect(r.stderr).toMatch(/^zero-volt\.json: the project cannot be solved:\n {2}"Grid", Open-circuit voltage: /m);
     // All solved: exit 0.
@@ -106,8 +107,8 @@ describe('the packed command-line tool', () => {
     const r = run('solve', '.');
     expect(r.status).toBe(1); // zero-volt.json is refused
     const names = r.stdout.trimEnd().split('\n').map((l) => l.slice(0, l.indexOf(': ')));
-    // The demos (cold-store, hillside, riverside) and zero-volt.json, sorted by name; not the tarball, not package/.
-    expect(names).toEqual(['cold-store-dc-bus.json', 'hillside-relay-hut.json', 'riverside-pump-station.json', 'zero-volt.json']);
+    // The demos (cold-store, harbour clinic, hillside, riverside) and zero-volt.json, sorted by name; not the tarball, not package/.
+    expect(names).toEqual(['cold-store-dc-bus.json', 'harbour-clinic-ups.json', 'hillside-relay-hut.json', 'riverside-pump-station.json', 'zero-volt.json']);
     expect(r.stdout).toContain('zero-volt.json: refused: the project cannot be solved:');
     const j = run('solve', '.', '--json');
     expect(j.status).toBe(2);

@@ -392,6 +392,8 @@ export function offeredTemplates(project: DraftProject, op: AddOperation, target
   const feeder = project.elements.find((e) => e.id === feederId);
   const port = ports.get(feederId);
   if (!port || !feeder) return [];
+  // A bank on a bus (a source kind fed from a bus, core/solve/modes.ts) is a load there: it feeds nothing.
+  if (isBankOnBus(feeder)) return [];
   // A shaft drives one load here: a second one would share a motor sized for the first.
   if (op === 'branch' && port.kind === 'shaft' && project.elements.some((e) => e.from === feederId)) return [];
   const fed = op === 'after' ? project.elements.filter((e) => e.from === target.id) : op === 'before' ? [target] : [];
@@ -403,10 +405,23 @@ export function offeredTemplates(project: DraftProject, op: AddOperation, target
   return offered.filter(({ kind, element }) => {
     if (fed.length === 0) return true;
     if (KINDS.get(kind)!.role === 'load') return false;
+    // A bank on a bus hangs on a DC bus through cables only: in front of it, only a cable or a bus.
+    if (kind !== 'cable' && kind !== 'dc-bus' && fed.some((child) => reachesBankOnBus(project, child))) return false;
     // The new element's output must suit everything downstream of it, through pass-through stages (cables, buses).
     const out = nominalOutput(element, port);
     return out !== null && fed.every((child) => subtreeFits(project, child, out));
   });
+}
+
+/** A source kind fed from a bus (the engine's `fedRole` trait): a bank on a bus. */
+const isBankOnBus = (e: DraftElement): boolean => e.from !== undefined && KINDS.get(e.kind as ElementKind)?.fedRole !== undefined;
+
+/** Is `e` a bank on a bus, or a cable leading (through cables only) to one? */
+function reachesBankOnBus(project: DraftProject, e: DraftElement, seen = new Set<string>()): boolean {
+  if (seen.has(e.id)) return false;
+  seen.add(e.id);
+  if (isBankOnBus(e)) return true;
+  return e.kind === 'cable' && project.elements.some((c) => c.from === e.id && reachesBankOnBus(project, c, seen));
 }
 
 /** Does every element from `e` down accept the port it would be fed at, starting with `input` at `e`? */

@@ -52,7 +52,7 @@ function noLoadDraws(project: Project): Omit<IdleDraw, 'energyWh'>[] {
   if (!planned.ok) return [];
   // No current flows at zero output: any non-zero voltage gives the same answer (idleDraw's default).
   return planned.order
-    .filter((n) => n.spec.role === 'stage')
+    .filter((n) => n.role === 'stage')
     .map((n) => ({ id: n.element.id, name: n.element.name ?? n.element.id, watts: idleDraw(n.model) }))
     .filter((d) => d.watts > 0);
 }

@@ -5,6 +5,7 @@
  * sizing.ts, step 2).
  */
 import { capacityFactorAt as extrapolatedCapacityFactor } from '../../physics/bank.ts';
+import { sigText } from '../../model/message.ts';
 import { isLeadAcid, leadAcidTemperatureFactor, peukertCapacityFactor, tableCapacityFactor } from './sizing-factors.ts';
 import { problem } from './sizing-input.ts';
 import { mergeEqualPeriods, mergeNearPeriods } from './sizing-periods.ts';
@@ -177,7 +178,7 @@ export function sizeByWorksheet(ctx: MethodContext): MethodOutcome {
         ? `${temperature} °C is below IEEE 485 Table 1: the capacity (1 ÷ factor) extrapolated linearly from its two coldest rows (−3.9 °C 1.52, −1.1 °C 1.43), never below 1.52; use the maker\u2019s figure for this temperature`
         : t.extrapolated
           ? `${temperature} °C is above IEEE 485 Table 1: 1.00, no credit for heat (the note to Table 1)`
-          : `IEEE 485 Table 1 at ${temperature} °C${raw < 1 && !input.creditAbove25C ? ` (table gives ${raw}; held at 1.00 above 25 °C as the note to the table advises)` : ''}`,
+          : `IEEE 485 Table 1 at ${sigText(temperature, 3)} °C${raw < 1 && !input.creditAbove25C ? ` (table gives ${sigText(raw, 4)}; held at 1.00 above 25 °C as the note to the table advises)` : ''}`,
     );
     if (t.extrapolated && temperature < 25) warnings.push(`${temperature} °C is below IEEE 485 Table 1 (from −3.9 °C): its temperature factor ${round(tempFactor)} is extrapolated from the two coldest rows; ask the cell maker for the capacity at this temperature.`);
   } else {

@@ -9,12 +9,18 @@ import type { BackupStudy, BatterySource } from '../../model/project.ts';
 import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
 import type { Solved } from '../../solve/index.ts';
 import type { VariantChange } from '../../solve/variant.ts';
+import { outageSolve } from '../../solve/modes.ts';
 import { dischargeVariant, simulateDischarge, type DischargeResult } from './discharge.ts';
 import { MAX_REPEATED_PERIODS, repeatedPeriods, sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
 import { MAX_HORIZON_H, count } from '../../solve/load-profile.ts';
 import { chargerForTargetTime, rechargeTime, type ChargerSizing, type Recharge } from './recharge.ts';
 
 export interface BackupStudyResult {
+  /**
+   * 'battery' when the bank sits on a bus: the study ran in the on-battery mode (the supply branch
+   * cut, the bank the root, core/solve/modes.ts). Absent when the bank is the chain's own source.
+   */
+  mode?: 'battery';
   discharge: DischargeResult;
   /** Smallest bank for `backup.targetRuntimeHours` over the same terminal power profile. */
   sizing?: BankSizing;
@@ -95,7 +101,11 @@ function tooShortForTarget(run: DischargeResult, study: BackupStudy): Problem {
  * Run the whole study on a solved project (never validated or solved again; the larger and the sized
  * bank are variants of it, core/solve/variant.ts). Never throws on bad input.
  */
-export function runBackupStudy(solved: Solved): BackupStudyOutcome {
+export function runBackupStudy(input: Solved): BackupStudyOutcome {
+  // A bank on a bus: the outage is the on-battery mode, a variant of the solved project.
+  const outage = outageSolve(input);
+  if (!outage.ok) return outage;
+  const solved = outage.solved;
   const simulated = simulateDischarge(solved);
   if (!simulated.ok) return simulated;
   const d = simulated.result;
@@ -103,7 +113,7 @@ export function runBackupStudy(solved: Solved): BackupStudyOutcome {
   const study = solved.project.backup!;
   const battery = solved.project.elements.find((e): e is BatterySource => e.id === d.batteryId && e.kind === 'battery')!;
   const spec = battery.bank!;
-  const result: BackupStudyResult = { discharge: d };
+  const result: BackupStudyResult = { ...(outage.onBattery ? { mode: 'battery' as const } : {}), discharge: d };
   const problems: Problem[] = [];
 
   if (study.targetRuntimeHours !== undefined) {

@@ -29,6 +29,7 @@ export function formatBackupStudy(study: BackupStudyResult): string {
   const d = study.discharge;
   const b = d.bank;
   const out: string[] = ['', 'Battery backup'];
+  if (study.mode === 'battery') out.push('  Mode: on battery (the supply cut, the bank on its bus carries the loads)');
   out.push(
     `  Bank: ${b.label}, ${b.cellsInSeries} cells in series × ${b.strings} string(s), ${n(b.capacityAh, 0)} Ah (C${b.ratedHours}) — ${n(b.nominalVoltage)} V nominal, ${n(b.nominalWh, 0)} Wh, usable ${n(b.usableWh, 0)} Wh`,
     `  Internal resistance ${(b.internalResistance * 1000).toFixed(2)} mΩ; cut-off ${n(d.cutoffVoltage, 2)} V under load; start at ${pct(d.startSoc)} state of charge${b.overridden.length ? `; datasheet values: ${b.overridden.join(', ')}` : ''}`,
