@@ -41,7 +41,9 @@ describe('the device setting a project without `running` starts from', () => {
 
   it('a format-2 file without `running` (every demo) imports, and the preference fills it', () => {
     for (const d of demoProjects) {
-      const imported = parseImportText(JSON.stringify(d.project));
+      // The harbour clinic demo prices its standing by (`running`): taken out, it is a file without it.
+      const { running: _running, ...project } = d.project as unknown as Record<string, unknown>;
+      const imported = parseImportText(JSON.stringify(project));
       expect(imported.ok, d.id).toBe(true);
       if (!imported.ok) continue;
       expect(runningInForce(imported.project)).toEqual({ price: 0.31, hours: 4000, fromDevice: true });
