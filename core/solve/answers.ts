@@ -109,8 +109,10 @@ export interface BankCableCurrent {
 export interface BankAnswer {
   elementId: string;
   name: string;
-  /** The bank's current at the solved operating point (charged bank's voltage), A. */
+  /** The bank's current at the solved operating point (charged bank's voltage), A; 0 for a bank on a bus (it is charged there). */
   operatingCurrent: number;
+  /** The bank sits on a DC bus inside a chain fed from the supply: the solved chain is the on-supply mode, its figures on battery come from the studies. */
+  onBus?: true;
   /** The first cable below the bank, when there is one (sized or not). */
   cableId?: string;
   cableName?: string;
@@ -210,6 +212,7 @@ export function solveAnswers(solved: Pick<Solved, 'result'>): SolveAnswers {
         elementId: e.id,
         name: e.name,
         operatingCurrent: e.output?.current ?? 0,
+        ...(e.role !== 'source' ? { onBus: true as const } : {}),
         ...(cable ? { cableId: cable.id, cableName: cable.name } : {}),
         ...(cable && c
           ? {

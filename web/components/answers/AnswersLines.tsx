@@ -70,7 +70,13 @@ function BankLines({ quick, bank, state, loc }: { quick: SolveAnswers['banks'][n
         </Line>
       ) : (
         <Line label="Bank cable and fuse carry" name="bank-current"
-          note={shown ? `highest bank current over the outage, as the voltage falls (${formatCurrent(quick.operatingCurrent, loc)} at full charge), before any ×1.25 the code asks` : undefined}>
+          note={
+            shown
+              ? quick.onBus
+                ? 'highest bank current over the outage, on battery, before any ×1.25 the code asks'
+                : `highest bank current over the outage, as the voltage falls (${formatCurrent(quick.operatingCurrent, loc)} at full charge), before any ×1.25 the code asks`
+              : undefined
+          }>
           <Fig label="Bank cable and fuse carry" to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-peak-current' }} state={figState} testId="answer-bank-current">
             {shown ? formatCurrent(shown.peakCurrent, loc) : WORKING}
           </Fig>
