@@ -1,0 +1,396 @@
+/**
+ * The cost over the years of a solved chain: what its losses cost a year under a day/night tariff,
+ * its lifetime cost, the payback and break-even year between two options, the CO₂ of the losses and
+ * a standby generator's fuel. Pure (no clock, no storage); money in the user's own currency.
+ *
+ * Methods, each named where it is worked:
+ * - Tariff: time-weighted mean price, p̄ = (h_day·p_day + (24 − h_day)·p_night) / 24. The chain's
+ *   hours at its solved operating point are taken as spread evenly over the day: a project's load
+ *   profile (the backup study's day) or pump duty is not read here.
+ * - Yearly energy of the losses: constant operating point, E = P_loss × hours per year
+ *   (core/studies/economics.ts); its cost E × p̄.
+ * - Lifetime cost: net present value of end-of-year costs, NPV = purchase + Σ_{t=1…N} C_t / (1 + r)^t
+ *   (present-worth factor 1/(1 + r)^t; purchase at year 0, undiscounted).
+ * - Simple payback: extra purchase ÷ yearly saving, undiscounted, in years.
+ * - Break-even year: the first whole year t at which the cumulative present value of the option
+ *   that costs more to buy is no more than the other's (null when that never happens within the
+ *   years given, or when neither costs more to buy).
+ * - CO₂ of the losses: E_loss × grid factor (the user's kg/kWh).
+ * - Generator fuel: the fuel curve interpolated linearly between the maker's points at ¼, ½ and full
+ *   load (piecewise-linear interpolation); below ¼ the ¼–½ line extended towards no load (its value
+ *   at no load, never below 0, is the idle burn); above full load refused. Fuel a year = Σ rate ×
+ *   hours over the outages (the chain's source power) and the recharges after them (the charger's
+ *   mean input power, its energy ÷ its time, for the recharge time, once per outage).
+ */
+import type { Problem } from '../model/errors.ts';
+import { PROJECT_LEVEL } from '../model/errors.ts';
+import type { GeneratorFuel, Project } from '../model/project.ts';
+import type { Solved } from '../solve/solved.ts';
+import { sigText } from '../model/message.ts';
+import { HOURS_IN_YEAR, MAX_HOURS_PER_YEAR } from '../solve/running-schema.ts';
+import { lossCostPerYear, type LossCost } from './economics.ts';
+
+/** Default day-price hours (common practice (no source): many two-rate tariffs run their night rate from about 23:00 to 07:00). */
+export const DEFAULT_DAY_START_HOUR = 7;
+export const DEFAULT_DAY_END_HOUR = 23;
+/**
+ * Rated power factor of a generating set: its real-power rating is its VA rating × 0.8 (ISO 8528-1
+ * rates generating sets at a lagging power factor of 0.8; from memory).
+ */
+export const GENERATOR_RATED_POWER_FACTOR = 0.8;
+
+/** The cost settings of the lifetime cost, read from the project's `running` (lifetimeSettingsOf). */
+export interface LifetimeSettings {
+  /** Day price (the only price without a night price), currency units per kWh. */
+  dayPricePerKWh: number;
+  nightPricePerKWh?: number;
+  dayStartHour: number;
+  dayEndHour: number;
+  hoursPerYear: number;
+  years: number;
+  /** Fraction per year (0.05 = 5 %). */
+  discountRate: number;
+  gridCo2KgPerKWh?: number;
+  generator?: GeneratorFuel;
+}
+
+/**
+ * The lifetime settings of a project: null without an energy price or without years of service
+ * (nothing to count over the years). Defaults: all year (8760 h), day price 07:00–23:00, discount 0.
+ */
+export function lifetimeSettingsOf(project: Pick<Project, 'running'>): LifetimeSettings | null {
+  const r = project.running;
+  if (r?.energyPricePerKWh === undefined || r.years === undefined) return null;
+  return {
+    dayPricePerKWh: r.energyPricePerKWh,
+    ...(r.nightPricePerKWh !== undefined ? { nightPricePerKWh: r.nightPricePerKWh } : {}),
+    dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR,
+    dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR,
+    hoursPerYear: r.hoursPerYear ?? HOURS_IN_YEAR,
+    years: r.years,
+    discountRate: r.discountRate ?? 0,
+    ...(r.gridCo2KgPerKWh !== undefined ? { gridCo2KgPerKWh: r.gridCo2KgPerKWh } : {}),
+    ...(r.generator !== undefined ? { generator: r.generator } : {}),
+  };
+}
+
+const bad = (field: string, value: unknown, message: string): Problem => ({ code: 'invalid-value', elementId: PROJECT_LEVEL, field, value, message });
+const finite = (v: unknown): v is number => typeof v === 'number' && Number.isFinite(v);
+
+/**
+ * Problems of the lifetime settings (the project's `running.*` fields): the single-field limits of
+ * core/solve/running-schema.ts again (a caller may build settings by hand) and the cross-field
+ * rules the schema cannot state: the day ends after it starts, fuel rises with load.
+ */
+export function checkLifetimeSettings(s: LifetimeSettings): Problem[] {
+  const out: Problem[] = [];
+  const nonNegative = (field: string, v: unknown, what: string) => {
+    if (!finite(v) || v < 0) out.push(bad(field, v, `must be a number of at least 0 (${what})`));
+  };
+  nonNegative('running.energyPricePerKWh', s.dayPricePerKWh, 'a price per kWh');
+  if (s.nightPricePerKWh !== undefined) nonNegative('running.nightPricePerKWh', s.nightPricePerKWh, 'a price per kWh');
+  if (!finite(s.hoursPerYear) || s.hoursPerYear < 0 || s.hoursPerYear > MAX_HOURS_PER_YEAR) out.push(bad('running.hoursPerYear', s.hoursPerYear, 'must be between 0 and 8784 h'));
+  if (!Number.isInteger(s.years) || s.years < 1 || s.years > 100) out.push(bad('running.years', s.years, 'must be a whole number of years from 1 to 100'));
+  if (!finite(s.discountRate) || s.discountRate < 0 || s.discountRate > 1) out.push(bad('running.discountRate', s.discountRate, 'must be between 0 and 100 %'));
+  if (s.gridCo2KgPerKWh !== undefined) nonNegative('running.gridCo2KgPerKWh', s.gridCo2KgPerKWh, 'kg per kWh');
+  const hour = (v: unknown) => finite(v) && v >= 0 && v <= 24;
+  if (!hour(s.dayStartHour)) out.push(bad('running.dayStartHour', s.dayStartHour, 'must be an hour of the day, 0 to 24'));
+  if (!hour(s.dayEndHour)) out.push(bad('running.dayEndHour', s.dayEndHour, 'must be an hour of the day, 0 to 24'));
+  else if (hour(s.dayStartHour) && s.dayEndHour <= s.dayStartHour) out.push(bad('running.dayEndHour', s.dayEndHour, 'must be later than the hour the day price starts'));
+  if (s.generator) out.push(...checkFuelCurve(s.generator));
+  return out;
+}
+
+/** The fuel figures must be positive and must not fall as the load rises (a maker's table never does). */
+function checkFuelCurve(g: GeneratorFuel): Problem[] {
+  const out: Problem[] = [];
+  const points: [keyof GeneratorFuel, unknown][] = [
+    ['quarterLoadLitresPerHour', g.quarterLoadLitresPerHour],
+    ['halfLoadLitresPerHour', g.halfLoadLitresPerHour],
+    ['fullLoadLitresPerHour', g.fullLoadLitresPerHour],
+  ];
+  for (const [k, v] of points) if (!finite(v) || v <= 0) out.push(bad(`running.generator.${k}`, v, 'must be greater than 0 L/h'));
+  if (out.length) return out;
+  if (g.halfLoadLitresPerHour < g.quarterLoadLitresPerHour) out.push(bad('running.generator.halfLoadLitresPerHour', g.halfLoadLitresPerHour, 'must not be less than the fuel at ¼ load (fuel rises with load)'));
+  if (g.fullLoadLitresPerHour < g.halfLoadLitresPerHour) out.push(bad('running.generator.fullLoadLitresPerHour', g.fullLoadLitresPerHour, 'must not be less than the fuel at ½ load (fuel rises with load)'));
+  if (!finite(g.outageHoursPerYear) || g.outageHoursPerYear < 0 || g.outageHoursPerYear > MAX_HOURS_PER_YEAR) out.push(bad('running.generator.outageHoursPerYear', g.outageHoursPerYear, 'must be between 0 and 8784 h'));
+  if (g.ratedPower !== undefined && (!finite(g.ratedPower) || g.ratedPower <= 0)) out.push(bad('running.generator.ratedPower', g.ratedPower, 'must be greater than 0 W'));
+  if (g.outagesPerYear !== undefined && (!Number.isInteger(g.outagesPerYear) || g.outagesPerYear < 0)) out.push(bad('running.generator.outagesPerYear', g.outagesPerYear, 'must be a whole number of at least 0'));
+  if (g.fuelPricePerLitre !== undefined && (!finite(g.fuelPricePerLitre) || g.fuelPricePerLitre < 0)) out.push(bad('running.generator.fuelPricePerLitre', g.fuelPricePerLitre, 'must be a number of at least 0'));
+  return out;
+}
+
+/** The mean energy price over the day, and the hours of the day price (time-weighted mean price). */
+export function meanPrice(s: Pick<LifetimeSettings, 'dayPricePerKWh' | 'nightPricePerKWh' | 'dayStartHour' | 'dayEndHour'>): { pricePerKWh: number; dayHours: number } {
+  if (s.nightPricePerKWh === undefined) return { pricePerKWh: s.dayPricePerKWh, dayHours: 24 };
+  const dayHours = s.dayEndHour - s.dayStartHour;
+  // Time-weighted mean price: p̄ = (h_day·p_day + (24 − h_day)·p_night) / 24.
+  return { pricePerKWh: (dayHours * s.dayPricePerKWh + (24 - dayHours) * s.nightPricePerKWh) / 24, dayHours };
+}
+
+/** Present value of end-of-year costs: Σ_{t=1…N} C_t / (1 + r)^t (present-worth factor). A number is the same cost every year for `years`. */
+export function presentValue(yearly: number | readonly number[], discountRate: number, years?: number): number {
+  const n = typeof yearly === 'number' ? (years ?? 0) : yearly.length;
+  let sum = 0;
+  for (let t = 1; t <= n; t++) sum += (typeof yearly === 'number' ? yearly : yearly[t - 1]!) / (1 + discountRate) ** t;
+  return sum;
+}
+
+/** Lifetime cost as net present value: NPV = purchase + Σ_{t=1…N} C_t / (1 + r)^t. */
+export function netPresentValue(purchase: number, yearly: number | readonly number[], discountRate: number, years?: number): number {
+  return purchase + presentValue(yearly, discountRate, years);
+}
+
+/** An option's costs: the purchase at year 0 and the cost of each year of service (year 1 first). */
+export interface CostStream {
+  purchase: number;
+  yearly: readonly number[];
+}
+
+export interface BreakEven {
+  /** Which option costs more to buy ('a', 'b'), or null when both cost the same. */
+  dearerToBuy: 'a' | 'b' | null;
+  /** Simple payback of the dearer option, years (extra purchase ÷ mean yearly saving); null without a saving. */
+  simplePaybackYears: number | null;
+  /** First whole year at which the dearer option's cumulative present value is no more than the other's; null when never within the years given. */
+  breakEvenYear: number | null;
+  /** Lifetime cost (NPV) of each option over the longer of the two streams. */
+  npvA: number;
+  npvB: number;
+}
+
+/**
+ * Payback and break-even between two options given as cost streams (the variants of a project
+ * give one each). Simple payback: Δpurchase / mean yearly saving, undiscounted. Break-even year:
+ * cumulative present value, Σ purchase + C_t/(1 + r)^t year by year, the first year the dearer
+ * option is no longer behind. Years past the end of a shorter stream cost 0.
+ */
+export function breakEven(a: CostStream, b: CostStream, discountRate: number): BreakEven {
+  const n = Math.max(a.yearly.length, b.yearly.length);
+  const at = (s: CostStream, t: number) => s.yearly[t - 1] ?? 0;
+  const npvA = netPresentValue(a.purchase, Array.from({ length: n }, (_, i) => at(a, i + 1)), discountRate);
+  const npvB = netPresentValue(b.purchase, Array.from({ length: n }, (_, i) => at(b, i + 1)), discountRate);
+  const dearerToBuy = a.purchase > b.purchase ? 'a' : b.purchase > a.purchase ? 'b' : null;
+  if (dearerToBuy === null) return { dearerToBuy, simplePaybackYears: null, breakEvenYear: null, npvA, npvB };
+  const [dear, cheap] = dearerToBuy === 'a' ? [a, b] : [b, a];
+  const extra = dear.purchase - cheap.purchase;
+  let saved = 0;
+  for (let t = 1; t <= n; t++) saved += at(cheap, t) - at(dear, t);
+  const meanSaving = n > 0 ? saved / n : 0;
+  const simplePaybackYears = meanSaving > 0 ? extra / meanSaving : null;
+  let gap = extra; // present value by which the dearer option is behind
+  let breakEvenYear: number | null = null;
+  for (let t = 1; t <= n; t++) {
+    gap -= (at(cheap, t) - at(dear, t)) / (1 + discountRate) ** t;
+    // A gap within round-off of zero (1e-9 of the sums) counts as caught up.
+    if (gap <= 1e-9 * Math.max(1, Math.abs(dear.purchase), Math.abs(cheap.purchase))) {
+      breakEvenYear = t;
+      break;
+    }
+  }
+  return { dearerToBuy, simplePaybackYears, breakEvenYear, npvA, npvB };
+}
+
+/** The fuel curve as three points of (load fraction, L/h). */
+function fuelPoints(g: Pick<GeneratorFuel, 'quarterLoadLitresPerHour' | 'halfLoadLitresPerHour' | 'fullLoadLitresPerHour'>): [number, number][] {
+  return [
+    [0.25, g.quarterLoadLitresPerHour],
+    [0.5, g.halfLoadLitresPerHour],
+    [1, g.fullLoadLitresPerHour],
+  ];
+}
+
+/**
+ * Fuel rate at a load fraction (L/h): piecewise-linear interpolation between the ¼, ½ and full-load
+ * points; below ¼ the ¼–½ line extended towards no load (never below 0). Null above full load
+ * (the generator would be overloaded; the maker's table ends there).
+ */
+export function fuelRate(g: Pick<GeneratorFuel, 'quarterLoadLitresPerHour' | 'halfLoadLitresPerHour' | 'fullLoadLitresPerHour'>, loadFraction: number): number | null {
+  if (!(loadFraction >= 0) || loadFraction > 1 + 1e-9) return null;
+  const p = fuelPoints(g);
+  const seg = loadFraction <= 0.5 ? [p[0]!, p[1]!] : [p[1]!, p[2]!];
+  const [[x0, y0], [x1, y1]] = seg as [[number, number], [number, number]];
+  return Math.max(0, y0 + ((y1 - y0) * (loadFraction - x0)) / (x1 - x0));
+}
+
+/** One stretch of the generator's year: its output power, hours a year, and the fuel it burns. */
+export interface FuelRun {
+  what: 'outages' | 'recharges';
+  powerW: number;
+  hoursPerYear: number;
+  loadFraction: number;
+  litresPerHour: number;
+  litresPerYear: number;
+}
+
+export interface GeneratorYear {
+  ratedPowerW: number;
+  /** Where the rated power came from: the settings, or the generator's VA rating × 0.8. */
+  ratedPowerFrom: 'settings' | 'generator rating';
+  runs: FuelRun[];
+  litresPerYear: number;
+  /** Fuel cost a year, when a fuel price is given. */
+  fuelCostPerYear?: number;
+}
+
+/** The recharge after one outage, as the battery backup study gives it (core/studies/backup/recharge.ts). */
+export interface RechargeRun {
+  /** AC energy the charger draws over one recharge, Wh. */
+  energyWh: number;
+  /** Time of one recharge, s. */
+  timeSeconds: number;
+}
+
+/** The generator's fuel over a year (fuel curve interpolated per run, rate × hours summed). */
+export function generatorFuelPerYear(
+  g: GeneratorFuel,
+  ratedPowerW: number,
+  runs: readonly { what: FuelRun['what']; powerW: number; hoursPerYear: number }[],
+): { ok: true; fuel: Omit<GeneratorYear, 'ratedPowerFrom'> } | { ok: false; problems: Problem[] } {
+  const out: FuelRun[] = [];
+  for (const r of runs) {
+    const loadFraction = Math.max(0, r.powerW) / ratedPowerW;
+    const rate = fuelRate(g, loadFraction);
+    if (rate === null) {
+      return {
+        ok: false,
+        problems: [bad('running.generator.ratedPower', ratedPowerW, `is below the ${sigText(r.powerW / 1000, 3)} kW the generator carries through the ${r.what} (${sigText(loadFraction * 100, 3)} % of its rating): the fuel table ends at full load`)],
+      };
+    }
+    out.push({ ...r, loadFraction, litresPerHour: rate, litresPerYear: rate * r.hoursPerYear });
+  }
+  const litresPerYear = out.reduce((s, r) => s + r.litresPerYear, 0);
+  return { ok: true, fuel: { ratedPowerW, runs: out, litresPerYear, ...(g.fuelPricePerLitre !== undefined ? { fuelCostPerYear: litresPerYear * g.fuelPricePerLitre } : {}) } };
+}
+
+/** The cost over the years of one solved chain (`lifetimeCost`). */
+export interface LifetimeCost {
+  /** Mean price per kWh under the tariff and the day-price hours (24 without a night price). */
+  pricePerKWh: number;
+  dayHours: number;
+  hoursPerYear: number;
+  years: number;
+  discountRate: number;
+  /** The losses' yearly energy and cost at the mean price, per element (core/studies/economics.ts). */
+  losses: LossCost;
+  /** Sum of the elements' purchase prices, and the elements without one (by name). */
+  purchase: number;
+  priced: { name: string; price: number }[];
+  unpriced: string[];
+  /** Yearly cost counted in the lifetime: the losses' energy, plus the generator's fuel when a fuel price is given. */
+  yearlyCost: number;
+  /** Net present value: purchase + Σ yearly cost / (1 + r)^t, t = 1…N. */
+  npv: number;
+  /** The losses' CO₂ a year, kg (with a grid factor). */
+  co2KgPerYear?: number;
+  generator?: GeneratorYear;
+  /** What was assumed, in words (the hours spread over the day, what the generator carries). */
+  notes: string[];
+}
+
+export type LifetimeOutcome = { ok: true; cost: LifetimeCost } | { ok: false; problems: Problem[] };
+
+/**
+ * The cost over the years of a solved chain, the entry the page and the variants call:
+ * purchase (Σ element prices), the losses' yearly energy and cost under the tariff, their CO₂,
+ * the generator's fuel, and the lifetime cost (NPV). `settings` defaults to the project's own
+ * (`lifetimeSettingsOf`); `recharge` is the backup study's recharge after one outage, when known.
+ */
+export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null, recharge?: RechargeRun): LifetimeOutcome {
+  const s = settings ?? lifetimeSettingsOf(solved.project);
+  if (!s) return { ok: false, problems: [bad('running.years', undefined, 'are needed, with the energy price, for the cost over the years')] };
+  const problems = checkLifetimeSettings(s);
+  if (problems.length) return { ok: false, problems };
+  const { pricePerKWh, dayHours } = meanPrice(s);
+  const lc = lossCostPerYear(solved.result, { pricePerKWh, hoursPerYear: s.hoursPerYear });
+  if (!lc.ok) return lc;
+  const names = new Map(solved.result.elements.map((e) => [e.id, e.name]));
+  const priced: { name: string; price: number }[] = [];
+  const unpriced: string[] = [];
+  for (const e of solved.project.elements) {
+    const name = names.get(e.id) ?? e.name ?? e.id;
+    if (e.price !== undefined) priced.push({ name, price: e.price });
+    else unpriced.push(name);
+  }
+  const purchase = priced.reduce((sum, p) => sum + p.price, 0);
+  const notes = [
+    s.nightPricePerKWh !== undefined
+      ? `mean price ${sigText(pricePerKWh, 4)} per kWh: the day price for ${sigText(dayHours, 3)} h, the night price for ${sigText(24 - dayHours, 3)} h, the ${sigText(s.hoursPerYear, 5)} h a year spread evenly over the day`
+      : `one price, ${sigText(pricePerKWh, 4)} per kWh, for the ${sigText(s.hoursPerYear, 5)} h a year at this load`,
+  ];
+  let generator: GeneratorYear | undefined;
+  if (s.generator) {
+    const g = s.generator;
+    const root = solved.project.elements.find((e) => !('from' in e) || e.from === undefined);
+    const rootResult = solved.result.elements.find((e) => e.role === 'source');
+    const ratedFromGen = root?.kind === 'generator' && root.ratedApparentPower !== undefined ? root.ratedApparentPower * GENERATOR_RATED_POWER_FACTOR : undefined;
+    const ratedPowerW = g.ratedPower ?? ratedFromGen;
+    if (ratedPowerW === undefined) return { ok: false, problems: [bad('running.generator.ratedPower', undefined, 'is needed: the chain\'s source is not a generator with a rating to take it from')] };
+    const runs: { what: FuelRun['what']; powerW: number; hoursPerYear: number }[] = [];
+    // The generator carries the chain through the outages when it feeds the chain (its source is the supply or the generator itself).
+    if ((root?.kind === 'grid' || root?.kind === 'generator') && rootResult) runs.push({ what: 'outages', powerW: rootResult.pOut, hoursPerYear: g.outageHoursPerYear });
+    else notes.push('the bank carries the outages; the generator runs only the recharges');
+    const outages = g.outagesPerYear ?? 0;
+    if (recharge && outages > 0 && recharge.timeSeconds > 0) {
+      const hours = recharge.timeSeconds / 3600;
+      runs.push({ what: 'recharges', powerW: recharge.energyWh / hours, hoursPerYear: hours * outages });
+    } else if (outages > 0) notes.push('no recharge counted: the battery backup study gives none (it needs a charger current)');
+    const fuel = generatorFuelPerYear(g, ratedPowerW, runs);
+    if (!fuel.ok) return fuel;
+    generator = { ...fuel.fuel, ratedPowerFrom: g.ratedPower !== undefined ? 'settings' : 'generator rating' };
+    if (g.ratedPower === undefined) notes.push(`generator rated power ${sigText(ratedPowerW / 1000, 4)} kW: its rating in kVA × 0.8, the rated power factor of generating sets`);
+  }
+  const yearlyCost = lc.cost.totalCost + (generator?.fuelCostPerYear ?? 0);
+  const npv = netPresentValue(purchase, yearlyCost, s.discountRate, s.years);
+  return {
+    ok: true,
+    cost: {
+      pricePerKWh,
+      dayHours,
+      hoursPerYear: s.hoursPerYear,
+      years: s.years,
+      discountRate: s.discountRate,
+      losses: lc.cost,
+      purchase,
+      priced,
+      unpriced,
+      yearlyCost,
+      npv,
+      ...(s.gridCo2KgPerKWh !== undefined ? { co2KgPerYear: lc.cost.totalEnergyKWh * s.gridCo2KgPerKWh } : {}),
+      ...(generator ? { generator } : {}),
+      notes,
+    },
+  };
+}
+
+/** An option's cost stream from its lifetime cost: the purchase and the same yearly cost for each year of service. */
+export function costStream(c: LifetimeCost): CostStream {
+  return { purchase: c.purchase, yearly: Array.from({ length: c.years }, () => c.yearlyCost) };
+}
+
+/** Payback and break-even between two solved options under one set of settings (the variants call it). */
+export function compareLifetime(a: LifetimeCost, b: LifetimeCost): BreakEven {
+  return breakEven(costStream(a), costStream(b), a.discountRate);
+}
+
+/** The cost over the years as plain text (the command line; money without a currency symbol, the file holds none). */
+export function formatLifetimeCost(c: LifetimeCost): string {
+  const money = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toFixed(2));
+  const lines = ['Cost over the years:'];
+  lines.push(`  Losses: ${sigText(c.losses.totalEnergyKWh, 4)} kWh a year, costing ${money(c.losses.totalCost)} a year (${c.notes[0]})`);
+  if (c.co2KgPerYear !== undefined) lines.push(`  CO₂ of the losses: ${sigText(c.co2KgPerYear, 4)} kg a year (losses' energy × the grid factor entered)`);
+  if (c.generator) {
+    const g = c.generator;
+    for (const r of g.runs) {
+      lines.push(`  Generator through the ${r.what}: ${sigText(r.powerW / 1000, 4)} kW (${sigText(r.loadFraction * 100, 3)} % of ${sigText(g.ratedPowerW / 1000, 4)} kW) for ${sigText(r.hoursPerYear, 4)} h a year: ${sigText(r.litresPerHour, 4)} L/h, ${sigText(r.litresPerYear, 4)} L a year`);
+    }
+    lines.push(`  Generator fuel: ${sigText(g.litresPerYear, 4)} L a year (fuel table interpolated linearly between ¼, ½ and full load)${g.fuelCostPerYear !== undefined ? `, costing ${money(g.fuelCostPerYear)} a year` : ''}`);
+  }
+  lines.push(`  Purchase: ${money(c.purchase)}${c.priced.length ? ` (${c.priced.length} priced element${c.priced.length === 1 ? '' : 's'})` : ''}${c.unpriced.length ? `; no price given for ${c.unpriced.map((n) => `"${n}"`).join(', ')}` : ''}`);
+  lines.push(`  Yearly cost counted: ${money(c.yearlyCost)}`);
+  lines.push(
+    `  Lifetime cost over ${c.years} year${c.years === 1 ? '' : 's'} at ${sigText(c.discountRate * 100, 3)} % a year: ${money(c.npv)} (net present value: purchase + Σ yearly cost ÷ (1 + r)^t, t = 1…${c.years})`,
+  );
+  for (const n of c.notes.slice(1)) lines.push(`  Note: ${n}`);
+  return lines.join('\n');
+}
