@@ -16,6 +16,7 @@ import { formatPfCorrection, pfCorrectionJson } from '../studies/pf/text-report.
 import { hasPumpSections, machineSections } from './machines-flags.ts';
 import { formatSurgeStudy, hasSurgeInputs, studySurges, type SurgeStudyResult } from '../studies/surge/index.ts';
 import { costSettingsOf, formatLossCost, lossCostPerYear, pumpDutyCosts, type LossCost, type MethodCosts } from '../studies/economics.ts';
+import { formatLifetimeCost, lifetimeCost, lifetimeSettingsOf, type LifetimeCost } from '../studies/lifetime.ts';
 import type { CliRequest } from './args.ts';
 import type { ProjectLine } from './summary.ts';
 
@@ -97,6 +98,17 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
     const bad = nonFinite('the yearly cost of the losses cannot be shown:', 'The yearly cost of the losses', { lossCost, pumpDutyCost });
     if (bad) return bad;
   }
+  // The cost over the years, when the project gives the years of service beside the price (core/studies/lifetime.ts).
+  let lifetime: LifetimeCost | undefined;
+  const lifeSettings = lifetimeSettingsOf(outcome.project);
+  if (lifeSettings) {
+    const rc = study?.recharge;
+    const l = lifetimeCost(outcome, lifeSettings, rc ? { energyWh: rc.acInputEnergyWh, timeSeconds: rc.time } : undefined);
+    if (!l.ok) return refused(file, 'the cost over the years cannot be worked out:', l.problems, projectName, data);
+    lifetime = l.cost;
+    const bad = nonFinite('the cost over the years cannot be shown:', 'The cost over the years', lifetime);
+    if (bad) return bad;
+  }
   const run = study?.discharge;
   const line: ProjectLine = {
     file,
@@ -108,10 +120,10 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   // The profile's first day (the editor's preview), beside the study: `profileDay` in the JSON.
   const day = study && req.output !== 'summary' && req.output !== 'csv' ? profileDay(outcome.project, outcome.project.backup, outcome.result) : undefined;
   if (req.output === 'json') {
-    const extra = { ...(study ? { backupStudy: study } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}) };
+    const extra = { ...(study ? { backupStudy: study } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}), ...(lifetime ? { lifetimeCost: lifetime } : {}) };
     text = `${JSON.stringify({ ...outcome.result, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${formatResult(outcome.result)}\n${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}`;
+    text = `${formatResult(outcome.result)}\n${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}`;
   }
   return { ok: true, text, line };
 }

@@ -331,7 +331,7 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "running.generator.quarterLoadLitresPerHour": "Generator fuel at ¼ load (L/h)",
     "running.generator.halfLoadLitresPerHour": "Generator fuel at ½ load (L/h)",
     "running.generator.fullLoadLitresPerHour": "Generator fuel at full load (L/h)",
-    "running.generator.ratedPower": "Generator rated power (kW)",
+    "running.generator.ratedPower": "Generator rated power",
     "running.generator.outageHoursPerYear": "Outage hours per year",
     "running.generator.outagesPerYear": "Outages per year",
     "running.generator.fuelPricePerLitre": "Fuel price per litre",

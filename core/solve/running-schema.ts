@@ -37,7 +37,13 @@ export const generatorFuelSchema = z.strictObject({
   ),
   outagesPerYear: z.optional(num().check(z.int('must be a whole number'), z.gte(0, 'must not be negative'), z.lte(MAX_HOURS_PER_YEAR, 'must not exceed 8784 (one an hour)'))),
   fuelPricePerLitre: z.optional(price('a price per litre in your currency')),
-});
+}).check(
+  // Fuel rises with load in every maker's table: a falling figure is a typing slip.
+  z.superRefine((g, ctx) => {
+    if (g.halfLoadLitresPerHour < g.quarterLoadLitresPerHour) ctx.addIssue({ code: 'custom', message: 'must not be less than the fuel at ¼ load (fuel rises with load)', path: ['halfLoadLitresPerHour'], input: g.halfLoadLitresPerHour });
+    if (g.fullLoadLitresPerHour < g.halfLoadLitresPerHour) ctx.addIssue({ code: 'custom', message: 'must not be less than the fuel at ½ load (fuel rises with load)', path: ['fullLoadLitresPerHour'], input: g.fullLoadLitresPerHour });
+  }),
+);
 
 /** Schema of the lifetime settings that sit beside the price and hours in `running`. */
 export const lifetimeSchemaShape = {
@@ -63,4 +69,11 @@ export const runningSchema = z.strictObject({
     ),
   ),
   ...lifetimeSchemaShape,
-});
+}).check(
+  // The day price runs from its start to its end hour within one day (default 7 to 23).
+  z.superRefine((r, ctx) => {
+    if ((r.dayEndHour ?? 23) > (r.dayStartHour ?? 7)) return;
+    if (r.dayEndHour === undefined) ctx.addIssue({ code: 'custom', message: 'must be earlier than the hour the day price ends (23 when not given)', path: ['dayStartHour'], input: r.dayStartHour });
+    else ctx.addIssue({ code: 'custom', message: 'must be later than the hour the day price starts (7 when not given)', path: ['dayEndHour'], input: r.dayEndHour });
+  }),
+);

@@ -27,12 +27,12 @@ import { PROJECT_LEVEL } from '../model/errors.ts';
 import type { GeneratorFuel, Project } from '../model/project.ts';
 import type { Solved } from '../solve/solved.ts';
 import { sigText } from '../model/message.ts';
+import { elementWords } from '../model/field-labels.ts';
 import { HOURS_IN_YEAR, MAX_HOURS_PER_YEAR } from '../solve/running-schema.ts';
-import { lossCostPerYear, type LossCost } from './economics.ts';
+import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, lossCostPerYear, meanPrice, type LossCost } from './economics.ts';
 
-/** Default day-price hours (common practice (no source): many two-rate tariffs run their night rate from about 23:00 to 07:00). */
-export const DEFAULT_DAY_START_HOUR = 7;
-export const DEFAULT_DAY_END_HOUR = 23;
+// The tariff's mean price and default day hours live with the yearly cost (economics.ts), which prices by them too.
+export { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, meanPrice };
 /**
  * Rated power factor of a generating set: its real-power rating is its VA rating × 0.8 (ISO 8528-1
  * rates generating sets at a lagging power factor of 0.8; from memory).
@@ -118,14 +118,6 @@ function checkFuelCurve(g: GeneratorFuel): Problem[] {
   if (g.outagesPerYear !== undefined && (!Number.isInteger(g.outagesPerYear) || g.outagesPerYear < 0)) out.push(bad('running.generator.outagesPerYear', g.outagesPerYear, 'must be a whole number of at least 0'));
   if (g.fuelPricePerLitre !== undefined && (!finite(g.fuelPricePerLitre) || g.fuelPricePerLitre < 0)) out.push(bad('running.generator.fuelPricePerLitre', g.fuelPricePerLitre, 'must be a number of at least 0'));
   return out;
-}
-
-/** The mean energy price over the day, and the hours of the day price (time-weighted mean price). */
-export function meanPrice(s: Pick<LifetimeSettings, 'dayPricePerKWh' | 'nightPricePerKWh' | 'dayStartHour' | 'dayEndHour'>): { pricePerKWh: number; dayHours: number } {
-  if (s.nightPricePerKWh === undefined) return { pricePerKWh: s.dayPricePerKWh, dayHours: 24 };
-  const dayHours = s.dayEndHour - s.dayStartHour;
-  // Time-weighted mean price: p̄ = (h_day·p_day + (24 − h_day)·p_night) / 24.
-  return { pricePerKWh: (dayHours * s.dayPricePerKWh + (24 - dayHours) * s.nightPricePerKWh) / 24, dayHours };
 }
 
 /** Present value of end-of-year costs: Σ_{t=1…N} C_t / (1 + r)^t (present-worth factor). A number is the same cost every year for `years`. */
@@ -275,8 +267,8 @@ export interface LifetimeCost {
   losses: LossCost;
   /** Sum of the elements' purchase prices, and the elements without one (by name). */
   purchase: number;
-  priced: { name: string; price: number }[];
-  unpriced: string[];
+  priced: { id: string; name: string; price: number }[];
+  unpriced: { id: string; name: string }[];
   /** Yearly cost counted in the lifetime: the losses' energy, plus the generator's fuel when a fuel price is given. */
   yearlyCost: number;
   /** Net present value: purchase + Σ yearly cost / (1 + r)^t, t = 1…N. */
@@ -304,13 +296,14 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
   const { pricePerKWh, dayHours } = meanPrice(s);
   const lc = lossCostPerYear(solved.result, { pricePerKWh, hoursPerYear: s.hoursPerYear });
   if (!lc.ok) return lc;
-  const names = new Map(solved.result.elements.map((e) => [e.id, e.name]));
-  const priced: { name: string; price: number }[] = [];
-  const unpriced: string[] = [];
+  // Elements named as messages name them: their name, or the kind's label and place ("Utility supply #1").
+  const { names } = elementWords(solved.project);
+  const priced: { id: string; name: string; price: number }[] = [];
+  const unpriced: { id: string; name: string }[] = [];
   for (const e of solved.project.elements) {
-    const name = names.get(e.id) ?? e.name ?? e.id;
-    if (e.price !== undefined) priced.push({ name, price: e.price });
-    else unpriced.push(name);
+    const name = names.get(e.id) ?? e.id;
+    if (e.price !== undefined) priced.push({ id: e.id, name, price: e.price });
+    else unpriced.push({ id: e.id, name });
   }
   const purchase = priced.reduce((sum, p) => sum + p.price, 0);
   const notes = [
@@ -386,7 +379,7 @@ export function formatLifetimeCost(c: LifetimeCost): string {
     }
     lines.push(`  Generator fuel: ${sigText(g.litresPerYear, 4)} L a year (fuel table interpolated linearly between ¼, ½ and full load)${g.fuelCostPerYear !== undefined ? `, costing ${money(g.fuelCostPerYear)} a year` : ''}`);
   }
-  lines.push(`  Purchase: ${money(c.purchase)}${c.priced.length ? ` (${c.priced.length} priced element${c.priced.length === 1 ? '' : 's'})` : ''}${c.unpriced.length ? `; no price given for ${c.unpriced.map((n) => `"${n}"`).join(', ')}` : ''}`);
+  lines.push(`  Purchase: ${money(c.purchase)}${c.priced.length ? ` (${c.priced.length} priced element${c.priced.length === 1 ? '' : 's'})` : ''}${c.unpriced.length ? `; no price given for ${c.unpriced.map((n) => `"${n.name}"`).join(', ')}` : ''}`);
   lines.push(`  Yearly cost counted: ${money(c.yearlyCost)}`);
   lines.push(
     `  Lifetime cost over ${c.years} year${c.years === 1 ? '' : 's'} at ${sigText(c.discountRate * 100, 3)} % a year: ${money(c.npv)} (net present value: purchase + Σ yearly cost ÷ (1 + r)^t, t = 1…${c.years})`,
