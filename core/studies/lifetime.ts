@@ -321,8 +321,10 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
     if (ratedPowerW === undefined) return { ok: false, problems: [bad('running.generator.ratedPower', undefined, 'is needed: the chain\'s source is not a generator with a rating to take it from')] };
     const runs: { what: FuelRun['what']; powerW: number; hoursPerYear: number }[] = [];
     // The generator carries the chain through the outages when it feeds the chain (its source is the supply or the generator itself).
-    if ((root?.kind === 'grid' || root?.kind === 'generator') && rootResult) runs.push({ what: 'outages', powerW: rootResult.pOut, hoursPerYear: g.outageHoursPerYear });
-    else notes.push('the bank carries the outages; the generator runs only the recharges');
+    if ((root?.kind === 'grid' || root?.kind === 'generator') && rootResult) {
+      runs.push({ what: 'outages', powerW: rootResult.pOut, hoursPerYear: g.outageHoursPerYear });
+      if (root.kind === 'grid' && g.outageHoursPerYear > 0) notes.push('the losses are priced at the energy price for all their hours, outages included (the generator\'s fuel is counted beside them)');
+    } else notes.push('the bank carries the outages; the generator runs only the recharges');
     const outages = g.outagesPerYear ?? 0;
     if (recharge && outages > 0 && recharge.timeSeconds > 0) {
       const hours = recharge.timeSeconds / 3600;
@@ -364,6 +366,20 @@ export function costStream(c: LifetimeCost): CostStream {
 /** Payback and break-even between two solved options under one set of settings (the variants call it). */
 export function compareLifetime(a: LifetimeCost, b: LifetimeCost): BreakEven {
   return breakEven(costStream(a), costStream(b), a.discountRate);
+}
+
+/**
+ * Payback and break-even between two solved options (two variants of a project): each one's
+ * lifetime cost under the same settings (default: the first option's project's own), then
+ * `compareLifetime`. Refused with the first refusal's problems.
+ */
+export function compareSolved(a: Solved, b: Solved, settings?: LifetimeSettings | null): { ok: true; a: LifetimeCost; b: LifetimeCost; comparison: BreakEven } | { ok: false; problems: Problem[] } {
+  const s = settings ?? lifetimeSettingsOf(a.project);
+  const la = lifetimeCost(a, s);
+  if (!la.ok) return la;
+  const lb = lifetimeCost(b, s);
+  if (!lb.ok) return lb;
+  return { ok: true, a: la.cost, b: lb.cost, comparison: compareLifetime(la.cost, lb.cost) };
 }
 
 /** The cost over the years as plain text (the command line; money without a currency symbol, the file holds none). */

@@ -17,6 +17,7 @@ import {
   breakEven,
   checkLifetimeSettings,
   compareLifetime,
+  compareSolved,
   fuelRate,
   generatorFuelPerYear,
   lifetimeCost,
@@ -238,6 +239,10 @@ describe('lifetimeCost of a solved chain', () => {
     expect(r.breakEvenYear).toBe(2);
     // The option against itself: no break-even.
     expect(compareLifetime(a.cost, a.cost).breakEvenYear).toBeNull();
+    // The same from the two solved values, under the first one's settings.
+    const both = compareSolved(solved(plain), better);
+    expect(both.ok && both.comparison).toMatchObject({ dearerToBuy: 'b', breakEvenYear: 2 });
+    expect(both.ok && both.b.purchase).toBe(600);
   });
   it('no years, no lifetime: the settings are null and the demos have none', () => {
     expect(lifetimeSettingsOf({ running: { energyPricePerKWh: 0.3 } })).toBeNull();
