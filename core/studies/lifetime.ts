@@ -30,6 +30,13 @@ import { sigText } from '../model/message.ts';
 import { elementWords } from '../model/field-labels.ts';
 import { HOURS_IN_YEAR, MAX_HOURS_PER_YEAR } from '../solve/running-schema.ts';
 import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, lossCostPerYear, meanPrice, type LossCost } from './economics.ts';
+import { breakEven, netPresentValue, type BreakEven, type CostStream } from './lifetime-money.ts';
+import { generatorFuelPerYear, type FuelRun, type GeneratorYear, type RechargeRun } from './lifetime-fuel.ts';
+
+// Its parts: money over time (lifetime-money.ts), the generator's fuel (lifetime-fuel.ts), the text (lifetime-text.ts).
+export { breakEven, netPresentValue, presentValue, type BreakEven, type CostStream } from './lifetime-money.ts';
+export { fuelRate, generatorFuelPerYear, type FuelRun, type GeneratorYear, type RechargeRun } from './lifetime-fuel.ts';
+export { formatLifetimeCost } from './lifetime-text.ts';
 
 // The tariff's mean price and default day hours live with the yearly cost (economics.ts), which prices by them too.
 export { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, meanPrice };
@@ -118,141 +125,6 @@ function checkFuelCurve(g: GeneratorFuel): Problem[] {
   if (g.outagesPerYear !== undefined && (!Number.isInteger(g.outagesPerYear) || g.outagesPerYear < 0)) out.push(bad('running.generator.outagesPerYear', g.outagesPerYear, 'must be a whole number of at least 0'));
   if (g.fuelPricePerLitre !== undefined && (!finite(g.fuelPricePerLitre) || g.fuelPricePerLitre < 0)) out.push(bad('running.generator.fuelPricePerLitre', g.fuelPricePerLitre, 'must be a number of at least 0'));
   return out;
-}
-
-/** Present value of end-of-year costs: Σ_{t=1…N} C_t / (1 + r)^t (present-worth factor). A number is the same cost every year for `years`. */
-export function presentValue(yearly: number | readonly number[], discountRate: number, years?: number): number {
-  const n = typeof yearly === 'number' ? (years ?? 0) : yearly.length;
-  let sum = 0;
-  for (let t = 1; t <= n; t++) sum += (typeof yearly === 'number' ? yearly : yearly[t - 1]!) / (1 + discountRate) ** t;
-  return sum;
-}
-
-/** Lifetime cost as net present value: NPV = purchase + Σ_{t=1…N} C_t / (1 + r)^t. */
-export function netPresentValue(purchase: number, yearly: number | readonly number[], discountRate: number, years?: number): number {
-  return purchase + presentValue(yearly, discountRate, years);
-}
-
-/** An option's costs: the purchase at year 0 and the cost of each year of service (year 1 first). */
-export interface CostStream {
-  purchase: number;
-  yearly: readonly number[];
-}
-
-export interface BreakEven {
-  /** Which option costs more to buy ('a', 'b'), or null when both cost the same. */
-  dearerToBuy: 'a' | 'b' | null;
-  /** Simple payback of the dearer option, years (extra purchase ÷ mean yearly saving); null without a saving. */
-  simplePaybackYears: number | null;
-  /** First whole year at which the dearer option's cumulative present value is no more than the other's; null when never within the years given. */
-  breakEvenYear: number | null;
-  /** Lifetime cost (NPV) of each option over the longer of the two streams. */
-  npvA: number;
-  npvB: number;
-}
-
-/**
- * Payback and break-even between two options given as cost streams (the variants of a project
- * give one each). Simple payback: Δpurchase / mean yearly saving, undiscounted. Break-even year:
- * cumulative present value, Σ purchase + C_t/(1 + r)^t year by year, the first year the dearer
- * option is no longer behind. Years past the end of a shorter stream cost 0.
- */
-export function breakEven(a: CostStream, b: CostStream, discountRate: number): BreakEven {
-  const n = Math.max(a.yearly.length, b.yearly.length);
-  const at = (s: CostStream, t: number) => s.yearly[t - 1] ?? 0;
-  const npvA = netPresentValue(a.purchase, Array.from({ length: n }, (_, i) => at(a, i + 1)), discountRate);
-  const npvB = netPresentValue(b.purchase, Array.from({ length: n }, (_, i) => at(b, i + 1)), discountRate);
-  const dearerToBuy = a.purchase > b.purchase ? 'a' : b.purchase > a.purchase ? 'b' : null;
-  if (dearerToBuy === null) return { dearerToBuy, simplePaybackYears: null, breakEvenYear: null, npvA, npvB };
-  const [dear, cheap] = dearerToBuy === 'a' ? [a, b] : [b, a];
-  const extra = dear.purchase - cheap.purchase;
-  let saved = 0;
-  for (let t = 1; t <= n; t++) saved += at(cheap, t) - at(dear, t);
-  const meanSaving = n > 0 ? saved / n : 0;
-  const simplePaybackYears = meanSaving > 0 ? extra / meanSaving : null;
-  let gap = extra; // present value by which the dearer option is behind
-  let breakEvenYear: number | null = null;
-  for (let t = 1; t <= n; t++) {
-    gap -= (at(cheap, t) - at(dear, t)) / (1 + discountRate) ** t;
-    // A gap within round-off of zero (1e-9 of the sums) counts as caught up.
-    if (gap <= 1e-9 * Math.max(1, Math.abs(dear.purchase), Math.abs(cheap.purchase))) {
-      breakEvenYear = t;
-      break;
-    }
-  }
-  return { dearerToBuy, simplePaybackYears, breakEvenYear, npvA, npvB };
-}
-
-/** The fuel curve as three points of (load fraction, L/h). */
-function fuelPoints(g: Pick<GeneratorFuel, 'quarterLoadLitresPerHour' | 'halfLoadLitresPerHour' | 'fullLoadLitresPerHour'>): [number, number][] {
-  return [
-    [0.25, g.quarterLoadLitresPerHour],
-    [0.5, g.halfLoadLitresPerHour],
-    [1, g.fullLoadLitresPerHour],
-  ];
-}
-
-/**
- * Fuel rate at a load fraction (L/h): piecewise-linear interpolation between the ¼, ½ and full-load
- * points; below ¼ the ¼–½ line extended towards no load (never below 0). Null above full load
- * (the generator would be overloaded; the maker's table ends there).
- */
-export function fuelRate(g: Pick<GeneratorFuel, 'quarterLoadLitresPerHour' | 'halfLoadLitresPerHour' | 'fullLoadLitresPerHour'>, loadFraction: number): number | null {
-  if (!(loadFraction >= 0) || loadFraction > 1 + 1e-9) return null;
-  const p = fuelPoints(g);
-  const seg = loadFraction <= 0.5 ? [p[0]!, p[1]!] : [p[1]!, p[2]!];
-  const [[x0, y0], [x1, y1]] = seg as [[number, number], [number, number]];
-  return Math.max(0, y0 + ((y1 - y0) * (loadFraction - x0)) / (x1 - x0));
-}
-
-/** One stretch of the generator's year: its output power, hours a year, and the fuel it burns. */
-export interface FuelRun {
-  what: 'outages' | 'recharges';
-  powerW: number;
-  hoursPerYear: number;
-  loadFraction: number;
-  litresPerHour: number;
-  litresPerYear: number;
-}
-
-export interface GeneratorYear {
-  ratedPowerW: number;
-  /** Where the rated power came from: the settings, or the generator's VA rating × 0.8. */
-  ratedPowerFrom: 'settings' | 'generator rating';
-  runs: FuelRun[];
-  litresPerYear: number;
-  /** Fuel cost a year, when a fuel price is given. */
-  fuelCostPerYear?: number;
-}
-
-/** The recharge after one outage, as the battery backup study gives it (core/studies/backup/recharge.ts). */
-export interface RechargeRun {
-  /** AC energy the charger draws over one recharge, Wh. */
-  energyWh: number;
-  /** Time of one recharge, s. */
-  timeSeconds: number;
-}
-
-/** The generator's fuel over a year (fuel curve interpolated per run, rate × hours summed). */
-export function generatorFuelPerYear(
-  g: GeneratorFuel,
-  ratedPowerW: number,
-  runs: readonly { what: FuelRun['what']; powerW: number; hoursPerYear: number }[],
-): { ok: true; fuel: Omit<GeneratorYear, 'ratedPowerFrom'> } | { ok: false; problems: Problem[] } {
-  const out: FuelRun[] = [];
-  for (const r of runs) {
-    const loadFraction = Math.max(0, r.powerW) / ratedPowerW;
-    const rate = fuelRate(g, loadFraction);
-    if (rate === null) {
-      return {
-        ok: false,
-        problems: [bad('running.generator.ratedPower', ratedPowerW, `is below the ${sigText(r.powerW / 1000, 3)} kW the generator carries through the ${r.what} (${sigText(loadFraction * 100, 3)} % of its rating): the fuel table ends at full load`)],
-      };
-    }
-    out.push({ ...r, loadFraction, litresPerHour: rate, litresPerYear: rate * r.hoursPerYear });
-  }
-  const litresPerYear = out.reduce((s, r) => s + r.litresPerYear, 0);
-  return { ok: true, fuel: { ratedPowerW, runs: out, litresPerYear, ...(g.fuelPricePerLitre !== undefined ? { fuelCostPerYear: litresPerYear * g.fuelPricePerLitre } : {}) } };
 }
 
 /** The cost over the years of one solved chain (`lifetimeCost`). */
@@ -382,24 +254,3 @@ export function compareSolved(a: Solved, b: Solved, settings?: LifetimeSettings 
   return { ok: true, a: la.cost, b: lb.cost, comparison: compareLifetime(la.cost, lb.cost) };
 }
 
-/** The cost over the years as plain text (the command line; money without a currency symbol, the file holds none). */
-export function formatLifetimeCost(c: LifetimeCost): string {
-  const money = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toFixed(2));
-  const lines = ['Cost over the years:'];
-  lines.push(`  Losses: ${sigText(c.losses.totalEnergyKWh, 4)} kWh a year, costing ${money(c.losses.totalCost)} a year (${c.notes[0]})`);
-  if (c.co2KgPerYear !== undefined) lines.push(`  CO₂ of the losses: ${sigText(c.co2KgPerYear, 4)} kg a year (losses' energy × the grid factor entered)`);
-  if (c.generator) {
-    const g = c.generator;
-    for (const r of g.runs) {
-      lines.push(`  Generator through the ${r.what}: ${sigText(r.powerW / 1000, 4)} kW (${sigText(r.loadFraction * 100, 3)} % of ${sigText(g.ratedPowerW / 1000, 4)} kW) for ${sigText(r.hoursPerYear, 4)} h a year: ${sigText(r.litresPerHour, 4)} L/h, ${sigText(r.litresPerYear, 4)} L a year`);
-    }
-    lines.push(`  Generator fuel: ${sigText(g.litresPerYear, 4)} L a year (fuel table interpolated linearly between ¼, ½ and full load)${g.fuelCostPerYear !== undefined ? `, costing ${money(g.fuelCostPerYear)} a year` : ''}`);
-  }
-  lines.push(`  Purchase: ${money(c.purchase)}${c.priced.length ? ` (${c.priced.length} priced element${c.priced.length === 1 ? '' : 's'})` : ''}${c.unpriced.length ? `; no price given for ${c.unpriced.map((n) => `"${n.name}"`).join(', ')}` : ''}`);
-  lines.push(`  Yearly cost counted: ${money(c.yearlyCost)}`);
-  lines.push(
-    `  Lifetime cost over ${c.years} year${c.years === 1 ? '' : 's'} at ${sigText(c.discountRate * 100, 3)} % a year: ${money(c.npv)} (net present value: purchase + Σ yearly cost ÷ (1 + r)^t, t = 1…${c.years})`,
-  );
-  for (const n of c.notes.slice(1)) lines.push(`  Note: ${n}`);
-  return lines.join('\n');
-}
