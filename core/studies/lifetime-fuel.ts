@@ -8,6 +8,7 @@ import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
 import type { GeneratorFuel } from '../model/project.ts';
 import { sigText } from '../model/message.ts';
+import { DIESEL_FUEL_CHART, LITRES_PER_US_GALLON } from '../data/diesel-fuel-typical.ts';
 
 const bad = (field: string, value: unknown, message: string): Problem => ({ code: 'invalid-value', elementId: PROJECT_LEVEL, field, value, message });
 
@@ -81,4 +82,25 @@ export function generatorFuelPerYear(
   }
   const litresPerYear = out.reduce((s, r) => s + r.litresPerYear, 0);
   return { ok: true, fuel: { ratedPowerW, runs: out, litresPerYear, ...(g.fuelPricePerLitre !== undefined ? { fuelCostPerYear: litresPerYear * g.fuelPricePerLitre } : {}) } };
+}
+
+/** What the page offers beside the fuel figures: typical values, never the maker's own. */
+export const TYPICAL_FUEL_NOTE = "typical value: use the maker's figure";
+
+/**
+ * Typical fuel figures of a diesel set of a rated power (W), L/h at ¼, ½ and full load: the
+ * suppliers' chart (core/data/diesel-fuel-typical.ts) interpolated linearly in rated power between
+ * its rows. Null outside the chart (20 kW to 2 MW): there is no typical figure to offer.
+ */
+export function typicalFuelFigures(ratedPowerW: number): { quarterLoadLitresPerHour: number; halfLoadLitresPerHour: number; fullLoadLitresPerHour: number; note: string } | null {
+  const kw = ratedPowerW / 1000;
+  const rows = DIESEL_FUEL_CHART;
+  if (!(kw >= rows[0]!.kw) || kw > rows[rows.length - 1]!.kw) return null;
+  const i = Math.max(0, rows.findIndex((r) => r.kw >= kw) - 1);
+  const lo = rows[i]!;
+  const hi = rows[Math.min(i + 1, rows.length - 1)]!;
+  const t = hi.kw === lo.kw ? 0 : (kw - lo.kw) / (hi.kw - lo.kw);
+  // Linear interpolation in rated power, then US gal → L.
+  const at = (col: 0 | 1 | 3) => (lo.gph[col] + t * (hi.gph[col] - lo.gph[col])) * LITRES_PER_US_GALLON;
+  return { quarterLoadLitresPerHour: at(0), halfLoadLitresPerHour: at(1), fullLoadLitresPerHour: at(3), note: TYPICAL_FUEL_NOTE };
 }

@@ -35,7 +35,7 @@ import { generatorFuelPerYear, type FuelRun, type GeneratorYear, type RechargeRu
 
 // Its parts: money over time (lifetime-money.ts), the generator's fuel (lifetime-fuel.ts), the text (lifetime-text.ts).
 export { breakEven, netPresentValue, presentValue, type BreakEven, type CostStream } from './lifetime-money.ts';
-export { fuelRate, generatorFuelPerYear, type FuelRun, type GeneratorYear, type RechargeRun } from './lifetime-fuel.ts';
+export { fuelRate, generatorFuelPerYear, typicalFuelFigures, TYPICAL_FUEL_NOTE, type FuelRun, type GeneratorYear, type RechargeRun } from './lifetime-fuel.ts';
 export { formatLifetimeCost } from './lifetime-text.ts';
 
 // The tariff's mean price and default day hours live with the yearly cost (economics.ts), which prices by them too.
