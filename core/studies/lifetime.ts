@@ -183,6 +183,10 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
       ? `mean price ${sigText(pricePerKWh, 4)} per kWh: the day price for ${sigText(dayHours, 3)} h, the night price for ${sigText(24 - dayHours, 3)} h, the ${sigText(s.hoursPerYear, 5)} h a year spread evenly over the day`
       : `one price, ${sigText(pricePerKWh, 4)} per kWh, for the ${sigText(s.hoursPerYear, 5)} h a year at this load`,
   ];
+  // The hours are at the solved operating point: a load profile or pump duty in the project is not read here (its own study prices it).
+  if (solved.project.backup !== undefined || solved.project.pumpDuty !== undefined) {
+    notes.push(`the losses are those of the solved operating point for ${sigText(s.hoursPerYear, 5)} h a year; the project's ${solved.project.pumpDuty !== undefined ? 'pump duty' : 'load profile'} is not read here`);
+  }
   let generator: GeneratorYear | undefined;
   if (s.generator) {
     const g = s.generator;

@@ -28,6 +28,8 @@ import {
   type LifetimeSettings,
 } from '../../core/studies/lifetime.ts';
 import { demoProjects } from '../../core/demos/index.ts';
+import { runParsed, type SolveRequest } from '../../core/cli/run.ts';
+import { parseArgs } from '../../core/cli/args.ts';
 
 const TSX = join('node_modules', '.bin', 'tsx');
 const run = (...args: string[]) => spawnSync(TSX, ['core/cli/cli.ts', ...args], { encoding: 'utf8' });
@@ -286,6 +288,26 @@ describe('the file: fields refused at their field, named by the form label', () 
   it('the study checks settings built by hand the same way', () => {
     expect(checkLifetimeSettings({ ...base, years: Number.NaN, dayEndHour: 5 }).map((p) => p.field)).toEqual(['running.years', 'running.dayEndHour']);
     expect(checkLifetimeSettings(base)).toEqual([]);
+  });
+});
+
+describe('a battery-fed chain: the generator runs the recharges the backup study works out', () => {
+  it('the hillside demo: the recharge after each outage, its fuel, and what was assumed', () => {
+    const hillside = structuredClone(demoProjects.find((d) => d.id === 'hillside-relay-hut')!.project) as unknown as Record<string, unknown>;
+    hillside['running'] = { energyPricePerKWh: 0.3, years: 12, discountRate: 0.04, generator: { ...chart20kW, ratedPower: 5000, outageHoursPerYear: 40, outagesPerYear: 6 } };
+    const run = runParsed('hut.json', hillside, parseArgs(['hut.json', '--json']) as SolveRequest, undefined);
+    if (!run.ok) throw new Error(run.lines.join('\n'));
+    const j = JSON.parse(run.text) as { backupStudy: { recharge: { acInputEnergyWh: number; time: number } }; lifetimeCost: { generator: { runs: { what: string; powerW: number; hoursPerYear: number; litresPerYear: number }[] }; notes: string[] } };
+    const rc = j.backupStudy.recharge;
+    const [r] = j.lifetimeCost.generator.runs;
+    // Only the recharges (the bank carries the outages): mean power = energy ÷ time, for 6 recharges a year (by hand from the study's own figures).
+    expect(j.lifetimeCost.generator.runs).toHaveLength(1);
+    expect(r!.what).toBe('recharges');
+    expect(r!.powerW).toBeCloseTo(rc.acInputEnergyWh / (rc.time / 3600), 9);
+    expect(r!.hoursPerYear).toBeCloseTo((6 * rc.time) / 3600, 9);
+    expect(r!.litresPerYear).toBeCloseTo(fuelRate(chart20kW, r!.powerW / 5000)! * r!.hoursPerYear, 9);
+    expect(j.lifetimeCost.notes).toContain("the losses are those of the solved operating point for 8760 h a year; the project's load profile is not read here");
+    expect(j.lifetimeCost.notes).toContain('the bank carries the outages; the generator runs only the recharges');
   });
 });
 
