@@ -45,6 +45,9 @@ ${USAGE}
 
 A project file with "running": { "energyPricePerKWh": …, "hoursPerYear": … } also gets the yearly
 cost of its losses (and of its pump duty methods); the file is the way in, there is no flag.
+With "years" (and optionally "discountRate", "nightPricePerKWh", "gridCo2KgPerKWh", "generator")
+in "running" it also prints the cost over the years: purchase prices, losses, CO₂, generator fuel
+and the lifetime cost as a net present value.
 
 Summary line: "<file>: solved: <project name>: source … W, loads … W, losses … W, efficiency … %,
 <n> warnings[, backup runtime … h]", or "<file>: refused: <the first reason>" (every reason

@@ -20,6 +20,7 @@ import { runModesStudy, type ModesStudyResult } from '../studies/modes/study.ts'
 import { formatModesStudy } from '../studies/modes/text-report.ts';
 import { solveModes } from '../solve/modes.ts';
 import type { SolveResult } from '../model/result.ts';
+import { formatLifetimeCost, lifetimeCost, lifetimeSettingsOf, type LifetimeCost } from '../studies/lifetime.ts';
 import type { CliRequest } from './args.ts';
 import type { ProjectLine } from './summary.ts';
 
@@ -112,6 +113,17 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
     if (bad) return bad;
   }
   const batteryResult: SolveResult | undefined = modes?.battery.ok ? modes.battery.result : undefined;
+  // The cost over the years, when the project gives the years of service beside the price (core/studies/lifetime.ts).
+  let lifetime: LifetimeCost | undefined;
+  const lifeSettings = lifetimeSettingsOf(outcome.project);
+  if (lifeSettings) {
+    const rc = study?.recharge;
+    const l = lifetimeCost(outcome, lifeSettings, rc ? { energyWh: rc.acInputEnergyWh, timeSeconds: rc.time } : undefined);
+    if (!l.ok) return refused(file, 'the cost over the years cannot be worked out:', l.problems, projectName, data);
+    lifetime = l.cost;
+    const bad = nonFinite('the cost over the years cannot be shown:', 'The cost over the years', lifetime);
+    if (bad) return bad;
+  }
   const run = study?.discharge;
   const line: ProjectLine = {
     file,
@@ -125,10 +137,10 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   if (req.output === 'json') {
     const top = req.mode === 'battery' && batteryResult ? batteryResult : outcome.result;
     const modesJson = modes ? { mode: top === batteryResult ? 'battery' : 'supply', modes: { supply: outcome.result, battery: modes.battery.ok ? modes.battery.result : { problems: modes.battery.problems }, study: modesStudy } } : {};
-    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}) };
+    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}), ...(lifetime ? { lifetimeCost: lifetime } : {}) };
     text = `${JSON.stringify({ ...top, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}`;
+    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}`;
   }
   return { ok: true, text, line };
 }

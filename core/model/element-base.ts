@@ -44,6 +44,12 @@ export interface ElementBase {
   id: string;
   /** A name the user gives (optional; the id is shown when absent). */
   name?: string;
+  /**
+   * Purchase price of the element, currency units (≥ 0; optional): the outlay the lifetime cost
+   * counts at year 0 (core/studies/lifetime.ts). The currency is the user's own, as the running
+   * settings' energy price (the file holds a plain number).
+   */
+  price?: number;
 }
 
 export interface FedElement extends ElementBase {

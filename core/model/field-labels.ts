@@ -322,6 +322,20 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "backup.profile": "Load profile",
     "running.energyPricePerKWh": "Energy price per kWh",
     "running.hoursPerYear": "Hours per year at this load",
+    "running.nightPricePerKWh": "Night energy price per kWh",
+    "running.dayStartHour": "Day price from (hour)",
+    "running.dayEndHour": "Day price until (hour)",
+    "running.years": "Years of service",
+    "running.discountRate": "Discount rate per year (%)",
+    "running.gridCo2KgPerKWh": "Grid CO₂ per kWh (kg)",
+    "running.generator": "Generator fuel and outages",
+    "running.generator.quarterLoadLitresPerHour": "Generator fuel at ¼ load (L/h)",
+    "running.generator.halfLoadLitresPerHour": "Generator fuel at ½ load (L/h)",
+    "running.generator.fullLoadLitresPerHour": "Generator fuel at full load (L/h)",
+    "running.generator.ratedPower": "Generator rated power",
+    "running.generator.outageHoursPerYear": "Outage hours per year",
+    "running.generator.outagesPerYear": "Outages per year",
+    "running.generator.fuelPricePerLitre": "Fuel price per litre",
     "backup.profile.startHour": "Outage starts at",
     "backup.profile.segments": "Time-of-day segments",
     "backup.profile.duty": "Duty cycles",
@@ -334,6 +348,11 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "standby.redundancy": "Redundant modules",
     "standby.outageHoursPerYear": "Outage hours per year",
   },
+};
+
+/** Labels of the element base's fields that every kind has beside its own (core/model/element-base.ts). */
+const ELEMENT_BASE_LABELS: Readonly<Record<string, string>> = {
+  price: 'Purchase price',
 };
 
 /** Words for the keys no form shows (list entries, parts of a field): "loadFraction" → "load fraction". */
@@ -367,6 +386,7 @@ export function fieldLabel(kind: string | undefined, field: string): string {
       const path = parts.slice(0, n).join('.');
       if (Object.hasOwn(table, path)) return n === parts.length ? table[path]! : `${table[path]!}, ${pathWords(parts.slice(n))}`;
     }
+    if (kind !== 'project' && Object.hasOwn(ELEMENT_BASE_LABELS, field)) return ELEMENT_BASE_LABELS[field]!;
   }
   return pathWords(parts);
 }

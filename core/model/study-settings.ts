@@ -125,4 +125,47 @@ export interface RunningCost {
   energyPricePerKWh?: number;
   /** Hours per year at the solved operating point, 0…8784 h (default 8760: all year). */
   hoursPerYear?: number;
+  // The cost over the years (core/studies/lifetime.ts): tariff, service life, discount rate, CO₂, generator fuel.
+  /**
+   * Night price of energy, currency units per kWh (≥ 0): with it `energyPricePerKWh` is the day
+   * price, paid from `dayStartHour` to `dayEndHour`, and the night price the rest of the day.
+   */
+  nightPricePerKWh?: number;
+  /** Hour of the day at which the day price starts, 0 ≤ h < 24 (default 7). */
+  dayStartHour?: number;
+  /** Hour of the day at which the day price ends, 0 < h ≤ 24, after the start (default 23). */
+  dayEndHour?: number;
+  /** Years of service the lifetime cost counts, 1…100. Without it no lifetime cost is worked out. */
+  years?: number;
+  /** Discount rate per year, a fraction (0.05 = 5 %), 0…1 (default 0: money keeps its value). */
+  discountRate?: number;
+  /** CO₂ emitted per kWh taken from the grid, kg/kWh (≥ 0), the user's figure. */
+  gridCo2KgPerKWh?: number;
+  /** The generator that carries the outages and the recharges, and the fuel it burns. */
+  generator?: GeneratorFuel;
+}
+
+/**
+ * A standby generator's fuel figures (the maker's fuel table) and its year of running: it carries
+ * the chain's load through the outages (when the chain's source is the supply or the generator
+ * itself) and the charger through the recharges after them (core/studies/lifetime.ts).
+ */
+export interface GeneratorFuel {
+  /** Fuel burnt at ¼ of the rated power, litres per hour (> 0). */
+  quarterLoadLitresPerHour: number;
+  /** Fuel burnt at ½ of the rated power, litres per hour (> 0). */
+  halfLoadLitresPerHour: number;
+  /** Fuel burnt at the rated power, litres per hour (> 0). */
+  fullLoadLitresPerHour: number;
+  /**
+   * Rated real power, W (> 0). Default, when the chain's source is the generator: its rating in VA
+   * × 0.8, the rated power factor of generating sets.
+   */
+  ratedPower?: number;
+  /** Hours of outage a year the generator runs through, 0…8784 h. */
+  outageHoursPerYear: number;
+  /** Outages a year, each followed by a recharge of the bank (default 0: no recharge counted). */
+  outagesPerYear?: number;
+  /** Price of fuel, currency units per litre (≥ 0; optional): the fuel then counts in the yearly cost. */
+  fuelPricePerLitre?: number;
 }

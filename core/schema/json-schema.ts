@@ -16,6 +16,7 @@
  */
 import { z } from 'zod/mini';
 import { projectShape } from '../solve/validate.ts';
+import { priceSchema } from '../solve/running-schema.ts';
 import { KINDS } from '../kinds/index.ts';
 import { RANGES, RANGE_CHECKS, rangeText, type Floor, type Quantity } from '../kinds/ranges.ts';
 
@@ -84,6 +85,8 @@ export function projectSchemaParts(): { project: JsonSchema; definitions: Record
     // Kinds that share one schema (grid and generator) list both; the engine picks the schema by the
     // kind, so each definition takes its own kind only (and `oneOf` matches exactly one).
     (schema['properties'] as Record<string, JsonSchema>)['kind'] = { type: 'string', const: kind };
+    // The purchase price of the element base, which validate.ts checks for every kind.
+    (schema['properties'] as Record<string, JsonSchema>)['price'] = { ...fragment(priceSchema), description: 'Purchase price of the element, in your currency (optional; the lifetime cost counts it at year 0).' };
     definitions[kind] = { title: `Element of kind "${kind}"`, ...schema };
   }
   // The network of a circuit load is read by parseNetwork (core/physics/network.ts), not by a zod schema

@@ -14,7 +14,7 @@ import { issueMessage, unknownKindMessage } from './issue-messages.ts';
 import { backupSchema, reservedKeyProblems } from './load-profile.ts';
 import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { pumpDutySchema } from '../kinds/pump.ts';
-import { runningSchema } from './running-schema.ts';
+import { priceSchema, runningSchema } from './running-schema.ts';
 import { standbySchema } from './standby-schema.ts';
 import { countSolveStep } from './count.ts';
 import { wordedFromParams } from '../model/message.ts';
@@ -109,9 +109,15 @@ export function validateElement(raw: unknown, index: number): { element?: Elemen
       ],
     };
   }
-  const parsed = spec.schema.safeParse(raw, { error: issueMessage });
-  if (!parsed.success) return { problems: fromIssues(parsed.error.issues, id, raw) };
-  const element = parsed.data;
+  // The purchase price belongs to the element base (every kind): checked here once, then set aside
+  // so the kind's own strict schema reads the rest (core/schema/json-schema.ts states it per kind).
+  const { price: rawPrice, ...own } = raw;
+  const priced = rawPrice === undefined ? undefined : priceSchema.safeParse(rawPrice, { error: issueMessage });
+  const priceProblems = priced && !priced.success ? fromIssues(priced.error.issues, id, rawPrice).map((p) => ({ ...p, field: 'price' })) : [];
+  const parsed = spec.schema.safeParse(Object.hasOwn(raw, 'price') ? own : raw, { error: issueMessage });
+  if (!parsed.success) return { problems: [...fromIssues(parsed.error.issues, id, raw), ...priceProblems] };
+  if (priceProblems.length) return { problems: priceProblems };
+  const element = priced?.success ? ({ ...parsed.data, price: priced.data } as Element) : parsed.data;
   const problems = (spec.check?.(element) ?? []).map((p) => ({ ...p, elementId: id }));
   return problems.length ? { problems } : { element, problems };
 }

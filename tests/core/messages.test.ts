@@ -29,6 +29,7 @@ import { machineDetails } from '../../core/studies/machines/details.ts';
 import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
 import { correctPowerFactor } from '../../core/studies/pf/correction.ts';
 import { lossCostPerYear, pumpDutyCosts } from '../../core/studies/economics.ts';
+import { lifetimeCost } from '../../core/studies/lifetime.ts';
 import { batteryBenchProject } from '../battery/fixtures.ts';
 import { figure, q, say, sigText, valueText } from '../../core/model/message.ts';
 
@@ -123,6 +124,8 @@ function studies(where: string, s: Solved & { ok: true }, names: ReadonlyMap<str
     ['pump duty', () => projectPumpDuty(s)],
     ['loss cost', () => lossCostPerYear(s.result, { pricePerKWh: 0.2, hoursPerYear: 8760 })],
     ['loss cost, bad settings', () => lossCostPerYear(s.result, { pricePerKWh: -1, hoursPerYear: 9000 })],
+    ['cost over the years', () => lifetimeCost(s, { dayPricePerKWh: 0.3, nightPricePerKWh: 0.1, dayStartHour: 7, dayEndHour: 23, hoursPerYear: 8760, years: 10, discountRate: 0.05, gridCo2KgPerKWh: 0.4, generator: { quarterLoadLitresPerHour: 2, halfLoadLitresPerHour: 3, fullLoadLitresPerHour: 5, ratedPower: 1000, outageHoursPerYear: 20, outagesPerYear: 3 } }, { energyWh: 2000, timeSeconds: 7200 })],
+    ['cost over the years, bad settings', () => lifetimeCost(s, { dayPricePerKWh: -1, hoursPerYear: 9000, years: 0.5, discountRate: 2, dayStartHour: 20, dayEndHour: 4, generator: { quarterLoadLitresPerHour: 3, halfLoadLitresPerHour: 2, fullLoadLitresPerHour: 1, outageHoursPerYear: -1 } })],
   ];
   const p = s.project as unknown as ProjectJson;
   if (p['backup'] !== undefined) outcomes.push(['backup', () => runBackupStudy(s)]);
@@ -188,6 +191,15 @@ const bases: { label: string; project: unknown }[] = [
   { label: 'battery bank with a backup study', project: batteryBenchProject() },
   // The running cost (energy price, hours a year) in the file: its broken values too.
   { label: 'demo riverside-pump-station with its running cost', project: { ...(demoProjects.find((d) => d.id === 'riverside-pump-station')!.project as object), running: { energyPricePerKWh: 0.2, hoursPerYear: 6000 } } },
+  // The cost over the years (tariff, years, discount rate, CO₂, generator fuel) and an element's purchase price: broken values too.
+  {
+    label: 'demo cold-store-dc-bus with its cost over the years',
+    project: (() => {
+      const p = structuredClone(demoProjects.find((d) => d.id === 'cold-store-dc-bus')!.project) as unknown as ProjectJson;
+      p.elements[1]!['price'] = 1800;
+      return { ...p, running: { energyPricePerKWh: 0.3, nightPricePerKWh: 0.12, dayStartHour: 6, dayEndHour: 22, hoursPerYear: 8000, years: 12, discountRate: 0.04, gridCo2KgPerKWh: 0.35, generator: { quarterLoadLitresPerHour: 2.3, halfLoadLitresPerHour: 3.4, fullLoadLitresPerHour: 6.1, ratedPower: 20000, outageHoursPerYear: 30, outagesPerYear: 4, fuelPricePerLitre: 1.6 } } };
+    })(),
+  },
 ];
 
 describe('every message the engine produces is in the user\'s words', () => {

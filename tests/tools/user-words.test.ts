@@ -35,6 +35,7 @@ import { correctPowerFactor } from '../../core/studies/pf/correction.ts';
 import { formatPfCorrection } from '../../core/studies/pf/text-report.ts';
 import { flowGraph } from '../../core/studies/energy-flow.ts';
 import { lossCostPerYear, pumpDutyCosts } from '../../core/studies/economics.ts';
+import { formatLifetimeCost, lifetimeCost } from '../../core/studies/lifetime.ts';
 import { projectPumpDuty } from '../../core/studies/machines/pump-duty.ts';
 import { CONDUCTOR_CAUTION } from '../../core/conductors/index.ts';
 import type { SolveResult } from '../../core/model/result.ts';
@@ -141,6 +142,12 @@ function projectReads(project: unknown, label: string): Read[] {
   for (const s of strings(flowGraph(result))) reads.push({ area: 'ours', where: `${label} energy flow ${s.path}`, text: s.text });
   const cost = lossCostPerYear(result, { pricePerKWh: 0.2, hoursPerYear: 8760 });
   for (const s of strings(cost)) reads.push({ area: 'ours', where: `${label} loss cost ${s.path}`, text: s.text });
+  // The cost over the years, with every part that words something (tariff, CO₂, generator over outages and recharges, purchase).
+  const life = lifetimeCost(solved, { dayPricePerKWh: 0.3, nightPricePerKWh: 0.1, dayStartHour: 7, dayEndHour: 23, hoursPerYear: 8760, years: 10, discountRate: 0.05, gridCo2KgPerKWh: 0.4, generator: { quarterLoadLitresPerHour: 2.3, halfLoadLitresPerHour: 3.4, fullLoadLitresPerHour: 6.1, ratedPower: 1e9, outageHoursPerYear: 20, outagesPerYear: 3, fuelPricePerLitre: 1.6 } }, { energyWh: 2000, timeSeconds: 7200 });
+  if (life.ok) {
+    for (const s of strings(life.cost)) reads.push({ area: 'ours', where: `${label} cost over the years ${s.path}`, text: s.text });
+    reads.push(...textReads(formatLifetimeCost(life.cost), 'ours', `${label} cost over the years text`, []));
+  } else unsolved.push(`${label} cost over the years: ${life.problems.map((p) => p.message).join('; ')}`);
 
   const surge = onSolved(studySurges, project);
   if (surge.ok) {
