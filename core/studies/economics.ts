@@ -24,17 +24,9 @@ export const HOURS_FIELD = 'running.hoursPerYear';
 /** Losses smaller than this (W) are solver round-off, not a stage that loses power. */
 const ROUND_OFF_W = 1e-9;
 
-/** Default day-price hours (common practice (no source): many two-rate tariffs run their night rate from about 23:00 to 07:00). */
-export const DEFAULT_DAY_START_HOUR = 7;
-export const DEFAULT_DAY_END_HOUR = 23;
+import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, meanPrice, priceOfRunning } from '../model/tariff.ts';
 
-/** The mean energy price over the day, and the hours of the day price (time-weighted mean price). */
-export function meanPrice(s: { dayPricePerKWh: number; nightPricePerKWh?: number | undefined; dayStartHour: number; dayEndHour: number }): { pricePerKWh: number; dayHours: number } {
-  if (s.nightPricePerKWh === undefined) return { pricePerKWh: s.dayPricePerKWh, dayHours: 24 };
-  const dayHours = s.dayEndHour - s.dayStartHour;
-  // Time-weighted mean price: p̄ = (h_day·p_day + (24 − h_day)·p_night) / 24.
-  return { pricePerKWh: (dayHours * s.dayPricePerKWh + (24 - dayHours) * s.nightPricePerKWh) / 24, dayHours };
-}
+export { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, meanPrice };
 
 export interface CostSettings {
   /** Price of energy, currency units per kWh (≥ 0). */
@@ -77,11 +69,7 @@ export function costSettingsOf(project: Pick<Project, 'running'>): CostSettings 
   const r = project.running;
   if (r?.energyPricePerKWh === undefined) return null;
   // With a night price the losses are priced at the day's mean (meanPrice), the hours spread evenly over the day.
-  const pricePerKWh =
-    r.nightPricePerKWh === undefined
-      ? r.energyPricePerKWh
-      : meanPrice({ dayPricePerKWh: r.energyPricePerKWh, nightPricePerKWh: r.nightPricePerKWh, dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR, dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR }).pricePerKWh;
-  return { pricePerKWh, hoursPerYear: r.hoursPerYear ?? HOURS_IN_YEAR };
+  return { pricePerKWh: priceOfRunning({ ...r, energyPricePerKWh: r.energyPricePerKWh }), hoursPerYear: r.hoursPerYear ?? HOURS_IN_YEAR };
 }
 
 /** Problems of the cost settings (PROJECT_LEVEL, the project's fields `running.energyPricePerKWh`, `running.hoursPerYear`). */

@@ -11,6 +11,7 @@ import { demoProjects } from '../../core/demos/index.ts';
 import { draft, fieldError, loadProject, resultsState, undo, type DraftProject } from '../../web/state/editor.ts';
 import { costInForce, energyPrice, operatingHours, parseCostPrefs, runningInForce } from '../../web/state/prefs.ts';
 import { writeRunning } from '../../web/components/machines/LossCost.tsx';
+import { costSettingsOf } from '../../core/studies/economics.ts';
 import { buildExport, exportText, parseImportText } from '../../web/storage/file-format.ts';
 
 const loss = { model: 'constant', efficiency: 0.9 };
@@ -49,6 +50,15 @@ describe('the device setting a project without `running` starts from', () => {
       expect(runningInForce(imported.project)).toEqual({ price: 0.31, hours: 4000, fromDevice: true });
       expect(costInForce(imported.project)).toEqual({ pricePerKWh: 0.31, hoursPerYear: 4000 });
     }
+  });
+
+  it('a night price in the file: the page prices the losses at the day\'s mean, as the engine and the CLI do', () => {
+    // Time-weighted mean (core/model/tariff.ts): 16 h at 0.30 + 8 h at 0.12 over 24 h = 0.24 (worked by hand).
+    const p = chain({ energyPricePerKWh: 0.3, nightPricePerKWh: 0.12, dayStartHour: 7, dayEndHour: 23, hoursPerYear: 2000 });
+    expect(costInForce(p)!.pricePerKWh).toBeCloseTo(0.24, 12);
+    expect(costInForce(p)).toEqual(costSettingsOf(p as never));
+    // The price field still shows the day price as given.
+    expect(runningInForce(p).price).toBe(0.3);
   });
 
   it("a project's own values win; its hours default to 8760 h, the engine's and the CLI's default", () => {

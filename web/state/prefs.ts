@@ -7,6 +7,7 @@
  */
 import { effect, signal } from '@preact/signals';
 import { UNIT_SYSTEMS, type UnitSystem } from '../format/units.ts';
+import { priceOfRunning } from '../../core/page.ts';
 
 export type ThemeChoice = 'auto' | 'light' | 'dark';
 export const THEME_CHOICES: readonly ThemeChoice[] = ['auto', 'light', 'dark'];
@@ -232,5 +233,11 @@ export function runningInForce(project: unknown, device: CostPrefs = { pricePerK
 /** The cost settings the studies take ({ pricePerKWh, hoursPerYear }), or null without a price. */
 export function costInForce(project: unknown): { pricePerKWh: number; hoursPerYear: number } | null {
   const r = runningInForce(project);
-  return r.price === null ? null : { pricePerKWh: r.price, hoursPerYear: r.hours };
+  if (r.price === null) return null;
+  // A night price in the file makes the losses' price the day's mean, as the engine and the CLI take it
+  // (core/studies/tariff.ts, costSettingsOf); the price field itself shows the day price as given.
+  const running = isRecord(project) && isRecord(project['running']) ? project['running'] : {};
+  const num = (k: string) => (typeof running[k] === 'number' ? (running[k] as number) : undefined);
+  const pricePerKWh = r.fromDevice ? r.price : priceOfRunning({ energyPricePerKWh: r.price, nightPricePerKWh: num('nightPricePerKWh'), dayStartHour: num('dayStartHour'), dayEndHour: num('dayEndHour') });
+  return { pricePerKWh, hoursPerYear: r.hours };
 }

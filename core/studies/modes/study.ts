@@ -31,7 +31,7 @@ import { isPassive } from '../../kinds/index.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveVariant } from '../../solve/variant.ts';
 import { onBatteryChange, rechargeChange, solveModes, type BankPlace, type Modes } from '../../solve/modes.ts';
-import { HOURS_IN_YEAR } from '../economics.ts';
+import { HOURS_IN_YEAR, costSettingsOf } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
 
 /** Target recharge time when none is given, h (common practice: 8–12 h for a standby lead-acid plant). */
@@ -161,7 +161,8 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   const { place } = modes;
   const project = solved.project;
   const settings = project.standby ?? {};
-  const price = project.running?.energyPricePerKWh;
+  // The price the cost of the losses uses (a night price gives the day's mean: economics.ts).
+  const price = costSettingsOf(project)?.pricePerKWh;
   const supply = solved.result;
   const el = byId(supply);
   const bankEl = project.elements.find((e): e is BatterySource => e.id === place.bankId && e.kind === 'battery')!;
