@@ -99,7 +99,7 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
   }
 
   /** Open every study panel and wait until its tables are drawn (a panel without a table gives up quietly). */
-  async function openPanels(page: Page): Promise<void> {
+  async function openPanels(page: Page, demoId?: string): Promise<void> {
     for (const id of ['battery', 'conductor', 'machines', 'starting']) {
       const panel = page.getByTestId(`panel-${id}`);
       if ((await panel.count()) === 0) continue;
@@ -109,10 +109,12 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
       } catch {
         // This demo gives that panel no table.
       }
-      // The yearly cost of losses needs an energy price: this device's (newContext), which a demo starts from.
+      // The yearly cost of losses needs an energy price: the demo's own (`running`), or else this device's
+      // (newContext), which a demo without one starts from.
       const price = panel.locator('input[data-testid="cost-price"]');
       if ((await price.count()) > 0) {
-        expect(await price.inputValue()).toBe('0.25');
+        const own = (demoProjects.find((d) => d.id === demoId)?.project as { running?: { energyPricePerKWh?: number } } | undefined)?.running?.energyPricePerKWh;
+        expect(await price.inputValue()).toBe(own !== undefined ? String(own) : '0.25');
         await panel.getByTestId('loss-cost-table').waitFor();
       }
       // Steps tucked in a disclosure inside a panel (the sizing's working) are opened too.
@@ -141,7 +143,7 @@ describe.skipIf(skipWithout('chromium'))('CSV, share link and QR in Chromium', (
     try {
       for (const demo of demoProjects) {
         await openDemo(page, demo.id);
-        await openPanels(page);
+        await openPanels(page, demo.id);
         const outcome = solveProject(demo.project);
         if (!outcome.ok) throw new Error('demo does not solve');
         await page.locator('[data-testid="csv-button"][data-table="Power at each element"]').scrollIntoViewIfNeeded();
