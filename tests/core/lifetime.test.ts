@@ -172,15 +172,18 @@ describe('generator fuel: the fuel table interpolated linearly', () => {
   });
 });
 
-describe('lifetimeCost of a solved chain', () => {
-  const running = {
+/** The settings of the hand-worked chain below (the same in core and through the command line). */
+const WORKED_RUNNING = {
     energyPricePerKWh: 0.3,
     nightPricePerKWh: 0.12,
     years: 10,
     discountRate: 0.05,
     gridCo2KgPerKWh: 0.4,
     generator: { quarterLoadLitresPerHour: 2, halfLoadLitresPerHour: 3.2, fullLoadLitresPerHour: 5.6, ratedPower: 2000, outageHoursPerYear: 50, fuelPricePerLitre: 1.5 },
-  };
+};
+
+describe('lifetimeCost of a solved chain', () => {
+  const running = WORKED_RUNNING;
   it('100 W lost all year at 0.24: 876 kWh, 210.24 a year, 350.4 kg CO₂; 160 L of fuel; NPV 3876.63', () => {
     const s = solved(running);
     const out = lifetimeCost(s);
@@ -316,14 +319,7 @@ describe('the command line prints the cost over the years', { timeout: 30_000 },
   writeFileSync(
     file,
     JSON.stringify(
-      chain({
-        energyPricePerKWh: 0.3,
-        nightPricePerKWh: 0.12,
-        years: 10,
-        discountRate: 0.05,
-        gridCo2KgPerKWh: 0.4,
-        generator: { quarterLoadLitresPerHour: 2, halfLoadLitresPerHour: 3.2, fullLoadLitresPerHour: 5.6, ratedPower: 2000, outageHoursPerYear: 50, fuelPricePerLitre: 1.5 },
-      }),
+      chain(WORKED_RUNNING),
     ),
   );
   it('as text: the section with the figures worked above', () => {

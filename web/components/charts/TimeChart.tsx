@@ -49,7 +49,7 @@ const MARGIN_RIGHT = 14;
 const POINTS_PER_PX = 1.5;
 
 /** The width of an element, followed as it changes (measured before the first paint; 0 until then). */
-function useWidth(): [RefObject<HTMLDivElement | null>, number] {
+export function useWidth(): [RefObject<HTMLDivElement | null>, number] {
   const ref = useRef<HTMLDivElement>(null);
   const [width, setWidth] = useState(0);
   useLayoutEffect(() => {

@@ -5,6 +5,7 @@
  * through the engine-checked setField. The points are not kept in the project (the file keeps the
  * curve as its two fields: core/studies/machines/duty-curves.ts).
  */
+import { StudyInput } from '../StudyInput.tsx';
 import { useState } from 'preact/hooks';
 import type { FanLoad, PumpLoad } from '../../../core/page.ts';
 import { curveFromPoints, type CurveFromPoints } from '../../../core/studies/index.ts';
@@ -81,31 +82,16 @@ export function DutyCurveFit({ element, units, locale }: Props) {
     const id = `duty-fit-${key}-${i}`;
     const message = errors.get(`${i}-${key}`);
     return (
-      <div class={message ? 'study-field study-field--error' : 'study-field'}>
-        <label for={id} class="study-field__label">
-          {label}
-        </label>
-        <span class="study-field__row">
-          <input
-            id={id}
-            class="study-field__input"
-            type="text"
-            inputMode="decimal"
-            autoComplete="off"
-            value={rows[i]![key]}
-            aria-invalid={message ? 'true' : undefined}
-            aria-describedby={message ? `${id}-error` : undefined}
-            onInput={(e) => set(i, key, (e.currentTarget as HTMLInputElement).value)}
-            data-testid={`duty-fit-${key}-${i}`}
-          />
-          <span class="study-field__unit">{unit}</span>
-        </span>
-        {message && (
-          <span id={`${id}-error`} class="study-field__error" role="alert">
-            {message}
-          </span>
-        )}
-      </div>
+      <StudyInput
+        id={id}
+        label={label}
+        unit={unit}
+        text={rows[i]![key]}
+        message={message}
+        onText={(text) => set(i, key, text)}
+        onLeave={() => {}}
+        testId={`duty-fit-${key}-${i}`}
+      />
     );
   };
 

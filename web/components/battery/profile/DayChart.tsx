@@ -4,7 +4,7 @@
  * Figures come from core (profileDay); this file scales and draws. The figures beside it (energy,
  * average, peak) are its text alternative.
  */
-import { useLayoutEffect, useRef, useState } from 'preact/hooks';
+import { useWidth } from '../../charts/TimeChart.tsx';
 import type { DayInterval } from '../../../../core/studies/index.ts';
 import { formatSignificant } from '../../../format/number.ts';
 import { linearScale, niceTicks } from '../../charts/scale.ts';
@@ -17,18 +17,7 @@ const LEFT = 52;
 const RIGHT = 22;
 
 export function DayChart({ intervals, locale, labelledBy }: { intervals: readonly DayInterval[]; locale: string | undefined; labelledBy: string }) {
-  const box = useRef<HTMLDivElement>(null);
-  const [width, setWidth] = useState(0);
-  useLayoutEffect(() => {
-    const el = box.current;
-    if (!el) return;
-    const update = () => setWidth(Math.max(240, Math.floor(el.clientWidth)));
-    update();
-    if (typeof ResizeObserver === 'undefined') return;
-    const ro = new ResizeObserver(update);
-    ro.observe(el);
-    return () => ro.disconnect();
-  }, []);
+  const [box, width] = useWidth();
   const peak = intervals.reduce((m, iv) => Math.max(m, iv.watts), 0);
   const yt = niceTicks(0, peak > 0 ? peak : 1, 3);
   const plotW = Math.max(10, width - LEFT - RIGHT);
