@@ -28,6 +28,8 @@ export interface PlausibleRange {
   readonly what: string;
   /** Written with an SI prefix (1 MV, 100 km) rather than as a plain number (−80 °C, 10000 Ah). */
   readonly prefix?: boolean;
+  /** A flow of air (a fan's): its bounds are shown in the fan form's unit (message.ts `air`). */
+  readonly air?: true;
 }
 
 /** Absolute zero, °C (ISO 80000-5: 0 K = −273.15 °C). */
@@ -73,6 +75,8 @@ export const RANGES = {
   speed: { min: 0, max: 1e6, unit: 'rpm', what: 'a speed' },
   /** Pump flow: up to 1000 m³/s (the largest drainage pumps move some 60 m³/s). */
   flow: { min: 0, max: 1000, unit: 'm³/s', what: 'a flow' },
+  /** Fan flow: the same bounds as a pump's, written in the fan form's unit (m³/h or cfm, not gpm). */
+  airFlow: { min: 0, max: 1000, unit: 'm³/s', what: 'a flow', air: true },
   /** Pump head: up to 10 000 m (multistage boiler-feed pumps reach some 4000 m). */
   head: { min: 0, max: 1e4, unit: 'm', what: 'a head' },
   /** Fan pressure: up to 1 MPa (high-pressure blowers reach some 20 kPa; process compressors more). */
@@ -163,8 +167,9 @@ export function rangeWorded(quantity: Quantity, v: number, floor: Floor, signUni
   if (floor === 'positive' && !(v > 0)) return { message: `must be greater than 0 ${unit}`.trim() };
   if (floor === 'non-negative' && !(v >= 0)) return { message: `must not be negative ${unit}`.trim() };
   const u = r.unit as MessageUnit;
-  const low = q(r.min, u);
-  const high = q(r.max, u);
+  const air = r.air ? { air: true as const } : {};
+  const low = { ...q(r.min, u), ...air };
+  const high = { ...q(r.max, u), ...air };
   const plausible = say`the plausible range of ${r.what} is ${low} to ${high}`;
   if (r.unit === '°C' && v < ABSOLUTE_ZERO_C) return say`is below absolute zero (−273.15 °C): ${plausible}`;
   if (v < r.min) return say`must be at least ${low}: ${plausible}`;

@@ -15,7 +15,7 @@ import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
 import { validateProject } from '../../core/solve/validate.ts';
 import { problemsForField, type DraftProject } from '../../web/state/editor.ts';
-import { ABSOLUTE_ZERO_C, RANGES, boundText, rangeText, type Quantity } from '../../core/kinds/ranges.ts';
+import { ABSOLUTE_ZERO_C, RANGES, boundText, rangeText, rangeWorded, type Quantity } from '../../core/kinds/ranges.ts';
 import { valueText, type MessageUnit } from '../../core/model/message.ts';
 
 type Json = Record<string, unknown>;
@@ -279,5 +279,17 @@ describe('a refusal lands on the element that caused it', () => {
     const o = solveProject(d);
     expect(o.ok).toBe(false);
     if (!o.ok) expect(o.problems).toMatchObject([{ elementId: 'bank-cable', field: 'length', message: expect.stringContaining('must not exceed 100 km') }]);
+  });
+});
+
+describe('a fan’s flow range is worded as an air flow', () => {
+  // The bounds of the range table (common practice, no source); the `air` mark makes the page show them
+  // in the fan form's unit (m³/h or cfm), not a pump's gpm (web/format/message-text.ts).
+  it('airFlow keeps the flow bounds and marks both quantities as air', () => {
+    expect(RANGES.airFlow.max).toBe(RANGES.flow.max);
+    const w = rangeWorded('airFlow', 2000, 'positive')!;
+    expect(w.message).toContain('must not exceed');
+    expect(w.values!.filter((v) => v.unit === 'm³/s').every((v) => v.air === true)).toBe(true);
+    expect(rangeWorded('flow', 2000, 'positive')!.values!.some((v) => v.air)).toBe(false);
   });
 });
