@@ -37,11 +37,40 @@ function elementOf(obj: Record<string, unknown>): { id: string; name?: string } 
   return undefined;
 }
 
+/** Nesting depth and objects a quick look reads before it leaves the answer to the full walk. */
+const QUICK_DEPTH = 64;
+const QUICK_OBJECTS = 1_000_000;
+
+/**
+ * Whether a plain-data value may hold a number that is not finite: false only when every number in
+ * it was read and is finite (own enumerable values, as `findNonFinite` reads them). A sound result
+ * (nearly every one) is passed at the cost of reading its numbers, without the paths, owners and
+ * seen-set the full walk keeps; a value nested deeper than QUICK_DEPTH or larger than QUICK_OBJECTS
+ * (a loop in it, a shared part read many times) gets "may", and the full walk decides.
+ */
+function mayHoldNonFinite(value: unknown): boolean {
+  let objects = 0;
+  const look = (v: object, depth: number): boolean => {
+    if (++objects > QUICK_OBJECTS || depth > QUICK_DEPTH) return true;
+    const items: readonly unknown[] = Array.isArray(v) ? v : Object.values(v);
+    for (let i = 0; i < items.length; i++) {
+      const x = items[i];
+      if (typeof x === 'number') {
+        if (!Number.isFinite(x)) return true;
+      } else if (typeof x === 'object' && x !== null && look(x, depth + 1)) return true;
+    }
+    return false;
+  };
+  if (typeof value === 'number') return !Number.isFinite(value);
+  return isRecord(value) && look(value, 0);
+}
+
 /**
  * Every number in a plain-data value that is not finite, at most `limit` of them (a broken result
  * is usually broken in many places; the first few say where).
  */
 export function findNonFinite(value: unknown, limit = 50): NonFiniteFigure[] {
+  if (!mayHoldNonFinite(value)) return [];
   type Owner = { id: string; name?: string; depth: number };
   const found: NonFiniteFigure[] = [];
   const seen = new WeakSet<object>();
