@@ -40,29 +40,45 @@ function elementOf(obj: Record<string, unknown>): { id: string; name?: string } 
 /** Nesting depth and objects a quick look reads before it leaves the answer to the full walk. */
 const QUICK_DEPTH = 64;
 const QUICK_OBJECTS = 1_000_000;
+/** Objects the quick look in progress may still read (it is synchronous: one look at a time). */
+let quickLeft = 0;
+
+/**
+ * The quick look at one object: true when a number in it (own or inherited enumerable values, so
+ * never fewer than `findNonFinite` reads) is not finite, or when the look gives up.
+ */
+function quickLook(v: object, depth: number): boolean {
+  if (--quickLeft < 0 || depth > QUICK_DEPTH) return true;
+  if (Array.isArray(v)) {
+    for (let i = 0; i < v.length; i++) {
+      const x: unknown = v[i];
+      if (typeof x === 'number') {
+        if (!Number.isFinite(x)) return true;
+      } else if (typeof x === 'object' && x !== null && quickLook(x, depth + 1)) return true;
+    }
+    return false;
+  }
+  for (const key in v) {
+    const x: unknown = (v as Record<string, unknown>)[key];
+    if (typeof x === 'number') {
+      if (!Number.isFinite(x)) return true;
+    } else if (typeof x === 'object' && x !== null && quickLook(x, depth + 1)) return true;
+  }
+  return false;
+}
 
 /**
  * Whether a plain-data value may hold a number that is not finite: false only when every number in
- * it was read and is finite (own enumerable values, as `findNonFinite` reads them). A sound result
- * (nearly every one) is passed at the cost of reading its numbers, without the paths, owners and
- * seen-set the full walk keeps; a value nested deeper than QUICK_DEPTH or larger than QUICK_OBJECTS
- * (a loop in it, a shared part read many times) gets "may", and the full walk decides.
+ * it was read and is finite. A sound result (nearly every one) is passed at the cost of reading its
+ * numbers, without the paths, owners and seen-set the full walk keeps; a value nested deeper than
+ * QUICK_DEPTH or larger than QUICK_OBJECTS (a loop in it, a shared part read many times) gets
+ * "may", and the full walk decides.
  */
 function mayHoldNonFinite(value: unknown): boolean {
-  let objects = 0;
-  const look = (v: object, depth: number): boolean => {
-    if (++objects > QUICK_OBJECTS || depth > QUICK_DEPTH) return true;
-    const items: readonly unknown[] = Array.isArray(v) ? v : Object.values(v);
-    for (let i = 0; i < items.length; i++) {
-      const x = items[i];
-      if (typeof x === 'number') {
-        if (!Number.isFinite(x)) return true;
-      } else if (typeof x === 'object' && x !== null && look(x, depth + 1)) return true;
-    }
-    return false;
-  };
   if (typeof value === 'number') return !Number.isFinite(value);
-  return isRecord(value) && look(value, 0);
+  if (!isRecord(value)) return false;
+  quickLeft = QUICK_OBJECTS;
+  return quickLook(value, 0);
 }
 
 /**
