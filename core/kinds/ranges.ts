@@ -166,12 +166,15 @@ export function rangeWorded(quantity: Quantity, v: number, floor: Floor, signUni
   const unit = (signUnit ?? r.unit).trim();
   if (floor === 'positive' && !(v > 0)) return { message: `must be greater than 0 ${unit}`.trim() };
   if (floor === 'non-negative' && !(v >= 0)) return { message: `must not be negative ${unit}`.trim() };
+  // In range (nearly always): no message is built (the validation runs per keystroke and per solve).
+  const belowZero = r.unit === '°C' && v < ABSOLUTE_ZERO_C;
+  if (!belowZero && !(v < r.min) && !(v > r.max)) return null;
   const u = r.unit as MessageUnit;
   const air = r.air ? { air: true as const } : {};
   const low = { ...q(r.min, u), ...air };
   const high = { ...q(r.max, u), ...air };
   const plausible = say`the plausible range of ${r.what} is ${low} to ${high}`;
-  if (r.unit === '°C' && v < ABSOLUTE_ZERO_C) return say`is below absolute zero (−273.15 °C): ${plausible}`;
+  if (belowZero) return say`is below absolute zero (−273.15 °C): ${plausible}`;
   if (v < r.min) return say`must be at least ${low}: ${plausible}`;
   if (v > r.max) return say`must not exceed ${high}: ${plausible} (check the value and its unit)`;
   return null;

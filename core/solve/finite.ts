@@ -37,11 +37,56 @@ function elementOf(obj: Record<string, unknown>): { id: string; name?: string } 
   return undefined;
 }
 
+/** Nesting depth and objects a quick look reads before it leaves the answer to the full walk. */
+const QUICK_DEPTH = 64;
+const QUICK_OBJECTS = 1_000_000;
+/** Objects the quick look in progress may still read (it is synchronous: one look at a time). */
+let quickLeft = 0;
+
+/**
+ * The quick look at one object: true when a number in it (own or inherited enumerable values, so
+ * never fewer than `findNonFinite` reads) is not finite, or when the look gives up.
+ */
+function quickLook(v: object, depth: number): boolean {
+  if (--quickLeft < 0 || depth > QUICK_DEPTH) return true;
+  if (Array.isArray(v)) {
+    for (let i = 0; i < v.length; i++) {
+      const x: unknown = v[i];
+      if (typeof x === 'number') {
+        if (!Number.isFinite(x)) return true;
+      } else if (typeof x === 'object' && x !== null && quickLook(x, depth + 1)) return true;
+    }
+    return false;
+  }
+  for (const key in v) {
+    const x: unknown = (v as Record<string, unknown>)[key];
+    if (typeof x === 'number') {
+      if (!Number.isFinite(x)) return true;
+    } else if (typeof x === 'object' && x !== null && quickLook(x, depth + 1)) return true;
+  }
+  return false;
+}
+
+/**
+ * Whether a plain-data value may hold a number that is not finite: false only when every number in
+ * it was read and is finite. A sound result (nearly every one) is passed at the cost of reading its
+ * numbers, without the paths, owners and seen-set the full walk keeps; a value nested deeper than
+ * QUICK_DEPTH or larger than QUICK_OBJECTS (a loop in it, a shared part read many times) gets
+ * "may", and the full walk decides.
+ */
+function mayHoldNonFinite(value: unknown): boolean {
+  if (typeof value === 'number') return !Number.isFinite(value);
+  if (!isRecord(value)) return false;
+  quickLeft = QUICK_OBJECTS;
+  return quickLook(value, 0);
+}
+
 /**
  * Every number in a plain-data value that is not finite, at most `limit` of them (a broken result
  * is usually broken in many places; the first few say where).
  */
 export function findNonFinite(value: unknown, limit = 50): NonFiniteFigure[] {
+  if (!mayHoldNonFinite(value)) return [];
   type Owner = { id: string; name?: string; depth: number };
   const found: NonFiniteFigure[] = [];
   const seen = new WeakSet<object>();

@@ -57,6 +57,8 @@ interface PreparedState {
 }
 
 export interface RepeatSolver {
+  /** The chain as planned once for every step (its elements' models as built from the project given). */
+  readonly order: readonly PlannedElement[];
   /** Ids of the loads, in the order load values are given to `prepare`. */
   readonly loadIds: readonly string[];
   /** True when each step re-solves only the passive elements next to the bank. */
@@ -97,6 +99,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     }
   });
   const topParent = top.map((i) => (i === 0 ? -1 : topPos.get(order[i]!.parent)!));
+  const topParentIdx = Int32Array.from(topParent);
   const topModels: ElementModel[] = top.map((i) => order[i]!.model);
   const nTop = top.length;
   // DC equivalents of the top elements, each checked against the element's own model.
@@ -205,49 +208,55 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
    */
   const solveTopReal = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
     if (!warm) v.fill(emf);
+    // The per-step loop reads only typed arrays held in locals (no objects, no Map, no call): the
+    // arithmetic, and so every figure, is the sweep's as written in the method above.
     const fixed = st.fixed;
+    const n = nTop;
+    const volts = v;
+    const out = sOut;
+    const rs = topR;
+    const fixedLoss = topFixedLoss;
+    const up = topParentIdx;
     for (let iter = 1; iter <= MAX_SWEEPS; iter++) {
       // Backward: powers at the present voltages.
-      for (let j = 0; j < nTop; j++) sOut[j] = fixed[j]!;
-      for (let j = nTop - 1; j >= 1; j--) {
-        const i = sOut[j]! / v[j]!;
-        sIn[j] = sOut[j]! + topR[j]! * i * i + topFixedLoss[j]!;
-        sOut[topParent[j]!]! += sIn[j]!;
+      for (let j = 0; j < n; j++) out[j] = fixed[j]!;
+      for (let j = n - 1; j >= 1; j--) {
+        const i = out[j]! / volts[j]!;
+        out[up[j]!]! += out[j]! + rs[j]! * i * i + fixedLoss[j]!;
       }
       // Forward: voltages at the present powers.
-      let disc = emf * emf - 4 * resistance * sOut[0]!;
+      let disc = emf * emf - 4 * resistance * out[0]!;
       if (disc < 0) return null;
       let next = (emf + Math.sqrt(disc)) / 2;
-      let residual = Math.abs(next - v[0]!) / next;
-      v[0] = next;
-      for (let j = 1; j < nTop; j++) {
-        const vs = v[topParent[j]!]!;
-        const r = topR[j]!;
-        if (r === 0) next = vs;
+      let residual = Math.abs(next - volts[0]!) / next;
+      volts[0] = next;
+      for (let j = 1; j < n; j++) {
+        const vSend = volts[up[j]!]!;
+        const r = rs[j]!;
+        if (r === 0) next = vSend;
         else {
-          disc = vs * vs - 4 * r * sOut[j]!;
+          disc = vSend * vSend - 4 * r * out[j]!;
           if (disc < 0) return null;
-          next = (vs + Math.sqrt(disc)) / 2;
+          next = (vSend + Math.sqrt(disc)) / 2;
         }
-        const change = Math.abs(next - v[j]!) / next;
+        const change = Math.abs(next - volts[j]!) / next;
         if (change > residual) residual = change;
-        v[j] = next;
+        volts[j] = next;
       }
       if (residual <= TOLERANCE) {
-        for (let j = 0; j < nTop; j++) sOut[j] = fixed[j]!;
+        for (let j = 0; j < n; j++) out[j] = fixed[j]!;
         let passiveLoss = 0;
-        for (let j = nTop - 1; j >= 1; j--) {
-          const i = sOut[j]! / v[j]!;
-          const loss = topR[j]! * i * i + topFixedLoss[j]!;
-          sIn[j] = sOut[j]! + loss;
+        for (let j = n - 1; j >= 1; j--) {
+          const i = out[j]! / volts[j]!;
+          const loss = rs[j]! * i * i + fixedLoss[j]!;
           passiveLoss += loss;
-          sOut[topParent[j]!]! += sIn[j]!;
+          out[up[j]!]! += out[j]! + loss;
         }
         warm = true;
-        const terminalPower = sOut[0]!;
-        const current = terminalPower / v[0]!;
+        const terminalPower = out[0]!;
+        const current = terminalPower / volts[0]!;
         return {
-          voltage: v[0]!,
+          voltage: volts[0]!,
           current,
           terminalPower,
           internalLoss: resistance * current * current,
@@ -283,6 +292,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
   return {
     ok: true,
     solver: {
+      order,
       loadIds: loadIdx.map((i) => order[i]!.element.id),
       fast,
       prepare,

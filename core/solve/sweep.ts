@@ -104,13 +104,15 @@ function forward(
   sOut: readonly Complex[],
   vOut: Complex[],
   handover: readonly boolean[],
+  anyHandover: boolean,
   behindBus: readonly boolean[],
   recover = false,
   noLoad = false,
 ): number {
   let bad = -1;
-  // The powers and currents behind buses depend only on the backward sweep: worked once here.
-  const deep = handover.some((h) => h) ? behindBusLoads(order, sIn, sOut, behindBus, noLoad) : [];
+  // The powers and currents behind buses depend only on the backward sweep: worked once here
+  // (only when some output hands loads over; the flag is the caller's, found once per solve).
+  const deep = anyHandover ? behindBusLoads(order, sIn, sOut, behindBus, noLoad) : [];
   for (let i = 0; i < order.length; i++) {
     const node = order[i]!;
     const vIn = vInOf(order, vOut, i);
@@ -283,7 +285,8 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
     behindBus[i] = node.model.passesVoltage === true && carries;
     handover[i] = carries || node.children.some((ch) => order[ch]!.model.admittance !== undefined);
   }
-  forward(order, sIn, sOut, vOut, handover, behindBus, false, true);
+  const anyHandover = handover.some((h) => h);
+  forward(order, sIn, sOut, vOut, handover, anyHandover, behindBus, false, true);
   // A constant-impedance load draws its power at the previous sweep's voltage: starting from the
   // no-load voltage it asks for more than it will take, and a heavy one can ask a link for more
   // than it can transfer although the circuit has a solution. Then the overshooting link's voltage
@@ -297,10 +300,12 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
   let firstBad = -1;
   let relax = 1;
   let residual = Infinity;
+  // The voltages of the sweep before (one array for the whole solve, refilled each sweep).
+  const previous: Complex[] = new Array<Complex>(n);
   for (let iter = 1; iter <= MAX_SWEEPS; iter++) {
     backward(order, vOut, sIn, sOut);
-    const previous = vOut.slice();
-    const bad = forward(order, sIn, sOut, vOut, handover, behindBus, recover);
+    for (let i = 0; i < n; i++) previous[i] = vOut[i]!;
+    const bad = forward(order, sIn, sOut, vOut, handover, anyHandover, behindBus, recover);
     if (bad >= 0) {
       // The element that failed first in this run of overshoots is named: the halving that follows
       // can push the links upstream of it past their limit too (its input current grows as its

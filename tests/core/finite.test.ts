@@ -169,6 +169,32 @@ describe('the final guard walks the whole result', () => {
     expect(found[0]).toMatchObject({ elementId: 'deep', elementName: 'Deep', path: ['value'] });
   });
 
+  it('the quick read before the full walk changes no answer: loops, shared parts, deep sound values, inherited figures (issue 20, point 5)', () => {
+    // A value holding itself, a figure in it: the quick read gives up, the full walk finds it once.
+    const loop: Record<string, unknown> = { elementId: 'lp', name: 'Loop', value: Number.NaN };
+    loop['self'] = loop;
+    expect(findNonFinite(loop)).toEqual([{ elementId: 'lp', elementName: 'Loop', path: ['value'], value: Number.NaN }]);
+    // A sound loop and a sound part shared many times: nothing reported.
+    const soundLoop: Record<string, unknown> = { a: 1 };
+    soundLoop['self'] = soundLoop;
+    expect(findNonFinite(soundLoop)).toEqual([]);
+    const shared = { x: 1, y: [2, 3] };
+    expect(findNonFinite({ list: Array.from({ length: 1000 }, () => shared) })).toEqual([]);
+    // A sound value deeper than the quick read goes: the full walk says it is sound.
+    let deep: unknown = { value: 1 };
+    for (let i = 0; i < 1000; i++) deep = { next: deep };
+    expect(findNonFinite(deep)).toEqual([]);
+    // A figure the value only inherits is no part of it (the full walk reads own fields).
+    const inherited = Object.create({ hidden: Number.NaN }) as Record<string, unknown>;
+    inherited['shown'] = 2;
+    expect(findNonFinite(inherited)).toEqual([]);
+    // A sound solved result passes; one NaN anywhere in it is found.
+    expect(findNonFinite(good.result)).toEqual([]);
+    const one = structuredClone(good.result);
+    one.elements[2]!.output = { ...one.elements[1]!.output!, voltage: Number.NaN };
+    expect(findNonFinite(one).map((f) => [f.elementId, f.path.join('.')])).toEqual([['ld', 'output.voltage']]);
+  });
+
   it('a load of 1e308 W is refused at its field with the plausible range (core/kinds/ranges.ts), before any sweep', () => {
     const o = solveProject(project(supply, { id: 'ld', name: 'Furnace', kind: 'ac-load', from: 'src', power: 1e308, powerFactor: 0.5 }));
     if (o.ok) throw new Error('solved, expected a refusal');

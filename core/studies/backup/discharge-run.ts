@@ -33,7 +33,7 @@ import type { BackupStudy, BatterySource, Element, Project } from '../../model/p
 import type { ElementResult, SolveResult } from '../../model/result.ts';
 import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
 import { prepareRepeat, type StepPoint } from '../../solve/repeat.ts';
-import { plan } from '../../solve/plan.ts';
+import type { PlannedElement } from '../../solve/plan.ts';
 import { idleDraw } from '../../solve/idle.ts';
 import { type Bank, bankOcv, capacityFactorAt, resolveBank } from '../../physics/bank.ts';
 import { DEFAULT_HORIZON_H, DEFAULT_TIME_STEP_S, MAX_WHOLE_CHAIN_WORK, buildTimeline, count } from '../../solve/load-profile.ts';
@@ -45,13 +45,11 @@ const H = 3600;
 /**
  * What each stage draws with nothing connected to its output: its input power at zero output,
  * from its own model (a converter's standby loss, a bus's fixed loss, a transformer's core loss,
- * whatever loss model or preset it was given). Runs on a project that has already solved.
+ * whatever loss model or preset it was given). Reads the chain as the discharge planned it.
  */
-function noLoadDraws(project: Project): Omit<IdleDraw, 'energyWh'>[] {
-  const planned = plan(project);
-  if (!planned.ok) return [];
+function noLoadDraws(order: readonly PlannedElement[]): Omit<IdleDraw, 'energyWh'>[] {
   // No current flows at zero output: any non-zero voltage gives the same answer (idleDraw's default).
-  return planned.order
+  return order
     .filter((n) => n.role === 'stage')
     .map((n) => ({ id: n.element.id, name: n.element.name ?? n.element.id, watts: idleDraw(n.model) }))
     .filter((d) => d.watts > 0);
@@ -157,7 +155,8 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
     series.current.push(p.current);
     series.power.push(p.terminalPower);
   };
-  // Accumulators (A·s and J), kept as one object so a step can be undone.
+  // Accumulators (A·s and J), advanced in place each step (no object per step); `before` holds a
+  // copy of them from before the last step, so that step can be undone at the cut-off.
   interface Acc {
     t: number;
     soc: number;
@@ -171,32 +170,41 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
     peak: number;
     minV: number;
   }
-  let acc: Acc = { t: 0, soc: bank.initialSoc, charge: 0, equivalent: 0, terminal: 0, drawn: 0, load: 0, chain: 0, internal: 0, peak: 0, minV: Infinity };
-  /** Advance by dt at the operating point p with the bank at open-circuit voltage emf. */
-  const advance = (a: Acc, p: StepPoint, emf: number, dt: number): Acc => {
+  const acc: Acc = { t: 0, soc: bank.initialSoc, charge: 0, equivalent: 0, terminal: 0, drawn: 0, load: 0, chain: 0, internal: 0, peak: 0, minV: Infinity };
+  const before: Acc = { ...acc };
+  const copyAcc = (to: Acc, from: Acc) => {
+    to.t = from.t;
+    to.soc = from.soc;
+    to.charge = from.charge;
+    to.equivalent = from.equivalent;
+    to.terminal = from.terminal;
+    to.drawn = from.drawn;
+    to.load = from.load;
+    to.chain = from.chain;
+    to.internal = from.internal;
+    to.peak = from.peak;
+    to.minV = from.minV;
+  };
+  /** Advance `a` in place by dt at the operating point p with the bank at open-circuit voltage emf. */
+  const advance = (a: Acc, p: StepPoint, emf: number, dt: number): void => {
     const i = p.current;
     // Peukert-equivalent charge rate (rated-capacity form of Peukert's law, see header).
     const rate = i * (i > iRated ? Math.pow(i / iRated, k - 1) : 1);
-    return {
-      t: a.t + dt,
-      soc: a.soc - (rate * dt) / availableAs,
-      charge: a.charge + i * dt,
-      equivalent: a.equivalent + rate * dt,
-      terminal: a.terminal + p.terminalPower * dt,
-      drawn: a.drawn + emf * i * dt,
-      load: a.load + p.loadPower * dt,
-      chain: a.chain + p.chainLoss * dt,
-      internal: a.internal + p.internalLoss * dt,
-      peak: Math.max(a.peak, i),
-      minV: Math.min(a.minV, p.voltage),
-    };
+    a.t = a.t + dt;
+    a.soc = a.soc - (rate * dt) / availableAs;
+    a.charge = a.charge + i * dt;
+    a.equivalent = a.equivalent + rate * dt;
+    a.terminal = a.terminal + p.terminalPower * dt;
+    a.drawn = a.drawn + emf * i * dt;
+    a.load = a.load + p.loadPower * dt;
+    a.chain = a.chain + p.chainLoss * dt;
+    a.internal = a.internal + p.internalLoss * dt;
+    a.peak = Math.max(a.peak, i);
+    a.minV = Math.min(a.minV, p.voltage);
   };
   const rateOf = (i: number) => i * (i > iRated ? Math.pow(i / iRated, k - 1) : 1);
 
   let endReason: EndReason = timeline.profileEnds ? 'profile-complete' : 'horizon';
-  let last: { p: StepPoint; emf: number; dt: number; before: Acc; state: number } | null = null;
-  // The point solved at the end of the previous step (same load state): the next step starts there.
-  let carried: { p: StepPoint; state: number } | null = null;
   const dropLastSample = () => {
     series.time.pop();
     series.soc.pop();
@@ -204,63 +212,83 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
     series.current.pop();
     series.power.pop();
   };
-  outer: for (const interval of timeline.intervals) {
-    const state = stateIds[interval.state]!;
-    // Slack against a sliver step from rounding, relative to the interval or the step, whichever is
-    // shorter (a step longer than the whole outage must not swallow it).
-    const slack = 1e-9 * Math.min(step, interval.end - interval.start);
-    while (acc.t < interval.end - slack) {
-      const emf = bankOcv(bank, acc.soc);
-      const reuse = carried !== null && carried.state === state;
-      const p = reuse ? carried!.p : solver.solve(state, emf, R);
-      if (p === null) {
-        if (acc.t === 0) return { ok: false, problems: [cannotCarry(source.id, bank, 'the chain cannot be carried at the start of the outage: the bank voltage would collapse')] };
-        endReason = 'chain-collapse';
-        break outer;
-      }
-      if (p.voltage < cutoff) {
-        if (acc.t === 0) {
-          return {
-            ok: false,
-            problems: [cannotCarry(source.id, bank, `the terminal voltage under the starting load, ${p.voltage.toFixed(2)} V, is already below the cut-off ${cutoff.toFixed(2)} V`)],
-          };
+  /**
+   * The time loop: sets `endReason`, gives the problem that refuses the study at the start of the
+   * outage, or null. A function of its own, so that the engine keeps it optimised apart from the
+   * result's assembly below, which runs once per study.
+   */
+  const integrate = (): Problem | null => {
+    // The last step (its point, bank voltage and length; the accumulators before it are `before`).
+    let lastP: StepPoint | null = null;
+    let lastEmf = 0;
+    let lastDt = 0;
+    // The point solved at the end of the previous step (same load state): the next step starts there.
+    let carriedP: StepPoint | null = null;
+    let carriedState = -1;
+    const intervals = timeline.intervals;
+    outer: for (let n = 0; n < intervals.length; n++) {
+      const interval = intervals[n]!;
+      const state = stateIds[interval.state]!;
+      // Slack against a sliver step from rounding, relative to the interval or the step, whichever is
+      // shorter (a step longer than the whole outage must not swallow it).
+      const slack = 1e-9 * Math.min(step, interval.end - interval.start);
+      while (acc.t < interval.end - slack) {
+        const emf = bankOcv(bank, acc.soc);
+        const reuse = carriedP !== null && carriedState === state;
+        const p = reuse ? carriedP! : solver.solve(state, emf, R);
+        if (p === null) {
+          if (acc.t === 0) return cannotCarry(source.id, bank, 'the chain cannot be carried at the start of the outage: the bank voltage would collapse');
+          endReason = 'chain-collapse';
+          break outer;
         }
-        if (reuse && last && last.p.voltage > p.voltage) {
-          // Linear interpolation of the terminal voltage over the last step (same load throughout).
-          const f = (last.p.voltage - cutoff) / (last.p.voltage - p.voltage);
-          acc = advance(last.before, last.p, last.emf, last.dt * f);
-          dropLastSample();
-          record(acc.t, acc.soc, { ...last.p, voltage: cutoff });
-          acc.minV = Math.min(acc.minV, cutoff);
-        } else {
-          // The load stepped up at this instant and the voltage fell below the cut-off at once.
-          record(acc.t, acc.soc, p);
-          acc.minV = Math.min(acc.minV, p.voltage);
+        if (p.voltage < cutoff) {
+          if (acc.t === 0) {
+            return cannotCarry(source.id, bank, `the terminal voltage under the starting load, ${p.voltage.toFixed(2)} V, is already below the cut-off ${cutoff.toFixed(2)} V`);
+          }
+          if (reuse && lastP && lastP.voltage > p.voltage) {
+            // Linear interpolation of the terminal voltage over the last step (same load throughout).
+            const f = (lastP.voltage - cutoff) / (lastP.voltage - p.voltage);
+            copyAcc(acc, before);
+            advance(acc, lastP, lastEmf, lastDt * f);
+            dropLastSample();
+            record(acc.t, acc.soc, { ...lastP, voltage: cutoff });
+            acc.minV = Math.min(acc.minV, cutoff);
+          } else {
+            // The load stepped up at this instant and the voltage fell below the cut-off at once.
+            record(acc.t, acc.soc, p);
+            acc.minV = Math.min(acc.minV, p.voltage);
+          }
+          endReason = 'cut-off-voltage';
+          break outer;
         }
-        endReason = 'cut-off-voltage';
-        break outer;
-      }
-      if (!reuse) record(acc.t, acc.soc, p);
-      let dt = Math.min(step, interval.end - acc.t);
-      // Depth-of-discharge limit inside the step: the current is held, so SoC falls linearly.
-      const rate = rateOf(p.current);
-      const toLimit = rate > 0 ? ((acc.soc - socLimit) * availableAs) / rate : Infinity;
-      const hitsLimit = toLimit <= dt;
-      if (hitsLimit) dt = Math.max(0, toLimit);
-      const before = acc;
-      acc = advance(acc, p, emf, dt);
-      if (hitsLimit) acc.soc = socLimit;
-      last = { p, emf, dt, before, state };
-      // The point at the end of the step (same load, new state of charge): plotted, and the next step's start.
-      const after = solver.solve(state, bankOcv(bank, acc.soc), R);
-      carried = after === null ? null : { p: after, state };
-      record(acc.t, acc.soc, after ?? p);
-      if (hitsLimit) {
-        endReason = dodApplies ? 'depth-of-discharge' : 'rated-capacity';
-        break outer;
+        if (!reuse) record(acc.t, acc.soc, p);
+        let dt = Math.min(step, interval.end - acc.t);
+        // Depth-of-discharge limit inside the step: the current is held, so SoC falls linearly.
+        const rate = rateOf(p.current);
+        const toLimit = rate > 0 ? ((acc.soc - socLimit) * availableAs) / rate : Infinity;
+        const hitsLimit = toLimit <= dt;
+        if (hitsLimit) dt = Math.max(0, toLimit);
+        copyAcc(before, acc);
+        advance(acc, p, emf, dt);
+        if (hitsLimit) acc.soc = socLimit;
+        lastP = p;
+        lastEmf = emf;
+        lastDt = dt;
+        // The point at the end of the step (same load, new state of charge): plotted, and the next step's start.
+        const after = solver.solve(state, bankOcv(bank, acc.soc), R);
+        carriedP = after;
+        carriedState = state;
+        record(acc.t, acc.soc, after ?? p);
+        if (hitsLimit) {
+          endReason = dodApplies ? 'depth-of-discharge' : 'rated-capacity';
+          break outer;
+        }
       }
     }
-  }
+    return null;
+  };
+  const refused = integrate();
+  if (refused) return { ok: false, problems: [refused] };
 
   const runtime = acc.t;
   const peukertFactor = acc.charge > 0 ? acc.equivalent / acc.charge : 1;
@@ -278,7 +306,7 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
       ],
     };
   }
-  const idle: IdleDraw[] = noLoadDraws(fixed).map((d) => ({ ...d, energyWh: (d.watts * runtime) / H }));
+  const idle: IdleDraw[] = noLoadDraws(solver.order).map((d) => ({ ...d, energyWh: (d.watts * runtime) / H }));
   const averageLoadW = runtime > 0 ? acc.load / runtime : 0;
   const warnings: string[] = [];
   if (temp.extrapolated) {
