@@ -1,0 +1,136 @@
+/**
+ * One system in both its modes in the page (issue 19): the harbour clinic demo (an online UPS, a bank
+ * on its DC bus) shows a mode switch at the top of the results; switching it by keyboard and by tap
+ * shows the on-battery diagram and element table, whose figures equal core's solveModes / runModesStudy
+ * run here on the same project (the expected values are core's, checked by hand-worked cases in
+ * tests/modes/); phone 390×844 and desktop; axe clean. Screenshots go to tests/.artifacts/.
+ */
+import { join } from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { skipWithout } from '../tools/system-tools.ts';
+import { VIEWPORTS, artifacts, seriousAxeViolations, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { demoProjects, runModesStudy, solveModes } from '../../core/index.ts';
+import { formatPercent, formatPower } from '../../web/format/number.ts';
+import { solvedOf } from '../core/solved.ts';
+
+const demo = (id: string) => {
+  const d = demoProjects.find((x) => x.id === id);
+  if (!d) throw new Error(`no demo ${id}`);
+  return d.project as unknown as Record<string, unknown>;
+};
+
+/** Spaces of every kind as one ASCII space (the page joins numbers and units with a narrow no-break space). */
+const plain = (s: string | null | undefined) => (s ?? '').replace(/[\s\u202f\u00a0]+/g, ' ').trim();
+const fmt = (w: number) => plain(formatPower(w, 'en-US'));
+
+describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chromium', () => {
+  let app: ServedApp | undefined;
+  let browser: Browser | undefined;
+  let baseUrl = '';
+
+  beforeAll(async () => {
+    app = await serveBuiltApp('joulepath-modes-build-');
+    ({ browser, baseUrl } = app);
+  });
+
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  async function open(url: string, viewport: { width: number; height: number }, touch = false): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+    const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', hasTouch: touch, isMobile: touch });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    await page.goto(`${baseUrl}${url}`, { waitUntil: 'load' });
+    await page.getByTestId('results').waitFor();
+    return { context, page, errors };
+  }
+
+  /** The P in cell of an element's row in the element table. */
+  const pIn = (page: Page, id: string) => page.getByTestId('element-table').locator(`tr[data-element-id="${id}"] td`).first();
+
+  // Core's figures for the harbour clinic: the on-supply base solve, the on-battery variant and the modes study.
+  const solved = solvedOf(demo('harbour-clinic-ups'));
+  const modes = solveModes(solved)!;
+  const study = runModesStudy(solved, modes);
+  if (!modes.battery.ok || !study?.ok || 'ok' in study.study.battery) throw new Error('the harbour clinic demo has no on-battery mode');
+  const onBattery = modes.battery.result;
+  const batteryFigures = study.study.battery;
+  const supplyFigures = study.study.supply;
+
+  for (const [label, viewport, touch] of [
+    ['desktop', VIEWPORTS.desktop, false],
+    ['phone', VIEWPORTS.phone, true],
+  ] as const) {
+    it(`harbour clinic, ${label}: the switch shows each mode's diagram, table and balance, equal to core's`, async () => {
+      const { context, page, errors } = await open('#demo=harbour-clinic-ups', viewport, touch);
+      try {
+        const sw = page.getByTestId('mode-switch');
+        await sw.waitFor();
+        // A radio group with its name, on supply at first.
+        expect(await page.getByRole('radio', { name: 'On supply' }).isChecked()).toBe(true);
+        expect(await page.getByRole('radio', { name: 'On battery' }).isChecked()).toBe(false);
+        await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On supply');
+        // On supply the bank is a load on its bus drawing its float current; the supply's P in is the base solve's.
+        await expect.poll(async () => plain(await pIn(page, 'inverter').textContent())).toBe(fmt(solved.result.elements.find((e) => e.id === 'inverter')!.pIn));
+        // Both balances side by side, each equal to core's modes study.
+        await expect.poll(async () => plain(await page.getByTestId('balance-supply-source').textContent())).toBe(fmt(supplyFigures.sourcePower));
+        await expect.poll(async () => plain(await page.getByTestId('balance-battery-source').textContent())).toBe(fmt(batteryFigures.sourcePower));
+        expect(plain(await page.getByTestId('balance-battery-losses').textContent())).toBe(fmt(batteryFigures.losses));
+        expect(plain(await page.getByTestId('balance-battery-efficiency').textContent())).toBe(plain(formatPercent(batteryFigures.efficiency, 'en-US')));
+        expect(plain(await page.getByTestId('balance-supply-loads').textContent())).toBe(fmt(supplyFigures.loadPower));
+        // On battery the bank carries the rooms' 2400 W and the imaging's 900 W (the demo's own loads, core/demos/harbour-clinic-ups.json);
+        // on supply the bank's float is a load on the bus besides them.
+        expect(batteryFigures.loadPower).toBeCloseTo(3300, 6);
+        expect(supplyFigures.loadPower).toBeGreaterThan(3300);
+        if (label === 'desktop') {
+          // Side by side on a wide screen.
+          const a = await page.getByTestId('balance-supply').boundingBox();
+          const b = await page.getByTestId('balance-battery').boundingBox();
+          expect(Math.abs(a!.y - b!.y)).toBeLessThan(2);
+          expect(b!.x).toBeGreaterThan(a!.x + a!.width - 1);
+        }
+        await page.getByTestId('modes').screenshot({ path: join(artifacts, `modes-${label}-supply.png`) });
+
+        // Switch: by keyboard on the desktop (focus the checked radio, arrow to the next), by tap on the phone.
+        if (touch) await page.getByText('On battery', { exact: true }).tap();
+        else {
+          await page.getByRole('radio', { name: 'On supply' }).focus();
+          await page.keyboard.press('ArrowRight');
+        }
+        expect(await page.getByRole('radio', { name: 'On battery' }).isChecked()).toBe(true);
+        await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On battery');
+        await expect.poll(() => page.getByTestId('flow-mode').textContent()).toBe('Energy flow on battery');
+        // The bank is the root: its row's power is the on-battery source power; the supply and rectifier are gone.
+        const bankRow = onBattery.elements.find((e) => e.id === 'bank')!;
+        expect(onBattery.elements[0]!.id).toBe('bank');
+        await expect.poll(async () => plain(await pIn(page, 'inverter').textContent())).toBe(fmt(onBattery.elements.find((e) => e.id === 'inverter')!.pIn));
+        await expect.poll(() => page.getByTestId('element-table').locator('tr[data-element-id="rectifier"]').count()).toBe(0);
+        expect(await page.getByTestId('element-table').locator('tr[data-element-id="supply"]').count()).toBe(0);
+        expect(plain(await pIn(page, 'bank').textContent())).toBe(fmt(bankRow.pIn));
+        // The on-battery chain's totals row equals core's on-battery source power.
+        expect(plain(await page.getByTestId('totals-row').locator('td').first().textContent())).toBe(fmt(onBattery.totals.sourcePower));
+        // The diagram is of the on-battery chain: it names the bank, not the rectifier.
+        await page.getByTestId('energy-flow').scrollIntoViewIfNeeded();
+        await expect.poll(async () => (await page.getByTestId('energy-flow').textContent()) ?? '', { timeout: 15_000 }).toContain('VRLA bank');
+        expect(await page.getByTestId('energy-flow').textContent()).not.toContain('UPS rectifier');
+        await page.getByTestId('modes').scrollIntoViewIfNeeded();
+        await page.getByTestId('modes').screenshot({ path: join(artifacts, `modes-${label}-battery.png`) });
+        await page.screenshot({ path: join(artifacts, `modes-${label}-battery-page.png`), fullPage: false });
+
+        // Back to on supply (keyboard on the phone too: arrows move within the group).
+        await page.getByRole('radio', { name: 'On battery' }).focus();
+        await page.keyboard.press('ArrowLeft');
+        await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On supply');
+        await expect.poll(() => page.getByTestId('element-table').locator('tr[data-element-id="rectifier"]').count()).toBe(1);
+
+        expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
+        expect(await seriousAxeViolations(page)).toEqual([]);
+        expect(errors).toEqual([]);
+      } finally {
+        await context.close();
+      }
+    }, 90_000);
+  }
+});
