@@ -11,7 +11,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, seriousAxeViolations, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
 import { demoProjects, runModesStudy, solveModes } from '../../core/index.ts';
-import { formatPercent, formatPower } from '../../web/format/number.ts';
+import { formatCurrent, formatPercent, formatPower, formatSignificant, formatVoltage } from '../../web/format/number.ts';
+import { formatMoney } from '../../web/format/panels.ts';
 import { solvedOf } from '../core/solved.ts';
 
 const demo = (id: string) => {
@@ -133,4 +134,55 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
       }
     }, 90_000);
   }
+
+  it('harbour clinic: the standing-by panel shows core\'s charger sizing with N+1, the cost of standing by and the transfer; a setting edits the study', async () => {
+    const s = study.study;
+    const c = s.charger;
+    // IEEE Std 946: A = L + k·C/H; with the demo's 10 A modules and N+1 (core/demos/harbour-clinic-ups.json `standby`),
+    // modules = ⌈A ÷ 10⌉ + 1 (hand-checked in tests/modes/online-ups.test.ts).
+    expect(c.modules!.needed).toBe(Math.ceil(c.requiredCurrent / 10));
+    expect(c.modules!.installed).toBe(c.modules!.needed + 1);
+    const { context, page, errors } = await open('#demo=harbour-clinic-ups', VIEWPORTS.phone, true);
+    try {
+      await page.getByTestId('panel-standby').locator('summary').tap();
+      const panel = page.getByTestId('standby-panel');
+      await panel.waitFor();
+      await expect.poll(() => panel.getAttribute('data-state'), { timeout: 15_000 }).toBe('ready');
+      expect(plain(await page.getByTestId('standby-required-current').textContent())).toBe(plain(formatCurrent(c.requiredCurrent, 'en-US')));
+      expect(plain(await page.getByTestId('standby-recharge-current').textContent())).toBe(plain(formatCurrent(c.rechargeCurrent, 'en-US')));
+      expect(plain(await page.getByTestId('standby-modules').textContent())).toBe(`${c.modules!.needed} needed, ${c.modules!.installed} with N+1`);
+      expect(plain(await page.getByTestId('standby-charger').textContent())).toContain('IEEE');
+      expect(plain(await page.getByTestId('standby-losses').textContent())).toBe(fmt(s.standing.total));
+      expect(plain(await page.getByTestId('standby-energy').textContent())).toBe(`${plain(formatSignificant(s.standing.energyKWh, 4, 'en-US'))} kWh`);
+      // Priced at the demo's 0.28 per kWh (its `running` settings).
+      expect(plain(await page.getByTestId('standby-cost-year').textContent())).toBe(plain(formatMoney(s.standing.cost!, 'en-US')));
+      expect(plain(await page.getByTestId('standby-bus-transfer').textContent())).toBe(plain(formatVoltage(s.transfer!.busVoltageAtTransfer, 'en-US')));
+      expect(plain(await page.getByTestId('standby-current-step').textContent())).toBe(plain(formatCurrent(s.transfer!.currentStep, 'en-US')));
+      expect(await page.getByTestId('standby-which-mode').textContent()).toContain('battery backup study: on battery');
+      expect(await page.getByTestId('standby-cautions').textContent()).toContain('Local electrical codes');
+      await panel.screenshot({ path: join(artifacts, 'modes-phone-standby-panel.png') });
+
+      // Redundancy "None": the installed modules fall to those needed (core's own rule, run here on the changed project).
+      await page.getByTestId('standby-redundancy').selectOption('none');
+      const changed = structuredClone(demo('harbour-clinic-ups')) as { standby: Record<string, unknown> };
+      changed.standby['redundancy'] = 'none';
+      const again = runModesStudy(solvedOf(changed));
+      if (!again?.ok) throw new Error('the changed demo does not solve');
+      await expect.poll(async () => plain(await page.getByTestId('standby-modules').textContent())).toBe(`${again.study.charger.modules!.needed} needed`);
+      expect(again.study.charger.modules!.installed).toBe(again.study.charger.modules!.needed);
+
+      // The module current typed in: the count follows (core on the changed project).
+      const input = page.getByTestId('standby-module-current');
+      await input.fill('25');
+      await input.blur();
+      changed.standby['moduleCurrent'] = 25;
+      const third = runModesStudy(solvedOf(changed));
+      if (!third?.ok) throw new Error('the changed demo does not solve');
+      await expect.poll(async () => plain(await page.getByTestId('standby-modules').textContent())).toBe(`${third.study.charger.modules!.needed} needed`);
+      expect(await seriousAxeViolations(page)).toEqual([]);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 90_000);
 });
