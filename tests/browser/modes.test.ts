@@ -9,7 +9,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, seriousAxeViolations, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, chainOp, seriousAxeViolations, serveBuiltApp, showProjectsView, watchPageErrors, type ServedApp } from './harness.ts';
 import { demoProjects, runModesStudy, solveModes } from '../../core/index.ts';
 import { formatCurrent, formatPercent, formatPower, formatSignificant, formatVoltage } from '../../web/format/number.ts';
 import { formatMoney } from '../../web/format/panels.ts';
@@ -185,4 +185,66 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
       await context.close();
     }
   }, 90_000);
+
+  for (const [label, viewport, touch] of [
+    ['desktop', VIEWPORTS.desktop, false],
+    ['phone', VIEWPORTS.phone, true],
+  ] as const) {
+    it(`a DC plant built in the page, ${label}: "Add a battery bank on this bus" on the bus card, then both modes`, async () => {
+      const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', hasTouch: touch, isMobile: touch });
+      const page = await context.newPage();
+      const errors = watchPageErrors(page);
+      try {
+        await page.goto(baseUrl, { waitUntil: 'load' });
+        await showProjectsView(page);
+        await page.getByTestId('new-chain').click();
+        await page.locator('button[data-source="grid-1-230"]').click();
+        const cards = page.getByTestId('stage-card');
+        await expect.poll(() => cards.count()).toBe(1);
+        const add = async (op: string, kind: string) => {
+          await chainOp(page, op);
+          await page.getByTestId('kind-chooser').waitFor();
+          await page.locator(`.kind-option[data-kind="${kind}"]`).click();
+        };
+        // Supply → rectifier (its 48 V template) → DC bus → a DC load on the bus.
+        await add('op-add-after', 'rectifier');
+        await expect.poll(() => cards.count()).toBe(2);
+        await add('op-add-after', 'dc-bus');
+        await expect.poll(() => cards.count()).toBe(3);
+        await add('op-add-branch', 'dc-load');
+        await expect.poll(() => cards.count()).toBe(4);
+        // One mode only so far: no switch.
+        expect(await page.getByTestId('mode-switch').count()).toBe(0);
+        // The bus card offers the bank; the load card does not.
+        await cards.nth(3).click();
+        await expect.poll(() => page.getByTestId('card-tools').count()).toBe(1);
+        expect(await page.locator('[data-testid="op-add-bank"]').count()).toBe(0);
+        await cards.nth(2).click();
+        await chainOp(page, 'op-add-bank');
+        await expect.poll(() => cards.count()).toBe(5);
+        // 48 V ÷ (6 cells × 2.27 V per cell, VRLA float: common practice (no source)) = 3.5 → 4 blocks of 12 V.
+        await expect.poll(() => page.getByTestId('chain-editor').innerText()).toContain('Battery bank, 4 × 12 V 100 Ah');
+        // Both modes now: the switch, and on battery the bank at the root of the element table.
+        await page.getByTestId('mode-switch').waitFor({ timeout: 15_000 });
+        await expect.poll(async () => plain(await page.getByTestId('balance-battery-loads').textContent()), { timeout: 15_000 }).toBe(fmt(100));
+        if (touch) await page.getByText('On battery', { exact: true }).tap();
+        else await page.getByRole('radio', { name: 'On battery' }).check();
+        await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On battery');
+        await expect.poll(() => page.getByTestId('element-table').locator('tbody tr').first().getAttribute('data-element-id')).toBe('bank');
+        // The rectifier template's id is "charger" (web/editor/templates.ts): cut from the on-battery chain.
+        await expect.poll(() => page.getByTestId('element-table').locator('tr[data-element-id="charger"]').count()).toBe(0);
+        // The card's tools no longer offer a second bank (one bank on a bus per project).
+        await cards.nth(2).click();
+        await expect.poll(() => page.getByTestId('card-tools').count()).toBe(1);
+        expect(await page.locator('[data-testid="op-add-bank"]').count()).toBe(0);
+        await page.getByTestId('modes').scrollIntoViewIfNeeded();
+        await page.screenshot({ path: join(artifacts, `modes-${label}-built-plant.png`) });
+        expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
+        expect(await seriousAxeViolations(page)).toEqual([]);
+        expect(errors).toEqual([]);
+      } finally {
+        await context.close();
+      }
+    }, 90_000);
+  }
 });
