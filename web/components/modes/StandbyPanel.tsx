@@ -6,8 +6,7 @@
  * warnings, which mode each study used and the cautions. Every figure is core's; this file only formats.
  * Loaded on demand when its panel is opened (PanelShelf.tsx).
  */
-import type { Problem } from '../../../core/page.ts';
-import { PROJECT_LEVEL } from '../../../core/page.ts';
+import { fieldLabel, PROJECT_LEVEL, type Problem } from '../../../core/page.ts';
 import type { ModesStudyResult } from '../../../core/studies/index.ts';
 import { useWorkerReply } from '../panel-client.ts';
 import { formatCurrent, formatPercent, formatPower, formatSignificant, formatVoltage } from '../../format/number.ts';
@@ -16,7 +15,6 @@ import { effectiveLocale, unitSystem } from '../../state/prefs.ts';
 import { draft, getAt, lastSolved, resultsState, setField, type DraftProject } from '../../state/editor.ts';
 import { problemLine, messageText } from '../problem-words.ts';
 import { SettingField } from '../SettingField.tsx';
-import { fieldLabel } from '../../../core/model/field-labels.ts';
 import '../Panels.css';
 
 type Locale = string | undefined;
