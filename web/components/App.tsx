@@ -134,7 +134,7 @@ function ShownProject() {
           {modeWords && <p class="mode-tag" data-testid="flow-mode">Energy flow {modeWords.toLowerCase()}</p>}
           <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={shownResult!} /></Suspense>
           <WarningList result={result} />
-          <ElementTable result={shownResult!} mode={modeWords} />
+          <ElementTable result={shownResult!} twoModes={twoModes} />
           {modeWords && <p class="mode-tag" data-testid="tables-mode">The tables below: on supply</p>}
           <CableTable result={solved!} />
           <PortTable result={result} />

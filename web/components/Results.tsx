@@ -87,7 +87,9 @@ const ElementRow = memo(function ElementRow({ elementId, name, kind, depth, cell
   );
 }, sameElementRow);
 
-export const ElementTable = lagOffscreen(function ElementTable({ result, mode, box }: { result: SolveResult; /** Which mode it shows, for a project with a bank on a bus ("On battery"). */ mode?: string } & Box) {
+export const ElementTable = lagOffscreen(function ElementTable({ result, twoModes, box }: { result: SolveResult; /** A project with a bank on a bus: say which mode the table shows. */ twoModes?: boolean } & Box) {
+  // Read from the result shown (which lags while off screen), never from the switch: on battery the bank is the root.
+  const mode = twoModes ? (result.elements[0]?.kind === 'battery' ? 'On battery' : 'On supply') : undefined;
   const depth = depths(result.elements);
   const t = result.totals;
   const loc = effectiveLocale();
