@@ -130,7 +130,7 @@ function ShownProject() {
         <div class={stale ? 'results results--stale' : 'results'} data-testid="results" data-state={resultsState.value}>
           <StaleNotice />
           <Suspense fallback={null}><ClientReport solved={solved!} stale={stale} /></Suspense>
-          {twoModes && <Suspense fallback={null}><ModeResults solved={solved!} /></Suspense>}
+          {twoModes && <Suspense fallback={null}><ModeResults key={openCount.value} solved={solved!} /></Suspense>}
           {modeWords && <p class="mode-tag" data-testid="flow-mode">Energy flow {modeWords.toLowerCase()}</p>}
           <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={shownResult!} /></Suspense>
           <WarningList result={result} />

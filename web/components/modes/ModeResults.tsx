@@ -62,6 +62,8 @@ export default function ModeResults({ solved }: { solved: Solved }) {
   useEffect(() => {
     if (reply && reply.kind === 'modes') modesReply.value = { for: solved, outcome: reply.outcome };
   }, [reply]);
+  // Another project opened (App.tsx keys this part by it) starts on supply again.
+  useEffect(() => () => void (shownMode.value = 'supply'), []);
   const mode = shownMode.value;
   const outcome = reply?.kind === 'modes' ? reply.outcome : null;
   const study = outcome?.ok && outcome.study.ok ? outcome.study.study : null;
