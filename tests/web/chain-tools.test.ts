@@ -5,7 +5,7 @@
 // practice (no source).
 import { describe, expect, it } from 'vitest';
 import { demoProjects } from '../../core/index.ts';
-import { CARD_ACTIONS, fittingActions, PRIMARY_ACTIONS, type CardAction } from '../../web/components/chain/tools.ts';
+import { addBankOnBus, CARD_ACTIONS, fittingActions, PRIMARY_ACTIONS, type CardAction } from '../../web/components/chain/tools.ts';
 import { offeredTemplates } from '../../web/editor/templates.ts';
 import {
   draft,
@@ -28,6 +28,7 @@ const RUN: Record<Exclude<CardAction, 'after' | 'branch' | 'before'>, (id: strin
   downstream: moveDownstream,
   branchUp: (id) => reorderBranch(id, -1),
   branchDown: (id) => reorderBranch(id, 1),
+  addBank: (id) => addBankOnBus(draft.value!, id),
 };
 
 function open(project: unknown): DraftProject {
@@ -70,5 +71,43 @@ describe('the selected card’s tools', () => {
     const atRoot = fittingActions(p, root.id);
     for (const a of ['before', 'remove', 'removeBranch', 'duplicate', 'upstream', 'downstream', 'branchUp', 'branchDown'] as const) expect(atRoot).not.toContain(a);
     expect(PRIMARY_ACTIONS.length).toBeLessThan(CARD_ACTIONS.length);
+  });
+});
+
+describe('a battery bank on a DC bus (issue 19)', () => {
+  // A 48 V DC plant: supply → rectifier holding 54 V → DC bus → 500 W of DC loads (invented for the test).
+  const plant = {
+    format: 'joulepath-project',
+    version: 2,
+    name: 'DC plant',
+    elements: [
+      { id: 'supply', name: 'Supply', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },
+      { id: 'rect', name: 'Rectifier', kind: 'rectifier', from: 'supply', outputVoltage: 54, inputPowerFactor: 0.95, loss: { model: 'constant', efficiency: 0.92 } },
+      { id: 'bus', name: 'DC bus', kind: 'dc-bus', from: 'rect', fixedLoss: 5 },
+      { id: 'load', name: 'Radios', kind: 'dc-load', from: 'bus', power: 500 },
+    ],
+  };
+
+  it('is offered on the DC bus card only, once, and the chain then solves in both modes', async () => {
+    const p = open(plant);
+    expect(fittingActions(p, 'bus')).toContain('addBank');
+    for (const id of ['supply', 'rect', 'load']) expect(fittingActions(p, id)).not.toContain('addBank');
+    expect(addBankOnBus(p, 'bus').ok).toBe(true);
+    const withBank = draft.value!;
+    const bank = withBank.elements.find((e) => e.kind === 'battery')!;
+    expect(bank.from).toBe('bus');
+    // 54 V float ÷ (6 cells × 2.27 V per cell, VRLA float at 25 °C: common practice (no source)) = 3.97 → 4 blocks of 12 V (a 48 V plant's 24 cells).
+    expect((bank['bank'] as { series: number }).series).toBe(4);
+    expect(bank.name).toBe('Battery bank, 4 × 12 V 100 Ah');
+    // One bank on a bus per project (core/solve/structure.ts): not offered again.
+    expect(fittingActions(withBank, 'bus')).not.toContain('addBank');
+    expect(addBankOnBus(withBank, 'bus').ok).toBe(false);
+    const { solveProject, solveModes } = await import('../../core/index.ts');
+    const solved = solveProject(withBank);
+    expect(solved.ok).toBe(true);
+    const modes = solved.ok ? solveModes(solved) : null;
+    expect(modes?.battery.ok).toBe(true);
+    // On battery the bank carries the 500 W of loads (the test's own figure).
+    if (modes?.battery.ok) expect(modes.battery.result.totals.loadPower).toBeCloseTo(500, 6);
   });
 });

@@ -12,6 +12,7 @@ import { ProblemList } from './ProblemList.tsx';
 import { CableTable, ElementTable, MethodNote, PortTable, WarningList } from './Results.tsx';
 import { PanelDisclosure, PanelShelf } from './PanelShelf.tsx';
 import { AnswersStrip } from './answers/AnswersStrip.tsx';
+import { batteryResultFor, hasBankOnBus, MODE_WORDS, shownMode } from './modes/mode-state.ts';
 import { lazy, memo, Suspense } from 'preact/compat';
 import { useSignal } from '@preact/signals';
 import { useEffect, useLayoutEffect, useRef } from 'preact/hooks';
@@ -32,6 +33,9 @@ const ChainEditor = memo(lazy(() => import('./ChainEditor.tsx')));
 /** Project-level settings (name, description, voltage-drop limits): loaded when opened. */
 /** The read-only notice of a project opened from a share link: loaded only then. */
 const SharedBanner = lazy(() => import('./report/SharedBanner.tsx').then((m) => ({ default: m.SharedBanner })));
+
+/** A bank on a bus: the mode switch and both modes' balance (issue 19), loaded only for such a project. */
+const ModeResults = lazy(() => import('./modes/ModeResults.tsx'));
 
 const ProjectForm = lazy(() => import('./ProjectForm.tsx').then((m) => ({ default: m.ProjectForm })));
 
@@ -96,6 +100,11 @@ function ShownProject() {
   const crashed = crashMessage.value;
   const stale = resultsState.value === 'stale';
   const shared = origin?.kind === 'shared';
+  // A bank on a bus: the diagram and the element table show the chosen mode (the on-battery result from the worker, web/components/modes/).
+  const twoModes = solved !== null && hasBankOnBus(solved.project);
+  const onBattery = twoModes && shownMode.value === 'battery' ? batteryResultFor(solved!) : null;
+  const shownResult = onBattery ?? result;
+  const modeWords = twoModes ? (onBattery ? MODE_WORDS.battery : MODE_WORDS.supply) : undefined;
   return (
     <article class="project" aria-labelledby="project-heading" data-testid="project">
       <header class="project__header">
@@ -121,9 +130,12 @@ function ShownProject() {
         <div class={stale ? 'results results--stale' : 'results'} data-testid="results" data-state={resultsState.value}>
           <StaleNotice />
           <Suspense fallback={null}><ClientReport solved={solved!} stale={stale} /></Suspense>
-          <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={result} /></Suspense>
+          {twoModes && <Suspense fallback={null}><ModeResults key={openCount.value} solved={solved!} /></Suspense>}
+          {modeWords && <p class="mode-tag" data-testid="flow-mode">Energy flow {modeWords.toLowerCase()}</p>}
+          <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={shownResult!} /></Suspense>
           <WarningList result={result} />
-          <ElementTable result={result} />
+          <ElementTable result={shownResult!} twoModes={twoModes} />
+          {modeWords && <p class="mode-tag" data-testid="tables-mode">The tables below: on supply</p>}
           <CableTable result={solved!} />
           <PortTable result={result} />
           <MethodNote result={result} />

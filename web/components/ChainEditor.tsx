@@ -53,7 +53,7 @@ import { keyInputs, StageCard } from './StageCard.tsx';
 import { useOffscreenLag, type BoxRef } from './lag.ts';
 import { StageForm } from './StageForm.tsx';
 import { ADD_WORDS, MoreMenu, NOTHING_OFFERED, TOOL_WORDS, type ToolAction, ToolButton } from './chain/Toolbar.tsx';
-import { fittingActions, PRIMARY_ACTIONS } from './chain/tools.ts';
+import { addBankOnBus, fittingActions, PRIMARY_ACTIONS } from './chain/tools.ts';
 import { layoutOf, neighbour } from './chain/card-layout.ts';
 import './ChainEditor.css';
 
@@ -200,6 +200,7 @@ const ChainEditorView = memo(function ChainEditorView({
       branchDown: () => reorderBranch(selected, 1),
       remove: () => removeElement(selected),
       removeBranch: () => removeBranch(selected),
+      addBank: () => addBankOnBus(draft.value!, selected),
     } satisfies Record<Exclude<ToolAction, 'undo' | 'redo' | AddOperation>, () => OperationOutcome>;
     run(ops[action]);
   };

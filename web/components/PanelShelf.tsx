@@ -9,12 +9,15 @@ import type { Solved } from '../../core/page.ts';
 import { studiesOf } from '../state/engine.ts';
 import { useOffscreenLag } from './lag.ts';
 import { workingRequest } from '../state/working.ts';
+import { hasBankOnBus } from './modes/mode-state.ts';
 
 /** The battery, conductor and machines panels: each module loads the first time its panel is opened. */
 const BatteryPanel = lazy(() => import('./BatteryPanel.tsx'));
 const ConductorPanel = lazy(() => import('./ConductorPanel.tsx'));
 const MachinesPanel = lazy(() => import('./MachinesPanel.tsx'));
 const StartingPanel = lazy(() => import('./StartingPanel.tsx'));
+/** A bank on a bus (issue 19): the charger sizing, the cost of standing by and the transfer. */
+const StandbyPanel = lazy(() => import('./modes/StandbyPanel.tsx'));
 /**
  * Brings the asked-for figure (its `data-testid`) or the element's row (`data-element-id`) of an opened
  * panel into view, marks it and gives it the focus. The panel loads lazily and its study may come from
@@ -88,6 +91,11 @@ export function PanelShelf({ solved: latest }: { solved: Solved }) {
       {battery && (
         <PanelDisclosure id="battery" title="Battery backup" hint="runtime, why not Wh ÷ W, bank sizing, recharge, plot">
           {() => <BatteryPanel />}
+        </PanelDisclosure>
+      )}
+      {hasBankOnBus(project) && (
+        <PanelDisclosure id="standby" title="Standing by and transfer" hint="charger sizing with N+1, what standing by costs a year, the moment the supply is cut">
+          {() => <StandbyPanel />}
         </PanelDisclosure>
       )}
       {conductors && (

@@ -87,7 +87,9 @@ const ElementRow = memo(function ElementRow({ elementId, name, kind, depth, cell
   );
 }, sameElementRow);
 
-export const ElementTable = lagOffscreen(function ElementTable({ result, box }: { result: SolveResult } & Box) {
+export const ElementTable = lagOffscreen(function ElementTable({ result, twoModes, box }: { result: SolveResult; /** A project with a bank on a bus: say which mode the table shows. */ twoModes?: boolean } & Box) {
+  // Read from the result shown (which lags while off screen), never from the switch: on battery the bank is the root.
+  const mode = twoModes ? (result.elements[0]?.kind === 'battery' ? 'On battery' : 'On supply') : undefined;
   const depth = depths(result.elements);
   const t = result.totals;
   const loc = effectiveLocale();
@@ -96,6 +98,7 @@ export const ElementTable = lagOffscreen(function ElementTable({ result, box }: 
   return (
     <section class="skip-offscreen" aria-labelledby="elements-heading">
       <h3 id="elements-heading">Power at each element</h3>
+      {mode && <p class="mode-tag" data-testid="element-table-mode">{mode}</p>}
       <CsvButton name="Power at each element" />
       {/* The table itself is the lagging box: a heading showing at the screen's edge does not make the whole table render in the edit's frame. */}
       <div class="table-scroll" role="region" aria-labelledby="elements-heading" tabIndex={0} ref={box}>

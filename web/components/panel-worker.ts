@@ -13,15 +13,25 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, type StudyAnswers } from '../../core/studies/index.ts';
-import { elementNames, nonFiniteProblems, type Problem, type Solved } from '../../core/page.ts';
+import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers } from '../../core/studies/index.ts';
+import { elementNames, nonFiniteProblems, type Problem, type Solved, type SolveResult } from '../../core/page.ts';
 
 export type PanelRequest =
   | { kind: 'battery'; solved: Solved }
   | { kind: 'machines'; solved: Solved; cost: CostSettings | null }
   | { kind: 'pfc'; solved: Solved; at: string; targetPowerFactor: number }
   /** The answers strip's study figures (runtime, bank for the target, start verdicts, cost of losses). */
-  | { kind: 'answers'; solved: Solved; cost: CostSettings | null };
+  | { kind: 'answers'; solved: Solved; cost: CostSettings | null }
+  /** A bank on a bus: the on-battery solve and the modes study (web/components/modes/). */
+  | { kind: 'modes'; solved: Solved };
+
+/** Both modes of a project with a bank on a bus: the on-battery result (the on-supply one is the page's own solve) and the modes study. */
+export interface ModesReply {
+  kind: 'modes';
+  outcome:
+    | { ok: true; battery: { ok: true; result: SolveResult } | { ok: false; problems: Problem[] }; study: { ok: true; study: ModesStudyResult } | { ok: false; problems: Problem[] } }
+    | { ok: false; problems: Problem[] };
+}
 
 export interface AnswersReply {
   kind: 'answers';
@@ -55,7 +65,7 @@ export interface PfcReply {
   outcome: { ok: true; correction: PfCorrectionShown } | { ok: false; problems: Problem[] };
 }
 
-export type PanelReply = (BatteryReply | MachinesReply | PfcReply | AnswersReply | { kind: 'crash'; message: string }) & {
+export type PanelReply = (BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | { kind: 'crash'; message: string }) & {
   /** Time the work took in the worker, ms. */
   ms: number;
 };
@@ -112,6 +122,24 @@ function answers(solved: Solved, cost: CostSettings | null): AnswersReply {
   return { kind: 'answers', outcome: { ok: true, answers: a } };
 }
 
+function modes(solved: Solved): ModesReply {
+  const m = solveModes(solved);
+  if (!m) return { kind: 'modes', outcome: { ok: false, problems: [] } };
+  const names = elementNames(solved.project);
+  let battery: { ok: true; result: SolveResult } | { ok: false; problems: Problem[] } = m.battery.ok ? { ok: true, result: m.battery.result } : { ok: false, problems: m.battery.problems };
+  if (battery.ok) {
+    const notFinite = nonFiniteProblems('The on-battery mode', battery.result, elementNames(m.battery.ok ? m.battery.project : solved.project));
+    if (notFinite.length) battery = { ok: false, problems: notFinite };
+  }
+  const o = runModesStudy(solved, m);
+  let study: { ok: true; study: ModesStudyResult } | { ok: false; problems: Problem[] } = o ?? { ok: false, problems: [] };
+  if (study.ok) {
+    const notFinite = nonFiniteProblems('The standing-by and transfer study', study.study, names);
+    if (notFinite.length) study = { ok: false, problems: notFinite };
+  }
+  return { kind: 'modes', outcome: { ok: true, battery, study } };
+}
+
 /** The worker's side of the messages (typed here so the page's tsconfig needs no worker library). */
 const scope = globalThis as unknown as {
   onmessage: ((event: { data: { id: number; request: PanelRequest } }) => void) | null;
@@ -121,7 +149,7 @@ const scope = globalThis as unknown as {
 scope.onmessage = (event) => {
   const { id, request } = event.data;
   const t0 = performance.now();
-  let reply: BatteryReply | MachinesReply | PfcReply | AnswersReply | { kind: 'crash'; message: string };
+  let reply: BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | { kind: 'crash'; message: string };
   try {
     switch (request.kind) {
       case 'battery':
@@ -135,6 +163,9 @@ scope.onmessage = (event) => {
         break;
       case 'answers':
         reply = answers(request.solved, request.cost);
+        break;
+      case 'modes':
+        reply = modes(request.solved);
         break;
     }
   } catch (error) {

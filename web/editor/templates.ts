@@ -464,3 +464,28 @@ export const SOURCE_TEMPLATES: readonly SourceTemplate[] = [
     element: { id: 'bank', name: '48 V LiFePO4 bank', kind: 'battery', bank: { chemistry: 'lifepo4', series: 16, strings: 1, capacityAh: 100 } },
   },
 ];
+
+/**
+ * A bank on a bus (issue 19): offered on a DC bus card of a chain fed from a supply, while the project
+ * holds no bank on a bus yet (a project holds one, core/solve/structure.ts). The preset: VRLA AGM 12 V
+ * 100 Ah blocks (6 cells each), as many in series as make the bus's voltage the float voltage, at
+ * 2.27 V per cell (VRLA float, 2.25–2.30 V per cell at 25 °C: common practice (no source); the maker's
+ * figure governs); one string. Null when the card is no DC bus, the bus's voltage is unknown, or a bank
+ * already sits on a bus.
+ */
+export function bankOnBusTemplate(project: DraftProject, busId: string): DraftElement | null {
+  const bus = project.elements.find((e) => e.id === busId);
+  if (!bus || bus.kind !== 'dc-bus') return null;
+  const root = project.elements.find((e) => e.from === undefined);
+  if (!root || root.kind === 'battery') return null;
+  if (project.elements.some((e) => isBankOnBus(e))) return null;
+  const v = nominalPorts(project).get(busId)?.voltage;
+  if (v === undefined || !(v > 0)) return null;
+  const series = Math.max(1, Math.round(v / (6 * 2.27)));
+  return {
+    id: 'bank',
+    name: `Battery bank, ${series} × 12 V 100 Ah`,
+    kind: 'battery',
+    bank: { chemistry: 'vrla-agm', series, cellsPerBlock: 6, strings: 1, capacityAh: 100 },
+  };
+}

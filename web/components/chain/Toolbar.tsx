@@ -34,7 +34,7 @@ const Icon = memo(function Icon({ name }: { name: keyof typeof ICONS }) {
 });
 
 /** What a toolbar button does (ChainEditor's `act` carries it out). */
-export type ToolAction = 'undo' | 'redo' | AddOperation | 'duplicate' | 'upstream' | 'downstream' | 'branchUp' | 'branchDown' | 'remove' | 'removeBranch';
+export type ToolAction = 'undo' | 'redo' | AddOperation | 'addBank' | 'duplicate' | 'upstream' | 'downstream' | 'branchUp' | 'branchDown' | 'remove' | 'removeBranch';
 
 /**
  * memo: every prop is a plain value and `onAct` keeps one identity, so an edit elsewhere (typing in
@@ -89,6 +89,7 @@ export const TOOL_WORDS: Record<Exclude<ToolAction, 'undo' | 'redo'>, { icon: ke
   branchUp: { icon: 'up', label: 'Branch up', testId: 'op-branch-up' },
   branchDown: { icon: 'down', label: 'Branch down', testId: 'op-branch-down' },
   remove: { icon: 'remove', label: 'Remove', testId: 'op-remove' },
+  addBank: { icon: 'branch', label: 'Add a battery bank on this bus', testId: 'op-add-bank' },
   removeBranch: { icon: 'removeBranch', label: 'Remove branch', testId: 'op-remove-branch' },
 };
 

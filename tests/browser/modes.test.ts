@@ -1,0 +1,250 @@
+/**
+ * One system in both its modes in the page (issue 19): the harbour clinic demo (an online UPS, a bank
+ * on its DC bus) shows a mode switch at the top of the results; switching it by keyboard and by tap
+ * shows the on-battery diagram and element table, whose figures equal core's solveModes / runModesStudy
+ * run here on the same project (the expected values are core's, checked by hand-worked cases in
+ * tests/modes/); phone 390×844 and desktop; axe clean. Screenshots go to tests/.artifacts/.
+ */
+import { join } from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { skipWithout } from '../tools/system-tools.ts';
+import { VIEWPORTS, artifacts, chainOp, seriousAxeViolations, serveBuiltApp, showProjectsView, watchPageErrors, type ServedApp } from './harness.ts';
+import { demoProjects, runModesStudy, solveModes } from '../../core/index.ts';
+import { formatCurrent, formatPercent, formatPower, formatSignificant, formatVoltage } from '../../web/format/number.ts';
+import { formatMoney } from '../../web/format/panels.ts';
+import { solvedOf } from '../core/solved.ts';
+
+const demo = (id: string) => {
+  const d = demoProjects.find((x) => x.id === id);
+  if (!d) throw new Error(`no demo ${id}`);
+  return d.project as unknown as Record<string, unknown>;
+};
+
+/** Spaces of every kind as one ASCII space (the page joins numbers and units with a narrow no-break space). */
+const plain = (s: string | null | undefined) => (s ?? '').replace(/[\s\u202f\u00a0]+/g, ' ').trim();
+const fmt = (w: number) => plain(formatPower(w, 'en-US'));
+
+describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chromium', () => {
+  let app: ServedApp | undefined;
+  let browser: Browser | undefined;
+  let baseUrl = '';
+
+  beforeAll(async () => {
+    app = await serveBuiltApp('joulepath-modes-build-');
+    ({ browser, baseUrl } = app);
+  });
+
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  async function open(url: string, viewport: { width: number; height: number }, touch = false): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+    const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', hasTouch: touch, isMobile: touch });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    await page.goto(`${baseUrl}${url}`, { waitUntil: 'load' });
+    await page.getByTestId('results').waitFor();
+    return { context, page, errors };
+  }
+
+  /** The P in cell of an element's row in the element table. */
+  const pIn = (page: Page, id: string) => page.getByTestId('element-table').locator(`tr[data-element-id="${id}"] td`).first();
+
+  // Core's figures for the harbour clinic: the on-supply base solve, the on-battery variant and the modes study.
+  const solved = solvedOf(demo('harbour-clinic-ups'));
+  const modes = solveModes(solved)!;
+  const study = runModesStudy(solved, modes);
+  if (!modes.battery.ok || !study?.ok || 'ok' in study.study.battery) throw new Error('the harbour clinic demo has no on-battery mode');
+  const onBattery = modes.battery.result;
+  const batteryFigures = study.study.battery;
+  const supplyFigures = study.study.supply;
+
+  for (const [label, viewport, touch] of [
+    ['desktop', VIEWPORTS.desktop, false],
+    ['phone', VIEWPORTS.phone, true],
+  ] as const) {
+    it(`harbour clinic, ${label}: the switch shows each mode's diagram, table and balance, equal to core's`, async () => {
+      const { context, page, errors } = await open('#demo=harbour-clinic-ups', viewport, touch);
+      try {
+        const sw = page.getByTestId('mode-switch');
+        await sw.waitFor();
+        // A radio group with its name, on supply at first.
+        expect(await page.getByRole('radio', { name: 'On supply' }).isChecked()).toBe(true);
+        expect(await page.getByRole('radio', { name: 'On battery' }).isChecked()).toBe(false);
+        await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On supply');
+        // On supply the bank is a load on its bus drawing its float current; the supply's P in is the base solve's.
+        await expect.poll(async () => plain(await pIn(page, 'inverter').textContent())).toBe(fmt(solved.result.elements.find((e) => e.id === 'inverter')!.pIn));
+        // Both balances side by side, each equal to core's modes study.
+        await expect.poll(async () => plain(await page.getByTestId('balance-supply-source').textContent())).toBe(fmt(supplyFigures.sourcePower));
+        await expect.poll(async () => plain(await page.getByTestId('balance-battery-source').textContent())).toBe(fmt(batteryFigures.sourcePower));
+        expect(plain(await page.getByTestId('balance-battery-losses').textContent())).toBe(fmt(batteryFigures.losses));
+        expect(plain(await page.getByTestId('balance-battery-efficiency').textContent())).toBe(plain(formatPercent(batteryFigures.efficiency, 'en-US')));
+        expect(plain(await page.getByTestId('balance-supply-loads').textContent())).toBe(fmt(supplyFigures.loadPower));
+        // On battery the bank carries the rooms' 2400 W and the imaging's 900 W (the demo's own loads, core/demos/harbour-clinic-ups.json);
+        // on supply the bank's float is a load on the bus besides them.
+        expect(batteryFigures.loadPower).toBeCloseTo(3300, 6);
+        expect(supplyFigures.loadPower).toBeGreaterThan(3300);
+        if (label === 'desktop') {
+          // Side by side on a wide screen.
+          const a = await page.getByTestId('balance-supply').boundingBox();
+          const b = await page.getByTestId('balance-battery').boundingBox();
+          expect(Math.abs(a!.y - b!.y)).toBeLessThan(2);
+          expect(b!.x).toBeGreaterThan(a!.x + a!.width - 1);
+        }
+        await page.getByTestId('modes').screenshot({ path: join(artifacts, `modes-${label}-supply.png`) });
+
+        // Switch: by keyboard on the desktop (focus the checked radio, arrow to the next), by tap on the phone.
+        if (touch) await page.getByText('On battery', { exact: true }).tap();
+        else {
+          await page.getByRole('radio', { name: 'On supply' }).focus();
+          await page.keyboard.press('ArrowRight');
+        }
+        expect(await page.getByRole('radio', { name: 'On battery' }).isChecked()).toBe(true);
+        await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On battery');
+        await expect.poll(() => page.getByTestId('flow-mode').textContent()).toBe('Energy flow on battery');
+        // The bank is the root: its row's power is the on-battery source power; the supply and rectifier are gone.
+        const bankRow = onBattery.elements.find((e) => e.id === 'bank')!;
+        expect(onBattery.elements[0]!.id).toBe('bank');
+        await expect.poll(async () => plain(await pIn(page, 'inverter').textContent())).toBe(fmt(onBattery.elements.find((e) => e.id === 'inverter')!.pIn));
+        await expect.poll(() => page.getByTestId('element-table').locator('tr[data-element-id="rectifier"]').count()).toBe(0);
+        expect(await page.getByTestId('element-table').locator('tr[data-element-id="supply"]').count()).toBe(0);
+        expect(plain(await pIn(page, 'bank').textContent())).toBe(fmt(bankRow.pIn));
+        // The on-battery chain's totals row equals core's on-battery source power.
+        expect(plain(await page.getByTestId('totals-row').locator('td').first().textContent())).toBe(fmt(onBattery.totals.sourcePower));
+        // The diagram is of the on-battery chain: it names the bank, not the rectifier.
+        await page.getByTestId('energy-flow').scrollIntoViewIfNeeded();
+        await expect.poll(async () => (await page.getByTestId('energy-flow').textContent()) ?? '', { timeout: 15_000 }).toContain('VRLA bank');
+        expect(await page.getByTestId('energy-flow').textContent()).not.toContain('UPS rectifier');
+        await page.getByTestId('modes').scrollIntoViewIfNeeded();
+        await page.getByTestId('modes').screenshot({ path: join(artifacts, `modes-${label}-battery.png`) });
+        await page.screenshot({ path: join(artifacts, `modes-${label}-battery-page.png`), fullPage: false });
+
+        // Back to on supply (keyboard on the phone too: arrows move within the group).
+        await page.getByRole('radio', { name: 'On battery' }).focus();
+        await page.keyboard.press('ArrowLeft');
+        await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On supply');
+        await expect.poll(() => page.getByTestId('element-table').locator('tr[data-element-id="rectifier"]').count()).toBe(1);
+
+        expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
+        expect(await seriousAxeViolations(page)).toEqual([]);
+        expect(errors).toEqual([]);
+      } finally {
+        await context.close();
+      }
+    }, 90_000);
+  }
+
+  it('harbour clinic: the standing-by panel shows core\'s charger sizing with N+1, the cost of standing by and the transfer; a setting edits the study', async () => {
+    const s = study.study;
+    const c = s.charger;
+    // IEEE Std 946: A = L + k·C/H; with the demo's 10 A modules and N+1 (core/demos/harbour-clinic-ups.json `standby`),
+    // modules = ⌈A ÷ 10⌉ + 1 (hand-checked in tests/modes/online-ups.test.ts).
+    expect(c.modules!.needed).toBe(Math.ceil(c.requiredCurrent / 10));
+    expect(c.modules!.installed).toBe(c.modules!.needed + 1);
+    const { context, page, errors } = await open('#demo=harbour-clinic-ups', VIEWPORTS.phone, true);
+    try {
+      await page.getByTestId('panel-standby').locator('summary').tap();
+      const panel = page.getByTestId('standby-panel');
+      await panel.waitFor();
+      await expect.poll(() => panel.getAttribute('data-state'), { timeout: 15_000 }).toBe('ready');
+      expect(plain(await page.getByTestId('standby-required-current').textContent())).toBe(plain(formatCurrent(c.requiredCurrent, 'en-US')));
+      expect(plain(await page.getByTestId('standby-recharge-current').textContent())).toBe(plain(formatCurrent(c.rechargeCurrent, 'en-US')));
+      expect(plain(await page.getByTestId('standby-modules').textContent())).toBe(`${c.modules!.needed} needed, ${c.modules!.installed} with N+1`);
+      expect(plain(await page.getByTestId('standby-charger').textContent())).toContain('IEEE');
+      expect(plain(await page.getByTestId('standby-losses').textContent())).toBe(fmt(s.standing.total));
+      expect(plain(await page.getByTestId('standby-energy').textContent())).toBe(`${plain(formatSignificant(s.standing.energyKWh, 4, 'en-US'))} kWh`);
+      // Priced at the demo's 0.28 per kWh (its `running` settings).
+      expect(plain(await page.getByTestId('standby-cost-year').textContent())).toBe(plain(formatMoney(s.standing.cost!, 'en-US')));
+      expect(plain(await page.getByTestId('standby-bus-transfer').textContent())).toBe(plain(formatVoltage(s.transfer!.busVoltageAtTransfer, 'en-US')));
+      expect(plain(await page.getByTestId('standby-current-step').textContent())).toBe(plain(formatCurrent(s.transfer!.currentStep, 'en-US')));
+      expect(await page.getByTestId('standby-which-mode').textContent()).toContain('battery backup study: on battery');
+      expect(await page.getByTestId('standby-cautions').textContent()).toContain('Local electrical codes');
+      await panel.screenshot({ path: join(artifacts, 'modes-phone-standby-panel.png') });
+
+      // Redundancy "None": the installed modules fall to those needed (core's own rule, run here on the changed project).
+      await page.getByTestId('standby-redundancy').selectOption('none');
+      const changed = structuredClone(demo('harbour-clinic-ups')) as { standby: Record<string, unknown> };
+      changed.standby['redundancy'] = 'none';
+      const again = runModesStudy(solvedOf(changed));
+      if (!again?.ok) throw new Error('the changed demo does not solve');
+      await expect.poll(async () => plain(await page.getByTestId('standby-modules').textContent())).toBe(`${again.study.charger.modules!.needed} needed`);
+      expect(again.study.charger.modules!.installed).toBe(again.study.charger.modules!.needed);
+
+      // The module current typed in: the count follows (core on the changed project).
+      const input = page.getByTestId('standby-module-current');
+      await input.fill('25');
+      await input.blur();
+      changed.standby['moduleCurrent'] = 25;
+      const third = runModesStudy(solvedOf(changed));
+      if (!third?.ok) throw new Error('the changed demo does not solve');
+      await expect.poll(async () => plain(await page.getByTestId('standby-modules').textContent())).toBe(`${third.study.charger.modules!.needed} needed`);
+      expect(await seriousAxeViolations(page)).toEqual([]);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 90_000);
+
+  for (const [label, viewport, touch] of [
+    ['desktop', VIEWPORTS.desktop, false],
+    ['phone', VIEWPORTS.phone, true],
+  ] as const) {
+    it(`a DC plant built in the page, ${label}: "Add a battery bank on this bus" on the bus card, then both modes`, async () => {
+      const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', hasTouch: touch, isMobile: touch });
+      const page = await context.newPage();
+      const errors = watchPageErrors(page);
+      try {
+        await page.goto(baseUrl, { waitUntil: 'load' });
+        await showProjectsView(page);
+        await page.getByTestId('new-chain').click();
+        await page.locator('button[data-source="grid-1-230"]').click();
+        const cards = page.getByTestId('stage-card');
+        await expect.poll(() => cards.count()).toBe(1);
+        const add = async (op: string, kind: string) => {
+          await chainOp(page, op);
+          await page.getByTestId('kind-chooser').waitFor();
+          await page.locator(`.kind-option[data-kind="${kind}"]`).click();
+        };
+        // Supply → rectifier (its 48 V template) → DC bus → a DC load on the bus.
+        await add('op-add-after', 'rectifier');
+        await expect.poll(() => cards.count()).toBe(2);
+        await add('op-add-after', 'dc-bus');
+        await expect.poll(() => cards.count()).toBe(3);
+        await add('op-add-branch', 'dc-load');
+        await expect.poll(() => cards.count()).toBe(4);
+        // One mode only so far: no switch.
+        expect(await page.getByTestId('mode-switch').count()).toBe(0);
+        // The bus card offers the bank; the load card does not.
+        await cards.nth(3).click();
+        await expect.poll(() => page.getByTestId('card-tools').count()).toBe(1);
+        expect(await page.locator('[data-testid="op-add-bank"]').count()).toBe(0);
+        await cards.nth(2).click();
+        await chainOp(page, 'op-add-bank');
+        await expect.poll(() => cards.count()).toBe(5);
+        // 48 V ÷ (6 cells × 2.27 V per cell, VRLA float: common practice (no source)) = 3.5 → 4 blocks of 12 V.
+        await expect.poll(() => page.getByTestId('chain-editor').innerText()).toContain('Battery bank, 4 × 12 V 100 Ah');
+        // Both modes now: the switch, and on battery the bank at the root of the element table.
+        await page.getByTestId('mode-switch').waitFor({ timeout: 15_000 });
+        await expect.poll(async () => plain(await page.getByTestId('balance-battery-loads').textContent()), { timeout: 15_000 }).toBe(fmt(100));
+        if (touch) await page.getByText('On battery', { exact: true }).tap();
+        else await page.getByRole('radio', { name: 'On battery' }).check();
+        await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On battery');
+        await expect.poll(() => page.getByTestId('element-table').locator('tbody tr').first().getAttribute('data-element-id')).toBe('bank');
+        // The rectifier template's id is "charger" (web/editor/templates.ts): cut from the on-battery chain.
+        await expect.poll(() => page.getByTestId('element-table').locator('tr[data-element-id="charger"]').count()).toBe(0);
+        // The card's tools no longer offer a second bank (one bank on a bus per project).
+        await cards.nth(2).click();
+        await expect.poll(() => page.getByTestId('card-tools').count()).toBe(1);
+        expect(await page.locator('[data-testid="op-add-bank"]').count()).toBe(0);
+        await page.getByTestId('modes').scrollIntoViewIfNeeded();
+        await page.screenshot({ path: join(artifacts, `modes-${label}-built-plant.png`) });
+        expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
+        expect(await seriousAxeViolations(page)).toEqual([]);
+        expect(errors).toEqual([]);
+      } finally {
+        await context.close();
+      }
+    }, 90_000);
+  }
+});

@@ -1,0 +1,36 @@
+/**
+ * Which mode the results show for a project with a battery bank on a DC bus (issue 19): on supply (the
+ * page's own solve) or on battery (core's solveModes, run in the panel worker by ModeResults.tsx). Light
+ * on purpose: App.tsx reads it in the first load; the figures come with the lazy ModeResults.
+ */
+import { signal } from '@preact/signals';
+import type { Solved, SolveResult } from '../../../core/page.ts';
+import type { ModesReply } from '../panel-worker.ts';
+
+export type ShownMode = 'supply' | 'battery';
+
+/** The mode the user chose (on supply until they switch). */
+export const shownMode = signal<ShownMode>('supply');
+
+/** The worker's last modes reply and the solved pair it was asked for (a reply for another pair is not shown). */
+export const modesReply = signal<{ for: Solved; outcome: ModesReply['outcome'] } | null>(null);
+
+/**
+ * Whether a project has a bank on a bus: a battery fed from another element (core/solve/modes.ts
+ * `bankOnBus`, which the validation has checked; this is only its cheap test, without the engine).
+ */
+export function hasBankOnBus(project: { elements: readonly unknown[] }): boolean {
+  return project.elements.some((e) => {
+    const el = e as { kind?: unknown; from?: unknown };
+    return el.kind === 'battery' && typeof el.from === 'string';
+  });
+}
+
+/** The on-battery result for this solved pair, when the worker has given it. */
+export function batteryResultFor(solved: Solved): SolveResult | null {
+  const r = modesReply.value;
+  if (!r || r.for !== solved || !r.outcome.ok || !r.outcome.battery.ok) return null;
+  return r.outcome.battery.result;
+}
+
+export const MODE_WORDS: Record<ShownMode, string> = { supply: 'On supply', battery: 'On battery' };
