@@ -241,8 +241,9 @@ describe.skipIf(skipWithout('chromium'))('stored projects under faults in Chromi
       expect(await listed.getByRole('button').count()).toBe(0);
       expect(await rawOf(record!.id)).toBe(newerBefore);
       // The edit the newer record refused was not lost: the page's rescue copy is kept as a copy beside it.
-      const copy = (await byName(page)).get(`${record!.project.name.replace(/ \(my copy\)$/, '')} (copy)`);
-      expect(elementIds(copy)).toEqual(edited);
+      // The rescue copy is written after the reload, as the page starts: polled, not read once.
+      const copyName = `${record!.project.name.replace(/ \(my copy\)$/, '')} (copy)`;
+      await expect.poll(async () => elementIds((await byName(page)).get(copyName))).toEqual(edited);
       expect(errors).toEqual([]);
     });
   });

@@ -41,6 +41,17 @@ async function stillOpen(tabs: Set<string>, prefix: string): Promise<Set<string>
   return open;
 }
 
+/** Tabs whose lock this page already waits for (each once). */
+const watched = new Set<string>();
+
+/** Wait, in the background and without a time limit, for a tab's lock to be let go; then call `then`. */
+function watchTab(tab: string, prefix: string, then: () => void): void {
+  const locks = typeof navigator !== 'undefined' ? navigator.locks : undefined;
+  if (!locks?.request || watched.has(tab)) return;
+  watched.add(tab);
+  void locks.request(`${prefix}${tab}`, () => undefined).then(then, () => undefined);
+}
+
 /**
  * Equal plain JSON values, key order ignored (a record and its rescue copy come from drafts whose
  * elements were rebuilt in different key orders); an explicit stack, no recursion on depth.
@@ -76,7 +87,7 @@ function sameJson(a: unknown, b: unknown): boolean {
  * of a newer layout) it is kept as a copy beside it. Copies of tabs still open, and of this tab, are
  * left alone; a write the browser refuses leaves its copy for the next start. Returns the names saved.
  */
-export async function recoverRescues(s: ProjectStore, raw: [string, unknown][], ownTabId: string, lockPrefix: string): Promise<string[]> {
+export async function recoverRescues(s: ProjectStore, raw: [string, unknown][], ownTabId: string, lockPrefix: string, onTabClosed?: () => void): Promise<string[]> {
   const tabs = new Set(
     raw.flatMap(([, v]) => {
       const r = readRescue(v);
@@ -84,6 +95,9 @@ export async function recoverRescues(s: ProjectStore, raw: [string, unknown][], 
     }),
   );
   const alive = await stillOpen(tabs, lockPrefix);
+  // A tab that had not let go in time (a reload on a busy machine, or a tab really open): its copies are
+  // applied as soon as it does, not only at the next start.
+  if (alive && onTabClosed) for (const tab of alive) watchTab(tab, lockPrefix, onTabClosed);
   const names = await s.names().catch(() => [] as string[]);
   const recovered: string[] = [];
   for (const [key, value] of raw) {

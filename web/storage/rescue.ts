@@ -71,12 +71,14 @@ export function dropRescue(id: string, seq: number | null): void {
  * At start: apply the rescue copies of pages that are gone (recover.ts, loaded only when there are
  * any). Nothing is written over another tab's newer work, and nothing is lost.
  */
-export async function recoverRescued(): Promise<void> {
+export async function recoverRescued(afterLate?: () => void): Promise<void> {
   const s = store();
   if (!s) return;
   const raw = await s.rescues().catch(() => []);
   if (!raw.length) return;
   const { recoverRescues } = await import('./recover.ts');
-  const recovered = await recoverRescues(s, raw, tabId, TAB_LOCK_PREFIX);
+  // A closing tab that lets go of its lock late: its copies are applied then, and `afterLate` runs (the list is read again).
+  const late = () => void recoverRescued(afterLate).then(() => afterLate?.());
+  const recovered = await recoverRescues(s, raw, tabId, TAB_LOCK_PREFIX, late);
   if (recovered.length) storageNotice.value = `Changes a closed page had not stored are saved: ${recovered.map((n) => `“${n}”`).join(', ')}.`;
 }

@@ -217,7 +217,7 @@ export function startStorage(): void {
   void globalThis.navigator?.locks?.request(`${TAB_LOCK_PREFIX}${tabId}`, () => new Promise<void>(() => undefined)).catch(() => undefined);
   starting = (async () => {
     await store()?.purgeDeletedBefore(STALE_DELETE_MS).catch(() => 0);
-    await recoverRescued().catch(() => undefined);
+    await recoverRescued(() => void refreshList()).catch(() => undefined);
   })();
   void (async () => {
     await starting;
