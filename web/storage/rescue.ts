@@ -72,6 +72,17 @@ export function dropRescue(id: string, seq: number | null): void {
  * any). Nothing is written over another tab's newer work, and nothing is lost.
  */
 export async function recoverRescued(afterLate?: () => void): Promise<void> {
+  // One page at a time applies rescue copies (a page that started while another was still open may
+  // apply that one's copies when it closes, as the other's reload does): each reads them afresh.
+  const locks = globalThis.navigator?.locks;
+  if (locks?.request) await locks.request(RECOVER_LOCK, () => recoverNow(afterLate));
+  else await recoverNow(afterLate);
+}
+
+/** Name of the lock held while rescue copies are applied. */
+const RECOVER_LOCK = 'joulepath-recover';
+
+async function recoverNow(afterLate?: () => void): Promise<void> {
   const s = store();
   if (!s) return;
   const raw = await s.rescues().catch(() => []);
