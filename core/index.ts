@@ -4,6 +4,7 @@ export type * from './model/result.ts';
 export { PROJECT_LEVEL, ProjectError, formatProblem, type Problem, type ProblemCode } from './model/errors.ts';
 export { solveProject, solve, validateProject, type SolveOutcome, type Solved, type ValidProject } from './solve/index.ts';
 export { solveVariant, variantProject, type VariantChange } from './solve/variant.ts';
+export { solveProjectVariant, variantChangeOf, type VariantChangeOutcome } from './solve/project-variant.ts';
 export { readSolveCounts, resetSolveCounts, type SolveCounts } from './solve/count.ts';
 export { findNonFinite, nonFiniteProblems, elementNames, type NonFiniteFigure } from './solve/finite.ts';
 export { demoProjects, type DemoProject } from './demos/index.ts';

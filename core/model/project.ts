@@ -14,6 +14,7 @@ import type { Stage } from './stages.ts';
 import type { Load } from './loads.ts';
 import type { BackupStudy, DropLimits, PumpDutyStudy, RunningCost } from './study-settings.ts';
 import type { StandbySettings } from './standby.ts';
+import type { ProjectVariant } from './variants.ts';
 
 export type { PortKind, PfSense, EfficiencyPoint, LossModel, PowerFactorModel, ProtectiveDevice } from './element-base.ts';
 export type { AcSource, BatteryBankSpec, BatterySource, Source } from './sources.ts';
@@ -23,6 +24,7 @@ export * from './loads.ts';
 export * from './circuit-network.ts';
 export * from './study-settings.ts';
 export type { StandbySettings } from './standby.ts';
+export type { ProjectVariant } from './variants.ts';
 
 /** Longest client, site or prepared-by text (one printed line or two on the report's first page). */
 export const REPORT_TEXT_MAX = 200;
@@ -54,4 +56,6 @@ export interface Project {
   running?: RunningCost;
   /** A bank on a bus: the charger sizing, float and standing-loss settings of the two modes (core/model/standby.ts). */
   standby?: StandbySettings;
+  /** Named variants of the chain, solved side by side with it (core/model/variants.ts). */
+  variants?: ProjectVariant[];
 }

@@ -16,6 +16,7 @@ import { dropLimitsSchema } from '../conductors/path-drop.ts';
 import { pumpDutySchema } from '../kinds/pump.ts';
 import { priceSchema, runningSchema } from './running-schema.ts';
 import { standbySchema } from './standby-schema.ts';
+import { variantsSchema } from './variants-schema.ts';
 import { countSolveStep } from './count.ts';
 import { wordedFromParams } from '../model/message.ts';
 
@@ -51,6 +52,7 @@ export const projectShape = z.strictObject({
   pumpDuty: z.optional(pumpDutySchema),
   running: z.optional(runningSchema),
   standby: z.optional(standbySchema),
+  variants: z.optional(variantsSchema),
 });
 
 /**

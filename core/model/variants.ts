@@ -1,0 +1,29 @@
+/**
+ * Named variants of a project (the file's `variants`): each one a few changes to the base chain —
+ * fields of some elements set to other values, whole elements swapped for others of the same id,
+ * branches removed — solved side by side with the base (core/solve/project-variant.ts applies one;
+ * the comparison reads the solved values). A variant stores only what differs, so an edit of the
+ * base reaches every variant.
+ */
+import type { Element } from './project.ts';
+
+/** Longest list of variants a project keeps (a comparison of more is no longer read side by side). */
+export const MAX_VARIANTS = 12;
+/** Longest variant name (it heads a column of the comparison). */
+export const VARIANT_NAME_MAX = 80;
+
+export interface ProjectVariant {
+  /** The variant's name, unique within the project ("48 V system", "50 mm² feeders"). */
+  name: string;
+  /** What the variant is for, in the planner's words (printed under its name). */
+  note?: string;
+  /**
+   * Fields set on elements of the base, by element id: `{ "bank": { "series": 4 } }`. A field set to
+   * null is taken out (the element's default applies). `id` and `kind` cannot be set: swap the element.
+   */
+  set?: Record<string, Record<string, unknown>>;
+  /** Whole elements put in place of the base's element of the same id (another inverter, another kind). */
+  swap?: Element[];
+  /** Ids of elements taken out with their branch (critical loads only). */
+  remove?: string[];
+}
