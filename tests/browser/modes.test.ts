@@ -3,7 +3,11 @@
  * on its DC bus) shows a mode switch at the top of the results; switching it by keyboard and by tap
  * shows the on-battery diagram and element table, whose figures equal core's solveModes / runModesStudy
  * run here on the same project (the expected values are core's, checked by hand-worked cases in
- * tests/modes/); phone 390×844 and desktop; axe clean. Screenshots go to tests/.artifacts/.
+ * tests/modes/); the warnings, the cable and the port tables follow the switch and say which mode they
+ * show; the answers strip leads with both modes' answers on the first phone screen, each opening its
+ * working; the printed report carries the modes section (its method on the engineer's page); the charge
+ * to put back and the charge-return factor are edited in the standing-by panel as core sizes the charger;
+ * phone 390×844 and desktop; axe clean. Screenshots go to tests/.artifacts/.
  */
 import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
@@ -118,7 +122,7 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
         await expect.poll(async () => plain(await portCurrent(page, 'bank-cable', 'out').textContent())).toBe(amps(elementOf(solved.result, 'bank-cable').output!.current));
 
         // Switch: by keyboard on the desktop (focus the checked radio, arrow to the next), by tap on the phone.
-        if (touch) await page.getByText('On battery', { exact: true }).tap();
+        if (touch) await page.getByTestId('mode-switch').getByText('On battery', { exact: true }).tap();
         else {
           await page.getByRole('radio', { name: 'On supply' }).focus();
           await page.keyboard.press('ArrowRight');
@@ -260,7 +264,7 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
         // Both modes now: the switch, and on battery the bank at the root of the element table.
         await page.getByTestId('mode-switch').waitFor({ timeout: 15_000 });
         await expect.poll(async () => plain(await page.getByTestId('balance-battery-loads').textContent()), { timeout: 15_000 }).toBe(fmt(100));
-        if (touch) await page.getByText('On battery', { exact: true }).tap();
+        if (touch) await page.getByTestId('mode-switch').getByText('On battery', { exact: true }).tap();
         else await page.getByRole('radio', { name: 'On battery' }).check();
         await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On battery');
         await expect.poll(() => page.getByTestId('element-table').locator('tbody tr').first().getAttribute('data-element-id')).toBe('bank');

@@ -85,7 +85,7 @@ export default function ModeResults({ solved }: { solved: Solved }) {
       <p class="note" role="status" data-testid="mode-shown">
         {mode === 'battery' && !outcome?.ok
           ? 'Working out the on-battery mode…'
-          : `The diagram and the table of each element below show the system ${MODE_WORDS[mode].toLowerCase()}.`}
+          : `The diagram, the warnings and the tables below show the system ${MODE_WORDS[mode].toLowerCase()}.`}
         {pending && outcome ? ' Updating…' : ''}
       </p>
       {reply?.kind === 'crash' && <p class="notice notice--error" role="alert">{reply.message}</p>}

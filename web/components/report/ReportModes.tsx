@@ -69,7 +69,7 @@ function ModesBody({ s, loc }: { s: ModesStudyResult; loc: Locale }) {
   return (
     <>
       <p>
-        The bank ({s.bankName}) sits on {s.busName}. On supply, {s.supply.sourceName} carries the loads and keeps the bank
+        The bank ({s.bankName}) sits on the DC bus “{s.busName}”. On supply, {s.supply.sourceName} carries the loads and keeps the bank
         charged (floating); on battery, the supply is cut and the bank carries the same loads.
       </p>
       <div class="report__modes-cols">
@@ -142,7 +142,7 @@ function ModesBody({ s, loc }: { s: ModesStudyResult; loc: Locale }) {
           </ul>
         </>
       )}
-      <h3>Cautions</h3>
+      <h3>Cautions for the two modes</h3>
       <ul class="report__list report__cautions" data-testid="report-modes-cautions">
         {s.cautions.map((text) => <li key={text}>{text}</li>)}
       </ul>
