@@ -32,7 +32,7 @@ import { catchUpNow, useOffscreenLag, type BoxRef } from './lag.ts';
 import type { DraftProject } from '../state/draft.ts';
 import { ReportQr } from './report/ReportQr.tsx';
 import { ShareLink } from './report/ShareLink.tsx';
-import { ReportModes, ReportModesMethod } from './report/ReportModes.tsx';
+import { ReportModes, ReportModesCautions, ReportModesMethod } from './report/ReportModes.tsx';
 import { hasBankOnBus } from './modes/mode-state.ts';
 
 /** The caution every report carries (results are planning estimates). */
@@ -214,6 +214,7 @@ const ReportBody = memo(function ReportBody({
           {cautions.map((c) => (
             <li key={c}>{c}</li>
           ))}
+          {hasBankOnBus(project) && <ReportModesCautions solved={solved} />}
         </ul>
       </section>
 

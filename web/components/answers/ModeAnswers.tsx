@@ -60,41 +60,35 @@ function SupplyLine({ solved, loc }: { solved: Solved; loc: string | undefined }
   const c = study?.charger;
   const st = study?.standing;
   const money = moneyFormat.value;
-  const recharge = c?.rechargeCase.ok ? c.rechargeCase.supplyPower : undefined;
+  // Short notes: the strip stays on the first phone screen; the panel has the working in full.
   return (
     <Line label="On supply" name="mode-supply">
-      <Fig label="Supply power on supply" to={{ panel: 'standby', figure: 'standby-supply-power' }} state={figState} testId="answer-supply-power">
+      <Fig label={`Supply power on supply${study ? ` (from ${study.supply.sourceName})` : ''}`} to={{ panel: 'standby', figure: 'standby-supply-power' }} state={figState} testId="answer-supply-power">
         {study ? formatPower(study.supply.sourcePower, loc) : WORKING}
       </Fig>
-      {study && <span class="answer__note"> from {study.supply.sourceName}{recharge !== undefined ? `, ${formatPower(recharge, loc)} while recharging` : ''}</span>}
+      <span class="answer__note"> supply</span>
       {c && (
         <>
           {' · '}
           {c.modules ? (
-            <Fig label="Rectifier modules" to={{ panel: 'standby', figure: 'standby-modules' }} state={figState} testId="answer-modules">
-              {c.modules.installed} × {formatCurrent(c.modules.moduleCurrent, loc)} modules
+            <Fig label={`Rectifier modules: ${c.modules.needed} needed${c.modules.redundancy === 'n+1' ? ' and one spare (N+1)' : ', no spare'}`} to={{ panel: 'standby', figure: 'standby-modules' }} state={figState} testId="answer-modules">
+              {c.modules.installed} × {formatCurrent(c.modules.moduleCurrent, loc)}
             </Fig>
           ) : (
             <Fig label="Rectifier capacity needed" to={{ panel: 'standby', figure: 'standby-required-current' }} state={figState} testId="answer-modules">
-              {formatCurrent(c.requiredCurrent, loc)} rectifier
+              {formatCurrent(c.requiredCurrent, loc)}
             </Fig>
           )}
-          <span class="answer__note">
-            {c.modules
-              ? c.modules.redundancy === 'n+1'
-                ? ` (${c.modules.needed} needed + 1 spare, N+1)`
-                : ` (${c.modules.needed} needed, no spare)`
-              : ' needed (give the module current to count modules)'}
-          </span>
+          <span class="answer__note"> {c.modules ? (c.modules.redundancy === 'n+1' ? `modules, ${c.modules.needed} + 1 spare` : 'modules, no spare') : 'rectifier'}</span>
         </>
       )}
       {st && (
         <>
           {' · '}
-          <Fig label="Standing by costs" to={{ panel: 'standby', figure: st.cost !== undefined ? 'standby-cost-year' : 'standby-energy' }} state={figState} testId="answer-standby-cost">
+          <Fig label="What standing by costs a year" to={{ panel: 'standby', figure: st.cost !== undefined ? 'standby-cost-year' : 'standby-energy' }} state={figState} testId="answer-standby-cost">
             {st.cost !== undefined ? (money ? money(st.cost, loc) : formatSignificant(st.cost, 4, loc)) : `${formatSignificant(st.energyKWh, 4, loc)}${UNIT_GAP}kWh`}
           </Fig>
-          <span class="answer__note"> a year standing by{st.cost === undefined ? ' (give an energy price for its cost)' : ''}</span>
+          <span class="answer__note"> a year standing by</span>
         </>
       )}
     </Line>
@@ -107,29 +101,29 @@ function BatteryLine({ quick, bank, figState, loc }: { quick: SolveAnswers['bank
   const sized = quick.cableCurrent;
   return (
     <Line label="On battery" name="mode-battery" tone={bank?.meetsTarget === false ? 'warn' : undefined}>
-      <Fig label="Runtime on battery" to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-runtime' }} state={figState} testId="answer-runtime">
+      <Fig label="Runtime on battery, to the end of discharge" to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-runtime' }} state={figState} testId="answer-runtime">
         {bank ? `${bank.runtimeIsLowerBound ? 'over ' : ''}${formatDuration(bank.runtimeSeconds, loc)}` : WORKING}
       </Fig>
       {bank && (
         <span class="answer__note">
           {' '}
-          {target !== undefined ? (bank.meetsTarget ? `to the end of discharge, meets the ${targetWords(target, loc)} target` : `to the end of discharge, short of the ${targetWords(target, loc)} target`) : 'to the end of discharge'}
+          to the end of discharge{target !== undefined ? (bank.meetsTarget ? `, meets the ${targetWords(target, loc)} target` : `, short of the ${targetWords(target, loc)} target`) : ''}
         </span>
       )}
       {' · '}
       {sized ? (
         <>
-          <Fig label="Bank current" to={{ panel: 'conductor', elementId: sized.cableId }} testId="answer-bank-current">
+          <Fig label={`Bank current: the design current of “${sized.cableName}”, ${DESIGN_BASIS_WORDS[sized.basis]}`} to={{ panel: 'conductor', elementId: sized.cableId }} testId="answer-bank-current">
             {formatCurrent(sized.amps, loc)}
           </Fig>
-          <span class="answer__note"> bank current, design current of “{sized.cableName}”: {DESIGN_BASIS_WORDS[sized.basis]}</span>
+          <span class="answer__note"> from the bank</span>
         </>
       ) : (
         <>
-          <Fig label="Bank current" to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-peak-current' }} state={figState} testId="answer-bank-current">
+          <Fig label="Bank current, the highest over the outage" to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-peak-current' }} state={figState} testId="answer-bank-current">
             {bank ? formatCurrent(bank.peakCurrent, loc) : WORKING}
           </Fig>
-          <span class="answer__note"> bank current, the highest over the outage</span>
+          <span class="answer__note"> from the bank</span>
         </>
       )}
     </Line>

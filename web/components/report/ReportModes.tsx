@@ -3,7 +3,8 @@
  * client's words: both energy balances (on supply, on battery), the rectifier or charger for the job with
  * N+1 modules, what standing by costs a year, the moment the supply is cut (transfer), the points to check
  * and the cautions. `ReportModesMethod` is its part of the engineer's last page: the methods and the
- * figures they take (IEEE Std 946's A = L + k·C/H, E = P·t, the bank's float EMF behind its resistance).
+ * figures they take (IEEE Std 946's A = L + k·C/H, E = P·t, the bank's float EMF behind its resistance);
+ * `ReportModesCautions` adds the modes study's cautions to the report's own list.
  *
  * Every figure is core's runModesStudy, run in the panel worker for the mode switch (ModeResults.tsx
  * puts the reply in `modesReply`); the report shows it only for the pair it prints, and says "being
@@ -53,6 +54,12 @@ export function ReportModes({ solved, locale: loc }: { solved: Solved; locale: L
   return (
     <section class="report__modes" aria-label="On supply and on battery" data-testid="report-modes">
       <h2>On supply and on battery</h2>
+      {got && 'study' in got && (
+        <p>
+          The bank ({got.study.bankName}) sits on the DC bus “{got.study.busName}”: on supply it floats while the supply carries the loads; on
+          battery it carries them.
+        </p>
+      )}
       {got === null && <p data-testid="report-modes-later">The figures of the two modes are being calculated.</p>}
       {got && 'refused' in got && <p>The two modes could not be worked out: {got.refused}</p>}
       {got && 'study' in got && <ModesBody s={got.study} loc={loc} />}
@@ -66,86 +73,85 @@ function ModesBody({ s, loc }: { s: ModesStudyResult; loc: Locale }) {
   const t = s.transfer;
   const battery = 'ok' in s.battery ? null : s.battery;
   const A = (x: number) => formatCurrent(x, loc);
+  // Kept short (run-in headings, no list per part): with the diagram it must fit the client's pages.
   return (
     <>
-      <p>
-        The bank ({s.bankName}) sits on the DC bus “{s.busName}”. On supply, {s.supply.sourceName} carries the loads and keeps the bank
-        charged (floating); on battery, the supply is cut and the bank carries the same loads.
-      </p>
       <div class="report__modes-cols">
         <Balance title="On supply" figures={s.supply} loc={loc} testId="report-modes-supply" />
         {battery ? (
-          <Balance title="On battery" figures={battery} loc={loc} testId="report-modes-battery" />
+          <Balance title="On battery (the supply cut)" figures={battery} loc={loc} testId="report-modes-battery" />
         ) : (
           <div data-testid="report-modes-battery">
-            <h3>On battery</h3>
+            <h3>On battery (the supply cut)</h3>
             <p>The bank cannot carry the loads: {'ok' in s.battery ? s.battery.problems[0]?.message : ''}</p>
           </div>
         )}
       </div>
-      <h3>Rectifier or charger for the job</h3>
-      <ul class="report__list" data-testid="report-modes-charger">
-        <li>
-          Capacity needed {A(c.requiredCurrent)}: the loads on the bus {A(c.loadCurrent)} plus {A(c.rechargeCurrent)} to put{' '}
-          {formatSignificant(c.rechargeAh, 4, loc)}{UNIT_GAP}Ah back in {formatSignificant(c.rechargeHours, 3, loc)}{UNIT_GAP}h.
-        </li>
+      <p data-testid="report-modes-charger">
+        <strong>Rectifier or charger for the job.</strong> {A(c.requiredCurrent)} needed: the loads on the bus {A(c.loadCurrent)} plus{' '}
+        {A(c.rechargeCurrent)} to put {formatSignificant(c.rechargeAh, 4, loc)}{UNIT_GAP}Ah back in {formatSignificant(c.rechargeHours, 3, loc)}
+        {UNIT_GAP}h.{' '}
         {c.modules && (
-          <li data-testid="report-modes-modules">
+          <span data-testid="report-modes-modules">
             {c.modules.redundancy === 'n+1'
               ? `${c.modules.installed} modules of ${A(c.modules.moduleCurrent)}: ${c.modules.needed} needed and one spare (N+1), ${A(c.modules.installedCurrent)} installed.`
               : `${c.modules.installed} modules of ${A(c.modules.moduleCurrent)}, no spare, ${A(c.modules.installedCurrent)} installed.`}
-          </li>
+          </span>
         )}
         {c.rechargeCase.ok && (
-          <li>
-            While it recharges the bank, the supply carries {A(c.rechargeCase.supplyCurrent)} ({formatPower(c.rechargeCase.supplyPower, loc)}): size
-            the supply and its cable for this, not for the float.
-          </li>
+          <>
+            {' '}While it recharges the bank the supply carries {A(c.rechargeCase.supplyCurrent)} ({formatPower(c.rechargeCase.supplyPower, loc)}): size the
+            supply and its cable for this, not for the float.
+          </>
         )}
-      </ul>
-      <h3>What standing by costs</h3>
+      </p>
       <p data-testid="report-modes-standing">
-        Kept ready on supply, the system loses {formatPower(st.total, loc)} (conversion {formatPower(st.conversion, loc)}, idle{' '}
-        {formatPower(st.idle, loc)}, cables {formatPower(st.cables, loc)}, the bank’s float {formatPower(st.bankFloat, loc)}): {formatSignificant(st.energyKWh, 4, loc)}
+        <strong>What standing by costs.</strong> Kept ready on supply, the system loses {formatPower(st.total, loc)} (conversion{' '}
+        {formatPower(st.conversion, loc)}, idle {formatPower(st.idle, loc)}, cables {formatPower(st.cables, loc)}, the bank’s float{' '}
+        {formatPower(st.bankFloat, loc)}): {formatSignificant(st.energyKWh, 4, loc)}
         {UNIT_GAP}kWh a year over {formatSignificant(st.hoursOnSupply, 4, loc)}{UNIT_GAP}h on supply ({formatSignificant(st.outageHoursPerYear, 3, loc)}
         {UNIT_GAP}h of outage expected)
         {st.cost !== undefined ? <>, costing <strong data-testid="report-modes-cost">{formatMoney(st.cost, loc)}</strong> a year.</> : '; give an energy price for its cost.'}
       </p>
       {t && (
-        <>
-          <h3>The moment the supply is cut</h3>
-          <p data-testid="report-modes-transfer">
-            The bank goes from taking {A(t.floatCurrent)} on float to giving {A(t.currentAtTransfer)} (a step of {A(t.currentStep)}; its maximum
-            discharge current {A(t.maxDischargeCurrent)}). The DC bus moves from {formatVoltage(t.busVoltageOnSupply, loc)} to{' '}
-            {formatVoltage(t.busVoltageAtTransfer, loc)} at the cut
-            {t.busVoltageSettled !== null ? <>, and settles at {formatVoltage(t.busVoltageSettled, loc)} on battery</> : ''}.
-          </p>
-        </>
+        <p data-testid="report-modes-transfer">
+          <strong>The moment the supply is cut.</strong> The bank goes from taking {A(t.floatCurrent)} on float to giving {A(t.currentAtTransfer)} (a
+          step of {A(t.currentStep)}; its maximum discharge current {A(t.maxDischargeCurrent)}). The DC bus moves from{' '}
+          {formatVoltage(t.busVoltageOnSupply, loc)} to {formatVoltage(t.busVoltageAtTransfer, loc)} at the cut
+          {t.busVoltageSettled !== null ? <>, and settles at {formatVoltage(t.busVoltageSettled, loc)} on battery</> : ''}.
+        </p>
       )}
       {s.cableSizes.length > 0 && (
-        <>
-          <h3>Cables that need a larger size in one mode</h3>
-          <ul class="report__list">
-            {s.cableSizes.map((k) => (
-              <li key={k.id}>
-                {k.name}: use {k.use} ({k.float ?? '—'} on float, {k.recharge ?? '—'} recharging, {k.battery ?? '—'} on battery).
-              </li>
-            ))}
-          </ul>
-        </>
+        <p>
+          <strong>Cables that need a larger size in one mode.</strong>{' '}
+          {s.cableSizes.map((k) => `${k.name}: use ${k.use} (${k.float ?? '—'} on float, ${k.recharge ?? '—'} recharging, ${k.battery ?? '—'} on battery).`).join(' ')}
+        </p>
       )}
       {s.warnings.length > 0 && (
-        <>
-          <h3>Check these</h3>
-          <ul class="report__list" data-testid="report-modes-warnings">
-            {s.warnings.map((w, i) => <li key={i}>{w.message}</li>)}
-          </ul>
-        </>
+        <p data-testid="report-modes-warnings">
+          <strong>Check these.</strong> {s.warnings.map((w) => w.message).join('; ')}.
+        </p>
       )}
-      <h3>Cautions for the two modes</h3>
-      <ul class="report__list report__cautions" data-testid="report-modes-cautions">
-        {s.cautions.map((text) => <li key={text}>{text}</li>)}
-      </ul>
+    </>
+  );
+}
+
+/**
+ * The modes study's cautions, as items of the report's own cautions list (ClientReport.tsx), less the
+ * planning caution the list already opens with. Nothing while the figures are being calculated.
+ */
+export function ReportModesCautions({ solved }: { solved: Solved }) {
+  const got = studyOf(solved);
+  if (!got || !('study' in got)) return null;
+  return (
+    <>
+      {got.study.cautions
+        .filter((text) => !text.startsWith('Planning estimate only'))
+        .map((text) => (
+          <li key={text} data-testid="report-modes-caution">
+            {text}
+          </li>
+        ))}
     </>
   );
 }
