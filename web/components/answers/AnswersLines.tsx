@@ -41,8 +41,8 @@ export function hoursWords(seconds: number, loc: string | undefined): string {
 
 /**
  * The bank's lines: runtime, the bank for the target, the current for its cable and fuse. A bank on a
- * bus leads with both modes' answers instead (ModeAnswers.tsx: on supply, then on battery, whose runtime
- * and bank current are these), then the bank for the target.
+ * bus leads with both modes' answers instead (ModeAnswers.tsx: on supply, then on battery, whose runtime,
+ * bank current and bank for the target are these).
  */
 function BankLines({ solved, quick, bank, state, loc }: { solved: Solved; quick: SolveAnswers['banks'][number]; bank: BankStudyAnswer | undefined; state: 'current' | 'updating' | 'none'; loc: string | undefined }) {
   const shown = state === 'none' ? undefined : bank;
@@ -58,14 +58,8 @@ function BankLines({ solved, quick, bank, state, loc }: { solved: Solved; quick:
       <span class="answer__note"> {shown.sizedBank.replace(/ \(.*\)$/, '')}</span>
     </Line>
   );
-  if (quick.onBus) {
-    return (
-      <>
-        <ModeAnswers solved={solved} quick={quick} bank={shown} figState={figState} loc={loc} />
-        {sizedBank}
-      </>
-    );
-  }
+  // The bank for the target rides on the on-battery line (ModeAnswers.tsx), so the strip stays on the first phone screen.
+  if (quick.onBus) return <ModeAnswers solved={solved} quick={quick} bank={shown} figState={figState} loc={loc} />;
   return (
     <>
       <Line label="Runtime" name="runtime" tone={shown?.meetsTarget === false ? 'warn' : undefined}

@@ -6,9 +6,10 @@
  *   yearly cost of standing by (its energy when no price is given). These are core's runModesStudy,
  *   run in the panel worker for the mode switch (ModeResults.tsx puts the reply in `modesReply`); each
  *   opens the "Standing by and transfer" panel at its figure.
- * - "On battery": the runtime to the end of discharge and the bank's current (the backup study, which
- *   runs on battery for a bank on a bus: core/studies/answers.ts through study-answers.ts); each opens
- *   the battery panel (or the conductor panel when the bank's cable is sized).
+ * - "On battery": the runtime to the end of discharge and the bank's current, and the bank for the
+ *   target when one is set (the backup study, which runs on battery for a bank on a bus:
+ *   core/studies/answers.ts through study-answers.ts); each opens the battery panel (or the conductor
+ *   panel when the bank's cable is sized).
  *
  * Every figure is core's; this file only formats and arranges them.
  */
@@ -66,7 +67,6 @@ function SupplyLine({ solved, loc }: { solved: Solved; loc: string | undefined }
       <Fig label={`Supply power on supply${study ? ` (from ${study.supply.sourceName})` : ''}`} to={{ panel: 'standby', figure: 'standby-supply-power' }} state={figState} testId="answer-supply-power">
         {study ? formatPower(study.supply.sourcePower, loc) : WORKING}
       </Fig>
-      <span class="answer__note"> supply</span>
       {c && (
         <>
           {' · '}
@@ -79,16 +79,17 @@ function SupplyLine({ solved, loc }: { solved: Solved; loc: string | undefined }
               {formatCurrent(c.requiredCurrent, loc)}
             </Fig>
           )}
-          <span class="answer__note"> {c.modules ? (c.modules.redundancy === 'n+1' ? `modules, ${c.modules.needed} + 1 spare` : 'modules, no spare') : 'rectifier'}</span>
+          <span class="answer__note"> {c.modules ? (c.modules.redundancy === 'n+1' ? '(N+1)' : 'modules') : 'rectifier'}</span>
         </>
       )}
       {st && (
         <>
           {' · '}
+          <span class="answer__note">standing by </span>
           <Fig label="What standing by costs a year" to={{ panel: 'standby', figure: st.cost !== undefined ? 'standby-cost-year' : 'standby-energy' }} state={figState} testId="answer-standby-cost">
             {st.cost !== undefined ? (money ? money(st.cost, loc) : formatSignificant(st.cost, 4, loc)) : `${formatSignificant(st.energyKWh, 4, loc)}${UNIT_GAP}kWh`}
           </Fig>
-          <span class="answer__note"> a year standing by</span>
+          <span class="answer__note"> a year</span>
         </>
       )}
     </Line>
@@ -107,7 +108,7 @@ function BatteryLine({ quick, bank, figState, loc }: { quick: SolveAnswers['bank
       {bank && (
         <span class="answer__note">
           {' '}
-          to the end of discharge{target !== undefined ? (bank.meetsTarget ? `, meets the ${targetWords(target, loc)} target` : `, short of the ${targetWords(target, loc)} target`) : ''}
+          {target !== undefined ? (bank.meetsTarget ? `meets the ${targetWords(target, loc)} target` : `short of the ${targetWords(target, loc)} target`) : 'to the end of discharge'}
         </span>
       )}
       {' · '}
@@ -124,6 +125,15 @@ function BatteryLine({ quick, bank, figState, loc }: { quick: SolveAnswers['bank
             {bank ? formatCurrent(bank.peakCurrent, loc) : WORKING}
           </Fig>
           <span class="answer__note"> from the bank</span>
+        </>
+      )}
+      {bank?.sizedBank !== undefined && target !== undefined && (
+        <>
+          {' · '}
+          <Fig label={`Bank for ${targetWords(target, loc)}: ${bank.sizedBank}`} to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-sizing-result' }} state={figState} testId="answer-sized-bank">
+            {formatSignificant(bank.sizedCapacityAh ?? 0, 4, loc)}{UNIT_GAP}Ah
+          </Fig>
+          <span class="answer__note"> bank for {targetWords(target, loc)}</span>
         </>
       )}
     </Line>
