@@ -145,6 +145,8 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
         await expect.poll(async () => plain(await portCurrent(page, 'bank', 'out').textContent())).toBe(amps(elementOf(onBattery, 'bank').output!.current));
         await expect.poll(async () => plain(await portCurrent(page, 'inverter', 'in').textContent())).toBe(amps(elementOf(onBattery, 'inverter').input!.current));
         expect(await page.getByTestId('port-table').locator('tr[data-element-id="rectifier"]').count()).toBe(0);
+        await page.getByTestId('cable-panel').scrollIntoViewIfNeeded();
+        await page.getByTestId('cable-panel').screenshot({ path: join(artifacts, `modes-${label}-battery-cables.png`) });
         // The on-battery chain's totals row equals core's on-battery source power.
         expect(plain(await page.getByTestId('totals-row').locator('td').first().textContent())).toBe(fmt(onBattery.totals.sourcePower));
         // The diagram is of the on-battery chain: it names the bank, not the rectifier.
