@@ -3,15 +3,25 @@
  * on its DC bus) shows a mode switch at the top of the results; switching it by keyboard and by tap
  * shows the on-battery diagram and element table, whose figures equal core's solveModes / runModesStudy
  * run here on the same project (the expected values are core's, checked by hand-worked cases in
- * tests/modes/); phone 390×844 and desktop; axe clean. Screenshots go to tests/.artifacts/.
+ * tests/modes/); the warnings, the cable and the port tables follow the switch and say which mode they
+ * show; the answers strip leads with both modes' answers on the first phone screen, each opening its
+ * working; the printed report carries the modes section (its method on the engineer's page); the charge
+ * to put back and the charge-return factor are edited in the standing-by panel as core sizes the charger;
+ * phone 390×844 and desktop; axe clean. Screenshots go to tests/.artifacts/.
  */
+import { execFileSync } from 'node:child_process';
+import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, chainOp, seriousAxeViolations, serveBuiltApp, showProjectsView, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, answersSettled, artifacts, chainOp, seriousAxeViolations, serveBuiltApp, showProjectsView, watchPageErrors, type ServedApp } from './harness.ts';
 import { demoProjects, runModesStudy, solveModes } from '../../core/index.ts';
-import { formatCurrent, formatPercent, formatPower, formatSignificant, formatVoltage } from '../../web/format/number.ts';
+import { answerStudies } from '../../core/studies/index.ts';
+import { formatCurrent, formatDuration, formatPercent, formatPower, formatSignificant, formatVoltage } from '../../web/format/number.ts';
+import { shareHash } from '../../web/state/share.ts';
+import type { DraftProject } from '../../web/state/draft.ts';
+import { extractText } from 'unpdf';
 import { formatMoney } from '../../web/format/panels.ts';
 import { solvedOf } from '../core/solved.ts';
 
@@ -50,6 +60,16 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
 
   /** The P in cell of an element's row in the element table. */
   const pIn = (page: Page, id: string) => page.getByTestId('element-table').locator(`tr[data-element-id="${id}"] td`).first();
+  /** The loss cell of a cable's row in the cable table. */
+  const cableLoss = (page: Page, id: string) => page.getByTestId('cable-table').locator(`tr[data-element-id="${id}"] td[data-label="Loss"]`);
+  /** The current cell of an element's port row in the port table. */
+  const portCurrent = (page: Page, id: string, side: 'in' | 'out') => page.getByTestId('port-table').locator(`tr[data-element-id="${id}"][data-port="${side}"] td[data-label="I"]`);
+  const elementOf = (r: { elements: readonly { id: string }[] }, id: string) => {
+    const e = r.elements.find((x) => x.id === id);
+    if (!e) throw new Error(`no element ${id}`);
+    return e as (typeof solved.result.elements)[number];
+  };
+  const amps = (a: number) => plain(formatCurrent(a, 'en-US'));
 
   // Core's figures for the harbour clinic: the on-supply base solve, the on-battery variant and the modes study.
   const solved = solvedOf(demo('harbour-clinic-ups'));
@@ -93,9 +113,16 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
           expect(b!.x).toBeGreaterThan(a!.x + a!.width - 1);
         }
         await page.getByTestId('modes').screenshot({ path: join(artifacts, `modes-${label}-supply.png`) });
+        // The cable and port tables say which mode they show, and on supply carry the base solve's figures
+        // (the supply's cable is there; the bank's cable carries the float current, 0.1 A: core's solve of the demo).
+        await expect.poll(() => page.getByTestId('cable-table-mode').textContent()).toBe('On supply');
+        await expect.poll(() => page.getByTestId('port-table-mode').textContent()).toBe('On supply');
+        await expect.poll(() => page.getByTestId('cable-table').locator('tr[data-element-id="supply-cable"]').count()).toBe(1);
+        await expect.poll(async () => plain(await cableLoss(page, 'bank-cable').textContent())).toBe(fmt(elementOf(solved.result, 'bank-cable').loss));
+        await expect.poll(async () => plain(await portCurrent(page, 'bank-cable', 'out').textContent())).toBe(amps(elementOf(solved.result, 'bank-cable').output!.current));
 
         // Switch: by keyboard on the desktop (focus the checked radio, arrow to the next), by tap on the phone.
-        if (touch) await page.getByText('On battery', { exact: true }).tap();
+        if (touch) await page.getByTestId('mode-switch').getByText('On battery', { exact: true }).tap();
         else {
           await page.getByRole('radio', { name: 'On supply' }).focus();
           await page.keyboard.press('ArrowRight');
@@ -110,6 +137,16 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
         await expect.poll(() => page.getByTestId('element-table').locator('tr[data-element-id="rectifier"]').count()).toBe(0);
         expect(await page.getByTestId('element-table').locator('tr[data-element-id="supply"]').count()).toBe(0);
         expect(plain(await pIn(page, 'bank').textContent())).toBe(fmt(bankRow.pIn));
+        // The cable and port tables follow: the on-battery chain's cables and ports, each equal to core's on-battery solve.
+        await expect.poll(() => page.getByTestId('cable-table-mode').textContent()).toBe('On battery');
+        await expect.poll(() => page.getByTestId('port-table-mode').textContent()).toBe('On battery');
+        await expect.poll(() => page.getByTestId('cable-table').locator('tr[data-element-id="supply-cable"]').count()).toBe(0);
+        await expect.poll(async () => plain(await cableLoss(page, 'bank-cable').textContent())).toBe(fmt(elementOf(onBattery, 'bank-cable').loss));
+        await expect.poll(async () => plain(await portCurrent(page, 'bank', 'out').textContent())).toBe(amps(elementOf(onBattery, 'bank').output!.current));
+        await expect.poll(async () => plain(await portCurrent(page, 'inverter', 'in').textContent())).toBe(amps(elementOf(onBattery, 'inverter').input!.current));
+        expect(await page.getByTestId('port-table').locator('tr[data-element-id="rectifier"]').count()).toBe(0);
+        await page.getByTestId('cable-panel').scrollIntoViewIfNeeded();
+        await page.getByTestId('cable-panel').screenshot({ path: join(artifacts, `modes-${label}-battery-cables.png`) });
         // The on-battery chain's totals row equals core's on-battery source power.
         expect(plain(await page.getByTestId('totals-row').locator('td').first().textContent())).toBe(fmt(onBattery.totals.sourcePower));
         // The diagram is of the on-battery chain: it names the bank, not the rectifier.
@@ -125,6 +162,8 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
         await page.keyboard.press('ArrowLeft');
         await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On supply');
         await expect.poll(() => page.getByTestId('element-table').locator('tr[data-element-id="rectifier"]').count()).toBe(1);
+        await expect.poll(() => page.getByTestId('cable-table-mode').textContent()).toBe('On supply');
+        await expect.poll(() => page.getByTestId('port-table').locator('tr[data-element-id="rectifier"]').count()).toBe(2);
 
         expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
         expect(await seriousAxeViolations(page)).toEqual([]);
@@ -227,7 +266,7 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
         // Both modes now: the switch, and on battery the bank at the root of the element table.
         await page.getByTestId('mode-switch').waitFor({ timeout: 15_000 });
         await expect.poll(async () => plain(await page.getByTestId('balance-battery-loads').textContent()), { timeout: 15_000 }).toBe(fmt(100));
-        if (touch) await page.getByText('On battery', { exact: true }).tap();
+        if (touch) await page.getByTestId('mode-switch').getByText('On battery', { exact: true }).tap();
         else await page.getByRole('radio', { name: 'On battery' }).check();
         await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On battery');
         await expect.poll(() => page.getByTestId('element-table').locator('tbody tr').first().getAttribute('data-element-id')).toBe('bank');
@@ -247,4 +286,208 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
       }
     }, 90_000);
   }
+  // The study answers of the demo (core/studies/answers.ts: the backup study runs on battery for a bank on a bus).
+  const bankAnswer = answerStudies(solved, null).banks.find((b) => b.elementId === 'bank')!;
+
+  for (const [label, viewport, touch] of [
+    ['phone', VIEWPORTS.phone, true],
+    ['desktop', VIEWPORTS.desktop, false],
+  ] as const) {
+    it(`harbour clinic, ${label}: the answers strip leads with both modes' answers, on the first screen, each opening its working`, async () => {
+      const { context, page, errors } = await open('#demo=harbour-clinic-ups', viewport, touch);
+      try {
+        const s = study.study;
+        const supplyLine = page.locator('[data-answer="mode-supply"]');
+        const batteryLine = page.locator('[data-answer="mode-battery"]');
+        // On supply: the supply's power with the bank on float (core's modes study: 4.04 kW), the modules with N+1
+        // (A = L + k·C/H = 30.5 A in 10 A modules: 4 needed + 1 spare, IEEE Std 946; hand-checked in tests/modes/online-ups.test.ts)
+        // and the yearly cost of standing by (at the demo's 0.28 per kWh).
+        await expect.poll(async () => plain(await page.getByTestId('answer-supply-power').textContent()), { timeout: 20_000 }).toBe(fmt(s.supply.sourcePower));
+        expect(plain(await page.getByTestId('answer-modules').textContent())).toBe(`${s.charger.modules!.installed} × ${amps(10)}`);
+        expect(s.charger.modules!.installed).toBe(5);
+        expect(plain(await supplyLine.textContent())).toContain(`${amps(10)} (N+1) · standing by`);
+        await expect.poll(async () => plain(await page.getByTestId('answer-standby-cost').textContent())).toBe(plain(formatMoney(s.standing.cost!, 'en-US')));
+        // On battery: the runtime to the end of discharge and the bank's current (core's backup study of the on-battery mode).
+        await expect.poll(async () => plain(await page.getByTestId('answer-runtime').textContent()), { timeout: 20_000 }).toBe(plain(formatDuration(bankAnswer.runtimeSeconds, 'en-US')));
+        expect(plain(await page.getByTestId('answer-bank-current').textContent())).toBe(amps(bankAnswer.peakCurrent));
+        expect(plain(await batteryLine.textContent())).toContain('meets the 30 min target');
+        expect(await page.getByTestId('answer-runtime').getAttribute('title')).toContain('to the end of discharge');
+        // The bank for the 30 min target rides on the same line: 100 Ah (core's sizing of the demo, IEEE 485 in core/studies/backup).
+        expect(plain(await page.getByTestId('answer-sized-bank').textContent())).toBe(`${plain(formatSignificant(bankAnswer.sizedCapacityAh!, 4, 'en-US'))} Ah`);
+        expect(plain(await batteryLine.textContent())).toContain('bank for 30 min');
+        // The modes' lines come first in the strip, above the four balance figures.
+        const first = await supplyLine.boundingBox();
+        const second = await batteryLine.boundingBox();
+        const figures = await page.getByTestId('energy-balance').boundingBox();
+        expect(first!.y).toBeLessThan(second!.y);
+        expect(second!.y).toBeLessThan(figures!.y);
+        if (label === 'phone') {
+          // On the first phone screen (844 px high) without scrolling.
+          expect(await page.evaluate('window.scrollY')).toBe(0);
+          expect(second!.y + second!.height).toBeLessThanOrEqual(844);
+          // The whole strip within 70 % of the screen (tests/browser/answers.test.ts's guard against bloat) and, from the
+          // project's name, on one screen.
+          await answersSettled(page);
+          await page.screenshot({ path: join(artifacts, 'modes-phone-answers.png'), fullPage: false });
+          const strip = (await page.getByTestId('answers').boundingBox())!;
+          const heading = (await page.locator('#project-heading').boundingBox())!;
+          console.log(`harbour clinic phone: strip ${strip.y.toFixed(0)}–${(strip.y + strip.height).toFixed(0)} px (${strip.height.toFixed(0)} px high)`);
+          expect(strip.height).toBeLessThan(0.7 * 844);
+          expect(strip.y + strip.height - heading.y).toBeLessThan(844);
+        } else {
+          await page.getByTestId('answers').screenshot({ path: join(artifacts, 'modes-desktop-answers.png') });
+        }
+        expect(await seriousAxeViolations(page)).toEqual([]);
+
+        // Each figure opens its working: the modules the standing-by panel at its module count, the runtime the battery panel.
+        if (touch) await page.getByTestId('answer-modules').tap();
+        else await page.getByTestId('answer-modules').click();
+        await expect.poll(() => page.getByTestId('panel-standby').getAttribute('open')).not.toBeNull();
+        await expect.poll(() => page.evaluate('document.activeElement?.getAttribute("data-testid")'), { timeout: 15_000 }).toBe('standby-modules');
+        await page.getByTestId('answer-supply-power').scrollIntoViewIfNeeded();
+        await page.getByTestId('answer-supply-power').click();
+        await expect.poll(() => page.evaluate('document.activeElement?.getAttribute("data-testid")'), { timeout: 15_000 }).toBe('standby-supply-power');
+        expect(plain(await page.getByTestId('standby-supply-power').textContent())).toBe(fmt(s.supply.sourcePower));
+        await page.getByTestId('answer-runtime').scrollIntoViewIfNeeded();
+        await page.getByTestId('answer-runtime').click();
+        await expect.poll(() => page.getByTestId('panel-battery').getAttribute('open')).not.toBeNull();
+        await expect.poll(() => page.evaluate('document.activeElement?.getAttribute("data-testid")'), { timeout: 20_000 }).toBe('battery-runtime');
+        expect(errors).toEqual([]);
+      } finally {
+        await context.close();
+      }
+    }, 120_000);
+  }
+
+  it('harbour clinic: the printed report carries the modes section on the client\'s pages and its method on the engineer\'s page', async () => {
+    const { context, page, errors } = await open('#demo=harbour-clinic-ups', VIEWPORTS.desktop);
+    try {
+      const s = study.study;
+      const section = page.getByTestId('report-modes');
+      // The report is print only: read its text (hidden on screen) once the worker's figures are in.
+      await expect.poll(() => section.getByTestId('report-modes-supply').count(), { timeout: 20_000 }).toBe(1);
+      const text = plain(await section.textContent());
+      // Both balances (core's modes study), the charger with N+1, the standing cost a year, the transfer, the cautions.
+      expect(plain(await section.getByTestId('report-modes-supply').textContent())).toContain(fmt(s.supply.sourcePower));
+      expect(plain(await section.getByTestId('report-modes-battery').textContent())).toContain(fmt(s.battery && 'sourcePower' in s.battery ? s.battery.sourcePower : NaN));
+      expect(plain(await section.getByTestId('report-modes-modules').textContent())).toBe(`5 modules of ${amps(10)}: 4 needed and one spare (N+1), ${amps(50)} installed.`);
+      expect(plain(await section.getByTestId('report-modes-cost').textContent())).toBe(plain(formatMoney(s.standing.cost!, 'en-US')));
+      expect(text).toContain(plain(formatVoltage(s.transfer!.busVoltageAtTransfer, 'en-US')));
+      expect(text).toContain(amps(s.transfer!.currentStep));
+      // The modes study's cautions join the report's own list (its planning caution is the list's first already).
+      const modeCautions = s.cautions.filter((c) => !c.startsWith('Planning estimate only'));
+      expect(modeCautions.length).toBeGreaterThan(0);
+      expect((await page.getByTestId('report-cautions').getByTestId('report-modes-caution').allTextContents()).map(plain)).toEqual(modeCautions.map(plain));
+      expect(plain(await page.getByTestId('report-modes-method').textContent())).toContain('IEEE Std 946');
+
+      // Printed: the modes section on a client's page (not the last), no calculation words there; its method on the last page.
+      await page.emulateMedia({ media: 'print' });
+      const pdf = await page.pdf({ format: 'A4', printBackground: true });
+      writeFileSync(join(artifacts, 'modes-report.pdf'), pdf);
+      const pages = (await extractText(new Uint8Array(pdf), { mergePages: false })).text.map((t) => t.replace(/\s+/g, ' '));
+      const at = pages.findIndex((t) => t.includes('On supply and on battery'));
+      const engineer = pages.findIndex((t) => t.includes('For the engineer'));
+      expect(at).toBeGreaterThanOrEqual(0);
+      expect(engineer).toBeGreaterThan(at);
+      // The words the client's pages never carry (the list of tests/browser/report.test.ts, SOLVER_WORDS).
+      for (const t of pages.slice(0, engineer)) expect(t).not.toMatch(/\b(solve[ds]?|solver|solving|ports?|nodes?|sweeps?|converged|convergence|balance error)\b/i);
+      expect(pages.slice(engineer).join(' ')).toContain('A = L + k·C/H');
+      try {
+        execFileSync('pdftoppm', ['-png', '-r', '60', join(artifacts, 'modes-report.pdf'), join(artifacts, 'modes-report-page')]);
+      } catch {
+        // pdftoppm is not installed: the PDF itself is in tests/.artifacts/.
+      }
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 120_000);
+
+  it('harbour clinic, phone: the charge to put back and the charge-return factor are editable; the charger sizing follows core; bad values stay at the field', async () => {
+    const { context, page, errors } = await open('#demo=harbour-clinic-ups', VIEWPORTS.phone, true);
+    try {
+      await page.getByTestId('panel-standby').locator('summary').tap();
+      const panel = page.getByTestId('standby-panel');
+      await expect.poll(() => panel.getAttribute('data-state'), { timeout: 15_000 }).toBe('ready');
+      // Empty at first: the field's help says what core takes (its working: C = 100 Ah, the bank's rated capacity here).
+      const c0 = study.study.charger;
+      expect(await page.getByTestId('standby-recharge-ah').inputValue()).toBe('');
+      await expect.poll(async () => plain(await page.locator('#study-standby-rechargeAh-help').textContent())).toContain(`Empty: ${plain(formatSignificant(c0.rechargeAh, 4, 'en-US'))} Ah`);
+      expect(plain(await page.locator('#study-standby-chargeReturnFactor-help').textContent())).toMatch(/1\.05 to 1\.4 \(IEEE Std 946/);
+
+      // 60 Ah to put back: core's charger sizing of the changed project (A = L + k·C/H with C = 60 Ah).
+      const changed = structuredClone(demo('harbour-clinic-ups')) as { standby: Record<string, unknown> };
+      changed.standby['rechargeAh'] = 60;
+      const withAh = runModesStudy(solvedOf(changed));
+      if (!withAh?.ok) throw new Error('the changed demo does not solve');
+      const input = page.getByTestId('standby-recharge-ah');
+      await input.fill('60');
+      await input.blur();
+      await expect.poll(async () => plain(await page.getByTestId('standby-recharge-current').textContent())).toBe(amps(withAh.study.charger.rechargeCurrent));
+      expect(plain(await page.getByTestId('standby-required-current').textContent())).toBe(amps(withAh.study.charger.requiredCurrent));
+      expect(plain(await page.getByTestId('standby-recharge-ah-used').textContent())).toBe('60 Ah');
+      // 1.1 × 60 Ah ÷ 8 h = 8.25 A (IEEE Std 946's k·C/H, k = 1.1 lead-acid, from memory): the modules fall from 4 + 1 to 3 + 1.
+      expect(withAh.study.charger.rechargeCurrent).toBeCloseTo(8.25, 9);
+      await expect.poll(async () => plain(await page.getByTestId('standby-modules').textContent())).toBe(`${withAh.study.charger.modules!.needed} needed, ${withAh.study.charger.modules!.installed} with N+1`);
+      expect(withAh.study.charger.modules!.needed).toBe(3);
+
+      // The charge-return factor 1.2: core again.
+      changed.standby['chargeReturnFactor'] = 1.2;
+      const withK = runModesStudy(solvedOf(changed));
+      if (!withK?.ok) throw new Error('the changed demo does not solve');
+      const k = page.getByTestId('standby-charge-return');
+      await k.fill('1.2');
+      await k.blur();
+      await expect.poll(async () => plain(await page.getByTestId('standby-recharge-current').textContent())).toBe(amps(withK.study.charger.rechargeCurrent));
+      expect(withK.study.charger.rechargeCurrent).toBeCloseTo((1.2 * 60) / 8, 9);
+
+      // A bad factor (below 1: the schema's own bound): the message at the field, nothing stored, the figures stay.
+      await k.fill('0.8');
+      await expect.poll(async () => plain(await page.locator('#study-standby-chargeReturnFactor-error').textContent())).toMatch(/at least 1/);
+      expect(await k.getAttribute('aria-invalid')).toBe('true');
+      expect(plain(await page.getByTestId('standby-charge-return-used').textContent())).toBe('1.2');
+      expect(plain(await page.getByTestId('standby-recharge-current').textContent())).toBe(amps(withK.study.charger.rechargeCurrent));
+      // A charge that is not a number: the message at the field.
+      await input.fill('sixty');
+      await expect.poll(async () => (await page.locator('#study-standby-rechargeAh-error').count())).toBe(1);
+      expect(plain(await page.getByTestId('standby-recharge-ah-used').textContent())).toBe('60 Ah');
+      await panel.screenshot({ path: join(artifacts, 'modes-phone-standby-edit.png') });
+      expect(await seriousAxeViolations(page)).toEqual([]);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 120_000);
+
+  it('a rectifier run past its rating (a shared copy of the harbour clinic): the warnings follow the mode and say which', async () => {
+    // The rectifier's loss model rated 3.5 kW: on supply it gives 218 V × 16.9 A ≈ 3.68 kW, over its rating (core/kinds/models.ts
+    // lossReport, "exceeds the rated"); on battery the rectifier is cut, so that warning goes (core's solveModes on the same project).
+    const changed = structuredClone(demo('harbour-clinic-ups')) as { elements: Record<string, unknown>[] };
+    const rectifier = changed.elements.find((e) => e['id'] === 'rectifier')!;
+    rectifier['loss'] = { ...(rectifier['loss'] as object), ratedPower: 3500 };
+    const pair = solvedOf(changed);
+    const both = solveModes(pair)!;
+    if (!both.battery.ok) throw new Error('the changed demo has no on-battery mode');
+    expect(pair.result.warnings.map((w) => w.elementId)).toEqual(['rectifier']);
+    expect(both.battery.result.warnings).toEqual([]);
+    const hash = await shareHash(changed as unknown as DraftProject);
+    if (!hash.ok) throw new Error(hash.message);
+    const { context, page, errors } = await open(hash.hash, VIEWPORTS.desktop);
+    try {
+      const warnings = page.getByTestId('warnings');
+      await expect.poll(() => page.getByTestId('warnings-mode').textContent(), { timeout: 15_000 }).toBe('On supply');
+      expect(plain(await warnings.textContent())).toContain('UPS rectifier:');
+      expect(plain(await warnings.textContent())).toContain('exceeds the rated');
+      await page.getByTestId('mode-switch').waitFor();
+      await page.getByRole('radio', { name: 'On battery' }).check();
+      await expect.poll(() => page.getByTestId('element-table-mode').textContent()).toBe('On battery');
+      // Core gives no warning on battery: no list.
+      await expect.poll(() => warnings.count()).toBe(0);
+      await page.getByRole('radio', { name: 'On supply' }).check();
+      await expect.poll(() => page.getByTestId('warnings-mode').textContent()).toBe('On supply');
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 90_000);
 });

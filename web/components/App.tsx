@@ -12,7 +12,7 @@ import { ProblemList } from './ProblemList.tsx';
 import { CableTable, ElementTable, MethodNote, PortTable, WarningList } from './Results.tsx';
 import { PanelDisclosure, PanelShelf } from './PanelShelf.tsx';
 import { AnswersStrip } from './answers/AnswersStrip.tsx';
-import { batteryResultFor, hasBankOnBus, MODE_WORDS, shownMode } from './modes/mode-state.ts';
+import { batteryPairFor, hasBankOnBus, MODE_WORDS, shownMode } from './modes/mode-state.ts';
 import { lazy, memo, Suspense } from 'preact/compat';
 import { useSignal } from '@preact/signals';
 import { useEffect, useLayoutEffect, useRef } from 'preact/hooks';
@@ -100,9 +100,11 @@ function ShownProject() {
   const crashed = crashMessage.value;
   const stale = resultsState.value === 'stale';
   const shared = origin?.kind === 'shared';
-  // A bank on a bus: the diagram and the element table show the chosen mode (the on-battery result from the worker, web/components/modes/).
+  // A bank on a bus: the diagram, the warnings and the tables show the chosen mode (the on-battery pair from the worker, web/components/modes/).
   const twoModes = solved !== null && hasBankOnBus(solved.project);
-  const onBattery = twoModes && shownMode.value === 'battery' ? batteryResultFor(solved!) : null;
+  const batteryPair = twoModes && shownMode.value === 'battery' ? batteryPairFor(solved!) : null;
+  const onBattery = batteryPair?.result ?? null;
+  const shownPair = batteryPair ?? solved;
   const shownResult = onBattery ?? result;
   const modeWords = twoModes ? (onBattery ? MODE_WORDS.battery : MODE_WORDS.supply) : undefined;
   return (
@@ -133,11 +135,10 @@ function ShownProject() {
           {twoModes && <Suspense fallback={null}><ModeResults key={openCount.value} solved={solved!} /></Suspense>}
           {modeWords && <p class="mode-tag" data-testid="flow-mode">Energy flow {modeWords.toLowerCase()}</p>}
           <Suspense fallback={<p class="note">Drawing the energy flow…</p>}><EnergyFlow result={shownResult!} /></Suspense>
-          <WarningList result={result} />
+          <WarningList result={shownResult!} twoModes={twoModes} />
           <ElementTable result={shownResult!} twoModes={twoModes} />
-          {modeWords && <p class="mode-tag" data-testid="tables-mode">The tables below: on supply</p>}
-          <CableTable result={solved!} />
-          <PortTable result={result} />
+          <CableTable result={shownPair!} twoModes={twoModes} />
+          <PortTable result={shownResult!} twoModes={twoModes} />
           <MethodNote result={result} />
           <PanelShelf key={openCount.value} solved={solved!} />
         </div>

@@ -9,6 +9,7 @@ import { formatConductorSize, formatLength, formatTemperature } from '../format/
 import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { lagOffscreen, type BoxRef } from './lag.ts';
 import { CsvButton } from './report/CsvButton.tsx';
+import { MODE_WORDS, modeOfResult } from './modes/mode-state.ts';
 
 /** Where a lagging part puts its ref (web/components/lag.ts). */
 type Box = { box: BoxRef };
@@ -28,10 +29,11 @@ const GOVERNING_WORDS: Record<GoverningRule, string> = {
  * project has cables. Takes the solved pair (lagOffscreen lags its `result` prop: here the pair), so
  * the lengths are always those of the project the figures belong to, never the draft's.
  */
-export const CableTable = lagOffscreen(function CableTable({ result: solved, box }: { result: Solved } & Box) {
+export const CableTable = lagOffscreen(function CableTable({ result: solved, twoModes, box }: { result: Solved; /** A project with a bank on a bus: say which mode the table shows (the pair is that mode's). */ twoModes?: boolean } & Box) {
   const units = unitSystem.value;
   const locale = effectiveLocale();
   const result = solved.result;
+  const mode = twoModes ? MODE_WORDS[modeOfResult(result)] : undefined;
   const cables = result.elements.filter((e) => e.kind === 'cable');
   if (cables.length === 0) return null;
   const lengths = cableLengths(solved.project);
@@ -41,6 +43,7 @@ export const CableTable = lagOffscreen(function CableTable({ result: solved, box
   return (
     <section class="skip-offscreen" aria-labelledby="cables-heading" data-testid="cable-panel">
       <h3 id="cables-heading">Cables</h3>
+      {mode && <p class="mode-tag" data-testid="cable-table-mode">{mode}</p>}
       <CsvButton name="Cables" />
       {/* The table itself is the lagging box: a heading showing at the screen's edge does not make the whole table render in the edit's frame. */}
       <div class="table-scroll" role="region" aria-labelledby="cables-heading" tabIndex={0} ref={box}>

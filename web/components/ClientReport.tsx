@@ -32,6 +32,8 @@ import { catchUpNow, useOffscreenLag, type BoxRef } from './lag.ts';
 import type { DraftProject } from '../state/draft.ts';
 import { ReportQr } from './report/ReportQr.tsx';
 import { ShareLink } from './report/ShareLink.tsx';
+import { ReportModes, ReportModesCautions, ReportModesMethod } from './report/ReportModes.tsx';
+import { hasBankOnBus } from './modes/mode-state.ts';
 
 /** The caution every report carries (results are planning estimates). */
 export const REPORT_CAUTION =
@@ -190,6 +192,8 @@ const ReportBody = memo(function ReportBody({
           </section>
           <ReportQr project={project as unknown as DraftProject} />
         </div>
+        {/* A bank on a bus: both modes, the charger, standing by and the transfer (report/ReportModes.tsx). */}
+        {hasBankOnBus(project) && <ReportModes solved={solved} locale={loc} />}
       </section>
 
       <section class="report report--tail print-keep" aria-label="Warnings and cautions" data-testid="report-tail">
@@ -210,6 +214,7 @@ const ReportBody = memo(function ReportBody({
           {cautions.map((c) => (
             <li key={c}>{c}</li>
           ))}
+          {hasBankOnBus(project) && <ReportModesCautions solved={solved} />}
         </ul>
       </section>
 
@@ -230,6 +235,7 @@ const ReportBody = memo(function ReportBody({
             {formatSmallPercent(t.balanceError, loc)}.
           </li>
           <li>AC voltages are line-to-line for three-phase, currents are line currents; P is real power at the port.</li>
+          {hasBankOnBus(project) && <ReportModesMethod solved={solved} locale={loc} />}
         </ul>
         <table class="report__working" data-testid="report-working">
           <caption>The engine's working: each element's input and output port</caption>

@@ -23,6 +23,7 @@ import { effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { lagOffscreen, type BoxRef } from './lag.ts';
 import { CsvButton } from './report/CsvButton.tsx';
 import { messageText } from './problem-words.ts';
+import { MODE_WORDS, modeOfResult } from './modes/mode-state.ts';
 
 export { CableTable, cableLengths } from './CableTable.tsx';
 
@@ -89,7 +90,7 @@ const ElementRow = memo(function ElementRow({ elementId, name, kind, depth, cell
 
 export const ElementTable = lagOffscreen(function ElementTable({ result, twoModes, box }: { result: SolveResult; /** A project with a bank on a bus: say which mode the table shows. */ twoModes?: boolean } & Box) {
   // Read from the result shown (which lags while off screen), never from the switch: on battery the bank is the root.
-  const mode = twoModes ? (result.elements[0]?.kind === 'battery' ? 'On battery' : 'On supply') : undefined;
+  const mode = twoModes ? MODE_WORDS[modeOfResult(result)] : undefined;
   const depth = depths(result.elements);
   const t = result.totals;
   const loc = effectiveLocale();
@@ -253,13 +254,15 @@ const PortRow = memo(function PortRow({ elementId, name, side, port, units, loca
   );
 }, samePortRow);
 
-export const PortTable = lagOffscreen(function PortTable({ result, box }: { result: SolveResult } & Box) {
+export const PortTable = lagOffscreen(function PortTable({ result, twoModes, box }: { result: SolveResult; /** A project with a bank on a bus: say which mode the table shows. */ twoModes?: boolean } & Box) {
+  const mode = twoModes ? MODE_WORDS[modeOfResult(result)] : undefined;
   const depth = depths(result.elements);
   const loc = effectiveLocale();
   const units = unitSystem.value;
   return (
     <section class="skip-offscreen" aria-labelledby="ports-heading">
       <h3 id="ports-heading">Voltage, current and power at each port</h3>
+      {mode && <p class="mode-tag" data-testid="port-table-mode">{mode}</p>}
       <CsvButton name="Voltage, current and power at each port" />
       {/* The table itself is the lagging box: a heading showing at the screen's edge does not make the whole table render in the edit's frame. */}
       <div class="table-scroll" role="region" aria-labelledby="ports-heading" tabIndex={0} ref={box}>
@@ -309,12 +312,14 @@ export const PortTable = lagOffscreen(function PortTable({ result, box }: { resu
   );
 });
 
-export const WarningList = lagOffscreen(function WarningList({ result, box }: { result: SolveResult } & Box) {
+export const WarningList = lagOffscreen(function WarningList({ result, twoModes, box }: { result: SolveResult; /** A project with a bank on a bus: say which mode the warnings are of. */ twoModes?: boolean } & Box) {
   if (result.warnings.length === 0) return null;
+  const mode = twoModes ? MODE_WORDS[modeOfResult(result)] : undefined;
   const names = new Map(result.elements.map((e) => [e.id, e.name || e.id]));
   return (
     <section class="notice notice--warn" aria-labelledby="warnings-heading" data-testid="warnings" ref={box}>
       <h3 id="warnings-heading">Check these</h3>
+      {mode && <p class="mode-tag" data-testid="warnings-mode">{mode}</p>}
       <ul>
         {result.warnings.map((w, i) => (
           <li key={`${w.elementId}-${w.code}-${i}`}>

@@ -29,7 +29,7 @@ export type PanelRequest =
 export interface ModesReply {
   kind: 'modes';
   outcome:
-    | { ok: true; battery: { ok: true; result: SolveResult } | { ok: false; problems: Problem[] }; study: { ok: true; study: ModesStudyResult } | { ok: false; problems: Problem[] } }
+    | { ok: true; battery: { ok: true; result: SolveResult; project: Solved['project'] } | { ok: false; problems: Problem[] }; study: { ok: true; study: ModesStudyResult } | { ok: false; problems: Problem[] } }
     | { ok: false; problems: Problem[] };
 }
 
@@ -126,7 +126,7 @@ function modes(solved: Solved): ModesReply {
   const m = solveModes(solved);
   if (!m) return { kind: 'modes', outcome: { ok: false, problems: [] } };
   const names = elementNames(solved.project);
-  let battery: { ok: true; result: SolveResult } | { ok: false; problems: Problem[] } = m.battery.ok ? { ok: true, result: m.battery.result } : { ok: false, problems: m.battery.problems };
+  let battery: { ok: true; result: SolveResult; project: Solved['project'] } | { ok: false; problems: Problem[] } = m.battery.ok ? { ok: true, result: m.battery.result, project: m.battery.project } : { ok: false, problems: m.battery.problems };
   if (battery.ok) {
     const notFinite = nonFiniteProblems('The on-battery mode', battery.result, elementNames(m.battery.ok ? m.battery.project : solved.project));
     if (notFinite.length) battery = { ok: false, problems: notFinite };

@@ -7,7 +7,7 @@
 import { signal } from '@preact/signals';
 
 /** The study panels and results parts a request can open. */
-export type PanelId = 'battery' | 'conductor' | 'machines' | 'starting' | 'project-settings';
+export type PanelId = 'battery' | 'conductor' | 'machines' | 'starting' | 'project-settings' | 'standby';
 
 export interface WorkingRequest {
   panel: PanelId;

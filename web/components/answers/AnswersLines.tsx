@@ -18,6 +18,7 @@ import { formatCurrent, formatDuration, formatPower, formatSignificant, UNIT_GAP
 import { costInForce, effectiveLocale } from '../../state/prefs.ts';
 import { openCount } from '../../state/editor.ts';
 import { Fig, type WorkingTarget } from './fig.tsx';
+import { ModeAnswers } from './ModeAnswers.tsx';
 import { entryState, moneyFormat, needsStudies, NO_STUDIES, requestStudyAnswers, studyAnswers } from './study-answers.ts';
 
 /** A line of the strip: a label, its figure(s) and a short note. */
@@ -38,13 +39,27 @@ export function hoursWords(seconds: number, loc: string | undefined): string {
   return Number.isInteger(h) ? `${formatSignificant(h, 6, loc)}${UNIT_GAP}h` : formatDuration(seconds, loc);
 }
 
-/** The bank's lines: runtime, the bank for the target, the current for its cable and fuse. */
-function BankLines({ quick, bank, state, loc }: { quick: SolveAnswers['banks'][number]; bank: BankStudyAnswer | undefined; state: 'current' | 'updating' | 'none'; loc: string | undefined }) {
+/**
+ * The bank's lines: runtime, the bank for the target, the current for its cable and fuse. A bank on a
+ * bus leads with both modes' answers instead (ModeAnswers.tsx: on supply, then on battery, whose runtime,
+ * bank current and bank for the target are these).
+ */
+function BankLines({ solved, quick, bank, state, loc }: { solved: Solved; quick: SolveAnswers['banks'][number]; bank: BankStudyAnswer | undefined; state: 'current' | 'updating' | 'none'; loc: string | undefined }) {
   const shown = state === 'none' ? undefined : bank;
   const figState = state === 'updating' ? 'updating' : shown ? undefined : 'working';
   const runtime = shown ? `${shown.runtimeIsLowerBound ? 'over ' : ''}${formatDuration(shown.runtimeSeconds, loc)}` : WORKING;
   const target = shown?.targetSeconds;
   const sized = quick.cableCurrent;
+  const sizedBank = shown?.sizedBank !== undefined && target !== undefined && (
+    <Line label={`Bank for ${hoursWords(target, loc)}`} name="sized-bank">
+      <Fig label={`Bank for ${hoursWords(target, loc)}`} to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-sizing-result' }} state={figState} testId="answer-sized-bank">
+        {formatSignificant(shown.sizedCapacityAh ?? 0, 4, loc)}{UNIT_GAP}Ah
+      </Fig>
+      <span class="answer__note"> {shown.sizedBank.replace(/ \(.*\)$/, '')}</span>
+    </Line>
+  );
+  // The bank for the target rides on the on-battery line (ModeAnswers.tsx), so the strip stays on the first phone screen.
+  if (quick.onBus) return <ModeAnswers solved={solved} quick={quick} bank={shown} figState={figState} loc={loc} />;
   return (
     <>
       <Line label="Runtime" name="runtime" tone={shown?.meetsTarget === false ? 'warn' : undefined}
@@ -53,14 +68,7 @@ function BankLines({ quick, bank, state, loc }: { quick: SolveAnswers['banks'][n
           {runtime}
         </Fig>
       </Line>
-      {shown?.sizedBank !== undefined && target !== undefined && (
-        <Line label={`Bank for ${hoursWords(target, loc)}`} name="sized-bank">
-          <Fig label={`Bank for ${hoursWords(target, loc)}`} to={{ panel: 'battery', elementId: quick.elementId, figure: 'battery-sizing-result' }} state={figState} testId="answer-sized-bank">
-            {formatSignificant(shown.sizedCapacityAh ?? 0, 4, loc)}{UNIT_GAP}Ah
-          </Fig>
-          <span class="answer__note"> {shown.sizedBank.replace(/ \(.*\)$/, '')}</span>
-        </Line>
-      )}
+      {sizedBank}
       {sized ? (
         <Line label="Bank cable and fuse carry" name="bank-current"
           note={`design current of “${sized.cableName}”: ${DESIGN_BASIS_WORDS[sized.basis]}${sized.factor !== 1 ? ` × ${formatSignificant(sized.factor, 3, loc)}` : ''}${sized.deviceRating !== undefined ? `; device ${formatCurrent(sized.deviceRating, loc)}` : ''}`}>
@@ -113,7 +121,7 @@ export function AnswersLines({ solved, part }: { solved: Solved; part: 'first' |
     return (
       <ul class="answers__list">
         {a.banks.map((b) => (
-          <BankLines key={b.elementId} quick={b} bank={studies?.banks.find((x) => x.elementId === b.elementId)} state={studies ? state : 'none'} loc={loc} />
+          <BankLines key={b.elementId} solved={solved} quick={b} bank={studies?.banks.find((x) => x.elementId === b.elementId)} state={studies ? state : 'none'} loc={loc} />
         ))}
       </ul>
     );

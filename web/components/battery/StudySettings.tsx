@@ -12,32 +12,25 @@ import { numberFormat } from '../../format/number.ts';
 import { fieldError, getAt, setField, setFieldError, type DraftProject } from '../../state/editor.ts';
 import { CHEMISTRY_PRESETS, PROJECT_LEVEL, type Chemistry } from '../../../core/page.ts';
 import { SettingField } from '../SettingField.tsx';
+import { ChoiceField } from '../ChoiceField.tsx';
 import { StudyInput } from '../StudyInput.tsx';
 
 /** Backup or cycling design: where a lead-acid or NiCd discharge ends, and what sizes the bank. */
 function DesignChoice({ project }: { project: DraftProject }) {
   const stored = getAt(project, 'backup.design');
-  const value = stored === 'cycling' ? 'cycling' : 'backup';
   return (
-    <div class="study-field">
-      <label for="study-backup-design" class="study-field__label">
-        Design
-      </label>
-      <select
-        id="study-backup-design"
-        class="study-field__input"
-        value={value}
-        onChange={(e) => setField(PROJECT_LEVEL, 'backup.design', (e.currentTarget as HTMLSelectElement).value, 'Backup study: design')}
-        aria-describedby="study-backup-design-help"
-        data-testid="battery-design"
-      >
-        <option value="backup">Backup (to the end voltage)</option>
-        <option value="cycling">Cycling (depth-of-discharge limit)</option>
-      </select>
-      <span id="study-backup-design-help" class="study-field__help">
-        Backup: a standby bank discharged to its end voltage (IEEE 485, IEEE 1115). Cycling: daily use, the depth of discharge also ends it.
-      </span>
-    </div>
+    <ChoiceField
+      path="backup.design"
+      label="Design"
+      value={stored === 'cycling' ? 'cycling' : 'backup'}
+      options={[
+        { value: 'backup', label: 'Backup (to the end voltage)' },
+        { value: 'cycling', label: 'Cycling (depth-of-discharge limit)' },
+      ]}
+      help="Backup: a standby bank discharged to its end voltage (IEEE 485, IEEE 1115). Cycling: daily use, the depth of discharge also ends it."
+      undoLabel="Backup study: design"
+      testId="battery-design"
+    />
   );
 }
 

@@ -9,13 +9,14 @@
 import { useEffect } from 'preact/hooks';
 import type { Solved } from '../../../core/page.ts';
 import type { ModesStudyResult } from '../../../core/studies/index.ts';
-
-type ModeFigures = ModesStudyResult['supply'];
 import { useWorkerReply } from '../panel-client.ts';
 import { formatPercent, formatPower } from '../../format/number.ts';
 import { effectiveLocale } from '../../state/prefs.ts';
 import { problemLine } from '../problem-words.ts';
+import { openCount } from '../../state/editor.ts';
 import { MODE_WORDS, modesReply, shownMode, type ShownMode } from './mode-state.ts';
+
+type ModeFigures = ModesStudyResult['supply'];
 
 function ModeSwitch() {
   const mode = shownMode.value;
@@ -60,7 +61,11 @@ function BalanceColumn({ title, figures, mode, chosen }: { title: string; figure
 export default function ModeResults({ solved }: { solved: Solved }) {
   const { reply, pending } = useWorkerReply<'modes'>(() => ({ kind: 'modes', solved }), [solved]);
   useEffect(() => {
-    if (reply && reply.kind === 'modes') modesReply.value = { for: solved, outcome: reply.outcome };
+    if (!reply || reply.kind !== 'modes') return;
+    const o = reply.outcome;
+    // The on-battery pair as one object per reply: the tables that show it lag on its identity.
+    const batteryPair = o.ok && o.battery.ok ? { ok: true as const, project: o.battery.project, result: o.battery.result } : undefined;
+    modesReply.value = { for: solved, open: openCount.value, outcome: o, ...(batteryPair ? { batteryPair } : {}) };
   }, [reply]);
   // Another project opened (App.tsx keys this part by it) starts on supply again.
   useEffect(() => () => void (shownMode.value = 'supply'), []);
@@ -80,7 +85,7 @@ export default function ModeResults({ solved }: { solved: Solved }) {
       <p class="note" role="status" data-testid="mode-shown">
         {mode === 'battery' && !outcome?.ok
           ? 'Working out the on-battery mode…'
-          : `The diagram and the table of each element below show the system ${MODE_WORDS[mode].toLowerCase()}.`}
+          : `The diagram, the warnings and the tables below show the system ${MODE_WORDS[mode].toLowerCase()}.`}
         {pending && outcome ? ' Updating…' : ''}
       </p>
       {reply?.kind === 'crash' && <p class="notice notice--error" role="alert">{reply.message}</p>}

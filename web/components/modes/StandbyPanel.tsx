@@ -6,15 +6,16 @@
  * warnings, which mode each study used and the cautions. Every figure is core's; this file only formats.
  * Loaded on demand when its panel is opened (PanelShelf.tsx).
  */
-import { fieldLabel, PROJECT_LEVEL, type Problem } from '../../../core/page.ts';
+import { fieldLabel, type Problem } from '../../../core/page.ts';
 import type { ModesStudyResult } from '../../../core/studies/index.ts';
 import { useWorkerReply } from '../panel-client.ts';
 import { formatCurrent, formatPercent, formatPower, formatSignificant, formatVoltage } from '../../format/number.ts';
 import { formatMoney } from '../../format/panels.ts';
 import { effectiveLocale, unitSystem } from '../../state/prefs.ts';
-import { draft, getAt, lastSolved, resultsState, setField, type DraftProject } from '../../state/editor.ts';
+import { draft, getAt, lastSolved, resultsState, type DraftProject } from '../../state/editor.ts';
 import { problemLine, messageText } from '../problem-words.ts';
 import { SettingField } from '../SettingField.tsx';
+import { ChoiceField } from '../ChoiceField.tsx';
 import '../Panels.css';
 
 type Locale = string | undefined;
@@ -32,11 +33,27 @@ function Problems({ problems, project }: { problems: Problem[]; project: unknown
 /** The project's own fields' labels (core/model/field-labels.ts, the `project` table). */
 const label = (path: string) => fieldLabel('project', path);
 
+/**
+ * Where the charge to put back came from, in words (core's `rechargeAhFrom`: given, or what it takes
+ * without a value). A source core adds later is shown as core words it.
+ */
+function rechargeAhFromWords(from: string): string {
+  if (from === 'given') return 'given';
+  if (from === 'bank capacity') return 'the bank’s rated capacity';
+  if (/drawn|outage/.test(from)) return 'the charge the outage drew';
+  return from;
+}
+
 /** The `standby` settings, each with its typical value and why under it (written through setField). */
-function StandbySettings({ project, locale }: { project: DraftProject; locale: Locale }) {
+function StandbySettings({ project, locale, study }: { project: DraftProject; locale: Locale; study: ModesStudyResult | null }) {
   const units = unitSystem.value;
   const common = { project, units, locale };
   const redundancy = getAt(project, 'standby.redundancy') === 'none' ? 'none' : 'n+1';
+  const c = study?.charger;
+  const n = (x: number, d = 4) => formatSignificant(x, d, locale);
+  // What core takes when a field is empty, from its own working (the figures below).
+  const ahEmpty = c && c.rechargeAhFrom !== 'given' ? ` Empty: ${n(c.rechargeAh)} Ah, ${rechargeAhFromWords(c.rechargeAhFrom)}.` : ' Empty: what the study takes without it (shown in the working below).';
+  const kEmpty = c && c.chargeReturnFactorFrom === 'typical' ? ` Empty: ${n(c.chargeReturnFactor, 3)}, the bank’s chemistry’s typical factor.` : ' Empty: the bank’s chemistry’s typical factor.';
   return (
     <div class="study-settings" data-testid="standby-settings">
       <SettingField
@@ -50,6 +67,24 @@ function StandbySettings({ project, locale }: { project: DraftProject; locale: L
       />
       <SettingField
         {...common}
+        path="standby.rechargeAh"
+        label={label('standby.rechargeAh')}
+        quantity="capacity"
+        placeholder={c && c.rechargeAhFrom !== 'given' ? n(c.rechargeAh) : undefined}
+        help={`The ampere-hours the charger must put back after an outage: what the outage takes out, at most the bank’s rated capacity.${ahEmpty}`}
+        testId="standby-recharge-ah"
+      />
+      <SettingField
+        {...common}
+        path="standby.chargeReturnFactor"
+        label={label('standby.chargeReturnFactor')}
+        quantity="ratio"
+        placeholder={c && c.chargeReturnFactorFrom === 'typical' ? n(c.chargeReturnFactor, 3) : undefined}
+        help={`Charge put back per charge taken out, typically ${n(1.05, 3)} to ${n(1.4, 3)} (IEEE Std 946, makers’ data): the charging losses; typical value: use the maker’s figure.${kEmpty}`}
+        testId="standby-charge-return"
+      />
+      <SettingField
+        {...common}
         path="standby.moduleCurrent"
         label={label('standby.moduleCurrent')}
         quantity="current"
@@ -57,23 +92,17 @@ function StandbySettings({ project, locale }: { project: DraftProject; locale: L
         help="One rectifier or charger module’s rated output: use the maker’s figure. Empty: no module count."
         testId="standby-module-current"
       />
-      <div class="study-field">
-        <label for="study-standby-redundancy" class="study-field__label">{label('standby.redundancy')}</label>
-        <select
-          id="study-standby-redundancy"
-          class="study-field__input"
-          value={redundancy}
-          aria-describedby="study-standby-redundancy-help"
-          data-testid="standby-redundancy"
-          onChange={(e) => setField(PROJECT_LEVEL, 'standby.redundancy', (e.currentTarget as HTMLSelectElement).value, label('standby.redundancy'))}
-        >
-          <option value="n+1">One spare module (N+1)</option>
-          <option value="none">None</option>
-        </select>
-        <span id="study-standby-redundancy-help" class="study-field__help">
-          N+1 is usual where the loads must stay up while a module is changed or fails.
-        </span>
-      </div>
+      <ChoiceField
+        path="standby.redundancy"
+        label={label('standby.redundancy')}
+        value={redundancy}
+        options={[
+          { value: 'n+1', label: 'One spare module (N+1)' },
+          { value: 'none', label: 'None' },
+        ]}
+        help="N+1 is usual where the loads must stay up while a module is changed or fails."
+        testId="standby-redundancy"
+      />
       <SettingField
         {...common}
         path="standby.outageHoursPerYear"
@@ -106,9 +135,9 @@ function Figures({ s, locale }: { s: ModesStudyResult; locale: Locale }) {
         </p>
         <dl>
           <dt>Load on the bus, L</dt><dd data-testid="standby-load-current">{A(c.loadCurrent)}</dd>
-          <dt>Charge to put back, C ({c.rechargeAhFrom === 'given' ? 'given' : 'the bank’s capacity'})</dt><dd>{n(c.rechargeAh)} Ah</dd>
+          <dt>Charge to put back, C ({rechargeAhFromWords(c.rechargeAhFrom)})</dt><dd data-testid="standby-recharge-ah-used">{n(c.rechargeAh)} Ah</dd>
           <dt>Recharge time, H</dt><dd>{n(c.rechargeHours, 3)} h</dd>
-          <dt>Charge-return factor, k{c.chargeReturnFactorFrom === 'typical' ? ' (typical value: use the maker’s figure)' : ''}</dt><dd>{n(c.chargeReturnFactor, 3)}</dd>
+          <dt>Charge-return factor, k{c.chargeReturnFactorFrom === 'typical' ? ' (typical value: use the maker’s figure)' : ''}</dt><dd data-testid="standby-charge-return-used">{n(c.chargeReturnFactor, 3)}</dd>
           <dt>Recharge current, k·C/H</dt><dd data-testid="standby-recharge-current">{A(c.rechargeCurrent)}</dd>
           <dt>Capacity needed, A</dt><dd data-testid="standby-required-current">{A(c.requiredCurrent)}</dd>
           {c.modules && (
@@ -120,6 +149,7 @@ function Figures({ s, locale }: { s: ModesStudyResult; locale: Locale }) {
               <dt>Installed</dt><dd>{A(c.modules.installedCurrent)}</dd>
             </>
           )}
+          <dt>Supply power on float (on supply)</dt><dd data-testid="standby-supply-power">{W(s.supply.sourcePower)}</dd>
           {c.rechargeCase.ok && (
             <>
               <dt>Supply current while recharging (size the supply for this)</dt><dd data-testid="standby-supply-current">{A(c.rechargeCase.supplyCurrent)}</dd>
@@ -220,7 +250,7 @@ export default function StandbyPanel() {
   const study = outcome?.ok ? outcome.study : null;
   return (
     <div class={stale ? 'panel-body panel-body--stale' : 'panel-body'} data-testid="standby-panel" data-state={study?.ok ? 'ready' : pending ? 'working' : 'none'}>
-      {project && <StandbySettings project={project} locale={locale} />}
+      {project && <StandbySettings project={project} locale={locale} study={study?.ok ? study.study : null} />}
       {reply?.kind === 'crash' && <p class="notice notice--error" role="alert">{reply.message}</p>}
       {!reply && <p class="note" role="status">Working out the two modes…</p>}
       {outcome && !outcome.ok && <Problems problems={outcome.problems} project={project} />}
