@@ -69,8 +69,8 @@ export interface Swing {
   input: SpreadInput;
   low: SampleFigures | null;
   high: SampleFigures | null;
-  /** |runtime(high) − runtime(low)|, h: the ranking's key. */
-  runtimeSwingH: number;
+  /** |runtime(high) − runtime(low)|, h: the ranking's key; null when an end could not be run. */
+  runtimeSwingH: number | null;
 }
 
 export interface SpreadResult {
@@ -184,11 +184,11 @@ export function spreadSensitivity(solved: Solved, plan: SpreadPlan): Swing[] {
     };
     const low = at(-1);
     const high = at(1);
-    const swing = low && high ? Math.abs(high.runtimeH - low.runtimeH) : NaN;
+    const swing = low && high ? Math.abs(high.runtimeH - low.runtimeH) : null;
     out.push({ input, low, high, runtimeSwingH: swing });
   }
-  // A swing that could not be run sorts last (NaN compares as unknown).
-  return out.sort((a, b) => (Number.isFinite(b.runtimeSwingH) ? b.runtimeSwingH : -1) - (Number.isFinite(a.runtimeSwingH) ? a.runtimeSwingH : -1));
+  // A swing that could not be run sorts last; equal swings keep the inputs' order (a stable sort).
+  return out.sort((a, b) => (b.runtimeSwingH ?? -1) - (a.runtimeSwingH ?? -1));
 }
 
 /** The chunks merged (in sample order) and summarised. */

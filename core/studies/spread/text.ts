@@ -43,7 +43,7 @@ export function formatSpread(s: SpreadResult): string {
   for (const w of s.sensitivity) {
     const lo = w.low ? h(w.low.runtimeH) : 'refused';
     const hi = w.high ? h(w.high.runtimeH) : 'refused';
-    lines.push(`    ${INPUT_WORDS[w.input]}: ${lo} at the low end, ${hi} at the high end (swing ${Number.isFinite(w.runtimeSwingH) ? h(w.runtimeSwingH) : 'unknown'})`);
+    lines.push(`    ${INPUT_WORDS[w.input]}: ${lo} at the low end, ${hi} at the high end (swing ${w.runtimeSwingH !== null ? h(w.runtimeSwingH) : 'unknown'})`);
   }
   if (s.failed) lines.push(`  ${s.failed} samples were refused, e.g. ${s.failures[0]!.message}`);
   lines.push("  Tolerances left unset take a typical value: use the maker's figure.");
