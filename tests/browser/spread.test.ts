@@ -75,6 +75,7 @@ describe.skipIf(skipWithout('chromium'))('the runtime spread panel in Chromium',
         await bar.waitFor({ timeout: 30_000 });
         expect(await bar.getAttribute('aria-valuemax')).toBe('5000');
         await expect.poll(async () => Number(await bar.getAttribute('aria-valuenow')), { timeout: 60_000 }).toBeGreaterThan(0);
+        await page.getByTestId('spread-panel').screenshot({ path: join(artifacts, `spread-${label}-running.png`) });
         await page.getByTestId('spread-cancel').click();
         await page.getByTestId('spread-cancelled').waitFor({ timeout: 30_000 });
         expect(await page.getByTestId('spread-panel').getAttribute('data-state')).toBe('cancelled');
@@ -85,7 +86,6 @@ describe.skipIf(skipWithout('chromium'))('the runtime spread panel in Chromium',
         await page.waitForTimeout(300);
         await page.getByTestId('spread-run').click();
         await bar.waitFor({ timeout: 30_000 });
-        await page.getByTestId('spread-panel').screenshot({ path: join(artifacts, `spread-${label}-running.png`) });
         await page.getByTestId('spread-result').waitFor({ timeout: 240_000 });
         expect(plain(await page.getByTestId('spread-seed-shown').textContent())).toBe(String(SEED));
         const shown = Number(await page.getByTestId('spread-runtime-p50').getAttribute('data-value'));
@@ -98,7 +98,7 @@ describe.skipIf(skipWithout('chromium'))('the runtime spread panel in Chromium',
         await page.getByTestId('spread-panel').screenshot({ path: join(artifacts, `spread-${label}-done.png`) });
         await page.getByTestId('spread-histogram').screenshot({ path: join(artifacts, `spread-${label}-histogram.png`) });
         await page.getByTestId('spread-sensitivity').screenshot({ path: join(artifacts, `spread-${label}-sensitivity.png`) });
-        expect(await seriousAxeViolations(page, '[data-testid="panel-spread"]')).toEqual([]);
+        expect(await seriousAxeViolations(page, `'[data-testid="panel-spread"]'`)).toEqual([]);
         expect(errors).toEqual([]);
       } finally {
         await context.close();

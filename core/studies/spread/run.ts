@@ -110,7 +110,8 @@ function runDraw(solved: Solved, plan: Pick<SpreadPlan, 'tolerances' | 'cost' | 
     if (!o.ok) return o;
     s = o;
   }
-  const study = runBackupStudy(s);
+  // The runtime and the sizing only: the spread reads no sized run and no recharge.
+  const study = runBackupStudy(s, { sizedRun: false, recharge: false });
   if (!study.ok) return study;
   const dis = study.study.discharge;
   let costPerYear: number | null = null;
