@@ -15,7 +15,7 @@ export const spreadSchema = z.strictObject({
     z.number({ error: 'must be a number' }).check(
       z.int('must be a whole number'),
       z.gte(0, 'must not be negative'),
-      z.lte(MAX_SPREAD_SEED, `must not exceed ${MAX_SPREAD_SEED} (a 32-bit seed)`),
+      z.lte(MAX_SPREAD_SEED, 'must be below 2³² (the generator takes a 32-bit seed)'),
     ),
   ),
   capacityPercent: z.optional(ranged('tolerancePercent', 'non-negative')),

@@ -8,6 +8,7 @@ import { drawSamples, shiftEfficiency } from '../../../core/studies/spread/sampl
 import { histogram, percentiles } from '../../../core/studies/spread/stats.ts';
 import { ZERO_TOLERANCES } from '../../../core/studies/spread/tolerances.ts';
 import { validateProject } from '../../../core/solve/validate.ts';
+import { fieldLabel } from '../../../core/model/field-labels.ts';
 import { formatSpread } from '../../../core/studies/spread/text.ts';
 import { smallBankCase } from './cases.ts';
 import hillside from '../../../core/demos/hillside-relay-hut.json' with { type: 'json' };
@@ -144,6 +145,25 @@ describe('runtime spread: the study', () => {
     const bad = validateProject(smallBankCase({ spread: { capacityPercent: -1, samples: 2.5 } }));
     expect(bad.ok).toBe(false);
     if (!bad.ok) expect(bad.problems.map((p) => p.field).sort()).toEqual(['spread.capacityPercent', 'spread.samples']);
+  });
+
+  it('every broken spread setting is refused at its field, in the user\'s words', () => {
+    // The walk of tests/core/messages.test.ts, for the spread settings: no file-format key in the
+    // message, no number past 4 significant digits (common practice (no source): the message rules of DEVELOPERS.md).
+    const fields = ['samples', 'seed', 'capacityPercent', 'agingPercent', 'temperatureC', 'efficiencyPoints', 'loadPercent', 'endVoltagePerCell'];
+    for (const f of fields) {
+      for (const broken of [-1, 1e12, 2.5e-7, 'x', null]) {
+        if (broken === 2.5e-7 && f !== 'samples' && f !== 'seed') continue; // a tiny tolerance is valid
+        const v = validateProject(smallBankCase({ spread: { [f]: broken } }));
+        expect(v.ok, `${f} = ${String(broken)}`).toBe(false);
+        if (v.ok) continue;
+        expect(v.problems.map((p) => p.field)).toEqual([`spread.${f}`]);
+        const m = v.problems[0]!.message;
+        expect(m).not.toMatch(/[a-z]+[A-Z][a-zA-Z]*/);
+        for (const n of m.match(/\d[\d.]*/g) ?? []) expect(n.replace(/\./g, '').replace(/^0+/, '').replace(/0+$/, '').length, `${f}: ${m}`).toBeLessThanOrEqual(4);
+      }
+      expect(fieldLabel('project', `spread.${f}`)).not.toBe(f);
+    }
   });
 
   it('hillside demo: a short spread runs, its text names the seed and the typical-value wording', () => {
