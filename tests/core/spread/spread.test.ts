@@ -4,7 +4,9 @@ import { solvedOf } from '../solved.ts';
 import { runBackupStudy } from '../../../core/studies/backup/study.ts';
 import { lossCostPerYear } from '../../../core/studies/economics.ts';
 import { runSpread, spreadPlan, spreadRun, spreadSensitivity, spreadSummary } from '../../../core/studies/spread/run.ts';
-import { drawSamples, shiftEfficiency } from '../../../core/studies/spread/sample.ts';
+import { changeOf, drawSamples, NOMINAL_DRAW, shiftEfficiency } from '../../../core/studies/spread/sample.ts';
+import { TYPICAL_TOLERANCES } from '../../../core/studies/spread/tolerances.ts';
+import { CHEMISTRY_PRESETS } from '../../../core/data/battery-chemistries.ts';
 import { histogram, percentiles } from '../../../core/studies/spread/stats.ts';
 import { ZERO_TOLERANCES } from '../../../core/studies/spread/tolerances.ts';
 import { validateProject } from '../../../core/solve/validate.ts';
@@ -50,6 +52,43 @@ describe('runtime spread: statistics', () => {
     const l = m.p0 + m.k1 * 1000 + m.k2 * 1e6;
     expect(1000 / (1000 + l)).toBeCloseTo(1000 / 1040 + 0.01, 12);
     expect(l).toBeCloseTo(29.3, 2);
+  });
+});
+
+describe('runtime spread: what a draw changes', () => {
+  const solved = solvedOf(hillside);
+  const out = new Map(solved.result.elements.map((e) => [e.id, e.pOut]));
+  const el = (c: ReturnType<typeof changeOf>, id: string) => c.replace?.find((e) => e.id === id) as Record<string, unknown> | undefined;
+
+  it('the project’s own values change nothing', () => {
+    expect(changeOf(solved.project, TYPICAL_TOLERANCES, NOMINAL_DRAW, out)).toEqual({});
+  });
+
+  it('each input moves its own fields by its tolerance', () => {
+    const t = TYPICAL_TOLERANCES;
+    const hi = (input: keyof typeof NOMINAL_DRAW) => changeOf(solved.project, t, { ...NOMINAL_DRAW, [input]: 1 }, out);
+    // Capacity + 5 % of the demo's 200 Ah (hand-worked: 200 × 1.05 = 210).
+    expect((el(hi('capacity'), 'bank')!['bank'] as { capacityAh: number }).capacityAh).toBeCloseTo(210, 9);
+    // Aging at its high end: the state of health 1 − 0.20 (the whole typical tolerance).
+    expect(hi('aging').backup!.stateOfHealth).toBeCloseTo(0.8, 12);
+    // Temperature + 5 °C about the demo's 10 °C.
+    expect(hi('temperature').backup!.temperatureC).toBe(15);
+    // End voltage + 0.05 V on the LiFePO4 preset's end voltage per cell.
+    const end = (el(hi('endVoltage'), 'bank')!['bank'] as { overrides: { endOfDischargeCellVoltage: number } }).overrides.endOfDischargeCellVoltage;
+    expect(end).toBeCloseTo(CHEMISTRY_PRESETS.lifepo4.endOfDischargeCellVoltage + 0.05, 12);
+    // Efficiency + 1 point on every point of the inverter's curve (its 0.86 at 10 % load → 0.87).
+    const inv = el(hi('efficiency'), 'inverter')!['loss'] as { points: { efficiency: number }[] };
+    expect(inv.points[0]!.efficiency).toBeCloseTo(0.87, 12);
+    expect(el(hi('efficiency'), 'radio-psu')).toBeDefined();
+    // Loads + 10 %: the elements and the profile's levels in W (lights 80 W → 88 W); the fridge's level is its element's.
+    const load = hi('load');
+    expect(el(load, 'radios')!['power']).toBeCloseTo(93.5, 9);
+    expect(el(load, 'fridge')!['power']).toBeCloseTo(165, 9);
+    const segs = (load.backup!.profile as { segments: { loads?: Record<string, unknown> }[] }).segments;
+    expect(segs[0]!.loads!['lights']).toBeCloseTo(88, 9);
+    // The other inputs stay as given.
+    expect(load.backup!.stateOfHealth).toBeUndefined();
+    expect(el(load, 'bank')).toBeUndefined();
   });
 });
 
@@ -129,6 +168,20 @@ describe('runtime spread: the study', () => {
         expect(band(hi)).toBeGreaterThanOrEqual(band(lo) - 1e-9);
       }),
       { numRuns: 8, seed: 42 },
+    );
+  }, 60_000);
+
+  it('property: the chunks may be cut anywhere, the summary is the same', () => {
+    const solved = solvedOf(smallBankCase());
+    fc.assert(
+      fc.property(fc.integer({ min: 0, max: 30 }), fc.integer({ min: 0, max: 1000 }), (cut, seed) => {
+        const plan = spreadPlan(solved, { settings: { samples: 30, seed }, cost });
+        if (!plan.ok) throw new Error('plan refused');
+        const one = spreadSummary(plan.value, [spreadRun(solved, plan.value, { from: 0, count: 30 })], []);
+        const two = spreadSummary(plan.value, [spreadRun(solved, plan.value, { from: cut, count: 30 }), spreadRun(solved, plan.value, { from: 0, count: cut })], []);
+        expect(two).toEqual(one);
+      }),
+      { numRuns: 5, seed: 7 },
     );
   }, 60_000);
 
