@@ -192,6 +192,7 @@ export default function SpreadPanel() {
             </table>
           </div>
           <p class="note">P10: one sample in ten runs shorter (needs a bigger bank); P90: one in ten runs longer.</p>
+          {!result.costPerYear && <p class="note">No energy price per kWh for this project: give one in the running cost panel for the yearly cost of the losses.</p>}
           {result.lowerBoundCount > 0 && <p class="note">{result.lowerBoundCount} samples outlasted the study length: their runtime is longer than counted.</p>}
           {result.failed > 0 && (
             <p class="notice notice--stale">
