@@ -4,7 +4,8 @@
  * engine-checked setField), samples and seed, Run and Cancel, a progress bar, then runtime, the bank
  * for the target and the yearly cost of the losses as P10/P50/P90, the runtime histogram and which
  * input moves the runtime most. Every figure comes from core (core/studies/spread/) run in the
- * spread's own worker (spread-worker.ts) on the last valid solved pair; this file only lays out.
+ * spread's own workers (spread-worker.ts, one per core up to four, spread-client.ts) on the last valid
+ * solved pair; this file only lays out.
  *
  * A panel of its own (not inside the battery panel): a run takes seconds and is asked for, not run on
  * every edit as the battery study is, and its settings are many; kept apart, the battery panel stays
@@ -38,7 +39,7 @@ const FIELDS: Record<SpreadInput, { label: string; quantity: Quantity; unit: str
 
 type RunState =
   | { kind: 'idle' }
-  | { kind: 'running'; id: number; done: number; total: number; seed: number | null }
+  | { kind: 'running'; id: number; done: number; total: number; seed: number | null; workers: number | null }
   | { kind: 'done'; result: SpreadResult; ms: number; solved: Solved }
   | { kind: 'cancelled'; done: number; total: number }
   | { kind: 'refused'; problems: Problem[] };
@@ -80,7 +81,7 @@ export default function SpreadPanel() {
   const run = () => {
     const cost = costInForce(solved.project);
     const id = startSpread({ solved, settings, cost }, (reply) => {
-      if (reply.kind === 'started') setState({ kind: 'running', id: reply.id, done: 0, total: reply.samples, seed: reply.seed });
+      if (reply.kind === 'started') setState((s) => ({ kind: 'running', id: reply.id, done: s.kind === 'running' ? s.done : 0, total: reply.samples, seed: reply.seed, workers: reply.workers }));
       else if (reply.kind === 'progress') setState((s) => (s.kind === 'running' ? { ...s, done: reply.done, total: reply.total } : s));
       else {
         running.current = null;
@@ -90,7 +91,7 @@ export default function SpreadPanel() {
       }
     });
     running.current = id;
-    setState({ kind: 'running', id, done: 0, total: settings.samples ?? DEFAULT_SPREAD_SAMPLES, seed: settings.seed ?? DEFAULT_SPREAD_SEED });
+    setState({ kind: 'running', id, done: 0, total: settings.samples ?? DEFAULT_SPREAD_SAMPLES, seed: settings.seed ?? DEFAULT_SPREAD_SEED, workers: null });
   };
   const common = { project, units, locale };
   const result = state.kind === 'done' ? state.result : null;
@@ -142,7 +143,7 @@ export default function SpreadPanel() {
             <div class="spread-progress__fill" style={{ width: `${(100 * state.done) / Math.max(1, state.total)}%` }} />
           </div>
           <p class="note" role="status">
-            {state.done} of {state.total} samples{state.seed !== null ? `, seed ${state.seed}` : ''}
+            {state.done} of {state.total} samples{state.seed !== null ? `, seed ${state.seed}` : ''}{state.workers !== null && state.workers > 1 ? ` (${state.workers} workers at once)` : ''}
           </p>
         </div>
       )}
@@ -162,7 +163,7 @@ export default function SpreadPanel() {
         </section>
       )}
       {result && (
-        <section class="panel-section" aria-labelledby="spread-result-heading" data-testid="spread-result">
+        <section class="panel-section" aria-labelledby="spread-result-heading" data-testid="spread-result" data-ms={state.kind === 'done' ? state.ms.toFixed(0) : ''}>
           <h4 id="spread-result-heading">
             {result.samples} samples, seed <span data-testid="spread-seed-shown">{result.seed}</span>
           </h4>

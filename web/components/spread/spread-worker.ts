@@ -1,56 +1,55 @@
 /**
- * The runtime spread's own worker (issue 20 point 3), started only when the "Runtime spread" panel
+ * A worker of the runtime spread (issue 20 point 3), started only when the "Runtime spread" panel
  * runs: every sample is a solve and a runtime study (milliseconds each), so a run of a thousand takes
  * seconds, off the page's thread and apart from the panel worker (whose short studies keep answering).
+ * The page starts one per core, up to four (spread-client.ts): each runs its share of the chunks.
  *
- * Protocol (plain data): the page sends `run` with the last valid solved pair, the settings and the
- * cost settings; the worker answers `started` (samples, seed), `progress` after each chunk, then
- * `done` with the summary, or `refused` / `cancelled`. A `cancel` is read between chunks: each chunk
- * is its own task (a zero-delay timer), so the message is taken in between. Every figure comes from
- * core (core/studies/spread/); a summary with a figure that is not finite is refused, naming it.
+ * Protocol (plain data): the page sends `run` with the last valid solved pair, the settings, the cost
+ * settings and which share of the chunks is this worker's (chunk k when k mod parts = part); the worker
+ * answers `started` (the plan), a `chunk` after each chunk of samples, `swings` (the one-at-a-time runs,
+ * from the worker of part 0), then `finished`; or `refused` / `cancelled`. A `cancel` is read between
+ * chunks: each chunk is its own task (a zero-delay timer), so the message is taken in between. Every
+ * figure comes from core (core/studies/spread/); the page merges the chunks with core's spreadSummary.
  */
-import { spreadPlan, spreadRun, spreadSensitivity, spreadSummary, type CostSettings, type SpreadChunk, type SpreadResult } from '../../../core/studies/index.ts';
-import { elementNames, nonFiniteProblems, type Problem, type Solved, type SpreadSettings } from '../../../core/page.ts';
+import { spreadPlan, spreadRun, spreadSensitivity, type CostSettings, type SpreadChunk, type SpreadPlan, type Swing } from '../../../core/studies/index.ts';
+import type { Problem, Solved, SpreadSettings } from '../../../core/page.ts';
 
-export type SpreadRequest = { kind: 'run'; id: number; solved: Solved; settings: SpreadSettings; cost: CostSettings | null } | { kind: 'cancel'; id: number };
+export type SpreadRequest =
+  | { kind: 'run'; id: number; solved: Solved; settings: SpreadSettings; cost: CostSettings | null; part: number; parts: number }
+  | { kind: 'cancel'; id: number };
 
-export type SpreadReply =
-  | { kind: 'started'; id: number; samples: number; seed: number }
-  | { kind: 'progress'; id: number; done: number; total: number }
-  | { kind: 'done'; id: number; result: SpreadResult; ms: number }
+export type SpreadWorkerReply =
+  | { kind: 'started'; id: number; plan: SpreadPlan }
+  | { kind: 'chunk'; id: number; chunk: SpreadChunk }
+  | { kind: 'swings'; id: number; swings: Swing[] }
+  | { kind: 'finished'; id: number }
   | { kind: 'refused'; id: number; problems: Problem[] }
-  | { kind: 'cancelled'; id: number; done: number };
+  | { kind: 'cancelled'; id: number };
 
 /** Samples per chunk: small enough that progress moves and a cancel is taken within a fraction of a second. */
-const CHUNK = 20;
+export const SPREAD_CHUNK = 20;
 
 const cancelled = new Set<number>();
-const post = (reply: SpreadReply) => (self as unknown as Worker).postMessage(reply);
+const post = (reply: SpreadWorkerReply) => (self as unknown as Worker).postMessage(reply);
 const nextTask = () => new Promise<void>((resolve) => setTimeout(resolve, 0));
 
 async function run(req: Extract<SpreadRequest, { kind: 'run' }>): Promise<void> {
-  const t0 = performance.now();
-  const { id, solved } = req;
+  const { id, solved, part, parts } = req;
   const plan = spreadPlan(solved, { settings: req.settings, cost: req.cost });
   if (!plan.ok) return post({ kind: 'refused', id, problems: plan.problems });
+  post({ kind: 'started', id, plan: plan.value });
   const total = plan.value.samples;
-  post({ kind: 'started', id, samples: total, seed: plan.value.seed });
-  const chunks: SpreadChunk[] = [];
-  for (let from = 0; from < total; from += CHUNK) {
+  for (let k = part; k * SPREAD_CHUNK < total; k += parts) {
     await nextTask();
-    if (cancelled.has(id)) {
-      cancelled.delete(id);
-      return post({ kind: 'cancelled', id, done: from });
-    }
-    chunks.push(spreadRun(solved, plan.value, { from, count: CHUNK }));
-    post({ kind: 'progress', id, done: Math.min(total, from + CHUNK), total });
+    if (cancelled.delete(id)) return post({ kind: 'cancelled', id });
+    post({ kind: 'chunk', id, chunk: spreadRun(solved, plan.value, { from: k * SPREAD_CHUNK, count: SPREAD_CHUNK }) });
   }
-  await nextTask();
-  if (cancelled.delete(id)) return post({ kind: 'cancelled', id, done: total });
-  const result = spreadSummary(plan.value, chunks, spreadSensitivity(solved, plan.value));
-  const bad = nonFiniteProblems('The runtime spread', result, elementNames(solved.project));
-  if (bad.length) return post({ kind: 'refused', id, problems: bad });
-  post({ kind: 'done', id, result, ms: performance.now() - t0 });
+  if (part === 0) {
+    await nextTask();
+    if (cancelled.delete(id)) return post({ kind: 'cancelled', id });
+    post({ kind: 'swings', id, swings: spreadSensitivity(solved, plan.value) });
+  }
+  post({ kind: 'finished', id });
 }
 
 self.onmessage = (event: MessageEvent<SpreadRequest>) => {
