@@ -48,6 +48,8 @@ export { backupSettingsProblems, profileDay, type DayInterval, type ProfileDay, 
 export { solveModes, bankOnBus, onBatteryChange, rechargeChange, outageSolve, type Modes, type BankPlace } from './solve/modes.ts';
 export { runModesStudy, type ModesStudyResult, type ModesStudyOutcome, type ModeFigures, type RectifierSizing, type StandingLosses, type Transfer } from './studies/modes/study.ts';
 export { formatModesStudy } from './studies/modes/text-report.ts';
+export { runSpread, spreadPlan, spreadRun, spreadSensitivity, spreadSummary, formatSpread, TYPICAL_TOLERANCES, type SpreadResult, type SpreadChunk, type SpreadPlan, type SpreadOptions, type Swing } from './studies/spread/index.ts';
+export type { SpreadSettings } from './model/spread.ts';
 export { bankCautions, rechargeCautions } from './studies/backup/cautions.ts';
 export { parseSiValue, formatSi, type ElementUnit, type ParsedValue } from './physics/si-prefix.ts';
 export {

@@ -10,12 +10,19 @@ import type { PfCorrectionRequest } from '../studies/pf/correction.ts';
 import { parseCorrectPfFlag } from '../studies/pf/text-report.ts';
 import { MACHINE_USAGE, takeMachineFlags } from './machines-flags.ts';
 import { CSV_COLUMNS } from './summary.ts';
+import { MAX_SPREAD_SAMPLES } from '../model/spread.ts';
+import { MAX_SPREAD_SEED } from '../solve/spread-schema.ts';
+
+import { RANGES } from '../kinds/ranges.ts';
+
+/** Fewest samples --spread takes (the file's own range). */
+const MIN_SPREAD_SAMPLES = RANGES.spreadSamples.min;
 
 export const EXIT_SOLVED = 0;
 export const EXIT_REFUSED = 1;
 export const EXIT_USAGE = 2;
 
-export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--mode supply|battery] [--correct-pf <elementId>:<target power factor>] ${MACHINE_USAGE}`;
+export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--mode supply|battery] [--correct-pf <elementId>:<target power factor>] [--spread <samples> [--seed <n>]] ${MACHINE_USAGE}`;
 
 /** What `joulepath --help` prints. */
 export const HELP = `joulepath: plan an electrical power chain from a project file: power, losses, currents and
@@ -38,6 +45,11 @@ ${USAGE}
   --correct-pf <elementId>:<target power factor>
                     size the capacitor bank for that element's interface (one file only)
   --machines        motor and drive details
+  --spread <samples>
+                    the runtime with its spread: that many Monte Carlo samples (10 to 20000) of
+                    the battery backup study over the tolerances of the project's "spread"
+                    settings (typical values where it gives none); one file only
+  --seed <n>        the seed of the spread's samples (a whole number, default the file's or 1)
   --pump-duty <pump-study.json>
                     the flow-control comparison of a pump study file (one project file only)
   --help, -h        this text
@@ -79,6 +91,9 @@ export type CliRequest =
       mode?: 'supply' | 'battery';
       pumpDutyFile?: string;
       correctPf?: PfCorrectionRequest;
+      /** The runtime spread's samples (--spread) and seed (--seed). */
+      spread?: number;
+      seed?: number;
     };
 
 const usage = (message: string): CliRequest => ({ kind: 'usage', message });
@@ -109,12 +124,22 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   const outputs: CliOutput[] = [];
   let surges = false;
   let mode: 'supply' | 'battery' | undefined;
+  let spread: number | undefined;
+  let seed: number | undefined;
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
     if (a === '--mode') {
       const m = args[i + 1];
       if (m !== 'supply' && m !== 'battery') return usage(`--mode takes supply or battery${m === undefined ? '' : `, not "${m}"`}`);
       mode = m;
+      i++;
+    } else if (a === '--spread' || a === '--seed') {
+      const v = args[i + 1];
+      const n = v === undefined || v.trim() === '' ? NaN : Number(v);
+      const [lo, hi] = a === '--spread' ? [MIN_SPREAD_SAMPLES, MAX_SPREAD_SAMPLES] : [0, MAX_SPREAD_SEED];
+      if (!Number.isInteger(n) || n < lo || n > hi) return usage(`${a} takes a whole number from ${lo} to ${hi}${v === undefined ? '' : `, not "${v}"`}`);
+      if (a === '--spread') spread = n;
+      else seed = n;
       i++;
     } else if (a === '--json') outputs.push('json');
     else if (a === '--csv') outputs.push('csv');
@@ -135,6 +160,9 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   const several = files.length > 1;
   if (several && distinct[0] === 'json') return usage('--json prints one project: give one file (--csv or --summary for several)');
   if (several && correctPf) return usage('--correct-pf names an element of one project: give one file');
+  if (seed !== undefined && spread === undefined) return usage('--seed goes with --spread <samples>');
+  if (several && spread !== undefined) return usage('--spread runs with one project file: give one file');
+  if (spread !== undefined && (distinct[0] === 'csv' || distinct[0] === 'summary')) return usage(`--spread prints its figures with the tables or --json, not with --${distinct[0]}`);
   if (several && mach.pumpDutyFile !== undefined) return usage('--pump-duty runs with one project file: give one file');
   const output: CliOutput = distinct[0] ?? (several ? 'summary' : 'tables');
   return {
@@ -146,5 +174,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
     ...(mode !== undefined ? { mode } : {}),
     ...(mach.pumpDutyFile !== undefined ? { pumpDutyFile: mach.pumpDutyFile } : {}),
     ...(correctPf ? { correctPf } : {}),
+    ...(spread !== undefined ? { spread } : {}),
+    ...(seed !== undefined ? { seed } : {}),
   };
 }

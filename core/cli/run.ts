@@ -4,7 +4,7 @@
  * validated and solved once (solveProject); every study asked for takes that solved value
  * (tests/core/solve-count.test.ts counts the validations and solves of a run).
  */
-import { formatProblem, type Problem } from '../model/errors.ts';
+import { formatProblem, PROJECT_LEVEL, type Problem } from '../model/errors.ts';
 import { formatResult } from './text-report.ts';
 import { solveProject, type Solved } from '../solve/index.ts';
 import { elementNames, nonFiniteProblems } from '../solve/finite.ts';
@@ -21,6 +21,7 @@ import { formatModesStudy } from '../studies/modes/text-report.ts';
 import { solveModes } from '../solve/modes.ts';
 import type { SolveResult } from '../model/result.ts';
 import { formatLifetimeCost, lifetimeCost, lifetimeSettingsOf, type LifetimeCost } from '../studies/lifetime.ts';
+import { formatSpread, runSpread, type SpreadResult } from '../studies/spread/index.ts';
 import type { CliRequest } from './args.ts';
 import type { ProjectLine } from './summary.ts';
 
@@ -62,6 +63,17 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
     if (!s.ok) return refused(file, 'the battery backup study cannot be run:', s.problems, projectName, data);
     study = s.study;
     const bad = nonFinite('the battery backup study cannot be shown:', 'The battery backup study', study);
+    if (bad) return bad;
+  }
+  // The runtime with its spread (--spread N, --seed S): the file's tolerances, the samples and seed of the flags.
+  let spread: SpreadResult | undefined;
+  if (req.spread !== undefined) {
+    if (!study) return refused(file, 'the runtime spread cannot be run:', [{ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'backup', value: undefined, message: 'the runtime spread needs a battery bank and the battery backup study settings' }], projectName, data);
+    const settings = { ...outcome.project.spread, samples: req.spread, ...(req.seed !== undefined ? { seed: req.seed } : {}) };
+    const s = runSpread(outcome, { settings });
+    if (!s.ok) return refused(file, 'the runtime spread cannot be run:', s.problems, projectName, data);
+    spread = s.value;
+    const bad = nonFinite('the runtime spread cannot be shown:', 'The runtime spread', spread);
     if (bad) return bad;
   }
   let pfc: PfCorrection | undefined;
@@ -137,10 +149,10 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   if (req.output === 'json') {
     const top = req.mode === 'battery' && batteryResult ? batteryResult : outcome.result;
     const modesJson = modes ? { mode: top === batteryResult ? 'battery' : 'supply', modes: { supply: outcome.result, battery: modes.battery.ok ? modes.battery.result : { problems: modes.battery.problems }, study: modesStudy } } : {};
-    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}), ...(lifetime ? { lifetimeCost: lifetime } : {}) };
+    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(spread ? { spread } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}), ...(lifetime ? { lifetimeCost: lifetime } : {}) };
     text = `${JSON.stringify({ ...top, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}`;
+    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${spread ? `\n${formatSpread(spread)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}`;
   }
   return { ok: true, text, line };
 }

@@ -127,6 +127,16 @@ export const RANGES = {
   powerFactor: { min: 0.001, max: 1, unit: '', what: 'a power factor' },
   /** A transformer's short-circuit impedance: up to 100 % (practice: 2–20 %). */
   impedancePercent: { min: 0, max: 100, unit: '%', what: 'an impedance percent' },
+  /** A tolerance of the runtime spread (capacity, aging, load levels): up to ± 50 % (makers quote some ± 3–10 %). */
+  tolerancePercent: { min: 0, max: 50, unit: '%', what: 'a tolerance' },
+  /** Converters' efficiency tolerance, ± percentage points: up to 20 (makers quote some ± 1–2). */
+  efficiencyPoints: { min: 0, max: 20, unit: '', what: 'an efficiency tolerance in percentage points' },
+  /** The cell temperature's range in the runtime spread, ± °C (a difference, so no °F offset): up to 40. */
+  temperatureRange: { min: 0, max: 40, unit: '', what: 'a temperature range in °C' },
+  /** The end voltage's tolerance, ± V per cell: up to 1 V (cells end some 0.05–0.2 V apart by maker). */
+  cellVoltageTolerance: { min: 0, max: 1, unit: 'V', what: 'an end voltage tolerance per cell' },
+  /** Samples of the runtime spread: 10 (a rough look) up to 20 000 (each is a solve and a runtime study). */
+  spreadSamples: { min: 10, max: 20_000, unit: '', what: 'a number of samples' },
 } as const satisfies Record<string, PlausibleRange>;
 
 export type Quantity = keyof typeof RANGES;

@@ -347,6 +347,14 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "standby.moduleCurrent": "Rectifier module current",
     "standby.redundancy": "Redundant modules",
     "standby.outageHoursPerYear": "Outage hours per year",
+    "spread.samples": "Samples",
+    "spread.seed": "Seed",
+    "spread.capacityPercent": "Capacity tolerance (± %)",
+    "spread.agingPercent": "Capacity lost to aging (up to %)",
+    "spread.temperatureC": "Cell temperature range (± °C)",
+    "spread.efficiencyPoints": "Converter efficiency (± points)",
+    "spread.loadPercent": "Load levels (± %)",
+    "spread.endVoltagePerCell": "End voltage per cell (± V)",
   },
 };
 

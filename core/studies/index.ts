@@ -8,6 +8,7 @@
 export { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from './energy-flow.ts';
 export { runBackupStudy, type BackupStudyResult } from './backup/study.ts';
 export { runModesStudy, type ModesStudyResult } from './modes/study.ts';
+export { spreadPlan, spreadRun, spreadSensitivity, spreadSummary, DEFAULT_SPREAD_SAMPLES, DEFAULT_SPREAD_SEED, INPUT_WORDS, SPREAD_INPUTS, TOLERANCE_FIELD, TYPICAL_TOLERANCES, TYPICAL_WHY, type SampleFigures, type SpreadChunk, type SpreadInput, type SpreadPlan, type SpreadResult, type Swing, type Percentiles, type HistogramBin } from './spread/index.ts';
 export { solveModes, type Modes } from '../solve/modes.ts';
 export type { Derate } from './backup/discharge.ts';
 export { bankCautions, rechargeCautions } from './backup/cautions.ts';

@@ -18,6 +18,8 @@ const MachinesPanel = lazy(() => import('./MachinesPanel.tsx'));
 const StartingPanel = lazy(() => import('./StartingPanel.tsx'));
 /** A bank on a bus (issue 19): the charger sizing, the cost of standing by and the transfer. */
 const StandbyPanel = lazy(() => import('./modes/StandbyPanel.tsx'));
+/** The runtime with its spread (issue 20 point 3): its own worker starts when it runs. */
+const SpreadPanel = lazy(() => import('./spread/SpreadPanel.tsx'));
 /**
  * Brings the asked-for figure (its `data-testid`) or the element's row (`data-element-id`) of an opened
  * panel into view, marks it and gives it the focus. The panel loads lazily and its study may come from
@@ -91,6 +93,11 @@ export function PanelShelf({ solved: latest }: { solved: Solved }) {
       {battery && (
         <PanelDisclosure id="battery" title="Battery backup" hint="runtime, why not Wh ÷ W, bank sizing, recharge, plot">
           {() => <BatteryPanel />}
+        </PanelDisclosure>
+      )}
+      {battery && project.backup && (
+        <PanelDisclosure id="spread" title="Runtime spread" hint="runtime, bank and cost as P10/P50/P90 over the tolerances, which input matters most">
+          {() => <SpreadPanel />}
         </PanelDisclosure>
       )}
       {hasBankOnBus(project) && (

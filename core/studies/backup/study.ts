@@ -98,10 +98,21 @@ function tooShortForTarget(run: DischargeResult, study: BackupStudy): Problem {
 }
 
 /**
+ * Which parts of the study run (default all): the runtime spread (core/studies/spread/) reads only
+ * the runtime and the sizing of each sample, so it leaves out the run of the sized bank and the recharge.
+ */
+export interface StudyParts {
+  /** The discharge again with the sized bank (`sizedDischarge`). */
+  sizedRun?: boolean;
+  /** The recharge and the charger for the target recharge time. */
+  recharge?: boolean;
+}
+
+/**
  * Run the whole study on a solved project (never validated or solved again; the larger and the sized
  * bank are variants of it, core/solve/variant.ts). Never throws on bad input.
  */
-export function runBackupStudy(input: Solved): BackupStudyOutcome {
+export function runBackupStudy(input: Solved, parts: StudyParts = {}): BackupStudyOutcome {
   // A bank on a bus: the outage is the on-battery mode, a variant of the solved project.
   const outage = outageSolve(input);
   if (!outage.ok) return outage;
@@ -155,12 +166,15 @@ export function runBackupStudy(input: Solved): BackupStudyOutcome {
     });
     if (sized.ok) {
       result.sizing = sized.sizing;
-      const again = dischargeVariant(solved, sizedBank(battery, study, sized.sizing, study.targetRuntimeHours));
-      if (again.ok) result.sizedDischarge = again.result;
-      else problems.push(...again.problems);
+      if (parts.sizedRun !== false) {
+        const again = dischargeVariant(solved, sizedBank(battery, study, sized.sizing, study.targetRuntimeHours));
+        if (again.ok) result.sizedDischarge = again.result;
+        else problems.push(...again.problems);
+      }
     } else problems.push(...sized.problems);
   }
 
+  if (parts.recharge === false) return problems.length ? { ok: false, problems } : { ok: true, study: result };
   // The loads go on while the bank recharges: the charger carries them (average terminal power of the outage).
   const standing = d.runtimeSeconds > 0 ? d.deliveredWh / (d.runtimeSeconds / 3600) : 0;
   const base = {

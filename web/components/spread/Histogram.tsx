@@ -1,0 +1,89 @@
+/**
+ * The runtime histogram of a spread: an SVG of our own (bars of equal width, P10/P50/P90 marked),
+ * labelled, with its text alternative (a caption in words and the bins as a table).
+ */
+import type { HistogramBin, Percentiles } from '../../../core/studies/index.ts';
+import { formatSignificant } from '../../format/number.ts';
+
+const W = 360;
+const H = 170;
+const PAD = { left: 34, right: 10, top: 14, bottom: 36 };
+
+export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; runtime: Percentiles; locale: string | undefined }) {
+  const h = (v: number) => `${formatSignificant(v, 3, locale)} h`;
+  if (bins.length === 0) return null;
+  const lo = bins[0]!.from;
+  const hi = bins[bins.length - 1]!.to;
+  const span = hi - lo || 1;
+  const most = Math.max(...bins.map((b) => b.count));
+  const x = (v: number) => PAD.left + ((v - lo) / span) * (W - PAD.left - PAD.right);
+  const y = (c: number) => H - PAD.bottom - (c / most) * (H - PAD.top - PAD.bottom);
+  const single = bins.length === 1;
+  const barW = single ? 24 : (W - PAD.left - PAD.right) / bins.length;
+  const marks: [string, number][] = [
+    ['P10', runtime.p10],
+    ['P50', runtime.p50],
+    ['P90', runtime.p90],
+  ];
+  const caption = `Runtime of ${runtime.count} samples from ${h(runtime.min)} to ${h(runtime.max)}: P10 ${h(runtime.p10)}, P50 ${h(runtime.p50)}, P90 ${h(runtime.p90)}.`;
+  return (
+    <figure class="spread-figure" data-testid="spread-histogram">
+      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="spread-histogram-caption" class="spread-chart">
+        <line x1={PAD.left} x2={W - PAD.right} y1={H - PAD.bottom} y2={H - PAD.bottom} class="spread-axis" />
+        <line x1={PAD.left} x2={PAD.left} y1={PAD.top} y2={H - PAD.bottom} class="spread-axis" />
+        {bins.map((b, i) => (
+          <rect key={i} class="spread-bar" x={single ? x(b.from) - barW / 2 : PAD.left + i * barW + 0.5} width={Math.max(1, barW - 1)} y={y(b.count)} height={H - PAD.bottom - y(b.count)} />
+        ))}
+        {!single &&
+          marks.map(([label, v], i) => (
+            <g key={label} class="spread-mark">
+              <line x1={x(v)} x2={x(v)} y1={PAD.top - 4} y2={H - PAD.bottom} />
+              <text x={x(v) + (i === 0 ? -3 : i === 2 ? 3 : 0)} y={i === 1 ? PAD.top - 5 : PAD.top + 8} text-anchor={i === 0 ? 'end' : i === 2 ? 'start' : 'middle'}>
+                {label}
+              </text>
+            </g>
+          ))}
+        <text x={PAD.left} y={H - PAD.bottom + 14} text-anchor="start" class="spread-tick">
+          {h(lo)}
+        </text>
+        <text x={W - PAD.right} y={H - PAD.bottom + 14} text-anchor="end" class="spread-tick">
+          {h(hi)}
+        </text>
+        <text x={(PAD.left + W - PAD.right) / 2} y={H - 4} text-anchor="middle" class="spread-tick">
+          Runtime
+        </text>
+        <text x={PAD.left - 4} y={PAD.top + 4} text-anchor="end" class="spread-tick">
+          {most}
+        </text>
+        <text x={PAD.left - 4} y={H - PAD.bottom} text-anchor="end" class="spread-tick">
+          0
+        </text>
+        <text x={12} y={(PAD.top + H - PAD.bottom) / 2} text-anchor="middle" class="spread-tick" transform={`rotate(-90 12 ${(PAD.top + H - PAD.bottom) / 2})`}>
+          Samples
+        </text>
+      </svg>
+      <figcaption id="spread-histogram-caption">{caption}</figcaption>
+      <details class="spread-table">
+        <summary>The histogram as a table</summary>
+        <table class="data">
+          <thead>
+            <tr>
+              <th scope="col">Runtime from</th>
+              <th scope="col">to</th>
+              <th scope="col">Samples</th>
+            </tr>
+          </thead>
+          <tbody>
+            {bins.map((b, i) => (
+              <tr key={i}>
+                <td>{h(b.from)}</td>
+                <td>{h(b.to)}</td>
+                <td>{b.count}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      </details>
+    </figure>
+  );
+}
