@@ -29,11 +29,11 @@ export function sharedScale(graphs: readonly (FlowGraph | null)[]): number | und
   return Number.isFinite(k) ? k : undefined;
 }
 
-function Drawing({ laid, title, theme }: { laid: Layout; title: string; theme: 'light' | 'dark' }) {
+function Drawing({ laid, title, theme, scale }: { laid: Layout; title: string; theme: 'light' | 'dark'; scale: number | undefined }) {
   const p = FLOW_PALETTES[theme];
   const c = p.colours;
   return (
-    <svg class="variant-flow__svg" width={laid.width} height={laid.height} viewBox={`0 0 ${laid.width} ${laid.height}`} role="img" aria-label={title}>
+    <svg class="variant-flow__svg" width={laid.width} height={laid.height} viewBox={`0 0 ${laid.width} ${laid.height}`} role="img" aria-label={title} data-px-per-watt={scale}>
       <rect x={0} y={0} width={laid.width} height={laid.height} fill={c.background} />
       {laid.links.map((l) => {
         const paint = c[linkPaint(l, l.sourceNode.kind)];
@@ -44,7 +44,7 @@ function Drawing({ laid, title, theme }: { laid: Layout; title: string; theme: '
         );
       })}
       {laid.nodes.map((n) => (
-        <rect key={n.id} x={n.x0} y={n.y0} width={Math.max(1, n.x1 - n.x0)} height={Math.max(1, n.y1 - n.y0)} fill={c[nodePaint(n)]} fill-opacity={n.role === 'loss' ? 1 : p.feedOpacity} />
+        <rect key={n.id} data-node={n.id} data-role={n.role} x={n.x0} y={n.y0} width={Math.max(1, n.x1 - n.x0)} height={Math.max(1, n.y1 - n.y0)} fill={c[nodePaint(n)]} fill-opacity={n.role === 'loss' ? 1 : p.feedOpacity} />
       ))}
       {laid.labels.map((lab) => (
         <g key={lab.id}>
@@ -74,7 +74,7 @@ export function VariantFlows({ names, flows }: { names: readonly string[]; flows
               <strong>{name}</strong>
               {g ? ` · source ${formatPower(g.sourcePower, loc)}` : ''}
             </figcaption>
-            {laid ? <Drawing laid={laid} title={`Energy flow of ${name}: source ${g ? formatPower(g.sourcePower, loc) : ''}`} theme={theme} /> : <p class="note">Not solved: see its problems above.</p>}
+            {laid ? <Drawing laid={laid} title={`Energy flow of ${name}: source ${g ? formatPower(g.sourcePower, loc) : ''}`} theme={theme} scale={k} /> : <p class="note">Not solved: see its problems above.</p>}
           </figure>
         );
       })}

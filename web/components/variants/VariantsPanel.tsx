@@ -36,7 +36,7 @@ export function ComparisonTable({ comparison, rows, caption }: { comparison: Var
   const loc = effectiveLocale();
   const shown = rows ?? comparison.rows;
   return (
-    <div class="table-scroll">
+    <div class="table-scroll" role="region" aria-label={caption ?? 'Options side by side'} tabIndex={0}>
       <table class="data variants-table" data-testid="variants-table">
         {caption && <caption>{caption}</caption>}
         <thead>
@@ -99,11 +99,16 @@ function QuickAdd({ solved, onDone }: { solved: Solved; onDone: (s: Status) => v
       {bank && (
         <div class="variants-quick__row" role="group" aria-label="System voltage">
           <span class="variants-quick__label">System voltage</span>
-          {SYSTEM_VOLTAGES.map((v) => (
-            <button type="button" key={v} class="panel-button" data-testid={`variant-add-${v}v`} onClick={() => take(systemVoltageVariant(project, v))}>
-              {v} V
-            </button>
-          ))}
+          {SYSTEM_VOLTAGES.map((v) => {
+            // The bank's own voltage is no option: its button says so and cannot be pressed.
+            const o = systemVoltageVariant(project, v);
+            const planned = !o.ok && o.problems[0]?.field === 'bank.series';
+            return (
+              <button type="button" key={v} class="panel-button" data-testid={`variant-add-${v}v`} disabled={planned} onClick={() => take(o)}>
+                {planned ? `${v} V (as planned)` : `${v} V`}
+              </button>
+            );
+          })}
         </div>
       )}
       {loads.length > 1 && (
