@@ -1,9 +1,11 @@
 /**
  * The options' energy-flow diagrams side by side at ONE scale: each laid out by the diagram's own
  * layout (flow-layout.ts) with a shared number of pixels per watt, so a wider branch is more power
- * in every drawing alike, and drawn at that size (the row scrolls sideways on a narrow screen rather
- * than shrinking one drawing more than another). Static pictures: the main diagram holds the details.
+ * in every drawing alike; all are shown at one size factor too (as much as lets them stand side by side
+ * in the panel's width, at least 70 %: a narrow screen scrolls the row sideways rather than shrinking one
+ * drawing more than another). Static pictures: the main diagram holds the details.
  */
+import { useLayoutEffect, useRef, useState } from 'preact/hooks';
 import type { FlowGraph } from '../../../core/studies/index.ts';
 import { COLUMN, IDLE_DASH, LINE, layout, linkPath, linkPaint, nodePaint, roughMeasure, type Layout } from '../flow-layout.ts';
 import { FLOW_PALETTES } from '../flow-palette.ts';
@@ -29,11 +31,11 @@ export function sharedScale(graphs: readonly (FlowGraph | null)[]): number | und
   return Number.isFinite(k) ? k : undefined;
 }
 
-function Drawing({ laid, title, theme, scale }: { laid: Layout; title: string; theme: 'light' | 'dark'; scale: number | undefined }) {
+function Drawing({ laid, title, theme, scale, zoom }: { laid: Layout; title: string; theme: 'light' | 'dark'; scale: number | undefined; zoom: number }) {
   const p = FLOW_PALETTES[theme];
   const c = p.colours;
   return (
-    <svg class="variant-flow__svg" width={laid.width} height={laid.height} viewBox={`0 0 ${laid.width} ${laid.height}`} role="img" aria-label={title} data-px-per-watt={scale}>
+    <svg class="variant-flow__svg" width={Math.round(laid.width * zoom)} height={Math.round(laid.height * zoom)} viewBox={`0 0 ${laid.width} ${laid.height}`} role="img" aria-label={title} data-px-per-watt={scale}>
       <rect x={0} y={0} width={laid.width} height={laid.height} fill={c.background} />
       {laid.links.map((l) => {
         const paint = c[linkPaint(l, l.sourceNode.kind)];
@@ -63,10 +65,25 @@ export function VariantFlows({ names, flows }: { names: readonly string[]; flows
   const loc = effectiveLocale();
   const theme = resolveTheme(themeChoice.value, deviceDark.value);
   const k = sharedScale(flows);
+  const row = useRef<HTMLDivElement>(null);
+  const [room, setRoom] = useState(0);
+  useLayoutEffect(() => {
+    const el = row.current;
+    if (!el) return;
+    const measure = () => setRoom(el.clientWidth);
+    measure();
+    const watch = new ResizeObserver(measure);
+    watch.observe(el);
+    return () => watch.disconnect();
+  }, []);
+  const laids = flows.map((g) => (g ? layout(g, 0, loc, roughMeasure, k) : null));
+  const total = laids.reduce((sum, l) => sum + (l ? l.width + 20 : 0), 0);
+  // One size factor for every drawing, so that one scale stays one scale on screen.
+  const zoom = room > 0 && total > 0 ? Math.min(1, Math.max(0.7, room / total)) : 1;
   return (
-    <div class="variant-flows" data-testid="variant-flows" tabIndex={0} role="group" aria-label="Energy flow of each option, at one scale">
+    <div ref={row} class="variant-flows" data-testid="variant-flows" tabIndex={0} role="group" aria-label="Energy flow of each option, at one scale">
       {flows.map((g, i) => {
-        const laid = g ? layout(g, 0, loc, roughMeasure, k) : null;
+        const laid = laids[i] ?? null;
         const name = names[i] ?? '';
         return (
           <figure key={i} class="variant-flow" data-testid="variant-flow">
@@ -74,7 +91,7 @@ export function VariantFlows({ names, flows }: { names: readonly string[]; flows
               <strong>{name}</strong>
               {g ? ` · source ${formatPower(g.sourcePower, loc)}` : ''}
             </figcaption>
-            {laid ? <Drawing laid={laid} title={`Energy flow of ${name}: source ${g ? formatPower(g.sourcePower, loc) : ''}`} theme={theme} scale={k} /> : <p class="note">Not solved: see its problems above.</p>}
+            {laid ? <Drawing laid={laid} title={`Energy flow of ${name}: source ${g ? formatPower(g.sourcePower, loc) : ''}`} theme={theme} scale={k} zoom={zoom} /> : <p class="note">Not solved: see its problems above.</p>}
           </figure>
         );
       })}
