@@ -16,6 +16,11 @@
  *   operating point and highest over the outage, runtime, the bank for the target, each motor's
  *   start verdict.
  *
+ * A variant that takes loads out (critical loads only) is solved with the project's load profile
+ * without those loads (they no longer draw, so the profile's levels and duty cycles for them go with
+ * them); otherwise the profile would name loads the chain no longer holds and the battery study could
+ * not run. Every other variant is solved exactly as `solveProjectVariant` solves it.
+ *
  * A variant that no longer applies (it names elements that are gone, or its changed elements are
  * refused) is not solved: its column carries its problems and its figures are left empty; the other
  * columns are still compared. A study a column cannot run leaves that study's figures empty in that
@@ -24,7 +29,9 @@
 import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
 import type { ProjectVariant } from '../../model/variants.ts';
 import type { Solved } from '../../solve/solved.ts';
-import { solveProjectVariant } from '../../solve/project-variant.ts';
+import { variantChangeOf } from '../../solve/project-variant.ts';
+import { solveVariant } from '../../solve/variant.ts';
+import type { BackupStudy } from '../../model/project.ts';
 import { solveAnswers } from '../../solve/answers.ts';
 import { answerStudies } from '../answers.ts';
 import { costSettingsOf, type CostSettings } from '../economics.ts';
@@ -94,10 +101,29 @@ export interface CompareOptions {
 /** Each column's solve: the base as given, each variant through solveProjectVariant. */
 export type ColumnSolve = { ok: true; solved: Solved } | { ok: false; problems: Problem[] };
 
+/** The backup settings without the loads taken out (null: the profile names none of them, nothing to change). */
+export function backupWithout(backup: BackupStudy | undefined, removed: ReadonlySet<string> | undefined): BackupStudy | null {
+  if (!backup || !removed || removed.size === 0) return null;
+  const p = backup.profile;
+  const names = (loads: Record<string, unknown> | undefined) => Object.keys(loads ?? {}).some((id) => removed.has(id));
+  const named = (p.duty ?? []).some((d) => removed.has(d.load)) || (p.kind !== 'constant' && p.segments.some((seg) => names(seg.loads)));
+  if (!named) return null;
+  const keep = <T,>(loads: Record<string, T> | undefined) => (loads ? Object.fromEntries(Object.entries(loads).filter(([id]) => !removed.has(id))) : undefined);
+  const duty = p.duty?.filter((d) => !removed.has(d.load));
+  const profile = p.kind === 'constant'
+    ? { ...p, ...(duty ? { duty } : {}) }
+    : { ...p, segments: p.segments.map((seg) => ({ ...seg, ...(seg.loads ? { loads: keep(seg.loads)! } : {}) })), ...(duty ? { duty } : {}) };
+  return { ...backup, profile: profile as BackupStudy['profile'] };
+}
+
 /** The base and every variant solved, in column order (the page's worker keeps them for the diagrams). */
 export function solveColumns(solved: Solved, variants: readonly ProjectVariant[] = []): ColumnSolve[] {
   return [{ ok: true, solved }, ...variants.map((v): ColumnSolve => {
-    const o = solveProjectVariant(solved, v);
+    // solveProjectVariant's own two steps, with the profile following the loads taken out (see the file's top).
+    const change = variantChangeOf(solved, v);
+    if (!change.ok) return { ok: false, problems: change.problems };
+    const backup = backupWithout(solved.project.backup, change.change.remove);
+    const o = solveVariant(solved, backup ? { ...change.change, backup } : change.change);
     return o.ok ? { ok: true, solved: o } : { ok: false, problems: o.problems };
   })];
 }

@@ -5,7 +5,8 @@ import { solveAnswers } from '../../../core/solve/answers.ts';
 import { answerStudies } from '../../../core/studies/answers.ts';
 import { costSettingsOf } from '../../../core/studies/economics.ts';
 import { compareLifetime, lifetimeCost, type LifetimeSettings } from '../../../core/studies/lifetime.ts';
-import { compareVariants, type VariantComparison } from '../../../core/studies/variants/compare.ts';
+import { backupWithout, compareVariants, type VariantComparison } from '../../../core/studies/variants/compare.ts';
+import { solveVariant } from '../../../core/solve/variant.ts';
 import { nextSizeUpVariant, systemVoltageVariant } from '../../../core/variants/index.ts';
 import type { ProjectVariant } from '../../../core/model/variants.ts';
 import type { Project } from '../../../core/model/project.ts';
@@ -106,13 +107,25 @@ describe('variants side by side', () => {
     expect(row(c, 'losses.idle').differs).toBe(false);
   });
 
-  it('a study that cannot run on a column leaves its figures empty there and lists why (a profile naming a load taken out)', () => {
+  it('critical loads only: the load profile drops the loads taken out, and the bank then lasts longer (hillside without its lights)', () => {
     const base = solved(demo('hillside-relay-hut'));
-    const c = compareVariants(base, [{ name: 'No lights', remove: ['lights'] }]);
+    const v: ProjectVariant = { name: 'No lights', remove: ['lights'] };
+    const c = compareVariants(base, [v]);
     expect(c.columns[1]!.ok).toBe(true);
-    expect(c.columns[1]!.studyProblems.map((p) => p.study)).toContain('battery');
-    expect(row(c, 'bank.bank.runtime').values[1]).toBeNull();
+    expect(c.columns[1]!.studyProblems).toEqual([]);
+    // The same as solving the variant with the profile's "lights" levels taken out (its duty cycle of the fridge kept).
+    const backup = backupWithout(base.project.backup, new Set(['lights']))!;
+    expect(backup.profile.kind === 'daily' && backup.profile.segments.every((seg) => !('lights' in (seg.loads ?? {})))).toBe(true);
+    expect(backup.profile.duty).toEqual([{ load: 'fridge', periodMinutes: 30, onMinutes: 12 }]);
+    const s = solveVariant(base, { remove: new Set(['lights']), backup });
+    if (!s.ok) throw new Error('refused');
+    const study = answerStudies(s, null);
+    expect(row(c, 'bank.bank.runtime').values[1]).toBe(study.banks[0]!.runtimeSeconds);
+    // Less load, the same bank: it lasts longer (common practice (no source): runtime falls as the load rises).
+    expect(row(c, 'bank.bank.runtime').values[1]).toBeGreaterThan(row(c, 'bank.bank.runtime').values[0] as number);
     expect(row(c, 'source.power').values[1]).toBeLessThan(row(c, 'source.power').values[0] as number); // 220 W less load
+    // A variant that takes out no load of the profile is solved exactly as solveProjectVariant solves it.
+    expect(backupWithout(base.project.backup, new Set(['radios']))).toBeNull();
   });
 
   it('motor start verdicts per column (riverside: the drive-fed pump starts)', () => {

@@ -91,7 +91,7 @@ export function VariantFlows({ names, flows }: { names: readonly string[]; flows
               <strong>{name}</strong>
               {g ? ` · source ${formatPower(g.sourcePower, loc)}` : ''}
             </figcaption>
-            {laid ? <Drawing laid={laid} title={`Energy flow of ${name}: source ${g ? formatPower(g.sourcePower, loc) : ''}`} theme={theme} scale={k} zoom={zoom} /> : <p class="note">Not solved: see its problems above.</p>}
+            {laid ? <Drawing laid={laid} title={`Energy flow of ${name}: source ${g ? formatPower(g.sourcePower, loc) : ''}`} theme={theme} scale={k} zoom={zoom} /> : <p class="note">Does not apply to the chain as it stands: see why above.</p>}
           </figure>
         );
       })}

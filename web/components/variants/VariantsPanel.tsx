@@ -58,7 +58,7 @@ export function ComparisonTable({ comparison, rows, caption }: { comparison: Var
               </th>
               {r.values.map((v, i) => (
                 <td key={i} class={typeof v === 'number' ? 'num' : undefined}>
-                  {comparison.columns[i]!.ok ? variantValueText(r, v, loc) : 'not solved'}
+                  {comparison.columns[i]!.ok ? variantValueText(r, v, loc) : 'does not apply'}
                 </td>
               ))}
             </tr>
@@ -251,7 +251,7 @@ export default function VariantsPanel() {
   void draft.value;
   const variants = draftVariants();
   const { reply, pending } = useComparison(solved);
-  if (!solved) return <p class="note">The options are compared once the project solves.</p>;
+  if (!solved) return <p class="note">The options are compared once the project's figures are worked out.</p>;
   const comparison = reply?.kind === 'variants' && reply.outcome.ok ? reply.outcome.comparison : null;
   return (
     <div class="panel-body variants-panel" data-testid="variants-panel">
