@@ -102,6 +102,31 @@ describe.skipIf(skipWithout('chromium'))('compare options in Chromium', () => {
         await page.getByTestId('variant-delete').click();
         await expect.poll(() => page.getByTestId('variant-item').count()).toBe(0);
         await expect.poll(async () => (await page.getByTestId('variants-panel').getByTestId('variants-table').locator('thead th').allTextContents()).map(plain)).toEqual(['Figure', 'As planned']);
+
+        if (!touch) {
+          // "Change a field" (an element by name, a field by its label, a value in the user's units) and
+          // "critical loads only" (the lights ticked as not critical): each column equals core's.
+          await page.getByLabel('Element', { exact: true }).selectOption({ label: 'Vaccine fridge' });
+          await page.getByLabel('Field', { exact: true }).selectOption({ label: 'Real power drawn' });
+          await page.getByTestId('variant-change-value').fill('300');
+          await page.getByTestId('variant-change-add').click();
+          await expect.poll(() => page.getByTestId('variants-status').textContent()).toBe('Added "Vaccine fridge: Real power drawn 300 W".');
+          await page.getByRole('checkbox', { name: 'Lights and sockets' }).check();
+          await page.getByTestId('variant-add-critical').click();
+          await expect.poll(() => page.getByTestId('variants-status').textContent()).toBe('Added "Critical loads only".');
+          const two = { ...hillside, variants: [{ name: 'Vaccine fridge: Real power drawn 300 W', set: { fridge: { power: 300 } } }, { name: 'Critical loads only', note: 'without Lights and sockets (marked not critical)', remove: ['lights'] }] } as Project;
+          const core2 = compareVariants(solvedOf(two), two.variants);
+          const table = page.getByTestId('variants-panel').getByTestId('variants-table');
+          await expect.poll(async () => (await table.locator('thead th').allTextContents()).map(plain), { timeout: 30_000 }).toEqual(['Figure', ...core2.columns.map((c) => c.name)]);
+          for (const key of ['source.power', 'bank.bank.runtime', 'bank.bank.sized']) {
+            const row = core2.rows.find((r) => r.key === key)!;
+            await expect.poll(async () => (await table.locator(`tr[data-key="${key}"] td`).allTextContents()).map(plain)).toEqual(row.values.map((v) => plain(variantValueText(row, v, 'en-US'))));
+          }
+          // Without the lights the same bank lasts longer (the profile's levels for them go with them).
+          const runtime = core2.rows.find((r) => r.key === 'bank.bank.runtime')!.values as number[];
+          expect(runtime[2]).toBeGreaterThan(runtime[0]!);
+          await page.getByTestId('variants-panel').screenshot({ path: join(artifacts, 'variants-desktop-three.png') });
+        }
         expect(errors).toEqual([]);
       } finally {
         await context.close();

@@ -179,30 +179,30 @@ function ChangeField({ solved, onDone }: { solved: Solved; onDone: (s: Status) =
   return (
     <fieldset class="variants-quick__change" data-testid="variant-change-field">
       <legend>Change a field</legend>
-      <label>
-        Element
-        <select value={elementId} onChange={(e) => (setElementId((e.currentTarget as HTMLSelectElement).value), setPath(''))}>
+      <div class="variants-field">
+        <label for="variant-change-element">Element</label>
+        <select id="variant-change-element" value={elementId} onChange={(e) => (setElementId((e.currentTarget as HTMLSelectElement).value), setPath(''))}>
           {project.elements.map((e) => (
             <option key={e.id} value={e.id}>
               {names.get(e.id) ?? e.id}
             </option>
           ))}
         </select>
-      </label>
-      <label>
-        Field
-        <select value={field?.path ?? ''} onChange={(e) => setPath((e.currentTarget as HTMLSelectElement).value)} disabled={numberFields.length === 0}>
+      </div>
+      <div class="variants-field">
+        <label for="variant-change-field">Field</label>
+        <select id="variant-change-field" value={field?.path ?? ''} onChange={(e) => setPath((e.currentTarget as HTMLSelectElement).value)} disabled={numberFields.length === 0}>
           {numberFields.map((f) => (
             <option key={f.path} value={f.path}>
               {f.label}
             </option>
           ))}
         </select>
-      </label>
-      <label>
-        Value{field && inputUnit(field.quantity, units).symbol ? ` (${inputUnit(field.quantity, units).symbol})` : ''}
-        <input type="text" inputMode="decimal" value={text} onInput={(e) => setText((e.currentTarget as HTMLInputElement).value)} data-testid="variant-change-value" />
-      </label>
+      </div>
+      <div class="variants-field">
+        <label for="variant-change-value">Value{field && inputUnit(field.quantity, units).symbol ? ` (${inputUnit(field.quantity, units).symbol})` : ''}</label>
+        <input id="variant-change-value" type="text" inputMode="decimal" value={text} onInput={(e) => setText((e.currentTarget as HTMLInputElement).value)} data-testid="variant-change-value" />
+      </div>
       <button type="button" class="panel-button" onClick={add} disabled={!field || text.trim() === ''} data-testid="variant-change-add">
         Add this option
       </button>
