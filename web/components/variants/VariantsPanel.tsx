@@ -12,7 +12,7 @@ import { criticalLoadsVariant, nextSizeUpVariant, systemBank, systemVoltageVaria
 import { allFields, formFor, type NumberSpec } from '../../editor/fields.ts';
 import { inputUnit, readNumberField } from '../../format/parse.ts';
 import { costInForce, effectiveLocale, unitSystem } from '../../state/prefs.ts';
-import { draft, lastSolved } from '../../state/editor.ts';
+import { lastSolved } from '../../state/editor.ts';
 import { useWorkerReply } from '../panel-client.ts';
 import { problemLine } from '../problem-words.ts';
 import { CsvButton } from '../report/CsvButton.tsx';
@@ -247,8 +247,7 @@ function VariantList({ variants, comparison, project, onDone }: { variants: read
 export default function VariantsPanel() {
   const solved = lastSolved.value;
   const [status, setStatus] = useState<Status>(null);
-  // The list shown is the draft's (what the user edits); the comparison the solved pair's.
-  void draft.value;
+  // The list shown is the draft's (what the user edits; reading it follows the draft signal); the comparison the solved pair's.
   const variants = draftVariants();
   const { reply, pending } = useComparison(solved);
   if (!solved) return <p class="note">The options are compared once the project's figures are worked out.</p>;
