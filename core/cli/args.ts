@@ -39,6 +39,9 @@ ${USAGE}
   --csv             one CSV row per project, with a header row (columns below)
   --surges          add the motor starting and fault study (runs by itself when the project
                     has starting, surge, protection or fault data)
+  --variants        the project's variants side by side with it ("variants" in the file):
+                    power, losses, cost, battery, cables, starts and warnings, "*" marking the
+                    figures that differ (with --json: under "variants")
   --mode supply|battery
                     a project with a bank on a bus has two modes: the tables of both are
                     printed by default; this prints one (with --json, its result at the top)
@@ -87,6 +90,8 @@ export type CliRequest =
       output: CliOutput;
       surges: boolean;
       machines: boolean;
+      /** Compare the project's variants (--variants). */
+      variants?: true;
       /** The one mode of a project with a bank on a bus whose tables are printed (both when absent). */
       mode?: 'supply' | 'battery';
       pumpDutyFile?: string;
@@ -123,6 +128,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   const files: string[] = [];
   const outputs: CliOutput[] = [];
   let surges = false;
+  let variants = false;
   let mode: 'supply' | 'battery' | undefined;
   let spread: number | undefined;
   let seed: number | undefined;
@@ -145,6 +151,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
     else if (a === '--csv') outputs.push('csv');
     else if (a === '--summary') outputs.push('summary');
     else if (a === '--surges') surges = true;
+    else if (a === '--variants') variants = true;
     else if (a === '--correct-pf') {
       const pf = parseCorrectPfFlag(args[i + 1]);
       if (!pf.ok) return usage(pf.message);
@@ -171,6 +178,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
     output,
     surges,
     machines: mach.machines,
+    ...(variants ? { variants: true as const } : {}),
     ...(mode !== undefined ? { mode } : {}),
     ...(mach.pumpDutyFile !== undefined ? { pumpDutyFile: mach.pumpDutyFile } : {}),
     ...(correctPf ? { correctPf } : {}),

@@ -22,6 +22,8 @@ import { solveModes } from '../solve/modes.ts';
 import type { SolveResult } from '../model/result.ts';
 import { formatLifetimeCost, lifetimeCost, lifetimeSettingsOf, type LifetimeCost } from '../studies/lifetime.ts';
 import { formatSpread, runSpread, type SpreadResult } from '../studies/spread/index.ts';
+import { compareVariants, type VariantComparison } from '../studies/variants/compare.ts';
+import { formatVariantComparison } from '../studies/variants/text-report.ts';
 import type { CliRequest } from './args.ts';
 import type { ProjectLine } from './summary.ts';
 
@@ -136,6 +138,13 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
     const bad = nonFinite('the cost over the years cannot be shown:', 'The cost over the years', lifetime);
     if (bad) return bad;
   }
+  // The project's variants side by side (--variants): each solved from the base, the same studies on each.
+  let variants: VariantComparison | undefined;
+  if (req.variants) {
+    variants = compareVariants(outcome, outcome.project.variants ?? []);
+    const bad = nonFinite('the comparison of the variants cannot be shown:', 'The comparison of the variants', variants);
+    if (bad) return bad;
+  }
   const run = study?.discharge;
   const line: ProjectLine = {
     file,
@@ -149,10 +158,10 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   if (req.output === 'json') {
     const top = req.mode === 'battery' && batteryResult ? batteryResult : outcome.result;
     const modesJson = modes ? { mode: top === batteryResult ? 'battery' : 'supply', modes: { supply: outcome.result, battery: modes.battery.ok ? modes.battery.result : { problems: modes.battery.problems }, study: modesStudy } } : {};
-    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(spread ? { spread } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}), ...(lifetime ? { lifetimeCost: lifetime } : {}) };
+    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(spread ? { spread } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}), ...(lifetime ? { lifetimeCost: lifetime } : {}), ...(variants ? { variants } : {}) };
     text = `${JSON.stringify({ ...top, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${spread ? `\n${formatSpread(spread)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}`;
+    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${spread ? `\n${formatSpread(spread)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}${variants ? `\n${formatVariantComparison(variants, outcome.project)}\n` : ''}`;
   }
   return { ok: true, text, line };
 }

@@ -305,6 +305,7 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     client: "Client",
     site: "Site",
     preparedBy: "Prepared by",
+    variants: "Options to compare",
     "dropLimits.basis": "Voltage-drop limits from",
     "dropLimits.perLinkPercent": "Allowed drop per link (%)",
     "dropLimits.totalPercent": "Allowed drop in total (%)",

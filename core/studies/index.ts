@@ -24,3 +24,5 @@ export { lossCostPerYear, pumpDutyCosts, type CostSettings, type LossCost, type 
 export { lifetimeCost, lifetimeSettingsOf, compareLifetime, compareSolved, breakEven, typicalFuelFigures, TYPICAL_FUEL_NOTE, type LifetimeCost, type LifetimeOutcome, type LifetimeSettings, type BreakEven, type CostStream } from './lifetime.ts';
 export { studySurges, type DeviceCheck, type FaultPoint, type MotorStartResult, type StartCheck } from './surge/index.ts';
 export { answerStudies, studyAnswersFrom, type BankStudyAnswer, type CostAnswer, type StartAnswer, type StudyAnswers } from './answers.ts';
+export { compareVariants, compareColumns, solveColumns, type ColumnSolve, type ComparisonColumn, type ComparisonRow, type RowGroup, type RowQuantity, type VariantComparison } from './variants/compare.ts';
+export { criticalLoadsVariant, nextSizeUpVariant, systemBank, systemVoltageVariant, SYSTEM_VOLTAGES, type QuickVariantOutcome } from '../variants/index.ts';

@@ -15,7 +15,7 @@ export const LAYERS: readonly { name: string; paths: readonly string[] }[] = [
   { name: 'element kinds', paths: ['core/kinds/'] },
   { name: 'conductor sizing', paths: ['core/conductors/'] },
   { name: 'solve', paths: ['core/solve/'] },
-  { name: 'studies', paths: ['core/studies/'] },
+  { name: 'studies', paths: ['core/studies/', 'core/variants/'] },
   { name: 'command line and public API', paths: ['core/cli/', 'core/schema/', 'core/demos/', 'core/index.ts', 'core/page.ts'] },
 ];
 

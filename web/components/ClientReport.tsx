@@ -34,6 +34,7 @@ import { ReportQr } from './report/ReportQr.tsx';
 import { ShareLink } from './report/ShareLink.tsx';
 import { ReportModes, ReportModesCautions, ReportModesMethod } from './report/ReportModes.tsx';
 import { hasBankOnBus } from './modes/mode-state.ts';
+import { ReportVariants } from './report/ReportVariants.tsx';
 
 /** The caution every report carries (results are planning estimates). */
 export const REPORT_CAUTION =
@@ -177,6 +178,7 @@ const ReportBody = memo(function ReportBody({
         )}
         {/* The answers first, in the client's words (web/components/answers/ReportAnswers.tsx). */}
         <ReportAnswers solved={solved} />
+        <ReportVariants solved={solved} />
         <div class="report__columns">
           <section>
             <h2>The chain</h2>

@@ -20,6 +20,8 @@ const StartingPanel = lazy(() => import('./StartingPanel.tsx'));
 const StandbyPanel = lazy(() => import('./modes/StandbyPanel.tsx'));
 /** The runtime with its spread (issue 20 point 3): its own worker starts when it runs. */
 const SpreadPanel = lazy(() => import('./spread/SpreadPanel.tsx'));
+/** The project's variants side by side (issue 20 point 1). */
+const VariantsPanel = lazy(() => import('./variants/VariantsPanel.tsx'));
 /**
  * Brings the asked-for figure (its `data-testid`) or the element's row (`data-element-id`) of an opened
  * panel into view, marks it and gives it the focus. The panel loads lazily and its study may come from
@@ -123,6 +125,9 @@ export function PanelShelf({ solved: latest }: { solved: Solved }) {
         hint="will it start, fault current at each point, device interrupting ratings, traps"
       >
         {() => <StartingPanel solved={solved} />}
+      </PanelDisclosure>
+      <PanelDisclosure id="variants" title="Compare options" hint="12, 24 or 48 V, critical loads only, the next size up, any field: side by side">
+        {() => <VariantsPanel />}
       </PanelDisclosure>
     </section>
   );

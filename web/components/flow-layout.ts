@@ -243,7 +243,7 @@ const nodeOf = (x: SLink['source']) => x as SNode;
  * (4) d3-sankey's `update` attaches the feeds to the pipes where they now are (stacked from a pipe's
  * top in its feeds' order); the loss branches leave the pipe's bottom, idle part left of conversion.
  */
-export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, measure: Measure = roughMeasure): Layout | null {
+export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, measure: Measure = roughMeasure, pxPerWatt?: number): Layout | null {
   const links = drawnLinks(g);
   const used = new Set(links.flatMap((l) => [l.source, l.target]));
   for (const n of g.nodes) if (n.role === 'source') used.add(n.id);
@@ -263,7 +263,8 @@ export function layout(g: FlowGraph, minWidth: number, loc: string | undefined, 
   const sources = flowIn.filter((n) => n.role === 'source');
   const flowMax = Math.max(...sources.map((n) => Math.abs(n.watts)), 0);
   const lossMax = Math.max(...[...lossOf.values()].map((n) => n.watts), 0);
-  const kyWanted = Math.min(flowMax > 0 ? MAX_PIPE / flowMax : 0, lossMax > 0 ? (COLUMN - 24) / lossMax : Infinity);
+  // `pxPerWatt` given: diagrams drawn side by side share one scale (web/components/variants/).
+  const kyWanted = pxPerWatt ?? Math.min(flowMax > 0 ? MAX_PIPE / flowMax : 0, lossMax > 0 ? (COLUMN - 24) / lossMax : Infinity);
   // d3-sankey's scale is the extent's height over the busiest column's value (no padding between nodes):
   // the sources' column, since every node passes on at most what it takes in.
   const sourceTotal = sources.reduce((a, n) => a + (n.fixedValue ?? 0), 0);

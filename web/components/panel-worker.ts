@@ -15,6 +15,8 @@
  */
 import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers } from '../../core/studies/index.ts';
 import { elementNames, nonFiniteProblems, type Problem, type Solved, type SolveResult } from '../../core/page.ts';
+import { compareColumns, flowGraph, solveColumns, type FlowGraph, type VariantComparison } from '../../core/studies/index.ts';
+import type { ProjectVariant } from '../../core/page.ts';
 
 export type PanelRequest =
   | { kind: 'battery'; solved: Solved }
@@ -23,7 +25,15 @@ export type PanelRequest =
   /** The answers strip's study figures (runtime, bank for the target, start verdicts, cost of losses). */
   | { kind: 'answers'; solved: Solved; cost: CostSettings | null }
   /** A bank on a bus: the on-battery solve and the modes study (web/components/modes/). */
-  | { kind: 'modes'; solved: Solved };
+  | { kind: 'modes'; solved: Solved }
+  /** The project's variants side by side (web/components/variants/): the comparison and each column's energy flow. */
+  | { kind: 'variants'; solved: Solved; variants: ProjectVariant[]; cost: CostSettings | null };
+
+/** The comparison of the variants, and each column's energy-flow graph (null where the column was not solved). */
+export interface VariantsReply {
+  kind: 'variants';
+  outcome: { ok: true; comparison: VariantComparison; flows: (FlowGraph | null)[] } | { ok: false; problems: Problem[] };
+}
 
 /** Both modes of a project with a bank on a bus: the on-battery result (the on-supply one is the page's own solve) and the modes study. */
 export interface ModesReply {
@@ -65,7 +75,7 @@ export interface PfcReply {
   outcome: { ok: true; correction: PfCorrectionShown } | { ok: false; problems: Problem[] };
 }
 
-export type PanelReply = (BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | { kind: 'crash'; message: string }) & {
+export type PanelReply = (BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | VariantsReply | { kind: 'crash'; message: string }) & {
   /** Time the work took in the worker, ms. */
   ms: number;
 };
@@ -140,6 +150,16 @@ function modes(solved: Solved): ModesReply {
   return { kind: 'modes', outcome: { ok: true, battery, study } };
 }
 
+function variants(solved: Solved, list: ProjectVariant[], cost: CostSettings | null): VariantsReply {
+  const columns = solveColumns(solved, list);
+  // The cost at the price in force on the page (the project's, else the user's earlier one); the lifetime rows from the project's own settings.
+  const comparison = compareColumns(solved, list, columns, { cost });
+  const flows = columns.map((c) => (c.ok ? flowGraph(c.solved.result) : null));
+  const notFinite = nonFiniteProblems('The comparison of the variants', { comparison, flows }, elementNames(solved.project));
+  if (notFinite.length) return { kind: 'variants', outcome: { ok: false, problems: notFinite } };
+  return { kind: 'variants', outcome: { ok: true, comparison, flows } };
+}
+
 /** The worker's side of the messages (typed here so the page's tsconfig needs no worker library). */
 const scope = globalThis as unknown as {
   onmessage: ((event: { data: { id: number; request: PanelRequest } }) => void) | null;
@@ -149,7 +169,7 @@ const scope = globalThis as unknown as {
 scope.onmessage = (event) => {
   const { id, request } = event.data;
   const t0 = performance.now();
-  let reply: BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | { kind: 'crash'; message: string };
+  let reply: BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | VariantsReply | { kind: 'crash'; message: string };
   try {
     switch (request.kind) {
       case 'battery':
@@ -166,6 +186,9 @@ scope.onmessage = (event) => {
         break;
       case 'modes':
         reply = modes(request.solved);
+        break;
+      case 'variants':
+        reply = variants(request.solved, request.variants, request.cost);
         break;
     }
   } catch (error) {

@@ -1,0 +1,5 @@
+/** The quick variants (see types.ts): re-exports only. */
+export type { QuickVariantOutcome } from './types.ts';
+export { SYSTEM_VOLTAGES, seriesForSystem, systemBank, systemVoltageVariant, type SystemVoltage } from './system-voltage.ts';
+export { criticalLoadsVariant } from './critical-loads.ts';
+export { nextSizeUpVariant } from './next-size.ts';
