@@ -1,0 +1,114 @@
+import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
+import { solveProject } from '../../../core/index.ts';
+import { solveProjectVariant } from '../../../core/solve/project-variant.ts';
+import { dominates, paretoFront, searchOptions, type Costed } from '../../../core/studies/search/index.ts';
+import { searchBase, searchSettings } from './fixture.ts';
+
+function solvedBase() {
+  const s = solveProject(searchBase);
+  if (!s.ok) throw new Error(JSON.stringify(s.problems));
+  return s;
+}
+
+describe('the option search on a hand-built chain', () => {
+  const base = solvedBase();
+  const out = searchOptions(base, searchSettings, { allReasons: true });
+  if (!out.ok) throw new Error(JSON.stringify(out.problems));
+  const r = out.search;
+
+  it('tries every combination: 3 strings × 2 inverters × 3 sizes', () => {
+    expect(r.combinations).toBe(18); // 3 × 2 × 3, by hand
+    expect(r.tried).toBe(18);
+    expect(r.metCount + r.rejected.length).toBe(18);
+  });
+
+  it('finds the known cheapest option: 2 strings, inverter A, 10 mm²', () => {
+    // Why, by hand: one string holds 16 × 3.2 V × 100 Ah = 5.12 kWh (LiFePO4 nominal 3.2 V a cell,
+    // common practice (no source)); the 1.2 kW load through a 90 % inverter draws 1.33 kW, so one string
+    // lasts under 5.12 / 1.33 = 3.84 h < 4 h even before the cable and the bank's own losses; two strings
+    // last about twice that. 4 mm² over a 10 m run (20 m loop) at about 26 A drops 26 × 0.02 km × 4.61 Ω/km
+    // × 1.25 ≈ 3.0 V, about 5.9 % of 51.2 V (IEC 60228 class 2 copper 4 mm² 4.61 Ω/km; IEC 60364-5-52
+    // Annex G ρ₁ = 1.25·ρ₂₀), above the 5 % limit for other uses (IEC 60364-5-52 Table G.52.1);
+    // 10 mm² (1.83 Ω/km) drops about 2.3 %. So a met option needs ≥ 2 strings (2000) and ≥ 10 mm² (110);
+    // the cheaper inverter A (600) then gives 2710, the cheapest of all.
+    const first = r.options[0]!;
+    expect(first.name).toBe('2 strings · Inverter A · 10 mm²');
+    expect(first.cost).toBe(2710); // 2 × 1000 + 600 + 110, by hand
+    expect(first.runtimeSeconds!).toBeGreaterThan(4 * 3600);
+    // Lowest losses last: three strings (lowest bank resistance), inverter B (95 %), 25 mm².
+    expect(r.options.at(-1)!.name).toBe('3 strings · Inverter B · 25 mm²');
+  });
+
+  it('says why each rejected option fails, in words, grouped and counted', () => {
+    const one = r.rejected.find((o) => o.name === '1 string · Inverter A · 10 mm²')!;
+    expect(one.reasons.map((x) => x.text)).toEqual([expect.stringMatching(/^runtime 3 h \d+ min below 4 h$/)]);
+    const thin = r.rejected.find((o) => o.name === '2 strings · Inverter A · 4 mm²')!;
+    expect(thin.reasons[0]!.text).toMatch(/^drop on Bank cable 5\.\d+ % above 5 %$/); // IEC 60364-5-52 Table G.52.1: 5 % other uses
+    const groups = Object.fromEntries(r.rejectedGroups.map((g) => [g.group, g.count]));
+    expect(groups['Runtime below the target']).toBe(6); // 1 string × 2 inverters × 3 sizes, by hand
+    expect(groups['Drop on Bank cable above its limit']).toBe(6); // 4 mm² × 3 strings × 2 inverters, by hand
+  });
+
+  it('skips the later checks of an option once one has failed (same verdicts)', () => {
+    const quick = searchOptions(base, searchSettings);
+    if (!quick.ok) throw new Error('refused');
+    expect(quick.search.options.map((o) => o.name)).toEqual(r.options.map((o) => o.name));
+    const thin = quick.search.rejected.find((o) => o.name === '1 string · Inverter A · 4 mm²')!;
+    expect(thin.reasons.map((x) => x.group)).toEqual(['Drop on Bank cable above its limit']);
+    expect(thin.skipped).toEqual(['runtime']);
+  });
+
+  it('each listed option is its own variant: the single solve gives the same losses', () => {
+    for (const o of r.options) {
+      const v = solveProjectVariant(base, o.variant);
+      expect(v.ok).toBe(true);
+      if (v.ok) expect(v.result.totals.losses).toBe(o.lossW);
+    }
+  });
+
+  it('lowest losses first when asked; the cap says how many were tried', () => {
+    const byLoss = searchOptions(base, { ...searchSettings, order: 'losses' });
+    if (!byLoss.ok) throw new Error('refused');
+    expect(byLoss.search.options.map((o) => o.name)).toEqual([...r.options].reverse().map((o) => o.name));
+    const capped = searchOptions(base, searchSettings, { maxCombinations: 5 });
+    if (!capped.ok) throw new Error('refused');
+    expect(capped.search.tried).toBe(5);
+    expect(capped.search.capMessage).toMatch(/18 combinations: only the first 5 were tried/);
+  });
+
+  it('refuses candidates the chain does not hold, naming them', () => {
+    const bad = searchOptions(base, { cables: [{ cable: 'bank-cable', sizes: ['7 mm²'] }] });
+    expect(bad.ok).toBe(false);
+    if (!bad.ok) expect(bad.problems[0]!.message).toMatch(/Bank cable does not list: 7 mm²/);
+    const none = searchOptions(base, {});
+    expect(none.ok).toBe(false);
+    const range = searchOptions(base, { cables: [{ cable: 'bank-cable', fromSize: '6 mm²', toSize: '16 mm²' }] });
+    if (!range.ok) throw new Error('refused');
+    expect(range.search.combinations).toBe(3); // 6, 10, 16 mm²: IEC 60228 class 2 sizes
+  });
+});
+
+describe('Pareto dominance of the list', () => {
+  const option = fc.record({ cost: fc.integer({ min: 0, max: 50 }), lossW: fc.integer({ min: 0, max: 50 }) });
+  it('no listed option is dominated; every option is dominated by or equal to a listed one', () => {
+    fc.assert(
+      fc.property(fc.array(option, { maxLength: 40 }), fc.constantFrom<'cost' | 'losses'>('cost', 'losses'), (options: Costed[], order) => {
+        const front = paretoFront(options, order);
+        for (const f of front) expect(options.some((o) => dominates(o, f))).toBe(false);
+        for (const o of options) expect(front.some((f) => dominates(f, o) || (f.cost === o.cost && f.lossW === o.lossW))).toBe(true);
+        for (let i = 1; i < front.length; i++) {
+          if (order === 'cost') expect(front[i]!.cost).toBeGreaterThan(front[i - 1]!.cost);
+          else expect(front[i]!.lossW).toBeGreaterThan(front[i - 1]!.lossW);
+        }
+      }),
+      { seed: 20, numRuns: 300 },
+    );
+  });
+  it('holds on the searched chain too', () => {
+    const out = searchOptions(solvedBase(), searchSettings, { allReasons: true });
+    if (!out.ok) throw new Error('refused');
+    const met = [...out.search.options, ...out.search.rejected.filter((o) => o.meets)];
+    expect(met.length).toBe(out.search.options.length); // nothing met sits in the rejected list
+  });
+});
