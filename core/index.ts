@@ -122,6 +122,8 @@ export {
 export { flowGraph, lossNodeId, lossParts, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole, type LossPart, type LossSummary, type Share } from './studies/energy-flow.ts';
 export { lossCostPerYear, pumpDutyCosts, energyCost, checkCostSettings, HOURS_IN_YEAR, MAX_HOURS_PER_YEAR, type CostSettings, type LossCost, type LossCostRow, type LossCostOutcome, type MethodCosts } from './studies/economics.ts';
 export { lifetimeCost, lifetimeSettingsOf, checkLifetimeSettings, compareLifetime, compareSolved, breakEven, costStream, netPresentValue, presentValue, meanPrice, fuelRate, generatorFuelPerYear, typicalFuelFigures, TYPICAL_FUEL_NOTE, formatLifetimeCost, type LifetimeCost, type LifetimeOutcome, type LifetimeSettings, type BreakEven, type CostStream, type GeneratorYear, type FuelRun, type RechargeRun } from './studies/lifetime.ts';
+export { searchOptions, searchDimensions, searchTarget, paretoFront, dominates, listedSizes, SEARCH_AXES, SEARCH_CAUTION, type SearchResult, type SearchOutcome, type SearchRun, type EvaluatedOption, type MetOption, type RejectedGroup, type SearchReason } from './studies/search/index.ts';
+export { SEARCH_MAX_COMBINATIONS, type OptionSearch } from './model/option-search.ts';
 export {
   studySurges,
   hasSurgeInputs,

@@ -20,7 +20,8 @@ import { sigText } from '../../model/message.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveProjectVariant } from '../../solve/project-variant.ts';
 import { outageSolve } from '../../solve/modes.ts';
-import { simulateDischarge } from '../backup/discharge.ts';
+import { simulateDischarge, type DischargeOutcome } from '../backup/discharge.ts';
+import { DEFAULT_HORIZON_H } from '../../solve/load-profile.ts';
 import { studySurges } from '../surge/index.ts';
 import { lossCostPerYear, type CostSettings } from '../economics.ts';
 import type { SearchChoice } from './axes.ts';
@@ -93,6 +94,23 @@ export function optionName(choices: readonly SearchChoice[]): string {
 }
 
 const pct = (v: number) => `${sigText(v, 3)} %`;
+
+/**
+ * The discharge of a solved option's bank, cut one time step past `upTo` seconds when given: whether
+ * the bank lasts to the target needs no step beyond it (the steps before are the same whatever the
+ * horizon), so a bank that lasts has "at least" that runtime (a lower bound) and one that does not
+ * has its exact runtime. Without `upTo`, the study's own horizon (the listed options' full runtime).
+ */
+export function runtimeOf(solved: Solved, upTo?: number): DischargeOutcome {
+  const outage = outageSolve(solved);
+  if (!outage.ok) return outage;
+  const study = outage.solved.project.backup;
+  if (upTo === undefined || !study) return simulateDischarge(outage.solved);
+  const step = study.timeStepSeconds ?? 60;
+  const horizonHours = Math.min(study.horizonHours ?? DEFAULT_HORIZON_H, (upTo + step) / 3600);
+  const project = { ...outage.solved.project, backup: { ...study, horizonHours } };
+  return simulateDischarge({ ...outage.solved, project });
+}
 
 /** Evaluate one combination against the target (see the header). */
 export function evaluateOption(
@@ -182,8 +200,7 @@ export function evaluateOption(
   }
   // 4. Runtime.
   if (target.runtimeSeconds !== undefined) {
-    const outage = outageSolve(solved);
-    const d = outage.ok ? simulateDischarge(outage.solved) : outage;
+    const d = runtimeOf(solved, target.runtimeSeconds);
     if (!d.ok) reasons.push({ group: 'The runtime cannot be worked out', text: `runtime: ${d.problems[0]?.message ?? 'refused'}` });
     else {
       option.runtimeSeconds = d.result.runtimeSeconds;

@@ -15,9 +15,10 @@ import { PROJECT_LEVEL } from '../../model/errors.ts';
 import type { OptionSearch } from '../../model/option-search.ts';
 import { SEARCH_MAX_COMBINATIONS } from '../../model/option-search.ts';
 import type { Solved } from '../../solve/solved.ts';
+import { solveProjectVariant } from '../../solve/project-variant.ts';
 import { costSettingsOf } from '../economics.ts';
 import { SEARCH_AXES, type SearchChoice, type SearchDimension } from './axes.ts';
-import { durationWords, evaluateOption, type EvaluatedOption, type SearchReason, type SearchTarget } from './evaluate.ts';
+import { durationWords, evaluateOption, runtimeOf, type EvaluatedOption, type SearchReason, type SearchTarget } from './evaluate.ts';
 import { paretoFront } from './pareto.ts';
 
 export const SEARCH_CAUTION =
@@ -145,6 +146,18 @@ export function searchOptions(solved: Solved, search: OptionSearch, run: SearchR
     }
     if (run.onProgress && (tried % 10 === 9 || tried + 1 === total)) run.onProgress(tried + 1, total);
   }
+  const options = paretoFront(met, order);
+  // The listed options' full runtime (the search stopped each discharge just past the target).
+  if (target.runtimeSeconds !== undefined) {
+    for (const o of options) {
+      const v = solveProjectVariant(solved, o.variant);
+      const d = v.ok ? runtimeOf(v) : v;
+      if (d.ok) {
+        o.runtimeSeconds = d.result.runtimeSeconds;
+        o.runtimeIsLowerBound = d.result.runtimeIsLowerBound;
+      }
+    }
+  }
   const notes: string[] = [];
   const unpriced = new Set(met.flatMap((o) => o.missingPrices));
   notes.push('Purchase cost: the prices of the elements the search changes (the rest of the chain is the same in every option).');
@@ -160,7 +173,7 @@ export function searchOptions(solved: Solved, search: OptionSearch, run: SearchR
       ...(tried < total ? { stopped: true } : {}),
       ...(combinations > cap ? { capMessage: `${combinations} combinations: only the first ${cap} were tried. Narrow the candidates to try them all.` } : {}),
       metCount: met.length,
-      options: paretoFront(met, order),
+      options,
       rejected,
       rejectedGroups: groupReasons(rejected),
       notes,
