@@ -15,6 +15,7 @@ import type { Load } from './loads.ts';
 import type { BackupStudy, DropLimits, PumpDutyStudy, RunningCost } from './study-settings.ts';
 import type { StandbySettings } from './standby.ts';
 import type { ProjectVariant } from './variants.ts';
+import type { OptionSearch } from './option-search.ts';
 
 export type { PortKind, PfSense, EfficiencyPoint, LossModel, PowerFactorModel, ProtectiveDevice } from './element-base.ts';
 export type { AcSource, BatteryBankSpec, BatterySource, Source } from './sources.ts';
@@ -25,6 +26,7 @@ export * from './circuit-network.ts';
 export * from './study-settings.ts';
 export type { StandbySettings } from './standby.ts';
 export type { ProjectVariant } from './variants.ts';
+export type { OptionSearch } from './option-search.ts';
 
 /** Longest client, site or prepared-by text (one printed line or two on the report's first page). */
 export const REPORT_TEXT_MAX = 200;
@@ -58,4 +60,6 @@ export interface Project {
   standby?: StandbySettings;
   /** Named variants of the chain, solved side by side with it (core/model/variants.ts). */
   variants?: ProjectVariant[];
+  /** The search for the option that meets a target: the target and the candidates (core/model/option-search.ts). */
+  optionSearch?: OptionSearch;
 }

@@ -17,6 +17,7 @@ import { pumpDutySchema } from '../kinds/pump.ts';
 import { priceSchema, runningSchema } from './running-schema.ts';
 import { standbySchema } from './standby-schema.ts';
 import { variantsSchema } from './variants-schema.ts';
+import { optionSearchSchema } from './option-search-schema.ts';
 import { countSolveStep } from './count.ts';
 import { wordedFromParams } from '../model/message.ts';
 
@@ -53,6 +54,7 @@ export const projectShape = z.strictObject({
   running: z.optional(runningSchema),
   standby: z.optional(standbySchema),
   variants: z.optional(variantsSchema),
+  optionSearch: z.optional(optionSearchSchema),
 });
 
 /**

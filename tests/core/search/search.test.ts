@@ -112,3 +112,26 @@ describe('Pareto dominance of the list', () => {
     expect(met.length).toBe(out.search.options.length); // nothing met sits in the rejected list
   });
 });
+
+describe('the search settings in the project file', () => {
+  it('a project keeps its optionSearch, and the search reads it from there', async () => {
+    const { validateProject } = await import('../../../core/solve/validate.ts');
+    const withSearch = { ...searchBase, optionSearch: searchSettings };
+    const v = validateProject(withSearch);
+    expect(v.ok).toBe(true);
+    const s = solveProject(withSearch);
+    if (!s.ok) throw new Error('refused');
+    const out = searchOptions(s, s.project.optionSearch!);
+    expect(out.ok && out.search.options[0]!.name).toBe('2 strings · Inverter A · 10 mm²'); // the hand-worked case above
+  });
+  it('refuses a broken setting at its field, in words', async () => {
+    const { validateProject } = await import('../../../core/solve/validate.ts');
+    const v = validateProject({ ...searchBase, optionSearch: { strings: { bank: 'bank', counts: [0] }, order: 'fastest' } });
+    expect(v.ok).toBe(false);
+    if (!v.ok) {
+      const fields = v.problems.map((p) => p.field);
+      expect(fields).toContain('optionSearch.strings.counts.0');
+      expect(fields).toContain('optionSearch.order');
+    }
+  });
+});
