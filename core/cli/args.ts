@@ -15,7 +15,7 @@ export const EXIT_SOLVED = 0;
 export const EXIT_REFUSED = 1;
 export const EXIT_USAGE = 2;
 
-export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--mode supply|battery] [--correct-pf <elementId>:<target power factor>] ${MACHINE_USAGE}`;
+export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--search] [--mode supply|battery] [--correct-pf <elementId>:<target power factor>] ${MACHINE_USAGE}`;
 
 /** What `joulepath --help` prints. */
 export const HELP = `joulepath: plan an electrical power chain from a project file: power, losses, currents and
@@ -32,6 +32,9 @@ ${USAGE}
   --csv             one CSV row per project, with a header row (columns below)
   --surges          add the motor starting and fault study (runs by itself when the project
                     has starting, surge, protection or fault data)
+  --search          the options that meet the project's search target (its "optionSearch":
+                    candidates and target) as a short list, cheapest first, and the rejected
+                    with their reasons (one file only; with --json under "search")
   --mode supply|battery
                     a project with a bank on a bus has two modes: the tables of both are
                     printed by default; this prints one (with --json, its result at the top)
@@ -75,6 +78,8 @@ export type CliRequest =
       output: CliOutput;
       surges: boolean;
       machines: boolean;
+      /** Run the option search of the project's `optionSearch`. */
+      search?: boolean;
       /** The one mode of a project with a bank on a bus whose tables are printed (both when absent). */
       mode?: 'supply' | 'battery';
       pumpDutyFile?: string;
@@ -108,6 +113,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   const files: string[] = [];
   const outputs: CliOutput[] = [];
   let surges = false;
+  let search = false;
   let mode: 'supply' | 'battery' | undefined;
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
@@ -120,6 +126,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
     else if (a === '--csv') outputs.push('csv');
     else if (a === '--summary') outputs.push('summary');
     else if (a === '--surges') surges = true;
+    else if (a === '--search') search = true;
     else if (a === '--correct-pf') {
       const pf = parseCorrectPfFlag(args[i + 1]);
       if (!pf.ok) return usage(pf.message);
@@ -134,6 +141,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   if (files.length === 0) return usage('no project file given');
   const several = files.length > 1;
   if (several && distinct[0] === 'json') return usage('--json prints one project: give one file (--csv or --summary for several)');
+  if (several && search) return usage('--search lists the options of one project: give one file');
   if (several && correctPf) return usage('--correct-pf names an element of one project: give one file');
   if (several && mach.pumpDutyFile !== undefined) return usage('--pump-duty runs with one project file: give one file');
   const output: CliOutput = distinct[0] ?? (several ? 'summary' : 'tables');
@@ -143,6 +151,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
     output,
     surges,
     machines: mach.machines,
+    ...(search ? { search } : {}),
     ...(mode !== undefined ? { mode } : {}),
     ...(mach.pumpDutyFile !== undefined ? { pumpDutyFile: mach.pumpDutyFile } : {}),
     ...(correctPf ? { correctPf } : {}),

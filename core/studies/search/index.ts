@@ -3,3 +3,4 @@ export { SEARCH_AXES, listedSizes, type SearchAxisDef, type SearchChoice, type S
 export { durationWords, evaluateOption, runtimeOf, optionName, variantOf, type EvaluatedOption, type SearchReason, type SearchTarget } from './evaluate.ts';
 export { dominates, paretoFront, type Costed } from './pareto.ts';
 export { SEARCH_CAUTION, groupReasons, searchDimensions, searchOptions, searchTarget, type MetOption, type RejectedGroup, type SearchOutcome, type SearchResult, type SearchRun } from './search.ts';
+export { formatSearch } from './text.ts';
