@@ -18,6 +18,8 @@ const MachinesPanel = lazy(() => import('./MachinesPanel.tsx'));
 const StartingPanel = lazy(() => import('./StartingPanel.tsx'));
 /** A bank on a bus (issue 19): the charger sizing, the cost of standing by and the transfer. */
 const StandbyPanel = lazy(() => import('./modes/StandbyPanel.tsx'));
+/** Find the option (issue 20 point 4): the search over the user's candidates, in a worker of its own. */
+const SearchPanel = lazy(() => import('./search/SearchPanel.tsx'));
 /**
  * Brings the asked-for figure (its `data-testid`) or the element's row (`data-element-id`) of an opened
  * panel into view, marks it and gives it the focus. The panel loads lazily and its study may come from
@@ -110,6 +112,11 @@ export function PanelShelf({ solved: latest }: { solved: Solved }) {
       >
         {() => <MachinesPanel />}
       </PanelDisclosure>
+      {project.elements.some((e) => (e.kind === 'battery' && e.bank !== undefined) || (e.kind === 'cable' && e.conductor !== undefined) || e.kind === 'inverter') && (
+        <PanelDisclosure id="search" title="Find the option" hint="strings, conductor sizes and inverters to try: the cheapest options that meet a target">
+          {() => <SearchPanel solved={solved} />}
+        </PanelDisclosure>
+      )}
       <PanelDisclosure
         id="starting"
         title="Motor starting and fault current"
