@@ -240,11 +240,15 @@ function Candidates({ solved, settings, update, locale }: { solved: Solved; sett
 }
 
 function OptionRow({ o, locale, keep, kept }: { o: EvaluatedOption; locale: Locale; keep: (o: EvaluatedOption) => void; kept: boolean }) {
+  const words = kept ? 'Kept' : 'Keep as a variant';
   return (
     <tr data-testid="search-option">
       <th scope="row">
         <span class="search-option-name">{o.name}</span>
         <span class="search-option-words">{o.choices.map((c) => c.words).join('; ')}</span>
+        <button type="button" class="panel-button search-keep" disabled={kept} onClick={() => keep(o)} data-testid="search-keep" aria-label={`${words}: ${o.name}`}>
+          {words}
+        </button>
       </th>
       <td>
         {formatMoney(o.cost, locale)}
@@ -253,11 +257,6 @@ function OptionRow({ o, locale, keep, kept }: { o: EvaluatedOption; locale: Loca
       <td>{o.lossW !== undefined ? formatPower(o.lossW, locale) : '—'}</td>
       <td>{o.yearlyLossCost !== undefined ? formatMoney(o.yearlyLossCost, locale) : '—'}</td>
       <td>{o.runtimeSeconds !== undefined ? `${o.runtimeIsLowerBound ? 'at least ' : ''}${formatDuration(o.runtimeSeconds, locale)}` : '—'}</td>
-      <td>
-        <button type="button" class="panel-button" disabled={kept} onClick={() => keep(o)} data-testid="search-keep" aria-label={`Keep ${o.name} as a variant`}>
-          {kept ? 'Kept' : 'Keep as a variant'}
-        </button>
-      </td>
     </tr>
   );
 }
@@ -289,7 +288,6 @@ function Results({ search, locale, variants }: { search: SearchResult; locale: L
                 <th scope="col">Losses</th>
                 <th scope="col">Losses a year</th>
                 <th scope="col">Runtime</th>
-                <th scope="col"><span class="visually-hidden">Keep</span></th>
               </tr>
             </thead>
             <tbody>
