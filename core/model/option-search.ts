@@ -57,4 +57,5 @@ export interface OptionSearch {
   strings?: StringsCandidates;
   cables?: CableCandidates[];
   inverters?: SwapCandidates[];
+  // The system voltages to try join here at merge, beside their axis in core/studies/search/axes.ts.
 }

@@ -69,6 +69,8 @@ export interface SearchRun {
   shouldStop?: () => boolean;
   /** Give every reason of a failed option (no check skipped). */
   allReasons?: boolean;
+  /** Called with each option once it is evaluated (met or not). */
+  onOption?: (option: EvaluatedOption) => void;
   /** A lower cap on the combinations (tests). */
   maxCombinations?: number;
 }
@@ -137,6 +139,7 @@ export function searchOptions(solved: Solved, search: OptionSearch, run: SearchR
     if (run.shouldStop?.()) break;
     const choices: SearchChoice[] = dimensions.map((d, i) => d.choices[index[i]!]!);
     const option = evaluateOption(solved, choices, target, cost, run.allReasons ?? false);
+    run.onOption?.(option);
     if (option.meets && option.lossW !== undefined) met.push(option as MetOption);
     else rejected.push(option);
     for (let i = dimensions.length - 1; i >= 0; i--) {
