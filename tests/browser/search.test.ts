@@ -139,4 +139,44 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
       }
     }, 240_000);
   }
+
+  it('harbour clinic, desktop: conductor sizes from the cable’s table; the list and the rejected equal core’s', async () => {
+    const harbour = demoProjects.find((d) => d.id === 'harbour-clinic-ups')!.project;
+    // 1 or 2 strings at 2500; the board-to-UPS cable at 1.5, 2.5 or 4 mm² (IEC 60228 sizes) at 40, 55, 80.
+    const ticked: OptionSearch = {
+      strings: { bank: 'bank', counts: [1, 2], pricePerString: 2500 },
+      cables: [{ cable: 'supply-cable', sizes: ['1.5 mm²', '2.5 mm²', '4 mm²'], prices: [{ size: '1.5 mm²', price: 40 }, { size: '2.5 mm²', price: 55 }, { size: '4 mm²', price: 80 }] }],
+    };
+    const solved = solveProject(harbour);
+    if (!solved.ok) throw new Error('harbour does not solve');
+    const core = searchOptions(solved, ticked);
+    if (!core.ok) throw new Error(JSON.stringify(core.problems));
+    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US' });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    try {
+      await page.goto(`${baseUrl}#demo=harbour-clinic-ups`, { waitUntil: 'load' });
+      await page.getByTestId('results').waitFor();
+      await page.getByTestId('panel-search').locator('summary').click();
+      await page.getByTestId('search-panel').waitFor();
+      await page.getByTestId('search-strings-1').check();
+      await page.getByTestId('search-strings-2').check();
+      await page.getByTestId('search-string-price').fill('2500');
+      for (const [size, price] of [['1.5 mm²', '40'], ['2.5 mm²', '55'], ['4 mm²', '80']] as const) {
+        await page.getByTestId(`search-size-supply-cable-${size}`).check();
+        await page.getByTestId(`search-size-price-supply-cable-${size}`).fill(price);
+      }
+      await expect.poll(() => page.getByTestId('search-run').textContent()).toBe('Find the option (6 options)');
+      await page.getByTestId('search-run').click();
+      await page.getByTestId('search-results').waitFor({ timeout: 60_000 });
+      expect(await page.getByTestId('search-option').locator('.search-option-name').allTextContents()).toEqual(core.search.options.map((o) => o.name));
+      const groups = (await page.getByTestId('search-rejected-group').locator('strong').allTextContents());
+      expect(groups).toEqual(core.search.rejectedGroups.map((g) => g.group));
+      await page.getByTestId('search-panel').screenshot({ path: join(artifacts, 'search-harbour-panel.png') });
+      expect(await seriousAxeViolations(page, `'[data-testid="search-panel"]'`)).toEqual([]);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 240_000);
 });
