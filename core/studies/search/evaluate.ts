@@ -17,6 +17,7 @@ import type { Element } from '../../model/project.ts';
 import type { ProjectVariant } from '../../model/variants.ts';
 import { VARIANT_NAME_MAX } from '../../model/variants.ts';
 import { sigText } from '../../model/message.ts';
+import { formatProblem } from '../../model/errors.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveProjectVariant } from '../../solve/project-variant.ts';
 import { outageSolve } from '../../solve/modes.ts';
@@ -141,9 +142,10 @@ export function evaluateOption(
   const reasons = option.reasons;
   const solved = solveProjectVariant(base, variant);
   if (!solved.ok) {
+    // The first problem in the CLI's words (element by name, field by its label); the variant's own elements named as swapped in.
     const first = solved.problems[0];
-    const who = first ? names.get(first.elementId) ?? 'the project' : 'the chain';
-    reasons.push({ group: 'The chain does not solve', text: `does not solve: ${who}: ${first?.message ?? 'refused'}` });
+    const named = { elements: [...base.project.elements.filter((e) => !variant.swap?.some((x) => x.id === e.id)), ...(variant.swap ?? [])] };
+    reasons.push({ group: 'The chain does not solve', text: `does not solve: ${first ? formatProblem(first, named) : 'refused'}` });
     return option;
   }
   const { result } = solved;

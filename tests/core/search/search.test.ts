@@ -4,6 +4,8 @@ import { solveProject } from '../../../core/index.ts';
 import { solveProjectVariant } from '../../../core/solve/project-variant.ts';
 import { dominates, paretoFront, searchOptions, type Costed } from '../../../core/studies/search/index.ts';
 import { searchBase, searchSettings } from './fixture.ts';
+import type { Element } from '../../../core/model/project.ts';
+import type { Solved } from '../../../core/solve/solved.ts';
 
 function solvedBase() {
   const s = solveProject(searchBase);
@@ -149,5 +151,18 @@ describe('the search settings in the project file', () => {
       expect(fields).toContain('optionSearch.strings.counts.0');
       expect(fields).toContain('optionSearch.order');
     }
+  });
+});
+
+describe('an alternative the engine refuses', () => {
+  it('is rejected with the refusal in words (element by name, field by its label)', () => {
+    const bad = { ...searchSettings.inverters![0]!.alternatives[0]!, id: 'inv-c', name: 'Inverter C', loss: { model: 'constant', efficiency: 1.5 } } as unknown as Element;
+    const out = searchOptions(solveProject(searchBase) as Solved, { inverters: [{ element: 'inverter', alternatives: [bad], keepCurrent: false }] });
+    if (!out.ok) throw new Error('refused');
+    expect(out.search.options).toEqual([]);
+    const reason = out.search.rejected[0]!.reasons[0]!;
+    expect(reason.group).toBe('The chain does not solve');
+    // An efficiency above 100 % is refused by the inverter's schema (η ≤ 1, core/model/element-base.ts).
+    expect(reason.text).toMatch(/^does not solve: "Inverter C", Efficiency/);
   });
 });
