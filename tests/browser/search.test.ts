@@ -5,6 +5,8 @@
  * page shows equals core's searchOptions on the same settings (run here; core's choice is checked by the
  * hand-worked case of tests/core/search/). "Keep as a variant" stores the option in the project's
  * variants (read back from the exported file, whose stored search settings give core the same list).
+ * On the harbour clinic the sizes of a sized cable come from its table, the list and the rejected groups
+ * equal core's, and a longer search shows its progress and stops on Stop.
  * Desktop and phone, axe clean; screenshots in tests/.artifacts/.
  */
 import { readFileSync } from 'node:fs';
@@ -174,6 +176,20 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
       expect(groups).toEqual(core.search.rejectedGroups.map((g) => g.group));
       await page.getByTestId('search-panel').screenshot({ path: join(artifacts, 'search-harbour-panel.png') });
       expect(await seriousAxeViolations(page, `'[data-testid="search-panel"]'`)).toEqual([]);
+
+      // A longer search shows its progress, and Stop ends it: no list, the button ready again.
+      for (const n of [3, 4]) await page.getByTestId(`search-strings-${n}`).check();
+      for (const size of ['6 mm²', '10 mm²', '16 mm²', '25 mm²', '35 mm²', '50 mm²', '70 mm²', '95 mm²', '120 mm²', '150 mm²', '185 mm²', '240 mm²']) await page.getByTestId(`search-size-supply-cable-${size}`).check();
+      for (const pct of [92, 94, 96]) await page.getByTestId(`search-inverter-inverter-${pct}`).check();
+      await expect.poll(() => page.getByTestId('search-run').textContent()).toBe('Find the option (240 options)'); // 4 × 15 × 4
+      await page.getByTestId('search-run').click();
+      const progress = page.getByTestId('search-progress');
+      await progress.waitFor({ timeout: 10_000 });
+      expect(await progress.textContent()).toMatch(/^Tried \d+ of 240/);
+      await page.getByTestId('search-stop').click();
+      await progress.waitFor({ state: 'detached' });
+      expect(await page.getByTestId('search-results').count()).toBe(0);
+      expect(await page.getByTestId('search-run').isEnabled()).toBe(true);
       expect(errors).toEqual([]);
     } finally {
       await context.close();
