@@ -17,6 +17,7 @@ import { SEARCH_MAX_COMBINATIONS } from '../../model/option-search.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveProjectVariant } from '../../solve/project-variant.ts';
 import { costSettingsOf } from '../economics.ts';
+import { sigText } from '../../model/message.ts';
 import { SEARCH_AXES, type SearchChoice, type SearchDimension } from './axes.ts';
 import { durationWords, evaluateOption, runtimeOf, type EvaluatedOption, type SearchReason, type SearchTarget } from './evaluate.ts';
 import { paretoFront } from './pareto.ts';
@@ -115,7 +116,7 @@ function targetWords(t: SearchTarget, solved: Solved): string[] {
   }
   out.push('every voltage drop within its limit, every conductor carrying its design current');
   if (t.starts) out.push('every motor start “starts”');
-  if (t.maxLossW !== undefined) out.push(`losses at most ${t.maxLossW} W`);
+  if (t.maxLossW !== undefined) out.push(`losses at most ${sigText(t.maxLossW, 3)} W`);
   return out;
 }
 

@@ -166,3 +166,17 @@ describe('an alternative the engine refuses', () => {
     expect(reason.text).toMatch(/^does not solve: "Inverter C", Efficiency/);
   });
 });
+
+describe('a limit on the losses', () => {
+  it('rejects the options above it: inverter A alone loses more than 100 W', () => {
+    const out = searchOptions(solveProject(searchBase) as Solved, { ...searchSettings, maxLossW: 100 });
+    if (!out.ok) throw new Error('refused');
+    // By hand: inverter A (90 %) loses 1200 × (1/0.9 − 1) = 133 W on its own, above 100 W; inverter B
+    // (95 %) loses 63 W. So the cheapest option left is 2 strings, inverter B, 10 mm²: 2000 + 900 + 110.
+    expect(out.search.options[0]).toMatchObject({ name: '2 strings · Inverter B · 10 mm²', cost: 3010 });
+    for (const o of out.search.options) expect(o.lossW).toBeLessThanOrEqual(100);
+    expect(out.search.target).toContain('losses at most 100 W');
+    const groups = out.search.rejectedGroups.map((g) => g.group);
+    expect(groups).toContain('Losses above the limit');
+  });
+});
