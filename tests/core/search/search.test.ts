@@ -180,3 +180,39 @@ describe('a limit on the losses', () => {
     expect(groups).toContain('Losses above the limit');
   });
 });
+
+describe('the motor starts in the target', () => {
+  // A 15 kW DOL motor (locked-rotor 200 A at pf 0.35) 200 m from a stiff 400 V supply, the fixture of
+  // tests/surge/starting.test.ts with the run given as an IEC copper conductor; the run may drop 10 %.
+  const project = {
+    format: 'joulepath-project',
+    version: 2,
+    name: 'Motor search',
+    dropLimits: { basis: 'iec-a-other' },
+    elements: [
+      { id: 'supply', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },
+      { id: 'run', name: 'Pump feeder', kind: 'cable', from: 'supply', length: 200, conductor: { system: 'iec', material: 'copper', size: '16 mm²', insulation: 'pvc', installationMethod: 'C', maxDropPercent: 10 } },
+      { id: 'm', name: 'Pump motor', kind: 'motor', from: 'run', ratedOutput: 15000, ratedVoltage: 400, nameplate: { efficiency: 0.91, powerFactor: 0.85, current: 28 }, starting: { method: 'dol', lockedRotorCurrent: 200, startingPowerFactor: 0.35 } },
+      { id: 'load', kind: 'shaft-load', from: 'm', power: 12000 },
+    ],
+  };
+  it('6 mm² keeps its running drop within 10 % but the motor does not start; 16 mm² is the cheapest that meets the target', () => {
+    const solved = solveProject(project);
+    if (!solved.ok) throw new Error(JSON.stringify(solved.problems));
+    const prices = [{ size: '4 mm²', price: 300 }, { size: '6 mm²', price: 400 }, { size: '16 mm²', price: 800 }, { size: '25 mm²', price: 1200 }];
+    const out = searchOptions(solved, { cables: [{ cable: 'run', sizes: prices.map((p) => p.size), prices }] });
+    if (!out.ok) throw new Error(JSON.stringify(out.problems));
+    expect(out.search.target).toContain('every motor start “starts”');
+    // By hand (voltage divider of the locked-rotor impedance 400/√3/200 = 1.155 Ω at pf 0.35 and the run's
+    // impedance per phase, as tests/surge/starting.test.ts): 6 mm² (IEC 60228 3.08 Ω/km at 20 °C) leaves about
+    // 75 % at the terminals, below the 80 % a DOL start needs (common practice (no source)); 16 mm²
+    // (1.15 Ω/km) about 91 %.
+    const six = out.search.rejected.find((o) => o.name === '6 mm²')!;
+    expect(six.reasons.map((r) => r.group)).toEqual(['Pump motor does not start']);
+    expect(six.reasons[0]!.text).toMatch(/^Pump motor does not start \(motor terminal voltage during the start: 7\d\.\d % below the limit 80/);
+    const four = out.search.rejected.find((o) => o.name === '4 mm²')!;
+    expect(four.reasons[0]!.group).toBe('Drop on Pump feeder above its limit'); // 200 m of 4 mm² drops about 11 %, above 10 %
+    expect(four.skipped).toEqual(['motor starts']);
+    expect(out.search.options.map((o) => o.name)).toEqual(['16 mm²', '25 mm²']); // 800 then 1200, the larger with lower losses
+  });
+});
