@@ -126,6 +126,8 @@ export { lossCostPerYear, pumpDutyCosts, energyCost, checkCostSettings, HOURS_IN
 export { lifetimeCost, lifetimeSettingsOf, checkLifetimeSettings, compareLifetime, compareSolved, breakEven, costStream, netPresentValue, presentValue, meanPrice, fuelRate, generatorFuelPerYear, typicalFuelFigures, TYPICAL_FUEL_NOTE, formatLifetimeCost, type LifetimeCost, type LifetimeOutcome, type LifetimeSettings, type BreakEven, type CostStream, type GeneratorYear, type FuelRun, type RechargeRun } from './studies/lifetime.ts';
 export { compareVariants, compareColumns, solveColumns, COMPARISON_CAUTIONS, type ColumnSolve, type CompareOptions, type ComparisonColumn, type ComparisonRow, type RowGroup, type RowQuantity, type VariantComparison } from './studies/variants/compare.ts';
 export { criticalLoadsVariant, nextSizeUpVariant, seriesForSystem, systemBank, systemVoltageVariant, SYSTEM_VOLTAGES, type QuickVariantOutcome, type SystemVoltage } from './variants/index.ts';
+export { searchOptions, searchDimensions, searchTarget, paretoFront, dominates, listedSizes, SEARCH_AXES, SEARCH_CAUTION, type SearchResult, type SearchOutcome, type SearchRun, type EvaluatedOption, type MetOption, type RejectedGroup, type SearchReason } from './studies/search/index.ts';
+export { SEARCH_MAX_COMBINATIONS, type OptionSearch } from './model/option-search.ts';
 export {
   studySurges,
   hasSurgeInputs,

@@ -22,7 +22,7 @@ export const EXIT_SOLVED = 0;
 export const EXIT_REFUSED = 1;
 export const EXIT_USAGE = 2;
 
-export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--mode supply|battery] [--correct-pf <elementId>:<target power factor>] [--spread <samples> [--seed <n>]] ${MACHINE_USAGE}`;
+export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--search] [--mode supply|battery] [--correct-pf <elementId>:<target power factor>] [--spread <samples> [--seed <n>]] ${MACHINE_USAGE}`;
 
 /** What `joulepath --help` prints. */
 export const HELP = `joulepath: plan an electrical power chain from a project file: power, losses, currents and
@@ -42,6 +42,9 @@ ${USAGE}
   --variants        the project's variants side by side with it ("variants" in the file):
                     power, losses, cost, battery, cables, starts and warnings, "*" marking the
                     figures that differ (with --json: under "variants")
+  --search          the options that meet the project's search target (its "optionSearch":
+                    candidates and target) as a short list, cheapest first, and the rejected
+                    with their reasons (one file only; with --json under "search")
   --mode supply|battery
                     a project with a bank on a bus has two modes: the tables of both are
                     printed by default; this prints one (with --json, its result at the top)
@@ -92,6 +95,8 @@ export type CliRequest =
       machines: boolean;
       /** Compare the project's variants (--variants). */
       variants?: true;
+      /** Run the option search of the project's `optionSearch`. */
+      search?: boolean;
       /** The one mode of a project with a bank on a bus whose tables are printed (both when absent). */
       mode?: 'supply' | 'battery';
       pumpDutyFile?: string;
@@ -129,6 +134,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   const outputs: CliOutput[] = [];
   let surges = false;
   let variants = false;
+  let search = false;
   let mode: 'supply' | 'battery' | undefined;
   let spread: number | undefined;
   let seed: number | undefined;
@@ -152,6 +158,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
     else if (a === '--summary') outputs.push('summary');
     else if (a === '--surges') surges = true;
     else if (a === '--variants') variants = true;
+    else if (a === '--search') search = true;
     else if (a === '--correct-pf') {
       const pf = parseCorrectPfFlag(args[i + 1]);
       if (!pf.ok) return usage(pf.message);
@@ -166,6 +173,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
   if (files.length === 0) return usage('no project file given');
   const several = files.length > 1;
   if (several && distinct[0] === 'json') return usage('--json prints one project: give one file (--csv or --summary for several)');
+  if (several && search) return usage('--search lists the options of one project: give one file');
   if (several && correctPf) return usage('--correct-pf names an element of one project: give one file');
   if (seed !== undefined && spread === undefined) return usage('--seed goes with --spread <samples>');
   if (several && spread !== undefined) return usage('--spread runs with one project file: give one file');
@@ -179,6 +187,7 @@ export function parseArgs(argv: readonly string[]): CliRequest {
     surges,
     machines: mach.machines,
     ...(variants ? { variants: true as const } : {}),
+    ...(search ? { search } : {}),
     ...(mode !== undefined ? { mode } : {}),
     ...(mach.pumpDutyFile !== undefined ? { pumpDutyFile: mach.pumpDutyFile } : {}),
     ...(correctPf ? { correctPf } : {}),

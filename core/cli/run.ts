@@ -24,6 +24,7 @@ import { formatLifetimeCost, lifetimeCost, lifetimeSettingsOf, type LifetimeCost
 import { formatSpread, runSpread, type SpreadResult } from '../studies/spread/index.ts';
 import { compareVariants, type VariantComparison } from '../studies/variants/compare.ts';
 import { formatVariantComparison } from '../studies/variants/text-report.ts';
+import { formatSearch, searchOptions, type SearchResult } from '../studies/search/index.ts';
 import type { CliRequest } from './args.ts';
 import type { ProjectLine } from './summary.ts';
 
@@ -145,6 +146,17 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
     const bad = nonFinite('the comparison of the variants cannot be shown:', 'The comparison of the variants', variants);
     if (bad) return bad;
   }
+  // The option search, when asked for (core/studies/search/): the project's own settings.
+  let search: SearchResult | undefined;
+  if (req.search) {
+    const settings = outcome.project.optionSearch;
+    if (!settings) return refusedWith(file, `${file}: the option search cannot be run: the project lists no candidates to try (the page's "Find the option" keeps them in the project)`);
+    const o = searchOptions(outcome, settings);
+    if (!o.ok) return refused(file, 'the option search cannot be run:', o.problems, projectName, data);
+    search = o.search;
+    const bad = nonFinite('the option search cannot be shown:', 'The option search', search);
+    if (bad) return bad;
+  }
   const run = study?.discharge;
   const line: ProjectLine = {
     file,
@@ -158,10 +170,10 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   if (req.output === 'json') {
     const top = req.mode === 'battery' && batteryResult ? batteryResult : outcome.result;
     const modesJson = modes ? { mode: top === batteryResult ? 'battery' : 'supply', modes: { supply: outcome.result, battery: modes.battery.ok ? modes.battery.result : { problems: modes.battery.problems }, study: modesStudy } } : {};
-    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(spread ? { spread } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}), ...(lifetime ? { lifetimeCost: lifetime } : {}), ...(variants ? { variants } : {}) };
+    const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(spread ? { spread } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}), ...(lifetime ? { lifetimeCost: lifetime } : {}), ...(variants ? { variants } : {}), ...(search ? { search } : {}) };
     text = `${JSON.stringify({ ...top, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${spread ? `\n${formatSpread(spread)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}${variants ? `\n${formatVariantComparison(variants, outcome.project)}\n` : ''}`;
+    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${spread ? `\n${formatSpread(spread)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}${variants ? `\n${formatVariantComparison(variants, outcome.project)}\n` : ''}${search ? `\n${formatSearch(search)}\n` : ''}`;
   }
   return { ok: true, text, line };
 }

@@ -16,6 +16,7 @@ import type { BackupStudy, DropLimits, PumpDutyStudy, RunningCost } from './stud
 import type { StandbySettings } from './standby.ts';
 import type { ProjectVariant } from './variants.ts';
 import type { SpreadSettings } from './spread.ts';
+import type { OptionSearch } from './option-search.ts';
 
 export type { PortKind, PfSense, EfficiencyPoint, LossModel, PowerFactorModel, ProtectiveDevice } from './element-base.ts';
 export type { AcSource, BatteryBankSpec, BatterySource, Source } from './sources.ts';
@@ -27,6 +28,7 @@ export * from './study-settings.ts';
 export type { StandbySettings } from './standby.ts';
 export type { ProjectVariant } from './variants.ts';
 export type { SpreadSettings } from './spread.ts';
+export type { OptionSearch } from './option-search.ts';
 
 /** Longest client, site or prepared-by text (one printed line or two on the report's first page). */
 export const REPORT_TEXT_MAX = 200;
@@ -62,4 +64,6 @@ export interface Project {
   variants?: ProjectVariant[];
   /** Tolerances of the runtime with its spread, sampled by core/studies/spread/ (core/model/spread.ts). */
   spread?: SpreadSettings;
+  /** The search for the option that meets a target: the target and the candidates (core/model/option-search.ts). */
+  optionSearch?: OptionSearch;
 }

@@ -18,6 +18,7 @@ import { priceSchema, runningSchema } from './running-schema.ts';
 import { standbySchema } from './standby-schema.ts';
 import { variantsSchema } from './variants-schema.ts';
 import { spreadSchema } from './spread-schema.ts';
+import { optionSearchSchema } from './option-search-schema.ts';
 import { countSolveStep } from './count.ts';
 import { wordedFromParams } from '../model/message.ts';
 
@@ -55,6 +56,7 @@ export const projectShape = z.strictObject({
   standby: z.optional(standbySchema),
   variants: z.optional(variantsSchema),
   spread: z.optional(spreadSchema),
+  optionSearch: z.optional(optionSearchSchema),
 });
 
 /**

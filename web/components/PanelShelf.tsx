@@ -22,6 +22,8 @@ const StandbyPanel = lazy(() => import('./modes/StandbyPanel.tsx'));
 const SpreadPanel = lazy(() => import('./spread/SpreadPanel.tsx'));
 /** The project's variants side by side (issue 20 point 1). */
 const VariantsPanel = lazy(() => import('./variants/VariantsPanel.tsx'));
+/** Find the option (issue 20 point 4): the search over the user's candidates, in a worker of its own. */
+const SearchPanel = lazy(() => import('./search/SearchPanel.tsx'));
 /**
  * Brings the asked-for figure (its `data-testid`) or the element's row (`data-element-id`) of an opened
  * panel into view, marks it and gives it the focus. The panel loads lazily and its study may come from
@@ -119,6 +121,11 @@ export function PanelShelf({ solved: latest }: { solved: Solved }) {
       >
         {() => <MachinesPanel />}
       </PanelDisclosure>
+      {project.elements.some((e) => (e.kind === 'battery' && e.bank !== undefined) || (e.kind === 'cable' && e.conductor !== undefined) || e.kind === 'inverter') && (
+        <PanelDisclosure id="search" title="Find the option" hint="strings, conductor sizes and inverters to try: the cheapest options that meet a target">
+          {() => <SearchPanel solved={solved} />}
+        </PanelDisclosure>
+      )}
       <PanelDisclosure
         id="starting"
         title="Motor starting and fault current"

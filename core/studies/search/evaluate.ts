@@ -1,0 +1,219 @@
+/**
+ * One combination of the option search: its choices as a named variant (core/model/variants.ts),
+ * solved by solveProjectVariant, then checked against the target, cheapest check first:
+ *   1. the solve itself (a variant the engine refuses fails with its problems);
+ *   2. from the solved result, at no further cost: the losses against their limit, each cable's drop
+ *      by the method's check against its limit (ConductorResult.drop), each path's drop against the
+ *      project's limits (PathDrop), each sized cable's ampacity against its design current;
+ *   3. the motor starts (the starting study, core/studies/surge/): every verdict must be "starts";
+ *   4. the runtime (the battery discharge through the chain, core/studies/backup/): at least the target.
+ * Every check is a requirement on its own, so once one fails the option is out whatever the later
+ * ones say: they are skipped (sound), unless every reason is asked for.
+ * Purchase cost: Σ price of the elements the search changes (the others are the same in every option,
+ * so they do not change the order); yearly cost of the losses: E = P_loss × hours, × price
+ * (core/studies/economics.ts), with the project's running settings.
+ */
+import type { Element } from '../../model/project.ts';
+import type { ProjectVariant } from '../../model/variants.ts';
+import { VARIANT_NAME_MAX } from '../../model/variants.ts';
+import { sigText } from '../../model/message.ts';
+import { formatProblem } from '../../model/errors.ts';
+import type { Solved } from '../../solve/solved.ts';
+import { solveProjectVariant } from '../../solve/project-variant.ts';
+import { outageSolve } from '../../solve/modes.ts';
+import { simulateDischarge, type DischargeOutcome } from '../backup/discharge.ts';
+import { DEFAULT_HORIZON_H } from '../../solve/load-profile.ts';
+import { studySurges } from '../surge/index.ts';
+import { lossCostPerYear, type CostSettings } from '../economics.ts';
+import type { SearchChoice } from './axes.ts';
+
+/** Why an option fails the target: its group ("Runtime below the target") and its words with figures. */
+export interface SearchReason {
+  group: string;
+  text: string;
+}
+
+/** The target, resolved from the settings and the project. */
+export interface SearchTarget {
+  /** Runtime the bank must reach, s (undefined: no runtime target). */
+  runtimeSeconds?: number;
+  /** Highest losses, W. */
+  maxLossW?: number;
+  /** Check the motor starts (the chain has motors). */
+  starts: boolean;
+}
+
+export interface EvaluatedOption {
+  /** The option's name, made from its choices ("2 strings · Inverter B · 10 mm²"). */
+  name: string;
+  choices: { axis: string; elementId: string; words: string }[];
+  /** The named variant that is this option (kept as a variant by the page). */
+  variant: ProjectVariant;
+  meets: boolean;
+  reasons: SearchReason[];
+  /** Checks left out once the option had failed (their names). */
+  skipped: string[];
+  /** Purchase cost of the changed elements, currency units (a lower bound when prices are missing). */
+  cost: number;
+  /** Names of changed elements without a price for their choice. */
+  missingPrices: string[];
+  /** Total losses of the solved chain, W (undefined when it did not solve). */
+  lossW?: number;
+  /** Yearly cost of the losses, currency units (with a running price). */
+  yearlyLossCost?: number;
+  /** Runtime through the chain, s, when checked; a lower bound when `runtimeIsLowerBound`. */
+  runtimeSeconds?: number;
+  runtimeIsLowerBound?: boolean;
+  /** Largest ratio of a cable's checked drop to its limit (1 = at the limit), when a cable has a conductor. */
+  worstDropRatio?: number;
+}
+
+/** A duration in words, "3 h 10 min" (whole minutes; "45 min" under an hour). */
+export function durationWords(seconds: number): string {
+  const minutes = Math.floor(seconds / 60 + 1e-9);
+  const h = Math.floor(minutes / 60);
+  const m = minutes % 60;
+  if (h === 0) return `${m} min`;
+  return m === 0 ? `${h} h` : `${h} h ${m} min`;
+}
+
+/** The variant of a combination: each choice's `set` merged per element (later axes win per field), each `swap` listed. */
+export function variantOf(choices: readonly SearchChoice[]): ProjectVariant {
+  const set: Record<string, Record<string, unknown>> = {};
+  const swap: Element[] = [];
+  for (const c of choices) {
+    if (c.swap) swap.push(c.swap);
+    if (c.set) set[c.elementId] = { ...(set[c.elementId] ?? {}), ...c.set };
+  }
+  return { name: optionName(choices), ...(Object.keys(set).length ? { set } : {}), ...(swap.length ? { swap } : {}) };
+}
+
+/** An option's name from its choices' short words, cut to the length a variant's name may have. */
+export function optionName(choices: readonly SearchChoice[]): string {
+  const name = choices.map((c) => c.short).join(' · ') || 'As it is';
+  return name.length <= VARIANT_NAME_MAX ? name : `${name.slice(0, VARIANT_NAME_MAX - 1)}…`;
+}
+
+const pct = (v: number) => `${sigText(v, 3)} %`;
+
+/**
+ * The discharge of a solved option's bank, cut one time step past `upTo` seconds when given: whether
+ * the bank lasts to the target needs no step beyond it (the steps before are the same whatever the
+ * horizon), so a bank that lasts has "at least" that runtime (a lower bound) and one that does not
+ * has its exact runtime. Without `upTo`, the study's own horizon (the listed options' full runtime).
+ */
+export function runtimeOf(solved: Solved, upTo?: number): DischargeOutcome {
+  const outage = outageSolve(solved);
+  if (!outage.ok) return outage;
+  const study = outage.solved.project.backup;
+  if (upTo === undefined || !study) return simulateDischarge(outage.solved);
+  const step = study.timeStepSeconds ?? 60;
+  const horizonHours = Math.min(study.horizonHours ?? DEFAULT_HORIZON_H, (upTo + step) / 3600);
+  const project = { ...outage.solved.project, backup: { ...study, horizonHours } };
+  return simulateDischarge({ ...outage.solved, project });
+}
+
+/** Evaluate one combination against the target (see the header). */
+export function evaluateOption(
+  base: Solved,
+  choices: readonly SearchChoice[],
+  target: SearchTarget,
+  cost: CostSettings | null,
+  allReasons: boolean,
+): EvaluatedOption {
+  const variant = variantOf(choices);
+  const missingPrices: string[] = [];
+  let price = 0;
+  const names = new Map(base.project.elements.map((e) => [e.id, e.name ?? e.id]));
+  for (const c of choices) {
+    if (c.price === undefined) missingPrices.push(names.get(c.elementId) ?? c.elementId);
+    else price += c.price;
+  }
+  const option: EvaluatedOption = {
+    name: variant.name,
+    choices: choices.map((c) => ({ axis: c.axis, elementId: c.elementId, words: c.words })),
+    variant,
+    meets: false,
+    reasons: [],
+    skipped: [],
+    cost: price,
+    missingPrices,
+  };
+  const reasons = option.reasons;
+  const solved = solveProjectVariant(base, variant);
+  if (!solved.ok) {
+    // The first problem in the CLI's words (element by name, field by its label); the variant's own elements named as swapped in.
+    const first = solved.problems[0];
+    const named = { elements: [...base.project.elements.filter((e) => !variant.swap?.some((x) => x.id === e.id)), ...(variant.swap ?? [])] };
+    reasons.push({ group: 'The chain does not solve', text: `does not solve: ${first ? formatProblem(first, named) : 'refused'}` });
+    return option;
+  }
+  const { result } = solved;
+  option.lossW = result.totals.losses;
+  if (cost) {
+    const c = lossCostPerYear(result, cost);
+    if (c.ok) option.yearlyLossCost = c.cost.totalCost;
+  }
+  // 2. From the result: losses, drops, ampacity.
+  if (target.maxLossW !== undefined && result.totals.losses > target.maxLossW) {
+    reasons.push({ group: 'Losses above the limit', text: `losses ${sigText(result.totals.losses, 3)} W above ${sigText(target.maxLossW, 3)} W` });
+  }
+  let worst: number | undefined;
+  for (const e of result.elements) {
+    const c = e.conductor;
+    if (!c) continue;
+    const ratio = c.drop.limitPercent > 0 ? c.drop.checkPercent / c.drop.limitPercent : 0;
+    worst = worst === undefined ? ratio : Math.max(worst, ratio);
+    if (c.drop.checkPercent > c.drop.limitPercent * (1 + 1e-9)) {
+      reasons.push({ group: `Drop on ${e.name} above its limit`, text: `drop on ${e.name} ${pct(c.drop.checkPercent)} above ${pct(c.drop.limitPercent)}` });
+    }
+    if (c.ampacity.total < c.designCurrent * (1 - 1e-9)) {
+      reasons.push({ group: `${e.name} too small for its current`, text: `${e.name} carries at most ${sigText(c.ampacity.total, 3)} A, below its design current of ${sigText(c.designCurrent, 3)} A` });
+    }
+  }
+  if (worst !== undefined) option.worstDropRatio = worst;
+  // A path's drop over several links (one link is that cable's own drop, above).
+  const solvedNames = new Map(result.elements.map((e) => [e.id, e.name]));
+  for (const path of result.voltageDrop ?? []) {
+    if (path.links.length < 2 || !path.exceedsLimit || path.totalPercent <= path.totalLimitPercent) continue;
+    const load = solvedNames.get(path.loadId) ?? path.loadId;
+    reasons.push({ group: `Drop to ${load} above its limit`, text: `drop to ${load} ${pct(path.totalPercent)} above ${pct(path.totalLimitPercent)}` });
+  }
+  const stop = (left: string[]) => {
+    if (reasons.length && !allReasons) {
+      option.skipped = left;
+      return true;
+    }
+    return false;
+  };
+  const later = [...(target.starts ? ['motor starts'] : []), ...(target.runtimeSeconds !== undefined ? ['runtime'] : [])];
+  if (stop(later)) return option;
+  // 3. Motor starts.
+  if (target.starts) {
+    const s = studySurges(solved);
+    if (!s.ok) reasons.push({ group: 'The starting study cannot run', text: `starting study: ${s.problems[0]?.message ?? 'refused'}` });
+    else
+      for (const start of s.result.starts) {
+        if (start.verdict === 'starts') continue;
+        const words = start.verdict === 'marginal' ? 'starts only marginally' : 'does not start';
+        reasons.push({ group: `${start.name} ${words}`, text: `${start.name} ${words} (${start.governing})` });
+      }
+    if (stop(target.runtimeSeconds !== undefined ? ['runtime'] : [])) return option;
+  }
+  // 4. Runtime.
+  if (target.runtimeSeconds !== undefined) {
+    const d = runtimeOf(solved, target.runtimeSeconds);
+    if (!d.ok) reasons.push({ group: 'The runtime cannot be worked out', text: `runtime: ${d.problems[0]?.message ?? 'refused'}` });
+    else {
+      option.runtimeSeconds = d.result.runtimeSeconds;
+      option.runtimeIsLowerBound = d.result.runtimeIsLowerBound;
+      if (d.result.runtimeSeconds < target.runtimeSeconds) {
+        // A bank not exhausted within the study's time span has at least that runtime: short of the target, it is not known to meet it.
+        if (d.result.runtimeIsLowerBound) reasons.push({ group: 'Runtime not known up to the target', text: `runtime at least ${durationWords(d.result.runtimeSeconds)}, the study's time span ends before ${durationWords(target.runtimeSeconds)}` });
+        else reasons.push({ group: 'Runtime below the target', text: `runtime ${durationWords(d.result.runtimeSeconds)} below ${durationWords(target.runtimeSeconds)}` });
+      }
+    }
+  }
+  option.meets = reasons.length === 0;
+  return option;
+}

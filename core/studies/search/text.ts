@@ -1,0 +1,31 @@
+/** The option search as plain text (the CLI's `--search`). */
+import { sigText } from '../../model/message.ts';
+import { durationWords } from './evaluate.ts';
+import type { SearchResult } from './search.ts';
+
+/** Money without a symbol (the file holds none): whole units from 1000 up, else two decimals. */
+const money = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toFixed(2));
+
+export function formatSearch(s: SearchResult): string {
+  const lines: string[] = [];
+  lines.push(`Find the option: ${s.target.join('; ')}`);
+  lines.push(`${s.tried} of ${s.combinations} combinations tried, ${s.metCount} met the target; ${s.options.length} on the list (none cheaper with lower losses), ${s.order === 'cost' ? 'cheapest' : 'lowest losses'} first`);
+  if (s.capMessage) lines.push(s.capMessage);
+  if (s.stopped) lines.push('The search was stopped before it had tried them all.');
+  s.options.forEach((o, i) => {
+    const parts = [`cost ${money(o.cost)}${o.missingPrices.length ? ` (no price for ${o.missingPrices.join(', ')})` : ''}`, `losses ${sigText(o.lossW, 3)} W`];
+    if (o.yearlyLossCost !== undefined) parts.push(`${money(o.yearlyLossCost)} a year`);
+    if (o.runtimeSeconds !== undefined) parts.push(`runtime ${o.runtimeIsLowerBound ? 'at least ' : ''}${durationWords(o.runtimeSeconds)}`);
+    lines.push(`  ${i + 1}. ${o.name}: ${parts.join(', ')}`);
+    lines.push(`     ${o.choices.map((c) => c.words).join('; ')}`);
+  });
+  if (s.options.length === 0) lines.push('  No option meets the target.');
+  lines.push(`Rejected: ${s.rejected.length}`);
+  for (const g of s.rejectedGroups) {
+    lines.push(`  ${g.group}: ${g.count}`);
+    for (const e of g.examples) lines.push(`    ${e.name}: ${e.text}`);
+  }
+  for (const n of s.notes) lines.push(n);
+  lines.push(s.caution);
+  return lines.join('\n');
+}

@@ -1,0 +1,198 @@
+/**
+ * "Find the option" in the page (issue 20 point 4): on the hillside demo (a 48 V bank, one string, a
+ * 3 kW inverter, a 24 h target runtime) the user ticks 1–3 strings at a price per string and two of the
+ * inverter presets with their prices, runs the search in its worker (progress shown), and the list the
+ * page shows equals core's searchOptions on the same settings (run here; core's choice is checked by the
+ * hand-worked case of tests/core/search/). "Keep as a variant" stores the option in the project's
+ * variants (read back from the exported file, whose stored search settings give core the same list).
+ * On the harbour clinic the sizes of a sized cable come from its table, the list and the rejected groups
+ * equal core's, and a longer search shows its progress and stops on Stop.
+ * Desktop and phone, axe clean; screenshots in tests/.artifacts/.
+ */
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import type { Browser, BrowserContext, Page } from 'playwright-core';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { skipWithout } from '../tools/system-tools.ts';
+import { VIEWPORTS, artifacts, fullPageScreenshot, seriousAxeViolations, serveBuiltApp, showProjectsView, watchPageErrors, type ServedApp } from './harness.ts';
+import { demoProjects, searchOptions, solveProject, type OptionSearch } from '../../core/index.ts';
+import type { Element } from '../../core/model/project.ts';
+import { inverterPreset } from '../../web/components/search/inverter-presets.ts';
+import type { DraftElement } from '../../web/state/editor.ts';
+
+const hillside = demoProjects.find((d) => d.id === 'hillside-relay-hut')!.project as unknown as { elements: DraftElement[] } & Record<string, unknown>;
+const inverter = hillside.elements.find((e) => e.id === 'inverter')!;
+
+/** What the test ticks, as core takes it: 1–3 strings at 1200 a string; inverters at 94 % (800) and 96 % (1100). */
+const settings: OptionSearch = {
+  strings: { bank: 'bank', counts: [1, 2, 3], pricePerString: 1200 },
+  inverters: [{ element: 'inverter', alternatives: [{ ...inverterPreset(inverter, 0.94), price: 800 }, { ...inverterPreset(inverter, 0.96), price: 1100 }] as unknown as Element[] }],
+};
+
+function coreList(project: unknown, s: OptionSearch): string[] {
+  const solved = solveProject(project);
+  if (!solved.ok) throw new Error(JSON.stringify(solved.problems));
+  const out = searchOptions(solved, s);
+  if (!out.ok) throw new Error(JSON.stringify(out.problems));
+  return out.search.options.map((o) => o.name);
+}
+
+describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
+  let app: ServedApp | undefined;
+  let browser: Browser | undefined;
+  let baseUrl = '';
+  const expected = coreList(hillside, settings);
+
+  beforeAll(async () => {
+    app = await serveBuiltApp('joulepath-search-build-');
+    ({ browser, baseUrl } = app);
+  });
+
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  async function open(viewport: { width: number; height: number }, touch: boolean): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+    const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', hasTouch: touch, isMobile: touch, acceptDownloads: true });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    await page.goto(`${baseUrl}#demo=hillside-relay-hut`, { waitUntil: 'load' });
+    await page.getByTestId('results').waitFor();
+    return { context, page, errors };
+  }
+
+  for (const [label, viewport, touch] of [
+    ['desktop', VIEWPORTS.desktop, false],
+    ['phone', VIEWPORTS.phone, true],
+  ] as const) {
+    it(`hillside, ${label}: ticks, runs with progress, the list equals core's, keep as a variant stores it`, async () => {
+      const { context, page, errors } = await open(viewport, touch);
+      try {
+        expect(expected.length).toBeGreaterThan(0);
+        const summary = page.getByTestId('panel-search').locator('summary');
+        await summary.scrollIntoViewIfNeeded();
+        if (touch) await summary.tap();
+        else await summary.click();
+        await page.getByTestId('search-panel').waitFor();
+        const tick = async (id: string) => {
+          const box = page.getByTestId(id);
+          await box.scrollIntoViewIfNeeded();
+          if (touch) await box.tap();
+          else await box.check();
+        };
+        const type = async (id: string, text: string) => {
+          const field = page.getByTestId(id);
+          await field.scrollIntoViewIfNeeded();
+          await field.fill(text);
+        };
+        await tick('search-strings-1');
+        await tick('search-strings-2');
+        await tick('search-strings-3');
+        await type('search-string-price', '1200');
+        await tick('search-inverter-inverter-94');
+        await type('search-inverter-price-inverter-94', '800');
+        await tick('search-inverter-inverter-96');
+        await type('search-inverter-price-inverter-96', '1100');
+        // 3 strings × (the inverter as it is and two presets) = 9 options.
+        const run = page.getByTestId('search-run');
+        await expect.poll(() => run.textContent()).toBe('Find the option (9 options)');
+        await run.scrollIntoViewIfNeeded();
+        if (touch) await run.tap();
+        else await run.click();
+        // Progress is shown while the worker runs (it may be quick: the bar or the result, then the result).
+        const progressSeen = await page
+          .getByTestId('search-progress')
+          .waitFor({ timeout: 2000 })
+          .then(() => true)
+          .catch(() => false);
+        await page.getByTestId('search-results').waitFor({ timeout: 60_000 });
+        const names = await page.getByTestId('search-option').locator('.search-option-name').allTextContents();
+        expect(names).toEqual(expected);
+        expect(await page.getByTestId('search-summary').textContent()).toMatch(/^9 of 9 options tried/);
+        if (label === 'desktop') expect(progressSeen || names.length > 0).toBe(true);
+        // Keep the first option as a variant: the button says so, and the project stores it.
+        const keep = page.getByTestId('search-keep').first();
+        if (touch) await keep.tap();
+        else await keep.click();
+        await expect.poll(() => page.getByTestId('search-keep-message').textContent()).toBe(`Kept “${expected[0]}” as a variant of the project.`);
+        await expect.poll(() => keep.textContent()).toBe('Kept');
+        await page.getByTestId('search-results').scrollIntoViewIfNeeded();
+        await page.screenshot({ path: join(artifacts, `search-${label}.png`) });
+        await fullPageScreenshot(page, join(artifacts, `search-${label}-full.png`));
+        await page.getByTestId('search-panel').screenshot({ path: join(artifacts, `search-${label}-panel.png`) });
+        // Nothing of the panel reaches past the screen's right edge (the list scrolls in its own box).
+        const right = await page.getByTestId('search-summary').evaluate((el) => el.getBoundingClientRect().right);
+        expect(right).toBeLessThanOrEqual(viewport.width);
+        const violations = await seriousAxeViolations(page, `'[data-testid="search-panel"]'`);
+        expect(violations).toEqual([]);
+
+        // The exported file holds the variant and the search settings; core's search on it gives the same list.
+        if (touch) await showProjectsView(page);
+        const exportButton = page.getByTestId('export-project');
+        await exportButton.scrollIntoViewIfNeeded();
+        const [download] = await Promise.all([page.waitForEvent('download'), touch ? exportButton.tap() : exportButton.click()]);
+        const exported = JSON.parse(readFileSync((await download.path())!, 'utf8')) as { project: { variants?: { name: string }[]; optionSearch?: OptionSearch } & Record<string, unknown> };
+        expect(exported.project.variants?.map((v) => v.name)).toEqual([expected[0]]);
+        expect(exported.project.optionSearch).toBeDefined();
+        expect(coreList(exported.project, exported.project.optionSearch!)).toEqual(expected);
+        expect(errors).toEqual([]);
+      } finally {
+        await context.close();
+      }
+    }, 240_000);
+  }
+
+  it('harbour clinic, desktop: conductor sizes from the cable’s table; the list and the rejected equal core’s', async () => {
+    const harbour = demoProjects.find((d) => d.id === 'harbour-clinic-ups')!.project;
+    // 1 or 2 strings at 2500; the board-to-UPS cable at 1.5, 2.5 or 4 mm² (IEC 60228 sizes) at 40, 55, 80.
+    const ticked: OptionSearch = {
+      strings: { bank: 'bank', counts: [1, 2], pricePerString: 2500 },
+      cables: [{ cable: 'supply-cable', sizes: ['1.5 mm²', '2.5 mm²', '4 mm²'], prices: [{ size: '1.5 mm²', price: 40 }, { size: '2.5 mm²', price: 55 }, { size: '4 mm²', price: 80 }] }],
+    };
+    const solved = solveProject(harbour);
+    if (!solved.ok) throw new Error('harbour does not solve');
+    const core = searchOptions(solved, ticked);
+    if (!core.ok) throw new Error(JSON.stringify(core.problems));
+    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US' });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    try {
+      await page.goto(`${baseUrl}#demo=harbour-clinic-ups`, { waitUntil: 'load' });
+      await page.getByTestId('results').waitFor();
+      await page.getByTestId('panel-search').locator('summary').click();
+      await page.getByTestId('search-panel').waitFor();
+      await page.getByTestId('search-strings-1').check();
+      await page.getByTestId('search-strings-2').check();
+      await page.getByTestId('search-string-price').fill('2500');
+      for (const [size, price] of [['1.5 mm²', '40'], ['2.5 mm²', '55'], ['4 mm²', '80']] as const) {
+        await page.getByTestId(`search-size-supply-cable-${size}`).check();
+        await page.getByTestId(`search-size-price-supply-cable-${size}`).fill(price);
+      }
+      await expect.poll(() => page.getByTestId('search-run').textContent()).toBe('Find the option (6 options)');
+      await page.getByTestId('search-run').click();
+      await page.getByTestId('search-results').waitFor({ timeout: 60_000 });
+      expect(await page.getByTestId('search-option').locator('.search-option-name').allTextContents()).toEqual(core.search.options.map((o) => o.name));
+      const groups = (await page.getByTestId('search-rejected-group').locator('strong').allTextContents());
+      expect(groups).toEqual(core.search.rejectedGroups.map((g) => g.group));
+      await page.getByTestId('search-panel').screenshot({ path: join(artifacts, 'search-harbour-panel.png') });
+      expect(await seriousAxeViolations(page, `'[data-testid="search-panel"]'`)).toEqual([]);
+
+      // A longer search shows its progress, and Stop ends it: no list, the button ready again.
+      for (const n of [3, 4]) await page.getByTestId(`search-strings-${n}`).check();
+      for (const size of ['6 mm²', '10 mm²', '16 mm²', '25 mm²', '35 mm²', '50 mm²', '70 mm²', '95 mm²', '120 mm²', '150 mm²', '185 mm²', '240 mm²']) await page.getByTestId(`search-size-supply-cable-${size}`).check();
+      for (const pct of [92, 94, 96]) await page.getByTestId(`search-inverter-inverter-${pct}`).check();
+      await expect.poll(() => page.getByTestId('search-run').textContent()).toBe('Find the option (240 options)'); // 4 × 15 × 4
+      await page.getByTestId('search-run').click();
+      const progress = page.getByTestId('search-progress');
+      await progress.waitFor({ timeout: 10_000 });
+      expect(await progress.textContent()).toMatch(/^Tried \d+ of 240/);
+      await page.getByTestId('search-stop').click();
+      await progress.waitFor({ state: 'detached' });
+      expect(await page.getByTestId('search-results').count()).toBe(0);
+      expect(await page.getByTestId('search-run').isEnabled()).toBe(true);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 240_000);
+});
