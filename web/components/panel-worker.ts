@@ -13,7 +13,7 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers } from '../../core/studies/index.ts';
+import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, lifetimeCost, lifetimeSettingsOf, type LifetimeOutcome, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers } from '../../core/studies/index.ts';
 import { elementNames, nonFiniteProblems, type Problem, type Solved, type SolveResult } from '../../core/page.ts';
 
 export type PanelRequest =
@@ -50,6 +50,8 @@ export interface MachinesFigures {
   fans: FanDetail[];
   pumpDuty?: { ok: true; result: PumpControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
   lossCost?: { ok: true; cost: LossCost } | { ok: false; problems: Problem[] };
+  /** The cost over the years (core's lifetimeCost), when the project gives the energy price and the years of service. */
+  lifetime?: LifetimeOutcome;
 }
 
 export interface MachinesReply {
@@ -101,9 +103,19 @@ function machines(solved: Solved, cost: CostSettings | null): MachinesReply {
     } else figures.pumpDuty = { ok: false, problems: f.problems };
   }
   if (cost) figures.lossCost = lossCostPerYear(result, cost);
+  if (lifetimeSettingsOf(project)) figures.lifetime = lifetimeCost(solved, undefined, rechargeRun(solved));
   const notFinite = nonFiniteProblems('The machines study', figures, elementNames(project));
   if (notFinite.length) return { kind: 'machines', outcome: { ok: false, problems: notFinite } };
   return { kind: 'machines', outcome: { ok: true, figures } };
+}
+
+/** The recharge after one outage for the generator's fuel (the backup study's, as the command line takes it), when the project counts outages and has a bank. */
+function rechargeRun(solved: Solved): { energyWh: number; timeSeconds: number } | undefined {
+  if (!(solved.project.running?.generator?.outagesPerYear ?? 0)) return undefined;
+  if (!solved.project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined)) return undefined;
+  const o = runBackupStudy(solved);
+  const rc = o.ok ? o.study.recharge : undefined;
+  return rc ? { energyWh: rc.acInputEnergyWh, timeSeconds: rc.time } : undefined;
 }
 
 function pfc(solved: Solved, at: string, targetPowerFactor: number): PfcReply {
