@@ -10,6 +10,7 @@ import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
 import { lifetimeCost } from '../../core/studies/lifetime.ts';
 import { lifetimeRows, rowText } from '../../web/components/cost/lifetime-rows.ts';
+import { KIND_FORMS, type NumberSpec } from '../../web/editor/fields.ts';
 
 const project = (running: Record<string, unknown>) => ({
   format: 'joulepath-project',
@@ -93,5 +94,20 @@ describe('cost over the years on the page', () => {
     const reply = await askMachines(t);
     expect(reply.outcome.ok).toBe(true);
     expect(reply.outcome.figures?.lifetime).toBeUndefined();
+  });
+});
+
+describe('the purchase price on every element’s form', () => {
+  it('is the last field of every kind’s form, in the currency of the user’s number format', () => {
+    for (const [kind, form] of Object.entries(KIND_FORMS)) {
+      const last = form.fields[form.fields.length - 1] as NumberSpec;
+      expect(last.path, kind).toBe('price');
+      expect(last.label).toBe('Purchase price');
+      expect(last.required).toBe(false);
+    }
+    const price = KIND_FORMS.rectifier.fields.at(-1) as NumberSpec;
+    // The locales' currencies (ISO 4217, as Intl writes them): US dollar, euro.
+    expect(price.unitText?.('en-US')).toBe('$');
+    expect(price.unitText?.('de-DE')).toBe('€');
   });
 });

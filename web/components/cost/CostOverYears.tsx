@@ -127,6 +127,11 @@ export function CostOverYears({ lifetime, project, solved, units, locale }: { li
               </tbody>
             </table>
           </ScrollTable>
+          <p class="note" data-testid="lifetime-unpriced">
+            {lifetime.cost.unpriced.length === 0
+              ? 'Every element has a purchase price.'
+              : `Purchase prices are given in each element’s form (“Purchase price”, at its end)${lifetime.cost.priced.length ? '' : ': none is given yet'}. ${lifetime.cost.priced.length ? 'Without a price' : 'Not priced'}: ${lifetime.cost.unpriced.map((u) => u.name).join(', ')}.`}
+          </p>
           {lifetime.cost.generator && (
             <ul class="note cost-years__runs" data-testid="lifetime-fuel-runs">
               {lifetime.cost.generator.runs.map((run) => (
