@@ -21,6 +21,6 @@ export { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from './pf/placem
 export { correctPowerFactor, type PfCorrection } from './pf/correction.ts';
 export { lossCostPerYear, pumpDutyCosts, type CostSettings, type LossCost, type MethodCosts } from './economics.ts';
 export { lifetimeCost, lifetimeSettingsOf, compareLifetime, compareSolved, breakEven, typicalFuelFigures, TYPICAL_FUEL_NOTE, type LifetimeCost, type LifetimeOutcome, type LifetimeSettings, type BreakEven, type CostStream } from './lifetime.ts';
-export { GENERATOR_RATED_POWER_FACTOR } from './lifetime.ts';
+export { GENERATOR_RATED_POWER_FACTOR, dutyHoursPerYear } from './lifetime.ts';
 export { studySurges, type DeviceCheck, type FaultPoint, type MotorStartResult, type StartCheck } from './surge/index.ts';
 export { answerStudies, studyAnswersFrom, type BankStudyAnswer, type CostAnswer, type StartAnswer, type StudyAnswers } from './answers.ts';

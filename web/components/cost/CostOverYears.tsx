@@ -13,6 +13,7 @@
  */
 import type { Solved } from '../../../core/page.ts';
 import type { LifetimeOutcome } from '../../../core/studies/index.ts';
+import { dutyHoursPerYear } from '../../../core/studies/index.ts';
 import { formatSignificant } from '../../format/number.ts';
 import { currencySymbol } from '../../format/panels.ts';
 import { formatForInput } from '../../format/parse.ts';
@@ -93,6 +94,7 @@ export function CostOverYears({ lifetime, project, solved, units, locale }: { li
           testId="lifetime-co2"
         />
       </div>
+      <DutyHours project={project} locale={locale} />
       <GeneratorFuelFields project={project} solved={solved} units={units} locale={locale} />
       {!(hasPrice && hasYears) && (
         <p class="note" data-testid="lifetime-missing">
@@ -152,5 +154,62 @@ export function CostOverYears({ lifetime, project, solved, units, locale }: { li
         </>
       )}
     </section>
+  );
+}
+
+const SPLIT_LABEL = 'Split the day and night hours as the load profile uses them';
+const HOURS_LABEL = 'Hours per year at this load';
+
+/**
+ * Where the project has a duty: the backup study's load profile can split the day and night prices by the
+ * energy its day uses (stored as the choice `running.dayHoursFromProfile`, worked by core); a pump duty
+ * gives the hours a year (the sum of its hours; it says nothing of the time of day).
+ */
+function DutyHours({ project, locale }: { project: DraftProject; locale: Locale }) {
+  const running = (project['running'] ?? {}) as Record<string, unknown>;
+  const hasProfile = typeof project['backup'] === 'object' && project['backup'] !== null;
+  const night = typeof running['nightPricePerKWh'] === 'number';
+  const pumpDuty = project['pumpDuty'] as { duty?: unknown } | undefined;
+  const dutyHours = pumpDuty && Array.isArray(pumpDuty.duty) && pumpDuty.duty.every((d) => typeof (d as { hours?: unknown }).hours === 'number') ? dutyHoursPerYear({ pumpDuty: pumpDuty as never }) : null;
+  const hours = typeof running['hoursPerYear'] === 'number' ? running['hoursPerYear'] : null;
+  if (!hasProfile && dutyHours === null) return null;
+  const checked = running['dayHoursFromProfile'] === true;
+  return (
+    <div class="cost-years__duty" data-testid="lifetime-duty">
+      {hasProfile && (
+        <label class="cost-years__check">
+          <input
+            type="checkbox"
+            checked={checked}
+            disabled={!night && !checked}
+            aria-describedby="lifetime-split-help"
+            onChange={(e) => writeLifetime(project, 'dayHoursFromProfile', (e.currentTarget as HTMLInputElement).checked ? true : undefined, SPLIT_LABEL)}
+            data-testid="lifetime-split-profile"
+          />{' '}
+          {SPLIT_LABEL}
+        </label>
+      )}
+      {hasProfile && (
+        <p id="lifetime-split-help" class="note">
+          {night
+            ? 'The battery backup study’s day: the share of its energy used while the day price runs sets the mean price. Unticked: the hours are spread evenly over the day.'
+            : 'With a night price: the battery backup study’s day can split the energy between the day and night prices.'}
+        </p>
+      )}
+      {dutyHours !== null && (
+        <p class="cost-years__actions">
+          <button
+            type="button"
+            class="panel-button"
+            disabled={hours === dutyHours}
+            onClick={() => writeLifetime(project, 'hoursPerYear', dutyHours, HOURS_LABEL)}
+            data-testid="lifetime-duty-hours"
+          >
+            Take the hours a year from the pump duty ({formatSignificant(dutyHours, 5, locale)} h)
+          </button>
+          <span class="note">The duty says how long the pump runs at each flow, not when: its hours are spread evenly over the day.</span>
+        </p>
+      )}
+    </div>
   );
 }

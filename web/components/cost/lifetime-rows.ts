@@ -28,7 +28,12 @@ export function lifetimeRows(c: LifetimeCost): LifetimeRow[] {
     label: 'Mean price per kWh',
     value: c.pricePerKWh,
     unit: 'money-per-kWh',
-    how: c.dayHours < 24 ? `time-weighted mean price: (day hours × day price + night hours × night price) ÷ 24, with ${Number(c.dayHours.toPrecision(4))} h at the day price` : 'one price all day',
+    how:
+      c.dayHoursFrom === 'load profile'
+        ? `energy-weighted mean price: the load profile's day uses the day price for ${Number(((c.dayHours / 24) * 100).toPrecision(3))} % of its energy (${Number(c.dayHours.toPrecision(3))} h of 24 in the mean)`
+        : c.dayHours < 24
+          ? `time-weighted mean price: (day hours × day price + night hours × night price) ÷ 24, with ${Number(c.dayHours.toPrecision(4))} h at the day price`
+          : 'one price all day',
   });
   rows.push({ key: 'energy', label: 'Energy lost a year', value: c.losses.totalEnergyKWh, unit: 'kWh', how: `the losses at the operating point × ${Number(c.hoursPerYear.toPrecision(5))} h a year` });
   rows.push({ key: 'loss-cost', label: 'Cost of the losses a year', value: c.losses.totalCost, unit: 'money', how: 'energy lost × mean price' });
