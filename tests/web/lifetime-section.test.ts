@@ -70,6 +70,11 @@ describe('cost over the years on the page', () => {
     expect(rows.get('npv')!.how).toMatch(/net present value at 5 % a year: purchase \+ Σ yearly cost ÷ \(1 \+ r\)\^t, t = 1…10/);
     expect(rowText(rows.get('npv')!, 'en-US')).toBe('$2,078.32');
     expect(rowText(rows.get('co2-years')!, 'en-US')).toBe('3,504\u202fkg');
+    // The client report asks for the cost over the years alone: the same figures.
+    const replies: Reply[] = [];
+    scope.postMessage = (m) => replies.push(m);
+    scope.onmessage!({ data: { id: 2, request: { kind: 'lifetime', solved: s } } });
+    expect((replies[0]!.reply as unknown as { outcome: unknown }).outcome).toEqual(core);
   });
 
   it('a generator’s fuel is a row, and no lifetime figures come without the years of service', async () => {

@@ -32,6 +32,7 @@ import { catchUpNow, useOffscreenLag, type BoxRef } from './lag.ts';
 import type { DraftProject } from '../state/draft.ts';
 import { ReportQr } from './report/ReportQr.tsx';
 import { ShareLink } from './report/ShareLink.tsx';
+import { ReportLifetime } from './report/ReportLifetime.tsx';
 
 /** The caution every report carries (results are planning estimates). */
 export const REPORT_CAUTION =
@@ -175,6 +176,7 @@ const ReportBody = memo(function ReportBody({
         )}
         {/* The answers first, in the client's words (web/components/answers/ReportAnswers.tsx). */}
         <ReportAnswers solved={solved} />
+        <ReportLifetime solved={solved} locale={loc} />
         <div class="report__columns">
           <section>
             <h2>The chain</h2>

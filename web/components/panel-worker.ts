@@ -23,7 +23,9 @@ export type PanelRequest =
   /** The answers strip's study figures (runtime, bank for the target, start verdicts, cost of losses). */
   | { kind: 'answers'; solved: Solved; cost: CostSettings | null }
   /** A bank on a bus: the on-battery solve and the modes study (web/components/modes/). */
-  | { kind: 'modes'; solved: Solved };
+  | { kind: 'modes'; solved: Solved }
+  /** The cost over the years alone (the client report's table, web/components/report/ReportLifetime.tsx). */
+  | { kind: 'lifetime'; solved: Solved };
 
 /** Both modes of a project with a bank on a bus: the on-battery result (the on-supply one is the page's own solve) and the modes study. */
 export interface ModesReply {
@@ -31,6 +33,11 @@ export interface ModesReply {
   outcome:
     | { ok: true; battery: { ok: true; result: SolveResult } | { ok: false; problems: Problem[] }; study: { ok: true; study: ModesStudyResult } | { ok: false; problems: Problem[] } }
     | { ok: false; problems: Problem[] };
+}
+
+export interface LifetimeReply {
+  kind: 'lifetime';
+  outcome: LifetimeOutcome;
 }
 
 export interface AnswersReply {
@@ -67,7 +74,7 @@ export interface PfcReply {
   outcome: { ok: true; correction: PfCorrectionShown } | { ok: false; problems: Problem[] };
 }
 
-export type PanelReply = (BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | { kind: 'crash'; message: string }) & {
+export type PanelReply = (BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | LifetimeReply | { kind: 'crash'; message: string }) & {
   /** Time the work took in the worker, ms. */
   ms: number;
 };
@@ -118,6 +125,14 @@ function rechargeRun(solved: Solved): { energyWh: number; timeSeconds: number } 
   return rc ? { energyWh: rc.acInputEnergyWh, timeSeconds: rc.time } : undefined;
 }
 
+/** The cost over the years of a solved pair (core's lifetimeCost, the recharge as the machines panel takes it), refused when not all finite. */
+function lifetime(solved: Solved): LifetimeReply {
+  const o = lifetimeCost(solved, undefined, rechargeRun(solved));
+  if (!o.ok) return { kind: 'lifetime', outcome: o };
+  const notFinite = nonFiniteProblems('The cost over the years', o.cost, elementNames(solved.project));
+  return { kind: 'lifetime', outcome: notFinite.length ? { ok: false, problems: notFinite } : o };
+}
+
 function pfc(solved: Solved, at: string, targetPowerFactor: number): PfcReply {
   const o = correctPowerFactor(solved, { at, targetPowerFactor });
   if (!o.ok) return { kind: 'pfc', outcome: o };
@@ -161,7 +176,7 @@ const scope = globalThis as unknown as {
 scope.onmessage = (event) => {
   const { id, request } = event.data;
   const t0 = performance.now();
-  let reply: BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | { kind: 'crash'; message: string };
+  let reply: BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | LifetimeReply | { kind: 'crash'; message: string };
   try {
     switch (request.kind) {
       case 'battery':
@@ -178,6 +193,9 @@ scope.onmessage = (event) => {
         break;
       case 'modes':
         reply = modes(request.solved);
+        break;
+      case 'lifetime':
+        reply = lifetime(request.solved);
         break;
     }
   } catch (error) {
