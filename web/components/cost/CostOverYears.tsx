@@ -111,19 +111,20 @@ export function CostOverYears({ lifetime, project, solved, units, locale }: { li
             <table class="data panel-table" data-testid="lifetime-table">
               <thead>
                 <tr>
-                  <th scope="col">What</th>
+                  <th scope="col">What, and how it is worked out</th>
                   <th scope="col" class="num">Figure</th>
-                  <th scope="col">How</th>
                 </tr>
               </thead>
               <tbody>
                 {rows.map((r) => (
                   <tr key={r.key}>
-                    <th scope="row">{r.label}</th>
+                    <th scope="row">
+                      {r.label}
+                      <span class="cost-years__how">{r.how}</span>
+                    </th>
                     <td class="num" data-testid={`lifetime-${r.key}`}>
                       {rowText(r, locale)}
                     </td>
-                    <td class="cost-years__how">{r.how}</td>
                   </tr>
                 ))}
               </tbody>

@@ -5,12 +5,14 @@
  * core's `typicalFuelFigures`) for the rated power in force; a figure equal to the typical one says so
  * under it. A project without a generator offers to start counting one, with typical figures.
  */
+import { useState } from 'preact/hooks';
 import type { Solved } from '../../../core/page.ts';
+import { PROJECT_LEVEL } from '../../../core/page.ts';
 import { GENERATOR_RATED_POWER_FACTOR, typicalFuelFigures } from '../../../core/studies/index.ts';
 import { formatSignificant } from '../../format/number.ts';
 import { currencySymbol } from '../../format/panels.ts';
 import type { UnitSystem } from '../../format/units.ts';
-import type { DraftProject } from '../../state/editor.ts';
+import { setFieldError, type DraftProject } from '../../state/editor.ts';
 import { SettingField } from '../SettingField.tsx';
 import type { Locale } from '../machines/shared.tsx';
 import { writeLifetime } from './write.ts';
@@ -23,6 +25,17 @@ const FUEL_LABELS: Record<(typeof FUEL_KEYS)[number], string> = {
   fullLoadLitresPerHour: 'Generator fuel at full load (L/h)',
 };
 const TEST_IDS: Record<(typeof FUEL_KEYS)[number], string> = { quarterLoadLitresPerHour: 'lifetime-fuel-quarter', halfLoadLitresPerHour: 'lifetime-fuel-half', fullLoadLitresPerHour: 'lifetime-fuel-full' };
+/**
+ * Core's typical fuel figures at three significant digits: a suppliers' estimate carries no more (its chart
+ * prints tenths of a gallon), and the field then shows "6.09", not the conversion's fifteen digits.
+ */
+function typicalShown(ratedW: number): Fuel | null {
+  const t = typicalFuelFigures(ratedW);
+  if (!t) return null;
+  const r = (v: number) => Number(v.toPrecision(3));
+  return { quarterLoadLitresPerHour: r(t.quarterLoadLitresPerHour), halfLoadLitresPerHour: r(t.halfLoadLitresPerHour), fullLoadLitresPerHour: r(t.fullLoadLitresPerHour) };
+}
+
 /** The smallest set the typical chart lists, W (core/data/diesel-fuel-typical.ts). */
 const SMALLEST_CHART_SET_W = 20_000;
 
@@ -40,11 +53,13 @@ export function GeneratorFuelFields({ project, solved, units, locale }: { projec
   const fromChain = chainGeneratorW(solved);
   const common = { project, units, locale };
   const symbol = currencySymbol(locale);
+  /** Raised when the typical values are filled in: the fuel fields start afresh (a refused text typed there gives way to the figures filled). */
+  const [round, setRound] = useState(0);
   if (!gen) {
     // A suggestion to start from: the chain's generator, or a set that carries the chain's source power (at least the chart's smallest).
     const sourceW = solved.result.elements.find((e) => e.role === 'source')?.pOut ?? 0;
     const rated = fromChain ?? Math.max(SMALLEST_CHART_SET_W, Math.ceil(sourceW / 1000) * 1000);
-    const typical = typicalFuelFigures(rated);
+    const typical = typicalShown(rated);
     return (
       <div class="cost-years__generator" data-testid="lifetime-generator">
         <h5 class="cost-years__subhead">Generator fuel</h5>
@@ -81,9 +96,14 @@ export function GeneratorFuelFields({ project, solved, units, locale }: { projec
     );
   }
   const ratedInForce = typeof gen['ratedPower'] === 'number' ? gen['ratedPower'] : fromChain;
-  const typical = ratedInForce !== undefined ? typicalFuelFigures(ratedInForce) : null;
+  const typical = ratedInForce !== undefined ? typicalShown(ratedInForce) : null;
   const isTypical = (k: (typeof FUEL_KEYS)[number]) => typical !== null && typeof gen[k] === 'number' && Math.abs((gen[k] as number) - typical[k]) <= 1e-9 * typical[k];
-  const fill = (t: Fuel) => writeLifetime(project, 'generator', { ...gen, quarterLoadLitresPerHour: t.quarterLoadLitresPerHour, halfLoadLitresPerHour: t.halfLoadLitresPerHour, fullLoadLitresPerHour: t.fullLoadLitresPerHour }, 'Generator fuel and outages');
+  const fill = (t: Fuel) => {
+    const message = writeLifetime(project, 'generator', { ...gen, quarterLoadLitresPerHour: t.quarterLoadLitresPerHour, halfLoadLitresPerHour: t.halfLoadLitresPerHour, fullLoadLitresPerHour: t.fullLoadLitresPerHour }, 'Generator fuel and outages');
+    if (message !== null) return;
+    for (const k of FUEL_KEYS) setFieldError(PROJECT_LEVEL, `running.generator.${k}`, null);
+    setRound((r) => r + 1);
+  };
   const field = (key: string, label: string) => ({ path: `running.generator.${key}`, label, write: (v: number | undefined) => writeLifetime(project, `generator.${key}`, v, label) });
   return (
     <div class="cost-years__generator" data-testid="lifetime-generator">
@@ -100,7 +120,7 @@ export function GeneratorFuelFields({ project, solved, units, locale }: { projec
         />
         {FUEL_KEYS.map((k) => (
           <SettingField
-            key={k}
+            key={`${k}-${round}`}
             {...common}
             {...field(k, FUEL_LABELS[k])}
             quantity="ratio"
