@@ -131,7 +131,16 @@ describe.skipIf(skipWithout('chromium'))('the cost over the years in Chromium', 
         await section.scrollIntoViewIfNeeded();
         await section.screenshot({ path: join(artifacts, `cost-${label}.png`) });
 
+        // The client report (printed; rendered hidden on screen) carries the same lifetime cost and CO₂.
+        const final = expectedRows({ ...running, hoursPerYear: 8000, generator });
+        await expect.poll(() => page.getByTestId('report-lifetime-npv').textContent().then(plain), { timeout: 20_000 }).toBe(final.get('npv'));
+        await expect.poll(() => page.getByTestId('report-lifetime-co2-years').textContent().then(plain)).toBe(final.get('co2-years'));
+        await expect.poll(() => page.getByTestId('report-lifetime-yearly').textContent().then(plain)).toBe(final.get('yearly'));
+
         if (label === 'desktop') {
+          await page.emulateMedia({ media: 'print' });
+          await page.getByTestId('report-lifetime').screenshot({ path: join(artifacts, 'cost-report.png') });
+          await page.emulateMedia({ media: 'screen' });
           // A purchase price in the pump's form: the sum of purchases and the lifetime cost follow.
           await page.locator('[data-testid="stage-card"][data-card-id="pump"]').click();
           const form = page.locator('[data-testid="stage-form"][data-element-id="pump"]');
