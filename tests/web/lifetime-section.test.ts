@@ -102,6 +102,20 @@ describe('cost over the years on the page', () => {
   });
 });
 
+describe('the working of the mean price', () => {
+  it('names the load profile when the split is read from it', () => {
+    // Lamps on 20:00–06:00, the day price 7–23 h: 3 h of their 10 by day, s = 0.3 (tests/core/lifetime-profile.test.ts works it by hand).
+    const backup = { profile: { kind: 'daily', segments: [{ startHour: 0, loads: { lamp: true } }, { startHour: 6, loads: { lamp: false } }, { startHour: 20, loads: { lamp: true } }] } };
+    const s = solveProject({ ...project({ ...RUNNING, dayHoursFromProfile: true }), backup });
+    if (!s.ok) throw new Error(JSON.stringify(s.problems));
+    const c = lifetimeCost(s);
+    if (!c.ok) throw new Error(JSON.stringify(c.problems));
+    const price = lifetimeRows(c.cost).find((r) => r.key === 'price')!;
+    expect(price.value).toBeCloseTo(0.3 * 0.3 + 0.7 * 0.1, 12);
+    expect(price.how).toBe("energy-weighted mean price: the load profile's day uses the day price for 30 % of its energy (7.2 h of 24 in the mean)");
+  });
+});
+
 describe('the purchase price on every element’s form', () => {
   it('is the last field of every kind’s form, in the currency of the user’s number format', () => {
     for (const [kind, form] of Object.entries(KIND_FORMS)) {

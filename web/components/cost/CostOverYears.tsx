@@ -130,6 +130,11 @@ export function CostOverYears({ lifetime, project, solved, units, locale }: { li
               </tbody>
             </table>
           </ScrollTable>
+          {lifetime.cost.dayHoursFrom === 'load profile' && (
+            <p class="note" data-testid="lifetime-split-note">
+              These figures split the day and night prices as the load profile uses its day; “What the losses cost per year” above spreads the hours evenly over the day.
+            </p>
+          )}
           <p class="note" data-testid="lifetime-unpriced">
             {lifetime.cost.unpriced.length === 0
               ? 'Every element has a purchase price.'
