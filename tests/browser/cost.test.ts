@@ -17,6 +17,7 @@ import { lifetimeCost, typicalFuelFigures } from '../../core/studies/lifetime.ts
 import { lifetimeRows, rowText } from '../../web/components/cost/lifetime-rows.ts';
 
 const plain = (s: string | null | undefined) => (s ?? '').replace(/[\s\u202f\u00a0]+/g, ' ').trim();
+const demoCopy = (id: string) => structuredClone(demoProjects.find((d) => d.id === id)!.project) as unknown as Record<string, unknown> & { elements: Record<string, unknown>[] };
 const riverside = () => structuredClone(demoProjects.find((d) => d.id === 'riverside-pump-station')!.project) as unknown as Record<string, unknown> & { elements: Record<string, unknown>[] };
 
 /** Core's rows for the demo with these settings (and element prices), as the page words them in en-US. */
@@ -64,6 +65,35 @@ describe.skipIf(skipWithout('chromium'))('the cost over the years in Chromium', 
   const matches = async (section: Locator, want: Map<string, string>) => {
     await expect.poll(async () => Object.fromEntries(await shownRows(section)), { timeout: 20_000 }).toEqual(Object.fromEntries(want));
   };
+
+  it('desktop: the hillside demo’s load profile splits the day and night prices; the mean price and the cost are core’s', async () => {
+    const { context, page, errors } = await openDemo(browser!, VIEWPORTS.desktop, 'hillside-relay-hut', { baseUrl });
+    try {
+      const section = await openSection(page);
+      await page.getByTestId('cost-price').fill('0.30');
+      await section.getByTestId('lifetime-night-price').fill('0.10');
+      await section.getByTestId('lifetime-years').fill('10');
+      const split = section.getByTestId('lifetime-split-profile');
+      await expect.poll(() => split.isDisabled()).toBe(false);
+      await split.check();
+      const p = demoCopy('hillside-relay-hut');
+      p['running'] = { hoursPerYear: 8760, energyPricePerKWh: 0.3, nightPricePerKWh: 0.1, years: 10, dayHoursFromProfile: true };
+      const s = solveProject(p);
+      if (!s.ok) throw new Error(JSON.stringify(s.problems));
+      const c = lifetimeCost(s);
+      if (!c.ok) throw new Error(JSON.stringify(c.problems));
+      expect(c.cost.dayHoursFrom).toBe('load profile');
+      const want = new Map(lifetimeRows(c.cost).map((r) => [r.key, plain(rowText(r, 'en-US'))]));
+      await matches(section, want);
+      await expect.poll(() => section.getByTestId('lifetime-split-note').isVisible()).toBe(true);
+      await expect.poll(() => section.getByTestId('lifetime-table').textContent()).toContain("energy-weighted mean price: the load profile's day uses the day price for");
+      expect(await seriousAxeViolations(page, '\'[data-testid="lifetime-cost"]\'')).toEqual([]);
+      await section.getByTestId('lifetime-duty').screenshot({ path: join(artifacts, 'cost-profile-split.png') });
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 300_000);
 
   for (const [label, viewport] of Object.entries(VIEWPORTS)) {
     it(`${label}: prices, years and CO₂ typed in give core's lifetime cost; a generator and the pump duty's hours too; a bad value stays at its field`, async () => {
