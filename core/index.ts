@@ -123,6 +123,8 @@ export {
 } from './studies/machines/index.ts';
 export { flowGraph, lossNodeId, lossParts, LOSS_SUFFIX, type FlowGraph, type FlowNode, type FlowLink, type FlowNodeRole, type LossPart, type LossSummary, type Share } from './studies/energy-flow.ts';
 export { lossCostPerYear, pumpDutyCosts, energyCost, checkCostSettings, HOURS_IN_YEAR, MAX_HOURS_PER_YEAR, type CostSettings, type LossCost, type LossCostRow, type LossCostOutcome, type MethodCosts } from './studies/economics.ts';
+export { dutyHoursPerYear } from './studies/lifetime.ts';
+export { profileDayHours } from './model/tariff.ts';
 export { lifetimeCost, lifetimeSettingsOf, checkLifetimeSettings, compareLifetime, compareSolved, breakEven, costStream, netPresentValue, presentValue, meanPrice, fuelRate, generatorFuelPerYear, typicalFuelFigures, TYPICAL_FUEL_NOTE, formatLifetimeCost, type LifetimeCost, type LifetimeOutcome, type LifetimeSettings, type BreakEven, type CostStream, type GeneratorYear, type FuelRun, type RechargeRun } from './studies/lifetime.ts';
 export { compareVariants, compareColumns, solveColumns, COMPARISON_CAUTIONS, type ColumnSolve, type CompareOptions, type ComparisonColumn, type ComparisonRow, type RowGroup, type RowQuantity, type VariantComparison } from './studies/variants/compare.ts';
 export { criticalLoadsVariant, nextSizeUpVariant, seriesForSystem, systemBank, systemVoltageVariant, SYSTEM_VOLTAGES, type QuickVariantOutcome, type SystemVoltage } from './variants/index.ts';

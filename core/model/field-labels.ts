@@ -326,6 +326,7 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "running.nightPricePerKWh": "Night energy price per kWh",
     "running.dayStartHour": "Day price from (hour)",
     "running.dayEndHour": "Day price until (hour)",
+    "running.dayHoursFromProfile": "Split the day and night hours as the load profile uses them",
     "running.years": "Years of service",
     "running.discountRate": "Discount rate per year (%)",
     "running.gridCo2KgPerKWh": "Grid CO₂ per kWh (kg)",

@@ -135,6 +135,11 @@ export interface RunningCost {
   dayStartHour?: number;
   /** Hour of the day at which the day price ends, 0 < h ≤ 24, after the start (default 23). */
   dayEndHour?: number;
+  /**
+   * With a night price and the backup study's load profile: split the energy between the two prices as
+   * the profile's day uses it (core/model/tariff.ts `profileDayHours`), not evenly over the day.
+   */
+  dayHoursFromProfile?: boolean;
   /** Years of service the lifetime cost counts, 1…100. Without it no lifetime cost is worked out. */
   years?: number;
   /** Discount rate per year, a fraction (0.05 = 5 %), 0…1 (default 0: money keeps its value). */

@@ -19,3 +19,25 @@ export function meanPrice(s: { dayPricePerKWh: number; nightPricePerKWh?: number
 export function priceOfRunning(r: { energyPricePerKWh: number; nightPricePerKWh?: number | undefined; dayStartHour?: number | undefined; dayEndHour?: number | undefined }): number {
   return meanPrice({ dayPricePerKWh: r.energyPricePerKWh, nightPricePerKWh: r.nightPricePerKWh, dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR, dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR }).pricePerKWh;
 }
+
+/**
+ * The hours of the day price as a load profile's energy splits them (issue 20 point 2, "hours or the duty
+ * profile"): the share of the day's energy used while the day price runs, × 24 h, so that `meanPrice`
+ * with these hours gives the energy-weighted mean price p̄ = s·p_day + (1 − s)·p_night, where
+ * s = Σ P_i·|[a_i, b_i) ∩ [start, end)| ÷ Σ P_i·(b_i − a_i) over the profile's intervals on the clock
+ * (a step function integrated exactly). The losses are taken to follow the load through the day.
+ * Null when the profile uses no energy (no share to take).
+ */
+export function profileDayHours(intervals: readonly { fromHour: number; toHour: number; watts: number }[], dayStartHour: number, dayEndHour: number): { dayHours: number; dayShare: number } | null {
+  let total = 0;
+  let day = 0;
+  for (const iv of intervals) {
+    const w = Math.max(0, iv.watts);
+    total += w * (iv.toHour - iv.fromHour);
+    const overlap = Math.min(iv.toHour, dayEndHour) - Math.max(iv.fromHour, dayStartHour);
+    if (overlap > 0) day += w * overlap;
+  }
+  if (!(total > 0) || !Number.isFinite(total)) return null;
+  const dayShare = day / total;
+  return { dayHours: 24 * dayShare, dayShare };
+}

@@ -5,8 +5,11 @@
  *
  * Methods, each named where it is worked:
  * - Tariff: time-weighted mean price, p̄ = (h_day·p_day + (24 − h_day)·p_night) / 24. The chain's
- *   hours at its solved operating point are taken as spread evenly over the day: a project's load
- *   profile (the backup study's day) or pump duty is not read here.
+ *   hours at its solved operating point are taken as spread evenly over the day, unless the settings ask
+ *   for the backup study's load profile (`dayHoursFromProfile`): then h_day = 24 × the share of the
+ *   profile's day energy used in the day-price hours (energy-weighted mean price, core/model/tariff.ts
+ *   `profileDayHours`). A pump duty gives hours at each flow but not their time of day: its total
+ *   hours (`dutyHoursPerYear`) can stand for the hours a year, spread evenly.
  * - Yearly energy of the losses: constant operating point, E = P_loss × hours per year
  *   (core/studies/economics.ts); its cost E × p̄.
  * - Lifetime cost: net present value of end-of-year costs, NPV = purchase + Σ_{t=1…N} C_t / (1 + r)^t
@@ -32,6 +35,8 @@ import { HOURS_IN_YEAR, MAX_HOURS_PER_YEAR } from '../solve/running-schema.ts';
 import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, lossCostPerYear, meanPrice, type LossCost } from './economics.ts';
 import { breakEven, netPresentValue, type BreakEven, type CostStream } from './lifetime-money.ts';
 import { generatorFuelPerYear, type FuelRun, type GeneratorYear, type RechargeRun } from './lifetime-fuel.ts';
+import { profileDayHours } from '../model/tariff.ts';
+import { profileDay } from './backup/profile-day.ts';
 
 // Its parts: money over time (lifetime-money.ts), the generator's fuel (lifetime-fuel.ts), the text (lifetime-text.ts).
 export { breakEven, netPresentValue, presentValue, type BreakEven, type CostStream } from './lifetime-money.ts';
@@ -53,6 +58,8 @@ export interface LifetimeSettings {
   nightPricePerKWh?: number;
   dayStartHour: number;
   dayEndHour: number;
+  /** Split the day and night prices as the backup study's load profile uses its day (default: evenly). */
+  dayHoursFromProfile?: boolean;
   hoursPerYear: number;
   years: number;
   /** Fraction per year (0.05 = 5 %). */
@@ -73,6 +80,7 @@ export function lifetimeSettingsOf(project: Pick<Project, 'running'>): LifetimeS
     ...(r.nightPricePerKWh !== undefined ? { nightPricePerKWh: r.nightPricePerKWh } : {}),
     dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR,
     dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR,
+    ...(r.dayHoursFromProfile ? { dayHoursFromProfile: true } : {}),
     hoursPerYear: r.hoursPerYear ?? HOURS_IN_YEAR,
     years: r.years,
     discountRate: r.discountRate ?? 0,
@@ -132,6 +140,8 @@ export interface LifetimeCost {
   /** Mean price per kWh under the tariff and the day-price hours (24 without a night price). */
   pricePerKWh: number;
   dayHours: number;
+  /** Where the day-price hours come from: the tariff's hours (the load spread evenly) or the load profile's energy. */
+  dayHoursFrom: 'tariff hours' | 'load profile';
   hoursPerYear: number;
   years: number;
   discountRate: number;
@@ -165,7 +175,8 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
   if (!s) return { ok: false, problems: [bad('running.years', undefined, 'are needed, with the energy price, for the cost over the years')] };
   const problems = checkLifetimeSettings(s);
   if (problems.length) return { ok: false, problems };
-  const { pricePerKWh, dayHours } = meanPrice(s);
+  const split = s.dayHoursFromProfile && s.nightPricePerKWh !== undefined ? profileSplit(solved, s) : null;
+  const { pricePerKWh, dayHours } = meanPrice(split ? { ...s, dayStartHour: 0, dayEndHour: split.dayHours } : s);
   const lc = lossCostPerYear(solved.result, { pricePerKWh, hoursPerYear: s.hoursPerYear });
   if (!lc.ok) return lc;
   // Elements named as messages name them: their name, or the kind's label and place ("Utility supply #1").
@@ -179,12 +190,20 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
   }
   const purchase = priced.reduce((sum, p) => sum + p.price, 0);
   const notes = [
-    s.nightPricePerKWh !== undefined
+    split
+      ? `mean price ${sigText(pricePerKWh, 4)} per kWh: the load profile's day uses ${sigText(split.dayShare * 100, 3)} % of its energy while the day price runs (${sigText(s.dayStartHour, 3)} to ${sigText(s.dayEndHour, 3)} h), so the day price counts for ${sigText(dayHours, 3)} h of 24 (the mean weighted by the profile's energy)`
+      : s.nightPricePerKWh !== undefined
       ? `mean price ${sigText(pricePerKWh, 4)} per kWh: the day price for ${sigText(dayHours, 3)} h, the night price for ${sigText(24 - dayHours, 3)} h, the ${sigText(s.hoursPerYear, 5)} h a year spread evenly over the day`
       : `one price, ${sigText(pricePerKWh, 4)} per kWh, for the ${sigText(s.hoursPerYear, 5)} h a year at this load`,
   ];
   // The hours are at the solved operating point: a load profile or pump duty in the project is not read here (its own study prices it).
-  if (solved.project.backup !== undefined || solved.project.pumpDuty !== undefined) {
+  if (s.dayHoursFromProfile && s.nightPricePerKWh !== undefined && !split) {
+    notes.push('the day and night hours are spread evenly: the project has no load profile that uses energy (the battery backup study\'s day)');
+  }
+  const dutyHours = dutyHoursPerYear(solved.project);
+  if (dutyHours !== null && Math.abs(dutyHours - s.hoursPerYear) <= 1e-9 * dutyHours) {
+    notes.push(`the ${sigText(dutyHours, 5)} h a year are the pump duty's; it says how long at each flow, not when in the day, so they are spread evenly over the day`);
+  } else if (split === null && (solved.project.backup !== undefined || solved.project.pumpDuty !== undefined)) {
     notes.push(`the losses are those of the solved operating point for ${sigText(s.hoursPerYear, 5)} h a year; the project's ${solved.project.pumpDuty !== undefined ? 'pump duty' : 'load profile'} is not read here`);
   }
   let generator: GeneratorYear | undefined;
@@ -218,6 +237,7 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
     cost: {
       pricePerKWh,
       dayHours,
+      dayHoursFrom: split ? 'load profile' : 'tariff hours',
       hoursPerYear: s.hoursPerYear,
       years: s.years,
       discountRate: s.discountRate,
@@ -232,6 +252,25 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
       notes,
     },
   };
+}
+
+/**
+ * The day-price hours as the backup study's load profile uses its day (core/model/tariff.ts
+ * `profileDayHours`, the profile's day from core/studies/backup/profile-day.ts): null without a profile
+ * that uses energy.
+ */
+function profileSplit(solved: Solved, s: LifetimeSettings): { dayHours: number; dayShare: number } | null {
+  if (solved.project.backup === undefined) return null;
+  const day = profileDay(solved.project, solved.project.backup, solved.result);
+  if (!day.ok) return null;
+  return profileDayHours(day.day.intervals, s.dayStartHour, s.dayEndHour);
+}
+
+/** The hours a year of a project's pump duty (Σ hours over its duty points), or null without one. */
+export function dutyHoursPerYear(project: Pick<Project, 'pumpDuty'>): number | null {
+  const duty = project.pumpDuty?.duty;
+  if (!duty || duty.length === 0) return null;
+  return duty.reduce((sum, d) => sum + d.hours, 0);
 }
 
 /** An option's cost stream from its lifetime cost: the purchase and the same yearly cost for each year of service. */

@@ -11,7 +11,7 @@ import { join } from 'node:path';
 import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, chainOp, chooseSetting, fullPageScreenshot, seriousAxeViolations, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, chainOp, chooseSetting, fullPageScreenshot, openDemo, seriousAxeViolations, serveBuiltApp, type ServedApp } from './harness.ts';
 import { formatPumpDuty, projectPumpDuty } from '../../core/index.ts';
 import { formatEnergy } from '../../web/format/number.ts';
 import { onSolved } from '../core/solved.ts';
@@ -90,11 +90,8 @@ describe.skipIf(skipWithout('chromium'))('the duty editor in Chromium', () => {
     ['phone', VIEWPORTS.phone, 'dark'],
   ] as const) {
     it(`${label}: a pump duty from empty to the three-way comparison, then a fan added in the page the same`, async () => {
-      const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', colorScheme: scheme });
-      const page = await context.newPage();
-      const errors = watchPageErrors(page);
+      const { context, page, errors } = await openDemo(browser!, viewport, null, { baseUrl, colorScheme: scheme });
       try {
-        await page.goto(baseUrl, { waitUntil: 'load' });
         await page.getByTestId('open-file').setInputFiles({ name: 'plant.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(PLANT)) });
         await expect.poll(() => page.locator('#project-heading').innerText()).toBe('Plant room');
         await page.getByTestId('results').waitFor();

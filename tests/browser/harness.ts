@@ -8,7 +8,7 @@ import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type Page } from 'playwright-core';
+import { chromium, type Browser, type BrowserContext, type BrowserContextOptions, type Page } from 'playwright-core';
 import { build, preview } from 'vite';
 import { requireTool } from '../tools/system-tools.ts';
 
@@ -151,6 +151,41 @@ export async function seriousAxeViolations(page: Page, scope = 'document'): Prom
   if (!(await page.evaluate('typeof window.axe === "object"'))) await page.evaluate(axeSource);
   const violations = (await page.evaluate(`window.axe.run(${scope}, { resultTypes: ['violations'] }).then((r) => r.violations)`)) as AxeViolation[];
   return violations.filter((v) => v.impact === 'serious' || v.impact === 'critical');
+}
+
+export interface OpenDemoOptions {
+  /** The preview server's address (`ServedApp.baseUrl`). */
+  baseUrl: string;
+  colorScheme?: 'light' | 'dark';
+  /** The browser's locale (default en-US, the number format most checks are written in). */
+  locale?: string;
+  /** More options of the new browser context (touch, a phone's user agent, downloads). */
+  contextOptions?: BrowserContextOptions;
+  /** Script run in the page before its own (e.g. a setting this device kept in localStorage). */
+  initScript?: string;
+  /** Open the page in this context instead of a new one (the caller closes it). */
+  context?: BrowserContext;
+}
+
+/**
+ * What most page tests start with: a browser context at `viewport` (deviceScaleFactor 1), a page whose
+ * errors are collected, the app opened at a demo (`#demo=<id>`; null: the app's own start), and the
+ * results shown. The caller closes the context.
+ */
+export async function openDemo(
+  browser: Browser,
+  viewport: { width: number; height: number },
+  demo: string | null,
+  options: OpenDemoOptions,
+): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+  const context =
+    options.context ?? (await browser.newContext({ viewport, deviceScaleFactor: 1, locale: options.locale ?? 'en-US', colorScheme: options.colorScheme ?? 'light', ...options.contextOptions }));
+  if (options.initScript) await context.addInitScript(options.initScript);
+  const page = await context.newPage();
+  const errors = watchPageErrors(page);
+  await page.goto(demo === null ? options.baseUrl : `${options.baseUrl}#demo=${demo}`, { waitUntil: 'load' });
+  await page.getByTestId('results').waitFor();
+  return { context, page, errors };
 }
 
 /** Open a demo from the demo picker; on a narrow screen the picker is in the projects view, opened first. */

@@ -5,10 +5,10 @@
  * on an edit, follows the unit system, and fits a phone. Screenshots go to tests/.artifacts/.
  */
 import { join } from 'node:path';
-import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
+import type { Browser, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, type ServedApp, chooseSetting } from './harness.ts';
+import { VIEWPORTS, artifacts, openDemo as openDemoIn, serveBuiltApp, type ServedApp, chooseSetting } from './harness.ts';
 import { correctPowerFactor, demoProjects, formatBackupStudy, projectPumpDuty, runBackupStudy, solveProject } from '../../core/index.ts';
 import { lossCostPerYear } from '../../core/studies/economics.ts';
 import { formatDuration, formatEnergy, formatReactive, formatSignificant } from '../../web/format/number.ts';
@@ -43,18 +43,7 @@ describe.skipIf(skipWithout('chromium'))('the study panels in Chromium', () => {
     await app?.close();
   });
 
-  async function openDemo(
-    id: string,
-    viewport: { width: number; height: number },
-    colorScheme: 'light' | 'dark' = 'light',
-  ): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
-    const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', colorScheme });
-    const page = await context.newPage();
-    const errors = watchPageErrors(page);
-    await page.goto(`${baseUrl}#demo=${id}`, { waitUntil: 'load' });
-    await page.getByTestId('results').waitFor();
-    return { context, page, errors };
-  }
+  const openDemo = (id: string, viewport: { width: number; height: number }, colorScheme: 'light' | 'dark' = 'light') => openDemoIn(browser!, viewport, id, { baseUrl, colorScheme });
 
   async function openPanel(page: Page, id: 'battery' | 'conductor' | 'machines'): Promise<Locator> {
     const panel = page.getByTestId(`panel-${id}`);

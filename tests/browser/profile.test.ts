@@ -12,7 +12,7 @@ import { join } from 'node:path';
 import type { BrowserContext, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, seriousAxeViolations, serveBuiltApp, showProjectsView, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, openDemo, seriousAxeViolations, serveBuiltApp, showProjectsView, type ServedApp } from './harness.ts';
 import { demoProjects } from '../../core/index.ts';
 import { runParsed, type SolveRequest } from '../../core/cli/run.ts';
 import { parseArgs } from '../../core/cli/args.ts';
@@ -88,10 +88,8 @@ describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', 
 
   /** A fresh page with the empty-study project imported and the battery panel open. */
   async function openEmptyStudy(context: BrowserContext, touch: boolean): Promise<{ page: Page; errors: string[]; body: Locator }> {
-    const page = await context.newPage();
-    const errors = watchPageErrors(page);
-    await page.goto(app!.baseUrl, { waitUntil: 'load' });
-    await page.getByTestId('results').waitFor();
+    // The context's own viewport and options (the caller made it: touch or not).
+    const { page, errors } = await openDemo(app!.browser, VIEWPORTS.desktop, null, { baseUrl: app!.baseUrl, context });
     await showProjectsView(page);
     const file = JSON.stringify(fridgeAndLightsProject({ kind: 'constant' }));
     await page.getByTestId('open-file').setInputFiles({ name: 'fridge-and-lights.json', mimeType: 'application/json', buffer: Buffer.from(file) });
@@ -318,12 +316,8 @@ describe.skipIf(skipWithout('chromium'))('the load profile editor in Chromium', 
   });
 
   it('shows the hillside demo’s profile and edits it: a level as a share of the rating, a bad value kept at its field', async () => {
-    const context = await app!.browser.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US', colorScheme: 'dark' });
+    const { context, page, errors } = await openDemo(app!.browser, VIEWPORTS.desktop, 'hillside-relay-hut', { baseUrl: app!.baseUrl, colorScheme: 'dark' });
     try {
-      const page = await context.newPage();
-      const errors = watchPageErrors(page);
-      await page.goto(`${app!.baseUrl}#demo=hillside-relay-hut`, { waitUntil: 'load' });
-      await page.getByTestId('results').waitFor();
       await page.getByTestId('panel-battery').locator('summary').click();
       const body = page.getByTestId('battery-panel');
       await body.waitFor();

@@ -11,10 +11,10 @@
  * B.9, °C = (°F − 32) / 1.8); the cost as losses × hours × price (tests/core/running-cost.test.ts).
  */
 import { join } from 'node:path';
-import type { Browser, BrowserContext, Locator, Page } from 'playwright-core';
+import type { Browser, Locator, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, answersSettled, artifacts, chooseSetting, seriousAxeViolations, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, answersSettled, artifacts, chooseSetting, openDemo as openDemoIn, seriousAxeViolations, serveBuiltApp, type ServedApp } from './harness.ts';
 import { demoProjects, runBackupStudy, solveProject } from '../../core/index.ts';
 import { lossCostPerYear } from '../../core/studies/economics.ts';
 import { formatDuration, formatEnergy, formatSignificant, formatVoltage } from '../../web/format/number.ts';
@@ -58,22 +58,13 @@ describe.skipIf(skipWithout('chromium'))('study inputs in Chromium', () => {
     await app?.close();
   });
 
-  async function openDemo(
-    id: string,
-    viewport: { width: number; height: number },
-    opts: { colorScheme?: 'light' | 'dark'; devicePrice?: { pricePerKWh: number; hoursPerYear: number } } = {},
-  ): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
-    const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', colorScheme: opts.colorScheme ?? 'light' });
-    if (opts.devicePrice) {
+  const openDemo = (id: string, viewport: { width: number; height: number }, opts: { colorScheme?: 'light' | 'dark'; devicePrice?: { pricePerKWh: number; hoursPerYear: number } } = {}) =>
+    openDemoIn(browser!, viewport, id, {
+      baseUrl,
+      colorScheme: opts.colorScheme ?? 'light',
       // The price and hours as the page kept them on the device before they moved into the project.
-      await context.addInitScript(`localStorage.setItem('joulepath.cost.v1', ${JSON.stringify(JSON.stringify(opts.devicePrice))})`);
-    }
-    const page = await context.newPage();
-    const errors = watchPageErrors(page);
-    await page.goto(`${baseUrl}#demo=${id}`, { waitUntil: 'load' });
-    await page.getByTestId('results').waitFor();
-    return { context, page, errors };
-  }
+      ...(opts.devicePrice ? { initScript: `localStorage.setItem('joulepath.cost.v1', ${JSON.stringify(JSON.stringify(opts.devicePrice))})` } : {}),
+    });
 
   async function openPanel(page: Page, id: 'battery' | 'machines'): Promise<Locator> {
     const panel = page.getByTestId(`panel-${id}`);

@@ -32,6 +32,11 @@ function checkForm(kind: string, fields: readonly FieldSpec[]): string[] {
       if (!PER_SYSTEM[f.path]!.test(f.label)) wrong.push(`${kind}.${f.path}: form "${f.label}"`);
       continue;
     }
+    // The element base's fields (the purchase price) are every kind's: the table words them once (fieldLabel).
+    if (kind !== 'project' && f.path === 'price' && table[f.path] === undefined) {
+      if (fieldLabel(kind, f.path) !== f.label) wrong.push(`${kind}.${f.path}: form "${f.label}", table "${fieldLabel(kind, f.path)}"`);
+      continue;
+    }
     if (table[f.path] !== f.label) wrong.push(`${kind}.${f.path}: form "${f.label}", table "${table[f.path] ?? '(none)'}"`);
   }
   return wrong;

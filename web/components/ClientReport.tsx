@@ -35,6 +35,7 @@ import { ShareLink } from './report/ShareLink.tsx';
 import { ReportModes, ReportModesCautions, ReportModesMethod } from './report/ReportModes.tsx';
 import { hasBankOnBus } from './modes/mode-state.ts';
 import { ReportVariants } from './report/ReportVariants.tsx';
+import { ReportLifetime } from './report/ReportLifetime.tsx';
 
 /** The caution every report carries (results are planning estimates). */
 export const REPORT_CAUTION =
@@ -179,6 +180,7 @@ const ReportBody = memo(function ReportBody({
         {/* The answers first, in the client's words (web/components/answers/ReportAnswers.tsx). */}
         <ReportAnswers solved={solved} />
         <ReportVariants solved={solved} />
+        <ReportLifetime solved={solved} locale={loc} />
         <div class="report__columns">
           <section>
             <h2>The chain</h2>

@@ -2,7 +2,8 @@
  * The machines panel: motors (load, efficiency and power factor at the operating point, the NEC
  * Table 430.250 current), drives (operating point, losses, true power factor), pumps (operating
  * point), the project's pump duty study (energy per year by drive, throttle and on-off), a
- * power-factor correction control for any AC interface, and what the losses cost per year.
+ * power-factor correction control for any AC interface, what the losses cost per year, and the cost
+ * over the years (web/components/cost/: lifetime cost, CO₂, generator fuel).
  * Loaded on demand.
  *
  * Every figure comes from core (machineDetails, pumpDetails, projectPumpDuty, correctPowerFactor,
@@ -18,6 +19,7 @@ import { useWorkerReply } from './panel-client.ts';
 import { costInForce, effectiveLocale, unitSystem } from '../state/prefs.ts';
 import { draft, outcome, resultsState } from '../state/editor.ts';
 import { LossCost } from './machines/LossCost.tsx';
+import { CostOverYears } from './cost/CostOverYears.tsx';
 import { DriveCard, MotorCard, PumpCard } from './machines/MachineCards.tsx';
 import { PfCorrectionControl } from './machines/PfCorrection.tsx';
 import { PumpDuty } from './machines/PumpDutyStudy.tsx';
@@ -51,7 +53,7 @@ export default function MachinesPanel() {
   const crash = reply?.kind === 'crash' ? reply.message : null;
   const stale = !result || resultsState.value === 'stale' || problems.length > 0;
   if (!shown) return <p class="note" data-testid="machines-panel" data-state={pending ? 'pending' : 'none'}>{crash ?? 'Working out the figures…'}</p>;
-  const { motors, drives, pumps, fans, pumpDuty, lossCost } = shown.figures;
+  const { motors, drives, pumps, fans, pumpDuty, lossCost, lifetime } = shown.figures;
   return (
     <div class={stale ? 'panel-body panel-body--stale' : 'panel-body'} data-testid="machines-panel" data-state={pending ? 'pending' : stale ? 'stale' : 'current'} data-study-ms={reply ? reply.ms.toFixed(2) : ''}>
       {stale && (
@@ -83,6 +85,7 @@ export default function MachinesPanel() {
       {pumpDuty && <PumpDuty duty={pumpDuty} locale={locale} units={units} />}
       <PfCorrectionControl solved={shown.solved} locale={locale} />
       {draft.value && <LossCost lossCost={lossCost} project={draft.value} units={units} locale={locale} />}
+      {draft.value && <CostOverYears lifetime={lifetime} project={draft.value} solved={shown.solved} units={units} locale={locale} />}
     </div>
   );
 }

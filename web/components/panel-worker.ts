@@ -13,7 +13,7 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers } from '../../core/studies/index.ts';
+import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, lifetimeCost, lifetimeSettingsOf, type LifetimeOutcome, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers } from '../../core/studies/index.ts';
 import { elementNames, nonFiniteProblems, type Problem, type Solved, type SolveResult } from '../../core/page.ts';
 import { compareColumns, flowGraph, solveColumns, type FlowGraph, type VariantComparison } from '../../core/studies/index.ts';
 import type { ProjectVariant } from '../../core/page.ts';
@@ -27,7 +27,9 @@ export type PanelRequest =
   /** A bank on a bus: the on-battery solve and the modes study (web/components/modes/). */
   | { kind: 'modes'; solved: Solved }
   /** The project's variants side by side (web/components/variants/): the comparison and each column's energy flow. */
-  | { kind: 'variants'; solved: Solved; variants: ProjectVariant[]; cost: CostSettings | null };
+  | { kind: 'variants'; solved: Solved; variants: ProjectVariant[]; cost: CostSettings | null }
+  /** The cost over the years alone (the client report's table, web/components/report/ReportLifetime.tsx). */
+  | { kind: 'lifetime'; solved: Solved };
 
 /** The comparison of the variants, and each column's energy-flow graph (null where the column was not solved). */
 export interface VariantsReply {
@@ -41,6 +43,11 @@ export interface ModesReply {
   outcome:
     | { ok: true; battery: { ok: true; result: SolveResult; project: Solved['project'] } | { ok: false; problems: Problem[] }; study: { ok: true; study: ModesStudyResult } | { ok: false; problems: Problem[] } }
     | { ok: false; problems: Problem[] };
+}
+
+export interface LifetimeReply {
+  kind: 'lifetime';
+  outcome: LifetimeOutcome;
 }
 
 export interface AnswersReply {
@@ -60,6 +67,8 @@ export interface MachinesFigures {
   fans: FanDetail[];
   pumpDuty?: { ok: true; result: PumpControlResult; costs?: MethodCosts } | { ok: false; problems: Problem[] };
   lossCost?: { ok: true; cost: LossCost } | { ok: false; problems: Problem[] };
+  /** The cost over the years (core's lifetimeCost), when the project gives the energy price and the years of service. */
+  lifetime?: LifetimeOutcome;
 }
 
 export interface MachinesReply {
@@ -75,7 +84,7 @@ export interface PfcReply {
   outcome: { ok: true; correction: PfCorrectionShown } | { ok: false; problems: Problem[] };
 }
 
-export type PanelReply = (BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | VariantsReply | { kind: 'crash'; message: string }) & {
+export type PanelReply = (BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | VariantsReply | LifetimeReply | { kind: 'crash'; message: string }) & {
   /** Time the work took in the worker, ms. */
   ms: number;
 };
@@ -111,9 +120,27 @@ function machines(solved: Solved, cost: CostSettings | null): MachinesReply {
     } else figures.pumpDuty = { ok: false, problems: f.problems };
   }
   if (cost) figures.lossCost = lossCostPerYear(result, cost);
+  if (lifetimeSettingsOf(project)) figures.lifetime = lifetimeCost(solved, undefined, rechargeRun(solved));
   const notFinite = nonFiniteProblems('The machines study', figures, elementNames(project));
   if (notFinite.length) return { kind: 'machines', outcome: { ok: false, problems: notFinite } };
   return { kind: 'machines', outcome: { ok: true, figures } };
+}
+
+/** The recharge after one outage for the generator's fuel (the backup study's, as the command line takes it), when the project counts outages and has a bank. */
+function rechargeRun(solved: Solved): { energyWh: number; timeSeconds: number } | undefined {
+  if (!(solved.project.running?.generator?.outagesPerYear ?? 0)) return undefined;
+  if (!solved.project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined)) return undefined;
+  const o = runBackupStudy(solved);
+  const rc = o.ok ? o.study.recharge : undefined;
+  return rc ? { energyWh: rc.acInputEnergyWh, timeSeconds: rc.time } : undefined;
+}
+
+/** The cost over the years of a solved pair (core's lifetimeCost, the recharge as the machines panel takes it), refused when not all finite. */
+function lifetime(solved: Solved): LifetimeReply {
+  const o = lifetimeCost(solved, undefined, rechargeRun(solved));
+  if (!o.ok) return { kind: 'lifetime', outcome: o };
+  const notFinite = nonFiniteProblems('The cost over the years', o.cost, elementNames(solved.project));
+  return { kind: 'lifetime', outcome: notFinite.length ? { ok: false, problems: notFinite } : o };
 }
 
 function pfc(solved: Solved, at: string, targetPowerFactor: number): PfcReply {
@@ -169,7 +196,7 @@ const scope = globalThis as unknown as {
 scope.onmessage = (event) => {
   const { id, request } = event.data;
   const t0 = performance.now();
-  let reply: BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | VariantsReply | { kind: 'crash'; message: string };
+  let reply: BatteryReply | MachinesReply | PfcReply | AnswersReply | ModesReply | VariantsReply | LifetimeReply | { kind: 'crash'; message: string };
   try {
     switch (request.kind) {
       case 'battery':
@@ -189,6 +216,9 @@ scope.onmessage = (event) => {
         break;
       case 'variants':
         reply = variants(request.solved, request.variants, request.cost);
+        break;
+      case 'lifetime':
+        reply = lifetime(request.solved);
         break;
     }
   } catch (error) {

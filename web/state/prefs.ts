@@ -197,13 +197,6 @@ effect(() => {
   }
 });
 
-/** Why a cost setting cannot be taken (the same limits parseCostPrefs applies), or null. */
-export function costPrefProblem(field: 'pricePerKWh' | 'hoursPerYear', value: number): string | null {
-  if (!Number.isFinite(value)) return 'must be a number';
-  if (field === 'pricePerKWh') return value < 0 ? 'the energy price must not be negative' : null;
-  return value < 0 || value > 8784 ? 'the hours per year must be between 0 and 8784 (a leap year; 8760 runs all year)' : null;
-}
-
 /** Hours in a common year (365 × 24): a project's `running` without hours runs all year (core/studies/economics.ts). */
 const ALL_YEAR_H = 8760;
 

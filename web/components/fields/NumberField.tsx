@@ -84,9 +84,9 @@ export function NumberField({ owner, spec, compact = false }: { owner: FieldOwne
         }}
         onInput={onInput}
       />
-      {unit.symbol && (
+      {(spec.unitText?.(locale) ?? unit.symbol) && (
         <span class="sf-unit" aria-hidden="true">
-          {unit.symbol}
+          {spec.unitText?.(locale) ?? unit.symbol}
         </span>
       )}
     </span>

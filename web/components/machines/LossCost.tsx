@@ -16,7 +16,8 @@ import { type Locale, ProblemLines } from './shared.tsx';
 import { CsvButton } from '../report/CsvButton.tsx';
 import { SettingField } from '../SettingField.tsx';
 
-type RunningKey = 'energyPricePerKWh' | 'hoursPerYear';
+/** A key of the project's `running` settings (the cost over the years writes its own through here too, web/components/cost/). */
+type RunningKey = 'energyPricePerKWh' | 'hoursPerYear' | 'nightPricePerKWh' | 'dayStartHour' | 'dayEndHour' | 'years' | 'discountRate' | 'gridCo2KgPerKWh' | 'generator' | `generator.${string}`;
 const PRICE_LABEL = 'Energy price per kWh';
 const HOURS_LABEL = 'Hours per year at this load';
 
@@ -25,26 +26,26 @@ const HOURS_LABEL = 'Hours per year at this load';
  * value typed and the other setting as shown (carried over from this device), so what the page showed
  * is what the file then holds. The device's setting follows the last value taken (a new project starts there).
  */
-export function writeRunning(project: DraftProject, key: RunningKey, value: number | undefined, label: string): string | null {
+export function writeRunning(project: DraftProject, key: RunningKey, value: unknown, label: string, undoWords = 'Running cost'): string | null {
   const path = `running.${key}`;
   const own = project['running'];
   let message: string | null;
   if (typeof own === 'object' && own !== null) {
-    message = setField(PROJECT_LEVEL, path, value, `Running cost: ${label.toLowerCase()}`);
+    message = setField(PROJECT_LEVEL, path, value, `${undoWords}: ${label.toLowerCase()}`);
   } else {
     const shown = runningInForce(project);
-    const running: Record<string, number> = { hoursPerYear: shown.hours };
+    const running: Record<string, unknown> = { hoursPerYear: shown.hours };
     if (shown.price !== null) running['energyPricePerKWh'] = shown.price;
     if (value === undefined) delete running[key];
     else running[key] = value;
-    message = setField(PROJECT_LEVEL, 'running', running, `Running cost: ${label.toLowerCase()}`);
+    message = setField(PROJECT_LEVEL, 'running', running, `${undoWords}: ${label.toLowerCase()}`);
     // The message belongs at the field typed in, not at the object.
     setFieldError(PROJECT_LEVEL, 'running', null);
     setFieldError(PROJECT_LEVEL, path, message);
   }
   if (message === null) {
-    if (key === 'energyPricePerKWh') energyPrice.value = value ?? null;
-    else operatingHours.value = value ?? 8760;
+    if (key === 'energyPricePerKWh') energyPrice.value = typeof value === 'number' ? value : null;
+    else if (key === 'hoursPerYear') operatingHours.value = typeof value === 'number' ? value : 8760;
   }
   return message;
 }

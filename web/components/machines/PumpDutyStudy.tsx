@@ -9,7 +9,7 @@ import { formatEnergy, formatPercent, formatPower, formatSignificant, UNIT_GAP }
 import { inputUnit } from '../../format/parse.ts';
 import type { UnitSystem } from '../../format/units.ts';
 import { formatMoney } from '../../format/panels.ts';
-import { type Locale, ProblemLines } from './shared.tsx';
+import { type Locale, ProblemLines, ScrollTable } from './shared.tsx';
 import { CsvButton } from '../report/CsvButton.tsx';
 
 type Shown = Extract<NonNullable<MachinesFigures['pumpDuty']>, { ok: true }>;
@@ -58,7 +58,7 @@ export function PumpDuty({ duty, locale, units }: { duty: NonNullable<MachinesFi
         {formatSignificant(f.totalHours, 5, locale)}
         {UNIT_GAP}h a year over {f.points.length} duty points. Method: {f.method}.
       </p>
-      <div class="table-scroll" role="region" aria-labelledby="pump-duty-heading" tabIndex={0}>
+      <ScrollTable labelledBy="pump-duty-heading">
         <table class="data panel-table" data-testid="pump-duty-table">
           <thead>
             <tr>
@@ -79,7 +79,7 @@ export function PumpDuty({ duty, locale, units }: { duty: NonNullable<MachinesFi
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollTable>
       <PointsTable points={f.points} fan={fan} units={units} locale={locale} />
       <p class="panel-headline" data-testid="pump-duty-savings">
         The drive saves {formatEnergy(f.savingVsThrottleWh, locale)} a year against {fixed} ({formatPercent(f.savingVsThrottleFraction, locale, 3)})
@@ -114,11 +114,7 @@ export function PumpDuty({ duty, locale, units }: { duty: NonNullable<MachinesFi
 function PointsTable({ points, fan, units, locale }: { points: Shown['result']['points']; fan: boolean; units: UnitSystem; locale: Locale }) {
   const flowUnit = inputUnit(fan ? 'air-flow' : 'flow', units);
   return (
-    <>
-      <p id="duty-points-caption" class="note">
-        At each duty point: the drive's speed and the input power of each method.
-      </p>
-      <div class="table-scroll" role="region" aria-labelledby="duty-points-caption" tabIndex={0}>
+    <ScrollTable labelledBy="duty-points-caption" caption="At each duty point: the drive's speed and the input power of each method.">
         <table class="data panel-table" data-testid="duty-points-table">
           <thead>
             <tr>
@@ -152,7 +148,6 @@ function PointsTable({ points, fan, units, locale }: { points: Shown['result']['
             ))}
           </tbody>
         </table>
-      </div>
-    </>
+    </ScrollTable>
   );
 }

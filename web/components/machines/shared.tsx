@@ -1,6 +1,8 @@
 /**
- * What the machines panel's parts share: the locale type and the refusals of a study, worded for the user.
+ * What the machines panel's parts share: the locale type, the refusals of a study worded for the user,
+ * and a results table's scrolling box.
  */
+import type { ComponentChildren } from 'preact';
 import type { Problem } from '../../../core/page.ts';
 import { draft } from '../../state/editor.ts';
 import { problemLine } from '../problem-words.ts';
@@ -19,5 +21,25 @@ export function ProblemLines({ problems }: { problems: Problem[] }) {
         ))}
       </ul>
     </div>
+  );
+}
+
+/**
+ * A results table's scrolling box, named by its heading or by a caption line above it (given `caption`,
+ * the line is written here with the id `labelledBy`): a keyboard user can scroll it (tabIndex 0), and a
+ * screen reader hears the region's name.
+ */
+export function ScrollTable({ labelledBy, caption, children }: { labelledBy: string; caption?: ComponentChildren; children: ComponentChildren }) {
+  return (
+    <>
+      {caption !== undefined && (
+        <p id={labelledBy} class="note">
+          {caption}
+        </p>
+      )}
+      <div class="table-scroll" role="region" aria-labelledby={labelledBy} tabIndex={0}>
+        {children}
+      </div>
+    </>
   );
 }

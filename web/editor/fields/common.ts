@@ -4,6 +4,7 @@
  * Part of the form descriptors; web/editor/fields.ts is their entry (today's exports, callers import it).
  */
 import type { Quantity } from '../../format/parse.ts';
+import { currencySymbol } from '../../format/panels.ts';
 import type { ChoiceSpec, FieldSpec, FormElement, GroupSpec, NumberSpec, PointsColumn, PointsSpec, TextSpec } from './types.ts';
 
 /** The value at a dotted path. */
@@ -21,6 +22,20 @@ const num = (v: unknown): number | undefined => (typeof v === 'number' && Number
 export const remove = (e: FormElement, ...keys: string[]) => keys.forEach((k) => delete e[k]);
 
 export const name: TextSpec = { type: 'text', path: 'name', label: 'Name', required: false, help: 'What you call it on site, e.g. "Inverter to hut board".' };
+
+/**
+ * The element base's purchase price (every kind's form, last: a field few fill in): in the user's own
+ * currency, the symbol their number format writes (as the energy price); the cost over the years sums it.
+ */
+export const purchasePrice: NumberSpec = {
+  type: 'number',
+  path: 'price',
+  label: 'Purchase price',
+  quantity: 'ratio',
+  required: false,
+  help: 'What it costs to buy, in your currency: the cost over the years adds it to the lifetime cost.',
+  unitText: (locale) => currencySymbol(locale),
+};
 
 export const percentOf = (what: string) => `${what} (%)`;
 

@@ -5,14 +5,14 @@
  */
 import { type ElementKind, KINDS } from '../../../core/page.ts';
 import { cableForm } from './cable.ts';
-import { valueAt } from './common.ts';
+import { purchasePrice, valueAt } from './common.ts';
 import { dcBusForm, dcDcForm, genericForm, inverterForm, rectifierForm, transformerForm } from './converters.ts';
 import { acCurrentLoadForm, acLoadForm, acVaLoadForm, dcCurrentLoadForm, dcLoadForm, fanForm, networkLoadForm, pumpForm, shaftLoadForm } from './loads.ts';
 import { driveForm, motorForm } from './machines.ts';
 import { acSource, batteryForm } from './sources.ts';
 import type { FieldSpec, FormElement, KindForm } from './types.ts';
 
-export const KIND_FORMS: Readonly<Record<ElementKind, KindForm>> = {
+const OWN_FORMS: Readonly<Record<ElementKind, KindForm>> = {
   grid: acSource('grid'),
   generator: acSource('generator'),
   battery: batteryForm,
@@ -35,6 +35,11 @@ export const KIND_FORMS: Readonly<Record<ElementKind, KindForm>> = {
   pump: pumpForm,
   fan: fanForm,
 };
+
+/** Every kind's form: its own fields, then the element base's purchase price (the less-used end of the form). */
+export const KIND_FORMS: Readonly<Record<ElementKind, KindForm>> = Object.fromEntries(
+  Object.entries(OWN_FORMS).map(([kind, form]) => [kind, { ...form, fields: [...form.fields, purchasePrice] }]),
+) as unknown as Record<ElementKind, KindForm>;
 
 /** The form of a kind, or undefined for a kind the engine does not know. */
 export function formFor(kind: string): KindForm | undefined {

@@ -41,6 +41,8 @@ export interface NumberSpec extends FieldBase {
   default?: number;
   /** SI value that applies when the field is left empty (shown as the input's placeholder). */
   placeholder?: (e: FormElement) => number | undefined;
+  /** The unit beside the input when not the quantity's own (a price in the locale's currency). */
+  unitText?: (locale: string | undefined) => string;
 }
 
 export interface ChoiceSpec extends FieldBase {
