@@ -11,8 +11,9 @@
  *   (core/data/standby-charge.ts; 1.1 lead-acid from memory). Modules: n = ⌈A ÷ module⌉, plus one for
  *   N+1 redundancy. The recharge case (the bank drawing k·C/H) is solved as a variant; the supply
  *   current and the supply-side cable sizes are that case's (the worst case, not the float case).
- * - Standing losses on supply: every loss of the on-supply solve (conversion, idle, cables, the
- *   source's own) plus the bank's float power, held for the hours the supply is on per year
+ * - Standing losses on supply: every loss of the on-supply solve (conversion, idle, cables, transfer
+ *   switches (contact I²R and control power, core/kinds/transfer-switch.ts), the source's own) plus the
+ *   bank's float power, held for the hours the supply is on per year
  *   (8760 − outage hours): E = P·t, cost = E in kWh × price (core/studies/economics.ts's method).
  * - Transfer: the bank on float holds the EMF E_f = V_float − I_float·R (its terminal voltage on
  *   supply less the float current's drop in its internal resistance R, Thévenin model); the moment
@@ -33,6 +34,7 @@ import { solveVariant } from '../../solve/variant.ts';
 import { onBatteryChange, rechargeChange, solveModes, type BankPlace, type Modes } from '../../solve/modes.ts';
 import { HOURS_IN_YEAR, costSettingsOf } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
+import { switchWorking, type SwitchTransfer } from './switches.ts';
 
 /** Target recharge time when none is given, h (common practice: 8–12 h for a standby lead-acid plant). */
 export const DEFAULT_RECHARGE_HOURS = 8;
@@ -93,6 +95,8 @@ export interface StandingLosses {
   conversion: number;
   idle: number;
   cables: number;
+  /** Transfer switches (contact I²R and control power), W. */
+  switches: number;
   source: number;
   bankFloat: number;
   total: number;
@@ -131,6 +135,8 @@ export interface ModesStudyResult {
   charger: RectifierSizing;
   standing: StandingLosses;
   transfer: Transfer | null;
+  /** The transfer switches: their losses in both modes, transfer time and the break their loads see. */
+  switches: SwitchTransfer[];
   /**
    * Cables whose size differs between the cases (each case sizes the cables it carries for its own
    * current: on supply at float, on supply recharging, on battery); `use` is the largest (by area).
@@ -230,18 +236,20 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   let conversion = 0;
   let idle = 0;
   let cables = 0;
+  let switches = 0;
   let source = 0;
   for (const e of supply.elements) {
     if (e.role === 'load') continue;
     if (e.role === 'source') source += e.loss;
     else if (e.kind === 'cable') cables += e.loss;
+    else if (e.kind === 'transfer-switch') switches += e.loss;
     else {
       idle += e.idleLoss ?? 0;
       conversion += e.loss - (e.idleLoss ?? 0);
     }
   }
   const bankFloat = bankRes.pIn;
-  const total = conversion + idle + cables + source + bankFloat;
+  const total = conversion + idle + cables + switches + source + bankFloat;
   const outage = settings.outageHoursPerYear ?? 0;
   const onHours = hoursOnSupply(outage);
   const energyKWh = (total * onHours) / 1000;
@@ -249,6 +257,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     conversion,
     idle,
     cables,
+    switches,
     source,
     bankFloat,
     total,
@@ -337,6 +346,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
       charger: chargerSizing,
       standing,
       transfer,
+      switches: switchWorking(project.elements, place, supply, modes.battery.ok ? modes.battery.result : undefined),
       cableSizes,
       warnings,
       cautions: [

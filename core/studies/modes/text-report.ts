@@ -39,7 +39,7 @@ export function formatModesStudy(s: ModesStudyResult): string {
 
   const st = s.standing;
   out.push('', 'Cost of standing by (on supply)');
-  out.push(`  Standing losses ${w(st.total)}: conversion ${w(st.conversion)}, idle ${w(st.idle)}, cables ${w(st.cables)}, supply ${w(st.source)}, bank float ${w(st.bankFloat)}`);
+  out.push(`  Standing losses ${w(st.total)}: conversion ${w(st.conversion)}, idle ${w(st.idle)}, cables ${w(st.cables)}, ${st.switches > 0 ? `transfer switches ${w(st.switches)}, ` : ''}supply ${w(st.source)}, bank float ${w(st.bankFloat)}`);
   out.push(`  ${sigText(st.hoursOnSupply, 4)} h a year on supply (${sigText(st.outageHoursPerYear, 3)} h of outage expected): ${sigText(st.energyKWh, 4)} kWh a year${st.cost !== undefined ? `, ${figure(st.cost, 2)} a year at ${sigText(st.pricePerKWh!, 3)} per kWh` : ''}`);
 
   const t = s.transfer;
@@ -48,6 +48,9 @@ export function formatModesStudy(s: ModesStudyResult): string {
     out.push(`  Bank on float: ${a(t.floatCurrent)} in (${t.floatCurrentNote}), EMF ${v(t.floatEmf)} behind ${sigText(t.internalResistance * 1000, 3)} mΩ`);
     out.push(`  At transfer: ${a(t.currentAtTransfer)} out, a step of ${a(t.currentStep)} (maximum discharge current ${a(t.maxDischargeCurrent)})`);
     out.push(`  Bus voltage: ${v(t.busVoltageOnSupply)} on supply, ${v(t.busVoltageAtTransfer)} at transfer${t.busVoltageSettled !== null ? `, ${v(t.busVoltageSettled)} settled on battery` : ''}`);
+  }
+  for (const k of s.switches) {
+    out.push(`  ${k.name}: ${w(k.lossOnSupply)} on supply${k.lossOnBattery !== null ? `, ${w(k.lossOnBattery)} on battery` : ''}; ${k.note}`);
   }
   if (s.cableSizes.length) {
     out.push('', 'Cables sized differently in the cases (use the largest)');
