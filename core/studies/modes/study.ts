@@ -15,6 +15,9 @@
  *   switches (contact I²R and control power, core/kinds/transfer-switch.ts), the source's own) plus the
  *   bank's float power, held for the hours the supply is on per year
  *   (8760 − outage hours): E = P·t, cost = E in kWh × price (core/studies/economics.ts's method).
+ * - On supply with an inverter-charger passing the supply through (core/solve/modes.ts): the on-supply
+ *   solve is that variant (its relay feeds the loads from the charger's feed; the inverter stays on the
+ *   bus at its idle draw); a warning when the loads' current through the relay exceeds the limit.
  * - Transfer: the bank on float holds the EMF E_f = V_float − I_float·R (its terminal voltage on
  *   supply less the float current's drop in its internal resistance R, Thévenin model); the moment
  *   the supply is cut it carries the bus from that EMF: the on-battery chain solved with a bank of
@@ -25,13 +28,12 @@
 import type { BatterySource, Element } from '../../model/project.ts';
 import type { ElementResult, SolveResult } from '../../model/result.ts';
 import type { Problem } from '../../model/errors.ts';
-import { say, q, type Worded } from '../../model/message.ts';
+import { say, q, sigText, type Worded } from '../../model/message.ts';
 import { resolveBank } from '../../physics/bank.ts';
 import { STANDBY_CHARGE } from '../../data/standby-charge.ts';
-import { isPassive } from '../../kinds/index.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveVariant } from '../../solve/variant.ts';
-import { onBatteryChange, rechargeChange, solveModes, type BankPlace, type Modes } from '../../solve/modes.ts';
+import { chargerOf, onBatteryChange, rechargeChange, solveModes, type BankPlace, type Modes } from '../../solve/modes.ts';
 import { HOURS_IN_YEAR, costSettingsOf } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
 import { switchWorking, type SwitchTransfer } from './switches.ts';
@@ -125,6 +127,18 @@ export interface Transfer {
   maxDischargeCurrent: number;
 }
 
+/** An inverter-charger passing the supply through on supply (core/solve/modes.ts, `passThroughChange`). */
+export interface PassThroughWorking {
+  inverterId: string;
+  inverterName: string;
+  /** Its pass-through limit and the current its loads take through the relay on supply, A. */
+  limit: number;
+  current: number;
+  /** The inverter's idle draw, kept on the bus while it passes the supply through, W. */
+  inverterIdle: number;
+  note: string;
+}
+
 export interface ModesStudyResult {
   place: BankPlace;
   bankName: string;
@@ -135,6 +149,8 @@ export interface ModesStudyResult {
   charger: RectifierSizing;
   standing: StandingLosses;
   transfer: Transfer | null;
+  /** Inverter-chargers passing the supply through on supply (absent when none has a pass-through limit). */
+  passThrough?: PassThroughWorking[];
   /** The transfer switches: their losses in both modes, transfer time and the break their loads see. */
   switches: SwitchTransfer[];
   /**
@@ -169,7 +185,8 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   const settings = project.standby ?? {};
   // The price the cost of the losses uses (a night price gives the day's mean: economics.ts).
   const price = costSettingsOf(project)?.pricePerKWh;
-  const supply = solved.result;
+  // On supply: the file as drawn, or the variant in which an inverter-charger passes the supply through.
+  const supply = modes.supply.result;
   const el = byId(supply);
   const bankEl = project.elements.find((e): e is BatterySource => e.id === place.bankId && e.kind === 'battery')!;
   const spec = bankEl.bank!;
@@ -188,7 +205,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   const H = settings.targetRechargeHours ?? DEFAULT_RECHARGE_HOURS;
   const rechargeCurrent = (k * rechargeAh) / H;
   const required = loadCurrent + rechargeCurrent;
-  const charger = feederConverter(project.elements, place.busId);
+  const charger = chargerOf(project.elements, place.busId);
   const redundancy = settings.redundancy ?? 'n+1';
   let modules: RectifierSizing['modules'];
   if (settings.moduleCurrent !== undefined && settings.moduleCurrent > 0) {
@@ -199,7 +216,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   if (charger?.kind === 'rectifier' && charger.ratedOutputCurrent !== undefined && charger.ratedOutputCurrent < required) {
     warnings.push(say`the rated output current ${q(charger.ratedOutputCurrent, 'A')} of "${charger.name ?? charger.id}" is below the ${q(required, 'A')} it must give to carry the bus and recharge the bank in ${q(H, 'h')}`);
   }
-  const recharge = solveVariant(solved, rechargeChange(project, place, rechargeCurrent));
+  const recharge = solveVariant(modes.supply, rechargeChange(modes.supply.project, place, rechargeCurrent));
   const rechargeResult = recharge.ok ? recharge.result : undefined;
   let rechargeCase: RectifierSizing['rechargeCase'];
   if (recharge.ok) {
@@ -231,6 +248,37 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     ...(modules ? { modules } : {}),
     rechargeCase,
   };
+
+  // ---- an inverter-charger's pass-through (core/solve/modes.ts) ----
+  const passThrough: PassThroughWorking[] = [];
+  if (modes.passThrough) {
+    const pt = modes.passThrough;
+    const nameOf = (id: string): string => {
+      const e = project.elements.find((x) => x.id === id);
+      return e?.name ?? id;
+    };
+    for (const r of pt.refused) warnings.push({ message: `"${nameOf(r.inverterId)}" cannot pass the supply through to its loads: ${r.reason}; on supply it is taken to carry them itself` });
+    if (pt.problems) {
+      warnings.push({ message: `the supply cannot be passed through to the loads of ${pt.places.map((p) => `"${nameOf(p.inverterId)}"`).join(', ')}: ${pt.problems[0]?.message ?? 'the chain has no solution'}; on supply the inverter is taken to carry them itself` });
+    } else {
+      for (const p of pt.places) {
+        const name = nameOf(p.inverterId);
+        const current = el.get(p.relayId)?.input?.current ?? 0;
+        const idleKept = el.get(p.inverterId)?.loss ?? 0;
+        passThrough.push({
+          inverterId: p.inverterId,
+          inverterName: name,
+          limit: p.limit,
+          current,
+          inverterIdle: idleKept,
+          note: `on supply the transfer relay of "${name}" passes the supply straight to its loads: its conversion losses drop out; its idle draw (${sigText(idleKept, 4)} W) stays, taken to stay on, synchronised and ready to take the loads (a unit that switches its inverter off while passing through draws none: use the maker's figure); when the supply is cut the relay moves the loads onto the inverter: they see a break of the maker's transfer time`,
+        });
+        if (current > p.limit * (1 + 1e-9)) {
+          warnings.push(say`on supply the loads of "${name}" take ${q(current, 'A')} through its pass-through relay, above its pass-through limit ${q(p.limit, 'A')}`);
+        }
+      }
+    }
+  }
 
   // ---- standing losses on supply ----
   let conversion = 0;
@@ -346,6 +394,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
       charger: chargerSizing,
       standing,
       transfer,
+      ...(modes.passThrough ? { passThrough } : {}),
       switches: switchWorking(project.elements, place, supply, modes.battery.ok ? modes.battery.result : undefined),
       cableSizes,
       warnings,
@@ -355,19 +404,6 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
       ],
     },
   };
-}
-
-/** The first element above the bus that is not passive (the rectifier or charger feeding it), or null. */
-function feederConverter(elements: readonly Element[], busId: string): Element | null {
-  const byIdMap = new Map(elements.map((e) => [e.id, e]));
-  let at = byIdMap.get(busId);
-  const seen = new Set<string>();
-  while (at && 'from' in at && at.from !== undefined && !seen.has(at.id)) {
-    seen.add(at.id);
-    at = byIdMap.get(at.from);
-    if (at && !isPassive(at.kind)) return at;
-  }
-  return null;
 }
 
 /** Ids from the root down to the element (inclusive). */

@@ -37,6 +37,14 @@ export function formatModesStudy(s: ModesStudyResult): string {
     out.push(`  Recharge case cannot be solved: ${c.rechargeCase.problems[0]?.message ?? 'no solution'}`);
   }
 
+  if (s.passThrough?.length) {
+    out.push('', 'Pass-through on supply (inverter-charger)');
+    for (const p of s.passThrough) {
+      out.push(`  ${p.inverterName}: the loads take ${a(p.current)} through its relay (pass-through limit ${a(p.limit)}); inverter idle ${w(p.inverterIdle)}`);
+      out.push(`    ${p.note}`);
+    }
+  }
+
   const st = s.standing;
   out.push('', 'Cost of standing by (on supply)');
   out.push(`  Standing losses ${w(st.total)}: conversion ${w(st.conversion)}, idle ${w(st.idle)}, cables ${w(st.cables)}, ${st.switches > 0 ? `transfer switches ${w(st.switches)}, ` : ''}supply ${w(st.source)}, bank float ${w(st.bankFloat)}`);
