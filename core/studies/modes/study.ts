@@ -36,7 +36,7 @@ import { solveVariant } from '../../solve/variant.ts';
 import { chargerOf, onBatteryChange, rechargeChange, solveModes, type BankPlace, type Modes } from '../../solve/modes.ts';
 import { HOURS_IN_YEAR, costSettingsOf } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
-import { switchWorking, type SwitchTransfer } from './switches.ts';
+import { batteryPathWarnings, switchWorking, type SwitchTransfer } from './switches.ts';
 
 /** Target recharge time when none is given, h (common practice: 8–12 h for a standby lead-acid plant). */
 export const DEFAULT_RECHARGE_HOURS = 8;
@@ -361,7 +361,15 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     }
   }
   if (modes.battery.ok) {
-    for (const w of modes.battery.result.warnings) warnings.push({ message: `on battery: ${w.message}`, ...(w.template ? { template: `on battery: ${w.template}`, values: w.values ?? [] } : {}) });
+    // What the on-battery path cannot carry, each named with both figures (switches.ts); the solve's own
+    // rating warnings of those elements are then left out (the named one says it).
+    const path = batteryPathWarnings(project.elements, place, bankEl.name ?? bankEl.id, bank.maxDischargeCurrent, modes.battery.result);
+    const named = new Set(path.map((w) => w.elementId));
+    for (const { elementId: _id, ...w } of path) warnings.push(w);
+    for (const w of modes.battery.result.warnings) {
+      if (w.code === 'rating-exceeded' && named.has(w.elementId)) continue;
+      warnings.push({ message: `on battery: ${w.message}`, ...(w.template ? { template: `on battery: ${w.template}`, values: w.values ?? [] } : {}) });
+    }
   }
   if (problems.length) return { ok: false, problems };
 

@@ -97,12 +97,15 @@ const currentIn = (r: ElementResult | undefined): number | undefined => r?.input
  * discharge current, the inverters' ratings, the switches' rated currents, the cables' ampacity.
  * `battery` is the settled on-battery result; the bank's current at transfer is checked by the study.
  */
-export function batteryPathWarnings(elements: readonly Element[], place: BankPlace, bankName: string, maxDischargeCurrent: number, battery: SolveResult): Worded[] {
-  const warnings: Worded[] = [];
+export function batteryPathWarnings(elements: readonly Element[], place: BankPlace, bankName: string, maxDischargeCurrent: number, battery: SolveResult): (Worded & { elementId: string })[] {
+  const warnings: (Worded & { elementId: string })[] = [];
+  const push = (elementId: string, w: Worded): void => {
+    warnings.push({ elementId, ...w });
+  };
   const r = new Map(battery.elements.map((e) => [e.id, e]));
   const bankCurrent = r.get(place.bankId)?.output?.current;
   if (bankCurrent !== undefined && bankCurrent > maxDischargeCurrent * (1 + 1e-9)) {
-    warnings.push(say`on battery the loads take ${q(bankCurrent, 'A')} from the bank "${bankName}", above its maximum discharge current ${q(maxDischargeCurrent, 'A')}: the on-battery path cannot carry them`);
+    push(place.bankId, say`on battery the loads take ${q(bankCurrent, 'A')} from the bank "${bankName}", above its maximum discharge current ${q(maxDischargeCurrent, 'A')}: the on-battery path cannot carry them`);
   }
   for (const e of elements) {
     const res = r.get(e.id);
@@ -111,18 +114,18 @@ export function batteryPathWarnings(elements: readonly Element[], place: BankPla
     if (e.kind === 'inverter') {
       const rated = ratingOf(e);
       if (rated !== undefined && res.pOut > rated * (1 + 1e-9)) {
-        warnings.push(say`on battery the loads of "${name}" take ${q(res.pOut, 'W')}, above its rated output ${q(rated, 'W')}: the on-battery path cannot carry them`);
+        push(e.id, say`on battery the loads of "${name}" take ${q(res.pOut, 'W')}, above its rated output ${q(rated, 'W')}: the on-battery path cannot carry them`);
       }
     } else if (e.kind === 'transfer-switch' && e.ratedCurrent !== undefined) {
       const i = currentIn(res);
       if (i !== undefined && i > e.ratedCurrent * (1 + 1e-9)) {
-        warnings.push(say`on battery "${name}" carries ${q(i, 'A')}, above its rated current ${q(e.ratedCurrent, 'A')}: the on-battery path cannot carry its loads`);
+        push(e.id, say`on battery "${name}" carries ${q(i, 'A')}, above its rated current ${q(e.ratedCurrent, 'A')}: the on-battery path cannot carry its loads`);
       }
     } else if (e.kind === 'cable' && res.conductor) {
       const i = res.conductor.operatingCurrent;
       const ampacity = res.conductor.ampacity.total;
       if (i > ampacity * (1 + 1e-9)) {
-        warnings.push(say`on battery "${name}" carries ${q(i, 'A')}, above the ampacity ${q(ampacity, 'A')} of its ${res.conductor.size}: the on-battery path cannot carry its loads`);
+        push(e.id, say`on battery "${name}" carries ${q(i, 'A')}, above the ampacity ${q(ampacity, 'A')} of its ${res.conductor.size}: the on-battery path cannot carry its loads`);
       }
     }
   }
