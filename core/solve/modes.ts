@@ -24,7 +24,7 @@
  *
  * The same loads, converters and cables below the bus are solved in both modes. Each mode sizes the
  * cables it carries for its own currents (conductor specs set to "auto"); the modes study
- * (core/studies/modes/) lists both and the larger governs.
+ * (core/studies/modes/cables.ts) gives each cable the largest size its cases need.
  */
 import type { BatterySource, Element, InverterStage, Project } from '../model/project.ts';
 import type { SolveResult } from '../model/result.ts';

@@ -61,7 +61,7 @@ describe('--mode', () => {
     expect(Object.keys(j.modes).sort()).toEqual(['battery', 'study', 'supply']);
     expect(j.modes.battery.elements[0].id).toBe('bank');
     expect(j.modes.study.charger.requiredCurrent).toBeCloseTo(study.study.charger.requiredCurrent, 9);
-    expect(Object.keys(j.modes.study).sort()).toEqual(['bankName', 'battery', 'busName', 'cableSizes', 'cautions', 'charger', 'place', 'standing', 'supply', 'switches', 'transfer', 'warnings']);
+    expect(Object.keys(j.modes.study).sort()).toEqual(['bankName', 'battery', 'busName', 'cableSizes', 'cables', 'cautions', 'charger', 'place', 'standing', 'supply', 'switches', 'transfer', 'warnings']);
     expect(j.backupStudy.mode).toBe('battery');
     const jb = JSON.parse(run(FILE, '--json', '--mode', 'battery').stdout);
     expect(jb.mode).toBe('battery');

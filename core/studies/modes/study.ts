@@ -37,6 +37,7 @@ import { chargerOf, onBatteryChange, rechargeChange, solveModes, type BankPlace,
 import { HOURS_IN_YEAR, costSettingsOf } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
 import { batteryPathWarnings, switchWorking, type SwitchTransfer } from './switches.ts';
+import { cablesAcrossModes, type CableAcrossModes } from './cables.ts';
 
 /** Target recharge time when none is given, h (common practice: 8–12 h for a standby lead-acid plant). */
 export const DEFAULT_RECHARGE_HOURS = 8;
@@ -154,7 +155,13 @@ export interface ModesStudyResult {
   /** The transfer switches: their losses in both modes, transfer time and the break their loads see. */
   switches: SwitchTransfer[];
   /**
-   * Cables whose size differs between the cases (each case sizes the cables it carries for its own
+   * Every sized cable's one size across the modes: its size in each case (on supply at float, on
+   * battery, on supply recharging; null where the case does not carry it), the largest (`governing`)
+   * and the case that set it (cables.ts).
+   */
+  cables: CableAcrossModes[];
+  /**
+   * The older view of the same: cables whose size differs between the cases (each case sizes the cables it carries for its own
    * current: on supply at float, on supply recharging, on battery); `use` is the largest (by area).
    */
   cableSizes: { id: string; name: string; float?: string; recharge?: string; battery?: string; use: string }[];
@@ -404,6 +411,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
       transfer,
       ...(modes.passThrough ? { passThrough } : {}),
       switches: switchWorking(project.elements, place, supply, modes.battery.ok ? modes.battery.result : undefined),
+      cables: cablesAcrossModes({ supply, battery: modes.battery.ok ? modes.battery.result : undefined, recharge: rechargeResult }),
       cableSizes,
       warnings,
       cautions: [

@@ -4,6 +4,9 @@
  */
 import { figure, sigText } from '../../model/message.ts';
 import type { ModeFigures, ModesStudyResult } from './study.ts';
+import { CASE_WORDS } from './cables.ts';
+
+const CASE_SHORT = { supply: 'on float', recharge: 'recharging', battery: 'on battery' } as const;
 
 const w = (x: number): string => `${sigText(x, 4)} W`;
 const a = (x: number): string => `${sigText(x, 4)} A`;
@@ -60,9 +63,12 @@ export function formatModesStudy(s: ModesStudyResult): string {
   for (const k of s.switches) {
     out.push(`  ${k.name}: ${w(k.lossOnSupply)} on supply${k.lossOnBattery !== null ? `, ${w(k.lossOnBattery)} on battery` : ''}; ${k.note}`);
   }
-  if (s.cableSizes.length) {
-    out.push('', 'Cables sized differently in the cases (use the largest)');
-    for (const k of s.cableSizes) out.push(`  ${k.name}: ${k.float ?? '—'} on float, ${k.recharge ?? '—'} recharging, ${k.battery ?? '—'} on battery: use ${k.use}`);
+  if (s.cables.length) {
+    out.push('', 'Cable sizes across the modes (each the largest its cases need)');
+    for (const k of s.cables) {
+      const each = (['supply', 'recharge', 'battery'] as const).filter((c) => k.sizes[c] !== null).map((c) => `${k.sizes[c]} ${CASE_SHORT[c]}`);
+      out.push(`  ${k.name}: ${k.governing}, sized for ${CASE_WORDS[k.governingCase]}${each.length > 1 ? ` (${each.join(', ')})` : ''}`);
+    }
   }
   for (const x of s.warnings) out.push(`  Warning: ${x.message}`);
   out.push('  The studies below run on supply (the file as drawn), except the battery backup study, which runs on battery.');
