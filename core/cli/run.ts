@@ -106,7 +106,8 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   const modes = solveModes(outcome);
   let modesStudy: ModesStudyResult | undefined;
   if (modes) {
-    const m = runModesStudy(outcome, modes);
+    // The charge to put back: the backup study's outage drew it (the same on-battery discharge), handed on.
+    const m = runModesStudy(outcome, modes, study ? { dischargeAh: study.discharge.deliveredAh } : {});
     if (m && !m.ok) return refused(file, 'the two modes cannot be worked out:', m.problems, projectName, data);
     if (m) modesStudy = m.study;
     const bad = nonFinite('the two modes cannot be shown:', 'The two modes', { study: modesStudy, battery: modes.battery.ok ? modes.battery.result : undefined, ...(modes.supply !== outcome ? { supply: modes.supply.result } : {}) });

@@ -6,7 +6,8 @@
  * - Energy balance per mode: the solve's own (source power = loads + losses, core/solve/report.ts).
  * - Charger sizing, IEEE Std 946 (DC auxiliary power systems) charger output: A = L + k·C/H, with
  *   L the continuous load on the bus (the bus's input current on float less the bank's float current),
- *   C the charge to put back (Ah: `standby.rechargeAh`, else the bank's rated capacity), H the target
+ *   C the charge to put back (Ah: `standby.rechargeAh`, else the charge the backup study's outage drew
+ *   from the bank when the project has a backup study, else the bank's rated capacity), H the target
  *   recharge time (h, default 8 h: common practice) and k the charge-return factor of the chemistry
  *   (core/data/standby-charge.ts; 1.1 lead-acid from memory). Modules: n = ⌈A ÷ module⌉, plus one for
  *   N+1 redundancy. The recharge case (the bank drawing k·C/H) is solved as a variant; the supply
@@ -36,6 +37,7 @@ import { solveVariant } from '../../solve/variant.ts';
 import { chargerOf, onBatteryChange, rechargeChange, solveModes, type BankPlace, type Modes } from '../../solve/modes.ts';
 import { HOURS_IN_YEAR, costSettingsOf } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
+import { simulateDischarge } from '../backup/discharge.ts';
 import { batteryPathWarnings, switchWorking, type SwitchTransfer } from './switches.ts';
 import { cablesAcrossModes, type CableAcrossModes } from './cables.ts';
 
@@ -65,9 +67,12 @@ export interface RectifierSizing {
   chargerName: string | null;
   /** Continuous load on the bus L, A. */
   loadCurrent: number;
-  /** Charge to put back C, Ah, and where it came from. */
+  /**
+   * Charge to put back C, Ah, and where it came from: the user's `standby.rechargeAh`, else the charge
+   * the backup study's outage drew from the bank (on battery), else the bank's rated capacity.
+   */
   rechargeAh: number;
-  rechargeAhFrom: 'given' | 'bank capacity';
+  rechargeAhFrom: 'given' | 'backup study' | 'bank capacity';
   /** Target recharge time H, h. */
   rechargeHours: number;
   /** Charge-return factor k (the user's, else the chemistry's typical value) and where it came from. */
@@ -181,11 +186,17 @@ const byId = (r: SolveResult): Map<string, ElementResult> => new Map(r.elements.
 /** Hours in a common year, less the outage hours (the supply is on the rest). */
 const hoursOnSupply = (outage: number): number => Math.max(0, HOURS_IN_YEAR - outage);
 
+/** What a caller that has run the battery backup study may hand on (so the outage is not simulated twice). */
+export interface ModesStudyOptions {
+  /** The charge the backup study's outage drew from the bank, Ah (its discharge's `deliveredAh`). */
+  dischargeAh?: number;
+}
+
 /**
  * The modes study of a solved project: null when the project has no bank on a bus. Never validates or
  * solves the base case again; the on-battery, recharge and transfer chains are variants.
  */
-export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(solved)): ModesStudyOutcome {
+export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(solved), options: ModesStudyOptions = {}): ModesStudyOutcome {
   if (!modes) return null;
   const { place } = modes;
   const project = solved.project;
@@ -208,7 +219,16 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   const loadCurrent = Math.max(0, busRes.input!.current - floatCurrent);
   const chemistry = STANDBY_CHARGE[spec.chemistry];
   const k = settings.chargeReturnFactor ?? chemistry.chargeReturnFactor;
-  const rechargeAh = settings.rechargeAh ?? bank.capacityAh;
+  // C: the user's figure; else the charge the outage of the backup study drew from the bank (its
+  // discharge on battery: Ah out of the terminals over the study), when the project has one; else the
+  // bank's rated capacity (a full discharge).
+  let drawnAh = options.dischargeAh;
+  if (settings.rechargeAh === undefined && drawnAh === undefined && project.backup !== undefined && modes.battery.ok) {
+    const d = simulateDischarge(modes.battery);
+    if (d.ok) drawnAh = d.result.deliveredAh;
+  }
+  const rechargeAhFrom: RectifierSizing['rechargeAhFrom'] = settings.rechargeAh !== undefined ? 'given' : drawnAh !== undefined && project.backup !== undefined ? 'backup study' : 'bank capacity';
+  const rechargeAh = rechargeAhFrom === 'given' ? settings.rechargeAh! : rechargeAhFrom === 'backup study' ? drawnAh! : bank.capacityAh;
   const H = settings.targetRechargeHours ?? DEFAULT_RECHARGE_HOURS;
   const rechargeCurrent = (k * rechargeAh) / H;
   const required = loadCurrent + rechargeCurrent;
@@ -246,7 +266,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     chargerName: charger ? (charger.name ?? charger.id) : null,
     loadCurrent,
     rechargeAh,
-    rechargeAhFrom: settings.rechargeAh !== undefined ? 'given' : 'bank capacity',
+    rechargeAhFrom,
     rechargeHours: H,
     chargeReturnFactor: k,
     chargeReturnFactorFrom: settings.chargeReturnFactor !== undefined ? 'given' : 'typical',

@@ -6,6 +6,7 @@ import { figure, sigText } from '../../model/message.ts';
 import type { ModeFigures, ModesStudyResult } from './study.ts';
 import { CASE_WORDS } from './cables.ts';
 
+const AH_FROM = { given: 'given', 'backup study': 'drawn from the bank in the backup study\u2019s outage', 'bank capacity': 'bank capacity' } as const;
 const CASE_SHORT = { supply: 'on float', recharge: 'recharging', battery: 'on battery' } as const;
 
 const w = (x: number): string => `${sigText(x, 4)} W`;
@@ -26,7 +27,7 @@ export function formatModesStudy(s: ModesStudyResult): string {
   const c = s.charger;
   out.push('', `Charger sizing (${c.method})`);
   out.push(`  Charger: ${c.chargerName ?? 'none found above the bus'}`);
-  out.push(`  L = ${a(c.loadCurrent)} continuous load on the bus; C = ${sigText(c.rechargeAh, 4)} Ah (${c.rechargeAhFrom}); H = ${sigText(c.rechargeHours, 3)} h; k = ${c.chargeReturnFactor}${c.chargeReturnFactorFrom === 'typical' ? ' (typical value: use the maker\u2019s figure)' : ''}`);
+  out.push(`  L = ${a(c.loadCurrent)} continuous load on the bus; C = ${sigText(c.rechargeAh, 4)} Ah (${AH_FROM[c.rechargeAhFrom]}); H = ${sigText(c.rechargeHours, 3)} h; k = ${c.chargeReturnFactor}${c.chargeReturnFactorFrom === 'typical' ? ' (typical value: use the maker\u2019s figure)' : ''}`);
   out.push(`  Recharge current k·C/H = ${a(c.rechargeCurrent)}; charger capacity A = ${a(c.requiredCurrent)}`);
   if (c.modules) {
     const m = c.modules;
