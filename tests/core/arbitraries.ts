@@ -159,6 +159,8 @@ const node = (fields: Json, sizing: Sizing, output: GenPort | null, children: Ge
 export interface GenOptions {
   /** Loads from circuit elements (constant impedance) on AC ports. */
   networkLoads?: boolean;
+  /** Transfer switches (core/kinds/transfer-switch.ts) among the stages, on every electrical port. */
+  transferSwitches?: boolean;
 }
 const DEFAULT_GEN: GenOptions = {};
 
@@ -289,7 +291,7 @@ export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT
       }),
       cable,
       generic,
-      transferSwitch,
+      ...(opts.transferSwitches ? [transferSwitch] : []),
     );
   } else {
     const acLoad = fc
@@ -362,7 +364,7 @@ export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT
         }),
       cable,
       generic,
-      transferSwitch,
+      ...(opts.transferSwitches ? [transferSwitch] : []),
     );
   }
   if (depth >= MAX_DEPTH) return fc.oneof(...loads);
@@ -521,6 +523,9 @@ export const projectArb: fc.Arbitrary<Project> = sourceArb.map((root) => toProje
 
 /** Random valid projects that also hold loads from circuit elements (network-load). */
 export const projectWithNetworksArb: fc.Arbitrary<Project> = sourceArbWith({ networkLoads: true }).map((root) => toProject(root));
+
+/** Random valid projects whose stages may also be transfer switches. */
+export const projectWithSwitchesArb: fc.Arbitrary<Project> = sourceArbWith({ transferSwitches: true }).map((root) => toProject(root));
 
 /** Scale every load's demand (power, apparent power or current) by `factor`. Returns a new project. */
 export function scaleLoads(project: Project, factor: number): Project {
