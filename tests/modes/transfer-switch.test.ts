@@ -11,6 +11,7 @@ import { solveModes } from '../../core/solve/modes.ts';
 import { runModesStudy } from '../../core/studies/modes/study.ts';
 import { formatModesStudy } from '../../core/studies/modes/text-report.ts';
 import { demoProjects } from '../../core/demos/index.ts';
+import { solveProject } from '../../core/solve/index.ts';
 
 const project = (elements: unknown[], extra: Record<string, unknown> = {}) => ({ format: 'joulepath-project', version: 2, name: 'switch', elements, ...extra });
 
@@ -112,5 +113,36 @@ describe('a transfer switch in both modes', () => {
     if ('ok' in study.study.battery) throw new Error('no on-battery mode');
     expect(study.study.battery.balanceError).toBeLessThanOrEqual(1e-9);
     expect(study.study.supply.balanceError).toBeLessThanOrEqual(1e-9);
+  });
+});
+
+describe('a transfer switch refuses what no switch has', () => {
+  const withSwitch = (sw: Record<string, unknown>) => solveProject(project([
+    { id: 'grid', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },
+    { id: 'sw', name: 'Switch', kind: 'transfer-switch', from: 'grid', contactResistance: 0.001, controlPower: 10, ...sw },
+    { id: 'load', kind: 'ac-load', from: 'sw', power: 1000, powerFactor: 1 },
+  ]));
+  const problemOf = (sw: Record<string, unknown>) => {
+    const out = withSwitch(sw);
+    if (out.ok) throw new Error('accepted');
+    return out.problems.map((p) => `${p.field}: ${p.message}`);
+  };
+  it('names the field and the problem', () => {
+    // The plausible range of a contact resistance: 0 to 1 Ω (core/kinds/ranges.ts, common practice (no source)).
+    expect(problemOf({ contactResistance: -0.001 })).toEqual(['contactResistance: must not be negative Ω']);
+    expect(problemOf({ contactResistance: 5 })).toEqual(['contactResistance: must not exceed 1 Ω: the plausible range of a contact resistance is 0 Ω to 1 Ω (check the value and its unit)']);
+    expect(problemOf({ controlPower: -1 })).toEqual(['controlPower: must not be negative W']);
+    expect(problemOf({ transferTime: -0.004 })).toEqual(['transferTime: must not be negative s']);
+    expect(problemOf({ ratedCurrent: 0 })).toEqual(['ratedCurrent: must be greater than 0 A']);
+    expect(problemOf({ contactResistance: undefined })[0]).toMatch(/^contactResistance: /);
+  });
+  it('takes no shaft', () => {
+    const out = solveProject(project([
+      { id: 'grid', kind: 'grid', phases: 3, voltage: 400, frequency: 50 },
+      { id: 'm', kind: 'motor', from: 'grid', ratedOutput: 7500, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 },
+      { id: 'sw', kind: 'transfer-switch', from: 'm', contactResistance: 0.001, controlPower: 10 },
+      { id: 'load', kind: 'shaft-load', from: 'sw', power: 1000 },
+    ]));
+    expect(out.ok).toBe(false);
   });
 });
