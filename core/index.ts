@@ -48,6 +48,10 @@ export { backupSettingsProblems, profileDay, type DayInterval, type ProfileDay, 
 export { solveModes, bankOnBus, onBatteryChange, rechargeChange, outageSolve, type Modes, type BankPlace } from './solve/modes.ts';
 export { runModesStudy, type ModesStudyResult, type ModesStudyOutcome, type ModeFigures, type RectifierSizing, type StandingLosses, type Transfer } from './studies/modes/study.ts';
 export { formatModesStudy } from './studies/modes/text-report.ts';
+export { passThroughPlaces, passThroughChange, chargerOf, type PassThroughPlace, type PassThroughMode } from './solve/modes.ts';
+export type { PassThroughWorking, ModesStudyOptions } from './studies/modes/study.ts';
+export { switchWorking, batteryPathWarnings, type SwitchTransfer } from './studies/modes/switches.ts';
+export { cablesAcrossModes, type CableAcrossModes, type CableCase } from './studies/modes/cables.ts';
 export { bankCautions, rechargeCautions } from './studies/backup/cautions.ts';
 export { parseSiValue, formatSi, type ElementUnit, type ParsedValue } from './physics/si-prefix.ts';
 export {

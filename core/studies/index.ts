@@ -9,6 +9,9 @@ export { flowGraph, type FlowGraph, type FlowLink, type FlowNode } from './energ
 export { runBackupStudy, type BackupStudyResult } from './backup/study.ts';
 export { runModesStudy, type ModesStudyResult } from './modes/study.ts';
 export { solveModes, type Modes } from '../solve/modes.ts';
+export type { PassThroughWorking } from './modes/study.ts';
+export type { SwitchTransfer } from './modes/switches.ts';
+export type { CableAcrossModes, CableCase } from './modes/cables.ts';
 export type { Derate } from './backup/discharge.ts';
 export { bankCautions, rechargeCautions } from './backup/cautions.ts';
 export { backupSettingsProblems, profileDay, profileLoadList, profileStartHour, type DayInterval, type ProfileLoadInfo, type ProfileDay, type ProfileDayOutcome } from './backup/profile-day.ts';
