@@ -108,7 +108,7 @@ describe('a transfer switch in both modes', () => {
     if (!study?.ok) throw new Error('the modes study failed');
     const [w] = study.study.switches;
     expect(w).toMatchObject({ onInverterOutput: false, breakTime: 0.1, lossOnBattery: null });
-    expect(w!.note).toBe('its loads see a break of 100 ms when it transfers');
+    expect(w!.note).toBe('its loads see a break of 100 ms when it transfers (those on the bus "DC bus" see none: the bank holds the bus)');
     expect(study.study.standing.switches).toBeCloseTo(sw.loss, 12);
     if ('ok' in study.study.battery) throw new Error('no on-battery mode');
     expect(study.study.battery.balanceError).toBeLessThanOrEqual(1e-9);

@@ -6,7 +6,8 @@
  *   I²R per current-carrying conductor plus its control power), its transfer time, and the break its
  *   loads see when the supply is cut. Rule (common practice, no source): loads on the output side of a
  *   converter that the bank keeps feeding (an online UPS's inverter) see no break, the inverter carries
- *   on from the bank; anywhere else the loads below a switch see a break of its transfer time.
+ *   on from the bank; anywhere else the loads below a switch see a break of its transfer time (a switch
+ *   on the supply side of the bank's bus says that the loads on the bus see none: the bank holds it).
  * - The on-battery path's limits: the bank's maximum discharge current (chemistry C-rate × Ah), each
  *   inverter's rating (its rated continuous output power, else its loss model's rated power) and each
  *   transfer switch's rated current, each against what the on-battery chain asks of it; each cable's
@@ -56,6 +57,24 @@ function converterBetween(elements: readonly Element[], id: string, busId: strin
   return { inBranch: false, converter: null };
 }
 
+/** Is the bus below the element (the switch feeds the bus, on its supply side)? */
+function feedsBus(elements: readonly Element[], id: string, busId: string): boolean {
+  const byId = new Map(elements.map((e) => [e.id, e]));
+  const seen = new Set<string>();
+  let at = byId.get(busId);
+  while (at && 'from' in at && at.from !== undefined && !seen.has(at.id)) {
+    seen.add(at.id);
+    if (at.from === id) return true;
+    at = byId.get(at.from);
+  }
+  return false;
+}
+
+const busName = (elements: readonly Element[], busId: string): string => {
+  const bus = elements.find((e) => e.id === busId);
+  return bus?.name ?? busId;
+};
+
 /** Every transfer switch of the project with its working in both modes (`battery` the on-battery result, when it solved). */
 export function switchWorking(elements: readonly Element[], place: BankPlace, supply: SolveResult, battery: SolveResult | undefined): SwitchTransfer[] {
   const onSupply = new Map(supply.elements.map((e) => [e.id, e]));
@@ -71,9 +90,8 @@ export function switchWorking(elements: readonly Element[], place: BankPlace, su
     const breakTime = onInverterOutput ? 0 : t;
     const note = onInverterOutput
       ? `on the output of "${inverterName}": its loads see no break when the supply is cut (the inverter carries on from the bank)${t !== null ? `; its ${ms(t)} transfer applies when it moves them to a bypass` : ''}`
-      : t !== null
-        ? `its loads see a break of ${ms(t)} when it transfers`
-        : "no transfer time given: its loads see a break of the maker's transfer time when it transfers";
+      : (t !== null ? `its loads see a break of ${ms(t)} when it transfers` : "no transfer time given: its loads see a break of the maker's transfer time when it transfers") +
+        (feedsBus(elements, e.id, place.busId) ? ` (those on the bus "${busName(elements, place.busId)}" see none: the bank holds the bus)` : '');
     out.push({
       id: e.id,
       name,
