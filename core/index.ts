@@ -50,6 +50,10 @@ export { runModesStudy, type ModesStudyResult, type ModesStudyOutcome, type Mode
 export { formatModesStudy } from './studies/modes/text-report.ts';
 export { runSpread, spreadPlan, spreadRun, spreadSensitivity, spreadSummary, formatSpread, TYPICAL_TOLERANCES, type SpreadResult, type SpreadChunk, type SpreadPlan, type SpreadOptions, type Swing } from './studies/spread/index.ts';
 export type { SpreadSettings } from './model/spread.ts';
+export { passThroughPlaces, passThroughChange, chargerOf, type PassThroughPlace, type PassThroughMode } from './solve/modes.ts';
+export type { PassThroughWorking, ModesStudyOptions } from './studies/modes/study.ts';
+export { switchWorking, batteryPathWarnings, type SwitchTransfer } from './studies/modes/switches.ts';
+export { cablesAcrossModes, type CableAcrossModes, type CableCase } from './studies/modes/cables.ts';
 export { bankCautions, rechargeCautions } from './studies/backup/cautions.ts';
 export { parseSiValue, formatSi, type ElementUnit, type ParsedValue } from './physics/si-prefix.ts';
 export {

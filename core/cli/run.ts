@@ -121,13 +121,16 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   const modes = solveModes(outcome);
   let modesStudy: ModesStudyResult | undefined;
   if (modes) {
-    const m = runModesStudy(outcome, modes);
+    // The charge to put back: the backup study's outage drew it (the same on-battery discharge), handed on.
+    const m = runModesStudy(outcome, modes, study ? { dischargeAh: study.discharge.deliveredAh } : {});
     if (m && !m.ok) return refused(file, 'the two modes cannot be worked out:', m.problems, projectName, data);
     if (m) modesStudy = m.study;
-    const bad = nonFinite('the two modes cannot be shown:', 'The two modes', { study: modesStudy, battery: modes.battery.ok ? modes.battery.result : undefined });
+    const bad = nonFinite('the two modes cannot be shown:', 'The two modes', { study: modesStudy, battery: modes.battery.ok ? modes.battery.result : undefined, ...(modes.supply !== outcome ? { supply: modes.supply.result } : {}) });
     if (bad) return bad;
   }
   const batteryResult: SolveResult | undefined = modes?.battery.ok ? modes.battery.result : undefined;
+  // On supply: the file as drawn, or its variant with an inverter-charger passing the supply through (core/solve/modes.ts).
+  const supplyResult: SolveResult = modes ? modes.supply.result : outcome.result;
   // The cost over the years, when the project gives the years of service beside the price (core/studies/lifetime.ts).
   let lifetime: LifetimeCost | undefined;
   const lifeSettings = lifetimeSettingsOf(outcome.project);
@@ -168,12 +171,12 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   // The profile's first day (the editor's preview), beside the study: `profileDay` in the JSON.
   const day = study && req.output !== 'summary' && req.output !== 'csv' ? profileDay(outcome.project, outcome.project.backup, outcome.result) : undefined;
   if (req.output === 'json') {
-    const top = req.mode === 'battery' && batteryResult ? batteryResult : outcome.result;
-    const modesJson = modes ? { mode: top === batteryResult ? 'battery' : 'supply', modes: { supply: outcome.result, battery: modes.battery.ok ? modes.battery.result : { problems: modes.battery.problems }, study: modesStudy } } : {};
+    const top = req.mode === 'battery' && batteryResult ? batteryResult : supplyResult;
+    const modesJson = modes ? { mode: top === batteryResult ? 'battery' : 'supply', modes: { supply: supplyResult, battery: modes.battery.ok ? modes.battery.result : { problems: modes.battery.problems }, study: modesStudy } } : {};
     const extra = { ...modesJson, ...(study ? { backupStudy: study } : {}), ...(spread ? { spread } : {}), ...(day?.ok ? { profileDay: day.day } : {}), ...(pfc ? { pfCorrection: pfCorrectionJson(pfc) } : {}), ...(machines?.ok ? machines.json : {}), ...(surges ? { surgeStudy: surges } : {}), ...(lossCost ? { lossCost } : {}), ...(pumpDutyCost ? { pumpDutyCost } : {}), ...(lifetime ? { lifetimeCost: lifetime } : {}), ...(variants ? { variants } : {}), ...(search ? { search } : {}) };
     text = `${JSON.stringify({ ...top, ...extra }, null, 2)}\n`;
   } else if (req.output === 'tables') {
-    text = `${modes ? modeTables(outcome.result, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${spread ? `\n${formatSpread(spread)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}${variants ? `\n${formatVariantComparison(variants, outcome.project)}\n` : ''}${search ? `\n${formatSearch(search)}\n` : ''}`;
+    text = `${modes ? modeTables(supplyResult, batteryResult, modes.battery.ok ? undefined : modes.battery.problems[0]?.message, req.mode, modes.supply !== outcome) : formatResult(outcome.result)}\n${modesStudy ? `${formatModesStudy(modesStudy)}\n` : ''}${day?.ok ? `${formatProfileDay(day.day)}\n` : ''}${study ? `${formatBackupStudy(study)}\n` : ''}${spread ? `\n${formatSpread(spread)}\n` : ''}${pfc ? `\n${formatPfCorrection(pfc)}\n` : ''}${machines?.ok ? machines.text : ''}${surges ? formatSurgeStudy(surges) : ''}${lossCost ? `\n${formatLossCost(lossCost)}\n` : ''}${pumpDutyCost ? `${formatPumpDutyCost(pumpDutyCost)}\n` : ''}${lifetime ? `\n${formatLifetimeCost(lifetime)}\n` : ''}${variants ? `\n${formatVariantComparison(variants, outcome.project)}\n` : ''}${search ? `\n${formatSearch(search)}\n` : ''}`;
   }
   return { ok: true, text, line };
 }
@@ -191,9 +194,9 @@ function formatPumpDutyCost(c: MethodCosts): string {
 }
 
 /** The element tables of a project with a bank on a bus: both modes by default, or the one asked for. */
-function modeTables(supply: SolveResult, battery: SolveResult | undefined, batteryRefusal: string | undefined, mode: 'supply' | 'battery' | undefined): string {
+function modeTables(supply: SolveResult, battery: SolveResult | undefined, batteryRefusal: string | undefined, mode: 'supply' | 'battery' | undefined, passingThrough = false): string {
   const parts: string[] = [];
-  if (mode !== 'battery') parts.push(`Mode: on supply (the bank on float)\n${formatResult(supply)}`);
+  if (mode !== 'battery') parts.push(`Mode: on supply (the bank on float${passingThrough ? '; the inverter-charger passes the supply through to its loads' : ''})\n${formatResult(supply)}`);
   if (mode !== 'supply') parts.push(battery ? `Mode: on battery (the supply cut, the bank carries its bus)\n${formatResult(battery)}` : `Mode: on battery: cannot be solved: ${batteryRefusal ?? 'no solution'}`);
   return parts.join('\n\n');
 }

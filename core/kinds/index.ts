@@ -21,6 +21,7 @@ import { pumpKind } from './pump.ts';
 import { fanKind } from './fan.ts';
 import { rectifierKind } from './rectifier.ts';
 import { transformerKind } from './transformer.ts';
+import { transferSwitchKind } from './transfer-switch.ts';
 
 const all = [
   gridKind,
@@ -35,6 +36,7 @@ const all = [
   motorKind,
   cableKind,
   genericKind,
+  transferSwitchKind,
   dcLoadKind,
   acLoadKind,
   acVaLoadKind,

@@ -22,6 +22,8 @@ export const inverterKind = defineKind<InverterStage>({
     lowVoltageCutoff: z.optional(ranged('voltage')),
     // Maker's rating, read by conductor sizing only (the solve does not use it).
     ratedOutputPower: z.optional(ranged('ratedPower')),
+    // An inverter-charger's pass-through limit, read by the modes study only (core/solve/modes.ts).
+    passThroughLimit: z.optional(ranged('current')),
   }) as z.ZodMiniType<InverterStage>,
   check: (e) => checkLossModel(e.loss),
   regulatesVoltage: true,

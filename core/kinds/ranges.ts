@@ -67,6 +67,8 @@ export const RANGES = {
   resistancePerKm: { min: 0, max: 1e6, unit: 'Ω/km', what: 'a resistance per km', prefix: true },
   /** Reactance per km: 0.05–0.5 Ω/km on cables; as the resistance, 1 MΩ/km for a link given as a lumped impedance. */
   reactancePerKm: { min: 0, max: 1e6, unit: 'Ω/km', what: 'a reactance per km', prefix: true },
+  /** A switch pole's contact resistance: some 0.05–1 mΩ on contactors and transfer switches; 1 Ω leaves room (a relay's coil typed in its place is refused). */
+  contactResistance: { min: 0, max: 1, unit: 'Ω', what: 'a contact resistance', prefix: true },
   /** A source's own resistance or reactance: 0 (stiff) or at least 1 pΩ (see MIN_SOURCE_OHMS), up to 1 MΩ. */
   sourceOhms: { min: 0, max: 1e6, unit: 'Ω', what: 'a source impedance', prefix: true },
   /** An ambient or cell temperature: −80 °C (polar stations) up to 150 °C (hot plant rooms; tables then decide). */

@@ -25,6 +25,7 @@ export const KIND_LABELS: Readonly<Record<ElementKind, string>> = {
   motor: 'Motor',
   cable: 'Cable',
   generic: 'Converter',
+  'transfer-switch': 'Transfer switch',
   'network-load': 'Load from R, L, C',
   'dc-load': 'DC load',
   'ac-load': 'AC load',
@@ -126,6 +127,13 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     name: "Name",
     fixedLoss: "Fixed loss of the bus",
   },
+  "transfer-switch": {
+    name: "Name",
+    contactResistance: "Contact resistance per pole",
+    controlPower: "Control power",
+    ratedCurrent: "Rated current",
+    transferTime: "Transfer time",
+  },
   inverter: {
     name: "Name",
     phases: "Phases",
@@ -137,6 +145,7 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     surge: "Surge rating",
     "surge.apparentPower": "Surge apparent power",
     "surge.durationSeconds": "For how long",
+    passThroughLimit: "Pass-through limit (inverter-charger)",
   },
   transformer: {
     name: "Name",

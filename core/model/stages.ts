@@ -58,6 +58,12 @@ export interface InverterStage extends FedElement {
    * (efficiency × cut-off voltage), conductor sizing).
    */
   ratedOutputPower?: number;
+  /**
+   * An inverter-charger's pass-through limit, A (the maker's datasheet): on supply its transfer relay
+   * passes the supply straight to its loads, up to this current. Read by the modes study
+   * (core/solve/modes.ts) when the inverter sits on a bank's bus; changes nothing in the base solve.
+   */
+  passThroughLimit?: number;
 }
 
 /**
@@ -175,6 +181,24 @@ export interface MotorStarting {
 }
 
 
+/**
+ * A transfer switch (an automatic transfer switch, a UPS's static or bypass switch, an inverter-charger's
+ * transfer relay): passes its input through unchanged in kind (DC, 1φ or 3φ AC), with its own losses: the
+ * contact resistance of each pole (I²R in every current-carrying conductor: two on DC and single-phase,
+ * three on three-phase) and a standing control power (coils, electronics).
+ */
+export interface TransferSwitchStage extends FedElement {
+  kind: 'transfer-switch';
+  /** Contact resistance of one pole, Ω. */
+  contactResistance: number;
+  /** Standing control power (coils, control electronics), W. */
+  controlPower: number;
+  /** Rated current, A (the maker's datasheet): a warning when the current through it exceeds it. */
+  ratedCurrent?: number;
+  /** Transfer time, s: the break the loads below it see when it transfers (shown in the transfer working). */
+  transferTime?: number;
+}
+
 /** A stage with user-chosen input and output kinds (a regulating converter of any sort). */
 export interface GenericStage extends FedElement {
   kind: 'generic';
@@ -198,4 +222,5 @@ export type Stage =
   | DriveStage
   | MotorStage
   | CableStage
-  | GenericStage;
+  | GenericStage
+  | TransferSwitchStage;

@@ -10,7 +10,10 @@
 export interface StandbySettings {
   /** Time in which the charger must put the discharged charge back, h (default 8 h). */
   targetRechargeHours?: number;
-  /** Charge to put back after an outage, Ah (default: the bank's rated capacity, all strings). */
+  /**
+   * Charge to put back after an outage, Ah (default: the charge the backup study's outage drew from the
+   * bank when the project has a backup study, else the bank's rated capacity, all strings).
+   */
   rechargeAh?: number;
   /** Charge put back per charge taken out (IEEE 946's k; default the chemistry's, core/data/standby-charge.ts). */
   chargeReturnFactor?: number;

@@ -12,13 +12,24 @@
  *   is fed from them; every element outside the bus's branch drops out (the rectifier and everything
  *   between it and the supply, and the supply's other branches, which an outage leaves dark).
  *
+ * - An inverter-charger's pass-through (an inverter on the bank's bus with a `passThroughLimit`): on
+ *   supply its transfer relay passes the supply straight to its loads. The on-supply mode is then a
+ *   variant (`passThroughChange`): a relay (a `transfer-switch` of no contact resistance and no control
+ *   power: the maker's relay losses are not given) fed from the supply side of the bus's charger (the
+ *   element feeding it) carries the inverter's loads; the inverter stays on the bus with nothing to
+ *   feed, so its conversion losses drop out and it draws its idle loss (its loss model at zero output).
+ *   Assumption, named in the study's working: the inverter stays on, synchronised to the supply and
+ *   ready to take the loads (the usual setting for a short transfer); a maker whose unit switches its
+ *   inverter off in pass-through gives an idle loss of 0.
+ *
  * The same loads, converters and cables below the bus are solved in both modes. Each mode sizes the
  * cables it carries for its own currents (conductor specs set to "auto"); the modes study
- * (core/studies/modes/) lists both and the larger governs.
+ * (core/studies/modes/cables.ts) gives each cable the largest size its cases need.
  */
-import type { BatterySource, Element, Project } from '../model/project.ts';
+import type { BatterySource, Element, InverterStage, Project } from '../model/project.ts';
+import type { SolveResult } from '../model/result.ts';
 import type { Problem } from '../model/errors.ts';
-import { KINDS } from '../kinds/index.ts';
+import { KINDS, isPassive } from '../kinds/index.ts';
 import type { Solved, SolveOutcome } from './solved.ts';
 import { solveVariant, type VariantChange } from './variant.ts';
 
@@ -101,11 +112,107 @@ export function rechargeChange(project: Project, place: BankPlace, current: numb
   return { replace: [{ id: bank.id, ...(bank.name !== undefined ? { name: bank.name } : {}), kind: 'dc-current-load', from: bank.from!, current }] };
 }
 
+/** An inverter-charger on the bank's bus passing the supply through to its loads on supply. */
+export interface PassThroughPlace {
+  /** The inverter (on the bank's bus, directly or through cables) with its pass-through limit, A. */
+  inverterId: string;
+  limit: number;
+  /** The charger (the converter feeding the bus) and the element feeding it: the relay's feed. */
+  chargerId: string;
+  feedId: string;
+  /** The relay's id in the on-supply variant (a transfer-switch). */
+  relayId: string;
+  /** The elements the inverter feeds: fed from the relay on supply. */
+  loadIds: string[];
+}
+
+/** The first element above the bus that is not passive (the rectifier or charger feeding it), or null. */
+export function chargerOf(elements: readonly Element[], busId: string): Element | null {
+  const byId = new Map(elements.map((e) => [e.id, e]));
+  let at = byId.get(busId);
+  const seen = new Set<string>();
+  while (at && 'from' in at && at.from !== undefined && !seen.has(at.id)) {
+    seen.add(at.id);
+    at = byId.get(at.from);
+    if (at && !isPassive(at.kind)) return at;
+  }
+  return null;
+}
+
+/**
+ * The inverter-chargers of a project with a bank on a bus that pass the supply through on supply:
+ * inverters with a `passThroughLimit` fed from the bank's bus (directly or through cables and other
+ * passive elements), when the bus has a charger with a feed whose port (from the solved result) is the
+ * inverter's output port kind. `refused` lists those whose supply side cannot carry their loads, with why.
+ */
+export function passThroughPlaces(project: Project, place: BankPlace, result: SolveResult): { places: PassThroughPlace[]; refused: { inverterId: string; reason: string }[] } {
+  const places: PassThroughPlace[] = [];
+  const refused: { inverterId: string; reason: string }[] = [];
+  const inverters = project.elements.filter((e): e is InverterStage => e.kind === 'inverter' && e.passThroughLimit !== undefined);
+  if (!inverters.length) return { places, refused };
+  const byId = new Map(project.elements.map((e) => [e.id, e]));
+  const ports = new Map(result.elements.map((e) => [e.id, e]));
+  const charger = chargerOf(project.elements, place.busId);
+  const feedId = charger && 'from' in charger ? charger.from : undefined;
+  const taken = new Set(project.elements.map((e) => e.id));
+  for (const inv of inverters) {
+    // On the bank's bus: up through passive elements only, to the bus.
+    let at: Element | undefined = byId.get(inv.from);
+    while (at && at.id !== place.busId && isPassive(at.kind) && 'from' in at && at.from !== undefined) at = byId.get(at.from);
+    if (!at || at.id !== place.busId) continue;
+    if (!charger || feedId === undefined) {
+      refused.push({ inverterId: inv.id, reason: 'no charger feeds its bus, so there is no supply to pass through' });
+      continue;
+    }
+    const supplyPort = ports.get(feedId)?.output?.kind;
+    const outPort = inv.phases === 3 ? 'ac3' : 'ac1';
+    if (supplyPort !== outPort) {
+      refused.push({ inverterId: inv.id, reason: `its output is ${outPort === 'ac3' ? 'three-phase' : 'single-phase'} AC, the supply side of the charger is ${supplyPort === 'ac3' ? 'three-phase AC' : supplyPort === 'ac1' ? 'single-phase AC' : 'not AC'}` });
+      continue;
+    }
+    let relayId = `${inv.id}-pass-through`;
+    for (let k = 2; taken.has(relayId); k++) relayId = `${inv.id}-pass-through-${k}`;
+    taken.add(relayId);
+    const loadIds = project.elements.filter((e) => 'from' in e && e.from === inv.id).map((e) => e.id);
+    places.push({ inverterId: inv.id, limit: inv.passThroughLimit!, chargerId: charger.id, feedId, relayId, loadIds });
+  }
+  return { places, refused };
+}
+
+/**
+ * The on-supply change of inverter-chargers passing the supply through (see the header): per inverter
+ * a relay fed from the charger's feed, the inverter's loads fed from it; the inverter stays on the bus.
+ */
+export function passThroughChange(project: Project, places: readonly PassThroughPlace[]): VariantChange {
+  const byId = new Map(project.elements.map((e) => [e.id, e]));
+  const add: Element[] = [];
+  const replace: Element[] = [];
+  for (const p of places) {
+    const inv = byId.get(p.inverterId)!;
+    add.push({ id: p.relayId, name: `${inv.name ?? inv.id}: pass-through relay`, kind: 'transfer-switch', from: p.feedId, contactResistance: 0, controlPower: 0 });
+    for (const id of p.loadIds) replace.push({ ...byId.get(id)!, from: p.relayId } as Element);
+  }
+  return { add, replace };
+}
+
+/** The on-supply mode's pass-through: where, and whether its variant solved (null) or why not. */
+export interface PassThroughMode {
+  places: PassThroughPlace[];
+  refused: { inverterId: string; reason: string }[];
+  /** The variant's problems when it could not be solved (the on-supply mode is then the file as drawn). */
+  problems: Problem[] | null;
+}
+
 /** Both modes of a project with a bank on a bus. */
 export interface Modes {
   place: BankPlace;
-  /** On supply: the base solve (the bank on float). */
+  /**
+   * On supply: the base solve (the bank on float), or, with an inverter-charger passing the supply
+   * through, that variant (`passThrough`).
+   */
   supply: Solved;
+  /** Present when an inverter on the bank's bus has a pass-through limit. */
+  passThrough?: PassThroughMode;
   /** On battery: the chain re-rooted at the bank, solved (or why it cannot be: the bank cannot carry the bus). */
   battery: SolveOutcome;
 }
@@ -117,7 +224,16 @@ export interface Modes {
 export function solveModes(solved: Solved): Modes | null {
   const place = bankOnBus(solved.project);
   if (!place) return null;
-  return { place, supply: solved, battery: solveVariant(solved, onBatteryChange(solved.project, place)) };
+  const battery = solveVariant(solved, onBatteryChange(solved.project, place));
+  const pt = passThroughPlaces(solved.project, place, solved.result);
+  if (!pt.places.length && !pt.refused.length) return { place, supply: solved, battery };
+  const variant = pt.places.length ? solveVariant(solved, passThroughChange(solved.project, pt.places)) : null;
+  return {
+    place,
+    supply: variant?.ok ? variant : solved,
+    battery,
+    passThrough: { places: pt.places, refused: pt.refused, problems: variant && !variant.ok ? variant.problems : null },
+  };
 }
 
 /**

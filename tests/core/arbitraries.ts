@@ -2,8 +2,8 @@
  * Shared fast-check generators: random VALID power-chain projects built from every element kind.
  *
  * A tree is grown top-down from a source of a random kind; each child is drawn from the kinds that
- * accept the feeding port (DC → dc-dc/dc-bus/inverter/cable/generic/dc-load/dc-current-load; AC →
- * rectifier/transformer/drive/motor/cable/generic/ac-load/ac-va-load/ac-current-load; shaft →
+ * accept the feeding port (DC → dc-dc/dc-bus/inverter/cable/generic/transfer-switch/dc-load/dc-current-load; AC →
+ * rectifier/transformer/drive/motor/cable/generic/transfer-switch/ac-load/ac-va-load/ac-current-load; shaft →
  * shaft-load). Series links are
  * then SIZED bottom-up from an estimate of the apparent power they carry, the way a designer sizes
  * them: each cable, source impedance and transformer gets a modest voltage drop (a few per cent),
@@ -51,6 +51,8 @@ type Sizing =
   /** A drive with IEC 61800-9-2 point losses (per-unit of its rating; null = the IE2 defaults). */
   | { type: 'standard-drive'; loadFraction: number; inputPf: number | null; thd: number | null; pointsPu: number[] | null }
   | { type: 'dc-bus'; fixedLoss: number }
+  /** A transfer switch: its contact drop as a share of the voltage (like a cable's) and its control power, W. */
+  | { type: 'switch'; drop: number; controlPower: number }
   | { type: 'load' }
   | { type: 'network'; s: number; net: CircuitNetwork; asText: boolean }
   | { type: 'source'; drop: number; xr: number; ratedLoadFraction: number | null };
@@ -157,6 +159,8 @@ const node = (fields: Json, sizing: Sizing, output: GenPort | null, children: Ge
 export interface GenOptions {
   /** Loads from circuit elements (constant impedance) on AC ports. */
   networkLoads?: boolean;
+  /** Transfer switches (core/kinds/transfer-switch.ts) among the stages, on every electrical port. */
+  transferSwitches?: boolean;
 }
 const DEFAULT_GEN: GenOptions = {};
 
@@ -238,6 +242,10 @@ export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT
       }),
     })
     .chain(({ name, sizing }) => childrenOf(port, depth + 1, opts).map((ch) => node(withOpt({ kind: 'cable', name }), sizing, { ...port }, ch)));
+  // A transfer switch passes its port on: contact resistance for a small drop, a control power of a few watts.
+  const transferSwitch = fc
+    .record({ name: optionalName, sizing: fc.record({ type: fc.constant('switch' as const), drop: uniform(0, 0.005), controlPower: uniform(0, 40) }) })
+    .chain(({ name, sizing }) => childrenOf(port, depth + 1, opts).map((ch) => node(withOpt({ kind: 'transfer-switch', name }), sizing, { ...port }, ch)));
   const generic = fc
     .record({
       outputKind: fc.constantFrom('dc' as const, 'ac1' as const, 'ac3' as const),
@@ -283,6 +291,7 @@ export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT
       }),
       cable,
       generic,
+      ...(opts.transferSwitches ? [transferSwitch] : []),
     );
   } else {
     const acLoad = fc
@@ -355,6 +364,7 @@ export function nodeArb(port: GenPort, depth: number, opts: GenOptions = DEFAULT
         }),
       cable,
       generic,
+      ...(opts.transferSwitches ? [transferSwitch] : []),
     );
   }
   if (depth >= MAX_DEPTH) return fc.oneof(...loads);
@@ -420,6 +430,14 @@ export function toProject(root: GenNode, name = 'Random chain'): Project {
       case 'dc-bus':
         el['fixedLoss'] = sz.fixedLoss;
         return sum + sz.fixedLoss;
+      case 'switch': {
+        // Per pole: the loop's two poles on DC and single-phase, one per phase on three-phase (core/kinds/transfer-switch.ts),
+        // drawn at the plausible bound when the drop would ask for more (core/kinds/ranges.ts).
+        const r = resistanceFor(sz.drop, input!.voltage, sOut);
+        el['contactResistance'] = Math.min(input!.kind === 'ac3' ? r : r / 2, RANGES.contactResistance.max);
+        el['controlPower'] = sz.controlPower;
+        return sum * (1 + 2 * sz.drop) + sz.controlPower;
+      }
       case 'cable': {
         const port = input!;
         const r = resistanceFor(sz.drop, port.voltage, sOut);
@@ -505,6 +523,9 @@ export const projectArb: fc.Arbitrary<Project> = sourceArb.map((root) => toProje
 
 /** Random valid projects that also hold loads from circuit elements (network-load). */
 export const projectWithNetworksArb: fc.Arbitrary<Project> = sourceArbWith({ networkLoads: true }).map((root) => toProject(root));
+
+/** Random valid projects whose stages may also be transfer switches. */
+export const projectWithSwitchesArb: fc.Arbitrary<Project> = sourceArbWith({ transferSwitches: true }).map((root) => toProject(root));
 
 /** Scale every load's demand (power, apparent power or current) by `factor`. Returns a new project. */
 export function scaleLoads(project: Project, factor: number): Project {

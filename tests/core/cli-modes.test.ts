@@ -37,7 +37,9 @@ describe('--mode', () => {
     expect(both.stdout).toContain(`Source ${s.result.totals.sourcePower.toFixed(1)} W`);
     expect(both.stdout).toContain(`Source ${m.battery.result.totals.sourcePower.toFixed(1)} W`);
     expect(both.stdout).toContain('Charger sizing (IEEE Std 946');
-    expect(both.stdout).toMatch(/Modules of 10 A: 4 needed, 5 with N\+1 \(50 A installed\)/);
+    // The charge drawn in the demo's outage (about 87.5 Ah): A ≈ 28.9 A, 3 modules of 10 A, 4 with N+1 (hand calculation, IEEE Std 946).
+    expect(both.stdout).toMatch(/Modules of 10 A: 3 needed, 4 with N\+1 \(40 A installed\)/);
+    expect(both.stdout).toContain('Board to UPS: 4 mm², sized for the recharge case (2.5 mm² on float, 4 mm² recharging)');
     expect(both.stdout).toContain('Cost of standing by (on supply)');
     expect(both.stdout).toContain('Transfer (the supply cut)');
     expect(both.stdout).toContain('The studies below run on supply (the file as drawn), except the battery backup study, which runs on battery.');
@@ -61,7 +63,7 @@ describe('--mode', () => {
     expect(Object.keys(j.modes).sort()).toEqual(['battery', 'study', 'supply']);
     expect(j.modes.battery.elements[0].id).toBe('bank');
     expect(j.modes.study.charger.requiredCurrent).toBeCloseTo(study.study.charger.requiredCurrent, 9);
-    expect(Object.keys(j.modes.study).sort()).toEqual(['bankName', 'battery', 'busName', 'cableSizes', 'cautions', 'charger', 'place', 'standing', 'supply', 'transfer', 'warnings']);
+    expect(Object.keys(j.modes.study).sort()).toEqual(['bankName', 'battery', 'busName', 'cableSizes', 'cables', 'cautions', 'charger', 'place', 'standing', 'supply', 'switches', 'transfer', 'warnings']);
     expect(j.backupStudy.mode).toBe('battery');
     const jb = JSON.parse(run(FILE, '--json', '--mode', 'battery').stdout);
     expect(jb.mode).toBe('battery');

@@ -57,6 +57,7 @@ const FIXTURES: Record<ElementKind, (level: number) => Json[]> = {
   drive: (l) => [GRID3, { id: 'x', kind: 'drive', from: 'src', outputVoltage: 380, outputFrequency: 45, inputPowerFactor: 0.95, loss: constant(0.97) }, { id: 'load', kind: 'ac-load', from: 'x', power: l, powerFactor: 0.9 }],
   motor: (l) => [GRID3, { id: 'x', kind: 'motor', from: 'src', ratedOutput: 7500, efficiencyClass: 'IE3', poles: 4, ratedFrequency: 50 }, { id: 'load', kind: 'shaft-load', from: 'x', power: l }],
   cable: (l) => [GRID3, { id: 'x', kind: 'cable', from: 'src', length: 50, resistancePerKm: 1.15, reactancePerKm: 0.08 }, { id: 'load', kind: 'ac-load', from: 'x', power: l, powerFactor: 0.9 }],
+  'transfer-switch': (l) => [GRID3, { id: 'x', kind: 'transfer-switch', from: 'src', contactResistance: 0.0005, controlPower: 15, ratedCurrent: 63, transferTime: 0.004 }, { id: 'load', kind: 'ac-load', from: 'x', power: l, powerFactor: 0.9 }],
   generic: (l) => [BATTERY, { id: 'x', kind: 'generic', from: 'src', inputKind: 'dc', outputKind: 'ac1', outputVoltage: 120, outputFrequency: 60, loss: constant(0.93) }, { id: 'load', kind: 'ac-load', from: 'x', power: l, powerFactor: 1 }],
   'dc-load': (l) => [BATTERY, { id: 'x', kind: 'dc-load', from: 'src', power: l }],
   'ac-load': (l) => [GRID1, { id: 'x', kind: 'ac-load', from: 'src', power: l, powerFactor: 0.8 }],
@@ -125,6 +126,7 @@ describe('dcEquivalent: on DC the element is its loop resistance and fixed loss'
   const samples: Partial<Record<ElementKind, Json>> = {
     cable: { id: 'x', kind: 'cable', from: 'src', length: 12, resistancePerKm: 1.83, parallelSets: 2 },
     'dc-bus': { id: 'x', kind: 'dc-bus', from: 'src', fixedLoss: 7 },
+    'transfer-switch': { id: 'x', kind: 'transfer-switch', from: 'src', contactResistance: 0.0008, controlPower: 12 },
   };
   it.each(kinds.filter(([, s]) => s.dcEquivalent).map(([k]) => k))('%s', (kind) => {
     const spec = KINDS.get(kind)!;

@@ -66,7 +66,8 @@ const ELEMENTS: readonly Json[] = [
   { id: 'rect', kind: 'rectifier', from: 'grid', outputVoltage: 54, inputPowerFactor: 0.95, loss: curve, ratedOutputCurrent: 60 },
   { id: 'dc-dc', kind: 'dc-dc', from: 'bat', outputVoltage: 12, loss: poly, ratedOutputPower: 300, minInputVoltage: 36 },
   { id: 'bus', kind: 'dc-bus', from: 'bat', fixedLoss: 5 },
-  { id: 'inv', kind: 'inverter', from: 'bat', phases: 1, outputVoltage: 230, frequency: 50, loss: fit, surge: { apparentPower: 6000, durationSeconds: 5 }, lowVoltageCutoff: 44, ratedOutputPower: 3000 },
+  { id: 'inv', kind: 'inverter', from: 'bat', phases: 1, outputVoltage: 230, frequency: 50, loss: fit, surge: { apparentPower: 6000, durationSeconds: 5 }, lowVoltageCutoff: 44, ratedOutputPower: 3000, passThroughLimit: 30 },
+  { id: 'ats', kind: 'transfer-switch', from: 'grid', contactResistance: 0.0005, controlPower: 15, ratedCurrent: 63, transferTime: 0.004 },
   { id: 'vfd', kind: 'drive', from: 'grid', outputVoltage: 400, outputFrequency: 45, inputPowerFactor: 0.95, standardLoss: { ratedApparentPower: 30000, basis: 'cdm', points: [300, 310, 330, 360, 400, 450, 520, 600] }, motorRatedFrequency: 50, currentThd: 0.35, singlePhaseRating: 15000, ratedInputCurrent: 45 },
   { id: 'vfd2', kind: 'drive', from: 'grid', outputVoltage: 400, outputFrequency: 45, inputPowerFactor: 0.95, loss: constant },
   {

@@ -4,11 +4,11 @@
  * - `idleLoss` is what the element's own parameters say it draws at zero output (the oracle below
  *   reads the project, not the engine's models): a converter's or motor's `idleLoss` (constant and
  *   curve models) or P0 (polynomial; the fitted p0 for polynomial-fit), a DC bus's `fixedLoss`, a
- *   transformer's `noLoadLoss`, a standard-loss drive's IEC 61800-9-2 grid loss at zero torque
+ *   transfer switch's `controlPower`, a transformer's `noLoadLoss`, a standard-loss drive's IEC 61800-9-2 grid loss at zero torque
  *   (held at the grid's lowest torque point); sources, cables and loads have none — each limited to
  *   0…loss;
  * - idle + conversion = loss to 1e-9 relative, in the result and in the flow graph's two loss links;
- * - the idle part of regulating converters, buses and transformers does not move when every load is
+ * - the idle part of regulating converters, buses, transfer switches and transformers does not move when every load is
  *   halved (it is a no-load figure).
  * Tolerances: 1e-9 relative (the brief's figure for the balance; the solve stops at 1e-12).
  */
@@ -58,6 +58,8 @@ function expectedIdle(e: Element, r: ElementResult): number {
     }
     case 'dc-bus':
       return e.fixedLoss;
+    case 'transfer-switch':
+      return e.controlPower; // no current through the contacts at zero output (core/kinds/transfer-switch.ts)
     case 'transformer':
       return e.noLoadLoss;
     default:
@@ -124,7 +126,7 @@ describe('idle and conversion loss over random chains', () => {
         if (!full || !half) return;
         const halfById = new Map(half.elements.map((e) => [e.id, e]));
         for (const r of full.elements) {
-          if (!['rectifier', 'dc-dc', 'inverter', 'generic', 'dc-bus', 'transformer'].includes(r.kind)) continue;
+          if (!['rectifier', 'dc-dc', 'inverter', 'generic', 'dc-bus', 'transfer-switch', 'transformer'].includes(r.kind)) continue;
           const h = halfById.get(r.id)!;
           // Only where the 0…loss limit acts on neither (it can, for a fit with a negative term).
           if (r.idleLoss === undefined || h.idleLoss === undefined || h.idleLoss >= h.loss || r.idleLoss >= r.loss) continue;

@@ -130,3 +130,56 @@ describe('both modes of a random chain with a bank on a bus', () => {
     expect(solvedBattery / runs).toBeGreaterThanOrEqual(0.8);
   });
 });
+
+/**
+ * The same random plants with a transfer switch on the supply side and one on each inverter's output
+ * (contact resistance and control power drawn at random), and each inverter an inverter-charger with a
+ * pass-through limit: on supply the variant passing the supply through, on battery, and the recharge
+ * case from the on-supply mode all balance to 1e-9.
+ */
+function withSwitches(p: { elements: Record<string, unknown>[] }, r: number, control: number, limit: number): unknown {
+  const el: Record<string, unknown>[] = [];
+  for (const e of p.elements) {
+    if (e['kind'] === 'rectifier') {
+      el.push({ id: 'ats', kind: 'transfer-switch', from: e['from'], contactResistance: r, controlPower: control, transferTime: 0.1 });
+      el.push({ ...e, from: 'ats' });
+    } else if (e['kind'] === 'inverter') {
+      el.push({ ...e, passThroughLimit: limit });
+      el.push({ id: `${String(e['id'])}-sw`, kind: 'transfer-switch', from: e['id'], contactResistance: r, controlPower: control });
+    } else if (e['kind'] === 'ac-load') {
+      el.push({ ...e, from: `${String(e['from'])}-sw` });
+    } else el.push(e);
+  }
+  return { ...p, elements: el };
+}
+
+describe('both modes of a random chain with transfer switches and inverter-chargers passing the supply through', () => {
+  it('balance to 1e-9 on supply (passing through), on battery and in the recharge case', () => {
+    fc.assert(
+      fc.property(chainArb, fc.double({ min: 0, max: 0.005, noNaN: true }), fc.double({ min: 0, max: 40, noNaN: true }), fc.double({ min: 1, max: 40, noNaN: true }), (c, r, control, limit) => {
+        const p = withSwitches(projectOf(c) as { elements: Record<string, unknown>[] }, r, control, limit);
+        const s = solveProject(p);
+        if (!s.ok) throw new Error(`supply mode refused: ${JSON.stringify(s.problems)}`);
+        expect(s.result.totals.balanceError).toBeLessThan(REL);
+        const m = solveModes(s)!;
+        const inverters = s.project.elements.filter((e) => e.kind === 'inverter').length;
+        if (inverters > 0) {
+          expect(m.passThrough?.problems).toBeNull();
+          expect(m.passThrough?.places.length).toBe(inverters);
+        }
+        expect(m.supply.result.totals.balanceError).toBeLessThan(REL);
+        if (m.battery.ok) expect(m.battery.result.totals.balanceError).toBeLessThan(REL);
+        const study = runModesStudy(s, m);
+        if (!study || !study.ok) throw new Error(`modes study refused: ${JSON.stringify(study)}`);
+        const rc = solveVariant(m.supply, rechargeChange(m.supply.project, m.place, study.study.charger.rechargeCurrent));
+        if (rc.ok) expect(rc.result.totals.balanceError).toBeLessThan(REL);
+        else expect(rc.problems.map((x) => x.code)).toEqual(['infeasible-load']);
+        // Every switch's loss is in the standing losses.
+        const switches = m.supply.result.elements.filter((e) => e.kind === 'transfer-switch').reduce((a, e) => a + e.loss, 0);
+        expect(study.study.standing.switches).toBeCloseTo(switches, 9);
+        return true;
+      }),
+      { numRuns: 40 * SCALE, seed: 190025 },
+    );
+  });
+});

@@ -95,6 +95,7 @@ function chainFor(kind: ElementKind): FormElement[] {
     case 'motor':
       return [grid3, me('src'), { id: 'load', kind: 'shaft-load', from: 'me', power: 5000 }];
     case 'cable':
+    case 'transfer-switch':
       return [grid1, me('src'), { id: 'load', kind: 'ac-load', from: 'me', power: 2000, powerFactor: 0.9 }];
     case 'generic':
       return [dc, me('src'), { id: 'load', kind: 'dc-load', from: 'me', power: 200 }];

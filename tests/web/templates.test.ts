@@ -95,8 +95,8 @@ describe('templates after every plausible feeding port', () => {
       const p = project([source(key)]);
       return templatesAfter({ port: nominalPorts(p).get(p.elements[0]!.id)!, project: p }).map((t) => t.kind).sort();
     };
-    expect(kindsAt('battery-48')).toEqual(['cable', 'dc-bus', 'dc-current-load', 'dc-dc', 'dc-load', 'generic', 'inverter']);
-    expect(kindsAt('grid-3-400')).toEqual(['ac-current-load', 'ac-load', 'ac-va-load', 'cable', 'drive', 'generic', 'motor', 'network-load', 'rectifier', 'transformer']);
+    expect(kindsAt('battery-48')).toEqual(['cable', 'dc-bus', 'dc-current-load', 'dc-dc', 'dc-load', 'generic', 'inverter', 'transfer-switch']);
+    expect(kindsAt('grid-3-400')).toEqual(['ac-current-load', 'ac-load', 'ac-va-load', 'cable', 'drive', 'generic', 'motor', 'network-load', 'rectifier', 'transfer-switch', 'transformer']);
     const shaft = templatesAfter({ port: { kind: 'shaft' } }).map((t) => t.kind).sort();
     expect(shaft).toEqual(['fan', 'pump', 'shaft-load']);
     // Sources are never offered as a stage.

@@ -267,6 +267,11 @@ export function templateFor(kind: ElementKind, ctx: TemplateContext): DraftEleme
     case 'dc-bus':
       if (port.kind === 'dc') t = { id: 'dc-bus', kind, fixedLoss: 5 };
       break;
+    case 'transfer-switch':
+      // A transfer switch on any electrical port: 0.5 mΩ per pole, 15 W of control power, 4 ms transfer
+      // (typical values from memory; the form says to use the maker's figures).
+      if (port.kind !== 'shaft') t = { id: 'transfer-switch', kind, contactResistance: 0.0005, controlPower: 15, transferTime: 0.004 };
+      break;
     case 'rectifier':
       if (ac) t = { id: 'charger', kind, outputVoltage: 48, inputPowerFactor: 0.95, loss: constantLoss(0.92) };
       break;

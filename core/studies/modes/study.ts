@@ -6,14 +6,19 @@
  * - Energy balance per mode: the solve's own (source power = loads + losses, core/solve/report.ts).
  * - Charger sizing, IEEE Std 946 (DC auxiliary power systems) charger output: A = L + k·C/H, with
  *   L the continuous load on the bus (the bus's input current on float less the bank's float current),
- *   C the charge to put back (Ah: `standby.rechargeAh`, else the bank's rated capacity), H the target
+ *   C the charge to put back (Ah: `standby.rechargeAh`, else the charge the backup study's outage drew
+ *   from the bank when the project has a backup study, else the bank's rated capacity), H the target
  *   recharge time (h, default 8 h: common practice) and k the charge-return factor of the chemistry
  *   (core/data/standby-charge.ts; 1.1 lead-acid from memory). Modules: n = ⌈A ÷ module⌉, plus one for
  *   N+1 redundancy. The recharge case (the bank drawing k·C/H) is solved as a variant; the supply
  *   current and the supply-side cable sizes are that case's (the worst case, not the float case).
- * - Standing losses on supply: every loss of the on-supply solve (conversion, idle, cables, the
- *   source's own) plus the bank's float power, held for the hours the supply is on per year
+ * - Standing losses on supply: every loss of the on-supply solve (conversion, idle, cables, transfer
+ *   switches (contact I²R and control power, core/kinds/transfer-switch.ts), the source's own) plus the
+ *   bank's float power, held for the hours the supply is on per year
  *   (8760 − outage hours): E = P·t, cost = E in kWh × price (core/studies/economics.ts's method).
+ * - On supply with an inverter-charger passing the supply through (core/solve/modes.ts): the on-supply
+ *   solve is that variant (its relay feeds the loads from the charger's feed; the inverter stays on the
+ *   bus at its idle draw); a warning when the loads' current through the relay exceeds the limit.
  * - Transfer: the bank on float holds the EMF E_f = V_float − I_float·R (its terminal voltage on
  *   supply less the float current's drop in its internal resistance R, Thévenin model); the moment
  *   the supply is cut it carries the bus from that EMF: the on-battery chain solved with a bank of
@@ -24,123 +29,24 @@
 import type { BatterySource, Element } from '../../model/project.ts';
 import type { ElementResult, SolveResult } from '../../model/result.ts';
 import type { Problem } from '../../model/errors.ts';
-import { say, q, type Worded } from '../../model/message.ts';
+import { say, q, sigText, type Worded } from '../../model/message.ts';
 import { resolveBank } from '../../physics/bank.ts';
 import { STANDBY_CHARGE } from '../../data/standby-charge.ts';
-import { isPassive } from '../../kinds/index.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveVariant } from '../../solve/variant.ts';
-import { onBatteryChange, rechargeChange, solveModes, type BankPlace, type Modes } from '../../solve/modes.ts';
+import { chargerOf, onBatteryChange, rechargeChange, solveModes, type Modes } from '../../solve/modes.ts';
 import { HOURS_IN_YEAR, costSettingsOf } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
+import { simulateDischarge } from '../backup/discharge.ts';
+import { batteryPathWarnings, switchWorking } from './switches.ts';
+import { cablesAcrossModes } from './cables.ts';
 
 /** Target recharge time when none is given, h (common practice: 8–12 h for a standby lead-acid plant). */
 export const DEFAULT_RECHARGE_HOURS = 8;
 
-export type ModeName = 'supply' | 'battery';
+export type { ModeName, ModeFigures, RectifierSizing, CableSize, StandingLosses, Transfer, PassThroughWorking, ModesStudyResult, ModesStudyOutcome, ModesStudyOptions } from './types.ts';
+import type { ModeName, ModeFigures, RectifierSizing, CableSize, StandingLosses, Transfer, PassThroughWorking, ModesStudyResult, ModesStudyOutcome, ModesStudyOptions } from './types.ts';
 
-/** One mode's balance and losses. */
-export interface ModeFigures {
-  mode: ModeName;
-  /** The element at the root in this mode (the supply, or the bank). */
-  sourceId: string;
-  sourceName: string;
-  sourcePower: number;
-  loadPower: number;
-  losses: number;
-  /** |source − loads − losses| ÷ source (the solve's balance error). */
-  balanceError: number;
-  efficiency: number;
-}
-
-export interface RectifierSizing {
-  method: string;
-  /** The converter that feeds the bus (the rectifier or charger). */
-  chargerId: string | null;
-  chargerName: string | null;
-  /** Continuous load on the bus L, A. */
-  loadCurrent: number;
-  /** Charge to put back C, Ah, and where it came from. */
-  rechargeAh: number;
-  rechargeAhFrom: 'given' | 'bank capacity';
-  /** Target recharge time H, h. */
-  rechargeHours: number;
-  /** Charge-return factor k (the user's, else the chemistry's typical value) and where it came from. */
-  chargeReturnFactor: number;
-  chargeReturnFactorFrom: 'given' | 'typical';
-  /** Recharge current k·C/H, A. */
-  rechargeCurrent: number;
-  /** Charger capacity A = L + k·C/H, A. */
-  requiredCurrent: number;
-  /** Modules (when a module size is given). */
-  modules?: { moduleCurrent: number; needed: number; installed: number; redundancy: 'none' | 'n+1'; installedCurrent: number };
-  /** The recharge case: the supply's current and power, and the supply-side cables sized for it. */
-  rechargeCase: { ok: true; supplyCurrent: number; supplyPower: number; rectifierOutputCurrent: number | null; cables: CableSize[] } | { ok: false; problems: Problem[] };
-}
-
-export interface CableSize {
-  id: string;
-  name: string;
-  /** Current in this case, A. */
-  current: number;
-  /** Size the conductor sizing chose or checked (absent on a cable given by its resistance). */
-  size?: string;
-  designCurrent?: number;
-}
-
-export interface StandingLosses {
-  /** W, on supply. */
-  conversion: number;
-  idle: number;
-  cables: number;
-  source: number;
-  bankFloat: number;
-  total: number;
-  hoursOnSupply: number;
-  outageHoursPerYear: number;
-  energyKWh: number;
-  pricePerKWh?: number;
-  cost?: number;
-}
-
-export interface Transfer {
-  /** Bank current on float, A (into the bank). */
-  floatCurrent: number;
-  floatCurrentNote: string;
-  /** EMF the bank holds on float, V. */
-  floatEmf: number;
-  internalResistance: number;
-  /** Bank current out just after the supply is cut, A, and the step from float. */
-  currentAtTransfer: number;
-  currentStep: number;
-  /** Bus voltage on supply, at the moment of transfer, and settled (bank at its open-circuit voltage). */
-  busVoltageOnSupply: number;
-  busVoltageAtTransfer: number;
-  busVoltageSettled: number | null;
-  /** The bank's maximum discharge current (chemistry C-rate × Ah), A. */
-  maxDischargeCurrent: number;
-}
-
-export interface ModesStudyResult {
-  place: BankPlace;
-  bankName: string;
-  busName: string;
-  supply: ModeFigures;
-  /** On battery, or why the bank cannot carry the bus. */
-  battery: ModeFigures | { ok: false; problems: Problem[] };
-  charger: RectifierSizing;
-  standing: StandingLosses;
-  transfer: Transfer | null;
-  /**
-   * Cables whose size differs between the cases (each case sizes the cables it carries for its own
-   * current: on supply at float, on supply recharging, on battery); `use` is the largest (by area).
-   */
-  cableSizes: { id: string; name: string; float?: string; recharge?: string; battery?: string; use: string }[];
-  warnings: Worded[];
-  cautions: string[];
-}
-
-export type ModesStudyOutcome = { ok: true; study: ModesStudyResult } | { ok: false; problems: Problem[] } | null;
 
 const figuresOf = (mode: ModeName, r: SolveResult): ModeFigures => {
   const src = r.elements[0]!;
@@ -152,18 +58,20 @@ const byId = (r: SolveResult): Map<string, ElementResult> => new Map(r.elements.
 /** Hours in a common year, less the outage hours (the supply is on the rest). */
 const hoursOnSupply = (outage: number): number => Math.max(0, HOURS_IN_YEAR - outage);
 
+
 /**
  * The modes study of a solved project: null when the project has no bank on a bus. Never validates or
  * solves the base case again; the on-battery, recharge and transfer chains are variants.
  */
-export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(solved)): ModesStudyOutcome {
+export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(solved), options: ModesStudyOptions = {}): ModesStudyOutcome {
   if (!modes) return null;
   const { place } = modes;
   const project = solved.project;
   const settings = project.standby ?? {};
   // The price the cost of the losses uses (a night price gives the day's mean: economics.ts).
   const price = costSettingsOf(project)?.pricePerKWh;
-  const supply = solved.result;
+  // On supply: the file as drawn, or the variant in which an inverter-charger passes the supply through.
+  const supply = modes.supply.result;
   const el = byId(supply);
   const bankEl = project.elements.find((e): e is BatterySource => e.id === place.bankId && e.kind === 'battery')!;
   const spec = bankEl.bank!;
@@ -178,11 +86,20 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   const loadCurrent = Math.max(0, busRes.input!.current - floatCurrent);
   const chemistry = STANDBY_CHARGE[spec.chemistry];
   const k = settings.chargeReturnFactor ?? chemistry.chargeReturnFactor;
-  const rechargeAh = settings.rechargeAh ?? bank.capacityAh;
+  // C: the user's figure; else the charge the outage of the backup study drew from the bank (its
+  // discharge on battery: Ah out of the terminals over the study), when the project has one; else the
+  // bank's rated capacity (a full discharge).
+  let drawnAh = options.dischargeAh;
+  if (settings.rechargeAh === undefined && drawnAh === undefined && project.backup !== undefined && modes.battery.ok) {
+    const d = simulateDischarge(modes.battery);
+    if (d.ok) drawnAh = d.result.deliveredAh;
+  }
+  const rechargeAhFrom: RectifierSizing['rechargeAhFrom'] = settings.rechargeAh !== undefined ? 'given' : drawnAh !== undefined && project.backup !== undefined ? 'backup study' : 'bank capacity';
+  const rechargeAh = rechargeAhFrom === 'given' ? settings.rechargeAh! : rechargeAhFrom === 'backup study' ? drawnAh! : bank.capacityAh;
   const H = settings.targetRechargeHours ?? DEFAULT_RECHARGE_HOURS;
   const rechargeCurrent = (k * rechargeAh) / H;
   const required = loadCurrent + rechargeCurrent;
-  const charger = feederConverter(project.elements, place.busId);
+  const charger = chargerOf(project.elements, place.busId);
   const redundancy = settings.redundancy ?? 'n+1';
   let modules: RectifierSizing['modules'];
   if (settings.moduleCurrent !== undefined && settings.moduleCurrent > 0) {
@@ -193,7 +110,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   if (charger?.kind === 'rectifier' && charger.ratedOutputCurrent !== undefined && charger.ratedOutputCurrent < required) {
     warnings.push(say`the rated output current ${q(charger.ratedOutputCurrent, 'A')} of "${charger.name ?? charger.id}" is below the ${q(required, 'A')} it must give to carry the bus and recharge the bank in ${q(H, 'h')}`);
   }
-  const recharge = solveVariant(solved, rechargeChange(project, place, rechargeCurrent));
+  const recharge = solveVariant(modes.supply, rechargeChange(modes.supply.project, place, rechargeCurrent));
   const rechargeResult = recharge.ok ? recharge.result : undefined;
   let rechargeCase: RectifierSizing['rechargeCase'];
   if (recharge.ok) {
@@ -216,7 +133,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     chargerName: charger ? (charger.name ?? charger.id) : null,
     loadCurrent,
     rechargeAh,
-    rechargeAhFrom: settings.rechargeAh !== undefined ? 'given' : 'bank capacity',
+    rechargeAhFrom,
     rechargeHours: H,
     chargeReturnFactor: k,
     chargeReturnFactorFrom: settings.chargeReturnFactor !== undefined ? 'given' : 'typical',
@@ -226,22 +143,55 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     rechargeCase,
   };
 
+  // ---- an inverter-charger's pass-through (core/solve/modes.ts) ----
+  const passThrough: PassThroughWorking[] = [];
+  if (modes.passThrough) {
+    const pt = modes.passThrough;
+    const nameOf = (id: string): string => {
+      const e = project.elements.find((x) => x.id === id);
+      return e?.name ?? id;
+    };
+    for (const r of pt.refused) warnings.push({ message: `"${nameOf(r.inverterId)}" cannot pass the supply through to its loads: ${r.reason}; on supply it is taken to carry them itself` });
+    if (pt.problems) {
+      warnings.push({ message: `the supply cannot be passed through to the loads of ${pt.places.map((p) => `"${nameOf(p.inverterId)}"`).join(', ')}: ${pt.problems[0]?.message ?? 'the chain has no solution'}; on supply the inverter is taken to carry them itself` });
+    } else {
+      for (const p of pt.places) {
+        const name = nameOf(p.inverterId);
+        const current = el.get(p.relayId)?.input?.current ?? 0;
+        const idleKept = el.get(p.inverterId)?.loss ?? 0;
+        passThrough.push({
+          inverterId: p.inverterId,
+          inverterName: name,
+          limit: p.limit,
+          current,
+          inverterIdle: idleKept,
+          note: `on supply the transfer relay of "${name}" passes the supply straight to its loads: its conversion losses drop out; its idle draw (${sigText(idleKept, 4)} W) stays, taken to stay on, synchronised and ready to take the loads (a unit that switches its inverter off while passing through draws none: use the maker's figure); when the supply is cut the relay moves the loads onto the inverter: they see a break of the maker's transfer time`,
+        });
+        if (current > p.limit * (1 + 1e-9)) {
+          warnings.push(say`on supply the loads of "${name}" take ${q(current, 'A')} through its pass-through relay, above its pass-through limit ${q(p.limit, 'A')}`);
+        }
+      }
+    }
+  }
+
   // ---- standing losses on supply ----
   let conversion = 0;
   let idle = 0;
   let cables = 0;
+  let switches = 0;
   let source = 0;
   for (const e of supply.elements) {
     if (e.role === 'load') continue;
     if (e.role === 'source') source += e.loss;
     else if (e.kind === 'cable') cables += e.loss;
+    else if (e.kind === 'transfer-switch') switches += e.loss;
     else {
       idle += e.idleLoss ?? 0;
       conversion += e.loss - (e.idleLoss ?? 0);
     }
   }
   const bankFloat = bankRes.pIn;
-  const total = conversion + idle + cables + source + bankFloat;
+  const total = conversion + idle + cables + switches + source + bankFloat;
   const outage = settings.outageHoursPerYear ?? 0;
   const onHours = hoursOnSupply(outage);
   const energyKWh = (total * onHours) / 1000;
@@ -249,6 +199,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     conversion,
     idle,
     cables,
+    switches,
     source,
     bankFloat,
     total,
@@ -304,7 +255,15 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     }
   }
   if (modes.battery.ok) {
-    for (const w of modes.battery.result.warnings) warnings.push({ message: `on battery: ${w.message}`, ...(w.template ? { template: `on battery: ${w.template}`, values: w.values ?? [] } : {}) });
+    // What the on-battery path cannot carry, each named with both figures (switches.ts); the solve's own
+    // rating warnings of those elements are then left out (the named one says it).
+    const path = batteryPathWarnings(project.elements, place, bankEl.name ?? bankEl.id, bank.maxDischargeCurrent, modes.battery.result);
+    const named = new Set(path.map((w) => w.elementId));
+    for (const { elementId: _id, ...w } of path) warnings.push(w);
+    for (const w of modes.battery.result.warnings) {
+      if (w.code === 'rating-exceeded' && named.has(w.elementId)) continue;
+      warnings.push({ message: `on battery: ${w.message}`, ...(w.template ? { template: `on battery: ${w.template}`, values: w.values ?? [] } : {}) });
+    }
   }
   if (problems.length) return { ok: false, problems };
 
@@ -337,6 +296,9 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
       charger: chargerSizing,
       standing,
       transfer,
+      ...(modes.passThrough ? { passThrough } : {}),
+      switches: switchWorking(project.elements, place, supply, modes.battery.ok ? modes.battery.result : undefined),
+      cables: cablesAcrossModes({ supply, battery: modes.battery.ok ? modes.battery.result : undefined, recharge: rechargeResult }),
       cableSizes,
       warnings,
       cautions: [
@@ -345,19 +307,6 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
       ],
     },
   };
-}
-
-/** The first element above the bus that is not passive (the rectifier or charger feeding it), or null. */
-function feederConverter(elements: readonly Element[], busId: string): Element | null {
-  const byIdMap = new Map(elements.map((e) => [e.id, e]));
-  let at = byIdMap.get(busId);
-  const seen = new Set<string>();
-  while (at && 'from' in at && at.from !== undefined && !seen.has(at.id)) {
-    seen.add(at.id);
-    at = byIdMap.get(at.from);
-    if (at && !isPassive(at.kind)) return at;
-  }
-  return null;
 }
 
 /** Ids from the root down to the element (inclusive). */

@@ -4,6 +4,10 @@
  */
 import { figure, sigText } from '../../model/message.ts';
 import type { ModeFigures, ModesStudyResult } from './study.ts';
+import { CASE_WORDS } from './cables.ts';
+
+const AH_FROM = { given: 'given', 'backup study': 'drawn from the bank in the backup study\u2019s outage', 'bank capacity': 'bank capacity' } as const;
+const CASE_SHORT = { supply: 'on float', recharge: 'recharging', battery: 'on battery' } as const;
 
 const w = (x: number): string => `${sigText(x, 4)} W`;
 const a = (x: number): string => `${sigText(x, 4)} A`;
@@ -23,7 +27,7 @@ export function formatModesStudy(s: ModesStudyResult): string {
   const c = s.charger;
   out.push('', `Charger sizing (${c.method})`);
   out.push(`  Charger: ${c.chargerName ?? 'none found above the bus'}`);
-  out.push(`  L = ${a(c.loadCurrent)} continuous load on the bus; C = ${sigText(c.rechargeAh, 4)} Ah (${c.rechargeAhFrom}); H = ${sigText(c.rechargeHours, 3)} h; k = ${c.chargeReturnFactor}${c.chargeReturnFactorFrom === 'typical' ? ' (typical value: use the maker\u2019s figure)' : ''}`);
+  out.push(`  L = ${a(c.loadCurrent)} continuous load on the bus; C = ${sigText(c.rechargeAh, 4)} Ah (${AH_FROM[c.rechargeAhFrom]}); H = ${sigText(c.rechargeHours, 3)} h; k = ${c.chargeReturnFactor}${c.chargeReturnFactorFrom === 'typical' ? ' (typical value: use the maker\u2019s figure)' : ''}`);
   out.push(`  Recharge current k·C/H = ${a(c.rechargeCurrent)}; charger capacity A = ${a(c.requiredCurrent)}`);
   if (c.modules) {
     const m = c.modules;
@@ -37,9 +41,17 @@ export function formatModesStudy(s: ModesStudyResult): string {
     out.push(`  Recharge case cannot be solved: ${c.rechargeCase.problems[0]?.message ?? 'no solution'}`);
   }
 
+  if (s.passThrough?.length) {
+    out.push('', 'Pass-through on supply (inverter-charger)');
+    for (const p of s.passThrough) {
+      out.push(`  ${p.inverterName}: the loads take ${a(p.current)} through its relay (pass-through limit ${a(p.limit)}); inverter idle ${w(p.inverterIdle)}`);
+      out.push(`    ${p.note}`);
+    }
+  }
+
   const st = s.standing;
   out.push('', 'Cost of standing by (on supply)');
-  out.push(`  Standing losses ${w(st.total)}: conversion ${w(st.conversion)}, idle ${w(st.idle)}, cables ${w(st.cables)}, supply ${w(st.source)}, bank float ${w(st.bankFloat)}`);
+  out.push(`  Standing losses ${w(st.total)}: conversion ${w(st.conversion)}, idle ${w(st.idle)}, cables ${w(st.cables)}, ${st.switches > 0 ? `transfer switches ${w(st.switches)}, ` : ''}supply ${w(st.source)}, bank float ${w(st.bankFloat)}`);
   out.push(`  ${sigText(st.hoursOnSupply, 4)} h a year on supply (${sigText(st.outageHoursPerYear, 3)} h of outage expected): ${sigText(st.energyKWh, 4)} kWh a year${st.cost !== undefined ? `, ${figure(st.cost, 2)} a year at ${sigText(st.pricePerKWh!, 3)} per kWh` : ''}`);
 
   const t = s.transfer;
@@ -49,9 +61,15 @@ export function formatModesStudy(s: ModesStudyResult): string {
     out.push(`  At transfer: ${a(t.currentAtTransfer)} out, a step of ${a(t.currentStep)} (maximum discharge current ${a(t.maxDischargeCurrent)})`);
     out.push(`  Bus voltage: ${v(t.busVoltageOnSupply)} on supply, ${v(t.busVoltageAtTransfer)} at transfer${t.busVoltageSettled !== null ? `, ${v(t.busVoltageSettled)} settled on battery` : ''}`);
   }
-  if (s.cableSizes.length) {
-    out.push('', 'Cables sized differently in the cases (use the largest)');
-    for (const k of s.cableSizes) out.push(`  ${k.name}: ${k.float ?? '—'} on float, ${k.recharge ?? '—'} recharging, ${k.battery ?? '—'} on battery: use ${k.use}`);
+  for (const k of s.switches) {
+    out.push(`  ${k.name}: ${w(k.lossOnSupply)} on supply${k.lossOnBattery !== null ? `, ${w(k.lossOnBattery)} on battery` : ''}; ${k.note}`);
+  }
+  if (s.cables.length) {
+    out.push('', 'Cable sizes across the modes (each the largest its cases need)');
+    for (const k of s.cables) {
+      const each = (['supply', 'recharge', 'battery'] as const).filter((c) => k.sizes[c] !== null).map((c) => `${k.sizes[c]} ${CASE_SHORT[c]}`);
+      out.push(`  ${k.name}: ${k.governing}, sized for ${CASE_WORDS[k.governingCase]}${each.length > 1 ? ` (${each.join(', ')})` : ''}`);
+    }
   }
   for (const x of s.warnings) out.push(`  Warning: ${x.message}`);
   out.push('  The studies below run on supply (the file as drawn), except the battery backup study, which runs on battery.');

@@ -55,6 +55,7 @@ export const inverterForm: KindForm = {
     lossGroup(),
     { type: 'number', path: 'lowVoltageCutoff', label: 'Low-voltage cut-off (DC input)', quantity: 'voltage', required: false, help: 'Where it shuts down; checked while a motor starts.' },
     ratingField('ratedOutputPower', 'Rated continuous output power', 'power-rating', 'From the maker’s datasheet; with the low-voltage cut-off it sets the design current of the cable feeding it.'),
+    { type: 'number', path: 'passThroughLimit', label: 'Pass-through limit (inverter-charger)', quantity: 'current', required: false, help: 'An inverter-charger on a battery bus: on supply its transfer relay passes the supply straight to its loads, up to this current (from the maker’s datasheet).' },
     optionalBlock(
       'surge',
       'Surge rating',
@@ -66,6 +67,17 @@ export const inverterForm: KindForm = {
       ],
       'What it can deliver for a short time: will it start a motor?',
     ),
+  ],
+};
+
+export const transferSwitchForm: KindForm = {
+  kind: 'transfer-switch',
+  fields: [
+    name,
+    { type: 'number', path: 'contactResistance', label: 'Contact resistance per pole', quantity: 'resistance', required: true, default: 0.0005, help: 'I²R in each current-carrying conductor (two on DC and single-phase, three on three-phase). 0.5 mΩ is a typical value: use the maker’s figure.' },
+    { type: 'number', path: 'controlPower', label: 'Control power', quantity: 'power', required: true, default: 15, help: 'Coils and control electronics, drawn all the time. 15 W is a typical value: use the maker’s figure.' },
+    { type: 'number', path: 'ratedCurrent', label: 'Rated current', quantity: 'current', required: false, help: 'From the maker’s datasheet: a warning when the current through it is higher.' },
+    { type: 'number', path: 'transferTime', label: 'Transfer time', quantity: 'seconds', required: false, help: 'The break the loads below it see when it transfers (0.004 s = 4 ms), unless they are on an inverter’s output side. Typical value: use the maker’s figure.' },
   ],
 };
 

@@ -6,7 +6,7 @@
 import { type ElementKind, KINDS } from '../../../core/page.ts';
 import { cableForm } from './cable.ts';
 import { purchasePrice, valueAt } from './common.ts';
-import { dcBusForm, dcDcForm, genericForm, inverterForm, rectifierForm, transformerForm } from './converters.ts';
+import { dcBusForm, dcDcForm, genericForm, inverterForm, rectifierForm, transferSwitchForm, transformerForm } from './converters.ts';
 import { acCurrentLoadForm, acLoadForm, acVaLoadForm, dcCurrentLoadForm, dcLoadForm, fanForm, networkLoadForm, pumpForm, shaftLoadForm } from './loads.ts';
 import { driveForm, motorForm } from './machines.ts';
 import { acSource, batteryForm } from './sources.ts';
@@ -25,6 +25,7 @@ const OWN_FORMS: Readonly<Record<ElementKind, KindForm>> = {
   motor: motorForm,
   cable: cableForm,
   generic: genericForm,
+  'transfer-switch': transferSwitchForm,
   'dc-load': dcLoadForm,
   'ac-load': acLoadForm,
   'ac-va-load': acVaLoadForm,
