@@ -12,7 +12,7 @@ import { ProblemList } from './ProblemList.tsx';
 import { CableTable, ElementTable, MethodNote, PortTable, WarningList } from './Results.tsx';
 import { PanelDisclosure, PanelShelf } from './PanelShelf.tsx';
 import { AnswersStrip } from './answers/AnswersStrip.tsx';
-import { batteryPairFor, hasBankOnBus, MODE_WORDS, shownMode } from './modes/mode-state.ts';
+import { batteryPairFor, hasBankOnBus, MODE_WORDS, shownMode, supplyPairFor } from './modes/mode-state.ts';
 import { lazy, memo, Suspense } from 'preact/compat';
 import { useSignal } from '@preact/signals';
 import { useEffect, useLayoutEffect, useRef } from 'preact/hooks';
@@ -104,8 +104,10 @@ function ShownProject() {
   const twoModes = solved !== null && hasBankOnBus(solved.project);
   const batteryPair = twoModes && shownMode.value === 'battery' ? batteryPairFor(solved!) : null;
   const onBattery = batteryPair?.result ?? null;
-  const shownPair = batteryPair ?? solved;
-  const shownResult = onBattery ?? result;
+  // With an inverter-charger's pass-through the on-supply mode is its own solve (the worker's), else the page's.
+  const supplyPair = twoModes && !batteryPair ? supplyPairFor(solved!) : null;
+  const shownPair = batteryPair ?? supplyPair ?? solved;
+  const shownResult = onBattery ?? supplyPair?.result ?? result;
   const modeWords = twoModes ? (onBattery ? MODE_WORDS.battery : MODE_WORDS.supply) : undefined;
   return (
     <article class="project" aria-labelledby="project-heading" data-testid="project">

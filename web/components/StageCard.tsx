@@ -85,6 +85,12 @@ export function keyInputs(e: DraftElement, input: FeedingPort | undefined, units
       lines.push(lossWords(e['loss'], locale));
       break;
     }
+    case 'transfer-switch': {
+      const rated = num(e['ratedCurrent']);
+      const t = num(e['transferTime']);
+      lines.push([rated !== undefined ? `rated ${formatCurrent(rated, locale)}` : undefined, t !== undefined ? `transfer ${formatSignificant(t * 1000, 3, locale)}${UNIT_GAP}ms` : undefined].filter(Boolean).join(', ') || undefined);
+      break;
+    }
     case 'dc-bus': {
       const loss = num(e['fixedLoss']);
       if (loss !== undefined) lines.push(`own loss ${formatPower(loss, locale)}`);

@@ -226,7 +226,7 @@ export function acFaults(project: Project, result: SolveResult): { walk: Walk; v
       let nz: { r: number; x: number } | null = null;
       let nwhy = why;
       if (t.impedancePercent === undefined) {
-        nwhy = `transformer "${t.id}" has no impedancePercent: its short-circuit impedance limits the fault current; enter u_k from its nameplate`;
+        nwhy = `transformer "${t.name ?? t.id}" has no impedance (u_k %): its short-circuit impedance limits the fault current; enter u_k from its nameplate`;
       } else if (z) {
         const ratio2 = (u2 / t.primaryVoltage) ** 2;
         const zBase = (u2 * u2) / t.ratedApparentPower;

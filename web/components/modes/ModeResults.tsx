@@ -65,7 +65,8 @@ export default function ModeResults({ solved }: { solved: Solved }) {
     const o = reply.outcome;
     // The on-battery pair as one object per reply: the tables that show it lag on its identity.
     const batteryPair = o.ok && o.battery.ok ? { ok: true as const, project: o.battery.project, result: o.battery.result } : undefined;
-    modesReply.value = { for: solved, open: openCount.value, outcome: o, ...(batteryPair ? { batteryPair } : {}) };
+    const supplyPair = o.ok && o.supply ? { ok: true as const, project: o.supply.project, result: o.supply.result } : undefined;
+    modesReply.value = { for: solved, open: openCount.value, outcome: o, ...(batteryPair ? { batteryPair } : {}), ...(supplyPair ? { supplyPair } : {}) };
   }, [reply]);
   // Another project opened (App.tsx keys this part by it) starts on supply again.
   useEffect(() => () => void (shownMode.value = 'supply'), []);

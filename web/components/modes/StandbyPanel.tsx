@@ -40,7 +40,7 @@ const label = (path: string) => fieldLabel('project', path);
 function rechargeAhFromWords(from: string): string {
   if (from === 'given') return 'given';
   if (from === 'bank capacity') return 'the bank’s rated capacity';
-  if (/drawn|outage/.test(from)) return 'the charge the outage drew';
+  if (from === 'backup study' || /drawn|outage/.test(from)) return 'the charge the outage drew in the battery backup study';
   return from;
 }
 

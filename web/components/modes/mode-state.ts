@@ -18,7 +18,7 @@ export const shownMode = signal<ShownMode>('supply');
  * carry the bus, the on-battery solved pair (the re-rooted project and its result, as the worker gave
  * them: one object per reply, so the tables that lag on it keep one identity).
  */
-export const modesReply = signal<{ for: Solved; open?: number; outcome: ModesReply['outcome']; batteryPair?: Solved } | null>(null);
+export const modesReply = signal<{ for: Solved; open?: number; outcome: ModesReply['outcome']; batteryPair?: Solved; supplyPair?: Solved } | null>(null);
 
 /**
  * Whether a project has a bank on a bus: a battery fed from another element (core/solve/modes.ts
@@ -36,6 +36,12 @@ export function batteryResultFor(solved: Solved): SolveResult | null {
   const r = modesReply.value;
   if (!r || r.for !== solved || !r.outcome.ok || !r.outcome.battery.ok) return null;
   return r.outcome.battery.result;
+}
+
+/** The on-supply solved pair when it is not the page's own solve (an inverter-charger's pass-through), when the worker has given it. */
+export function supplyPairFor(solved: Solved): Solved | null {
+  const r = modesReply.value;
+  return r && r.for === solved ? (r.supplyPair ?? null) : null;
 }
 
 /** The on-battery solved pair (its project and result) for this solved pair, when the worker has given it. */
