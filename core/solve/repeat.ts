@@ -289,6 +289,8 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     return { voltage: vOut[0]!.re, current, terminalPower, internalLoss: resistance * current * current, chainLoss, loadPower };
   };
 
+  // Which of the three step solves serves this chain, chosen once (not at every step).
+  const stepSolve = fast ? (realArithmetic ? solveTopReal : solveTop) : solveWhole;
   return {
     ok: true,
     solver: {
@@ -296,7 +298,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       loadIds: loadIdx.map((i) => order[i]!.element.id),
       fast,
       prepare,
-      solve: (state, emf, resistance) => (fast ? (realArithmetic ? solveTopReal : solveTop) : solveWhole)(states[state]!, emf, resistance),
+      solve: (state, emf, resistance) => stepSolve(states[state]!, emf, resistance),
     },
   };
 }
