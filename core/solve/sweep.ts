@@ -45,11 +45,27 @@ const vInOf = (order: readonly PlannedElement[], vOut: readonly Complex[], i: nu
 function backward(order: readonly PlannedElement[], vOut: readonly Complex[], sIn: Complex[], sOut: Complex[]): void {
   for (let i = order.length - 1; i >= 0; i--) {
     const node = order[i]!;
-    let s = ZERO;
-    for (const child of node.children) s = add(s, sIn[child]!);
+    // Σ of the children's input power, summed in their order from 0 (as `add` would, one object).
+    const children = node.children;
+    let re = 0;
+    let im = 0;
+    for (let k = 0; k < children.length; k++) {
+      const x = sIn[children[k]!]!;
+      re += x.re;
+      im += x.im;
+    }
+    const s: Complex = children.length === 0 ? ZERO : { re, im };
     sOut[i] = s;
     sIn[i] = node.model.inputPower(s, vInOf(order, vOut, i), vOut[i]!);
   }
+}
+
+/** |a − b| as `abs(sub(a, b))` gives it, without the intermediate object. */
+function distance(a: Complex, b: Complex): number {
+  const re = a.re - b.re;
+  const im = a.im - b.im;
+  const s = re * re + im * im;
+  return s > 1e-290 && s < 1e290 ? Math.sqrt(s) : Math.hypot(re, im);
 }
 
 /** Direction (unit phasor) of a voltage: that of `v`, else of `fallback`, else the real axis. */
@@ -248,7 +264,13 @@ const finite = (z: Complex): boolean => Number.isFinite(z.re) && Number.isFinite
 
 /** The first element (in tree order) whose output voltage or input power is not a finite number. */
 function nonFiniteAt(order: readonly PlannedElement[], vOut: readonly Complex[], sIn: readonly Complex[]): Problem | undefined {
-  const i = order.findIndex((_, k) => !finite(vOut[k]!) || !finite(sIn[k]!));
+  let i = -1;
+  for (let k = 0; k < order.length; k++) {
+    if (!finite(vOut[k]!) || !finite(sIn[k]!)) {
+      i = k;
+      break;
+    }
+  }
   if (i < 0) return undefined;
   const e = order[i]!.element;
   const voltage = !finite(vOut[i]!);
@@ -326,8 +348,9 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
     const last = residual;
     residual = 0;
     for (let i = 0; i < n; i++) {
-      const mag = abs(vOut[i]!);
-      if (mag > 0) residual = Math.max(residual, abs(sub(vOut[i]!, previous[i]!)) / mag);
+      const v = vOut[i]!;
+      const mag = abs(v);
+      if (mag > 0) residual = Math.max(residual, distance(v, previous[i]!) / mag);
     }
     // A heavy constant-impedance load makes the plain sweep overshoot and oscillate (each sweep
     // multiplies the error by about −Z_link/Z_load): damp harder whenever the change stops shrinking.

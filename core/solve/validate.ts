@@ -94,6 +94,12 @@ function fromIssues(issues: readonly z.core.$ZodIssue[], elementId: string, subj
   });
 }
 
+/** The element's own fields but its purchase price (a copy; the element is not changed). */
+function withoutPrice(raw: Record<string, unknown>): Record<string, unknown> {
+  const { price: _price, ...own } = raw;
+  return own;
+}
+
 /** Validate one element's fields: its kind must be known, then its own schema and cross-field checks. */
 export function validateElement(raw: unknown, index: number): { element?: Element; problems: Problem[] } {
   if (!isRecord(raw)) {
@@ -117,10 +123,13 @@ export function validateElement(raw: unknown, index: number): { element?: Elemen
   }
   // The purchase price belongs to the element base (every kind): checked here once, then set aside
   // so the kind's own strict schema reads the rest (core/schema/json-schema.ts states it per kind).
-  const { price: rawPrice, ...own } = raw;
+  // (The copy without the price is made only for an element that has one: an object rest copies
+  // every field, a cost each element of every validation paid.)
+  const hasPrice = Object.hasOwn(raw, 'price');
+  const rawPrice = raw['price'];
   const priced = rawPrice === undefined ? undefined : priceSchema.safeParse(rawPrice, { error: issueMessage });
   const priceProblems = priced && !priced.success ? fromIssues(priced.error.issues, id, rawPrice).map((p) => ({ ...p, field: 'price' })) : [];
-  const parsed = spec.schema.safeParse(Object.hasOwn(raw, 'price') ? own : raw, { error: issueMessage });
+  const parsed = spec.schema.safeParse(hasPrice ? withoutPrice(raw) : raw, { error: issueMessage });
   if (!parsed.success) return { problems: [...fromIssues(parsed.error.issues, id, raw), ...priceProblems] };
   if (priceProblems.length) return { problems: priceProblems };
   const element = priced?.success ? ({ ...parsed.data, price: priced.data } as Element) : parsed.data;
