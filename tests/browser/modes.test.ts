@@ -112,7 +112,19 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
           expect(Math.abs(a!.y - b!.y)).toBeLessThan(2);
           expect(b!.x).toBeGreaterThan(a!.x + a!.width - 1);
         }
+        // Both modes' energy flow side by side at one scale (one px per W in both drawings), each captioned
+        // with its source power: core's on-supply and on-battery solves (solveModes).
+        await page.getByTestId('mode-flows').locator('summary').click();
+        const drawings = page.getByTestId('mode-flows').locator('svg.variant-flow__svg');
+        await expect.poll(() => drawings.count(), { timeout: 20_000 }).toBe(2);
+        const scales = await drawings.evaluateAll((svgs) => svgs.map((s) => s.getAttribute('data-px-per-watt')));
+        expect(scales[0]).not.toBeNull();
+        expect(scales[1]).toBe(scales[0]);
+        const captions = page.getByTestId('mode-flows').locator('figcaption');
+        expect(plain(await captions.nth(0).textContent())).toContain(fmt(supplyFigures.sourcePower));
+        expect(plain(await captions.nth(1).textContent())).toContain(fmt(batteryFigures.sourcePower));
         await page.getByTestId('modes').screenshot({ path: join(artifacts, `modes-${label}-supply.png`) });
+        await page.getByTestId('mode-flows').locator('summary').click();
         // The cable and port tables say which mode they show, and on supply carry the base solve's figures
         // (the supply's cable is there; the bank's cable carries the float current, 0.1 A: core's solve of the demo).
         await expect.poll(() => page.getByTestId('cable-table-mode').textContent()).toBe('On supply');

@@ -41,7 +41,7 @@ export interface VariantsReply {
 export interface ModesReply {
   kind: 'modes';
   outcome:
-    | { ok: true; battery: { ok: true; result: SolveResult; project: Solved['project'] } | { ok: false; problems: Problem[] }; supply?: { result: SolveResult; project: Solved['project'] }; study: { ok: true; study: ModesStudyResult } | { ok: false; problems: Problem[] } }
+    | { ok: true; battery: { ok: true; result: SolveResult; project: Solved['project'] } | { ok: false; problems: Problem[] }; supply?: { result: SolveResult; project: Solved['project'] }; flows?: { supply: FlowGraph | null; battery: FlowGraph | null }; study: { ok: true; study: ModesStudyResult } | { ok: false; problems: Problem[] } }
     | { ok: false; problems: Problem[] };
 }
 
@@ -176,7 +176,9 @@ function modes(solved: Solved): ModesReply {
   }
   // An inverter-charger's pass-through: the on-supply mode is a variant of its own (core/solve/modes.ts), not the page's solve.
   const supply = m.supply !== solved && m.supply.ok ? { result: m.supply.result, project: m.supply.project } : undefined;
-  return { kind: 'modes', outcome: { ok: true, battery, study, ...(supply ? { supply } : {}) } };
+  // Both modes' energy flow, drawn side by side at one scale (web/components/variants/VariantFlows.tsx).
+  const flows = { supply: flowGraph((supply ?? solved).result), battery: battery.ok ? flowGraph(battery.result) : null };
+  return { kind: 'modes', outcome: { ok: true, battery, study, flows, ...(supply ? { supply } : {}) } };
 }
 
 function variants(solved: Solved, list: ProjectVariant[], cost: CostSettings | null): VariantsReply {

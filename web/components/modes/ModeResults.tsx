@@ -15,6 +15,7 @@ import { effectiveLocale } from '../../state/prefs.ts';
 import { problemLine } from '../problem-words.ts';
 import { openCount } from '../../state/editor.ts';
 import { MODE_WORDS, modesReply, shownMode, type ShownMode } from './mode-state.ts';
+import { VariantFlows } from '../variants/VariantFlows.tsx';
 
 type ModeFigures = ModesStudyResult['supply'];
 
@@ -100,6 +101,12 @@ export default function ModeResults({ solved }: { solved: Solved }) {
         <BalanceColumn title="Energy balance on supply" figures={study?.supply ?? null} mode="supply" chosen={mode === 'supply'} />
         <BalanceColumn title="Energy balance on battery" figures={battery} mode="battery" chosen={mode === 'battery'} />
       </div>
+      {outcome?.ok && outcome.flows && (
+        <details class="mode-flows" data-testid="mode-flows">
+          <summary>Both modes’ energy flow side by side, at one scale</summary>
+          <VariantFlows names={[MODE_WORDS.supply, MODE_WORDS.battery]} flows={[outcome.flows.supply, outcome.flows.battery]} />
+        </details>
+      )}
     </section>
   );
 }

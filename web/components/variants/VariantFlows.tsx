@@ -11,6 +11,7 @@ import { COLUMN, IDLE_DASH, LINE, layout, linkPath, linkPaint, nodePaint, roughM
 import { FLOW_PALETTES } from '../flow-palette.ts';
 import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../../state/prefs.ts';
 import { formatPower } from '../../format/number.ts';
+import './VariantFlows.css';
 
 /** Tallest source pipe of the largest option, px (the diagram's own maximum, flow-layout.ts). */
 const MAX_PIPE = 150;
