@@ -127,7 +127,7 @@ describe('AC available fault current, IEC 60909-0 (worked by hand)', () => {
     delete (p.elements[1] as Record<string, unknown>).impedancePercent;
     const rr = study(p);
     expect(rr.acFaults.points.find((q) => q.elementId === 'tx')!.current).toBeNull();
-    expect(rr.acFaults.points.find((q) => q.elementId === 'sub')!.note).toContain('impedancePercent');
+    expect(rr.acFaults.points.find((q) => q.elementId === 'sub')!.note).toContain('has no impedance (u_k %)');
     expect(rr.devices.find((d) => d.elementId === 'sub')!.status).toBe('unknown');
   });
 
