@@ -44,6 +44,7 @@ import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state
 import { openCount } from '../state/editor.ts';
 import { FLOW_PALETTES } from './flow-palette.ts';
 import { lagOffscreen, useIdleTask, type BoxRef } from './lag.ts';
+import { drawCanvas } from './flow-canvas.ts';
 import { blockLayer, branchLayer, writeBlock, writeBranch, type BlockSpec, type BranchSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
 import { download, fileStem, pngBlob, PRINT_RULES, svgText } from './flow-export.ts';
 import { figures, FONT, IDLE_DASH, type LaidLink, type LaidNode, layout, linkPaint, linkPath, MARK, type Measure, nodePaint, roughMeasure, ZERO_SHARE } from './flow-layout.ts';
@@ -174,6 +175,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   );
   const boxRef = useRef<HTMLDivElement>(null);
   const svgRef = useRef<SVGSVGElement>(null);
+  const canvasRef = useRef<HTMLCanvasElement>(null);
   const cardRef = useRef<HTMLDivElement>(null);
   const [boxWidth, setBoxWidth] = useState(0);
   const [selected, setSelected] = useState<Selection>(null);
@@ -224,11 +226,13 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
 
   async function exportSvg() {
     if (!svgRef.current) return;
+    svgNow();
     setExportError(null);
     await download(new Blob([svgText(svgRef.current, title, summary)], { type: 'image/svg+xml' }), `${stem}.svg`);
   }
   async function exportPng() {
     if (!svgRef.current) return;
+    svgNow();
     setExportError(null);
     try {
       await download(await pngBlob(svgRef.current, title, summary), `${stem}.png`);
@@ -299,17 +303,37 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   }, [card, cardShown !== null]);
 
   const title = `Energy flow of ${result.projectName || 'the project'}`;
+  // The canvas's name sums the flows; each part's own name is on the SVG's parts.
+  const loadsWatts = graph.nodes.reduce((s, n) => (n.role === 'load' ? s + n.watts : s), 0);
+  const canvasLabel = `${title}: the source delivers ${formatPower(graph.sourcePower, loc)}, the loads use ${formatPower(loadsWatts, loc)}${summary ? `; ${summary}` : ''}`;
 
-  // The branches, blocks and labels are written into their layers after each render, before the
-  // frame is painted (flow-draw.ts: only what changed is written).
+  // After each render, before the frame is painted, the diagram is drawn on the canvas (flow-canvas.ts);
+  // the transparent SVG over it (its parts' names, focus, hover and tap, the downloads) follows when
+  // the page is next idle (flow-draw.ts: only what changed is written), at once when a part comes or
+  // goes, when another project was opened, and before a download or printing.
   const branchesRef = useRef<SVGGElement>(null);
   const blocksRef = useRef<SVGGElement>(null);
   const drawn = useRef<Drawn | null>(null);
-  const scheduleWords = useIdleTask();
-  const wordsOpened = useRef(-1);
+  const scheduleSvg = useIdleTask();
+  const svgPending = useRef<(() => void) | null>(null);
+  /** Brings the SVG up to date now (downloads read it). */
+  const svgNow = () => svgPending.current?.();
+  const svgOpened = useRef(-1);
+  const svgKeys = useRef('');
+  const [dpr, setDpr] = useState(() => (typeof devicePixelRatio === 'number' ? devicePixelRatio : 1));
+  // A new device pixel ratio (the browser's zoom, another screen) draws the canvas again at its density.
+  useEffect(() => {
+    if (typeof matchMedia !== 'function') return;
+    const query = matchMedia(`(resolution: ${dpr}dppx)`);
+    const changed = () => setDpr(devicePixelRatio);
+    query.addEventListener?.('change', changed);
+    return () => query.removeEventListener?.('change', changed);
+  }, [dpr]);
   useLayoutEffect(() => {
-    if (!laid || !branchesRef.current || !blocksRef.current) return;
+    if (!laid || !branchesRef.current || !blocksRef.current || !canvasRef.current) return;
     const d = (drawn.current ??= { branches: branchLayer(), blocks: blockLayer() });
+    const branchesEl = branchesRef.current;
+    const blocksEl = blocksRef.current;
     const branches = laid.links.map((l): BranchSpec => {
       const paint = linkPaint(l, l.sourceNode.kind);
       const isSel = selected?.type === 'link' && selected.key === l.key;
@@ -353,13 +377,13 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         selected: selected?.type === 'node' && selected.id === n.id,
       };
     });
-    const created =
-      d.branches.draw(branchesRef.current, branches, (s) => s.key, writeBranch) + d.blocks.draw(blocksRef.current, blocks, (s) => s.id, writeBlock);
+    drawCanvas(canvasRef.current, { width: laid.width, height: laid.height, background: c.background, branches, blocks, zoom: shownZoom });
 
-    // The parts' accessible names (with their figures) and the branches' watts are not drawn: they
-    // are written when the page is next idle after the paint (lag.ts); at once when a part is new or
-    // another project was opened, so no part is ever without its name or with another project's.
-    const words = () => {
+    // The SVG's parts with their accessible names (with their figures) and the branches' watts.
+    const svg = () => {
+      svgPending.current = null;
+      d.branches.draw(branchesEl, branches, (s) => s.key, writeBranch);
+      d.blocks.draw(blocksEl, blocks, (s) => s.id, writeBlock);
       d.branches.describe(
         laid.links.map((l): PartWords => ({ key: l.key, label: linkText(l, loc), watts: l.watts })),
         (w) => w.key,
@@ -372,13 +396,16 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
       );
     };
     const opened = openCount.peek();
-    if (created > 0 || opened !== wordsOpened.current) {
-      wordsOpened.current = opened;
-      words();
+    const keys = laid.links.map((l) => l.key).join('|') + '||' + laid.nodes.map((n) => n.id).join('|');
+    svgPending.current = svg;
+    if (keys !== svgKeys.current || opened !== svgOpened.current) {
+      svgKeys.current = keys;
+      svgOpened.current = opened;
+      svg();
     } else {
-      scheduleWords(words);
+      scheduleSvg(() => svgPending.current?.());
     }
-  }, [laid, nodeLabels, selected, palette, loc, elements]);
+  }, [laid, nodeLabels, selected, palette, loc, elements, shownZoom, dpr]);
 
   const zoomStep = (dir: 1 | -1) => {
     const steps = dir > 0 ? ZOOMS.filter((z) => z > shownZoom + 1e-6) : ZOOMS.filter((z) => z < shownZoom - 1e-6).reverse();
@@ -447,6 +474,10 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         onFocusIn={pick}
       >
         {graph.sourcePower === 0 && <p class="note">The source delivers nothing in this project, so there is no flow to draw.</p>}
+        {laid && graph.sourcePower !== 0 && (
+          // The drawing a person sees (flow-canvas.ts); its size is set where it is drawn.
+          <canvas ref={canvasRef} class="flow__canvas" role="img" aria-label={canvasLabel} data-testid="flow-canvas" />
+        )}
         {laid && graph.sourcePower !== 0 && (
           <svg
             ref={svgRef}
