@@ -7,9 +7,12 @@
  * first load.
  *
  * Every figure comes from core's flowGraph(); this file draws the diagram and answers hover, tap and
- * focus. Its parts: flow-layout.ts (columns, pipes, losses, wrapped labels), flow-draw.ts (one SVG element
- * per part, written only where it changed), flow-export.ts (download name, SVG and PNG files, print
- * rules), flow-legend.tsx (legend), flow-palette.ts (colours per theme).
+ * focus. Its parts: flow-layout.ts (columns, pipes, losses, wrapped labels), flow-canvas.ts (the
+ * drawing on screen: a canvas, drawn in the edit's frame), flow-draw.ts (one SVG element per part,
+ * written only where it changed: transparent over the canvas, it carries the parts' names, focus,
+ * hover and tap, and it is what the downloads and the printed page show; written when the page is
+ * idle after an edit), flow-export.ts (download name, SVG and PNG files, print rules),
+ * flow-legend.tsx (legend), flow-palette.ts (colours per theme).
  *
  * Layout (flow-layout.ts): one column per depth of the chain, feed branches only in the gaps between
  * columns; each source, stage and load is a straight piece of flow in its column with its label (full
@@ -204,7 +207,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   const laid = useMemo(() => (boxWidth > 0 ? layout(graph, boxWidth, loc, measure) : null), [graph, boxWidth, loc, measure]);
   const nodeLabels = useMemo(() => new Map((laid?.labels ?? []).map((x) => [x.id, x])), [laid]);
   const zeroLoss = graph.nodes.filter((n) => n.role === 'loss' && !(n.watts > ZERO_SHARE * Math.abs(graph.sourcePower)));
-  const stem = fileStem(result.projectName || 'joulepath-project');
+  const stem = useMemo(() => fileStem(result.projectName || 'joulepath-project'), [result.projectName]);
   const ls = graph.losses;
   const summary =
     graph.sourcePower !== 0
