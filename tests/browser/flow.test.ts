@@ -466,6 +466,28 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
       expect(after.sum).not.toBe(before.sum);
       writeFileSync(join(artifacts, 'flow-canvas-vs-svg.txt'), `share of pixels differing, canvas against the SVG: ${before.differ} before the edit, ${after.differ} after\n`);
       await page.getByTestId('energy-flow').screenshot({ path: join(artifacts, 'flow-desktop-dark-2x-canvas.png') });
+
+      // A drawing too large for a canvas at the screen's density (over 16 M pixels or 16 384 on a side,
+      // flow-canvas.ts) is shown by the SVG itself: the 30-element chain at 200 % and two device pixels per px.
+      await page.getByTestId('open-file').setInputFiles({ name: 'thirty.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(thirtyElementChain())) });
+      await page.locator('g.flow__node[data-node="fan2"]').waitFor();
+      const shown = async () =>
+        (await page.evaluate(`(() => {
+          const svg = document.querySelector('[data-testid="flow-svg"]');
+          return { canvas: document.querySelectorAll('[data-testid="flow-canvas"]').length, opacity: getComputedStyle(svg).opacity, w: Number(svg.getAttribute('width')), h: Number(svg.getAttribute('height')) };
+        })()`)) as { canvas: number; opacity: string; w: number; h: number };
+      const full = await shown();
+      expect(full).toMatchObject({ canvas: 1, opacity: '0' });
+      // (at 200 %, 4 device pixels per drawing px: past 16 M pixels)
+      expect(full.w * 4 * full.h * 4).toBeGreaterThan(16e6);
+      await page.getByTestId('flow-zoom-in').click();
+      await page.getByTestId('flow-zoom-in').click();
+      await expect.poll(() => page.locator('.flow__zoom-level').textContent()).toBe('200%');
+      await expect.poll(async () => (await shown()).canvas).toBe(0);
+      expect((await shown()).opacity).toBe('1');
+      // Its parts are then drawn in the theme's colours and can be pointed at as before.
+      await page.locator('g.flow__node[data-node="fan2"] rect').first().click();
+      await expect.poll(() => page.getByTestId('flow-details').innerText()).toContain(`${chainGraph().nodes.find((n) => n.id === 'fan2')!.name} (`);
       expect(errors).toEqual([]);
     } finally {
       await context.close();

@@ -47,7 +47,7 @@ import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state
 import { openCount } from '../state/editor.ts';
 import { FLOW_PALETTES } from './flow-palette.ts';
 import { lagOffscreen, useIdleTask, type BoxRef } from './lag.ts';
-import { drawCanvas } from './flow-canvas.ts';
+import { drawCanvas, fitsCanvas, pixelRatio } from './flow-canvas.ts';
 import { blockLayer, branchLayer, writeBlock, writeBranch, type BlockSpec, type BranchSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
 import { download, fileStem, pngBlob, PRINT_RULES, svgText } from './flow-export.ts';
 import { figures, FONT, IDLE_DASH, type LaidLink, type LaidNode, layout, linkPaint, linkPath, MARK, type Measure, nodePaint, roughMeasure, ZERO_SHARE } from './flow-layout.ts';
@@ -323,17 +323,17 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   const svgNow = () => svgPending.current?.();
   const svgOpened = useRef(-1);
   const svgKeys = useRef('');
-  const [dpr, setDpr] = useState(() => (typeof devicePixelRatio === 'number' ? devicePixelRatio : 1));
+  const [dpr, setDpr] = useState(pixelRatio);
   // A new device pixel ratio (the browser's zoom, another screen) draws the canvas again at its density.
   useEffect(() => {
     if (typeof matchMedia !== 'function') return;
     const query = matchMedia(`(resolution: ${dpr}dppx)`);
-    const changed = () => setDpr(devicePixelRatio);
+    const changed = () => setDpr(pixelRatio());
     query.addEventListener?.('change', changed);
     return () => query.removeEventListener?.('change', changed);
   }, [dpr]);
   useLayoutEffect(() => {
-    if (!laid || !branchesRef.current || !blocksRef.current || !canvasRef.current) return;
+    if (!laid || !branchesRef.current || !blocksRef.current) return;
     const d = (drawn.current ??= { branches: branchLayer(), blocks: blockLayer() });
     const branchesEl = branchesRef.current;
     const blocksEl = blocksRef.current;
@@ -380,7 +380,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         selected: selected?.type === 'node' && selected.id === n.id,
       };
     });
-    drawCanvas(canvasRef.current, { width: laid.width, height: laid.height, background: c.background, branches, blocks, zoom: shownZoom });
+    if (canvasRef.current) drawCanvas(canvasRef.current, { width: laid.width, height: laid.height, background: c.background, branches, blocks, zoom: shownZoom });
 
     // The SVG's parts with their accessible names (with their figures) and the branches' watts.
     const svg = () => {
@@ -401,7 +401,8 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     const opened = openCount.peek();
     const keys = laid.links.map((l) => l.key).join('|') + '||' + laid.nodes.map((n) => n.id).join('|');
     svgPending.current = svg;
-    if (keys !== svgKeys.current || opened !== svgOpened.current) {
+    // Without the canvas (a drawing too large for one) the SVG is what is seen: written at once.
+    if (keys !== svgKeys.current || opened !== svgOpened.current || !canvasRef.current) {
       svgKeys.current = keys;
       svgOpened.current = opened;
       svg();
@@ -415,6 +416,8 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     setZoom(steps[0] ?? (dir > 0 ? ZOOMS[ZOOMS.length - 1]! : Math.min(fitZoom, ZOOMS[0]!)));
   };
   const wide = laid !== null && laid.width > boxWidth + 1;
+  // The canvas shows the drawing where it fits one at the screen's pixel density (flow-canvas.ts); else the SVG does.
+  const onCanvas = laid !== null && fitsCanvas(laid.width, laid.height, shownZoom, dpr);
   // The zoom buttons: while the drawing is wider than its box, or shown at another size (so it can be set back).
   const zoomable = laid !== null && (wide || shownZoom !== 1);
 
@@ -477,7 +480,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         onFocusIn={pick}
       >
         {graph.sourcePower === 0 && <p class="note">The source delivers nothing in this project, so there is no flow to draw.</p>}
-        {laid && graph.sourcePower !== 0 && (
+        {laid && graph.sourcePower !== 0 && onCanvas && (
           // The drawing a person sees (flow-canvas.ts); its size is set where it is drawn.
           <canvas ref={canvasRef} class="flow__canvas" role="img" aria-label={canvasLabel} data-testid="flow-canvas" />
         )}
@@ -485,7 +488,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
           <svg
             ref={svgRef}
             xmlns="http://www.w3.org/2000/svg"
-            class="flow__svg"
+            class={onCanvas ? 'flow__svg' : 'flow__svg flow__svg--shown'}
             width={laid.width}
             height={laid.height}
             style={shownZoom !== 1 ? { width: `${laid.width * shownZoom}px`, height: `${laid.height * shownZoom}px` } : undefined}

@@ -26,8 +26,22 @@ export interface CanvasScene {
   zoom: number;
 }
 
-/** The most pixels the canvas holds (a large chain zoomed in on a high-density screen stays in memory bounds). */
+/** The most pixels the canvas holds, and on a side (a browser's canvas has limits, and memory). */
 const MAX_PIXELS = 16e6;
+const MAX_SIDE = 16384;
+
+/** The device pixel ratio (1 where none is known). */
+export const pixelRatio = (): number => (typeof devicePixelRatio === 'number' && devicePixelRatio > 0 ? devicePixelRatio : 1);
+
+/**
+ * Whether a drawing of this size (CSS px at full size) fits a canvas at this zoom and pixel ratio.
+ * One that does not (a chain of hundreds of elements, or a large one zoomed in on a dense screen)
+ * is shown by its SVG itself, which has no such limit (EnergyFlow.tsx).
+ */
+export function fitsCanvas(width: number, height: number, zoom: number, dpr: number): boolean {
+  const s = zoom * dpr;
+  return width * s <= MAX_SIDE && height * s <= MAX_SIDE && width * height * s * s <= MAX_PIXELS;
+}
 
 const DASH = IDLE_DASH.split(' ').map(Number);
 
@@ -51,8 +65,9 @@ function pathOf(d: string): Path2D {
 export function drawCanvas(canvas: HTMLCanvasElement, scene: CanvasScene): void {
   const cssW = scene.width * scene.zoom;
   const cssH = scene.height * scene.zoom;
-  const dpr = typeof devicePixelRatio === 'number' && devicePixelRatio > 0 ? devicePixelRatio : 1;
-  const scale = Math.min(dpr * scene.zoom, Math.sqrt(MAX_PIXELS / Math.max(1, scene.width * scene.height)));
+  const dpr = pixelRatio();
+  // At most the canvas's limits (EnergyFlow.tsx shows the SVG instead where the drawing does not fit at full density).
+  const scale = Math.min(dpr * scene.zoom, Math.sqrt(MAX_PIXELS / Math.max(1, scene.width * scene.height)), MAX_SIDE / Math.max(1, scene.width, scene.height));
   const pxW = Math.max(1, Math.round(scene.width * scale));
   const pxH = Math.max(1, Math.round(scene.height * scale));
   // Sizes only when they change: a new pixel size clears and reallocates the canvas, a new CSS size lays out the page.
