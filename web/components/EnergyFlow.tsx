@@ -178,7 +178,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   );
   const boxRef = useRef<HTMLDivElement>(null);
   const svgRef = useRef<SVGSVGElement>(null);
-  const canvasRef = useRef<HTMLCanvasElement>(null);
+  const canvasRef = useRef<HTMLCanvasElement | null>(null);
   const cardRef = useRef<HTMLDivElement>(null);
   const [boxWidth, setBoxWidth] = useState(0);
   const [selected, setSelected] = useState<Selection>(null);
@@ -313,7 +313,9 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   // After each render, before the frame is painted, the diagram is drawn on the canvas (flow-canvas.ts);
   // the transparent SVG over it (its parts' names, focus, hover and tap, the downloads) follows when
   // the page is next idle (flow-draw.ts: only what changed is written), at once when a part comes or
-  // goes, when another project was opened, and before a download or printing.
+  // goes, when another project was opened, and before a download or printing. While the canvas is
+  // scrolled out of view (the section's heading in view, the drawing below it) the canvas too is drawn
+  // when the page is idle, or as soon as it comes into view, unless its size changes.
   const branchesRef = useRef<SVGGElement>(null);
   const blocksRef = useRef<SVGGElement>(null);
   const drawn = useRef<Drawn | null>(null);
@@ -321,9 +323,14 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   const svgPending = useRef<(() => void) | null>(null);
   /** Brings the SVG up to date now (downloads read it). */
   const svgNow = () => svgPending.current?.();
+  const canvasPending = useRef<(() => void) | null>(null);
+  /** Whether the canvas is on screen (from an IntersectionObserver; on screen until it reports). */
+  const canvasSeen = useRef(true);
   const svgOpened = useRef(-1);
   const svgKeys = useRef('');
   const [dpr, setDpr] = useState(pixelRatio);
+  // The canvas shows the drawing where it fits one at the screen's pixel density (flow-canvas.ts); else the SVG does.
+  const onCanvas = laid !== null && fitsCanvas(laid.width, laid.height, shownZoom, dpr);
   // A new device pixel ratio (the browser's zoom, another screen) draws the canvas again at its density.
   useEffect(() => {
     if (typeof matchMedia !== 'function') return;
@@ -332,6 +339,22 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     query.addEventListener?.('change', changed);
     return () => query.removeEventListener?.('change', changed);
   }, [dpr]);
+  // The canvas element, watched while it is there: coming into view, it draws what is waiting.
+  const canvasObserver = useRef<IntersectionObserver | null>(null);
+  const canvasBox = useCallback((el: HTMLCanvasElement | null) => {
+    canvasObserver.current?.disconnect();
+    canvasObserver.current = null;
+    canvasRef.current = el;
+    canvasSeen.current = true;
+    if (!el || typeof IntersectionObserver === 'undefined') return;
+    const observer = new IntersectionObserver((entries) => {
+      const seen = entries[entries.length - 1]!.isIntersecting;
+      canvasSeen.current = seen;
+      if (seen) canvasPending.current?.();
+    });
+    observer.observe(el);
+    canvasObserver.current = observer;
+  }, []);
   useLayoutEffect(() => {
     if (!laid || !branchesRef.current || !blocksRef.current) return;
     const d = (drawn.current ??= { branches: branchLayer(), blocks: blockLayer() });
@@ -380,7 +403,13 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         selected: selected?.type === 'node' && selected.id === n.id,
       };
     });
-    if (canvasRef.current) drawCanvas(canvasRef.current, { width: laid.width, height: laid.height, background: c.background, branches, blocks, zoom: shownZoom });
+    const canvas = canvasRef.current;
+    const scene = { width: laid.width, height: laid.height, background: c.background, branches, blocks, zoom: shownZoom };
+    canvasPending.current = null;
+    const paint = () => {
+      canvasPending.current = null;
+      if (canvas?.isConnected) drawCanvas(canvas, scene);
+    };
 
     // The SVG's parts with their accessible names (with their figures) and the branches' watts.
     const svg = () => {
@@ -400,15 +429,24 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     };
     const opened = openCount.peek();
     const keys = laid.links.map((l) => l.key).join('|') + '||' + laid.nodes.map((n) => n.id).join('|');
+    const fresh = keys !== svgKeys.current || opened !== svgOpened.current;
+    if (canvas) {
+      // Drawn at once when on screen, new, or of another size (the page below it moves in this frame, as it always did).
+      if (canvasSeen.current || fresh || canvas.style.width !== `${laid.width * shownZoom}px` || canvas.style.height !== `${laid.height * shownZoom}px`) paint();
+      else canvasPending.current = paint;
+    }
     svgPending.current = svg;
     // Without the canvas (a drawing too large for one) the SVG is what is seen: written at once.
-    if (keys !== svgKeys.current || opened !== svgOpened.current || !canvasRef.current) {
+    if (fresh || !canvas) {
       svgKeys.current = keys;
       svgOpened.current = opened;
       svg();
-    } else {
-      scheduleSvg(() => svgPending.current?.());
     }
+    if (svgPending.current || canvasPending.current)
+      scheduleSvg(() => {
+        canvasPending.current?.();
+        svgPending.current?.();
+      });
   }, [laid, nodeLabels, selected, palette, loc, elements, shownZoom, dpr]);
 
   const zoomStep = (dir: 1 | -1) => {
@@ -416,8 +454,6 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
     setZoom(steps[0] ?? (dir > 0 ? ZOOMS[ZOOMS.length - 1]! : Math.min(fitZoom, ZOOMS[0]!)));
   };
   const wide = laid !== null && laid.width > boxWidth + 1;
-  // The canvas shows the drawing where it fits one at the screen's pixel density (flow-canvas.ts); else the SVG does.
-  const onCanvas = laid !== null && fitsCanvas(laid.width, laid.height, shownZoom, dpr);
   // The zoom buttons: while the drawing is wider than its box, or shown at another size (so it can be set back).
   const zoomable = laid !== null && (wide || shownZoom !== 1);
 
@@ -482,7 +518,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         {graph.sourcePower === 0 && <p class="note">The source delivers nothing in this project, so there is no flow to draw.</p>}
         {laid && graph.sourcePower !== 0 && onCanvas && (
           // The drawing a person sees (flow-canvas.ts); its size is set where it is drawn.
-          <canvas ref={canvasRef} class="flow__canvas" role="img" aria-label={canvasLabel} data-testid="flow-canvas" />
+          <canvas ref={canvasBox} class="flow__canvas" role="img" aria-label={canvasLabel} data-testid="flow-canvas" />
         )}
         {laid && graph.sourcePower !== 0 && (
           <svg
