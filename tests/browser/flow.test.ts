@@ -398,6 +398,102 @@ describe.skipIf(skipWithout('chromium'))('the energy-flow diagram in Chromium', 
     }
   });
 
+  it('the canvas on screen shows what the SVG over it holds, at the screen’s pixel density and in the theme’s palette, after an edit too', async () => {
+    // Dark theme at two device pixels per CSS pixel (a phone's or a laptop's high-density screen).
+    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 2, locale: 'en-US', colorScheme: 'dark' });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    try {
+      await page.goto(baseUrl, { waitUntil: 'load' });
+      await showDemo(page, 'hillside-relay-hut');
+      // The canvas's pixels beside the SVG's own rendering (the SVG drawn as an image at the canvas's
+      // pixel size): the share of pixels that differ by more than 40 of 255 in a channel (text
+      // antialiasing differs a little between the two), its sizes, and its top left pixel (background).
+      const COMPARE = `(async () => {
+        const canvas = document.querySelector('[data-testid="flow-canvas"]');
+        const svg = document.querySelector('[data-testid="flow-svg"]');
+        const w = canvas.width, h = canvas.height;
+        const a = canvas.getContext('2d').getImageData(0, 0, w, h).data;
+        const url = URL.createObjectURL(new Blob([new XMLSerializer().serializeToString(svg)], { type: 'image/svg+xml' }));
+        const img = new Image();
+        img.src = url;
+        await img.decode();
+        const copy = document.createElement('canvas');
+        copy.width = w;
+        copy.height = h;
+        const ctx = copy.getContext('2d');
+        ctx.drawImage(img, 0, 0, w, h);
+        URL.revokeObjectURL(url);
+        const b = ctx.getImageData(0, 0, w, h).data;
+        let differ = 0;
+        let sum = 2166136261;
+        for (let i = 0; i < a.length; i++) sum = Math.imul(sum ^ a[i], 16777619);
+        for (let i = 0; i < a.length; i += 4) if (Math.max(Math.abs(a[i] - b[i]), Math.abs(a[i + 1] - b[i + 1]), Math.abs(a[i + 2] - b[i + 2])) > 40) differ++;
+        return { w, h, cssW: canvas.getBoundingClientRect().width, svgW: Number(svg.getAttribute('width')), svgH: Number(svg.getAttribute('height')), differ: differ / (w * h), sum: sum >>> 0, corner: [...a.slice(0, 3)], label: canvas.getAttribute('aria-label'), role: canvas.getAttribute('role') };
+      })()`;
+      type Compared = { w: number; h: number; cssW: number; svgW: number; svgH: number; differ: number; sum: number; corner: number[]; label: string; role: string };
+      const check = (c: Compared, g: FlowGraph) => {
+        // Pixel size: the drawing's CSS size times the device pixel ratio (2); shown at the drawing's size (zoom 100 %).
+        expect([c.w, c.h]).toEqual([Math.round(c.svgW * 2), Math.round(c.svgH * 2)]);
+        expect(c.cssW).toBeCloseTo(c.svgW, 0);
+        // The dark palette's background, #171e1b (flow-palette.ts).
+        expect(c.corner).toEqual([0x17, 0x1e, 0x1b]);
+        // The same picture: under 1 % of the pixels differ (glyph edges; tests/.artifacts/flow-canvas-vs-svg.txt has the share measured).
+        expect(c.differ).toBeLessThan(0.01);
+        // The canvas's name sums the flows: the source's power and the loads'.
+        expect(c.role).toBe('img');
+        const loads = g.nodes.filter((n) => n.role === 'load').reduce((s, n) => s + n.watts, 0);
+        expect(c.label).toContain(`the source delivers ${formatPower(g.sourcePower, 'en-US')}, the loads use ${formatPower(loads, 'en-US')}`);
+      };
+      const before = (await page.evaluate(COMPARE)) as Compared;
+      check(before, demoGraph('hillside-relay-hut'));
+
+      // An edit: the canvas shows it in the edit's frame; the SVG over it follows when the page is idle.
+      await page.locator('[data-testid="stage-card"][data-card-id="radios"]').click();
+      const field = page.locator('[data-testid="stage-form"][data-element-id="radios"] [data-testid="field-power"]');
+      await field.fill('120');
+      const demo = demoProjects.find((d) => d.id === 'hillside-relay-hut')!.project;
+      const edited = solveProject({ ...demo, elements: demo.elements.map((e) => (e.id === 'radios' ? { ...e, power: 120 } : e)) });
+      if (!edited.ok) throw new Error('the edited demo does not solve');
+      const g = flowGraph(edited.result);
+      const radios = g.nodes.find((n) => n.id === 'radios')!;
+      await expect
+        .poll(() => page.locator('g.flow__node[data-node="radios"] text:not([font-weight])').first().textContent())
+        .toBe(`${formatPower(radios.watts, 'en-US')} · ${formatPercent(radios.percent / 100, 'en-US', 3)}`);
+      const after = (await page.evaluate(COMPARE)) as Compared;
+      check(after, g);
+      // (the canvas did change: its pixels' checksum, FNV-1a over the RGBA bytes)
+      expect(after.sum).not.toBe(before.sum);
+      writeFileSync(join(artifacts, 'flow-canvas-vs-svg.txt'), `share of pixels differing, canvas against the SVG: ${before.differ} before the edit, ${after.differ} after\n`);
+      await page.getByTestId('energy-flow').screenshot({ path: join(artifacts, 'flow-desktop-dark-2x-canvas.png') });
+
+      // A drawing too large for a canvas at the screen's density (over 16 M pixels or 16 384 on a side,
+      // flow-canvas.ts) is shown by the SVG itself: the 30-element chain at 200 % and two device pixels per px.
+      await page.getByTestId('open-file').setInputFiles({ name: 'thirty.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(thirtyElementChain())) });
+      await page.locator('g.flow__node[data-node="fan2"]').waitFor();
+      const shown = async () =>
+        (await page.evaluate(`(() => {
+          const svg = document.querySelector('[data-testid="flow-svg"]');
+          return { canvas: document.querySelectorAll('[data-testid="flow-canvas"]').length, opacity: getComputedStyle(svg).opacity, w: Number(svg.getAttribute('width')), h: Number(svg.getAttribute('height')) };
+        })()`)) as { canvas: number; opacity: string; w: number; h: number };
+      const full = await shown();
+      expect(full).toMatchObject({ canvas: 1, opacity: '0' });
+      // (at 200 %, 4 device pixels per drawing px: past 16 M pixels)
+      expect(full.w * 4 * full.h * 4).toBeGreaterThan(16e6);
+      await page.getByTestId('flow-zoom-in').click();
+      await page.getByTestId('flow-zoom-in').click();
+      await expect.poll(() => page.locator('.flow__zoom-level').textContent()).toBe('200%');
+      await expect.poll(async () => (await shown()).canvas).toBe(0);
+      expect((await shown()).opacity).toBe('1');
+      // Its parts are then drawn in the theme's colours and can be pointed at as before.
+      await page.locator('g.flow__node[data-node="fan2"] rect').first().click();
+      await expect.poll(() => page.getByTestId('flow-details').innerText()).toContain(`${chainGraph().nodes.find((n) => n.id === 'fan2')!.name} (`);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
   it('exports the diagram as an SVG file and a PNG file named after the project', async () => {
     const { context, page, errors } = await openPage(VIEWPORTS.phone);
     try {

@@ -50,7 +50,8 @@ const EDITS = 40;
  */
 const PARTS = {
   balance: { box: '[data-testid="energy-balance"]', text: '[data-testid="energy-balance"]' },
-  diagram: { box: '[data-testid="flow-svg"]', text: '[data-testid="flow-svg"]' },
+  // The diagram a person sees is a canvas (flow-canvas.ts): what it shows is read as a checksum of its pixels.
+  diagram: { box: '[data-testid="flow-canvas"]', text: '[data-testid="flow-canvas"]', pixels: true },
   cards: { box: '#chain-cards', text: '#chain-cards [data-testid="stage-card-result"]' },
   elements: { box: '[data-testid="element-table"]', text: '[data-testid="element-table"]' },
   cables: { box: '[data-testid="cable-table"]', text: '[data-testid="cable-table"]' },
@@ -69,8 +70,15 @@ const PARTS = {
 const PROBE = `async ({ selector, values, edits, edit, phase, seed, parts }) => {
   const input = document.querySelector(selector);
   if (!input) throw new Error('no field ' + selector);
+  // A canvas's "text" is a checksum of its pixels (FNV-1a over the RGBA words): new figures drawn change it.
+  const pixels = (canvas) => {
+    const data = new Uint32Array(canvas.getContext('2d').getImageData(0, 0, canvas.width, canvas.height).data.buffer);
+    let h = 2166136261;
+    for (let i = 0; i < data.length; i++) h = Math.imul(h ^ data[i], 16777619);
+    return canvas.width + 'x' + canvas.height + ':' + (h >>> 0);
+  };
   const texts = () => Object.fromEntries(Object.entries(parts).map(([k, p]) =>
-    [k, [...document.querySelectorAll(p.text)].map((e) => e.textContent).join('|')]));
+    [k, [...document.querySelectorAll(p.text)].map((e) => (p.pixels ? pixels(e) : e.textContent)).join('|')]));
   const onScreen = (k) => {
     const box = document.querySelector(parts[k].box);
     if (!box) return false;

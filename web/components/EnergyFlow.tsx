@@ -7,9 +7,12 @@
  * first load.
  *
  * Every figure comes from core's flowGraph(); this file draws the diagram and answers hover, tap and
- * focus. Its parts: flow-layout.ts (columns, pipes, losses, wrapped labels), flow-draw.ts (one SVG element
- * per part, written only where it changed), flow-export.ts (download name, SVG and PNG files, print
- * rules), flow-legend.tsx (legend), flow-palette.ts (colours per theme).
+ * focus. Its parts: flow-layout.ts (columns, pipes, losses, wrapped labels), flow-canvas.ts (the
+ * drawing on screen: a canvas, drawn in the edit's frame), flow-draw.ts (one SVG element per part,
+ * written only where it changed: transparent over the canvas, it carries the parts' names, focus,
+ * hover and tap, and it is what the downloads and the printed page show; written when the page is
+ * idle after an edit), flow-export.ts (download name, SVG and PNG files, print rules),
+ * flow-legend.tsx (legend), flow-palette.ts (colours per theme).
  *
  * Layout (flow-layout.ts): one column per depth of the chain, feed branches only in the gaps between
  * columns; each source, stage and load is a straight piece of flow in its column with its label (full
@@ -44,6 +47,7 @@ import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state
 import { openCount } from '../state/editor.ts';
 import { FLOW_PALETTES } from './flow-palette.ts';
 import { lagOffscreen, useIdleTask, type BoxRef } from './lag.ts';
+import { drawCanvas, fitsCanvas, pixelRatio } from './flow-canvas.ts';
 import { blockLayer, branchLayer, writeBlock, writeBranch, type BlockSpec, type BranchSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
 import { download, fileStem, pngBlob, PRINT_RULES, svgText } from './flow-export.ts';
 import { figures, FONT, IDLE_DASH, type LaidLink, type LaidNode, layout, linkPaint, linkPath, MARK, type Measure, nodePaint, roughMeasure, ZERO_SHARE } from './flow-layout.ts';
@@ -174,6 +178,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   );
   const boxRef = useRef<HTMLDivElement>(null);
   const svgRef = useRef<SVGSVGElement>(null);
+  const canvasRef = useRef<HTMLCanvasElement | null>(null);
   const cardRef = useRef<HTMLDivElement>(null);
   const [boxWidth, setBoxWidth] = useState(0);
   const [selected, setSelected] = useState<Selection>(null);
@@ -202,7 +207,7 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   const laid = useMemo(() => (boxWidth > 0 ? layout(graph, boxWidth, loc, measure) : null), [graph, boxWidth, loc, measure]);
   const nodeLabels = useMemo(() => new Map((laid?.labels ?? []).map((x) => [x.id, x])), [laid]);
   const zeroLoss = graph.nodes.filter((n) => n.role === 'loss' && !(n.watts > ZERO_SHARE * Math.abs(graph.sourcePower)));
-  const stem = fileStem(result.projectName || 'joulepath-project');
+  const stem = useMemo(() => fileStem(result.projectName || 'joulepath-project'), [result.projectName]);
   const ls = graph.losses;
   const summary =
     graph.sourcePower !== 0
@@ -224,11 +229,13 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
 
   async function exportSvg() {
     if (!svgRef.current) return;
+    svgNow();
     setExportError(null);
     await download(new Blob([svgText(svgRef.current, title, summary)], { type: 'image/svg+xml' }), `${stem}.svg`);
   }
   async function exportPng() {
     if (!svgRef.current) return;
+    svgNow();
     setExportError(null);
     try {
       await download(await pngBlob(svgRef.current, title, summary), `${stem}.png`);
@@ -299,17 +306,60 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   }, [card, cardShown !== null]);
 
   const title = `Energy flow of ${result.projectName || 'the project'}`;
+  // The canvas's name sums the flows; each part's own name is on the SVG's parts.
+  const loadsWatts = graph.nodes.reduce((s, n) => (n.role === 'load' ? s + n.watts : s), 0);
+  const canvasLabel = `${title}: the source delivers ${formatPower(graph.sourcePower, loc)}, the loads use ${formatPower(loadsWatts, loc)}${summary ? `; ${summary}` : ''}`;
 
-  // The branches, blocks and labels are written into their layers after each render, before the
-  // frame is painted (flow-draw.ts: only what changed is written).
+  // After each render, before the frame is painted, the diagram is drawn on the canvas (flow-canvas.ts);
+  // the transparent SVG over it (its parts' names, focus, hover and tap, the downloads) follows when
+  // the page is next idle (flow-draw.ts: only what changed is written), at once when a part comes or
+  // goes, when another project was opened, and before a download or printing. While the canvas is
+  // scrolled out of view (the section's heading in view, the drawing below it) the canvas too is drawn
+  // when the page is idle, or as soon as it comes into view, unless its size changes.
   const branchesRef = useRef<SVGGElement>(null);
   const blocksRef = useRef<SVGGElement>(null);
   const drawn = useRef<Drawn | null>(null);
-  const scheduleWords = useIdleTask();
-  const wordsOpened = useRef(-1);
+  const scheduleSvg = useIdleTask();
+  const svgPending = useRef<(() => void) | null>(null);
+  /** Brings the SVG up to date now (downloads read it). */
+  const svgNow = () => svgPending.current?.();
+  const canvasPending = useRef<(() => void) | null>(null);
+  /** Whether the canvas is on screen (from an IntersectionObserver; on screen until it reports). */
+  const canvasSeen = useRef(true);
+  const svgOpened = useRef(-1);
+  const svgKeys = useRef('');
+  const [dpr, setDpr] = useState(pixelRatio);
+  // The canvas shows the drawing where it fits one at the screen's pixel density (flow-canvas.ts); else the SVG does.
+  const onCanvas = laid !== null && fitsCanvas(laid.width, laid.height, shownZoom, dpr);
+  // A new device pixel ratio (the browser's zoom, another screen) draws the canvas again at its density.
+  useEffect(() => {
+    if (typeof matchMedia !== 'function') return;
+    const query = matchMedia(`(resolution: ${dpr}dppx)`);
+    const changed = () => setDpr(pixelRatio());
+    query.addEventListener?.('change', changed);
+    return () => query.removeEventListener?.('change', changed);
+  }, [dpr]);
+  // The canvas element, watched while it is there: coming into view, it draws what is waiting.
+  const canvasObserver = useRef<IntersectionObserver | null>(null);
+  const canvasBox = useCallback((el: HTMLCanvasElement | null) => {
+    canvasObserver.current?.disconnect();
+    canvasObserver.current = null;
+    canvasRef.current = el;
+    canvasSeen.current = true;
+    if (!el || typeof IntersectionObserver === 'undefined') return;
+    const observer = new IntersectionObserver((entries) => {
+      const seen = entries[entries.length - 1]!.isIntersecting;
+      canvasSeen.current = seen;
+      if (seen) canvasPending.current?.();
+    });
+    observer.observe(el);
+    canvasObserver.current = observer;
+  }, []);
   useLayoutEffect(() => {
     if (!laid || !branchesRef.current || !blocksRef.current) return;
     const d = (drawn.current ??= { branches: branchLayer(), blocks: blockLayer() });
+    const branchesEl = branchesRef.current;
+    const blocksEl = blocksRef.current;
     const branches = laid.links.map((l): BranchSpec => {
       const paint = linkPaint(l, l.sourceNode.kind);
       const isSel = selected?.type === 'link' && selected.key === l.key;
@@ -353,13 +403,19 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         selected: selected?.type === 'node' && selected.id === n.id,
       };
     });
-    const created =
-      d.branches.draw(branchesRef.current, branches, (s) => s.key, writeBranch) + d.blocks.draw(blocksRef.current, blocks, (s) => s.id, writeBlock);
+    const canvas = canvasRef.current;
+    const scene = { width: laid.width, height: laid.height, background: c.background, branches, blocks, zoom: shownZoom };
+    canvasPending.current = null;
+    const paint = () => {
+      canvasPending.current = null;
+      if (canvas?.isConnected) drawCanvas(canvas, scene);
+    };
 
-    // The parts' accessible names (with their figures) and the branches' watts are not drawn: they
-    // are written when the page is next idle after the paint (lag.ts); at once when a part is new or
-    // another project was opened, so no part is ever without its name or with another project's.
-    const words = () => {
+    // The SVG's parts with their accessible names (with their figures) and the branches' watts.
+    const svg = () => {
+      svgPending.current = null;
+      d.branches.draw(branchesEl, branches, (s) => s.key, writeBranch);
+      d.blocks.draw(blocksEl, blocks, (s) => s.id, writeBlock);
       d.branches.describe(
         laid.links.map((l): PartWords => ({ key: l.key, label: linkText(l, loc), watts: l.watts })),
         (w) => w.key,
@@ -372,13 +428,26 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
       );
     };
     const opened = openCount.peek();
-    if (created > 0 || opened !== wordsOpened.current) {
-      wordsOpened.current = opened;
-      words();
-    } else {
-      scheduleWords(words);
+    const keys = laid.links.map((l) => l.key).join('|') + '||' + laid.nodes.map((n) => n.id).join('|');
+    const fresh = keys !== svgKeys.current || opened !== svgOpened.current;
+    if (canvas) {
+      // Drawn at once when on screen, new, or of another size (the page below it moves in this frame, as it always did).
+      if (canvasSeen.current || fresh || canvas.style.width !== `${laid.width * shownZoom}px` || canvas.style.height !== `${laid.height * shownZoom}px`) paint();
+      else canvasPending.current = paint;
     }
-  }, [laid, nodeLabels, selected, palette, loc, elements]);
+    svgPending.current = svg;
+    // Without the canvas (a drawing too large for one) the SVG is what is seen: written at once.
+    if (fresh || !canvas) {
+      svgKeys.current = keys;
+      svgOpened.current = opened;
+      svg();
+    }
+    if (svgPending.current || canvasPending.current)
+      scheduleSvg(() => {
+        canvasPending.current?.();
+        svgPending.current?.();
+      });
+  }, [laid, nodeLabels, selected, palette, loc, elements, shownZoom, dpr]);
 
   const zoomStep = (dir: 1 | -1) => {
     const steps = dir > 0 ? ZOOMS.filter((z) => z > shownZoom + 1e-6) : ZOOMS.filter((z) => z < shownZoom - 1e-6).reverse();
@@ -447,11 +516,15 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
         onFocusIn={pick}
       >
         {graph.sourcePower === 0 && <p class="note">The source delivers nothing in this project, so there is no flow to draw.</p>}
+        {laid && graph.sourcePower !== 0 && onCanvas && (
+          // The drawing a person sees (flow-canvas.ts); its size is set where it is drawn.
+          <canvas ref={canvasBox} class="flow__canvas" role="img" aria-label={canvasLabel} data-testid="flow-canvas" />
+        )}
         {laid && graph.sourcePower !== 0 && (
           <svg
             ref={svgRef}
             xmlns="http://www.w3.org/2000/svg"
-            class="flow__svg"
+            class={onCanvas ? 'flow__svg' : 'flow__svg flow__svg--shown'}
             width={laid.width}
             height={laid.height}
             style={shownZoom !== 1 ? { width: `${laid.width * shownZoom}px`, height: `${laid.height * shownZoom}px` } : undefined}

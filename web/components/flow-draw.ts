@@ -6,10 +6,13 @@
  * for changes that are then written anyway. Here each part is a keyed element that keeps the
  * attributes last written to it: after an edit only the attributes and text that changed are
  * written, and parts that come or go are added or removed in place. EnergyFlow.tsx computes what
- * each part shows (plain strings and numbers) and calls these from a layout effect, so the new
- * diagram is in the same frame as the edit. Focus stays on a part across redraws (same element).
- * What a part says rather than shows (its accessible name, a branch's watts) is written by
- * `describe`, which EnergyFlow.tsx runs when the page is idle after the paint.
+ * each part shows (plain strings and numbers), draws it on the canvas a person sees
+ * (flow-canvas.ts) in the edit's frame, and writes the SVG with these when the page is idle after
+ * the paint (at once when a part comes or goes or another project opens, and before a download or
+ * printing): the SVG lies transparent over the canvas, for the parts' accessible names, focus, hover
+ * and tap, and it is what the downloads and the printed page show. Focus stays on a part across
+ * redraws (same element). What a part says rather than shows (its accessible name, a branch's
+ * watts) is written by `describe`, in the same idle task.
  */
 import { LINE } from './flow-layout.ts';
 import { xmlSafeText } from './xml-text.ts';
