@@ -226,6 +226,7 @@ export function searchOptions(solved: Solved, search: OptionSearch, run: SearchR
   const unpriced = new Set(met.flatMap((o) => o.missingPrices));
   notes.push('Purchase cost: the prices of the elements the search changes (the rest of the chain is the same in every option).');
   if (unpriced.size) notes.push(`No price for some choices of ${[...unpriced].join(', ')}: those options’ costs leave them out (give the prices to compare them fairly).`);
+  if (groups.some((gr) => gr.voltage)) notes.push('System voltage: the bank is re-strung and the voltages that follow the DC system (an inverter’s cut-off, a charger’s output) are changed in proportion; the equipment itself is the same, priced as it is: check that each is made for that voltage, or list alternatives with their makers’ figures.');
   if (rejected.some((o) => o.skipped.length)) notes.push('An option that fails one check is not put through the later ones (the runtime, the motor starts): it is out whatever they say, so its other reasons may be missing.');
   if (!cost) notes.push('Yearly cost of the losses: no energy price given (the running cost settings).');
   return {

@@ -58,6 +58,7 @@ describe('the system voltage axis', () => {
     const set = r.options[0]!.variant.set!;
     expect(set['bank']!['bank']).toMatchObject({ series: 16, strings: 2 });
     expect(set['inverter']!['lowVoltageCutoff']).toBe(44);
+    expect(r.notes.some((n) => n.startsWith('System voltage: the bank is re-strung'))).toBe(true);
   });
 
   it('counts the other axes at each voltage: strings of 8 cells at 24 V, of 16 at 48 V', () => {
