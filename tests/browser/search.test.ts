@@ -170,6 +170,8 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
       expect(names).toEqual(core.search.options.map((o) => o.name));
       expect(names.every((n) => /^(24|48) V system · [12] strings?$/.test(n))).toBe(true);
       expect(await page.getByTestId('search-summary').textContent()).toMatch(/^4 of 4 options tried/);
+      await page.getByTestId('search-results').scrollIntoViewIfNeeded();
+      await page.getByTestId('search-volts-48').scrollIntoViewIfNeeded();
       await page.getByTestId('search-panel').screenshot({ path: join(artifacts, 'search-voltage-panel.png') });
       expect(await seriousAxeViolations(page, `'[data-testid="search-panel"]'`)).toEqual([]);
       expect(errors).toEqual([]);
