@@ -85,6 +85,13 @@ describe('the system voltage axis', () => {
     expect(seen.slice(-2)).toEqual([3, 3]);
   });
 
+  it('the file takes 12, 24 or 48 V only (the usual DC system voltages, common practice (no source))', () => {
+    const v = validateProject({ ...base24, optionSearch: { systemVoltages: [36] } });
+    expect(v.ok).toBe(false);
+    if (!v.ok) expect(v.problems.some((p) => p.field.startsWith('optionSearch.systemVoltages') && /12, 24 or 48 V/.test(p.message))).toBe(true);
+    expect(validateProject({ ...base24, optionSearch: { systemVoltages: [12, 48] } }).ok).toBe(true);
+  });
+
   it('refuses a voltage the chain cannot take, at the field, in words', () => {
     const noBank = validateProject({
       ...searchBase,
