@@ -370,6 +370,7 @@ export const FIELD_LABELS: Readonly<Record<ElementKind | 'project', Readonly<Rec
     "optionSearch.targetRuntimeHours": "Runtime to reach",
     "optionSearch.maxLossW": "Highest losses",
     "optionSearch.order": "List first",
+    "optionSearch.systemVoltages": "System voltages to try",
     "optionSearch.strings": "Strings to try",
     "optionSearch.strings.bank": "Bank to try strings in",
     "optionSearch.strings.counts": "Strings to try",

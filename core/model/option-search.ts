@@ -57,5 +57,10 @@ export interface OptionSearch {
   strings?: StringsCandidates;
   cables?: CableCandidates[];
   inverters?: SwapCandidates[];
-  // The system voltages to try join here at merge, beside their axis in core/studies/search/axes.ts.
+  /**
+   * System voltages to try, V (each 12, 24 or 48; the first axis, core/studies/search/axes.ts): the DC
+   * system's bank re-strung and the voltages that follow it changed (core/variants/system-voltage.ts);
+   * the other candidates are then tried at each voltage (the strings count at that voltage).
+   */
+  systemVoltages?: number[];
 }

@@ -19,6 +19,12 @@ export const optionSearchSchema = z.strictObject({
   targetRuntimeHours: z.optional(ranged('hours')),
   maxLossW: z.optional(ranged('power')),
   order: z.optional(z.enum(['cost', 'losses'], { error: 'must be "cost" or "losses"' })),
+  systemVoltages: z.optional(
+    list(
+      z.literal([12, 24, 48], { error: 'must be 12, 24 or 48 V' }),
+      'system voltages',
+    ),
+  ),
   strings: z.optional(
     z.strictObject({
       bank: id('a battery bank'),

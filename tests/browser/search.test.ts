@@ -6,7 +6,8 @@
  * hand-worked case of tests/core/search/). "Keep as a variant" stores the option in the project's
  * variants (read back from the exported file, whose stored search settings give core the same list).
  * On the harbour clinic the sizes of a sized cable come from its table, the list and the rejected groups
- * equal core's, and a longer search shows its progress and stops on Stop.
+ * equal core's, and a longer search shows its progress and stops on Stop. On the hillside, the system
+ * voltage ticks (24 and 48 V) with the strings give core's list, each option named with its voltage.
  * Desktop and phone, axe clean; screenshots in tests/.artifacts/.
  */
 import { readFileSync } from 'node:fs';
@@ -141,6 +142,43 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
       }
     }, 240_000);
   }
+
+  it('hillside, desktop: the system voltage ticks (24 and 48 V) with 1–2 strings; the list and its words equal core’s', async () => {
+    // 2 voltages × 2 string counts = 4 options (the sum over the voltages); the strings count at each voltage.
+    const ticked: OptionSearch = { systemVoltages: [24, 48], strings: { bank: 'bank', counts: [1, 2], pricePerString: 1200 } };
+    const solved = solveProject(hillside);
+    if (!solved.ok) throw new Error('hillside does not solve');
+    const core = searchOptions(solved, ticked);
+    if (!core.ok) throw new Error(JSON.stringify(core.problems));
+    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US' });
+    const page = await context.newPage();
+    const errors = watchPageErrors(page);
+    try {
+      await page.goto(`${baseUrl}#demo=hillside-relay-hut`, { waitUntil: 'load' });
+      await page.getByTestId('results').waitFor();
+      await page.getByTestId('panel-search').locator('summary').click();
+      await page.getByTestId('search-panel').waitFor();
+      await page.getByTestId('search-volts-24').check();
+      await page.getByTestId('search-volts-48').check();
+      await page.getByTestId('search-strings-1').check();
+      await page.getByTestId('search-strings-2').check();
+      await page.getByTestId('search-string-price').fill('1200');
+      await expect.poll(() => page.getByTestId('search-run').textContent()).toBe('Find the option (4 options)');
+      await page.getByTestId('search-run').click();
+      await page.getByTestId('search-results').waitFor({ timeout: 60_000 });
+      const names = await page.getByTestId('search-option').locator('.search-option-name').allTextContents();
+      expect(names).toEqual(core.search.options.map((o) => o.name));
+      expect(names.every((n) => /^(24|48) V system · [12] strings?$/.test(n))).toBe(true);
+      expect(await page.getByTestId('search-summary').textContent()).toMatch(/^4 of 4 options tried/);
+      await page.getByTestId('search-results').scrollIntoViewIfNeeded();
+      await page.getByTestId('search-volts-48').scrollIntoViewIfNeeded();
+      await page.getByTestId('search-panel').screenshot({ path: join(artifacts, 'search-voltage-panel.png') });
+      expect(await seriousAxeViolations(page, `'[data-testid="search-panel"]'`)).toEqual([]);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 240_000);
 
   it('harbour clinic, desktop: conductor sizes from the cable’s table; the list and the rejected equal core’s', async () => {
     const harbour = demoProjects.find((d) => d.id === 'harbour-clinic-ups')!.project;

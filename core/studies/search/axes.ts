@@ -4,9 +4,11 @@
  * variant (`set` fields on an element or `swap` the element whole, core/model/variants.ts) with its
  * words ("2 strings", "Bank cable 10 mm²", "Inverter B") and the price of the element it leaves.
  *
- * Another axis is one entry of SEARCH_AXES. The system voltage axis is added at merge from
- * `systemVoltageVariant(project, volts)` (another part of the engine): its dimension's choices are
- * the variants that function gives, one per voltage, each with its words ("48 V system").
+ * Another axis is one entry of SEARCH_AXES. The system voltage (`voltageChoices`) is the first axis
+ * but not an entry there: its choices change several elements (the bank re-strung and the voltages
+ * that follow the DC system, `systemVoltageVariant(project, volts)`, core/variants/system-voltage.ts)
+ * and the strings axis sets the same bank field, so the search takes it as an outer loop: for each
+ * voltage, the chain at that voltage, and the other axes' dimensions worked out from it.
  */
 import type { BatterySource, CableStage, Element } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
@@ -15,6 +17,11 @@ import type { OptionSearch } from '../../model/option-search.ts';
 import { SEARCH_MAX_CHOICES } from '../../model/option-search.ts';
 import type { ValidProject } from '../../solve/validate.ts';
 import { defaultCatalogue } from '../../conductors/index.ts';
+import { formatProblem } from '../../model/errors.ts';
+import { CHEMISTRY_PRESETS } from '../../data/battery-chemistries.ts';
+import { seriesForSystem, systemBank, systemVoltageVariant } from '../../variants/system-voltage.ts';
+import { variantChangeOf } from '../../solve/project-variant.ts';
+import { variantProject } from '../../solve/variant.ts';
 
 /** One choice on one dimension: a piece of a variant, its words and the price of the element it leaves. */
 export interface SearchChoice {
@@ -28,6 +35,8 @@ export interface SearchChoice {
   short: string;
   /** Fields set on the element (the variant's `set` for this element). */
   set?: Record<string, unknown>;
+  /** Fields set on several elements (the system voltage: the bank and what follows its voltage); the other choices' `set` win per field. */
+  sets?: Record<string, Record<string, unknown>>;
   /** The element put in its place (the variant's `swap`). */
   swap?: Element;
   /** The element's purchase price with this choice, currency units; undefined when not known. */
@@ -191,12 +200,73 @@ const swapAxis: SearchAxisDef = {
   },
 };
 
+/** One system voltage to try: its choice (first in an option) and the chain at that voltage (the other axes' dimensions come from it). */
+export interface VoltageChoice {
+  volts: number;
+  choice: SearchChoice;
+  project: ValidProject;
+  /** Ratio of the bank's cells in series, new ÷ the chain's own (1 when the chain already has this voltage). */
+  seriesRatio: number;
+}
+
+/**
+ * The system voltages of the settings (12, 24, 48 V, each once, lowest first): each the chain as it is
+ * when its bank already has that voltage, else the variant of systemVoltageVariant applied
+ * (variantChangeOf, variantProject: its changed elements checked as a file's). The bank's price
+ * follows its cells (same cells, same price; strings kept, price × cells new ÷ cells old: linear in
+ * cells, common practice (no source)). A voltage the chain cannot take is a problem at the field.
+ */
+export function voltageChoices(project: ValidProject, search: OptionSearch): { choices: VoltageChoice[]; problems: Problem[] } {
+  const list = search.systemVoltages;
+  if (!list || list.length === 0) return { choices: [], problems: [] };
+  const field = 'optionSearch.systemVoltages';
+  const volts = [...new Set(list)].sort((a, b) => a - b);
+  const bank = systemBank(project);
+  if (!bank) return { choices: [], problems: [bad(field, list, 'needs a DC system with a battery bank: the system voltage changes the bank’s cells in series, and this chain has no bank')] };
+  if (!bank.bank) return { choices: [], problems: [bad(field, list, `needs the cells and strings of ${nameOf(bank)} (it is given by its voltage alone): give the bank to try other system voltages`)] };
+  const spec = bank.bank;
+  const blockVolts = (spec.overrides?.nominalCellVoltage ?? CHEMISTRY_PRESETS[spec.chemistry].nominalCellVoltage) * (spec.cellsPerBlock ?? 1);
+  const cellsBefore = spec.series * (spec.strings ?? 1);
+  const choices: VoltageChoice[] = [];
+  const problems: Problem[] = [];
+  for (const v of volts) {
+    const words = `${v} V system`;
+    if (seriesForSystem(blockVolts, v) === spec.series) {
+      choices.push({ volts: v, choice: { axis: 'voltage', elementId: bank.id, words: `${words} (as it is)`, short: words, price: bank.price }, project, seriesRatio: 1 });
+      continue;
+    }
+    const out = systemVoltageVariant(project, v);
+    if (!out.ok) {
+      problems.push(bad(field, v, `${v} V: ${out.problems.map((p) => p.message).join('; ')}`));
+      continue;
+    }
+    const sets: Record<string, Record<string, unknown>> = { ...(out.variant.set ?? {}) };
+    const newBank = sets[bank.id]?.['bank'] as { series: number; strings?: number } | undefined;
+    const cellsAfter = newBank ? newBank.series * (newBank.strings ?? 1) : cellsBefore;
+    const price = bank.price !== undefined ? Number(((bank.price * cellsAfter) / cellsBefore).toPrecision(6)) : undefined;
+    if (price !== undefined) sets[bank.id] = { ...sets[bank.id], price };
+    const change = variantChangeOf(project, { name: words, set: sets });
+    const changed = change.ok ? variantProject(project, change.change) : change;
+    if (!changed.ok) {
+      const first = changed.problems[0];
+      problems.push(bad(field, v, `${v} V: the chain at this voltage is refused: ${first ? formatProblem(first, project) : 'refused'}`));
+      continue;
+    }
+    choices.push({
+      volts: v,
+      choice: { axis: 'voltage', elementId: bank.id, words, short: words, sets, price },
+      project: changed.project,
+      seriesRatio: (newBank?.series ?? spec.series) / spec.series,
+    });
+  }
+  return problems.length ? { choices: [], problems } : { choices, problems };
+}
+
 /**
  * Every axis, in the order its choices appear in an option's name. One entry adds an axis; the
- * system voltage (`systemVoltageVariant(project, volts)`) goes first here at merge.
+ * system voltage comes before them all (`voltageChoices`, an outer loop: see the header).
  */
 export const SEARCH_AXES: readonly SearchAxisDef[] = [
-  // system voltage: added at merge (see the header)
   stringsAxis,
   swapAxis,
   cableAxis,

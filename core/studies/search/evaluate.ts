@@ -77,14 +77,23 @@ export function durationWords(seconds: number): string {
   return m === 0 ? `${h} h` : `${h} h ${m} min`;
 }
 
-/** The variant of a combination: each choice's `set` merged per element (later axes win per field), each `swap` listed. */
+/**
+ * The variant of a combination: each choice's fields merged per element in order (the system
+ * voltage's `sets` first, later choices win per field), each `swap` listed; a swapped element takes
+ * no `set` (the alternative is put in whole, as the user gave it).
+ */
 export function variantOf(choices: readonly SearchChoice[]): ProjectVariant {
   const set: Record<string, Record<string, unknown>> = {};
   const swap: Element[] = [];
+  const put = (id: string, fields: Record<string, unknown>) => {
+    set[id] = { ...(set[id] ?? {}), ...fields };
+  };
   for (const c of choices) {
     if (c.swap) swap.push(c.swap);
-    if (c.set) set[c.elementId] = { ...(set[c.elementId] ?? {}), ...c.set };
+    for (const [id, fields] of Object.entries(c.sets ?? {})) put(id, fields);
+    if (c.set) put(c.elementId, c.set);
   }
+  for (const e of swap) delete set[e.id];
   return { name: optionName(choices), ...(Object.keys(set).length ? { set } : {}), ...(swap.length ? { swap } : {}) };
 }
 
@@ -125,9 +134,12 @@ export function evaluateOption(
   const missingPrices: string[] = [];
   let price = 0;
   const names = new Map(base.project.elements.map((e) => [e.id, e.name ?? e.id]));
-  for (const c of choices) {
-    if (c.price === undefined) missingPrices.push(names.get(c.elementId) ?? c.elementId);
-    else price += c.price;
+  // One price per changed element: the last choice on it wins (the strings of a bank after its system voltage).
+  const priced = new Map<string, number | undefined>();
+  for (const c of choices) priced.set(c.elementId, c.price);
+  for (const [id, p] of priced) {
+    if (p === undefined) missingPrices.push(names.get(id) ?? id);
+    else price += p;
   }
   const option: EvaluatedOption = {
     name: variant.name,

@@ -6,6 +6,11 @@
  * the rejected with their reasons, grouped and counted. At most SEARCH_MAX_COMBINATIONS are tried:
  * beyond, the first ones in the order of the axes are, and the result says so.
  *
+ * The system voltage is an outer loop (axes.ts `voltageChoices`): for each voltage, the other axes'
+ * dimensions from the chain at that voltage, and each option's variant is the voltage's fields
+ * overlaid by the other choices' (evaluate.ts variantOf); the combinations are the sum over the
+ * voltages of the product of their dimensions.
+ *
  * The target: the runtime (the settings' own, or the battery backup study's target) when the chain
  * has a bank with a study; every drop within its limit; every motor start "starts"; the losses below
  * the optional limit. Figures are planning estimates: local codes and licensed practice govern.
@@ -18,7 +23,8 @@ import type { Solved } from '../../solve/solved.ts';
 import { solveProjectVariant } from '../../solve/project-variant.ts';
 import { costSettingsOf } from '../economics.ts';
 import { sigText } from '../../model/message.ts';
-import { SEARCH_AXES, type SearchChoice, type SearchDimension } from './axes.ts';
+import type { ValidProject } from '../../solve/validate.ts';
+import { SEARCH_AXES, voltageChoices, type SearchChoice, type SearchDimension } from './axes.ts';
 import { durationWords, evaluateOption, runtimeOf, type EvaluatedOption, type SearchReason, type SearchTarget } from './evaluate.ts';
 import { paretoFront } from './pareto.ts';
 
@@ -76,24 +82,69 @@ export interface SearchRun {
   maxCombinations?: number;
 }
 
-/** The dimensions of a search's settings, or their problems. */
-export function searchDimensions(solved: Solved, search: OptionSearch): { ok: true; dimensions: SearchDimension[] } | { ok: false; problems: Problem[] } {
+/** One voltage's part of the search (or the whole search without system voltages): its first choice, its dimensions. */
+export interface SearchGroup {
+  /** The system voltage's choice (absent when the settings try no system voltages). */
+  voltage?: SearchChoice;
+  dimensions: SearchDimension[];
+  /** Combinations of this group: the product of its dimensions' choices. */
+  combinations: number;
+}
+
+/** The other axes' dimensions on one chain, or their problems. */
+function axesDimensions(project: ValidProject, search: OptionSearch): { dimensions: SearchDimension[]; problems: Problem[] } {
   const dimensions: SearchDimension[] = [];
   const problems: Problem[] = [];
   for (const axis of SEARCH_AXES) {
-    const d = axis.dimensions(solved.project, search);
+    const d = axis.dimensions(project, search);
     dimensions.push(...d.dimensions);
     problems.push(...d.problems);
   }
-  if (problems.length) return { ok: false, problems };
-  if (dimensions.length === 0) return { ok: false, problems: [{ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'optionSearch', message: 'lists no candidates: tick strings, conductor sizes or inverters to try' }] };
   const seen = new Set<string>();
   for (const d of dimensions) {
     const key = `${d.axis}:${d.elementId}`;
     if (seen.has(key)) problems.push({ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'optionSearch', value: d.elementName, message: `lists ${d.elementName} twice on one axis: give its candidates once` });
     seen.add(key);
   }
-  return problems.length ? { ok: false, problems } : { ok: true, dimensions };
+  return { dimensions, problems };
+}
+
+const noCandidates: Problem = { code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'optionSearch', message: 'lists no candidates: tick system voltages, strings, conductor sizes or inverters to try' };
+
+/** The dimensions of a search's settings on the chain as it is (the system voltages aside), or their problems. */
+export function searchDimensions(solved: Solved, search: OptionSearch): { ok: true; dimensions: SearchDimension[] } | { ok: false; problems: Problem[] } {
+  const { dimensions, problems } = axesDimensions(solved.project, search);
+  if (problems.length) return { ok: false, problems };
+  if (dimensions.length === 0) return { ok: false, problems: [noCandidates] };
+  return { ok: true, dimensions };
+}
+
+/**
+ * The groups of a search: one per system voltage (its chain's dimensions; a price per string given
+ * at the chain's own voltage scaled by the cells in series, linear in cells, common practice (no
+ * source)), or one group on the chain as it is when no voltage is tried.
+ */
+export function searchGroups(solved: Solved, search: OptionSearch): { ok: true; groups: SearchGroup[] } | { ok: false; problems: Problem[] } {
+  const count = (dimensions: SearchDimension[]) => dimensions.reduce((n, d) => n * d.choices.length, 1);
+  if (!search.systemVoltages || search.systemVoltages.length === 0) {
+    const d = searchDimensions(solved, search);
+    return d.ok ? { ok: true, groups: [{ dimensions: d.dimensions, combinations: count(d.dimensions) }] } : d;
+  }
+  const v = voltageChoices(solved.project, search);
+  if (v.problems.length) return { ok: false, problems: v.problems };
+  const groups: SearchGroup[] = [];
+  const problems: Problem[] = [];
+  for (const c of v.choices) {
+    const pps = search.strings?.pricePerString;
+    const at = pps !== undefined && search.strings ? { ...search, strings: { ...search.strings, pricePerString: pps * c.seriesRatio } } : search;
+    const d = axesDimensions(c.project, at);
+    // A problem of the other axes is the same at every voltage: said once.
+    for (const p of d.problems) if (!problems.some((q) => q.field === p.field && q.message === p.message)) problems.push(p);
+    groups.push({ voltage: c.choice, dimensions: d.dimensions, combinations: count(d.dimensions) });
+  }
+  if (problems.length) return { ok: false, problems };
+  if (groups.length === 0) return { ok: false, problems: [noCandidates] };
+  return { ok: true, groups };
 }
 
 /** The target of a search from its settings and the project (see the header). */
@@ -122,33 +173,42 @@ function targetWords(t: SearchTarget, solved: Solved): string[] {
 
 /** Run the search (see the header). Never throws on bad settings: their problems come back. */
 export function searchOptions(solved: Solved, search: OptionSearch, run: SearchRun = {}): SearchOutcome {
-  const dims = searchDimensions(solved, search);
-  if (!dims.ok) return dims;
-  const { dimensions } = dims;
+  const g = searchGroups(solved, search);
+  if (!g.ok) return g;
+  const { groups } = g;
   const target = searchTarget(solved, search);
   const cost = costSettingsOf(solved.project);
   const order = search.order ?? 'cost';
   const cap = Math.min(run.maxCombinations ?? SEARCH_MAX_COMBINATIONS, SEARCH_MAX_COMBINATIONS);
-  const combinations = dimensions.reduce((n, d) => n * d.choices.length, 1);
+  // Σ over the voltages of Π of their dimensions' choices (one group without system voltages).
+  const combinations = groups.reduce((n, gr) => n + gr.combinations, 0);
   const total = Math.min(combinations, cap);
   const met: MetOption[] = [];
   const rejected: EvaluatedOption[] = [];
-  // Odometer over the dimensions: the last one turns fastest.
-  const index = dimensions.map(() => 0);
   let tried = 0;
-  for (; tried < total; tried++) {
-    if (run.shouldStop?.()) break;
-    const choices: SearchChoice[] = dimensions.map((d, i) => d.choices[index[i]!]!);
-    const option = evaluateOption(solved, choices, target, cost, run.allReasons ?? false);
-    run.onOption?.(option);
-    if (option.meets && option.lossW !== undefined) met.push(option as MetOption);
-    else rejected.push(option);
-    for (let i = dimensions.length - 1; i >= 0; i--) {
-      index[i]!++;
-      if (index[i]! < dimensions[i]!.choices.length) break;
-      index[i] = 0;
+  let stopped = false;
+  for (const group of groups) {
+    const { dimensions } = group;
+    // Odometer over the group's dimensions: the last one turns fastest.
+    const index = dimensions.map(() => 0);
+    for (let k = 0; k < group.combinations && tried < total; k++, tried++) {
+      if (run.shouldStop?.()) {
+        stopped = true;
+        break;
+      }
+      const choices: SearchChoice[] = [...(group.voltage ? [group.voltage] : []), ...dimensions.map((d, i) => d.choices[index[i]!]!)];
+      const option = evaluateOption(solved, choices, target, cost, run.allReasons ?? false);
+      run.onOption?.(option);
+      if (option.meets && option.lossW !== undefined) met.push(option as MetOption);
+      else rejected.push(option);
+      for (let i = dimensions.length - 1; i >= 0; i--) {
+        index[i]!++;
+        if (index[i]! < dimensions[i]!.choices.length) break;
+        index[i] = 0;
+      }
+      if (run.onProgress && (tried % 10 === 9 || tried + 1 === total)) run.onProgress(tried + 1, total);
     }
-    if (run.onProgress && (tried % 10 === 9 || tried + 1 === total)) run.onProgress(tried + 1, total);
+    if (stopped || tried >= total) break;
   }
   const options = paretoFront(met, order);
   // The listed options' full runtime (the search stopped each discharge just past the target).
@@ -166,6 +226,7 @@ export function searchOptions(solved: Solved, search: OptionSearch, run: SearchR
   const unpriced = new Set(met.flatMap((o) => o.missingPrices));
   notes.push('Purchase cost: the prices of the elements the search changes (the rest of the chain is the same in every option).');
   if (unpriced.size) notes.push(`No price for some choices of ${[...unpriced].join(', ')}: those options’ costs leave them out (give the prices to compare them fairly).`);
+  if (groups.some((gr) => gr.voltage)) notes.push('System voltage: the bank is re-strung and the voltages that follow the DC system (an inverter’s cut-off, a charger’s output) are changed in proportion; the equipment itself is the same, priced as it is: check that each is made for that voltage, or list alternatives with their makers’ figures.');
   if (rejected.some((o) => o.skipped.length)) notes.push('An option that fails one check is not put through the later ones (the runtime, the motor starts): it is out whatever they say, so its other reasons may be missing.');
   if (!cost) notes.push('Yearly cost of the losses: no energy price given (the running cost settings).');
   return {

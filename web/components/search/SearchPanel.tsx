@@ -1,6 +1,7 @@
 /**
  * "Find the option" (issue 20 point 4): the target (runtime, drops within their limits, starts, an
- * optional loss limit) and the candidates the user ticks — strings in the bank (1–4), conductor sizes
+ * optional loss limit) and the candidates the user ticks — the system voltage (12 / 24 / 48 V, when the
+ * chain has a DC system bank with its cells), strings in the bank (1–4), conductor sizes
  * of each sized cable (the cable's own table), inverters (the editor's template at typical
  * efficiencies) — kept in the project (`optionSearch`, through setField), searched in a worker of its
  * own with progress and a stop button, then the short list of options that meet the target (none
@@ -10,7 +11,7 @@
  */
 import { useEffect, useRef, useState } from 'preact/hooks';
 import { PROJECT_LEVEL, type CableStage, type Element, type OptionSearch, type Problem, type ProjectVariant, type Solved } from '../../../core/page.ts';
-import { listedSizes, SEARCH_CAUTION, type EvaluatedOption, type SearchResult } from '../../../core/studies/index.ts';
+import { listedSizes, SEARCH_CAUTION, SYSTEM_VOLTAGES, systemBank, type EvaluatedOption, type SearchResult } from '../../../core/studies/index.ts';
 import { formatDuration, formatPower, formatSignificant } from '../../format/number.ts';
 import { formatMoney } from '../../format/panels.ts';
 import { formatForInput, parseLocaleNumber } from '../../format/parse.ts';
@@ -71,6 +72,7 @@ function startingSettings(saved: OptionSearch | undefined): OptionSearch {
 
 function withoutEmpty(s: OptionSearch): OptionSearch {
   const out: OptionSearch = { ...s };
+  if (out.systemVoltages && out.systemVoltages.length === 0) delete out.systemVoltages;
   if (out.strings && out.strings.counts.length === 0) delete out.strings;
   if (out.cables) {
     out.cables = out.cables.filter((c) => (c.sizes ?? []).length > 0);
@@ -84,7 +86,8 @@ function withoutEmpty(s: OptionSearch): OptionSearch {
 }
 
 function combinationsOf(s: OptionSearch): number {
-  let n = 1;
+  // Σ over the system voltages of the other axes' product (the same lists at every voltage): voltages × product.
+  let n = s.systemVoltages && s.systemVoltages.length ? s.systemVoltages.length : 1;
   if (s.strings && s.strings.counts.length) n *= s.strings.counts.length;
   for (const c of s.cables ?? []) if ((c.sizes ?? []).length) n *= c.sizes!.length;
   for (const i of s.inverters ?? []) if (i.alternatives.length) n *= i.alternatives.length + (i.keepCurrent === false ? 0 : 1);
@@ -97,6 +100,13 @@ function Candidates({ solved, settings, update, locale }: { solved: Solved; sett
   const cables = project.elements.filter((e): e is CableStage => e.kind === 'cable' && e.conductor !== undefined);
   const inverters = project.elements.filter((e) => e.kind === 'inverter');
   const counts = settings.strings?.counts ?? [];
+  // The system voltage changes the DC system's bank (its cells in series): offered only when the chain has one with its cells.
+  const dcBank = systemBank(project);
+  const volts = settings.systemVoltages ?? [];
+  const toggleVolts = (v: number, on: boolean) => {
+    const next = on ? [...volts, v].sort((a, b) => a - b) : volts.filter((x) => x !== v);
+    update({ ...settings, systemVoltages: next });
+  };
   const toggleCount = (n: number, on: boolean) => {
     const next = on ? [...counts, n].sort((a, b) => a - b) : counts.filter((x) => x !== n);
     update({ ...settings, strings: { ...(settings.strings ?? {}), bank: bank!.id, counts: next } });
@@ -116,6 +126,20 @@ function Candidates({ solved, settings, update, locale }: { solved: Solved; sett
   };
   return (
     <div class="search-candidates" data-testid="search-candidates">
+      {dcBank?.bank && (
+        <fieldset class="search-axis" data-testid="search-voltages">
+          <legend>System voltage of {nameOf(dcBank)}</legend>
+          <div class="search-ticks">
+            {SYSTEM_VOLTAGES.map((v) => (
+              <label key={v} class="search-tick">
+                <input type="checkbox" checked={volts.includes(v)} data-testid={`search-volts-${v}`} onChange={(e) => toggleVolts(v, (e.currentTarget as HTMLInputElement).checked)} />
+                {v} V
+              </label>
+            ))}
+          </div>
+          <p class="note">The bank is re-strung for each voltage (the same cells where they divide) and the other candidates are tried at it; the strings count at that voltage.</p>
+        </fieldset>
+      )}
       {bank && (
         <fieldset class="search-axis">
           <legend>Strings in {nameOf(bank)}</legend>
@@ -340,7 +364,7 @@ export default function SearchPanel({ solved }: { solved: Solved }) {
   const runtimeTarget = settings.targetRuntimeHours ?? project.backup?.targetRuntimeHours;
   const ready = withoutEmpty(settings);
   const count = combinationsOf(ready);
-  const anyTicked = ready.strings !== undefined || ready.cables !== undefined || ready.inverters !== undefined;
+  const anyTicked = ready.systemVoltages !== undefined || ready.strings !== undefined || ready.cables !== undefined || ready.inverters !== undefined;
 
   const start = () => {
     // The settings are kept in the project first (checked by the engine's validation like any field).
