@@ -15,7 +15,7 @@ import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
-import { VIEWPORTS, artifacts, fullPageScreenshot, seriousAxeViolations, serveBuiltApp, showProjectsView, watchPageErrors, type ServedApp } from './harness.ts';
+import { VIEWPORTS, artifacts, fullPageScreenshot, openDemo, seriousAxeViolations, serveBuiltApp, showProjectsView, watchPageErrors, type ServedApp } from './harness.ts';
 import { demoProjects, searchOptions, solveProject, type OptionSearch } from '../../core/index.ts';
 import type { Element } from '../../core/model/project.ts';
 import { inverterPreset } from '../../web/components/search/inverter-presets.ts';
@@ -52,6 +52,14 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
   afterAll(async () => {
     await app?.close();
   });
+
+  /** A demo opened on the desktop with the "Find the option" panel open (the harness's openDemo). */
+  async function openSearchPanel(demo: string) {
+    const opened = await openDemo(browser!, VIEWPORTS.desktop, demo, { baseUrl });
+    await opened.page.getByTestId('panel-search').locator('summary').click();
+    await opened.page.getByTestId('search-panel').waitFor();
+    return opened;
+  }
 
   async function open(viewport: { width: number; height: number }, touch: boolean): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
     const context = await browser!.newContext({ viewport, deviceScaleFactor: 1, locale: 'en-US', hasTouch: touch, isMobile: touch, acceptDownloads: true });
@@ -150,14 +158,8 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
     if (!solved.ok) throw new Error('hillside does not solve');
     const core = searchOptions(solved, ticked);
     if (!core.ok) throw new Error(JSON.stringify(core.problems));
-    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US' });
-    const page = await context.newPage();
-    const errors = watchPageErrors(page);
+    const { context, page, errors } = await openSearchPanel('hillside-relay-hut');
     try {
-      await page.goto(`${baseUrl}#demo=hillside-relay-hut`, { waitUntil: 'load' });
-      await page.getByTestId('results').waitFor();
-      await page.getByTestId('panel-search').locator('summary').click();
-      await page.getByTestId('search-panel').waitFor();
       await page.getByTestId('search-volts-24').check();
       await page.getByTestId('search-volts-48').check();
       await page.getByTestId('search-strings-1').check();
@@ -191,14 +193,8 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
     if (!solved.ok) throw new Error('harbour does not solve');
     const core = searchOptions(solved, ticked);
     if (!core.ok) throw new Error(JSON.stringify(core.problems));
-    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US' });
-    const page = await context.newPage();
-    const errors = watchPageErrors(page);
+    const { context, page, errors } = await openSearchPanel('harbour-clinic-ups');
     try {
-      await page.goto(`${baseUrl}#demo=harbour-clinic-ups`, { waitUntil: 'load' });
-      await page.getByTestId('results').waitFor();
-      await page.getByTestId('panel-search').locator('summary').click();
-      await page.getByTestId('search-panel').waitFor();
       await page.getByTestId('search-strings-1').check();
       await page.getByTestId('search-strings-2').check();
       await page.getByTestId('search-string-price').fill('2500');
