@@ -114,6 +114,7 @@ describe('runtime spread: the study', () => {
     // not change a figure. The hillside demo at the typical tolerances, samples of three seeds.
     const solved = solvedOf(hillside);
     const outputW = new Map(solved.result.elements.map((e) => [e.id, e.pOut] as const));
+    let shortOfTarget = 0;
     for (const seed of [1, 7, 20261203]) {
       const plan = spreadPlan(solved, { settings: { samples: 4, seed }, cost: null });
       if (!plan.ok) throw new Error(plan.problems[0]!.message);
@@ -128,8 +129,11 @@ describe('runtime spread: the study', () => {
         expect(chunk.runtimeH[i]).toBe(full.study.discharge.runtimeSeconds / 3600);
         expect(chunk.lowerBound[i]).toBe(full.study.discharge.runtimeIsLowerBound);
         expect(chunk.bankAh[i]).toBe(full.study.sizing!.bankCapacity);
+        if (full.study.discharge.runtimeSeconds < 24 * 3600) shortOfTarget++;
       });
     }
+    // Some samples run out before the 24 h target: their sizing reads the run with the endless bank too.
+    expect(shortOfTarget).toBeGreaterThan(0);
   });
 
   it('P50 of the runtime agrees within 1 % between two seeds at 2000 samples', () => {
