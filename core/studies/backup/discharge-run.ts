@@ -75,8 +75,17 @@ function holdConductors(project: Project, elements: readonly ElementResult[]): P
 
 export const hasConductorSpecs = (project: Project): boolean => project.elements.some((e) => e.kind === 'cable' && e.conductor);
 
+/** What a run keeps beyond its figures (default all). */
+export interface DischargeKeep {
+  /**
+   * false: the series keeps only time and terminal power (what the sizing reads, terminalPowerPeriods);
+   * soc, voltage and current stay empty. The runtime spread keeps no plot of a sample.
+   */
+  plotSeries?: boolean;
+}
+
 /** One run of the discharge (see the header); `nominal` is the solve whose conductor sizes are held. */
-export function runDischarge(project: Project, study: BackupStudy, source: BatterySource, nominal: SolveResult | undefined): DischargeOutcome {
+export function runDischarge(project: Project, study: BackupStudy, source: BatterySource, nominal: SolveResult | undefined, keep: DischargeKeep = {}): DischargeOutcome {
   // Cables with a conductor spec take their size and resistance from the nominal solve (the solved
   // value's result, or the variant's own solve).
   const fixed = hasConductorSpecs(project) && nominal ? holdConductors(project, nominal.elements) : project;
@@ -148,13 +157,19 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
   const cutoff = bank.cutoffVoltage;
 
   const series: DischargeSeries = { time: [], soc: [], voltage: [], current: [], power: [] };
-  const record = (t: number, soc: number, p: StepPoint) => {
-    series.time.push(t);
-    series.soc.push(soc);
-    series.voltage.push(p.voltage);
-    series.current.push(p.current);
-    series.power.push(p.terminalPower);
-  };
+  const record =
+    keep.plotSeries === false
+      ? (t: number, _soc: number, p: StepPoint) => {
+          series.time.push(t);
+          series.power.push(p.terminalPower);
+        }
+      : (t: number, soc: number, p: StepPoint) => {
+          series.time.push(t);
+          series.soc.push(soc);
+          series.voltage.push(p.voltage);
+          series.current.push(p.current);
+          series.power.push(p.terminalPower);
+        };
   // Accumulators (A·s and J), advanced in place each step (no object per step); `before` holds a
   // copy of them from before the last step, so that step can be undone at the cut-off.
   interface Acc {

@@ -11,17 +11,18 @@ import type { Solved } from '../../solve/index.ts';
 import { solveVariant, variantProject, type VariantChange } from '../../solve/variant.ts';
 import { CHEMISTRY_PRESETS } from '../../data/battery-chemistries.ts';
 import { checkStudy } from '../../solve/load-profile.ts';
-import { hasConductorSpecs, runDischarge, startProblem } from './discharge-run.ts';
+import { hasConductorSpecs, runDischarge, startProblem, type DischargeKeep } from './discharge-run.ts';
 import type { DischargeOutcome } from './discharge-types.ts';
 
+export type { DischargeKeep } from './discharge-run.ts';
 export type { EndReason, DischargeSeries, Derate, IdleDraw, DischargeResult, DischargeOutcome } from './discharge-types.ts';
 
 /**
  * The discharge of a solved project's bank over its `backup` profile. Takes the solved value: the
  * project is not validated again, and its result gives the conductor sizes held during the outage.
  */
-export function simulateDischarge(solved: Solved): DischargeOutcome {
-  return dischargeOf(solved.project, solved.result);
+export function simulateDischarge(solved: Solved, keep: DischargeKeep = {}): DischargeOutcome {
+  return dischargeOf(solved.project, solved.result, keep);
 }
 
 /**
@@ -30,20 +31,20 @@ export function simulateDischarge(solved: Solved): DischargeOutcome {
  * changed; it is solved again (solveVariant) only when cables with a conductor spec need the sizes of
  * its own start of outage. Never validates the whole project again.
  */
-export function dischargeVariant(solved: Solved, change: VariantChange): DischargeOutcome {
+export function dischargeVariant(solved: Solved, change: VariantChange, keep: DischargeKeep = {}): DischargeOutcome {
   const batteryId = solved.project.elements.find((e) => e.kind === 'battery')?.id ?? '';
   if (hasConductorSpecs(solved.project)) {
     const v = solveVariant(solved, change);
     if (!v.ok) return { ok: false, problems: v.problems.map((p) => startProblem(p, batteryId)) };
-    return dischargeOf(v.project, v.result);
+    return dischargeOf(v.project, v.result, keep);
   }
   const v = variantProject(solved, change);
   if (!v.ok) return v;
-  return dischargeOf(v.project, undefined);
+  return dischargeOf(v.project, undefined, keep);
 }
 
 /** The study's own checks (a backup setting, a battery with a bank), then the discharge. */
-function dischargeOf(project: Project, nominal: SolveResult | undefined): DischargeOutcome {
+function dischargeOf(project: Project, nominal: SolveResult | undefined, keep: DischargeKeep): DischargeOutcome {
   const study = project.backup;
   const source = project.elements.find((e): e is BatterySource => e.kind === 'battery');
   const problems: Problem[] = [];
@@ -55,7 +56,7 @@ function dischargeOf(project: Project, nominal: SolveResult | undefined): Discha
   }
   if (study) problems.push(...checkStudy(study, project));
   if (problems.length || !study || !source?.bank) return { ok: false, problems };
-  return runDischarge(project, study, source, nominal);
+  return runDischarge(project, study, source, nominal, keep);
 }
 
 export { CHEMISTRY_PRESETS };

@@ -121,14 +121,15 @@ function checkPeriods(out: Problem[], elementId: string, field: string, duty: Du
   }
   const key = duty.basis === 'current' ? 'current' : 'power';
   const unit = duty.basis === 'current' ? 'A' : 'W';
+  // The field path is built only for a refused period (a runtime study's run gives some thousands).
+  const base = (i: number) => `${field}.periods[${i}]`;
   duty.periods.forEach((p, i) => {
-    const base = `${field}.periods[${i}]`;
     if (!isFiniteNumber(p.duration) || p.duration <= 0) {
-      out.push(problem('invalid-value', elementId, `${base}.duration`, p.duration, 'period duration must be greater than 0 s'));
+      out.push(problem('invalid-value', elementId, `${base(i)}.duration`, p.duration, 'period duration must be greater than 0 s'));
     }
     const v = (p as unknown as Record<string, unknown>)[key];
     if (!isFiniteNumber(v) || v < 0) {
-      out.push(problem('invalid-value', elementId, `${base}.${key}`, v, `period ${key} must be a number of at least 0 ${unit} (charging periods are not part of a discharge duty cycle)`));
+      out.push(problem('invalid-value', elementId, `${base(i)}.${key}`, v, `period ${key} must be a number of at least 0 ${unit} (charging periods are not part of a discharge duty cycle)`));
     }
   });
   if (duty.basis === 'power' && duty.voltage !== undefined && (!isFiniteNumber(duty.voltage) || duty.voltage <= 0)) {

@@ -17,7 +17,11 @@ export function repeatedPeriods(periods: readonly { duration: number }[], target
   return periods.length * Math.ceil(target / total);
 }
 
-/** The duty cycle over exactly `target` seconds: repeated from its start, or cut. */
+/**
+ * The duty cycle over exactly `target` seconds: repeated from its start, or cut. A period kept whole
+ * is the input's own object (a repeated one appears once per repeat); only the cut one is a copy, so
+ * callers read the periods and never change them (mergeEqualPeriods and mergeNearPeriods copy).
+ */
 export function fitToRuntime<T extends { duration: number }>(periods: readonly T[], target: number): T[] {
   const out: T[] = [];
   let left = target;
@@ -28,7 +32,7 @@ export function fitToRuntime<T extends { duration: number }>(periods: readonly T
     for (const p of periods) {
       if (left <= eps) break;
       const d = Math.min(p.duration, left);
-      out.push({ ...p, duration: d });
+      out.push(d === p.duration ? p : { ...p, duration: d });
       left -= d;
     }
   }

@@ -215,7 +215,10 @@ export function sizeBank(input: SizingInput): SizingOutcome {
       : periods.reduce((s, p) => s + (p.current * nominalVoltage * p.duration) / 3600, 0);
   const random = input.randomLoad;
   const randomCurrent = random === undefined ? 0 : 'current' in random ? random.current : random.power / voltageBasis;
-  const peakCurrent = Math.max(...periods.map((p) => p.current)) + randomCurrent;
+  // Math.max over the periods one at a time (a run of some thousand periods as arguments costs a copy).
+  let largest = -Infinity;
+  for (const p of periods) largest = Math.max(largest, p.current);
+  const peakCurrent = largest + randomCurrent;
   if (!(peakCurrent > 0)) {
     return {
       ok: false,

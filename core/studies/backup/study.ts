@@ -106,6 +106,11 @@ export interface StudyParts {
   sizedRun?: boolean;
   /** The recharge and the charger for the target recharge time. */
   recharge?: boolean;
+  /**
+   * false: the discharges keep only the series the sizing reads (time and terminal power; soc,
+   * voltage and current empty): no plot. The figures are the same.
+   */
+  plotSeries?: boolean;
 }
 
 /**
@@ -117,7 +122,8 @@ export function runBackupStudy(input: Solved, parts: StudyParts = {}): BackupStu
   const outage = outageSolve(input);
   if (!outage.ok) return outage;
   const solved = outage.solved;
-  const simulated = simulateDischarge(solved);
+  const keep = parts.plotSeries === false ? { plotSeries: false } : {};
+  const simulated = simulateDischarge(solved, keep);
   if (!simulated.ok) return simulated;
   const d = simulated.result;
   // simulateDischarge has checked that the project has a study and a battery bank.
@@ -136,7 +142,7 @@ export function runBackupStudy(input: Solved, parts: StudyParts = {}): BackupStu
       // The bank ran out before the target: the profile must go on to the target for the sizing. Run
       // it again from a bank too large to run out (same internal resistance, same starting charge),
       // so a daily profile carries on through its next hours instead of restarting.
-      const extended = dischargeVariant(solved, endlessBank(battery, study, d.bank.internalResistance, study.targetRuntimeHours));
+      const extended = dischargeVariant(solved, endlessBank(battery, study, d.bank.internalResistance, study.targetRuntimeHours), keep);
       if (!extended.ok) return extended;
       periods = terminalPowerPeriods(extended.result);
       run = extended.result;

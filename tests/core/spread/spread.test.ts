@@ -10,6 +10,7 @@ import { CHEMISTRY_PRESETS } from '../../../core/data/battery-chemistries.ts';
 import { histogram, percentiles } from '../../../core/studies/spread/stats.ts';
 import { ZERO_TOLERANCES } from '../../../core/studies/spread/tolerances.ts';
 import { validateProject } from '../../../core/solve/validate.ts';
+import { solveVariant } from '../../../core/solve/variant.ts';
 import { fieldLabel } from '../../../core/model/field-labels.ts';
 import { formatSpread } from '../../../core/studies/spread/text.ts';
 import { smallBankCase } from './cases.ts';
@@ -106,6 +107,33 @@ describe('runtime spread: the study', () => {
     const c = lossCostPerYear(solved.result, cost);
     expect(c.ok && r.value.costPerYear!.p50).toBe(c.ok ? c.cost.totalCost : NaN);
     expect(r.value.sensitivity).toEqual([]);
+  });
+
+  it('each sample gives the runtime and the bank runBackupStudy gives (all parts) on the same changed project', () => {
+    // Identity (no source needed): the spread's lean run (no sized run, recharge or plot series) must
+    // not change a figure. The hillside demo at the typical tolerances, samples of three seeds.
+    const solved = solvedOf(hillside);
+    const outputW = new Map(solved.result.elements.map((e) => [e.id, e.pOut] as const));
+    let shortOfTarget = 0;
+    for (const seed of [1, 7, 20261203]) {
+      const plan = spreadPlan(solved, { settings: { samples: 4, seed }, cost: null });
+      if (!plan.ok) throw new Error(plan.problems[0]!.message);
+      expect(plan.value.tolerances).toEqual(TYPICAL_TOLERANCES);
+      const chunk = spreadRun(solved, plan.value, { from: 0, count: 4 });
+      expect(chunk.failures).toEqual([]);
+      drawSamples(seed, 0, 4).forEach((d, i) => {
+        const changed = solveVariant(solved, changeOf(solved.project, plan.value.tolerances, d, outputW));
+        if (!changed.ok) throw new Error(changed.problems[0]!.message);
+        const full = runBackupStudy(changed);
+        if (!full.ok) throw new Error(full.problems[0]!.message);
+        expect(chunk.runtimeH[i]).toBe(full.study.discharge.runtimeSeconds / 3600);
+        expect(chunk.lowerBound[i]).toBe(full.study.discharge.runtimeIsLowerBound);
+        expect(chunk.bankAh[i]).toBe(full.study.sizing!.bankCapacity);
+        if (full.study.discharge.runtimeSeconds < 24 * 3600) shortOfTarget++;
+      });
+    }
+    // Some samples run out before the 24 h target: their sizing reads the run with the endless bank too.
+    expect(shortOfTarget).toBeGreaterThan(0);
   });
 
   it('P50 of the runtime agrees within 1 % between two seeds at 2000 samples', () => {
