@@ -14,6 +14,7 @@
  * (p0 + k1·x + k2·x², x = P/P_rated: no-load, linear and resistive terms; common practice, no source),
  * so datasheet-like curves rise steeply at light load and droop slightly near full load.
  */
+import { scaledLoad } from '../../core/studies/spread/sample.ts';
 import fc from 'fast-check';
 import type { Element, LossModel, PortKind, Project } from '../../core/model/project.ts';
 import { abs } from '../../core/physics/complex.ts';
@@ -527,26 +528,9 @@ export const projectWithNetworksArb: fc.Arbitrary<Project> = sourceArbWith({ net
 /** Random valid projects whose stages may also be transfer switches. */
 export const projectWithSwitchesArb: fc.Arbitrary<Project> = sourceArbWith({ transferSwitches: true }).map((root) => toProject(root));
 
-/** Scale every load's demand (power, apparent power or current) by `factor`. Returns a new project. */
+/** Scale every load's demand (power, apparent power or current) by `factor` (the spread's own scaling). Returns a new project. */
 export function scaleLoads(project: Project, factor: number): Project {
-  return {
-    ...project,
-    elements: project.elements.map((e) => {
-      switch (e.kind) {
-        case 'dc-load':
-        case 'ac-load':
-        case 'shaft-load':
-          return { ...e, power: e.power * factor };
-        case 'ac-va-load':
-          return { ...e, apparentPower: e.apparentPower * factor };
-        case 'dc-current-load':
-        case 'ac-current-load':
-          return { ...e, current: e.current * factor };
-        default:
-          return e;
-      }
-    }),
-  };
+  return { ...project, elements: project.elements.map((e) => scaledLoad(e, factor) ?? e) };
 }
 
 /** Recursively freeze plain data (so any mutation by the code under test throws in strict mode). */

@@ -72,7 +72,7 @@ export function shiftEfficiency(loss: LossModel, delta: number, outputW: number 
 }
 
 /** A load element with its level scaled by `factor` (the kinds whose level is one number), else null. */
-function scaledLoad(e: Element, factor: number): Element | null {
+export function scaledLoad(e: Element, factor: number): Element | null {
   switch (e.kind) {
     case 'dc-load':
     case 'ac-load':
