@@ -184,7 +184,18 @@ describe.skipIf(skipWithout('chromium'))('accessibility, themes, units and local
       const cables = page.getByTestId('cable-table');
       await cables.waitFor();
       const project = page.getByTestId('project');
-      const siText = await project.textContent();
+      // The lazy parts (answers lines, the report's share code, the worker's figures) mount after the tables:
+      // read the text once it has stopped changing (two reads 400 ms apart agree).
+      let siText = await project.textContent();
+      await expect
+        .poll(async () => {
+          await page.waitForTimeout(400);
+          const now = await project.textContent();
+          const settled = now === siText;
+          siText = now;
+          return settled;
+        }, { timeout: 20_000 })
+        .toBe(true);
       const lengthsSi = await cables.getByTestId('cable-length').allTextContents();
       expect(lengthsSi.every((t) => /^\d[\d,.]*\s?m$/.test(t.trim())), lengthsSi.join(' | ')).toBe(true);
 
