@@ -22,7 +22,7 @@ export const EXIT_SOLVED = 0;
 export const EXIT_REFUSED = 1;
 export const EXIT_USAGE = 2;
 
-export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--search] [--mode supply|battery] [--correct-pf <elementId>:<target power factor>] [--spread <samples> [--seed <n>]] ${MACHINE_USAGE}`;
+export const USAGE = `usage: joulepath solve <project.json>… [--json | --summary | --csv] [--surges] [--variants] [--search] [--mode supply|battery] [--correct-pf <elementId>:<target power factor>] [--spread <samples> [--seed <n>]] ${MACHINE_USAGE}`;
 
 /** What `joulepath --help` prints. */
 export const HELP = `joulepath: plan an electrical power chain from a project file: power, losses, currents and

@@ -108,17 +108,11 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
         await run.scrollIntoViewIfNeeded();
         if (touch) await run.tap();
         else await run.click();
-        // Progress is shown while the worker runs (it may be quick: the bar or the result, then the result).
-        const progressSeen = await page
-          .getByTestId('search-progress')
-          .waitFor({ timeout: 2000 })
-          .then(() => true)
-          .catch(() => false);
+        // (The progress bar and Stop are checked on a search long enough to see them: the Stop test below.)
         await page.getByTestId('search-results').waitFor({ timeout: 60_000 });
         const names = await page.getByTestId('search-option').locator('.search-option-name').allTextContents();
         expect(names).toEqual(expected);
         expect(await page.getByTestId('search-summary').textContent()).toMatch(/^9 of 9 options tried/);
-        if (label === 'desktop') expect(progressSeen || names.length > 0).toBe(true);
         // Keep the first option as a variant: the button says so, and the project stores it.
         const keep = page.getByTestId('search-keep').first();
         if (touch) await keep.tap();

@@ -28,7 +28,7 @@
  */
 import type { BatterySource, Element } from '../../model/project.ts';
 import type { ElementResult, SolveResult } from '../../model/result.ts';
-import type { Problem } from '../../model/errors.ts';
+import { formatProblem, type Problem } from '../../model/errors.ts';
 import { say, q, sigText, type Worded } from '../../model/message.ts';
 import { resolveBank } from '../../physics/bank.ts';
 import { STANDBY_CHARGE } from '../../data/standby-charge.ts';
@@ -153,7 +153,7 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
     };
     for (const r of pt.refused) warnings.push({ message: `"${nameOf(r.inverterId)}" cannot pass the supply through to its loads: ${r.reason}; on supply it is taken to carry them itself` });
     if (pt.problems) {
-      warnings.push({ message: `the supply cannot be passed through to the loads of ${pt.places.map((p) => `"${nameOf(p.inverterId)}"`).join(', ')}: ${pt.problems[0]?.message ?? 'the chain has no solution'}; on supply the inverter is taken to carry them itself` });
+      warnings.push({ message: `the supply cannot be passed through to the loads of ${pt.places.map((p) => `"${nameOf(p.inverterId)}"`).join(', ')}: ${pt.problems[0] ? formatProblem(pt.problems[0], project) : 'the chain has no solution'}; on supply the inverter is taken to carry them itself` });
     } else {
       for (const p of pt.places) {
         const name = nameOf(p.inverterId);

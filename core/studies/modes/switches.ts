@@ -135,7 +135,8 @@ export function batteryPathWarnings(elements: readonly Element[], place: BankPla
         push(e.id, say`on battery the loads of "${name}" take ${q(res.pOut, 'W')}, above its rated output ${q(rated, 'W')}: the on-battery path cannot carry them`);
       }
     } else if (e.kind === 'transfer-switch' && e.ratedCurrent !== undefined) {
-      const i = currentIn(res);
+      // The current through its contacts: the output's (its input adds the control power's draw, as the kind's own check leaves out).
+      const i = res.output?.current;
       if (i !== undefined && i > e.ratedCurrent * (1 + 1e-9)) {
         push(e.id, say`on battery "${name}" carries ${q(i, 'A')}, above its rated current ${q(e.ratedCurrent, 'A')}: the on-battery path cannot carry its loads`);
       }

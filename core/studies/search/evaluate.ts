@@ -70,6 +70,7 @@ export interface EvaluatedOption {
 
 /** A duration in words, "3 h 10 min" (whole minutes; "45 min" under an hour). */
 export function durationWords(seconds: number): string {
+  if (!Number.isFinite(seconds) || seconds < 0) return 'no figure';
   const minutes = Math.floor(seconds / 60 + 1e-9);
   const h = Math.floor(minutes / 60);
   const m = minutes % 60;
@@ -203,7 +204,7 @@ export function evaluateOption(
   // 3. Motor starts.
   if (target.starts) {
     const s = studySurges(solved);
-    if (!s.ok) reasons.push({ group: 'The starting study cannot run', text: `starting study: ${s.problems[0]?.message ?? 'refused'}` });
+    if (!s.ok) reasons.push({ group: 'The starting study cannot run', text: `starting study: ${s.problems[0] ? formatProblem(s.problems[0], solved.project) : 'refused'}` });
     else
       for (const start of s.result.starts) {
         if (start.verdict === 'starts') continue;
@@ -215,7 +216,7 @@ export function evaluateOption(
   // 4. Runtime.
   if (target.runtimeSeconds !== undefined) {
     const d = runtimeOf(solved, target.runtimeSeconds);
-    if (!d.ok) reasons.push({ group: 'The runtime cannot be worked out', text: `runtime: ${d.problems[0]?.message ?? 'refused'}` });
+    if (!d.ok) reasons.push({ group: 'The runtime cannot be worked out', text: `runtime: ${d.problems[0] ? formatProblem(d.problems[0], solved.project) : 'refused'}` });
     else {
       option.runtimeSeconds = d.result.runtimeSeconds;
       option.runtimeIsLowerBound = d.result.runtimeIsLowerBound;

@@ -9,7 +9,7 @@
  * `runSpread` does all three. Pure; never throws on bad input.
  */
 import type { SpreadSettings } from '../../model/spread.ts';
-import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
+import { formatProblem, PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
 import type { Solved } from '../../solve/index.ts';
 import { variantProject } from '../../solve/variant.ts';
 import { solveValid } from '../../solve/solved.ts';
@@ -168,7 +168,7 @@ export function spreadRun(solved: Solved, plan: SpreadPlan, range: { from: numbe
       chunk.lowerBound.push(false);
       chunk.bankAh.push(null);
       chunk.costPerYear.push(null);
-      chunk.failures.push({ index: from + i, message: r.problems[0]?.message ?? 'refused' });
+      chunk.failures.push({ index: from + i, message: r.problems[0] ? formatProblem(r.problems[0], solved.project) : 'refused' });
     }
   });
   return chunk;

@@ -16,6 +16,7 @@ import type { ModesStudyResult } from '../../../core/studies/index.ts';
 import { formatCurrent, formatPercent, formatPower, formatSignificant, formatSmallPercent, formatVoltage, UNIT_GAP } from '../../format/number.ts';
 import { formatMoney } from '../../format/panels.ts';
 import { modesReply } from '../modes/mode-state.ts';
+import { problemLine } from '../problem-words.ts';
 import './ReportModes.css';
 
 type Locale = string | undefined;
@@ -25,8 +26,8 @@ function studyOf(solved: Solved): { study: ModesStudyResult } | { refused: strin
   const r = modesReply.value;
   if (!r || r.for !== solved) return null;
   const o = r.outcome;
-  if (!o.ok) return { refused: o.problems[0]?.message ?? 'the two modes could not be worked out' };
-  if (!o.study.ok) return { refused: o.study.problems[0]?.message ?? 'the standing-by figures could not be worked out' };
+  if (!o.ok) return { refused: o.problems[0] ? problemLine(o.problems[0], solved.project) : 'the two modes could not be worked out' };
+  if (!o.study.ok) return { refused: o.study.problems[0] ? problemLine(o.study.problems[0], solved.project) : 'the standing-by figures could not be worked out' };
   return { study: o.study.study };
 }
 

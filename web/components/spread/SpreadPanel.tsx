@@ -197,7 +197,7 @@ export default function SpreadPanel() {
           {result.lowerBoundCount > 0 && <p class="note">{result.lowerBoundCount} samples outlasted the study length: their runtime is longer than counted.</p>}
           {result.failed > 0 && (
             <p class="notice notice--stale">
-              {result.failed} samples could not be run and are left out, e.g. {result.failures[0]!.message}
+              {result.failed === 1 ? 'One sample could not be run and is left out' : `${result.failed} samples could not be run and are left out`}, e.g. {result.failures[0]!.message}
             </p>
           )}
           {result.runtimeH && <Histogram bins={result.histogram} runtime={result.runtimeH} locale={locale} />}
