@@ -56,7 +56,7 @@ describe('the option search’s strings axis with a resistance given for the who
     if (!s.ok) throw new Error(JSON.stringify(s.problems));
     const b = bankOf(s);
     // By hand: open-circuit voltage 16 × 3.40 V = 54.4 V (LiFePO4 at full charge, the preset's curve in
-    // core/data/battery-chemistries.ts: typical value); 50 A × 20 mΩ = 1.0 V drop → 53.4 V; loss 50² × 0.02 = 50 W.
+    // core/data/battery-chemistries.ts, from memory); 50 A × 20 mΩ = 1.0 V drop → 53.4 V; loss 50² × 0.02 = 50 W.
     expect(b.output!.current).toBeCloseTo(50, 9);
     expect(54.4 - b.output!.voltage).toBeCloseTo(1.0, 9);
     expect(b.loss).toBeCloseTo(50, 9);
@@ -80,7 +80,7 @@ describe('the option search’s strings axis with a resistance given for the who
     if (!o.ok) throw new Error(JSON.stringify(o.problems));
     const two = o.search.options.find((x) => x.name === '2 strings') ?? o.search.rejected.find((x) => x.name === '2 strings')!;
     expect(two.variant.set?.['bank']?.['internalResistance']).toBeUndefined();
-    // LiFePO4 preset 0.05 Ω·Ah per cell (core/data/battery-chemistries.ts, typical value): 16 × 0.05/100 = 8 mΩ a string, 4 mΩ for two: 50² × 0.004 = 10 W.
+    // LiFePO4 preset 0.05 Ω·Ah per cell (core/data/battery-chemistries.ts, from memory): 16 × 0.05/100 = 8 mΩ a string, 4 mΩ for two: 50² × 0.004 = 10 W (by hand).
     expect(two.lossW).toBeCloseTo(10, 9);
   });
 
