@@ -32,6 +32,7 @@ import type { Problem } from '../model/errors.ts';
 import { KINDS, isPassive } from '../kinds/index.ts';
 import type { Solved, SolveOutcome } from './solved.ts';
 import { solveVariant, type VariantChange } from './variant.ts';
+import { elementWords, fieldLabel } from '../model/field-labels.ts';
 
 /** Where a project's bank on a bus sits. */
 export interface BankPlace {
@@ -177,6 +178,33 @@ export function passThroughPlaces(project: Project, place: BankPlace, result: So
     places.push({ inverterId: inv.id, limit: inv.passThroughLimit!, chargerId: charger.id, feedId, relayId, loadIds });
   }
   return { places, refused };
+}
+
+/**
+ * Inverters with a `passThroughLimit` that the modes do not use: not on the DC bus of a battery bank
+ * (`place`, null when the project has no bank on a bus), so the field does nothing. One warning each,
+ * naming the inverter (its name, or its kind and place) and the field by its form label.
+ */
+export function unusedPassThrough(project: Project, place: BankPlace | null): { inverterId: string; message: string }[] {
+  const inverters = project.elements.filter((e): e is InverterStage => e.kind === 'inverter' && e.passThroughLimit !== undefined);
+  if (!inverters.length) return [];
+  const byId = new Map(project.elements.map((e) => [e.id, e]));
+  const { names } = elementWords(project);
+  const label = fieldLabel('inverter', 'passThroughLimit');
+  const out: { inverterId: string; message: string }[] = [];
+  for (const inv of inverters) {
+    if (place) {
+      // On the bank's bus: up through passive elements only, to the bus (as passThroughPlaces reads it).
+      let at: Element | undefined = byId.get(inv.from);
+      while (at && at.id !== place.busId && isPassive(at.kind) && 'from' in at && at.from !== undefined) at = byId.get(at.from);
+      if (at?.id === place.busId) continue;
+    }
+    out.push({
+      inverterId: inv.id,
+      message: `"${names.get(inv.id) ?? inv.id}": its "${label}" is used only when a battery bank is on the inverter's DC bus; ${place ? 'the bank of this chain is on another bus' : 'this chain has no bank on a bus'}, so the limit does nothing here`,
+    });
+  }
+  return out;
 }
 
 /**

@@ -24,7 +24,9 @@ export const HOURS_FIELD = 'running.hoursPerYear';
 /** Losses smaller than this (W) are solver round-off, not a stage that loses power. */
 const ROUND_OFF_W = 1e-9;
 
-import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, meanPrice, priceOfRunning } from '../model/tariff.ts';
+import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, meanPrice, priceOfRunning, profileDayHours } from '../model/tariff.ts';
+import type { Solved } from '../solve/solved.ts';
+import { profileDay } from './backup/profile-day.ts';
 
 export { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, meanPrice };
 
@@ -33,6 +35,8 @@ export interface CostSettings {
   pricePerKWh: number;
   /** Hours per year the chain runs at the solved operating point (0 … 8784). */
   hoursPerYear: number;
+  /** Set when the price is the day and night prices' mean weighted by the load profile's day (`withProfilePrice`): the share of its energy used while the day price runs. */
+  profileDayShare?: number;
 }
 
 export interface LossCostRow {
@@ -50,6 +54,8 @@ export interface LossCostRow {
 export interface LossCost {
   pricePerKWh: number;
   hoursPerYear: number;
+  /** Set when the price is weighted by the load profile's day (CostSettings.profileDayShare): the share of its energy in the day-price hours. */
+  profileDayShare?: number;
   /** One row per source or stage that loses power, in the result's order. */
   rows: LossCostRow[];
   totalLossW: number;
@@ -68,8 +74,62 @@ export type LossCostOutcome = { ok: true; cost: LossCost } | { ok: false; proble
 export function costSettingsOf(project: Pick<Project, 'running'>): CostSettings | null {
   const r = project.running;
   if (r?.energyPricePerKWh === undefined) return null;
-  // With a night price the losses are priced at the day's mean (meanPrice), the hours spread evenly over the day.
+  // With a night price the losses are priced at the day's mean (meanPrice), the hours spread evenly over the
+  // day; a solved chain whose project splits them by its load profile takes `withProfilePrice`.
   return { pricePerKWh: priceOfRunning({ ...r, energyPricePerKWh: r.energyPricePerKWh }), hoursPerYear: r.hoursPerYear ?? HOURS_IN_YEAR };
+}
+
+/** A day/night tariff as the cost of the losses prices it (the project's `running`, lifetime.ts `LifetimeSettings`). */
+export interface Tariff {
+  /** Day price (the only price without a night price), currency units per kWh. */
+  dayPricePerKWh: number;
+  nightPricePerKWh?: number | undefined;
+  dayStartHour: number;
+  dayEndHour: number;
+  /** Split the day and night prices as the backup study's load profile uses its day (else evenly). */
+  dayHoursFromProfile?: boolean | undefined;
+}
+
+/**
+ * The mean price of a tariff for a solved chain, the one both the yearly cost of the losses and the
+ * cost over the years take: with a night price and `dayHoursFromProfile`, the energy-weighted mean
+ * p̄ = s·p_day + (1 − s)·p_night, s the share of the backup study's load profile's day energy used
+ * while the day price runs (core/model/tariff.ts `profileDayHours`; the losses taken to follow the
+ * load), given to `meanPrice` as that many day hours of 24; else the time-weighted mean of the
+ * tariff's hours (`meanPrice`, the hours spread evenly). `split` is null when the hours are the tariff's
+ * (no split asked, no night price, or no profile that uses energy).
+ */
+export function tariffPrice(solved: Solved, t: Tariff): { pricePerKWh: number; dayHours: number; split: { dayHours: number; dayShare: number } | null } {
+  const split = t.dayHoursFromProfile && t.nightPricePerKWh !== undefined ? profileSplit(solved, t) : null;
+  const { pricePerKWh, dayHours } = meanPrice(split ? { ...t, dayStartHour: 0, dayEndHour: split.dayHours } : t);
+  return { pricePerKWh, dayHours, split };
+}
+
+/** The day-price hours as the backup study's load profile uses its day (its day from core/studies/backup/profile-day.ts), or null without a profile that uses energy. */
+function profileSplit(solved: Solved, t: Tariff): { dayHours: number; dayShare: number } | null {
+  if (solved.project.backup === undefined) return null;
+  const day = profileDay(solved.project, solved.project.backup, solved.result);
+  if (!day.ok) return null;
+  return profileDayHours(day.day.intervals, t.dayStartHour, t.dayEndHour);
+}
+
+/**
+ * The cost settings of a solved chain's yearly cost of the losses with the project's tariff: `cost`
+ * (its hours, and the price in force) with the price the cost over the years takes (`tariffPrice`) when
+ * the project splits the day and night prices by its load profile and the profile gives a split;
+ * else `cost` as it is (the time-weighted mean of costSettingsOf, or a price without the project's tariff).
+ */
+export function withProfilePrice(solved: Solved, cost: CostSettings): CostSettings {
+  const r = solved.project.running;
+  if (!r?.dayHoursFromProfile || r.nightPricePerKWh === undefined || r.energyPricePerKWh === undefined) return cost;
+  const t = tariffPrice(solved, {
+    dayPricePerKWh: r.energyPricePerKWh,
+    nightPricePerKWh: r.nightPricePerKWh,
+    dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR,
+    dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR,
+    dayHoursFromProfile: true,
+  });
+  return t.split ? { ...cost, pricePerKWh: t.pricePerKWh, profileDayShare: t.split.dayShare } : cost;
 }
 
 /** Problems of the cost settings (PROJECT_LEVEL, the project's fields `running.energyPricePerKWh`, `running.hoursPerYear`). */
@@ -118,7 +178,7 @@ export function lossCostPerYear(result: SolveResult, settings: CostSettings): Lo
   const totalLossW = rows.reduce((s, r) => s + r.lossW, 0);
   const totalEnergyKWh = rows.reduce((s, r) => s + r.energyKWh, 0);
   const totalCost = rows.reduce((s, r) => s + r.cost, 0);
-  return { ok: true, cost: { pricePerKWh, hoursPerYear, rows, totalLossW, totalEnergyKWh, totalCost } };
+  return { ok: true, cost: { pricePerKWh, hoursPerYear, ...(settings.profileDayShare !== undefined ? { profileDayShare: settings.profileDayShare } : {}), rows, totalLossW, totalEnergyKWh, totalCost } };
 }
 
 /** Yearly energy of each flow-control method (Wh, as the pump duty study gives it). */
@@ -151,7 +211,7 @@ export function pumpDutyCosts(energies: MethodEnergies, pricePerKWh: number): { 
 export function formatLossCost(c: LossCost): string {
   const money = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toFixed(2));
   const lines = [
-    `What the losses cost per year (E = loss × ${sigText(c.hoursPerYear, 5)} h, at ${sigText(c.pricePerKWh, 4)} per kWh; the operating point held all those hours):`,
+    `What the losses cost per year (E = loss × ${sigText(c.hoursPerYear, 5)} h, at ${sigText(c.pricePerKWh, 4)} per kWh${c.profileDayShare !== undefined ? `, the day and night prices' mean as the load profile's day uses them (${sigText(c.profileDayShare * 100, 3)} % of its energy in the day-price hours)` : ''}; the operating point held all those hours):`,
   ];
   const width = Math.max(5, ...c.rows.map((r) => r.name.length));
   lines.push(`  ${'Where'.padEnd(width)}  ${'Loss W'.padStart(10)}  ${'kWh/year'.padStart(10)}  ${'Cost/year'.padStart(10)}`);

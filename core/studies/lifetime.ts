@@ -32,11 +32,9 @@ import type { Solved } from '../solve/solved.ts';
 import { sigText } from '../model/message.ts';
 import { elementWords } from '../model/field-labels.ts';
 import { HOURS_IN_YEAR, MAX_HOURS_PER_YEAR } from '../solve/running-schema.ts';
-import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, lossCostPerYear, meanPrice, type LossCost } from './economics.ts';
+import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, lossCostPerYear, meanPrice, tariffPrice, type LossCost } from './economics.ts';
 import { breakEven, netPresentValue, type BreakEven, type CostStream } from './lifetime-money.ts';
 import { generatorFuelPerYear, type FuelRun, type GeneratorYear, type RechargeRun } from './lifetime-fuel.ts';
-import { profileDayHours } from '../model/tariff.ts';
-import { profileDay } from './backup/profile-day.ts';
 
 // Its parts: money over time (lifetime-money.ts), the generator's fuel (lifetime-fuel.ts), the text (lifetime-text.ts).
 export { breakEven, netPresentValue, presentValue, type BreakEven, type CostStream } from './lifetime-money.ts';
@@ -175,8 +173,8 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
   if (!s) return { ok: false, problems: [bad('running.years', undefined, 'are needed, with the energy price, for the cost over the years')] };
   const problems = checkLifetimeSettings(s);
   if (problems.length) return { ok: false, problems };
-  const split = s.dayHoursFromProfile && s.nightPricePerKWh !== undefined ? profileSplit(solved, s) : null;
-  const { pricePerKWh, dayHours } = meanPrice(split ? { ...s, dayStartHour: 0, dayEndHour: split.dayHours } : s);
+  // The mean price, the profile's split when asked for: the same function as the yearly cost of the losses (economics.ts).
+  const { pricePerKWh, dayHours, split } = tariffPrice(solved, s);
   const lc = lossCostPerYear(solved.result, { pricePerKWh, hoursPerYear: s.hoursPerYear });
   if (!lc.ok) return lc;
   // Elements named as messages name them: their name, or the kind's label and place ("Utility supply #1").
@@ -252,18 +250,6 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
       notes,
     },
   };
-}
-
-/**
- * The day-price hours as the backup study's load profile uses its day (core/model/tariff.ts
- * `profileDayHours`, the profile's day from core/studies/backup/profile-day.ts): null without a profile
- * that uses energy.
- */
-function profileSplit(solved: Solved, s: LifetimeSettings): { dayHours: number; dayShare: number } | null {
-  if (solved.project.backup === undefined) return null;
-  const day = profileDay(solved.project, solved.project.backup, solved.result);
-  if (!day.ok) return null;
-  return profileDayHours(day.day.intervals, s.dayStartHour, s.dayEndHour);
 }
 
 /** The hours a year of a project's pump duty (Σ hours over its duty points), or null without one. */

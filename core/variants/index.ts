@@ -3,3 +3,4 @@ export type { QuickVariantOutcome } from './types.ts';
 export { SYSTEM_VOLTAGES, seriesForSystem, systemBank, systemVoltageVariant, type SystemVoltage } from './system-voltage.ts';
 export { criticalLoadsVariant } from './critical-loads.ts';
 export { nextSizeUpVariant } from './next-size.ts';
+export { restrungResistance, type Stringing } from './bank-resistance.ts';

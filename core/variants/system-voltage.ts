@@ -23,6 +23,7 @@ import type { Element, Project } from '../model/project.ts';
 import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
 import { elementWords } from '../model/field-labels.ts';
 import type { QuickVariantOutcome } from './types.ts';
+import { restrungResistance } from './bank-resistance.ts';
 
 /** The system voltages offered (the usual DC system voltages of small installations). */
 export const SYSTEM_VOLTAGES = [12, 24, 48] as const;
@@ -44,7 +45,7 @@ export function seriesForSystem(blockVolts: number, volts: number): number {
   return per12 * Math.round(volts / 12);
 }
 
-/** A voltage (or resistance) of the DC system times the ratio of the bank's nominal voltages. */
+/** A voltage of the DC system times the ratio of the bank's nominal voltages. */
 function scaled(v: number, k: number): number {
   // Rounded to 4 significant digits: a field's value as a planner would write it, not a float's tail.
   return Number((v * k).toPrecision(4));
@@ -72,8 +73,8 @@ export function systemVoltageVariant(project: Pick<Project, 'elements'>, volts: 
   const set: Record<string, Record<string, unknown>> = {};
   const bankFields: Record<string, unknown> = { bank: { ...spec, series, ...(newStrings !== 1 || spec.strings !== undefined ? { strings: newStrings } : {}) } };
   if (bank.voltage !== undefined) bankFields['voltage'] = scaled(bank.voltage, k);
-  // Whole-bank resistance: n blocks in series, m strings in parallel, R = R_string·n/m.
-  if (bank.internalResistance !== undefined) bankFields['internalResistance'] = scaled(bank.internalResistance, (k * strings) / newStrings);
+  // Whole-bank resistance: n blocks in series, m strings in parallel, R = R_string·n/m (bank-resistance.ts).
+  if (bank.internalResistance !== undefined) bankFields['internalResistance'] = restrungResistance(bank.internalResistance, { series: spec.series, strings }, { series, strings: newStrings });
   set[bank.id] = bankFields;
   // The DC system: the bank's component through the elements that pass its voltage.
   const byId = new Map(project.elements.map((e) => [e.id, e]));

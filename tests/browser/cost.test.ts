@@ -15,6 +15,7 @@ import { VIEWPORTS, artifacts, openDemo, seriousAxeViolations, serveBuiltApp, ty
 import { demoProjects, solveProject } from '../../core/index.ts';
 import { lifetimeCost, typicalFuelFigures } from '../../core/studies/lifetime.ts';
 import { lifetimeRows, rowText } from '../../web/components/cost/lifetime-rows.ts';
+import { formatMoney } from '../../web/format/panels.ts';
 
 const plain = (s: string | null | undefined) => (s ?? '').replace(/[\s\u202f\u00a0]+/g, ' ').trim();
 const demoCopy = (id: string) => structuredClone(demoProjects.find((d) => d.id === id)!.project) as unknown as Record<string, unknown> & { elements: Record<string, unknown>[] };
@@ -86,6 +87,9 @@ describe.skipIf(skipWithout('chromium'))('the cost over the years in Chromium', 
       const want = new Map(lifetimeRows(c.cost).map((r) => [r.key, plain(rowText(r, 'en-US'))]));
       await matches(section, want);
       await expect.poll(() => section.getByTestId('lifetime-split-note').isVisible()).toBe(true);
+      // "What the losses cost per year" takes the same mean price: its total is the lifetime cost's yearly losses (core's, above).
+      await expect.poll(async () => plain(await page.getByTestId('loss-cost-total').textContent())).toBe(plain(formatMoney(c.cost.losses.totalCost, 'en-US')));
+      await expect.poll(() => page.getByTestId('loss-cost-profile-price').isVisible()).toBe(true);
       await expect.poll(() => section.getByTestId('lifetime-table').textContent()).toContain("energy-weighted mean price: the load profile's day uses the day price for");
       expect(await seriousAxeViolations(page, '\'[data-testid="lifetime-cost"]\'')).toEqual([]);
       await section.getByTestId('lifetime-duty').screenshot({ path: join(artifacts, 'cost-profile-split.png') });

@@ -9,23 +9,11 @@ import { solvedOf } from '../core/solved.ts';
 import { solveProject } from '../../core/solve/index.ts';
 import { bankOnBus, solveModes } from '../../core/solve/modes.ts';
 import { runModesStudy } from '../../core/studies/modes/study.ts';
+import { dcPlant } from './dc-plant-fixture.ts';
 
-const plant = (extra: Record<string, unknown> = {}) => ({
-  format: 'joulepath-project',
-  version: 2,
-  name: 'DC plant',
-  elements: [
-    { id: 'grid', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },
-    { id: 'rect', name: 'Rectifier', kind: 'rectifier', from: 'grid', outputVoltage: 54, inputPowerFactor: 1, loss: { model: 'constant', efficiency: 0.9 } },
-    { id: 'bus', name: 'DC bus', kind: 'dc-bus', from: 'rect', fixedLoss: 0 },
-    // 24 flooded cells, 200 Ah, float current 0.2 A (the maker's figure of this test).
-    { id: 'bank', name: 'Bank', kind: 'battery', from: 'bus', bank: { chemistry: 'flooded-lead-acid', series: 24, capacityAh: 200, floatCurrent: 0.2 } },
-    { id: 'radio', name: 'Radio', kind: 'dc-current-load', from: 'bus', current: 30 },
-  ],
-  standby: { targetRechargeHours: 8, moduleCurrent: 25, redundancy: 'n+1', outageHoursPerYear: 10 },
-  running: { energyPricePerKWh: 0.3 },
-  ...extra,
-});
+// The plant (dc-plant-fixture.ts) with the modes' settings of this file: 25 A modules with N+1, 10 outage hours a year, 0.30 per kWh.
+const plant = (extra: Record<string, unknown> = {}) =>
+  dcPlant({ standby: { targetRechargeHours: 8, moduleCurrent: 25, redundancy: 'n+1', outageHoursPerYear: 10 }, running: { energyPricePerKWh: 0.3 }, ...extra });
 
 describe('a bank on a bus: the file and its two modes', () => {
   it('is valid, the supply is the source and the bank a load on the bus', () => {

@@ -9,21 +9,10 @@ import { solvedOf } from '../core/solved.ts';
 import { runModesStudy } from '../../core/studies/modes/study.ts';
 import { runBackupStudy } from '../../core/studies/backup/study.ts';
 import { formatModesStudy } from '../../core/studies/modes/text-report.ts';
+import { dcPlant } from './dc-plant-fixture.ts';
 
-const plant = (extra: Record<string, unknown> = {}) => ({
-  format: 'joulepath-project',
-  version: 2,
-  name: 'DC plant',
-  elements: [
-    { id: 'grid', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },
-    { id: 'rect', name: 'Rectifier', kind: 'rectifier', from: 'grid', outputVoltage: 54, inputPowerFactor: 1, loss: { model: 'constant', efficiency: 0.9 } },
-    { id: 'bus', name: 'DC bus', kind: 'dc-bus', from: 'rect', fixedLoss: 0 },
-    { id: 'bank', name: 'Bank', kind: 'battery', from: 'bus', bank: { chemistry: 'flooded-lead-acid', series: 24, capacityAh: 200, floatCurrent: 0.2 } },
-    { id: 'radio', name: 'Radio', kind: 'dc-current-load', from: 'bus', current: 30 },
-  ],
-  standby: { targetRechargeHours: 8 },
-  ...extra,
-});
+// The plant (dc-plant-fixture.ts), recharged in 8 h.
+const plant = (extra: Record<string, unknown> = {}) => dcPlant({ standby: { targetRechargeHours: 8 }, ...extra });
 
 const chargerOf = (p: unknown) => {
   const s = runModesStudy(solvedOf(p));

@@ -34,7 +34,7 @@ import { resolveBank } from '../../physics/bank.ts';
 import { STANDBY_CHARGE } from '../../data/standby-charge.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveVariant } from '../../solve/variant.ts';
-import { chargerOf, onBatteryChange, rechargeChange, solveModes, type Modes } from '../../solve/modes.ts';
+import { chargerOf, onBatteryChange, rechargeChange, solveModes, unusedPassThrough, type Modes } from '../../solve/modes.ts';
 import { HOURS_IN_YEAR, costSettingsOf } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
 import { simulateDischarge } from '../backup/discharge.ts';
@@ -145,6 +145,8 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
 
   // ---- an inverter-charger's pass-through (core/solve/modes.ts) ----
   const passThrough: PassThroughWorking[] = [];
+  // A pass-through limit on an inverter off the bank's bus does nothing: said, naming the inverter and the field.
+  for (const u of unusedPassThrough(project, place)) warnings.push({ message: u.message });
   if (modes.passThrough) {
     const pt = modes.passThrough;
     const nameOf = (id: string): string => {

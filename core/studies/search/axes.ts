@@ -20,6 +20,8 @@ import { defaultCatalogue } from '../../conductors/index.ts';
 import { formatProblem } from '../../model/errors.ts';
 import { CHEMISTRY_PRESETS } from '../../data/battery-chemistries.ts';
 import { seriesForSystem, systemBank, systemVoltageVariant } from '../../variants/system-voltage.ts';
+import { restrungResistance } from '../../variants/bank-resistance.ts';
+import { sigText } from '../../model/message.ts';
 import { variantChangeOf } from '../../solve/project-variant.ts';
 import { variantProject } from '../../solve/variant.ts';
 
@@ -61,9 +63,15 @@ export interface SearchAxisDef {
 }
 
 const nameOf = (e: Element) => e.name ?? e.id;
+/** A resistance in words, mΩ below 1 Ω. */
+const ohms = (r: number) => (r < 1 ? `${sigText(r * 1000, 4)} mΩ` : `${sigText(r, 4)} Ω`);
 const bad = (field: string, value: unknown, message: string): Problem => ({ code: 'invalid-value', elementId: PROJECT_LEVEL, field, value, message });
 
-/** Strings in parallel of a bank: the bank's `strings` set; price per string × strings (given, or the bank's own price scaled). */
+/**
+ * Strings in parallel of a bank: the bank's `strings` set, and a whole-bank `internalResistance` with it
+ * (× strings before ÷ strings after, said in the choice's words); price per string × strings (given, or
+ * the bank's own price scaled).
+ */
 const stringsAxis: SearchAxisDef = {
   key: 'strings',
   label: 'Strings in the bank',
@@ -78,14 +86,20 @@ const stringsAxis: SearchAxisDef = {
     const baseStrings = bank.bank.strings ?? 1;
     // Price of one string: given, or the bank's own price shared over its strings (linear in strings, common practice (no source)).
     const perString = s.pricePerString ?? (bank.price !== undefined ? bank.price / baseStrings : undefined);
+    const spec = bank.bank;
+    const given = bank.internalResistance;
     const choices = counts.map((n): SearchChoice => {
       const price = perString !== undefined ? perString * n : undefined;
+      const strung = `${n} ${n === 1 ? 'string' : 'strings'} in ${nameOf(bank)}`;
+      // A resistance given for the whole bank is divided by the strings in parallel (R_bank = R_string·n/m,
+      // core/variants/bank-resistance.ts); one worked out from the cell's figure follows the strings by itself.
+      const r = given !== undefined && given > 0 && n !== baseStrings ? restrungResistance(given, spec, { series: spec.series, strings: n }) : undefined;
       return {
         axis: 'strings',
         elementId: bank.id,
-        words: `${n} ${n === 1 ? 'string' : 'strings'} in ${nameOf(bank)}`,
+        words: r !== undefined ? `${strung} (its internal resistance, given for the whole bank, ${ohms(given!)} → ${ohms(r)}: ${baseStrings} → ${n} strings in parallel)` : strung,
         short: `${n} ${n === 1 ? 'string' : 'strings'}`,
-        set: { bank: { ...bank.bank, strings: n }, ...(price !== undefined ? { price } : {}) },
+        set: { bank: { ...spec, strings: n }, ...(r !== undefined ? { internalResistance: r } : {}), ...(price !== undefined ? { price } : {}) },
         price,
       };
     });

@@ -132,7 +132,7 @@ export function CostOverYears({ lifetime, project, solved, units, locale }: { li
           </ScrollTable>
           {lifetime.cost.dayHoursFrom === 'load profile' && (
             <p class="note" data-testid="lifetime-split-note">
-              These figures split the day and night prices as the load profile uses its day; “What the losses cost per year” above spreads the hours evenly over the day.
+              These figures and “What the losses cost per year” above both split the day and night prices as the load profile uses its day: one mean price.
             </p>
           )}
           <p class="note" data-testid="lifetime-unpriced">

@@ -133,6 +133,11 @@ export function LossCost({ lossCost, project, units, locale }: { lossCost: Machi
             </table>
           </div>
           <p class="note">At the operating point shown, held for {formatSignificant(hours, 5, locale)} h a year; a chain that runs at several loads costs what each load level costs for its hours.</p>
+          {cost.cost.profileDayShare !== undefined && (
+            <p class="note" data-testid="loss-cost-profile-price">
+              Priced at {formatSignificant(cost.cost.pricePerKWh, 4, locale)} {symbol ? `${symbol}/kWh` : 'per kWh'}: the day and night prices split as the load profile uses its day ({formatSignificant(cost.cost.profileDayShare * 100, 3, locale)} % of its energy at the day price), the same price as the cost over the years.
+            </p>
+          )}
         </>
       )}
     </section>
