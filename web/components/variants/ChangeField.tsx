@@ -48,8 +48,9 @@ function choicesOf(f: ChoiceSpec | GroupSpec, element: FormElement, ctx: FormCon
     planned: stored !== undefined && String(stored) === String(o.value),
     apply: (e) => set(e, o.value),
   }));
-  // An optional choice that is given can also be left out (the engine's default then applies).
-  if (!f.required && stored !== undefined) out.unshift({ value: '', label: 'Not given (default)', disabled: false, planned: false, apply: (e) => set(e, undefined) });
+  // An optional choice that is given can also be left out (the engine's default then applies): last, so the
+  // value shown first is another of the form's choices.
+  if (!f.required && stored !== undefined) out.push({ value: '', label: 'Not given (default)', disabled: false, planned: false, apply: (e) => set(e, undefined) });
   return out;
 }
 
@@ -67,7 +68,7 @@ export function ChangeField({ solved, onDone }: { solved: Solved; onDone: (s: St
   const [key, setKey] = useState('');
   const field = fields.find((f) => keyOf(f) === key) ?? fields[0];
   const [text, setText] = useState('');
-  const [picked, setPicked] = useState('');
+  const [picked, setPicked] = useState<string | null>(null);
   const choices = element && field && field.type !== 'number' ? choicesOf(field, element, { units, locale: loc }) : [];
   // The value shown: the one picked, else the first the element does not have already.
   const choice = choices.find((c) => c.value === picked && !c.planned && !c.disabled) ?? choices.find((c) => !c.planned && !c.disabled);
@@ -85,7 +86,7 @@ export function ChangeField({ solved, onDone }: { solved: Solved; onDone: (s: St
     if (!choice) return;
     added(addVariant({ name: `${name}: ${field.label} ${choice.label}`, set: { [id]: editedChange(element, choice.apply) } }));
   };
-  const reset = () => (setKey(''), setText(''), setPicked(''));
+  const reset = () => (setKey(''), setText(''), setPicked(null));
   return (
     <fieldset class="variants-quick__change" data-testid="variant-change-field">
       <legend>Change a field</legend>
@@ -101,7 +102,7 @@ export function ChangeField({ solved, onDone }: { solved: Solved; onDone: (s: St
       </div>
       <div class="variants-field">
         <label for="variant-change-field">Field</label>
-        <select id="variant-change-field" value={field ? keyOf(field) : ''} onChange={(e) => (setKey((e.currentTarget as HTMLSelectElement).value), setPicked(''))} disabled={fields.length === 0}>
+        <select id="variant-change-field" value={field ? keyOf(field) : ''} onChange={(e) => (setKey((e.currentTarget as HTMLSelectElement).value), setPicked(null))} disabled={fields.length === 0}>
           {fields.map((f) => (
             <option key={keyOf(f)} value={keyOf(f)}>
               {f.label}
