@@ -2,7 +2,9 @@
  * "Compare options" in the page (issue 20 point 1): on the hillside demo (a 48 V bank) one tap adds the
  * 24 V option (the 48 V button is the plan itself, shown so and not pressable); the comparison table then
  * equals core's compareVariants for that project, cell by cell and in which rows are marked as differing;
- * the two energy-flow drawings share one scale; the printed report carries the options. Phone 390×844 and
+ * the two energy-flow drawings share one scale; the printed report carries the options. "Change a field"
+ * offers the element's choice fields with the form's own labels and choices (the inverter's phases), and
+ * that option's column equals core's solveProjectVariant of the same change. Phone 390×844 and
  * desktop; axe clean. Screenshots go to tests/.artifacts/. The expected figures are core's (checked by
  * hand-worked cases in tests/core/variants/).
  */
@@ -11,7 +13,7 @@ import type { Browser, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, seriousAxeViolations, serveBuiltApp, watchPageErrors, type ServedApp } from './harness.ts';
-import { compareVariants, demoProjects, systemVoltageVariant } from '../../core/index.ts';
+import { compareVariants, demoProjects, solveProjectVariant, systemVoltageVariant } from '../../core/index.ts';
 import type { Project } from '../../core/model/project.ts';
 import { variantValueText } from '../../web/components/variants/values.ts';
 import { solvedOf } from '../core/solved.ts';
@@ -102,6 +104,47 @@ describe.skipIf(skipWithout('chromium'))('compare options in Chromium', () => {
         await page.getByTestId('variant-delete').click();
         await expect.poll(() => page.getByTestId('variant-item').count()).toBe(0);
         await expect.poll(async () => (await page.getByTestId('variants-panel').getByTestId('variants-table').locator('thead th').allTextContents()).map(plain)).toEqual(['Figure', 'As planned']);
+
+        // "Change a field" with a choice field: the inverter's phases, offered with the form's own label and
+        // choices (web/editor/fields.ts, phasesField), the plan's own choice shown and not pickable.
+        await page.getByLabel('Element', { exact: true }).selectOption({ label: '3 kW inverter' });
+        await page.getByLabel('Field', { exact: true }).selectOption({ label: 'Phases' });
+        const choice = page.getByTestId('variant-change-choice');
+        expect((await choice.locator('option').allTextContents()).map(plain)).toEqual(['Single-phase (as planned)', 'Three-phase']);
+        expect(await choice.locator('option', { hasText: 'Single-phase' }).isDisabled()).toBe(true);
+        await choice.selectOption({ label: 'Three-phase' });
+        const addChoice = page.getByTestId('variant-change-add');
+        if (touch) await addChoice.tap();
+        else await addChoice.click();
+        await expect.poll(() => page.getByTestId('variants-status').textContent()).toBe('Added "3 kW inverter: Phases Three-phase".');
+        // Stored in the variant's `set` like a number: the same change solved by core gives the column.
+        const threePhase = { name: '3 kW inverter: Phases Three-phase', set: { inverter: { phases: 3 } } };
+        const alone = solveProjectVariant(solvedOf(hillside as Project), threePhase);
+        if (!alone.ok) throw new Error('the three-phase option of the hillside demo is refused');
+        const withPhases = { ...hillside, variants: [threePhase] } as Project;
+        const core3 = compareVariants(solvedOf(withPhases), withPhases.variants);
+        const phasesTable = page.getByTestId('variants-panel').getByTestId('variants-table');
+        await expect.poll(async () => (await phasesTable.locator('thead th').allTextContents()).map(plain), { timeout: 30_000 }).toEqual(['Figure', 'As planned', threePhase.name]);
+        const hut = alone.result.elements.find((e) => e.id === 'hut-cable')!;
+        const fromSolve: Record<string, number> = {
+          'source.power': alone.result.totals.sourcePower,
+          'losses.total': alone.result.totals.losses,
+          'cable.hut-cable.current': hut.input!.current,
+        };
+        for (const [key, value] of Object.entries(fromSolve)) {
+          const row = core3.rows.find((r) => r.key === key)!;
+          expect(row.values[1], key).toBeCloseTo(value, 9); // the comparison's column is core's single solve of the variant
+          await expect.poll(async () => plain((await phasesTable.locator(`tr[data-key="${key}"] td`).allTextContents())[1])).toBe(plain(variantValueText(row, value, 'en-US')));
+        }
+        // Three-phase at the same power: the hut cable carries less current (the chosen option differs, marked so).
+        expect(core3.rows.find((r) => r.key === 'cable.hut-cable.current')!.differs).toBe(true);
+        expect(await phasesTable.locator('tr[data-key="cable.hut-cable.current"]').getAttribute('data-differs')).toBe('true');
+        await page.getByTestId('variants-panel').screenshot({ path: join(artifacts, `variants-${label}-choice.png`) });
+        expect(await seriousAxeViolations(page)).toEqual([]);
+        const del = page.getByTestId('variant-delete');
+        if (touch) await del.tap();
+        else await del.click();
+        await expect.poll(() => page.getByTestId('variant-item').count()).toBe(0);
 
         if (!touch) {
           // "Change a field" (an element by name, a field by its label, a value in the user's units) and

@@ -1,10 +1,16 @@
 #!/usr/bin/env node
-// Makes sure the system programs the tests drive are installed: a real browser (Debian `chromium`)
-// and the reference circuit simulator (`ngspice`). Installs them from Debian when missing and this
-// process may do so (root); otherwise stops with one line naming what is missing and how to get it.
+// Makes sure the system programs the tests drive are installed: a real browser (Debian `chromium`),
+// the reference circuit simulator (`ngspice`) and poppler's `pdftoppm` (the printed reports' pages as
+// images, Debian `poppler-utils`). Installs them from Debian when missing and this process may do so
+// (root); otherwise stops with one line naming what is missing and how to get it.
 import { spawnSync } from 'node:child_process';
 
-const PACKAGES = ['chromium', 'ngspice'];
+/** Each program the tests run, and the Debian package that brings it. */
+const TOOLS = [
+  { program: 'chromium', pkg: 'chromium' },
+  { program: 'ngspice', pkg: 'ngspice' },
+  { program: 'pdftoppm', pkg: 'poppler-utils' },
+];
 
 /** True when `name` is an executable on PATH. */
 function onPath(name) {
@@ -19,23 +25,25 @@ function run(cmd, args) {
   return r.status === 0;
 }
 
-const missing = PACKAGES.filter((p) => !onPath(p));
+const absent = () => TOOLS.filter((t) => !onPath(t.program));
+const missing = absent();
 if (missing.length === 0) process.exit(0);
 
-const installCommand = `sudo apt-get update && sudo apt-get install -y --no-install-recommends ${missing.join(' ')}`;
+const packages = missing.map((t) => t.pkg);
+const names = (list) => list.map((t) => (t.program === t.pkg ? t.program : `${t.program} (${t.pkg})`)).join(', ');
+const installCommand = `sudo apt-get update && sudo apt-get install -y --no-install-recommends ${packages.join(' ')}`;
 const isRoot = typeof process.getuid === 'function' && process.getuid() === 0;
 if (!isRoot || !onPath('apt-get')) {
-  console.error(`Missing system programs: ${missing.join(', ')}; install them with: ${installCommand}`);
+  console.error(`Missing system programs: ${names(missing)}; install them with: ${installCommand}`);
   process.exit(1);
 }
 
-console.log(`Installing ${missing.join(', ')} from Debian…`);
+console.log(`Installing ${packages.join(', ')} from Debian…`);
 const ok =
   run('apt-get', ['update', '-qq']) &&
-  run('apt-get', ['install', '-y', '-qq', '--no-install-recommends', ...missing]);
-const stillMissing = PACKAGES.filter((p) => !onPath(p));
+  run('apt-get', ['install', '-y', '-qq', '--no-install-recommends', ...packages]);
+const stillMissing = absent();
 if (!ok || stillMissing.length > 0) {
-  const names = (stillMissing.length ? stillMissing : missing).join(', ');
-  console.error(`Missing system programs: ${names} (apt-get did not install them); install them with: ${installCommand}`);
+  console.error(`Missing system programs: ${names(stillMissing.length ? stillMissing : missing)} (apt-get did not install them); install them with: ${installCommand}`);
   process.exit(1);
 }

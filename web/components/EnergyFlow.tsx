@@ -7,7 +7,9 @@
  * first load.
  *
  * Every figure comes from core's flowGraph(); this file draws the diagram and answers hover, tap and
- * focus. Its parts: flow-layout.ts (columns, pipes, losses, wrapped labels), flow-canvas.ts (the
+ * focus. Its parts: flow-layout.ts (columns, pipes, losses, wrapped labels), flow-text.ts (the parts'
+ * descriptions, the card's figures, the labels' widths in the page's font), flow-drawing.ts (the hook
+ * that draws: the canvas handling and the idle SVG writing), flow-canvas.ts (the
  * drawing on screen: a canvas, drawn in the edit's frame), flow-draw.ts (one SVG element per part,
  * written only where it changed: transparent over the canvas, it carries the parts' names, focus,
  * hover and tap, and it is what the downloads and the printed page show; written when the page is
@@ -40,124 +42,24 @@
  */
 import { useCallback, useEffect, useLayoutEffect, useMemo, useRef, useState } from 'preact/hooks';
 import { flowGraph } from '../../core/studies/index.ts';
-import type { ElementResult, SolveResult } from '../../core/page.ts';
-import { formatCurrent, formatPercent, formatPower, formatVoltage } from '../format/number.ts';
-import { elementKindLabel } from '../format/labels.ts';
+import type { SolveResult } from '../../core/page.ts';
+import { formatPercent, formatPower } from '../format/number.ts';
 import { deviceDark, effectiveLocale, resolveTheme, themeChoice } from '../state/prefs.ts';
-import { openCount } from '../state/editor.ts';
 import { FLOW_PALETTES } from './flow-palette.ts';
-import { lagOffscreen, useIdleTask, type BoxRef } from './lag.ts';
-import { drawCanvas, fitsCanvas, pixelRatio } from './flow-canvas.ts';
-import { blockLayer, branchLayer, writeBlock, writeBranch, type BlockSpec, type BranchSpec, type PartWords, writeBlockWords, writeBranchWords } from './flow-draw.ts';
+import { lagOffscreen, type BoxRef } from './lag.ts';
+import { useFlowDrawing } from './flow-drawing.ts';
 import { download, fileStem, pngBlob, PRINT_RULES, svgText } from './flow-export.ts';
-import { figures, FONT, IDLE_DASH, type LaidLink, type LaidNode, layout, linkPaint, linkPath, MARK, type Measure, nodePaint, roughMeasure, ZERO_SHARE } from './flow-layout.ts';
+import { figures, FONT, layout, ZERO_SHARE } from './flow-layout.ts';
 import { Legend } from './flow-legend.tsx';
+import { cardContent, linkText, nodeText, pageMeasure, type Selection } from './flow-text.ts';
 import './EnergyFlow.css';
 export { FLOW_PALETTES } from './flow-palette.ts';
 
-/** The diagram's drawn layers (flow-draw.ts), kept between redraws. */
-interface Drawn {
-  branches: ReturnType<typeof branchLayer>;
-  blocks: ReturnType<typeof blockLayer>;
-}
-
-type Selection = { type: 'node'; id: string } | { type: 'link'; key: string } | null;
 /** An open card: what it shows, the part it belongs to, and where (px from the diagram section's top left corner). */
 type Card = { sel: NonNullable<Selection>; el: Element; x: number; y: number };
 
 /** Zoom steps of the diagram (1: full size, 12 px labels). */
 const ZOOMS = [0.25, 0.35, 0.5, 0.75, 1, 1.5, 2];
-
-function linkText(l: LaidLink, loc: string | undefined): string {
-  const from = l.sourceNode;
-  const to = l.targetNode;
-  if (l.role === 'loss') {
-    if (l.part === 'idle') return `Idle loss in ${from.name} (drawn even with no load): ${figures(l.watts, l.percent, loc)} of the source power`;
-    return `${from.kind === 'cable' ? 'Loss' : 'Conversion loss'} in ${from.name} (grows with the load): ${figures(l.watts, l.percent, loc)} of the source power`;
-  }
-  return `${from.name} to ${to.name}: ${figures(l.watts, l.percent, loc)} of the source power`;
-}
-
-function nodeText(n: LaidNode, element: ElementResult | undefined, loc: string | undefined): string {
-  if (n.role === 'loss') {
-    const idle = n.idleWatts ?? 0;
-    const split = idle > 0 ? ` (idle ${formatPower(idle, loc)}, conversion ${formatPower(n.watts - idle, loc)})` : '';
-    return `Loss in ${n.name}: ${figures(n.watts, n.percent, loc)} of the source power${split}`;
-  }
-  if (!element) return `${n.name}: ${figures(n.watts, n.percent, loc)}`;
-  const kind = elementKindLabel(element.kind);
-  if (n.role === 'load') return `${n.name} (${kind}, load): uses ${figures(element.pIn, n.percent, loc)} of the source power`;
-  const what = n.role === 'source' ? 'delivers' : 'takes in';
-  const idle = element.idleLoss ? ` (${formatPower(element.idleLoss, loc)} of it idle)` : '';
-  return (
-    `${n.name} (${kind}): ${what} ${figures(element.pIn, n.percent, loc)} of the source power, gives out ${formatPower(element.pOut, loc)}, ` +
-    `loses ${formatPower(element.loss, loc)}${idle}, efficiency ${formatPercent(element.efficiency, loc)}`
-  );
-}
-
-/**
- * A card's figures: those of the element the tapped part belongs to (a block's own element, a loss's
- * element, the element a feed branch feeds), named, with what was tapped.
- */
-function cardContent(sel: NonNullable<Selection>, laid: { nodes: LaidNode[]; links: LaidLink[] }, elements: Map<string, ElementResult>, sourcePower: number, loc: string | undefined) {
-  let element: ElementResult | undefined;
-  let what: string;
-  if (sel.type === 'link') {
-    const l = laid.links.find((x) => x.key === sel.key);
-    if (!l) return null;
-    if (l.role === 'loss') {
-      element = elements.get(l.sourceNode.elementId);
-      what = l.part === 'idle' ? `Idle loss branch: ${formatPower(l.watts, loc)}` : `${l.sourceNode.kind === 'cable' ? 'Loss' : 'Conversion loss'} branch: ${formatPower(l.watts, loc)}`;
-    } else {
-      element = elements.get(l.targetNode.elementId);
-      what = `Branch from ${l.sourceNode.name}`;
-    }
-  } else {
-    const n = laid.nodes.find((x) => x.id === sel.id);
-    if (!n) return null;
-    element = elements.get(n.elementId);
-    what = n.role === 'loss' ? 'Its loss' : '';
-  }
-  if (!element) return null;
-  const e = element;
-  const rows: [string, string][] = [];
-  const share = sourcePower !== 0 ? e.pIn / sourcePower : 0;
-  rows.push([e.role === 'source' ? 'Power delivered' : e.role === 'load' ? 'Power used' : 'Power in', formatPower(e.pIn, loc)]);
-  rows.push(['Share of the source', formatPercent(share, loc, 3)]);
-  if (e.role !== 'load') {
-    rows.push(['Power out', formatPower(e.pOut, loc)]);
-    rows.push(['Loss', `${formatPower(e.loss, loc)} (${formatPercent(sourcePower !== 0 ? e.loss / sourcePower : 0, loc, 3)} of the source)${e.idleLoss ? `, idle ${formatPower(e.idleLoss, loc)}` : ''}`]);
-    rows.push(['Efficiency', formatPercent(e.efficiency, loc)]);
-  }
-  // The current where the port carries one (a shaft carries none): what a source gives out, what the rest take in.
-  const port = e.role === 'source' ? e.output : e.input;
-  if (port && port.current > 0 && Number.isFinite(port.current)) {
-    rows.push([e.role === 'source' ? 'Current out' : 'Current in', `${formatCurrent(port.current, loc)}${port.voltage > 0 ? ` at ${formatVoltage(port.voltage, loc)}` : ''}`]);
-  }
-  return { name: e.name || e.id, kind: elementKindLabel(e.kind), what, rows };
-}
-
-/** Widths of label lines in the page's own font (canvas text metrics), cached; the rough estimate without a canvas. */
-function pageMeasure(): Measure {
-  const ctx = typeof document !== 'undefined' ? document.createElement('canvas').getContext('2d') : null;
-  if (!ctx) return roughMeasure;
-  const cache = new Map<string, number>();
-  let boldSet: boolean | undefined;
-  return (text, bold) => {
-    const key = (bold ? 'b' : 'n') + text;
-    let w = cache.get(key);
-    if (w === undefined) {
-      // Setting the font parses it: only when it changes.
-      if (boldSet !== bold) ctx.font = `${bold ? '600 ' : ''}12px ${FONT}`;
-      boldSet = bold;
-      // A little room kept: another font may stand in for this one in an exported file.
-      w = ctx.measureText(text).width * 1.04;
-      if (cache.size > 2000) cache.clear();
-      cache.set(key, w);
-    }
-    return w;
-  };
-}
 
 /** The theme the page shows now (the choice, or the device's setting). */
 export function shownTheme(): 'light' | 'dark' {
@@ -178,7 +80,6 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   );
   const boxRef = useRef<HTMLDivElement>(null);
   const svgRef = useRef<SVGSVGElement>(null);
-  const canvasRef = useRef<HTMLCanvasElement | null>(null);
   const cardRef = useRef<HTMLDivElement>(null);
   const [boxWidth, setBoxWidth] = useState(0);
   const [selected, setSelected] = useState<Selection>(null);
@@ -310,144 +211,8 @@ function EnergyFlow({ result, box }: { result: SolveResult; box: BoxRef }) {
   const loadsWatts = graph.nodes.reduce((s, n) => (n.role === 'load' ? s + n.watts : s), 0);
   const canvasLabel = `${title}: the source delivers ${formatPower(graph.sourcePower, loc)}, the loads use ${formatPower(loadsWatts, loc)}${summary ? `; ${summary}` : ''}`;
 
-  // After each render, before the frame is painted, the diagram is drawn on the canvas (flow-canvas.ts);
-  // the transparent SVG over it (its parts' names, focus, hover and tap, the downloads) follows when
-  // the page is next idle (flow-draw.ts: only what changed is written), at once when a part comes or
-  // goes, when another project was opened, and before a download or printing. While the canvas is
-  // scrolled out of view (the section's heading in view, the drawing below it) the canvas too is drawn
-  // when the page is idle, or as soon as it comes into view, unless its size changes.
-  const branchesRef = useRef<SVGGElement>(null);
-  const blocksRef = useRef<SVGGElement>(null);
-  const drawn = useRef<Drawn | null>(null);
-  const scheduleSvg = useIdleTask();
-  const svgPending = useRef<(() => void) | null>(null);
-  /** Brings the SVG up to date now (downloads read it). */
-  const svgNow = () => svgPending.current?.();
-  const canvasPending = useRef<(() => void) | null>(null);
-  /** Whether the canvas is on screen (from an IntersectionObserver; on screen until it reports). */
-  const canvasSeen = useRef(true);
-  const svgOpened = useRef(-1);
-  const svgKeys = useRef('');
-  const [dpr, setDpr] = useState(pixelRatio);
-  // The canvas shows the drawing where it fits one at the screen's pixel density (flow-canvas.ts); else the SVG does.
-  const onCanvas = laid !== null && fitsCanvas(laid.width, laid.height, shownZoom, dpr);
-  // A new device pixel ratio (the browser's zoom, another screen) draws the canvas again at its density.
-  useEffect(() => {
-    if (typeof matchMedia !== 'function') return;
-    const query = matchMedia(`(resolution: ${dpr}dppx)`);
-    const changed = () => setDpr(pixelRatio());
-    query.addEventListener?.('change', changed);
-    return () => query.removeEventListener?.('change', changed);
-  }, [dpr]);
-  // The canvas element, watched while it is there: coming into view, it draws what is waiting.
-  const canvasObserver = useRef<IntersectionObserver | null>(null);
-  const canvasBox = useCallback((el: HTMLCanvasElement | null) => {
-    canvasObserver.current?.disconnect();
-    canvasObserver.current = null;
-    canvasRef.current = el;
-    canvasSeen.current = true;
-    if (!el || typeof IntersectionObserver === 'undefined') return;
-    const observer = new IntersectionObserver((entries) => {
-      const seen = entries[entries.length - 1]!.isIntersecting;
-      canvasSeen.current = seen;
-      if (seen) canvasPending.current?.();
-    });
-    observer.observe(el);
-    canvasObserver.current = observer;
-  }, []);
-  useLayoutEffect(() => {
-    if (!laid || !branchesRef.current || !blocksRef.current) return;
-    const d = (drawn.current ??= { branches: branchLayer(), blocks: blockLayer() });
-    const branchesEl = branchesRef.current;
-    const blocksEl = blocksRef.current;
-    const branches = laid.links.map((l): BranchSpec => {
-      const paint = linkPaint(l, l.sourceNode.kind);
-      const isSel = selected?.type === 'link' && selected.key === l.key;
-      const isLoss = l.role === 'loss';
-      return {
-        key: l.key,
-        d: linkPath(l),
-        paint: isSel ? 'selected' : paint,
-        colour: isSel ? c.selected : c[paint],
-        opacityKey: isLoss ? 'loss' : 'feed',
-        opacity: isLoss ? palette.lossOpacity : palette.feedOpacity,
-        width: Math.max(1, l.width),
-        dash: l.part === 'idle' && l.width >= 2 ? IDLE_DASH : undefined,
-        role: l.role,
-        part: l.part,
-        ribbon: !isLoss,
-        source: l.sourceNode.id,
-        target: l.targetNode.id,
-        selected: isSel,
-      };
-    });
-    const blocks = laid.nodes.map((n): BlockSpec => {
-      const paint = nodePaint(n);
-      const rect = { x: n.x0, y: n.y0, w: n.x1 - n.x0, h: Math.max(2, n.y1 - n.y0) };
-      const isLoss = n.role === 'loss';
-      // A pipe carries its role's mark where the flow enters it (a load's where it ends); a loss block its idle part on the left.
-      const top = isLoss
-        ? n.idleWidth > 0
-          ? { x: n.x0, y: n.y0, w: n.idleWidth, h: rect.h, paint: 'idle' }
-          : undefined
-        : { x: n.role === 'load' ? n.x1 - MARK : n.x0, y: n.y0, w: MARK, h: rect.h, paint };
-      return {
-        id: n.id,
-        role: n.role,
-        rect,
-        paint: isLoss ? paint : 'feed',
-        opacity: isLoss ? undefined : { key: 'feed', value: palette.feedOpacity },
-        top,
-        colours: { fill: isLoss ? c[paint] : c.feed, top: isLoss ? c.idle : c[paint], selected: c.selected, ink: c.ink, inkMuted: c.inkMuted, background: c.background },
-        text: nodeLabels.get(n.id),
-        selected: selected?.type === 'node' && selected.id === n.id,
-      };
-    });
-    const canvas = canvasRef.current;
-    const scene = { width: laid.width, height: laid.height, background: c.background, branches, blocks, zoom: shownZoom };
-    canvasPending.current = null;
-    const paint = () => {
-      canvasPending.current = null;
-      if (canvas?.isConnected) drawCanvas(canvas, scene);
-    };
-
-    // The SVG's parts with their accessible names (with their figures) and the branches' watts.
-    const svg = () => {
-      svgPending.current = null;
-      d.branches.draw(branchesEl, branches, (s) => s.key, writeBranch);
-      d.blocks.draw(blocksEl, blocks, (s) => s.id, writeBlock);
-      d.branches.describe(
-        laid.links.map((l): PartWords => ({ key: l.key, label: linkText(l, loc), watts: l.watts })),
-        (w) => w.key,
-        writeBranchWords,
-      );
-      d.blocks.describe(
-        laid.nodes.map((n): PartWords => ({ key: n.id, label: nodeText(n, elements.get(n.elementId), loc) })),
-        (w) => w.key,
-        writeBlockWords,
-      );
-    };
-    const opened = openCount.peek();
-    const keys = laid.links.map((l) => l.key).join('|') + '||' + laid.nodes.map((n) => n.id).join('|');
-    const fresh = keys !== svgKeys.current || opened !== svgOpened.current;
-    if (canvas) {
-      // Drawn at once when on screen, new, or of another size (the page below it moves in this frame, as it always did).
-      if (canvasSeen.current || fresh || canvas.style.width !== `${laid.width * shownZoom}px` || canvas.style.height !== `${laid.height * shownZoom}px`) paint();
-      else canvasPending.current = paint;
-    }
-    svgPending.current = svg;
-    // Without the canvas (a drawing too large for one) the SVG is what is seen: written at once.
-    if (fresh || !canvas) {
-      svgKeys.current = keys;
-      svgOpened.current = opened;
-      svg();
-    }
-    if (svgPending.current || canvasPending.current)
-      scheduleSvg(() => {
-        canvasPending.current?.();
-        svgPending.current?.();
-      });
-  }, [laid, nodeLabels, selected, palette, loc, elements, shownZoom, dpr]);
+  // Drawn on the canvas before the frame is painted, the SVG over it when the page is idle (flow-drawing.ts).
+  const { branchesRef, blocksRef, canvasBox, onCanvas, svgNow } = useFlowDrawing({ laid, nodeLabels, selected, palette, loc, elements, shownZoom });
 
   const zoomStep = (dir: 1 | -1) => {
     const steps = dir > 0 ? ZOOMS.filter((z) => z > shownZoom + 1e-6) : ZOOMS.filter((z) => z < shownZoom - 1e-6).reverse();

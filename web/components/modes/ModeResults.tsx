@@ -4,7 +4,8 @@
  * and both modes' energy balance side by side. The on-battery solve and the modes study come from core's
  * solveModes / runModesStudy run in the panel worker (panel-worker.ts, `modes`), never on the page's
  * thread; the reply goes to `modesReply` (mode-state.ts), which App.tsx reads to show the chosen mode's
- * diagram and element table and which the standing-by panel reads. Loaded on demand (App.tsx).
+ * diagram and element table and which the standing-by panel reads (it asks nothing of its own; a crash
+ * goes to `modesCrash` for it). Loaded on demand (App.tsx).
  */
 import { useEffect } from 'preact/hooks';
 import type { Solved } from '../../../core/page.ts';
@@ -14,7 +15,7 @@ import { formatPercent, formatPower } from '../../format/number.ts';
 import { effectiveLocale } from '../../state/prefs.ts';
 import { problemLine } from '../problem-words.ts';
 import { openCount } from '../../state/editor.ts';
-import { MODE_WORDS, modesReply, shownMode, type ShownMode } from './mode-state.ts';
+import { MODE_WORDS, modesCrash, modesReply, shownMode, type ShownMode } from './mode-state.ts';
 import { VariantFlows } from '../variants/VariantFlows.tsx';
 
 type ModeFigures = ModesStudyResult['supply'];
@@ -62,6 +63,7 @@ function BalanceColumn({ title, figures, mode, chosen }: { title: string; figure
 export default function ModeResults({ solved }: { solved: Solved }) {
   const { reply, pending } = useWorkerReply<'modes'>(() => ({ kind: 'modes', solved }), [solved]);
   useEffect(() => {
+    if (reply?.kind === 'crash') modesCrash.value = { for: solved, message: reply.message };
     if (!reply || reply.kind !== 'modes') return;
     const o = reply.outcome;
     // The on-battery pair as one object per reply: the tables that show it lag on its identity.

@@ -1,6 +1,7 @@
 /**
  * "Standing by and transfer": the modes study of a project with a battery bank on a DC bus (issue 19,
- * core's runModesStudy, run in the panel worker): its settings (`standby`: recharge time, module current,
+ * core's runModesStudy, run in the panel worker for the mode switch: ModeResults.tsx asks, `modesReply`
+ * holds the reply, this panel reads it): its settings (`standby`: recharge time, module current,
  * redundancy, outage hours), the charger sizing (IEEE Std 946, A = L + k·C/H, modules with N+1), the
  * standing losses on supply and their yearly cost, the transfer figures, the cables each case sizes, the
  * warnings, which mode each study used and the cautions. Every figure is core's; this file only formats.
@@ -8,14 +9,15 @@
  */
 import { fieldLabel, type Problem } from '../../../core/page.ts';
 import type { ModesStudyResult } from '../../../core/studies/index.ts';
-import { useWorkerReply } from '../panel-client.ts';
 import { formatCurrent, formatPercent, formatPower, formatSignificant, formatVoltage } from '../../format/number.ts';
 import { formatMoney } from '../../format/panels.ts';
 import { effectiveLocale, unitSystem } from '../../state/prefs.ts';
-import { draft, getAt, lastSolved, resultsState, type DraftProject } from '../../state/editor.ts';
+import { draft, getAt, lastSolved, openCount, resultsState, type DraftProject } from '../../state/editor.ts';
+import { modesCrash, modesReply } from './mode-state.ts';
 import { problemLine, messageText } from '../problem-words.ts';
 import { SettingField } from '../SettingField.tsx';
 import { ChoiceField } from '../ChoiceField.tsx';
+import type { Quantity } from '../../format/parse.ts';
 import '../Panels.css';
 
 type Locale = string | undefined;
@@ -44,74 +46,94 @@ function rechargeAhFromWords(from: string): string {
   return from;
 }
 
+/** What a setting's placeholder and help read: the number format and core's charger working, when in. */
+interface SettingContext {
+  n: (x: number, digits?: number) => string;
+  c: ModesStudyResult['charger'] | undefined;
+}
+
+/**
+ * The `standby` settings, one row each: the path (its label is the project table's, its unit the
+ * quantity's), what an empty field takes, the typical value and why with its usual range, and the test id.
+ */
+type StandbySetting =
+  | { type: 'number'; path: string; quantity: Quantity; placeholder: (x: SettingContext) => string | undefined; help: (x: SettingContext) => string; testId: string }
+  | { type: 'choice'; path: string; options: readonly { value: string; label: string }[]; shown: (stored: unknown) => string; help: string; testId: string };
+
+const STANDBY_SETTINGS: readonly StandbySetting[] = [
+  {
+    type: 'number',
+    path: 'standby.targetRechargeHours',
+    quantity: 'time',
+    placeholder: ({ n }) => n(8, 3),
+    help: () => 'Typically 8 to 12 h for a standby lead-acid plant; a short time needs a larger charger. Empty: 8 h.',
+    testId: 'standby-recharge-hours',
+  },
+  {
+    type: 'number',
+    path: 'standby.rechargeAh',
+    quantity: 'capacity',
+    placeholder: ({ n, c }) => (c && c.rechargeAhFrom !== 'given' ? n(c.rechargeAh) : undefined),
+    help: ({ n, c }) =>
+      `The ampere-hours the charger must put back after an outage: what the outage takes out, at most the bank’s rated capacity.${
+        c && c.rechargeAhFrom !== 'given' ? ` Empty: ${n(c.rechargeAh)} Ah, ${rechargeAhFromWords(c.rechargeAhFrom)}.` : ' Empty: what the study takes without it (shown in the working below).'
+      }`,
+    testId: 'standby-recharge-ah',
+  },
+  {
+    type: 'number',
+    path: 'standby.chargeReturnFactor',
+    quantity: 'ratio',
+    placeholder: ({ n, c }) => (c && c.chargeReturnFactorFrom === 'typical' ? n(c.chargeReturnFactor, 3) : undefined),
+    help: ({ n, c }) =>
+      `Charge put back per charge taken out, typically ${n(1.05, 3)} to ${n(1.4, 3)} (IEEE Std 946, makers’ data): the charging losses; typical value: use the maker’s figure.${
+        c && c.chargeReturnFactorFrom === 'typical' ? ` Empty: ${n(c.chargeReturnFactor, 3)}, the bank’s chemistry’s typical factor.` : ' Empty: the bank’s chemistry’s typical factor.'
+      }`,
+    testId: 'standby-charge-return',
+  },
+  {
+    type: 'number',
+    path: 'standby.moduleCurrent',
+    quantity: 'current',
+    placeholder: () => 'e.g. 25',
+    help: () => 'One rectifier or charger module’s rated output: use the maker’s figure. Empty: no module count.',
+    testId: 'standby-module-current',
+  },
+  {
+    type: 'choice',
+    path: 'standby.redundancy',
+    options: [
+      { value: 'n+1', label: 'One spare module (N+1)' },
+      { value: 'none', label: 'None' },
+    ],
+    // What core takes without a value: N+1.
+    shown: (stored) => (stored === 'none' ? 'none' : 'n+1'),
+    help: 'N+1 is usual where the loads must stay up while a module is changed or fails.',
+    testId: 'standby-redundancy',
+  },
+  {
+    type: 'number',
+    path: 'standby.outageHoursPerYear',
+    quantity: 'time',
+    placeholder: () => '0',
+    help: () => 'Your own estimate or the network’s record: a few hours a year is common on a town supply. Empty: 0 h.',
+    testId: 'standby-outage-hours',
+  },
+];
+
 /** The `standby` settings, each with its typical value and why under it (written through setField). */
 function StandbySettings({ project, locale, study }: { project: DraftProject; locale: Locale; study: ModesStudyResult | null }) {
   const units = unitSystem.value;
-  const common = { project, units, locale };
-  const redundancy = getAt(project, 'standby.redundancy') === 'none' ? 'none' : 'n+1';
-  const c = study?.charger;
-  const n = (x: number, d = 4) => formatSignificant(x, d, locale);
-  // What core takes when a field is empty, from its own working (the figures below).
-  const ahEmpty = c && c.rechargeAhFrom !== 'given' ? ` Empty: ${n(c.rechargeAh)} Ah, ${rechargeAhFromWords(c.rechargeAhFrom)}.` : ' Empty: what the study takes without it (shown in the working below).';
-  const kEmpty = c && c.chargeReturnFactorFrom === 'typical' ? ` Empty: ${n(c.chargeReturnFactor, 3)}, the bank’s chemistry’s typical factor.` : ' Empty: the bank’s chemistry’s typical factor.';
+  const x: SettingContext = { n: (v, d = 4) => formatSignificant(v, d, locale), c: study?.charger };
   return (
     <div class="study-settings" data-testid="standby-settings">
-      <SettingField
-        {...common}
-        path="standby.targetRechargeHours"
-        label={label('standby.targetRechargeHours')}
-        quantity="time"
-        placeholder={formatSignificant(8, 3, locale)}
-        help="Typically 8 to 12 h for a standby lead-acid plant; a short time needs a larger charger. Empty: 8 h."
-        testId="standby-recharge-hours"
-      />
-      <SettingField
-        {...common}
-        path="standby.rechargeAh"
-        label={label('standby.rechargeAh')}
-        quantity="capacity"
-        placeholder={c && c.rechargeAhFrom !== 'given' ? n(c.rechargeAh) : undefined}
-        help={`The ampere-hours the charger must put back after an outage: what the outage takes out, at most the bank’s rated capacity.${ahEmpty}`}
-        testId="standby-recharge-ah"
-      />
-      <SettingField
-        {...common}
-        path="standby.chargeReturnFactor"
-        label={label('standby.chargeReturnFactor')}
-        quantity="ratio"
-        placeholder={c && c.chargeReturnFactorFrom === 'typical' ? n(c.chargeReturnFactor, 3) : undefined}
-        help={`Charge put back per charge taken out, typically ${n(1.05, 3)} to ${n(1.4, 3)} (IEEE Std 946, makers’ data): the charging losses; typical value: use the maker’s figure.${kEmpty}`}
-        testId="standby-charge-return"
-      />
-      <SettingField
-        {...common}
-        path="standby.moduleCurrent"
-        label={label('standby.moduleCurrent')}
-        quantity="current"
-        placeholder="e.g. 25"
-        help="One rectifier or charger module’s rated output: use the maker’s figure. Empty: no module count."
-        testId="standby-module-current"
-      />
-      <ChoiceField
-        path="standby.redundancy"
-        label={label('standby.redundancy')}
-        value={redundancy}
-        options={[
-          { value: 'n+1', label: 'One spare module (N+1)' },
-          { value: 'none', label: 'None' },
-        ]}
-        help="N+1 is usual where the loads must stay up while a module is changed or fails."
-        testId="standby-redundancy"
-      />
-      <SettingField
-        {...common}
-        path="standby.outageHoursPerYear"
-        label={label('standby.outageHoursPerYear')}
-        quantity="time"
-        placeholder="0"
-        help="Your own estimate or the network’s record: a few hours a year is common on a town supply. Empty: 0 h."
-        testId="standby-outage-hours"
-      />
+      {STANDBY_SETTINGS.map((s) =>
+        s.type === 'number' ? (
+          <SettingField key={s.path} project={project} units={units} locale={locale} path={s.path} label={label(s.path)} quantity={s.quantity} placeholder={s.placeholder(x)} help={s.help(x)} testId={s.testId} />
+        ) : (
+          <ChoiceField key={s.path} path={s.path} label={label(s.path)} value={s.shown(getAt(project, s.path))} options={s.options} help={s.help} testId={s.testId} />
+        ),
+      )}
     </div>
   );
 }
@@ -244,15 +266,21 @@ export default function StandbyPanel() {
   const project = draft.value;
   const solved = lastSolved.value;
   const locale = effectiveLocale();
-  const { reply, pending } = useWorkerReply<'modes'>(() => (solved ? { kind: 'modes', solved } : null), [solved]);
+  // The mode switch (ModeResults.tsx), shown with the results whenever this panel is, asks the panel worker
+  // for the modes of the same solved pair and keeps the reply in `modesReply`: the panel reads that one
+  // request. The same project's older reply stays shown while the new one is worked out (as before).
+  const shared = modesReply.value;
+  const reply = shared && (shared.for === solved || (shared.open !== undefined && shared.open === openCount.value)) ? shared : null;
+  const pending = reply?.for !== solved;
+  const crash = modesCrash.value?.for === solved ? modesCrash.value.message : null;
   const stale = resultsState.value === 'stale';
-  const outcome = reply?.kind === 'modes' ? reply.outcome : null;
+  const outcome = reply?.outcome ?? null;
   const study = outcome?.ok ? outcome.study : null;
   return (
     <div class={stale ? 'panel-body panel-body--stale' : 'panel-body'} data-testid="standby-panel" data-state={study?.ok ? 'ready' : pending ? 'working' : 'none'}>
       {project && <StandbySettings project={project} locale={locale} study={study?.ok ? study.study : null} />}
-      {reply?.kind === 'crash' && <p class="notice notice--error" role="alert">{reply.message}</p>}
-      {!reply && <p class="note" role="status">Working out the two modes…</p>}
+      {crash && <p class="notice notice--error" role="alert">{crash}</p>}
+      {!reply && !crash && <p class="note" role="status">Working out the two modes…</p>}
       {outcome && !outcome.ok && <Problems problems={outcome.problems} project={project} />}
       {study && !study.ok && <Problems problems={study.problems} project={project} />}
       {study?.ok && <Figures s={study.study} locale={locale} />}

@@ -20,6 +20,9 @@ export const shownMode = signal<ShownMode>('supply');
  */
 export const modesReply = signal<{ for: Solved; open?: number; outcome: ModesReply['outcome']; batteryPair?: Solved; supplyPair?: Solved } | null>(null);
 
+/** The worker's crash for the modes request of a solved pair (the standing-by panel shares the mode switch's request). */
+export const modesCrash = signal<{ for: Solved; message: string } | null>(null);
+
 /**
  * Whether a project has a bank on a bus: a battery fed from another element (core/solve/modes.ts
  * `bankOnBus`, which the validation has checked; this is only its cheap test, without the engine).

@@ -1,7 +1,7 @@
 /**
  * "Compare options" (issue 20 point 1): the project's variants, the quick ways to add one (12 / 24 /
- * 48 V, critical loads only, the next conductor size up, or one field of one element changed), each
- * one renamed, noted or deleted; the comparison table with the figures that differ marked (and a CSV
+ * 48 V, critical loads only, the next conductor size up, or one number or choice field of one element
+ * changed: ChangeField.tsx), each one renamed, noted or deleted; the comparison table with the figures that differ marked (and a CSV
  * of it), and the options' energy-flow diagrams side by side at one scale. The comparison runs in the
  * panel worker (core's compareColumns over solveColumns, panel-worker.ts); every figure is core's.
  * Loaded on demand when its panel is opened (PanelShelf.tsx).
@@ -9,14 +9,13 @@
 import { useState } from 'preact/hooks';
 import { elementWords, type Problem, type ProjectVariant, type Solved } from '../../../core/page.ts';
 import { criticalLoadsVariant, nextSizeUpVariant, systemBank, systemVoltageVariant, SYSTEM_VOLTAGES, type QuickVariantOutcome, type VariantComparison } from '../../../core/studies/index.ts';
-import { allFields, formFor, type NumberSpec } from '../../editor/fields.ts';
-import { inputUnit, readNumberField } from '../../format/parse.ts';
-import { costInForce, effectiveLocale, unitSystem } from '../../state/prefs.ts';
+import { costInForce, effectiveLocale } from '../../state/prefs.ts';
 import { lastSolved } from '../../state/editor.ts';
 import { useWorkerReply } from '../panel-client.ts';
 import { problemLine } from '../problem-words.ts';
 import { CsvButton } from '../report/CsvButton.tsx';
-import { addVariant, deleteVariant, draftVariants, fieldChange, noteVariant, renameVariant } from './edit.ts';
+import { addVariant, deleteVariant, draftVariants, noteVariant, renameVariant } from './edit.ts';
+import { ChangeField } from './ChangeField.tsx';
 import { variantValueText } from './values.ts';
 import { VariantFlows } from './VariantFlows.tsx';
 import '../Panels.css';
@@ -149,64 +148,6 @@ function QuickAdd({ solved, onDone }: { solved: Solved; onDone: (s: Status) => v
       )}
       <ChangeField solved={solved} onDone={onDone} />
     </div>
-  );
-}
-
-/** "Change a field": an element by name, one of its form's number fields by label, a value in the user's units. */
-function ChangeField({ solved, onDone }: { solved: Solved; onDone: (s: Status) => void }) {
-  const project = solved.project;
-  const { names } = elementWords(project);
-  const units = unitSystem.value;
-  const loc = effectiveLocale();
-  const [elementId, setElementId] = useState(project.elements[0]?.id ?? '');
-  const element = project.elements.find((e) => e.id === elementId);
-  const numberFields = element ? allFields(formFor(element.kind)?.fields ?? []).filter((f): f is NumberSpec => f.type === 'number') : [];
-  const [path, setPath] = useState('');
-  const field = numberFields.find((f) => f.path === path) ?? numberFields[0];
-  const [text, setText] = useState('');
-  const add = () => {
-    if (!element || !field) return;
-    const read = readNumberField(text, { ...field, required: true }, units, loc);
-    if (!read.ok) return onDone({ kind: 'error', text: read.message });
-    const name = names.get(element.id) ?? element.id;
-    const unit = inputUnit(field.quantity, units).symbol;
-    const refused = addVariant({
-      name: `${name}: ${field.label} ${text.trim()}${unit ? ` ${unit}` : ''}`,
-      set: { [element.id]: fieldChange(element as unknown as Record<string, unknown>, field.path, read.value) },
-    });
-    onDone(refused ? { kind: 'error', text: refused } : { kind: 'ok', text: `Added "${draftVariants().at(-1)?.name ?? name}".` });
-  };
-  return (
-    <fieldset class="variants-quick__change" data-testid="variant-change-field">
-      <legend>Change a field</legend>
-      <div class="variants-field">
-        <label for="variant-change-element">Element</label>
-        <select id="variant-change-element" value={elementId} onChange={(e) => (setElementId((e.currentTarget as HTMLSelectElement).value), setPath(''))}>
-          {project.elements.map((e) => (
-            <option key={e.id} value={e.id}>
-              {names.get(e.id) ?? e.id}
-            </option>
-          ))}
-        </select>
-      </div>
-      <div class="variants-field">
-        <label for="variant-change-field">Field</label>
-        <select id="variant-change-field" value={field?.path ?? ''} onChange={(e) => setPath((e.currentTarget as HTMLSelectElement).value)} disabled={numberFields.length === 0}>
-          {numberFields.map((f) => (
-            <option key={f.path} value={f.path}>
-              {f.label}
-            </option>
-          ))}
-        </select>
-      </div>
-      <div class="variants-field">
-        <label for="variant-change-value">Value{field && inputUnit(field.quantity, units).symbol ? ` (${inputUnit(field.quantity, units).symbol})` : ''}</label>
-        <input id="variant-change-value" type="text" inputMode="decimal" value={text} onInput={(e) => setText((e.currentTarget as HTMLInputElement).value)} data-testid="variant-change-value" />
-      </div>
-      <button type="button" class="panel-button" onClick={add} disabled={!field || text.trim() === ''} data-testid="variant-change-add">
-        Add this option
-      </button>
-    </fieldset>
   );
 }
 

@@ -75,3 +75,34 @@ export function fieldChange(element: Record<string, unknown>, path: string, valu
   at[keys[keys.length - 1]!] = value;
   return { [top]: copy };
 }
+
+/**
+ * The `set` of a variant that makes an edit on a copy of one element (a choice field set, what must
+ * follow it, or another way of describing a part of it applied): each top-level field the edit changed
+ * is set to its new value, each it took out is set to null (the element's default applies).
+ */
+export function editedChange(element: Record<string, unknown>, edit: (copy: Record<string, unknown>) => void): Record<string, unknown> {
+  const copy = structuredClone(element);
+  edit(copy);
+  const set: Record<string, unknown> = {};
+  for (const key of new Set([...Object.keys(element), ...Object.keys(copy)])) {
+    if (key === 'id' || key === 'kind') continue;
+    if (copy[key] === undefined) {
+      if (element[key] !== undefined) set[key] = null;
+    } else if (JSON.stringify(copy[key]) !== JSON.stringify(element[key])) set[key] = copy[key];
+  }
+  return set;
+}
+
+/** Set (or, with undefined, take out) the value at a dotted path of an element's copy. */
+export function setAtPath(e: Record<string, unknown>, path: string, value: unknown): void {
+  const keys = path.split('.');
+  let at = e;
+  for (const k of keys.slice(0, -1)) {
+    if (typeof at[k] !== 'object' || at[k] === null) at[k] = {};
+    at = at[k] as Record<string, unknown>;
+  }
+  const last = keys[keys.length - 1]!;
+  if (value === undefined) delete at[last];
+  else at[last] = value;
+}

@@ -1,0 +1,83 @@
+/**
+ * "Change a field" of the compare-options panel with a choice (web/components/variants/ChangeField.tsx):
+ * the edit is made on a copy of the element through the form's own descriptors (web/editor/fields.ts: a
+ * choice's value and what must follow it, or a group's way of describing a part), and `editedChange`
+ * turns it into the variant's `set` — the top-level fields it changed, null for those it took out (the
+ * file format's rule, core/model/variants.ts). Each set is then solved by core's solveProjectVariant.
+ */
+import { describe, expect, it } from 'vitest';
+import { demoProjects, solveProject, solveProjectVariant } from '../../core/index.ts';
+import { formFor, shownFields, type ChoiceSpec, type FormElement, type GroupSpec } from '../../web/editor/fields.ts';
+import { editedChange, fieldChange, setAtPath } from '../../web/components/variants/edit.ts';
+
+const solvedDemo = (id: string) => {
+  const s = solveProject(demoProjects.find((d) => d.id === id)!.project);
+  if (!s.ok) throw new Error(`the ${id} demo does not solve`);
+  return s;
+};
+const elementOf = (s: ReturnType<typeof solvedDemo>, id: string) => s.project.elements.find((e) => e.id === id) as unknown as FormElement;
+const shown = (e: FormElement) => shownFields(formFor(String(e['kind']))!.fields, e);
+const choice = (e: FormElement, label: string) => shown(e).find((f): f is ChoiceSpec => f.type === 'choice' && f.label === label)!;
+const group = (e: FormElement, label: string) => shown(e).find((f): f is GroupSpec => f.type === 'group' && f.label === label)!;
+
+describe('a variant that changes a choice', () => {
+  it('a top-level choice (the inverter’s phases) sets that field alone, like a number', () => {
+    const s = solvedDemo('hillside-relay-hut');
+    const inverter = elementOf(s, 'inverter');
+    const phases = choice(inverter, 'Phases');
+    expect(phases.options).toEqual([
+      { value: 1, label: 'Single-phase' },
+      { value: 3, label: 'Three-phase' },
+    ]); // the form's own choices (web/editor/fields/common.ts phasesField)
+    const set = editedChange(inverter, (e) => setAtPath(e, phases.path, 3));
+    expect(set).toEqual({ phases: 3 });
+    // The same shape a number field gives (fieldChange), and core solves it.
+    expect(fieldChange(inverter, 'phases', 3)).toEqual(set);
+    const solved = solveProjectVariant(s, { name: 'three-phase', set: { inverter: set } });
+    expect(solved.ok).toBe(true);
+  });
+
+  it('a choice inside the conductor (insulation) sets a copy of the whole conductor with that one value', () => {
+    const s = solvedDemo('cold-store-dc-bus');
+    const cable = elementOf(s, 'ctl-cable');
+    const insulation = choice(cable, 'Insulation');
+    const set = editedChange(cable, (e) => setAtPath(e, insulation.path, 'xlpe'));
+    expect(set).toEqual({ conductor: { ...(cable['conductor'] as object), insulation: 'xlpe' } });
+    const solved = solveProjectVariant(s, { name: 'XLPE', set: { 'ctl-cable': set } });
+    expect(solved.ok).toBe(true);
+  });
+
+  it('what must follow a choice follows: a size the new material’s table lacks goes back to automatic', () => {
+    const s = solvedDemo('cold-store-dc-bus');
+    const cable = { ...elementOf(s, 'ctl-cable'), conductor: { ...(elementOf(s, 'ctl-cable')['conductor'] as object), size: '2.5 mm²' } };
+    const material = choice(cable, 'Conductor material');
+    const set = editedChange(cable, (e) => {
+      setAtPath(e, material.path, 'aluminium');
+      material.follow!(e, 'aluminium');
+    });
+    // The form's aluminium list starts at 10 mm² (web/editor/fields/cable.ts sizeOptions, the IEC catalogue): 2.5 mm² goes to auto.
+    expect(set['conductor']).toMatchObject({ material: 'aluminium', size: 'auto' });
+  });
+
+  it('another way of describing a part (the motor’s efficiency from its class) takes the old models out with null', () => {
+    const s = solvedDemo('riverside-pump-station');
+    const motor = elementOf(s, 'motor');
+    const from = group(motor, 'Efficiency from');
+    expect(from.current(motor)).toBe('explicit');
+    const byClass = from.variants.find((v) => v.id === 'class')!;
+    const set = editedChange(motor, (e) => byClass.apply(e));
+    expect(set['loss']).toBeNull();
+    expect(set['powerFactor']).toBeNull();
+    expect(set['efficiencyClass']).toBe('IE3'); // the form's default class (web/editor/fields/machines.ts)
+    expect(set).not.toHaveProperty('id');
+    expect(set).not.toHaveProperty('kind');
+    expect(set).not.toHaveProperty('ratedOutput'); // unchanged fields are not set
+    const solved = solveProjectVariant(s, { name: 'IE3', set: { motor: set } });
+    expect(solved.ok).toBe(true);
+    if (solved.ok) {
+      const m = solved.project.elements.find((e) => e.id === 'motor') as unknown as FormElement;
+      expect(m['loss']).toBeUndefined();
+      expect(m['efficiencyClass']).toBe('IE3');
+    }
+  });
+});
