@@ -132,6 +132,16 @@ export function withProfilePrice(solved: Solved, cost: CostSettings): CostSettin
   return t.split ? { ...cost, pricePerKWh: t.pricePerKWh, profileDayShare: t.split.dayShare } : cost;
 }
 
+/**
+ * The cost settings of a solved chain as every study prices its losses: the project's (`costSettingsOf`)
+ * with the load profile's mean price when the project splits day and night by it (`withProfilePrice`).
+ * Null without a price.
+ */
+export function costSettingsOfSolved(solved: Solved): CostSettings | null {
+  const cost = costSettingsOf(solved.project);
+  return cost ? withProfilePrice(solved, cost) : null;
+}
+
 /** Problems of the cost settings (PROJECT_LEVEL, the project's fields `running.energyPricePerKWh`, `running.hoursPerYear`). */
 export function checkCostSettings(settings: CostSettings): Problem[] {
   const out: Problem[] = [];

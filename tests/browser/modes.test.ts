@@ -9,12 +9,11 @@
  * to put back and the charge-return factor are edited in the standing-by panel as core sizes the charger;
  * phone 390×844 and desktop; axe clean. Screenshots go to tests/.artifacts/.
  */
-import { spawnSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { inCi, skipWithout } from '../tools/system-tools.ts';
+import { pdfPageImages, skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, answersSettled, artifacts, chainOp, seriousAxeViolations, serveBuiltApp, showProjectsView, watchPageErrors, type ServedApp } from './harness.ts';
 import { demoProjects, runModesStudy, solveModes } from '../../core/index.ts';
 import { answerStudies } from '../../core/studies/index.ts';
@@ -32,22 +31,6 @@ const demo = (id: string) => {
 };
 
 /** Spaces of every kind as one ASCII space (the page joins numbers and units with a narrow no-break space). */
-/**
- * Each page of a printed PDF as an image to look at (poppler's pdftoppm, Debian poppler-utils, which
- * tests/tools/ensure-system.mjs installs). Under CI (CI=true) a missing pdftoppm fails the test with one
- * line; elsewhere the test's output says the images are skipped. A pdftoppm that fails on the PDF fails it.
- */
-function pageImages(pdf: string, prefix: string): void {
-  const r = spawnSync('pdftoppm', ['-png', '-r', '60', pdf, prefix], { encoding: 'utf8' });
-  if ((r.error as NodeJS.ErrnoException | undefined)?.code === 'ENOENT') {
-    const message = 'pdftoppm is not installed; install it with: apt-get install -y --no-install-recommends poppler-utils (or run npm test, which installs it)';
-    if (inCi()) throw new Error(message);
-    console.warn(`SKIPPED: the printed report's page images (${prefix}-*.png): ${message}`);
-    return;
-  }
-  if (r.error || r.status !== 0) throw new Error(`pdftoppm could not turn ${pdf} into images: ${r.error?.message ?? r.stderr.trim().split('\n')[0]}`);
-}
-
 const plain = (s: string | null | undefined) => (s ?? '').replace(/[\s\u202f\u00a0]+/g, ' ').trim();
 const fmt = (w: number) => plain(formatPower(w, 'en-US'));
 
@@ -421,7 +404,7 @@ describe.skipIf(skipWithout('chromium'))('both modes of a bank on a bus in Chrom
       // The words the client's pages never carry (the list of tests/browser/report.test.ts, SOLVER_WORDS).
       for (const t of pages.slice(0, engineer)) expect(t).not.toMatch(/\b(solve[ds]?|solver|solving|ports?|nodes?|sweeps?|converged|convergence|balance error)\b/i);
       expect(pages.slice(engineer).join(' ')).toContain('A = L + k·C/H');
-      pageImages(join(artifacts, 'modes-report.pdf'), join(artifacts, 'modes-report-page'));
+      pdfPageImages(join(artifacts, 'modes-report.pdf'), join(artifacts, 'modes-report-page'));
       expect(errors).toEqual([]);
     } finally {
       await context.close();

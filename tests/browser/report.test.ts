@@ -8,12 +8,11 @@
  * editor controls and buttons are not printed; in the dark theme the printed page is still dark ink
  * on white, diagram included. Screenshots of the print layout go to tests/.artifacts/ to look at.
  */
-import { execFileSync } from 'node:child_process';
 import { writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { skipWithout } from '../tools/system-tools.ts';
+import { pdfPageImages, skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, serveBuiltApp, watchPageErrors, seriousAxeViolations, type ServedApp, fullPageScreenshot, pickDemo } from './harness.ts';
 import { bankCautions, demoProjects, flowGraph, solveProject, CONDUCTOR_CAUTION } from '../../core/index.ts';
 import { formatPercent, formatPower } from '../../web/format/number.ts';
@@ -190,12 +189,8 @@ describe.skipIf(skipWithout('chromium'))('the client report in Chromium', () => 
         const first = texts[0]!.replace(/\s+/g, ' ');
         expect(first).toContain('The answers');
         expect(first.indexOf('The answers')).toBeLessThan(first.indexOf('The chain'));
-        // Each page as an image, to look at (poppler's pdftoppm, when the machine has it; not a check).
-        try {
-          execFileSync('pdftoppm', ['-png', '-r', '60', join(artifacts, `report-${theme}-${demo.id}.pdf`), join(artifacts, `report-${theme}-${demo.id}-page`)]);
-        } catch {
-          // pdftoppm is not installed: the PDF itself is in tests/.artifacts/.
-        }
+        // Each page as an image, to look at (poppler's pdftoppm: a missing one fails under CI, is named elsewhere).
+        pdfPageImages(join(artifacts, `report-${theme}-${demo.id}.pdf`), join(artifacts, `report-${theme}-${demo.id}-page`));
       }
       expect(errors).toEqual([]);
     } finally {

@@ -7,10 +7,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { solveProject } from '../../core/solve/index.ts';
-import { costSettingsOf, formatLossCost, lossCostPerYear, tariffPrice, withProfilePrice } from '../../core/studies/economics.ts';
+import { costSettingsOf, costSettingsOfSolved, formatLossCost, lossCostPerYear, tariffPrice, withProfilePrice } from '../../core/studies/economics.ts';
 import { lifetimeCost } from '../../core/studies/lifetime.ts';
 import { answerStudies } from '../../core/studies/answers.ts';
 import type { Solved } from '../../core/solve/solved.ts';
+import { compareVariants } from '../../core/studies/variants/compare.ts';
 
 /** 230 V supply, rectifier of constant 90 % (loses 100 W at the 900 W load "Lamps"), as tests/core/lifetime-profile.test.ts. */
 const chain = (running: Record<string, unknown>) => ({
@@ -73,6 +74,17 @@ describe('the yearly cost of the losses under the profile’s day', () => {
     expect(life.cost.losses.totalCost).toBe(lc.cost.totalCost);
     const answers = answerStudies(split, costSettingsOf(split.project));
     expect(answers.cost.ok && answers.cost.cost).toBe(lc.cost.totalCost);
+  });
+
+  it('every study that costs the losses takes the same price: the comparison of options prints and uses 0.24 per kWh', () => {
+    // costSettingsOfSolved is what the option search and the modes study's standing cost read (economics.ts).
+    expect(costSettingsOfSolved(split)!.pricePerKWh).toBeCloseTo(0.24, 12); // by hand, above
+    const c = compareVariants(split, [{ name: 'Bigger lamps', set: { lamp: { power: 1800 } } }]);
+    expect(c.cost!.pricePerKWh).toBeCloseTo(0.24, 12);
+    const yearly = c.rows.find((r) => r.key === 'cost.yearly')!;
+    // As planned 100 W of losses: 210.24 a year (by hand, above); 1800 W of lamps at 90 %: 200 W, the profile's split unchanged: 420.48.
+    expect(yearly.values[0]).toBeCloseTo(210.24, 9);
+    expect(yearly.values[1]).toBeCloseTo(420.48, 9);
   });
 
   it('unticked, the hours stay spread evenly over the day in both: (16 × 0.30 + 8 × 0.10) / 24 per kWh', () => {

@@ -1,5 +1,5 @@
 /**
- * Locating the system programs that some tests drive (Chromium, ngspice).
+ * Locating the system programs that some tests drive (Chromium, ngspice, pdftoppm).
  *
  * A missing program never makes a test pass or vanish quietly: under CI (CI=true) the test fails
  * with the install command; on a developer machine it is skipped with a printed notice naming the
@@ -45,4 +45,20 @@ export function requireTool(tool: SystemTool): string {
   const path = findTool(tool);
   if (!path) throw new Error(`${tool} is not installed; install it with: ${installHint(tool)}`);
   return path;
+}
+
+/**
+ * Each page of a printed PDF as an image to look at (poppler's pdftoppm, Debian poppler-utils, which
+ * tests/tools/ensure-system.mjs installs). Under CI (CI=true) a missing pdftoppm fails the test with one
+ * line; elsewhere the test's output says the images are skipped. A pdftoppm that fails on the PDF fails it.
+ */
+export function pdfPageImages(pdf: string, prefix: string): void {
+  const r = spawnSync('pdftoppm', ['-png', '-r', '60', pdf, prefix], { encoding: 'utf8' });
+  if ((r.error as NodeJS.ErrnoException | undefined)?.code === 'ENOENT') {
+    const message = 'pdftoppm is not installed; install it with: apt-get install -y --no-install-recommends poppler-utils (or run npm test, which installs it)';
+    if (inCi()) throw new Error(message);
+    console.warn(`SKIPPED: the printed report's page images (${prefix}-*.png): ${message}`);
+    return;
+  }
+  if (r.error || r.status !== 0) throw new Error(`pdftoppm could not turn ${pdf} into images: ${r.error?.message ?? r.stderr.trim().split('\n')[0]}`);
 }

@@ -35,7 +35,7 @@ import { STANDBY_CHARGE } from '../../data/standby-charge.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveVariant } from '../../solve/variant.ts';
 import { chargerOf, onBatteryChange, rechargeChange, solveModes, unusedPassThrough, type Modes } from '../../solve/modes.ts';
-import { HOURS_IN_YEAR, costSettingsOf } from '../economics.ts';
+import { HOURS_IN_YEAR, costSettingsOfSolved } from '../economics.ts';
 import { PLANNING_CAUTION, TYPICAL_VALUE } from '../backup/cautions.ts';
 import { simulateDischarge } from '../backup/discharge.ts';
 import { batteryPathWarnings, switchWorking } from './switches.ts';
@@ -68,8 +68,9 @@ export function runModesStudy(solved: Solved, modes: Modes | null = solveModes(s
   const { place } = modes;
   const project = solved.project;
   const settings = project.standby ?? {};
-  // The price the cost of the losses uses (a night price gives the day's mean: economics.ts).
-  const price = costSettingsOf(project)?.pricePerKWh;
+  // The price the cost of the losses uses (a night price gives the day's mean, weighted by the load
+  // profile's day when the project splits them so: economics.ts costSettingsOfSolved).
+  const price = costSettingsOfSolved(solved)?.pricePerKWh;
   // On supply: the file as drawn, or the variant in which an inverter-charger passes the supply through.
   const supply = modes.supply.result;
   const el = byId(supply);

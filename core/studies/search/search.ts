@@ -21,7 +21,7 @@ import type { OptionSearch } from '../../model/option-search.ts';
 import { SEARCH_MAX_COMBINATIONS } from '../../model/option-search.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveProjectVariant } from '../../solve/project-variant.ts';
-import { costSettingsOf } from '../economics.ts';
+import { costSettingsOfSolved } from '../economics.ts';
 import { sigText } from '../../model/message.ts';
 import type { ValidProject } from '../../solve/validate.ts';
 import { SEARCH_AXES, voltageChoices, type SearchChoice, type SearchDimension } from './axes.ts';
@@ -177,7 +177,8 @@ export function searchOptions(solved: Solved, search: OptionSearch, run: SearchR
   if (!g.ok) return g;
   const { groups } = g;
   const target = searchTarget(solved, search);
-  const cost = costSettingsOf(solved.project);
+  // The project's price, with the load profile's day/night split when the project asks for it (economics.ts).
+  const cost = costSettingsOfSolved(solved);
   const order = search.order ?? 'cost';
   const cap = Math.min(run.maxCombinations ?? SEARCH_MAX_COMBINATIONS, SEARCH_MAX_COMBINATIONS);
   // Σ over the voltages of Π of their dimensions' choices (one group without system voltages).

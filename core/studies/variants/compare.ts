@@ -34,7 +34,7 @@ import { solveVariant } from '../../solve/variant.ts';
 import type { BackupStudy } from '../../model/project.ts';
 import { solveAnswers } from '../../solve/answers.ts';
 import { answerStudies } from '../answers.ts';
-import { costSettingsOf, type CostSettings } from '../economics.ts';
+import { costSettingsOfSolved, type CostSettings } from '../economics.ts';
 import { compareLifetime, lifetimeCost, lifetimeSettingsOf, type LifetimeCost, type LifetimeSettings } from '../lifetime.ts';
 
 /** What a row's numbers are (SI inside; the CLI and the page convert at their edge). */
@@ -159,7 +159,9 @@ export function compareVariants(solved: Solved, variants: readonly ProjectVarian
 
 /** The comparison from columns already solved (`solveColumns`), so a caller that also draws them solves once. */
 export function compareColumns(solved: Solved, variants: readonly ProjectVariant[], solves: readonly ColumnSolve[], options: CompareOptions = {}): VariantComparison {
-  const costSettings = options.cost !== undefined ? options.cost : costSettingsOf(solved.project);
+  // The base's price (with its profile's day/night split when asked); each column's own cost figures take
+  // its own profile's split (answers.ts withProfilePrice).
+  const costSettings = options.cost !== undefined ? options.cost : costSettingsOfSolved(solved);
   const lifeSettings = options.lifetime !== undefined ? options.lifetime : lifetimeSettingsOf(solved.project);
   const meta = new Map<string, RowMeta>();
   const order: string[] = [];
