@@ -15,6 +15,7 @@ import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub
 import { receivingVoltage } from '../physics/two-bus.ts';
 import { type PreparedLoss, prepareLoss, weightedEfficiency } from '../physics/loss-model.ts';
 import type { DirectLoads, ElementModel, ElementReport, KindWarning, PortInfo, lossModelSchema } from './spec.ts';
+import type { WeightedEfficiency } from '../model/result.ts';
 
 export const phaseCount = (kind: PortKind): number => (kind === 'ac3' ? 3 : 1);
 
@@ -111,7 +112,7 @@ export function regulatingConverter(opts: {
   loss: z.infer<typeof lossModelSchema>;
   /** Name of the rated quantity for messages, e.g. "rated output". */
 }): ElementModel {
-  const prepared: PreparedLoss = prepareLoss(opts.loss);
+  const prepared: PreparedLoss = preparedLossOf(opts.loss);
   const vOut = c(perPhase(opts.out.kind, opts.outputVoltage));
   const pf = opts.inputKind === 'dc' ? 1 : (opts.inputPowerFactor ?? 1);
   return {
@@ -123,6 +124,35 @@ export function regulatingConverter(opts: {
     },
     report: (sOut) => lossReport(prepared, sOut.re),
   };
+}
+
+/**
+ * The loss models made ready, by the validated loss object they were made from (a variant keeps the
+ * objects of the elements it does not change, so a study's samples prepare each loss once), and
+ * each prepared model's weighted efficiencies. A prepared model is a pure function of its loss
+ * object, which the engine never changes (its inputs are never mutated).
+ */
+const preparedByLoss = new WeakMap<object, PreparedLoss>();
+const weightedByPrepared = new WeakMap<PreparedLoss, WeightedEfficiency | null>();
+
+/** `prepareLoss`, once per loss object (see above). */
+export function preparedLossOf(loss: z.infer<typeof lossModelSchema>): PreparedLoss {
+  let prepared = preparedByLoss.get(loss);
+  if (prepared === undefined) {
+    prepared = prepareLoss(loss);
+    preparedByLoss.set(loss, prepared);
+  }
+  return prepared;
+}
+
+/** `weightedEfficiency`, once per prepared model; a fresh object each call (results share no parts). */
+function weightedOf(prepared: PreparedLoss): WeightedEfficiency | undefined {
+  let w = weightedByPrepared.get(prepared);
+  if (w === undefined) {
+    w = weightedEfficiency(prepared) ?? null;
+    weightedByPrepared.set(prepared, w);
+  }
+  return w === null ? undefined : { euro: w.euro, cec: w.cec };
 }
 
 /** Load fraction, weighted efficiencies, fit and warnings of a loss model at an operating point. */
@@ -150,9 +180,9 @@ export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport 
   }
   const report: ElementReport = { warnings };
   if (rated !== undefined) report.loadFraction = pOut / rated;
-  const weighted = weightedEfficiency(prepared);
+  const weighted = weightedOf(prepared);
   if (weighted) report.weighted = weighted;
-  if (prepared.fit) report.fit = prepared.fit;
+  if (prepared.fit) report.fit = { ...prepared.fit };
   return report;
 }
 

@@ -15,7 +15,7 @@ import { z } from 'zod/mini';
 import type { MotorStage, PowerFactorModel } from '../model/project.ts';
 import { c } from '../physics/complex.ts';
 import { prepareLoss, interpolate } from '../physics/loss-model.ts';
-import { checkLossModel, checkPoints, defineKind, efficiencyField, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
+import { checkLossModel, checkPoints, defineKind, efficiencyField, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, preparedLossOf, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
 import { MOTOR_CLASSES, motorRating, ratedAt } from '../physics/motor-rating.ts';
 import { checkStarting, startingSchema } from './starting-fields.ts';
 import { ranged } from './ranges.ts';
@@ -132,7 +132,7 @@ export const motorKind = defineKind<MotorStage>({
     }
     const loss = e.loss!;
     const pfModelOf = e.powerFactor!;
-    const prepared = prepareLoss(loss.model === 'constant' && loss.ratedPower === undefined ? { ...loss, ratedPower: e.ratedOutput } : loss);
+    const prepared = loss.model === 'constant' && loss.ratedPower === undefined ? prepareLoss({ ...loss, ratedPower: e.ratedOutput }) : preparedLossOf(loss);
     return {
       out,
       outputVoltage: () => c(0),

@@ -18,8 +18,11 @@ const UNITY_BAND = 1e-9;
 /** V, I, P, Q, S, pf and phasors at a port carrying total power s at per-phase voltage v. */
 export function portResult(port: PortInfo, v: Complex, s: Complex): PortResult {
   const kind: PortKind = port.kind;
+  // (Literals with and without the optional field rather than a spread: the same fields in the same order.)
   if (kind === 'shaft') {
-    return { kind, voltage: 0, current: 0, p: s.re, q: 0, s: Math.abs(s.re), powerFactor: 1, pfSense: 'unity', ...(port.speed !== undefined ? { speed: port.speed } : {}) };
+    return port.speed !== undefined
+      ? { kind, voltage: 0, current: 0, p: s.re, q: 0, s: Math.abs(s.re), powerFactor: 1, pfSense: 'unity', speed: port.speed }
+      : { kind, voltage: 0, current: 0, p: s.re, q: 0, s: Math.abs(s.re), powerFactor: 1, pfSense: 'unity' };
   }
   const vPhase = abs(v);
   if (kind === 'dc') {
@@ -28,18 +31,14 @@ export function portResult(port: PortInfo, v: Complex, s: Complex): PortResult {
   const m = phaseCount(kind);
   const sMag = abs(s);
   const iPhasor = vPhase > 0 ? conj(div(scale(s, 1 / m), v)) : { re: 0, im: 0 };
-  return {
-    kind,
-    voltage: kind === 'ac3' ? vPhase * Math.sqrt(3) : vPhase,
-    ...(port.frequency !== undefined ? { frequency: port.frequency } : {}),
-    current: abs(iPhasor),
-    p: s.re,
-    q: s.im,
-    s: sMag,
-    powerFactor: sMag > 0 ? Math.abs(s.re) / sMag : 1,
-    pfSense: Math.abs(s.im) <= UNITY_BAND * sMag ? 'unity' : s.im > 0 ? 'lagging' : 'leading',
-    phasor: { voltage: { re: v.re, im: v.im }, current: { re: iPhasor.re, im: iPhasor.im } },
-  };
+  const voltage = kind === 'ac3' ? vPhase * Math.sqrt(3) : vPhase;
+  const current = abs(iPhasor);
+  const powerFactor = sMag > 0 ? Math.abs(s.re) / sMag : 1;
+  const pfSense = Math.abs(s.im) <= UNITY_BAND * sMag ? 'unity' : s.im > 0 ? 'lagging' : 'leading';
+  const phasor = { voltage: { re: v.re, im: v.im }, current: { re: iPhasor.re, im: iPhasor.im } };
+  return port.frequency !== undefined
+    ? { kind, voltage, frequency: port.frequency, current, p: s.re, q: s.im, s: sMag, powerFactor, pfSense, phasor }
+    : { kind, voltage, current, p: s.re, q: s.im, s: sMag, powerFactor, pfSense, phasor };
 }
 
 /** The elements node `i` feeds, looked through pass-through stages (cables, buses) to what they feed. */

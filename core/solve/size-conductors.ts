@@ -225,10 +225,14 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
   };
 }
 
+const NO_FIGURES: ReadonlyMap<string, number> = new Map();
+
 /** Add each conductor link's sizing and the whole-path drops to a built result. */
 export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok: true }>): SolveResult {
-  const warnings: SolveWarning[] = [...result.warnings];
   const limits = sized.limits;
+  // No link sized: the elements and warnings stand as built, only the whole-path drops are added.
+  if (sized.links.size === 0) return { ...result, voltageDrop: pathDrops(result.elements, limits, NO_FIGURES, NO_FIGURES) };
+  const warnings: SolveWarning[] = [...result.warnings];
   const own = new Map<string, number>();
   const checked = new Map<string, number>();
   const elements = result.elements.map((r) => {

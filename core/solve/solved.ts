@@ -7,7 +7,7 @@ import type { SolveResult } from '../model/result.ts';
 import type { ValidProject } from './validate.ts';
 import { buildResult } from './report.ts';
 import { attachConductors, sizeConductors } from './size-conductors.ts';
-import { findNonFinite, nonFiniteProblems } from './finite.ts';
+import { findNonFinite, nonFiniteProblems, resultMayHoldNonFinite } from './finite.ts';
 
 /** A solved project: the validated, normalised project and its result, which came from it and nothing else. */
 export interface Solved {
@@ -31,8 +31,9 @@ export function solveValid(project: ValidProject): SolveOutcome {
   if (!built.ok) return built;
   const result = attachConductors(built.result, sized);
   // Last step: a figure that is not finite anywhere refuses the whole result (never a table of NaN).
-  // (The names are looked up only for a result that holds such a figure.)
-  if (findNonFinite(result, 1).length) {
+  // (The result's figures are read by name first; the full walk, and the names, only for a result
+  // that may hold such a figure.)
+  if (resultMayHoldNonFinite(result) && findNonFinite(result, 1).length) {
     const names = new Map(project.elements.map((e) => [e.id, e.name ?? e.id]));
     return { ok: false, problems: nonFiniteProblems('The solve', result, names) };
   }
