@@ -66,23 +66,25 @@ export function pathDrops(
   limits: ResolvedLimits,
   perLinkOwn: ReadonlyMap<string, number> = new Map(),
   checked: ReadonlyMap<string, number> = new Map(),
+  feeders?: readonly number[],
 ): PathDrop[] {
-  // Each element's feeder (its place in the list, −1 for none) and whether it sets the voltage
-  // afresh, found once: the walks up from each load below then read arrays only.
+  // Each element's feeder (its place in the list, −1 for none: `feeders` when the caller knows them,
+  // as the solve does from its plan, else found by id) and whether it sets the voltage afresh, found
+  // once: the walks up from each load below then read arrays only.
   const n = elements.length;
-  const at = new Map<string, number>();
-  for (let i = 0; i < n; i++) at.set(elements[i]!.id, i);
-  const parentOf = new Int32Array(n);
-  const regulates = new Uint8Array(n);
-  for (let i = 0; i < n; i++) {
-    const e = elements[i]!;
-    parentOf[i] = e.from !== undefined ? (at.get(e.from) ?? -1) : -1;
-    regulates[i] = regulatesVoltage(e.kind) ? 1 : 0;
+  let parentOf: readonly number[];
+  if (feeders !== undefined && feeders.length === n) parentOf = feeders;
+  else {
+    const at = new Map<string, number>();
+    for (let i = 0; i < n; i++) at.set(elements[i]!.id, i);
+    parentOf = elements.map((e) => (e.from !== undefined ? (at.get(e.from) ?? -1) : -1));
   }
+  const regulates: boolean[] = [];
+  for (let i = 0; i < n; i++) regulates.push(regulatesVoltage(elements[i]!.kind));
   const out: PathDrop[] = [];
   for (let li = 0; li < n; li++) {
     const load = elements[li]!;
-    if (load.role !== 'load' && regulates[li] === 0) continue;
+    if (load.role !== 'load' && !regulates[li]) continue;
     const links: PathDrop['links'] = [];
     let terminal: ElementResult = load;
     let k = li;
@@ -91,7 +93,7 @@ export function pathDrops(
       const parent = elements[pk]!;
       // The load's electrical terminals: for a shaft load, the motor's input.
       if (terminal.input?.kind === 'shaft' && parent.input && parent.input.kind !== 'shaft') terminal = parent;
-      if (parent.role === 'source' || regulates[pk] === 1) {
+      if (parent.role === 'source' || regulates[pk]) {
         start = parent;
         break;
       }

@@ -27,28 +27,43 @@ const KIND_NAMES: Record<string, string> = { dc: 'DC', ac1: 'single-phase AC', a
 /** Depth-first order from the source; children in the order they appear in the file. Linear in the elements. */
 export function plan(project: Project): Plan {
   const problems: Problem[] = [];
-  const children = new Map<string, Element[]>();
-  let source: Element | undefined;
-  for (const e of project.elements) {
-    if (!('from' in e) || e.from === undefined) {
-      source ??= e;
+  const elements = project.elements;
+  const n = elements.length;
+  // The elements each id feeds, as places in `elements` (in file order), and the source's place.
+  const children = new Map<string, number[]>();
+  let source = -1;
+  for (let i = 0; i < n; i++) {
+    const from = (elements[i] as { from?: string }).from;
+    if (from === undefined) {
+      if (source < 0) source = i;
       continue;
     }
-    const siblings = children.get(e.from);
-    if (siblings) siblings.push(e);
-    else children.set(e.from, [e]);
+    const siblings = children.get(from);
+    if (siblings) siblings.push(i);
+    else children.set(from, [i]);
   }
   const order: PlannedElement[] = [];
   // Depth-first without recursion (a chain may be thousands of elements deep): a stack of the
-  // elements still to visit, children pushed last-first so they come off in file order.
-  const stack: { e: Element; parent: number; input: PortInfo | null }[] = source ? [{ e: source, parent: -1, input: null }] : [];
+  // elements still to visit (their places, feeders' indices in the plan and input ports, in three
+  // arrays), children pushed last-first so they come off in file order.
+  const stack: number[] = [];
+  const stackParent: number[] = [];
+  const stackInput: (PortInfo | null)[] = [];
+  if (source >= 0) {
+    stack.push(source);
+    stackParent.push(-1);
+    stackInput.push(null);
+  }
   // Each element is placed once: with duplicate ids (refused by validate, beside which plan may run)
   // an element could otherwise be reached again through its own id.
-  const placed = new Set<Element>();
+  const placed: boolean[] = new Array<boolean>(n).fill(false);
   while (stack.length) {
-    const { e, parent, input } = stack.pop()!;
-    if (placed.has(e)) continue;
-    placed.add(e);
+    const at = stack.pop()!;
+    const parent = stackParent.pop()!;
+    const input = stackInput.pop()!;
+    if (placed[at]) continue;
+    placed[at] = true;
+    const e = elements[at]!;
     const spec = KINDS.get(e.kind)!;
     if (input) {
       const accepted = spec.accepts(e);
@@ -64,15 +79,21 @@ export function plan(project: Project): Plan {
       }
     }
     const model = spec.build(e, input);
-    for (const p of model.problems ?? []) problems.push({ ...p, elementId: e.id });
+    if (model.problems !== undefined) for (const p of model.problems) problems.push({ ...p, elementId: e.id });
     const index = order.length;
     const role = input !== null && spec.fedRole !== undefined ? spec.fedRole : spec.role;
     order.push({ element: e, spec, role, model, parent, children: [], input });
     if (parent >= 0) order[parent]!.children.push(index);
     // An element with no output (a load) feeds nothing: what names it as its feed is refused by
     // validate ("not-a-feeder") and not built here (it would be built without an input port).
-    const below = model.out ? (children.get(e.id) ?? []) : [];
-    for (let k = below.length - 1; k >= 0; k--) stack.push({ e: below[k]!, parent: index, input: model.out });
+    const below = model.out ? children.get(e.id) : undefined;
+    if (below !== undefined) {
+      for (let k = below.length - 1; k >= 0; k--) {
+        stack.push(below[k]!);
+        stackParent.push(index);
+        stackInput.push(model.out);
+      }
+    }
   }
   return problems.length ? { ok: false, problems } : { ok: true, order };
 }

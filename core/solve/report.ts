@@ -74,15 +74,20 @@ export function buildResult(
     }
     const vIn = parent < 0 ? vOut[i]! : vOut[parent]!;
     const rep = node.model.report(sOut[i]!, sIn[i]!, vIn);
-    for (const w of rep.warnings) warnings.push({ ...w, elementId: e.id });
-    for (const w of node.spec.fedWarnings?.(e, fedThrough(order, i)) ?? []) warnings.push({ ...w, elementId: e.id });
-    for (const p of rep.problems ?? []) problems.push({ ...p, elementId: e.id });
+    // (Index loops, and the lists read only when there are any: this runs for every element of every solve.)
+    const own = rep.warnings;
+    for (let k = 0; k < own.length; k++) warnings.push({ ...own[k]!, elementId: e.id });
+    if (node.spec.fedWarnings !== undefined) for (const w of node.spec.fedWarnings(e, fedThrough(order, i))) warnings.push({ ...w, elementId: e.id });
+    if (rep.problems !== undefined) for (const p of rep.problems) problems.push({ ...p, elementId: e.id });
+    const children = node.children;
+    const feeds: string[] = [];
+    for (let k = 0; k < children.length; k++) feeds.push(order[children[k]!]!.element.id);
     const r: ElementResult = {
       id: e.id,
       name: e.name ?? e.id,
       kind: e.kind,
       role,
-      feeds: node.children.map((c) => order[c]!.element.id),
+      feeds,
       pIn,
       pOut,
       loss,

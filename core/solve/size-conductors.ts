@@ -231,7 +231,9 @@ const NO_FIGURES: ReadonlyMap<string, number> = new Map();
 export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok: true }>): SolveResult {
   const limits = sized.limits;
   // No link sized: the elements and warnings stand as built, only the whole-path drops are added.
-  if (sized.links.size === 0) return { ...result, voltageDrop: pathDrops(result.elements, limits, NO_FIGURES, NO_FIGURES) };
+  // (The plan gives each element's feeder: the result's elements are the plan's, in its order.)
+  const feeders = sized.order.map((node) => node.parent);
+  if (sized.links.size === 0) return { ...result, voltageDrop: pathDrops(result.elements, limits, NO_FIGURES, NO_FIGURES, feeders) };
   const warnings: SolveWarning[] = [...result.warnings];
   const own = new Map<string, number>();
   const checked = new Map<string, number>();
@@ -272,5 +274,5 @@ export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok
     }
     return { ...r, conductor };
   });
-  return { ...result, elements, warnings, voltageDrop: pathDrops(elements, limits, own, checked) };
+  return { ...result, elements, warnings, voltageDrop: pathDrops(elements, limits, own, checked, feeders) };
 }
