@@ -29,6 +29,25 @@ export function reactiveFromPf(p: number, pf: number, sense: PfSense = 'lagging'
 }
 
 /**
+ * Models that keep nothing between calls (no state: each function's answer follows from its
+ * arguments and the element alone), which the plan may therefore build once per element and use in
+ * every solve of it (core/solve/plan.ts). A model is in the set only as the very object a helper
+ * below or a kind gave to `pureModel`: a copy (`{ ...model, report }`) is not, so a wrapper that
+ * keeps state is never shared by mistake. A series link keeps the highest sending voltage it has
+ * seen (`seriesLink`): its models are built afresh for every plan.
+ */
+const PURE_MODELS = new WeakSet<ElementModel>();
+
+/** Mark a model as keeping nothing between calls (see PURE_MODELS). */
+export function pureModel(model: ElementModel): ElementModel {
+  PURE_MODELS.add(model);
+  return model;
+}
+
+/** Whether the plan may use this model in more than one solve (see PURE_MODELS). */
+export const isPureModel = (model: ElementModel): boolean => PURE_MODELS.has(model);
+
+/**
  * A series impedance link solved exactly per phase (cables, transformer windings, source
  * impedance). `z` is the per-phase impedance: the loop impedance on DC and single-phase.
  */
@@ -115,7 +134,7 @@ export function regulatingConverter(opts: {
   const prepared: PreparedLoss = preparedLossOf(opts.loss);
   const vOut = c(perPhase(opts.out.kind, opts.outputVoltage));
   const pf = opts.inputKind === 'dc' ? 1 : (opts.inputPowerFactor ?? 1);
-  return {
+  return pureModel({
     out: opts.out,
     outputVoltage: () => vOut,
     inputPower: (sOut) => {
@@ -123,7 +142,7 @@ export function regulatingConverter(opts: {
       return c(pIn, pf === 1 ? 0 : reactiveFromPf(pIn, pf, opts.inputPfSense));
     },
     report: (sOut) => lossReport(prepared, sOut.re),
-  };
+  });
 }
 
 /**
@@ -191,12 +210,12 @@ export const fmtPct = (x: number): string => `${figure(x * 100, 1)} %`;
 
 /** A load: constant complex power regardless of voltage. */
 export function constantPowerLoad(s: Complex): ElementModel {
-  return {
+  return pureModel({
     out: null,
     outputVoltage: () => ZERO,
     inputPower: () => s,
     report: () => ({ warnings: [] }),
-  };
+  });
 }
 
 /**
@@ -207,11 +226,11 @@ export function constantPowerLoad(s: Complex): ElementModel {
 export function constantCurrentLoad(j: Complex, kind: PortKind): ElementModel {
   const m = phaseCount(kind);
   const sPerVolt = scale(conj(j), m);
-  return {
+  return pureModel({
     out: null,
     current: j,
     outputVoltage: () => ZERO,
     inputPower: (_sOut, vIn) => scale(sPerVolt, abs(vIn)),
     report: () => ({ warnings: [] }),
-  };
+  });
 }

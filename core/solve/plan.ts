@@ -6,6 +6,7 @@
 import type { Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import { KINDS, type ElementModel, type KindSpec, type PortInfo } from '../kinds/index.ts';
+import { isPureModel } from '../kinds/models.ts';
 
 export interface PlannedElement {
   element: Element;
@@ -23,6 +24,26 @@ export interface PlannedElement {
 export type Plan = { ok: true; order: PlannedElement[] } | { ok: false; problems: Problem[] };
 
 const KIND_NAMES: Record<string, string> = { dc: 'DC', ac1: 'single-phase AC', ac3: 'three-phase AC', shaft: 'a motor shaft' };
+
+/**
+ * The models built for elements, by element object, when they keep nothing between calls
+ * (`isPureModel`, core/kinds/models.ts): a variant keeps the objects of the elements it does not
+ * change, so a study's samples and candidates build only the models of what they change. An entry
+ * serves only the same kind spec fed the same port (kind, frequency, speed: all a build reads of it).
+ * The engine never mutates an element (its inputs are never mutated), so a model stays true to it.
+ */
+const builtModels = new WeakMap<Element, { spec: KindSpec; input: PortInfo | null; model: ElementModel }>();
+
+const samePort = (a: PortInfo | null, b: PortInfo | null): boolean =>
+  a === b || (a !== null && b !== null && a.kind === b.kind && a.frequency === b.frequency && a.speed === b.speed);
+
+function modelOf(spec: KindSpec, e: Element, input: PortInfo | null): ElementModel {
+  const hit = builtModels.get(e);
+  if (hit !== undefined && hit.spec === spec && samePort(hit.input, input)) return hit.model;
+  const model = spec.build(e, input);
+  if (isPureModel(model)) builtModels.set(e, { spec, input, model });
+  return model;
+}
 
 /** Depth-first order from the source; children in the order they appear in the file. Linear in the elements. */
 export function plan(project: Project): Plan {
@@ -78,7 +99,7 @@ export function plan(project: Project): Plan {
         continue; // what hangs below cannot be built without this element's output port
       }
     }
-    const model = spec.build(e, input);
+    const model = modelOf(spec, e, input);
     if (model.problems !== undefined) for (const p of model.problems) problems.push({ ...p, elementId: e.id });
     const index = order.length;
     const role = input !== null && spec.fedRole !== undefined ? spec.fedRole : spec.role;

@@ -19,7 +19,7 @@
 import type { CableStage, ConductorSpec, Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
-import type { ConductorResult, SolveResult, SolveWarning } from '../model/result.ts';
+import type { ConductorResult, ElementResult, PathDrop, SolveResult, SolveWarning } from '../model/result.ts';
 import { abs } from '../physics/complex.ts';
 import { type ConductorCatalogue, defaultCatalogue } from '../conductors/catalogue.ts';
 import { type PreparedConductor, prepareConductor } from '../conductors/prepare.ts';
@@ -233,7 +233,7 @@ export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok
   // No link sized: the elements and warnings stand as built, only the whole-path drops are added.
   // (The plan gives each element's feeder: the result's elements are the plan's, in its order.)
   const feeders = sized.order.map((node) => node.parent);
-  if (sized.links.size === 0) return { ...result, voltageDrop: pathDrops(result.elements, limits, NO_FIGURES, NO_FIGURES, feeders) };
+  if (sized.links.size === 0) return withDrops(result, result.elements, result.warnings, pathDrops(result.elements, limits, NO_FIGURES, NO_FIGURES, feeders));
   const warnings: SolveWarning[] = [...result.warnings];
   const own = new Map<string, number>();
   const checked = new Map<string, number>();
@@ -274,5 +274,15 @@ export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok
     }
     return { ...r, conductor };
   });
-  return { ...result, elements, warnings, voltageDrop: pathDrops(elements, limits, own, checked, feeders) };
+  return withDrops(result, elements, warnings, pathDrops(elements, limits, own, checked, feeders));
 }
+
+/** The result with these elements, warnings and drops: the fields of `{ ...result, elements, warnings, voltageDrop }`, in its order, named. */
+const withDrops = (result: SolveResult, elements: ElementResult[], warnings: SolveWarning[], voltageDrop: PathDrop[]): SolveResult => ({
+  projectName: result.projectName,
+  method: result.method,
+  elements,
+  totals: result.totals,
+  warnings,
+  voltageDrop,
+});
