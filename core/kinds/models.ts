@@ -31,21 +31,22 @@ export function reactiveFromPf(p: number, pf: number, sense: PfSense = 'lagging'
 /**
  * Models that keep nothing between calls (no state: each function's answer follows from its
  * arguments and the element alone), which the plan may therefore build once per element and use in
- * every solve of it (core/solve/plan.ts). A model is in the set only as the very object a helper
- * below or a kind gave to `pureModel`: a copy (`{ ...model, report }`) is not, so a wrapper that
- * keeps state is never shared by mistake. A series link keeps the highest sending voltage it has
- * seen (`seriesLink`): its models are built afresh for every plan.
+ * every solve of it (core/solve/plan.ts). A model is marked by a field holding the model itself, so
+ * only the very object a helper below or a kind gave to `pureModel` counts: a copy
+ * (`{ ...model, report }`) carries the original's mark, which is not itself, so a wrapper that keeps
+ * state is never shared by mistake. A series link keeps the highest sending voltage it has seen
+ * (`seriesLink`): its models are built afresh for every plan.
  */
-const PURE_MODELS = new WeakSet<ElementModel>();
+const PURE = Symbol('keeps nothing between calls');
 
-/** Mark a model as keeping nothing between calls (see PURE_MODELS). */
+/** Mark a model as keeping nothing between calls (see PURE). */
 export function pureModel(model: ElementModel): ElementModel {
-  PURE_MODELS.add(model);
+  (model as { [PURE]?: ElementModel })[PURE] = model;
   return model;
 }
 
-/** Whether the plan may use this model in more than one solve (see PURE_MODELS). */
-export const isPureModel = (model: ElementModel): boolean => PURE_MODELS.has(model);
+/** Whether the plan may use this model in more than one solve (see PURE). */
+export const isPureModel = (model: ElementModel): boolean => (model as { [PURE]?: ElementModel })[PURE] === model;
 
 /**
  * A series impedance link solved exactly per phase (cables, transformer windings, source
@@ -131,9 +132,10 @@ export function regulatingConverter(opts: {
   loss: z.infer<typeof lossModelSchema>;
   /** Name of the rated quantity for messages, e.g. "rated output". */
 }): ElementModel {
-  const prepared: PreparedLoss = preparedLossOf(opts.loss);
+  const prepared: PreparedLoss = prepareLoss(opts.loss);
   const vOut = c(perPhase(opts.out.kind, opts.outputVoltage));
   const pf = opts.inputKind === 'dc' ? 1 : (opts.inputPowerFactor ?? 1);
+  const memo: LossMemo = {};
   return pureModel({
     out: opts.out,
     outputVoltage: () => vOut,
@@ -141,41 +143,32 @@ export function regulatingConverter(opts: {
       const pIn = sOut.re + prepared.loss(sOut.re).loss;
       return c(pIn, pf === 1 ? 0 : reactiveFromPf(pIn, pf, opts.inputPfSense));
     },
-    report: (sOut) => lossReport(prepared, sOut.re),
+    report: (sOut) => lossReport(prepared, sOut.re, memo),
   });
 }
 
 /**
- * The loss models made ready, by the validated loss object they were made from (a variant keeps the
- * objects of the elements it does not change, so a study's samples prepare each loss once), and
- * each prepared model's weighted efficiencies. A prepared model is a pure function of its loss
- * object, which the engine never changes (its inputs are never mutated).
+ * A prepared loss model's weighted efficiencies, worked once per model that reports them (`memo`, held
+ * by the model: a model the plan reuses, core/solve/plan.ts, works them once for all a study's
+ * samples); a fresh object each call (results share no parts). Only a cache of what the prepared
+ * model gives: the model still keeps nothing that changes an answer.
  */
-const preparedByLoss = new WeakMap<object, PreparedLoss>();
-const weightedByPrepared = new WeakMap<PreparedLoss, WeightedEfficiency | null>();
-
-/** `prepareLoss`, once per loss object (see above). */
-export function preparedLossOf(loss: z.infer<typeof lossModelSchema>): PreparedLoss {
-  let prepared = preparedByLoss.get(loss);
-  if (prepared === undefined) {
-    prepared = prepareLoss(loss);
-    preparedByLoss.set(loss, prepared);
-  }
-  return prepared;
-}
-
-/** `weightedEfficiency`, once per prepared model; a fresh object each call (results share no parts). */
-function weightedOf(prepared: PreparedLoss): WeightedEfficiency | undefined {
-  let w = weightedByPrepared.get(prepared);
+function weightedOf(prepared: PreparedLoss, memo: LossMemo | undefined): WeightedEfficiency | undefined {
+  let w = memo?.weighted;
   if (w === undefined) {
     w = weightedEfficiency(prepared) ?? null;
-    weightedByPrepared.set(prepared, w);
+    if (memo !== undefined) memo.weighted = w;
   }
   return w === null ? undefined : { euro: w.euro, cec: w.cec };
 }
 
+/** What a model keeps of its loss report's constant parts (see `weightedOf`). */
+export interface LossMemo {
+  weighted?: WeightedEfficiency | null;
+}
+
 /** Load fraction, weighted efficiencies, fit and warnings of a loss model at an operating point. */
-export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport {
+export function lossReport(prepared: PreparedLoss, pOut: number, memo?: LossMemo): ElementReport {
   const warnings: KindWarning[] = [];
   const rated = prepared.ratedPower;
   const { extrapolated } = prepared.loss(pOut);
@@ -199,7 +192,7 @@ export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport 
   }
   const report: ElementReport = { warnings };
   if (rated !== undefined) report.loadFraction = pOut / rated;
-  const weighted = weightedOf(prepared);
+  const weighted = weightedOf(prepared, memo);
   if (weighted) report.weighted = weighted;
   if (prepared.fit) report.fit = { ...prepared.fit };
   return report;

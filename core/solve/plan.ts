@@ -37,7 +37,8 @@ const builtModels = new WeakMap<Element, { spec: KindSpec; input: PortInfo | nul
 const samePort = (a: PortInfo | null, b: PortInfo | null): boolean =>
   a === b || (a !== null && b !== null && a.kind === b.kind && a.frequency === b.frequency && a.speed === b.speed);
 
-function modelOf(spec: KindSpec, e: Element, input: PortInfo | null): ElementModel {
+function modelOf(spec: KindSpec, e: Element, input: PortInfo | null, reuse: boolean): ElementModel {
+  if (!reuse) return spec.build(e, input);
   const hit = builtModels.get(e);
   if (hit !== undefined && hit.spec === spec && samePort(hit.input, input)) return hit.model;
   const model = spec.build(e, input);
@@ -45,8 +46,13 @@ function modelOf(spec: KindSpec, e: Element, input: PortInfo | null): ElementMod
   return model;
 }
 
-/** Depth-first order from the source; children in the order they appear in the file. Linear in the elements. */
-export function plan(project: Project): Plan {
+/**
+ * Depth-first order from the source; children in the order they appear in the file. Linear in the
+ * elements. With `reuseModels`, the models of elements planned before are reused (see
+ * `builtModels`): worth it for the elements of a solved project that variants solve again, not for
+ * a file's elements fresh from validation, which are solved once.
+ */
+export function plan(project: Project, reuseModels = false): Plan {
   const problems: Problem[] = [];
   const elements = project.elements;
   const n = elements.length;
@@ -99,7 +105,7 @@ export function plan(project: Project): Plan {
         continue; // what hangs below cannot be built without this element's output port
       }
     }
-    const model = modelOf(spec, e, input);
+    const model = modelOf(spec, e, input, reuseModels);
     if (model.problems !== undefined) for (const p of model.problems) problems.push({ ...p, elementId: e.id });
     const index = order.length;
     const role = input !== null && spec.fedRole !== undefined ? spec.fedRole : spec.role;

@@ -107,18 +107,18 @@ function nominalVoltages(order: readonly PlannedElement[]): number[] {
 /** Place of each element in a plan, by id (one Map per plan: a lookup per link stays constant-time). */
 const indexById = (order: readonly PlannedElement[]): Map<string, number> => new Map(order.map((n, i) => [n.element.id, i]));
 
-/** Size the conductor links and solve the chain with them in place. */
-export function sizeConductors(project: Project, catalogue: ConductorCatalogue = defaultCatalogue): Sized {
+/** Size the conductor links and solve the chain with them in place (`reuseModels`: see `plan`). */
+export function sizeConductors(project: Project, catalogue: ConductorCatalogue = defaultCatalogue, reuseModels = false): Sized {
   const specs = project.elements.filter(hasConductor);
   const limits = resolveLimits(project.dropLimits);
   if (specs.length === 0) {
-    const planned = plan(project);
+    const planned = plan(project, reuseModels);
     if (!planned.ok) return planned;
     const swept = sweep(planned.order);
     return swept.ok ? { ok: true, order: planned.order, point: swept.point, links: new Map(), passes: 0, limits } : swept;
   }
   // 1. Nominal solve: conductor links and sources ideal.
-  const nominalPlan: Plan = plan(nominalProject(project, specs));
+  const nominalPlan: Plan = plan(nominalProject(project, specs), reuseModels);
   if (!nominalPlan.ok) return nominalPlan;
   const nominalSwept = sweep(nominalPlan.order);
   if (!nominalSwept.ok) return nominalSwept;
@@ -191,7 +191,7 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
 
   // 3. Operating solve: resistance at the estimated temperature, sizes fixed.
   for (let pass = 1; pass <= MAX_PASSES; pass++) {
-    const planned = plan(resolve(project, links));
+    const planned = plan(resolve(project, links), reuseModels);
     if (!planned.ok) return planned;
     const order = planned.order;
     const swept = sweep(order);

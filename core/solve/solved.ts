@@ -21,11 +21,13 @@ export type SolveOutcome = Solved | { ok: false; problems: Problem[] };
 /**
  * The solve past validation, for a project that is valid by its type (validateProject's output, or
  * a variant built by variant.ts). Not exported from core's public
- * API: the entries are solveProject and solveVariant.
+ * API: the entries are solveProject and solveVariant. `reuseModels` (core/solve/plan.ts): the
+ * elements' models are kept for the next solve of the same elements (a variant's), and those kept
+ * are used; solveProject, whose elements come fresh from validation, passes false.
  */
-export function solveValid(project: ValidProject): SolveOutcome {
+export function solveValid(project: ValidProject, reuseModels = true): SolveOutcome {
   // Conductor links get their size and impedance; the chain is solved with them in place.
-  const sized = sizeConductors(project);
+  const sized = sizeConductors(project, undefined, reuseModels);
   if (!sized.ok) return sized;
   const built = buildResult(project.name, sized.order, sized.point);
   if (!built.ok) return built;
