@@ -66,21 +66,23 @@ export function pathDrops(
   limits: ResolvedLimits,
   perLinkOwn: ReadonlyMap<string, number> = new Map(),
   checked: ReadonlyMap<string, number> = new Map(),
-  feeders?: readonly number[],
+  planned?: { feeders: readonly number[]; regulates: readonly boolean[] },
 ): PathDrop[] {
-  // Each element's feeder (its place in the list, −1 for none: `feeders` when the caller knows them,
-  // as the solve does from its plan, else found by id) and whether it sets the voltage afresh, found
-  // once: the walks up from each load below then read arrays only.
+  // Each element's feeder (its place in the list, −1 for none) and whether it sets the voltage
+  // afresh: `planned` when the caller knows them, as the solve does from its plan, else found by id
+  // and kind; once, so that the walks up from each load below read arrays only.
   const n = elements.length;
   let parentOf: readonly number[];
-  if (feeders !== undefined && feeders.length === n) parentOf = feeders;
-  else {
+  let regulates: readonly boolean[];
+  if (planned !== undefined && planned.feeders.length === n && planned.regulates.length === n) {
+    parentOf = planned.feeders;
+    regulates = planned.regulates;
+  } else {
     const at = new Map<string, number>();
     for (let i = 0; i < n; i++) at.set(elements[i]!.id, i);
     parentOf = elements.map((e) => (e.from !== undefined ? (at.get(e.from) ?? -1) : -1));
+    regulates = elements.map((e) => regulatesVoltage(e.kind));
   }
-  const regulates: boolean[] = [];
-  for (let i = 0; i < n; i++) regulates.push(regulatesVoltage(elements[i]!.kind));
   const out: PathDrop[] = [];
   for (let li = 0; li < n; li++) {
     const load = elements[li]!;

@@ -82,22 +82,25 @@ export function buildResult(
     const children = node.children;
     const feeds: string[] = [];
     for (let k = 0; k < children.length; k++) feeds.push(order[children[k]!]!.element.id);
-    const r: ElementResult = {
-      id: e.id,
-      name: e.name ?? e.id,
-      kind: e.kind,
-      role,
-      feeds,
-      pIn,
-      pOut,
-      loss,
-      efficiency: pIn !== 0 ? pOut / pIn : 1,
-    };
+    const id = e.id;
+    const name = e.name ?? e.id;
+    const kind = e.kind;
+    const efficiency = pIn !== 0 ? pOut / pIn : 1;
+    // One literal per case (fed and feeding, fed only, feeding only), with the fields in the order
+    // the result always had them (id … efficiency, from, input, output): no fields added one by one.
+    const out = node.model.out;
+    let r: ElementResult;
     if (parent >= 0) {
-      r.from = order[parent]!.element.id;
-      r.input = portResult(node.input!, vOut[parent]!, sIn[i]!);
+      const from = order[parent]!.element.id;
+      const input = portResult(node.input!, vOut[parent]!, sIn[i]!);
+      r = out
+        ? { id, name, kind, role, feeds, pIn, pOut, loss, efficiency, from, input, output: portResult(out, vOut[i]!, sOut[i]!) }
+        : { id, name, kind, role, feeds, pIn, pOut, loss, efficiency, from, input };
+    } else {
+      r = out
+        ? { id, name, kind, role, feeds, pIn, pOut, loss, efficiency, output: portResult(out, vOut[i]!, sOut[i]!) }
+        : { id, name, kind, role, feeds, pIn, pOut, loss, efficiency };
     }
-    if (node.model.out) r.output = portResult(node.model.out, vOut[i]!, sOut[i]!);
     if (rep.loadFraction !== undefined) r.loadFraction = rep.loadFraction;
     if (rep.weighted) r.weighted = rep.weighted;
     if (rep.fit) r.fit = rep.fit;

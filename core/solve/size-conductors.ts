@@ -109,8 +109,9 @@ const indexById = (order: readonly PlannedElement[]): Map<string, number> => new
 
 /** Size the conductor links and solve the chain with them in place (`reuseModels`: see `plan`). */
 export function sizeConductors(project: Project, catalogue: ConductorCatalogue = defaultCatalogue, reuseModels = false): Sized {
-  const specs = project.elements.filter(hasConductor);
   const limits = resolveLimits(project.dropLimits);
+  // (A list of the links to size is made only when there is one: most chains give every cable's impedance.)
+  const specs = project.elements.some(hasConductor) ? project.elements.filter(hasConductor) : [];
   if (specs.length === 0) {
     const planned = plan(project, reuseModels);
     if (!planned.ok) return planned;
@@ -231,9 +232,10 @@ const NO_FIGURES: ReadonlyMap<string, number> = new Map();
 export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok: true }>): SolveResult {
   const limits = sized.limits;
   // No link sized: the elements and warnings stand as built, only the whole-path drops are added.
-  // (The plan gives each element's feeder: the result's elements are the plan's, in its order.)
-  const feeders = sized.order.map((node) => node.parent);
-  if (sized.links.size === 0) return withDrops(result, result.elements, result.warnings, pathDrops(result.elements, limits, NO_FIGURES, NO_FIGURES, feeders));
+  // (The plan gives each element's feeder and kind traits: the result's elements are the plan's, in its order.)
+  const order = sized.order;
+  const planned = { feeders: order.map((node) => node.parent), regulates: order.map((node) => node.spec.regulatesVoltage === true) };
+  if (sized.links.size === 0) return withDrops(result, result.elements, result.warnings, pathDrops(result.elements, limits, NO_FIGURES, NO_FIGURES, planned));
   const warnings: SolveWarning[] = [...result.warnings];
   const own = new Map<string, number>();
   const checked = new Map<string, number>();
@@ -274,7 +276,7 @@ export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok
     }
     return { ...r, conductor };
   });
-  return withDrops(result, elements, warnings, pathDrops(elements, limits, own, checked, feeders));
+  return withDrops(result, elements, warnings, pathDrops(elements, limits, own, checked, planned));
 }
 
 /** The result with these elements, warnings and drops: the fields of `{ ...result, elements, warnings, voltageDrop }`, in its order, named. */
