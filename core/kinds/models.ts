@@ -54,6 +54,8 @@ export const isPureModel = (model: ElementModel): boolean => (model as { [PURE]?
  */
 export function seriesLink(z: Complex, kind: PortKind) {
   const m = phaseCount(kind);
+  /** |Z|, worked once (the same figure each call would give). */
+  const absZ = abs(z);
   /** The highest sending voltage magnitude seen by `inputPower` (see there). */
   let highestSend = 0;
   return {
@@ -110,10 +112,12 @@ export function seriesLink(z: Complex, kind: PortKind) {
       let i = abs(sOut) / m / abs(vOut);
       if (vSend !== undefined) {
         highestSend = Math.max(highestSend, abs(vSend));
-        const atMaxTransfer = highestSend / (2 * abs(z));
+        const atMaxTransfer = highestSend / (2 * absZ);
         if (i > atMaxTransfer && receivingVoltage(vSend, z, scale(sOut, 1 / m)) === null) i = atMaxTransfer;
       }
-      return add(sOut, scale(z, m * i * i));
+      // add(sOut, scale(z, k)) in one object: the same products and sums.
+      const k = m * i * i;
+      return { re: sOut.re + z.re * k, im: sOut.im + z.im * k };
     },
   };
 }

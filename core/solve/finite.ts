@@ -9,7 +9,7 @@
  */
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
-import type { ElementResult, PathDrop, PortResult, SolveResult, SolveWarning } from '../model/result.ts';
+import type { ElementResult, LossFitReport, PathDrop, PortResult, SolveResult, SolveWarning, WeightedEfficiency } from '../model/result.ts';
 
 /** One number that is not finite, where it sits, and the element it belongs to. */
 export interface NonFiniteFigure {
@@ -119,13 +119,16 @@ export const RESULT_LAYOUT = {
     totalLimitPercent: 'figure', limitBasis: 'text', exceedsLimit: 'text',
   } satisfies Layout<PathDrop>,
   pathLink: { id: 'text', dropPercent: 'figure', exceedsLimit: 'text' } satisfies Layout<PathDrop['links'][number]>,
+  weighted: { euro: 'figure', cec: 'figure' } satisfies Layout<WeightedEfficiency>,
+  fit: { p0: 'figure', k1: 'figure', k2: 'figure', rmsLossError: 'figure', maxEfficiencyError: 'figure' } satisfies Layout<LossFitReport>,
 } as const;
 
 /**
  * The quick read of a solve result, by name, as core/model/result.ts lays it out (RESULT_LAYOUT):
- * the objects core/solve/report.ts (`buildResult`, `portResult`) and core/conductors/path-drop.ts
- * build key by key are read field by field; the parts built elsewhere (a kind's weighted
- * efficiencies and loss fit, a sized conductor's working, a warning's values) by the generic quick
+ * the objects built key by key — by core/solve/report.ts (`buildResult`, `portResult`),
+ * core/conductors/path-drop.ts, and the weighted efficiencies and loss fit (core/kinds/models.ts
+ * `lossReport`, core/physics/loss-model.ts `fitLossPolynomial`) — are read field by field; the
+ * parts built in many places (a sized conductor's working, a warning's values) by the generic quick
  * look. Method: each figure x adds x·0 to a sum, which stays 0 only when every x is finite (NaN·0
  * and ±Infinity·0 are NaN, and a NaN stays in the sum); true as soon as a quick look says "may".
  */
@@ -138,7 +141,11 @@ function solveResultMayHoldNonFinite(r: SolveResult): boolean {
   for (let i = 0; i < elements.length; i++) {
     const e = elements[i]!;
     s += z(e.pIn) + z(e.pOut) + z(e.loss) + z(e.efficiency) + zo(e.idleLoss) + zo(e.loadFraction) + portZ(e.input) + portZ(e.output);
-    if ((e.weighted !== undefined && quickLook(e.weighted, 1)) || (e.fit !== undefined && quickLook(e.fit, 1)) || (e.conductor !== undefined && quickLook(e.conductor, 1))) return true;
+    const w = e.weighted;
+    if (w !== undefined) s += z(w.euro) + z(w.cec);
+    const f = e.fit;
+    if (f !== undefined) s += z(f.p0) + z(f.k1) + z(f.k2) + z(f.rmsLossError) + z(f.maxEfficiencyError);
+    if (e.conductor !== undefined && quickLook(e.conductor, 1)) return true;
   }
   for (const w of r.warnings) if (w.values !== undefined && quickLook(w.values, 1)) return true;
   const drops = r.voltageDrop;

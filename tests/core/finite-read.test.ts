@@ -91,6 +91,8 @@ describe('the quick read of a solve result sees every figure', () => {
       for (const e of r.elements) {
         for (const k of Object.keys(e)) note('element', k);
         for (const p of [e.input, e.output]) if (p) for (const k of Object.keys(p)) note('port', k);
+        if (e.weighted) for (const k of Object.keys(e.weighted)) note('weighted', k);
+        if (e.fit) for (const k of Object.keys(e.fit)) note('fit', k);
       }
       for (const w of r.warnings) for (const k of Object.keys(w)) note('warning', k);
       for (const d of r.voltageDrop ?? []) {
