@@ -54,7 +54,7 @@ export function resolveLimits(limits: DropLimits | undefined): ResolvedLimits {
   const total = limits?.totalPercent ?? base.total;
   const overridden = limits?.perLinkPercent !== undefined || limits?.totalPercent !== undefined;
   const basis = overridden ? `chosen by the user (${perLink !== undefined ? `${perLink} % per link, ` : ''}${total} % total)` : base.words;
-  return { ...(perLink !== undefined ? { perLinkPercent: perLink } : {}), totalPercent: total, basis };
+  return perLink !== undefined ? { perLinkPercent: perLink, totalPercent: total, basis } : { totalPercent: total, basis };
 }
 
 /** The allowed drop on one link for sizing: its own setting, else the per-link limit, else the total. */
@@ -66,21 +66,36 @@ export function pathDrops(
   limits: ResolvedLimits,
   perLinkOwn: ReadonlyMap<string, number> = new Map(),
   checked: ReadonlyMap<string, number> = new Map(),
+  planned?: { feeders: readonly number[]; regulates: readonly boolean[] },
 ): PathDrop[] {
-  const byId = new Map(elements.map((e) => [e.id, e]));
+  // Each element's feeder (its place in the list, −1 for none) and whether it sets the voltage
+  // afresh: `planned` when the caller knows them, as the solve does from its plan, else found by id
+  // and kind; once, so that the walks up from each load below read arrays only.
+  const n = elements.length;
+  let parentOf: readonly number[];
+  let regulates: readonly boolean[];
+  if (planned !== undefined && planned.feeders.length === n && planned.regulates.length === n) {
+    parentOf = planned.feeders;
+    regulates = planned.regulates;
+  } else {
+    const at = new Map<string, number>();
+    for (let i = 0; i < n; i++) at.set(elements[i]!.id, i);
+    parentOf = elements.map((e) => (e.from !== undefined ? (at.get(e.from) ?? -1) : -1));
+    regulates = elements.map((e) => regulatesVoltage(e.kind));
+  }
   const out: PathDrop[] = [];
-  for (const load of elements) {
-    if (load.role !== 'load' && !regulatesVoltage(load.kind)) continue;
+  for (let li = 0; li < n; li++) {
+    const load = elements[li]!;
+    if (load.role !== 'load' && !regulates[li]) continue;
     const links: PathDrop['links'] = [];
     let terminal: ElementResult = load;
-    let at: ElementResult | undefined = load;
+    let k = li;
     let start: ElementResult | undefined;
-    while (at) {
-      const parent: ElementResult | undefined = at.from !== undefined ? byId.get(at.from) : undefined;
-      if (!parent) break;
+    for (let pk = parentOf[k]!; pk >= 0; k = pk, pk = parentOf[k]!) {
+      const parent = elements[pk]!;
       // The load's electrical terminals: for a shaft load, the motor's input.
       if (terminal.input?.kind === 'shaft' && parent.input && parent.input.kind !== 'shaft') terminal = parent;
-      if (parent.role === 'source' || regulatesVoltage(parent.kind)) {
+      if (parent.role === 'source' || regulates[pk]) {
         start = parent;
         break;
       }
@@ -92,24 +107,25 @@ export function pathDrops(
         // Collected load-first, put in source-first order below (one reverse, not a shift per link).
         links.push({ id: parent.id, dropPercent: pct, exceedsLimit: pct > limit * (1 + 1e-12) });
       }
-      at = parent;
     }
     if (!start?.output) continue;
     links.reverse();
-    const totalPercent = links.reduce((s, l) => s + l.dropPercent, 0);
-    const exceeds = totalPercent > limits.totalPercent * (1 + 1e-12) || links.some((l) => l.exceedsLimit);
-    out.push({
-      loadId: load.id,
-      startId: start.id,
-      startVoltage: start.output.voltage,
-      loadVoltage: terminal.input?.voltage ?? 0,
-      links,
-      totalPercent,
-      ...(limits.perLinkPercent !== undefined ? { perLinkLimitPercent: limits.perLinkPercent } : {}),
-      totalLimitPercent: limits.totalPercent,
-      limitBasis: limits.basis,
-      exceedsLimit: exceeds,
-    });
+    // Σ in source-first order from 0 (as a reduce would), and whether any link is over its limit.
+    let totalPercent = 0;
+    let anyOver = false;
+    for (let j = 0; j < links.length; j++) {
+      totalPercent += links[j]!.dropPercent;
+      if (links[j]!.exceedsLimit) anyOver = true;
+    }
+    const exceeds = totalPercent > limits.totalPercent * (1 + 1e-12) || anyOver;
+    const startVoltage = start.output.voltage;
+    const loadVoltage = terminal.input?.voltage ?? 0;
+    // Two literals rather than a spread: the same fields in the same order, with or without the per-link limit.
+    out.push(
+      limits.perLinkPercent !== undefined
+        ? { loadId: load.id, startId: start.id, startVoltage, loadVoltage, links, totalPercent, perLinkLimitPercent: limits.perLinkPercent, totalLimitPercent: limits.totalPercent, limitBasis: limits.basis, exceedsLimit: exceeds }
+        : { loadId: load.id, startId: start.id, startVoltage, loadVoltage, links, totalPercent, totalLimitPercent: limits.totalPercent, limitBasis: limits.basis, exceedsLimit: exceeds },
+    );
   }
   return out;
 }

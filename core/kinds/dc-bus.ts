@@ -2,7 +2,7 @@
 import { z } from 'zod/mini';
 import type { DcBusStage } from '../model/project.ts';
 import { c } from '../physics/complex.ts';
-import { defineKind, fromField, idField, nameField, nominalPort } from './spec.ts';
+import { defineKind, fromField, idField, nameField, nominalPort, pureModel } from './spec.ts';
 import { ranged } from './ranges.ts';
 
 export const dcBusKind = defineKind<DcBusStage>({
@@ -20,11 +20,12 @@ export const dcBusKind = defineKind<DcBusStage>({
   // The voltage it is fed at.
   nominalOutput: (_e, input) => (input && input.kind === 'dc' ? input : nominalPort('dc')),
   dcEquivalent: (e) => ({ resistance: 0, fixedLoss: e.fixedLoss }),
-  build: (e) => ({
-    out: { kind: 'dc' },
-    passesVoltage: true,
-    outputVoltage: (vIn) => vIn,
-    inputPower: (sOut) => c(sOut.re + e.fixedLoss),
-    report: () => ({ warnings: [] }),
-  }),
+  build: (e) =>
+    pureModel({
+      out: { kind: 'dc' },
+      passesVoltage: true,
+      outputVoltage: (vIn) => vIn,
+      inputPower: (sOut) => c(sOut.re + e.fixedLoss),
+      report: () => ({ warnings: [] }),
+    }),
 });

@@ -15,6 +15,7 @@ import { type Complex, ZERO, abs, add, arg, c, conj, div, mul, polar, scale, sub
 import { receivingVoltage } from '../physics/two-bus.ts';
 import { type PreparedLoss, prepareLoss, weightedEfficiency } from '../physics/loss-model.ts';
 import type { DirectLoads, ElementModel, ElementReport, KindWarning, PortInfo, lossModelSchema } from './spec.ts';
+import type { WeightedEfficiency } from '../model/result.ts';
 
 export const phaseCount = (kind: PortKind): number => (kind === 'ac3' ? 3 : 1);
 
@@ -28,11 +29,33 @@ export function reactiveFromPf(p: number, pf: number, sense: PfSense = 'lagging'
 }
 
 /**
+ * Models that keep nothing between calls (no state: each function's answer follows from its
+ * arguments and the element alone), which the plan may therefore build once per element and use in
+ * every solve of it (core/solve/plan.ts). A model is marked by a field holding the model itself, so
+ * only the very object a helper below or a kind gave to `pureModel` counts: a copy
+ * (`{ ...model, report }`) carries the original's mark, which is not itself, so a wrapper that keeps
+ * state is never shared by mistake. A series link keeps the highest sending voltage it has seen
+ * (`seriesLink`): its models are built afresh for every plan.
+ */
+const PURE = Symbol('keeps nothing between calls');
+
+/** Mark a model as keeping nothing between calls (see PURE). */
+export function pureModel(model: ElementModel): ElementModel {
+  (model as { [PURE]?: ElementModel })[PURE] = model;
+  return model;
+}
+
+/** Whether the plan may use this model in more than one solve (see PURE). */
+export const isPureModel = (model: ElementModel): boolean => (model as { [PURE]?: ElementModel })[PURE] === model;
+
+/**
  * A series impedance link solved exactly per phase (cables, transformer windings, source
  * impedance). `z` is the per-phase impedance: the loop impedance on DC and single-phase.
  */
 export function seriesLink(z: Complex, kind: PortKind) {
   const m = phaseCount(kind);
+  /** |Z|, worked once (the same figure each call would give). */
+  const absZ = abs(z);
   /** The highest sending voltage magnitude seen by `inputPower` (see there). */
   let highestSend = 0;
   return {
@@ -89,10 +112,12 @@ export function seriesLink(z: Complex, kind: PortKind) {
       let i = abs(sOut) / m / abs(vOut);
       if (vSend !== undefined) {
         highestSend = Math.max(highestSend, abs(vSend));
-        const atMaxTransfer = highestSend / (2 * abs(z));
+        const atMaxTransfer = highestSend / (2 * absZ);
         if (i > atMaxTransfer && receivingVoltage(vSend, z, scale(sOut, 1 / m)) === null) i = atMaxTransfer;
       }
-      return add(sOut, scale(z, m * i * i));
+      // add(sOut, scale(z, k)) in one object: the same products and sums.
+      const k = m * i * i;
+      return { re: sOut.re + z.re * k, im: sOut.im + z.im * k };
     },
   };
 }
@@ -114,19 +139,40 @@ export function regulatingConverter(opts: {
   const prepared: PreparedLoss = prepareLoss(opts.loss);
   const vOut = c(perPhase(opts.out.kind, opts.outputVoltage));
   const pf = opts.inputKind === 'dc' ? 1 : (opts.inputPowerFactor ?? 1);
-  return {
+  const memo: LossMemo = {};
+  return pureModel({
     out: opts.out,
     outputVoltage: () => vOut,
     inputPower: (sOut) => {
       const pIn = sOut.re + prepared.loss(sOut.re).loss;
       return c(pIn, pf === 1 ? 0 : reactiveFromPf(pIn, pf, opts.inputPfSense));
     },
-    report: (sOut) => lossReport(prepared, sOut.re),
-  };
+    report: (sOut) => lossReport(prepared, sOut.re, memo),
+  });
+}
+
+/**
+ * A prepared loss model's weighted efficiencies, worked once per model that reports them (`memo`, held
+ * by the model: a model the plan reuses, core/solve/plan.ts, works them once for all a study's
+ * samples); a fresh object each call (results share no parts). Only a cache of what the prepared
+ * model gives: the model still keeps nothing that changes an answer.
+ */
+function weightedOf(prepared: PreparedLoss, memo: LossMemo | undefined): WeightedEfficiency | undefined {
+  let w = memo?.weighted;
+  if (w === undefined) {
+    w = weightedEfficiency(prepared) ?? null;
+    if (memo !== undefined) memo.weighted = w;
+  }
+  return w === null ? undefined : { euro: w.euro, cec: w.cec };
+}
+
+/** What a model keeps of its loss report's constant parts (see `weightedOf`). */
+export interface LossMemo {
+  weighted?: WeightedEfficiency | null;
 }
 
 /** Load fraction, weighted efficiencies, fit and warnings of a loss model at an operating point. */
-export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport {
+export function lossReport(prepared: PreparedLoss, pOut: number, memo?: LossMemo): ElementReport {
   const warnings: KindWarning[] = [];
   const rated = prepared.ratedPower;
   const { extrapolated } = prepared.loss(pOut);
@@ -150,9 +196,9 @@ export function lossReport(prepared: PreparedLoss, pOut: number): ElementReport 
   }
   const report: ElementReport = { warnings };
   if (rated !== undefined) report.loadFraction = pOut / rated;
-  const weighted = weightedEfficiency(prepared);
+  const weighted = weightedOf(prepared, memo);
   if (weighted) report.weighted = weighted;
-  if (prepared.fit) report.fit = prepared.fit;
+  if (prepared.fit) report.fit = { ...prepared.fit };
   return report;
 }
 
@@ -161,12 +207,12 @@ export const fmtPct = (x: number): string => `${figure(x * 100, 1)} %`;
 
 /** A load: constant complex power regardless of voltage. */
 export function constantPowerLoad(s: Complex): ElementModel {
-  return {
+  return pureModel({
     out: null,
     outputVoltage: () => ZERO,
     inputPower: () => s,
     report: () => ({ warnings: [] }),
-  };
+  });
 }
 
 /**
@@ -177,11 +223,11 @@ export function constantPowerLoad(s: Complex): ElementModel {
 export function constantCurrentLoad(j: Complex, kind: PortKind): ElementModel {
   const m = phaseCount(kind);
   const sPerVolt = scale(conj(j), m);
-  return {
+  return pureModel({
     out: null,
     current: j,
     outputVoltage: () => ZERO,
     inputPower: (_sOut, vIn) => scale(sPerVolt, abs(vIn)),
     report: () => ({ warnings: [] }),
-  };
+  });
 }

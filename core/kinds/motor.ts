@@ -15,7 +15,7 @@ import { z } from 'zod/mini';
 import type { MotorStage, PowerFactorModel } from '../model/project.ts';
 import { c } from '../physics/complex.ts';
 import { prepareLoss, interpolate } from '../physics/loss-model.ts';
-import { checkLossModel, checkPoints, defineKind, efficiencyField, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, reactiveFromPf, unitFraction, type ElementReport, type KindWarning } from './spec.ts';
+import { checkLossModel, checkPoints, defineKind, efficiencyField, fmtPct, fmtW, fromField, idField, lossModelSchema, lossReport, nameField, pureModel, reactiveFromPf, unitFraction, type ElementReport, type KindWarning, type LossMemo } from './spec.ts';
 import { MOTOR_CLASSES, motorRating, ratedAt } from '../physics/motor-rating.ts';
 import { checkStarting, startingSchema } from './starting-fields.ts';
 import { ranged } from './ranges.ts';
@@ -110,8 +110,9 @@ export const motorKind = defineKind<MotorStage>({
     };
     const r = motorRating(e);
     const rating = r.ok ? r.rating : undefined;
+    // Both models keep nothing between calls (pureModel: the plan may reuse them).
     if (rating) {
-      return {
+      return pureModel({
         out,
         outputVoltage: () => c(0),
         inputPower(sOut) {
@@ -128,12 +129,13 @@ export const motorKind = defineKind<MotorStage>({
           }
           return { loadFraction: x, warnings, problems: overload(x, sOut.re) };
         },
-      };
+      });
     }
     const loss = e.loss!;
     const pfModelOf = e.powerFactor!;
     const prepared = prepareLoss(loss.model === 'constant' && loss.ratedPower === undefined ? { ...loss, ratedPower: e.ratedOutput } : loss);
-    return {
+    const memo: LossMemo = {};
+    return pureModel({
       out,
       outputVoltage: () => c(0),
       inputPower(sOut) {
@@ -142,12 +144,12 @@ export const motorKind = defineKind<MotorStage>({
       },
       report(sOut) {
         const x = sOut.re / e.ratedOutput;
-        const { warnings, fit } = lossReport(prepared, sOut.re);
+        const { warnings, fit } = lossReport(prepared, sOut.re, memo);
         const kept = warnings.filter((w) => w.code !== 'rating-exceeded');
         kept.push(...loadWarnings(x, sOut.re));
         return { loadFraction: x, warnings: kept, problems: overload(x, sOut.re), ...(fit ? { fit } : {}) };
       },
-    };
+    });
   },
 });
 

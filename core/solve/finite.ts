@@ -9,6 +9,7 @@
  */
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
+import type { ElementResult, LossFitReport, PathDrop, PortResult, SolveResult, SolveWarning, WeightedEfficiency } from '../model/result.ts';
 
 /** One number that is not finite, where it sits, and the element it belongs to. */
 export interface NonFiniteFigure {
@@ -79,6 +80,96 @@ function mayHoldNonFinite(value: unknown): boolean {
   if (!isRecord(value)) return false;
   quickLeft = QUICK_OBJECTS;
   return quickLook(value, 0);
+}
+
+/** 0 for a finite number, NaN for anything else (NaN, ±Infinity, and a value that is not a number). */
+const z = (x: number): number => x * 0;
+/** The same for an optional figure: absent counts as finite. */
+const zo = (x: number | undefined): number => (x === undefined ? 0 : x * 0);
+
+/** `z` summed over a port's figures (its phasors included). */
+function portZ(p: PortResult | undefined): number {
+  if (p === undefined) return 0;
+  let s = z(p.voltage) + z(p.current) + z(p.p) + z(p.q) + z(p.s) + z(p.powerFactor) + zo(p.frequency) + zo(p.speed);
+  const ph = p.phasor;
+  if (ph !== undefined) s += z(ph.voltage.re) + z(ph.voltage.im) + z(ph.current.re) + z(ph.current.im);
+  return s;
+}
+
+/** How the quick read of a solve result reads a field: a figure by name, an object by `quickLook` or by name, or not at all (text). */
+type How<V> = NonNullable<V> extends number ? 'figure' : NonNullable<V> extends string | boolean | readonly string[] ? 'text' : 'object';
+type Layout<T> = { readonly [K in keyof Required<T>]-?: How<T[K]> };
+/*
+ * The layouts `solveResultMayHoldNonFinite` reads, one entry per field of each type: a field added
+ * to one of these types does not compile until it is listed here, which sends its author to the
+ * reading below.
+ */
+export const RESULT_LAYOUT = {
+  result: { projectName: 'text', method: 'object', elements: 'object', totals: 'object', warnings: 'object', voltageDrop: 'object' } satisfies Layout<SolveResult>,
+  method: { name: 'text', tolerance: 'figure', iterations: 'figure', residual: 'figure' } satisfies Layout<SolveResult['method']>,
+  totals: { sourcePower: 'figure', loadPower: 'figure', losses: 'figure', balanceError: 'figure', efficiency: 'figure' } satisfies Layout<SolveResult['totals']>,
+  element: {
+    id: 'text', name: 'text', kind: 'text', role: 'text', from: 'text', feeds: 'text', input: 'object', output: 'object', pIn: 'figure', pOut: 'figure',
+    loss: 'figure', idleLoss: 'figure', efficiency: 'figure', loadFraction: 'figure', weighted: 'object', fit: 'object', conductor: 'object',
+  } satisfies Layout<ElementResult>,
+  port: { kind: 'text', voltage: 'figure', frequency: 'figure', current: 'figure', p: 'figure', q: 'figure', s: 'figure', powerFactor: 'figure', pfSense: 'text', phasor: 'object', speed: 'figure' } satisfies Layout<PortResult>,
+  warning: { code: 'text', elementId: 'text', message: 'text', template: 'text', values: 'object' } satisfies Layout<SolveWarning>,
+  pathDrop: {
+    loadId: 'text', startId: 'text', startVoltage: 'figure', loadVoltage: 'figure', links: 'object', totalPercent: 'figure', perLinkLimitPercent: 'figure',
+    totalLimitPercent: 'figure', limitBasis: 'text', exceedsLimit: 'text',
+  } satisfies Layout<PathDrop>,
+  pathLink: { id: 'text', dropPercent: 'figure', exceedsLimit: 'text' } satisfies Layout<PathDrop['links'][number]>,
+  weighted: { euro: 'figure', cec: 'figure' } satisfies Layout<WeightedEfficiency>,
+  fit: { p0: 'figure', k1: 'figure', k2: 'figure', rmsLossError: 'figure', maxEfficiencyError: 'figure' } satisfies Layout<LossFitReport>,
+} as const;
+
+/**
+ * The quick read of a solve result, by name, as core/model/result.ts lays it out (RESULT_LAYOUT):
+ * the objects built key by key — by core/solve/report.ts (`buildResult`, `portResult`),
+ * core/conductors/path-drop.ts, and the weighted efficiencies and loss fit (core/kinds/models.ts
+ * `lossReport`, core/physics/loss-model.ts `fitLossPolynomial`) — are read field by field; the
+ * parts built in many places (a sized conductor's working, a warning's values) by the generic quick
+ * look. Method: each figure x adds x·0 to a sum, which stays 0 only when every x is finite (NaN·0
+ * and ±Infinity·0 are NaN, and a NaN stays in the sum); true as soon as a quick look says "may".
+ */
+function solveResultMayHoldNonFinite(r: SolveResult): boolean {
+  const m = r.method;
+  const t = r.totals;
+  let s = z(m.tolerance) + z(m.iterations) + z(m.residual) + z(t.sourcePower) + z(t.loadPower) + z(t.losses) + z(t.balanceError) + z(t.efficiency);
+  quickLeft = QUICK_OBJECTS;
+  const elements = r.elements;
+  for (let i = 0; i < elements.length; i++) {
+    const e = elements[i]!;
+    s += z(e.pIn) + z(e.pOut) + z(e.loss) + z(e.efficiency) + zo(e.idleLoss) + zo(e.loadFraction) + portZ(e.input) + portZ(e.output);
+    const w = e.weighted;
+    if (w !== undefined) s += z(w.euro) + z(w.cec);
+    const f = e.fit;
+    if (f !== undefined) s += z(f.p0) + z(f.k1) + z(f.k2) + z(f.rmsLossError) + z(f.maxEfficiencyError);
+    if (e.conductor !== undefined && quickLook(e.conductor, 1)) return true;
+  }
+  for (const w of r.warnings) if (w.values !== undefined && quickLook(w.values, 1)) return true;
+  const drops = r.voltageDrop;
+  if (drops !== undefined) {
+    for (let i = 0; i < drops.length; i++) {
+      const d = drops[i]!;
+      s += z(d.startVoltage) + z(d.loadVoltage) + z(d.totalPercent) + z(d.totalLimitPercent) + zo(d.perLinkLimitPercent);
+      const links = d.links;
+      for (let k = 0; k < links.length; k++) s += z(links[k]!.dropPercent);
+    }
+  }
+  return s !== 0;
+}
+
+/**
+ * Whether a solve result may hold a number that is not finite (see `solveResultMayHoldNonFinite`):
+ * false only when every figure was read and is finite; true sends the solve to the full walk
+ * (`nonFiniteProblems`), which decides and names. Used by the solve on every result
+ * (core/solve/solved.ts): reading the known fields by name is several times quicker than a walk by
+ * keys. It trusts the result's layout (RESULT_LAYOUT; tests/core/finite-read.test.ts poisons every figure
+ * of solved results one by one, each demo's and the reference cases', and checks that each is seen).
+ */
+export function resultMayHoldNonFinite(result: SolveResult): boolean {
+  return solveResultMayHoldNonFinite(result);
 }
 
 /**

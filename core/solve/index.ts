@@ -30,7 +30,8 @@ export function solveProject(input: unknown): SolveOutcome {
     return { ok: false, problems: ports && !ports.ok ? [...valid.problems, ...ports.problems] : valid.problems };
   }
   countSolveStep('solves');
-  return solveValid(valid.project);
+  // Fresh from validation, these elements are solved once here: no models kept (core/solve/plan.ts).
+  return solveValid(valid.project, false);
 }
 
 /** Like solveProject, but throws a ProjectError listing every problem. */

@@ -18,8 +18,11 @@ const UNITY_BAND = 1e-9;
 /** V, I, P, Q, S, pf and phasors at a port carrying total power s at per-phase voltage v. */
 export function portResult(port: PortInfo, v: Complex, s: Complex): PortResult {
   const kind: PortKind = port.kind;
+  // (Literals with and without the optional field rather than a spread: the same fields in the same order.)
   if (kind === 'shaft') {
-    return { kind, voltage: 0, current: 0, p: s.re, q: 0, s: Math.abs(s.re), powerFactor: 1, pfSense: 'unity', ...(port.speed !== undefined ? { speed: port.speed } : {}) };
+    return port.speed !== undefined
+      ? { kind, voltage: 0, current: 0, p: s.re, q: 0, s: Math.abs(s.re), powerFactor: 1, pfSense: 'unity', speed: port.speed }
+      : { kind, voltage: 0, current: 0, p: s.re, q: 0, s: Math.abs(s.re), powerFactor: 1, pfSense: 'unity' };
   }
   const vPhase = abs(v);
   if (kind === 'dc') {
@@ -28,18 +31,14 @@ export function portResult(port: PortInfo, v: Complex, s: Complex): PortResult {
   const m = phaseCount(kind);
   const sMag = abs(s);
   const iPhasor = vPhase > 0 ? conj(div(scale(s, 1 / m), v)) : { re: 0, im: 0 };
-  return {
-    kind,
-    voltage: kind === 'ac3' ? vPhase * Math.sqrt(3) : vPhase,
-    ...(port.frequency !== undefined ? { frequency: port.frequency } : {}),
-    current: abs(iPhasor),
-    p: s.re,
-    q: s.im,
-    s: sMag,
-    powerFactor: sMag > 0 ? Math.abs(s.re) / sMag : 1,
-    pfSense: Math.abs(s.im) <= UNITY_BAND * sMag ? 'unity' : s.im > 0 ? 'lagging' : 'leading',
-    phasor: { voltage: { re: v.re, im: v.im }, current: { re: iPhasor.re, im: iPhasor.im } },
-  };
+  const voltage = kind === 'ac3' ? vPhase * Math.sqrt(3) : vPhase;
+  const current = abs(iPhasor);
+  const powerFactor = sMag > 0 ? Math.abs(s.re) / sMag : 1;
+  const pfSense = Math.abs(s.im) <= UNITY_BAND * sMag ? 'unity' : s.im > 0 ? 'lagging' : 'leading';
+  const phasor = { voltage: { re: v.re, im: v.im }, current: { re: iPhasor.re, im: iPhasor.im } };
+  return port.frequency !== undefined
+    ? { kind, voltage, frequency: port.frequency, current, p: s.re, q: s.im, s: sMag, powerFactor, pfSense, phasor }
+    : { kind, voltage, current, p: s.re, q: s.im, s: sMag, powerFactor, pfSense, phasor };
 }
 
 /** The elements node `i` feeds, looked through pass-through stages (cables, buses) to what they feed. */
@@ -75,25 +74,33 @@ export function buildResult(
     }
     const vIn = parent < 0 ? vOut[i]! : vOut[parent]!;
     const rep = node.model.report(sOut[i]!, sIn[i]!, vIn);
-    for (const w of rep.warnings) warnings.push({ ...w, elementId: e.id });
-    for (const w of node.spec.fedWarnings?.(e, fedThrough(order, i)) ?? []) warnings.push({ ...w, elementId: e.id });
-    for (const p of rep.problems ?? []) problems.push({ ...p, elementId: e.id });
-    const r: ElementResult = {
-      id: e.id,
-      name: e.name ?? e.id,
-      kind: e.kind,
-      role,
-      feeds: node.children.map((c) => order[c]!.element.id),
-      pIn,
-      pOut,
-      loss,
-      efficiency: pIn !== 0 ? pOut / pIn : 1,
-    };
+    // (Index loops, and the lists read only when there are any: this runs for every element of every solve.)
+    const own = rep.warnings;
+    for (let k = 0; k < own.length; k++) warnings.push({ ...own[k]!, elementId: e.id });
+    if (node.spec.fedWarnings !== undefined) for (const w of node.spec.fedWarnings(e, fedThrough(order, i))) warnings.push({ ...w, elementId: e.id });
+    if (rep.problems !== undefined) for (const p of rep.problems) problems.push({ ...p, elementId: e.id });
+    const children = node.children;
+    const feeds: string[] = [];
+    for (let k = 0; k < children.length; k++) feeds.push(order[children[k]!]!.element.id);
+    const id = e.id;
+    const name = e.name ?? e.id;
+    const kind = e.kind;
+    const efficiency = pIn !== 0 ? pOut / pIn : 1;
+    // One literal per case (fed and feeding, fed only, feeding only), with the fields in the order
+    // the result always had them (id … efficiency, from, input, output): no fields added one by one.
+    const out = node.model.out;
+    let r: ElementResult;
     if (parent >= 0) {
-      r.from = order[parent]!.element.id;
-      r.input = portResult(node.input!, vOut[parent]!, sIn[i]!);
+      const from = order[parent]!.element.id;
+      const input = portResult(node.input!, vOut[parent]!, sIn[i]!);
+      r = out
+        ? { id, name, kind, role, feeds, pIn, pOut, loss, efficiency, from, input, output: portResult(out, vOut[i]!, sOut[i]!) }
+        : { id, name, kind, role, feeds, pIn, pOut, loss, efficiency, from, input };
+    } else {
+      r = out
+        ? { id, name, kind, role, feeds, pIn, pOut, loss, efficiency, output: portResult(out, vOut[i]!, sOut[i]!) }
+        : { id, name, kind, role, feeds, pIn, pOut, loss, efficiency };
     }
-    if (node.model.out) r.output = portResult(node.model.out, vOut[i]!, sOut[i]!);
     if (rep.loadFraction !== undefined) r.loadFraction = rep.loadFraction;
     if (rep.weighted) r.weighted = rep.weighted;
     if (rep.fit) r.fit = rep.fit;

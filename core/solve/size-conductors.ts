@@ -19,7 +19,7 @@
 import type { CableStage, ConductorSpec, Element, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
-import type { ConductorResult, SolveResult, SolveWarning } from '../model/result.ts';
+import type { ConductorResult, ElementResult, PathDrop, SolveResult, SolveWarning } from '../model/result.ts';
 import { abs } from '../physics/complex.ts';
 import { type ConductorCatalogue, defaultCatalogue } from '../conductors/catalogue.ts';
 import { type PreparedConductor, prepareConductor } from '../conductors/prepare.ts';
@@ -107,18 +107,19 @@ function nominalVoltages(order: readonly PlannedElement[]): number[] {
 /** Place of each element in a plan, by id (one Map per plan: a lookup per link stays constant-time). */
 const indexById = (order: readonly PlannedElement[]): Map<string, number> => new Map(order.map((n, i) => [n.element.id, i]));
 
-/** Size the conductor links and solve the chain with them in place. */
-export function sizeConductors(project: Project, catalogue: ConductorCatalogue = defaultCatalogue): Sized {
-  const specs = project.elements.filter(hasConductor);
+/** Size the conductor links and solve the chain with them in place (`reuseModels`: see `plan`). */
+export function sizeConductors(project: Project, catalogue: ConductorCatalogue = defaultCatalogue, reuseModels = false): Sized {
   const limits = resolveLimits(project.dropLimits);
+  // (A list of the links to size is made only when there is one: most chains give every cable's impedance.)
+  const specs = project.elements.some(hasConductor) ? project.elements.filter(hasConductor) : [];
   if (specs.length === 0) {
-    const planned = plan(project);
+    const planned = plan(project, reuseModels);
     if (!planned.ok) return planned;
     const swept = sweep(planned.order);
     return swept.ok ? { ok: true, order: planned.order, point: swept.point, links: new Map(), passes: 0, limits } : swept;
   }
   // 1. Nominal solve: conductor links and sources ideal.
-  const nominalPlan: Plan = plan(nominalProject(project, specs));
+  const nominalPlan: Plan = plan(nominalProject(project, specs), reuseModels);
   if (!nominalPlan.ok) return nominalPlan;
   const nominalSwept = sweep(nominalPlan.order);
   if (!nominalSwept.ok) return nominalSwept;
@@ -191,7 +192,7 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
 
   // 3. Operating solve: resistance at the estimated temperature, sizes fixed.
   for (let pass = 1; pass <= MAX_PASSES; pass++) {
-    const planned = plan(resolve(project, links));
+    const planned = plan(resolve(project, links), reuseModels);
     if (!planned.ok) return planned;
     const order = planned.order;
     const swept = sweep(order);
@@ -225,10 +226,17 @@ export function sizeConductors(project: Project, catalogue: ConductorCatalogue =
   };
 }
 
+const NO_FIGURES: ReadonlyMap<string, number> = new Map();
+
 /** Add each conductor link's sizing and the whole-path drops to a built result. */
 export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok: true }>): SolveResult {
-  const warnings: SolveWarning[] = [...result.warnings];
   const limits = sized.limits;
+  // No link sized: the elements and warnings stand as built, only the whole-path drops are added.
+  // (The plan gives each element's feeder and kind traits: the result's elements are the plan's, in its order.)
+  const order = sized.order;
+  const planned = { feeders: order.map((node) => node.parent), regulates: order.map((node) => node.spec.regulatesVoltage === true) };
+  if (sized.links.size === 0) return withDrops(result, result.elements, result.warnings, pathDrops(result.elements, limits, NO_FIGURES, NO_FIGURES, planned));
+  const warnings: SolveWarning[] = [...result.warnings];
   const own = new Map<string, number>();
   const checked = new Map<string, number>();
   const elements = result.elements.map((r) => {
@@ -268,5 +276,15 @@ export function attachConductors(result: SolveResult, sized: Extract<Sized, { ok
     }
     return { ...r, conductor };
   });
-  return { ...result, elements, warnings, voltageDrop: pathDrops(elements, limits, own, checked) };
+  return withDrops(result, elements, warnings, pathDrops(elements, limits, own, checked, planned));
 }
+
+/** The result with these elements, warnings and drops: the fields of `{ ...result, elements, warnings, voltageDrop }`, in its order, named. */
+const withDrops = (result: SolveResult, elements: ElementResult[], warnings: SolveWarning[], voltageDrop: PathDrop[]): SolveResult => ({
+  projectName: result.projectName,
+  method: result.method,
+  elements,
+  totals: result.totals,
+  warnings,
+  voltageDrop,
+});

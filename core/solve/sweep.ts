@@ -264,6 +264,15 @@ const finite = (z: Complex): boolean => Number.isFinite(z.re) && Number.isFinite
 
 /** The first element (in tree order) whose output voltage or input power is not a finite number. */
 function nonFiniteAt(order: readonly PlannedElement[], vOut: readonly Complex[], sIn: readonly Complex[]): Problem | undefined {
+  // First whether any figure is not finite (x·0 is 0 for a finite x, NaN for NaN and ±Infinity, and a
+  // NaN stays in the sum), then, only then, which element is the first.
+  let sum = 0;
+  for (let k = 0; k < order.length; k++) {
+    const v = vOut[k]!;
+    const s = sIn[k]!;
+    sum += v.re * 0 + v.im * 0 + s.re * 0 + s.im * 0;
+  }
+  if (sum === 0) return undefined;
   let i = -1;
   for (let k = 0; k < order.length; k++) {
     if (!finite(vOut[k]!) || !finite(sIn[k]!)) {
@@ -301,13 +310,25 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
   // currents behind buses that pass the voltage on (children come after their parent in `order`).
   const behindBus = new Array<boolean>(n).fill(false);
   const handover = new Array<boolean>(n).fill(false);
+  // (Loops rather than callbacks: this runs once per solve, and a sample or candidate is one solve.)
+  let anyHandover = false;
+  let recover = false;
   for (let i = n - 1; i >= 0; i--) {
     const node = order[i]!;
-    const carries = node.children.some((ch) => order[ch]!.model.current !== undefined || behindBus[ch]!);
+    const children = node.children;
+    let carries = false;
+    let admits = false;
+    for (let k = 0; k < children.length; k++) {
+      const ch = children[k]!;
+      const m = order[ch]!.model;
+      if (m.current !== undefined || behindBus[ch]!) carries = true;
+      if (m.admittance !== undefined) admits = true;
+    }
     behindBus[i] = node.model.passesVoltage === true && carries;
-    handover[i] = carries || node.children.some((ch) => order[ch]!.model.admittance !== undefined);
+    handover[i] = carries || admits;
+    if (handover[i]) anyHandover = true;
+    if (node.model.admittance !== undefined || node.model.current !== undefined) recover = true;
   }
-  const anyHandover = handover.some((h) => h);
   forward(order, sIn, sOut, vOut, handover, anyHandover, behindBus, false, true);
   // A constant-impedance load draws its power at the previous sweep's voltage: starting from the
   // no-load voltage it asks for more than it will take, and a heavy one can ask a link for more
@@ -317,7 +338,7 @@ export function sweep(order: readonly PlannedElement[]): SweepOutcome {
   // loads only approach their solution from above and need no recovery: infeasible at once.
   // Constant-current loads behind a bus (not directly on a link) draw their power at the previous
   // sweep's voltage, from above as well: the same recovery and damping serve them.
-  const recover = order.some((node) => node.model.admittance !== undefined || node.model.current !== undefined);
+  // (`recover`: the chain holds such loads, found in the loop above.)
   let overshoots = 0;
   let firstBad = -1;
   let relax = 1;

@@ -47,7 +47,8 @@ export function variantProject(base: Solved | ValidProject, change: VariantChang
     problems.push(...r.problems);
     return r.element;
   };
-  const ids = new Set(project.elements.map((e) => e.id));
+  // (The ids, and the new list of elements below, are built only when elements change.)
+  const ids = change.replace?.length ? new Set(project.elements.map((e) => e.id)) : new Set<string>();
   const replaced = new Map<string, Element>();
   (change.replace ?? []).forEach((e, i) => {
     if (!ids.has(e.id)) problems.push({ code: 'unknown-element', elementId: e.id, field: 'id', value: e.id, message: 'names no element of the project: a variant replaces elements it holds' });
@@ -60,7 +61,7 @@ export function variantProject(base: Solved | ValidProject, change: VariantChang
     if (ok) added.push(ok);
   });
   const remove = change.remove ?? new Set<string>();
-  const elements = [...project.elements.filter((e) => !remove.has(e.id)).map((e) => replaced.get(e.id) ?? e), ...added];
+  const elements = added.length || remove.size || replaced.size ? [...project.elements.filter((e) => !remove.has(e.id)).map((e) => replaced.get(e.id) ?? e), ...added] : project.elements;
   // The tree's shape when elements change (duplicate ids, feeds naming removed elements, loops, a second source).
   if (added.length || remove.size || replaced.size) {
     problems.push(...checkStructure(elements.map(skeletonOf).filter((s) => s !== null)));
