@@ -68,6 +68,11 @@ export interface RepeatSolver {
   prepare(values: readonly number[]): { ok: true; state: number } | { ok: false; problems: Problem[] };
   /** Operating point with the bank at open-circuit voltage `emf` behind `resistance`; null when the chain cannot be carried. */
   solve(state: number, emf: number, resistance: number): StepPoint | null;
+  /**
+   * The same solve, written into `out` (no object per step, for the discharge's time loop): false,
+   * and `out` left as it was, when the chain cannot be carried.
+   */
+  solveInto(state: number, emf: number, resistance: number, out: StepPoint): boolean;
 }
 
 /** Plan a validated battery-fed project once for repeated solves. */
@@ -164,7 +169,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
   };
 
   /** Sweep of the top only, DC: real voltages and powers. */
-  const solveTop = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+  const solveTop = (st: PreparedState, emf: number, resistance: number, point: StepPoint): boolean => {
     const source = c(emf);
     const rz = c(resistance);
     if (!warm) v.fill(emf);
@@ -180,12 +185,12 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       backward();
       let residual = 0;
       const v0 = receivingVoltage(source, rz, c(sOut[0]!));
-      if (v0 === null) return null;
+      if (v0 === null) return false;
       residual = Math.abs(v0.re - v[0]!) / v0.re;
       v[0] = v0.re;
       for (let j = 1; j < nTop; j++) {
         const out = topModels[j]!.outputVoltage(vc(v[topParent[j]!]!), c(sOut[j]!));
-        if (out === null) return null;
+        if (out === null) return false;
         residual = Math.max(residual, Math.abs(out.re - v[j]!) / Math.abs(out.re));
         v[j] = out.re;
       }
@@ -196,17 +201,11 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
         const current = terminalPower / v[0]!;
         let passiveLoss = 0;
         for (let j = 1; j < nTop; j++) passiveLoss += sIn[j]! - sOut[j]!;
-        return {
-          voltage: v[0]!,
-          current,
-          terminalPower,
-          internalLoss: resistance * current * current,
-          chainLoss: passiveLoss + st.belowLoss,
-          loadPower: st.loadPower,
-        };
+        setPoint(point, v[0]!, current, terminalPower, resistance * current * current, passiveLoss + st.belowLoss, st.loadPower);
+        return true;
       }
     }
-    return null;
+    return false;
   };
 
   /**
@@ -240,15 +239,15 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     stateLast = st;
   };
 
-  const solveTopReal = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+  const solveTopReal = (st: PreparedState, emf: number, resistance: number, point: StepPoint): boolean => {
     startReal(st, emf);
-    const found = sweepTopReal(st, emf, resistance);
+    const found = sweepTopReal(st, emf, resistance, point);
     // A failed solve leaves no voltages to extrapolate from.
-    if (found === null) stateLast = null;
+    if (!found) stateLast = null;
     return found;
   };
 
-  const sweepTopReal = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+  const sweepTopReal = (st: PreparedState, emf: number, resistance: number, point: StepPoint): boolean => {
     // The per-step loop reads only typed arrays held in locals (no objects, no Map, no call): the
     // arithmetic, and so every figure, is the sweep's as written in the method above.
     const fixed = st.fixed;
@@ -267,7 +266,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       }
       // Forward: voltages at the present powers.
       let disc = emf * emf - 4 * resistance * out[0]!;
-      if (disc < 0) return null;
+      if (disc < 0) return false;
       let next = (emf + Math.sqrt(disc)) / 2;
       let residual = Math.abs(next - volts[0]!) / next;
       volts[0] = next;
@@ -277,7 +276,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
         if (r === 0) next = vSend;
         else {
           disc = vSend * vSend - 4 * r * out[j]!;
-          if (disc < 0) return null;
+          if (disc < 0) return false;
           next = (vSend + Math.sqrt(disc)) / 2;
         }
         const change = Math.abs(next - volts[j]!) / next;
@@ -296,28 +295,22 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
         warm = true;
         const terminalPower = out[0]!;
         const current = terminalPower / volts[0]!;
-        return {
-          voltage: volts[0]!,
-          current,
-          terminalPower,
-          internalLoss: resistance * current * current,
-          chainLoss: passiveLoss + st.belowLoss,
-          loadPower: st.loadPower,
-        };
+        setPoint(point, volts[0]!, current, terminalPower, resistance * current * current, passiveLoss + st.belowLoss, st.loadPower);
+        return true;
       }
     }
-    return null;
+    return false;
   };
 
   /** Whole-chain sweep with the bank's present state (the fallback). */
-  const solveWhole = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+  const solveWhole = (st: PreparedState, emf: number, resistance: number, point: StepPoint): boolean => {
     const src = order[0]!;
     const element = { ...src.element, voltage: emf, internalResistance: resistance } as Element;
     delete (element as { bank?: unknown }).bank;
     const stepOrder = withLoads(st.loads!);
     stepOrder[0] = { ...src, element, model: src.spec.build(element, null) };
     const swept = sweep(stepOrder);
-    if (!swept.ok) return null;
+    if (!swept.ok) return false;
     const { sIn: pin, sOut: pout, vOut } = swept.point;
     let chainLoss = 0;
     let loadPower = 0;
@@ -327,7 +320,8 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     }
     const terminalPower = pout[0]!.re;
     const current = terminalPower / vOut[0]!.re;
-    return { voltage: vOut[0]!.re, current, terminalPower, internalLoss: resistance * current * current, chainLoss, loadPower };
+    setPoint(point, vOut[0]!.re, current, terminalPower, resistance * current * current, chainLoss, loadPower);
+    return true;
   };
 
   // Which of the three step solves serves this chain, chosen once (not at every step).
@@ -339,9 +333,26 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       loadIds: loadIdx.map((i) => order[i]!.element.id),
       fast,
       prepare,
-      solve: (state, emf, resistance) => stepSolve(states[state]!, emf, resistance),
+      solve: (state, emf, resistance) => {
+        const point = emptyPoint();
+        return stepSolve(states[state]!, emf, resistance, point) ? point : null;
+      },
+      solveInto: (state, emf, resistance, out) => stepSolve(states[state]!, emf, resistance, out),
     },
   };
+}
+
+/** A step point to be written by a solve (every field a double — NaN, not a small integer — from the start: one shape throughout). */
+export const emptyPoint = (): StepPoint => ({ voltage: NaN, current: NaN, terminalPower: NaN, internalLoss: NaN, chainLoss: NaN, loadPower: NaN });
+
+/** Write a solve's operating point into `p` (in place: no object per step). */
+function setPoint(p: StepPoint, voltage: number, current: number, terminalPower: number, internalLoss: number, chainLoss: number, loadPower: number): void {
+  p.voltage = voltage;
+  p.current = current;
+  p.terminalPower = terminalPower;
+  p.internalLoss = internalLoss;
+  p.chainLoss = chainLoss;
+  p.loadPower = loadPower;
 }
 
 /** Relative agreement asked of a DC equivalent against the element's own model. */
