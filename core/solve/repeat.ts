@@ -143,13 +143,20 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     return stateOrder;
   };
 
+  // Each load's element and model at each level met so far: a level shared by several load states
+  // (a load on in one state, the other loads switching) is built once.
+  const built = loadIdx.map(() => new Map<number, { element: Element; model: ElementModel }>());
   const prepare: RepeatSolver['prepare'] = (values) => {
     const loads = loadIdx.map((i, k) => {
+      const seen = built[k]!.get(values[k]!);
+      if (seen) return seen;
       const node = order[i]!;
       // The load's own quantity (its kind's `load` trait); a load a profile cannot set keeps its fields.
       const field = node.spec.load?.field;
       const element = (field ? { ...node.element, [field]: values[k]! } : node.element) as Element;
-      return { element, model: node.spec.build(element, node.input) };
+      const load = { element, model: node.spec.build(element, node.input) };
+      built[k]!.set(values[k]!, load);
+      return load;
     });
     const swept = sweep(withLoads(loads));
     if (!swept.ok) return swept;
@@ -261,8 +268,13 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       // Backward: powers at the present voltages.
       for (let j = 0; j < n; j++) out[j] = fixed[j]!;
       for (let j = n - 1; j >= 1; j--) {
-        const i = out[j]! / volts[j]!;
-        out[up[j]!]! += out[j]! + rs[j]! * i * i + fixedLoss[j]!;
+        const r = rs[j]!;
+        // A bus (R = 0) adds its fixed loss only: R·I² is 0 there, no division needed.
+        if (r === 0) out[up[j]!]! += out[j]! + fixedLoss[j]!;
+        else {
+          const i = out[j]! / volts[j]!;
+          out[up[j]!]! += out[j]! + r * i * i + fixedLoss[j]!;
+        }
       }
       // Forward: voltages at the present powers.
       let disc = emf * emf - 4 * resistance * out[0]!;
@@ -287,8 +299,12 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
         for (let j = 0; j < n; j++) out[j] = fixed[j]!;
         let passiveLoss = 0;
         for (let j = n - 1; j >= 1; j--) {
-          const i = out[j]! / volts[j]!;
-          const loss = rs[j]! * i * i + fixedLoss[j]!;
+          const r = rs[j]!;
+          let loss = fixedLoss[j]!;
+          if (r !== 0) {
+            const i = out[j]! / volts[j]!;
+            loss = r * i * i + loss;
+          }
           passiveLoss += loss;
           out[up[j]!]! += out[j]! + loss;
         }

@@ -84,6 +84,11 @@ function advance(a: Float64Array, p: StepPoint, emf: number, dt: number, rate: n
   a[MIN_V] = Math.min(a[MIN_V]!, p.voltage);
 }
 
+/** Copy the accumulators (a loop: `set` costs a builtin call for eleven numbers). */
+function copy(to: Float64Array, from: Float64Array): void {
+  for (let j = 0; j < ACC_SIZE; j++) to[j] = from[j]!;
+}
+
 /** Run the time loop over the timeline's intervals. */
 export function integrateSteps(input: StepsInput): StepsOutcome {
   const { solver, bank, intervals, stateIds, step, resistance: R, cutoff, availableAs, k, iRated, socLimit } = input;
@@ -114,8 +119,12 @@ export function integrateSteps(input: StepsInput): StepsOutcome {
   // charge closes the segment — found from the last segment used (the state of charge only falls).
   const curve = bank.values.ocvCurve;
   const nCurve = curve.length;
-  const curveSoc = Float64Array.from(curve, (q) => q.soc);
-  const curveV = Float64Array.from(curve, (q) => q.voltage);
+  const curveSoc = new Float64Array(nCurve);
+  const curveV = new Float64Array(nCurve);
+  for (let j = 0; j < nCurve; j++) {
+    curveSoc[j] = curve[j]!.soc;
+    curveV[j] = curve[j]!.voltage;
+  }
   const cells = bank.cellsInSeries;
   let segment = nCurve - 1;
   const ocv = (soc: number): number => {
@@ -171,7 +180,7 @@ export function integrateSteps(input: StepsInput): StepsOutcome {
         if (reuse && lastP && lastP.voltage > p.voltage) {
           // Linear interpolation of the terminal voltage over the last step (same load throughout).
           const f = (lastP.voltage - cutoff) / (lastP.voltage - p.voltage);
-          acc.set(before);
+          copy(acc, before);
           advance(acc, lastP, lastEmf, lastDt * f, rateOf(lastP.current), availableAs);
           dropLastSample();
           record(acc[T]!, acc[SOC]!, cutoff, lastP.current, lastP.terminalPower);
@@ -191,7 +200,7 @@ export function integrateSteps(input: StepsInput): StepsOutcome {
       const toLimit = rate > 0 ? ((acc[SOC]! - socLimit) * availableAs) / rate : Infinity;
       const hitsLimit = toLimit <= dt;
       if (hitsLimit) dt = Math.max(0, toLimit);
-      before.set(acc);
+      copy(before, acc);
       advance(acc, p, emf, dt, rate, availableAs);
       if (hitsLimit) acc[SOC] = socLimit;
       lastP = p;
