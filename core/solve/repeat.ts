@@ -280,7 +280,9 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       let disc = emf * emf - 4 * resistance * out[0]!;
       if (disc < 0) return false;
       let next = (emf + Math.sqrt(disc)) / 2;
-      let residual = Math.abs(next - volts[0]!) / next;
+      // The stop test |ΔV| ≤ tolerance·V at every node: the sweep's relative change |ΔV|/V ≤
+      // tolerance without a division per node (the voltages here are positive).
+      let settled = Math.abs(next - volts[0]!) <= TOLERANCE * next;
       volts[0] = next;
       for (let j = 1; j < n; j++) {
         const vSend = volts[up[j]!]!;
@@ -291,11 +293,10 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
           if (disc < 0) return false;
           next = (vSend + Math.sqrt(disc)) / 2;
         }
-        const change = Math.abs(next - volts[j]!) / next;
-        if (change > residual) residual = change;
+        if (!(Math.abs(next - volts[j]!) <= TOLERANCE * next)) settled = false;
         volts[j] = next;
       }
-      if (residual <= TOLERANCE) {
+      if (settled) {
         for (let j = 0; j < n; j++) out[j] = fixed[j]!;
         let passiveLoss = 0;
         for (let j = n - 1; j >= 1; j--) {

@@ -7,7 +7,8 @@
  *
  * A module-level function of its own, so that the engine optimises it apart from the result's
  * assembly, which runs once per study. Per step it allocates nothing but the series' growth: the
- * accumulators are two Float64Arrays (now and before the last step, to undo it at the cut-off), the
+ * accumulators are two Float64Arrays whose roles swap (now, and before the last step to undo it at the
+ * cut-off), the
  * operating points two StepPoint objects the solver writes in place (`RepeatSolver.solveInto`), and
  * the open-circuit voltage of the end of a step is kept as the next step's start (same state of
  * charge, so the same number). Every figure is the same arithmetic, in the same order, as the loop
@@ -66,27 +67,23 @@ export type StepsOutcome =
   | { ok: false; why: string };
 
 /**
- * Advance the accumulators `a` in place by dt at the operating point p with the bank at open-circuit
- * voltage emf; `rate` is the Peukert-equivalent charge rate at p's current.
+ * The accumulators `from` advanced by dt at the operating point p with the bank at open-circuit
+ * voltage emf, written into `to` (every entry); `rate` is the Peukert-equivalent charge rate at p's
+ * current. `from` stays as it was: the accumulators before the step, kept without a copy.
  */
-function advance(a: Float64Array, p: StepPoint, emf: number, dt: number, rate: number, availableAs: number): void {
+function advance(to: Float64Array, from: Float64Array, p: StepPoint, emf: number, dt: number, rate: number, availableAs: number): void {
   const i = p.current;
-  a[T] = a[T]! + dt;
-  a[SOC] = a[SOC]! - (rate * dt) / availableAs;
-  a[CHARGE] = a[CHARGE]! + i * dt;
-  a[EQUIVALENT] = a[EQUIVALENT]! + rate * dt;
-  a[TERMINAL] = a[TERMINAL]! + p.terminalPower * dt;
-  a[DRAWN] = a[DRAWN]! + emf * i * dt;
-  a[LOAD] = a[LOAD]! + p.loadPower * dt;
-  a[CHAIN] = a[CHAIN]! + p.chainLoss * dt;
-  a[INTERNAL] = a[INTERNAL]! + p.internalLoss * dt;
-  a[PEAK] = Math.max(a[PEAK]!, i);
-  a[MIN_V] = Math.min(a[MIN_V]!, p.voltage);
-}
-
-/** Copy the accumulators (a loop: `set` costs a builtin call for eleven numbers). */
-function copy(to: Float64Array, from: Float64Array): void {
-  for (let j = 0; j < ACC_SIZE; j++) to[j] = from[j]!;
+  to[T] = from[T]! + dt;
+  to[SOC] = from[SOC]! - (rate * dt) / availableAs;
+  to[CHARGE] = from[CHARGE]! + i * dt;
+  to[EQUIVALENT] = from[EQUIVALENT]! + rate * dt;
+  to[TERMINAL] = from[TERMINAL]! + p.terminalPower * dt;
+  to[DRAWN] = from[DRAWN]! + emf * i * dt;
+  to[LOAD] = from[LOAD]! + p.loadPower * dt;
+  to[CHAIN] = from[CHAIN]! + p.chainLoss * dt;
+  to[INTERNAL] = from[INTERNAL]! + p.internalLoss * dt;
+  to[PEAK] = Math.max(from[PEAK]!, i);
+  to[MIN_V] = Math.min(from[MIN_V]!, p.voltage);
 }
 
 /** Run the time loop over the timeline's intervals. */
@@ -142,10 +139,12 @@ export function integrateSteps(input: StepsInput): StepsOutcome {
   // Peukert-equivalent charge rate (rated-capacity form of Peukert's law, see discharge-run.ts).
   const rateOf = (i: number): number => i * (i > iRated ? Math.pow(i / iRated, k - 1) : 1);
 
-  const acc = new Float64Array(ACC_SIZE);
+  // The accumulators now and before the last step (to undo it at the cut-off): two arrays whose
+  // roles swap at each step.
+  let acc = new Float64Array(ACC_SIZE);
   acc[SOC] = bank.initialSoc;
   acc[MIN_V] = Infinity;
-  const before = new Float64Array(ACC_SIZE);
+  let before = new Float64Array(ACC_SIZE);
   // Two operating points written in place: the step's start (`p`) and the end of the step (the other).
   const points = [emptyPoint(), emptyPoint()] as const;
   let endReason: EndReason = input.noEnd;
@@ -180,8 +179,7 @@ export function integrateSteps(input: StepsInput): StepsOutcome {
         if (reuse && lastP && lastP.voltage > p.voltage) {
           // Linear interpolation of the terminal voltage over the last step (same load throughout).
           const f = (lastP.voltage - cutoff) / (lastP.voltage - p.voltage);
-          copy(acc, before);
-          advance(acc, lastP, lastEmf, lastDt * f, rateOf(lastP.current), availableAs);
+          advance(acc, before, lastP, lastEmf, lastDt * f, rateOf(lastP.current), availableAs);
           dropLastSample();
           record(acc[T]!, acc[SOC]!, cutoff, lastP.current, lastP.terminalPower);
           acc[MIN_V] = Math.min(acc[MIN_V]!, cutoff);
@@ -200,8 +198,10 @@ export function integrateSteps(input: StepsInput): StepsOutcome {
       const toLimit = rate > 0 ? ((acc[SOC]! - socLimit) * availableAs) / rate : Infinity;
       const hitsLimit = toLimit <= dt;
       if (hitsLimit) dt = Math.max(0, toLimit);
-      copy(before, acc);
-      advance(acc, p, emf, dt, rate, availableAs);
+      const now = before;
+      before = acc;
+      acc = now;
+      advance(acc, before, p, emf, dt, rate, availableAs);
       if (hitsLimit) acc[SOC] = socLimit;
       lastP = p;
       lastEmf = emf;
