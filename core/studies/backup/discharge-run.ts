@@ -26,6 +26,7 @@
  * - the chain cannot be carried any more (voltage collapse on a link);
  * - the profile ends (a `segments` profile run once) or the horizon is reached: the runtime is
  *   then "longer than" that time, never Infinity.
+ * The time loop itself is discharge-steps.ts; this file sets it up and assembles the result.
  */
 import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, endVoltageCaution, type BankDesign } from './cautions.ts';
 import { CHEMISTRY_PRESETS } from '../../data/battery-chemistries.ts';
@@ -157,6 +158,7 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
   const R = bank.internalResistance;
   const cutoff = bank.cutoffVoltage;
 
+  // The time loop (discharge-steps.ts), then its totals read once for the result.
   const steps = integrateSteps({
     solver,
     bank,
