@@ -264,6 +264,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     const rs = topR;
     const fixedLoss = topFixedLoss;
     const up = topParentIdx;
+    const tolerance = TOLERANCE;
     for (let iter = 1; iter <= MAX_SWEEPS; iter++) {
       // Backward: powers at the present voltages.
       for (let j = 0; j < n; j++) out[j] = fixed[j]!;
@@ -282,7 +283,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       let next = (emf + Math.sqrt(disc)) / 2;
       // The stop test |ΔV| ≤ tolerance·V at every node: the sweep's relative change |ΔV|/V ≤
       // tolerance without a division per node (the voltages here are positive).
-      let settled = Math.abs(next - volts[0]!) <= TOLERANCE * next;
+      let settled = Math.abs(next - volts[0]!) <= tolerance * next;
       volts[0] = next;
       for (let j = 1; j < n; j++) {
         const vSend = volts[up[j]!]!;
@@ -293,7 +294,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
           if (disc < 0) return false;
           next = (vSend + Math.sqrt(disc)) / 2;
         }
-        if (!(Math.abs(next - volts[j]!) <= TOLERANCE * next)) settled = false;
+        if (!(Math.abs(next - volts[j]!) <= tolerance * next)) settled = false;
         volts[j] = next;
       }
       if (settled) {
