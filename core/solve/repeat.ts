@@ -68,6 +68,11 @@ export interface RepeatSolver {
   prepare(values: readonly number[]): { ok: true; state: number } | { ok: false; problems: Problem[] };
   /** Operating point with the bank at open-circuit voltage `emf` behind `resistance`; null when the chain cannot be carried. */
   solve(state: number, emf: number, resistance: number): StepPoint | null;
+  /**
+   * The same solve, written into `out` (no object per step, for the discharge's time loop): false,
+   * and `out` left as it was, when the chain cannot be carried.
+   */
+  solveInto(state: number, emf: number, resistance: number, out: StepPoint): boolean;
 }
 
 /** Plan a validated battery-fed project once for repeated solves. */
@@ -138,13 +143,20 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     return stateOrder;
   };
 
+  // Each load's element and model at each level met so far: a level shared by several load states
+  // (a load on in one state, the other loads switching) is built once.
+  const built = loadIdx.map(() => new Map<number, { element: Element; model: ElementModel }>());
   const prepare: RepeatSolver['prepare'] = (values) => {
     const loads = loadIdx.map((i, k) => {
+      const seen = built[k]!.get(values[k]!);
+      if (seen) return seen;
       const node = order[i]!;
       // The load's own quantity (its kind's `load` trait); a load a profile cannot set keeps its fields.
       const field = node.spec.load?.field;
       const element = (field ? { ...node.element, [field]: values[k]! } : node.element) as Element;
-      return { element, model: node.spec.build(element, node.input) };
+      const load = { element, model: node.spec.build(element, node.input) };
+      built[k]!.set(values[k]!, load);
+      return load;
     });
     const swept = sweep(withLoads(loads));
     if (!swept.ok) return swept;
@@ -164,7 +176,7 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
   };
 
   /** Sweep of the top only, DC: real voltages and powers. */
-  const solveTop = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+  const solveTop = (st: PreparedState, emf: number, resistance: number, point: StepPoint): boolean => {
     const source = c(emf);
     const rz = c(resistance);
     if (!warm) v.fill(emf);
@@ -180,12 +192,12 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       backward();
       let residual = 0;
       const v0 = receivingVoltage(source, rz, c(sOut[0]!));
-      if (v0 === null) return null;
+      if (v0 === null) return false;
       residual = Math.abs(v0.re - v[0]!) / v0.re;
       v[0] = v0.re;
       for (let j = 1; j < nTop; j++) {
         const out = topModels[j]!.outputVoltage(vc(v[topParent[j]!]!), c(sOut[j]!));
-        if (out === null) return null;
+        if (out === null) return false;
         residual = Math.max(residual, Math.abs(out.re - v[j]!) / Math.abs(out.re));
         v[j] = out.re;
       }
@@ -196,17 +208,11 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
         const current = terminalPower / v[0]!;
         let passiveLoss = 0;
         for (let j = 1; j < nTop; j++) passiveLoss += sIn[j]! - sOut[j]!;
-        return {
-          voltage: v[0]!,
-          current,
-          terminalPower,
-          internalLoss: resistance * current * current,
-          chainLoss: passiveLoss + st.belowLoss,
-          loadPower: st.loadPower,
-        };
+        setPoint(point, v[0]!, current, terminalPower, resistance * current * current, passiveLoss + st.belowLoss, st.loadPower);
+        return true;
       }
     }
-    return null;
+    return false;
   };
 
   /**
@@ -240,15 +246,15 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     stateLast = st;
   };
 
-  const solveTopReal = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+  const solveTopReal = (st: PreparedState, emf: number, resistance: number, point: StepPoint): boolean => {
     startReal(st, emf);
-    const found = sweepTopReal(st, emf, resistance);
+    const found = sweepTopReal(st, emf, resistance, point);
     // A failed solve leaves no voltages to extrapolate from.
-    if (found === null) stateLast = null;
+    if (!found) stateLast = null;
     return found;
   };
 
-  const sweepTopReal = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+  const sweepTopReal = (st: PreparedState, emf: number, resistance: number, point: StepPoint): boolean => {
     // The per-step loop reads only typed arrays held in locals (no objects, no Map, no call): the
     // arithmetic, and so every figure, is the sweep's as written in the method above.
     const fixed = st.fixed;
@@ -258,18 +264,26 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     const rs = topR;
     const fixedLoss = topFixedLoss;
     const up = topParentIdx;
+    const tolerance = TOLERANCE;
     for (let iter = 1; iter <= MAX_SWEEPS; iter++) {
       // Backward: powers at the present voltages.
       for (let j = 0; j < n; j++) out[j] = fixed[j]!;
       for (let j = n - 1; j >= 1; j--) {
-        const i = out[j]! / volts[j]!;
-        out[up[j]!]! += out[j]! + rs[j]! * i * i + fixedLoss[j]!;
+        const r = rs[j]!;
+        // A bus (R = 0) adds its fixed loss only: R·I² is 0 there, no division needed.
+        if (r === 0) out[up[j]!]! += out[j]! + fixedLoss[j]!;
+        else {
+          const i = out[j]! / volts[j]!;
+          out[up[j]!]! += out[j]! + r * i * i + fixedLoss[j]!;
+        }
       }
       // Forward: voltages at the present powers.
       let disc = emf * emf - 4 * resistance * out[0]!;
-      if (disc < 0) return null;
+      if (disc < 0) return false;
       let next = (emf + Math.sqrt(disc)) / 2;
-      let residual = Math.abs(next - volts[0]!) / next;
+      // The stop test |ΔV| ≤ tolerance·V at every node: the sweep's relative change |ΔV|/V ≤
+      // tolerance without a division per node (the voltages here are positive).
+      let settled = Math.abs(next - volts[0]!) <= tolerance * next;
       volts[0] = next;
       for (let j = 1; j < n; j++) {
         const vSend = volts[up[j]!]!;
@@ -277,47 +291,44 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
         if (r === 0) next = vSend;
         else {
           disc = vSend * vSend - 4 * r * out[j]!;
-          if (disc < 0) return null;
+          if (disc < 0) return false;
           next = (vSend + Math.sqrt(disc)) / 2;
         }
-        const change = Math.abs(next - volts[j]!) / next;
-        if (change > residual) residual = change;
+        if (!(Math.abs(next - volts[j]!) <= tolerance * next)) settled = false;
         volts[j] = next;
       }
-      if (residual <= TOLERANCE) {
+      if (settled) {
         for (let j = 0; j < n; j++) out[j] = fixed[j]!;
         let passiveLoss = 0;
         for (let j = n - 1; j >= 1; j--) {
-          const i = out[j]! / volts[j]!;
-          const loss = rs[j]! * i * i + fixedLoss[j]!;
+          const r = rs[j]!;
+          let loss = fixedLoss[j]!;
+          if (r !== 0) {
+            const i = out[j]! / volts[j]!;
+            loss = r * i * i + loss;
+          }
           passiveLoss += loss;
           out[up[j]!]! += out[j]! + loss;
         }
         warm = true;
         const terminalPower = out[0]!;
         const current = terminalPower / volts[0]!;
-        return {
-          voltage: volts[0]!,
-          current,
-          terminalPower,
-          internalLoss: resistance * current * current,
-          chainLoss: passiveLoss + st.belowLoss,
-          loadPower: st.loadPower,
-        };
+        setPoint(point, volts[0]!, current, terminalPower, resistance * current * current, passiveLoss + st.belowLoss, st.loadPower);
+        return true;
       }
     }
-    return null;
+    return false;
   };
 
   /** Whole-chain sweep with the bank's present state (the fallback). */
-  const solveWhole = (st: PreparedState, emf: number, resistance: number): StepPoint | null => {
+  const solveWhole = (st: PreparedState, emf: number, resistance: number, point: StepPoint): boolean => {
     const src = order[0]!;
     const element = { ...src.element, voltage: emf, internalResistance: resistance } as Element;
     delete (element as { bank?: unknown }).bank;
     const stepOrder = withLoads(st.loads!);
     stepOrder[0] = { ...src, element, model: src.spec.build(element, null) };
     const swept = sweep(stepOrder);
-    if (!swept.ok) return null;
+    if (!swept.ok) return false;
     const { sIn: pin, sOut: pout, vOut } = swept.point;
     let chainLoss = 0;
     let loadPower = 0;
@@ -327,7 +338,8 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
     }
     const terminalPower = pout[0]!.re;
     const current = terminalPower / vOut[0]!.re;
-    return { voltage: vOut[0]!.re, current, terminalPower, internalLoss: resistance * current * current, chainLoss, loadPower };
+    setPoint(point, vOut[0]!.re, current, terminalPower, resistance * current * current, chainLoss, loadPower);
+    return true;
   };
 
   // Which of the three step solves serves this chain, chosen once (not at every step).
@@ -339,9 +351,26 @@ export function prepareRepeat(project: Project): { ok: true; solver: RepeatSolve
       loadIds: loadIdx.map((i) => order[i]!.element.id),
       fast,
       prepare,
-      solve: (state, emf, resistance) => stepSolve(states[state]!, emf, resistance),
+      solve: (state, emf, resistance) => {
+        const point = emptyPoint();
+        return stepSolve(states[state]!, emf, resistance, point) ? point : null;
+      },
+      solveInto: (state, emf, resistance, out) => stepSolve(states[state]!, emf, resistance, out),
     },
   };
+}
+
+/** A step point to be written by a solve (every field a double — NaN, not a small integer — from the start: one shape throughout). */
+export const emptyPoint = (): StepPoint => ({ voltage: NaN, current: NaN, terminalPower: NaN, internalLoss: NaN, chainLoss: NaN, loadPower: NaN });
+
+/** Write a solve's operating point into `p` (in place: no object per step). */
+function setPoint(p: StepPoint, voltage: number, current: number, terminalPower: number, internalLoss: number, chainLoss: number, loadPower: number): void {
+  p.voltage = voltage;
+  p.current = current;
+  p.terminalPower = terminalPower;
+  p.internalLoss = internalLoss;
+  p.chainLoss = chainLoss;
+  p.loadPower = loadPower;
 }
 
 /** Relative agreement asked of a DC equivalent against the element's own model. */

@@ -7,7 +7,8 @@
  *   `prepareRepeat` and `prepare`);
  * - the step solves alone: as many solves of the passive elements next to the bank as the discharge
  *   runs (one per step and one per load change), the bank's open-circuit voltage falling a little
- *   each step, the load state changing as the timeline's intervals do;
+ *   each step, the load state changing as the timeline's intervals do, each written in place into
+ *   one step point (`RepeatSolver.solveInto`, as the time loop in discharge-steps.ts does);
  * - the whole discharge, for comparison.
  * Through Vitest's module runner (cross-module calls cost more than in the shipped bundle). Run with
  * `npm run bench`; the figures are reported in issue notes, not asserted here.
@@ -16,7 +17,7 @@ import { bench, describe } from 'vitest';
 import { simulateDischarge } from '../../core/studies/backup/discharge.ts';
 import { solveProject } from '../../core/solve/index.ts';
 import { buildTimeline } from '../../core/solve/load-profile.ts';
-import { prepareRepeat, type RepeatSolver } from '../../core/solve/repeat.ts';
+import { emptyPoint, prepareRepeat, type RepeatSolver } from '../../core/solve/repeat.ts';
 import { batteryBenchProject } from '../battery/fixtures.ts';
 
 const solved = solveProject(batteryBenchProject());
@@ -45,6 +46,7 @@ if (!discharge.ok) throw new Error('bench project does not discharge');
 const steps = discharge.result.series.time.length;
 const volts = discharge.result.series.voltage;
 const resistance = discharge.result.bank.internalResistance;
+const point = emptyPoint();
 
 describe('battery discharge, part by part', () => {
   bench('the timeline (intervals of one load state)', () => {
@@ -58,8 +60,9 @@ describe('battery discharge, part by part', () => {
     const perInterval = Math.max(1, Math.floor(steps / stateOf.length));
     for (let k = 0; k < steps; k++) {
       const state = stateOf[Math.min(stateOf.length - 1, Math.floor(k / perInterval))]!;
-      // The terminal voltages the discharge went through stand in for the open-circuit voltage.
-      solver.solve(state, volts[k]! + 0.5, resistance);
+      // The terminal voltages the discharge went through stand in for the open-circuit voltage;
+      // written in place, as the discharge's time loop does (`solveInto`).
+      solver.solveInto(state, volts[k]! + 0.5, resistance, point);
     }
   });
   bench('the whole discharge (solved once beforehand)', () => {

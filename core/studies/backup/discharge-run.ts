@@ -26,18 +26,20 @@
  * - the chain cannot be carried any more (voltage collapse on a link);
  * - the profile ends (a `segments` profile run once) or the horizon is reached: the runtime is
  *   then "longer than" that time, never Infinity.
+ * The time loop itself is discharge-steps.ts; this file sets it up and assembles the result.
  */
 import { TYPICAL_VALUE, bankCautions, depthOfDischargeApplies, designBasis, endVoltageCaution, type BankDesign } from './cautions.ts';
 import { CHEMISTRY_PRESETS } from '../../data/battery-chemistries.ts';
 import type { BackupStudy, BatterySource, Element, Project } from '../../model/project.ts';
 import type { ElementResult, SolveResult } from '../../model/result.ts';
 import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
-import { prepareRepeat, type StepPoint } from '../../solve/repeat.ts';
+import { prepareRepeat } from '../../solve/repeat.ts';
 import type { PlannedElement } from '../../solve/plan.ts';
 import { idleDraw } from '../../solve/idle.ts';
-import { type Bank, bankOcv, capacityFactorAt, resolveBank } from '../../physics/bank.ts';
+import { type Bank, capacityFactorAt, resolveBank } from '../../physics/bank.ts';
 import { DEFAULT_HORIZON_H, DEFAULT_TIME_STEP_S, MAX_WHOLE_CHAIN_WORK, buildTimeline, count } from '../../solve/load-profile.ts';
-import { END_TEXT, type DischargeOutcome, type DischargeSeries, type Derate, type EndReason, type IdleDraw } from './discharge-types.ts';
+import { END_TEXT, type DischargeOutcome, type Derate, type IdleDraw } from './discharge-types.ts';
+import { CHAIN, CHARGE, DRAWN, EQUIVALENT, INTERNAL, LOAD, MIN_V, PEAK, SOC, T, TERMINAL, integrateSteps } from './discharge-steps.ts';
 import { figure, sigText } from '../../model/message.ts';
 
 const H = 3600;
@@ -156,154 +158,39 @@ export function runDischarge(project: Project, study: BackupStudy, source: Batte
   const R = bank.internalResistance;
   const cutoff = bank.cutoffVoltage;
 
-  const series: DischargeSeries = { time: [], soc: [], voltage: [], current: [], power: [] };
-  const record =
-    keep.plotSeries === false
-      ? (t: number, _soc: number, p: StepPoint) => {
-          series.time.push(t);
-          series.power.push(p.terminalPower);
-        }
-      : (t: number, soc: number, p: StepPoint) => {
-          series.time.push(t);
-          series.soc.push(soc);
-          series.voltage.push(p.voltage);
-          series.current.push(p.current);
-          series.power.push(p.terminalPower);
-        };
-  // Accumulators (A·s and J), advanced in place each step (no object per step); `before` holds a
-  // copy of them from before the last step, so that step can be undone at the cut-off.
-  interface Acc {
-    t: number;
-    soc: number;
-    charge: number;
-    equivalent: number;
-    terminal: number;
-    drawn: number;
-    load: number;
-    chain: number;
-    internal: number;
-    peak: number;
-    minV: number;
-  }
-  const acc: Acc = { t: 0, soc: bank.initialSoc, charge: 0, equivalent: 0, terminal: 0, drawn: 0, load: 0, chain: 0, internal: 0, peak: 0, minV: Infinity };
-  const before: Acc = { ...acc };
-  const copyAcc = (to: Acc, from: Acc) => {
-    to.t = from.t;
-    to.soc = from.soc;
-    to.charge = from.charge;
-    to.equivalent = from.equivalent;
-    to.terminal = from.terminal;
-    to.drawn = from.drawn;
-    to.load = from.load;
-    to.chain = from.chain;
-    to.internal = from.internal;
-    to.peak = from.peak;
-    to.minV = from.minV;
+  // The time loop (discharge-steps.ts), then its totals read once for the result.
+  const steps = integrateSteps({
+    solver,
+    bank,
+    intervals: timeline.intervals,
+    stateIds,
+    step,
+    resistance: R,
+    cutoff,
+    availableAs,
+    k,
+    iRated,
+    socLimit,
+    dodApplies,
+    plotSeries: keep.plotSeries !== false,
+    noEnd: timeline.profileEnds ? 'profile-complete' : 'horizon',
+  });
+  if (!steps.ok) return { ok: false, problems: [cannotCarry(source.id, bank, steps.why)] };
+  const { endReason, series } = steps;
+  const a = steps.acc;
+  const acc = {
+    t: a[T]!,
+    soc: a[SOC]!,
+    charge: a[CHARGE]!,
+    equivalent: a[EQUIVALENT]!,
+    terminal: a[TERMINAL]!,
+    drawn: a[DRAWN]!,
+    load: a[LOAD]!,
+    chain: a[CHAIN]!,
+    internal: a[INTERNAL]!,
+    peak: a[PEAK]!,
+    minV: a[MIN_V]!,
   };
-  /** Advance `a` in place by dt at the operating point p with the bank at open-circuit voltage emf. */
-  const advance = (a: Acc, p: StepPoint, emf: number, dt: number): void => {
-    const i = p.current;
-    // Peukert-equivalent charge rate (rated-capacity form of Peukert's law, see header).
-    const rate = i * (i > iRated ? Math.pow(i / iRated, k - 1) : 1);
-    a.t = a.t + dt;
-    a.soc = a.soc - (rate * dt) / availableAs;
-    a.charge = a.charge + i * dt;
-    a.equivalent = a.equivalent + rate * dt;
-    a.terminal = a.terminal + p.terminalPower * dt;
-    a.drawn = a.drawn + emf * i * dt;
-    a.load = a.load + p.loadPower * dt;
-    a.chain = a.chain + p.chainLoss * dt;
-    a.internal = a.internal + p.internalLoss * dt;
-    a.peak = Math.max(a.peak, i);
-    a.minV = Math.min(a.minV, p.voltage);
-  };
-  const rateOf = (i: number) => i * (i > iRated ? Math.pow(i / iRated, k - 1) : 1);
-
-  let endReason: EndReason = timeline.profileEnds ? 'profile-complete' : 'horizon';
-  const dropLastSample = () => {
-    series.time.pop();
-    series.soc.pop();
-    series.voltage.pop();
-    series.current.pop();
-    series.power.pop();
-  };
-  /**
-   * The time loop: sets `endReason`, gives the problem that refuses the study at the start of the
-   * outage, or null. A function of its own, so that the engine keeps it optimised apart from the
-   * result's assembly below, which runs once per study.
-   */
-  const integrate = (): Problem | null => {
-    // The last step (its point, bank voltage and length; the accumulators before it are `before`).
-    let lastP: StepPoint | null = null;
-    let lastEmf = 0;
-    let lastDt = 0;
-    // The point solved at the end of the previous step (same load state): the next step starts there.
-    let carriedP: StepPoint | null = null;
-    let carriedState = -1;
-    const intervals = timeline.intervals;
-    outer: for (let n = 0; n < intervals.length; n++) {
-      const interval = intervals[n]!;
-      const state = stateIds[interval.state]!;
-      // Slack against a sliver step from rounding, relative to the interval or the step, whichever is
-      // shorter (a step longer than the whole outage must not swallow it).
-      const slack = 1e-9 * Math.min(step, interval.end - interval.start);
-      while (acc.t < interval.end - slack) {
-        const emf = bankOcv(bank, acc.soc);
-        const reuse = carriedP !== null && carriedState === state;
-        const p = reuse ? carriedP! : solver.solve(state, emf, R);
-        if (p === null) {
-          if (acc.t === 0) return cannotCarry(source.id, bank, 'the chain cannot be carried at the start of the outage: the bank voltage would collapse');
-          endReason = 'chain-collapse';
-          break outer;
-        }
-        if (p.voltage < cutoff) {
-          if (acc.t === 0) {
-            return cannotCarry(source.id, bank, `the terminal voltage under the starting load, ${p.voltage.toFixed(2)} V, is already below the cut-off ${cutoff.toFixed(2)} V`);
-          }
-          if (reuse && lastP && lastP.voltage > p.voltage) {
-            // Linear interpolation of the terminal voltage over the last step (same load throughout).
-            const f = (lastP.voltage - cutoff) / (lastP.voltage - p.voltage);
-            copyAcc(acc, before);
-            advance(acc, lastP, lastEmf, lastDt * f);
-            dropLastSample();
-            record(acc.t, acc.soc, { ...lastP, voltage: cutoff });
-            acc.minV = Math.min(acc.minV, cutoff);
-          } else {
-            // The load stepped up at this instant and the voltage fell below the cut-off at once.
-            record(acc.t, acc.soc, p);
-            acc.minV = Math.min(acc.minV, p.voltage);
-          }
-          endReason = 'cut-off-voltage';
-          break outer;
-        }
-        if (!reuse) record(acc.t, acc.soc, p);
-        let dt = Math.min(step, interval.end - acc.t);
-        // Depth-of-discharge limit inside the step: the current is held, so SoC falls linearly.
-        const rate = rateOf(p.current);
-        const toLimit = rate > 0 ? ((acc.soc - socLimit) * availableAs) / rate : Infinity;
-        const hitsLimit = toLimit <= dt;
-        if (hitsLimit) dt = Math.max(0, toLimit);
-        copyAcc(before, acc);
-        advance(acc, p, emf, dt);
-        if (hitsLimit) acc.soc = socLimit;
-        lastP = p;
-        lastEmf = emf;
-        lastDt = dt;
-        // The point at the end of the step (same load, new state of charge): plotted, and the next step's start.
-        const after = solver.solve(state, bankOcv(bank, acc.soc), R);
-        carriedP = after;
-        carriedState = state;
-        record(acc.t, acc.soc, after ?? p);
-        if (hitsLimit) {
-          endReason = dodApplies ? 'depth-of-discharge' : 'rated-capacity';
-          break outer;
-        }
-      }
-    }
-    return null;
-  };
-  const refused = integrate();
-  if (refused) return { ok: false, problems: [refused] };
 
   const runtime = acc.t;
   const peukertFactor = acc.charge > 0 ? acc.equivalent / acc.charge : 1;
