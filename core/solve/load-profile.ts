@@ -281,20 +281,65 @@ function tooManyStates(at: number): Problem {
 }
 
 /**
- * Cut the outage [0, horizon) into intervals of constant load. Breakpoints: segment boundaries
- * and every duty switching instant; each interval's state is taken at its midpoint.
+ * The part of a timeline that the profile's timing alone decides (see buildTimeline): the cuts of the
+ * outage and, per raw interval [cuts[i], cuts[i + 1]), its pattern — the base segment in force and the
+ * on/off of every duty schedule at the interval's midpoint. The load levels are not in it: a runtime
+ * spread scales the levels sample by sample (core/studies/spread/sample.ts) while the timing stays, so
+ * the skeleton is built once per timing and kept (timingKey, a few kept at a time).
  */
-export function buildTimeline(project: Project, study: BackupStudy): Timeline {
-  const loads = profileLoads(project);
+interface Skeleton {
+  /** Rising instants, s, from 0; the last is the end. */
+  cuts: number[];
+  end: number;
+  profileEnds: boolean;
+  /** The pattern of each raw interval. */
+  pattern: Int32Array;
+  /** Per pattern, numbered in order of first appearance: base segment (−1: none) and each duty schedule on. */
+  patterns: { segment: number; dutyOn: boolean[]; first: number }[];
+  /** The last grouping of the patterns into states (their state numbers) and its joined intervals. */
+  grouping?: string;
+  intervals?: readonly Interval[];
+}
+
+/**
+ * Everything of the settings the skeleton reads, as text: the horizon, the profile's kind, its
+ * segments' timing, repeat and start hour, and each duty schedule's period, on-time and offset.
+ * (String(x) of a double is exact to the last bit: different timings give different keys.)
+ */
+function timingKey(study: BackupStudy): string {
+  const p = study.profile;
+  let key = `${study.horizonHours ?? DEFAULT_HORIZON_H}|${p.kind}`;
+  if (p.kind === 'segments') key += `|${p.repeat ? 1 : 0}|${p.segments.map((s) => s.durationHours).join(',')}`;
+  else if (p.kind === 'daily') key += `|${p.startHour ?? 0}|${p.segments.map((s) => s.startHour).join(',')}`;
+  for (const d of p.duty ?? []) key += `|${d.periodMinutes},${d.onMinutes},${d.offsetMinutes ?? 0}`;
+  return key;
+}
+
+/** Skeletons kept, by timing key (the oldest dropped past SKELETONS_KEPT: a spread meets two or three). */
+const skeletons = new Map<string, Skeleton>();
+const SKELETONS_KEPT = 8;
+
+function skeletonFor(study: BackupStudy): Skeleton {
+  const key = timingKey(study);
+  const kept = skeletons.get(key);
+  if (kept) return kept;
+  const built = buildSkeleton(study);
+  if (skeletons.size >= SKELETONS_KEPT) skeletons.delete(skeletons.keys().next().value!);
+  skeletons.set(key, built);
+  return built;
+}
+
+/** The cuts and patterns (see Skeleton). Breakpoints: segment boundaries and every duty switching instant. */
+function buildSkeleton(study: BackupStudy): Skeleton {
   const horizon = (study.horizonHours ?? DEFAULT_HORIZON_H) * HOUR;
   const p = study.profile;
   const breaks: number[] = [0];
   let end = horizon;
   let profileEnds = false;
-  // base(t): the settings of the base profile at time t.
-  let base: (t: number) => Record<string, LoadSetting> | undefined;
+  // segmentAt(t): the index of the base profile's segment in force at time t (−1: a constant profile).
+  let segmentAt: (t: number) => number;
   if (p.kind === 'constant') {
-    base = () => undefined;
+    segmentAt = () => -1;
   } else if (p.kind === 'segments') {
     const starts: number[] = [];
     let total = 0;
@@ -307,30 +352,61 @@ export function buildTimeline(project: Project, study: BackupStudy): Timeline {
       profileEnds = true;
     }
     for (let cycle = 0; cycle * total < end && breaks.length <= MAX_LOAD_CHANGES * 2; cycle++) for (const s of starts) breaks.push(cycle * total + s);
-    base = (t) => {
-      const i = lastAtOrBefore(starts, t % total);
-      return p.segments[Math.max(i, 0)]!.loads;
-    };
+    segmentAt = (t) => Math.max(lastAtOrBefore(starts, t % total), 0);
   } else {
     const offset = (p.startHour ?? 0) * HOUR;
     const starts = p.segments.map((s) => s.startHour * HOUR);
     for (let day = -1; day * DAY < end + offset; day++) for (const s of starts) breaks.push(day * DAY + s - offset);
-    base = (t) => {
+    segmentAt = (t) => {
       // The segment in force is the last one starting at or before the time of day; before the first start, the last of the day.
       const i = lastAtOrBefore(starts, (t + offset) % DAY);
-      return p.segments[i < 0 ? starts.length - 1 : i]!.loads;
+      return i < 0 ? starts.length - 1 : i;
     };
   }
   const duty = p.duty ?? [];
   for (const d of duty) dutyBreaks(d, end, breaks);
   const cuts = [...new Set(breaks.filter((t) => t >= 0 && t < end))].sort((a, b) => a - b);
   cuts.push(end);
-  const dutyByLoad = new Map<string, DutySchedule[]>();
-  for (const d of duty) {
-    const list = dutyByLoad.get(d.load);
-    if (list) list.push(d);
-    else dutyByLoad.set(d.load, [d]);
+  const pattern = new Int32Array(Math.max(cuts.length - 1, 0));
+  const patterns: Skeleton['patterns'] = [];
+  const keys = new Map<string, number>();
+  for (let i = 0; i + 1 < cuts.length; i++) {
+    const mid = (cuts[i]! + cuts[i + 1]!) / 2;
+    const segment = segmentAt(mid);
+    const on = duty.map((d) => dutyOn(d, mid));
+    const key = `${segment}:${on.map((x) => (x ? 1 : 0)).join('')}`;
+    let k = keys.get(key);
+    if (k === undefined) {
+      k = patterns.length;
+      patterns.push({ segment, dutyOn: on, first: i });
+      keys.set(key, k);
+    }
+    pattern[i] = k;
   }
+  return { cuts, end, profileEnds, pattern, patterns };
+}
+
+/**
+ * Cut the outage [0, horizon) into intervals of constant load. Breakpoints: segment boundaries
+ * and every duty switching instant; each interval's state is taken at its midpoint. The cuts and
+ * each interval's segment and duty on/off come from the skeleton of the profile's timing (built once
+ * per timing, see Skeleton); the levels are read here, from the project's loads and the profile's
+ * settings, per call. The intervals are shared between calls with the same timing and the same
+ * grouping of intervals into states: frozen, read only.
+ */
+export function buildTimeline(project: Project, study: BackupStudy): Timeline {
+  const loads = profileLoads(project);
+  const p = study.profile;
+  const sk = skeletonFor(study);
+  const { cuts, end, profileEnds } = sk;
+  const duty = p.duty ?? [];
+  // Each load's duty schedules, as indices into the profile's list (the skeleton's on/off order).
+  const dutyByLoad = new Map<string, number[]>();
+  duty.forEach((d, j) => {
+    const list = dutyByLoad.get(d.load);
+    if (list) list.push(j);
+    else dutyByLoad.set(d.load, [j]);
+  });
   // Only the loads the profile names can change; the others stay at their rating throughout, so each
   // interval looks at the named ones alone.
   const named = new Set<string>(dutyByLoad.keys());
@@ -338,18 +414,19 @@ export function buildTimeline(project: Project, study: BackupStudy): Timeline {
   const varying = loads.flatMap((l, k) => (named.has(l.id) ? [k] : []));
   const steady = loads.map((l) => l.rated);
 
+  // The state of each pattern; patterns come in order of first appearance, so the states are numbered
+  // in order of first appearance along the outage, as interval by interval.
   const states: number[][] = [];
   const keys = new Map<string, number>();
-  const intervals: Interval[] = [];
-  for (let i = 0; i + 1 < cuts.length; i++) {
-    const start = cuts[i]!;
-    const stop = cuts[i + 1]!;
-    const mid = (start + stop) / 2;
-    const settings = base(mid);
-    const values = varying.map((k) => {
-      const l = loads[k]!;
+  const stateOf = new Int32Array(sk.patterns.length);
+  let refusedFrom = -1;
+  for (let k = 0; k < sk.patterns.length; k++) {
+    const pat = sk.patterns[k]!;
+    const settings = pat.segment < 0 || p.kind === 'constant' ? undefined : p.segments[pat.segment]!.loads;
+    const values = varying.map((i) => {
+      const l = loads[i]!;
       const schedules = dutyByLoad.get(l.id);
-      if (schedules && !schedules.every((d) => dutyOn(d, mid))) return 0;
+      if (schedules && !schedules.every((j) => pat.dutyOn[j])) return 0;
       // Own keys only: a settings object answers to names it does not hold ("constructor" …).
       return settingValue(l.rated, settings && Object.hasOwn(settings, l.id) ? settings[l.id] : undefined);
     });
@@ -357,17 +434,38 @@ export function buildTimeline(project: Project, study: BackupStudy): Timeline {
     let state = keys.get(key);
     if (state === undefined) {
       if (states.length >= MAX_LOAD_STATES) {
-        return { loads, states, intervals, end, profileEnds, refused: tooManyStates(start) };
+        refusedFrom = k;
+        break;
       }
       state = states.length;
       const all = steady.slice();
-      varying.forEach((k, j) => (all[k] = values[j]!));
+      varying.forEach((i, j) => (all[i] = values[j]!));
       states.push(all);
       keys.set(key, state);
     }
-    const last = intervals[intervals.length - 1];
-    if (last && last.state === state) last.end = stop;
-    else intervals.push({ start, end: stop, state });
+    stateOf[k] = state;
   }
-  return { loads, states, intervals, end, profileEnds };
+  if (refusedFrom >= 0) {
+    // The intervals before the first one of the refused pattern (every later pattern comes after it).
+    const at = sk.patterns[refusedFrom]!.first;
+    return { loads, states, intervals: mergeIntervals(cuts, sk.pattern, stateOf, at), end, profileEnds, refused: tooManyStates(cuts[at]!) };
+  }
+  const grouping = stateOf.join(',');
+  if (sk.grouping !== grouping) {
+    sk.grouping = grouping;
+    sk.intervals = Object.freeze(mergeIntervals(cuts, sk.pattern, stateOf, sk.pattern.length).map((iv) => Object.freeze(iv)));
+  }
+  return { loads, states, intervals: sk.intervals as Interval[], end, profileEnds };
+}
+
+/** Raw intervals 0 … count − 1 with their states, neighbours of one state joined. */
+function mergeIntervals(cuts: readonly number[], pattern: Int32Array, stateOf: Int32Array, count: number): Interval[] {
+  const intervals: Interval[] = [];
+  for (let i = 0; i < count; i++) {
+    const state = stateOf[pattern[i]!]!;
+    const last = intervals[intervals.length - 1];
+    if (last && last.state === state) last.end = cuts[i + 1]!;
+    else intervals.push({ start: cuts[i]!, end: cuts[i + 1]!, state });
+  }
+  return intervals;
 }

@@ -308,7 +308,7 @@ export interface MethodContext extends Checked {
   nominalVoltage: number;
   /** The duty cycle as currents at the bank terminals (fitted to the runtime, equal neighbours joined). */
   periods: CurrentPeriod[];
-  /** The power duty cycle fitted to the runtime (power basis only). */
+  /** The power duty cycle fitted to the runtime (power basis, for a worksheet on a constant-power table only; else null). */
   powerPeriods: PowerPeriod[] | null;
   /** Energy of the duty cycle at the bank terminals, Wh. */
   energyWh: number;
