@@ -127,6 +127,12 @@ export interface SizingInput {
   maxStrings?: number;
   /** Random load added at its own K_t (worksheet line 10) or energy (lithium). */
   randomLoad?: RandomLoad;
+  /**
+   * false: the energy method (lithium) lists no periods (`periods` empty), the figures are the same;
+   * the runtime spread reads the bank alone (a long run gives some thousand periods per sample). The
+   * worksheet (lead-acid, NiCd) sizes from its periods and always lists them. Default true.
+   */
+  keepPeriods?: boolean;
   /** Field paths for problems. */
   fields?: Partial<SizingFieldPaths>;
 }

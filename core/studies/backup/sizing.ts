@@ -166,6 +166,8 @@ export function sizeBank(input: SizingInput): SizingOutcome {
   let voltageBasis = minimumVoltage;
   let periods: CurrentPeriod[];
   let energyWh: number;
+  // The largest period current (Math.max one at a time: a run of some thousand periods as arguments costs a copy).
+  let largest = -Infinity;
   // The power duty cycle fitted to the runtime: read only by a worksheet on a maker's constant-power table.
   let powerPeriods: PowerPeriod[] | null = null;
   const lengthStep = (total: number, target: number) =>
@@ -189,6 +191,7 @@ export function sizeBank(input: SizingInput): SizingOutcome {
     // Neighbouring equal periods joined: the worksheet and the energy are unchanged by it.
     periods = mergeEqualPeriods(periods);
     energyWh = periods.reduce((s, p) => s + (p.current * nominalVoltage * p.duration) / 3600, 0);
+    for (const p of periods) largest = Math.max(largest, p.current);
   } else {
     // A cut-off above the preset's rated end voltage gives no credit (a smaller current): the preset's
     // capacity and Peukert exponent hold to its own end voltage only, and the file cannot say that a
@@ -212,13 +215,18 @@ export function sizeBank(input: SizingInput): SizingOutcome {
     // a run of some thousand periods built no more): each one's current P ÷ V, neighbours of equal
     // current joined (the worksheet and the energy are unchanged by it), and the energy Σ P·t in the
     // periods' order.
+    // Without the list (keepPeriods false, the energy method) only the energy and the largest current.
+    const list = input.keepPeriods !== false || isLeadAcid(preset.chemistry) || preset.chemistry === 'nicd';
     const joined: CurrentPeriod[] = [];
     let wh = 0;
     const visit = (p: PowerPeriod, d: number) => {
       const current = p.power / basis;
-      const last = joined[joined.length - 1];
-      if (last !== undefined && last.current === current) last.duration += d;
-      else joined.push({ duration: d, current });
+      largest = Math.max(largest, current);
+      if (list) {
+        const last = joined[joined.length - 1];
+        if (last !== undefined && last.current === current) last.duration += d;
+        else joined.push({ duration: d, current });
+      }
       wh += (p.power * d) / 3600;
     };
     if (input.targetRuntime !== undefined) {
@@ -236,9 +244,6 @@ export function sizeBank(input: SizingInput): SizingOutcome {
   }
   const random = input.randomLoad;
   const randomCurrent = random === undefined ? 0 : 'current' in random ? random.current : random.power / voltageBasis;
-  // Math.max over the periods one at a time (a run of some thousand periods as arguments costs a copy).
-  let largest = -Infinity;
-  for (const p of periods) largest = Math.max(largest, p.current);
   const peakCurrent = largest + randomCurrent;
   if (!(peakCurrent > 0)) {
     return {
