@@ -285,7 +285,7 @@ function tooManyStates(at: number): Problem {
  * outage and, per raw interval [cuts[i], cuts[i + 1]), its pattern — the base segment in force and the
  * on/off of every duty schedule at the interval's midpoint. The load levels are not in it: a runtime
  * spread scales the levels sample by sample (core/studies/spread/sample.ts) while the timing stays, so
- * the skeleton is built once per timing and kept (timingKey, a few kept at a time).
+ * the skeleton is built once per timing and kept (Timing, a few kept at a time).
  */
 interface Skeleton {
   /** Rising instants, s, from 0; the last is the end. */
@@ -297,35 +297,72 @@ interface Skeleton {
   /** Per pattern, numbered in order of first appearance: base segment (−1: none) and each duty schedule on. */
   patterns: { segment: number; dutyOn: boolean[]; first: number }[];
   /** The last grouping of the patterns into states (their state numbers) and its joined intervals. */
-  grouping?: string;
+  grouping?: Int32Array;
   intervals?: readonly Interval[];
 }
 
 /**
- * Everything of the settings the skeleton reads, as text: the horizon, the profile's kind, its
- * segments' timing, repeat and start hour, and each duty schedule's period, on-time and offset.
- * (String(x) of a double is exact to the last bit: different timings give different keys.)
+ * Everything of the settings the skeleton reads, as numbers: the horizon, the profile's kind, its
+ * segments' timing (durations, or start hours of a day), repeat, the start hour, and each duty
+ * schedule's period, on-time and offset. Compared number by number with the kept ones (no text built:
+ * a spread looks its timing up once per sample).
  */
-function timingKey(study: BackupStudy): string {
-  const p = study.profile;
-  let key = `${study.horizonHours ?? DEFAULT_HORIZON_H}|${p.kind}`;
-  if (p.kind === 'segments') key += `|${p.repeat ? 1 : 0}|${p.segments.map((s) => s.durationHours).join(',')}`;
-  else if (p.kind === 'daily') key += `|${p.startHour ?? 0}|${p.segments.map((s) => s.startHour).join(',')}`;
-  for (const d of p.duty ?? []) key += `|${d.periodMinutes},${d.onMinutes},${d.offsetMinutes ?? 0}`;
-  return key;
+interface Timing {
+  horizon: number;
+  kind: BackupStudy['profile']['kind'];
+  repeat: boolean;
+  startHour: number;
+  marks: number[];
+  duty: number[];
 }
 
-/** Skeletons kept, by timing key (the oldest dropped past SKELETONS_KEPT: a spread meets two or three). */
-const skeletons = new Map<string, Skeleton>();
+function marksOf(p: BackupStudy['profile']): readonly { durationHours?: number; startHour?: number }[] {
+  return p.kind === 'constant' ? [] : p.segments;
+}
+
+function timingOf(study: BackupStudy): Timing {
+  const p = study.profile;
+  const marks = marksOf(p).map((s) => (p.kind === 'segments' ? (s.durationHours ?? 0) : (s.startHour ?? 0)));
+  const duty = (p.duty ?? []).flatMap((d) => [d.periodMinutes, d.onMinutes, d.offsetMinutes ?? 0]);
+  return {
+    horizon: study.horizonHours ?? DEFAULT_HORIZON_H,
+    kind: p.kind,
+    repeat: p.kind === 'segments' && p.repeat === true,
+    startHour: p.kind === 'daily' ? (p.startHour ?? 0) : 0,
+    marks,
+    duty,
+  };
+}
+
+function sameTiming(study: BackupStudy, t: Timing): boolean {
+  const p = study.profile;
+  if ((study.horizonHours ?? DEFAULT_HORIZON_H) !== t.horizon || p.kind !== t.kind) return false;
+  if ((p.kind === 'segments' && p.repeat === true) !== t.repeat || (p.kind === 'daily' ? (p.startHour ?? 0) : 0) !== t.startHour) return false;
+  const segments = marksOf(p);
+  if (segments.length !== t.marks.length) return false;
+  for (let i = 0; i < segments.length; i++) {
+    const s = segments[i]!;
+    if ((p.kind === 'segments' ? (s.durationHours ?? 0) : (s.startHour ?? 0)) !== t.marks[i]) return false;
+  }
+  const duty = p.duty ?? [];
+  if (3 * duty.length !== t.duty.length) return false;
+  for (let j = 0; j < duty.length; j++) {
+    const d = duty[j]!;
+    if (d.periodMinutes !== t.duty[3 * j] || d.onMinutes !== t.duty[3 * j + 1] || (d.offsetMinutes ?? 0) !== t.duty[3 * j + 2]) return false;
+  }
+  return true;
+}
+
+/** Skeletons kept with their timing (the oldest dropped past SKELETONS_KEPT: a spread meets two or three). */
+const skeletons: { timing: Timing; skeleton: Skeleton }[] = [];
 const SKELETONS_KEPT = 8;
 
 function skeletonFor(study: BackupStudy): Skeleton {
-  const key = timingKey(study);
-  const kept = skeletons.get(key);
-  if (kept) return kept;
+  const kept = skeletons.find((k) => sameTiming(study, k.timing));
+  if (kept) return kept.skeleton;
   const built = buildSkeleton(study);
-  if (skeletons.size >= SKELETONS_KEPT) skeletons.delete(skeletons.keys().next().value!);
-  skeletons.set(key, built);
+  if (skeletons.length >= SKELETONS_KEPT) skeletons.shift();
+  skeletons.push({ timing: timingOf(study), skeleton: built });
   return built;
 }
 
@@ -450,12 +487,17 @@ export function buildTimeline(project: Project, study: BackupStudy): Timeline {
     const at = sk.patterns[refusedFrom]!.first;
     return { loads, states, intervals: mergeIntervals(cuts, sk.pattern, stateOf, at), end, profileEnds, refused: tooManyStates(cuts[at]!) };
   }
-  const grouping = stateOf.join(',');
-  if (sk.grouping !== grouping) {
-    sk.grouping = grouping;
+  if (!sameStates(sk.grouping, stateOf)) {
+    sk.grouping = stateOf;
     sk.intervals = Object.freeze(mergeIntervals(cuts, sk.pattern, stateOf, sk.pattern.length).map((iv) => Object.freeze(iv)));
   }
   return { loads, states, intervals: sk.intervals as Interval[], end, profileEnds };
+}
+
+const sameStates = (a: Int32Array | undefined, b: Int32Array): boolean => {
+  if (a === undefined || a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
 }
 
 /** Raw intervals 0 … count − 1 with their states, neighbours of one state joined. */
