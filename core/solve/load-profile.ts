@@ -356,11 +356,19 @@ function sameTiming(study: BackupStudy, t: Timing): boolean {
 /** Skeletons kept with their timing (the oldest dropped past SKELETONS_KEPT: a spread meets two or three). */
 const skeletons: { timing: Timing; skeleton: Skeleton }[] = [];
 const SKELETONS_KEPT = 8;
+/**
+ * Larger skeletons are built per call and not kept, so the kept ones stay within some MB: a day of
+ * 24 segments with a 30-minute duty schedule over a year is about 44 000 cuts; each pattern keeps one
+ * on/off per duty schedule.
+ */
+const KEPT_CUTS_AT_MOST = 100_000;
+const KEPT_PATTERNS_AT_MOST = 4_096;
 
 function skeletonFor(study: BackupStudy): Skeleton {
   const kept = skeletons.find((k) => sameTiming(study, k.timing));
   if (kept) return kept.skeleton;
   const built = buildSkeleton(study);
+  if (built.cuts.length > KEPT_CUTS_AT_MOST || built.patterns.length > KEPT_PATTERNS_AT_MOST) return built;
   if (skeletons.length >= SKELETONS_KEPT) skeletons.shift();
   skeletons.push({ timing: timingOf(study), skeleton: built });
   return built;
