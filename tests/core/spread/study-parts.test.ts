@@ -6,6 +6,8 @@
 import { describe, expect, it } from 'vitest';
 import { solvedOf } from '../solved.ts';
 import { runBackupStudy } from '../../../core/studies/backup/study.ts';
+import { runSpread } from '../../../core/studies/spread/run.ts';
+import { drawSamples } from '../../../core/studies/spread/sample.ts';
 import hillside from '../../../core/demos/hillside-relay-hut.json' with { type: 'json' };
 
 const spreadParts = { sizedRun: false, recharge: false, plotSeries: false, sizingPeriods: false } as const;
@@ -43,5 +45,24 @@ describe('the backup study without the sizing periods', () => {
     expect(lean.study.sizing!.method).toBe(full.study.sizing!.method);
     expect(lean.study.sizing!.periods).toEqual(full.study.sizing!.periods);
     expect(lean.study.sizing!.periods.length).toBeGreaterThan(0);
+  });
+});
+
+describe('a drawn value out of its range', () => {
+  it('is refused in that sample with the settings check\'s own message; the others run', () => {
+    // The cell temperature at 55 °C ± 30 °C: a draw above 80 °C passes the backup settings' range
+    // (core/solve/backup-schema.ts: "must be 80 °C or less").
+    const project = { ...hillside, backup: { ...hillside.backup, temperatureC: 55 } };
+    const only = { capacityPercent: 0, agingPercent: 0, efficiencyPoints: 0, loadPercent: 0, endVoltagePerCell: 0 };
+    const r = runSpread(solvedOf(project), { settings: { samples: 40, seed: 3, temperatureC: 30, ...only } });
+    if (!r.ok) throw new Error('the spread must run');
+    // Check value: the draws of seed 3 themselves (55 + 30·z > 80 ⇔ z > 5/6), counted here.
+    const over = drawSamples(3, 0, 40).flatMap((d, i) => (55 + 30 * d.temperature > 80 ? [i] : []));
+    expect(over.length).toBeGreaterThan(0);
+    expect(r.value.failed).toBe(over.length);
+    expect(r.value.failures.map((f) => f.index)).toEqual(over.slice(0, 10));
+    // The schema's message behind the field's form label (core/model/field-labels.ts "Cell temperature").
+    for (const f of r.value.failures) expect(f.message).toBe('Project, Cell temperature: must be 80 °C or less');
+    expect(r.value.samples).toBe(40);
   });
 });
