@@ -4,12 +4,13 @@
  * every load's power is constant (profile segments and duty switching split it exactly, so the
  * energy of a load is Σ on-time × power with no rounding to the time step).
  */
-import type { BackupStudy, DutySchedule, Element, LoadSetting, Project } from '../model/project.ts';
+import type { BackupStudy, Element, LoadSetting, Project } from '../model/project.ts';
 import type { Problem } from '../model/errors.ts';
 import { PROJECT_LEVEL } from '../model/errors.ts';
 import { q, say } from '../model/message.ts';
 import { RESERVED_IDS } from './structure.ts';
 import { kindSpec } from '../kinds/index.ts';
+import { skeletonFor } from './load-skeleton.ts';
 
 // The schema of the `backup` settings lives in backup-schema.ts (re-exported here for its readers).
 export { MAX_HORIZON_H, backupSchema, profileSchema } from './backup-schema.ts';
@@ -240,38 +241,6 @@ const DAY = 24 * HOUR;
 export const settingValue = (rated: number, s: LoadSetting | undefined): number =>
   s === undefined || s === true ? rated : s === false ? 0 : typeof s === 'number' ? s : (rated * s.percent) / 100;
 
-/** On-intervals of a duty schedule ([start, end), s) that meet [0, end). */
-function dutyBreaks(d: DutySchedule, end: number, into: number[]): void {
-  const period = d.periodMinutes * 60;
-  const on = d.onMinutes * 60;
-  const offset = (d.offsetMinutes ?? 0) * 60;
-  // t = offset + k·period, not a running sum: a period below the resolution of t still ends the
-  // loop (the count is bounded by checkStudy's MAX_LOAD_CHANGES, and here once more).
-  for (let k = 0, t = offset; t < end && k <= MAX_LOAD_CHANGES; k++, t = offset + k * period) {
-    into.push(t, t + on);
-  }
-}
-
-function dutyOn(d: DutySchedule, t: number): boolean {
-  const offset = (d.offsetMinutes ?? 0) * 60;
-  if (t < offset) return false;
-  const period = d.periodMinutes * 60;
-  const into = (t - offset) % period;
-  return into < d.onMinutes * 60;
-}
-
-/** Index of the last of the rising `starts` at or before t, −1 when t comes before them all (binary search). */
-function lastAtOrBefore(starts: readonly number[], t: number): number {
-  let lo = 0;
-  let hi = starts.length;
-  while (lo < hi) {
-    const mid = (lo + hi) >> 1;
-    if (starts[mid]! <= t) lo = mid + 1;
-    else hi = mid;
-  }
-  return lo - 1;
-}
-
 function tooManyStates(at: number): Problem {
   return bad(
     'backup.profile',
@@ -282,55 +251,25 @@ function tooManyStates(at: number): Problem {
 
 /**
  * Cut the outage [0, horizon) into intervals of constant load. Breakpoints: segment boundaries
- * and every duty switching instant; each interval's state is taken at its midpoint.
+ * and every duty switching instant; each interval's state is taken at its midpoint. The cuts and
+ * each interval's segment and duty on/off come from the skeleton of the profile's timing (built once
+ * per timing, see Skeleton); the levels are read here, from the project's loads and the profile's
+ * settings, per call. The intervals are shared between calls with the same timing and the same
+ * grouping of intervals into states: frozen, read only.
  */
 export function buildTimeline(project: Project, study: BackupStudy): Timeline {
   const loads = profileLoads(project);
-  const horizon = (study.horizonHours ?? DEFAULT_HORIZON_H) * HOUR;
   const p = study.profile;
-  const breaks: number[] = [0];
-  let end = horizon;
-  let profileEnds = false;
-  // base(t): the settings of the base profile at time t.
-  let base: (t: number) => Record<string, LoadSetting> | undefined;
-  if (p.kind === 'constant') {
-    base = () => undefined;
-  } else if (p.kind === 'segments') {
-    const starts: number[] = [];
-    let total = 0;
-    for (const s of p.segments) {
-      starts.push(total);
-      total += s.durationHours * HOUR;
-    }
-    if (!p.repeat && total < horizon) {
-      end = total;
-      profileEnds = true;
-    }
-    for (let cycle = 0; cycle * total < end && breaks.length <= MAX_LOAD_CHANGES * 2; cycle++) for (const s of starts) breaks.push(cycle * total + s);
-    base = (t) => {
-      const i = lastAtOrBefore(starts, t % total);
-      return p.segments[Math.max(i, 0)]!.loads;
-    };
-  } else {
-    const offset = (p.startHour ?? 0) * HOUR;
-    const starts = p.segments.map((s) => s.startHour * HOUR);
-    for (let day = -1; day * DAY < end + offset; day++) for (const s of starts) breaks.push(day * DAY + s - offset);
-    base = (t) => {
-      // The segment in force is the last one starting at or before the time of day; before the first start, the last of the day.
-      const i = lastAtOrBefore(starts, (t + offset) % DAY);
-      return p.segments[i < 0 ? starts.length - 1 : i]!.loads;
-    };
-  }
+  const sk = skeletonFor(study);
+  const { cuts, end, profileEnds } = sk;
   const duty = p.duty ?? [];
-  for (const d of duty) dutyBreaks(d, end, breaks);
-  const cuts = [...new Set(breaks.filter((t) => t >= 0 && t < end))].sort((a, b) => a - b);
-  cuts.push(end);
-  const dutyByLoad = new Map<string, DutySchedule[]>();
-  for (const d of duty) {
+  // Each load's duty schedules, as indices into the profile's list (the skeleton's on/off order).
+  const dutyByLoad = new Map<string, number[]>();
+  duty.forEach((d, j) => {
     const list = dutyByLoad.get(d.load);
-    if (list) list.push(d);
-    else dutyByLoad.set(d.load, [d]);
-  }
+    if (list) list.push(j);
+    else dutyByLoad.set(d.load, [j]);
+  });
   // Only the loads the profile names can change; the others stay at their rating throughout, so each
   // interval looks at the named ones alone.
   const named = new Set<string>(dutyByLoad.keys());
@@ -338,18 +277,19 @@ export function buildTimeline(project: Project, study: BackupStudy): Timeline {
   const varying = loads.flatMap((l, k) => (named.has(l.id) ? [k] : []));
   const steady = loads.map((l) => l.rated);
 
+  // The state of each pattern; patterns come in order of first appearance, so the states are numbered
+  // in order of first appearance along the outage, as interval by interval.
   const states: number[][] = [];
   const keys = new Map<string, number>();
-  const intervals: Interval[] = [];
-  for (let i = 0; i + 1 < cuts.length; i++) {
-    const start = cuts[i]!;
-    const stop = cuts[i + 1]!;
-    const mid = (start + stop) / 2;
-    const settings = base(mid);
-    const values = varying.map((k) => {
-      const l = loads[k]!;
+  const stateOf = new Int32Array(sk.patterns.length);
+  let refusedFrom = -1;
+  for (let k = 0; k < sk.patterns.length; k++) {
+    const pat = sk.patterns[k]!;
+    const settings = pat.segment < 0 || p.kind === 'constant' ? undefined : p.segments[pat.segment]!.loads;
+    const values = varying.map((i) => {
+      const l = loads[i]!;
       const schedules = dutyByLoad.get(l.id);
-      if (schedules && !schedules.every((d) => dutyOn(d, mid))) return 0;
+      if (schedules && !schedules.every((j) => pat.dutyOn[j])) return 0;
       // Own keys only: a settings object answers to names it does not hold ("constructor" …).
       return settingValue(l.rated, settings && Object.hasOwn(settings, l.id) ? settings[l.id] : undefined);
     });
@@ -357,17 +297,43 @@ export function buildTimeline(project: Project, study: BackupStudy): Timeline {
     let state = keys.get(key);
     if (state === undefined) {
       if (states.length >= MAX_LOAD_STATES) {
-        return { loads, states, intervals, end, profileEnds, refused: tooManyStates(start) };
+        refusedFrom = k;
+        break;
       }
       state = states.length;
       const all = steady.slice();
-      varying.forEach((k, j) => (all[k] = values[j]!));
+      varying.forEach((i, j) => (all[i] = values[j]!));
       states.push(all);
       keys.set(key, state);
     }
-    const last = intervals[intervals.length - 1];
-    if (last && last.state === state) last.end = stop;
-    else intervals.push({ start, end: stop, state });
+    stateOf[k] = state;
   }
-  return { loads, states, intervals, end, profileEnds };
+  if (refusedFrom >= 0) {
+    // The intervals before the first one of the refused pattern (every later pattern comes after it).
+    const at = sk.patterns[refusedFrom]!.first;
+    return { loads, states, intervals: mergeIntervals(cuts, sk.pattern, stateOf, at), end, profileEnds, refused: tooManyStates(cuts[at]!) };
+  }
+  if (!sameStates(sk.grouping, stateOf)) {
+    sk.grouping = stateOf;
+    sk.intervals = Object.freeze(mergeIntervals(cuts, sk.pattern, stateOf, sk.pattern.length).map((iv) => Object.freeze(iv)));
+  }
+  return { loads, states, intervals: sk.intervals as Interval[], end, profileEnds };
+}
+
+const sameStates = (a: Int32Array | undefined, b: Int32Array): boolean => {
+  if (a === undefined || a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
+}
+
+/** Raw intervals 0 … count − 1 with their states, neighbours of one state joined. */
+function mergeIntervals(cuts: readonly number[], pattern: Int32Array, stateOf: Int32Array, count: number): Interval[] {
+  const intervals: Interval[] = [];
+  for (let i = 0; i < count; i++) {
+    const state = stateOf[pattern[i]!]!;
+    const last = intervals[intervals.length - 1];
+    if (last && last.state === state) last.end = cuts[i + 1]!;
+    else intervals.push({ start: cuts[i]!, end: cuts[i + 1]!, state });
+  }
+  return intervals;
 }

@@ -123,15 +123,19 @@ function checkPeriods(out: Problem[], elementId: string, field: string, duty: Du
   const unit = duty.basis === 'current' ? 'A' : 'W';
   // The field path is built only for a refused period (a runtime study's run gives some thousands).
   const base = (i: number) => `${field}.periods[${i}]`;
-  duty.periods.forEach((p, i) => {
-    if (!isFiniteNumber(p.duration) || p.duration <= 0) {
-      out.push(problem('invalid-value', elementId, `${base(i)}.duration`, p.duration, 'period duration must be greater than 0 s'));
+  // A plain loop reading the field by its name (a run gives some thousand periods per study).
+  const periods = duty.periods as readonly Record<string, unknown>[];
+  const power = key === 'power';
+  for (let i = 0; i < periods.length; i++) {
+    const p = periods[i]!;
+    if (!isFiniteNumber(p['duration']) || p['duration'] <= 0) {
+      out.push(problem('invalid-value', elementId, `${base(i)}.duration`, p['duration'], 'period duration must be greater than 0 s'));
     }
-    const v = (p as unknown as Record<string, unknown>)[key];
+    const v = power ? p['power'] : p['current'];
     if (!isFiniteNumber(v) || v < 0) {
       out.push(problem('invalid-value', elementId, `${base(i)}.${key}`, v, `period ${key} must be a number of at least 0 ${unit} (charging periods are not part of a discharge duty cycle)`));
     }
-  });
+  }
   if (duty.basis === 'power' && duty.voltage !== undefined && (!isFiniteNumber(duty.voltage) || duty.voltage <= 0)) {
     out.push(problem('invalid-value', elementId, `${field}.voltage`, duty.voltage, 'conversion voltage must be greater than 0 V'));
   }

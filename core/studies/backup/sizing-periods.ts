@@ -40,6 +40,24 @@ export function fitToRuntime<T extends { duration: number }>(periods: readonly T
 }
 
 /**
+ * Visits the periods `fitToRuntime` would give, in order, without building them: each period and the
+ * duration it keeps there (its own, or the cut one's). Same loop, same arithmetic.
+ */
+export function forEachFitted<T extends { duration: number }>(periods: readonly T[], target: number, visit: (p: T, duration: number) => void): void {
+  let left = target;
+  const total = periods.reduce((s, p) => s + p.duration, 0);
+  const eps = 1e-9 * target;
+  while (left > eps && total > 0) {
+    for (const p of periods) {
+      if (left <= eps) break;
+      const d = Math.min(p.duration, left);
+      visit(p, d);
+      left -= d;
+    }
+  }
+}
+
+/**
  * Joins neighbouring periods whose currents lie within `rel` of the joined period's current, at the
  * higher current: never lowers a current, so never lowers the worksheet size (each section grows
  * with every current, see the property tests), and overstates it by at most `rel`.

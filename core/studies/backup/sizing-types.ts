@@ -127,6 +127,12 @@ export interface SizingInput {
   maxStrings?: number;
   /** Random load added at its own K_t (worksheet line 10) or energy (lithium). */
   randomLoad?: RandomLoad;
+  /**
+   * false: the energy method (lithium) lists no periods (`periods` empty), the figures are the same;
+   * the runtime spread reads the bank alone (a long run gives some thousand periods per sample). The
+   * worksheet (lead-acid, NiCd) sizes from its periods and always lists them. Default true.
+   */
+  keepPeriods?: boolean;
   /** Field paths for problems. */
   fields?: Partial<SizingFieldPaths>;
 }
@@ -308,7 +314,7 @@ export interface MethodContext extends Checked {
   nominalVoltage: number;
   /** The duty cycle as currents at the bank terminals (fitted to the runtime, equal neighbours joined). */
   periods: CurrentPeriod[];
-  /** The power duty cycle fitted to the runtime (power basis only). */
+  /** The power duty cycle fitted to the runtime (power basis, for a worksheet on a constant-power table only; else null). */
   powerPeriods: PowerPeriod[] | null;
   /** Energy of the duty cycle at the bank terminals, Wh. */
   energyWh: number;

@@ -69,7 +69,7 @@ import { sizeByEnergy } from './sizing-by-energy.ts';
 import { sizeByWorksheet } from './sizing-by-worksheet.ts';
 import { isLeadAcid } from './sizing-factors.ts';
 import { checkInput, problem } from './sizing-input.ts';
-import { fitToRuntime, mergeEqualPeriods } from './sizing-periods.ts';
+import { fitToRuntime, forEachFitted, mergeEqualPeriods } from './sizing-periods.ts';
 import {
   DEFAULT_MAX_STRINGS,
   round,
@@ -165,8 +165,33 @@ export function sizeBank(input: SizingInput): SizingOutcome {
   const duty = input.dutyCycle;
   let voltageBasis = minimumVoltage;
   let periods: CurrentPeriod[];
+  let energyWh: number;
+  // The largest period current (Math.max one at a time: a run of some thousand periods as arguments costs a copy).
+  let largest = -Infinity;
+  // The power duty cycle fitted to the runtime: read only by a worksheet on a maker's constant-power table.
+  let powerPeriods: PowerPeriod[] | null = null;
+  const lengthStep = (total: number, target: number) =>
+    step(
+      'Duty cycle length',
+      target,
+      's',
+      Math.abs(total - target) <= 1e-9 * target
+        ? 'equals the target runtime'
+        : total < target
+          ? `the ${round(total)} s duty cycle repeated from its start to the target runtime`
+          : `the ${round(total)} s duty cycle cut at the target runtime`,
+    );
   if (duty.basis === 'current') {
     periods = duty.periods.map((p) => ({ duration: p.duration, current: p.current }));
+    if (input.targetRuntime !== undefined) {
+      const total = periods.reduce((s, p) => s + p.duration, 0);
+      periods = fitToRuntime(periods, input.targetRuntime);
+      lengthStep(total, input.targetRuntime);
+    }
+    // Neighbouring equal periods joined: the worksheet and the energy are unchanged by it.
+    periods = mergeEqualPeriods(periods);
+    energyWh = periods.reduce((s, p) => s + (p.current * nominalVoltage * p.duration) / 3600, 0);
+    for (const p of periods) largest = Math.max(largest, p.current);
   } else {
     // A cut-off above the preset's rated end voltage gives no credit (a smaller current): the preset's
     // capacity and Peukert exponent hold to its own end voltage only, and the file cannot say that a
@@ -174,7 +199,8 @@ export function sizeBank(input: SizingInput): SizingOutcome {
     // never makes the bank smaller; the caution asks for the maker's table.
     const ratedEnd = CHEMISTRY_PRESETS[preset.chemistry].endOfDischargeCellVoltage;
     const noCredit = endVoltageCaution(preset.chemistry, preset.endOfDischargeCellVoltage, ratedEnd) !== null;
-    voltageBasis = duty.voltage ?? (noCredit ? seriesCells * ratedEnd : minimumVoltage);
+    const basis = duty.voltage ?? (noCredit ? seriesCells * ratedEnd : minimumVoltage);
+    voltageBasis = basis;
     step(
       'Voltage for power → current',
       voltageBasis,
@@ -185,39 +211,39 @@ export function sizeBank(input: SizingInput): SizingOutcome {
           ? `${seriesCells} cells × ${ratedEnd} V/cell, the end voltage the capacities are rated to, not the higher cut-off (no credit for the higher cut-off: see the caution)`
           : 'minimum bank voltage (conservative: a constant-power load draws most current there)',
     );
-    periods = duty.periods.map((p) => ({ duration: p.duration, current: p.power / voltageBasis }));
+    // One pass over the periods fitted to the runtime (forEachFitted visits what fitToRuntime gives,
+    // a run of some thousand periods built no more): each one's current P ÷ V, neighbours of equal
+    // current joined (the worksheet and the energy are unchanged by it), and the energy Σ P·t in the
+    // periods' order.
+    // Without the list (keepPeriods false, the energy method) only the energy and the largest current.
+    const list = input.keepPeriods !== false || isLeadAcid(preset.chemistry) || preset.chemistry === 'nicd';
+    const joined: CurrentPeriod[] = [];
+    let wh = 0;
+    const visit = (p: PowerPeriod, d: number) => {
+      const current = p.power / basis;
+      largest = Math.max(largest, current);
+      if (list) {
+        const last = joined[joined.length - 1];
+        if (last !== undefined && last.current === current) last.duration += d;
+        else joined.push({ duration: d, current });
+      }
+      wh += (p.power * d) / 3600;
+    };
+    if (input.targetRuntime !== undefined) {
+      const total = duty.periods.reduce((s, p) => s + p.duration, 0);
+      forEachFitted(duty.periods, input.targetRuntime, visit);
+      lengthStep(total, input.targetRuntime);
+    } else {
+      for (const p of duty.periods) visit(p, p.duration);
+    }
+    periods = joined;
+    energyWh = wh;
+    if ((isLeadAcid(preset.chemistry) || preset.chemistry === 'nicd') && input.powerFactors !== undefined) {
+      powerPeriods = input.targetRuntime !== undefined ? fitToRuntime(duty.periods, input.targetRuntime) : duty.periods.map((p) => ({ duration: p.duration, power: p.power }));
+    }
   }
-  if (input.targetRuntime !== undefined) {
-    const total = periods.reduce((s, p) => s + p.duration, 0);
-    periods = fitToRuntime(periods, input.targetRuntime);
-    step(
-      'Duty cycle length',
-      input.targetRuntime,
-      's',
-      Math.abs(total - input.targetRuntime) <= 1e-9 * input.targetRuntime
-        ? 'equals the target runtime'
-        : total < input.targetRuntime
-          ? `the ${round(total)} s duty cycle repeated from its start to the target runtime`
-          : `the ${round(total)} s duty cycle cut at the target runtime`,
-    );
-  }
-  // Neighbouring equal periods joined: the worksheet and the energy are unchanged by it.
-  periods = mergeEqualPeriods(periods);
-  const powerPeriods: PowerPeriod[] | null =
-    duty.basis === 'power'
-      ? input.targetRuntime !== undefined
-        ? fitToRuntime(duty.periods, input.targetRuntime)
-        : duty.periods.map((p) => ({ duration: p.duration, power: p.power }))
-      : null;
-  const energyWh =
-    powerPeriods !== null
-      ? powerPeriods.reduce((s, p) => s + (p.power * p.duration) / 3600, 0)
-      : periods.reduce((s, p) => s + (p.current * nominalVoltage * p.duration) / 3600, 0);
   const random = input.randomLoad;
   const randomCurrent = random === undefined ? 0 : 'current' in random ? random.current : random.power / voltageBasis;
-  // Math.max over the periods one at a time (a run of some thousand periods as arguments costs a copy).
-  let largest = -Infinity;
-  for (const p of periods) largest = Math.max(largest, p.current);
   const peakCurrent = largest + randomCurrent;
   if (!(peakCurrent > 0)) {
     return {

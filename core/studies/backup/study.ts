@@ -111,6 +111,11 @@ export interface StudyParts {
    * voltage and current empty): no plot. The figures are the same.
    */
   plotSeries?: boolean;
+  /**
+   * false: the sizing lists no periods (`sizing.periods` empty for the energy method: lithium; the
+   * worksheet sizes from its periods and keeps them). The figures are the same.
+   */
+  sizingPeriods?: boolean;
 }
 
 /**
@@ -168,6 +173,7 @@ export function runBackupStudy(input: Solved, parts: StudyParts = {}): BackupStu
       ...(study.standardCapacitiesAh ? { ratings: study.standardCapacitiesAh } : {}),
       ...(spec.cellsPerBlock !== undefined ? { cellsPerBlock: spec.cellsPerBlock } : {}),
       seriesBlocks: spec.series,
+      ...(parts.sizingPeriods === false ? { keepPeriods: false } : {}),
       fields: { designMargin: 'backup.designMargin', agingFactor: 'backup.agingFactor', targetRuntime: 'backup.targetRuntimeHours', ratings: 'backup.standardCapacitiesAh', temperature: 'backup.temperatureC', design: 'backup.design' },
     });
     if (sized.ok) {

@@ -110,8 +110,9 @@ function runDraw(solved: Solved, plan: Pick<SpreadPlan, 'tolerances' | 'cost' | 
     if (!o.ok) return o;
     s = o;
   }
-  // The runtime and the sizing only: the spread reads no sized run, no recharge and no plot series.
-  const study = runBackupStudy(s, { sizedRun: false, recharge: false, plotSeries: false });
+  // The runtime and the sizing only: the spread reads no sized run, no recharge, no plot series and
+  // no list of the sizing's periods.
+  const study = runBackupStudy(s, { sizedRun: false, recharge: false, plotSeries: false, sizingPeriods: false });
   if (!study.ok) return study;
   const dis = study.study.discharge;
   let costPerYear: number | null = null;

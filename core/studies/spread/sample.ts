@@ -11,7 +11,7 @@
 import { xoroshiro128plus } from 'pure-rand/generator/xoroshiro128plus';
 import { uniformFloat64 } from 'pure-rand/distribution/uniformFloat64';
 import { skipN } from 'pure-rand/utils/skipN';
-import type { BackupStudy, BatterySource, Element, LoadSetting, LossModel } from '../../model/project.ts';
+import type { BackupStudy, BatteryBankSpec, BatterySource, Element, LoadSetting, LossModel } from '../../model/project.ts';
 import type { ValidProject } from '../../solve/validate.ts';
 import type { VariantChange } from '../../solve/variant.ts';
 import { resolveBank } from '../../physics/bank.ts';
@@ -104,6 +104,20 @@ function scaledBackup(b: BackupStudy, factor: number): BackupStudy {
 }
 
 /**
+ * The bank's end-of-discharge cell voltage (its override, else the chemistry's), kept per bank object:
+ * every sample of a spread starts from the same solved project, so from the same bank.
+ */
+const endVoltages = new WeakMap<BatteryBankSpec, number>();
+function endVoltageOf(bank: BatteryBankSpec): number {
+  let v = endVoltages.get(bank);
+  if (v === undefined) {
+    v = resolveBank(bank).values.endOfDischargeCellVoltage;
+    endVoltages.set(bank, v);
+  }
+  return v;
+}
+
+/**
  * The change one draw makes (checked and applied by core/solve/variant.ts): each input with a
  * tolerance of 0, or drawn at its project value, changes nothing. `outputW`: each element's solved
  * output power (a loss polynomial without a rating is shifted at it).
@@ -122,7 +136,7 @@ export function changeOf(project: ValidProject, tol: Tolerances, d: Draw, output
       const bank = { ...b.bank! };
       if (capF !== 1) bank.capacityAh = bank.capacityAh * capF;
       if (endDv !== 0) {
-        const end = resolveBank(b.bank!).values.endOfDischargeCellVoltage;
+        const end = endVoltageOf(b.bank!);
         bank.overrides = { ...bank.overrides, endOfDischargeCellVoltage: end + endDv };
       }
       e = { ...b, bank };
