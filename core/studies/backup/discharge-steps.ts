@@ -33,6 +33,8 @@ export const INTERNAL = 8;
 export const PEAK = 9;
 export const MIN_V = 10;
 const ACC_SIZE = 11;
+/** The most samples a series is presized for (beyond it, it grows as it fills). */
+const MAX_PRESIZE = 1 << 16;
 
 export interface StepsInput {
   solver: RepeatSolver;
@@ -89,27 +91,31 @@ function advance(to: Float64Array, from: Float64Array, p: StepPoint, emf: number
 /** Run the time loop over the timeline's intervals. */
 export function integrateSteps(input: StepsInput): StepsOutcome {
   const { solver, bank, intervals, stateIds, step, resistance: R, cutoff, availableAs, k, iRated, socLimit } = input;
-  const time: number[] = [];
-  const socs: number[] = [];
-  const voltage: number[] = [];
-  const current: number[] = [];
-  const power: number[] = [];
+  // The series presized from the step count (each interval's steps, plus one sample at each load
+  // change): written by index and cut to the samples written at the end, so they do not grow by
+  // copies as they fill (a longer run than the estimate just extends them).
+  let expected = 0;
+  for (let n = 0; n < intervals.length; n++) expected += Math.ceil((intervals[n]!.end - intervals[n]!.start) / step) + 1;
+  if (!(expected <= MAX_PRESIZE)) expected = MAX_PRESIZE;
   const plot = input.plotSeries;
+  const time: number[] = new Array(expected);
+  const power: number[] = new Array(expected);
+  const socs: number[] = plot ? new Array(expected) : [];
+  const voltage: number[] = plot ? new Array(expected) : [];
+  const current: number[] = plot ? new Array(expected) : [];
+  let samples = 0;
   const record = (t: number, soc: number, v: number, i: number, pw: number): void => {
-    time.push(t);
-    power.push(pw);
+    time[samples] = t;
+    power[samples] = pw;
     if (plot) {
-      socs.push(soc);
-      voltage.push(v);
-      current.push(i);
+      socs[samples] = soc;
+      voltage[samples] = v;
+      current[samples] = i;
     }
+    samples++;
   };
   const dropLastSample = (): void => {
-    time.pop();
-    socs.pop();
-    voltage.pop();
-    current.pop();
-    power.pop();
+    samples--;
   };
   // Open-circuit voltage of the bank: the OCV curve's linear interpolation, held at its ends, the
   // same arithmetic as ocvAt (core/physics/bank.ts) — the first point at or above the state of
@@ -220,6 +226,13 @@ export function integrateSteps(input: StepsInput): StepsOutcome {
         break outer;
       }
     }
+  }
+  time.length = samples;
+  power.length = samples;
+  if (plot) {
+    socs.length = samples;
+    voltage.length = samples;
+    current.length = samples;
   }
   return { ok: true, acc, endReason, series: { time, soc: socs, voltage, current, power } };
 }
