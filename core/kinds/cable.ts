@@ -108,7 +108,7 @@ export const cableKind = defineKind<CableStage>({
     const link = seriesLink(z, kind);
     return {
       out: { ...input! },
-      outputVoltage: (vIn, sOut, y) => link.outputVoltage(vIn, sOut, y),
+      outputVoltage: link.outputVoltage,
       inputPower: (sOut, vIn, vOut) => link.inputPower(sOut, vOut, vIn),
       report: () => ({ warnings: [] }),
     };

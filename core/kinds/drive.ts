@@ -16,7 +16,7 @@
 import { z } from 'zod/mini';
 import type { DriveStage, Element, MotorStage } from '../model/project.ts';
 import { c } from '../physics/complex.ts';
-import { checkLossModel, defineKind, finiteOrNone, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, nominalPort, reactiveFromPf, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
+import { checkLossModel, defineKind, finiteOrNone, fmtPct, fmtW, fromField, idField, lossModelSchema, nameField, nominalPort, regulatingConverter, unitFraction, type ElementModel, type KindWarning, type PortInfo } from './spec.ts';
 import { driveLossAt, driveLossGrid } from '../physics/drive-loss.ts';
 import { ranged } from './ranges.ts';
 import { q, say } from '../model/message.ts';
@@ -141,12 +141,14 @@ export const driveKind = defineKind<DriveStage>({
       return driveLossAt(grid, op.speed, op.torque);
     };
     const vOut = c(e.outputVoltage / Math.sqrt(3));
+    // Q = |P|·tan(arccos pf), lagging (reactiveFromPf), tan(arccos pf) worked once per model.
+    const tanPhi = e.inputPowerFactor === 1 ? 0 : Math.tan(Math.acos(e.inputPowerFactor));
     return withPhaseWarning({
       out: { kind: 'ac3', frequency: e.outputFrequency },
       outputVoltage: () => vOut,
       inputPower(sOut) {
         const pIn = sOut.re + lossAt(sOut.re).loss;
-        return c(pIn, e.inputPowerFactor === 1 ? 0 : reactiveFromPf(pIn, e.inputPowerFactor));
+        return c(pIn, e.inputPowerFactor === 1 ? 0 : Math.abs(pIn) * tanPhi);
       },
       report(sOut) {
         const warnings: KindWarning[] = [];

@@ -140,12 +140,18 @@ export function regulatingConverter(opts: {
   const vOut = c(perPhase(opts.out.kind, opts.outputVoltage));
   const pf = opts.inputKind === 'dc' ? 1 : (opts.inputPowerFactor ?? 1);
   const memo: LossMemo = {};
+  // Q = |P|·tan(arccos pf) (reactiveFromPf), with tan(arccos pf) and the sign worked once per model:
+  // the same product of the same two numbers as a call per sweep gives.
+  const tanPhi = pf === 1 ? 0 : Math.tan(Math.acos(pf));
+  const leading = opts.inputPfSense === 'leading';
   return pureModel({
     out: opts.out,
     outputVoltage: () => vOut,
     inputPower: (sOut) => {
       const pIn = sOut.re + prepared.loss(sOut.re).loss;
-      return c(pIn, pf === 1 ? 0 : reactiveFromPf(pIn, pf, opts.inputPfSense));
+      if (pf === 1) return c(pIn, 0);
+      const q = Math.abs(pIn) * tanPhi;
+      return c(pIn, leading ? -q : q);
     },
     report: (sOut) => lossReport(prepared, sOut.re, memo),
   });

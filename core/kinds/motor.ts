@@ -36,6 +36,8 @@ const pfModel = z.discriminatedUnion(
 
 /** Below this load fraction motor efficiency and power factor fall off steeply (common practice). */
 const LIGHT_LOAD = 0.4;
+/** A shaft output has no voltage: one zero phasor for every call (nothing mutates a solved voltage). */
+const SHAFT_VOLTAGE = c(0);
 
 function pfAt(model: PowerFactorModel, x: number): number {
   if (model.model === 'constant') return model.powerFactor;
@@ -114,7 +116,7 @@ export const motorKind = defineKind<MotorStage>({
     if (rating) {
       return pureModel({
         out,
-        outputVoltage: () => c(0),
+        outputVoltage: () => SHAFT_VOLTAGE,
         inputPower(sOut) {
           const p = sOut.re;
           const at = ratedAt(rating, p / e.ratedOutput);
@@ -137,7 +139,7 @@ export const motorKind = defineKind<MotorStage>({
     const memo: LossMemo = {};
     return pureModel({
       out,
-      outputVoltage: () => c(0),
+      outputVoltage: () => SHAFT_VOLTAGE,
       inputPower(sOut) {
         const pIn = sOut.re + prepared.loss(sOut.re).loss;
         return c(pIn, reactiveFromPf(pIn, pfAt(pfModelOf, sOut.re / e.ratedOutput)));

@@ -9,7 +9,7 @@
  */
 import { z } from 'zod/mini';
 import type { TransformerStage } from '../model/project.ts';
-import { abs, add, c, scale } from '../physics/complex.ts';
+import { abs, c, scale } from '../physics/complex.ts';
 import { defineKind, finiteOrNone, fmtPct, fmtW, fromField, idField, nameField, nominalPort, perPhase, seriesLink } from './spec.ts';
 import { ranged } from './ranges.ts';
 import { q, say } from '../model/message.ts';
@@ -59,7 +59,11 @@ export const transformerKind = defineKind<TransformerStage>({
     return {
       out: { kind, ...(input!.frequency !== undefined ? { frequency: input!.frequency } : {}) },
       outputVoltage: (vIn, sOut, y) => link.outputVoltage(scale(vIn, ratio), sOut, y),
-      inputPower: (sOut, vIn, vOut) => add(link.inputPower(sOut, vOut, scale(vIn, ratio)), c(e.noLoadLoss)),
+      // S_in = S_link + P_0 (no-load loss): `add(s, c(P_0))` written out, the same sums (im + 0 kept) in one object.
+      inputPower: (sOut, vIn, vOut) => {
+        const s = link.inputPower(sOut, vOut, scale(vIn, ratio));
+        return { re: s.re + e.noLoadLoss, im: s.im + 0 };
+      },
       report(sOut, _sIn, vIn) {
         const s = abs(sOut);
         const warnings = [];

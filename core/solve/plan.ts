@@ -37,12 +37,15 @@ const builtModels = new WeakMap<Element, { spec: KindSpec; input: PortInfo | nul
 const samePort = (a: PortInfo | null, b: PortInfo | null): boolean =>
   a === b || (a !== null && b !== null && a.kind === b.kind && a.frequency === b.frequency && a.speed === b.speed);
 
-function modelOf(spec: KindSpec, e: Element, input: PortInfo | null, reuse: boolean): ElementModel {
-  if (!reuse) return spec.build(e, input);
+/** The model kept for `e` when it may serve this spec fed this port (see `builtModels`), else undefined. */
+function keptModel(spec: KindSpec, e: Element, input: PortInfo | null): ElementModel | undefined {
   const hit = builtModels.get(e);
-  if (hit !== undefined && hit.spec === spec && samePort(hit.input, input)) return hit.model;
+  return hit !== undefined && hit.spec === spec && samePort(hit.input, input) ? hit.model : undefined;
+}
+
+function buildModel(spec: KindSpec, e: Element, input: PortInfo | null, reuse: boolean): ElementModel {
   const model = spec.build(e, input);
-  if (isPureModel(model)) builtModels.set(e, { spec, input, model });
+  if (reuse && isPureModel(model)) builtModels.set(e, { spec, input, model });
   return model;
 }
 
@@ -92,7 +95,10 @@ export function plan(project: Project, reuseModels = false): Plan {
     placed[at] = true;
     const e = elements[at]!;
     const spec = KINDS.get(e.kind)!;
-    if (input) {
+    // A kept model was built for this element object, kind spec and input port, which the ports
+    // check below passed then and would pass again (`accepts` reads only the element): no check.
+    const kept = reuseModels ? keptModel(spec, e, input) : undefined;
+    if (kept === undefined && input) {
       const accepted = spec.accepts(e);
       if (!accepted.includes(input.kind)) {
         problems.push({
@@ -105,7 +111,7 @@ export function plan(project: Project, reuseModels = false): Plan {
         continue; // what hangs below cannot be built without this element's output port
       }
     }
-    const model = modelOf(spec, e, input, reuseModels);
+    const model = kept ?? buildModel(spec, e, input, reuseModels);
     if (model.problems !== undefined) for (const p of model.problems) problems.push({ ...p, elementId: e.id });
     const index = order.length;
     const role = input !== null && spec.fedRole !== undefined ? spec.fedRole : spec.role;
