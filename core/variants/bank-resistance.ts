@@ -21,6 +21,13 @@ export interface Stringing {
  * significant digits: a field's value as a planner would write it, not a float's tail.
  */
 export function restrungResistance(resistance: number, from: Stringing, to: Stringing): number {
-  const k = to.series / from.series;
-  return Number((resistance * ((k * (from.strings ?? 1)) / (to.strings ?? 1))).toPrecision(4));
+  return Number(restrungExact(resistance, from, to).toPrecision(4));
+}
+
+/**
+ * The same, not rounded: R' = (R · (n'/n) · m) / m' (the backup study's sized bank, core/studies/backup/study.ts,
+ * which is worked out, not written into a field; with the series count kept, n'/n = 1 exactly).
+ */
+export function restrungExact(resistance: number, from: Stringing, to: Stringing): number {
+  return (resistance * (to.series / from.series) * (from.strings ?? 1)) / (to.strings ?? 1);
 }

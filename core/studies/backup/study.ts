@@ -14,6 +14,7 @@ import { dischargeVariant, simulateDischarge, type DischargeResult } from './dis
 import { MAX_REPEATED_PERIODS, repeatedPeriods, sizeBank, type BankSizing, type PowerPeriod } from './sizing.ts';
 import { MAX_HORIZON_H, count } from '../../solve/load-profile.ts';
 import { chargerForTargetTime, rechargeTime, type ChargerSizing, type Recharge } from './recharge.ts';
+import { restrungExact } from '../../variants/bank-resistance.ts';
 
 export interface BackupStudyResult {
   /**
@@ -72,9 +73,11 @@ function endlessBank(battery: BatterySource, study: BackupStudy, internalResista
 
 /** The change that puts the sized bank in place of the given one (same module, the sized strings). */
 function sizedBank(battery: BatterySource, study: BackupStudy, sizing: BankSizing, target: number): VariantChange {
-  const strings = battery.bank!.strings ?? 1;
-  // A given bank resistance scales as 1/strings (Ohm's law for equal strings in parallel).
-  const r = battery.internalResistance === undefined ? {} : { internalResistance: (battery.internalResistance * strings) / sizing.strings };
+  // A bank resistance given for the whole bank follows the re-stringing: × series, ÷ strings (series and
+  // parallel resistors; core/variants/bank-resistance.ts, shared with the search and the quick variants).
+  const r = battery.internalResistance === undefined
+    ? {}
+    : { internalResistance: restrungExact(battery.internalResistance, battery.bank!, { series: sizing.seriesBlocks, strings: sizing.strings }) };
   return {
     // Long enough to see the sized bank run out (it is sized with margins beyond the target), within
     // the year a study runs at most.
