@@ -9,20 +9,10 @@ import { describe, expect, it } from 'vitest';
 import { meanPrice, profileDayHours } from '../../core/model/tariff.ts';
 import { solveProject } from '../../core/solve/index.ts';
 import { dutyHoursPerYear, lifetimeCost } from '../../core/studies/lifetime.ts';
+import { lampsChain } from './lamps-chain.ts';
 
-/** The hand chain of tests/core/lifetime.test.ts: 230 V supply, rectifier of constant 90 % (loses 100 W at the 900 W load), the load "Lamps". */
-const chain = (running: Record<string, unknown>, backup?: unknown) => ({
-  format: 'joulepath-project',
-  version: 2,
-  name: 'Profile split by hand',
-  elements: [
-    { id: 'src', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },
-    { id: 'psu', name: 'Power supply', kind: 'rectifier', from: 'src', outputVoltage: 48, inputPowerFactor: 1, loss: { model: 'constant', efficiency: 0.9 } },
-    { id: 'lamp', name: 'Lamps', kind: 'dc-load', from: 'psu', power: 900 },
-  ],
-  running,
-  ...(backup !== undefined ? { backup } : {}),
-});
+/** The hand chain of tests/core/lifetime.test.ts (tests/core/lamps-chain.ts): 230 V supply, rectifier of constant 90 % (loses 100 W at the 900 W load), the load "Lamps". */
+const chain = (running: Record<string, unknown>, backup?: unknown) => lampsChain('Profile split by hand', running, backup);
 
 const RUNNING = { energyPricePerKWh: 0.3, nightPricePerKWh: 0.1, hoursPerYear: 8760, years: 10 };
 

@@ -12,20 +12,11 @@ import { lifetimeCost } from '../../core/studies/lifetime.ts';
 import { answerStudies } from '../../core/studies/answers.ts';
 import type { Solved } from '../../core/solve/solved.ts';
 import { compareVariants } from '../../core/studies/variants/compare.ts';
+import { lampsChain } from './lamps-chain.ts';
 
-/** 230 V supply, rectifier of constant 90 % (loses 100 W at the 900 W load "Lamps"), as tests/core/lifetime-profile.test.ts. */
-const chain = (running: Record<string, unknown>) => ({
-  format: 'joulepath-project',
-  version: 2,
-  name: 'Loss cost by the profile',
-  elements: [
-    { id: 'src', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },
-    { id: 'psu', name: 'Power supply', kind: 'rectifier', from: 'src', outputVoltage: 48, inputPowerFactor: 1, loss: { model: 'constant', efficiency: 0.9 } },
-    { id: 'lamp', name: 'Lamps', kind: 'dc-load', from: 'psu', power: 900 },
-  ],
-  running,
-  // Lamps on 16:00–02:00 (10 h a day): 7 h of them (16–23 h) in the day price's hours (7–23 h), 3 h at night.
-  backup: {
+/** The lamps chain (tests/core/lamps-chain.ts). Lamps on 16:00–02:00 (10 h a day): 7 h of them (16–23 h) in the day price's hours (7–23 h), 3 h at night. */
+const chain = (running: Record<string, unknown>) =>
+  lampsChain('Loss cost by the profile', running, {
     profile: {
       kind: 'daily',
       segments: [
@@ -34,8 +25,7 @@ const chain = (running: Record<string, unknown>) => ({
         { startHour: 16, loads: { lamp: true } },
       ],
     },
-  },
-});
+  });
 
 const RUNNING = { energyPricePerKWh: 0.3, nightPricePerKWh: 0.1, hoursPerYear: 8760, years: 10 };
 

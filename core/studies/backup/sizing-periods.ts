@@ -24,18 +24,7 @@ export function repeatedPeriods(periods: readonly { duration: number }[], target
  */
 export function fitToRuntime<T extends { duration: number }>(periods: readonly T[], target: number): T[] {
   const out: T[] = [];
-  let left = target;
-  const total = periods.reduce((s, p) => s + p.duration, 0);
-  // Relative slack so a duty cycle that matches the target to rounding is not cut into a sliver.
-  const eps = 1e-9 * target;
-  while (left > eps && total > 0) {
-    for (const p of periods) {
-      if (left <= eps) break;
-      const d = Math.min(p.duration, left);
-      out.push(d === p.duration ? p : { ...p, duration: d });
-      left -= d;
-    }
-  }
+  forEachFitted(periods, target, (p, d) => out.push(d === p.duration ? p : { ...p, duration: d }));
   return out;
 }
 
@@ -46,6 +35,7 @@ export function fitToRuntime<T extends { duration: number }>(periods: readonly T
 export function forEachFitted<T extends { duration: number }>(periods: readonly T[], target: number, visit: (p: T, duration: number) => void): void {
   let left = target;
   const total = periods.reduce((s, p) => s + p.duration, 0);
+  // Relative slack so a duty cycle that matches the target to rounding is not cut into a sliver.
   const eps = 1e-9 * target;
   while (left > eps && total > 0) {
     for (const p of periods) {
