@@ -9,6 +9,7 @@ import { runModesStudy } from '../../core/studies/modes/study.ts';
 import { solveModes } from '../../core/solve/modes.ts';
 import { formatModesStudy } from '../../core/studies/modes/text-report.ts';
 import { demoProjects } from '../../core/demos/index.ts';
+import { dcPlant } from './dc-plant-fixture.ts';
 
 const studyOf = (p: unknown) => {
   const s = runModesStudy(solvedOf(p));
@@ -41,15 +42,12 @@ describe('one cable size across the modes', () => {
   });
 
   it('a DC feeder below the bus: the on-battery case needs the larger size (its nominal voltage is lower)', () => {
+    // The hand-worked 48 V plant (dc-plant-fixture.ts) with the radio, now 10 A, on a 5 m feeder below the bus.
+    const plant = dcPlant({ name: 'Radio feeder' });
     const project = {
-      format: 'joulepath-project',
-      version: 2,
-      name: 'Radio feeder',
+      ...plant,
       elements: [
-        { id: 'grid', kind: 'grid', phases: 1, voltage: 230, frequency: 50 },
-        { id: 'rect', name: 'Rectifier', kind: 'rectifier', from: 'grid', outputVoltage: 54, inputPowerFactor: 1, loss: { model: 'constant', efficiency: 0.9 } },
-        { id: 'bus', name: 'DC bus', kind: 'dc-bus', from: 'rect', fixedLoss: 0 },
-        { id: 'bank', name: 'Bank', kind: 'battery', from: 'bus', bank: { chemistry: 'flooded-lead-acid', series: 24, capacityAh: 200, floatCurrent: 0.2 } },
+        ...plant.elements.filter((e) => e.id !== 'radio'),
         { id: 'feeder', name: 'Radio feeder', kind: 'cable', from: 'bus', length: 5, conductor: { system: 'iec', material: 'copper', size: 'auto', insulation: 'pvc', installationMethod: 'C' } },
         { id: 'radio', name: 'Radio', kind: 'dc-current-load', from: 'feeder', current: 10 },
       ],

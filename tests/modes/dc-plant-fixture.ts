@@ -1,5 +1,5 @@
 /**
- * The hand-worked 48 V DC plant of tests/modes/dc-plant.test.ts and tests/modes/recharge-ah.test.ts
+ * The hand-worked 48 V DC plant of tests/modes/dc-plant.test.ts, recharge-ah.test.ts and cable-sizes.test.ts
  * (invented data): supply → rectifier (54 V, constant 90 %) → DC bus with a bank of 24 flooded cells,
  * 200 Ah, float current 0.2 A (the maker's figure of these tests) → a 30 A radio. `extra` adds the
  * project's settings (standby, running, backup); each call builds a fresh copy (tests change it).
