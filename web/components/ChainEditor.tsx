@@ -14,7 +14,7 @@
  */
 import { useSignal } from '@preact/signals';
 import { memo } from 'preact/compat';
-import { useCallback, useEffect, useMemo, useRef } from 'preact/hooks';
+import { useCallback, useEffect, useLayoutEffect, useMemo, useRef } from 'preact/hooks';
 import type { ComponentChildren } from 'preact';
 import type { ElementKind, ElementResult, SolveResult } from '../../core/page.ts';
 import { nominalPorts, offeredTemplates, type AddOperation, type FeedingPort } from '../editor/templates.ts';
@@ -130,8 +130,9 @@ const ChainEditorView = memo(function ChainEditorView({
     return () => document.removeEventListener('keydown', onKey);
   }, []);
 
-  // Move focus where the last action asked, once the cards are drawn.
-  useEffect(() => {
+  // Move focus where the last action asked, once the cards are drawn: before the browser paints, so a
+  // key pressed as soon as the chooser shows (Escape) already reaches it, not the button that opened it.
+  useLayoutEffect(() => {
     const want = pendingFocus.current;
     if (!want || !root.current) return;
     pendingFocus.current = null;
