@@ -6,8 +6,9 @@
  * hand-worked case of tests/core/search/). "Keep as a variant" stores the option in the project's
  * variants (read back from the exported file, whose stored search settings give core the same list).
  * On the harbour clinic the sizes of a sized cable come from its table, the list and the rejected groups
- * equal core's, and a longer search shows its progress and stops on Stop. On the hillside, the system
- * voltage ticks (24 and 48 V) with the strings give core's list, each option named with its voltage.
+ * equal core's; a longer search (its worker slowed by the test, so that it lasts long enough to stop)
+ * shows its progress and stops on Stop. On the hillside, the system voltage ticks (24 and 48 V) with
+ * the strings give core's list, each option named with its voltage.
  * Desktop and phone, axe clean; screenshots in tests/.artifacts/.
  */
 import { readFileSync } from 'node:fs';
@@ -205,19 +206,51 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
       await page.getByTestId('search-panel').screenshot({ path: join(artifacts, 'search-harbour-panel.png') });
       expect(await seriousAxeViolations(page, `'[data-testid="search-panel"]'`)).toEqual([]);
 
-      // A longer search shows its progress, and Stop ends it: no list, the button ready again.
-      for (const n of [3, 4]) await page.getByTestId(`search-strings-${n}`).check();
-      for (const size of ['6 mm²', '10 mm²', '16 mm²', '25 mm²', '35 mm²', '50 mm²', '70 mm²', '95 mm²', '120 mm²', '150 mm²', '185 mm²', '240 mm²']) await page.getByTestId(`search-size-supply-cable-${size}`).check();
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 240_000);
+
+  it('harbour clinic, desktop: a longer search shows its progress, and Stop ends it', async () => {
+    // The search is fast (240 options in well under a second), so the worker is slowed here to make
+    // the run long enough to stop on any machine: its script, fetched through the page's route (the
+    // service worker blocked, so the request reaches the route), is served with a wrapper that holds
+    // each progress message 60 ms (24 messages: about 1.5 s). Nothing else in the worker changes.
+    const slowProgress =
+      'const __post = globalThis.postMessage.bind(globalThis);' +
+      'globalThis.postMessage = (m, ...rest) => { if (m && m.kind === "progress") { const t = performance.now(); while (performance.now() - t < 60) {} } return __post(m, ...rest); };\n';
+    const context = await browser!.newContext({ viewport: VIEWPORTS.desktop, deviceScaleFactor: 1, locale: 'en-US', serviceWorkers: 'block' });
+    let slowed = 0;
+    await context.route(/\/assets\/search-worker[^/]*\.js$/, async (route) => {
+      const response = await route.fetch();
+      slowed++;
+      await route.fulfill({ response, body: slowProgress + (await response.text()) });
+    });
+    const { page, errors } = await openDemo(browser!, VIEWPORTS.desktop, 'harbour-clinic-ups', { baseUrl, context });
+    try {
+      await page.getByTestId('panel-search').locator('summary').click();
+      await page.getByTestId('search-panel').waitFor();
+      for (const n of [1, 2, 3, 4]) await page.getByTestId(`search-strings-${n}`).check();
+      await page.getByTestId('search-string-price').fill('2500');
+      for (const size of ['1.5 mm²', '2.5 mm²', '4 mm²', '6 mm²', '10 mm²', '16 mm²', '25 mm²', '35 mm²', '50 mm²', '70 mm²', '95 mm²', '120 mm²', '150 mm²', '185 mm²', '240 mm²']) {
+        await page.getByTestId(`search-size-supply-cable-${size}`).check();
+      }
       for (const pct of [92, 94, 96]) await page.getByTestId(`search-inverter-inverter-${pct}`).check();
       await expect.poll(() => page.getByTestId('search-run').textContent()).toBe('Find the option (240 options)'); // 4 × 15 × 4
       await page.getByTestId('search-run').click();
       const progress = page.getByTestId('search-progress');
       await progress.waitFor({ timeout: 10_000 });
+      expect(slowed).toBe(1);
       expect(await progress.textContent()).toMatch(/^Tried \d+ of 240/);
       await page.getByTestId('search-stop').click();
       await progress.waitFor({ state: 'detached' });
       expect(await page.getByTestId('search-results').count()).toBe(0);
       expect(await page.getByTestId('search-run').isEnabled()).toBe(true);
+      // The worker was ended, not left to finish: no list comes later (the slowed run takes about 1.5 s).
+      await page.waitForTimeout(2000);
+      expect(await page.getByTestId('search-results').count()).toBe(0);
+      expect(await page.getByTestId('search-progress').count()).toBe(0);
       expect(errors).toEqual([]);
     } finally {
       await context.close();
