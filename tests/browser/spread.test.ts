@@ -2,8 +2,8 @@
  * The "Runtime spread" panel in Chromium (issue 20 point 3) on the hillside demo: samples set in the
  * panel, Run shows a progress bar (role progressbar with its values) and then P10/P50/P90 whose P50
  * equals core's runSpread for the same seed and samples (the expected value is core's own, checked
- * against hand-worked and convergence cases in tests/core/spread/); Cancel stops a long run; phone
- * 390×844 and desktop; axe clean. Screenshots go to tests/.artifacts/.
+ * against hand-worked and convergence cases in tests/core/spread/); Cancel stops a long run (20 000
+ * samples); phone 390×844 and desktop; axe clean. Screenshots go to tests/.artifacts/.
  */
 import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
@@ -82,14 +82,14 @@ describe.skipIf(skipWithout('chromium'))('the runtime spread panel in Chromium',
       try {
         // Typical values shown with why, in the user's words.
         await expect.poll(() => page.getByTestId('spread-settings').textContent()).toContain("typical value: use the maker's figure");
-        // Cancel: a long run stopped after its first chunks.
-        await setSetting(page, 'spread-samples', '5000');
+        // Cancel: a long run (20 000 samples, the most a spread runs: about 10 s in the worker) stopped after its first chunks.
+        await setSetting(page, 'spread-samples', '20000');
         await setSetting(page, 'spread-seed', String(SEED));
         await page.waitForTimeout(300);
         await page.getByTestId('spread-run').click();
         const bar = page.getByRole('progressbar', { name: 'Samples run' });
         await bar.waitFor({ timeout: 30_000 });
-        expect(await bar.getAttribute('aria-valuemax')).toBe('5000');
+        expect(await bar.getAttribute('aria-valuemax')).toBe('20000');
         await expect.poll(async () => Number(await bar.getAttribute('aria-valuenow')), { timeout: 60_000 }).toBeGreaterThan(0);
         await page.getByTestId('spread-panel').screenshot({ path: join(artifacts, `spread-${label}-running.png`) });
         await page.getByTestId('spread-cancel').click();
