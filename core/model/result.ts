@@ -48,6 +48,8 @@ export type WarningCode =
   | 'check-derating'
   /** A user-fixed conductor size fails its ampacity, protection or voltage-drop check. */
   | 'conductor-check'
+  /** An inverter's pass-through limit in a project with no battery bank on a DC bus: it does nothing (core/solve/project-warnings.ts). */
+  | 'pass-through-unused'
   // Traps the surge and fault study points out (core/studies/surge/traps.ts): each says why and what to check.
   /** A bank's capacity looks like the Ah of its series blocks added up (Ah do not add in series). */
   | 'ah-added-in-series'

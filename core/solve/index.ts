@@ -18,6 +18,7 @@ import { validateProject, type ValidProject } from './validate.ts';
 import { plan } from './plan.ts';
 import { countSolveStep } from './count.ts';
 import { solveValid, type Solved, type SolveOutcome } from './solved.ts';
+import { withProjectWarnings } from './project-warnings.ts';
 
 /** Validate and solve a project given as untrusted data (e.g. parsed JSON). Never throws on bad input. */
 export function solveProject(input: unknown): SolveOutcome {
@@ -31,7 +32,9 @@ export function solveProject(input: unknown): SolveOutcome {
   }
   countSolveStep('solves');
   // Fresh from validation, these elements are solved once here: no models kept (core/solve/plan.ts).
-  return solveValid(valid.project, false);
+  const solved = solveValid(valid.project, false);
+  // The warnings about the project as a whole (core/solve/project-warnings.ts).
+  return solved.ok ? withProjectWarnings(solved) : solved;
 }
 
 /** Like solveProject, but throws a ProjectError listing every problem. */

@@ -29,37 +29,12 @@
 import type { BatterySource, Element, InverterStage, Project } from '../model/project.ts';
 import type { SolveResult } from '../model/result.ts';
 import type { Problem } from '../model/errors.ts';
-import { KINDS, isPassive } from '../kinds/index.ts';
+import { isPassive } from '../kinds/index.ts';
 import type { Solved, SolveOutcome } from './solved.ts';
 import { solveVariant, type VariantChange } from './variant.ts';
-import { elementWords, fieldLabel } from '../model/field-labels.ts';
+import { bankOnBus, type BankPlace } from './bank-place.ts';
 
-/** Where a project's bank on a bus sits. */
-export interface BankPlace {
-  /** The bank (a battery element with a `from`). */
-  bankId: string;
-  /** The DC bus it hangs on. */
-  busId: string;
-  /** Ids from the bank's feed up to the bus, in that order (cables, then the bus; the bus alone when the bank hangs on it directly). */
-  path: string[];
-}
-
-/** The bank on a bus of a valid project and its path to the bus, or null when the project has none. */
-export function bankOnBus(project: Project): BankPlace | null {
-  // A source kind with the `fedRole` trait, fed: the bank on a bus (the battery kind).
-  const bank = project.elements.find((e): e is BatterySource => 'from' in e && e.from !== undefined && KINDS.get(e.kind)?.fedRole !== undefined);
-  if (!bank) return null;
-  const byId = new Map(project.elements.map((e) => [e.id, e]));
-  const path: string[] = [];
-  let at = byId.get(bank.from!);
-  // Validation has checked the path: cables, then a DC bus (core/solve/structure.ts).
-  while (at !== undefined) {
-    path.push(at.id);
-    if (at.kind === 'dc-bus') return { bankId: bank.id, busId: at.id, path };
-    at = 'from' in at && at.from !== undefined ? byId.get(at.from) : undefined;
-  }
-  return null;
-}
+export { bankOnBus, unusedPassThrough, type BankPlace } from './bank-place.ts';
 
 /** Ids of the element and everything below it. */
 function branchOf(project: Project, rootId: string): Set<string> {
@@ -178,33 +153,6 @@ export function passThroughPlaces(project: Project, place: BankPlace, result: So
     places.push({ inverterId: inv.id, limit: inv.passThroughLimit!, chargerId: charger.id, feedId, relayId, loadIds });
   }
   return { places, refused };
-}
-
-/**
- * Inverters with a `passThroughLimit` that the modes do not use: not on the DC bus of a battery bank
- * (`place`, null when the project has no bank on a bus), so the field does nothing. One warning each,
- * naming the inverter (its name, or its kind and place) and the field by its form label.
- */
-export function unusedPassThrough(project: Project, place: BankPlace | null): { inverterId: string; message: string }[] {
-  const inverters = project.elements.filter((e): e is InverterStage => e.kind === 'inverter' && e.passThroughLimit !== undefined);
-  if (!inverters.length) return [];
-  const byId = new Map(project.elements.map((e) => [e.id, e]));
-  const { names } = elementWords(project);
-  const label = fieldLabel('inverter', 'passThroughLimit');
-  const out: { inverterId: string; message: string }[] = [];
-  for (const inv of inverters) {
-    if (place) {
-      // On the bank's bus: up through passive elements only, to the bus (as passThroughPlaces reads it).
-      let at: Element | undefined = byId.get(inv.from);
-      while (at && at.id !== place.busId && isPassive(at.kind) && 'from' in at && at.from !== undefined) at = byId.get(at.from);
-      if (at?.id === place.busId) continue;
-    }
-    out.push({
-      inverterId: inv.id,
-      message: `"${names.get(inv.id) ?? inv.id}": its "${label}" is used only when a battery bank is on the inverter's DC bus; ${place ? 'the bank of this chain is on another bus' : 'this chain has no bank on a bus'}, so the limit does nothing here`,
-    });
-  }
-  return out;
 }
 
 /**

@@ -13,6 +13,7 @@ import type { ProjectVariant } from '../model/variants.ts';
 import type { ValidProject } from './validate.ts';
 import { solveVariant, type VariantChange } from './variant.ts';
 import type { Solved, SolveOutcome } from './solved.ts';
+import { withProjectWarnings } from './project-warnings.ts';
 
 export type VariantChangeOutcome = { ok: true; change: VariantChange } | { ok: false; problems: Problem[] };
 
@@ -65,5 +66,7 @@ export function variantChangeOf(base: Solved | ValidProject, variant: ProjectVar
 export function solveProjectVariant(base: Solved | ValidProject, variant: ProjectVariant): SolveOutcome {
   const change = variantChangeOf(base, variant);
   if (!change.ok) return change;
-  return solveVariant(base, change.change);
+  const solved = solveVariant(base, change.change);
+  // A named variant is a project of the user's: it gets the project-level warnings too.
+  return solved.ok ? withProjectWarnings(solved) : solved;
 }

@@ -3,7 +3,8 @@
  * in a form changes the figures; bad input ("abc", an efficiency of 120 %) shows the message at the
  * field, marks the results out of date and keeps the last valid numbers; fixing it clears the mark;
  * US units show the cable length in feet with the stored value unchanged; a field edited with the
- * keyboard alone. Screenshots of a form with an error at phone and desktop size go to
+ * keyboard alone; a pass-through limit that does nothing (the hillside inverter: the bank is the
+ * source) is named in the warnings and goes when the field is cleared. Screenshots of a form with an error at phone and desktop size go to
  * tests/.artifacts/ for a person to look at.
  *
  * Expected figures: the engine's own (the page only shows them); 35 m = 114.829… ft by
@@ -108,6 +109,29 @@ describe.skipIf(skipWithout('chromium'))('stage forms in Chromium', () => {
       expect(await messageAt(page, 'loss.efficiency').count()).toBe(0);
       // Polled: scrolled out of view, the figures follow when the page is next idle (web/components/lag.ts).
       await expect.poll(() => efficiency(page)).not.toBe(valid);
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  });
+
+  it('a pass-through limit on the inverter of a chain whose bank is the source is named as doing nothing, and goes with the limit (desktop)', async () => {
+    // The hillside relay hut: the bank is the chain's source (no bank on a bus), so an inverter-charger's
+    // pass-through has no supply to pass (core/solve/project-warnings.ts; common practice (no source)).
+    const { context, page, errors } = await openDemo(VIEWPORTS.desktop, 'hillside-relay-hut');
+    try {
+      const warnings = page.getByTestId('warnings');
+      const named = () => warnings.filter({ hasText: 'Pass-through limit (inverter-charger)' }).count();
+      expect(await named()).toBe(0);
+      await select(page, 'inverter');
+      const limit = field(page, 'passThroughLimit');
+      await limit.fill('16');
+      await expect.poll(named).toBe(1);
+      const text = (await warnings.innerText()).replace(/\s+/g, ' ');
+      expect(text).toContain(`its "Pass-through limit (inverter-charger)" is used only when a battery bank is on the inverter's DC bus; this chain has no bank on a bus, so the limit does nothing here`);
+      await warnings.screenshot({ path: join(artifacts, 'forms-pass-through-unused.png') });
+      await limit.fill('');
+      await expect.poll(named).toBe(0);
       expect(errors).toEqual([]);
     } finally {
       await context.close();

@@ -1,13 +1,18 @@
 /**
- * A pass-through limit the modes cannot use (core/solve/modes.ts `unusedPassThrough`): an inverter whose
- * DC bus holds no battery bank. The field then does nothing, and the modes study says so, naming the
- * inverter by its name and the field by its form label (core/model/field-labels.ts). Chains invented
+ * A pass-through limit the modes cannot use (core/solve/bank-place.ts `unusedPassThrough`): an inverter
+ * whose DC bus holds no battery bank. The field then does nothing, and the modes study says so, naming
+ * the inverter by its name and the field by its form label (core/model/field-labels.ts). In a project
+ * with no bank on a bus at all, no modes study runs: the solve itself warns (`pass-through-unused`,
+ * core/solve/project-warnings.ts), and so does a named variant's solve, but not the on-battery mode a
+ * study builds from a DC plant (the same layout as an off-grid chain). Chains invented
  * for the test; the rule is the modes' own (common practice (no source): an inverter-charger's relay
  * passes the supply through only where its charger side sits on the bank's bus).
  */
 import { describe, expect, it } from 'vitest';
 import { solvedOf } from '../core/solved.ts';
-import { solveModes, unusedPassThrough } from '../../core/solve/modes.ts';
+import { outageSolve, solveModes, unusedPassThrough } from '../../core/solve/modes.ts';
+import { solveProject } from '../../core/solve/index.ts';
+import { solveProjectVariant } from '../../core/solve/project-variant.ts';
 import { runModesStudy } from '../../core/studies/modes/study.ts';
 import { fieldLabel } from '../../core/model/field-labels.ts';
 import type { Project } from '../../core/model/project.ts';
@@ -45,6 +50,28 @@ const twoBuses = (limitOnB: number | undefined) => ({
 
 const LABEL = fieldLabel('inverter', 'passThroughLimit');
 
+/** An off-grid cabin: the bank is the source, its bus feeds an inverter (with a limit, or none). */
+const offGrid = (limit: number | undefined) => ({
+  format: 'joulepath-project',
+  version: 2,
+  name: 'Off grid',
+  elements: [
+    { id: 'bank', name: 'House bank', kind: 'battery', bank: { chemistry: 'lifepo4', series: 16, capacityAh: 200 } },
+    { id: 'bus', name: 'DC bus', kind: 'dc-bus', from: 'bank', fixedLoss: 0 },
+    inverter('inv', 'Cabin inverter', 'bus', limit),
+    { id: 'cabin', name: 'Cabin', kind: 'ac-load', from: 'inv', power: 1000, powerFactor: 1 },
+  ],
+});
+
+/** The solve's warning: the element's name is shown before it (the page's list, the CLI), so it does not repeat it. */
+const NO_BANK_ON_BUS = `its "Pass-through limit (inverter-charger)" is used only when a battery bank is on the inverter's DC bus; this chain has no bank on a bus, so the limit does nothing here`;
+
+/** The solve's warnings of this code, as element id and message. */
+const unusedIn = (outcome: ReturnType<typeof solveProject>) => {
+  if (!outcome.ok) throw new Error(`does not solve: ${outcome.problems.map((p) => p.message).join('; ')}`);
+  return outcome.result.warnings.filter((w) => w.code === 'pass-through-unused').map((w) => ({ elementId: w.elementId, message: w.message }));
+};
+
 describe('a pass-through limit on an inverter off the bank’s bus', () => {
   it('the label is the form’s', () => {
     expect(LABEL).toBe('Pass-through limit (inverter-charger)'); // core/model/field-labels.ts, the form's label
@@ -70,23 +97,10 @@ describe('a pass-through limit on an inverter off the bank’s bus', () => {
   });
 
   it('a chain with no bank on a bus (the bank is the source): every limit is named', () => {
-    const offGrid = {
-      format: 'joulepath-project',
-      version: 2,
-      name: 'Off grid',
-      elements: [
-        { id: 'bank', name: 'House bank', kind: 'battery', bank: { chemistry: 'lifepo4', series: 16, capacityAh: 200 } },
-        { id: 'bus', name: 'DC bus', kind: 'dc-bus', from: 'bank', fixedLoss: 0 },
-        inverter('inv', 'Cabin inverter', 'bus', 16),
-        { id: 'cabin', name: 'Cabin', kind: 'ac-load', from: 'inv', power: 1000, powerFactor: 1 },
-      ],
-    };
-    const solved = solvedOf(offGrid);
+    const solved = solvedOf(offGrid(16));
     expect(solveModes(solved)).toBeNull();
     const unused = unusedPassThrough(solved.project as Project, null);
-    expect(unused).toEqual([
-      { inverterId: 'inv', message: `"Cabin inverter": its "Pass-through limit (inverter-charger)" is used only when a battery bank is on the inverter's DC bus; this chain has no bank on a bus, so the limit does nothing here` },
-    ]);
+    expect(unused).toEqual([{ inverterId: 'inv', message: `"Cabin inverter": ${NO_BANK_ON_BUS}`, reason: NO_BANK_ON_BUS }]);
   });
 
   it('an inverter without a name is named by its kind and place, as messages name it', () => {
@@ -95,5 +109,47 @@ describe('a pass-through limit on an inverter off the bank’s bus', () => {
     const solved = solvedOf(JSON.parse(JSON.stringify(p)));
     const msg = unusedPassThrough(solved.project as Project, solveModes(solved)!.place)[0]!.message;
     expect(msg).toMatch(/^"Inverter #\d+": its "Pass-through limit \(inverter-charger\)"/);
+  });
+
+  describe('no bank on a bus at all: the solve warns', () => {
+    it('an off-grid chain whose bank is the source: the solve names the inverter and the field', () => {
+      expect(unusedIn(solveProject(offGrid(16)))).toEqual([{ elementId: 'inv', message: NO_BANK_ON_BUS }]);
+    });
+
+    it('the same without a limit: no warning; nothing else in the solve changes with the limit', () => {
+      expect(unusedIn(solveProject(offGrid(undefined)))).toEqual([]);
+      const a = solveProject(offGrid(16));
+      const b = solveProject(offGrid(undefined));
+      if (!a.ok || !b.ok) throw new Error('does not solve');
+      // The limit does nothing: the same figures (totals), only the one warning more.
+      expect(a.result.totals).toEqual(b.result.totals);
+      expect(a.result.warnings.length).toBe(b.result.warnings.length + 1);
+    });
+
+    it('a chain with a supply and no bank (grid → charger → bus → inverter): the solve warns', () => {
+      const noBank = twoBuses(10);
+      // Take the bank out: neither bus holds one now.
+      noBank.elements = noBank.elements.filter((e) => e.id !== 'bank');
+      const names = unusedIn(solveProject(noBank));
+      expect(names.map((w) => w.elementId)).toEqual(['inv-a', 'inv-b']);
+      expect(names.map((w) => w.message)).toEqual([NO_BANK_ON_BUS, NO_BANK_ON_BUS]);
+    });
+
+    it('a project with a bank on a bus: the solve does not warn (the modes study names an inverter on another bus)', () => {
+      expect(unusedIn(solveProject(twoBuses(10)))).toEqual([]);
+    });
+
+    it('the on-battery mode a study builds from a DC plant (the layout of an off-grid chain) carries no such warning', () => {
+      const outage = outageSolve(solvedOf(twoBuses(10)));
+      if (!outage.ok) throw new Error('the on-battery mode does not solve');
+      expect(outage.onBattery).toBe(true);
+      expect(outage.solved.result.warnings.filter((w) => w.code === 'pass-through-unused')).toEqual([]);
+    });
+
+    it('a named variant of the off-grid chain gets the warning, as the project does', () => {
+      const solved = solvedOf(offGrid(16));
+      const variant = solveProjectVariant(solved, { name: 'Bigger cabin', set: { cabin: { power: 1500 } } });
+      expect(unusedIn(variant)).toEqual([{ elementId: 'inv', message: NO_BANK_ON_BUS }]);
+    });
   });
 });
