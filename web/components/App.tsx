@@ -157,8 +157,9 @@ export function App() {
   const view = pageView.value;
   const backButton = useRef<HTMLButtonElement>(null);
   const shownView = useRef(view);
-  // On a narrow screen a change of view starts at its top, with the focus on its first control.
-  useEffect(() => {
+  // On a narrow screen a change of view starts at its top, with the focus on its first control (moved
+  // before the browser paints, so a key pressed as soon as the view shows reaches it).
+  useLayoutEffect(() => {
     if (shownView.current === view) return;
     shownView.current = view;
     if (!globalThis.matchMedia?.(NARROW).matches) return;

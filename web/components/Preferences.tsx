@@ -5,7 +5,7 @@
  * closes it too.
  */
 import { useSignal } from '@preact/signals';
-import { useEffect, useRef } from 'preact/hooks';
+import { useLayoutEffect, useRef } from 'preact/hooks';
 import { LOCALE_CHOICES, THEME_CHOICES, localeChoice, themeChoice, unitSystem, type ThemeChoice } from '../state/prefs.ts';
 import type { UnitSystem } from '../format/units.ts';
 
@@ -75,9 +75,10 @@ export function SettingsMenu() {
     open.value = false;
     if (refocus) button.current?.focus();
   };
-  useEffect(() => {
+  useLayoutEffect(() => {
     if (!open.value) return;
-    // Into the panel at its first setting; a tap or click outside closes it (the focus stays where it lands).
+    // Into the panel at its first setting, before the browser paints (a key pressed as soon as the panel
+    // shows reaches it); a tap or click outside closes it (the focus stays where it lands).
     panel.current?.querySelector<HTMLElement>('select')?.focus();
     const onDown = (ev: PointerEvent) => {
       const t = ev.target as Node | null;

@@ -4,7 +4,7 @@
  */
 import { useSignal } from '@preact/signals';
 import { memo } from 'preact/compat';
-import { useEffect, useRef } from 'preact/hooks';
+import { useLayoutEffect, useRef } from 'preact/hooks';
 import type { AddOperation } from '../../editor/templates.ts';
 
 // ---------- icons (our own, drawn on a 20 × 20 grid) ----------
@@ -110,7 +110,10 @@ export function MoreMenu({ actions, onAct, subject }: {
   const button = useRef<HTMLButtonElement>(null);
   const menu = useRef<HTMLUListElement>(null);
   const items = () => [...(menu.current?.querySelectorAll<HTMLElement>('[role="menuitem"]') ?? [])];
-  useEffect(() => {
+  // The focus moves into the menu before the browser paints (a layout effect): a key pressed as soon as
+  // the menu shows reaches the menu, not the button (an effect after the paint let an arrow key fall
+  // on the button, lost).
+  useLayoutEffect(() => {
     if (!open.value) return;
     const list = items();
     (open.value === 'last' ? list[list.length - 1] : list[0])?.focus();
