@@ -1,17 +1,28 @@
 /**
- * The runtime histogram of a spread: an SVG of our own (bars of equal width, P10/P50/P90 marked),
- * labelled, with its text alternative (a caption in words and the bins as a table).
+ * A histogram of a spread (the runtime, the bank for the target, the yearly cost of the losses): an
+ * SVG of our own (bars of equal width, P10/P50/P90 marked), labelled, with its text alternative (a
+ * caption in words and the bins as a table). The figure's name and format come from the panel.
  */
 import type { HistogramBin, Percentiles } from '../../../core/studies/index.ts';
-import { formatSignificant } from '../../format/number.ts';
 
 const W = 360;
 const H = 170;
 const PAD = { left: 34, right: 10, top: 14, bottom: 36 };
 
-export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; runtime: Percentiles; locale: string | undefined }) {
-  const h = (v: number) => `${formatSignificant(v, 3, locale)} h`;
+export interface HistogramProps {
+  bins: HistogramBin[];
+  /** The same samples' percentiles (marked, and said in the caption). */
+  p: Percentiles;
+  /** A value in the user's unit or money ("25.6 h", "398 Ah", "$1,816.00"). */
+  format: (v: number) => string;
+  /** The figure, as the axis and the caption name it ("Runtime"). */
+  name: string;
+  testId: string;
+}
+
+export function Histogram({ bins, p, format: h, name, testId }: HistogramProps) {
   if (bins.length === 0) return null;
+  const captionId = `${testId}-caption`;
   const lo = bins[0]!.from;
   const hi = bins[bins.length - 1]!.to;
   const span = hi - lo || 1;
@@ -21,14 +32,14 @@ export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; run
   const single = bins.length === 1;
   const barW = single ? 24 : (W - PAD.left - PAD.right) / bins.length;
   const marks: [string, number][] = [
-    ['P10', runtime.p10],
-    ['P50', runtime.p50],
-    ['P90', runtime.p90],
+    ['P10', p.p10],
+    ['P50', p.p50],
+    ['P90', p.p90],
   ];
-  const caption = `Runtime of ${runtime.count} samples from ${h(runtime.min)} to ${h(runtime.max)}: P10 ${h(runtime.p10)}, P50 ${h(runtime.p50)}, P90 ${h(runtime.p90)}.`;
+  const caption = `${name} of ${p.count} samples from ${h(p.min)} to ${h(p.max)}: P10 ${h(p.p10)}, P50 ${h(p.p50)}, P90 ${h(p.p90)}.`;
   return (
-    <figure class="spread-figure" data-testid="spread-histogram">
-      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="spread-histogram-caption" class="spread-chart">
+    <figure class="spread-figure" data-testid={testId}>
+      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby={captionId} class="spread-chart">
         <line x1={PAD.left} x2={W - PAD.right} y1={H - PAD.bottom} y2={H - PAD.bottom} class="spread-axis" />
         <line x1={PAD.left} x2={PAD.left} y1={PAD.top} y2={H - PAD.bottom} class="spread-axis" />
         {bins.map((b, i) => (
@@ -50,7 +61,7 @@ export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; run
           {h(hi)}
         </text>
         <text x={(PAD.left + W - PAD.right) / 2} y={H - 4} text-anchor="middle" class="spread-tick">
-          Runtime
+          {name}
         </text>
         <text x={PAD.left - 4} y={PAD.top + 4} text-anchor="end" class="spread-tick">
           {most}
@@ -62,13 +73,13 @@ export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; run
           Samples
         </text>
       </svg>
-      <figcaption id="spread-histogram-caption">{caption}</figcaption>
+      <figcaption id={captionId}>{caption}</figcaption>
       <details class="spread-table">
         <summary>The histogram as a table</summary>
         <table class="data">
           <thead>
             <tr>
-              <th scope="col">Runtime from</th>
+              <th scope="col">{name} from</th>
               <th scope="col">to</th>
               <th scope="col">Samples</th>
             </tr>
