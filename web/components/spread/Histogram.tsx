@@ -8,6 +8,8 @@ import type { HistogramBin, Percentiles } from '../../../core/studies/index.ts';
 const W = 360;
 const H = 170;
 const PAD = { left: 34, right: 10, top: 14, bottom: 36 };
+/** Room a mark's label ("P90") takes beside its line, px of the viewBox (10 px text). */
+const LABEL_W = 21;
 
 export interface HistogramProps {
   bins: HistogramBin[];
@@ -36,6 +38,13 @@ export function Histogram({ bins, p, format: h, name, testId }: HistogramProps) 
     ['P50', p.p50],
     ['P90', p.p90],
   ];
+  // P10's label to the left of its line and P90's to the right, unless it would run off the plot
+  // (a figure whose samples crowd one end): then on the other side.
+  const side = (i: number, v: number) => {
+    if (i === 1) return 0;
+    if (i === 0) return x(v) - LABEL_W < PAD.left ? 1 : -1;
+    return x(v) + LABEL_W > W - PAD.right / 2 ? -1 : 1;
+  };
   const caption = `${name} of ${p.count} samples from ${h(p.min)} to ${h(p.max)}: P10 ${h(p.p10)}, P50 ${h(p.p50)}, P90 ${h(p.p90)}.`;
   return (
     <figure class="spread-figure" data-testid={testId}>
@@ -49,7 +58,7 @@ export function Histogram({ bins, p, format: h, name, testId }: HistogramProps) 
           marks.map(([label, v], i) => (
             <g key={label} class="spread-mark">
               <line x1={x(v)} x2={x(v)} y1={PAD.top - 4} y2={H - PAD.bottom} />
-              <text x={x(v) + (i === 0 ? -3 : i === 2 ? 3 : 0)} y={i === 1 ? PAD.top - 5 : PAD.top + 8} text-anchor={i === 0 ? 'end' : i === 2 ? 'start' : 'middle'}>
+              <text x={x(v) + side(i, v) * 3} y={i === 1 ? PAD.top - 5 : PAD.top + 8} text-anchor={side(i, v) < 0 ? 'end' : side(i, v) > 0 ? 'start' : 'middle'}>
                 {label}
               </text>
             </g>

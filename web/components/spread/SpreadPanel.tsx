@@ -235,6 +235,7 @@ export default function SpreadPanel() {
             <>
               <h4>How the bank for {h(result.targetHours)} spreads</h4>
               <Histogram bins={result.bankHistogram} p={result.bankAh} format={ah} name="Bank" testId="spread-bank-histogram" />
+              <p class="note">The battery study's bank for the target is whole strings (each string the bank's capacity in that sample, or a standard rating when the study lists them), so it moves in steps: within a step the spread is mostly the capacity tolerance, and a sample that needs a string fewer or more stands apart.</p>
             </>
           )}
           {result.sensitivity.length > 0 && (
