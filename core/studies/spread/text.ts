@@ -60,7 +60,7 @@ export function formatSpread(s: SpreadResult): string {
   if (s.costPerYear) lines.push(`  Yearly cost of the losses: ${triple(s.costPerYear, money)}`);
   else lines.push('  Yearly cost of the losses: no energy price per kWh in the project\'s running settings, so no cost figures, histogram or ranking.');
   lines.push(...histogramLines('Runtime histogram', s.histogram, 'h', 3));
-  if (s.bankHistogram && s.bankHistogram.length > 0) lines.push(...histogramLines('Bank for the target histogram', s.bankHistogram, 'Ah', 4));
+  if (s.bankHistogram && s.bankHistogram.length > 0) lines.push(...histogramLines('Bank for the target histogram (whole strings, so it moves in steps)', s.bankHistogram, 'Ah', 4));
   if (s.costHistogram && s.costHistogram.length > 0) lines.push(...histogramLines('Yearly cost of the losses histogram (in the price\'s currency)', s.costHistogram, '', 4));
   lines.push(`  Which input moves the runtime most (${s.sensitivityMethod}):`);
   lines.push(...swingLines(s.sensitivity, (f) => f.runtimeH, (w) => w.runtimeSwingH, h));
