@@ -135,6 +135,7 @@ export type Quantity =
   | 'resistance'
   | 'resistance-per-length'
   | 'temperature'
+  | 'temperature-difference'
   | 'fraction-percent'
   | 'percent'
   | 'ratio'
@@ -224,6 +225,8 @@ const UNITS: Readonly<Record<Quantity, { si: InputUnit; us: InputUnit }>> = {
   // Stored in Ω/km; NEC Chapter 9 Tables 8 and 9 print Ω per 1000 ft: Ω/km = (Ω/kft) / 0.3048.
   'resistance-per-length': { si: same('Ω/km', 'ohms per kilometre'), us: divided('Ω/kft', 'ohms per thousand feet', METRES_PER_FOOT) },
   temperature: { si: same('°C', 'degrees Celsius'), us: fahrenheit },
+  // A temperature span or ± tolerance: 1 °C of difference is 1.8 °F, no offset (NIST SP 811, B.9).
+  'temperature-difference': { si: same('°C', 'degrees Celsius'), us: divided('°F', 'degrees Fahrenheit', FAHRENHEIT_PER_CELSIUS) },
   'fraction-percent': { si: percentOfFraction, us: percentOfFraction },
   percent: { si: same('%', 'per cent'), us: same('%', 'per cent') },
   ratio: { si: same('', ''), us: same('', '') },

@@ -71,6 +71,8 @@ export interface Swing {
   high: SampleFigures | null;
   /** |runtime(high) − runtime(low)|, h: the ranking's key; null when an end could not be run. */
   runtimeSwingH: number | null;
+  /** |cost(high) − cost(low)| of the yearly cost of the losses: the cost ranking's key; null without a price or when an end could not be run. */
+  costSwing: number | null;
 }
 
 export interface SpreadResult {
@@ -85,10 +87,17 @@ export interface SpreadResult {
   /** Samples whose runtime is a lower bound (the run reached the horizon). */
   lowerBoundCount: number;
   bankAh: Percentiles | null;
+  /** The bank for the target in equal bins (Rice rule), Ah; null without a target. */
+  bankHistogram: HistogramBin[] | null;
   costPerYear: Percentiles | null;
+  /** The yearly cost of the losses in equal bins (Rice rule); null without a price. */
+  costHistogram: HistogramBin[] | null;
   /** One-at-a-time swings, largest runtime swing first (the sensitivity ranking). */
   sensitivity: Swing[];
   sensitivityMethod: string;
+  /** The same swings, largest swing in the yearly cost first; null without a price. */
+  costSensitivity: Swing[] | null;
+  costSensitivityMethod: string;
   failed: number;
   failures: { index: number; message: string }[];
 }
@@ -98,6 +107,7 @@ export type Outcome<T> = { ok: true; value: T } | { ok: false; problems: Problem
 export const SPREAD_METHOD =
   'Monte Carlo: each input drawn uniformly within its tolerance, independently (pure-rand xoroshiro128plus, seeded); each sample re-solved and run through the runtime study; percentiles by linear interpolation (Hyndman–Fan 7)';
 export const SENSITIVITY_METHOD = 'one at a time: each input at the low and the high end of its tolerance, the others at the project’s values; ranked by the swing in runtime';
+export const COST_SENSITIVITY_METHOD = 'one at a time, the same runs: ranked by the swing in the yearly cost of the losses';
 
 /** One run of the study on a draw. */
 function runDraw(solved: Solved, plan: Pick<SpreadPlan, 'tolerances' | 'cost' | 'outputW'>, d: Readonly<Draw>): Outcome<SampleFigures> {
@@ -187,10 +197,20 @@ export function spreadSensitivity(solved: Solved, plan: SpreadPlan): Swing[] {
     const low = at(-1);
     const high = at(1);
     const swing = low && high ? Math.abs(high.runtimeH - low.runtimeH) : null;
-    out.push({ input, low, high, runtimeSwingH: swing });
+    const costSwing = low?.costPerYear != null && high?.costPerYear != null ? Math.abs(high.costPerYear - low.costPerYear) : null;
+    out.push({ input, low, high, runtimeSwingH: swing, costSwing });
   }
   // A swing that could not be run sorts last; equal swings keep the inputs' order (a stable sort).
   return out.sort((a, b) => (b.runtimeSwingH ?? -1) - (a.runtimeSwingH ?? -1));
+}
+
+/**
+ * The swings ranked by their swing in the yearly cost of the losses, largest first (a swing that could
+ * not be priced sorts last; equal swings keep the order given: a stable sort). The same runs as the
+ * runtime's ranking, in another order.
+ */
+export function costRanking(sensitivity: readonly Swing[]): Swing[] {
+  return [...sensitivity].sort((a, b) => (b.costSwing ?? -1) - (a.costSwing ?? -1));
 }
 
 /** The chunks merged (in sample order) and summarised. */
@@ -199,6 +219,8 @@ export function spreadSummary(plan: SpreadPlan, chunks: readonly SpreadChunk[], 
   const runtime = ordered.flatMap((c) => c.runtimeH);
   const nums = (xs: (number | null)[]) => xs.filter((x): x is number => x !== null);
   const failures = ordered.flatMap((c) => c.failures);
+  const bank = nums(ordered.flatMap((c) => c.bankAh));
+  const cost = nums(ordered.flatMap((c) => c.costPerYear));
   return {
     samples: runtime.length,
     seed: plan.seed,
@@ -209,10 +231,14 @@ export function spreadSummary(plan: SpreadPlan, chunks: readonly SpreadChunk[], 
     runtimeH: percentiles(runtime),
     histogram: histogram(runtime),
     lowerBoundCount: ordered.reduce((n, c) => n + c.lowerBound.filter(Boolean).length, 0),
-    bankAh: percentiles(nums(ordered.flatMap((c) => c.bankAh))),
-    costPerYear: plan.cost ? percentiles(nums(ordered.flatMap((c) => c.costPerYear))) : null,
+    bankAh: percentiles(bank),
+    bankHistogram: plan.targetHours !== undefined ? histogram(bank) : null,
+    costPerYear: plan.cost ? percentiles(cost) : null,
+    costHistogram: plan.cost ? histogram(cost) : null,
     sensitivity,
     sensitivityMethod: SENSITIVITY_METHOD,
+    costSensitivity: plan.cost ? costRanking(sensitivity) : null,
+    costSensitivityMethod: COST_SENSITIVITY_METHOD,
     failed: failures.length,
     failures: failures.slice(0, 10),
   };

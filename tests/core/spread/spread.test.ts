@@ -136,19 +136,84 @@ describe('runtime spread: the study', () => {
     expect(shortOfTarget).toBeGreaterThan(0);
   });
 
-  it('P50 of the runtime agrees within 1 % between two seeds at 2000 samples', () => {
-    // Convergence of the estimator, common practice (no source).
+  it('P50 of the runtime, the bank for the target and the yearly cost agree within 1 % between two seeds at 2000 samples', () => {
+    // Convergence of the estimator, issue 20's criterion; common practice (no source).
     const solved = solvedOf(smallBankCase());
     const p50 = (seed: number) => {
-      const r = runSpread(solved, { settings: { samples: 2000, seed }, cost: null });
+      const r = runSpread(solved, { settings: { samples: 2000, seed }, cost });
       if (!r.ok) throw new Error(r.problems[0]!.message);
       expect(r.value.failed).toBe(0);
-      return r.value.runtimeH!.p50;
+      expect(r.value.bankAh!.count).toBe(2000);
+      expect(r.value.costPerYear!.count).toBe(2000);
+      return { runtime: r.value.runtimeH!.p50, bank: r.value.bankAh!.p50, cost: r.value.costPerYear!.p50 };
     };
     const a = p50(1);
     const b = p50(2);
-    expect(Math.abs(a - b) / a).toBeLessThan(0.01);
+    expect(Math.abs(a.runtime - b.runtime) / a.runtime).toBeLessThan(0.01);
+    expect(Math.abs(a.bank - b.bank) / a.bank).toBeLessThan(0.01);
+    expect(Math.abs(a.cost - b.cost) / a.cost).toBeLessThan(0.01);
   }, 120_000);
+
+  it('the histograms of the runtime, the bank and the yearly cost count every sample once (Rice rule)', () => {
+    // Counting identity (no source needed); the bin count by the Rice rule ⌈2·n^(1/3)⌉ = 8 for n = 60
+    // (common practice (no source)).
+    const solved = solvedOf(smallBankCase());
+    const r = runSpread(solved, { settings: { samples: 60, seed: 9 }, cost });
+    if (!r.ok) throw new Error(r.problems[0]!.message);
+    const s = r.value;
+    expect(s.failed).toBe(0);
+    for (const [bins, p] of [
+      [s.histogram, s.runtimeH],
+      [s.bankHistogram!, s.bankAh],
+      [s.costHistogram!, s.costPerYear],
+    ] as const) {
+      expect(bins).toHaveLength(8);
+      expect(bins.reduce((n, b) => n + b.count, 0)).toBe(60);
+      expect(bins[0]!.from).toBe(p!.min);
+      expect(bins[bins.length - 1]!.to).toBe(p!.max);
+    }
+    // Without a price: no cost figures, histogram or ranking; without a target: no bank histogram.
+    const free = runSpread(solved, { settings: { samples: 10 }, cost: null });
+    if (!free.ok) throw new Error('refused');
+    expect(free.value).toMatchObject({ costPerYear: null, costHistogram: null, costSensitivity: null });
+    expect(free.value.bankHistogram).not.toBeNull();
+    const noTarget = smallBankCase();
+    delete (noTarget.backup as { targetRuntimeHours?: number }).targetRuntimeHours;
+    const nt = runSpread(solvedOf(noTarget), { settings: { samples: 10 }, cost: null });
+    if (!nt.ok) throw new Error('refused');
+    expect(nt.value.bankHistogram).toBeNull();
+  });
+
+  it('each ranking is the swings sorted by |high − low| of its own figure', () => {
+    // Definition of the one-at-a-time ranking (no source needed).
+    const solved = solvedOf(hillside);
+    const r = runSpread(solved, { settings: { samples: 10, seed: 2 }, cost });
+    if (!r.ok) throw new Error(r.problems[0]!.message);
+    const s = r.value;
+    const by = (f: (w: (typeof s.sensitivity)[number]) => number) => [...s.sensitivity].sort((a, b) => f(b) - f(a)).map((w) => w.input);
+    expect(s.sensitivity.map((w) => w.input)).toEqual(by((w) => Math.abs(w.high!.runtimeH - w.low!.runtimeH)));
+    expect(s.costSensitivity!.map((w) => w.input)).toEqual(by((w) => Math.abs(w.high!.costPerYear! - w.low!.costPerYear!)));
+    for (const w of s.costSensitivity!) expect(w.costSwing).toBe(Math.abs(w.high!.costPerYear! - w.low!.costPerYear!));
+    // The same runs, in another order.
+    expect([...s.costSensitivity!].sort((a, b) => a.input.localeCompare(b.input))).toEqual([...s.sensitivity].sort((a, b) => a.input.localeCompare(b.input)));
+  });
+
+  it('a case where only the converter efficiency moves the yearly cost puts it first in the cost ranking', () => {
+    // Hand-built: loads and capacity held (0 %); aging, cell temperature and end voltage change the
+    // battery study only, not the solved operating point the losses are priced at, so their cost
+    // swing is 0. Efficiency ± 1 point: the converter's loss at 500 W out is 500·(1/η − 1), lower at
+    // the high end (from η = P/(P + L)).
+    const solved = solvedOf(smallBankCase());
+    const r = runSpread(solved, { settings: { capacityPercent: 0, agingPercent: 20, temperatureC: 10, efficiencyPoints: 1, loadPercent: 0, endVoltagePerCell: 0.1, samples: 10 }, cost });
+    if (!r.ok) throw new Error(r.problems[0]!.message);
+    const [first, ...rest] = r.value.costSensitivity!;
+    expect(first!.input).toBe('efficiency');
+    expect(first!.costSwing).toBeGreaterThan(0);
+    expect(first!.high!.costPerYear).toBeLessThan(first!.low!.costPerYear!);
+    for (const w of rest) expect(w.costSwing).toBe(0);
+    // The runtime's ranking leads with another input (aging): the two rankings are not the same.
+    expect(r.value.sensitivity[0]!.input).not.toBe('efficiency');
+  });
 
   it('the sensitivity names capacity first on a case built for it', () => {
     // Capacity ± 30 %, the others a tenth of their typical values or less: runtime ∝ capacity at a
@@ -255,6 +320,18 @@ describe('runtime spread: the study', () => {
     const text = formatSpread(r.value);
     expect(text).toContain('12 samples, seed 3');
     expect(text).toContain("typical value: use the maker's figure");
+    // The cost's histogram and ranking are printed with a price; the caution names the safe end of each row.
+    expect(text).toContain('Yearly cost of the losses histogram');
+    expect(text).toContain('Which input moves the yearly cost of the losses most');
+    expect(text).toContain('Bank for the target histogram');
+    expect(text).toContain("from the runtime's P10");
+    expect(text).toContain("the bank row's P90");
+    expect(text).toContain('Converter efficiency: ± 1 point\n');
+    expect(formatSpread({ ...r.value, tolerances: { ...r.value.tolerances, efficiency: 2 } })).toContain('Converter efficiency: ± 2 points\n');
+    const free = runSpread(solved, { settings: { samples: 12, seed: 3 }, cost: null });
+    if (!free.ok) throw new Error('refused');
+    expect(formatSpread(free.value)).toContain('no energy price per kWh');
+    expect(formatSpread(free.value)).not.toContain('Yearly cost of the losses histogram');
     // The single run is the battery study's own runtime of the same project (identity, no source needed).
     const single = runBackupStudy(solved);
     expect(single.ok && single.study.discharge.runtimeSeconds / 3600).toBe(r.value.single.runtimeH);

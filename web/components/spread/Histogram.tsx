@@ -1,17 +1,30 @@
 /**
- * The runtime histogram of a spread: an SVG of our own (bars of equal width, P10/P50/P90 marked),
- * labelled, with its text alternative (a caption in words and the bins as a table).
+ * A histogram of a spread (the runtime, the bank for the target, the yearly cost of the losses): an
+ * SVG of our own (bars of equal width, P10/P50/P90 marked), labelled, with its text alternative (a
+ * caption in words and the bins as a table). The figure's name and format come from the panel.
  */
 import type { HistogramBin, Percentiles } from '../../../core/studies/index.ts';
-import { formatSignificant } from '../../format/number.ts';
 
 const W = 360;
 const H = 170;
 const PAD = { left: 34, right: 10, top: 14, bottom: 36 };
+/** Room a mark's label ("P90") takes beside its line, px of the viewBox (10 px text). */
+const LABEL_W = 21;
 
-export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; runtime: Percentiles; locale: string | undefined }) {
-  const h = (v: number) => `${formatSignificant(v, 3, locale)} h`;
+export interface HistogramProps {
+  bins: HistogramBin[];
+  /** The same samples' percentiles (marked, and said in the caption). */
+  p: Percentiles;
+  /** A value in the user's unit or money ("25.6 h", "398 Ah", "$1,816.00"). */
+  format: (v: number) => string;
+  /** The figure, as the axis and the caption name it ("Runtime"). */
+  name: string;
+  testId: string;
+}
+
+export function Histogram({ bins, p, format: h, name, testId }: HistogramProps) {
   if (bins.length === 0) return null;
+  const captionId = `${testId}-caption`;
   const lo = bins[0]!.from;
   const hi = bins[bins.length - 1]!.to;
   const span = hi - lo || 1;
@@ -21,14 +34,21 @@ export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; run
   const single = bins.length === 1;
   const barW = single ? 24 : (W - PAD.left - PAD.right) / bins.length;
   const marks: [string, number][] = [
-    ['P10', runtime.p10],
-    ['P50', runtime.p50],
-    ['P90', runtime.p90],
+    ['P10', p.p10],
+    ['P50', p.p50],
+    ['P90', p.p90],
   ];
-  const caption = `Runtime of ${runtime.count} samples from ${h(runtime.min)} to ${h(runtime.max)}: P10 ${h(runtime.p10)}, P50 ${h(runtime.p50)}, P90 ${h(runtime.p90)}.`;
+  // P10's label to the left of its line and P90's to the right, unless it would run off the plot
+  // (a figure whose samples crowd one end): then on the other side.
+  const side = (i: number, v: number) => {
+    if (i === 1) return 0;
+    if (i === 0) return x(v) - LABEL_W < PAD.left ? 1 : -1;
+    return x(v) + LABEL_W > W - PAD.right / 2 ? -1 : 1;
+  };
+  const caption = `${name} of ${p.count} samples from ${h(p.min)} to ${h(p.max)}: P10 ${h(p.p10)}, P50 ${h(p.p50)}, P90 ${h(p.p90)}.`;
   return (
-    <figure class="spread-figure" data-testid="spread-histogram">
-      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby="spread-histogram-caption" class="spread-chart">
+    <figure class="spread-figure" data-testid={testId}>
+      <svg viewBox={`0 0 ${W} ${H}`} role="img" aria-labelledby={captionId} class="spread-chart">
         <line x1={PAD.left} x2={W - PAD.right} y1={H - PAD.bottom} y2={H - PAD.bottom} class="spread-axis" />
         <line x1={PAD.left} x2={PAD.left} y1={PAD.top} y2={H - PAD.bottom} class="spread-axis" />
         {bins.map((b, i) => (
@@ -38,7 +58,7 @@ export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; run
           marks.map(([label, v], i) => (
             <g key={label} class="spread-mark">
               <line x1={x(v)} x2={x(v)} y1={PAD.top - 4} y2={H - PAD.bottom} />
-              <text x={x(v) + (i === 0 ? -3 : i === 2 ? 3 : 0)} y={i === 1 ? PAD.top - 5 : PAD.top + 8} text-anchor={i === 0 ? 'end' : i === 2 ? 'start' : 'middle'}>
+              <text x={x(v) + side(i, v) * 3} y={i === 1 ? PAD.top - 5 : PAD.top + 8} text-anchor={side(i, v) < 0 ? 'end' : side(i, v) > 0 ? 'start' : 'middle'}>
                 {label}
               </text>
             </g>
@@ -50,7 +70,7 @@ export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; run
           {h(hi)}
         </text>
         <text x={(PAD.left + W - PAD.right) / 2} y={H - 4} text-anchor="middle" class="spread-tick">
-          Runtime
+          {name}
         </text>
         <text x={PAD.left - 4} y={PAD.top + 4} text-anchor="end" class="spread-tick">
           {most}
@@ -62,13 +82,13 @@ export function Histogram({ bins, runtime, locale }: { bins: HistogramBin[]; run
           Samples
         </text>
       </svg>
-      <figcaption id="spread-histogram-caption">{caption}</figcaption>
+      <figcaption id={captionId}>{caption}</figcaption>
       <details class="spread-table">
         <summary>The histogram as a table</summary>
         <table class="data">
           <thead>
             <tr>
-              <th scope="col">Runtime from</th>
+              <th scope="col">{name} from</th>
               <th scope="col">to</th>
               <th scope="col">Samples</th>
             </tr>

@@ -5,7 +5,8 @@
  * for the target and the yearly cost of the losses as P10/P50/P90, the runtime histogram and which
  * input moves the runtime most. Every figure comes from core (core/studies/spread/) run in the
  * spread's own workers (spread-worker.ts, one per core up to four, spread-client.ts) on the last valid
- * solved pair; this file only lays out.
+ * solved pair; this file only lays out. With an energy price the yearly cost of the losses gets the same
+ * as the runtime (histogram, which input moves it most); the bank for the target gets a histogram.
  *
  * A panel of its own (not inside the battery panel): a run takes seconds and is asked for, not run on
  * every edit as the battery study is, and its settings are many; kept apart, the battery panel stays
@@ -18,7 +19,8 @@ import { draft, lastSolved } from '../../state/editor.ts';
 import { costInForce, effectiveLocale, unitSystem } from '../../state/prefs.ts';
 import { formatSignificant } from '../../format/number.ts';
 import { formatMoney } from '../../format/panels.ts';
-import type { Quantity } from '../../format/parse.ts';
+import { fromSi, inputUnit, type Quantity } from '../../format/parse.ts';
+import type { UnitSystem } from '../../format/units.ts';
 import { SettingField } from '../SettingField.tsx';
 import { problemLine } from '../problem-words.ts';
 import { cancelSpread, dropSpread, startSpread } from './spread-client.ts';
@@ -27,15 +29,29 @@ import { Sensitivity } from './Sensitivity.tsx';
 import '../Panels.css';
 import './spread.css';
 
-/** Each tolerance's form: label (core/model/field-labels.ts words), quantity and unit shown. */
-const FIELDS: Record<SpreadInput, { label: string; quantity: Quantity; unit: string }> = {
-  capacity: { label: 'Capacity tolerance (± %)', quantity: 'percent', unit: '± %' },
-  aging: { label: 'Capacity lost to aging (up to %)', quantity: 'percent', unit: '%' },
-  temperature: { label: 'Cell temperature range (± °C)', quantity: 'ratio', unit: '± °C' },
-  efficiency: { label: 'Converter efficiency (± points)', quantity: 'ratio', unit: '± points' },
-  load: { label: 'Load levels (± %)', quantity: 'percent', unit: '± %' },
-  endVoltage: { label: 'End voltage per cell (± V)', quantity: 'voltage', unit: '± V' },
-};
+/**
+ * Each tolerance's form: label (core/model/field-labels.ts words), quantity, unit shown, typical
+ * value and why. The temperature's ± is a difference: in US units °F by × 9/5, no offset.
+ */
+function fieldsOf(units: UnitSystem, locale: string | undefined): Record<SpreadInput, { label: string; quantity: Quantity; unit: string; placeholder: string; why: string }> {
+  const deg = inputUnit('temperature-difference', units).symbol;
+  const typicalT = formatSignificant(fromSi('temperature-difference', units, TYPICAL_TOLERANCES.temperature), 3, locale);
+  const f = (label: string, quantity: Quantity, unit: string, input: SpreadInput) => ({ label, quantity, unit, placeholder: String(TYPICAL_TOLERANCES[input]), why: TYPICAL_WHY[input] });
+  return {
+    capacity: f('Capacity tolerance (± %)', 'percent', '± %', 'capacity'),
+    aging: f('Capacity lost to aging (up to %)', 'percent', '%', 'aging'),
+    temperature: {
+      label: `Cell temperature range (± ${deg})`,
+      quantity: 'temperature-difference',
+      unit: `± ${deg}`,
+      placeholder: typicalT,
+      why: units === 'us' ? `± ${typicalT} °F typical value: the room's swing over the outages; use your site's figure.` : TYPICAL_WHY.temperature,
+    },
+    efficiency: f('Converter efficiency (± points)', 'ratio', '± points', 'efficiency'),
+    load: f('Load levels (± %)', 'percent', '± %', 'load'),
+    endVoltage: f('End voltage per cell (± V)', 'voltage', '± V', 'endVoltage'),
+  };
+}
 
 type RunState =
   | { kind: 'idle' }
@@ -77,6 +93,9 @@ export default function SpreadPanel() {
   if (!project || !solved) return null;
   const settings: SpreadSettings = solved.project.spread ?? {};
   const h = (v: number) => `${formatSignificant(v, 3, locale)} h`;
+  const ah = (v: number) => `${formatSignificant(v, 4, locale)} Ah`;
+  const money = (v: number) => formatMoney(v, locale);
+  const FIELDS = fieldsOf(units, locale);
 
   const run = () => {
     const cost = costInForce(solved.project);
@@ -112,8 +131,8 @@ export default function SpreadPanel() {
             label={FIELDS[input].label}
             quantity={FIELDS[input].quantity}
             unit={FIELDS[input].unit}
-            placeholder={String(TYPICAL_TOLERANCES[input])}
-            help={`${TYPICAL_WHY[input]} 0 holds it at the project's value.`}
+            placeholder={FIELDS[input].placeholder}
+            help={`${FIELDS[input].why} 0 holds it at the project's value.`}
             undoLabel={`Runtime spread: ${FIELDS[input].label.toLowerCase()}`}
             testId={`spread-${input}`}
           />
@@ -187,25 +206,56 @@ export default function SpreadPanel() {
               </thead>
               <tbody>
                 <Triple label="Runtime" p={result.runtimeH} format={h} testId="spread-runtime" />
-                {result.targetHours !== undefined && <Triple label={`Bank for ${h(result.targetHours)}`} p={result.bankAh} format={(v) => `${formatSignificant(v, 4, locale)} Ah`} testId="spread-bank" />}
-                {result.costPerYear && <Triple label="Yearly cost of the losses" p={result.costPerYear} format={(v) => formatMoney(v, locale)} testId="spread-cost" />}
+                {result.targetHours !== undefined && <Triple label={`Bank for ${h(result.targetHours)}`} p={result.bankAh} format={ah} testId="spread-bank" />}
+                {result.costPerYear && <Triple label="Yearly cost of the losses" p={result.costPerYear} format={money} testId="spread-cost" />}
               </tbody>
             </table>
           </div>
-          <p class="note">P10: one sample in ten runs shorter (needs a bigger bank); P90: one in ten runs longer.</p>
-          {!result.costPerYear && <p class="note">No energy price per kWh for this project: give one in the running cost panel for the yearly cost of the losses.</p>}
+          <p class="note">
+            Runtime: P10, one sample in ten runs shorter; P90, one in ten runs longer.{result.targetHours !== undefined ? ' Bank: P90, one sample in ten needs a bigger bank.' : ''}{result.costPerYear ? ' Cost: P90, one sample in ten costs more a year.' : ''}
+          </p>
+          {!result.costPerYear && (
+            <p class="note" data-testid="spread-no-cost">
+              No cost figures or cost charts: this project has no energy price per kWh. Give one in the running cost panel for the yearly cost of the losses, its histogram and which input moves it most.
+            </p>
+          )}
           {result.lowerBoundCount > 0 && <p class="note">{result.lowerBoundCount} samples outlasted the study length: their runtime is longer than counted.</p>}
           {result.failed > 0 && (
             <p class="notice notice--stale">
               {result.failed === 1 ? 'One sample could not be run and is left out' : `${result.failed} samples could not be run and are left out`}, e.g. {result.failures[0]!.message}
             </p>
           )}
-          {result.runtimeH && <Histogram bins={result.histogram} runtime={result.runtimeH} locale={locale} />}
+          {result.runtimeH && (
+            <>
+              <h4>How the runtime spreads</h4>
+              <Histogram bins={result.histogram} p={result.runtimeH} format={h} name="Runtime" testId="spread-histogram" />
+            </>
+          )}
+          {result.targetHours !== undefined && result.bankAh && result.bankHistogram && (
+            <>
+              <h4>How the bank for {h(result.targetHours)} spreads</h4>
+              <Histogram bins={result.bankHistogram} p={result.bankAh} format={ah} name="Bank" testId="spread-bank-histogram" />
+              <p class="note">The battery study's bank for the target is whole strings (each string the bank's capacity in that sample, or a standard rating when the study lists them), so it moves in steps: within a step the spread is mostly the capacity tolerance, and a sample that needs a string fewer or more stands apart.</p>
+            </>
+          )}
           {result.sensitivity.length > 0 && (
             <>
               <h4>Which input moves the runtime most</h4>
               <p class="note">Each input at the low and the high end of its tolerance, the others as given; the line is the single run.</p>
-              <Sensitivity swings={result.sensitivity} single={result.single} locale={locale} />
+              <Sensitivity swings={result.sensitivity} single={result.single} value={(f) => f.runtimeH} swing={(w) => w.runtimeSwingH} format={h} testId="spread-sensitivity" />
+            </>
+          )}
+          {result.costPerYear && result.costHistogram && (
+            <>
+              <h4>How the yearly cost of the losses spreads</h4>
+              <Histogram bins={result.costHistogram} p={result.costPerYear} format={money} name="Yearly cost" testId="spread-cost-histogram" />
+            </>
+          )}
+          {result.costSensitivity && result.costSensitivity.length > 0 && (
+            <>
+              <h4>Which input moves the yearly cost most</h4>
+              <p class="note">The same runs, ranked by the swing in the yearly cost of the losses; the line is the single run.</p>
+              <Sensitivity swings={result.costSensitivity} single={result.single} value={(f) => f.costPerYear} swing={(w) => w.costSwing} format={money} testId="spread-cost-sensitivity" />
             </>
           )}
           <p class="note">
@@ -217,7 +267,7 @@ export default function SpreadPanel() {
         <h4 id="spread-cautions-heading">Cautions</h4>
         <ul>
           <li>Planning estimates: the spread comes from the tolerances entered, not from tests of your bank. Tolerances left empty take a typical value: use the maker's figure.</li>
-          <li>Size the bank from the low end (P10), not the middle; a bank's capacity falls with age and cold.</li>
+          <li>Size the bank from the runtime's P10 or from the bank row's P90 (the bigger bank), not from the middle; a bank's capacity falls with age and cold.</li>
           <li>Local codes and licensed practice govern the bank, its protection (a fuse close to the bank for its fault current) and its ventilation.</li>
         </ul>
       </section>
