@@ -4,3 +4,4 @@ export { SYSTEM_VOLTAGES, seriesForSystem, systemBank, systemVoltageVariant, typ
 export { criticalLoadsVariant } from './critical-loads.ts';
 export { nextSizeUpVariant } from './next-size.ts';
 export { restrungResistance, type Stringing } from './bank-resistance.ts';
+export { changedFields } from '../solve/project-variant.ts';
