@@ -66,8 +66,19 @@ function scaled(v: number, k: number): number {
   return Number((v * k).toPrecision(4));
 }
 
+/** How the system voltage variant treats the DC system's cables. */
+export interface SystemVoltageOptions {
+  /**
+   * true (the quick variant's default): a cable with a conductor of a fixed size gets size "auto", so it
+   * is sized again for the new current. false: it keeps its size (the option search, whose conductor
+   * sizes are an axis of their own, priced); the note then names it to be checked at the new current.
+   */
+  resizeCables?: boolean;
+}
+
 /** The variant that runs the DC system at `volts` (12, 24 or 48 V; see the file's top), or why it does not apply. */
-export function systemVoltageVariant(project: Pick<Project, 'elements'>, volts: number): QuickVariantOutcome {
+export function systemVoltageVariant(project: Pick<Project, 'elements'>, volts: number, options: SystemVoltageOptions = {}): QuickVariantOutcome {
+  const resize = options.resizeCables ?? true;
   const refuse = (elementId: string, field: string, message: string): QuickVariantOutcome => ({ ok: false, problems: [{ code: 'invalid-value', elementId, field, value: volts, message } satisfies Problem] });
   if (!(SYSTEM_VOLTAGES as readonly number[]).includes(volts)) return refuse(PROJECT_LEVEL, 'variants', `a system voltage of ${volts} V is not offered: choose 12, 24 or 48 V`);
   const bank = systemBank(project);
@@ -134,6 +145,10 @@ export function systemVoltageVariant(project: Pick<Project, 'elements'>, volts: 
     const c = e.conductor;
     if (!c) {
       unsized.push(`${name}: given by its resistance, not sized again: check it at the new current`);
+      continue;
+    }
+    if (c.size !== 'auto' && !resize) {
+      unsized.push(`${name}: kept at ${c.size}, not sized again: check it at the new current`);
       continue;
     }
     if (c.size !== 'auto') set[e.id] = { conductor: { size: 'auto' } };

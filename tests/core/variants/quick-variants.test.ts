@@ -96,6 +96,15 @@ describe('system voltage variant (12 / 24 / 48 V)', () => {
     expect(c.size).toBe('2.5 mm²');
   });
 
+  it('with resizeCables false (the option search, whose sizes are an axis of their own) a fixed size is kept and named to be checked', () => {
+    const plan = dcProject({ cable: true });
+    (plan.elements.find((e) => e.id === 'feed') as unknown as { conductor: { size: string } }).conductor.size = '10 mm²';
+    const v = systemVoltageVariant(plan, 48, { resizeCables: false });
+    if (!v.ok) throw new Error('refused');
+    expect(v.variant.set).not.toHaveProperty('feed'); // common practice (no source): the user's size stays
+    expect(v.variant.note).toContain('Bank feed: kept at 10 mm², not sized again: check it at the new current');
+  });
+
   it('a DC cable whose design current is given is sized for that current: the note says to check it at the new voltage', () => {
     const plan = dcProject({ cable: true });
     const feed = plan.elements.find((e) => e.id === 'feed') as unknown as { conductor: Record<string, unknown> };
