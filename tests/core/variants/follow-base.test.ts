@@ -9,6 +9,7 @@
  * an older file's variant that holds a whole object still solves as before.
  */
 import { describe, expect, it } from 'vitest';
+import fc from 'fast-check';
 import { demoProjects } from '../../../core/demos/index.ts';
 import { solveProject } from '../../../core/index.ts';
 import { changedFields, mergeSet, solveProjectVariant, variantChangeOf } from '../../../core/solve/project-variant.ts';
@@ -175,6 +176,23 @@ describe('how a variant’s set is merged', () => {
     for (const after of edits) expect(mergeSet(before, changedFields(before, after))).toEqual(after); // common practice (no source): a round trip
     expect(changedFields(before, edits[2]!)).toEqual({ loss: { idleLoss: null } });
     expect(changedFields(before, edits[4]!)).toEqual({ surge: null });
+  });
+
+  it('changedFields then mergeSet gives back any edited element (fast-check, fixed seed; objects nested three deep, form keys among their keys)', () => {
+    // common practice (no source): what a variant stores and what it applies are inverse to each other.
+    const leaf = fc.oneof(fc.integer({ min: -3, max: 3 }), fc.constantFrom('constant', 'curve', 'iec', 'nec'), fc.array(fc.integer({ min: 0, max: 3 }), { maxLength: 3 }));
+    const { node } = fc.letrec((tie) => ({
+      node: fc.dictionary(fc.constantFrom('model', 'system', 'method', 'a', 'b'), fc.oneof({ depthSize: 'small', maxDepth: 3 }, leaf, tie('node')), { maxKeys: 4 }),
+    }));
+    const element = fc.record({ loss: node, conductor: node, bank: node, network: node, surge: node, power: leaf }, { requiredKeys: [] });
+    fc.assert(
+      fc.property(element, element, (before, after) => {
+        const b = { id: 'e', kind: 'generic', ...before };
+        const a = { id: 'e', kind: 'generic', ...after };
+        expect(mergeSet(b, changedFields(b, a))).toEqual(a);
+      }),
+      { seed: 20, numRuns: 500 },
+    );
   });
 
   it('an older file’s variant that holds the whole bank solves as before, and keeps overriding what it holds after the plan is edited', () => {
