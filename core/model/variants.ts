@@ -18,8 +18,12 @@ export interface ProjectVariant {
   /** What the variant is for, in the planner's words (printed under its name). */
   note?: string;
   /**
-   * Fields set on elements of the base, by element id: `{ "bank": { "series": 4 } }`. A field set to
-   * null is taken out (the element's default applies). `id` and `kind` cannot be set: swap the element.
+   * Fields set on elements of the base, by element id: `{ "bank": { "bank": { "series": 8, "strings": 2 } } }`.
+   * An object is merged into the element's own field by field, at any depth, so the fields it does not
+   * give stay the base's and follow its later edits; a list or a value replaces. An object given in
+   * another form (another loss `model`, conductor `system`, start `method`, drive loss `basis`, bank
+   * `chemistry`) replaces the base's whole, as does a `network`. A field set to null is taken out (the
+   * element's default applies), at any depth. `id` and `kind` cannot be set: swap the element.
    */
   set?: Record<string, Record<string, unknown>>;
   /** Whole elements put in place of the base's element of the same id (another inverter, another kind). */

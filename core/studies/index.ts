@@ -31,4 +31,4 @@ export { GENERATOR_RATED_POWER_FACTOR, dutyHoursPerYear } from './lifetime.ts';
 export { studySurges, type DeviceCheck, type FaultPoint, type MotorStartResult, type StartCheck } from './surge/index.ts';
 export { answerStudies, studyAnswersFrom, type BankStudyAnswer, type CostAnswer, type StartAnswer, type StudyAnswers } from './answers.ts';
 export { compareVariants, compareColumns, solveColumns, type ColumnSolve, type ComparisonColumn, type ComparisonRow, type RowGroup, type RowQuantity, type VariantComparison } from './variants/compare.ts';
-export { criticalLoadsVariant, nextSizeUpVariant, systemBank, systemVoltageVariant, SYSTEM_VOLTAGES, type QuickVariantOutcome } from '../variants/index.ts';
+export { changedFields, criticalLoadsVariant, nextSizeUpVariant, systemBank, systemVoltageVariant, SYSTEM_VOLTAGES, type QuickVariantOutcome } from '../variants/index.ts';

@@ -50,7 +50,8 @@ export function nextSizeUpVariant(solved: Solved, cableId: string | null, catalo
       else skipped.push(name);
       continue;
     }
-    set[c.id] = { conductor: { ...c.conductor!, size: r.size } };
+    // Only the size: the conductor's other fields stay the plan's and follow its edits.
+    set[c.id] = { conductor: { size: r.size } };
     steps.push(`${name} → ${r.size}`);
   }
   if (problems.length) return { ok: false, problems };

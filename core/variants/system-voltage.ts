@@ -1,7 +1,11 @@
 /**
  * System voltage of a DC system (12, 24 or 48 V): the battery bank's series count changes, the
- * equipment whose voltage follows the DC system's changes in proportion, and the cables are sized
- * again when the variant is solved (each sized cable's design current follows the new voltage).
+ * equipment whose voltage follows the DC system's changes in proportion, and the DC system's cables
+ * are sized again when the variant is solved (each sized cable's design current follows the new
+ * voltage; a cable whose conductor has a fixed size in the plan gets size "auto" in the variant).
+ * A cable given by its resistance cannot be sized, and one whose design current is given keeps it:
+ * the note names each, to be checked at the new current. The variant stores only what it changes
+ * (`bank: { series, strings }`, `conductor: { size: "auto" }`), so later edits of the plan reach it.
  *
  * - Cells (or blocks) in series per string: as many as make 12 V, rounded up from the chemistry's
  *   nominal cell voltage × cells per block, times the system voltage ÷ 12 (common practice (no
@@ -17,6 +21,10 @@
  *   inversely with the strings (R = R_string·n/m).
  * - The DC system: the bank and the cables and DC buses joined to it (the elements that pass its
  *   voltage through); what hangs off it or feeds it is the equipment above.
+ * - Cautions in the note (common practice (no source)): the equipment on the DC system is the same
+ *   equipment, so each must be made for the new voltage (an inverter's, a charger's, a DC-DC
+ *   converter's DC range; a DC load's); more than DEFAULT_MAX_STRINGS (4) strings in parallel share
+ *   the current unevenly and makers limit how many may be paralleled.
  */
 import { PROJECT_LEVEL, type Problem } from '../model/errors.ts';
 import type { Element, Project } from '../model/project.ts';
@@ -24,6 +32,13 @@ import { CHEMISTRY_PRESETS } from '../data/battery-chemistries.ts';
 import { elementWords } from '../model/field-labels.ts';
 import type { QuickVariantOutcome } from './types.ts';
 import { restrungResistance } from './bank-resistance.ts';
+import { DEFAULT_MAX_STRINGS } from '../studies/backup/sizing-types.ts';
+
+/**
+ * What the planner is asked to check of equipment kept the same at another DC voltage (the option
+ * search words it so too): after "…the same, now at 24 V DC (names): ".
+ */
+export const MADE_FOR_VOLTAGE = 'check that each is made for that voltage, or list alternatives with their makers’ figures';
 
 /** The system voltages offered (the usual DC system voltages of small installations). */
 export const SYSTEM_VOLTAGES = [12, 24, 48] as const;
@@ -51,8 +66,19 @@ function scaled(v: number, k: number): number {
   return Number((v * k).toPrecision(4));
 }
 
+/** How the system voltage variant treats the DC system's cables. */
+export interface SystemVoltageOptions {
+  /**
+   * true (the quick variant's default): a cable with a conductor of a fixed size gets size "auto", so it
+   * is sized again for the new current. false: it keeps its size (the option search, whose conductor
+   * sizes are an axis of their own, priced); the note then names it to be checked at the new current.
+   */
+  resizeCables?: boolean;
+}
+
 /** The variant that runs the DC system at `volts` (12, 24 or 48 V; see the file's top), or why it does not apply. */
-export function systemVoltageVariant(project: Pick<Project, 'elements'>, volts: number): QuickVariantOutcome {
+export function systemVoltageVariant(project: Pick<Project, 'elements'>, volts: number, options: SystemVoltageOptions = {}): QuickVariantOutcome {
+  const resize = options.resizeCables ?? true;
   const refuse = (elementId: string, field: string, message: string): QuickVariantOutcome => ({ ok: false, problems: [{ code: 'invalid-value', elementId, field, value: volts, message } satisfies Problem] });
   if (!(SYSTEM_VOLTAGES as readonly number[]).includes(volts)) return refuse(PROJECT_LEVEL, 'variants', `a system voltage of ${volts} V is not offered: choose 12, 24 or 48 V`);
   const bank = systemBank(project);
@@ -71,7 +97,8 @@ export function systemVoltageVariant(project: Pick<Project, 'elements'>, volts: 
   const newStrings = keepsCells ? cells / series : strings;
   const k = series / spec.series;
   const set: Record<string, Record<string, unknown>> = {};
-  const bankFields: Record<string, unknown> = { bank: { ...spec, series, ...(newStrings !== 1 || spec.strings !== undefined ? { strings: newStrings } : {}) } };
+  // Only what changes: the bank's other fields (capacity, chemistry, state of charge) stay the plan's and follow its edits.
+  const bankFields: Record<string, unknown> = { bank: { series, ...(newStrings !== 1 || spec.strings !== undefined ? { strings: newStrings } : {}) } };
   if (bank.voltage !== undefined) bankFields['voltage'] = scaled(bank.voltage, k);
   // Whole-bank resistance: n blocks in series, m strings in parallel, R = R_string·n/m (bank-resistance.ts).
   if (bank.internalResistance !== undefined) bankFields['internalResistance'] = restrungResistance(bank.internalResistance, { series: spec.series, strings }, { series, strings: newStrings });
@@ -109,12 +136,35 @@ export function systemVoltageVariant(project: Pick<Project, 'elements'>, volts: 
       changed.push(names.get(e.id) ?? e.id);
     }
   }
+  // The DC system's cables: sized again (a fixed size set to "auto"), or named when they cannot be.
+  const sized: string[] = [];
+  const unsized: string[] = [];
+  for (const e of project.elements) {
+    if (e.kind !== 'cable' || !inSystem.has(e.id)) continue;
+    const name = names.get(e.id) ?? e.id;
+    const c = e.conductor;
+    if (!c) {
+      unsized.push(`${name}: given by its resistance, not sized again: check it at the new current`);
+      continue;
+    }
+    if (c.size !== 'auto' && !resize) {
+      unsized.push(`${name}: kept at ${c.size}, not sized again: check it at the new current`);
+      continue;
+    }
+    if (c.size !== 'auto') set[e.id] = { conductor: { size: 'auto' } };
+    if (c.designCurrentBasis === 'given') unsized.push(`${name}: its design current is given${c.designCurrent !== undefined ? ` (${c.designCurrent} A)` : ''}, so it is sized again for that current: check it at the new voltage`);
+    else sized.push(c.size === 'auto' ? name : `${name} (${c.size} in the plan)`);
+  }
+  const equipment = edge.map((e) => names.get(e.id) ?? e.id);
   const nominal = series * blockVolts;
   const note = [
     `${bankName}: ${series} in series × ${newStrings} string${newStrings === 1 ? '' : 's'} (${Number(nominal.toPrecision(4))} V nominal)`,
     keepsCells ? 'the same cells, so the same stored energy' : `the strings kept, so the stored energy changes with the voltage (× ${Number(k.toPrecision(3))})`,
+    newStrings > DEFAULT_MAX_STRINGS ? `${newStrings} strings in parallel share the current unevenly, and makers limit how many strings may be put in parallel (typical value ${DEFAULT_MAX_STRINGS}: use the maker’s figure)` : '',
     changed.length ? `voltages that follow the DC system changed in proportion: ${changed.join(', ')}` : '',
-    'the cables are sized again for the new currents',
+    sized.length ? `cables sized again for the new currents: ${sized.join(', ')}` : '',
+    ...unsized,
+    equipment.length ? `the equipment on the DC system is the same, now at ${volts} V DC (${equipment.join(', ')}): ${MADE_FOR_VOLTAGE}` : '',
   ].filter((s) => s !== '');
   return { ok: true, variant: { name: `${volts} V system`, note: note.join('; '), set } };
 }

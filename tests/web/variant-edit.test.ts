@@ -2,8 +2,8 @@
  * "Change a field" of the compare-options panel with a choice (web/components/variants/ChangeField.tsx):
  * the edit is made on a copy of the element through the form's own descriptors (web/editor/fields.ts: a
  * choice's value and what must follow it, or a group's way of describing a part), and `editedChange`
- * turns it into the variant's `set` — the top-level fields it changed, null for those it took out (the
- * file format's rule, core/model/variants.ts). Each set is then solved by core's solveProjectVariant.
+ * turns it into the variant's `set` — the fields it changed, at any depth, null for those it took out (the
+ * file format's rule, core/model/variants.ts; core/solve/project-variant.ts changedFields). Each set is then solved by core's solveProjectVariant.
  */
 import { describe, expect, it } from 'vitest';
 import { demoProjects, solveProject, solveProjectVariant } from '../../core/index.ts';
@@ -37,12 +37,12 @@ describe('a variant that changes a choice', () => {
     expect(solved.ok).toBe(true);
   });
 
-  it('a choice inside the conductor (insulation) sets a copy of the whole conductor with that one value', () => {
+  it('a choice inside the conductor (insulation) sets that one value of the conductor, so the plan’s other conductor fields still reach it', () => {
     const s = solvedDemo('cold-store-dc-bus');
     const cable = elementOf(s, 'ctl-cable');
     const insulation = choice(cable, 'Insulation');
     const set = editedChange(cable, (e) => setAtPath(e, insulation.path, 'xlpe'));
-    expect(set).toEqual({ conductor: { ...(cable['conductor'] as object), insulation: 'xlpe' } });
+    expect(set).toEqual({ conductor: { insulation: 'xlpe' } }); // only what the variant changes: common practice (no source)
     const solved = solveProjectVariant(s, { name: 'XLPE', set: { 'ctl-cable': set } });
     expect(solved.ok).toBe(true);
   });
@@ -56,7 +56,15 @@ describe('a variant that changes a choice', () => {
       material.follow!(e, 'aluminium');
     });
     // The form's aluminium list starts at 10 mm² (web/editor/fields/cable.ts sizeOptions, the IEC catalogue): 2.5 mm² goes to auto.
-    expect(set['conductor']).toMatchObject({ material: 'aluminium', size: 'auto' });
+    expect(set['conductor']).toEqual({ material: 'aluminium', size: 'auto' }); // the two values changed, nothing else
+  });
+
+  it('a number inside an object sets that one value; one inside a list sets the list whole (fieldChange)', () => {
+    const s = solvedDemo('hillside-relay-hut');
+    const bank = elementOf(s, 'bank');
+    expect(fieldChange(bank, 'bank.capacityAh', 150)).toEqual({ bank: { capacityAh: 150 } }); // only the value changed: common practice (no source)
+    const drive = { id: 'd', kind: 'drive', standardLoss: { ratedApparentPower: 10000, basis: 'cdm', points: [1, 2, 3, 4, 5, 6, 7, 8] } };
+    expect(fieldChange(drive, 'standardLoss.points.2', 30)).toEqual({ standardLoss: { points: [1, 2, 30, 4, 5, 6, 7, 8] } }); // a list replaces whole: common practice (no source)
   });
 
   it('another way of describing a part (the motor’s efficiency from its class) takes the old models out with null', () => {

@@ -2,6 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { demoProjects } from '../../../core/demos/index.ts';
 import { solveProjectVariant } from '../../../core/solve/project-variant.ts';
 import { criticalLoadsVariant, nextSizeUpVariant, seriesForSystem, systemVoltageVariant } from '../../../core/variants/index.ts';
+import { MADE_FOR_VOLTAGE } from '../../../core/variants/system-voltage.ts';
 import type { Project } from '../../../core/model/project.ts';
 import { dcProject, solved } from './fixtures.ts';
 
@@ -51,6 +52,8 @@ describe('system voltage variant (12 / 24 / 48 V)', () => {
     expect(size(s48).size).toBe('2.5 mm²');
     expect(size(s48).governing).toBe('ampacity');
     expect(size(s48).device.rating).toBe(25);
+    expect(v.variant.note).toContain('cables sized again for the new currents: Bank feed'); // an "auto" cable: nothing to set (common practice (no source))
+    expect(v.variant.set).not.toHaveProperty('feed');
   });
 
   it('voltages of the DC system follow: the inverter\'s low-voltage cut-off scales with the bank (21 V at 24 V → 42 V at 48 V)', () => {
@@ -64,9 +67,69 @@ describe('system voltage variant (12 / 24 / 48 V)', () => {
   it('keeps the cells where it can: the hillside bank, 16 × 200 Ah LiFePO4 at 48 V, becomes 8 in series × 2 strings at 24 V', () => {
     const v = systemVoltageVariant(demo('hillside-relay-hut'), 24);
     if (!v.ok) throw new Error('refused');
-    expect(v.variant.set?.['bank']?.['bank']).toMatchObject({ series: 8, strings: 2, capacityAh: 200 }); // 16 cells = 8 × 2, by hand
+    // 16 cells = 8 × 2, by hand; only what changes is stored (the capacity stays the plan's: common practice (no source)).
+    expect(v.variant.set?.['bank']?.['bank']).toEqual({ series: 8, strings: 2 });
     expect(v.variant.set?.['inverter']).toEqual({ lowVoltageCutoff: 22 }); // 44 V × 8/16
     expect(v.variant.note).toMatch(/same stored energy/);
+    // Its bank cable is given by its resistance: named, not sized (common practice (no source)).
+    expect(v.variant.note).toContain('Bank to bus, 35 mm² Cu: given by its resistance, not sized again: check it at the new current');
+    expect(v.variant.set).not.toHaveProperty('bank-cable');
+    expect(v.variant.note).not.toMatch(/cables sized again/);
+    // 2 strings: no caution on strings in parallel (at most 4, core/studies/backup/sizing-types.ts DEFAULT_MAX_STRINGS, common practice).
+    expect(v.variant.note).not.toMatch(/strings in parallel share/);
+  });
+
+  it('a DC cable with a fixed size is sized again: its size set to "auto" in the variant, 10 mm² at 24 V → 2.5 mm² at 48 V (IEC 60364-5-52 Table B.52.2, PVC, method C, 2 loaded Cu)', () => {
+    const plan = dcProject({ cable: true });
+    const feed = plan.elements.find((e) => e.id === 'feed') as unknown as { conductor: { size: string } };
+    feed.conductor.size = '10 mm²';
+    const base = solved(plan);
+    const v = systemVoltageVariant(base.project, 48);
+    if (!v.ok) throw new Error('refused');
+    expect(v.variant.set?.['feed']).toEqual({ conductor: { size: 'auto' } });
+    expect(v.variant.note).toContain('cables sized again for the new currents: Bank feed (10 mm² in the plan)');
+    const s48 = solveProjectVariant(base, v.variant);
+    if (!s48.ok) throw new Error(JSON.stringify(s48.problems));
+    const c = s48.result.elements.find((e) => e.id === 'feed')!.conductor!;
+    // 1200 W / 51.2 V = 23.4 A; B.52.2 C: 1.5 mm² 19.5 A (too little), 2.5 mm² 27 A (hand-worked as the test above).
+    expect(c.designCurrent).toBeCloseTo(1200 / 51.2, 6);
+    expect(c.size).toBe('2.5 mm²');
+  });
+
+  it('with resizeCables false (the option search, whose sizes are an axis of their own) a fixed size is kept and named to be checked', () => {
+    const plan = dcProject({ cable: true });
+    (plan.elements.find((e) => e.id === 'feed') as unknown as { conductor: { size: string } }).conductor.size = '10 mm²';
+    const v = systemVoltageVariant(plan, 48, { resizeCables: false });
+    if (!v.ok) throw new Error('refused');
+    expect(v.variant.set).not.toHaveProperty('feed'); // common practice (no source): the user's size stays
+    expect(v.variant.note).toContain('Bank feed: kept at 10 mm², not sized again: check it at the new current');
+  });
+
+  it('a DC cable whose design current is given is sized for that current: the note says to check it at the new voltage', () => {
+    const plan = dcProject({ cable: true });
+    const feed = plan.elements.find((e) => e.id === 'feed') as unknown as { conductor: Record<string, unknown> };
+    feed.conductor['designCurrentBasis'] = 'given';
+    feed.conductor['designCurrent'] = 50;
+    const v = systemVoltageVariant(solved(plan).project, 48);
+    if (!v.ok) throw new Error('refused');
+    expect(v.variant.note).toContain('Bank feed: its design current is given (50 A), so it is sized again for that current: check it at the new voltage');
+    expect(v.variant.note).not.toMatch(/cables sized again/); // common practice (no source): a given current is the user's
+  });
+
+  it('cautions: the equipment on the DC system must be made for the new voltage; more than 4 strings in parallel ask for the maker’s limit (harbour clinic at 12 V: 16 strings)', () => {
+    const v = systemVoltageVariant(demo('harbour-clinic-ups'), 12);
+    if (!v.ok) throw new Error('refused');
+    // 16 blocks of 12 V → 1 in series × 16 strings, by hand.
+    expect(v.variant.set?.['bank']?.['bank']).toEqual({ series: 1, strings: 16 });
+    // Makers limit the strings in parallel: typical value 4 (core/studies/backup/sizing-types.ts DEFAULT_MAX_STRINGS, common practice (no source)).
+    expect(v.variant.note).toContain('16 strings in parallel share the current unevenly, and makers limit how many strings may be put in parallel (typical value 4: use the maker’s figure)');
+    // The search's wording (core/studies/search/search.ts): "check that each is made for that voltage, or list alternatives with their makers’ figures".
+    expect(v.variant.note).toContain(`the equipment on the DC system is the same, now at 12 V DC (UPS inverter, UPS rectifier): ${MADE_FOR_VOLTAGE}`);
+    expect(MADE_FOR_VOLTAGE).toBe('check that each is made for that voltage, or list alternatives with their makers’ figures');
+    expect(v.variant.note).toContain('Bus to battery cabinet, 25 mm² Cu: given by its resistance, not sized again: check it at the new current');
+    const at48 = systemVoltageVariant(demo('harbour-clinic-ups'), 48);
+    if (!at48.ok) throw new Error('refused');
+    expect(at48.variant.note).not.toMatch(/strings in parallel share/); // 4 strings: within the typical 4 (common practice (no source))
   });
 
   it('refuses with a message when the chain has no DC system bank, or is already at that voltage', () => {
@@ -109,7 +172,7 @@ describe('the next conductor size up', () => {
     const v = nextSizeUpVariant(base, 'ctl-cable');
     if (!v.ok) throw new Error(JSON.stringify(v.problems));
     expect(base.result.elements.find((e) => e.id === 'ctl-cable')!.conductor!.size).toBe('10 mm²');
-    expect((v.variant.set?.['ctl-cable']?.['conductor'] as { size: string }).size).toBe('16 mm²'); // IEC 60228: 10, 16, 25 mm²
+    expect(v.variant.set?.['ctl-cable']).toEqual({ conductor: { size: '16 mm²' } }); // IEC 60228: 10, 16, 25 mm²; only the size stored
     const s = solveProjectVariant(base, v.variant);
     if (!s.ok) throw new Error(JSON.stringify(s.problems));
     const c0 = base.result.elements.find((e) => e.id === 'ctl-cable')!;

@@ -3,7 +3,9 @@
  * for it now (web/editor/fields.ts, the form's own descriptors: number fields, choice fields such as a
  * cable's insulation or installation method or the phases, and the form's choice of how a part is
  * described, such as the loss model), by the form's label; then the new value, a number in the user's
- * units or one of the form's own choices. Stored in the variant's `set` like a number (edit.ts).
+ * units or one of the form's own choices. Stored in the variant's `set` as only the values it changes
+ * (edit.ts: `{ conductor: { insulation: "xlpe" } }`, a part described another way whole), so a later edit
+ * of the plan's other fields reaches the variant.
  */
 import { useState } from 'preact/hooks';
 import { elementWords, type Solved } from '../../../core/page.ts';

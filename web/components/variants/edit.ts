@@ -5,6 +5,7 @@
  * and it can be undone. Exported and imported with the project: the variants are part of its file.
  */
 import { PROJECT_LEVEL, type ProjectVariant } from '../../../core/page.ts';
+import { changedFields } from '../../../core/studies/index.ts';
 import { draft, setField } from '../../state/editor.ts';
 
 /** The open project's variants (the draft's: what the user edits). */
@@ -58,40 +59,27 @@ export function deleteVariant(index: number): string | null {
 }
 
 /**
- * The `set` of a variant that changes one field of one element: a field at the element's top level is
- * set as it is; a field inside an object ("loss.efficiency") sets a copy of that whole object with the
- * one value changed (a variant sets an element's top-level fields).
+ * The `set` of a variant that changes one field of one element (a dotted path such as "loss.efficiency"
+ * or "standardLoss.points.3"): only that value (`{ loss: { efficiency: 0.96 } }`; a list whole), so a
+ * later edit of the element's other fields in the plan reaches the variant (core's `changedFields`).
  */
 export function fieldChange(element: Record<string, unknown>, path: string, value: unknown): Record<string, unknown> {
-  const keys = path.split('.');
-  const top = keys[0]!;
-  if (keys.length === 1) return { [top]: value };
-  const copy = structuredClone(element[top] ?? {}) as Record<string, unknown>;
-  let at = copy;
-  for (const k of keys.slice(1, -1)) {
-    if (typeof at[k] !== 'object' || at[k] === null) at[k] = {};
-    at = at[k] as Record<string, unknown>;
-  }
-  at[keys[keys.length - 1]!] = value;
-  return { [top]: copy };
+  const copy = structuredClone(element);
+  setAtPath(copy, path, value);
+  return changedFields(element, copy);
 }
 
 /**
  * The `set` of a variant that makes an edit on a copy of one element (a choice field set, what must
- * follow it, or another way of describing a part of it applied): each top-level field the edit changed
- * is set to its new value, each it took out is set to null (the element's default applies).
+ * follow it, or another way of describing a part of it applied): each field the edit changed, at any
+ * depth, set to its new value, each it took out set to null (the element's default applies); a part
+ * described another way (another loss model, the other conductor table) is set whole (core's
+ * `changedFields`).
  */
 export function editedChange(element: Record<string, unknown>, edit: (copy: Record<string, unknown>) => void): Record<string, unknown> {
   const copy = structuredClone(element);
   edit(copy);
-  const set: Record<string, unknown> = {};
-  for (const key of new Set([...Object.keys(element), ...Object.keys(copy)])) {
-    if (key === 'id' || key === 'kind') continue;
-    if (copy[key] === undefined) {
-      if (element[key] !== undefined) set[key] = null;
-    } else if (JSON.stringify(copy[key]) !== JSON.stringify(element[key])) set[key] = copy[key];
-  }
-  return set;
+  return changedFields(element, copy);
 }
 
 /** Set (or, with undefined, take out) the value at a dotted path of an element's copy. */
