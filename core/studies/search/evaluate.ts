@@ -4,7 +4,9 @@
  *   1. the solve itself (a variant the engine refuses fails with its problems);
  *   2. from the solved result, at no further cost: the losses against their limit, each cable's drop
  *      by the method's check against its limit (ConductorResult.drop), each path's drop against the
- *      project's limits (PathDrop), each sized cable's ampacity against its design current;
+ *      project's limits (PathDrop: a path of one cable with a conductor check is that check; a cable
+ *      given by its resistance has none, so its path and its per-link drop are checked here), each
+ *      sized cable's ampacity against its design current;
  *   3. the motor starts (the starting study, core/studies/surge/): every verdict must be "starts";
  *   4. the runtime (the battery discharge through the chain, core/studies/backup/): at least the target.
  * Every check is a requirement on its own, so once one fails the option is out whatever the later
@@ -185,12 +187,30 @@ export function evaluateOption(
     }
   }
   if (worst !== undefined) option.worstDropRatio = worst;
-  // A path's drop over several links (one link is that cable's own drop, above).
+  // Each path's drop against the project's limits (core/conductors/path-drop.ts: Σ of the links' % drops,
+  // a link given by its resistance with its solved drop 100·(V_in − V_out)/V_in). A path of one link
+  // whose cable has a conductor check is that cable's own drop, checked above against its own limit
+  // (which may differ from the project's); a cable given by its resistance has no conductor check, so
+  // its path is checked here, and so is a link of it over the per-link limit.
   const solvedNames = new Map(result.elements.map((e) => [e.id, e.name]));
+  const conductorChecked = new Set(result.elements.filter((e) => e.conductor).map((e) => e.id));
+  const linkOver = new Set<string>();
   for (const path of result.voltageDrop ?? []) {
-    if (path.links.length < 2 || !path.exceedsLimit || path.totalPercent <= path.totalLimitPercent) continue;
+    if (!path.exceedsLimit) continue;
+    const unchecked = path.links.filter((l) => !conductorChecked.has(l.id));
+    if (path.perLinkLimitPercent !== undefined) {
+      for (const l of unchecked) {
+        if (!l.exceedsLimit || linkOver.has(l.id)) continue;
+        linkOver.add(l.id);
+        const cable = solvedNames.get(l.id) ?? l.id;
+        reasons.push({ group: `Drop on ${cable} above its limit`, text: `drop on ${cable} ${pct(l.dropPercent)} above ${pct(path.perLinkLimitPercent)} (given by its resistance)` });
+      }
+    }
+    if (path.links.length === 1 && unchecked.length === 0) continue;
+    if (path.totalPercent <= path.totalLimitPercent * (1 + 1e-12)) continue;
     const load = solvedNames.get(path.loadId) ?? path.loadId;
-    reasons.push({ group: `Drop to ${load} above its limit`, text: `drop to ${load} ${pct(path.totalPercent)} above ${pct(path.totalLimitPercent)}` });
+    const via = path.links.map((l) => solvedNames.get(l.id) ?? l.id).join(', ');
+    reasons.push({ group: `Drop to ${load} above its limit`, text: `drop to ${load} ${pct(path.totalPercent)} above ${pct(path.totalLimitPercent)} (through ${via})` });
   }
   const stop = (left: string[]) => {
     if (reasons.length && !allReasons) {
