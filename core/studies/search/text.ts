@@ -15,7 +15,8 @@ export function formatSearch(s: SearchResult): string {
   s.options.forEach((o, i) => {
     const parts = [`cost ${money(o.cost)}${o.missingPrices.length ? ` (no price for ${o.missingPrices.join(', ')})` : ''}`, `losses ${sigText(o.lossW, 3)} W`];
     if (o.yearlyLossCost !== undefined) parts.push(`${money(o.yearlyLossCost)} a year`);
-    if (o.runtimeSeconds !== undefined) parts.push(`runtime ${o.runtimeIsLowerBound ? 'at least ' : ''}${durationWords(o.runtimeSeconds)}`);
+    if (o.installedAh !== undefined && o.sizing) parts.push(`bank ${sigText(o.installedAh, 4)} Ah (the sizing for the target: ${sigText(o.sizing.bankAh, 4)} Ah, needs ${sigText(o.sizing.requiredAh, 3)} Ah)`);
+    if (o.runtimeSeconds !== undefined) parts.push(`runtime as new ${o.runtimeIsLowerBound ? 'at least ' : ''}${durationWords(o.runtimeSeconds)}`);
     lines.push(`  ${i + 1}. ${o.name}: ${parts.join(', ')}`);
     lines.push(`     ${o.choices.map((c) => c.words).join('; ')}`);
   });

@@ -7,7 +7,7 @@
 import { useState } from 'preact/hooks';
 import { PROJECT_LEVEL, type ProjectVariant } from '../../../core/page.ts';
 import type { EvaluatedOption, SearchResult } from '../../../core/studies/index.ts';
-import { formatDuration, formatPower } from '../../format/number.ts';
+import { formatDuration, formatPower, formatSignificant } from '../../format/number.ts';
 import { formatMoney } from '../../format/panels.ts';
 import { draft, setField } from '../../state/editor.ts';
 import type { Locale } from './SearchNumberInput.tsx';
@@ -32,6 +32,14 @@ function OptionRow({ o, locale, keep, kept }: { o: EvaluatedOption; locale: Loca
       </td>
       <td>{o.lossW !== undefined ? formatPower(o.lossW, locale) : '—'}</td>
       <td>{o.yearlyLossCost !== undefined ? formatMoney(o.yearlyLossCost, locale) : '—'}</td>
+      <td>
+        {o.installedAh !== undefined && o.sizing ? (
+          <>
+            {formatSignificant(o.installedAh, 4, locale)} Ah
+            <span class="search-option-words">the sizing for the target: {formatSignificant(o.sizing.bankAh, 4, locale)} Ah (needs {formatSignificant(o.sizing.requiredAh, 3, locale)} Ah)</span>
+          </>
+        ) : '—'}
+      </td>
       <td>{o.runtimeSeconds !== undefined ? `${o.runtimeIsLowerBound ? 'at least ' : ''}${formatDuration(o.runtimeSeconds, locale)}` : '—'}</td>
     </tr>
   );
@@ -63,7 +71,8 @@ export function Results({ search, locale, variants }: { search: SearchResult; lo
                 <th scope="col">Purchase cost</th>
                 <th scope="col">Losses</th>
                 <th scope="col">Losses a year</th>
-                <th scope="col">Runtime</th>
+                <th scope="col">Bank</th>
+                <th scope="col">Runtime as new</th>
               </tr>
             </thead>
             <tbody>
