@@ -1,9 +1,10 @@
 /**
  * "Find the option" in the page (issue 20 point 4): on the hillside demo (a 48 V bank, one string, a
  * 3 kW inverter, a 24 h target runtime) the user ticks 1–3 strings at a price per string and two of the
- * inverter presets with their prices, runs the search in its worker (progress shown), and the list the
- * page shows equals core's searchOptions on the same settings (run here; core's choice is checked by the
- * hand-worked case of tests/core/search/). "Keep as a variant" stores the option in the project's
+ * inverter presets with their prices (one with its idle draw changed), runs the search in its worker
+ * (progress shown), and the list the page shows, and every rejected option with its reasons, equal
+ * core's searchOptions on the same settings (run here; core's choice is checked by the hand-worked case
+ * of tests/core/search/). "Keep as a variant" stores the option in the project's
  * variants (read back from the exported file, whose stored search settings give core the same list).
  * On the harbour clinic the sizes of a sized cable come from its table, the list and the rejected groups
  * equal core's; a longer search (its worker slowed by the test, so that it lasts long enough to stop)
@@ -25,10 +26,14 @@ import type { DraftElement } from '../../web/state/editor.ts';
 const hillside = demoProjects.find((d) => d.id === 'hillside-relay-hut')!.project as unknown as { elements: DraftElement[] } & Record<string, unknown>;
 const inverter = hillside.elements.find((e) => e.id === 'inverter')!;
 
-/** What the test ticks, as core takes it: 1–3 strings at 1200 a string; inverters at 94 % (800) and 96 % (1100). */
+/**
+ * What the test ticks, as core takes it: 1–3 strings at 1200 a string; inverters at 94 % (800, its
+ * typical idle draw: 1 % of 3 kW = 30 W, web/components/search/inverter-presets.ts) and 96 % (1100, the
+ * idle draw typed as 20 W).
+ */
 const settings: OptionSearch = {
   strings: { bank: 'bank', counts: [1, 2, 3], pricePerString: 1200 },
-  inverters: [{ element: 'inverter', alternatives: [{ ...inverterPreset(inverter, 0.94), price: 800 }, { ...inverterPreset(inverter, 0.96), price: 1100 }] as unknown as Element[] }],
+  inverters: [{ element: 'inverter', alternatives: [{ ...inverterPreset(inverter, 0.94), price: 800 }, { ...inverterPreset(inverter, 0.96, 20), price: 1100 }] as unknown as Element[] }],
 };
 
 function coreList(project: unknown, s: OptionSearch): string[] {
@@ -39,11 +44,21 @@ function coreList(project: unknown, s: OptionSearch): string[] {
   return out.search.options.map((o) => o.name);
 }
 
+/** Core's rejected options as the page lists them: name, reasons, the checks not made. */
+function coreRejected(project: unknown, s: OptionSearch): string[] {
+  const solved = solveProject(project);
+  if (!solved.ok) throw new Error(JSON.stringify(solved.problems));
+  const out = searchOptions(solved, s);
+  if (!out.ok) throw new Error(JSON.stringify(out.problems));
+  return out.search.rejected.map((o) => `${o.name}: ${o.reasons.map((r) => r.text).join('; ')}${o.skipped.length ? `not checked after that: ${o.skipped.join(', ')}` : ''}`);
+}
+
 describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
   let app: ServedApp | undefined;
   let browser: Browser | undefined;
   let baseUrl = '';
   const expected = coreList(hillside, settings);
+  const expectedRejected = coreRejected(hillside, settings);
 
   beforeAll(async () => {
     app = await serveBuiltApp('joulepath-search-build-');
@@ -103,6 +118,10 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
         await type('search-inverter-price-inverter-94', '800');
         await tick('search-inverter-inverter-96');
         await type('search-inverter-price-inverter-96', '1100');
+        // The presets' idle draw: 1 % of the 3 kW rating (30 W) as a typical value, changed on one of them.
+        expect(await page.getByTestId('search-inverter-idle-inverter-94').inputValue()).toBe('30');
+        await type('search-inverter-idle-inverter-96', '20');
+        expect(await page.getByTestId('search-inverter-own-inverter').textContent()).toBe('Always tried: 3 kW inverter as it is, with its efficiency curve and an idle draw of 25 W.');
         // 3 strings × (the inverter as it is and two presets) = 9 options.
         const run = page.getByTestId('search-run');
         await expect.poll(() => run.textContent()).toBe('Find the option (9 options)');
@@ -114,6 +133,14 @@ describe.skipIf(skipWithout('chromium'))('Find the option in Chromium', () => {
         const names = await page.getByTestId('search-option').locator('.search-option-name').allTextContents();
         expect(names).toEqual(expected);
         expect(await page.getByTestId('search-summary').textContent()).toMatch(/^9 of 9 options tried/);
+        // Every rejected option with its reasons, behind its disclosure: core's, one by one.
+        const every = page.getByTestId('search-rejected-all');
+        const everySummary = every.locator('summary');
+        await everySummary.scrollIntoViewIfNeeded();
+        if (touch) await everySummary.tap();
+        else await everySummary.click();
+        // (The list is built when the disclosure opens: its toggle event comes after the click.)
+        await expect.poll(() => page.getByTestId('search-rejected-option').allTextContents()).toEqual(expectedRejected);
         // Keep the first option as a variant: the button says so, and the project stores it.
         const keep = page.getByTestId('search-keep').first();
         if (touch) await keep.tap();

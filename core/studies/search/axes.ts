@@ -6,9 +6,12 @@
  *
  * Another axis is one entry of SEARCH_AXES. The system voltage (`voltageChoices`) is the first axis
  * but not an entry there: its choices change several elements (the bank re-strung and the voltages
- * that follow the DC system, `systemVoltageVariant(project, volts)`, core/variants/system-voltage.ts)
- * and the strings axis sets the same bank field, so the search takes it as an outer loop: for each
- * voltage, the chain at that voltage, and the other axes' dimensions worked out from it.
+ * that follow the DC system, `systemVoltageVariant(project, volts, { resizeCables: false })`,
+ * core/variants/system-voltage.ts) and the strings axis sets the same bank field, so the search takes it
+ * as an outer loop: for each voltage, the chain at that voltage, and the other axes' dimensions worked out
+ * from it. A cable of a fixed size keeps it at every voltage (the quick variant sizes it again): a larger
+ * cable is a candidate of the sizes axis with its price, not free, and the drop and ampacity checks judge
+ * the one given.
  */
 import type { BatterySource, CableStage, Element } from '../../model/project.ts';
 import type { Problem } from '../../model/errors.ts';
@@ -249,7 +252,7 @@ export function voltageChoices(project: ValidProject, search: OptionSearch): { c
       choices.push({ volts: v, choice: { axis: 'voltage', elementId: bank.id, words: `${words} (as it is)`, short: words, price: bank.price }, project, seriesRatio: 1 });
       continue;
     }
-    const out = systemVoltageVariant(project, v);
+    const out = systemVoltageVariant(project, v, { resizeCables: false });
     if (!out.ok) {
       problems.push(bad(field, v, `${v} V: ${out.problems.map((p) => p.message).join('; ')}`));
       continue;

@@ -4,9 +4,14 @@
  *   1. the solve itself (a variant the engine refuses fails with its problems);
  *   2. from the solved result, at no further cost: the losses against their limit, each cable's drop
  *      by the method's check against its limit (ConductorResult.drop), each path's drop against the
- *      project's limits (PathDrop), each sized cable's ampacity against its design current;
+ *      project's limits (PathDrop: a path of one cable with a conductor check is that check; a cable
+ *      given by its resistance has none, so its path and its per-link drop are checked here), each
+ *      sized cable's ampacity against its design current;
  *   3. the motor starts (the starting study, core/studies/surge/): every verdict must be "starts";
- *   4. the runtime (the battery discharge through the chain, core/studies/backup/): at least the target.
+ *   4. the runtime target: the installed bank at least the bank the option's own backup study sizes for
+ *      the target runtime (runBackupStudy, core/studies/backup/study.ts: its design margin, aging
+ *      factor and temperature, as the project's sizing), and the bank as new lasting to the target
+ *      (the discharge through the chain); the runtime as new is kept as information.
  * Every check is a requirement on its own, so once one fails the option is out whatever the later
  * ones say: they are skipped (sound), unless every reason is asked for.
  * Purchase cost: Σ price of the elements the search changes (the others are the same in every option,
@@ -21,7 +26,11 @@ import { formatProblem } from '../../model/errors.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { solveProjectVariant } from '../../solve/project-variant.ts';
 import { outageSolve } from '../../solve/modes.ts';
-import { simulateDischarge, type DischargeOutcome } from '../backup/discharge.ts';
+import { simulateDischarge, type DischargeOutcome, type DischargeResult } from '../backup/discharge.ts';
+import { runBackupStudy } from '../backup/study.ts';
+import type { BankSizing } from '../backup/sizing.ts';
+import type { BatterySource } from '../../model/project.ts';
+import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
 import { DEFAULT_HORIZON_H } from '../../solve/load-profile.ts';
 import { studySurges } from '../surge/index.ts';
 import { lossCostPerYear, type CostSettings } from '../economics.ts';
@@ -61,9 +70,17 @@ export interface EvaluatedOption {
   lossW?: number;
   /** Yearly cost of the losses, currency units (with a running price). */
   yearlyLossCost?: number;
-  /** Runtime through the chain, s, when checked; a lower bound when `runtimeIsLowerBound`. */
+  /** Runtime through the chain with the bank as new (information), s, when checked; a lower bound when `runtimeIsLowerBound`. */
   runtimeSeconds?: number;
   runtimeIsLowerBound?: boolean;
+  /** The option's installed bank, Ah (strings × capacity per string), when the runtime target is checked. */
+  installedAh?: number;
+  /**
+   * The bank the option's own backup study sizes for the target runtime (its design margin, aging
+   * factor and temperature; runBackupStudy, core/studies/backup/study.ts), when checked: what it needs
+   * (`requiredAh`) and the bank it gives in whole strings of the option's module or standard ratings.
+   */
+  sizing?: { requiredAh: number; bankAh: number; summary: string; designMargin?: number; agingFactor?: number };
   /** Largest ratio of a cable's checked drop to its limit (1 = at the limit), when a cable has a conductor. */
   worstDropRatio?: number;
 }
@@ -121,6 +138,39 @@ export function runtimeOf(solved: Solved, upTo?: number): DischargeOutcome {
   const horizonHours = Math.min(study.horizonHours ?? DEFAULT_HORIZON_H, (upTo + step) / 3600);
   const project = { ...outage.solved.project, backup: { ...study, horizonHours } };
   return simulateDischarge({ ...outage.solved, project });
+}
+
+/** The bank of a solved chain's backup study (its id, the one the discharge runs), or undefined. */
+function studyBank(solved: Solved, id: string): BatterySource | undefined {
+  return solved.project.elements.find((e): e is BatterySource => e.id === id && e.kind === 'battery');
+}
+
+/** A sizing's own factor, read from its worksheet steps ("Design margin", "Aging factor"). */
+const stepValue = (s: BankSizing, label: string) => s.steps.find((x) => x.label === label)?.value;
+
+/**
+ * The runtime as new and the bank the option's own backup study sizes for `upTo` seconds: the study
+ * itself (runBackupStudy, core/studies/backup/study.ts: the sizing over the terminal power of the
+ * simulated run, with the project's design margin, aging factor, temperature, design and module or
+ * standard ratings), run with the target runtime `upTo` and its discharge cut one time step past it
+ * (the sizing reads the run up to the target only, so the cut changes no figure; see runtimeOf). The
+ * sized run and the recharge are left out, as the runtime spread leaves them out.
+ */
+export function bankForTarget(
+  solved: Solved,
+  upTo: number,
+): { ok: true; discharge: DischargeResult; sizing: BankSizing; installedAh: number } | { ok: false; problems: Problem[] } {
+  const study = solved.project.backup;
+  if (!study) return { ok: false, problems: [{ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'backup', message: 'the chain has no battery backup study' }] };
+  const step = study.timeStepSeconds ?? 60;
+  const horizonHours = Math.min(study.horizonHours ?? DEFAULT_HORIZON_H, (upTo + step) / 3600);
+  const cut: Solved = { ...solved, project: { ...solved.project, backup: { ...study, horizonHours, targetRuntimeHours: upTo / 3600 } } };
+  const o = runBackupStudy(cut, { sizedRun: false, recharge: false, plotSeries: false, sizingPeriods: false });
+  if (!o.ok) return o;
+  const { discharge, sizing } = o.study;
+  const bank = studyBank(solved, discharge.batteryId)?.bank;
+  if (!sizing || !bank) return { ok: false, problems: [{ code: 'invalid-value', elementId: discharge.batteryId, field: 'bank', message: 'the backup study gives no bank for the target' }] };
+  return { ok: true, discharge, sizing, installedAh: (bank.strings ?? 1) * bank.capacityAh };
 }
 
 /** Evaluate one combination against the target (see the header). */
@@ -185,12 +235,30 @@ export function evaluateOption(
     }
   }
   if (worst !== undefined) option.worstDropRatio = worst;
-  // A path's drop over several links (one link is that cable's own drop, above).
+  // Each path's drop against the project's limits (core/conductors/path-drop.ts: Σ of the links' % drops,
+  // a link given by its resistance with its solved drop 100·(V_in − V_out)/V_in). A path of one link
+  // whose cable has a conductor check is that cable's own drop, checked above against its own limit
+  // (which may differ from the project's); a cable given by its resistance has no conductor check, so
+  // its path is checked here, and so is a link of it over the per-link limit.
   const solvedNames = new Map(result.elements.map((e) => [e.id, e.name]));
+  const conductorChecked = new Set(result.elements.filter((e) => e.conductor).map((e) => e.id));
+  const linkOver = new Set<string>();
   for (const path of result.voltageDrop ?? []) {
-    if (path.links.length < 2 || !path.exceedsLimit || path.totalPercent <= path.totalLimitPercent) continue;
+    if (!path.exceedsLimit) continue;
+    const unchecked = path.links.filter((l) => !conductorChecked.has(l.id));
+    if (path.perLinkLimitPercent !== undefined) {
+      for (const l of unchecked) {
+        if (!l.exceedsLimit || linkOver.has(l.id)) continue;
+        linkOver.add(l.id);
+        const cable = solvedNames.get(l.id) ?? l.id;
+        reasons.push({ group: `Drop on ${cable} above its limit`, text: `drop on ${cable} ${pct(l.dropPercent)} above ${pct(path.perLinkLimitPercent)} (given by its resistance)` });
+      }
+    }
+    if (path.links.length === 1 && unchecked.length === 0) continue;
+    if (path.totalPercent <= path.totalLimitPercent * (1 + 1e-12)) continue;
     const load = solvedNames.get(path.loadId) ?? path.loadId;
-    reasons.push({ group: `Drop to ${load} above its limit`, text: `drop to ${load} ${pct(path.totalPercent)} above ${pct(path.totalLimitPercent)}` });
+    const via = path.links.map((l) => solvedNames.get(l.id) ?? l.id).join(', ');
+    reasons.push({ group: `Drop to ${load} above its limit`, text: `drop to ${load} ${pct(path.totalPercent)} above ${pct(path.totalLimitPercent)} (through ${via})` });
   }
   const stop = (left: string[]) => {
     if (reasons.length && !allReasons) {
@@ -213,17 +281,46 @@ export function evaluateOption(
       }
     if (stop(target.runtimeSeconds !== undefined ? ['runtime'] : [])) return option;
   }
-  // 4. Runtime.
+  // 4. Runtime: the installed bank at least the bank the option's own backup study sizes for the
+  // target (its design margin and aging included, as the project's sizing), and the bank as new lasting
+  // to the target (a bank that runs out before it new cannot meet it, whatever the sizing says).
   if (target.runtimeSeconds !== undefined) {
-    const d = runtimeOf(solved, target.runtimeSeconds);
+    const T = target.runtimeSeconds;
+    const b = bankForTarget(solved, T);
+    // A study refused (the sizing or the run to the target): the runtime as new on its own, and the refusal.
+    const d: DischargeOutcome = b.ok ? { ok: true, result: b.discharge } : runtimeOf(solved, T);
     if (!d.ok) reasons.push({ group: 'The runtime cannot be worked out', text: `runtime: ${d.problems[0] ? formatProblem(d.problems[0], solved.project) : 'refused'}` });
     else {
       option.runtimeSeconds = d.result.runtimeSeconds;
       option.runtimeIsLowerBound = d.result.runtimeIsLowerBound;
-      if (d.result.runtimeSeconds < target.runtimeSeconds) {
+      if (d.result.runtimeSeconds < T) {
         // A bank not exhausted within the study's time span has at least that runtime: short of the target, it is not known to meet it.
-        if (d.result.runtimeIsLowerBound) reasons.push({ group: 'Runtime not known up to the target', text: `runtime at least ${durationWords(d.result.runtimeSeconds)}, the study's time span ends before ${durationWords(target.runtimeSeconds)}` });
-        else reasons.push({ group: 'Runtime below the target', text: `runtime ${durationWords(d.result.runtimeSeconds)} below ${durationWords(target.runtimeSeconds)}` });
+        if (d.result.runtimeIsLowerBound) reasons.push({ group: 'Runtime not known up to the target', text: `runtime as new at least ${durationWords(d.result.runtimeSeconds)}, the study's time span ends before ${durationWords(T)}` });
+        else reasons.push({ group: 'Runtime below the target', text: `runtime as new ${durationWords(d.result.runtimeSeconds)} below ${durationWords(T)}` });
+      }
+      if (!b.ok) reasons.push({ group: 'The bank for the target cannot be sized', text: `bank for ${durationWords(T)}: ${b.problems[0] ? formatProblem(b.problems[0], solved.project) : 'refused'}` });
+    }
+    if (b.ok) {
+      const { sizing, installedAh } = b;
+      const margin = stepValue(sizing, 'Design margin');
+      const aging = stepValue(sizing, 'Aging factor');
+      option.installedAh = installedAh;
+      option.sizing = {
+        requiredAh: sizing.requiredCapacity,
+        bankAh: sizing.bankCapacity,
+        summary: sizing.summary,
+        ...(margin !== undefined ? { designMargin: margin } : {}),
+        ...(aging !== undefined ? { agingFactor: aging } : {}),
+      };
+      // Whole strings of the option's own module: installed ≥ required exactly when its strings are at
+      // least the sized ones (the sized bank, bankAh); with standard ratings, the capacity it needs.
+      if (installedAh < sizing.requiredCapacity * (1 - 1e-12)) {
+        const needs = solved.project.backup?.standardCapacitiesAh ? sizing.requiredCapacity : sizing.bankCapacity;
+        const factors = [margin !== undefined ? `design margin ${sigText(margin, 3)}` : '', aging !== undefined ? `aging ${sigText(aging, 3)}` : ''].filter(Boolean).join(' and ');
+        reasons.push({
+          group: 'Bank smaller than the sizing for the target',
+          text: `installed ${sigText(installedAh, 4)} Ah below the ${sigText(needs, 4)} Ah the sizing needs for ${durationWords(T)}${factors ? ` with the ${factors}` : ''} (${sizing.summary.split(',')[0]})`,
+        });
       }
     }
   }

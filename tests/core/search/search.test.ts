@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { solveProject } from '../../../core/index.ts';
+import { runBackupStudy, solveProject } from '../../../core/index.ts';
 import { solveProjectVariant } from '../../../core/solve/project-variant.ts';
 import { dominates, paretoFront, searchOptions, type Costed } from '../../../core/studies/search/index.ts';
 import { searchBase, searchSettings } from './fixture.ts';
@@ -26,29 +26,72 @@ describe('the option search on a hand-built chain', () => {
   });
 
   it('finds the known cheapest option: 2 strings, inverter A, 10 mm²', () => {
-    // Why, by hand: one string holds 16 × 3.2 V × 100 Ah = 5.12 kWh (LiFePO4 nominal 3.2 V a cell,
-    // common practice (no source)); the 1.2 kW load through a 90 % inverter draws 1.33 kW, so one string
-    // lasts under 5.12 / 1.33 = 3.84 h < 4 h even before the cable and the bank's own losses; two strings
-    // last about twice that. 4 mm² over a 10 m run (20 m loop) at about 26 A drops 26 × 0.02 km × 4.61 Ω/km
-    // × 1.25 ≈ 3.0 V, about 5.9 % of 51.2 V (IEC 60228 class 2 copper 4 mm² 4.61 Ω/km; IEC 60364-5-52
-    // Annex G ρ₁ = 1.25·ρ₂₀), above the 5 % limit for other uses (IEC 60364-5-52 Table G.52.1);
-    // 10 mm² (1.83 Ω/km) drops about 2.3 %. So a met option needs ≥ 2 strings (2000) and ≥ 10 mm² (110);
-    // the cheaper inverter A (600) then gives 2710, the cheapest of all.
+    // Why, by hand. The runtime target is met when the installed bank is at least the bank the
+    // project's backup study sizes for 4 h (its energy method for lithium, core/studies/backup/
+    // sizing-by-energy.ts), and the bank as new lasts 4 h.
+    // Terminal power: the 1.2 kW load through a 90 % inverter draws 1200 / 0.9 = 1333 W, the bank cable
+    // (10 mm², a 20 m loop, 1.83 Ω/km × 1.25 ≈ 0.046 Ω: IEC 60228 class 2, IEC 60364-5-52 Annex G
+    // ρ₁ = 1.25·ρ₂₀) loses about 26² × 0.046 ≈ 31 W at 26 A: about 1.36 kW, 5.46 kWh over 4 h.
+    // Sizing: 5.46 kWh ÷ (0.9 usable DoD × 1.00 capacity factor at 25 °C, the LiFePO4 preset's typical
+    // values) × 1.10 design margin × 1.25 aging (the sizing's defaults: IEEE 485 worksheet line 13, and
+    // end of life at 80 %) = 8.34 kWh ÷ 51.2 V (16 × 3.2 V) ≈ 163 Ah → ⌈163 / 100⌉ = 2 strings of 100 Ah.
+    // With inverter B (95 %): 1263 W + about 28 W, 5.16 kWh → 7.9 kWh → 154 Ah: 2 strings as well.
+    // So one string (100 Ah) is short by the sizing whatever the inverter and cable, and as new it lasts
+    // under 5.12 kWh × 0.9 / 1.36 kW ≈ 3.4 h < 4 h too; two strings meet both.
+    // Drop: 4 mm² over the 20 m loop at about 26 A drops 26 × 0.02 km × 4.61 Ω/km × 1.25 ≈ 3.0 V, about
+    // 5.9 % of 51.2 V (IEC 60228 class 2 copper 4 mm² 4.61 Ω/km), above the 5 % limit for other uses
+    // (IEC 60364-5-52 Table G.52.1); 10 mm² (1.83 Ω/km) drops about 2.3 %. So a met option needs
+    // ≥ 2 strings (2000) and ≥ 10 mm² (110); the cheaper inverter A (600) then gives 2710, the cheapest.
     const first = r.options[0]!;
     expect(first.name).toBe('2 strings · Inverter A · 10 mm²');
     expect(first.cost).toBe(2710); // 2 × 1000 + 600 + 110, by hand
+    expect(first.installedAh).toBe(200); // 2 × 100 Ah
+    expect(first.sizing!.bankAh).toBe(200); // 2 strings of 100 Ah, by hand above
+    expect(first.sizing!.requiredAh).toBeGreaterThan(163 * 0.97); // ≈ 163 Ah by hand (the cable loss estimated): within 3 %
+    expect(first.sizing!.requiredAh).toBeLessThan(163 * 1.03);
     expect(first.runtimeSeconds!).toBeGreaterThan(4 * 3600);
     // Lowest losses last: three strings (lowest bank resistance), inverter B (95 %), 25 mm².
     expect(r.options.at(-1)!.name).toBe('3 strings · Inverter B · 25 mm²');
   });
 
+  it('sizes the bank as the project’s own backup study does (the same call, the same factors)', () => {
+    // The option of the chain as it is (1 string · Inverter A · 10 mm²): its sizing is the project's
+    // own runBackupStudy sizing (core/studies/backup/study.ts), to the last digit.
+    const own = runBackupStudy(base);
+    if (!own.ok) throw new Error(JSON.stringify(own.problems));
+    const same = r.rejected.find((o) => o.name === '1 string · Inverter A · 10 mm²')!;
+    expect(same.sizing!.requiredAh).toBe(own.study.sizing!.requiredCapacity);
+    expect(same.sizing!.bankAh).toBe(own.study.sizing!.bankCapacity);
+    expect(same.runtimeSeconds).toBe(own.study.discharge.runtimeSeconds); // the runtime as new, same run
+  });
+
+  it('a 3 h target: one string lasts it as new, but the sizing needs two (design margin and aging)', () => {
+    // By hand (as above, over 3 h): inverter A, 10 mm²: 1.36 kW × 3 h = 4.09 kWh ÷ 0.9 × 1.10 × 1.25
+    // = 6.25 kWh ÷ 51.2 V ≈ 122 Ah > 100 Ah: 2 strings; inverter B, 25 mm² (≈ 1.27 kW): 3.82 kWh →
+    // 5.84 kWh → 114 Ah: 2 strings. As new, one string lasts about 3.4 h (above) ≥ 3 h: checked as new
+    // only, "1 string · Inverter A · 10 mm²" (1710) would be the cheapest; by the sizing it is
+    // "2 strings · Inverter A · 10 mm²" (2710).
+    const three = searchOptions(base, { ...searchSettings, targetRuntimeHours: 3 }, { allReasons: true });
+    if (!three.ok) throw new Error(JSON.stringify(three.problems));
+    expect(three.search.options[0]).toMatchObject({ name: '2 strings · Inverter A · 10 mm²', cost: 2710 });
+    const one = three.search.rejected.find((o) => o.name === '1 string · Inverter A · 10 mm²')!;
+    expect(one.runtimeSeconds!).toBeGreaterThan(3 * 3600); // lasts 3 h as new
+    expect(one.reasons.map((x) => x.text)).toEqual(['installed 100 Ah below the 200 Ah the sizing needs for 3 h with the design margin 1.1 and aging 1.25 (2 strings × 100 Ah = 200 Ah)']);
+    expect(three.search.target[0]).toBe('runtime at least 3 h: the installed bank at least the bank the backup study sizes for 3 h (design margin 1.1, aging 1.25), and the bank as new lasting 3 h');
+    for (const o of three.search.options) expect(o.installedAh!).toBeGreaterThanOrEqual(o.sizing!.requiredAh);
+  });
+
   it('says why each rejected option fails, in words, grouped and counted', () => {
     const one = r.rejected.find((o) => o.name === '1 string · Inverter A · 10 mm²')!;
-    expect(one.reasons.map((x) => x.text)).toEqual([expect.stringMatching(/^runtime 3 h \d+ min below 4 h$/)]);
+    expect(one.reasons.map((x) => x.text)).toEqual([
+      expect.stringMatching(/^runtime as new 3 h \d+ min below 4 h$/),
+      'installed 100 Ah below the 200 Ah the sizing needs for 4 h with the design margin 1.1 and aging 1.25 (2 strings × 100 Ah = 200 Ah)', // by hand above
+    ]);
     const thin = r.rejected.find((o) => o.name === '2 strings · Inverter A · 4 mm²')!;
     expect(thin.reasons[0]!.text).toMatch(/^drop on Bank cable 5\.\d+ % above 5 %$/); // IEC 60364-5-52 Table G.52.1: 5 % other uses
     const groups = Object.fromEntries(r.rejectedGroups.map((g) => [g.group, g.count]));
     expect(groups['Runtime below the target']).toBe(6); // 1 string × 2 inverters × 3 sizes, by hand
+    expect(groups['Bank smaller than the sizing for the target']).toBe(6); // the same six: 1 string < 2 the sizing needs
     expect(groups['Drop on Bank cable above its limit']).toBe(6); // 4 mm² × 3 strings × 2 inverters, by hand
   });
 

@@ -1,18 +1,37 @@
 /**
  * The candidates of "Find the option" (SearchPanel.tsx): the boxes the user ticks — the system voltage
  * (12 / 24 / 48 V, when the chain has a DC system bank with its cells), strings in the bank (1–4), the
- * inverters (the editor's template at typical efficiencies) and each sized cable's sizes (the cable's own
+ * inverters (the editor's template at typical efficiencies with a typical idle draw, each editable; the
+ * inverter as it is, with its own loss model, always tried) and each sized cable's sizes (the cable's own
  * table) — with a price for each, written into the panel's `optionSearch` settings.
  */
 import { type CableStage, type Element, type OptionSearch, type Solved } from '../../../core/page.ts';
 import { listedSizes, SYSTEM_VOLTAGES, systemBank } from '../../../core/studies/index.ts';
 import type { DraftElement } from '../../state/editor.ts';
-import { inverterPreset, PRESET_EFFICIENCIES } from './inverter-presets.ts';
+import { inverterPreset, inverterRating, presetIdleLoss, PRESET_EFFICIENCIES } from './inverter-presets.ts';
+import { formatPercent, formatSignificant, formatWithPrefix } from '../../format/number.ts';
 import { NumberInput, type Locale } from './SearchNumberInput.tsx';
 
 const STRINGS = [1, 2, 3, 4] as const;
 
 const nameOf = (e: { id: string; name?: string }) => e.name ?? e.id;
+
+/** The inverter's own loss model in words ("its efficiency curve and an idle draw of 25 W"). */
+function ownLossWords(inv: Element, locale: Locale): string {
+  const loss = (inv as { loss?: { model: string; efficiency?: number; idleLoss?: number; p0?: number } }).loss;
+  if (!loss) return 'its own losses';
+  const idle = loss.idleLoss !== undefined ? ` and an idle draw of ${formatSignificant(loss.idleLoss, 3, locale)} W` : ' and no idle draw';
+  switch (loss.model) {
+    case 'constant':
+      return `its constant efficiency of ${formatPercent(loss.efficiency ?? 1, locale, 3)}${idle}`;
+    case 'curve':
+      return `its efficiency curve${idle}`;
+    case 'polynomial':
+      return `its loss polynomial (no-load loss ${formatSignificant(loss.p0 ?? 0, 3, locale)} W)`;
+    default:
+      return 'its efficiency points (a fitted loss polynomial)';
+  }
+}
 
 export function Candidates({ solved, settings, update, locale }: { solved: Solved; settings: OptionSearch; update: (s: OptionSearch) => void; locale: Locale }) {
   const project = solved.project;
@@ -88,20 +107,30 @@ export function Candidates({ solved, settings, update, locale }: { solved: Solve
       )}
       {inverters.map((inv) => {
         const s = invSettings(inv.id);
+        const draft = inv as unknown as DraftElement;
+        const rated = inverterRating(draft);
+        const typicalIdle = presetIdleLoss(draft);
+        const setAlt = (id: string, change: (a: Element) => Element) => setInv(inv.id, (i) => ({ ...i, alternatives: i.alternatives.map((a) => (a.id === id ? change(a) : a)) }));
         return (
           <fieldset class="search-axis" key={inv.id}>
             <legend>Inverters in place of {nameOf(inv)}</legend>
-            <p class="note">Typical values: use the maker’s figure for each efficiency and its price.</p>
+            <p class="note" data-testid={`search-inverter-own-${inv.id}`}>Always tried: {nameOf(inv)} as it is, with {ownLossWords(inv, locale)}.</p>
+            <p class="note">
+              Each inverter below has a constant efficiency and an idle draw of {typicalIdle !== undefined ? `${formatSignificant(typicalIdle, 3, locale)} W` : 'none'}
+              {rated !== undefined ? ` (about 1 % of the ${formatWithPrefix(rated, 'W', 3, locale)} rating)` : ''}: typical values: use the maker’s figure for each efficiency, idle draw and price.
+            </p>
             {PRESET_EFFICIENCIES.map((eff) => {
-              const preset = inverterPreset(inv as unknown as DraftElement, eff);
+              const preset = inverterPreset(draft, eff);
               const chosen = s?.alternatives.find((a) => a.id === preset.id);
+              const pct = Math.round(eff * 100);
+              const chosenIdle = chosen ? ((chosen as unknown as { loss?: { idleLoss?: number } }).loss?.idleLoss) : undefined;
               return (
                 <div class="search-choice" key={eff}>
                   <label class="search-tick">
                     <input
                       type="checkbox"
                       checked={chosen !== undefined}
-                      data-testid={`search-inverter-${inv.id}-${Math.round(eff * 100)}`}
+                      data-testid={`search-inverter-${inv.id}-${pct}`}
                       onChange={(e) => {
                         const on = (e.currentTarget as HTMLInputElement).checked;
                         setInv(inv.id, (i) => ({ ...i, alternatives: on ? [...i.alternatives, preset as unknown as Element] : i.alternatives.filter((a) => a.id !== preset.id) }));
@@ -110,24 +139,37 @@ export function Candidates({ solved, settings, update, locale }: { solved: Solve
                     {preset.name}
                   </label>
                   {chosen && (
-                    <NumberInput
-                      id={`search-price-${preset.id}`}
-                      label={`Price of ${preset.name}`}
-                      unit=""
-                      value={chosen.price}
-                      locale={locale}
-                      testId={`search-inverter-price-${inv.id}-${Math.round(eff * 100)}`}
-                      onValue={(v) =>
-                        setInv(inv.id, (i) => ({
-                          ...i,
-                          alternatives: i.alternatives.map((a) => {
-                            if (a.id !== preset.id) return a;
+                    <>
+                      <NumberInput
+                        id={`search-price-${preset.id}`}
+                        label={`Price of ${preset.name}`}
+                        unit=""
+                        value={chosen.price}
+                        locale={locale}
+                        testId={`search-inverter-price-${inv.id}-${pct}`}
+                        onValue={(v) =>
+                          setAlt(preset.id, (a) => {
                             const { price: _p, ...rest } = a;
                             return (v !== undefined ? { ...rest, price: v } : rest) as Element;
-                          }),
-                        }))
-                      }
-                    />
+                          })
+                        }
+                      />
+                      <NumberInput
+                        id={`search-idle-${preset.id}`}
+                        label={`Idle draw of ${preset.name}`}
+                        unit="W"
+                        value={chosenIdle}
+                        locale={locale}
+                        help="Drawn with no output (no-load loss). Typical value: use the maker’s figure. Empty: none."
+                        testId={`search-inverter-idle-${inv.id}-${pct}`}
+                        onValue={(v) =>
+                          setAlt(preset.id, (a) => {
+                            const { idleLoss: _i, ...loss } = (a as unknown as { loss: Record<string, unknown> }).loss;
+                            return { ...a, loss: v !== undefined ? { ...loss, idleLoss: v } : loss } as unknown as Element;
+                          })
+                        }
+                      />
+                    </>
                   )}
                 </div>
               );

@@ -1,13 +1,14 @@
 /**
  * The results of "Find the option" (SearchPanel.tsx): how many options were tried and met the target,
  * the short list (none cheaper with lower losses) with "Keep as a variant" per option (the project's
- * `variants`, through setField), and the rejected grouped by their reason. Every figure is core's
+ * `variants`, through setField), the rejected grouped by their reason, and every rejected option with
+ * its reasons behind a disclosure (built when it is opened). Every figure is core's
  * searchOptions; this file only formats.
  */
 import { useState } from 'preact/hooks';
 import { PROJECT_LEVEL, type ProjectVariant } from '../../../core/page.ts';
 import type { EvaluatedOption, SearchResult } from '../../../core/studies/index.ts';
-import { formatDuration, formatPower } from '../../format/number.ts';
+import { formatDuration, formatPower, formatSignificant } from '../../format/number.ts';
 import { formatMoney } from '../../format/panels.ts';
 import { draft, setField } from '../../state/editor.ts';
 import type { Locale } from './SearchNumberInput.tsx';
@@ -32,6 +33,14 @@ function OptionRow({ o, locale, keep, kept }: { o: EvaluatedOption; locale: Loca
       </td>
       <td>{o.lossW !== undefined ? formatPower(o.lossW, locale) : '—'}</td>
       <td>{o.yearlyLossCost !== undefined ? formatMoney(o.yearlyLossCost, locale) : '—'}</td>
+      <td>
+        {o.installedAh !== undefined && o.sizing ? (
+          <>
+            {formatSignificant(o.installedAh, 4, locale)} Ah
+            <span class="search-option-words">the sizing for the target: {formatSignificant(o.sizing.bankAh, 4, locale)} Ah (needs {formatSignificant(o.sizing.requiredAh, 3, locale)} Ah)</span>
+          </>
+        ) : '—'}
+      </td>
       <td>{o.runtimeSeconds !== undefined ? `${o.runtimeIsLowerBound ? 'at least ' : ''}${formatDuration(o.runtimeSeconds, locale)}` : '—'}</td>
     </tr>
   );
@@ -39,6 +48,8 @@ function OptionRow({ o, locale, keep, kept }: { o: EvaluatedOption; locale: Loca
 
 export function Results({ search, locale, variants }: { search: SearchResult; locale: Locale; variants: readonly ProjectVariant[] }) {
   const [message, setMessage] = useState('');
+  // The list of every rejected option is built when its disclosure is opened (up to 2000 of them).
+  const [everyOpen, setEveryOpen] = useState(false);
   const keep = (o: EvaluatedOption) => {
     const current = (draft.value?.['variants'] as ProjectVariant[] | undefined) ?? [];
     if (current.some((v) => v.name === o.variant.name)) return setMessage(`“${o.name}” is kept already.`);
@@ -63,7 +74,8 @@ export function Results({ search, locale, variants }: { search: SearchResult; lo
                 <th scope="col">Purchase cost</th>
                 <th scope="col">Losses</th>
                 <th scope="col">Losses a year</th>
-                <th scope="col">Runtime</th>
+                <th scope="col">Bank</th>
+                <th scope="col">Runtime as new</th>
               </tr>
             </thead>
             <tbody>
@@ -90,6 +102,19 @@ export function Results({ search, locale, variants }: { search: SearchResult; lo
               </li>
             ))}
           </ul>
+          <details class="search-rejected-all" data-testid="search-rejected-all" onToggle={(e) => setEveryOpen((e.currentTarget as HTMLDetailsElement).open)}>
+            <summary>Every rejected option, with its reasons ({search.rejected.length})</summary>
+            {everyOpen && (
+              <ul class="search-rejected">
+                {search.rejected.map((o, i) => (
+                  <li key={i} data-testid="search-rejected-option">
+                    <strong>{o.name}</strong>: {o.reasons.map((r) => r.text).join('; ')}
+                    {o.skipped.length > 0 && <span class="search-option-words">not checked after that: {o.skipped.join(', ')}</span>}
+                  </li>
+                ))}
+              </ul>
+            )}
+          </details>
         </div>
       )}
       {search.notes.map((n) => <p class="note" key={n}>{n}</p>)}
