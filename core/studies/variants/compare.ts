@@ -7,7 +7,8 @@
  * - the solve's answers (core/solve/answers.ts): source power, loads, losses split idle / conversion
  *   / cables / source (their sum is the solve's total loss), efficiency, each sized cable's size,
  *   parallel sets, protective device and drop, warnings by element name; each cable's current is its
- *   input port's current in the result;
+ *   input port's current in the result; each path's total drop and whether it is within its limits
+ *   (the solve's `voltageDrop`, cables given by resistance included);
  * - the yearly energy of the losses (core/studies/economics.ts: E = P_loss × hours, the project's
  *   hours or all year, 8760 h, as the single yearly cost takes them), given without a price too; with a
  *   price their cost E × price (the project's `running` price, the day/night mean of core/model/tariff.ts);
@@ -339,6 +340,13 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
       put(f, `cable.${c.elementId}.size`, { group: 'cables', label: `${c.name}: conductor size`, quantity: 'text' }, c.parallelSets > 1 ? `${c.parallelSets} × ${c.size}` : c.size);
       put(f, `cable.${c.elementId}.device`, { group: 'cables', label: `${c.name}: protective device`, quantity: 'current' }, c.deviceRating ?? null);
       put(f, `cable.${c.elementId}.drop`, { group: 'cables', label: `${c.name}: voltage drop`, quantity: 'percent' }, c.dropPercent);
+    }
+    // Each path's total drop from its source or regulating converter (the solve's path drops), given by resistance or sized.
+    const names = new Map(sv.result.elements.map((e) => [e.id, e.name]));
+    for (const d of sv.result.voltageDrop ?? []) {
+      const to = names.get(d.loadId) ?? d.loadId;
+      put(f, `drop.${d.loadId}`, { group: 'cables', label: `Drop to ${to}: path total`, quantity: 'percent' }, d.totalPercent);
+      put(f, `drop.${d.loadId}.within`, { group: 'cables', label: `Drop to ${to}: within its limit`, quantity: 'text' }, d.exceedsLimit ? NO : YES);
     }
     for (const st of studies.starts) {
       put(f, `start.${st.elementId}`, { group: 'starts', label: `${st.name}: start`, quantity: 'text' }, START_WORDS[st.verdict]);

@@ -110,6 +110,10 @@ function singleFigures(s: Solved, planLife: LifetimeCost | undefined, isPlan: bo
     f.set(`cable.${c.elementId}.device`, c.deviceRating ?? null);
     f.set(`cable.${c.elementId}.drop`, c.dropPercent);
   }
+  for (const d of s.result.voltageDrop ?? []) {
+    f.set(`drop.${d.loadId}`, d.totalPercent);
+    f.set(`drop.${d.loadId}.within`, d.exceedsLimit ? 'no' : 'yes');
+  }
   for (const st of studies.starts) f.set(`start.${st.elementId}`, START_WORDS[st.verdict]);
   for (const w of quick.warnings) {
     const key = `warning.${w.elementId}.${w.code}`;
