@@ -51,6 +51,9 @@ describe.skipIf(skipWithout('chromium'))('compare options in Chromium', () => {
       expect(cells, row.key).toEqual(row.values.map((v) => plain(variantValueText(row, v, 'en-US'))));
     }
     expect(await table.locator('tbody tr').count()).toBe(expected.rows.length);
+    // How the cost rows are worked, under the table (core's hoursPerYear: all year without a price).
+    const methods = page.getByTestId('variants-panel').getByTestId('variants-methods');
+    expect(plain(await methods.textContent())).toMatch(/Energy lost a year: the losses at the solved operating point × 8,?760 h a year \(no energy price given, so no cost\)\./);
   }
 
   for (const [label, viewport, touch] of [
