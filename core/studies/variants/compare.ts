@@ -190,7 +190,7 @@ export function breakEvenValues(be: BreakEven, years: number): { breakEven: numb
   // The variant costs less to buy: the plan is the dearer option, the one that would have to pay back.
   return {
     breakEven: be.breakEvenYear !== null ? `costs less to buy; the plan catches up in year ${be.breakEvenYear}` : `costs less to buy; the plan does not catch up within ${yearWords(years)}`,
-    payback: be.simplePaybackYears === null ? 'costs less to buy, no more to run' : `costs less to buy; the plan's extra purchase pays back in ${sigText(be.simplePaybackYears, 3)} years`,
+    payback: be.simplePaybackYears === null ? 'costs less to buy, no more to run' : `costs less to buy; the plan's extra purchase pays back in ${sigText(be.simplePaybackYears, 3)} year${be.simplePaybackYears === 1 ? '' : 's'}`,
   };
 }
 
