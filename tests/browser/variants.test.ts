@@ -100,6 +100,9 @@ describe.skipIf(skipWithout('chromium'))('compare options in Chromium', () => {
         await page.getByTestId('variant-flows').screenshot({ path: join(artifacts, `variants-${label}-flows.png`) });
         // The printed report carries the options (a compact table of what differs).
         await expect.poll(async () => plain(await page.getByTestId('report-variants').textContent()), { timeout: 30_000 }).toContain('24 V system');
+        // With how its cost rows are worked and the comparison's cautions.
+        expect(plain(await page.getByTestId('report-variants').textContent())).toContain(plain(expected.cautions[0]));
+        expect(await page.getByTestId('report-variants').getByTestId('variants-methods').count()).toBe(1);
         expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
         expect(await seriousAxeViolations(page)).toEqual([]);
 

@@ -346,7 +346,9 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
     for (const d of sv.result.voltageDrop ?? []) {
       const to = names.get(d.loadId) ?? d.loadId;
       put(f, `drop.${d.loadId}`, { group: 'cables', label: `Drop to ${to}: path total`, quantity: 'percent' }, d.totalPercent);
-      put(f, `drop.${d.loadId}.within`, { group: 'cables', label: `Drop to ${to}: within its limit`, quantity: 'text' }, d.exceedsLimit ? NO : YES);
+      const limits = `${d.perLinkLimitPercent !== undefined ? `${sigText(d.perLinkLimitPercent, 3)} % a link, ` : ''}${sigText(d.totalLimitPercent, 3)} % in all`;
+      // Shown only where some column is over its limit (the rows are filtered below): a "yes" on every path would bury the table.
+      put(f, `drop.${d.loadId}.within`, { group: 'cables', label: `Drop to ${to}: within its limit (${limits})`, quantity: 'text' }, d.exceedsLimit ? NO : YES);
     }
     for (const st of studies.starts) {
       put(f, `start.${st.elementId}`, { group: 'starts', label: `${st.name}: start`, quantity: 'text' }, START_WORDS[st.verdict]);
@@ -360,7 +362,7 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
     }
   });
   const GROUPS: RowGroup[] = ['balance', 'losses', 'cost', 'battery', 'cables', 'starts', 'warnings'];
-  const rows: ComparisonRow[] = order.map((key) => {
+  const rows: ComparisonRow[] = order.filter((key) => !(key.startsWith('drop.') && key.endsWith('.within') && figuresOf.every((f) => !f || (f.get(key) ?? YES) === YES))).map((key) => {
     const m = meta.get(key)!;
     const values = figuresOf.map((f) => (f ? (f.get(key) ?? null) : null));
     // Only the columns worked out are compared; the base's empty break-even (it is the reference) is no difference.

@@ -134,6 +134,8 @@ function expectEveryRow(project: Project, variants: ProjectVariant[]) {
     const { figures } = i === 0 ? plan : singleFigures(s, plan.life, false);
     const got = new Map(c.rows.map((r) => [r.key, r.values[i] ?? null]));
     for (const [key, value] of figures) {
+      // A path's "within its limit" row is shown only where some column is over it (compare.ts).
+      if (key.endsWith('.within') && value === 'yes' && !got.has(key)) continue;
       expect(got.has(key), `column ${i} lacks row ${key}`).toBe(true);
       expect(got.get(key), `column ${i}, row ${key}`).toEqual(value);
     }
@@ -149,9 +151,19 @@ describe('every row of the comparison equals the single solve of its variant', (
     const p = demo('hillside-relay-hut');
     // A pass-through limit on an off-grid inverter: the project-level warning solveProjectVariant adds (core/solve/project-warnings.ts).
     const passThrough: ProjectVariant = { name: 'Pass-through limit', set: { inverter: { passThroughLimit: 16 } } };
-    const c = expectEveryRow(p, [...quick(systemVoltageVariant(p, 24)), ...quick(systemVoltageVariant(p, 12)), ...quick(criticalLoadsVariant(p, ['lights'])), passThrough]);
-    expect(c.columns).toHaveLength(5);
+    // 12 V with the bank cable (given by its resistance, 0.59 Ω/km) 60 m long: its path drop is far over the project's limits.
+    const v12 = systemVoltageVariant(p, 12);
+    if (!v12.ok) throw new Error('refused');
+    const longCable: ProjectVariant = { ...v12.variant, name: '12 V, long bank cable', set: { ...v12.variant.set, 'bank-cable': { length: 60 } } };
+    const c = expectEveryRow(p, [...quick(systemVoltageVariant(p, 24)), v12.variant, ...quick(criticalLoadsVariant(p, ['lights'])), passThrough, longCable]);
+    expect(c.columns).toHaveLength(6);
     expect(c.rows.find((r) => r.key === 'warning.inverter.pass-through-unused')!.values[4]).toMatch(/./);
+    // The path drop row of a cable given by resistance; the "within" row shown because one option is over (NEC 215.2(A) IN No. 2: 5 % in all, the demo's limits).
+    const within = c.rows.find((r) => r.key === 'drop.inverter.within')!;
+    expect(within.label).toBe('Drop to 3 kW inverter: within its limit (3 % a link, 5 % in all)');
+    expect(within.values).toEqual(['yes', 'yes', 'yes', 'yes', 'yes', 'no']);
+    expect(c.rows.find((r) => r.key === 'drop.inverter')!.values[5]).toBeGreaterThan(5);
+    expect(c.rows.some((r) => r.key === 'drop.fridge.within')).toBe(false); // within its limit in every option: no row
     expect(c.rows.some((r) => r.key === 'cost.yearly')).toBe(false);
     expect(c.hoursPerYear).toBe(8760); // all year, the default of core/solve/running-schema.ts HOURS_IN_YEAR
   });
