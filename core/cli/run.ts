@@ -20,7 +20,8 @@ import { runModesStudy, type ModesStudyResult } from '../studies/modes/study.ts'
 import { formatModesStudy } from '../studies/modes/text-report.ts';
 import { solveModes } from '../solve/modes.ts';
 import type { SolveResult } from '../model/result.ts';
-import { formatLifetimeCost, lifetimeCost, lifetimeSettingsOf, type LifetimeCost } from '../studies/lifetime.ts';
+import { formatLifetimeCost, lifetimeSettingsOf, type LifetimeCost } from '../studies/lifetime.ts';
+import { projectLifetimeCost } from '../studies/lifetime-recharge.ts';
 import { formatSpread, runSpread, type SpreadResult } from '../studies/spread/index.ts';
 import { compareVariants, type VariantComparison } from '../studies/variants/compare.ts';
 import { formatVariantComparison } from '../studies/variants/text-report.ts';
@@ -136,8 +137,8 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   let lifetime: LifetimeCost | undefined;
   const lifeSettings = lifetimeSettingsOf(outcome.project);
   if (lifeSettings) {
-    const rc = study?.recharge;
-    const l = lifetimeCost(outcome, lifeSettings, rc ? { energyWh: rc.acInputEnergyWh, timeSeconds: rc.time } : undefined);
+    // With the backup study's recharge after each outage (the same path as the page and the comparison of variants).
+    const l = projectLifetimeCost(outcome, lifeSettings, study);
     if (!l.ok) return refused(file, 'the cost over the years cannot be worked out:', l.problems, projectName, data);
     lifetime = l.cost;
     const bad = nonFinite('the cost over the years cannot be shown:', 'The cost over the years', lifetime);

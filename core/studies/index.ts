@@ -28,6 +28,7 @@ export { withProfilePrice } from './economics.ts';
 export { lifetimeCost, lifetimeSettingsOf, compareLifetime, compareSolved, breakEven, typicalFuelFigures, TYPICAL_FUEL_NOTE, type LifetimeCost, type LifetimeOutcome, type LifetimeSettings, type BreakEven, type CostStream } from './lifetime.ts';
 export { searchOptions, listedSizes, SEARCH_CAUTION, type SearchResult, type SearchOutcome, type EvaluatedOption, type MetOption, type RejectedGroup } from './search/index.ts';
 export { GENERATOR_RATED_POWER_FACTOR, dutyHoursPerYear } from './lifetime.ts';
+export { projectLifetimeCost, projectRechargeRun, rechargeRunOf } from './lifetime-recharge.ts';
 export { studySurges, type DeviceCheck, type FaultPoint, type MotorStartResult, type StartCheck } from './surge/index.ts';
 export { answerStudies, studyAnswersFrom, type BankStudyAnswer, type CostAnswer, type StartAnswer, type StudyAnswers } from './answers.ts';
 export { compareVariants, compareColumns, solveColumns, type ColumnSolve, type ComparisonColumn, type ComparisonRow, type RowGroup, type RowQuantity, type VariantComparison } from './variants/compare.ts';

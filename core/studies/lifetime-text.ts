@@ -2,6 +2,10 @@
 import { sigText } from '../model/message.ts';
 import type { LifetimeCost } from './lifetime.ts';
 
+/** The lifetime cost's method and what it leaves out, in words (the comparison of variants prints it too). */
+export const LIFETIME_METHOD_WORDS =
+  'Lifetime cost: net present value, purchase + Σ yearly cost ÷ (1 + r)^t for t = 1…N years; the yearly cost is the losses’ energy (and a generator’s fuel) at today’s prices, the same each year. Not counted: replacing parts that wear out within those years (a battery bank, for one), maintenance, and rises in the energy or fuel price.';
+
 /** The cost over the years as plain text (the command line; money without a currency symbol, the file holds none). */
 export function formatLifetimeCost(c: LifetimeCost): string {
   const money = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toFixed(2));
@@ -21,5 +25,6 @@ export function formatLifetimeCost(c: LifetimeCost): string {
     `  Lifetime cost over ${c.years} year${c.years === 1 ? '' : 's'} at ${sigText(c.discountRate * 100, 3)} % a year: ${money(c.npv)} (net present value: purchase + Σ yearly cost ÷ (1 + r)^t, t = 1…${c.years})`,
   );
   for (const n of c.notes.slice(1)) lines.push(`  Note: ${n}`);
+  lines.push('  Not counted: replacing parts that wear out within those years (a battery bank, for one), maintenance, and rises in the energy or fuel price (each year costs the same).');
   return lines.join('\n');
 }

@@ -226,6 +226,12 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
     const fuel = generatorFuelPerYear(g, ratedPowerW, runs);
     if (!fuel.ok) return fuel;
     generator = { ...fuel.fuel, ratedPowerFrom: g.ratedPower !== undefined ? 'settings' : 'generator rating' };
+    // Below ¼ load the table is extended, not read; and long light running is what generator makers warn against (common practice (no source)).
+    for (const r of fuel.fuel.runs) {
+      if (r.hoursPerYear > 0 && r.loadFraction < 0.25) {
+        notes.push(`the generator runs at ${sigText(r.loadFraction * 100, 3)} % of its rating through the ${r.what}: below ¼ load its fuel is the ¼–½ line of the table extended towards no load (an estimate), and makers give a minimum load for long runs (light running leaves unburnt fuel in the engine and exhaust); use the maker's figure`);
+      }
+    }
     if (g.ratedPower === undefined) notes.push(`generator rated power ${sigText(ratedPowerW / 1000, 4)} kW: its rating in kVA × 0.8, the rated power factor of generating sets`);
   }
   const yearlyCost = lc.cost.totalCost + (generator?.fuelCostPerYear ?? 0);

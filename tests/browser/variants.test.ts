@@ -51,6 +51,9 @@ describe.skipIf(skipWithout('chromium'))('compare options in Chromium', () => {
       expect(cells, row.key).toEqual(row.values.map((v) => plain(variantValueText(row, v, 'en-US'))));
     }
     expect(await table.locator('tbody tr').count()).toBe(expected.rows.length);
+    // How the cost rows are worked, under the table (core's hoursPerYear: all year without a price).
+    const methods = page.getByTestId('variants-panel').getByTestId('variants-methods');
+    expect(plain(await methods.textContent())).toMatch(/Energy lost a year: the losses at the solved operating point × 8,?760 h a year \(no energy price given, so no cost\)\./);
   }
 
   for (const [label, viewport, touch] of [
@@ -97,6 +100,9 @@ describe.skipIf(skipWithout('chromium'))('compare options in Chromium', () => {
         await page.getByTestId('variant-flows').screenshot({ path: join(artifacts, `variants-${label}-flows.png`) });
         // The printed report carries the options (a compact table of what differs).
         await expect.poll(async () => plain(await page.getByTestId('report-variants').textContent()), { timeout: 30_000 }).toContain('24 V system');
+        // With how its cost rows are worked and the comparison's cautions.
+        expect(plain(await page.getByTestId('report-variants').textContent())).toContain(plain(expected.cautions[0]));
+        expect(await page.getByTestId('report-variants').getByTestId('variants-methods').count()).toBe(1);
         expect(await page.evaluate('document.documentElement.scrollWidth - window.innerWidth')).toBeLessThanOrEqual(0);
         expect(await seriousAxeViolations(page)).toEqual([]);
 

@@ -227,6 +227,17 @@ describe('lifetimeCost of a solved chain', () => {
     expect(out.cost.generator!.runs[1]!.litresPerYear).toBeCloseTo(38.4, 6);
     expect(out.cost.generator!.litresPerYear).toBeCloseTo(198.4, 6);
   });
+  it('light load: a 1000 W run on a 5000 W set is 20 % of its rating, below the table\'s ¼ point: extended and said so', () => {
+    const s = solved({ ...running, generator: { ...running.generator, ratedPower: 5000 } });
+    const out = lifetimeCost(s);
+    if (!out.ok) throw new Error(JSON.stringify(out.problems));
+    // 1000 / 5000 = 0.2 of the rating (by hand), under the ¼ point of the maker's table.
+    expect(out.cost.generator!.runs[0]!.loadFraction).toBeCloseTo(0.2, 12);
+    expect(out.cost.notes.some((n) => n.startsWith('the generator runs at 20 % of its rating through the outages: below ¼ load'))).toBe(true);
+    // At ½ load (the 2000 W set above) no such note.
+    const half = lifetimeCost(solved(running));
+    expect(half.ok && half.cost.notes.some((n) => n.includes('below ¼ load'))).toBe(false);
+  });
   it('two options: a 600 supply losing 50 W against the 400 one losing 100 W', () => {
     // The better supply, 95 %, loses 900/0.95 − 900 = 47.37 W (the loss model’s definition).
     const plain = { energyPricePerKWh: 0.3, years: 10, discountRate: 0 };
@@ -333,6 +344,8 @@ describe('the command line prints the cost over the years', { timeout: 30_000 },
     expect(r.stdout).toContain('no price given for "Utility supply #1"');
     // NPV 3876.63 (worked above), printed as a whole number past 1000.
     expect(r.stdout).toContain('Lifetime cost over 10 years at 5 % a year: 3,877 (net present value');
+    // What the method leaves out, said where it is read (common practice (no source): a net present value holds only the costs counted).
+    expect(r.stdout).toContain('Not counted: replacing parts that wear out within those years (a battery bank, for one), maintenance, and rises in the energy or fuel price');
   });
   it('as JSON: under lifetimeCost', () => {
     const r = run(file, '--json');

@@ -13,7 +13,7 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, lifetimeCost, lifetimeSettingsOf, type LifetimeOutcome, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers, withProfilePrice } from '../../core/studies/index.ts';
+import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, projectLifetimeCost, lifetimeSettingsOf, type LifetimeOutcome, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers, withProfilePrice } from '../../core/studies/index.ts';
 import { elementNames, nonFiniteProblems, type Problem, type Solved, type SolveResult } from '../../core/page.ts';
 import { compareColumns, flowGraph, solveColumns, type FlowGraph, type VariantComparison } from '../../core/studies/index.ts';
 import type { ProjectVariant } from '../../core/page.ts';
@@ -121,24 +121,15 @@ function machines(solved: Solved, cost: CostSettings | null): MachinesReply {
   }
   // The price the cost over the years takes (the load profile's day when the project splits by it).
   if (cost) figures.lossCost = lossCostPerYear(result, withProfilePrice(solved, cost));
-  if (lifetimeSettingsOf(project)) figures.lifetime = lifetimeCost(solved, undefined, rechargeRun(solved));
+  if (lifetimeSettingsOf(project)) figures.lifetime = projectLifetimeCost(solved);
   const notFinite = nonFiniteProblems('The machines study', figures, elementNames(project));
   if (notFinite.length) return { kind: 'machines', outcome: { ok: false, problems: notFinite } };
   return { kind: 'machines', outcome: { ok: true, figures } };
 }
 
-/** The recharge after one outage for the generator's fuel (the backup study's, as the command line takes it), when the project counts outages and has a bank. */
-function rechargeRun(solved: Solved): { energyWh: number; timeSeconds: number } | undefined {
-  if (!(solved.project.running?.generator?.outagesPerYear ?? 0)) return undefined;
-  if (!solved.project.elements.some((e) => e.kind === 'battery' && e.bank !== undefined)) return undefined;
-  const o = runBackupStudy(solved);
-  const rc = o.ok ? o.study.recharge : undefined;
-  return rc ? { energyWh: rc.acInputEnergyWh, timeSeconds: rc.time } : undefined;
-}
-
-/** The cost over the years of a solved pair (core's lifetimeCost, the recharge as the machines panel takes it), refused when not all finite. */
+/** The cost over the years of a solved pair (core's projectLifetimeCost: with the backup study's recharge, as the command line and the comparison take it), refused when not all finite. */
 function lifetime(solved: Solved): LifetimeReply {
-  const o = lifetimeCost(solved, undefined, rechargeRun(solved));
+  const o = projectLifetimeCost(solved);
   if (!o.ok) return { kind: 'lifetime', outcome: o };
   const notFinite = nonFiniteProblems('The cost over the years', o.cost, elementNames(solved.project));
   return { kind: 'lifetime', outcome: notFinite.length ? { ok: false, problems: notFinite } : o };

@@ -7,19 +7,28 @@
  * - the solve's answers (core/solve/answers.ts): source power, loads, losses split idle / conversion
  *   / cables / source (their sum is the solve's total loss), efficiency, each sized cable's size,
  *   parallel sets, protective device and drop, warnings by element name; each cable's current is its
- *   input port's current in the result;
- * - the yearly energy and cost of the losses (core/studies/economics.ts: E = P_loss × hours, cost =
- *   E × price; the project's `running` price, the day/night mean of core/model/tariff.ts);
- * - the lifetime cost (net present value) and the break-even year and simple payback of each variant
- *   against the base (core/studies/lifetime.ts `lifetimeCost`, `compareLifetime`);
+ *   input port's current in the result; each path's total drop and whether it is within its limits
+ *   (the solve's `voltageDrop`, cables given by resistance included);
+ * - the yearly energy of the losses (core/studies/economics.ts: E = P_loss × hours, the project's
+ *   hours or all year, 8760 h, as the single yearly cost takes them), given without a price too; with a
+ *   price their cost E × price (the project's `running` price, the day/night mean of core/model/tariff.ts);
+ * - the lifetime cost (net present value) of each column by the path the project's own "Cost over the
+ *   years" takes (core/studies/lifetime-recharge.ts `projectLifetimeCost`: with the backup study's
+ *   recharge after each outage, so a generator's fuel counts the recharges), and the break-even year
+ *   and simple payback of each variant against the base (core/studies/lifetime.ts `compareLifetime`),
+ *   in words where there is none (no extra purchase, never within the years counted);
  * - the studies' answers (core/studies/answers.ts `answerStudies`): each bank's current at the
  *   operating point and highest over the outage, runtime, the bank for the target, each motor's
- *   start verdict.
+ *   start verdict; beside the runtime whether the installed bank is at least the bank the sizing
+ *   gives for the target (the sizing's design margin and aging included; the runtime itself is the
+ *   bank at the study's state of health, without them), and what the bank's cable current is (the
+ *   code's design current of its sizing, or the highest discharge current).
  *
  * A variant that takes loads out (critical loads only) is solved with the project's load profile
  * without those loads (they no longer draw, so the profile's levels and duty cycles for them go with
  * them); otherwise the profile would name loads the chain no longer holds and the battery study could
- * not run. Every other variant is solved exactly as `solveProjectVariant` solves it.
+ * not run. Every other variant is solved exactly as `solveProjectVariant` solves it (the project-level
+ * warnings included).
  *
  * A variant that no longer applies (it names elements that are gone, or its changed elements are
  * refused) is not solved: its column carries its problems and its figures are left empty; the other
@@ -30,12 +39,16 @@ import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
 import type { ProjectVariant } from '../../model/variants.ts';
 import type { Solved } from '../../solve/solved.ts';
 import { variantChangeOf } from '../../solve/project-variant.ts';
+import { withProjectWarnings } from '../../solve/project-warnings.ts';
 import { solveVariant } from '../../solve/variant.ts';
 import type { BackupStudy } from '../../model/project.ts';
-import { solveAnswers } from '../../solve/answers.ts';
-import { answerStudies } from '../answers.ts';
-import { costSettingsOfSolved, type CostSettings } from '../economics.ts';
-import { compareLifetime, lifetimeCost, lifetimeSettingsOf, type LifetimeCost, type LifetimeSettings } from '../lifetime.ts';
+import { DESIGN_BASIS_WORDS, solveAnswers, type BankAnswer } from '../../solve/answers.ts';
+import { sigText } from '../../model/message.ts';
+import { answerStudies, type BankStudyAnswer } from '../answers.ts';
+import { costSettingsOfSolved, HOURS_IN_YEAR, lossCostPerYear, type CostSettings } from '../economics.ts';
+import { compareLifetime, lifetimeSettingsOf, type BreakEven, type LifetimeCost, type LifetimeSettings } from '../lifetime.ts';
+import { projectLifetimeCost } from '../lifetime-recharge.ts';
+import { LIFETIME_METHOD_WORDS } from '../lifetime-text.ts';
 
 /** What a row's numbers are (SI inside; the CLI and the page convert at their edge). */
 export type RowQuantity =
@@ -48,7 +61,9 @@ export type RowQuantity =
   | 'capacity' // Ah
   | 'fraction' // 0…1 (efficiency)
   | 'percent' // % (a drop)
-  | 'years'
+  | 'years' // a number of years, or words where there is none ("no extra purchase", "never within 10 years")
+  | 'litres-per-year' // L a year (a generator's fuel)
+  | 'kg-per-year' // kg a year (CO₂)
   | 'text';
 
 /** The section of the table a row belongs to. */
@@ -84,15 +99,19 @@ export interface ComparisonColumn {
 export interface VariantComparison {
   columns: ComparisonColumn[];
   rows: ComparisonRow[];
+  /** The hours a year the losses' energy is counted for (the project's, or all year). */
+  hoursPerYear: number;
   /** The price and hours the losses are costed at (absent without an energy price), and the lifetime settings' years and rate. */
   cost?: { pricePerKWh: number; hoursPerYear: number };
   lifetime?: { years: number; discountRate: number };
+  /** The methods of the lifetime cost, the break-even year and the simple payback, in words (with the lifetime rows). */
+  methods: string[];
   /** The usual cautions: what the figures are and who governs. */
   cautions: string[];
 }
 
 export interface CompareOptions {
-  /** Price and hours for the yearly cost (default: the project's `running`; null: no cost rows). */
+  /** Price and hours for the yearly cost (default: the project's `running`; null: no money rows, the energy lost a year still given). */
   cost?: CostSettings | null;
   /** Settings of the lifetime cost (default: the project's `running`; null: no lifetime rows). */
   lifetime?: LifetimeSettings | null;
@@ -124,7 +143,8 @@ export function solveColumns(solved: Solved, variants: readonly ProjectVariant[]
     if (!change.ok) return { ok: false, problems: change.problems };
     const backup = backupWithout(solved.project.backup, change.change.remove);
     const o = solveVariant(solved, backup ? { ...change.change, backup } : change.change);
-    return o.ok ? { ok: true, solved: o } : { ok: false, problems: o.problems };
+    // A named variant gets the project-level warnings, as solveProjectVariant gives them.
+    return o.ok ? { ok: true, solved: withProjectWarnings(o) } : { ok: false, problems: o.problems };
   })];
 }
 
@@ -151,6 +171,55 @@ interface RowMeta {
 const YES = 'yes';
 const NO = 'no';
 const START_WORDS = { starts: 'starts', marginal: 'marginal', 'will-not-start': 'will not start' } as const;
+const yearWords = (n: number) => `${n} year${n === 1 ? '' : 's'}`;
+
+/**
+ * A variant's break-even year and simple payback against the plan (`compareLifetime(plan, variant)`),
+ * years where there is one, words where there is none: the same purchase (nothing to pay back), the
+ * dearer option never catching up within the years counted, no yearly saving, or the variant the
+ * cheaper to buy (the plan is then the dearer one: its break-even year is when the plan catches up).
+ */
+export function breakEvenValues(be: BreakEven, years: number): { breakEven: number | string; payback: number | string } {
+  if (be.dearerToBuy === null) return { breakEven: 'no extra purchase', payback: 'no extra purchase' };
+  if (be.dearerToBuy === 'b') {
+    return {
+      breakEven: be.breakEvenYear ?? `never within ${yearWords(years)}`,
+      payback: be.simplePaybackYears ?? 'never (no yearly saving)',
+    };
+  }
+  // The variant costs less to buy: the plan is the dearer option, the one that would have to pay back.
+  return {
+    breakEven: be.breakEvenYear !== null ? `costs less to buy; the plan catches up in year ${be.breakEvenYear}` : `costs less to buy; the plan does not catch up within ${yearWords(years)}`,
+    payback: be.simplePaybackYears === null ? 'costs less to buy, no more to run' : `costs less to buy; the plan's extra purchase pays back in ${sigText(be.simplePaybackYears, 3)} year${be.simplePaybackYears === 1 ? '' : 's'}`,
+  };
+}
+
+/** The bank's cable and fuse current in words: the code's design current of its cable's sizing, or the highest discharge current. */
+export function cableCurrentBasis(study: Pick<BankStudyAnswer, 'cableCurrent'>, quick: Pick<BankAnswer, 'cableCurrent'> | undefined): string {
+  const sized = quick?.cableCurrent;
+  if (study.cableCurrent.basis === 'conductor-sizing' && sized) {
+    return `design current of “${sized.cableName}”: ${DESIGN_BASIS_WORDS[sized.basis]}${sized.factor !== 1 ? ` × ${sigText(sized.factor, 3)}` : ''}`;
+  }
+  return 'highest discharge current over the outage; no continuous-load factor';
+}
+
+/** The installed bank's rated capacity, Ah (strings × one string's capacity), of the element the study names. */
+function installedAh(solved: Solved, bankId: string): number | undefined {
+  const e = solved.project.elements.find((x) => x.id === bankId);
+  return e?.kind === 'battery' && e.bank ? (e.bank.strings ?? 1) * e.bank.capacityAh : undefined;
+}
+
+/** The state of health the backup study discharges the bank at, in the row's words. */
+function asInstalledWords(solved: Solved): string {
+  const soh = solved.project.backup?.stateOfHealth ?? 1;
+  return soh === 1 ? 'as new' : `at ${sigText(soh * 100, 3)} % state of health`;
+}
+
+/** The methods the lifetime rows are worked by, in words (the CLI prints them under the table, the page under its table). */
+export const BREAK_EVEN_METHODS = [
+  'Simple payback: the extra purchase ÷ the mean yearly saving, not discounted.',
+  'Break-even year: the first whole year in which the dearer option’s purchase plus its yearly costs so far, each discounted by 1 ÷ (1 + r)^t, is no more than the other’s.',
+];
 
 /** Compare the project's variants (see the file's top). `variants` defaults to none: the base alone. */
 export function compareVariants(solved: Solved, variants: readonly ProjectVariant[] = [], options: CompareOptions = {}): VariantComparison {
@@ -162,6 +231,8 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
   // The base's price (with its profile's day/night split when asked); each column's own cost figures take
   // its own profile's split (answers.ts withProfilePrice).
   const costSettings = options.cost !== undefined ? options.cost : costSettingsOfSolved(solved);
+  // The hours the losses' energy is counted for: the price's, else the project's, else all year (as costSettingsOf takes them).
+  const hoursPerYear = costSettings?.hoursPerYear ?? solved.project.running?.hoursPerYear ?? HOURS_IN_YEAR;
   const lifeSettings = options.lifetime !== undefined ? options.lifetime : lifetimeSettingsOf(solved.project);
   const meta = new Map<string, RowMeta>();
   const order: string[] = [];
@@ -205,23 +276,35 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
     put(f, 'losses.source', { group: 'losses', label: 'Loss in the source', quantity: 'power' }, quick.losses.source);
     // Studies: each bank's runtime and sizing, the start verdicts, the yearly cost (one run per column).
     const studies = answerStudies(sv, costSettings);
+    const energyRow = { group: 'cost', label: 'Energy lost a year', quantity: 'energy-per-year' } as const;
     if (costSettings) {
       if (studies.cost.ok) {
-        put(f, 'cost.energy', { group: 'cost', label: 'Energy lost a year', quantity: 'energy-per-year' }, studies.cost.energyKWh);
+        put(f, 'cost.energy', energyRow, studies.cost.energyKWh);
         put(f, 'cost.yearly', { group: 'cost', label: 'Cost of the losses a year', quantity: 'money-per-year' }, studies.cost.cost);
       } else column.studyProblems.push({ study: 'cost', problems: [{ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'running.energyPricePerKWh', value: costSettings.pricePerKWh, message: studies.cost.reason }] });
+    } else {
+      // No price: the energy alone, E = P_loss × hours (economics.ts; its price 0 costs nothing).
+      const e = lossCostPerYear(sv.result, { pricePerKWh: 0, hoursPerYear });
+      if (e.ok) put(f, 'cost.energy', energyRow, e.cost.totalEnergyKWh);
+      else column.studyProblems.push({ study: 'cost', problems: e.problems });
     }
     if (lifeSettings) {
-      const life = lifetimeCost(sv, lifeSettings);
+      // The project's own "Cost over the years": with the backup study's recharge after each outage.
+      const life = projectLifetimeCost(sv, lifeSettings);
       if (life.ok) {
         if (i === 0) baseLife = life.cost;
         put(f, 'cost.purchase', { group: 'cost', label: 'Purchase (priced elements)', quantity: 'money' }, life.cost.purchase);
+        if (life.cost.generator) {
+          put(f, 'cost.fuel', { group: 'cost', label: 'Generator fuel a year', quantity: 'litres-per-year' }, life.cost.generator.litresPerYear);
+        }
+        if (life.cost.co2KgPerYear !== undefined) put(f, 'cost.co2', { group: 'cost', label: 'CO₂ of the losses a year', quantity: 'kg-per-year' }, life.cost.co2KgPerYear);
+        put(f, 'cost.yearlyCounted', { group: 'cost', label: 'Yearly cost counted (losses and fuel)', quantity: 'money-per-year' }, life.cost.yearlyCost);
         put(f, 'cost.lifetime', { group: 'cost', label: 'Lifetime cost (net present value)', quantity: 'money' }, life.cost.npv);
         if (i > 0 && baseLife) {
-          // Break-even and payback against the base (core/studies/lifetime-money.ts `breakEven`).
-          const be = compareLifetime(baseLife, life.cost);
-          put(f, 'cost.breakEven', { group: 'cost', label: 'Break-even year against the plan', quantity: 'years' }, be.breakEvenYear);
-          put(f, 'cost.payback', { group: 'cost', label: 'Simple payback against the plan', quantity: 'years' }, be.simplePaybackYears);
+          // Break-even and payback against the base (core/studies/lifetime-money.ts `breakEven`), in words where there is none.
+          const be = breakEvenValues(compareLifetime(baseLife, life.cost), lifeSettings.years);
+          put(f, 'cost.breakEven', { group: 'cost', label: 'Break-even year against the plan', quantity: 'years' }, be.breakEven);
+          put(f, 'cost.payback', { group: 'cost', label: 'Simple payback against the plan', quantity: 'years' }, be.payback);
         }
       } else column.studyProblems.push({ study: 'lifetime', problems: life.problems });
     }
@@ -232,10 +315,20 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
       const at = (what: string) => `bank.${b.elementId}.${what}`;
       put(f, at('peak'), { group: 'battery', label: `${b.name}: highest current over the outage`, quantity: 'current' }, b.peakCurrent);
       put(f, at('runtime'), { group: 'battery', label: `${b.name}: runtime`, quantity: 'time' }, b.runtimeSeconds);
-      if (b.meetsTarget !== undefined) put(f, at('meets'), { group: 'battery', label: `${b.name}: meets the target runtime`, quantity: 'text' }, b.meetsTarget ? YES : NO);
+      // The runtime's verdict is the discharge's (the bank at the study's state of health); the sizing adds its design margin and aging.
+      if (b.meetsTarget !== undefined) put(f, at('meets'), { group: 'battery', label: `${b.name}: runtime reaches the target (${asInstalledWords(sv)}, no margin or aging)`, quantity: 'text' }, b.meetsTarget ? YES : NO);
       if (b.sizedBank !== undefined) put(f, at('sized'), { group: 'battery', label: `${b.name}: bank for the target`, quantity: 'text' }, b.sizedBank);
-      if (b.sizedCapacityAh !== undefined) put(f, at('sizedAh'), { group: 'battery', label: `${b.name}: capacity for the target`, quantity: 'capacity' }, b.sizedCapacityAh);
-      put(f, at('cableCurrent'), { group: 'battery', label: `${b.name}: current its cable and fuse carry`, quantity: 'current' }, b.cableCurrent.amps);
+      if (b.sizedCapacityAh !== undefined) {
+        put(f, at('sizedAh'), { group: 'battery', label: `${b.name}: capacity for the target`, quantity: 'capacity' }, b.sizedCapacityAh);
+        const installed = installedAh(sv, b.elementId);
+        if (installed !== undefined) {
+          put(f, at('installedAh'), { group: 'battery', label: `${b.name}: capacity installed`, quantity: 'capacity' }, installed);
+          // The same cells in series and the same string module as the sizing (backup/study.ts), so the capacities compare directly.
+          put(f, at('enough'), { group: 'battery', label: `${b.name}: installed bank ≥ bank for the target (with margin and aging)`, quantity: 'text' }, installed >= b.sizedCapacityAh * (1 - 1e-9) ? YES : NO);
+        }
+      }
+      put(f, at('cableCurrent'), { group: 'battery', label: `${b.name}: current for its cable and fuse`, quantity: 'current' }, b.cableCurrent.amps);
+      put(f, at('cableBasis'), { group: 'battery', label: `${b.name}: that current is`, quantity: 'text' }, cableCurrentBasis(b, quick.banks.find((q) => q.elementId === b.elementId)));
     }
     if (studies.bankProblems) column.studyProblems.push({ study: 'battery', problems: studies.bankProblems });
     // Cables: the current each carries (its input port), and for a sized cable its size, device and drop.
@@ -247,6 +340,15 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
       put(f, `cable.${c.elementId}.size`, { group: 'cables', label: `${c.name}: conductor size`, quantity: 'text' }, c.parallelSets > 1 ? `${c.parallelSets} × ${c.size}` : c.size);
       put(f, `cable.${c.elementId}.device`, { group: 'cables', label: `${c.name}: protective device`, quantity: 'current' }, c.deviceRating ?? null);
       put(f, `cable.${c.elementId}.drop`, { group: 'cables', label: `${c.name}: voltage drop`, quantity: 'percent' }, c.dropPercent);
+    }
+    // Each path's total drop from its source or regulating converter (the solve's path drops), given by resistance or sized.
+    const names = new Map(sv.result.elements.map((e) => [e.id, e.name]));
+    for (const d of sv.result.voltageDrop ?? []) {
+      const to = names.get(d.loadId) ?? d.loadId;
+      put(f, `drop.${d.loadId}`, { group: 'cables', label: `Drop to ${to}: path total`, quantity: 'percent' }, d.totalPercent);
+      const limits = `${d.perLinkLimitPercent !== undefined ? `${sigText(d.perLinkLimitPercent, 3)} % a link, ` : ''}${sigText(d.totalLimitPercent, 3)} % in all`;
+      // Shown only where some column is over its limit (the rows are filtered below): a "yes" on every path would bury the table.
+      put(f, `drop.${d.loadId}.within`, { group: 'cables', label: `Drop to ${to}: within its limit (${limits})`, quantity: 'text' }, d.exceedsLimit ? NO : YES);
     }
     for (const st of studies.starts) {
       put(f, `start.${st.elementId}`, { group: 'starts', label: `${st.name}: start`, quantity: 'text' }, START_WORDS[st.verdict]);
@@ -260,7 +362,7 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
     }
   });
   const GROUPS: RowGroup[] = ['balance', 'losses', 'cost', 'battery', 'cables', 'starts', 'warnings'];
-  const rows: ComparisonRow[] = order.map((key) => {
+  const rows: ComparisonRow[] = order.filter((key) => !(key.startsWith('drop.') && key.endsWith('.within') && figuresOf.every((f) => !f || (f.get(key) ?? YES) === YES))).map((key) => {
     const m = meta.get(key)!;
     const values = figuresOf.map((f) => (f ? (f.get(key) ?? null) : null));
     // Only the columns worked out are compared; the base's empty break-even (it is the reference) is no difference.
@@ -272,8 +374,10 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
   return {
     columns,
     rows,
+    hoursPerYear,
     ...(costSettings ? { cost: { pricePerKWh: costSettings.pricePerKWh, hoursPerYear: costSettings.hoursPerYear } } : {}),
     ...(lifeSettings ? { lifetime: { years: lifeSettings.years, discountRate: lifeSettings.discountRate } } : {}),
+    methods: lifeSettings ? [LIFETIME_METHOD_WORDS, ...(columns.length > 1 ? BREAK_EVEN_METHODS : [])] : [],
     cautions: COMPARISON_CAUTIONS,
   };
 }

@@ -41,7 +41,11 @@ export function comparisonValueText(row: Pick<ComparisonRow, 'quantity'>, v: num
     case 'percent':
       return `${sigText(v, 3)} %`;
     case 'years':
-      return `${sigText(v, 3)} years`;
+      return `${sigText(v, 3)} year${v === 1 ? '' : 's'}`;
+    case 'litres-per-year':
+      return `${sigText(v, 4)} L`;
+    case 'kg-per-year':
+      return `${sigText(v, 4)} kg`;
     default:
       return String(v);
   }
@@ -65,7 +69,9 @@ export function formatVariantComparison(c: VariantComparison, project?: { name?:
   const out = [`Variants side by side${projectName ? `: ${projectName}` : ''} (* marks figures that differ between the options)`, fmt(header), ...lines.map(fmt)];
   if (c.columns.length === 1) out.push('The project has no variants yet: add them to "variants" in the file (or in the page\'s "Compare options").');
   if (c.cost) out.push(`Losses costed at ${sigText(c.cost.pricePerKWh, 4)} per kWh for ${sigText(c.cost.hoursPerYear, 5)} h a year.`);
-  if (c.lifetime) out.push(`Lifetime cost over ${c.lifetime.years} years at a discount rate of ${sigText(c.lifetime.discountRate * 100, 3)} %; break-even and payback against the plan as it stands.`);
+  else out.push(`Energy lost a year: the losses at the solved operating point for ${sigText(c.hoursPerYear, 5)} h a year (no energy price given, so no cost).`);
+  if (c.lifetime) out.push(`Lifetime cost over ${c.lifetime.years} year${c.lifetime.years === 1 ? '' : 's'} at a discount rate of ${sigText(c.lifetime.discountRate * 100, 3)} %${c.columns.length > 1 ? '; break-even and payback of each option against the plan as it stands' : ''}.`);
+  out.push(...c.methods);
   for (const col of c.columns) {
     if (col.note) out.push(`${col.name}: ${col.note}`);
     for (const p of col.problems) out.push(`${col.name}: not solved: ${formatProblem(p, project)}`);

@@ -5,7 +5,9 @@ import { solveAnswers } from '../../../core/solve/answers.ts';
 import { answerStudies } from '../../../core/studies/answers.ts';
 import { costSettingsOf } from '../../../core/studies/economics.ts';
 import { compareLifetime, lifetimeCost, type LifetimeSettings } from '../../../core/studies/lifetime.ts';
-import { backupWithout, compareVariants, type VariantComparison } from '../../../core/studies/variants/compare.ts';
+import { backupWithout, breakEvenValues, compareVariants, type VariantComparison } from '../../../core/studies/variants/compare.ts';
+import { comparisonValueText, formatVariantComparison } from '../../../core/studies/variants/text-report.ts';
+import { breakEven } from '../../../core/studies/lifetime-money.ts';
 import { solveVariant } from '../../../core/solve/variant.ts';
 import { nextSizeUpVariant, systemVoltageVariant } from '../../../core/variants/index.ts';
 import type { ProjectVariant } from '../../../core/model/variants.ts';
@@ -134,5 +136,68 @@ describe('variants side by side', () => {
     expect(row(c, 'start.motor').values).toEqual(['starts', 'starts']);
     expect(row(c, 'start.motor').differs).toBe(false);
     expect(row(c, 'cable.feeder.current').differs).toBe(true);
+  });
+  it('the energy lost a year without a price: E = P_loss × 8760 h (economics.ts, all year by default); no money rows', () => {
+    const base = solved(demo('hillside-relay-hut'));
+    const c = compareVariants(base, []);
+    // E = P·t: 95.91 W of losses (the hillside CLI's balance) × 8760 h / 1000.
+    expect(row(c, 'cost.energy').values[0]).toBeCloseTo((base.result.totals.losses * 8760) / 1000, 9);
+    expect(row(c, 'cost.energy').values[0]).toBeCloseTo(840.2, 1); // the hillside CLI's "What the losses cost per year", 840.2 kWh at 8760 h
+    expect(c.rows.some((r) => r.key === 'cost.yearly' || r.key === 'cost.lifetime')).toBe(false);
+    expect(formatVariantComparison(c)).toMatch(/Energy lost a year: the losses at the solved operating point for 8760 h a year \(no energy price given, so no cost\)/);
+  });
+
+  it('the runtime verdict is the bank as new without margin or aging; beside it whether the installed bank is the bank the sizing gives (hillside: 200 Ah against 400 Ah)', () => {
+    const c = compareVariants(solved(demo('hillside-relay-hut')), []);
+    // The hillside CLI's backup study: runtime 27 h 40 min against the 24 h target, as new (aging × 1.000);
+    // its sizing with design margin 1.1 and aging 1.25: "2 strings × 200 Ah = 400 Ah" against the one 200 Ah string installed.
+    expect(row(c, 'bank.bank.meets')).toMatchObject({ label: '48 V LiFePO4 bank: runtime reaches the target (as new, no margin or aging)', values: ['yes'] });
+    expect(row(c, 'bank.bank.installedAh').values).toEqual([200]);
+    expect(row(c, 'bank.bank.sizedAh').values).toEqual([400]);
+    expect(row(c, 'bank.bank.enough')).toMatchObject({ label: '48 V LiFePO4 bank: installed bank ≥ bank for the target (with margin and aging)', values: ['no'] });
+    // No sizing on the bank's cable: the current is the highest discharge current, and the row says so.
+    expect(row(c, 'bank.bank.cableCurrent').values).toEqual(row(c, 'bank.bank.peak').values);
+    expect(row(c, 'bank.bank.cableBasis').values).toEqual(['highest discharge current over the outage; no continuous-load factor']);
+  });
+
+  it('a sized bank cable: the current is the design current of its conductor sizing, and the row names it (1200 W at 25.6 V nominal = 46.875 A, IEC I_B)', () => {
+    const p = { ...dcProject({ cable: true }), backup: { timeStepSeconds: 60, horizonHours: 4, targetRuntimeHours: 2, profile: { kind: 'constant' } } } as unknown as Project;
+    const c = compareVariants(solved(p), []);
+    // I_B = P / U_nominal = 1200 / (8 × 3.2 V) (IEC 60364-5-52 design current of the load at nominal voltage; design-current.ts).
+    expect(row(c, 'bank.bank.cableCurrent').values[0]).toBeCloseTo(1200 / 25.6, 9);
+    expect(row(c, 'bank.bank.cableBasis').values).toEqual(['design current of “Bank feed”: the load at nominal voltage']);
+  });
+
+  it('break-even and payback in words where there is none (lifetime-money.ts breakEven, hand-worked at 0 %)', () => {
+    const stream = (purchase: number, yearly: number) => ({ purchase, yearly: Array.from({ length: 10 }, () => yearly) });
+    // The same purchase: nothing to pay back.
+    expect(breakEvenValues(breakEven(stream(100, 50), stream(100, 40), 0), 10)).toEqual({ breakEven: 'no extra purchase', payback: 'no extra purchase' });
+    // Dearer by 500, saving 10 a year: payback 500 / 10 = 50 years, never caught up within the 10 years.
+    expect(breakEvenValues(breakEven(stream(0, 100), stream(500, 90), 0), 10)).toEqual({ breakEven: 'never within 10 years', payback: 50 });
+    // Dearer by 500, no saving at all.
+    expect(breakEvenValues(breakEven(stream(0, 100), stream(500, 100), 0), 10)).toEqual({ breakEven: 'never within 10 years', payback: 'never (no yearly saving)' });
+    // Dearer by 100, saving 100 a year: paid back in 1 year, caught up in year 1; printed "1 year", not "1 years".
+    const one = breakEvenValues(breakEven(stream(0, 200), stream(100, 100), 0), 10);
+    expect(one).toEqual({ breakEven: 1, payback: 1 });
+    expect(comparisonValueText({ quantity: 'years' }, one.payback)).toBe('1 year');
+    expect(comparisonValueText({ quantity: 'years' }, 2.5)).toBe('2.5 years');
+    // The variant cheaper to buy (by 100) and dearer to run (by 20 a year): the plan's extra pays back in 100 / 20 = 5 years, caught up in year 5.
+    expect(breakEvenValues(breakEven(stream(100, 50), stream(0, 70), 0), 10)).toEqual({ breakEven: 'costs less to buy; the plan catches up in year 5', payback: 'costs less to buy; the plan\'s extra purchase pays back in 5 years' });
+    // Cheaper to buy and no dearer to run.
+    expect(breakEvenValues(breakEven(stream(100, 50), stream(0, 50), 0), 1)).toEqual({ breakEven: 'costs less to buy; the plan does not catch up within 1 year', payback: 'costs less to buy, no more to run' });
+  });
+
+  it('the text names the methods of the lifetime cost, payback and break-even, and what the lifetime cost leaves out', () => {
+    const p = dcProject({ cable: true });
+    const base = solved({ ...p, running: { energyPricePerKWh: 0.3, years: 1, discountRate: 0 } } as Project);
+    const v = nextSizeUpVariant(base, 'feed');
+    if (!v.ok) throw new Error('refused');
+    const text = formatVariantComparison(compareVariants(base, [v.variant]));
+    expect(text).toMatch(/Lifetime cost over 1 year at a discount rate of 0 %; break-even and payback of each option against the plan as it stands\./);
+    expect(text).toMatch(/Simple payback: the extra purchase ÷ the mean yearly saving, not discounted\./);
+    expect(text).toMatch(/Break-even year: the first whole year in which the dearer option’s purchase plus its yearly costs so far, each discounted by 1 ÷ \(1 \+ r\)\^t, is no more than the other’s\./);
+    expect(text).toMatch(/Not counted: replacing parts that wear out within those years \(a battery bank, for one\), maintenance, and rises in the energy or fuel price\./);
+    // No price difference: "no extra purchase", not an empty cell.
+    expect(text).toMatch(/Break-even year against the plan +— +no extra purchase/);
   });
 });

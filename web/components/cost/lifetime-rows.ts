@@ -48,7 +48,7 @@ export function lifetimeRows(c: LifetimeCost): LifetimeRow[] {
     label: `Lifetime cost over ${c.years} year${c.years === 1 ? '' : 's'}`,
     value: c.npv,
     unit: 'money',
-    how: `net present value at ${pct(c.discountRate)} a year: purchase + Σ yearly cost ÷ (1 + r)^t, t = 1…${c.years}`,
+    how: `net present value at ${pct(c.discountRate)} a year: purchase + Σ yearly cost ÷ (1 + r)^t, t = 1…${c.years}; not counted: replacing parts that wear out (a battery bank, for one), maintenance, price rises`,
   });
   if (c.co2KgPerYear !== undefined) {
     rows.push({ key: 'co2-year', label: 'CO₂ of the losses a year', value: c.co2KgPerYear, unit: 'kg', how: 'energy lost × the grid factor you entered' });

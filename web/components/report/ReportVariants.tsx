@@ -1,11 +1,11 @@
 /**
  * The options compared, for the printed client report (ClientReport.tsx mounts it): when the project
  * keeps variants, a compact table of the figures that differ between them (and the source power and
- * losses, always), each option's note under it. The comparison is the panel worker's (core's
+ * losses, always), how the cost rows are worked and the comparison's cautions, each option's note under it. The comparison is the panel worker's (core's
  * compareColumns), the same the "Compare options" panel shows; nothing when the project has none.
  */
 import type { Solved } from '../../../core/page.ts';
-import { ComparisonTable, useComparison } from '../variants/VariantsPanel.tsx';
+import { ComparisonMethods, ComparisonTable, useComparison } from '../variants/VariantsPanel.tsx';
 
 const ALWAYS = new Set(['source.power', 'losses.total']);
 
@@ -19,6 +19,12 @@ export function ReportVariants({ solved }: { solved: Solved }) {
       {comparison ? (
         <>
           <ComparisonTable comparison={comparison} rows={comparison.rows.filter((r) => r.differs || ALWAYS.has(r.key))} />
+          <ComparisonMethods comparison={comparison} />
+          <ul class="report__list" data-testid="report-variants-cautions">
+            {comparison.cautions.map((c) => (
+              <li key={c}>{c}</li>
+            ))}
+          </ul>
           <ul class="report__list">
             {comparison.columns
               .filter((c) => c.note || !c.ok)

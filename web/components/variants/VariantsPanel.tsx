@@ -17,6 +17,7 @@ import { CsvButton } from '../report/CsvButton.tsx';
 import { addVariant, deleteVariant, draftVariants, noteVariant, renameVariant } from './edit.ts';
 import { ChangeField } from './ChangeField.tsx';
 import { variantValueText } from './values.ts';
+import { formatSignificant } from '../../format/number.ts';
 import { VariantFlows } from './VariantFlows.tsx';
 import '../Panels.css';
 import './Variants.css';
@@ -28,6 +29,33 @@ export function useComparison(solved: Solved | null, onlyWithVariants = false) {
   const cost = solved ? costInForce(solved.project) : null;
   const variants = (solved?.project.variants ?? []) as ProjectVariant[];
   return useWorkerReply<'variants'>(() => (solved && (!onlyWithVariants || variants.length > 0) ? { kind: 'variants', solved, variants, cost } : null), [solved, cost?.pricePerKWh, cost?.hoursPerYear]);
+}
+
+/**
+ * How the cost rows are worked, under the table (the panel and the printed report): the hours the
+ * losses' energy is counted for, the lifetime cost's settings, and core's methods of the lifetime
+ * cost (with what it leaves out), the simple payback and the break-even year.
+ */
+export function ComparisonMethods({ comparison }: { comparison: VariantComparison }) {
+  const loc = effectiveLocale();
+  const n = (v: number, digits = 4) => formatSignificant(v, digits, loc);
+  const life = comparison.lifetime;
+  return (
+    <ul class="note variants-methods" data-testid="variants-methods">
+      <li>
+        Energy lost a year: the losses at the solved operating point × {n(comparison.hoursPerYear, 5)} h a year{comparison.cost ? '.' : ' (no energy price given, so no cost).'}
+      </li>
+      {life && (
+        <li>
+          Lifetime cost over {life.years} {life.years === 1 ? 'year' : 'years'} at a discount rate of {n(life.discountRate * 100, 3)} %
+          {comparison.columns.length > 1 ? '; break-even and payback of each option against the plan as it stands.' : '.'}
+        </li>
+      )}
+      {comparison.methods.map((m) => (
+        <li key={m}>{m}</li>
+      ))}
+    </ul>
+  );
 }
 
 /** The comparison table: one row per figure, one column per option, the differing rows marked. */
@@ -214,6 +242,7 @@ export default function VariantsPanel() {
         {comparison && (
           <>
             <ComparisonTable comparison={comparison} />
+            <ComparisonMethods comparison={comparison} />
             {comparison.columns.some((c) => c.studyProblems.length > 0) && (
               <ul class="panel-warnings" data-testid="variants-study-problems">
                 {comparison.columns.flatMap((c) =>

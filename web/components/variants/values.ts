@@ -29,7 +29,11 @@ export function variantValueText(row: Pick<ComparisonRow, 'quantity'>, v: number
     case 'percent':
       return formatPercent(v / 100, locale, 3);
     case 'years':
-      return `${formatSignificant(v, 3, locale)} years`;
+      return `${formatSignificant(v, 3, locale)} year${v === 1 ? '' : 's'}`;
+    case 'litres-per-year':
+      return `${formatSignificant(v, 4, locale)}${UNIT_GAP}L a year`;
+    case 'kg-per-year':
+      return `${formatSignificant(v, 4, locale)}${UNIT_GAP}kg a year`;
     default:
       return String(v);
   }
