@@ -32,4 +32,4 @@ export { projectLifetimeCost, projectRechargeRun, rechargeRunOf } from './lifeti
 export { studySurges, type DeviceCheck, type FaultPoint, type MotorStartResult, type StartCheck } from './surge/index.ts';
 export { answerStudies, studyAnswersFrom, type BankStudyAnswer, type CostAnswer, type StartAnswer, type StudyAnswers } from './answers.ts';
 export { compareVariants, compareColumns, solveColumns, type ColumnSolve, type ComparisonColumn, type ComparisonRow, type RowGroup, type RowQuantity, type VariantComparison } from './variants/compare.ts';
-export { changedFields, criticalLoadsVariant, nextSizeUpVariant, systemBank, systemVoltageVariant, SYSTEM_VOLTAGES, type QuickVariantOutcome } from '../variants/index.ts';
+export { changedFields, mergeSet, criticalLoadsVariant, nextSizeUpVariant, systemBank, systemVoltageVariant, SYSTEM_VOLTAGES, type QuickVariantOutcome } from '../variants/index.ts';

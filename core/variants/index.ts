@@ -4,4 +4,4 @@ export { SYSTEM_VOLTAGES, seriesForSystem, systemBank, systemVoltageVariant, MAD
 export { criticalLoadsVariant } from './critical-loads.ts';
 export { nextSizeUpVariant } from './next-size.ts';
 export { restrungResistance, type Stringing } from './bank-resistance.ts';
-export { changedFields } from '../solve/project-variant.ts';
+export { changedFields, mergeSet } from '../solve/project-variant.ts';

@@ -175,6 +175,28 @@ describe.skipIf(skipWithout('chromium'))('compare options in Chromium', () => {
           const runtime = core2.rows.find((r) => r.key === 'bank.bank.runtime')!.values as number[];
           expect(runtime[2]).toBeGreaterThan(runtime[0]!);
           await page.getByTestId('variants-panel').screenshot({ path: join(artifacts, 'variants-desktop-three.png') });
+
+          // "Add the change to" an option already listed: the inverter made three-phase in the fridge's
+          // option joins its change there (one option, two elements changed); the column equals core's.
+          await page.getByLabel('Add the change to', { exact: true }).selectOption({ label: 'Vaccine fridge: Real power drawn 300 W' });
+          await page.getByLabel('Element', { exact: true }).selectOption({ label: '3 kW inverter' });
+          await page.getByLabel('Field', { exact: true }).selectOption({ label: 'Phases' });
+          await page.getByTestId('variant-change-choice').selectOption({ label: 'Three-phase' });
+          expect(await page.getByTestId('variant-change-add').textContent()).toBe('Add to this option');
+          await page.getByTestId('variant-change-add').click();
+          await expect.poll(() => page.getByTestId('variants-status').textContent()).toBe('Changed "Vaccine fridge: Real power drawn 300 W": 3 kW inverter, Phases Three-phase.');
+          const joined = { ...two, variants: [{ name: 'Vaccine fridge: Real power drawn 300 W', set: { fridge: { power: 300 }, inverter: { phases: 3 } } }, two.variants![1]!] } as Project;
+          const coreJ = compareVariants(solvedOf(joined), joined.variants);
+          await expect.poll(async () => (await table.locator('thead th').allTextContents()).map(plain), { timeout: 30_000 }).toEqual(['Figure', ...coreJ.columns.map((c) => c.name)]);
+          for (const key of ['source.power', 'cable.hut-cable.current', 'bank.bank.runtime']) {
+            const row = coreJ.rows.find((r) => r.key === key)!;
+            await expect.poll(async () => (await table.locator(`tr[data-key="${key}"] td`).allTextContents()).map(plain), { timeout: 30_000 }).toEqual(row.values.map((v) => plain(variantValueText(row, v, 'en-US'))));
+          }
+          // Three-phase at the same power: the hut cable's current differs from the plan's in that column.
+          const hutRow = coreJ.rows.find((r) => r.key === 'cable.hut-cable.current')!.values as number[];
+          expect(hutRow[1]).toBeLessThan(hutRow[0]!);
+          await page.getByTestId('variant-change-field').screenshot({ path: join(artifacts, 'variants-desktop-add-to.png') });
+          expect(await seriousAxeViolations(page)).toEqual([]);
         }
         expect(errors).toEqual([]);
       } finally {

@@ -8,7 +8,7 @@
 import { describe, expect, it } from 'vitest';
 import { demoProjects, solveProject, solveProjectVariant } from '../../core/index.ts';
 import { formFor, shownFields, type ChoiceSpec, type FormElement, type GroupSpec } from '../../web/editor/fields.ts';
-import { editedChange, fieldChange, setAtPath } from '../../web/components/variants/edit.ts';
+import { editedChange, fieldChange, setAtPath, variantElement, variantsChanging } from '../../web/components/variants/edit.ts';
 
 const solvedDemo = (id: string) => {
   const s = solveProject(demoProjects.find((d) => d.id === id)!.project);
@@ -87,5 +87,36 @@ describe('a variant that changes a choice', () => {
       expect(m['loss']).toBeUndefined();
       expect(m['efficiencyClass']).toBe('IE3');
     }
+  });
+});
+
+describe('a change added to an option already listed ("Add the change to")', () => {
+  it('made on the element as the option has it: the option keeps its other changes of that element, and core solves both', () => {
+    const s = solvedDemo('hillside-relay-hut');
+    const inverter = elementOf(s, 'inverter');
+    const option = { name: 'Inverter B', set: { inverter: { phases: 3 } } };
+    // The element as the option has it: the plan's with the option's fields set (core's mergeSet).
+    const asOption = variantElement(inverter, option) as FormElement;
+    expect(asOption['phases']).toBe(3);
+    expect(asOption['outputVoltage']).toBe(inverter['outputVoltage']);
+    // A second field changed from there: the set holds both, and only what differs from the plan (common practice (no source)).
+    const both = fieldChange(inverter, 'outputVoltage', 240, asOption);
+    expect(both).toEqual({ phases: 3, outputVoltage: 240 });
+    // The same through a choice edit made on the option's element.
+    expect(editedChange(inverter, (e) => setAtPath(e, 'outputVoltage', 240), asOption)).toEqual(both);
+    // Back to the plan's value: that field leaves the set, the other stays.
+    const asBoth = variantElement(inverter, { name: 'Inverter B', set: { inverter: both } });
+    expect(fieldChange(inverter, 'phases', inverter['phases'], asBoth)).toEqual({ outputVoltage: 240 });
+    const solved = solveProjectVariant(s, { ...option, set: { inverter: both } });
+    if (!solved.ok) throw new Error(JSON.stringify(solved.problems));
+    expect(solved.result.elements.find((e) => e.id === 'inverter')!.output!.voltage).toBeCloseTo(240, 9); // the option's own output voltage, solved by core
+  });
+
+  it('an option that swaps the element whole is not offered for it (a swap and a change of one element are refused)', () => {
+    const s = solvedDemo('hillside-relay-hut');
+    const inverter = s.project.elements.find((e) => e.id === 'inverter')!;
+    const list = [{ name: 'A', set: { fridge: { power: 300 } } }, { name: 'B', swap: [inverter] }, { name: 'C', remove: ['lights'] }];
+    expect(variantsChanging('inverter', list)).toEqual([0, 2]);
+    expect(variantsChanging('fridge', list)).toEqual([0, 1, 2]);
   });
 });

@@ -5,14 +5,17 @@
  * described, such as the loss model), by the form's label; then the new value, a number in the user's
  * units or one of the form's own choices. Stored in the variant's `set` as only the values it changes
  * (edit.ts: `{ conductor: { insulation: "xlpe" } }`, a part described another way whole), so a later edit
- * of the plan's other fields reaches the variant.
+ * of the plan's other fields reaches the variant. "Add the change to" takes a new option (the default) or
+ * one already listed: then the element's fields are shown as that option has them, and the change joins
+ * its other changes (several fields of one inverter — its efficiency, idle draw and rating — make "this
+ * inverter or that one"; an option that swaps the element whole is not offered).
  */
 import { useState } from 'preact/hooks';
 import { elementWords, type Solved } from '../../../core/page.ts';
 import { formFor, shownFields, valueAt, type ChoiceSpec, type FormContext, type FormElement, type GroupSpec, type NumberSpec } from '../../editor/fields.ts';
 import { inputUnit, readNumberField } from '../../format/parse.ts';
 import { effectiveLocale, unitSystem } from '../../state/prefs.ts';
-import { addVariant, draftVariants, editedChange, fieldChange, setAtPath } from './edit.ts';
+import { addVariant, changeInVariant, draftVariants, editedChange, fieldChange, setAtPath, variantElement, variantsChanging } from './edit.ts';
 
 type Status = { kind: 'ok' | 'error'; text: string } | null;
 
@@ -62,7 +65,16 @@ export function ChangeField({ solved, onDone }: { solved: Solved; onDone: (s: St
   const units = unitSystem.value;
   const loc = effectiveLocale();
   const [elementId, setElementId] = useState(project.elements[0]?.id ?? '');
-  const element = project.elements.find((e) => e.id === elementId) as unknown as FormElement | undefined;
+  const planned = project.elements.find((e) => e.id === elementId) as unknown as FormElement | undefined;
+  // Where the change goes: a new option (''), or one already listed that may change this element, by its
+  // name (names are unique in the list, and stay with their option when another is deleted).
+  const list = draftVariants();
+  const open = planned ? variantsChanging(String(planned['id']), list) : [];
+  const [target, setTarget] = useState('');
+  const found = list.findIndex((v) => v.name === target);
+  const into = found >= 0 && open.includes(found) ? found : null;
+  // The element as it is where the change goes: the plan's, or as that option has it.
+  const element = planned && into !== null ? (variantElement(planned, list[into]!) as FormElement) : planned;
   // The fields the element's form shows for it now (a group's chosen way only), as the form labels them.
   const fields = element
     ? shownFields(formFor(String(element['kind']))?.fields ?? [], element).filter((f): f is Changeable => f.type === 'number' || f.type === 'choice' || (f.type === 'group' && f.variants.length > 1))
@@ -76,22 +88,48 @@ export function ChangeField({ solved, onDone }: { solved: Solved; onDone: (s: St
   const choice = choices.find((c) => c.value === picked && !c.planned && !c.disabled) ?? choices.find((c) => !c.planned && !c.disabled);
   const unit = field?.type === 'number' ? inputUnit(field.quantity, units).symbol : '';
   const name = element ? (names.get(String(element['id'])) ?? String(element['id'])) : '';
-  const added = (refused: string | null) => onDone(refused ? { kind: 'error', text: refused } : { kind: 'ok', text: `Added "${draftVariants().at(-1)?.name ?? name}".` });
+  const done = (refused: string | null, text: string) => onDone(refused ? { kind: 'error', text: refused } : { kind: 'ok', text });
   const add = () => {
-    if (!element || !field) return;
-    const id = String(element['id']);
+    if (!planned || !element || !field) return;
+    const id = String(planned['id']);
+    // What the change sets (only what differs from the plan's element, made on the element where it goes)
+    // and the words that name it.
+    let fields: Record<string, unknown>;
+    let words: string;
     if (field.type === 'number') {
       const read = readNumberField(text, { ...field, required: true }, units, loc);
       if (!read.ok) return onDone({ kind: 'error', text: read.message });
-      return added(addVariant({ name: `${name}: ${field.label} ${text.trim()}${unit ? ` ${unit}` : ''}`, set: { [id]: fieldChange(element, field.path, read.value) } }));
+      fields = fieldChange(planned, field.path, read.value, element);
+      words = `${field.label} ${text.trim()}${unit ? ` ${unit}` : ''}`;
+    } else {
+      if (!choice) return;
+      fields = editedChange(planned, choice.apply, element);
+      words = `${field.label} ${choice.label}`;
     }
-    if (!choice) return;
-    added(addVariant({ name: `${name}: ${field.label} ${choice.label}`, set: { [id]: editedChange(element, choice.apply) } }));
+    if (into === null) {
+      const refused = addVariant({ name: `${name}: ${words}`, set: { [id]: fields } });
+      return done(refused, `Added "${draftVariants().at(-1)?.name ?? name}".`);
+    }
+    const option = list[into]!.name;
+    done(changeInVariant(into, id, fields), `Changed "${option}": ${name}, ${words}.`);
   };
   const reset = () => (setKey(''), setText(''), setPicked(null));
   return (
     <fieldset class="variants-quick__change" data-testid="variant-change-field">
       <legend>Change a field</legend>
+      {open.length > 0 && (
+        <div class="variants-field">
+          <label for="variant-change-target">Add the change to</label>
+          <select id="variant-change-target" value={into === null ? '' : list[into]!.name} onChange={(e) => (setTarget((e.currentTarget as HTMLSelectElement).value), reset())} data-testid="variant-change-target">
+            <option value="">A new option</option>
+            {open.map((i) => (
+              <option key={list[i]!.name} value={list[i]!.name}>
+                {list[i]!.name}
+              </option>
+            ))}
+          </select>
+        </div>
+      )}
       <div class="variants-field">
         <label for="variant-change-element">Element</label>
         <select id="variant-change-element" value={elementId} onChange={(e) => (setElementId((e.currentTarget as HTMLSelectElement).value), reset())}>
@@ -124,14 +162,14 @@ export function ChangeField({ solved, onDone }: { solved: Solved; onDone: (s: St
             {choices.map((c) => (
               // The element's own value is no option: it says so and cannot be picked.
               <option key={c.value} value={c.value} disabled={c.planned || c.disabled}>
-                {c.planned ? `${c.label} (as planned)` : c.label}
+                {c.planned ? `${c.label} (${into === null ? 'as planned' : 'as this option has it'})` : c.label}
               </option>
             ))}
           </select>
         </div>
       )}
       <button type="button" class="panel-button" onClick={add} disabled={!field || (field.type === 'number' ? text.trim() === '' : !choice)} data-testid="variant-change-add">
-        Add this option
+        {into === null ? 'Add this option' : 'Add to this option'}
       </button>
     </fieldset>
   );

@@ -5,7 +5,7 @@
  * and it can be undone. Exported and imported with the project: the variants are part of its file.
  */
 import { PROJECT_LEVEL, type ProjectVariant } from '../../../core/page.ts';
-import { changedFields } from '../../../core/studies/index.ts';
+import { changedFields, mergeSet } from '../../../core/studies/index.ts';
 import { draft, setField } from '../../state/editor.ts';
 
 /** The open project's variants (the draft's: what the user edits). */
@@ -58,13 +58,43 @@ export function deleteVariant(index: number): string | null {
   return writeVariants(list.filter((_, i) => i !== index), `Delete variant "${v.name}"`);
 }
 
+/** The element as a variant has it: the plan's element with the variant's fields for it set (core's `mergeSet`). */
+export function variantElement(element: Record<string, unknown>, variant: ProjectVariant): Record<string, unknown> {
+  const fields = variant.set?.[String(element['id'])];
+  return fields ? mergeSet(element, fields as Record<string, unknown>) : element;
+}
+
+/** The variants a change of this element can be added to: those that do not swap it whole (a swap and a change of one element are refused). */
+export function variantsChanging(elementId: string, list: readonly ProjectVariant[]): number[] {
+  return list.flatMap((v, i) => ((v.swap ?? []).some((e) => e.id === elementId) ? [] : [i]));
+}
+
+/**
+ * A change added to an existing variant: its `set` for the element becomes `fields` (what the element as
+ * the variant has it, with the new change made, differs from the plan's by: `fieldChange` or
+ * `editedChange` from the variant's element), so the variant keeps its other changes of that element and
+ * of the others; returns the refusal, or null.
+ */
+export function changeInVariant(index: number, elementId: string, fields: Record<string, unknown>): string | null {
+  const list = draftVariants();
+  const v = list[index];
+  if (!v) return null;
+  const set = { ...(v.set ?? {}) };
+  if (Object.keys(fields).length) set[elementId] = fields;
+  else delete set[elementId];
+  const { set: _old, ...rest } = v;
+  const next: ProjectVariant = Object.keys(set).length ? { ...rest, set } : rest;
+  return writeVariants(list.map((x, i) => (i === index ? next : x)), `Change variant "${v.name}"`);
+}
+
 /**
  * The `set` of a variant that changes one field of one element (a dotted path such as "loss.efficiency"
  * or "standardLoss.points.3"): only that value (`{ loss: { efficiency: 0.96 } }`; a list whole), so a
  * later edit of the element's other fields in the plan reaches the variant (core's `changedFields`).
+ * `from`: the element as a variant has it, when the change joins that variant's (`variantElement`).
  */
-export function fieldChange(element: Record<string, unknown>, path: string, value: unknown): Record<string, unknown> {
-  const copy = structuredClone(element);
+export function fieldChange(element: Record<string, unknown>, path: string, value: unknown, from: Record<string, unknown> = element): Record<string, unknown> {
+  const copy = structuredClone(from);
   setAtPath(copy, path, value);
   return changedFields(element, copy);
 }
@@ -74,10 +104,10 @@ export function fieldChange(element: Record<string, unknown>, path: string, valu
  * follow it, or another way of describing a part of it applied): each field the edit changed, at any
  * depth, set to its new value, each it took out set to null (the element's default applies); a part
  * described another way (another loss model, the other conductor table) is set whole (core's
- * `changedFields`).
+ * `changedFields`). `from` as in `fieldChange`.
  */
-export function editedChange(element: Record<string, unknown>, edit: (copy: Record<string, unknown>) => void): Record<string, unknown> {
-  const copy = structuredClone(element);
+export function editedChange(element: Record<string, unknown>, edit: (copy: Record<string, unknown>) => void, from: Record<string, unknown> = element): Record<string, unknown> {
+  const copy = structuredClone(from);
   edit(copy);
   return changedFields(element, copy);
 }
