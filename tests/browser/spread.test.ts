@@ -123,7 +123,7 @@ describe.skipIf(skipWithout('chromium'))('the runtime spread panel in Chromium',
         await expect.poll(() => page.getByTestId('spread-sensitivity').locator('li').first().getAttribute('data-input')).toBe(core.value.sensitivity[0]!.input);
         expect(await page.getByTestId('spread-histogram').locator('svg rect').count()).toBe(core.value.histogram.length);
         // The bank's histogram, and the yearly cost of the losses as the runtime: row, histogram, ranking (core's own).
-        expect(await page.getByTestId('spread-bank-histogram').locator('svg rect').count()).toBe(core.value.bankHistogram!.length);
+        expect(await page.getByTestId('spread-bank-histogram').locator('svg rect').count()).toBe(core.value.requiredHistogram!.length);
         const shownCost = Number(await page.getByTestId('spread-cost-p50').getAttribute('data-value'));
         expect(Math.abs(shownCost - costP50) / costP50).toBeLessThan(1e-9);
         expect(await page.getByTestId('spread-cost-histogram').locator('svg rect').count()).toBe(core.value.costHistogram!.length);

@@ -48,6 +48,8 @@ export interface SampleFigures {
   lowerBound: boolean;
   /** The bank for the target runtime (all strings), Ah; null without a target. */
   bankAh: number | null;
+  /** The capacity the target needs before it is rounded to whole strings (the sizing's required capacity), Ah; null without a target. */
+  requiredAh: number | null;
   /** Yearly cost of the losses at the solved operating point; null without a price. */
   costPerYear: number | null;
 }
@@ -59,6 +61,7 @@ export interface SpreadChunk {
   runtimeH: number[];
   lowerBound: boolean[];
   bankAh: (number | null)[];
+  requiredAh: (number | null)[];
   costPerYear: (number | null)[];
   /** Samples the solve or the study refused, with the first reason. */
   failures: { index: number; message: string }[];
@@ -87,8 +90,10 @@ export interface SpreadResult {
   /** Samples whose runtime is a lower bound (the run reached the horizon). */
   lowerBoundCount: number;
   bankAh: Percentiles | null;
-  /** The bank for the target in equal bins (Rice rule), Ah; null without a target. */
-  bankHistogram: HistogramBin[] | null;
+  /** The capacity the target needs before rounding to whole strings, Ah (the bank moves in whole strings, this does not); null without a target. */
+  requiredAh: Percentiles | null;
+  /** That capacity in equal bins (Rice rule), Ah; null without a target. */
+  requiredHistogram: HistogramBin[] | null;
   costPerYear: Percentiles | null;
   /** The yearly cost of the losses in equal bins (Rice rule); null without a price. */
   costHistogram: HistogramBin[] | null;
@@ -133,7 +138,7 @@ function runDraw(solved: Solved, plan: Pick<SpreadPlan, 'tolerances' | 'cost' | 
   }
   return {
     ok: true,
-    value: { runtimeH: dis.runtimeSeconds / 3600, lowerBound: dis.runtimeIsLowerBound, bankAh: study.study.sizing?.bankCapacity ?? null, costPerYear },
+    value: { runtimeH: dis.runtimeSeconds / 3600, lowerBound: dis.runtimeIsLowerBound, bankAh: study.study.sizing?.bankCapacity ?? null, requiredAh: study.study.sizing?.requiredCapacity ?? null, costPerYear },
   };
 }
 
@@ -166,18 +171,20 @@ export function spreadPlan(solved: Solved, opts: SpreadOptions = {}): Outcome<Sp
 export function spreadRun(solved: Solved, plan: SpreadPlan, range: { from: number; count: number }): SpreadChunk {
   const from = Math.max(0, Math.floor(range.from));
   const count = Math.max(0, Math.min(Math.floor(range.count), plan.samples - from));
-  const chunk: SpreadChunk = { from, count, runtimeH: [], lowerBound: [], bankAh: [], costPerYear: [], failures: [] };
+  const chunk: SpreadChunk = { from, count, runtimeH: [], lowerBound: [], bankAh: [], requiredAh: [], costPerYear: [], failures: [] };
   drawSamples(plan.seed, from, count).forEach((d, i) => {
     const r = runDraw(solved, plan, d);
     if (r.ok) {
       chunk.runtimeH.push(r.value.runtimeH);
       chunk.lowerBound.push(r.value.lowerBound);
       chunk.bankAh.push(r.value.bankAh);
+      chunk.requiredAh.push(r.value.requiredAh);
       chunk.costPerYear.push(r.value.costPerYear);
     } else {
       chunk.runtimeH.push(NaN);
       chunk.lowerBound.push(false);
       chunk.bankAh.push(null);
+      chunk.requiredAh.push(null);
       chunk.costPerYear.push(null);
       chunk.failures.push({ index: from + i, message: r.problems[0] ? formatProblem(r.problems[0], solved.project) : 'refused' });
     }
@@ -220,6 +227,7 @@ export function spreadSummary(plan: SpreadPlan, chunks: readonly SpreadChunk[], 
   const nums = (xs: (number | null)[]) => xs.filter((x): x is number => x !== null);
   const failures = ordered.flatMap((c) => c.failures);
   const bank = nums(ordered.flatMap((c) => c.bankAh));
+  const required = nums(ordered.flatMap((c) => c.requiredAh));
   const cost = nums(ordered.flatMap((c) => c.costPerYear));
   return {
     samples: runtime.length,
@@ -232,7 +240,8 @@ export function spreadSummary(plan: SpreadPlan, chunks: readonly SpreadChunk[], 
     histogram: histogram(runtime),
     lowerBoundCount: ordered.reduce((n, c) => n + c.lowerBound.filter(Boolean).length, 0),
     bankAh: percentiles(bank),
-    bankHistogram: plan.targetHours !== undefined ? histogram(bank) : null,
+    requiredAh: plan.targetHours !== undefined ? percentiles(required) : null,
+    requiredHistogram: plan.targetHours !== undefined ? histogram(required) : null,
     costPerYear: plan.cost ? percentiles(cost) : null,
     costHistogram: plan.cost ? histogram(cost) : null,
     sensitivity,

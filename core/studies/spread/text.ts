@@ -56,11 +56,14 @@ export function formatSpread(s: SpreadResult): string {
   lines.push(`  Single run (the project as given): ${s.single.lowerBound ? 'longer than ' : ''}${h(s.single.runtimeH)}`);
   lines.push(`  Runtime: ${triple(s.runtimeH, h)}${s.runtimeH ? ` (from ${h(s.runtimeH.min)} to ${h(s.runtimeH.max)})` : ''}`);
   if (s.lowerBoundCount) lines.push(`    ${s.lowerBoundCount} samples reached the end of the study: their runtime is longer than shown.`);
-  if (s.targetHours !== undefined) lines.push(`  Bank for the target runtime of ${h(s.targetHours)}: ${triple(s.bankAh, ah)}`);
+  if (s.targetHours !== undefined) {
+    lines.push(`  Bank for the target runtime of ${h(s.targetHours)} (whole strings): ${triple(s.bankAh, ah)}`);
+    lines.push(`  Capacity the target needs, before rounding to whole strings: ${triple(s.requiredAh, ah)}`);
+  }
   if (s.costPerYear) lines.push(`  Yearly cost of the losses: ${triple(s.costPerYear, money)}`);
   else lines.push('  Yearly cost of the losses: no energy price per kWh in the project\'s running settings, so no cost figures, histogram or ranking.');
   lines.push(...histogramLines('Runtime histogram', s.histogram, 'h', 3));
-  if (s.bankHistogram && s.bankHistogram.length > 0) lines.push(...histogramLines('Bank for the target histogram (whole strings, so it moves in steps)', s.bankHistogram, 'Ah', 4));
+  if (s.requiredHistogram && s.requiredHistogram.length > 0) lines.push(...histogramLines('Capacity the target needs histogram (before rounding to whole strings)', s.requiredHistogram, 'Ah', 4));
   if (s.costHistogram && s.costHistogram.length > 0) lines.push(...histogramLines('Yearly cost of the losses histogram (in the price\'s currency)', s.costHistogram, '', 4));
   lines.push(`  Which input moves the runtime most (${s.sensitivityMethod}):`);
   lines.push(...swingLines(s.sensitivity, (f) => f.runtimeH, (w) => w.runtimeSwingH, h));

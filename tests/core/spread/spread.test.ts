@@ -104,6 +104,7 @@ describe('runtime spread: the study', () => {
     // The same study on the same project (no source needed: identity).
     expect(r.value.runtimeH).toMatchObject({ p10: t, p50: t, p90: t, min: t, max: t, count: 20 });
     expect(r.value.bankAh!.p50).toBe(single.study.sizing!.bankCapacity);
+    expect(r.value.requiredAh!.p50).toBe(single.study.sizing!.requiredCapacity);
     const c = lossCostPerYear(solved.result, cost);
     expect(c.ok && r.value.costPerYear!.p50).toBe(c.ok ? c.cost.totalCost : NaN);
     expect(r.value.sensitivity).toEqual([]);
@@ -129,6 +130,7 @@ describe('runtime spread: the study', () => {
         expect(chunk.runtimeH[i]).toBe(full.study.discharge.runtimeSeconds / 3600);
         expect(chunk.lowerBound[i]).toBe(full.study.discharge.runtimeIsLowerBound);
         expect(chunk.bankAh[i]).toBe(full.study.sizing!.bankCapacity);
+        expect(chunk.requiredAh[i]).toBe(full.study.sizing!.requiredCapacity);
         if (full.study.discharge.runtimeSeconds < 24 * 3600) shortOfTarget++;
       });
     }
@@ -136,7 +138,7 @@ describe('runtime spread: the study', () => {
     expect(shortOfTarget).toBeGreaterThan(0);
   });
 
-  it('P50 of the runtime, the bank for the target and the yearly cost agree within 1 % between two seeds at 2000 samples', () => {
+  it('P50 of the runtime, the bank for the target, the capacity it needs and the yearly cost agree within 1 % between two seeds at 2000 samples', () => {
     // Convergence of the estimator, issue 20's criterion; common practice (no source).
     const solved = solvedOf(smallBankCase());
     const p50 = (seed: number) => {
@@ -145,16 +147,18 @@ describe('runtime spread: the study', () => {
       expect(r.value.failed).toBe(0);
       expect(r.value.bankAh!.count).toBe(2000);
       expect(r.value.costPerYear!.count).toBe(2000);
-      return { runtime: r.value.runtimeH!.p50, bank: r.value.bankAh!.p50, cost: r.value.costPerYear!.p50 };
+      expect(r.value.requiredAh!.count).toBe(2000);
+      return { runtime: r.value.runtimeH!.p50, bank: r.value.bankAh!.p50, required: r.value.requiredAh!.p50, cost: r.value.costPerYear!.p50 };
     };
     const a = p50(1);
     const b = p50(2);
     expect(Math.abs(a.runtime - b.runtime) / a.runtime).toBeLessThan(0.01);
     expect(Math.abs(a.bank - b.bank) / a.bank).toBeLessThan(0.01);
+    expect(Math.abs(a.required - b.required) / a.required).toBeLessThan(0.01);
     expect(Math.abs(a.cost - b.cost) / a.cost).toBeLessThan(0.01);
   }, 120_000);
 
-  it('the histograms of the runtime, the bank and the yearly cost count every sample once (Rice rule)', () => {
+  it('the histograms of the runtime, the capacity the target needs and the yearly cost count every sample once (Rice rule)', () => {
     // Counting identity (no source needed); the bin count by the Rice rule ⌈2·n^(1/3)⌉ = 8 for n = 60
     // (common practice (no source)).
     const solved = solvedOf(smallBankCase());
@@ -164,7 +168,7 @@ describe('runtime spread: the study', () => {
     expect(s.failed).toBe(0);
     for (const [bins, p] of [
       [s.histogram, s.runtimeH],
-      [s.bankHistogram!, s.bankAh],
+      [s.requiredHistogram!, s.requiredAh],
       [s.costHistogram!, s.costPerYear],
     ] as const) {
       expect(bins).toHaveLength(8);
@@ -176,12 +180,13 @@ describe('runtime spread: the study', () => {
     const free = runSpread(solved, { settings: { samples: 10 }, cost: null });
     if (!free.ok) throw new Error('refused');
     expect(free.value).toMatchObject({ costPerYear: null, costHistogram: null, costSensitivity: null });
-    expect(free.value.bankHistogram).not.toBeNull();
+    expect(free.value.requiredHistogram).not.toBeNull();
     const noTarget = smallBankCase();
     delete (noTarget.backup as { targetRuntimeHours?: number }).targetRuntimeHours;
     const nt = runSpread(solvedOf(noTarget), { settings: { samples: 10 }, cost: null });
     if (!nt.ok) throw new Error('refused');
-    expect(nt.value.bankHistogram).toBeNull();
+    expect(nt.value.requiredHistogram).toBeNull();
+    expect(nt.value.requiredAh).toBeNull();
   });
 
   it('each ranking is the swings sorted by |high − low| of its own figure', () => {
@@ -323,7 +328,8 @@ describe('runtime spread: the study', () => {
     // The cost's histogram and ranking are printed with a price; the caution names the safe end of each row.
     expect(text).toContain('Yearly cost of the losses histogram');
     expect(text).toContain('Which input moves the yearly cost of the losses most');
-    expect(text).toContain('Bank for the target histogram');
+    expect(text).toContain('Capacity the target needs, before rounding to whole strings:');
+    expect(text).toContain('Capacity the target needs histogram (before rounding to whole strings)');
     expect(text).toContain("from the runtime's P10");
     expect(text).toContain("the bank row's P90");
     expect(text).toContain('Converter efficiency: ± 1 point\n');

@@ -206,13 +206,14 @@ export default function SpreadPanel() {
               </thead>
               <tbody>
                 <Triple label="Runtime" p={result.runtimeH} format={h} testId="spread-runtime" />
-                {result.targetHours !== undefined && <Triple label={`Bank for ${h(result.targetHours)}`} p={result.bankAh} format={ah} testId="spread-bank" />}
+                {result.targetHours !== undefined && <Triple label={`Bank for ${h(result.targetHours)} (whole strings)`} p={result.bankAh} format={ah} testId="spread-bank" />}
+                {result.targetHours !== undefined && <Triple label={`Capacity ${h(result.targetHours)} needs (before whole strings)`} p={result.requiredAh} format={ah} testId="spread-required" />}
                 {result.costPerYear && <Triple label="Yearly cost of the losses" p={result.costPerYear} format={money} testId="spread-cost" />}
               </tbody>
             </table>
           </div>
           <p class="note">
-            Runtime: P10, one sample in ten runs shorter; P90, one in ten runs longer.{result.targetHours !== undefined ? ' Bank: P90, one sample in ten needs a bigger bank.' : ''}{result.costPerYear ? ' Cost: P90, one sample in ten costs more a year.' : ''}
+            Runtime: P10, one sample in ten runs shorter; P90, one in ten runs longer.{result.targetHours !== undefined ? ' Bank and capacity needed: P90, one sample in ten needs more.' : ''}{result.costPerYear ? ' Cost: P90, one sample in ten costs more a year.' : ''}
           </p>
           {!result.costPerYear && (
             <p class="note" data-testid="spread-no-cost">
@@ -231,11 +232,11 @@ export default function SpreadPanel() {
               <Histogram bins={result.histogram} p={result.runtimeH} format={h} name="Runtime" testId="spread-histogram" />
             </>
           )}
-          {result.targetHours !== undefined && result.bankAh && result.bankHistogram && (
+          {result.targetHours !== undefined && result.requiredAh && result.requiredHistogram && (
             <>
-              <h4>How the bank for {h(result.targetHours)} spreads</h4>
-              <Histogram bins={result.bankHistogram} p={result.bankAh} format={ah} name="Bank" testId="spread-bank-histogram" />
-              <p class="note">The battery study's bank for the target is whole strings (each string the bank's capacity in that sample, or a standard rating when the study lists them), so it moves in steps: within a step the spread is mostly the capacity tolerance, and a sample that needs a string fewer or more stands apart.</p>
+              <h4>How the capacity {h(result.targetHours)} needs spreads</h4>
+              <Histogram bins={result.requiredHistogram} p={result.requiredAh} format={ah} name="Capacity needed" testId="spread-bank-histogram" />
+              <p class="note">The capacity the battery study works out for the target, before it is rounded up to whole strings (each string the bank's capacity in that sample, or a standard rating when the study lists them): the bank row above is that rounding, so it moves in steps.</p>
             </>
           )}
           {result.sensitivity.length > 0 && (
