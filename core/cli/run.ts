@@ -15,7 +15,8 @@ import { correctPowerFactor, type PfCorrection } from '../studies/pf/correction.
 import { formatPfCorrection, pfCorrectionJson } from '../studies/pf/text-report.ts';
 import { hasPumpSections, machineSections } from './machines-flags.ts';
 import { formatSurgeStudy, hasSurgeInputs, studySurges, type SurgeStudyResult } from '../studies/surge/index.ts';
-import { costSettingsOf, formatLossCost, lossCostPerYear, pumpDutyCosts, withProfilePrice, type LossCost, type MethodCosts } from '../studies/economics.ts';
+import { costSettingsOf, formatLossCost, pumpDutyCosts, type LossCost, type MethodCosts } from '../studies/economics.ts';
+import { lossCostOfSolved } from '../studies/loss-over-profile.ts';
 import { runModesStudy, type ModesStudyResult } from '../studies/modes/study.ts';
 import { formatModesStudy } from '../studies/modes/text-report.ts';
 import { solveModes } from '../solve/modes.ts';
@@ -107,8 +108,9 @@ export function runParsed(file: string, data: unknown, req: SolveRequest, flowDa
   let pumpDutyCost: MethodCosts | undefined;
   const cost = costSettingsOf(outcome.project);
   if (cost) {
-    // The load profile's day prices the losses when the project splits the day and night prices by it (as the cost over the years).
-    const c = lossCostPerYear(outcome.result, withProfilePrice(outcome, cost));
+    // The load profile's day prices the losses when the project splits the day and night prices by it, or
+    // works the losses out over it (as the cost over the years: core/studies/loss-over-profile.ts).
+    const c = lossCostOfSolved(outcome, cost);
     if (!c.ok) return refused(file, 'the yearly cost of the losses cannot be worked out:', c.problems, projectName, data);
     lossCost = c.cost;
     const duty = machines?.ok ? machines.json.pumpDuty : undefined;

@@ -33,6 +33,7 @@ export const PROJECT_FIELD_LABELS: Readonly<Record<string, string>> = {
   "running.dayStartHour": "Day price from (hour)",
   "running.dayEndHour": "Day price until (hour)",
   "running.dayHoursFromProfile": "Split the day and night hours as the load profile uses them",
+  "running.lossesFromProfile": "Work out the losses over the load profile's day",
   "running.years": "Years of service",
   "running.discountRate": "Discount rate per year (%)",
   "running.gridCo2KgPerKWh": "Grid CO₂ per kWh (kg)",

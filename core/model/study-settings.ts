@@ -140,6 +140,12 @@ export interface RunningCost {
    * the profile's day uses it (core/model/tariff.ts `profileDayHours`), not evenly over the day.
    */
   dayHoursFromProfile?: boolean;
+  /**
+   * Work out the losses over the backup study's load profile: each load state of its day solved through
+   * the chain and its losses counted for the time it lasts (core/studies/loss-over-profile.ts), not the
+   * operating point as drawn held all the hours.
+   */
+  lossesFromProfile?: boolean;
   /** Years of service the lifetime cost counts, 1…100. Without it no lifetime cost is worked out. */
   years?: number;
   /** Discount rate per year, a fraction (0.05 = 5 %), 0…1 (default 0: money keeps its value). */

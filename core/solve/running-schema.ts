@@ -51,6 +51,7 @@ export const lifetimeSchemaShape = {
   dayStartHour: z.optional(hourOfDay('an hour of the day, 0 to 24')),
   dayEndHour: z.optional(hourOfDay('an hour of the day, 0 to 24')),
   dayHoursFromProfile: z.optional(z.boolean({ error: 'must be true or false' })),
+  lossesFromProfile: z.optional(z.boolean({ error: 'must be true or false' })),
   years: z.optional(num().check(z.int('must be a whole number of years'), z.gte(1, 'must be at least 1 year'), z.lte(MAX_SERVICE_YEARS, 'must not exceed 100 years'))),
   discountRate: z.optional(num().check(z.gte(0, 'must not be negative (0 % keeps money at its value)'), z.lte(1, 'must not exceed 100 %'))),
   gridCo2KgPerKWh: z.optional(num().check(z.gte(0, 'must not be negative'), z.lte(10, 'must not exceed 10 kg/kWh (grids emit about 0 to 1.2)'))),

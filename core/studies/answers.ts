@@ -22,7 +22,8 @@ import type { Problem } from '../model/errors.ts';
 import type { Solved } from '../solve/solved.ts';
 import { solveAnswers } from '../solve/answers.ts';
 import { runBackupStudy, type BackupStudyResult } from './backup/study.ts';
-import { lossCostPerYear, withProfilePrice, type CostSettings, type LossCost } from './economics.ts';
+import type { CostSettings, LossCost } from './economics.ts';
+import { lossCostOfSolved } from './loss-over-profile.ts';
 import { studySurges } from './surge/index.ts';
 import type { MotorStartResult, StartVerdict } from './surge/types.ts';
 
@@ -144,7 +145,7 @@ export function answerStudies(solved: Solved, cost: CostSettings | null): StudyA
   }
   let lossCost: LossCost | null = null;
   if (cost) {
-    const o = lossCostPerYear(result, withProfilePrice(solved, cost));
+    const o = lossCostOfSolved(solved, cost);
     if (o.ok) lossCost = o.cost;
     else out.cost = { ok: false, reason: o.problems.map((p) => p.message).join('; '), panel: 'machines' };
   }

@@ -37,6 +37,8 @@ export interface CostSettings {
   hoursPerYear: number;
   /** Set when the price is the day and night prices' mean weighted by the load profile's day (`withProfilePrice`): the share of its energy used while the day price runs. */
   profileDayShare?: number;
+  /** The project's day/night tariff the price is the mean of (`costSettingsOf`, with a night price): the losses worked out over the load profile pay each stretch at its hours' price. */
+  tariff?: { dayPricePerKWh: number; nightPricePerKWh: number; dayStartHour: number; dayEndHour: number };
 }
 
 export interface LossCostRow {
@@ -51,9 +53,22 @@ export interface LossCostRow {
   cost: number;
 }
 
+/** How the losses were worked out over the backup study's load profile (core/studies/loss-over-profile.ts). */
+export interface LossOverProfile {
+  /** Load states of the day, each solved through the chain. */
+  states: number;
+  /** Hours of the day the profile covers (24 unless a one-run profile ends sooner). */
+  hoursCovered: number;
+  /** The method in words (named in the working). */
+  method: string;
+}
+
 export interface LossCost {
+  /** The price the losses pay: the one in force, or over the profile the mean Σ cost ÷ Σ E. */
   pricePerKWh: number;
   hoursPerYear: number;
+  /** Set when the losses were worked out over the load profile's day (`lossCostOfSolved`): each row's `lossW` is then its mean over the day. */
+  overProfile?: LossOverProfile;
   /** Set when the price is weighted by the load profile's day (CostSettings.profileDayShare): the share of its energy in the day-price hours. */
   profileDayShare?: number;
   /** One row per source or stage that loses power, in the result's order. */
@@ -76,7 +91,11 @@ export function costSettingsOf(project: Pick<Project, 'running'>): CostSettings 
   if (r?.energyPricePerKWh === undefined) return null;
   // With a night price the losses are priced at the day's mean (meanPrice), the hours spread evenly over the
   // day; a solved chain whose project splits them by its load profile takes `withProfilePrice`.
-  return { pricePerKWh: priceOfRunning({ ...r, energyPricePerKWh: r.energyPricePerKWh }), hoursPerYear: r.hoursPerYear ?? HOURS_IN_YEAR };
+  const pricePerKWh = priceOfRunning({ ...r, energyPricePerKWh: r.energyPricePerKWh });
+  const hoursPerYear = r.hoursPerYear ?? HOURS_IN_YEAR;
+  if (r.nightPricePerKWh === undefined) return { pricePerKWh, hoursPerYear };
+  const tariff = { dayPricePerKWh: r.energyPricePerKWh, nightPricePerKWh: r.nightPricePerKWh, dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR, dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR };
+  return { pricePerKWh, hoursPerYear, tariff };
 }
 
 /** A day/night tariff as the cost of the losses prices it (the project's `running`, lifetime.ts `LifetimeSettings`). */
@@ -220,12 +239,16 @@ export function pumpDutyCosts(energies: MethodEnergies, pricePerKWh: number): { 
 /** The yearly cost of the losses as plain text (the command line; money without a currency symbol, the file holds none). */
 export function formatLossCost(c: LossCost): string {
   const money = (v: number) => (Math.abs(v) >= 1000 ? Math.round(v).toLocaleString('en-US') : v.toFixed(2));
+  const over = c.overProfile;
   const lines = [
-    `What the losses cost per year (E = loss × ${sigText(c.hoursPerYear, 5)} h, at ${sigText(c.pricePerKWh, 4)} per kWh${c.profileDayShare !== undefined ? `, the day and night prices' mean as the load profile's day uses them (${sigText(c.profileDayShare * 100, 3)} % of its energy in the day-price hours)` : ''}; the operating point held all those hours):`,
+    over
+      ? `What the losses cost per year (${over.method}; ${over.states} load ${over.states === 1 ? 'state' : 'states'} over ${sigText(over.hoursCovered, 3)} h of the day, h = ${sigText(c.hoursPerYear, 5)} h a year; on average ${sigText(c.pricePerKWh, 4)} per kWh):`
+      : `What the losses cost per year (E = loss × ${sigText(c.hoursPerYear, 5)} h, at ${sigText(c.pricePerKWh, 4)} per kWh${c.profileDayShare !== undefined ? `, the day and night prices' mean as the load profile's day uses them (${sigText(c.profileDayShare * 100, 3)} % of its energy in the day-price hours)` : ''}; the operating point held all those hours):`,
   ];
   const width = Math.max(5, ...c.rows.map((r) => r.name.length));
-  lines.push(`  ${'Where'.padEnd(width)}  ${'Loss W'.padStart(10)}  ${'kWh/year'.padStart(10)}  ${'Cost/year'.padStart(10)}`);
-  for (const r of c.rows) lines.push(`  ${r.name.padEnd(width)}  ${sigText(r.lossW, 4).padStart(10)}  ${sigText(r.energyKWh, 4).padStart(10)}  ${money(r.cost).padStart(10)}`);
-  lines.push(`  ${'All losses'.padEnd(width)}  ${sigText(c.totalLossW, 4).padStart(10)}  ${sigText(c.totalEnergyKWh, 4).padStart(10)}  ${money(c.totalCost).padStart(10)}`);
+  const lossWidth = over ? 11 : 10;
+  lines.push(`  ${'Where'.padEnd(width)}  ${(over ? 'Mean loss W' : 'Loss W').padStart(lossWidth)}  ${'kWh/year'.padStart(10)}  ${'Cost/year'.padStart(10)}`);
+  for (const r of c.rows) lines.push(`  ${r.name.padEnd(width)}  ${sigText(r.lossW, 4).padStart(lossWidth)}  ${sigText(r.energyKWh, 4).padStart(10)}  ${money(r.cost).padStart(10)}`);
+  lines.push(`  ${'All losses'.padEnd(width)}  ${sigText(c.totalLossW, 4).padStart(lossWidth)}  ${sigText(c.totalEnergyKWh, 4).padStart(10)}  ${money(c.totalCost).padStart(10)}`);
   return lines.join('\n');
 }

@@ -24,6 +24,7 @@ export { curveFromPoints, dutyCurves, dutyFlowAtSpeed, dutySpeedAtFlow, type Cur
 export { DEFAULT_TARGET_POWER_FACTOR, pfCorrectionCandidates } from './pf/placement.ts';
 export { correctPowerFactor, type PfCorrection } from './pf/correction.ts';
 export { lossCostPerYear, pumpDutyCosts, type CostSettings, type LossCost, type MethodCosts } from './economics.ts';
+export { lossCostOfSolved, lossCostOverProfile, LOSS_OVER_PROFILE_METHOD } from './loss-over-profile.ts';
 export { withProfilePrice } from './economics.ts';
 export { lifetimeCost, lifetimeSettingsOf, compareLifetime, compareSolved, breakEven, typicalFuelFigures, TYPICAL_FUEL_NOTE, type LifetimeCost, type LifetimeOutcome, type LifetimeSettings, type BreakEven, type CostStream } from './lifetime.ts';
 export { searchOptions, listedSizes, SEARCH_CAUTION, type SearchResult, type SearchOutcome, type EvaluatedOption, type MetOption, type RejectedGroup } from './search/index.ts';

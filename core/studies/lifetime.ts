@@ -33,6 +33,7 @@ import { sigText } from '../model/message.ts';
 import { elementWords } from '../model/field-labels.ts';
 import { HOURS_IN_YEAR, MAX_HOURS_PER_YEAR } from '../solve/running-schema.ts';
 import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, lossCostPerYear, meanPrice, tariffPrice, type LossCost } from './economics.ts';
+import { lossCostOverProfile } from './loss-over-profile.ts';
 import { breakEven, netPresentValue, type BreakEven, type CostStream } from './lifetime-money.ts';
 import { generatorFuelPerYear, type FuelRun, type GeneratorYear, type RechargeRun } from './lifetime-fuel.ts';
 
@@ -175,8 +176,11 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
   if (problems.length) return { ok: false, problems };
   // The mean price, the profile's split when asked for: the same function as the yearly cost of the losses (economics.ts).
   const { pricePerKWh, dayHours, split } = tariffPrice(solved, s);
-  const lc = lossCostPerYear(solved.result, { pricePerKWh, hoursPerYear: s.hoursPerYear });
+  // Over the load profile's day when the project asks (loss-over-profile.ts): each stretch at its hours' price.
+  const tariff = s.nightPricePerKWh !== undefined ? { tariff: { dayPricePerKWh: s.dayPricePerKWh, nightPricePerKWh: s.nightPricePerKWh, dayStartHour: s.dayStartHour, dayEndHour: s.dayEndHour } } : {};
+  const lc = lossCostOverProfile(solved, { pricePerKWh, hoursPerYear: s.hoursPerYear, ...tariff }) ?? lossCostPerYear(solved.result, { pricePerKWh, hoursPerYear: s.hoursPerYear });
   if (!lc.ok) return lc;
+  const over = lc.cost.overProfile;
   // Elements named as messages name them: their name, or the kind's label and place ("Utility supply #1").
   const { names } = elementWords(solved.project);
   const priced: { id: string; name: string; price: number }[] = [];
@@ -188,20 +192,22 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
   }
   const purchase = priced.reduce((sum, p) => sum + p.price, 0);
   const notes = [
-    split
+    over
+      ? `the losses worked out over the load profile's day (${over.states} load ${over.states === 1 ? 'state' : 'states'}, each solved through the chain; ${over.method}): they pay ${sigText(lc.cost.pricePerKWh, 4)} per kWh on average`
+      : split
       ? `mean price ${sigText(pricePerKWh, 4)} per kWh: the load profile's day uses ${sigText(split.dayShare * 100, 3)} % of its energy while the day price runs (${sigText(s.dayStartHour, 3)} to ${sigText(s.dayEndHour, 3)} h), so the day price counts for ${sigText(dayHours, 3)} h of 24 (the mean weighted by the profile's energy)`
       : s.nightPricePerKWh !== undefined
       ? `mean price ${sigText(pricePerKWh, 4)} per kWh: the day price for ${sigText(dayHours, 3)} h, the night price for ${sigText(24 - dayHours, 3)} h, the ${sigText(s.hoursPerYear, 5)} h a year spread evenly over the day`
       : `one price, ${sigText(pricePerKWh, 4)} per kWh, for the ${sigText(s.hoursPerYear, 5)} h a year at this load`,
   ];
   // The hours are at the solved operating point: a load profile or pump duty in the project is not read here (its own study prices it).
-  if (s.dayHoursFromProfile && s.nightPricePerKWh !== undefined && !split) {
+  if (!over && s.dayHoursFromProfile && s.nightPricePerKWh !== undefined && !split) {
     notes.push('the day and night hours are spread evenly: the project has no load profile that uses energy (the battery backup study\'s day)');
   }
   const dutyHours = dutyHoursPerYear(solved.project);
   if (dutyHours !== null && Math.abs(dutyHours - s.hoursPerYear) <= 1e-9 * dutyHours) {
     notes.push(`the ${sigText(dutyHours, 5)} h a year are the pump duty's; it says how long at each flow, not when in the day, so they are spread evenly over the day`);
-  } else if (split === null && (solved.project.backup !== undefined || solved.project.pumpDuty !== undefined)) {
+  } else if (!over && split === null && (solved.project.backup !== undefined || solved.project.pumpDuty !== undefined)) {
     notes.push(`the losses are those of the solved operating point for ${sigText(s.hoursPerYear, 5)} h a year; the project's ${solved.project.pumpDuty !== undefined ? 'pump duty' : 'load profile'} is not read here`);
   }
   let generator: GeneratorYear | undefined;
@@ -239,9 +245,10 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
   return {
     ok: true,
     cost: {
-      pricePerKWh,
+      // Over the profile: the mean the losses pay (Σ cost ÷ Σ E), each stretch at its hours' price.
+      pricePerKWh: over ? lc.cost.pricePerKWh : pricePerKWh,
       dayHours,
-      dayHoursFrom: split ? 'load profile' : 'tariff hours',
+      dayHoursFrom: split || over ? 'load profile' : 'tariff hours',
       hoursPerYear: s.hoursPerYear,
       years: s.years,
       discountRate: s.discountRate,

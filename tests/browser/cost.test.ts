@@ -14,6 +14,8 @@ import { skipWithout } from '../tools/system-tools.ts';
 import { VIEWPORTS, artifacts, openDemo, seriousAxeViolations, serveBuiltApp, type ServedApp } from './harness.ts';
 import { demoProjects, solveProject } from '../../core/index.ts';
 import { lifetimeCost, typicalFuelFigures } from '../../core/studies/lifetime.ts';
+import { lossCostOfSolved } from '../../core/studies/loss-over-profile.ts';
+import { costSettingsOf } from '../../core/studies/economics.ts';
 import { lifetimeRows, rowText } from '../../web/components/cost/lifetime-rows.ts';
 import { formatMoney } from '../../web/format/panels.ts';
 
@@ -93,6 +95,41 @@ describe.skipIf(skipWithout('chromium'))('the cost over the years in Chromium', 
       await expect.poll(() => section.getByTestId('lifetime-table').textContent()).toContain("energy-weighted mean price: the load profile's day uses the day price for");
       expect(await seriousAxeViolations(page, '\'[data-testid="lifetime-cost"]\'')).toEqual([]);
       await section.getByTestId('lifetime-duty').screenshot({ path: join(artifacts, 'cost-profile-split.png') });
+      expect(errors).toEqual([]);
+    } finally {
+      await context.close();
+    }
+  }, 300_000);
+
+  it('desktop: the losses worked out over the hillside’s load profile; the yearly cost and the lifetime cost are core’s', async () => {
+    const { context, page, errors } = await openDemo(browser!, VIEWPORTS.desktop, 'hillside-relay-hut', { baseUrl });
+    try {
+      const section = await openSection(page);
+      await page.getByTestId('cost-price').fill('0.30');
+      await section.getByTestId('lifetime-night-price').fill('0.10');
+      await section.getByTestId('lifetime-years').fill('10');
+      // Before: the operating point as drawn held all year (core's lossCostPerYear at the mean price).
+      const before = plain(await page.getByTestId('loss-cost-total').textContent());
+      await section.getByTestId('lifetime-losses-profile').check();
+      const p = demoCopy('hillside-relay-hut');
+      p['running'] = { hoursPerYear: 8760, energyPricePerKWh: 0.3, nightPricePerKWh: 0.1, years: 10, lossesFromProfile: true };
+      const s = solveProject(p);
+      if (!s.ok) throw new Error(JSON.stringify(s.problems));
+      const yearly = lossCostOfSolved(s, costSettingsOf(s.project)!);
+      if (!yearly.ok) throw new Error(JSON.stringify(yearly.problems));
+      const c = lifetimeCost(s);
+      if (!c.ok) throw new Error(JSON.stringify(c.problems));
+      // The same yearly figure in both places (core's, worked over the profile's day: loss-over-profile.ts).
+      expect(c.cost.losses.totalCost).toBeCloseTo(yearly.cost.totalCost, 9);
+      await expect.poll(async () => plain(await page.getByTestId('loss-cost-total').textContent())).toBe(plain(formatMoney(yearly.cost.totalCost, 'en-US')));
+      expect(plain(await page.getByTestId('loss-cost-total').textContent())).not.toBe(before);
+      await expect.poll(() => page.getByTestId('loss-cost-over-profile').textContent()).toContain('Worked out over the load profile’s day');
+      const want = new Map(lifetimeRows(c.cost).map((r) => [r.key, plain(rowText(r, 'en-US'))]));
+      await matches(section, want);
+      // The split by the profile's energy is then part of it: its box cannot be ticked.
+      expect(await section.getByTestId('lifetime-split-profile').isDisabled()).toBe(true);
+      expect(await seriousAxeViolations(page, '\'[data-testid="lifetime-cost"]\'')).toEqual([]);
+      await section.getByTestId('lifetime-duty').screenshot({ path: join(artifacts, 'cost-over-profile.png') });
       expect(errors).toEqual([]);
     } finally {
       await context.close();

@@ -13,7 +13,7 @@
  * whose figures are not all finite numbers comes back refused, naming the element and the field
  * (core/solve/finite.ts), never as a panel of NaN.
  */
-import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostPerYear, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, projectLifetimeCost, lifetimeSettingsOf, type LifetimeOutcome, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers, withProfilePrice } from '../../core/studies/index.ts';
+import { answerStudies, type BackupStudyResult, bankCautions, correctPowerFactor, type CostSettings, type DriveDetail, type LossCost, lossCostOfSolved, machineDetails, type MethodCosts, type MotorDetail, type PfCorrection, projectPumpDuty, type PumpControlResult, type PumpDetail, pumpDetails, fanDetails, type FanDetail, pumpDutyCosts, rechargeCautions, runBackupStudy, projectLifetimeCost, lifetimeSettingsOf, type LifetimeOutcome, runModesStudy, solveModes, type ModesStudyResult, type StudyAnswers } from '../../core/studies/index.ts';
 import { elementNames, nonFiniteProblems, type Problem, type Solved, type SolveResult } from '../../core/page.ts';
 import { compareColumns, flowGraph, solveColumns, type FlowGraph, type VariantComparison } from '../../core/studies/index.ts';
 import type { ProjectVariant } from '../../core/page.ts';
@@ -120,7 +120,7 @@ function machines(solved: Solved, cost: CostSettings | null): MachinesReply {
     } else figures.pumpDuty = { ok: false, problems: f.problems };
   }
   // The price the cost over the years takes (the load profile's day when the project splits by it).
-  if (cost) figures.lossCost = lossCostPerYear(result, withProfilePrice(solved, cost));
+  if (cost) figures.lossCost = lossCostOfSolved(solved, cost);
   if (lifetimeSettingsOf(project)) figures.lifetime = projectLifetimeCost(solved);
   const notFinite = nonFiniteProblems('The machines study', figures, elementNames(project));
   if (notFinite.length) return { kind: 'machines', outcome: { ok: false, problems: notFinite } };

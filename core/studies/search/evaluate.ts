@@ -33,7 +33,8 @@ import type { BatterySource } from '../../model/project.ts';
 import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
 import { DEFAULT_HORIZON_H } from '../../solve/load-profile.ts';
 import { studySurges } from '../surge/index.ts';
-import { lossCostPerYear, type CostSettings } from '../economics.ts';
+import type { CostSettings } from '../economics.ts';
+import { lossCostOfSolved } from '../loss-over-profile.ts';
 import type { SearchChoice } from './axes.ts';
 
 /** Why an option fails the target: its group ("Runtime below the target") and its words with figures. */
@@ -214,7 +215,7 @@ export function evaluateOption(
   const { result } = solved;
   option.lossW = result.totals.losses;
   if (cost) {
-    const c = lossCostPerYear(result, cost);
+    const c = lossCostOfSolved(solved, cost);
     if (c.ok) option.yearlyLossCost = c.cost.totalCost;
   }
   // 2. From the result: losses, drops, ampacity.

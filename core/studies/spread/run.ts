@@ -14,7 +14,8 @@ import type { Solved } from '../../solve/index.ts';
 import { variantProject } from '../../solve/variant.ts';
 import { solveValid } from '../../solve/solved.ts';
 import { runBackupStudy } from '../backup/study.ts';
-import { costSettingsOf, lossCostPerYear, type CostSettings } from '../economics.ts';
+import { costSettingsOf, type CostSettings } from '../economics.ts';
+import { lossCostOfSolved } from '../loss-over-profile.ts';
 import { DEFAULT_SPREAD_SAMPLES, DEFAULT_SPREAD_SEED, SPREAD_INPUTS, tolerancesOf, type SpreadInput, type Tolerances } from './tolerances.ts';
 import { changeOf, drawSamples, isEmptyChange, NOMINAL_DRAW, type Draw } from './sample.ts';
 import { histogram, percentiles, type HistogramBin, type Percentiles } from './stats.ts';
@@ -132,7 +133,7 @@ function runDraw(solved: Solved, plan: Pick<SpreadPlan, 'tolerances' | 'cost' | 
   const dis = study.study.discharge;
   let costPerYear: number | null = null;
   if (plan.cost) {
-    const c = lossCostPerYear(s.result, plan.cost);
+    const c = lossCostOfSolved(s, plan.cost);
     if (!c.ok) return c;
     costPerYear = c.cost.totalCost;
   }

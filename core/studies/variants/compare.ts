@@ -45,7 +45,8 @@ import type { BackupStudy } from '../../model/project.ts';
 import { DESIGN_BASIS_WORDS, solveAnswers, type BankAnswer } from '../../solve/answers.ts';
 import { sigText } from '../../model/message.ts';
 import { answerStudies, type BankStudyAnswer } from '../answers.ts';
-import { costSettingsOfSolved, HOURS_IN_YEAR, lossCostPerYear, type CostSettings } from '../economics.ts';
+import { costSettingsOfSolved, HOURS_IN_YEAR, type CostSettings } from '../economics.ts';
+import { lossCostOfSolved } from '../loss-over-profile.ts';
 import { compareLifetime, lifetimeSettingsOf, type BreakEven, type LifetimeCost, type LifetimeSettings } from '../lifetime.ts';
 import { projectLifetimeCost } from '../lifetime-recharge.ts';
 import { LIFETIME_METHOD_WORDS } from '../lifetime-text.ts';
@@ -229,7 +230,7 @@ export function compareVariants(solved: Solved, variants: readonly ProjectVarian
 /** The comparison from columns already solved (`solveColumns`), so a caller that also draws them solves once. */
 export function compareColumns(solved: Solved, variants: readonly ProjectVariant[], solves: readonly ColumnSolve[], options: CompareOptions = {}): VariantComparison {
   // The base's price (with its profile's day/night split when asked); each column's own cost figures take
-  // its own profile's split (answers.ts withProfilePrice).
+  // its own profile's split, or its losses over its own profile's day (answers.ts, loss-over-profile.ts lossCostOfSolved).
   const costSettings = options.cost !== undefined ? options.cost : costSettingsOfSolved(solved);
   // The hours the losses' energy is counted for: the price's, else the project's, else all year (as costSettingsOf takes them).
   const hoursPerYear = costSettings?.hoursPerYear ?? solved.project.running?.hoursPerYear ?? HOURS_IN_YEAR;
@@ -284,7 +285,7 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
       } else column.studyProblems.push({ study: 'cost', problems: [{ code: 'invalid-value', elementId: PROJECT_LEVEL, field: 'running.energyPricePerKWh', value: costSettings.pricePerKWh, message: studies.cost.reason }] });
     } else {
       // No price: the energy alone, E = P_loss × hours (economics.ts; its price 0 costs nothing).
-      const e = lossCostPerYear(sv.result, { pricePerKWh: 0, hoursPerYear });
+      const e = lossCostOfSolved(sv, { pricePerKWh: 0, hoursPerYear });
       if (e.ok) put(f, 'cost.energy', energyRow, e.cost.totalEnergyKWh);
       else column.studyProblems.push({ study: 'cost', problems: e.problems });
     }

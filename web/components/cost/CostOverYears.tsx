@@ -164,6 +164,7 @@ export function CostOverYears({ lifetime, project, solved, units, locale }: { li
 }
 
 const SPLIT_LABEL = 'Split the day and night hours as the load profile uses them';
+const OVER_PROFILE_LABEL = "Work out the losses over the load profile's day";
 const HOURS_LABEL = 'Hours per year at this load';
 
 /**
@@ -180,14 +181,32 @@ function DutyHours({ project, locale }: { project: DraftProject; locale: Locale 
   const hours = typeof running['hoursPerYear'] === 'number' ? running['hoursPerYear'] : null;
   if (!hasProfile && dutyHours === null) return null;
   const checked = running['dayHoursFromProfile'] === true;
+  const overProfile = running['lossesFromProfile'] === true;
   return (
     <div class="cost-years__duty" data-testid="lifetime-duty">
       {hasProfile && (
         <label class="cost-years__check">
           <input
             type="checkbox"
+            checked={overProfile}
+            aria-describedby="lifetime-over-profile-help"
+            onChange={(e) => writeLifetime(project, 'lossesFromProfile', (e.currentTarget as HTMLInputElement).checked ? true : undefined, OVER_PROFILE_LABEL)}
+            data-testid="lifetime-losses-profile"
+          />{' '}
+          {OVER_PROFILE_LABEL}
+        </label>
+      )}
+      {hasProfile && (
+        <p id="lifetime-over-profile-help" class="note">
+          Each load level of the battery backup study’s day is solved through the chain and each loss counted for the time it lasts (with a night price, each stretch at its hours’ price), for the hours a year above. Unticked: the operating point shown, held all those hours.
+        </p>
+      )}
+      {hasProfile && (
+        <label class="cost-years__check">
+          <input
+            type="checkbox"
             checked={checked}
-            disabled={!night && !checked}
+            disabled={(!night && !checked) || overProfile}
             aria-describedby="lifetime-split-help"
             onChange={(e) => writeLifetime(project, 'dayHoursFromProfile', (e.currentTarget as HTMLInputElement).checked ? true : undefined, SPLIT_LABEL)}
             data-testid="lifetime-split-profile"
@@ -197,7 +216,9 @@ function DutyHours({ project, locale }: { project: DraftProject; locale: Locale 
       )}
       {hasProfile && (
         <p id="lifetime-split-help" class="note">
-          {night
+          {overProfile
+            ? 'The losses are worked out over the profile’s day (above): each stretch already pays its hours’ price.'
+            : night
             ? 'The battery backup study’s day: the share of its energy used while the day price runs sets the mean price. Unticked: the hours are spread evenly over the day.'
             : 'With a night price: the battery backup study’s day can split the energy between the day and night prices.'}
         </p>

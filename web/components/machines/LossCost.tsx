@@ -105,7 +105,7 @@ export function LossCost({ lossCost, project, units, locale }: { lossCost: Machi
               <thead>
                 <tr>
                   <th scope="col">Where</th>
-                  <th scope="col" class="num">Loss</th>
+                  <th scope="col" class="num">{cost.cost.overProfile ? 'Mean loss' : 'Loss'}</th>
                   <th scope="col" class="num">Per year</th>
                   <th scope="col" class="num">Cost per year</th>
                 </tr>
@@ -132,7 +132,13 @@ export function LossCost({ lossCost, project, units, locale }: { lossCost: Machi
               </tfoot>
             </table>
           </div>
-          <p class="note">At the operating point shown, held for {formatSignificant(hours, 5, locale)} h a year; a chain that runs at several loads costs what each load level costs for its hours.</p>
+          {cost.cost.overProfile ? (
+            <p class="note" data-testid="loss-cost-over-profile">
+              Worked out over the load profile’s day: {cost.cost.overProfile.states} load {cost.cost.overProfile.states === 1 ? 'level' : 'levels'}, each solved through the chain, each loss counted for the time it lasts, for {formatSignificant(hours, 5, locale)} h a year; on average {formatSignificant(cost.cost.pricePerKWh, 4, locale)} {symbol ? `${symbol}/kWh` : 'per kWh'}. The loss shown is each element’s mean over the day.
+            </p>
+          ) : (
+            <p class="note">At the operating point shown, held for {formatSignificant(hours, 5, locale)} h a year; a chain that runs at several loads costs what each load level costs for its hours (tick “{"Work out the losses over the load profile's day"}” in the cost over the years for a project with a load profile).</p>
+          )}
           {cost.cost.profileDayShare !== undefined && (
             <p class="note" data-testid="loss-cost-profile-price">
               Priced at {formatSignificant(cost.cost.pricePerKWh, 4, locale)} {symbol ? `${symbol}/kWh` : 'per kWh'}: the day and night prices split as the load profile uses its day ({formatSignificant(cost.cost.profileDayShare * 100, 3, locale)} % of its energy at the day price), the same price as the cost over the years.
