@@ -69,13 +69,19 @@ describe.skipIf(skipWithout('chromium'))('the cost over the years in Chromium', 
     await expect.poll(async () => Object.fromEntries(await shownRows(section)), { timeout: 20_000 }).toEqual(Object.fromEntries(want));
   };
 
+  /** The section opened with a day price of 0.30, a night price of 0.10 and 10 years typed in (the hillside tests' tariff). */
+  async function withTariff(page: Page): Promise<Locator> {
+    const section = await openSection(page);
+    await page.getByTestId('cost-price').fill('0.30');
+    await section.getByTestId('lifetime-night-price').fill('0.10');
+    await section.getByTestId('lifetime-years').fill('10');
+    return section;
+  }
+
   it('desktop: the hillside demo’s load profile splits the day and night prices; the mean price and the cost are core’s', async () => {
     const { context, page, errors } = await openDemo(browser!, VIEWPORTS.desktop, 'hillside-relay-hut', { baseUrl });
     try {
-      const section = await openSection(page);
-      await page.getByTestId('cost-price').fill('0.30');
-      await section.getByTestId('lifetime-night-price').fill('0.10');
-      await section.getByTestId('lifetime-years').fill('10');
+      const section = await withTariff(page);
       const split = section.getByTestId('lifetime-split-profile');
       await expect.poll(() => split.isDisabled()).toBe(false);
       await split.check();
@@ -104,10 +110,7 @@ describe.skipIf(skipWithout('chromium'))('the cost over the years in Chromium', 
   it('desktop: the losses worked out over the hillside’s load profile; the yearly cost and the lifetime cost are core’s', async () => {
     const { context, page, errors } = await openDemo(browser!, VIEWPORTS.desktop, 'hillside-relay-hut', { baseUrl });
     try {
-      const section = await openSection(page);
-      await page.getByTestId('cost-price').fill('0.30');
-      await section.getByTestId('lifetime-night-price').fill('0.10');
-      await section.getByTestId('lifetime-years').fill('10');
+      const section = await withTariff(page);
       // Before: the operating point as drawn held all year (core's lossCostPerYear at the mean price).
       const before = plain(await page.getByTestId('loss-cost-total').textContent());
       await section.getByTestId('lifetime-losses-profile').check();

@@ -11,6 +11,7 @@
  * refuses keeps its message at the field and is never stored. The page computes nothing: the figures
  * are core's (lifetime-rows.ts only words them).
  */
+import type { ComponentChildren } from 'preact';
 import type { Solved } from '../../../core/page.ts';
 import type { LifetimeOutcome } from '../../../core/studies/index.ts';
 import { dutyHoursPerYear } from '../../../core/studies/index.ts';
@@ -167,6 +168,29 @@ const SPLIT_LABEL = 'Split the day and night hours as the load profile uses them
 const OVER_PROFILE_LABEL = "Work out the losses over the load profile's day";
 const HOURS_LABEL = 'Hours per year at this load';
 
+/** A choice the load profile offers the cost (stored as `running.<field>: true`, or left out), with its note under it. */
+function ProfileChoice({ project, field, label, checked, disabled, testId, children }: { project: DraftProject; field: string; label: string; checked: boolean; disabled: boolean; testId: string; children: ComponentChildren }) {
+  const help = `${testId}-help`;
+  return (
+    <>
+      <label class="cost-years__check">
+        <input
+          type="checkbox"
+          checked={checked}
+          disabled={disabled}
+          aria-describedby={help}
+          onChange={(e) => writeLifetime(project, field, (e.currentTarget as HTMLInputElement).checked ? true : undefined, label)}
+          data-testid={testId}
+        />{' '}
+        {label}
+      </label>
+      <p id={help} class="note">
+        {children}
+      </p>
+    </>
+  );
+}
+
 /**
  * Where the project has a duty: the backup study's load profile can split the day and night prices by the
  * energy its day uses (stored as the choice `running.dayHoursFromProfile`, worked by core); a pump duty
@@ -185,43 +209,18 @@ function DutyHours({ project, locale }: { project: DraftProject; locale: Locale 
   return (
     <div class="cost-years__duty" data-testid="lifetime-duty">
       {hasProfile && (
-        <label class="cost-years__check">
-          <input
-            type="checkbox"
-            checked={overProfile}
-            aria-describedby="lifetime-over-profile-help"
-            onChange={(e) => writeLifetime(project, 'lossesFromProfile', (e.currentTarget as HTMLInputElement).checked ? true : undefined, OVER_PROFILE_LABEL)}
-            data-testid="lifetime-losses-profile"
-          />{' '}
-          {OVER_PROFILE_LABEL}
-        </label>
-      )}
-      {hasProfile && (
-        <p id="lifetime-over-profile-help" class="note">
-          Each load level of the battery backup study’s day is solved through the chain and each loss counted for the time it lasts (with a night price, each stretch at its hours’ price), for the hours a year above. Unticked: the operating point shown, held all those hours.
-        </p>
-      )}
-      {hasProfile && (
-        <label class="cost-years__check">
-          <input
-            type="checkbox"
-            checked={checked}
-            disabled={(!night && !checked) || overProfile}
-            aria-describedby="lifetime-split-help"
-            onChange={(e) => writeLifetime(project, 'dayHoursFromProfile', (e.currentTarget as HTMLInputElement).checked ? true : undefined, SPLIT_LABEL)}
-            data-testid="lifetime-split-profile"
-          />{' '}
-          {SPLIT_LABEL}
-        </label>
-      )}
-      {hasProfile && (
-        <p id="lifetime-split-help" class="note">
-          {overProfile
-            ? 'The losses are worked out over the profile’s day (above): each stretch already pays its hours’ price.'
-            : night
-            ? 'The battery backup study’s day: the share of its energy used while the day price runs sets the mean price. Unticked: the hours are spread evenly over the day.'
-            : 'With a night price: the battery backup study’s day can split the energy between the day and night prices.'}
-        </p>
+        <>
+          <ProfileChoice project={project} field="lossesFromProfile" label={OVER_PROFILE_LABEL} checked={overProfile} disabled={false} testId="lifetime-losses-profile">
+            Each load level of the battery backup study’s day is solved through the chain and each loss counted for the time it lasts (with a night price, each stretch at its hours’ price), for the hours a year above. Unticked: the operating point shown, held all those hours.
+          </ProfileChoice>
+          <ProfileChoice project={project} field="dayHoursFromProfile" label={SPLIT_LABEL} checked={checked} disabled={(!night && !checked) || overProfile} testId="lifetime-split-profile">
+            {overProfile
+              ? 'The losses are worked out over the profile’s day (above): each stretch already pays its hours’ price.'
+              : night
+              ? 'The battery backup study’s day: the share of its energy used while the day price runs sets the mean price. Unticked: the hours are spread evenly over the day.'
+              : 'With a night price: the battery backup study’s day can split the energy between the day and night prices.'}
+          </ProfileChoice>
+        </>
       )}
       {dutyHours !== null && (
         <p class="cost-years__actions">
