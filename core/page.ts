@@ -32,4 +32,4 @@ export { defaultCatalogue } from './conductors/catalogue.ts';
 export { resolveLimits } from './conductors/path-drop.ts';
 export { CAUTION as CONDUCTOR_CAUTION } from './conductors/size.ts';
 export { DESIGN_BASIS_WORDS, GOVERNING_WORDS, solveAnswers, type BankAnswer, type CableAnswer, type ConverterAnswer, type LossSplit, type SolveAnswers, type WarningAnswer, type WorkingPanel } from './solve/answers.ts';
-export { meanPrice, priceOfRunning, DEFAULT_DAY_START_HOUR, DEFAULT_DAY_END_HOUR } from './model/tariff.ts';
+export { dayNightTariff, meanPrice, tariffOfRunning, type DayNightTariff } from './model/tariff.ts';

@@ -7,17 +7,33 @@
 export const DEFAULT_DAY_START_HOUR = 7;
 export const DEFAULT_DAY_END_HOUR = 23;
 
+/** A tariff: the day price (the only price without a night price), the night price, and the day price's hours. */
+export interface TariffHours {
+  dayPricePerKWh: number;
+  nightPricePerKWh?: number | undefined;
+  dayStartHour: number;
+  dayEndHour: number;
+}
+
+/** A tariff with its night price: two prices and the day price's hours. */
+export type DayNightTariff = TariffHours & { nightPricePerKWh: number };
+
+/** A project's `running` prices as a tariff, the day price's hours defaulted (DEFAULT_DAY_START_HOUR, DEFAULT_DAY_END_HOUR). */
+export function tariffOfRunning(r: { energyPricePerKWh: number; nightPricePerKWh?: number | undefined; dayStartHour?: number | undefined; dayEndHour?: number | undefined }): TariffHours {
+  return { dayPricePerKWh: r.energyPricePerKWh, nightPricePerKWh: r.nightPricePerKWh, dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR, dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR };
+}
+
+/** The tariff's two prices and their hours when it has a night price (the losses over a load profile pay each stretch at its hours' price), else undefined. */
+export function dayNightTariff(t: TariffHours): DayNightTariff | undefined {
+  return t.nightPricePerKWh === undefined ? undefined : { dayPricePerKWh: t.dayPricePerKWh, nightPricePerKWh: t.nightPricePerKWh, dayStartHour: t.dayStartHour, dayEndHour: t.dayEndHour };
+}
+
 /** The mean energy price over the day, and the hours of the day price (time-weighted mean price). */
-export function meanPrice(s: { dayPricePerKWh: number; nightPricePerKWh?: number | undefined; dayStartHour: number; dayEndHour: number }): { pricePerKWh: number; dayHours: number } {
+export function meanPrice(s: TariffHours): { pricePerKWh: number; dayHours: number } {
   if (s.nightPricePerKWh === undefined) return { pricePerKWh: s.dayPricePerKWh, dayHours: 24 };
   const dayHours = s.dayEndHour - s.dayStartHour;
   // Time-weighted mean price: p̄ = (h_day·p_day + (24 − h_day)·p_night) / 24.
   return { pricePerKWh: (dayHours * s.dayPricePerKWh + (24 - dayHours) * s.nightPricePerKWh) / 24, dayHours };
-}
-
-/** The price the losses are costed at from a project's `running` settings: the day's mean with a night price, else the energy price. */
-export function priceOfRunning(r: { energyPricePerKWh: number; nightPricePerKWh?: number | undefined; dayStartHour?: number | undefined; dayEndHour?: number | undefined }): number {
-  return meanPrice({ dayPricePerKWh: r.energyPricePerKWh, nightPricePerKWh: r.nightPricePerKWh, dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR, dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR }).pricePerKWh;
 }
 
 /**

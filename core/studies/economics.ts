@@ -24,7 +24,7 @@ export const HOURS_FIELD = 'running.hoursPerYear';
 /** Losses smaller than this (W) are solver round-off, not a stage that loses power. */
 const ROUND_OFF_W = 1e-9;
 
-import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, meanPrice, priceOfRunning, profileDayHours } from '../model/tariff.ts';
+import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, dayNightTariff, meanPrice, profileDayHours, tariffOfRunning, type DayNightTariff } from '../model/tariff.ts';
 import type { Solved } from '../solve/solved.ts';
 import { profileDay } from './backup/profile-day.ts';
 
@@ -38,7 +38,7 @@ export interface CostSettings {
   /** Set when the price is the day and night prices' mean weighted by the load profile's day (`withProfilePrice`): the share of its energy used while the day price runs. */
   profileDayShare?: number;
   /** The project's day/night tariff the price is the mean of (`costSettingsOf`, with a night price): the losses worked out over the load profile pay each stretch at its hours' price. */
-  tariff?: { dayPricePerKWh: number; nightPricePerKWh: number; dayStartHour: number; dayEndHour: number };
+  tariff?: DayNightTariff;
 }
 
 export interface LossCostRow {
@@ -91,11 +91,10 @@ export function costSettingsOf(project: Pick<Project, 'running'>): CostSettings 
   if (r?.energyPricePerKWh === undefined) return null;
   // With a night price the losses are priced at the day's mean (meanPrice), the hours spread evenly over the
   // day; a solved chain whose project splits them by its load profile takes `withProfilePrice`.
-  const pricePerKWh = priceOfRunning({ ...r, energyPricePerKWh: r.energyPricePerKWh });
+  const t = tariffOfRunning({ ...r, energyPricePerKWh: r.energyPricePerKWh });
   const hoursPerYear = r.hoursPerYear ?? HOURS_IN_YEAR;
-  if (r.nightPricePerKWh === undefined) return { pricePerKWh, hoursPerYear };
-  const tariff = { dayPricePerKWh: r.energyPricePerKWh, nightPricePerKWh: r.nightPricePerKWh, dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR, dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR };
-  return { pricePerKWh, hoursPerYear, tariff };
+  const tariff = dayNightTariff(t);
+  return { pricePerKWh: meanPrice(t).pricePerKWh, hoursPerYear, ...(tariff ? { tariff } : {}) };
 }
 
 /** A day/night tariff as the cost of the losses prices it (the project's `running`, lifetime.ts `LifetimeSettings`). */
@@ -141,13 +140,7 @@ function profileSplit(solved: Solved, t: Tariff): { dayHours: number; dayShare: 
 export function withProfilePrice(solved: Solved, cost: CostSettings): CostSettings {
   const r = solved.project.running;
   if (!r?.dayHoursFromProfile || r.nightPricePerKWh === undefined || r.energyPricePerKWh === undefined) return cost;
-  const t = tariffPrice(solved, {
-    dayPricePerKWh: r.energyPricePerKWh,
-    nightPricePerKWh: r.nightPricePerKWh,
-    dayStartHour: r.dayStartHour ?? DEFAULT_DAY_START_HOUR,
-    dayEndHour: r.dayEndHour ?? DEFAULT_DAY_END_HOUR,
-    dayHoursFromProfile: true,
-  });
+  const t = tariffPrice(solved, { ...tariffOfRunning({ ...r, energyPricePerKWh: r.energyPricePerKWh }), dayHoursFromProfile: true });
   return t.split ? { ...cost, pricePerKWh: t.pricePerKWh, profileDayShare: t.split.dayShare } : cost;
 }
 

@@ -34,6 +34,7 @@ import { elementWords } from '../model/field-labels.ts';
 import { HOURS_IN_YEAR, MAX_HOURS_PER_YEAR } from '../solve/running-schema.ts';
 import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, lossCostPerYear, meanPrice, tariffPrice, type LossCost } from './economics.ts';
 import { lossCostOverProfile } from './loss-over-profile.ts';
+import { dayNightTariff } from '../model/tariff.ts';
 import { breakEven, netPresentValue, type BreakEven, type CostStream } from './lifetime-money.ts';
 import { generatorFuelPerYear, type FuelRun, type GeneratorYear, type RechargeRun } from './lifetime-fuel.ts';
 
@@ -177,8 +178,8 @@ export function lifetimeCost(solved: Solved, settings?: LifetimeSettings | null,
   // The mean price, the profile's split when asked for: the same function as the yearly cost of the losses (economics.ts).
   const { pricePerKWh, dayHours, split } = tariffPrice(solved, s);
   // Over the load profile's day when the project asks (loss-over-profile.ts): each stretch at its hours' price.
-  const tariff = s.nightPricePerKWh !== undefined ? { tariff: { dayPricePerKWh: s.dayPricePerKWh, nightPricePerKWh: s.nightPricePerKWh, dayStartHour: s.dayStartHour, dayEndHour: s.dayEndHour } } : {};
-  const lc = lossCostOverProfile(solved, { pricePerKWh, hoursPerYear: s.hoursPerYear, ...tariff }) ?? lossCostPerYear(solved.result, { pricePerKWh, hoursPerYear: s.hoursPerYear });
+  const tariff = dayNightTariff(s);
+  const lc = lossCostOverProfile(solved, { pricePerKWh, hoursPerYear: s.hoursPerYear, ...(tariff ? { tariff } : {}) }) ?? lossCostPerYear(solved.result, { pricePerKWh, hoursPerYear: s.hoursPerYear });
   if (!lc.ok) return lc;
   const over = lc.cost.overProfile;
   // Elements named as messages name them: their name, or the kind's label and place ("Utility supply #1").

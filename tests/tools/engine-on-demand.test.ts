@@ -15,8 +15,8 @@ const repoRoot = fileURLToPath(new URL('../..', import.meta.url));
 const LIGHT = new Set([
   'PROJECT_LEVEL', 'PROJECT_VERSION', 'migrateProject', 'issueMessage', 'demoProjects', 'fieldWords', 'elementNames', 'nonFiniteProblems',
   'fieldLabel', 'fillTemplate', 'elementWords', 'pathWords', 'KIND_LABELS',
-  // core/model/tariff.ts: one formula and its default hours, no imports (the price in force before the engine loads).
-  'priceOfRunning', 'DEFAULT_DAY_START_HOUR', 'DEFAULT_DAY_END_HOUR',
+  // core/model/tariff.ts: its formulas, no imports (the price and tariff in force before the engine loads).
+  'meanPrice', 'tariffOfRunning', 'dayNightTariff',
 ]);
 
 /** The run-time names a source imports (or re-exports) from core/page.ts, with `type` ones left out. */

@@ -7,7 +7,7 @@
  */
 import { effect, signal } from '@preact/signals';
 import { UNIT_SYSTEMS, type UnitSystem } from '../format/units.ts';
-import { DEFAULT_DAY_END_HOUR, DEFAULT_DAY_START_HOUR, priceOfRunning } from '../../core/page.ts';
+import { dayNightTariff, meanPrice, tariffOfRunning, type DayNightTariff } from '../../core/page.ts';
 
 export type ThemeChoice = 'auto' | 'light' | 'dark';
 export const THEME_CHOICES: readonly ThemeChoice[] = ['auto', 'light', 'dark'];
@@ -223,24 +223,20 @@ export function runningInForce(project: unknown, device: CostPrefs = { pricePerK
   return { price: typeof price === 'number' ? price : null, hours: typeof hours === 'number' ? hours : ALL_YEAR_H, fromDevice: false };
 }
 
-/** The project's day/night tariff, as core's cost settings carry it (core/studies/economics.ts `CostSettings.tariff`). */
-type TariffInForce = { dayPricePerKWh: number; nightPricePerKWh: number; dayStartHour: number; dayEndHour: number };
-
 /**
  * The cost settings the studies take ({ pricePerKWh, hoursPerYear }, and the project's day/night tariff
  * when it gives a night price: the losses worked out over the load profile pay each stretch at its
  * hours' price), or null without a price.
  */
-export function costInForce(project: unknown): { pricePerKWh: number; hoursPerYear: number; tariff?: TariffInForce } | null {
+export function costInForce(project: unknown): { pricePerKWh: number; hoursPerYear: number; tariff?: DayNightTariff } | null {
   const r = runningInForce(project);
   if (r.price === null) return null;
   // A night price in the file makes the losses' price the day's mean, as the engine and the CLI take it
   // (core/studies/tariff.ts, costSettingsOf); the price field itself shows the day price as given.
   const running = isRecord(project) && isRecord(project['running']) ? project['running'] : {};
   const num = (k: string) => (typeof running[k] === 'number' ? (running[k] as number) : undefined);
-  const pricePerKWh = r.fromDevice ? r.price : priceOfRunning({ energyPricePerKWh: r.price, nightPricePerKWh: num('nightPricePerKWh'), dayStartHour: num('dayStartHour'), dayEndHour: num('dayEndHour') });
-  const night = num('nightPricePerKWh');
-  if (r.fromDevice || night === undefined) return { pricePerKWh, hoursPerYear: r.hours };
-  const tariff = { dayPricePerKWh: r.price, nightPricePerKWh: night, dayStartHour: num('dayStartHour') ?? DEFAULT_DAY_START_HOUR, dayEndHour: num('dayEndHour') ?? DEFAULT_DAY_END_HOUR };
-  return { pricePerKWh, hoursPerYear: r.hours, tariff };
+  if (r.fromDevice) return { pricePerKWh: r.price, hoursPerYear: r.hours };
+  const t = tariffOfRunning({ energyPricePerKWh: r.price, nightPricePerKWh: num('nightPricePerKWh'), dayStartHour: num('dayStartHour'), dayEndHour: num('dayEndHour') });
+  const tariff = dayNightTariff(t);
+  return { pricePerKWh: meanPrice(t).pricePerKWh, hoursPerYear: r.hours, ...(tariff ? { tariff } : {}) };
 }
