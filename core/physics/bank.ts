@@ -193,13 +193,18 @@ export function checkBank(spec: BatteryBankSpec): BankProblem[] {
   return out;
 }
 
+/** A bank's rated capacity, all strings, Ah: one string's capacity × the strings in parallel (default 1). */
+export function bankCapacityAh(spec: Pick<BatteryBankSpec, 'capacityAh' | 'strings'>): number {
+  return spec.capacityAh * (spec.strings ?? 1);
+}
+
 /** Resolve a checked bank spec (call checkBank first; the figures assume it passed). */
 export function resolveBank(spec: BatteryBankSpec, internalResistanceOverride?: number): Bank {
   const { values, overridden } = bankValues(spec);
   const preset = CHEMISTRY_PRESETS[spec.chemistry];
   const cellsInSeries = spec.series * (spec.cellsPerBlock ?? 1);
   const strings = spec.strings ?? 1;
-  const capacityAh = spec.capacityAh * strings;
+  const capacityAh = bankCapacityAh(spec);
   const nominalVoltage = values.nominalCellVoltage * cellsInSeries;
   const nominalWh = nominalVoltage * capacityAh;
   // Ohm's law for s equal cells in series and p equal strings in parallel: R = s·R_cell / p.

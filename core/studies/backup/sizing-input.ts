@@ -10,11 +10,10 @@ import { PROJECT_LEVEL } from '../../model/errors.ts';
 import { isLeadAcid, leadAcidTemperatureFactor } from './sizing-factors.ts';
 import { MAX_REPEATED_PERIODS, repeatedPeriods } from './sizing-periods.ts';
 import {
-  DEFAULT_AGING_FACTOR,
-  DEFAULT_DESIGN_MARGIN,
   DEFAULT_FIELDS,
   DEFAULT_MAX_STRINGS,
   RATED_TEMPERATURE,
+  sizingFactors,
   type Checked,
   type DutyCycle,
   type SizingFieldPaths,
@@ -173,9 +172,8 @@ export function checkInput(input: SizingInput): { ok: true; c: Checked } | { ok:
       );
     }
   }
-  const designMargin = input.designMargin ?? DEFAULT_DESIGN_MARGIN;
+  const { designMargin, agingFactor } = sizingFactors(input, preset.chemistry);
   checkFactor(out, elementId, fields.designMargin, designMargin, 'design margin');
-  const agingFactor = input.agingFactor ?? DEFAULT_AGING_FACTOR[preset.chemistry];
   checkFactor(out, elementId, fields.agingFactor, agingFactor, 'aging factor');
 
   const temperature = input.temperature ?? RATED_TEMPERATURE;

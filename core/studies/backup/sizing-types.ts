@@ -258,6 +258,11 @@ export const DEFAULT_AGING_FACTOR: Readonly<Record<Chemistry, number>> = {
 /** Design margin, IEEE 485 common practice (1.10–1.15). */
 export const DEFAULT_DESIGN_MARGIN = IEEE_485_DEFAULT_DESIGN_MARGIN;
 
+/** The design margin and aging factor a sizing takes: those given, else the defaults (the aging factor per chemistry). */
+export function sizingFactors(given: { designMargin?: number | undefined; agingFactor?: number | undefined }, chemistry: Chemistry): { designMargin: number; agingFactor: number } {
+  return { designMargin: given.designMargin ?? DEFAULT_DESIGN_MARGIN, agingFactor: given.agingFactor ?? DEFAULT_AGING_FACTOR[chemistry] };
+}
+
 /** Parallel strings considered at most, common practice (no source): more strings share poorly. */
 export const DEFAULT_MAX_STRINGS = 4;
 

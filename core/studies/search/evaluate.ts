@@ -28,6 +28,7 @@ import { solveProjectVariant } from '../../solve/project-variant.ts';
 import { outageSolve } from '../../solve/modes.ts';
 import { simulateDischarge, type DischargeOutcome, type DischargeResult } from '../backup/discharge.ts';
 import { runBackupStudy } from '../backup/study.ts';
+import { bankCapacityAh } from '../../physics/bank.ts';
 import type { BankSizing } from '../backup/sizing.ts';
 import type { BatterySource } from '../../model/project.ts';
 import { PROJECT_LEVEL, type Problem } from '../../model/errors.ts';
@@ -171,7 +172,7 @@ export function bankForTarget(
   const { discharge, sizing } = o.study;
   const bank = studyBank(solved, discharge.batteryId)?.bank;
   if (!sizing || !bank) return { ok: false, problems: [{ code: 'invalid-value', elementId: discharge.batteryId, field: 'bank', message: 'the backup study gives no bank for the target' }] };
-  return { ok: true, discharge, sizing, installedAh: (bank.strings ?? 1) * bank.capacityAh };
+  return { ok: true, discharge, sizing, installedAh: bankCapacityAh(bank) };
 }
 
 /** Evaluate one combination against the target (see the header). */

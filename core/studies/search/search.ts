@@ -16,8 +16,8 @@
  * the optional limit. Figures are planning estimates: local codes and licensed practice govern.
  */
 import type { Problem } from '../../model/errors.ts';
-import type { BatteryBankSpec, BatterySource } from '../../model/project.ts';
-import { DEFAULT_AGING_FACTOR, DEFAULT_DESIGN_MARGIN } from '../backup/sizing.ts';
+import type { BatterySource } from '../../model/project.ts';
+import { sizingFactors } from '../backup/sizing-types.ts';
 import { PROJECT_LEVEL } from '../../model/errors.ts';
 import type { OptionSearch } from '../../model/option-search.ts';
 import { SEARCH_MAX_COMBINATIONS } from '../../model/option-search.ts';
@@ -161,19 +161,14 @@ export function searchTarget(solved: Solved, search: OptionSearch): SearchTarget
   };
 }
 
-/** The design margin and aging factor the project's backup study sizes with (given, or the sizing's defaults: sizing.ts). */
-function sizingFactors(solved: Solved, bank: BatteryBankSpec): { margin: number; aging: number } {
-  const study = solved.project.backup;
-  return { margin: study?.designMargin ?? DEFAULT_DESIGN_MARGIN, aging: study?.agingFactor ?? DEFAULT_AGING_FACTOR[bank.chemistry] };
-}
-
 function targetWords(t: SearchTarget, solved: Solved): string[] {
   const out: string[] = [];
   const bank = solved.project.elements.find((e): e is BatterySource => e.kind === 'battery' && e.bank !== undefined)?.bank;
   if (t.runtimeSeconds !== undefined && bank) {
     const T = durationWords(t.runtimeSeconds);
-    const f = sizingFactors(solved, bank);
-    out.push(`runtime at least ${T}: the installed bank at least the bank the backup study sizes for ${T} (design margin ${sigText(f.margin, 3)}, aging ${sigText(f.aging, 3)}), and the bank as new lasting ${T}`);
+    // The factors the project's backup study sizes with (given, or the sizing's defaults).
+    const f = sizingFactors(solved.project.backup ?? {}, bank.chemistry);
+    out.push(`runtime at least ${T}: the installed bank at least the bank the backup study sizes for ${T} (design margin ${sigText(f.designMargin, 3)}, aging ${sigText(f.agingFactor, 3)}), and the bank as new lasting ${T}`);
   } else if (bank) {
     out.push(solved.project.backup ? 'runtime: no target runtime given (not checked)' : 'runtime: the chain has no battery backup study (not checked)');
   }

@@ -44,6 +44,7 @@ import { solveVariant } from '../../solve/variant.ts';
 import type { BackupStudy } from '../../model/project.ts';
 import { DESIGN_BASIS_WORDS, solveAnswers, type BankAnswer } from '../../solve/answers.ts';
 import { sigText } from '../../model/message.ts';
+import { bankCapacityAh } from '../../physics/bank.ts';
 import { answerStudies, type BankStudyAnswer } from '../answers.ts';
 import { costSettingsOfSolved, HOURS_IN_YEAR, type CostSettings } from '../economics.ts';
 import { lossCostOfSolved } from '../loss-over-profile.ts';
@@ -207,7 +208,7 @@ export function cableCurrentBasis(study: Pick<BankStudyAnswer, 'cableCurrent'>, 
 /** The installed bank's rated capacity, Ah (strings × one string's capacity), of the element the study names. */
 function installedAh(solved: Solved, bankId: string): number | undefined {
   const e = solved.project.elements.find((x) => x.id === bankId);
-  return e?.kind === 'battery' && e.bank ? (e.bank.strings ?? 1) * e.bank.capacityAh : undefined;
+  return e?.kind === 'battery' && e.bank ? bankCapacityAh(e.bank) : undefined;
 }
 
 /** The state of health the backup study discharges the bank at, in the row's words. */
