@@ -64,7 +64,8 @@ export interface StartAnswer {
 }
 
 export type CostAnswer =
-  | { ok: true; pricePerKWh: number; hoursPerYear: number; energyKWh: number; cost: number; panel: 'machines' }
+  /** `overProfile`: worked out over the load profile's day (loss-over-profile.ts); the price is then the mean the losses pay. */
+  | { ok: true; pricePerKWh: number; hoursPerYear: number; energyKWh: number; cost: number; overProfile?: true; panel: 'machines' }
   | { ok: false; reason: string; panel: 'machines' };
 
 export interface StudyAnswers {
@@ -114,7 +115,7 @@ export function studyAnswersFrom(
   const starts: StartAnswer[] = (studies.starts ?? []).map((s) => ({ elementId: s.motorId, name: s.name, verdict: s.verdict, governing: s.governing, panel: 'starting' }));
   const lc = studies.lossCost;
   const cost: CostAnswer = lc
-    ? { ok: true, pricePerKWh: lc.pricePerKWh, hoursPerYear: lc.hoursPerYear, energyKWh: lc.totalEnergyKWh, cost: lc.totalCost, panel: 'machines' }
+    ? { ok: true, pricePerKWh: lc.pricePerKWh, hoursPerYear: lc.hoursPerYear, energyKWh: lc.totalEnergyKWh, cost: lc.totalCost, ...(lc.overProfile ? { overProfile: true as const } : {}), panel: 'machines' }
     : { ok: false, reason: 'no energy price given', panel: 'machines' };
   return { banks, starts, cost };
 }

@@ -127,6 +127,8 @@ describe.skipIf(skipWithout('chromium'))('the cost over the years in Chromium', 
       await expect.poll(async () => plain(await page.getByTestId('loss-cost-total').textContent())).toBe(plain(formatMoney(yearly.cost.totalCost, 'en-US')));
       expect(plain(await page.getByTestId('loss-cost-total').textContent())).not.toBe(before);
       await expect.poll(() => page.getByTestId('loss-cost-over-profile').textContent()).toContain('Worked out over the load profile’s day');
+      // The answers strip says how its yearly cost was counted.
+      await expect.poll(() => page.locator('[data-answer="loss-cost"]').first().textContent()).toContain('over the load profile’s day');
       const want = new Map(lifetimeRows(c.cost).map((r) => [r.key, plain(rowText(r, 'en-US'))]));
       await matches(section, want);
       // The split by the profile's energy is then part of it: its box cannot be ticked.

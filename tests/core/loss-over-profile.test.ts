@@ -14,6 +14,8 @@ import { lossCostOfSolved, lossCostOverProfile } from '../../core/studies/loss-o
 import { costSettingsOf, formatLossCost, lossCostPerYear } from '../../core/studies/economics.ts';
 import { lifetimeCost } from '../../core/studies/lifetime.ts';
 import { compareVariants } from '../../core/studies/variants/compare.ts';
+import { formatVariantComparison } from '../../core/studies/variants/text-report.ts';
+import { answerStudies } from '../../core/studies/answers.ts';
 import { solveProjectVariant } from '../../core/solve/project-variant.ts';
 import { runSpread } from '../../core/studies/spread/run.ts';
 import type { Project } from '../../core/model/project.ts';
@@ -133,6 +135,14 @@ describe('the losses over the load profile’s day', () => {
     // Hand-worked: 90 × (1/0.95 − 1) + 2 = 6.7368 W on, 2 W off: 365 × (4 × 6.7368 + 40) Wh = 24.436 kWh × 0.25.
     expect(yearly[1]).toBeCloseTo((365 * (4 * (90 * (1 / 0.95 - 1) + 2) + 40) / 1000) * 0.25, 9);
     expect(yearly[0]).toBeCloseTo(8.03, 9);
+    // Its working says how the losses were counted (the CLI under the table; the page reads the same flag).
+    expect(table.lossesOverProfile).toBe(true);
+    expect(formatVariantComparison(table, withVariant)).toContain("worked out over the load profile's day");
+    const drawn = compareVariants(solvedOf(lampChain({ energyPricePerKWh: 0.25 })));
+    expect(drawn.lossesOverProfile).toBe(false);
+    // The answers strip's cost says so too (core/studies/answers.ts).
+    const answers = answerStudies(solved, costSettingsOf(solved.project));
+    expect(answers.cost.ok && answers.cost.overProfile).toBe(true);
   });
 
   it('each spread sample prices its own losses over the profile (zero tolerances: the single figure)', () => {

@@ -103,6 +103,8 @@ export interface VariantComparison {
   rows: ComparisonRow[];
   /** The hours a year the losses' energy is counted for (the project's, or all year). */
   hoursPerYear: number;
+  /** True when the losses are worked out over the load profile's day (loss-over-profile.ts), not the operating point held all those hours. */
+  lossesOverProfile: boolean;
   /** The price and hours the losses are costed at (absent without an energy price), and the lifetime settings' years and rate. */
   cost?: { pricePerKWh: number; hoursPerYear: number };
   lifetime?: { years: number; discountRate: number };
@@ -377,6 +379,7 @@ export function compareColumns(solved: Solved, variants: readonly ProjectVariant
     columns,
     rows,
     hoursPerYear,
+    lossesOverProfile: solved.project.running?.lossesFromProfile === true && solved.project.backup !== undefined,
     ...(costSettings ? { cost: { pricePerKWh: costSettings.pricePerKWh, hoursPerYear: costSettings.hoursPerYear } } : {}),
     ...(lifeSettings ? { lifetime: { years: lifeSettings.years, discountRate: lifeSettings.discountRate } } : {}),
     methods: lifeSettings ? [LIFETIME_METHOD_WORDS, ...(columns.length > 1 ? BREAK_EVEN_METHODS : [])] : [],

@@ -68,8 +68,9 @@ export function formatVariantComparison(c: VariantComparison, project?: { name?:
   const fmt = (cells: string[]) => (cells.length === 1 ? cells[0]! : cells.map((s, i) => s.padEnd(widths[i]!)).join('  ').trimEnd());
   const out = [`Variants side by side${projectName ? `: ${projectName}` : ''} (* marks figures that differ between the options)`, fmt(header), ...lines.map(fmt)];
   if (c.columns.length === 1) out.push('The project has no variants yet: add them to "variants" in the file (or in the page\'s "Compare options").');
-  if (c.cost) out.push(`Losses costed at ${sigText(c.cost.pricePerKWh, 4)} per kWh for ${sigText(c.cost.hoursPerYear, 5)} h a year.`);
-  else out.push(`Energy lost a year: the losses at the solved operating point for ${sigText(c.hoursPerYear, 5)} h a year (no energy price given, so no cost).`);
+  const basis = c.lossesOverProfile ? "worked out over the load profile's day (each load state solved through the chain)" : 'at the solved operating point';
+  if (c.cost) out.push(`Losses costed at ${sigText(c.cost.pricePerKWh, 4)} per kWh for ${sigText(c.cost.hoursPerYear, 5)} h a year${c.lossesOverProfile ? `, ${basis}, each stretch at its hours' price` : ''}.`);
+  else out.push(`Energy lost a year: the losses ${basis} for ${sigText(c.hoursPerYear, 5)} h a year (no energy price given, so no cost).`);
   if (c.lifetime) out.push(`Lifetime cost over ${c.lifetime.years} year${c.lifetime.years === 1 ? '' : 's'} at a discount rate of ${sigText(c.lifetime.discountRate * 100, 3)} %${c.columns.length > 1 ? '; break-even and payback of each option against the plan as it stands' : ''}.`);
   out.push(...c.methods);
   for (const col of c.columns) {

@@ -140,7 +140,7 @@ export function AnswersLines({ solved, part }: { solved: Solved; part: 'first' |
       <Line
         label="Losses cost"
         name="loss-cost"
-        note={costAnswer?.ok ? `a year at ${formatSignificant(costAnswer.hoursPerYear, 4, loc)} h` : costAnswer ? (costAnswer.reason === 'no energy price given' ? 'give an energy price' : costAnswer.reason) : undefined}
+        note={costAnswer?.ok ? `a year at ${formatSignificant(costAnswer.hoursPerYear, 4, loc)} h${costAnswer.overProfile ? ', over the load profile’s day' : ''}` : costAnswer ? (costAnswer.reason === 'no energy price given' ? 'give an energy price' : costAnswer.reason) : undefined}
       >
         <Fig label="Losses cost" to={{ panel: 'machines', figure: 'loss-cost' }} state={costAnswer ? figState : 'working'} testId="answer-loss-cost">
           {costAnswer?.ok ? (money ? money(costAnswer.cost, loc) : formatSignificant(costAnswer.cost, 4, loc)) : costAnswer ? 'no price' : WORKING}

@@ -59,7 +59,7 @@ export function ReportAnswers({ solved, answers, studies: given, locale }: Repor
           {formatPower(l.conversion, loc)}, cables {formatPower(l.cables, loc)}
           {l.source > 0 ? `, the supply's own ${formatPower(l.source, loc)}` : ''}.{' '}
           {cost?.ok
-            ? `Over ${formatSignificant(cost.hoursPerYear, 4, loc)} hours a year at ${formatSignificant(cost.pricePerKWh, 4, loc)} per kWh they cost about ${money ? money(cost.cost, loc) : formatSignificant(cost.cost, 4, loc)} a year.`
+            ? `${cost.overProfile ? 'Worked out over the load profile’s day, over' : 'Over'} ${formatSignificant(cost.hoursPerYear, 4, loc)} hours a year at ${cost.overProfile ? 'a mean of ' : ''}${formatSignificant(cost.pricePerKWh, 4, loc)} per kWh they cost about ${money ? money(cost.cost, loc) : formatSignificant(cost.cost, 4, loc)} a year.`
             : cost
               ? 'No energy price was given, so their yearly cost is not stated.'
               : `Their yearly cost: ${LATER}.`}

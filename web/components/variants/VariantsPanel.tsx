@@ -43,7 +43,7 @@ export function ComparisonMethods({ comparison }: { comparison: VariantCompariso
   return (
     <ul class="note variants-methods" data-testid="variants-methods">
       <li>
-        Energy lost a year: the losses at the solved operating point × {n(comparison.hoursPerYear, 5)} h a year{comparison.cost ? '.' : ' (no energy price given, so no cost).'}
+        Energy lost a year: {comparison.lossesOverProfile ? 'the losses worked out over the load profile’s day (each load state solved through the chain) for' : 'the losses at the solved operating point ×'} {n(comparison.hoursPerYear, 5)} h a year{comparison.cost ? '.' : ' (no energy price given, so no cost).'}
       </li>
       {life && (
         <li>
