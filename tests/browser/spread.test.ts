@@ -122,8 +122,8 @@ describe.skipIf(skipWithout('chromium'))('the runtime spread panel in Chromium',
         expect(plain(await page.getByTestId('spread-runtime-p50').textContent())).toBe(plain(`${formatSignificant(p50, 3, 'en-US')} h`));
         await expect.poll(() => page.getByTestId('spread-sensitivity').locator('li').first().getAttribute('data-input')).toBe(core.value.sensitivity[0]!.input);
         expect(await page.getByTestId('spread-histogram').locator('svg rect').count()).toBe(core.value.histogram.length);
-        // The bank's histogram, and the yearly cost of the losses as the runtime: row, histogram, ranking (core's own).
-        expect(await page.getByTestId('spread-bank-histogram').locator('svg rect').count()).toBe(core.value.requiredHistogram!.length);
+        // The histogram of the capacity the target needs, and the yearly cost of the losses as the runtime: row, histogram, ranking (core's own).
+        expect(await page.getByTestId('spread-required-histogram').locator('svg rect').count()).toBe(core.value.requiredHistogram!.length);
         const shownCost = Number(await page.getByTestId('spread-cost-p50').getAttribute('data-value'));
         expect(Math.abs(shownCost - costP50) / costP50).toBeLessThan(1e-9);
         expect(await page.getByTestId('spread-cost-histogram').locator('svg rect').count()).toBe(core.value.costHistogram!.length);
@@ -133,6 +133,7 @@ describe.skipIf(skipWithout('chromium'))('the runtime spread panel in Chromium',
         await page.getByTestId('spread-result').scrollIntoViewIfNeeded();
         await page.getByTestId('spread-panel').screenshot({ path: join(artifacts, `spread-${label}-done.png`) });
         await page.getByTestId('spread-histogram').screenshot({ path: join(artifacts, `spread-${label}-histogram.png`) });
+        await page.getByTestId('spread-required-histogram').screenshot({ path: join(artifacts, `spread-${label}-required-histogram.png`) });
         await page.getByTestId('spread-sensitivity').screenshot({ path: join(artifacts, `spread-${label}-sensitivity.png`) });
         await page.getByTestId('spread-cost-histogram').screenshot({ path: join(artifacts, `spread-${label}-cost-histogram.png`) });
         await page.getByTestId('spread-cost-sensitivity').screenshot({ path: join(artifacts, `spread-${label}-cost-sensitivity.png`) });

@@ -235,7 +235,7 @@ export default function SpreadPanel() {
           {result.targetHours !== undefined && result.requiredAh && result.requiredHistogram && (
             <>
               <h4>How the capacity {h(result.targetHours)} needs spreads</h4>
-              <Histogram bins={result.requiredHistogram} p={result.requiredAh} format={ah} name="Capacity needed" testId="spread-bank-histogram" />
+              <Histogram bins={result.requiredHistogram} p={result.requiredAh} format={ah} name="Capacity needed" testId="spread-required-histogram" />
               <p class="note">The capacity the battery study works out for the target, before it is rounded up to whole strings (each string the bank's capacity in that sample, or a standard rating when the study lists them): the bank row above is that rounding, so it moves in steps.</p>
             </>
           )}
